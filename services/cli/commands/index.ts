@@ -1,0 +1,8 @@
+/**
+ * Every `cpreg` command, one registering function each. To add a command, create
+ * commands/<name>.ts exporting `(program: Command) => void` and add ONE line below.
+ */
+import type { Command } from 'commander';
+
+export const COMMANDS: Array<(program: Command) => void> = [
+];
