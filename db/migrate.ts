@@ -1,0 +1,74 @@
+/**
+ * Schema migrations: kysely's Migrator over the timestamp-named files in migrations/.
+ * Running it again is harmless (applied migrations are recorded in kysely_migration).
+ */
+import { promises as fs } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import { sql, type Kysely } from 'kysely';
+import { FileMigrationProvider, Migrator, type MigrationResult } from 'kysely/migration';
+
+export const MIGRATIONS_DIR = fileURLToPath(new URL('../migrations/', import.meta.url));
+
+/**
+ * Extensions the schema relies on. Enabled before the migrations run, so that a migration may use
+ * them; CREATE EXTENSION IF NOT EXISTS is harmless on a second run. (On PGlite they must also be
+ * loaded in the constructor: openDatabase does that.) All three ship with PostgreSQL 15 contrib and
+ * are "trusted", so a database owner without superuser may create them.
+ */
+export const REQUIRED_EXTENSIONS = ['pg_trgm', 'fuzzystrmatch', 'unaccent'] as const;
+
+export interface MigrationReport {
+  /** Migrations applied by this call, in order. */
+  applied: string[];
+  /** Every migration name known, in order. */
+  all: string[];
+}
+
+export class MigrationError extends Error {
+  constructor(
+    readonly migration: string | undefined,
+    options: { cause?: unknown },
+  ) {
+    const cause = options.cause as { message?: string } | undefined;
+    super(
+      migration
+        ? `migration ${migration} failed: ${cause?.message ?? String(options.cause)}`
+        : `migrations failed: ${cause?.message ?? String(options.cause)}`,
+      options,
+    );
+    this.name = 'MigrationError';
+  }
+}
+
+export function createMigrator(db: Kysely<any>, migrationFolder = MIGRATIONS_DIR): Migrator {
+  return new Migrator({
+    db,
+    provider: new FileMigrationProvider({
+      fs,
+      path,
+      migrationFolder,
+      import: (file: string) => import(pathToFileURL(file).href),
+    }),
+  });
+}
+
+export async function ensureExtensions(db: Kysely<any>): Promise<void> {
+  for (const name of REQUIRED_EXTENSIONS) {
+    await sql`create extension if not exists ${sql.id(name)}`.execute(db);
+  }
+}
+
+/** Brings the schema up to date; throws MigrationError naming the failing migration. */
+export async function migrateToLatest(db: Kysely<any>, migrationFolder = MIGRATIONS_DIR): Promise<MigrationReport> {
+  await ensureExtensions(db);
+  const migrator = createMigrator(db, migrationFolder);
+  const { error, results } = await migrator.migrateToLatest();
+  const failed = results?.find((r: MigrationResult) => r.status === 'Error');
+  if (error) throw new MigrationError(failed?.migrationName, { cause: error });
+  const all = (await migrator.getMigrations()).map((m) => m.name);
+  return {
+    applied: (results ?? []).filter((r) => r.status === 'Success').map((r) => r.migrationName),
+    all,
+  };
+}

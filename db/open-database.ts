@@ -1,0 +1,251 @@
+/**
+ * One entry point to the database, whatever runs it:
+ * - PostgreSQL through `pg` when the target is a postgres:// or postgresql:// URL;
+ * - embedded PGlite otherwise: a directory (default ./data/cpreg) or `memory:` (tests).
+ * Everything above db/ sees the same Kysely<Database>; nothing backend-specific leaks out.
+ */
+import { existsSync, mkdirSync, readdirSync, statSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { Kysely, PGliteDialect, PostgresDialect, sql } from 'kysely';
+import type { PGlite as PGliteClass } from '@electric-sql/pglite';
+import type { Database } from './types.ts';
+import { acquireDirectoryLock, LOCK_FILE_NAME, type DirectoryLock } from './lock.ts';
+import { DatabaseOpenError } from './database-errors.ts';
+
+export type Backend = 'pglite' | 'postgres';
+
+export const DEFAULT_DATA_DIR = './data/cpreg';
+export const MEMORY_TARGET = 'memory:';
+/** How long opening waits for PostgreSQL to accept a connection before saying it is unreachable. */
+export const DEFAULT_CONNECT_TIMEOUT_MS = 5000;
+
+export interface OpenDatabaseOptions {
+  /**
+   * The per-request database timeout (the service's --db-timeout): on PostgreSQL, both how long a
+   * request waits for a pooled connection and the server-side statement_timeout. Unset: no
+   * statement timeout (migrations, jobs and the CLI may run long statements).
+   */
+  timeoutMs?: number;
+  /** PostgreSQL connection-pool size (default 10). */
+  poolSize?: number;
+  /** Recorded in the embedded lock file, shown to a second process that is refused. */
+  command?: string;
+  /** Told about a stale embedded lock taken over (default: one line on stderr). */
+  onMessage?: (line: string) => void;
+  /** PGlite only: start from this data-directory dump (tests use a migrated template). */
+  loadDataDir?: Blob;
+  /** Told when the pool reports an error on an idle PostgreSQL connection (default: ignored; the pool replaces it). */
+  onPoolError?: (error: Error) => void;
+}
+
+export interface OpenedDatabase {
+  db: Kysely<Database>;
+  backend: Backend;
+  /** What was opened, fit for messages: a URL without its password, a directory, or `memory:`. */
+  description: string;
+  close(): Promise<void>;
+}
+
+/** The target to use: the argument, else DATABASE_URL, else the embedded default directory. */
+export function resolveTarget(target?: string): string {
+  if (target && target.trim() !== '') return target;
+  const fromEnv = process.env.DATABASE_URL;
+  if (fromEnv && fromEnv.trim() !== '') return fromEnv;
+  return DEFAULT_DATA_DIR;
+}
+
+export function isPostgresUrl(target: string): boolean {
+  return /^postgres(?:ql)?:\/\//i.test(target);
+}
+
+export async function openDatabase(target?: string, options: OpenDatabaseOptions = {}): Promise<OpenedDatabase> {
+  const resolved = resolveTarget(target);
+  if (isPostgresUrl(resolved)) return openPostgres(resolved, options);
+  return openPglite(resolved, options);
+}
+
+// ---------------------------------------------------------------- PostgreSQL
+
+/** host:port of a PostgreSQL URL, for messages. */
+export function describePostgresUrl(url: string): { host: string; port: number; database: string; safe: string } {
+  const parsed = new URL(url);
+  const host = parsed.hostname || 'localhost';
+  const port = parsed.port ? Number(parsed.port) : 5432;
+  const database = decodeURIComponent(parsed.pathname.replace(/^\//, '')) || parsed.username || 'postgres';
+  if (parsed.password) parsed.password = '***';
+  return { host, port, database, safe: parsed.toString() };
+}
+
+const INT8_OID = 20;
+
+async function openPostgres(url: string, options: OpenDatabaseOptions): Promise<OpenedDatabase> {
+  let where: ReturnType<typeof describePostgresUrl>;
+  try {
+    where = describePostgresUrl(url);
+  } catch (error) {
+    throw new DatabaseOpenError(`the database URL is not a valid URL: ${(error as Error).message}`, { cause: error });
+  }
+  const { default: pg } = await import('pg');
+  // int8 (ids, counts) as a JS number, as PGlite answers it, so both backends give the same values;
+  // ids stay far below 2^53. Set on this pool only, not on pg's global parsers.
+  const types = {
+    getTypeParser: ((oid: number, format?: 'text' | 'binary') =>
+      oid === INT8_OID && format !== 'binary' ? (value: string) => Number(value) : pg.types.getTypeParser(oid, format)) as typeof pg.types.getTypeParser,
+  };
+  const pool = new pg.Pool({
+    connectionString: url,
+    max: options.poolSize ?? 10,
+    connectionTimeoutMillis: options.timeoutMs ?? DEFAULT_CONNECT_TIMEOUT_MS,
+    ...(options.timeoutMs ? { statement_timeout: options.timeoutMs } : {}),
+    application_name: 'cpreg',
+    types,
+  });
+  // An idle client whose server went away emits 'error' on the pool; unhandled it would crash the
+  // process. The pool drops that client and the next request reconnects (or answers 503).
+  pool.on('error', (error) => options.onPoolError?.(error));
+  try {
+    const client = await pool.connect();
+    client.release();
+  } catch (error) {
+    await pool.end().catch(() => undefined);
+    throw new DatabaseOpenError(explainConnectError(error, where), { cause: error });
+  }
+  const db = new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });
+  let closed = false;
+  return {
+    db,
+    backend: 'postgres',
+    description: where.safe,
+    async close() {
+      if (closed) return;
+      closed = true;
+      await db.destroy(); // ends the pool
+    },
+  };
+}
+
+function explainConnectError(error: unknown, where: { host: string; port: number; database: string }): string {
+  const err = error as { code?: string; message?: string; errors?: Array<{ code?: string }> };
+  const code = err.code ?? err.errors?.[0]?.code;
+  const at = `PostgreSQL at ${where.host}:${where.port}`;
+  const fix = 'check --db or DATABASE_URL';
+  switch (code) {
+    case 'ECONNREFUSED':
+      return `cannot reach ${at}: connection refused (is the server running?); ${fix}`;
+    case 'ENOTFOUND':
+    case 'EAI_AGAIN':
+      return `cannot reach ${at}: unknown host ${where.host}; ${fix}`;
+    case '3D000':
+      return `${at} has no database "${where.database}"; create it or ${fix}`;
+    case '28P01':
+    case '28000':
+      return `${at} refused the login: ${err.message}; ${fix}`;
+    default:
+      if (/timeout/i.test(err.message ?? '')) return `cannot reach ${at}: no answer (connection timed out); ${fix}`;
+      return `cannot reach ${at}: ${oneLine(err.message || code || 'unknown error')}; ${fix}`;
+  }
+}
+
+function oneLine(text: string): string {
+  return text.replace(/\s+/g, ' ').trim();
+}
+
+// ---------------------------------------------------------------- PGlite
+
+async function loadPglite(): Promise<{ create: (dir: string | undefined, loadDataDir?: Blob) => Promise<PGliteLike> }> {
+  const [{ PGlite }, { pg_trgm }, { fuzzystrmatch }, { unaccent }] = await Promise.all([
+    import('@electric-sql/pglite'),
+    import('@electric-sql/pglite/contrib/pg_trgm'),
+    import('@electric-sql/pglite/contrib/fuzzystrmatch'),
+    import('@electric-sql/pglite/contrib/unaccent'),
+  ]);
+  return {
+    create: async (dir, loadDataDir) =>
+      PGlite.create({
+        ...(dir ? { dataDir: dir } : {}),
+        ...(loadDataDir ? { loadDataDir } : {}),
+        // Loaded here; CREATE EXTENSION IF NOT EXISTS in the migrations then enables them.
+        extensions: { pg_trgm, fuzzystrmatch, unaccent },
+      }),
+  };
+}
+
+const PGLITE_HANDLES = new WeakMap<Kysely<Database>, PGliteLike>();
+
+type PGliteLike = Awaited<ReturnType<typeof PGliteClass.create>>;
+
+/** Refuses a directory that holds something other than a PGlite cluster; never writes to it. */
+export function checkEmbeddedDirectory(dir: string): void {
+  if (!existsSync(dir)) return;
+  if (!statSync(dir).isDirectory()) {
+    throw new DatabaseOpenError(`${dir} is a file, not a database directory; point --db at a directory`);
+  }
+  const entries = readdirSync(dir).filter((name) => name !== LOCK_FILE_NAME);
+  if (entries.length > 0 && !entries.includes('PG_VERSION')) {
+    throw new DatabaseOpenError(
+      `${dir} is not an embedded cpreg database (it is not empty and has no PG_VERSION); ` +
+        `nothing was changed: point --db at an empty or new directory`,
+    );
+  }
+}
+
+async function openPglite(target: string, options: OpenDatabaseOptions): Promise<OpenedDatabase> {
+  const memory = target === MEMORY_TARGET;
+  const dir = memory ? undefined : resolve(target);
+  let lock: DirectoryLock | undefined;
+  if (dir) {
+    checkEmbeddedDirectory(dir);
+    mkdirSync(dir, { recursive: true });
+    lock = acquireDirectoryLock(dir, { command: options.command, onMessage: options.onMessage });
+  }
+  let pglite: PGliteLike;
+  try {
+    const { create } = await loadPglite();
+    pglite = await create(dir, options.loadDataDir);
+  } catch (error) {
+    lock?.release();
+    throw new DatabaseOpenError(`cannot open the embedded database ${target}: ${(error as Error).message}`, {
+      cause: error,
+    });
+  }
+  const db = new Kysely<Database>({ dialect: new PGliteDialect({ pglite }) });
+  PGLITE_HANDLES.set(db, pglite);
+  try {
+    await sql`select 1`.execute(db);
+  } catch (error) {
+    await pglite.close().catch(() => undefined);
+    lock?.release();
+    throw new DatabaseOpenError(`cannot open the embedded database ${target}: ${(error as Error).message}`, {
+      cause: error,
+    });
+  }
+  let closed = false;
+  return {
+    db,
+    backend: 'pglite',
+    description: memory ? MEMORY_TARGET : target,
+    async close() {
+      if (closed) return;
+      closed = true;
+      try {
+        await db.destroy();
+        if (!pglite.closed) await pglite.close();
+      } finally {
+        lock?.release();
+      }
+    },
+  };
+}
+
+/** PGlite only: a dump of the data directory (tests copy a migrated template from it). */
+export async function dumpEmbedded(opened: OpenedDatabase): Promise<Blob> {
+  if (opened.backend !== 'pglite') throw new Error('dumpEmbedded works on the embedded database only');
+  const pglite = pgliteOf(opened);
+  return pglite.dumpDataDir('none');
+}
+
+function pgliteOf(opened: OpenedDatabase): PGliteLike {
+  const handle = PGLITE_HANDLES.get(opened.db);
+  if (!handle) throw new Error('no PGlite handle for this database');
+  return handle;
+}
