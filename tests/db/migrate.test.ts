@@ -1,0 +1,69 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { sql } from 'kysely';
+import { migrateToLatest, createMigrator, REQUIRED_EXTENSIONS } from '../../db/migrate.ts';
+import { describeEachBackend, isBackendAvailable, openTestDatabase, type TestDatabase } from '../support/database.ts';
+import { schemaSnapshot } from './schema-snapshot.ts';
+
+describeEachBackend('migrations', (ctx) => {
+  it('migrating an up-to-date database again applies nothing and changes no schema', async () => {
+    const before = await schemaSnapshot(ctx.db());
+    const migrator = createMigrator(ctx.db());
+    const known = await migrator.getMigrations();
+    expect(known.length).toBeGreaterThan(0);
+    expect(known.every((m) => m.executedAt !== undefined)).toBe(true);
+
+    const first = await migrateToLatest(ctx.db());
+    const second = await migrateToLatest(ctx.db());
+    expect(first.applied).toEqual([]);
+    expect(second.applied).toEqual([]);
+    expect(second.all).toEqual(known.map((m) => m.name));
+    expect(await schemaSnapshot(ctx.db())).toEqual(before);
+  });
+
+  it('enables the extensions the schema uses', async () => {
+    const { extensions } = await schemaSnapshot(ctx.db());
+    for (const name of REQUIRED_EXTENSIONS) expect(extensions).toContain(name);
+    // The functions answer (values: pg_trgm and fuzzystrmatch documentation examples, from memory).
+    const { rows } = await sql<{ sim: number; lev: number; plain: string }>`
+      select similarity('word', 'two words') as sim, levenshtein('kitten', 'sitting') as lev,
+             unaccent('Hôtel') as plain`.execute(ctx.db());
+    expect(rows[0]!.lev).toBe(3); // kitten → sitting: the classic Levenshtein example, distance 3
+    expect(rows[0]!.plain).toBe('Hotel');
+    expect(rows[0]!.sim).toBeGreaterThan(0.3);
+    expect(rows[0]!.sim).toBeLessThan(0.4); // pg_trgm docs example: 0.36363637 (4 shared of 11 trigrams)
+  });
+});
+
+describe('a database migrated from empty', () => {
+  it('ends with every migration applied, and a second run applies none', async () => {
+    const { openDatabase } = await import('../../db/open-database.ts');
+    const opened = await openDatabase('memory:');
+    try {
+      const first = await migrateToLatest(opened.db);
+      expect(first.applied).toEqual(first.all);
+      expect(first.all.length).toBeGreaterThan(0);
+      const second = await migrateToLatest(opened.db);
+      expect(second.applied).toEqual([]);
+    } finally {
+      await opened.close();
+    }
+  });
+});
+
+describe.skipIf(!isBackendAvailable('postgres'))('both backends', () => {
+  let pglite: TestDatabase;
+  let postgres: TestDatabase;
+  beforeAll(async () => {
+    [pglite, postgres] = await Promise.all([openTestDatabase('pglite'), openTestDatabase('postgres')]);
+  });
+  afterAll(async () => {
+    await Promise.all([pglite?.close(), postgres?.close()]);
+  });
+
+  it('end with the same tables, columns, types, indexes and constraints', async () => {
+    const [a, b] = await Promise.all([schemaSnapshot(pglite.db), schemaSnapshot(postgres.db)]);
+    expect(a.columns.length).toBeGreaterThan(0);
+    expect(a.indexes.length).toBeGreaterThan(0);
+    expect(a).toEqual(b);
+  });
+});

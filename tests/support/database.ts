@@ -1,0 +1,160 @@
+/**
+ * Database suites run on every backend available, each test file on its own migrated copy:
+ *
+ *   describeEachBackend('counterparty queries', (ctx) => {
+ *     it('inserts', async () => {
+ *       await ctx.db().insertInto('counterparty')...;
+ *     });
+ *   });
+ *
+ * registers `counterparty queries [pglite]` and `counterparty queries [postgres]`; the latter is
+ * skipped (reported as skipped, never as passed) when the run has no PostgreSQL. The copy is opened
+ * in beforeAll and dropped in afterAll; tests inside one describe share it (clean up after yourself
+ * or use distinct keys). `openTestDatabase(backend)` gives a copy outside that pattern.
+ */
+import { readFileSync } from 'node:fs';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { randomBytes } from 'node:crypto';
+import { afterAll, beforeAll, describe, inject } from 'vitest';
+import type { Kysely } from 'kysely';
+import { openDatabase, type OpenDatabaseOptions, type OpenedDatabase } from '../../db/open-database.ts';
+import type { Database } from '../../db/types.ts';
+import type { TestEnvironment } from './environment.ts';
+import { createDatabaseFromTemplate, dropDatabase, withDatabase } from './postgres-admin.ts';
+
+export type TestBackend = 'pglite' | 'postgres';
+export const ALL_TEST_BACKENDS: readonly TestBackend[] = ['pglite', 'postgres'];
+
+export interface TestDatabase extends OpenedDatabase {
+  backend: TestBackend;
+  /** PostgreSQL only: the URL of this copy (for child processes or a second service instance). */
+  url?: string;
+}
+
+export interface BackendContext {
+  backend: TestBackend;
+  /** The copy's Kysely instance; valid inside tests and hooks (opened in beforeAll). */
+  db(): Kysely<Database>;
+  /** The whole opened copy (backend, url on PostgreSQL, close). */
+  database(): TestDatabase;
+}
+
+export function testEnvironment(): TestEnvironment {
+  const environment = inject('cpregTestEnvironment');
+  if (!environment) throw new Error('the test harness globalSetup did not run: run tests through vitest.config.ts');
+  return environment;
+}
+
+export function isBackendAvailable(backend: TestBackend): boolean {
+  return backend === 'pglite' || testEnvironment().postgres !== undefined;
+}
+
+export function availableBackends(): TestBackend[] {
+  return ALL_TEST_BACKENDS.filter(isBackendAvailable);
+}
+
+let templateBlob: Blob | undefined;
+/** The migrated embedded template, read once per test file. */
+export function pgliteTemplate(): Blob {
+  templateBlob ??= new Blob([readFileSync(testEnvironment().pgliteTemplateFile)]);
+  return templateBlob;
+}
+
+/**
+ * A fresh migrated database: PGlite in memory loaded from the template dump (about half a second),
+ * or a PostgreSQL database copied from the run's template. close() also drops the PostgreSQL copy.
+ */
+export async function openTestDatabase(
+  backend: TestBackend,
+  options: Omit<OpenDatabaseOptions, 'loadDataDir'> = {},
+): Promise<TestDatabase> {
+  if (backend === 'pglite') {
+    const opened = await openDatabase('memory:', { ...options, loadDataDir: pgliteTemplate() });
+    return { ...opened, backend };
+  }
+  const url = await createPostgresCopy();
+  const server = testEnvironment().postgres!;
+  const name = new URL(url).pathname.slice(1);
+  let opened: OpenedDatabase;
+  try {
+    opened = await openDatabase(url, options);
+  } catch (error) {
+    await dropDatabase(server.adminUrl, name);
+    throw error;
+  }
+  return {
+    ...opened,
+    backend,
+    url,
+    async close() {
+      await opened.close();
+      await dropDatabase(server.adminUrl, name);
+    },
+  };
+}
+
+/**
+ * A new PostgreSQL database copied from the migrated template; returns its URL. The caller opens it
+ * (e.g. from two service instances); the run's teardown drops it, or call dropPostgresCopy(url).
+ */
+export async function createPostgresCopy(): Promise<string> {
+  const server = testEnvironment().postgres;
+  if (!server) throw new Error('no PostgreSQL in this run (see the run\'s first line)');
+  const name = `${server.databasePrefix}${randomBytes(5).toString('hex')}`;
+  await createDatabaseFromTemplate(server.adminUrl, name, server.templateDatabase);
+  return withDatabase(server.adminUrl, name);
+}
+
+export async function dropPostgresCopy(url: string): Promise<void> {
+  const server = testEnvironment().postgres;
+  if (!server) return;
+  await dropDatabase(server.adminUrl, new URL(url).pathname.slice(1));
+}
+
+/**
+ * A migrated embedded database written into a new temporary directory (for CLI tests that spawn
+ * `cpreg serve --db <dir>`); returns the directory. Remove it with removeTempDir.
+ */
+export async function createMigratedDataDir(): Promise<string> {
+  const dir = makeTempDir('cpreg-db-');
+  const opened = await openDatabase(dir, { loadDataDir: pgliteTemplate(), command: 'test harness' });
+  await opened.close();
+  return dir;
+}
+
+export function makeTempDir(prefix = 'cpreg-test-'): string {
+  return mkdtempSync(join(tmpdir(), prefix));
+}
+
+export function removeTempDir(dir: string): void {
+  rmSync(dir, { recursive: true, force: true });
+}
+
+/** Registers `fn` once per backend (see the file header). */
+export function describeEachBackend(title: string, fn: (ctx: BackendContext) => void): void {
+  for (const backend of ALL_TEST_BACKENDS) {
+    const available = isBackendAvailable(backend);
+    const suite = available ? describe : describe.skip;
+    suite(`${title} [${backend}]`, () => {
+      let opened: TestDatabase | undefined;
+      beforeAll(async () => {
+        opened = await openTestDatabase(backend);
+      });
+      afterAll(async () => {
+        await opened?.close();
+      });
+      const database = (): TestDatabase => {
+        if (!opened) throw new Error(`the ${backend} test database is not open yet: use it inside tests or hooks`);
+        return opened;
+      };
+      fn({ backend, db: () => database().db, database });
+    });
+  }
+}
+
+/** The same as describeEachBackend, for suites that open their own databases per backend. */
+export function forEachBackend(fn: (backend: TestBackend, available: boolean) => void): void {
+  for (const backend of ALL_TEST_BACKENDS) fn(backend, isBackendAvailable(backend));
+}

@@ -1,0 +1,2 @@
+export * from './database.ts';
+export type { TestEnvironment, PostgresTestServer } from './environment.ts';
