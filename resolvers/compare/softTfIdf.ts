@@ -1,0 +1,123 @@
+/**
+ * Soft TF-IDF token-set similarity (Cohen, Ravikumar & Fienberg 2003, "A Comparison of String Distance
+ * Metrics for Name-Matching Tasks"), with Jaro–Winkler as the secondary similarity between tokens.
+ *
+ *   SoftTFIDF(S, T) = Σ_{w ∈ CLOSE(θ, S, T)} V(w, S) · V(N(w, T), T) · D(w, T)
+ *
+ * V(w, S) = log(tf + 1) · idf(w), normalised to unit length over S; D(w, T) = max_{v ∈ T} JW(w, v);
+ * N(w, T) the v reaching it; CLOSE = tokens of S whose D exceeds θ. (The paper writes log(IDF); our
+ * IdfTable already returns a logarithmic weight.)
+ *
+ * θ = 0.9 by default: the value the paper reports using with Jaro–Winkler (from memory), and a level at
+ * which JW accepts one-letter typos in longer tokens ("fabrication"/"fabrikation" ≈ 0.96) but not
+ * different short words ("rail"/"mail" = 0.83).
+ *
+ * Two departures from the paper, both so that the score is a similarity a pair can be scored on:
+ * - The paper's sum is asymmetric and can exceed 1 when several tokens of S fall on one token of T;
+ *   each direction is capped at 1 and the result is the mean of S→T and T→S, so order never matters.
+ * - Two empty token lists give 0 (no evidence), not 1.
+ */
+import type { IdfTable } from './idfTable.ts';
+import { jaroWinkler } from './jaroWinkler.ts';
+
+export const SOFT_TFIDF_DEFAULT_THRESHOLD = 0.9;
+
+export interface SoftTfIdfOptions {
+  /** θ: the least Jaro–Winkler similarity at which two tokens count as the same word. Default 0.9. */
+  threshold?: number;
+}
+
+/** One token of one side and the token of the other side it was matched to. */
+export interface SoftTfIdfMatch {
+  token: string;
+  matchedWith: string;
+  /** Jaro–Winkler between the two tokens. */
+  similarity: number;
+  /** This token's contribution to the direction's sum. */
+  contribution: number;
+}
+
+export interface SoftTfIdfResult {
+  score: number;
+  /** Matches from the first list's point of view, then the second's. */
+  forward: SoftTfIdfMatch[];
+  backward: SoftTfIdfMatch[];
+}
+
+interface WeightedTokens {
+  tokens: string[];
+  weights: number[];
+}
+
+/** Distinct tokens with unit-length log(tf + 1) · idf weights. */
+function weigh(tokens: readonly string[], idf: IdfTable): WeightedTokens {
+  const counts = new Map<string, number>();
+  for (const token of tokens) counts.set(token, (counts.get(token) ?? 0) + 1);
+  const distinct = [...counts.keys()];
+  const weights = distinct.map((token) => Math.log((counts.get(token) ?? 0) + 1) * idf.idf(token));
+  let norm = 0;
+  for (const w of weights) norm += w * w;
+  norm = Math.sqrt(norm);
+  return { tokens: distinct, weights: norm > 0 ? weights.map((w) => w / norm) : weights };
+}
+
+function direction(s: WeightedTokens, t: WeightedTokens, threshold: number, detail: SoftTfIdfMatch[] | null): number {
+  let sum = 0;
+  for (let i = 0; i < s.tokens.length; i++) {
+    const token = s.tokens[i]!;
+    let best = -1;
+    let bestIndex = -1;
+    for (let j = 0; j < t.tokens.length; j++) {
+      const sim = jaroWinkler(token, t.tokens[j]!);
+      if (sim > best) {
+        best = sim;
+        bestIndex = j;
+      }
+    }
+    // Equal tokens always count (JW = 1), whatever θ; otherwise the paper's strict "> θ".
+    if (bestIndex < 0 || !(best > threshold || best === 1)) continue;
+    const contribution = s.weights[i]! * t.weights[bestIndex]! * best;
+    sum += contribution;
+    detail?.push({ token, matchedWith: t.tokens[bestIndex]!, similarity: best, contribution });
+  }
+  return sum > 1 ? 1 : sum;
+}
+
+function checkThreshold(threshold: number): void {
+  if (!(threshold >= 0 && threshold <= 1)) {
+    throw new RangeError(`softTfIdf: options.threshold must be in [0, 1], got ${threshold}`);
+  }
+}
+
+/** Symmetric soft TF-IDF similarity of two token lists, in [0, 1]. */
+export function softTfIdf(
+  a: readonly string[],
+  b: readonly string[],
+  idf: IdfTable,
+  options: SoftTfIdfOptions = {},
+): number {
+  const threshold = options.threshold ?? SOFT_TFIDF_DEFAULT_THRESHOLD;
+  checkThreshold(threshold);
+  if (a.length === 0 || b.length === 0) return 0;
+  const wa = weigh(a, idf);
+  const wb = weigh(b, idf);
+  return (direction(wa, wb, threshold, null) + direction(wb, wa, threshold, null)) / 2;
+}
+
+/** The same score with the token matches that produced it (for explanations). */
+export function softTfIdfExplained(
+  a: readonly string[],
+  b: readonly string[],
+  idf: IdfTable,
+  options: SoftTfIdfOptions = {},
+): SoftTfIdfResult {
+  const threshold = options.threshold ?? SOFT_TFIDF_DEFAULT_THRESHOLD;
+  checkThreshold(threshold);
+  const forward: SoftTfIdfMatch[] = [];
+  const backward: SoftTfIdfMatch[] = [];
+  if (a.length === 0 || b.length === 0) return { score: 0, forward, backward };
+  const wa = weigh(a, idf);
+  const wb = weigh(b, idf);
+  const score = (direction(wa, wb, threshold, forward) + direction(wb, wa, threshold, backward)) / 2;
+  return { score, forward, backward };
+}

@@ -1,0 +1,152 @@
+/**
+ * What two parties' identifiers say about them being the same legal entity.
+ *
+ * - decisive: an equal, valid strong identifier (LEI, VAT, registration numbers) and nothing against it.
+ * - cannotLink: the two hold different valid values in a scheme where an entity has exactly one value:
+ *   different LEIs, different numbers in one registration scheme, different VAT numbers of one country,
+ *   different entries of one German register court and type.
+ * - conflicting: both of the above at once (e.g. same VAT number, different LEIs: a VAT group, or a data
+ *   error). `decisive` is then false: such a pair needs a person.
+ * - sharedWeak: shared phone, e-mail/web domain, IBAN or other labelled identifier. This means "same or
+ *   affiliated" (affiliates share switchboards, domains and bank accounts): review, never merge on it alone.
+ *   Free-mail domains are never evidence.
+ *
+ * Identifiers are normalised here again (normaliseIdentifier is idempotent), so raw input is safe; invalid
+ * ones are left out and listed in `ignored` and in the explanation, never silently.
+ */
+import { STRONG_SCHEMES, type Identifier, type IdentifierScheme } from '../vocabulary.ts';
+import { isFreeMailDomain } from './contact.ts';
+import { splitDeRegister } from './deRegister.ts';
+import { normaliseIdentifier } from './normaliseIdentifier.ts';
+import type { NormaliseOptions } from './types.ts';
+import { sirenFromFrenchVat } from './vat.ts';
+
+export interface IdentifierEvidence {
+  scheme: IdentifierScheme;
+  value: string;
+  label?: string;
+  /** Set when the value was derived from another identifier (e.g. the SIREN inside a French VAT number). */
+  derivedFrom?: Identifier;
+}
+
+export interface DifferingIdentifiers {
+  scheme: IdentifierScheme;
+  a: string[];
+  b: string[];
+}
+
+export interface IgnoredIdentifier {
+  side: 'a' | 'b';
+  identifier: Identifier;
+  reason: string;
+}
+
+export interface IdentifierComparison {
+  decisive: boolean;
+  cannotLink: boolean;
+  conflicting: boolean;
+  equalStrong: IdentifierEvidence[];
+  differingStrong: DifferingIdentifiers[];
+  sharedWeak: IdentifierEvidence[];
+  ignored: IgnoredIdentifier[];
+  explanation: string[];
+}
+
+interface Side {
+  strong: Map<IdentifierScheme, IdentifierEvidence[]>;
+  weak: Map<string, IdentifierEvidence>;
+}
+
+/** Key under which weak evidence is shared: e-mail and web domains form one pool ("acme.example" either way). */
+function weakKey(e: IdentifierEvidence): string {
+  if (e.scheme === 'email_domain' || e.scheme === 'web_domain') return `domain:${e.value}`;
+  if (e.scheme === 'other') return `other:${e.label ?? ''}:${e.value}`;
+  return `${e.scheme}:${e.value}`;
+}
+
+function collect(side: 'a' | 'b', identifiers: readonly Identifier[], options: NormaliseOptions, ignored: IgnoredIdentifier[]): Side {
+  const strong = new Map<IdentifierScheme, IdentifierEvidence[]>();
+  const weak = new Map<string, IdentifierEvidence>();
+  const addStrong = (e: IdentifierEvidence): void => {
+    const list = strong.get(e.scheme) ?? [];
+    if (!list.some((x) => x.value === e.value)) list.push(e);
+    strong.set(e.scheme, list);
+  };
+  for (const identifier of identifiers) {
+    const result = normaliseIdentifier(identifier, options);
+    if (!result.ok) {
+      ignored.push({ side, identifier, reason: result.reason });
+      continue;
+    }
+    const id = result.identifier;
+    if (STRONG_SCHEMES.has(id.scheme)) {
+      addStrong({ scheme: id.scheme, value: id.value });
+      const siren = id.scheme === 'vat' ? sirenFromFrenchVat(id.value) : null;
+      if (siren) addStrong({ scheme: 'fr_siren', value: siren, derivedFrom: id });
+    } else if (id.scheme === 'email_domain' && isFreeMailDomain(id.value)) {
+      ignored.push({ side, identifier, reason: `e-mail domain ${id.value} is a free-mail provider: never evidence` });
+    } else {
+      const e: IdentifierEvidence = id.label === undefined ? { scheme: id.scheme, value: id.value } : { scheme: id.scheme, value: id.value, label: id.label };
+      weak.set(weakKey(e), e);
+    }
+  }
+  return { strong, weak };
+}
+
+/** Values that can clash: VAT numbers only within one country prefix, register entries only within one court. */
+function clashGroup(e: IdentifierEvidence): string {
+  if (e.scheme === 'vat') return e.value.slice(0, 2);
+  if (e.scheme === 'de_register') {
+    const { court, entry } = splitDeRegister(e.value);
+    return `${court} ${entry.split(' ')[0]}`;
+  }
+  return '';
+}
+
+function describe(e: IdentifierEvidence): string {
+  return e.derivedFrom ? `${e.scheme} ${e.value} (from ${e.derivedFrom.scheme} ${e.derivedFrom.value})` : `${e.scheme} ${e.value}`;
+}
+
+export function compareIdentifiers(
+  a: readonly Identifier[],
+  b: readonly Identifier[],
+  options: NormaliseOptions = {},
+): IdentifierComparison {
+  const ignored: IgnoredIdentifier[] = [];
+  const left = collect('a', a, options, ignored);
+  const right = collect('b', b, options, ignored);
+  const equalStrong: IdentifierEvidence[] = [];
+  const differingStrong: DifferingIdentifiers[] = [];
+  const explanation: string[] = [];
+
+  for (const [scheme, valuesA] of left.strong) {
+    const valuesB = right.strong.get(scheme);
+    if (!valuesB) continue;
+    const equal = valuesA.filter((x) => valuesB.some((y) => y.value === x.value));
+    equalStrong.push(...equal);
+    for (const e of equal) explanation.push(`same ${describe(e)}: decisive for the same legal entity`);
+    // Different values clash only when they are in the same group and that group has no equal value.
+    const groups = new Set(valuesA.map(clashGroup).filter((g) => valuesB.some((y) => clashGroup(y) === g)));
+    const clashing = [...groups].filter((g) => !equal.some((e) => clashGroup(e) === g));
+    if (clashing.length > 0) {
+      const pick = (list: IdentifierEvidence[]): string[] => list.filter((x) => clashing.includes(clashGroup(x))).map((x) => x.value);
+      const entry = { scheme, a: pick(valuesA), b: pick(valuesB) };
+      differingStrong.push(entry);
+      explanation.push(`different ${scheme}: ${entry.a.join(', ')} vs ${entry.b.join(', ')}: cannot be the same legal entity`);
+    }
+  }
+
+  const sharedWeak: IdentifierEvidence[] = [];
+  for (const [key, e] of left.weak) {
+    if (right.weak.has(key)) {
+      sharedWeak.push(e);
+      explanation.push(`shared ${e.scheme === 'other' ? `${e.label}` : e.scheme} ${e.value}: same or affiliated, review only`);
+    }
+  }
+  for (const x of ignored) explanation.push(`ignored on side ${x.side}: ${x.reason}`);
+
+  const cannotLink = differingStrong.length > 0;
+  const conflicting = cannotLink && equalStrong.length > 0;
+  if (conflicting) explanation.push('equal and different strong identifiers at once: needs a person');
+  return { decisive: equalStrong.length > 0 && !cannotLink, cannotLink, conflicting, equalStrong, differingStrong, sharedWeak, ignored, explanation };
+}
