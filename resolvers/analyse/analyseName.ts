@@ -1,0 +1,134 @@
+/**
+ * analyseName: what one name string says — its core name, legal form, qualifiers, the other names it
+ * introduces, and whether it names a party at all. Pure; never throws on any string.
+ */
+import type { AnalyseHints, LegalFormMatch, NameAnalysis } from './types.ts';
+import type { EntityKind } from '../vocabulary.ts';
+import { splitAliases } from './splitAliases.ts';
+import { matchPrefixForm, matchSuffixForm } from './matchLegalForm.ts';
+import type { LegalFormSpan } from './matchLegalForm.ts';
+import { extractQualifiers, trailingGroupStart } from './qualifiers.ts';
+import { normaliseName, normaliseTokens } from './normaliseName.ts';
+import { partyVerdict } from './partyFilter.ts';
+import { HONORIFICS, looksLikePersonName, ORGANISATION_WORDS, PERSON_SUFFIXES } from './looksLikePersonName.ts';
+import { narrowCodes, validateCountry } from './narrowCodes.ts';
+import { isMarkCode, isWordCode } from './foldChar.ts';
+
+/** Trailing qualifier groups tried before giving up on a suffix form ("X Ltd (Europe) (in liquidation)"). */
+const MAX_TRAILING_GROUPS = 3;
+
+export function analyseName(text: string, hints: AnalyseHints = {}): NameAnalysis {
+  if (typeof text !== 'string') throw new TypeError('analyseName: text must be a string');
+  const country = validateCountry(hints.country);
+  const split = splitAliases(text);
+  const primary = split.primary;
+
+  const found = findForm(primary);
+  let legalForm: LegalFormMatch | null = null;
+  let coreText = primary;
+  const qualifiers: string[] = [];
+  if (found) {
+    const { span, trailing } = found;
+    coreText = primary.slice(0, span.start) + ' ' + primary.slice(span.end, found.trailingFrom);
+    for (const t of trailing) qualifiers.push(t);
+    const narrowed = narrowCodes(span.entry.codes, span.entry.jurisdictions, country);
+    legalForm = {
+      text: primary.slice(span.start, span.end).trim(),
+      family: span.entry.family,
+      elfCodes: narrowed.codes,
+      jurisdictions: narrowed.jurisdictions,
+    };
+  }
+  const { rest, groups } = extractQualifiers(coreText);
+  for (const g of groups) {
+    const q = normaliseName(g);
+    if (q !== '') qualifiers.unshift(q);
+  }
+  let tokens = normaliseTokens(rest);
+  if (tokens[0] === 'the' && tokens.length > 1) tokens = tokens.slice(1);
+  // "The Company", "the Partnership": a designator with nothing left but an article names no one.
+  if (legalForm && (tokens.length === 0 || (tokens.length === 1 && tokens[0] === 'the'))) {
+    legalForm = null;
+    tokens = normaliseTokens(extractQualifiers(primary).rest);
+    qualifiers.length = 0;
+    for (const g of extractQualifiers(primary).groups) {
+      const q = normaliseName(g);
+      if (q !== '') qualifiers.push(q);
+    }
+  }
+  const verdict = partyVerdict(primary, legalForm ? tokens : normaliseTokens(primary), legalForm !== null);
+  if (verdict.status === 'party' && tokens[0] === 'the' && tokens.length > 1) tokens = tokens.slice(1);
+  const kind: EntityKind =
+    verdict.status !== 'party'
+      ? 'unknown'
+      : legalForm
+        ? 'organisation'
+        : looksLikePersonName(writtenWords(rest), tokens)
+          ? 'person'
+          : tokens.some((t) => ORGANISATION_WORDS.has(t))
+            ? 'organisation'
+            : 'unknown';
+  if (kind === 'person') tokens = withoutHonorifics(tokens);
+  return {
+    input: text,
+    normalised: normaliseName(text),
+    core: tokens.join(' '),
+    tokens,
+    legalForm,
+    qualifiers,
+    aliases: split.aliases,
+    related: split.related,
+    partyStatus: verdict.status,
+    kind,
+  };
+}
+
+interface Found {
+  span: LegalFormSpan;
+  /** Normalised trailing qualifier groups stripped before the form was found ("Marlow Credit Union (Bristol)"). */
+  trailing: string[];
+  trailingFrom: number;
+}
+
+function findForm(primary: string): Found | null {
+  let end = primary.length;
+  const trailing: string[] = [];
+  for (let k = 0; k <= MAX_TRAILING_GROUPS; k++) {
+    const span = matchSuffixForm(primary, 0, end);
+    if (span) return { span, trailing, trailingFrom: end };
+    const open = trailingGroupStart(primary, end);
+    if (open <= 0) break;
+    const close = primary.lastIndexOf(')', end);
+    const q = normaliseName(primary.slice(open + 1, close));
+    if (q !== '') trailing.unshift(q);
+    end = open;
+  }
+  const prefix = matchPrefixForm(primary, 0, primary.length);
+  return prefix ? { span: prefix, trailing: [], trailingFrom: primary.length } : null;
+}
+
+/** The words as written, split like normaliseTokens splits them (for capitalisation checks). */
+function writtenWords(text: string): string[] {
+  const out: string[] = [];
+  let cur = '';
+  for (const ch of text) {
+    if (ch === "'" || ch === '\u2019') continue;
+    const code = ch.codePointAt(0) ?? 0;
+    if (isWordCode(code) || isMarkCode(code)) cur += ch;
+    else if (cur !== '') {
+      out.push(cur);
+      cur = '';
+    }
+  }
+  if (cur !== '') out.push(cur);
+  return out;
+}
+
+/** "Dr Hanna Velt" and "Hanna Velt" are one person: titles and "Jr"/"PhD" stay out of the core. */
+function withoutHonorifics(tokens: string[]): string[] {
+  let start = 0;
+  let end = tokens.length;
+  while (start < end - 2 && HONORIFICS.has(tokens[start] as string)) start++;
+  while (end > start + 2 && PERSON_SUFFIXES.has(tokens[end - 1] as string)) end--;
+  return start === 0 && end === tokens.length ? tokens : tokens.slice(start, end);
+}

@@ -1,0 +1,94 @@
+/**
+ * Does a name without legal form look like a natural person's name (given name + family name)?
+ * Evidence needed beyond "two capitalised words": an honorific (Mr, Dr …), a middle initial ("Iolo T. Brannock"),
+ * a family-name particle (van, de, von …) or a common given name. Organisation words rule it out.
+ * Word lists are common practice (given names from memory: frequent first names across European languages).
+ */
+
+export const HONORIFICS: ReadonlySet<string> = new Set([
+  'mr', 'mrs', 'ms', 'miss', 'mx', 'dr', 'prof', 'professor', 'sir', 'dame', 'lord', 'lady', 'herr', 'frau',
+  'mme', 'mlle', 'sr', 'sra', 'srta', 'dott', 'ing', 'mag', 'rev',
+]);
+export const PERSON_SUFFIXES: ReadonlySet<string> = new Set(['jr', 'sr', 'ii', 'iii', 'iv', 'phd', 'esq', 'md', 'kc', 'qc', 'cpa']);
+const PARTICLES: ReadonlySet<string> = new Set([
+  'van', 'von', 'de', 'der', 'den', 'da', 'di', 'du', 'del', 'della', 'le', 'la', 'ten', 'ter', 'bin', 'ibn', 'al', 'dos', 'das',
+]);
+
+/** Common given names (a small, deliberately general list; from memory). */
+const GIVEN_NAMES: ReadonlySet<string> = new Set(
+  (
+    'adam alan albert alex alexander alice alicia amanda amy ana andrea andrew angela anna anne anthony antonio ' +
+    'barbara ben benjamin bernard brian carl carla carlos carol caroline catherine charles charlotte chris christian ' +
+    'christina christine christopher claire clara daniel david deborah dennis diana donald dorothy edward elena ' +
+    'elizabeth ellen emily emma eric erik eva francesca francis frank fran franz gabriel gareth george gerard ' +
+    'giovanni giulia grace gregory hannah hans harry heinrich helen helena henry hugo ian ingrid iolo isabel ' +
+    'isabella jack jacob james jan jane janet jean jennifer jessica joan johann johanna john jonathan jorge jose ' +
+    'joseph juan julia julian karen karl katherine kevin klaus laura lars lea linda lisa louis lucas lucia luis ' +
+    'maria marie mark martin mary matthew megan michael michel michelle nancy nicholas nicole olivia oliver owen ' +
+    'pablo patricia patrick paul paula peter philip pierre pieter rachel rebecca richard robert rosa ruth ryan ' +
+    'samuel sandra sarah sebastian simon sofia sophie stefan stephen steven susan sven thomas timothy tom ' +
+    'victoria william wolfgang yvonne zoe rhys sian dafydd gwen bronwen cerys emyr huw ieuan nia tomos'
+  ).split(' '),
+);
+
+/** Words that mark an organisation whatever else the name looks like. */
+export const ORGANISATION_WORDS: ReadonlySet<string> = new Set(
+  (
+    'holdings holding group services service solutions systems technologies technology tech industries industrial ' +
+    'international global partners associates consulting consultants trading works bank banking capital ventures ' +
+    'enterprises enterprise labs laboratories logistics foods food print printing media studio studios foundation ' +
+    'trust council university college school academy hospital clinic church society association club institute ' +
+    'agency authority ministry department fund funds investments investment properties property estates management ' +
+    'construction engineering manufacturing supplies supply products fabrication widgets credit union insurance ' +
+    'energy software digital network networks design motors pharma pharmaceuticals health healthcare care medical ' +
+    'stores store shop hotel hotels restaurant cafe farm farms brewery press publishing records films productions ' +
+    'transport shipping airlines mining metals chemicals textiles electronics systems research centre center office ' +
+    'office bureau studio partnership cooperative coop ltd inc llc llp plc corp co company gmbh ag sa bv nv'
+  ).split(' '),
+);
+
+/** `words` are the name's words as written (not folded); `tokens` their normalised forms. */
+export function looksLikePersonName(words: readonly string[], tokens: readonly string[]): boolean {
+  if (tokens.some((t) => ORGANISATION_WORDS.has(t))) return false;
+  let i = 0;
+  let evidence = false;
+  if (i < tokens.length && HONORIFICS.has(tokens[i] as string)) {
+    evidence = true;
+    i++;
+  }
+  let end = tokens.length;
+  while (end > i && PERSON_SUFFIXES.has(tokens[end - 1] as string)) end--;
+  const core = tokens.slice(i, end);
+  const written = words.length === tokens.length ? words.slice(i, end) : core;
+  if (core.length < 2 || core.length > 5) return false;
+  if (GIVEN_NAMES.has(core[0] as string)) evidence = true;
+  for (let k = 0; k < core.length; k++) {
+    const t = core[k] as string;
+    const w = written[k] as string;
+    if (!isAlphabetic(t)) return false;
+    if (t.length === 1) {
+      if (k === core.length - 1) return false; // a trailing initial is a label ("Party A"), not a family name
+      evidence = true;
+      continue;
+    }
+    if (k > 0 && k < core.length - 1 && PARTICLES.has(t)) {
+      evidence = true;
+      continue;
+    }
+    if (!startsUpper(w)) return false;
+  }
+  return evidence;
+}
+
+function isAlphabetic(token: string): boolean {
+  for (let i = 0; i < token.length; i++) {
+    const c = token.charCodeAt(i);
+    if (c >= 0x30 && c <= 0x39) return false;
+  }
+  return true;
+}
+
+function startsUpper(word: string): boolean {
+  const first = word.charAt(0);
+  return first !== first.toLowerCase();
+}

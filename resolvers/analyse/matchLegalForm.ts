@@ -1,0 +1,108 @@
+/**
+ * Finds the legal form of a name: the longest designator that ends the name (after trailing parenthesised
+ * qualifiers), then compound forms where the last designator rules ("GmbH & Co. KG" is a KG; "& Co." is a
+ * connector there), and else a prefix form. A designator must start a word and leave a non-empty name.
+ */
+import type { LegalFormEntry, TrieNode } from './legalFormIndex.ts';
+import { legalFormIndex } from './legalFormIndex.ts';
+import type { NameScan } from './scanName.ts';
+import { scanName } from './scanName.ts';
+
+export interface LegalFormSpan {
+  entry: LegalFormEntry;
+  /** Offsets in the text the scan was made of: [start, end). */
+  start: number;
+  end: number;
+  position: 'suffix' | 'prefix';
+}
+
+/** Walks the reversed-key trie from unit hi-1 down to lo; returns the start unit of the longest match. */
+function longestSuffix(scan: NameScan, lo: number, hi: number, root: TrieNode): { at: number; entry: LegalFormEntry } | null {
+  let node: TrieNode | undefined = root;
+  let best: { at: number; entry: LegalFormEntry } | null = null;
+  const { units, wordStart } = scan;
+  for (let i = hi - 1; i > lo; i--) {
+    node = node.next?.get(units[i] as number);
+    if (!node) break;
+    if (node.entry && wordStart[i] === 1) best = { at: i, entry: node.entry };
+  }
+  return best;
+}
+
+function longestPrefix(scan: NameScan, lo: number, hi: number, root: TrieNode): { end: number; entry: LegalFormEntry } | null {
+  let node: TrieNode | undefined = root;
+  let best: { end: number; entry: LegalFormEntry } | null = null;
+  const { units, wordStart } = scan;
+  for (let i = lo; i < hi - 1; i++) {
+    node = node.next?.get(units[i] as number);
+    if (!node) break;
+    if (node.entry && wordStart[i + 1] === 1) best = { end: i + 1, entry: node.entry };
+  }
+  return best;
+}
+
+const CONNECTED_WORDS: ReadonlySet<string> = new Set(['co', 'cie', 'company', 'compagnie', 'comp']);
+const CONNECTOR_WORDS: ReadonlySet<string> = new Set(['und', 'and', 'et', 'y']);
+
+/** The unit range of the word that ends at unit `end` (exclusive). */
+function wordBefore(scan: NameScan, end: number): { start: number; text: string } | null {
+  if (end <= 0) return null;
+  let start = end - 1;
+  while (start > 0 && scan.wordStart[start] !== 1) start--;
+  return { start, text: String.fromCharCode(...scan.units.slice(start, end)) };
+}
+
+/**
+ * "X GmbH & Co. KG": when the matched form is preceded by "& Co." (or "und Co", "& Cie") and another
+ * designator before that, the compound is one legal form whose last designator rules.
+ */
+function extendCompound(text: string, scan: NameScan, at: number): number {
+  const co = wordBefore(scan, at);
+  if (!co || !CONNECTED_WORDS.has(co.text) || co.start === 0) return at;
+  let connectorEnd = co.start;
+  const gap = text.slice(scan.to[co.start - 1], scan.from[co.start]);
+  if (!gap.includes('&') && !gap.includes('+')) {
+    const word = wordBefore(scan, co.start);
+    if (!word || !CONNECTOR_WORDS.has(word.text)) return at;
+    connectorEnd = word.start;
+  }
+  const inner = longestSuffix(scan, 0, connectorEnd, legalFormIndex().suffix);
+  return inner ? inner.at : at;
+}
+
+/** "Smith & Co.": a firm name, where "Co." means the partners and is no designator. */
+function isPartnersCo(text: string, scan: NameScan, at: number, key: string): boolean {
+  if (!CONNECTED_WORDS.has(key) || at === 0) return false;
+  const gap = text.slice(scan.to[at - 1], scan.from[at]);
+  if (gap.includes('&') || gap.includes('+')) return true;
+  const word = wordBefore(scan, at);
+  return word !== null && CONNECTOR_WORDS.has(word.text);
+}
+
+/** The legal form at the end of text[start, end), or null. */
+export function matchSuffixForm(text: string, start: number, end: number): LegalFormSpan | null {
+  const scan = scanName(text, start, end);
+  const n = scan.units.length;
+  if (n < 2) return null;
+  const hit = longestSuffix(scan, 0, n, legalFormIndex().suffix);
+  if (!hit || isPartnersCo(text, scan, hit.at, hit.entry.key)) return null;
+  const at = extendCompound(text, scan, hit.at);
+  return { entry: hit.entry, start: scan.from[at] as number, end: extendOverDots(text, scan.to[n - 1] as number, end), position: 'suffix' };
+}
+
+/** The legal form that opens text[start, end) for the forms written first, or null. */
+export function matchPrefixForm(text: string, start: number, end: number): LegalFormSpan | null {
+  const scan = scanName(text, start, end);
+  const n = scan.units.length;
+  if (n < 2) return null;
+  const hit = longestPrefix(scan, 0, n, legalFormIndex().prefix);
+  if (!hit) return null;
+  return { entry: hit.entry, start: scan.from[0] as number, end: extendOverDots(text, scan.to[hit.end - 1] as number, end), position: 'prefix' };
+}
+
+/** "Ltd." and "S.A." keep their final dot in the matched text. */
+function extendOverDots(text: string, at: number, limit: number): number {
+  let end = at;
+  while (end < limit && text.charCodeAt(end) === 0x2e) end++;
+  return end;
+}
