@@ -3,8 +3,12 @@
  * commands/<name>.ts exporting `(program: Command) => void` and add ONE line below.
  */
 import type { Command } from 'commander';
+import analyse from './analyse.ts';
 import generate from './generate.ts';
+import evaluate from './evaluate.ts';
 
 export const COMMANDS: Array<(program: Command) => void> = [
+  analyse,
+  evaluate,
   generate,
 ];

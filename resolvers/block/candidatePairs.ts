@@ -1,0 +1,131 @@
+/**
+ * Candidate pairs of a batch without comparing all pairs. Records sharing a blocking key are paired; a block
+ * larger than `maxBlockSize` (a common word such as "university") is not paired exhaustively: its members are
+ * sorted by core name and each is paired with its `window` neighbours on either side (sorted neighbourhood,
+ * Hernández & Stolfo 1995). One more sorted neighbourhood over every record's core name catches near-identical
+ * names that share no whole word ("microsfot" / "microsoft").
+ *
+ * Cost: Σ over small blocks of size² / 2 plus (keys per record × 2 × window) per record; memory: the key index
+ * and the pairs (two Int32 per pair).
+ */
+import type { IdfTable } from '../compare/idfTable.ts';
+import { blockingKeys } from './blockingKeys.ts';
+import type { MatchRecord } from './matchRecord.ts';
+
+export interface CandidateOptions {
+  idf?: IdfTable;
+  /** Blocks up to this size are paired exhaustively. Default 50. */
+  maxBlockSize?: number;
+  /** Neighbours on each side inside an oversized block. Default 4. */
+  window?: number;
+  /** Neighbours on each side in the global sorted neighbourhood over core names; 0 turns it off. Default 3. */
+  globalWindow?: number;
+  /** Only these key kinds (the prefix before ':'); default all. For measuring what each kind earns. */
+  keyKinds?: readonly string[];
+}
+
+export interface CandidatePairs {
+  /** Record indices: pair k is (left[k], right[k]) with left < right. */
+  left: Int32Array;
+  right: Int32Array;
+  count: number;
+  blocks: number;
+  oversizedBlocks: number;
+}
+
+export function candidatePairs(records: readonly MatchRecord[], options: CandidateOptions = {}): CandidatePairs {
+  const maxBlockSize = options.maxBlockSize ?? 50;
+  const window = options.window ?? 4;
+  const globalWindow = options.globalWindow ?? 3;
+  const kinds = options.keyKinds ? new Set(options.keyKinds) : null;
+  const n = records.length;
+
+  const keyIndex = new Map<string, number>();
+  const blocks: number[][] = [];
+  const keysOf: number[][] = new Array(n);
+  for (let i = 0; i < n; i++) {
+    const ids: number[] = [];
+    for (const key of blockingKeys(records[i] as MatchRecord, options.idf)) {
+      if (kinds && !kinds.has(key.slice(0, key.indexOf(':')))) continue;
+      let id = keyIndex.get(key);
+      if (id === undefined) {
+        id = blocks.length;
+        keyIndex.set(key, id);
+        blocks.push([]);
+      }
+      (blocks[id] as number[]).push(i);
+      ids.push(id);
+    }
+    keysOf[i] = ids;
+  }
+
+  // Oversized blocks: members in core-name order, and each member's position in that order.
+  const sortedPosition = new Map<number, Map<number, number>>();
+  const byCore = (x: number, y: number): number => compareCore(records, x, y);
+  let oversizedBlocks = 0;
+  blocks.forEach((members, id) => {
+    if (members.length <= maxBlockSize) return;
+    oversizedBlocks++;
+    members.sort(byCore);
+    sortedPosition.set(id, new Map(members.map((m, p) => [m, p])));
+  });
+  const globalOrder = globalWindow > 0 ? Array.from({ length: n }, (_, i) => i).sort(byCore) : [];
+  const globalPosition = new Int32Array(n);
+  globalOrder.forEach((m, p) => (globalPosition[m] = p));
+
+  const out = new PairBuffer();
+  const stamp = new Int32Array(n).fill(-1);
+  const emit = (i: number, j: number): void => {
+    if (j <= i || stamp[j] === i) return;
+    stamp[j] = i;
+    out.push(i, j);
+  };
+  for (let i = 0; i < n; i++) {
+    for (const id of keysOf[i] as number[]) {
+      const members = blocks[id] as number[];
+      const positions = sortedPosition.get(id);
+      if (!positions) {
+        for (const j of members) emit(i, j);
+        continue;
+      }
+      const p = positions.get(i) as number;
+      for (let q = Math.max(0, p - window); q <= Math.min(members.length - 1, p + window); q++) emit(i, members[q] as number);
+    }
+    if (globalWindow > 0) {
+      const p = globalPosition[i] as number;
+      for (let q = Math.max(0, p - globalWindow); q <= Math.min(n - 1, p + globalWindow); q++) emit(i, globalOrder[q] as number);
+    }
+  }
+  return { ...out.finish(), blocks: blocks.length, oversizedBlocks };
+}
+
+function compareCore(records: readonly MatchRecord[], x: number, y: number): number {
+  const a = (records[x] as MatchRecord).analysis.core;
+  const b = (records[y] as MatchRecord).analysis.core;
+  return a < b ? -1 : a > b ? 1 : x - y;
+}
+
+/** Growable pair storage: two Int32Arrays doubled as needed (no per-pair objects). */
+class PairBuffer {
+  private left = new Int32Array(1024);
+  private right = new Int32Array(1024);
+  private count = 0;
+
+  push(i: number, j: number): void {
+    if (this.count === this.left.length) {
+      const left = new Int32Array(this.left.length * 2);
+      const right = new Int32Array(this.right.length * 2);
+      left.set(this.left);
+      right.set(this.right);
+      this.left = left;
+      this.right = right;
+    }
+    this.left[this.count] = i;
+    this.right[this.count] = j;
+    this.count++;
+  }
+
+  finish(): { left: Int32Array; right: Int32Array; count: number } {
+    return { left: this.left.subarray(0, this.count), right: this.right.subarray(0, this.count), count: this.count };
+  }
+}

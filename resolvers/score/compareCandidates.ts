@@ -1,0 +1,104 @@
+/**
+ * Compares every candidate pair of a batch once and keeps the result compactly (one byte per feature per pair),
+ * so that EM, scoring and a threshold sweep reuse it without comparing again.
+ */
+import type { CandidatePairs } from '../block/candidatePairs.ts';
+import type { MatchRecord } from '../block/matchRecord.ts';
+import type { IdfTable } from '../compare/index.ts';
+import type { ScoredEdge } from '../cluster/clusterRecords.ts';
+import type { Random } from '../prng.ts';
+import { compareRecords } from './compareRecords.ts';
+import type { ComparisonVector } from './em.ts';
+import { FEATURE_LEVELS, FEATURE_NAMES, levelIndices } from './features.ts';
+import { featureWeights, type MatchModel } from './matchModel.ts';
+
+const MISSING = -1;
+
+export interface ComparedPairs {
+  pairs: CandidatePairs;
+  /** count × features level indices; −1 = not observed. */
+  levels: Int8Array;
+  /** Pair index → identifier override. */
+  overrides: Map<number, 'decisive_identifier' | 'cannot_link'>;
+}
+
+export function compareCandidates(records: readonly MatchRecord[], pairs: CandidatePairs, idf: IdfTable): ComparedPairs {
+  const width = FEATURE_NAMES.length;
+  const levels = new Int8Array(pairs.count * width);
+  const overrides = new Map<number, 'decisive_identifier' | 'cannot_link'>();
+  for (let k = 0; k < pairs.count; k++) {
+    const c = compareRecords(records[pairs.left[k] as number] as MatchRecord, records[pairs.right[k] as number] as MatchRecord, idf);
+    levelIndices(c.levels).forEach((v, f) => (levels[k * width + f] = v === null ? MISSING : v));
+    if (c.identifiers?.cannotLink) overrides.set(k, 'cannot_link');
+    else if (c.identifiers?.decisive) overrides.set(k, 'decisive_identifier');
+  }
+  return { pairs, levels, overrides };
+}
+
+/** The stored comparisons as EM vectors. */
+export function comparedVectors(compared: ComparedPairs): ComparisonVector[] {
+  const width = FEATURE_NAMES.length;
+  const out: ComparisonVector[] = new Array(compared.pairs.count);
+  for (let k = 0; k < compared.pairs.count; k++) {
+    const row: (number | null)[] = new Array(width);
+    for (let f = 0; f < width; f++) {
+      const v = compared.levels[k * width + f] as number;
+      row[f] = v === MISSING ? null : v;
+    }
+    out[k] = row;
+  }
+  return out;
+}
+
+/** Comparison vectors of `count` random distinct pairs (seeded): the sample u is estimated from. */
+export function randomPairVectors(records: readonly MatchRecord[], idf: IdfTable, count: number, random: Random): ComparisonVector[] {
+  const out: ComparisonVector[] = [];
+  if (records.length < 2) return out;
+  while (out.length < count) {
+    const i = random.int(records.length);
+    const j = random.int(records.length);
+    if (i === j) continue;
+    out.push(levelIndices(compareRecords(records[i] as MatchRecord, records[j] as MatchRecord, idf).levels));
+  }
+  return out;
+}
+
+/** Scores of every compared pair under a model (identifier overrides as ±Infinity). */
+export function scoreCompared(compared: ComparedPairs, model: MatchModel): Float64Array {
+  const width = FEATURE_NAMES.length;
+  const weights = FEATURE_NAMES.map((f) => {
+    const params = model.features[f];
+    if (!params) return (FEATURE_LEVELS[f] as readonly string[]).map(() => 0);
+    // Map our level order onto the model's (a stored model may list levels in another order).
+    const byName = featureWeights(params);
+    return (FEATURE_LEVELS[f] as readonly string[]).map((level) => {
+      const k = params.levels.indexOf(level);
+      return k < 0 ? 0 : (byName[k] as number);
+    });
+  });
+  const scores = new Float64Array(compared.pairs.count);
+  for (let k = 0; k < compared.pairs.count; k++) {
+    let s = 0;
+    for (let f = 0; f < width; f++) {
+      const v = compared.levels[k * width + f] as number;
+      if (v !== MISSING) s += (weights[f] as number[])[v] as number;
+    }
+    const override = compared.overrides.get(k);
+    scores[k] = override === 'cannot_link' ? -Infinity : override === 'decisive_identifier' ? Infinity : s;
+  }
+  return scores;
+}
+
+/** Scored edges and cannot-links for clusterRecords, naming records by id. */
+export function edgesOf(records: readonly MatchRecord[], compared: ComparedPairs, scores: Float64Array): { edges: ScoredEdge[]; cannotLinks: [string, string][] } {
+  const edges: ScoredEdge[] = [];
+  const cannotLinks: [string, string][] = [];
+  for (let k = 0; k < compared.pairs.count; k++) {
+    const a = (records[compared.pairs.left[k] as number] as MatchRecord).id;
+    const b = (records[compared.pairs.right[k] as number] as MatchRecord).id;
+    const score = scores[k] as number;
+    if (score === -Infinity) cannotLinks.push([a, b]);
+    else edges.push({ a, b, score });
+  }
+  return { edges, cannotLinks };
+}

@@ -1,0 +1,65 @@
+/**
+ * `cpreg evaluate <labelled.csv> --id <column> --name <column>`: clusters every row with one method and measures
+ * the clusters against the ground-truth ids (pairwise, B-cubed, ARI), with blocking quality and a linkAt sweep
+ * (CSV + SVG in --out). Rows that cannot be used are listed with their line numbers and left out of the metrics.
+ */
+import type { Command } from 'commander';
+import { CliError } from '../cli-error.ts';
+
+interface EvaluateFlags {
+  id: string;
+  name: string;
+  country?: string;
+  filter: string[];
+  exclude: string[];
+  acronym?: string;
+  method: string;
+  out?: string;
+  json?: boolean;
+  stripCountryQualifier?: boolean;
+  model?: string;
+  train?: boolean;
+  fixU?: boolean;
+  linkAt?: string;
+  newAt?: string;
+  saveModel?: string;
+  maxBlock?: string;
+  window?: string;
+}
+
+const collect = (value: string, previous: string[]): string[] => [...previous, value];
+
+export default function register(program: Command): void {
+  program
+    .command('evaluate')
+    .description('cluster every row of a labelled CSV and measure the clusters against its ground-truth ids')
+    .argument('<labelled.csv>', 'CSV with a header row, one name per row')
+    .requiredOption('--id <column>', 'column holding the ground-truth entity id')
+    .requiredOption('--name <column>', 'column holding the name')
+    .option('--country <column>', 'column holding an ISO 3166 country code (used as a hint and a feature)')
+    .option('--filter <column=value>', 'keep only rows where column=value (repeatable; values of one column are alternatives)', collect, [])
+    .option('--exclude <column=value>', 'leave out rows where column=value (repeatable)', collect, [])
+    .option('--acronym <column=value>', 'rows where column=value are acronyms (default: one upper-case token of 2-10 characters)')
+    .option('--method <method>', 'cpreg (the full pipeline), exact (equal after normalisation) or jw (Jaro-Winkler >= 0.9)', 'cpreg')
+    .option('--strip-country-qualifier', 'remove a trailing "(Country name)" display qualifier from names before matching')
+    .option('--model <file.json>', 'cpreg: match model to score with (default: the built-in model)')
+    .option('--train', "cpreg: re-estimate m and u by EM on this file's candidate pairs (labels are not used)")
+    .option('--fix-u', 'cpreg with --train: hold u at the random-pair frequencies')
+    .option('--link-at <bits>', 'cpreg: override the model\'s linkAt')
+    .option('--new-at <bits>', 'cpreg: override the model\'s newAt')
+    .option('--save-model <file.json>', 'cpreg: write the model used (trained or loaded) to this file')
+    .option('--max-block <n>', 'cpreg: blocks up to this size are paired exhaustively')
+    .option('--window <n>', 'cpreg: sorted-neighbourhood window inside oversized blocks')
+    .option('--out <folder>', 'write report.json, sweep.csv and sweep.svg (cpreg) into this folder')
+    .option('--json', 'print the report as JSON')
+    .action(async (file: string, flags: EvaluateFlags) => {
+      const { evaluateCommand } = await import('../../evaluate/evaluateCommand.ts');
+      await evaluateCommand(file, flags).catch((error: unknown) => {
+        if (error instanceof CliError) throw error;
+        if (error instanceof Error && error.name === 'LabelledFileError') throw new CliError(error.message, 1, { cause: error });
+        throw error;
+      });
+    });
+}
+
+export type { EvaluateFlags };

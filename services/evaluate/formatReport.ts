@@ -1,0 +1,30 @@
+/** The human-readable report of `cpreg evaluate`. */
+import type { EvaluationReport } from './runEvaluation.ts';
+
+const pct = (v: number): string => `${(v * 100).toFixed(2)}%`;
+
+export function formatReport(
+  report: EvaluationReport,
+  input: { file: string; usableRows: number; problems: unknown[]; filteredOut: number; excludedOut: number; countryQualifiersStripped: number },
+): string {
+  const lines: string[] = [];
+  lines.push(`${input.file}: ${input.usableRows} rows used, ${input.problems.length} rows with problems (listed above), ${input.filteredOut} filtered out, ${input.excludedOut} excluded, ${input.countryQualifiersStripped} country qualifiers stripped`);
+  lines.push(`method ${report.method}: ${report.rows} names, ${report.entities} true entities, ${report.clusters} clusters, ${report.comparisons} comparisons`);
+  const pr = (label: string, p: { precision: number; recall: number; f1?: number }): string =>
+    `  ${label.padEnd(26)} precision ${pct(p.precision)}  recall ${pct(p.recall)}${p.f1 !== undefined ? `  F1 ${pct(p.f1)}` : ''}`;
+  lines.push(pr('pairwise', report.pairwise));
+  lines.push(pr('B-cubed', report.bcubed));
+  lines.push(`  adjusted Rand index        ${report.ari.toFixed(4)}`);
+  lines.push(pr(`pairwise, no acronyms`, report.nonAcronymPairwise));
+  lines.push(pr(`pairs with an acronym (${report.acronymRows} rows)`, report.acronymPairwise));
+  if (report.model) lines.push(`  model: linkAt ${report.model.linkAt}, newAt ${report.model.newAt}; ${report.model.provenance.note}`);
+  if (report.blocking) {
+    const o = report.blocking.overall;
+    lines.push(`  blocking: ${o.candidatePairs} candidate pairs; RR ${o.reductionRatio.toFixed(6)}  PC ${pct(o.pairsCompleteness)}  PQ ${pct(o.pairsQuality)}`);
+    for (const [category, c] of Object.entries(report.blocking.byCategory)) {
+      lines.push(`    ${category.padEnd(22)} ${String(c.found).padStart(8)} of ${String(c.truePairs).padStart(8)} true pairs  PC ${pct(c.pairsCompleteness)}`);
+    }
+  }
+  lines.push(`  seconds: ${Object.entries(report.seconds).map(([k, v]) => `${k} ${v}`).join(', ')}`);
+  return `${lines.join('\n')}\n`;
+}
