@@ -1,0 +1,55 @@
+/**
+ * `cpreg analyse "<name>" [--country XX] [--json]`: what name analysis makes of one name string — core name,
+ * legal form (ISO 20275 codes), qualifiers, aliases, related entities, and whether it names a party.
+ */
+import type { Command } from 'commander';
+import { CliError } from '../cli-error.ts';
+
+/** Names are limited to 1,000 characters elsewhere in cpreg (mentions, API); the CLI uses the same limit. */
+export const MAX_NAME_LENGTH = 1000;
+
+export default function register(program: Command): void {
+  program
+    .command('analyse')
+    .description('analyse one party name: core name, legal form, qualifiers, aliases and party status')
+    .argument('<name>', `the name as written (at most ${MAX_NAME_LENGTH} characters)`)
+    .option('--country <code>', 'ISO 3166-1 alpha-2 or ISO 3166-2 code that narrows the legal-form codes, e.g. FR or US-DE')
+    .option('--json', 'print the analysis as JSON')
+    .action(async (name: unknown, options: { country?: string; json?: boolean }) => {
+      if (typeof name !== 'string') throw new CliError('<name>: expected one name as a string');
+      const length = [...name].length;
+      if (length > MAX_NAME_LENGTH) {
+        throw new CliError(`<name>: ${length} characters is over the limit of ${MAX_NAME_LENGTH}; nothing was analysed`);
+      }
+      const { analyseName } = await import('../../../resolvers/analyse/index.ts');
+      let analysis;
+      try {
+        analysis = analyseName(name, { country: options.country });
+      } catch (error) {
+        if (error instanceof RangeError) throw new CliError(`--country: ${error.message}`, 1, { cause: error });
+        throw error;
+      }
+      if (options.json) {
+        process.stdout.write(`${JSON.stringify(analysis, null, 2)}\n`);
+        return;
+      }
+      const lf = analysis.legalForm;
+      const lines = [
+        `input:       ${analysis.input}`,
+        `normalised:  ${analysis.normalised}`,
+        `core:        ${analysis.core}`,
+        `legal form:  ${lf ? `${lf.text} (family ${lf.family}; ELF ${summarise(lf.elfCodes)}; ${summarise(lf.jurisdictions)})` : '(none)'}`,
+        `qualifiers:  ${analysis.qualifiers.length > 0 ? analysis.qualifiers.join(', ') : '(none)'}`,
+        `aliases:     ${analysis.aliases.length > 0 ? analysis.aliases.map((a) => `${a.kind}: ${a.name}`).join('; ') : '(none)'}`,
+        `related:     ${analysis.related.length > 0 ? analysis.related.map((r) => `${r.relation}: ${r.name}`).join('; ') : '(none)'}`,
+        `party:       ${analysis.partyStatus} (kind ${analysis.kind})`,
+      ];
+      process.stdout.write(`${lines.join('\n')}\n`);
+    });
+}
+
+/** Long code lists ("Ltd" stands for 140 codes) are shortened on the terminal; --json has them all. */
+function summarise(items: readonly string[]): string {
+  const shown = items.slice(0, 8).join(', ');
+  return items.length > 8 ? `${shown} … ${items.length} in all, see --json` : shown;
+}
