@@ -4,12 +4,10 @@
  */
 import type { Command } from 'commander';
 import analyse from './analyse.ts';
-import analyse from './analyse.ts';
 import generate from './generate.ts';
 import evaluate from './evaluate.ts';
 
 export const COMMANDS: Array<(program: Command) => void> = [
-  analyse,
   analyse,
   evaluate,
   generate,
