@@ -8,3 +8,4 @@ export type { LegalFormInfo } from './lookupLegalForm.ts';
 export { partyVerdict, PRONOUNS, ROLE_WORDS, SIGNATURE_LABELS } from './partyFilter.ts';
 export { splitAliases } from './splitAliases.ts';
 export { looksLikePersonName } from './looksLikePersonName.ts';
+export { isPrefixJurisdiction } from './legalFormIndex.ts';

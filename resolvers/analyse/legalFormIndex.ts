@@ -37,6 +37,12 @@ interface RawTable {
 const PREFIX_COUNTRIES_ALL: ReadonlySet<string> = new Set(['RU', 'BY', 'UA', 'KZ', 'KG', 'UZ', 'TJ', 'AM', 'AZ', 'GE', 'MD', 'LT', 'LV', 'EE']);
 const PREFIX_COUNTRIES_NAMES: ReadonlySet<string> = new Set(['PL']);
 
+/** Whether designators of this jurisdiction's forms stand first; `name` for full names, else abbreviations. */
+export function isPrefixJurisdiction(jurisdiction: string, name: boolean): boolean {
+  const country = countryOf(jurisdiction);
+  return PREFIX_COUNTRIES_ALL.has(country) || (name && PREFIX_COUNTRIES_NAMES.has(country));
+}
+
 /** Designators of one letter ("A", "S") are too ambiguous to strip from arbitrary names. */
 const MIN_KEY_LENGTH = 2;
 
@@ -78,10 +84,7 @@ function buildIndex(table: RawTable): LegalFormIndex {
     entries.set(key, entry);
     if (key.length < MIN_KEY_LENGTH) continue;
     insert(suffix, key, entry, true);
-    const prefixCodes = codes.filter((_, i) => {
-      const country = countryOf(entry.jurisdictions[i] ?? '');
-      return PREFIX_COUNTRIES_ALL.has(country) || (entry.name && PREFIX_COUNTRIES_NAMES.has(country));
-    });
+    const prefixCodes = codes.filter((_, i) => isPrefixJurisdiction(entry.jurisdictions[i] ?? '', entry.name));
     if (prefixCodes.length > 0) {
       insert(prefix, key, { ...entry, codes: prefixCodes, jurisdictions: prefixCodes.map((c) => table.codes[c] ?? '') }, false);
     }

@@ -6,6 +6,7 @@
 export function extractQualifiers(text: string): { rest: string; groups: string[] } {
   if (text.indexOf('(') < 0 && text.indexOf('[') < 0) return { rest: text, groups: [] };
   const groups: string[] = [];
+  const lastClose = { '(': text.lastIndexOf(')'), '[': text.lastIndexOf(']') };
   let rest = '';
   let depth = 0;
   let groupStart = -1;
@@ -14,7 +15,7 @@ export function extractQualifiers(text: string): { rest: string; groups: string[
     const c = text[i] as string;
     if (depth === 0 && (c === '(' || c === '[')) {
       const close = c === '(' ? ')' : ']';
-      if (text.indexOf(close, i + 1) < 0) {
+      if (lastClose[c] < i) {
         rest += ' ';
         continue;
       }

@@ -148,7 +148,12 @@ function count(text: string, ch: string): number {
 }
 
 export function splitAliases(text: string): AliasSplit {
-  const found = findMarkers(text, words(text));
+  const found = findMarkers(text, words(text)).filter((f, k, all) => {
+    // A marker with nothing after it is a word of the name ("Zanthor DBA" — DBA is also a US-OR form).
+    const next = all[k + 1];
+    const piece = trimPiece(text, f.end, next ? next.start : text.length);
+    return piece.end > piece.start;
+  });
   if (found.length === 0) return { primary: text, primaryStart: 0, aliases: [], related: [] };
   const pieces: { start: number; end: number }[] = [];
   pieces.push(trimPiece(text, 0, (found[0] as Found).start));

@@ -1,0 +1,91 @@
+/**
+ * Coverage of the ISO 20275 ELF code list v1.5 (../shared/reference/iso20275-elf-code-list.csv, GLEIF, CC0):
+ * every distinct Latin-script abbreviation and local name of the ACTIVE rows, placed where the form stands
+ * (appended to an invented name, or first for prefix forms), must be recognised as a designator of at least
+ * its own codes. Thresholds (≥ 99 % abbreviations, ≥ 95 % local names) are the acceptance criteria of issue 3.
+ */
+import { existsSync, readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { analyseName, isPrefixJurisdiction } from '../../../resolvers/analyse/index.ts';
+import { parseElfRows } from '../../../resolvers/analyse/buildElfTable.ts';
+
+const CSV = '../shared/reference/iso20275-elf-code-list.csv';
+const present = existsSync(CSV);
+
+/** An invented name no designator ends or starts with. */
+const NAME = 'Zanthor Quillby';
+
+const LATIN_ONLY = /^[\p{Script=Latin}\p{N}\p{P}\p{S}\p{Zs}\p{M}]+$/u;
+const HAS_LETTER = /\p{L}/u;
+
+interface Form {
+  text: string;
+  /** Codes of jurisdictions where the form is appended, and where it stands first. */
+  suffixCodes: Set<string>;
+  prefixCodes: Set<string>;
+}
+
+function collect(kind: 'abbreviation' | 'name'): Map<string, Form> {
+  const forms = new Map<string, Form>();
+  for (const row of parseElfRows(readFileSync(CSV, 'utf8'))) {
+    if (!row.active || row.country === '') continue;
+    const texts = kind === 'abbreviation' ? row.abbreviations : [row.localName];
+    for (const text of texts) {
+      if (!LATIN_ONLY.test(text) || !HAS_LETTER.test(text)) continue;
+      const form = forms.get(text) ?? { text, suffixCodes: new Set<string>(), prefixCodes: new Set<string>() };
+      if (isPrefixJurisdiction(row.jurisdiction, kind === 'name')) form.prefixCodes.add(row.code);
+      else form.suffixCodes.add(row.code);
+      forms.set(text, form);
+    }
+  }
+  return forms;
+}
+
+function measure(forms: Map<string, Form>): { recognised: number; misses: string[] } {
+  const misses: string[] = [];
+  let recognised = 0;
+  const missingFrom = (placed: string, own: Set<string>): string[] => {
+    if (own.size === 0) return [];
+    const codes = new Set(analyseName(placed).legalForm?.elfCodes ?? []);
+    return [...own].filter((c) => !codes.has(c));
+  };
+  for (const form of forms.values()) {
+    const missing = [
+      ...missingFrom(`${NAME} ${form.text}`, form.suffixCodes),
+      ...missingFrom(`${form.text} ${NAME}`, form.prefixCodes),
+    ];
+    if (missing.length === 0) recognised++;
+    else misses.push(`${JSON.stringify(form.text)} (missing ${missing.join(' ')})`);
+  }
+  return { recognised, misses };
+}
+
+describe.skipIf(!present)('ELF v1.5 coverage (needs ../shared/reference)', () => {
+  it('recognises >= 99% of the distinct Latin-script abbreviations of active rows', () => {
+    const forms = collect('abbreviation');
+    // SOURCES.md §2: 1,189 distinct abbreviation tokens in all (all rows, all scripts); Latin-script active ones are fewer.
+    expect(forms.size).toBeGreaterThan(900);
+    const { recognised, misses } = measure(forms);
+    const share = recognised / forms.size;
+    console.log(`ELF abbreviations: ${recognised}/${forms.size} recognised (${(share * 100).toFixed(2)} %)`);
+    if (misses.length > 0) console.log(`abbreviation misses:\n  ${misses.join('\n  ')}`);
+    expect(share).toBeGreaterThanOrEqual(0.99); // issue 3 acceptance criterion
+  });
+
+  it('recognises >= 95% of the distinct Latin-script local names of active rows, parenthesised ones included', () => {
+    const forms = collect('name');
+    // SOURCES.md §2: 3,464 rows have an all-Latin local name (before de-duplication and the ACTV filter).
+    expect(forms.size).toBeGreaterThan(2000);
+    const withParentheses = [...forms.keys()].filter((t) => t.includes('('));
+    expect(withParentheses.length).toBeGreaterThan(150); // issue 3: "about 200 local names contain parentheses"
+    const { recognised, misses } = measure(forms);
+    const share = recognised / forms.size;
+    const parenMisses = misses.filter((m) => m.includes('('));
+    console.log(
+      `ELF local names: ${recognised}/${forms.size} recognised (${(share * 100).toFixed(2)} %); ` +
+        `with parentheses: ${withParentheses.length - parenMisses.length}/${withParentheses.length}`,
+    );
+    if (misses.length > 0) console.log(`local-name misses:\n  ${misses.join('\n  ')}`);
+    expect(share).toBeGreaterThanOrEqual(0.95); // issue 3 acceptance criterion
+  });
+});
