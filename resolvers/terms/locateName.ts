@@ -1,0 +1,218 @@
+/**
+ * Finds a party's name in the stretch of text that precedes its definition:
+ * "…by and between Acme Robotics, Inc., a Delaware corporation" → name "Acme Robotics, Inc.",
+ * descriptive phrase "a Delaware corporation". Hand-written scanning over a bounded window.
+ */
+import { analyseName } from '../analyse/index.ts';
+import { anyWordAt, isSpace, isWordChar, skipSpaces, trimBounds, wordAt } from './textScan.ts';
+
+/** How far back from a definition we look for its party's name. */
+export const NAME_WINDOW = 600;
+const MAX_NAME = 150;
+
+/** Words after which a parties clause starts; the name follows. */
+const PARTY_CUES = ['by and between', 'by and among', 'between', 'among', 'amongst', 'entre', 'zwischen', 'tra', 'fra', 'undersigned'];
+/** Words that end a recital or clause: the name, if any, follows. */
+const CLAUSE_CUES = ['whereas', 'recitals', 'background'];
+/** Leading connectors stripped before a name. */
+const CONNECTORS = ['and', 'und', 'et', 'y', 'e', 'or', 'by', 'with', 'also', 'as well as'];
+/** Words that end a name: the descriptive phrase begins. */
+const DESCRIPTIVE_STARTS = [
+  'a', 'an', 'whose', 'having', 'with', 'incorporated', 'organized', 'organised', 'located', 'residing', 'domiciled',
+  'registered', 'mit', 'con', 'ayant', 'dont', 'acting', 'represented', 'hereinafter', 'being', 'existing', 'formed',
+  'une', 'un', 'eine', 'ein', 'una', 'uno', 'sociedad', 'società', 'société', 'gesellschaft', 'vertreten', 'sis', 'situé',
+  'domicilié', 'domiciliée', 'eingetragen', 'established', 'duly', 'whose', 'which', 'that', 'who', 'in', 'at', 'on',
+];
+export const ALIAS_CUES = [
+  'd/b/a', 'dba', 'doing business as', 't/a', 'trading as', 'f/k/a', 'fka', 'formerly known as', 'formerly', 'a/k/a',
+  'aka', 'also known as', 'operating as', 'o/a', 'successor in interest to', 'successor by merger to', 'successor to',
+];
+
+export interface LocatedName {
+  nameStart: number;
+  nameEnd: number;
+  /** End of the name together with alias phrases ("X d/b/a Y"): what goes to the name analysis. */
+  fullEnd: number;
+  /** The descriptive phrase between the name and the definition. */
+  descStart: number;
+  descEnd: number;
+  /** A party cue ("between", a numbered list, "BETWEEN:") introduced this name. */
+  partyCue: boolean;
+}
+
+/** Line-start numbering: "(1)", "(a)", "(iv)", "1.", "1)", "a)". Returns the index after it, or -1. */
+export function numberingAt(text: string, i: number, end: number): number {
+  let j = i;
+  const paren = text[j] === '(';
+  if (paren) j++;
+  const s = j;
+  while (j < end && j - s < 4 && isWordChar(text[j]) && /[\da-z]/i.test(text[j] as string)) j++;
+  if (j === s) return -1;
+  const token = text.slice(s, j);
+  if (!/^(?:\d{1,2}|[a-z]|[ivx]{1,4})$/i.test(token)) return -1;
+  if (paren ? text[j] !== ')' : text[j] !== '.' && text[j] !== ')') return -1;
+  j++;
+  return isSpace(text[j]) || j >= end ? j : -1;
+}
+
+function isLineStart(text: string, i: number): boolean {
+  let k = i - 1;
+  while (k >= 0 && (text[k] === ' ' || text[k] === '\t')) k--;
+  return k < 0 || text[k] === '\n';
+}
+
+/** The last boundary in [from, to): where a name may start, and whether a party cue set it. */
+function lastBoundary(text: string, from: number, to: number): { at: number; partyCue: boolean } {
+  let at = from;
+  let partyCue = false;
+  for (let i = from; i < to; i++) {
+    const ch = text[i] as string;
+    if (ch === ';') {
+      at = i + 1;
+      continue;
+    }
+    if (ch === '\n') {
+      const next = skipSpaces(text, i + 1, to);
+      if (text.slice(i + 1, next).includes('\n')) at = next; // blank line
+      continue;
+    }
+    if (isWordChar(text[i - 1])) continue;
+    if (isLineStart(text, i)) {
+      const n = numberingAt(text, i, to);
+      if (n > 0) {
+        at = n;
+        partyCue = true;
+        continue;
+      }
+      if (wordAt(text, i, 'and') || wordAt(text, i, 'between')) {
+        const after = skipSpaces(text, i + (wordAt(text, i, 'and') ? 3 : 7), to);
+        if (text[after] === ':' || text[after - 1] === '\n' || after >= to) {
+          at = after;
+          partyCue = true;
+          continue;
+        }
+      }
+    }
+    const cue = anyWordAt(text, i, PARTY_CUES);
+    if (cue !== undefined) {
+      at = i + cue.length;
+      partyCue = true;
+      continue;
+    }
+    const clause = anyWordAt(text, i, CLAUSE_CUES);
+    if (clause !== undefined) at = i + clause.length;
+  }
+  return { at, partyCue };
+}
+
+/** Skips separators, connectors and numbering before a name. */
+function skipLeading(text: string, i: number, to: number): number {
+  let j = i;
+  for (;;) {
+    const before = j;
+    j = skipSpaces(text, j, to);
+    while (j < to && ',;:.-–—•*'.includes(text[j] as string)) j++;
+    j = skipSpaces(text, j, to);
+    const conn = anyWordAt(text, j, CONNECTORS);
+    if (conn !== undefined) j += conn.length;
+    const n = numberingAt(text, j, to);
+    if (n > 0) j = n;
+    if (j === before) return j;
+  }
+}
+
+/** A short parenthesis inside a name: "Goldline (Europe) Ltd". Returns the index after ")" or -1. */
+function innerQualifier(text: string, i: number, to: number): number {
+  const close = text.indexOf(')', i);
+  if (close < 0 || close >= to || close - i > 30) return -1;
+  const inner = text.slice(i + 1, close);
+  if (/["“”„«»'‘’\d(]/u.test(inner)) return -1;
+  const next = skipSpaces(text, close + 1, to);
+  const ch = text[next];
+  return ch !== undefined && /\p{Lu}/u.test(ch) ? close + 1 : -1;
+}
+
+/** End of the bare name starting at `s`: before a comma, parenthesis, line break or descriptive word. */
+function bareNameEnd(text: string, s: number, to: number, stopAtAnd: boolean): number {
+  const limit = Math.min(to, s + MAX_NAME);
+  for (let i = s; i < limit; i++) {
+    const ch = text[i] as string;
+    if (ch === '(') {
+      const q = innerQualifier(text, i, limit);
+      if (q > 0) {
+        i = q - 1;
+        continue;
+      }
+      return i;
+    }
+    if (ch === ',' || ch === ';' || ch === '\n' || ch === ':' || ch === '"' || ch === '“' || ch === '«' || ch === '„') return i;
+    if (isSpace(ch) && i > s) {
+      const w = skipSpaces(text, i, limit);
+      // Descriptive words are lower case ("a Delaware corporation"); "Team A Ltd" keeps its capital A.
+      if (isLowerLetter(text[w]) && anyWordAt(text, w, DESCRIPTIVE_STARTS) !== undefined) return i;
+      if (stopAtAnd && (wordAt(text, w, 'and') || wordAt(text, w, 'und') || wordAt(text, w, 'et'))) return i;
+      if (wordAt(text, w, 'of') && /\d/.test(text[skipSpaces(text, w + 2, limit)] ?? '')) return i;
+      if (anyWordAt(text, w, ALIAS_CUES) !== undefined) return i;
+    }
+  }
+  return limit;
+}
+
+function isLowerLetter(ch: string | undefined): boolean {
+  return ch !== undefined && ch !== ch.toUpperCase() && ch === ch.toLowerCase();
+}
+
+function loose(s: string): string {
+  return s.toLowerCase().replace(/[^\p{L}\p{N}]/gu, '');
+}
+
+/** "Acme Robotics, Inc.": the comma part is the legal form of the name before it. */
+function extendOverDesignator(text: string, s: number, e: number, to: number): number {
+  if (text[e] !== ',') return e;
+  let p = e + 1;
+  while (p < to && text[p] !== ',' && text[p] !== '(' && text[p] !== ';' && text[p] !== '\n' && p - e < 24) p++;
+  const [ps, pe] = trimBounds(text, e + 1, p);
+  const part = text.slice(ps, pe);
+  if (part.length === 0 || part.split(' ').length > 4 || !/^\p{Lu}/u.test(part)) return e;
+  const lf = analyseName(text.slice(s, pe)).legalForm;
+  if (lf === null) return e;
+  const lp = loose(part);
+  return lp.length > 0 && loose(lf.text).endsWith(lp) ? pe : e;
+}
+
+/** Alias phrases after the name: ", d/b/a Brightwater Tools", " formerly known as Kestrel Ltd". */
+function extendOverAliases(text: string, e: number, to: number): number {
+  let end = e;
+  for (let guard = 0; guard < 4; guard++) {
+    let p = text[end] === ',' ? end + 1 : end;
+    p = skipSpaces(text, p, to);
+    const cue = anyWordAt(text, p, ALIAS_CUES);
+    if (cue === undefined) return end;
+    const s = skipSpaces(text, p + cue.length, to);
+    let q = bareNameEnd(text, s, to, false);
+    q = extendOverDesignator(text, s, q, to);
+    if (q <= s) return end;
+    end = q;
+  }
+  return end;
+}
+
+/** Locates a name starting at or after `from` (boundaries and connectors skipped), ending before `to`. */
+export function locateNameAt(text: string, from: number, to: number, partyCue: boolean, stopAtAnd = false): LocatedName | null {
+  const s = skipLeading(text, from, to);
+  if (s >= to) return null;
+  let e = bareNameEnd(text, s, to, stopAtAnd);
+  e = extendOverDesignator(text, s, e, to);
+  [, e] = trimBounds(text, s, e, ',');
+  if (e <= s) return null;
+  const fullEnd = extendOverAliases(text, e, to);
+  const [descStart, descEnd] = trimBounds(text, fullEnd, to, ',');
+  return { nameStart: s, nameEnd: e, fullEnd, descStart, descEnd, partyCue };
+}
+
+/** Locates the name before a definition that starts at `to`; `from` is where the previous definition ended. */
+export function locateName(text: string, from: number, to: number): LocatedName | null {
+  const windowStart = Math.max(from, to - NAME_WINDOW);
+  const b = lastBoundary(text, windowStart, to);
+  return locateNameAt(text, b.at, to, b.partyCue);
+}

@@ -1,0 +1,72 @@
+/**
+ * Resolves one mention inside one parsed contract. A term bound in this contract resolves to its party;
+ * a collective term to no single party; a term the contract does not bind is never matched against the
+ * register; anything else goes on to matching. Only `parsed` is consulted, so contracts never leak.
+ */
+import { analyseName } from '../analyse/index.ts';
+import { termKey } from './cleanTerm.ts';
+import { sameEntityName } from './sameEntityName.ts';
+import type { ContractParty, InContractResolution, ParsedContract, PartyRef } from './types.ts';
+
+function ref(parties: ContractParty[], index: number): PartyRef {
+  const p = parties[index] as ContractParty;
+  return { index, name: p.name, role: p.role, ownEntity: p.ownEntity };
+}
+
+/** Singular and plural spellings of a collective term: "Party" / "Parties", "Fund" / "Funds". */
+function numberVariants(key: string): string[] {
+  const out = [key];
+  if (key.endsWith('ies')) out.push(`${key.slice(0, -3)}y`);
+  else if (key.endsWith('s')) out.push(key.slice(0, -1));
+  else if (key.endsWith('y')) out.push(`${key.slice(0, -1)}ies`, `${key}s`);
+  else out.push(`${key}s`);
+  return out;
+}
+
+export function resolveInContract(parsed: ParsedContract, mentionText: string): InContractResolution {
+  const mention = typeof mentionText === 'string' ? mentionText : '';
+  const analysis = analyseName(mention);
+  const key = termKey(mention);
+  const parties = parsed.parties;
+  const bound: number[] = [];
+  let boundTerm: string | undefined;
+  parties.forEach((p, i) => {
+    const t = p.terms.find((term) => termKey(term) === key);
+    if (t !== undefined) {
+      bound.push(i);
+      boundTerm = t;
+    }
+  });
+  if (key.length > 0 && bound.length === 1) {
+    const party = ref(parties, bound[0] as number);
+    const side = party.ownEntity ? 'one of our own entities' : 'a counterparty';
+    return { status: 'bound', mention, party, term: boundTerm, analysis, explanation: `"${mention}" is the term this contract defines for ${party.name} (${side})` };
+  }
+  if (bound.length > 1) {
+    return { status: 'unbound_term', mention, term: boundTerm, analysis, explanation: `"${mention}" is defined for ${bound.length} different parties in this contract, so it binds none of them` };
+  }
+  const collective = key.length === 0 ? undefined : parsed.collectiveTerms.find((c) => numberVariants(termKey(c.term)).includes(key));
+  if (collective !== undefined) {
+    const members = parties.map((_, i) => i).filter((i) => collective.parties.includes((parties[i] as ContractParty).name));
+    return {
+      status: 'collective_term',
+      mention,
+      term: collective.term,
+      parties: members.map((i) => ref(parties, i)),
+      analysis,
+      explanation: `"${mention}" is a collective term of this contract: it refers to a set of parties, not one`,
+    };
+  }
+  if (analysis.partyStatus === 'needs_binding') {
+    return { status: 'unbound_term', mention, analysis, explanation: `"${mention}" needs a definition, and this contract does not bind it to a party: it is never matched against the register` };
+  }
+  if (parsed.notParties.some((n) => termKey(n) === key) || analysis.partyStatus === 'not_a_party') {
+    return { status: 'not_a_party', mention, analysis, explanation: `"${mention}" is not a party (${analysis.partyStatus === 'not_a_party' ? 'the name analysis rules it out' : 'this contract uses it for something else'})` };
+  }
+  const same = parties.findIndex((p) => sameEntityName(analyseName(p.name), analysis));
+  if (same >= 0) {
+    const party = ref(parties, same);
+    return { status: 'match', mention, party, analysis, explanation: `"${mention}" names party ${party.name} of this contract; it goes on to matching against the register` };
+  }
+  return { status: 'match', mention, analysis, explanation: `"${mention}" is not a term of this contract; it goes on to matching against the register` };
+}

@@ -1,0 +1,84 @@
+/**
+ * The result of reading one contract's parties: what resolvers/terms hands to the register and the CLI.
+ * The JSON shape of `cpreg contract parse --json` is exactly `ParsedContract` minus `reason`'s absence.
+ */
+import type { AliasKind, EntityKind, IdentifierScheme, RelationType, ResolutionStatus } from '../vocabulary.ts';
+import type { LegalFormMatch, NameAnalysis } from '../analyse/types.ts';
+
+export interface ContractIdentifier {
+  scheme: IdentifierScheme;
+  /** Canonical value from resolvers/identifiers; the value as written (spacing removed) when that rejects it. */
+  value: string;
+  /** Why resolvers/identifiers rejected the value (bad check digit, wrong length): kept so a reviewer sees it. */
+  problem?: string;
+  /** Only for scheme `other`: what the identifier is. */
+  label?: string;
+}
+
+export interface ContractParty {
+  /** The party's name exactly as it stands in the text (always a verbatim substring of the input). */
+  name: string;
+  /** Its role in this contract (the defined term that names a role: "Licensor", "Paying Agent"), or null. */
+  role: string | null;
+  /** Every defined term bound to this party in this contract, as written without quotes or article. */
+  terms: string[];
+  /** True when the party is one of the organisation's own legal entities (options.ownEntities). */
+  ownEntity: boolean;
+  /** ISO 3166-1 alpha-2 or ISO 3166-2 ("US-DE"), from the descriptive phrase. */
+  jurisdiction?: string;
+  legalForm?: LegalFormMatch;
+  identifiers: ContractIdentifier[];
+  aliases: { kind: AliasKind; name: string }[];
+  related: { relation: RelationType; name: string }[];
+  kind: EntityKind;
+  /** The address as written, when the descriptive phrase gives one. */
+  address?: string;
+}
+
+export interface CollectiveTerm {
+  term: string;
+  /** Names of the parties the term covers (each one is also in `parties`). */
+  parties: string[];
+}
+
+/** Why a parse found no party: the text is fine to show to a person. */
+export type EmptyReason = 'empty_text' | 'binary_data' | 'too_large' | 'no_parties_found';
+
+export interface ParsedContract {
+  parties: ContractParty[];
+  collectiveTerms: CollectiveTerm[];
+  /** Terms and names seen that are not parties: `this "Agreement"`, signers' names and titles. */
+  notParties: string[];
+  /** Present only when `parties` is empty: why. */
+  reason?: { code: EmptyReason; message: string };
+}
+
+export interface ParseOptions {
+  /** Names of the legal entities of the organisation that runs cpreg. */
+  ownEntities?: string[];
+}
+
+export interface PartyRef {
+  /** Position of the party in `ParsedContract.parties`. */
+  index: number;
+  name: string;
+  role: string | null;
+  ownEntity: boolean;
+}
+
+/** `bound`: a term of this contract names one party. The others are the shared resolution statuses. */
+export type InContractStatus = 'bound' | 'match' | Extract<ResolutionStatus, 'unbound_term' | 'collective_term' | 'not_a_party'>;
+
+export interface InContractResolution {
+  status: InContractStatus;
+  mention: string;
+  /** The party the mention stands for (`bound`), or the party whose exact name it is (`match`). */
+  party?: PartyRef;
+  /** `collective_term`: the parties the term covers. */
+  parties?: PartyRef[];
+  /** The defined term that decided the outcome, as the contract writes it. */
+  term?: string;
+  analysis: NameAnalysis;
+  /** One sentence saying why: every decision must be explainable. */
+  explanation: string;
+}
