@@ -160,7 +160,7 @@ const STATEMENTS: string[] = [
     from_counterparty_id bigint NOT NULL REFERENCES counterparty (id),
     to_counterparty_id bigint NOT NULL REFERENCES counterparty (id),
     type text NOT NULL CHECK (type IN (${inList(RELATION_TYPES)})),
-    since date,
+    since text CHECK (since IS NULL OR since ~ '^[0-9]{4}-[0-9]{2}-[0-9]{2}$'),
     origin text NOT NULL CHECK (origin IN ('person', 'strong_source', 'sweep')),
     status text NOT NULL DEFAULT 'confirmed' CHECK (status IN ('proposed', 'confirmed')),
     evidence jsonb NOT NULL DEFAULT '{}'::jsonb,

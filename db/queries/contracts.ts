@@ -1,0 +1,109 @@
+/** Contracts, their parties (with roles and terms) and defined terms. */
+import { sql } from 'kysely';
+import type { Queryable } from './util.ts';
+import { id, idOrNull, iso } from './util.ts';
+
+export interface ContractPartyView {
+  position: number;
+  mentionId: number;
+  text: string;
+  role: string | null;
+  terms: string[];
+  status: string;
+  counterpartyId: number | null;
+  ownEntityId: number | null;
+  canonicalName: string | null;
+}
+
+export interface ContractView {
+  id: number;
+  source: string;
+  externalId: string;
+  title: string | null;
+  status: string;
+  contentHash: string;
+  parties: ContractPartyView[];
+  definedTerms: { term: string; partyIndex: number | null; collective: boolean }[];
+  createdAt: string;
+  updatedAt: string;
+}
+
+export async function findContractId(db: Queryable, source: string, externalId: string): Promise<number | undefined> {
+  const row = await db
+    .selectFrom('contract')
+    .select('id')
+    .where('source', '=', source)
+    .where('external_id', '=', externalId)
+    .executeTakeFirst();
+  return row ? id(row.id) : undefined;
+}
+
+export async function getContract(db: Queryable, contractId: number): Promise<ContractView | undefined> {
+  const row = await db
+    .selectFrom('contract')
+    .select(['id', 'source', 'external_id', 'title', 'status', 'content_hash', 'created_at', 'updated_at'])
+    .where('id', '=', contractId)
+    .executeTakeFirst();
+  if (!row) return undefined;
+  const parties = await sql<{
+    position: number;
+    mention_id: string | number;
+    text: string;
+    role: string | null;
+    terms: string[];
+    status: string;
+    counterparty_id: string | number | null;
+    own_entity_id: string | number | null;
+    canonical_name: string | null;
+  }>`
+    SELECT p.position, p.mention_id, m.text, p.role, p.terms, m.status, m.counterparty_id, m.own_entity_id,
+           c.canonical_name
+    FROM contract_party p
+    JOIN mention m ON m.id = p.mention_id
+    LEFT JOIN counterparty c ON c.id = m.counterparty_id
+    WHERE p.contract_id = ${contractId}
+    ORDER BY p.position`.execute(db);
+  const terms = await db
+    .selectFrom('defined_term')
+    .select(['term', 'party_index', 'collective'])
+    .where('contract_id', '=', contractId)
+    .orderBy('id')
+    .execute();
+  return {
+    id: id(row.id),
+    source: row.source,
+    externalId: row.external_id,
+    title: row.title,
+    status: row.status,
+    contentHash: row.content_hash,
+    parties: parties.rows.map((p) => ({
+      position: p.position,
+      mentionId: id(p.mention_id),
+      text: p.text,
+      role: p.role,
+      terms: typeof p.terms === 'string' ? (JSON.parse(p.terms) as string[]) : p.terms,
+      status: p.status,
+      counterpartyId: idOrNull(p.counterparty_id),
+      ownEntityId: idOrNull(p.own_entity_id),
+      canonicalName: p.canonical_name,
+    })),
+    definedTerms: terms.map((t) => ({ term: t.term, partyIndex: t.party_index, collective: t.collective })),
+    createdAt: iso(row.created_at) as string,
+    updatedAt: iso(row.updated_at) as string,
+  };
+}
+
+/** Defined terms of one contract by their normalised text. */
+export async function termsOfContract(
+  db: Queryable,
+  contractId: number,
+): Promise<{ id: number; term: string; normalised: string; partyIndex: number | null; collective: boolean }[]> {
+  const rows = await db.selectFrom('defined_term').selectAll().where('contract_id', '=', contractId).orderBy('id').execute();
+  return rows.map((t) => ({
+    id: id(t.id),
+    term: t.term,
+    normalised: t.normalised,
+    partyIndex: t.party_index,
+    collective: t.collective,
+  }));
+}

@@ -1,0 +1,135 @@
+/** Counterparty reads: detail with names, identifiers, relations, mention count and contracts with roles. */
+import { sql } from 'kysely';
+import type { Queryable } from './util.ts';
+import { id, idOrNull, iso } from './util.ts';
+import { namesOf, type NameView } from './names.ts';
+import { identifiersOf, type IdentifierView } from './identifiers.ts';
+import { relationsOf, type RelationView } from './relations.ts';
+
+export interface CounterpartySummary {
+  id: number;
+  canonicalName: string;
+  kind: string;
+  jurisdiction: string | null;
+  status: string;
+  mergedInto: number | null;
+  nameLockedBy: string | null;
+  version: number;
+  createdAt: string;
+  updatedAt: string;
+}
+
+export interface CounterpartyDetail extends CounterpartySummary {
+  names: NameView[];
+  identifiers: IdentifierView[];
+  relations: RelationView[];
+  mentionCount: number;
+  contracts: { contractId: number; source: string; externalId: string; title: string | null; roles: string[] }[];
+}
+
+export function toSummary(r: Record<string, unknown>): CounterpartySummary {
+  return {
+    id: id(r.id),
+    canonicalName: r.canonical_name as string,
+    kind: r.kind as string,
+    jurisdiction: (r.jurisdiction as string | null) ?? null,
+    status: r.status as string,
+    mergedInto: idOrNull(r.merged_into),
+    nameLockedBy: (r.name_locked_by as string | null) ?? null,
+    version: Number(r.version),
+    createdAt: iso(r.created_at) as string,
+    updatedAt: iso(r.updated_at) as string,
+  };
+}
+
+export async function getSummaries(db: Queryable, ids: number[]): Promise<Map<number, CounterpartySummary>> {
+  const out = new Map<number, CounterpartySummary>();
+  if (ids.length === 0) return out;
+  const rows = await db.selectFrom('counterparty').selectAll().where('id', 'in', ids).execute();
+  for (const r of rows) out.set(id(r.id), toSummary(r));
+  return out;
+}
+
+export async function getCounterpartyDetail(db: Queryable, counterpartyId: number): Promise<CounterpartyDetail | undefined> {
+  const row = await db.selectFrom('counterparty').selectAll().where('id', '=', counterpartyId).executeTakeFirst();
+  if (!row) return undefined;
+  const [names, identifiers, relations, count, contracts] = await Promise.all([
+    namesOf(db, [counterpartyId]),
+    identifiersOf(db, [counterpartyId]),
+    relationsOf(db, [counterpartyId]),
+    db
+      .selectFrom('mention')
+      .select((eb) => eb.fn.countAll<string>().as('n'))
+      .where('counterparty_id', '=', counterpartyId)
+      .where('status', 'in', ['linked', 'new'])
+      .executeTakeFirstOrThrow(),
+    contractsOf(db, counterpartyId),
+  ]);
+  return {
+    ...toSummary(row),
+    names: names.get(counterpartyId) ?? [],
+    identifiers: identifiers.get(counterpartyId) ?? [],
+    relations,
+    mentionCount: Number(count.n),
+    contracts,
+  };
+}
+
+/** The contracts a counterparty is party to, with its role(s) in each: role per (contract, counterparty). */
+export async function contractsOf(db: Queryable, counterpartyId: number): Promise<CounterpartyDetail['contracts']> {
+  const result = await sql<{ id: string | number; source: string; external_id: string; title: string | null; roles: (string | null)[] }>`
+    SELECT c.id, c.source, c.external_id, c.title, array_agg(DISTINCT cp.role) AS roles
+    FROM mention m
+    JOIN contract_party cp ON cp.mention_id = m.id
+    JOIN contract c ON c.id = cp.contract_id
+    WHERE m.counterparty_id = ${counterpartyId} AND m.status IN ('linked', 'new') AND c.status = 'active'
+    GROUP BY c.id, c.source, c.external_id, c.title
+    ORDER BY c.id`.execute(db);
+  return result.rows.map((r) => ({
+    contractId: id(r.id),
+    source: r.source,
+    externalId: r.external_id,
+    title: r.title,
+    roles: (r.roles ?? []).filter((x): x is string => x !== null),
+  }));
+}
+
+/** Active counterparties in id order after `afterId` (keyset paging: sweeps and exports). */
+export async function activeIdsAfter(db: Queryable, afterId: number, limit: number): Promise<number[]> {
+  const rows = await db
+    .selectFrom('counterparty')
+    .select('id')
+    .where('status', '=', 'active')
+    .where('id', '>', afterId)
+    .orderBy('id')
+    .limit(limit)
+    .execute();
+  return rows.map((r) => id(r.id));
+}
+
+export async function countActive(db: Queryable): Promise<number> {
+  const row = await db
+    .selectFrom('counterparty')
+    .select((eb) => eb.fn.countAll<string>().as('n'))
+    .where('status', '=', 'active')
+    .executeTakeFirstOrThrow();
+  return Number(row.n);
+}
+
+/** Each id mapped to the active end of its merge chain (ids that do not exist are left out). */
+export async function survivorsOf(db: Queryable, ids: number[]): Promise<Map<number, number>> {
+  const out = new Map<number, number>();
+  const unique = [...new Set(ids)];
+  if (unique.length === 0) return out;
+  const result = await sql<{ start: string | number; id: string | number }>`
+    WITH RECURSIVE chain(start, id, merged_into, depth) AS (
+      SELECT c.id, c.id, c.merged_into, 0 FROM counterparty c WHERE c.id = ANY(${sql.val(unique)}::bigint[])
+      UNION ALL
+      SELECT ch.start, c.id, c.merged_into, ch.depth + 1
+      FROM chain ch JOIN counterparty c ON c.id = ch.merged_into
+      WHERE ch.depth < 1000
+    )
+    SELECT start, id FROM chain WHERE merged_into IS NULL`.execute(db);
+  for (const r of result.rows) out.set(id(r.start), id(r.id));
+  return out;
+}

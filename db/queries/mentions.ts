@@ -1,0 +1,119 @@
+/** Mentions: by source id, by counterparty, pending a contract, open for re-resolution. */
+import type { Selectable } from 'kysely';
+import type { MentionTable } from '../types.ts';
+import type { Queryable } from './util.ts';
+import { id, idOrNull, iso } from './util.ts';
+
+export interface MentionView {
+  id: number;
+  source: string;
+  externalId: string;
+  text: string;
+  contract: { source: string; externalId: string } | null;
+  contractId: number | null;
+  role: string | null;
+  country: string | null;
+  address: string | null;
+  identifiers: { scheme: string; value: string; label?: string }[];
+  status: string;
+  counterpartyId: number | null;
+  ownEntityId: number | null;
+  score: number | null;
+  evidence: Record<string, unknown>;
+  confirmedBy: string | null;
+  createdAt: string;
+  updatedAt: string;
+}
+
+export function toMentionView(r: Selectable<MentionTable>): MentionView {
+  return {
+    id: id(r.id),
+    source: r.source,
+    externalId: r.external_id,
+    text: r.text,
+    contract:
+      r.contract_source !== null && r.contract_external_id !== null
+        ? { source: r.contract_source, externalId: r.contract_external_id }
+        : null,
+    contractId: idOrNull(r.contract_id),
+    role: r.role,
+    country: r.country,
+    address: r.address,
+    identifiers: r.identifiers,
+    status: r.status,
+    counterpartyId: idOrNull(r.counterparty_id),
+    ownEntityId: idOrNull(r.own_entity_id),
+    score: r.score,
+    evidence: r.evidence,
+    confirmedBy: r.confirmed_by,
+    createdAt: iso(r.created_at) as string,
+    updatedAt: iso(r.updated_at) as string,
+  };
+}
+
+export async function getMention(db: Queryable, mentionId: number): Promise<MentionView | undefined> {
+  const row = await db.selectFrom('mention').selectAll().where('id', '=', mentionId).executeTakeFirst();
+  return row ? toMentionView(row) : undefined;
+}
+
+export async function findMentionBySourceId(db: Queryable, source: string, externalId: string): Promise<MentionView | undefined> {
+  const row = await db
+    .selectFrom('mention')
+    .selectAll()
+    .where('source', '=', source)
+    .where('external_id', '=', externalId)
+    .executeTakeFirst();
+  return row ? toMentionView(row) : undefined;
+}
+
+export async function mentionsOfCounterparty(
+  db: Queryable,
+  counterpartyId: number,
+  page: { afterId?: number; limit?: number } = {},
+): Promise<MentionView[]> {
+  const rows = await db
+    .selectFrom('mention')
+    .selectAll()
+    .where('counterparty_id', '=', counterpartyId)
+    .where('id', '>', page.afterId ?? 0)
+    .orderBy('id')
+    .limit(page.limit ?? 100)
+    .execute();
+  return rows.map(toMentionView);
+}
+
+/** Mentions that named a contract which had not arrived when they were resolved. */
+export async function mentionsAwaitingContract(db: Queryable, source: string, externalId: string): Promise<number[]> {
+  const rows = await db
+    .selectFrom('mention')
+    .select('id')
+    .where('contract_source', '=', source)
+    .where('contract_external_id', '=', externalId)
+    .where('contract_id', 'is', null)
+    .orderBy('id')
+    .execute();
+  return rows.map((r) => id(r.id));
+}
+
+/** Mentions no person confirmed, in id order after `afterId`: what reresolve may change. */
+export async function unconfirmedMentionIds(db: Queryable, afterId: number, limit: number): Promise<number[]> {
+  const rows = await db
+    .selectFrom('mention')
+    .select('id')
+    .where('confirmed_by', 'is', null)
+    .where('status', 'in', ['linked', 'review', 'new', 'unbound_term'])
+    .where('id', '>', afterId)
+    .orderBy('id')
+    .limit(limit)
+    .execute();
+  return rows.map((r) => id(r.id));
+}
+
+export async function countByStatus(db: Queryable): Promise<Record<string, number>> {
+  const rows = await db
+    .selectFrom('mention')
+    .select(['status', (eb) => eb.fn.countAll<string>().as('n')])
+    .groupBy('status')
+    .execute();
+  return Object.fromEntries(rows.map((r) => [r.status, Number(r.n)]));
+}

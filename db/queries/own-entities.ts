@@ -1,0 +1,28 @@
+/** Our own legal entities (never counterparties). */
+import type { Queryable } from './util.ts';
+import { id, iso } from './util.ts';
+
+export interface OwnEntityView {
+  id: number;
+  name: string;
+  normalised: string;
+  country: string | null;
+  identifiers: { scheme: string; value: string; label?: string }[];
+  createdAt: string;
+  removedAt: string | null;
+}
+
+export async function listOwnEntities(db: Queryable, options: { includeRemoved?: boolean } = {}): Promise<OwnEntityView[]> {
+  let query = db.selectFrom('own_entity').selectAll().orderBy('id');
+  if (!options.includeRemoved) query = query.where('removed_at', 'is', null);
+  const rows = await query.execute();
+  return rows.map((r) => ({
+    id: id(r.id),
+    name: r.name,
+    normalised: r.normalised,
+    country: r.country,
+    identifiers: r.identifiers,
+    createdAt: iso(r.created_at) as string,
+    removedAt: iso(r.removed_at),
+  }));
+}

@@ -1,0 +1,54 @@
+/** Relations between counterparties (never merges). */
+import type { Queryable } from './util.ts';
+import { id, iso } from './util.ts';
+
+export interface RelationView {
+  id: number;
+  fromCounterpartyId: number;
+  toCounterpartyId: number;
+  type: string;
+  since: string | null;
+  origin: string;
+  status: string;
+  evidence: Record<string, unknown>;
+  createdBy: string;
+  createdAt: string;
+}
+
+export async function relationsOf(db: Queryable, counterpartyIds: number[]): Promise<RelationView[]> {
+  if (counterpartyIds.length === 0) return [];
+  const rows = await db
+    .selectFrom('counterparty_relation')
+    .selectAll()
+    .where((eb) => eb.or([eb('from_counterparty_id', 'in', counterpartyIds), eb('to_counterparty_id', 'in', counterpartyIds)]))
+    .orderBy('id')
+    .execute();
+  return rows.map((r) => ({
+    id: id(r.id),
+    fromCounterpartyId: id(r.from_counterparty_id),
+    toCounterpartyId: id(r.to_counterparty_id),
+    type: r.type,
+    since: r.since,
+    origin: r.origin,
+    status: r.status,
+    evidence: r.evidence,
+    createdBy: r.created_by,
+    createdAt: iso(r.created_at) as string,
+  }));
+}
+
+export async function findRelation(
+  db: Queryable,
+  from: number,
+  to: number,
+  type: string,
+): Promise<number | undefined> {
+  const row = await db
+    .selectFrom('counterparty_relation')
+    .select('id')
+    .where('from_counterparty_id', '=', from)
+    .where('to_counterparty_id', '=', to)
+    .where('type', '=', type as never)
+    .executeTakeFirst();
+  return row ? id(row.id) : undefined;
+}

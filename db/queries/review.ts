@@ -1,0 +1,106 @@
+/** Review items and cannot-links. */
+import { sql } from 'kysely';
+import type { Queryable } from './util.ts';
+import { id, idOrNull, iso } from './util.ts';
+
+export interface ReviewItemView {
+  id: number;
+  kind: string;
+  mentionId: number | null;
+  leftCounterpartyId: number | null;
+  rightCounterpartyId: number;
+  score: number | null;
+  evidence: Record<string, unknown>;
+  status: string;
+  decision: string | null;
+  decidedBy: string | null;
+  decidedAt: string | null;
+  reason: string | null;
+  createdAt: string;
+}
+
+export function toReviewView(r: Record<string, unknown>): ReviewItemView {
+  return {
+    id: id(r.id),
+    kind: r.kind as string,
+    mentionId: idOrNull(r.mention_id),
+    leftCounterpartyId: idOrNull(r.left_counterparty_id),
+    rightCounterpartyId: id(r.right_counterparty_id),
+    score: r.score === null || r.score === undefined ? null : Number(r.score),
+    evidence: (r.evidence as Record<string, unknown>) ?? {},
+    status: r.status as string,
+    decision: (r.decision as string | null) ?? null,
+    decidedBy: (r.decided_by as string | null) ?? null,
+    decidedAt: iso(r.decided_at),
+    reason: (r.reason as string | null) ?? null,
+    createdAt: iso(r.created_at) as string,
+  };
+}
+
+export async function listOpenReviewItems(db: Queryable, page: { afterId?: number; limit?: number } = {}): Promise<ReviewItemView[]> {
+  const rows = await db
+    .selectFrom('review_item')
+    .selectAll()
+    .where('status', '=', 'open')
+    .where('id', '>', page.afterId ?? 0)
+    .orderBy('id')
+    .limit(page.limit ?? 100)
+    .execute();
+  return rows.map(toReviewView);
+}
+
+export async function getReviewItem(db: Queryable, reviewItemId: number): Promise<ReviewItemView | undefined> {
+  const row = await db.selectFrom('review_item').selectAll().where('id', '=', reviewItemId).executeTakeFirst();
+  return row ? toReviewView(row) : undefined;
+}
+
+/** Open review items about one pair of counterparties (either order) or one mention and a counterparty. */
+export async function openItemFor(
+  db: Queryable,
+  pair: { mentionId?: number; left?: number; right: number },
+): Promise<number | undefined> {
+  const result = pair.mentionId !== undefined
+    ? await sql<{ id: string | number }>`SELECT id FROM review_item WHERE status = 'open' AND mention_id = ${pair.mentionId} LIMIT 1`.execute(db)
+    : await sql<{ id: string | number }>`SELECT id FROM review_item WHERE status = 'open' AND mention_id IS NULL
+        AND ((left_counterparty_id = ${pair.left!} AND right_counterparty_id = ${pair.right})
+          OR (left_counterparty_id = ${pair.right} AND right_counterparty_id = ${pair.left!})) LIMIT 1`.execute(db);
+  return result.rows[0] ? id(result.rows[0].id) : undefined;
+}
+
+/**
+ * Cannot-links touching the given counterparties, as raw pairs (ids as recorded; the caller maps merged ids to
+ * their survivors). `mentionId` adds the mention-level cannot-links of that mention.
+ */
+export async function cannotLinksOf(
+  db: Queryable,
+  counterpartyIds: number[],
+  mentionId?: number,
+): Promise<{ counterpartyId: number; otherCounterpartyId: number | null; mentionId: number | null }[]> {
+  if (counterpartyIds.length === 0 && mentionId === undefined) return [];
+  const rows = await db
+    .selectFrom('cannot_link')
+    .select(['counterparty_id', 'other_counterparty_id', 'mention_id'])
+    .where((eb) => {
+      const ors = [];
+      if (counterpartyIds.length > 0) {
+        ors.push(eb('counterparty_id', 'in', counterpartyIds));
+        ors.push(eb('other_counterparty_id', 'in', counterpartyIds));
+      }
+      if (mentionId !== undefined) ors.push(eb('mention_id', '=', mentionId));
+      return eb.or(ors);
+    })
+    .execute();
+  return rows.map((r) => ({
+    counterpartyId: id(r.counterparty_id),
+    otherCounterpartyId: idOrNull(r.other_counterparty_id),
+    mentionId: idOrNull(r.mention_id),
+  }));
+}
+
+export async function labelledPairs(
+  db: Queryable,
+  limit = 10_000,
+): Promise<{ leftText: string; rightText: string; label: string; features: Record<string, unknown> }[]> {
+  const rows = await db.selectFrom('labelled_pair').selectAll().orderBy('id').limit(limit).execute();
+  return rows.map((r) => ({ leftText: r.left_text, rightText: r.right_text, label: r.label, features: r.features }));
+}

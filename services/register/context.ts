@@ -1,0 +1,31 @@
+/**
+ * What every register function receives: the database and pure helpers. Nothing here holds state between
+ * requests that another instance would need (settings, keys and history are read from the database each time),
+ * so several instances over one PostgreSQL give the same answers.
+ */
+import type { Kysely } from 'kysely';
+import type { Database } from '../../db/types.ts';
+import type { DerivedContext } from './state/derived.ts';
+import { nameBlockingKeys } from './matching/keys.ts';
+
+export interface RegisterContext {
+  db: Kysely<Database>;
+  derived: DerivedContext;
+  /** The clock (tests may pin it). */
+  now(): Date;
+}
+
+export interface ActorInput {
+  /** Who: the API key's label, `cli:<os user>`, or `system:<job>`. */
+  actor: string;
+  reason?: string;
+  requestId?: string;
+}
+
+export function createRegisterContext(db: Kysely<Database>, options: { now?: () => Date } = {}): RegisterContext {
+  return {
+    db,
+    derived: { nameKeys: nameBlockingKeys },
+    now: options.now ?? (() => new Date()),
+  };
+}

@@ -1,0 +1,46 @@
+/**
+ * Turns the ops of a ChangeSet into one append-only history event. The payload holds the ops (row images:
+ * enough to replay from empty and to undo exactly) beside the event's own details (what a person reads).
+ */
+import type { HistoryEventType } from '../../../resolvers/vocabulary.ts';
+import type { ChangeSet, Op } from '../state/change-set.ts';
+import { touchedBy } from '../state/change-set.ts';
+
+export interface EventInput {
+  type: HistoryEventType;
+  actor: string;
+  at: Date;
+  reason?: string | null;
+  /** What happened, in words and ids (read by people, the change feed and exports). */
+  details?: Record<string, unknown>;
+  undoesEventId?: number;
+  requestId?: string;
+}
+
+export interface EventPayload {
+  details: Record<string, unknown>;
+  ops: Op[];
+}
+
+export async function commitEvent(cs: ChangeSet, input: EventInput, ops: Op[] = cs.ops): Promise<number> {
+  const { counterpartyIds, mentionIds } = touchedBy(ops);
+  const payload: EventPayload = { details: input.details ?? {}, ops };
+  const row = await cs.trx
+    .insertInto('history_event')
+    .values({
+      type: input.type,
+      actor: input.actor,
+      at: input.at.toISOString(),
+      reason: input.reason ?? null,
+      payload: JSON.stringify(payload),
+      counterparty_ids: counterpartyIds,
+      mention_ids: mentionIds,
+      undoes_event_id: input.undoesEventId ?? null,
+      request_id: input.requestId ?? null,
+    })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  // Ops already recorded are not recorded twice if the caller commits another event in the same transaction.
+  if (ops === cs.ops) cs.ops.length = 0;
+  return Number(row.id);
+}

@@ -1,0 +1,224 @@
+/**
+ * Building blocks shared by every register change, all inside one ChangeSet: create a counterparty, add a name
+ * or an identifier, keep the canonical name by the rules, bump the version (the ETag), follow merges.
+ */
+import { sql } from 'kysely';
+import type { IdentifierScheme, NameKind } from '../../resolvers/vocabulary.ts';
+import { isStrongScheme } from '../../resolvers/vocabulary.ts';
+import { normaliseIdentifier } from '../../resolvers/identifiers/index.ts';
+import type { ChangeSet, Db } from './state/change-set.ts';
+import type { Row } from './state/tables.ts';
+import { chooseCanonicalName, type NameCandidate } from './canonical-name.ts';
+import { RegisterError, invalid, notFound } from './errors.ts';
+import { analyse } from './matching/analysis.ts';
+
+export interface NameSighting {
+  name: string;
+  kind: NameKind;
+  source?: string | null;
+  mentionId?: number | null;
+  contractId?: number | null;
+  confirmedBy?: string | null;
+}
+
+export interface IdentifierInput {
+  scheme: string;
+  value: string;
+  label?: string;
+}
+
+export interface NormalisedIdentifier {
+  scheme: IdentifierScheme;
+  value: string;
+  label?: string;
+}
+
+/** Longest name accepted (characters), as the public interface promises. */
+export const MAX_NAME_LENGTH = 1000;
+
+export function checkName(field: string, name: unknown): string {
+  if (typeof name !== 'string') throw invalid(field, 'must be a string');
+  const trimmed = name.trim();
+  if (trimmed.length === 0) throw invalid(field, 'must not be empty');
+  if ([...trimmed].length > MAX_NAME_LENGTH) throw invalid(field, `is longer than ${MAX_NAME_LENGTH} characters`);
+  return trimmed;
+}
+
+export function normaliseIdentifierOrThrow(field: string, input: IdentifierInput, country?: string | null): NormalisedIdentifier {
+  const result = normaliseIdentifier(input, country ? { defaultCountry: country } : {});
+  if (!result.ok) throw invalid(field, result.reason);
+  return result.identifier;
+}
+
+export async function createCounterpartyRow(
+  cs: ChangeSet,
+  values: { name: string; kind?: 'organisation' | 'person' | 'unknown'; jurisdiction?: string | null; at: Date },
+): Promise<Row> {
+  const at = values.at.toISOString();
+  return cs.insert('counterparty', {
+    canonical_name: values.name,
+    kind: values.kind ?? 'organisation',
+    jurisdiction: values.jurisdiction ?? null,
+    status: 'active',
+    merged_into: null,
+    name_locked_by: null,
+    version: 1,
+    created_at: at,
+    updated_at: at,
+  });
+}
+
+/** Adds a sighting of a name: a new row, or one more sighting of the same (name, kind). */
+export async function addNameSighting(cs: ChangeSet, counterpartyId: number, sighting: NameSighting, at: Date): Promise<Row> {
+  const existing = await cs.trx
+    .selectFrom('counterparty_name')
+    .select('id')
+    .where('counterparty_id', '=', counterpartyId)
+    .where('name', '=', sighting.name)
+    .where('kind', '=', sighting.kind)
+    .executeTakeFirst();
+  if (existing) {
+    const row = await cs.require('counterparty_name', Number(existing.id));
+    const patch: Row = { seen_count: (row.seen_count as number) + 1 };
+    if (sighting.confirmedBy && !row.confirmed_by) patch.confirmed_by = sighting.confirmedBy;
+    return cs.update('counterparty_name', Number(existing.id), patch);
+  }
+  const analysis = analyse(sighting.name);
+  return cs.insert('counterparty_name', {
+    counterparty_id: counterpartyId,
+    name: sighting.name,
+    normalised: analysis.normalised,
+    kind: sighting.kind,
+    legal_form: analysis.legalForm?.family ?? null,
+    seen_count: 1,
+    source: sighting.source ?? null,
+    mention_id: sighting.mentionId ?? null,
+    contract_id: sighting.contractId ?? null,
+    confirmed_by: sighting.confirmedBy ?? null,
+    created_at: at.toISOString(),
+  });
+}
+
+/** One fewer sighting of a name (a mention moved away); the row goes when nobody has seen it any more. */
+export async function removeNameSighting(cs: ChangeSet, counterpartyId: number, name: string, kind: NameKind): Promise<void> {
+  const existing = await cs.trx
+    .selectFrom('counterparty_name')
+    .select('id')
+    .where('counterparty_id', '=', counterpartyId)
+    .where('name', '=', name)
+    .where('kind', '=', kind)
+    .executeTakeFirst();
+  if (!existing) return;
+  const row = await cs.require('counterparty_name', Number(existing.id));
+  const count = (row.seen_count as number) - 1;
+  if (count <= 0 && !row.confirmed_by) {
+    const others = await cs.trx
+      .selectFrom('counterparty_name')
+      .select(sql<number>`count(*)`.as('n'))
+      .where('counterparty_id', '=', counterpartyId)
+      .executeTakeFirstOrThrow();
+    // A counterparty keeps at least one name: the last one stays with a zero count.
+    if (Number(others.n) > 1) {
+      await cs.delete('counterparty_name', Number(existing.id));
+      return;
+    }
+  }
+  await cs.update('counterparty_name', Number(existing.id), { seen_count: Math.max(0, count) });
+}
+
+/** Adds an identifier; a strong one already held by another active counterparty is refused, naming it. */
+export async function addIdentifierRow(
+  cs: ChangeSet,
+  counterpartyId: number,
+  identifier: NormalisedIdentifier,
+  origin: { source?: string | null; mentionId?: number | null; confirmedBy?: string | null },
+  at: Date,
+): Promise<Row | undefined> {
+  const holders = await cs.trx
+    .selectFrom('counterparty_identifier')
+    .select(['id', 'counterparty_id'])
+    .where('scheme', '=', identifier.scheme)
+    .where('value', '=', identifier.value)
+    .execute();
+  const own = holders.find((h) => Number(h.counterparty_id) === counterpartyId);
+  if (own) return undefined;
+  const strong = isStrongScheme(identifier.scheme);
+  if (strong && holders.length > 0) {
+    const other = Number(holders[0]!.counterparty_id);
+    throw new RegisterError(
+      'IDENTIFIER_TAKEN',
+      `${identifier.scheme} ${identifier.value} already belongs to counterparty ${other}; merge the two if they are one entity`,
+      { scheme: identifier.scheme, value: identifier.value, counterpartyId: other },
+    );
+  }
+  return cs.insert('counterparty_identifier', {
+    counterparty_id: counterpartyId,
+    scheme: identifier.scheme,
+    value: identifier.value,
+    label: identifier.label ?? null,
+    strong,
+    source: origin.source ?? null,
+    mention_id: origin.mentionId ?? null,
+    confirmed_by: origin.confirmedBy ?? null,
+    created_at: at.toISOString(),
+  });
+}
+
+/** Re-applies the canonical-value rules and bumps the version (every change to a counterparty changes its ETag). */
+export async function touchCounterparty(cs: ChangeSet, counterpartyId: number, at: Date): Promise<Row> {
+  const cp = await cs.require('counterparty', counterpartyId);
+  const patch: Row = { version: (cp.version as number) + 1, updated_at: at.toISOString() };
+  if (cp.status === 'active' && !cp.name_locked_by) {
+    const names = await cs.trx
+      .selectFrom('counterparty_name')
+      .select(['id', 'name', 'kind', 'legal_form', 'seen_count', 'confirmed_by'])
+      .where('counterparty_id', '=', counterpartyId)
+      .execute();
+    const chosen = chooseCanonicalName(names.map((n) => ({ ...n, id: Number(n.id) }) as NameCandidate));
+    if (chosen) patch.canonical_name = chosen.name;
+  }
+  return cs.update('counterparty', counterpartyId, patch);
+}
+
+/** Follows merged_into to the active survivor (without locking). */
+export async function survivorOf(db: Db, counterpartyId: number): Promise<{ id: number; merged: boolean } | undefined> {
+  let id = counterpartyId;
+  let merged = false;
+  for (let hops = 0; hops < 1000; hops++) {
+    const row = await db.selectFrom('counterparty').select(['id', 'status', 'merged_into']).where('id', '=', id).executeTakeFirst();
+    if (!row) return hops === 0 ? undefined : { id, merged };
+    if (row.status === 'active' || row.merged_into === null) return { id, merged };
+    id = Number(row.merged_into);
+    merged = true;
+  }
+  throw new Error(`counterparty ${counterpartyId}: merge chain longer than 1000 links (a cycle?)`);
+}
+
+/**
+ * Locks counterparties and returns them, following merges: callers that were handed a merged id act on the
+ * survivor. Locks are taken in id order; a survivor found later is locked afterwards (deadlocks are retried).
+ */
+export async function lockActive(cs: ChangeSet, ids: number[]): Promise<Map<number, Row>> {
+  const out = new Map<number, Row>();
+  let pending = [...new Set(ids)];
+  for (let round = 0; pending.length > 0 && round < 100; round++) {
+    const rows = await cs.lock('counterparty', pending);
+    const found = new Set(rows.map((r) => r.id as number));
+    for (const id of pending) if (!found.has(id)) throw notFound('counterparty', id);
+    const next: number[] = [];
+    for (const row of rows) {
+      if (row.status === 'active') out.set(row.id as number, row);
+      else next.push(row.merged_into as number);
+    }
+    // Map each requested id to its survivor: the caller reads `survivorFor` below.
+    for (const row of rows) if (row.status !== 'active') cs.aliases.set(row.id as number, row.merged_into as number);
+    pending = next.filter((id) => !out.has(id));
+  }
+  return out;
+}
+
+export function survivorFor(cs: ChangeSet, id: number): number {
+  let current = id;
+  for (let i = 0; i < 1000 && cs.aliases.has(current); i++) current = cs.aliases.get(current) as number;
+  return current;
+}

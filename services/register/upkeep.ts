@@ -1,0 +1,170 @@
+/**
+ * Manual upkeep of mentions and contracts: unlink, set aside (not a party), withdraw (deleted in the source
+ * system). Each is one history event.
+ */
+import type { ActorInput, RegisterContext } from './context.ts';
+import { RegisterError, notFound } from './errors.ts';
+import { commitEvent } from './history/commit.ts';
+import { removeNameSighting, touchCounterparty } from './records.ts';
+import type { ChangeSet } from './state/change-set.ts';
+import type { Row } from './state/tables.ts';
+import { write } from './transaction.ts';
+import { recordedNameOf } from './mention-names.ts';
+import { findMentionBySourceId } from '../../db/queries/mentions.ts';
+
+export interface MentionChangeResult {
+  eventId: number | null;
+  mentionId: number;
+  status: string;
+  previousCounterpartyId: number | null;
+}
+
+/** Takes a mention off its counterparty (names it contributed go with it). Locks the counterparty first. */
+export async function detachMention(cs: ChangeSet, mention: Row, at: Date): Promise<number | null> {
+  const cpId = mention.counterparty_id as number | null;
+  if (cpId === null) return null;
+  const recorded = recordedNameOf(mention);
+  if (recorded) await removeNameSighting(cs, cpId, recorded.name, recorded.kind);
+  await cs.update('mention', mention.id as number, { counterparty_id: null, updated_at: at.toISOString() });
+  await touchCounterparty(cs, cpId, at);
+  return cpId;
+}
+
+async function lockMention(cs: ChangeSet, mentionId: number): Promise<Row> {
+  // Lock order everywhere: counterparties before mentions. Read the mention's counterparty, lock it, then the
+  // mention; if the mention moved meanwhile, go round again.
+  for (let attempt = 0; attempt < 10; attempt++) {
+    const peek = await cs.trx.selectFrom('mention').select(['counterparty_id']).where('id', '=', mentionId).executeTakeFirst();
+    if (!peek) throw notFound('mention', mentionId);
+    const cpId = peek.counterparty_id === null ? null : Number(peek.counterparty_id);
+    if (cpId !== null) await cs.lock('counterparty', [cpId]);
+    const mention = await cs.require('mention', mentionId);
+    if (mention.counterparty_id === cpId) return mention;
+  }
+  throw new RegisterError('CONFLICT', `mention ${mentionId} keeps moving; try again`);
+}
+
+async function changeMention(
+  ctx: RegisterContext,
+  mentionId: number,
+  who: ActorInput,
+  type: 'unlinked' | 'set_aside' | 'withdrawn',
+  status: 'review' | 'set_aside' | 'withdrawn',
+): Promise<MentionChangeResult> {
+  return write(ctx, async (cs) => {
+    const at = ctx.now();
+    const mention = await lockMention(cs, mentionId);
+    if (type === 'unlinked' && mention.counterparty_id === null) {
+      throw new RegisterError('CONFLICT', `mention ${mentionId} is not linked to a counterparty (status ${String(mention.status)})`);
+    }
+    if (mention.status === status && mention.counterparty_id === null) {
+      return { eventId: null, mentionId, status, previousCounterpartyId: null };
+    }
+    const previous = await detachMention(cs, mention, at);
+    if (type === 'unlinked' && previous !== null) {
+      // The person said this mention is not that counterparty: every later resolution honours it.
+      await cs.insert('cannot_link', {
+        counterparty_id: previous,
+        other_counterparty_id: null,
+        mention_id: mentionId,
+        review_item_id: null,
+        created_by: who.actor,
+        reason: who.reason ?? null,
+        created_at: at.toISOString(),
+      });
+    }
+    await closeOpenItemsOfMention(cs, mentionId);
+    await cs.update('mention', mentionId, {
+      status,
+      own_entity_id: null,
+      // A person decided a set-aside or a withdrawal; an unlinked mention waits for resolution again.
+      confirmed_by: type === 'unlinked' ? null : who.actor,
+      updated_at: at.toISOString(),
+    });
+    const eventId = await commitEvent(cs, {
+      type,
+      actor: who.actor,
+      at,
+      reason: who.reason,
+      requestId: who.requestId,
+      details: { mentionId, previousCounterpartyId: previous },
+    });
+    return { eventId, mentionId, status, previousCounterpartyId: previous };
+  });
+}
+
+export async function closeOpenItemsOfMention(cs: ChangeSet, mentionId: number): Promise<void> {
+  const open = await cs.trx.selectFrom('review_item').select('id').where('mention_id', '=', mentionId).where('status', '=', 'open').execute();
+  for (const item of open) {
+    await cs.require('review_item', Number(item.id));
+    await cs.update('review_item', Number(item.id), { status: 'obsolete' });
+  }
+}
+
+/** Unlinks a mention from its counterparty and records that it is not that counterparty. */
+export function unlinkMention(ctx: RegisterContext, mentionId: number, who: ActorInput): Promise<MentionChangeResult> {
+  return changeMention(ctx, mentionId, who, 'unlinked', 'review');
+}
+
+/** Sets a mention aside: a person says it names no party. */
+export function setAsideMention(ctx: RegisterContext, mentionId: number, who: ActorInput): Promise<MentionChangeResult> {
+  return changeMention(ctx, mentionId, who, 'set_aside', 'set_aside');
+}
+
+/** Withdraws a mention deleted in its source system. */
+export function withdrawMention(ctx: RegisterContext, mentionId: number, who: ActorInput): Promise<MentionChangeResult> {
+  return changeMention(ctx, mentionId, who, 'withdrawn', 'withdrawn');
+}
+
+export async function withdrawMentionBySourceId(
+  ctx: RegisterContext,
+  source: string,
+  externalId: string,
+  who: ActorInput,
+): Promise<MentionChangeResult> {
+  const mention = await findMentionBySourceId(ctx.db, source, externalId);
+  if (!mention) throw notFound('mention', `${source}/${externalId}`);
+  return withdrawMention(ctx, mention.id, who);
+}
+
+/** Withdraws a contract deleted in its source system, with every party mention it brought. */
+export async function withdrawContract(
+  ctx: RegisterContext,
+  contractId: number,
+  who: ActorInput,
+): Promise<{ eventId: number | null; contractId: number; withdrawnMentionIds: number[] }> {
+  return write(ctx, async (cs) => {
+    const at = ctx.now();
+    const contract = await cs.get('contract', contractId);
+    if (!contract) throw notFound('contract', contractId);
+    if (contract.status === 'withdrawn') return { eventId: null, contractId, withdrawnMentionIds: [] };
+    const parties = await cs.trx.selectFrom('contract_party').select('mention_id').where('contract_id', '=', contractId).execute();
+    const ids = parties.map((p) => Number(p.mention_id)).sort((a, b) => a - b);
+    const peek = ids.length
+      ? await cs.trx.selectFrom('mention').select('counterparty_id').where('id', 'in', ids).where('counterparty_id', 'is not', null).execute()
+      : [];
+    await cs.lock('counterparty', peek.map((p) => Number(p.counterparty_id)));
+    const mentions = await cs.lock('mention', ids);
+    for (const mention of mentions) {
+      if (mention.status === 'withdrawn') continue;
+      await detachMention(cs, mention, at);
+      await closeOpenItemsOfMention(cs, mention.id as number);
+      await cs.update('mention', mention.id as number, {
+        status: 'withdrawn',
+        own_entity_id: null,
+        confirmed_by: who.actor,
+        updated_at: at.toISOString(),
+      });
+    }
+    await cs.update('contract', contractId, { status: 'withdrawn', updated_at: at.toISOString() });
+    const eventId = await commitEvent(cs, {
+      type: 'withdrawn',
+      actor: who.actor,
+      at,
+      reason: who.reason,
+      requestId: who.requestId,
+      details: { entity: 'contract', contractId, mentionIds: ids },
+    });
+    return { eventId, contractId, withdrawnMentionIds: ids };
+  });
+}
