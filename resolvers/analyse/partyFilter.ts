@@ -66,9 +66,11 @@ export function partyVerdict(text: string, tokens: readonly string[], hasLegalFo
     }
   }
   if (letters === 0) return { status: 'not_a_party', reason: 'numeric' };
+  if (!hasLegalForm && tokens.every((t) => PRONOUNS.has(t) || t === 'and' || t === 'or')) {
+    return { status: 'needs_binding', reason: 'pronoun' }; // before the length check: "I" is a pronoun
+  }
   if (chars < MIN_NAME_CHARS) return { status: 'not_a_party', reason: 'too_short' };
   if (hasLegalForm) return { status: 'party', reason: null };
-  if (tokens.every((t) => PRONOUNS.has(t) || t === 'and' || t === 'or')) return { status: 'needs_binding', reason: 'pronoun' };
   if (isRolePhrase(tokens)) return { status: 'needs_binding', reason: 'role_word' };
   return { status: 'party', reason: null };
 }
