@@ -10,23 +10,20 @@
  * Characters are UTF-16 code units (as `charCodeAt` sees them), like most JavaScript implementations;
  * callers compare analysed, NFKC-folded names, where characters outside the BMP are rare.
  *
- * Speed: a bit-parallel kernel when the second string has at most 32 code units (one 32-bit mask holds
- * its positions), otherwise a char-code kernel over a reused flag buffer. Both buffers are module-level
- * typed arrays grown as needed, so a call allocates nothing. Both kernels make the same greedy choice
+ * Speed: bit-parallel. When the second string has at most 32 code units one 32-bit mask per code unit
+ * holds its positions; longer strings spread them over ⌈|b|/32⌉ words. The buffers are module-level typed
+ * arrays grown as needed, so a call allocates nothing. Both kernels make the same greedy choice
  * (each character of `a`, left to right, takes the leftmost unmatched equal character of `b` inside
  * the window), so they return identical values.
  */
 
-/** Positions (bit k = position k of `b`) of each UTF-16 code unit in `b`; reset after every call. */
-const positionMasks = new Uint32Array(65536);
+/** Positions (bit k = position k of `b`) of each UTF-16 code unit in `b`; reset after every call. Int32, not
+ * Uint32: a set bit 31 must stay a small integer for V8, not become a heap double. */
+const positionMasks = new Int32Array(65536);
 /** Matched code units of `a`, in order. */
 let matchedA = new Uint16Array(64);
-/** Matched flags of `b` (long-string kernel only). */
-let flagsB = new Uint8Array(64);
-
 function ensureBuffers(length: number): void {
   if (matchedA.length < length) matchedA = new Uint16Array(Math.max(length, matchedA.length * 2));
-  if (flagsB.length < length) flagsB = new Uint8Array(Math.max(length, flagsB.length * 2));
 }
 
 function jaroFromCounts(m: number, transposed: number, lengthA: number, lengthB: number): number {
@@ -38,57 +35,113 @@ function jaroFromCounts(m: number, transposed: number, lengthA: number, lengthB:
 
 /** Bit-parallel kernel: |b| ≤ 32. */
 function jaroShort(a: string, b: string, lengthA: number, lengthB: number, window: number): number {
-  for (let k = 0; k < lengthB; k++) positionMasks[b.charCodeAt(k)] |= 1 << k;
+  // Local aliases: module-level `let` bindings cost a context load on every access.
+  const masks = positionMasks;
+  const matched = matchedA;
+  for (let k = 0; k < lengthB; k++) masks[b.charCodeAt(k)]! |= 1 << k;
   let matchedB = 0;
   let m = 0;
   for (let i = 0; i < lengthA; i++) {
     const lo = i - window > 0 ? i - window : 0;
     if (lo >= lengthB) break;
-    const hi = i + window + 1 < lengthB ? i + window + 1 : lengthB;
-    const upTo = hi >= 32 ? -1 : (1 << hi) - 1;
-    const windowMask = upTo & ~((1 << lo) - 1);
-    const candidates = positionMasks[a.charCodeAt(i)]! & ~matchedB & windowMask;
+    const hi = i + window + 1;
+    const upTo = hi >= lengthB ? (lengthB === 32 ? -1 : (1 << lengthB) - 1) : (1 << hi) - 1;
+    const c = a.charCodeAt(i);
+    const candidates = masks[c]! & ~matchedB & upTo & ~((1 << lo) - 1);
     if (candidates !== 0) {
       matchedB |= candidates & -candidates;
-      matchedA[m++] = a.charCodeAt(i);
+      matched[m++] = c;
     }
   }
-  for (let k = 0; k < lengthB; k++) positionMasks[b.charCodeAt(k)] = 0;
+  for (let k = 0; k < lengthB; k++) masks[b.charCodeAt(k)] = 0;
   if (m === 0) return 0;
   let transposed = 0;
   let j = 0;
   let rest = matchedB;
   while (rest !== 0) {
     const bit = rest & -rest;
-    const k = 31 - Math.clz32(bit);
-    if (b.charCodeAt(k) !== matchedA[j++]) transposed++;
+    if (b.charCodeAt(31 - Math.clz32(bit)) !== matched[j++]) transposed++;
     rest ^= bit;
   }
   return jaroFromCounts(m, transposed, lengthA, lengthB);
 }
 
-/** Char-code kernel for |b| > 32. */
+/** Slot (1-based) of each code unit of `b` in the multi-word kernel; 0 = not in `b`. Reset after every call. */
+const slotOf = new Int32Array(65536);
+/** Position masks of the multi-word kernel: slot s, word w at (s − 1) · words + w. */
+let blockMasks = new Int32Array(256);
+/** Matched positions of `b`, one bit per position, `words` words. */
+let matchedWords = new Int32Array(8);
+
+/** Bits lo..hi−1 of word w (positions 32w..32w+31), as an int32 mask. */
+function wordWindow(w: number, lo: number, hi: number): number {
+  const first = w << 5;
+  const from = lo > first ? lo - first : 0;
+  const to = hi - first >= 32 ? 32 : hi - first;
+  const upTo = to >= 32 ? -1 : (1 << to) - 1;
+  return upTo & ~((1 << from) - 1);
+}
+
+/**
+ * Multi-word bit-parallel kernel for |b| > 32: the same greedy choice as the one-word kernel, with b's
+ * positions spread over ⌈|b|/32⌉ words and b's distinct code units mapped to dense slots.
+ */
 function jaroLong(a: string, b: string, lengthA: number, lengthB: number, window: number): number {
-  flagsB.fill(0, 0, lengthB);
+  const words = (lengthB + 31) >> 5;
+  if (matchedWords.length < words) matchedWords = new Int32Array(words * 2);
+  matchedWords.fill(0, 0, words);
+  let slots = 0;
+  const slotTable = slotOf;
+  const matched = matchedA;
+  for (let k = 0; k < lengthB; k++) {
+    const c = b.charCodeAt(k);
+    let slot = slotTable[c]!;
+    if (slot === 0) {
+      slot = ++slots;
+      slotTable[c] = slot;
+      const needed = slot * words;
+      if (blockMasks.length < needed) {
+        const grown = new Int32Array(Math.max(needed, blockMasks.length * 2));
+        grown.set(blockMasks);
+        blockMasks = grown;
+      }
+      blockMasks.fill(0, (slot - 1) * words, needed);
+    }
+    blockMasks[(slot - 1) * words + (k >> 5)]! |= 1 << (k & 31);
+  }
+  const masks = blockMasks;
+  const matchedB = matchedWords;
   let m = 0;
   for (let i = 0; i < lengthA; i++) {
     const lo = i - window > 0 ? i - window : 0;
     if (lo >= lengthB) break;
-    const hi = i + window + 1 < lengthB ? i + window + 1 : lengthB;
     const c = a.charCodeAt(i);
-    for (let k = lo; k < hi; k++) {
-      if (flagsB[k] === 0 && b.charCodeAt(k) === c) {
-        flagsB[k] = 1;
-        matchedA[m++] = c;
+    const slot = slotTable[c]!;
+    if (slot === 0) continue;
+    const hi = i + window + 1 < lengthB ? i + window + 1 : lengthB;
+    const base = (slot - 1) * words;
+    const lastWord = (hi - 1) >> 5;
+    for (let w = lo >> 5; w <= lastWord; w++) {
+      const candidates = masks[base + w]! & ~matchedB[w]! & wordWindow(w, lo, hi);
+      if (candidates !== 0) {
+        matchedB[w]! |= candidates & -candidates;
+        matched[m++] = c;
         break;
       }
     }
   }
+  for (let k = 0; k < lengthB; k++) slotTable[b.charCodeAt(k)] = 0;
   if (m === 0) return 0;
   let transposed = 0;
   let j = 0;
-  for (let k = 0; k < lengthB; k++) {
-    if (flagsB[k] === 1 && b.charCodeAt(k) !== matchedA[j++]) transposed++;
+  for (let w = 0; w < words; w++) {
+    let rest = matchedB[w]!;
+    while (rest !== 0) {
+      const bit = rest & -rest;
+      const k = (w << 5) + 31 - Math.clz32(bit);
+      if (b.charCodeAt(k) !== matched[j++]) transposed++;
+      rest ^= bit;
+    }
   }
   return jaroFromCounts(m, transposed, lengthA, lengthB);
 }
@@ -102,7 +155,7 @@ export function jaro(a: string, b: string): number {
   const lengthA = a.length;
   const lengthB = b.length;
   if (lengthA === 0 || lengthB === 0) return 0;
-  const half = Math.floor((lengthA > lengthB ? lengthA : lengthB) / 2) - 1;
+  const half = ((lengthA > lengthB ? lengthA : lengthB) >> 1) - 1;
   const window = half > 0 ? half : 0;
   ensureBuffers(lengthA > lengthB ? lengthA : lengthB);
   return lengthB <= 32
