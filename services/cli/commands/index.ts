@@ -6,9 +6,15 @@ import type { Command } from 'commander';
 import analyse from './analyse.ts';
 import generate from './generate.ts';
 import evaluate from './evaluate.ts';
+import serve from './serve.ts';
+import migrate from './migrate.ts';
+import demo from './demo.ts';
 
 export const COMMANDS: Array<(program: Command) => void> = [
   analyse,
   evaluate,
   generate,
+  serve,
+  migrate,
+  demo,
 ];

@@ -1,0 +1,10 @@
+/**
+ * App-wide plugins: they run on the root fastify instance, in this order, before any route is
+ * registered, so their hooks apply to every route (authentication, rate limits, idempotency…).
+ * To add one: create plugins/<name>.ts exporting an AppPlugin and add ONE line below.
+ * Open routes (open-routes.ts) must stay reachable without a key.
+ */
+import type { AppPlugin } from '../types.ts';
+
+export const APP_PLUGINS: AppPlugin[] = [
+];

@@ -1,0 +1,52 @@
+/** GET /healthz: is the service up and does its database answer (within the database timeout)? */
+import { sql } from 'kysely';
+import { withDatabaseTimeout } from '../../../db/database-errors.ts';
+import { ApiError, problemResponses } from '../errors.ts';
+import { DEFAULT_DB_TIMEOUT_MS, type RoutePlugin } from '../types.ts';
+
+export const healthRoutes: RoutePlugin = (app, deps) => {
+  const timeoutMs = deps.dbTimeoutMs ?? DEFAULT_DB_TIMEOUT_MS;
+  app.get(
+    '/healthz',
+    {
+      schema: {
+        summary: 'Health of the service and its database',
+        tags: ['service'],
+        security: [],
+        response: {
+          200: {
+            type: 'object',
+            required: ['status', 'database'],
+            properties: {
+              status: { type: 'string', enum: ['ok'] },
+              version: { type: 'string' },
+              database: {
+                type: 'object',
+                required: ['backend', 'latencyMs'],
+                properties: {
+                  backend: { type: 'string', enum: ['pglite', 'postgres'] },
+                  latencyMs: { type: 'number' },
+                },
+              },
+            },
+            example: { status: 'ok', version: '0.1.0', database: { backend: 'pglite', latencyMs: 1.2 } },
+          },
+          ...problemResponses(503),
+        },
+      },
+    },
+    async () => {
+      const started = performance.now();
+      try {
+        await withDatabaseTimeout(sql`select 1`.execute(deps.db), timeoutMs);
+      } catch (error) {
+        throw new ApiError('DATABASE_UNAVAILABLE', `the ${deps.backend} database did not answer within ${timeoutMs} ms`, {
+          headers: { 'retry-after': '5' },
+          cause: error,
+        });
+      }
+      const latencyMs = Math.round((performance.now() - started) * 10) / 10;
+      return { status: 'ok', version: deps.version, database: { backend: deps.backend, latencyMs } };
+    },
+  );
+};

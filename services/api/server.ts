@@ -1,0 +1,105 @@
+/**
+ * Runs the API as a long-lived service: opens the database (taking the embedded lock), migrates,
+ * listens, and on SIGINT / SIGTERM closes the server (in-flight requests finish) and then the
+ * database (releasing the lock). Used by `cpreg serve` and, until the demo lands, `cpreg demo`.
+ */
+import type { FastifyInstance } from 'fastify';
+import pino from 'pino';
+import { openDatabase, type OpenedDatabase } from '../../db/open-database.ts';
+import { migrateToLatest } from '../../db/migrate.ts';
+import { buildApp } from './app.ts';
+import { loggerOptions } from './logger.ts';
+import { DEFAULT_DB_TIMEOUT_MS } from './types.ts';
+
+export interface ServeOptions {
+  db?: string;
+  port: number;
+  host: string;
+  dbTimeoutMs?: number;
+  logLevel?: string;
+  command: string;
+  /** One line for the person at the terminal (default: stdout). */
+  say?: (line: string) => void;
+  /** The address once listening (for --json). */
+  onListening?: (info: { url: string; backend: string; database: string }) => void;
+}
+
+export interface RunningServer {
+  app: FastifyInstance;
+  database: OpenedDatabase;
+  url: string;
+  /** Resolves once the server has stopped (signal or stop()). */
+  stopped: Promise<void>;
+  stop(reason?: string): Promise<void>;
+}
+
+export class ListenError extends Error {}
+
+export async function startServer(options: ServeOptions): Promise<RunningServer> {
+  const say = options.say ?? ((line: string) => process.stdout.write(`${line}\n`));
+  const dbTimeoutMs = options.dbTimeoutMs ?? DEFAULT_DB_TIMEOUT_MS;
+  const logger = pino(loggerOptions(options.logLevel));
+  const database = await openDatabase(options.db, {
+    timeoutMs: dbTimeoutMs,
+    command: options.command,
+    onMessage: (line) => say(`cpreg: ${line}`),
+    onPoolError: (error) => logger.warn({ err: error }, 'idle database connection lost; the pool reconnects on demand'),
+  });
+  let app: FastifyInstance | undefined;
+  try {
+    const report = await migrateToLatest(database.db);
+    if (report.applied.length > 0) say(`cpreg: applied ${report.applied.length} migration(s): ${report.applied.join(', ')}`);
+    app = await buildApp({ db: database.db, backend: database.backend, dbTimeoutMs, logger });
+    try {
+      await app.listen({ port: options.port, host: options.host });
+    } catch (error) {
+      const code = (error as NodeJS.ErrnoException).code;
+      if (code === 'EADDRINUSE') throw new ListenError(`port ${options.port} on ${options.host} is already in use; choose another --port`);
+      if (code === 'EADDRNOTAVAIL') throw new ListenError(`cannot listen on ${options.host}: no such local address; check --host`);
+      if (code === 'EACCES') throw new ListenError(`not allowed to listen on port ${options.port}; use a port above 1023`);
+      throw error;
+    }
+  } catch (error) {
+    await app?.close().catch(() => undefined);
+    await database.close().catch(() => undefined);
+    throw error;
+  }
+
+  const url = addressOf(app);
+  let resolveStopped!: () => void;
+  const stopped = new Promise<void>((resolve) => (resolveStopped = resolve));
+  let stopping: Promise<void> | undefined;
+  const stop = (reason = 'stop requested'): Promise<void> => {
+    stopping ??= (async () => {
+      process.off('SIGINT', onSignal);
+      process.off('SIGTERM', onSignal);
+      say(`cpreg: stopping (${reason})`);
+      try {
+        await app!.close();
+      } finally {
+        await database.close();
+        logger.flush?.();
+        resolveStopped();
+      }
+    })();
+    return stopping;
+  };
+  const onSignal = (signal: NodeJS.Signals): void => {
+    void stop(signal);
+  };
+  process.on('SIGINT', onSignal);
+  process.on('SIGTERM', onSignal);
+
+  say(`cpreg: serving ${url} (database: ${database.backend} ${database.description}; API reference at ${url}/docs)`);
+  options.onListening?.({ url, backend: database.backend, database: database.description });
+  return { app, database, url, stopped, stop };
+}
+
+function addressOf(app: FastifyInstance): string {
+  const address = app.server.address();
+  if (address && typeof address === 'object') {
+    const host = address.family === 'IPv6' ? `[${address.address}]` : address.address;
+    return `http://${host}:${address.port}`;
+  }
+  return String(address);
+}

@@ -1,0 +1,99 @@
+/**
+ * Schema validation of requests. Two ajv instances, because fastify's default coerces types
+ * everywhere and drops unknown fields silently:
+ * - bodies: no coercion (a number sent as a string is a type error) and unknown fields are errors;
+ * - query strings, path parameters and headers: text by nature, so types are coerced.
+ * ajv errors become RFC 6901 JSON pointers with a message each (the `errors[]` of a 422 problem).
+ */
+import { Ajv, type ErrorObject, type Options } from 'ajv';
+import addFormats from 'ajv-formats';
+import type { FieldError } from './errors.ts';
+
+type HttpPart = 'body' | 'querystring' | 'params' | 'headers';
+
+const COMMON: Options = {
+  useDefaults: true,
+  allErrors: true, // every field error at once; bodies are bounded by bodyLimit
+  removeAdditional: false,
+  strict: false, // route schemas carry OpenAPI annotations (example, description) unknown to ajv
+};
+
+function makeAjv(options: Options, externalSchemas: unknown): Ajv {
+  const ajv = new Ajv({ ...COMMON, ...options });
+  // ajv-formats is CommonJS: under Node's ESM loader the default import is module.exports itself.
+  const plugin = ((addFormats as unknown as { default?: typeof addFormats }).default ?? addFormats) as (a: Ajv) => Ajv;
+  plugin(ajv);
+  for (const schema of Object.values((externalSchemas ?? {}) as Record<string, object>)) ajv.addSchema(schema);
+  return ajv;
+}
+
+/** For fastify's `schemaController.compilersFactory.buildValidator`. */
+export function buildValidatorFactory() {
+  return (externalSchemas: unknown) => {
+    const bodyAjv = makeAjv({ coerceTypes: false }, externalSchemas);
+    const textAjv = makeAjv({ coerceTypes: 'array' }, externalSchemas);
+    return ({ schema, httpPart }: { schema: object & { $id?: string }; httpPart?: string }) => {
+      const ajv = (httpPart as HttpPart | undefined) === 'body' ? bodyAjv : textAjv;
+      if (schema.$id) {
+        const stored = ajv.getSchema(schema.$id);
+        if (stored) return stored;
+      }
+      return ajv.compile(schema);
+    };
+  };
+}
+
+const PART_TO_IN: Record<string, FieldError['in']> = {
+  body: 'body',
+  querystring: 'query',
+  params: 'path',
+  headers: 'header',
+};
+
+function escapePointerToken(token: string): string {
+  return token.replaceAll('~', '~0').replaceAll('/', '~1');
+}
+
+/** One field error per ajv error, pointing at the offending field (not at its parent object). */
+export function toFieldErrors(errors: ErrorObject[], part: string | undefined): FieldError[] {
+  const where = PART_TO_IN[part ?? 'body'] ?? 'body';
+  const seen = new Set<string>();
+  const out: FieldError[] = [];
+  for (const error of errors) {
+    const { pointer, message } = describe(error);
+    const key = `${pointer}\u0000${message}`;
+    if (seen.has(key)) continue;
+    seen.add(key);
+    out.push(where === 'body' ? { pointer, message } : { pointer, message, in: where });
+  }
+  return out;
+}
+
+function describe(error: ErrorObject): { pointer: string; message: string } {
+  const params = error.params as Record<string, unknown>;
+  const base = error.instancePath;
+  switch (error.keyword) {
+    case 'required':
+      return { pointer: `${base}/${escapePointerToken(String(params.missingProperty))}`, message: 'is required' };
+    case 'additionalProperties':
+      return {
+        pointer: `${base}/${escapePointerToken(String(params.additionalProperty))}`,
+        message: 'is not an allowed field',
+      };
+    case 'type':
+      return { pointer: base, message: `must be ${String(params.type)}` };
+    case 'enum':
+      return {
+        pointer: base,
+        message: `must be one of: ${(params.allowedValues as unknown[]).map(String).join(', ')}`,
+      };
+    case 'maxLength':
+      return { pointer: base, message: `must be at most ${String(params.limit)} characters long` };
+    case 'minLength':
+      return { pointer: base, message: `must be at least ${String(params.limit)} characters long` };
+    case 'maxItems':
+      return { pointer: base, message: `must have at most ${String(params.limit)} items` };
+    default:
+      return { pointer: base, message: error.message ?? `fails the ${error.keyword} rule` };
+  }
+}
