@@ -1,0 +1,45 @@
+/** Compares parseParties' result on one corpus case with its expectations; returns the differences. */
+import { parseParties, termKey } from '../../../../resolvers/terms/index.ts';
+import type { ParsedContract } from '../../../../resolvers/terms/index.ts';
+import type { CorpusCase } from './contracts.ts';
+
+const sameList = (a: string[], b: string[]): boolean => a.length === b.length && a.every((x, i) => x === b[i]);
+const sameSet = (a: string[], b: string[]): boolean => a.length === b.length && a.every((x) => b.includes(x));
+
+export function checkCase(c: CorpusCase, parsed: ParsedContract = parseParties(c.text)): string[] {
+  const diffs: string[] = [];
+  const names = parsed.parties.map((p) => p.name);
+  const want = c.parties.map((p) => p.name);
+  if (!sameList(names, want)) diffs.push(`parties: got ${JSON.stringify(names)}, want ${JSON.stringify(want)}`);
+  for (const e of c.parties) {
+    const p = parsed.parties.find((x) => x.name === e.name);
+    if (p === undefined) continue;
+    if (!c.text.includes(p.name)) diffs.push(`${e.name}: name not verbatim in the text`);
+    if (!sameSet(p.terms, e.terms)) diffs.push(`${e.name}: terms ${JSON.stringify(p.terms)}, want ${JSON.stringify(e.terms)}`);
+    if (e.role !== undefined && p.role !== e.role) diffs.push(`${e.name}: role ${JSON.stringify(p.role)}, want ${JSON.stringify(e.role)}`);
+    if (e.jurisdiction !== undefined && p.jurisdiction !== e.jurisdiction) diffs.push(`${e.name}: jurisdiction ${p.jurisdiction}, want ${e.jurisdiction}`);
+    if (e.kind !== undefined && p.kind !== e.kind) diffs.push(`${e.name}: kind ${p.kind}, want ${e.kind}`);
+    if (e.address !== undefined && !(p.address ?? '').includes(e.address)) diffs.push(`${e.name}: address ${JSON.stringify(p.address)}, want it to contain ${JSON.stringify(e.address)}`);
+    for (const id of e.identifiers ?? []) {
+      const got = p.identifiers.find((x) => x.scheme === id.scheme && x.value === id.value);
+      if (got === undefined) diffs.push(`${e.name}: identifier ${id.scheme} ${id.value} missing (got ${JSON.stringify(p.identifiers)})`);
+      else if ((got.problem !== undefined) !== (id.problem === true)) diffs.push(`${e.name}: identifier ${id.scheme} ${id.value} problem ${JSON.stringify(got.problem)}`);
+    }
+    for (const a of e.aliases ?? []) {
+      if (!p.aliases.some((x) => x.kind === a.kind && x.name === a.name)) diffs.push(`${e.name}: alias ${a.kind} ${a.name} missing (got ${JSON.stringify(p.aliases)})`);
+    }
+    for (const r of e.related ?? []) {
+      if (!p.related.some((x) => x.relation === r.relation && x.name === r.name)) diffs.push(`${e.name}: related ${r.relation} ${r.name} missing (got ${JSON.stringify(p.related)})`);
+    }
+  }
+  const wantCollective = c.collective ?? [];
+  const gotCollective = parsed.collectiveTerms.map((k) => `${k.term}=${JSON.stringify(k.parties)}`);
+  const wantC = wantCollective.map((k) => `${k.term}=${JSON.stringify(k.parties)}`);
+  if (!sameSet(gotCollective, wantC)) diffs.push(`collective: got ${JSON.stringify(gotCollective)}, want ${JSON.stringify(wantC)}`);
+  const bound = new Set(parsed.parties.flatMap((p) => [...p.terms, p.name]).map(termKey));
+  for (const n of c.notParties ?? []) {
+    if (!parsed.notParties.includes(n)) diffs.push(`notParties lacks ${JSON.stringify(n)} (got ${JSON.stringify(parsed.notParties)})`);
+    if (bound.has(termKey(n))) diffs.push(`${JSON.stringify(n)} is bound to a party`);
+  }
+  return diffs;
+}
