@@ -8,3 +8,20 @@ export {
   type SoftTfIdfMatch,
   type SoftTfIdfResult,
 } from './softTfIdf.ts';
+export { levenshtein, levenshteinSimilarity } from './levenshtein.ts';
+export {
+  compareAcronym,
+  acronymTokens,
+  initialsOf,
+  ACRONYM_STOP_WORDS,
+  type AcronymComparison,
+  type AcronymLevel,
+} from './acronym.ts';
+export { compareLegalForms, type LegalFormComparison, type LegalFormLevel } from './legalForm.ts';
+export {
+  compareJurisdictions,
+  jurisdictionsCompatible,
+  parseJurisdiction,
+  type JurisdictionComparison,
+  type JurisdictionLevel,
+} from './jurisdiction.ts';
