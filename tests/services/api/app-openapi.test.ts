@@ -1,0 +1,73 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { FastifyInstance } from 'fastify';
+import { buildApp } from '../../../services/api/app.ts';
+import { isOpenRoute, OPEN_ROUTES } from '../../../services/api/open-routes.ts';
+import { openTestDatabase, type TestDatabase } from '../../support/database.ts';
+
+/** Every $ref in the document, to check that each resolves inside it. */
+function collectRefs(value: unknown, out: string[] = []): string[] {
+  if (Array.isArray(value)) for (const item of value) collectRefs(item, out);
+  else if (value && typeof value === 'object') {
+    for (const [key, item] of Object.entries(value)) {
+      if (key === '$ref' && typeof item === 'string') out.push(item);
+      else collectRefs(item, out);
+    }
+  }
+  return out;
+}
+
+describe('the API description', () => {
+  let database: TestDatabase;
+  let app: FastifyInstance;
+  beforeAll(async () => {
+    database = await openTestDatabase('pglite');
+    app = await buildApp({ db: database.db, backend: 'pglite' });
+  });
+  afterAll(async () => {
+    await app?.close();
+    await database?.close();
+  });
+
+  it('GET /openapi.json is an OpenAPI 3 document whose references all resolve', async () => {
+    const res = await app.inject({ method: 'GET', url: '/openapi.json' });
+    expect(res.statusCode).toBe(200);
+    const spec = res.json();
+    // Required top-level members of an OpenAPI 3.0 document (OpenAPI Specification 3.0.3, section 4.7.1).
+    expect(spec.openapi).toMatch(/^3\.\d+\.\d+$/);
+    expect(spec.info).toMatchObject({ title: 'cpreg', version: expect.any(String) });
+    expect(typeof spec.paths).toBe('object');
+    expect(spec.paths['/healthz'].get.responses['200']).toBeDefined();
+    expect(spec.paths['/healthz'].get.responses['503']).toBeDefined();
+    expect(spec.components.schemas.Problem.required).toEqual(['type', 'title', 'status', 'detail', 'code']);
+    for (const [path, item] of Object.entries<Record<string, { responses?: object }>>(spec.paths)) {
+      expect(path.startsWith('/')).toBe(true);
+      for (const operation of Object.values(item)) expect(operation.responses).toBeDefined();
+    }
+    for (const ref of collectRefs(spec)) {
+      expect(ref).toMatch(/^#\/components\/schemas\//);
+      expect(spec.components.schemas[ref.slice('#/components/schemas/'.length)]).toBeDefined();
+    }
+  });
+
+  it('GET /docs is a self-contained HTML page that browses /openapi.json', async () => {
+    const res = await app.inject({ method: 'GET', url: '/docs' });
+    expect(res.statusCode).toBe(200);
+    expect(res.headers['content-type']).toMatch(/^text\/html/);
+    expect(res.body).toContain("fetch('openapi.json')");
+    // Nothing is loaded from elsewhere: no absolute URLs in the page.
+    expect(res.body).not.toMatch(/https?:\/\//);
+    expect(res.headers['content-security-policy']).toContain("default-src 'none'");
+  });
+});
+
+describe('open routes', () => {
+  it('are exactly the health check, the API description and the console', () => {
+    expect(OPEN_ROUTES).toEqual(['/healthz', '/openapi.json', '/docs', '/console', '/console/*']);
+    expect(isOpenRoute('/healthz')).toBe(true);
+    expect(isOpenRoute('/docs?x=1')).toBe(true);
+    expect(isOpenRoute('/console/app.js')).toBe(true);
+    expect(isOpenRoute('/v1/counterparties')).toBe(false);
+    expect(isOpenRoute('/healthz/extra')).toBe(false);
+    expect(isOpenRoute('/consoles')).toBe(false);
+  });
+});
