@@ -35,7 +35,7 @@ const COLLECTIVE_CUES = new Set(['each', 'together', 'collectively', 'jointly', 
 const POSSESSIVES = new Set(['its', 'their', 'his', 'her']);
 
 /** Words allowed between chained terms: "X" or the "Y". */
-const CHAIN_WORDS = new Set(['or', 'and', 'ou', 'oder', 'o', 'y', 'e', 'the', 'le', 'la', 'el', 'il', 'der', 'die']);
+const CHAIN_WORDS = new Set(['or', 'and', 'a', 'an', 'ou', 'oder', 'o', 'y', 'e', 'the', 'le', 'la', 'el', 'il', 'der', 'die']);
 
 export const HEREINAFTER_CUES = ['hereinafter', 'hereafter', 'ci-après', 'ci-apres', 'im folgenden', 'nachfolgend', 'en adelante', 'di seguito', 'referred to as', 'in prosieguo'];
 
@@ -66,6 +66,23 @@ function hasCollectiveCue(lead: string[]): boolean {
     return true;
   }
   return false;
+}
+
+/**
+ * Australian style defines terms without quotes: "… Melbourne VIC 3000 (Wattle Creek)" at the end of a
+ * party's line. Accepted only as the last thing on its line or clause (then a line break, ";" or the end), with
+ * one to four capitalised words and no digits, so "Goldline (Europe) Ltd" and "(UK)," stay qualifiers.
+ */
+function unquotedTerm(text: string, open: number, close: number): string | null {
+  const inner = text.slice(open + 1, close).trim();
+  if (inner.length < 2 || inner.length > 40 || /[^\p{L} &'’.-]/u.test(inner)) return null;
+  const words = inner.split(' ').filter((w) => w.length > 0);
+  if (words.length > 4 || !words.every((w) => /^\p{Lu}/u.test(w) || w === 'of' || w === '&')) return null;
+  let j = close + 1;
+  while (j < text.length && (text[j] === ' ' || text[j] === '\t' || text[j] === '\r')) j++;
+  if (j < text.length && text[j] === '.') j++;
+  while (j < text.length && (text[j] === ' ' || text[j] === '\t' || text[j] === '\r')) j++;
+  return j >= text.length || text[j] === '\n' || text[j] === ';' ? cleanTerm(inner) : null;
 }
 
 /** Pairs parentheses in one pass; returns [open, close] pairs of acceptable size and depth, in order of opening. */
@@ -104,7 +121,7 @@ function readHereinafter(text: string, cueStart: number, cueEnd: number, reach =
   }
   // Include the comma before the cue in the definition so the name before it ends cleanly.
   let start = cueStart;
-  while (start > 0 && (text[start - 1] === ' ' || text[start - 1] === ',' || text[start - 1] === '\n')) start--;
+  while (start > 0 && ' ,\n\r\t–—-'.includes(text[start - 1] as string)) start--;
   // The lead of the first term includes the cue itself, so "each a "Party"" reads as collective.
   const terms = readTerms(text, cueStart, end);
   return terms.length > 0 ? { start, end, terms } : null;
@@ -115,6 +132,10 @@ export function findDefinitions(text: string): Definition[] {
   for (const [open, close] of pairParens(text)) {
     const terms = readTerms(text, open + 1, close);
     if (terms.length > 0) defs.push({ start: open, end: close + 1, terms });
+    else {
+      const bare = unquotedTerm(text, open, close);
+      if (bare !== null) defs.push({ start: open, end: close + 1, terms: [{ text: bare, collective: false, thisMarker: false }] });
+    }
   }
   const parenDefs = [...defs];
   const covered = coverage(parenDefs);
@@ -129,7 +150,7 @@ export function findDefinitions(text: string): Definition[] {
   const each = /\b(?:each|together|collectively|individually|jointly)\b/giu;
   for (let m = each.exec(text); m !== null; m = each.exec(text)) {
     if (coveredToo(m.index)) continue;
-    const d = readHereinafter(text, m.index, m.index + m[0].length, 14);
+    const d = readHereinafter(text, m.index, m.index + m[0].length, 30);
     if (d !== null && d.terms.every((t) => t.collective)) defs.push(d);
   }
   defs.sort((a, b) => a.start - b.start);

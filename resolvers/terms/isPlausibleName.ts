@@ -26,13 +26,16 @@ export function readsAsName(name: string, analysis: NameAnalysis): boolean {
   if (!/[\p{Lu}\p{N}]/u.test(first)) return false;
   if (/^\p{N}+$/u.test(name.split(/\s/u)[0] ?? '')) return false; // "1 March 2024"
   const words = name.split(/\s+/u).filter((w) => w.length > 0);
+  // "LEI 9845…", "ACN 004 085 616": a long token mixing letters and digits, or digit groups, is an identifier.
+  if (words.some((w) => w.length >= 9 && /\d/u.test(w) && /\p{L}/u.test(w))) return false;
+  if (words.filter((w) => /^\d+$/u.test(w)).length >= 2) return false;
   if (BAD_STARTS.has((words[0] ?? '').toLowerCase())) return false;
-  const form = (analysis.legalForm?.text ?? '').toLowerCase();
+  const form = (analysis.legalForm?.text ?? '').toLowerCase().replace(/\P{L}/gu, '');
   for (const w of words) {
     const ch = letterStart(w);
     if (ch === undefined || ch === ch.toUpperCase()) continue;
     const bare = w.toLowerCase().replace(/[^\p{L}'&]/gu, '');
-    if (NAME_CONNECTORS.has(bare) || (form.length > 0 && form.includes(bare))) continue;
+    if (NAME_CONNECTORS.has(bare) || (form.length > 0 && form.includes(bare.replace(/\P{L}/gu, '')))) continue;
     return false;
   }
   return analysis.partyStatus === 'party';

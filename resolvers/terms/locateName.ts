@@ -11,11 +11,15 @@ export const NAME_WINDOW = 600;
 const MAX_NAME = 150;
 
 /** Words after which a parties clause starts; the name follows. */
-const PARTY_CUES = ['by and between', 'by and among', 'between', 'among', 'amongst', 'entre', 'zwischen', 'tra', 'fra', 'undersigned'];
+const PARTY_CUES = ['by and between', 'by and among', 'between', 'among', 'amongst', 'entered into by', 'made by', 'executed by', 'entre', 'zwischen', 'tra', 'fra', 'undersigned', 'de una parte', 'de otra parte', "d'une part", "d'autre part", 'da una parte', "dall'altra parte"];
 /** Words that end a recital or clause: the name, if any, follows. */
 const CLAUSE_CUES = ['whereas', 'recitals', 'background'];
 /** Leading connectors stripped before a name. */
-const CONNECTORS = ['and', 'und', 'et', 'y', 'e', 'or', 'by', 'with', 'also', 'as well as'];
+const CONNECTORS = [
+  'and', 'und', 'et', 'y', 'e', 'or', 'by', 'with', 'also', 'as well as', 'la société', 'la societe', 'la sociedad',
+  'la società', 'la societa', 'die firma', 'der', 'die', 'das', 'the company',
+];
+const LOWER_ONLY = new Set(['der', 'die', 'das', 'the company']);
 /** Words that end a name: the descriptive phrase begins. */
 const DESCRIPTIVE_STARTS = [
   'a', 'an', 'whose', 'having', 'with', 'incorporated', 'organized', 'organised', 'located', 'residing', 'domiciled',
@@ -114,7 +118,8 @@ function skipLeading(text: string, i: number, to: number): number {
     while (j < to && ',;:.-–—•*'.includes(text[j] as string)) j++;
     j = skipSpaces(text, j, to);
     const conn = anyWordAt(text, j, CONNECTORS);
-    if (conn !== undefined) j += conn.length;
+    // German articles and "the company" are stripped only in lower case: "Der Blaue Engel GmbH" keeps its "Der".
+    if (conn !== undefined && !(LOWER_ONLY.has(conn) && !isLowerLetter(text[j]))) j += conn.length;
     const n = numberingAt(text, j, to);
     if (n > 0) j = n;
     if (j === before) return j;
@@ -153,9 +158,20 @@ function bareNameEnd(text: string, s: number, to: number, stopAtAnd: boolean): n
       if (stopAtAnd && (wordAt(text, w, 'and') || wordAt(text, w, 'und') || wordAt(text, w, 'et'))) return i;
       if (wordAt(text, w, 'of') && /\d/.test(text[skipSpaces(text, w + 2, limit)] ?? '')) return i;
       if (anyWordAt(text, w, ALIAS_CUES) !== undefined) return i;
+      if (anyWordAt(text, w, ID_CUES) !== undefined && /\p{Lu}/u.test(text[w] as string)) return i;
+      if (wordAt(text, w, 'of') && /\p{Lu}/u.test(text[skipSpaces(text, w + 2, limit)] ?? '') && endsWithLegalForm(text, s, i)) return i;
     }
   }
   return limit;
+}
+
+/** Register abbreviations that follow a name in some styles ("… Pty Ltd ACN 004 085 616"). */
+const ID_CUES = ['acn', 'abn', 'arbn', 'arsn', 'hrb', 'hra', 'rcs', 'ein', 'lei', 'kvk', 'siren', 'vat', 'company number', 'registered number', 'reg. no', 'org. nr'];
+
+/** "Pellinore Widgets Limited of 4 Quarry Lane": after a legal form, "of" starts the address. */
+function endsWithLegalForm(text: string, s: number, e: number): boolean {
+  const lf = analyseName(text.slice(s, e)).legalForm;
+  return lf !== null && loose(text.slice(s, e)).endsWith(loose(lf.text));
 }
 
 function isLowerLetter(ch: string | undefined): boolean {
@@ -169,8 +185,7 @@ function loose(s: string): string {
 /** "Acme Robotics, Inc.": the comma part is the legal form of the name before it. */
 function extendOverDesignator(text: string, s: number, e: number, to: number): number {
   if (text[e] !== ',') return e;
-  let p = e + 1;
-  while (p < to && text[p] !== ',' && text[p] !== '(' && text[p] !== ';' && text[p] !== '\n' && p - e < 24) p++;
+  const p = bareNameEnd(text, skipSpaces(text, e + 1, to), Math.min(to, e + 24), false);
   const [ps, pe] = trimBounds(text, e + 1, p);
   const part = text.slice(ps, pe);
   if (part.length === 0 || part.split(' ').length > 4 || !/^\p{Lu}/u.test(part)) return e;
@@ -210,9 +225,26 @@ export function locateNameAt(text: string, from: number, to: number, partyCue: b
   return { nameStart: s, nameEnd: e, fullEnd, descStart, descEnd, partyCue };
 }
 
-/** Locates the name before a definition that starts at `to`; `from` is where the previous definition ended. */
-export function locateName(text: string, from: number, to: number): LocatedName | null {
+/**
+ * Where a name may start before a definition at `to`: after the last boundary, then (when that reads as
+ * a descriptive phrase rather than a name) after the last ", and", " and" or "," — the next party
+ * in a list follows its predecessor's descriptive phrase. The caller tries them in order.
+ */
+export function nameStarts(text: string, from: number, to: number, inheritedCue: boolean): Array<{ at: number; partyCue: boolean }> {
   const windowStart = Math.max(from, to - NAME_WINDOW);
   const b = lastBoundary(text, windowStart, to);
-  return locateNameAt(text, b.at, to, b.partyCue);
+  const partyCue = b.partyCue || (inheritedCue && b.at === windowStart);
+  const starts = [{ at: b.at, partyCue }];
+  const segment = text.slice(b.at, to);
+  for (const sep of [', and ', '; and ', ', or ', ' and ', ', ']) {
+    const k = segment.lastIndexOf(sep);
+    if (k > 0) starts.push({ at: b.at + k + sep.length, partyCue });
+  }
+  return starts;
+}
+
+/** Locates the name before a definition that starts at `to`; `from` is where the previous definition ended. */
+export function locateName(text: string, from: number, to: number, inheritedCue = false): LocatedName | null {
+  const first = nameStarts(text, from, to, inheritedCue)[0] as { at: number; partyCue: boolean };
+  return locateNameAt(text, first.at, to, first.partyCue);
 }

@@ -15,7 +15,9 @@ import { findDefinitions } from './findDefinitions.ts';
 import type { Definition, FoundTerm } from './findDefinitions.ts';
 import { findSignatureBlocks } from './findSignatureBlocks.ts';
 import { readsAsName } from './isPlausibleName.ts';
-import { locateName, locateNameAt } from './locateName.ts';
+import { locateName, locateNameAt, NAME_WINDOW, nameStarts } from './locateName.ts';
+import { findPartyItems } from './findPartyItems.ts';
+import { wordsOf } from './textScan.ts';
 import type { LocatedName } from './locateName.ts';
 import { NON_PARTY_TERMS } from './nonPartyTerms.ts';
 import { pickRole } from './pickRole.ts';
@@ -28,6 +30,8 @@ const MAX_DESCRIPTION = 800;
 const TRAILING_WINDOW = 400;
 
 interface Draft {
+  /** Where the name first appears: parties are reported in text order. */
+  position: number;
   name: string;
   /** Name plus alias phrases, for the analysis. */
   fullName: string;
@@ -39,37 +43,39 @@ interface Draft {
 
 interface CollectiveDraft {
   term: string;
-  /** Indices of drafts covered; null: every party of the contract. */
-  members: number[] | null;
+  /** Parties covered; null: every party of the contract. */
+  members: Draft[] | null;
 }
 
 class Collector {
   readonly drafts: Draft[] = [];
   readonly collectives: CollectiveDraft[] = [];
   readonly notParties: string[] = [];
+  /** The last party came from a parties clause: the next one in the list inherits that context. */
+  inClause = false;
 
   constructor(readonly text: string) {}
 
-  /** Adds a located name as a party (or merges it into the same entity seen before); -1 when implausible. */
-  addParty(located: LocatedName, terms: string[], extraDescription: string, label?: string): number {
+  /** Adds a located name as a party (or merges it into the same entity seen before); null when implausible. */
+  addParty(located: LocatedName, terms: string[], extraDescription: string, label?: string): Draft | null {
     const name = this.text.slice(located.nameStart, located.nameEnd);
     const fullName = this.text.slice(located.nameStart, located.fullEnd);
     const analysis = analyseName(fullName);
-    if (!readsAsName(name, analysis)) return -1;
+    if (!readsAsName(name, analysis)) return null;
     const description = `${this.text.slice(located.descStart, Math.min(located.descEnd, located.descStart + MAX_DESCRIPTION))} ${extraDescription}`.trim();
-    if (!located.partyCue && !hasSupport(analysis, description)) return -1;
-    const existing = this.drafts.findIndex((d) => sameEntityName(d.analysis, analysis));
-    if (existing >= 0) {
-      const d = this.drafts[existing] as Draft;
+    if (!located.partyCue && !hasSupport(analysis, description)) return null;
+    const existing = this.drafts.find((d) => sameEntityName(d.analysis, analysis));
+    if (existing !== undefined) {
+      const d = existing;
       for (const t of terms) if (!d.terms.includes(t)) d.terms.push(t);
       if (description.length > 0) d.descriptions.push(description);
       if (d.label === undefined && label !== undefined) d.label = label;
-      return existing;
+      return d;
     }
-    const draft: Draft = { name, fullName, terms: [...terms], descriptions: description.length > 0 ? [description] : [], analysis };
+    const draft: Draft = { position: located.nameStart, name, fullName, terms: [...terms], descriptions: description.length > 0 ? [description] : [], analysis };
     if (label !== undefined) draft.label = label;
     this.drafts.push(draft);
-    return this.drafts.length - 1;
+    return draft;
   }
 
   noteNotParty(s: string): void {
@@ -95,7 +101,7 @@ function trailingDescription(text: string, from: number, nextStart: number): str
   let i = from;
   while (i < text.length && (text[i] === ' ' || text[i] === ',')) i++;
   const lower = text.slice(i, i + 20).toLowerCase();
-  if (!/^(?:a |an |incorporated|registered|company|with |whose |having |organi[sz]ed|eingetragen|immatricul|société|une |un )/u.test(lower)) return '';
+  if (!/^(?:a |an |is a |is an |incorporated|registered|company|with |whose |having |organi[sz]ed|eingetragen|immatricul|société|une |un )/u.test(lower)) return '';
   let end = Math.min(nextStart, text.length, i + TRAILING_WINDOW);
   const semi = text.indexOf(';', i);
   if (semi >= 0 && semi < end) end = semi;
@@ -109,30 +115,64 @@ function handleDefinition(c: Collector, def: Definition, prevEnd: number, nextSt
   const partyTerms = def.terms.filter(isPartyTerm);
   const collective = def.terms.filter((t) => t.collective);
   for (const t of def.terms) if (!t.collective && !isPartyTerm(t)) c.noteNotParty(t.text);
-  let members: number[] = [];
+  let members: Draft[] | null = null;
   if (partyTerms.length > 0) {
-    const located = locateName(text, prevEnd, def.start);
     const inner = text.slice(def.start + 1, def.end - 1);
-    const idx = located === null ? -1 : c.addParty(located, partyTerms.map((t) => t.text), `(${inner}) ${trailingDescription(text, def.end, nextStart)}`);
-    if (idx < 0) for (const t of partyTerms) c.noteNotParty(t.text);
-    else members = c.drafts.map((_, k) => k);
+    const extra = `(${inner}) ${trailingDescription(text, def.end, nextStart)}`;
+    let added: Draft | null = null;
+    for (const start of nameStarts(text, prevEnd, def.start, c.inClause)) {
+      const located = locateNameAt(text, start.at, def.start, start.partyCue);
+      added = located === null ? null : c.addParty(located, partyTerms.map((t) => t.text), extra);
+      if (added !== null) {
+        c.inClause = start.partyCue;
+        break;
+      }
+    }
+    if (added === null) for (const t of partyTerms) c.noteNotParty(t.text);
+    else members = [...c.drafts];
   } else if (collective.length > 0) {
-    members = namesBefore(c, prevEnd, def.start);
-    if (members.length === 0) members = c.drafts.map((_, k) => k);
+    members = collectiveMembers(c, prevEnd, def.start);
   }
-  for (const t of collective) c.collectives.push({ term: t.text, members: members.length > 0 ? members : null });
+  for (const t of collective) c.collectives.push({ term: t.text, members });
+}
+
+/** Words that may stand between the last party and a collective definition without naming anyone. */
+const FILLER = new Set(['and', 'or', 'are', 'is', 'be', 'will', 'shall', 'hereto', 'herein', 'hereinafter', 'the', 'a', 'an', 'as', 'each', 'together', 'collectively', 'individually', 'jointly', 'referred', 'to', 'both', 'all', 'of', 'them', 'they', 'parties', 'party', 'above', 'named', 'said']);
+
+/**
+ * Who a collective term covers: parties named just before it ("Alder Fund I LP and Alder Fund II LP (each a
+ * "Fund")"), or parties whose terms are named there ("Licensor and Licensee are each a "Party""), or every
+ * party so far when nothing stands between; an unnamed set ("the lenders party hereto") covers no named party.
+ */
+function collectiveMembers(c: Collector, from: number, to: number): Draft[] | null {
+  const named = namesBefore(c, from, to);
+  if (named.length > 0) return named;
+  const segment = c.text.slice(Math.max(from, to - NAME_WINDOW), to);
+  const words = wordsOf(segment);
+  const byTerm = c.drafts.filter((d) => d.terms.some((t) => includesPhrase(words, wordsOf(t))));
+  if (byTerm.length > 0) return byTerm;
+  if (words.every((w) => FILLER.has(w))) return c.drafts.length > 0 ? [...c.drafts] : null;
+  return [];
+}
+
+function includesPhrase(words: string[], phrase: string[]): boolean {
+  if (phrase.length === 0) return false;
+  for (let i = 0; i + phrase.length <= words.length; i++) {
+    if (phrase.every((w, k) => words[i + k] === w)) return true;
+  }
+  return false;
 }
 
 /** Parties listed before a collective definition: "Alder Fund I LP and Alder Fund II LP (each a "Fund")". */
-function namesBefore(c: Collector, from: number, to: number): number[] {
-  const found: number[] = [];
+function namesBefore(c: Collector, from: number, to: number): Draft[] {
+  const found: Draft[] = [];
   const first = locateName(c.text, from, to);
   let pos = first === null ? to : first.nameStart;
   for (let guard = 0; pos < to && guard < 50; guard++) {
     const loc = locateNameAt(c.text, pos, to, first?.partyCue ?? false, true);
     if (loc === null) break;
-    const idx = c.addParty(loc, [], '');
-    if (idx >= 0 && !found.includes(idx)) found.push(idx);
+    const d = c.addParty(loc, [], '');
+    if (d !== null && !found.includes(d)) found.push(d);
     pos = nextSeparator(c.text, Math.max(loc.nameEnd, loc.fullEnd), to);
   }
   return found;
@@ -155,6 +195,12 @@ function finishIdentifiers(raw: ContractIdentifier[], jurisdiction: string | und
   });
 }
 
+/** "an individual residing at …": the text says the party is a natural person. */
+function saysIndividual(description: string): boolean {
+  const lower = description.toLowerCase();
+  return ['an individual', 'a natural person', 'residing at', 'born on', 'une personne physique', 'natürliche person'].some((p) => lower.includes(p));
+}
+
 function finishParty(d: Draft, ownEntities: NameAnalysis[]): ContractParty {
   const description = d.descriptions.join(' ');
   let jurisdiction = extractJurisdiction(description);
@@ -169,7 +215,7 @@ function finishParty(d: Draft, ownEntities: NameAnalysis[]): ContractParty {
     identifiers: finishIdentifiers(extractIdentifiers(description, jurisdiction), jurisdiction),
     aliases: analysis.aliases,
     related: analysis.related,
-    kind: analysis.kind,
+    kind: analysis.kind === 'unknown' && saysIndividual(description) ? 'person' : analysis.kind,
   };
   if (jurisdiction !== undefined) party.jurisdiction = jurisdiction;
   if (analysis.legalForm !== null) party.legalForm = analysis.legalForm;
@@ -189,16 +235,18 @@ export function parseParties(text: string, options: ParseOptions = {}): ParsedCo
     handleDefinition(c, def, prevEnd, defs[k + 1]?.start ?? text.length);
     prevEnd = def.end;
   }
+  for (const item of findPartyItems(text, defs)) c.addParty(item, [], '');
   for (const sig of findSignatureBlocks(text)) {
     c.addParty(sig.located, [], '', sig.label);
     for (const n of sig.notParties) c.noteNotParty(n);
   }
   const own = (options.ownEntities ?? []).filter((n) => typeof n === 'string' && n.trim().length > 0).map((n) => analyseName(n));
-  const parties = c.drafts.map((d) => finishParty(d, own));
+  const drafts = [...c.drafts].sort((a, b) => a.position - b.position);
+  const parties = drafts.map((d) => finishParty(d, own));
   const boundKeys = new Set(parties.flatMap((p) => [...p.terms, p.name].map(termKey)));
   const collectiveTerms = parties.length === 0 ? [] : c.collectives.map((k) => ({
     term: k.term,
-    parties: (k.members ?? parties.map((_, i) => i)).map((i) => (parties[i] as ContractParty).name),
+    parties: [...(k.members ?? drafts)].sort((a, b) => a.position - b.position).map((d) => d.name),
   }));
   const notParties = c.notParties.filter((n) => !boundKeys.has(termKey(n)));
   const result: ParsedContract = { parties, collectiveTerms, notParties };

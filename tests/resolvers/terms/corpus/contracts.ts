@@ -558,7 +558,7 @@ Cantina Ferraris S.r.l., con sede in Corso Italia 8, 10121 Torino (di seguito "i
     text: `This Employment Agreement is made between Ardent Lab Instruments, LLC, a Minnesota limited liability company (the "Employer"), and Priya Natarajan (the "Employee").`,
     parties: [
       { name: 'Ardent Lab Instruments, LLC', terms: ['Employer'], role: 'Employer', jurisdiction: 'US-MN' },
-      { name: 'Priya Natarajan', terms: ['Employee'], role: 'Employee', kind: 'person' },
+      { name: 'Priya Natarajan', terms: ['Employee'], role: 'Employee' },
     ],
   },
   {
