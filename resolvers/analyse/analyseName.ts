@@ -8,6 +8,7 @@ import { splitAliases } from './splitAliases.ts';
 import { matchPrefixForm, matchSuffixForm } from './matchLegalForm.ts';
 import type { LegalFormSpan } from './matchLegalForm.ts';
 import { extractQualifiers, trailingGroupStart } from './qualifiers.ts';
+import { scanName } from './scanName.ts';
 import { normaliseName, normaliseTokens } from './normaliseName.ts';
 import { partyVerdict } from './partyFilter.ts';
 import { HONORIFICS, looksLikePersonName, ORGANISATION_WORDS, PERSON_SUFFIXES } from './looksLikePersonName.ts';
@@ -25,13 +26,13 @@ export function analyseName(text: string, hints: AnalyseHints = {}): NameAnalysi
 
   const found = findForm(primary);
   let legalForm: LegalFormMatch | null = null;
+  let trailing: string[] = [];
   let coreText = primary;
-  const qualifiers: string[] = [];
   if (found) {
-    const { span, trailing } = found;
+    const { span } = found;
+    trailing = found.trailing;
     coreText = primary.slice(0, span.start) + ' ' + primary.slice(span.end, found.trailingFrom);
-    for (const t of trailing) qualifiers.push(t);
-    const narrowed = narrowCodes(span.entry.codes, span.entry.jurisdictions, country);
+    const narrowed = narrowCodes(span.entry, country);
     legalForm = {
       text: primary.slice(span.start, span.end).trim(),
       family: span.entry.family,
@@ -39,25 +40,24 @@ export function analyseName(text: string, hints: AnalyseHints = {}): NameAnalysi
       jurisdictions: narrowed.jurisdictions,
     };
   }
-  const { rest, groups } = extractQualifiers(coreText);
+  let { rest, groups } = extractQualifiers(coreText);
+  let restTokens = normaliseTokens(rest);
+  let tokens = withoutArticle(restTokens);
+  // "The Company", "the Partnership": a designator with nothing left but an article names no one.
+  if (legalForm && tokens.length === 0) {
+    legalForm = null;
+    trailing = [];
+    ({ rest, groups } = extractQualifiers(primary));
+    restTokens = normaliseTokens(rest);
+    tokens = withoutArticle(restTokens);
+  }
+  const qualifiers: string[] = [];
   for (const g of groups) {
     const q = normaliseName(g);
-    if (q !== '') qualifiers.unshift(q);
+    if (q !== '') qualifiers.push(q);
   }
-  let tokens = normaliseTokens(rest);
-  if (tokens[0] === 'the' && tokens.length > 1) tokens = tokens.slice(1);
-  // "The Company", "the Partnership": a designator with nothing left but an article names no one.
-  if (legalForm && (tokens.length === 0 || (tokens.length === 1 && tokens[0] === 'the'))) {
-    legalForm = null;
-    tokens = normaliseTokens(extractQualifiers(primary).rest);
-    qualifiers.length = 0;
-    for (const g of extractQualifiers(primary).groups) {
-      const q = normaliseName(g);
-      if (q !== '') qualifiers.push(q);
-    }
-  }
-  const verdict = partyVerdict(primary, legalForm ? tokens : normaliseTokens(primary), legalForm !== null);
-  if (verdict.status === 'party' && tokens[0] === 'the' && tokens.length > 1) tokens = tokens.slice(1);
+  for (const q of trailing) qualifiers.push(q);
+  const verdict = partyVerdict(primary, legalForm ? tokens : restTokens, legalForm !== null);
   const kind: EntityKind =
     verdict.status !== 'party'
       ? 'unknown'
@@ -71,7 +71,7 @@ export function analyseName(text: string, hints: AnalyseHints = {}): NameAnalysi
   if (kind === 'person') tokens = withoutHonorifics(tokens);
   return {
     input: text,
-    normalised: normaliseName(text),
+    normalised: rest === text ? restTokens.join(' ') : normaliseName(text),
     core: tokens.join(' '),
     tokens,
     legalForm,
@@ -91,10 +91,12 @@ interface Found {
 }
 
 function findForm(primary: string): Found | null {
+  const scan = scanName(primary);
   let end = primary.length;
+  let hi = scan.length;
   const trailing: string[] = [];
   for (let k = 0; k <= MAX_TRAILING_GROUPS; k++) {
-    const span = matchSuffixForm(primary, 0, end);
+    const span = matchSuffixForm(primary, scan, hi, end);
     if (span) return { span, trailing, trailingFrom: end };
     const open = trailingGroupStart(primary, end);
     if (open <= 0) break;
@@ -102,8 +104,9 @@ function findForm(primary: string): Found | null {
     const q = normaliseName(primary.slice(open + 1, close));
     if (q !== '') trailing.unshift(q);
     end = open;
+    while (hi > 0 && (scan.from[hi - 1] as number) >= end) hi--;
   }
-  const prefix = matchPrefixForm(primary, 0, primary.length);
+  const prefix = matchPrefixForm(primary, scan);
   return prefix ? { span: prefix, trailing: [], trailingFrom: primary.length } : null;
 }
 
@@ -122,6 +125,11 @@ function writtenWords(text: string): string[] {
   }
   if (cur !== '') out.push(cur);
   return out;
+}
+
+/** A leading "The" is not part of the core ("The Orrin Mill Company" ~ "Orrin Mill Company"). */
+function withoutArticle(tokens: string[]): string[] {
+  return tokens.length > 1 && tokens[0] === 'the' ? tokens.slice(1) : tokens.length === 1 && tokens[0] === 'the' ? [] : tokens;
 }
 
 /** "Dr Hanna Velt" and "Hanna Velt" are one person: titles and "Jr"/"PhD" stay out of the core. */

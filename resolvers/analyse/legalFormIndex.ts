@@ -15,6 +15,8 @@ export interface LegalFormEntry {
   /** ELF codes, sorted; jurisdictions[i] is the jurisdiction of codes[i]. */
   codes: string[];
   jurisdictions: string[];
+  /** The distinct jurisdictions, in the order of first appearance in `jurisdictions`. */
+  distinctJurisdictions: string[];
 }
 
 export interface TrieNode {
@@ -73,20 +75,24 @@ function buildIndex(table: RawTable): LegalFormIndex {
   for (const [key, value] of Object.entries(table.forms)) {
     const [family = key, kinds = '', codeList = ''] = value;
     const codes = codeList.split(' ').filter((c) => c !== '');
+    const jurisdictions = codes.map((c) => table.codes[c] ?? '');
     const entry: LegalFormEntry = {
       key,
       family,
       abbreviation: kinds.includes('a'),
       name: kinds.includes('n'),
       codes,
-      jurisdictions: codes.map((c) => table.codes[c] ?? ''),
+      jurisdictions,
+      distinctJurisdictions: [...new Set(jurisdictions)],
     };
     entries.set(key, entry);
     if (key.length < MIN_KEY_LENGTH) continue;
     insert(suffix, key, entry, true);
     const prefixCodes = codes.filter((_, i) => isPrefixJurisdiction(entry.jurisdictions[i] ?? '', entry.name));
     if (prefixCodes.length > 0) {
-      insert(prefix, key, { ...entry, codes: prefixCodes, jurisdictions: prefixCodes.map((c) => table.codes[c] ?? '') }, false);
+      const prefixJurisdictions = prefixCodes.map((c) => table.codes[c] ?? '');
+      const prefixEntry = { ...entry, codes: prefixCodes, jurisdictions: prefixJurisdictions, distinctJurisdictions: [...new Set(prefixJurisdictions)] };
+      insert(prefix, key, prefixEntry, false);
     }
   }
   const inactive = new Set(table.inactive);

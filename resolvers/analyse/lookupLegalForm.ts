@@ -20,7 +20,7 @@ export interface LegalFormInfo {
 export function lookupLegalForm(designator: string, hints: AnalyseHints = {}): LegalFormInfo | null {
   const entry = legalFormIndex().entries.get(designatorKey(designator));
   if (!entry) return null;
-  const narrowed = narrowCodes(entry.codes, entry.jurisdictions, validateCountry(hints.country));
+  const narrowed = narrowCodes(entry, validateCountry(hints.country));
   return { key: entry.key, family: entry.family, elfCodes: narrowed.codes, jurisdictions: narrowed.jurisdictions };
 }
 

@@ -6,7 +6,6 @@
 import type { LegalFormEntry, TrieNode } from './legalFormIndex.ts';
 import { legalFormIndex } from './legalFormIndex.ts';
 import type { NameScan } from './scanName.ts';
-import { scanName } from './scanName.ts';
 
 export interface LegalFormSpan {
   entry: LegalFormEntry;
@@ -49,7 +48,9 @@ function wordBefore(scan: NameScan, end: number): { start: number; text: string 
   if (end <= 0) return null;
   let start = end - 1;
   while (start > 0 && scan.wordStart[start] !== 1) start--;
-  return { start, text: String.fromCharCode(...scan.units.slice(start, end)) };
+  let text = '';
+  for (let i = start; i < end && end - start <= 12; i++) text += String.fromCharCode(scan.units[i] as number);
+  return { start, text };
 }
 
 /**
@@ -79,25 +80,25 @@ function isPartnersCo(text: string, scan: NameScan, at: number, key: string): bo
   return word !== null && CONNECTOR_WORDS.has(word.text);
 }
 
-/** The legal form at the end of text[start, end), or null. */
-export function matchSuffixForm(text: string, start: number, end: number): LegalFormSpan | null {
-  const scan = scanName(text, start, end);
-  const n = scan.units.length;
-  if (n < 2) return null;
-  const hit = longestSuffix(scan, 0, n, legalFormIndex().suffix);
+/**
+ * The legal form that ends the first `hi` units of `scan` (a scan of `text`), or null. `limit` is the offset in
+ * `text` the match may extend to over final dots.
+ */
+export function matchSuffixForm(text: string, scan: NameScan, hi: number, limit: number): LegalFormSpan | null {
+  if (hi < 2) return null;
+  const hit = longestSuffix(scan, 0, hi, legalFormIndex().suffix);
   if (!hit || isPartnersCo(text, scan, hit.at, hit.entry.key)) return null;
   const at = extendCompound(text, scan, hit.at);
-  return { entry: hit.entry, start: scan.from[at] as number, end: extendOverDots(text, scan.to[n - 1] as number, end), position: 'suffix' };
+  return { entry: hit.entry, start: scan.from[at] as number, end: extendOverDots(text, scan.to[hi - 1] as number, limit), position: 'suffix' };
 }
 
-/** The legal form that opens text[start, end) for the forms written first, or null. */
-export function matchPrefixForm(text: string, start: number, end: number): LegalFormSpan | null {
-  const scan = scanName(text, start, end);
-  const n = scan.units.length;
+/** The legal form that opens the scanned text, for the forms written first, or null. */
+export function matchPrefixForm(text: string, scan: NameScan): LegalFormSpan | null {
+  const n = scan.length;
   if (n < 2) return null;
   const hit = longestPrefix(scan, 0, n, legalFormIndex().prefix);
   if (!hit) return null;
-  return { entry: hit.entry, start: scan.from[0] as number, end: extendOverDots(text, scan.to[hit.end - 1] as number, end), position: 'prefix' };
+  return { entry: hit.entry, start: scan.from[0] as number, end: extendOverDots(text, scan.to[hit.end - 1] as number, text.length), position: 'prefix' };
 }
 
 /** "Ltd." and "S.A." keep their final dot in the matched text. */

@@ -3,6 +3,8 @@
  * Hints are ISO 3166-1 alpha-2 ("CH") or ISO 3166-2 ("US-DE"); a subdivision hint keeps country-wide codes too.
  * When nothing matches the hint, every code is kept: the hint narrows, it never erases the designator.
  */
+import type { LegalFormEntry } from './legalFormIndex.ts';
+
 const COUNTRY = /^[A-Z]{2}(?:-[A-Z0-9]{1,3})?$/;
 
 export function validateCountry(country: string | undefined): string | undefined {
@@ -14,27 +16,21 @@ export function validateCountry(country: string | undefined): string | undefined
   return upper;
 }
 
-export function narrowCodes(
-  codes: readonly string[],
-  jurisdictions: readonly string[],
-  country: string | undefined,
-): { codes: string[]; jurisdictions: string[] } {
-  const pick = (keep: (j: string) => boolean): { codes: string[]; jurisdictions: string[] } => {
-    const out = { codes: [] as string[], jurisdictions: [] as string[] };
-    for (let i = 0; i < codes.length; i++) {
-      const j = jurisdictions[i] ?? '';
-      if (!keep(j)) continue;
-      out.codes.push(codes[i] as string);
-      if (!out.jurisdictions.includes(j)) out.jurisdictions.push(j);
-    }
-    return out;
-  };
+export function narrowCodes(entry: LegalFormEntry, country: string | undefined): { codes: string[]; jurisdictions: string[] } {
   if (country !== undefined) {
     const dash = country.indexOf('-');
     const whole = dash < 0 ? country : country.slice(0, dash);
-    const narrowed =
-      dash < 0 ? pick((j) => j === whole || j.startsWith(whole + '-')) : pick((j) => j === country || j === whole);
-    if (narrowed.codes.length > 0) return narrowed;
+    const codes: string[] = [];
+    const jurisdictions: string[] = [];
+    for (let i = 0; i < entry.codes.length; i++) {
+      const j = entry.jurisdictions[i] as string;
+      const keep = dash < 0 ? j === whole || (j.length > whole.length && j.startsWith(whole) && j[whole.length] === '-') : j === country || j === whole;
+      if (!keep) continue;
+      codes.push(entry.codes[i] as string);
+      if (!jurisdictions.includes(j)) jurisdictions.push(j);
+    }
+    if (codes.length > 0) return { codes, jurisdictions };
   }
-  return pick(() => true);
+  // Copies: callers own their analysis and may change it.
+  return { codes: entry.codes.slice(), jurisdictions: entry.distinctJurisdictions.slice() };
 }

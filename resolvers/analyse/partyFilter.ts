@@ -100,6 +100,7 @@ function isSignatureLabel(text: string, tokens: readonly string[]): boolean {
     if (SIGNATURE_LABELS.has(label)) return true;
   }
   // A bare label with a line to sign on: "By: ______", "Name", "Title".
-  const joined = tokens.join(' ');
-  return SIGNATURE_LABELS.has(joined) && tokens.length <= 2 && !PRONOUNS.has(joined);
+  if (tokens.length > 2) return false;
+  const joined = tokens.length === 1 ? (tokens[0] as string) : tokens.join(' ');
+  return SIGNATURE_LABELS.has(joined) && !PRONOUNS.has(joined);
 }
