@@ -1,0 +1,24 @@
+/**
+ * Token rarity for soft TF-IDF, read from the register's blocking keys (t:<token>, one row per name holding the
+ * token). Counting is capped at DF_CAP per token so that a very common word ("holdings") costs one short index
+ * scan; every token at or above the cap counts as equally common. N is a fixed reference size, so the weights
+ * depend only on the register's contents, never on an estimate that differs between instances.
+ */
+import { sql } from 'kysely';
+import { idfTableFromFrequencies, type IdfTable } from '../../../resolvers/compare/index.ts';
+import type { Queryable } from '../../../db/queries/util.ts';
+
+export const DF_CAP = 1000;
+export const REFERENCE_DOCUMENTS = 1_000_000;
+
+export async function idfFor(db: Queryable, tokens: Iterable<string>): Promise<IdfTable> {
+  const unique = [...new Set(tokens)];
+  const frequencies = new Map<string, number>();
+  if (unique.length > 0) {
+    const result = await sql<{ token: string; df: string | number }>`
+      SELECT t.token, (SELECT count(*) FROM (SELECT 1 FROM blocking_key b WHERE b.key = 't:' || t.token LIMIT ${DF_CAP}) s) AS df
+      FROM unnest(${sql.val(unique)}::text[]) AS t(token)`.execute(db);
+    for (const row of result.rows) frequencies.set(row.token, Number(row.df));
+  }
+  return idfTableFromFrequencies(frequencies, REFERENCE_DOCUMENTS);
+}

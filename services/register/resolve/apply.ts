@@ -1,0 +1,138 @@
+/**
+ * Writing one mention's outcome inside a ChangeSet: a new counterparty with its names and identifiers, a link
+ * (name sighting, identifiers the counterparty lacks), a review item, or just the mention's status.
+ */
+import { isStrongScheme, type NameKind } from '../../../resolvers/vocabulary.ts';
+import type { HistoryEventType } from '../../../resolvers/vocabulary.ts';
+import {
+  addIdentifierRow,
+  addNameSighting,
+  createCounterpartyRow,
+  lockActive,
+  survivorFor,
+  touchCounterparty,
+} from '../records.ts';
+import { RegisterError } from '../errors.ts';
+import type { ChangeSet } from '../state/change-set.ts';
+import type { Row } from '../state/tables.ts';
+import type { RecordedName } from '../mention-names.ts';
+import type { Outcome } from './decide.ts';
+import type { PreparedMention } from './prepare.ts';
+
+export interface Applied {
+  mention: Row;
+  counterpartyId: number | null;
+  reviewItemId: number | null;
+  createdCounterparty: boolean;
+}
+
+function nameKindOf(prepared: PreparedMention): NameKind {
+  return prepared.analysis.legalForm ? 'legal' : 'observed';
+}
+
+/** Identifiers of the mention that the counterparty does not hold yet; a strong one held elsewhere is noted. */
+async function addMentionIdentifiers(cs: ChangeSet, counterpartyId: number, prepared: PreparedMention, mentionId: number, confirmedBy: string | null, at: Date): Promise<string[]> {
+  const notes: string[] = [];
+  for (const identifier of prepared.identifiers) {
+    try {
+      await addIdentifierRow(cs, counterpartyId, identifier, { source: prepared.input.source, mentionId, confirmedBy: isStrongScheme(identifier.scheme) ? confirmedBy : null }, at);
+    } catch (error) {
+      if (error instanceof RegisterError && error.code === 'IDENTIFIER_TAKEN') notes.push(error.message);
+      else throw error;
+    }
+  }
+  return notes;
+}
+
+export async function applyOutcome(
+  cs: ChangeSet,
+  prepared: PreparedMention,
+  outcome: Outcome,
+  existing: Row | undefined,
+  extra: { contractId: number | null; at: Date },
+): Promise<Applied> {
+  const at = extra.at;
+  const iso = at.toISOString();
+  let counterpartyId: number | null = null;
+  let created = false;
+  let recordedName: RecordedName | null = null;
+  if (outcome.status === 'linked' || outcome.status === 'review') {
+    await lockActive(cs, [outcome.counterpartyId as number]);
+    counterpartyId = survivorFor(cs, outcome.counterpartyId as number);
+  }
+  if (outcome.status === 'new') {
+    const kind = prepared.analysis.kind === 'person' ? 'person' : prepared.analysis.kind === 'organisation' ? 'organisation' : 'unknown';
+    const cp = await createCounterpartyRow(cs, { name: prepared.text, kind, jurisdiction: prepared.input.country ?? null, at });
+    counterpartyId = cp.id as number;
+    created = true;
+  }
+  const values: Row = {
+    source: prepared.input.source,
+    external_id: prepared.input.externalId,
+    text: prepared.text,
+    content_hash: prepared.contentHash,
+    contract_source: prepared.input.contract?.source ?? null,
+    contract_external_id: prepared.input.contract?.externalId ?? null,
+    contract_id: extra.contractId,
+    role: prepared.input.role ?? null,
+    country: prepared.input.country ?? null,
+    address: prepared.input.address ?? null,
+    identifiers: prepared.identifiers,
+    status: outcome.status,
+    counterparty_id: outcome.status === 'linked' || outcome.status === 'new' ? counterpartyId : null,
+    own_entity_id: outcome.status === 'own_entity' ? (outcome.ownEntityId ?? null) : null,
+    score: outcome.score,
+    evidence: { ...outcome.evidence, recordedName: null },
+    confirmed_by: null,
+    updated_at: iso,
+  };
+  const mention = existing
+    ? await cs.update('mention', existing.id as number, values)
+    : await cs.insert('mention', { ...values, created_at: iso });
+  const mentionId = mention.id as number;
+  let reviewItemId: number | null = null;
+  if ((outcome.status === 'linked' || outcome.status === 'new') && counterpartyId !== null) {
+    const confirmedBy = outcome.confirmedByIdentifier ? `identifier:${outcome.confirmedByIdentifier}` : null;
+    if (outcome.recordName) {
+      recordedName = { name: prepared.text, kind: nameKindOf(prepared) };
+      await addNameSighting(cs, counterpartyId, { ...recordedName, source: prepared.input.source, mentionId, contractId: extra.contractId, confirmedBy }, at);
+    }
+    if (created) {
+      for (const alias of prepared.analysis.aliases) {
+        await addNameSighting(cs, counterpartyId, { name: alias.name, kind: alias.kind, source: prepared.input.source, mentionId, contractId: extra.contractId }, at);
+      }
+    }
+    const notes = await addMentionIdentifiers(cs, counterpartyId, prepared, mentionId, confirmedBy, at);
+    await cs.update('mention', mentionId, { evidence: { ...outcome.evidence, recordedName, ...(notes.length ? { identifierConflicts: notes } : {}) } });
+    await touchCounterparty(cs, counterpartyId, at);
+  }
+  if (outcome.status === 'review' && counterpartyId !== null) {
+    const item = await cs.insert('review_item', {
+      kind: 'mention_link',
+      mention_id: mentionId,
+      left_counterparty_id: null,
+      right_counterparty_id: counterpartyId,
+      score: outcome.score,
+      evidence: outcome.evidence,
+      status: 'open',
+      decision: null,
+      decided_by: null,
+      decided_at: null,
+      reason: null,
+      created_at: iso,
+    });
+    reviewItemId = item.id as number;
+  }
+  return { mention: await cs.require('mention', mentionId), counterpartyId, reviewItemId, createdCounterparty: created };
+}
+
+/** The history event type for a mention's outcome (see docs/register.md, "Events of resolution"). */
+export function eventTypeFor(previous: Row | undefined, applied: Applied, textChanged: boolean): HistoryEventType {
+  if (textChanged) return 'mention_changed';
+  if (applied.createdCounterparty) return 'created';
+  const before = (previous?.counterparty_id as number | null | undefined) ?? null;
+  const after = (applied.mention.counterparty_id as number | null) ?? null;
+  if (after !== null && after !== before) return 'linked';
+  if (before !== null && after === null) return 'unlinked';
+  return previous ? 'mention_changed' : 'created';
+}

@@ -1,0 +1,198 @@
+/**
+ * The decision for one mention, read-only: contract terms first, then our own entities, then the register.
+ *
+ *   not_a_party      the name analysis (or the contract) says it names no party
+ *   unbound_term     a pronoun or role word that its contract does not bind (or whose contract has not arrived)
+ *   collective_term  a term of the contract for a set of parties ("the Parties")
+ *   own_entity       one of our own legal entities (scored like a counterparty, linked at linkAt)
+ *   linked           a decisive strong identifier, or the best candidate at or above linkAt and unambiguous
+ *   review           the best candidate between newAt and linkAt, or two different candidates both above linkAt
+ *   new              nothing above newAt: a new counterparty
+ */
+import { resolveInContract, type ParsedContract } from '../../../resolvers/terms/index.ts';
+import type { MatchModel } from '../../../resolvers/score/index.ts';
+import { scorePair } from '../../../resolvers/score/index.ts';
+import { isStrongScheme, type Identifier, type ResolutionStatus } from '../../../resolvers/vocabulary.ts';
+import type { Queryable } from '../../../db/queries/util.ts';
+import { listOwnEntities } from '../../../db/queries/own-entities.ts';
+import { cannotLinksOf } from '../../../db/queries/review.ts';
+import { survivorsOf } from '../../../db/queries/counterparties.ts';
+import { analyse } from '../matching/analysis.ts';
+import { idfFor } from '../matching/idf.ts';
+import { jsonScore, probeRecord, scoredCandidates, type Probe, type ScoredCandidate } from '../matching/candidates.ts';
+import type { PreparedMention } from './prepare.ts';
+
+export interface ContractContext {
+  contractId: number;
+  parsed: ParsedContract;
+  /** Mention id of each party, by position. */
+  partyMentions: Map<number, number>;
+}
+
+export interface PartyContext {
+  contractId: number;
+  position: number;
+  ownEntity: boolean;
+}
+
+export interface Outcome {
+  status: Extract<ResolutionStatus, 'linked' | 'new' | 'review' | 'own_entity' | 'not_a_party' | 'unbound_term' | 'collective_term'>;
+  counterpartyId?: number;
+  ownEntityId?: number;
+  score: number | null;
+  /** The explanation kept with the mention and answered to the caller. */
+  evidence: Record<string, unknown>;
+  /** Link through a strong identifier: the name is confirmed by it (canonical-value rule 1). */
+  confirmedByIdentifier?: string;
+  /** The mention's own name is recorded on the counterparty (false for terms bound through a contract). */
+  recordName: boolean;
+}
+
+function summaryOf(c: ScoredCandidate) {
+  return { counterpartyId: c.counterpartyId, name: c.canonicalName, matchedName: c.matchedName, score: jsonScore(c.score) };
+}
+
+async function ownEntityMatch(db: Queryable, probe: Probe, model: MatchModel): Promise<{ id: number; name: string; score: number } | undefined> {
+  const own = await listOwnEntities(db);
+  if (own.length === 0) return undefined;
+  const idf = await idfFor(db, probe.analysis.tokens);
+  let best: { id: number; name: string; score: number } | undefined;
+  for (const entity of own) {
+    const record = {
+      id: `own:${entity.id}`,
+      analysis: analyse(entity.name, entity.country),
+      ...(entity.country ? { country: entity.country } : {}),
+      identifiers: entity.identifiers as Identifier[],
+    };
+    const pair = scorePair(probeRecord(probe), record, model, idf);
+    if (pair.score >= model.linkAt && (!best || pair.score > best.score)) best = { id: entity.id, name: entity.name, score: pair.score };
+  }
+  return best;
+}
+
+/** Counterparties this mention must not join: mention-level cannot-links, followed to their survivors. */
+async function excludedFor(db: Queryable, mentionId: number | null): Promise<Set<number>> {
+  if (mentionId === null) return new Set();
+  const links = (await cannotLinksOf(db, [], mentionId)).filter((l) => l.mentionId === mentionId);
+  const survivors = await survivorsOf(db, links.map((l) => l.counterpartyId));
+  return new Set(links.map((l) => survivors.get(l.counterpartyId) ?? l.counterpartyId));
+}
+
+export async function decide(
+  db: Queryable,
+  prepared: PreparedMention,
+  model: MatchModel,
+  context: { mentionId: number | null; contract: ContractContext | null; party: PartyContext | null; contractAwaited: boolean },
+): Promise<Outcome> {
+  const base = { thresholds: { linkAt: model.linkAt, newAt: model.newAt } };
+  let probe: Probe = { analysis: prepared.analysis, country: prepared.input.country ?? null, identifiers: prepared.identifiers };
+  let via = 'register';
+  let term: string | undefined;
+
+  if (!context.party) {
+    if (context.contract) {
+      const r = resolveInContract(context.contract.parsed, prepared.text);
+      if (r.status === 'collective_term' || r.status === 'unbound_term' || r.status === 'not_a_party') {
+        return { status: r.status, score: null, recordName: false, evidence: { ...base, summary: r.explanation, via: 'contract', term: r.term ?? null } };
+      }
+      if (r.party) {
+        const partyMentionId = context.contract.partyMentions.get(r.party.index);
+        const party = partyMentionId === undefined
+          ? undefined
+          : await db.selectFrom('mention').select(['status', 'counterparty_id', 'own_entity_id']).where('id', '=', partyMentionId).executeTakeFirst();
+        const evidence = { ...base, summary: r.explanation, via: 'defined_term', term: r.term ?? null, contractId: context.contract.contractId, partyMentionId: partyMentionId ?? null };
+        if (party?.status === 'own_entity' && party.own_entity_id !== null) {
+          return { status: 'own_entity', ownEntityId: Number(party.own_entity_id), score: null, recordName: false, evidence };
+        }
+        if ((party?.status === 'linked' || party?.status === 'new') && party.counterparty_id !== null) {
+          return { status: 'linked', counterpartyId: Number(party.counterparty_id), score: null, recordName: r.status === 'match', evidence };
+        }
+        // The party itself is not settled yet: match the party's own name against the register instead.
+        const partyRecord = context.contract.parsed.parties[r.party.index];
+        if (partyRecord) {
+          probe = {
+            analysis: analyse(partyRecord.name, partyRecord.jurisdiction ?? prepared.input.country),
+            country: partyRecord.jurisdiction ?? prepared.input.country ?? null,
+            identifiers: prepared.identifiers,
+          };
+          via = 'defined_term_party_name';
+          term = r.term;
+        }
+      }
+    } else if (prepared.analysis.partyStatus === 'needs_binding') {
+      const summary = context.contractAwaited
+        ? `"${prepared.text}" needs its contract to bind it, and that contract has not arrived yet; it is resolved again when it does`
+        : `"${prepared.text}" is a pronoun or role word and no contract was named to bind it`;
+      return { status: 'unbound_term', score: null, recordName: false, evidence: { ...base, summary, via: 'analysis' } };
+    }
+  }
+  if (prepared.analysis.partyStatus === 'not_a_party' && via === 'register') {
+    return { status: 'not_a_party', score: null, recordName: false, evidence: { ...base, summary: `"${prepared.text}" does not name a party (name analysis)`, via: 'analysis' } };
+  }
+
+  const own = await ownEntityMatch(db, probe, model);
+  if (own || context.party?.ownEntity) {
+    if (own) {
+      return {
+        status: 'own_entity',
+        ownEntityId: own.id,
+        score: jsonScore(own.score),
+        recordName: false,
+        evidence: { ...base, summary: `"${prepared.text}" is our own entity ${own.name}`, via: 'own_entities' },
+      };
+    }
+  }
+
+  const exclude = await excludedFor(db, context.mentionId);
+  const candidates = await scoredCandidates(db, probe, model, exclude);
+  const top = candidates.slice(0, 5).map(summaryOf);
+  const best = candidates.find((c) => c.score !== -Infinity);
+  const common = { ...base, via, ...(term ? { term } : {}), candidates: top };
+  if (!best || best.score <= model.newAt) {
+    return {
+      status: 'new',
+      score: best ? jsonScore(best.score) : null,
+      recordName: true,
+      evidence: {
+        ...common,
+        summary: best ? `best candidate ${best.canonicalName} scored ${jsonScore(best.score)}, at or below newAt ${model.newAt}: a new counterparty` : 'no candidate in the register: a new counterparty',
+        features: best?.pair.explanation ?? [],
+        identifierNotes: best?.pair.identifierNotes ?? [],
+        ignoredIdentifiers: prepared.ignoredIdentifiers,
+      },
+      confirmedByIdentifier: prepared.identifiers.find((i) => isStrongScheme(i.scheme))?.scheme,
+    };
+  }
+  const detail = {
+    ...common,
+    matchedName: best.matchedName,
+    features: best.pair.explanation,
+    identifierNotes: best.pair.identifierNotes,
+    override: best.pair.override,
+    ignoredIdentifiers: prepared.ignoredIdentifiers,
+  };
+  if (best.pair.override === 'decisive_identifier') {
+    return {
+      status: 'linked',
+      counterpartyId: best.counterpartyId,
+      score: jsonScore(best.score),
+      recordName: true,
+      confirmedByIdentifier: 'identifier',
+      evidence: { ...detail, summary: `a strong identifier equals that of ${best.canonicalName}: ${best.pair.identifierNotes.join('; ')}` },
+    };
+  }
+  const rival = candidates.find((c) => c !== best && c.counterpartyId !== best.counterpartyId && c.score >= model.linkAt);
+  if (best.score >= model.linkAt && !rival) {
+    return {
+      status: 'linked',
+      counterpartyId: best.counterpartyId,
+      score: jsonScore(best.score),
+      recordName: true,
+      evidence: { ...detail, summary: `"${prepared.text}" matches ${best.canonicalName} with score ${jsonScore(best.score)} (linkAt ${model.linkAt})` },
+    };
+  }
+  const why = rival
+    ? `two counterparties score at or above linkAt (${best.canonicalName}, ${rival.canonicalName}): a person decides`
+    : `best candidate ${best.canonicalName} scored ${jsonScore(best.score)}, between newAt ${model.newAt} and linkAt ${model.linkAt}: a person decides`;
+  return { status: 'review', counterpartyId: best.counterpartyId, score: jsonScore(best.score), recordName: false, evidence: { ...detail, summary: why } };
+}
