@@ -45,17 +45,17 @@ export interface NameMix {
 export const DEFAULT_MIX: NameMix = {
   variantsPerEntity: [0.3, 0.25, 0.2, 0.13, 0.07, 0.05],
   kinds: {
-    legal_form: 0.18,
+    legal_form: 0.2,
     punctuation: 0.08,
     case: 0.08,
-    keyboard_typo: 0.16,
+    keyboard_typo: 0.18,
     ocr: 0.06,
     phonetic: 0.08,
     abbreviation: 0.1,
     token_drop: 0.1,
     token_swap: 0.05,
     whitespace: 0.05,
-    diacritics: 0.06,
+    diacritics: 0.02,
   },
   secondCorruption: 0.2,
   sibling: 0.03,
@@ -91,7 +91,8 @@ export function* generateNames(count: number, seed: number, mix: NameMix = DEFAU
   let coreIndex = 0;
   let previous: InventedOrganisation | undefined;
   while (emitted + window.length < count) {
-    const sibling = previous && rnd.chance(mix.sibling) ? siblingOf(previous, entityIndex, rnd) : undefined;
+    // Siblings of siblings could repeat the first organisation's name exactly: only originals get siblings.
+    const sibling = previous && !previous.siblingOf && rnd.chance(mix.sibling) ? siblingOf(previous, entityIndex, rnd) : undefined;
     const org = sibling ?? inventOrganisation(coreOf(coreIndex++), entityIndex, rnd);
     entityIndex++;
     previous = org;
@@ -164,8 +165,7 @@ function siblingOf(org: InventedOrganisation, index: number, rnd: Random): Inven
     const family = rnd.pick(others);
     return { entityId: entityIdOf(index), country: org.country, siblingOf: org.entityId, parts: { ...org.parts, form: family.canonical, family } };
   }
-  let country = pickJurisdiction(rnd);
-  for (let tries = 0; country === org.country && tries < 5; tries++) country = pickJurisdiction(rnd);
+  const country = rnd.pick(JURISDICTIONS.filter((j) => countryOf(j.code) !== countryOf(org.country))).code;
   const family = LEGAL_FORMS[countryOf(country)]![0]!;
   return { entityId: entityIdOf(index), country, siblingOf: org.entityId, parts: { ...org.parts, form: family.canonical, family } };
 }
