@@ -9,6 +9,7 @@ import evaluate from './evaluate.ts';
 import serve from './serve.ts';
 import migrate from './migrate.ts';
 import demo from './demo.ts';
+import contract from './contract.ts';
 
 export const COMMANDS: Array<(program: Command) => void> = [
   analyse,
@@ -17,4 +18,5 @@ export const COMMANDS: Array<(program: Command) => void> = [
   serve,
   migrate,
   demo,
+  contract,
 ];
