@@ -96,7 +96,7 @@ function parse(value: string): Parsed | string {
   let suffix = match[2]!.toUpperCase();
   let after = typeIndex + consumed + 1;
   // A one- or two-letter suffix written apart ("HRB 1234 B").
-  if (suffix === '' && after < tokens.length && /^[A-Z]{1,2}$/.test(tokens[after]!)) {
+  if (suffix === '' && after < tokens.length && /^[A-Z]{1,2}$/.test(tokens[after]!) && !COURT_NOISE.has(tokens[after]!.toLowerCase())) {
     suffix = tokens[after]!;
     after++;
   }
