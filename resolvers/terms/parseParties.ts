@@ -28,6 +28,8 @@ import type { ContractIdentifier, ContractParty, ParsedContract, ParseOptions } 
 const MAX_DESCRIPTION = 800;
 /** How far after a definition a trailing descriptive phrase may run ("…("Acme"), a company incorporated…"). */
 const TRAILING_WINDOW = 400;
+/** No real contract has more parties; the bound keeps adversarial input linear. Extra names are reported. */
+export const MAX_PARTIES = 500;
 
 interface Draft {
   /** Where the name first appears: parties are reported in text order. */
@@ -53,6 +55,10 @@ class Collector {
   readonly notParties: string[] = [];
   /** The last party came from a parties clause: the next one in the list inherits that context. */
   inClause = false;
+  /** Names beyond MAX_PARTIES, counted for the warning. */
+  overflow = 0;
+  private readonly byNormalised = new Map<string, Draft>();
+  private readonly byCore = new Map<string, Draft[]>();
 
   constructor(readonly text: string) {}
 
@@ -64,7 +70,7 @@ class Collector {
     if (!readsAsName(name, analysis)) return null;
     const description = `${this.text.slice(located.descStart, Math.min(located.descEnd, located.descStart + MAX_DESCRIPTION))} ${extraDescription}`.trim();
     if (!located.partyCue && !hasSupport(analysis, description)) return null;
-    const existing = this.drafts.find((d) => sameEntityName(d.analysis, analysis));
+    const existing = this.byNormalised.get(analysis.normalised) ?? (this.byCore.get(analysis.core) ?? []).find((d) => sameEntityName(d.analysis, analysis));
     if (existing !== undefined) {
       const d = existing;
       for (const t of terms) if (!d.terms.includes(t)) d.terms.push(t);
@@ -72,9 +78,17 @@ class Collector {
       if (d.label === undefined && label !== undefined) d.label = label;
       return d;
     }
+    if (this.drafts.length >= MAX_PARTIES) {
+      this.overflow++;
+      return null;
+    }
     const draft: Draft = { position: located.nameStart, name, fullName, terms: [...terms], descriptions: description.length > 0 ? [description] : [], analysis };
     if (label !== undefined) draft.label = label;
     this.drafts.push(draft);
+    if (!this.byNormalised.has(analysis.normalised)) this.byNormalised.set(analysis.normalised, draft);
+    const sameCore = this.byCore.get(analysis.core);
+    if (sameCore === undefined) this.byCore.set(analysis.core, [draft]);
+    else sameCore.push(draft);
     return draft;
   }
 
@@ -129,7 +143,7 @@ function handleDefinition(c: Collector, def: Definition, prevEnd: number, nextSt
       }
     }
     if (added === null) for (const t of partyTerms) c.noteNotParty(t.text);
-    else members = [...c.drafts];
+    else if (collective.length > 0) members = [...c.drafts];
   } else if (collective.length > 0) {
     members = collectiveMembers(c, prevEnd, def.start);
   }
@@ -250,6 +264,7 @@ export function parseParties(text: string, options: ParseOptions = {}): ParsedCo
   }));
   const notParties = c.notParties.filter((n) => !boundKeys.has(termKey(n)));
   const result: ParsedContract = { parties, collectiveTerms, notParties };
+  if (c.overflow > 0) result.warnings = [`${c.overflow} more party names were found beyond the limit of ${MAX_PARTIES} parties and are not reported`];
   if (parties.length === 0) {
     result.reason = { code: 'no_parties_found', message: 'no party was recognised: no parties clause, defined party term or signature block' };
   }

@@ -49,6 +49,8 @@ export interface ParsedContract {
   collectiveTerms: CollectiveTerm[];
   /** Terms and names seen that are not parties: `this "Agreement"`, signers' names and titles. */
   notParties: string[];
+  /** Present when something was left out (more than MAX_PARTIES parties). */
+  warnings?: string[];
   /** Present only when `parties` is empty: why. */
   reason?: { code: EmptyReason; message: string };
 }
