@@ -18,19 +18,26 @@ import { STRONG_SCHEMES, type Identifier, type IdentifierScheme } from '../vocab
 import { isFreeMailDomain } from './contact.ts';
 import { splitDeRegister } from './deRegister.ts';
 import { normaliseIdentifier } from './normaliseIdentifier.ts';
+import { normaliseAddress } from './address.ts';
 import type { NormaliseOptions } from './types.ts';
 import { sirenFromFrenchVat } from './vat.ts';
 
 export interface IdentifierEvidence {
-  scheme: IdentifierScheme;
+  /** An identifier scheme, or 'address' for a shared postal address (options.addresses). */
+  scheme: IdentifierScheme | 'address';
   value: string;
   label?: string;
   /** Set when the value was derived from another identifier (e.g. the SIREN inside a French VAT number). */
   derivedFrom?: Identifier;
 }
 
+export interface CompareIdentifiersOptions extends NormaliseOptions {
+  /** Postal addresses of the two sides: an equal address (after folding) is weak evidence too. */
+  addresses?: { a?: string | null; b?: string | null };
+}
+
 export interface DifferingIdentifiers {
-  scheme: IdentifierScheme;
+  scheme: IdentifierScheme | 'address';
   a: string[];
   b: string[];
 }
@@ -53,7 +60,7 @@ export interface IdentifierComparison {
 }
 
 interface Side {
-  strong: Map<IdentifierScheme, IdentifierEvidence[]>;
+  strong: Map<IdentifierScheme | 'address', IdentifierEvidence[]>;
   weak: Map<string, IdentifierEvidence>;
 }
 
@@ -65,7 +72,7 @@ function weakKey(e: IdentifierEvidence): string {
 }
 
 function collect(side: 'a' | 'b', identifiers: readonly Identifier[], options: NormaliseOptions, ignored: IgnoredIdentifier[]): Side {
-  const strong = new Map<IdentifierScheme, IdentifierEvidence[]>();
+  const strong = new Map<IdentifierScheme | 'address', IdentifierEvidence[]>();
   const weak = new Map<string, IdentifierEvidence>();
   const addStrong = (e: IdentifierEvidence): void => {
     const list = strong.get(e.scheme) ?? [];
@@ -110,11 +117,16 @@ function describe(e: IdentifierEvidence): string {
 export function compareIdentifiers(
   a: readonly Identifier[],
   b: readonly Identifier[],
-  options: NormaliseOptions = {},
+  options: CompareIdentifiersOptions = {},
 ): IdentifierComparison {
   const ignored: IgnoredIdentifier[] = [];
-  const left = collect('a', a, options, ignored);
-  const right = collect('b', b, options, ignored);
+  const normaliseOptions: NormaliseOptions = options.defaultCountry === undefined ? {} : { defaultCountry: options.defaultCountry };
+  const left = collect('a', a, normaliseOptions, ignored);
+  const right = collect('b', b, normaliseOptions, ignored);
+  const addressA = options.addresses?.a ? normaliseAddress(options.addresses.a) : '';
+  const addressB = options.addresses?.b ? normaliseAddress(options.addresses.b) : '';
+  if (addressA.length > 0) left.weak.set(`address:${addressA}`, { scheme: 'address', value: addressA });
+  if (addressB.length > 0) right.weak.set(`address:${addressB}`, { scheme: 'address', value: addressB });
   const equalStrong: IdentifierEvidence[] = [];
   const differingStrong: DifferingIdentifiers[] = [];
   const explanation: string[] = [];

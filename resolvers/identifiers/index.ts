@@ -3,6 +3,7 @@ export { normaliseIdentifier } from './normaliseIdentifier.ts';
 export {
   compareIdentifiers,
   type IdentifierComparison,
+  type CompareIdentifiersOptions,
   type IdentifierEvidence,
   type DifferingIdentifiers,
   type IgnoredIdentifier,
@@ -27,3 +28,4 @@ export { normaliseVat, frenchVatKey, sirenFromFrenchVat, vatPrefixForCountry, VA
 export { normalisePhone, normaliseEmailDomain, normaliseWebDomain, isFreeMailDomain } from './contact.ts';
 export { FREE_MAIL_DOMAINS } from './freeMailDomains.ts';
 export { normaliseIban } from './iban.ts';
+export { normaliseAddress } from './address.ts';

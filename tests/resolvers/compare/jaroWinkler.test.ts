@@ -115,12 +115,16 @@ describe('agreement with natural (JaroWinklerDistance, natural 8.1.1)', () => {
     expect(naturalJaroWinkler('abcd', 'abce', { dj: 0.5 })).toBeCloseTo(0.5 + 3 * 0.1 * 0.5, 12);
   });
 
+  // fast-check prefers short strings, so lengths are set explicitly: both kernels (|b| ≤ 32 one word, |b| > 32
+  // several words, word boundaries at 32 and 64) must be exercised, which the test below counts.
+  const letters = 'abcdefghijklmnopqrstuvwxyz &.-';
   const smallAlphabet = fc.string({ unit: fc.constantFrom(...'abcde fgh'), maxLength: 70 });
+  const longText = fc.string({ unit: fc.constantFrom(...letters), minLength: 28, maxLength: 100 });
   const anyUnits = fc.string({ unit: 'binary', maxLength: 40 });
   /** A string and an edited copy of it: the near-matches record linkage cares about. */
   const edited = fc
     .tuple(
-      fc.string({ unit: fc.constantFrom(...'abcdefghijklmnopqrstuvwxyz &.-'), minLength: 1, maxLength: 60 }),
+      fc.oneof(fc.string({ unit: fc.constantFrom(...letters), minLength: 1, maxLength: 30 }), longText),
       fc.array(fc.tuple(fc.nat(), fc.constantFrom('delete', 'insert', 'swap', 'replace'), fc.constantFrom(...'aeioux .')), { maxLength: 4 }),
     )
     .map(([base, edits]) => {
@@ -134,14 +138,26 @@ describe('agreement with natural (JaroWinklerDistance, natural 8.1.1)', () => {
       }
       return [base, copy] as [string, string];
     });
-  const pairs = fc.oneof(fc.tuple(smallAlphabet, smallAlphabet), edited, fc.tuple(anyUnits, anyUnits));
+  const pairs = fc.oneof(
+    fc.tuple(smallAlphabet, smallAlphabet),
+    edited,
+    edited.map(([x, y]) => [y, x] as [string, string]),
+    fc.tuple(longText, longText),
+    fc.tuple(anyUnits, anyUnits),
+  );
 
-  it('agrees to 1e-9 on 100,000 random pairs', () => {
+  it('agrees to 1e-9 on 100,000 random pairs, through both kernels', () => {
+    let long = 0;
+    let beyond64 = 0;
     fc.assert(
       fc.property(pairs, ([a, b]) => {
+        if (b.length > 32) long++;
+        if (b.length > 64) beyond64++;
         expect(Math.abs(jaroWinkler(a, b) - naturalJaroWinkler(a, b))).toBeLessThanOrEqual(1e-9);
       }),
       { numRuns: 100_000, seed: 20031 },
     );
+    expect(long).toBeGreaterThan(20_000);
+    expect(beyond64).toBeGreaterThan(1_000);
   });
 });

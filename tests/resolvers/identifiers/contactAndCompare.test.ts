@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { IDENTIFIER_SCHEMES, STRONG_SCHEMES } from '../../../resolvers/vocabulary.ts';
-import { compareIdentifiers, FREE_MAIL_DOMAINS, isFreeMailDomain, normaliseIdentifier } from '../../../resolvers/identifiers/index.ts';
+import { compareIdentifiers, FREE_MAIL_DOMAINS, isFreeMailDomain, normaliseAddress, normaliseIdentifier } from '../../../resolvers/identifiers/index.ts';
 
 const norm = (scheme: string, value: string, defaultCountry?: string): string => {
   const r = normaliseIdentifier({ scheme, value }, { defaultCountry });
@@ -173,6 +173,16 @@ describe('compareIdentifiers', () => {
     ]);
     expect(r.explanation.filter((line) => line.includes('review only'))).toHaveLength(3);
     expect(r.explanation.join('\n')).toMatch(/gmail\.com is a free-mail provider/);
+  });
+  it('a shared postal address (folded) is weak evidence too', () => {
+    // Invented addresses.
+    expect(normaliseAddress('12 Harbour Street, Suite 4')).toBe('12 harbour st ste 4');
+    expect(normaliseAddress('Hauptstraße 5')).toBe(normaliseAddress('Hauptstr. 5'));
+    const r = compareIdentifiers([], [], { addresses: { a: '12 Harbour Street, Suite 4', b: '12 harbour st. ste 4' } });
+    expect(r.sharedWeak).toEqual([{ scheme: 'address', value: '12 harbour st ste 4' }]);
+    expect(r.decisive).toBe(false);
+    expect(r.explanation).toEqual(['shared address 12 harbour st ste 4: same or affiliated, review only']);
+    expect(compareIdentifiers([], [], { addresses: { a: '12 Harbour Street', b: '14 Harbour Street' } }).sharedWeak).toEqual([]);
   });
   it('strong schemes are those of the vocabulary', () => {
     expect([...STRONG_SCHEMES]).toContain('lei');
