@@ -1,0 +1,55 @@
+/**
+ * Adversarial 1 MB inputs built to make scanners or regular expressions backtrack: runs of parentheses, quotes,
+ * cue words, signature labels, definitions and names. The ceiling only catches hangs (seconds, generous for a
+ * loaded machine); speed itself is measured in bench/terms.bench.ts.
+ */
+import { describe, expect, it } from 'vitest';
+import { MAX_CONTRACT_BYTES, parseParties } from '../../../resolvers/terms/index.ts';
+
+const HANG_CEILING_MS = 30_000;
+
+function fill(unit: string): string {
+  return unit.repeat(Math.floor((MAX_CONTRACT_BYTES - 16) / new TextEncoder().encode(unit).length));
+}
+
+const INPUTS: Array<[string, string]> = [
+  ['open parentheses', fill('(')],
+  ['empty parenthesis pairs', fill('()')],
+  ['straight quotes', fill('"')],
+  ['single quotes and letters', fill("'a")],
+  ['one definition repeated', fill('Acme Ltd ("A") ')],
+  ['a parties clause repeated', fill('between Acme Ltd, a Delaware corporation (the "Licensee"), and ')],
+  ['"between" repeated', fill('between ')],
+  ['signature labels', fill('By: x\n')],
+  ['signature blocks', fill('ACME LIMITED\nBy: ___\nName: A B\nTitle: C\n')],
+  ['collective cues', fill('each "a" ')],
+  ['hereinafter chains', fill('hereinafter "X" or "Y" ')],
+  ['capitalised words, no punctuation', fill('Acme ')],
+  ['numbering', fill('(1) ')],
+  ['nested definitions', fill('(a "b" ')],
+  ['alias cues', fill('Acme Ltd d/b/a ')],
+  ['clause openers', fill('BETWEEN:\n(1) A\n')],
+  ['unquoted terms', fill('Acme Ltd (Acme)\n')],
+  ['on-behalf lines', fill('for and on behalf of ACME LTD\n')],
+  ['identifier cues', fill('company number 1 HRB RCS ACN ')],
+  ['one line without spaces', fill('x')],
+];
+
+describe('parseParties on adversarial 1 MB inputs', () => {
+  it.each(INPUTS)('%s: finishes well under the hang ceiling', (_label, text) => {
+    expect(new TextEncoder().encode(text).length).toBeLessThanOrEqual(MAX_CONTRACT_BYTES);
+    expect(text.length).toBeGreaterThan(MAX_CONTRACT_BYTES / 8);
+    const started = Date.now();
+    const parsed = parseParties(text);
+    expect(Date.now() - started).toBeLessThan(HANG_CEILING_MS);
+    for (const p of parsed.parties) expect(text.includes(p.name)).toBe(true);
+  }, HANG_CEILING_MS * 2);
+
+  it('many distinct parties: capped at 500 with a warning, not dropped silently', () => {
+    let text = '';
+    for (let i = 0; text.length < 200_000; i++) text += `between Acme${i} Ltd ("A${i}") and `;
+    const parsed = parseParties(text);
+    expect(parsed.parties).toHaveLength(500);
+    expect(parsed.warnings?.[0]).toContain('limit of 500');
+  }, HANG_CEILING_MS * 2);
+});
