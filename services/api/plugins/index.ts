@@ -5,6 +5,10 @@
  * Open routes (open-routes.ts) must stay reachable without a key.
  */
 import type { AppPlugin } from '../types.ts';
+import { authPlugin } from '../auth/plugin.ts';
+import { idempotencyPlugin } from '../auth/idempotency.ts';
 
 export const APP_PLUGINS: AppPlugin[] = [
+  authPlugin,
+  idempotencyPlugin,
 ];

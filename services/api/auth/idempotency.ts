@@ -1,0 +1,164 @@
+/**
+ * Idempotency-Key on POST (after the IETF httpapi Idempotency-Key header draft): the first request with a key
+ * does the work and its answer is stored in the database (idempotency_record), so that any instance answers a
+ * retry with the same body with that first answer (header `Idempotent-Replayed: true`) without doing the work
+ * again. The same key with another body or route answers 422 IDEMPOTENCY_KEY_REUSED; a retry while the first
+ * is still running answers 409 IDEMPOTENCY_KEY_IN_USE. Keys are scoped to the API key that sent them and kept
+ * 24 hours. A 5xx answer is not stored (the retry runs again: a failed request changed nothing).
+ */
+import { createHash } from 'node:crypto';
+import type { FastifyReply, FastifyRequest } from 'fastify';
+import type { Kysely } from 'kysely';
+import type { Database } from '../../../db/types.ts';
+import { ApiError } from '../errors.ts';
+import type { AppPlugin } from '../types.ts';
+
+export const IDEMPOTENCY_TTL_HOURS = 24;
+/** A first request that left no answer this long ago (its instance died) may be taken over. */
+export const ABANDONED_AFTER_MS = 10 * 60_000;
+const KEY_SHAPE = /^[\x21-\x7e]{1,255}$/;
+
+declare module 'fastify' {
+  interface FastifyRequest {
+    idempotency: { keyId: string; key: string } | null;
+  }
+}
+
+export function bodyHash(method: string, path: string, body: unknown): string {
+  return createHash('sha256').update(JSON.stringify([method, path, body ?? null])).digest('hex');
+}
+
+export interface StoredAnswer {
+  statusCode: number;
+  contentType: string | null;
+  headers: Record<string, string>;
+  body: string;
+}
+
+export type ClaimResult = { kind: 'claimed' } | { kind: 'replay'; answer: StoredAnswer };
+
+/** Claims `key` for this request, or answers what to do instead (replay, or an error). */
+export async function claimIdempotencyKey(
+  db: Kysely<Database>,
+  input: { keyId: string; key: string; method: string; path: string; hash: string },
+): Promise<ClaimResult> {
+  if (Math.random() < 0.01) {
+    await db.deleteFrom('idempotency_record').where('created_at', '<', new Date(Date.now() - IDEMPOTENCY_TTL_HOURS * 3_600_000)).execute();
+  }
+  const inserted = await db
+    .insertInto('idempotency_record')
+    .values({ key_id: input.keyId, idempotency_key: input.key, method: input.method, path: input.path, body_hash: input.hash, created_at: new Date() })
+    .onConflict((oc) => oc.columns(['key_id', 'idempotency_key']).doNothing())
+    .returning('key_id')
+    .executeTakeFirst();
+  if (inserted) return { kind: 'claimed' };
+  const row = await db
+    .selectFrom('idempotency_record')
+    .selectAll()
+    .where('key_id', '=', input.keyId)
+    .where('idempotency_key', '=', input.key)
+    .executeTakeFirst();
+  if (!row) return claimIdempotencyKey(db, input); // expired and deleted meanwhile
+  if (row.method !== input.method || row.path !== input.path || row.body_hash !== input.hash) {
+    throw new ApiError(
+      'IDEMPOTENCY_KEY_REUSED',
+      `Idempotency-Key ${JSON.stringify(input.key)} was first used for ${row.method} ${row.path} with another body; use a new key for a new request`,
+      { extensions: { firstUsedFor: `${row.method} ${row.path}` } },
+    );
+  }
+  if (row.status_code === null || row.response === null) {
+    const age = Date.now() - new Date(row.created_at).getTime();
+    if (age > ABANDONED_AFTER_MS) {
+      const taken = await db
+        .updateTable('idempotency_record')
+        .set({ created_at: new Date() })
+        .where('key_id', '=', input.keyId)
+        .where('idempotency_key', '=', input.key)
+        .where('status_code', 'is', null)
+        .where('created_at', '=', row.created_at)
+        .executeTakeFirst();
+      if (Number(taken.numUpdatedRows) === 1) return { kind: 'claimed' };
+    }
+    throw new ApiError('IDEMPOTENCY_KEY_IN_USE', `a request with Idempotency-Key ${JSON.stringify(input.key)} is still being processed; retry in a few seconds`, {
+      headers: { 'retry-after': '2' },
+    });
+  }
+  const stored = (typeof row.response === 'string' ? JSON.parse(row.response) : row.response) as StoredAnswer;
+  return { kind: 'replay', answer: stored };
+}
+
+export async function storeIdempotentAnswer(db: Kysely<Database>, claim: { keyId: string; key: string }, answer: StoredAnswer): Promise<void> {
+  await db
+    .updateTable('idempotency_record')
+    .set({ status_code: answer.statusCode, response: JSON.stringify(answer) })
+    .where('key_id', '=', claim.keyId)
+    .where('idempotency_key', '=', claim.key)
+    .execute();
+}
+
+export async function releaseIdempotencyKey(db: Kysely<Database>, claim: { keyId: string; key: string }): Promise<void> {
+  await db.deleteFrom('idempotency_record').where('key_id', '=', claim.keyId).where('idempotency_key', '=', claim.key).where('status_code', 'is', null).execute();
+}
+
+export function sendStoredAnswer(reply: FastifyReply, answer: StoredAnswer): FastifyReply {
+  for (const [name, value] of Object.entries(answer.headers)) reply.header(name, value);
+  reply.header('idempotent-replayed', 'true');
+  if (answer.contentType) reply.type(answer.contentType);
+  return reply.code(answer.statusCode).send(answer.body);
+}
+
+const KEPT_HEADERS = ['location', 'etag'];
+
+function isReadable(value: unknown): boolean {
+  return typeof value === 'object' && value !== null && typeof (value as { pipe?: unknown }).pipe === 'function';
+}
+
+/** The Idempotency-Key header of a request, checked; undefined when absent. */
+export function idempotencyKeyOf(request: FastifyRequest): string | undefined {
+  const raw = request.headers['idempotency-key'];
+  if (raw === undefined) return undefined;
+  const value = Array.isArray(raw) ? raw[0] : raw;
+  // The draft sends the key as a structured-field string: a quoted value is accepted with or without quotes.
+  const key = value?.startsWith('"') && value.endsWith('"') && value.length >= 2 ? value.slice(1, -1) : value;
+  if (!key || !KEY_SHAPE.test(key)) {
+    throw new ApiError('VALIDATION_FAILED', 'Idempotency-Key must be 1 to 255 visible ASCII characters (a UUID is a good choice)', {
+      errors: [{ pointer: '/idempotency-key', message: 'must be 1 to 255 visible ASCII characters', in: 'header' }],
+    });
+  }
+  return key;
+}
+
+export const idempotencyPlugin: AppPlugin = (app, deps) => {
+  app.decorateRequest('idempotency', null);
+  app.addHook('preHandler', async (request, reply) => {
+    if (request.method !== 'POST' || !request.apiKey) return;
+    const key = idempotencyKeyOf(request);
+    if (key === undefined) return;
+    // A streamed upload (jobs/ingest) is hashed by its route while it is read.
+    if (isReadable(request.body)) return;
+    const path = request.url;
+    const claim = { keyId: request.apiKey.id, key };
+    const result = await claimIdempotencyKey(deps.db, { ...claim, method: request.method, path, hash: bodyHash(request.method, path, request.body) });
+    if (result.kind === 'replay') return sendStoredAnswer(reply, result.answer);
+    request.idempotency = claim;
+  });
+  app.addHook('onSend', async (request, reply, payload) => {
+    const claim = request.idempotency;
+    if (!claim) return payload;
+    request.idempotency = null;
+    if (reply.statusCode >= 500 || isReadable(payload) || reply.getHeader('idempotent-replayed')) {
+      await releaseIdempotencyKey(deps.db, claim);
+      return payload;
+    }
+    const headers: Record<string, string> = {};
+    for (const name of KEPT_HEADERS) {
+      const value = reply.getHeader(name);
+      if (value !== undefined) headers[name] = String(value);
+    }
+    const contentType = reply.getHeader('content-type');
+    const body = typeof payload === 'string' ? payload : Buffer.isBuffer(payload) ? payload.toString('utf8') : payload === null || payload === undefined ? '' : JSON.stringify(payload);
+    await storeIdempotentAnswer(deps.db, claim, { statusCode: reply.statusCode, contentType: contentType === undefined ? null : String(contentType), headers, body });
+    return payload;
+  });
+};
+

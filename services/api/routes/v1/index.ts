@@ -1,0 +1,8 @@
+/** Every /v1 route plugin, in registration order (each runs in its own fastify scope). */
+import type { RoutePlugin } from '../../types.ts';
+import { counterpartyRoutes } from './counterparties.ts';
+import { historyRoutes } from './history.ts';
+import { keyRoutes } from './keys-me.ts';
+import { upkeepRoutes } from './upkeep.ts';
+
+export const V1_ROUTES: RoutePlugin[] = [keyRoutes, counterpartyRoutes, historyRoutes, upkeepRoutes];
