@@ -95,8 +95,10 @@ export interface ResolveWithinOptions {
   party?: PartyContext;
   /** Why the mention is resolved again (kept in the event's details). */
   cause?: 'text_changed' | 'contract_arrived' | 'reresolve' | 'contract_changed';
-  /** Resolve again even when the content is unchanged (contract arrived, reresolve). */
+  /** Resolve again even when the content is unchanged (contract arrived, reresolve); the stored hash is kept. */
   force?: boolean;
+  /** Runs after the outcome is written and before the event is committed (its ops join the same event). */
+  beforeCommit?: (mentionId: number) => Promise<void>;
 }
 
 /**
@@ -106,11 +108,12 @@ export interface ResolveWithinOptions {
 export async function resolveWithin(
   ctx: RegisterContext,
   cs: ChangeSet,
-  prepared: PreparedMention,
+  preparedInput: PreparedMention,
   who: ActorInput,
   options: ResolveWithinOptions = {},
 ): Promise<ResolveResult> {
   const at = ctx.now();
+  let prepared = preparedInput;
   const found = await cs.trx
     .selectFrom('mention')
     .select(['id', 'content_hash', 'counterparty_id'])
@@ -134,7 +137,9 @@ export async function resolveWithin(
     await closeOpenItemsOfMention(cs, previous.id as number);
     previous = { ...previous };
   }
-  const textChanged = found !== undefined && found.content_hash !== prepared.contentHash;
+  const textChanged = found !== undefined && found.content_hash !== prepared.contentHash && !options.force;
+  // A forced re-resolution keeps the stored content hash: the source's own input is what idempotency compares.
+  if (found && options.force) prepared = { ...prepared, contentHash: found.content_hash };
   const contract = options.party ? null : await contractContextFor(cs, prepared.input.contract);
   const { model, version } = await currentModel(cs.trx);
   const outcome = await decide(cs.trx, prepared, model, {
@@ -149,6 +154,7 @@ export async function resolveWithin(
     contractId: options.party?.contractId ?? contract?.contractId ?? null,
     at,
   });
+  if (options.beforeCommit) await options.beforeCommit(applied.mention.id as number);
   const type = eventTypeFor(previous, applied, textChanged);
   const eventId = await commitEvent(cs, {
     type,

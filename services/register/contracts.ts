@@ -1,0 +1,171 @@
+/**
+ * Contracts: store one (source, external id, title, text), read its parties and defined terms with
+ * resolvers/terms, resolve each party into the register (as a mention of source `contract:<source>`), keep each
+ * party's role and terms, then resolve again the mentions that named this contract before it arrived.
+ * All in one transaction: one `created` event for the contract, one event per party mention.
+ */
+import { createHash } from 'node:crypto';
+import { checkContractText, parseParties, type ParsedContract } from '../../resolvers/terms/index.ts';
+import type { ActorInput, RegisterContext } from './context.ts';
+import { RegisterError, invalid } from './errors.ts';
+import { commitEvent } from './history/commit.ts';
+import type { ChangeSet } from './state/change-set.ts';
+import { write } from './transaction.ts';
+import { prepareMention } from './resolve/prepare.ts';
+import { resolveWithin, type ResolveResult } from './resolve/resolve-mention.ts';
+import { mentionsAwaitingContract } from '../../db/queries/mentions.ts';
+import { listOwnEntities } from '../../db/queries/own-entities.ts';
+import { getContract, type ContractView } from '../../db/queries/contracts.ts';
+import { analyse } from './matching/analysis.ts';
+import { canonicalRow } from './state/tables.ts';
+import type { MentionInput } from '../../resolvers/vocabulary.ts';
+
+export interface ContractInput {
+  source: string;
+  externalId: string;
+  title?: string;
+  text: string;
+}
+
+export interface StoreContractResult {
+  contractId: number;
+  /** True when the same contract with the same text was stored before: nothing was done. */
+  alreadyStored: boolean;
+  parties: (ResolveResult & { position: number; role: string | null; terms: string[] })[];
+  /** Mentions that waited for this contract and were resolved again. */
+  reresolved: ResolveResult[];
+  contract: ContractView;
+}
+
+export const PARTY_SOURCE_PREFIX = 'contract:';
+const MAX_TITLE = 1000;
+
+function check(input: ContractInput): void {
+  for (const field of ['source', 'externalId'] as const) {
+    if (typeof input[field] !== 'string' || input[field].trim() === '') throw invalid(field, 'must be a non-empty string');
+    if (input[field].length > 300) throw invalid(field, 'is longer than 300 characters');
+  }
+  if (input.title !== undefined && (typeof input.title !== 'string' || input.title.length > MAX_TITLE)) {
+    throw invalid('title', `must be a string of at most ${MAX_TITLE} characters`);
+  }
+  if (typeof input.text !== 'string') throw invalid('text', 'must be a string');
+  const problem = checkContractText(input.text);
+  if (problem) throw invalid('text', problem.message);
+}
+
+function partyMention(input: ContractInput, parsed: ParsedContract, index: number): MentionInput {
+  const party = parsed.parties[index]!;
+  return {
+    source: `${PARTY_SOURCE_PREFIX}${input.source}`,
+    externalId: `${input.externalId}#party-${index + 1}`,
+    text: party.name,
+    contract: { source: input.source, externalId: input.externalId },
+    ...(party.role ? { role: party.role } : {}),
+    ...(party.jurisdiction ? { country: party.jurisdiction } : {}),
+    ...(party.address ? { address: party.address.slice(0, 2000) } : {}),
+    identifiers: party.identifiers.filter((i) => !i.problem).map((i) => ({ scheme: i.scheme, value: i.value, ...(i.label ? { label: i.label } : {}) })),
+  };
+}
+
+async function replaceTerms(cs: ChangeSet, contractId: number, parsed: ParsedContract): Promise<void> {
+  const old = await cs.trx.selectFrom('defined_term').select('id').where('contract_id', '=', contractId).orderBy('id').execute();
+  await cs.lock('defined_term', old.map((t) => Number(t.id)));
+  for (const t of old) await cs.delete('defined_term', Number(t.id));
+  const seen = new Set<string>();
+  const add = async (term: string, partyIndex: number | null, collective: boolean) => {
+    const normalised = analyse(term).normalised || term.toLowerCase();
+    if (seen.has(normalised)) return;
+    seen.add(normalised);
+    await cs.insert('defined_term', { contract_id: contractId, term, normalised, party_index: partyIndex, collective, evidence: {} });
+  };
+  for (const [index, party] of parsed.parties.entries()) for (const term of party.terms) await add(term, index, false);
+  for (const c of parsed.collectiveTerms) await add(c.term, null, true);
+}
+
+export async function storeContract(ctx: RegisterContext, input: ContractInput, who: ActorInput): Promise<StoreContractResult> {
+  check(input);
+  const contentHash = createHash('sha256').update(JSON.stringify([input.title ?? null, input.text])).digest('hex');
+  const ownNames = (await listOwnEntities(ctx.db)).map((o) => o.name);
+  const parsed = parseParties(input.text, { ownEntities: ownNames });
+  const prepared = parsed.parties.map((_, i) => prepareMention(partyMention(input, parsed, i), { lenientIdentifiers: true }));
+  return write(ctx, async (cs) => {
+    const at = ctx.now();
+    const iso = at.toISOString();
+    const existing = await cs.trx.selectFrom('contract').select(['id', 'content_hash']).where('source', '=', input.source).where('external_id', '=', input.externalId).executeTakeFirst();
+    if (existing && existing.content_hash === contentHash) {
+      const contract = (await getContract(cs.trx, Number(existing.id)))!;
+      return { contractId: contract.id, alreadyStored: true, parties: [], reresolved: [], contract };
+    }
+    let contractId: number;
+    const values = { title: input.title ?? null, text: input.text, content_hash: contentHash, parsed, status: 'active', updated_at: iso };
+    if (existing) {
+      contractId = Number(existing.id);
+      await cs.require('contract', contractId);
+      await cs.update('contract', contractId, values);
+    } else {
+      const row = await cs.insert('contract', { source: input.source, external_id: input.externalId, ...values, created_at: iso });
+      contractId = row.id as number;
+    }
+    await replaceTerms(cs, contractId, parsed);
+    await commitEvent(cs, {
+      type: existing ? 'mention_changed' : 'created',
+      actor: who.actor,
+      at,
+      reason: who.reason,
+      requestId: who.requestId,
+      details: { entity: 'contract', contractId, source: input.source, externalId: input.externalId, parties: parsed.parties.length },
+    });
+    const parties: StoreContractResult['parties'] = [];
+    for (const [index, p] of prepared.entries()) {
+      const party = parsed.parties[index]!;
+      const keepParty = async (mentionId: number) => {
+        const link = await cs.trx.selectFrom('contract_party').select('id').where('mention_id', '=', mentionId).executeTakeFirst();
+        const row = { contract_id: contractId, mention_id: mentionId, position: index, role: party.role, terms: party.terms };
+        if (link) {
+          await cs.require('contract_party', Number(link.id));
+          await cs.update('contract_party', Number(link.id), row);
+        } else {
+          await cs.insert('contract_party', row);
+        }
+      };
+      const result = await resolveWithin(ctx, cs, p, who, {
+        party: { contractId, position: index, ownEntity: party.ownEntity },
+        cause: existing ? 'contract_changed' : undefined,
+        beforeCommit: keepParty,
+      });
+      if (result.alreadyIngested) {
+        await keepParty(result.mentionId);
+        if (cs.ops.length > 0) {
+          await commitEvent(cs, { type: 'mention_changed', actor: who.actor, at, reason: who.reason, requestId: who.requestId, details: { entity: 'contract_party', contractId, mentionId: result.mentionId, position: index } });
+        }
+      }
+      parties.push({ ...result, position: index, role: party.role, terms: party.terms });
+    }
+    if (!existing && parsed.parties.length === 0 && parsed.reason) {
+      // Kept (nothing is lost), and the caller sees why no party came out.
+    }
+    const reresolved: ResolveResult[] = [];
+    for (const mentionId of await mentionsAwaitingContract(cs.trx, input.source, input.externalId)) {
+      const row = await cs.trx.selectFrom('mention').selectAll().where('id', '=', mentionId).executeTakeFirstOrThrow();
+      const m = canonicalRow('mention', row);
+      if (m.status === 'withdrawn' || m.status === 'set_aside' || m.confirmed_by) continue;
+      const again = prepareMention(
+        {
+          source: m.source as string,
+          externalId: m.external_id as string,
+          text: m.text as string,
+          contract: { source: input.source, externalId: input.externalId },
+          ...(m.role ? { role: m.role as string } : {}),
+          ...(m.country ? { country: m.country as string } : {}),
+          ...(m.address ? { address: m.address as string } : {}),
+          identifiers: m.identifiers as MentionInput['identifiers'],
+        },
+        { lenientIdentifiers: true },
+      );
+      reresolved.push(await resolveWithin(ctx, cs, again, who, { force: true, cause: 'contract_arrived' }));
+    }
+    const contract = await getContract(cs.trx, contractId);
+    if (!contract) throw new RegisterError('CONFLICT', `contract ${contractId} vanished while it was stored`);
+    return { contractId, alreadyStored: false, parties, reresolved, contract };
+  });
+}

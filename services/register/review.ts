@@ -1,0 +1,187 @@
+/**
+ * The review queue. Items show both sides, the score and its explanation. A decision is one history event:
+ *
+ *   mention_link  same      → the mention is linked to the candidate (confirmed by the reviewer)
+ *                 different → cannot-link (mention, candidate); the mention becomes a new counterparty, and a
+ *                             cannot-link (candidate, new counterparty) keeps the two apart in every later
+ *                             resolution, sweep and clustering
+ *   duplicate     same      → the two counterparties are merged (the older survives)
+ *                 different → cannot-link between them
+ *   affiliate     same      → an affiliate_of relation (never a merge)
+ *                 different → cannot-link between them (not affiliated, and not one entity)
+ *
+ * Every decision is also kept as a labelled pair (labelled_pair) for the scorer to learn from.
+ */
+import type { ActorInput, RegisterContext } from './context.ts';
+import { RegisterError, invalid, notFound } from './errors.ts';
+import { commitEvent } from './history/commit.ts';
+import { addIdentifierRow, addNameSighting, createCounterpartyRow, lockActive, survivorFor, touchCounterparty } from './records.ts';
+import { assertNoCannotLink, mergeInto } from './merge-split.ts';
+import { insertRelation } from './relations.ts';
+import type { ChangeSet } from './state/change-set.ts';
+import type { Row } from './state/tables.ts';
+import { write } from './transaction.ts';
+import { analyse } from './matching/analysis.ts';
+import { getSummaries, type CounterpartySummary } from '../../db/queries/counterparties.ts';
+import { listOpenReviewItems, type ReviewItemView } from '../../db/queries/review.ts';
+import { getMention, type MentionView } from '../../db/queries/mentions.ts';
+import type { Identifier, NameKind } from '../../resolvers/vocabulary.ts';
+
+export type ReviewDecisionInput = { decision: 'same' | 'different'; reason?: string };
+
+export interface ReviewDecisionResult {
+  eventId: number;
+  reviewItemId: number;
+  decision: 'same' | 'different';
+  /** The counterparty the mention or the pair ended in (the survivor of a merge, the new one of a `different`). */
+  counterpartyId: number | null;
+}
+
+export interface ReviewItemDetail extends ReviewItemView {
+  mention: MentionView | null;
+  left: CounterpartySummary | null;
+  right: CounterpartySummary | null;
+}
+
+export async function listReviewItems(ctx: RegisterContext, page: { afterId?: number; limit?: number } = {}): Promise<ReviewItemDetail[]> {
+  const items = await listOpenReviewItems(ctx.db, page);
+  const ids = items.flatMap((i) => [i.rightCounterpartyId, ...(i.leftCounterpartyId === null ? [] : [i.leftCounterpartyId])]);
+  const summaries = await getSummaries(ctx.db, ids);
+  const out: ReviewItemDetail[] = [];
+  for (const item of items) {
+    out.push({
+      ...item,
+      mention: item.mentionId === null ? null : ((await getMention(ctx.db, item.mentionId)) ?? null),
+      left: item.leftCounterpartyId === null ? null : (summaries.get(item.leftCounterpartyId) ?? null),
+      right: summaries.get(item.rightCounterpartyId) ?? null,
+    });
+  }
+  return out;
+}
+
+async function insertCannotLink(cs: ChangeSet, values: { counterpartyId: number; otherCounterpartyId?: number; mentionId?: number; reviewItemId: number; actor: string; reason: string | null; at: Date }) {
+  await cs.insert('cannot_link', {
+    counterparty_id: values.counterpartyId,
+    other_counterparty_id: values.otherCounterpartyId ?? null,
+    mention_id: values.mentionId ?? null,
+    review_item_id: values.reviewItemId,
+    created_by: values.actor,
+    reason: values.reason,
+    created_at: values.at.toISOString(),
+  });
+}
+
+async function linkMentionByPerson(cs: ChangeSet, mention: Row, counterpartyId: number, actor: string, at: Date): Promise<void> {
+  const analysis = analyse(mention.text as string, mention.country as string | null);
+  const recordedName = { name: mention.text as string, kind: (analysis.legalForm ? 'legal' : 'observed') as NameKind };
+  await addNameSighting(cs, counterpartyId, { ...recordedName, source: mention.source as string, mentionId: mention.id as number }, at);
+  for (const identifier of (mention.identifiers as Identifier[]) ?? []) {
+    try {
+      await addIdentifierRow(cs, counterpartyId, identifier, { source: mention.source as string, mentionId: mention.id as number }, at);
+    } catch (error) {
+      if (!(error instanceof RegisterError && error.code === 'IDENTIFIER_TAKEN')) throw error;
+    }
+  }
+  await cs.update('mention', mention.id as number, {
+    counterparty_id: counterpartyId,
+    confirmed_by: actor,
+    evidence: { ...(mention.evidence as Record<string, unknown>), recordedName },
+    updated_at: at.toISOString(),
+  });
+  await touchCounterparty(cs, counterpartyId, at);
+}
+
+export async function decideReview(
+  ctx: RegisterContext,
+  reviewItemId: number,
+  input: ReviewDecisionInput,
+  who: ActorInput,
+): Promise<ReviewDecisionResult> {
+  if (input.decision !== 'same' && input.decision !== 'different') throw invalid('decision', 'must be "same" or "different"');
+  return write(ctx, async (cs) => {
+    const at = ctx.now();
+    const reason = input.reason ?? who.reason ?? null;
+    const peek = await cs.trx.selectFrom('review_item').selectAll().where('id', '=', reviewItemId).executeTakeFirst();
+    if (!peek) throw notFound('review item', reviewItemId);
+    const sides = [Number(peek.right_counterparty_id), ...(peek.left_counterparty_id === null ? [] : [Number(peek.left_counterparty_id)])];
+    await lockActive(cs, sides);
+    const item = await cs.require('review_item', reviewItemId);
+    if (item.status !== 'open') {
+      throw new RegisterError('CONFLICT', `review item ${reviewItemId} is ${String(item.status)}${item.decision ? ` (${String(item.decision)} by ${String(item.decided_by)})` : ''}`, {
+        reviewItemId,
+      });
+    }
+    const right = survivorFor(cs, item.right_counterparty_id as number);
+    const left = item.left_counterparty_id === null ? null : survivorFor(cs, item.left_counterparty_id as number);
+    let resultId: number | null = right;
+    let leftText = '';
+    const rightCp = await cs.require('counterparty', right);
+    if (item.kind === 'mention_link') {
+      const mention = await cs.require('mention', item.mention_id as number);
+      leftText = mention.text as string;
+      if (mention.status !== 'review' || mention.counterparty_id !== null) {
+        throw new RegisterError('CONFLICT', `mention ${String(mention.id)} is no longer waiting for review (status ${String(mention.status)})`);
+      }
+      if (input.decision === 'same') {
+        await cs.update('mention', mention.id as number, { status: 'linked' });
+        await linkMentionByPerson(cs, await cs.require('mention', mention.id as number), right, who.actor, at);
+      } else {
+        await insertCannotLink(cs, { counterpartyId: right, mentionId: mention.id as number, reviewItemId, actor: who.actor, reason, at });
+        const cp = await createCounterpartyRow(cs, {
+          name: mention.text as string,
+          kind: 'organisation',
+          jurisdiction: (mention.country as string | null) ?? null,
+          at,
+        });
+        resultId = cp.id as number;
+        await cs.update('mention', mention.id as number, { status: 'new' });
+        await linkMentionByPerson(cs, await cs.require('mention', mention.id as number), resultId, who.actor, at);
+        await insertCannotLink(cs, { counterpartyId: right, otherCounterpartyId: resultId, reviewItemId, actor: who.actor, reason, at });
+      }
+    } else {
+      if (left === null) throw new Error(`review item ${reviewItemId} has no left counterparty`);
+      leftText = (await cs.require('counterparty', left)).canonical_name as string;
+      if (left === right) {
+        throw new RegisterError('CONFLICT', `the two sides of review item ${reviewItemId} are already one counterparty (${right})`);
+      }
+      if (input.decision === 'same' && item.kind === 'duplicate') {
+        await assertNoCannotLink(cs, [left, right]);
+        const survivor = Math.min(left, right);
+        await mergeInto(cs, survivor, Math.max(left, right), at);
+        await touchCounterparty(cs, survivor, at);
+        resultId = survivor;
+      } else if (input.decision === 'same') {
+        await insertRelation(cs, left, right, { fromId: left, toId: right, type: 'affiliate_of', origin: 'person', status: 'confirmed', evidence: { reviewItemId } }, who.actor, at);
+        await touchCounterparty(cs, left, at);
+        await touchCounterparty(cs, right, at);
+      } else {
+        await insertCannotLink(cs, { counterpartyId: left, otherCounterpartyId: right, reviewItemId, actor: who.actor, reason, at });
+      }
+    }
+    await cs.update('review_item', reviewItemId, {
+      status: 'decided',
+      decision: input.decision,
+      decided_by: who.actor,
+      decided_at: at.toISOString(),
+      reason,
+    });
+    await cs.insert('labelled_pair', {
+      review_item_id: reviewItemId,
+      left_text: leftText,
+      right_text: rightCp.canonical_name as string,
+      label: input.decision,
+      features: (item.evidence as Record<string, unknown>) ?? {},
+      decided_by: who.actor,
+      created_at: at.toISOString(),
+    });
+    const eventId = await commitEvent(cs, {
+      type: 'review_decided',
+      actor: who.actor,
+      at,
+      reason,
+      requestId: who.requestId,
+      details: { reviewItemId, kind: item.kind, decision: input.decision, counterpartyId: resultId, mentionId: item.mention_id ?? null },
+    });
+    return { eventId, reviewItemId, decision: input.decision, counterpartyId: resultId };
+  });
+}
