@@ -255,7 +255,7 @@ export function rate(fn: () => void, options: { minMs?: number; batch?: number }
   return (calls * 1000) / (now - start);
 }
 
-export async function withPeakMemory<T>(fn: () => Promise<T>): Promise<{ result: T; peakRssMb: number; peakHeapMb: number }> {
+export async function withPeakMemory<T>(fn: (sample: () => void) => Promise<T>): Promise<{ result: T; peakRssMb: number; peakHeapMb: number }> {
   let peakRss = 0;
   let peakHeap = 0;
   const sample = (): void => {
@@ -266,7 +266,7 @@ export async function withPeakMemory<T>(fn: () => Promise<T>): Promise<{ result:
   sample();
   const timer = setInterval(sample, 50);
   try {
-    const result = await fn();
+    const result = await fn(sample);
     sample();
     return { result, peakRssMb: peakRss / 1024 ** 2, peakHeapMb: peakHeap / 1024 ** 2 };
   } finally {

@@ -63,8 +63,12 @@ export interface BenchContext {
   log(message: string): void;
   /** Operations per second of `fn`, called repeatedly for at least `minMs` (default 1000) after a warm-up. */
   rate(fn: () => void, options?: { minMs?: number; batch?: number }): number;
-  /** Runs `fn` while sampling memory every 50 ms; returns its result and the peaks seen (MB). */
-  withPeakMemory<T>(fn: () => Promise<T>): Promise<{ result: T; peakRssMb: number; peakHeapMb: number }>;
+  /**
+   * Runs `fn` while sampling memory every 50 ms; returns its result and the peaks seen (MB). Timers only
+   * fire when `fn` awaits: a long synchronous loop should call the `sample` it is given now and then.
+   * (The runner also reports each file's true peak RSS, from the OS, in the results file.)
+   */
+  withPeakMemory<T>(fn: (sample: () => void) => Promise<T>): Promise<{ result: T; peakRssMb: number; peakHeapMb: number }>;
 }
 
 /**
