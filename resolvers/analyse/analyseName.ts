@@ -9,6 +9,8 @@ import { matchPrefixForm, matchSuffixForm } from './matchLegalForm.ts';
 import type { LegalFormSpan } from './matchLegalForm.ts';
 import { extractQualifiers, trailingGroupStart } from './qualifiers.ts';
 import { scanName } from './scanName.ts';
+import { splitDescriptor } from './splitDescriptor.ts';
+import { PLACE_JURISDICTIONS } from './placeJurisdictions.ts';
 import { normaliseName, normaliseTokens } from './normaliseName.ts';
 import { partyVerdict } from './partyFilter.ts';
 import { HONORIFICS, looksLikePersonName, ORGANISATION_WORDS, PERSON_SUFFIXES } from './looksLikePersonName.ts';
@@ -20,21 +22,34 @@ const MAX_TRAILING_GROUPS = 3;
 
 export function analyseName(text: string, hints: AnalyseHints = {}): NameAnalysis {
   if (typeof text !== 'string') throw new TypeError('analyseName: text must be a string');
-  const country = validateCountry(hints.country);
+  let country = validateCountry(hints.country);
   const split = splitAliases(text);
-  const primary = split.primary;
+  let primary = split.primary;
+  const descriptor = splitDescriptor(primary);
+  let descriptorText = '';
+  if (descriptor) {
+    descriptorText = primary;
+    primary = primary.slice(0, descriptor.headEnd);
+    // "a Delaware corporation" narrows like a hint, unless the caller's hint names another country.
+    const place = PLACE_JURISDICTIONS.get(descriptor.place);
+    if (place !== undefined && (country === undefined || place.startsWith(country))) country = place;
+  }
 
-  const found = findForm(primary);
+  let found = findForm(primary);
+  if (!found && descriptor?.form) {
+    // "Brackenridge Fabrication, a Delaware corporation": the descriptor's form is the name's form.
+    found = { span: descriptor.form, trailing: [], trailingFrom: primary.length, text: descriptorText };
+  }
   let legalForm: LegalFormMatch | null = null;
   let trailing: string[] = [];
   let coreText = primary;
   if (found) {
     const { span } = found;
     trailing = found.trailing;
-    coreText = primary.slice(0, span.start) + ' ' + primary.slice(span.end, found.trailingFrom);
+    coreText = found.text ? primary : primary.slice(0, span.start) + ' ' + primary.slice(span.end, found.trailingFrom);
     const narrowed = narrowCodes(span.entry, country);
     legalForm = {
-      text: primary.slice(span.start, span.end).trim(),
+      text: (found.text ?? primary).slice(span.start, span.end).trim(),
       family: span.entry.family,
       elfCodes: narrowed.codes,
       jurisdictions: narrowed.jurisdictions,
@@ -53,10 +68,12 @@ export function analyseName(text: string, hints: AnalyseHints = {}): NameAnalysi
   }
   const qualifiers: string[] = [];
   for (const g of groups) {
+    if (isDefinitionGroup(g)) continue; // ("the Supplier") defines a term: the defined-terms stage reads it
     const q = normaliseName(g);
     if (q !== '') qualifiers.push(q);
   }
   for (const q of trailing) qualifiers.push(q);
+  if (descriptor && descriptor.place !== '') qualifiers.push(descriptor.place);
   const verdict = partyVerdict(primary, legalForm ? tokens : restTokens, legalForm !== null);
   const kind: EntityKind =
     verdict.status !== 'party'
@@ -88,6 +105,8 @@ interface Found {
   /** Normalised trailing qualifier groups stripped before the form was found ("Marlow Credit Union (Bristol)"). */
   trailing: string[];
   trailingFrom: number;
+  /** The text the span's offsets refer to when it is not the primary name (a descriptor's form). */
+  text?: string;
 }
 
 function findForm(primary: string): Found | null {
@@ -101,7 +120,8 @@ function findForm(primary: string): Found | null {
     const open = trailingGroupStart(primary, end);
     if (open <= 0) break;
     const close = primary.lastIndexOf(')', end);
-    const q = normaliseName(primary.slice(open + 1, close));
+    const group = primary.slice(open + 1, close);
+    const q = isDefinitionGroup(group) ? '' : normaliseName(group);
     if (q !== '') trailing.unshift(q);
     end = open;
     while (hi > 0 && (scan.from[hi - 1] as number) >= end) hi--;
@@ -125,6 +145,16 @@ function writtenWords(text: string): string[] {
   }
   if (cur !== '') out.push(cur);
   return out;
+}
+
+/** A parenthesis that defines a term ('("Supplier")', '(hereinafter "Acme")') rather than naming a place. */
+function isDefinitionGroup(group: string): boolean {
+  for (let i = 0; i < group.length; i++) {
+    const c = group.charCodeAt(i);
+    if (c === 0x22 || c === 0x201c || c === 0x201d || c === 0x201e || c === 0xab || c === 0xbb) return true;
+  }
+  const head = group.trimStart().slice(0, 11).toLowerCase();
+  return head === 'hereinafter';
 }
 
 /** A leading "The" is not part of the core ("The Orrin Mill Company" ~ "Orrin Mill Company"). */

@@ -30,6 +30,8 @@ export function narrowCodes(entry: LegalFormEntry, country: string | undefined):
       if (!jurisdictions.includes(j)) jurisdictions.push(j);
     }
     if (codes.length > 0) return { codes, jurisdictions };
+    // "Inc." with US-DE: no Delaware row lists "Inc.", so fall back to the country's codes before all codes.
+    if (dash >= 0) return narrowCodes(entry, whole);
   }
   // Copies: callers own their analysis and may change it.
   return { codes: entry.codes.slice(), jurisdictions: entry.distinctJurisdictions.slice() };

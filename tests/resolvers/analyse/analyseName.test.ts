@@ -188,6 +188,41 @@ describe('qualifiers', () => {
   });
 });
 
+describe('contract descriptors and definitions after a name', () => {
+  it('reads ", a Delaware corporation" as place and form, not as name', () => {
+    // Common practice in contract preambles. ELF v1.5 US-DE XTIQ "Corporation".
+    const a = analyseName('Brackenridge Fabrication, a Delaware corporation');
+    expect(a.core).toBe('brackenridge fabrication');
+    expect(a.qualifiers).toEqual(['delaware']);
+    expect(a.legalForm?.elfCodes).toEqual(['XTIQ']);
+    expect(a.legalForm?.text).toBe('corporation');
+    const b = analyseName('Brackenridge Fabrication, Inc., a Delaware corporation');
+    expect(b.core).toBe('brackenridge fabrication');
+    expect(b.legalForm?.text).toBe('Inc.');
+    expect(b.legalForm?.jurisdictions.every((j) => j.startsWith('US'))).toBe(true); // no US-DE row lists "Inc."
+  });
+
+  it('reads "a company incorporated in England and Wales" as a place', () => {
+    // Common practice; ELF v1.5 GB H0PO lists "Limited".
+    const a = analyseName('Orrin Mill Limited, a company incorporated in England and Wales');
+    expect(a.core).toBe('orrin mill');
+    expect(a.qualifiers).toEqual(['england and wales']);
+    expect(a.legalForm?.elfCodes).toContain('H0PO');
+    expect(a.legalForm?.jurisdictions).toEqual(['GB']);
+  });
+
+  it('leaves a defined term in parentheses out of the qualifiers and the core', () => {
+    const a = analyseName('Quennell Bakeries Ltd ("Supplier")');
+    expect(a.core).toBe('quennell bakeries');
+    expect(a.qualifiers).toEqual([]);
+    expect(a.legalForm?.family).toBe('ltd');
+  });
+
+  it('does not take an ordinary apposition for a descriptor', () => {
+    expect(analyseName('Dellow, a partner').core).toBe('dellow a partner');
+  });
+});
+
 describe('aliases and related entities', () => {
   it('types trade names', () => {
     // Issue 3: d/b/a, dba, t/a, trading as, o/a, operating as → trade.
