@@ -71,7 +71,7 @@ async function insertCannotLink(cs: ChangeSet, values: { counterpartyId: number;
   });
 }
 
-async function linkMentionByPerson(cs: ChangeSet, mention: Row, counterpartyId: number, actor: string, at: Date): Promise<void> {
+async function linkMentionByPerson(cs: ChangeSet, mention: Row, counterpartyId: number, actor: string, at: Date, status: 'linked' | 'new'): Promise<void> {
   const analysis = analyse(mention.text as string, mention.country as string | null);
   const recordedName = { name: mention.text as string, kind: (analysis.legalForm ? 'legal' : 'observed') as NameKind };
   await addNameSighting(cs, counterpartyId, { ...recordedName, source: mention.source as string, mentionId: mention.id as number }, at);
@@ -83,6 +83,7 @@ async function linkMentionByPerson(cs: ChangeSet, mention: Row, counterpartyId: 
     }
   }
   await cs.update('mention', mention.id as number, {
+    status,
     counterparty_id: counterpartyId,
     confirmed_by: actor,
     evidence: { ...(mention.evidence as Record<string, unknown>), recordedName },
@@ -123,8 +124,7 @@ export async function decideReview(
         throw new RegisterError('CONFLICT', `mention ${String(mention.id)} is no longer waiting for review (status ${String(mention.status)})`);
       }
       if (input.decision === 'same') {
-        await cs.update('mention', mention.id as number, { status: 'linked' });
-        await linkMentionByPerson(cs, await cs.require('mention', mention.id as number), right, who.actor, at);
+        await linkMentionByPerson(cs, mention, right, who.actor, at, 'linked');
       } else {
         await insertCannotLink(cs, { counterpartyId: right, mentionId: mention.id as number, reviewItemId, actor: who.actor, reason, at });
         const cp = await createCounterpartyRow(cs, {
@@ -134,8 +134,7 @@ export async function decideReview(
           at,
         });
         resultId = cp.id as number;
-        await cs.update('mention', mention.id as number, { status: 'new' });
-        await linkMentionByPerson(cs, await cs.require('mention', mention.id as number), resultId, who.actor, at);
+        await linkMentionByPerson(cs, mention, resultId, who.actor, at, 'new');
         await insertCannotLink(cs, { counterpartyId: right, otherCounterpartyId: resultId, reviewItemId, actor: who.actor, reason, at });
       }
     } else {
