@@ -4,8 +4,8 @@
  * - embedded PGlite otherwise: a directory (default ./data/cpreg) or `memory:` (tests).
  * Everything above db/ sees the same Kysely<Database>; nothing backend-specific leaks out.
  */
-import { existsSync, mkdirSync, readdirSync, statSync } from 'node:fs';
-import { resolve } from 'node:path';
+import { existsSync, mkdirSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { join, resolve } from 'node:path';
 import { Kysely, PGliteDialect, PostgresDialect, sql } from 'kysely';
 import type { PGlite as PGliteClass } from '@electric-sql/pglite';
 import type { Database } from './types.ts';
@@ -174,6 +174,13 @@ const PGLITE_HANDLES = new WeakMap<Kysely<Database>, PGliteLike>();
 
 type PGliteLike = Awaited<ReturnType<typeof PGliteClass.create>>;
 
+/**
+ * Written into a new directory before PGlite's initdb and removed once the cluster is complete: a first
+ * start that was interrupted (Ctrl-C, crash) is recognised by it and initialised again, instead of
+ * leaving a half-made cluster that refuses to open.
+ */
+export const INIT_MARKER_NAME = 'cpreg.initialising';
+
 /** Refuses a directory that holds something other than a PGlite cluster; never writes to it. */
 export function checkEmbeddedDirectory(dir: string): void {
   if (!existsSync(dir)) return;
@@ -181,6 +188,7 @@ export function checkEmbeddedDirectory(dir: string): void {
     throw new DatabaseOpenError(`${dir} is a file, not a database directory; point --db at a directory`);
   }
   const entries = readdirSync(dir).filter((name) => name !== LOCK_FILE_NAME);
+  if (entries.includes(INIT_MARKER_NAME)) return; // our own interrupted first start
   if (entries.length > 0 && !entries.includes('PG_VERSION')) {
     throw new DatabaseOpenError(
       `${dir} is not an embedded cpreg database (it is not empty and has no PG_VERSION); ` +
@@ -199,9 +207,15 @@ async function openPglite(target: string, options: OpenDatabaseOptions): Promise
     lock = acquireDirectoryLock(dir, { command: options.command, onMessage: options.onMessage });
   }
   let pglite: PGliteLike;
+  let fresh = false;
   try {
+    if (dir) fresh = prepareFirstStart(dir, options.onMessage);
     const { create } = await loadPglite();
     pglite = await create(dir, options.loadDataDir);
+    if (dir && fresh) {
+      await pglite.syncToFs();
+      rmSync(join(dir, INIT_MARKER_NAME), { force: true });
+    }
   } catch (error) {
     lock?.release();
     throw new DatabaseOpenError(`cannot open the embedded database ${target}: ${(error as Error).message}`, {
@@ -235,6 +249,24 @@ async function openPglite(target: string, options: OpenDatabaseOptions): Promise
       }
     },
   };
+}
+
+/**
+ * Called with the lock held. Returns true when the directory holds no cluster yet (initdb will run):
+ * marks it, after clearing what an interrupted earlier first start left.
+ */
+function prepareFirstStart(dir: string, onMessage?: (line: string) => void): boolean {
+  const entries = readdirSync(dir).filter((name) => name !== LOCK_FILE_NAME);
+  if (entries.includes(INIT_MARKER_NAME)) {
+    (onMessage ?? ((line: string) => process.stderr.write(`cpreg: ${line}\n`)))(
+      `the first start of ${dir} was interrupted before the database was complete; creating it again`,
+    );
+    for (const name of entries) if (name !== INIT_MARKER_NAME) rmSync(join(dir, name), { recursive: true, force: true });
+  } else if (entries.includes('PG_VERSION')) {
+    return false;
+  }
+  writeFileSync(join(dir, INIT_MARKER_NAME), `initdb started ${new Date().toISOString()} by process ${process.pid}\n`);
+  return true;
 }
 
 /** PGlite only: a dump of the data directory (tests copy a migrated template from it). */

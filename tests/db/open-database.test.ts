@@ -4,7 +4,7 @@ import { hostname } from 'node:os';
 import { join } from 'node:path';
 import { spawnSync } from 'node:child_process';
 import { sql } from 'kysely';
-import { openDatabase, resolveTarget, DEFAULT_DATA_DIR } from '../../db/open-database.ts';
+import { openDatabase, resolveTarget, DEFAULT_DATA_DIR, INIT_MARKER_NAME } from '../../db/open-database.ts';
 import { DatabaseLockedError, LOCK_FILE_NAME, acquireDirectoryLock } from '../../db/lock.ts';
 import { DatabaseOpenError, isDatabaseUnavailable } from '../../db/database-errors.ts';
 import { makeTempDir, removeTempDir } from '../support/database.ts';
@@ -95,6 +95,26 @@ describe('openDatabase on a directory', () => {
     await expect(openDatabase(dir)).rejects.toThrow(/not an embedded cpreg database.*nothing was changed/);
     expect(readdirSync(dir).sort()).toEqual(before);
     expect(readFileSync(join(dir, 'notes.txt'), 'utf8')).toBe('keep me');
+  });
+
+  it('recovers from an interrupted first start (initdb cut short), saying so', async () => {
+    const dir = tempDir();
+    // What a first start killed during initdb leaves: the marker and part of a cluster.
+    writeFileSync(join(dir, INIT_MARKER_NAME), 'initdb started');
+    writeFileSync(join(dir, 'PG_VERSION'), '18\n');
+    mkdirSync(join(dir, 'base'));
+    writeFileSync(join(dir, 'base', 'partial'), 'x');
+    const messages: string[] = [];
+    const opened = await openDatabase(dir, { onMessage: (line) => messages.push(line) });
+    try {
+      expect(messages).toEqual([expect.stringContaining('first start of')]);
+      const { rows } = await sql<{ one: number }>`select 1 as one`.execute(opened.db);
+      expect(rows).toEqual([{ one: 1 }]);
+    } finally {
+      await opened.close();
+    }
+    expect(existsSync(join(dir, INIT_MARKER_NAME))).toBe(false);
+    expect(existsSync(join(dir, 'base', 'partial'))).toBe(false);
   });
 
   it('refuses a file given as the directory', async () => {
