@@ -22,13 +22,14 @@ const END_CUES = [
 ];
 
 const MAX_ADDRESS = 200;
+const FIRST_LETTERS = new Set(ADDRESS_CUES.map((c) => c[0]));
 
 export function extractAddress(phrase: string): string | undefined {
   const lower = phrase.toLowerCase();
   if (lower.length !== phrase.length) return undefined;
   let from = -1;
   for (let i = 0; i < lower.length && from < 0; i++) {
-    if (isWordChar(lower[i - 1])) continue;
+    if (!FIRST_LETTERS.has(lower[i]) || isWordChar(lower[i - 1])) continue;
     for (const cue of ADDRESS_CUES) {
       if (lower.startsWith(cue, i)) {
         from = i + cue.length;

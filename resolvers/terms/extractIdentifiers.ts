@@ -123,8 +123,10 @@ function readValue(phrase: string, from: number, allowPrefix: boolean): string |
   return out.length > 0 ? out : null;
 }
 
+const FIRST_LETTERS = new Set(CUES.map((c) => c.words[0]));
+
 function cueAt(lower: string, i: number): Cue | undefined {
-  if (isWordChar(lower[i - 1])) return undefined;
+  if (!FIRST_LETTERS.has(lower[i]) || isWordChar(lower[i - 1])) return undefined;
   for (const cue of CUES) {
     if (lower.startsWith(cue.words, i) && !isWordChar(lower[i + cue.words.length])) return cue;
   }

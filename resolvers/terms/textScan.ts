@@ -1,7 +1,11 @@
 /** Small character-level helpers shared by the scanners (ASCII case folding keeps indices aligned). */
 
 export function isWordChar(ch: string | undefined): boolean {
-  return ch !== undefined && /[\p{L}\p{N}]/u.test(ch);
+  if (ch === undefined) return false;
+  const c = ch.charCodeAt(0);
+  // ASCII fast path; the Unicode test only for other characters.
+  if (c < 128) return (c >= 48 && c <= 57) || (c >= 65 && c <= 90) || (c >= 97 && c <= 122);
+  return /[\p{L}\p{N}]/u.test(ch);
 }
 
 export function isSpace(ch: string | undefined): boolean {
