@@ -80,7 +80,10 @@ function describe(p: PartyInput, rnd: Random): string {
     return `a ${state} ${kind} with offices at ${p.addressText}`;
   }
   const c = countryOf(p.jurisdiction);
-  const place = c === 'GB' ? 'incorporated and registered in England and Wales' : `a company incorporated under the laws of ${COUNTRY_NAMES[c]}`;
+  // Companies House numbers starting "SC" belong to companies registered in Scotland.
+  const scottish = p.identifiers.some((i) => i.scheme === 'gb_company' && i.value.startsWith('SC'));
+  const place =
+    c === 'GB' ? `incorporated and registered in ${scottish ? 'Scotland' : 'England and Wales'}` : `a company incorporated under the laws of ${COUNTRY_NAMES[c]}`;
   const reg = registrationPhrase(p.identifiers, c);
   return `${place}${reg ? ` ${reg}` : ''}${rnd.chance(0.5) ? `, whose registered office is at ${p.addressText}` : ''}`;
 }
