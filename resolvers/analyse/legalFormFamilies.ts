@@ -49,6 +49,12 @@ export const FAMILY_ALIASES: Readonly<Record<string, string>> = {
   pc: 'pc',
   professionalcorporation: 'pc',
   pllc: 'pllc',
+  kk: 'kk',
+  kabushikikaisha: 'kk',
+  gk: 'gk',
+  godokaisha: 'gk',
+  lda: 'lda',
+  limitada: 'lda',
   // Russian abbreviations and their transliterations share a family (see legalFormSupplement.ts).
   ооо: 'ooo',
   ао: 'ao',

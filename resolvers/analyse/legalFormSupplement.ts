@@ -7,6 +7,9 @@
  * - RU ООО / АО / ПАО / ОАО / ЗАО and their Latin transliterations: the RU rows of v1.5 carry plural category
  *   names and no abbreviations; the mapping of each abbreviation to its row is from memory (Civil Code of the
  *   Russian Federation, arts. 87 and 96–97: limited liability company, joint-stock company, public/non-public).
+ * - CZ "s.r.o." / "a.s." (9HLU / 6CQN), SK "s.r.o." / "a.s." (VSZS / 2EEG), PT "Lda." / "S.A." (USOG / DFE5),
+ *   JP "K.K." / "Kabushiki Kaisha" (T417) and "G.K." / "Godo Kaisha" (7QQ0): the v1.5 rows of these codes carry no
+ *   Latin abbreviation (or only a long one such as SK "Spol. s r. o."); the short forms are common practice.
  */
 export interface SupplementForm {
   text: string;
@@ -28,4 +31,15 @@ export const SUPPLEMENT_FORMS: readonly SupplementForm[] = [
   { text: 'OAO', code: 'MT3A', kind: 'a' },
   { text: 'ЗАО', code: 'JZBN', kind: 'a' },
   { text: 'ZAO', code: 'JZBN', kind: 'a' },
+  { text: 's.r.o.', code: '9HLU', kind: 'a' },
+  { text: 'a.s.', code: '6CQN', kind: 'a' },
+  { text: 's.r.o.', code: 'VSZS', kind: 'a' },
+  { text: 'a.s.', code: '2EEG', kind: 'a' },
+  { text: 'Lda.', code: 'USOG', kind: 'a' },
+  { text: 'Limitada', code: 'USOG', kind: 'a' },
+  { text: 'S.A.', code: 'DFE5', kind: 'a' },
+  { text: 'K.K.', code: 'T417', kind: 'a' },
+  { text: 'Kabushiki Kaisha', code: 'T417', kind: 'n' },
+  { text: 'G.K.', code: '7QQ0', kind: 'a' },
+  { text: 'Godo Kaisha', code: '7QQ0', kind: 'n' },
 ];

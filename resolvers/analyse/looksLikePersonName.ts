@@ -1,7 +1,8 @@
 /**
  * Does a name without legal form look like a natural person's name (given name + family name)?
- * Evidence needed beyond "two capitalised words": an honorific (Mr, Dr …), a middle initial ("Iolo T. Brannock"),
- * a family-name particle (van, de, von …) or a common given name. Organisation words rule it out.
+ * Evidence needed beyond "two capitalised words": an honorific (Mr, Dr …) or a common given name first.
+ * Middle initials ("Iolo T. Brannock") and family-name particles (van, de, von …) are allowed but prove nothing
+ * ("Caixa Geral de Depositos", "Q Chem" are organisations). Organisation words rule it out.
  * Word lists are common practice (given names from memory: frequent first names across European languages).
  */
 
@@ -43,7 +44,12 @@ export const ORGANISATION_WORDS: ReadonlySet<string> = new Set(
     'energy software digital network networks design motors pharma pharmaceuticals health healthcare care medical ' +
     'stores store shop hotel hotels restaurant cafe farm farms brewery press publishing records films productions ' +
     'transport shipping airlines mining metals chemicals textiles electronics systems research centre center office ' +
-    'office bureau studio partnership cooperative coop ltd inc llc llp plc corp co company gmbh ag sa bv nv'
+    'office bureau studio partnership cooperative coop ltd inc llc llp plc corp co company gmbh ag sa bv nv ' +
+    'materials aerospace library atelier instituto institut istituto sociedade sociedad societe societa compagnie ' +
+    'compania companhia empresa grupo gruppe gruppo clinica klinik fundacion fundacao fondation fondazione stiftung ' +
+    'verein universidad universidade universite universitat universita ministerio ministere banco banque banca ' +
+    'laboratorio laboratoire industria industrie servicos servicios centro centre zentrum associacao asociacion ' +
+    'federation federacao confederacao werke werk bau handel verlag'
   ).split(' '),
 );
 
@@ -67,14 +73,10 @@ export function looksLikePersonName(words: readonly string[], tokens: readonly s
     const w = written[k] as string;
     if (!isAlphabetic(t)) return false;
     if (t.length === 1) {
-      if (k === core.length - 1) return false; // a trailing initial is a label ("Party A"), not a family name
-      evidence = true;
+      if (k === 0 || k === core.length - 1) return false; // "Q Chem", "Party A": not given + family name
       continue;
     }
-    if (k > 0 && k < core.length - 1 && PARTICLES.has(t)) {
-      evidence = true;
-      continue;
-    }
+    if (k > 0 && k < core.length - 1 && PARTICLES.has(t)) continue;
     if (!startsUpper(w)) return false;
   }
   return evidence;
