@@ -3,6 +3,9 @@ export { buildIdfTable, idfTableFromFrequencies, smoothedIdf, type IdfTable } fr
 export {
   softTfIdf,
   softTfIdfExplained,
+  softTfIdfWeighted,
+  weighTokens,
+  type WeightedTokens,
   SOFT_TFIDF_DEFAULT_THRESHOLD,
   type SoftTfIdfOptions,
   type SoftTfIdfMatch,

@@ -7,6 +7,10 @@
  * of 0.7, no similar-character credit, no long-string adjustment): those are the census program's, and
  * the published tables we test against reproduce only with the plain form (see the tests).
  *
+ * natural's JaroWinklerDistance (natural 8.1.1, a dev dependency used as the test oracle) is the same plain
+ * variant and agrees with this one on every pair of strings (property test on 100,000 pairs); it differs only by
+ * options we do not offer (ignoreCase; dj, a caller-supplied Jaro value) and by returning 0 for non-strings.
+ *
  * Characters are UTF-16 code units (as `charCodeAt` sees them), like most JavaScript implementations;
  * callers compare analysed, NFKC-folded names, where characters outside the BMP are rare.
  *

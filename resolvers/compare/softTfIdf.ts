@@ -44,13 +44,16 @@ export interface SoftTfIdfResult {
   backward: SoftTfIdfMatch[];
 }
 
-interface WeightedTokens {
+/** A token list weighed once, to be compared with many others (softTfIdfWeighted). */
+export interface WeightedTokens {
+  /** Distinct tokens. */
   tokens: string[];
+  /** Their unit-length log(tf + 1) · idf weights. */
   weights: number[];
 }
 
 /** Distinct tokens with unit-length log(tf + 1) · idf weights. */
-function weigh(tokens: readonly string[], idf: IdfTable): WeightedTokens {
+export function weighTokens(tokens: readonly string[], idf: IdfTable): WeightedTokens {
   const counts = new Map<string, number>();
   for (const token of tokens) counts.set(token, (counts.get(token) ?? 0) + 1);
   const distinct = [...counts.keys()];
@@ -61,14 +64,39 @@ function weigh(tokens: readonly string[], idf: IdfTable): WeightedTokens {
   return { tokens: distinct, weights: norm > 0 ? weights.map((w) => w / norm) : weights };
 }
 
-function direction(s: WeightedTokens, t: WeightedTokens, threshold: number, detail: SoftTfIdfMatch[] | null): number {
+/** Jaro–Winkler of every token pair, row-major (|a| × |b|); module-level and grown as needed. */
+let similarities = new Float64Array(64);
+
+/** Fills `similarities` once for both directions: JW is symmetric (same prefix, same greedy matching). */
+function fillSimilarities(a: WeightedTokens, b: WeightedTokens): Float64Array {
+  const size = a.tokens.length * b.tokens.length;
+  if (similarities.length < size) similarities = new Float64Array(Math.max(size, similarities.length * 2));
+  const sims = similarities;
+  for (let i = 0; i < a.tokens.length; i++) {
+    const token = a.tokens[i]!;
+    for (let j = 0; j < b.tokens.length; j++) sims[i * b.tokens.length + j] = jaroWinkler(token, b.tokens[j]!);
+  }
+  return sims;
+}
+
+/**
+ * One direction of the sum. `transposed` reads the |a| × |b| matrix column-wise for the b → a direction.
+ */
+function direction(
+  s: WeightedTokens,
+  t: WeightedTokens,
+  sims: Float64Array,
+  transposed: boolean,
+  threshold: number,
+  detail: SoftTfIdfMatch[] | null,
+): number {
   let sum = 0;
+  const stride = transposed ? s.tokens.length : t.tokens.length;
   for (let i = 0; i < s.tokens.length; i++) {
-    const token = s.tokens[i]!;
     let best = -1;
     let bestIndex = -1;
     for (let j = 0; j < t.tokens.length; j++) {
-      const sim = jaroWinkler(token, t.tokens[j]!);
+      const sim = transposed ? sims[j * stride + i]! : sims[i * stride + j]!;
       if (sim > best) {
         best = sim;
         bestIndex = j;
@@ -78,9 +106,14 @@ function direction(s: WeightedTokens, t: WeightedTokens, threshold: number, deta
     if (bestIndex < 0 || !(best > threshold || best === 1)) continue;
     const contribution = s.weights[i]! * t.weights[bestIndex]! * best;
     sum += contribution;
-    detail?.push({ token, matchedWith: t.tokens[bestIndex]!, similarity: best, contribution });
+    detail?.push({ token: s.tokens[i]!, matchedWith: t.tokens[bestIndex]!, similarity: best, contribution });
   }
   return sum > 1 ? 1 : sum;
+}
+
+function symmetric(a: WeightedTokens, b: WeightedTokens, threshold: number, forward: SoftTfIdfMatch[] | null, backward: SoftTfIdfMatch[] | null): number {
+  const sims = fillSimilarities(a, b);
+  return (direction(a, b, sims, false, threshold, forward) + direction(b, a, sims, true, threshold, backward)) / 2;
 }
 
 function checkThreshold(threshold: number): void {
@@ -99,9 +132,15 @@ export function softTfIdf(
   const threshold = options.threshold ?? SOFT_TFIDF_DEFAULT_THRESHOLD;
   checkThreshold(threshold);
   if (a.length === 0 || b.length === 0) return 0;
-  const wa = weigh(a, idf);
-  const wb = weigh(b, idf);
-  return (direction(wa, wb, threshold, null) + direction(wb, wa, threshold, null)) / 2;
+  return softTfIdfWeighted(weighTokens(a, idf), weighTokens(b, idf), options);
+}
+
+/** The same score on token lists weighed beforehand (weighTokens): a record's weights are computed once. */
+export function softTfIdfWeighted(a: WeightedTokens, b: WeightedTokens, options: SoftTfIdfOptions = {}): number {
+  const threshold = options.threshold ?? SOFT_TFIDF_DEFAULT_THRESHOLD;
+  checkThreshold(threshold);
+  if (a.tokens.length === 0 || b.tokens.length === 0) return 0;
+  return symmetric(a, b, threshold, null, null);
 }
 
 /** The same score with the token matches that produced it (for explanations). */
@@ -116,8 +155,8 @@ export function softTfIdfExplained(
   const forward: SoftTfIdfMatch[] = [];
   const backward: SoftTfIdfMatch[] = [];
   if (a.length === 0 || b.length === 0) return { score: 0, forward, backward };
-  const wa = weigh(a, idf);
-  const wb = weigh(b, idf);
-  const score = (direction(wa, wb, threshold, forward) + direction(wb, wa, threshold, backward)) / 2;
+  const wa = weighTokens(a, idf);
+  const wb = weighTokens(b, idf);
+  const score = symmetric(wa, wb, threshold, forward, backward);
   return { score, forward, backward };
 }

@@ -160,4 +160,15 @@ describe('agreement with natural (JaroWinklerDistance, natural 8.1.1)', () => {
     expect(long).toBeGreaterThan(20_000);
     expect(beyond64).toBeGreaterThan(1_000);
   });
+
+  // Soft TF-IDF computes the token similarity matrix once for both directions, which relies on this.
+  it('is symmetric: jaroWinkler(a, b) = jaroWinkler(b, a) (property, 30,000 pairs incl. two-letter alphabets)', () => {
+    const twoLetters = fc.string({ unit: fc.constantFrom('a', 'b'), maxLength: 80 });
+    fc.assert(
+      fc.property(fc.oneof(pairs, fc.tuple(twoLetters, twoLetters)), ([a, b]) => {
+        expect(jaroWinkler(a, b)).toBe(jaroWinkler(b, a));
+      }),
+      { numRuns: 30_000, seed: 1990 },
+    );
+  });
 });

@@ -5,6 +5,8 @@ import {
   jaroWinkler,
   softTfIdf,
   softTfIdfExplained,
+  softTfIdfWeighted,
+  weighTokens,
 } from '../../../resolvers/compare/index.ts';
 
 // Invented names only.
@@ -82,6 +84,14 @@ describe('softTfIdf (Cohen, Ravikumar & Fienberg 2003)', () => {
       ['widgets', 'widget'],
     ]);
     expect(result.score).toBeCloseTo(softTfIdf(['acme', 'widgets'], ['acme', 'widget'], flat), 12);
+  });
+
+  it('gives the same score from weights computed beforehand', () => {
+    const table = buildIdfTable(documents);
+    const a = ['kittering', 'bay', 'outfiters'];
+    const b = ['kittering', 'bay', 'outfitters', 'holdings'];
+    expect(softTfIdfWeighted(weighTokens(a, table), weighTokens(b, table))).toBe(softTfIdf(a, b, table));
+    expect(softTfIdfWeighted(weighTokens([], table), weighTokens(b, table))).toBe(0);
   });
 
   it('rejects a threshold outside [0, 1]', () => {
