@@ -126,6 +126,24 @@ function skipLeading(text: string, i: number, to: number): number {
   }
 }
 
+/**
+ * Hard-wrapped prose breaks names across lines ("…between Greystoke\nHarbour Services Limited, a company…").
+ * A line break continues the name when the next line starts with a capitalised word that is not a numbered
+ * item, a label ("By:") or a heading, and the name so far does not already end with a legal form.
+ */
+const LINE_HEADINGS = new Set(['and', 'between', 'parties', 'whereas', 'recitals', 'background', 'now', 'in', 'by', 'name', 'title', 'its', 'signed', 'dated', 'the', 'this', 'und', 'et', 'y', 'e', 'entre', 'zwischen', 'tra']);
+
+function continuesOnNextLine(text: string, s: number, nl: number, limit: number): boolean {
+  let j = nl + 1;
+  while (j < limit && (text[j] === ' ' || text[j] === '\t' || text[j] === '\r')) j++;
+  if (j >= limit || !/\p{Lu}/u.test(text[j] as string)) return false;
+  if (numberingAt(text, j, limit) > 0) return false;
+  let k = j;
+  while (k < limit && isWordChar(text[k])) k++;
+  if (text[k] === ':' || LINE_HEADINGS.has(text.slice(j, k).toLowerCase())) return false;
+  return !endsWithLegalForm(text, s, nl);
+}
+
 /** A short parenthesis inside a name: "Goldline (Europe) Ltd". Returns the index after ")" or -1. */
 function innerQualifier(text: string, i: number, to: number): number {
   const close = text.indexOf(')', i);
@@ -150,7 +168,11 @@ function bareNameEnd(text: string, s: number, to: number, stopAtAnd: boolean): n
       }
       return i;
     }
-    if (ch === ',' || ch === ';' || ch === '\n' || ch === ':' || ch === '"' || ch === '“' || ch === '«' || ch === '„') return i;
+    if (ch === '\n') {
+      if (!continuesOnNextLine(text, s, i, limit)) return i;
+      continue;
+    }
+    if (ch === ',' || ch === ';' || ch === ':' || ch === '"' || ch === '“' || ch === '«' || ch === '„') return i;
     if (isSpace(ch) && i > s) {
       const w = skipSpaces(text, i, limit);
       // Descriptive words are lower case ("a Delaware corporation"); "Team A Ltd" keeps its capital A.

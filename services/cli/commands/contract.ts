@@ -83,7 +83,8 @@ function formatText(parsed: Parsed, resolution: Resolution | undefined): string 
       p.kind,
       p.ownEntity ? 'OWN ENTITY' : undefined,
     ].filter((f) => f !== undefined);
-    lines.push(`  ${i + 1}. ${p.name}`, `     ${facts.join('; ')}`);
+    // Names are verbatim (a wrapped name keeps its line break); the terminal shows them on one line.
+    lines.push(`  ${i + 1}. ${oneLine(p.name)}`, `     ${facts.join('; ')}`);
     if (p.identifiers.length > 0) {
       lines.push(`     identifiers: ${p.identifiers.map((id) => `${id.scheme} ${id.value}${id.problem ? ` (${id.problem})` : ''}`).join('; ')}`);
     }
@@ -100,4 +101,8 @@ function formatText(parsed: Parsed, resolution: Resolution | undefined): string 
     lines.push(`Mention "${resolution.mention}": ${resolution.status}${who}`, `  ${resolution.explanation}`);
   }
   return lines.join('\n');
+}
+
+function oneLine(s: string): string {
+  return s.split(/\s+/u).join(' ');
 }

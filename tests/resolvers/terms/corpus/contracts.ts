@@ -588,4 +588,22 @@ WHEREAS, Northfield Agri Supply Ltd., a company incorporated under the laws of C
     ],
     notParties: ['Territory'],
   },
+  {
+    id: 'uk-hard-wrapped',
+    style: 'UK plain text hard-wrapped at 70 columns: names broken across lines, (hereinafter referred to as the "X") inside parentheses, party and collective term in one parenthesis',
+    text: `THIS AGREEMENT is made on 4 June 2024 by and between Greystoke
+Harbour Services Limited, a company incorporated in England and Wales
+(hereinafter referred to as the "Operator"), and Ilfracombe Marine
+Holdings plc (the "Owner"; and together with the Operator, the "Parties").
+
+1. DEFINITIONS
+"Business Day" means a day other than a Saturday.
+The Operator shall provide the services to the Owner (the "Services").`,
+    parties: [
+      { name: 'Greystoke\nHarbour Services Limited', terms: ['Operator'], role: 'Operator', jurisdiction: 'GB' },
+      { name: 'Ilfracombe Marine\nHoldings plc', terms: ['Owner'], role: 'Owner' },
+    ],
+    collective: [{ term: 'Parties', parties: ['Greystoke\nHarbour Services Limited', 'Ilfracombe Marine\nHoldings plc'] }],
+    notParties: ['Services'],
+  },
 ];
