@@ -26,6 +26,7 @@ const SPELLED: Readonly<Record<string, string>> = {
   Ħ: 'h',
   ŀ: 'l',
   Ŀ: 'l',
+  ς: 'σ', // Greek final sigma: "ΟΔΟΣ" lower-cased letter by letter must meet "Οδος"
 };
 
 /** Quotes, dashes and ampersand-like signs written many ways; unified before anything else. */
