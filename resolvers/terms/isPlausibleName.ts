@@ -20,6 +20,20 @@ function letterStart(w: string): string | undefined {
   return undefined;
 }
 
+/**
+ * "Acme Ltd and Beta Ltd (the "MSA")": two legal entities joined by "and" are a set, not one party. A firm name
+ * with "and" ("Smith and Jones LLP") has no legal form on the left; "X GmbH und Co. KG" has no name on the right.
+ */
+export function joinsTwoEntities(name: string, analyse: (text: string) => NameAnalysis): boolean {
+  for (const joiner of [' and ', ' und ', ' et ']) {
+    const k = name.indexOf(joiner);
+    if (k <= 0 || analyse(name.slice(0, k)).legalForm === null) continue;
+    const right = analyse(name.slice(k + joiner.length));
+    if (right.legalForm !== null && right.core.length > 0 && !/^co\b/u.test(right.core)) return true;
+  }
+  return false;
+}
+
 export function readsAsName(name: string, analysis: NameAnalysis): boolean {
   if (name.length < 2 || name.length > MAX_NAME_LENGTH) return false;
   const first = name[0] as string;

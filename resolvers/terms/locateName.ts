@@ -255,10 +255,12 @@ export function locateNameAt(text: string, from: number, to: number, partyCue: b
 export function nameStarts(text: string, from: number, to: number, inheritedCue: boolean): Array<{ at: number; partyCue: boolean }> {
   const windowStart = Math.max(from, to - NAME_WINDOW);
   const b = lastBoundary(text, windowStart, to);
-  const partyCue = b.partyCue || (inheritedCue && b.at === windowStart);
+  // Only a stretch that directly follows the previous party's definition inherits its parties-clause context.
+  const partyCue = b.partyCue || (inheritedCue && windowStart === from && b.at === windowStart);
   const starts = [{ at: b.at, partyCue }];
   const segment = text.slice(b.at, to);
-  for (const sep of [', and ', '; and ', ', or ', ' and ', ', ']) {
+  // Not a bare " and ": "to Smith and Jones LLP" must not become "Jones LLP".
+  for (const sep of [', and ', '; and ', ', or ', ', ']) {
     const k = segment.lastIndexOf(sep);
     if (k > 0) starts.push({ at: b.at + k + sep.length, partyCue });
   }

@@ -14,7 +14,7 @@ import { extractJurisdiction } from './extractJurisdiction.ts';
 import { findDefinitions } from './findDefinitions.ts';
 import type { Definition, FoundTerm } from './findDefinitions.ts';
 import { findSignatureBlocks } from './findSignatureBlocks.ts';
-import { readsAsName } from './isPlausibleName.ts';
+import { joinsTwoEntities, readsAsName } from './isPlausibleName.ts';
 import { locateName, locateNameAt, NAME_WINDOW, nameStarts } from './locateName.ts';
 import { findPartyItems } from './findPartyItems.ts';
 import { wordsOf } from './textScan.ts';
@@ -134,7 +134,11 @@ function handleDefinition(c: Collector, def: Definition, prevEnd: number, nextSt
     const inner = text.slice(def.start + 1, def.end - 1);
     const extra = `(${inner}) ${trailingDescription(text, def.end, nextStart)}`;
     let added: Draft | null = null;
-    for (const start of nameStarts(text, prevEnd, def.start, c.inClause)) {
+    const starts = nameStarts(text, prevEnd, def.start, c.inClause);
+    const first = locateNameAt(text, (starts[0] as { at: number }).at, def.start, false);
+    // A term defined for "Acme Ltd and Beta Ltd" names the pair: no single party, and no later name either.
+    const forAPair = first !== null && joinsTwoEntities(text.slice(first.nameStart, first.nameEnd), (t) => analyseName(t));
+    for (const start of forAPair ? [] : starts) {
       const located = locateNameAt(text, start.at, def.start, start.partyCue);
       added = located === null ? null : c.addParty(located, partyTerms.map((t) => t.text), extra);
       if (added !== null) {
