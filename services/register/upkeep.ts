@@ -19,13 +19,21 @@ export interface MentionChangeResult {
   previousCounterpartyId: number | null;
 }
 
-/** Takes a mention off its counterparty (names it contributed go with it). Locks the counterparty first. */
-export async function detachMention(cs: ChangeSet, mention: Row, at: Date): Promise<number | null> {
+/**
+ * Takes a mention off its counterparty (names it contributed go with it) and gives it `status` (one that needs no
+ * counterparty). The caller has locked the counterparty.
+ */
+export async function detachMention(
+  cs: ChangeSet,
+  mention: Row,
+  at: Date,
+  status: 'review' | 'set_aside' | 'withdrawn' = 'review',
+): Promise<number | null> {
   const cpId = mention.counterparty_id as number | null;
   if (cpId === null) return null;
   const recorded = recordedNameOf(mention);
   if (recorded) await removeNameSighting(cs, cpId, recorded.name, recorded.kind);
-  await cs.update('mention', mention.id as number, { counterparty_id: null, updated_at: at.toISOString() });
+  await cs.update('mention', mention.id as number, { status, counterparty_id: null, updated_at: at.toISOString() });
   await touchCounterparty(cs, cpId, at);
   return cpId;
 }
@@ -60,7 +68,7 @@ async function changeMention(
     if (mention.status === status && mention.counterparty_id === null) {
       return { eventId: null, mentionId, status, previousCounterpartyId: null };
     }
-    const previous = await detachMention(cs, mention, at);
+    const previous = await detachMention(cs, mention, at, status);
     if (type === 'unlinked' && previous !== null) {
       // The person said this mention is not that counterparty: every later resolution honours it.
       await cs.insert('cannot_link', {
@@ -147,7 +155,7 @@ export async function withdrawContract(
     const mentions = await cs.lock('mention', ids);
     for (const mention of mentions) {
       if (mention.status === 'withdrawn') continue;
-      await detachMention(cs, mention, at);
+      await detachMention(cs, mention, at, 'withdrawn');
       await closeOpenItemsOfMention(cs, mention.id as number);
       await cs.update('mention', mention.id as number, {
         status: 'withdrawn',
