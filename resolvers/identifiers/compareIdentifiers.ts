@@ -19,7 +19,7 @@ import { isFreeMailDomain } from './contact.ts';
 import { splitDeRegister } from './deRegister.ts';
 import { normaliseIdentifier } from './normaliseIdentifier.ts';
 import { normaliseAddress } from './address.ts';
-import type { NormaliseOptions } from './types.ts';
+import type { NormaliseOptions, NormaliseResult } from './types.ts';
 import { sirenFromFrenchVat } from './vat.ts';
 
 export interface IdentifierEvidence {
@@ -71,6 +71,24 @@ function weakKey(e: IdentifierEvidence): string {
   return `${e.scheme}:${e.value}`;
 }
 
+/**
+ * Normalisation results by scheme, value, label and default country: a record's identifiers meet many candidates,
+ * and phone parsing is the costly part. Bounded; emptied when full. Results do not depend on it.
+ */
+const memo = new Map<string, NormaliseResult>();
+const MEMO_LIMIT = 50_000;
+
+function normaliseMemo(identifier: Identifier, options: NormaliseOptions): NormaliseResult {
+  const key = `${identifier.scheme}\u0000${identifier.value}\u0000${identifier.label ?? ''}\u0000${options.defaultCountry ?? ''}`;
+  let result = memo.get(key);
+  if (result === undefined) {
+    if (memo.size >= MEMO_LIMIT) memo.clear();
+    result = normaliseIdentifier(identifier, options);
+    memo.set(key, result);
+  }
+  return result;
+}
+
 function collect(side: 'a' | 'b', identifiers: readonly Identifier[], options: NormaliseOptions, ignored: IgnoredIdentifier[]): Side {
   const strong = new Map<IdentifierScheme | 'address', IdentifierEvidence[]>();
   const weak = new Map<string, IdentifierEvidence>();
@@ -80,7 +98,7 @@ function collect(side: 'a' | 'b', identifiers: readonly Identifier[], options: N
     strong.set(e.scheme, list);
   };
   for (const identifier of identifiers) {
-    const result = normaliseIdentifier(identifier, options);
+    const result = normaliseMemo(identifier, options);
     if (!result.ok) {
       ignored.push({ side, identifier, reason: result.reason });
       continue;
@@ -89,7 +107,7 @@ function collect(side: 'a' | 'b', identifiers: readonly Identifier[], options: N
     if (STRONG_SCHEMES.has(id.scheme)) {
       addStrong({ scheme: id.scheme, value: id.value });
       const siren = id.scheme === 'vat' ? sirenFromFrenchVat(id.value) : null;
-      if (siren) addStrong({ scheme: 'fr_siren', value: siren, derivedFrom: id });
+      if (siren) addStrong({ scheme: 'fr_siren', value: siren, derivedFrom: { ...id } });
     } else if (id.scheme === 'email_domain' && isFreeMailDomain(id.value)) {
       ignored.push({ side, identifier, reason: `e-mail domain ${id.value} is a free-mail provider: never evidence` });
     } else {

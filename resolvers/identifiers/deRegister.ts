@@ -2,8 +2,8 @@
  * German commercial register entries: register court + register type + number, e.g.
  * "Amtsgericht München HRB 12345", "HRB 1234 B, AG Charlottenburg", "Frankfurt a. M. HRA 987".
  *
- * Canonical value: "<court> <TYPE> <number>[ <suffix>]", court in lower-case ASCII with hyphens
- * ("muenchen HRB 12345", "berlin-charlottenburg HRB 1234 B", "frankfurt-am-main HRA 987").
+ * Canonical value: "<court> <TYPE> <number>[ <suffix>]", court in lower-case ASCII with hyphens and without
+ * connectors ("muenchen HRB 12345", "berlin-charlottenburg HRB 1234 B", "frankfurt-main HRA 987").
  * A number is unique only within its court and register type, so the court is required.
  */
 import { ok, problem, type SchemeResult } from './types.ts';
@@ -18,8 +18,14 @@ const REGISTER_TYPES = new Map<string, string>([
   ['VR', 'VR'],
 ]);
 
-/** Words around the court name that are not part of it. */
-const COURT_NOISE = new Set(['amtsgericht', 'ag', 'registergericht', 'handelsregister', 'beim', 'register', 'sitz', 'nr', 'nr.', 'registernummer', 'des', 'amtsgerichts']);
+/**
+ * Words around the court name that are not part of it, and the connectors inside it ("am", "im", "an der"),
+ * dropped so that "Frankfurt am Main", "Frankfurt a. M." and "Frankfurt/Main" give one key.
+ */
+const COURT_NOISE = new Set([
+  'amtsgericht', 'ag', 'registergericht', 'handelsregister', 'beim', 'register', 'sitz', 'nr', 'nr.', 'registernummer', 'des', 'amtsgerichts',
+  'am', 'an', 'der', 'im', 'in',
+]);
 
 /** Abbreviations inside court names (common practice). */
 const COURT_ABBREVIATIONS = new Map<string, string>([

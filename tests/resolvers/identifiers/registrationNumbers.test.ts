@@ -139,7 +139,10 @@ describe('DE register entries', () => {
     expect(norm('de_register', 'HRB 12345, AG Muenchen')).toBe('muenchen HRB 12345');
     expect(norm('de_register', 'HRB 1234 B, AG Charlottenburg')).toBe('berlin-charlottenburg HRB 1234 B');
     expect(norm('de_register', 'Amtsgericht Berlin (Charlottenburg) HRB 1234 B')).toBe('berlin-charlottenburg HRB 1234 B');
-    expect(norm('de_register', 'Frankfurt a. M. HR B 987')).toBe('frankfurt-am-main HRB 987');
+    expect(norm('de_register', 'Frankfurt a. M. HR B 987')).toBe('frankfurt-main HRB 987');
+    expect(norm('de_register', 'Amtsgericht Frankfurt am Main HRB 987')).toBe('frankfurt-main HRB 987');
+    expect(norm('de_register', 'AG Frankfurt/Main, HRB 987')).toBe('frankfurt-main HRB 987');
+    expect(norm('de_register', 'Amtsgericht Freiburg i. Br. HRB 701')).toBe(norm('de_register', 'Amtsgericht Freiburg im Breisgau HRB 701'));
     expect(norm('de_register', 'Registergericht Köln, HRA 00042')).toBe('koeln HRA 42');
   });
   it('requires a court and a type', () => {
