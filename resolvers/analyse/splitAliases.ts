@@ -66,7 +66,8 @@ function words(text: string): Word[] {
     const isWord = (c >= 0x61 && c <= 0x7a) || (c >= 0x41 && c <= 0x5a) || (c >= 0x30 && c <= 0x39) || c >= 0x80;
     if (isWord && start < 0) start = i;
     else if (!isWord && start >= 0) {
-      out.push({ text: text.slice(start, i).toLowerCase(), start, end: i });
+      // Marker words are at most 10 letters: longer words are never compared, so not lower-cased either.
+      out.push({ text: i - start <= 10 ? text.slice(start, i).toLowerCase() : '', start, end: i });
       start = -1;
     }
   }

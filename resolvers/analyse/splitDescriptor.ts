@@ -24,10 +24,9 @@ const INCORPORATION_WORDS: ReadonlySet<string> = new Set(['incorporated', 'organ
 const PLACE_NOISE: ReadonlySet<string> = new Set(['the', 'state', 'commonwealth', 'province', 'laws', 'law', 'republic', 'kingdom', 'of']);
 
 export function splitDescriptor(primary: string): Descriptor | null {
-  const lower = primary.toLowerCase();
-  const at = Math.max(lower.lastIndexOf(', a '), lower.lastIndexOf(', an '));
+  const at = lastArticleComma(primary);
   if (at <= 0) return null;
-  const tailStart = lower.indexOf(' ', at + 2) + 1; // after "a" / "an"
+  const tailStart = primary.indexOf(' ', at + 2) + 1; // after "a" / "an"
   const tail = primary.slice(tailStart);
   const words = normaliseTokens(tail);
   if (words.length === 0 || words.length > MAX_DESCRIPTOR_WORDS) return null;
@@ -56,6 +55,19 @@ export function splitDescriptor(primary: string): Descriptor | null {
     place: placeOf(normaliseTokens(placeText)),
     form: { ...form, start: form.start + offset, end: form.end + offset },
   };
+}
+
+/** Offset of the last ", a " / ", an " (any case), or -1. Scans commas only: no lower-casing of the whole name. */
+function lastArticleComma(text: string): number {
+  for (let at = text.lastIndexOf(','); at > 0; at = text.lastIndexOf(',', at - 1)) {
+    if (text.charCodeAt(at + 1) !== 0x20) continue;
+    const a = text.charCodeAt(at + 2) | 0x20;
+    if (a !== 0x61) continue;
+    const next = text.charCodeAt(at + 3);
+    if (next === 0x20) return at;
+    if ((next | 0x20) === 0x6e && text.charCodeAt(at + 4) === 0x20) return at;
+  }
+  return -1;
 }
 
 function placeOf(words: string[]): string {
