@@ -3,6 +3,12 @@
  * (subject to the block-size rules of candidatePairs / the register's lookup).
  *
  *   t:<token>          every token of the core name (a rare shared word is the strongest cheap signal)
+ *   s:<stem>           the first 5 characters of each longer token: inflections and cognates across languages
+ *                      ("technologies" / "technologie", "dystrophie" / "dystrophy", "academie" / "academy")
+ *   q:<stem>|<stem>    every pair of stems among the 5 longest content words (length stands in for rarity
+ *                      so that the key never depends on the IDF table): names sharing two common words
+ *                      ("department … planning … environment") meet in a small block although each word's own
+ *                      block is too large to pair exhaustively
  *   a:<letters>        acronym keys: a short single-token name as written ("nrc"), and the initials of a
  *                      multi-token name, with and without function words ("northfield rail components" → "nrc")
  *   p:<prefix>         the first 6 letters of the core without spaces: catches a typo in a leading word
@@ -13,29 +19,34 @@
  * table only orders them (rarest first) so that a caller with a budget queries the most selective keys first;
  * oversized blocks are thinned at query time (candidatePairs uses a sorted neighbourhood inside them).
  */
-import type { IdfTable } from '../compare/idfTable.ts';
+import { ACRONYM_STOP_WORDS, initialsOf, type IdfTable } from '../compare/index.ts';
 import { isStrongScheme } from '../vocabulary.ts';
 import type { MatchRecord } from './matchRecord.ts';
 import { isUnspacedChar } from './script.ts';
 
 export const PREFIX_KEY_LENGTH = 6;
+export const STEM_LENGTH = 5;
+/** Content words (longest first) whose stems are paired into q: keys. */
+export const PAIR_KEY_WORDS = 5;
 
-/**
- * Words left out of the second initials key. Common practice: acronyms usually skip articles, prepositions and
- * conjunctions ("Thailand Science Research and Innovation" → TSRI). English, French, German, Spanish, Portuguese,
- * Italian and Dutch forms, kept short on purpose (a wrong entry only costs one extra key).
- */
-const FUNCTION_WORDS = new Set([
-  'of', 'the', 'and', 'for', 'in', 'on', 'at', 'to', 'a', 'an',
-  'de', 'des', 'du', 'la', 'le', 'les', 'et', 'pour', 'en', 'di', 'del', 'della', 'delle', 'dei', 'degli',
-  'e', 'y', 'da', 'do', 'dos', 'das', 'der', 'die', 'das', 'und', 'fur', 'van', 'het', 'voor', 'en', 'el', 'los', 'las',
-]);
 
 export function blockingKeys(record: MatchRecord, idf?: IdfTable): string[] {
   const { tokens, core } = record.analysis;
   const keys = new Set<string>();
   const rarestFirst = idf ? [...new Set(tokens)].sort((x, y) => idf.idf(y) - idf.idf(x) || (x < y ? -1 : x > y ? 1 : 0)) : [...new Set(tokens)];
   for (const token of rarestFirst) keys.add(`t:${token}`);
+  for (const token of rarestFirst) {
+    const chars = [...token];
+    if (chars.length > STEM_LENGTH) keys.add(`s:${chars.slice(0, STEM_LENGTH).join('')}`);
+  }
+  const content = [...new Set(tokens)]
+    .filter((t) => !ACRONYM_STOP_WORDS.has(t) && [...t].length > 1)
+    .sort((x, y) => [...y].length - [...x].length || (x < y ? -1 : x > y ? 1 : 0))
+    .slice(0, PAIR_KEY_WORDS);
+  const stems = [...new Set(content.map((t) => [...t].slice(0, STEM_LENGTH).join('')))].sort();
+  for (let x = 0; x < stems.length; x++) {
+    for (let y = x + 1; y < stems.length; y++) keys.add(`q:${stems[x]}|${stems[y]}`);
+  }
   for (const key of acronymKeys(tokens)) keys.add(key);
   const compact = core.replaceAll(' ', '');
   if ([...compact].length >= PREFIX_KEY_LENGTH) keys.add(`p:${[...compact].slice(0, PREFIX_KEY_LENGTH).join('')}`);
@@ -54,15 +65,12 @@ export function acronymKeys(tokens: readonly string[]): string[] {
     return length >= 2 && length <= 10 ? [`a:${only}`] : [];
   }
   if (tokens.length < 2) return [];
-  const all = tokens.map(firstChar).join('');
-  const content = tokens.filter((t) => !FUNCTION_WORDS.has(t)).map(firstChar).join('');
+  // Initials as the acronym comparator reads them (compare/initialsOf), with and without stop words.
+  const all = initialsOf(tokens, true);
+  const content = initialsOf(tokens, false);
   const keys = [`a:${all}`];
   if (content.length >= 2 && content !== all) keys.push(`a:${content}`);
   return keys;
-}
-
-function firstChar(token: string): string {
-  return String.fromCodePoint(token.codePointAt(0) as number);
 }
 
 function unspacedBigrams(compact: string): string[] {

@@ -14,7 +14,7 @@ import type { MatchRecord } from './matchRecord.ts';
 
 export interface CandidateOptions {
   idf?: IdfTable;
-  /** Blocks up to this size are paired exhaustively. Default 50. */
+  /** Blocks up to this size are paired exhaustively. Default 100 (chosen on ROR dev, docs/matching.md). */
   maxBlockSize?: number;
   /** Neighbours on each side inside an oversized block. Default 4. */
   window?: number;
@@ -34,7 +34,7 @@ export interface CandidatePairs {
 }
 
 export function candidatePairs(records: readonly MatchRecord[], options: CandidateOptions = {}): CandidatePairs {
-  const maxBlockSize = options.maxBlockSize ?? 50;
+  const maxBlockSize = options.maxBlockSize ?? 100;
   const window = options.window ?? 4;
   const globalWindow = options.globalWindow ?? 3;
   const kinds = options.keyKinds ? new Set(options.keyKinds) : null;
@@ -100,9 +100,13 @@ export function candidatePairs(records: readonly MatchRecord[], options: Candida
 }
 
 function compareCore(records: readonly MatchRecord[], x: number, y: number): number {
-  const a = (records[x] as MatchRecord).analysis.core;
-  const b = (records[y] as MatchRecord).analysis.core;
-  return a < b ? -1 : a > b ? 1 : x - y;
+  const ra = records[x] as MatchRecord;
+  const rb = records[y] as MatchRecord;
+  const a = ra.analysis.core;
+  const b = rb.analysis.core;
+  // Ties broken by id, so that the neighbourhoods (and the pairs) do not depend on the input order.
+  if (a !== b) return a < b ? -1 : 1;
+  return ra.id < rb.id ? -1 : ra.id > rb.id ? 1 : x - y;
 }
 
 /** Growable pair storage: two Int32Arrays doubled as needed (no per-pair objects). */

@@ -9,12 +9,12 @@
 export const FEATURE_LEVELS = {
   /** Core-name similarity. */
   name: ['exact', 'very_high', 'high', 'medium', 'low', 'none'],
-  /** Legal-form compatibility (compare/legalFormCompatibility). */
-  legalForm: ['same_family', 'compatible', 'conflicting'],
-  /** Jurisdiction / country agreement. */
-  jurisdiction: ['same', 'different'],
-  /** One side written as a short acronym: does it fit the other's initials? */
-  acronym: ['fits', 'does_not_fit'],
+  /** Legal-form compatibility (compare/compareLegalForms). */
+  legalForm: ['same_family', 'compatible', 'conflicting', 'different_jurisdiction'],
+  /** Jurisdiction / country agreement (compare/compareJurisdictions). */
+  jurisdiction: ['same', 'compatible', 'conflicting'],
+  /** One side a short acronym, the other not: does it fit the other's initials (compare/compareAcronym)? */
+  acronym: ['initials', 'initials_with_stop_words', 'none'],
   /** Parenthesised place qualifiers on both sides ("(Europe)" vs "(Asia)"). */
   qualifier: ['same', 'different'],
   /** Shared weak identifiers (phone, domain, bank account): "same or affiliated". */

@@ -7,3 +7,4 @@ export { compareRecords, type Comparison } from './compareRecords.ts';
 export { scorePair, scoreComparison, explainLevels, levelVector, type PairScore, type FeatureExplanation, type ScoreOptions } from './scorePair.ts';
 export { trainModel, type TrainOptions } from './trainModel.ts';
 export { compareCandidates, comparedVectors, randomPairVectors, scoreCompared, edgesOf, type ComparedPairs } from './compareCandidates.ts';
+export { DEFAULT_MATCH_MODEL } from './defaultModel.ts';
