@@ -12,6 +12,8 @@ export interface SignatureEntity {
   label?: string;
   /** Signers' names and titles: seen, and not parties. */
   notParties: string[];
+  /** A descriptive line under the entity line ("a Delaware corporation"). */
+  description?: string;
 }
 
 interface Line {
@@ -118,11 +120,18 @@ export function findSignatureBlocks(text: string): SignatureEntity[] {
 }
 
 function entityAbove(text: string, lines: Line[], byIndex: number): SignatureEntity | null {
+  let description: string | undefined;
   for (let j = byIndex - 1; j >= 0 && j >= byIndex - LOOK_UP; j--) {
     const line = lines[j] as Line;
     if (isSkippable(line.text)) continue;
+    // "ACME ROBOTICS, INC.," / "a Delaware corporation" / "By: ___": the descriptive line sits between.
+    if (/^\s*(?:a|an)\s/u.test(line.text)) {
+      description = line.text.trim();
+      continue;
+    }
     const entity = entityFrom(text, line);
     if (entity === null) return null;
+    if (description !== undefined) entity.description = description;
     if (entity.label === undefined) {
       // A label on its own line above the entity: "LICENSOR:"
       for (let k = j - 1; k >= 0 && k >= j - 2; k--) {

@@ -17,6 +17,7 @@ import { findSignatureBlocks } from './findSignatureBlocks.ts';
 import { joinsTwoEntities, readsAsName } from './isPlausibleName.ts';
 import { locateName, locateNameAt, NAME_WINDOW, nameStarts } from './locateName.ts';
 import { findPartyItems } from './findPartyItems.ts';
+import { findLabelledParties } from './findLabelledParties.ts';
 import { wordsOf } from './textScan.ts';
 import type { LocatedName } from './locateName.ts';
 import { NON_PARTY_TERMS } from './nonPartyTerms.ts';
@@ -254,8 +255,9 @@ export function parseParties(text: string, options: ParseOptions = {}): ParsedCo
     prevEnd = def.end;
   }
   for (const item of findPartyItems(text, defs)) c.addParty(item, [], '');
+  for (const labelled of findLabelledParties(text)) c.addParty(labelled.located, labelled.terms, '');
   for (const sig of findSignatureBlocks(text)) {
-    c.addParty(sig.located, [], '', sig.label);
+    c.addParty(sig.located, [], sig.description ?? '', sig.label);
     for (const n of sig.notParties) c.noteNotParty(n);
   }
   const own = (options.ownEntities ?? []).filter((n) => typeof n === 'string' && n.trim().length > 0).map((n) => analyseName(n));

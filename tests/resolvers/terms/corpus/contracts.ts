@@ -606,4 +606,39 @@ The Operator shall provide the services to the Owner (the "Services").`,
     collective: [{ term: 'Parties', parties: ['Greystoke\nHarbour Services Limited', 'Ilfracombe Marine\nHoldings plc'] }],
     notParties: ['Services'],
   },
+  {
+    id: 'asia-party-a-b',
+    style: 'English-language contract in the Asian "Party A (Seller):" label style, with address lines',
+    text: `SALES CONTRACT
+
+Contract No.: QX-2024-118
+
+Party A (Seller): Qingxi Mountain Tea Co., Ltd.
+Address: 8 Tea Garden Road, Qingxi, China
+
+Party B (Buyer): Harrowby Fine Foods Limited
+Address: 14 Market Place, York YO1 8AA, United Kingdom
+
+Notices: Harrowby Fine Foods Limited, attention of the company secretary.`,
+    parties: [
+      { name: 'Qingxi Mountain Tea Co., Ltd.', terms: ['Seller', 'Party A'], role: 'Seller' },
+      { name: 'Harrowby Fine Foods Limited', terms: ['Buyer', 'Party B'], role: 'Buyer' },
+    ],
+  },
+  {
+    id: 'us-signature-descriptive-line',
+    style: 'US signature block: label line, entity line, descriptive line, By:/Name:/Its:',
+    text: `IN WITNESS WHEREOF, the parties have executed this Agreement as of the date first above written.
+
+LICENSEE:
+
+NORTHWIND ORCHARD SUPPLY, LLC,
+a Michigan limited liability company
+
+By: ______________________
+Name: Colette Ambrose
+Its: Manager`,
+    parties: [{ name: 'NORTHWIND ORCHARD SUPPLY, LLC', terms: [], role: 'LICENSEE', jurisdiction: 'US-MI' }],
+    notParties: ['Colette Ambrose', 'Manager'],
+  },
 ];
