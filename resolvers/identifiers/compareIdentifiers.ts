@@ -166,6 +166,18 @@ export function compareIdentifiers(
     }
   }
 
+  // A company's ABN is two check digits followed by its ACN (ATO practice, from memory); the converse does not
+  // hold (not every ABN holder is a company), so this can only add agreement, never a cannot-link.
+  for (const [acnSide, abnSide] of [[left, right], [right, left]] as const) {
+    for (const acn of acnSide.strong.get('au_acn') ?? []) {
+      const abn = (abnSide.strong.get('au_abn') ?? []).find((x) => x.value.slice(2) === acn.value);
+      if (abn && !equalStrong.some((e) => e.scheme === 'au_acn' && e.value === acn.value)) {
+        equalStrong.push({ scheme: 'au_acn', value: acn.value, derivedFrom: { scheme: 'au_abn', value: abn.value } });
+        explanation.push(`ACN ${acn.value} is the last nine digits of ABN ${abn.value}: decisive for the same legal entity`);
+      }
+    }
+  }
+
   const sharedWeak: IdentifierEvidence[] = [];
   for (const [key, e] of left.weak) {
     if (right.weak.has(key)) {

@@ -144,6 +144,17 @@ describe('compareIdentifiers', () => {
     expect(r.decisive).toBe(true);
     expect(r.equalStrong[0]).toMatchObject({ scheme: 'fr_siren', value: '732829320', derivedFrom: { scheme: 'vat' } });
   });
+  it('an ACN inside an ABN agrees', () => {
+    // ABN built around ASIC's example ACN 004 085 616 (computed here): body weights 3..19 give 402; check digits
+    // p ≡ 10 − 402 (mod 89) = 53; ATO sum (5−1)·10 + 3 + 402 = 445 = 5 · 89.
+    expect(normaliseIdentifier({ scheme: 'au_abn', value: '53 004 085 616' }).ok).toBe(true);
+    const r = compareIdentifiers([{ scheme: 'au_abn', value: '53 004 085 616' }], [{ scheme: 'au_acn', value: '004 085 616' }]);
+    expect(r.decisive).toBe(true);
+    expect(r.explanation[0]).toMatch(/ACN 004085616 is the last nine digits of ABN 53004085616/);
+    // The ATO example ABN 51 824 753 556 does not contain that ACN: no evidence either way.
+    const other = compareIdentifiers([{ scheme: 'au_abn', value: '51 824 753 556' }], [{ scheme: 'au_acn', value: '004 085 616' }]);
+    expect([other.decisive, other.cannotLink]).toEqual([false, false]);
+  });
   it('equal and different strong identifiers at once: conflicting, not decisive', () => {
     const r = compareIdentifiers([gleif, { scheme: 'vat', value: 'DE123456789' }], [lou, { scheme: 'vat', value: 'DE123456789' }]);
     expect([r.decisive, r.cannotLink, r.conflicting]).toEqual([false, true, true]);
