@@ -10,6 +10,8 @@ import serve from './serve.ts';
 import migrate from './migrate.ts';
 import demo from './demo.ts';
 import contract from './contract.ts';
+import keys from './keys.ts';
+import ingest from './ingest.ts';
 
 export const COMMANDS: Array<(program: Command) => void> = [
   analyse,
@@ -19,4 +21,6 @@ export const COMMANDS: Array<(program: Command) => void> = [
   migrate,
   demo,
   contract,
+  keys,
+  ingest,
 ];

@@ -4,5 +4,7 @@ import { counterpartyRoutes } from './counterparties.ts';
 import { historyRoutes } from './history.ts';
 import { keyRoutes } from './keys-me.ts';
 import { upkeepRoutes } from './upkeep.ts';
+import { mentionRoutes } from './mentions.ts';
+import { contractReviewRoutes } from './contracts-review.ts';
 
-export const V1_ROUTES: RoutePlugin[] = [keyRoutes, counterpartyRoutes, historyRoutes, upkeepRoutes];
+export const V1_ROUTES: RoutePlugin[] = [keyRoutes, counterpartyRoutes, historyRoutes, upkeepRoutes, mentionRoutes, contractReviewRoutes];

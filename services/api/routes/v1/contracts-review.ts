@@ -1,0 +1,264 @@
+/** Contracts (post: write; read: read), review items (list: read; decide: admin) and the score statistics. */
+import { sql } from 'kysely';
+import { storeContract, type ContractInput } from '../../../register/contracts.ts';
+import { decideReview, listReviewItems, type ReviewDecisionInput } from '../../../register/review.ts';
+import { currentModel } from '../../../register/matching/model.ts';
+import { findContractId, getContract } from '../../../../db/queries/contracts.ts';
+import { ApiError, problemResponses } from '../../errors.ts';
+import type { RoutePlugin } from '../../types.ts';
+import { ID_PARAM, MENTION_OUT, PAGE_QUERY, REASON, SOURCE_ID, actorOf, decodeCursor, page, pagedOf, v1Scope } from './common.ts';
+import { RESOLVE_OUT } from './mentions.ts';
+
+export const CONTRACT_BODY_LIMIT = 1024 * 1024;
+const MAX_CONTRACT_TEXT = 1024 * 1024;
+
+const CONTRACT_OUT = {
+  type: 'object',
+  properties: {
+    id: { type: 'integer' },
+    source: { type: 'string' },
+    externalId: { type: 'string' },
+    title: { type: 'string', nullable: true },
+    status: { type: 'string' },
+    contentHash: { type: 'string' },
+    parties: {
+      type: 'array',
+      items: {
+        type: 'object',
+        properties: {
+          position: { type: 'integer' },
+          mentionId: { type: 'integer' },
+          text: { type: 'string' },
+          role: { type: 'string', nullable: true },
+          terms: { type: 'array', items: { type: 'string' } },
+          status: { type: 'string' },
+          counterpartyId: { type: 'integer', nullable: true },
+          ownEntityId: { type: 'integer', nullable: true },
+          canonicalName: { type: 'string', nullable: true },
+        },
+      },
+    },
+    definedTerms: { type: 'array', items: { type: 'object', properties: { term: { type: 'string' }, partyIndex: { type: 'integer', nullable: true }, collective: { type: 'boolean' } } } },
+    createdAt: { type: 'string' },
+    updatedAt: { type: 'string' },
+  },
+} as const;
+
+const SUMMARY = { type: 'object', properties: { id: { type: 'integer' }, canonicalName: { type: 'string' }, jurisdiction: { type: 'string', nullable: true }, status: { type: 'string' }, version: { type: 'integer' } } } as const;
+
+export const contractReviewRoutes: RoutePlugin = (app, deps) => {
+  const ctx = v1Scope(app, deps);
+  const db = deps.db;
+
+  app.post<{ Body: ContractInput }>(
+    '/v1/contracts',
+    {
+      config: { scope: 'write' },
+      bodyLimit: CONTRACT_BODY_LIMIT,
+      schema: {
+        summary: 'Store a contract, find its parties and defined terms, and resolve each party into the register',
+        description: 'Body up to 1 MB. The same (source, externalId) with the same text answers the stored contract (alreadyStored). Mentions that named this contract before it arrived are resolved again (reresolved).',
+        tags: ['contracts'],
+        body: {
+          type: 'object',
+          required: ['source', 'externalId', 'text'],
+          additionalProperties: false,
+          properties: { source: SOURCE_ID, externalId: SOURCE_ID, title: { type: 'string', maxLength: 1000 }, text: { type: 'string', minLength: 1, maxLength: MAX_CONTRACT_TEXT } },
+          example: { source: 'clm', externalId: 'C-2031', title: 'Supply Agreement', text: 'This Supply Agreement is made between Brackenridge Fabrication, Inc. ("Supplier") and Orvane Trading B.V. ("Buyer")…' },
+        },
+        response: {
+          200: {
+            type: 'object',
+            properties: {
+              contractId: { type: 'integer' },
+              alreadyStored: { type: 'boolean' },
+              parties: { type: 'array', items: { type: 'object', properties: { ...RESOLVE_OUT.properties, position: { type: 'integer' }, role: { type: 'string', nullable: true }, terms: { type: 'array', items: { type: 'string' } } } } },
+              reresolved: { type: 'array', items: RESOLVE_OUT },
+              contract: CONTRACT_OUT,
+            },
+          },
+        },
+      },
+    },
+    async (request) => storeContract(ctx, request.body, actorOf(request)),
+  );
+
+  app.get<{ Querystring: { q?: string; source?: string; externalId?: string; cursor?: string; limit: number } }>(
+    '/v1/contracts',
+    {
+      config: { scope: 'read' },
+      schema: {
+        summary: 'Contracts by title or external id (q), or the one with source and externalId; in id order',
+        tags: ['contracts'],
+        querystring: {
+          type: 'object',
+          additionalProperties: false,
+          properties: { q: { type: 'string', maxLength: 1000 }, source: SOURCE_ID, externalId: SOURCE_ID, ...PAGE_QUERY },
+        },
+        response: {
+          200: pagedOf({ type: 'object', properties: { id: { type: 'integer' }, source: { type: 'string' }, externalId: { type: 'string' }, title: { type: 'string', nullable: true }, status: { type: 'string' }, createdAt: { type: 'string' } } }),
+        },
+      },
+    },
+    async (request) => {
+      const { q, source, externalId, limit } = request.query;
+      let query = db.selectFrom('contract').select(['id', 'source', 'external_id', 'title', 'status', 'created_at']).where('id', '>', decodeCursor(request.query.cursor));
+      if (source !== undefined) query = query.where('source', '=', source);
+      if (externalId !== undefined) query = query.where('external_id', '=', externalId);
+      if (q) {
+        const like = `%${q.toLowerCase().replaceAll('\\', '\\\\').replaceAll('%', '\\%').replaceAll('_', '\\_')}%`;
+        query = query.where((eb) => eb.or([eb(sql`lower(coalesce(title, ''))`, 'like', like), eb('external_id', '=', q)]));
+      }
+      const rows = await query.orderBy('id').limit(limit + 1).execute();
+      return page(
+        rows.map((r) => ({ id: Number(r.id), source: r.source, externalId: r.external_id, title: r.title, status: r.status, createdAt: new Date(r.created_at).toISOString() })),
+        limit,
+      );
+    },
+  );
+
+  app.get<{ Params: { id: number } }>(
+    '/v1/contracts/:id',
+    {
+      config: { scope: 'read' },
+      schema: { summary: 'A contract with its parties (roles, terms, resolution) and defined terms', tags: ['contracts'], params: ID_PARAM, response: { 200: CONTRACT_OUT, ...problemResponses(404) } },
+    },
+    async (request) => {
+      const contract = await getContract(db, request.params.id);
+      if (!contract) throw new ApiError('NOT_FOUND', `contract ${request.params.id} does not exist`);
+      return contract;
+    },
+  );
+
+  app.get<{ Querystring: { source: string; externalId: string } }>(
+    '/v1/contracts/by-source',
+    {
+      config: { scope: 'read' },
+      schema: {
+        summary: 'The contract with this source and external id',
+        tags: ['contracts'],
+        querystring: { type: 'object', required: ['source', 'externalId'], additionalProperties: false, properties: { source: SOURCE_ID, externalId: SOURCE_ID } },
+        response: { 200: CONTRACT_OUT, ...problemResponses(404) },
+      },
+    },
+    async (request) => {
+      const id = await findContractId(db, request.query.source, request.query.externalId);
+      const contract = id === undefined ? undefined : await getContract(db, id);
+      if (!contract) throw new ApiError('NOT_FOUND', `no contract ${request.query.source}/${request.query.externalId}`);
+      return contract;
+    },
+  );
+
+  app.get<{ Querystring: { cursor?: string; limit: number } }>(
+    '/v1/review-items',
+    {
+      config: { scope: 'read' },
+      schema: {
+        summary: 'Open review items, oldest first, with both sides, the score and its explanation',
+        tags: ['review'],
+        querystring: { type: 'object', additionalProperties: false, properties: PAGE_QUERY },
+        response: {
+          200: pagedOf({
+            type: 'object',
+            properties: {
+              id: { type: 'integer' },
+              kind: { type: 'string' },
+              mentionId: { type: 'integer', nullable: true },
+              leftCounterpartyId: { type: 'integer', nullable: true },
+              rightCounterpartyId: { type: 'integer' },
+              score: { type: 'number', nullable: true },
+              evidence: { type: 'object', additionalProperties: true },
+              status: { type: 'string' },
+              createdAt: { type: 'string' },
+              mention: { ...MENTION_OUT, nullable: true },
+              left: { ...SUMMARY, nullable: true },
+              right: { ...SUMMARY, nullable: true },
+            },
+          }),
+        },
+      },
+    },
+    async (request) => {
+      const items = await listReviewItems(ctx, { afterId: decodeCursor(request.query.cursor), limit: request.query.limit + 1 });
+      const total = await db.selectFrom('review_item').select((eb) => eb.fn.countAll<string>().as('n')).where('status', '=', 'open').executeTakeFirstOrThrow();
+      return { ...page(items, request.query.limit), open: Number(total.n) };
+    },
+  );
+
+  app.post<{ Params: { id: number }; Body: ReviewDecisionInput }>(
+    '/v1/review-items/:id/decision',
+    {
+      config: { scope: 'admin' },
+      schema: {
+        summary: 'Decide a review item: same (merge or link) or different (a cannot-link every later resolution honours)',
+        tags: ['review'],
+        params: ID_PARAM,
+        body: {
+          type: 'object',
+          required: ['decision'],
+          additionalProperties: false,
+          properties: { decision: { type: 'string', enum: ['same', 'different'] }, reason: REASON },
+          example: { decision: 'different', reason: 'different registration numbers' },
+        },
+        response: {
+          200: { type: 'object', properties: { eventId: { type: 'integer' }, reviewItemId: { type: 'integer' }, decision: { type: 'string' }, counterpartyId: { type: 'integer', nullable: true } } },
+          ...problemResponses(404, 409),
+        },
+      },
+    },
+    async (request) => decideReview(ctx, request.params.id, request.body, actorOf(request, request.body.reason)),
+  );
+
+  app.get<{ Querystring: { limit: number; buckets: number } }>(
+    '/v1/stats/scores',
+    {
+      config: { scope: 'read' },
+      schema: {
+        summary: 'Distribution of recent resolution scores, with the two thresholds (linkAt, newAt)',
+        tags: ['stats'],
+        querystring: {
+          type: 'object',
+          additionalProperties: false,
+          properties: { limit: { type: 'integer', minimum: 1, maximum: 100_000, default: 5000, description: 'how many recent scored mentions' }, buckets: { type: 'integer', minimum: 2, maximum: 200, default: 40 } },
+        },
+        response: {
+          200: {
+            type: 'object',
+            properties: {
+              linkAt: { type: 'number' },
+              newAt: { type: 'number' },
+              count: { type: 'integer' },
+              min: { type: 'number', nullable: true },
+              max: { type: 'number', nullable: true },
+              buckets: { type: 'array', items: { type: 'object', properties: { from: { type: 'number' }, to: { type: 'number' }, count: { type: 'integer' }, byStatus: { type: 'object', additionalProperties: { type: 'integer' } } } } },
+            },
+          },
+        },
+      },
+    },
+    async (request) => {
+      const { model } = await currentModel(db);
+      const rows = await db
+        .selectFrom('mention')
+        .select(['score', 'status'])
+        .where('score', 'is not', null)
+        .where(sql<boolean>`abs(score) < 1e5`)
+        .orderBy('updated_at', 'desc')
+        .orderBy('id', 'desc')
+        .limit(request.query.limit)
+        .execute();
+      const scores = rows.map((r) => Number(r.score));
+      const min = scores.length ? Math.min(...scores, model.newAt) : null;
+      const max = scores.length ? Math.max(...scores, model.linkAt) : null;
+      const n = request.query.buckets;
+      const width = min === null || max === null || max === min ? 1 : (max - min) / n;
+      const buckets = Array.from({ length: min === null ? 0 : n }, (_, i) => ({ from: min! + i * width, to: min! + (i + 1) * width, count: 0, byStatus: {} as Record<string, number> }));
+      rows.forEach((r, i) => {
+        const b = buckets[Math.min(n - 1, Math.floor((scores[i]! - min!) / width))]!;
+        b.count++;
+        b.byStatus[r.status] = (b.byStatus[r.status] ?? 0) + 1;
+      });
+      return { linkAt: model.linkAt, newAt: model.newAt, count: rows.length, min, max, buckets };
+    },
+  );
+};

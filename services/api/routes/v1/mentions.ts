@@ -1,0 +1,164 @@
+/**
+ * POST /v1/mentions (one mention) and POST /v1/mentions/batch (a JSON array or NDJSON, at most 10,000 items,
+ * 10 MB; per-item results in input order). Larger sets go to POST /v1/jobs/ingest.
+ */
+import type { FastifyError, FastifyInstance } from 'fastify';
+import { resolveMention } from '../../../register/resolve/resolve-mention.ts';
+import { resolveBatch } from '../../../register/batch.ts';
+import { RegisterError } from '../../../register/errors.ts';
+import type { MentionInput } from '../../../../resolvers/vocabulary.ts';
+import { ApiError, problemResponses } from '../../errors.ts';
+import type { RoutePlugin } from '../../types.ts';
+import { COUNTRY, IDENTIFIER, NAME, SOURCE_ID, actorOf, registerContextOf, toApiError } from './common.ts';
+
+export const MAX_BATCH_ITEMS = 10_000;
+export const BATCH_BODY_LIMIT = 10 * 1024 * 1024;
+export const NDJSON = 'application/x-ndjson';
+
+export const MENTION_IN = {
+  type: 'object',
+  required: ['source', 'externalId', 'text'],
+  additionalProperties: false,
+  properties: {
+    source: SOURCE_ID,
+    externalId: SOURCE_ID,
+    text: { ...NAME, description: 'the party name as the source wrote it (at most 1,000 characters)' },
+    contract: { type: 'object', required: ['source', 'externalId'], additionalProperties: false, properties: { source: SOURCE_ID, externalId: SOURCE_ID } },
+    role: { type: 'string', maxLength: 300 },
+    country: COUNTRY,
+    address: { type: 'string', maxLength: 2000 },
+    identifiers: { type: 'array', maxItems: 50, items: IDENTIFIER },
+  },
+  example: { source: 'clm', externalId: 'C-2031/p2', text: 'Brackenridge Fabrication, Inc.', contract: { source: 'clm', externalId: 'C-2031' }, role: 'Supplier', country: 'US-DE' },
+} as const;
+
+export const RESOLVE_OUT = {
+  type: 'object',
+  properties: {
+    mentionId: { type: 'integer' },
+    source: { type: 'string' },
+    externalId: { type: 'string' },
+    status: { type: 'string' },
+    counterpartyId: { type: 'integer', nullable: true },
+    canonicalName: { type: 'string', nullable: true },
+    ownEntityId: { type: 'integer', nullable: true },
+    score: { type: 'number', nullable: true },
+    explanation: { type: 'object', additionalProperties: true },
+    reviewItemId: { type: 'integer', nullable: true },
+    alreadyIngested: { type: 'boolean' },
+    eventId: { type: 'integer', nullable: true },
+  },
+  example: { mentionId: 311, source: 'clm', externalId: 'C-2031/p2', status: 'linked', counterpartyId: 42, canonicalName: 'Brackenridge Fabrication, Inc.', ownEntityId: null, score: 14.2, explanation: { summary: 'same core name and legal form' }, reviewItemId: null, alreadyIngested: false, eventId: 120 },
+} as const;
+
+const BATCH_ITEM_OUT = {
+  type: 'object',
+  properties: {
+    ...RESOLVE_OUT.properties,
+    index: { type: 'integer' },
+    error: { type: 'object', properties: { code: { type: 'string' }, message: { type: 'string' }, field: { type: 'string' } } },
+  },
+} as const;
+
+function tooLarge(detail: string, extensions: Record<string, unknown>): ApiError {
+  return new ApiError('BATCH_TOO_LARGE', detail, { extensions: { ...extensions, jobRoute: '/v1/jobs/ingest' } });
+}
+
+/** NDJSON: one JSON value per non-empty line; a bad line is a 400 naming it. */
+export function parseNdjson(text: string): unknown[] {
+  const out: unknown[] = [];
+  let line = 0;
+  for (const raw of text.split('\n')) {
+    line++;
+    const trimmed = raw.trim();
+    if (trimmed === '') continue;
+    try {
+      out.push(JSON.parse(trimmed));
+    } catch (error) {
+      throw new ApiError('MALFORMED_JSON', `line ${line} of the NDJSON body is not valid JSON: ${(error as Error).message}`, { extensions: { line } });
+    }
+    if (out.length > MAX_BATCH_ITEMS) {
+      throw tooLarge(`the batch has more than ${MAX_BATCH_ITEMS} items; send it to POST /v1/jobs/ingest (NDJSON, any size)`, { limit: MAX_BATCH_ITEMS });
+    }
+  }
+  return out;
+}
+
+function mentionScope(app: FastifyInstance): void {
+  app.setErrorHandler((error: FastifyError | RegisterError, request, _reply) => {
+    if (error instanceof RegisterError) throw toApiError(error);
+    if ((error as FastifyError).code === 'FST_ERR_CTP_BODY_TOO_LARGE') {
+      const limit = request.routeOptions.bodyLimit;
+      throw new ApiError('PAYLOAD_TOO_LARGE', `the body exceeds this route's limit of ${limit} bytes${request.routeOptions.url === '/v1/mentions/batch' ? '; send larger sets to POST /v1/jobs/ingest (NDJSON, any size)' : ''}`, {
+        extensions: { limitBytes: limit, ...(request.routeOptions.url === '/v1/mentions/batch' ? { jobRoute: '/v1/jobs/ingest' } : {}) },
+      });
+    }
+    throw error;
+  });
+}
+
+export const mentionRoutes: RoutePlugin = (app, deps) => {
+  mentionScope(app);
+  const ctx = registerContextOf(deps);
+  app.addContentTypeParser(NDJSON, { parseAs: 'string', bodyLimit: BATCH_BODY_LIMIT }, (_request, body, done) => {
+    try {
+      done(null, parseNdjson(body as string));
+    } catch (error) {
+      done(error as Error, undefined);
+    }
+  });
+
+  app.post<{ Body: MentionInput }>(
+    '/v1/mentions',
+    {
+      config: { scope: 'write' },
+      schema: {
+        summary: 'Resolve one mention: status, counterparty, score and the explanation',
+        description: 'The same (source, externalId) sent again with the same content answers the stored result (alreadyIngested); with another text the mention is updated and resolved again.',
+        tags: ['mentions'],
+        body: MENTION_IN,
+        response: { 200: RESOLVE_OUT, ...problemResponses(409) },
+      },
+    },
+    async (request) => {
+      return resolveMention(ctx, request.body, actorOf(request));
+    },
+  );
+
+  app.post<{ Body: MentionInput[] }>(
+    '/v1/mentions/batch',
+    {
+      config: { scope: 'write' },
+      bodyLimit: BATCH_BODY_LIMIT,
+      schema: {
+        summary: 'Resolve up to 10,000 mentions together (JSON array or NDJSON); results in input order',
+        description:
+          'Content-Type application/json (an array) or application/x-ndjson (one mention per line). At most 10,000 items and 10 MB; a larger batch answers 413 BATCH_TOO_LARGE / PAYLOAD_TOO_LARGE naming the limit and POST /v1/jobs/ingest. The batch is clustered together with the register, so the outcome does not depend on the order of the items. A malformed item fails the whole request (422 with its pointer, nothing stored); an item the register refuses (e.g. a bad check digit) answers status `rejected` with its error in place.',
+        tags: ['mentions'],
+        body: { type: 'array', items: MENTION_IN, description: `at most ${MAX_BATCH_ITEMS} items` },
+        response: {
+          200: {
+            type: 'object',
+            properties: { items: { type: 'array', items: BATCH_ITEM_OUT }, counts: { type: 'object', additionalProperties: { type: 'integer' } } },
+          },
+          ...problemResponses(413),
+        },
+      },
+      preValidation: async (request) => {
+        if (Array.isArray(request.body) && request.body.length > MAX_BATCH_ITEMS) {
+          throw tooLarge(`the batch has ${request.body.length} items, more than the limit of ${MAX_BATCH_ITEMS}; send it to POST /v1/jobs/ingest (NDJSON, any size)`, { limit: MAX_BATCH_ITEMS, items: request.body.length });
+        }
+      },
+    },
+    async (request) => {
+      const results = await resolveBatch(ctx, request.body, actorOf(request));
+      const counts: Record<string, number> = {};
+      const items = results.map((r, index) => {
+        const key = r.status === 'rejected' ? 'rejected' : r.alreadyIngested ? 'already_ingested' : r.status;
+        counts[key] = (counts[key] ?? 0) + 1;
+        return { index, ...r };
+      });
+      return { items, counts };
+    },
+  );
+};

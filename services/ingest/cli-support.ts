@@ -1,0 +1,83 @@
+/**
+ * What the keys, ingest, export and reconcile commands share: opening (and migrating) the database with clear
+ * one-line errors, the CLI actor `cli:<operating-system user>`, and progress on stderr — a bar with rate and
+ * time left on a terminal, a plain line every few seconds otherwise.
+ */
+import { userInfo } from 'node:os';
+import type { Kysely } from 'kysely';
+import type { Database } from '../../db/types.ts';
+import { CliError } from '../cli/cli-error.ts';
+
+export async function withDatabase<T>(target: string | undefined, command: string, fn: (db: Kysely<Database>) => Promise<T>): Promise<T> {
+  const { openDatabase } = await import('../../db/open-database.ts');
+  const { migrateToLatest } = await import('../../db/migrate.ts');
+  const { DatabaseOpenError } = await import('../../db/database-errors.ts');
+  const { DatabaseLockedError } = await import('../../db/lock.ts');
+  let database;
+  try {
+    database = await openDatabase(target, { command, onMessage: (line) => process.stderr.write(`cpreg: ${line}\n`) });
+  } catch (error) {
+    if (error instanceof DatabaseOpenError || error instanceof DatabaseLockedError) throw new CliError(error.message, 1, { cause: error });
+    throw error;
+  }
+  try {
+    await migrateToLatest(database.db);
+    return await fn(database.db);
+  } finally {
+    await database.close();
+  }
+}
+
+export function cliActor(): string {
+  let name = process.env.USER ?? 'unknown';
+  try {
+    name = userInfo().username;
+  } catch {
+    // no passwd entry (containers): keep $USER
+  }
+  return `cli:${name}`;
+}
+
+export interface ProgressState {
+  done: number;
+  /** Fraction done (0..1) when known. */
+  fraction?: number;
+  /** Extra words after the counts ("12 rejected"). */
+  note?: string;
+}
+
+function duration(seconds: number): string {
+  if (!Number.isFinite(seconds) || seconds < 0) return '--:--';
+  const s = Math.round(seconds);
+  const h = Math.floor(s / 3600);
+  const m = Math.floor((s % 3600) / 60);
+  const pad = (n: number) => String(n).padStart(2, '0');
+  return h > 0 ? `${h}:${pad(m)}:${pad(s % 60)}` : `${pad(m)}:${pad(s % 60)}`;
+}
+
+/** Progress on stderr; `quiet` (e.g. --json with no TTY) still prints the periodic lines to stderr. */
+export function progressReporter(label: string, unit: string, out: NodeJS.WriteStream = process.stderr, intervalMs = 5000) {
+  const started = performance.now();
+  let lastLine = 0;
+  const tty = Boolean(out.isTTY);
+  return {
+    update(state: ProgressState): void {
+      const elapsed = (performance.now() - started) / 1000;
+      const rate = elapsed > 0 ? state.done / elapsed : 0;
+      const left = state.fraction && state.fraction > 0 ? (elapsed * (1 - state.fraction)) / state.fraction : NaN;
+      if (tty) {
+        const width = 24;
+        const filled = Math.round((state.fraction ?? 0) * width);
+        const bar = `[${'#'.repeat(filled)}${'.'.repeat(width - filled)}]`;
+        const pct = state.fraction === undefined ? '' : ` ${(state.fraction * 100).toFixed(0).padStart(3)}%`;
+        out.write(`\r${label} ${bar}${pct} ${state.done.toLocaleString('en-US')} ${unit} ${Math.round(rate).toLocaleString('en-US')}/s left ${duration(left)}${state.note ? ` ${state.note}` : ''}\u001b[K`);
+      } else if (performance.now() - lastLine >= intervalMs) {
+        lastLine = performance.now();
+        out.write(`${label}: ${state.done.toLocaleString('en-US')} ${unit} (${Math.round(rate).toLocaleString('en-US')}/s${state.fraction === undefined ? '' : `, ${(state.fraction * 100).toFixed(0)}%, about ${duration(left)} left`})${state.note ? `, ${state.note}` : ''}\n`);
+      }
+    },
+    finish(): void {
+      if (tty) out.write('\n');
+    },
+  };
+}

@@ -1,0 +1,231 @@
+/**
+ * Batch ingest of a CSV or NDJSON file: streamed (csv-parse / line reader with back-pressure, so memory does
+ * not grow with the file), resolved in batches through the register's batch resolution, with every row
+ * accounted for:
+ *
+ *   read = linked + review + new + own_entity + not_a_party + unbound_term + collective_term
+ *          + already_ingested + rejected
+ *
+ * Rejected rows go to the rejects file (line number, reason, the row as read). The run and its counts are
+ * stored in ingest_run (updated after every batch, so an interrupted run shows how far it got). Running the
+ * same file again resumes: rows already stored with the same content count as already_ingested.
+ */
+import { createReadStream, statSync } from 'node:fs';
+import { createInterface } from 'node:readline';
+import { parse } from 'csv-parse';
+import type { Kysely } from 'kysely';
+import type { Database } from '../../db/types.ts';
+import { createRegisterContext, type RegisterContext } from '../register/context.ts';
+import { resolveBatch } from '../register/batch.ts';
+import type { MentionInput } from '../../resolvers/vocabulary.ts';
+import { mentionFromJson, mentionFromRow, resolveColumns, type FieldMap, type RowResult } from './mapping.ts';
+import { RejectsWriter } from './rejects.ts';
+
+export const COUNT_KEYS = ['linked', 'review', 'new', 'own_entity', 'not_a_party', 'unbound_term', 'collective_term', 'already_ingested', 'rejected'] as const;
+export type CountKey = (typeof COUNT_KEYS)[number];
+export type IngestCounts = Record<CountKey, number> & { read: number; [other: string]: number };
+
+export type IngestFormat = 'csv' | 'ndjson';
+
+export interface IngestOptions {
+  db: Kysely<Database>;
+  file: string;
+  format?: IngestFormat;
+  source: string;
+  map?: FieldMap;
+  /** Where rejected rows go (a CSV: line, reason, row); created only when a row is rejected. */
+  rejectsFile: string;
+  actor: string;
+  batchSize?: number;
+  /** Called after every batch. */
+  onProgress?: (progress: IngestProgress) => void;
+  /** Checked between batches: when it answers true the run stops cleanly as `interrupted`. */
+  shouldStop?: () => boolean;
+  ctx?: RegisterContext;
+}
+
+export interface IngestProgress {
+  runId: number;
+  counts: IngestCounts;
+  bytesRead: number;
+  totalBytes: number;
+  elapsedMs: number;
+}
+
+export interface IngestSummary extends IngestProgress {
+  status: 'finished' | 'interrupted';
+  rejectsFile: string | null;
+  /** read minus the sum of the outcome counts: always 0 (the run fails loudly otherwise). */
+  unaccounted: number;
+}
+
+export function emptyCounts(): IngestCounts {
+  const counts = { read: 0 } as IngestCounts;
+  for (const key of COUNT_KEYS) counts[key] = 0;
+  return counts;
+}
+
+export function unaccounted(counts: IngestCounts): number {
+  let sum = 0;
+  for (const [key, value] of Object.entries(counts)) if (key !== 'read') sum += value;
+  return counts.read - sum;
+}
+
+export function formatOf(file: string, given?: IngestFormat): IngestFormat {
+  if (given) return given;
+  const lower = file.toLowerCase();
+  if (lower.endsWith('.ndjson') || lower.endsWith('.jsonl')) return 'ndjson';
+  if (lower.endsWith('.csv')) return 'csv';
+  throw new RangeError(`cannot tell the format of ${file} from its name: use .csv or .ndjson, or --format`);
+}
+
+interface Row {
+  line: number;
+  raw: string;
+  result: RowResult;
+}
+
+/** Rows of the file, each with its line number and raw text. */
+async function* rowsOf(file: string, format: IngestFormat, source: string, map: FieldMap, stream: NodeJS.ReadableStream, onSkip: (line: number, reason: string, raw: string) => void): AsyncGenerator<Row> {
+  if (format === 'ndjson') {
+    const lines = createInterface({ input: stream, crlfDelay: Infinity });
+    let line = 0;
+    for await (const text of lines) {
+      line++;
+      if (text.trim() === '') continue;
+      let value: unknown;
+      try {
+        value = JSON.parse(text);
+      } catch (error) {
+        yield { line, raw: text, result: { ok: false, reason: `not valid JSON: ${(error as Error).message}` } };
+        continue;
+      }
+      yield { line, raw: text, result: mentionFromJson(value, text, source) };
+    }
+    return;
+  }
+  const parser = stream.pipe(
+    parse({
+      bom: true,
+      relax_column_count: true,
+      skip_empty_lines: true,
+      info: true,
+      raw: true,
+      skip_records_with_error: true,
+      on_skip: (error, raw) => {
+        onSkip((error as { lines?: number } | undefined)?.lines ?? 0, `unreadable CSV: ${error?.message ?? 'parse error'}`, raw ?? '');
+        return undefined;
+      },
+    }),
+  );
+  let header: string[] | undefined;
+  let columns: FieldMap = {};
+  for await (const item of parser as AsyncIterable<{ record: string[]; info: { lines: number }; raw: string }>) {
+    const { record, info, raw } = item;
+    const line = info.lines;
+    if (!header) {
+      header = record.map((h) => h.trim());
+      columns = resolveColumns(header, map);
+      continue;
+    }
+    const rawText = raw.replace(/\r?\n$/, '');
+    if (record.length !== header.length) {
+      yield { line, raw: rawText, result: { ok: false, reason: `has ${record.length} cells, the header has ${header.length}` } };
+      continue;
+    }
+    const row: Record<string, string> = {};
+    header.forEach((h, i) => (row[h] = record[i]!));
+    yield { line, raw: rawText, result: mentionFromRow(row, record, columns, source) };
+  }
+  void file;
+}
+
+export async function ingestFile(options: IngestOptions): Promise<IngestSummary> {
+  const format = formatOf(options.file, options.format);
+  const totalBytes = statSync(options.file).size;
+  const ctx = options.ctx ?? createRegisterContext(options.db);
+  const batchSize = options.batchSize ?? 1000;
+  const started = performance.now();
+  const run = await options.db
+    .insertInto('ingest_run')
+    .values({ source: options.source, input_name: options.file.split(/[\\/]/).pop() ?? options.file, actor: options.actor, status: 'running', started_at: new Date() })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  const runId = Number(run.id);
+  const counts = emptyCounts();
+  const rejects = new RejectsWriter(options.rejectsFile);
+  const stream = createReadStream(options.file);
+  const progress = (): IngestProgress => ({ runId, counts: { ...counts }, bytesRead: stream.bytesRead, totalBytes, elapsedMs: performance.now() - started });
+  const reject = (line: number, reason: string, raw: string): void => {
+    counts.read++;
+    counts.rejected++;
+    rejects.write(line, reason, raw);
+  };
+  let batch: { line: number; raw: string; mention: MentionInput; identity: string }[] = [];
+  let seen = new Map<string, { line: number; raw: string }>();
+  const flush = async (): Promise<void> => {
+    if (batch.length === 0) return;
+    const results = await resolveBatch(ctx, batch.map((b) => b.mention), { actor: options.actor, reason: `ingest run ${runId}` });
+    results.forEach((result, i) => {
+      const row = batch[i]!;
+      counts.read++;
+      if (result.status === 'rejected') {
+        counts.rejected++;
+        rejects.write(row.line, 'error' in result ? result.error.message : 'rejected', row.raw);
+      } else if (result.alreadyIngested) counts.already_ingested++;
+      else counts[result.status] = (counts[result.status] ?? 0) + 1;
+    });
+    batch = [];
+    seen = new Map();
+    await options.db.updateTable('ingest_run').set({ counts: JSON.stringify(counts) }).where('id', '=', runId).execute();
+    options.onProgress?.(progress());
+  };
+  let status: IngestSummary['status'] = 'finished';
+  try {
+    for await (const row of rowsOf(options.file, format, options.source, options.map ?? {}, stream, reject)) {
+      if (!row.result.ok) {
+        reject(row.line, row.result.reason, row.raw);
+        continue;
+      }
+      const earlier = seen.get(row.result.identity);
+      if (earlier) {
+        // The same row twice in one batch: an exact repeat is already ingested; a different row with the same
+        // external id cannot be both, so the later one is refused and named.
+        if (earlier.raw === row.raw) {
+          counts.read++;
+          counts.already_ingested++;
+        } else reject(row.line, `same external id as line ${earlier.line} with other content`, row.raw);
+        continue;
+      }
+      seen.set(row.result.identity, { line: row.line, raw: row.raw });
+      batch.push({ line: row.line, raw: row.raw, mention: row.result.mention, identity: row.result.identity });
+      if (batch.length >= batchSize) {
+        await flush();
+        if (options.shouldStop?.()) {
+          status = 'interrupted';
+          break;
+        }
+      }
+    }
+    if (status === 'finished') await flush();
+  } catch (error) {
+    stream.destroy();
+    await rejects.close();
+    await options.db
+      .updateTable('ingest_run')
+      .set({ status: 'failed', counts: JSON.stringify(counts), finished_at: new Date(), error: (error as Error).message })
+      .where('id', '=', runId)
+      .execute();
+    throw error;
+  }
+  stream.destroy();
+  await rejects.close();
+  const gap = unaccounted(counts);
+  await options.db
+    .updateTable('ingest_run')
+    .set({ status, counts: JSON.stringify(counts), finished_at: new Date(), error: gap === 0 ? null : `${gap} rows unaccounted` })
+    .where('id', '=', runId)
+    .execute();
+  if (gap !== 0) throw new Error(`ingest run ${runId}: ${gap} rows read but not accounted for (a defect: please report it)`);
+  return { ...progress(), bytesRead: status === 'finished' ? totalBytes : stream.bytesRead, status, rejectsFile: rejects.written > 0 ? options.rejectsFile : null, unaccounted: gap };
+}
