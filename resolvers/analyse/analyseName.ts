@@ -35,7 +35,7 @@ export function analyseName(text: string, hints: AnalyseHints = {}): NameAnalysi
     if (place !== undefined && (country === undefined || place.startsWith(country))) country = place;
   }
 
-  let found = findForm(primary);
+  let found = findForm(primary, country);
   if (!found && descriptor?.form) {
     // "Brackenridge Fabrication, a Delaware corporation": the descriptor's form is the name's form.
     found = { span: descriptor.form, trailing: [], trailingFrom: primary.length, text: descriptorText };
@@ -109,7 +109,7 @@ interface Found {
   text?: string;
 }
 
-function findForm(primary: string): Found | null {
+function findForm(primary: string, country: string | undefined): Found | null {
   const scan = scanName(primary);
   let end = primary.length;
   let hi = scan.length;
@@ -126,7 +126,7 @@ function findForm(primary: string): Found | null {
     end = open;
     while (hi > 0 && (scan.from[hi - 1] as number) >= end) hi--;
   }
-  const prefix = matchPrefixForm(primary, scan);
+  const prefix = matchPrefixForm(primary, scan, country);
   return prefix ? { span: prefix, trailing: [], trailingFrom: primary.length } : null;
 }
 

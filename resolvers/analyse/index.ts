@@ -9,3 +9,4 @@ export { partyVerdict, PRONOUNS, ROLE_WORDS, SIGNATURE_LABELS } from './partyFil
 export { splitAliases } from './splitAliases.ts';
 export { looksLikePersonName } from './looksLikePersonName.ts';
 export { isPrefixJurisdiction } from './legalFormIndex.ts';
+export { validateCountry } from './narrowCodes.ts';

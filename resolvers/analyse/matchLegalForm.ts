@@ -4,7 +4,7 @@
  * connector there), and else a prefix form. A designator must start a word and leave a non-empty name.
  */
 import type { LegalFormEntry, TrieNode } from './legalFormIndex.ts';
-import { legalFormIndex } from './legalFormIndex.ts';
+import { isPrefixJurisdiction, legalFormIndex } from './legalFormIndex.ts';
 import type { NameScan } from './scanName.ts';
 
 export interface LegalFormSpan {
@@ -28,16 +28,27 @@ function longestSuffix(scan: NameScan, lo: number, hi: number, root: TrieNode): 
   return best;
 }
 
-function longestPrefix(scan: NameScan, lo: number, hi: number, root: TrieNode): { end: number; entry: LegalFormEntry } | null {
+function longestPrefix(scan: NameScan, lo: number, hi: number, root: TrieNode, hinted: boolean): { end: number; entry: LegalFormEntry } | null {
   let node: TrieNode | undefined = root;
   let best: { end: number; entry: LegalFormEntry } | null = null;
   const { units, wordStart } = scan;
   for (let i = lo; i < hi - 1; i++) {
     node = node.next?.get(units[i] as number);
     if (!node) break;
-    if (node.entry && wordStart[i + 1] === 1) best = { end: i + 1, entry: node.entry };
+    if (node.entry && wordStart[i + 1] === 1 && (hinted || distinctivePrefix(node.entry.key))) best = { end: i + 1, entry: node.entry };
   }
   return best;
+}
+
+/**
+ * Without a country hint, a two-letter Latin prefix ("AB", "AS", "PS") is more often a pair of initials
+ * ("AB Widgets") than a Lithuanian or Estonian form; longer ones ("UAB", "SIA", "OOO") and non-Latin ones ("ООО")
+ * are distinctive enough. Common practice.
+ */
+function distinctivePrefix(key: string): boolean {
+  if (key.length >= 3) return true;
+  for (let i = 0; i < key.length; i++) if (key.charCodeAt(i) >= 0x80) return true;
+  return false;
 }
 
 const CONNECTED_WORDS: ReadonlySet<string> = new Set(['co', 'cie', 'company', 'compagnie', 'comp']);
@@ -92,11 +103,15 @@ export function matchSuffixForm(text: string, scan: NameScan, hi: number, limit:
   return { entry: hit.entry, start: scan.from[at] as number, end: extendOverDots(text, scan.to[hi - 1] as number, limit), position: 'suffix' };
 }
 
-/** The legal form that opens the scanned text, for the forms written first, or null. */
-export function matchPrefixForm(text: string, scan: NameScan): LegalFormSpan | null {
+/**
+ * The legal form that opens the scanned text, for the forms written first, or null. `country` is the hint:
+ * a hint outside the prefix countries rules prefix forms out; one inside admits the short ones.
+ */
+export function matchPrefixForm(text: string, scan: NameScan, country: string | undefined): LegalFormSpan | null {
   const n = scan.length;
   if (n < 2) return null;
-  const hit = longestPrefix(scan, 0, n, legalFormIndex().prefix);
+  if (country !== undefined && !isPrefixJurisdiction(country, true)) return null;
+  const hit = longestPrefix(scan, 0, n, legalFormIndex().prefix, country !== undefined);
   if (!hit) return null;
   return { entry: hit.entry, start: scan.from[0] as number, end: extendOverDots(text, scan.to[hit.end - 1] as number, text.length), position: 'prefix' };
 }

@@ -7,8 +7,9 @@ import type { LegalFormEntry } from './legalFormIndex.ts';
 
 const COUNTRY = /^[A-Z]{2}(?:-[A-Z0-9]{1,3})?$/;
 
-export function validateCountry(country: string | undefined): string | undefined {
-  if (country === undefined || country === '') return undefined;
+/** The hint upper-cased, or undefined for no hint (undefined, null, ""); throws RangeError naming the field. */
+export function validateCountry(country: string | null | undefined): string | undefined {
+  if (country === undefined || country === null || country === '') return undefined;
   const upper = String(country).trim().toUpperCase();
   if (!COUNTRY.test(upper)) {
     throw new RangeError(`hints.country must be an ISO 3166-1 alpha-2 or ISO 3166-2 code such as "FR" or "US-DE" (got "${String(country).slice(0, 20)}")`);

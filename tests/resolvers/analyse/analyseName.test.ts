@@ -106,6 +106,10 @@ describe('legal forms (ISO 20275 ELF v1.5)', () => {
     const lt = analyseName('UAB Giraitės Baldai');
     expect(lt.legalForm?.elfCodes).toEqual(['BPLS']);
     expect(lt.core).toBe('giraites baldai');
+    // Two-letter prefixes need the country: "AB Widgets" is a pair of initials, "AS Tallinna Vesi" in EE an AS.
+    expect(analyseName('AB Quillet Foods').legalForm).toBeNull();
+    expect(analyseName('AS Pärnu Veevärk', { country: 'EE' }).legalForm?.elfCodes).toEqual(['9LJA']); // ELF v1.5 EE 9LJA Aktsiaselts
+    expect(analyseName('UAB Giraitės Baldai', { country: 'GB' }).legalForm).toBeNull(); // a hint outside the prefix countries
     // Polish full names open a name (common practice): ELF v1.5 PL SMIS "przedsiębiorstwo państwowe".
     expect(analyseName('Przedsiębiorstwo Państwowe Wodnik Zalew').legalForm?.elfCodes).toEqual(['SMIS']);
   });

@@ -22,7 +22,8 @@ interface Form {
   text: string;
   /** Codes of jurisdictions where the form is appended, and where it stands first. */
   suffixCodes: Set<string>;
-  prefixCodes: Set<string>;
+  /** Country → codes of that country where the form stands first (tested with that country as the hint). */
+  prefixCodes: Map<string, Set<string>>;
 }
 
 function collect(kind: 'abbreviation' | 'name'): Map<string, Form> {
@@ -32,9 +33,12 @@ function collect(kind: 'abbreviation' | 'name'): Map<string, Form> {
     const texts = kind === 'abbreviation' ? row.abbreviations : [row.localName];
     for (const text of texts) {
       if (!LATIN_ONLY.test(text) || !HAS_LETTER.test(text)) continue;
-      const form = forms.get(text) ?? { text, suffixCodes: new Set<string>(), prefixCodes: new Set<string>() };
-      if (isPrefixJurisdiction(row.jurisdiction, kind === 'name')) form.prefixCodes.add(row.code);
-      else form.suffixCodes.add(row.code);
+      const form = forms.get(text) ?? { text, suffixCodes: new Set<string>(), prefixCodes: new Map<string, Set<string>>() };
+      if (isPrefixJurisdiction(row.jurisdiction, kind === 'name')) {
+        const codes = form.prefixCodes.get(row.country) ?? new Set<string>();
+        codes.add(row.code);
+        form.prefixCodes.set(row.country, codes);
+      } else form.suffixCodes.add(row.code);
       forms.set(text, form);
     }
   }
@@ -51,15 +55,16 @@ const SPELLINGS: Record<string, (text: string) => string> = {
 function measure(forms: Map<string, Form>, spell: (text: string) => string = (t) => t): { recognised: number; misses: string[] } {
   const misses: string[] = [];
   let recognised = 0;
-  const missingFrom = (placed: string, own: Set<string>): string[] => {
+  const missingFrom = (placed: string, own: Set<string>, country?: string): string[] => {
     if (own.size === 0) return [];
-    const codes = new Set(analyseName(placed).legalForm?.elfCodes ?? []);
+    const codes = new Set(analyseName(placed, { country }).legalForm?.elfCodes ?? []);
     return [...own].filter((c) => !codes.has(c));
   };
   for (const form of forms.values()) {
     const missing = [
       ...missingFrom(`${NAME} ${spell(form.text)}`, form.suffixCodes),
-      ...missingFrom(`${spell(form.text)} ${NAME}`, form.prefixCodes),
+      // A prefix form is tested as a mention of its own country would carry it: with that country as the hint.
+      ...[...form.prefixCodes].flatMap(([country, codes]) => missingFrom(`${spell(form.text)} ${NAME}`, codes, country)),
     ];
     if (missing.length === 0) recognised++;
     else misses.push(`${JSON.stringify(form.text)} (missing ${missing.join(' ')})`);
