@@ -74,8 +74,19 @@ interface Parsed {
   courtWords: string[];
 }
 
+/** "HRB12345" / "HRB12345B" written as one token → "HRB", "12345B". */
+function splitJoinedEntry(token: string): string[] {
+  const upper = token.toUpperCase();
+  for (const type of REGISTER_TYPES.keys()) {
+    if (upper.startsWith(type) && upper.length > type.length && upper.charCodeAt(type.length) >= 48 && upper.charCodeAt(type.length) <= 57) {
+      return [token.slice(0, type.length), token.slice(type.length)];
+    }
+  }
+  return [token];
+}
+
 function parse(value: string): Parsed | string {
-  const tokens = value.split(/[\s,;:]+/).filter((t) => t.length > 0);
+  const tokens = value.split(/[\s,;:]+/).filter((t) => t.length > 0).flatMap(splitJoinedEntry);
   let typeIndex = -1;
   let type = '';
   let consumed = 1;

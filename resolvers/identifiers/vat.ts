@@ -81,6 +81,8 @@ export function normaliseVat(value: string, defaultCountry?: string): SchemeResu
   } else if (defaultCountry) {
     prefix = vatPrefixForCountry(defaultCountry);
     if (VAT_FORMATS[prefix] === undefined) return problem(`has no known prefix and default country ${defaultCountry} has no VAT format here`);
+  } else if (/^[A-Z]{2}/.test(compact)) {
+    return problem(`prefix ${compact.slice(0, 2)} is not a VAT prefix known here (${VAT_PREFIXES.join(', ')})`);
   } else {
     return problem(`needs a country prefix (one of ${VAT_PREFIXES.join(', ')}) or a default country`);
   }

@@ -144,6 +144,8 @@ describe('DE register entries', () => {
     expect(norm('de_register', 'AG Frankfurt/Main, HRB 987')).toBe('frankfurt-main HRB 987');
     expect(norm('de_register', 'Amtsgericht Freiburg i. Br. HRB 701')).toBe(norm('de_register', 'Amtsgericht Freiburg im Breisgau HRB 701'));
     expect(norm('de_register', 'Registergericht Köln, HRA 00042')).toBe('koeln HRA 42');
+    expect(norm('de_register', 'AG Köln HRB12345')).toBe('koeln HRB 12345');
+    expect(norm('de_register', 'HRB1234B Amtsgericht Charlottenburg')).toBe('berlin-charlottenburg HRB 1234 B');
   });
   it('requires a court and a type', () => {
     expect(reason('de_register', 'HRB 12345')).toMatch(/^DE register entry .*register court/);
@@ -164,6 +166,7 @@ describe('EU VAT prefixes', () => {
     expect(norm('vat', 'CHE-123.456.789 MWST')).toBe('CHE123456789');
     expect(reason('vat', 'DE 12345678')).toMatch(/^VAT number .*DE999999999/);
     expect(reason('vat', '123456789')).toMatch(/needs a country prefix/);
+    expect(reason('vat', 'US123456789')).toMatch(/prefix US is not a VAT prefix/);
   });
 });
 
