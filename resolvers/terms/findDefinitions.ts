@@ -37,7 +37,6 @@ const POSSESSIVES = new Set(['its', 'their', 'his', 'her']);
 /** Words allowed between chained terms: "X" or the "Y". */
 const CHAIN_WORDS = new Set(['or', 'and', 'a', 'an', 'ou', 'oder', 'o', 'y', 'e', 'the', 'le', 'la', 'el', 'il', 'der', 'die']);
 
-export const HEREINAFTER_CUES = ['hereinafter', 'hereafter', 'ci-après', 'ci-apres', 'im folgenden', 'nachfolgend', 'en adelante', 'di seguito', 'referred to as', 'in prosieguo'];
 
 /** Reads the quoted terms of [from, to) in order, with the words that lead to each one. */
 function readTerms(text: string, from: number, to: number): FoundTerm[] {

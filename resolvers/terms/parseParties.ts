@@ -7,7 +7,7 @@ import { analyseName } from '../analyse/index.ts';
 import type { NameAnalysis } from '../analyse/types.ts';
 import { normaliseIdentifier } from '../identifiers/index.ts';
 import { checkContractText } from './checkContractText.ts';
-import { termKey } from './cleanTerm.ts';
+import { cleanTerm, termKey } from './cleanTerm.ts';
 import { extractAddress } from './extractAddress.ts';
 import { extractIdentifiers } from './extractIdentifiers.ts';
 import { extractJurisdiction } from './extractJurisdiction.ts';
@@ -214,6 +214,15 @@ function finishIdentifiers(raw: ContractIdentifier[], jurisdiction: string | und
   });
 }
 
+/** The analysis narrowed by the jurisdiction; the plain analysis if the hint is refused. */
+function analyseWithCountry(d: Draft, country: string): NameAnalysis {
+  try {
+    return analyseName(d.fullName, { country });
+  } catch {
+    return d.analysis;
+  }
+}
+
 /** "an individual residing at …": the text says the party is a natural person. */
 function saysIndividual(description: string): boolean {
   const lower = description.toLowerCase();
@@ -225,7 +234,7 @@ function finishParty(d: Draft, ownEntities: NameAnalysis[]): ContractParty {
   let jurisdiction = extractJurisdiction(description);
   const jurisdictions = d.analysis.legalForm?.jurisdictions ?? [];
   if (jurisdiction === undefined && jurisdictions.length === 1) jurisdiction = jurisdictions[0];
-  const analysis = jurisdiction === undefined ? d.analysis : analyseName(d.fullName, { country: jurisdiction });
+  const analysis = jurisdiction === undefined ? d.analysis : analyseWithCountry(d, jurisdiction);
   const party: ContractParty = {
     name: d.name,
     role: pickRole(d.terms, d.analysis, d.label),
@@ -243,6 +252,14 @@ function finishParty(d: Draft, ownEntities: NameAnalysis[]): ContractParty {
   return party;
 }
 
+function bindLabel(c: Collector, d: Draft, label: string): void {
+  const term = cleanTerm(label);
+  const key = termKey(term);
+  if (key.length === 0 || NON_PARTY_TERMS.has(key)) return;
+  if (c.drafts.some((other) => other.terms.some((t) => termKey(t) === key))) return;
+  d.terms.push(term);
+}
+
 export function parseParties(text: string, options: ParseOptions = {}): ParsedContract {
   const problem = checkContractText(text);
   if (problem !== null) return { parties: [], collectiveTerms: [], notParties: [], reason: problem };
@@ -257,7 +274,9 @@ export function parseParties(text: string, options: ParseOptions = {}): ParsedCo
   for (const item of findPartyItems(text, defs)) c.addParty(item, [], '');
   for (const labelled of findLabelledParties(text)) c.addParty(labelled.located, labelled.terms, '');
   for (const sig of findSignatureBlocks(text)) {
-    c.addParty(sig.located, [], sig.description ?? '', sig.label);
+    const d = c.addParty(sig.located, [], sig.description ?? '', sig.label);
+    // "LICENSOR:" over a signature binds the term to that entity, unless the contract binds it to another party.
+    if (d !== null && sig.label !== undefined) bindLabel(c, d, sig.label);
     for (const n of sig.notParties) c.noteNotParty(n);
   }
   const own = (options.ownEntities ?? []).filter((n) => typeof n === 'string' && n.trim().length > 0).map((n) => analyseName(n));

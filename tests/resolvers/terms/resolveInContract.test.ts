@@ -92,3 +92,22 @@ describe('resolveInContract', () => {
     expect(resolveInContract(empty, 'Harbourside Freight plc').status).toBe('match');
   });
 });
+
+describe('resolveInContract with signature labels', () => {
+  it('a label over a signature block binds its term when the preamble does not', () => {
+    const text = 'SUPPLIER:\nFENWICK & DALE LIMITED\n\nBy: ______\nName: Alistair Bexley\nTitle: Director';
+    const parsed = parseParties(text);
+    expect(resolveInContract(parsed, 'the Supplier').party?.name).toBe('FENWICK & DALE LIMITED');
+  });
+
+  it('a label never rebinds a term the preamble gave another party', () => {
+    const text = `This Agreement is made between Ashdown Mills Ltd, a company incorporated in England (the "Supplier"), and Brockley Farms Ltd, a company incorporated in England (the "Customer").
+
+SUPPLIER:
+BROCKLEY FARMS LTD
+By: ______`;
+    const parsed = parseParties(text);
+    expect(parsed.parties.map((p) => p.name)).toEqual(['Ashdown Mills Ltd', 'Brockley Farms Ltd']);
+    expect(resolveInContract(parsed, 'the Supplier').party?.name).toBe('Ashdown Mills Ltd');
+  });
+});

@@ -318,7 +318,7 @@ Director`,
   },
   {
     id: 'uk-labelled-signatures',
-    style: 'UK/US signature blocks with role labels; a public body without a legal form',
+    style: 'UK/US signature blocks with role labels (a label binds as a term); a public body without a legal form',
     text: `SUPPLIER:
 FENWICK & DALE LIMITED
 
@@ -333,8 +333,8 @@ By: ________________________
 Name: Sunita Marsh
 Title: Head of Procurement`,
     parties: [
-      { name: 'FENWICK & DALE LIMITED', terms: [], role: 'SUPPLIER' },
-      { name: 'Hartwell County Council', terms: [], role: 'CUSTOMER' },
+      { name: 'FENWICK & DALE LIMITED', terms: ['SUPPLIER'], role: 'SUPPLIER' },
+      { name: 'Hartwell County Council', terms: ['CUSTOMER'], role: 'CUSTOMER' },
     ],
     notParties: ['Alistair Bexley', 'Managing Director', 'Sunita Marsh', 'Head of Procurement'],
   },
@@ -638,7 +638,7 @@ a Michigan limited liability company
 By: ______________________
 Name: Colette Ambrose
 Its: Manager`,
-    parties: [{ name: 'NORTHWIND ORCHARD SUPPLY, LLC', terms: [], role: 'LICENSEE', jurisdiction: 'US-MI' }],
+    parties: [{ name: 'NORTHWIND ORCHARD SUPPLY, LLC', terms: ['LICENSEE'], role: 'LICENSEE', jurisdiction: 'US-MI' }],
     notParties: ['Colette Ambrose', 'Manager'],
   },
 ];
