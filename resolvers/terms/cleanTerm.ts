@@ -4,6 +4,8 @@ const ARTICLES = ['the ', 'le ', 'la ', "l'", 'l’', 'les ', 'el ', 'los ', 'la
 
 export function cleanTerm(raw: string): string {
   let t = raw.trim();
+  // US drafting puts the comma inside the quotes: (“Orchard,” “we,” or “us”).
+  while (t.length > 1 && (t.endsWith(',') || t.endsWith(';') || t.endsWith(':'))) t = t.slice(0, -1).trimEnd();
   const lower = t.toLowerCase();
   for (const a of ARTICLES) {
     if (lower.startsWith(a) && t.length > a.length) {

@@ -641,4 +641,18 @@ Its: Manager`,
     parties: [{ name: 'NORTHWIND ORCHARD SUPPLY, LLC', terms: ['LICENSEE'], role: 'LICENSEE', jurisdiction: 'US-MI' }],
     notParties: ['Colette Ambrose', 'Manager'],
   },
+  {
+    id: 'us-commas-inside-quotes',
+    style: 'US: commas inside curly quotes (“Orchard,” “we,” or “us”), company number in parentheses, "hereinafter called", collective in parentheses',
+    text: `This Services Agreement is entered into on May 2, 2024 by and among Orchard Lane Capital, Inc. (“Orchard,” “we,” or “us”), Tidewater Analytics LLC (Company No. 12345678) ("Tidewater") and Quillon Systems GmbH, hereinafter called the “Contractor” (hereinafter collectively referred to as the "Parties" and individually as a "Party").`,
+    parties: [
+      { name: 'Orchard Lane Capital, Inc.', terms: ['Orchard', 'we', 'us'], role: null },
+      { name: 'Tidewater Analytics LLC', terms: ['Tidewater'], role: null, identifiers: [{ scheme: 'gb_company', value: '12345678' }] },
+      { name: 'Quillon Systems GmbH', terms: ['Contractor'], role: 'Contractor' },
+    ],
+    collective: [
+      { term: 'Parties', parties: ['Orchard Lane Capital, Inc.', 'Tidewater Analytics LLC', 'Quillon Systems GmbH'] },
+      { term: 'Party', parties: ['Orchard Lane Capital, Inc.', 'Tidewater Analytics LLC', 'Quillon Systems GmbH'] },
+    ],
+  },
 ];
