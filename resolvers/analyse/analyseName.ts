@@ -115,7 +115,7 @@ function findForm(primary: string, country: string | undefined): Found | null {
   let hi = scan.length;
   const trailing: string[] = [];
   for (let k = 0; k <= MAX_TRAILING_GROUPS; k++) {
-    const span = matchSuffixForm(primary, scan, hi, end);
+    const span = matchSuffixForm(primary, scan, hi, end, country);
     if (span) return { span, trailing, trailingFrom: end };
     const open = trailingGroupStart(primary, end);
     if (open <= 0) break;

@@ -82,6 +82,22 @@ function extendCompound(text: string, scan: NameScan, at: number): number {
   return inner ? inner.at : at;
 }
 
+/**
+ * Two-letter designators that are also everyday tokens at the end of names: Roman numerals ("Fund II"), "EU",
+ * "PR", "CA". They count only when written with their punctuation ("I/S", "C/A", "D.A.") or when the hint is a
+ * country they belong to. Common practice.
+ */
+const AMBIGUOUS_SUFFIXES: ReadonlySet<string> = new Set(['ii', 'vi', 'eu', 'pr', 'is', 'et', 'da', 'ca']);
+
+function ambiguousWithoutSupport(text: string, scan: NameScan, at: number, hi: number, entry: LegalFormEntry, country: string | undefined): boolean {
+  if (!AMBIGUOUS_SUFFIXES.has(entry.key)) return false;
+  const written = text.slice(scan.from[at], scan.to[hi - 1]);
+  if (written.includes('/') || written.includes('.')) return false;
+  if (country === undefined) return true;
+  const whole = country.length > 2 ? country.slice(0, 2) : country;
+  return !entry.jurisdictions.some((j) => j === country || j.slice(0, 2) === whole);
+}
+
 /** "Smith & Co.": a firm name, where "Co." means the partners and is no designator. */
 function isPartnersCo(text: string, scan: NameScan, at: number, key: string): boolean {
   if (!CONNECTED_WORDS.has(key) || at === 0) return false;
@@ -95,10 +111,11 @@ function isPartnersCo(text: string, scan: NameScan, at: number, key: string): bo
  * The legal form that ends the first `hi` units of `scan` (a scan of `text`), or null. `limit` is the offset in
  * `text` the match may extend to over final dots.
  */
-export function matchSuffixForm(text: string, scan: NameScan, hi: number, limit: number): LegalFormSpan | null {
+export function matchSuffixForm(text: string, scan: NameScan, hi: number, limit: number, country?: string): LegalFormSpan | null {
   if (hi < 2) return null;
   const hit = longestSuffix(scan, 0, hi, legalFormIndex().suffix);
   if (!hit || isPartnersCo(text, scan, hit.at, hit.entry.key)) return null;
+  if (ambiguousWithoutSupport(text, scan, hit.at, hi, hit.entry, country)) return null;
   const at = extendCompound(text, scan, hit.at);
   return { entry: hit.entry, start: scan.from[at] as number, end: extendOverDots(text, scan.to[hi - 1] as number, limit), position: 'suffix' };
 }

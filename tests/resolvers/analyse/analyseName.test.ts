@@ -158,6 +158,14 @@ describe('legal forms (ISO 20275 ELF v1.5)', () => {
     expect(lookupLegalForm('Widgets')).toBeNull();
   });
 
+  it('Roman numerals and everyday two-letter tokens are not designators without support', () => {
+    // ELF v1.5 lists "II" (LT A338), "DA" (NO CF5L), "I/S" (DK 7WRN); common practice: "Fund II" is a numeral.
+    expect(analyseName('Halvard Growth Fund II').legalForm).toBeNull();
+    expect(analyseName('Halvard Growth Fund II').core).toBe('halvard growth fund ii');
+    expect(analyseName('Sandvik Rederi DA', { country: 'NO' }).legalForm?.elfCodes).toEqual(['CF5L']);
+    expect(analyseName('Ostergaard Smede I/S').legalForm?.elfCodes).toContain('7WRN');
+  });
+
   it('a designator alone is not a name', () => {
     expect(analyseName('Limited').legalForm).toBeNull();
     expect(analyseName('The Company').legalForm).toBeNull();
