@@ -9,8 +9,8 @@
  * This is what stops chaining: A~B and B~C do not pull A and C together when A–C conflicts or scores low.
  * Pairs that were never scored (blocking did not propose them) carry no evidence either way and are not counted.
  *
- * Cost: O(E log E) for the sort plus amortised O(E log V) for merging the per-cluster neighbour tables
- * (smaller table into larger).
+ * Cost: O(E log E) for the sort; each merge attempt reads the scored pairs of the smaller cluster's members
+ * (adjacency in flat typed arrays), so clusters of a few names cost a few reads.
  */
 export interface ScoredEdge {
   a: string;
@@ -27,11 +27,12 @@ export interface ClusterOptions {
   averageAt?: number;
 }
 
-interface LinkStats {
-  sum: number;
+/** Pairs given by record index, for callers that already hold indices (no string keys, no duplicate pairs). */
+export interface IndexedPairs {
+  left: Int32Array;
+  right: Int32Array;
+  scores: Float64Array;
   count: number;
-  min: number;
-  cannot: boolean;
 }
 
 export function clusterRecords(
@@ -40,14 +41,54 @@ export function clusterRecords(
   cannotLinks: readonly (readonly [string, string])[],
   options: ClusterOptions,
 ): string[][] {
+  const index = new Map<string, number>();
+  const unique: string[] = [];
+  for (const id of ids) {
+    if (!index.has(id)) {
+      index.set(id, unique.length);
+      unique.push(id);
+    }
+  }
+  const indexOf = (id: string, what: string): number => {
+    const at = index.get(id);
+    if (at === undefined) throw new Error(`clusterRecords: ${what} names record "${id}", which is not in the id list`);
+    return at;
+  };
+  const n = unique.length;
+  // One edge per unordered pair, the highest score winning; cannot-links as −Infinity.
+  const best = new Map<number, number>();
+  const put = (i: number, j: number, score: number, cannot: boolean): void => {
+    if (i === j) return;
+    const key = i < j ? i * n + j : j * n + i;
+    const seen = best.get(key);
+    if (cannot || seen === -Infinity) best.set(key, -Infinity);
+    else if (seen === undefined || score > seen) best.set(key, score);
+  };
+  for (const e of edges) put(indexOf(e.a, 'an edge'), indexOf(e.b, 'an edge'), e.score, false);
+  for (const [a, b] of cannotLinks) put(indexOf(a, 'a cannot-link'), indexOf(b, 'a cannot-link'), -Infinity, true);
+  const pairs: IndexedPairs = { left: new Int32Array(best.size), right: new Int32Array(best.size), scores: new Float64Array(best.size), count: best.size };
+  let k = 0;
+  for (const [key, score] of best) {
+    pairs.left[k] = Math.floor(key / n);
+    pairs.right[k] = key % n;
+    pairs.scores[k] = score;
+    k++;
+  }
+  return clusterIndexed(unique, pairs, options);
+}
+
+/**
+ * The same clustering over index pairs: `ids[i]` names record i; a score of −Infinity is a cannot-link.
+ * Pairs must be distinct (each unordered pair at most once).
+ */
+export function clusterIndexed(ids: readonly string[], pairs: IndexedPairs, options: ClusterOptions): string[][] {
   const conflictBelow = options.conflictBelow ?? -Infinity;
   const averageAt = options.averageAt ?? options.linkAt;
-  const index = new Map<string, number>();
-  for (const id of ids) if (!index.has(id)) index.set(id, index.size);
-  const n = index.size;
+  const n = ids.length;
+  const rank = idRanks(ids);
+  const adjacency = buildAdjacency(n, pairs);
   const parent = Int32Array.from({ length: n }, (_, i) => i);
   const members: number[][] = Array.from({ length: n }, (_, i) => [i]);
-  const links: Map<number, LinkStats>[] = Array.from({ length: n }, () => new Map());
   const find = (i: number): number => {
     let root = i;
     while (parent[root] !== root) root = parent[root] as number;
@@ -58,95 +99,92 @@ export function clusterRecords(
     }
     return root;
   };
-  const indexOf = (id: string, what: string): number => {
-    const at = index.get(id);
-    if (at === undefined) throw new Error(`clusterRecords: ${what} names record "${id}", which is not in the id list`);
-    return at;
-  };
 
-  const unique = dedupeEdges(edges);
-  for (const edge of unique) addStats(links, indexOf(edge.a, 'an edge'), indexOf(edge.b, 'an edge'), edge.score, false);
-  for (const [a, b] of cannotLinks) {
-    const ia = indexOf(a, 'a cannot-link');
-    const ib = indexOf(b, 'a cannot-link');
-    if (ia !== ib) addStats(links, ia, ib, NaN, true);
-  }
+  const order: number[] = [];
+  for (let k = 0; k < pairs.count; k++) if ((pairs.scores[k] as number) >= options.linkAt) order.push(k);
+  const lo = (k: number): number => Math.min(rank[pairs.left[k] as number] as number, rank[pairs.right[k] as number] as number);
+  const hi = (k: number): number => Math.max(rank[pairs.left[k] as number] as number, rank[pairs.right[k] as number] as number);
+  order.sort((x, y) => (pairs.scores[y] as number) - (pairs.scores[x] as number) || lo(x) - lo(y) || hi(x) - hi(y));
 
-  for (const edge of unique) {
-    if (!(edge.score >= options.linkAt)) break;
-    const ra = find(indexOf(edge.a, 'an edge'));
-    const rb = find(indexOf(edge.b, 'an edge'));
+  for (const k of order) {
+    const ra = find(pairs.left[k] as number);
+    const rb = find(pairs.right[k] as number);
     if (ra === rb) continue;
-    const stats = links[ra]?.get(rb);
-    if (!stats || stats.cannot || stats.min < conflictBelow || stats.sum / stats.count < averageAt) continue;
     const [big, small] = (members[ra] as number[]).length >= (members[rb] as number[]).length ? [ra, rb] : [rb, ra];
+    if (!mergeAllowed(members[small] as number[], big, adjacency, find, conflictBelow, averageAt)) continue;
     parent[small] = big;
     (members[big] as number[]).push(...(members[small] as number[]));
     members[small] = [];
-    mergeLinks(links, big, small);
   }
 
-  const idOf = [...index.keys()];
   const clusters: string[][] = [];
   for (let i = 0; i < n; i++) {
     if (find(i) !== i) continue;
-    clusters.push((members[i] as number[]).map((m) => idOf[m] as string).sort(compareIds));
+    clusters.push((members[i] as number[]).map((m) => ids[m] as string).sort(compareIds));
   }
   return clusters.sort((x, y) => compareIds(x[0] as string, y[0] as string));
 }
 
-/** One edge per unordered pair (the highest score wins), ordered best first with ids as the tie-break. */
-function dedupeEdges(edges: readonly ScoredEdge[]): ScoredEdge[] {
-  const best = new Map<string, ScoredEdge>();
-  for (const edge of edges) {
-    if (edge.a === edge.b) continue;
-    const [a, b] = compareIds(edge.a, edge.b) < 0 ? [edge.a, edge.b] : [edge.b, edge.a];
-    const key = `${a}\u0000${b}`;
-    const seen = best.get(key);
-    if (!seen || edge.score > seen.score) best.set(key, { a, b, score: edge.score });
-  }
-  return [...best.values()].sort((x, y) => y.score - x.score || compareIds(x.a, y.a) || compareIds(x.b, y.b));
+interface Adjacency {
+  offsets: Int32Array;
+  neighbours: Int32Array;
+  scores: Float64Array;
 }
 
-function addStats(links: Map<number, LinkStats>[], a: number, b: number, score: number, cannot: boolean): void {
-  for (const [from, to] of [
-    [a, b],
-    [b, a],
-  ] as const) {
-    const table = links[from] as Map<number, LinkStats>;
-    const stats = table.get(to) ?? { sum: 0, count: 0, min: Infinity, cannot: false };
-    if (cannot) stats.cannot = true;
-    else {
-      stats.sum += score;
-      stats.count += 1;
-      stats.min = Math.min(stats.min, score);
+/** Scored pairs as compressed adjacency lists (both directions). */
+function buildAdjacency(n: number, pairs: IndexedPairs): Adjacency {
+  const degree = new Int32Array(n + 1);
+  for (let k = 0; k < pairs.count; k++) {
+    degree[(pairs.left[k] as number) + 1]++;
+    degree[(pairs.right[k] as number) + 1]++;
+  }
+  for (let i = 0; i < n; i++) degree[i + 1] = (degree[i + 1] as number) + (degree[i] as number);
+  const offsets = degree;
+  const fill = offsets.slice(0, n);
+  const neighbours = new Int32Array(pairs.count * 2);
+  const scores = new Float64Array(pairs.count * 2);
+  for (let k = 0; k < pairs.count; k++) {
+    const a = pairs.left[k] as number;
+    const b = pairs.right[k] as number;
+    const s = pairs.scores[k] as number;
+    neighbours[fill[a] as number] = b;
+    scores[fill[a] as number] = s;
+    fill[a]++;
+    neighbours[fill[b] as number] = a;
+    scores[fill[b] as number] = s;
+    fill[b]++;
+  }
+  return { offsets, neighbours, scores };
+}
+
+function mergeAllowed(
+  small: readonly number[],
+  bigRoot: number,
+  adjacency: Adjacency,
+  find: (i: number) => number,
+  conflictBelow: number,
+  averageAt: number,
+): boolean {
+  let sum = 0;
+  let count = 0;
+  for (const x of small) {
+    for (let p = adjacency.offsets[x] as number; p < (adjacency.offsets[x + 1] as number); p++) {
+      if (find(adjacency.neighbours[p] as number) !== bigRoot) continue;
+      const s = adjacency.scores[p] as number;
+      if (s === -Infinity || s < conflictBelow) return false;
+      sum += s;
+      count++;
     }
-    table.set(to, stats);
   }
+  return count > 0 && sum / count >= averageAt;
 }
 
-/** Folds the neighbour table of `small` into `big` and repoints every neighbour at `big`. */
-function mergeLinks(links: Map<number, LinkStats>[], big: number, small: number): void {
-  const bigTable = links[big] as Map<number, LinkStats>;
-  const smallTable = links[small] as Map<number, LinkStats>;
-  bigTable.delete(small);
-  for (const [other, stats] of smallTable) {
-    if (other === big) continue;
-    const otherTable = links[other] as Map<number, LinkStats>;
-    otherTable.delete(small);
-    const existing = bigTable.get(other);
-    const combined = existing
-      ? {
-          sum: existing.sum + stats.sum,
-          count: existing.count + stats.count,
-          min: Math.min(existing.min, stats.min),
-          cannot: existing.cannot || stats.cannot,
-        }
-      : { ...stats };
-    bigTable.set(other, combined);
-    otherTable.set(big, { ...combined });
-  }
-  links[small] = new Map();
+/** Rank of each index in the sorted order of its id: the tie-break that makes the result order-independent. */
+function idRanks(ids: readonly string[]): Int32Array {
+  const order = ids.map((_, i) => i).sort((x, y) => compareIds(ids[x] as string, ids[y] as string));
+  const rank = new Int32Array(ids.length);
+  order.forEach((i, r) => (rank[i] = r));
+  return rank;
 }
 
 function compareIds(x: string, y: string): number {

@@ -1,2 +1,2 @@
-export { clusterRecords, type ClusterOptions, type ScoredEdge } from './clusterRecords.ts';
+export { clusterRecords, clusterIndexed, type ClusterOptions, type IndexedPairs, type ScoredEdge } from './clusterRecords.ts';
 export { clustersToLabels } from './clustersToLabels.ts';

@@ -5,7 +5,7 @@
 import type { CandidatePairs } from '../block/candidatePairs.ts';
 import type { MatchRecord } from '../block/matchRecord.ts';
 import type { IdfTable } from '../compare/index.ts';
-import type { ScoredEdge } from '../cluster/clusterRecords.ts';
+import type { IndexedPairs, ScoredEdge } from '../cluster/clusterRecords.ts';
 import type { Random } from '../prng.ts';
 import { compareRecords } from './compareRecords.ts';
 import type { ComparisonVector } from './em.ts';
@@ -101,4 +101,9 @@ export function edgesOf(records: readonly MatchRecord[], compared: ComparedPairs
     else edges.push({ a, b, score });
   }
   return { edges, cannotLinks };
+}
+
+/** The compared pairs with their scores as index pairs for cluster/clusterIndexed (cannot-links stay −Infinity). */
+export function indexedPairsOf(compared: ComparedPairs, scores: Float64Array): IndexedPairs {
+  return { left: compared.pairs.left, right: compared.pairs.right, scores, count: compared.pairs.count };
 }

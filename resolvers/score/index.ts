@@ -6,5 +6,5 @@ export { FEATURE_LEVELS, FEATURE_NAMES, NAME_BANDS, levelIndices, nameLevel, typ
 export { compareRecords, type Comparison } from './compareRecords.ts';
 export { scorePair, scoreComparison, explainLevels, levelVector, type PairScore, type FeatureExplanation, type ScoreOptions } from './scorePair.ts';
 export { trainModel, type TrainOptions } from './trainModel.ts';
-export { compareCandidates, comparedVectors, randomPairVectors, scoreCompared, edgesOf, type ComparedPairs } from './compareCandidates.ts';
+export { compareCandidates, comparedVectors, randomPairVectors, scoreCompared, edgesOf, indexedPairsOf, type ComparedPairs } from './compareCandidates.ts';
 export { DEFAULT_MATCH_MODEL } from './defaultModel.ts';

@@ -70,7 +70,11 @@ export function parseLabelledCsv(text: string, options: LoadOptions): LoadedFile
     skip_empty_lines: true,
     skip_records_with_error: true,
     on_skip: (error: { lines?: number; message: string } | undefined) => {
-      if (error) problems.push({ line: error.lines ?? 0, problem: `unparseable CSV row: ${error.message}` });
+      if (!error) return;
+      const line = error.lines ?? 0;
+      // csv-parse may report one broken row twice (e.g. a stray quote); one line, one problem.
+      if (problems.at(-1)?.line === line) return;
+      problems.push({ line, problem: `unparseable CSV row: ${error.message}` });
     },
   }) as { record: Record<string, string>; info: { lines: number } }[];
   checkColumns(columns, options);

@@ -5,7 +5,7 @@
  */
 import { analyseName } from '../../resolvers/analyse/index.ts';
 import { candidatePairs, type CandidateOptions, type MatchRecord } from '../../resolvers/block/index.ts';
-import { clusterRecords, clustersToLabels } from '../../resolvers/cluster/index.ts';
+import { clusterIndexed, clustersToLabels } from '../../resolvers/cluster/index.ts';
 import { buildIdfTable, jaroWinkler, type IdfTable } from '../../resolvers/compare/index.ts';
 import {
   adjustedRandIndex,
@@ -21,7 +21,7 @@ import { seededRandom } from '../../resolvers/prng.ts';
 import {
   compareCandidates,
   comparedVectors,
-  edgesOf,
+  indexedPairsOf,
   randomPairVectors,
   scoreCompared,
   trainModel,
@@ -165,10 +165,10 @@ function runCpreg(
   const linkAt = options.linkAt ?? model.linkAt;
   const newAt = options.newAt ?? model.newAt;
   const scores = scoreCompared(compared, model);
-  const { edges, cannotLinks } = edgesOf(records, compared, scores);
+  const indexed = indexedPairsOf(compared, scores);
   const ids = records.map((r) => r.id);
   const clusterAt = (threshold: number): string[] => {
-    const labels = clustersToLabels(clusterRecords(ids, edges, cannotLinks, { linkAt: threshold, conflictBelow: newAt }));
+    const labels = clustersToLabels(clusterIndexed(ids, indexed, { linkAt: threshold, conflictBelow: newAt }));
     return ids.map((id) => labels.get(id) as string);
   };
   const labels = timed('cluster', () => clusterAt(linkAt));

@@ -1,0 +1,92 @@
+import { execFile } from 'node:child_process';
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { promisify } from 'node:util';
+import { afterAll, describe, expect, it } from 'vitest';
+
+// Fixtures: tests/fixtures/ror-sample.csv holds 49 rows (17 organisations, two withdrawn rows) taken from
+// ../shared/datasets/ror_org_names.csv (Research Organization Registry data, CC0 1.0; split=test), columns cut
+// down; tests/fixtures/ror-bad-rows.csv is 9 of those names with faults added by hand (an extra field, an empty
+// name, an empty id, a stray quote).
+const run = promisify(execFile);
+const cpreg = (args: string[]) => run(process.execPath, ['bin/cpreg.js', 'evaluate', ...args], { cwd: process.cwd() });
+const SAMPLE = 'tests/fixtures/ror-sample.csv';
+const BAD = 'tests/fixtures/ror-bad-rows.csv';
+const out = mkdtempSync(join(tmpdir(), 'cpreg-evaluate-'));
+afterAll(() => rmSync(out, { recursive: true, force: true }));
+
+const BASE = ['--id', 'entity_id', '--name', 'name', '--country', 'country', '--exclude', 'status=withdrawn', '--strip-country-qualifier'];
+
+describe('cpreg evaluate', () => {
+  it('--json has pairwise, bcubed ({precision, recall, f1}) and ari, over the 47 non-withdrawn rows', async () => {
+    const { stdout } = await cpreg([SAMPLE, ...BASE, '--acronym', 'source_name_type=acronym', '--json']);
+    const report = JSON.parse(stdout);
+    expect(report.rows).toBe(47);
+    expect(report.entities).toBe(17);
+    expect(report.input.excludedOut).toBe(2);
+    // The ROR display qualifier stripped, counted by hand in the fixture: (Japan), (United States), (Norway),
+    // (Portugal), (Canada).
+    expect(report.input.countryQualifiersStripped).toBe(5);
+    for (const key of ['pairwise', 'bcubed'] as const) {
+      for (const field of ['precision', 'recall', 'f1']) {
+        expect(report[key][field]).toBeGreaterThanOrEqual(0);
+        expect(report[key][field]).toBeLessThanOrEqual(1);
+      }
+    }
+    expect(typeof report.ari).toBe('number');
+    expect(report.acronymRows).toBe(11);
+    expect(report.blocking.byCategory.latin_shared_word.truePairs).toBeGreaterThan(0);
+  }, 60_000);
+
+  it('exact baseline: "Norsk Tipping" and "Norsk Tipping (Norway)" meet once the qualifier is stripped', async () => {
+    const kept = JSON.parse((await cpreg([SAMPLE, '--id', 'entity_id', '--name', 'name', '--method', 'exact', '--json', '--filter', 'entity_id=02n15q260'])).stdout);
+    const stripped = JSON.parse((await cpreg([SAMPLE, '--id', 'entity_id', '--name', 'name', '--method', 'exact', '--json', '--filter', 'entity_id=02n15q260', '--strip-country-qualifier'])).stdout);
+    // 4 names of one entity: 6 true pairs. Kept: no two normalised names are equal → 0 predicted pairs.
+    expect(kept.pairwise.goldPairs).toBe(6);
+    expect(kept.pairwise.predictedPairs).toBe(0);
+    // Stripped: "norsk tipping" twice → 1 predicted pair, a true one.
+    expect(stripped.pairwise.truePositivePairs).toBe(1);
+    expect(stripped.pairwise.precision).toBe(1);
+  }, 60_000);
+
+  it('--out writes report.json, sweep.csv and a labelled sweep.svg', async () => {
+    await cpreg([SAMPLE, ...BASE, '--out', out]);
+    const csv = readFileSync(join(out, 'sweep.csv'), 'utf8').trim().split('\n');
+    expect(csv[0]).toBe('link_at,precision,recall,f1');
+    expect(csv.length).toBeGreaterThan(2);
+    const svg = readFileSync(join(out, 'sweep.svg'), 'utf8');
+    expect(svg).toMatch(/^<svg /);
+    expect(svg).toContain('link threshold');
+    expect(svg).toContain('precision');
+    expect(svg).toContain('recall');
+    expect(JSON.parse(readFileSync(join(out, 'report.json'), 'utf8')).pairwise).toBeDefined();
+  }, 60_000);
+
+  it('reports bad rows with their line numbers and leaves them out of the metrics', async () => {
+    const { stdout, stderr } = await cpreg([BAD, '--id', 'entity_id', '--name', 'name', '--method', 'exact', '--json']);
+    expect(stderr).toMatch(/ror-bad-rows\.csv:4: unparseable CSV row/);
+    expect(stderr).toMatch(/ror-bad-rows\.csv:5: empty name/);
+    expect(stderr).toMatch(/ror-bad-rows\.csv:6: empty entity_id/);
+    expect(stderr).toMatch(/ror-bad-rows\.csv:7: unparseable CSV row/);
+    const report = JSON.parse(stdout);
+    expect(report.rows).toBe(5); // 9 data rows − 4 reported
+    expect(report.input.problems).toHaveLength(4);
+  }, 60_000);
+
+  it('names a missing column and lists the header', async () => {
+    await expect(cpreg([SAMPLE, '--id', 'ror_id', '--name', 'name'])).rejects.toMatchObject({
+      stderr: expect.stringMatching(/--id ror_id.*the header has: entity_id, name/),
+      code: 1,
+    });
+  });
+
+  it('rejects an unknown method and a malformed --filter', async () => {
+    await expect(cpreg([SAMPLE, '--id', 'entity_id', '--name', 'name', '--method', 'fuzzy'])).rejects.toMatchObject({
+      stderr: expect.stringMatching(/--method must be one of cpreg, exact, jw/),
+    });
+    await expect(cpreg([SAMPLE, '--id', 'entity_id', '--name', 'name', '--filter', 'split'])).rejects.toMatchObject({
+      stderr: expect.stringMatching(/--filter expects column=value/),
+    });
+  });
+});
