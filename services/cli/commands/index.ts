@@ -12,6 +12,10 @@ import demo from './demo.ts';
 import contract from './contract.ts';
 import keys from './keys.ts';
 import ingest from './ingest.ts';
+import exportCommand from './export.ts';
+import ownEntities from './own-entities.ts';
+import reresolve from './reresolve.ts';
+import sweep from './sweep.ts';
 
 export const COMMANDS: Array<(program: Command) => void> = [
   analyse,
@@ -23,4 +27,7 @@ export const COMMANDS: Array<(program: Command) => void> = [
   contract,
   keys,
   ingest,
+  ownEntities,
+  reresolve,
+  sweep,
 ];

@@ -1,0 +1,101 @@
+/**
+ * `cpreg own-entities add|list|remove`: the legal entities of the organisation that runs cpreg. A mention or a
+ * contract party that resolves to one of them is marked own_entity and never becomes a counterparty.
+ */
+import type { Command } from 'commander';
+import { CliError } from '../cli-error.ts';
+import { DB_OPTION_HELP } from './serve.ts';
+
+type Opened = Awaited<ReturnType<typeof import('../../register/open-register.ts').openRegister>>;
+
+/** Opens the register, runs `fn`, closes; database and register errors become one-line CLI errors. */
+export async function withRegister<T>(db: string | undefined, command: string, fn: (opened: Opened, actor: string) => Promise<T>): Promise<T> {
+  const { openRegister, cliActor } = await import('../../register/open-register.ts');
+  const { RegisterError } = await import('../../register/errors.ts');
+  const { DatabaseOpenError } = await import('../../../db/database-errors.ts');
+  const { DatabaseLockedError } = await import('../../../db/lock.ts');
+  let opened: Opened;
+  try {
+    opened = await openRegister(db, command);
+  } catch (error) {
+    if (error instanceof DatabaseOpenError || error instanceof DatabaseLockedError) throw new CliError(error.message, 1, { cause: error });
+    throw error;
+  }
+  try {
+    return await fn(opened, cliActor());
+  } catch (error) {
+    if (error instanceof RegisterError) throw new CliError(error.message, 1, { cause: error });
+    throw error;
+  } finally {
+    await opened.database.close();
+  }
+}
+
+function print(json: boolean | undefined, value: unknown, text: string): void {
+  process.stdout.write(json ? `${JSON.stringify(value)}\n` : `${text}\n`);
+}
+
+function parseId(value: string): number {
+  if (!/^[1-9][0-9]{0,15}$/.test(value)) throw new CliError(`own entity id "${value}" is not a positive whole number (see: cpreg own-entities list)`);
+  return Number(value);
+}
+
+export default function register(program: Command): void {
+  const group = program.command('own-entities').description('manage the legal entities of your own organisation (never counterparties)');
+
+  group
+    .command('add')
+    .description('add one of your own legal entities')
+    .argument('<name>', 'the legal name, e.g. "Example Holdings GmbH"')
+    .option('--country <code>', 'ISO 3166-1 alpha-2 or ISO 3166-2 country (e.g. DE, US-DE)')
+    .option('--identifier <scheme=value...>', 'an identifier, e.g. lei=5299... (repeatable)')
+    .option('--reason <text>', 'why (kept in the history)')
+    .option('--db <target>', DB_OPTION_HELP)
+    .option('--json', 'print the result as JSON')
+    .showHelpAfterError(true)
+    .action(async (name: string, options: { country?: string; identifier?: string[]; reason?: string; db?: string; json?: boolean }) => {
+      const identifiers = (options.identifier ?? []).map((pair) => {
+        const at = pair.indexOf('=');
+        if (at <= 0) throw new CliError(`--identifier "${pair}": write it as scheme=value, e.g. lei=...`);
+        return { scheme: pair.slice(0, at), value: pair.slice(at + 1) };
+      });
+      await withRegister(options.db, 'cpreg own-entities add', async ({ ctx }, actor) => {
+        const { addOwnEntity } = await import('../../register/own-entities.ts');
+        const result = await addOwnEntity(ctx, { name, ...(options.country ? { country: options.country } : {}), identifiers }, { actor, ...(options.reason ? { reason: options.reason } : {}) });
+        print(options.json, result, result.created ? `added own entity ${result.ownEntityId}: ${name}` : `already listed as own entity ${result.ownEntityId}: ${name}`);
+      });
+    });
+
+  group
+    .command('list')
+    .description('list your own legal entities')
+    .option('--all', 'include removed ones')
+    .option('--db <target>', DB_OPTION_HELP)
+    .option('--json', 'print the result as JSON')
+    .showHelpAfterError(true)
+    .action(async (options: { all?: boolean; db?: string; json?: boolean }) => {
+      await withRegister(options.db, 'cpreg own-entities list', async ({ ctx }) => {
+        const { ownEntities } = await import('../../register/own-entities.ts');
+        const list = await ownEntities(ctx, { includeRemoved: options.all === true });
+        const lines = list.length === 0 ? 'no own entities listed (add one with: cpreg own-entities add "<name>")' : list.map((o) => `${o.id}\t${o.name}${o.country ? `\t${o.country}` : ''}${o.removedAt ? '\t(removed)' : ''}`).join('\n');
+        print(options.json, list, lines);
+      });
+    });
+
+  group
+    .command('remove')
+    .description('remove one of your own legal entities from the list')
+    .argument('<id>', 'the own entity id (see: cpreg own-entities list)')
+    .option('--reason <text>', 'why (kept in the history)')
+    .option('--db <target>', DB_OPTION_HELP)
+    .option('--json', 'print the result as JSON')
+    .showHelpAfterError(true)
+    .action(async (idText: string, options: { reason?: string; db?: string; json?: boolean }) => {
+      const id = parseId(idText);
+      await withRegister(options.db, 'cpreg own-entities remove', async ({ ctx }, actor) => {
+        const { removeOwnEntity } = await import('../../register/own-entities.ts');
+        const result = await removeOwnEntity(ctx, id, { actor, ...(options.reason ? { reason: options.reason } : {}) });
+        print(options.json, { ownEntityId: id, ...result }, result.eventId === null ? `own entity ${id} was already removed` : `removed own entity ${id}`);
+      });
+    });
+}
