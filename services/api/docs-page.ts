@@ -10,6 +10,7 @@ export const DOCS_PAGE = `<!doctype html>
 <meta charset="utf-8">
 <meta name="viewport" content="width=device-width, initial-scale=1">
 <title>cpreg API reference</title>
+<link rel="icon" href="data:,">
 <style>
   :root { --fg:#1d2330; --muted:#5b6475; --line:#d9dde5; --bg:#fafbfc; --accent:#1f5fbf; }
   * { box-sizing: border-box; }
@@ -18,7 +19,8 @@ export const DOCS_PAGE = `<!doctype html>
   header h1 { margin:0; font-size:20px; }
   header p { margin:4px 0 0; color:var(--muted); }
   #filter { margin-top:8px; width:100%; max-width:420px; padding:6px 8px; border:1px solid var(--line); border-radius:4px; }
-  main { display:grid; grid-template-columns: 260px 1fr; gap:24px; padding:16px 24px; }
+  main { display:grid; grid-template-columns: 260px minmax(0, 1fr); gap:24px; padding:16px 24px; }
+  .schema, td, pre, p { overflow-wrap:anywhere; }
   nav { position:sticky; top:120px; align-self:start; max-height:80vh; overflow:auto; font-size:13px; }
   nav a { display:block; color:var(--fg); text-decoration:none; padding:2px 0; }
   nav a:hover { color:var(--accent); }
@@ -137,12 +139,18 @@ export const DOCS_PAGE = `<!doctype html>
     return out;
   }
 
+  function schemaLink(ref) {
+    var name = resolveRef(ref).name;
+    return el('div', { 'class': 'schema' }, [el('a', { href: '#schema-' + name, text: name }), el('span', { 'class': 'muted', text: ' (see Schemas)' })]);
+  }
+
   function renderContent(content) {
     var wrap = el('div');
     Object.keys(content || {}).forEach(function (type) {
       var media = content[type];
       wrap.appendChild(el('div', { 'class': 'muted', text: type }));
-      wrap.appendChild(renderSchema(media.schema, 0));
+      // A named schema (e.g. Problem) is shown once under Schemas and linked from here.
+      wrap.appendChild(media.schema && media.schema.$ref ? schemaLink(media.schema.$ref) : renderSchema(media.schema, 0));
       examplesOf(media).forEach(function (ex) {
         wrap.appendChild(el('pre', { text: typeof ex === 'string' ? ex : JSON.stringify(ex, null, 2) }));
       });

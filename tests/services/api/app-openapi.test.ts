@@ -57,6 +57,10 @@ describe('the API description', () => {
     // Nothing is loaded from elsewhere: no absolute URLs in the page.
     expect(res.body).not.toMatch(/https?:\/\//);
     expect(res.headers['content-security-policy']).toContain("default-src 'none'");
+    // The inline script at least parses (a browser run belongs to the console's tests).
+    const script = /<script>([\s\S]*?)<\/script>/.exec(res.body)?.[1];
+    expect(script).toBeDefined();
+    expect(() => new Function(script!)).not.toThrow();
   });
 });
 
