@@ -42,6 +42,8 @@ export interface LocatedName {
   descEnd: number;
   /** A party cue ("between", a numbered list, "BETWEEN:") introduced this name. */
   partyCue: boolean;
+  /** A form of address ("Mr", "Madame") stood before the name: the party is a person. */
+  honorific: boolean;
 }
 
 /** Line-start numbering: "(1)", "(a)", "(iv)", "1.", "1)", "a)". Returns the index after it, or -1. */
@@ -109,8 +111,11 @@ function lastBoundary(text: string, from: number, to: number): { at: number; par
   return { at, partyCue };
 }
 
-/** Skips separators, connectors and numbering before a name. */
-function skipLeading(text: string, i: number, to: number): number {
+/** Forms of address before a person's name: skipped, and the party is a person. ("Dr" is left: firms use it.) */
+const HONORIFICS = ['monsieur', 'madame', 'mademoiselle', 'mr', 'mrs', 'ms', 'miss', 'mx', 'herr', 'frau', 'señor', 'señora', 'signor', 'signora'];
+
+/** Skips separators, connectors and numbering before a name; `honorific` is set when a form of address was skipped. */
+function skipLeading(text: string, i: number, to: number, seen: { honorific: boolean } = { honorific: false }): number {
   let j = i;
   for (;;) {
     const before = j;
@@ -122,6 +127,13 @@ function skipLeading(text: string, i: number, to: number): number {
     if (conn !== undefined && !(LOWER_ONLY.has(conn) && !isLowerLetter(text[j]))) j += conn.length;
     const n = numberingAt(text, j, to);
     if (n > 0) j = n;
+    const h = anyWordAt(text, j, HONORIFICS);
+    // Title case only ("Mr", "Madame"): "MS Shipping Ltd" keeps its initials.
+    if (h !== undefined && /\p{Lu}/u.test(text[j] as string) && /\p{Ll}/u.test(text[j + 1] ?? '')) {
+      j += h.length;
+      if (text[j] === '.') j++;
+      seen.honorific = true;
+    }
     if (j === before) return j;
   }
 }
@@ -236,7 +248,8 @@ function extendOverAliases(text: string, e: number, to: number): number {
 
 /** Locates a name starting at or after `from` (boundaries and connectors skipped), ending before `to`. */
 export function locateNameAt(text: string, from: number, to: number, partyCue: boolean, stopAtAnd = false): LocatedName | null {
-  const s = skipLeading(text, from, to);
+  const seen = { honorific: false };
+  const s = skipLeading(text, from, to, seen);
   if (s >= to) return null;
   let e = bareNameEnd(text, s, to, stopAtAnd);
   e = extendOverDesignator(text, s, e, to);
@@ -244,7 +257,7 @@ export function locateNameAt(text: string, from: number, to: number, partyCue: b
   if (e <= s) return null;
   const fullEnd = extendOverAliases(text, e, to);
   const [descStart, descEnd] = trimBounds(text, fullEnd, to, ',');
-  return { nameStart: s, nameEnd: e, fullEnd, descStart, descEnd, partyCue };
+  return { nameStart: s, nameEnd: e, fullEnd, descStart, descEnd, partyCue, honorific: seen.honorific };
 }
 
 /**

@@ -35,6 +35,8 @@ export const MAX_PARTIES = 500;
 interface Draft {
   /** Where the name first appears: parties are reported in text order. */
   position: number;
+  /** A form of address stood before the name ("Mr", "Monsieur"). */
+  honorific: boolean;
   name: string;
   /** Name plus alias phrases, for the analysis. */
   fullName: string;
@@ -83,7 +85,7 @@ class Collector {
       this.overflow++;
       return null;
     }
-    const draft: Draft = { position: located.nameStart, name, fullName, terms: [...terms], descriptions: description.length > 0 ? [description] : [], analysis };
+    const draft: Draft = { position: located.nameStart, honorific: located.honorific, name, fullName, terms: [...terms], descriptions: description.length > 0 ? [description] : [], analysis };
     if (label !== undefined) draft.label = label;
     this.drafts.push(draft);
     if (!this.byNormalised.has(analysis.normalised)) this.byNormalised.set(analysis.normalised, draft);
@@ -226,7 +228,7 @@ function analyseWithCountry(d: Draft, country: string): NameAnalysis {
 /** "an individual residing at …": the text says the party is a natural person. */
 function saysIndividual(description: string): boolean {
   const lower = description.toLowerCase();
-  return ['an individual', 'a natural person', 'residing at', 'born on', 'une personne physique', 'natürliche person'].some((p) => lower.includes(p));
+  return ['an individual', 'a natural person', 'residing at', 'born on', 'une personne physique', 'demeurant', 'natürliche person', 'wohnhaft', 'domiciliado en', 'residente in'].some((p) => lower.includes(p));
 }
 
 function finishParty(d: Draft, ownEntities: NameAnalysis[]): ContractParty {
@@ -243,7 +245,7 @@ function finishParty(d: Draft, ownEntities: NameAnalysis[]): ContractParty {
     identifiers: finishIdentifiers(extractIdentifiers(description, jurisdiction), jurisdiction),
     aliases: analysis.aliases,
     related: analysis.related,
-    kind: analysis.kind === 'unknown' && saysIndividual(description) ? 'person' : analysis.kind,
+    kind: analysis.kind === 'unknown' && (d.honorific || saysIndividual(description)) ? 'person' : analysis.kind,
   };
   if (jurisdiction !== undefined) party.jurisdiction = jurisdiction;
   if (analysis.legalForm !== null) party.legalForm = analysis.legalForm;

@@ -655,4 +655,30 @@ Its: Manager`,
       { term: 'Party', parties: ['Orchard Lane Capital, Inc.', 'Tidewater Analytics LLC', 'Quillon Systems GmbH'] },
     ],
   },
+  {
+    id: 'fr-ci-apres-denommee',
+    style: 'French: Entre : / Et :, « Ci-après dénommée » on its own line, D\'une part / D\'autre part, a private individual with "Monsieur"',
+    text: `CONTRAT DE PRESTATION DE SERVICES
+
+Entre :
+
+Atelier Verdier SARL, au capital de 8 000 euros, dont le siège social est situé 3 rue des Tanneurs, 69002 Lyon, immatriculée au RCS de Lyon sous le numéro 412 876 302, représentée par Mme Claire Verdier, gérante,
+
+Ci-après dénommée « le Prestataire »,
+
+D'une part,
+
+Et :
+
+Monsieur Julien Marchetti, demeurant 12 avenue Foch, 75016 Paris,
+
+Ci-après dénommé « le Client »,
+
+D'autre part.`,
+    parties: [
+      { name: 'Atelier Verdier SARL', terms: ['Prestataire'], role: 'Prestataire', identifiers: [{ scheme: 'fr_siren', value: '412876302' }], address: '3 rue des Tanneurs' },
+      { name: 'Julien Marchetti', terms: ['Client'], role: 'Client', kind: 'person' },
+    ],
+    notParties: [],
+  },
 ];
