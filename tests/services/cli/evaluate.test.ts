@@ -35,7 +35,8 @@ describe('cpreg evaluate', () => {
       }
     }
     expect(typeof report.ari).toBe('number');
-    expect(report.acronymRows).toBe(11);
+    // CRKN, RCDR, IRIAS, МНИИПУ, POLNAM, HALMED, EMI, KIST (counted in the fixture)
+    expect(report.acronymRows).toBe(8);
     expect(report.blocking.byCategory.latin_shared_word.truePairs).toBeGreaterThan(0);
   }, 60_000);
 
