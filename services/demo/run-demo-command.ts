@@ -1,0 +1,254 @@
+/**
+ * What `cpreg demo` does (services/cli/commands/demo.ts holds the options):
+ *   1. (--fresh) deletes the demo database and its scenario files, after checking that nobody holds the
+ *      database and that it is an embedded cpreg database;
+ *   2. writes the scenario's files (contracts, the mentions batch file, the vendor master, truth.json);
+ *   3. opens (creating) the embedded database, migrates, and loads the scenario unless it is already there
+ *      (loading is idempotent: an interrupted build resumes);
+ *   4. prints the summary (stdout; progress goes to stderr);
+ *   5. unless --no-serve: creates a local admin key through the keys service (revoking the previous demo key),
+ *      serves the API (services/api/server.ts) and prints the address, the key and calls to try; Ctrl-C stops
+ *      the server, closes the database and releases its lock.
+ */
+import { existsSync, mkdirSync, readFileSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import type { Kysely } from 'kysely';
+import type { Database } from '../../db/types.ts';
+import { CliError } from '../cli/cli-error.ts';
+import type { DemoCliOptions } from '../cli/commands/demo.ts';
+import { DEMO_KEY_LABEL } from '../cli/commands/demo.ts';
+import { cliActor, progressReporter } from '../ingest/cli-support.ts';
+import { CONTRACT_SOURCE, MENTION_SOURCE, generateScenario, type Scenario } from './scenario/index.ts';
+import { writeScenario } from './write-scenario.ts';
+import { loadDemo, summariseDemo, type DemoStage, type DemoSummary } from './run-demo.ts';
+import { formatSummary } from './run-demo-format.ts';
+
+const STATE_FILE = 'demo-state.json';
+const STAGE_LABEL: Record<DemoStage, [string, string]> = {
+  own_entities: ['own entities', 'entities'],
+  contracts: ['contracts', 'contracts'],
+  mentions: ['mentions', 'rows'],
+  vendor_master: ['vendor master', 'rows'],
+};
+
+export const CAUTION =
+  'Links are proposals: verify them against official registers before they drive payments or notices.';
+
+export async function runDemoCommand(options: DemoCliOptions): Promise<void> {
+  const { isPostgresUrl, MEMORY_TARGET, openDatabase } = await import('../../db/open-database.ts');
+  const dbDir = options.db.replace(/[\\/]+$/, '') || '.';
+  if (isPostgresUrl(dbDir) || dbDir === MEMORY_TARGET) {
+    throw new CliError(`--db ${options.db}: the demo builds an embedded database; give a directory (default ${'./data/demo'})`);
+  }
+  const filesDir = options.files ?? `${dbDir}-scenario`;
+  const note = (line: string): void => {
+    process.stderr.write(`${line}\n`);
+  };
+  if (options.fresh) await removeDemo(dbDir, filesDir, note);
+
+  const state = readState(filesDir);
+  const seed = options.seed ?? state?.seed ?? 1;
+  const scenario = generateScenario(seed);
+  mkdirSync(filesDir, { recursive: true });
+  await writeScenario(filesDir, scenario);
+  writeFileSync(join(filesDir, STATE_FILE), `${JSON.stringify({ seed }, null, 2)}\n`);
+
+  const { DatabaseOpenError } = await import('../../db/database-errors.ts');
+  const { DatabaseLockedError } = await import('../../db/lock.ts');
+  const { migrateToLatest } = await import('../../db/migrate.ts');
+  let database;
+  try {
+    database = await openDatabase(dbDir, { command: 'cpreg demo', onMessage: (line) => note(`cpreg: ${line}`) });
+  } catch (error) {
+    if (error instanceof DatabaseOpenError || error instanceof DatabaseLockedError) throw new CliError(error.message, 1, { cause: error });
+    throw error;
+  }
+
+  let stop = false;
+  const onSignal = (): void => {
+    if (stop) process.exit(130);
+    stop = true;
+    note('\ncpreg: stopping after the current step (Ctrl-C again to quit at once; run the demo again to resume)');
+  };
+  process.on('SIGINT', onSignal);
+  process.on('SIGTERM', onSignal);
+  let summary: DemoSummary;
+  let apiKey: string | undefined;
+  try {
+    await migrateToLatest(database.db);
+    const built = await builtState(database.db, scenario);
+    if (built === 'other') {
+      throw new CliError(`${dbDir} holds a demo built from another scenario; add --fresh to rebuild it with seed ${seed}`);
+    }
+    if (built === 'complete') {
+      note(`cpreg demo: reusing the demo database in ${dbDir} (seed ${seed}; --fresh rebuilds it)`);
+    } else {
+      note(`cpreg demo: building the demo in ${dbDir} from seed ${seed} (scenario files in ${filesDir})`);
+      await build(database.db, scenario, filesDir, () => stop, note);
+      if (stop) throw new CliError('interrupted: the demo database is closed; run the demo again to finish building it', 130);
+    }
+    summary = await summariseDemo(database.db, scenario);
+    if (options.serve) apiKey = await demoKey(database.db);
+  } finally {
+    process.off('SIGINT', onSignal);
+    process.off('SIGTERM', onSignal);
+    await database.close();
+  }
+
+  const vendorLines = ['', '  vendor master   not reconciled: the reconciliation service is not in this build yet'];
+  if (options.json) process.stdout.write(`${JSON.stringify({ ...summary, database: dbDir, files: filesDir, vendorMaster: null })}\n`);
+  else process.stdout.write(`\n${formatSummary(summary, { vendorLines })}\n\n  ${CAUTION}\n\n`);
+  if (!options.serve) return;
+  await serve(options, { dbDir, filesDir, apiKey: apiKey!, busiest: summary.busiest[0] }, note);
+}
+
+// ---------------------------------------------------------------- building
+
+type BuiltState = 'empty' | 'partial' | 'complete' | 'other';
+
+/** Whether the database already holds this scenario: every contract with the same text, every mention stored. */
+async function builtState(db: Kysely<Database>, scenario: Scenario): Promise<BuiltState> {
+  const stored = await db.selectFrom('contract').select(['external_id', 'text']).where('source', '=', CONTRACT_SOURCE).execute();
+  if (stored.length === 0) return 'empty';
+  const texts = new Map(scenario.contracts.map((c) => [c.externalId, c.text]));
+  if (stored.some((c) => texts.get(c.external_id) !== c.text)) return 'other';
+  const mentions = await db.selectFrom('mention').select((eb) => eb.fn.countAll<string>().as('n')).where('source', '=', MENTION_SOURCE).executeTakeFirstOrThrow();
+  return stored.length === scenario.contracts.length && Number(mentions.n) === scenario.mentions.length ? 'complete' : 'partial';
+}
+
+async function build(db: Kysely<Database>, scenario: Scenario, filesDir: string, shouldStop: () => boolean, note: (line: string) => void): Promise<void> {
+  let current: { stage: DemoStage; bar: ReturnType<typeof progressReporter> } | undefined;
+  const load = await loadDemo({
+    db,
+    scenario,
+    filesDir,
+    actor: cliActor(),
+    shouldStop,
+    onProgress: (p) => {
+      if (current?.stage !== p.stage) {
+        current?.bar.finish();
+        const [label, unit] = STAGE_LABEL[p.stage];
+        current = { stage: p.stage, bar: progressReporter(`  ${label}`, unit, process.stderr, 2000) };
+      }
+      current.bar.update({ done: p.done, fraction: p.total > 0 ? p.done / p.total : undefined });
+    },
+  });
+  current?.bar.finish();
+  const s = load.seconds;
+  const secs = (x: number | undefined): string => `${(x ?? 0).toFixed(1)} s`;
+  note(
+    `cpreg demo: ${load.ownEntities.added} own entities declared, ${load.contracts.stored} contracts stored (${load.contracts.parties} parties) in ${secs(s.contracts)}, ` +
+      `${load.ingest?.counts.read ?? 0} mentions ingested in ${secs(s.mentions)}` +
+      (load.ingest && load.ingest.counts.rejected > 0 ? ` (${load.ingest.counts.rejected} rejected: see ${load.ingest.rejectsFile})` : ''),
+  );
+}
+
+// ---------------------------------------------------------------- --fresh
+
+async function removeDemo(dbDir: string, filesDir: string, note: (line: string) => void): Promise<void> {
+  if (existsSync(dbDir)) {
+    const { acquireDirectoryLock, DatabaseLockedError } = await import('../../db/lock.ts');
+    const { checkEmbeddedDirectory } = await import('../../db/open-database.ts');
+    const { DatabaseOpenError } = await import('../../db/database-errors.ts');
+    try {
+      checkEmbeddedDirectory(dbDir); // refuses a directory that is not an embedded database (nothing deleted)
+      const lock = acquireDirectoryLock(dbDir, { command: 'cpreg demo --fresh', onMessage: (line) => note(`cpreg: ${line}`) });
+      lock.release();
+    } catch (error) {
+      if (error instanceof DatabaseLockedError || error instanceof DatabaseOpenError) throw new CliError(`--fresh: ${error.message}`, 1, { cause: error });
+      throw error;
+    }
+    rmSync(dbDir, { recursive: true, force: true });
+  }
+  if (existsSync(filesDir)) {
+    const ours = existsSync(join(filesDir, STATE_FILE)) || existsSync(join(filesDir, 'truth.json'));
+    if (!ours && readdirSync(filesDir).length > 0) {
+      throw new CliError(`--fresh: ${filesDir} does not look like demo scenario files (no ${STATE_FILE}); nothing was deleted: choose another --files`);
+    }
+    rmSync(filesDir, { recursive: true, force: true });
+  }
+  note(`cpreg demo: --fresh: removed ${dbDir} and ${filesDir}`);
+}
+
+function readState(filesDir: string): { seed: number } | undefined {
+  try {
+    const parsed = JSON.parse(readFileSync(join(filesDir, STATE_FILE), 'utf8')) as { seed?: unknown };
+    return typeof parsed.seed === 'number' && Number.isInteger(parsed.seed) ? { seed: parsed.seed } : undefined;
+  } catch {
+    return undefined;
+  }
+}
+
+// ---------------------------------------------------------------- serving
+
+/** A fresh local admin key through the keys service; the previous demo key is revoked (its secret is gone). */
+async function demoKey(db: Kysely<Database>): Promise<string> {
+  const { createApiKey, listApiKeys, revokeApiKey } = await import('../api/auth/keys.ts');
+  for (const key of await listApiKeys(db)) if (key.label === DEMO_KEY_LABEL) await revokeApiKey(db, key.id);
+  return (await createApiKey(db, { scope: 'admin', label: DEMO_KEY_LABEL })).secret;
+}
+
+async function serve(options: DemoCliOptions, suggest: Omit<Suggestions, 'url'>, note: (line: string) => void): Promise<void> {
+  const { dbDir, apiKey } = suggest;
+  const { startServer, ListenError } = await import('../api/server.ts');
+  const { DatabaseOpenError } = await import('../../db/database-errors.ts');
+  const { DatabaseLockedError } = await import('../../db/lock.ts');
+  const { MigrationError } = await import('../../db/migrate.ts');
+  let running;
+  try {
+    running = await startServer({
+      db: dbDir,
+      port: options.port,
+      host: options.host,
+      logLevel: 'warn',
+      command: 'cpreg demo',
+      say: options.json ? note : undefined,
+      onListening: options.json ? (info) => process.stdout.write(`${JSON.stringify({ ...info, apiKey })}\n`) : undefined,
+    });
+  } catch (error) {
+    if (error instanceof DatabaseOpenError || error instanceof DatabaseLockedError || error instanceof MigrationError || error instanceof ListenError) {
+      throw new CliError(error.message, 1, { cause: error });
+    }
+    throw error;
+  }
+  if (!options.json) process.stdout.write(`${afterServing({ ...suggest, url: running.url })}\n`);
+  await running.stopped;
+  note('cpreg demo: stopped; the database is closed');
+}
+
+export interface Suggestions {
+  url: string;
+  apiKey: string;
+  dbDir: string;
+  filesDir: string;
+  /** The busiest counterparty, to show a search and a read that find something. */
+  busiest?: { id: number; name: string };
+}
+
+export function afterServing(x: Suggestions): string {
+  const auth = `-H "Authorization: Bearer ${x.apiKey}"`;
+  const rel = (p: string): string => (p.startsWith('.') || p.startsWith('/') ? p : `./${p}`);
+  const db = `--db ${rel(x.dbDir)}`;
+  const word = x.busiest?.name.split(/\s+/)[0] ?? 'logistics';
+  const id = x.busiest?.id ?? 1;
+  return [
+    '',
+    `  API            ${x.url}  (reference: ${x.url}/docs)`,
+    `  admin key      ${x.apiKey}`,
+    '                 (a local demo key: the next start of the demo revokes it and prints a new one)',
+    '',
+    '  try',
+    `    curl -s ${auth} "${x.url}/v1/counterparties?q=${encodeURIComponent(word)}&limit=5"`,
+    `    curl -s ${auth} "${x.url}/v1/counterparties/${id}"`,
+    `    curl -s ${auth} "${x.url}/v1/counterparties/${id}/network"`,
+    `    curl -s ${auth} "${x.url}/v1/review-items?limit=5"`,
+    `    curl -s ${auth} -H "Content-Type: application/json" -d '{"source":"try","externalId":"1","text":"${word} ltd"}' ${x.url}/v1/mentions`,
+    '',
+    '  after Ctrl-C',
+    `    node bin/cpreg.js keys list ${db}`,
+    `    node bin/cpreg.js ingest ${rel(x.filesDir)}/mentions.csv --source extraction-csv ${db}`,
+    `    node bin/cpreg.js serve ${db}`,
+    '',
+    '  Ctrl-C stops the server and closes the database.',
+  ].join('\n');
+}

@@ -1,0 +1,274 @@
+/**
+ * The demo behind `npm start`: loads the invented scenario into a register through the same public paths a
+ * user takes (own entities through the register service, contracts through storeContract — what
+ * POST /v1/contracts calls —, the extracted mentions as a batch file through services/ingest), then reads the
+ * register back into a summary with the accuracy measured against the scenario's ground truth.
+ * Every step is idempotent: loading again into the same database stores nothing twice.
+ */
+import { join } from 'node:path';
+import type { Kysely } from 'kysely';
+import type { Database } from '../../db/types.ts';
+import { survivorsOf } from '../../db/queries/counterparties.ts';
+import { addOwnEntity, createRegisterContext, storeContract, PARTY_SOURCE_PREFIX } from '../register/index.ts';
+import { ingestFile, type IngestSummary } from '../ingest/run-ingest.ts';
+import type { ResolutionStatus } from '../../resolvers/vocabulary.ts';
+import { MENTION_SOURCE, type MentionTruth, type Scenario } from './scenario/index.ts';
+import { measureAccuracy, type DemoAccuracy, type EvaluatedMention, type ObservedMention } from './accuracy.ts';
+
+export type DemoStage = 'own_entities' | 'contracts' | 'mentions' | 'vendor_master';
+
+export interface DemoProgress {
+  stage: DemoStage;
+  done: number;
+  total: number;
+}
+
+export interface LoadDemoOptions {
+  db: Kysely<Database>;
+  scenario: Scenario;
+  /** Where writeScenario put the scenario's files (the batch file is read from there). */
+  filesDir: string;
+  actor: string;
+  onProgress?: (progress: DemoProgress) => void;
+  /** Checked between steps: when it answers true the load stops early (`interrupted`). */
+  shouldStop?: () => boolean;
+}
+
+export interface DemoLoad {
+  interrupted: boolean;
+  ownEntities: { added: number; existing: number };
+  contracts: { stored: number; alreadyStored: number; parties: number };
+  ingest?: IngestSummary;
+  /** Seconds per stage. */
+  seconds: Partial<Record<DemoStage, number>>;
+}
+
+export async function loadDemo(options: LoadDemoOptions): Promise<DemoLoad> {
+  const { db, scenario, actor } = options;
+  const ctx = createRegisterContext(db);
+  const who = { actor, reason: 'demo scenario' };
+  const stop = options.shouldStop ?? (() => false);
+  const progress = options.onProgress ?? (() => undefined);
+  const load: DemoLoad = { interrupted: false, ownEntities: { added: 0, existing: 0 }, contracts: { stored: 0, alreadyStored: 0, parties: 0 }, seconds: {} };
+  const timed = async (stage: DemoStage, fn: () => Promise<void>): Promise<void> => {
+    const started = performance.now();
+    await fn();
+    load.seconds[stage] = (performance.now() - started) / 1000;
+  };
+
+  await timed('own_entities', async () => {
+    for (const [i, own] of scenario.ownEntities.entries()) {
+      const added = await addOwnEntity(ctx, { name: own.legalName, country: own.jurisdiction, identifiers: own.identifiers }, who);
+      if (added.created) load.ownEntities.added++;
+      else load.ownEntities.existing++;
+      progress({ stage: 'own_entities', done: i + 1, total: scenario.ownEntities.length });
+    }
+  });
+
+  await timed('contracts', async () => {
+    progress({ stage: 'contracts', done: 0, total: scenario.contracts.length });
+    for (const [i, c] of scenario.contracts.entries()) {
+      if (stop()) {
+        load.interrupted = true;
+        return;
+      }
+      const stored = await storeContract(ctx, { source: c.source, externalId: c.externalId, title: c.title, text: c.text }, who);
+      if (stored.alreadyStored) load.contracts.alreadyStored++;
+      else load.contracts.stored++;
+      load.contracts.parties += stored.alreadyStored ? stored.contract.parties.length : stored.parties.length;
+      progress({ stage: 'contracts', done: i + 1, total: scenario.contracts.length });
+    }
+  });
+  if (load.interrupted) return load;
+
+  await timed('mentions', async () => {
+    const total = scenario.mentions.length;
+    progress({ stage: 'mentions', done: 0, total });
+    load.ingest = await ingestFile({
+      db,
+      file: join(options.filesDir, 'mentions.ndjson'),
+      source: MENTION_SOURCE,
+      rejectsFile: join(options.filesDir, 'mentions.rejects.csv'),
+      actor,
+      batchSize: 250,
+      ctx,
+      shouldStop: stop,
+      onProgress: (p) => progress({ stage: 'mentions', done: p.counts.read, total }),
+    });
+    if (load.ingest.status === 'interrupted') load.interrupted = true;
+  });
+  return load;
+}
+
+// ---------------------------------------------------------------- reading the register back
+
+export interface BusyCounterparty {
+  id: number;
+  name: string;
+  jurisdiction: string | null;
+  contracts: number;
+  /** A few of its contracts' external ids, oldest first. */
+  contractIds: string[];
+  mentions: number;
+}
+
+export interface DemoSummary {
+  seed: number;
+  group: string;
+  counterparties: number;
+  ownEntities: number;
+  contracts: number;
+  /** The extracted mentions loaded by batch ingest, by status. */
+  mentions: { total: number; byStatus: Partial<Record<ResolutionStatus, number>> };
+  /** The parties the register read from the contract texts, by status. */
+  contractParties: { total: number; byStatus: Partial<Record<ResolutionStatus, number>> };
+  busiest: BusyCounterparty[];
+  reviewQueue: number;
+  accuracy: {
+    /** Extracted mentions (batch ingest) against their ground truth. */
+    mentions: DemoAccuracy;
+    /** Parties read from the contract texts against the contracts' true parties (matched by the name as written). */
+    contractParties: DemoAccuracy & { found: number; expected: number; extra: number };
+  };
+}
+
+interface MentionRow {
+  source: string;
+  external_id: string;
+  text: string;
+  status: ResolutionStatus;
+  counterparty_id: number | string | null;
+  own_entity_id: number | string | null;
+  contract_external_id: string | null;
+}
+
+export async function summariseDemo(db: Kysely<Database>, scenario: Scenario): Promise<DemoSummary> {
+  const rows = (await db
+    .selectFrom('mention')
+    .select(['source', 'external_id', 'text', 'status', 'counterparty_id', 'own_entity_id', 'contract_external_id'])
+    .execute()) as MentionRow[];
+  const survivors = await survivorsOf(db, rows.flatMap((r) => (r.counterparty_id === null ? [] : [Number(r.counterparty_id)])));
+  const ownRows = await db.selectFrom('own_entity').select(['id', 'name']).execute();
+  const ownRef = new Map<number, string>();
+  for (const r of ownRows) {
+    const match = scenario.ownEntities.find((o) => o.legalName === r.name);
+    if (match) ownRef.set(Number(r.id), match.id);
+  }
+  const observe = (r: MentionRow): ObservedMention => ({
+    status: r.status,
+    counterpartyId: r.counterparty_id === null ? null : (survivors.get(Number(r.counterparty_id)) ?? Number(r.counterparty_id)),
+    ownEntityRef: r.own_entity_id === null ? null : (ownRef.get(Number(r.own_entity_id)) ?? null),
+  });
+
+  const extracted = rows.filter((r) => r.source === MENTION_SOURCE);
+  const bySourceId = new Map(extracted.map((r) => [r.external_id, r]));
+  const mentionItems: EvaluatedMention[] = scenario.mentions.map((m) => {
+    const row = bySourceId.get(m.input.externalId);
+    return { truth: m.truth, style: m.style, observed: row ? observe(row) : undefined };
+  });
+
+  const partyRows = rows.filter((r) => r.source.startsWith(PARTY_SOURCE_PREFIX));
+  const parties = contractPartyItems(scenario, partyRows, observe);
+
+  const [counterparties, contracts, review] = await Promise.all([
+    db.selectFrom('counterparty').select((eb) => eb.fn.countAll<string>().as('n')).where('status', '=', 'active').executeTakeFirstOrThrow(),
+    db.selectFrom('contract').select((eb) => eb.fn.countAll<string>().as('n')).where('status', '=', 'active').executeTakeFirstOrThrow(),
+    db.selectFrom('review_item').select((eb) => eb.fn.countAll<string>().as('n')).where('status', '=', 'open').executeTakeFirstOrThrow(),
+  ]);
+  return {
+    seed: scenario.seed,
+    group: scenario.group.name,
+    counterparties: Number(counterparties.n),
+    ownEntities: ownRows.length,
+    contracts: Number(contracts.n),
+    mentions: { total: extracted.length, byStatus: countStatuses(extracted) },
+    contractParties: { total: partyRows.length, byStatus: countStatuses(partyRows) },
+    busiest: await busiestCounterparties(db, 5),
+    reviewQueue: Number(review.n),
+    accuracy: {
+      mentions: measureAccuracy(mentionItems),
+      contractParties: { ...measureAccuracy(parties.items), found: parties.found, expected: parties.expected, extra: parties.extra },
+    },
+  };
+}
+
+function countStatuses(rows: readonly MentionRow[]): Partial<Record<ResolutionStatus, number>> {
+  const out: Partial<Record<ResolutionStatus, number>> = {};
+  for (const r of rows) out[r.status] = (out[r.status] ?? 0) + 1;
+  return out;
+}
+
+/**
+ * The contract parties the register read, paired with the contracts' true parties by the name as written
+ * (whitespace folded). A true party the register did not read is a miss; a party it read that is no true
+ * party (a signer, a place) is judged as a mention that should not have become a counterparty.
+ */
+function contractPartyItems(
+  scenario: Scenario,
+  partyRows: readonly MentionRow[],
+  observe: (r: MentionRow) => ObservedMention,
+): { items: EvaluatedMention[]; found: number; expected: number; extra: number } {
+  const fold = (s: string): string => s.replace(/\s+/g, ' ').trim();
+  const byContract = new Map<string, MentionRow[]>();
+  for (const r of partyRows) {
+    const key = r.contract_external_id ?? '';
+    const list = byContract.get(key) ?? [];
+    list.push(r);
+    byContract.set(key, list);
+  }
+  const items: EvaluatedMention[] = [];
+  let found = 0;
+  let expected = 0;
+  let extra = 0;
+  for (const c of scenario.contracts) {
+    const read = [...(byContract.get(c.externalId) ?? [])];
+    for (const party of c.parties) {
+      expected++;
+      const truth: MentionTruth = party.ref.kind === 'counterparty' ? { kind: 'counterparty', counterpartyId: party.ref.id } : { kind: 'own_entity', ownEntityId: party.ref.id };
+      const at = read.findIndex((r) => fold(r.text) === fold(party.nameInText));
+      if (at < 0) {
+        items.push({ truth });
+        continue;
+      }
+      found++;
+      items.push({ truth, observed: observe(read[at]!) });
+      read.splice(at, 1);
+    }
+    for (const r of read) {
+      extra++;
+      items.push({ truth: { kind: 'not_a_party', reason: 'signer' }, observed: observe(r) });
+    }
+  }
+  return { items, found, expected, extra };
+}
+
+async function busiestCounterparties(db: Kysely<Database>, limit: number): Promise<BusyCounterparty[]> {
+  const top = await db
+    .selectFrom('contract_party as p')
+    .innerJoin('mention as m', 'm.id', 'p.mention_id')
+    .innerJoin('counterparty as c', 'c.id', 'm.counterparty_id')
+    .select(['c.id', 'c.canonical_name', 'c.jurisdiction', (eb) => eb.fn.count<string>('p.contract_id').distinct().as('contracts')])
+    .where('c.status', '=', 'active')
+    .groupBy(['c.id', 'c.canonical_name', 'c.jurisdiction'])
+    .orderBy('contracts', 'desc')
+    .orderBy('c.id')
+    .limit(limit)
+    .execute();
+  const out: BusyCounterparty[] = [];
+  for (const t of top) {
+    const id = Number(t.id);
+    const contracts = await db
+      .selectFrom('contract_party as p')
+      .innerJoin('mention as m', 'm.id', 'p.mention_id')
+      .innerJoin('contract as k', 'k.id', 'p.contract_id')
+      .select('k.external_id')
+      .distinct()
+      .where('m.counterparty_id', '=', id)
+      .orderBy('k.external_id')
+      .limit(4)
+      .execute();
+    const mentions = await db.selectFrom('mention').select((eb) => eb.fn.countAll<string>().as('n')).where('counterparty_id', '=', id).executeTakeFirstOrThrow();
+    out.push({ id, name: t.canonical_name, jurisdiction: t.jurisdiction, contracts: Number(t.contracts), contractIds: contracts.map((k) => k.external_id), mentions: Number(mentions.n) });
+  }
+  return out;
+}
