@@ -27,6 +27,7 @@ export const COMMANDS: Array<(program: Command) => void> = [
   contract,
   keys,
   ingest,
+  exportCommand,
   ownEntities,
   reresolve,
   sweep,

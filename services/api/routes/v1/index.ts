@@ -6,5 +6,6 @@ import { keyRoutes } from './keys-me.ts';
 import { upkeepRoutes } from './upkeep.ts';
 import { mentionRoutes } from './mentions.ts';
 import { contractReviewRoutes } from './contracts-review.ts';
+import { exportJobRoutes } from './exports-jobs.ts';
 
-export const V1_ROUTES: RoutePlugin[] = [keyRoutes, counterpartyRoutes, historyRoutes, upkeepRoutes, mentionRoutes, contractReviewRoutes];
+export const V1_ROUTES: RoutePlugin[] = [keyRoutes, counterpartyRoutes, historyRoutes, upkeepRoutes, mentionRoutes, contractReviewRoutes, exportJobRoutes];

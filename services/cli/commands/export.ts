@@ -1,0 +1,42 @@
+/** `cpreg export register|links|history|review --format csv|ndjson [--out file] [--db] [--json]`: streamed. */
+import { once } from 'node:events';
+import type { Command } from 'commander';
+import { CliError } from '../cli-error.ts';
+import { DB_OPTION_HELP } from './serve.ts';
+
+export default function register(program: Command): void {
+  program
+    .command('export')
+    .description('export the register, the links of mentions to counterparties, the history or the review items (streamed)')
+    .argument('<kind>', 'register, links, history or review')
+    .option('--format <format>', 'csv or ndjson', 'csv')
+    .option('--out <file>', 'write to this file (default: standard output)')
+    .option('--db <target>', DB_OPTION_HELP)
+    .option('--json', 'with --out: print a JSON summary (rows, file) instead of a sentence')
+    .showHelpAfterError(true)
+    .action(async (kind: string, options: { format: string; out?: string; db?: string; json?: boolean }) => {
+      const { EXPORT_KINDS, EXPORT_FORMATS, exportChunks } = await import('../../export/exports.ts');
+      if (!(EXPORT_KINDS as readonly string[]).includes(kind)) throw new CliError(`export ${kind}: expected one of ${EXPORT_KINDS.join(', ')}`);
+      if (!(EXPORT_FORMATS as readonly string[]).includes(options.format)) throw new CliError(`--format ${options.format}: expected csv or ndjson`);
+      const { createWriteStream } = await import('node:fs');
+      const { withDatabase, progressReporter } = await import('../../ingest/cli-support.ts');
+      const out = options.out ? createWriteStream(options.out) : process.stdout;
+      const progress = progressReporter(`export ${kind}`, 'rows');
+      let rows = 0;
+      await withDatabase(options.db, 'cpreg export', async (db) => {
+        for await (const chunk of exportChunks(db, kind as 'register', options.format as 'csv', (n) => {
+          rows += n;
+          if (options.out) progress.update({ done: rows });
+        })) {
+          if (!out.write(chunk)) await once(out, 'drain');
+        }
+      });
+      if (options.out) {
+        out.end();
+        await once(out, 'finish');
+        progress.finish();
+        const summary = { kind, format: options.format, rows, file: options.out };
+        process.stdout.write(options.json ? `${JSON.stringify(summary)}\n` : `exported ${rows} ${kind} rows to ${options.out}\n`);
+      }
+    });
+}
