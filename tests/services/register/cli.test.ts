@@ -1,0 +1,51 @@
+/** The register's CLI commands on an embedded database: own-entities, sweep and reresolve, with --json. */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { userInfo } from 'node:os';
+import { createMigratedDataDir, removeTempDir } from '../../support/index.ts';
+import { runCli } from '../../support/cli.ts';
+import { openDatabase } from '../../../db/open-database.ts';
+
+describe('cpreg own-entities, sweep, reresolve', () => {
+  let dir: string;
+  beforeAll(async () => {
+    dir = await createMigratedDataDir();
+  });
+  afterAll(() => removeTempDir(dir));
+
+  it('adds, lists and removes own entities, recording the CLI user as actor', async () => {
+    const added = await runCli(['own-entities', 'add', 'Halvorsen Maritime Holdings AS', '--country', 'NO', '--db', dir, '--json']);
+    expect(added.code).toBe(0);
+    const result = JSON.parse(added.stdout) as { ownEntityId: number; created: boolean };
+    expect(result.created).toBe(true);
+    const listed = await runCli(['own-entities', 'list', '--db', dir, '--json']);
+    expect(JSON.parse(listed.stdout)).toEqual([expect.objectContaining({ id: result.ownEntityId, name: 'Halvorsen Maritime Holdings AS', country: 'NO' })]);
+    const bad = await runCli(['own-entities', 'add', 'Halvorsen Fjord AS', '--country', 'Norway', '--db', dir]);
+    expect(bad.code).not.toBe(0);
+    expect(bad.stderr).toContain('country');
+    const removed = await runCli(['own-entities', 'remove', String(result.ownEntityId), '--db', dir, '--json']);
+    expect(removed.code).toBe(0);
+    expect(JSON.parse(removed.stdout)).toMatchObject({ ownEntityId: result.ownEntityId });
+    const opened = await openDatabase(dir);
+    try {
+      const actors = await opened.db.selectFrom('history_event').select('actor').distinct().execute();
+      expect(actors.map((a) => a.actor)).toEqual([`cli:${userInfo().username}`]);
+      const own = await opened.db.selectFrom('own_entity').select('removed_at').execute();
+      expect(own).toHaveLength(1);
+      expect(own[0]!.removed_at).not.toBeNull();
+    } finally {
+      await opened.close();
+    }
+  });
+
+  it('sweep and reresolve print JSON summaries', async () => {
+    const swept = await runCli(['sweep', '--db', dir, '--json']);
+    expect(swept.code).toBe(0);
+    expect(JSON.parse(swept.stdout)).toMatchObject({ scanned: 0, duplicateItems: 0 });
+    const again = await runCli(['reresolve', '--db', dir, '--json']);
+    expect(again.code).toBe(0);
+    expect(JSON.parse(again.stdout)).toMatchObject({ examined: 0, changed: 0, failed: 0 });
+    const bad = await runCli(['sweep', '--block-size', 'lots', '--db', dir]);
+    expect(bad.code).not.toBe(0);
+    expect(bad.stderr).toContain('--block-size');
+  });
+});
