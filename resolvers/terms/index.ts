@@ -1,4 +1,28 @@
-/** resolvers/terms: the parties of one contract, their defined terms, and mentions resolved inside it. */
+/**
+ * resolvers/terms: the parties of one contract, their defined terms, and mentions resolved inside it. Pure.
+ *
+ * parseParties(text, { ownEntities? }) reads, in this order:
+ *   1. definitions (findDefinitions): parentheses holding quoted terms, "hereinafter"/"ci-après"/"im Folgenden"/
+ *      "en adelante"/"di seguito" phrases, outside-parenthesis collective terms ("are each a "Party""), and
+ *      Australian unquoted terms at the end of a line; for each, the name before it (locateName: after the last
+ *      "between"/numbering/"BETWEEN:"/blank line, cut before the descriptive phrase, extended over ", Inc." and
+ *      alias phrases), accepted only when it reads as a name and a parties clause, legal form, person or
+ *      descriptive phrase supports it (isPlausibleName, parseParties.hasSupport);
+ *   2. numbered items of a parties clause that define no term (findPartyItems);
+ *   3. "Party A (Seller): X Co., Ltd." label lines, names with a legal form only (findLabelledParties);
+ *   4. signature blocks: the entity line above "By:", "for and on behalf of X" (findSignatureBlocks).
+ * The same entity seen twice (preamble and signature block) is merged on the name analysis (sameEntityName).
+ * Descriptive phrases give jurisdiction, identifiers (normalised by resolvers/identifiers; a rejected value is kept
+ * with its `problem`), address and, through resolvers/analyse, legal form, aliases, related entities and kind.
+ *
+ * resolveInContract(parsed, mention) consults only `parsed`, so a term never leaks between contracts:
+ *   bound (one party holds the term) · unbound_term (two parties hold it, or the analysis says the mention needs a
+ *   binding) · collective_term · not_a_party · match (goes on to register matching; `party` is set when the
+ *   mention is the exact name of a party of this contract).
+ *
+ * Limits: 1 MB of UTF-8 (MAX_CONTRACT_BYTES), 500 parties (a warning names the rest), 600 characters searched
+ * back from a definition for its name.
+ */
 export type {
   CollectiveTerm,
   ContractIdentifier,
@@ -10,7 +34,7 @@ export type {
   ParseOptions,
   PartyRef,
 } from './types.ts';
-export { parseParties } from './parseParties.ts';
+export { parseParties, MAX_PARTIES } from './parseParties.ts';
 export { resolveInContract } from './resolveInContract.ts';
 export { MAX_CONTRACT_BYTES, checkContractText } from './checkContractText.ts';
 export { termKey } from './cleanTerm.ts';

@@ -51,6 +51,7 @@ export default function register(program: Command): void {
     .argument('<file>', 'a UTF-8 plain-text contract, at most 1 MB')
     .option('--json', 'print the result as JSON')
     .option('--mention <text>', 'also resolve this mention inside the contract, e.g. "the Licensee"')
+    .showHelpAfterError(true)
     .action(async (file: string, options: ParseOptions) => {
       if (options.mention !== undefined && [...options.mention].length > MAX_MENTION) {
         throw new CliError(`--mention: over the limit of ${MAX_MENTION} characters`);
