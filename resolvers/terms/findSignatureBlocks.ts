@@ -62,7 +62,9 @@ function isSkippable(line: string): boolean {
   return t.length === 0 || t === 'signature' || t === '(signature)' || t.startsWith('signature:') || t.startsWith('date:') || t.startsWith('dated:');
 }
 
-const BEHALF = ['for and on behalf of', 'on behalf of', 'executed by', 'executed as a deed by', 'signed for and on behalf of', 'for '];
+const BEHALF = ['signed for and on behalf of', 'for and on behalf of', 'on behalf of', 'executed as a deed by', 'executed by', 'for '];
+/** Lines that name the signing entity without a "By:" line (UK execution blocks). */
+const ON_BEHALF_LINES = ['for and on behalf of ', 'signed for and on behalf of ', 'executed by ', 'executed as a deed by '];
 
 function entityFrom(text: string, line: Line): SignatureEntity | null {
   if (line.end - line.start > MAX_ENTITY_LINE) return null;
@@ -111,7 +113,7 @@ export function findSignatureBlocks(text: string): SignatureEntity[] {
       continue;
     }
     const lower = line.text.trim().toLowerCase();
-    if ((lower.startsWith('for and on behalf of ') || lower.startsWith('signed for and on behalf of ') || lower.startsWith('executed by ')) && line.end - line.start <= MAX_ENTITY_LINE) {
+    if (ON_BEHALF_LINES.some((b) => lower.startsWith(b)) && line.end - line.start <= MAX_ENTITY_LINE) {
       const entity = entityFrom(text, line);
       if (entity !== null) found.push(entity);
     }

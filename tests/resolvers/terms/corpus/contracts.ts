@@ -681,4 +681,15 @@ D'autre part.`,
     ],
     notParties: [],
   },
+  {
+    id: 'uk-executed-as-deed',
+    style: 'UK deed execution: "EXECUTED as a deed by X acting by a director in the presence of a witness"',
+    text: `EXECUTED as a deed by ROSEWELL PROPERTY LIMITED acting by a director in the presence of a witness
+
+Director ........................
+
+Witness name: Tom Ebbsfleet
+Witness address: 2 Canal Walk, Leicester LE1 1AA`,
+    parties: [{ name: 'ROSEWELL PROPERTY LIMITED', terms: [] }],
+  },
 ];
