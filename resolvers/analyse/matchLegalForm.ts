@@ -68,9 +68,10 @@ function wordBefore(scan: NameScan, end: number): { start: number; text: string 
  * "X GmbH & Co. KG": when the matched form is preceded by "& Co." (or "und Co", "& Cie") and another
  * designator before that, the compound is one legal form whose last designator rules.
  */
-function extendCompound(text: string, scan: NameScan, at: number): number {
+function extendCompound(text: string, scan: NameScan, at: number, last: LegalFormEntry): number {
   const co = wordBefore(scan, at);
-  if (!co || !CONNECTED_WORDS.has(co.text) || co.start === 0) return at;
+  if (!co || co.start === 0) return at;
+  if (!CONNECTED_WORDS.has(co.text)) return extendAdjacent(text, scan, at, last);
   let connectorEnd = co.start;
   const gap = text.slice(scan.to[co.start - 1], scan.from[co.start]);
   if (!gap.includes('&') && !gap.includes('+')) {
@@ -80,6 +81,20 @@ function extendCompound(text: string, scan: NameScan, at: number): number {
   }
   const inner = longestSuffix(scan, 0, connectorEnd, legalFormIndex().suffix);
   return inner ? inner.at : at;
+}
+
+/**
+ * "Widgets sp. z o.o. sp.k." (PL): a general partner's form written straight before the partnership's form.
+ * Both must be abbreviations of one country, the inner one short or dotted (a word such as "Trust" in
+ * "Marlow Trust AG" stays in the name), and "Co."/"Company" never joins ("Acme Co. Ltd" keeps its "Co.").
+ */
+function extendAdjacent(text: string, scan: NameScan, at: number, last: LegalFormEntry): number {
+  if (!last.abbreviation) return at;
+  const inner = longestSuffix(scan, 0, at, legalFormIndex().suffix);
+  if (!inner || !inner.entry.abbreviation || CONNECTED_WORDS.has(inner.entry.key)) return at;
+  if (inner.entry.key.length > 4 && !text.slice(scan.from[inner.at], scan.to[at - 1]).includes('.')) return at;
+  const countries = new Set(last.jurisdictions.map((j) => j.slice(0, 2)));
+  return inner.entry.jurisdictions.some((j) => countries.has(j.slice(0, 2))) ? inner.at : at;
 }
 
 /**
@@ -116,7 +131,7 @@ export function matchSuffixForm(text: string, scan: NameScan, hi: number, limit:
   const hit = longestSuffix(scan, 0, hi, legalFormIndex().suffix);
   if (!hit || isPartnersCo(text, scan, hit.at, hit.entry.key)) return null;
   if (ambiguousWithoutSupport(text, scan, hit.at, hi, hit.entry, country)) return null;
-  const at = extendCompound(text, scan, hit.at);
+  const at = extendCompound(text, scan, hit.at, hit.entry);
   return { entry: hit.entry, start: scan.from[at] as number, end: extendOverDots(text, scan.to[hi - 1] as number, limit), position: 'suffix' };
 }
 

@@ -125,6 +125,11 @@ describe('legal forms (ISO 20275 ELF v1.5)', () => {
     const at = analyseName('Brunnauer Sägewerk GmbH & Co KG', { country: 'AT' });
     expect(at.legalForm?.family).toBe('kg');
     expect(at.core).toBe('brunnauer sagewerk');
+    // A general partner's form written straight before the partnership's (PL: ELF v1.5 BSJT "sp.k.", O7XB "sp. z o.o.").
+    const pl = analyseName('Wodnik Zalew sp. z o.o. sp.k.');
+    expect(pl.legalForm?.elfCodes).toEqual(['BSJT']);
+    expect(pl.core).toBe('wodnik zalew');
+    expect(analyseName('Marlow Trust AG').core).toBe('marlow trust'); // a word stays in the name
     // "& Co." alone before a designator is part of the name.
     expect(analyseName('Tregarth & Co. KG').core).toBe('tregarth and co');
   });
