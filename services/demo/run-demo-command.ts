@@ -16,7 +16,7 @@ import type { Kysely } from 'kysely';
 import type { Database } from '../../db/types.ts';
 import { CliError } from '../cli/cli-error.ts';
 import type { DemoCliOptions } from '../cli/commands/demo.ts';
-import { DEMO_KEY_LABEL } from '../cli/commands/demo.ts';
+import { DEMO_DATA_DIR, DEMO_KEY_LABEL } from '../cli/commands/demo.ts';
 import { cliActor, progressReporter } from '../ingest/cli-support.ts';
 import { CONTRACT_SOURCE, MENTION_SOURCE, generateScenario, type Scenario } from './scenario/index.ts';
 import { writeScenario } from './write-scenario.ts';
@@ -36,9 +36,9 @@ export const CAUTION =
 
 export async function runDemoCommand(options: DemoCliOptions): Promise<void> {
   const { isPostgresUrl, MEMORY_TARGET, openDatabase } = await import('../../db/open-database.ts');
-  const dbDir = options.db.replace(/[\\/]+$/, '') || '.';
+  const dbDir = withoutTrailingSlashes(options.db);
   if (isPostgresUrl(dbDir) || dbDir === MEMORY_TARGET) {
-    throw new CliError(`--db ${options.db}: the demo builds an embedded database; give a directory (default ${'./data/demo'})`);
+    throw new CliError(`--db ${options.db}: the demo builds an embedded database; give a directory (default ${DEMO_DATA_DIR})`);
   }
   const filesDir = options.files ?? `${dbDir}-scenario`;
   const note = (line: string): void => {
@@ -100,6 +100,12 @@ export async function runDemoCommand(options: DemoCliOptions): Promise<void> {
   else process.stdout.write(`\n${formatSummary(summary, { vendorLines })}\n\n  ${CAUTION}\n\n`);
   if (!options.serve) return;
   await serve(options, { dbDir, filesDir, apiKey: apiKey!, busiest: summary.busiest[0] }, note);
+}
+
+function withoutTrailingSlashes(path: string): string {
+  let end = path.length;
+  while (end > 1 && (path[end - 1] === '/' || path[end - 1] === '\\')) end--;
+  return path.slice(0, end) || '.';
 }
 
 // ---------------------------------------------------------------- building
@@ -221,8 +227,8 @@ export interface Suggestions {
   apiKey: string;
   dbDir: string;
   filesDir: string;
-  /** The busiest counterparty, to show a search and a read that find something. */
-  busiest?: { id: number; name: string };
+  /** The busiest counterparty, to show a search, a read and a mention that find something. */
+  busiest?: { id: number; name: string; contractIds: string[] };
 }
 
 export function afterServing(x: Suggestions): string {
@@ -231,6 +237,9 @@ export function afterServing(x: Suggestions): string {
   const db = `--db ${rel(x.dbDir)}`;
   const word = x.busiest?.name.split(/\s+/)[0] ?? 'logistics';
   const id = x.busiest?.id ?? 1;
+  // Its name as an extraction model might send it (capitals, no punctuation), in one of its contracts.
+  const shouted = (x.busiest?.name ?? 'Example Logistics Ltd').toUpperCase().replace(/[.,]/g, '');
+  const contract = x.busiest?.contractIds[0] ? `,"contract":{"source":"${CONTRACT_SOURCE}","externalId":"${x.busiest.contractIds[0]}"}` : '';
   return [
     '',
     `  API            ${x.url}  (reference: ${x.url}/docs)`,
@@ -242,7 +251,7 @@ export function afterServing(x: Suggestions): string {
     `    curl -s ${auth} "${x.url}/v1/counterparties/${id}"`,
     `    curl -s ${auth} "${x.url}/v1/counterparties/${id}/network"`,
     `    curl -s ${auth} "${x.url}/v1/review-items?limit=5"`,
-    `    curl -s ${auth} -H "Content-Type: application/json" -d '{"source":"try","externalId":"1","text":"${word} ltd"}' ${x.url}/v1/mentions`,
+    `    curl -s ${auth} -H "Content-Type: application/json" -d '{"source":"try","externalId":"1","text":"${shouted}"${contract}}' ${x.url}/v1/mentions`,
     '',
     '  after Ctrl-C',
     `    node bin/cpreg.js keys list ${db}`,
