@@ -8,6 +8,7 @@ import { locateNameAt, numberingAt } from './locateName.ts';
 import type { LocatedName } from './locateName.ts';
 
 const OPENERS = ['between:', 'between', 'parties', 'the parties', 'the undersigned:', 'the undersigned', 'entre', 'entre les soussignés', 'zwischen', 'tra'];
+const LIST_ENDINGS = [' between', ' among', ' amongst', ' parties', ' entre', ' zwischen', ' tra'];
 const CLOSERS = ['it is agreed', 'it is hereby agreed', 'whereas', 'recitals', 'background', 'now', 'agreed terms', 'the parties agree', 'have agreed', 'operative', 'préambule', 'il a été convenu', 'vorbemerkung', 'premesso'];
 /** A parties clause longer than this is not one. */
 const MAX_CLAUSE = 4000;
@@ -78,6 +79,8 @@ function findOpener(text: string, from: number): number {
     if (e < 0) e = text.length;
     const t = text.slice(s, e).trim().toLowerCase().replace(/:$/u, '');
     if (t.length <= 24 && OPENERS.some((o) => t === o.replace(/:$/u, ''))) return e;
+    // "This Agreement is made on 1 July 2024 between:" — a sentence that ends by opening the list.
+    if (t.length <= 200 && LIST_ENDINGS.some((o) => t.endsWith(o))) return e;
     s = e + 1;
   }
   return -1;

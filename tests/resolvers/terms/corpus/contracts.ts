@@ -692,4 +692,22 @@ Witness name: Tom Ebbsfleet
 Witness address: 2 Canal Walk, Leicester LE1 1AA`,
     parties: [{ name: 'ROSEWELL PROPERTY LIMITED', terms: [] }],
   },
+  {
+    id: 'uk-made-between-colon-list',
+    style: 'UK: "This Agreement is made on … between:" then (1)/(2) items without defined terms, then RECITALS',
+    text: `This Agreement is made on 1 July 2024 between:
+
+(1) Caldermoor Seeds Limited, a company incorporated in Scotland with company number SC601234, of 7 Mill Lane, Perth PH1 5AA; and
+
+(2) Bexley Greenhouses LLP, a limited liability partnership registered in England and Wales under number OC398765.
+
+RECITALS
+
+(A) The parties wish to cooperate (the "Project").`,
+    parties: [
+      { name: 'Caldermoor Seeds Limited', terms: [], jurisdiction: 'GB', identifiers: [{ scheme: 'gb_company', value: 'SC601234' }] },
+      { name: 'Bexley Greenhouses LLP', terms: [], jurisdiction: 'GB', identifiers: [{ scheme: 'gb_company', value: 'OC398765' }] },
+    ],
+    notParties: ['Project'],
+  },
 ];
