@@ -10,6 +10,7 @@
  * - CZ "s.r.o." / "a.s." (9HLU / 6CQN), SK "s.r.o." / "a.s." (VSZS / 2EEG), PT "Lda." / "S.A." (USOG / DFE5),
  *   JP "K.K." / "Kabushiki Kaisha" (T417) and "G.K." / "Godo Kaisha" (7QQ0): the v1.5 rows of these codes carry no
  *   Latin abbreviation (or only a long one such as SK "Spol. s r. o."); the short forms are common practice.
+ * - CZ "v. v. i." (CIO8, veřejná výzkumná instituce): no abbreviation in v1.5; common practice.
  */
 export interface SupplementForm {
   text: string;
@@ -38,6 +39,7 @@ export const SUPPLEMENT_FORMS: readonly SupplementForm[] = [
   { text: 'Lda.', code: 'USOG', kind: 'a' },
   { text: 'Limitada', code: 'USOG', kind: 'a' },
   { text: 'S.A.', code: 'DFE5', kind: 'a' },
+  { text: 'v. v. i.', code: 'CIO8', kind: 'a' },
   { text: 'K.K.', code: 'T417', kind: 'a' },
   { text: 'Kabushiki Kaisha', code: 'T417', kind: 'n' },
   { text: 'G.K.', code: '7QQ0', kind: 'a' },

@@ -99,18 +99,19 @@ function extendAdjacent(text: string, scan: NameScan, at: number, last: LegalFor
 
 /**
  * Two-letter designators that are also everyday tokens at the end of names: Roman numerals ("Fund II"), "EU",
- * "PR", "CA". They count only when written with their punctuation ("I/S", "C/A", "D.A.") or when the hint is a
- * country they belong to. Common practice.
+ * "PR", "CA". With a country hint they count only in a country they belong to ("v. i." is no LT form in CZ);
+ * without one, only when written with their punctuation ("I/S", "C/A", "D.A."). Common practice.
  */
 const AMBIGUOUS_SUFFIXES: ReadonlySet<string> = new Set(['ii', 'vi', 'eu', 'pr', 'is', 'et', 'da', 'ca']);
 
 function ambiguousWithoutSupport(text: string, scan: NameScan, at: number, hi: number, entry: LegalFormEntry, country: string | undefined): boolean {
   if (!AMBIGUOUS_SUFFIXES.has(entry.key)) return false;
+  if (country !== undefined) {
+    const whole = country.slice(0, 2);
+    return !entry.jurisdictions.some((j) => j.slice(0, 2) === whole);
+  }
   const written = text.slice(scan.from[at], scan.to[hi - 1]);
-  if (written.includes('/') || written.includes('.')) return false;
-  if (country === undefined) return true;
-  const whole = country.length > 2 ? country.slice(0, 2) : country;
-  return !entry.jurisdictions.some((j) => j === country || j.slice(0, 2) === whole);
+  return !written.includes('/') && !written.includes('.');
 }
 
 /** "Smith & Co.": a firm name, where "Co." means the partners and is no designator. */
@@ -132,7 +133,10 @@ export function matchSuffixForm(text: string, scan: NameScan, hi: number, limit:
   if (!hit || isPartnersCo(text, scan, hit.at, hit.entry.key)) return null;
   if (ambiguousWithoutSupport(text, scan, hit.at, hi, hit.entry, country)) return null;
   const at = extendCompound(text, scan, hit.at, hit.entry);
-  return { entry: hit.entry, start: scan.from[at] as number, end: extendOverDots(text, scan.to[hi - 1] as number, limit), position: 'suffix' };
+  let start = scan.from[at] as number;
+  // "(Pvt.) Ltd.", "(Pty) Ltd": an opening bracket closed inside the form belongs to it.
+  if (start > 0 && text.charCodeAt(start - 1) === 0x28 && text.indexOf(')', start) < (scan.to[hi - 1] as number)) start--;
+  return { entry: hit.entry, start, end: extendOverDots(text, scan.to[hi - 1] as number, limit), position: 'suffix' };
 }
 
 /**
