@@ -68,5 +68,17 @@ describe.skipIf(!present)('the committed table (needs ../shared/reference)', () 
     // FR SARL V9QP has no abbreviation in v1.5 (SOURCES.md §2); "SARL" comes from legalFormSupplement.ts (common practice).
     expect(table.forms['sarl']?.[2].split(' ')).toContain('V9QP');
     expect(table.about).toContain('CC0');
+    // SOURCES.md §2 quirks: Cyrillic left in a "transliterated" field (BY AABD "ТАА") and the "kr" language code
+    // (KR 5RCH 주식회사, transliterated "JuSikHoeSa"): script and language are not used, the designators still count.
+    expect(table.forms['таа']?.[2]).toBe('AABD');
+    expect(table.forms['주식회사']?.[2]).toBe('5RCH');
+    expect(table.forms['jusikhoesa']?.[2]).toBe('5RCH');
+    // Trailing NBSP (LU 5GGB "SA\u00a0"): the code sits under the plain key.
+    expect(table.forms['sa']?.[2].split(' ')).toContain('5GGB');
+    // US comma-separated rows (OK OJDX "RLLP, LLP, R.L.L.P., L.L.P."): each piece is a key of its own.
+    expect(table.forms['rllp']?.[2].split(' ')).toContain('OJDX');
+    expect(table.forms['llp']?.[2].split(' ')).toContain('OJDX');
+    // MX HKWO "S.A. de C.V., SOFOM E.N.R.": one key with the comma's parts together.
+    expect(table.forms['sadecvsofomenr']?.[2]).toBe('HKWO');
   });
 });
