@@ -13,6 +13,7 @@ import contract from './contract.ts';
 import keys from './keys.ts';
 import ingest from './ingest.ts';
 import exportCommand from './export.ts';
+import reconcile from './reconcile.ts';
 import ownEntities from './own-entities.ts';
 import reresolve from './reresolve.ts';
 import sweep from './sweep.ts';
@@ -28,6 +29,7 @@ export const COMMANDS: Array<(program: Command) => void> = [
   keys,
   ingest,
   exportCommand,
+  reconcile,
   ownEntities,
   reresolve,
   sweep,
