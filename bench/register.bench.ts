@@ -1,0 +1,161 @@
+/**
+ * Resolve latency for single mentions inside the service (no HTTP): median and p99, with registers of 10,000 and
+ * 100,000 counterparties on PGlite and PostgreSQL, and 1,000,000 on PostgreSQL under --full.
+ * Goal (issue 6): p99 ≤ 10 ms per mention on PostgreSQL at 1M.
+ *
+ * The register is bulk-loaded from the seeded name generator (one counterparty per generated name, with its
+ * blocking keys computed by the same function the service uses), bypassing the history: the load is set-up, not
+ * what is measured. Each measured call is a full resolveMention: analysis, candidates, scoring, the write and its
+ * history event, in one transaction.
+ */
+import { sql, type Kysely } from 'kysely';
+import pg from 'pg';
+import type { Database } from '../db/types.ts';
+import { openDatabase } from '../db/open-database.ts';
+import { migrateToLatest } from '../db/migrate.ts';
+import { createRegisterContext, resolveMention } from '../services/register/index.ts';
+import { analyse } from '../services/register/matching/analysis.ts';
+import { nameBlockingKeys } from '../services/register/matching/keys.ts';
+import type { BenchContext, BenchRow, GeneratedName } from './types.ts';
+
+const LOAD_BATCH = 2000;
+
+export async function bulkLoad(db: Kysely<Database>, names: Iterator<GeneratedName>, size: number, log: (m: string) => void): Promise<void> {
+  const at = new Date().toISOString();
+  let ids: number[] = [];
+  let texts: string[] = [];
+  let countries: (string | null)[] = [];
+  let loaded = 0;
+  const flush = async () => {
+    if (ids.length === 0) return;
+    const normalised = texts.map((t) => analyse(t).normalised);
+    const legal = texts.map((t) => analyse(t).legalForm?.family ?? null);
+    const keyRows: { key: string; id: number }[] = [];
+    texts.forEach((t, i) => {
+      for (const key of new Set(nameBlockingKeys({ name: t }))) keyRows.push({ key, id: ids[i]! });
+    });
+    await db.transaction().execute(async (trx) => {
+      await sql`INSERT INTO counterparty (id, canonical_name, kind, jurisdiction, status, version, created_at, updated_at)
+        SELECT id, name, 'organisation', country, 'active', 1, ${at}::timestamptz, ${at}::timestamptz
+        FROM unnest(${sql.val(ids)}::bigint[], ${sql.val(texts)}::text[], ${sql.val(countries)}::text[]) AS t(id, name, country)`.execute(trx);
+      await sql`INSERT INTO counterparty_name (id, counterparty_id, name, normalised, kind, legal_form, seen_count, source, created_at)
+        SELECT id, id, name, norm, CASE WHEN lf IS NULL THEN 'observed' ELSE 'legal' END, lf, 1, 'bench', ${at}::timestamptz
+        FROM unnest(${sql.val(ids)}::bigint[], ${sql.val(texts)}::text[], ${sql.val(normalised)}::text[], ${sql.val(legal)}::text[]) AS t(id, name, norm, lf)`.execute(trx);
+      await sql`INSERT INTO blocking_key (key, counterparty_id, name_id)
+        SELECT key, id, id FROM unnest(${sql.val(keyRows.map((k) => k.key))}::text[], ${sql.val(keyRows.map((k) => k.id))}::bigint[]) AS t(key, id)
+        ON CONFLICT DO NOTHING`.execute(trx);
+    });
+    loaded += ids.length;
+    if (loaded % 50_000 < LOAD_BATCH) log(`  loaded ${loaded.toLocaleString('en-US')} / ${size.toLocaleString('en-US')}`);
+    ids = [];
+    texts = [];
+    countries = [];
+  };
+  let n = 0;
+  // Read with next(), not for-of: breaking a for-of would close the generator the queries are taken from.
+  for (let r = n < size ? names.next() : undefined; r && !r.done; r = n < size ? names.next() : undefined) {
+    const row = r.value;
+    n++;
+    ids.push(n);
+    texts.push(row.name);
+    countries.push(row.country);
+    if (ids.length >= LOAD_BATCH) await flush();
+  }
+  await flush();
+  for (const table of ['counterparty', 'counterparty_name']) {
+    await sql`SELECT setval(pg_get_serial_sequence(${table}, 'id'), ${n + 1}, false)`.execute(db);
+  }
+  await sql`ANALYZE`.execute(db);
+}
+
+function percentile(sorted: number[], p: number): number {
+  const index = Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1));
+  return sorted[index]!;
+}
+
+async function measure(ctx: BenchContext, db: Kysely<Database>, backend: 'pglite' | 'postgres', size: number): Promise<BenchRow[]> {
+  const started = performance.now();
+  const stream = ctx.generator.names(size + 2000, ctx.seed)[Symbol.iterator]();
+  await bulkLoad(db, stream, size, ctx.log);
+  const loadSeconds = (performance.now() - started) / 1000;
+  const queries: GeneratedName[] = [];
+  for (let r = stream.next(); !r.done && queries.length < 1100; r = stream.next()) queries.push(r.value);
+  const register = createRegisterContext(db);
+  const warm = 50;
+  const count = ctx.mode === 'quick' ? 300 : 1000;
+  const times: number[] = [];
+  const statuses: Record<string, number> = {};
+  for (let i = 0; i < Math.min(queries.length, warm + count); i++) {
+    const q = queries[i]!;
+    const t0 = performance.now();
+    const r = await resolveMention(register, { source: 'bench', externalId: `q${i}`, text: q.name, country: q.country }, { actor: 'bench' });
+    const ms = performance.now() - t0;
+    if (i >= warm) {
+      times.push(ms);
+      statuses[r.status] = (statuses[r.status] ?? 0) + 1;
+    }
+  }
+  times.sort((a, b) => a - b);
+  const goal = backend === 'postgres' && size >= 1_000_000 ? { goal: { op: '<=' as const, value: 10 } } : {};
+  const extra = { loadSeconds: Math.round(loadSeconds), calls: times.length, ...Object.fromEntries(Object.entries(statuses).map(([k, v]) => [`status_${k}`, v])) };
+  return [
+    { id: `resolve.${backend}.${size}.median`, label: `resolve latency median (${backend}, ${size.toLocaleString('en-US')} counterparties)`, value: percentile(times, 50), unit: 'ms', better: 'lower', size, backend, extra },
+    { id: `resolve.${backend}.${size}.p99`, label: `resolve latency p99 (${backend}, ${size.toLocaleString('en-US')} counterparties)`, value: percentile(times, 99), unit: 'ms', better: 'lower', size, backend, ...goal },
+  ];
+}
+
+async function withPostgresDatabase<T>(adminUrl: string, fn: (url: string) => Promise<T>): Promise<T> {
+  const name = `cpreg_bench_register_${process.pid}_${Date.now()}`;
+  const admin = new pg.Client({ connectionString: adminUrl });
+  await admin.connect();
+  try {
+    await admin.query(`CREATE DATABASE ${name}`);
+    const url = new URL(adminUrl);
+    url.pathname = `/${name}`;
+    try {
+      return await fn(url.toString());
+    } finally {
+      await admin.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`);
+    }
+  } finally {
+    await admin.end();
+  }
+}
+
+/** Measured rows are sent with ctx.record as soon as they exist (kept if a later size fails); only a skip is returned. */
+export async function run(ctx: BenchContext): Promise<BenchRow[]> {
+  const rows: BenchRow[] = [];
+  for (const size of ctx.sizes.register.filter((s) => s <= 100_000)) {
+    ctx.log(`PGlite: register of ${size.toLocaleString('en-US')} counterparties`);
+    const opened = await openDatabase('memory:');
+    try {
+      await migrateToLatest(opened.db);
+      for (const row of await measure(ctx, opened.db, 'pglite', size)) {
+        ctx.record(row);
+      }
+    } finally {
+      await opened.close();
+    }
+  }
+  if (!ctx.databaseUrl) {
+    rows.push({ id: 'resolve.postgres', label: 'resolve latency on PostgreSQL', value: 0, unit: 'ms', better: 'lower', backend: 'postgres', skipped: 'DATABASE_URL not set' });
+    return rows;
+  }
+  for (const size of ctx.sizes.register) {
+    ctx.log(`PostgreSQL: register of ${size.toLocaleString('en-US')} counterparties`);
+    await withPostgresDatabase(ctx.databaseUrl, async (url) => {
+      const opened = await openDatabase(url);
+      try {
+        await migrateToLatest(opened.db);
+        for (const row of await measure(ctx, opened.db, 'postgres', size)) {
+          ctx.record(row);
+        }
+      } finally {
+        await opened.close();
+      }
+    });
+  }
+  return rows;
+}
+
+export default run;
