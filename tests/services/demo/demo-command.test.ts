@@ -25,7 +25,9 @@ describe('measureAccuracy on a worked example', () => {
   it('scores automatic links as a clustering and the other kinds by status', () => {
     // Hand-worked (definitions of pairwise precision/recall and of B-cubed, Bagga & Baldwin 1998):
     // truth A,A,B linked to counterparties 1,1,1 → predicted pairs 3, true pairs 1: P = 1/3, R = 1/1.
-    // B-cubed precision: items of A see 2/3 each, the B item 1/3 → (2/3 + 2/3 + 1/3) / 3 = 5/9; recall 1.
+    // The universe also holds the unbound term wrongly linked alone to counterparty 2 (its own singleton in truth).
+    // B-cubed precision: items of A see 2/3 each, the B item 1/3, the unbound term 1/1 → (2/3 + 2/3 + 1/3 + 1) / 4
+    // = 2/3; recall 1 (every truth cluster sits inside one predicted cluster).
     const linked = (id: number) => ({ status: 'linked' as const, counterpartyId: id });
     const a = measureAccuracy([
       { truth: { kind: 'counterparty', counterpartyId: 'A' }, observed: linked(1) },
@@ -36,7 +38,7 @@ describe('measureAccuracy on a worked example', () => {
     ]);
     expect(a.pairwise.precision).toBeCloseTo(1 / 3, 12);
     expect(a.pairwise.recall).toBe(1);
-    expect(a.bcubed.precision).toBeCloseTo(5 / 9, 12);
+    expect(a.bcubed.precision).toBeCloseTo(2 / 3, 12);
     expect(a.bcubed.recall).toBe(1);
     // A holds most of counterparty 1 and most of A sits in 1: the two A mentions are right, the B one is not.
     expect(a.assignedCorrectly).toBeCloseTo(2 / 3, 12);
