@@ -17,6 +17,7 @@ import { loggerOptions } from './logger.ts';
 import { APP_PLUGINS } from './plugins/index.ts';
 import { ROUTES } from './routes/index.ts';
 import { OPEN_ROUTES } from './open-routes.ts';
+import { consoleRoutes } from '../console/console-routes.ts';
 import { DEFAULT_BODY_LIMIT, type AppDeps } from './types.ts';
 
 export type { AppDeps, RoutePlugin, AppPlugin } from './types.ts';
@@ -78,6 +79,8 @@ export async function buildApp(inputDeps: AppDeps): Promise<FastifyInstance> {
       await plugin(scope, deps);
     });
   }
+  // The review console's static files at /console/ (an open route; the page calls /v1 with the user's key).
+  await app.register(consoleRoutes);
   return app;
 }
 

@@ -1,0 +1,37 @@
+// A contract: its parties with roles, their defined terms and where each party went in the register.
+import { api } from '../api.js';
+import { h, pageTitle, replace, when } from '../dom.js';
+import { facts, section } from '../ui.js';
+
+export async function render(main, { params }) {
+  const { data: c } = await api(`/v1/contracts/${Number(params[0])}`);
+  replace(
+    main,
+    h('p', { class: 'crumbs' }, h('a', { href: '#/search' }, 'Search'), ' › contract'),
+    pageTitle(c.title ?? c.externalId),
+    facts([['Reference', h('code', null, c.externalId)], ['Source', c.source], ['Status', c.status], ['Stored', when(c.createdAt)]]),
+    section(
+      'Parties',
+      h(
+        'table',
+        { class: 'table' },
+        h('thead', null, h('tr', null, h('th', { scope: 'col' }, 'As written'), h('th', { scope: 'col' }, 'Role'), h('th', { scope: 'col' }, 'Defined as'), h('th', { scope: 'col' }, 'In the register'))),
+        h(
+          'tbody',
+          null,
+          c.parties.map((p) =>
+            h(
+              'tr',
+              null,
+              h('td', null, p.text),
+              h('td', null, p.role ?? '—'),
+              h('td', null, p.terms.length ? p.terms.map((t) => `“${t}”`).join(', ') : '—'),
+              h('td', null, p.counterpartyId ? h('a', { href: `#/counterparty/${p.counterpartyId}` }, p.canonicalName ?? `#${p.counterpartyId}`) : p.ownEntityId ? 'our own entity' : p.status),
+            ),
+          ),
+        ),
+      ),
+    ),
+  );
+  main.querySelector('h1').focus();
+}

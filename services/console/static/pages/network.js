@@ -1,0 +1,66 @@
+// The network view: the counterparty, its contracts and the other parties of those contracts, in SVG.
+// Every counterparty and contract node is a link: click it (or Tab to it and press Enter) to open it.
+import { api } from '../api.js';
+import { h, pageTitle, plural, replace, s } from '../dom.js';
+import { section } from '../ui.js';
+import { layoutNetwork } from '../graph-layout.js';
+
+const NODE_R = { self: 26, contract: 13, counterparty: 15, own: 15 };
+
+function shortLabel(text, max = 26) {
+  return text.length > max ? `${text.slice(0, max - 1)}…` : text;
+}
+
+function drawNode(node, cx) {
+  const r = NODE_R[node.kind];
+  const shape = node.kind === 'contract' ? s('rect', { x: node.x - r, y: node.y - r, width: 2 * r, height: 2 * r, rx: 3 }) : s('circle', { cx: node.x, cy: node.y, r });
+  // Labels sit outside the rings (left half: anchored at their end) so they do not cross the middle.
+  const right = node.x >= cx;
+  const side = { x: node.x + (right ? r + 5 : -r - 5), 'text-anchor': right ? 'start' : 'end' };
+  const label = node.kind === 'self'
+    ? s('text', { x: node.x, y: node.y + r + 18, 'text-anchor': 'middle', class: 'node-label self-label' }, shortLabel(node.label, 40))
+    : [
+        s('text', { ...side, y: node.y + (node.detail ? -1 : 4), class: 'node-label' }, shortLabel(node.label)),
+        node.detail ? s('text', { ...side, y: node.y + 13, class: 'node-detail' }, shortLabel(node.detail, 34)) : null,
+      ];
+  const title = s('title', null, `${node.label}${node.detail ? ` — ${node.detail}` : ''}`);
+  const group = [title, shape, label];
+  const cls = `node node-${node.kind}`;
+  if (node.href) return s('a', { href: node.href, class: cls, 'aria-label': `${node.kind === 'contract' ? 'contract' : 'counterparty'}: ${node.label}`, dataset: { node: node.key } }, group);
+  return s('g', { class: cls, dataset: { node: node.key } }, group);
+}
+
+export async function render(main, { params }) {
+  const id = Number(params[0]);
+  const { data } = await api(`/v1/counterparties/${id}/network`);
+  if (data.counterparty.id !== id) history.replaceState(null, '', `#/network/${data.counterparty.id}`);
+  const layout = layoutNetwork(data, { width: 1000, height: 720 });
+  const at = new Map(layout.nodes.map((n) => [n.key, n]));
+  const svg = s(
+    'svg',
+    { viewBox: `-170 -10 ${layout.width + 340} ${layout.height + 20}`, class: 'network', id: 'network-graph', role: 'group', 'aria-label': `Network of ${data.counterparty.canonicalName}` },
+    s('g', { class: 'edges' }, layout.edges.map((e) => {
+      const a = at.get(e.from);
+      const b = at.get(e.to);
+      if (!a || !b) return null;
+      return s('line', { x1: a.x, y1: a.y, x2: b.x, y2: b.y, class: `edge edge-${e.kind}` }, s('title', null, e.label));
+    })),
+    s('g', { class: 'nodes' }, layout.nodes.map((n) => drawNode(n, layout.width / 2))),
+  );
+  const counterparties = layout.nodes.filter((n) => n.kind === 'counterparty');
+  const own = layout.nodes.filter((n) => n.kind === 'own');
+  replace(
+    main,
+    h('p', { class: 'crumbs' }, h('a', { href: '#/search' }, 'Search'), ' › ', h('a', { href: `#/counterparty/${data.counterparty.id}` }, data.counterparty.canonicalName), ' › network'),
+    pageTitle(`Who contracts with ${data.counterparty.canonicalName}`),
+    h('p', { class: 'legend' }, h('span', { class: 'key key-self' }), ' this counterparty  ', h('span', { class: 'key key-contract' }), ' contract  ', h('span', { class: 'key key-counterparty' }), ' other counterparty  ', h('span', { class: 'key key-own' }), ' our own entity  ', h('span', { class: 'key key-relation' }), ' relation'),
+    layout.shownContracts < layout.totalContracts ? h('p', { class: 'muted' }, `Showing ${layout.shownContracts} of ${layout.totalContracts} contracts.`) : null,
+    h('div', { class: 'network-wrap' }, svg),
+    section(
+      'The same, as a list',
+      h('p', null, `${plural(layout.totalContracts, 'contract')}, ${plural(counterparties.length, 'other counterparty', 'other counterparties')}, ${plural(own.length, 'own entity', 'own entities')}.`),
+      h('ul', { class: 'plain-list' }, data.contracts.map((c) => h('li', null, h('a', { href: `#/contract/${c.contractId}` }, c.title ?? c.externalId), ` (${c.externalId}) as ${c.roles.join(', ') || '—'}: `, data.parties.filter((p) => p.contractId === c.contractId).flatMap((p, i) => [i ? '; ' : '', p.counterpartyId ? h('a', { href: `#/counterparty/${p.counterpartyId}` }, p.name) : `${p.name} (ours)`, p.role ? ` as ${p.role}` : ''])))),
+    ),
+  );
+  main.querySelector('h1').focus();
+}

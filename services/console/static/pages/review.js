@@ -1,0 +1,256 @@
+// The review queue: one pair at a time, side by side, the score with each feature's contribution as bars,
+// "same" / "different" with keyboard shortcuts, a note, the next pair at once, and a counter of what is left.
+import { api } from '../api.js';
+import { h, num, pageTitle, plural, replace, s } from '../dom.js';
+import { errorBox, facts, toast } from '../ui.js';
+import { legalFormOf } from './counterparty.js';
+
+// Our shortcuts: S same, D different, K skip (keep for later), N note; Esc leaves the note.
+export const SHORTCUTS = { same: 's', different: 'd', skip: 'k', note: 'n' };
+const PAGE = 20;
+
+const FEATURE_WORDS = { name: 'Name', legalForm: 'Legal form', jurisdiction: 'Jurisdiction', acronym: 'Acronym', qualifier: 'Place qualifier', sharedContact: 'Shared contact', identifier: 'Identifier', identifiers: 'Identifiers' };
+
+function featureBars(evidence, score) {
+  const features = (evidence?.features ?? []).filter((f) => typeof f.weight === 'number');
+  const thresholds = evidence?.thresholds ?? {};
+  if (features.length === 0) return h('p', { class: 'empty' }, evidence?.summary ?? 'No feature breakdown for this pair.');
+  const extent = Math.max(1, ...features.map((f) => Math.abs(f.weight)));
+  const rowH = 30;
+  const labelW = 118;
+  const barW = 190;
+  const mid = labelW + barW / 2;
+  const width = labelW + barW + 52;
+  const height = features.length * rowH + 8;
+  const scale = (w) => (w / extent) * (barW / 2);
+  const chart = s(
+    'svg',
+    { viewBox: `0 0 ${width} ${height}`, class: 'bars', role: 'img', 'aria-label': `Score ${num(score, 2)}: ${features.map((f) => `${FEATURE_WORDS[f.feature] ?? f.feature} ${num(f.weight, 2)}`).join(', ')}` },
+    s('line', { x1: mid, x2: mid, y1: 0, y2: height, class: 'axis' }),
+    features.map((f, i) => {
+      const y = 4 + i * rowH;
+      const w = scale(f.weight);
+      return s(
+        'g',
+        { class: `bar ${f.weight > 0 ? 'bar-for' : f.weight < 0 ? 'bar-against' : 'bar-none'}` },
+        s('text', { x: 0, y: y + 17, class: 'bar-label' }, `${FEATURE_WORDS[f.feature] ?? f.feature}`),
+        s('text', { x: 0, y: y + 27, class: 'bar-level' }, f.level ? String(f.level).replaceAll('_', ' ') : 'no evidence'),
+        s('rect', { x: w >= 0 ? mid : mid + w, y: y + 6, width: Math.max(1, Math.abs(w)), height: rowH - 12, rx: 2 }),
+        s('text', { x: labelW + barW + 6, y: y + 18, class: 'bar-value' }, f.weight > 0 ? `+${num(f.weight, 2)}` : num(f.weight, 2)),
+      );
+    }),
+  );
+  return h(
+    'div',
+    { class: 'score-box' },
+    h('p', { class: 'score-total' }, 'Score ', h('strong', { id: 'pair-score' }, num(score, 2)), thresholds.linkAt !== undefined ? h('span', { class: 'muted' }, ` · links at ${num(thresholds.linkAt)} or more, new below ${num(thresholds.newAt)}`) : null),
+    h('p', { class: 'legend' }, h('span', { class: 'key key-for' }), ' for the same  ', h('span', { class: 'key key-against' }), ' against'),
+    chart,
+    evidence?.summary ? h('p', { class: 'muted small-text' }, evidence.summary) : null,
+  );
+}
+
+function identifierLines(list) {
+  if (!list || list.length === 0) return h('span', { class: 'muted' }, 'none');
+  return h('ul', { class: 'plain-list' }, list.map((x) => h('li', null, h('span', { class: 'scheme' }, x.scheme), ' ', h('code', null, x.value))));
+}
+
+function mentionSide(item) {
+  const m = item.mention;
+  const form = (item.evidence?.features ?? []).find((f) => f.feature === 'legalForm');
+  return h(
+    'article',
+    { class: 'side side-left', 'aria-label': 'The mention to place' },
+    h('p', { class: 'side-kind' }, 'Mention as written'),
+    h('h2', { class: 'side-name' }, m.text),
+    facts([
+      ['Legal form', form?.level ? `compared: ${String(form.level).replaceAll('_', ' ')}` : '—'],
+      ['Country', m.country ?? '—'],
+      ['Address', m.address ?? '—'],
+      ['Identifiers', identifierLines(m.identifiers)],
+      ['Contract', m.contractId ? h('span', null, h('a', { href: `#/contract/${m.contractId}` }, m.contract?.externalId ?? `contract ${m.contractId}`), m.role ? ` as ${m.role}` : '') : '—'],
+      ['Source', `${m.source} · ${m.externalId}`],
+    ]),
+  );
+}
+
+function counterpartySide(cp, label, cls) {
+  if (!cp) return h('article', { class: `side ${cls}` }, h('p', { class: 'empty' }, 'This counterparty could not be read.'));
+  const names = cp.names.filter((n) => n.name !== cp.canonicalName).slice(0, 5);
+  return h(
+    'article',
+    { class: `side ${cls}`, 'aria-label': label },
+    h('p', { class: 'side-kind' }, label),
+    h('h2', { class: 'side-name' }, h('a', { href: `#/counterparty/${cp.id}` }, cp.canonicalName), h('span', { class: 'muted' }, ` #${cp.id}`)),
+    facts([
+      ['Legal form', legalFormOf(cp)?.toUpperCase() ?? '—'],
+      ['Jurisdiction', cp.jurisdiction ?? '—'],
+      ['Other names', names.length ? names.map((n) => n.name).join('; ') : '—'],
+      ['Identifiers', identifierLines(cp.identifiers)],
+      ['Contracts', cp.contracts.length ? h('ul', { class: 'plain-list' }, cp.contracts.slice(0, 4).map((c) => h('li', null, h('a', { href: `#/contract/${c.contractId}` }, c.title ?? c.externalId), c.roles.length ? ` as ${c.roles.join(', ')}` : '')), cp.contracts.length > 4 ? h('li', { class: 'muted' }, `and ${cp.contracts.length - 4} more`) : null) : 'none'],
+      ['Mentions', String(cp.mentionCount)],
+    ]),
+  );
+}
+
+const KIND_WORDS = {
+  mention_link: 'Does this mention name this counterparty?',
+  duplicate: 'Are these two counterparties the same company or person?',
+  affiliate: 'Are these two counterparties affiliated?',
+};
+
+export async function render(main, { session }) {
+  const canDecide = session.can('decide_reviews');
+  const queue = [];
+  const skipped = new Set();
+  const details = new Map(); // counterparty id -> promise of its record
+  let open = 0;
+  let cursor = null;
+  let current = null;
+  let busy = false;
+
+  const counter = h('p', { class: 'counter', id: 'review-counter', role: 'status', 'aria-live': 'polite' });
+  const stage = h('div', { class: 'review-stage', id: 'review-stage' });
+  const note = h('textarea', { id: 'review-note', rows: '2', maxlength: '2000', placeholder: 'why (kept with the decision)' });
+  const sameButton = h('button', { type: 'button', class: 'primary decide', id: 'decide-same', disabled: !canDecide, 'aria-keyshortcuts': 'S' }, 'Same ', h('kbd', null, 'S'));
+  const differentButton = h('button', { type: 'button', class: 'decide', id: 'decide-different', disabled: !canDecide, 'aria-keyshortcuts': 'D' }, 'Different ', h('kbd', null, 'D'));
+  const skipButton = h('button', { type: 'button', id: 'decide-skip', 'aria-keyshortcuts': 'K' }, 'Skip ', h('kbd', null, 'K'));
+  const outcome = h('div', { class: 'review-outcome', id: 'review-outcome' });
+  const controls = h(
+    'div',
+    { class: 'review-controls' },
+    h('label', { for: 'review-note' }, 'Note ', h('kbd', null, 'N')),
+    note,
+    h('div', { class: 'decide-row' }, sameButton, differentButton, skipButton),
+    canDecide ? null : h('p', { class: 'muted', id: 'review-readonly' }, `Your key (${session.me.scope}) may look at the queue; deciding needs an admin key.`),
+    h('p', { class: 'hint keys-hint' }, 'Keys: S same · D different · K skip · N write a note · Esc leave the note.'),
+  );
+
+  const record = (id) => {
+    if (id === null || id === undefined) return Promise.resolve(null);
+    if (!details.has(id)) details.set(id, api(`/v1/counterparties/${id}`).then((r) => r.data, () => null));
+    return details.get(id);
+  };
+
+  // The queue's size when the answer does not carry it: page through the ids (500 a page).
+  async function countOpen() {
+    let n = 0;
+    let after = null;
+    do {
+      const { data } = await api(`/v1/review-items?limit=500${after ? `&cursor=${encodeURIComponent(after)}` : ''}`);
+      n += data.items.length;
+      after = data.nextCursor;
+    } while (after);
+    return n;
+  }
+
+  async function fetchMore() {
+    const firstPage = cursor === null;
+    const { data } = await api(`/v1/review-items?limit=${PAGE}${cursor ? `&cursor=${encodeURIComponent(cursor)}` : ''}`);
+    cursor = data.nextCursor;
+    if (typeof data.open === 'number') open = data.open;
+    else open = firstPage && !cursor ? data.items.length : await countOpen();
+    for (const item of data.items) if (!skipped.has(item.id) && !queue.some((q) => q.id === item.id)) queue.push(item);
+    // Fetch the sides of the next few pairs now, so the next pair shows at once.
+    for (const item of queue.slice(0, 3)) {
+      record(item.rightCounterpartyId);
+      record(item.leftCounterpartyId);
+    }
+  }
+
+  function showCounter() {
+    counter.textContent = open === 0 ? 'Nothing left to review.' : `${plural(open, 'pair')} left to review${skipped.size ? ` (${skipped.size} skipped)` : ''}.`;
+  }
+
+  async function showNext() {
+    if (queue.length === 0 && cursor) await fetchMore();
+    current = queue.shift() ?? null;
+    showCounter();
+    if (!current) {
+      replace(stage, h('p', { class: 'empty done' }, skipped.size ? 'No more pairs in this pass. Reload the page to see the skipped ones again.' : 'The queue is empty: every doubtful pair has been decided.'));
+      controls.hidden = true;
+      return;
+    }
+    controls.hidden = false;
+    const item = current;
+    const [right, left] = await Promise.all([record(item.rightCounterpartyId), record(item.leftCounterpartyId)]);
+    if (current !== item) return;
+    for (const next of queue.slice(0, 2)) {
+      record(next.rightCounterpartyId);
+      record(next.leftCounterpartyId);
+    }
+    replace(
+      stage,
+      h('h2', { class: 'question', id: 'review-question', tabindex: '-1', dataset: { item: String(item.id), kind: item.kind } }, KIND_WORDS[item.kind] ?? 'Are these the same?', h('span', { class: 'muted' }, ` · item ${item.id}`)),
+      h('div', { class: 'pair' }, item.kind === 'mention_link' && item.mention ? mentionSide(item) : counterpartySide(left, 'Counterparty', 'side-left'), counterpartySide(right, item.kind === 'mention_link' ? 'Best candidate in the register' : 'Counterparty', 'side-right')),
+      featureBars(item.evidence, item.score),
+    );
+    if (queue.length < 3 && cursor) fetchMore().catch(() => undefined);
+  }
+
+  async function decide(decision) {
+    if (!current || busy || !canDecide) return;
+    busy = true;
+    const item = current;
+    const reason = note.value.trim();
+    sameButton.disabled = differentButton.disabled = true;
+    try {
+      const { data } = await api(`/v1/review-items/${item.id}/decision`, { method: 'POST', body: { decision, ...(reason ? { reason } : {}) } });
+      open = Math.max(0, open - 1);
+      note.value = '';
+      details.delete(item.rightCounterpartyId);
+      details.delete(item.leftCounterpartyId);
+      const where = data.counterpartyId ? h('a', { href: `#/counterparty/${data.counterpartyId}`, id: 'decision-result' }, `#${data.counterpartyId}`) : null;
+      replace(outcome, h('p', { class: 'ok', dataset: { item: String(item.id), decision } }, `Item ${item.id}: ${decision}. `, where ? ['The register now shows it under ', where, '.'] : ''));
+      toast(`Decided ${decision} on item ${item.id}.`);
+      await showNext();
+      stage.querySelector('h2')?.focus();
+    } catch (error) {
+      replace(outcome, errorBox(error, `Could not record “${decision}”`));
+    } finally {
+      busy = false;
+      sameButton.disabled = differentButton.disabled = !canDecide;
+    }
+  }
+
+  function skip() {
+    if (!current) return;
+    skipped.add(current.id);
+    replace(outcome, h('p', { class: 'muted' }, `Item ${current.id} skipped for now.`));
+    showNext();
+  }
+
+  sameButton.addEventListener('click', () => decide('same'));
+  differentButton.addEventListener('click', () => decide('different'));
+  skipButton.addEventListener('click', skip);
+  const onKey = (event) => {
+    if (event.ctrlKey || event.metaKey || event.altKey) return;
+    const target = event.target;
+    const typing = target instanceof HTMLTextAreaElement || target instanceof HTMLInputElement || target.isContentEditable;
+    if (typing) {
+      if (event.key === 'Escape' && target === note) {
+        event.preventDefault();
+        note.blur();
+        stage.querySelector('h2')?.focus();
+      }
+      return;
+    }
+    if (document.getElementById('confirm')?.open) return;
+    const key = event.key.toLowerCase();
+    if (key === SHORTCUTS.same) decide('same');
+    else if (key === SHORTCUTS.different) decide('different');
+    else if (key === SHORTCUTS.skip) skip();
+    else if (key === SHORTCUTS.note) {
+      event.preventDefault();
+      note.focus();
+    } else return;
+  };
+  document.addEventListener('keydown', onKey);
+
+  replace(main, pageTitle('Review queue'), counter, stage, controls, outcome);
+  stage.setAttribute('tabindex', '-1');
+  await fetchMore();
+  await showNext();
+  main.querySelector('h1').focus();
+  return () => document.removeEventListener('keydown', onKey);
+}

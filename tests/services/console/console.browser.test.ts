@@ -1,0 +1,422 @@
+/**
+ * The review console end to end in a real browser: Debian's chromium (/usr/bin/chromium, never a downloaded
+ * one) driven by playwright-core, against the service started in this process (buildApp + listen on port 0)
+ * over an embedded database loaded with a small demo scenario through the demo loader (the same public paths
+ * a user takes: own entities, contracts through storeContract, mentions through batch ingest).
+ *
+ * Screenshots of every page at 1280×800 and 390×844 go to test-output/console/ (not committed).
+ */
+import { existsSync, mkdirSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import type { FastifyInstance } from 'fastify';
+import { buildApp } from '../../../services/api/app.ts';
+import { createApiKey } from '../../../services/api/auth/keys.ts';
+import { generateScenario } from '../../../services/demo/scenario/index.ts';
+import { writeScenario } from '../../../services/demo/write-scenario.ts';
+import { loadDemo } from '../../../services/demo/run-demo.ts';
+import { makeTempDir, openTestDatabase, removeTempDir, type TestDatabase } from '../../support/index.ts';
+
+const CHROMIUM = '/usr/bin/chromium';
+const SHOTS = fileURLToPath(new URL('../../../test-output/console/', import.meta.url));
+const WIDE = { width: 1280, height: 800 };
+const NARROW = { width: 390, height: 844 };
+// Ceilings that only catch hangs.
+const STEP_MS = 20_000;
+const TEST_MS = 120_000;
+
+interface SearchHit {
+  id: number;
+  canonicalName: string;
+}
+interface ReviewItem {
+  id: number;
+  kind: string;
+  mentionId: number | null;
+  leftCounterpartyId: number | null;
+  rightCounterpartyId: number;
+}
+
+let database: TestDatabase;
+let app: FastifyInstance;
+let base: string;
+let adminKey: string;
+let readKey: string;
+let filesDir: string;
+let profileDir: string;
+let context: BrowserContext;
+let page: Page;
+
+/** Calls the API directly (not through the page), to check what the register holds. */
+async function apiGet<T>(path: string, key = adminKey): Promise<{ status: number; body: T; location: string | null }> {
+  const response = await fetch(`${base}${path}`, { headers: { authorization: `Bearer ${key}` }, redirect: 'manual' });
+  const text = await response.text();
+  return { status: response.status, body: (text ? JSON.parse(text) : null) as T, location: response.headers.get('location') };
+}
+
+/** Every open review item (the small scenario's queue fits one page of 500). */
+async function openReviewItems(): Promise<{ items: ReviewItem[]; open: number }> {
+  const body = (await apiGet<{ items: ReviewItem[]; nextCursor: string | null }>('/v1/review-items?limit=500')).body;
+  expect(body.nextCursor).toBeNull();
+  return { items: body.items, open: body.items.length };
+}
+
+async function shot(name: string): Promise<void> {
+  const size = page.viewportSize()!;
+  await page.screenshot({ path: join(SHOTS, `${name}-${size.width}x${size.height}.png`), fullPage: true });
+}
+
+async function go(hash: string): Promise<void> {
+  await page.goto(`${base}/console/#${hash}`);
+  await page.waitForSelector('main h1', { timeout: STEP_MS });
+}
+
+async function signIn(key: string): Promise<void> {
+  await page.goto(`${base}/console/#/signin`);
+  await page.fill('#api-key', key);
+  await page.click('#sign-in');
+  await page.waitForSelector('#search-box', { timeout: STEP_MS });
+}
+
+/** Presses Tab until the focused element matches `selector` (keyboard-only navigation). */
+async function tabTo(selector: string, limit = 40): Promise<void> {
+  for (let i = 0; i < limit; i++) {
+    await page.keyboard.press('Tab');
+    if (await page.evaluate((sel) => document.activeElement?.matches(sel) ?? false, selector)) return;
+  }
+  throw new Error(`Tab never reached ${selector} in ${limit} presses`);
+}
+
+/** The page must not scroll sideways (the narrow layout fits the window). */
+async function expectNoSidewaysScroll(): Promise<void> {
+  const { scroll, client } = await page.evaluate(() => ({ scroll: document.documentElement.scrollWidth, client: document.documentElement.clientWidth }));
+  expect(scroll, `page is ${scroll}px wide in a ${client}px window`).toBeLessThanOrEqual(client + 1);
+}
+
+beforeAll(async () => {
+  if (!existsSync(CHROMIUM)) {
+    throw new Error(`${CHROMIUM} is missing: install Debian's chromium (apt-get install -y chromium); the console tests never use a downloaded browser`);
+  }
+  rmSync(SHOTS, { recursive: true, force: true });
+  mkdirSync(SHOTS, { recursive: true });
+
+  // A small scenario (30 counterparties, 40 contracts) keeps the load to seconds and still fills the review queue.
+  const scenario = generateScenario(1, {
+    contracts: 40,
+    counterparties: { total: 30, parentSubsidiaryPairs: 2, lookalikePairs: 3, tradeNames: 2, formerNames: 2, persons: 1 },
+    vendorOnly: 2,
+  });
+  filesDir = makeTempDir('cpreg-console-scenario-');
+  await writeScenario(filesDir, scenario);
+  database = await openTestDatabase('pglite');
+  const load = await loadDemo({ db: database.db, scenario, filesDir, actor: 'demo loader' });
+  expect(load.interrupted).toBe(false);
+
+  app = await buildApp({ db: database.db, backend: 'pglite', rateLimitPerMinute: false });
+  adminKey = (await createApiKey(database.db, { scope: 'admin', label: 'R. Okafor (legal ops)' })).secret;
+  readKey = (await createApiKey(database.db, { scope: 'read', label: 'finance viewer' })).secret;
+  base = await app.listen({ port: 0, host: '127.0.0.1' });
+
+  profileDir = join(tmpdir(), `cpreg-console-profile-${process.pid}-${Date.now()}`);
+  context = await chromium.launchPersistentContext(profileDir, {
+    executablePath: CHROMIUM,
+    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking'],
+    viewport: WIDE,
+    acceptDownloads: true,
+  });
+  page = context.pages()[0] ?? (await context.newPage());
+  const pageErrors: string[] = [];
+  page.on('pageerror', (error) => pageErrors.push(error.message));
+  page.on('console', (message) => {
+    if (message.type() === 'error' && !/status of 40[34]|status of 412/.test(message.text())) pageErrors.push(message.text());
+  });
+  (globalThis as { consolePageErrors?: string[] }).consolePageErrors = pageErrors;
+}, 240_000);
+
+afterAll(async () => {
+  await context?.close();
+  await app?.close();
+  await database?.close();
+  if (filesDir) removeTempDir(filesDir);
+  if (profileDir) rmSync(profileDir, { recursive: true, force: true });
+});
+
+function pageErrors(): string[] {
+  return (globalThis as { consolePageErrors?: string[] }).consolePageErrors ?? [];
+}
+
+describe('review console in chromium', () => {
+  it('serves the console as an open route with its own content security policy', async () => {
+    const redirect = await fetch(`${base}/console`, { redirect: 'manual' });
+    expect(redirect.status).toBe(308);
+    expect(redirect.headers.get('location')).toBe('/console/');
+    const html = await fetch(`${base}/console/`);
+    expect(html.status).toBe(200);
+    expect(html.headers.get('content-type')).toMatch(/text\/html/);
+    expect(html.headers.get('content-security-policy')).toMatch(/connect-src 'self'/);
+    const script = await fetch(`${base}/console/app.js`);
+    expect(script.status).toBe(200);
+    expect(script.headers.get('content-type')).toMatch(/javascript/);
+  });
+
+  it('signs in with an API key and shows what its scope allows', async () => {
+    await page.goto(`${base}/console/`);
+    await page.waitForSelector('#api-key', { timeout: STEP_MS });
+    await shot('01-signin');
+    // A wrong key is refused in plain words with the problem's code.
+    await page.fill('#api-key', 'not-a-key');
+    await page.click('#sign-in');
+    const refusal = await page.waitForSelector('.signin .error-box', { timeout: STEP_MS });
+    expect(await refusal.textContent()).toMatch(/not accepted.*code UNAUTHENTICATED, HTTP 401/s);
+    await shot('02-signin-refused');
+
+    await page.fill('#api-key', adminKey);
+    await page.click('#sign-in');
+    await page.waitForSelector('#search-box', { timeout: STEP_MS });
+    expect(await page.textContent('#who')).toContain('R. Okafor (legal ops)');
+    expect(await page.textContent('#who .scope')).toBe('admin');
+    // The key is kept for this browser session only.
+    expect(await page.evaluate(() => [sessionStorage.length, localStorage.length])).toEqual([1, 0]);
+  }, TEST_MS);
+
+  it('searches as you type with highlighted names, legal form and jurisdiction, and opens a counterparty', async () => {
+    const all = (await apiGet<{ items: SearchHit[] }>('/v1/counterparties?limit=50')).body.items;
+    const target = all.find((c) => /\s/.test(c.canonicalName))!;
+    const firstWord = target.canonicalName.split(/\s+/)[0]!;
+    const typed = firstWord.slice(0, Math.max(4, firstWord.length - 1));
+    await go('/search');
+    await page.type('#search-box', typed, { delay: 40 });
+    const link = await page.waitForSelector(`#results a[data-id="${target.id}"]`, { timeout: STEP_MS });
+    const marks = await link.$$eval('mark', (nodes) => nodes.map((n) => n.textContent));
+    expect(marks.length).toBeGreaterThan(0);
+    expect(marks.join(' ').toLowerCase()).toContain(typed.toLowerCase());
+    expect(await link.$eval('.badge-place', (n) => n.textContent)).not.toBe('');
+    expect(await link.$eval('.badge-form, .badge-none', (n) => n.textContent)).not.toBe('');
+    expect(page.url()).toContain(`q=${encodeURIComponent(typed)}`);
+    await shot('03-search');
+
+    await link.click();
+    await page.waitForSelector('#history', { timeout: STEP_MS });
+    expect(await page.textContent('main h1')).toBe(target.canonicalName);
+    const detail = (await apiGet<{ names: { name: string }[]; contracts: { externalId: string }[] }>(`/v1/counterparties/${target.id}`)).body;
+    const text = (await page.textContent('main'))!;
+    for (const name of detail.names) expect(text).toContain(name.name);
+    for (const contract of detail.contracts) expect(text).toContain(contract.externalId);
+    expect(await page.$$eval('#history li.event', (n) => n.length)).toBeGreaterThan(0);
+    await shot('04-counterparty');
+  }, TEST_MS);
+
+  it('decides two review items, one same and one different, and the register changes', async () => {
+    const before = await openReviewItems();
+    expect(before.open, 'the demo scenario should leave at least four pairs to review').toBeGreaterThanOrEqual(4);
+    await go('/review');
+    await page.waitForSelector('#review-question', { timeout: STEP_MS });
+    expect(await page.textContent('#review-counter')).toContain(`${before.open} pairs left`);
+    expect(await page.$$eval('.bars .bar', (n) => n.length)).toBeGreaterThan(0);
+    await shot('05-review');
+
+    // "same"
+    const first = Number(await page.getAttribute('#review-question', 'data-item'));
+    const firstItem = before.items.find((i) => i.id === first)!;
+    await page.fill('#review-note', 'same registered office and contract');
+    await page.click('#decide-same');
+    await page.waitForSelector(`#review-outcome [data-item="${first}"][data-decision="same"]`, { timeout: STEP_MS });
+    await page.waitForFunction((id) => document.querySelector('#review-question')?.getAttribute('data-item') !== String(id), first, { timeout: STEP_MS });
+    expect(await page.textContent('#review-counter')).toContain(`${before.open - 1} pair`);
+    const afterSame = await openReviewItems();
+    expect(afterSame.items.some((i) => i.id === first)).toBe(false);
+    if (firstItem.kind === 'mention_link') {
+      const mentions = (await apiGet<{ items: { id: number; status: string }[] }>(`/v1/counterparties/${firstItem.rightCounterpartyId}/mentions?limit=500`)).body.items;
+      expect(mentions.find((m) => m.id === firstItem.mentionId)?.status).toBe('linked');
+    }
+
+    // "different"
+    const second = Number(await page.getAttribute('#review-question', 'data-item'));
+    const secondItem = before.items.find((i) => i.id === second)!;
+    await page.click('#decide-different');
+    await page.waitForSelector(`#review-outcome [data-item="${second}"][data-decision="different"]`, { timeout: STEP_MS });
+    expect((await openReviewItems()).items.some((i) => i.id === second)).toBe(false);
+    await shot('06-review-after-two');
+
+    // The outcome links to where the register put it; the page shows the change.
+    await page.click('#decision-result');
+    await page.waitForSelector('#history', { timeout: STEP_MS });
+    const history = (await page.textContent('#history'))!;
+    expect(history).toMatch(/review|linked|created/i);
+    if (secondItem.kind === 'mention_link') {
+      const shownId = Number(page.url().split('/').pop());
+      expect(shownId).not.toBe(secondItem.rightCounterpartyId);
+      const mentions = (await apiGet<{ items: { id: number; text: string }[] }>(`/v1/counterparties/${shownId}/mentions?limit=500`)).body.items;
+      const moved = mentions.find((m) => m.id === secondItem.mentionId)!;
+      expect(moved).toBeTruthy();
+      expect(await page.textContent('#mentions')).toContain(moved.text);
+    }
+    await shot('07-counterparty-after-different');
+  }, TEST_MS);
+
+  it('decides one review item with the keyboard alone', async () => {
+    const before = await openReviewItems();
+    await go('/search');
+    await page.focus('body');
+    await tabTo('#nav a[data-section="review"]');
+    await page.keyboard.press('Enter');
+    await page.waitForSelector('#review-question', { timeout: STEP_MS });
+    const item = Number(await page.getAttribute('#review-question', 'data-item'));
+    await page.keyboard.press('n');
+    expect(await page.evaluate(() => document.activeElement?.id)).toBe('review-note');
+    await page.keyboard.type('decided by keyboard: names differ in legal form');
+    await page.keyboard.press('Escape');
+    expect(await page.evaluate(() => document.activeElement?.id)).not.toBe('review-note');
+    await page.keyboard.press('d');
+    await page.waitForSelector(`#review-outcome [data-item="${item}"][data-decision="different"]`, { timeout: STEP_MS });
+    const after = await openReviewItems();
+    expect(after.open).toBe(before.open - 1);
+    const changes = (await apiGet<{ items: { type: string; reason: string | null; details: Record<string, unknown> }[] }>('/v1/changes?limit=1000')).body.items;
+    const decided = changes.filter((e) => e.reason === 'decided by keyboard: names differ in legal form');
+    expect(decided.length).toBeGreaterThan(0);
+  }, TEST_MS);
+
+  it('merges two counterparties with a confirmation that says what will change, and undoes it', async () => {
+    const queue = await openReviewItems();
+    const busy = new Set(queue.items.flatMap((i) => [i.rightCounterpartyId, i.leftCounterpartyId]));
+    const all = (await apiGet<{ items: SearchHit[] }>('/v1/counterparties?limit=100')).body.items.filter((c) => !busy.has(c.id));
+    const [keep, absorb] = [all[2]!, all[all.length - 1]!];
+    await go(`/counterparty/${keep.id}`);
+    await page.type('#merge-search', absorb.canonicalName, { delay: 10 });
+    const button = await page.waitForSelector(`#merge-results button[data-merge-with="${absorb.id}"]`, { timeout: STEP_MS });
+    await button.click();
+    await page.waitForSelector('dialog#confirm[open]', { timeout: STEP_MS });
+    const words = (await page.textContent('dialog#confirm .merge-description'))!;
+    expect(words).toContain(`#${absorb.id} “${absorb.canonicalName}” joins #${keep.id} “${keep.canonicalName}”`);
+    expect(words).toMatch(/stops being active/);
+    await shot('08-merge-confirm');
+    // The reason is required: confirming without one is stopped in the dialog.
+    await page.click('#confirm-ok');
+    await page.waitForSelector('dialog#confirm .field-problem', { timeout: STEP_MS });
+    await page.fill('#confirm-reason', 'same company: one was typed with a trade name');
+    await page.click('#confirm-ok');
+    await page.waitForSelector('#history li[data-type="merged"]', { timeout: STEP_MS });
+    expect(await page.textContent('#history li[data-type="merged"]')).toContain(`Merged #${absorb.id} into #${keep.id}`);
+    const merged = await apiGet<unknown>(`/v1/counterparties/${absorb.id}`);
+    expect(merged.status).toBe(308);
+    expect(merged.location).toContain(`/v1/counterparties/${keep.id}`);
+    await shot('09-after-merge');
+
+    const eventId = await page.getAttribute('#history li[data-type="merged"]', 'data-event');
+    await page.click(`#history button[data-undo="${eventId}"]`);
+    await page.waitForSelector('dialog#confirm[open]', { timeout: STEP_MS });
+    await page.fill('#confirm-reason', 'merged by mistake');
+    await page.click('#confirm-ok');
+    await page.waitForSelector('#history li[data-type="undone"]', { timeout: STEP_MS });
+    expect(await page.getAttribute(`#history li[data-event="${eventId}"]`, 'class')).toContain('event-undone');
+    const back = await apiGet<{ id: number; status: string }>(`/v1/counterparties/${absorb.id}`);
+    expect(back.status).toBe(200);
+    expect(back.body.status).toBe('active');
+    await shot('10-after-undo');
+  }, TEST_MS);
+
+  it('opens the network view and a click on a node opens it', async () => {
+    const all = (await apiGet<{ items: SearchHit[] }>('/v1/counterparties?limit=100')).body.items;
+    let chosen: number | undefined;
+    for (const c of all) {
+      const network = (await apiGet<{ parties: { counterpartyId: number | null }[] }>(`/v1/counterparties/${c.id}/network`)).body;
+      if (network.parties.some((p) => p.counterpartyId !== null)) {
+        chosen = c.id;
+        break;
+      }
+    }
+    expect(chosen, 'some counterparty of the scenario should share a contract with another').toBeDefined();
+    await go(`/counterparty/${chosen}`);
+    await page.click('#open-network');
+    await page.waitForSelector('#network-graph', { timeout: STEP_MS });
+    expect(await page.$$eval('#network-graph .node-contract', (n) => n.length)).toBeGreaterThan(0);
+    await shot('11-network');
+    const node = await page.$('#network-graph a.node-counterparty');
+    const href = (await node!.getAttribute('href'))!;
+    await node!.click();
+    await page.waitForSelector('#history', { timeout: STEP_MS });
+    expect(page.url()).toContain(href);
+  }, TEST_MS);
+
+  it('shows the score distribution with both thresholds and downloads an export', async () => {
+    await go('/scores');
+    await page.waitForSelector('#score-chart', { timeout: STEP_MS });
+    expect(await page.$$eval('#score-chart .threshold', (n) => n.length)).toBe(2);
+    expect(await page.textContent('#score-chart')).toMatch(/new below .*linked from/s);
+    const download = page.waitForEvent('download', { timeout: STEP_MS });
+    await page.click('button[data-export="register.csv"]');
+    const file = await download;
+    expect(file.suggestedFilename()).toBe('cpreg-register.csv');
+    await page.waitForSelector('.export-status .ok', { timeout: STEP_MS });
+    await shot('12-scores');
+  }, TEST_MS);
+
+  it('shows an API error in plain words with the problem code', async () => {
+    await page.goto(`${base}/console/#/counterparty/987654`);
+    const box = await page.waitForSelector('main .error-box', { timeout: STEP_MS });
+    expect(await box.textContent()).toMatch(/does not exist.*code NOT_FOUND, HTTP 404/s);
+    await shot('13-error');
+  }, TEST_MS);
+
+  it('a read-only key cannot merge, split, undo or decide', async () => {
+    await page.click('#sign-out');
+    await page.waitForSelector('#api-key', { timeout: STEP_MS });
+    expect(await page.evaluate(() => sessionStorage.length)).toBe(0);
+    await signIn(readKey);
+    expect(await page.textContent('#who .scope')).toBe('read');
+    const some = (await apiGet<{ items: SearchHit[] }>('/v1/counterparties?limit=5')).body.items[0]!;
+    await go(`/counterparty/${some.id}`);
+    await page.waitForSelector('#history', { timeout: STEP_MS });
+    expect(await page.$('#merge-search')).toBeNull();
+    expect(await page.$('#split-button')).toBeNull();
+    expect(await page.$('#history button[data-undo]')).toBeNull();
+    expect(await page.textContent('.cp-actions')).toMatch(/need an admin key/);
+    await shot('14-readonly-counterparty');
+    await go('/review');
+    await page.waitForSelector('#review-question', { timeout: STEP_MS });
+    expect(await page.isDisabled('#decide-same')).toBe(true);
+    expect(await page.isDisabled('#decide-different')).toBe(true);
+    const open = (await openReviewItems()).open;
+    await page.keyboard.press('s');
+    expect((await openReviewItems()).open).toBe(open);
+    // And the API itself refuses the merge for this key, whatever the page shows.
+    const refused = await page.evaluate(async (key) => {
+      const response = await fetch('/v1/counterparties/merge', { method: 'POST', headers: { authorization: `Bearer ${key}`, 'content-type': 'application/json' }, body: JSON.stringify({ items: [{ id: 1, etag: '"cp1.v1"' }, { id: 2, etag: '"cp2.v1"' }], reason: 'x' }) });
+      return { status: response.status, body: (await response.json()) as { code: string } };
+    }, readKey);
+    expect(refused.status).toBe(403);
+    expect(refused.body.code).toBe('FORBIDDEN');
+    await shot('15-readonly-review');
+  }, TEST_MS);
+
+  it('lays out every page at 1280×800 and at 390×844 without sideways scrolling', async () => {
+    await page.click('#sign-out');
+    await page.waitForSelector('#api-key', { timeout: STEP_MS });
+    await signIn(adminKey);
+    const some = (await apiGet<{ items: SearchHit[] }>('/v1/counterparties?limit=5')).body.items[1]!;
+    const contract = (await apiGet<{ items: { id: number }[] }>('/v1/contracts?limit=1')).body.items[0]!;
+    const pages: [string, string][] = [
+      ['/search?q=' + encodeURIComponent(some.canonicalName.split(/\s+/)[0]!), 'search'],
+      [`/counterparty/${some.id}`, 'counterparty'],
+      [`/network/${some.id}`, 'network'],
+      ['/review', 'review'],
+      ['/scores', 'scores'],
+      [`/contract/${contract.id}`, 'contract'],
+    ];
+    for (const viewport of [WIDE, NARROW]) {
+      await page.setViewportSize(viewport);
+      for (const [hash, name] of pages) {
+        await go(hash);
+        await page.waitForFunction(() => !document.querySelector('main .loading'), undefined, { timeout: STEP_MS });
+        if (name === 'search') await page.waitForSelector('#results a', { timeout: STEP_MS });
+        await expectNoSidewaysScroll();
+        await shot(`20-${name}`);
+      }
+    }
+    await page.setViewportSize(WIDE);
+    expect(pageErrors()).toEqual([]);
+  }, TEST_MS * 2);
+});
