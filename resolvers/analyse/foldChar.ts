@@ -60,7 +60,12 @@ const UNIFIED: Readonly<Record<string, string>> = {
 };
 
 const cache = new Map<string, string>();
-const COMBINING = /\p{M}/gu;
+/**
+ * Diacritics only (the combining blocks used by Latin, Greek and Cyrillic): marks that carry meaning in other
+ * scripts (kana voicing, Indic vowel signs) are kept, and the result is recomposed (NFC) so that Hangul and kana
+ * come back as the syllables they were.
+ */
+const DIACRITICS = /[\u0300-\u036f\u1ab0-\u1aff\u1dc0-\u1dff\u20d0-\u20ff\ufe20-\ufe2f]/gu;
 
 /** Folds one code point (a string of one or two UTF-16 units) for comparison. */
 export function foldChar(ch: string): string {
@@ -70,11 +75,11 @@ export function foldChar(ch: string): string {
   if (hit !== undefined) return hit;
   let out = UNIFIED[ch] ?? SPELLED[ch];
   if (out === undefined) {
-    out = ch.normalize('NFKD').replace(COMBINING, '').toLowerCase();
+    out = ch.normalize('NFKD').replace(DIACRITICS, '').toLowerCase();
     // A decomposition may itself produce letters that need spelling out or unifying (e.g. "Ǣ" → "æ").
     let spelled = '';
     for (const c of out) spelled += SPELLED[c] ?? UNIFIED[c] ?? c;
-    out = spelled;
+    out = spelled.normalize('NFC');
   }
   if (cache.size < 65_536) cache.set(ch, out);
   return out;
@@ -95,8 +100,21 @@ export function isWordCode(code: number): boolean {
   return result;
 }
 
+const MARK = /^\p{M}$/u;
+
 /** Combining marks belong to the letter before them (a decomposed "é" is one letter). */
 export function isMarkCode(code: number): boolean {
   if (code < 0x300) return false;
-  return /^\p{M}$/u.test(String.fromCodePoint(code));
+  return MARK.test(String.fromCodePoint(code));
+}
+
+/** Marks that are diacritics (dropped when folding), as opposed to marks that spell (kept). */
+export function isDiacriticCode(code: number): boolean {
+  return (
+    (code >= 0x300 && code <= 0x36f) ||
+    (code >= 0x1ab0 && code <= 0x1aff) ||
+    (code >= 0x1dc0 && code <= 0x1dff) ||
+    (code >= 0x20d0 && code <= 0x20ff) ||
+    (code >= 0xfe20 && code <= 0xfe2f)
+  );
 }

@@ -9,7 +9,7 @@
  *
  * Written as one loop without closures: it runs several times per analysis and is the hottest code in it.
  */
-import { foldChar, isMarkCode, isWordCode } from './foldChar.ts';
+import { foldChar, isDiacriticCode, isMarkCode, isWordCode } from './foldChar.ts';
 
 const SEP_OTHER = 0;
 const SEP_DOT = 1;
@@ -43,7 +43,9 @@ class Tokens {
   append(folded: string): void {
     for (let k = 0; k < folded.length; k++) {
       const unit = folded.charCodeAt(k);
-      if (isWordCode(unit) || (unit >= 0xd800 && unit <= 0xdfff)) {
+      const mark = unit >= 0x300 && !isWordCode(unit) && isMarkCode(unit);
+      if (mark && this.cur === '') continue; // a mark never starts a word (same rule as for marks in the input)
+      if (mark || isWordCode(unit) || (unit >= 0xd800 && unit <= 0xdfff)) {
         if (this.cur === '') {
           this.joinNext = this.prevInitials;
           this.curIsInitial = true;
@@ -98,7 +100,11 @@ export function normaliseTokens(text: string): string[] {
       t.append(foldChar(ch));
       continue;
     }
-    if (isMarkCode(cp)) continue;
+    if (isMarkCode(cp)) {
+      // A diacritic is folded away; a mark that spells (kana voicing, Indic vowel signs) stays in its word.
+      if (!isDiacriticCode(cp) && t.cur !== '') t.cur += ch;
+      continue;
+    }
     const f = foldChar(ch);
     if (f === "'") continue;
     if (f === '&' || f === '+') {
@@ -118,6 +124,7 @@ export function normaliseTokens(text: string): string[] {
   for (let k = 0; k < tokens.length; k++) {
     const token = tokens[k] as string;
     tokens[k] = token === 'und' || token === 'et' ? 'and' : foldGermanDigraphs(token);
+    if (hasNonAscii(tokens[k] as string)) tokens[k] = (tokens[k] as string).normalize('NFC'); // "カ" + U+3099 → "ガ"
   }
   return tokens;
 }
@@ -154,4 +161,9 @@ export function foldGermanDigraphs(token: string): string {
 function isLatinConsonant(c: number): boolean {
   // a-z without the vowels a e i o u y, and without q ("queen", "quest" keep their "ue")
   return c >= 0x61 && c <= 0x7a && c !== 0x61 && c !== 0x65 && c !== 0x69 && c !== 0x6f && c !== 0x75 && c !== 0x79 && c !== 0x71;
+}
+
+function hasNonAscii(token: string): boolean {
+  for (let i = 0; i < token.length; i++) if (token.charCodeAt(i) >= 0x80) return true;
+  return false;
 }
