@@ -87,7 +87,14 @@ export async function runDemoCommand(options: DemoCliOptions): Promise<void> {
       await build(database.db, scenario, filesDir, () => stop, note);
       if (stop) throw new CliError('interrupted: the demo database is closed; run the demo again to finish building it', 130);
     }
-    summary = await summariseDemo(database.db, scenario);
+    const db = database.db;
+    summary = await summariseDemo(db, scenario, {
+      vendorMaster: async (registerIdOf) => {
+        note('cpreg demo: reconciling the vendor master against the register (read-only)');
+        const { reconcileDemo } = await import('./run-demo-vendors.ts');
+        return reconcileDemo(db, scenario, filesDir, registerIdOf);
+      },
+    });
     if (options.serve) apiKey = await demoKey(database.db);
   } finally {
     process.off('SIGINT', onSignal);
@@ -95,9 +102,8 @@ export async function runDemoCommand(options: DemoCliOptions): Promise<void> {
     await database.close();
   }
 
-  const vendorLines = ['', '  vendor master   not reconciled: the reconciliation service is not in this build yet'];
-  if (options.json) process.stdout.write(`${JSON.stringify({ ...summary, database: dbDir, files: filesDir, vendorMaster: null })}\n`);
-  else process.stdout.write(`\n${formatSummary(summary, { vendorLines })}\n\n  ${CAUTION}\n\n`);
+  if (options.json) process.stdout.write(`${JSON.stringify({ ...summary, database: dbDir, files: filesDir })}\n`);
+  else process.stdout.write(`\n${formatSummary(summary, { filesDir })}\n\n  ${CAUTION}\n\n`);
   if (!options.serve) return;
   await serve(options, { dbDir, filesDir, apiKey: apiKey!, busiest: summary.busiest[0] }, note);
 }

@@ -5,14 +5,14 @@ import type { DemoAccuracy } from './accuracy.ts';
 const pct = (x: number): string => `${(x * 100).toFixed(1)}%`;
 const num = (n: number | undefined): string => (n ?? 0).toLocaleString('en-US');
 
-export function formatSummary(s: DemoSummary, extra: { vendorLines?: string[] } = {}): string {
+export function formatSummary(s: DemoSummary, where: { filesDir?: string } = {}): string {
   const m = s.mentions.byStatus;
   const p = s.contractParties.byStatus;
   const setAside = (b: typeof m): number => (b.not_a_party ?? 0) + (b.unbound_term ?? 0) + (b.collective_term ?? 0);
   const lines = [
     `${s.group} demo (seed ${s.seed})`,
     '',
-    `  register        ${num(s.counterparties)} counterparties, ${num(s.ownEntities)} own entities, ${num(s.contracts)} contracts`,
+    `  register        ${num(s.counterparties)} counterparties (the scenario has ${num(s.truthCounterparties)}), ${num(s.ownEntities)} own entities, ${num(s.contracts)} contracts`,
     `  contract parties ${num(s.contractParties.total)} read from the texts: ${num(p.linked)} linked, ${num(p.new)} new, ${num(p.review)} in review, ${num(p.own_entity)} own entity, ${num(setAside(p))} not parties`,
     `  mentions        ${num(s.mentions.total)} ingested: ${num(m.linked)} linked, ${num(m.review)} in review, ${num(m.new)} new, ${num(m.own_entity)} own entity, ` +
       `${num(setAside(m))} not parties (${num(m.not_a_party)} not a party, ${num(m.unbound_term)} unbound term, ${num(m.collective_term)} collective)`,
@@ -22,7 +22,7 @@ export function formatSummary(s: DemoSummary, extra: { vendorLines?: string[] } 
     ...s.busiest.map(
       (b) => `    #${b.id} ${b.name}${b.jurisdiction ? ` (${b.jurisdiction})` : ''}: ${b.contracts} contracts, ${b.mentions} mentions — ${b.contractIds.join(', ')}${b.contracts > b.contractIds.length ? ', …' : ''}`,
     ),
-    ...(extra.vendorLines ?? []),
+    ...vendorLines(s, where.filesDir),
     '',
     '  accuracy against the scenario ground truth',
     ...accuracyLines('extracted mentions', s.accuracy.mentions),
@@ -32,6 +32,24 @@ export function formatSummary(s: DemoSummary, extra: { vendorLines?: string[] } 
     ),
   ];
   return lines.join('\n');
+}
+
+function vendorLines(s: DemoSummary, filesDir: string | undefined): string[] {
+  const v = s.vendorMaster;
+  if (!v) return ['', '  vendor master   not reconciled'];
+  const f = v.byFinding;
+  const t = v.truth;
+  return [
+    '',
+    `  vendor master   ${num(v.rows)} rows${v.rejected > 0 ? ` (${v.rejected} rejected)` : ''}: ${num(f.matched_with_contracts)} matched to counterparties with contracts, ` +
+      `${num(f.vendor_without_contract)} without a contract, ${num(f.counterparty_without_vendor)} contracting counterparties without a vendor row, ` +
+      `${num(f.same_entity)} same-entity and ${num(f.same_or_affiliated)} same-or-affiliated pairs`,
+    `                  against the truth: ${t.duplicates.found}/${t.duplicates.planted} planted duplicates found (${t.duplicates.expectedFinding} with the expected finding), ` +
+      `${t.vendorsWithoutContract.found}/${t.vendorsWithoutContract.planted} vendors that never signed, ` +
+      `${t.counterpartiesWithoutVendor.found}/${t.counterpartiesWithoutVendor.planted} signers missing from the vendor master, ` +
+      `${t.lookalikes.keptApart}/${t.lookalikes.planted} look-alikes kept apart`,
+    `                  report: ${filesDir ? `${filesDir}/` : ''}${v.reportFile}`,
+  ];
 }
 
 function accuracyLines(title: string, a: DemoAccuracy): string[] {

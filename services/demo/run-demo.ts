@@ -14,6 +14,7 @@ import { ingestFile, type IngestSummary } from '../ingest/run-ingest.ts';
 import type { ResolutionStatus } from '../../resolvers/vocabulary.ts';
 import { MENTION_SOURCE, type MentionTruth, type Scenario } from './scenario/index.ts';
 import { measureAccuracy, type DemoAccuracy, type EvaluatedMention, type ObservedMention } from './accuracy.ts';
+import type { VendorMasterSummary } from './run-demo-vendors.ts';
 
 export type DemoStage = 'own_entities' | 'contracts' | 'mentions' | 'vendor_master';
 
@@ -116,6 +117,8 @@ export interface DemoSummary {
   seed: number;
   group: string;
   counterparties: number;
+  /** How many counterparties the scenario really has (its ground truth). */
+  truthCounterparties: number;
   ownEntities: number;
   contracts: number;
   /** The extracted mentions loaded by batch ingest, by status. */
@@ -124,6 +127,8 @@ export interface DemoSummary {
   contractParties: { total: number; byStatus: Partial<Record<ResolutionStatus, number>> };
   busiest: BusyCounterparty[];
   reviewQueue: number;
+  /** The vendor master reconciled against the register; null when it was not reconciled. */
+  vendorMaster: VendorMasterSummary | null;
   accuracy: {
     /** Extracted mentions (batch ingest) against their ground truth. */
     mentions: DemoAccuracy;
@@ -142,7 +147,15 @@ interface MentionRow {
   contract_external_id: string | null;
 }
 
-export async function summariseDemo(db: Kysely<Database>, scenario: Scenario): Promise<DemoSummary> {
+export interface SummariseOptions {
+  /**
+   * Reconciles the vendor master (run-demo-vendors.ts), given each scenario counterparty's register id (the
+   * register counterparty holding most of its automatically linked mentions).
+   */
+  vendorMaster?: (registerIdOf: ReadonlyMap<string, number>) => Promise<VendorMasterSummary>;
+}
+
+export async function summariseDemo(db: Kysely<Database>, scenario: Scenario, options: SummariseOptions = {}): Promise<DemoSummary> {
   const rows = (await db
     .selectFrom('mention')
     .select(['source', 'external_id', 'text', 'status', 'counterparty_id', 'own_entity_id', 'contract_external_id'])
@@ -170,6 +183,7 @@ export async function summariseDemo(db: Kysely<Database>, scenario: Scenario): P
   const partyRows = rows.filter((r) => r.source.startsWith(PARTY_SOURCE_PREFIX));
   const parties = contractPartyItems(scenario, partyRows, observe);
 
+  const vendorMaster = options.vendorMaster ? await options.vendorMaster(registerIds([...mentionItems, ...parties.items])) : null;
   const [counterparties, contracts, review] = await Promise.all([
     db.selectFrom('counterparty').select((eb) => eb.fn.countAll<string>().as('n')).where('status', '=', 'active').executeTakeFirstOrThrow(),
     db.selectFrom('contract').select((eb) => eb.fn.countAll<string>().as('n')).where('status', '=', 'active').executeTakeFirstOrThrow(),
@@ -179,17 +193,37 @@ export async function summariseDemo(db: Kysely<Database>, scenario: Scenario): P
     seed: scenario.seed,
     group: scenario.group.name,
     counterparties: Number(counterparties.n),
+    truthCounterparties: scenario.counterparties.length,
     ownEntities: ownRows.length,
     contracts: Number(contracts.n),
     mentions: { total: extracted.length, byStatus: countStatuses(extracted) },
     contractParties: { total: partyRows.length, byStatus: countStatuses(partyRows) },
     busiest: await busiestCounterparties(db, 5),
     reviewQueue: Number(review.n),
+    vendorMaster,
     accuracy: {
       mentions: measureAccuracy(mentionItems),
       contractParties: { ...measureAccuracy(parties.items), found: parties.found, expected: parties.expected, extra: parties.extra },
     },
   };
+}
+
+/** Each true counterparty's register id: the counterparty holding most of its automatically linked mentions. */
+function registerIds(items: readonly EvaluatedMention[]): Map<string, number> {
+  const votes = new Map<string, Map<number, number>>();
+  for (const item of items) {
+    const o = item.observed;
+    if (item.truth.kind !== 'counterparty' || !o || o.counterpartyId === null || (o.status !== 'linked' && o.status !== 'new')) continue;
+    const inner = votes.get(item.truth.counterpartyId) ?? new Map<number, number>();
+    inner.set(o.counterpartyId, (inner.get(o.counterpartyId) ?? 0) + 1);
+    votes.set(item.truth.counterpartyId, inner);
+  }
+  const out = new Map<string, number>();
+  for (const [truthId, inner] of votes) {
+    const best = [...inner].sort((a, b) => b[1] - a[1] || a[0] - b[0])[0]!;
+    out.set(truthId, best[0]);
+  }
+  return out;
 }
 
 function countStatuses(rows: readonly MentionRow[]): Partial<Record<ResolutionStatus, number>> {
