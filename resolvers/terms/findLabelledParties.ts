@@ -4,7 +4,7 @@
  * in parentheses a second one). Only names with a legal form are taken: a label line is otherwise ambiguous
  * ("Address: …", "Attention: …").
  */
-import { analyseName } from '../analyse/index.ts';
+import { analyseCached as analyseName } from './analyseCached.ts';
 import { cleanTerm } from './cleanTerm.ts';
 import { locateNameAt } from './locateName.ts';
 import type { LocatedName } from './locateName.ts';

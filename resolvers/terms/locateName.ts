@@ -3,7 +3,7 @@
  * "…by and between Acme Robotics, Inc., a Delaware corporation" → name "Acme Robotics, Inc.",
  * descriptive phrase "a Delaware corporation". Hand-written scanning over a bounded window.
  */
-import { analyseName } from '../analyse/index.ts';
+import { analyseCached as analyseName } from './analyseCached.ts';
 import { anyWordAt, isSpace, isWordChar, skipSpaces, trimBounds, wordAt } from './textScan.ts';
 
 /** How far back from a definition we look for its party's name. */

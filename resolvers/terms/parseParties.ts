@@ -3,7 +3,7 @@
  * Each party carries its defined terms, role, and what the descriptive phrase says (jurisdiction,
  * legal form, identifiers, address, aliases). Terms bind only inside this one contract.
  */
-import { analyseName } from '../analyse/index.ts';
+import { analyseCached as analyseName } from './analyseCached.ts';
 import type { NameAnalysis } from '../analyse/types.ts';
 import { normaliseIdentifier } from '../identifiers/index.ts';
 import { checkContractText } from './checkContractText.ts';
@@ -27,6 +27,11 @@ import type { ContractIdentifier, ContractParty, ParsedContract, ParseOptions } 
 
 /** Descriptive text kept per party: enough for any phrase seen in practice, bounded for 1 MB inputs. */
 const MAX_DESCRIPTION = 800;
+/** No real party has more terms, no real contract more collective terms; the bounds keep 1 MB inputs linear. */
+export const MAX_TERMS_PER_PARTY = 50;
+export const MAX_COLLECTIVE_TERMS = 100;
+/** Descriptive phrases kept per party (preamble, trailing phrase, signature block). */
+const MAX_DESCRIPTIONS = 4;
 /** How far after a definition a trailing descriptive phrase may run ("…("Acme"), a company incorporated…"). */
 const TRAILING_WINDOW = 400;
 /** No real contract has more parties; the bound keeps adversarial input linear. Extra names are reported. */
@@ -41,6 +46,7 @@ interface Draft {
   /** Name plus alias phrases, for the analysis. */
   fullName: string;
   terms: string[];
+  termSet: Set<string>;
   label?: string;
   descriptions: string[];
   analysis: NameAnalysis;
@@ -60,6 +66,9 @@ class Collector {
   inClause = false;
   /** Names beyond MAX_PARTIES, counted for the warning. */
   overflow = 0;
+  overflowTerms = 0;
+  overflowCollectives = 0;
+  private readonly notPartySet = new Set<string>();
   private readonly byNormalised = new Map<string, Draft>();
   private readonly byCore = new Map<string, Draft[]>();
 
@@ -76,8 +85,9 @@ class Collector {
     const existing = this.byNormalised.get(analysis.normalised) ?? (this.byCore.get(analysis.core) ?? []).find((d) => sameEntityName(d.analysis, analysis));
     if (existing !== undefined) {
       const d = existing;
-      for (const t of terms) if (!d.terms.includes(t)) d.terms.push(t);
-      if (description.length > 0) d.descriptions.push(description);
+      for (const t of terms) this.addTerm(d, t);
+      // A party described again and again (a repeated block) adds nothing after the first few phrases.
+      if (description.length > 0 && d.descriptions.length < MAX_DESCRIPTIONS) d.descriptions.push(description);
       if (d.label === undefined && label !== undefined) d.label = label;
       return d;
     }
@@ -85,8 +95,9 @@ class Collector {
       this.overflow++;
       return null;
     }
-    const draft: Draft = { position: located.nameStart, honorific: located.honorific, name, fullName, terms: [...terms], descriptions: description.length > 0 ? [description] : [], analysis };
+    const draft: Draft = { position: located.nameStart, honorific: located.honorific, name, fullName, terms: [], termSet: new Set(), descriptions: description.length > 0 ? [description] : [], analysis };
     if (label !== undefined) draft.label = label;
+    for (const t of terms) this.addTerm(draft, t);
     this.drafts.push(draft);
     if (!this.byNormalised.has(analysis.normalised)) this.byNormalised.set(analysis.normalised, draft);
     const sameCore = this.byCore.get(analysis.core);
@@ -95,9 +106,22 @@ class Collector {
     return draft;
   }
 
+  /** Adds a term to a party, once; beyond MAX_TERMS_PER_PARTY the term is counted for the warning. */
+  addTerm(d: Draft, term: string): void {
+    if (d.termSet.has(term)) return;
+    if (d.terms.length >= MAX_TERMS_PER_PARTY) {
+      this.overflowTerms++;
+      return;
+    }
+    d.termSet.add(term);
+    d.terms.push(term);
+  }
+
   noteNotParty(s: string): void {
     const t = s.trim();
-    if (t.length > 0 && !this.notParties.includes(t)) this.notParties.push(t);
+    if (t.length === 0 || this.notPartySet.has(t)) return;
+    this.notPartySet.add(t);
+    this.notParties.push(t);
   }
 }
 
@@ -151,10 +175,13 @@ function handleDefinition(c: Collector, def: Definition, prevEnd: number, nextSt
     }
     if (added === null) for (const t of partyTerms) c.noteNotParty(t.text);
     else if (collective.length > 0) members = [...c.drafts];
-  } else if (collective.length > 0) {
+  } else if (collective.length > 0 && c.collectives.length < MAX_COLLECTIVE_TERMS) {
     members = collectiveMembers(c, prevEnd, def.start);
   }
-  for (const t of collective) c.collectives.push({ term: t.text, members });
+  for (const t of collective) {
+    if (c.collectives.length >= MAX_COLLECTIVE_TERMS) c.overflowCollectives++;
+    else c.collectives.push({ term: t.text, members });
+  }
 }
 
 /** Words that may stand between the last party and a collective definition without naming anyone. */
@@ -243,12 +270,16 @@ function finishParty(d: Draft, ownEntities: NameAnalysis[]): ContractParty {
     terms: d.terms,
     ownEntity: ownEntities.some((o) => sameEntityName(o, d.analysis)),
     identifiers: finishIdentifiers(extractIdentifiers(description, jurisdiction), jurisdiction),
-    aliases: analysis.aliases,
-    related: analysis.related,
+    // Copies: analyses are memoised and shared.
+    aliases: analysis.aliases.map((a) => ({ ...a })),
+    related: analysis.related.map((r) => ({ ...r })),
     kind: analysis.kind === 'unknown' && (d.honorific || saysIndividual(description)) ? 'person' : analysis.kind,
   };
   if (jurisdiction !== undefined) party.jurisdiction = jurisdiction;
-  if (analysis.legalForm !== null) party.legalForm = analysis.legalForm;
+  if (analysis.legalForm !== null) {
+    const lf = analysis.legalForm;
+    party.legalForm = { ...lf, elfCodes: [...lf.elfCodes], jurisdictions: [...lf.jurisdictions] };
+  }
   const address = extractAddress(description);
   if (address !== undefined) party.address = address;
   return party;
@@ -259,7 +290,7 @@ function bindLabel(c: Collector, d: Draft, label: string): void {
   const key = termKey(term);
   if (key.length === 0 || NON_PARTY_TERMS.has(key)) return;
   if (c.drafts.some((other) => other.terms.some((t) => termKey(t) === key))) return;
-  d.terms.push(term);
+  c.addTerm(d, term);
 }
 
 export function parseParties(text: string, options: ParseOptions = {}): ParsedContract {
@@ -291,7 +322,11 @@ export function parseParties(text: string, options: ParseOptions = {}): ParsedCo
   }));
   const notParties = c.notParties.filter((n) => !boundKeys.has(termKey(n)));
   const result: ParsedContract = { parties, collectiveTerms, notParties };
-  if (c.overflow > 0) result.warnings = [`${c.overflow} more party names were found beyond the limit of ${MAX_PARTIES} parties and are not reported`];
+  const warnings: string[] = [];
+  if (c.overflow > 0) warnings.push(`${c.overflow} more party names were found beyond the limit of ${MAX_PARTIES} parties and are not reported`);
+  if (c.overflowTerms > 0) warnings.push(`${c.overflowTerms} more defined terms were found beyond the limit of ${MAX_TERMS_PER_PARTY} per party and are not reported`);
+  if (c.overflowCollectives > 0) warnings.push(`${c.overflowCollectives} more collective terms were found beyond the limit of ${MAX_COLLECTIVE_TERMS} and are not reported`);
+  if (warnings.length > 0) result.warnings = warnings;
   if (parties.length === 0) {
     result.reason = { code: 'no_parties_found', message: 'no party was recognised: no parties clause, defined party term or signature block' };
   }

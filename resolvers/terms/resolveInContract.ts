@@ -4,6 +4,7 @@
  * register; anything else goes on to matching. Only `parsed` is consulted, so contracts never leak.
  */
 import { analyseName } from '../analyse/index.ts';
+import { analyseCached } from './analyseCached.ts';
 import { termKey } from './cleanTerm.ts';
 import { sameEntityName } from './sameEntityName.ts';
 import type { ContractParty, InContractResolution, ParsedContract, PartyRef } from './types.ts';
@@ -63,7 +64,7 @@ export function resolveInContract(parsed: ParsedContract, mentionText: string): 
   if (parsed.notParties.some((n) => termKey(n) === key) || analysis.partyStatus === 'not_a_party') {
     return { status: 'not_a_party', mention, analysis, explanation: `"${mention}" is not a party (${analysis.partyStatus === 'not_a_party' ? 'the name analysis rules it out' : 'this contract uses it for something else'})` };
   }
-  const same = parties.findIndex((p) => sameEntityName(analyseName(p.name), analysis));
+  const same = parties.findIndex((p) => sameEntityName(analyseCached(p.name), analysis));
   if (same >= 0) {
     const party = ref(parties, same);
     return { status: 'match', mention, party, analysis, explanation: `"${mention}" names party ${party.name} of this contract; it goes on to matching against the register` };

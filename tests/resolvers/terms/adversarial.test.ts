@@ -33,7 +33,22 @@ const INPUTS: Array<[string, string]> = [
   ['on-behalf lines', fill('for and on behalf of ACME LTD\n')],
   ['identifier cues', fill('company number 1 HRB RCS ACN ')],
   ['one line without spaces', fill('x')],
+  ['one party, a new term each time', grow((i) => `Acme Ltd ("A${i}") `)],
+  ['many parties and collective terms', grow((i) => `between Acme${i % 700} Ltd ("A${i % 700}") and Beta${i} Ltd (each a "P${i}") `)],
 ];
+
+/** Up to 1 MB of numbered repetitions: unique terms and names defeat any per-string shortcut. */
+function grow(unit: (i: number) => string): string {
+  const parts: string[] = [];
+  let bytes = 0;
+  for (let i = 0; ; i++) {
+    const u = unit(i);
+    if (bytes + u.length > MAX_CONTRACT_BYTES - 16) break;
+    parts.push(u);
+    bytes += u.length;
+  }
+  return parts.join('');
+}
 
 describe('parseParties on adversarial 1 MB inputs', () => {
   it.each(INPUTS)('%s: finishes well under the hang ceiling', (_label, text) => {
@@ -44,6 +59,15 @@ describe('parseParties on adversarial 1 MB inputs', () => {
     expect(Date.now() - started).toBeLessThan(HANG_CEILING_MS);
     for (const p of parsed.parties) expect(text.includes(p.name)).toBe(true);
   }, HANG_CEILING_MS * 2);
+
+  it('terms beyond 50 per party are counted in a warning, not dropped silently', () => {
+    let text = '';
+    for (let i = 0; i < 80; i++) text += `Acme Ltd ("A${i}") `;
+    const parsed = parseParties(text);
+    expect(parsed.parties).toHaveLength(1);
+    expect(parsed.parties[0]?.terms).toHaveLength(50);
+    expect(parsed.warnings?.[0]).toContain('30 more defined terms');
+  });
 
   it('many distinct parties: capped at 500 with a warning, not dropped silently', () => {
     let text = '';
