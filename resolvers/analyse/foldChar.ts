@@ -60,12 +60,6 @@ const UNIFIED: Readonly<Record<string, string>> = {
 };
 
 const cache = new Map<string, string>();
-/**
- * Diacritics only (the combining blocks used by Latin, Greek and Cyrillic): marks that carry meaning in other
- * scripts (kana voicing, Indic vowel signs) are kept, and the result is recomposed (NFC) so that Hangul and kana
- * come back as the syllables they were.
- */
-const DIACRITICS = /[\u0300-\u036f\u1ab0-\u1aff\u1dc0-\u1dff\u20d0-\u20ff\ufe20-\ufe2f]/gu;
 
 /** Folds one code point (a string of one or two UTF-16 units) for comparison. */
 export function foldChar(ch: string): string {
@@ -75,7 +69,9 @@ export function foldChar(ch: string): string {
   if (hit !== undefined) return hit;
   let out = UNIFIED[ch] ?? SPELLED[ch];
   if (out === undefined) {
-    out = ch.normalize('NFKD').replace(DIACRITICS, '').toLowerCase();
+    // Only diacritics go (the combining blocks of Latin, Greek and Cyrillic): marks that spell in other scripts
+    // (kana voicing, Indic vowel signs) stay, and the result is recomposed (NFC) so Hangul and kana come back whole.
+    out = withoutDiacritics(ch.normalize('NFKD')).toLowerCase();
     // A decomposition may itself produce letters that need spelling out or unifying (e.g. "Ǣ" → "æ").
     let spelled = '';
     for (const c of out) spelled += SPELLED[c] ?? UNIFIED[c] ?? c;
@@ -117,4 +113,13 @@ export function isDiacriticCode(code: number): boolean {
     (code >= 0x20d0 && code <= 0x20ff) ||
     (code >= 0xfe20 && code <= 0xfe2f)
   );
+}
+
+function withoutDiacritics(text: string): string {
+  let out = '';
+  for (let i = 0; i < text.length; i++) {
+    const code = text.charCodeAt(i);
+    if (!isDiacriticCode(code)) out += text[i];
+  }
+  return out;
 }

@@ -15,6 +15,11 @@ describe('normalisation', () => {
     // æ → ae, ø → o (common practice); then "vaev" folds like "Muehlberg" (ae after a consonant → a).
     expect(normaliseName('Ærøskøbing Væv')).toBe('aeroskobing vav');
     expect(normaliseName('Straße')).toBe('strasse'); // ß → ss (common practice)
+    // Only diacritics go: kana voicing and Indic vowel signs spell (Unicode: U+3099, Devanagari matras), and
+    // decomposed input recomposes (NFC) — "ダ" written as "タ" + U+3099 is still "ダ", not "タ".
+    expect(normaliseName('トヨタ')).not.toBe(normaliseName('トヨダ'));
+    expect(normaliseName('ト\u30e8\u30bf\u3099')).toBe(normaliseName('トヨダ'));
+    expect(normaliseName('कंपनी')).toBe('कंपनी');
   });
 
   it('unifies quotes, dashes, apostrophes, dotted initials and compatibility forms', () => {
