@@ -20,8 +20,8 @@
  *   binding) · collective_term · not_a_party · match (goes on to register matching; `party` is set when the
  *   mention is the exact name of a party of this contract).
  *
- * Limits: 1 MB of UTF-8 (MAX_CONTRACT_BYTES), 500 parties (a warning names the rest), 600 characters searched
- * back from a definition for its name.
+ * Limits: 1 MB of UTF-8 (MAX_CONTRACT_BYTES); 500 parties, 50 terms per party, 100 collective terms (beyond
+ * them `warnings` says how many were left out); 600 characters searched back from a definition for its name.
  */
 export type {
   CollectiveTerm,
@@ -34,7 +34,7 @@ export type {
   ParseOptions,
   PartyRef,
 } from './types.ts';
-export { parseParties, MAX_PARTIES } from './parseParties.ts';
+export { parseParties, MAX_COLLECTIVE_TERMS, MAX_PARTIES, MAX_TERMS_PER_PARTY } from './parseParties.ts';
 export { resolveInContract } from './resolveInContract.ts';
 export { MAX_CONTRACT_BYTES, checkContractText } from './checkContractText.ts';
 export { termKey } from './cleanTerm.ts';

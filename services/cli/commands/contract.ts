@@ -97,6 +97,7 @@ function formatText(parsed: Parsed, resolution: Resolution | undefined): string 
     lines.push(`Collective term "${c.term}": ${c.parties.length > 0 ? c.parties.join(', ') : '(no named party)'}`);
   }
   if (parsed.notParties.length > 0) lines.push(`Not parties: ${parsed.notParties.join('; ')}`);
+  for (const w of parsed.warnings ?? []) lines.push(`Warning: ${w}`);
   if (resolution !== undefined) {
     const who = resolution.party === undefined ? '' : ` → ${resolution.party.name}${resolution.party.role ? ` (${resolution.party.role})` : ''}`;
     lines.push(`Mention "${resolution.mention}": ${resolution.status}${who}`, `  ${resolution.explanation}`);
