@@ -20,6 +20,9 @@ const ATTACKS: Array<[string, string]> = [
   ['colons', 'By:'.repeat(3_300)],
   ['combining marks', 'e' + '\u0301'.repeat(9_999)],
   ['trailing groups', 'Acme' + ' (x)'.repeat(2_400)],
+  ['descriptor commas', 'Acme' + ', a Delaware'.repeat(800) + ' corporation'],
+  ['compound stacking', 'Acme' + ' GmbH'.repeat(1_900) + ' KG'],
+  ['Cyrillic prefix run', 'ООО '.repeat(2_400) + 'Ромашка'],
 ];
 
 describe('adversarial inputs', () => {
