@@ -23,6 +23,7 @@ const NOT_PARTY_LABELS = new Set([
   'notices', 'notice', 'copy', 'copy to', 'payee', 'remit to', 'invoice', 'invoices', 'billing', 'bill to', 'ship to',
   'shipping', 'delivery', 'deliver to', 'governing law', 'jurisdiction', 'law', 'term', 'fees', 'price', 'product',
   'products', 'services', 'reference', 'ref', 'project', 'order', 'po', 'contract no', 'contract no.', 'agreement',
+  'between', 'and', 'among', 'parties', 'party', 'witnesses', 'in the presence of', 'bank details', 'payment', 'account name',
 ]);
 const MAX_LINE = 200;
 

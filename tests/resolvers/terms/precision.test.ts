@@ -48,4 +48,9 @@ WHEREAS, the Licensor owns certain software (the "Software") and wishes to licen
     const text = 'between LEI 984500W7K2MQ3RZ8LN12 ("Issuer") and you ("Customer")';
     expect(parseParties(text).parties).toEqual([]);
   });
+
+  it('label lines that are not party labels introduce no party', () => {
+    const text = 'Notices: Harrowby Fine Foods Limited\nBank: Lowther Bank plc\nCopy to: Ashdown Mills Ltd\nAttention: Corran Vale Ltd\nBetween: Brockley Farms Ltd';
+    expect(parseParties(text).parties).toEqual([]);
+  });
 });
