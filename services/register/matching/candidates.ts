@@ -6,10 +6,8 @@ import type { NameAnalysis } from '../../../resolvers/analyse/types.ts';
 import type { MatchRecord } from '../../../resolvers/block/index.ts';
 import { scorePair, type MatchModel, type PairScore } from '../../../resolvers/score/index.ts';
 import type { Identifier } from '../../../resolvers/vocabulary.ts';
-import { candidatesByKeys } from '../../../db/queries/blocking-keys.ts';
-import { holdersOf } from '../../../db/queries/identifiers.ts';
+import { candidateDetails } from '../../../db/queries/blocking-keys.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
-import { survivorsOf } from '../../../db/queries/counterparties.ts';
 import { analyse } from './analysis.ts';
 import { idfFor } from './idf.ts';
 import { keysOfAnalysis } from './keys.ts';
@@ -52,30 +50,14 @@ export async function scoredCandidates(
   exclude: ReadonlySet<number> = new Set(),
 ): Promise<ScoredCandidate[]> {
   const keys = keysOfAnalysis(probe.analysis);
-  const byKeys = await candidatesByKeys(db, keys, { limit: MAX_CANDIDATES });
-  const byIdentifier = await holdersOf(db, probe.identifiers);
-  const ids = [...new Set([...byIdentifier.map((h) => h.counterpartyId), ...byKeys.map((c) => c.counterpartyId)])];
-  if (ids.length === 0) return [];
-  // Keys and identifiers only ever belong to active counterparties (a merge moves them), but a row moved by a
-  // concurrent merge may still be seen here: follow to the survivor.
-  const survivors = await survivorsOf(db, ids);
-  const active = [...new Set(ids.map((id) => survivors.get(id) ?? id))];
-  const [cps, names, identifiers] = await Promise.all([
-    db.selectFrom('counterparty').select(['id', 'canonical_name', 'jurisdiction']).where('id', 'in', active).execute(),
-    db.selectFrom('counterparty_name').select(['counterparty_id', 'name', 'kind']).where('counterparty_id', 'in', active).execute(),
-    db.selectFrom('counterparty_identifier').select(['counterparty_id', 'scheme', 'value', 'label']).where('counterparty_id', 'in', active).execute(),
-  ]);
-  const namesBy = groupBy(names, (n) => Number(n.counterparty_id));
-  const idsBy = groupBy(identifiers, (i) => Number(i.counterparty_id));
-  const analysed = cps.map((cp) => {
-    const id = Number(cp.id);
-    return {
-      id,
-      cp,
-      names: (namesBy.get(id) ?? []).filter((n) => n.kind !== 'former').map((n) => ({ name: n.name, analysis: analyse(n.name, cp.jurisdiction) })),
-      identifiers: (idsBy.get(id) ?? []).map((i) => ({ scheme: i.scheme, value: i.value, ...(i.label ? { label: i.label } : {}) }) as Identifier),
-    };
-  });
+  const details = await candidateDetails(db, keys, probe.identifiers, { limit: MAX_CANDIDATES });
+  if (details.length === 0) return [];
+  const analysed = details.map((cp) => ({
+    id: cp.counterpartyId,
+    cp: { canonical_name: cp.canonicalName, jurisdiction: cp.jurisdiction },
+    names: cp.names.filter((n) => n.kind !== 'former').map((n) => ({ name: n.name, analysis: analyse(n.name, cp.jurisdiction) })),
+    identifiers: cp.identifiers.map((i) => ({ scheme: i.scheme, value: i.value, ...(i.label ? { label: i.label } : {}) }) as Identifier),
+  }));
   const idf = await idfFor(db, [probe.analysis.tokens, ...analysed.flatMap((a) => a.names.map((n) => n.analysis.tokens))].flat());
   const record = probeRecord(probe);
   const out: ScoredCandidate[] = [];
@@ -101,17 +83,6 @@ export async function scoredCandidates(
     });
   }
   return out.sort((a, b) => b.score - a.score || a.counterpartyId - b.counterpartyId);
-}
-
-function groupBy<T>(rows: T[], key: (row: T) => number): Map<number, T[]> {
-  const out = new Map<number, T[]>();
-  for (const row of rows) {
-    const k = key(row);
-    const list = out.get(k) ?? [];
-    list.push(row);
-    out.set(k, list);
-  }
-  return out;
 }
 
 /** A score fit for JSON (±∞ are not JSON numbers): the explanation says which override decided. */

@@ -82,19 +82,23 @@ export async function applyOutcome(
     counterparty_id: outcome.status === 'linked' || outcome.status === 'new' ? counterpartyId : null,
     own_entity_id: outcome.status === 'own_entity' ? (outcome.ownEntityId ?? null) : null,
     score: outcome.score,
-    evidence: { ...outcome.evidence, recordedName: null },
+    evidence: { ...outcome.evidence, recordedName: null as RecordedName | null },
     confirmed_by: null,
     updated_at: iso,
   };
+  const linking = (outcome.status === 'linked' || outcome.status === 'new') && counterpartyId !== null;
+  if (linking && outcome.recordName) {
+    recordedName = { name: prepared.text, kind: nameKindOf(prepared) };
+    values.evidence = { ...outcome.evidence, recordedName };
+  }
   const mention = existing
     ? await cs.update('mention', existing.id as number, values)
     : await cs.insert('mention', { ...values, created_at: iso });
   const mentionId = mention.id as number;
   let reviewItemId: number | null = null;
-  if ((outcome.status === 'linked' || outcome.status === 'new') && counterpartyId !== null) {
+  if (linking && counterpartyId !== null) {
     const confirmedBy = outcome.confirmedByIdentifier ? `identifier:${outcome.confirmedByIdentifier}` : null;
-    if (outcome.recordName) {
-      recordedName = { name: prepared.text, kind: nameKindOf(prepared) };
+    if (recordedName) {
       await addNameSighting(cs, counterpartyId, { ...recordedName, source: prepared.input.source, mentionId, contractId: extra.contractId, confirmedBy }, at);
     }
     if (created) {
@@ -103,7 +107,7 @@ export async function applyOutcome(
       }
     }
     const notes = await addMentionIdentifiers(cs, counterpartyId, prepared, mentionId, confirmedBy, at);
-    await cs.update('mention', mentionId, { evidence: { ...outcome.evidence, recordedName, ...(notes.length ? { identifierConflicts: notes } : {}) } });
+    if (notes.length > 0) await cs.update('mention', mentionId, { evidence: { ...outcome.evidence, recordedName, identifierConflicts: notes } });
     await touchCounterparty(cs, counterpartyId, at);
   }
   if (outcome.status === 'review' && counterpartyId !== null) {
@@ -124,6 +128,10 @@ export async function applyOutcome(
     reviewItemId = item.id as number;
   }
   return { mention: await cs.require('mention', mentionId), counterpartyId, reviewItemId, createdCounterparty: created };
+}
+
+export function canonicalNameIn(cs: ChangeSet, counterpartyId: number | null): string | undefined {
+  return counterpartyId === null ? undefined : (cs.cached('counterparty', counterpartyId)?.canonical_name as string | undefined);
 }
 
 /** The history event type for a mention's outcome (see docs/register.md, "Events of resolution"). */

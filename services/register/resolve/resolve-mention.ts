@@ -16,7 +16,7 @@ import type { ChangeSet } from '../state/change-set.ts';
 import { canonicalRow, type Row } from '../state/tables.ts';
 import { write } from '../transaction.ts';
 import { closeOpenItemsOfMention, detachMention } from '../upkeep.ts';
-import { applyOutcome, eventTypeFor } from './apply.ts';
+import { applyOutcome, canonicalNameIn, eventTypeFor } from './apply.ts';
 import { decide, type ContractContext, type PartyContext } from './decide.ts';
 import { prepareMention, type PreparedMention } from './prepare.ts';
 
@@ -37,9 +37,18 @@ export interface ResolveResult {
   eventId: number | null;
 }
 
-export async function resultOf(db: ChangeSet['trx'] | RegisterContext['db'], mention: Row, extra: { alreadyIngested: boolean; eventId: number | null; reviewItemId?: number | null }): Promise<ResolveResult> {
+export async function resultOf(
+  db: ChangeSet['trx'] | RegisterContext['db'],
+  mention: Row,
+  extra: { alreadyIngested: boolean; eventId: number | null; reviewItemId?: number | null; canonicalName?: string },
+): Promise<ResolveResult> {
   const cpId = (mention.counterparty_id as number | null) ?? null;
-  const cp = cpId === null ? undefined : await db.selectFrom('counterparty').select('canonical_name').where('id', '=', cpId).executeTakeFirst();
+  const cp =
+    cpId === null
+      ? undefined
+      : extra.canonicalName !== undefined
+        ? { canonical_name: extra.canonicalName }
+        : await db.selectFrom('counterparty').select('canonical_name').where('id', '=', cpId).executeTakeFirst();
   let reviewItemId = extra.reviewItemId ?? null;
   if (reviewItemId === null && mention.status === 'review') {
     const item = await db.selectFrom('review_item').select('id').where('mention_id', '=', mention.id as number).where('status', '=', 'open').orderBy('id', 'desc').executeTakeFirst();
@@ -172,7 +181,12 @@ export async function resolveWithin(
       ...(options.cause ? { cause: options.cause } : textChanged ? { cause: 'text_changed' } : {}),
     },
   });
-  return resultOf(cs.trx, applied.mention, { alreadyIngested: false, eventId, reviewItemId: applied.reviewItemId });
+  return resultOf(cs.trx, applied.mention, {
+    alreadyIngested: false,
+    eventId,
+    reviewItemId: applied.reviewItemId,
+    canonicalName: canonicalNameIn(cs, (applied.mention.counterparty_id as number | null) ?? null),
+  });
 }
 
 /** Resolves one mention (see the file header). */

@@ -57,6 +57,11 @@ export class ChangeSet {
     return row;
   }
 
+  /** The image of a row this ChangeSet already read or wrote, without a query. */
+  cached(table: StateTable, id: number): Row | undefined {
+    return this.rows.get(rowKey(table, id));
+  }
+
   async require(table: StateTable, id: number): Promise<Row> {
     const row = await this.get(table, id);
     if (!row) throw new Error(`${table} ${id} vanished inside its own transaction`);
