@@ -26,6 +26,7 @@ export async function evaluateCommand(file: string, flags: EvaluateFlags): Promi
     filters,
     excludes,
     stripCountryQualifier: flags.stripCountryQualifier === true,
+    ...(flags.entitySample !== undefined ? { entitySample: parseFraction(flags.entitySample) } : {}),
   });
   if (acronymRule && !loaded.columns.includes(acronymRule[0])) {
     throw new CliError(`--acronym ${acronymRule[0]}: no such column; the header has: ${loaded.columns.join(', ')}`);
@@ -41,6 +42,7 @@ export async function evaluateCommand(file: string, flags: EvaluateFlags): Promi
     model,
     train: flags.train === true,
     fixU: flags.fixU === true,
+    learnFromLabels: flags.learnFromLabels === true,
     ...(flags.linkAt !== undefined ? { linkAt: parseNumber('--link-at', flags.linkAt) } : {}),
     ...(flags.newAt !== undefined ? { newAt: parseNumber('--new-at', flags.newAt) } : {}),
     blocking: {
@@ -100,6 +102,12 @@ function readModel(path: string): MatchModel {
   } catch (error) {
     throw new CliError(`--model ${path}: ${(error as Error).message}`, 1, { cause: error });
   }
+}
+
+function parseFraction(text: string): number {
+  const value = parseNumber('--entity-sample', text);
+  if (!(value > 0 && value <= 1)) throw new CliError(`--entity-sample expects a fraction in (0, 1], got "${text}"`);
+  return value;
 }
 
 function parseNumber(option: string, text: string): number {

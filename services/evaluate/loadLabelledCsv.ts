@@ -34,6 +34,8 @@ export interface LoadOptions {
   excludes?: readonly (readonly [string, string])[];
   /** Remove a trailing "(Country name)" display qualifier (ROR's convention), counting the rows changed. */
   stripCountryQualifier?: boolean;
+  /** Keep only entities whose id hashes below this fraction (deterministic subsample of whole entities). */
+  entitySample?: number;
 }
 
 export interface LoadedFile {
@@ -103,6 +105,10 @@ export function parseLabelledCsv(text: string, options: LoadOptions): LoadedFile
       problems.push({ line: info.lines, problem: `empty ${options.nameColumn} (the name); row left out` });
       continue;
     }
+    if (options.entitySample !== undefined && hashFraction(id) >= options.entitySample) {
+      filteredOut++;
+      continue;
+    }
     const name = strip ? strip(originalName) : originalName;
     if (name !== originalName) qualifiersStripped++;
     const country = options.countryColumn ? (record[options.countryColumn] ?? '').trim() || undefined : undefined;
@@ -143,4 +149,14 @@ export function parseColumnValue(text: string, option: string): [string, string]
   const at = text.indexOf('=');
   if (at <= 0) throw new LabelledFileError(`${option} expects column=value, got "${text}"`);
   return [text.slice(0, at).trim(), text.slice(at + 1)];
+}
+
+/** FNV-1a of the id mapped to [0, 1): a stable choice of entities for --entity-sample. */
+function hashFraction(id: string): number {
+  let h = 0x811c9dc5;
+  for (let i = 0; i < id.length; i++) {
+    h ^= id.charCodeAt(i);
+    h = Math.imul(h, 0x01000193) >>> 0;
+  }
+  return h / 4294967296;
 }

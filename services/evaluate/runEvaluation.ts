@@ -21,6 +21,7 @@ import { seededRandom } from '../../resolvers/prng.ts';
 import {
   compareCandidates,
   comparedVectors,
+  estimateFromLabels,
   indexedPairsOf,
   randomPairVectors,
   scoreCompared,
@@ -41,6 +42,9 @@ export interface EvaluationOptions {
   /** cpreg: re-estimate m and u by EM on this file's candidate pairs (labels are never used). */
   train?: boolean;
   fixU?: boolean;
+  /** cpreg, for tuning only: estimate m and u from this file's ground truth over the candidate pairs (as from
+   * reviewers' decisions). Never use on the split you report. */
+  learnFromLabels?: boolean;
   linkAt?: number;
   newAt?: number;
   blocking?: CandidateOptions;
@@ -159,6 +163,22 @@ function runCpreg(
         fixU: options.fixU ?? false,
         note: `${records.length} names`,
       });
+    });
+    extra.trainedModel = model;
+  }
+  if (options.learnFromLabels) {
+    model = timed('estimate from labels', () => {
+      const vectors = comparedVectors(compared);
+      const labelled = vectors.map((vector, k) => ({ vector, isMatch: gold[pairs.left[k] as number] === gold[pairs.right[k] as number] }));
+      const matches = labelled.filter((l) => l.isMatch).length;
+      const learned = estimateFromLabels(model, labelled, 1);
+      return {
+        ...learned,
+        matchShare: matches / Math.max(1, labelled.length),
+        linkAt: options.linkAt ?? model.linkAt,
+        newAt: options.newAt ?? model.newAt,
+        provenance: { method: 'labelled' as const, pairs: labelled.length, note: `m and u from ${labelled.length} labelled candidate pairs (${matches} matches) of ${records.length} names` },
+      };
     });
     extra.trainedModel = model;
   }

@@ -20,6 +20,8 @@ interface EvaluateFlags {
   model?: string;
   train?: boolean;
   fixU?: boolean;
+  learnFromLabels?: boolean;
+  entitySample?: string;
   linkAt?: string;
   newAt?: string;
   saveModel?: string;
@@ -45,6 +47,8 @@ export default function register(program: Command): void {
     .option('--model <file.json>', 'cpreg: match model to score with (default: the built-in model)')
     .option('--train', "cpreg: re-estimate m and u by EM on this file's candidate pairs (labels are not used)")
     .option('--fix-u', 'cpreg with --train: hold u at the random-pair frequencies')
+    .option('--learn-from-labels', "cpreg, for tuning: estimate m and u from this file's ground truth (never on the split you report)")
+    .option('--entity-sample <fraction>', 'keep a stable subsample of whole entities (by a hash of the id), e.g. 0.3')
     .option('--link-at <bits>', 'cpreg: override the model\'s linkAt')
     .option('--new-at <bits>', 'cpreg: override the model\'s newAt')
     .option('--save-model <file.json>', 'cpreg: write the model used (trained or loaded) to this file')
