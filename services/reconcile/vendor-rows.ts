@@ -105,7 +105,7 @@ export function vendorRow(line: number, row: Record<string, string>, columns: Ve
   const contact: Identifier[] = [];
   const problems: string[] = [];
   const tax = get('taxId');
-  if (tax) add(strong, problems, /^[A-Za-z]{2}\s?[0-9A-Za-z]/.test(tax) ? 'vat' : country ? TAX_BY_COUNTRY[country] : undefined, tax, country, 'tax id');
+  if (tax) add(strong, problems, /^[a-z]{2}\s?[0-9a-z]/i.test(tax) ? 'vat' : country ? TAX_BY_COUNTRY[country] : undefined, tax, country, 'tax id');
   add(strong, problems, country ? REGISTRATION_BY_COUNTRY[country] : undefined, get('registrationNumber'), country, 'registration number');
   add(contact, problems, 'phone', get('phone'), country, 'phone');
   const email = get('email');

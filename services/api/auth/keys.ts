@@ -24,7 +24,7 @@ export interface CreatedApiKey extends ApiKeyInfo {
 }
 
 export const MAX_LABEL_LENGTH = 200;
-const KEY_SHAPE = /^cpreg_(k[0-9a-f]{12})_([\w-]{43})$/;
+const KEY_SHAPE = /^cpreg_(k[0-9a-f]{12})_[\w-]{43}$/;
 
 /** Scopes nest: admin ⊇ write ⊇ read. */
 export function scopeAllows(have: ApiScope, need: ApiScope): boolean {

@@ -24,7 +24,7 @@ describeEachBackend('/v1 keys, scopes, limits and idempotency', (ctx) => {
     for (const [path, methods] of Object.entries(spec.paths)) {
       for (const [method, op] of Object.entries(methods)) {
         if (!path.startsWith('/v1')) continue;
-        routes.push({ method: method.toUpperCase(), url: path.replace(/\{[^}]+\}/g, (m) => (m.includes('kind') ? 'register' : m.includes('keyId') ? 'kffffffffffff' : '999999')), scope: op['x-scope']! });
+        routes.push({ method: method.toUpperCase(), url: path.replace(/\{[a-z]+\}/gi, (m) => (m.includes('kind') ? 'register' : m.includes('keyId') ? 'kffffffffffff' : '999999')), scope: op['x-scope']! });
       }
     }
   });
