@@ -57,7 +57,8 @@ export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[],
     try {
       prepared = prepareMention(input);
     } catch (error) {
-      const e = error as RegisterError;
+      if (!(error instanceof RegisterError)) throw error;
+      const e = error;
       results[index] = { status: 'rejected', index, error: { code: e.code ?? 'INVALID_INPUT', message: e.message, ...(e.details?.field ? { field: String(e.details.field) } : {}) } };
       continue;
     }

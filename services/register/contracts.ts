@@ -11,6 +11,7 @@ import { RegisterError, invalid } from './errors.ts';
 import { commitEvent } from './history/commit.ts';
 import type { ChangeSet } from './state/change-set.ts';
 import { write } from './transaction.ts';
+import { detachMention } from './upkeep.ts';
 import { prepareMention } from './resolve/prepare.ts';
 import { resolveWithin, type ResolveResult } from './resolve/resolve-mention.ts';
 import { mentionsAwaitingContract } from '../../db/queries/mentions.ts';
@@ -82,6 +83,20 @@ async function replaceTerms(cs: ChangeSet, contractId: number, parsed: ParsedCon
   for (const c of parsed.collectiveTerms) await add(c.term, null, true);
 }
 
+/** A changed contract with fewer parties: the party mentions beyond the new count are withdrawn (not deleted). */
+async function withdrawVanishedParties(cs: ChangeSet, contractId: number, count: number, who: ActorInput, at: Date): Promise<void> {
+  const gone = await cs.trx.selectFrom('contract_party').select(['id', 'mention_id']).where('contract_id', '=', contractId).where('position', '>=', count).orderBy('position').execute();
+  for (const party of gone) {
+    const peek = await cs.trx.selectFrom('mention').select('counterparty_id').where('id', '=', party.mention_id).executeTakeFirstOrThrow();
+    if (peek.counterparty_id !== null) await cs.lock('counterparty', [Number(peek.counterparty_id)]);
+    const mention = await cs.require('mention', Number(party.mention_id));
+    if (mention.status === 'withdrawn') continue;
+    await detachMention(cs, mention, at, 'withdrawn');
+    await cs.update('mention', mention.id as number, { status: 'withdrawn', own_entity_id: null, confirmed_by: who.actor, updated_at: at.toISOString() });
+    await commitEvent(cs, { type: 'withdrawn', actor: who.actor, at, reason: who.reason ?? 'no longer a party of the changed contract', requestId: who.requestId, details: { entity: 'mention', mentionId: mention.id, contractId } });
+  }
+}
+
 export async function storeContract(ctx: RegisterContext, input: ContractInput, who: ActorInput): Promise<StoreContractResult> {
   check(input);
   const contentHash = createHash('sha256').update(JSON.stringify([input.title ?? null, input.text])).digest('hex');
@@ -141,9 +156,7 @@ export async function storeContract(ctx: RegisterContext, input: ContractInput, 
       }
       parties.push({ ...result, position: index, role: party.role, terms: party.terms });
     }
-    if (!existing && parsed.parties.length === 0 && parsed.reason) {
-      // Kept (nothing is lost), and the caller sees why no party came out.
-    }
+    if (existing) await withdrawVanishedParties(cs, contractId, parsed.parties.length, who, at);
     const reresolved: ResolveResult[] = [];
     for (const mentionId of await mentionsAwaitingContract(cs.trx, input.source, input.externalId)) {
       const row = await cs.trx.selectFrom('mention').selectAll().where('id', '=', mentionId).executeTakeFirstOrThrow();

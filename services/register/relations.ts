@@ -26,8 +26,7 @@ export interface RelationInput {
 }
 
 function checkDate(field: string, value: string): string {
-  const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(value);
-  if (!m) throw invalid(field, `"${value}" is not a date in the form YYYY-MM-DD`);
+  if (!/^\d{4}-\d{2}-\d{2}$/.test(value)) throw invalid(field, `"${value}" is not a date in the form YYYY-MM-DD`);
   const date = new Date(`${value}T00:00:00Z`);
   if (Number.isNaN(date.getTime()) || date.toISOString().slice(0, 10) !== value) throw invalid(field, `"${value}" is not a calendar date`);
   return value;

@@ -6,7 +6,9 @@ import type { Command } from 'commander';
 import { CliError } from '../cli-error.ts';
 import { DB_OPTION_HELP } from './serve.ts';
 
-type Opened = Awaited<ReturnType<typeof import('../../register/open-register.ts').openRegister>>;
+import type { openRegister } from '../../register/open-register.ts';
+
+type Opened = Awaited<ReturnType<typeof openRegister>>;
 
 /** Opens the register, runs `fn`, closes; database and register errors become one-line CLI errors. */
 export async function withRegister<T>(db: string | undefined, command: string, fn: (opened: Opened, actor: string) => Promise<T>): Promise<T> {
@@ -36,7 +38,7 @@ function print(json: boolean | undefined, value: unknown, text: string): void {
 }
 
 function parseId(value: string): number {
-  if (!/^[1-9][0-9]{0,15}$/.test(value)) throw new CliError(`own entity id "${value}" is not a positive whole number (see: cpreg own-entities list)`);
+  if (!/^[1-9]\d{0,15}$/.test(value)) throw new CliError(`own entity id "${value}" is not a positive whole number (see: cpreg own-entities list)`);
   return Number(value);
 }
 

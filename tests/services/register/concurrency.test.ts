@@ -11,8 +11,8 @@ import { describeEachBackend } from '../../support/index.ts';
 import {
   createRegisterContext,
   mergeCounterparties,
-  RegisterError,
   resolveMention,
+  type RegisterError,
   type RegisterContext,
 } from '../../../services/register/index.ts';
 import { WHO } from './helpers.ts';

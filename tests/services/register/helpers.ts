@@ -2,7 +2,7 @@
 import type { Kysely } from 'kysely';
 import { expect } from 'vitest';
 import type { Database } from '../../../db/types.ts';
-import { createRegisterContext, stateSnapshot, type RegisterContext, type StateSnapshot } from '../../../services/register/index.ts';
+import { createRegisterContext, type RegisterContext, type StateSnapshot } from '../../../services/register/index.ts';
 
 export const WHO = { actor: 'test:register' };
 
