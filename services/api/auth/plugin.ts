@@ -64,8 +64,17 @@ function bearer(request: FastifyRequest): string | undefined {
   return match?.[1];
 }
 
+/** CPREG_RATE_LIMIT_PER_MINUTE: a whole number, or `off` (benchmarks); unset: the default. */
+export function rateLimitFromEnv(value = process.env.CPREG_RATE_LIMIT_PER_MINUTE): number | false | undefined {
+  if (value === undefined || value === '') return undefined;
+  if (value === 'off') return false;
+  const n = Number(value);
+  if (!Number.isInteger(n) || n < 1) throw new Error(`CPREG_RATE_LIMIT_PER_MINUTE=${value}: expected a whole number of requests per minute, or off`);
+  return n;
+}
+
 export const authPlugin: AppPlugin = (app, deps) => {
-  const limit = deps.rateLimitPerMinute === undefined ? DEFAULT_RATE_LIMIT_PER_MINUTE : deps.rateLimitPerMinute;
+  const limit = deps.rateLimitPerMinute ?? rateLimitFromEnv() ?? DEFAULT_RATE_LIMIT_PER_MINUTE;
   const limiter = limit === false ? undefined : new RateLimiter({ perMinute: limit });
   app.decorateRequest('apiKey', null);
   app.addHook('onRoute', documentScope);

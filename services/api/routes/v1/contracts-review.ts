@@ -46,6 +46,12 @@ const CONTRACT_OUT = {
 
 const SUMMARY = { type: 'object', properties: { id: { type: 'integer' }, canonicalName: { type: 'string' }, jurisdiction: { type: 'string', nullable: true }, status: { type: 'string' }, version: { type: 'integer' } } } as const;
 
+/** The review list also says how many items are open in all (the console's counter). */
+function withOpenCount(schema: object): object {
+  const s = schema as { properties: Record<string, unknown> };
+  return { ...s, properties: { ...s.properties, open: { type: 'integer', description: 'open review items in all' } } };
+}
+
 export const contractReviewRoutes: RoutePlugin = (app, deps) => {
   const ctx = v1Scope(app, deps);
   const db = deps.db;
@@ -158,7 +164,7 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
         tags: ['review'],
         querystring: { type: 'object', additionalProperties: false, properties: PAGE_QUERY },
         response: {
-          200: pagedOf({
+          200: withOpenCount(pagedOf({
             type: 'object',
             properties: {
               id: { type: 'integer' },
@@ -174,7 +180,7 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
               left: { ...SUMMARY, nullable: true },
               right: { ...SUMMARY, nullable: true },
             },
-          }),
+          })),
         },
       },
     },

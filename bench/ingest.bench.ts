@@ -1,0 +1,100 @@
+/**
+ * Batch ingest throughput (issue 7 goal: ≥ 5,000 mentions/s into PostgreSQL): `ingestFile` over an NDJSON file of
+ * generated mentions (the scale generator's invented names, a quarter of them variants of others), into a fresh
+ * embedded database and a fresh PostgreSQL database. Sizes: ctx.sizes.ingest (quick 10,000; default 100,000;
+ * full adds 1,000,000 on PostgreSQL only). Also records the rate of a second run over the same file (resume:
+ * every row already ingested) and the peak RSS (memory must not grow with the file).
+ */
+import { createWriteStream } from 'node:fs';
+import { once } from 'node:events';
+import { join } from 'node:path';
+import pg from 'pg';
+import { openDatabase } from '../db/open-database.ts';
+import { migrateToLatest } from '../db/migrate.ts';
+import { ingestFile } from '../services/ingest/run-ingest.ts';
+import type { BenchContext, BenchRow } from './types.ts';
+
+async function writeMentions(ctx: BenchContext, file: string, size: number): Promise<void> {
+  const out = createWriteStream(file);
+  let i = 0;
+  for (const name of ctx.generator.names(size, ctx.seed)) {
+    const line = `${JSON.stringify({ externalId: `g-${i++}`, text: name.name, country: name.country })}\n`;
+    if (!out.write(line)) await once(out, 'drain');
+  }
+  out.end();
+  await once(out, 'finish');
+}
+
+async function freshPostgres(url: string, name: string): Promise<{ url: string; drop: () => Promise<void> }> {
+  const admin = new pg.Client({ connectionString: url });
+  await admin.connect();
+  await admin.query(`DROP DATABASE IF EXISTS "${name}"`);
+  await admin.query(`CREATE DATABASE "${name}"`);
+  await admin.end();
+  const target = new URL(url);
+  target.pathname = `/${name}`;
+  return {
+    url: target.toString(),
+    drop: async () => {
+      const c = new pg.Client({ connectionString: url });
+      await c.connect();
+      await c.query(`DROP DATABASE IF EXISTS "${name}" WITH (FORCE)`);
+      await c.end();
+    },
+  };
+}
+
+export async function run(ctx: BenchContext): Promise<BenchRow[]> {
+  const rows: BenchRow[] = [];
+  const targets: { backend: 'pglite' | 'postgres'; size: number }[] = [];
+  for (const size of ctx.sizes.ingest) {
+    if (size <= 100_000) targets.push({ backend: 'pglite', size });
+    targets.push({ backend: 'postgres', size });
+  }
+  for (const { backend, size } of targets) {
+    const id = `ingest.${backend}.${size}`;
+    if (backend === 'postgres' && !ctx.databaseUrl) {
+      rows.push({ id: `${id}.rate`, label: 'ingest mentions/s', value: 0, unit: 'mentions/s', better: 'higher', size, backend, skipped: 'DATABASE_URL not set' });
+      continue;
+    }
+    const file = join(ctx.tmpDir, `mentions-${size}.ndjson`);
+    await writeMentions(ctx, file, size);
+    const pgDb = backend === 'postgres' ? await freshPostgres(ctx.databaseUrl!, `cpreg_bench_ingest_${size}`) : undefined;
+    const database = await openDatabase(pgDb ? pgDb.url : join(ctx.tmpDir, `pglite-${size}`), { command: 'bench ingest' });
+    try {
+      await migrateToLatest(database.db);
+      ctx.log(`${backend}: ingesting ${size.toLocaleString('en-US')} mentions`);
+      const { result, peakRssMb } = await ctx.withPeakMemory(() =>
+        ingestFile({
+          db: database.db,
+          file,
+          source: 'bench',
+          rejectsFile: join(ctx.tmpDir, `rejects-${backend}-${size}.csv`),
+          actor: 'bench',
+          onProgress: (p) => {
+            if (p.counts.read % 10_000 < 1000) ctx.log(`${backend}: ${p.counts.read} rows, ${Math.round(p.counts.read / (p.elapsedMs / 1000))}/s`);
+          },
+        }),
+      );
+      const seconds = result.elapsedMs / 1000;
+      rows.push({
+        id: `${id}.rate`,
+        label: 'ingest mentions/s (first run)',
+        value: result.counts.read / seconds,
+        unit: 'mentions/s',
+        better: 'higher',
+        size,
+        backend,
+        ...(backend === 'postgres' ? { goal: { op: '>=' as const, value: 5000 } } : {}),
+        extra: { seconds, rejected: result.counts.rejected, linked: result.counts.linked, new: result.counts.new, review: result.counts.review },
+      });
+      rows.push({ id: `${id}.peak_rss`, label: 'peak RSS while ingesting', value: peakRssMb, unit: 'MB', better: 'lower', size, backend });
+      const again = await ingestFile({ db: database.db, file, source: 'bench', rejectsFile: join(ctx.tmpDir, `rejects2-${backend}-${size}.csv`), actor: 'bench' });
+      rows.push({ id: `${id}.resume_rate`, label: 'ingest rows/s when every row is already ingested (resume)', value: again.counts.read / (again.elapsedMs / 1000), unit: 'rows/s', better: 'higher', size, backend, baseline: `${id}.rate` });
+    } finally {
+      await database.close();
+      await pgDb?.drop();
+    }
+  }
+  return rows;
+}
