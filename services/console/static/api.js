@@ -62,7 +62,8 @@ export async function api(path, { method = 'GET', body, key = storedKey(), signa
   }
   if (!response.ok) {
     const problem = new ApiProblem(response.status, await problemOf(response));
-    if (response.status === 401) for (const listener of listeners) listener(problem);
+    // Only the signed-in key going bad signs the console out (a wrong key typed at sign-in does not).
+    if (response.status === 401 && key && key === storedKey()) for (const listener of listeners) listener(problem);
     throw problem;
   }
   const data = response.status === 204 ? null : await response.json();

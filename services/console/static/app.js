@@ -80,7 +80,7 @@ async function route() {
     }
     cleanup = null;
   }
-  hideNotice();
+  hideNotice({ unlessKept: true });
   const main = document.getElementById('main');
   const { path, query } = parseHash();
   if (!storedKey() || path === '/signin') {
@@ -126,7 +126,7 @@ onUnauthenticated((problem) => {
   session.me = null;
   showWho();
   location.hash = '#/signin';
-  showNotice(problem, 'Signed out');
+  showNotice(problem, 'Signed out', { keep: true });
 });
 
 window.addEventListener('hashchange', route);

@@ -14,14 +14,21 @@ export function errorBox(error, what) {
   );
 }
 
-export function showNotice(error, what) {
+/** A banner above the page; `keep` keeps it through the next navigation (e.g. the one it caused). */
+export function showNotice(error, what, { keep = false } = {}) {
   const notice = document.getElementById('notice');
+  if (keep) notice.dataset.keep = '1';
   replace(notice, errorBox(error, what), h('button', { type: 'button', class: 'link-button', onclick: hideNotice }, 'Dismiss'));
   notice.hidden = false;
 }
 
-export function hideNotice() {
+export function hideNotice({ unlessKept = false } = {}) {
   const notice = document.getElementById('notice');
+  if (unlessKept && notice.dataset.keep) {
+    delete notice.dataset.keep;
+    return;
+  }
+  delete notice.dataset.keep;
   notice.hidden = true;
   replace(notice);
 }
@@ -48,7 +55,7 @@ export function confirmChange({ title, body, confirmLabel, reasonLabel = 'Reason
     const cancel = h('button', { type: 'button', id: 'confirm-cancel', onclick: () => dialog.close('cancel') }, 'Cancel');
     const form = h(
       'form',
-      { method: 'dialog', class: 'dialog-form' },
+      { method: 'dialog', class: 'dialog-form', novalidate: true },
       h('h2', { id: 'confirm-title' }, title),
       h('div', { class: 'dialog-body' }, body),
       h('label', { for: 'confirm-reason' }, reasonLabel),
