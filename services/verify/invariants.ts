@@ -1,0 +1,191 @@
+/**
+ * The register's invariants as SQL checks, each returning its violations with the ids involved.
+ * Read-only: these run inside one REPEATABLE READ transaction on PostgreSQL (see verify.ts), so that a
+ * running service does not make a consistent register look broken halfway through the checks.
+ */
+import { sql, type Kysely } from 'kysely';
+import type { Database } from '../../db/types.ts';
+import { STRONG_SCHEMES } from '../../resolvers/vocabulary.ts';
+import { COUNT_KEYS } from '../ingest/run-ingest.ts';
+
+export interface Violation {
+  /** The check that failed (stable, snake_case). */
+  check: string;
+  /** What is wrong, in words that name the ids. */
+  message: string;
+  ids: Record<string, number | string | null>;
+}
+
+export type Check = (db: Kysely<Database>) => Promise<Violation[]>;
+
+/** Every linked or new mention points to an existing, active counterparty. */
+export const mentionsPointToActive: Check = async (db) => {
+  const rows = await sql<{ id: number; status: string; counterparty_id: number | null; cp_status: string | null }>`
+    SELECT m.id, m.status, m.counterparty_id, c.status AS cp_status
+    FROM mention m LEFT JOIN counterparty c ON c.id = m.counterparty_id
+    WHERE m.status IN ('linked', 'new') AND (m.counterparty_id IS NULL OR c.id IS NULL OR c.status <> 'active')
+    ORDER BY m.id`.execute(db);
+  return rows.rows.map((r) => ({
+    check: 'mention_not_on_active_counterparty',
+    message:
+      r.counterparty_id === null
+        ? `mention ${r.id} is ${r.status} but has no counterparty`
+        : `mention ${r.id} is ${r.status} on counterparty ${r.counterparty_id}, which is ${r.cp_status ?? 'missing'}`,
+    ids: { mentionId: Number(r.id), counterpartyId: r.counterparty_id === null ? null : Number(r.counterparty_id) },
+  }));
+};
+
+/** A merged counterparty owns no names, identifiers or mentions. */
+export const mergedOwnsNothing: Check = async (db) => {
+  const rows = await sql<{ what: string; id: number; counterparty_id: number }>`
+    SELECT 'name' AS what, n.id, n.counterparty_id FROM counterparty_name n JOIN counterparty c ON c.id = n.counterparty_id WHERE c.status = 'merged'
+    UNION ALL
+    SELECT 'identifier', i.id, i.counterparty_id FROM counterparty_identifier i JOIN counterparty c ON c.id = i.counterparty_id WHERE c.status = 'merged'
+    UNION ALL
+    SELECT 'mention', m.id, m.counterparty_id FROM mention m JOIN counterparty c ON c.id = m.counterparty_id WHERE c.status = 'merged'
+    ORDER BY 3, 1, 2`.execute(db);
+  return rows.rows.map((r) => ({
+    check: 'merged_counterparty_owns_rows',
+    message: `merged counterparty ${r.counterparty_id} still owns ${r.what} ${r.id}`,
+    ids: { counterpartyId: Number(r.counterparty_id), [`${r.what}Id`]: Number(r.id) },
+  }));
+};
+
+/** Every merged id's redirect chain ends in an active counterparty; an active one redirects nowhere. */
+export const redirectChains: Check = async (db) => {
+  const rows = await db.selectFrom('counterparty').select(['id', 'status', 'merged_into']).execute();
+  const byId = new Map(rows.map((r) => [Number(r.id), { status: r.status, mergedInto: r.merged_into === null ? null : Number(r.merged_into) }]));
+  const out: Violation[] = [];
+  for (const [id, row] of byId) {
+    if (row.status === 'active') {
+      if (row.mergedInto !== null) out.push({ check: 'redirect_chain_broken', message: `active counterparty ${id} redirects to ${row.mergedInto}`, ids: { counterpartyId: id, mergedInto: row.mergedInto } });
+      continue;
+    }
+    const seen = new Set<number>([id]);
+    let at = row.mergedInto;
+    let problem: string | null = null;
+    for (;;) {
+      if (at === null) {
+        problem = `merged counterparty ${id} has no merged_into`;
+        break;
+      }
+      if (seen.has(at)) {
+        problem = `the redirect chain of ${id} loops at ${at}`;
+        break;
+      }
+      seen.add(at);
+      const next = byId.get(at);
+      if (!next) {
+        problem = `the redirect chain of ${id} reaches ${at}, which does not exist`;
+        break;
+      }
+      if (next.status === 'active') break;
+      at = next.mergedInto;
+    }
+    if (problem) out.push({ check: 'redirect_chain_broken', message: problem, ids: { counterpartyId: id, at } });
+  }
+  return out.sort((a, b) => Number(a.ids.counterpartyId) - Number(b.ids.counterpartyId));
+};
+
+/** A strong identifier (scheme + value) belongs to at most one active counterparty. */
+export const strongIdentifiersUnique: Check = async (db) => {
+  const strong = [...STRONG_SCHEMES];
+  const rows = await sql<{ scheme: string; value: string; ids: number[] }>`
+    SELECT i.scheme, i.value, array_agg(DISTINCT i.counterparty_id ORDER BY i.counterparty_id) AS ids
+    FROM counterparty_identifier i JOIN counterparty c ON c.id = i.counterparty_id
+    WHERE c.status = 'active' AND (i.strong OR i.scheme IN (${sql.join(strong)}))
+    GROUP BY i.scheme, i.value HAVING count(DISTINCT i.counterparty_id) > 1
+    ORDER BY 1, 2`.execute(db);
+  return rows.rows.map((r) => {
+    const ids = r.ids.map(Number);
+    return {
+      check: 'strong_identifier_shared',
+      message: `${r.scheme} identifier is held by ${ids.length} active counterparties: ${ids.join(', ')}`,
+      // The value itself may be personal (a person's tax id): the ids are enough to find it.
+      ids: { scheme: r.scheme, counterpartyIds: ids.join(',') },
+    };
+  });
+};
+
+/**
+ * Every decided review item is reflected: decided_by and decided_at set, a labelled pair and a
+ * review_decided event for it, a cannot-link for `different` on a pair, one survivor for `same` on a duplicate.
+ */
+export const reviewDecisionsReflected: Check = async (db) => {
+  const items = await sql<{
+    id: number;
+    kind: string;
+    decision: string | null;
+    decided_by: string | null;
+    decided_at: unknown;
+    left_counterparty_id: number | null;
+    right_counterparty_id: number;
+    pairs: number;
+    events: number;
+    cannot_links: number;
+  }>`
+    SELECT r.id, r.kind, r.decision, r.decided_by, r.decided_at, r.left_counterparty_id, r.right_counterparty_id,
+      (SELECT count(*) FROM labelled_pair p WHERE p.review_item_id = r.id)::int AS pairs,
+      (SELECT count(*) FROM history_event e WHERE e.type = 'review_decided' AND e.payload->'details'->>'reviewItemId' = r.id::text)::int AS events,
+      (SELECT count(*) FROM cannot_link l WHERE l.review_item_id = r.id)::int AS cannot_links
+    FROM review_item r WHERE r.status = 'decided' ORDER BY r.id`.execute(db);
+  const survivors = await survivorMap(db);
+  const out: Violation[] = [];
+  const add = (id: number, message: string) => out.push({ check: 'review_decision_not_reflected', message: `review item ${id}: ${message}`, ids: { reviewItemId: id } });
+  for (const r of items.rows) {
+    const id = Number(r.id);
+    if (r.decision === null || r.decided_by === null || r.decided_at === null) add(id, 'decided without a decision, a decider or a time');
+    if (r.pairs < 1) add(id, 'no labelled pair records the decision');
+    if (r.events < 1) add(id, 'no review_decided event in the history');
+    if (r.left_counterparty_id === null) continue;
+    const left = survivors(Number(r.left_counterparty_id));
+    const right = survivors(Number(r.right_counterparty_id));
+    if (r.decision === 'different' && r.cannot_links < 1) add(id, 'decided "different" but no cannot-link keeps the two apart');
+    if (r.decision === 'different' && left === right) add(id, `decided "different" but both sides are now counterparty ${left}`);
+    if (r.decision === 'same' && r.kind === 'duplicate' && left !== right) add(id, `decided "same" but the sides are still ${left} and ${right}`);
+  }
+  return out;
+};
+
+async function survivorMap(db: Kysely<Database>): Promise<(id: number) => number> {
+  const rows = await db.selectFrom('counterparty').select(['id', 'merged_into']).where('status', '=', 'merged').execute();
+  const next = new Map(rows.map((r) => [Number(r.id), r.merged_into === null ? null : Number(r.merged_into)]));
+  return (id) => {
+    let at = id;
+    for (let hops = 0; hops <= next.size; hops++) {
+      const to = next.get(at);
+      if (to === undefined || to === null) return at;
+      at = to;
+    }
+    return at; // a loop: redirectChains reports it
+  };
+}
+
+/** A finished ingest run's counts reconcile: read = the sum of the outcome counts. */
+export const ingestCountsReconcile: Check = async (db) => {
+  const runs = await db.selectFrom('ingest_run').select(['id', 'status', 'counts']).where('status', '=', 'finished').orderBy('id').execute();
+  const out: Violation[] = [];
+  for (const run of runs) {
+    const counts = (typeof run.counts === 'string' ? JSON.parse(run.counts) : run.counts) as Record<string, number>;
+    const read = Number(counts.read ?? 0);
+    let sum = 0;
+    for (const key of COUNT_KEYS) sum += Number(counts[key] ?? 0);
+    if (sum !== read) {
+      out.push({
+        check: 'ingest_counts_do_not_reconcile',
+        message: `ingest run ${run.id}: read ${read} but the outcomes add up to ${sum}`,
+        ids: { ingestRunId: Number(run.id) },
+      });
+    }
+  }
+  return out;
+};
+
+export const INVARIANT_CHECKS: Record<string, Check> = {
+  mention_not_on_active_counterparty: mentionsPointToActive,
+  merged_counterparty_owns_rows: mergedOwnsNothing,
+  redirect_chain_broken: redirectChains,
+  strong_identifier_shared: strongIdentifiersUnique,
+  review_decision_not_reflected: reviewDecisionsReflected,
+  ingest_counts_do_not_reconcile: ingestCountsReconcile,
+};
