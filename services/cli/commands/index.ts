@@ -17,6 +17,7 @@ import reconcile from './reconcile.ts';
 import ownEntities from './own-entities.ts';
 import reresolve from './reresolve.ts';
 import sweep from './sweep.ts';
+import verify from './verify.ts';
 
 export const COMMANDS: Array<(program: Command) => void> = [
   analyse,
@@ -33,4 +34,5 @@ export const COMMANDS: Array<(program: Command) => void> = [
   ownEntities,
   reresolve,
   sweep,
+  verify,
 ];
