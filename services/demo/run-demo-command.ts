@@ -104,6 +104,7 @@ export async function runDemoCommand(options: DemoCliOptions): Promise<void> {
 
   if (options.json) process.stdout.write(`${JSON.stringify({ ...summary, database: dbDir, files: filesDir })}\n`);
   else process.stdout.write(`\n${formatSummary(summary, { filesDir })}\n\n  ${CAUTION}\n\n`);
+  if (stop) throw new CliError('interrupted before serving; the database is closed', 130);
   if (!options.serve) return;
   await serve(options, { dbDir, filesDir, apiKey: apiKey!, busiest: summary.busiest[0] }, note);
 }
@@ -146,6 +147,10 @@ async function build(db: Kysely<Database>, scenario: Scenario, filesDir: string,
     },
   });
   current?.bar.finish();
+  if (load.interrupted) {
+    note(`cpreg demo: stopped after ${load.contracts.stored + load.contracts.alreadyStored} of ${scenario.contracts.length} contracts and ${load.ingest?.counts.read ?? 0} of ${scenario.mentions.length} mentions`);
+    return;
+  }
   const s = load.seconds;
   const secs = (x: number | undefined): string => `${(x ?? 0).toFixed(1)} s`;
   note(

@@ -69,6 +69,8 @@ export async function loadDemo(options: LoadDemoOptions): Promise<DemoLoad> {
   await timed('contracts', async () => {
     progress({ stage: 'contracts', done: 0, total: scenario.contracts.length });
     for (const [i, c] of scenario.contracts.entries()) {
+      // PGlite answers through microtasks only: without a turn of the event loop a Ctrl-C would not be seen here.
+      await new Promise((resolve) => setImmediate(resolve));
       if (stop()) {
         load.interrupted = true;
         return;

@@ -212,3 +212,43 @@ describe('cpreg demo (child process)', () => {
     expect((JSON.parse(keys.stdout) as Array<{ label: string; scope: string }>).some((k) => k.label === 'demo (local admin)' && k.scope === 'admin')).toBe(true);
   }, 10 * 60_000);
 });
+
+describe('cpreg demo interrupted while building', () => {
+  it('stops at the next step on SIGINT, closes the database (lock released, reopenable) and says how to resume', async () => {
+    const root = mkdtempSync(join(tmpdir(), 'cpreg-demo-int-'));
+    const dbDir = join(root, 'demo');
+    try {
+      const child = spawn(process.execPath, [CPREG_BIN, 'demo', '--db', dbDir, '--no-serve'], { cwd: REPO_ROOT, env: childEnv() });
+      let stderr = '';
+      const exited = new Promise<{ code: number | null }>((done) => child.on('exit', (code) => done({ code })));
+      await new Promise<void>((resolve, reject) => {
+        const timer = setTimeout(() => reject(new Error(`no contract stored in time:\n${stderr}`)), 5 * 60_000);
+        child.stderr.on('data', (chunk) => {
+          stderr += chunk;
+          // Progress lines name the stage; wait until the contracts stage has started.
+          if (/contracts/.test(stderr) && /building the demo/.test(stderr)) {
+            clearTimeout(timer);
+            resolve();
+          }
+        });
+      });
+      child.kill('SIGINT');
+      const { code } = await Promise.race([
+        exited,
+        new Promise<never>((_, reject) => setTimeout(() => reject(new Error('the demo did not stop within 120 s of SIGINT')), 120_000)),
+      ]);
+      expect(code).toBe(130);
+      expect(stderr).toContain('run the demo again');
+      expect(existsSync(join(dbDir, LOCK_FILE_NAME))).toBe(false);
+      const database = await openDatabase(dbDir, { command: 'demo test' });
+      try {
+        const stored = await database.db.selectFrom('contract').select((eb) => eb.fn.countAll<string>().as('n')).executeTakeFirstOrThrow();
+        expect(Number(stored.n)).toBeLessThan(300); // stopped part-way: nothing half-written, the rest on the next run
+      } finally {
+        await database.close();
+      }
+    } finally {
+      rmSync(root, { recursive: true, force: true });
+    }
+  }, 10 * 60_000);
+});
