@@ -39,6 +39,8 @@ export interface MergeInput {
   survivorId?: number;
   /** Optimistic concurrency: the version (ETag) each id was read at; a mismatch refuses the merge. */
   expectedVersions?: Record<number, number>;
+  /** Why (kept in the history); the actor's reason is used when absent. */
+  reason?: string;
 }
 
 export interface MergeResult {
@@ -214,7 +216,7 @@ export async function mergeCounterparties(ctx: RegisterContext, input: MergeInpu
       type: 'merged',
       actor: who.actor,
       at,
-      reason: who.reason,
+      reason: input.reason ?? who.reason,
       requestId: who.requestId,
       details: { survivorId, mergedIds: losers },
     });
@@ -227,6 +229,8 @@ export interface SplitInput {
   /** Move into this counterparty; default a new one named after the first moved mention. */
   targetId?: number;
   expectedVersion?: number;
+  /** Why (kept in the history); the actor's reason is used when absent. */
+  reason?: string;
 }
 
 export interface SplitResult {
@@ -300,7 +304,7 @@ export async function splitCounterparty(
       type: 'split',
       actor: who.actor,
       at,
-      reason: who.reason,
+      reason: input.reason ?? who.reason,
       requestId: who.requestId,
       details: { sourceId, targetId, created, mentionIds },
     });
