@@ -86,6 +86,21 @@ describeEachBackend('register operations', (t) => {
     expect(view.counterparty.contracts).toHaveLength(0);
   });
 
+  it('a changed contract keeps its party mentions and re-resolves the ones whose text changed', async () => {
+    const v1 = 'This Agreement is made between Ravelston Quarry Products Limited, a company incorporated in Scotland (the "Seller"), and Glenmarrow Aggregates Ltd, a company incorporated in Scotland (the "Buyer").';
+    const first = await storeContract(ctx, { source: 'clm', externalId: 'Q-1', text: v1 }, WHO);
+    expect(first.parties).toHaveLength(2);
+    const v2 = 'This Agreement is made between Ravelston Quarry Products Limited, a company incorporated in Scotland (the "Seller"), and Tarbolton Haulage Limited, a company incorporated in Scotland (the "Buyer").';
+    const second = await storeContract(ctx, { source: 'clm', externalId: 'Q-1', text: v2 }, WHO);
+    expect(second.contractId).toBe(first.contractId);
+    const buyer = second.parties.find((p) => p.role === 'Buyer')!;
+    expect(buyer.mentionId).toBe(first.parties.find((p) => p.role === 'Buyer')!.mentionId);
+    expect(buyer.counterpartyId).not.toBe(first.parties.find((p) => p.role === 'Buyer')!.counterpartyId);
+    expect(second.contract.parties.map((p) => p.text)).toEqual(['Ravelston Quarry Products Limited', 'Tarbolton Haulage Limited']);
+    const seller = second.parties.find((p) => p.role === 'Seller')!;
+    expect(seller.alreadyIngested).toBe(true);
+  });
+
   it('links on an equal strong identifier, confirms the name by it, and refuses the identifier to a second counterparty', async () => {
     const created = await createCounterparty(ctx, { name: 'Pendlebury Marine Coatings Limited', jurisdiction: 'GB', identifiers: [{ scheme: 'lei', value: LEI_A }] }, WHO);
     const viaLei = await resolveMention(ctx, { source: 'kyc', externalId: 'l1', text: 'PMC Coatings', identifiers: [{ scheme: 'lei', value: LEI_A }] }, WHO);
