@@ -315,7 +315,7 @@ describe('review console in chromium', () => {
     await page.fill('#confirm-reason', 'merged by mistake');
     await page.click('#confirm-ok');
     await page.waitForSelector('#history li[data-type="undone"]', { timeout: STEP_MS });
-    expect(await page.getAttribute(`#history li[data-event="${eventId}"]`, 'class')).toContain('event-undone');
+    expect(await page.getAttribute(`#history li[data-event="${eventId}"]`, 'class')).toContain('is-undone');
     const back = await apiGet<{ id: number; status: string }>(`/v1/counterparties/${absorb.id}`);
     expect(back.status).toBe(200);
     expect(back.body.status).toBe('active');

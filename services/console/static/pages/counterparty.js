@@ -155,7 +155,7 @@ export async function render(main, { params, session, navigate }) {
       const undoable = canUndo && !NOT_UNDOABLE.has(event.type) && !undone.has(event.id);
       return h(
         'li',
-        { class: `event event-${event.type}${undone.has(event.id) ? ' event-undone' : ''}`, dataset: { event: String(event.id), type: event.type } },
+        { class: `event event-${event.type}${undone.has(event.id) ? ' is-undone' : ''}`, dataset: { event: String(event.id), type: event.type } },
         h('div', { class: 'event-head' }, h('span', { class: 'event-what' }, whatHappened(event)), undone.has(event.id) ? h('span', { class: 'tag tag-undone' }, 'undone') : null),
         h('div', { class: 'event-meta' }, when(event.at), ' · by ', h('strong', null, event.actor), ` · change ${event.id}`),
         event.reason ? h('div', { class: 'event-why' }, 'Why: ', event.reason) : null,

@@ -7,7 +7,9 @@ import { layoutNetwork } from '../graph-layout.js';
 
 const NODE_R = { self: 26, contract: 13, counterparty: 15, own: 15 };
 
-function shortLabel(text, max = 26) {
+let labelLength = 26;
+
+function shortLabel(text, max = labelLength) {
   return text.length > max ? `${text.slice(0, max - 1)}…` : text;
 }
 
@@ -21,7 +23,7 @@ function drawNode(node, cx) {
     ? s('text', { x: node.x, y: node.y + r + 18, 'text-anchor': 'middle', class: 'node-label self-label' }, shortLabel(node.label, 40))
     : [
         s('text', { ...side, y: node.y + (node.detail ? -1 : 4), class: 'node-label' }, shortLabel(node.label)),
-        node.detail ? s('text', { ...side, y: node.y + 13, class: 'node-detail' }, shortLabel(node.detail, 34)) : null,
+        node.detail ? s('text', { ...side, y: node.y + 13, class: 'node-detail' }, shortLabel(node.detail, labelLength + 8)) : null,
       ];
   const title = s('title', null, `${node.label}${node.detail ? ` — ${node.detail}` : ''}`);
   const group = [title, shape, label];
@@ -30,15 +32,31 @@ function drawNode(node, cx) {
   return s('g', { class: cls, dataset: { node: node.key } }, group);
 }
 
+/**
+ * The box around the nodes, centred on the counterparty, with room for labels on both sides; at least
+ * 3.4 label widths wide and 320 high (a small graph is not blown up).
+ */
+function fittedViewBox(nodes, labelRoom) {
+  const self = nodes[0];
+  const halfX = Math.max(labelRoom * 1.7, ...nodes.map((n) => Math.abs(n.x - self.x) + labelRoom));
+  const halfY = Math.max(160, ...nodes.map((n) => Math.abs(n.y - self.y) + 44));
+  return { x: self.x - halfX, y: self.y - halfY, width: 2 * halfX, height: 2 * halfY };
+}
+
 export async function render(main, { params }) {
   const id = Number(params[0]);
   const { data } = await api(`/v1/counterparties/${id}/network`);
   if (data.counterparty.id !== id) history.replaceState(null, '', `#/network/${data.counterparty.id}`);
-  const layout = layoutNetwork(data, { width: 1000, height: 720 });
+  // A narrow window gets a portrait layout with shorter labels, drawn at a readable size inside a pane
+  // that scrolls sideways (the page itself does not).
+  const compact = main.clientWidth < 700;
+  const layout = compact ? layoutNetwork(data, { width: 520, height: 760 }) : layoutNetwork(data, { width: 1000, height: 720 });
+  labelLength = compact ? 18 : 26;
+  const box = fittedViewBox(layout.nodes, compact ? 150 : 215);
   const at = new Map(layout.nodes.map((n) => [n.key, n]));
   const svg = s(
     'svg',
-    { viewBox: `-170 -10 ${layout.width + 340} ${layout.height + 20}`, class: 'network', id: 'network-graph', role: 'group', 'aria-label': `Network of ${data.counterparty.canonicalName}` },
+    { viewBox: `${box.x} ${box.y} ${box.width} ${box.height}`, class: compact ? 'network compact' : 'network', id: 'network-graph', role: 'group', 'aria-label': `Network of ${data.counterparty.canonicalName}` },
     s('g', { class: 'edges' }, layout.edges.map((e) => {
       const a = at.get(e.from);
       const b = at.get(e.to);
@@ -47,6 +65,9 @@ export async function render(main, { params }) {
     })),
     s('g', { class: 'nodes' }, layout.nodes.map((n) => drawNode(n, layout.width / 2))),
   );
+  // Never drawn larger than 1:1 (text stays at its set size); narrow windows scroll a pane at up to 1:1.
+  svg.style.maxWidth = `${Math.round(box.width)}px`;
+  if (compact) svg.style.minWidth = `${Math.round(Math.min(box.width, 640))}px`;
   const counterparties = layout.nodes.filter((n) => n.kind === 'counterparty');
   const own = layout.nodes.filter((n) => n.kind === 'own');
   replace(
@@ -55,12 +76,14 @@ export async function render(main, { params }) {
     pageTitle(`Who contracts with ${data.counterparty.canonicalName}`),
     h('p', { class: 'legend' }, h('span', { class: 'key key-self' }), ' this counterparty  ', h('span', { class: 'key key-contract' }), ' contract  ', h('span', { class: 'key key-counterparty' }), ' other counterparty  ', h('span', { class: 'key key-own' }), ' our own entity  ', h('span', { class: 'key key-relation' }), ' relation'),
     layout.shownContracts < layout.totalContracts ? h('p', { class: 'muted' }, `Showing ${layout.shownContracts} of ${layout.totalContracts} contracts.`) : null,
-    h('div', { class: 'network-wrap' }, svg),
+    h('div', { class: 'network-wrap', tabindex: compact ? '0' : null, 'aria-label': compact ? 'network drawing (scrolls sideways)' : null }, svg),
     section(
       'The same, as a list',
       h('p', null, `${plural(layout.totalContracts, 'contract')}, ${plural(counterparties.length, 'other counterparty', 'other counterparties')}, ${plural(own.length, 'own entity', 'own entities')}.`),
       h('ul', { class: 'plain-list' }, data.contracts.map((c) => h('li', null, h('a', { href: `#/contract/${c.contractId}` }, c.title ?? c.externalId), ` (${c.externalId}) as ${c.roles.join(', ') || '—'}: `, data.parties.filter((p) => p.contractId === c.contractId).flatMap((p, i) => [i ? '; ' : '', p.counterpartyId ? h('a', { href: `#/counterparty/${p.counterpartyId}` }, p.name) : `${p.name} (ours)`, p.role ? ` as ${p.role}` : ''])))),
     ),
   );
+  const wrap = main.querySelector('.network-wrap');
+  wrap.scrollLeft = (wrap.scrollWidth - wrap.clientWidth) / 2;
   main.querySelector('h1').focus();
 }

@@ -111,6 +111,7 @@ export async function render(main, { session }) {
 
   const counter = h('p', { class: 'counter', id: 'review-counter', role: 'status', 'aria-live': 'polite' });
   const stage = h('div', { class: 'review-stage', id: 'review-stage' });
+  const scoreSlot = h('div', { class: 'score-slot' });
   const note = h('textarea', { id: 'review-note', rows: '2', maxlength: '2000', placeholder: 'why (kept with the decision)' });
   const sameButton = h('button', { type: 'button', class: 'primary decide', id: 'decide-same', disabled: !canDecide, 'aria-keyshortcuts': 'S' }, 'Same ', h('kbd', null, 'S'));
   const differentButton = h('button', { type: 'button', class: 'decide', id: 'decide-different', disabled: !canDecide, 'aria-keyshortcuts': 'D' }, 'Different ', h('kbd', null, 'D'));
@@ -167,6 +168,7 @@ export async function render(main, { session }) {
     current = queue.shift() ?? null;
     showCounter();
     if (!current) {
+      replace(scoreSlot);
       replace(stage, h('p', { class: 'empty done' }, skipped.size ? 'No more pairs in this pass. Reload the page to see the skipped ones again.' : 'The queue is empty: every doubtful pair has been decided.'));
       controls.hidden = true;
       return;
@@ -183,8 +185,8 @@ export async function render(main, { session }) {
       stage,
       h('h2', { class: 'question', id: 'review-question', tabindex: '-1', dataset: { item: String(item.id), kind: item.kind } }, KIND_WORDS[item.kind] ?? 'Are these the same?', h('span', { class: 'muted' }, ` · item ${item.id}`)),
       h('div', { class: 'pair' }, item.kind === 'mention_link' && item.mention ? mentionSide(item) : counterpartySide(left, 'Counterparty', 'side-left'), counterpartySide(right, item.kind === 'mention_link' ? 'Best candidate in the register' : 'Counterparty', 'side-right')),
-      featureBars(item.evidence, item.score),
     );
+    replace(scoreSlot, featureBars(item.evidence, item.score));
     if (queue.length < 3 && cursor) fetchMore().catch(() => undefined);
   }
 
@@ -247,7 +249,8 @@ export async function render(main, { session }) {
   };
   document.addEventListener('keydown', onKey);
 
-  replace(main, pageTitle('Review queue'), counter, stage, controls, outcome);
+  // Wide windows: the score beside the decision, so both fit above the fold with the pair.
+  replace(main, pageTitle('Review queue'), counter, stage, h('div', { class: 'review-lower' }, scoreSlot, h('div', { class: 'decide-column' }, controls, outcome)));
   stage.setAttribute('tabindex', '-1');
   await fetchMore();
   await showNext();
