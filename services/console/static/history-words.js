@@ -23,7 +23,7 @@ export function whatHappened(event) {
     case 'review_decided':
       return [`Review item ${d.reviewItemId ?? ''} decided: ${d.decision ?? ''}`];
     case 'undone':
-      return [`Undid change ${event.undoesEventId ?? d.undoneEventId ?? ''}`];
+      return [`Undid change ${event.undoesEventId ?? d.undoes ?? ''}${d.undoneType ? ` (${String(d.undoneType).replaceAll('_', ' ')})` : ''}`];
     default:
       return [event.type.replaceAll('_', ' ').replace(/^./, (c) => c.toUpperCase())];
   }

@@ -95,6 +95,13 @@ export function section(title, ...children) {
   return h('section', { class: 'panel' }, h('h2', null, title), ...children);
 }
 
+/** The same with an extra class (for placing it in a page's grid). */
+export function sectionWith(cls, title, ...children) {
+  const element = section(title, ...children);
+  element.classList.add(cls);
+  return element;
+}
+
 /** A key/value list. */
 export function facts(pairs) {
   return h('dl', { class: 'facts' }, pairs.filter(([, v]) => v !== undefined).flatMap(([k, v]) => [h('dt', null, k), h('dd', null, v ?? '—')]));

@@ -322,6 +322,42 @@ describe('review console in chromium', () => {
     await shot('10-after-undo');
   }, TEST_MS);
 
+  it('splits a mention out with a confirmation listing it, and the split shows in the history', async () => {
+    const queue = await openReviewItems();
+    const busy = new Set(queue.items.flatMap((i) => [i.rightCounterpartyId, i.leftCounterpartyId]));
+    const all = (await apiGet<{ items: SearchHit[] }>('/v1/counterparties?limit=100')).body.items.filter((c) => !busy.has(c.id));
+    let source: number | undefined;
+    let moving: { id: number; text: string } | undefined;
+    for (const c of all) {
+      const mentions = (await apiGet<{ items: { id: number; text: string }[] }>(`/v1/counterparties/${c.id}/mentions?limit=50`)).body.items;
+      if (mentions.length >= 2) {
+        source = c.id;
+        moving = mentions[mentions.length - 1];
+        break;
+      }
+    }
+    expect(source, 'some counterparty of the scenario should have two mentions').toBeDefined();
+    await go(`/counterparty/${source}`);
+    await page.waitForSelector('#mentions', { timeout: STEP_MS });
+    expect(await page.isDisabled('#split-button')).toBe(true);
+    await page.check(`#mentions input[data-mention="${moving!.id}"]`);
+    expect(await page.textContent('#split-button')).toContain('Split 1 mention');
+    await page.click('#split-button');
+    await page.waitForSelector('dialog#confirm[open]', { timeout: STEP_MS });
+    expect(await page.textContent('dialog#confirm')).toContain(`“${moving!.text}”`);
+    await page.fill('#confirm-reason', 'this mention names the subsidiary');
+    await page.click('#confirm-ok');
+    await page.waitForSelector('#history li[data-type="split"]', { timeout: STEP_MS });
+    const left = (await apiGet<{ items: { id: number }[] }>(`/v1/counterparties/${source}/mentions?limit=50`)).body.items;
+    expect(left.some((m) => m.id === moving!.id)).toBe(false);
+    expect(await page.$(`#mentions input[data-mention="${moving!.id}"]`)).toBeNull();
+    // The split names where the mention went; that counterparty holds it now.
+    const targetId = Number(await page.$eval('#history li[data-type="split"] a:last-of-type', (a) => a.getAttribute('href')!.split('/').pop()));
+    const moved = (await apiGet<{ items: { id: number }[] }>(`/v1/counterparties/${targetId}/mentions?limit=50`)).body.items;
+    expect(moved.map((m) => m.id)).toContain(moving!.id);
+    await shot('10b-after-split');
+  }, TEST_MS);
+
   it('opens the network view and a click on a node opens it', async () => {
     const all = (await apiGet<{ items: SearchHit[] }>('/v1/counterparties?limit=100')).body.items;
     let chosen: number | undefined;

@@ -2,7 +2,7 @@
 // with roles, mentions, and the history as a timeline with undo; merge and split with a confirmation.
 import { api } from '../api.js';
 import { debounce, h, highlighted, pageTitle, plural, replace, when, num } from '../dom.js';
-import { confirmChange, errorBox, facts, section, toast } from '../ui.js';
+import { confirmChange, errorBox, facts, section, sectionWith, toast } from '../ui.js';
 import { evidence, NOT_UNDOABLE, whatHappened } from '../history-words.js';
 import { jurisdictionBadge, legalFormBadge } from './search.js';
 
@@ -39,7 +39,7 @@ function namesTable(cp) {
           h('td', { class: n.name === cp.canonicalName ? 'canonical' : null }, n.name, n.name === cp.canonicalName ? h('span', { class: 'tag' }, 'canonical') : null),
           h('td', null, NAME_KIND_WORDS[n.kind] ?? n.kind),
           h('td', null, n.legalForm ? n.legalForm.toUpperCase() : '—'),
-          h('td', { class: 'where' }, `${plural(n.seenCount, 'time')}`, n.source ? ` · ${n.source}` : '', n.contractId ? [' · ', contractLink(n.contractId)] : '', n.mentionId ? ` · mention ${n.mentionId}` : '', n.confirmedBy ? ` · confirmed by ${n.confirmedBy}` : ''),
+          h('td', { class: 'where' }, `${plural(n.seenCount, 'time')}`, n.source ? ` · ${n.source}` : '', n.contractId ? [' · ', contractLink(n.contractId, cp.contracts.find((c) => c.contractId === n.contractId)?.externalId)] : '', n.mentionId ? ` · mention ${n.mentionId}` : '', n.confirmedBy ? ` · confirmed by ${n.confirmedBy}` : ''),
         ),
       ),
     ),
@@ -192,7 +192,7 @@ export async function render(main, { params, session, navigate }) {
       'div',
       { class: 'cp-grid' },
       section('Names', namesTable(cp)),
-      section('Identifiers and place', facts([['Jurisdiction', cp.jurisdiction ?? 'unknown'], ['Kind', cp.kind], ['Canonical name set by', cp.nameLockedBy ?? 'the register’s rules'], ['Updated', when(cp.updatedAt)]]), identifiersList(cp), h('h3', null, 'Relations'), relationsList(cp)),
+      sectionWith(mergePanel ? 'panel-tall' : 'panel-plain', 'Identifiers and place', facts([['Jurisdiction', cp.jurisdiction ?? 'unknown'], ['Kind', cp.kind], ['Canonical name set by', cp.nameLockedBy ?? 'the register’s rules'], ['Updated', when(cp.updatedAt)]]), h('h3', null, 'Identifiers'), identifiersList(cp), h('h3', null, 'Relations'), relationsList(cp)),
       section('Contracts', contractsTable(cp)),
       mergePanel ? section('Merge', mergePanel) : null,
     ),

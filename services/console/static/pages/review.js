@@ -112,7 +112,7 @@ export async function render(main, { session }) {
   const counter = h('p', { class: 'counter', id: 'review-counter', role: 'status', 'aria-live': 'polite' });
   const stage = h('div', { class: 'review-stage', id: 'review-stage' });
   const scoreSlot = h('div', { class: 'score-slot' });
-  const note = h('textarea', { id: 'review-note', rows: '2', maxlength: '2000', placeholder: 'why (kept with the decision)' });
+  const note = h('textarea', { id: 'review-note', rows: '2', maxlength: '2000', placeholder: 'why (kept with the decision)', disabled: !canDecide });
   const sameButton = h('button', { type: 'button', class: 'primary decide', id: 'decide-same', disabled: !canDecide, 'aria-keyshortcuts': 'S' }, 'Same ', h('kbd', null, 'S'));
   const differentButton = h('button', { type: 'button', class: 'decide', id: 'decide-different', disabled: !canDecide, 'aria-keyshortcuts': 'D' }, 'Different ', h('kbd', null, 'D'));
   const skipButton = h('button', { type: 'button', id: 'decide-skip', 'aria-keyshortcuts': 'K' }, 'Skip ', h('kbd', null, 'K'));

@@ -27,9 +27,10 @@ function ticks(min, max, count = 8) {
   return out;
 }
 
-export function histogram(stats) {
-  const W = 900;
-  const H = 340;
+/** The chart, drawn for `width` pixels so that its text keeps its size on any window. */
+export function histogram(stats, width = 900) {
+  const W = Math.round(Math.max(320, Math.min(900, width)));
+  const H = W < 600 ? 260 : 340;
   const pad = { l: 52, r: 16, t: 40, b: 46 };
   const { min, max, buckets, linkAt, newAt } = stats;
   const peak = Math.max(1, ...buckets.map((b) => b.count));
@@ -51,11 +52,11 @@ export function histogram(stats) {
     'svg',
     { viewBox: `0 0 ${W} ${H}`, class: 'histogram', id: 'score-chart', role: 'img', 'aria-label': `Scores of ${stats.count} recent resolutions from ${num(min)} to ${num(max)}; new below ${num(newAt)}, linked at ${num(linkAt)} or more, between them a person decides` },
     s('rect', { x: x(newAt), y: pad.t, width: Math.max(0, x(linkAt) - x(newAt)), height: H - pad.b - pad.t, class: 'zone-doubt' }),
-    s('text', { x: (x(newAt) + x(linkAt)) / 2, y: pad.t + 16, 'text-anchor': 'middle', class: 'zone-label' }, 'doubtful: a person reviews'),
+    s('text', { x: (x(newAt) + x(linkAt)) / 2, y: pad.t + 16, 'text-anchor': 'middle', class: 'zone-label' }, x(linkAt) - x(newAt) < 170 ? 'doubtful' : 'doubtful: a person reviews'),
     yTicks.map((t) => [s('line', { x1: pad.l, x2: W - pad.r, y1: y(t), y2: y(t), class: 'grid' }), s('text', { x: pad.l - 6, y: y(t) + 4, 'text-anchor': 'end', class: 'tick' }, String(t))]),
     bars,
     s('line', { x1: pad.l, x2: W - pad.r, y1: H - pad.b, y2: H - pad.b, class: 'axis' }),
-    ticks(min, max).map((t) => [s('line', { x1: x(t), x2: x(t), y1: H - pad.b, y2: H - pad.b + 5, class: 'axis' }), s('text', { x: x(t), y: H - pad.b + 18, 'text-anchor': 'middle', class: 'tick' }, String(t))]),
+    ticks(min, max, W < 600 ? 5 : 8).map((t) => [s('line', { x1: x(t), x2: x(t), y1: H - pad.b, y2: H - pad.b + 5, class: 'axis' }), s('text', { x: x(t), y: H - pad.b + 18, 'text-anchor': 'middle', class: 'tick' }, String(t))]),
     s('text', { x: (pad.l + W - pad.r) / 2, y: H - 6, 'text-anchor': 'middle', class: 'axis-title' }, 'match score (weight of evidence)'),
     [
       { v: newAt, label: `new below ${num(newAt)}`, cls: 'threshold-new', anchor: 'end', dx: -4 },
@@ -66,7 +67,8 @@ export function histogram(stats) {
 
 export async function render(main) {
   const { data: stats } = await api('/v1/stats/scores?buckets=40&limit=5000');
-  const chart = stats.count === 0 || stats.min === null ? h('p', { class: 'empty' }, 'No scored resolutions yet.') : histogram(stats);
+  // The panel's inner width: the page's width less the panel's padding and border.
+  const chart = stats.count === 0 || stats.min === null ? h('p', { class: 'empty' }, 'No scored resolutions yet.') : histogram(stats, main.clientWidth - 60);
   const table = h(
     'details',
     { class: 'data-table' },
