@@ -55,13 +55,14 @@ export function parseMatchModel(value: unknown): MatchModel {
   if ((model.newAt as number) > (model.linkAt as number)) fail(`newAt (${model.newAt}) must not exceed linkAt (${model.linkAt})`);
   if (typeof model.features !== 'object' || model.features === null) fail('features must be an object');
   for (const [name, feature] of Object.entries(model.features as Record<string, FeatureModel>)) {
+    // Stored values are rounded (6 significant digits), so a sum within 1e-4 of 1 is accepted.
     for (const side of ['m', 'u'] as const) {
       const row = feature[side];
       if (!Array.isArray(row) || !Array.isArray(feature.levels) || row.length !== feature.levels.length) {
         fail(`feature "${name}": ${side} must have one probability per level`);
       }
       const sum = row.reduce((s, v) => s + v, 0);
-      if (row.some((v) => !(v > 0 && v < 1)) || Math.abs(sum - 1) > 1e-6) {
+      if (row.some((v) => !(v > 0 && v < 1)) || Math.abs(sum - 1) > 1e-4) {
         fail(`feature "${name}": ${side} must be probabilities strictly between 0 and 1 summing to 1 (sum ${sum})`);
       }
     }

@@ -204,7 +204,7 @@ function runCpreg(
   return { labels, comparisons: pairs.count, extra };
 }
 
-/** Whole-bit thresholds spanning the finite scores, at most 40 of them. */
+/** Whole-bit thresholds from 0 to the highest finite score, at most 40 of them. */
 export function sweepThresholds(scores: Float64Array): number[] {
   let min = Infinity;
   let max = -Infinity;
@@ -214,7 +214,8 @@ export function sweepThresholds(scores: Float64Array): number[] {
     if (s > max) max = s;
   }
   if (min === Infinity) return [0];
-  const lo = Math.floor(Math.max(min, -10));
+  // Below 0 bits the evidence favours a non-match: no one would link there, and huge clusters make it slow.
+  const lo = Math.floor(Math.max(min, 0));
   const hi = Math.ceil(max);
   const step = Math.max(1, Math.ceil((hi - lo) / 40));
   const out: number[] = [];
