@@ -10,7 +10,7 @@ export function buildProgram(): Command {
   const program = new Command('cpreg')
     .description('cpreg: a counterparty register that links party names in contracts to canonical counterparties')
     .option('--verbose', 'print stack traces on errors')
-    .showHelpAfterError('(run with --help for the valid commands and options)')
+    .showHelpAfterError(true)
     .exitOverride();
   for (const add of COMMANDS) add(program);
   return program;
