@@ -1,0 +1,31 @@
+/** `cpreg forget <counterparty-id>` (admin): erase a natural person's personal data from the register and its history. */
+import type { Command } from 'commander';
+import { CliError } from '../cli-error.ts';
+import { DB_OPTION_HELP } from './serve.ts';
+import { withRegister } from './own-entities.ts';
+
+export default function register(program: Command): void {
+  program
+    .command('forget')
+    .description('erase a person: names, identifiers, mention texts and addresses become a pseudonym in the register and its history')
+    .argument('<counterparty-id>', 'the counterparty to erase (a merged id erases its survivor and everything merged into it)')
+    .requiredOption('--reason <text>', 'why (kept in the history, e.g. the erasure request reference); never put personal data here')
+    .option('--organisation', 'also erase a counterparty recorded as an organisation')
+    .option('--db <target>', DB_OPTION_HELP)
+    .option('--json', 'print the result as JSON')
+    .showHelpAfterError(true)
+    .action(async (idText: string, options: { reason: string; organisation?: boolean; db?: string; json?: boolean }) => {
+      if (!/^[1-9]\d{0,15}$/.test(idText)) throw new CliError(`counterparty id "${idText}" is not a positive whole number`);
+      await withRegister(options.db, 'cpreg forget', async ({ ctx }, actor) => {
+        const { forgetCounterparty } = await import('../../forget/forget.ts');
+        const result = await forgetCounterparty(ctx, Number(idText), { actor, reason: options.reason }, { allowOrganisation: options.organisation ?? false });
+        if (options.json) process.stdout.write(`${JSON.stringify(result)}\n`);
+        else {
+          const rows = Object.entries(result.rows).map(([t, n]) => `${n} ${t}`).join(', ');
+          process.stdout.write(
+            `counterparty ${result.counterpartyId} erased as "${result.pseudonym}" (event ${result.eventId}): rewrote ${rows || 'no rows'}, ${result.events} history events, ${result.storedAnswers} stored answers\n`,
+          );
+        }
+      });
+    });
+}

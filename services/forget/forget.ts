@@ -1,0 +1,321 @@
+/**
+ * Erasure of a natural person: every name, identifier value, mention text and address of one counterparty
+ * (and of the ids merged into it) is replaced by a pseudonym in the register AND in the history, the one
+ * permitted rewrite of the append-only history. Structure stays: ids, links, contracts, roles and counts are
+ * untouched, so the register still adds up and `verify` (replay included) still passes.
+ *
+ * Why rewrite the history too: the history holds row images (names, identifiers) that would otherwise keep
+ * the person readable forever. The same replacement is applied to the state rows and to the history
+ * images, so that replaying the rewritten history gives the rewritten register exactly.
+ *
+ * The erasure is recorded as a `forgotten` event carrying no personal data (the ids and how many rows and
+ * events were rewritten); it cannot be undone (the register refuses to).
+ */
+import { randomBytes } from 'node:crypto';
+import { sql, type Transaction } from 'kysely';
+import type { Database } from '../../db/types.ts';
+import { write } from '../register/transaction.ts';
+import { RegisterError } from '../register/errors.ts';
+import type { ActorInput, RegisterContext } from '../register/context.ts';
+import { analyse } from '../register/matching/analysis.ts';
+import { insertNameKeys } from '../register/state/derived.ts';
+import { STATE_TABLES, canonicalRow, toDbValues, type Row, type StateTable } from '../register/state/tables.ts';
+import type { Op } from '../register/state/change-set.ts';
+
+export interface ForgetOptions {
+  /** Allow erasing a counterparty recorded as an organisation (default: refused; the right applies to persons). */
+  allowOrganisation?: boolean;
+}
+
+export interface ForgetResult {
+  eventId: number;
+  counterpartyId: number;
+  /** The counterparty ids erased: the one asked for, its survivor and every id merged into it. */
+  counterpartyIds: number[];
+  pseudonym: string;
+  /** State rows rewritten per table. */
+  rows: Record<string, number>;
+  /** History events whose payload was rewritten. */
+  events: number;
+  /** Idempotency records and job rows whose stored answers were rewritten. */
+  storedAnswers: number;
+}
+
+/**
+ * Values shorter than this are not replaced anywhere (a three-character value would hit unrelated text, and
+ * timestamps inside row images); the rule is the same for state rows and history, so replay stays exact.
+ */
+const MIN_SECRET = 4;
+
+export async function forgetCounterparty(ctx: RegisterContext, counterpartyId: number, who: ActorInput, options: ForgetOptions = {}): Promise<ForgetResult> {
+  return write(ctx, async (cs) => {
+    const trx = cs.trx;
+    const cluster = await clusterOf(trx, counterpartyId);
+    const rows = await cs.lock('counterparty', cluster);
+    const survivor = rows.find((r) => r.status === 'active');
+    if (!survivor) throw new RegisterError('NOT_FOUND', `counterparty ${counterpartyId} does not exist`, { counterpartyId });
+    if (survivor.kind === 'organisation' && !options.allowOrganisation) {
+      throw new RegisterError(
+        'CONFLICT',
+        `counterparty ${counterpartyId} is recorded as an organisation; erasure is for natural persons (pass allowOrganisation / --organisation to erase it anyway)`,
+        { counterpartyId },
+      );
+    }
+    const token = randomBytes(4).toString('hex').toUpperCase();
+    const pseudonym = `Forgotten Person ${token}`;
+    const mentionIds = (await trx.selectFrom('mention').select('id').where('counterparty_id', 'in', cluster).execute()).map((r) => Number(r.id));
+    const secrets = await collectSecrets(trx, cluster, mentionIds, pseudonym, token);
+    const replace = replacer(secrets);
+
+    const rowCounts: Record<string, number> = {};
+    for (const table of STATE_TABLES) {
+      const changed = await rewriteTable(trx, table, cluster, mentionIds, secrets, replace);
+      if (changed.length > 0) rowCounts[table] = changed.length;
+      if (table === 'counterparty_name') await rebuildKeys(trx, changed, ctx);
+    }
+    const events = await rewriteHistory(trx, cluster, mentionIds, secrets, replace);
+    const storedAnswers = await rewriteStoredAnswers(trx, secrets, replace);
+
+    const at = ctx.now();
+    const details = { counterpartyId: Number(survivor.id), counterpartyIds: cluster, pseudonym, rows: rowCounts, events, storedAnswers };
+    const event = await trx
+      .insertInto('history_event')
+      .values({
+        type: 'forgotten',
+        actor: who.actor,
+        at: at.toISOString(),
+        reason: who.reason ?? null,
+        payload: JSON.stringify({ details, ops: [] satisfies Op[] }),
+        counterparty_ids: cluster,
+        mention_ids: [],
+        undoes_event_id: null,
+        request_id: who.requestId ?? null,
+      })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    return { eventId: Number(event.id), ...details };
+  });
+}
+
+/** The survivor of `id` and every counterparty whose redirect chain ends in it. */
+async function clusterOf(trx: Transaction<Database>, id: number): Promise<number[]> {
+  const all = await trx.selectFrom('counterparty').select(['id', 'merged_into']).execute();
+  const next = new Map(all.map((r) => [Number(r.id), r.merged_into === null ? null : Number(r.merged_into)]));
+  if (!next.has(id)) return [];
+  const end = (start: number): number => {
+    let at = start;
+    for (let hops = 0; hops <= next.size; hops++) {
+      const to = next.get(at);
+      if (to === null || to === undefined) return at;
+      at = to;
+    }
+    return at;
+  };
+  const survivor = end(id);
+  return [...next.keys()].filter((k) => end(k) === survivor).sort((a, b) => a - b);
+}
+
+type Secrets = Map<string, string>;
+
+/** Every personal value of the cluster, now and in its history, with its replacement. */
+async function collectSecrets(trx: Transaction<Database>, cluster: number[], mentionIds: number[], pseudonym: string, token: string): Promise<Secrets> {
+  const secrets: Secrets = new Map();
+  let identifierCount = 0;
+  let nameCount = 0;
+  // Each distinct name gets its own pseudonym (names are unique per counterparty and kind); its normalised
+  // form gets the pseudonym's normalised form, so blocking keys and the name stay in step.
+  const addName = (value: unknown, normalised?: unknown) => {
+    if (typeof value !== 'string' || value.trim() === '') return;
+    let replacement = secrets.get(value);
+    if (replacement === undefined) {
+      replacement = nameCount === 0 ? pseudonym : `${pseudonym} ${nameCount + 1}`;
+      nameCount++;
+      secrets.set(value, replacement);
+    }
+    if (typeof normalised === 'string' && normalised.trim() !== '' && !secrets.has(normalised)) secrets.set(normalised, analyse(replacement).normalised);
+  };
+  const addIdentifier = (value: unknown) => {
+    if (typeof value === 'string' && value.trim() !== '' && !secrets.has(value)) secrets.set(value, `forgotten-${token}-${++identifierCount}`);
+  };
+  const addAddress = (value: unknown) => {
+    if (typeof value === 'string' && value.trim() !== '' && !secrets.has(value)) secrets.set(value, `[address forgotten ${token}]`);
+  };
+  const inCluster = (value: unknown) => value !== null && value !== undefined && cluster.includes(Number(value));
+  const mentionSet = new Set(mentionIds);
+  const visit = (table: string, row: Row | undefined, refs: Row = {}) => {
+    if (!row) return;
+    const cp = row.counterparty_id ?? refs.counterparty_id;
+    if (table === 'counterparty' && inCluster(row.id ?? refs.id)) addName(row.canonical_name);
+    if (table === 'counterparty_name' && inCluster(cp)) {
+      addName(row.name, row.normalised);
+    }
+    if (table === 'counterparty_identifier' && inCluster(cp)) addIdentifier(row.value);
+    if (table === 'mention' && (inCluster(cp) || mentionSet.has(Number(row.id ?? refs.id)))) {
+      addName(row.text);
+      addAddress(row.address);
+      for (const identifier of (Array.isArray(row.identifiers) ? row.identifiers : []) as { value?: unknown }[]) addIdentifier(identifier.value);
+    }
+  };
+  // Current state first (identifier values stored normalised), then everything the history ever held.
+  for (const table of ['counterparty', 'counterparty_name', 'counterparty_identifier'] as const) {
+    const column = table === 'counterparty' ? 'id' : 'counterparty_id';
+    const result = await sql<Row>`SELECT * FROM ${sql.table(table)} WHERE ${sql.ref(column)} IN (${sql.join(cluster)}) ORDER BY id`.execute(trx);
+    for (const row of result.rows) visit(table, canonicalRow(table, row));
+  }
+  if (mentionIds.length > 0) {
+    const result = await sql<Row>`SELECT * FROM mention WHERE id IN (${sql.join(mentionIds)}) ORDER BY id`.execute(trx);
+    for (const row of result.rows) visit('mention', canonicalRow('mention', row));
+  }
+  for await (const event of historyTouching(trx, cluster, mentionIds)) {
+    for (const op of (event.payload as { ops?: Op[] }).ops ?? []) {
+      if (op.op === 'update') {
+        visit(op.table, { ...op.refs, ...op.before, id: op.id }, op.refs);
+        visit(op.table, { ...op.refs, ...op.after, id: op.id }, op.refs);
+      } else visit(op.table, op.row);
+    }
+  }
+  return secrets;
+}
+
+async function* historyTouching(trx: Transaction<Database>, cluster: number[], mentionIds: number[]) {
+  let after = 0;
+  for (;;) {
+    const page = await trx
+      .selectFrom('history_event')
+      .select(['id', 'payload'])
+      .where('id', '>', after)
+      .where((eb) =>
+        eb.or([
+          sql<boolean>`counterparty_ids && ${sql.val(cluster)}::bigint[]`,
+          ...(mentionIds.length > 0 ? [sql<boolean>`mention_ids && ${sql.val(mentionIds)}::bigint[]`] : []),
+        ]),
+      )
+      .orderBy('id')
+      .limit(500)
+      .execute();
+    if (page.length === 0) return;
+    for (const event of page) yield { id: Number(event.id), payload: typeof event.payload === 'string' ? JSON.parse(event.payload) : event.payload };
+    after = Number(page[page.length - 1]!.id);
+  }
+}
+
+/** A deep string replacement of every secret (longest first, so a full name goes before a part of it). */
+function replacer(secrets: Secrets): (value: unknown) => unknown {
+  const ordered = [...secrets.entries()].filter(([from]) => from.length >= MIN_SECRET).sort((a, b) => b[0].length - a[0].length);
+  const inString = (text: string): string => {
+    let out = text;
+    for (const [from, to] of ordered) if (out.includes(from)) out = out.split(from).join(to);
+    return out;
+  };
+  const deep = (value: unknown): unknown => {
+    if (typeof value === 'string') return inString(value);
+    if (Array.isArray(value)) return value.map(deep);
+    if (value && typeof value === 'object') {
+      const out: Record<string, unknown> = {};
+      for (const [k, v] of Object.entries(value)) out[k] = deep(v);
+      return out;
+    }
+    return value;
+  };
+  return deep;
+}
+
+/** A SQL condition: the JSON text of `expr` contains one of the secrets (written as JSON escapes them). */
+function containsAny(expr: ReturnType<typeof sql>, secrets: Secrets) {
+  const needles = [...secrets.keys()].filter((s) => s.length >= MIN_SECRET).map((s) => JSON.stringify(s).slice(1, -1));
+  if (needles.length === 0) return sql<boolean>`false`;
+  return sql<boolean>`(${sql.join(needles.map((n) => sql`strpos(${expr}, ${n}) > 0`), sql` OR `)})`;
+}
+
+async function rewriteTable(
+  trx: Transaction<Database>,
+  table: StateTable,
+  cluster: number[],
+  mentionIds: number[],
+  secrets: Secrets,
+  replace: (value: unknown) => unknown,
+): Promise<Row[]> {
+  const own =
+    table === 'counterparty'
+      ? sql`id IN (${sql.join(cluster)})`
+      : table === 'counterparty_name' || table === 'counterparty_identifier'
+        ? sql`counterparty_id IN (${sql.join(cluster)})`
+        : table === 'mention' && mentionIds.length > 0
+          ? sql`id IN (${sql.join(mentionIds)})`
+          : sql`false`;
+  const result = await sql<Row>`SELECT * FROM ${sql.table(table)} t WHERE ${own} OR ${containsAny(sql`row_to_json(t)::text`, secrets)} ORDER BY id FOR UPDATE`.execute(trx);
+  const changed: Row[] = [];
+  for (const raw of result.rows) {
+    const before = canonicalRow(table, raw);
+    const after = replace(before) as Row;
+    const patch: Row = {};
+    for (const column of Object.keys(before)) if (JSON.stringify(before[column]) !== JSON.stringify(after[column])) patch[column] = after[column];
+    if (Object.keys(patch).length === 0) continue;
+    await trx
+      .updateTable(table as 'counterparty')
+      .set(toDbValues(table, patch) as never)
+      .where('id', '=', before.id as number)
+      .execute();
+    changed.push(after);
+  }
+  return changed;
+}
+
+async function rebuildKeys(trx: Transaction<Database>, names: Row[], ctx: RegisterContext): Promise<void> {
+  for (const row of names) {
+    await trx.deleteFrom('blocking_key').where('name_id', '=', row.id as number).execute();
+    await insertNameKeys(trx, row, ctx.derived);
+  }
+}
+
+async function rewriteHistory(trx: Transaction<Database>, cluster: number[], mentionIds: number[], secrets: Secrets, replace: (value: unknown) => unknown): Promise<number> {
+  const result = await sql<{ id: number; payload: unknown }>`
+    SELECT id, payload FROM history_event
+    WHERE counterparty_ids && ${sql.val(cluster)}::bigint[]
+      ${mentionIds.length > 0 ? sql`OR mention_ids && ${sql.val(mentionIds)}::bigint[]` : sql``}
+      OR ${containsAny(sql`payload::text`, secrets)}
+      OR ${containsAny(sql`coalesce(reason, '')`, secrets)}
+    ORDER BY id FOR UPDATE`.execute(trx);
+  let count = 0;
+  // The append-only trigger lets rows through only with this set, for this transaction alone.
+  await sql`SELECT set_config('cpreg.history_rewrite', 'on', true)`.execute(trx);
+  for (const row of result.rows) {
+    const payload = typeof row.payload === 'string' ? JSON.parse(row.payload) : row.payload;
+    const rewritten = replace(payload);
+    const current = await trx.selectFrom('history_event').select('reason').where('id', '=', Number(row.id)).executeTakeFirstOrThrow();
+    const reason = current.reason === null ? null : (replace(current.reason) as string);
+    if (JSON.stringify(rewritten) === JSON.stringify(payload) && reason === current.reason) continue;
+    await trx.updateTable('history_event').set({ payload: JSON.stringify(rewritten), reason }).where('id', '=', Number(row.id)).execute();
+    count++;
+  }
+  return count;
+}
+
+/** Answers kept for idempotent retries and job results may quote the person: rewritten too. */
+async function rewriteStoredAnswers(trx: Transaction<Database>, secrets: Secrets, replace: (value: unknown) => unknown): Promise<number> {
+  let count = 0;
+  const records = await sql<{ key_id: string; idempotency_key: string; response: unknown }>`
+    SELECT key_id, idempotency_key, response FROM idempotency_record WHERE response IS NOT NULL AND ${containsAny(sql`response::text`, secrets)} FOR UPDATE`.execute(trx);
+  for (const r of records.rows) {
+    const response = typeof r.response === 'string' ? JSON.parse(r.response) : r.response;
+    await trx
+      .updateTable('idempotency_record')
+      .set({ response: JSON.stringify(replace(response)) })
+      .where('key_id', '=', r.key_id)
+      .where('idempotency_key', '=', r.idempotency_key)
+      .execute();
+    count++;
+  }
+  const jobs = await sql<{ id: number; params: unknown; result: unknown }>`
+    SELECT id, params, result FROM job WHERE ${containsAny(sql`coalesce(result::text, '') || params::text`, secrets)} FOR UPDATE`.execute(trx);
+  for (const j of jobs.rows) {
+    const parse = (v: unknown) => (typeof v === 'string' ? JSON.parse(v) : v);
+    await trx
+      .updateTable('job')
+      .set({ params: JSON.stringify(replace(parse(j.params))), result: j.result === null ? null : JSON.stringify(replace(parse(j.result))) })
+      .where('id', '=', Number(j.id))
+      .execute();
+    count++;
+  }
+  return count;
+}

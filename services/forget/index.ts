@@ -1,0 +1,1 @@
+export { forgetCounterparty, type ForgetOptions, type ForgetResult } from './forget.ts';
