@@ -7,9 +7,11 @@ import type { RoutePlugin } from '../types.ts';
 import { healthRoutes } from './health.ts';
 import { documentationRoutes } from './documentation.ts';
 import { V1_ROUTES } from './v1/index.ts';
+import { forgetRoutes } from './forget.ts';
 
 export const ROUTES: RoutePlugin[] = [
   healthRoutes,
   documentationRoutes,
   ...V1_ROUTES,
+  forgetRoutes,
 ];

@@ -18,6 +18,7 @@ import ownEntities from './own-entities.ts';
 import reresolve from './reresolve.ts';
 import sweep from './sweep.ts';
 import verify from './verify.ts';
+import forget from './forget.ts';
 
 export const COMMANDS: Array<(program: Command) => void> = [
   analyse,
@@ -35,4 +36,5 @@ export const COMMANDS: Array<(program: Command) => void> = [
   reresolve,
   sweep,
   verify,
+  forget,
 ];
