@@ -4,19 +4,32 @@
 
 const TAU = Math.PI * 2;
 
-/** Spreads angles (sorted) so that neighbours are at least `gap` apart, keeping their order and mean. */
+/**
+ * Spreads angles so that neighbours around the circle are at least `gap` apart, keeping their order and their
+ * mean (a crowd of parties at one contract fans out around it instead of piling up).
+ */
 export function spreadAngles(angles, gap) {
   const n = angles.length;
   if (n === 0) return [];
   if (gap * n >= TAU) return angles.map((_, i) => (i * TAU) / n);
-  const order = angles.map((a, i) => ({ a: ((a % TAU) + TAU) % TAU, i })).sort((x, y) => x.a - y.a);
-  // Push forward, then pull the whole run back by the drift so the mean stays near where it was.
-  const out = order.map((o) => o.a);
-  for (let pass = 0; pass < 3; pass++) {
-    for (let k = 1; k < n; k++) if (out[k] - out[k - 1] < gap) out[k] = out[k - 1] + gap;
-    const overflow = out[n - 1] - (out[0] + TAU - gap);
-    if (overflow > 0) for (let k = 0; k < n; k++) out[k] -= overflow * ((k + 1) / n);
+  const sorted = angles.map((a, i) => ({ a: ((a % TAU) + TAU) % TAU, i })).sort((x, y) => x.a - y.a);
+  // Cut the circle at its widest empty stretch, so the run to spread has no wrap-around inside it.
+  let cut = 0;
+  let widest = sorted[0].a + TAU - sorted[n - 1].a;
+  for (let k = 1; k < n; k++) {
+    if (sorted[k].a - sorted[k - 1].a > widest) {
+      widest = sorted[k].a - sorted[k - 1].a;
+      cut = k;
+    }
   }
+  const order = [...sorted.slice(cut), ...sorted.slice(0, cut).map((o) => ({ a: o.a + TAU, i: o.i }))];
+  let out = order.map((o) => o.a);
+  for (let k = 1; k < n; k++) if (out[k] - out[k - 1] < gap) out[k] = out[k - 1] + gap;
+  // Pushing moved the run forward: move it back so its mean is where the wanted angles' mean was.
+  const shift = order.reduce((sum, o) => sum + o.a, 0) / n - out.reduce((sum, a) => sum + a, 0) / n;
+  out = out.map((a) => a + shift);
+  // A run that reaches round to its own start is spaced evenly instead.
+  if (out[n - 1] - out[0] > TAU - gap) out = out.map((_, k) => out[0] + (k * TAU) / n);
   const result = new Array(n);
   order.forEach((o, k) => (result[o.i] = out[k]));
   return result;

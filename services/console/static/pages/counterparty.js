@@ -148,10 +148,7 @@ export async function render(main, { params, session, navigate }) {
 
   // ---- history timeline
   const undone = new Set(historyPage.items.filter((e) => e.undoesEventId).map((e) => e.undoesEventId));
-  const timeline = h(
-    'ol',
-    { class: 'timeline', id: 'history' },
-    historyPage.items.map((event) => {
+  const eventItem = (event) => {
       const undoable = canUndo && !NOT_UNDOABLE.has(event.type) && !undone.has(event.id);
       return h(
         'li',
@@ -162,8 +159,25 @@ export async function render(main, { params, session, navigate }) {
         evidence(event),
         undoable ? h('button', { type: 'button', class: 'small', dataset: { undo: String(event.id) }, onclick: () => undo(event) }, 'Undo') : null,
       );
-    }),
-  );
+  };
+  const timeline = h('ol', { class: 'timeline', id: 'history' }, historyPage.items.map(eventItem));
+  // Older changes, a page at a time (newest first).
+  let olderCursor = historyPage.nextCursor;
+  const older = h('button', { type: 'button', class: 'small', id: 'history-older', hidden: !olderCursor }, 'Show older changes');
+  older.addEventListener('click', async () => {
+    older.disabled = true;
+    try {
+      const { data } = await api(`/v1/counterparties/${cp.id}/history?limit=50&cursor=${encodeURIComponent(olderCursor)}`);
+      for (const e of data.items) if (e.undoesEventId) undone.add(e.undoesEventId);
+      timeline.append(...data.items.map(eventItem));
+      olderCursor = data.nextCursor;
+      older.hidden = !olderCursor;
+    } catch (error) {
+      older.after(errorBox(error, 'Could not read older changes'));
+    } finally {
+      older.disabled = false;
+    }
+  });
   async function undo(event) {
     const ok = await confirmChange({
       title: `Undo change ${event.id}`,
@@ -184,6 +198,7 @@ export async function render(main, { params, session, navigate }) {
       'div',
       { class: 'cp-head' },
       h('p', { class: 'crumbs' }, h('a', { href: '#/search' }, 'Search'), ' › counterparty'),
+      cp.id !== requested ? h('p', { class: 'ok', id: 'merged-notice' }, `Counterparty #${requested} was merged into #${cp.id}; this is #${cp.id}.`) : null,
       pageTitle(cp.canonicalName),
       h('p', { class: 'cp-badges' }, legalFormBadge(legalForm), jurisdictionBadge(cp.jurisdiction), h('span', { class: 'badge' }, cp.kind), h('span', { class: 'badge' }, `#${cp.id}`), h('span', { class: 'badge' }, plural(cp.mentionCount, 'mention')), h('span', { class: 'badge' }, plural(cp.contracts.length, 'contract'))),
       h('p', { class: 'cp-actions' }, h('a', { class: 'button', href: `#/network/${cp.id}`, id: 'open-network' }, 'Network'), canMerge ? null : h('span', { class: 'muted' }, `Your key (${session.me.scope}) may read; merging and splitting need an admin key.`)),
@@ -197,7 +212,7 @@ export async function render(main, { params, session, navigate }) {
       mergePanel ? section('Merge', mergePanel) : null,
     ),
     section(`Mentions (${mentions.items.length}${mentions.nextCursor ? '+' : ''})`, canSplit ? h('p', { class: 'toolbar' }, splitButton) : null, mentionsTable),
-    section('History', historyPage.items.length ? timeline : h('p', { class: 'empty' }, 'No history.')),
+    section('History', historyPage.items.length ? timeline : h('p', { class: 'empty' }, 'No history.'), older),
   );
   main.querySelector('h1').focus();
 }
