@@ -167,6 +167,9 @@ describe('review console in chromium', () => {
   it('signs in with an API key and shows what its scope allows', async () => {
     await page.goto(`${base}/console/`);
     await page.waitForSelector('#api-key', { timeout: STEP_MS });
+    // Nothing but the sign-in form before a key is given.
+    expect(await page.isVisible('#nav')).toBe(false);
+    expect(await page.isVisible('#who')).toBe(false);
     await shot('01-signin');
     // A wrong key is refused in plain words with the problem's code.
     await page.fill('#api-key', 'not-a-key');
@@ -180,6 +183,7 @@ describe('review console in chromium', () => {
     await page.waitForSelector('#search-box', { timeout: STEP_MS });
     expect(await page.textContent('#who')).toContain('R. Okafor (legal ops)');
     expect(await page.textContent('#who .scope')).toBe('admin');
+    expect(await page.isVisible('#nav')).toBe(true);
     // The key is kept for this browser session only.
     expect(await page.evaluate(() => [sessionStorage.length, localStorage.length])).toEqual([1, 0]);
   }, TEST_MS);
