@@ -19,6 +19,8 @@ import reresolve from './reresolve.ts';
 import sweep from './sweep.ts';
 import verify from './verify.ts';
 import forget from './forget.ts';
+import backup from './backup.ts';
+import restore from './restore.ts';
 
 export const COMMANDS: Array<(program: Command) => void> = [
   analyse,
@@ -37,4 +39,6 @@ export const COMMANDS: Array<(program: Command) => void> = [
   sweep,
   verify,
   forget,
+  backup,
+  restore,
 ];

@@ -1,0 +1,1 @@
+export { backupEmbedded, restoreEmbedded, BackupError, PG_DUMP_HINT, type BackupResult, type RestoreResult } from './backup.ts';
