@@ -82,7 +82,7 @@ export async function restoreEmbedded(file: string, target: string | undefined, 
   const staging = join(dirname(dir), `.${basename(dir)}.restoring-${process.pid}`);
   rmSync(staging, { recursive: true, force: true });
   try {
-    const opened = await openDatabase(staging, { command: 'cpreg restore', loadDataDir: new Blob([tar]) });
+    const opened = await openDatabase(staging, { command: 'cpreg restore', loadDataDir: new Blob([new Uint8Array(tar)]) });
     await opened.close(); // opened once: the archive is a database PGlite accepts
     if (exists) {
       const old = join(dirname(dir), `.${basename(dir)}.replaced-${process.pid}`);
