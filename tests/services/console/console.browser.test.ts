@@ -373,10 +373,21 @@ describe('review console in chromium', () => {
       }
     }
     expect(chosen, 'some counterparty of the scenario should share a contract with another').toBeDefined();
+    // A relation (recorded through the API) shows as a named node too.
+    const network = (await apiGet<{ parties: { counterpartyId: number | null }[] }>(`/v1/counterparties/${chosen}/network`)).body;
+    const related = all.find((c) => c.id !== chosen && !network.parties.some((p) => p.counterpartyId === c.id))!;
+    const added = await fetch(`${base}/v1/counterparties/${chosen}/relations`, {
+      method: 'POST',
+      headers: { authorization: `Bearer ${adminKey}`, 'content-type': 'application/json' },
+      body: JSON.stringify({ toId: related.id, type: 'parent_of', reason: 'group structure' }),
+    });
+    expect(added.status).toBe(201);
     await go(`/counterparty/${chosen}`);
     await page.click('#open-network');
     await page.waitForSelector('#network-graph', { timeout: STEP_MS });
     expect(await page.$$eval('#network-graph .node-contract', (n) => n.length)).toBeGreaterThan(0);
+    expect(await page.$$eval('#network-graph .edge-relation', (n) => n.length)).toBe(1);
+    expect(await page.textContent(`#network-graph [data-node="cp${related.id}"] title`)).toContain(related.canonicalName);
     await shot('11-network');
     const node = await page.$('#network-graph a.node-counterparty');
     const href = (await node!.getAttribute('href'))!;

@@ -33,24 +33,34 @@ function drawNode(node, cx) {
 }
 
 /**
- * The box around the nodes, centred on the counterparty, with room for labels on both sides; at least
+ * The box around the nodes, centred across on the counterparty, with room for labels on both sides; at least
  * 3.4 label widths wide and 320 high (a small graph is not blown up).
  */
 function fittedViewBox(nodes, labelRoom) {
   const self = nodes[0];
   const halfX = Math.max(labelRoom * 1.7, ...nodes.map((n) => Math.abs(n.x - self.x) + labelRoom));
-  const halfY = Math.max(160, ...nodes.map((n) => Math.abs(n.y - self.y) + 44));
-  return { x: self.x - halfX, y: self.y - halfY, width: 2 * halfX, height: 2 * halfY };
+  // Vertically only what is drawn (a counterparty with one contract has everything on one side).
+  let y0 = Math.min(...nodes.map((n) => n.y)) - 40;
+  let y1 = Math.max(...nodes.map((n) => n.y)) + 62;
+  if (y1 - y0 < 320) [y0, y1] = [(y0 + y1) / 2 - 160, (y0 + y1) / 2 + 160];
+  return { x: self.x - halfX, y: y0, width: 2 * halfX, height: y1 - y0 };
 }
 
 export async function render(main, { params }) {
   const id = Number(params[0]);
   const { data } = await api(`/v1/counterparties/${id}/network`);
+  // Relations carry ids only: read the names of related counterparties that share no contract (a few at most).
+  const named = new Map(data.parties.filter((p) => p.counterpartyId !== null).map((p) => [p.counterpartyId, p.name]));
+  const relatedIds = [...new Set((data.relations ?? []).map((r) => (r.fromCounterpartyId === data.counterparty.id ? r.toCounterpartyId : r.fromCounterpartyId)))].filter((x) => !named.has(x)).slice(0, 20);
+  const relatedNames = new Map(
+    await Promise.all(relatedIds.map((x) => api(`/v1/counterparties/${x}`).then((r) => [x, r.data.canonicalName], () => [x, `counterparty #${x}`]))),
+  );
   if (data.counterparty.id !== id) history.replaceState(null, '', `#/network/${data.counterparty.id}`);
   // A narrow window gets a portrait layout with shorter labels, drawn at a readable size inside a pane
   // that scrolls sideways (the page itself does not).
   const compact = main.clientWidth < 700;
   const layout = compact ? layoutNetwork(data, { width: 520, height: 760 }) : layoutNetwork(data, { width: 1000, height: 720 });
+  for (const node of layout.nodes) if (node.kind === 'counterparty' && relatedNames.has(node.id)) node.label = relatedNames.get(node.id);
   labelLength = compact ? 18 : 26;
   const box = fittedViewBox(layout.nodes, compact ? 150 : 215);
   const at = new Map(layout.nodes.map((n) => [n.key, n]));
@@ -61,7 +71,9 @@ export async function render(main, { params }) {
       const a = at.get(e.from);
       const b = at.get(e.to);
       if (!a || !b) return null;
-      return s('line', { x1: a.x, y1: a.y, x2: b.x, y2: b.y, class: `edge edge-${e.kind}` }, s('title', null, e.label));
+      const line = s('line', { x1: a.x, y1: a.y, x2: b.x, y2: b.y, class: `edge edge-${e.kind}` }, s('title', null, e.label));
+      // Relations are few and say something a contract edge does not: their type is written on them.
+      return e.kind === 'relation' ? [line, s('text', { x: (a.x + b.x) / 2, y: (a.y + b.y) / 2 - 4, 'text-anchor': 'middle', class: 'edge-label' }, e.label)] : line;
     })),
     s('g', { class: 'nodes' }, layout.nodes.map((n) => drawNode(n, layout.width / 2))),
   );
@@ -80,6 +92,14 @@ export async function render(main, { params }) {
     section(
       'The same, as a list',
       h('p', null, `${plural(layout.totalContracts, 'contract')}, ${plural(counterparties.length, 'other counterparty', 'other counterparties')}, ${plural(own.length, 'own entity', 'own entities')}.`),
+      (data.relations ?? []).length
+        ? h('p', null, 'Relations: ', data.relations.flatMap((r, i) => {
+            const outgoing = r.fromCounterpartyId === data.counterparty.id;
+            const other = outgoing ? r.toCounterpartyId : r.fromCounterpartyId;
+            const name = named.get(other) ?? relatedNames.get(other) ?? `#${other}`;
+            return [i ? '; ' : '', outgoing ? `${r.type.replaceAll('_', ' ')} ` : `${r.type.replaceAll('_', ' ')} (from) `, h('a', { href: `#/counterparty/${other}` }, name)];
+          }))
+        : null,
       h('ul', { class: 'plain-list' }, data.contracts.map((c) => h('li', null, h('a', { href: `#/contract/${c.contractId}` }, c.title ?? c.externalId), ` (${c.externalId}) as ${c.roles.join(', ') || '—'}: `, data.parties.filter((p) => p.contractId === c.contractId).flatMap((p, i) => [i ? '; ' : '', p.counterpartyId ? h('a', { href: `#/counterparty/${p.counterpartyId}` }, p.name) : `${p.name} (ours)`, p.role ? ` as ${p.role}` : ''])))),
     ),
   );
