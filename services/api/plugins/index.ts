@@ -7,8 +7,10 @@
 import type { AppPlugin } from '../types.ts';
 import { authPlugin } from '../auth/plugin.ts';
 import { idempotencyPlugin } from '../auth/idempotency.ts';
+import { wellFormedTextPlugin } from './well-formed-text.ts';
 
 export const APP_PLUGINS: AppPlugin[] = [
   authPlugin,
   idempotencyPlugin,
+  wellFormedTextPlugin,
 ];
