@@ -28,6 +28,9 @@ const ROUTES = [
 ];
 
 let cleanup = null;
+// Each navigation renders into a fresh container; a page still loading when the person moves on writes into its
+// own detached container and its cleanup runs at once (see route()).
+let generation = 0;
 
 function parseHash() {
   const raw = location.hash.replace(/^#/, '') || '/search';
@@ -87,6 +90,7 @@ async function route() {
     if (storedKey() && path === '/signin') forgetKey();
     session.me = null;
     showWho();
+    generation++;
     cleanup = signin.render(main, { query, session, onSignedIn: afterSignIn }) ?? null;
     return;
   }
@@ -107,11 +111,15 @@ async function route() {
     replace(main, h('h1', { tabindex: '-1' }, 'Not here'), h('p', null, 'No page has this address. ', h('a', { href: '#/search' }, 'Go to search')));
     return;
   }
-  replace(main, h('p', { class: 'loading' }, 'Loading…'));
+  const mine = ++generation;
+  const view = h('div', { class: 'view' }, h('p', { class: 'loading' }, 'Loading…'));
+  replace(main, view);
   try {
-    cleanup = (await match.r.page.render(main, { params: match.m.slice(1), query, session, navigate })) ?? null;
+    const done = (await match.r.page.render(view, { params: match.m.slice(1), query, session, navigate })) ?? null;
+    if (mine === generation) cleanup = done;
+    else done?.();
   } catch (error) {
-    replace(main, errorBox(error, 'Could not show this page'));
+    if (mine === generation) replace(view, errorBox(error, 'Could not show this page'));
   }
 }
 

@@ -226,7 +226,7 @@ export async function render(main, { session }) {
   differentButton.addEventListener('click', () => decide('different'));
   skipButton.addEventListener('click', skip);
   const onKey = (event) => {
-    if (event.ctrlKey || event.metaKey || event.altKey) return;
+    if (!stage.isConnected || event.ctrlKey || event.metaKey || event.altKey) return;
     const target = event.target;
     const typing = target instanceof HTMLTextAreaElement || target instanceof HTMLInputElement || target.isContentEditable;
     if (typing) {
@@ -252,8 +252,14 @@ export async function render(main, { session }) {
   // Wide windows: the score beside the decision, so both fit above the fold with the pair.
   replace(main, pageTitle('Review queue'), counter, stage, h('div', { class: 'review-lower' }, scoreSlot, h('div', { class: 'decide-column' }, controls, outcome)));
   stage.setAttribute('tabindex', '-1');
-  await fetchMore();
-  await showNext();
+  const stop = () => document.removeEventListener('keydown', onKey);
+  try {
+    await fetchMore();
+    await showNext();
+  } catch (error) {
+    stop();
+    throw error;
+  }
   main.querySelector('h1').focus();
-  return () => document.removeEventListener('keydown', onKey);
+  return stop;
 }
