@@ -49,9 +49,6 @@ export async function runDemoCommand(options: DemoCliOptions): Promise<void> {
   const state = readState(filesDir);
   const seed = options.seed ?? state?.seed ?? 1;
   const scenario = generateScenario(seed);
-  mkdirSync(filesDir, { recursive: true });
-  await writeScenario(filesDir, scenario);
-  writeFileSync(join(filesDir, STATE_FILE), `${JSON.stringify({ seed }, null, 2)}\n`);
 
   const { DatabaseOpenError } = await import('../../db/database-errors.ts');
   const { DatabaseLockedError } = await import('../../db/lock.ts');
@@ -80,6 +77,10 @@ export async function runDemoCommand(options: DemoCliOptions): Promise<void> {
     if (built === 'other') {
       throw new CliError(`${dbDir} holds a demo built from another scenario; add --fresh to rebuild it with seed ${seed}`);
     }
+    // Written only once the database is known to hold (or to be about to hold) this scenario.
+    mkdirSync(filesDir, { recursive: true });
+    await writeScenario(filesDir, scenario);
+    writeFileSync(join(filesDir, STATE_FILE), `${JSON.stringify({ seed }, null, 2)}\n`);
     if (built === 'complete') {
       note(`cpreg demo: reusing the demo database in ${dbDir} (seed ${seed}; --fresh rebuilds it)`);
     } else {
