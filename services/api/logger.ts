@@ -3,6 +3,7 @@
  * Authorization and cookie headers are redacted wherever they appear.
  */
 import type { LoggerOptions } from 'pino';
+import { maskedError, maskedRequest, maskSensitive } from './log-mask.ts';
 
 export const REDACTED_PATHS = [
   'req.headers.authorization',
@@ -17,5 +18,19 @@ export function loggerOptions(level: string = process.env.CPREG_LOG_LEVEL ?? 'in
   return {
     level,
     redact: { paths: REDACTED_PATHS, censor: '[redacted]' },
+    // API keys, IBANs and phone numbers never in full; query values not at all (log-mask.ts).
+    serializers: { req: maskedRequest, err: maskedError, error: maskedError },
+    formatters: {
+      log(object) {
+        const out: Record<string, unknown> = {};
+        for (const [key, value] of Object.entries(object)) out[key] = typeof value === 'string' ? maskSensitive(value) : value;
+        return out;
+      },
+    },
+    hooks: {
+      logMethod(args, method) {
+        method.apply(this, args.map((arg) => (typeof arg === 'string' ? maskSensitive(arg) : arg)) as Parameters<typeof method>);
+      },
+    },
   };
 }
