@@ -50,6 +50,8 @@ export interface ReconcileResult {
 /** Rows in one group beyond this are not paired with each other (a shared agent's account on hundreds of rows). */
 export const MAX_GROUP_FOR_PAIRS = 50;
 export const SIMILAR_WORD = 0.85;
+/** Name-comparison levels too weak to link a vendor on (the sweep's rule too). */
+const WEAK_NAME_LEVELS = new Set<string | null>(['low', 'none', null]);
 
 export async function readVendorMaster(file: string, map: VendorMap, onRow?: (n: number) => void): Promise<{ rows: VendorRow[]; rejected: { line: number; reason: string }[] }> {
   const parser = createReadStream(file).pipe(parse({ bom: true, relax_column_count: true, skip_empty_lines: true, info: true }));
@@ -122,6 +124,10 @@ async function matchVendor(db: Kysely<Database>, row: VendorRow, model: Awaited<
     const contactWeight = contact?.level === 'shared' ? (contact.weight ?? 0) : 0;
     const decisive = c.pair.override === 'decisive_identifier';
     if (c.pair.override === 'cannot_link') continue;
+    // Precision first: without a decisive identifier the names themselves must agree (as the sweep requires),
+    // whatever the other features add up to.
+    const nameLevel = c.pair.explanation.find((e) => e.feature === 'name')?.level ?? null;
+    if (!decisive && WEAK_NAME_LEVELS.has(nameLevel)) continue;
     if (decisive || c.score - contactWeight >= model.linkAt) {
       return { counterpartyId: c.counterpartyId, evidence: `name "${row.name}" ~ "${c.matchedName}" score ${(c.score - contactWeight).toFixed(2)} (link threshold ${model.linkAt})` };
     }

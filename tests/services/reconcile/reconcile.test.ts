@@ -66,7 +66,7 @@ describeEachBackend('reconcile', (ctx) => {
 
   it('reports every vendor that never signed as vendor_without_contract', () => {
     const without = new Set(findings.filter((f) => f.finding === 'vendor_without_contract').map((f) => f.vendorRowId));
-    for (const id of scenario.vendorMaster.truth.vendorsWithoutContract) expect(without.has(id), id).toBe(true);
+    for (const id of scenario.vendorMaster.truth.vendorsWithoutContract) expect(without.has(id), `${id}: ${JSON.stringify(findings.filter((f) => f.vendorRowId === id))}`).toBe(true);
   });
 
   it('reports contracting counterparties without a vendor row', async () => {
