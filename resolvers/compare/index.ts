@@ -1,4 +1,4 @@
-export { jaro, jaroWinkler, commonPrefixLength, WINKLER_PREFIX_SCALE, WINKLER_MAX_PREFIX } from './jaroWinkler.ts';
+export { jaro, jaroWinkler, jaroWinklerUpperBound, commonPrefixLength, WINKLER_PREFIX_SCALE, WINKLER_MAX_PREFIX } from './jaroWinkler.ts';
 export { buildIdfTable, idfTableFromFrequencies, smoothedIdf, type IdfTable } from './idfTable.ts';
 export {
   softTfIdf,

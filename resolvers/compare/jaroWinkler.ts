@@ -187,3 +187,21 @@ export function jaroWinkler(a: string, b: string): number {
   const l = commonPrefixLength(a, b);
   return j + l * WINKLER_PREFIX_SCALE * (1 - j);
 }
+
+/**
+ * The largest Jaro–Winkler similarity two DIFFERENT strings of these lengths can reach, from their lengths alone.
+ *
+ * Derivation (plain variant above): let s ≤ l be the two lengths and m the matched characters, m ≤ s. Then
+ *   Jaro = (m/s + m/l + (m − t)/m) / 3 ≤ (1 + s/l + 1) / 3 = J*,
+ * and JW = 1 − (1 − Jaro)(1 − ℓ·p) grows with Jaro and with the common prefix ℓ ≤ min(4, s), so
+ *   JW ≤ 1 − (1 − J*)(1 − min(4, s)·0.1) = 1 − (1 − s/l)/3 · (1 − min(4, s)·0.1).
+ * For θ = 0.9 and s ≥ 4 this says a pair can pass only when s/l ≥ 0.5. Used to skip token pairs that cannot
+ * reach a similarity threshold; the test checks the bound against the kernel on random strings.
+ */
+export function jaroWinklerUpperBound(lengthA: number, lengthB: number): number {
+  const s = lengthA < lengthB ? lengthA : lengthB;
+  const l = lengthA < lengthB ? lengthB : lengthA;
+  if (s === 0) return 0;
+  const prefix = s < WINKLER_MAX_PREFIX ? s : WINKLER_MAX_PREFIX;
+  return 1 - ((1 - s / l) / 3) * (1 - prefix * WINKLER_PREFIX_SCALE);
+}

@@ -18,7 +18,7 @@
  * - Two empty token lists give 0 (no evidence), not 1.
  */
 import type { IdfTable } from './idfTable.ts';
-import { jaroWinkler } from './jaroWinkler.ts';
+import { jaroWinkler, jaroWinklerUpperBound } from './jaroWinkler.ts';
 
 export const SOFT_TFIDF_DEFAULT_THRESHOLD = 0.9;
 
@@ -67,14 +67,41 @@ export function weighTokens(tokens: readonly string[], idf: IdfTable): WeightedT
 /** Jaro–Winkler of every token pair, row-major (|a| × |b|); module-level and grown as needed. */
 let similarities = new Float64Array(64);
 
-/** Fills `similarities` once for both directions: JW is symmetric (same prefix, same greedy matching). */
-function fillSimilarities(a: WeightedTokens, b: WeightedTokens): Float64Array {
-  const size = a.tokens.length * b.tokens.length;
+/**
+ * Margin under θ for the length bound: the bound and the kernel are computed in floating point, so a pair is
+ * skipped only when its bound is clearly below θ.
+ */
+const BOUND_MARGIN = 1e-9;
+
+/**
+ * Fills `similarities` once for both directions: JW is symmetric (same prefix, same greedy matching).
+ *
+ * A token pair whose lengths cannot reach θ (jaroWinklerUpperBound) is not compared and stored as 0: only a
+ * similarity above θ (or equal tokens) ever contributes, and a skipped pair's true similarity is below θ, hence
+ * below any similarity that counts, so neither the sum nor which token is chosen can change.
+ *
+ * No cache of token-pair similarities: one was tried (a map per token, bounded) and a lookup cost more than the
+ * bit-parallel kernel on a short token (CPU profile of 435,627 candidate pairs: 20 % of the time in the cache
+ * against 6 % in the kernel).
+ */
+function fillSimilarities(a: WeightedTokens, b: WeightedTokens, threshold: number): Float64Array {
+  const rows = a.tokens.length;
+  const columns = b.tokens.length;
+  const size = rows * columns;
   if (similarities.length < size) similarities = new Float64Array(Math.max(size, similarities.length * 2));
   const sims = similarities;
-  for (let i = 0; i < a.tokens.length; i++) {
+  const floor = threshold - BOUND_MARGIN;
+  for (let i = 0; i < rows; i++) {
     const token = a.tokens[i]!;
-    for (let j = 0; j < b.tokens.length; j++) sims[i * b.tokens.length + j] = jaroWinkler(token, b.tokens[j]!);
+    const length = token.length;
+    for (let j = 0; j < columns; j++) {
+      const other = b.tokens[j]!;
+      let sim: number;
+      if (token === other) sim = 1;
+      else if (jaroWinklerUpperBound(length, other.length) < floor) sim = 0;
+      else sim = jaroWinkler(token, other);
+      sims[i * columns + j] = sim;
+    }
   }
   return sims;
 }
@@ -112,7 +139,7 @@ function direction(
 }
 
 function symmetric(a: WeightedTokens, b: WeightedTokens, threshold: number, forward: SoftTfIdfMatch[] | null, backward: SoftTfIdfMatch[] | null): number {
-  const sims = fillSimilarities(a, b);
+  const sims = fillSimilarities(a, b, threshold);
   return (direction(a, b, sims, false, threshold, forward) + direction(b, a, sims, true, threshold, backward)) / 2;
 }
 

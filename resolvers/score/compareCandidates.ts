@@ -4,10 +4,10 @@
  */
 import type { CandidatePairs } from '../block/candidatePairs.ts';
 import type { MatchRecord } from '../block/matchRecord.ts';
-import type { IdfTable } from '../compare/index.ts';
+import { weighTokens, type IdfTable } from '../compare/index.ts';
 import type { IndexedPairs, ScoredEdge } from '../cluster/clusterRecords.ts';
 import type { Random } from '../prng.ts';
-import { compareRecords } from './compareRecords.ts';
+import { compareRecords, compareWeighted } from './compareRecords.ts';
 import type { ComparisonVector } from './em.ts';
 import { FEATURE_LEVELS, FEATURE_NAMES, levelIndices } from './features.ts';
 import { featureWeights, type MatchModel } from './matchModel.ts';
@@ -22,13 +22,27 @@ export interface ComparedPairs {
   overrides: Map<number, 'decisive_identifier' | 'cannot_link'>;
 }
 
+/** Level name → index in FEATURE_LEVELS, per feature (levelIndices without its per-pair arrays). */
+const levelIndex = Object.fromEntries(
+  FEATURE_NAMES.map((f) => [f, new Map((FEATURE_LEVELS[f] as readonly string[]).map((level, k) => [level, k]))]),
+) as Record<(typeof FEATURE_NAMES)[number], Map<string, number>>;
+
 export function compareCandidates(records: readonly MatchRecord[], pairs: CandidatePairs, idf: IdfTable): ComparedPairs {
   const width = FEATURE_NAMES.length;
   const levels = new Int8Array(pairs.count * width);
   const overrides = new Map<number, 'decisive_identifier' | 'cannot_link'>();
+  // Each record's weighted tokens once, not once per pair.
+  const weighted = records.map((r) => weighTokens(r.analysis.tokens, idf));
   for (let k = 0; k < pairs.count; k++) {
-    const c = compareRecords(records[pairs.left[k] as number] as MatchRecord, records[pairs.right[k] as number] as MatchRecord, idf);
-    levelIndices(c.levels).forEach((v, f) => (levels[k * width + f] = v === null ? MISSING : v));
+    const i = pairs.left[k] as number;
+    const j = pairs.right[k] as number;
+    const c = compareWeighted(records[i] as MatchRecord, records[j] as MatchRecord, weighted[i]!, weighted[j]!);
+    const row = k * width;
+    for (let f = 0; f < width; f++) {
+      const feature = FEATURE_NAMES[f]!;
+      const level = c.levels[feature];
+      levels[row + f] = level === null ? MISSING : levelIndex[feature].get(level)!;
+    }
     if (c.identifiers?.cannotLink) overrides.set(k, 'cannot_link');
     else if (c.identifiers?.decisive) overrides.set(k, 'decisive_identifier');
   }
