@@ -52,7 +52,7 @@ function summaryOf(c: ScoredCandidate) {
   return { counterpartyId: c.counterpartyId, name: c.canonicalName, matchedName: c.matchedName, score: jsonScore(c.score) };
 }
 
-async function ownEntityMatch(db: Queryable, probe: Probe, model: MatchModel): Promise<{ id: number; name: string; score: number } | undefined> {
+async function ownEntityMatch(db: Queryable, probe: Probe, model: MatchModel, partyIsOwn: boolean): Promise<{ id: number; name: string; score: number } | undefined> {
   const own = await listOwnEntities(db);
   if (own.length === 0) return undefined;
   const idf = await idfFor(db, probe.analysis.tokens);
@@ -65,7 +65,15 @@ async function ownEntityMatch(db: Queryable, probe: Probe, model: MatchModel): P
       identifiers: entity.identifiers as Identifier[],
     };
     const pair = scorePair(probeRecord(probe), record, model, idf);
-    if (pair.score >= model.linkAt && (!best || pair.score > best.score)) best = { id: entity.id, name: entity.name, score: pair.score };
+    if (pair.score === -Infinity) continue;
+    // Our own entity must never become a counterparty, so the bar is lower than for a link: a linking score, or
+    // the same core name with a legal form that does not conflict (a missing country alone keeps an exact name
+    // below linkAt), or the contract's own finding that this party is one of ours.
+    const level = (feature: string) => pair.explanation.find((e) => e.feature === feature)?.level ?? null;
+    const sameName = level('name') === 'exact' && level('legalForm') !== 'conflicting';
+    if (pair.score >= model.linkAt || sameName || partyIsOwn) {
+      if (!best || pair.score > best.score) best = { id: entity.id, name: entity.name, score: pair.score };
+    }
   }
   return best;
 }
@@ -130,7 +138,7 @@ export async function decide(
     return { status: 'not_a_party', score: null, recordName: false, evidence: { ...base, summary: `"${prepared.text}" does not name a party (name analysis)`, via: 'analysis' } };
   }
 
-  const own = await ownEntityMatch(db, probe, model);
+  const own = await ownEntityMatch(db, probe, model, context.party?.ownEntity === true);
   if (own || context.party?.ownEntity) {
     if (own) {
       return {

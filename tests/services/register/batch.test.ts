@@ -10,6 +10,8 @@ import { seededRandom } from '../../../resolvers/prng.ts';
 import { WHO } from './helpers.ts';
 
 const REGISTER = ['Larchmont Pottery Ltd', 'Vossberg Kältetechnik GmbH'];
+/** Countries of the batch items, in order (the model weighs an agreeing jurisdiction). */
+const COUNTRY = ['GB', 'GB', 'US', 'US', 'US', 'DE', 'NO', 'GB'];
 const BATCH: MentionInput[] = [
   'Larchmont Pottery Limited',
   'LARCHMONT POTTERY LTD',
@@ -19,13 +21,13 @@ const BATCH: MentionInput[] = [
   'Vossberg Kaeltetechnik GmbH',
   'Tidewell Fisheries AS',
   'we',
-].map((text, i) => ({ source: 'batch', externalId: `b${i}`, text }));
+].map((text, i) => ({ source: 'batch', externalId: `b${i}`, text, country: COUNTRY[i]! }));
 
 async function run(backend: 'pglite' | 'postgres', inputs: MentionInput[]) {
   const opened = await openTestDatabase(backend);
   try {
     const ctx = createRegisterContext(opened.db);
-    for (const [i, text] of REGISTER.entries()) await resolveMention(ctx, { source: 'seed', externalId: String(i), text }, WHO);
+    for (const [i, text] of REGISTER.entries()) await resolveMention(ctx, { source: 'seed', externalId: String(i), text, country: i === 0 ? 'GB' : 'DE' }, WHO);
     const results = await resolveBatch(ctx, inputs, WHO);
     expect(results).toHaveLength(inputs.length);
     return new Map(

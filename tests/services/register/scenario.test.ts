@@ -63,9 +63,11 @@ describeEachBackend('register scenario', (t) => {
     const viaTerm = await resolveMention(ctx, { source: 'erp', externalId: 'm-1', text: 'the Supplier', contract: { source: 'clm', externalId: 'C-1' } }, WHO);
     expect(viaTerm.status).toBe('linked');
     expect(viaTerm.explanation.via).toBe('defined_term');
+    // A misspelling is close but not certain: the built-in model sends it to a person, who confirms it.
     const typo = await resolveMention(ctx, { source: 'erp', externalId: 'm-2', text: 'Brackenridge Fabricaton Inc.', country: 'US-DE' }, WHO);
-    expect(typo.status).toBe('linked');
-    const ids = new Set([...partyIds, viaTerm.counterpartyId, typo.counterpartyId]);
+    expect(['linked', 'review']).toContain(typo.status);
+    const typoCounterparty = typo.status === 'review' ? (await decideReview(ctx, typo.reviewItemId!, { decision: 'same' }, WHO)).counterpartyId : typo.counterpartyId;
+    const ids = new Set([...partyIds, viaTerm.counterpartyId, typoCounterparty]);
     expect(ids.size).toBe(1);
     const [only] = [...ids];
     const view = await getCounterparty(ctx, only!);
