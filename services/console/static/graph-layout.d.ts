@@ -1,5 +1,6 @@
 // Types of graph-layout.js for the TypeScript tests (the console itself is plain JavaScript, no build step).
 export function spreadAngles(angles: number[], gap: number): number[];
+export function spreadLine(values: number[], gap: number): number[];
 
 export interface NetworkAnswer {
   counterparty: { id: number; canonicalName: string };
@@ -17,9 +18,18 @@ export interface LaidOutNode {
   x: number;
   y: number;
   href?: string;
+  labelAt?: 'below' | 'left' | 'right';
 }
 
 export function layoutNetwork(
   network: NetworkAnswer,
-  options?: { width?: number; height?: number; maxContracts?: number },
-): { nodes: LaidOutNode[]; edges: { from: string; to: string; kind: 'party' | 'relation'; label: string }[]; width: number; height: number; shownContracts: number; totalContracts: number };
+  options?: { width?: number; height?: number; maxContracts?: number; labelRoom?: number; radialUpTo?: number },
+): {
+  nodes: LaidOutNode[];
+  edges: { from: string; to: string; kind: 'party' | 'relation'; label: string }[];
+  bounds: { x: number; y: number; width: number; height: number };
+  width: number;
+  height: number;
+  shownContracts: number;
+  totalContracts: number;
+};

@@ -1,7 +1,7 @@
 /** The network view's layout helper (services/console/static/graph-layout.js): pure geometry, no browser. */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { layoutNetwork, spreadAngles, type NetworkAnswer } from '../../../services/console/static/graph-layout.js';
+import { layoutNetwork, spreadAngles, spreadLine, type NetworkAnswer } from '../../../services/console/static/graph-layout.js';
 
 const TAU = Math.PI * 2;
 
@@ -36,6 +36,15 @@ describe('spreadAngles', () => {
     const fanned = spreadAngles([1, 1, 1], 0.4);
     // Three at 1 rad with a gap of 0.4 become 0.6, 1.0, 1.4 (mean kept at 1; worked by hand).
     expect(fanned.map((a) => Number(a.toFixed(6))).sort()).toEqual([0.6, 1, 1.4]);
+  });
+});
+
+describe('spreadLine', () => {
+  it('keeps neighbours the gap apart around their mean', () => {
+    // Worked by hand: 0, 0, 10 with a gap of 46 become 0, 46, 92 shifted by -128/3 to keep the mean 10/3.
+    const out = spreadLine([0, 0, 10], 46);
+    expect(out.map((v) => Number(v.toFixed(6)))).toEqual([-42.666667, 3.333333, 49.333333]);
+    expect(spreadLine([0, 100, 200], 46)).toEqual([0, 100, 200]);
   });
 });
 
@@ -77,6 +86,28 @@ describe('layoutNetwork', () => {
     };
     expect(radius('k1')).toBeCloseTo(radius('k2'), 6);
     expect(radius('cp9')).toBeGreaterThan(radius('k1'));
+  });
+
+  it('puts many contracts in a column, one per row, with the other parties beside theirs, all inside the bounds', () => {
+    const busy: NetworkAnswer = {
+      counterparty: network.counterparty,
+      contracts: Array.from({ length: 15 }, (_, i) => ({ contractId: i + 1, externalId: `C-${i + 1}`, title: 'Supply Agreement', roles: ['Supplier'] })),
+      parties: Array.from({ length: 15 }, (_, i) => ({ contractId: i + 1, role: 'Buyer', counterpartyId: 100 + (i % 4), ownEntityId: null, name: `Invented Buyer ${i % 4}` })),
+    };
+    const layout = layoutNetwork(busy, { width: 1000, labelRoom: 200 });
+    const contracts = layout.nodes.filter((n) => n.kind === 'contract');
+    const others = layout.nodes.filter((n) => n.kind === 'counterparty');
+    expect(new Set(contracts.map((n) => n.x)).size).toBe(1);
+    expect(others).toHaveLength(4);
+    const gaps = (ys: number[]) => ys.sort((a, b) => a - b).slice(1).map((y, i) => y - ys[i]!);
+    for (const gap of [...gaps(contracts.map((n) => n.y)), ...gaps(others.map((n) => n.y))]) expect(gap).toBeGreaterThanOrEqual(45.999);
+    const { x, y, width, height } = layout.bounds;
+    for (const n of layout.nodes) {
+      expect(n.x).toBeGreaterThanOrEqual(x);
+      expect(n.x).toBeLessThanOrEqual(x + width);
+      expect(n.y).toBeGreaterThanOrEqual(y);
+      expect(n.y).toBeLessThanOrEqual(y + height);
+    }
   });
 
   it('shows at most maxContracts contracts and says how many there are', () => {

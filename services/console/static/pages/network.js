@@ -13,14 +13,31 @@ function shortLabel(text, max = labelLength) {
   return text.length > max ? `${text.slice(0, max - 1)}…` : text;
 }
 
+/** Up to `maxLines` lines of about `width` characters, breaking between words (the last one shortened). */
+function wrapWords(text, width, maxLines) {
+  const lines = [];
+  let line = '';
+  for (const word of text.split(' ')) {
+    if (line && (line + ' ' + word).length > width) {
+      lines.push(line);
+      line = word;
+    } else line = line ? `${line} ${word}` : word;
+  }
+  if (line) lines.push(line);
+  if (lines.length <= maxLines) return lines;
+  return [...lines.slice(0, maxLines - 1), shortLabel(lines.slice(maxLines - 1).join(' '), width)];
+}
+
 function drawNode(node, cx) {
   const r = NODE_R[node.kind];
   const shape = node.kind === 'contract' ? s('rect', { x: node.x - r, y: node.y - r, width: 2 * r, height: 2 * r, rx: 3 }) : s('circle', { cx: node.x, cy: node.y, r });
   // Labels sit outside the rings (left half: anchored at their end) so they do not cross the middle.
-  const right = node.x >= cx;
+  const right = node.labelAt ? node.labelAt === 'right' : node.x >= cx;
   const side = { x: node.x + (right ? r + 5 : -r - 5), 'text-anchor': right ? 'start' : 'end' };
   const label = node.kind === 'self'
-    ? s('text', { x: node.x, y: node.y + r + 18, 'text-anchor': 'middle', class: 'node-label self-label' }, shortLabel(node.label, 40))
+    ? node.labelAt === 'left'
+      ? wrapWords(node.label, 20, 3).map((line, i, lines) => s('text', { x: node.x - r - 8, y: node.y + 6 + (i - (lines.length - 1) / 2) * 19, 'text-anchor': 'end', class: 'node-label self-label' }, line))
+      : s('text', { x: node.x, y: node.y + r + 18, 'text-anchor': 'middle', class: 'node-label self-label' }, shortLabel(node.label, 40))
     : [
         s('text', { ...side, y: node.y + (node.detail ? -1 : 4), class: 'node-label' }, shortLabel(node.label)),
         node.detail ? s('text', { ...side, y: node.y + 13, class: 'node-detail' }, shortLabel(node.detail, labelLength + 8)) : null,
@@ -30,20 +47,6 @@ function drawNode(node, cx) {
   const cls = `node node-${node.kind}`;
   if (node.href) return s('a', { href: node.href, class: cls, 'aria-label': `${node.kind === 'contract' ? 'contract' : 'counterparty'}: ${node.label}`, dataset: { node: node.key } }, group);
   return s('g', { class: cls, dataset: { node: node.key } }, group);
-}
-
-/**
- * The box around the nodes, centred across on the counterparty, with room for labels on both sides; at least
- * 3.4 label widths wide and 320 high (a small graph is not blown up).
- */
-function fittedViewBox(nodes, labelRoom) {
-  const self = nodes[0];
-  const halfX = Math.max(labelRoom * 1.7, ...nodes.map((n) => Math.abs(n.x - self.x) + labelRoom));
-  // Vertically only what is drawn (a counterparty with one contract has everything on one side).
-  let y0 = Math.min(...nodes.map((n) => n.y)) - 40;
-  let y1 = Math.max(...nodes.map((n) => n.y)) + 62;
-  if (y1 - y0 < 320) [y0, y1] = [(y0 + y1) / 2 - 160, (y0 + y1) / 2 + 160];
-  return { x: self.x - halfX, y: y0, width: 2 * halfX, height: y1 - y0 };
 }
 
 export async function render(main, { params }) {
@@ -59,10 +62,10 @@ export async function render(main, { params }) {
   // A narrow window gets a portrait layout with shorter labels, drawn at a readable size inside a pane
   // that scrolls sideways (the page itself does not).
   const compact = main.clientWidth < 700;
-  const layout = compact ? layoutNetwork(data, { width: 520, height: 760 }) : layoutNetwork(data, { width: 1000, height: 720 });
+  const layout = compact ? layoutNetwork(data, { width: 520, height: 760, labelRoom: 150 }) : layoutNetwork(data, { width: 1000, height: 720, labelRoom: 215 });
   for (const node of layout.nodes) if (node.kind === 'counterparty' && relatedNames.has(node.id)) node.label = relatedNames.get(node.id);
   labelLength = compact ? 18 : 26;
-  const box = fittedViewBox(layout.nodes, compact ? 150 : 215);
+  const box = layout.bounds;
   const at = new Map(layout.nodes.map((n) => [n.key, n]));
   const svg = s(
     'svg',
@@ -104,6 +107,7 @@ export async function render(main, { params }) {
     ),
   );
   const wrap = main.querySelector('.network-wrap');
-  wrap.scrollLeft = (wrap.scrollWidth - wrap.clientWidth) / 2;
+  // A pane wider than the window starts where the counterparty is: the middle, or the left for columns.
+  wrap.scrollLeft = layout.nodes[0].labelAt === 'left' ? 0 : (wrap.scrollWidth - wrap.clientWidth) / 2;
   main.querySelector('h1').focus();
 }
