@@ -5,7 +5,8 @@ import { createMigratedDataDir, removeTempDir } from '../../support/index.ts';
 import { runCli } from '../../support/cli.ts';
 import { openDatabase } from '../../../db/open-database.ts';
 
-describe('cpreg own-entities, sweep, reresolve', () => {
+// Each CLI run starts the embedded database in a new process (several seconds on a busy machine).
+describe('cpreg own-entities, sweep, reresolve', { timeout: 240_000 }, () => {
   let dir: string;
   beforeAll(async () => {
     dir = await createMigratedDataDir();
