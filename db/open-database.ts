@@ -96,13 +96,14 @@ async function openPostgres(url: string, options: OpenDatabaseOptions): Promise<
     connectionString: url,
     max: options.poolSize ?? 10,
     connectionTimeoutMillis: options.timeoutMs ?? DEFAULT_CONNECT_TIMEOUT_MS,
-    ...(options.timeoutMs ? { statement_timeout: options.timeoutMs } : {}),
+    ...(options.timeoutMs ? { statement_timeout: options.timeoutMs, query_timeout: options.timeoutMs + QUERY_TIMEOUT_MARGIN_MS } : {}),
     application_name: 'cpreg',
     types,
   });
   // An idle client whose server went away emits 'error' on the pool; unhandled it would crash the
   // process. The pool drops that client and the next request reconnects (or answers 503).
   pool.on('error', (error) => options.onPoolError?.(error));
+  if (options.timeoutMs) pool.on('connect', dropOnReadTimeout);
   try {
     const client = await pool.connect();
     client.release();
@@ -121,6 +122,29 @@ async function openPostgres(url: string, options: OpenDatabaseOptions): Promise<
       closed = true;
       await db.destroy(); // ends the pool
     },
+  };
+}
+
+/**
+ * A server that hangs (frozen, or a network path that drops packets) never fires statement_timeout, so
+ * the client gives up after query_timeout. The statement was sent and is not cancelled: such a connection
+ * would go back to the pool with a query (or a transaction) still open, so it is closed instead; the
+ * server rolls back whatever was open on it, and the pool opens a new connection when asked.
+ */
+const QUERY_TIMEOUT_MARGIN_MS = 500;
+
+function dropOnReadTimeout(client: import('pg').PoolClient): void {
+  const query = client.query as (...args: unknown[]) => unknown;
+  (client as unknown as { query: (...args: unknown[]) => unknown }).query = function (this: unknown, ...args: unknown[]) {
+    const result = query.apply(this, args);
+    if (result && typeof (result as Promise<unknown>).catch === 'function') {
+      (result as Promise<unknown>).catch((error: unknown) => {
+        if ((error as Error | undefined)?.message === 'Query read timeout') {
+          (client as unknown as { connection?: { stream?: { destroy(): void } } }).connection?.stream?.destroy();
+        }
+      });
+    }
+    return result;
   };
 }
 

@@ -101,6 +101,39 @@ if (unavailable) process.stdout.write(`database-faults: skipped (not passed): ${
       expect(res.status, externalId).toBe(200);
       expect(JSON.parse(res.text)).toMatchObject({ externalId, source: 'faults' });
     }
+
+    // A database that hangs instead of refusing (the postmaster and its backends frozen with SIGSTOP):
+    // requests must still answer 503 within the timeout, and recover when it thaws.
+    const frozen = server.pids();
+    for (const pid of frozen) process.kill(pid, 'SIGSTOP');
+    const hung: { status: number; ms: number }[] = [];
+    try {
+      for (let i = 0; i < 3; i++) {
+        const res = i % 2 === 0 ? await write() : await call('GET', '/healthz');
+        hung.push({ status: res.status, ms: Math.round(res.ms) });
+        expect(res.status, res.text).toBe(503);
+        expect(res.type).toMatch(/^application\/problem\+json/);
+        expect(res.ms).toBeLessThan(DB_TIMEOUT_MS + 3000);
+      }
+    } finally {
+      for (const pid of frozen) process.kill(pid, 'SIGCONT');
+    }
+    process.stdout.write(`database-faults: hung database answers ${JSON.stringify(hung)}\n`);
+    const thawed = performance.now();
+    let again = false;
+    while (performance.now() - thawed < 30_000) {
+      if ((await write()).status < 300) {
+        again = true;
+        break;
+      }
+      await new Promise((r) => setTimeout(r, 250));
+    }
+    expect(again).toBe(true);
+    for (const { mentionId, externalId } of acknowledged) {
+      const res = await call('GET', `/v1/mentions/${mentionId}`);
+      expect(res.status, externalId).toBe(200);
+    }
+
     const verify = await runCli(['verify', '--db', url, '--json']);
     expect(verify.code, verify.stdout + verify.stderr).toBe(0);
   }, 240_000);

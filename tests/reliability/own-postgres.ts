@@ -4,7 +4,7 @@
  * the postgres user (runuser). Unavailable (no binaries, no postgres user): ownPostgresUnavailable() says why.
  */
 import { execFileSync } from 'node:child_process';
-import { chmodSync, chownSync, existsSync, mkdtempSync, rmSync } from 'node:fs';
+import { chmodSync, chownSync, existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -48,6 +48,8 @@ export interface OwnPostgres {
   stop(mode?: 'fast' | 'immediate'): void;
   start(): void;
   destroy(): void;
+  /** The postmaster and every backend (to freeze them with SIGSTOP). */
+  pids(): number[];
 }
 
 export async function startOwnPostgres(): Promise<OwnPostgres> {
@@ -73,6 +75,11 @@ export async function startOwnPostgres(): Promise<OwnPostgres> {
     port,
     start,
     stop,
+    pids() {
+      const main = Number(readFileSync(join(data, 'postmaster.pid'), 'utf8').split('\n')[0]);
+      const children = execFileSync('pgrep', ['-P', String(main)]).toString().trim().split('\n').filter(Boolean).map(Number);
+      return [main, ...children];
+    },
     destroy() {
       try {
         stop('immediate');
