@@ -8,6 +8,7 @@ import { existsSync, mkdirSync, readdirSync, rmSync, statSync, writeFileSync } f
 import { join, resolve } from 'node:path';
 import { Kysely, PGliteDialect, PostgresDialect, sql } from 'kysely';
 import type { PGlite as PGliteClass } from '@electric-sql/pglite';
+import type { PoolClient } from 'pg';
 import type { Database } from './types.ts';
 import { acquireDirectoryLock, LOCK_FILE_NAME, type DirectoryLock } from './lock.ts';
 import { DatabaseOpenError } from './database-errors.ts';
@@ -133,7 +134,7 @@ async function openPostgres(url: string, options: OpenDatabaseOptions): Promise<
  */
 const QUERY_TIMEOUT_MARGIN_MS = 500;
 
-function dropOnReadTimeout(client: import('pg').PoolClient): void {
+function dropOnReadTimeout(client: PoolClient): void {
   const query = client.query as (...args: unknown[]) => unknown;
   (client as unknown as { query: (...args: unknown[]) => unknown }).query = function (this: unknown, ...args: unknown[]) {
     const result = query.apply(this, args);
