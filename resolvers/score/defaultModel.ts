@@ -70,8 +70,8 @@ export const DEFAULT_MATCH_MODEL: MatchModel = {
       ],
       u: [
         0.312125,
-        3.49848e-8,
-        0.687875
+        0.00169978,
+        0.686175
       ]
     },
     acronym: {
@@ -126,6 +126,6 @@ export const DEFAULT_MATCH_MODEL: MatchModel = {
   provenance: {
     method: 'labelled',
     pairs: 1457635,
-    note: 'ROR dev split (35% entity sample, 41,281 names): m and u from 1,457,635 labelled candidate pairs (28,445 matches); jurisdiction m blended with a prior worth 1,000 pairs; sharedContact never observed in ROR (prior values); linkAt/newAt chosen on the dev sweep (docs/matching.md)'
+    note: 'ROR dev split (35% entity sample, 41,281 names): m and u from 1,457,635 labelled candidate pairs (28,445 matches); jurisdiction m blended with a prior worth 1,000 pairs; jurisdiction "compatible" (a country against one of its subdivisions, e.g. US vs US-DE) never occurs in ROR, whose countries are all alpha-2, so its u is set equal to its m (weight 0: no evidence either way) instead of the 3.5e-8 the labels gave, which weighed +15.6 bits and linked unrelated companies of one country; sharedContact never observed in ROR (prior values); linkAt/newAt chosen on the dev sweep (docs/matching.md)'
   }
 };

@@ -51,13 +51,27 @@ export function scoreComparison(comparison: Comparison, model: MatchModel, optio
   if (options.cannotLink) identifierNotes.push('a reviewer recorded that these are different entities');
   return {
     score,
-    decision: decide(score, model),
+    decision: guardNameEvidence(decide(score, model), override, comparison.levels),
     override,
     explanation,
     identifierNotes,
     softTfIdf: comparison.softTfIdf,
     jaroWinkler: comparison.jaroWinkler,
   };
+}
+
+/**
+ * Precision first: without a decisive identifier, a pair whose names themselves disagree (name level low or
+ * none) is never linked automatically, however much the other features add up — context features
+ * (jurisdiction, legal form, a shared contact) support a name match, they cannot stand in for one.
+ * Such a pair goes to a person instead.
+ */
+const NAME_LEVELS_THAT_CANNOT_LINK: ReadonlySet<string> = new Set(['low', 'none']);
+
+function guardNameEvidence(decision: Decision, override: PairScore['override'], levels: ComparisonLevels): Decision {
+  if (decision !== 'link' || override === 'decisive_identifier') return decision;
+  const name = levels.name;
+  return name !== null && NAME_LEVELS_THAT_CANNOT_LINK.has(name) ? 'review' : decision;
 }
 
 /** Weight of each feature level under the model; features the model does not know weigh 0 and say so. */

@@ -28,6 +28,24 @@ const idf = buildIdfTable(
 const model = DEFAULT_MATCH_MODEL;
 
 describe('scorePair', () => {
+  it('two companies of one country whose names disagree never link, whatever the context adds (precision first)', () => {
+    // Invented names. One side has a state (US-DE), the other only the country: the jurisdiction level is
+    // "compatible", which must weigh nothing, and a low name level must keep the pair out of automatic links.
+    const a = rec('a', 'Havcasworth Marine Inc.', { country: 'US-DE' });
+    const b = rec('b', 'Brocalley Marine, Inc.', { country: 'US' });
+    const s = scorePair(a, b, model, idf);
+    expect(s.explanation.find((e) => e.feature === 'jurisdiction')).toMatchObject({ level: 'compatible', weight: 0 });
+    expect(s.decision).not.toBe('link');
+  });
+
+  it('a name that disagrees is sent to review, not linked, even when the summed weights pass linkAt', () => {
+    // A model whose context features alone pass linkAt: the guard, not the arithmetic, keeps the pair out.
+    const heavy: MatchModel = { ...model, linkAt: -100, newAt: -200 };
+    const s = scorePair(rec('a', 'Quillon Vale Dairy Ltd'), rec('b', 'Ardmore Street Bank Ltd'), heavy, idf);
+    expect(['low', 'none']).toContain(s.explanation.find((e) => e.feature === 'name')?.level);
+    expect(s.decision).toBe('review');
+  });
+
   it('"Kittering Bay Outfitters, L.L.C." and "KITTERING BAY OUTFITTERS LLC" score at or above linkAt (issue 5 example)', () => {
     const s = scorePair(rec('a', 'Kittering Bay Outfitters, L.L.C.', { country: 'US' }), rec('b', 'KITTERING BAY OUTFITTERS LLC', { country: 'US' }), model, idf);
     expect(s.decision).toBe('link');
