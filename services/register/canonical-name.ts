@@ -7,7 +7,12 @@
  *     Among several: legal names before others, then the rules below.
  *  2. Otherwise the most frequent full legal name with its legal form: names of kind legal or observed that carry
  *     a legal form, the one seen most often.
+ *     Spellings that differ only in letter case are one name here: their sightings count together.
  *  3. Otherwise (and to break ties) the longest name; former names only when there is nothing else.
+ *  4. Then a spelling that is not all capitals ("Frowilora Research B.V." before "FROWILORA RESEARCH B.V."):
+ *     capitals are how many source systems store or print names, not how the company writes itself. So among
+ *     case variants of one name, the mixed-case spelling wins even when the capitals were seen more often;
+ *     then the spelling seen most often.
  *  Final tie-break: the lowest name id (the oldest), so the choice never depends on read order.
  */
 
@@ -20,14 +25,26 @@ export interface NameCandidate {
   confirmed_by: string | null;
 }
 
-function compareBy(a: NameCandidate, b: NameCandidate): number {
+const isFullLegal = (n: NameCandidate): boolean => (n.kind === 'legal' || n.kind === 'observed') && Boolean(n.legal_form);
+
+/** The spelling with letter case ignored: case variants of one name share it. */
+const caseKey = (name: string): string => name.normalize('NFC').toLowerCase();
+
+/** True when the name has letters and every one of them is a capital ("ACME B.V."; not "3-4-5" nor "Acme B.V."). */
+export function isAllCapitals(name: string): boolean {
+  return name.toUpperCase() === name && name.toLowerCase() !== name;
+}
+
+function compareBy(a: NameCandidate, b: NameCandidate, caseGroupSeen: ReadonlyMap<string, number>): number {
   // Higher is better for every criterion below; the first difference decides.
   const criteria: Array<(n: NameCandidate) => number> = [
     (n) => (n.confirmed_by ? 1 : 0),
     (n) => (n.confirmed_by && n.kind === 'legal' ? 1 : 0),
-    (n) => ((n.kind === 'legal' || n.kind === 'observed') && n.legal_form ? 1 : 0),
-    (n) => ((n.kind === 'legal' || n.kind === 'observed') && n.legal_form ? n.seen_count : 0),
+    (n) => (isFullLegal(n) ? 1 : 0),
+    (n) => (isFullLegal(n) ? (caseGroupSeen.get(caseKey(n.name)) ?? 0) : 0),
     (n) => [...n.name].length,
+    (n) => (isAllCapitals(n.name) ? 0 : 1),
+    (n) => (isFullLegal(n) ? Number(n.seen_count) : 0),
     (n) => -n.id,
   ];
   for (const criterion of criteria) {
@@ -40,5 +57,10 @@ function compareBy(a: NameCandidate, b: NameCandidate): number {
 export function chooseCanonicalName(names: readonly NameCandidate[]): NameCandidate | undefined {
   const current = names.filter((n) => n.kind !== 'former');
   const pool = current.length > 0 ? current : [...names];
-  return [...pool].sort(compareBy)[0];
+  // Sightings of full legal names, added up over spellings that differ only in letter case (rule 2).
+  const caseGroupSeen = new Map<string, number>();
+  for (const n of pool) {
+    if (isFullLegal(n)) caseGroupSeen.set(caseKey(n.name), (caseGroupSeen.get(caseKey(n.name)) ?? 0) + Number(n.seen_count));
+  }
+  return [...pool].sort((a, b) => compareBy(a, b, caseGroupSeen))[0];
 }

@@ -1,6 +1,7 @@
 /** The canonical-value rules (docs/register.md) on hand-made name lists; every expectation follows a written rule. */
 import { describe, expect, it } from 'vitest';
 import { chooseCanonicalName, type NameCandidate } from '../../../services/register/index.ts';
+import { isAllCapitals } from '../../../services/register/canonical-name.ts';
 
 const name = (id: number, text: string, extra: Partial<NameCandidate> = {}): NameCandidate => ({
   id,
@@ -34,5 +35,50 @@ describe('canonical-value rules', () => {
     expect(chooseCanonicalName([name(5, 'Fernhill Dairies'), name(4, 'Fernhill Dairiez')])?.id).toBe(4);
     expect(chooseCanonicalName([name(1, 'Old Fernhill', { kind: 'former' })])?.id).toBe(1);
     expect(chooseCanonicalName([])).toBeUndefined();
+  });
+});
+
+describe('canonical-value rule 4: a spelling that is not all capitals', () => {
+  // Invented names. The rule is ours (docs/register.md, rule 4): capitals are how source systems store names.
+  it('among case variants of one name, the mixed-case spelling wins even when the capitals were seen more often', () => {
+    const chosen = chooseCanonicalName([
+      name(1, 'FROWILORA RESEARCH B.V.', { legal_form: 'bv', seen_count: 5 }),
+      name(2, 'Frowilora Research B.V.', { legal_form: 'bv', seen_count: 2 }),
+    ]);
+    expect(chosen?.name).toBe('Frowilora Research B.V.');
+  });
+  it('case variants count their sightings together against another name (rule 2)', () => {
+    const chosen = chooseCanonicalName([
+      name(1, 'FROWILORA RESEARCH B.V.', { legal_form: 'bv', seen_count: 3 }),
+      name(2, 'Frowilora Research B.V.', { legal_form: 'bv', seen_count: 1 }),
+      name(3, 'Frowilora Research Holding B.V.', { legal_form: 'bv', seen_count: 3 }),
+    ]);
+    // 3 + 1 sightings of the case-insensitive "frowilora research b.v." beat 3 of the longer name.
+    expect(chosen?.id).toBe(2);
+  });
+  it('a tie-break after length, before the oldest id; among mixed-case variants the more frequent one', () => {
+    expect(chooseCanonicalName([name(1, 'HALVERN TEXTILES'), name(2, 'Halvern Textiles')])?.id).toBe(2);
+    // The longer name still wins over a shorter mixed-case one (rule 3 comes first).
+    expect(chooseCanonicalName([name(1, 'HALVERN TEXTILES GROUP'), name(2, 'Halvern Textiles')])?.id).toBe(1);
+    expect(
+      chooseCanonicalName([
+        name(1, 'Halvern textiles Ltd', { legal_form: 'ltd', seen_count: 1 }),
+        name(2, 'Halvern Textiles Ltd', { legal_form: 'ltd', seen_count: 4 }),
+        name(3, 'HALVERN TEXTILES LTD', { legal_form: 'ltd', seen_count: 9 }),
+      ])?.id,
+    ).toBe(2);
+    // A person's confirmation still wins over the rule (rule 1).
+    expect(
+      chooseCanonicalName([
+        name(1, 'Halvern Textiles Ltd', { legal_form: 'ltd' }),
+        name(2, 'HALVERN TEXTILES LTD', { legal_form: 'ltd', confirmed_by: 'api:alice' }),
+      ])?.id,
+    ).toBe(2);
+  });
+  it('isAllCapitals needs letters, all of them capitals', () => {
+    expect(isAllCapitals('FROWILORA B.V.')).toBe(true);
+    expect(isAllCapitals('Frowilora B.V.')).toBe(false);
+    expect(isAllCapitals('3-4-5')).toBe(false);
+    expect(isAllCapitals('ÖSTERLUND AB')).toBe(true);
   });
 });
