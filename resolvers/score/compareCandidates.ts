@@ -4,10 +4,12 @@
  */
 import type { CandidatePairs } from '../block/candidatePairs.ts';
 import type { MatchRecord } from '../block/matchRecord.ts';
-import { weighTokens, type IdfTable } from '../compare/index.ts';
+import { softTfIdfWeighted, weighTokens, type IdfTable } from '../compare/index.ts';
+import { compareIdentifiers } from '../identifiers/index.ts';
 import type { IndexedPairs, ScoredEdge } from '../cluster/clusterRecords.ts';
 import type { Random } from '../prng.ts';
-import { compareRecords, compareWeighted } from './compareRecords.ts';
+import { compareRecords, nameLevelOf, qualifierLevel } from './compareRecords.ts';
+import { acronymLevel, jurisdictionLevel, legalFormLevel } from './contextLevels.ts';
 import type { ComparisonVector } from './em.ts';
 import { FEATURE_LEVELS, FEATURE_NAMES, levelIndices } from './features.ts';
 import { featureWeights, type MatchModel } from './matchModel.ts';
@@ -27,24 +29,41 @@ const levelIndex = Object.fromEntries(
   FEATURE_NAMES.map((f) => [f, new Map((FEATURE_LEVELS[f] as readonly string[]).map((level, k) => [level, k]))]),
 ) as Record<(typeof FEATURE_NAMES)[number], Map<string, number>>;
 
+const NAME = FEATURE_NAMES.indexOf('name');
+const LEGAL_FORM = FEATURE_NAMES.indexOf('legalForm');
+const JURISDICTION = FEATURE_NAMES.indexOf('jurisdiction');
+const ACRONYM = FEATURE_NAMES.indexOf('acronym');
+const QUALIFIER = FEATURE_NAMES.indexOf('qualifier');
+const SHARED_CONTACT = FEATURE_NAMES.indexOf('sharedContact');
+if (FEATURE_NAMES.length !== 6) throw new Error('compareCandidates: a feature was added; write its level here too');
+
 export function compareCandidates(records: readonly MatchRecord[], pairs: CandidatePairs, idf: IdfTable): ComparedPairs {
   const width = FEATURE_NAMES.length;
   const levels = new Int8Array(pairs.count * width);
   const overrides = new Map<number, 'decisive_identifier' | 'cannot_link'>();
-  // Each record's weighted tokens once, not once per pair.
+  // Each record's weighted tokens once, not once per pair; levels written straight into the array (the same
+  // levels as compareRecords, without its per-pair objects; a test checks they agree).
   const weighted = records.map((r) => weighTokens(r.analysis.tokens, idf));
+  const index = FEATURE_NAMES.map((f) => levelIndex[f]);
+  const put = (row: number, f: number, level: string | null): void => {
+    levels[row + f] = level === null ? MISSING : (index[f] as Map<string, number>).get(level)!;
+  };
   for (let k = 0; k < pairs.count; k++) {
     const i = pairs.left[k] as number;
     const j = pairs.right[k] as number;
-    const c = compareWeighted(records[i] as MatchRecord, records[j] as MatchRecord, weighted[i]!, weighted[j]!);
+    const a = records[i] as MatchRecord;
+    const b = records[j] as MatchRecord;
     const row = k * width;
-    for (let f = 0; f < width; f++) {
-      const feature = FEATURE_NAMES[f]!;
-      const level = c.levels[feature];
-      levels[row + f] = level === null ? MISSING : levelIndex[feature].get(level)!;
-    }
-    if (c.identifiers?.cannotLink) overrides.set(k, 'cannot_link');
-    else if (c.identifiers?.decisive) overrides.set(k, 'decisive_identifier');
+    const soft = softTfIdfWeighted(weighted[i]!, weighted[j]!);
+    put(row, NAME, nameLevelOf(a.analysis.core, b.analysis.core, soft));
+    put(row, LEGAL_FORM, legalFormLevel(a, b));
+    put(row, JURISDICTION, jurisdictionLevel(a, b));
+    put(row, ACRONYM, acronymLevel(a, b));
+    put(row, QUALIFIER, qualifierLevel(a.analysis.qualifiers, b.analysis.qualifiers));
+    const ids = (a.identifiers?.length ?? 0) > 0 && (b.identifiers?.length ?? 0) > 0 ? compareIdentifiers(a.identifiers ?? [], b.identifiers ?? []) : null;
+    put(row, SHARED_CONTACT, ids === null ? null : ids.sharedWeak.length > 0 ? 'shared' : 'none_shared');
+    if (ids?.cannotLink) overrides.set(k, 'cannot_link');
+    else if (ids?.decisive) overrides.set(k, 'decisive_identifier');
   }
   return { pairs, levels, overrides };
 }

@@ -4,8 +4,8 @@
  */
 import type { MatchRecord } from '../block/matchRecord.ts';
 import { compareIdentifiers, type IdentifierComparison } from '../identifiers/index.ts';
-import { jaroWinkler, softTfIdfWeighted, weighTokens, type IdfTable, type WeightedTokens } from '../compare/index.ts';
-import { nameLevel, type ComparisonLevels, type FeatureLevel } from './features.ts';
+import { jaroWinkler, jaroWinklerUpperBound, softTfIdfWeighted, weighTokens, type IdfTable, type WeightedTokens } from '../compare/index.ts';
+import { NAME_BANDS, nameLevel, type ComparisonLevels, type FeatureLevel } from './features.ts';
 import { acronymLevel, jurisdictionLevel, legalFormLevel } from './contextLevels.ts';
 
 export interface Comparison {
@@ -42,7 +42,24 @@ export function compareWeighted(a: MatchRecord, b: MatchRecord, weightedA: Weigh
   return { levels, softTfIdf: soft, jaroWinkler: jw, identifiers };
 }
 
-function qualifierLevel(a: readonly string[], b: readonly string[]): FeatureLevel<'qualifier'> | null {
+/**
+ * The name level alone, as compareRecords gives it, computing Jaro–Winkler of the cores only when it can change
+ * the level: when the soft TF-IDF band already beats every band the cores' lengths allow JW to reach
+ * (jaroWinklerUpperBound), the level is the soft band's. For batches, where only levels are kept.
+ */
+export function nameLevelOf(coreA: string, coreB: string, soft: number): FeatureLevel<'name'> | null {
+  if (coreA.length === 0 || coreB.length === 0) return null;
+  if (coreA === coreB) return 'exact';
+  let softBand = 0;
+  while (softBand < NAME_BANDS.length && soft < NAME_BANDS[softBand]!.softTfIdf) softBand++;
+  // JW matters only if it reaches the cut of a better band; the lowest such cut is the band just above.
+  if (softBand === 0) return NAME_BANDS[0]!.level;
+  const cut = NAME_BANDS[softBand - 1]!.jaroWinkler;
+  if (jaroWinklerUpperBound(coreA.length, coreB.length) < cut - 1e-9) return softBand < NAME_BANDS.length ? NAME_BANDS[softBand]!.level : 'none';
+  return nameLevel(false, soft, jaroWinkler(coreA, coreB));
+}
+
+export function qualifierLevel(a: readonly string[], b: readonly string[]): FeatureLevel<'qualifier'> | null {
   if (a.length === 0 || b.length === 0) return null;
   const setB = new Set(b);
   return a.some((q) => setB.has(q)) ? 'same' : 'different';

@@ -90,15 +90,38 @@ describe('candidatePairs', () => {
     expect(pairs.count).toBeLessThan(44_850 / 4);
   });
 
+  it('inside an oversized block, pairs names of one country with each other', () => {
+    // 300 invented names sharing only "holdings"; 20 of them in IS, the rest in GB or DE (150 / 130).
+    const random = seededRandom(6);
+    const syllables = ['ka', 'lo', 'mir', 'ten', 'vas', 'qu', 'dor', 'pel', 'zan', 'rho'];
+    const records = Array.from({ length: 300 }, (_, i) => {
+      const word = Array.from({ length: 4 }, () => random.pick(syllables)).join('') + i;
+      return record(String(i), `${word} Holdings`, { country: i % 15 === 0 ? 'IS' : i % 2 === 0 ? 'GB' : 'DE' });
+    });
+    const icelandic = records.filter((r) => r.country === 'IS').map((r) => Number(r.id));
+    const pairSet = (countryBlockSize: number): Set<string> => {
+      const pairs = candidatePairs(records, { maxBlockSize: 100, window: 4, globalWindow: 0, countryBlockSize });
+      return new Set(Array.from({ length: pairs.count }, (_, k) => `${pairs.left[k]}-${pairs.right[k]}`));
+    };
+    const islandPairs = (set: Set<string>): number =>
+      icelandic.flatMap((i) => icelandic.filter((j) => j > i).map((j) => `${i}-${j}`)).filter((p) => set.has(p)).length;
+    expect(islandPairs(pairSet(100))).toBe((20 * 19) / 2);
+    expect(islandPairs(pairSet(0))).toBeLessThan((20 * 19) / 2);
+    // The GB and DE groups (140 each) exceed 100: a sorted neighbourhood inside them, not all their pairs. What
+    // the country groups add is at most the 190 IS pairs plus 2 · 4 neighbours for each of the 280 others.
+    expect(pairSet(100).size - pairSet(0).size).toBeLessThanOrEqual(190 + 280 * 8);
+    expect(pairSet(100).size - pairSet(0).size).toBeGreaterThan(190);
+  });
+
   it('finds the same pairs whatever the input order (property)', () => {
     const names = ['Kittering Bay Outfitters', 'Kittering Bay Outfitter', 'Bay Outfitters Kittering', 'Quillon Vale Dairy', 'Quillon Dairy', 'QVD', 'Quillon Vale Dairies'];
     fc.assert(
-      fc.property(fc.shuffledSubarray(names.map((n, i) => record(`r${i}`, n)), { minLength: names.length }), (shuffled) => {
+      fc.property(fc.shuffledSubarray(names.map((n, i) => record(`r${i}`, n, { country: i % 2 === 0 ? 'GB' : 'FR' })), { minLength: names.length }), (shuffled) => {
         const pairs = candidatePairs(shuffled, { maxBlockSize: 2, window: 1, globalWindow: 1 });
         const set = new Set(
           Array.from({ length: pairs.count }, (_, k) => [shuffled[pairs.left[k]!]!.id, shuffled[pairs.right[k]!]!.id].sort().join('-')),
         );
-        const reference = candidatePairs(names.map((n, i) => record(`r${i}`, n)), { maxBlockSize: 2, window: 1, globalWindow: 1 });
+        const reference = candidatePairs(names.map((n, i) => record(`r${i}`, n, { country: i % 2 === 0 ? 'GB' : 'FR' })), { maxBlockSize: 2, window: 1, globalWindow: 1 });
         const refSet = new Set(Array.from({ length: reference.count }, (_, k) => [`r${reference.left[k]}`, `r${reference.right[k]}`].sort().join('-')));
         expect(set).toEqual(refSet);
       }),
