@@ -108,6 +108,7 @@ export const HISTORY_EVENT_TYPES = [
   'name_removed',
   'identifier_added',
   'identifier_removed',
+  'jurisdiction_changed',
   'relation_added',
   'relation_removed',
   'review_decided',

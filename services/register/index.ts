@@ -30,6 +30,7 @@ export {
   type CounterpartyView,
 } from './counterparties.ts';
 export { chooseCanonicalName, type NameCandidate } from './canonical-name.ts';
+export { setJurisdiction, checkJurisdiction, type JurisdictionInput, type JurisdictionChangeResult } from './jurisdiction.ts';
 export {
   unlinkMention,
   setAsideMention,

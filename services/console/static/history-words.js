@@ -20,6 +20,8 @@ export function whatHappened(event) {
       return [`Split: ${(d.mentionIds ?? event.mentionIds ?? []).length} mention(s) moved from `, d.sourceId ? cpLink(d.sourceId) : '?', ' to ', d.targetId ? cpLink(d.targetId) : '?'];
     case 'renamed':
       return [`Renamed from “${d.from ?? '?'}” to “${d.to ?? '?'}”`];
+    case 'jurisdiction_changed':
+      return [`Jurisdiction changed from ${d.from ?? 'none'} to ${d.to ?? 'none'}`];
     case 'review_decided':
       return [`Review item ${d.reviewItemId ?? ''} decided: ${d.decision ?? ''}`];
     case 'undone':

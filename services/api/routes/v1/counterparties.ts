@@ -12,6 +12,7 @@ import {
   removeName,
   renameCounterparty,
 } from '../../../register/counterparties.ts';
+import { checkJurisdiction, setJurisdiction } from '../../../register/jurisdiction.ts';
 import { mergeCounterparties, splitCounterparty } from '../../../register/merge-split.ts';
 import { addRelation, removeRelation } from '../../../register/relations.ts';
 import { survivorOf } from '../../../register/records.ts';
@@ -204,7 +205,7 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
     {
       config: { scope: 'admin' },
       schema: {
-        summary: 'Change a counterparty: rename, add or remove names and identifiers (If-Match required)',
+        summary: 'Change a counterparty: rename, set its jurisdiction, add or remove names and identifiers (If-Match required)',
         description:
           'Send If-Match with the ETag read from GET. Every field is checked before anything is written; the changes are then applied in the order of the fields below, each one history event. A 412 means someone changed the counterparty since you read it.',
         tags: TAGS,
@@ -216,13 +217,14 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
           minProperties: 1,
           properties: {
             name: { ...NAME, description: 'the new canonical name (confirmed: the rules keep it)' },
+            jurisdiction: { ...COUNTRY, nullable: true, description: 'ISO 3166-1 alpha-2 or ISO 3166-2 code; null clears it. Identifiers added in the same request are read under it.' },
             addNames: { type: 'array', maxItems: 100, items: { type: 'object', required: ['name', 'kind'], additionalProperties: false, properties: { name: NAME, kind: { type: 'string', enum: [...NAME_KINDS] } } } },
             removeNameIds: { type: 'array', maxItems: 100, items: { type: 'integer', minimum: 1 } },
             addIdentifiers: { type: 'array', maxItems: 100, items: IDENTIFIER },
             removeIdentifierIds: { type: 'array', maxItems: 100, items: { type: 'integer', minimum: 1 } },
             reason: REASON,
           },
-          example: { name: 'Brackenridge Fabrication, Inc.', addNames: [{ name: 'Brackenridge Fab', kind: 'trade' }], reason: 'trade name from the invoice' },
+          example: { name: 'Brackenridge Fabrication, Inc.', jurisdiction: 'US-DE', addNames: [{ name: 'Brackenridge Fab', kind: 'trade' }], reason: 'trade name from the invoice' },
         },
         response: { 200: COUNTERPARTY_OUT, ...problemResponses(404, 409, 412, 428) },
       },
@@ -234,10 +236,11 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
       const who = actorOf(request, body.reason);
       // Check every field first, so that a bad field stops the request before anything is written.
       if (body.name !== undefined) checkName('name', body.name);
+      const jurisdiction = body.jurisdiction === undefined ? undefined : checkJurisdiction('jurisdiction', body.jurisdiction);
       (body.addNames ?? []).forEach((n, i) => checkName(`addNames/${i}/name`, n.name));
       const current = await getCounterparty(ctx, id);
       if (current.merged) throw new ApiError('COUNTERPARTY_MERGED', `counterparty ${id} was merged into ${current.counterparty.id}; change the survivor`, { extensions: { survivorId: current.counterparty.id } });
-      (body.addIdentifiers ?? []).forEach((x, i) => normaliseIdentifierOrThrow(`addIdentifiers/${i}`, x, current.counterparty.jurisdiction));
+      (body.addIdentifiers ?? []).forEach((x, i) => normaliseIdentifierOrThrow(`addIdentifiers/${i}`, x, jurisdiction === undefined ? current.counterparty.jurisdiction : jurisdiction));
       for (const nameId of body.removeNameIds ?? []) {
         if (!current.counterparty.names.some((n) => n.id === nameId)) throw new ApiError('VALIDATION_FAILED', `name ${nameId} is not a name of counterparty ${id}`, { errors: [{ pointer: '/removeNameIds', message: `name ${nameId} is not a name of counterparty ${id}` }] });
       }
@@ -246,6 +249,7 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
       }
       let version = expected;
       if (body.name !== undefined) version = (await renameCounterparty(ctx, id, { name: body.name, expectedVersion: version }, who)).version;
+      if (jurisdiction !== undefined) version = (await setJurisdiction(ctx, id, { jurisdiction, expectedVersion: version }, who)).version;
       for (const n of body.addNames ?? []) version = (await addName(ctx, id, { ...n, expectedVersion: version }, who)).version;
       for (const x of body.addIdentifiers ?? []) version = (await addIdentifier(ctx, id, { ...x, expectedVersion: version }, who)).version;
       for (const nameId of body.removeNameIds ?? []) version = (await removeName(ctx, id, nameId, { ...who, expectedVersion: version })).version;
@@ -487,6 +491,7 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
 
 interface PatchBody {
   name?: string;
+  jurisdiction?: string | null;
   addNames?: { name: string; kind: (typeof NAME_KINDS)[number] }[];
   removeNameIds?: number[];
   addIdentifiers?: { scheme: string; value: string; label?: string }[];
