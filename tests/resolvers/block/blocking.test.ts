@@ -99,8 +99,8 @@ describe('candidatePairs', () => {
       return record(String(i), `${word} Holdings`, { country: i % 15 === 0 ? 'IS' : i % 2 === 0 ? 'GB' : 'DE' });
     });
     const icelandic = records.filter((r) => r.country === 'IS').map((r) => Number(r.id));
-    const pairSet = (countryBlockSize: number): Set<string> => {
-      const pairs = candidatePairs(records, { maxBlockSize: 100, window: 4, globalWindow: 0, countryBlockSize });
+    const pairSet = (countryBlockSize: number, countryWindow = 4): Set<string> => {
+      const pairs = candidatePairs(records, { maxBlockSize: 100, window: 4, globalWindow: 0, countryBlockSize, countryWindow });
       return new Set(Array.from({ length: pairs.count }, (_, k) => `${pairs.left[k]}-${pairs.right[k]}`));
     };
     const islandPairs = (set: Set<string>): number =>
@@ -111,6 +111,10 @@ describe('candidatePairs', () => {
     // the country groups add is at most the 190 IS pairs plus 2 · 4 neighbours for each of the 280 others.
     expect(pairSet(100).size - pairSet(0).size).toBeLessThanOrEqual(190 + 280 * 8);
     expect(pairSet(100).size - pairSet(0).size).toBeGreaterThan(190);
+    // Without a window inside the large groups, the groups add exactly the IS pairs the window had not found.
+    const withoutWindow = pairSet(100, 0);
+    expect(islandPairs(withoutWindow)).toBe(190);
+    expect(withoutWindow.size - pairSet(0).size).toBe(190 - islandPairs(pairSet(0)));
   });
 
   it('finds the same pairs whatever the input order (property)', () => {
