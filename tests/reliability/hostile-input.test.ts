@@ -222,7 +222,7 @@ describeEachBackend('hostile input over HTTP', (t) => {
         const read = await k.call('read', { method: 'GET', url: `/v1/mentions/${mentionId}` });
         expect(read.statusCode).toBe(200);
         // Surrounding white space (String.prototype.trim's set, U+FEFF included) is trimmed by design; nothing else changes.
-        if (text.isWellFormed()) expect([text, text.trim()]).toContain((read.json() as { text: string }).text);
+        if ((text as string & { isWellFormed(): boolean }).isWellFormed()) expect([text, text.trim()]).toContain((read.json() as { text: string }).text);
         const search = await k.call('read', { method: 'GET', url: '/v1/counterparties', query: { q: text.slice(0, 200) } });
         expectProblem(search, `search ${JSON.stringify(text)}`);
       }),

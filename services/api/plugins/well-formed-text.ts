@@ -10,7 +10,7 @@ import type { AppPlugin } from '../types.ts';
 
 function problemOf(text: string): string | undefined {
   if (text.includes('\u0000')) return 'contains the NUL character (U+0000), which cannot be stored';
-  if (!text.isWellFormed()) return 'is not well-formed Unicode (a lone UTF-16 surrogate)';
+  if (!(text as string & { isWellFormed(): boolean }).isWellFormed()) return 'is not well-formed Unicode (a lone UTF-16 surrogate)';
   return undefined;
 }
 
