@@ -6,7 +6,7 @@ export interface NetworkAnswer {
   counterparty: { id: number; canonicalName: string };
   contracts: { contractId: number; externalId: string; title: string | null; roles: string[] }[];
   parties: { contractId: number; role: string | null; counterpartyId: number | null; ownEntityId: number | null; name: string }[];
-  relations?: { fromCounterpartyId: number; toCounterpartyId: number; type: string }[];
+  relations?: { fromCounterpartyId: number; toCounterpartyId: number; type: string; relatedCounterpartyId?: number; relatedCanonicalName?: string }[];
 }
 
 export interface LaidOutNode {

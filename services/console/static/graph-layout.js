@@ -73,7 +73,7 @@ function collect(network, maxContracts) {
     const outgoing = r.fromCounterpartyId === network.counterparty.id;
     const otherId = outgoing ? r.toCounterpartyId : r.fromCounterpartyId;
     const key = `cp${otherId}`;
-    if (!others.has(key)) others.set(key, { key, kind: 'counterparty', id: otherId, label: `counterparty #${otherId}`, contractIds: [] });
+    if (!others.has(key)) others.set(key, { key, kind: 'counterparty', id: otherId, label: r.relatedCanonicalName ?? `counterparty #${otherId}`, contractIds: [] });
     edges.push({ from: outgoing ? selfKey : key, to: outgoing ? key : selfKey, kind: 'relation', label: r.type.replaceAll('_', ' ') });
   }
   const list = [...others.values()].map((o) => ({

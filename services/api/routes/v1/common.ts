@@ -285,6 +285,12 @@ export const MENTION_OUT = {
     score: { type: 'number', nullable: true },
     evidence: { type: 'object', additionalProperties: true },
     confirmedBy: { type: 'string', nullable: true },
+    legalForm: {
+      type: 'object',
+      nullable: true,
+      description: 'the legal form analysed from the text (as resolution reads it), null when it carries none',
+      properties: { text: { type: 'string' }, family: { type: 'string' } },
+    },
     createdAt: { type: 'string' },
     updatedAt: { type: 'string' },
   },

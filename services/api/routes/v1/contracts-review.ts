@@ -8,6 +8,7 @@ import { ApiError, problemResponses } from '../../errors.ts';
 import type { RoutePlugin } from '../../types.ts';
 import { ID_PARAM, MENTION_OUT, PAGE_QUERY, REASON, SOURCE_ID, actorOf, decodeCursor, page, pagedOf, v1Scope } from './common.ts';
 import { RESOLVE_OUT } from './mentions.ts';
+import { withLegalForm } from './legal-form.ts';
 
 export const CONTRACT_BODY_LIMIT = 1024 * 1024;
 const MAX_CONTRACT_TEXT = 1024 * 1024;
@@ -187,7 +188,8 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
     async (request) => {
       const items = await listReviewItems(ctx, { afterId: decodeCursor(request.query.cursor), limit: request.query.limit + 1 });
       const total = await db.selectFrom('review_item').select((eb) => eb.fn.countAll<string>().as('n')).where('status', '=', 'open').executeTakeFirstOrThrow();
-      return { ...page(items, request.query.limit), open: Number(total.n) };
+      const withForms = items.map((item) => ({ ...item, mention: item.mention ? withLegalForm(item.mention) : null }));
+      return { ...page(withForms, request.query.limit), open: Number(total.n) };
     },
   );
 

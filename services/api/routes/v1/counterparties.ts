@@ -52,6 +52,7 @@ import {
   withEtag,
 } from './common.ts';
 import { highlightRanges, words } from './highlight.ts';
+import { legalFormFamily, withLegalForm } from './legal-form.ts';
 import { counterpartyGroups, namesLike, otherPartiesOf } from './reads.ts';
 
 export const MAX_SEARCH_RESULTS = 50;
@@ -116,7 +117,7 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
       if (!q || q.trim().length === 0) {
         const rows = await db.selectFrom('counterparty').select('id').where('status', '=', 'active').where('id', '>', offset).orderBy('id').limit(limit + 1).execute();
         const summaries = await getSummaries(db, rows.map((r) => Number(r.id)));
-        const items = rows.map((r) => summaries.get(Number(r.id))!).map((s) => ({ id: s.id, canonicalName: s.canonicalName, jurisdiction: s.jurisdiction, legalForm: null, matchedName: s.canonicalName, highlight: [], score: null, version: s.version }));
+        const items = rows.map((r) => summaries.get(Number(r.id))!).map((s) => ({ id: s.id, canonicalName: s.canonicalName, jurisdiction: s.jurisdiction, legalForm: legalFormFamily(s.canonicalName), matchedName: s.canonicalName, highlight: [], score: null, version: s.version }));
         return page(items, limit);
       }
       const wanted = Math.min(MAX_SEARCH_RESULTS, offset + limit);
@@ -134,7 +135,6 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
     const folded = words(q).map((w) => w.folded).join(' ');
     const partial = (await namesLike(db, folded, wanted)).filter((p) => !seen.has(p.counterpartyId) && (seen.add(p.counterpartyId), true));
     const summaries = await getSummaries(db, [...scored.map((s) => s.counterpartyId), ...partial.map((p) => p.counterpartyId)]);
-    const legalForm = (name: string): string | null => analyse(name).legalForm?.family ?? null;
     const out = [
       ...scored.map((s) => ({ id: s.counterpartyId, matchedName: s.matchedName, score: jsonScore(s.score) })),
       ...partial.map((p) => ({ id: p.counterpartyId, matchedName: p.name, score: null })),
@@ -143,7 +143,7 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
       .slice(0, wanted)
       .map((hit) => {
         const s = summaries.get(hit.id)!;
-        return { ...hit, canonicalName: s.canonicalName, jurisdiction: s.jurisdiction, legalForm: legalForm(s.canonicalName), highlight: highlightRanges(hit.matchedName, q), version: s.version };
+        return { ...hit, canonicalName: s.canonicalName, jurisdiction: s.jurisdiction, legalForm: legalFormFamily(s.canonicalName), highlight: highlightRanges(hit.matchedName, q), version: s.version };
       });
     return out;
   }
@@ -423,7 +423,7 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
       const id = await activeOr308(request, reply, db, request.params.id);
       if (id === undefined) return reply;
       const mentions = await mentionsOfCounterparty(db, id, { afterId: decodeCursor(request.query.cursor), limit: request.query.limit + 1 });
-      return page(mentions, request.query.limit);
+      return page(mentions.map(withLegalForm), request.query.limit);
     },
   );
 
@@ -445,7 +445,17 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
                 type: 'array',
                 items: { type: 'object', properties: { contractId: { type: 'integer' }, role: { type: 'string', nullable: true }, counterpartyId: { type: 'integer', nullable: true }, ownEntityId: { type: 'integer', nullable: true }, name: { type: 'string' } } },
               },
-              relations: { type: 'array', items: RELATION_OUT },
+              relations: {
+                type: 'array',
+                items: {
+                  ...RELATION_OUT,
+                  properties: {
+                    ...RELATION_OUT.properties,
+                    relatedCounterpartyId: { type: 'integer', description: 'the counterparty at the other end of the relation' },
+                    relatedCanonicalName: { type: 'string', description: 'its canonical name' },
+                  },
+                },
+              },
             },
           },
           ...REDIRECT_308,
@@ -458,7 +468,10 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
       if (id === undefined) return reply;
       const view = await getCounterparty(ctx, id);
       const parties = await otherPartiesOf(db, id);
-      return { counterparty: { id, canonicalName: view.counterparty.canonicalName }, contracts: view.counterparty.contracts, parties, relations: view.counterparty.relations };
+      const relatedId = (r: { fromCounterpartyId: number; toCounterpartyId: number }) => (r.fromCounterpartyId === id ? r.toCounterpartyId : r.fromCounterpartyId);
+      const related = await getSummaries(db, [...new Set(view.counterparty.relations.map(relatedId))]);
+      const relations = view.counterparty.relations.map((r) => ({ ...r, relatedCounterpartyId: relatedId(r), relatedCanonicalName: related.get(relatedId(r))?.canonicalName ?? `counterparty #${relatedId(r)}` }));
+      return { counterparty: { id, canonicalName: view.counterparty.canonicalName }, contracts: view.counterparty.contracts, parties, relations };
     },
   );
 

@@ -2,6 +2,7 @@
 import { setAsideMention, unlinkMention, withdrawMention } from '../../../register/upkeep.ts';
 import { addOwnEntity, ownEntities, removeOwnEntity } from '../../../register/own-entities.ts';
 import { getMention } from '../../../../db/queries/mentions.ts';
+import { withLegalForm } from './legal-form.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import type { RoutePlugin } from '../../types.ts';
 import { COUNTRY, ID_PARAM, IDENTIFIER, MENTION_OUT, NAME, REASON, actorOf, v1Scope } from './common.ts';
@@ -34,7 +35,7 @@ export const upkeepRoutes: RoutePlugin = (app, deps) => {
     async (request) => {
       const mention = await getMention(deps.db, request.params.id);
       if (!mention) throw new ApiError('NOT_FOUND', `mention ${request.params.id} does not exist`);
-      return mention;
+      return withLegalForm(mention);
     },
   );
 

@@ -108,6 +108,7 @@ export async function render(main, { params, session, navigate }) {
       null,
       canSplit ? h('td', { class: 'check' }, box) : null,
       h('td', null, m.text),
+      h('td', null, m.legalForm ? h('abbr', { title: `family ${m.legalForm.family}` }, m.legalForm.text) : '—'),
       h('td', null, m.contractId ? contractLink(m.contractId, m.contract ? m.contract.externalId : undefined) : '—'),
       h('td', null, m.role ?? '—'),
       h('td', null, m.status, m.confirmedBy ? h('span', { class: 'muted' }, ` · ${m.confirmedBy}`) : ''),
@@ -121,7 +122,7 @@ export async function render(main, { params, session, navigate }) {
     h(
       'table',
       { class: 'table', id: 'mentions' },
-      h('thead', null, h('tr', null, canSplit ? h('th', { scope: 'col' }, h('span', { class: 'visually-hidden' }, 'Choose')) : null, h('th', { scope: 'col' }, 'As written'), h('th', { scope: 'col' }, 'Contract'), h('th', { scope: 'col' }, 'Role'), h('th', { scope: 'col' }, 'Status'), h('th', { scope: 'col' }, 'Score'), h('th', { scope: 'col' }, 'Source'))),
+      h('thead', null, h('tr', null, canSplit ? h('th', { scope: 'col' }, h('span', { class: 'visually-hidden' }, 'Choose')) : null, h('th', { scope: 'col' }, 'As written'), h('th', { scope: 'col' }, 'Legal form'), h('th', { scope: 'col' }, 'Contract'), h('th', { scope: 'col' }, 'Role'), h('th', { scope: 'col' }, 'Status'), h('th', { scope: 'col' }, 'Score'), h('th', { scope: 'col' }, 'Source'))),
       h('tbody', null, mentionRows),
     ),
   );

@@ -52,18 +52,12 @@ function drawNode(node, cx) {
 export async function render(main, { params }) {
   const id = Number(params[0]);
   const { data } = await api(`/v1/counterparties/${id}/network`);
-  // Relations carry ids only: read the names of related counterparties that share no contract (a few at most).
-  const named = new Map(data.parties.filter((p) => p.counterpartyId !== null).map((p) => [p.counterpartyId, p.name]));
-  const relatedIds = [...new Set((data.relations ?? []).map((r) => (r.fromCounterpartyId === data.counterparty.id ? r.toCounterpartyId : r.fromCounterpartyId)))].filter((x) => !named.has(x)).slice(0, 20);
-  const relatedNames = new Map(
-    await Promise.all(relatedIds.map((x) => api(`/v1/counterparties/${x}`).then((r) => [x, r.data.canonicalName], () => [x, `counterparty #${x}`]))),
-  );
+  // Relations carry the related counterparty's canonical name (relatedCanonicalName); the layout labels them.
   if (data.counterparty.id !== id) history.replaceState(null, '', `#/network/${data.counterparty.id}`);
   // A narrow window gets a portrait layout with shorter labels, drawn at a readable size inside a pane
   // that scrolls sideways (the page itself does not).
   const compact = main.clientWidth < 700;
   const layout = compact ? layoutNetwork(data, { width: 520, height: 760, labelRoom: 150 }) : layoutNetwork(data, { width: 1000, height: 720, labelRoom: 215 });
-  for (const node of layout.nodes) if (node.kind === 'counterparty' && relatedNames.has(node.id)) node.label = relatedNames.get(node.id);
   labelLength = compact ? 18 : 26;
   const box = layout.bounds;
   const at = new Map(layout.nodes.map((n) => [n.key, n]));
@@ -99,7 +93,7 @@ export async function render(main, { params }) {
         ? h('p', null, 'Relations: ', data.relations.flatMap((r, i) => {
             const outgoing = r.fromCounterpartyId === data.counterparty.id;
             const other = outgoing ? r.toCounterpartyId : r.fromCounterpartyId;
-            const name = named.get(other) ?? relatedNames.get(other) ?? `#${other}`;
+            const name = r.relatedCanonicalName ?? `#${other}`;
             return [i ? '; ' : '', outgoing ? `${r.type.replaceAll('_', ' ')} ` : `${r.type.replaceAll('_', ' ')} (from) `, h('a', { href: `#/counterparty/${other}` }, name)];
           }))
         : null,

@@ -55,6 +55,13 @@ function identifierLines(list) {
   return h('ul', { class: 'plain-list' }, list.map((x) => h('li', null, h('span', { class: 'scheme' }, x.scheme), ' ', h('code', null, x.value))));
 }
 
+/** The mention's legal form as the API analysed it ("B.V." · family bv), with how the matcher compared it. */
+function mentionLegalForm(legalForm, level) {
+  const compared = level ? ` · compared: ${String(level).replaceAll('_', ' ')}` : '';
+  if (!legalForm) return `none${compared}`;
+  return h('span', null, h('strong', null, legalForm.text), h('span', { class: 'muted' }, ` family ${legalForm.family}${compared}`));
+}
+
 function mentionSide(item) {
   const m = item.mention;
   const form = (item.evidence?.features ?? []).find((f) => f.feature === 'legalForm');
@@ -64,7 +71,7 @@ function mentionSide(item) {
     h('p', { class: 'side-kind' }, 'Mention as written'),
     h('h2', { class: 'side-name' }, m.text),
     facts([
-      ['Legal form', form?.level ? `compared: ${String(form.level).replaceAll('_', ' ')}` : '—'],
+      ['Legal form', mentionLegalForm(m.legalForm, form?.level)],
       ['Country', m.country ?? '—'],
       ['Address', m.address ?? '—'],
       ['Identifiers', identifierLines(m.identifiers)],

@@ -13,9 +13,7 @@ export function jurisdictionBadge(jurisdiction) {
   return h('span', { class: 'badge badge-place', title: 'jurisdiction' }, jurisdiction ?? 'jurisdiction unknown');
 }
 
-// Without a query the API lists counterparties in id order and does not analyse their legal form (it answers
-// null): the badge is then left out rather than claim there is none.
-function resultItem(hit, searched) {
+function resultItem(hit) {
   const other = hit.matchedName !== hit.canonicalName;
   return h(
     'li',
@@ -25,7 +23,7 @@ function resultItem(hit, searched) {
       { href: `#/counterparty/${hit.id}`, class: 'result-link', dataset: { id: String(hit.id) } },
       h('span', { class: 'result-name' }, highlighted(hit.matchedName, hit.highlight)),
       other ? h('span', { class: 'result-canonical' }, `registered as ${hit.canonicalName}`) : null,
-      h('span', { class: 'result-meta' }, searched ? legalFormBadge(hit.legalForm) : null, jurisdictionBadge(hit.jurisdiction), h('span', { class: 'result-id' }, `#${hit.id}`), hit.score !== null ? h('span', { class: 'result-score', title: 'match weight' }, `score ${num(hit.score, 1)}`) : null),
+      h('span', { class: 'result-meta' }, legalFormBadge(hit.legalForm), jurisdictionBadge(hit.jurisdiction), h('span', { class: 'result-id' }, `#${hit.id}`), hit.score !== null ? h('span', { class: 'result-score', title: 'match weight' }, `score ${num(hit.score, 1)}`) : null),
     ),
   );
 }
@@ -48,7 +46,7 @@ export function render(main, { query }) {
       const path = q ? `/v1/counterparties?q=${encodeURIComponent(q)}&limit=25` : '/v1/counterparties?limit=25';
       const { data } = await api(path, { signal: controller.signal });
       if (mine !== sequence) return;
-      replace(results, data.items.map((hit) => resultItem(hit, Boolean(q))));
+      replace(results, data.items.map((hit) => resultItem(hit)));
       status.textContent = q
         ? data.items.length === 0 ? `Nothing found for “${q}”.` : `${data.items.length}${data.nextCursor ? '+' : ''} found for “${q}”, best first.`
         : 'Type to search. Below: the first counterparties in the register, in the order they were created.';
