@@ -1,0 +1,121 @@
+/**
+ * Concurrency on PostgreSQL: 50 concurrent clients (each its own loop over the register services, sharing one
+ * connection pool as the service does) mix resolve, merge, split, undo and review decisions for a bounded time
+ * (about 20 s; 120 s under CPREG_LONG=1). Refusals the register is built to give (conflict, undo blocked,
+ * already undone…) are counted; any other error fails the run. At the end every acknowledged change is in the
+ * history with its type (an undo's target marked undone), and verify (invariants and replay) passes.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import {
+  createRegisterContext,
+  decideReview,
+  listReviewItems,
+  mergeCounterparties,
+  RegisterError,
+  resolveMention,
+  splitCounterparty,
+  undoEvent,
+  type RegisterContext,
+} from '../../services/register/index.ts';
+import { verifyRegister } from '../../services/verify/index.ts';
+import { seededRandom, type Random } from '../../resolvers/prng.ts';
+import { isBackendAvailable, openTestDatabase, type TestDatabase } from '../support/index.ts';
+
+const LONG = process.env.CPREG_LONG === '1';
+const CLIENTS = 50;
+const DURATION_MS = LONG ? 120_000 : 20_000;
+const WHO = { actor: 'test:concurrency' };
+
+const WORDS = ['Ashcombe', 'Brindle', 'Corvale', 'Dunmere', 'Eskdale', 'Farrow', 'Gildersome', 'Hexley', 'Ingleby', 'Jessop'];
+const FORMS = ['Ltd', 'Limited', 'GmbH', 'LLC'];
+
+type Ack = { type: string; eventId: number; undoes?: number };
+
+(isBackendAvailable('postgres') ? describe : describe.skip)('concurrency: 50 clients on PostgreSQL [postgres]', () => {
+  let database: TestDatabase;
+  let ctx: RegisterContext;
+  beforeAll(async () => {
+    database = await openTestDatabase('postgres', { poolSize: 20 });
+    ctx = createRegisterContext(database.db);
+  });
+  afterAll(async () => {
+    await database?.close();
+  });
+
+  async function randomActive(rng: Random, n: number): Promise<number[]> {
+    const rows = await database.db.selectFrom('counterparty').select('id').where('status', '=', 'active').orderBy('id', 'desc').limit(60).execute();
+    const ids = rows.map((r) => Number(r.id));
+    const out = new Set<number>();
+    for (let i = 0; i < n * 3 && out.size < n && ids.length > 0; i++) out.add(rng.pick(ids));
+    return [...out];
+  }
+
+  async function client(id: number, deadline: number, acks: Ack[], refusals: Map<string, number>, failures: string[]): Promise<void> {
+    const rng = seededRandom(1000 + id);
+    let n = 0;
+    while (Date.now() < deadline) {
+      const roll = rng.int(100);
+      try {
+        if (roll < 45) {
+          const text = `${rng.pick(WORDS)} ${rng.pick(WORDS)} ${rng.pick(FORMS)}`;
+          const r = await resolveMention(ctx, { source: `c${id}`, externalId: String(n++), text }, WHO);
+          if (r.eventId !== null) acks.push({ type: 'resolve', eventId: r.eventId });
+        } else if (roll < 60) {
+          const ids = await randomActive(rng, 2);
+          if (ids.length < 2) continue;
+          const r = await mergeCounterparties(ctx, { ids, reason: 'concurrency test' }, WHO);
+          acks.push({ type: 'merged', eventId: r.eventId });
+        } else if (roll < 75) {
+          const [cp] = await randomActive(rng, 1);
+          if (cp === undefined) continue;
+          const mentions = await database.db.selectFrom('mention').select('id').where('counterparty_id', '=', cp).limit(3).execute();
+          if (mentions.length < 2) continue;
+          const r = await splitCounterparty(ctx, cp, { mentionIds: [Number(mentions[0]!.id)], reason: 'concurrency test' }, WHO);
+          acks.push({ type: 'split', eventId: r.eventId });
+        } else if (roll < 88) {
+          const recent = await database.db.selectFrom('history_event').select('id').where('type', 'in', ['merged', 'split', 'linked', 'created']).orderBy('id', 'desc').limit(20).execute();
+          if (recent.length === 0) continue;
+          const target = Number(rng.pick(recent).id);
+          const r = await undoEvent(ctx, target, WHO);
+          acks.push({ type: 'undone', eventId: r.eventId, undoes: target });
+        } else {
+          const items = await listReviewItems(ctx, { limit: 5 });
+          if (items.length === 0) continue;
+          const item = rng.pick(items);
+          const r = await decideReview(ctx, item.id, { decision: rng.chance(0.5) ? 'same' : 'different', reason: 'concurrency test' }, WHO);
+          acks.push({ type: 'review_decided', eventId: r.eventId });
+        }
+      } catch (error) {
+        if (error instanceof RegisterError) refusals.set(error.code, (refusals.get(error.code) ?? 0) + 1);
+        else failures.push(`client ${id}: ${(error as Error).message}`);
+      }
+    }
+  }
+
+  it('every acknowledged change is in the history and verify passes', async () => {
+    const acks: Ack[] = [];
+    const refusals = new Map<string, number>();
+    const failures: string[] = [];
+    const deadline = Date.now() + DURATION_MS;
+    await Promise.all(Array.from({ length: CLIENTS }, (_, i) => client(i, deadline, acks, refusals, failures)));
+    expect(failures).toEqual([]);
+    const byType = new Map<string, number>();
+    for (const a of acks) byType.set(a.type, (byType.get(a.type) ?? 0) + 1);
+    // The mix really happened.
+    for (const type of ['resolve', 'merged', 'split', 'undone']) expect(byType.get(type) ?? 0, type).toBeGreaterThan(0);
+
+    const events = await database.db.selectFrom('history_event').select(['id', 'type', 'undoes_event_id']).execute();
+    const byId = new Map(events.map((e) => [Number(e.id), e]));
+    for (const ack of acks) {
+      const event = byId.get(ack.eventId);
+      expect(event, `acknowledged ${ack.type} event ${ack.eventId}`).toBeDefined();
+      if (ack.type !== 'resolve') expect(event!.type).toBe(ack.type);
+      if (ack.undoes !== undefined) expect(Number(event!.undoes_event_id)).toBe(ack.undoes);
+    }
+    const report = await verifyRegister(database.db);
+    expect(report.checks.filter((c) => !c.ok)).toEqual([]);
+    process.stdout.write(
+      `concurrency: ${CLIENTS} clients, ${DURATION_MS / 1000} s: acknowledged ${JSON.stringify(Object.fromEntries(byType))}, refused ${JSON.stringify(Object.fromEntries(refusals))}, ${report.counts.historyEvents} events replayed\n`,
+    );
+  }, DURATION_MS + 240_000);
+});
