@@ -12,9 +12,11 @@
  *     are the same for any input order.
  *  3. A cluster with one counterparty links all its mentions to it; a cluster without one becomes one new
  *     counterparty; a lone mention whose best score was between the thresholds goes to review.
- *  4. Writes go cluster by cluster (each one transaction, with its events), in the order of each cluster's
- *     smallest (source, externalId), so even the new ids do not depend on the input order.
+ *  4. Writes go cluster by cluster (one event per mention), in the order of each cluster's smallest
+ *     (source, externalId), so even the new ids do not depend on the input order. Consecutive clusters share a
+ *     transaction up to WRITE_CHUNK mentions (a retry runs the whole chunk again).
  */
+import { sql } from 'kysely';
 import { candidatePairs, type MatchRecord } from '../../resolvers/block/index.ts';
 import { clusterRecords, type ScoredEdge } from '../../resolvers/cluster/index.ts';
 import { scorePair } from '../../resolvers/score/index.ts';
@@ -24,9 +26,10 @@ import { RegisterError } from './errors.ts';
 import { commitEvent } from './history/commit.ts';
 import { currentModel } from './matching/model.ts';
 import { idfFor } from './matching/idf.ts';
-import { jsonScore, scoredCandidates } from './matching/candidates.ts';
-import { applyOutcome, eventTypeFor } from './resolve/apply.ts';
-import { decide, type Outcome } from './resolve/decide.ts';
+import { BatchReads } from './matching/batch-reads.ts';
+import { jsonScore, MAX_CANDIDATES, scoredCandidates } from './matching/candidates.ts';
+import { applyOutcome, canonicalNameIn, eventTypeFor } from './resolve/apply.ts';
+import { decide, type ContractContext, type Outcome } from './resolve/decide.ts';
 import { prepareMention, type PreparedMention } from './resolve/prepare.ts';
 import { contractContextFor, lockNameNeighbourhood, resultOf, type ResolveResult } from './resolve/resolve-mention.ts';
 import { write } from './transaction.ts';
@@ -43,6 +46,9 @@ interface Pending {
   outcome: Outcome;
 }
 
+/** Mentions written per transaction (whole clusters; a cluster larger than this is one transaction alone). */
+export const WRITE_CHUNK = 100;
+
 function sortKey(p: PreparedMention): string {
   return `${p.input.source}\u0000${p.input.externalId}`;
 }
@@ -52,6 +58,7 @@ export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[],
   const pending: Pending[] = [];
   const seen = new Map<string, number>();
   const { model } = await currentModel(ctx.db);
+  const checked: { index: number; prepared: PreparedMention; key: string }[] = [];
   for (const [index, input] of inputs.entries()) {
     let prepared: PreparedMention;
     try {
@@ -68,17 +75,34 @@ export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[],
       continue;
     }
     seen.set(key, index);
-    const stored = await ctx.db.selectFrom('mention').selectAll().where('source', '=', prepared.input.source).where('external_id', '=', prepared.input.externalId).executeTakeFirst();
-    if (stored && stored.content_hash === prepared.contentHash) {
-      results[index] = await resultOf(ctx.db, canonicalRow('mention', stored), { alreadyIngested: true, eventId: null });
+    checked.push({ index, prepared, key });
+  }
+  // The read-only phase reads in bulk: stored mentions in one statement, the candidates and token counts of every
+  // mention in one statement each (matching/batch-reads.ts), each contract once.
+  const stored = await storedMentions(ctx, checked.map((c) => c.prepared));
+  const reads = new BatchReads(ctx.db);
+  const toDecide = checked.filter((c) => stored.get(c.key)?.content_hash !== c.prepared.contentHash);
+  await reads.prefetch(toDecide.map((c) => c.prepared), MAX_CANDIDATES);
+  const contracts = new Map<string, Promise<ContractContext | null>>();
+  for (const { index, prepared, key } of checked) {
+    const found = stored.get(key);
+    if (found && found.content_hash === prepared.contentHash) {
+      results[index] = await resultOf(ctx.db, canonicalRow('mention', found), { alreadyIngested: true, eventId: null });
       continue;
     }
-    const contract = await ctx.db.transaction().execute((trx) => contractContextFor(new ChangeSet(trx, ctx.derived), prepared.input.contract));
+    const ref = prepared.input.contract;
+    let contract: ContractContext | null = null;
+    if (ref) {
+      const refKey = JSON.stringify([ref.source, ref.externalId]);
+      if (!contracts.has(refKey)) contracts.set(refKey, ctx.db.transaction().execute((trx) => contractContextFor(new ChangeSet(trx, ctx.derived), ref)));
+      contract = await contracts.get(refKey)!;
+    }
     const outcome = await decide(ctx.db, prepared, model, {
-      mentionId: stored ? Number(stored.id) : null,
+      mentionId: found ? Number(found.id) : null,
       contract,
       party: null,
       contractAwaited: prepared.input.contract !== undefined && contract === null,
+      reads,
     });
     pending.push({ index, prepared, key, outcome });
   }
@@ -86,22 +110,49 @@ export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[],
   // Mentions whose outcome does not depend on the rest of the batch.
   const final = pending.filter((p) => !['linked', 'new', 'review'].includes(p.outcome.status) || p.outcome.evidence.via !== 'register' || p.outcome.evidence.override === 'decisive_identifier');
   const matching = pending.filter((p) => !final.includes(p));
-  const groups = await clusterBatch(ctx, matching, model);
+  const groups = await clusterBatch(ctx, matching, model, reads);
   const plan: { members: Pending[]; counterpartyId: number | null }[] = final.map((p) => ({ members: [p], counterpartyId: null }));
   for (const g of groups) plan.push(g);
   plan.sort((a, b) => (a.members[0]!.key < b.members[0]!.key ? -1 : a.members[0]!.key > b.members[0]!.key ? 1 : 0));
 
-  for (const group of plan) {
-    const written = await writeGroup(ctx, group, who, final.includes(group.members[0]!), model.linkAt);
-    for (const [i, member] of group.members.entries()) results[member.index] = written[i]!;
+  // Several clusters share one transaction (one commit, so one WAL flush, per chunk instead of per cluster);
+  // each mention still records its own event, and a retried chunk re-reads everything it writes.
+  for (let start = 0; start < plan.length; ) {
+    const chunk: typeof plan = [];
+    let size = 0;
+    while (start < plan.length && (chunk.length === 0 || size + plan[start]!.members.length <= WRITE_CHUNK)) {
+      size += plan[start]!.members.length;
+      chunk.push(plan[start++]!);
+    }
+    const written = await write(ctx, async (cs) => {
+      const out: ResolveResult[][] = [];
+      for (const group of chunk) out.push(await writeGroup(ctx, cs, group, who, final.includes(group.members[0]!), model.linkAt));
+      return out;
+    });
+    chunk.forEach((group, g) => {
+      for (const [i, member] of group.members.entries()) results[member.index] = written[g]![i]!;
+    });
   }
   return results;
+}
+
+/** The stored mentions of a batch by (source, externalId) sort key, in one statement. */
+async function storedMentions(ctx: RegisterContext, prepared: PreparedMention[]): Promise<Map<string, Record<string, unknown> & { id: unknown; content_hash: string }>> {
+  const out = new Map<string, Record<string, unknown> & { id: unknown; content_hash: string }>();
+  if (prepared.length === 0) return out;
+  const result = await sql<Record<string, unknown> & { id: unknown; source: string; external_id: string; content_hash: string }>`
+    SELECT m.* FROM mention m
+    JOIN unnest(${sql.val(prepared.map((p) => p.input.source))}::text[], ${sql.val(prepared.map((p) => p.input.externalId))}::text[]) AS k(source, external_id)
+      ON m.source = k.source AND m.external_id = k.external_id`.execute(ctx.db);
+  for (const row of result.rows) out.set(`${row.source}\u0000${row.external_id}`, row);
+  return out;
 }
 
 async function clusterBatch(
   ctx: RegisterContext,
   matching: Pending[],
   model: Awaited<ReturnType<typeof currentModel>>['model'],
+  reads: BatchReads,
 ): Promise<{ members: Pending[]; counterpartyId: number | null }[]> {
   if (matching.length === 0) return [];
   const byKey = [...matching].sort((a, b) => (a.key < b.key ? -1 : 1));
@@ -111,12 +162,12 @@ async function clusterBatch(
     ...(p.prepared.input.country ? { country: p.prepared.input.country } : {}),
     identifiers: p.prepared.identifiers,
   }));
-  const idf = await idfFor(ctx.db, records.flatMap((r) => r.analysis.tokens));
+  const idf = await idfFor(ctx.db, records.flatMap((r) => r.analysis.tokens), reads);
   const edges: ScoredEdge[] = [];
   const cannot: [string, string][] = [];
   const cps = new Set<string>();
   for (const p of byKey) {
-    const candidates = await scoredCandidates(ctx.db, { analysis: p.prepared.analysis, country: p.prepared.input.country ?? null, identifiers: p.prepared.identifiers }, model);
+    const candidates = await scoredCandidates(ctx.db, { analysis: p.prepared.analysis, country: p.prepared.input.country ?? null, identifiers: p.prepared.identifiers }, model, new Set(), reads);
     for (const c of candidates) {
       const cpNode = `cp:${c.counterpartyId}`;
       cps.add(cpNode);
@@ -149,49 +200,55 @@ async function clusterBatch(
 
 async function writeGroup(
   ctx: RegisterContext,
+  cs: ChangeSet,
   group: { members: Pending[]; counterpartyId: number | null },
   who: ActorInput,
   fixed: boolean,
   linkAt: number,
 ): Promise<ResolveResult[]> {
-  return write(ctx, async (cs) => {
-    const at = ctx.now();
-    const out: ResolveResult[] = [];
-    let target = group.counterpartyId;
-    for (const [i, member] of group.members.entries()) {
-      await lockNameNeighbourhood(cs, member.prepared);
-      let outcome = member.outcome;
-      if (!fixed) {
-        const lone = group.members.length === 1 && target === null;
-        if (target !== null) {
-          outcome = { ...outcome, status: 'linked', counterpartyId: target, recordName: true, evidence: { ...outcome.evidence, summary: `clustered with counterparty ${target} in a batch (linkAt ${linkAt})`, via: 'batch' } };
-        } else if (lone && outcome.status === 'review') {
-          // keep review: nothing in the batch or the register is close enough to decide
-        } else if (i === 0) {
-          outcome = { ...outcome, status: 'new', counterpartyId: undefined, recordName: true, evidence: { ...outcome.evidence, summary: group.members.length > 1 ? `a new counterparty for ${group.members.length} mentions of this batch clustered together` : outcome.evidence.summary, via: 'batch' } };
-        }
+  const at = ctx.now();
+  const out: ResolveResult[] = [];
+  let target = group.counterpartyId;
+  for (const [i, member] of group.members.entries()) {
+    await lockNameNeighbourhood(cs, member.prepared);
+    let outcome = member.outcome;
+    if (!fixed) {
+      const lone = group.members.length === 1 && target === null;
+      if (target !== null) {
+        outcome = { ...outcome, status: 'linked', counterpartyId: target, recordName: true, evidence: { ...outcome.evidence, summary: `clustered with counterparty ${target} in a batch (linkAt ${linkAt})`, via: 'batch' } };
+      } else if (lone && outcome.status === 'review') {
+        // keep review: nothing in the batch or the register is close enough to decide
+      } else if (i === 0) {
+        outcome = { ...outcome, status: 'new', counterpartyId: undefined, recordName: true, evidence: { ...outcome.evidence, summary: group.members.length > 1 ? `a new counterparty for ${group.members.length} mentions of this batch clustered together` : outcome.evidence.summary, via: 'batch' } };
       }
-      const found = await cs.trx.selectFrom('mention').select(['id', 'counterparty_id']).where('source', '=', member.prepared.input.source).where('external_id', '=', member.prepared.input.externalId).executeTakeFirst();
-      let previous;
-      if (found) {
-        if (found.counterparty_id !== null) await cs.lock('counterparty', [Number(found.counterparty_id)]);
-        previous = await cs.require('mention', Number(found.id));
-        await detachMention(cs, previous, at);
-        await closeOpenItemsOfMention(cs, previous.id as number);
-      }
-      const contract = await contractContextFor(cs, member.prepared.input.contract);
-      const applied = await applyOutcome(cs, member.prepared, outcome, found ? await cs.require('mention', Number(found.id)) : undefined, { contractId: contract?.contractId ?? null, at });
-      if (applied.createdCounterparty) target = applied.counterpartyId;
-      const eventId = await commitEvent(cs, {
-        type: eventTypeFor(previous, applied, previous !== undefined),
-        actor: who.actor,
-        at,
-        reason: who.reason,
-        requestId: who.requestId,
-        details: { entity: 'mention', mentionId: applied.mention.id, status: outcome.status, counterpartyId: applied.counterpartyId, batch: true, score: outcome.score === null ? null : jsonScore(outcome.score) },
-      });
-      out.push(await resultOf(cs.trx, applied.mention, { alreadyIngested: false, eventId, reviewItemId: applied.reviewItemId }));
     }
-    return out;
-  });
+    const found = await cs.trx.selectFrom('mention').select(['id', 'counterparty_id']).where('source', '=', member.prepared.input.source).where('external_id', '=', member.prepared.input.externalId).executeTakeFirst();
+    let previous;
+    if (found) {
+      if (found.counterparty_id !== null) await cs.lock('counterparty', [Number(found.counterparty_id)]);
+      previous = await cs.require('mention', Number(found.id));
+      await detachMention(cs, previous, at);
+      await closeOpenItemsOfMention(cs, previous.id as number);
+    }
+    const contract = await contractContextFor(cs, member.prepared.input.contract);
+    const applied = await applyOutcome(cs, member.prepared, outcome, found ? await cs.require('mention', Number(found.id)) : undefined, { contractId: contract?.contractId ?? null, at });
+    if (applied.createdCounterparty) target = applied.counterpartyId;
+    const eventId = await commitEvent(cs, {
+      type: eventTypeFor(previous, applied, previous !== undefined),
+      actor: who.actor,
+      at,
+      reason: who.reason,
+      requestId: who.requestId,
+      details: { entity: 'mention', mentionId: applied.mention.id, status: outcome.status, counterpartyId: applied.counterpartyId, batch: true, score: outcome.score === null ? null : jsonScore(outcome.score) },
+    });
+    out.push(
+      await resultOf(cs.trx, applied.mention, {
+        alreadyIngested: false,
+        eventId,
+        reviewItemId: applied.reviewItemId,
+        canonicalName: canonicalNameIn(cs, (applied.mention.counterparty_id as number | null) ?? null),
+      }),
+    );
+  }
+  return out;
 }

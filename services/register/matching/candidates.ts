@@ -9,6 +9,7 @@ import type { Identifier } from '../../../resolvers/vocabulary.ts';
 import { candidateDetails } from '../../../db/queries/blocking-keys.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
 import { analyse } from './analysis.ts';
+import type { BatchReads } from './batch-reads.ts';
 import { idfFor } from './idf.ts';
 import { keysOfAnalysis } from './keys.ts';
 
@@ -41,16 +42,37 @@ export function probeRecord(probe: Probe): MatchRecord {
 /**
  * Scores the register's candidates for `probe`, best first. `exclude`: counterparties this name must not join
  * (cannot-links), which are scored anyway but marked by scorePair as cannot_link (score −∞) so that the
- * explanation says why.
+ * explanation says why. `reads`: a batch's shared reads (prefetched candidates, token counts, and the answer for
+ * a probe already scored in this batch).
  */
 export async function scoredCandidates(
   db: Queryable,
   probe: Probe,
   model: MatchModel,
   exclude: ReadonlySet<number> = new Set(),
+  reads?: BatchReads,
+): Promise<ScoredCandidate[]> {
+  const memoKey = { country: probe.country ?? null, identifiers: probe.identifiers, exclude };
+  const memo = reads?.scoredFor<ScoredCandidate[]>(probe.analysis, memoKey);
+  if (memo) return memo;
+  const out = await scoreCandidates(db, probe, model, exclude, reads);
+  reads?.rememberScored(probe.analysis, memoKey, out);
+  return out;
+}
+
+async function scoreCandidates(
+  db: Queryable,
+  probe: Probe,
+  model: MatchModel,
+  exclude: ReadonlySet<number>,
+  reads: BatchReads | undefined,
 ): Promise<ScoredCandidate[]> {
   const keys = keysOfAnalysis(probe.analysis);
-  const details = await candidateDetails(db, keys, probe.identifiers, { limit: MAX_CANDIDATES });
+  let details = reads?.detailsFor(keys, probe.identifiers);
+  if (!details) {
+    details = await candidateDetails(db, keys, probe.identifiers, { limit: MAX_CANDIDATES });
+    reads?.rememberDetails(keys, probe.identifiers, details);
+  }
   if (details.length === 0) return [];
   const analysed = details.map((cp) => ({
     id: cp.counterpartyId,
@@ -58,7 +80,7 @@ export async function scoredCandidates(
     names: cp.names.filter((n) => n.kind !== 'former').map((n) => ({ name: n.name, analysis: analyse(n.name, cp.jurisdiction) })),
     identifiers: cp.identifiers.map((i) => ({ scheme: i.scheme, value: i.value, ...(i.label ? { label: i.label } : {}) }) as Identifier),
   }));
-  const idf = await idfFor(db, [probe.analysis.tokens, ...analysed.flatMap((a) => a.names.map((n) => n.analysis.tokens))].flat());
+  const idf = await idfFor(db, [probe.analysis.tokens, ...analysed.flatMap((a) => a.names.map((n) => n.analysis.tokens))].flat(), reads);
   const record = probeRecord(probe);
   const out: ScoredCandidate[] = [];
   for (const candidate of analysed) {

@@ -3,6 +3,9 @@
  * token). Counting is capped at DF_CAP per token so that a very common word ("holdings") costs one short index
  * scan; every token at or above the cap counts as equally common. N is a fixed reference size, so the weights
  * depend only on the register's contents, never on an estimate that differs between instances.
+ *
+ * Each token's weight depends on its own count only, so a table built from more tokens than a comparison uses
+ * gives the same weights (what lets a batch read the counts of all its tokens once: matching/batch-reads.ts).
  */
 import { sql } from 'kysely';
 import { idfTableFromFrequencies, type IdfTable } from '../../../resolvers/compare/index.ts';
@@ -11,7 +14,8 @@ import type { Queryable } from '../../../db/queries/util.ts';
 export const DF_CAP = 1000;
 export const REFERENCE_DOCUMENTS = 1_000_000;
 
-export async function idfFor(db: Queryable, tokens: Iterable<string>): Promise<IdfTable> {
+/** Capped document frequency of each distinct token. */
+export async function documentFrequencies(db: Queryable, tokens: Iterable<string>): Promise<Map<string, number>> {
   const unique = [...new Set(tokens)];
   const frequencies = new Map<string, number>();
   if (unique.length > 0) {
@@ -20,5 +24,13 @@ export async function idfFor(db: Queryable, tokens: Iterable<string>): Promise<I
       FROM unnest(${sql.val(unique)}::text[]) AS t(token)`.execute(db);
     for (const row of result.rows) frequencies.set(row.token, Number(row.df));
   }
+  return frequencies;
+}
+
+export function idfFromFrequencies(frequencies: ReadonlyMap<string, number>): IdfTable {
   return idfTableFromFrequencies(frequencies, REFERENCE_DOCUMENTS);
+}
+
+export async function idfFor(db: Queryable, tokens: Iterable<string>, reads?: { frequencies(tokens: Iterable<string>): Promise<Map<string, number>> }): Promise<IdfTable> {
+  return idfFromFrequencies(reads ? await reads.frequencies(tokens) : await documentFrequencies(db, tokens));
 }

@@ -20,6 +20,7 @@ import { survivorsOf } from '../../../db/queries/counterparties.ts';
 import { analyse } from '../matching/analysis.ts';
 import { idfFor } from '../matching/idf.ts';
 import { jsonScore, probeRecord, scoredCandidates, type Probe, type ScoredCandidate } from '../matching/candidates.ts';
+import type { BatchReads } from '../matching/batch-reads.ts';
 import type { PreparedMention } from './prepare.ts';
 
 export interface ContractContext {
@@ -52,10 +53,10 @@ function summaryOf(c: ScoredCandidate) {
   return { counterpartyId: c.counterpartyId, name: c.canonicalName, matchedName: c.matchedName, score: jsonScore(c.score) };
 }
 
-async function ownEntityMatch(db: Queryable, probe: Probe, model: MatchModel, partyIsOwn: boolean): Promise<{ id: number; name: string; score: number } | undefined> {
-  const own = await listOwnEntities(db);
+async function ownEntityMatch(db: Queryable, probe: Probe, model: MatchModel, partyIsOwn: boolean, reads: BatchReads | undefined): Promise<{ id: number; name: string; score: number } | undefined> {
+  const own = reads ? await reads.ownEntities() : await listOwnEntities(db);
   if (own.length === 0) return undefined;
-  const idf = await idfFor(db, probe.analysis.tokens);
+  const idf = await idfFor(db, probe.analysis.tokens, reads);
   let best: { id: number; name: string; score: number } | undefined;
   for (const entity of own) {
     const record = {
@@ -90,7 +91,7 @@ export async function decide(
   db: Queryable,
   prepared: PreparedMention,
   model: MatchModel,
-  context: { mentionId: number | null; contract: ContractContext | null; party: PartyContext | null; contractAwaited: boolean },
+  context: { mentionId: number | null; contract: ContractContext | null; party: PartyContext | null; contractAwaited: boolean; reads?: BatchReads },
 ): Promise<Outcome> {
   const base = { thresholds: { linkAt: model.linkAt, newAt: model.newAt } };
   let probe: Probe = { analysis: prepared.analysis, country: prepared.input.country ?? null, identifiers: prepared.identifiers };
@@ -138,7 +139,7 @@ export async function decide(
     return { status: 'not_a_party', score: null, recordName: false, evidence: { ...base, summary: `"${prepared.text}" does not name a party (name analysis)`, via: 'analysis' } };
   }
 
-  const own = await ownEntityMatch(db, probe, model, context.party?.ownEntity === true);
+  const own = await ownEntityMatch(db, probe, model, context.party?.ownEntity === true, context.reads);
   if (own || context.party?.ownEntity) {
     if (own) {
       return {
@@ -152,7 +153,7 @@ export async function decide(
   }
 
   const exclude = await excludedFor(db, context.mentionId);
-  const candidates = await scoredCandidates(db, probe, model, exclude);
+  const candidates = await scoredCandidates(db, probe, model, exclude, context.reads);
   const top = candidates.slice(0, 5).map(summaryOf);
   const best = candidates.find((c) => c.score !== -Infinity);
   const common = { ...base, via, ...(term ? { term } : {}), candidates: top };

@@ -1,0 +1,95 @@
+/**
+ * Reads shared by the mentions of one batch, during its read-only phase (nothing is written until every mention
+ * is decided and clustered): our own entities read once, token document frequencies read once per token, and
+ * the candidates of every mention fetched in ONE statement (db/queries/blocking-keys.ts candidateDetailsBatch)
+ * instead of one per mention. Each value is exactly what the per-mention read would answer on the same snapshot,
+ * so the outcomes do not change; the memo lives for one batch only and is never shared between requests.
+ */
+import type { NameAnalysis } from '../../../resolvers/analyse/types.ts';
+import type { Identifier } from '../../../resolvers/vocabulary.ts';
+import { candidateDetailsBatch, type CandidateDetail } from '../../../db/queries/blocking-keys.ts';
+import { listOwnEntities, type OwnEntityView } from '../../../db/queries/own-entities.ts';
+import type { Queryable } from '../../../db/queries/util.ts';
+import { analyse } from './analysis.ts';
+import { documentFrequencies } from './idf.ts';
+import { keysOfAnalysis } from './keys.ts';
+
+export interface ScoredMemoKey {
+  country: string | null;
+  identifiers: Identifier[];
+  exclude: ReadonlySet<number>;
+}
+
+function detailKey(keys: readonly string[], identifiers: readonly { scheme: string; value: string }[]): string {
+  return JSON.stringify([keys, identifiers.map((i) => [i.scheme, i.value])]);
+}
+
+export class BatchReads {
+  private own: Promise<OwnEntityView[]> | undefined;
+  private readonly df = new Map<string, number>();
+  private readonly details = new Map<string, CandidateDetail[]>();
+  /** Scored candidates by analysis object (the same prepared mention is scored in decide and in clustering). */
+  private readonly scored = new WeakMap<NameAnalysis, Map<string, unknown>>();
+
+  constructor(readonly db: Queryable) {}
+
+  ownEntities(): Promise<OwnEntityView[]> {
+    this.own ??= listOwnEntities(this.db);
+    return this.own;
+  }
+
+  /** Document frequencies of `tokens`, reading only those not read before in this batch. */
+  async frequencies(tokens: Iterable<string>): Promise<Map<string, number>> {
+    const wanted = [...new Set(tokens)];
+    const missing = wanted.filter((t) => !this.df.has(t));
+    if (missing.length > 0) for (const [token, df] of await documentFrequencies(this.db, missing)) this.df.set(token, df);
+    return new Map(wanted.map((t) => [t, this.df.get(t)!]));
+  }
+
+  /** Fetches the candidates of many probes in one statement (see candidateDetailsBatch). */
+  async prefetch(probes: { analysis: NameAnalysis; identifiers: Identifier[] }[], limit: number): Promise<void> {
+    const todo = new Map<string, { keys: string[]; identifiers: Identifier[] }>();
+    for (const probe of probes) {
+      const keys = keysOfAnalysis(probe.analysis);
+      const key = detailKey(keys, probe.identifiers);
+      if (!this.details.has(key)) todo.set(key, { keys, identifiers: probe.identifiers });
+    }
+    if (todo.size === 0) return;
+    const entries = [...todo.entries()];
+    const found = await candidateDetailsBatch(
+      this.db,
+      entries.map(([, p]) => p),
+      { limit },
+    );
+    entries.forEach(([key], i) => this.details.set(key, found[i]!));
+    // The token counts scoring will ask for: the probes' tokens and those of every candidate name, in one read.
+    const tokens = new Set<string>();
+    for (const probe of probes) for (const t of probe.analysis.tokens) tokens.add(t);
+    for (const list of found) {
+      for (const cp of list) for (const n of cp.names) for (const t of analyse(n.name, cp.jurisdiction).tokens) tokens.add(t);
+    }
+    await this.frequencies(tokens);
+  }
+
+  detailsFor(keys: readonly string[], identifiers: readonly { scheme: string; value: string }[]): CandidateDetail[] | undefined {
+    return this.details.get(detailKey(keys, identifiers));
+  }
+
+  rememberDetails(keys: readonly string[], identifiers: readonly { scheme: string; value: string }[], details: CandidateDetail[]): void {
+    this.details.set(detailKey(keys, identifiers), details);
+  }
+
+  scoredFor<T>(analysis: NameAnalysis, key: ScoredMemoKey): T | undefined {
+    return this.scored.get(analysis)?.get(scoredKey(key)) as T | undefined;
+  }
+
+  rememberScored(analysis: NameAnalysis, key: ScoredMemoKey, value: unknown): void {
+    let byKey = this.scored.get(analysis);
+    if (!byKey) this.scored.set(analysis, (byKey = new Map()));
+    byKey.set(scoredKey(key), value);
+  }
+}
+
+function scoredKey(key: ScoredMemoKey): string {
+  return JSON.stringify([key.country, key.identifiers.map((i) => [i.scheme, i.value, i.label ?? null]), [...key.exclude].sort((a, b) => a - b)]);
+}
