@@ -31,7 +31,7 @@ import { jsonScore, MAX_CANDIDATES, scoredCandidates } from './matching/candidat
 import { applyOutcome, canonicalNameIn, eventTypeFor } from './resolve/apply.ts';
 import { decide, type ContractContext, type Outcome } from './resolve/decide.ts';
 import { prepareMention, type PreparedMention } from './resolve/prepare.ts';
-import { contractContextFor, lockNameNeighbourhood, resultOf, type ResolveResult } from './resolve/resolve-mention.ts';
+import { contractContextFor, lockNameNeighbourhoods, resultOf, type ResolveResult } from './resolve/resolve-mention.ts';
 import { write } from './transaction.ts';
 import { ChangeSet } from './state/change-set.ts';
 import { canonicalRow } from './state/tables.ts';
@@ -44,6 +44,8 @@ interface Pending {
   prepared: PreparedMention;
   key: string;
   outcome: Outcome;
+  /** The read phase found the mention stored (with another content). */
+  stored: boolean;
 }
 
 /** Mentions written per transaction (whole clusters; a cluster larger than this is one transaction alone). */
@@ -104,14 +106,14 @@ export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[],
       contractAwaited: prepared.input.contract !== undefined && contract === null,
       reads,
     });
-    pending.push({ index, prepared, key, outcome });
+    pending.push({ index, prepared, key, outcome, stored: found !== undefined });
   }
 
   // Mentions whose outcome does not depend on the rest of the batch.
-  const final = pending.filter((p) => !['linked', 'new', 'review'].includes(p.outcome.status) || p.outcome.evidence.via !== 'register' || p.outcome.evidence.override === 'decisive_identifier');
-  const matching = pending.filter((p) => !final.includes(p));
+  const final = new Set(pending.filter((p) => !['linked', 'new', 'review'].includes(p.outcome.status) || p.outcome.evidence.via !== 'register' || p.outcome.evidence.override === 'decisive_identifier'));
+  const matching = pending.filter((p) => !final.has(p));
   const groups = await clusterBatch(ctx, matching, model, reads);
-  const plan: { members: Pending[]; counterpartyId: number | null }[] = final.map((p) => ({ members: [p], counterpartyId: null }));
+  const plan: { members: Pending[]; counterpartyId: number | null }[] = [...final].map((p) => ({ members: [p], counterpartyId: null }));
   for (const g of groups) plan.push(g);
   plan.sort((a, b) => (a.members[0]!.key < b.members[0]!.key ? -1 : a.members[0]!.key > b.members[0]!.key ? 1 : 0));
 
@@ -124,9 +126,15 @@ export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[],
       size += plan[start]!.members.length;
       chunk.push(plan[start++]!);
     }
+    let attempt = 0;
     const written = await write(ctx, async (cs) => {
+      // The first attempt trusts the read phase about which mentions are not stored yet (one SELECT less each);
+      // if another request stored one meanwhile, its INSERT fails on the unique key, and the retry re-reads all.
+      const recheck = attempt++ > 0;
+      // Every neighbourhood lock of the chunk in one statement, in one sorted order, before any row lock.
+      await lockNameNeighbourhoods(cs, chunk.flatMap((g) => g.members.map((m) => m.prepared)));
       const out: ResolveResult[][] = [];
-      for (const group of chunk) out.push(await writeGroup(ctx, cs, group, who, final.includes(group.members[0]!), model.linkAt));
+      for (const group of chunk) out.push(await writeGroup(ctx, cs, group, who, final.has(group.members[0]!), model.linkAt, recheck));
       return out;
     });
     chunk.forEach((group, g) => {
@@ -205,12 +213,12 @@ async function writeGroup(
   who: ActorInput,
   fixed: boolean,
   linkAt: number,
+  recheck: boolean,
 ): Promise<ResolveResult[]> {
   const at = ctx.now();
   const out: ResolveResult[] = [];
   let target = group.counterpartyId;
   for (const [i, member] of group.members.entries()) {
-    await lockNameNeighbourhood(cs, member.prepared);
     let outcome = member.outcome;
     if (!fixed) {
       const lone = group.members.length === 1 && target === null;
@@ -222,7 +230,7 @@ async function writeGroup(
         outcome = { ...outcome, status: 'new', counterpartyId: undefined, recordName: true, evidence: { ...outcome.evidence, summary: group.members.length > 1 ? `a new counterparty for ${group.members.length} mentions of this batch clustered together` : outcome.evidence.summary, via: 'batch' } };
       }
     }
-    const found = await cs.trx.selectFrom('mention').select(['id', 'counterparty_id']).where('source', '=', member.prepared.input.source).where('external_id', '=', member.prepared.input.externalId).executeTakeFirst();
+    const found = !recheck && !member.stored ? undefined : await cs.trx.selectFrom('mention').select(['id', 'counterparty_id']).where('source', '=', member.prepared.input.source).where('external_id', '=', member.prepared.input.externalId).executeTakeFirst();
     let previous;
     if (found) {
       if (found.counterparty_id !== null) await cs.lock('counterparty', [Number(found.counterparty_id)]);

@@ -75,9 +75,17 @@ export async function resultOf(
 /** Serialises resolutions of look-alike names (same core or same 6-letter prefix, same strong identifier) across
  * instances, so that two concurrent mentions of one new company do not create it twice. Transaction-scoped. */
 export async function lockNameNeighbourhood(cs: ChangeSet, prepared: PreparedMention): Promise<void> {
-  const keys = keysOfAnalysis(prepared.analysis).filter((k) => k.startsWith('p:'));
-  keys.push(`core:${prepared.analysis.core}`);
-  for (const identifier of prepared.identifiers) keys.push(`id:${identifier.scheme}:${identifier.value}`);
+  await lockNameNeighbourhoods(cs, [prepared]);
+}
+
+/** The neighbourhood locks of many mentions in one statement (a batch chunk), taken in one sorted order. */
+export async function lockNameNeighbourhoods(cs: ChangeSet, many: PreparedMention[]): Promise<void> {
+  const keys: string[] = [];
+  for (const prepared of many) {
+    for (const k of keysOfAnalysis(prepared.analysis)) if (k.startsWith('p:')) keys.push(k);
+    keys.push(`core:${prepared.analysis.core}`);
+    for (const identifier of prepared.identifiers) keys.push(`id:${identifier.scheme}:${identifier.value}`);
+  }
   await sql`SELECT pg_advisory_xact_lock(h) FROM (SELECT DISTINCT hashtextextended(k, 0) AS h FROM unnest(${sql.val(keys)}::text[]) AS t(k) ORDER BY 1) s`.execute(
     cs.trx,
   );
