@@ -25,6 +25,8 @@ import type { BenchContext, BenchRow } from './types.ts';
 const ROR_FILE = join(dirname(fileURLToPath(import.meta.url)), '..', '..', 'shared', 'datasets', 'ror_org_names.csv');
 /** Share of dev entities kept in quick mode (whole entities, so every kept entity keeps all its true pairs). */
 const QUICK_SAMPLE = 0.1;
+/** Size at which the issue sets the RR goal. */
+const RR_GOAL_NAMES = 100_000;
 
 interface Labelled {
   names: { name: string; country?: string }[];
@@ -76,7 +78,8 @@ function rowsOf(dataset: string, m: Measured, size: number): BenchRow[] {
   const { overall, byCategory } = m.report;
   const base = { size, backend: 'memory' as const };
   const rows: BenchRow[] = [
-    { id: `blocking.${dataset}.reduction_ratio`, label: `RR, ${dataset}`, value: overall.reductionRatio, unit: 'ratio', better: 'higher', goal: { op: '>=', value: 0.999 }, ...base, extra: { candidatePairs: overall.candidatePairs, names: m.names, seconds: Math.round(m.seconds * 10) / 10 } },
+    // The RR goal is set at 100,000 names (issue 5): RR of a smaller set is not held to it (fewer pairs in all).
+    { id: `blocking.${dataset}.reduction_ratio`, label: `RR, ${dataset}${m.names < RR_GOAL_NAMES ? ' (goal applies at 100,000 names)' : ''}`, value: overall.reductionRatio, unit: 'ratio', better: 'higher', ...(m.names >= RR_GOAL_NAMES ? { goal: { op: '>=' as const, value: 0.999 } } : {}), ...base, extra: { candidatePairs: overall.candidatePairs, names: m.names, seconds: Math.round(m.seconds * 10) / 10 } },
     { id: `blocking.${dataset}.pc_latin_shared_word`, label: `PC on Latin-script non-acronym pairs sharing a word, ${dataset}`, value: byCategory.latin_shared_word.pairsCompleteness, unit: 'ratio', better: 'higher', goal: { op: '>=', value: 0.99 }, ...base, extra: { truePairs: byCategory.latin_shared_word.truePairs, found: byCategory.latin_shared_word.found } },
     { id: `blocking.${dataset}.pairs_completeness`, label: `PC all true pairs, ${dataset}`, value: overall.pairsCompleteness, unit: 'ratio', better: 'higher', ...base, extra: { truePairs: overall.truePairs, found: overall.trueCandidatePairs } },
     { id: `blocking.${dataset}.pairs_quality`, label: `PQ, ${dataset}`, value: overall.pairsQuality, unit: 'ratio', better: 'higher', ...base },
