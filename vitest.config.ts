@@ -9,6 +9,9 @@ export default defineConfig({
     testTimeout: 60_000,
     hookTimeout: 120_000,
     pool: 'forks',
+    // vitest's default is one worker fewer than the cores (one on our 2-core machines); most suites wait on
+    // PostgreSQL or on child processes, so two workers keep both cores busy and halve the wall time.
+    maxWorkers: 2,
     reporters: ['default'],
   },
 });

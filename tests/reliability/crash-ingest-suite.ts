@@ -13,7 +13,7 @@ import { afterAll, beforeAll, expect, it } from 'vitest';
 import { openDatabase } from '../../db/open-database.ts';
 import { seededRandom } from '../../resolvers/prng.ts';
 import { CPREG_BIN, REPO_ROOT, childEnv, runCli } from '../support/cli.ts';
-import { createMigratedDataDir, createPostgresCopy, dropPostgresCopy, forEachBackend, makeTempDir, removeTempDir } from '../support/index.ts';
+import { createMigratedDataDir, createPostgresCopy, dropPostgresCopy, isBackendAvailable, makeTempDir, removeTempDir, type TestBackend } from '../support/index.ts';
 import { describe } from 'vitest';
 
 const LONG = process.env.CPREG_LONG === '1';
@@ -50,7 +50,12 @@ function writeMentions(file: string, size: number): void {
   writeFileSync(file, `${lines.join('\n')}\n`);
 }
 
-forEachBackend((backend, available) => {
+/**
+ * The suite for one backend. Each backend has its own test file (crash-ingest-postgres / crash-ingest-embedded) so
+ * that the two heavy halves run in parallel workers instead of one after the other.
+ */
+export function crashIngestSuite(backend: TestBackend): void {
+  const available = isBackendAvailable(backend);
   (available ? describe : describe.skip)(`crash safety: batch ingest killed with SIGKILL [${backend}]`, () => {
     let dir: string;
     let target: string;
@@ -130,4 +135,4 @@ forEachBackend((backend, available) => {
       );
     }, 900_000);
   });
-});
+}

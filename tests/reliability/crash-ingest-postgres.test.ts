@@ -1,0 +1,4 @@
+// Crash safety of batch ingest on the postgres database: see crash-ingest-suite.ts for what is checked and the sizes.
+import { crashIngestSuite } from './crash-ingest-suite.ts';
+
+crashIngestSuite('postgres');
