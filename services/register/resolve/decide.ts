@@ -186,7 +186,7 @@ export async function decide(
       counterpartyId: best.counterpartyId,
       score: jsonScore(best.score),
       recordName: true,
-      confirmedByIdentifier: 'identifier',
+      confirmedByIdentifier: prepared.identifiers.find((i) => isStrongScheme(i.scheme))?.scheme ?? 'identifier',
       evidence: { ...detail, summary: `a strong identifier equals that of ${best.canonicalName}: ${best.pair.identifierNotes.join('; ')}` },
     };
   }
