@@ -4,14 +4,24 @@
  * clustering. Reports time per stage, comparisons made, peak memory, and pairwise precision/recall against the
  * generator's entity ids. Sizes: ctx.sizes.names (100,000 by default; 1,000,000 under --full).
  *
+ * Accuracy baselines (issue 8), on the same generated names in the same run, scored by the same pairwiseScores:
+ * - exact after normalisation: `cpreg evaluate --method exact` (services/evaluate), rows grouped by the
+ *   normalised whole name;
+ * - plain Jaro–Winkler ≥ 0.9 on the whole normalised name, clusters = connected components, over cpreg's OWN
+ *   candidate pairs (all pairs, as `cpreg evaluate --method jw` does, is out of reach at 100,000 names), so its
+ *   recall is capped by our blocking exactly as cpreg's is.
+ * The cpreg precision row names the exact baseline (the precision bar), the F1 row the Jaro–Winkler one; each
+ * baseline's precision, recall and F1 are all in the table. Baseline time is not counted in the cpreg time.
+ *
  * Stand-alone: node bin/run-ts.js bench/cluster.bench.ts [--names N] [--seed S]
  */
 import { analyseName } from '../resolvers/analyse/index.ts';
 import { candidatePairs, type MatchRecord } from '../resolvers/block/index.ts';
 import { clusterIndexed, clustersToLabels } from '../resolvers/cluster/index.ts';
-import { buildIdfTable } from '../resolvers/compare/index.ts';
-import { blockingMetrics, pairwiseScores } from '../resolvers/evaluate/index.ts';
+import { buildIdfTable, jaroWinkler } from '../resolvers/compare/index.ts';
+import { blockingMetrics, pairwiseScores, type PairwiseScores } from '../resolvers/evaluate/index.ts';
 import { compareCandidates, DEFAULT_MATCH_MODEL, indexedPairsOf, scoreCompared } from '../resolvers/score/index.ts';
+import { JW_BASELINE_THRESHOLD, runEvaluation } from '../services/evaluate/runEvaluation.ts';
 import type { BenchContext, BenchRow, GeneratedName } from './types.ts';
 
 interface Measured {
@@ -23,6 +33,9 @@ interface Measured {
   f1: number;
   reductionRatio: number;
   pairsCompleteness: number;
+  /** Plain JW ≥ 0.9 over the same candidate pairs (see the header). */
+  jw: PairwiseScores;
+  jwSeconds: number;
 }
 
 function clusterAll(names: readonly GeneratedName[], sample: () => void, log: (m: string) => void): Measured {
@@ -49,6 +62,11 @@ function clusterAll(names: readonly GeneratedName[], sample: () => void, log: (m
   const gold = names.map((g) => g.entityId);
   const predicted = ids.map((id) => labels.get(id) as string);
   const p = pairwiseScores(gold, predicted);
+  const jwStarted = performance.now();
+  const jw = pairwiseScores(gold, jwOverCandidates(records.map((r) => r.analysis.normalised), pairs));
+  const jwSeconds = (performance.now() - jwStarted) / 1000;
+  sample();
+  log(`  baseline JW ≥ ${JW_BASELINE_THRESHOLD} over candidate pairs: ${jwSeconds.toFixed(1)} s`);
   // Pairs completeness of blocking against the generator's truth.
   const entityOf = new Map<number, string>();
   names.forEach((g, i) => entityOf.set(i, g.entityId));
@@ -64,7 +82,48 @@ function clusterAll(names: readonly GeneratedName[], sample: () => void, log: (m
     f1: p.f1,
     reductionRatio: blocking.reductionRatio,
     pairsCompleteness: blocking.pairsCompleteness,
+    jw,
+    jwSeconds,
   };
+}
+
+/** Connected components of the candidate pairs whose whole normalised names reach JW ≥ 0.9. */
+function jwOverCandidates(normalised: readonly string[], pairs: { count: number; left: ArrayLike<number>; right: ArrayLike<number> }): string[] {
+  const parent = Int32Array.from({ length: normalised.length }, (_, i) => i);
+  const find = (i: number): number => {
+    while (parent[i] !== i) {
+      parent[i] = parent[parent[i]!]!;
+      i = parent[i]!;
+    }
+    return i;
+  };
+  for (let k = 0; k < pairs.count; k++) {
+    const i = pairs.left[k]!;
+    const j = pairs.right[k]!;
+    if (jaroWinkler(normalised[i]!, normalised[j]!) >= JW_BASELINE_THRESHOLD) {
+      const ri = find(i);
+      const rj = find(j);
+      if (ri !== rj) parent[ri] = rj;
+    }
+  }
+  return normalised.map((_, i) => `c${find(i)}`);
+}
+
+/** The exact-after-normalisation baseline, as `cpreg evaluate --method exact` computes it. */
+function exactBaseline(names: readonly GeneratedName[]): { scores: PairwiseScores; seconds: number } {
+  const started = performance.now();
+  const rows = names.map((g, i) => ({ line: i + 2, id: g.entityId, name: g.name, originalName: g.name, country: g.country, fields: {} }));
+  const report = runEvaluation(rows, { method: 'exact', model: DEFAULT_MATCH_MODEL, isAcronym: () => false });
+  return { scores: report.pairwise, seconds: (performance.now() - started) / 1000 };
+}
+
+function baselineRows(prefix: string, label: string, scores: PairwiseScores, seconds: number, size: number): BenchRow[] {
+  const extra = { seconds: Math.round(seconds * 100) / 100, predictedPairs: scores.predictedPairs, truePositivePairs: scores.truePositivePairs };
+  return [
+    { id: `${prefix}.precision`, label: `baseline ${label}: pairwise precision`, value: scores.precision, unit: 'ratio', better: 'higher', size, backend: 'memory', extra },
+    { id: `${prefix}.recall`, label: `baseline ${label}: pairwise recall`, value: scores.recall, unit: 'ratio', better: 'higher', size, backend: 'memory' },
+    { id: `${prefix}.f1`, label: `baseline ${label}: pairwise F1`, value: scores.f1, unit: 'f1', better: 'higher', size, backend: 'memory' },
+  ];
 }
 
 export async function run(ctx: BenchContext): Promise<BenchRow[]> {
@@ -75,14 +134,19 @@ export async function run(ctx: BenchContext): Promise<BenchRow[]> {
     const { result, peakRssMb, peakHeapMb } = await ctx.withPeakMemory(async (sample) => clusterAll(names, sample, ctx.log));
     const total = Object.values(result.stages).reduce((s, v) => s + v, 0);
     const extra = { ...Object.fromEntries(Object.entries(result.stages).map(([k, v]) => [`seconds_${k}`, Math.round(v * 100) / 100])), peakHeapMb: Math.round(peakHeapMb) };
+    ctx.log('  baseline: exact after normalisation');
+    const exact = exactBaseline(names);
     rows.push(
       { id: `cluster.${size}.seconds`, label: 'end-to-end clustering time', value: total, unit: 's', better: 'lower', size, backend: 'memory', extra },
       { id: `cluster.${size}.comparisons`, label: 'pair comparisons made (candidate pairs)', value: result.comparisons, unit: 'count', better: 'lower', size, backend: 'memory' },
       { id: `cluster.${size}.peak_rss`, label: 'peak RSS while clustering', value: peakRssMb, unit: 'MB', better: 'lower', size, backend: 'memory' },
       { id: `cluster.${size}.reduction_ratio`, label: 'blocking reduction ratio', value: result.reductionRatio, unit: 'ratio', better: 'higher', size, backend: 'memory', goal: { op: '>=', value: 0.999 } },
       { id: `cluster.${size}.pairs_completeness`, label: 'blocking pairs completeness (generator truth)', value: result.pairsCompleteness, unit: 'ratio', better: 'higher', size, backend: 'memory' },
-      { id: `cluster.${size}.precision`, label: 'pairwise precision vs generator truth', value: result.precision, unit: 'ratio', better: 'higher', size, backend: 'memory' },
+      { id: `cluster.${size}.precision`, label: 'pairwise precision vs generator truth', value: result.precision, unit: 'ratio', better: 'higher', size, backend: 'memory', baseline: `cluster.${size}.exact.precision` },
       { id: `cluster.${size}.recall`, label: 'pairwise recall vs generator truth', value: result.recall, unit: 'ratio', better: 'higher', size, backend: 'memory' },
+      { id: `cluster.${size}.f1`, label: 'pairwise F1 vs generator truth', value: result.f1, unit: 'f1', better: 'higher', size, backend: 'memory', baseline: `cluster.${size}.jw.f1` },
+      ...baselineRows(`cluster.${size}.exact`, 'exact after normalisation', exact.scores, exact.seconds, size),
+      ...baselineRows(`cluster.${size}.jw`, `JW ≥ ${JW_BASELINE_THRESHOLD} on normalised name, same candidate pairs, components`, result.jw, result.jwSeconds, size),
     );
   }
   const sizes = ctx.sizes.names;
