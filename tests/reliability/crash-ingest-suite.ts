@@ -18,9 +18,9 @@ import { describe } from 'vitest';
 
 const LONG = process.env.CPREG_LONG === '1';
 // Measured on a shared 2-core machine under load: 20,000 on PostgreSQL took 244 s, so npm test uses 15,000 there;
-// CPREG_LONG=1 the full sizes. Embedded: 10,000, killed 3-8 s after each start. A quiet machine stores about 170 new rows a second there,
+// CPREG_LONG=1 the full sizes. Embedded: 15,000, killed 3-8 s after each start. A quiet machine stored 6,500 rows over the five runs,
 // so five kills stay well inside the file (with 3,000 and 6-12 s waits the ingest once finished before kill 5).
-const SIZE = { postgres: LONG ? 100_000 : 15_000, pglite: LONG ? 20_000 : 10_000 };
+const SIZE = { postgres: LONG ? 100_000 : 15_000, pglite: LONG ? 30_000 : 15_000 };
 const KILLS = 5;
 
 const SYLLABLES = ['ash', 'brack', 'cin', 'dun', 'esk', 'fal', 'gorse', 'hol', 'ivy', 'jun', 'kes', 'larch', 'mor', 'nes', 'orv', 'pell', 'quar', 'ros', 'sel', 'tam', 'ulv', 'ver', 'wen', 'yar', 'zel'];
