@@ -147,7 +147,7 @@ function writtenWords(text: string): string[] {
   return out;
 }
 
-/** A parenthesis that defines a term ('("Supplier")', '(hereinafter "Acme")') rather than naming a place. */
+/** A parenthesis that defines a term ('("Supplier")', '(hereinafter "Qorv")') rather than naming a place. */
 function isDefinitionGroup(group: string): boolean {
   for (let i = 0; i < group.length; i++) {
     const c = group.charCodeAt(i);

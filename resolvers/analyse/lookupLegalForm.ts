@@ -2,7 +2,7 @@
  * Legal-form lookups for other stages (defined terms, the legal-form comparator, blocking):
  * - lookupLegalForm("Pty. Ltd.") → the designator's family and codes, or null when it is not a designator;
  * - legalFormFamily("Limited") → "ltd";
- * - findLegalForm("Acme GmbH & Co. KG", { country: "DE" }) → the legal form found in a whole name.
+ * - findLegalForm("Qorv GmbH & Co. KG", { country: "DE" }) → the legal form found in a whole name.
  */
 import type { AnalyseHints, LegalFormMatch } from './types.ts';
 import { designatorKey } from './designatorKey.ts';

@@ -86,7 +86,7 @@ function extendCompound(text: string, scan: NameScan, at: number, last: LegalFor
 /**
  * "Widgets sp. z o.o. sp.k." (PL): a general partner's form written straight before the partnership's form.
  * Both must be abbreviations of one country, the inner one short or dotted (a word such as "Trust" in
- * "Marlow Trust AG" stays in the name), and "Co."/"Company" never joins ("Acme Co. Ltd" keeps its "Co.").
+ * "Marlow Trust AG" stays in the name), and "Co."/"Company" never joins ("Qorv Co. Ltd" keeps its "Co.").
  */
 function extendAdjacent(text: string, scan: NameScan, at: number, last: LegalFormEntry): number {
   if (!last.abbreviation) return at;

@@ -64,7 +64,7 @@ interface Side {
   weak: Map<string, IdentifierEvidence>;
 }
 
-/** Key under which weak evidence is shared: e-mail and web domains form one pool ("acme.example" either way). */
+/** Key under which weak evidence is shared: e-mail and web domains form one pool ("qorv.example" either way). */
 function weakKey(e: IdentifierEvidence): string {
   if (e.scheme === 'email_domain' || e.scheme === 'web_domain') return `domain:${e.value}`;
   if (e.scheme === 'other') return `other:${e.label ?? ''}:${e.value}`;

@@ -1,5 +1,5 @@
 /**
- * Signature blocks: the entity line above "By:" is the party ("ACME ROBOTICS, INC." / "By: ____" /
+ * Signature blocks: the entity line above "By:" is the party ("QORV ROBOTICS, INC." / "By: ____" /
  * "Name: Jane Doe" / "Title: CEO"); a label line above it ("LICENSOR:") gives its role; the signer's
  * name and title are not parties. "For and on behalf of X" lines name a party too.
  */
@@ -71,7 +71,7 @@ function entityFrom(text: string, line: Line): SignatureEntity | null {
   let from = line.start;
   while (from < line.end && (text[from] === ' ' || text[from] === '\t')) from++;
   let label: string | undefined;
-  // "LICENSOR: ACME ROBOTICS, INC."
+  // "LICENSOR: QORV ROBOTICS, INC."
   const colon = text.indexOf(':', from);
   if (colon >= 0 && colon < line.end) {
     const before = text.slice(from, colon).trim();
@@ -126,7 +126,7 @@ function entityAbove(text: string, lines: Line[], byIndex: number): SignatureEnt
   for (let j = byIndex - 1; j >= 0 && j >= byIndex - LOOK_UP; j--) {
     const line = lines[j] as Line;
     if (isSkippable(line.text)) continue;
-    // "ACME ROBOTICS, INC.," / "a Delaware corporation" / "By: ___": the descriptive line sits between.
+    // "QORV ROBOTICS, INC.," / "a Delaware corporation" / "By: ___": the descriptive line sits between.
     if (/^\s*(?:a|an)\s/u.test(line.text)) {
       description = line.text.trim();
       continue;

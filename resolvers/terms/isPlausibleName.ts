@@ -21,7 +21,7 @@ function letterStart(w: string): string | undefined {
 }
 
 /**
- * "Acme Ltd and Beta Ltd (the "MSA")": two legal entities joined by "and" are a set, not one party. A firm name
+ * "Qorv Ltd and Beta Ltd (the "MSA")": two legal entities joined by "and" are a set, not one party. A firm name
  * with "and" ("Smith and Jones LLP") has no legal form on the left; "X GmbH und Co. KG" has no name on the right.
  */
 export function joinsTwoEntities(name: string, analyse: (text: string) => NameAnalysis): boolean {

@@ -1,6 +1,6 @@
 /**
  * Finds a party's name in the stretch of text that precedes its definition:
- * "…by and between Acme Robotics, Inc., a Delaware corporation" → name "Acme Robotics, Inc.",
+ * "…by and between Qorv Robotics, Inc., a Delaware corporation" → name "Qorv Robotics, Inc.",
  * descriptive phrase "a Delaware corporation". Hand-written scanning over a bounded window.
  */
 import { analyseCached as analyseName } from './analyseCached.ts';
@@ -216,7 +216,7 @@ function loose(s: string): string {
   return s.toLowerCase().replace(/[^\p{L}\p{N}]/gu, '');
 }
 
-/** "Acme Robotics, Inc.": the comma part is the legal form of the name before it. */
+/** "Qorv Robotics, Inc.": the comma part is the legal form of the name before it. */
 function extendOverDesignator(text: string, s: number, e: number, to: number): number {
   if (text[e] !== ',') return e;
   const p = bareNameEnd(text, skipSpaces(text, e + 1, to), Math.min(to, e + 24), false);

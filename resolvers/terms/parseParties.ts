@@ -32,7 +32,7 @@ export const MAX_TERMS_PER_PARTY = 50;
 export const MAX_COLLECTIVE_TERMS = 100;
 /** Descriptive phrases kept per party (preamble, trailing phrase, signature block). */
 const MAX_DESCRIPTIONS = 4;
-/** How far after a definition a trailing descriptive phrase may run ("…("Acme"), a company incorporated…"). */
+/** How far after a definition a trailing descriptive phrase may run ("…("Qorv"), a company incorporated…"). */
 const TRAILING_WINDOW = 400;
 /** No real contract has more parties; the bound keeps adversarial input linear. Extra names are reported. */
 export const MAX_PARTIES = 500;
@@ -137,7 +137,7 @@ function isPartyTerm(t: FoundTerm): boolean {
   return !t.collective && !t.thisMarker && !NON_PARTY_TERMS.has(t.text.toLowerCase());
 }
 
-/** A descriptive phrase that follows the definition: `("Acme"), a company incorporated in …;` */
+/** A descriptive phrase that follows the definition: `("Qorv"), a company incorporated in …;` */
 function trailingDescription(text: string, from: number, nextStart: number): string {
   let i = from;
   while (i < text.length && (text[i] === ' ' || text[i] === ',')) i++;
@@ -163,7 +163,7 @@ function handleDefinition(c: Collector, def: Definition, prevEnd: number, nextSt
     let added: Draft | null = null;
     const starts = nameStarts(text, prevEnd, def.start, c.inClause);
     const first = locateNameAt(text, (starts[0] as { at: number }).at, def.start, false);
-    // A term defined for "Acme Ltd and Beta Ltd" names the pair: no single party, and no later name either.
+    // A term defined for "Qorv Ltd and Beta Ltd" names the pair: no single party, and no later name either.
     const forAPair = first !== null && joinsTwoEntities(text.slice(first.nameStart, first.nameEnd), (t) => analyseName(t));
     for (const start of forAPair ? [] : starts) {
       const located = locateNameAt(text, start.at, def.start, start.partyCue);

@@ -1,6 +1,6 @@
 /**
- * Whether two analysed names stand for the same entity inside one contract (preamble "Acme Robotics, Inc."
- * and signature block "ACME ROBOTICS, INC."), or a party and one of our own entities. Strict on purpose:
+ * Whether two analysed names stand for the same entity inside one contract (preamble "Qorv Robotics, Inc."
+ * and signature block "QORV ROBOTICS, INC."), or a party and one of our own entities. Strict on purpose:
  * equal normalised names, or equal cores with the same (or an absent) legal form family.
  */
 import type { NameAnalysis } from '../analyse/types.ts';

@@ -30,7 +30,7 @@ const isFullLegal = (n: NameCandidate): boolean => (n.kind === 'legal' || n.kind
 /** The spelling with letter case ignored: case variants of one name share it. */
 const caseKey = (name: string): string => name.normalize('NFC').toLowerCase();
 
-/** True when the name has letters and every one of them is a capital ("ACME B.V."; not "3-4-5" nor "Acme B.V."). */
+/** True when the name has letters and every one of them is a capital ("QORV B.V."; not "3-4-5" nor "Qorv B.V."). */
 export function isAllCapitals(name: string): boolean {
   return name.toUpperCase() === name && name.toLowerCase() !== name;
 }

@@ -19,9 +19,9 @@ const ATTACKS: Array<[string, string]> = [
   ['designator tail', 'Limited '.repeat(1_250)],
   ['colons', 'By:'.repeat(3_300)],
   ['combining marks', 'e' + '\u0301'.repeat(9_999)],
-  ['trailing groups', 'Acme' + ' (x)'.repeat(2_400)],
-  ['descriptor commas', 'Acme' + ', a Delaware'.repeat(800) + ' corporation'],
-  ['compound stacking', 'Acme' + ' GmbH'.repeat(1_900) + ' KG'],
+  ['trailing groups', 'Qorv' + ' (x)'.repeat(2_400)],
+  ['descriptor commas', 'Qorv' + ', a Delaware'.repeat(800) + ' corporation'],
+  ['compound stacking', 'Qorv' + ' GmbH'.repeat(1_900) + ' KG'],
   ['Cyrillic prefix run', 'ООО '.repeat(2_400) + 'Ромашка'],
 ];
 

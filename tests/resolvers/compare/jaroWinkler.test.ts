@@ -108,9 +108,9 @@ describe('agreement with natural (JaroWinklerDistance, natural 8.1.1)', () => {
   // Its differences are options we never use, checked explicitly here:
   it('differs only through its options: ignoreCase and a caller-supplied Jaro (dj)', () => {
     // ignoreCase lower-cases both strings; ours compares code units as given (names arrive case-folded by analysis).
-    expect(naturalJaroWinkler('ACME', 'acme', { ignoreCase: true })).toBe(1);
-    expect(jaroWinkler('ACME', 'acme')).toBe(0);
-    expect(naturalJaroWinkler('ACME', 'acme')).toBe(0);
+    expect(naturalJaroWinkler('QORV', 'qorv', { ignoreCase: true })).toBe(1);
+    expect(jaroWinkler('QORV', 'qorv')).toBe(0);
+    expect(naturalJaroWinkler('QORV', 'qorv')).toBe(0);
     // dj replaces the Jaro value it would compute; ours always computes it.
     expect(naturalJaroWinkler('abcd', 'abce', { dj: 0.5 })).toBeCloseTo(0.5 + 3 * 0.1 * 0.5, 12);
   });

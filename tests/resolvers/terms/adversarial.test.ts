@@ -17,24 +17,24 @@ const INPUTS: Array<[string, string]> = [
   ['empty parenthesis pairs', fill('()')],
   ['straight quotes', fill('"')],
   ['single quotes and letters', fill("'a")],
-  ['one definition repeated', fill('Acme Ltd ("A") ')],
-  ['a parties clause repeated', fill('between Acme Ltd, a Delaware corporation (the "Licensee"), and ')],
+  ['one definition repeated', fill('Qorv Ltd ("A") ')],
+  ['a parties clause repeated', fill('between Qorv Ltd, a Delaware corporation (the "Licensee"), and ')],
   ['"between" repeated', fill('between ')],
   ['signature labels', fill('By: x\n')],
-  ['signature blocks', fill('ACME LIMITED\nBy: ___\nName: A B\nTitle: C\n')],
+  ['signature blocks', fill('QORV LIMITED\nBy: ___\nName: A B\nTitle: C\n')],
   ['collective cues', fill('each "a" ')],
   ['hereinafter chains', fill('hereinafter "X" or "Y" ')],
-  ['capitalised words, no punctuation', fill('Acme ')],
+  ['capitalised words, no punctuation', fill('Qorv ')],
   ['numbering', fill('(1) ')],
   ['nested definitions', fill('(a "b" ')],
-  ['alias cues', fill('Acme Ltd d/b/a ')],
+  ['alias cues', fill('Qorv Ltd d/b/a ')],
   ['clause openers', fill('BETWEEN:\n(1) A\n')],
-  ['unquoted terms', fill('Acme Ltd (Acme)\n')],
-  ['on-behalf lines', fill('for and on behalf of ACME LTD\n')],
+  ['unquoted terms', fill('Qorv Ltd (Qorv)\n')],
+  ['on-behalf lines', fill('for and on behalf of QORV LTD\n')],
   ['identifier cues', fill('company number 1 HRB RCS ACN ')],
   ['one line without spaces', fill('x')],
-  ['one party, a new term each time', grow((i) => `Acme Ltd ("A${i}") `)],
-  ['many parties and collective terms', grow((i) => `between Acme${i % 700} Ltd ("A${i % 700}") and Beta${i} Ltd (each a "P${i}") `)],
+  ['one party, a new term each time', grow((i) => `Qorv Ltd ("A${i}") `)],
+  ['many parties and collective terms', grow((i) => `between Qorv${i % 700} Ltd ("A${i % 700}") and Beta${i} Ltd (each a "P${i}") `)],
 ];
 
 /** Up to 1 MB of numbered repetitions: unique terms and names defeat any per-string shortcut. */
@@ -62,7 +62,7 @@ describe('parseParties on adversarial 1 MB inputs', () => {
 
   it('terms beyond 50 per party are counted in a warning, not dropped silently', () => {
     let text = '';
-    for (let i = 0; i < 80; i++) text += `Acme Ltd ("A${i}") `;
+    for (let i = 0; i < 80; i++) text += `Qorv Ltd ("A${i}") `;
     const parsed = parseParties(text);
     expect(parsed.parties).toHaveLength(1);
     expect(parsed.parties[0]?.terms).toHaveLength(50);
@@ -71,7 +71,7 @@ describe('parseParties on adversarial 1 MB inputs', () => {
 
   it('many distinct parties: capped at 500 with a warning, not dropped silently', () => {
     let text = '';
-    for (let i = 0; text.length < 200_000; i++) text += `between Acme${i} Ltd ("A${i}") and `;
+    for (let i = 0; text.length < 200_000; i++) text += `between Qorv${i} Ltd ("A${i}") and `;
     const parsed = parseParties(text);
     expect(parsed.parties).toHaveLength(500);
     expect(parsed.warnings?.[0]).toContain('limit of 500');

@@ -9,8 +9,8 @@ describe('parseParties on bad input', () => {
     ['prose with no parties', 'The weather in the valley was mild for most of the year, and the river ran clear.', 'no_parties_found'],
     ['terms that bind nothing', 'This Agreement (the "Agreement") starts on the Effective Date (the "Effective Date").', 'no_parties_found'],
     ['role words only', 'The Licensee shall pay the Licensor (each a "Party").', 'no_parties_found'],
-    ['NUL bytes', 'Acme Ltd ("Acme")\u0000\u0000binary', 'binary_data'],
-    ['control characters', `Acme Ltd ("Acme") ${'\u0001\u0002\u0003'.repeat(20)}`, 'binary_data'],
+    ['NUL bytes', 'Qorv Ltd ("Qorv")\u0000\u0000binary', 'binary_data'],
+    ['control characters', `Qorv Ltd ("Qorv") ${'\u0001\u0002\u0003'.repeat(20)}`, 'binary_data'],
   ])('%s', (_label, text, code) => {
     const r = parseParties(text);
     expect(r.parties).toEqual([]);
@@ -20,7 +20,7 @@ describe('parseParties on bad input', () => {
   });
 
   it('refuses text over 1 MB and names the limit', () => {
-    const text = `between Acme Ltd ("Acme") and ${'x'.repeat(MAX_CONTRACT_BYTES)}`;
+    const text = `between Qorv Ltd ("Qorv") and ${'x'.repeat(MAX_CONTRACT_BYTES)}`;
     const r = parseParties(text);
     expect(r.parties).toEqual([]);
     expect(r.reason?.code).toBe('too_large');

@@ -9,7 +9,7 @@ const names = (text: string): string[] => parseParties(text).parties.map((p) => 
 
 describe('parseParties does not invent parties', () => {
   it('a term defined for two companies at once names no single party', () => {
-    const text = 'This Side Letter relates to the Master Services Agreement dated 1 May 2020 between Acme Widgets Ltd and Beta Tools Ltd (the "MSA").';
+    const text = 'This Side Letter relates to the Master Services Agreement dated 1 May 2020 between Qorv Widgets Ltd and Beta Tools Ltd (the "MSA").';
     const r = parseParties(text);
     expect(r.parties).toEqual([]);
     expect(r.notParties).toContain('MSA');

@@ -12,7 +12,7 @@ import { CORPUS } from './corpus/contracts.ts';
 /** Pieces of drafting (invented) that the parser reacts to, so random texts exercise every branch. */
 const FRAGMENTS = [
   'between ', ' and ', ', ', '; ', '\n', '\n\n', '(', ')', '"', '“', '”', '„', '«', '»', "'", '‘', '’',
-  'Acme Widgets Ltd', 'Brackenridge Fabrication, Inc.', 'Holzner GmbH', 'Tsubame K.K.', 'Lumière SAS',
+  'Qorv Widgets Ltd', 'Brackenridge Fabrication, Inc.', 'Holzner GmbH', 'Tsubame K.K.', 'Lumière SAS',
   ' (the "Licensee")', ' ("Supplier")', ' (hereinafter "Buyer")', ' (each a "Party" and together the "Parties")',
   ', a Delaware corporation', ', incorporated and registered in England and Wales with company number 04417782',
   ' HRB 20931', ' RCS Nantes 533 214 904', ' ACN 004 085 616', ' d/b/a Brightwater', ' f/k/a ',
@@ -24,9 +24,9 @@ const FRAGMENTS = [
 const clause = fc
   .tuple(
     fc.constantFrom('between ', ', and ', '\n(1) ', '\nAND:\n', 'by and among '),
-    fc.constantFrom('Acme Widgets Ltd', 'Brackenridge Fabrication, Inc.', 'Holzner GmbH', 'Osprey Data LLC', 'Rowan Ellery'),
+    fc.constantFrom('Qorv Widgets Ltd', 'Brackenridge Fabrication, Inc.', 'Holzner GmbH', 'Osprey Data LLC', 'Rowan Ellery'),
     fc.constantFrom('', ', a Delaware corporation', ', a company incorporated in Sweden with organisation number 556410-2712', ' ACN 004 085 616'),
-    fc.constantFrom(' (the "Licensee")', ' ("Supplier")', ' (hereinafter "Buyer")', ' ("Acme", "we" or "us")', ''),
+    fc.constantFrom(' (the "Licensee")', ' ("Supplier")', ' (hereinafter "Buyer")', ' ("Qorv", "we" or "us")', ''),
   )
   .map((parts) => parts.join(''));
 
