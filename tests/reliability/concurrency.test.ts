@@ -72,6 +72,15 @@ type Ack = { type: string; eventId: number; undoes?: number };
           if (mentions.length < 2) continue;
           const r = await splitCounterparty(ctx, cp, { mentionIds: [Number(mentions[0]!.id)], reason: 'concurrency test' }, WHO);
           acks.push({ type: 'split', eventId: r.eventId });
+        } else if (roll < 82) {
+          // Undo of an event this client has just made (a new counterparty under a name no one else uses), so
+          // that the mix always contains undos that succeed; the branch below undoes others' recent events,
+          // which later events often block (a refusal the test counts, not a failure).
+          const own = await resolveMention(ctx, { source: `c${id}`, externalId: String(n++), text: `Zerrow${id}x${n} ${rng.pick(FORMS)}` }, WHO);
+          if (own.eventId === null) continue;
+          acks.push({ type: 'resolve', eventId: own.eventId });
+          const r = await undoEvent(ctx, own.eventId, WHO);
+          acks.push({ type: 'undone', eventId: r.eventId, undoes: own.eventId });
         } else if (roll < 88) {
           const recent = await database.db.selectFrom('history_event').select('id').where('type', 'in', ['merged', 'split', 'linked', 'created']).orderBy('id', 'desc').limit(20).execute();
           if (recent.length === 0) continue;
