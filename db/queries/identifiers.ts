@@ -1,6 +1,6 @@
 /** Counterparty identifiers: lookups by (scheme, value) use the index, so they stay fast at any size. */
 import type { Queryable } from './util.ts';
-import { id, idOrNull, iso } from './util.ts';
+import { groupByCounterparty, id, idOrNull, iso } from './util.ts';
 
 export interface IdentifierView {
   id: number;
@@ -15,8 +15,7 @@ export interface IdentifierView {
 }
 
 export async function identifiersOf(db: Queryable, counterpartyIds: number[]): Promise<Map<number, IdentifierView[]>> {
-  const out = new Map<number, IdentifierView[]>();
-  if (counterpartyIds.length === 0) return out;
+  if (counterpartyIds.length === 0) return new Map<number, IdentifierView[]>();
   const rows = await db
     .selectFrom('counterparty_identifier')
     .selectAll()
@@ -24,23 +23,17 @@ export async function identifiersOf(db: Queryable, counterpartyIds: number[]): P
     .orderBy('counterparty_id')
     .orderBy('id')
     .execute();
-  for (const r of rows) {
-    const key = id(r.counterparty_id);
-    const list = out.get(key) ?? [];
-    list.push({
-      id: id(r.id),
-      scheme: r.scheme,
-      value: r.value,
-      label: r.label,
-      strong: r.strong,
-      source: r.source,
-      mentionId: idOrNull(r.mention_id),
-      confirmedBy: r.confirmed_by,
-      createdAt: iso(r.created_at) as string,
-    });
-    out.set(key, list);
-  }
-  return out;
+  return groupByCounterparty(rows, (r) => ({
+    id: id(r.id),
+    scheme: r.scheme,
+    value: r.value,
+    label: r.label,
+    strong: r.strong,
+    source: r.source,
+    mentionId: idOrNull(r.mention_id),
+    confirmedBy: r.confirmed_by,
+    createdAt: iso(r.created_at) as string,
+  }));
 }
 
 /** Counterparties holding any of these (scheme, value) pairs. */

@@ -1,6 +1,6 @@
 /** Counterparty names. */
 import type { Queryable } from './util.ts';
-import { id, idOrNull, iso } from './util.ts';
+import { groupByCounterparty, id, idOrNull, iso } from './util.ts';
 
 export interface NameView {
   id: number;
@@ -18,8 +18,7 @@ export interface NameView {
 }
 
 export async function namesOf(db: Queryable, counterpartyIds: number[]): Promise<Map<number, NameView[]>> {
-  const out = new Map<number, NameView[]>();
-  if (counterpartyIds.length === 0) return out;
+  if (counterpartyIds.length === 0) return new Map<number, NameView[]>();
   const rows = await db
     .selectFrom('counterparty_name')
     .selectAll()
@@ -27,23 +26,17 @@ export async function namesOf(db: Queryable, counterpartyIds: number[]): Promise
     .orderBy('counterparty_id')
     .orderBy('id')
     .execute();
-  for (const r of rows) {
-    const key = id(r.counterparty_id);
-    const list = out.get(key) ?? [];
-    list.push({
-      id: id(r.id),
-      name: r.name,
-      normalised: r.normalised,
-      kind: r.kind,
-      legalForm: r.legal_form,
-      seenCount: r.seen_count,
-      source: r.source,
-      mentionId: idOrNull(r.mention_id),
-      contractId: idOrNull(r.contract_id),
-      confirmedBy: r.confirmed_by,
-      createdAt: iso(r.created_at) as string,
-    });
-    out.set(key, list);
-  }
-  return out;
+  return groupByCounterparty(rows, (r) => ({
+    id: id(r.id),
+    name: r.name,
+    normalised: r.normalised,
+    kind: r.kind,
+    legalForm: r.legal_form,
+    seenCount: r.seen_count,
+    source: r.source,
+    mentionId: idOrNull(r.mention_id),
+    contractId: idOrNull(r.contract_id),
+    confirmedBy: r.confirmed_by,
+    createdAt: iso(r.created_at) as string,
+  }));
 }
