@@ -264,6 +264,29 @@ export interface JobTable {
   created_at: TimestampDefault;
   updated_at: TimestampDefault;
   finished_at: Timestamp | null;
+  /** What the planner of a partitioned job decided (services/jobs); null for a job run in one piece. */
+  plan: Json<Record<string, unknown>> | null;
+}
+
+/** The staged input of a partitioned job, in chunks, until the planner has partitioned it. */
+export interface JobChunkTable {
+  job_id: number;
+  chunk_no: number;
+  rows: Json<unknown[]>;
+}
+
+/** One independently resolvable part of a partitioned job. */
+export interface JobPartitionTable {
+  job_id: number;
+  partition_no: number;
+  status: ColumnType<'queued' | 'running' | 'done', 'queued' | 'running' | 'done' | undefined>;
+  size: number;
+  items: Json<unknown[]>;
+  result: Json<Record<string, unknown>> | null;
+  attempts: ColumnType<number, number | undefined>;
+  worker: string | null;
+  started_at: Timestamp | null;
+  finished_at: Timestamp | null;
 }
 
 export interface MatcherSettingsTable {
@@ -295,6 +318,8 @@ export interface Database {
   idempotency_record: IdempotencyRecordTable;
   ingest_run: IngestRunTable;
   job: JobTable;
+  job_chunk: JobChunkTable;
+  job_partition: JobPartitionTable;
   matcher_settings: MatcherSettingsTable;
 }
 

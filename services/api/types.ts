@@ -1,5 +1,6 @@
 /** What buildApp needs, and the shape of a route plugin. */
 import type { FastifyInstance } from 'fastify';
+import type { Jobs } from '../jobs/start-jobs.ts';
 import type { Kysely } from 'kysely';
 import type { Logger, LoggerOptions } from 'pino';
 import type { Backend } from '../../db/open-database.ts';
@@ -23,6 +24,11 @@ export interface AppDeps {
   routes?: RoutePlugin[];
   /** Version shown in /openapi.json and /healthz (default: package.json's). */
   version?: string;
+  /**
+   * The job queue connection (services/jobs/start-jobs.ts) that POST /v1/jobs/ingest and /v1/jobs/sweep submit
+   * to. Default: an in-process queue started with the app and stopped when it closes.
+   */
+  jobs?: Jobs;
 }
 
 /**

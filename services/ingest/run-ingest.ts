@@ -60,7 +60,7 @@ export interface IngestSummary extends IngestProgress {
   unaccounted: number;
 }
 
-async function storedHashes(db: Kysely<Database>, mentions: MentionInput[]): Promise<Map<string, string>> {
+export async function storedHashes(db: Kysely<Database>, mentions: MentionInput[]): Promise<Map<string, string>> {
   const out = new Map<string, string>();
   const bySource = new Map<string, string[]>();
   for (const m of mentions) bySource.set(m.source, [...(bySource.get(m.source) ?? []), m.externalId]);
@@ -91,14 +91,14 @@ export function formatOf(file: string, given?: IngestFormat): IngestFormat {
   throw new RangeError(`cannot tell the format of ${file} from its name: use .csv or .ndjson, or --format`);
 }
 
-interface Row {
+export interface Row {
   line: number;
   raw: string;
   result: RowResult;
 }
 
 /** Rows of the file, each with its line number and raw text. */
-async function* rowsOf(file: string, format: IngestFormat, source: string, map: FieldMap, stream: NodeJS.ReadableStream, onSkip: (line: number, reason: string, raw: string) => void): AsyncGenerator<Row> {
+export async function* rowsOf(file: string, format: IngestFormat, source: string, map: FieldMap, stream: NodeJS.ReadableStream, onSkip: (line: number, reason: string, raw: string) => void): AsyncGenerator<Row> {
   if (format === 'ndjson') {
     const lines = createInterface({ input: stream, crlfDelay: Infinity });
     let line = 0;

@@ -44,13 +44,21 @@ function classify(c: ScoredCandidate, newAt: number): 'duplicate' | 'affiliate' 
 export async function sweep(
   ctx: RegisterContext,
   who: ActorInput,
-  options: { blockSize?: number; onProgress?: (summary: SweepSummary) => void } = {},
+  options: {
+    blockSize?: number;
+    onProgress?: (summary: SweepSummary) => void;
+    /** Only counterparties with an id above this (a partition of a sweep job). Default 0. */
+    afterId?: number;
+    /** Only counterparties with an id up to this. Default: no limit. */
+    throughId?: number;
+  } = {},
 ): Promise<SweepSummary> {
   const summary: SweepSummary = { scanned: 0, duplicateItems: 0, affiliateItems: 0, skippedCannotLink: 0, skippedExisting: 0, itemIds: [] };
   const { model } = await currentModel(ctx.db);
-  let after = 0;
+  let after = options.afterId ?? 0;
+  const through = options.throughId ?? Infinity;
   for (;;) {
-    const ids = await activeIdsAfter(ctx.db, after, options.blockSize ?? 200);
+    const ids = (await activeIdsAfter(ctx.db, after, options.blockSize ?? 200)).filter((id) => id <= through);
     if (ids.length === 0) break;
     for (const id of ids) {
       summary.scanned++;

@@ -166,7 +166,7 @@ describeEachBackend('/v1 routes', (ctx) => {
     const id = res.json().id;
     expect(res.headers.location).toBe(`/v1/jobs/${id}`);
     let job = res.json();
-    for (let i = 0; i < 100 && job.status === 'running'; i++) {
+    for (let i = 0; i < 300 && (job.status === 'running' || job.status === 'queued'); i++) {
       await sleep(100);
       job = (await k.call('read', { method: 'GET', url: `/v1/jobs/${id}` })).json();
     }

@@ -2,9 +2,10 @@
  * GET /v1/exports/{kind} (streamed CSV or NDJSON; read) and the jobs: POST /v1/jobs/ingest (an NDJSON upload of
  * any size, answered 202; write), POST /v1/jobs/sweep and /v1/jobs/reresolve (admin), GET /v1/jobs/{id} (read).
  *
- * A job runs in the instance that accepted it; its progress and result live in the `job` table, so any instance
- * answers GET /v1/jobs/{id}. If that instance stops, the job stays `running` with its last progress: run it
- * again (ingest is idempotent by row identity; sweep and reresolve skip what is already done).
+ * Ingest and sweep are partitioned jobs (services/jobs): queued in the job queue and run by whichever worker takes
+ * their steps, so any instance answers GET /v1/jobs/{id} and none holds job state. A reresolve job runs in the
+ * instance that accepted it; if that instance stops, the job stays `running` with its last progress: run it again
+ * (it skips what is already done).
  */
 import { createHash, randomBytes } from 'node:crypto';
 import { createWriteStream } from 'node:fs';
@@ -16,8 +17,10 @@ import { Readable } from 'node:stream';
 import type { Kysely } from 'kysely';
 import type { Database } from '../../../../db/types.ts';
 import { EXPORT_FORMATS, EXPORT_KINDS, exportChunks, type ExportFormat, type ExportKind } from '../../../export/exports.ts';
-import { ingestFile } from '../../../ingest/run-ingest.ts';
-import { sweep } from '../../../register/sweep.ts';
+import { startJobs, type Jobs } from '../../../jobs/start-jobs.ts';
+import { submitIngestJob } from '../../../jobs/submit-ingest.ts';
+import { submitSweepJob } from '../../../jobs/steps.ts';
+import { partitionTally } from '../../../../db/queries/jobs.ts';
 import { reresolve } from '../../../register/reresolve.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import type { RoutePlugin } from '../../types.ts';
@@ -39,6 +42,12 @@ const JOB_OUT = {
     createdAt: { type: 'string' },
     updatedAt: { type: 'string' },
     finishedAt: { type: 'string', nullable: true },
+    partitions: {
+      type: 'object',
+      nullable: true,
+      description: 'For a partitioned job (ingest, sweep): its partitions by state (total 0 until it is planned); null for a job that runs in one piece (reresolve)',
+      properties: { total: { type: 'integer' }, queued: { type: 'integer' }, running: { type: 'integer' }, done: { type: 'integer' }, fractionDone: { type: 'number' } },
+    },
   },
   example: { id: 7, kind: 'ingest', status: 'finished', actor: 'contract system', params: { source: 'erp' }, progress: { read: 120000 }, result: { counts: { read: 120000, linked: 90000, new: 25000, review: 4000, rejected: 1000 } }, error: null },
 } as const;
@@ -75,7 +84,7 @@ function runInBackground(db: Kysely<Database>, id: number, work: () => Promise<u
   });
 }
 
-export const exportJobRoutes: RoutePlugin = (app, deps) => {
+export const exportJobRoutes: RoutePlugin = async (app, deps) => {
   const ctx = v1Scope(app, deps);
   const db = deps.db;
   // The upload is streamed to a temporary file, never held in memory: any size is accepted.
@@ -104,13 +113,26 @@ export const exportJobRoutes: RoutePlugin = (app, deps) => {
     },
   );
 
+  // Ingest and sweep run as partitioned jobs through the job queue (services/jobs): on PostgreSQL any worker
+  // process takes the steps, so this instance keeps no job state; on the embedded database they run here.
+  let jobs = deps.jobs;
+  const jobsReady = async (): Promise<Jobs> => {
+    if (!jobs) {
+      jobs = await startJobs({ db, backend: deps.backend, work: true, inProcess: true, log: (level, fields, message) => app.log[level](fields, message) });
+      app.addHook('onClose', async () => jobs?.stop());
+    }
+    return jobs;
+  };
+  if (!deps.jobs) await jobsReady();
+
   app.post<{ Querystring: { source: string } }>(
     '/v1/jobs/ingest',
     {
       config: { scope: 'write' },
       schema: {
         summary: 'Upload mentions as NDJSON (any size): answered 202 with a job to poll',
-        description: 'Content-Type application/x-ndjson, one mention per line. `source` names the source for lines without their own. Rows are accounted for as in `cpreg ingest` (the job result holds the counts and the rejected lines with their reasons, up to 1,000).',
+        description:
+          'Content-Type application/x-ndjson, one mention per line. `source` names the source for lines without their own. The upload is staged, then planned into partitions that workers resolve (GET /v1/jobs/{id} shows the partitions done). Rows are accounted for as in `cpreg ingest` (the job result holds the counts and the rejected lines with their reasons, up to 1,000).',
         tags: ['jobs'],
         querystring: { type: 'object', required: ['source'], additionalProperties: false, properties: { source: SOURCE_ID } },
         response: { 202: JOB_OUT, ...problemResponses(415) },
@@ -122,94 +144,68 @@ export const exportJobRoutes: RoutePlugin = (app, deps) => {
         throw new ApiError('UNSUPPORTED_MEDIA_TYPE', 'send the mentions as Content-Type application/x-ndjson, one JSON object per line');
       }
       const file = join(tmpdir(), `cpreg-upload-${randomBytes(8).toString('hex')}.ndjson`);
-      const hash = createHash('sha256');
-      const out = createWriteStream(file);
-      for await (const chunk of upload) {
-        hash.update(chunk as Buffer);
-        if (!out.write(chunk)) await once(out, 'drain');
-      }
-      out.end();
-      await once(out, 'finish');
-      const key = idempotencyKeyOf(request);
-      const claim = key && request.apiKey ? { keyId: request.apiKey.id, key } : undefined;
-      if (claim) {
-        const result = await claimIdempotencyKey(db, { ...claim, method: 'POST', path: request.url, hash: hash.digest('hex') });
-        if (result.kind === 'replay') {
-          await rm(file, { force: true });
-          return sendStoredAnswer(reply, result.answer);
-        }
-      }
-      const who = actorOf(request);
-      let id: number;
       try {
-        id = await createJob(db, 'ingest', who.actor, { source: request.query.source });
-      } catch (error) {
-        if (claim) await releaseIdempotencyKey(db, claim);
+        const hash = createHash('sha256');
+        const out = createWriteStream(file);
+        for await (const chunk of upload) {
+          hash.update(chunk as Buffer);
+          if (!out.write(chunk)) await once(out, 'drain');
+        }
+        out.end();
+        await once(out, 'finish');
+        const key = idempotencyKeyOf(request);
+        const claim = key && request.apiKey ? { keyId: request.apiKey.id, key } : undefined;
+        if (claim) {
+          const result = await claimIdempotencyKey(db, { ...claim, method: 'POST', path: request.url, hash: hash.digest('hex') });
+          if (result.kind === 'replay') return sendStoredAnswer(reply, result.answer);
+        }
+        const who = actorOf(request);
+        let id: number;
+        try {
+          id = await submitIngestJob({ db, queue: (await jobsReady()).queue }, { file, format: 'ndjson', source: request.query.source, actor: who.actor, inputName: 'upload' });
+        } catch (error) {
+          if (claim) await releaseIdempotencyKey(db, claim);
+          throw error;
+        }
+        const job = await jobView(db, id);
+        reply.code(202).header('location', `/v1/jobs/${id}`);
+        if (claim) {
+          await storeIdempotentAnswer(db, claim, { statusCode: 202, contentType: 'application/json; charset=utf-8', headers: { location: `/v1/jobs/${id}` }, body: JSON.stringify(job) });
+        }
+        return job;
+      } finally {
         await rm(file, { force: true });
-        throw error;
       }
-      const rejectsFile = `${file}.rejects.csv`;
-      runInBackground(
-        db,
-        id,
-        async () => {
-          const summary = await ingestFile({
-            db,
-            ctx,
-            file,
-            format: 'ndjson',
-            source: request.query.source,
-            rejectsFile,
-            actor: who.actor,
-            onProgress: (p) => void updateJob(db, id, { progress: { ...p.counts, bytesRead: p.bytesRead, totalBytes: p.totalBytes } }).catch(() => undefined),
-          });
-          const rejected = summary.rejectsFile ? await readRejects(summary.rejectsFile) : [];
-          await updateJob(db, id, { progress: { ...summary.counts, bytesRead: summary.totalBytes, totalBytes: summary.totalBytes } });
-          return { ingestRunId: summary.runId, counts: summary.counts, rejected };
-        },
-        request.log,
-        async () => {
-          await rm(file, { force: true });
-          await rm(rejectsFile, { force: true });
-        },
-      );
-      const job = await jobView(db, id);
-      reply.code(202).header('location', `/v1/jobs/${id}`);
-      if (claim) {
-        await storeIdempotentAnswer(db, claim, { statusCode: 202, contentType: 'application/json; charset=utf-8', headers: { location: `/v1/jobs/${id}` }, body: JSON.stringify(job) });
-      }
-      return job;
     },
   );
 
-  for (const kind of ['sweep', 'reresolve'] as const) {
-    app.post(
-      `/v1/jobs/${kind}`,
-      {
-        config: { scope: 'admin' },
-        schema: {
-          summary: kind === 'sweep' ? 'Start a duplicate sweep (files review items; never merges)' : 'Re-resolve every mention no person confirmed (after thresholds or weights changed)',
-          tags: ['jobs'],
-          response: { 202: JOB_OUT },
-        },
-      },
-      async (request, reply) => {
-        const who = actorOf(request);
-        const id = await createJob(db, kind, who.actor, {});
-        runInBackground(
-          db,
-          id,
-          () =>
-            kind === 'sweep'
-              ? sweep(ctx, who, { onProgress: (s) => void updateJob(db, id, { progress: { scanned: s.scanned, duplicateItems: s.duplicateItems, affiliateItems: s.affiliateItems } }).catch(() => undefined) })
-              : reresolve(ctx, who, { onProgress: (s) => void updateJob(db, id, { progress: { examined: s.examined, changed: s.changed } }).catch(() => undefined) }),
-          request.log,
-        );
-        reply.code(202).header('location', `/v1/jobs/${id}`);
-        return jobView(db, id);
-      },
-    );
-  }
+  app.post(
+    '/v1/jobs/sweep',
+    {
+      config: { scope: 'admin' },
+      schema: { summary: 'Start a duplicate sweep (files review items; never merges), partitioned over the workers', tags: ['jobs'], response: { 202: JOB_OUT } },
+    },
+    async (request, reply) => {
+      const id = await submitSweepJob({ db, queue: (await jobsReady()).queue }, { actor: actorOf(request).actor });
+      reply.code(202).header('location', `/v1/jobs/${id}`);
+      return jobView(db, id);
+    },
+  );
+
+  app.post(
+    '/v1/jobs/reresolve',
+    {
+      config: { scope: 'admin' },
+      schema: { summary: 'Re-resolve every mention no person confirmed (after thresholds or weights changed)', tags: ['jobs'], response: { 202: JOB_OUT } },
+    },
+    async (request, reply) => {
+      const who = actorOf(request);
+      const id = await createJob(db, 'reresolve', who.actor, {});
+      runInBackground(db, id, () => reresolve(ctx, who, { onProgress: (s) => void updateJob(db, id, { progress: { examined: s.examined, changed: s.changed } }).catch(() => undefined) }), request.log);
+      reply.code(202).header('location', `/v1/jobs/${id}`);
+      return jobView(db, id);
+    },
+  );
 
   app.get<{ Params: { id: number } }>(
     '/v1/jobs/:id',
@@ -238,12 +234,14 @@ async function jobView(db: Kysely<Database>, id: number): Promise<Record<string,
     createdAt: iso(row.created_at),
     updatedAt: iso(row.updated_at),
     finishedAt: iso(row.finished_at),
+    partitions: await partitionsOf(db, row),
   };
 }
 
-async function readRejects(file: string): Promise<{ line: number; reason: string }[]> {
-  const { readFile } = await import('node:fs/promises');
-  const { parse } = await import('csv-parse/sync');
-  const rows = parse(await readFile(file, 'utf8'), { columns: true }) as { line: string; reason: string }[];
-  return rows.slice(0, 1000).map((r) => ({ line: Number(r.line), reason: r.reason }));
+/** A partitioned job's partitions by state, and the share of its mentions (or counterparties) done. */
+async function partitionsOf(db: Kysely<Database>, row: { id: unknown; params: unknown }): Promise<Record<string, number> | null> {
+  const params = (typeof row.params === 'string' ? JSON.parse(row.params) : row.params) as Record<string, unknown>;
+  if (params.partitioned !== true) return null;
+  const t = await partitionTally(db, Number(row.id));
+  return { total: t.total, queued: t.queued, running: t.running, done: t.done, fractionDone: t.total === 0 ? 0 : t.done / t.total };
 }

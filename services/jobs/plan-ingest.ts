@@ -1,0 +1,142 @@
+/**
+ * The planner of an ingest job: reads the staged rows, settles what needs no matching (rows that could not be
+ * read, repeats of a row identity, rows stored before with the same content), and cuts the rest into partitions
+ * of whole components of linking pairs (resolvers/block/partitionRecords): every candidate pair of the batch
+ * (resolvers/block/candidatePairs, the same blocking the batch resolution uses) is scored with the current model
+ * and the register's IDF, and the pairs at or above linkAt decide which mentions must be resolved together.
+ * Linking pairs that end up in different partitions (only when a component outgrew the partition size) are kept
+ * in job.plan for the final pass. Writes the partitions, the plan and the planning counts in one transaction.
+ */
+import { candidatePairs, partitionRecords, type MatchRecord } from '../../resolvers/block/index.ts';
+import { scorePair } from '../../resolvers/score/index.ts';
+import { chunksOf, deleteChunks, insertPartitions, readJob, updateJob } from '../../db/queries/jobs.ts';
+import { emptyCounts, storedHashes } from '../ingest/run-ingest.ts';
+import { RegisterError } from '../register/errors.ts';
+import { idfFor } from '../register/matching/idf.ts';
+import { currentModel } from '../register/matching/model.ts';
+import { prepareMention, type PreparedMention } from '../register/resolve/prepare.ts';
+import type { MentionInput } from '../../resolvers/vocabulary.ts';
+import { MAX_LISTED_REJECTS, PARTITION_DEFAULTS, type JobDeps } from './deps.ts';
+import type { StagedRow } from './submit-ingest.ts';
+
+/** A mention handed to a partition: its line in the input and the mention as mapped. */
+export interface PartitionItem {
+  line: number;
+  mention: MentionInput;
+}
+
+/** A linking pair across partitions: the two mentions' (source, externalId) and the pair's score. */
+export type CrossPair = [[string, string], [string, string], number];
+
+export interface IngestPlan {
+  partitions: number;
+  mentions: number;
+  candidatePairs: number;
+  linkingPairs: number;
+  crossPairs: CrossPair[];
+  refusedJoins: number;
+  counts: Record<string, number>;
+  rejected: { line: number; reason: string }[];
+  planningMs: number;
+}
+
+export async function planIngest(deps: JobDeps, jobId: number): Promise<{ partitions: number; alreadyPlanned: boolean }> {
+  const job = await readJob(deps.db, jobId);
+  if (!job) throw new Error(`job ${jobId} does not exist`);
+  if (job.plan) return { partitions: Number(job.plan.partitions), alreadyPlanned: true };
+  const started = performance.now();
+  await updateJob(deps.db, jobId, { status: 'running', progress: { ...job.progress, stage: 'planning' } });
+  const counts = emptyCounts() as Record<string, number>;
+  const rejected: { line: number; reason: string }[] = [];
+  const reject = (line: number, reason: string): void => {
+    counts.read!++;
+    counts.rejected!++;
+    if (rejected.length < MAX_LISTED_REJECTS) rejected.push({ line, reason });
+  };
+  const seen = new Map<string, { line: number; hash: string }>();
+  const valid: { item: PartitionItem; prepared: PreparedMention }[] = [];
+  for await (const chunk of chunksOf(deps.db, jobId)) {
+    for (const row of chunk as StagedRow[]) {
+      if ('reason' in row) {
+        reject(row.line, row.reason);
+        continue;
+      }
+      let prepared: PreparedMention;
+      try {
+        prepared = prepareMention(row.mention);
+      } catch (error) {
+        if (!(error instanceof RegisterError)) throw error;
+        reject(row.line, error.message);
+        continue;
+      }
+      const identity = `${prepared.input.source}\u0000${prepared.input.externalId}`;
+      const earlier = seen.get(identity);
+      if (earlier) {
+        // As in `cpreg ingest`: an exact repeat is already ingested; other content under the same id is refused.
+        if (earlier.hash === prepared.contentHash) {
+          counts.read!++;
+          counts.already_ingested!++;
+        } else reject(row.line, `same external id as line ${earlier.line} with other content`);
+        continue;
+      }
+      seen.set(identity, { line: row.line, hash: prepared.contentHash });
+      valid.push({ item: { line: row.line, mention: row.mention }, prepared });
+    }
+  }
+  // Rows stored before with the same content need no partition (a resumed or repeated upload).
+  const stored = await storedHashes(deps.db, valid.map((v) => v.prepared.input));
+  const fresh = valid.filter((v) => {
+    const same = stored.get(`${v.prepared.input.source}\u0000${v.prepared.input.externalId}`) === v.prepared.contentHash;
+    if (same) {
+      counts.read!++;
+      counts.already_ingested!++;
+    }
+    return !same;
+  });
+  // Partitions are cut in (source, externalId) order, so the plan does not depend on the order of the input.
+  fresh.sort((a, b) => compareIdentity(a.prepared, b.prepared));
+  const records: MatchRecord[] = fresh.map((v, i) => ({
+    id: String(i),
+    analysis: v.prepared.analysis,
+    ...(v.prepared.input.country ? { country: v.prepared.input.country } : {}),
+    identifiers: v.prepared.identifiers,
+  }));
+  const { model } = await currentModel(deps.db);
+  const idf = await idfFor(deps.db, records.flatMap((r) => r.analysis.tokens));
+  const pairs = candidatePairs(records, { idf });
+  const scores = new Float64Array(pairs.count);
+  let linkingPairs = 0;
+  for (let k = 0; k < pairs.count; k++) {
+    scores[k] = scorePair(records[pairs.left[k]!]!, records[pairs.right[k]!]!, model, idf).score;
+    if (scores[k]! >= model.linkAt) linkingPairs++;
+  }
+  const partitionSize = Number(job.params.partitionSize ?? PARTITION_DEFAULTS.partitionSize);
+  const cut = partitionRecords(records.length, pairs.left.subarray(0, pairs.count), pairs.right.subarray(0, pairs.count), scores, { linkAt: model.linkAt, targetSize: partitionSize });
+  const partitions: PartitionItem[][] = Array.from({ length: cut.count }, () => []);
+  fresh.forEach((v, i) => partitions[cut.partitionOf[i]!]!.push(v.item));
+  const identityOf = (i: number): [string, string] => [fresh[i]!.prepared.input.source, fresh[i]!.prepared.input.externalId];
+  const plan: IngestPlan = {
+    partitions: cut.count,
+    mentions: fresh.length,
+    candidatePairs: pairs.count,
+    linkingPairs,
+    crossPairs: cut.crossPairs.map((k) => [identityOf(pairs.left[k]!), identityOf(pairs.right[k]!), scores[k]!]),
+    refusedJoins: cut.refusedJoins,
+    counts,
+    rejected,
+    planningMs: Math.round(performance.now() - started),
+  };
+  await deps.db.transaction().execute(async (trx) => {
+    await insertPartitions(trx, jobId, partitions);
+    await updateJob(trx, jobId, { plan, progress: { stage: cut.count > 0 ? 'resolving' : 'finishing', partitions: cut.count, mentions: fresh.length } });
+    await deleteChunks(trx, jobId);
+  });
+  deps.log('info', { jobId, partitions: cut.count, mentions: fresh.length, crossPairs: plan.crossPairs.length, planningMs: plan.planningMs }, 'job planned');
+  return { partitions: cut.count, alreadyPlanned: false };
+}
+
+function compareIdentity(a: PreparedMention, b: PreparedMention): number {
+  const x = `${a.input.source}\u0000${a.input.externalId}`;
+  const y = `${b.input.source}\u0000${b.input.externalId}`;
+  return x < y ? -1 : x > y ? 1 : 0;
+}

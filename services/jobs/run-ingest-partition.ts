@@ -1,0 +1,70 @@
+/**
+ * One partition of an ingest job: its mentions go through the register's batch resolution together (so the
+ * clusters inside the partition are found as the whole batch would find them), then the partition is marked done
+ * with its counts. Running a partition again (a retry after its worker died) is harmless: mentions it had already
+ * written are stored with the same content and count as already ingested, the rest are resolved against the
+ * register as it now stands.
+ */
+import { finishPartition, partitionTally, readJob, readPartition, startPartition } from '../../db/queries/jobs.ts';
+import { emptyCounts, storedHashes } from '../ingest/run-ingest.ts';
+import { resolveBatch } from '../register/batch.ts';
+import { prepareMention } from '../register/resolve/prepare.ts';
+import { JOB_STEPS, MAX_LISTED_REJECTS, type JobDeps } from './deps.ts';
+import type { PartitionItem } from './plan-ingest.ts';
+
+export interface PartitionResult {
+  counts: Record<string, number>;
+  rejected: { line: number; reason: string }[];
+  elapsedMs: number;
+  attempt: number;
+  worker: string;
+}
+
+export async function runIngestPartition(deps: JobDeps, jobId: number, partitionNo: number): Promise<void> {
+  const job = await readJob(deps.db, jobId);
+  const part = await readPartition(deps.db, jobId, partitionNo);
+  if (!job || !part) throw new Error(`job ${jobId} has no partition ${partitionNo}`);
+  if (part.status !== 'done') {
+    const started = performance.now();
+    await startPartition(deps.db, jobId, partitionNo, deps.worker);
+    const items = part.items as PartitionItem[];
+    const counts = emptyCounts() as Record<string, number>;
+    const rejected: { line: number; reason: string }[] = [];
+    const stored = await storedHashes(deps.db, items.map((i) => i.mention));
+    const fresh = items.filter((i) => {
+      const hash = stored.get(`${i.mention.source}\u0000${i.mention.externalId}`);
+      if (hash !== undefined && prepareMention(i.mention).contentHash === hash) {
+        counts.read!++;
+        counts.already_ingested!++;
+        return false;
+      }
+      return true;
+    });
+    const results = fresh.length === 0 ? [] : await resolveBatch(deps.ctx, fresh.map((i) => i.mention), { actor: job.actor, reason: `job ${jobId} partition ${partitionNo}` });
+    results.forEach((result, i) => {
+      counts.read!++;
+      if (result.status === 'rejected') {
+        counts.rejected!++;
+        if (rejected.length < MAX_LISTED_REJECTS) rejected.push({ line: fresh[i]!.line, reason: 'error' in result ? result.error.message : 'rejected' });
+      } else if (result.alreadyIngested) counts.already_ingested!++;
+      else counts[result.status] = (counts[result.status] ?? 0) + 1;
+    });
+    const result: PartitionResult = { counts, rejected, elapsedMs: Math.round(performance.now() - started), attempt: part.attempts + 1, worker: deps.worker };
+    await deps.db.transaction().execute(async (trx) => {
+      await readJob(trx, jobId, { forUpdate: true });
+      await finishPartition(trx, jobId, partitionNo, result);
+    });
+    deps.log('info', { jobId, partition: partitionNo, mentions: items.length, elapsedMs: result.elapsedMs }, 'partition done');
+  }
+  await queueFinishWhenAllDone(deps, jobId);
+}
+
+/** Queues the final pass once every partition is done (the job row lock orders concurrent last partitions). */
+export async function queueFinishWhenAllDone(deps: JobDeps, jobId: number): Promise<void> {
+  const allDone = await deps.db.transaction().execute(async (trx) => {
+    await readJob(trx, jobId, { forUpdate: true });
+    const tally = await partitionTally(trx, jobId);
+    return tally.done === tally.total;
+  });
+  if (allDone) await deps.queue.send(JOB_STEPS.finish, { jobId }, { singletonKey: String(jobId) });
+}

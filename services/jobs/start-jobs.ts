@@ -1,0 +1,86 @@
+/**
+ * Connects a process to the job queue of its database: on PostgreSQL the shared pg-boss queue (db/pg-boss-queue.ts),
+ * on the embedded database an in-process queue. With `work`, the process also takes job steps (a `cpreg worker`;
+ * `cpreg serve` on the embedded database; `cpreg serve --work` on PostgreSQL). Without it, it only submits jobs
+ * and reads their progress, and the API process holds no job state of its own.
+ */
+import { hostname } from 'node:os';
+import type { Kysely } from 'kysely';
+import type { Backend } from '../../db/open-database.ts';
+import { InProcessQueue } from '../../db/in-process-queue.ts';
+import { queueOptionsFromEnv, type JobQueue, type QueueOptions } from '../../db/job-queue.ts';
+import { openPgBossQueue } from '../../db/pg-boss-queue.ts';
+import type { Database } from '../../db/types.ts';
+import { createRegisterContext, type RegisterContext } from '../register/context.ts';
+import type { JobDeps } from './deps.ts';
+import { JOB_STEPS } from './deps.ts';
+import { workOnJobs } from './steps.ts';
+import { unfinishedPartitions, updateJob } from '../../db/queries/jobs.ts';
+
+export interface StartJobsOptions {
+  db: Kysely<Database>;
+  backend: Backend;
+  /** The PostgreSQL URL (required on PostgreSQL: the queue keeps its own connection pool). */
+  url?: string;
+  /** Take job steps in this process. */
+  work: boolean;
+  /** Partitions run at once in this process. Default 1. */
+  concurrency?: number;
+  ctx?: RegisterContext;
+  log?: JobDeps['log'];
+  /** Queue options; default from the environment (queueOptionsFromEnv), then QUEUE_DEFAULTS. */
+  queueOptions?: QueueOptions;
+  worker?: string;
+  /** Use the in-process queue even on PostgreSQL (tests, one-process tools). Default false. */
+  inProcess?: boolean;
+}
+
+export interface Jobs {
+  queue: JobQueue;
+  deps: JobDeps;
+  stop(): Promise<void>;
+}
+
+export async function startJobs(options: StartJobsOptions): Promise<Jobs> {
+  const log: JobDeps['log'] = options.log ?? (() => undefined);
+  const queueOptions = options.queueOptions ?? queueOptionsFromEnv();
+  let queue: JobQueue;
+  if (options.backend === 'postgres' && !options.inProcess) {
+    if (!options.url) throw new Error('startJobs on PostgreSQL needs the database URL');
+    queue = await openPgBossQueue(options.url, { ...queueOptions, supervise: options.work, onError: (error) => log('warn', { err: error }, 'job queue error') });
+  } else {
+    queue = new InProcessQueue({ ...queueOptions, onError: (error, job) => log('warn', { err: error, queueJob: job.id }, `job step ${job.name} failed`) });
+  }
+  const deps: JobDeps = { db: options.db, ctx: options.ctx ?? createRegisterContext(options.db), queue, worker: options.worker ?? `${hostname()}:${process.pid}`, log };
+  if (options.work) await workOnJobs(deps, { concurrency: options.concurrency ?? 1 });
+  // The in-process queue forgets everything when its process stops: pick up where the last one left off.
+  if (options.work && queue.kind === 'in-process' && options.backend !== 'postgres') await resumeUnfinishedJobs(deps);
+  return { queue, deps, stop: () => queue.stop({ graceful: true }) };
+}
+
+/**
+ * Queues again the steps of partitioned jobs that a stopped process left unfinished. A job whose input was still
+ * being read cannot be completed (the rest of its input is gone): it is marked failed, to be submitted again
+ * (rows stored meanwhile count as already ingested).
+ */
+export async function resumeUnfinishedJobs(deps: JobDeps): Promise<number> {
+  const rows = await deps.db.selectFrom('job').select(['id', 'params', 'plan', 'progress']).where('status', 'in', ['queued', 'running']).orderBy('id').execute();
+  let resumed = 0;
+  for (const row of rows) {
+    const params = (typeof row.params === 'string' ? JSON.parse(row.params) : row.params) as Record<string, unknown>;
+    if (params.partitioned !== true) continue;
+    const progress = (typeof row.progress === 'string' ? JSON.parse(row.progress) : row.progress) as Record<string, unknown>;
+    const jobId = Number(row.id);
+    if (row.plan === null && progress.stage === 'staging') {
+      await updateJob(deps.db, jobId, { status: 'failed', error: 'the process stopped while reading the input: submit it again (rows already stored count as already ingested)' });
+      continue;
+    }
+    resumed++;
+    if (row.plan === null) await deps.queue.send(JOB_STEPS.plan, { jobId });
+    else {
+      for (const p of await unfinishedPartitions(deps.db, jobId)) await deps.queue.send(JOB_STEPS.partition, { jobId, partition: p });
+      await deps.queue.send(JOB_STEPS.finish, { jobId });
+    }
+  }
+  return resumed;
+}

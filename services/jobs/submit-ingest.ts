@@ -1,0 +1,76 @@
+/**
+ * Submits an ingest file as a partitioned job: reads it (streamed, CSV or NDJSON, the same mapping as
+ * `cpreg ingest`), stages the rows in job_chunk (each row as its line number with the mapped mention, or the
+ * reason it cannot be read), records an ingest_run, and queues the planner. Answers the job id at once; the
+ * resolution runs in whichever worker takes the steps (services/jobs/steps.ts).
+ */
+import { createReadStream } from 'node:fs';
+import type { Kysely } from 'kysely';
+import type { JobQueue } from '../../db/job-queue.ts';
+import { insertChunk, insertJob, updateJob } from '../../db/queries/jobs.ts';
+import type { Database } from '../../db/types.ts';
+import type { MentionInput } from '../../resolvers/vocabulary.ts';
+import type { FieldMap } from '../ingest/mapping.ts';
+import { formatOf, rowsOf, type IngestFormat } from '../ingest/run-ingest.ts';
+import { JOB_STEPS, PARTITION_DEFAULTS } from './deps.ts';
+
+/** One staged row: the mention as mapped, or why the row could not be read. */
+export type StagedRow = { line: number; mention: MentionInput } | { line: number; reason: string };
+
+export interface SubmitIngestOptions {
+  file: string;
+  format?: IngestFormat;
+  source: string;
+  map?: FieldMap;
+  actor: string;
+  /** The input's name as the submitter knows it (default: the file's base name). */
+  inputName?: string;
+  /** Mentions per partition aimed at. Default PARTITION_DEFAULTS.partitionSize. */
+  partitionSize?: number;
+  chunkSize?: number;
+}
+
+export async function submitIngestJob(deps: { db: Kysely<Database>; queue: JobQueue }, options: SubmitIngestOptions): Promise<number> {
+  const format = formatOf(options.file, options.format);
+  const partitionSize = options.partitionSize ?? PARTITION_DEFAULTS.partitionSize;
+  if (!Number.isInteger(partitionSize) || partitionSize < 1) throw new RangeError(`partitionSize must be a whole number of at least 1, got ${partitionSize}`);
+  const chunkSize = options.chunkSize ?? PARTITION_DEFAULTS.chunkSize;
+  const inputName = options.inputName ?? options.file.split(/[\\/]/).pop() ?? options.file;
+  const run = await deps.db
+    .insertInto('ingest_run')
+    .values({ source: options.source, input_name: inputName, actor: options.actor, status: 'running', started_at: new Date() })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  const ingestRunId = Number(run.id);
+  const jobId = await insertJob(deps.db, { kind: 'ingest', actor: options.actor, status: 'queued', params: { source: options.source, input: inputName, partitioned: true, partitionSize, ingestRunId } });
+  try {
+    let chunk: StagedRow[] = [];
+    let chunkNo = 0;
+    let rows = 0;
+    const stream = createReadStream(options.file);
+    const skipped: StagedRow[] = [];
+    for await (const row of rowsOf(options.file, format, options.source, options.map ?? {}, stream, (line, reason) => skipped.push({ line, reason }))) {
+      chunk.push(...skipped.splice(0));
+      chunk.push(row.result.ok ? { line: row.line, mention: row.result.mention } : { line: row.line, reason: row.result.reason });
+      if (chunk.length >= chunkSize) {
+        await insertChunk(deps.db, jobId, chunkNo++, chunk);
+        rows += chunk.length;
+        chunk = [];
+        await updateJob(deps.db, jobId, { progress: { stage: 'staging', staged: rows } });
+      }
+    }
+    chunk.push(...skipped.splice(0));
+    if (chunk.length > 0) {
+      await insertChunk(deps.db, jobId, chunkNo++, chunk);
+      rows += chunk.length;
+    }
+    await updateJob(deps.db, jobId, { progress: { stage: 'planning', staged: rows } });
+  } catch (error) {
+    const message = `reading ${inputName} failed: ${(error as Error).message}`;
+    await updateJob(deps.db, jobId, { status: 'failed', error: message });
+    await deps.db.updateTable('ingest_run').set({ status: 'failed', finished_at: new Date(), error: message }).where('id', '=', ingestRunId).execute();
+    throw error;
+  }
+  await deps.queue.send(JOB_STEPS.plan, { jobId }, { singletonKey: String(jobId) });
+  return jobId;
+}
