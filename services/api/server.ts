@@ -5,7 +5,8 @@
  */
 import type { FastifyInstance } from 'fastify';
 import pino from 'pino';
-import { openDatabase, type OpenedDatabase } from '../../db/open-database.ts';
+import { openDatabase, resolveTarget, type OpenedDatabase } from '../../db/open-database.ts';
+import { startJobs, type Jobs } from '../jobs/start-jobs.ts';
 import { migrateToLatest } from '../../db/migrate.ts';
 import { buildApp } from './app.ts';
 import { loggerOptions } from './logger.ts';
@@ -22,6 +23,11 @@ export interface ServeOptions {
   say?: (line: string) => void;
   /** The address once listening (for --json). */
   onListening?: (info: { url: string; backend: string; database: string }) => void;
+  /**
+   * Job partitions this process runs at once besides serving (on PostgreSQL; 0: submit only, leave the work to
+   * `cpreg worker` processes). The embedded database always runs its jobs here. Default 1.
+   */
+  workSlots?: number;
 }
 
 export interface RunningServer {
@@ -46,10 +52,20 @@ export async function startServer(options: ServeOptions): Promise<RunningServer>
     onPoolError: (error) => logger.warn({ err: error }, 'idle database connection lost; the pool reconnects on demand'),
   });
   let app: FastifyInstance | undefined;
+  let jobs: Jobs | undefined;
   try {
     const report = await migrateToLatest(database.db);
     if (report.applied.length > 0) say(`cpreg: applied ${report.applied.length} migration(s): ${report.applied.join(', ')}`);
-    app = await buildApp({ db: database.db, backend: database.backend, dbTimeoutMs, logger });
+    const workSlots = options.workSlots ?? 1;
+    jobs = await startJobs({
+      db: database.db,
+      backend: database.backend,
+      url: resolveTarget(options.db),
+      work: database.backend !== 'postgres' || workSlots > 0,
+      concurrency: Math.max(1, workSlots),
+      log: (level, fields, message) => logger[level](fields, message),
+    });
+    app = await buildApp({ db: database.db, backend: database.backend, dbTimeoutMs, logger, jobs });
     try {
       await app.listen({ port: options.port, host: options.host });
     } catch (error) {
@@ -61,6 +77,7 @@ export async function startServer(options: ServeOptions): Promise<RunningServer>
     }
   } catch (error) {
     await app?.close().catch(() => undefined);
+    await jobs?.stop().catch(() => undefined);
     await database.close().catch(() => undefined);
     throw error;
   }
@@ -76,6 +93,7 @@ export async function startServer(options: ServeOptions): Promise<RunningServer>
       say(`cpreg: stopping (${reason})`);
       try {
         await app!.close();
+        await jobs!.stop().catch((error: unknown) => logger.warn({ err: error }, 'the job queue did not stop cleanly'));
       } finally {
         await database.close();
         logger.flush?.();

@@ -21,6 +21,8 @@ import verify from './verify.ts';
 import forget from './forget.ts';
 import backup from './backup.ts';
 import restore from './restore.ts';
+import worker from './worker.ts';
+import jobs from './jobs.ts';
 
 export const COMMANDS: Array<(program: Command) => void> = [
   analyse,
@@ -38,6 +40,8 @@ export const COMMANDS: Array<(program: Command) => void> = [
   reresolve,
   sweep,
   verify,
+  worker,
+  jobs,
   forget,
   backup,
   restore,

@@ -3,6 +3,7 @@
  * streams a batch file into the register with progress, and prints a summary whose counts reconcile.
  */
 import type { Command } from 'commander';
+import type { FieldMap } from '../../ingest/mapping.ts';
 import { CliError } from '../cli-error.ts';
 import { DB_OPTION_HELP } from './serve.ts';
 
@@ -14,6 +15,9 @@ interface IngestCliOptions {
   batchSize: string;
   db?: string;
   json?: boolean;
+  asJob?: boolean;
+  partitionSize: string;
+  wait: boolean;
 }
 
 const collect = (value: string, previous: string[]): string[] => [...previous, value];
@@ -30,6 +34,9 @@ export default function register(program: Command): void {
     .option('--batch-size <n>', 'rows resolved together', '1000')
     .option('--db <target>', DB_OPTION_HELP)
     .option('--json', 'print the summary as JSON')
+    .option('--as-job', 'run as a partitioned job: on PostgreSQL `cpreg worker` processes resolve the partitions (the result lists up to 1,000 rejected lines instead of a rejects file)')
+    .option('--partition-size <n>', 'with --as-job: mentions per partition aimed at', '2000')
+    .option('--no-wait', 'with --as-job: print the job id and return at once (follow it with `cpreg jobs show <id> --watch`)')
     .showHelpAfterError(true)
     .action(async (file: string, options: IngestCliOptions) => {
       const { existsSync } = await import('node:fs');
@@ -47,6 +54,12 @@ export default function register(program: Command): void {
         format = formatOf(file, options.format);
       } catch (error) {
         throw new CliError((error as Error).message);
+      }
+      if (options.asJob) {
+        const partitionSize = Number(options.partitionSize);
+        if (!Number.isInteger(partitionSize) || partitionSize < 1 || partitionSize > 100_000) throw new CliError('--partition-size: expected a whole number from 1 to 100000');
+        await ingestAsJob(file, { ...options, format, map, partitionSize });
+        return;
       }
       const rejectsFile = options.rejects ?? `${file}.rejects.csv`;
       let stop = false;
@@ -97,4 +110,31 @@ export default function register(program: Command): void {
         process.off('SIGINT', onSignal);
       }
     });
+}
+
+async function ingestAsJob(file: string, options: Omit<IngestCliOptions, 'format' | 'partitionSize' | 'map'> & { format: 'csv' | 'ndjson'; map: FieldMap; partitionSize: number }): Promise<void> {
+  const { withDatabase, cliActor } = await import('../../ingest/cli-support.ts');
+  const { resolveTarget, isPostgresUrl } = await import('../../../db/open-database.ts');
+  const { startJobs } = await import('../../jobs/start-jobs.ts');
+  const { submitIngestJob } = await import('../../jobs/submit-ingest.ts');
+  const { followJob, describeJob } = await import('./jobs.ts');
+  const target = resolveTarget(options.db);
+  const postgres = isPostgresUrl(target);
+  await withDatabase(options.db, 'cpreg ingest', async (db) => {
+    // On PostgreSQL this process only submits (workers resolve); on the embedded database it does the work itself.
+    const jobs = await startJobs({ db, backend: postgres ? 'postgres' : 'pglite', url: target, work: !postgres, log: (level, fields, message) => level !== 'info' && process.stderr.write(`cpreg: ${message} ${String((fields.err as Error | undefined)?.message ?? '')}\n`) });
+    try {
+      const jobId = await submitIngestJob({ db, queue: jobs.queue }, { file, format: options.format, source: options.source, map: options.map, actor: cliActor(), partitionSize: options.partitionSize });
+      if (!options.wait) {
+        process.stdout.write(options.json ? `${JSON.stringify({ jobId })}\n` : `job ${jobId} submitted; follow it with: cpreg jobs show ${jobId} --watch\n`);
+        return;
+      }
+      process.stderr.write(`cpreg: job ${jobId} submitted\n`);
+      const job = await followJob(db, jobId, 'ingest');
+      process.stdout.write(options.json ? `${JSON.stringify(job)}\n` : `${describeJob(job).join('\n')}\n`);
+      if (job.status === 'failed') process.exitCode = 1;
+    } finally {
+      await jobs.stop();
+    }
+  });
 }

@@ -1,5 +1,5 @@
 /**
- * `cpreg serve [--port] [--host] [--db] [--db-timeout <ms>] [--log-level] [--json]`: runs the HTTP API.
+ * `cpreg serve [--port] [--host] [--db] [--db-timeout <ms>] [--log-level] [--work <n>] [--json]`: runs the HTTP API.
  * Migrates the database first; stops cleanly on SIGINT / SIGTERM.
  */
 import { InvalidArgumentError, type Command } from 'commander';
@@ -30,6 +30,13 @@ interface ServeCliOptions {
   dbTimeout: number;
   logLevel: string;
   json?: boolean;
+  work?: number;
+}
+
+export function parseSlots(value: string): number {
+  const n = Number(value);
+  if (!/^\d+$/.test(value) || n > 64) throw new InvalidArgumentError('expected a whole number from 0 to 64');
+  return n;
 }
 
 export default function register(program: Command): void {
@@ -43,6 +50,7 @@ export default function register(program: Command): void {
     .option('--db-timeout <ms>', 'how long a request waits for the database before answering 503', parseMilliseconds, 5000)
     .option('--log-level <level>', 'fatal, error, warn, info, debug, trace or silent', 'info')
     .option('--json', 'print the address as one JSON line once listening')
+    .option('--work <n>', 'on PostgreSQL, job partitions this process also runs at once (0: leave jobs to `cpreg worker` processes)', parseSlots, 1)
     .action(async (options: ServeCliOptions) => {
       await runServe(options, 'cpreg serve');
     });
@@ -61,6 +69,7 @@ export async function runServe(options: ServeCliOptions, command: string): Promi
       host: options.host,
       dbTimeoutMs: options.dbTimeout,
       logLevel: options.logLevel,
+      ...(options.work !== undefined ? { workSlots: options.work } : {}),
       command,
       say: options.json ? (line) => process.stderr.write(`${line}\n`) : undefined,
       onListening: options.json ? (info) => process.stdout.write(`${JSON.stringify(info)}\n`) : undefined,

@@ -1,0 +1,87 @@
+/**
+ * `cpreg jobs show <id> [--watch] [--json] [--db]`: a job's status, its partitions by state and, when it has
+ * ended, its result. With --watch, a progress bar (partitions done) until the job ends.
+ */
+import type { Command } from 'commander';
+import type { Kysely } from 'kysely';
+import type { Database } from '../../../db/types.ts';
+import type { JobRow } from '../../../db/queries/jobs.ts';
+import { CliError } from '../cli-error.ts';
+import { DB_OPTION_HELP } from './serve.ts';
+
+interface ShowOptions {
+  db?: string;
+  watch?: boolean;
+  json?: boolean;
+}
+
+/** Follows a job with a progress bar on stderr (mentions in finished partitions of all planned); answers the ended job. */
+export async function followJob(db: Kysely<Database>, jobId: number, label: string): Promise<JobRow> {
+  const { watchJob } = await import('../../jobs/watch-job.ts');
+  const { progressReporter } = await import('../../ingest/cli-support.ts');
+  const bar = progressReporter(label, 'mentions');
+  let hinted = false;
+  const started = Date.now();
+  try {
+    return await watchJob(db, jobId, {
+      onProgress: ({ job, partitions }) => {
+        const stage = String(job.progress.stage ?? job.status);
+        bar.update({
+          done: partitions.mentionsDone,
+          fraction: partitions.mentions > 0 ? partitions.mentionsDone / partitions.mentions : 0,
+          note: `${stage}: ${partitions.done}/${partitions.total} partitions done${partitions.running > 0 ? `, ${partitions.running} running` : ''}`,
+        });
+        if (!hinted && job.status === 'queued' && Date.now() - started > 15_000) {
+          hinted = true;
+          process.stderr.write(`\ncpreg: job ${jobId} is still queued: is a worker running? (cpreg worker --db <the same database>)\n`);
+        }
+      },
+    });
+  } finally {
+    bar.finish();
+  }
+}
+
+export function describeJob(job: JobRow): string[] {
+  const lines = [`job ${job.id} (${job.kind}) ${job.status}${job.error ? `: ${job.error}` : ''}`];
+  const result = job.result as Record<string, unknown> | null;
+  if (result?.counts) {
+    for (const [k, v] of Object.entries(result.counts as Record<string, number>)) if (k !== 'read') lines.push(`  ${k.padEnd(18)} ${String(v).padStart(9)}`);
+    lines.push(`  ${'= read'.padEnd(18)} ${String((result.counts as Record<string, number>).read).padStart(9)}`);
+  } else if (result) {
+    for (const [k, v] of Object.entries(result)) if (typeof v === 'number') lines.push(`  ${k.padEnd(18)} ${String(v).padStart(9)}`);
+  }
+  if (result && typeof result.partitions === 'number') {
+    const merges = Array.isArray(result.merges) ? result.merges.length : 0;
+    lines.push(`${result.partitions} partitions${typeof result.retriedPartitions === 'number' ? ` (${result.retriedPartitions} run again after a failure)` : ''}${typeof result.crossPairs === 'number' ? `; ${result.crossPairs} linking pairs across partitions, ${merges} merges in the final pass` : ''}`);
+  }
+  const rejected = Array.isArray(result?.rejected) ? (result.rejected as { line: number; reason: string }[]) : [];
+  for (const r of rejected.slice(0, 20)) lines.push(`  rejected line ${r.line}: ${r.reason}`);
+  if (rejected.length > 20) lines.push(`  … ${rejected.length - 20} more rejected lines in --json`);
+  return lines;
+}
+
+export default function register(program: Command): void {
+  const jobs = program.command('jobs').description('batch jobs (ingest and sweep run as partitioned jobs)');
+  jobs
+    .command('show')
+    .description('show a job: status, partitions, result')
+    .argument('<id>', 'the job id')
+    .option('--watch', 'follow the job with a progress bar until it ends')
+    .option('--db <target>', DB_OPTION_HELP)
+    .option('--json', 'print the job as JSON')
+    .showHelpAfterError(true)
+    .action(async (idText: string, options: ShowOptions) => {
+      const jobId = Number(idText);
+      if (!Number.isSafeInteger(jobId) || jobId < 1) throw new CliError(`<id> ${idText}: expected a job id (a whole number)`);
+      const { withDatabase } = await import('../../ingest/cli-support.ts');
+      const { readJob, partitionTally } = await import('../../../db/queries/jobs.ts');
+      await withDatabase(options.db, 'cpreg jobs show', async (db) => {
+        const job = options.watch ? await followJob(db, jobId, `job ${jobId}`) : await readJob(db, jobId);
+        if (!job) throw new CliError(`job ${jobId} does not exist`);
+        const partitions = await partitionTally(db, jobId);
+        if (options.json) process.stdout.write(`${JSON.stringify({ ...job, partitions })}\n`);
+        else process.stdout.write(`${[...describeJob(job), `partitions: ${partitions.done} done, ${partitions.running} running, ${partitions.queued} queued of ${partitions.total}`].join('\n')}\n`);
+      });
+    });
+}
