@@ -6,3 +6,4 @@ export { blockingMetrics, type BlockingMetrics } from './blockingMetrics.ts';
 export { precisionRecallSvg, type SweepPoint } from './precisionRecallSvg.ts';
 export { f1Of, type PrecisionRecall } from './types.ts';
 export { blockingByCategory, pairCategory, PAIR_CATEGORIES, type PairCategory, type BlockingReport, type CategoryCompleteness } from './blockingByCategory.ts';
+export { pairAgreement, differingPairs, type PairAgreement } from './pairAgreement.ts';
