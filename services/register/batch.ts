@@ -14,7 +14,10 @@
  *     counterparty; a lone mention whose best score was between the thresholds goes to review.
  *  4. Writes go cluster by cluster (one event per mention), in the order of each cluster's smallest
  *     (source, externalId), so even the new ids do not depend on the input order. Consecutive clusters share a
- *     transaction up to WRITE_CHUNK mentions (a retry runs the whole chunk again).
+ *     transaction up to WRITE_CHUNK mentions (a retry runs the whole chunk again). A chunk reads in a few
+ *     statements (its stored mentions, its counterparties and their names, locked in that order after the
+ *     neighbourhood locks), draws the ids of its new rows at once, and writes through the ChangeSet's buffer:
+ *     the rows and events of all its mentions in a few set-based statements (state/change-set.ts, flush).
  */
 import { sql } from 'kysely';
 import { candidatePairs, type MatchRecord } from '../../resolvers/block/index.ts';
@@ -34,7 +37,8 @@ import { prepareMention, type PreparedMention } from './resolve/prepare.ts';
 import { contractContextFor, lockNameNeighbourhoods, resultOf, type ResolveResult } from './resolve/resolve-mention.ts';
 import { write } from './transaction.ts';
 import { ChangeSet } from './state/change-set.ts';
-import { canonicalRow } from './state/tables.ts';
+import { canonicalRow, type StateTable } from './state/tables.ts';
+import { lockActive, survivorFor } from './records.ts';
 import { closeOpenItemsOfMention, detachMention } from './upkeep.ts';
 
 export type BatchItemResult = ResolveResult | { status: 'rejected'; index: number; error: { code: string; message: string; field?: string } };
@@ -128,14 +132,36 @@ export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[],
     }
     let attempt = 0;
     const written = await write(ctx, async (cs) => {
-      // The first attempt trusts the read phase about which mentions are not stored yet (one SELECT less each);
-      // if another request stored one meanwhile, its INSERT fails on the unique key, and the retry re-reads all.
+      // The first attempt trusts the read phase about which mentions are not stored yet; if another request
+      // stored one meanwhile, its INSERT fails on the unique key, and the retry re-reads all.
       const recheck = attempt++ > 0;
       // Every neighbourhood lock of the chunk in one statement, in one sorted order, before any row lock.
       await lockNameNeighbourhoods(cs, chunk.flatMap((g) => g.members.map((m) => m.prepared)));
+      const members = chunk.flatMap((g) => g.members);
+      const found = await mentionIdsIn(cs, members.filter((m) => recheck || m.stored).map((m) => m.prepared));
+      const plans = chunk.map((group) => planGroup(group, final.has(group.members[0]!), model.linkAt));
+      // Every counterparty the chunk writes, in one sorted statement (then the survivors of merged ones), and
+      // the names of those it links to; then the ids of the rows it adds, drawn in one statement.
+      const linkTargets = plans.flatMap((p) => p.filter((o) => o.status === 'linked' && o.counterpartyId !== undefined).map((o) => o.counterpartyId!));
+      const targets = plans.flatMap((p) => p.filter((o) => (o.status === 'linked' || o.status === 'review') && o.counterpartyId !== undefined).map((o) => o.counterpartyId!));
+      await cs.lock('counterparty', [...targets, ...[...found.values()].flatMap((f) => (f.counterpartyId === null ? [] : [f.counterpartyId]))]);
+      await lockActive(cs, targets);
+      await cs.loadNames(linkTargets.map((id) => survivorFor(cs, id)));
+      const outcomes = plans.flat();
+      cs.reserveIds(
+        await reserveIds(cs, {
+          counterparty: outcomes.filter((o) => o.status === 'new').length,
+          mention: members.filter((m) => !found.has(m.key)).length,
+          review_item: outcomes.filter((o) => o.status === 'review').length,
+        }),
+      );
+      cs.startBuffering();
+      const contracts = new Map<string, Promise<ContractContext | null>>();
       const out: ResolveResult[][] = [];
-      for (const group of chunk) out.push(await writeGroup(ctx, cs, group, who, final.has(group.members[0]!), model.linkAt, recheck));
-      return out;
+      for (const [g, group] of chunk.entries()) out.push(await writeGroup(ctx, cs, group, plans[g]!, who, found, contracts, model.linkAt));
+      await cs.stopBuffering();
+      // Events written from the buffer got their ids at the flush.
+      return out.map((results) => results.map((r) => (r.eventId === null ? r : { ...r, eventId: cs.realId(r.eventId) })));
     });
     chunk.forEach((group, g) => {
       for (const [i, member] of group.members.entries()) results[member.index] = written[g]![i]!;
@@ -206,41 +232,93 @@ async function clusterBatch(
   return out;
 }
 
+/** Ids of stored mentions (with their counterparty) by sort key, in one statement. */
+async function mentionIdsIn(cs: ChangeSet, prepared: PreparedMention[]): Promise<Map<string, { id: number; counterpartyId: number | null }>> {
+  const out = new Map<string, { id: number; counterpartyId: number | null }>();
+  if (prepared.length === 0) return out;
+  const result = await sql<{ id: unknown; source: string; external_id: string; counterparty_id: unknown }>`
+    SELECT m.id, m.source, m.external_id, m.counterparty_id FROM mention m
+    JOIN unnest(${sql.val(prepared.map((p) => p.input.source))}::text[], ${sql.val(prepared.map((p) => p.input.externalId))}::text[]) AS k(source, external_id)
+      ON m.source = k.source AND m.external_id = k.external_id`.execute(cs.trx);
+  for (const row of result.rows) out.set(`${row.source}\u0000${row.external_id}`, { id: Number(row.id), counterpartyId: row.counterparty_id === null ? null : Number(row.counterparty_id) });
+  return out;
+}
+
+/** Ids for the rows a chunk adds, per table, in ascending order, drawn in one statement. */
+async function reserveIds(cs: ChangeSet, counts: Partial<Record<StateTable, number>>): Promise<Map<StateTable, number[]>> {
+  const tables = (Object.keys(counts) as StateTable[]).filter((t) => counts[t]! > 0);
+  const out = new Map<StateTable, number[]>(tables.map((t) => [t, []]));
+  if (tables.length === 0) return out;
+  const drawn = await sql<{ t: StateTable; id: unknown }>`
+    SELECT t, nextval(pg_get_serial_sequence(t, 'id')) AS id
+    FROM unnest(${sql.val(tables)}::text[], ${sql.val(tables.map((t) => counts[t]!))}::int[]) AS k(t, n), generate_series(1, k.n)`.execute(cs.trx);
+  for (const row of drawn.rows) out.get(row.t)!.push(Number(row.id));
+  for (const ids of out.values()) ids.sort((a, b) => a - b);
+  return out;
+}
+
+/**
+ * The outcome written for each member of a cluster: the cluster's counterparty, one new counterparty for the
+ * cluster (written by its first member, the others link to it), or a lone mention's review. `counterpartyId`
+ * is unset for a link to the counterparty the cluster creates.
+ */
+function planGroup(group: { members: Pending[]; counterpartyId: number | null }, fixed: boolean, linkAt: number): Outcome[] {
+  const target = group.counterpartyId;
+  return group.members.map((member, i) => {
+    const outcome = member.outcome;
+    if (fixed) return outcome;
+    const lone = group.members.length === 1 && target === null;
+    if (target !== null) return clusteredWith(outcome, target, linkAt);
+    if (lone && outcome.status === 'review') return outcome; // nothing in the batch or the register is close enough to decide
+    if (i === 0) {
+      return { ...outcome, status: 'new', counterpartyId: undefined, recordName: true, evidence: { ...outcome.evidence, summary: group.members.length > 1 ? `a new counterparty for ${group.members.length} mentions of this batch clustered together` : outcome.evidence.summary, via: 'batch' } };
+    }
+    // Linked to the counterparty the first member creates (writeGroup fills it in with clusteredWith).
+    return { ...outcome, status: 'linked', counterpartyId: undefined };
+  });
+}
+
+function clusteredWith(outcome: Outcome, target: number, linkAt: number): Outcome {
+  return { ...outcome, status: 'linked', counterpartyId: target, recordName: true, evidence: { ...outcome.evidence, summary: `clustered with counterparty ${target} in a batch (linkAt ${linkAt})`, via: 'batch' } };
+}
+
 async function writeGroup(
   ctx: RegisterContext,
   cs: ChangeSet,
   group: { members: Pending[]; counterpartyId: number | null },
+  planned: Outcome[],
   who: ActorInput,
-  fixed: boolean,
+  stored: Map<string, { id: number; counterpartyId: number | null }>,
+  contracts: Map<string, Promise<ContractContext | null>>,
   linkAt: number,
-  recheck: boolean,
 ): Promise<ResolveResult[]> {
   const at = ctx.now();
   const out: ResolveResult[] = [];
-  let target = group.counterpartyId;
+  let created: number | null = null;
   for (const [i, member] of group.members.entries()) {
-    let outcome = member.outcome;
-    if (!fixed) {
-      const lone = group.members.length === 1 && target === null;
-      if (target !== null) {
-        outcome = { ...outcome, status: 'linked', counterpartyId: target, recordName: true, evidence: { ...outcome.evidence, summary: `clustered with counterparty ${target} in a batch (linkAt ${linkAt})`, via: 'batch' } };
-      } else if (lone && outcome.status === 'review') {
-        // keep review: nothing in the batch or the register is close enough to decide
-      } else if (i === 0) {
-        outcome = { ...outcome, status: 'new', counterpartyId: undefined, recordName: true, evidence: { ...outcome.evidence, summary: group.members.length > 1 ? `a new counterparty for ${group.members.length} mentions of this batch clustered together` : outcome.evidence.summary, via: 'batch' } };
-      }
-    }
-    const found = !recheck && !member.stored ? undefined : await cs.trx.selectFrom('mention').select(['id', 'counterparty_id']).where('source', '=', member.prepared.input.source).where('external_id', '=', member.prepared.input.externalId).executeTakeFirst();
+    let outcome = planned[i]!;
+    if (outcome.status === 'linked' && outcome.counterpartyId === undefined) outcome = clusteredWith(member.outcome, created!, linkAt);
+    const found = stored.get(member.key);
+    // A stored mention or one with identifiers reads rows it may write (its old links, identifier holders):
+    // the buffer is written first and the mention is written at once.
+    const direct = found !== undefined || member.prepared.identifiers.length > 0;
+    if (direct) await cs.stopBuffering();
     let previous;
     if (found) {
-      if (found.counterparty_id !== null) await cs.lock('counterparty', [Number(found.counterparty_id)]);
-      previous = await cs.require('mention', Number(found.id));
+      if (found.counterpartyId !== null) await cs.lock('counterparty', [found.counterpartyId]);
+      previous = await cs.require('mention', found.id);
       await detachMention(cs, previous, at);
       await closeOpenItemsOfMention(cs, previous.id as number);
     }
-    const contract = await contractContextFor(cs, member.prepared.input.contract);
-    const applied = await applyOutcome(cs, member.prepared, outcome, found ? await cs.require('mention', Number(found.id)) : undefined, { contractId: contract?.contractId ?? null, at });
-    if (applied.createdCounterparty) target = applied.counterpartyId;
+    const ref = member.prepared.input.contract;
+    let contract: ContractContext | null = null;
+    if (ref) {
+      const refKey = JSON.stringify([ref.source, ref.externalId]);
+      if (!contracts.has(refKey)) contracts.set(refKey, contractContextFor(cs, ref));
+      contract = await contracts.get(refKey)!;
+    }
+    const applied = await applyOutcome(cs, member.prepared, outcome, found ? await cs.require('mention', found.id) : undefined, { contractId: contract?.contractId ?? null, at });
+    if (applied.createdCounterparty) created = applied.counterpartyId;
     const eventId = await commitEvent(cs, {
       type: eventTypeFor(previous, applied, previous !== undefined),
       actor: who.actor,
@@ -257,6 +335,7 @@ async function writeGroup(
         canonicalName: canonicalNameIn(cs, (applied.mention.counterparty_id as number | null) ?? null),
       }),
     );
+    if (direct) cs.startBuffering();
   }
   return out;
 }

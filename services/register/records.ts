@@ -70,13 +70,17 @@ export async function createCounterpartyRow(
 
 /** Adds a sighting of a name: a new row, or one more sighting of the same (name, kind). */
 export async function addNameSighting(cs: ChangeSet, counterpartyId: number, sighting: NameSighting, at: Date): Promise<Row> {
-  const existing = await cs.trx
-    .selectFrom('counterparty_name')
-    .select('id')
-    .where('counterparty_id', '=', counterpartyId)
-    .where('name', '=', sighting.name)
-    .where('kind', '=', sighting.kind)
-    .executeTakeFirst();
+  // A batch write holds the counterparty's names (ChangeSet.namesOf); otherwise they are read.
+  const held = await cs.namesOf(counterpartyId);
+  const existing = held
+    ? held.find((n) => n.name === sighting.name && n.kind === sighting.kind)
+    : await cs.trx
+        .selectFrom('counterparty_name')
+        .select('id')
+        .where('counterparty_id', '=', counterpartyId)
+        .where('name', '=', sighting.name)
+        .where('kind', '=', sighting.kind)
+        .executeTakeFirst();
   if (existing) {
     const row = await cs.require('counterparty_name', Number(existing.id));
     const patch: Row = { seen_count: (row.seen_count as number) + 1 };
@@ -169,11 +173,13 @@ export async function touchCounterparty(cs: ChangeSet, counterpartyId: number, a
   const cp = await cs.require('counterparty', counterpartyId);
   const patch: Row = { version: (cp.version as number) + 1, updated_at: at.toISOString() };
   if (cp.status === 'active' && !cp.name_locked_by) {
-    const names = await cs.trx
-      .selectFrom('counterparty_name')
-      .select(['id', 'name', 'kind', 'legal_form', 'seen_count', 'confirmed_by'])
-      .where('counterparty_id', '=', counterpartyId)
-      .execute();
+    const names =
+      (await cs.namesOf(counterpartyId)) ??
+      (await cs.trx
+        .selectFrom('counterparty_name')
+        .select(['id', 'name', 'kind', 'legal_form', 'seen_count', 'confirmed_by'])
+        .where('counterparty_id', '=', counterpartyId)
+        .execute());
     const chosen = chooseCanonicalName(names.map((n) => ({ ...n, id: Number(n.id) }) as NameCandidate));
     if (chosen) patch.canonical_name = chosen.name;
   }

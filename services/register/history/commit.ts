@@ -24,6 +24,25 @@ export interface EventPayload {
 
 export async function commitEvent(cs: ChangeSet, input: EventInput, ops: Op[] = cs.ops): Promise<number> {
   const { counterpartyIds, mentionIds } = touchedBy(ops);
+  if (cs.buffering) {
+    // Written with the ChangeSet's buffer (its id is temporary until then: ChangeSet.realId).
+    const id = cs.bufferEvent(
+      {
+        type: input.type,
+        actor: input.actor,
+        at: input.at.toISOString(),
+        reason: input.reason ?? null,
+        payload: { details: input.details ?? {} },
+        counterparty_ids: counterpartyIds,
+        mention_ids: mentionIds,
+        undoes_event_id: input.undoesEventId ?? null,
+        request_id: input.requestId ?? null,
+      },
+      [...ops],
+    );
+    if (ops === cs.ops) cs.ops.length = 0;
+    return id;
+  }
   const payload: EventPayload = { details: input.details ?? {}, ops };
   const row = await cs.trx
     .insertInto('history_event')
