@@ -306,14 +306,38 @@ async function rewriteStoredAnswers(trx: Transaction<Database>, secrets: Secrets
       .execute();
     count++;
   }
-  const jobs = await sql<{ id: number; params: unknown; result: unknown }>`
-    SELECT id, params, result FROM job WHERE ${containsAny(sql`coalesce(result::text, '') || params::text`, secrets)} FOR UPDATE`.execute(trx);
+  const jobs = await sql<{ id: number; params: unknown; result: unknown; plan: unknown }>`
+    SELECT id, params, result, plan FROM job WHERE ${containsAny(sql`coalesce(result::text, '') || params::text || coalesce(plan::text, '')`, secrets)} FOR UPDATE`.execute(trx);
   for (const j of jobs.rows) {
     const parse = (v: unknown) => (typeof v === 'string' ? JSON.parse(v) : v);
     await trx
       .updateTable('job')
-      .set({ params: JSON.stringify(replace(parse(j.params))), result: j.result === null ? null : JSON.stringify(replace(parse(j.result))) })
+      .set({
+        params: JSON.stringify(replace(parse(j.params))),
+        result: j.result === null ? null : JSON.stringify(replace(parse(j.result))),
+        plan: j.plan === null ? null : JSON.stringify(replace(parse(j.plan))),
+      })
       .where('id', '=', Number(j.id))
+      .execute();
+    count++;
+  }
+  // A job still under way holds its input (staged rows, partition items): the same replacement applies there.
+  const chunks = await sql<{ job_id: number; chunk_no: number; rows: unknown }>`
+    SELECT job_id, chunk_no, rows FROM job_chunk WHERE ${containsAny(sql`rows::text`, secrets)} FOR UPDATE`.execute(trx);
+  for (const c of chunks.rows) {
+    const rows = typeof c.rows === 'string' ? JSON.parse(c.rows) : c.rows;
+    await trx.updateTable('job_chunk').set({ rows: JSON.stringify(replace(rows)) }).where('job_id', '=', Number(c.job_id)).where('chunk_no', '=', c.chunk_no).execute();
+    count++;
+  }
+  const parts = await sql<{ job_id: number; partition_no: number; items: unknown; result: unknown }>`
+    SELECT job_id, partition_no, items, result FROM job_partition WHERE ${containsAny(sql`items::text || coalesce(result::text, '')`, secrets)} FOR UPDATE`.execute(trx);
+  for (const p of parts.rows) {
+    const parse = (v: unknown) => (typeof v === 'string' ? JSON.parse(v) : v);
+    await trx
+      .updateTable('job_partition')
+      .set({ items: JSON.stringify(replace(parse(p.items))), result: p.result === null ? null : JSON.stringify(replace(parse(p.result))) })
+      .where('job_id', '=', Number(p.job_id))
+      .where('partition_no', '=', p.partition_no)
       .execute();
     count++;
   }

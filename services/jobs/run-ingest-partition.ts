@@ -18,6 +18,8 @@ export interface PartitionResult {
   elapsedMs: number;
   attempt: number;
   worker: string;
+  /** The partition's mentions as (source, externalId): which partition a name fell in, for reports and audits. */
+  members: [string, string][];
 }
 
 export async function runIngestPartition(deps: JobDeps, jobId: number, partitionNo: number): Promise<void> {
@@ -49,7 +51,7 @@ export async function runIngestPartition(deps: JobDeps, jobId: number, partition
       } else if (result.alreadyIngested) counts.already_ingested!++;
       else counts[result.status] = (counts[result.status] ?? 0) + 1;
     });
-    const result: PartitionResult = { counts, rejected, elapsedMs: Math.round(performance.now() - started), attempt: part.attempts + 1, worker: deps.worker };
+    const result: PartitionResult = { counts, rejected, elapsedMs: Math.round(performance.now() - started), attempt: part.attempts + 1, worker: deps.worker, members: items.map((i) => [i.mention.source, i.mention.externalId]) };
     await deps.db.transaction().execute(async (trx) => {
       await readJob(trx, jobId, { forUpdate: true });
       await finishPartition(trx, jobId, partitionNo, result);

@@ -7,6 +7,7 @@
  * check (GB82 WEST 1234 5698 7654 32, the example of the IBAN registry, "from memory"), the phone is in
  * London's drama range 020 7946 0xxx (Ofcom's numbers reserved for fiction, from memory).
  */
+import { insertChunk, insertJob, insertPartitions } from '../../db/queries/jobs.ts';
 import { sql, type Kysely } from 'kysely';
 import { beforeAll, expect, it } from 'vitest';
 import type { Database } from '../../db/types.ts';
@@ -26,7 +27,7 @@ const ADDRESS = '14 Quillet Lane, Marrowby';
 /** Everything stored, as text: every state table, the history, idempotency records and jobs. */
 async function everything(db: Kysely<Database>): Promise<string> {
   const parts: string[] = [];
-  for (const table of ['counterparty', 'counterparty_name', 'counterparty_identifier', 'blocking_key', 'mention', 'contract', 'defined_term', 'contract_party', 'review_item', 'labelled_pair', 'cannot_link', 'counterparty_relation', 'history_event', 'idempotency_record', 'job']) {
+  for (const table of ['counterparty', 'counterparty_name', 'counterparty_identifier', 'blocking_key', 'mention', 'contract', 'defined_term', 'contract_party', 'review_item', 'labelled_pair', 'cannot_link', 'counterparty_relation', 'history_event', 'idempotency_record', 'job', 'job_chunk', 'job_partition']) {
     const rows = await sql<{ j: string }>`SELECT row_to_json(t)::text AS j FROM ${sql.table(table)} t`.execute(db);
     parts.push(...rows.rows.map((r) => r.j));
   }
@@ -55,6 +56,10 @@ describeEachBackend('forget a person', (t) => {
     await mergeCounterparties(ctx, { ids: [personId, second.counterpartyId], survivorId: personId }, WHO);
     await storeContract(ctx, { source: 'dms', externalId: 'c1', title: 'Consulting agreement', text: `This agreement is made between Harrowgate Lantern Works Ltd ("the Client") and ${PERSON} ("the Consultant").` }, WHO);
     otherId = (await createCounterparty(ctx, { name: 'Harrowgate Lantern Works Ltd', kind: 'organisation' }, WHO)).counterpartyId;
+    // A partitioned job still under way holds the person in its staged rows and in a partition's input.
+    const jobId = await insertJob(t.db(), { kind: 'ingest', actor: 'test', status: 'running', params: { partitioned: true } });
+    await insertChunk(t.db(), jobId, 0, [{ line: 1, mention: { source: 'upload', externalId: 'u1', text: PERSON, address: ADDRESS } }]);
+    await insertPartitions(t.db(), jobId, [[{ line: 2, mention: { source: 'upload', externalId: 'u2', text: `${PERSON} (sole trader)`, identifiers: [{ scheme: 'phone', value: PHONE }] } }]]);
   });
 
   it('leaves none of the personal values anywhere, keeps the structure, records one forgotten event, verify passes', async () => {

@@ -1,0 +1,183 @@
+/**
+ * Scale-out on one PostgreSQL: one API process (`cpreg serve --work 0`, submits only) and three `cpreg worker`
+ * processes resolve a generated batch (30,000 mentions; 200,000 under CPREG_LONG=1), while this test process
+ * resolves the same file alone (the in-process queue, every partition in turn) into a database of its own. In the
+ * middle of a partition one worker is killed with SIGKILL: the queue runs that partition again on another worker
+ * once it expires. The two registers must agree (pairwise agreement of the clusterings ≥ 0.999; every pair they
+ * disagree on is printed with the partitions its two names fell in) and `cpreg verify` must pass on both.
+ * Names are invented (cpreg generate's generator).
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import { readFileSync } from 'node:fs';
+import { hostname } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { differingPairs, pairAgreement } from '../../../resolvers/evaluate/index.ts';
+import { openDatabase, type OpenedDatabase } from '../../../db/open-database.ts';
+import { startJobs } from '../../../services/jobs/start-jobs.ts';
+import { submitIngestJob } from '../../../services/jobs/submit-ingest.ts';
+import { watchJob } from '../../../services/jobs/watch-job.ts';
+import { createPostgresCopy, isBackendAvailable, makeTempDir, removeTempDir } from '../../support/index.ts';
+import { CPREG_BIN, REPO_ROOT, childEnv, runCli, startServe, type ServerProcess } from '../../support/cli.ts';
+import { clusteringOf, generatedMentions, writeNdjson, type TruthMention } from './support.ts';
+
+const LONG = process.env.CPREG_LONG === '1';
+const SIZE = LONG ? 200_000 : 30_000;
+const PARTITION_SIZE = 1000;
+/** A partition whose worker vanished runs again after this many seconds (the queue's expiry). */
+const EXPIRE_S = 60;
+const ENV = {
+  CPREG_QUEUE_EXPIRE_S: String(EXPIRE_S),
+  CPREG_QUEUE_MAINTENANCE_S: '2',
+  CPREG_QUEUE_POLL_S: '0.5',
+  CPREG_QUEUE_RETRY_DELAY_S: '0',
+  CPREG_RATE_LIMIT_PER_MINUTE: 'off',
+};
+
+interface Worker {
+  child: ChildProcess;
+  id: string;
+  output(): string;
+}
+
+function startWorker(url: string): Promise<Worker> {
+  return new Promise((resolve, reject) => {
+    const child = spawn(process.execPath, [CPREG_BIN, 'worker', '--db', url], { cwd: REPO_ROOT, env: childEnv(ENV) });
+    let output = '';
+    const timer = setTimeout(() => reject(new Error(`cpreg worker did not start; output:\n${output}`)), 60_000);
+    const onData = (chunk: Buffer): void => {
+      output += chunk.toString();
+      if (/taking jobs/.test(output)) {
+        clearTimeout(timer);
+        resolve({ child, id: `${hostname()}:${child.pid}`, output: () => output });
+      }
+    };
+    child.stdout!.on('data', onData);
+    child.stderr!.on('data', onData);
+    child.on('exit', (code) => reject(new Error(`cpreg worker exited (${code}) before taking jobs; output:\n${output}`)));
+  });
+}
+
+const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
+
+(isBackendAvailable('postgres') ? describe : describe.skip)('scale-out: one API and three workers on PostgreSQL [postgres]', () => {
+  let dir: string;
+  let file: string;
+  let mentions: TruthMention[];
+  let distUrl: string;
+  let refUrl: string;
+  let api: ServerProcess | undefined;
+  const workers: Worker[] = [];
+  const opened: OpenedDatabase[] = [];
+
+  beforeAll(async () => {
+    dir = makeTempDir('cpreg-scale-');
+    file = join(dir, 'batch.ndjson');
+    mentions = generatedMentions(SIZE, 2026, 'scale');
+    writeNdjson(file, mentions);
+    distUrl = await createPostgresCopy();
+    refUrl = await createPostgresCopy();
+  }, 120_000);
+
+  afterAll(async () => {
+    for (const w of workers) if (w.child.exitCode === null && w.child.signalCode === null) w.child.kill('SIGKILL');
+    await api?.stop('SIGKILL');
+    for (const o of opened) await o.close().catch(() => undefined);
+    removeTempDir(dir);
+  });
+
+  it(`resolves ${SIZE.toLocaleString('en-US')} mentions as one process does, through a worker killed mid-partition`, async () => {
+    const created = await runCli(['keys', 'create', '--scope', 'write', '--label', 'scale-out test', '--json', '--db', distUrl], { env: childEnv(ENV) });
+    expect(created.code, created.stderr).toBe(0);
+    const key = (JSON.parse(created.stdout) as { secret: string }).secret;
+    api = await startServe(['--db', distUrl, '--port', '0', '--work', '0'], { env: childEnv(ENV) });
+    for (let i = 0; i < 3; i++) workers.push(await startWorker(distUrl));
+
+    // The reference: this process alone, every partition in turn, into its own database (runs meanwhile).
+    const ref = await openDatabase(refUrl);
+    opened.push(ref);
+    const single = await startJobs({ db: ref.db, backend: 'postgres', work: true, inProcess: true });
+    const reference = (async () => {
+      const jobId = await submitIngestJob({ db: ref.db, queue: single.queue }, { file, source: 'scale', actor: 'test', partitionSize: PARTITION_SIZE });
+      const job = await watchJob(ref.db, jobId, { pollMs: 1000 });
+      await single.stop();
+      return job;
+    })();
+
+    const upload = await fetch(`${api.url}/v1/jobs/ingest?source=scale`, { method: 'POST', headers: { authorization: `Bearer ${key}`, 'content-type': 'application/x-ndjson' }, body: readFileSync(file) });
+    expect(upload.status, await upload.clone().text()).toBe(202);
+    const jobId = ((await upload.json()) as { id: number }).id;
+
+    // Kill the first worker while it is inside a partition.
+    const dist = await openDatabase(distUrl);
+    opened.push(dist);
+    let killed: { partitionNo: number } | undefined;
+    for (let i = 0; i < 1200 && !killed; i++) {
+      const running = await dist.db
+        .selectFrom('job_partition')
+        .select(['partition_no', 'started_at'])
+        .where('job_id', '=', jobId)
+        .where('status', '=', 'running')
+        .where('worker', '=', workers[0]!.id)
+        .executeTakeFirst();
+      if (running && Date.now() - new Date(running.started_at!).getTime() > 1000) {
+        workers[0]!.child.kill('SIGKILL');
+        killed = { partitionNo: running.partition_no };
+      } else await sleep(250);
+    }
+    expect(killed, 'the first worker never ran a partition').toBeDefined();
+
+    // Follow the job through the API, as a client would.
+    let view: { status: string; partitions: { total: number; done: number } | null; result: Record<string, unknown> | null; error: string | null } | undefined;
+    const deadline = Date.now() + 25 * 60_000;
+    do {
+      await sleep(2000);
+      const res = await fetch(`${api.url}/v1/jobs/${jobId}`, { headers: { authorization: `Bearer ${key}` } });
+      expect(res.status).toBe(200);
+      view = (await res.json()) as typeof view;
+    } while (view!.status !== 'finished' && view!.status !== 'failed' && Date.now() < deadline);
+    expect(view!.status, JSON.stringify(view!.error)).toBe('finished');
+    expect(view!.partitions!.done).toBe(view!.partitions!.total);
+    const result = view!.result as { counts: Record<string, number>; retriedPartitions: number; partitions: number; crossPairs: number; merges: unknown[] };
+    expect(result.counts.read).toBe(SIZE);
+
+    // The killed worker's partition ran again, elsewhere.
+    const again = await dist.db.selectFrom('job_partition').select(['status', 'attempts', 'worker']).where('job_id', '=', jobId).where('partition_no', '=', killed!.partitionNo).executeTakeFirstOrThrow();
+    expect(again.status).toBe('done');
+    expect(again.attempts).toBeGreaterThanOrEqual(2);
+    expect(again.worker).not.toBe(workers[0]!.id);
+    expect(result.retriedPartitions).toBeGreaterThanOrEqual(1);
+
+    const refJob = await reference;
+    expect(refJob.status, String(refJob.error)).toBe('finished');
+
+    // The two registers agree.
+    const a = await clusteringOf(dist.db, mentions);
+    const b = await clusteringOf(ref.db, mentions);
+    const agreement = pairAgreement(a, b);
+    const partitionOf = new Map<string, number>();
+    const parts = await dist.db.selectFrom('job_partition').select(['partition_no', 'result']).where('job_id', '=', jobId).execute();
+    for (const p of parts) {
+      const r = (typeof p.result === 'string' ? JSON.parse(p.result) : p.result) as { members: [string, string][] };
+      for (const [, externalId] of r.members) partitionOf.set(externalId, p.partition_no);
+    }
+    const differing = differingPairs(a, b);
+    const lines = [
+      `scale-out: ${SIZE} mentions, ${result.partitions} partitions, ${result.crossPairs} linking pairs across partitions, ${result.merges.length} final-pass merges, ${result.retriedPartitions} partition(s) run again (worker ${workers[0]!.id} killed in partition ${killed!.partitionNo})`,
+      `pairwise agreement with one process: ${agreement.agreement.toFixed(6)} (together in both ${agreement.both}, only distributed ${agreement.firstOnly}, only one process ${agreement.secondOnly})`,
+      ...differing.map(({ pair: [x, y], together }) => {
+        const m = mentions[x]!;
+        const n = mentions[y]!;
+        return `  differs: "${m.text}" (${m.externalId}, partition ${partitionOf.get(m.externalId)}) + "${n.text}" (${n.externalId}, partition ${partitionOf.get(n.externalId)}): together only in the ${together === 'first' ? 'distributed' : 'one-process'} register`;
+      }),
+    ];
+    process.stdout.write(`${lines.join('\n')}\n`);
+    expect(agreement.both).toBeGreaterThan(SIZE / 10);
+    expect(agreement.agreement).toBeGreaterThanOrEqual(0.999);
+
+    for (const url of [distUrl, refUrl]) {
+      const verified = await runCli(['verify', '--db', url, '--json'], { timeoutMs: 600_000 });
+      expect(verified.code, verified.stdout + verified.stderr).toBe(0);
+    }
+  }, 40 * 60_000);
+});
