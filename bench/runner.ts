@@ -27,9 +27,9 @@ interface Options {
 const FILE_TIMEOUT_S: Record<BenchMode, number> = { quick: 300, default: 3600, full: 4 * 3600 };
 
 export function sizesFor(mode: BenchMode): BenchContext['sizes'] {
-  if (mode === 'quick') return { register: [10_000], names: [10_000], ingest: [10_000] };
-  if (mode === 'default') return { register: [10_000, 100_000], names: [100_000], ingest: [100_000] };
-  return { register: [10_000, 100_000, 1_000_000], names: [100_000, 1_000_000], ingest: [100_000, 1_000_000] };
+  if (mode === 'quick') return { register: [10_000], names: [10_000], ingest: [10_000], scaleOut: [5_000] };
+  if (mode === 'default') return { register: [10_000, 100_000], names: [100_000], ingest: [100_000], scaleOut: [50_000] };
+  return { register: [10_000, 100_000, 1_000_000], names: [100_000, 1_000_000], ingest: [100_000, 1_000_000], scaleOut: [1_000_000] };
 }
 
 const SOAK_SECONDS: Record<BenchMode, number> = { quick: 30, default: 60, full: 300 };

@@ -50,6 +50,9 @@ export interface BenchContext {
     names: number[];
     /** Mentions for batch ingest: quick [10_000]; default [100_000]; full [100_000, 1_000_000]. */
     ingest: number[];
+    /** Mentions of one partitioned ingest job run by 1 and 2 workers: quick [5_000]; default [50_000]; full [1_000_000].
+     * Optional so that contexts built outside the runner (bench/kernels.bench.ts run alone) need not list it. */
+    scaleOut?: number[];
   };
   /** Soak duration in seconds: quick 30; default 60; full 300. */
   soakSeconds: number;
