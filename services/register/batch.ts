@@ -218,7 +218,35 @@ async function clusterBatch(
     else edges.push({ a: a.id, b: b.id, score: s.score });
   }
   const cpList = [...cps].sort();
-  for (let i = 0; i < cpList.length; i++) for (let j = i + 1; j < cpList.length; j++) cannot.push([cpList[i]!, cpList[j]!]);
+  // Register counterparties never join each other: a cannot-link between every two of them. Only two that one
+  // chain of linking edges (score ≥ linkAt) connects can ever meet in a merge, so the cannot-links are given
+  // within each such component only (the clusters are the same; all pairs would grow with the square of the
+  // counterparties in the batch).
+  const root = new Map<string, string>();
+  const find = (node: string): string => {
+    let r = node;
+    while (root.has(r) && root.get(r) !== r) r = root.get(r)!;
+    let at = node;
+    while (at !== r) {
+      const next = root.get(at)!;
+      root.set(at, r);
+      at = next;
+    }
+    return r;
+  };
+  for (const e of edges) {
+    if (!(e.score >= model.linkAt)) continue;
+    const ra = find(e.a);
+    const rb = find(e.b);
+    if (ra !== rb) root.set(ra < rb ? rb : ra, ra < rb ? ra : rb);
+  }
+  const byComponent = new Map<string, string[]>();
+  for (const cp of cpList) {
+    const r = find(cp);
+    if (!byComponent.has(r)) byComponent.set(r, []);
+    byComponent.get(r)!.push(cp);
+  }
+  for (const group of byComponent.values()) for (let i = 0; i < group.length; i++) for (let j = i + 1; j < group.length; j++) cannot.push([group[i]!, group[j]!]);
   const ids = [...records.map((r) => r.id), ...cpList];
   const clusters = clusterRecords(ids, edges, cannot, { linkAt: model.linkAt });
   const byNode = new Map(byKey.map((p) => [`m:${p.key}`, p]));
