@@ -7,37 +7,9 @@
 import type { FastifyRequest } from 'fastify';
 import { ApiError, type FieldError } from '../errors.ts';
 import type { AppPlugin } from '../types.ts';
+import { findUnstorableText } from '../../ingest/unstorable-text.ts';
 
-function problemOf(text: string): string | undefined {
-  if (text.includes('\u0000')) return 'contains the NUL character (U+0000), which cannot be stored';
-  if (!(text as string & { isWellFormed(): boolean }).isWellFormed()) return 'is not well-formed Unicode (a lone UTF-16 surrogate)';
-  return undefined;
-}
-
-function escapeToken(token: string): string {
-  return token.replaceAll('~', '~0').replaceAll('/', '~1');
-}
-
-/** The first ill-formed string or key in `value`, as a JSON pointer and a message. */
-export function findUnstorableText(value: unknown): { pointer: string; message: string } | undefined {
-  const stack: { value: unknown; pointer: string }[] = [{ value, pointer: '' }];
-  while (stack.length > 0) {
-    const { value: v, pointer } = stack.pop()!;
-    if (typeof v === 'string') {
-      const message = problemOf(v);
-      if (message) return { pointer, message };
-    } else if (Array.isArray(v)) {
-      for (let i = v.length - 1; i >= 0; i--) stack.push({ value: v[i], pointer: `${pointer}/${i}` });
-    } else if (v !== null && typeof v === 'object') {
-      for (const [key, child] of Object.entries(v)) {
-        const keyProblem = problemOf(key);
-        if (keyProblem) return { pointer: `${pointer}/${escapeToken(key.replace(/[\0\ud800-\udfff]/g, '?'))}`, message: `the key ${keyProblem}` };
-        stack.push({ value: child, pointer: `${pointer}/${escapeToken(key)}` });
-      }
-    }
-  }
-  return undefined;
-}
+export { findUnstorableText };
 
 function check(request: FastifyRequest): void {
   const parts: [FieldError['in'], unknown][] = [['body', request.body], ['query', request.query], ['path', request.params]];

@@ -47,6 +47,26 @@ describeEachBackend('/v1 over real HTTP', (ctx) => {
     expect((await res.json()).status).toBe('new');
   });
 
+  it('takes an NDJSON upload as a partitioned job over real HTTP (the request stream is never walked as JSON)', async () => {
+    // Regression: the well-formed-text check once walked the upload stream's object graph and never returned.
+    const lines = [
+      JSON.stringify({ externalId: 'u-1', text: 'Brindlecombe Optics Ltd', country: 'GB' }),
+      JSON.stringify({ externalId: 'u-2', text: 'Brindlecombe Optics Limited', country: 'GB' }),
+      '{"externalId":"u-3","text":"Nul\\u0000Byte Traders"}',
+    ];
+    const res = await fetch(`${base}/v1/jobs/ingest?source=http-upload`, { method: 'POST', headers: { authorization: `Bearer ${admin}`, 'content-type': 'application/x-ndjson' }, body: `${lines.join('\n')}\n`, signal: AbortSignal.timeout(60_000) });
+    expect(res.status, await res.clone().text()).toBe(202);
+    const id = ((await res.json()) as { id: number }).id;
+    let job: { status: string; result: { counts: Record<string, number>; rejected: { line: number; reason: string }[] } | null } = { status: 'queued', result: null };
+    for (let i = 0; i < 300 && (job.status === 'queued' || job.status === 'running'); i++) {
+      await new Promise((r) => setTimeout(r, 100));
+      job = (await (await call(`/v1/jobs/${id}`)).json()) as typeof job;
+    }
+    expect(job.status).toBe('finished');
+    expect(job.result!.counts).toMatchObject({ read: 3, rejected: 1 });
+    expect(job.result!.rejected).toEqual([{ line: 3, reason: expect.stringContaining('NUL') }]);
+  });
+
   it('answers 308 to the survivor for a merged id', async () => {
     const a = await (await call('/v1/counterparties', { method: 'POST', body: { name: 'Istervale Paper AB', jurisdiction: 'SE' } })).json();
     const b = await (await call('/v1/counterparties', { method: 'POST', body: { name: 'Istervale Papper AB', jurisdiction: 'SE' } })).json();
