@@ -57,7 +57,7 @@ export default function register(program: Command): void {
       }
       if (options.asJob) {
         const partitionSize = Number(options.partitionSize);
-        if (!Number.isInteger(partitionSize) || partitionSize < 1 || partitionSize > 100_000) throw new CliError('--partition-size: expected a whole number from 1 to 100000');
+        if (!Number.isInteger(partitionSize) || partitionSize < 1 || partitionSize > 1_000_000) throw new CliError('--partition-size: expected a whole number from 1 to 1000000');
         await ingestAsJob(file, { ...options, format, map, partitionSize });
         return;
       }
@@ -113,28 +113,10 @@ export default function register(program: Command): void {
 }
 
 async function ingestAsJob(file: string, options: Omit<IngestCliOptions, 'format' | 'partitionSize' | 'map'> & { format: 'csv' | 'ndjson'; map: FieldMap; partitionSize: number }): Promise<void> {
-  const { withDatabase, cliActor } = await import('../../ingest/cli-support.ts');
-  const { resolveTarget, isPostgresUrl } = await import('../../../db/open-database.ts');
-  const { startJobs } = await import('../../jobs/start-jobs.ts');
+  const { cliActor } = await import('../../ingest/cli-support.ts');
   const { submitIngestJob } = await import('../../jobs/submit-ingest.ts');
-  const { followJob, describeJob } = await import('./jobs.ts');
-  const target = resolveTarget(options.db);
-  const postgres = isPostgresUrl(target);
-  await withDatabase(options.db, 'cpreg ingest', async (db) => {
-    // On PostgreSQL this process only submits (workers resolve); on the embedded database it does the work itself.
-    const jobs = await startJobs({ db, backend: postgres ? 'postgres' : 'pglite', url: target, work: !postgres, log: (level, fields, message) => level !== 'info' && process.stderr.write(`cpreg: ${message} ${String((fields.err as Error | undefined)?.message ?? '')}\n`) });
-    try {
-      const jobId = await submitIngestJob({ db, queue: jobs.queue }, { file, format: options.format, source: options.source, map: options.map, actor: cliActor(), partitionSize: options.partitionSize });
-      if (!options.wait) {
-        process.stdout.write(options.json ? `${JSON.stringify({ jobId })}\n` : `job ${jobId} submitted; follow it with: cpreg jobs show ${jobId} --watch\n`);
-        return;
-      }
-      process.stderr.write(`cpreg: job ${jobId} submitted\n`);
-      const job = await followJob(db, jobId, 'ingest');
-      process.stdout.write(options.json ? `${JSON.stringify(job)}\n` : `${describeJob(job).join('\n')}\n`);
-      if (job.status === 'failed') process.exitCode = 1;
-    } finally {
-      await jobs.stop();
-    }
-  });
+  const { submitAndFollow } = await import('./jobs.ts');
+  await submitAndFollow(options.db, 'cpreg ingest', { json: options.json, wait: options.wait, label: 'ingest' }, (deps) =>
+    submitIngestJob(deps, { file, format: options.format, source: options.source, map: options.map, actor: cliActor(), partitionSize: options.partitionSize }),
+  );
 }

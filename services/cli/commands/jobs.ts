@@ -6,6 +6,7 @@ import type { Command } from 'commander';
 import type { Kysely } from 'kysely';
 import type { Database } from '../../../db/types.ts';
 import type { JobRow } from '../../../db/queries/jobs.ts';
+import type { JobQueue } from '../../../db/job-queue.ts';
 import { CliError } from '../cli-error.ts';
 import { DB_OPTION_HELP } from './serve.ts';
 
@@ -40,6 +41,42 @@ export async function followJob(db: Kysely<Database>, jobId: number, label: stri
   } finally {
     bar.finish();
   }
+}
+
+/**
+ * Submits a partitioned job and, unless `wait` is false, follows it to its end and prints it. On PostgreSQL this
+ * process only submits (workers run the steps); on the embedded database it runs them itself.
+ */
+export async function submitAndFollow(
+  target: string | undefined,
+  command: string,
+  options: { json?: boolean; wait: boolean; label: string },
+  submit: (deps: { db: Kysely<Database>; queue: JobQueue }) => Promise<number>,
+): Promise<void> {
+  const { withDatabase } = await import('../../ingest/cli-support.ts');
+  const { resolveTarget, isPostgresUrl } = await import('../../../db/open-database.ts');
+  const { startJobs } = await import('../../jobs/start-jobs.ts');
+  const url = resolveTarget(target);
+  const postgres = isPostgresUrl(url);
+  await withDatabase(target, command, async (db) => {
+    const log = (level: string, fields: Record<string, unknown>, message: string): void => {
+      if (level !== 'info') process.stderr.write(`cpreg: ${message} ${String((fields.err as Error | undefined)?.message ?? '')}\n`);
+    };
+    const jobs = await startJobs({ db, backend: postgres ? 'postgres' : 'pglite', url, work: !postgres, log });
+    try {
+      const jobId = await submit({ db, queue: jobs.queue });
+      if (!options.wait) {
+        process.stdout.write(options.json ? `${JSON.stringify({ jobId })}\n` : `job ${jobId} submitted; follow it with: cpreg jobs show ${jobId} --watch\n`);
+        return;
+      }
+      process.stderr.write(`cpreg: job ${jobId} submitted\n`);
+      const job = await followJob(db, jobId, options.label);
+      process.stdout.write(options.json ? `${JSON.stringify(job)}\n` : `${describeJob(job).join('\n')}\n`);
+      if (job.status === 'failed') process.exitCode = 1;
+    } finally {
+      await jobs.stop();
+    }
+  });
 }
 
 export function describeJob(job: JobRow): string[] {

@@ -125,7 +125,7 @@ export const exportJobRoutes: RoutePlugin = async (app, deps) => {
   };
   if (!deps.jobs) await jobsReady();
 
-  app.post<{ Querystring: { source: string } }>(
+  app.post<{ Querystring: { source: string; partitionSize?: number } }>(
     '/v1/jobs/ingest',
     {
       config: { scope: 'write' },
@@ -134,7 +134,12 @@ export const exportJobRoutes: RoutePlugin = async (app, deps) => {
         description:
           'Content-Type application/x-ndjson, one mention per line. `source` names the source for lines without their own. The upload is staged, then planned into partitions that workers resolve (GET /v1/jobs/{id} shows the partitions done). Rows are accounted for as in `cpreg ingest` (the job result holds the counts and the rejected lines with their reasons, up to 1,000).',
         tags: ['jobs'],
-        querystring: { type: 'object', required: ['source'], additionalProperties: false, properties: { source: SOURCE_ID } },
+        querystring: {
+          type: 'object',
+          required: ['source'],
+          additionalProperties: false,
+          properties: { source: SOURCE_ID, partitionSize: { type: 'integer', minimum: 1, maximum: 1_000_000, default: 2000, description: 'Mentions per partition aimed at (whole clusters)' } },
+        },
         response: { 202: JOB_OUT, ...problemResponses(415) },
       },
     },
@@ -162,7 +167,7 @@ export const exportJobRoutes: RoutePlugin = async (app, deps) => {
         const who = actorOf(request);
         let id: number;
         try {
-          id = await submitIngestJob({ db, queue: (await jobsReady()).queue }, { file, format: 'ndjson', source: request.query.source, actor: who.actor, inputName: 'upload' });
+          id = await submitIngestJob({ db, queue: (await jobsReady()).queue }, { file, format: 'ndjson', source: request.query.source, actor: who.actor, inputName: 'upload', ...(request.query.partitionSize ? { partitionSize: request.query.partitionSize } : {}) });
         } catch (error) {
           if (claim) await releaseIdempotencyKey(db, claim);
           throw error;
