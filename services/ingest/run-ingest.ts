@@ -60,13 +60,23 @@ export interface IngestSummary extends IngestProgress {
   unaccounted: number;
 }
 
+/** Ids per lookup statement (a whole job's mentions are looked up at once by its planner). */
+const STORED_LOOKUP_CHUNK = 5000;
+
 export async function storedHashes(db: Kysely<Database>, mentions: MentionInput[]): Promise<Map<string, string>> {
   const out = new Map<string, string>();
   const bySource = new Map<string, string[]>();
-  for (const m of mentions) bySource.set(m.source, [...(bySource.get(m.source) ?? []), m.externalId]);
+  for (const m of mentions) {
+    const ids = bySource.get(m.source);
+    if (ids) ids.push(m.externalId);
+    else bySource.set(m.source, [m.externalId]);
+  }
   for (const [source, ids] of bySource) {
-    const rows = await db.selectFrom('mention').select(['external_id', 'content_hash']).where('source', '=', source).where('external_id', 'in', ids).execute();
-    for (const r of rows) out.set(`${source}\u0000${r.external_id}`, r.content_hash);
+    for (let start = 0; start < ids.length; start += STORED_LOOKUP_CHUNK) {
+      const slice = ids.slice(start, start + STORED_LOOKUP_CHUNK);
+      const rows = await db.selectFrom('mention').select(['external_id', 'content_hash']).where('source', '=', source).where('external_id', 'in', slice).execute();
+      for (const r of rows) out.set(`${source}\u0000${r.external_id}`, r.content_hash);
+    }
   }
   return out;
 }
