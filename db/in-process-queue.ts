@@ -46,13 +46,6 @@ export class InProcessQueue implements JobQueue {
     this.#pump();
   }
 
-  /** Resolves once no job is waiting or running (tests and one-shot commands). */
-  async drained(): Promise<void> {
-    while (this.#running.size > 0 || this.#waiting.some((w) => this.#handlers.has(w.name))) {
-      await Promise.race(this.#running.size > 0 ? [...this.#running] : [new Promise((r) => setImmediate(r))]);
-    }
-  }
-
   async stop(options: { graceful?: boolean } = {}): Promise<void> {
     this.#stopped = true;
     this.#waiting.length = 0;

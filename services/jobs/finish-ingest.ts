@@ -10,12 +10,13 @@
  */
 import { sql } from 'kysely';
 import { clusterRecords, type ScoredEdge } from '../../resolvers/cluster/index.ts';
-import { partitionResults, partitionTally, readJob, updateJob, type JobRow } from '../../db/queries/jobs.ts';
+import { partitionResults, updateJob, type JobRow } from '../../db/queries/jobs.ts';
 import { emptyCounts, unaccounted, type IngestCounts } from '../ingest/run-ingest.ts';
 import { RegisterError } from '../register/errors.ts';
 import { mergeCounterparties } from '../register/merge-split.ts';
 import { currentModel } from '../register/matching/model.ts';
 import { MAX_LISTED_REJECTS, type JobDeps } from './deps.ts';
+import { readyToFinish } from './finish-guard.ts';
 import type { CrossPair, IngestPlan } from './plan-ingest.ts';
 import type { PartitionResult } from './run-ingest-partition.ts';
 
@@ -27,12 +28,8 @@ export interface CrossMerge {
 }
 
 export async function finishIngest(deps: JobDeps, jobId: number): Promise<void> {
-  const job = await readJob(deps.db, jobId);
-  if (!job) throw new Error(`job ${jobId} does not exist`);
-  if (job.status === 'finished' || job.status === 'failed' || !job.plan) return;
-  // Queued early (a resumed job, a duplicate delivery): the last partition to finish queues it again.
-  const tally = await partitionTally(deps.db, jobId);
-  if (tally.done !== tally.total) return;
+  const job = await readyToFinish(deps, jobId);
+  if (!job) return;
   const plan = job.plan as unknown as IngestPlan;
   await updateJob(deps.db, jobId, { progress: { ...job.progress, stage: 'finishing' } });
   const merges = await mergeAcrossPartitions(deps, job, plan.crossPairs);

@@ -5,11 +5,12 @@
  * written are stored with the same content and count as already ingested, the rest are resolved against the
  * register as it now stands.
  */
-import { finishPartition, partitionTally, readJob, readPartition, startPartition } from '../../db/queries/jobs.ts';
+import { finishPartition, readJob, readPartition, startPartition } from '../../db/queries/jobs.ts';
 import { emptyCounts, storedHashes } from '../ingest/run-ingest.ts';
 import { resolveBatch } from '../register/batch.ts';
 import { prepareMention } from '../register/resolve/prepare.ts';
-import { JOB_STEPS, MAX_LISTED_REJECTS, type JobDeps } from './deps.ts';
+import { MAX_LISTED_REJECTS, type JobDeps } from './deps.ts';
+import { queueFinishWhenAllDone } from './finish-guard.ts';
 import type { PartitionItem } from './plan-ingest.ts';
 
 export interface PartitionResult {
@@ -59,14 +60,4 @@ export async function runIngestPartition(deps: JobDeps, jobId: number, partition
     deps.log('info', { jobId, partition: partitionNo, mentions: items.length, elapsedMs: result.elapsedMs }, 'partition done');
   }
   await queueFinishWhenAllDone(deps, jobId);
-}
-
-/** Queues the final pass once every partition is done (the job row lock orders concurrent last partitions). */
-export async function queueFinishWhenAllDone(deps: JobDeps, jobId: number): Promise<void> {
-  const allDone = await deps.db.transaction().execute(async (trx) => {
-    await readJob(trx, jobId, { forUpdate: true });
-    const tally = await partitionTally(trx, jobId);
-    return tally.done === tally.total;
-  });
-  if (allDone) await deps.queue.send(JOB_STEPS.finish, { jobId }, { singletonKey: String(jobId) });
 }

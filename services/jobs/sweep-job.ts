@@ -4,10 +4,10 @@
  * planner cuts the active counterparties into id ranges, each partition sweeps its range against the whole
  * register, and the final pass adds up the summaries. No pair crosses partitions in the sense of the ingest plan.
  */
-import { finishPartition, insertPartitions, partitionResults, partitionTally, readJob, readPartition, startPartition, updateJob } from '../../db/queries/jobs.ts';
+import { finishPartition, insertPartitions, partitionResults, readJob, readPartition, startPartition, updateJob } from '../../db/queries/jobs.ts';
 import { sweep, type SweepSummary } from '../register/sweep.ts';
 import { PARTITION_DEFAULTS, type JobDeps } from './deps.ts';
-import { queueFinishWhenAllDone } from './run-ingest-partition.ts';
+import { queueFinishWhenAllDone, readyToFinish } from './finish-guard.ts';
 
 interface SweepRange {
   afterId: number;
@@ -51,12 +51,8 @@ export async function runSweepPartition(deps: JobDeps, jobId: number, partitionN
 }
 
 export async function finishSweep(deps: JobDeps, jobId: number): Promise<void> {
-  const job = await readJob(deps.db, jobId);
-  if (!job) throw new Error(`job ${jobId} does not exist`);
-  if (job.status === 'finished' || job.status === 'failed' || !job.plan) return;
-  // Queued early (a resumed job, a duplicate delivery): the last partition to finish queues it again.
-  const tally = await partitionTally(deps.db, jobId);
-  if (tally.done !== tally.total) return;
+  const job = await readyToFinish(deps, jobId);
+  if (!job) return;
   const total: Omit<SweepSummary, 'itemIds'> = { scanned: 0, duplicateItems: 0, affiliateItems: 0, skippedCannotLink: 0, skippedExisting: 0 };
   for (const { result } of await partitionResults(deps.db, jobId)) {
     for (const key of Object.keys(total) as (keyof typeof total)[]) total[key] += Number(result[key] ?? 0);
