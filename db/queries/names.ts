@@ -1,4 +1,5 @@
 /** Counterparty names. */
+import type { NameKind } from '../../resolvers/vocabulary.ts';
 import type { Queryable } from './util.ts';
 import { groupByCounterparty, id, idOrNull, iso } from './util.ts';
 
@@ -39,4 +40,10 @@ export async function namesOf(db: Queryable, counterpartyIds: number[]): Promise
     confirmedBy: r.confirmed_by,
     createdAt: iso(r.created_at) as string,
   }));
+}
+
+/** The id of a counterparty's name row with this exact (name, kind), if it has one. */
+export async function findNameId(db: Queryable, counterpartyId: number, name: string, kind: NameKind): Promise<number | undefined> {
+  const row = await db.selectFrom('counterparty_name').select('id').where('counterparty_id', '=', counterpartyId).where('name', '=', name).where('kind', '=', kind).executeTakeFirst();
+  return row ? id(row.id) : undefined;
 }

@@ -18,6 +18,7 @@ import type { Row } from './state/tables.ts';
 import { write } from './transaction.ts';
 import { cannotLinksOf } from '../../db/queries/review.ts';
 import { survivorsOf } from '../../db/queries/counterparties.ts';
+import { findNameId } from '../../db/queries/names.ts';
 
 /** The ids plus every id ever merged into them (cannot-links may name an old id). */
 export async function idsMergedInto(cs: ChangeSet, ids: number[]): Promise<number[]> {
@@ -90,19 +91,13 @@ export async function mergeInto(cs: ChangeSet, survivorId: number, loserId: numb
   const iso = at.toISOString();
   const names = await cs.trx.selectFrom('counterparty_name').select(['id', 'name', 'kind']).where('counterparty_id', '=', loserId).orderBy('id').execute();
   for (const n of names) {
-    const twin = await cs.trx
-      .selectFrom('counterparty_name')
-      .select('id')
-      .where('counterparty_id', '=', survivorId)
-      .where('name', '=', n.name)
-      .where('kind', '=', n.kind)
-      .executeTakeFirst();
+    const twin = await findNameId(cs.trx, survivorId, n.name, n.kind);
     const row = await cs.require('counterparty_name', Number(n.id));
-    if (twin) {
-      const keep = await cs.require('counterparty_name', Number(twin.id));
+    if (twin !== undefined) {
+      const keep = await cs.require('counterparty_name', twin);
       const patch: Row = { seen_count: (keep.seen_count as number) + (row.seen_count as number) };
       if (!keep.confirmed_by && row.confirmed_by) patch.confirmed_by = row.confirmed_by;
-      await cs.update('counterparty_name', Number(twin.id), patch);
+      await cs.update('counterparty_name', twin, patch);
       await cs.delete('counterparty_name', Number(n.id));
     } else {
       await cs.update('counterparty_name', Number(n.id), { counterparty_id: survivorId });

@@ -11,6 +11,7 @@ import type { Row } from './state/tables.ts';
 import { chooseCanonicalName, type NameCandidate } from './canonical-name.ts';
 import { RegisterError, invalid, notFound } from './errors.ts';
 import { analyse } from './matching/analysis.ts';
+import { findNameId } from '../../db/queries/names.ts';
 
 export interface NameSighting {
   name: string;
@@ -72,20 +73,12 @@ export async function createCounterpartyRow(
 export async function addNameSighting(cs: ChangeSet, counterpartyId: number, sighting: NameSighting, at: Date): Promise<Row> {
   // A batch write holds the counterparty's names (ChangeSet.namesOf); otherwise they are read.
   const held = await cs.namesOf(counterpartyId);
-  const existing = held
-    ? held.find((n) => n.name === sighting.name && n.kind === sighting.kind)
-    : await cs.trx
-        .selectFrom('counterparty_name')
-        .select('id')
-        .where('counterparty_id', '=', counterpartyId)
-        .where('name', '=', sighting.name)
-        .where('kind', '=', sighting.kind)
-        .executeTakeFirst();
-  if (existing) {
-    const row = await cs.require('counterparty_name', Number(existing.id));
+  const existing = held ? held.find((n) => n.name === sighting.name && n.kind === sighting.kind)?.id : await findNameId(cs.trx, counterpartyId, sighting.name, sighting.kind);
+  if (existing !== undefined && existing !== null) {
+    const row = await cs.require('counterparty_name', Number(existing));
     const patch: Row = { seen_count: (row.seen_count as number) + 1 };
     if (sighting.confirmedBy && !row.confirmed_by) patch.confirmed_by = sighting.confirmedBy;
-    return cs.update('counterparty_name', Number(existing.id), patch);
+    return cs.update('counterparty_name', Number(existing), patch);
   }
   const analysis = analyse(sighting.name);
   return cs.insert('counterparty_name', {
