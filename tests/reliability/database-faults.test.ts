@@ -40,12 +40,27 @@ if (unavailable) process.stdout.write(`database-faults: skipped (not passed): ${
 
   const call = async (method: 'GET' | 'POST', path: string, body?: unknown) => {
     const started = performance.now();
-    const res = await fetch(`${service.url}${path}`, {
-      method,
-      headers: { authorization: `Bearer ${key}`, ...(body ? { 'content-type': 'application/json' } : {}) },
-      body: body ? JSON.stringify(body) : undefined,
-      signal: AbortSignal.timeout(30_000),
-    });
+    const send = () =>
+      fetch(`${service.url}${path}`, {
+        method,
+        headers: { authorization: `Bearer ${key}`, ...(body ? { 'content-type': 'application/json' } : {}) },
+        body: body ? JSON.stringify(body) : undefined,
+        signal: AbortSignal.timeout(30_000),
+      });
+    let res: Response;
+    try {
+      res = await send();
+    } catch (error) {
+      // A kept-alive connection the server closed as the client reused it (undici: "other side closed") is a
+      // race of idle timers on a loaded machine, not an answer: send once more on a new connection. A crashed
+      // service still fails here (connection refused). The writes are idempotent by (source, externalId).
+      if ((error as { cause?: { code?: string } }).cause?.code !== 'UND_ERR_SOCKET') throw error;
+      try {
+        res = await send();
+      } catch (again) {
+        throw new Error(`the service did not answer ${method} ${path} twice (${(again as Error).message}); its last output:\n${service.output().slice(-4000)}`, { cause: again });
+      }
+    }
     const text = await res.text();
     return { status: res.status, type: res.headers.get('content-type') ?? '', text, ms: performance.now() - started };
   };
