@@ -104,6 +104,11 @@ async function openPostgres(url: string, options: OpenDatabaseOptions): Promise<
   // An idle client whose server went away emits 'error' on the pool; unhandled it would crash the
   // process. The pool drops that client and the next request reconnects (or answers 503).
   pool.on('error', (error) => options.onPoolError?.(error));
+  // A client that is checked out has no pool listener: when its connection dies between queries (the server
+  // went away, or dropOnReadTimeout closed it after a read timeout while the request still held it), the
+  // client's own 'error' event would crash the process (seen under load in the database-faults test). The
+  // failing query already answers the request; the pool drops the dead client when it comes back.
+  pool.on('connect', (client) => client.on('error', (error) => options.onPoolError?.(error)));
   if (options.timeoutMs) pool.on('connect', dropOnReadTimeout);
   try {
     const client = await pool.connect();
