@@ -6,7 +6,8 @@
  *   read = linked + review + new + own_entity + not_a_party + unbound_term + collective_term
  *          + already_ingested + rejected
  *
- * Rejected rows go to the rejects file (line number, reason, the row as read). The run and its counts are
+ * Rejected rows go to the rejects file (line number, reason, the row as read), among them rows holding text the
+ * database cannot store (NUL, a lone UTF-16 surrogate), named by field. The run and its counts are
  * stored in ingest_run (updated after every batch, so an interrupted run shows how far it got). Running the
  * same file again resumes: rows already stored with the same content count as already_ingested.
  */
@@ -21,6 +22,7 @@ import { prepareMention } from '../register/resolve/prepare.ts';
 import type { MentionInput } from '../../resolvers/vocabulary.ts';
 import { mentionFromJson, mentionFromRow, resolveColumns, type FieldMap, type RowResult } from './mapping.ts';
 import { RejectsWriter } from './rejects.ts';
+import { unstorableRowReason } from './unstorable-text.ts';
 
 export const COUNT_KEYS = ['linked', 'review', 'new', 'own_entity', 'not_a_party', 'unbound_term', 'collective_term', 'already_ingested', 'rejected'] as const;
 export type CountKey = (typeof COUNT_KEYS)[number];
@@ -222,6 +224,13 @@ export async function ingestFile(options: IngestOptions): Promise<IngestSummary>
     for await (const row of rowsOf(options.file, format, options.source, options.map ?? {}, stream, reject)) {
       if (!row.result.ok) {
         reject(row.line, row.result.reason, row.raw);
+        continue;
+      }
+      // Text PostgreSQL cannot store (NUL, a lone surrogate) would fail the whole batch's statement, and the
+      // rerun at the same place: the row is refused by its line, as the job staging does.
+      const unstorable = unstorableRowReason(row.result.mention);
+      if (unstorable) {
+        reject(row.line, unstorable, row.raw);
         continue;
       }
       const earlier = seen.get(row.result.identity);

@@ -1,8 +1,8 @@
 /**
  * Text PostgreSQL cannot store: a lone UTF-16 surrogate (JSON allows "\ud800"; text and jsonb refuse it) and the NUL
  * character (text cannot hold U+0000). Found iteratively (a deeply nested value cannot overflow the stack), keys
- * included, in parsed JSON only. Used at the API's door (services/api/plugins/well-formed-text.ts) and by the job
- * staging, which refuses such a row by its line instead of failing the whole upload.
+ * included, in parsed JSON only. Used at the API's door (services/api/plugins/well-formed-text.ts), and by
+ * `cpreg ingest` and the job staging, which refuse such a row by its line instead of failing the whole run.
  */
 export function problemOf(text: string): string | undefined {
   if (text.includes('\u0000')) return 'contains the NUL character (U+0000), which cannot be stored';
@@ -43,4 +43,10 @@ export function findUnstorableText(value: unknown): { pointer: string; message: 
     }
   }
   return undefined;
+}
+
+/** Why a mapped row cannot be stored, naming the field (`field /text contains the NUL character …`); undefined when it can. */
+export function unstorableRowReason(value: unknown): string | undefined {
+  const found = findUnstorableText(value);
+  return found ? `field ${found.pointer} ${found.message}` : undefined;
 }

@@ -12,7 +12,7 @@ import type { Database } from '../../db/types.ts';
 import type { MentionInput } from '../../resolvers/vocabulary.ts';
 import type { FieldMap } from '../ingest/mapping.ts';
 import { formatOf, rowsOf, type IngestFormat } from '../ingest/run-ingest.ts';
-import { findUnstorableText } from '../ingest/unstorable-text.ts';
+import { unstorableRowReason } from '../ingest/unstorable-text.ts';
 import { JOB_STEPS, PARTITION_DEFAULTS } from './deps.ts';
 
 /** One staged row: the mention as mapped, or why the row could not be read. */
@@ -52,8 +52,8 @@ export async function submitIngestJob(deps: { db: Kysely<Database>; queue: JobQu
     const skipped: StagedRow[] = [];
     for await (const row of rowsOf(options.file, format, options.source, options.map ?? {}, stream, (line, reason) => skipped.push({ line, reason }))) {
       chunk.push(...skipped.splice(0));
-      const unstorable = row.result.ok ? findUnstorableText(row.result.mention) : undefined;
-      if (unstorable) chunk.push({ line: row.line, reason: `field ${unstorable.pointer} ${unstorable.message}` });
+      const unstorable = row.result.ok ? unstorableRowReason(row.result.mention) : undefined;
+      if (unstorable) chunk.push({ line: row.line, reason: unstorable });
       else chunk.push(row.result.ok ? { line: row.line, mention: row.result.mention } : { line: row.line, reason: row.result.reason });
       if (chunk.length >= chunkSize) {
         await insertChunk(deps.db, jobId, chunkNo++, chunk);
