@@ -5,6 +5,11 @@
  * again. The same key with another body or route answers 422 IDEMPOTENCY_KEY_REUSED; a retry while the first
  * is still running answers 409 IDEMPOTENCY_KEY_IN_USE. Keys are scoped to the API key that sent them and kept
  * 24 hours. A 5xx answer is not stored (the retry runs again: a failed request changed nothing).
+ *
+ * An answer that holds a secret shown once (POST /v1/keys) is never stored as it was sent: the route says in
+ * `config.idempotentReplay` what a replay answers instead (the key's id and metadata, `secretWithheld: true`),
+ * and whatever is stored is searched for whole API keys, each replaced by a marker, so that a route that forgets
+ * to say still stores no secret.
  */
 import { createHash } from 'node:crypto';
 import type { FastifyReply, FastifyRequest } from 'fastify';
@@ -12,6 +17,7 @@ import type { Kysely } from 'kysely';
 import type { Database } from '../../../db/types.ts';
 import { ApiError } from '../errors.ts';
 import type { AppPlugin } from '../types.ts';
+import { KEY_IN_TEXT } from './keys.ts';
 
 export const IDEMPOTENCY_TTL_HOURS = 24;
 /** A first request that left no answer this long ago (its instance died) may be taken over. */
@@ -22,7 +28,17 @@ declare module 'fastify' {
   interface FastifyRequest {
     idempotency: { keyId: string; key: string } | null;
   }
+  interface FastifyContextConfig {
+    /**
+     * For a route whose answer holds a secret shown once: the body a replay answers instead, from the first
+     * answer's parsed JSON body (2xx answers only). Without it the answer is stored as sent.
+     */
+    idempotentReplay?: (body: unknown) => unknown;
+  }
 }
+
+/** What replaces a whole API key found in an answer about to be stored. */
+export const SECRET_NOT_STORED = '[secret not stored]';
 
 export function bodyHash(method: string, path: string, body: unknown): string {
   return createHash('sha256').update(JSON.stringify([method, path, body ?? null])).digest('hex');
@@ -88,9 +104,11 @@ export async function claimIdempotencyKey(
 }
 
 export async function storeIdempotentAnswer(db: Kysely<Database>, claim: { keyId: string; key: string }, answer: StoredAnswer): Promise<void> {
+  // A secret is shown once and stored only hashed: never kept for a replay, whichever route sent it.
+  const stored: StoredAnswer = { ...answer, body: answer.body.replace(KEY_IN_TEXT, SECRET_NOT_STORED) };
   await db
     .updateTable('idempotency_record')
-    .set({ status_code: answer.statusCode, response: JSON.stringify(answer) })
+    .set({ status_code: stored.statusCode, response: JSON.stringify(stored) })
     .where('key_id', '=', claim.keyId)
     .where('idempotency_key', '=', claim.key)
     .execute();
@@ -111,6 +129,19 @@ const KEPT_HEADERS = ['location', 'etag'];
 
 function isReadable(value: unknown): boolean {
   return typeof value === 'object' && value !== null && typeof (value as { pipe?: unknown }).pipe === 'function';
+}
+
+/** The body stored for replays: the route's `idempotentReplay` of a 2xx JSON answer, else the answer as sent. */
+function replayBody(request: FastifyRequest, statusCode: number, sent: string): string {
+  const replay = request.routeOptions.config?.idempotentReplay;
+  if (!replay || statusCode < 200 || statusCode > 299) return sent;
+  let parsed: unknown;
+  try {
+    parsed = JSON.parse(sent);
+  } catch {
+    return sent; // not JSON: stored with every key in it replaced (storeIdempotentAnswer)
+  }
+  return JSON.stringify(replay(parsed));
 }
 
 /** The Idempotency-Key header of a request, checked; undefined when absent. */
@@ -156,7 +187,8 @@ export const idempotencyPlugin: AppPlugin = (app, deps) => {
       if (value !== undefined) headers[name] = String(value);
     }
     const contentType = reply.getHeader('content-type');
-    const body = typeof payload === 'string' ? payload : Buffer.isBuffer(payload) ? payload.toString('utf8') : payload === null || payload === undefined ? '' : JSON.stringify(payload);
+    const sent = typeof payload === 'string' ? payload : Buffer.isBuffer(payload) ? payload.toString('utf8') : payload === null || payload === undefined ? '' : JSON.stringify(payload);
+    const body = replayBody(request, reply.statusCode, sent);
     await storeIdempotentAnswer(deps.db, claim, { statusCode: reply.statusCode, contentType: contentType === undefined ? null : String(contentType), headers, body });
     return payload;
   });

@@ -25,6 +25,8 @@ export interface CreatedApiKey extends ApiKeyInfo {
 
 export const MAX_LABEL_LENGTH = 200;
 const KEY_SHAPE = /^cpreg_(k[0-9a-f]{12})_[\w-]{43}$/;
+/** A whole key anywhere in a text (so that no stored answer keeps one: services/api/auth/idempotency.ts). */
+export const KEY_IN_TEXT = /cpreg_k[0-9a-f]{12}_[\w-]{43}/g;
 
 /** Scopes nest: admin ⊇ write ⊇ read. */
 export function scopeAllows(have: ApiScope, need: ApiScope): boolean {

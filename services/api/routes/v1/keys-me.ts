@@ -18,6 +18,17 @@ const KEY_OUT = {
   example: { id: 'k3f9a1c2b7d40', label: 'contract system', scope: 'write', createdAt: '2026-12-01T09:00:00.000Z', revokedAt: null, lastUsedAt: null },
 } as const;
 
+/** Said by a replay of POST /v1/keys (an Idempotency-Key retry), whose answer holds no secret. */
+export const SECRET_WITHHELD_DETAIL =
+  'this key was created by the first request with this Idempotency-Key; its secret was shown once, in that answer, and is stored only hashed: if it was lost, revoke this key and create another';
+
+/** What a replay of POST /v1/keys answers: the created key's id and metadata, never its secret. */
+export function createdKeyReplay(body: unknown): unknown {
+  if (typeof body !== 'object' || body === null) return body;
+  const { secret: _secret, ...metadata } = body as Record<string, unknown>;
+  return { ...metadata, secretWithheld: true, detail: SECRET_WITHHELD_DETAIL };
+}
+
 const ALLOWS: Record<ApiScope, string[]> = {
   read: ['read'],
   write: ['read', 'ingest', 'resolve', 'post_contracts'],
@@ -65,9 +76,12 @@ export const keyRoutes: RoutePlugin = (app, deps) => {
   app.post<{ Body: { scope: ApiScope; label: string } }>(
     '/v1/keys',
     {
-      config: { scope: 'admin' },
+      // The secret is shown once: an Idempotency-Key replay answers the key's metadata without it.
+      config: { scope: 'admin', idempotentReplay: createdKeyReplay },
       schema: {
         summary: 'Create an API key: the answer holds the secret, shown this once (only its digest is stored)',
+        description:
+          'A retry with the same Idempotency-Key answers the same status and metadata without `secret`, with `secretWithheld: true` and a `detail`: the secret is never stored, so it cannot be shown again.',
         tags: ['keys'],
         body: {
           type: 'object',
@@ -76,7 +90,18 @@ export const keyRoutes: RoutePlugin = (app, deps) => {
           properties: { scope: { type: 'string', enum: [...API_SCOPES] }, label: { type: 'string', minLength: 1, maxLength: MAX_LABEL_LENGTH, description: 'the person or system the key is for' } },
           example: { scope: 'write', label: 'contract system' },
         },
-        response: { 201: { ...KEY_OUT, properties: { ...KEY_OUT.properties, secret: { type: 'string' } }, example: undefined } },
+        response: {
+          201: {
+            ...KEY_OUT,
+            properties: {
+              ...KEY_OUT.properties,
+              secret: { type: 'string', description: 'the whole key, in the first answer only' },
+              secretWithheld: { type: 'boolean', description: 'true in an Idempotency-Key replay, which holds no secret' },
+              detail: { type: 'string', description: 'in a replay: why the secret is not in it' },
+            },
+            example: undefined,
+          },
+        },
       },
     },
     async (request, reply) => {
