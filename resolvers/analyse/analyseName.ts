@@ -36,6 +36,9 @@ export function analyseName(text: string, hints: AnalyseHints = {}): NameAnalysi
   }
 
   let found = findForm(primary, country);
+  // "Bank" is a legal form only in Puerto Rico: with a country hint elsewhere such a word is part of the name, not
+  // its legal form (a designator of several jurisdictions, or an abbreviation, still counts).
+  if (found && country !== undefined && foreignToOneJurisdiction(found.span.entry, country)) found = null;
   if (!found && descriptor?.form) {
     // "Brackenridge Fabrication, a Delaware corporation": the descriptor's form is the name's form.
     found = { span: descriptor.form, trailing: [], trailingFrom: primary.length, text: descriptorText };
@@ -128,6 +131,13 @@ function findForm(primary: string, country: string | undefined): Found | null {
   }
   const prefix = matchPrefixForm(primary, scan, country);
   return prefix ? { span: prefix, trailing: [], trailingFrom: primary.length } : null;
+}
+
+function foreignToOneJurisdiction(entry: LegalFormSpan['entry'], country: string): boolean {
+  // Abbreviations ("KG", "Co KG") stay forms: they are rarely ordinary words.
+  if (entry.abbreviation || entry.distinctJurisdictions.length !== 1) return false;
+  const whole = country.slice(0, 2);
+  return (entry.distinctJurisdictions[0] as string).slice(0, 2) !== whole;
 }
 
 /** The words as written, split like normaliseTokens splits them (for capitalisation checks). */

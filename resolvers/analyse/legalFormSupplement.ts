@@ -11,6 +11,10 @@
  *   JP "K.K." / "Kabushiki Kaisha" (T417) and "G.K." / "Godo Kaisha" (7QQ0): the v1.5 rows of these codes carry no
  *   Latin abbreviation (or only a long one such as SK "Spol. s r. o."); the short forms are common practice.
  * - CZ "v. v. i." (CIO8, veřejná výzkumná instituce): no abbreviation in v1.5; common practice.
+ * - ES "S.C.C." / "C.C." / "S. Coop. de Crédito" and the regional "S.C.C.V." / "C.C.V." (Valencian) and "S.C.A.C."
+ *   (Andalusian) for SS0L (Cooperativa de Crédito), and "S.A.U." (sociedad anónima unipersonal) for the ES S.A. row:
+ *   v1.5 has no abbreviation for these; as supervisors' lists write them (common practice).
+ * - IE "DAC" (designated activity company, LGWG): v1.5 writes it "DAC – (limited by shares)" only.
  */
 export interface SupplementForm {
   text: string;
@@ -44,4 +48,13 @@ export const SUPPLEMENT_FORMS: readonly SupplementForm[] = [
   { text: 'Kabushiki Kaisha', code: 'T417', kind: 'n' },
   { text: 'G.K.', code: '7QQ0', kind: 'a' },
   { text: 'Godo Kaisha', code: '7QQ0', kind: 'n' },
+  { text: 'S.C.C.', code: 'SS0L', kind: 'a' },
+  { text: 'C.C.', code: 'SS0L', kind: 'a' },
+  { text: 'S. Coop. de Crédito', code: 'SS0L', kind: 'a' },
+  { text: 'Sociedad Cooperativa de Crédito', code: 'SS0L', kind: 'n' },
+  { text: 'S.C.C.V.', code: 'SS0L', kind: 'a' },
+  { text: 'C.C.V.', code: 'SS0L', kind: 'a' },
+  { text: 'S.C.A.C.', code: 'SS0L', kind: 'a' },
+  { text: 'S.A.U.', code: '5RDO', kind: 'a' },
+  { text: 'DAC', code: 'LGWG', kind: 'a' },
 ];

@@ -91,7 +91,8 @@ function extendCompound(text: string, scan: NameScan, at: number, last: LegalFor
 function extendAdjacent(text: string, scan: NameScan, at: number, last: LegalFormEntry): number {
   if (!last.abbreviation) return at;
   const inner = longestSuffix(scan, 0, at, legalFormIndex().suffix);
-  if (!inner || !inner.entry.abbreviation || CONNECTED_WORDS.has(inner.entry.key)) return at;
+  // A Roman numeral before the form numbers a series ("Merrow Finance II S.r.l."): it stays in the name.
+  if (!inner || !inner.entry.abbreviation || CONNECTED_WORDS.has(inner.entry.key) || AMBIGUOUS_SUFFIXES.has(inner.entry.key)) return at;
   if (inner.entry.key.length > 4 && !text.slice(scan.from[inner.at], scan.to[at - 1]).includes('.')) return at;
   const countries = new Set(last.jurisdictions.map((j) => j.slice(0, 2)));
   return inner.entry.jurisdictions.some((j) => countries.has(j.slice(0, 2))) ? inner.at : at;

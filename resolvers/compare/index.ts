@@ -28,3 +28,5 @@ export {
   type JurisdictionComparison,
   type JurisdictionLevel,
 } from './jurisdiction.ts';
+export { compareNameTokens, type DistinguishingKind, type NameDifference, type NameDifferenceKind } from './nameDifference.ts';
+export { ACTIVITY_WORDS, BRANCH_WORDS, isNumberToken, isPlaceWord } from './distinguishingWords.ts';

@@ -1,7 +1,8 @@
 /**
  * Legal-form compatibility of two names, from the name analysis (resolvers/analyse/types.ts → LegalFormMatch).
  *
- * - same_family: the same designator family ("Ltd" and "Limited"; "L.L.C." and "LLC").
+ * - same_family: the same designator family ("Ltd" and "Limited"; "L.L.C." and "LLC"), or two spellings of one ELF
+ *   code (one side narrowed to a single code that the other can stand for).
  * - compatible: different families that can stand for the same legal form (their ISO 20275 ELF codes overlap,
  *   e.g. "AG" and "SA" of a Swiss company limited by shares).
  * - conflicting: different legal forms in the same jurisdiction (a GB "plc" is not a GB "Ltd"; US-DE vs US
@@ -20,6 +21,10 @@ export interface LegalFormComparison {
   explanation: string;
 }
 
+function sameCodes(a: readonly string[], b: readonly string[]): boolean {
+  return a.length === b.length && a.every((code) => b.includes(code));
+}
+
 function sharedJurisdiction(a: readonly string[], b: readonly string[]): string | null {
   for (const x of a) for (const y of b) if (jurisdictionsCompatible(x, y)) return x.length <= y.length ? x : y;
   return null;
@@ -32,6 +37,10 @@ export function compareLegalForms(a: LegalFormMatch | null, b: LegalFormMatch | 
   }
   if (a.family === b.family) return { level: 'same_family', explanation: `"${a.text}" and "${b.text}" are the same legal form (${a.family})` };
   const shared = a.elfCodes.find((code) => b.elfCodes.includes(code));
+  // Two spellings of one ELF code ("S. Coop. de Crédito" / "S.C.C." in ES) are one legal form, not merely compatible.
+  if (shared !== undefined && (a.elfCodes.length === 1 || b.elfCodes.length === 1 || sameCodes(a.elfCodes, b.elfCodes))) {
+    return { level: 'same_family', explanation: `"${a.text}" and "${b.text}" are the same legal form (ELF ${shared})` };
+  }
   if (shared !== undefined) {
     return { level: 'compatible', explanation: `"${a.text}" and "${b.text}" can both stand for ELF ${shared}` };
   }

@@ -8,11 +8,12 @@ import { softTfIdfWeighted, weighTokens, type IdfTable } from '../compare/index.
 import { compareIdentifiers } from '../identifiers/index.ts';
 import type { IndexedPairs, ScoredEdge } from '../cluster/clusterRecords.ts';
 import type { Random } from '../prng.ts';
-import { compareRecords, nameLevelOf, qualifierLevel } from './compareRecords.ts';
+import { compareRecords, differenceOf, nameLevelOf, qualifierLevel } from './compareRecords.ts';
 import { acronymLevel, jurisdictionLevel, legalFormLevel } from './contextLevels.ts';
 import type { ComparisonVector } from './em.ts';
-import { FEATURE_LEVELS, FEATURE_NAMES, levelIndices } from './features.ts';
+import { distinctLevelOf, FEATURE_LEVELS, FEATURE_NAMES, isInformativeCore, levelIndices, nameLevelOfKind } from './features.ts';
 import { featureWeights, type MatchModel } from './matchModel.ts';
+import { HELD_BACK_MARGIN, heldBackAt, indexedRules } from './decisionRules.ts';
 
 const MISSING = -1;
 
@@ -35,7 +36,8 @@ const JURISDICTION = FEATURE_NAMES.indexOf('jurisdiction');
 const ACRONYM = FEATURE_NAMES.indexOf('acronym');
 const QUALIFIER = FEATURE_NAMES.indexOf('qualifier');
 const SHARED_CONTACT = FEATURE_NAMES.indexOf('sharedContact');
-if (FEATURE_NAMES.length !== 6) throw new Error('compareCandidates: a feature was added; write its level here too');
+const DISTINCT = FEATURE_NAMES.indexOf('distinct');
+if (FEATURE_NAMES.length !== 7) throw new Error('compareCandidates: a feature was added; write its level here too');
 
 export function compareCandidates(records: readonly MatchRecord[], pairs: CandidatePairs, idf: IdfTable): ComparedPairs {
   const width = FEATURE_NAMES.length;
@@ -55,7 +57,9 @@ export function compareCandidates(records: readonly MatchRecord[], pairs: Candid
     const b = records[j] as MatchRecord;
     const row = k * width;
     const soft = softTfIdfWeighted(weighted[i]!, weighted[j]!);
-    put(row, NAME, nameLevelOf(a.analysis.core, b.analysis.core, soft));
+    const difference = a.analysis.core.length === 0 || b.analysis.core.length === 0 ? null : differenceOf(a, b);
+    put(row, NAME, difference === null ? null : nameLevelOfKind(difference, isInformativeCore(a.analysis.tokens, idf), () => nameLevelOf(a.analysis.core, b.analysis.core, soft)!));
+    put(row, DISTINCT, distinctLevelOf(difference));
     put(row, LEGAL_FORM, legalFormLevel(a, b));
     put(row, JURISDICTION, jurisdictionLevel(a, b));
     put(row, ACRONYM, acronymLevel(a, b));
@@ -96,7 +100,7 @@ export function randomPairVectors(records: readonly MatchRecord[], idf: IdfTable
   return out;
 }
 
-/** Scores of every compared pair under a model (identifier overrides as ±Infinity). */
+/** Ruled scores (decisionRules.ruledScore) of every compared pair under a model: identifier overrides as ±Infinity, held-back pairs capped below linkAt. */
 export function scoreCompared(compared: ComparedPairs, model: MatchModel): Float64Array {
   const width = FEATURE_NAMES.length;
   const weights = FEATURE_NAMES.map((f) => {
@@ -110,6 +114,7 @@ export function scoreCompared(compared: ComparedPairs, model: MatchModel): Float
     });
   });
   const scores = new Float64Array(compared.pairs.count);
+  const rules = indexedRules();
   for (let k = 0; k < compared.pairs.count; k++) {
     let s = 0;
     for (let f = 0; f < width; f++) {
@@ -117,6 +122,7 @@ export function scoreCompared(compared: ComparedPairs, model: MatchModel): Float
       if (v !== MISSING) s += (weights[f] as number[])[v] as number;
     }
     const override = compared.overrides.get(k);
+    if (override === undefined && heldBackAt(compared.levels, k * width, rules)) s = Math.min(s, model.linkAt - HELD_BACK_MARGIN);
     scores[k] = override === 'cannot_link' ? -Infinity : override === 'decisive_identifier' ? Infinity : s;
   }
   return scores;

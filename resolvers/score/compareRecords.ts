@@ -4,8 +4,8 @@
  */
 import type { MatchRecord } from '../block/matchRecord.ts';
 import { compareIdentifiers, type IdentifierComparison } from '../identifiers/index.ts';
-import { jaroWinkler, jaroWinklerUpperBound, softTfIdfWeighted, weighTokens, type IdfTable, type WeightedTokens } from '../compare/index.ts';
-import { NAME_BANDS, nameLevel, type ComparisonLevels, type FeatureLevel } from './features.ts';
+import { compareNameTokens, jaroWinkler, jaroWinklerUpperBound, softTfIdfWeighted, weighTokens, type IdfTable, type NameDifference, type WeightedTokens } from '../compare/index.ts';
+import { distinctLevelOf, isInformativeCore, NAME_BANDS, nameLevel, nameLevelOfKind, type ComparisonLevels, type FeatureLevel } from './features.ts';
 import { acronymLevel, jurisdictionLevel, legalFormLevel } from './contextLevels.ts';
 
 export interface Comparison {
@@ -13,37 +13,46 @@ export interface Comparison {
   softTfIdf: number;
   jaroWinkler: number;
   identifiers: IdentifierComparison | null;
+  /** The kind of name difference and the words that set the names apart (null when a core is empty). */
+  difference: NameDifference | null;
 }
 
 export function compareRecords(a: MatchRecord, b: MatchRecord, idf: IdfTable): Comparison {
-  return compareWeighted(a, b, weighTokens(a.analysis.tokens, idf), weighTokens(b.analysis.tokens, idf));
+  return compareWeighted(a, b, weighTokens(a.analysis.tokens, idf), weighTokens(b.analysis.tokens, idf), idf);
 }
 
 /**
  * compareRecords with each record's tokens weighed beforehand (weighTokens with the same IDF table): a batch
  * weighs every record once instead of once per pair. Same result as compareRecords.
  */
-export function compareWeighted(a: MatchRecord, b: MatchRecord, weightedA: WeightedTokens, weightedB: WeightedTokens): Comparison {
+export function compareWeighted(a: MatchRecord, b: MatchRecord, weightedA: WeightedTokens, weightedB: WeightedTokens, idf: IdfTable): Comparison {
   const coreA = a.analysis.core;
   const coreB = b.analysis.core;
   const soft = softTfIdfWeighted(weightedA, weightedB);
   const jw = coreA.length > 0 && coreB.length > 0 ? jaroWinkler(coreA, coreB) : 0;
+  const difference = coreA.length === 0 || coreB.length === 0 ? null : differenceOf(a, b);
   const identifiers = (a.identifiers?.length ?? 0) > 0 && (b.identifiers?.length ?? 0) > 0
     ? compareIdentifiers(a.identifiers ?? [], b.identifiers ?? [])
     : null;
   const levels: ComparisonLevels = {
-    name: coreA.length === 0 || coreB.length === 0 ? null : nameLevel(coreA === coreB, soft, jw),
+    name: difference === null ? null : nameLevelOfKind(difference, isInformativeCore(a.analysis.tokens, idf), () => nameLevel(false, soft, jw)),
     legalForm: legalFormLevel(a, b),
     jurisdiction: jurisdictionLevel(a, b),
     acronym: acronymLevel(a, b),
     qualifier: qualifierLevel(a.analysis.qualifiers, b.analysis.qualifiers),
     sharedContact: identifiers === null ? null : identifiers.sharedWeak.length > 0 ? 'shared' : 'none_shared',
+    distinct: distinctLevelOf(difference),
   };
-  return { levels, softTfIdf: soft, jaroWinkler: jw, identifiers };
+  return { levels, softTfIdf: soft, jaroWinkler: jw, identifiers, difference };
+}
+
+/** The kind of difference of two records' cores, with their qualifiers (compare/compareNameTokens). */
+export function differenceOf(a: MatchRecord, b: MatchRecord): NameDifference {
+  return compareNameTokens(a.analysis.tokens, b.analysis.tokens, a.analysis.qualifiers, b.analysis.qualifiers);
 }
 
 /**
- * The name level alone, as compareRecords gives it, computing Jaro–Winkler of the cores only when it can change
+ * The band by degree of two cores (nameLevel), computing Jaro–Winkler of the cores only when it can change
  * the level: when the soft TF-IDF band already beats every band the cores' lengths allow JW to reach
  * (jaroWinklerUpperBound), the level is the soft band's. For batches, where only levels are kept.
  */

@@ -1,131 +1,159 @@
 /**
- * The built-in match model, estimated on the ROR dev split (docs/matching.md → 'Model'): reproduce with
- *   node bin/cpreg.js evaluate ../shared/datasets/ror_org_names.csv --id entity_id --name name --country country \
- *     --filter split=dev --exclude status=withdrawn --strip-country-qualifier --acronym source_name_type=acronym \
- *     --entity-sample 0.35 --learn-from-labels --save-model model.json --out dev-sweep
- * then the jurisdiction blend described in provenance.note. linkAt 8: the lowest whole-bit threshold with dev pairwise
- * precision above 0.9 (0.936); newAt 0: at or below 0 bits the evidence favours a non-match.
+ * The built-in match model, made by scripts/build-model.ts from labelled company-name data (docs/matching.md →
+ * 'Model'); rebuild with: node bin/run-ts.js scripts/build-model.ts
  */
 import type { MatchModel } from './matchModel.ts';
 
 export const DEFAULT_MATCH_MODEL: MatchModel = {
-  version: 1,
-  features: {
-    name: {
-      levels: [
-        'exact',
-        'very_high',
-        'high',
-        'medium',
-        'low',
-        'none'
+  "version": 1,
+  "features": {
+    "name": {
+      "levels": [
+        "exact",
+        "exact_weak",
+        "near_exact",
+        "abbreviation",
+        "extra_words",
+        "extra_place",
+        "very_high",
+        "high",
+        "medium",
+        "low",
+        "none"
       ],
-      m: [
-        0.115493,
-        0.0980559,
-        0.168185,
-        0.201368,
-        0.19532,
-        0.221579
+      "m": [
+        0.406378,
+        0.0220022,
+        0.133749,
+        0.0168402,
+        0.192051,
+        0.0216786,
+        0.0260188,
+        0.0393799,
+        0.0421288,
+        0.0411608,
+        0.0586132
       ],
-      u: [
-        0.0011524,
-        0.0023076,
-        0.00391761,
-        0.0329858,
-        0.288351,
-        0.671286
+      "u": [
+        0.000946881,
+        0.00173933,
+        0.000996786,
+        0.0000999933,
+        0.00571067,
+        0.00314185,
+        0.00141995,
+        0.0034508,
+        0.0236736,
+        0.23364,
+        0.72518
       ]
     },
-    legalForm: {
-      levels: [
-        'same_family',
-        'compatible',
-        'conflicting',
-        'different_jurisdiction'
+    "legalForm": {
+      "levels": [
+        "same_family",
+        "compatible",
+        "conflicting",
+        "different_jurisdiction"
       ],
-      m: [
-        0.772903,
-        0.0974194,
-        0.0275953,
-        0.102082
+      "m": [
+        0.936455,
+        0.0316224,
+        0.0120278,
+        0.0198946
       ],
-      u: [
-        0.436263,
-        0.149679,
-        0.142238,
-        0.271819
+      "u": [
+        0.443595,
+        0.110847,
+        0.102876,
+        0.342682
       ]
     },
-    jurisdiction: {
-      levels: [
-        'same',
-        'compatible',
-        'conflicting'
+    "jurisdiction": {
+      "levels": [
+        "same",
+        "compatible",
+        "conflicting"
       ],
-      m: [
-        0.9966,
-        0.00169978,
-        0.00169978
+      "m": [
+        0.998925,
+        0.000537261,
+        0.000537261
       ],
-      u: [
-        0.312125,
-        0.00169978,
-        0.686175
+      "u": [
+        0.509846,
+        0.000537261,
+        0.489617
       ]
     },
-    acronym: {
-      levels: [
-        'initials',
-        'initials_with_stop_words',
-        'none'
+    "acronym": {
+      "levels": [
+        "initials",
+        "initials_with_stop_words",
+        "none"
       ],
-      m: [
-        0.6029,
-        0.0158058,
-        0.381295
+      "m": [
+        0.281738,
+        0.0344394,
+        0.683823
       ],
-      u: [
-        0.161011,
-        0.00695213,
-        0.832037
+      "u": [
+        0.261924,
+        0.000476155,
+        0.7376
       ]
     },
-    qualifier: {
-      levels: [
-        'same',
-        'different'
+    "qualifier": {
+      "levels": [
+        "same",
+        "different"
       ],
-      m: [
-        0.766667,
-        0.233333
+      "m": [
+        0.957832,
+        0.0421685
       ],
-      u: [
-        0.111483,
-        0.888517
+      "u": [
+        0.202583,
+        0.797417
       ]
     },
-    sharedContact: {
-      levels: [
-        'shared',
-        'none_shared'
+    "sharedContact": {
+      "levels": [
+        "shared",
+        "none_shared"
       ],
-      m: [
+      "m": [
         0.5,
         0.5
       ],
-      u: [
+      "u": [
         0.01,
         0.99
       ]
+    },
+    "distinct": {
+      "levels": [
+        "number",
+        "branch",
+        "activity"
+      ],
+      "m": [
+        0.748191,
+        0.0674584,
+        0.184351
+      ],
+      "u": [
+        0.791513,
+        0.201222,
+        0.00726429
+      ]
     }
   },
-  matchShare: 0.0195145,
-  linkAt: 8,
-  newAt: 0,
-  provenance: {
-    method: 'labelled',
-    pairs: 1457635,
-    note: 'ROR dev split (35% entity sample, 41,281 names): m and u from 1,457,635 labelled candidate pairs (28,445 matches); jurisdiction m blended with a prior worth 1,000 pairs; jurisdiction "compatible" (a country against one of its subdivisions, e.g. US vs US-DE) never occurs in ROR, whose countries are all alpha-2, so its u is set equal to its m (weight 0: no evidence either way) instead of the 3.5e-8 the labels gave, which weighed +15.6 bits and linked unrelated companies of one country; sharedContact never observed in ROR (prior values); linkAt/newAt chosen on the dev sweep (docs/matching.md)'
+  "matchShare": 0.02601891399662683,
+  "linkAt": 9.71574,
+  "newAt": 6.21574,
+  "provenance": {
+    "method": "labelled",
+    "pairs": 1343785,
+    "note": "labelled candidate pairs, m and u counted per dataset (add-one smoothing) and averaged: LEI dev 420160 pairs (667 true); ROR dev companies 361634 pairs (13622 true); generated (20000 names, seed 7) 561991 pairs (21806 true); linkAt: lowest score with pair precision >= 0.995 in every dataset; newAt: linkAt - 3.5 bits; rebuild: node bin/run-ts.js scripts/build-model.ts; linkAt per dataset: LEI dev 9.716, ROR dev companies 9.361, generated (20000 names, seed 7) 8.283"
   }
 };

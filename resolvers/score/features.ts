@@ -6,9 +6,15 @@
  * that break a rare word, on Jaro–Winkler of the whole core. Cut points are placed where the dev split of the ROR
  * data shows the match share changing fastest (docs/matching.md); the weights themselves are learned (EM).
  */
+import type { IdfTable, NameDifference } from '../compare/index.ts';
+
 export const FEATURE_LEVELS = {
-  /** Core-name similarity. */
-  name: ['exact', 'very_high', 'high', 'medium', 'low', 'none'],
+  /**
+   * Core names: the kind of difference first (compare/compareNameTokens), then its degree. exact_weak is an equal
+   * core that says little (four letters or fewer, or only words common in the names compared): value-specific
+   * agreement weights in two classes (frequency-based matching, Winkler 1989).
+   */
+  name: ['exact', 'exact_weak', 'near_exact', 'abbreviation', 'extra_words', 'extra_place', 'very_high', 'high', 'medium', 'low', 'none'],
   /** Legal-form compatibility (compare/compareLegalForms). */
   legalForm: ['same_family', 'compatible', 'conflicting', 'different_jurisdiction'],
   /** Jurisdiction / country agreement (compare/compareJurisdictions). */
@@ -19,6 +25,12 @@ export const FEATURE_LEVELS = {
   qualifier: ['same', 'different'],
   /** Shared weak identifiers (phone, domain, bank account): "same or affiliated". */
   sharedContact: ['shared', 'none_shared'],
+  /**
+   * Words that tell otherwise agreeing names apart (compare/compareNameTokens): a series number, a branch, another
+   * activity word of one group. Not observed when there are none. (A place on one side only is a name level,
+   * extra_place: it depends on how far the rest of the names agree.)
+   */
+  distinct: ['number', 'branch', 'activity'],
 } as const;
 
 export type FeatureName = keyof typeof FEATURE_LEVELS;
@@ -36,10 +48,59 @@ export const NAME_BANDS: readonly { level: FeatureLevel<'name'>; softTfIdf: numb
   { level: 'low', softTfIdf: 0.3, jaroWinkler: 0.8 },
 ];
 
+/** The band of two different cores by degree: the highest band either score reaches. */
 export function nameLevel(coreEqual: boolean, soft: number, jw: number): FeatureLevel<'name'> {
   if (coreEqual) return 'exact';
   for (const band of NAME_BANDS) if (soft >= band.softTfIdf || jw >= band.jaroWinkler) return band.level;
   return 'none';
+}
+
+/**
+ * The name level from the kind of difference; `band` gives the degree when the kind is 'different'. Equal or
+ * extra-word names whose only difference is a place on one side ("Halvard Capital" / "Halvard Capital (UK)") are
+ * extra_place.
+ */
+export function nameLevelOfKind(difference: NameDifference, informative: boolean, band: () => FeatureLevel<'name'>): FeatureLevel<'name'> {
+  const kind = difference.kind;
+  if (difference.distinguishing?.kind === 'place' && (kind === 'equal' || kind === 'near_equal' || kind === 'extra_words')) return 'extra_place';
+  switch (kind) {
+    case 'equal':
+      return informative ? 'exact' : 'exact_weak';
+    case 'near_equal':
+      return 'near_exact';
+    case 'abbreviation':
+      return 'abbreviation';
+    case 'extra_words':
+      return 'extra_words';
+    default:
+      return band();
+  }
+}
+
+/** An equal core this short (letters and digits, spaces not counted) is weak evidence however rare. */
+export const WEAK_CORE_MAX_LENGTH = 4;
+/** A token in at least this share of the names compared (and in at least COMMON_MIN_NAMES of them) is common. */
+export const COMMON_TOKEN_SHARE = 0.001;
+export const COMMON_MIN_NAMES = 5;
+
+/**
+ * Whether an equal core is informative: longer than WEAK_CORE_MAX_LENGTH and holding at least one token that is
+ * not common among the names the IDF table was built from. The document frequency is read back from the smoothed
+ * IDF (compare/smoothedIdf): df = (1 + N) / e^(idf − 1) − 1.
+ */
+export function isInformativeCore(tokens: readonly string[], idf: IdfTable): boolean {
+  let letters = 0;
+  for (const t of tokens) letters += t.length;
+  if (letters <= WEAK_CORE_MAX_LENGTH) return false;
+  const n = idf.documentCount;
+  const commonAt = Math.max(COMMON_MIN_NAMES, COMMON_TOKEN_SHARE * n);
+  return tokens.some((t) => (1 + n) / Math.exp(idf.idf(t) - 1) - 1 < commonAt - 1e-9);
+}
+
+/** The distinct level of a difference: a place is not one (see extra_place). */
+export function distinctLevelOf(difference: NameDifference | null): FeatureLevel<'distinct'> | null {
+  const kind = difference?.distinguishing?.kind;
+  return kind === undefined || kind === 'place' ? null : kind;
 }
 
 /** The levels as indices into FEATURE_LEVELS, in FEATURE_NAMES order (null stays null): EM's input. */

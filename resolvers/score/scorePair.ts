@@ -8,7 +8,8 @@ import type { MatchRecord } from '../block/matchRecord.ts';
 import type { IdfTable } from '../compare/index.ts';
 import { compareRecords, type Comparison } from './compareRecords.ts';
 import { FEATURE_NAMES, type ComparisonLevels } from './features.ts';
-import { decide, featureWeights, type Decision, type MatchModel } from './matchModel.ts';
+import { featureWeights, type Decision, type MatchModel } from './matchModel.ts';
+import { decidePair, linkHeldBackBy, ruledScore } from './decisionRules.ts';
 
 export interface FeatureExplanation {
   feature: string;
@@ -18,7 +19,14 @@ export interface FeatureExplanation {
 }
 
 export interface PairScore {
+  /** The score decisions and clustering use: identifiers as ±Infinity, a held-back pair capped below linkAt. */
   score: number;
+  /** The plain sum of the feature weights. */
+  rawScore: number;
+  /** Why the pair may not link automatically whatever its sum (decisionRules), or null. */
+  heldBackBy: string | null;
+  /** The words that set the names apart, when any (e.g. ["ii"] for a series number). */
+  distinguishingTokens: string[];
   decision: Decision;
   /** Set when identifiers decided: 'decisive_identifier' links, 'cannot_link' forbids. */
   override: 'decisive_identifier' | 'cannot_link' | null;
@@ -40,38 +48,26 @@ export function scorePair(a: MatchRecord, b: MatchRecord, model: MatchModel, idf
 
 export function scoreComparison(comparison: Comparison, model: MatchModel, options: ScoreOptions = {}): PairScore {
   const explanation = explainLevels(comparison.levels, model);
-  let score = explanation.reduce((sum, e) => sum + e.weight, 0);
+  const rawScore = explanation.reduce((sum, e) => sum + e.weight, 0);
   const ids = comparison.identifiers;
   let override: PairScore['override'] = null;
   if (options.cannotLink || ids?.cannotLink) override = 'cannot_link';
   else if (ids?.decisive) override = 'decisive_identifier';
-  if (override === 'cannot_link') score = -Infinity;
-  if (override === 'decisive_identifier') score = Infinity;
+  const score = ruledScore(rawScore, override, comparison.levels, model.linkAt);
   const identifierNotes = [...(ids?.explanation ?? [])];
   if (options.cannotLink) identifierNotes.push('a reviewer recorded that these are different entities');
   return {
     score,
-    decision: guardNameEvidence(decide(score, model), override, comparison.levels),
+    rawScore,
+    heldBackBy: override === null ? linkHeldBackBy(comparison.levels) : null,
+    distinguishingTokens: comparison.difference?.distinguishing?.tokens ?? [],
+    decision: decidePair(score, comparison.levels, model),
     override,
     explanation,
     identifierNotes,
     softTfIdf: comparison.softTfIdf,
     jaroWinkler: comparison.jaroWinkler,
   };
-}
-
-/**
- * Precision first: without a decisive identifier, a pair whose names themselves disagree (name level low or
- * none) is never linked automatically, however much the other features add up — context features
- * (jurisdiction, legal form, a shared contact) support a name match, they cannot stand in for one.
- * Such a pair goes to a person instead.
- */
-const NAME_LEVELS_THAT_CANNOT_LINK: ReadonlySet<string> = new Set(['low', 'none']);
-
-function guardNameEvidence(decision: Decision, override: PairScore['override'], levels: ComparisonLevels): Decision {
-  if (decision !== 'link' || override === 'decisive_identifier') return decision;
-  const name = levels.name;
-  return name !== null && NAME_LEVELS_THAT_CANNOT_LINK.has(name) ? 'review' : decision;
 }
 
 /** Weight of each feature level under the model; features the model does not know weigh 0 and say so. */
@@ -81,7 +77,8 @@ export function explainLevels(levels: ComparisonLevels, model: MatchModel): Feat
     const params = model.features[feature];
     if (level === null || !params) return { feature, level, weight: 0 };
     const k = params.levels.indexOf(level);
-    if (k < 0) throw new Error(`match model: feature "${feature}" has no level "${level}" (levels: ${params.levels.join(', ')})`);
+    // A model stored by an earlier version may lack a level added since: that level weighs 0 (no evidence).
+    if (k < 0) return { feature, level, weight: 0 };
     return { feature, level, weight: featureWeights(params)[k] as number };
   });
 }
@@ -92,6 +89,7 @@ export function levelVector(levels: ComparisonLevels, model: MatchModel): (numbe
     const level = levels[feature];
     if (level === null) return null;
     const params = model.features[feature];
-    return params ? params.levels.indexOf(level) : null;
+    const k = params ? params.levels.indexOf(level) : -1;
+    return k < 0 ? null : k;
   });
 }

@@ -10,6 +10,7 @@ import type { EvaluateFlags } from '../cli/commands/evaluate.ts';
 import { LabelledFileError, loadLabelledCsv, parseColumnValue, type LabelledRow } from './loadLabelledCsv.ts';
 import { METHODS, runEvaluation, type EvaluationReport, type Method } from './runEvaluation.ts';
 import { formatReport } from './formatReport.ts';
+import { setAsideSharedNames } from './setAsideSharedNames.ts';
 
 export async function evaluateCommand(file: string, flags: EvaluateFlags): Promise<void> {
   if (!(METHODS as readonly string[]).includes(flags.method)) {
@@ -32,12 +33,15 @@ export async function evaluateCommand(file: string, flags: EvaluateFlags): Promi
     throw new CliError(`--acronym ${acronymRule[0]}: no such column; the header has: ${loaded.columns.join(', ')}`);
   }
   for (const p of loaded.problems) process.stderr.write(`${file}:${p.line}: ${p.problem}\n`);
-  if (loaded.rows.length === 0) throw new CliError(`${file}: no usable rows after filtering (${loaded.problems.length} rows with problems)`);
+  const aside = flags.setAsideSharedNames ? setAsideSharedNames(loaded.rows) : { kept: loaded.rows, setAside: 0 };
+  if (flags.setAsideSharedNames && !flags.json) process.stderr.write(`  set aside ${aside.setAside} rows whose name and country two or more entities share\n`);
+  const rows = aside.kept;
+  if (rows.length === 0) throw new CliError(`${file}: no usable rows after filtering (${loaded.problems.length} rows with problems)`);
   const model = flags.model ? readModel(flags.model) : DEFAULT_MATCH_MODEL;
   const isAcronym = acronymRule
     ? (row: LabelledRow): boolean => row.fields[acronymRule[0]] === acronymRule[1] || (row.fields[acronymRule[0]] ?? '').split('+').includes(acronymRule[1])
     : (row: LabelledRow): boolean => looksLikeAcronym(row.name);
-  const report = runEvaluation(loaded.rows, {
+  const report = runEvaluation(rows, {
     method,
     model,
     train: flags.train === true,
@@ -55,11 +59,12 @@ export async function evaluateCommand(file: string, flags: EvaluateFlags): Promi
   });
   const input = {
     file,
-    usableRows: loaded.rows.length,
+    usableRows: rows.length,
     problems: loaded.problems,
     filteredOut: loaded.filteredOut,
     excludedOut: loaded.excludedOut,
     countryQualifiersStripped: loaded.qualifiersStripped,
+    setAsideSharedNames: aside.setAside,
   };
   if (flags.saveModel && method === 'cpreg') {
     writeFileSync(flags.saveModel, `${JSON.stringify(report.trainedModel ?? model, null, 2)}\n`);

@@ -17,6 +17,10 @@ export function formatReport(
   lines.push(`  adjusted Rand index        ${report.ari.toFixed(4)}`);
   lines.push(pr(`pairwise, no acronyms`, report.nonAcronymPairwise));
   lines.push(pr(`pairs with an acronym (${report.acronymRows} rows)`, report.acronymPairwise));
+  if (report.outcomes) {
+    const o = report.outcomes;
+    lines.push(`  outcomes (the register's rules): linked ${o.linked}, review ${o.review} (${pct(o.reviewShare)} of records; ${pct(o.reviewTrueMatchShare)} of them true matches), new ${o.new}`);
+  }
   if (report.model) lines.push(`  model: linkAt ${report.model.linkAt}, newAt ${report.model.newAt}; ${report.model.provenance.note}`);
   if (report.blocking) {
     const o = report.blocking.overall;

@@ -18,9 +18,12 @@ import {
   type SweepPoint,
 } from '../../resolvers/evaluate/index.ts';
 import { seededRandom } from '../../resolvers/prng.ts';
+import { indexedRules, worthReviewAt } from '../../resolvers/score/decisionRules.ts';
 import {
+  clusterRulesOf,
   compareCandidates,
   comparedVectors,
+  FEATURE_NAMES,
   estimateFromLabels,
   indexedPairsOf,
   randomPairVectors,
@@ -72,7 +75,23 @@ export interface EvaluationReport {
   model?: { linkAt: number; newAt: number; matchShare: number; provenance: MatchModel['provenance'] };
   trainedModel?: MatchModel;
   sweep?: SweepPoint[];
+  /** cpreg: what the register's rules do with each record (decisionRules), and how good the review queue is. */
+  outcomes?: Outcomes;
   seconds: Record<string, number>;
+}
+
+/**
+ * The three outcomes of the register's rules over the batch: a record is linked when it joins a cluster with
+ * another; sent to review when it stands alone and its best pair lies between newAt and linkAt with names a person
+ * can judge; new otherwise. reviewTrueMatches: review records whose best candidate is truly the same entity.
+ */
+export interface Outcomes {
+  linked: number;
+  review: number;
+  new: number;
+  reviewShare: number;
+  reviewTrueMatches: number;
+  reviewTrueMatchShare: number;
 }
 
 export function runEvaluation(rows: readonly LabelledRow[], options: EvaluationOptions): EvaluationReport {
@@ -184,14 +203,16 @@ function runCpreg(
   }
   const linkAt = options.linkAt ?? model.linkAt;
   const newAt = options.newAt ?? model.newAt;
-  const scores = scoreCompared(compared, model);
+  // Held-back pairs are capped below the linkAt in force, so the override must reach the scores too.
+  const scores = scoreCompared(compared, { ...model, linkAt, newAt });
   const indexed = indexedPairsOf(compared, scores);
   const ids = records.map((r) => r.id);
   const clusterAt = (threshold: number): string[] => {
-    const labels = clustersToLabels(clusterIndexed(ids, indexed, { linkAt: threshold, conflictBelow: newAt }));
+    const labels = clustersToLabels(clusterIndexed(ids, indexed, clusterRulesOf({ linkAt: threshold, newAt })));
     return ids.map((id) => labels.get(id) as string);
   };
   const labels = timed('cluster', () => clusterAt(linkAt));
+  extra.outcomes = outcomesOf(labels, gold, compared, scores, { linkAt, newAt });
   extra.model = { linkAt, newAt, matchShare: model.matchShare, provenance: model.provenance };
   if (options.sweep) {
     extra.sweep = timed('sweep', () =>
@@ -202,6 +223,50 @@ function runCpreg(
     );
   }
   return { labels, comparisons: pairs.count, extra };
+}
+
+function outcomesOf(labels: readonly string[], gold: readonly string[], compared: ReturnType<typeof compareCandidates>, scores: Float64Array, model: { linkAt: number; newAt: number }): Outcomes {
+  const size = new Map<string, number>();
+  for (const label of labels) size.set(label, (size.get(label) ?? 0) + 1);
+  const bestScore = new Float64Array(labels.length).fill(-Infinity);
+  const bestOther = new Int32Array(labels.length).fill(-1);
+  const bestWorth = new Uint8Array(labels.length);
+  const rules = indexedRules();
+  const width = FEATURE_NAMES.length;
+  for (let k = 0; k < compared.pairs.count; k++) {
+    const s = scores[k] as number;
+    const worth = worthReviewAt(compared.levels, k * width, rules) ? 1 : 0;
+    for (const [i, j] of [[compared.pairs.left[k]!, compared.pairs.right[k]!], [compared.pairs.right[k]!, compared.pairs.left[k]!]] as const) {
+      if (s > bestScore[i]!) {
+        bestScore[i] = s;
+        bestOther[i] = j;
+        bestWorth[i] = worth;
+      }
+    }
+  }
+  let linked = 0;
+  let review = 0;
+  let reviewTrue = 0;
+  labels.forEach((label, i) => {
+    if ((size.get(label) ?? 0) > 1) {
+      linked++;
+      return;
+    }
+    const s = bestScore[i]!;
+    if (s > model.newAt && s < model.linkAt && bestWorth[i] === 1) {
+      review++;
+      if (gold[bestOther[i]!] === gold[i]) reviewTrue++;
+    }
+  });
+  const n = labels.length;
+  return {
+    linked,
+    review,
+    new: n - linked - review,
+    reviewShare: n === 0 ? 0 : review / n,
+    reviewTrueMatches: reviewTrue,
+    reviewTrueMatchShare: review === 0 ? 1 : reviewTrue / review,
+  };
 }
 
 /** Whole-bit thresholds from 0 to the highest finite score, at most 40 of them. */

@@ -10,6 +10,7 @@
  */
 import { sql } from 'kysely';
 import { clusterRecords, type ScoredEdge } from '../../resolvers/cluster/index.ts';
+import { clusterRulesOf } from '../../resolvers/score/index.ts';
 import { partitionResults, updateJob, type JobRow } from '../../db/queries/jobs.ts';
 import { emptyCounts, unaccounted, type IngestCounts } from '../ingest/run-ingest.ts';
 import { RegisterError } from '../register/errors.ts';
@@ -102,7 +103,7 @@ async function mergeAcrossPartitions(deps: JobDeps, job: JobRow, crossPairs: rea
   const cannot: [string, string][] = [];
   for (let i = 0; i < older.length; i++) for (let j = i + 1; j < older.length; j++) cannot.push([`cp:${older[i]}`, `cp:${older[j]}`]);
   const { model } = await currentModel(deps.db);
-  const clusters = clusterRecords(ids.map((id) => `cp:${id}`), [...best.values()], cannot, { linkAt: model.linkAt });
+  const clusters = clusterRecords(ids.map((id) => `cp:${id}`), [...best.values()], cannot, clusterRulesOf(model));
   const out: CrossMerge[] = [];
   for (const cluster of clusters) {
     if (cluster.length < 2) continue;

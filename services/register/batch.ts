@@ -22,7 +22,7 @@
 import { sql } from 'kysely';
 import { candidatePairs, type MatchRecord } from '../../resolvers/block/index.ts';
 import { clusterRecords, type ScoredEdge } from '../../resolvers/cluster/index.ts';
-import { scorePair } from '../../resolvers/score/index.ts';
+import { clusterRulesOf, scorePair } from '../../resolvers/score/index.ts';
 import type { MentionInput } from '../../resolvers/vocabulary.ts';
 import type { ActorInput, RegisterContext } from './context.ts';
 import { RegisterError } from './errors.ts';
@@ -248,7 +248,7 @@ async function clusterBatch(
   }
   for (const group of byComponent.values()) for (let i = 0; i < group.length; i++) for (let j = i + 1; j < group.length; j++) cannot.push([group[i]!, group[j]!]);
   const ids = [...records.map((r) => r.id), ...cpList];
-  const clusters = clusterRecords(ids, edges, cannot, { linkAt: model.linkAt });
+  const clusters = clusterRecords(ids, edges, cannot, clusterRulesOf(model));
   const byNode = new Map(byKey.map((p) => [`m:${p.key}`, p]));
   const out: { members: Pending[]; counterpartyId: number | null }[] = [];
   for (const cluster of clusters) {

@@ -27,6 +27,7 @@ interface EvaluateFlags {
   saveModel?: string;
   maxBlock?: string;
   window?: string;
+  setAsideSharedNames?: boolean;
 }
 
 const collect = (value: string, previous: string[]): string[] => [...previous, value];
@@ -54,6 +55,7 @@ export default function register(program: Command): void {
     .option('--save-model <file.json>', 'cpreg: write the model used (trained or loaded) to this file')
     .option('--max-block <n>', 'cpreg: blocks up to this size are paired exhaustively')
     .option('--window <n>', 'cpreg: sorted-neighbourhood window inside oversized blocks')
+    .option('--set-aside-shared-names', 'leave out rows whose (case-folded name, country) two or more ids share (the LEI data\'s scoring protocol)')
     .option('--out <folder>', 'write report.json, sweep.csv and sweep.svg (cpreg) into this folder')
     .option('--json', 'print the report as JSON')
     .action(async (file: string, flags: EvaluateFlags) => {

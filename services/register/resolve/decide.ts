@@ -157,14 +157,19 @@ export async function decide(
   const top = candidates.slice(0, 5).map(summaryOf);
   const best = candidates.find((c) => c.score !== -Infinity);
   const common = { ...base, via, ...(term ? { term } : {}), candidates: top };
-  if (!best || best.score <= model.newAt) {
+  // The pair's own decision (resolvers/score/decisionRules): at or below newAt, or names with nothing in common.
+  if (!best || best.pair.decision === 'new') {
     return {
       status: 'new',
       score: best ? jsonScore(best.score) : null,
       recordName: true,
       evidence: {
         ...common,
-        summary: best ? `best candidate ${best.canonicalName} scored ${jsonScore(best.score)}, at or below newAt ${model.newAt}: a new counterparty` : 'no candidate in the register: a new counterparty',
+        summary: !best
+          ? 'no candidate in the register: a new counterparty'
+          : best.score <= model.newAt
+            ? `best candidate ${best.canonicalName} scored ${jsonScore(best.score)}, at or below newAt ${model.newAt}: a new counterparty`
+            : `best candidate ${best.canonicalName} scored ${jsonScore(best.score)} but its name has nothing in common with this one: a new counterparty`,
         features: best?.pair.explanation ?? [],
         identifierNotes: best?.pair.identifierNotes ?? [],
         ignoredIdentifiers: prepared.ignoredIdentifiers,
@@ -178,6 +183,8 @@ export async function decide(
     features: best.pair.explanation,
     identifierNotes: best.pair.identifierNotes,
     override: best.pair.override,
+    heldBackBy: best.pair.heldBackBy,
+    distinguishingTokens: best.pair.distinguishingTokens,
     ignoredIdentifiers: prepared.ignoredIdentifiers,
   };
   if (best.pair.override === 'decisive_identifier') {
@@ -202,6 +209,8 @@ export async function decide(
   }
   const why = rival
     ? `two counterparties score at or above linkAt (${best.canonicalName}, ${rival.canonicalName}): a person decides`
-    : `best candidate ${best.canonicalName} scored ${jsonScore(best.score)}, between newAt ${model.newAt} and linkAt ${model.linkAt}: a person decides`;
+    : best.pair.heldBackBy && best.pair.rawScore >= model.linkAt
+      ? `best candidate ${best.canonicalName} scored ${jsonScore(best.pair.rawScore)} but is held back from a link: ${best.pair.heldBackBy}${best.pair.distinguishingTokens.length > 0 ? ` (${best.pair.distinguishingTokens.join(', ')})` : ''}; a person decides`
+      : `best candidate ${best.canonicalName} scored ${jsonScore(best.score)}, between newAt ${model.newAt} and linkAt ${model.linkAt}: a person decides`;
   return { status: 'review', counterpartyId: best.counterpartyId, score: jsonScore(best.score), recordName: false, evidence: { ...detail, summary: why } };
 }

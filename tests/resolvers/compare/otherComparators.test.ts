@@ -91,7 +91,12 @@ describe('compareLegalForms', () => {
   it('same family', () => expect(compareLegalForms(ltd, limited).level).toBe('same_family'));
   it('compatible when ELF codes overlap', () => {
     expect(compareLegalForms(chAg, chSa).level).toBe('compatible');
-    expect(compareLegalForms(inc, corp).level).toBe('compatible');
+  });
+  it('two spellings of one ELF code are the same legal form', () => {
+    // ISO 20275 ELF v1.5 lists "Inc." and "Corporation" of Delaware under one code (XTIQ): one legal form.
+    expect(compareLegalForms(inc, corp).level).toBe('same_family');
+    expect(compareLegalForms(chAg, deAg).level).toBe('same_family');
+    expect(compareLegalForms(chAg, chSa).level).not.toBe('same_family');
   });
   it('conflicting: different forms in one jurisdiction ("Ardmore Street Bank plc" vs a GB Ltd; GmbH vs AG in DE)', () => {
     expect(compareLegalForms(plc, ltd).level).toBe('conflicting');

@@ -38,12 +38,15 @@ describe('scorePair', () => {
     expect(s.decision).not.toBe('link');
   });
 
-  it('a name that disagrees is sent to review, not linked, even when the summed weights pass linkAt', () => {
-    // A model whose context features alone pass linkAt: the guard, not the arithmetic, keeps the pair out.
+  it('a name that disagrees is never linked nor sent to a person, even when the summed weights pass linkAt', () => {
+    // A model whose context features alone pass linkAt: the rule, not the arithmetic, keeps the pair out; country
+    // and legal form alone give a person nothing to judge, so the pair is new.
     const heavy: MatchModel = { ...model, linkAt: -100, newAt: -200 };
     const s = scorePair(rec('a', 'Quillon Vale Dairy Ltd'), rec('b', 'Ardmore Street Bank Ltd'), heavy, idf);
     expect(['low', 'none']).toContain(s.explanation.find((e) => e.feature === 'name')?.level);
-    expect(s.decision).toBe('review');
+    expect(s.heldBackBy).toMatch(/names disagree/);
+    expect(s.score).toBeLessThan(heavy.linkAt);
+    expect(s.decision).toBe('new');
   });
 
   it('"Kittering Bay Outfitters, L.L.C." and "KITTERING BAY OUTFITTERS LLC" score at or above linkAt (issue 5 example)', () => {

@@ -1,0 +1,144 @@
+/**
+ * The kind of difference between two core names (token lists from the name analysis), not only its degree:
+ *
+ *   equal          the same tokens in the same order
+ *   near_equal     the same up to spacing ("Crelan Co" / "CrelanCo"), word order, or one typo in one long word
+ *   abbreviation   the same words, one or more abbreviated on one side ("Caja R. de Navarra" / "Caja Rural de
+ *                  Navarra"): an abbreviation is a leading part of the other side's word
+ *   extra_words    one side's words all stand in the other, which adds some ("Sparkasse Dortmund" /
+ *                  "Sparkasse Dortmund Zweckverband …")
+ *   different      anything else (the degree is then measured by soft TF-IDF and Jaro–Winkler)
+ *
+ * and the distinguishing words, the words that set the two apart when the rest agrees: a series number
+ * ("Fund II" / "Fund III"), a branch ("… London Branch"), a different activity word of one group ("Alder
+ * Securities" / "Alder Bank"), a place on one side only ("Halvard Capital" / "Halvard Capital (UK)").
+ */
+import { ACTIVITY_WORDS, BRANCH_WORDS, isNumberToken, isPlaceWord } from './distinguishingWords.ts';
+import { jaroWinkler } from './jaroWinkler.ts';
+
+export type NameDifferenceKind = 'equal' | 'near_equal' | 'abbreviation' | 'extra_words' | 'different';
+export type DistinguishingKind = 'number' | 'branch' | 'activity' | 'place';
+
+export interface NameDifference {
+  kind: NameDifferenceKind;
+  /** What tells the names apart, strongest first (number, branch, activity, place), or null. */
+  distinguishing: { kind: DistinguishingKind; tokens: string[] } | null;
+}
+
+/** Words so common in names that sharing them alone says nothing ("of", "de", "und"). Common practice. */
+const FUNCTION_WORDS: ReadonlySet<string> = new Set([
+  'the', 'of', 'and', 'for', 'de', 'des', 'du', 'la', 'le', 'les', 'del', 'di', 'da', 'do', 'dos', 'das', 'der',
+  'die', 'den', 'und', 'et', 'e', 'y', 'i', 'en', 'in', 'van', 'von', 'zu', 'al', 'el', 'a', 'an', 'at',
+]);
+
+/** Jaro–Winkler between two long words at which they count as one word with a typo. */
+const TYPO_SIMILARITY = 0.92;
+const TYPO_MIN_LENGTH = 5;
+
+interface Alignment {
+  restA: string[];
+  restB: string[];
+  typos: number;
+  abbreviations: number;
+  shared: number;
+}
+
+export function compareNameTokens(a: readonly string[], b: readonly string[], qualifiersA: readonly string[] = [], qualifiersB: readonly string[] = []): NameDifference {
+  const kind = differenceKind(a, b);
+  return { kind, distinguishing: kind === 'equal' && sameQualifierSides(qualifiersA, qualifiersB) ? null : distinguishingOf(a, b, qualifiersA, qualifiersB) };
+}
+
+function differenceKind(a: readonly string[], b: readonly string[]): NameDifferenceKind {
+  if (a.length === 0 || b.length === 0) return 'different';
+  if (sameList(a, b)) return 'equal';
+  if (a.join('') === b.join('')) return 'near_equal';
+  const aligned = align(a, b);
+  if (aligned.shared === 0) return 'different';
+  if (aligned.restA.length === 0 && aligned.restB.length === 0) {
+    if (aligned.abbreviations > 0) return 'abbreviation';
+    return aligned.typos <= 1 ? 'near_equal' : 'different';
+  }
+  if (aligned.restA.length === 0 || aligned.restB.length === 0) return aligned.typos === 0 ? 'extra_words' : 'different';
+  return 'different';
+}
+
+/** Tokens paired equal first, then as typos of long words, then as abbreviations; what is left over on each side. */
+function align(a: readonly string[], b: readonly string[]): Alignment {
+  const restB = [...b];
+  const restA: string[] = [];
+  let shared = 0;
+  for (const token of a) {
+    const k = restB.indexOf(token);
+    if (k >= 0) {
+      restB.splice(k, 1);
+      if (!FUNCTION_WORDS.has(token)) shared++;
+    } else restA.push(token);
+  }
+  let typos = 0;
+  let abbreviations = 0;
+  const leftA: string[] = [];
+  for (const token of restA) {
+    const k = restB.findIndex((other) => isTypo(token, other));
+    if (k >= 0) {
+      restB.splice(k, 1);
+      typos++;
+      shared++;
+      continue;
+    }
+    const j = restB.findIndex((other) => abbreviates(token, other) || abbreviates(other, token));
+    if (j >= 0) {
+      restB.splice(j, 1);
+      abbreviations++;
+      continue;
+    }
+    leftA.push(token);
+  }
+  return { restA: leftA, restB, typos, abbreviations, shared };
+}
+
+function isTypo(x: string, y: string): boolean {
+  if (x.length < TYPO_MIN_LENGTH || y.length < TYPO_MIN_LENGTH) return false;
+  if (isNumberToken(x) || isNumberToken(y)) return false;
+  return jaroWinkler(x, y) >= TYPO_SIMILARITY;
+}
+
+/** `short` is a leading part of `long` ("r" of "rural", "coop" of "cooperativa"), not a number, not a whole word of its own. */
+function abbreviates(short: string, long: string): boolean {
+  if (short.length >= long.length || long.length < 3) return false;
+  if (isNumberToken(short) && short.length > 1) return false;
+  if (short.length > 1 && FUNCTION_WORDS.has(short)) return false;
+  return long.startsWith(short);
+}
+
+function distinguishingOf(a: readonly string[], b: readonly string[], qa: readonly string[], qb: readonly string[]): NameDifference['distinguishing'] {
+  const { restA, restB } = align(a, b);
+  const extra = [...restA, ...restB];
+  const numbers = extra.filter(isNumberToken);
+  // Series letters: one single letter left on each side ("Class A" / "Class B").
+  const letterA = restA.filter((t) => t.length === 1 && !isNumberToken(t));
+  const letterB = restB.filter((t) => t.length === 1 && !isNumberToken(t));
+  if (letterA.length > 0 && letterB.length > 0) numbers.push(...letterA, ...letterB);
+  const qualifierNumbers = [...qa, ...qb].filter((q) => q.split(' ').some(isNumberToken));
+  if (numbers.length > 0 || (qualifierNumbers.length > 0 && !sameQualifierSides(qa, qb))) return { kind: 'number', tokens: [...numbers, ...qualifierNumbers] };
+  const branch = [...extra, ...onlyOnOneSide(qa, qb).flatMap((q) => q.split(' '))].filter((t) => BRANCH_WORDS.has(t));
+  if (branch.length > 0) return { kind: 'branch', tokens: branch };
+  if (restA.length > 0 && restB.length > 0 && extra.every((t) => ACTIVITY_WORDS.has(t))) return { kind: 'activity', tokens: extra };
+  const oneSidedQualifiers = qa.length === 0 !== (qb.length === 0) ? [...qa, ...qb] : [];
+  const places = [...extra.filter(isPlaceWord), ...oneSidedQualifiers];
+  if (places.length > 0 && (restA.length === 0 || restB.length === 0 || oneSidedQualifiers.length > 0)) return { kind: 'place', tokens: places };
+  return null;
+}
+
+function sameQualifierSides(qa: readonly string[], qb: readonly string[]): boolean {
+  return qa.length === 0 ? qb.length === 0 : qb.length > 0;
+}
+
+function onlyOnOneSide(qa: readonly string[], qb: readonly string[]): string[] {
+  return [...qa.filter((q) => !qb.includes(q)), ...qb.filter((q) => !qa.includes(q))];
+}
+
+function sameList(a: readonly string[], b: readonly string[]): boolean {
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
+  return true;
+}

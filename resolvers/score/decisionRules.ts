@@ -1,0 +1,103 @@
+/**
+ * The one decision logic for a scored pair, used alike by the register (single and batch resolution) and by
+ * `cpreg evaluate`, so that the evaluation measures what the register does:
+ *
+ *   link    a decisive strong identifier, or a score at or above linkAt that no rule below holds back
+ *   review  a score between newAt and linkAt that a person can judge: the names agree at least in part
+ *           (name level above "low"), or the pair shares a contact (phone, domain, bank account)
+ *   new     a cannot-link, a score at or below newAt, or names with nothing in common: country and legal form
+ *           alone never send a pair to a person
+ *
+ * Rules that hold a link back, whatever the sum (precision first; each is named in the explanation):
+ *   - the names themselves disagree (name level low or none): context supports a name match, it cannot stand in
+ *     for one;
+ *   - a distinguishing word differs: a series number ("Fund II" / "Fund III"), a branch ("… London Branch"), or
+ *     another activity word of one group ("Alder Securities" / "Alder Bank").
+ * A held-back pair keeps its score for review and ordering, capped just below linkAt for clustering
+ * (`ruledScore`), so no clustering can link through it.
+ */
+import type { ComparisonLevels, FeatureLevel } from './features.ts';
+import { FEATURE_LEVELS, FEATURE_NAMES } from './features.ts';
+import type { Decision, MatchModel } from './matchModel.ts';
+
+export type Override = 'decisive_identifier' | 'cannot_link' | null;
+
+const NAME_DISAGREES: ReadonlySet<FeatureLevel<'name'>> = new Set(['low', 'none']);
+const DISTINCT_HOLDS_BACK: ReadonlySet<FeatureLevel<'distinct'>> = new Set(['number', 'branch', 'activity']);
+
+/** How far below linkAt a held-back pair's score is capped for clustering. */
+export const HELD_BACK_MARGIN = 1e-3;
+
+/** Why this pair may not link automatically, in words, or null when nothing holds it back. */
+export function linkHeldBackBy(levels: ComparisonLevels): string | null {
+  if (levels.name !== null && NAME_DISAGREES.has(levels.name)) return `the names disagree (name level ${levels.name})`;
+  if (levels.distinct !== null && DISTINCT_HOLDS_BACK.has(levels.distinct)) return `a distinguishing word differs (${levels.distinct})`;
+  return null;
+}
+
+/** Whether a person can add something to this pair: the names agree at least in part, or a contact is shared. */
+export function worthReview(levels: ComparisonLevels): boolean {
+  if (levels.sharedContact === 'shared') return true;
+  return levels.name === null || !NAME_DISAGREES.has(levels.name);
+}
+
+/** The score clustering and candidate ranking use: identifiers decide, a held-back pair stays below linkAt. */
+export function ruledScore(raw: number, override: Override, levels: ComparisonLevels, linkAt: number): number {
+  if (override === 'cannot_link') return -Infinity;
+  if (override === 'decisive_identifier') return Infinity;
+  return linkHeldBackBy(levels) !== null ? Math.min(raw, linkAt - HELD_BACK_MARGIN) : raw;
+}
+
+/**
+ * How clusters are formed from ruled scores, the same in the register's batches and in `cpreg evaluate`: an edge at
+ * or above linkAt joins two clusters unless some scored pair across them is at or below newAt (a conflict).
+ */
+export function clusterRulesOf(model: Pick<MatchModel, 'linkAt' | 'newAt'>): { linkAt: number; conflictBelow: number } {
+  return { linkAt: model.linkAt, conflictBelow: model.newAt };
+}
+
+/** The decision for one pair from its ruled score (ruledScore) and its levels. */
+export function decidePair(score: number, levels: ComparisonLevels, model: Pick<MatchModel, 'linkAt' | 'newAt'>): Decision {
+  if (score === Infinity) return 'link';
+  if (score === -Infinity || score <= model.newAt) return 'new';
+  if (score >= model.linkAt) return 'link';
+  return worthReview(levels) ? 'review' : 'new';
+}
+
+/**
+ * The same rules over level indices (FEATURE_LEVELS order, −1 = not observed), for batches that keep only indices:
+ * which name levels disagree and which distinct levels hold a link back.
+ */
+export interface IndexedRules {
+  name: number;
+  distinct: number;
+  sharedContact: number;
+  nameDisagrees: boolean[];
+  distinctHoldsBack: boolean[];
+  shared: number;
+}
+
+export function indexedRules(): IndexedRules {
+  return {
+    name: FEATURE_NAMES.indexOf('name'),
+    distinct: FEATURE_NAMES.indexOf('distinct'),
+    sharedContact: FEATURE_NAMES.indexOf('sharedContact'),
+    nameDisagrees: FEATURE_LEVELS.name.map((l) => NAME_DISAGREES.has(l)),
+    distinctHoldsBack: FEATURE_LEVELS.distinct.map((l) => DISTINCT_HOLDS_BACK.has(l)),
+    shared: FEATURE_LEVELS.sharedContact.indexOf('shared'),
+  };
+}
+
+/** linkHeldBackBy over one row of level indices. */
+export function heldBackAt(levels: Int8Array, row: number, rules: IndexedRules): boolean {
+  const name = levels[row + rules.name] as number;
+  const distinct = levels[row + rules.distinct] as number;
+  return (name >= 0 && rules.nameDisagrees[name] === true) || (distinct >= 0 && rules.distinctHoldsBack[distinct] === true);
+}
+
+/** worthReview over one row of level indices. */
+export function worthReviewAt(levels: Int8Array, row: number, rules: IndexedRules): boolean {
+  if ((levels[row + rules.sharedContact] as number) === rules.shared) return true;
+  const name = levels[row + rules.name] as number;
+  return name < 0 || rules.nameDisagrees[name] !== true;
+}

@@ -1,0 +1,67 @@
+import { describe, expect, it } from 'vitest';
+import { analyseName } from '../../../resolvers/analyse/index.ts';
+import { buildIdfTable, compareNameTokens, isNumberToken } from '../../../resolvers/compare/index.ts';
+import { isInformativeCore } from '../../../resolvers/score/index.ts';
+
+// Invented names only.
+const diff = (a: string, b: string, country?: string) => {
+  const x = analyseName(a, country ? { country } : {});
+  const y = analyseName(b, country ? { country } : {});
+  return compareNameTokens(x.tokens, y.tokens, x.qualifiers, y.qualifiers);
+};
+
+describe('compareNameTokens: the kind of difference', () => {
+  it('equal after the legal form: "Keld Timber Ltd" / "KELD TIMBER LIMITED"', () => {
+    expect(diff('Keld Timber Ltd', 'KELD TIMBER LIMITED').kind).toBe('equal');
+  });
+  it('near_equal: spacing, word order, one typo in a long word', () => {
+    expect(diff('Crelanor Co SC', 'CrelanorCo SC').kind).toBe('near_equal');
+    expect(diff('Timber Keld Ltd', 'Keld Timber Ltd').kind).toBe('near_equal');
+    expect(diff('Brackenwhit Fabrication Ltd', 'Brackenwhit Fabricatoin Ltd').kind).toBe('near_equal');
+  });
+  it('abbreviation: "Caja R. de Norvella" / "Caja Rural de Norvella"', () => {
+    expect(diff('Caja R. de Norvella', 'Caja Rural de Norvella').kind).toBe('abbreviation');
+  });
+  it('extra_words: one side adds words', () => {
+    expect(diff('Sparkasse Velmbruck', 'Sparkasse Velmbruck Zweckverband Oster').kind).toBe('extra_words');
+  });
+  it('different: nothing shared', () => {
+    expect(diff('Quillon Vale Dairy Ltd', 'Ardmore Street Bank Ltd').kind).toBe('different');
+  });
+});
+
+describe('compareNameTokens: distinguishing words', () => {
+  it('a series number: Roman numeral, digit, number word', () => {
+    expect(diff('Merrow Finance II S.r.l.', 'Merrow Finance S.r.l.', 'IT').distinguishing).toEqual({ kind: 'number', tokens: ['ii'] });
+    expect(diff('Tollaby Fund One LP', 'Tollaby Fund Two LP').distinguishing?.kind).toBe('number');
+    expect(diff('Tollaby Capital 2 LP', 'Tollaby Capital 3 LP').distinguishing?.kind).toBe('number');
+  });
+  it('a misread letter is not a number ("R0BOTICS")', () => {
+    expect(isNumberToken('r0botics')).toBe(false);
+    expect(isNumberToken('1884')).toBe(true);
+    expect(isNumberToken('iii')).toBe(true);
+    expect(diff('Havquilard Robotics Ltd', 'HAVQUILARD R0BOTICS LTD').distinguishing).toBeNull();
+  });
+  it('a branch', () => {
+    expect(diff('Renfenax Bank AG', 'Renfenax Bank AG London Branch').distinguishing?.kind).toBe('branch');
+  });
+  it('another activity word of one group', () => {
+    expect(diff('Alderwick Securities (Asia) Ltd', 'Alderwick Bank (Asia) Ltd').distinguishing).toEqual({ kind: 'activity', tokens: ['securities', 'bank'] });
+  });
+  it('a place on one side only', () => {
+    expect(diff('Halvardine Capital Ltd', 'Halvardine Capital (UK) Ltd').distinguishing?.kind).toBe('place');
+    expect(diff('Halvardine Capital Ltd', 'Halvardine Capital Ltd').distinguishing).toBeNull();
+  });
+});
+
+describe('isInformativeCore (frequency-based agreement weights in two classes, after Winkler 1989)', () => {
+  // Value-specific frequency: an equal core of a rare name is strong evidence, a short or common one weak.
+  const idf = buildIdfTable([
+    ...Array.from({ length: 40 }, (_, i) => ['volksbrand', `town${i}`]),
+    ['quillonvale', 'dairy'],
+    ['kr'],
+  ]);
+  it('four letters or fewer is weak however rare ("KR GmbH")', () => expect(isInformativeCore(['kr'], idf)).toBe(false));
+  it('a rare full name is informative', () => expect(isInformativeCore(['quillonvale', 'dairy'], idf)).toBe(true));
+  it('a name made only of a word in many names is weak', () => expect(isInformativeCore(['volksbrand'], idf)).toBe(false));
+});

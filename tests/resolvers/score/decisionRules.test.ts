@@ -1,0 +1,41 @@
+import { describe, expect, it } from 'vitest';
+import { decidePair, linkHeldBackBy, ruledScore, worthReview, type ComparisonLevels } from '../../../resolvers/score/index.ts';
+
+const levels = (over: Partial<ComparisonLevels>): ComparisonLevels => ({
+  name: 'exact',
+  legalForm: null,
+  jurisdiction: null,
+  acronym: null,
+  qualifier: null,
+  sharedContact: null,
+  distinct: null,
+  ...over,
+});
+const model = { linkAt: 9, newAt: 6 };
+
+describe('decisionRules (the one decision logic of the register and the evaluation)', () => {
+  it('links at linkAt when nothing holds the pair back', () => {
+    expect(decidePair(ruledScore(10, null, levels({}), 9), levels({}), model)).toBe('link');
+  });
+  it('a differing series number or branch holds a link back, below linkAt, for a person', () => {
+    for (const distinct of ['number', 'branch', 'activity'] as const) {
+      const l = levels({ distinct });
+      expect(linkHeldBackBy(l)).toMatch(distinct);
+      const s = ruledScore(20, null, l, 9);
+      expect(s).toBeLessThan(9);
+      expect(decidePair(s, l, model)).toBe('review');
+    }
+  });
+  it('names with nothing in common are new whatever their country and legal form', () => {
+    const l = levels({ name: 'none', jurisdiction: 'same', legalForm: 'same_family' });
+    expect(worthReview(l)).toBe(false);
+    expect(decidePair(ruledScore(7, null, l, 9), l, model)).toBe('new');
+    // ... unless they share a contact a person can check
+    const shared = { ...l, sharedContact: 'shared' as const };
+    expect(decidePair(ruledScore(7, null, shared, 9), shared, model)).toBe('review');
+  });
+  it('identifiers decide', () => {
+    expect(ruledScore(-50, 'decisive_identifier', levels({ name: 'none' }), 9)).toBe(Infinity);
+    expect(decidePair(ruledScore(50, 'cannot_link', levels({}), 9), levels({}), model)).toBe('new');
+  });
+});
