@@ -22,30 +22,30 @@ export const DEFAULT_MATCH_MODEL: MatchModel = {
         "none"
       ],
       "m": [
-        0.406378,
-        0.0220022,
-        0.133749,
-        0.0168402,
-        0.192051,
-        0.0216786,
-        0.0260188,
-        0.0393799,
-        0.0421288,
-        0.0411608,
-        0.0586132
+        0.407087,
+        0.0225683,
+        0.133258,
+        0.0172835,
+        0.193024,
+        0.0211885,
+        0.026019,
+        0.0397533,
+        0.0402007,
+        0.041011,
+        0.0586074
       ],
       "u": [
-        0.000946881,
-        0.00173933,
-        0.000996786,
-        0.0000999933,
-        0.00571067,
-        0.00314185,
-        0.00141995,
-        0.0034508,
-        0.0236736,
-        0.23364,
-        0.72518
+        0.000947108,
+        0.00174154,
+        0.000997065,
+        0.000105497,
+        0.00584988,
+        0.00318013,
+        0.00142007,
+        0.0035125,
+        0.0237627,
+        0.23279,
+        0.725694
       ]
     },
     "legalForm": {
@@ -56,16 +56,16 @@ export const DEFAULT_MATCH_MODEL: MatchModel = {
         "different_jurisdiction"
       ],
       "m": [
-        0.936455,
-        0.0316224,
-        0.0120278,
-        0.0198946
+        0.934563,
+        0.0310498,
+        0.0114692,
+        0.022918
       ],
       "u": [
-        0.443595,
-        0.110847,
-        0.102876,
-        0.342682
+        0.439884,
+        0.109677,
+        0.1012,
+        0.349239
       ]
     },
     "jurisdiction": {
@@ -76,13 +76,13 @@ export const DEFAULT_MATCH_MODEL: MatchModel = {
       ],
       "m": [
         0.998925,
-        0.000537261,
-        0.000537261
+        0.000537265,
+        0.000537265
       ],
       "u": [
-        0.509846,
-        0.000537261,
-        0.489617
+        0.508769,
+        0.000537265,
+        0.490694
       ]
     },
     "acronym": {
@@ -92,14 +92,14 @@ export const DEFAULT_MATCH_MODEL: MatchModel = {
         "none"
       ],
       "m": [
-        0.281738,
-        0.0344394,
-        0.683823
+        0.285368,
+        0.0381405,
+        0.676492
       ],
       "u": [
-        0.261924,
-        0.000476155,
-        0.7376
+        0.262063,
+        0.000467828,
+        0.73747
       ]
     },
     "qualifier": {
@@ -112,8 +112,8 @@ export const DEFAULT_MATCH_MODEL: MatchModel = {
         0.0421685
       ],
       "u": [
-        0.202583,
-        0.797417
+        0.203881,
+        0.796119
       ]
     },
     "sharedContact": {
@@ -142,18 +142,18 @@ export const DEFAULT_MATCH_MODEL: MatchModel = {
         0.184351
       ],
       "u": [
-        0.791513,
-        0.201222,
-        0.00726429
+        0.792379,
+        0.200142,
+        0.00747892
       ]
     }
   },
-  "matchShare": 0.02601891399662683,
-  "linkAt": 9.71574,
-  "newAt": 6.21574,
+  "matchShare": 0.026026251452907694,
+  "linkAt": 9.71096,
+  "newAt": 6.21096,
   "provenance": {
     "method": "labelled",
-    "pairs": 1343785,
-    "note": "labelled candidate pairs, m and u counted per dataset (add-one smoothing) and averaged: LEI dev 420160 pairs (667 true); ROR dev companies 361634 pairs (13622 true); generated (20000 names, seed 7) 561991 pairs (21806 true); linkAt: lowest score with pair precision >= 0.995 in every dataset; newAt: linkAt - 3.5 bits; rebuild: node bin/run-ts.js scripts/build-model.ts; linkAt per dataset: LEI dev 9.716, ROR dev companies 9.361, generated (20000 names, seed 7) 8.283"
+    "pairs": 1344282,
+    "note": "labelled candidate pairs, m and u counted per dataset (add-one smoothing) and averaged: LEI dev 420960 pairs (667 true); ROR dev companies 361360 pairs (13620 true); generated (20000 names, seed 7) 561962 pairs (21806 true); linkAt: lowest score with pair precision >= 0.995 in every dataset; newAt: linkAt - 3.5 bits; rebuild: node bin/run-ts.js scripts/build-model.ts; linkAt per dataset: LEI dev 9.721, ROR dev companies 9.337, generated (20000 names, seed 7) 8.250"
   }
 };

@@ -68,6 +68,9 @@ function countLevels(data: LabelledPairs): { m: number[][]; u: number[][]; match
   return { m: norm(m), u: norm(u), matchShare: matches / Math.max(1, data.count) };
 }
 
+/** Bits below the lowest qualifying score at which linkAt is set. */
+const LINK_AT_MARGIN = 0.01;
+
 export function estimateModel(sets: readonly LabelledPairs[], targets: TrainingTargets, note: string, prior: MatchModel): MatchModel {
   const counted = sets.map(countLevels);
   const features: MatchModel['features'] = {};
@@ -85,7 +88,8 @@ export function estimateModel(sets: readonly LabelledPairs[], targets: TrainingT
   const draft: MatchModel = { version: 1, features, matchShare, linkAt: Infinity, newAt: 0, provenance: { method: 'labelled', pairs: 0, note: '' } };
   const scored = sets.map((set) => ({ set, scores: scoreCompared(set.compared, { ...draft, linkAt: Infinity }) }));
   const perSet = scored.map(({ set, scores }) => ({ name: set.name, linkAt: lowestThreshold(set, scores, targets.linkPrecision) }));
-  const linkAt = Math.max(...perSet.map((p) => p.linkAt));
+  // Just below the lowest pattern that reaches the target, so rounding of the stored weights cannot lift it over.
+  const linkAt = Math.max(...perSet.map((p) => p.linkAt)) - LINK_AT_MARGIN;
   note = `${note}; linkAt per dataset: ${perSet.map((p) => `${p.name} ${p.linkAt.toFixed(3)}`).join(', ')}`;
   const newAt = linkAt - targets.reviewBandBits;
   const pairs = sets.reduce((s, set) => s + set.count, 0);
