@@ -30,3 +30,14 @@ export function seededRandom(seed: number): Random {
     chance: (p: number): boolean => next() < p,
   };
 }
+
+/** An index drawn with probability proportional to its weight (the last index if rounding runs past the total). */
+export function weightedIndex(weights: readonly number[], rnd: Random): number {
+  const total = weights.reduce((a, b) => a + b, 0);
+  let x = rnd.next() * total;
+  for (let i = 0; i < weights.length; i++) {
+    x -= weights[i]!;
+    if (x < 0) return i;
+  }
+  return weights.length - 1;
+}

@@ -3,7 +3,7 @@
  * so that a million names never sit in memory at once (only a shuffle window of a few thousand rows).
  * The mix of variants is documented in docs/generator.md; keep the two in step.
  */
-import { seededRandom, type Random } from '../../resolvers/prng.ts';
+import { seededRandom, weightedIndex, type Random } from '../../resolvers/prng.ts';
 import { corrupt, renderName, VARIANT_KINDS, type NameParts, type VariantKind } from './corrupt.ts';
 import {
   branchOf,
@@ -323,7 +323,7 @@ function originalRow(org: InventedOrganisation): GeneratedNameRow {
 }
 
 function variantRows(org: InventedOrganisation, rnd: Random, mix: NameMix): GeneratedNameRow[] {
-  const n = pickIndex(mix.variantsPerEntity, rnd);
+  const n = weightedIndex(mix.variantsPerEntity, rnd);
   const rows: GeneratedNameRow[] = [];
   const seen = new Set<string>([renderName(org.parts)]);
   for (let v = 0; v < n; v++) {
@@ -350,25 +350,15 @@ export function makeVariant(parts: NameParts, rnd: Random, mix: NameMix = DEFAUL
 function applySome(parts: NameParts, rnd: Random, mix: NameMix, not: VariantKind | undefined): { parts: NameParts; kind: VariantKind } | null {
   const weights = VARIANT_KINDS.map((k) => (k === not ? 0 : mix.kinds[k]));
   for (let tries = 0; tries < 6; tries++) {
-    const kind = VARIANT_KINDS[pickIndex(weights, rnd)]!;
+    const kind = VARIANT_KINDS[weightedIndex(weights, rnd)]!;
     const out = corrupt(kind, parts, rnd);
     if (out) return { parts: out, kind };
   }
   return null;
 }
 
-function pickIndex(weights: readonly number[], rnd: Random): number {
-  const total = weights.reduce((a, b) => a + b, 0);
-  let x = rnd.next() * total;
-  for (let i = 0; i < weights.length; i++) {
-    x -= weights[i]!;
-    if (x < 0) return i;
-  }
-  return weights.length - 1;
-}
-
 export function pickJurisdiction(rnd: Random): string {
-  return JURISDICTIONS[pickIndex(JURISDICTIONS.map((j) => j.weight), rnd)]!.code;
+  return JURISDICTIONS[weightedIndex(JURISDICTIONS.map((j) => j.weight), rnd)]!.code;
 }
 
 function capitalise(s: string): string {

@@ -6,7 +6,7 @@
  * docs/generator.md ("Hard negatives"); keep the two in step. Place names are ordinary geography; every
  * company word stays the generator's coined word.
  */
-import type { Random } from '../../resolvers/prng.ts';
+import { weightedIndex, type Random } from '../../resolvers/prng.ts';
 import type { NameParts } from './corrupt.ts';
 import type { LegalFormFamily } from './name-parts.ts';
 import { countryOf, JURISDICTIONS } from './name-parts.ts';
@@ -155,12 +155,3 @@ export function carriesMarker(name: string, marker: string): boolean {
   return ` ${markerKey(name)} `.includes(` ${markerKey(marker)} `);
 }
 
-function weightedIndex(weights: readonly number[], rnd: Random): number {
-  const total = weights.reduce((a, b) => a + b, 0);
-  let x = rnd.next() * total;
-  for (let i = 0; i < weights.length; i++) {
-    x -= weights[i]!;
-    if (x < 0) return i;
-  }
-  return weights.length - 1;
-}
