@@ -44,15 +44,17 @@ interface Alignment {
 }
 
 export function compareNameTokens(a: readonly string[], b: readonly string[], qualifiersA: readonly string[] = [], qualifiersB: readonly string[] = []): NameDifference {
-  const kind = differenceKind(a, b);
-  return { kind, distinguishing: kind === 'equal' && sameQualifierSides(qualifiersA, qualifiersB) ? null : distinguishingOf(a, b, qualifiersA, qualifiersB) };
+  if (sameList(a, b) && a.length > 0) {
+    return { kind: 'equal', distinguishing: sameQualifierSides(qualifiersA, qualifiersB) ? null : distinguishingOf({ restA: [], restB: [] }, qualifiersA, qualifiersB) };
+  }
+  // One alignment serves both the kind and the distinguishing words (this runs for every candidate pair).
+  const aligned = align(a, b);
+  return { kind: differenceKind(a, b, aligned), distinguishing: distinguishingOf(aligned, qualifiersA, qualifiersB) };
 }
 
-function differenceKind(a: readonly string[], b: readonly string[]): NameDifferenceKind {
+function differenceKind(a: readonly string[], b: readonly string[], aligned: Alignment): NameDifferenceKind {
   if (a.length === 0 || b.length === 0) return 'different';
-  if (sameList(a, b)) return 'equal';
   if (a.join('') === b.join('')) return 'near_equal';
-  const aligned = align(a, b);
   if (aligned.shared === 0) return 'different';
   if (aligned.restA.length === 0 && aligned.restB.length === 0) {
     if (aligned.abbreviations > 0) return 'abbreviation';
@@ -110,8 +112,7 @@ function abbreviates(short: string, long: string): boolean {
   return long.startsWith(short);
 }
 
-function distinguishingOf(a: readonly string[], b: readonly string[], qa: readonly string[], qb: readonly string[]): NameDifference['distinguishing'] {
-  const { restA, restB } = align(a, b);
+function distinguishingOf({ restA, restB }: Pick<Alignment, 'restA' | 'restB'>, qa: readonly string[], qb: readonly string[]): NameDifference['distinguishing'] {
   const extra = [...restA, ...restB];
   const numbers = extra.filter(isNumberToken);
   // Series letters: one single letter left on each side ("Class A" / "Class B").

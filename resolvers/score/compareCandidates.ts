@@ -8,10 +8,10 @@ import { softTfIdfWeighted, weighTokens, type IdfTable } from '../compare/index.
 import { compareIdentifiers } from '../identifiers/index.ts';
 import type { IndexedPairs, ScoredEdge } from '../cluster/clusterRecords.ts';
 import type { Random } from '../prng.ts';
-import { compareRecords, differenceOf, nameLevelOf, qualifierLevel } from './compareRecords.ts';
+import { compareRecords, nameLevelOf, nameLevels, qualifierLevel } from './compareRecords.ts';
 import { acronymLevel, jurisdictionLevel, legalFormLevel } from './contextLevels.ts';
 import type { ComparisonVector } from './em.ts';
-import { distinctLevelOf, FEATURE_LEVELS, FEATURE_NAMES, isInformativeCore, levelIndices, nameLevelOfKind } from './features.ts';
+import { FEATURE_LEVELS, FEATURE_NAMES, levelIndices } from './features.ts';
 import { featureWeights, type MatchModel } from './matchModel.ts';
 import { HELD_BACK_MARGIN, heldBackAt, indexedRules } from './decisionRules.ts';
 
@@ -57,9 +57,9 @@ export function compareCandidates(records: readonly MatchRecord[], pairs: Candid
     const b = records[j] as MatchRecord;
     const row = k * width;
     const soft = softTfIdfWeighted(weighted[i]!, weighted[j]!);
-    const difference = a.analysis.core.length === 0 || b.analysis.core.length === 0 ? null : differenceOf(a, b);
-    put(row, NAME, difference === null ? null : nameLevelOfKind(difference, isInformativeCore(a.analysis.tokens, idf), () => nameLevelOf(a.analysis.core, b.analysis.core, soft)!));
-    put(row, DISTINCT, distinctLevelOf(difference));
+    const name = nameLevels(a, b, idf, () => nameLevelOf(a.analysis.core, b.analysis.core, soft)!);
+    put(row, NAME, name.name);
+    put(row, DISTINCT, name.distinct);
     put(row, LEGAL_FORM, legalFormLevel(a, b));
     put(row, JURISDICTION, jurisdictionLevel(a, b));
     put(row, ACRONYM, acronymLevel(a, b));

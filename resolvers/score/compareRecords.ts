@@ -30,25 +30,36 @@ export function compareWeighted(a: MatchRecord, b: MatchRecord, weightedA: Weigh
   const coreB = b.analysis.core;
   const soft = softTfIdfWeighted(weightedA, weightedB);
   const jw = coreA.length > 0 && coreB.length > 0 ? jaroWinkler(coreA, coreB) : 0;
-  const difference = coreA.length === 0 || coreB.length === 0 ? null : differenceOf(a, b);
+  const name = nameLevels(a, b, idf, () => nameLevel(false, soft, jw));
   const identifiers = (a.identifiers?.length ?? 0) > 0 && (b.identifiers?.length ?? 0) > 0
     ? compareIdentifiers(a.identifiers ?? [], b.identifiers ?? [])
     : null;
   const levels: ComparisonLevels = {
-    name: difference === null ? null : nameLevelOfKind(difference, isInformativeCore(a.analysis.tokens, idf), () => nameLevel(false, soft, jw)),
+    name: name.name,
     legalForm: legalFormLevel(a, b),
     jurisdiction: jurisdictionLevel(a, b),
     acronym: acronymLevel(a, b),
     qualifier: qualifierLevel(a.analysis.qualifiers, b.analysis.qualifiers),
     sharedContact: identifiers === null ? null : identifiers.sharedWeak.length > 0 ? 'shared' : 'none_shared',
-    distinct: distinctLevelOf(difference),
+    distinct: name.distinct,
   };
-  return { levels, softTfIdf: soft, jaroWinkler: jw, identifiers, difference };
+  return { levels, softTfIdf: soft, jaroWinkler: jw, identifiers, difference: name.difference };
 }
 
-/** The kind of difference of two records' cores, with their qualifiers (compare/compareNameTokens). */
-export function differenceOf(a: MatchRecord, b: MatchRecord): NameDifference {
-  return compareNameTokens(a.analysis.tokens, b.analysis.tokens, a.analysis.qualifiers, b.analysis.qualifiers);
+/**
+ * The name and distinct levels of a pair from the kind of difference of its cores (compare/compareNameTokens);
+ * `band` gives the degree of two different cores. Null levels when a core is empty. Shared by compareRecords and
+ * the batch comparison (compareCandidates), so both give the same levels.
+ */
+export function nameLevels(
+  a: MatchRecord,
+  b: MatchRecord,
+  idf: IdfTable,
+  band: () => FeatureLevel<'name'>,
+): { name: FeatureLevel<'name'> | null; distinct: FeatureLevel<'distinct'> | null; difference: NameDifference | null } {
+  if (a.analysis.core.length === 0 || b.analysis.core.length === 0) return { name: null, distinct: null, difference: null };
+  const difference = compareNameTokens(a.analysis.tokens, b.analysis.tokens, a.analysis.qualifiers, b.analysis.qualifiers);
+  return { name: nameLevelOfKind(difference, () => isInformativeCore(a.analysis.tokens, idf), band), distinct: distinctLevelOf(difference), difference };
 }
 
 /**

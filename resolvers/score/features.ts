@@ -56,16 +56,17 @@ export function nameLevel(coreEqual: boolean, soft: number, jw: number): Feature
 }
 
 /**
- * The name level from the kind of difference; `band` gives the degree when the kind is 'different'. Equal or
+ * The name level from the kind of difference; `informative` is asked only of equal cores, `band` only of different
+ * ones (both cost a little, and this runs for every candidate pair). Equal or
  * extra-word names whose only difference is a place on one side ("Halvard Capital" / "Halvard Capital (UK)") are
  * extra_place.
  */
-export function nameLevelOfKind(difference: NameDifference, informative: boolean, band: () => FeatureLevel<'name'>): FeatureLevel<'name'> {
+export function nameLevelOfKind(difference: NameDifference, informative: () => boolean, band: () => FeatureLevel<'name'>): FeatureLevel<'name'> {
   const kind = difference.kind;
   if (difference.distinguishing?.kind === 'place' && (kind === 'equal' || kind === 'near_equal' || kind === 'extra_words')) return 'extra_place';
   switch (kind) {
     case 'equal':
-      return informative ? 'exact' : 'exact_weak';
+      return informative() ? 'exact' : 'exact_weak';
     case 'near_equal':
       return 'near_exact';
     case 'abbreviation':
