@@ -74,10 +74,17 @@ function buildPlaceWords(): ReadonlySet<string> {
 
 /**
  * A token that numbers a series: a number ("2", "1884", "2nd"), a Roman numeral (i … ccc), or a number word.
- * A word with a digit inside ("r0botics", a misread letter; "n26", a brand) is not one.
+ * A word with a digit inside ("r0botics", a misread letter; "n26", a brand) is not one. Remembered per token (a
+ * bounded memo): the same tokens recur in many pairs.
  */
 export function isNumberToken(token: string): boolean {
-  if (/^\d+[a-z]{0,2}$/.test(token)) return true;
-  if (token.length <= 6 && ROMAN.test(token)) return true;
-  return NUMBER_WORDS.has(token);
+  const known = numberMemo.get(token);
+  if (known !== undefined) return known;
+  const result = /^\d+[a-z]{0,2}$/.test(token) || (token.length <= 6 && ROMAN.test(token)) || NUMBER_WORDS.has(token);
+  if (numberMemo.size >= MEMO_LIMIT) numberMemo.clear();
+  numberMemo.set(token, result);
+  return result;
 }
+
+const MEMO_LIMIT = 100_000;
+const numberMemo = new Map<string, boolean>();

@@ -14,7 +14,7 @@
  * Securities" / "Alder Bank"), a place on one side only ("Halvard Capital" / "Halvard Capital (UK)").
  */
 import { ACTIVITY_WORDS, BRANCH_WORDS, isNumberToken, isPlaceWord } from './distinguishingWords.ts';
-import { jaroWinkler } from './jaroWinkler.ts';
+import { jaroWinkler, jaroWinklerUpperBound } from './jaroWinkler.ts';
 
 export type NameDifferenceKind = 'equal' | 'near_equal' | 'abbreviation' | 'extra_words' | 'different';
 export type DistinguishingKind = 'number' | 'branch' | 'activity' | 'place';
@@ -54,7 +54,7 @@ export function compareNameTokens(a: readonly string[], b: readonly string[], qu
 
 function differenceKind(a: readonly string[], b: readonly string[], aligned: Alignment): NameDifferenceKind {
   if (a.length === 0 || b.length === 0) return 'different';
-  if (a.join('') === b.join('')) return 'near_equal';
+  if (letterCount(a) === letterCount(b) && a.join('') === b.join('')) return 'near_equal';
   if (aligned.shared === 0) return 'different';
   if (aligned.restA.length === 0 && aligned.restB.length === 0) {
     if (aligned.abbreviations > 0) return 'abbreviation';
@@ -66,13 +66,14 @@ function differenceKind(a: readonly string[], b: readonly string[], aligned: Ali
 
 /** Tokens paired equal first, then as typos of long words, then as abbreviations; what is left over on each side. */
 function align(a: readonly string[], b: readonly string[]): Alignment {
-  const restB = [...b];
+  // Which tokens of b are taken; plain loops, since this runs for every candidate pair.
+  const taken = new Uint8Array(b.length);
   const restA: string[] = [];
   let shared = 0;
   for (const token of a) {
-    const k = restB.indexOf(token);
+    const k = firstFree(b, taken, (other) => other === token);
     if (k >= 0) {
-      restB.splice(k, 1);
+      taken[k] = 1;
       if (!FUNCTION_WORDS.has(token)) shared++;
     } else restA.push(token);
   }
@@ -80,28 +81,58 @@ function align(a: readonly string[], b: readonly string[]): Alignment {
   let abbreviations = 0;
   const leftA: string[] = [];
   for (const token of restA) {
-    const k = restB.findIndex((other) => isTypo(token, other));
+    const k = firstFree(b, taken, (other) => isTypo(token, other));
     if (k >= 0) {
-      restB.splice(k, 1);
+      taken[k] = 1;
       typos++;
       shared++;
       continue;
     }
-    const j = restB.findIndex((other) => abbreviates(token, other) || abbreviates(other, token));
+    const j = firstFree(b, taken, (other) => abbreviates(token, other) || abbreviates(other, token));
     if (j >= 0) {
-      restB.splice(j, 1);
+      taken[j] = 1;
       abbreviations++;
       continue;
     }
     leftA.push(token);
   }
+  const restB: string[] = [];
+  for (let k = 0; k < b.length; k++) if (taken[k] === 0) restB.push(b[k] as string);
   return { restA: leftA, restB, typos, abbreviations, shared };
+}
+
+function firstFree(b: readonly string[], taken: Uint8Array, fits: (other: string) => boolean): number {
+  for (let k = 0; k < b.length; k++) if (taken[k] === 0 && fits(b[k] as string)) return k;
+  return -1;
 }
 
 function isTypo(x: string, y: string): boolean {
   if (x.length < TYPO_MIN_LENGTH || y.length < TYPO_MIN_LENGTH) return false;
+  if (jaroWinklerUpperBound(x.length, y.length) < TYPO_SIMILARITY || sharedLetterBound(x, y) < TYPO_SIMILARITY) return false;
   if (isNumberToken(x) || isNumberToken(y)) return false;
   return jaroWinkler(x, y) >= TYPO_SIMILARITY;
+}
+
+const buckets = new Int16Array(64);
+
+/**
+ * An upper bound of Jaro–Winkler from the letters the two words share in any order (counted in 64 buckets, which
+ * can only over-count): Jaro ≤ (i/|x| + i/|y| + 1) / 3 for i shared letters, and JW ≤ J + 0.4 (1 − J). Most pairs
+ * of different words fail it, so the exact JW is computed for few of them.
+ */
+function sharedLetterBound(x: string, y: string): number {
+  for (let i = 0; i < x.length; i++) buckets[x.charCodeAt(i) & 63]!++;
+  let shared = 0;
+  for (let i = 0; i < y.length; i++) {
+    const k = y.charCodeAt(i) & 63;
+    if (buckets[k]! > 0) {
+      buckets[k]!--;
+      shared++;
+    }
+  }
+  for (let i = 0; i < x.length; i++) buckets[x.charCodeAt(i) & 63] = 0;
+  const jaro = (shared / x.length + shared / y.length + 1) / 3;
+  return jaro + 0.4 * (1 - jaro);
 }
 
 /** `short` is a leading part of `long` ("r" of "rural", "coop" of "cooperativa"), not a number, not a whole word of its own. */
@@ -136,6 +167,12 @@ function sameQualifierSides(qa: readonly string[], qb: readonly string[]): boole
 
 function onlyOnOneSide(qa: readonly string[], qb: readonly string[]): string[] {
   return [...qa.filter((q) => !qb.includes(q)), ...qb.filter((q) => !qa.includes(q))];
+}
+
+function letterCount(tokens: readonly string[]): number {
+  let n = 0;
+  for (const t of tokens) n += t.length;
+  return n;
 }
 
 function sameList(a: readonly string[], b: readonly string[]): boolean {
