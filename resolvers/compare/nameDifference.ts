@@ -2,7 +2,8 @@
  * The kind of difference between two core names (token lists from the name analysis), not only its degree:
  *
  *   equal          the same tokens in the same order
- *   near_equal     the same up to spacing ("Crelan Co" / "CrelanCo"), word order, or one typo in one long word
+ *   near_equal     the same letters up to spacing ("Crelan Co" / "CrelanCo") or word order
+ *   typo           the same words but for one typo in one long word ("Fabrication" / "Fabricatoin")
  *   abbreviation   the same words, one or more abbreviated on one side ("Caja R. de Navarra" / "Caja Rural de
  *                  Navarra"): an abbreviation is a leading part of the other side's word
  *   extra_words    one side's words all stand in the other, which adds some ("Sparkasse Dortmund" /
@@ -16,11 +17,13 @@
 import { ACTIVITY_WORDS, BRANCH_WORDS, isNumberToken, isPlaceWord } from './distinguishingWords.ts';
 import { jaroWinkler, jaroWinklerUpperBound } from './jaroWinkler.ts';
 
-export type NameDifferenceKind = 'equal' | 'near_equal' | 'abbreviation' | 'extra_words' | 'different';
+export type NameDifferenceKind = 'equal' | 'near_equal' | 'typo' | 'abbreviation' | 'extra_words' | 'different';
 export type DistinguishingKind = 'number' | 'branch' | 'activity' | 'place';
 
 export interface NameDifference {
   kind: NameDifferenceKind;
+  /** The words of either side left without a counterpart on the other (after typos and abbreviations). */
+  extra: string[];
   /** What tells the names apart, strongest first (number, branch, activity, place), or null. */
   distinguishing: { kind: DistinguishingKind; tokens: string[] } | null;
 }
@@ -31,9 +34,15 @@ const FUNCTION_WORDS: ReadonlySet<string> = new Set([
   'die', 'den', 'und', 'et', 'e', 'y', 'i', 'en', 'in', 'van', 'von', 'zu', 'al', 'el', 'a', 'an', 'at',
 ]);
 
-/** Jaro–Winkler between two long words at which they count as one word with a typo. */
+/**
+ * Jaro–Winkler between two words at which they count as one word with a typo: words of nine letters or more, or of
+ * five or more beside a rare shared word; other words that differ by a letter are as often other names ("Tiberio" /
+ * "Tiberius", "Purbach" / "Peuerbach").
+ */
 const TYPO_SIMILARITY = 0.92;
-const TYPO_MIN_LENGTH = 5;
+const TYPO_MIN_LENGTH = 9;
+const TYPO_MIN_LENGTH_BESIDE_RARE = 5;
+const ABBREVIATION_MAX_LENGTH = 4;
 
 interface Alignment {
   restA: string[];
@@ -43,13 +52,22 @@ interface Alignment {
   shared: number;
 }
 
-export function compareNameTokens(a: readonly string[], b: readonly string[], qualifiersA: readonly string[] = [], qualifiersB: readonly string[] = []): NameDifference {
+export function compareNameTokens(
+  a: readonly string[],
+  b: readonly string[],
+  qualifiersA: readonly string[] = [],
+  qualifiersB: readonly string[] = [],
+  isRare: (token: string) => boolean = () => false,
+): NameDifference {
   if (sameList(a, b) && a.length > 0) {
-    return { kind: 'equal', distinguishing: sameQualifierSides(qualifiersA, qualifiersB) ? null : distinguishingOf({ restA: [], restB: [] }, qualifiersA, qualifiersB) };
+    return { kind: 'equal', extra: [], distinguishing: sameQualifierSides(qualifiersA, qualifiersB) ? null : distinguishingOf({ restA: [], restB: [] }, qualifiersA, qualifiersB) };
   }
   // One alignment serves both the kind and the distinguishing words (this runs for every candidate pair).
-  const aligned = align(a, b);
-  return { kind: differenceKind(a, b, aligned), distinguishing: distinguishingOf(aligned, qualifiersA, qualifiersB) };
+  const aligned = align(a, b, isRare);
+  const kind = differenceKind(a, b, aligned);
+  // Distinguishing words set apart names that otherwise agree: names that share nothing have none.
+  const agreeInPart = aligned.shared > 0 || aligned.abbreviations > 0;
+  return { kind, extra: [...aligned.restA, ...aligned.restB], distinguishing: agreeInPart ? distinguishingOf(aligned, qualifiersA, qualifiersB) : null };
 }
 
 function differenceKind(a: readonly string[], b: readonly string[], aligned: Alignment): NameDifferenceKind {
@@ -58,14 +76,14 @@ function differenceKind(a: readonly string[], b: readonly string[], aligned: Ali
   if (aligned.shared === 0) return 'different';
   if (aligned.restA.length === 0 && aligned.restB.length === 0) {
     if (aligned.abbreviations > 0) return 'abbreviation';
-    return aligned.typos <= 1 ? 'near_equal' : 'different';
+    return aligned.typos === 0 ? 'near_equal' : aligned.typos === 1 ? 'typo' : 'different';
   }
   if (aligned.restA.length === 0 || aligned.restB.length === 0) return aligned.typos === 0 ? 'extra_words' : 'different';
   return 'different';
 }
 
 /** Tokens paired equal first, then as typos of long words, then as abbreviations; what is left over on each side. */
-function align(a: readonly string[], b: readonly string[]): Alignment {
+function align(a: readonly string[], b: readonly string[], isRare: (token: string) => boolean): Alignment {
   // Which tokens of b are taken; plain loops, since this runs for every candidate pair.
   const taken = new Uint8Array(b.length);
   const restA: string[] = [];
@@ -80,8 +98,11 @@ function align(a: readonly string[], b: readonly string[]): Alignment {
   let typos = 0;
   let abbreviations = 0;
   const leftA: string[] = [];
+  // A typo in a shorter word counts only beside a rare word the names share ("Pelrosico Rail Compnents" /
+  // "Pelrosico Rail Components"); beside common words it is as often another name ("Tiberio SPV" / "Tiberius SPV").
+  const minLength = restA.length > 0 && a.some((t) => !restA.includes(t) && isRare(t)) ? TYPO_MIN_LENGTH_BESIDE_RARE : TYPO_MIN_LENGTH;
   for (const token of restA) {
-    const k = firstFree(b, taken, (other) => isTypo(token, other));
+    const k = firstFree(b, taken, (other) => isTypo(token, other, minLength));
     if (k >= 0) {
       taken[k] = 1;
       typos++;
@@ -106,11 +127,21 @@ function firstFree(b: readonly string[], taken: Uint8Array, fits: (other: string
   return -1;
 }
 
-function isTypo(x: string, y: string): boolean {
-  if (x.length < TYPO_MIN_LENGTH || y.length < TYPO_MIN_LENGTH) return false;
+function isTypo(x: string, y: string, minLength: number): boolean {
+  if (x.length < minLength || y.length < minLength) return false;
+  // One typo (a letter added, dropped, changed or swapped) changes the length by one at most.
+  if (Math.abs(x.length - y.length) > 1) return false;
+  // Scripts written without spaces (Han, Kana, Thai…) make a whole name one token: a changed character there is
+  // another name ("…鄞州农村商业银行" / "…慈溪农村商业银行"), not a typo.
+  if (!isSpacedScript(x) || !isSpacedScript(y)) return false;
   if (jaroWinklerUpperBound(x.length, y.length) < TYPO_SIMILARITY || sharedLetterBound(x, y) < TYPO_SIMILARITY) return false;
   if (isNumberToken(x) || isNumberToken(y)) return false;
   return jaroWinkler(x, y) >= TYPO_SIMILARITY;
+}
+
+/** Latin, Greek, Cyrillic, Armenian, Hebrew, Arabic and the Indic scripts before Thai (U+0E00) separate words. */
+function isSpacedScript(token: string): boolean {
+  return token.charCodeAt(0) < 0x0e00;
 }
 
 const buckets = new Int16Array(64);
@@ -135,9 +166,13 @@ function sharedLetterBound(x: string, y: string): number {
   return jaro + 0.4 * (1 - jaro);
 }
 
-/** `short` is a leading part of `long` ("r" of "rural", "coop" of "cooperativa"), not a number, not a whole word of its own. */
+/**
+ * `short` is a leading part of `long` ("r" of "rural", "coop" of "cooperativa"): at most four letters or half the
+ * word ("Raiffeisen" is no abbreviation of "Raiffeisenbank"), not a number, not a function word.
+ */
 function abbreviates(short: string, long: string): boolean {
   if (short.length >= long.length || long.length < 3) return false;
+  if (short.length > ABBREVIATION_MAX_LENGTH && short.length * 2 > long.length) return false;
   if (isNumberToken(short) && short.length > 1) return false;
   if (short.length > 1 && FUNCTION_WORDS.has(short)) return false;
   return long.startsWith(short);

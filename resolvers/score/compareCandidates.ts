@@ -13,7 +13,7 @@ import { acronymLevel, jurisdictionLevel, legalFormLevel } from './contextLevels
 import type { ComparisonVector } from './em.ts';
 import { FEATURE_LEVELS, FEATURE_NAMES, levelIndices } from './features.ts';
 import { featureWeights, type MatchModel } from './matchModel.ts';
-import { HELD_BACK_MARGIN, heldBackAt, indexedRules } from './decisionRules.ts';
+import { capOf, holdAt, indexedRules } from './decisionRules.ts';
 
 const MISSING = -1;
 
@@ -100,7 +100,7 @@ export function randomPairVectors(records: readonly MatchRecord[], idf: IdfTable
   return out;
 }
 
-/** Ruled scores (decisionRules.ruledScore) of every compared pair under a model: identifier overrides as ±Infinity, held-back pairs capped below linkAt. */
+/** Ruled scores (decisionRules.ruledScore) of every compared pair under a model: identifier overrides as ±Infinity, held-back pairs capped (decisionRules.capOf). */
 export function scoreCompared(compared: ComparedPairs, model: MatchModel): Float64Array {
   const width = FEATURE_NAMES.length;
   const weights = FEATURE_NAMES.map((f) => {
@@ -122,7 +122,7 @@ export function scoreCompared(compared: ComparedPairs, model: MatchModel): Float
       if (v !== MISSING) s += (weights[f] as number[])[v] as number;
     }
     const override = compared.overrides.get(k);
-    if (override === undefined && heldBackAt(compared.levels, k * width, rules)) s = Math.min(s, model.linkAt - HELD_BACK_MARGIN);
+    if (override === undefined) s = Math.min(s, capOf(holdAt(compared.levels, k * width, rules), model));
     scores[k] = override === 'cannot_link' ? -Infinity : override === 'decisive_identifier' ? Infinity : s;
   }
   return scores;

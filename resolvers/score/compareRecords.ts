@@ -5,7 +5,7 @@
 import type { MatchRecord } from '../block/matchRecord.ts';
 import { compareIdentifiers, type IdentifierComparison } from '../identifiers/index.ts';
 import { compareNameTokens, jaroWinkler, jaroWinklerUpperBound, softTfIdfWeighted, weighTokens, type IdfTable, type NameDifference, type WeightedTokens } from '../compare/index.ts';
-import { distinctLevelOf, isInformativeCore, NAME_BANDS, nameLevel, nameLevelOfKind, type ComparisonLevels, type FeatureLevel } from './features.ts';
+import { distinctLevelOf, isInformativeCore, rareIn, NAME_BANDS, nameLevel, nameLevelOfKind, type ComparisonLevels, type FeatureLevel } from './features.ts';
 import { acronymLevel, jurisdictionLevel, legalFormLevel } from './contextLevels.ts';
 
 export interface Comparison {
@@ -58,7 +58,7 @@ export function nameLevels(
   band: () => FeatureLevel<'name'>,
 ): { name: FeatureLevel<'name'> | null; distinct: FeatureLevel<'distinct'> | null; difference: NameDifference | null } {
   if (a.analysis.core.length === 0 || b.analysis.core.length === 0) return { name: null, distinct: null, difference: null };
-  const difference = compareNameTokens(a.analysis.tokens, b.analysis.tokens, a.analysis.qualifiers, b.analysis.qualifiers);
+  const difference = compareNameTokens(a.analysis.tokens, b.analysis.tokens, a.analysis.qualifiers, b.analysis.qualifiers, rareIn(idf));
   return { name: nameLevelOfKind(difference, () => isInformativeCore(a.analysis.tokens, idf), band), distinct: distinctLevelOf(difference), difference };
 }
 

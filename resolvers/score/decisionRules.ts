@@ -8,13 +8,14 @@
  *   new     a cannot-link, a score at or below newAt, or names with nothing in common: country and legal form
  *           alone never send a pair to a person
  *
- * Rules that hold a link back, whatever the sum (precision first; each is named in the explanation):
+ * Rules that hold a pair back, whatever the sum (precision first; each is named in the explanation):
  *   - the names themselves disagree (name level low or none): context supports a name match, it cannot stand in
- *     for one;
+ *     for one. The pair's score is capped just below linkAt: it never links (and, per the rule above, is not
+ *     worth a person's time unless a contact is shared);
  *   - a distinguishing word differs: a series number ("Fund II" / "Fund III"), a branch ("… London Branch"), or
- *     another activity word of one group ("Alder Securities" / "Alder Bank").
- * A held-back pair keeps its score for review and ordering, capped just below linkAt for clustering
- * (`ruledScore`), so no clustering can link through it.
+ *     another activity word of one group ("Alder Securities" / "Alder Bank"). Measured on the LEI names, such pairs
+ *     are almost never one company, so the score is capped just below newAt: a strong negative, new, and a
+ *     conflict that keeps a cluster from joining the two through a third name.
  */
 import type { ComparisonLevels, FeatureLevel } from './features.ts';
 import { FEATURE_LEVELS, FEATURE_NAMES } from './features.ts';
@@ -25,14 +26,31 @@ export type Override = 'decisive_identifier' | 'cannot_link' | null;
 const NAME_DISAGREES: ReadonlySet<FeatureLevel<'name'>> = new Set(['low', 'none']);
 const DISTINCT_HOLDS_BACK: ReadonlySet<FeatureLevel<'distinct'>> = new Set(['number', 'branch', 'activity']);
 
-/** How far below linkAt a held-back pair's score is capped for clustering. */
+/** How far below the threshold a held-back pair's score is capped. */
 export const HELD_BACK_MARGIN = 1e-3;
+
+/** What holds a pair back: its names disagree, or a distinguishing word differs; null when nothing does. */
+export type Hold = 'names_disagree' | 'distinguishing_word' | null;
+
+export function holdOf(levels: ComparisonLevels): Hold {
+  if (levels.name !== null && NAME_DISAGREES.has(levels.name)) return 'names_disagree';
+  if (levels.distinct !== null && DISTINCT_HOLDS_BACK.has(levels.distinct)) return 'distinguishing_word';
+  return null;
+}
 
 /** Why this pair may not link automatically, in words, or null when nothing holds it back. */
 export function linkHeldBackBy(levels: ComparisonLevels): string | null {
-  if (levels.name !== null && NAME_DISAGREES.has(levels.name)) return `the names disagree (name level ${levels.name})`;
-  if (levels.distinct !== null && DISTINCT_HOLDS_BACK.has(levels.distinct)) return `a distinguishing word differs (${levels.distinct})`;
+  const hold = holdOf(levels);
+  if (hold === 'names_disagree') return `the names disagree (name level ${levels.name})`;
+  if (hold === 'distinguishing_word') return `a distinguishing word differs (${levels.distinct})`;
   return null;
+}
+
+/** The highest score a held-back pair may keep (Infinity when nothing holds it back). */
+export function capOf(hold: Hold, model: Pick<MatchModel, 'linkAt' | 'newAt'>): number {
+  if (hold === 'names_disagree') return model.linkAt - HELD_BACK_MARGIN;
+  if (hold === 'distinguishing_word') return model.newAt - HELD_BACK_MARGIN;
+  return Infinity;
 }
 
 /** Whether a person can add something to this pair: the names agree at least in part, or a contact is shared. */
@@ -41,11 +59,11 @@ export function worthReview(levels: ComparisonLevels): boolean {
   return levels.name === null || !NAME_DISAGREES.has(levels.name);
 }
 
-/** The score clustering and candidate ranking use: identifiers decide, a held-back pair stays below linkAt. */
-export function ruledScore(raw: number, override: Override, levels: ComparisonLevels, linkAt: number): number {
+/** The score clustering and candidate ranking use: identifiers decide, a held-back pair is capped (capOf). */
+export function ruledScore(raw: number, override: Override, levels: ComparisonLevels, model: Pick<MatchModel, 'linkAt' | 'newAt'>): number {
   if (override === 'cannot_link') return -Infinity;
   if (override === 'decisive_identifier') return Infinity;
-  return linkHeldBackBy(levels) !== null ? Math.min(raw, linkAt - HELD_BACK_MARGIN) : raw;
+  return Math.min(raw, capOf(holdOf(levels), model));
 }
 
 /**
@@ -88,11 +106,12 @@ export function indexedRules(): IndexedRules {
   };
 }
 
-/** linkHeldBackBy over one row of level indices. */
-export function heldBackAt(levels: Int8Array, row: number, rules: IndexedRules): boolean {
+/** holdOf over one row of level indices. */
+export function holdAt(levels: Int8Array, row: number, rules: IndexedRules): Hold {
   const name = levels[row + rules.name] as number;
+  if (name >= 0 && rules.nameDisagrees[name] === true) return 'names_disagree';
   const distinct = levels[row + rules.distinct] as number;
-  return (name >= 0 && rules.nameDisagrees[name] === true) || (distinct >= 0 && rules.distinctHoldsBack[distinct] === true);
+  return distinct >= 0 && rules.distinctHoldsBack[distinct] === true ? 'distinguishing_word' : null;
 }
 
 /** worthReview over one row of level indices. */

@@ -6,7 +6,7 @@
  * that break a rare word, on Jaro–Winkler of the whole core. Cut points are placed where the dev split of the ROR
  * data shows the match share changing fastest (docs/matching.md); the weights themselves are learned (EM).
  */
-import type { IdfTable, NameDifference } from '../compare/index.ts';
+import { ACTIVITY_WORDS, type IdfTable, type NameDifference } from '../compare/index.ts';
 
 export const FEATURE_LEVELS = {
   /**
@@ -14,7 +14,7 @@ export const FEATURE_LEVELS = {
    * core that says little (four letters or fewer, or only words common in the names compared): value-specific
    * agreement weights in two classes (frequency-based matching, Winkler 1989).
    */
-  name: ['exact', 'exact_weak', 'near_exact', 'abbreviation', 'extra_words', 'extra_place', 'very_high', 'high', 'medium', 'low', 'none'],
+  name: ['exact', 'exact_weak', 'near_exact', 'typo', 'abbreviation', 'extra_words', 'extra_activity', 'extra_place', 'very_high', 'high', 'medium', 'low', 'none'],
   /** Legal-form compatibility (compare/compareLegalForms). */
   legalForm: ['same_family', 'compatible', 'conflicting', 'different_jurisdiction'],
   /** Jurisdiction / country agreement (compare/compareJurisdictions). */
@@ -63,16 +63,20 @@ export function nameLevel(coreEqual: boolean, soft: number, jw: number): Feature
  */
 export function nameLevelOfKind(difference: NameDifference, informative: () => boolean, band: () => FeatureLevel<'name'>): FeatureLevel<'name'> {
   const kind = difference.kind;
-  if (difference.distinguishing?.kind === 'place' && (kind === 'equal' || kind === 'near_equal' || kind === 'extra_words')) return 'extra_place';
+  if (difference.distinguishing?.kind === 'place' && (kind === 'equal' || kind === 'near_equal' || kind === 'typo' || kind === 'extra_words')) return 'extra_place';
   switch (kind) {
     case 'equal':
       return informative() ? 'exact' : 'exact_weak';
     case 'near_equal':
-      return 'near_exact';
+      // "FirstBank" / "First Bank": the same letters, but common words say as little as an equal common core.
+      return informative() ? 'near_exact' : 'exact_weak';
+    case 'typo':
+      return 'typo';
     case 'abbreviation':
       return 'abbreviation';
     case 'extra_words':
-      return 'extra_words';
+      // "Wirecard Bank AG" / "Wirecard AG": an added activity word names another company of the group as often as not.
+      return difference.extra.some((t) => ACTIVITY_WORDS.has(t)) ? 'extra_activity' : 'extra_words';
     default:
       return band();
   }
@@ -93,9 +97,14 @@ export function isInformativeCore(tokens: readonly string[], idf: IdfTable): boo
   let letters = 0;
   for (const t of tokens) letters += t.length;
   if (letters <= WEAK_CORE_MAX_LENGTH) return false;
+  return tokens.some(rareIn(idf));
+}
+
+/** Whether a token is rare among the names the IDF table was built from (not common: see COMMON_TOKEN_SHARE). */
+export function rareIn(idf: IdfTable): (token: string) => boolean {
   const n = idf.documentCount;
   const commonAt = Math.max(COMMON_MIN_NAMES, COMMON_TOKEN_SHARE * n);
-  return tokens.some((t) => (1 + n) / Math.exp(idf.idf(t) - 1) - 1 < commonAt - 1e-9);
+  return (token) => (1 + n) / Math.exp(idf.idf(token) - 1) - 1 < commonAt - 1e-9;
 }
 
 /** The distinct level of a difference: a place is not one (see extra_place). */

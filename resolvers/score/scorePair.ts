@@ -53,7 +53,7 @@ export function scoreComparison(comparison: Comparison, model: MatchModel, optio
   let override: PairScore['override'] = null;
   if (options.cannotLink || ids?.cannotLink) override = 'cannot_link';
   else if (ids?.decisive) override = 'decisive_identifier';
-  const score = ruledScore(rawScore, override, comparison.levels, model.linkAt);
+  const score = ruledScore(rawScore, override, comparison.levels, model);
   const identifierNotes = [...(ids?.explanation ?? [])];
   if (options.cannotLink) identifierNotes.push('a reviewer recorded that these are different entities');
   return {

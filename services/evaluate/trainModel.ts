@@ -2,15 +2,20 @@
  * How the built-in match model is made (`cpreg train-model`, docs/matching.md → 'Model'): labelled candidate pairs
  * from data that looks like the job, m and u counted per dataset and averaged so that each dataset weighs the same,
  * then the two thresholds derived from stated targets instead of a whole bit:
- *   linkAt  the lowest score at which the pairs scoring at or above it reach the target precision in EVERY dataset;
- *   newAt   linkAt less a review band of stated width: a person sees the pairs whose evidence is within that many
- *           bits of a link (and whose names agree at least in part: decisionRules.worthReview).
+ *   linkAt  the lowest threshold at which the clusters the register's rules form (clusterRulesOf) reach the target
+ *           pairwise precision in EVERY dataset (tried at every distinct pair score in a range, so no pattern sits on
+ *           a cliff by chance);
+ *   newAt   the lowest score such that, in EVERY dataset, at least the target share of the pairs a person would be
+ *           asked about (between newAt and linkAt, names agreeing at least in part: decisionRules.worthReview) are
+ *           true matches.
  */
 import { analyseName } from '../../resolvers/analyse/index.ts';
 import { candidatePairs, type MatchRecord } from '../../resolvers/block/index.ts';
 import { buildIdfTable } from '../../resolvers/compare/index.ts';
-import { compareCandidates, FEATURE_LEVELS, FEATURE_NAMES, scoreCompared, type ComparedPairs, type MatchModel } from '../../resolvers/score/index.ts';
-import { heldBackAt, indexedRules } from '../../resolvers/score/decisionRules.ts';
+import { clusterRulesOf, compareCandidates, FEATURE_LEVELS, FEATURE_NAMES, indexedPairsOf, scoreCompared, type ComparedPairs, type MatchModel } from '../../resolvers/score/index.ts';
+import { clusterIndexed, clustersToLabels } from '../../resolvers/cluster/index.ts';
+import { pairwiseScores } from '../../resolvers/evaluate/index.ts';
+import { indexedRules, worthReviewAt } from '../../resolvers/score/decisionRules.ts';
 import type { LabelledRow } from './loadLabelledCsv.ts';
 
 export interface TrainingSet {
@@ -19,14 +24,16 @@ export interface TrainingSet {
 }
 
 export interface TrainingTargets {
-  /** Pair precision at or above linkAt, in every dataset. */
+  /** Pairwise precision of the clusters formed at linkAt, in every dataset. */
   linkPrecision: number;
-  /** Width of the review band below linkAt, in bits: newAt = linkAt − reviewBandBits. */
-  reviewBandBits: number;
+  /** Share of true matches among the pairs a person is asked about, in every dataset. */
+  reviewMatchShare: number;
 }
 
 interface LabelledPairs {
   name: string;
+  /** The ground-truth id of every record, by record index. */
+  gold: string[];
   compared: ComparedPairs;
   levels: Int8Array;
   matches: Uint8Array;
@@ -45,7 +52,7 @@ export function labelledPairsOf(set: TrainingSet): LabelledPairs {
   const compared = compareCandidates(records, pairs, idf);
   const matches = new Uint8Array(pairs.count);
   for (let k = 0; k < pairs.count; k++) matches[k] = set.rows[pairs.left[k] as number]!.id === set.rows[pairs.right[k] as number]!.id ? 1 : 0;
-  return { name: set.name, compared, levels: compared.levels, matches, count: pairs.count };
+  return { name: set.name, gold: set.rows.map((r) => r.id), compared, levels: compared.levels, matches, count: pairs.count };
 }
 
 /** m and u of every feature from one dataset's labelled pairs, with add-one smoothing per level. */
@@ -68,7 +75,7 @@ function countLevels(data: LabelledPairs): { m: number[][]; u: number[][]; match
   return { m: norm(m), u: norm(u), matchShare: matches / Math.max(1, data.count) };
 }
 
-/** Bits below the lowest qualifying score at which linkAt is set. */
+/** Bits below the lowest qualifying score at which linkAt is set, so rounding of stored weights cannot lift a pattern over it. */
 const LINK_AT_MARGIN = 0.01;
 
 export function estimateModel(sets: readonly LabelledPairs[], targets: TrainingTargets, note: string, prior: MatchModel): MatchModel {
@@ -86,34 +93,60 @@ export function estimateModel(sets: readonly LabelledPairs[], targets: TrainingT
   neutralise(features, 'jurisdiction', 'compatible');
   const matchShare = counted.reduce((s, c) => s + c.matchShare, 0) / counted.length;
   const draft: MatchModel = { version: 1, features, matchShare, linkAt: Infinity, newAt: 0, provenance: { method: 'labelled', pairs: 0, note: '' } };
-  const scored = sets.map((set) => ({ set, scores: scoreCompared(set.compared, { ...draft, linkAt: Infinity }) }));
-  const perSet = scored.map(({ set, scores }) => ({ name: set.name, linkAt: lowestThreshold(set, scores, targets.linkPrecision) }));
-  // Just below the lowest pattern that reaches the target, so rounding of the stored weights cannot lift it over.
-  const linkAt = Math.max(...perSet.map((p) => p.linkAt)) - LINK_AT_MARGIN;
+  const perSet = sets.map((set) => ({ name: set.name, linkAt: lowestClusterThreshold(set, draft, targets) }));
+  const linkAt = Math.max(...perSet.map((p) => p.linkAt));
   note = `${note}; linkAt per dataset: ${perSet.map((p) => `${p.name} ${p.linkAt.toFixed(3)}`).join(', ')}`;
-  const newAt = linkAt - targets.reviewBandBits;
+  const floors = sets.map((set) => ({ name: set.name, newAt: reviewFloor(set, { ...draft, linkAt }, targets.reviewMatchShare) }));
+  const newAt = Math.max(...floors.map((f) => f.newAt));
+  note = `${note}; newAt per dataset: ${floors.map((f) => `${f.name} ${f.newAt.toFixed(3)}`).join(', ')}`;
   const pairs = sets.reduce((s, set) => s + set.count, 0);
   return { ...draft, linkAt: round([linkAt])[0]!, newAt: round([newAt])[0]!, provenance: { method: 'labelled', pairs, note } };
 }
 
+/** Thresholds are tried in this range of bits (below it a link would rest on weak evidence; above, none is left). */
+const THRESHOLD_RANGE = [6, 16] as const;
+
 /**
- * The lowest score t such that the pairs scoring ≥ t have at least `precision` true matches; pairs the rules hold
- * back (decisionRules.linkHeldBackBy) never link, so they do not count.
+ * The lowest threshold t, among the distinct pair scores in THRESHOLD_RANGE, at which clustering with linkAt t (and
+ * the prior's newAt as the conflict floor) has pairwise precision ≥ target; just below that score, by LINK_AT_MARGIN.
  */
-function lowestThreshold(set: LabelledPairs, scores: Float64Array, precision: number): number {
+function lowestClusterThreshold(set: LabelledPairs, draft: MatchModel, targets: TrainingTargets): number {
+  const probe = scoreCompared(set.compared, { ...draft, linkAt: Infinity });
+  const candidates = [...new Set(Array.from(probe).filter((s) => s >= THRESHOLD_RANGE[0] && s <= THRESHOLD_RANGE[1]).map((s) => Math.round(s * 1e4) / 1e4))].sort((x, y) => x - y);
+  const ids = set.gold.map((_, i) => String(i));
+  for (const score of candidates) {
+    const linkAt = score - LINK_AT_MARGIN;
+    const model = { ...draft, linkAt, newAt: Math.min(draft.newAt, linkAt) };
+    const indexed = indexedPairsOf(set.compared, scoreCompared(set.compared, model));
+    const labels = clustersToLabels(clusterIndexed(ids, indexed, clusterRulesOf(model)));
+    if (pairwiseScores(set.gold, ids.map((id) => labels.get(id) as string)).precision >= targets.linkPrecision) return linkAt;
+  }
+  return THRESHOLD_RANGE[1];
+}
+
+/**
+ * The lowest newAt at which the worthReview pairs scoring in (newAt, linkAt) hold at least `share` true matches, read
+ * from the best-scoring pair down; linkAt itself when even the best of them fall short.
+ */
+function reviewFloor(set: LabelledPairs, model: MatchModel, share: number): number {
+  const scores = scoreCompared(set.compared, model);
   const rules = indexedRules();
   const width = FEATURE_NAMES.length;
-  const matches = set.matches;
-  const order = [...scores.keys()].filter((k) => Number.isFinite(scores[k]!) && !heldBackAt(set.levels, k * width, rules)).sort((a, b) => scores[b]! - scores[a]!);
-  let best = Infinity;
-  let tp = 0;
-  for (let i = 0; i < order.length; i++) {
-    tp += matches[order[i]!]!;
-    const s = scores[order[i]!]!;
-    if (i + 1 < order.length && scores[order[i + 1]!] === s) continue;
-    if (tp / (i + 1) >= precision) best = s;
+  const band: number[] = [];
+  for (let k = 0; k < set.count; k++) {
+    const s = scores[k]!;
+    if (s < model.linkAt && Number.isFinite(s) && worthReviewAt(set.levels, k * width, rules)) band.push(k);
   }
-  return best;
+  band.sort((x, y) => scores[y]! - scores[x]!);
+  let tp = 0;
+  let floor = model.linkAt;
+  for (let i = 0; i < band.length; i++) {
+    tp += set.matches[band[i]!]!;
+    const next = band[i + 1];
+    if (next !== undefined && scores[next] === scores[band[i]!]) continue;
+    if (tp / (i + 1) >= share) floor = scores[band[i]!]! - LINK_AT_MARGIN;
+  }
+  return floor;
 }
 
 function hasLevel(set: LabelledPairs, feature: number): boolean {

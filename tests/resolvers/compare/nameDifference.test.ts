@@ -14,10 +14,29 @@ describe('compareNameTokens: the kind of difference', () => {
   it('equal after the legal form: "Keld Timber Ltd" / "KELD TIMBER LIMITED"', () => {
     expect(diff('Keld Timber Ltd', 'KELD TIMBER LIMITED').kind).toBe('equal');
   });
-  it('near_equal: spacing, word order, one typo in a long word', () => {
+  it('near_equal: spacing, word order', () => {
     expect(diff('Crelanor Co SC', 'CrelanorCo SC').kind).toBe('near_equal');
     expect(diff('Timber Keld Ltd', 'Keld Timber Ltd').kind).toBe('near_equal');
-    expect(diff('Brackenwhit Fabrication Ltd', 'Brackenwhit Fabricatoin Ltd').kind).toBe('near_equal');
+  });
+  it('typo: one typo in one long word; two make the names different', () => {
+    expect(diff('Brackenwhit Fabrication Ltd', 'Brackenwhit Fabricatoin Ltd').kind).toBe('typo');
+    expect(diff('Brackenwhit Fabrication Ltd', 'Brackenwhot Fabricatoin Ltd').kind).toBe('different');
+  });
+  it('a typo in a shorter word counts only beside a rare shared word', () => {
+    const tokens = (t: string) => analyseName(t).tokens;
+    const rare = (t: string) => t === 'pelrosico';
+    expect(compareNameTokens(tokens('Pelrosico Rail Compnents'), tokens('Pelrosico Rail Components'), [], [], rare).kind).toBe('typo');
+    expect(compareNameTokens(tokens('Tiberio SPV'), tokens('Tiberius SPV'), [], [], rare).kind).toBe('different');
+  });
+  it('one typo changes the length by one at most', () => {
+    expect(diff('Investiremo Gestione', 'Investitorimo Gestione').kind).not.toBe('typo');
+  });
+  it('an abbreviation is at most four letters or half the word', () => {
+    expect(diff('Caja R. de Norvella', 'Caja Rural de Norvella').kind).toBe('abbreviation');
+    expect(diff('Raiffeisen Velmbruck', 'Raiffeisenbank Velmbruck').kind).not.toBe('abbreviation');
+  });
+  it('a changed character in a name written without spaces is no typo', () => {
+    expect(diff('宁波鄞州农村商业银行', '宁波慈溪农村商业银行').kind).toBe('different');
   });
   it('abbreviation: "Caja R. de Norvella" / "Caja Rural de Norvella"', () => {
     expect(diff('Caja R. de Norvella', 'Caja Rural de Norvella').kind).toBe('abbreviation');

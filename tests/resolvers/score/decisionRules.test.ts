@@ -15,27 +15,34 @@ const model = { linkAt: 9, newAt: 6 };
 
 describe('decisionRules (the one decision logic of the register and the evaluation)', () => {
   it('links at linkAt when nothing holds the pair back', () => {
-    expect(decidePair(ruledScore(10, null, levels({}), 9), levels({}), model)).toBe('link');
+    expect(decidePair(ruledScore(10, null, levels({}), model), levels({}), model)).toBe('link');
   });
-  it('a differing series number or branch holds a link back, below linkAt, for a person', () => {
+  it('a differing series number, branch or activity word is a strong negative: below newAt, new', () => {
     for (const distinct of ['number', 'branch', 'activity'] as const) {
       const l = levels({ distinct });
       expect(linkHeldBackBy(l)).toMatch(distinct);
-      const s = ruledScore(20, null, l, 9);
-      expect(s).toBeLessThan(9);
-      expect(decidePair(s, l, model)).toBe('review');
+      const s = ruledScore(20, null, l, model);
+      expect(s).toBeLessThan(model.newAt);
+      expect(decidePair(s, l, model)).toBe('new');
     }
+  });
+  it('names that disagree are capped just below linkAt, never linked', () => {
+    const l = levels({ name: 'low', sharedContact: 'shared' });
+    const s = ruledScore(20, null, l, model);
+    expect(s).toBeLessThan(model.linkAt);
+    expect(s).toBeGreaterThan(model.newAt);
+    expect(decidePair(s, l, model)).toBe('review');
   });
   it('names with nothing in common are new whatever their country and legal form', () => {
     const l = levels({ name: 'none', jurisdiction: 'same', legalForm: 'same_family' });
     expect(worthReview(l)).toBe(false);
-    expect(decidePair(ruledScore(7, null, l, 9), l, model)).toBe('new');
+    expect(decidePair(ruledScore(7, null, l, model), l, model)).toBe('new');
     // ... unless they share a contact a person can check
     const shared = { ...l, sharedContact: 'shared' as const };
-    expect(decidePair(ruledScore(7, null, shared, 9), shared, model)).toBe('review');
+    expect(decidePair(ruledScore(7, null, shared, model), shared, model)).toBe('review');
   });
   it('identifiers decide', () => {
-    expect(ruledScore(-50, 'decisive_identifier', levels({ name: 'none' }), 9)).toBe(Infinity);
-    expect(decidePair(ruledScore(50, 'cannot_link', levels({}), 9), levels({}), model)).toBe('new');
+    expect(ruledScore(-50, 'decisive_identifier', levels({ name: 'none' }), model)).toBe(Infinity);
+    expect(decidePair(ruledScore(50, 'cannot_link', levels({}), model), levels({}), model)).toBe('new');
   });
 });
