@@ -33,8 +33,9 @@ import {
 } from '../../resolvers/score/index.ts';
 import type { LabelledRow } from './loadLabelledCsv.ts';
 
-export type Method = 'cpreg' | 'exact' | 'jw';
-export const METHODS: readonly Method[] = ['cpreg', 'exact', 'jw'];
+/** jw: plain Jaro–Winkler over all pairs; jw-candidates: the same rule over cpreg's candidate pairs only. */
+export type Method = 'cpreg' | 'exact' | 'jw' | 'jw-candidates';
+export const METHODS: readonly Method[] = ['cpreg', 'exact', 'jw', 'jw-candidates'];
 /** The plain Jaro–Winkler baseline's threshold on the whole normalised name (issue 5). */
 export const JW_BASELINE_THRESHOLD = 0.9;
 
@@ -118,6 +119,11 @@ export function runEvaluation(rows: readonly LabelledRow[], options: EvaluationO
   const extra: Partial<EvaluationReport> = {};
   if (options.method === 'exact') {
     predicted = records.map((r) => `n:${r.analysis.normalised}`);
+  } else if (options.method === 'jw-candidates') {
+    const idf = buildIdfTable(records.map((r) => r.analysis.tokens));
+    const pairs = timed('blocking', () => candidatePairs(records, { idf, ...options.blocking }));
+    predicted = timed('jw over candidates', () => jwOverCandidates(records, pairs));
+    comparisons = pairs.count;
   } else if (options.method === 'jw') {
     const result = timed('jw all pairs', () => jwComponents(records));
     predicted = result.labels;
@@ -286,6 +292,28 @@ export function sweepThresholds(scores: Float64Array): number[] {
   const out: number[] = [];
   for (let t = lo; t <= hi; t += step) out.push(t);
   return out;
+}
+
+/** JW ≥ 0.9 on the whole normalised name over the given candidate pairs; clusters = connected components. */
+function jwOverCandidates(records: readonly MatchRecord[], pairs: ReturnType<typeof candidatePairs>): string[] {
+  const parent = Int32Array.from({ length: records.length }, (_, i) => i);
+  const find = (i: number): number => {
+    while (parent[i] !== i) {
+      parent[i] = parent[parent[i] as number] as number;
+      i = parent[i] as number;
+    }
+    return i;
+  };
+  for (let k = 0; k < pairs.count; k++) {
+    const i = pairs.left[k] as number;
+    const j = pairs.right[k] as number;
+    if (jaroWinkler(records[i]!.analysis.normalised, records[j]!.analysis.normalised) >= JW_BASELINE_THRESHOLD) {
+      const ri = find(i);
+      const rj = find(j);
+      if (ri !== rj) parent[ri] = rj;
+    }
+  }
+  return records.map((_, i) => `c${find(i)}`);
 }
 
 /**

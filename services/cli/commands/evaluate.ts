@@ -43,7 +43,7 @@ export default function register(program: Command): void {
     .option('--filter <column=value>', 'keep only rows where column=value (repeatable; values of one column are alternatives)', collect, [])
     .option('--exclude <column=value>', 'leave out rows where column=value (repeatable)', collect, [])
     .option('--acronym <column=value>', 'rows where column=value are acronyms (default: one upper-case token of 2-10 characters)')
-    .option('--method <method>', 'cpreg (the full pipeline), exact (equal after normalisation) or jw (Jaro-Winkler >= 0.9)', 'cpreg')
+    .option('--method <method>', 'cpreg (the full pipeline), exact (equal after normalisation), jw (Jaro-Winkler >= 0.9 over all pairs) or jw-candidates (the same over cpreg\'s candidate pairs)', 'cpreg')
     .option('--strip-country-qualifier', 'remove a trailing "(Country name)" display qualifier from names before matching')
     .option('--model <file.json>', 'cpreg: match model to score with (default: the built-in model)')
     .option('--train', "cpreg: re-estimate m and u by EM on this file's candidate pairs (labels are not used)")
