@@ -5,6 +5,7 @@
 import type { AnalyseHints, LegalFormMatch, NameAnalysis } from './types.ts';
 import type { EntityKind } from '../vocabulary.ts';
 import { splitAliases } from './splitAliases.ts';
+import { alternativeNames } from './alternativeNames.ts';
 import { matchPrefixForm, matchSuffixForm } from './matchLegalForm.ts';
 import type { LegalFormSpan } from './matchLegalForm.ts';
 import { extractQualifiers, trailingGroupStart } from './qualifiers.ts';
@@ -97,6 +98,8 @@ export function analyseName(text: string, hints: AnalyseHints = {}): NameAnalysi
     legalForm,
     qualifiers,
     aliases: split.aliases,
+    // An alias is analysed without its own alternatives: one level is enough ("X d/b/a Y" names two spellings).
+    alternatives: hints.noAlternatives ? [] : alternativeNames(tokens.join(' '), split.aliases, (name) => analyseName(name, { ...(country ? { country } : {}), noAlternatives: true })),
     related: split.related,
     partyStatus: verdict.status,
     kind,

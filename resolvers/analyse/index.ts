@@ -10,3 +10,4 @@ export { splitAliases } from './splitAliases.ts';
 export { looksLikePersonName } from './looksLikePersonName.ts';
 export { isPrefixJurisdiction } from './legalFormIndex.ts';
 export { validateCountry } from './narrowCodes.ts';
+export type { NameAlternative } from './alternativeNames.ts';

@@ -1,6 +1,6 @@
 /**
  * Names introduced inside one name string: "X d/b/a Y" (trade), "X f/k/a Y" (former), "X a/k/a Y"
- * (also known as), "X, successor in interest to Y" (a separate entity: related successor_of, never an alias),
+ * (also known as; also a register's short form, "X in forma abbreviata Y", "X en abrégé Y"), "X, successor in interest to Y" (a separate entity: related successor_of, never an alias),
  * and "Y (a trading name of X)", where X is the party and Y its trade name.
  * Markers are matched on words, so no regular expression runs over the untrusted text.
  */
@@ -35,6 +35,15 @@ const MARKERS: readonly Marker[] = [
   { words: ['a', 'k', 'a'], kind: 'also_known_as', compact: true },
   { words: ['aka'], kind: 'also_known_as' },
   { words: ['also', 'known', 'as'], kind: 'also_known_as' },
+  // Register spellings of a short name: Italian "in forma abbreviata" / "in breve" / "enunciabile anche", French
+  // "en abrégé" (as Italian and French company registers write them; common practice).
+  { words: ['o', 'in', 'forma', 'abbreviata'], kind: 'also_known_as' },
+  { words: ['in', 'forma', 'abbreviata'], kind: 'also_known_as' },
+  { words: ['in', 'abbreviato'], kind: 'also_known_as' },
+  { words: ['in', 'breve'], kind: 'also_known_as' },
+  { words: ['enunciabile', 'anche'], kind: 'also_known_as' },
+  { words: ['en', 'abrege'], kind: 'also_known_as' },
+  { words: ['en', 'abr\u00e9g\u00e9'], kind: 'also_known_as' },
   { words: ['successor', 'in', 'interest', 'to'], kind: 'successor_of' },
   { words: ['successor', 'by', 'merger', 'to'], kind: 'successor_of' },
   { words: ['successor', 'to'], kind: 'successor_of' },
@@ -57,7 +66,7 @@ interface Word {
   end: number;
 }
 
-/** ASCII-folded words; markers are ASCII, so other letters only need to break words correctly. */
+/** Lower-cased words; markers are lower-case (one, "abrégé", with its accents), so other letters only need to break words correctly. */
 function words(text: string): Word[] {
   const out: Word[] = [];
   let start = -1;
@@ -66,8 +75,8 @@ function words(text: string): Word[] {
     const isWord = (c >= 0x61 && c <= 0x7a) || (c >= 0x41 && c <= 0x5a) || (c >= 0x30 && c <= 0x39) || c >= 0x80;
     if (isWord && start < 0) start = i;
     else if (!isWord && start >= 0) {
-      // Marker words are at most 10 letters: longer words are never compared, so not lower-cased either.
-      out.push({ text: i - start <= 10 ? text.slice(start, i).toLowerCase() : '', start, end: i });
+      // Marker words are at most 12 letters: longer words are never compared, so not lower-cased either.
+      out.push({ text: i - start <= 12 ? text.slice(start, i).toLowerCase() : '', start, end: i });
       start = -1;
     }
   }

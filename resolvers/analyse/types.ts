@@ -2,6 +2,7 @@
  * The analysis of one name string: the contract between resolvers/analyse and every later stage.
  */
 import type { AliasKind, EntityKind, PartyStatus, RelationType } from '../vocabulary.ts';
+import type { NameAlternative } from './alternativeNames.ts';
 
 export interface LegalFormMatch {
   /** The designator as it stands in the input ("Pty. Ltd.", "GmbH"). */
@@ -26,6 +27,8 @@ export interface NameAnalysis {
   /** Parenthesised place or country qualifiers: "Goldline (Europe) Ltd" → ["europe"]. */
   qualifiers: string[];
   aliases: { kind: AliasKind; name: string }[];
+  /** Other spellings matching also tries: the aliases that name the same party, a Latin transliteration. */
+  alternatives: NameAlternative[];
   related: { relation: RelationType; name: string }[];
   partyStatus: PartyStatus;
   kind: EntityKind;
@@ -34,4 +37,6 @@ export interface NameAnalysis {
 export interface AnalyseHints {
   /** ISO 3166-1 alpha-2 or ISO 3166-2: narrows the legal-form codes ("SA" in FR vs CH). */
   country?: string;
+  /** Internal: analyse an alias without looking for its own alternatives. */
+  noAlternatives?: boolean;
 }

@@ -14,6 +14,7 @@
  *   p:<prefix>         the first 6 letters of the core without spaces: catches a typo in a leading word
  *   b:<2 characters>   character bigrams of names in scripts written without spaces (Han, Kana, Thai, …)
  *   i:<scheme>:<value> each strong identifier; w:<scheme>:<value> each shared (weak) identifier
+ * and the t:, s: and p: keys of the name's other spellings (analysis.alternatives: aliases, a transliteration).
  *
  * Keys depend on the record alone, never on the rest of the register, so a stored key never goes stale. The IDF
  * table only orders them (rarest first) so that a caller with a budget queries the most selective keys first;
@@ -51,6 +52,16 @@ export function blockingKeys(record: MatchRecord, idf?: IdfTable): string[] {
   const compact = core.replaceAll(' ', '');
   if ([...compact].length >= PREFIX_KEY_LENGTH) keys.add(`p:${[...compact].slice(0, PREFIX_KEY_LENGTH).join('')}`);
   for (const bigram of unspacedBigrams(compact)) keys.add(`b:${bigram}`);
+  // Other spellings (aliases, a Latin transliteration) meet their matches through their words and prefix.
+  for (const other of record.analysis.alternatives) {
+    for (const token of other.tokens) {
+      keys.add(`t:${token}`);
+      const chars = [...token];
+      if (chars.length > STEM_LENGTH) keys.add(`s:${chars.slice(0, STEM_LENGTH).join('')}`);
+    }
+    const otherCompact = [...other.core.replaceAll(' ', '')];
+    if (otherCompact.length >= PREFIX_KEY_LENGTH) keys.add(`p:${otherCompact.slice(0, PREFIX_KEY_LENGTH).join('')}`);
+  }
   for (const identifier of record.identifiers ?? []) {
     keys.add(`${isStrongScheme(identifier.scheme) ? 'i' : 'w'}:${identifier.scheme}:${identifier.value}`);
   }

@@ -56,10 +56,58 @@ export function nameLevels(
   b: MatchRecord,
   idf: IdfTable,
   band: () => FeatureLevel<'name'>,
-): { name: FeatureLevel<'name'> | null; distinct: FeatureLevel<'distinct'> | null; difference: NameDifference | null } {
+): NameLevels {
   if (a.analysis.core.length === 0 || b.analysis.core.length === 0) return { name: null, distinct: null, difference: null };
-  const difference = compareNameTokens(a.analysis.tokens, b.analysis.tokens, a.analysis.qualifiers, b.analysis.qualifiers, rareIn(idf));
-  return { name: nameLevelOfKind(difference, () => isInformativeCore(a.analysis.tokens, idf), band), distinct: distinctLevelOf(difference), difference };
+  const isRare = rareIn(idf);
+  const primary = levelsOf(a.analysis.tokens, b.analysis.tokens, a.analysis.qualifiers, b.analysis.qualifiers, idf, isRare, band);
+  if (a.analysis.alternatives.length === 0 && b.analysis.alternatives.length === 0) return primary;
+  // Other spellings (aliases, a Latin transliteration): the strongest agreement of any two spellings speaks.
+  let best = primary;
+  const spellings = (r: MatchRecord): { tokens: readonly string[]; core: string }[] => [r.analysis, ...r.analysis.alternatives];
+  for (const x of spellings(a)) {
+    for (const y of spellings(b)) {
+      if (x === a.analysis && y === b.analysis) continue;
+      const other = levelsOf(x.tokens, y.tokens, a.analysis.qualifiers, b.analysis.qualifiers, idf, isRare, () => bandOf(x, y, idf));
+      if (strength(other.name) < strength(best.name)) best = other;
+    }
+  }
+  return best;
+}
+
+export interface NameLevels {
+  name: FeatureLevel<'name'> | null;
+  distinct: FeatureLevel<'distinct'> | null;
+  difference: NameDifference | null;
+}
+
+function levelsOf(
+  x: readonly string[],
+  y: readonly string[],
+  qx: readonly string[],
+  qy: readonly string[],
+  idf: IdfTable,
+  isRare: (token: string) => boolean,
+  band: () => FeatureLevel<'name'>,
+): NameLevels {
+  const difference = compareNameTokens(x, y, qx, qy, isRare);
+  return { name: nameLevelOfKind(difference, () => isInformativeCore(x, idf), band), distinct: distinctLevelOf(difference), difference };
+}
+
+function bandOf(x: { tokens: readonly string[]; core: string }, y: { tokens: readonly string[]; core: string }, idf: IdfTable): FeatureLevel<'name'> {
+  const soft = softTfIdfWeighted(weighTokens(x.tokens, idf), weighTokens(y.tokens, idf));
+  return nameLevel(false, soft, x.core.length > 0 && y.core.length > 0 ? jaroWinkler(x.core, y.core) : 0);
+}
+
+/**
+ * Name levels from the strongest agreement to the weakest, to pick among spellings (the order of the built-in
+ * model's weights; an exact core outranks the rest).
+ */
+export const NAME_STRENGTH: readonly FeatureLevel<'name'>[] = [
+  'exact', 'near_exact', 'typo', 'abbreviation', 'extra_words', 'very_high', 'extra_activity', 'high', 'exact_weak', 'extra_place', 'medium', 'low', 'none',
+];
+
+function strength(level: FeatureLevel<'name'> | null): number {
+  return level === null ? NAME_STRENGTH.length : NAME_STRENGTH.indexOf(level);
 }
 
 /**

@@ -24,34 +24,34 @@ export const DEFAULT_MATCH_MODEL: MatchModel = {
         "none"
       ],
       "m": [
-        0.406505,
-        0.0225482,
-        0.0310789,
-        0.0892489,
-        0.0155066,
-        0.157133,
-        0.0351197,
-        0.0209899,
-        0.0412393,
-        0.0406378,
-        0.0404527,
-        0.0409515,
-        0.0585881
+        0.409042,
+        0.0227993,
+        0.0310103,
+        0.0892879,
+        0.0154114,
+        0.15429,
+        0.0325297,
+        0.0203931,
+        0.0407412,
+        0.0406135,
+        0.0401847,
+        0.0435307,
+        0.0601669
       ],
       "u": [
-        0.000947103,
-        0.00174487,
-        0.0000533879,
-        0.000208749,
-        0.0000899082,
-        0.00465908,
-        0.0011508,
-        0.00313808,
-        0.00219417,
-        0.00351636,
-        0.0237996,
-        0.232799,
-        0.725699
+        0.000947911,
+        0.0017468,
+        0.0000541715,
+        0.000208726,
+        0.0000897935,
+        0.00466474,
+        0.00114498,
+        0.00314893,
+        0.00219491,
+        0.00361846,
+        0.0245431,
+        0.233757,
+        0.723881
       ]
     },
     "legalForm": {
@@ -62,16 +62,16 @@ export const DEFAULT_MATCH_MODEL: MatchModel = {
         "different_jurisdiction"
       ],
       "m": [
-        0.934563,
-        0.0310498,
-        0.0114692,
-        0.022918
+        0.934651,
+        0.0310278,
+        0.0114427,
+        0.0228783
       ],
       "u": [
-        0.439884,
-        0.109677,
-        0.1012,
-        0.349239
+        0.439007,
+        0.109842,
+        0.101126,
+        0.350025
       ]
     },
     "jurisdiction": {
@@ -81,14 +81,14 @@ export const DEFAULT_MATCH_MODEL: MatchModel = {
         "conflicting"
       ],
       "m": [
-        0.998925,
-        0.000537265,
-        0.000537265
+        0.998942,
+        0.000529157,
+        0.000529157
       ],
       "u": [
-        0.508769,
-        0.000537265,
-        0.490694
+        0.50655,
+        0.000529157,
+        0.492921
       ]
     },
     "acronym": {
@@ -98,14 +98,14 @@ export const DEFAULT_MATCH_MODEL: MatchModel = {
         "none"
       ],
       "m": [
-        0.285368,
-        0.0381405,
-        0.676492
+        0.285179,
+        0.0381379,
+        0.676683
       ],
       "u": [
-        0.262063,
-        0.000467828,
-        0.73747
+        0.262048,
+        0.000466212,
+        0.737486
       ]
     },
     "qualifier": {
@@ -118,8 +118,8 @@ export const DEFAULT_MATCH_MODEL: MatchModel = {
         0.0421685
       ],
       "u": [
-        0.203881,
-        0.796119
+        0.20379,
+        0.79621
       ]
     },
     "sharedContact": {
@@ -148,18 +148,18 @@ export const DEFAULT_MATCH_MODEL: MatchModel = {
         0.247343
       ],
       "u": [
-        0.788382,
-        0.202934,
-        0.00868369
+        0.787036,
+        0.204001,
+        0.00896357
       ]
     }
   },
-  "matchShare": 0.026026251452907694,
-  "linkAt": 9.7033,
-  "newAt": 7.81325,
+  "matchShare": 0.026057944242573544,
+  "linkAt": 9.7104,
+  "newAt": 7.78108,
   "provenance": {
     "method": "labelled",
-    "pairs": 1344282,
-    "note": "labelled candidate pairs, m and u counted per dataset (add-one smoothing) and averaged: LEI dev 420960 pairs (667 true); ROR dev companies 361360 pairs (13620 true); generated (20000 names, seed 7) 561962 pairs (21806 true); linkAt: lowest threshold whose clusters have pairwise precision >= 0.99 in every dataset; newAt: lowest score with >= 0.5 true matches among review pairs in every dataset; rebuild: node bin/run-ts.js scripts/build-model.ts; linkAt per dataset: LEI dev 9.703, ROR dev companies 7.428, generated (20000 names, seed 7) 7.428; newAt per dataset: LEI dev 7.813, ROR dev companies -0.660, generated (20000 names, seed 7) -8.754"
+    "pairs": 1345564,
+    "note": "labelled candidate pairs, m and u counted per dataset (add-one smoothing) and averaged: LEI dev 421876 pairs (678 true); ROR dev companies 361726 pairs (13660 true); generated (20000 names, seed 7) 561962 pairs (21806 true); linkAt: lowest threshold whose clusters have pairwise precision >= 0.99 in every dataset; newAt: lowest score with >= 0.5 true matches among review pairs in every dataset; rebuild: node bin/run-ts.js scripts/build-model.ts; linkAt per dataset: LEI dev 9.710, ROR dev companies 7.417, generated (20000 names, seed 7) 7.417; newAt per dataset: LEI dev 7.781, ROR dev companies -0.712, generated (20000 names, seed 7) -8.803"
   }
 };

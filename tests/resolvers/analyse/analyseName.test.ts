@@ -341,8 +341,9 @@ describe('output', () => {
     const input = '  Goldline (Europe) Ltd d/b/a Goldline Direct ';
     const a = analyseName(input);
     expect(Object.keys(a).sort()).toEqual(
-      ['aliases', 'core', 'input', 'kind', 'legalForm', 'normalised', 'partyStatus', 'qualifiers', 'related', 'tokens'].sort(),
+      ['aliases', 'alternatives', 'core', 'input', 'kind', 'legalForm', 'normalised', 'partyStatus', 'qualifiers', 'related', 'tokens'].sort(),
     );
+    expect(a.alternatives).toEqual([{ kind: 'alias', tokens: ['goldline', 'direct'], core: 'goldline direct' }]);
     expect(a.input).toBe(input);
     expect(a.tokens).toEqual(a.core.split(' '));
     expect(input).toContain(a.legalForm?.text);
