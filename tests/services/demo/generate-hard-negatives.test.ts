@@ -31,6 +31,12 @@ const originals = new Map(rows.filter((r) => r.variantKind === 'original').map((
 const siblings = [...originals.values()].filter((r) => r.siblingOf !== undefined);
 const ofKind = (kind: SiblingKind): GeneratedNameRow[] => siblings.filter((r) => r.siblingKind === kind);
 const imitated = (r: GeneratedNameRow): GeneratedNameRow => originals.get(r.siblingOf!)!;
+/** Each sibling of a kind with the entity it imitates; the kind occurs more than 10 times. */
+const pairsOfKind = (kind: SiblingKind): { s: GeneratedNameRow; of: GeneratedNameRow }[] => {
+  const found = ofKind(kind);
+  expect(found.length).toBeGreaterThan(10);
+  return found.map((s) => ({ s, of: imitated(s) }));
+};
 
 /** Legal forms the generator writes, longest first, so that "Pty Ltd" is found before "Ltd". */
 const FORMS = [...new Set(Object.values(LEGAL_FORMS).flatMap((families) => families.map((f) => f.canonical)))].sort((a, b) => b.length - a.length);
@@ -94,10 +100,8 @@ describe('generateNames: hard negatives', () => {
   });
 
   it('activity: the same coined word, descriptor, legal form and jurisdiction, one activity word other', () => {
-    const found = ofKind('activity');
-    expect(found.length).toBeGreaterThan(10);
-    for (const s of found) {
-      const of = imitated(s);
+    const found = pairsOfKind('activity');
+    for (const { s, of } of found) {
       expect(s.country).toBe(of.country);
       const a = s.name.split(' ');
       const b = of.name.split(' ');
@@ -113,12 +117,10 @@ describe('generateNames: hard negatives', () => {
   });
 
   it('series: the same name with a series number before the legal form, or the next number of a series', () => {
-    const found = ofKind('series');
-    expect(found.length).toBeGreaterThan(10);
+    const found = pairsOfKind('series');
     let numberedPairs = 0;
     const styles = new Set<string>();
-    for (const s of found) {
-      const of = imitated(s);
+    for (const { s, of } of found) {
       expect(s.country).toBe(of.country);
       const mine = splitForm(s.name);
       const theirs = splitForm(of.name);
@@ -144,10 +146,8 @@ describe('generateNames: hard negatives', () => {
   });
 
   it('place: the parent name with a country or region qualifier before the same legal form, same jurisdiction', () => {
-    const found = ofKind('place');
-    expect(found.length).toBeGreaterThan(10);
-    for (const s of found) {
-      const of = imitated(s);
+    const found = pairsOfKind('place');
+    for (const { s, of } of found) {
       expect(s.country).toBe(of.country);
       const mine = splitForm(s.name);
       const theirs = splitForm(of.name);
@@ -157,20 +157,18 @@ describe('generateNames: hard negatives', () => {
       const allowed = [...COUNTRY_QUALIFIERS[countryOf(s.country)]!, ...REGION_QUALIFIERS];
       expect(allowed, s.name).toContain(qualifier);
     }
-    expect(found.some((s) => s.name.includes('('))).toBe(true);
+    expect(found.some(({ s }) => s.name.includes('('))).toBe(true);
   });
 
   it('branch: the head office name followed by a branch of a city in the branch’s jurisdiction', () => {
-    const found = ofKind('branch');
-    expect(found.length).toBeGreaterThan(10);
-    for (const s of found) {
-      const of = imitated(s);
+    const found = pairsOfKind('branch');
+    for (const { s, of } of found) {
       expect(s.name.startsWith(of.name), `${of.name} / ${s.name}`).toBe(true);
       expect(branchPhrases(s.country), s.name).toContain(s.name.slice(of.name.length));
     }
     // Both a branch at home and a branch abroad.
-    expect(found.some((s) => s.country === imitated(s).country)).toBe(true);
-    expect(found.some((s) => s.country !== imitated(s).country)).toBe(true);
+    expect(found.some(({ s, of }) => s.country === of.country)).toBe(true);
+    expect(found.some(({ s, of }) => s.country !== of.country)).toBe(true);
   });
 
   it('keeps in every variant of a hard negative what sets it apart, so no variant is a name of the entity it imitates', () => {
