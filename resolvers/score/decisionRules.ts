@@ -14,8 +14,8 @@
  *     worth a person's time unless a contact is shared);
  *   - a distinguishing word differs: a series number ("Fund II" / "Fund III"), a branch ("… London Branch"), or
  *     another activity word of one group ("Alder Securities" / "Alder Bank"). Measured on the LEI names, such pairs
- *     are almost never one company, so the score is capped just below newAt: a strong negative, new, and a
- *     conflict that keeps a cluster from joining the two through a third name.
+ *     are almost never one company, so the score is capped below newAt and below CONFLICT_BELOW: a strong
+ *     negative, new, and a conflict that keeps a cluster from joining the two through a third name.
  */
 import type { ComparisonLevels, FeatureLevel } from './features.ts';
 import { FEATURE_LEVELS, FEATURE_NAMES } from './features.ts';
@@ -28,6 +28,13 @@ const DISTINCT_HOLDS_BACK: ReadonlySet<FeatureLevel<'distinct'>> = new Set(['num
 
 /** How far below the threshold a held-back pair's score is capped. */
 export const HELD_BACK_MARGIN = 1e-3;
+
+/**
+ * A pair scoring below this many bits is evidence that the two are different entities (the likelihood ratio favours
+ * a non-match): a conflict that keeps their clusters apart. Not newAt: newAt marks where a person is no longer
+ * asked, which can sit well above the point where the evidence turns against a match.
+ */
+export const CONFLICT_BELOW = 0;
 
 /** What holds a pair back: its names disagree, or a distinguishing word differs; null when nothing does. */
 export type Hold = 'names_disagree' | 'distinguishing_word' | null;
@@ -49,7 +56,7 @@ export function linkHeldBackBy(levels: ComparisonLevels): string | null {
 /** The highest score a held-back pair may keep (Infinity when nothing holds it back). */
 export function capOf(hold: Hold, model: Pick<MatchModel, 'linkAt' | 'newAt'>): number {
   if (hold === 'names_disagree') return model.linkAt - HELD_BACK_MARGIN;
-  if (hold === 'distinguishing_word') return model.newAt - HELD_BACK_MARGIN;
+  if (hold === 'distinguishing_word') return Math.min(model.newAt, CONFLICT_BELOW) - HELD_BACK_MARGIN;
   return Infinity;
 }
 
@@ -68,10 +75,11 @@ export function ruledScore(raw: number, override: Override, levels: ComparisonLe
 
 /**
  * How clusters are formed from ruled scores, the same in the register's batches and in `cpreg evaluate`: an edge at
- * or above linkAt joins two clusters unless some scored pair across them is at or below newAt (a conflict).
+ * or above linkAt joins two clusters unless some scored pair across them is below CONFLICT_BELOW (or newAt, when
+ * that is lower): a conflict.
  */
 export function clusterRulesOf(model: Pick<MatchModel, 'linkAt' | 'newAt'>): { linkAt: number; conflictBelow: number } {
-  return { linkAt: model.linkAt, conflictBelow: model.newAt };
+  return { linkAt: model.linkAt, conflictBelow: Math.min(model.newAt, CONFLICT_BELOW) };
 }
 
 /** The decision for one pair from its ruled score (ruledScore) and its levels. */

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { decidePair, linkHeldBackBy, ruledScore, worthReview, type ComparisonLevels } from '../../../resolvers/score/index.ts';
+import { clusterRulesOf, decidePair, linkHeldBackBy, ruledScore, worthReview, type ComparisonLevels } from '../../../resolvers/score/index.ts';
 
 const levels = (over: Partial<ComparisonLevels>): ComparisonLevels => ({
   name: 'exact',
@@ -17,12 +17,13 @@ describe('decisionRules (the one decision logic of the register and the evaluati
   it('links at linkAt when nothing holds the pair back', () => {
     expect(decidePair(ruledScore(10, null, levels({}), model), levels({}), model)).toBe('link');
   });
-  it('a differing series number, branch or activity word is a strong negative: below newAt, new', () => {
+  it('a differing series number, branch or activity word is a strong negative: below newAt and a conflict, new', () => {
     for (const distinct of ['number', 'branch', 'activity'] as const) {
       const l = levels({ distinct });
       expect(linkHeldBackBy(l)).toMatch(distinct);
       const s = ruledScore(20, null, l, model);
       expect(s).toBeLessThan(model.newAt);
+      expect(s).toBeLessThan(clusterRulesOf(model).conflictBelow);
       expect(decidePair(s, l, model)).toBe('new');
     }
   });

@@ -18,6 +18,8 @@ import { createApiKey } from '../../../services/api/auth/keys.ts';
 import { generateScenario } from '../../../services/demo/scenario/index.ts';
 import { writeScenario } from '../../../services/demo/write-scenario.ts';
 import { loadDemo } from '../../../services/demo/run-demo.ts';
+import { createRegisterContext, resolveMention } from '../../../services/register/index.ts';
+import { analyseName } from '../../../resolvers/analyse/index.ts';
 import { makeTempDir, openTestDatabase, removeTempDir, type TestDatabase } from '../../support/index.ts';
 
 const CHROMIUM = '/usr/bin/chromium';
@@ -116,6 +118,7 @@ beforeAll(async () => {
   database = await openTestDatabase('pglite');
   const load = await loadDemo({ db: database.db, scenario, filesDir, actor: 'demo loader' });
   expect(load.interrupted).toBe(false);
+  await addPairsToReview(database);
 
   app = await buildApp({ db: database.db, backend: 'pglite', rateLimitPerMinute: false });
   adminKey = (await createApiKey(database.db, { scope: 'admin', label: 'R. Okafor (legal ops)' })).secret;
@@ -145,6 +148,21 @@ afterAll(async () => {
   if (filesDir) removeTempDir(filesDir);
   if (profileDir) rmSync(profileDir, { recursive: true, force: true });
 });
+
+/**
+ * The register sends few pairs to a person now, so the queue these tests decide is filled on purpose: each of six
+ * counterparties is mentioned by its core name alone, with no legal form and no country. An equal name with nothing
+ * else to confirm it is below linkAt and well above newAt: a person decides. The fixture checks that it did.
+ */
+async function addPairsToReview(db: TestDatabase): Promise<void> {
+  const ctx = createRegisterContext(db.db);
+  const counterparties = await db.db.selectFrom('counterparty').select(['id', 'canonical_name']).where('status', '=', 'active').orderBy('id').limit(6).execute();
+  for (const [i, cp] of counterparties.entries()) {
+    const core = analyseName(cp.canonical_name).core;
+    const result = await resolveMention(ctx, { source: 'console-test', externalId: `review-${i}`, text: core }, { actor: 'console test' });
+    expect(result.status, `"${core}" against "${cp.canonical_name}"`).toBe('review');
+  }
+}
 
 function pageErrors(): string[] {
   return (globalThis as { consolePageErrors?: string[] }).consolePageErrors ?? [];
