@@ -4,7 +4,8 @@
  *
  *   link    a decisive strong identifier, or a score at or above linkAt that no rule below holds back
  *   review  a score between newAt and linkAt that a person can judge: the names agree at least in part
- *           (name level above "low"), or the pair shares a contact (phone, domain, bank account)
+ *           (name level above "low"), or the pair shares a contact (phone, domain, bank account); names that agree
+ *           closely (equal, near-equal, one typo, an abbreviation) down to CONFLICT_BELOW
  *   new     a cannot-link, a score at or below newAt, or names with nothing in common: country and legal form
  *           alone never send a pair to a person
  *
@@ -82,12 +83,24 @@ export function clusterRulesOf(model: Pick<MatchModel, 'linkAt' | 'newAt'>): { l
   return { linkAt: model.linkAt, conflictBelow: Math.min(model.newAt, CONFLICT_BELOW) };
 }
 
+/**
+ * Names that agree closely: equal, or equal but for spacing, order, one typo or an abbreviation. Such a pair is worth a
+ * person's time down to CONFLICT_BELOW even when context pulls its score under newAt ("Kestrel Tooling GmbH" /
+ * "Kestrel Tooling AG": one company converted, or two; a person can tell). Other pairs are reviewed above newAt only.
+ */
+const CLOSE_NAMES: ReadonlySet<FeatureLevel<'name'>> = new Set(['exact', 'near_exact', 'typo', 'abbreviation']);
+
 /** The decision for one pair from its ruled score (ruledScore) and its levels. */
 export function decidePair(score: number, levels: ComparisonLevels, model: Pick<MatchModel, 'linkAt' | 'newAt'>): Decision {
   if (score === Infinity) return 'link';
-  if (score === -Infinity || score <= model.newAt) return 'new';
+  if (score === -Infinity) return 'new';
   if (score >= model.linkAt) return 'link';
-  return worthReview(levels) ? 'review' : 'new';
+  return reviewable(score, worthReview(levels), levels.name !== null && CLOSE_NAMES.has(levels.name), model) ? 'review' : 'new';
+}
+
+function reviewable(score: number, worth: boolean, close: boolean, model: Pick<MatchModel, 'newAt'>): boolean {
+  if (!worth) return false;
+  return score > model.newAt || (close && score > Math.min(model.newAt, CONFLICT_BELOW));
 }
 
 /**
@@ -99,6 +112,7 @@ export interface IndexedRules {
   distinct: number;
   sharedContact: number;
   nameDisagrees: boolean[];
+  nameClose: boolean[];
   distinctHoldsBack: boolean[];
   shared: number;
 }
@@ -109,6 +123,7 @@ export function indexedRules(): IndexedRules {
     distinct: FEATURE_NAMES.indexOf('distinct'),
     sharedContact: FEATURE_NAMES.indexOf('sharedContact'),
     nameDisagrees: FEATURE_LEVELS.name.map((l) => NAME_DISAGREES.has(l)),
+    nameClose: FEATURE_LEVELS.name.map((l) => CLOSE_NAMES.has(l)),
     distinctHoldsBack: FEATURE_LEVELS.distinct.map((l) => DISTINCT_HOLDS_BACK.has(l)),
     shared: FEATURE_LEVELS.sharedContact.indexOf('shared'),
   };
@@ -127,4 +142,13 @@ export function worthReviewAt(levels: Int8Array, row: number, rules: IndexedRule
   if ((levels[row + rules.sharedContact] as number) === rules.shared) return true;
   const name = levels[row + rules.name] as number;
   return name < 0 || rules.nameDisagrees[name] !== true;
+}
+
+/** decidePair over one row of level indices and its ruled score. */
+export function decidePairAt(score: number, levels: Int8Array, row: number, rules: IndexedRules, model: Pick<MatchModel, 'linkAt' | 'newAt'>): Decision {
+  if (score === Infinity) return 'link';
+  if (score === -Infinity) return 'new';
+  if (score >= model.linkAt) return 'link';
+  const name = levels[row + rules.name] as number;
+  return reviewable(score, worthReviewAt(levels, row, rules), name >= 0 && rules.nameClose[name] === true, model) ? 'review' : 'new';
 }

@@ -18,7 +18,7 @@ import {
   type SweepPoint,
 } from '../../resolvers/evaluate/index.ts';
 import { seededRandom } from '../../resolvers/prng.ts';
-import { indexedRules, worthReviewAt } from '../../resolvers/score/decisionRules.ts';
+import { decidePairAt, indexedRules } from '../../resolvers/score/decisionRules.ts';
 import {
   clusterRulesOf,
   compareCandidates,
@@ -234,22 +234,20 @@ function runCpreg(
 function outcomesOf(labels: readonly string[], gold: readonly string[], compared: ReturnType<typeof compareCandidates>, scores: Float64Array, model: { linkAt: number; newAt: number }): Outcomes {
   const size = new Map<string, number>();
   for (const label of labels) size.set(label, (size.get(label) ?? 0) + 1);
+  // Each record's best pair (as the register takes a mention's best candidate) and what the rules decide for it.
   const bestScore = new Float64Array(labels.length).fill(-Infinity);
-  const bestOther = new Int32Array(labels.length).fill(-1);
-  const bestWorth = new Uint8Array(labels.length);
-  const rules = indexedRules();
-  const width = FEATURE_NAMES.length;
+  const bestPair = new Int32Array(labels.length).fill(-1);
   for (let k = 0; k < compared.pairs.count; k++) {
     const s = scores[k] as number;
-    const worth = worthReviewAt(compared.levels, k * width, rules) ? 1 : 0;
-    for (const [i, j] of [[compared.pairs.left[k]!, compared.pairs.right[k]!], [compared.pairs.right[k]!, compared.pairs.left[k]!]] as const) {
+    for (const i of [compared.pairs.left[k]!, compared.pairs.right[k]!]) {
       if (s > bestScore[i]!) {
         bestScore[i] = s;
-        bestOther[i] = j;
-        bestWorth[i] = worth;
+        bestPair[i] = k;
       }
     }
   }
+  const rules = indexedRules();
+  const width = FEATURE_NAMES.length;
   let linked = 0;
   let review = 0;
   let reviewTrue = 0;
@@ -258,11 +256,11 @@ function outcomesOf(labels: readonly string[], gold: readonly string[], compared
       linked++;
       return;
     }
-    const s = bestScore[i]!;
-    if (s > model.newAt && s < model.linkAt && bestWorth[i] === 1) {
-      review++;
-      if (gold[bestOther[i]!] === gold[i]) reviewTrue++;
-    }
+    const k = bestPair[i]!;
+    if (k < 0 || decidePairAt(bestScore[i]!, compared.levels, k * width, rules, model) !== 'review') return;
+    review++;
+    const other = compared.pairs.left[k] === i ? compared.pairs.right[k]! : compared.pairs.left[k]!;
+    if (gold[other] === gold[i]) reviewTrue++;
   });
   const n = labels.length;
   return {

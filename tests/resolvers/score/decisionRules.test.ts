@@ -42,6 +42,15 @@ describe('decisionRules (the one decision logic of the register and the evaluati
     const shared = { ...l, sharedContact: 'shared' as const };
     expect(decidePair(ruledScore(7, null, shared, model), shared, model)).toBe('review');
   });
+  it('names that agree closely go to a person down to 0 bits; other names only above newAt', () => {
+    // "Kestrel Tooling GmbH" / "Kestrel Tooling AG" in one country: equal names, conflicting forms.
+    const close = levels({ name: 'exact', legalForm: 'conflicting', jurisdiction: 'same' });
+    expect(decidePair(3, close, model)).toBe('review');
+    expect(decidePair(-0.5, close, model)).toBe('new');
+    const partial = levels({ name: 'extra_words' });
+    expect(decidePair(3, partial, model)).toBe('new');
+    expect(decidePair(7, partial, model)).toBe('review');
+  });
   it('identifiers decide', () => {
     expect(ruledScore(-50, 'decisive_identifier', levels({ name: 'none' }), model)).toBe(Infinity);
     expect(decidePair(ruledScore(50, 'cannot_link', levels({}), model), levels({}), model)).toBe('new');

@@ -10,7 +10,7 @@ describe('cpreg analyse', () => {
     expect(result.code).toBe(0);
     const analysis = JSON.parse(result.stdout) as Record<string, unknown>;
     expect(Object.keys(analysis).sort()).toEqual(
-      ['aliases', 'core', 'input', 'kind', 'legalForm', 'normalised', 'partyStatus', 'qualifiers', 'related', 'tokens'].sort(),
+      ['aliases', 'alternatives', 'core', 'input', 'kind', 'legalForm', 'normalised', 'partyStatus', 'qualifiers', 'related', 'tokens'].sort(),
     );
     expect(analysis.input).toBe('Halvern Textiles Ltd');
     expect(analysis.core).toBe('halvern textiles');
