@@ -23,6 +23,12 @@ import type { StagedRow } from './submit-ingest.ts';
 export interface PartitionItem {
   line: number;
   mention: MentionInput;
+  /**
+   * Items of the same partition (by index) this one is compared with: the plan's candidate pairs over the whole
+   * job, kept so that the partition compares exactly those (register/batch.ts comparePairs). Absent in plans made
+   * before it was kept: the partition then blocks by itself.
+   */
+  compareWith?: number[];
 }
 
 /** A linking pair across partitions: the two mentions' (source, externalId) and the pair's score. */
@@ -113,7 +119,19 @@ export async function planIngest(deps: JobDeps, jobId: number): Promise<{ partit
   const partitionSize = Number(job.params.partitionSize ?? PARTITION_DEFAULTS.partitionSize);
   const cut = partitionRecords(records.length, pairs.left.subarray(0, pairs.count), pairs.right.subarray(0, pairs.count), scores, { linkAt: model.linkAt, targetSize: partitionSize });
   const partitions: PartitionItem[][] = Array.from({ length: cut.count }, () => []);
-  fresh.forEach((v, i) => partitions[cut.partitionOf[i]!]!.push(v.item));
+  const at = new Int32Array(fresh.length);
+  fresh.forEach((v, i) => {
+    const partition = partitions[cut.partitionOf[i]!]!;
+    at[i] = partition.length;
+    partition.push({ ...v.item });
+  });
+  for (let k = 0; k < pairs.count; k++) {
+    const i = pairs.left[k]!;
+    const j = pairs.right[k]!;
+    if (cut.partitionOf[i] !== cut.partitionOf[j]) continue;
+    const item = partitions[cut.partitionOf[i]!]![at[i]!]!;
+    (item.compareWith ??= []).push(at[j]!);
+  }
   const identityOf = (i: number): [string, string] => [fresh[i]!.prepared.input.source, fresh[i]!.prepared.input.externalId];
   const plan: IngestPlan = {
     partitions: cut.count,

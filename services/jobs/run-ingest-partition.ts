@@ -7,7 +7,7 @@
  */
 import { finishPartition, readJob, readPartition, startPartition } from '../../db/queries/jobs.ts';
 import { emptyCounts, storedHashes } from '../ingest/run-ingest.ts';
-import { resolveBatch } from '../register/batch.ts';
+import { resolveBatch, type BatchOptions } from '../register/batch.ts';
 import { prepareMention } from '../register/resolve/prepare.ts';
 import { MAX_LISTED_REJECTS, type JobDeps } from './deps.ts';
 import { queueFinishWhenAllDone } from './finish-guard.ts';
@@ -21,6 +21,15 @@ export interface PartitionResult {
   worker: string;
   /** The partition's mentions as (source, externalId): which partition a name fell in, for reports and audits. */
   members: [string, string][];
+}
+
+/** The plan's pairs of this partition by (source, externalId) key, or no option when the plan did not keep them. */
+function plannedPairs(items: readonly PartitionItem[]): BatchOptions {
+  if (!items.some((i) => i.compareWith !== undefined)) return {};
+  const key = (i: PartitionItem): string => `${i.mention.source}\u0000${i.mention.externalId}`;
+  const comparePairs: [string, string][] = [];
+  for (const item of items) for (const j of item.compareWith ?? []) comparePairs.push([key(item), key(items[j]!)]);
+  return { comparePairs };
 }
 
 export async function runIngestPartition(deps: JobDeps, jobId: number, partitionNo: number): Promise<void> {
@@ -43,7 +52,7 @@ export async function runIngestPartition(deps: JobDeps, jobId: number, partition
       }
       return true;
     });
-    const results = fresh.length === 0 ? [] : await resolveBatch(deps.ctx, fresh.map((i) => i.mention), { actor: job.actor, reason: `job ${jobId} partition ${partitionNo}` });
+    const results = fresh.length === 0 ? [] : await resolveBatch(deps.ctx, fresh.map((i) => i.mention), { actor: job.actor, reason: `job ${jobId} partition ${partitionNo}` }, plannedPairs(items));
     results.forEach((result, i) => {
       counts.read!++;
       if (result.status === 'rejected') {

@@ -59,7 +59,17 @@ function sortKey(p: PreparedMention): string {
   return `${p.input.source}\u0000${p.input.externalId}`;
 }
 
-export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[], who: ActorInput): Promise<BatchItemResult[]> {
+/** Options of resolveBatch. */
+export interface BatchOptions {
+  /**
+   * The pairs of the batch's mentions to compare, by (source, externalId) sort key (`${source}\u0000${externalId}`),
+   * instead of the batch's own blocking: a partition of a job compares exactly the pairs its plan compared over the
+   * whole job, so that a job cut into partitions clusters as the whole batch does. Default: the batch's blocking.
+   */
+  comparePairs?: readonly (readonly [string, string])[];
+}
+
+export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[], who: ActorInput, options: BatchOptions = {}): Promise<BatchItemResult[]> {
   const results: BatchItemResult[] = new Array(inputs.length);
   const pending: Pending[] = [];
   const seen = new Map<string, number>();
@@ -116,7 +126,7 @@ export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[],
   // Mentions whose outcome does not depend on the rest of the batch.
   const final = new Set(pending.filter((p) => !['linked', 'new', 'review'].includes(p.outcome.status) || p.outcome.evidence.via !== 'register' || p.outcome.evidence.override === 'decisive_identifier'));
   const matching = pending.filter((p) => !final.has(p));
-  const groups = await clusterBatch(ctx, matching, model, reads);
+  const groups = await clusterBatch(ctx, matching, model, reads, options.comparePairs);
   const plan: { members: Pending[]; counterpartyId: number | null }[] = [...final].map((p) => ({ members: [p], counterpartyId: null }));
   for (const g of groups) plan.push(g);
   plan.sort((a, b) => (a.members[0]!.key < b.members[0]!.key ? -1 : a.members[0]!.key > b.members[0]!.key ? 1 : 0));
@@ -187,6 +197,7 @@ async function clusterBatch(
   matching: Pending[],
   model: Awaited<ReturnType<typeof currentModel>>['model'],
   reads: BatchReads,
+  comparePairs: BatchOptions['comparePairs'],
 ): Promise<{ members: Pending[]; counterpartyId: number | null }[]> {
   if (matching.length === 0) return [];
   const byKey = [...matching].sort((a, b) => (a.key < b.key ? -1 : 1));
@@ -209,7 +220,7 @@ async function clusterBatch(
       else edges.push({ a: `m:${p.key}`, b: cpNode, score: c.score });
     }
   }
-  const pairs = candidatePairs(records, { idf });
+  const pairs = comparePairs ? pairsByKey(byKey, comparePairs) : candidatePairs(records, { idf });
   for (let i = 0; i < pairs.count; i++) {
     const a = records[pairs.left[i]!]!;
     const b = records[pairs.right[i]!]!;
@@ -258,6 +269,21 @@ async function clusterBatch(
     out.push({ members, counterpartyId: cp ? Number(cp.slice(3)) : null });
   }
   return out;
+}
+
+/** The given pairs of sort keys as index pairs into `byKey` (pairs naming a mention not in it are left out). */
+function pairsByKey(byKey: readonly Pending[], keys: readonly (readonly [string, string])[]): { left: Int32Array; right: Int32Array; count: number } {
+  const index = new Map(byKey.map((p, i) => [p.key, i]));
+  const left: number[] = [];
+  const right: number[] = [];
+  for (const [a, b] of keys) {
+    const i = index.get(a);
+    const j = index.get(b);
+    if (i === undefined || j === undefined || i === j) continue;
+    left.push(i);
+    right.push(j);
+  }
+  return { left: Int32Array.from(left), right: Int32Array.from(right), count: left.length };
 }
 
 /** Ids of stored mentions (with their counterparty) by sort key, in one statement. */
