@@ -294,7 +294,18 @@ export function sweepThresholds(scores: Float64Array): number[] {
 
 /** JW ≥ 0.9 on the whole normalised name over the given candidate pairs; clusters = connected components. */
 function jwOverCandidates(records: readonly MatchRecord[], pairs: ReturnType<typeof candidatePairs>): string[] {
-  const parent = Int32Array.from({ length: records.length }, (_, i) => i);
+  const components = unionFind(records.length);
+  for (let k = 0; k < pairs.count; k++) {
+    const i = pairs.left[k] as number;
+    const j = pairs.right[k] as number;
+    if (jaroWinkler(records[i]!.analysis.normalised, records[j]!.analysis.normalised) >= JW_BASELINE_THRESHOLD) components.union(i, j);
+  }
+  return records.map((_, i) => `c${components.find(i)}`);
+}
+
+/** Connected components over n items (path halving): the baselines' clustering. */
+function unionFind(n: number): { find: (i: number) => number; union: (i: number, j: number) => void } {
+  const parent = Int32Array.from({ length: n }, (_, i) => i);
   const find = (i: number): number => {
     while (parent[i] !== i) {
       parent[i] = parent[parent[i] as number] as number;
@@ -302,16 +313,14 @@ function jwOverCandidates(records: readonly MatchRecord[], pairs: ReturnType<typ
     }
     return i;
   };
-  for (let k = 0; k < pairs.count; k++) {
-    const i = pairs.left[k] as number;
-    const j = pairs.right[k] as number;
-    if (jaroWinkler(records[i]!.analysis.normalised, records[j]!.analysis.normalised) >= JW_BASELINE_THRESHOLD) {
+  return {
+    find,
+    union: (i, j) => {
       const ri = find(i);
       const rj = find(j);
       if (ri !== rj) parent[ri] = rj;
-    }
-  }
-  return records.map((_, i) => `c${find(i)}`);
+    },
+  };
 }
 
 /**
@@ -323,14 +332,7 @@ function jwOverCandidates(records: readonly MatchRecord[], pairs: ReturnType<typ
 function jwComponents(records: readonly MatchRecord[]): { labels: string[]; comparisons: number } {
   const names = records.map((r) => r.analysis.normalised);
   const order = names.map((_, i) => i).sort((x, y) => (names[x] as string).length - (names[y] as string).length);
-  const parent = Int32Array.from({ length: names.length }, (_, i) => i);
-  const find = (i: number): number => {
-    while (parent[i] !== i) {
-      parent[i] = parent[parent[i] as number] as number;
-      i = parent[i] as number;
-    }
-    return i;
-  };
+  const components = unionFind(names.length);
   let comparisons = 0;
   for (let x = 0; x < order.length; x++) {
     const i = order[x] as number;
@@ -340,12 +342,8 @@ function jwComponents(records: readonly MatchRecord[]): { labels: string[]; comp
       const b = names[j] as string;
       if (a.length < 0.5 * b.length) break;
       comparisons++;
-      if (jaroWinkler(a, b) >= JW_BASELINE_THRESHOLD) {
-        const ri = find(i);
-        const rj = find(j);
-        if (ri !== rj) parent[ri] = rj;
-      }
+      if (jaroWinkler(a, b) >= JW_BASELINE_THRESHOLD) components.union(i, j);
     }
   }
-  return { labels: names.map((_, i) => `c${find(i)}`), comparisons };
+  return { labels: names.map((_, i) => `c${components.find(i)}`), comparisons };
 }

@@ -1,6 +1,6 @@
 // The scale generator's hard negatives (docs/generator.md, "Hard negatives"): new entities whose original
 // names imitate another entity's and differ in one intended way only.
-import { readFileSync } from 'node:fs';
+import { rorNames } from './ror-names.ts';
 import { describe, expect, it } from 'vitest';
 import {
   BRANCH_CITIES,
@@ -189,13 +189,7 @@ describe('generateNames: hard negatives', () => {
   });
 
   it('names no organisation that appears in the ROR open dataset (the names are invented)', () => {
-    // ../shared/datasets/ror_org_names.csv: names of real research organisations (as in scenario.test.ts).
-    const ror = new Set(
-      readFileSync(new URL('../../../../shared/datasets/ror_org_names.csv', import.meta.url), 'utf8')
-        .split('\n')
-        .slice(1)
-        .map((line) => (line.split(',')[1] ?? '').toLowerCase()),
-    );
+    const ror = rorNames();
     expect(ror.size).toBeGreaterThan(10_000);
     for (const s of siblings) {
       expect(ror.has(s.name.toLowerCase()), s.name).toBe(false);

@@ -1,6 +1,6 @@
-import { readFileSync } from 'node:fs';
 import { parse } from 'csv-parse/sync';
 import { isValidIBAN } from 'ibantools';
+import { rorNames } from './ror-names.ts';
 import { describe, expect, it } from 'vitest';
 import { normaliseIdentifier } from '../../../resolvers/identifiers/index.ts';
 import { generateScenario, MENTION_STYLES, DRAFTING_STYLES, splitLegalName, type Scenario } from '../../../services/demo/scenario/index.ts';
@@ -188,13 +188,7 @@ describe.each(SEEDS)('generateScenario(%i): ground truth is consistent', (seed) 
 
 describe('generateScenario: invented names', () => {
   it('names no organisation that appears in the ROR open dataset (a check that the names are not real ones)', () => {
-    // ../shared/datasets/ror_org_names.csv: names of real research organisations (README there).
-    const ror = new Set(
-      readFileSync(new URL('../../../../shared/datasets/ror_org_names.csv', import.meta.url), 'utf8')
-        .split('\n')
-        .slice(1)
-        .map((line) => (line.split(',')[1] ?? '').toLowerCase()),
-    );
+    const ror = rorNames();
     expect(ror.size).toBeGreaterThan(10_000);
     for (const c of one.counterparties) {
       expect(ror.has(c.legalName.toLowerCase()), c.legalName).toBe(false);
