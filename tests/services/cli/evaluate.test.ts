@@ -1,5 +1,5 @@
 import { execFile } from 'node:child_process';
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { promisify } from 'node:util';
@@ -89,5 +89,37 @@ describe('cpreg evaluate', () => {
     await expect(cpreg([SAMPLE, '--id', 'entity_id', '--name', 'name', '--filter', 'split'])).rejects.toMatchObject({
       stderr: expect.stringMatching(/--filter expects column=value/),
     });
+  });
+});
+
+describe('cpreg evaluate: the LEI protocol, the three outcomes, the candidate-pair baseline', () => {
+  // Invented names: two entities share "Quarrendon Holdings Ltd" in GB (set aside by the protocol); one entity is
+  // written twice; one pair differs only by a series number.
+  const csv = join(out, 'invented.csv');
+  const rows = [
+    'entity_id,name,country',
+    'E1,Quarrendon Holdings Ltd,GB',
+    'E2,Quarrendon Holdings Ltd,GB',
+    'E3,Velmbruck Fabrication Ltd,GB',
+    'E3,VELMBRUCK FABRICATION LIMITED,GB',
+    'E4,Tollaby Finance II S.r.l.,IT',
+    'E5,Tollaby Finance S.r.l.,IT',
+  ];
+  it('--set-aside-shared-names leaves out the rows two ids share; outcomes add up; jw-candidates runs', async () => {
+    writeFileSync(csv, `${rows.join('\n')}\n`);
+    const args = [csv, '--id', 'entity_id', '--name', 'name', '--country', 'country', '--json'];
+    const all = JSON.parse((await cpreg(args)).stdout);
+    const aside = JSON.parse((await cpreg([...args, '--set-aside-shared-names'])).stdout);
+    expect(all.rows).toBe(6);
+    expect(aside.rows).toBe(4);
+    expect(aside.input.setAsideSharedNames).toBe(2);
+    const o = aside.outcomes;
+    expect(o.linked + o.review + o.new).toBe(4);
+    // The two spellings of E3 link; the series pair (E4 / E5) is kept apart: no false pair.
+    expect(aside.pairwise).toMatchObject({ truePositivePairs: 1, predictedPairs: 1 });
+    const jw = JSON.parse((await cpreg([...args, '--set-aside-shared-names', '--method', 'jw-candidates'])).stdout);
+    expect(jw.method).toBe('jw-candidates');
+    // JW ≥ 0.9 links the series pair too: a plain string threshold has no rule for a series number.
+    expect(jw.pairwise.predictedPairs).toBe(2);
   });
 });
