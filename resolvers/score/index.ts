@@ -9,3 +9,4 @@ export { scorePair, scoreComparison, explainLevels, levelVector, type PairScore,
 export { trainModel, type TrainOptions } from './trainModel.ts';
 export { compareCandidates, comparedVectors, randomPairVectors, scoreCompared, edgesOf, indexedPairsOf, type ComparedPairs } from './compareCandidates.ts';
 export { DEFAULT_MATCH_MODEL } from './defaultModel.ts';
+export { groupKeyOf, rankReviewItems, uncertaintyOf, type RankedReviewItem, type ReviewItemFacts, type ReviewThresholds } from './rankReviewItems.ts';

@@ -43,6 +43,7 @@ export { mergeCounterparties, splitCounterparty, type MergeInput, type MergeResu
 export { addRelation, removeRelation, type RelationInput } from './relations.ts';
 
 // Review
+export { decideReviewGroup, listRankedReviewItems, rankOpenReviewItems, type GroupDecisionResult, type RankedReviewItemDetail } from './review-queue.ts';
 export { listReviewItems, decideReview, type ReviewDecisionInput, type ReviewDecisionResult, type ReviewItemDetail } from './review.ts';
 
 // History

@@ -27,7 +27,15 @@ import { listOpenReviewItems, type ReviewItemView } from '../../db/queries/revie
 import { getMention, type MentionView } from '../../db/queries/mentions.ts';
 import type { Identifier, NameKind } from '../../resolvers/vocabulary.ts';
 
-export type ReviewDecisionInput = { decision: 'same' | 'different'; reason?: string };
+export type ReviewDecisionInput = {
+  decision: 'same' | 'different';
+  reason?: string;
+  /**
+   * `different` on a mention item only: link the mention to this counterparty (made by the same decision on an
+   * earlier item of its group) instead of creating another one. Set by decideReviewGroup, not by callers.
+   */
+  joinCounterpartyId?: number;
+};
 
 export interface ReviewDecisionResult {
   eventId: number;
@@ -43,8 +51,13 @@ export interface ReviewItemDetail extends ReviewItemView {
   right: CounterpartySummary | null;
 }
 
+/** Open review items oldest first (ids after `afterId`), with both sides. */
 export async function listReviewItems(ctx: RegisterContext, page: { afterId?: number; limit?: number } = {}): Promise<ReviewItemDetail[]> {
-  const items = await listOpenReviewItems(ctx.db, page);
+  return detailsOf(ctx, await listOpenReviewItems(ctx.db, page));
+}
+
+/** The items with their mention and both sides' summaries, in the order given. */
+export async function detailsOf(ctx: RegisterContext, items: readonly ReviewItemView[]): Promise<ReviewItemDetail[]> {
   const ids = items.flatMap((i) => [i.rightCounterpartyId, ...(i.leftCounterpartyId === null ? [] : [i.leftCounterpartyId])]);
   const summaries = await getSummaries(ctx.db, ids);
   const out: ReviewItemDetail[] = [];
@@ -104,7 +117,11 @@ export async function decideReview(
     const reason = input.reason ?? who.reason ?? null;
     const peek = await cs.trx.selectFrom('review_item').selectAll().where('id', '=', reviewItemId).executeTakeFirst();
     if (!peek) throw notFound('review item', reviewItemId);
-    const sides = [Number(peek.right_counterparty_id), ...(peek.left_counterparty_id === null ? [] : [Number(peek.left_counterparty_id)])];
+    const sides = [
+      Number(peek.right_counterparty_id),
+      ...(peek.left_counterparty_id === null ? [] : [Number(peek.left_counterparty_id)]),
+      ...(input.joinCounterpartyId === undefined ? [] : [input.joinCounterpartyId]),
+    ];
     await lockActive(cs, sides);
     const item = await cs.require('review_item', reviewItemId);
     if (item.status !== 'open') {
@@ -125,6 +142,12 @@ export async function decideReview(
       }
       if (input.decision === 'same') {
         await linkMentionByPerson(cs, mention, right, who.actor, at, 'linked');
+      } else if (input.joinCounterpartyId !== undefined) {
+        // The group's first mention already became a new counterparty, kept apart from this candidate.
+        const join = survivorFor(cs, input.joinCounterpartyId);
+        await insertCannotLink(cs, { counterpartyId: right, mentionId: mention.id as number, reviewItemId, actor: who.actor, reason, at });
+        await linkMentionByPerson(cs, mention, join, who.actor, at, 'linked');
+        resultId = join;
       } else {
         await insertCannotLink(cs, { counterpartyId: right, mentionId: mention.id as number, reviewItemId, actor: who.actor, reason, at });
         const cp = await createCounterpartyRow(cs, {

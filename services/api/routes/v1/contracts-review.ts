@@ -2,11 +2,12 @@
 import { sql } from 'kysely';
 import { storeContract, type ContractInput } from '../../../register/contracts.ts';
 import { decideReview, listReviewItems, type ReviewDecisionInput } from '../../../register/review.ts';
+import { decideReviewGroup, listRankedReviewItems } from '../../../register/review-queue.ts';
 import { currentModel } from '../../../register/matching/model.ts';
 import { findContractId, getContract } from '../../../../db/queries/contracts.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import type { RoutePlugin } from '../../types.ts';
-import { ID_PARAM, MENTION_OUT, PAGE_QUERY, REASON, SOURCE_ID, actorOf, decodeCursor, page, pagedOf, v1Scope } from './common.ts';
+import { ID_PARAM, MENTION_OUT, PAGE_QUERY, REASON, SOURCE_ID, actorOf, decodeCursor, encodeCursor, page, pagedOf, v1Scope } from './common.ts';
 import { RESOLVE_OUT } from './mentions.ts';
 import { withLegalForm } from './legal-form.ts';
 
@@ -46,6 +47,8 @@ const CONTRACT_OUT = {
 } as const;
 
 const SUMMARY = { type: 'object', properties: { id: { type: 'integer' }, canonicalName: { type: 'string' }, jurisdiction: { type: 'string', nullable: true }, status: { type: 'string' }, version: { type: 'integer' } } } as const;
+
+const DECISION_OUT = { eventId: { type: 'integer' }, reviewItemId: { type: 'integer' }, decision: { type: 'string' }, counterpartyId: { type: 'integer', nullable: true } } as const;
 
 /** The review list also says how many items are open in all (the console's counter). */
 function withOpenCount(schema: object): object {
@@ -156,14 +159,23 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
     },
   );
 
-  app.get<{ Querystring: { cursor?: string; limit: number } }>(
+  app.get<{ Querystring: { cursor?: string; limit: number; order: 'priority' | 'oldest' } }>(
     '/v1/review-items',
     {
       config: { scope: 'read' },
       schema: {
-        summary: 'Open review items, oldest first, with both sides, the score and its explanation',
+        summary: 'Open review items, with both sides, the score and its explanation; most worth deciding first, or oldest first',
+        description:
+          'order=priority (the default): groups of items one decision settles (the same spelling of a name waiting on the same candidate) ' +
+          'ranked by contracts affected × (0.5 + 0.5 × uncertainty), where uncertainty is 1 midway between newAt and linkAt; ' +
+          'the items of a group come together. The order is recomputed on every call: after deciding, ask again from the start. ' +
+          'order=oldest: in id order.',
         tags: ['review'],
-        querystring: { type: 'object', additionalProperties: false, properties: PAGE_QUERY },
+        querystring: {
+          type: 'object',
+          additionalProperties: false,
+          properties: { ...PAGE_QUERY, order: { type: 'string', enum: ['priority', 'oldest'], default: 'priority' } },
+        },
         response: {
           200: withOpenCount(pagedOf({
             type: 'object',
@@ -180,20 +192,36 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
               mention: { ...MENTION_OUT, nullable: true },
               left: { ...SUMMARY, nullable: true },
               right: { ...SUMMARY, nullable: true },
+              priority: { type: 'number', description: 'order=priority: the group\'s rank value (higher first)' },
+              uncertainty: { type: 'number', description: 'order=priority: 1 midway between the thresholds, 0 at either' },
+              group: {
+                type: 'object',
+                description: 'order=priority: the open items one decision settles (scope "group" on the decision)',
+                properties: { key: { type: 'string' }, size: { type: 'integer' }, itemIds: { type: 'array', items: { type: 'integer' } }, contracts: { type: 'integer' } },
+              },
             },
           })),
         },
       },
     },
     async (request) => {
-      const items = await listReviewItems(ctx, { afterId: decodeCursor(request.query.cursor), limit: request.query.limit + 1 });
+      const { limit, order } = request.query;
+      const start = decodeCursor(request.query.cursor);
       const total = await db.selectFrom('review_item').select((eb) => eb.fn.countAll<string>().as('n')).where('status', '=', 'open').executeTakeFirstOrThrow();
+      if (order === 'oldest') {
+        const items = await listReviewItems(ctx, { afterId: start, limit: limit + 1 });
+        const withForms = items.map((item) => ({ ...item, mention: item.mention ? withLegalForm(item.mention) : null }));
+        return { ...page(withForms, limit), open: Number(total.n) };
+      }
+      // The cursor of the ranked order is the count of items already shown.
+      const items = await listRankedReviewItems(ctx, { offset: start, limit: limit + 1 });
       const withForms = items.map((item) => ({ ...item, mention: item.mention ? withLegalForm(item.mention) : null }));
-      return { ...page(withForms, request.query.limit), open: Number(total.n) };
+      const more = withForms.length > limit;
+      return { items: more ? withForms.slice(0, limit) : withForms, nextCursor: more ? encodeCursor(start + limit) : null, open: Number(total.n) };
     },
   );
 
-  app.post<{ Params: { id: number }; Body: ReviewDecisionInput }>(
+  app.post<{ Params: { id: number }; Body: ReviewDecisionInput & { scope?: 'item' | 'group' } }>(
     '/v1/review-items/:id/decision',
     {
       config: { scope: 'admin' },
@@ -205,16 +233,40 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
           type: 'object',
           required: ['decision'],
           additionalProperties: false,
-          properties: { decision: { type: 'string', enum: ['same', 'different'] }, reason: REASON },
+          properties: {
+            decision: { type: 'string', enum: ['same', 'different'] },
+            reason: REASON,
+            scope: {
+              type: 'string',
+              enum: ['item', 'group'],
+              default: 'item',
+              description: 'group: the same decision for every open item of this item\'s group (see GET /v1/review-items); each is its own history event',
+            },
+          },
           example: { decision: 'different', reason: 'different registration numbers' },
         },
         response: {
-          200: { type: 'object', properties: { eventId: { type: 'integer' }, reviewItemId: { type: 'integer' }, decision: { type: 'string' }, counterpartyId: { type: 'integer', nullable: true } } },
+          200: {
+            type: 'object',
+            properties: {
+              ...DECISION_OUT,
+              settled: { type: 'array', description: 'scope group: every item settled', items: { type: 'object', properties: DECISION_OUT } },
+              skipped: {
+                type: 'array',
+                description: 'scope group: items of the group left open, with why',
+                items: { type: 'object', properties: { reviewItemId: { type: 'integer' }, code: { type: 'string' }, detail: { type: 'string' } } },
+              },
+            },
+          },
           ...problemResponses(404, 409),
         },
       },
     },
-    async (request) => decideReview(ctx, request.params.id, request.body, actorOf(request, request.body.reason)),
+    async (request) => {
+      const { scope, ...input } = request.body;
+      const who = actorOf(request, input.reason);
+      return scope === 'group' ? decideReviewGroup(ctx, request.params.id, input, who) : decideReview(ctx, request.params.id, input, who);
+    },
   );
 
   app.get<{ Querystring: { limit: number; buckets: number } }>(

@@ -112,7 +112,7 @@ export async function render(main, { session }) {
   const skipped = new Set();
   const details = new Map(); // counterparty id -> promise of its record
   let open = 0;
-  let cursor = null;
+  let more = true; // whether the queue holds items not fetched yet
   let current = null;
   let busy = false;
 
@@ -123,12 +123,15 @@ export async function render(main, { session }) {
   const sameButton = h('button', { type: 'button', class: 'primary decide', id: 'decide-same', disabled: !canDecide, 'aria-keyshortcuts': 'S' }, 'Same ', h('kbd', null, 'S'));
   const differentButton = h('button', { type: 'button', class: 'decide', id: 'decide-different', disabled: !canDecide, 'aria-keyshortcuts': 'D' }, 'Different ', h('kbd', null, 'D'));
   const skipButton = h('button', { type: 'button', id: 'decide-skip', 'aria-keyshortcuts': 'K' }, 'Skip ', h('kbd', null, 'K'));
+  const wholeGroup = h('input', { type: 'checkbox', id: 'review-whole-group', disabled: !canDecide });
+  const groupRow = h('p', { class: 'group-row', hidden: true }, wholeGroup, h('label', { for: 'review-whole-group', id: 'review-group-label' }, ''));
   const outcome = h('div', { class: 'review-outcome', id: 'review-outcome' });
   const controls = h(
     'div',
     { class: 'review-controls' },
     h('label', { for: 'review-note' }, 'Note ', h('kbd', null, 'N')),
     note,
+    groupRow,
     h('div', { class: 'decide-row' }, sameButton, differentButton, skipButton),
     canDecide ? null : h('p', { class: 'muted', id: 'review-readonly' }, `Your key (${session.me.scope}) may look at the queue; deciding needs an admin key.`),
     h('p', { class: 'hint keys-hint' }, 'Keys: S same · D different · K skip · N write a note · Esc leave the note.'),
@@ -152,13 +155,15 @@ export async function render(main, { session }) {
     return n;
   }
 
+  // The queue comes most-worth-deciding first and its order changes as items are decided, so every fetch starts
+  // at the top again (a cursor into the old order would skip items) and leaves out what is already here.
   async function fetchMore() {
-    const firstPage = cursor === null;
-    const { data } = await api(`/v1/review-items?limit=${PAGE}${cursor ? `&cursor=${encodeURIComponent(cursor)}` : ''}`);
-    cursor = data.nextCursor;
+    const limit = Math.min(500, PAGE + queue.length + skipped.size + 1);
+    const { data } = await api(`/v1/review-items?limit=${limit}`);
+    more = Boolean(data.nextCursor);
     if (typeof data.open === 'number') open = data.open;
-    else open = firstPage && !cursor ? data.items.length : await countOpen();
-    for (const item of data.items) if (!skipped.has(item.id) && !queue.some((q) => q.id === item.id)) queue.push(item);
+    else open = !more ? data.items.length : await countOpen();
+    for (const item of data.items) if (!skipped.has(item.id) && item.id !== current?.id && !queue.some((q) => q.id === item.id)) queue.push(item);
     // Fetch the sides of the next few pairs now, so the next pair shows at once.
     for (const item of queue.slice(0, 3)) {
       record(item.rightCounterpartyId);
@@ -171,7 +176,7 @@ export async function render(main, { session }) {
   }
 
   async function showNext() {
-    if (queue.length === 0 && cursor) await fetchMore();
+    if (queue.length === 0 && more) await fetchMore();
     current = queue.shift() ?? null;
     showCounter();
     if (!current) {
@@ -194,7 +199,12 @@ export async function render(main, { session }) {
       h('div', { class: 'pair' }, item.kind === 'mention_link' && item.mention ? mentionSide(item) : counterpartySide(left, 'Counterparty', 'side-left'), counterpartySide(right, item.kind === 'mention_link' ? 'Best candidate in the register' : 'Counterparty', 'side-right')),
     );
     replace(scoreSlot, featureBars(item.evidence, item.score));
-    if (queue.length < 3 && cursor) fetchMore().catch(() => undefined);
+    // Items of one group (the same spelling waiting on the same candidate) can be settled by one decision.
+    const size = item.group?.size ?? 1;
+    groupRow.hidden = size < 2;
+    wholeGroup.checked = false;
+    groupRow.querySelector('label').textContent = ` Decide all ${size} alike at once (the same spelling of this name, waiting on the same candidate, in ${plural(item.group?.contracts ?? 0, 'contract')})`;
+    if (queue.length < 3 && more) fetchMore().catch(() => undefined);
   }
 
   async function decide(decision) {
@@ -204,13 +214,16 @@ export async function render(main, { session }) {
     const reason = note.value.trim();
     sameButton.disabled = differentButton.disabled = true;
     try {
-      const { data } = await api(`/v1/review-items/${item.id}/decision`, { method: 'POST', body: { decision, ...(reason ? { reason } : {}) } });
-      open = Math.max(0, open - 1);
+      const scope = wholeGroup.checked && !groupRow.hidden ? 'group' : 'item';
+      const { data } = await api(`/v1/review-items/${item.id}/decision`, { method: 'POST', body: { decision, scope, ...(reason ? { reason } : {}) } });
+      const settled = new Set((data.settled ?? [data]).map((d) => d.reviewItemId));
+      for (let i = queue.length - 1; i >= 0; i--) if (settled.has(queue[i].id)) queue.splice(i, 1);
+      open = Math.max(0, open - settled.size);
       note.value = '';
       details.delete(item.rightCounterpartyId);
       details.delete(item.leftCounterpartyId);
       const where = data.counterpartyId ? h('a', { href: `#/counterparty/${data.counterpartyId}`, id: 'decision-result' }, `#${data.counterpartyId}`) : null;
-      replace(outcome, h('p', { class: 'ok', dataset: { item: String(item.id), decision } }, `Item ${item.id}: ${decision}. `, where ? ['The register now shows it under ', where, '.'] : ''));
+      replace(outcome, h('p', { class: 'ok', dataset: { item: String(item.id), decision } }, `Item ${item.id}${settled.size > 1 ? ` and ${plural(settled.size - 1, 'item')} like it` : ''}: ${decision}. `, where ? ['The register now shows it under ', where, '.'] : ''));
       toast(`Decided ${decision} on item ${item.id}.`);
       await showNext();
       stage.querySelector('h2')?.focus();
