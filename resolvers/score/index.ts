@@ -10,3 +10,4 @@ export { trainModel, type TrainOptions } from './trainModel.ts';
 export { compareCandidates, comparedVectors, randomPairVectors, scoreCompared, edgesOf, indexedPairsOf, type ComparedPairs } from './compareCandidates.ts';
 export { DEFAULT_MATCH_MODEL } from './defaultModel.ts';
 export { groupKeyOf, rankReviewItems, uncertaintyOf, type RankedReviewItem, type ReviewItemFacts, type ReviewThresholds } from './rankReviewItems.ts';
+export { adjustFromDecisions, type AdjustOptions, type DecidedVector, type LevelShift } from './adjustFromDecisions.ts';

@@ -11,6 +11,11 @@ export interface FeatureModel {
   m: number[];
   /** P(level | non-match), one per level, summing to 1. */
   u: number[];
+  /**
+   * Bits added to each level's weight by reviewers' decisions (adjustFromDecisions), bounded; absent when no
+   * decision moved the feature. m and u stay what training gave.
+   */
+  shift?: number[];
 }
 
 export interface MatchModel {
@@ -29,9 +34,12 @@ export interface MatchModel {
 
 export type Decision = 'link' | 'review' | 'new';
 
+/** The largest shift a stored model may carry (adjustFromDecisions keeps to its own, smaller bound). */
+export const MAX_STORED_SHIFT = 8;
+
 /** Weight of every level of one feature: log2(m_k / u_k). */
 export function featureWeights(feature: FeatureModel): number[] {
-  return feature.levels.map((_, k) => levelWeight(feature.m[k] as number, feature.u[k] as number));
+  return feature.levels.map((_, k) => levelWeight(feature.m[k] as number, feature.u[k] as number) + (feature.shift?.[k] ?? 0));
 }
 
 export function decide(score: number, model: Pick<MatchModel, 'linkAt' | 'newAt'>): Decision {
@@ -65,6 +73,10 @@ export function parseMatchModel(value: unknown): MatchModel {
       if (row.some((v) => !(v > 0 && v < 1)) || Math.abs(sum - 1) > 1e-4) {
         fail(`feature "${name}": ${side} must be probabilities strictly between 0 and 1 summing to 1 (sum ${sum})`);
       }
+    }
+    const shift = feature.shift;
+    if (shift !== undefined && (!Array.isArray(shift) || shift.length !== feature.levels.length || shift.some((v) => typeof v !== 'number' || !Number.isFinite(v) || Math.abs(v) > MAX_STORED_SHIFT))) {
+      fail(`feature "${name}": shift must have one number per level, each within ±${MAX_STORED_SHIFT} bits`);
     }
   }
   return model as MatchModel;

@@ -16,6 +16,7 @@ import exportCommand from './export.ts';
 import reconcile from './reconcile.ts';
 import ownEntities from './own-entities.ts';
 import reresolve from './reresolve.ts';
+import adjustWeights from './adjust-weights.ts';
 import sweep from './sweep.ts';
 import verify from './verify.ts';
 import forget from './forget.ts';
@@ -38,6 +39,7 @@ export const COMMANDS: Array<(program: Command) => void> = [
   reconcile,
   ownEntities,
   reresolve,
+  adjustWeights,
   sweep,
   verify,
   worker,
