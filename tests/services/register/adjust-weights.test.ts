@@ -5,7 +5,8 @@
  */
 import { beforeAll, expect, it } from 'vitest';
 import { describeEachBackend } from '../../support/index.ts';
-import { decideReview, featureWeights, resolveMention, storeContract, type RegisterContext } from './adjust-weights-support.ts';
+import { decideReview, resolveMention, storeContract, type RegisterContext } from '../../../services/register/index.ts';
+import { featureWeights } from '../../../resolvers/score/index.ts';
 import { adjustWeights, vectorOfEvidence } from '../../../services/register/matching/adjust-weights.ts';
 import { currentModel } from '../../../services/register/matching/model.ts';
 import { WHO, contextFor } from './helpers.ts';
