@@ -11,7 +11,8 @@ import type { AliasKind } from '../vocabulary.ts';
 import { normaliseTokens } from './normaliseName.ts';
 
 export interface NameAlternative {
-  kind: 'alias' | 'latin';
+  /** `without_form`: the name read without a word that is a legal form only abroad ("Brackenridge Fab." in US). */
+  kind: 'alias' | 'latin' | 'without_form';
   /** Core tokens of the alternative, as the analysis gives them for a name. */
   tokens: string[];
   core: string;

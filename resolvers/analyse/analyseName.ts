@@ -17,6 +17,8 @@ import { partyVerdict } from './partyFilter.ts';
 import { HONORIFICS, looksLikePersonName, ORGANISATION_WORDS, PERSON_SUFFIXES } from './looksLikePersonName.ts';
 import { narrowCodes, validateCountry } from './narrowCodes.ts';
 import { isMarkCode, isWordCode } from './foldChar.ts';
+import { isForeignWordForm } from './isForeignWordForm.ts';
+import type { NameAlternative } from './alternativeNames.ts';
 
 /** Trailing qualifier groups tried before giving up on a suffix form ("X Ltd (Europe) (in liquidation)"). */
 const MAX_TRAILING_GROUPS = 3;
@@ -40,6 +42,12 @@ export function analyseName(text: string, hints: AnalyseHints = {}): NameAnalysi
   // "Bank" is a legal form only in Puerto Rico: with a country hint elsewhere such a word is part of the name, not
   // its legal form (a designator of several jurisdictions, or an abbreviation, still counts).
   if (found && country !== undefined && foreignToOneJurisdiction(found.span.entry, country)) found = null;
+  // "Brackenridge Fab." with a US hint: "Fab." is a form only in Sweden, so here it shortens a word of the name.
+  let wordForm: string[] | null = null;
+  if (found && country !== undefined && !found.text && isForeignWordForm(primary.slice(found.span.start, found.span.end), found.span.entry, country)) {
+    wordForm = withoutArticle(normaliseTokens(primary.slice(0, found.span.start) + ' ' + primary.slice(found.span.end)));
+    found = null;
+  }
   if (!found && descriptor?.form) {
     // "Brackenridge Fabrication, a Delaware corporation": the descriptor's form is the name's form.
     found = { span: descriptor.form, trailing: [], trailingFrom: primary.length, text: descriptorText };
@@ -99,9 +107,10 @@ export function analyseName(text: string, hints: AnalyseHints = {}): NameAnalysi
     qualifiers,
     aliases: split.aliases,
     // An alias is analysed without its own alternatives: one level is enough ("X d/b/a Y" names two spellings).
-    alternatives: hints.noAlternatives ? [] : alternativeNames(tokens.join(' '), split.aliases, (name) => analyseName(name, { ...(country ? { country } : {}), noAlternatives: true })),
+    alternatives: hints.noAlternatives ? [] : withFormReading(alternativeNames(tokens.join(' '), split.aliases, (name) => analyseName(name, { ...(country ? { country } : {}), noAlternatives: true })), wordForm, tokens),
     related: split.related,
     partyStatus: verdict.status,
+    ...(verdict.reason === null ? {} : { partyReason: verdict.reason }),
     kind,
   };
 }
@@ -134,6 +143,14 @@ function findForm(primary: string, country: string | undefined): Found | null {
   }
   const prefix = matchPrefixForm(primary, scan, country);
   return prefix ? { span: prefix, trailing: [], trailingFrom: primary.length } : null;
+}
+
+/** The reading with a foreign word-like form stripped, kept as an alternative so that matching tries both. */
+function withFormReading(alternatives: NameAlternative[], stripped: string[] | null, tokens: readonly string[]): NameAlternative[] {
+  if (stripped === null || stripped.length === 0 || stripped.length === tokens.length) return alternatives;
+  const core = stripped.join(' ');
+  if (alternatives.some((a) => a.core === core)) return alternatives;
+  return [...alternatives, { kind: 'without_form', tokens: stripped, core }];
 }
 
 function foreignToOneJurisdiction(entry: LegalFormSpan['entry'], country: string): boolean {

@@ -4,6 +4,8 @@
  * and too-short strings never name a party (not_a_party). Word lists are common practice in contract drafting.
  */
 import type { PartyStatus } from '../vocabulary.ts';
+import { isDocumentReference } from './isDocumentReference.ts';
+import { isPlacePhrase } from './isPlacePhrase.ts';
 
 /** Personal pronouns and possessives a contract uses for its parties. */
 export const PRONOUNS: ReadonlySet<string> = new Set([
@@ -26,6 +28,31 @@ export const ROLE_WORDS: ReadonlySet<string> = new Set([
   'undersigned', 'signatory', 'signatories', 'representative', 'representatives', 'successors', 'assigns',
   'service', 'services', 'disclosing', 'receiving', 'third', 'other', 'indemnitee', 'indemnitor', 'entity', 'entities',
   'organisation', 'organization', 'business', 'firm', 'counsel', 'operator', 'producer', 'carrier', 'shipper',
+  // Data-protection roles (GDPR Art. 4 and 28 and the standard contractual clauses name them; issue 16).
+  'controller', 'controllers', 'processor', 'processors', 'subprocessor', 'subprocessors', 'exporter',
+  'exporters', 'importer', 'importers', 'subject', 'subjects',
+  // Other roles contracts define for a party (issue 16; common practice).
+  'sublicensee', 'sublicensees', 'sublicensor', 'subtenant', 'sublessee', 'sublessor', 'insurer', 'insured',
+  'reinsurer', 'broker', 'servicer', 'originator', 'arranger', 'underwriter', 'underwriters', 'obligor', 'obligors',
+  'debtor', 'debtors', 'creditor', 'creditors', 'pledgor', 'pledgee', 'chargor', 'chargee', 'mortgagor',
+  'mortgagee', 'grantor', 'grantee', 'transferor', 'transferee', 'custodian', 'depositary', 'registrar',
+  'administrator', 'manager', 'developer', 'integrator', 'subscriber', 'subscribers', 'merchant', 'collaborator',
+  'collaborators', 'concessionaire', 'contracting', 'authority', 'host', 'hirer', 'charterer', 'owner',
+  'consignor', 'consignee', 'forwarder', 'sender', 'payer', 'payee', 'vendee', 'offeror', 'offeree', 'promoter',
+  'artist', 'performer', 'talent', 'client', 'engager', 'freelancer', 'intermediary', 'introducer', 'referrer',
+  'lessors', 'lessees', 'landlords', 'tenants', 'employers', 'employees',
+]);
+
+/**
+ * Words that qualify a role without naming anyone ("Sub-processor", "Data Exporter", "Paying Agent", "Joint
+ * Controller"): they neither make a phrase a role nor stop it being one. Common practice.
+ */
+const ROLE_MODIFIERS: ReadonlySet<string> = new Set([
+  'sub', 'data', 'joint', 'independent', 'paying', 'escrow', 'security', 'collateral', 'facility', 'administrative',
+  'managing', 'lead', 'prime', 'main', 'general', 'limited', 'authorised', 'authorized', 'original', 'new',
+  'existing', 'exclusive', 'approved', 'permitted', 'designated', 'appointed', 'master', 'local', 'head',
+  'principal', 'accountable', 'hiring', 'selling', 'buying', 'purchasing', 'supplying', 'sending', 'importing',
+  'exporting', 'transferring', 'processing', 'controlling', 'outgoing', 'incoming', 'continuing', 'retiring',
 ]);
 
 /** Words that may open a role phrase without naming anyone ("the", "each", "either", "its"). */
@@ -41,9 +68,15 @@ export const SIGNATURE_LABELS: ReadonlySet<string> = new Set([
   'position', 'address', 'email', 'e mail', 'attention', 'attn', 'per', 'for and on behalf of', 'on behalf of',
 ]);
 
+/**
+ * Why a name is not a party by itself. `place`: a country, subdivision or governing-law/venue phrase;
+ * `document`: the contract or a part of it ("this Agreement", "Schedule 2", "the Effective Date").
+ */
+export type PartyReason = 'empty' | 'numeric' | 'too_short' | 'signature_label' | 'pronoun' | 'role_word' | 'place' | 'document';
+
 export interface PartyVerdict {
   status: PartyStatus;
-  reason: 'empty' | 'numeric' | 'too_short' | 'signature_label' | 'pronoun' | 'role_word' | null;
+  reason: PartyReason | null;
 }
 
 /** Minimum letters and digits a party name has (one letter is an initial, not a name). Common practice. */
@@ -71,6 +104,9 @@ export function partyVerdict(text: string, tokens: readonly string[], hasLegalFo
   }
   if (chars < MIN_NAME_CHARS) return { status: 'not_a_party', reason: 'too_short' };
   if (hasLegalForm) return { status: 'party', reason: null };
+  // Before roles: "the Services" is the subject matter, "the State of New York" a place, never a role to bind.
+  if (isPlacePhrase(tokens)) return { status: 'not_a_party', reason: 'place' };
+  if (isDocumentReference(tokens)) return { status: 'not_a_party', reason: 'document' };
   if (isRolePhrase(tokens)) return { status: 'needs_binding', reason: 'role_word' };
   return { status: 'party', reason: null };
 }
@@ -82,7 +118,7 @@ function isRolePhrase(tokens: readonly string[]): boolean {
   let roles = 0;
   for (; i < tokens.length; i++) {
     const t = tokens[i] as string;
-    if (ROLE_WORDS.has(t) || PRONOUNS.has(t) || DETERMINERS.has(t)) {
+    if (ROLE_WORDS.has(t) || PRONOUNS.has(t) || DETERMINERS.has(t) || ROLE_MODIFIERS.has(t)) {
       if (ROLE_WORDS.has(t)) roles++;
       continue;
     }

@@ -3,6 +3,7 @@
  */
 import type { AliasKind, EntityKind, PartyStatus, RelationType } from '../vocabulary.ts';
 import type { NameAlternative } from './alternativeNames.ts';
+import type { PartyReason } from './partyFilter.ts';
 
 export interface LegalFormMatch {
   /** The designator as it stands in the input ("Pty. Ltd.", "GmbH"). */
@@ -31,6 +32,8 @@ export interface NameAnalysis {
   alternatives: NameAlternative[];
   related: { relation: RelationType; name: string }[];
   partyStatus: PartyStatus;
+  /** Present when partyStatus is not `party`: why ("place", "document", "role_word", "pronoun", …). */
+  partyReason?: PartyReason;
   kind: EntityKind;
 }
 

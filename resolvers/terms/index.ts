@@ -38,3 +38,5 @@ export { parseParties, MAX_COLLECTIVE_TERMS, MAX_PARTIES, MAX_TERMS_PER_PARTY } 
 export { resolveInContract } from './resolveInContract.ts';
 export { MAX_CONTRACT_BYTES, checkContractText } from './checkContractText.ts';
 export { termKey } from './cleanTerm.ts';
+export { classifyNotParties } from './classifyNotParties.ts';
+export type { NotPartyGroups } from './classifyNotParties.ts';

@@ -17,6 +17,7 @@ import { findSignatureBlocks } from './findSignatureBlocks.ts';
 import { joinsTwoEntities, readsAsName } from './isPlausibleName.ts';
 import { locateName, locateNameAt, NAME_WINDOW, nameStarts } from './locateName.ts';
 import { findPartyItems } from './findPartyItems.ts';
+import { findPlaceMentions } from './findPlaceMentions.ts';
 import { findLabelledParties } from './findLabelledParties.ts';
 import { wordsOf } from './textScan.ts';
 import type { LocatedName } from './locateName.ts';
@@ -137,6 +138,12 @@ function isPartyTerm(t: FoundTerm): boolean {
   return !t.collective && !t.thisMarker && !NON_PARTY_TERMS.has(t.text.toLowerCase());
 }
 
+/** A term the name analysis rules out as the document, a part of it, or a place ("Order Form", "Territory"). */
+function namesAThing(t: FoundTerm): boolean {
+  const reason = analyseName(t.text).partyReason;
+  return reason === 'document' || reason === 'place';
+}
+
 /** A descriptive phrase that follows the definition: `("Qorv"), a company incorporated in …;` */
 function trailingDescription(text: string, from: number, nextStart: number): string {
   let i = from;
@@ -154,8 +161,9 @@ function trailingDescription(text: string, from: number, nextStart: number): str
 function handleDefinition(c: Collector, def: Definition, prevEnd: number, nextStart: number): void {
   const { text } = c;
   const partyTerms = def.terms.filter(isPartyTerm);
-  const collective = def.terms.filter((t) => t.collective);
-  for (const t of def.terms) if (!t.collective && !isPartyTerm(t)) c.noteNotParty(t.text);
+  // "(each, an "Order Form")": a set of documents or places is no collective of parties.
+  const collective = def.terms.filter((t) => t.collective && !namesAThing(t));
+  for (const t of def.terms) if (!isPartyTerm(t) && (!t.collective || namesAThing(t))) c.noteNotParty(t.text);
   let members: Draft[] | null = null;
   if (partyTerms.length > 0) {
     const inner = text.slice(def.start + 1, def.end - 1);
@@ -305,6 +313,8 @@ export function parseParties(text: string, options: ParseOptions = {}): ParsedCo
     prevEnd = def.end;
   }
   for (const item of findPartyItems(text, defs)) c.addParty(item, [], '');
+  // Governing-law and venue places are listed as non-parties: a mention of them is never a counterparty.
+  for (const place of findPlaceMentions(text)) c.noteNotParty(place);
   for (const labelled of findLabelledParties(text)) c.addParty(labelled.located, labelled.terms, '');
   for (const sig of findSignatureBlocks(text)) {
     const d = c.addParty(sig.located, [], sig.description ?? '', sig.label);

@@ -4,7 +4,7 @@
  * inside this contract. Nothing is stored.
  */
 import type { Command } from 'commander';
-import type { InContractResolution as Resolution, ParsedContract as Parsed } from '../../../resolvers/terms/index.ts';
+import type { InContractResolution as Resolution, NotPartyGroups, ParsedContract as Parsed } from '../../../resolvers/terms/index.ts';
 import { CliError } from '../cli-error.ts';
 
 /** Same limit as resolvers/terms (MAX_CONTRACT_BYTES); repeated here so the file is refused before it is read. */
@@ -57,7 +57,7 @@ export default function register(program: Command): void {
         throw new CliError(`--mention: over the limit of ${MAX_MENTION} characters`);
       }
       const text = await readContract(file);
-      const { parseParties, resolveInContract } = await import('../../../resolvers/terms/index.ts');
+      const { classifyNotParties, parseParties, resolveInContract } = await import('../../../resolvers/terms/index.ts');
       const parsed = parseParties(text);
       const resolution = options.mention === undefined ? undefined : resolveInContract(parsed, options.mention);
       if (parsed.reason !== undefined && parsed.reason.code !== 'no_parties_found') throw new CliError(`<file>: ${parsed.reason.message}`);
@@ -66,12 +66,12 @@ export default function register(program: Command): void {
         process.stdout.write(`${JSON.stringify(out, null, 2)}\n`);
         return;
       }
-      process.stdout.write(`${formatText(parsed, resolution)}\n`);
+      process.stdout.write(`${formatText(parsed, resolution, classifyNotParties(parsed.notParties))}\n`);
     });
 }
 
 
-function formatText(parsed: Parsed, resolution: Resolution | undefined): string {
+function formatText(parsed: Parsed, resolution: Resolution | undefined, left: NotPartyGroups): string {
   const lines: string[] = [];
   if (parsed.parties.length === 0) lines.push(`No parties found: ${parsed.reason?.message ?? ''}`);
   else lines.push(`Parties (${parsed.parties.length}):`);
@@ -96,7 +96,11 @@ function formatText(parsed: Parsed, resolution: Resolution | undefined): string 
   for (const c of parsed.collectiveTerms) {
     lines.push(`Collective term "${c.term}": ${c.parties.length > 0 ? c.parties.join(', ') : '(no named party)'}`);
   }
-  if (parsed.notParties.length > 0) lines.push(`Not parties: ${parsed.notParties.join('; ')}`);
+  // Each group says why its names were left out: a place, the document itself, a role no party holds.
+  if (left.places.length > 0) lines.push(`Places (not parties): ${left.places.join('; ')}`);
+  if (left.documents.length > 0) lines.push(`Document references (not parties): ${left.documents.join('; ')}`);
+  if (left.roles.length > 0) lines.push(`Roles not bound to a party: ${left.roles.join('; ')}`);
+  if (left.other.length > 0) lines.push(`Not parties: ${left.other.join('; ')}`);
   for (const w of parsed.warnings ?? []) lines.push(`Warning: ${w}`);
   if (resolution !== undefined) {
     const who = resolution.party === undefined ? '' : ` → ${resolution.party.name}${resolution.party.role ? ` (${resolution.party.role})` : ''}`;

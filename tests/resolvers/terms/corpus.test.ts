@@ -3,8 +3,12 @@
  * collective terms and non-parties (expectations and their basis are in corpus/contracts.ts).
  */
 import { afterAll, describe, expect, it } from 'vitest';
-import { CORPUS } from './corpus/contracts.ts';
+import { CORPUS as BASE } from './corpus/contracts.ts';
 import { checkCase } from './corpus/checkCase.ts';
+import { NON_PARTY_SHAPES } from './corpus/nonPartyShapes.ts';
+
+/** Issue 16's shapes (places, document references, unbound roles) are checked like every other passage. */
+const CORPUS = [...BASE, ...NON_PARTY_SHAPES];
 
 const failures = new Map<string, string[]>();
 
@@ -15,6 +19,14 @@ describe('terms corpus', () => {
     expect(new Set(CORPUS.map((c) => c.style)).size).toBe(CORPUS.length);
     const otherLanguages = CORPUS.filter((c) => /^(?:fr|de|es|it)-/.test(c.id));
     expect(otherLanguages.length).toBeGreaterThanOrEqual(2); // the issue's stretch goal: at least two
+  });
+
+  it('has at least three passages per issue-16 shape, in British, US and translated styles', () => {
+    for (const shape of ['places', 'document', 'roles']) {
+      const ids = NON_PARTY_SHAPES.map((c) => c.id).filter((id) => id.includes(shape === 'roles' ? 'role' : shape));
+      expect(ids.length, shape).toBeGreaterThanOrEqual(3);
+      expect(new Set(ids.map((id) => id.split('-')[0])), shape).toEqual(new Set(['uk', 'us', 'eu']));
+    }
   });
 
   it.each(CORPUS.map((c) => [c.id, c] as const))('%s', (_id, c) => {
