@@ -12,6 +12,8 @@ import Fastify, { LogController, type FastifyInstance, type FastifyServerOptions
 import swagger from '@fastify/swagger';
 import { PROBLEM_SCHEMA, problemResponses } from './errors.ts';
 import { registerErrorHandling } from './error-handler.ts';
+import { MAX_PATH_PARAMETER_LENGTH, frameworkErrors } from './framework-errors.ts';
+import { clientErrorHandler } from './client-error-handler.ts';
 import { buildValidatorFactory } from './validation.ts';
 import { loggerOptions } from './logger.ts';
 import { APP_PLUGINS } from './plugins/index.ts';
@@ -42,9 +44,16 @@ export async function buildApp(inputDeps: AppDeps): Promise<FastifyInstance> {
     },
     logController: new LogController({ requestIdLogLabel: 'requestId' }),
     schemaController: { compilersFactory: { buildValidator: buildValidatorFactory() as never } },
+    routerOptions: { maxParamLength: MAX_PATH_PARAMETER_LENGTH },
+    // Errors raised before a route runs (bad path encoding, HTTP framing, oversized headers) are problem+json too.
+    frameworkErrors: frameworkErrors as never,
+    clientErrorHandler,
   });
 
   registerErrorHandling(app);
+  // fastify parses text/plain bodies into a string by default, which the schema then refused as
+  // "(root) must be object" (422); no route takes plain text, so such a body is now 415 UNSUPPORTED_MEDIA_TYPE.
+  app.removeContentTypeParser('text/plain');
   app.addSchema(PROBLEM_SCHEMA);
   app.addHook('onRequest', async (request, reply) => {
     reply.header('x-request-id', request.id);

@@ -71,10 +71,8 @@ function classify(error: FastifyError, request: FastifyRequest): Classified {
     }
     case 'FST_ERR_CTP_INVALID_MEDIA_TYPE':
       return {
-        body: problem(
-          'UNSUPPORTED_MEDIA_TYPE',
-          `the body's media type ${JSON.stringify(request.headers['content-type'] ?? '')} is not accepted here; send application/json`,
-        ),
+        // Names what is accepted; the caller's Content-Type is not repeated.
+        body: problem('UNSUPPORTED_MEDIA_TYPE', `the body's Content-Type is not accepted by ${request.method} ${request.routeOptions.url ?? 'this route'}; send application/json`),
       };
   }
   // secure-json-parse rejects __proto__ / constructor.prototype keys with a SyntaxError marked 400.

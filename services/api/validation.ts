@@ -38,9 +38,32 @@ export function buildValidatorFactory() {
         const stored = ajv.getSchema(schema.$id);
         if (stored) return stored;
       }
-      return ajv.compile(schema);
+      return ajv.compile(withSafeIntegers(schema));
     };
   };
+}
+
+/**
+ * Every integer a route takes is a safe integer, whatever its schema says: a JSON number beyond 2^53 − 1 is not
+ * exact in JavaScript (ids were silently rounded to other ids) and one beyond bigint answered 500 from the driver.
+ * An integer schema without a bound gets ±Number.MAX_SAFE_INTEGER. Route schemas are our own, small and acyclic
+ * (a $ref is left as it is), so the copy recurses.
+ */
+export function withSafeIntegers<T>(schema: T, fieldMap = false): T {
+  if (Array.isArray(schema)) return schema.map((item: unknown) => withSafeIntegers(item)) as T;
+  if (schema === null || typeof schema !== 'object') return schema;
+  const out: Record<string, unknown> = {};
+  for (const [key, value] of Object.entries(schema)) {
+    // Values (enum, example, default, const) are data, not schemas; in a `properties` map every key is a field name.
+    const isData = !fieldMap && (key === 'enum' || key === 'example' || key === 'default' || key === 'const');
+    out[key] = isData ? value : withSafeIntegers(value, !fieldMap && (key === 'properties' || key === 'patternProperties'));
+  }
+  const type = out.type;
+  if (type === 'integer' || (Array.isArray(type) && type.includes('integer'))) {
+    if (out.maximum === undefined && out.exclusiveMaximum === undefined) out.maximum = Number.MAX_SAFE_INTEGER;
+    if (out.minimum === undefined && out.exclusiveMinimum === undefined) out.minimum = -Number.MAX_SAFE_INTEGER;
+  }
+  return out as T;
 }
 
 const PART_TO_IN: Record<string, FieldError['in']> = {
@@ -91,6 +114,10 @@ function describe(error: ErrorObject): { pointer: string; message: string } {
       return { pointer: base, message: `must be at most ${String(params.limit)} characters long` };
     case 'minLength':
       return { pointer: base, message: `must be at least ${String(params.limit)} characters long` };
+    case 'maximum':
+      return { pointer: base, message: `must be at most ${String(params.limit)}${params.limit === Number.MAX_SAFE_INTEGER ? ' (2^53 − 1, the largest exact integer)' : ''}` };
+    case 'minimum':
+      return { pointer: base, message: `must be at least ${String(params.limit)}` };
     case 'maxItems':
       return { pointer: base, message: `must have at most ${String(params.limit)} items` };
     default:

@@ -18,6 +18,7 @@ import type { Database } from '../../../db/types.ts';
 import { ApiError } from '../errors.ts';
 import type { AppPlugin } from '../types.ts';
 import { KEY_IN_TEXT } from './keys.ts';
+import { canonicalJson } from './canonical-json.ts';
 
 export const IDEMPOTENCY_TTL_HOURS = 24;
 /** A first request that left no answer this long ago (its instance died) may be taken over. */
@@ -40,8 +41,12 @@ declare module 'fastify' {
 /** What replaces a whole API key found in an answer about to be stored. */
 export const SECRET_NOT_STORED = '[secret not stored]';
 
+/**
+ * The request's fingerprint: canonical JSON (keys sorted, so a body resent with its keys in another order is the
+ * same request), built iteratively (a deep body cannot overflow the stack; body-depth.ts also refuses one).
+ */
 export function bodyHash(method: string, path: string, body: unknown): string {
-  return createHash('sha256').update(JSON.stringify([method, path, body ?? null])).digest('hex');
+  return createHash('sha256').update(canonicalJson([method, path, body ?? null])).digest('hex');
 }
 
 export interface StoredAnswer {

@@ -8,9 +8,11 @@ import type { AppPlugin } from '../types.ts';
 import { authPlugin } from '../auth/plugin.ts';
 import { idempotencyPlugin } from '../auth/idempotency.ts';
 import { wellFormedTextPlugin } from './well-formed-text.ts';
+import { bodyDepthPlugin } from './body-depth.ts';
 
 export const APP_PLUGINS: AppPlugin[] = [
   authPlugin,
   idempotencyPlugin,
+  bodyDepthPlugin,
   wellFormedTextPlugin,
 ];

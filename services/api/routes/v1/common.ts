@@ -130,12 +130,24 @@ export function redirectToSurvivor(reply: FastifyReply, request: FastifyRequest,
 
 // ---- schemas ------------------------------------------------------------------------------------------------
 
+/**
+ * An id (path parameter or body field): a safe positive integer. Ids are bigint in the database, but a JSON
+ * number above 2^53 − 1 is not exact in JavaScript (9007199254740993 parses as …992, another id) and one past
+ * bigint's range answered 500 from the driver: both are refused by name (422) instead.
+ */
+export const ID = { type: 'integer', minimum: 1, maximum: Number.MAX_SAFE_INTEGER } as const;
+
 export const ID_PARAM = {
   type: 'object',
   required: ['id'],
   additionalProperties: false,
-  properties: { id: { type: 'integer', minimum: 1, maximum: Number.MAX_SAFE_INTEGER } },
+  properties: { id: ID },
 } as const;
+
+/** Path parameters that are all ids, e.g. idParams('id', 'relationId'). */
+export function idParams<const N extends string>(...names: N[]): { type: 'object'; required: N[]; additionalProperties: false; properties: Record<N, typeof ID> } {
+  return { type: 'object', required: names, additionalProperties: false, properties: Object.fromEntries(names.map((n) => [n, ID])) as Record<N, typeof ID> };
+}
 
 export const PAGE_QUERY = {
   cursor: { type: 'string', maxLength: 100, description: 'opaque cursor from a previous page (nextCursor)' },

@@ -84,6 +84,12 @@ function runInBackground(db: Kysely<Database>, id: number, work: () => Promise<u
   });
 }
 
+/**
+ * The body of a job that takes no options: none, or an empty object. Declared so that anything else is refused
+ * by name (422) instead of passing unread into the idempotency hash and the logs.
+ */
+const NO_OPTIONS = { type: 'object', nullable: true, additionalProperties: false, properties: {}, description: 'no options: send no body or {}' } as const;
+
 export const exportJobRoutes: RoutePlugin = async (app, deps) => {
   const ctx = v1Scope(app, deps);
   const db = deps.db;
@@ -188,7 +194,7 @@ export const exportJobRoutes: RoutePlugin = async (app, deps) => {
     '/v1/jobs/sweep',
     {
       config: { scope: 'admin' },
-      schema: { summary: 'Start a duplicate sweep (files review items; never merges), partitioned over the workers', tags: ['jobs'], response: { 202: JOB_OUT } },
+      schema: { summary: 'Start a duplicate sweep (files review items; never merges), partitioned over the workers', tags: ['jobs'], body: NO_OPTIONS, response: { 202: JOB_OUT } },
     },
     async (request, reply) => {
       const id = await submitSweepJob({ db, queue: (await jobsReady()).queue }, { actor: actorOf(request).actor });
@@ -201,7 +207,7 @@ export const exportJobRoutes: RoutePlugin = async (app, deps) => {
     '/v1/jobs/reresolve',
     {
       config: { scope: 'admin' },
-      schema: { summary: 'Re-resolve every mention no person confirmed (after thresholds or weights changed)', tags: ['jobs'], response: { 202: JOB_OUT } },
+      schema: { summary: 'Re-resolve every mention no person confirmed (after thresholds or weights changed)', tags: ['jobs'], body: NO_OPTIONS, response: { 202: JOB_OUT } },
     },
     async (request, reply) => {
       const who = actorOf(request);

@@ -3,7 +3,7 @@ import { undoEvent } from '../../../register/history/undo.ts';
 import { eventsAfter, getEvent, lastEventId } from '../../../../db/queries/history.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import type { RoutePlugin } from '../../types.ts';
-import { EVENT_OUT, REASON, actorOf, decodeCursor, encodeCursor, v1Scope } from './common.ts';
+import { EVENT_OUT, REASON, actorOf, decodeCursor, encodeCursor, idParams, v1Scope } from './common.ts';
 
 export const historyRoutes: RoutePlugin = (app, deps) => {
   const ctx = v1Scope(app, deps);
@@ -15,7 +15,7 @@ export const historyRoutes: RoutePlugin = (app, deps) => {
       schema: {
         summary: 'One history event',
         tags: ['history'],
-        params: { type: 'object', required: ['eventId'], properties: { eventId: { type: 'integer', minimum: 1 } } },
+        params: idParams('eventId'),
         response: { 200: EVENT_OUT, ...problemResponses(404) },
       },
     },
@@ -33,7 +33,7 @@ export const historyRoutes: RoutePlugin = (app, deps) => {
       schema: {
         summary: 'Undo an event (refused while a later event that depends on it stands; the refusal names them)',
         tags: ['history'],
-        params: { type: 'object', required: ['eventId'], properties: { eventId: { type: 'integer', minimum: 1 } } },
+        params: idParams('eventId'),
         body: { type: 'object', required: ['reason'], additionalProperties: false, properties: { reason: { ...REASON, minLength: 1 } }, example: { reason: 'merged by mistake' } },
         response: {
           200: { type: 'object', properties: { eventId: { type: 'integer' }, undoneEventId: { type: 'integer' }, counterpartyIds: { type: 'array', items: { type: 'integer' } }, mentionIds: { type: 'array', items: { type: 'integer' } } } },
