@@ -1,17 +1,24 @@
 /**
- * Signature blocks: the entity line above "By:" is the party ("QORV ROBOTICS, INC." / "By: ____" /
- * "Name: Jane Doe" / "Title: CEO"); a label line above it ("LICENSOR:") gives its role; the signer's
- * name and title are not parties. "For and on behalf of X" lines name a party too.
+ * Signature blocks: the entity line above "By:" (or above a conformed "/s/ Jane Doe" line) is the party ("QORV
+ * ROBOTICS, INC." / "By: ____" / "Name: Jane Doe" / "Title: CEO"); a label line above it ("LICENSOR:") gives its
+ * role; the signer is a person signing for it, and the title the capacity she signs in: neither is a party, and a
+ * title is no name at all. "For and on behalf of X" lines name a party too; in "Signed for and on behalf of X by
+ * Y, President" the entity ends before "by".
  */
+import { asciiLower } from './asciiLower.ts';
+import { jobTitleOf } from './isJobTitle.ts';
 import { locateNameAt } from './locateName.ts';
 import type { LocatedName } from './locateName.ts';
+import { readPersonName } from './readPersonName.ts';
+import { signerAfter } from './signerPhrases.ts';
+import type { ContractSigner } from './types.ts';
 
 export interface SignatureEntity {
   located: LocatedName;
   /** "LICENSOR:" above the entity line, without the colon. */
   label?: string;
-  /** Signers' names and titles: seen, and not parties. */
-  notParties: string[];
+  /** The people who sign for it in this block, with their titles: seen, and not parties. */
+  signers: ContractSigner[];
   /** A descriptive line under the entity line ("a Delaware corporation"). */
   description?: string;
 }
@@ -90,10 +97,29 @@ function entityFrom(text: string, line: Line): SignatureEntity | null {
       break;
     }
   }
-  const located = locateNameAt(text, from, line.end, true);
+  // "Signed for and on behalf of X by Y, President": the entity ends before "by", Y signs for it.
+  let end = line.end;
+  let signer: ContractSigner | undefined;
+  const lowerLine = asciiLower(text.slice(from, line.end));
+  for (let at = lowerLine.indexOf(' by '); at >= 0; at = lowerLine.indexOf(' by ', at + 4)) {
+    const s = signerAfter(text, from + at + 4, line.end);
+    if (s === null) continue;
+    end = from + at;
+    signer = { name: s.name, capacity: 'signatory', ...(s.title === undefined ? {} : { title: s.title }) };
+    break;
+  }
+  const located = locateNameAt(text, from, end, true);
   if (located === null) return null;
-  return label === undefined ? { located, notParties: [] } : { located, label, notParties: [] };
+  if (signer !== undefined) signer.signsFor = text.slice(located.nameStart, located.nameEnd);
+  const signers = signer === undefined ? [] : [signer];
+  return label === undefined ? { located, signers } : { located, label, signers };
 }
+
+/** Labels under "By:" that give the signer's name, and those that give her title. */
+const NAME_LABELS = ['name', 'print name', 'printed name', 'name of signatory'];
+const TITLE_LABELS = ['title', 'its', 'position', 'capacity', 'function'];
+/** A witness or notary part of the block starts: its "Name:" is no longer the signatory's (findSigners reads it). */
+const OTHER_SIGNERS = /^\s*(?:signature of )?(?:witness|notary|name of witness|in the presence of)/iu;
 
 export function findSignatureBlocks(text: string): SignatureEntity[] {
   const lines = splitLines(text);
@@ -101,14 +127,12 @@ export function findSignatureBlocks(text: string): SignatureEntity[] {
   for (let i = 0; i < lines.length; i++) {
     const line = lines[i] as Line;
     const by = labelValue(line.text, ['by']);
-    if (by !== null) {
+    const conformed = by === null && line.text.trimStart().startsWith('/s/');
+    if (by !== null || conformed) {
       const entity = entityAbove(text, lines, i);
       if (entity === null) continue;
-      if (by.length > 0) entity.notParties.push(by);
-      for (let k = i + 1; k < Math.min(lines.length, i + 5); k++) {
-        const v = labelValue((lines[k] as Line).text, ['name', 'title', 'its', 'print name', 'printed name']);
-        if (v !== null && v.length > 0) entity.notParties.push(v);
-      }
+      const signer = blockSigner(text, lines, i, by);
+      if (signer !== null) entity.signers.push({ ...signer, signsFor: text.slice(entity.located.nameStart, entity.located.nameEnd) });
       found.push(entity);
       continue;
     }
@@ -119,6 +143,31 @@ export function findSignatureBlocks(text: string): SignatureEntity[] {
     }
   }
   return found;
+}
+
+/** The signer of a "By:" (or "/s/") line: the name on it or on a "Name:" line below, the title on a "Title:" line. */
+function blockSigner(text: string, lines: Line[], at: number, byValue: string | null): ContractSigner | null {
+  const line = lines[at] as Line;
+  let name: string | undefined;
+  let title: string | undefined;
+  // "By: Jane Doe" (rules and "/s/" already stripped) or a conformed "/s/ Jane Doe" line.
+  const value = byValue ?? readPersonName(text, line.start + line.text.indexOf('/s/') + 3, line.end)?.name ?? '';
+  const t = jobTitleOf(value);
+  // "By: its President" gives a title; "By: Jane Doe" a name.
+  if (t !== null) title = t;
+  else if (value.length > 0) name = value;
+  for (let k = at + 1; k < Math.min(lines.length, at + 5); k++) {
+    const t = (lines[k] as Line).text;
+    if (OTHER_SIGNERS.test(t) || labelValue(t, ['by']) !== null) break;
+    const n = labelValue(t, NAME_LABELS);
+    if (n !== null && n.length > 0) name = n;
+    const v = labelValue(t, TITLE_LABELS);
+    if (v !== null && v.length > 0) title = v;
+    // A conformed signature repeats the name, then the bare title: "Quentin Aldous" / "Chief Executive Officer".
+    if (byValue === null && n === null && v === null && title === undefined) title = jobTitleOf(t) ?? undefined;
+  }
+  if (name === undefined) return null;
+  return title === undefined ? { name, capacity: 'signatory' } : { name, title, capacity: 'signatory' };
 }
 
 function entityAbove(text: string, lines: Line[], byIndex: number): SignatureEntity | null {

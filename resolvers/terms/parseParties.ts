@@ -14,6 +14,10 @@ import { extractJurisdiction } from './extractJurisdiction.ts';
 import { findDefinitions } from './findDefinitions.ts';
 import type { Definition, FoundTerm } from './findDefinitions.ts';
 import { findSignatureBlocks } from './findSignatureBlocks.ts';
+import { findSigners } from './findSigners.ts';
+import { findExclusions } from './findExclusions.ts';
+import { matchExclusions } from './matchExclusions.ts';
+import { mergeSigners } from './mergeSigners.ts';
 import { joinsTwoEntities, readsAsName } from './isPlausibleName.ts';
 import { locateName, locateNameAt, NAME_WINDOW, nameStarts } from './locateName.ts';
 import { findPartyItems } from './findPartyItems.ts';
@@ -24,7 +28,8 @@ import type { LocatedName } from './locateName.ts';
 import { NON_PARTY_TERMS } from './nonPartyTerms.ts';
 import { pickRole } from './pickRole.ts';
 import { sameEntityName } from './sameEntityName.ts';
-import type { ContractIdentifier, ContractParty, ParsedContract, ParseOptions } from './types.ts';
+import { sameWithTranslatedForm } from '../analyse/sameWithTranslatedForm.ts';
+import type { ContractIdentifier, ContractParty, ContractSigner, ParsedContract, ParseOptions } from './types.ts';
 
 /** Descriptive text kept per party: enough for any phrase seen in practice, bounded for 1 MB inputs. */
 const MAX_DESCRIPTION = 800;
@@ -83,7 +88,9 @@ class Collector {
     if (!readsAsName(name, analysis)) return null;
     const description = `${this.text.slice(located.descStart, Math.min(located.descEnd, located.descStart + MAX_DESCRIPTION))} ${extraDescription}`.trim();
     if (!located.partyCue && !hasSupport(analysis, description)) return null;
-    const existing = this.byNormalised.get(analysis.normalised) ?? (this.byCore.get(analysis.core) ?? []).find((d) => sameEntityName(d.analysis, analysis));
+    const existing = this.byNormalised.get(analysis.normalised) ?? (this.byCore.get(analysis.core) ?? []).find((d) => sameEntityName(d.analysis, analysis))
+      // "Orvanel Japan Co., Ltd." in the signature block of "Orvanel Japan K.K.": cores differ by the rendered "Co.".
+      ?? (analysis.legalForm === null ? undefined : this.drafts.find((d) => sameWithTranslatedForm(d.analysis, analysis)));
     if (existing !== undefined) {
       const d = existing;
       for (const t of terms) this.addTerm(d, t);
@@ -316,12 +323,21 @@ export function parseParties(text: string, options: ParseOptions = {}): ParsedCo
   // Governing-law and venue places are listed as non-parties: a mention of them is never a counterparty.
   for (const place of findPlaceMentions(text)) c.noteNotParty(place);
   for (const labelled of findLabelledParties(text)) c.addParty(labelled.located, labelled.terms, '');
+  const blockSigners: ContractSigner[][] = [];
   for (const sig of findSignatureBlocks(text)) {
     const d = c.addParty(sig.located, [], sig.description ?? '', sig.label);
     // "LICENSOR:" over a signature binds the term to that entity, unless the contract binds it to another party.
     if (d !== null && sig.label !== undefined) bindLabel(c, d, sig.label);
-    for (const n of sig.notParties) c.noteNotParty(n);
+    blockSigners.push(sig.signers);
   }
+  // Signers' names are non-party names; their titles are capacities, listed with the signer only.
+  const signers = mergeSigners([...blockSigners, findSigners(text)]);
+  for (const s of signers) c.noteNotParty(s.name);
+  // "X, which is not a party hereto": X is mentioned, not a party; its terms bind no party of this contract.
+  const { excluded, mentioned } = matchExclusions(findExclusions(text), c.drafts);
+  for (const d of excluded) c.drafts.splice(c.drafts.indexOf(d), 1);
+  for (const m of mentioned) for (const t of m.terms) c.noteNotParty(t);
+  for (const k of c.collectives) if (k.members !== null) k.members = k.members.filter((d) => !excluded.includes(d));
   const own = (options.ownEntities ?? []).filter((n) => typeof n === 'string' && n.trim().length > 0).map((n) => analyseName(n));
   const drafts = [...c.drafts].sort((a, b) => a.position - b.position);
   const parties = drafts.map((d) => finishParty(d, own));
@@ -331,7 +347,8 @@ export function parseParties(text: string, options: ParseOptions = {}): ParsedCo
     parties: [...(k.members ?? drafts)].sort((a, b) => a.position - b.position).map((d) => d.name),
   }));
   const notParties = c.notParties.filter((n) => !boundKeys.has(termKey(n)));
-  const result: ParsedContract = { parties, collectiveTerms, notParties };
+  const result: ParsedContract = { parties, collectiveTerms, notParties, signers };
+  if (mentioned.length > 0) result.mentioned = mentioned;
   const warnings: string[] = [];
   if (c.overflow > 0) warnings.push(`${c.overflow} more party names were found beyond the limit of ${MAX_PARTIES} parties and are not reported`);
   if (c.overflowTerms > 0) warnings.push(`${c.overflowTerms} more defined terms were found beyond the limit of ${MAX_TERMS_PER_PARTY} per party and are not reported`);

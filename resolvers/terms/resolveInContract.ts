@@ -62,7 +62,11 @@ export function resolveInContract(parsed: ParsedContract, mentionText: string): 
     return { status: 'unbound_term', mention, analysis, explanation: `"${mention}" needs a definition, and this contract does not bind it to a party: it is never matched against the register` };
   }
   if (parsed.notParties.some((n) => termKey(n) === key) || analysis.partyStatus === 'not_a_party') {
-    return { status: 'not_a_party', mention, analysis, explanation: `"${mention}" is not a party (${analysis.partyStatus === 'not_a_party' ? 'the name analysis rules it out' : 'this contract uses it for something else'})` };
+    return { status: 'not_a_party', mention, analysis, explanation: `"${mention}" is not a party (${notPartyReason(parsed, key, analysis.partyStatus === 'not_a_party')})` };
+  }
+  const mentioned = parsed.mentioned?.find((m) => termKey(m.name) === key);
+  if (mentioned !== undefined) {
+    return { status: 'match', mention, analysis, explanation: `"${mention}" is named in this contract, which says it is not a party to it; it goes on to matching as a mentioned entity, not as a party` };
   }
   const same = parties.findIndex((p) => sameEntityName(analyseCached(p.name), analysis));
   if (same >= 0) {
@@ -70,4 +74,17 @@ export function resolveInContract(parsed: ParsedContract, mentionText: string): 
     return { status: 'match', mention, party, analysis, explanation: `"${mention}" names party ${party.name} of this contract; it goes on to matching against the register` };
   }
   return { status: 'match', mention, analysis, explanation: `"${mention}" is not a term of this contract; it goes on to matching against the register` };
+}
+
+/** Why the contract rules a mention out: a signer (and for whom), a term of an entity that is expressly no party, or another use. */
+function notPartyReason(parsed: ParsedContract, key: string, byAnalysis: boolean): string {
+  if (byAnalysis) return 'the name analysis rules it out';
+  const signer = parsed.signers?.find((s) => termKey(s.name) === key);
+  if (signer !== undefined) {
+    const as = signer.capacity === 'signatory' ? `signs${signer.signsFor === undefined ? '' : ` for ${signer.signsFor}`}` : `is the ${signer.capacity}`;
+    return `a person who ${as}${signer.title === undefined ? '' : ` as ${signer.title}`} in this contract`;
+  }
+  const of = parsed.mentioned?.find((m) => m.terms.some((t) => termKey(t) === key));
+  if (of !== undefined) return `the term this contract defines for ${of.name}, which it says is not a party`;
+  return 'this contract uses it for something else';
 }

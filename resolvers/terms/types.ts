@@ -35,6 +35,24 @@ export interface ContractParty {
   address?: string;
 }
 
+/** A person who signs, witnesses or notarises the contract: seen in the text, never a party for that. */
+export interface ContractSigner {
+  /** The name as written, without a form of address ("Oswin Tarrant"). */
+  name: string;
+  /** The capacity stated beside the name ("Managing Director"): a job title, never a name. */
+  title?: string;
+  /** The party the person signs for, as the block writes it, when the block says. */
+  signsFor?: string;
+  capacity: 'signatory' | 'witness' | 'notary';
+}
+
+/** An entity the contract names and expressly says is not a party ("X, which is not a party hereto"). */
+export interface MentionedEntity {
+  name: string;
+  /** Terms the contract defines for it ("Guarantor"): they bind no party of this contract. */
+  terms: string[];
+}
+
 export interface CollectiveTerm {
   term: string;
   /** Names of the parties the term covers (each one is also in `parties`). */
@@ -47,8 +65,12 @@ export type EmptyReason = 'empty_text' | 'binary_data' | 'too_large' | 'no_parti
 export interface ParsedContract {
   parties: ContractParty[];
   collectiveTerms: CollectiveTerm[];
-  /** Terms and names seen that are not parties: `this "Agreement"`, signers' names and titles. */
+  /** Terms and names seen that are not parties: `this "Agreement"`, signers' names (never their job titles). */
   notParties: string[];
+  /** Signatories, witnesses and notaries, with the capacity they sign in (absent on contracts parsed before). */
+  signers?: ContractSigner[];
+  /** Entities named but expressly not parties: recorded as mentioned, never as parties of this contract. */
+  mentioned?: MentionedEntity[];
   /** Present when something was left out (more than MAX_PARTIES parties). */
   warnings?: string[];
   /** Present only when `parties` is empty: why. */

@@ -30,7 +30,10 @@ describe('cpreg contract parse', () => {
     expect(r.stderr).toBe('');
     expect(r.code).toBe(0);
     const out = JSON.parse(r.stdout);
-    expect(Object.keys(out).sort()).toEqual(['collectiveTerms', 'notParties', 'parties']);
+    // Issue 16 adds the signers (a person who signs for a party, with her title) beside the non-party names.
+    expect(Object.keys(out).sort()).toEqual(['collectiveTerms', 'notParties', 'parties', 'signers']);
+    expect(out.signers).toEqual([{ name: 'Jane Harlow', title: 'Chief Executive Officer', capacity: 'signatory', signsFor: 'BRACKENRIDGE FABRICATION, INC.' }]);
+    expect(out.notParties).not.toContain('Chief Executive Officer');
     expect(out.parties.map((p: any) => p.name)).toEqual(['Brackenridge Fabrication, Inc.', 'Pellinore Widgets Ltd']);
     const licensee = out.parties[1];
     for (const key of ['name', 'role', 'terms', 'ownEntity', 'jurisdiction', 'legalForm', 'identifiers', 'aliases', 'related', 'kind']) {

@@ -41,5 +41,20 @@ export function checkCase(c: CorpusCase, parsed: ParsedContract = parseParties(c
     if (!parsed.notParties.includes(n)) diffs.push(`notParties lacks ${JSON.stringify(n)} (got ${JSON.stringify(parsed.notParties)})`);
     if (bound.has(termKey(n))) diffs.push(`${JSON.stringify(n)} is bound to a party`);
   }
+  // Issue 16: a signer is a person signing for a party; her job title is a capacity, never a non-party name.
+  const signers = parsed.signers ?? [];
+  for (const e of c.signers ?? []) {
+    const got = signers.find((x) => x.name === e.name);
+    if (got === undefined) diffs.push(`signer ${e.name} missing (got ${JSON.stringify(signers.map((x) => x.name))})`);
+    else {
+      if (e.title !== undefined && got.title !== e.title) diffs.push(`signer ${e.name}: title ${JSON.stringify(got.title)}, want ${JSON.stringify(e.title)}`);
+      if (e.capacity !== undefined && got.capacity !== e.capacity) diffs.push(`signer ${e.name}: capacity ${got.capacity}, want ${e.capacity}`);
+      if (e.signsFor !== undefined && got.signsFor !== e.signsFor) diffs.push(`signer ${e.name}: signs for ${JSON.stringify(got.signsFor)}, want ${JSON.stringify(e.signsFor)}`);
+    }
+    if (names.includes(e.name) && !want.includes(e.name)) diffs.push(`signer ${e.name} is a party`);
+  }
+  for (const s of signers) if (s.title !== undefined && parsed.notParties.includes(s.title)) diffs.push(`job title ${JSON.stringify(s.title)} listed as a non-party name`);
+  const mentioned = (parsed.mentioned ?? []).map((m) => m.name);
+  if (!sameSet(mentioned, c.mentioned ?? [])) diffs.push(`mentioned: got ${JSON.stringify(mentioned)}, want ${JSON.stringify(c.mentioned ?? [])}`);
   return diffs;
 }

@@ -35,6 +35,10 @@ export interface CorpusCase {
   collective?: { term: string; parties: string[] }[];
   /** Each must be in notParties and must not be a party name or a bound term. */
   notParties?: string[];
+  /** Each must be among the signers, with this title, capacity and party when given; a title is never a non-party. */
+  signers?: { name: string; title?: string; capacity?: 'signatory' | 'witness' | 'notary'; signsFor?: string }[];
+  /** Exactly these entities are named but expressly not parties (absent: none). */
+  mentioned?: string[];
 }
 
 export const CORPUS: CorpusCase[] = [
@@ -59,7 +63,8 @@ Title: Chief Executive Officer`,
       { term: 'Party', parties: ['Brackenridge Fabrication, Inc.', 'Pellinore Widgets Ltd'] },
       { term: 'Parties', parties: ['Brackenridge Fabrication, Inc.', 'Pellinore Widgets Ltd'] },
     ],
-    notParties: ['Agreement', 'Effective Date', 'Jane Harlow', 'Chief Executive Officer'],
+    notParties: ['Agreement', 'Effective Date', 'Jane Harlow'],
+    signers: [{ name: 'Jane Harlow', title: 'Chief Executive Officer', capacity: 'signatory', signsFor: 'BRACKENRIDGE FABRICATION, INC.' }],
   },
   {
     id: 'us-two-terms-affiliates',
@@ -107,7 +112,11 @@ Title: Vice President, Operations`,
       { name: 'QUILLFEATHER SOFTWARE, INC.', terms: [], role: null },
       { name: 'HALVERSON MARINE SUPPLY CO.', terms: [], role: null },
     ],
-    notParties: ['Marta Ekholm', 'President', 'Darnell Price', 'Vice President, Operations'],
+    notParties: ['Marta Ekholm', 'Darnell Price'],
+    signers: [
+      { name: 'Marta Ekholm', title: 'President', signsFor: 'QUILLFEATHER SOFTWARE, INC.' },
+      { name: 'Darnell Price', title: 'Vice President, Operations', signsFor: 'HALVERSON MARINE SUPPLY CO.' },
+    ],
   },
   {
     id: 'us-dba-ein-individual',
@@ -336,7 +345,11 @@ Title: Head of Procurement`,
       { name: 'FENWICK & DALE LIMITED', terms: ['SUPPLIER'], role: 'SUPPLIER' },
       { name: 'Hartwell County Council', terms: ['CUSTOMER'], role: 'CUSTOMER' },
     ],
-    notParties: ['Alistair Bexley', 'Managing Director', 'Sunita Marsh', 'Head of Procurement'],
+    notParties: ['Alistair Bexley', 'Sunita Marsh'],
+    signers: [
+      { name: 'Alistair Bexley', title: 'Managing Director' },
+      { name: 'Sunita Marsh', title: 'Head of Procurement' },
+    ],
   },
   {
     id: 'uk-guarantor-successors',
@@ -477,7 +490,8 @@ By: ________________________
 Name: Haruto Mori
 Title: Representative Director`,
     parties: [{ name: 'Tsukishima Shoji K.K.', terms: [] }],
-    notParties: ['Haruto Mori', 'Representative Director'],
+    notParties: ['Haruto Mori'],
+    signers: [{ name: 'Haruto Mori', title: 'Representative Director', signsFor: 'Tsukishima Shoji K.K.' }],
   },
   {
     id: 'fr-ci-apres',
@@ -639,7 +653,8 @@ By: ______________________
 Name: Colette Ambrose
 Its: Manager`,
     parties: [{ name: 'NORTHWIND ORCHARD SUPPLY, LLC', terms: ['LICENSEE'], role: 'LICENSEE', jurisdiction: 'US-MI' }],
-    notParties: ['Colette Ambrose', 'Manager'],
+    notParties: ['Colette Ambrose'],
+    signers: [{ name: 'Colette Ambrose', title: 'Manager' }],
   },
   {
     id: 'us-commas-inside-quotes',
