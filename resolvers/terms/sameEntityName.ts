@@ -1,13 +1,17 @@
 /**
  * Whether two analysed names stand for the same entity inside one contract (preamble "Qorv Robotics, Inc."
  * and signature block "QORV ROBOTICS, INC."), or a party and one of our own entities. Strict on purpose:
- * equal normalised names, or equal cores with the same (or an absent) legal form family.
+ * equal normalised names, equal cores with the same (or an absent) legal form family, or one name with its local
+ * legal form and an English rendering of that form (sameWithTranslatedForm).
  */
 import type { NameAnalysis } from '../analyse/types.ts';
+import { sameWithTranslatedForm } from '../analyse/sameWithTranslatedForm.ts';
 
 export function sameEntityName(a: NameAnalysis, b: NameAnalysis): boolean {
   if (a.normalised.length === 0 || b.normalised.length === 0) return false;
   if (a.normalised === b.normalised) return true;
+  // "Orvanel Japan Co., Ltd." and "Orvanel Japan K.K.": one entity, its form once in English, once in Japanese.
+  if (sameWithTranslatedForm(a, b)) return true;
   if (a.core.length === 0 || a.core !== b.core) return false;
   const fa = a.legalForm?.family;
   const fb = b.legalForm?.family;
