@@ -12,7 +12,6 @@
  * same file again resumes: rows already stored with the same content count as already_ingested.
  */
 import { createReadStream, statSync } from 'node:fs';
-import { createInterface } from 'node:readline';
 import { parse } from 'csv-parse';
 import type { Kysely } from 'kysely';
 import type { Database } from '../../db/types.ts';
@@ -20,9 +19,11 @@ import { createRegisterContext, type RegisterContext } from '../register/context
 import { resolveBatch } from '../register/batch.ts';
 import { prepareMention } from '../register/resolve/prepare.ts';
 import type { MentionInput } from '../../resolvers/vocabulary.ts';
-import { mentionFromJson, mentionFromRow, resolveColumns, type FieldMap, type RowResult } from './mapping.ts';
+import { MappingError, mentionFromJson, mentionFromRow, resolveColumns, type FieldMap, type RowResult } from './mapping.ts';
 import { RejectsWriter } from './rejects.ts';
 import { unstorableRowReason } from './unstorable-text.ts';
+import { MAX_NDJSON_LINE_BYTES, ndjsonLines } from './ndjson-lines.ts';
+import { duplicateColumn } from './duplicate-column.ts';
 
 export const COUNT_KEYS = ['linked', 'review', 'new', 'own_entity', 'not_a_party', 'unbound_term', 'collective_term', 'already_ingested', 'rejected'] as const;
 export type CountKey = (typeof COUNT_KEYS)[number];
@@ -112,10 +113,14 @@ export interface Row {
 /** Rows of the file, each with its line number and raw text. */
 export async function* rowsOf(file: string, format: IngestFormat, source: string, map: FieldMap, stream: NodeJS.ReadableStream, onSkip: (line: number, reason: string, raw: string) => void): AsyncGenerator<Row> {
   if (format === 'ndjson') {
-    const lines = createInterface({ input: stream, crlfDelay: Infinity });
-    let line = 0;
-    for await (const text of lines) {
-      line++;
+    for await (const read of ndjsonLines(stream as AsyncIterable<Buffer | string>)) {
+      const line = read.line;
+      if ('tooLong' in read) {
+        yield { line, raw: `${read.head}…`, result: { ok: false, reason: `the line is longer than ${MAX_NDJSON_LINE_BYTES} bytes (1 MB), the limit of an NDJSON line` } };
+        continue;
+      }
+      // A byte order mark before the first line is an encoding marker, not text (the CSV reader strips it too).
+      const text = line === 1 && read.text.startsWith('\uFEFF') ? read.text.slice(1) : read.text;
       if (text.trim() === '') continue;
       let value: unknown;
       try {
@@ -149,6 +154,9 @@ export async function* rowsOf(file: string, format: IngestFormat, source: string
     const line = info.lines;
     if (!header) {
       header = record.map((h) => h.trim());
+      // Two columns of one name would leave each row holding only the last one's cell: the file is refused.
+      const twice = duplicateColumn(header);
+      if (twice) throw new MappingError(`the CSV header names the column "${twice.name}" twice (columns ${twice.first} and ${twice.second}); rename or remove one`);
       columns = resolveColumns(header, map);
       continue;
     }
