@@ -13,9 +13,12 @@ export function sameWithTranslatedForm(a: NameAnalysis, b: NameAnalysis): boolea
   return oneWay(a, b) || oneWay(b, a);
 }
 
+/** The local families any country lists renderings for: a cheap first test, as parsers call this per name pair. */
+const LOCAL_FAMILIES: ReadonlySet<string> = new Set(Object.values(TRANSLATED_LEGAL_FORMS).flatMap((byFamily) => Object.keys(byFamily)));
+
 function oneWay(local: NameAnalysis, rendered: NameAnalysis): boolean {
   const form = local.legalForm;
-  if (form === null || rendered.legalForm === null || local.core.length === 0) return false;
+  if (form === null || !LOCAL_FAMILIES.has(form.family) || rendered.legalForm === null || local.core.length === 0) return false;
   const countries = new Set(form.jurisdictions.map((j) => j.slice(0, 2)));
   if (countries.size !== 1) return false;
   const renderings = TRANSLATED_LEGAL_FORMS[[...countries][0] as string]?.[form.family];
