@@ -8,6 +8,11 @@
  * what is stored reads back exactly as sent (no injection, no mangling).
  * The attack strings are common practice (OWASP testing guide families: SQL injection, command injection,
  * path traversal, template injection, CSV formula injection), written from memory.
+ * A third test is a fixed matrix (issue 17): every route receives NUL, a lone surrogate, out-of-range integers,
+ * deep JSON and a wrong media type, placed in the body, the query string and the path by reading the route's
+ * declared parameters from /openapi.json; each input has the answer it must get (status and code), the suite
+ * counts the inputs tried and refused and fails unless every one was refused as expected (a run that refused
+ * nothing, or tried nothing, cannot pass), and nothing may be stored.
  */
 import fc from 'fast-check';
 import { afterAll, beforeAll, expect, it } from 'vitest';
@@ -16,6 +21,7 @@ import { createRegisterContext, resolveMention, stateSnapshot } from '../../serv
 import { describeEachBackend } from '../support/index.ts';
 import { keyedApp, type KeyedApp } from '../services/api/v1-support.ts';
 import { liveRoutes, type LiveRoute } from './route-table.ts';
+import { hostileMatrix, type HostileCase, type OpenApiDoc } from './hostile-matrix.ts';
 
 const RUNS_PER_ROUTE = process.env.CPREG_LONG === '1' ? 60 : 12;
 
@@ -126,6 +132,7 @@ describeEachBackend('hostile input over HTTP', (t) => {
   let k: KeyedApp;
   let routes: LiveRoute[];
   let optionalInput: (route: LiveRoute) => boolean;
+  let openApi: OpenApiDoc;
   beforeAll(async () => {
     const ctx = createRegisterContext(t.db());
     for (const [i, text] of ['Brightwater Kilns Ltd', 'Oakhollow Ceramics GmbH', 'Pennywhistle Looms Inc.'].entries()) {
@@ -135,6 +142,7 @@ describeEachBackend('hostile input over HTTP', (t) => {
     await k.app.ready();
     routes = liveRoutes(k.app);
     const doc = (await k.app.inject({ method: 'GET', url: '/openapi.json' })).json() as OpenApi;
+    openApi = doc as unknown as OpenApiDoc;
     // A change whose input is entirely optional (a job with no options, a mention action with only a
     // reason, a DELETE) is a well-formed request whatever else is wrong: fuzzed after the no-change check.
     optionalInput = (route) => {
@@ -158,12 +166,62 @@ describeEachBackend('hostile input over HTTP', (t) => {
     expect(keys).toEqual(expect.arrayContaining(['POST /v1/mentions', 'POST /v1/counterparties/merge', 'POST /v1/counterparties/:id/split', 'POST /v1/history/:eventId/undo', 'GET /healthz', 'POST /v1/counterparties/:id/forget']));
   });
 
+  // Runs before the random fuzzing: that test's lenient routes start jobs (sweep, reresolve) that go on changing
+  // the register in the background, which this test's nothing-stored check would see.
+  it('matrix: NUL, lone surrogate, out-of-range integers, deep JSON and wrong media types in body, query and path of every route are each refused as expected, and nothing is stored', async () => {
+    const count = async (table: 'history_event' | 'api_key' | 'job' | 'idempotency_record' | 'mention'): Promise<number> =>
+      Number((await t.db().selectFrom(table).select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n);
+    const tables = ['history_event', 'api_key', 'job', 'idempotency_record', 'mention'] as const;
+    const before = { state: await stateSnapshot(t.db()), counts: await Promise.all(tables.map(count)) };
+    const cases: HostileCase[] = hostileMatrix(routes, openApi);
+    const tried: Record<string, number> = {};
+    const refused: Record<string, number> = {};
+    const wrong: string[] = [];
+    for (const [i, c] of cases.entries()) {
+      // Bodies go with an Idempotency-Key: the body hash once overflowed the stack on deep JSON.
+      const body = c.payload === undefined ? {} : { payload: c.payload, headers: { 'content-type': c.contentType ?? 'application/json', 'idempotency-key': `matrix-${i}` } };
+      const res = await k.call('admin', { method: c.method as 'GET', url: c.url, ...body });
+      tried[c.kind] = (tried[c.kind] ?? 0) + 1;
+      const what = `${c.label}: ${res.statusCode} ${res.body.slice(0, 200)}`;
+      expectProblem(res, what);
+      const answer = res.statusCode >= 400 ? (res.json() as { code: string; errors?: { pointer: string; in?: string }[] }) : undefined;
+      const ok =
+        answer !== undefined &&
+        (c.expect.status === undefined || res.statusCode === c.expect.status) &&
+        (c.expect.codes === undefined || c.expect.codes.includes(answer.code)) &&
+        (c.expect.pointer === undefined || (answer.errors ?? []).some((e) => e.pointer === c.expect.pointer && (c.expect.in === undefined || (e.in ?? 'body') === c.expect.in)));
+      if (ok) refused[c.kind] = (refused[c.kind] ?? 0) + 1;
+      else wrong.push(what);
+    }
+    const total = (r: Record<string, number>) => Object.values(r).reduce((a, b) => a + b, 0);
+    console.log(`hostile matrix [${t.backend}]: ${routes.length} routes, ${total(tried)} inputs tried, ${total(refused)} refused as expected; by kind tried ${JSON.stringify(tried)} refused ${JSON.stringify(refused)}`);
+    expect(wrong).toEqual([]);
+    // Every route got a query-string NUL and surrogate; every route with a body got each body input; every path
+    // parameter and declared integer got its input: far more than the route count, and every one refused.
+    expect(total(tried)).toBe(cases.length);
+    expect(cases.length).toBeGreaterThan(routes.length * 5);
+    expect(total(refused)).toBe(total(tried));
+    expect(tried['query NUL']).toBe(routes.length);
+    expect(tried['query surrogate']).toBe(routes.length);
+    const withBody = routes.filter((r) => r.method !== 'GET').length;
+    for (const kind of ['body NUL', 'body surrogate', 'body out-of-range integer', 'body deep JSON', 'body wrong media type']) expect(tried[kind], kind).toBe(withBody);
+    expect(tried['path NUL']).toBeGreaterThan(15);
+    expect(tried['path out-of-range integer']).toBeGreaterThan(15);
+    expect(tried['query out-of-range integer']).toBeGreaterThan(5);
+    // Nothing was stored, and the service still answers.
+    expect(await stateSnapshot(t.db())).toEqual(before.state);
+    expect(await Promise.all(tables.map(count))).toEqual(before.counts);
+    expect((await k.call('read', { method: 'GET', url: '/v1/me' })).statusCode).toBe(200);
+    expect((await k.app.inject({ method: 'GET', url: '/healthz' })).statusCode).toBe(200);
+  }, 300_000);
+
   it('property: malformed input on every route is never a 5xx, always problem+json, and changes nothing', async () => {
     const before = { state: await stateSnapshot(t.db()), events: await count('history_event'), keys: await count('api_key') };
     async function count(table: 'history_event' | 'api_key' | 'job'): Promise<number> {
       return Number((await t.db().selectFrom(table).select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n);
     }
     let requests = 0;
+    let refused = 0;
     const accepted: string[] = [];
     const fuzzRoutes = async (list: LiveRoute[], record: boolean) => {
       for (const route of list) {
@@ -181,6 +239,7 @@ describeEachBackend('hostile input over HTTP', (t) => {
             };
             const res = await k.app.inject(options);
             requests++;
+            if (res.statusCode >= 400) refused++;
             const what = `${route.method} ${url} (${who}) body ${String(body.payload).slice(0, 120)}`;
             expectProblem(res, what);
             if (record && route.method !== 'GET' && res.statusCode < 300 && !route.path.startsWith('/console')) accepted.push(`${what} → ${res.statusCode}`);
@@ -194,6 +253,7 @@ describeEachBackend('hostile input over HTTP', (t) => {
     expect(strict.length).toBeGreaterThan(20);
     await fuzzRoutes(strict, true);
     expect(requests).toBe(strict.length * RUNS_PER_ROUTE);
+    const strictRefused = refused;
     // No malformed change was accepted, and nothing changed.
     expect(accepted).toEqual([]);
     expect(await count('history_event')).toBe(before.events);
@@ -204,6 +264,10 @@ describeEachBackend('hostile input over HTTP', (t) => {
     // Routes whose input is all optional: never a 5xx, always problem+json (they may legitimately change things).
     await fuzzRoutes(lenient, false);
     expect(requests).toBe(routes.length * RUNS_PER_ROUTE);
+    // Counted, so that a run whose inputs were all refused for one trivial reason, or never sent, cannot pass
+    // unnoticed: most random hostile inputs must be refused (a GET may answer 200 to a harmless query).
+    console.log(`hostile fuzz [${t.backend}]: ${requests} requests over ${routes.length} routes, ${refused} refused (4xx), ${requests - refused} answered 2xx/3xx; strict routes ${strictRefused} of ${strict.length * RUNS_PER_ROUTE} refused`);
+    expect(refused).toBeGreaterThan(requests / 2);
     expect(({} as Record<string, unknown>).polluted).toBeUndefined();
   }, 300_000);
 
