@@ -1,10 +1,13 @@
 /**
  * Does a name without legal form look like a natural person's name (given name + family name)?
- * Evidence needed beyond "two capitalised words": an honorific (Mr, Dr …) or a common given name first.
+ * Evidence needed beyond "two capitalised words": an honorific (Mr, Dr …) or a published given name first
+ * (givenNames.ts: Moby Word II's first-name lists).
  * Middle initials ("Iolo T. Brannock") and family-name particles (van, de, von …) are allowed but prove nothing
  * ("Caixa Geral de Depositos", "Q Chem" are organisations). Organisation words rule it out.
- * Word lists are common practice (given names from memory: frequent first names across European languages).
+ * The other word lists (honorifics, suffixes, particles, organisation words) are common practice.
  */
+
+import { GIVEN_NAMES } from './givenNames.ts';
 
 export const HONORIFICS: ReadonlySet<string> = new Set([
   'mr', 'mrs', 'ms', 'miss', 'mx', 'dr', 'prof', 'professor', 'sir', 'dame', 'lord', 'lady', 'herr', 'frau',
@@ -14,23 +17,6 @@ export const PERSON_SUFFIXES: ReadonlySet<string> = new Set(['jr', 'sr', 'ii', '
 const PARTICLES: ReadonlySet<string> = new Set([
   'van', 'von', 'de', 'der', 'den', 'da', 'di', 'du', 'del', 'della', 'le', 'la', 'ten', 'ter', 'bin', 'ibn', 'al', 'dos', 'das',
 ]);
-
-/** Common given names (a small, deliberately general list; from memory). */
-const GIVEN_NAMES: ReadonlySet<string> = new Set(
-  (
-    'adam alan albert alex alexander alice alicia amanda amy ana andrea andrew angela anna anne anthony antonio ' +
-    'barbara ben benjamin bernard brian carl carla carlos carol caroline catherine charles charlotte chris christian ' +
-    'christina christine christopher claire clara daniel david deborah dennis diana donald dorothy edward elena ' +
-    'elizabeth ellen emily emma eric erik eva francesca francis frank fran franz gabriel gareth george gerard ' +
-    'giovanni giulia grace gregory hannah hans harry heinrich helen helena henry hugo ian ingrid iolo isabel ' +
-    'isabella jack jacob james jan jane janet jean jennifer jessica joan johann johanna john jonathan jorge jose ' +
-    'joseph juan julia julian karen karl katherine kevin klaus laura lars lea linda lisa louis lucas lucia luis ' +
-    'maria marie mark martin mary matthew megan michael michel michelle nancy nicholas nicole olivia oliver owen ' +
-    'pablo patricia patrick paul paula peter philip pierre pieter rachel rebecca richard robert rosa ruth ryan ' +
-    'samuel sandra sarah sebastian simon sofia sophie stefan stephen steven susan sven thomas timothy tom ' +
-    'victoria william wolfgang yvonne zoe rhys sian dafydd gwen bronwen cerys emyr huw ieuan nia tomos'
-  ).split(' '),
-);
 
 /** Words that mark an organisation whatever else the name looks like. */
 export const ORGANISATION_WORDS: ReadonlySet<string> = new Set(
@@ -67,7 +53,9 @@ export function looksLikePersonName(words: readonly string[], tokens: readonly s
   const core = tokens.slice(i, end);
   const written = words.length === tokens.length ? words.slice(i, end) : core;
   if (core.length < 2 || core.length > 5) return false;
-  if (GIVEN_NAMES.has(core[0] as string)) evidence = true;
+  // A given name first is evidence, but in three words or more the second must read as a name too (a given name, an
+  // initial, a particle): "Crystal Clear Windows" opens with a given name and is a business.
+  if (GIVEN_NAMES.has(core[0] as string) && (core.length === 2 || secondReadsAsName(core[1] as string))) evidence = true;
   for (let k = 0; k < core.length; k++) {
     const t = core[k] as string;
     const w = written[k] as string;
@@ -80,6 +68,10 @@ export function looksLikePersonName(words: readonly string[], tokens: readonly s
     if (!startsUpper(w)) return false;
   }
   return evidence;
+}
+
+function secondReadsAsName(token: string): boolean {
+  return token.length === 1 || GIVEN_NAMES.has(token) || PARTICLES.has(token);
 }
 
 function isAlphabetic(token: string): boolean {

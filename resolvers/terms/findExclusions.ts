@@ -76,7 +76,8 @@ function nameBefore(text: string, end: number): { start: number; end: number } |
     // A sentence ends at a full stop after a lower-case word ("agreed. Brellwood"): not part of the name.
     if (word.endsWith(';') || word.endsWith(':') || (words > 0 && endsSentence(word))) break;
     if (/^[\p{Lu}\d]/u.test(bare)) capitalised++;
-    else if (!(INNER.has(bare) && words > 0)) break;
+    // A lower-case legal form closes many names ("Kittering Holdings plc", "Qorv s.r.l."); the analysis checks it later.
+    else if (!(INNER.has(bare) && words > 0) && !(words === 0 && (bare.length <= 4 || bare.includes('.')))) break;
     s = w;
     words++;
   }

@@ -10,7 +10,7 @@ import { jobTitleOf } from './isJobTitle.ts';
 import { locateNameAt } from './locateName.ts';
 import type { LocatedName } from './locateName.ts';
 import { readPersonName } from './readPersonName.ts';
-import { signerAfter } from './signerPhrases.ts';
+import { signerAfter, titleAfter } from './signerPhrases.ts';
 import type { ContractSigner } from './types.ts';
 
 export interface SignatureEntity {
@@ -136,9 +136,19 @@ export function findSignatureBlocks(text: string): SignatureEntity[] {
       found.push(entity);
       continue;
     }
-    const lower = line.text.trim().toLowerCase();
+    const lower = asciiLower(line.text.trim());
     if (ON_BEHALF_LINES.some((b) => lower.startsWith(b)) && line.end - line.start <= MAX_ENTITY_LINE) {
       const entity = entityFrom(text, line);
+      if (entity !== null) found.push(entity);
+      continue;
+    }
+    // "Signed by Philippa Strand, director, for and on behalf of HEXHAM LOOM LTD": the entity follows "on behalf of".
+    const behalf = asciiLower(line.text).indexOf('for and on behalf of ');
+    if (lower.startsWith('signed by ') && behalf > 0 && line.end - line.start <= MAX_ENTITY_LINE) {
+      // "… in the presence of:" closes the line: the entity ends before it.
+      const presence = asciiLower(line.text).indexOf(' in the presence', behalf);
+      const end = presence > 0 ? presence : line.text.length;
+      const entity = entityFrom(text, { start: line.start + behalf, end: line.start + end, text: line.text.slice(behalf, end) });
       if (entity !== null) found.push(entity);
     }
   }
@@ -153,14 +163,14 @@ function blockSigner(text: string, lines: Line[], at: number, byValue: string | 
   // "By: Jane Doe" (rules and "/s/" already stripped) or a conformed "/s/ Jane Doe" line.
   const value = byValue ?? readPersonName(text, line.start + line.text.indexOf('/s/') + 3, line.end)?.name ?? '';
   const t = jobTitleOf(value);
-  // "By: its President" gives a title; "By: Jane Doe" a name.
+  // "By: its President" gives a title; "By: Jane Doe, duly authorized officer" a name (and maybe a title).
   if (t !== null) title = t;
-  else if (value.length > 0) name = value;
+  else ({ name, title } = nameAndTitle(value));
   for (let k = at + 1; k < Math.min(lines.length, at + 5); k++) {
     const t = (lines[k] as Line).text;
     if (OTHER_SIGNERS.test(t) || labelValue(t, ['by']) !== null) break;
     const n = labelValue(t, NAME_LABELS);
-    if (n !== null && n.length > 0) name = n;
+    if (n !== null && n.length > 0) ({ name, title } = nameAndTitle(n, title));
     const v = labelValue(t, TITLE_LABELS);
     if (v !== null && v.length > 0) title = v;
     // A conformed signature repeats the name, then the bare title: "Quentin Aldous" / "Chief Executive Officer".
@@ -168,6 +178,15 @@ function blockSigner(text: string, lines: Line[], at: number, byValue: string | 
   }
   if (name === undefined) return null;
   return title === undefined ? { name, capacity: 'signatory' } : { name, title, capacity: 'signatory' };
+}
+
+/** "Dr. Ysolde Farrin" → "Ysolde Farrin"; "Corbin Yates, duly authorized officer" → the name, and a title if it says one. */
+function nameAndTitle(value: string, title?: string): { name?: string; title?: string } {
+  if (value.length === 0) return title === undefined ? {} : { title };
+  const read = readPersonName(value, 0, value.length);
+  if (read === null) return title === undefined ? { name: value } : { name: value, title };
+  const after = titleAfter(value, read.end, value.length) ?? title;
+  return after === undefined ? { name: read.name } : { name: read.name, title: after };
 }
 
 function entityAbove(text: string, lines: Line[], byIndex: number): SignatureEntity | null {

@@ -69,6 +69,12 @@ export function resolveInContract(parsed: ParsedContract, mentionText: string): 
     return { status: 'match', mention, analysis, explanation: `"${mention}" is named in this contract, which says it is not a party to it; it goes on to matching as a mentioned entity, not as a party` };
   }
   const same = parties.findIndex((p) => sameEntityName(analyseCached(p.name), analysis));
+  // "Gareth Pembury d/b/a Pembury Design Studio": a trade or a-k-a name is the same party, never a second counterparty.
+  const byAlias = same >= 0 ? -1 : parties.findIndex((p) => p.aliases.some((a) => a.kind !== 'former' && sameEntityName(analyseCached(a.name), analysis)));
+  if (byAlias >= 0) {
+    const party = ref(parties, byAlias);
+    return { status: 'match', mention, party, analysis, explanation: `"${mention}" is another name (d/b/a, t/a, a/k/a) of party ${party.name} in this contract: the same party, not another counterparty` };
+  }
   if (same >= 0) {
     const party = ref(parties, same);
     return { status: 'match', mention, party, analysis, explanation: `"${mention}" names party ${party.name} of this contract; it goes on to matching against the register` };

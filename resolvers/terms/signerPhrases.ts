@@ -12,7 +12,7 @@ export interface SignerAt extends ReadName {
 }
 
 /** Phrases after which a title stops: "…, Director, for and on behalf of X", "…, duly authorised". */
-const TITLE_STOPS = [' for and on behalf of', ' on behalf of', ' for ', ' duly ', ' in the presence', ' pour le compte', ' für ', ' per conto', ' en nombre'];
+const TITLE_STOPS = [' for and on behalf of', ' on behalf of', ' for ', ' duly ', ' in ', ' known ', ' who ', ' pour le compte', ' für ', ' per conto', ' en nombre'];
 
 /** The job title after `end` when ", <title>" follows the name on the same line (up to `lineEnd`). */
 export function titleAfter(text: string, end: number, lineEnd: number): string | undefined {

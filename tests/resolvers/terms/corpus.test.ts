@@ -6,9 +6,10 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { CORPUS as BASE } from './corpus/contracts.ts';
 import { checkCase } from './corpus/checkCase.ts';
 import { NON_PARTY_SHAPES } from './corpus/nonPartyShapes.ts';
+import { SHAPES_OF, SIGNER_SHAPES } from './corpus/signerShapes.ts';
 
 /** Issue 16's shapes (places, document references, unbound roles) are checked like every other passage. */
-const CORPUS = [...BASE, ...NON_PARTY_SHAPES];
+const CORPUS = [...BASE, ...NON_PARTY_SHAPES, ...SIGNER_SHAPES];
 
 const failures = new Map<string, string[]>();
 
@@ -24,6 +25,16 @@ describe('terms corpus', () => {
   it('has at least three passages per issue-16 shape, in British, US and translated styles', () => {
     for (const shape of ['places', 'document', 'roles']) {
       const ids = NON_PARTY_SHAPES.map((c) => c.id).filter((id) => id.includes(shape === 'roles' ? 'role' : shape));
+      expect(ids.length, shape).toBeGreaterThanOrEqual(3);
+      expect(new Set(ids.map((id) => id.split('-')[0])), shape).toEqual(new Set(['uk', 'us', 'eu']));
+    }
+  });
+
+  it('has at least three passages per signer, exclusion and person shape, in British, US and translated styles', () => {
+    // Issue 16 items 4, 5 and 7: every new shape in more than one drafting style.
+    const shapes = ['conformed', 'on-behalf-by', 'duly-authorised', 'acting-through', 'witness', 'notary', 'exclusion', 'individual', 'sole-trader', 'titled-person'];
+    for (const shape of shapes) {
+      const ids = SIGNER_SHAPES.map((c) => c.id).filter((id) => SHAPES_OF[id]?.includes(shape));
       expect(ids.length, shape).toBeGreaterThanOrEqual(3);
       expect(new Set(ids.map((id) => id.split('-')[0])), shape).toEqual(new Set(['uk', 'us', 'eu']));
     }
