@@ -10,7 +10,10 @@
  *      descriptive phrase supports it (isPlausibleName, parseParties.hasSupport);
  *   2. numbered items of a parties clause that define no term (findPartyItems);
  *   3. "Party A (Seller): X Co., Ltd." label lines, names with a legal form only (findLabelledParties);
- *   4. signature blocks: the entity line above "By:", "for and on behalf of X" (findSignatureBlocks).
+ *   4. signature blocks: the entity line above "By:" or "/s/", "for and on behalf of X" (findSignatureBlocks);
+ *      the people who sign, witness or notarise (findSignatureBlocks, findSigners) are `signers`, with their title:
+ *      their names are non-party names, their titles never;
+ *   5. express exclusions ("X, which is not a party hereto": findExclusions): X is `mentioned`, not a party.
  * The same entity seen twice (preamble and signature block) is merged on the name analysis (sameEntityName).
  * Descriptive phrases give jurisdiction, identifiers (normalised by resolvers/identifiers; a rejected value is kept
  * with its `problem`), address and, through resolvers/analyse, legal form, aliases, related entities and kind.
@@ -27,9 +30,11 @@ export type {
   CollectiveTerm,
   ContractIdentifier,
   ContractParty,
+  ContractSigner,
   EmptyReason,
   InContractResolution,
   InContractStatus,
+  MentionedEntity,
   ParsedContract,
   ParseOptions,
   PartyRef,
