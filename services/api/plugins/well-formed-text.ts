@@ -25,7 +25,8 @@ function ownFields(value: unknown): unknown {
 
 function refuse(where: NonNullable<FieldError['in']>, pointer: string, message: string): ApiError {
   // Names the part, the parameter and the rule; the value itself is never repeated.
-  return new ApiError('UNSTORABLE_TEXT', `${PART_NAME[where]} ${pointer || '(the whole body)'} ${message}`, {
+  const subject = pointer ? `${PART_NAME[where]} ${pointer}` : where === 'body' ? 'the body' : `the ${where === 'query' ? 'query string' : where}`;
+  return new ApiError('UNSTORABLE_TEXT', `${subject} ${message}`, {
     errors: [{ pointer, message, in: where }],
   });
 }

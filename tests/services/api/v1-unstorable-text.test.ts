@@ -52,6 +52,9 @@ describeEachBackend('text the database cannot store, from every part of a reques
   it('refuses a lone surrogate sent as its CESU-8 bytes in the query or the path', async () => {
     expectRefused(await k.call('read', { method: 'GET', url: '/v1/contracts?source=%ED%A0%80' }), 'query', '/source');
     expectRefused(await k.call('read', { method: 'GET', url: '/v1/counterparties?q=a%ED%B0%80' }), 'query', '/q');
+    // A parameter name that does not decode is named by its part alone.
+    const nameless = expectRefused(await k.call('read', { method: 'GET', url: '/v1/counterparties?%ED%A0%80=x' }), 'query', '');
+    expect(nameless.detail).toMatch(/^the query string has a parameter name/);
     const path = await k.call('admin', { method: 'DELETE', url: '/v1/keys/k%ED%A0%80' });
     expect(path.statusCode).toBe(400);
     expect(path.headers['content-type']).toMatch(/^application\/problem\+json/);
