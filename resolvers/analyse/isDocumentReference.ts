@@ -23,6 +23,9 @@ const REFERENCE_OPENERS: ReadonlySet<string> = new Set([
 /** Titles that end in these nouns are documents even without "the": "Master Services Agreement". */
 const TITLE_NOUNS: ReadonlySet<string> = new Set(['agreement', 'agreements', 'contract', 'deed', 'amendment', 'addendum', 'indenture']);
 
+/** Words a document's title runs to before its noun ("Master Software Licence and Services Agreement"). */
+const MAX_TITLE_WORDS = 5;
+
 const ROMAN = /^x{0,2}(?:ix|iv|v?i{0,3})$/u;
 
 /** "2", "4 2" (from "4.2"), "b", "ii", "no": what numbers a part of a document. */
@@ -46,6 +49,8 @@ export function isDocumentReference(tokens: readonly string[]): boolean {
   }
   const last = rest[rest.length - 1] as string;
   if (labelled && (DOCUMENT_PART_HEADS.has(last) || documentTerms().has(rest.join(' ')))) return true;
+  // A title is short: "The Centre for Health Policy" is an organisation, "the Privacy Policy" a document.
+  if (rest.length > MAX_TITLE_WORDS) return false;
   if (TITLE_NOUNS.has(last)) return true;
   return opened && DOCUMENT_NOUNS.has(last);
 }

@@ -15,11 +15,15 @@ const VENUE_WORDS: ReadonlySet<string> = new Set([
 /** The words among VENUE_WORDS that make the phrase a law or venue phrase ("the State of" alone is a polity). */
 const VENUE_HEADS: ReadonlySet<string> = new Set(['laws', 'law', 'courts', 'court', 'jurisdiction', 'venue', 'tribunals', 'jurisdictions']);
 
-/** Polity words written before "of" and a place: "the Commonwealth of Massachusetts", "the Province of Ontario". */
+/**
+ * Polity words written before "of" and a place: "the Commonwealth of Massachusetts", "the Province of Ontario".
+ * "Government of" and "City of" are left out: they name an authority that does sign contracts ("Government of
+ * Alberta", "City of New York" are organisations in ROR).
+ */
 const POLITY_WORDS: ReadonlySet<string> = new Set([
   'state', 'states', 'commonwealth', 'province', 'territory', 'kingdom', 'republic', 'federal', 'federation',
   'grand', 'duchy', 'principality', 'canton', 'county', 'emirate', 'district', 'people', 'peoples', 's',
-  'democratic', 'united', 'islamic', 'socialist', 'union', 'government', 'city', 'region', 'autonomous',
+  'democratic', 'united', 'islamic', 'socialist', 'union', 'region', 'autonomous',
   'community', 'land', 'free', 'sultanate', 'plurinational', 'bolivarian', 'oriental', 'hellenic',
 ]);
 

@@ -105,10 +105,23 @@ export function partyVerdict(text: string, tokens: readonly string[], hasLegalFo
   if (chars < MIN_NAME_CHARS) return { status: 'not_a_party', reason: 'too_short' };
   if (hasLegalForm) return { status: 'party', reason: null };
   // Before roles: "the Services" is the subject matter, "the State of New York" a place, never a role to bind.
-  if (isPlacePhrase(tokens)) return { status: 'not_a_party', reason: 'place' };
-  if (isDocumentReference(tokens)) return { status: 'not_a_party', reason: 'document' };
+  if (!isShortAcronym(text)) {
+    if (isPlacePhrase(tokens)) return { status: 'not_a_party', reason: 'place' };
+    if (isDocumentReference(tokens)) return { status: 'not_a_party', reason: 'document' };
+  }
   if (isRolePhrase(tokens)) return { status: 'needs_binding', reason: 'role_word' };
   return { status: 'party', reason: null };
+}
+
+/**
+ * "ALBA", "JURA", "DPA": one word of at most four capitals is more often an organisation's acronym than a place or
+ * a document (ROR lists such acronyms as organisation names).
+ */
+const MAX_ACRONYM = 4;
+
+function isShortAcronym(text: string): boolean {
+  const word = text.trim();
+  return word.length <= MAX_ACRONYM && /^\p{Lu}+$/u.test(word);
 }
 
 function isRolePhrase(tokens: readonly string[]): boolean {
