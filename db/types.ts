@@ -160,7 +160,10 @@ export interface ContractPartyTable {
 }
 
 export type ReviewKind = 'mention_link' | 'duplicate' | 'affiliate';
-export type ReviewDecision = 'same' | 'different';
+/** A reviewer's answer. `not_a_party` (mention items only): the mention names no party at all. */
+export type ReviewDecision = 'same' | 'different' | 'not_a_party';
+/** What a labelled pair says about two names; "not a party" answers are never labels. */
+export type PairLabel = 'same' | 'different';
 
 export interface ReviewItemTable {
   id: GeneratedInt8;
@@ -194,7 +197,7 @@ export interface LabelledPairTable {
   review_item_id: Int8 | null;
   left_text: string;
   right_text: string;
-  label: ReviewDecision;
+  label: PairLabel;
   features: JsonDefault<Record<string, unknown>>;
   decided_by: string;
   created_at: Timestamp;

@@ -2,6 +2,9 @@
  * The review queue. Items show both sides, the score and its explanation. A decision is one history event:
  *
  *   mention_link  same      → the mention is linked to the candidate (confirmed by the reviewer)
+ *                 not_a_party → the mention names no party (a place, a document word, a signer): set aside as
+ *                             not_a_party, confirmed by the reviewer; kept out of the labelled pairs, since it says
+ *                             nothing about whether two names are one entity
  *                 different → cannot-link (mention, candidate); the mention becomes a new counterparty, and a
  *                             cannot-link (candidate, new counterparty) keeps the two apart in every later
  *                             resolution, sweep and clustering
@@ -10,7 +13,7 @@
  *   affiliate     same      → an affiliate_of relation (never a merge)
  *                 different → cannot-link between them (not affiliated, and not one entity)
  *
- * Every decision is also kept as a labelled pair (labelled_pair) for the scorer to learn from.
+ * Every "same" or "different" decision is also kept as a labelled pair (labelled_pair) for the scorer to learn from.
  */
 import type { ActorInput, RegisterContext } from './context.ts';
 import { RegisterError, invalid, notFound } from './errors.ts';
@@ -28,7 +31,7 @@ import { getMention, type MentionView } from '../../db/queries/mentions.ts';
 import type { Identifier, NameKind } from '../../resolvers/vocabulary.ts';
 
 export type ReviewDecisionInput = {
-  decision: 'same' | 'different';
+  decision: 'same' | 'different' | 'not_a_party';
   reason?: string;
   /**
    * `different` on a mention item only: link the mention to this counterparty (made by the same decision on an
@@ -40,7 +43,7 @@ export type ReviewDecisionInput = {
 export interface ReviewDecisionResult {
   eventId: number;
   reviewItemId: number;
-  decision: 'same' | 'different';
+  decision: 'same' | 'different' | 'not_a_party';
   /** The counterparty the mention or the pair ended in (the survivor of a merge, the new one of a `different`). */
   counterpartyId: number | null;
 }
@@ -111,7 +114,9 @@ export async function decideReview(
   input: ReviewDecisionInput,
   who: ActorInput,
 ): Promise<ReviewDecisionResult> {
-  if (input.decision !== 'same' && input.decision !== 'different') throw invalid('decision', 'must be "same" or "different"');
+  if (input.decision !== 'same' && input.decision !== 'different' && input.decision !== 'not_a_party') {
+    throw invalid('decision', 'must be "same", "different" or "not_a_party"');
+  }
   return write(ctx, async (cs) => {
     const at = ctx.now();
     const reason = input.reason ?? who.reason ?? null;
@@ -140,7 +145,16 @@ export async function decideReview(
       if (mention.status !== 'review' || mention.counterparty_id !== null) {
         throw new RegisterError('CONFLICT', `mention ${String(mention.id)} is no longer waiting for review (status ${String(mention.status)})`);
       }
-      if (input.decision === 'same') {
+      if (input.decision === 'not_a_party') {
+        await cs.update('mention', mention.id as number, {
+          status: 'not_a_party',
+          counterparty_id: null,
+          confirmed_by: who.actor,
+          evidence: { ...(mention.evidence as Record<string, unknown>), notAPartyBy: 'review' },
+          updated_at: at.toISOString(),
+        });
+        resultId = null;
+      } else if (input.decision === 'same') {
         await linkMentionByPerson(cs, mention, right, who.actor, at, 'linked');
       } else if (input.joinCounterpartyId !== undefined) {
         // The group's first mention already became a new counterparty, kept apart from this candidate.
@@ -161,6 +175,7 @@ export async function decideReview(
         await insertCannotLink(cs, { counterpartyId: right, otherCounterpartyId: resultId, reviewItemId, actor: who.actor, reason, at });
       }
     } else {
+      if (input.decision === 'not_a_party') throw invalid('decision', `"not_a_party" answers a mention's item only; item ${reviewItemId} pairs two counterparties`);
       if (left === null) throw new Error(`review item ${reviewItemId} has no left counterparty`);
       leftText = (await cs.require('counterparty', left)).canonical_name as string;
       if (left === right) {
@@ -187,15 +202,17 @@ export async function decideReview(
       decided_at: at.toISOString(),
       reason,
     });
-    await cs.insert('labelled_pair', {
-      review_item_id: reviewItemId,
-      left_text: leftText,
-      right_text: rightCp.canonical_name as string,
-      label: input.decision,
-      features: (item.evidence as Record<string, unknown>) ?? {},
-      decided_by: who.actor,
-      created_at: at.toISOString(),
-    });
+    if (input.decision !== 'not_a_party') {
+      await cs.insert('labelled_pair', {
+        review_item_id: reviewItemId,
+        left_text: leftText,
+        right_text: rightCp.canonical_name as string,
+        label: input.decision,
+        features: (item.evidence as Record<string, unknown>) ?? {},
+        decided_by: who.actor,
+        created_at: at.toISOString(),
+      });
+    }
     const eventId = await commitEvent(cs, {
       type: 'review_decided',
       actor: who.actor,

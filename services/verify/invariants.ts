@@ -135,7 +135,9 @@ export const reviewDecisionsReflected: Check = async (db) => {
   for (const r of items.rows) {
     const id = Number(r.id);
     if (r.decision === null || r.decided_by === null || r.decided_at === null) add(id, 'decided without a decision, a decider or a time');
-    if (r.pairs < 1) add(id, 'no labelled pair records the decision');
+    // "not a party" is never a label (it says nothing about two names); every other decision is one.
+    if (r.decision === 'not_a_party' && r.pairs > 0) add(id, 'decided "not a party" but kept as a labelled pair');
+    if (r.decision !== 'not_a_party' && r.pairs < 1) add(id, 'no labelled pair records the decision');
     if (r.events < 1) add(id, 'no review_decided event in the history');
     if (r.left_counterparty_id === null) continue;
     const left = survivors(Number(r.left_counterparty_id));

@@ -49,7 +49,7 @@ describeEachBackend('/v1/review-items order and group decisions', (ctx) => {
     expect(bad.body).toContain('order');
   });
 
-  it('settles every item of the group with scope "group", and one item alone by default', async () => {
+  it('settles every item of the group with scope "group", and one item alone by default ("not a party" here)', async () => {
     const items = (await k.call('read', { method: 'GET', url: '/v1/review-items' })).json().items as { id: number; group: { itemIds: number[] } }[];
     const decided = await k.call('admin', { method: 'POST', url: `/v1/review-items/${items[0]!.id}/decision`, payload: { decision: 'same', scope: 'group', reason: 'same firm' } });
     expect(decided.statusCode, decided.body).toBe(200);
@@ -57,9 +57,12 @@ describeEachBackend('/v1/review-items order and group decisions', (ctx) => {
     expect(decided.json().skipped).toEqual([]);
     const left = (await k.call('read', { method: 'GET', url: '/v1/review-items' })).json();
     expect(left.open).toBe(1);
-    const one = await k.call('admin', { method: 'POST', url: `/v1/review-items/${left.items[0].id}/decision`, payload: { decision: 'different' } });
+    const one = await k.call('admin', { method: 'POST', url: `/v1/review-items/${left.items[0].id}/decision`, payload: { decision: 'not_a_party' } });
     expect(one.statusCode, one.body).toBe(200);
     expect(one.json().settled).toBeUndefined();
+    expect(one.json().counterpartyId).toBeNull();
+    const mention = await k.call('read', { method: 'GET', url: `/v1/mentions/${left.items[0].mentionId}` });
+    expect(mention.json().status).toBe('not_a_party');
     expect((await k.call('read', { method: 'GET', url: '/v1/review-items' })).json().open).toBe(0);
   });
 });

@@ -11,8 +11,10 @@ import {
   listRankedReviewItems,
   resolveMention,
   storeContract,
+  undoEvent,
   type RegisterContext,
 } from '../../../services/register/index.ts';
+import { verifyRegister } from '../../../services/verify/index.ts';
 import { WHO, contextFor } from './helpers.ts';
 
 const BUSY = 'Quenmarrow Fabrication, Inc.';
@@ -99,5 +101,31 @@ describeEachBackend('review queue order and group decisions', (t) => {
     const apart = await t.db().selectFrom('cannot_link').select('id').where('counterparty_id', '=', quietId).where('other_counterparty_id', '=', made).execute();
     expect(apart.length).toBeGreaterThan(0);
     expect(await listRankedReviewItems(ctx)).toEqual([]);
+  });
+});
+
+describeEachBackend('review decision "not a party"', (t) => {
+  let ctx: RegisterContext;
+  beforeAll(async () => {
+    ctx = contextFor(t.db());
+    // A document word the register let in as a counterparty, then met again: the kind of item a person answers
+    // "not a party", not "different".
+    await resolveMention(ctx, { source: 'np-test', externalId: 'a', text: 'Yarrowmere Lodge' }, WHO);
+  });
+
+  it('sets the mention aside as no party, confirmed, keeps no labelled pair, and undoes exactly', async () => {
+    const r = await resolveMention(ctx, { source: 'np-test', externalId: 'b', text: 'YARROWMERE LODGE' }, WHO);
+    expect(r.status).toBe('review');
+    const decided = await decideReviewGroup(ctx, r.reviewItemId!, { decision: 'not_a_party', reason: 'a house name in the address' }, WHO);
+    expect(decided.counterpartyId).toBeNull();
+    const m = await t.db().selectFrom('mention').select(['status', 'counterparty_id', 'confirmed_by']).where('source', '=', 'np-test').where('external_id', '=', 'b').executeTakeFirstOrThrow();
+    expect([m.status, m.counterparty_id, m.confirmed_by]).toEqual(['not_a_party', null, WHO.actor]);
+    const labels = await t.db().selectFrom('labelled_pair').select('id').where('review_item_id', '=', r.reviewItemId!).execute();
+    expect(labels).toEqual([]);
+    const report = await verifyRegister(t.db());
+    expect(report.checks.filter((c) => !c.ok)).toEqual([]);
+    await undoEvent(ctx, decided.eventId, WHO);
+    const back = await t.db().selectFrom('mention').select(['status']).where('source', '=', 'np-test').where('external_id', '=', 'b').executeTakeFirstOrThrow();
+    expect(back.status).toBe('review');
   });
 });

@@ -226,7 +226,7 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
     {
       config: { scope: 'admin' },
       schema: {
-        summary: 'Decide a review item: same (merge or link) or different (a cannot-link every later resolution honours)',
+        summary: 'Decide a review item: same (merge or link), different (a cannot-link every later resolution honours) or not_a_party (a mention that names no party)',
         tags: ['review'],
         params: ID_PARAM,
         body: {
@@ -234,7 +234,11 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
           required: ['decision'],
           additionalProperties: false,
           properties: {
-            decision: { type: 'string', enum: ['same', 'different'] },
+            decision: {
+              type: 'string',
+              enum: ['same', 'different', 'not_a_party'],
+              description: 'not_a_party (mention items only): the mention names no party (a place, a document word, a signer); it is set aside and never taught to the weights',
+            },
             reason: REASON,
             scope: {
               type: 'string',

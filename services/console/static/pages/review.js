@@ -6,7 +6,7 @@ import { errorBox, facts, toast } from '../ui.js';
 import { legalFormOf } from './counterparty.js';
 
 // Our shortcuts: S same, D different, K skip (keep for later), N note; Esc leaves the note.
-export const SHORTCUTS = { same: 's', different: 'd', skip: 'k', note: 'n' };
+export const SHORTCUTS = { same: 's', different: 'd', notAParty: 'p', skip: 'k', note: 'n' };
 const PAGE = 20;
 
 const FEATURE_WORDS = { name: 'Name', legalForm: 'Legal form', jurisdiction: 'Jurisdiction', acronym: 'Acronym', qualifier: 'Place qualifier', sharedContact: 'Shared contact', identifier: 'Identifier', identifiers: 'Identifiers' };
@@ -122,6 +122,9 @@ export async function render(main, { session }) {
   const note = h('textarea', { id: 'review-note', rows: '2', maxlength: '2000', placeholder: 'why (kept with the decision)', disabled: !canDecide });
   const sameButton = h('button', { type: 'button', class: 'primary decide', id: 'decide-same', disabled: !canDecide, 'aria-keyshortcuts': 'S' }, 'Same ', h('kbd', null, 'S'));
   const differentButton = h('button', { type: 'button', class: 'decide', id: 'decide-different', disabled: !canDecide, 'aria-keyshortcuts': 'D' }, 'Different ', h('kbd', null, 'D'));
+  // A mention that names no party at all (a place, a document word, a signer) is answered as such, not as
+  // "different": that answer is kept out of what the weights learn from.
+  const notPartyButton = h('button', { type: 'button', class: 'decide', id: 'decide-not-a-party', disabled: !canDecide, 'aria-keyshortcuts': 'P' }, 'Not a party ', h('kbd', null, 'P'));
   const skipButton = h('button', { type: 'button', id: 'decide-skip', 'aria-keyshortcuts': 'K' }, 'Skip ', h('kbd', null, 'K'));
   const wholeGroup = h('input', { type: 'checkbox', id: 'review-whole-group', disabled: !canDecide });
   const groupRow = h('p', { class: 'group-row', hidden: true }, wholeGroup, h('label', { for: 'review-whole-group', id: 'review-group-label' }, ''));
@@ -132,9 +135,9 @@ export async function render(main, { session }) {
     h('label', { for: 'review-note' }, 'Note ', h('kbd', null, 'N')),
     note,
     groupRow,
-    h('div', { class: 'decide-row' }, sameButton, differentButton, skipButton),
+    h('div', { class: 'decide-row' }, sameButton, differentButton, notPartyButton, skipButton),
     canDecide ? null : h('p', { class: 'muted', id: 'review-readonly' }, `Your key (${session.me.scope}) may look at the queue; deciding needs an admin key.`),
-    h('p', { class: 'hint keys-hint' }, 'Keys: S same · D different · K skip · N write a note · Esc leave the note.'),
+    h('p', { class: 'hint keys-hint' }, 'Keys: S same · D different · P not a party (a mention only) · K skip · N write a note · Esc leave the note.'),
   );
 
   const record = (id) => {
@@ -199,6 +202,7 @@ export async function render(main, { session }) {
       h('div', { class: 'pair' }, item.kind === 'mention_link' && item.mention ? mentionSide(item) : counterpartySide(left, 'Counterparty', 'side-left'), counterpartySide(right, item.kind === 'mention_link' ? 'Best candidate in the register' : 'Counterparty', 'side-right')),
     );
     replace(scoreSlot, featureBars(item.evidence, item.score));
+    notPartyButton.disabled = !canDecide || item.kind !== 'mention_link';
     // Items of one group (the same spelling waiting on the same candidate) can be settled by one decision.
     const size = item.group?.size ?? 1;
     groupRow.hidden = size < 2;
@@ -212,7 +216,7 @@ export async function render(main, { session }) {
     busy = true;
     const item = current;
     const reason = note.value.trim();
-    sameButton.disabled = differentButton.disabled = true;
+    sameButton.disabled = differentButton.disabled = notPartyButton.disabled = true;
     try {
       const scope = wholeGroup.checked && !groupRow.hidden ? 'group' : 'item';
       const { data } = await api(`/v1/review-items/${item.id}/decision`, { method: 'POST', body: { decision, scope, ...(reason ? { reason } : {}) } });
@@ -223,8 +227,8 @@ export async function render(main, { session }) {
       details.delete(item.rightCounterpartyId);
       details.delete(item.leftCounterpartyId);
       const where = data.counterpartyId ? h('a', { href: `#/counterparty/${data.counterpartyId}`, id: 'decision-result' }, `#${data.counterpartyId}`) : null;
-      replace(outcome, h('p', { class: 'ok', dataset: { item: String(item.id), decision } }, `Item ${item.id}${settled.size > 1 ? ` and ${plural(settled.size - 1, 'item')} like it` : ''}: ${decision}. `, where ? ['The register now shows it under ', where, '.'] : ''));
-      toast(`Decided ${decision} on item ${item.id}.`);
+      replace(outcome, h('p', { class: 'ok', dataset: { item: String(item.id), decision } }, `Item ${item.id}${settled.size > 1 ? ` and ${plural(settled.size - 1, 'item')} like it` : ''}: ${decision.replaceAll('_', ' ')}. `, where ? ['The register now shows it under ', where, '.'] : ''));
+      toast(`Decided ${decision.replaceAll('_', ' ')} on item ${item.id}.`);
       await showNext();
       stage.querySelector('h2')?.focus();
     } catch (error) {
@@ -232,6 +236,7 @@ export async function render(main, { session }) {
     } finally {
       busy = false;
       sameButton.disabled = differentButton.disabled = !canDecide;
+      notPartyButton.disabled = !canDecide || current?.kind !== 'mention_link';
     }
   }
 
@@ -244,6 +249,7 @@ export async function render(main, { session }) {
 
   sameButton.addEventListener('click', () => decide('same'));
   differentButton.addEventListener('click', () => decide('different'));
+  notPartyButton.addEventListener('click', () => decide('not_a_party'));
   skipButton.addEventListener('click', skip);
   const onKey = (event) => {
     if (!stage.isConnected || event.ctrlKey || event.metaKey || event.altKey) return;
@@ -261,6 +267,7 @@ export async function render(main, { session }) {
     const key = event.key.toLowerCase();
     if (key === SHORTCUTS.same) decide('same');
     else if (key === SHORTCUTS.different) decide('different');
+    else if (key === SHORTCUTS.notAParty && current?.kind === 'mention_link') decide('not_a_party');
     else if (key === SHORTCUTS.skip) skip();
     else if (key === SHORTCUTS.note) {
       event.preventDefault();
