@@ -17,17 +17,15 @@ const TITLE_STOPS = [' for and on behalf of', ' on behalf of', ' for ', ' duly '
 /** The job title after `end` when ", <title>" follows the name on the same line (up to `lineEnd`). */
 export function titleAfter(text: string, end: number, lineEnd: number): string | undefined {
   if (text[end] !== ',') return undefined;
-  let stop = lineEnd;
-  const lower = asciiLower(text.slice(end, lineEnd));
-  for (const s of TITLE_STOPS) {
-    const k = lower.indexOf(s);
-    if (k >= 0 && end + k < stop) stop = end + k;
-  }
-  for (const c of [';', '(', '"', '“']) {
-    const k = text.indexOf(c, end + 1);
+  // Only the rest of the line is searched: a search through the whole text per signer would be quadratic.
+  const line = text.slice(end, lineEnd);
+  const lower = asciiLower(line);
+  let stop = line.length;
+  for (const s of [...TITLE_STOPS, ';', '(', '"', '“']) {
+    const k = lower.indexOf(s, 1);
     if (k >= 0 && k < stop) stop = k;
   }
-  const whole = text.slice(end + 1, stop).trim().replace(/,$/u, '');
+  const whole = line.slice(1, stop).trim().replace(/,$/u, '');
   const t = jobTitleOf(whole);
   if (t !== null) return t;
   const comma = whole.indexOf(',');
