@@ -83,7 +83,7 @@ export async function claimIdempotencyKey(
   if (row.method !== input.method || row.path !== input.path || row.body_hash !== input.hash) {
     throw new ApiError(
       'IDEMPOTENCY_KEY_REUSED',
-      `Idempotency-Key ${JSON.stringify(input.key)} was first used for ${row.method} ${row.path} with another body; use a new key for a new request`,
+      `this Idempotency-Key was first used for ${row.method} ${row.path} with another body; use a new key for a new request`,
       { extensions: { firstUsedFor: `${row.method} ${row.path}` } },
     );
   }
@@ -100,7 +100,7 @@ export async function claimIdempotencyKey(
         .executeTakeFirst();
       if (Number(taken.numUpdatedRows) === 1) return { kind: 'claimed' };
     }
-    throw new ApiError('IDEMPOTENCY_KEY_IN_USE', `a request with Idempotency-Key ${JSON.stringify(input.key)} is still being processed; retry in a few seconds`, {
+    throw new ApiError('IDEMPOTENCY_KEY_IN_USE', 'a request with this Idempotency-Key is still being processed; retry in a few seconds', {
       headers: { 'retry-after': '2' },
     });
   }
