@@ -26,6 +26,9 @@ const TITLE_NOUNS: ReadonlySet<string> = new Set(['agreement', 'agreements', 'co
 /** Words a document's title runs to before its noun ("Master Software Licence and Services Agreement"). */
 const MAX_TITLE_WORDS = 5;
 
+/** Words before the number of a cited part ("Statement of Work 3"). */
+const MAX_PART_WORDS = 3;
+
 const ROMAN = /^x{0,2}(?:ix|iv|v?i{0,3})$/u;
 
 /** "2", "4 2" (from "4.2"), "b", "ii", "no": what numbers a part of a document. */
@@ -48,7 +51,8 @@ export function isDocumentReference(tokens: readonly string[]): boolean {
     labelled = true;
   }
   const last = rest[rest.length - 1] as string;
-  if (labelled && (DOCUMENT_PART_HEADS.has(last) || documentTerms().has(rest.join(' ')))) return true;
+  // "Schedule 2", "Statement of Work 3"; a long name ending in "Part II" is a fund's or a firm's ("… Fund Part II").
+  if (labelled && rest.length <= MAX_PART_WORDS && (DOCUMENT_PART_HEADS.has(last) || documentTerms().has(rest.join(' ')))) return true;
   // A title is short: "The Centre for Health Policy" is an organisation, "the Privacy Policy" a document.
   if (rest.length > MAX_TITLE_WORDS) return false;
   if (TITLE_NOUNS.has(last)) return true;

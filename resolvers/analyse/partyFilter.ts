@@ -45,12 +45,12 @@ export const ROLE_WORDS: ReadonlySet<string> = new Set([
 
 /**
  * Words that qualify a role without naming anyone ("Sub-processor", "Data Exporter", "Paying Agent", "Joint
- * Controller"): they neither make a phrase a role nor stop it being one. Common practice.
+ * Controller"): they neither make a phrase a role nor stop it being one. Common practice. Words that also make up
+ * firm names ("Exclusive Partners", "Prime Partners", "Lead Partners" are names in the LEI data) are not here.
  */
 const ROLE_MODIFIERS: ReadonlySet<string> = new Set([
   'sub', 'data', 'joint', 'independent', 'paying', 'escrow', 'security', 'collateral', 'facility', 'administrative',
-  'managing', 'lead', 'prime', 'main', 'general', 'limited', 'authorised', 'authorized', 'original', 'new',
-  'existing', 'exclusive', 'approved', 'permitted', 'designated', 'appointed', 'master', 'local', 'head',
+  'managing', 'authorised', 'authorized', 'original', 'existing', 'approved', 'permitted', 'designated', 'appointed',
   'principal', 'accountable', 'hiring', 'selling', 'buying', 'purchasing', 'supplying', 'sending', 'importing',
   'exporting', 'transferring', 'processing', 'controlling', 'outgoing', 'incoming', 'continuing', 'retiring',
 ]);

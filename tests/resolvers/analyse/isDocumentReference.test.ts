@@ -15,7 +15,7 @@ describe('isDocumentReference', () => {
   });
 
   it('leaves roles, labels of parties and names alone (invented names)', () => {
-    for (const p of ['Party A', 'the Licensee', 'Lender 2', 'its Affiliates', 'Harnwick Schedule Planning', 'Ardle Annex Partners', 'Service Provider', 'The Centre for Coastal Health and Water Policy']) {
+    for (const p of ['Party A', 'the Licensee', 'Lender 2', 'its Affiliates', 'Harnwick Schedule Planning', 'Ardle Annex Partners', 'Service Provider', 'The Centre for Coastal Health and Water Policy', 'Harnwick Credit Opportunities Fund Part II']) {
       expect(doc(p), p).toBe(false);
     }
   });
