@@ -14,8 +14,10 @@
  * quickly, while "same" moves a level up only as far as the decisions show a precision above 0.99 there (a run of
  * 12 confirmations does not; a few hundred do).
  *
- * Bounds: a level needs `minDecisions` decisions before it may move; no shift exceeds `maxShift` bits; shifts are
- * recomputed from all decisions each time (not accumulated), so the same decisions give the same model.
+ * Bounds: every level the decisions touch takes part in the fit (so that two "different" answers on names that
+ * agree but whose legal forms conflict are put down to the legal forms, not to the equal names), but only a level
+ * with `minDecisions` decisions or more keeps its shift; no shift exceeds `maxShift` bits; shifts are recomputed
+ * from all decisions each time (not accumulated), so the same decisions give the same model.
  */
 import type { ComparisonVector } from './em.ts';
 import { featureWeights, type MatchModel } from './matchModel.ts';
@@ -67,7 +69,8 @@ export function adjustFromDecisions(model: MatchModel, decided: readonly Decided
       if (d.isMatch) c.same++;
     });
   }
-  const free = counts.map((levels) => levels.map((c) => c.decisions >= minDecisions));
+  const free = counts.map((levels) => levels.map((c) => c.decisions > 0));
+  const kept = counts.map((levels) => levels.map((c) => c.decisions >= minDecisions));
   const shift = names.map((n) => model.features[n]!.levels.map(() => 0));
   const baseScore = decided.map((d) => d.vector.reduce<number>((s, level, f) => (level === null || level === undefined || f >= names.length ? s : s + (base[f]![level] ?? 0)), 0));
   const target = options.precisionAtLinkAt ?? 0.99;
@@ -98,7 +101,7 @@ export function adjustFromDecisions(model: MatchModel, decided: readonly Decided
   const shifts: LevelShift[] = [];
   names.forEach((name, f) => {
     const feature = model.features[name]!;
-    const row = shift[f]!.map((v) => Math.round(v * 1000) / 1000);
+    const row = shift[f]!.map((v, k) => (kept[f]![k] ? Math.round(v * 1000) / 1000 : 0));
     features[name] = row.some((v) => v !== 0) ? { ...feature, shift: row } : { levels: feature.levels, m: feature.m, u: feature.u };
     row.forEach((v, k) => {
       if (v !== 0) shifts.push({ feature: name, level: feature.levels[k]!, shift: v, ...counts[f]![k]! });
