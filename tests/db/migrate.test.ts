@@ -20,6 +20,26 @@ describeEachBackend('migrations', (ctx) => {
     expect(await schemaSnapshot(ctx.db())).toEqual(before);
   });
 
+  it('recognises an up-to-date database by its recorded names alone, loading no migration module', async () => {
+    const { mkdtempSync, readdirSync, writeFileSync, rmSync } = await import('node:fs');
+    const { tmpdir } = await import('node:os');
+    const { join } = await import('node:path');
+    const { MIGRATIONS_DIR } = await import('../../db/migrate.ts');
+    // The same file names, each a module that throws when loaded: the fast path must not load any.
+    const folder = mkdtempSync(join(tmpdir(), 'cpreg-migrations-'));
+    try {
+      for (const file of readdirSync(MIGRATIONS_DIR)) writeFileSync(join(folder, file), 'throw new Error("loaded");\n');
+      const report = await migrateToLatest(ctx.db(), folder);
+      expect(report.applied).toEqual([]);
+      expect(report.all.length).toBe(readdirSync(MIGRATIONS_DIR).length);
+      // One more file than recorded: the migrator runs (and loads the modules).
+      writeFileSync(join(folder, '29991231000000_later.ts'), 'throw new Error("loaded");\n');
+      await expect(migrateToLatest(ctx.db(), folder)).rejects.toThrow();
+    } finally {
+      rmSync(folder, { recursive: true, force: true });
+    }
+  });
+
   it('enables the extensions the schema uses', async () => {
     const { extensions } = await schemaSnapshot(ctx.db());
     for (const name of REQUIRED_EXTENSIONS) expect(extensions).toContain(name);
