@@ -7,6 +7,7 @@ import { analyseName } from '../analyse/index.ts';
 import { analyseCached } from './analyseCached.ts';
 import { termKey } from './cleanTerm.ts';
 import { sameEntityName } from './sameEntityName.ts';
+import { partyByShortName } from './partyByShortName.ts';
 import type { ContractParty, InContractResolution, ParsedContract, PartyRef } from './types.ts';
 
 function ref(parties: ContractParty[], index: number): PartyRef {
@@ -78,6 +79,12 @@ export function resolveInContract(parsed: ParsedContract, mentionText: string): 
   if (same >= 0) {
     const party = ref(parties, same);
     return { status: 'match', mention, party, analysis, explanation: `"${mention}" names party ${party.name} of this contract; it goes on to matching against the register` };
+  }
+  // "Orvanel" in a contract of "Orvanel Holdings plc": the one party whose name starts so, never a new counterparty.
+  const short = partyByShortName(parties, analysis);
+  if (short >= 0) {
+    const party = ref(parties, short);
+    return { status: 'match', mention, party, analysis, explanation: `"${mention}" is the start of the name of party ${party.name}, the only party of this contract so named` };
   }
   return { status: 'match', mention, analysis, explanation: `"${mention}" is not a term of this contract; it goes on to matching against the register` };
 }

@@ -1,0 +1,23 @@
+/** A short form of a party's name inside its contract (issue 16: own entities and parties in their other forms). Invented names. */
+import { describe, expect, it } from 'vitest';
+import { parseParties, resolveInContract } from '../../../resolvers/terms/index.ts';
+
+const text = 'This Supply Agreement is made on 2 June 2025 between Orvanel Holdings plc, a company incorporated in England and Wales ("Buyer"), and Hanardham Logistics Ltd, a company incorporated in Scotland ("Supplier").';
+
+describe('partyByShortName through resolveInContract', () => {
+  it('the first words of one party\'s name name that party', () => {
+    const parsed = parseParties(text, { ownEntities: ['Orvanel Holdings plc'] });
+    expect(resolveInContract(parsed, 'Orvanel').party?.name).toBe('Orvanel Holdings plc');
+    expect(resolveInContract(parsed, 'Hanardham').party?.name).toBe('Hanardham Logistics Ltd');
+    expect(resolveInContract(parsed, 'HANARDHAM LOGISTICS').party?.name).toBe('Hanardham Logistics Ltd');
+  });
+
+  it('a short name two parties share, a short word, or another name decides nothing', () => {
+    const two = parseParties('This Agreement is made between Orvanel Holdings plc, a company incorporated in England and Wales ("Buyer"), and Orvanel Europe B.V., a company incorporated in the Netherlands ("Seller").');
+    expect(resolveInContract(two, 'Orvanel').party).toBeUndefined();
+    const parsed = parseParties(text);
+    expect(resolveInContract(parsed, 'Orv').party).toBeUndefined();
+    expect(resolveInContract(parsed, 'Tollaby').party).toBeUndefined();
+    expect(resolveInContract(parsed, 'Hanardham Freight').party).toBeUndefined();
+  });
+});
