@@ -1,5 +1,6 @@
 /** What ordering the review queue needs of each open item: its sides, score, mention and contracts touched. */
 import { sql } from 'kysely';
+import type { ReviewFilter } from './review.ts';
 import type { Queryable } from './util.ts';
 import { id, idOrNull } from './util.ts';
 
@@ -27,11 +28,22 @@ interface FactsRow {
 }
 
 /**
- * Every open review item (or only those waiting on one counterparty and of one kind) with the facts the
- * queue's order needs, in one statement.
+ * Every open review item (narrowed by `only`: a kind, the candidate, a mention, a counterparty on either side, an
+ * age) with the facts the queue's order needs, in one statement.
  */
-export async function openReviewFacts(db: Queryable, only?: { kind: string; rightCounterpartyId: number }): Promise<OpenReviewFacts[]> {
-  const filter = only ? sql`AND r.kind = ${only.kind} AND r.right_counterparty_id = ${only.rightCounterpartyId}` : sql``;
+export async function openReviewFacts(
+  db: Queryable,
+  only: Omit<ReviewFilter, 'status'> & { rightCounterpartyId?: number } = {},
+): Promise<OpenReviewFacts[]> {
+  const conditions = [
+    ...(only.kind !== undefined ? [sql`r.kind = ${only.kind}`] : []),
+    ...(only.rightCounterpartyId !== undefined ? [sql`r.right_counterparty_id = ${only.rightCounterpartyId}`] : []),
+    ...(only.mentionId !== undefined ? [sql`r.mention_id = ${only.mentionId}`] : []),
+    ...(only.counterpartyId !== undefined ? [sql`(r.right_counterparty_id = ${only.counterpartyId} OR r.left_counterparty_id = ${only.counterpartyId})`] : []),
+    ...(only.createdBefore !== undefined ? [sql`r.created_at < ${new Date(only.createdBefore)}`] : []),
+    ...(only.createdAfter !== undefined ? [sql`r.created_at >= ${new Date(only.createdAfter)}`] : []),
+  ];
+  const filter = conditions.length > 0 ? sql`AND ${sql.join(conditions, sql` AND `)}` : sql``;
   const result = await sql<FactsRow>`
     WITH open_item AS (
       SELECT r.id, r.kind, r.score, r.mention_id, r.left_counterparty_id, r.right_counterparty_id

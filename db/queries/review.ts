@@ -37,21 +37,51 @@ export function toReviewView(r: Record<string, unknown>): ReviewItemView {
   };
 }
 
-export async function listOpenReviewItems(db: Queryable, page: { afterId?: number; limit?: number } = {}): Promise<ReviewItemView[]> {
-  const rows = await db
+/** Which review items a list shows. Every field narrows; none given: the open items. */
+export interface ReviewFilter {
+  /** Default 'open'. */
+  status?: 'open' | 'decided' | 'obsolete';
+  kind?: 'mention_link' | 'duplicate' | 'affiliate';
+  mentionId?: number;
+  /** Items with this counterparty on either side. */
+  counterpartyId?: number;
+  /** ISO 8601 instants: items raised before / at or after them. */
+  createdBefore?: string;
+  createdAfter?: string;
+}
+
+/** Review items matching `filter`, in id order after `afterId`. */
+export async function listReviewItemsWhere(db: Queryable, filter: ReviewFilter = {}, page: { afterId?: number; limit?: number } = {}): Promise<ReviewItemView[]> {
+  let query = db
     .selectFrom('review_item')
     .selectAll()
-    .where('status', '=', 'open')
-    .where('id', '>', page.afterId ?? 0)
-    .orderBy('id')
-    .limit(page.limit ?? 100)
-    .execute();
+    .where('status', '=', filter.status ?? 'open')
+    .where('id', '>', page.afterId ?? 0);
+  if (filter.kind !== undefined) query = query.where('kind', '=', filter.kind);
+  if (filter.mentionId !== undefined) query = query.where('mention_id', '=', filter.mentionId);
+  if (filter.counterpartyId !== undefined) {
+    const cp = filter.counterpartyId;
+    query = query.where((eb) => eb.or([eb('right_counterparty_id', '=', cp), eb('left_counterparty_id', '=', cp)]));
+  }
+  if (filter.createdBefore !== undefined) query = query.where('created_at', '<', new Date(filter.createdBefore));
+  if (filter.createdAfter !== undefined) query = query.where('created_at', '>=', new Date(filter.createdAfter));
+  const rows = await query.orderBy('id').limit(page.limit ?? 100).execute();
   return rows.map(toReviewView);
+}
+
+export async function listOpenReviewItems(db: Queryable, page: { afterId?: number; limit?: number } = {}): Promise<ReviewItemView[]> {
+  return listReviewItemsWhere(db, {}, page);
 }
 
 export async function getReviewItem(db: Queryable, reviewItemId: number): Promise<ReviewItemView | undefined> {
   const row = await db.selectFrom('review_item').selectAll().where('id', '=', reviewItemId).executeTakeFirst();
   return row ? toReviewView(row) : undefined;
+}
+
+/** The open review item about one mention, if any. */
+export async function openItemOfMention(db: Queryable, mentionId: number): Promise<number | undefined> {
+  const row = await db.selectFrom('review_item').select('id').where('status', '=', 'open').where('mention_id', '=', mentionId).orderBy('id').executeTakeFirst();
+  return row ? id(row.id) : undefined;
 }
 
 /** Open review items about one pair of counterparties (either order) or one mention and a counterparty. */

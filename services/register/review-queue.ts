@@ -9,7 +9,7 @@ import { currentModel } from './matching/model.ts';
 import { analyse } from './matching/analysis.ts';
 import { decideReview, detailsOf, type ReviewDecisionInput, type ReviewDecisionResult, type ReviewItemDetail } from './review.ts';
 import { openReviewFacts, reviewItemsByIds, type OpenReviewFacts } from '../../db/queries/review-queue-facts.ts';
-import { toReviewView } from '../../db/queries/review.ts';
+import { toReviewView, type ReviewFilter } from '../../db/queries/review.ts';
 import { groupKeyOf, rankReviewItems, type RankedReviewItem, type ReviewItemFacts } from '../../resolvers/score/index.ts';
 
 export type RankedReviewItemDetail = ReviewItemDetail & Pick<RankedReviewItem, 'priority' | 'uncertainty' | 'group'>;
@@ -28,15 +28,18 @@ function factsOf(item: OpenReviewFacts): ReviewItemFacts {
   };
 }
 
-/** Every open item ranked (ids and ranks only; cheap enough for the whole queue). */
-export async function rankOpenReviewItems(ctx: RegisterContext): Promise<RankedReviewItem[]> {
-  const [{ model }, facts] = await Promise.all([currentModel(ctx.db), openReviewFacts(ctx.db)]);
+/** Every open item (narrowed by `filter`) ranked: ids and ranks only, cheap enough for the whole queue. */
+export async function rankOpenReviewItems(ctx: RegisterContext, filter: Omit<ReviewFilter, 'status'> = {}): Promise<RankedReviewItem[]> {
+  const [{ model }, facts] = await Promise.all([currentModel(ctx.db), openReviewFacts(ctx.db, filter)]);
   return rankReviewItems(facts.map(factsOf), model);
 }
 
 /** One page of the ranked queue, with both sides of each item. `offset` counts items already shown. */
-export async function listRankedReviewItems(ctx: RegisterContext, page: { offset?: number; limit?: number } = {}): Promise<RankedReviewItemDetail[]> {
-  const ranked = await rankOpenReviewItems(ctx);
+export async function listRankedReviewItems(
+  ctx: RegisterContext,
+  page: { offset?: number; limit?: number; filter?: Omit<ReviewFilter, 'status'> } = {},
+): Promise<RankedReviewItemDetail[]> {
+  const ranked = await rankOpenReviewItems(ctx, page.filter);
   const start = page.offset ?? 0;
   const shown = ranked.slice(start, start + (page.limit ?? 100));
   const rows = await reviewItemsByIds(ctx.db, shown.map((r) => r.id));
@@ -64,7 +67,7 @@ export async function decideReviewGroup(ctx: RegisterContext, reviewItemId: numb
   const item = (await reviewItemsByIds(ctx.db, [reviewItemId]))[0];
   if (!item) throw notFound('review item', reviewItemId);
   const view = toReviewView(item);
-  const facts = view.status === 'open' ? await openReviewFacts(ctx.db, { kind: view.kind, rightCounterpartyId: view.rightCounterpartyId }) : [];
+  const facts = view.status === 'open' ? await openReviewFacts(ctx.db, { kind: view.kind as NonNullable<ReviewFilter['kind']>, rightCounterpartyId: view.rightCounterpartyId }) : [];
   const keyed = facts.map((f) => ({ id: f.id, key: factsOf(f).groupKey }));
   const key = keyed.find((k) => k.id === reviewItemId)?.key;
   const others = key === undefined ? [] : keyed.filter((k) => k.key === key && k.id !== reviewItemId).map((k) => k.id);

@@ -26,7 +26,7 @@ import type { Row } from './state/tables.ts';
 import { write } from './transaction.ts';
 import { analyse } from './matching/analysis.ts';
 import { getSummaries, type CounterpartySummary } from '../../db/queries/counterparties.ts';
-import { listOpenReviewItems, type ReviewItemView } from '../../db/queries/review.ts';
+import { listReviewItemsWhere, type ReviewFilter, type ReviewItemView } from '../../db/queries/review.ts';
 import { getMention, type MentionView } from '../../db/queries/mentions.ts';
 import type { Identifier, NameKind } from '../../resolvers/vocabulary.ts';
 
@@ -54,9 +54,9 @@ export interface ReviewItemDetail extends ReviewItemView {
   right: CounterpartySummary | null;
 }
 
-/** Open review items oldest first (ids after `afterId`), with both sides. */
-export async function listReviewItems(ctx: RegisterContext, page: { afterId?: number; limit?: number } = {}): Promise<ReviewItemDetail[]> {
-  return detailsOf(ctx, await listOpenReviewItems(ctx.db, page));
+/** Review items (open ones unless the filter says otherwise) oldest first (ids after `afterId`), with both sides. */
+export async function listReviewItems(ctx: RegisterContext, page: { afterId?: number; limit?: number; filter?: ReviewFilter } = {}): Promise<ReviewItemDetail[]> {
+  return detailsOf(ctx, await listReviewItemsWhere(ctx.db, page.filter ?? {}, page));
 }
 
 /** The items with their mention and both sides' summaries, in the order given. */

@@ -49,6 +49,26 @@ describeEachBackend('/v1/review-items order and group decisions', (ctx) => {
     expect(bad.body).toContain('order');
   });
 
+  it('answers the next questions of a contract system: the item of a mention, one item, and the queue narrowed', async () => {
+    const all = (await k.call('read', { method: 'GET', url: '/v1/review-items' })).json().items as { id: number; mentionId: number; rightCounterpartyId: number; mention: { externalId: string } }[];
+    const wexbury = all.find((i) => i.mention.externalId === 'w-1')!;
+    const mention = await k.call('read', { method: 'GET', url: `/v1/mentions/${wexbury.mentionId}` });
+    expect(mention.json()).toMatchObject({ status: 'review', reviewItemId: wexbury.id });
+    const one = await k.call('read', { method: 'GET', url: `/v1/review-items/${wexbury.id}` });
+    expect(one.statusCode, one.body).toBe(200);
+    expect(one.json()).toMatchObject({ id: wexbury.id, status: 'open', mention: { externalId: 'w-1' }, right: { id: wexbury.rightCounterpartyId } });
+    expect((await k.call('read', { method: 'GET', url: '/v1/review-items/999999' })).statusCode).toBe(404);
+    const byMention = (await k.call('read', { method: 'GET', url: `/v1/review-items?mentionId=${wexbury.mentionId}` })).json().items;
+    expect(byMention.map((i: { id: number }) => i.id)).toEqual([wexbury.id]);
+    const byCounterparty = (await k.call('read', { method: 'GET', url: `/v1/review-items?counterpartyId=${wexbury.rightCounterpartyId}&order=oldest` })).json().items;
+    expect(byCounterparty.map((i: { mention: { externalId: string } }) => i.mention.externalId)).toEqual(['w-1', 'w-2']);
+    expect((await k.call('read', { method: 'GET', url: '/v1/review-items?kind=duplicate' })).json().items).toEqual([]);
+    expect((await k.call('read', { method: 'GET', url: '/v1/review-items?createdBefore=2000-01-01T00:00:00Z' })).json().items).toEqual([]);
+    expect((await k.call('read', { method: 'GET', url: '/v1/review-items?createdAfter=2000-01-01T00:00:00Z' })).json().items).toHaveLength(3);
+    expect((await k.call('read', { method: 'GET', url: '/v1/review-items?status=decided' })).json().items).toEqual([]);
+    expect((await k.call('read', { method: 'GET', url: '/v1/review-items?createdBefore=yesterday' })).statusCode).toBe(422);
+  });
+
   it('settles every item of the group with scope "group", and one item alone by default ("not a party" here)', async () => {
     const items = (await k.call('read', { method: 'GET', url: '/v1/review-items' })).json().items as { id: number; group: { itemIds: number[] } }[];
     const decided = await k.call('admin', { method: 'POST', url: `/v1/review-items/${items[0]!.id}/decision`, payload: { decision: 'same', scope: 'group', reason: 'same firm' } });
@@ -64,5 +84,10 @@ describeEachBackend('/v1/review-items order and group decisions', (ctx) => {
     const mention = await k.call('read', { method: 'GET', url: `/v1/mentions/${left.items[0].mentionId}` });
     expect(mention.json().status).toBe('not_a_party');
     expect((await k.call('read', { method: 'GET', url: '/v1/review-items' })).json().open).toBe(0);
+    // Decided items stay readable, oldest first, with the decision.
+    const decidedItems = (await k.call('read', { method: 'GET', url: '/v1/review-items?status=decided' })).json().items;
+    expect(decidedItems.map((i: { decision: string }) => i.decision)).toEqual(['not_a_party', 'same', 'same']);
+    const after = await k.call('read', { method: 'GET', url: `/v1/mentions/${left.items[0].mentionId}` });
+    expect(after.json().reviewItemId).toBeNull();
   });
 });

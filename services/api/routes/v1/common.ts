@@ -176,7 +176,8 @@ export const IDENTIFIER = {
     value: { type: 'string', minLength: 1, maxLength: 100 },
     label: { type: 'string', maxLength: 100 },
   },
-  example: { scheme: 'lei', value: '5493001KJTIIGC8Y1R12' },
+  // An invented LEI with valid ISO 17442 check digits (ISO 7064 MOD 97-10; tests/services/api/v1-wording.test.ts checks it).
+  example: { scheme: 'lei', value: 'CPREG0EXAMPLE0000185' },
 } as const;
 
 export const IDENTIFIER_OUT = {
@@ -297,6 +298,7 @@ export const MENTION_OUT = {
     score: { type: 'number', nullable: true },
     evidence: { type: 'object', additionalProperties: true },
     confirmedBy: { type: 'string', nullable: true },
+    reviewItemId: { type: 'integer', nullable: true, description: 'GET /v1/mentions/{id}: the open review item about this mention (GET /v1/review-items/{id}), null when none' },
     legalForm: {
       type: 'object',
       nullable: true,
@@ -322,7 +324,7 @@ export const EVENT_OUT = {
     undoesEventId: { type: 'integer', nullable: true },
     requestId: { type: 'string', nullable: true },
   },
-  example: { id: 118, type: 'merged', actor: 'legal-ops: R. Vance', at: '2026-11-30T10:00:00.000Z', reason: 'same EIN', details: { survivorId: 42, mergedIds: [57] }, counterpartyIds: [42, 57], mentionIds: [], undoesEventId: null },
+  example: { id: 118, type: 'merged', actor: 'legal operations (admin key)', at: '2026-11-30T10:00:00.000Z', reason: 'same EIN', details: { survivorId: 42, mergedIds: [57] }, counterpartyIds: [42, 57], mentionIds: [], undoesEventId: null },
 } as const;
 
 export const CHANGE_RESULT = {

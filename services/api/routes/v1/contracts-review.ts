@@ -1,13 +1,14 @@
 /** Contracts (post: write; read: read), review items (list: read; decide: admin) and the score statistics. */
 import { sql } from 'kysely';
 import { storeContract, type ContractInput } from '../../../register/contracts.ts';
-import { decideReview, listReviewItems, type ReviewDecisionInput } from '../../../register/review.ts';
+import { decideReview, detailsOf, listReviewItems, type ReviewDecisionInput } from '../../../register/review.ts';
+import { getReviewItem } from '../../../../db/queries/review.ts';
 import { decideReviewGroup, listRankedReviewItems } from '../../../register/review-queue.ts';
 import { currentModel } from '../../../register/matching/model.ts';
 import { findContractId, getContract } from '../../../../db/queries/contracts.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import type { RoutePlugin } from '../../types.ts';
-import { ID_PARAM, MENTION_OUT, PAGE_QUERY, REASON, SOURCE_ID, actorOf, decodeCursor, encodeCursor, page, pagedOf, v1Scope } from './common.ts';
+import { ID, ID_PARAM, MENTION_OUT, PAGE_QUERY, REASON, SOURCE_ID, actorOf, decodeCursor, encodeCursor, page, pagedOf, v1Scope } from './common.ts';
 import { RESOLVE_OUT } from './mentions.ts';
 import { withLegalForm } from './legal-form.ts';
 
@@ -47,6 +48,48 @@ const CONTRACT_OUT = {
 } as const;
 
 const SUMMARY = { type: 'object', properties: { id: { type: 'integer' }, canonicalName: { type: 'string' }, jurisdiction: { type: 'string', nullable: true }, status: { type: 'string' }, version: { type: 'integer' } } } as const;
+
+interface ReviewQuery {
+  cursor?: string;
+  limit: number;
+  order: 'priority' | 'oldest';
+  status: 'open' | 'decided' | 'obsolete';
+  kind?: 'mention_link' | 'duplicate' | 'affiliate';
+  mentionId?: number;
+  counterpartyId?: number;
+  createdBefore?: string;
+  createdAfter?: string;
+}
+
+/** One review item with its mention and both sides; the ranked list adds priority, uncertainty and group. */
+const REVIEW_ITEM_OUT = {
+  type: 'object',
+  properties: {
+    id: { type: 'integer' },
+    kind: { type: 'string' },
+    mentionId: { type: 'integer', nullable: true },
+    leftCounterpartyId: { type: 'integer', nullable: true },
+    rightCounterpartyId: { type: 'integer' },
+    score: { type: 'number', nullable: true },
+    evidence: { type: 'object', additionalProperties: true },
+    status: { type: 'string' },
+    createdAt: { type: 'string' },
+    mention: { ...MENTION_OUT, nullable: true },
+    left: { ...SUMMARY, nullable: true },
+    right: { ...SUMMARY, nullable: true },
+    priority: { type: 'number', description: 'order=priority: the group\'s rank value (higher first)' },
+    uncertainty: { type: 'number', description: 'order=priority: 1 midway between the thresholds, 0 at either' },
+    group: {
+      type: 'object',
+      description: 'order=priority: the open items one decision settles (scope "group" on the decision)',
+      properties: { key: { type: 'string' }, size: { type: 'integer' }, itemIds: { type: 'array', items: { type: 'integer' } }, contracts: { type: 'integer' } },
+    },
+    decision: { type: 'string', nullable: true },
+    decidedBy: { type: 'string', nullable: true },
+    decidedAt: { type: 'string', nullable: true },
+    reason: { type: 'string', nullable: true },
+  },
+} as const;
 
 const DECISION_OUT = { eventId: { type: 'integer' }, reviewItemId: { type: 'integer' }, decision: { type: 'string' }, counterpartyId: { type: 'integer', nullable: true } } as const;
 
@@ -159,7 +202,7 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
     },
   );
 
-  app.get<{ Querystring: { cursor?: string; limit: number; order: 'priority' | 'oldest' } }>(
+  app.get<{ Querystring: ReviewQuery }>(
     '/v1/review-items',
     {
       config: { scope: 'read' },
@@ -174,50 +217,56 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
         querystring: {
           type: 'object',
           additionalProperties: false,
-          properties: { ...PAGE_QUERY, order: { type: 'string', enum: ['priority', 'oldest'], default: 'priority' } },
+          properties: {
+            ...PAGE_QUERY,
+            order: { type: 'string', enum: ['priority', 'oldest'], default: 'priority', description: 'priority applies to open items; other statuses come oldest first' },
+            status: { type: 'string', enum: ['open', 'decided', 'obsolete'], default: 'open' },
+            kind: { type: 'string', enum: ['mention_link', 'duplicate', 'affiliate'] },
+            mentionId: { ...ID, description: 'items about this mention' },
+            counterpartyId: { ...ID, description: 'items with this counterparty on either side' },
+            createdBefore: { type: 'string', format: 'date-time', description: 'items raised before this instant (ISO 8601)' },
+            createdAfter: { type: 'string', format: 'date-time', description: 'items raised at or after this instant (ISO 8601)' },
+          },
         },
         response: {
-          200: withOpenCount(pagedOf({
-            type: 'object',
-            properties: {
-              id: { type: 'integer' },
-              kind: { type: 'string' },
-              mentionId: { type: 'integer', nullable: true },
-              leftCounterpartyId: { type: 'integer', nullable: true },
-              rightCounterpartyId: { type: 'integer' },
-              score: { type: 'number', nullable: true },
-              evidence: { type: 'object', additionalProperties: true },
-              status: { type: 'string' },
-              createdAt: { type: 'string' },
-              mention: { ...MENTION_OUT, nullable: true },
-              left: { ...SUMMARY, nullable: true },
-              right: { ...SUMMARY, nullable: true },
-              priority: { type: 'number', description: 'order=priority: the group\'s rank value (higher first)' },
-              uncertainty: { type: 'number', description: 'order=priority: 1 midway between the thresholds, 0 at either' },
-              group: {
-                type: 'object',
-                description: 'order=priority: the open items one decision settles (scope "group" on the decision)',
-                properties: { key: { type: 'string' }, size: { type: 'integer' }, itemIds: { type: 'array', items: { type: 'integer' } }, contracts: { type: 'integer' } },
-              },
-            },
-          })),
+          200: withOpenCount(pagedOf(REVIEW_ITEM_OUT)),
         },
       },
     },
     async (request) => {
-      const { limit, order } = request.query;
+      const { limit, order, cursor: _cursor, status, ...narrow } = request.query;
+      const filter = { ...narrow, status };
       const start = decodeCursor(request.query.cursor);
       const total = await db.selectFrom('review_item').select((eb) => eb.fn.countAll<string>().as('n')).where('status', '=', 'open').executeTakeFirstOrThrow();
-      if (order === 'oldest') {
-        const items = await listReviewItems(ctx, { afterId: start, limit: limit + 1 });
+      if (order === 'oldest' || status !== 'open') {
+        const items = await listReviewItems(ctx, { afterId: start, limit: limit + 1, filter });
         const withForms = items.map((item) => ({ ...item, mention: item.mention ? withLegalForm(item.mention) : null }));
         return { ...page(withForms, limit), open: Number(total.n) };
       }
       // The cursor of the ranked order is the count of items already shown.
-      const items = await listRankedReviewItems(ctx, { offset: start, limit: limit + 1 });
+      const items = await listRankedReviewItems(ctx, { offset: start, limit: limit + 1, filter: narrow });
       const withForms = items.map((item) => ({ ...item, mention: item.mention ? withLegalForm(item.mention) : null }));
       const more = withForms.length > limit;
       return { items: more ? withForms.slice(0, limit) : withForms, nextCursor: more ? encodeCursor(start + limit) : null, open: Number(total.n) };
+    },
+  );
+
+  app.get<{ Params: { id: number } }>(
+    '/v1/review-items/:id',
+    {
+      config: { scope: 'read' },
+      schema: {
+        summary: 'One review item, open or decided, with both sides, the score and its explanation',
+        tags: ['review'],
+        params: ID_PARAM,
+        response: { 200: REVIEW_ITEM_OUT, ...problemResponses(404) },
+      },
+    },
+    async (request) => {
+      const item = await getReviewItem(db, request.params.id);
+      if (!item) throw new ApiError('NOT_FOUND', `review item ${request.params.id} does not exist`);
+      const [detail] = await detailsOf(ctx, [item]);
+      return { ...detail!, mention: detail!.mention ? withLegalForm(detail!.mention) : null };
     },
   );
 

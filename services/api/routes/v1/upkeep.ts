@@ -1,6 +1,7 @@
 /** Mention upkeep (admin): unlink, set aside, withdraw; and own entities (read to list, admin to change). */
 import { setAsideMention, unlinkMention, withdrawMention } from '../../../register/upkeep.ts';
 import { addOwnEntity, ownEntities, removeOwnEntity } from '../../../register/own-entities.ts';
+import { openItemOfMention } from '../../../../db/queries/review.ts';
 import { getMention } from '../../../../db/queries/mentions.ts';
 import { withLegalForm } from './legal-form.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
@@ -35,7 +36,9 @@ export const upkeepRoutes: RoutePlugin = (app, deps) => {
     async (request) => {
       const mention = await getMention(deps.db, request.params.id);
       if (!mention) throw new ApiError('NOT_FOUND', `mention ${request.params.id} does not exist`);
-      return withLegalForm(mention);
+      // A contract system asks next "which item do I decide?": answered here, not by paging the queue.
+      const reviewItemId = mention.status === 'review' ? ((await openItemOfMention(deps.db, mention.id)) ?? null) : null;
+      return { ...withLegalForm(mention), reviewItemId };
     },
   );
 
