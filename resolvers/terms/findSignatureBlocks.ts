@@ -6,6 +6,7 @@
  * Y, President" the entity ends before "by".
  */
 import { asciiLower } from './asciiLower.ts';
+import { analyseCached } from './analyseCached.ts';
 import { jobTitleOf } from './isJobTitle.ts';
 import { locateNameAt } from './locateName.ts';
 import type { LocatedName } from './locateName.ts';
@@ -131,6 +132,9 @@ export function findSignatureBlocks(text: string): SignatureEntity[] {
     if (by !== null || conformed) {
       const entity = entityAbove(text, lines, i);
       if (entity === null) continue;
+      // Above a bare "/s/" line only a company signs: stacked conformed signatures of individuals (a board's
+      // signature page) have the previous signer's name above, who is no party.
+      if (conformed && !readsAsCompany(text.slice(entity.located.nameStart, entity.located.fullEnd))) continue;
       const signer = blockSigner(text, lines, i, by);
       if (signer !== null) entity.signers.push({ ...signer, signsFor: text.slice(entity.located.nameStart, entity.located.nameEnd) });
       found.push(entity);
@@ -180,6 +184,12 @@ function blockSigner(text: string, lines: Line[], at: number, byValue: string | 
   return title === undefined ? { name, capacity: 'signatory' } : { name, title, capacity: 'signatory' };
 }
 
+/** A legal form or an organisation word: the analysis says a company, not a person. */
+function readsAsCompany(name: string): boolean {
+  const a = analyseCached(name);
+  return a.legalForm !== null || a.kind === 'organisation';
+}
+
 /** "Dr. Ysolde Farrin" → "Ysolde Farrin"; "Corbin Yates, duly authorized officer" → the name, and a title if it says one. */
 function nameAndTitle(value: string, title?: string): { name?: string; title?: string } {
   if (value.length === 0) return title === undefined ? {} : { title };
@@ -194,6 +204,8 @@ function entityAbove(text: string, lines: Line[], byIndex: number): SignatureEnt
   for (let j = byIndex - 1; j >= 0 && j >= byIndex - LOOK_UP; j--) {
     const line = lines[j] as Line;
     if (isSkippable(line.text)) continue;
+    // A job title belongs to the block above ("Title: CEO" / "Chief Executive Officer"): no entity for this one.
+    if (jobTitleOf(stripRule(line.text).replace(/^title\s*:/iu, '')) !== null) return null;
     // "QORV ROBOTICS, INC.," / "a Delaware corporation" / "By: ___": the descriptive line sits between.
     if (/^\s*(?:a|an)\s/u.test(line.text)) {
       description = line.text.trim();

@@ -14,11 +14,14 @@ export interface SignerAt extends ReadName {
 /** Phrases after which a title stops: "…, Director, for and on behalf of X", "…, duly authorised". */
 const TITLE_STOPS = [' for and on behalf of', ' on behalf of', ' for ', ' duly ', ' in ', ' known ', ' who ', ' pour le compte', ' für ', ' per conto', ' en nombre'];
 
+/** A title and what may follow it on the line ("…, Vice President, Operations, for and on behalf of"). Common practice. */
+const MAX_TITLE_CHARS = 160;
+
 /** The job title after `end` when ", <title>" follows the name on the same line (up to `lineEnd`). */
 export function titleAfter(text: string, end: number, lineEnd: number): string | undefined {
   if (text[end] !== ',') return undefined;
   // Only the rest of the line is searched: a search through the whole text per signer would be quadratic.
-  const line = text.slice(end, lineEnd);
+  const line = text.slice(end, Math.min(lineEnd, end + MAX_TITLE_CHARS));
   const lower = asciiLower(line);
   let stop = line.length;
   for (const s of [...TITLE_STOPS, ';', '(', '"', '“']) {

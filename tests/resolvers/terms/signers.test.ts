@@ -4,7 +4,8 @@
  * are the execution-clause conventions of US, UK and translated drafting (common practice).
  */
 import { describe, expect, it } from 'vitest';
-import { parseParties, resolveInContract } from '../../../resolvers/terms/index.ts';
+import { MAX_CONTRACT_BYTES, parseParties, resolveInContract } from '../../../resolvers/terms/index.ts';
+import { MAX_SIGNERS } from '../../../resolvers/terms/mergeSigners.ts';
 import { findSigners } from '../../../resolvers/terms/findSigners.ts';
 import { findExclusions } from '../../../resolvers/terms/findExclusions.ts';
 import { isJobTitle, jobTitleOf } from '../../../resolvers/terms/isJobTitle.ts';
@@ -128,4 +129,37 @@ describe('express exclusions', () => {
     expect(named.party).toBeUndefined();
     expect(named.explanation).toContain('not a party');
   });
+});
+
+describe('signer and exclusion scanners on adversarial 1 MB inputs', () => {
+  // The ceiling only catches hangs and quadratic scans (a per-signer search of the whole text took minutes).
+  const HANG_CEILING_MS = 30_000;
+  const grow = (unit: (i: number) => string): string => {
+    const parts: string[] = [];
+    let bytes = 0;
+    for (let i = 0; ; i++) {
+      const u = unit(i);
+      if (bytes + u.length > MAX_CONTRACT_BYTES - 16) break;
+      parts.push(u);
+      bytes += u.length;
+    }
+    return parts.join('');
+  };
+  // Letters, not digits, make each invented name unique: a name holds no digit.
+  const coined = (i: number): string => `Q${i.toString(26).replace(/\d/gu, (d) => String.fromCharCode(0x61 + Number(d)))}by`;
+  const inputs: Array<[string, string]> = [
+    ['on-behalf lines with a new signer each', grow((i) => `Signed for and on behalf of QORV LTD by Maren ${coined(i)}, Managing Director\n`)],
+    ['witness labels with a new name each', grow((i) => `Witness: ____\nName: Theda ${coined(i)}\n`)],
+    ['conformed signatures', grow((i) => `/s/ Quentin ${coined(i)}\nChief Executive Officer\n`)],
+    ['represented-by runs on one line', grow(() => 'represented by Mr Anselm Anselm Anselm, its ')],
+    ['exclusions', grow((i) => `${coined(i)} Holdings plc (the "Guarantor") is not a party to this Deed. `)],
+    ['not-a-party phrases after lower-case words', grow(() => 'which is not a party ')],
+  ];
+  it.each(inputs)('%s: finishes well under the hang ceiling', (_label, text) => {
+    const started = Date.now();
+    const parsed = parseParties(text);
+    expect(Date.now() - started).toBeLessThan(HANG_CEILING_MS);
+    for (const p of parsed.parties) expect(text.includes(p.name)).toBe(true);
+    expect((parsed.signers ?? []).length).toBeLessThanOrEqual(MAX_SIGNERS);
+  }, HANG_CEILING_MS * 2);
 });
