@@ -97,6 +97,7 @@ export async function startServer(options: ServeOptions): Promise<RunningServer>
       } finally {
         await database.close();
         logger.flush?.();
+        say(`cpreg: stopped; ${url} no longer answers and the database is closed`);
         resolveStopped();
       }
     })();

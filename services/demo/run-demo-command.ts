@@ -230,8 +230,7 @@ async function serve(options: DemoCliOptions, suggest: Omit<Suggestions, 'url'>,
     throw error;
   }
   if (!options.json) process.stdout.write(`${afterServing({ ...suggest, url: running.url })}\n`);
-  await running.stopped;
-  note('cpreg demo: stopped; the database is closed');
+  await running.stopped; // the server has said it stopped and closed the database
 }
 
 export interface Suggestions {

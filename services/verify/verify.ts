@@ -7,6 +7,7 @@ import type { Kysely } from 'kysely';
 import type { Database } from '../../db/types.ts';
 import { INVARIANT_CHECKS, type Violation } from './invariants.ts';
 import { checkReplay } from './replay-check.ts';
+import { countOf } from '../cli/count-words.ts';
 
 export interface VerifyOptions {
   /** Replay the history into a scratch database and compare (default true). */
@@ -57,18 +58,30 @@ async function verifyIn(db: Kysely<Database>, options: VerifyOptions): Promise<V
   };
 }
 
-/** The report as lines for a terminal. */
+/** What each check holds when it passes, as the terminal report says it (the JSON keeps the check's id). */
+export const CHECK_HOLDS: Record<string, string> = {
+  mention_not_on_active_counterparty: 'every linked or new mention points to an active counterparty',
+  merged_counterparty_owns_rows: 'a merged counterparty owns no names, identifiers or mentions',
+  redirect_chain_broken: 'every merged id leads to an active counterparty',
+  strong_identifier_shared: 'each strong identifier belongs to one active counterparty',
+  review_decision_not_reflected: 'every decided review item has its recorded decision, history and effect',
+  ingest_counts_do_not_reconcile: 'every finished ingest run accounts for each row it read',
+  replay_differs: 'replaying the history from empty gives the register as it is',
+};
+
+/** The report as lines for a terminal: each check named by what holds, its id in --json. */
 export function formatVerifyReport(report: VerifyReport): string {
   const lines: string[] = [];
   const c = report.counts;
   lines.push(
-    `checked ${c.counterparties} counterparties, ${c.mentions} mentions, ${c.historyEvents} history events` +
-      (c.replayedEvents === null ? ' (replay skipped)' : ` (replayed ${c.replayedEvents})`),
+    `checked ${countOf(c.counterparties, 'counterparty')}, ${countOf(c.mentions, 'mention')}, ${countOf(c.historyEvents, 'history event')}` +
+      (c.replayedEvents === null ? ' (replay skipped)' : ` (replayed ${c.replayedEvents.toLocaleString('en-US')})`),
   );
   for (const check of report.checks) {
-    lines.push(`${check.ok ? 'ok  ' : 'FAIL'} ${check.check}${check.ok ? '' : `: ${check.violationCount} violation(s)`}`);
+    const holds = CHECK_HOLDS[check.check] ?? check.check.replaceAll('_', ' ');
+    lines.push(check.ok ? `ok:   ${holds}` : `FAIL: ${holds}: not so for ${countOf(check.violationCount, 'case')} (${check.check})`);
     for (const v of check.violations) lines.push(`       ${v.message}`);
-    if (check.violationCount > check.violations.length) lines.push(`       … and ${check.violationCount - check.violations.length} more (use --json --limit)`);
+    if (check.violationCount > check.violations.length) lines.push(`       … and ${(check.violationCount - check.violations.length).toLocaleString('en-US')} more (use --json --limit)`);
   }
   lines.push(report.ok ? 'register verified: no violations' : 'register NOT verified: see the violations above');
   return lines.join('\n');

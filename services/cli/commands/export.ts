@@ -4,6 +4,9 @@ import type { Command } from 'commander';
 import { CliError } from '../cli-error.ts';
 import { DB_OPTION_HELP } from './serve.ts';
 
+/** What each export holds, as the summary line names it. */
+const KIND_WORDS = { register: 'the register', links: 'mention links', history: 'the history', review: 'review items' } as const;
+
 export default function register(program: Command): void {
   program
     .command('export')
@@ -19,7 +22,7 @@ export default function register(program: Command): void {
       if (!(EXPORT_KINDS as readonly string[]).includes(kind)) throw new CliError(`export ${kind}: expected one of ${EXPORT_KINDS.join(', ')}`);
       if (!(EXPORT_FORMATS as readonly string[]).includes(options.format)) throw new CliError(`--format ${options.format}: expected csv or ndjson`);
       const { createWriteStream } = await import('node:fs');
-      const { withDatabase, progressReporter } = await import('../../ingest/cli-support.ts');
+      const { withDatabase, progressReporter, countOf } = await import('../../ingest/cli-support.ts');
       const out = options.out ? createWriteStream(options.out) : process.stdout;
       const progress = progressReporter(`export ${kind}`, 'rows');
       let rows = 0;
@@ -36,7 +39,7 @@ export default function register(program: Command): void {
         await once(out, 'finish');
         progress.finish();
         const summary = { kind, format: options.format, rows, file: options.out };
-        process.stdout.write(options.json ? `${JSON.stringify(summary)}\n` : `exported ${rows} ${kind} rows to ${options.out}\n`);
+        process.stdout.write(options.json ? `${JSON.stringify(summary)}\n` : `exported ${countOf(rows, 'row')} of ${KIND_WORDS[kind as keyof typeof KIND_WORDS]} to ${options.out}\n`);
       }
     });
 }

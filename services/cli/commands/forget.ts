@@ -4,6 +4,22 @@ import { CliError } from '../cli-error.ts';
 import { DB_OPTION_HELP } from './serve.ts';
 import { withRegister } from './own-entities.ts';
 
+/** What the rows of each register table hold, singular and plural, for the summary line. */
+const HOLDS: Record<string, [string, string]> = {
+  own_entity: ['own entity', 'own entities'],
+  counterparty: ['counterparty', 'counterparties'],
+  counterparty_name: ['name', 'names'],
+  counterparty_identifier: ['identifier', 'identifiers'],
+  counterparty_relation: ['relation', 'relations'],
+  contract: ['contract', 'contracts'],
+  defined_term: ['defined term', 'defined terms'],
+  mention: ['mention', 'mentions'],
+  contract_party: ['contract party', 'contract parties'],
+  review_item: ['review item', 'review items'],
+  cannot_link: ['cannot-link decision', 'cannot-link decisions'],
+  labelled_pair: ['reviewer decision', 'reviewer decisions'],
+};
+
 export default function register(program: Command): void {
   program
     .command('forget')
@@ -21,9 +37,13 @@ export default function register(program: Command): void {
         const result = await forgetCounterparty(ctx, Number(idText), { actor, reason: options.reason }, { allowOrganisation: options.organisation ?? false });
         if (options.json) process.stdout.write(`${JSON.stringify(result)}\n`);
         else {
-          const rows = Object.entries(result.rows).map(([t, n]) => `${n} ${t}`).join(', ');
+          const { countOf } = await import('../../ingest/cli-support.ts');
+          const rows = Object.entries(result.rows).map(([table, n]) => {
+            const [one, many] = HOLDS[table] ?? [`${table.replaceAll('_', ' ')} row`, `${table.replaceAll('_', ' ')} rows`];
+            return countOf(n, one, many);
+          });
           process.stdout.write(
-            `counterparty ${result.counterpartyId} erased as "${result.pseudonym}" (event ${result.eventId}): rewrote ${rows || 'no rows'}, ${result.events} history events, ${result.storedAnswers} stored answers\n`,
+            `counterparty ${result.counterpartyId} erased as "${result.pseudonym}" (change ${result.eventId}): rewrote ${[...rows, countOf(result.events, 'history event'), countOf(result.storedAnswers, 'stored answer')].join(', ')}\n`,
           );
         }
       });

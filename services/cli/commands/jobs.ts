@@ -8,6 +8,7 @@ import type { Database } from '../../../db/types.ts';
 import type { JobRow } from '../../../db/queries/jobs.ts';
 import type { JobQueue } from '../../../db/job-queue.ts';
 import { CliError } from '../cli-error.ts';
+import { countOf } from '../count-words.ts';
 import { DB_OPTION_HELP } from './serve.ts';
 
 interface ShowOptions {
@@ -30,7 +31,7 @@ export async function followJob(db: Kysely<Database>, jobId: number, label: stri
         bar.update({
           done: partitions.mentionsDone,
           fraction: partitions.mentions > 0 ? partitions.mentionsDone / partitions.mentions : 0,
-          note: `${stage}: ${partitions.done}/${partitions.total} partitions done${partitions.running > 0 ? `, ${partitions.running} running` : ''}`,
+          note: `${stage}: ${partitions.done.toLocaleString('en-US')} of ${countOf(partitions.total, 'partition')} done${partitions.running > 0 ? `, ${partitions.running.toLocaleString('en-US')} running` : ''}`,
         });
         if (!hinted && job.status === 'queued' && Date.now() - started > 15_000) {
           hinted = true;
@@ -79,22 +80,54 @@ export async function submitAndFollow(
   });
 }
 
+/** What each count of a job's result means, in words (ingest outcomes and the sweep's tallies). */
+const RESULT_WORDS: Record<string, string> = {
+  linked: 'linked',
+  review: 'in review',
+  new: 'new counterparty',
+  own_entity: 'own entity',
+  not_a_party: 'not a party',
+  unbound_term: 'unbound defined term',
+  collective_term: 'collective term',
+  already_ingested: 'already ingested',
+  rejected: 'rejected',
+  scanned: 'counterparties scanned',
+  duplicateItems: 'duplicate review items filed',
+  affiliateItems: 'affiliate review items filed',
+  skippedExisting: 'already filed, skipped',
+  skippedCannotLink: 'under a cannot-link, skipped',
+};
+/** Result fields the partitions line says in its own words. */
+const PARTITION_FIELDS = new Set(['partitions', 'retriedPartitions', 'crossPairs']);
+
+/** A result field in words: the table above, else its name split into words ("elapsedMs" → "elapsed ms"). */
+export function resultWords(key: string): string {
+  return RESULT_WORDS[key] ?? key.replace(/([a-z0-9])([A-Z])/g, '$1 $2').replaceAll('_', ' ').toLowerCase();
+}
+
 export function describeJob(job: JobRow): string[] {
   const lines = [`job ${job.id} (${job.kind}) ${job.status}${job.error ? `: ${job.error}` : ''}`];
   const result = job.result as Record<string, unknown> | null;
+  const rows: [string, number][] = [];
   if (result?.counts) {
-    for (const [k, v] of Object.entries(result.counts as Record<string, number>)) if (k !== 'read') lines.push(`  ${k.padEnd(18)} ${String(v).padStart(9)}`);
-    lines.push(`  ${'= read'.padEnd(18)} ${String((result.counts as Record<string, number>).read).padStart(9)}`);
+    const counts = result.counts as Record<string, number>;
+    for (const [k, v] of Object.entries(counts)) if (k !== 'read') rows.push([resultWords(k), v]);
+    rows.push(['= read', counts.read ?? 0]);
   } else if (result) {
-    for (const [k, v] of Object.entries(result)) if (typeof v === 'number') lines.push(`  ${k.padEnd(18)} ${String(v).padStart(9)}`);
+    for (const [k, v] of Object.entries(result)) if (typeof v === 'number' && !PARTITION_FIELDS.has(k)) rows.push([resultWords(k), v]);
   }
+  const width = Math.max(18, ...rows.map(([label]) => label.length));
+  for (const [label, v] of rows) lines.push(`  ${label.padEnd(width)} ${v.toLocaleString('en-US').padStart(9)}`);
   if (result && typeof result.partitions === 'number') {
     const merges = Array.isArray(result.merges) ? result.merges.length : 0;
-    lines.push(`${result.partitions} partitions${typeof result.retriedPartitions === 'number' ? ` (${result.retriedPartitions} run again after a failure)` : ''}${typeof result.crossPairs === 'number' ? `; ${result.crossPairs} linking pairs across partitions, ${merges} merges in the final pass` : ''}`);
+    lines.push(
+      `${countOf(result.partitions, 'partition')}${typeof result.retriedPartitions === 'number' ? ` (${result.retriedPartitions.toLocaleString('en-US')} run again after a failure)` : ''}` +
+        `${typeof result.crossPairs === 'number' ? `; ${countOf(result.crossPairs, 'linking pair')} across partitions, ${countOf(merges, 'merge')} in the final pass` : ''}`,
+    );
   }
   const rejected = Array.isArray(result?.rejected) ? (result.rejected as { line: number; reason: string }[]) : [];
   for (const r of rejected.slice(0, 20)) lines.push(`  rejected line ${r.line}: ${r.reason}`);
-  if (rejected.length > 20) lines.push(`  … ${rejected.length - 20} more rejected lines in --json`);
+  if (rejected.length > 20) lines.push(`  … ${countOf(rejected.length - 20, 'more rejected line')} in --json`);
   return lines;
 }
 

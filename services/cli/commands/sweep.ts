@@ -32,19 +32,21 @@ export default function register(program: Command): void {
       }
       await withRegister(options.db, 'cpreg sweep', async ({ ctx }, actor) => {
         const { sweep } = await import('../../register/sweep.ts');
+        const { countOf } = await import('../../ingest/cli-support.ts');
         const tty = process.stderr.isTTY && !options.json;
         const summary = await sweep(ctx, { actor, reason: 'duplicate sweep' }, {
           blockSize,
           onProgress: (s) => {
-            if (tty) process.stderr.write(`\rscanned ${s.scanned} counterparties, filed ${s.duplicateItems + s.affiliateItems} review items`);
+            if (tty) process.stderr.write(`\rscanned ${countOf(s.scanned, 'counterparty')}, filed ${countOf(s.duplicateItems + s.affiliateItems, 'review item')}`);
           },
         });
         if (tty) process.stderr.write('\n');
         if (options.json) process.stdout.write(`${JSON.stringify(summary)}\n`);
         else
           process.stdout.write(
-            `scanned ${summary.scanned} counterparties: filed ${summary.duplicateItems} duplicate and ${summary.affiliateItems} affiliate review items ` +
-              `(skipped ${summary.skippedExisting} already filed, ${summary.skippedCannotLink} under a cannot-link)\n`,
+            `scanned ${countOf(summary.scanned, 'counterparty')}: filed ${countOf(summary.duplicateItems, 'duplicate review item')} and ` +
+              `${countOf(summary.affiliateItems, 'affiliate review item')} ` +
+              `(skipped ${summary.skippedExisting.toLocaleString('en-US')} already filed, ${summary.skippedCannotLink.toLocaleString('en-US')} under a cannot-link)\n`,
           );
       });
     });

@@ -42,10 +42,15 @@ describe('cpreg serve on an embedded directory', () => {
     expect((await fetch(`${server!.url}/healthz`)).status).toBe(200);
   });
 
-  it('stops cleanly on SIGTERM and releases the directory', async () => {
-    const { code } = await server!.stop('SIGTERM');
+  it('stops cleanly on SIGTERM, says it has stopped, and releases the directory', async () => {
+    const stopping = server!;
+    const { code } = await stopping.stop('SIGTERM');
     server = undefined;
     expect(code).toBe(0);
+    // The last line may still be in the pipe when the exit is seen: wait for it a little.
+    const said = /cpreg: stopped; http:\/\/\S+ no longer answers and the database is closed/;
+    for (let i = 0; i < 50 && !said.test(stopping.output()); i++) await new Promise((done) => setTimeout(done, 100));
+    expect(stopping.output()).toMatch(said);
     expect(existsSync(join(dir, LOCK_FILE_NAME))).toBe(false);
     const again = await runCli(['migrate', '--db', dir, '--json']);
     expect(again.code).toBe(0);
