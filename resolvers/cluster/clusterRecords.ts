@@ -15,7 +15,7 @@
 export interface ScoredEdge {
   a: string;
   b: string;
-  /** Match weight of the pair; +Infinity for a decisive identifier match. */
+  /** Match score of the pair (bits of evidence); +Infinity for a decisive identifier match. */
   score: number;
 }
 

@@ -41,7 +41,7 @@ export function precisionRecallSvg(points: readonly SweepPoint[], options: { tit
   }
   parts.push(`<line x1="${LEFT}" x2="${LEFT}" y1="${TOP}" y2="${TOP + plotH}" stroke="black"/>`);
   parts.push(`<line x1="${LEFT}" x2="${LEFT + plotW}" y1="${TOP + plotH}" y2="${TOP + plotH}" stroke="black"/>`);
-  parts.push(`<text x="${LEFT + plotW / 2}" y="${HEIGHT - 15}" text-anchor="middle">link threshold (linkAt, match weight in bits)</text>`);
+  parts.push(`<text x="${LEFT + plotW / 2}" y="${HEIGHT - 15}" text-anchor="middle">link threshold (match score in bits)</text>`);
   parts.push(`<text x="18" y="${TOP + plotH / 2}" text-anchor="middle" transform="rotate(-90 18 ${TOP + plotH / 2})">pairwise precision / recall / F1</text>`);
   const series: { key: keyof SweepPoint; label: string; colour: string; dash: string }[] = [
     { key: 'precision', label: 'precision', colour: '#1f77b4', dash: '' },
@@ -61,7 +61,7 @@ export function precisionRecallSvg(points: readonly SweepPoint[], options: { tit
     parts.push(`<line x1="${cx}" x2="${cx}" y1="${TOP}" y2="${TOP + plotH}" stroke="#555" stroke-dasharray="4 4"/>`);
     const ly = TOP + 10 + 3 * 22;
     parts.push(`<line x1="${WIDTH - RIGHT + 20}" x2="${WIDTH - RIGHT + 50}" y1="${ly}" y2="${ly}" stroke="#555" stroke-dasharray="4 4"/>`);
-    parts.push(`<text x="${WIDTH - RIGHT + 56}" y="${ly + 4}">linkAt = ${formatTick(options.chosen)}</text>`);
+    parts.push(`<text x="${WIDTH - RIGHT + 56}" y="${ly + 4}">links from ${formatTick(options.chosen)}</text>`);
   }
   parts.push('</svg>');
   return parts.join('\n') + '\n';

@@ -25,9 +25,9 @@ export const DOCS_PAGE = `<!doctype html>
   nav a { display:block; color:var(--fg); text-decoration:none; padding:2px 0; }
   nav a:hover { color:var(--accent); }
   section.op { background:#fff; border:1px solid var(--line); border-radius:6px; padding:12px 16px; margin-bottom:16px; }
-  .method { display:inline-block; min-width:64px; text-align:center; font-weight:700; font-size:12px; padding:2px 6px;
-            border-radius:4px; color:#fff; background:#555; margin-right:8px; text-transform:uppercase; }
-  .m-get { background:#2b7a3d; } .m-post { background:#1f5fbf; } .m-put, .m-patch { background:#a0670b; } .m-delete { background:#b3261e; }
+  /* The method is a plain label in the text colour, the same for every method: the path carries the weight. */
+  .method { display:inline-block; min-width:64px; font-family: ui-monospace, monospace; font-weight:600; font-size:13px;
+            color:var(--fg); margin-right:8px; text-transform:uppercase; }
   .path { font-family: ui-monospace, monospace; font-weight:600; }
   h3 { font-size:14px; margin:12px 0 4px; }
   table { border-collapse:collapse; width:100%; font-size:13px; }
@@ -162,7 +162,7 @@ export const DOCS_PAGE = `<!doctype html>
     var id = (method + '-' + path).replace(/[^A-Za-z0-9]+/g, '-');
     var section = el('section', { 'class': 'op', id: id, 'data-search': (method + ' ' + path + ' ' + (op.summary || '')).toLowerCase() });
     section.appendChild(el('div', {}, [
-      el('span', { 'class': 'method m-' + method, text: method }),
+      el('span', { 'class': 'method', text: method }),
       el('span', { 'class': 'path', text: path }),
     ].concat((op.tags || []).map(function (t) { return el('span', { 'class': 'tag', text: t }); }))));
     if (op.summary) section.appendChild(el('p', { text: op.summary }));

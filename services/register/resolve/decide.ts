@@ -168,7 +168,7 @@ export async function decide(
         summary: !best
           ? 'no candidate in the register: a new counterparty'
           : best.score <= model.newAt
-            ? `best candidate ${best.canonicalName} scored ${jsonScore(best.score)}, at or below newAt ${model.newAt}: a new counterparty`
+            ? `best candidate ${best.canonicalName} scored ${jsonScore(best.score)}, at or below the new-record threshold (${model.newAt}): a new counterparty`
             : `best candidate ${best.canonicalName} scored ${jsonScore(best.score)} but its name has nothing in common with this one: a new counterparty`,
         features: best?.pair.explanation ?? [],
         identifierNotes: best?.pair.identifierNotes ?? [],
@@ -204,13 +204,13 @@ export async function decide(
       counterpartyId: best.counterpartyId,
       score: jsonScore(best.score),
       recordName: true,
-      evidence: { ...detail, summary: `"${prepared.text}" matches ${best.canonicalName} with score ${jsonScore(best.score)} (linkAt ${model.linkAt})` },
+      evidence: { ...detail, summary: `"${prepared.text}" matches ${best.canonicalName} with score ${jsonScore(best.score)} (the link threshold is ${model.linkAt})` },
     };
   }
   const why = rival
-    ? `two counterparties score at or above linkAt (${best.canonicalName}, ${rival.canonicalName}): a person decides`
+    ? `two counterparties score at or above the link threshold (${best.canonicalName}, ${rival.canonicalName}): a person decides`
     : best.pair.heldBackBy && best.pair.rawScore >= model.linkAt
       ? `best candidate ${best.canonicalName} scored ${jsonScore(best.pair.rawScore)} but is held back from a link: ${best.pair.heldBackBy}${best.pair.distinguishingTokens.length > 0 ? ` (${best.pair.distinguishingTokens.join(', ')})` : ''}; a person decides`
-      : `best candidate ${best.canonicalName} scored ${jsonScore(best.score)}, between newAt ${model.newAt} and linkAt ${model.linkAt}: a person decides`;
+      : `best candidate ${best.canonicalName} scored ${jsonScore(best.score)}, between the new-record threshold (${model.newAt}) and the link threshold (${model.linkAt}): a person decides`;
   return { status: 'review', counterpartyId: best.counterpartyId, score: jsonScore(best.score), recordName: false, evidence: { ...detail, summary: why } };
 }

@@ -2,7 +2,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { clusterRecords, type ScoredEdge } from '../../../resolvers/cluster/index.ts';
 
-// Scores below are invented match weights (bits); the thresholds are the options under test.
+// Scores below are invented match scores (bits); the thresholds are the options under test.
 describe('clusterRecords', () => {
   it('merges a clear pair and leaves an unrelated record alone', () => {
     const clusters = clusterRecords(['a', 'b', 'c'], [{ a: 'a', b: 'b', score: 12 }, { a: 'b', b: 'c', score: -8 }], [], { linkAt: 5 });

@@ -29,7 +29,7 @@ describe('Fellegi–Sunter weights', () => {
     }
   });
 
-  it('two-level non-match weight: First name without a missing category, log2(0.161/0.994) (formula, ABS page)', () => {
+  it('two-level weight when the field disagrees: First name without a missing category, log2(0.161/0.994) (formula, ABS page)', () => {
     expect(nonMatchWeight(0.839, 0.006)).toBeCloseTo(Math.log2(0.161 / 0.994), 12);
     expect(nonMatchWeight(0.839, 0.006)).toBeLessThan(0);
   });

@@ -84,7 +84,7 @@ const SEARCH_HIT = {
     legalForm: { type: 'string', nullable: true },
     matchedName: { type: 'string' },
     highlight: { type: 'array', items: { type: 'array', items: { type: 'integer' }, minItems: 2, maxItems: 2 }, description: '[start, end) UTF-16 offsets in matchedName' },
-    score: { type: 'number', nullable: true, description: 'match weight of the best name (null: found by partial text only)' },
+    score: { type: 'number', nullable: true, description: 'match score of the best name, in bits of evidence (null: found by partial text only)' },
     version: { type: 'integer' },
   },
 } as const;

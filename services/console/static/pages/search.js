@@ -23,7 +23,7 @@ function resultItem(hit) {
       { href: `#/counterparty/${hit.id}`, class: 'result-link', dataset: { id: String(hit.id) } },
       h('span', { class: 'result-name' }, highlighted(hit.matchedName, hit.highlight)),
       other ? h('span', { class: 'result-canonical' }, `registered as ${hit.canonicalName}`) : null,
-      h('span', { class: 'result-meta' }, legalFormBadge(hit.legalForm), jurisdictionBadge(hit.jurisdiction), h('span', { class: 'result-id' }, `#${hit.id}`), hit.score !== null ? h('span', { class: 'result-score', title: 'match weight' }, `score ${num(hit.score, 1)}`) : null),
+      h('span', { class: 'result-meta' }, legalFormBadge(hit.legalForm), jurisdictionBadge(hit.jurisdiction), h('span', { class: 'result-id' }, `#${hit.id}`), hit.score !== null ? h('span', { class: 'result-score', title: 'match score (weight of evidence, in bits)' }, `score ${num(hit.score, 1)}`) : null),
     ),
   );
 }
