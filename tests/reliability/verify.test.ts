@@ -24,8 +24,9 @@ describeEachBackend('cpreg verify', (t) => {
   beforeAll(async () => {
     ctx = createRegisterContext(t.db());
     await runWorkload(ctx, seededRandom(10_2026), 60, 'v');
-    // A sure merge, so that merged rows exist whatever the workload did.
-    const a = await resolveMention(ctx, { source: 'v', externalId: 'm-a', text: 'Pellowby Instruments Ltd', identifiers: [{ scheme: 'lei', value: '5493001KJTIIGC8Y1R12' }] }, WHO);
+    // A sure merge, so that merged rows exist whatever the workload did. The LEI is invented, with valid ISO 17442
+    // check digits (ISO 7064 MOD 97-10, computed with resolvers/identifiers/lei.ts).
+    const a = await resolveMention(ctx, { source: 'v', externalId: 'm-a', text: 'Pellowby Instruments Ltd', identifiers: [{ scheme: 'lei', value: 'CPREG0EXAMPLE0000185' }] }, WHO);
     const b = await resolveMention(ctx, { source: 'v', externalId: 'm-b', text: 'Quarrendon Valves GmbH' }, WHO);
     await mergeCounterparties(ctx, { ids: [a.counterpartyId!, b.counterpartyId!], survivorId: a.counterpartyId!, reason: 'test' }, WHO);
   });
@@ -65,9 +66,9 @@ describeEachBackend('cpreg verify', (t) => {
     await db.updateTable('counterparty').set({ status: 'merged', merged_into: x!.id }).where('id', '=', y!.id).execute();
     // 4. one LEI on two active counterparties (the partial unique index is dropped in this copy only, as a bug would bypass it)
     await sql`DROP INDEX counterparty_identifier_strong_uq`.execute(db);
-    const lei = await db.selectFrom('counterparty_identifier').select(['counterparty_id']).where('scheme', '=', 'lei').where('value', '=', '5493001KJTIIGC8Y1R12').executeTakeFirstOrThrow();
+    const lei = await db.selectFrom('counterparty_identifier').select(['counterparty_id']).where('scheme', '=', 'lei').where('value', '=', 'CPREG0EXAMPLE0000185').executeTakeFirstOrThrow();
     const other = active.find((r) => Number(r.id) !== Number(lei.counterparty_id))!;
-    await db.insertInto('counterparty_identifier').values({ counterparty_id: other.id, scheme: 'lei', value: '5493001KJTIIGC8Y1R12', strong: true, created_at: new Date().toISOString() }).execute();
+    await db.insertInto('counterparty_identifier').values({ counterparty_id: other.id, scheme: 'lei', value: 'CPREG0EXAMPLE0000185', strong: true, created_at: new Date().toISOString() }).execute();
     // 5. a review item marked decided with nothing else recorded
     const review = await db
       .insertInto('review_item')
@@ -132,7 +133,7 @@ describe('cpreg verify (command line, embedded)', () => {
       await again.close();
       const bad = await runCli(['verify', '--db', dir]);
       expect(bad.code).toBe(1);
-      expect(bad.stdout).toMatch(/FAIL ingest_counts_do_not_reconcile: 1 violation/);
+      expect(bad.stdout).toContain('FAIL: every finished ingest run accounts for each row it read: not so for 1 case (ingest_counts_do_not_reconcile)');
       expect(bad.stdout).toContain('ingest run 1: read 2 but the outcomes add up to 1');
       expect(bad.stdout).toMatch(/register NOT verified/);
     } finally {

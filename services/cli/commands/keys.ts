@@ -68,7 +68,7 @@ export default function register(program: Command): void {
         return;
       }
       if (list.length === 0) {
-        process.stdout.write('no API keys; create one with: cpreg keys create --scope admin --label "<your name>"\n');
+        process.stdout.write('no API keys; create one with: cpreg keys create --scope admin --label "<who uses it, e.g. legal operations>"\n');
         return;
       }
       for (const k of list) {

@@ -51,7 +51,7 @@ describe('blockingKeys', () => {
 
 describe('nameScript', () => {
   it('tells Latin, non-Latin and mixed names apart; digits and punctuation do not count', () => {
-    expect(nameScript('Société Générale de Fonte')).toBe('latin');
+    expect(nameScript('Fonderie Émeraude de Vésigny')).toBe('latin');
     expect(nameScript('東邦精機')).toBe('non_latin');
     expect(nameScript('Βορέας AE')).toBe('mixed');
     expect(nameScript('123 - 456')).toBe('none');

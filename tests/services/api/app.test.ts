@@ -37,7 +37,7 @@ const echoRoutes: RoutePlugin = (app) => {
     throw new Error('internal detail that must not leak');
   });
   app.get('/test/conflict', async () => {
-    throw new ApiError('CONFLICT', 'identifier lei 5493001KJTIIGC8Y1R12 is held by counterparty 7', {
+    throw new ApiError('CONFLICT', 'identifier lei CPREG0EXAMPLE0000185 is held by counterparty 7', {
       extensions: { counterpartyId: 7 },
     });
   });

@@ -34,8 +34,11 @@ describe('check-digit validators used by the scenario tests', () => {
     // HMRC's example VAT number GB 980 7806 84 (from memory); altering the check digits breaks it.
     expect(validVat('GB980780684')).toBe(true);
     expect(validVat('GB980780685')).toBe(false);
-    // FR key of SIREN 404 833 048: (12 + 3 × (404833048 mod 97)) mod 97 = 83 (computed by hand from the rule).
-    expect(validVat('FR83404833048')).toBe(true);
-    expect(validVat('FR84404833048')).toBe(false);
+    // An invented SIREN, 012 345 674, whose last digit is its Luhn check digit; its FR key is
+    // (12 + 3 × (12345674 mod 97)) mod 97 = (12 + 3 × 96) mod 97 = 9 (computed by hand from the rule).
+    expect(validLuhn('012345674')).toBe(true);
+    expect(validVat('FR09012345674')).toBe(true);
+    expect(validVat('FR10012345674')).toBe(false);
+    expect(validVat('FR09012345675')).toBe(false); // the SIREN's Luhn digit changed
   });
 });

@@ -48,7 +48,7 @@ export const keyRoutes: RoutePlugin = (app, deps) => {
           200: {
             type: 'object',
             properties: { keyId: { type: 'string' }, label: { type: 'string' }, scope: { type: 'string', enum: [...API_SCOPES] }, allows: { type: 'array', items: { type: 'string' } } },
-            example: { keyId: 'k3f9a1c2b7d40', label: 'legal-ops: R. Vance', scope: 'admin', allows: ALLOWS.admin },
+            example: { keyId: 'k3f9a1c2b7d40', label: 'legal operations (admin key)', scope: 'admin', allows: ALLOWS.admin },
           },
         },
       },
