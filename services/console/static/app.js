@@ -1,6 +1,6 @@
 // The console's shell: sign-in state, navigation by the address's #fragment, and the page modules.
 import { api, forgetKey, onUnauthenticated, storedKey } from './api.js';
-import { h, replace } from './dom.js';
+import { documentTitle, h, pageTitle, replace } from './dom.js';
 import { errorBox, hideNotice, showNotice } from './ui.js';
 import * as signin from './pages/signin.js';
 import * as search from './pages/search.js';
@@ -98,6 +98,7 @@ async function route() {
     try {
       await loadMe();
     } catch (error) {
+      document.title = documentTitle('Could not check your key');
       replace(main, errorBox(error, 'Could not check your key'));
       return;
     }
@@ -108,10 +109,12 @@ async function route() {
     else link.removeAttribute('aria-current');
   }
   if (!match) {
-    replace(main, h('h1', { tabindex: '-1' }, 'Not here'), h('p', null, 'No page has this address. ', h('a', { href: '#/search' }, 'Go to search')));
+    replace(main, pageTitle('Not here'), h('p', null, 'No page has this address. ', h('a', { href: '#/search' }, 'Go to search')));
     return;
   }
   const mine = ++generation;
+  // Each page names itself (pageTitle sets the document title); until then the tab says it is loading.
+  document.title = documentTitle('Loading…');
   const view = h('div', { class: 'view' }, h('p', { class: 'loading' }, 'Loading…'));
   replace(main, view);
   try {
@@ -119,7 +122,10 @@ async function route() {
     if (mine === generation) cleanup = done;
     else done?.();
   } catch (error) {
-    if (mine === generation) replace(view, errorBox(error, 'Could not show this page'));
+    if (mine === generation) {
+      document.title = documentTitle('Could not show this page');
+      replace(view, errorBox(error, 'Could not show this page'));
+    }
   }
 }
 

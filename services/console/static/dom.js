@@ -89,7 +89,16 @@ export function debounce(fn, ms) {
   };
 }
 
-/** A heading that takes focus after navigation, so keyboard and screen-reader users start at the page's title. */
+/** The browser tab's title for a page: its own heading first, then the console's name. */
+export function documentTitle(text) {
+  return text ? `${text} · cpreg console` : 'cpreg console';
+}
+
+/**
+ * A heading that takes focus after navigation, so keyboard and screen-reader users start at the page's title;
+ * the document title (the tab, the history, a bookmark) says the same.
+ */
 export function pageTitle(text, ...extra) {
+  if (typeof document !== 'undefined') document.title = documentTitle(text);
   return h('h1', { tabindex: '-1', class: 'page-title' }, text, ...extra);
 }

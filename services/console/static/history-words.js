@@ -39,6 +39,14 @@ function shortValue(value) {
   return text.length > 160 ? `${text.slice(0, 157)}…` : text;
 }
 
+/** A detail's key in words: "survivorId" and "merged_ids" read "survivor id" and "merged ids". */
+export function keyWords(key) {
+  return key
+    .replace(/([a-z0-9])([A-Z])/g, '$1 $2')
+    .replaceAll('_', ' ')
+    .toLowerCase();
+}
+
 /** The event's details as a small key/value list (the evidence of the change). */
 export function evidence(event) {
   const entries = Object.entries(event.details ?? {});
@@ -47,7 +55,7 @@ export function evidence(event) {
     'details',
     { class: 'evidence' },
     h('summary', null, 'Evidence'),
-    h('dl', { class: 'facts small' }, entries.flatMap(([k, v]) => [h('dt', null, k), h('dd', null, shortValue(v))])),
+    h('dl', { class: 'facts small' }, entries.flatMap(([k, v]) => [h('dt', null, keyWords(k)), h('dd', null, shortValue(v))])),
   );
 }
 

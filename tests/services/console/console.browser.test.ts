@@ -28,6 +28,8 @@ const WIDE = { width: 1280, height: 800 };
 const NARROW = { width: 390, height: 844 };
 // Ceilings that only catch hangs.
 const STEP_MS = 20_000;
+// Changes the counterparty page shows at a time (HISTORY_PAGE in services/console/static/pages/counterparty.js).
+const HISTORY_PAGE = 10;
 const TEST_MS = 120_000;
 
 interface SearchHit {
@@ -121,7 +123,7 @@ beforeAll(async () => {
   await addPairsToReview(database);
 
   app = await buildApp({ db: database.db, backend: 'pglite', rateLimitPerMinute: false });
-  adminKey = (await createApiKey(database.db, { scope: 'admin', label: 'R. Okafor (legal ops)' })).secret;
+  adminKey = (await createApiKey(database.db, { scope: 'admin', label: 'legal operations (console test)' })).secret;
   readKey = (await createApiKey(database.db, { scope: 'read', label: 'finance viewer' })).secret;
   base = await app.listen({ port: 0, host: '127.0.0.1' });
 
@@ -188,6 +190,7 @@ describe('review console in chromium', () => {
     // Nothing but the sign-in form before a key is given.
     expect(await page.isVisible('#nav')).toBe(false);
     expect(await page.isVisible('#who')).toBe(false);
+    expect(await page.title()).toBe('Sign in to the counterparty register · cpreg console');
     await shot('01-signin');
     // A wrong key is refused in plain words with the problem's code.
     await page.fill('#api-key', 'not-a-key');
@@ -199,7 +202,7 @@ describe('review console in chromium', () => {
     await page.fill('#api-key', adminKey);
     await page.click('#sign-in');
     await page.waitForSelector('#search-box', { timeout: STEP_MS });
-    expect(await page.textContent('#who')).toContain('R. Okafor (legal ops)');
+    expect(await page.textContent('#who')).toContain('legal operations (console test)');
     expect(await page.textContent('#who .scope')).toBe('admin');
     expect(await page.isVisible('#nav')).toBe(true);
     // The key is kept for this browser session only.
@@ -380,6 +383,38 @@ describe('review console in chromium', () => {
     await shot('10b-after-split');
   }, TEST_MS);
 
+  it('shows a counterparty\'s history a page of changes at a time, older and newer', async () => {
+    // The small scenario leaves few changes on any one counterparty: give one more than a page of them (trade
+    // names added one request at a time, each a change in its history).
+    const queue = await openReviewItems();
+    const busy = new Set(queue.items.flatMap((i) => [i.rightCounterpartyId, i.leftCounterpartyId]));
+    const all = (await apiGet<{ items: SearchHit[] }>('/v1/counterparties?limit=100')).body.items.filter((c) => !busy.has(c.id));
+    const chosen = all.at(-1)!.id;
+    const words = ['North', 'South', 'East', 'West', 'Upper', 'Lower', 'Harbour', 'Inland', 'Coastal', 'Central', 'Outer', 'Inner'];
+    for (const word of words) {
+      const read = await fetch(`${base}/v1/counterparties/${chosen}`, { headers: { authorization: `Bearer ${adminKey}` } });
+      const patched = await fetch(`${base}/v1/counterparties/${chosen}`, {
+        method: 'PATCH',
+        headers: { authorization: `Bearer ${adminKey}`, 'content-type': 'application/json', 'if-match': read.headers.get('etag')! },
+        body: JSON.stringify({ addNames: [{ name: `Tarrowmere Depot ${word}`, kind: 'trade' }], reason: 'trade names from the invoices' }),
+      });
+      expect(patched.status, await patched.text()).toBe(200);
+    }
+    await go(`/counterparty/${chosen}`);
+    await page.waitForSelector('#history', { timeout: STEP_MS });
+    expect(await page.$$eval('#history li.event', (n) => n.length)).toBe(HISTORY_PAGE);
+    expect(await page.isVisible('#history-newer')).toBe(false);
+    const firstIds = await page.$$eval('#history li.event', (n) => n.map((e) => e.getAttribute('data-event')));
+    await page.click('#history-older');
+    await page.waitForFunction((n) => document.querySelector('#history-page')?.textContent?.startsWith(`changes ${n + 1} to`), HISTORY_PAGE, { timeout: STEP_MS });
+    const olderIds = await page.$$eval('#history li.event', (n) => n.map((e) => e.getAttribute('data-event')));
+    expect(olderIds.some((id) => firstIds.includes(id))).toBe(false);
+    expect(olderIds.length).toBeLessThanOrEqual(HISTORY_PAGE);
+    await page.click('#history-newer');
+    await page.waitForFunction(() => document.querySelector('#history-page')?.textContent?.startsWith('changes 1 to'), undefined, { timeout: STEP_MS });
+    expect(await page.$$eval('#history li.event', (n) => n.map((e) => e.getAttribute('data-event')))).toEqual(firstIds);
+  }, TEST_MS);
+
   it('opens the network view and a click on a node opens it', async () => {
     const all = (await apiGet<{ items: SearchHit[] }>('/v1/counterparties?limit=100')).body.items;
     let chosen: number | undefined;
@@ -479,6 +514,7 @@ describe('review console in chromium', () => {
       ['/scores', 'scores'],
       [`/contract/${contract.id}`, 'contract'],
     ];
+    const titles = new Map<string, string>();
     for (const viewport of [WIDE, NARROW]) {
       await page.setViewportSize(viewport);
       for (const [hash, name] of pages) {
@@ -487,8 +523,17 @@ describe('review console in chromium', () => {
         if (name === 'search') await page.waitForSelector('#results a', { timeout: STEP_MS });
         await expectNoSidewaysScroll();
         await shot(`20-${name}`);
+        // Each page has its own document title, its heading first (issue 19 item 6), and no internal field names.
+        titles.set(name, await page.title());
+        expect(await page.title()).toBe(`${(await page.textContent('main h1'))!.trim()} · cpreg console`);
+        expect(await page.textContent('main')).not.toMatch(/\b(newAt|linkAt)\b/);
+        if (name === 'counterparty') {
+          // The history shows one page of changes at a time.
+          expect(await page.$$eval('#history li.event', (n) => n.length)).toBeLessThanOrEqual(HISTORY_PAGE);
+        }
       }
     }
+    expect(new Set(titles.values()).size, [...titles.values()].join(' | ')).toBe(pages.length);
     await page.setViewportSize(WIDE);
     expect(pageErrors(), pageErrors().join('\n')).toEqual([]);
   }, TEST_MS * 2);

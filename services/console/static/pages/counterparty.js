@@ -6,6 +6,9 @@ import { confirmChange, errorBox, facts, section, sectionWith, toast } from '../
 import { evidence, NOT_UNDOABLE, whatHappened } from '../history-words.js';
 import { jurisdictionBadge, legalFormBadge } from './search.js';
 
+/** Changes shown at a time in the history; older and newer pages replace the one shown. */
+export const HISTORY_PAGE = 10;
+
 const NAME_KIND_WORDS = { legal: 'legal name', trade: 'trade name', former: 'former name', also_known_as: 'also known as', observed: 'as written' };
 
 export function legalFormOf(cp) {
@@ -83,7 +86,7 @@ export async function render(main, { params, session, navigate }) {
   const [{ data: cp, etag }, mentions, historyPage] = await Promise.all([
     api(`/v1/counterparties/${requested}`),
     api(`/v1/counterparties/${requested}/mentions?limit=200`).then((r) => r.data),
-    api(`/v1/counterparties/${requested}/history?limit=50`).then((r) => r.data),
+    api(`/v1/counterparties/${requested}/history?limit=${HISTORY_PAGE}`).then((r) => r.data),
   ]);
   if (cp.id !== requested) history.replaceState(null, '', `#/counterparty/${cp.id}`);
   const reload = () => navigate(`#/counterparty/${cp.id}`);
@@ -162,23 +165,47 @@ export async function render(main, { params, session, navigate }) {
       );
   };
   const timeline = h('ol', { class: 'timeline', id: 'history' }, historyPage.items.map(eventItem));
-  // Older changes, a page at a time (newest first).
-  let olderCursor = historyPage.nextCursor;
-  const older = h('button', { type: 'button', class: 'small', id: 'history-older', hidden: !olderCursor }, 'Show older changes');
-  older.addEventListener('click', async () => {
+  // A page of changes at a time, newest first: the cursors of the pages seen so far lead back to newer ones.
+  const pageCursors = [null];
+  let pageIndex = 0;
+  let nextCursor = historyPage.nextCursor;
+  let shownCount = historyPage.items.length;
+  const pageNote = h('span', { class: 'muted', id: 'history-page' });
+  const newer = h('button', { type: 'button', class: 'small', id: 'history-newer' }, 'Newer changes');
+  const older = h('button', { type: 'button', class: 'small', id: 'history-older' }, 'Older changes');
+  const pager = h('p', { class: 'toolbar history-pager' }, newer, ' ', older, ' ', pageNote);
+  const showPager = () => {
+    const first = pageIndex * HISTORY_PAGE + 1;
+    newer.hidden = pageIndex === 0;
+    older.hidden = !nextCursor;
+    pager.hidden = pageIndex === 0 && !nextCursor;
+    pageNote.textContent = shownCount > 0 ? `changes ${first} to ${first + shownCount - 1}, newest first` : '';
+  };
+  showPager();
+  const turnTo = async (index) => {
+    newer.disabled = true;
     older.disabled = true;
     try {
-      const { data } = await api(`/v1/counterparties/${cp.id}/history?limit=50&cursor=${encodeURIComponent(olderCursor)}`);
+      const cursor = pageCursors[index];
+      const { data } = await api(`/v1/counterparties/${cp.id}/history?limit=${HISTORY_PAGE}${cursor ? `&cursor=${encodeURIComponent(cursor)}` : ''}`);
       for (const e of data.items) if (e.undoesEventId) undone.add(e.undoesEventId);
-      timeline.append(...data.items.map(eventItem));
-      olderCursor = data.nextCursor;
-      older.hidden = !olderCursor;
+      pageIndex = index;
+      pageCursors[index + 1] = data.nextCursor;
+      nextCursor = data.nextCursor;
+      shownCount = data.items.length;
+      replace(timeline, ...data.items.map(eventItem));
+      showPager();
+      timeline.scrollIntoView?.({ block: 'nearest' });
     } catch (error) {
-      older.after(errorBox(error, 'Could not read older changes'));
+      pager.after(errorBox(error, 'Could not read that page of changes'));
     } finally {
+      newer.disabled = false;
       older.disabled = false;
     }
-  });
+  };
+  pageCursors[1] = nextCursor;
+  newer.addEventListener('click', () => turnTo(pageIndex - 1));
+  older.addEventListener('click', () => turnTo(pageIndex + 1));
   async function undo(event) {
     const ok = await confirmChange({
       title: `Undo change ${event.id}`,
@@ -213,7 +240,7 @@ export async function render(main, { params, session, navigate }) {
       mergePanel ? section('Merge', mergePanel) : null,
     ),
     section(`Mentions (${mentions.items.length}${mentions.nextCursor ? '+' : ''})`, canSplit ? h('p', { class: 'toolbar' }, splitButton) : null, mentionsTable),
-    section('History', historyPage.items.length ? timeline : h('p', { class: 'empty' }, 'No history.'), older),
+    section('History', historyPage.items.length ? timeline : h('p', { class: 'empty' }, 'No history.'), pager),
   );
   main.querySelector('h1').focus();
 }
