@@ -91,7 +91,7 @@ function writeOutputs(folder: string, report: EvaluationReport, input: object): 
       writeFileSync(
         join(folder, 'sweep.svg'),
         precisionRecallSvg(report.sweep, {
-          title: `cpreg: pairwise precision and recall by linkAt (${report.rows} names)`,
+          title: `cpreg: pairwise precision and recall by link threshold (${report.rows} names)`,
           ...(report.model ? { chosen: report.model.linkAt } : {}),
         }),
       );

@@ -58,7 +58,8 @@ describe('cpreg evaluate', () => {
     expect(csv.length).toBeGreaterThan(2);
     const svg = readFileSync(join(out, 'sweep.svg'), 'utf8');
     expect(svg).toMatch(/^<svg /);
-    expect(svg).toContain('link threshold');
+    expect(svg).toContain('link threshold (match score in bits)');
+    expect(svg).not.toMatch(/linkAt|match weight/); // our own words, no field names (issue 19 item 6)
     expect(svg).toContain('precision');
     expect(svg).toContain('recall');
     expect(JSON.parse(readFileSync(join(out, 'report.json'), 'utf8')).pairwise).toBeDefined();
