@@ -21,7 +21,7 @@ export function formatReport(
     const o = report.outcomes;
     lines.push(`  outcomes (the register's rules): linked ${o.linked}, review ${o.review} (${pct(o.reviewShare)} of records; ${pct(o.reviewTrueMatchShare)} of them true matches), new ${o.new}`);
   }
-  if (report.model) lines.push(`  model: linkAt ${report.model.linkAt}, newAt ${report.model.newAt}; ${report.model.provenance.note}`);
+  if (report.model) lines.push(`  model: links from ${report.model.linkAt} bits, new at or below ${report.model.newAt}; ${report.model.provenance.note}`);
   if (report.blocking) {
     const o = report.blocking.overall;
     lines.push(`  blocking: ${o.candidatePairs} candidate pairs; RR ${o.reductionRatio.toFixed(6)}  PC ${pct(o.pairsCompleteness)}  PQ ${pct(o.pairsQuality)}`);

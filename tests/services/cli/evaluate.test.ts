@@ -52,7 +52,8 @@ describe('cpreg evaluate', () => {
   }, 60_000);
 
   it('--out writes report.json, sweep.csv and a labelled sweep.svg', async () => {
-    await cpreg([SAMPLE, ...BASE, '--out', out]);
+    const { stdout } = await cpreg([SAMPLE, ...BASE, '--out', out]);
+    expect(stdout).toMatch(/model: links from [\d.]+ bits, new at or below [-\d.]+/);
     const csv = readFileSync(join(out, 'sweep.csv'), 'utf8').trim().split('\n');
     expect(csv[0]).toBe('link_at,precision,recall,f1');
     expect(csv.length).toBeGreaterThan(2);
