@@ -1,5 +1,5 @@
 // History events in plain words: who, when, what, why, and the evidence the register kept.
-import { h, num } from './dom.js';
+import { h, num, plural } from './dom.js';
 
 const cpLink = (id) => h('a', { href: `#/counterparty/${id}` }, `#${id}`);
 const list = (ids) => (ids ?? []).flatMap((id, i) => (i === 0 ? [cpLink(id)] : [', ', cpLink(id)]));
@@ -17,7 +17,7 @@ export function whatHappened(event) {
     case 'merged':
       return ['Merged ', list(d.mergedIds), ' into ', d.survivorId ? cpLink(d.survivorId) : '?'];
     case 'split':
-      return [`Split: ${(d.mentionIds ?? event.mentionIds ?? []).length} mention(s) moved from `, d.sourceId ? cpLink(d.sourceId) : '?', ' to ', d.targetId ? cpLink(d.targetId) : '?'];
+      return [`Split: ${plural((d.mentionIds ?? event.mentionIds ?? []).length, 'mention')} moved from `, d.sourceId ? cpLink(d.sourceId) : '?', ' to ', d.targetId ? cpLink(d.targetId) : '?'];
     case 'renamed':
       return [`Renamed from “${d.from ?? '?'}” to “${d.to ?? '?'}”`];
     case 'jurisdiction_changed':

@@ -373,6 +373,7 @@ describe('review console in chromium', () => {
     await page.fill('#confirm-reason', 'this mention names the subsidiary');
     await page.click('#confirm-ok');
     await page.waitForSelector('#history li[data-type="split"]', { timeout: STEP_MS });
+    expect(await page.textContent('#history li[data-type="split"] .event-what')).toMatch(/^Split: 1 mention moved from/);
     const left = (await apiGet<{ items: { id: number }[] }>(`/v1/counterparties/${source}/mentions?limit=50`)).body.items;
     expect(left.some((m) => m.id === moving!.id)).toBe(false);
     expect(await page.$(`#mentions input[data-mention="${moving!.id}"]`)).toBeNull();
