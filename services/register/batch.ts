@@ -30,6 +30,7 @@ import { commitEvent } from './history/commit.ts';
 import { currentModel } from './matching/model.ts';
 import { idfFor } from './matching/idf.ts';
 import { BatchReads } from './matching/batch-reads.ts';
+import { askAgain, earlierDecisionOf } from './resolve/earlier-decision.ts';
 import { jsonScore, MAX_CANDIDATES, scoredCandidates } from './matching/candidates.ts';
 import { applyOutcome, canonicalNameIn, eventTypeFor } from './resolve/apply.ts';
 import { decide, type ContractContext, type Outcome } from './resolve/decide.ts';
@@ -361,6 +362,10 @@ async function writeGroup(
     if (found) {
       if (found.counterpartyId !== null) await cs.lock('counterparty', [found.counterpartyId]);
       previous = await cs.require('mention', found.id);
+      // Stored with another content (the read phase left same-content mentions out): a person's decision on it
+      // turns the new text into a question for a person (resolve/earlier-decision.ts).
+      const earlier = earlierDecisionOf(previous, true);
+      if (earlier) outcome = askAgain(outcome, earlier);
       await detachMention(cs, previous, at);
       await closeOpenItemsOfMention(cs, previous.id as number);
     }

@@ -9,10 +9,11 @@
  *     a legal form, the one seen most often.
  *     Spellings that differ only in letter case are one name here: their sightings count together.
  *  3. Otherwise (and to break ties) the longest name; former names only when there is nothing else.
- *  4. Then a spelling that is not all capitals ("Frowilora Research B.V." before "FROWILORA RESEARCH B.V."):
- *     capitals are how many source systems store or print names, not how the company writes itself. So among
- *     case variants of one name, the mixed-case spelling wins even when the capitals were seen more often;
- *     then the spelling seen most often.
+ *  4. Then the spelling with the best letter case: mixed case, then all capitals, then all lower case
+ *     ("Frowilora Research B.V." before "FROWILORA RESEARCH B.V." before "frowilora research b.v."): capitals are
+ *     how many source systems store or print names, and lower case is how people type in a hurry, neither how the
+ *     company writes itself. So among case variants of one name, the mixed-case spelling wins even when another
+ *     was seen more often; then the spelling seen most often.
  *  Final tie-break: the lowest name id (the oldest), so the choice never depends on read order.
  */
 
@@ -35,6 +36,17 @@ export function isAllCapitals(name: string): boolean {
   return name.toUpperCase() === name && name.toLowerCase() !== name;
 }
 
+/** True when the name has letters and none of them is a capital ("qorv b.v."). */
+export function isAllLowerCase(name: string): boolean {
+  return name.toLowerCase() === name && name.toUpperCase() !== name;
+}
+
+/** 2 for mixed case, 1 for all capitals, 0 for all lower case (rule 4). */
+export function letterCaseRank(name: string): number {
+  if (isAllLowerCase(name)) return 0;
+  return isAllCapitals(name) ? 1 : 2;
+}
+
 function compareBy(a: NameCandidate, b: NameCandidate, caseGroupSeen: ReadonlyMap<string, number>): number {
   // Higher is better for every criterion below; the first difference decides.
   const criteria: Array<(n: NameCandidate) => number> = [
@@ -43,7 +55,7 @@ function compareBy(a: NameCandidate, b: NameCandidate, caseGroupSeen: ReadonlyMa
     (n) => (isFullLegal(n) ? 1 : 0),
     (n) => (isFullLegal(n) ? (caseGroupSeen.get(caseKey(n.name)) ?? 0) : 0),
     (n) => [...n.name].length,
-    (n) => (isAllCapitals(n.name) ? 0 : 1),
+    (n) => letterCaseRank(n.name),
     (n) => (isFullLegal(n) ? Number(n.seen_count) : 0),
     (n) => -n.id,
   ];

@@ -7,6 +7,7 @@ import { sql, type Kysely } from 'kysely';
 import type { Database } from '../../db/types.ts';
 import { STRONG_SCHEMES } from '../../resolvers/vocabulary.ts';
 import { COUNT_KEYS } from '../ingest/run-ingest.ts';
+import { chooseCanonicalName, type NameCandidate } from '../register/canonical-name.ts';
 
 export interface Violation {
   /** The check that failed (stable, snake_case). */
@@ -183,6 +184,38 @@ export const ingestCountsReconcile: Check = async (db) => {
   return out;
 };
 
+/**
+ * Every active counterparty whose name no person locked carries the canonical name the canonical-value rules
+ * choose from its names (docs/register.md): a re-resolution or a merge that left another spelling, or a rule
+ * changed without the stored names following, shows here.
+ */
+export const canonicalNamesFollowRules: Check = async (db) => {
+  const rows = await sql<{ counterparty_id: number; canonical_name: string; id: number; name: string; kind: string; legal_form: string | null; seen_count: number; confirmed_by: string | null }>`
+    SELECT c.id AS counterparty_id, c.canonical_name, n.id, n.name, n.kind, n.legal_form, n.seen_count, n.confirmed_by
+    FROM counterparty c JOIN counterparty_name n ON n.counterparty_id = c.id
+    WHERE c.status = 'active' AND c.name_locked_by IS NULL
+    ORDER BY c.id, n.id`.execute(db);
+  const byCounterparty = new Map<number, { canonical: string; names: NameCandidate[] }>();
+  for (const r of rows.rows) {
+    const key = Number(r.counterparty_id);
+    const entry = byCounterparty.get(key) ?? { canonical: r.canonical_name, names: [] };
+    entry.names.push({ id: Number(r.id), name: r.name, kind: r.kind, legal_form: r.legal_form, seen_count: Number(r.seen_count), confirmed_by: r.confirmed_by });
+    byCounterparty.set(key, entry);
+  }
+  const out: Violation[] = [];
+  for (const [id, entry] of byCounterparty) {
+    const chosen = chooseCanonicalName(entry.names);
+    if (chosen && chosen.name !== entry.canonical) {
+      out.push({
+        check: 'canonical_name_rule',
+        message: `counterparty ${id}: canonical name "${entry.canonical}" but the rules choose "${chosen.name}" (name ${chosen.id})`,
+        ids: { counterpartyId: id },
+      });
+    }
+  }
+  return out;
+};
+
 export const INVARIANT_CHECKS: Record<string, Check> = {
   mention_not_on_active_counterparty: mentionsPointToActive,
   merged_counterparty_owns_rows: mergedOwnsNothing,
@@ -190,4 +223,5 @@ export const INVARIANT_CHECKS: Record<string, Check> = {
   strong_identifier_shared: strongIdentifiersUnique,
   review_decision_not_reflected: reviewDecisionsReflected,
   ingest_counts_do_not_reconcile: ingestCountsReconcile,
+  canonical_name_rule: canonicalNamesFollowRules,
 };

@@ -66,6 +66,7 @@ export const CHECK_HOLDS: Record<string, string> = {
   strong_identifier_shared: 'each strong identifier belongs to one active counterparty',
   review_decision_not_reflected: 'every decided review item has its recorded decision, history and effect',
   ingest_counts_do_not_reconcile: 'every finished ingest run accounts for each row it read',
+  canonical_name_rule: 'every canonical name no person set is the one the canonical-value rules choose',
   replay_differs: 'replaying the history from empty gives the register as it is',
 };
 

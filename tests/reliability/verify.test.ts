@@ -43,6 +43,7 @@ describeEachBackend('cpreg verify', (t) => {
       'strong_identifier_shared',
       'review_decision_not_reflected',
       'ingest_counts_do_not_reconcile',
+      'canonical_name_rule',
       'replay_differs',
     ]);
   });
@@ -79,6 +80,9 @@ describeEachBackend('cpreg verify', (t) => {
     const run = await db.insertInto('ingest_run').values({ source: 'v', actor: 'test', status: 'finished', counts: JSON.stringify({ read: 5, linked: 3, new: 1 }) }).returning('id').executeTakeFirstOrThrow();
     // 7. a change that no event records
     await db.updateTable('counterparty').set({ canonical_name: 'Edited Behind The History Ltd' }).where('id', '=', other.id).execute();
+    // 8. a canonical name the canonical-value rules would not choose (a counterparty no person renamed)
+    const unlocked = await db.selectFrom('counterparty').select('id').where('status', '=', 'active').where('name_locked_by', 'is', null).where('id', '!=', other.id).orderBy('id', 'desc').executeTakeFirstOrThrow();
+    await db.updateTable('counterparty').set({ canonical_name: 'planted lower-case name ltd' }).where('id', '=', unlocked.id).execute();
 
     const report = await verifyRegister(db);
     expect(report.ok).toBe(false);
@@ -105,6 +109,7 @@ describeEachBackend('cpreg verify', (t) => {
       ]),
     );
     expect(violationsOf(report, 'ingest_counts_do_not_reconcile')).toEqual([expect.objectContaining({ ids: { ingestRunId: Number(run.id) } })]);
+    expect(violationsOf(report, 'canonical_name_rule')).toEqual(expect.arrayContaining([expect.objectContaining({ ids: { counterpartyId: Number(unlocked.id) } })]));
     const replay = violationsOf(report, 'replay_differs').map((v) => v.message);
     expect(replay).toEqual(
       expect.arrayContaining([

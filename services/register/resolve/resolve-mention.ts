@@ -16,6 +16,7 @@ import type { ChangeSet } from '../state/change-set.ts';
 import { canonicalRow, type Row } from '../state/tables.ts';
 import { write } from '../transaction.ts';
 import { closeOpenItemsOfMention, detachMention } from '../upkeep.ts';
+import { askAgain, earlierDecisionOf, type EarlierDecision } from './earlier-decision.ts';
 import { applyOutcome, canonicalNameIn, eventTypeFor } from './apply.ts';
 import { decide, type ContractContext, type PartyContext } from './decide.ts';
 import { prepareMention, type PreparedMention } from './prepare.ts';
@@ -143,10 +144,12 @@ export async function resolveWithin(
   }
   await lockNameNeighbourhood(cs, prepared);
   let previous: Row | undefined;
+  let earlier: EarlierDecision | null = null;
   if (found) {
     // Lock order: counterparty, then mention (as everywhere).
     if (found.counterparty_id !== null) await cs.lock('counterparty', [Number(found.counterparty_id)]);
     previous = await cs.require('mention', Number(found.id));
+    earlier = earlierDecisionOf(previous, found.content_hash !== prepared.contentHash && !options.force);
     if (previous.counterparty_id !== null && Number(found.counterparty_id) !== previous.counterparty_id) {
       await cs.lock('counterparty', [previous.counterparty_id as number]);
     }
@@ -159,12 +162,13 @@ export async function resolveWithin(
   if (found && options.force) prepared = { ...prepared, contentHash: found.content_hash };
   const contract = options.party ? null : await contractContextFor(cs, prepared.input.contract);
   const { model, version } = await currentModel(cs.trx);
-  const outcome = await decide(cs.trx, prepared, model, {
+  const decided = await decide(cs.trx, prepared, model, {
     mentionId: found ? Number(found.id) : null,
     contract,
     party: options.party ?? null,
     contractAwaited: prepared.input.contract !== undefined && contract === null,
   });
+  const outcome = earlier ? askAgain(decided, earlier) : decided;
   outcome.evidence.modelVersion = version;
   const existing = found ? await cs.require('mention', Number(found.id)) : undefined;
   const applied = await applyOutcome(cs, prepared, outcome, existing, {

@@ -1,7 +1,7 @@
 /** The canonical-value rules (docs/register.md) on hand-made name lists; every expectation follows a written rule. */
 import { describe, expect, it } from 'vitest';
 import { chooseCanonicalName, type NameCandidate } from '../../../services/register/index.ts';
-import { isAllCapitals } from '../../../services/register/canonical-name.ts';
+import { isAllCapitals, letterCaseRank } from '../../../services/register/canonical-name.ts';
 
 const name = (id: number, text: string, extra: Partial<NameCandidate> = {}): NameCandidate => ({
   id,
@@ -38,7 +38,7 @@ describe('canonical-value rules', () => {
   });
 });
 
-describe('canonical-value rule 4: a spelling that is not all capitals', () => {
+describe('canonical-value rule 4: mixed case, then capitals, then lower case', () => {
   // Invented names. The rule is ours (docs/register.md, rule 4): capitals are how source systems store names.
   it('among case variants of one name, the mixed-case spelling wins even when the capitals were seen more often', () => {
     const chosen = chooseCanonicalName([
@@ -46,6 +46,19 @@ describe('canonical-value rule 4: a spelling that is not all capitals', () => {
       name(2, 'Frowilora Research B.V.', { legal_form: 'bv', seen_count: 2 }),
     ]);
     expect(chosen?.name).toBe('Frowilora Research B.V.');
+  });
+  it('all lower case comes last: typed in a hurry, it never replaces a mixed-case or capitals spelling', () => {
+    const chosen = chooseCanonicalName([
+      name(1, 'Belwarrow Energy, Inc.', { legal_form: 'inc', seen_count: 1 }),
+      name(2, 'belwarrow energy, inc.', { legal_form: 'inc', seen_count: 6 }),
+      name(3, 'BELWARROW ENERGY, INC.', { legal_form: 'inc', seen_count: 2 }),
+    ]);
+    expect(chosen?.id).toBe(1);
+    expect(chooseCanonicalName([name(1, 'belwarrow energy'), name(2, 'BELWARROW ENERGY')])?.id).toBe(2);
+    expect(letterCaseRank('Belwarrow')).toBe(2);
+    expect(letterCaseRank('BELWARROW')).toBe(1);
+    expect(letterCaseRank('belwarrow')).toBe(0);
+    expect(letterCaseRank('3-4-5')).toBe(2);
   });
   it('case variants count their sightings together against another name (rule 2)', () => {
     const chosen = chooseCanonicalName([
