@@ -53,6 +53,19 @@ export function isDatabaseUnavailable(error: unknown): boolean {
   return false;
 }
 
+/**
+ * True when the database answered that a table or column the code uses does not exist (SQLSTATE 42P01
+ * undefined_table, 42703 undefined_column): the schema is not at the expected migration.
+ */
+export function isSchemaMissing(error: unknown): boolean {
+  for (let current = error, depth = 0; current && depth < 5; depth++) {
+    const code = (current as { code?: unknown }).code;
+    if (code === '42P01' || code === '42703') return true;
+    current = (current as { cause?: unknown }).cause;
+  }
+  return false;
+}
+
 /** Runs `work`, rejecting with DatabaseTimeoutError after `timeoutMs` (the work itself is not cancelled). */
 export async function withDatabaseTimeout<T>(work: Promise<T>, timeoutMs: number): Promise<T> {
   let timer: NodeJS.Timeout | undefined;

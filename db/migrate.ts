@@ -75,6 +75,16 @@ async function appliedMigrationNames(db: Kysely<any>): Promise<string[] | null> 
   }
 }
 
+/** Whether the schema is at the migration this code expects: every file applied, nothing applied it lacks. */
+export async function schemaState(db: Kysely<any>, migrationFolder = MIGRATIONS_DIR): Promise<{ upToDate: boolean; missing: string[]; unknown: string[] }> {
+  const [files, applied] = await Promise.all([migrationFileNames(migrationFolder), appliedMigrationNames(db)]);
+  const done = new Set(applied ?? []);
+  const known = new Set(files);
+  const missing = files.filter((f) => !done.has(f));
+  const unknown = (applied ?? []).filter((a) => !known.has(a));
+  return { upToDate: missing.length === 0 && unknown.length === 0, missing, unknown };
+}
+
 /**
  * Brings the schema up to date; throws MigrationError naming the failing migration. A database already at the
  * latest migration is recognised by one read (every file's name recorded as applied, nothing else): loading the

@@ -5,7 +5,7 @@
  */
 import type { FastifyError, FastifyInstance, FastifyReply, FastifyRequest } from 'fastify';
 import type { ErrorObject } from 'ajv';
-import { isDatabaseUnavailable } from '../../db/database-errors.ts';
+import { isDatabaseUnavailable, isSchemaMissing } from '../../db/database-errors.ts';
 import { ApiError, ERROR_CATALOGUE, PROBLEM_MEDIA_TYPE, problem, type ErrorCode, type Problem } from './errors.ts';
 import { toFieldErrors } from './validation.ts';
 
@@ -50,6 +50,12 @@ function classify(error: FastifyError, request: FastifyRequest): Classified {
     const where = error.validationContext === 'querystring' ? 'query string' : (error.validationContext ?? 'body');
     const detail = `the ${where} does not match the schema: ${errors.map((e) => `${e.pointer || '(root)'} ${e.message}`).join('; ')}`;
     return { body: problem('VALIDATION_FAILED', detail, errors) };
+  }
+  if (isSchemaMissing(error)) {
+    return {
+      body: problem('SCHEMA_NOT_READY', 'the database schema is not at the migration this service expects; run `cpreg migrate` against it'),
+      headers: { 'retry-after': String(RETRY_AFTER_SECONDS_WHEN_DATABASE_DOWN) },
+    };
   }
   if (isDatabaseUnavailable(error)) {
     return {

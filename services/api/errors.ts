@@ -38,6 +38,7 @@ export const ERROR_CATALOGUE = {
   HEADERS_TOO_LARGE: { status: 431, title: 'The request line and headers are too large' },
   INTERNAL_ERROR: { status: 500, title: 'Internal error' },
   DATABASE_UNAVAILABLE: { status: 503, title: 'The database is not answering' },
+  SCHEMA_NOT_READY: { status: 503, title: 'The database schema is not the one this service expects' },
   BUSY_RETRY: { status: 503, title: 'The change collided with concurrent changes too often' },
 } as const satisfies Record<string, { status: number; title: string }>;
 

@@ -1,6 +1,7 @@
 /** GET /healthz: is the service up and does its database answer (within the database timeout)? */
 import { sql } from 'kysely';
 import { withDatabaseTimeout } from '../../../db/database-errors.ts';
+import { schemaState } from '../../../db/migrate.ts';
 import { ApiError, problemResponses } from '../errors.ts';
 import { DEFAULT_DB_TIMEOUT_MS, type RoutePlugin } from '../types.ts';
 
@@ -46,6 +47,14 @@ export const healthRoutes: RoutePlugin = (app, deps) => {
         });
       }
       const latencyMs = Math.round((performance.now() - started) * 10) / 10;
+      // Answering is not enough: a database created again empty answers too, and every call would then fail.
+      const schema = await withDatabaseTimeout(schemaState(deps.db), timeoutMs).catch(() => null);
+      if (!schema?.upToDate) {
+        const what = schema ? `${schema.missing.length} migration(s) not applied, ${schema.unknown.length} unknown to this service` : 'its migrations could not be read';
+        throw new ApiError('SCHEMA_NOT_READY', `the ${deps.backend} database answers but its schema is not ready: ${what}; run \`cpreg migrate\``, {
+          headers: { 'retry-after': '5' },
+        });
+      }
       return { status: 'ok', version: deps.version, database: { backend: deps.backend, latencyMs } };
     },
   );
