@@ -15,6 +15,11 @@ import { describeEachBackend } from '../support/index.ts';
 const IBAN = 'GB82WEST12345698765432';
 const IBAN_SPACED = 'GB82 WEST 1234 5698 7654 32';
 const PHONE = '+442079460999';
+// The same kinds of value in the other shapes people write them (issue: masks missed these).
+const PHONE_SPACED = '+44 20 7946 0999';
+const PHONE_NATIONAL = '(020) 7946 0999';
+const IBAN_LOWER = 'gb82west12345698765432';
+const EMAIL = 'accounts.payable@glimmerdale-haulage.example';
 
 describeEachBackend('log redaction', (t) => {
   it('no key, Authorization header, full IBAN or phone number in a run\'s logs', async () => {
@@ -47,6 +52,10 @@ describeEachBackend('log redaction', (t) => {
       await app.inject({ method: 'GET', url: '/v1/me', headers: { authorization: `Bearer ${admin}x` } });
       await app.inject({ method: 'GET', url: '/v1/me', headers: { authorization: admin } });
       await app.inject({ method: 'GET', url: `/v1/nowhere/${IBAN}?k=${admin}`, headers: auth(admin) });
+      // Other shapes, in a body the schema refuses (the error names the field) and in a path that does not exist.
+      await app.inject({ method: 'POST', url: '/v1/mentions', headers: auth(admin), payload: { source: 'log', externalId: '5', text: `${EMAIL} ${PHONE_SPACED}`, unknownField: `${IBAN_LOWER} ${PHONE_NATIONAL}` } });
+      await app.inject({ method: 'GET', url: `/v1/nowhere/${encodeURIComponent(EMAIL)}/${encodeURIComponent(PHONE_SPACED)}/${IBAN_LOWER}`, headers: auth(admin) });
+      app.log.info(`a message quoting ${EMAIL}, ${PHONE_SPACED}, ${PHONE_NATIONAL} and ${IBAN_LOWER}`);
     } finally {
       await app.close();
     }
@@ -57,5 +66,7 @@ describeEachBackend('log redaction', (t) => {
     expect(text).not.toMatch(/Bearer\s+cpreg_/);
     expect(text).not.toMatch(/"authorization":"(?!\[redacted\])/i);
     for (const value of [IBAN, IBAN_SPACED, 'GB82WEST12345698765433', PHONE, PHONE.slice(1), encodeURIComponent(PHONE)]) expect(text).not.toContain(value);
+    for (const value of [PHONE_SPACED, PHONE_NATIONAL, '7946 0999', IBAN_LOWER, EMAIL, 'accounts.payable@', encodeURIComponent(EMAIL)]) expect(text, value).not.toContain(value);
+    expect(text).toContain('[email redacted]');
   });
 });
