@@ -12,7 +12,7 @@ import { ApiError } from '../errors.ts';
 import { isOpenRoute } from '../open-routes.ts';
 import type { AppPlugin } from '../types.ts';
 import { scopeAllows, touchApiKey, verifyApiKey, type ApiKeyInfo } from './keys.ts';
-import { DEFAULT_RATE_LIMIT_PER_MINUTE, RateLimiter } from './rate-limit.ts';
+import { DEFAULT_FAILED_AUTH_PER_MINUTE, DEFAULT_RATE_LIMIT_PER_MINUTE, RateLimiter } from './rate-limit.ts';
 
 declare module 'fastify' {
   interface FastifyContextConfig {
@@ -29,6 +29,8 @@ declare module '../types.ts' {
   interface AppDeps {
     /** Requests per minute per API key, per instance (default 1,200); false switches the limit off (benchmarks). */
     rateLimitPerMinute?: number | false;
+    /** Failed authentications per client address per minute before 429 (default 30; off when rateLimitPerMinute is false). */
+    failedAuthPerMinute?: number;
   }
 }
 
@@ -76,6 +78,13 @@ export function rateLimitFromEnv(value = process.env.CPREG_RATE_LIMIT_PER_MINUTE
 export const authPlugin: AppPlugin = (app, deps) => {
   const limit = deps.rateLimitPerMinute ?? rateLimitFromEnv() ?? DEFAULT_RATE_LIMIT_PER_MINUTE;
   const limiter = limit === false ? undefined : new RateLimiter({ perMinute: limit });
+  // Failed authentications per client address (off with the rate limit).
+  const failedAuth = limit === false ? undefined : new RateLimiter({ perMinute: deps.failedAuthPerMinute ?? DEFAULT_FAILED_AUTH_PER_MINUTE });
+  const refuseGuessing = (decision: { retryAfterSeconds: number; limit: number }): ApiError =>
+    new ApiError('RATE_LIMITED', `too many failed authentications from this address (${decision.limit} a minute); retry in ${decision.retryAfterSeconds} s`, {
+      headers: { 'retry-after': String(decision.retryAfterSeconds) },
+      extensions: { limit: decision.limit, limitPer: 'minute', retryAfterSeconds: decision.retryAfterSeconds },
+    });
   app.decorateRequest('apiKey', null);
   app.addHook('onRoute', documentScope);
   app.addHook('onRequest', async (request: FastifyRequest, reply: FastifyReply) => {
@@ -87,8 +96,11 @@ export const authPlugin: AppPlugin = (app, deps) => {
         headers: { 'www-authenticate': 'Bearer realm="cpreg"' },
       });
     }
+    const blocked = failedAuth?.refusal(request.ip);
+    if (blocked) throw refuseGuessing(blocked);
     const key = await verifyApiKey(deps.db, presented);
     if (!key) {
+      failedAuth?.take(request.ip);
       throw new ApiError('UNAUTHENTICATED', 'the API key is unknown or revoked', {
         headers: { 'www-authenticate': 'Bearer realm="cpreg", error="invalid_token"' },
       });
