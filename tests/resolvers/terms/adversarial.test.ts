@@ -5,6 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { MAX_CONTRACT_BYTES, parseParties } from '../../../resolvers/terms/index.ts';
+import { grow } from './grow.ts';
 
 const HANG_CEILING_MS = 30_000;
 
@@ -37,18 +38,6 @@ const INPUTS: Array<[string, string]> = [
   ['many parties and collective terms', grow((i) => `between Qorv${i % 700} Ltd ("A${i % 700}") and Beta${i} Ltd (each a "P${i}") `)],
 ];
 
-/** Up to 1 MB of numbered repetitions: unique terms and names defeat any per-string shortcut. */
-function grow(unit: (i: number) => string): string {
-  const parts: string[] = [];
-  let bytes = 0;
-  for (let i = 0; ; i++) {
-    const u = unit(i);
-    if (bytes + u.length > MAX_CONTRACT_BYTES - 16) break;
-    parts.push(u);
-    bytes += u.length;
-  }
-  return parts.join('');
-}
 
 describe('parseParties on adversarial 1 MB inputs', () => {
   it.each(INPUTS)('%s: finishes well under the hang ceiling', (_label, text) => {

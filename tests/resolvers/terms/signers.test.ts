@@ -4,12 +4,13 @@
  * are the execution-clause conventions of US, UK and translated drafting (common practice).
  */
 import { describe, expect, it } from 'vitest';
-import { MAX_CONTRACT_BYTES, parseParties, resolveInContract } from '../../../resolvers/terms/index.ts';
+import { parseParties, resolveInContract } from '../../../resolvers/terms/index.ts';
 import { MAX_SIGNERS } from '../../../resolvers/terms/mergeSigners.ts';
 import { findSigners } from '../../../resolvers/terms/findSigners.ts';
 import { findExclusions } from '../../../resolvers/terms/findExclusions.ts';
 import { isJobTitle, jobTitleOf } from '../../../resolvers/terms/isJobTitle.ts';
 import { readPersonName } from '../../../resolvers/terms/readPersonName.ts';
+import { grow } from './grow.ts';
 
 const read = (s: string): string | null => readPersonName(s, 0, s.length)?.name ?? null;
 
@@ -134,17 +135,6 @@ describe('express exclusions', () => {
 describe('signer and exclusion scanners on adversarial 1 MB inputs', () => {
   // The ceiling only catches hangs and quadratic scans (a per-signer search of the whole text took minutes).
   const HANG_CEILING_MS = 30_000;
-  const grow = (unit: (i: number) => string): string => {
-    const parts: string[] = [];
-    let bytes = 0;
-    for (let i = 0; ; i++) {
-      const u = unit(i);
-      if (bytes + u.length > MAX_CONTRACT_BYTES - 16) break;
-      parts.push(u);
-      bytes += u.length;
-    }
-    return parts.join('');
-  };
   // Letters, not digits, make each invented name unique: a name holds no digit.
   const coined = (i: number): string => `Q${i.toString(26).replace(/\d/gu, (d) => String.fromCharCode(0x61 + Number(d)))}by`;
   const inputs: Array<[string, string]> = [
