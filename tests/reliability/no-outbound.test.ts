@@ -40,8 +40,9 @@ it('server-side code makes no outbound requests (only the configured PostgreSQL)
   }
   // The API docs page is HTML served to a browser; its script fetches the same origin's openapi.json.
   const allowed = offenders.filter((o) => !(o.startsWith('services/api/docs-page.ts') && o.includes('fetch')));
-  // The server itself listens (node:http server types) — listening is not calling out.
-  const calling = allowed.filter((o) => !/services\/api\/(?:server|app)\.ts: .*http/.test(o));
+  // The server itself listens (node:http server types), and answers its own clients' framing errors with node:http's
+  // status texts and header limit (client-error-handler.ts) — listening and answering is not calling out.
+  const calling = allowed.filter((o) => !/services\/api\/(?:server|app|client-error-handler)\.ts: .*http/.test(o));
   expect(calling).toEqual([]);
 });
 

@@ -214,7 +214,7 @@ describe('database outages', () => {
       const res = await app.inject({ method: 'GET', url: '/healthz' });
       expect(res.statusCode).toBe(503);
       expect(res.json().code).toBe('DATABASE_UNAVAILABLE');
-      expect(Date.now() - started).toBeLessThan(5000); // only catches a hang
+      expect(Date.now() - started).toBeLessThan(30_000); // only catches a hang (a loaded CI machine took 9 s)
       release();
       await transaction;
       expect((await app.inject({ method: 'GET', url: '/healthz' })).statusCode).toBe(200);

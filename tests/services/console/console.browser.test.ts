@@ -315,8 +315,10 @@ describe('review console in chromium', () => {
     const [keep, absorb] = [all[2]!, all[all.length - 1]!];
     await go(`/counterparty/${keep.id}`);
     await page.type('#merge-search', absorb.canonicalName, { delay: 10 });
-    const button = await page.waitForSelector(`#merge-results button[data-merge-with="${absorb.id}"]`, { timeout: STEP_MS });
-    await button.click();
+    // The results re-render as the search settles: click by selector (found again at the click), not a handle
+    // that a re-render may have detached (seen on a loaded machine).
+    await page.waitForSelector(`#merge-results button[data-merge-with="${absorb.id}"]`, { timeout: STEP_MS });
+    await page.click(`#merge-results button[data-merge-with="${absorb.id}"]`, { timeout: STEP_MS });
     await page.waitForSelector('dialog#confirm[open]', { timeout: STEP_MS });
     const words = (await page.textContent('dialog#confirm .merge-description'))!;
     expect(words).toContain(`#${absorb.id} “${absorb.canonicalName}” joins #${keep.id} “${keep.canonicalName}”`);
