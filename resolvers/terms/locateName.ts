@@ -123,12 +123,12 @@ function skipLeading(text: string, i: number, to: number, seen: { honorific: boo
     while (j < to && ',;:.-–—•*'.includes(text[j] as string)) j++;
     j = skipSpaces(text, j, to);
     const conn = anyWordAt(text, j, CONNECTORS);
-    // German articles and "the company" are stripped only in lower case: "Der Blaue Engel GmbH" keeps its "Der".
+    // German articles and "the company" are stripped only in lower case: "Der Grüne Kranich GmbH" keeps its "Der".
     if (conn !== undefined && !(LOWER_ONLY.has(conn) && !isLowerLetter(text[j]))) j += conn.length;
     const n = numberingAt(text, j, to);
     if (n > 0) j = n;
     const h = anyWordAt(text, j, HONORIFICS);
-    // Title case only ("Mr", "Madame"): "MS Shipping Ltd" keeps its initials.
+    // Title case only ("Mr", "Madame"): "MS Kelvarn Shipping Ltd" keeps its initials.
     if (h !== undefined && /\p{Lu}/u.test(text[j] as string) && /\p{Ll}/u.test(text[j + 1] ?? '')) {
       j += h.length;
       if (text[j] === '.') j++;
@@ -156,7 +156,7 @@ function continuesOnNextLine(text: string, s: number, nl: number, limit: number)
   return !endsWithLegalForm(text, s, nl);
 }
 
-/** A short parenthesis inside a name: "Goldline (Europe) Ltd". Returns the index after ")" or -1. */
+/** A short parenthesis inside a name: "Goldwren (Europe) Ltd". Returns the index after ")" or -1. */
 function innerQualifier(text: string, i: number, to: number): number {
   const close = text.indexOf(')', i);
   if (close < 0 || close >= to || close - i > 30) return -1;
@@ -272,7 +272,7 @@ export function nameStarts(text: string, from: number, to: number, inheritedCue:
   const partyCue = b.partyCue || (inheritedCue && windowStart === from && b.at === windowStart);
   const starts = [{ at: b.at, partyCue }];
   const segment = text.slice(b.at, to);
-  // Not a bare " and ": "to Smith and Jones LLP" must not become "Jones LLP".
+  // Not a bare " and ": "to Harrow and Pendle LLP" must not become "Pendle LLP".
   for (const sep of [', and ', '; and ', ', or ', ', ']) {
     const k = segment.lastIndexOf(sep);
     if (k > 0) starts.push({ at: b.at + k + sep.length, partyCue });

@@ -86,9 +86,9 @@ Title: Chief Executive Officer`,
   {
     id: 'us-hereinafter-referred-outside',
     style: 'US: hereinafter referred to as the "X" outside parentheses',
-    text: `THIS PURCHASE AGREEMENT is made this 5th day of May, 2024, by and between Copperleaf Orchards LLC, an Oregon limited liability company, hereinafter referred to as the "Seller", and Greywater Provisions Corp., a Washington corporation, hereinafter referred to as the "Buyer".`,
+    text: `THIS PURCHASE AGREEMENT is made this 5th day of May, 2024, by and between Copperwick Orchards LLC, an Oregon limited liability company, hereinafter referred to as the "Seller", and Greywater Provisions Corp., a Washington corporation, hereinafter referred to as the "Buyer".`,
     parties: [
-      { name: 'Copperleaf Orchards LLC', terms: ['Seller'], role: 'Seller', jurisdiction: 'US-OR' },
+      { name: 'Copperwick Orchards LLC', terms: ['Seller'], role: 'Seller', jurisdiction: 'US-OR' },
       { name: 'Greywater Provisions Corp.', terms: ['Buyer'], role: 'Buyer', jurisdiction: 'US-WA' },
     ],
   },
@@ -131,10 +131,10 @@ Title: Vice President, Operations`,
   {
     id: 'us-credit-roman-list',
     style: 'US credit agreement: (i)/(ii)/(iii) list, unnamed lenders as a collective term, "in such capacity"',
-    text: `This Credit Agreement dated as of July 1, 2024 is among (i) Fenwick Harbor Holdings, L.P., a Delaware limited partnership (the "Borrower"), (ii) the lenders from time to time party hereto (each a "Lender" and collectively the "Lenders"), and (iii) Marlstone Trust Company, as administrative agent (in such capacity, the "Administrative Agent").`,
+    text: `This Credit Agreement dated as of July 1, 2024 is among (i) Fenwick Harbor Holdings, L.P., a Delaware limited partnership (the "Borrower"), (ii) the lenders from time to time party hereto (each a "Lender" and collectively the "Lenders"), and (iii) Marlsteed Trust Company, as administrative agent (in such capacity, the "Administrative Agent").`,
     parties: [
       { name: 'Fenwick Harbor Holdings, L.P.', terms: ['Borrower'], role: 'Borrower', jurisdiction: 'US-DE' },
-      { name: 'Marlstone Trust Company', terms: ['Administrative Agent'], role: 'Administrative Agent' },
+      { name: 'Marlsteed Trust Company', terms: ['Administrative Agent'], role: 'Administrative Agent' },
     ],
     collective: [
       { term: 'Lender', parties: [] },
@@ -144,12 +144,12 @@ Title: Vice President, Operations`,
   {
     id: 'us-funds-collective',
     style: 'US fund documents: named parties with no own term, each a "Fund"',
-    text: `This Subscription Agreement is entered into by and among Alder Growth Fund LP, Alder Income Fund LP and Alder Credit Fund LP (each a "Fund" and together the "Funds"), and Meridale Capital Management LLC, a Delaware limited liability company (the "Manager").`,
+    text: `This Subscription Agreement is entered into by and among Alder Growth Fund LP, Alder Income Fund LP and Alder Credit Fund LP (each a "Fund" and together the "Funds"), and Meridane Capital Management LLC, a Delaware limited liability company (the "Manager").`,
     parties: [
       { name: 'Alder Growth Fund LP', terms: [] },
       { name: 'Alder Income Fund LP', terms: [] },
       { name: 'Alder Credit Fund LP', terms: [] },
-      { name: 'Meridale Capital Management LLC', terms: ['Manager'], role: 'Manager', jurisdiction: 'US-DE' },
+      { name: 'Meridane Capital Management LLC', terms: ['Manager'], role: 'Manager', jurisdiction: 'US-DE' },
     ],
     collective: [
       { term: 'Fund', parties: ['Alder Growth Fund LP', 'Alder Income Fund LP', 'Alder Credit Fund LP'] },
@@ -169,37 +169,37 @@ Title: Vice President, Operations`,
   {
     id: 'us-curly-quotes',
     style: 'US: curly double quotes without article',
-    text: `This Bakery Supply Agreement is entered into by and between Juniper Row Bakeries, Inc., an Illinois corporation (“Buyer”), and Thistle & Vine Farms LLC, a Wisconsin limited liability company (“Seller”).`,
+    text: `This Bakery Supply Agreement is entered into by and between Junivale Row Bakeries, Inc., an Illinois corporation (“Buyer”), and Thistle & Vine Farms LLC, a Wisconsin limited liability company (“Seller”).`,
     parties: [
-      { name: 'Juniper Row Bakeries, Inc.', terms: ['Buyer'], role: 'Buyer', jurisdiction: 'US-IL' },
+      { name: 'Junivale Row Bakeries, Inc.', terms: ['Buyer'], role: 'Buyer', jurisdiction: 'US-IL' },
       { name: 'Thistle & Vine Farms LLC', terms: ['Seller'], role: 'Seller', jurisdiction: 'US-WI' },
     ],
   },
   {
     id: 'us-single-quotes',
     style: 'single straight quotes; second party with no descriptive phrase',
-    text: `This Letter Agreement is made between Saltmarsh Robotics Inc., a Massachusetts corporation ('Saltmarsh'), and Ravensworth Ltd ('Ravensworth'). Saltmarsh's obligations are set out below.`,
+    text: `This Letter Agreement is made between Saltmarsh Robotics Inc., a Massachusetts corporation ('Saltmarsh'), and Ravensholt Ltd ('Ravensholt'). Saltmarsh's obligations are set out below.`,
     parties: [
       { name: 'Saltmarsh Robotics Inc.', terms: ['Saltmarsh'], role: null, jurisdiction: 'US-MA' },
-      { name: 'Ravensworth Ltd', terms: ['Ravensworth'], role: null },
+      { name: 'Ravensholt Ltd', terms: ['Ravensholt'], role: null },
     ],
   },
   {
     id: 'us-fka-aka',
     style: 'US: formerly known as, a/k/a',
-    text: `This Amendment is made by and between Harrowgate Financial Services, LLC, formerly known as Harrowgate Lending, LLC, a Delaware limited liability company ("Harrowgate"), and Pemberton Mills Co. a/k/a Pemberton Textile Mills, a North Carolina corporation ("Pemberton").`,
+    text: `This Amendment is made by and between Harrowgate Financial Services, LLC, formerly known as Harrowgate Lending, LLC, a Delaware limited liability company ("Harrowgate"), and Pemberwick Mills Co. a/k/a Pemberwick Textile Mills, a North Carolina corporation ("Pemberwick").`,
     parties: [
       { name: 'Harrowgate Financial Services, LLC', terms: ['Harrowgate'], role: null, jurisdiction: 'US-DE', aliases: [{ kind: 'former', name: 'Harrowgate Lending, LLC' }] },
-      { name: 'Pemberton Mills Co.', terms: ['Pemberton'], role: null, jurisdiction: 'US-NC', aliases: [{ kind: 'also_known_as', name: 'Pemberton Textile Mills' }] },
+      { name: 'Pemberwick Mills Co.', terms: ['Pemberwick'], role: null, jurisdiction: 'US-NC', aliases: [{ kind: 'also_known_as', name: 'Pemberwick Textile Mills' }] },
     ],
   },
   {
     id: 'us-successor',
     style: 'US: successor in interest (a related entity, not an alias)',
-    text: `This Transportation Agreement is entered into between Dunmore Freight Lines, Inc., successor in interest to Coldbrook Carriers, Inc., an Ohio corporation (the "Carrier"), and Ellsworth Grain Company, a Kansas corporation (the "Shipper").`,
+    text: `This Transportation Agreement is entered into between Dunmore Freight Lines, Inc., successor in interest to Coldbrook Carriers, Inc., an Ohio corporation (the "Carrier"), and Osgood Grain Company, a Kansas corporation (the "Shipper").`,
     parties: [
       { name: 'Dunmore Freight Lines, Inc.', terms: ['Carrier'], role: 'Carrier', jurisdiction: 'US-OH', related: [{ relation: 'successor_of', name: 'Coldbrook Carriers, Inc.' }] },
-      { name: 'Ellsworth Grain Company', terms: ['Shipper'], role: 'Shipper', jurisdiction: 'US-KS' },
+      { name: 'Osgood Grain Company', terms: ['Shipper'], role: 'Shipper', jurisdiction: 'US-KS' },
     ],
   },
   {
@@ -230,10 +230,10 @@ PARTIES
 
 (1) PELLINORE WIDGETS LIMITED incorporated and registered in England and Wales with company number 04417782 whose registered office is at 4 Quarry Lane, Leeds LS1 4AB (the "Supplier"); and
 
-(2) GOLDLINE (EUROPE) LTD incorporated and registered in Scotland with company number SC512345 whose registered office is at 9 Harbour Street, Leith EH6 6QX (the "Customer").`,
+(2) GOLDWREN (EUROPE) LTD incorporated and registered in Scotland with company number SC512345 whose registered office is at 9 Harbour Street, Leith EH6 6QX (the "Customer").`,
     parties: [
       { name: 'PELLINORE WIDGETS LIMITED', terms: ['Supplier'], role: 'Supplier', jurisdiction: 'GB', identifiers: [{ scheme: 'gb_company', value: '04417782' }] },
-      { name: 'GOLDLINE (EUROPE) LTD', terms: ['Customer'], role: 'Customer', jurisdiction: 'GB', identifiers: [{ scheme: 'gb_company', value: 'SC512345' }] },
+      { name: 'GOLDWREN (EUROPE) LTD', terms: ['Customer'], role: 'Customer', jurisdiction: 'GB', identifiers: [{ scheme: 'gb_company', value: 'SC512345' }] },
     ],
   },
   {
@@ -385,18 +385,18 @@ Title: Head of Procurement`,
 
 1. Kroonvelde Logistiek B.V., a private limited liability company incorporated under the laws of the Netherlands, registered with the Dutch Chamber of Commerce under number 34216590 ("Kroonvelde"); and
 
-2. Fjordline Analytics AS, a company incorporated under the laws of Norway ("Fjordline"),
+2. Fjordlyse Analytics AS, a company incorporated under the laws of Norway ("Fjordlyse"),
 
 hereinafter jointly referred to as the "Parties" and each individually as a "Party",
 
 have agreed as follows:`,
     parties: [
       { name: 'Kroonvelde Logistiek B.V.', terms: ['Kroonvelde'], role: null, jurisdiction: 'NL', identifiers: [{ scheme: 'nl_kvk', value: '34216590' }] },
-      { name: 'Fjordline Analytics AS', terms: ['Fjordline'], role: null, jurisdiction: 'NO' },
+      { name: 'Fjordlyse Analytics AS', terms: ['Fjordlyse'], role: null, jurisdiction: 'NO' },
     ],
     collective: [
-      { term: 'Parties', parties: ['Kroonvelde Logistiek B.V.', 'Fjordline Analytics AS'] },
-      { term: 'Party', parties: ['Kroonvelde Logistiek B.V.', 'Fjordline Analytics AS'] },
+      { term: 'Parties', parties: ['Kroonvelde Logistiek B.V.', 'Fjordlyse Analytics AS'] },
+      { term: 'Party', parties: ['Kroonvelde Logistiek B.V.', 'Fjordlyse Analytics AS'] },
     ],
   },
   {
@@ -420,9 +420,9 @@ have agreed as follows:`,
   {
     id: 'eu-luxembourg-sarl',
     style: 'EU Luxembourg: S.à r.l. with a French form name in parentheses in the descriptive phrase',
-    text: `This Facility Agreement is entered into by and between Valmont Holdings S.à r.l., a private limited liability company (société à responsabilité limitée) incorporated under the laws of the Grand Duchy of Luxembourg (the "Borrower"), and Estuary Credit Partners LLP, a limited liability partnership registered in England and Wales (the "Lender").`,
+    text: `This Facility Agreement is entered into by and between Valmoret Holdings S.à r.l., a private limited liability company (société à responsabilité limitée) incorporated under the laws of the Grand Duchy of Luxembourg (the "Borrower"), and Estuary Credit Partners LLP, a limited liability partnership registered in England and Wales (the "Lender").`,
     parties: [
-      { name: 'Valmont Holdings S.à r.l.', terms: ['Borrower'], role: 'Borrower', jurisdiction: 'LU' },
+      { name: 'Valmoret Holdings S.à r.l.', terms: ['Borrower'], role: 'Borrower', jurisdiction: 'LU' },
       { name: 'Estuary Credit Partners LLP', terms: ['Lender'], role: 'Lender', jurisdiction: 'GB' },
     ],
   },
@@ -455,9 +455,9 @@ Bunyip Haulage Pty Limited ACN 123 456 780 of 8 Port Road, Adelaide SA 5000 (Con
   {
     id: 'au-trustee-abn',
     style: 'Australian: company as trustee with ACN and ABN; state of incorporation',
-    text: `This Deed is made between Billabong Ridge Investments Pty Limited ACN 123 456 780 as trustee for the Billabong Ridge Family Trust ABN 51 824 753 556 ("Trustee") and Kookaburra Freight Pty Ltd (ACN 004 085 616), a company incorporated in New South Wales ("Kookaburra").`,
+    text: `This Deed is made between Billabirra Ridge Investments Pty Limited ACN 123 456 780 as trustee for the Billabirra Ridge Family Trust ABN 51 824 753 556 ("Trustee") and Kookaburra Freight Pty Ltd (ACN 004 085 616), a company incorporated in New South Wales ("Kookaburra").`,
     parties: [
-      { name: 'Billabong Ridge Investments Pty Limited', terms: ['Trustee'], role: 'Trustee', identifiers: [{ scheme: 'au_acn', value: '123456780' }, { scheme: 'au_abn', value: '51824753556' }] },
+      { name: 'Billabirra Ridge Investments Pty Limited', terms: ['Trustee'], role: 'Trustee', identifiers: [{ scheme: 'au_acn', value: '123456780' }, { scheme: 'au_abn', value: '51824753556' }] },
       { name: 'Kookaburra Freight Pty Ltd', terms: ['Kookaburra'], role: null, jurisdiction: 'AU-NSW', identifiers: [{ scheme: 'au_acn', value: '004085616' }] },
     ],
   },
@@ -473,9 +473,9 @@ Bunyip Haulage Pty Limited ACN 123 456 780 of 8 Port Road, Adelaide SA 5000 (Con
   {
     id: 'jp-co-ltd-corporate-number',
     style: 'Japanese company described in English: Co., Ltd., a Japanese corporation, corporate number',
-    text: `This Purchase Agreement is made between Mizusawa Denki Co., Ltd., a Japanese corporation (corporate number 4010001234567) (the "Manufacturer"), and Ferncastle Audio Limited, a company incorporated in England and Wales (the "Purchaser").`,
+    text: `This Purchase Agreement is made between Mizukane Denki Co., Ltd., a Japanese corporation (corporate number 4010001234567) (the "Manufacturer"), and Ferncastle Audio Limited, a company incorporated in England and Wales (the "Purchaser").`,
     parties: [
-      { name: 'Mizusawa Denki Co., Ltd.', terms: ['Manufacturer'], role: 'Manufacturer', jurisdiction: 'JP', identifiers: [{ scheme: 'other', value: '4010001234567' }] },
+      { name: 'Mizukane Denki Co., Ltd.', terms: ['Manufacturer'], role: 'Manufacturer', jurisdiction: 'JP', identifiers: [{ scheme: 'other', value: '4010001234567' }] },
       { name: 'Ferncastle Audio Limited', terms: ['Purchaser'], role: 'Purchaser', jurisdiction: 'GB' },
     ],
   },
@@ -484,14 +484,14 @@ Bunyip Haulage Pty Limited ACN 123 456 780 of 8 Port Road, Adelaide SA 5000 (Con
     style: 'Japanese company signature block (K.K.) with a representative director',
     text: `IN WITNESS WHEREOF, the parties have executed this Agreement in duplicate.
 
-Tsukishima Shoji K.K.
+Tsukinose Shoji K.K.
 
 By: ________________________
 Name: Haruto Mori
 Title: Representative Director`,
-    parties: [{ name: 'Tsukishima Shoji K.K.', terms: [] }],
+    parties: [{ name: 'Tsukinose Shoji K.K.', terms: [] }],
     notParties: ['Haruto Mori'],
-    signers: [{ name: 'Haruto Mori', title: 'Representative Director', signsFor: 'Tsukishima Shoji K.K.' }],
+    signers: [{ name: 'Haruto Mori', title: 'Representative Director', signsFor: 'Tsukinose Shoji K.K.' }],
   },
   {
     id: 'fr-ci-apres',
@@ -530,12 +530,12 @@ der Lindqvist Software GmbH, Hafenstraße 12, 20457 Hamburg, eingetragen im Hand
   {
     id: 'es-en-adelante',
     style: 'Spanish: De una parte / De otra parte, (en adelante, el "X")',
-    text: `De una parte, Olivares del Sur, S.L., con domicilio social en Calle Mayor 5, 41001 Sevilla (en adelante, el "Proveedor").
+    text: `De una parte, Olivarejo del Sur, S.L., con domicilio social en Calle Mayor 5, 41001 Sevilla (en adelante, el "Proveedor").
 
-De otra parte, Bodegas Quintanar, S.A., con domicilio en Avenida de la Paz 20, 28001 Madrid (en adelante, el "Distribuidor").`,
+De otra parte, Bodegas Quintavel, S.A., con domicilio en Avenida de la Paz 20, 28001 Madrid (en adelante, el "Distribuidor").`,
     parties: [
-      { name: 'Olivares del Sur, S.L.', terms: ['Proveedor'], role: 'Proveedor', address: 'Calle Mayor 5' },
-      { name: 'Bodegas Quintanar, S.A.', terms: ['Distribuidor'], role: 'Distribuidor' },
+      { name: 'Olivarejo del Sur, S.L.', terms: ['Proveedor'], role: 'Proveedor', address: 'Calle Mayor 5' },
+      { name: 'Bodegas Quintavel, S.A.', terms: ['Distribuidor'], role: 'Distribuidor' },
     ],
   },
   {
@@ -547,19 +547,19 @@ Fornaci Brenta S.p.A., con sede legale in Via Roma 10, 35100 Padova (di seguito 
 
 E
 
-Cantina Ferraris S.r.l., con sede in Corso Italia 8, 10121 Torino (di seguito "il Cliente")`,
+Cantina Ferravelli S.r.l., con sede in Corso Italia 8, 10121 Torino (di seguito "il Cliente")`,
     parties: [
       { name: 'Fornaci Brenta S.p.A.', terms: ['Fornitore'], role: 'Fornitore', address: 'Via Roma 10' },
-      { name: 'Cantina Ferraris S.r.l.', terms: ['Cliente'], role: 'Cliente' },
+      { name: 'Cantina Ferravelli S.r.l.', terms: ['Cliente'], role: 'Cliente' },
     ],
   },
   {
     id: 'us-stockholders-unnamed',
     style: 'US investment: the Company, unnamed stockholders as a collective term, a fund with L.P.',
-    text: `This Investors' Rights Agreement is made by and among Cobblestone Health Partners, Inc., a Delaware corporation (the "Company"), the stockholders listed on Schedule A (each a "Stockholder" and collectively the "Stockholders"), and Ridgeline Ventures Fund II, L.P. (the "Lead Investor").`,
+    text: `This Investors' Rights Agreement is made by and among Cobblethorn Health Partners, Inc., a Delaware corporation (the "Company"), the stockholders listed on Schedule A (each a "Stockholder" and collectively the "Stockholders"), and Ridgevane Ventures Fund II, L.P. (the "Lead Investor").`,
     parties: [
-      { name: 'Cobblestone Health Partners, Inc.', terms: ['Company'], role: 'Company', jurisdiction: 'US-DE' },
-      { name: 'Ridgeline Ventures Fund II, L.P.', terms: ['Lead Investor'], role: 'Lead Investor' },
+      { name: 'Cobblethorn Health Partners, Inc.', terms: ['Company'], role: 'Company', jurisdiction: 'US-DE' },
+      { name: 'Ridgevane Ventures Fund II, L.P.', terms: ['Lead Investor'], role: 'Lead Investor' },
     ],
     collective: [
       { term: 'Stockholder', parties: [] },
@@ -569,10 +569,10 @@ Cantina Ferraris S.r.l., con sede in Corso Italia 8, 10121 Torino (di seguito "i
   {
     id: 'us-employment-person',
     style: 'US employment: an individual employee with no descriptive phrase',
-    text: `This Employment Agreement is made between Ardent Lab Instruments, LLC, a Minnesota limited liability company (the "Employer"), and Priya Natarajan (the "Employee").`,
+    text: `This Employment Agreement is made between Ardent Lab Instruments, LLC, a Minnesota limited liability company (the "Employer"), and Ishani Thevarajan (the "Employee").`,
     parties: [
       { name: 'Ardent Lab Instruments, LLC', terms: ['Employer'], role: 'Employer', jurisdiction: 'US-MN' },
-      { name: 'Priya Natarajan', terms: ['Employee'], role: 'Employee' },
+      { name: 'Ishani Thevarajan', terms: ['Employee'], role: 'Employee' },
     ],
   },
   {
@@ -659,15 +659,15 @@ Its: Manager`,
   {
     id: 'us-commas-inside-quotes',
     style: 'US: commas inside curly quotes (“Orchard,” “we,” or “us”), company number in parentheses, "hereinafter called", collective in parentheses',
-    text: `This Services Agreement is entered into on May 2, 2024 by and among Orchard Lane Capital, Inc. (“Orchard,” “we,” or “us”), Tidewater Analytics LLC (Company No. 12345678) ("Tidewater") and Quillon Systems GmbH, hereinafter called the “Contractor” (hereinafter collectively referred to as the "Parties" and individually as a "Party").`,
+    text: `This Services Agreement is entered into on May 2, 2024 by and among Orchard Lane Capital, Inc. (“Orchard,” “we,” or “us”), Tidewhistle Analytics LLC (Company No. 12345678) ("Tidewhistle") and Quillon Systems GmbH, hereinafter called the “Contractor” (hereinafter collectively referred to as the "Parties" and individually as a "Party").`,
     parties: [
       { name: 'Orchard Lane Capital, Inc.', terms: ['Orchard', 'we', 'us'], role: null },
-      { name: 'Tidewater Analytics LLC', terms: ['Tidewater'], role: null, identifiers: [{ scheme: 'gb_company', value: '12345678' }] },
+      { name: 'Tidewhistle Analytics LLC', terms: ['Tidewhistle'], role: null, identifiers: [{ scheme: 'gb_company', value: '12345678' }] },
       { name: 'Quillon Systems GmbH', terms: ['Contractor'], role: 'Contractor' },
     ],
     collective: [
-      { term: 'Parties', parties: ['Orchard Lane Capital, Inc.', 'Tidewater Analytics LLC', 'Quillon Systems GmbH'] },
-      { term: 'Party', parties: ['Orchard Lane Capital, Inc.', 'Tidewater Analytics LLC', 'Quillon Systems GmbH'] },
+      { term: 'Parties', parties: ['Orchard Lane Capital, Inc.', 'Tidewhistle Analytics LLC', 'Quillon Systems GmbH'] },
+      { term: 'Party', parties: ['Orchard Lane Capital, Inc.', 'Tidewhistle Analytics LLC', 'Quillon Systems GmbH'] },
     ],
   },
   {
@@ -685,7 +685,7 @@ D'une part,
 
 Et :
 
-Monsieur Julien Marchetti, demeurant 12 avenue Foch, 75016 Paris,
+Monsieur Julien Marchetti, demeurant 12 avenue Vermandel, 75016 Paris,
 
 Ci-après dénommé « le Client »,
 

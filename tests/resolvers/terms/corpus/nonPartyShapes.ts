@@ -102,12 +102,12 @@ Preamble. The products listed in Annex 1 (hereinafter the "Contractual Products"
     style: 'UK data processing agreement: Controller and Processor bound; Sub-processor a role no party holds',
     text: `THIS DATA PROCESSING AGREEMENT is made on 3 February 2025 BETWEEN:
 
-(1) Ravensworth Lettings Limited, a company incorporated in England and Wales (company number 11223344) (the "Controller"); and
+(1) Ravensholt Lettings Limited, a company incorporated in England and Wales (company number 11223344) (the "Controller"); and
 (2) Culverhay Hosting Ltd, a company incorporated in England and Wales (company number 12345670) (the "Processor").
 
 The Processor may appoint another processor (a "Sub-processor") only with the prior written consent of the Controller.`,
     parties: [
-      { name: 'Ravensworth Lettings Limited', terms: ['Controller'], role: 'Controller' },
+      { name: 'Ravensholt Lettings Limited', terms: ['Controller'], role: 'Controller' },
       { name: 'Culverhay Hosting Ltd', terms: ['Processor'], role: 'Processor' },
     ],
     notParties: ['Sub-processor'],
