@@ -6,7 +6,7 @@ import { promises as fs } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { sql, type Kysely } from 'kysely';
-import { FileMigrationProvider, Migrator, type MigrationResult } from 'kysely/migration';
+import { Migrator, type Migration, type MigrationProvider, type MigrationResult } from 'kysely';
 
 export const MIGRATIONS_DIR = fileURLToPath(new URL('../migrations/', import.meta.url));
 
@@ -41,15 +41,28 @@ export class MigrationError extends Error {
   }
 }
 
+/**
+ * The migrations of a folder, one module per file (`up`, `down`), keyed by file name without extension. Imported
+ * by file URL so that the same code loads them under vitest and under the CLI's TypeScript loader.
+ */
+function folderMigrations(folder: string): MigrationProvider {
+  return {
+    async getMigrations(): Promise<Record<string, Migration>> {
+      const out: Record<string, Migration> = {};
+      for (const file of (await fs.readdir(folder)).sort()) {
+        if (!/\.(?:ts|js|mjs)$/.test(file) || file.endsWith('.d.ts')) continue;
+        const module = (await import(pathToFileURL(path.join(folder, file)).href)) as Migration;
+        out[file.replace(/\.(?:ts|js|mjs)$/, '')] = module;
+      }
+      return out;
+    },
+  };
+}
+
 export function createMigrator(db: Kysely<any>, migrationFolder = MIGRATIONS_DIR): Migrator {
   return new Migrator({
     db,
-    provider: new FileMigrationProvider({
-      fs,
-      path,
-      migrationFolder,
-      import: (file: string) => import(pathToFileURL(file).href),
-    }),
+    provider: folderMigrations(migrationFolder),
   });
 }
 

@@ -6,7 +6,8 @@
  */
 import { existsSync, mkdirSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
-import { Kysely, PGliteDialect, PostgresDialect, sql } from 'kysely';
+import { Kysely, PostgresDialect, sql } from 'kysely';
+import { PgliteDialect } from './pglite-dialect.ts';
 import type { PGlite as PGliteClass } from '@electric-sql/pglite';
 import type { PoolClient } from 'pg';
 import type { Database } from './types.ts';
@@ -252,7 +253,7 @@ async function openPglite(target: string, options: OpenDatabaseOptions): Promise
       cause: error,
     });
   }
-  const db = new Kysely<Database>({ dialect: new PGliteDialect({ pglite }) });
+  const db = new Kysely<Database>({ dialect: new PgliteDialect(pglite) });
   PGLITE_HANDLES.set(db, pglite);
   try {
     await sql`select 1`.execute(db);

@@ -22,10 +22,10 @@ export async function consoleRoutes(app: FastifyInstance): Promise<void> {
     // Plain modules change with the code: revalidate each time rather than cache for a day.
     cacheControl: true,
     maxAge: 0,
-    setHeaders: (reply) => {
-      reply.header('content-security-policy', CONTENT_SECURITY_POLICY);
-      reply.header('x-content-type-options', 'nosniff');
-      reply.header('referrer-policy', 'no-referrer');
+    setHeaders: (response) => {
+      response.setHeader('content-security-policy', CONTENT_SECURITY_POLICY);
+      response.setHeader('x-content-type-options', 'nosniff');
+      response.setHeader('referrer-policy', 'no-referrer');
     },
   });
   app.get('/console', { schema: { hide: true } }, async (_request, reply) => reply.redirect(CONSOLE_PREFIX, 308));
