@@ -31,6 +31,13 @@ const FORMS = ['Ltd', 'Limited', 'GmbH', 'LLC'];
 
 type Ack = { type: string; eventId: number; undoes?: number };
 
+/**
+ * Refusals the register gives by design when clients race (another client merged, split, undid or decided first).
+ * TRANSACTION_RETRIES_EXHAUSTED (503) is a capacity answer, not a designed refusal: allowed, but bounded below.
+ */
+const DESIGNED_REFUSALS = new Set(['UNDO_BLOCKED', 'NOT_FOUND', 'INVALID_INPUT', 'CONFLICT', 'ALREADY_UNDONE', 'CANNOT_LINK']);
+const MAX_RETRIES_EXHAUSTED_SHARE = 0.02;
+
 (isBackendAvailable('postgres') ? describe : describe.skip)('concurrency: 50 clients on PostgreSQL [postgres]', () => {
   let database: TestDatabase;
   let ctx: RegisterContext;
@@ -99,8 +106,9 @@ type Ack = { type: string; eventId: number; undoes?: number };
           acks.push({ type: 'review_decided', eventId: r.eventId });
         }
       } catch (error) {
-        if (error instanceof RegisterError) refusals.set(error.code, (refusals.get(error.code) ?? 0) + 1);
-        else failures.push(`client ${id}: ${(error as Error).message}`);
+        if (error instanceof RegisterError && (DESIGNED_REFUSALS.has(error.code) || error.code === 'TRANSACTION_RETRIES_EXHAUSTED')) {
+          refusals.set(error.code, (refusals.get(error.code) ?? 0) + 1);
+        } else failures.push(`client ${id}: ${(error as Error).message}`);
       }
     }
   }
@@ -112,6 +120,12 @@ type Ack = { type: string; eventId: number; undoes?: number };
     const deadline = Date.now() + DURATION_MS;
     await Promise.all(Array.from({ length: CLIENTS }, (_, i) => client(i, deadline, acks, refusals, failures)));
     expect(failures).toEqual([]);
+    // Retries exhausted is bounded: a few under this contention, never a share that would hide a livelock.
+    const refused = [...refusals.values()].reduce((a, b) => a + b, 0);
+    const attempts = acks.length + refused;
+    expect(refusals.get('TRANSACTION_RETRIES_EXHAUSTED') ?? 0).toBeLessThanOrEqual(Math.ceil(attempts * MAX_RETRIES_EXHAUSTED_SHARE));
+    // Most operations are acknowledged: refusals by design stay the minority.
+    expect(refused).toBeLessThan(acks.length);
     const byType = new Map<string, number>();
     for (const a of acks) byType.set(a.type, (byType.get(a.type) ?? 0) + 1);
     // The mix really happened.
