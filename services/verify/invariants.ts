@@ -185,7 +185,7 @@ export const ingestCountsReconcile: Check = async (db) => {
 };
 
 /**
- * Every active counterparty whose name no person locked carries the canonical name the canonical-value rules
+ * Every active counterparty whose name no person locked (and that no erasure pseudonymised) carries the canonical name the canonical-value rules
  * choose from its names (docs/register.md): a re-resolution or a merge that left another spelling, or a rule
  * changed without the stored names following, shows here.
  */
@@ -194,6 +194,8 @@ export const canonicalNamesFollowRules: Check = async (db) => {
     SELECT c.id AS counterparty_id, c.canonical_name, n.id, n.name, n.kind, n.legal_form, n.seen_count, n.confirmed_by
     FROM counterparty c JOIN counterparty_name n ON n.counterparty_id = c.id
     WHERE c.status = 'active' AND c.name_locked_by IS NULL
+      -- An erasure rewrote the names with pseudonyms ("Forgotten Person X", "… X 2"): the rules are not applied to them.
+      AND NOT EXISTS (SELECT 1 FROM history_event e WHERE e.type = 'forgotten' AND e.payload->'details'->>'counterpartyId' = c.id::text)
     ORDER BY c.id, n.id`.execute(db);
   const byCounterparty = new Map<number, { canonical: string; names: NameCandidate[] }>();
   for (const r of rows.rows) {

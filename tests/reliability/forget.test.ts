@@ -74,7 +74,9 @@ describeEachBackend('forget a person', (t) => {
     expect(result.events).toBeGreaterThan(0);
 
     const after = await everything(t.db());
-    for (const value of [PERSON, IBAN, 'GB82 WEST 1234 5698 7654 32', PHONE, ADDRESS, PERSON.toLowerCase(), 'Vandersnoot', 'vandersnoot-family.example']) expect(after).not.toContain(value);
+    // Case-insensitive: a folded or upper-cased copy (a blocking key, a normalised column) is the person still.
+    const folded = after.toLowerCase();
+    for (const value of [PERSON, IBAN, 'GB82 WEST 1234 5698 7654 32', PHONE, ADDRESS, 'Vandersnoot', 'vandersnoot-family.example']) expect(folded, value).not.toContain(value.toLowerCase());
     expect(after).toContain(result.pseudonym);
     // The other party of the contract keeps its name.
     expect(after).toContain('Harrowgate Lantern Works Ltd');
@@ -108,8 +110,7 @@ describeEachBackend('forget a person', (t) => {
       expect(done.statusCode).toBe(200);
       expect(done.json()).toMatchObject({ counterpartyId: id, pseudonym: expect.stringMatching(/^Forgotten Person /) });
       const text = await everything(t.db());
-      expect(text).not.toContain('Wilhelmina Crabtree-Oddy');
-      expect(text).not.toContain('+442079460456');
+      for (const value of ['Wilhelmina Crabtree-Oddy', 'Crabtree', '+442079460456']) expect(text.toLowerCase(), value).not.toContain(value.toLowerCase());
       const missing = await call('admin', { method: 'POST', url: '/v1/counterparties/98765432/forget', payload: {} });
       expect(missing.statusCode).toBe(404);
       expect(missing.headers['content-type']).toMatch(/application\/problem\+json/);
