@@ -136,7 +136,19 @@ function isTypo(x: string, y: string, minLength: number): boolean {
   if (!isSpacedScript(x) || !isSpacedScript(y)) return false;
   if (jaroWinklerUpperBound(x.length, y.length) < TYPO_SIMILARITY || sharedLetterBound(x, y) < TYPO_SIMILARITY) return false;
   if (isNumberToken(x) || isNumberToken(y)) return false;
+  // Digits carry identity ("3Eclipse" / "Eclipse", "Fund2" / "Fund3"): a word whose digits differ is no typo, unless
+  // a digit stands in a letter's place that it looks like ("Ostjasic0" / "Ostjasico", a misread scan).
+  if (digitsOf(x) !== digitsOf(y) && (x.length !== y.length || digitsOf(lookAlike(x)) !== digitsOf(lookAlike(y)))) return false;
   return jaroWinkler(x, y) >= TYPO_SIMILARITY;
+}
+
+function digitsOf(token: string): string {
+  return token.replace(/\D+/g, '');
+}
+
+/** Digits read as the letters they resemble (0 o, 1 l, 5 s): common practice for misread scans. */
+function lookAlike(token: string): string {
+  return token.replace(/0/g, 'o').replace(/1/g, 'l').replace(/5/g, 's');
 }
 
 /** Latin, Greek, Cyrillic, Armenian, Hebrew, Arabic and the Indic scripts before Thai (U+0E00) separate words. */
@@ -174,6 +186,8 @@ function abbreviates(short: string, long: string): boolean {
   if (short.length >= long.length || long.length < 3) return false;
   if (short.length > ABBREVIATION_MAX_LENGTH && short.length * 2 > long.length) return false;
   if (isNumberToken(short) && short.length > 1) return false;
+  // "I" is no abbreviation of "III": a series number is a distinguishing word, never shortened.
+  if (isNumberToken(long)) return false;
   if (short.length > 1 && FUNCTION_WORDS.has(short)) return false;
   return long.startsWith(short);
 }

@@ -63,7 +63,7 @@ export function nameLevel(coreEqual: boolean, soft: number, jw: number): Feature
  */
 export function nameLevelOfKind(difference: NameDifference, informative: () => boolean, band: () => FeatureLevel<'name'>): FeatureLevel<'name'> {
   const kind = difference.kind;
-  if (difference.distinguishing?.kind === 'place' && (kind === 'equal' || kind === 'near_equal' || kind === 'typo' || kind === 'extra_words')) return 'extra_place';
+  if (difference.distinguishing?.kind === 'place' && (kind === 'equal' || kind === 'near_equal' || kind === 'typo' || kind === 'abbreviation' || kind === 'extra_words')) return 'extra_place';
   switch (kind) {
     case 'equal':
       return informative() ? 'exact' : 'exact_weak';
@@ -97,7 +97,30 @@ export function isInformativeCore(tokens: readonly string[], idf: IdfTable): boo
   let letters = 0;
   for (const t of tokens) letters += t.length;
   if (letters <= WEAK_CORE_MAX_LENGTH) return false;
-  return tokens.some(rareIn(idf));
+  return tokens.some(rareIn(idf)) || expectedNamesWith(tokens, idf) < RARE_COMBINATION_BELOW;
+}
+
+/**
+ * Common words can still make a rare name together ("Deutsche Bank Luxembourg"): an equal core whose words would,
+ * falling independently, meet in fewer than one name of those compared is informative. The value-specific
+ * agreement weight of frequency-based matching (Winkler 1989) uses the frequency of the whole value; the product
+ * of word frequencies estimates it when the value itself is not counted. Measured on the LEI dev data (0.1 … 3):
+ * below 1, recall rises by 2.6 points at unchanged precision; at 3 precision drops.
+ */
+export const RARE_COMBINATION_BELOW = 1;
+
+/** How many of the names compared would hold every one of these tokens if tokens fell independently: N·Π(df/N). */
+export function expectedNamesWith(tokens: readonly string[], idf: IdfTable): number {
+  const n = idf.documentCount;
+  if (n === 0) return 0;
+  let expected = n;
+  for (const token of new Set(tokens)) expected *= documentFrequency(idf, token) / n;
+  return expected;
+}
+
+function documentFrequency(idf: IdfTable, token: string): number {
+  const n = idf.documentCount;
+  return Math.max(1, (1 + n) / Math.exp(idf.idf(token) - 1) - 1);
 }
 
 /** Whether a token is rare among the names the IDF table was built from (not common: see COMMON_TOKEN_SHARE). */

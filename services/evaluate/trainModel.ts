@@ -75,6 +75,13 @@ function countLevels(data: LabelledPairs): { m: number[][]; u: number[][]; match
   return { m: norm(m), u: norm(u), matchShare: matches / Math.max(1, data.count) };
 }
 
+/**
+ * The review band is never narrower than this many bits under linkAt: where one dataset's doubtful pairs hold fewer
+ * than half true matches at every floor, its floor would be linkAt itself and every near miss would silently become
+ * a new counterparty (a duplicate nobody sees). Two bits: pairs whose evidence is within a factor of four of a link.
+ */
+export const MIN_REVIEW_BAND = 2;
+
 /** Bits below the lowest qualifying score at which linkAt is set, so rounding of stored weights cannot lift a pattern over it. */
 const LINK_AT_MARGIN = 0.01;
 
@@ -97,8 +104,8 @@ export function estimateModel(sets: readonly LabelledPairs[], targets: TrainingT
   const linkAt = Math.max(...perSet.map((p) => p.linkAt));
   note = `${note}; linkAt per dataset: ${perSet.map((p) => `${p.name} ${p.linkAt.toFixed(3)}`).join(', ')}`;
   const floors = sets.map((set) => ({ name: set.name, newAt: reviewFloor(set, { ...draft, linkAt }, targets.reviewMatchShare) }));
-  const newAt = Math.max(...floors.map((f) => f.newAt));
-  note = `${note}; newAt per dataset: ${floors.map((f) => `${f.name} ${f.newAt.toFixed(3)}`).join(', ')}`;
+  const newAt = Math.min(Math.max(...floors.map((f) => f.newAt)), linkAt - MIN_REVIEW_BAND);
+  note = `${note}; newAt per dataset: ${floors.map((f) => `${f.name} ${f.newAt.toFixed(3)}`).join(', ')}; newAt at most linkAt - ${MIN_REVIEW_BAND}`;
   const pairs = sets.reduce((s, set) => s + set.count, 0);
   return { ...draft, linkAt: round([linkAt])[0]!, newAt: round([newAt])[0]!, provenance: { method: 'labelled', pairs, note } };
 }

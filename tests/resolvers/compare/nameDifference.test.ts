@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { analyseName } from '../../../resolvers/analyse/index.ts';
 import { buildIdfTable, compareNameTokens, isNumberToken } from '../../../resolvers/compare/index.ts';
-import { isInformativeCore } from '../../../resolvers/score/index.ts';
+import { expectedNamesWith, isInformativeCore, nameLevelOfKind } from '../../../resolvers/score/index.ts';
 
 // Invented names only.
 const diff = (a: string, b: string, country?: string) => {
@@ -83,4 +83,42 @@ describe('isInformativeCore (frequency-based agreement weights in two classes, a
   it('four letters or fewer is weak however rare ("KR GmbH")', () => expect(isInformativeCore(['kr'], idf)).toBe(false));
   it('a rare full name is informative', () => expect(isInformativeCore(['quillonvale', 'dairy'], idf)).toBe(true));
   it('a name made only of a word in many names is weak', () => expect(isInformativeCore(['volksbrand'], idf)).toBe(false));
+});
+
+describe('isInformativeCore: common words in a rare combination (Winkler 1989, value-specific frequencies)', () => {
+  // 20 names hold "alderic", 20 "luxenvale", 40 "bank": each word is common here, yet under independence fewer than
+  // one name in 441 would hold all three (441 × 21/441 × 41/441 × 21/441 ≈ 0.09), while "alderic bank" is expected
+  // in about two (441 × 21/441 × 41/441 ≈ 1.95).
+  const idf = buildIdfTable([
+    ...Array.from({ length: 20 }, (_, i) => ['alderic', 'bank', `town${i}`]),
+    ...Array.from({ length: 20 }, (_, i) => ['luxenvale', 'bank', `city${i}`]),
+    ...Array.from({ length: 400 }, (_, i) => [`filler${i}`]),
+    ['alderic', 'bank', 'luxenvale'],
+  ]);
+  it('a rare combination of common words is informative', () => expect(isInformativeCore(['alderic', 'bank', 'luxenvale'], idf)).toBe(true));
+  it('a combination expected in more than one name stays weak', () => expect(isInformativeCore(['alderic', 'bank'], idf)).toBe(false));
+  it('the expected count is N times the product of word shares', () =>
+    expect(expectedNamesWith(['alderic', 'bank', 'luxenvale'], idf)).toBeCloseTo((441 * 21 * 41 * 21) / 441 ** 3, 6));
+});
+
+describe('compareNameTokens: numbers are never shortened or misspelt', () => {
+  it('a Roman numeral is no abbreviation of a longer one ("I" / "III")', () => {
+    const d = diff('Merrowdale Finance I S.r.l.', 'Merrowdale Finance III S.r.l.');
+    expect(d.kind).not.toBe('abbreviation');
+    expect(d.distinguishing?.kind).toBe('number');
+  });
+  it('a word whose digits differ is no typo ("3Ravensgate" / "Ravensgate")', () => {
+    expect(diff('Tarnwick 3Ravensgate Trading', 'Tarnwick Ravensgate Trading').kind).not.toBe('typo');
+  });
+  it('a digit read for the letter it resembles is still a typo ("Quarrydal0n" / "Quarrydalon")', () => {
+    expect(diff('Quarrydal0n Metals', 'Quarrydalon Metals').kind).toBe('typo');
+  });
+});
+
+describe('nameLevelOfKind: a place on one side only', () => {
+  it('an abbreviated name with a place on one side is extra_place, not abbreviation', () => {
+    const d = diff('Ostrevane Tech (Europe) Inc.', 'Ostrevane Technologies Inc.');
+    expect(d.kind).toBe('abbreviation');
+    expect(nameLevelOfKind(d, () => true, () => 'high')).toBe('extra_place');
+  });
 });
