@@ -128,6 +128,8 @@ function firstFree(b: readonly string[], taken: Uint8Array, fits: (other: string
 }
 
 function isTypo(x: string, y: string, minLength: number): boolean {
+  // A letter misread as one it looks like ("CATERlNG" / "CATERING") is a typo in a shorter word too.
+  if (x.length === y.length && x.length >= TYPO_MIN_LENGTH_BESIDE_RARE && x !== y && lookAlike(x) === lookAlike(y)) return true;
   if (x.length < minLength || y.length < minLength) return false;
   // One typo (a letter added, dropped, changed or swapped) changes the length by one at most.
   if (Math.abs(x.length - y.length) > 1) return false;
@@ -146,9 +148,9 @@ function digitsOf(token: string): string {
   return token.replace(/\D+/g, '');
 }
 
-/** Digits read as the letters they resemble (0 o, 1 l, 5 s): common practice for misread scans. */
+/** Characters read as the letters they resemble (0 o, 1 i l, 5 s): common practice for misread scans. */
 function lookAlike(token: string): string {
-  return token.replace(/0/g, 'o').replace(/1/g, 'l').replace(/5/g, 's');
+  return token.replace(/0/g, 'o').replace(/[1i]/g, 'l').replace(/5/g, 's');
 }
 
 /** Latin, Greek, Cyrillic, Armenian, Hebrew, Arabic and the Indic scripts before Thai (U+0E00) separate words. */

@@ -122,3 +122,12 @@ describe('nameLevelOfKind: a place on one side only', () => {
     expect(nameLevelOfKind(d, () => true, () => 'high')).toBe('extra_place');
   });
 });
+
+describe('compareNameTokens: misread look-alike letters', () => {
+  it('"CATERlNG" / "CATERING" is a typo although the word is short', () => {
+    expect(diff('Venholtrow Caterlng Ltd', 'Venholtrow Catering Ltd').kind).toBe('typo');
+  });
+  it('a letter that looks like no other stays a difference in a short word ("Purbach" / "Purbech")', () => {
+    expect(diff('Raiffeisenbank Purbach', 'Raiffeisenbank Purbech').kind).not.toBe('typo');
+  });
+});
