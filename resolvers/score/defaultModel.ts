@@ -27,28 +27,28 @@ export const DEFAULT_MATCH_MODEL: MatchModel = {
         0.420708,
         0.0111088,
         0.0310347,
-        0.0888296,
-        0.0152834,
+        0.0912128,
+        0.0152986,
         0.15429,
         0.0325297,
         0.0204906,
-        0.04123,
-        0.0406135,
-        0.0401847,
-        0.0435307,
-        0.0601669
+        0.0395954,
+        0.040033,
+        0.0400319,
+        0.0435154,
+        0.0601516
       ],
       "u": [
         0.00111073,
         0.00158319,
         0.0000549628,
-        0.000207317,
+        0.000209786,
         0.0000731623,
         0.00466394,
         0.00114498,
-        0.00316124,
-        0.00220064,
-        0.00361846,
+        0.00316371,
+        0.00219879,
+        0.00361537,
         0.0245431,
         0.233758,
         0.723881
@@ -143,14 +143,14 @@ export const DEFAULT_MATCH_MODEL: MatchModel = {
         "activity"
       ],
       "m": [
-        0.683889,
-        0.0702778,
-        0.245833
+        0.681111,
+        0.0707407,
+        0.248148
       ],
       "u": [
-        0.787183,
-        0.203865,
-        0.00895115
+        0.787119,
+        0.203931,
+        0.00894964
       ]
     }
   },
@@ -160,6 +160,6 @@ export const DEFAULT_MATCH_MODEL: MatchModel = {
   "provenance": {
     "method": "labelled",
     "pairs": 1345564,
-    "note": "labelled candidate pairs, m and u counted per dataset (add-one smoothing) and averaged: LEI dev 421876 pairs (678 true); ROR dev companies 361726 pairs (13660 true); generated (20000 names, seed 7) 561962 pairs (21806 true); linkAt: lowest threshold whose clusters have pairwise precision >= 0.99 in every dataset; newAt: lowest score with >= 0.5 true matches among review pairs in every dataset; rebuild: node bin/run-ts.js scripts/build-model.ts; linkAt per dataset: LEI dev 9.535, ROR dev companies 7.430, generated (20000 names, seed 7) 7.430; newAt per dataset: LEI dev 9.535, ROR dev companies -1.130, generated (20000 names, seed 7) -7.921; newAt at most linkAt - 2"
+    "note": "labelled candidate pairs, m and u counted per dataset (add-one smoothing) and averaged: LEI dev 421876 pairs (678 true); ROR dev companies 361726 pairs (13660 true); generated (20000 names, seed 7) 561962 pairs (21806 true); linkAt: lowest threshold whose clusters have pairwise precision >= 0.99 in every dataset; newAt: lowest score with >= 0.5 true matches among review pairs in every dataset; rebuild: node bin/run-ts.js scripts/build-model.ts; linkAt per dataset: LEI dev 9.535, ROR dev companies 7.373, generated (20000 names, seed 7) 7.373; newAt per dataset: LEI dev 9.535, ROR dev companies -1.109, generated (20000 names, seed 7) -6.649; newAt at most linkAt - 2"
   }
 };
