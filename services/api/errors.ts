@@ -11,6 +11,7 @@ export const ERROR_CATALOGUE = {
   MALFORMED_JSON: { status: 400, title: 'The request body is not valid JSON' },
   BAD_REQUEST: { status: 400, title: 'The request cannot be read' },
   UNSTORABLE_TEXT: { status: 400, title: 'A text holds a character that cannot be stored' },
+  BODY_NOT_UTF8: { status: 400, title: 'The request body is not valid UTF-8' },
   UNAUTHENTICATED: { status: 401, title: 'An API key is required' },
   FORBIDDEN: { status: 403, title: "The API key's scope does not allow this" },
   ROUTE_NOT_FOUND: { status: 404, title: 'No such route' },
