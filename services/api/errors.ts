@@ -25,6 +25,7 @@ export const ERROR_CATALOGUE = {
   UNDO_BLOCKED: { status: 409, title: 'Later events depend on the event to undo' },
   ALREADY_UNDONE: { status: 409, title: 'The event was already undone' },
   IDEMPOTENCY_KEY_IN_USE: { status: 409, title: 'A request with this Idempotency-Key is still running' },
+  IDEMPOTENT_ANSWER_LOST: { status: 409, title: 'The first request with this Idempotency-Key was done but its answer was lost' },
   PRECONDITION_FAILED: { status: 412, title: 'The resource changed since it was read' },
   PAYLOAD_TOO_LARGE: { status: 413, title: 'The request body is too large' },
   BATCH_TOO_LARGE: { status: 413, title: 'The batch has too many items' },
