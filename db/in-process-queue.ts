@@ -3,7 +3,7 @@
  * concurrency slot. A failed job is run again up to retryLimit times. Nothing survives the process: a job row
  * left `queued` or `running` by a stopped process is picked up again by `resumeUnfinishedJobs` (services/jobs).
  */
-import type { Delivery, JobHandler, JobQueue, QueueOptions, SendOptions, WorkOptions } from './job-queue.ts';
+import type { Delivery, GivenUp, JobHandler, JobQueue, QueueOptions, SendOptions, WorkOptions } from './job-queue.ts';
 import { QUEUE_DEFAULTS } from './job-queue.ts';
 
 interface Waiting {
@@ -21,6 +21,8 @@ export class InProcessQueue implements JobQueue {
   readonly #running = new Set<Promise<void>>();
   readonly #retryLimit: number;
   readonly #keys = new Set<string>();
+  /** Jobs sent with a singleton key whose last retry failed, by name and key. */
+  readonly #givenUp = new Map<string, GivenUp>();
   #nextId = 1;
   #stopped = false;
   #onError: (error: unknown, job: { name: string; id: string }) => void;
@@ -44,6 +46,10 @@ export class InProcessQueue implements JobQueue {
   async work<T>(name: string, handler: JobHandler<T>, options: WorkOptions = {}): Promise<void> {
     this.#handlers.set(name, { handler: handler as JobHandler<unknown>, slots: Math.max(1, options.concurrency ?? 1), busy: 0 });
     this.#pump();
+  }
+
+  async givenUp(name: string, singletonKey: string): Promise<GivenUp | undefined> {
+    return this.#givenUp.get(`${name}\u0000${singletonKey}`);
   }
 
   async stop(options: { graceful?: boolean } = {}): Promise<void> {
@@ -72,6 +78,9 @@ export class InProcessQueue implements JobQueue {
         } catch (error) {
           this.#onError(error, { name: job.name, id: job.id });
           if (job.retryCount < this.#retryLimit && !this.#stopped) this.#waiting.push({ ...job, retryCount: job.retryCount + 1 });
+          else if (job.retryCount >= this.#retryLimit && job.singletonKey !== undefined) {
+            this.#givenUp.set(`${job.name}\u0000${job.singletonKey}`, { attempts: job.retryCount + 1, reason: error instanceof Error ? error.message : String(error) });
+          }
         } finally {
           worker.busy--;
         }

@@ -32,12 +32,26 @@ export interface WorkOptions {
   concurrency?: number;
 }
 
+/** A job the queue gave up: every attempt failed (or its worker vanished each time) and no retry is left. */
+export interface GivenUp {
+  /** Runs made: the first and its retries. */
+  attempts: number;
+  /** The queue's last word on it (the handler's error, or the queue's own, e.g. an expired run). */
+  reason: string;
+}
+
 export interface JobQueue {
   /** 'pg-boss' or 'in-process' (for logs and /healthz). */
   readonly kind: 'pg-boss' | 'in-process';
   send<T extends object>(name: string, data: T, options?: SendOptions): Promise<void>;
   /** Starts taking jobs of `name` in this process. */
   work<T>(name: string, handler: JobHandler<T>, options?: WorkOptions): Promise<void>;
+  /**
+   * Whether the job sent as `name` with `singletonKey` was given up (its retries exhausted), and why; undefined
+   * while it waits, runs, succeeded, or is unknown. The job watchdog (services/jobs/watchdog.ts) asks this, because
+   * a step whose worker died on every attempt never ran the cpreg code that would have failed its job.
+   */
+  givenUp(name: string, singletonKey: string): Promise<GivenUp | undefined>;
   /** Stops taking jobs; with `graceful` (the default) the running ones finish first. */
   stop(options?: { graceful?: boolean }): Promise<void>;
 }

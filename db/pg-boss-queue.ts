@@ -9,7 +9,7 @@
  */
 import { createHash } from 'node:crypto';
 import PgBoss from 'pg-boss';
-import type { JobHandler, JobQueue, QueueOptions, SendOptions, WorkOptions } from './job-queue.ts';
+import type { GivenUp, JobHandler, JobQueue, QueueOptions, SendOptions, WorkOptions } from './job-queue.ts';
 import { QUEUE_DEFAULTS, QUEUE_SCHEMA } from './job-queue.ts';
 
 export interface PgBossQueueOptions extends QueueOptions {
@@ -66,9 +66,24 @@ export async function openPgBossQueue(connectionString: string, options: PgBossQ
         });
       }
     },
+    async givenUp(name: string, singletonKey: string): Promise<GivenUp | undefined> {
+      await ensureQueue(name);
+      // pg-boss marks a job `failed` only when no retry is left (a failure with retries left becomes `retry`); a
+      // worker that vanished is failed by the supervisor once the job's expiry passed, with its own message.
+      const job = (await boss.getJobById(name, jobIdFor(`${name}:${singletonKey}`), { includeArchive: true })) as { state?: string; retryCount?: number; output?: unknown } | null;
+      if (job?.state !== 'failed') return undefined;
+      return { attempts: (job.retryCount ?? 0) + 1, reason: outputMessage(job.output) };
+    },
     async stop(stopOptions: { graceful?: boolean } = {}): Promise<void> {
       await boss.stop({ graceful: stopOptions.graceful ?? true, wait: true, timeout: 30_000 });
     },
   };
   return queue;
+}
+
+/** The message pg-boss stored as a failed job's output: a handler's error, or its supervisor's `{ value: { message } }`. */
+function outputMessage(output: unknown): string {
+  const o = output as { message?: unknown; value?: { message?: unknown } } | null | undefined;
+  const message = o?.message ?? o?.value?.message;
+  return typeof message === 'string' && message !== '' ? message : 'failed (the queue kept no message)';
 }

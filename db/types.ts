@@ -235,6 +235,8 @@ export interface IdempotencyRecordTable {
   status_code: number | null;
   response: Json<unknown> | null;
   created_at: TimestampDefault;
+  /** Set in the transaction that commits the request's work (migration 20261205000000). */
+  work_committed_at: Timestamp | null;
 }
 
 export interface IngestRunTable {

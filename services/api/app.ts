@@ -14,6 +14,7 @@ import { PROBLEM_SCHEMA, problemResponses } from './errors.ts';
 import { registerErrorHandling } from './error-handler.ts';
 import { MAX_PATH_PARAMETER_LENGTH, frameworkErrors } from './framework-errors.ts';
 import { clientErrorHandler } from './client-error-handler.ts';
+import { useStrictJsonParser } from './body/strict-json.ts';
 import { buildValidatorFactory } from './validation.ts';
 import { loggerOptions } from './logger.ts';
 import { APP_PLUGINS } from './plugins/index.ts';
@@ -54,6 +55,9 @@ export async function buildApp(inputDeps: AppDeps): Promise<FastifyInstance> {
   // fastify parses text/plain bodies into a string by default, which the schema then refused as
   // "(root) must be object" (422); no route takes plain text, so such a body is now 415 UNSUPPORTED_MEDIA_TYPE.
   app.removeContentTypeParser('text/plain');
+  // JSON bodies must be UTF-8 to the last byte (body/strict-json.ts): fastify's own parser decoded ill-formed
+  // bytes to U+FFFD, which was then stored.
+  useStrictJsonParser(app);
   app.addSchema(PROBLEM_SCHEMA);
   app.addHook('onRequest', async (request, reply) => {
     reply.header('x-request-id', request.id);

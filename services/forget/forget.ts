@@ -8,6 +8,10 @@
  * the person readable forever. The same replacement is applied to the state rows and to the history
  * images, so that replaying the rewritten history gives the rewritten register exactly.
  *
+ * Mentions that name the person without being linked to them — a review-queue mention with the person as its
+ * candidate, an unlinked "J. Smith" — are erased with the linked ones (person-mentions.ts), with their history
+ * events and review items.
+ *
  * The erasure is recorded as a `forgotten` event carrying no personal data (the ids and how many rows and
  * events were rewritten); it cannot be undone (the register refuses to).
  */
@@ -21,6 +25,7 @@ import { analyse } from '../register/matching/analysis.ts';
 import { insertNameKeys } from '../register/state/derived.ts';
 import { STATE_TABLES, canonicalRow, toDbValues, type Row, type StateTable } from '../register/state/tables.ts';
 import type { Op } from '../register/state/change-set.ts';
+import { mentionsNamingPerson } from './person-mentions.ts';
 
 export interface ForgetOptions {
   /** Allow erasing a counterparty recorded as an organisation (default: refused; the right applies to persons). */
@@ -39,6 +44,8 @@ export interface ForgetResult {
   events: number;
   /** Idempotency records and job rows whose stored answers were rewritten. */
   storedAnswers: number;
+  /** Mentions erased that were not linked to the person (review-queue mentions naming them; person-mentions.ts). */
+  unlinkedMentions: number;
 }
 
 /**
@@ -63,7 +70,11 @@ export async function forgetCounterparty(ctx: RegisterContext, counterpartyId: n
     }
     const token = randomBytes(4).toString('hex').toUpperCase();
     const pseudonym = `Forgotten Person ${token}`;
-    const mentionIds = (await trx.selectFrom('mention').select('id').where('counterparty_id', 'in', cluster).execute()).map((r) => Number(r.id));
+    const linkedIds = (await trx.selectFrom('mention').select('id').where('counterparty_id', 'in', cluster).execute()).map((r) => Number(r.id));
+    // Mentions that name the person without being linked to them (the review queue): erased with the rest.
+    const namingIds = await mentionsNamingPerson(trx, cluster, await namesOf(trx, cluster));
+    const mentionIds = [...new Set([...linkedIds, ...namingIds])].sort((a, b) => a - b);
+    const unlinkedMentions = mentionIds.length - linkedIds.length;
     const secrets = await collectSecrets(trx, cluster, mentionIds, pseudonym, token);
     const replace = replacer(secrets);
 
@@ -77,7 +88,7 @@ export async function forgetCounterparty(ctx: RegisterContext, counterpartyId: n
     const storedAnswers = await rewriteStoredAnswers(trx, secrets, replace);
 
     const at = ctx.now();
-    const details = { counterpartyId: Number(survivor.id), counterpartyIds: cluster, pseudonym, rows: rowCounts, events, storedAnswers };
+    const details = { counterpartyId: Number(survivor.id), counterpartyIds: cluster, pseudonym, rows: rowCounts, events, storedAnswers, unlinkedMentions };
     const event = await trx
       .insertInto('history_event')
       .values({
@@ -95,6 +106,13 @@ export async function forgetCounterparty(ctx: RegisterContext, counterpartyId: n
       .executeTakeFirstOrThrow();
     return { eventId: Number(event.id), ...details };
   });
+}
+
+/** Every name the cluster holds (canonical and recorded), to find the short forms of (person-mentions.ts). */
+async function namesOf(trx: Transaction<Database>, cluster: number[]): Promise<string[]> {
+  const canonical = await trx.selectFrom('counterparty').select('canonical_name').where('id', 'in', cluster).execute();
+  const recorded = await trx.selectFrom('counterparty_name').select('name').where('counterparty_id', 'in', cluster).execute();
+  return [...new Set([...canonical.map((r) => r.canonical_name), ...recorded.map((r) => r.name)])];
 }
 
 /** The survivor of `id` and every counterparty whose redirect chain ends in it. */

@@ -3,13 +3,20 @@
  * it grows (a 30 MB line took 250 MB): here a line longer than `maxBytes` is given up as soon as it passes the
  * limit — its bytes are dropped until the next line break and it is reported by its number as too long, with the
  * first bytes kept for the rejects file. Line breaks are those readline knew (LF, CRLF, a lone CR), so line
- * numbers stay what they were. Bytes are decoded per whole line, so a character split across chunks survives.
+ * numbers stay what they were. Bytes are decoded per whole line, so a character split across chunks survives;
+ * a line that is not well-formed UTF-8 is marked with the byte offset where its first bad sequence begins.
  */
+import { decodeUtf8Strictly } from './utf8.ts';
+
 export const MAX_NDJSON_LINE_BYTES = 1024 * 1024;
 /** How much of a line that is too long is kept to show in the rejects file. */
 const HEAD_BYTES = 200;
 
-export type NdjsonLine = { line: number; text: string } | { line: number; tooLong: true; head: string };
+/**
+ * A line; `notUtf8` when its bytes are not well-formed UTF-8 (then `text` is shown with U+FFFD, for the rejects
+ * file only: such a line is refused, never read as a mention).
+ */
+export type NdjsonLine = { line: number; text: string; notUtf8?: { byteOffset: number; byte: number } } | { line: number; tooLong: true; head: string };
 
 export interface NdjsonLineOptions {
   maxBytes?: number;
@@ -19,6 +26,13 @@ export interface NdjsonLineOptions {
 
 const LF = 0x0a;
 const CR = 0x0d;
+
+/** Strictly: Buffer#toString would turn an ill-formed byte into U+FFFD and the row would be stored so. */
+function decodeLine(line: number, bytes: Buffer): NdjsonLine {
+  const decoded = decodeUtf8Strictly(bytes);
+  if (decoded.ok) return { line, text: decoded.text };
+  return { line, text: bytes.toString('utf8'), notUtf8: { byteOffset: decoded.byteOffset, byte: decoded.byte } };
+}
 
 export async function* ndjsonLines(stream: AsyncIterable<Buffer | string>, options: NdjsonLineOptions = {}): AsyncGenerator<NdjsonLine> {
   const maxBytes = options.maxBytes ?? MAX_NDJSON_LINE_BYTES;
@@ -42,7 +56,7 @@ export async function* ndjsonLines(stream: AsyncIterable<Buffer | string>, optio
   };
   const take = (): NdjsonLine => {
     line++;
-    const out: NdjsonLine = head ? { line, tooLong: true, head: head.toString('utf8') } : { line, text: Buffer.concat(parts, size).toString('utf8') };
+    const out: NdjsonLine = head ? { line, tooLong: true, head: head.toString('utf8') } : decodeLine(line, Buffer.concat(parts, size));
     parts = [];
     size = 0;
     head = undefined;

@@ -24,6 +24,8 @@ import { RejectsWriter } from './rejects.ts';
 import { unstorableRowReason } from './unstorable-text.ts';
 import { MAX_NDJSON_LINE_BYTES, ndjsonLines } from './ndjson-lines.ts';
 import { duplicateColumn } from './duplicate-column.ts';
+import { hexByte } from './utf8.ts';
+import { Utf8Watch } from './utf8-watch.ts';
 
 export const COUNT_KEYS = ['linked', 'review', 'new', 'own_entity', 'not_a_party', 'unbound_term', 'collective_term', 'already_ingested', 'rejected'] as const;
 export type CountKey = (typeof COUNT_KEYS)[number];
@@ -119,6 +121,10 @@ export async function* rowsOf(file: string, format: IngestFormat, source: string
         yield { line, raw: `${read.head}…`, result: { ok: false, reason: `the line is longer than ${MAX_NDJSON_LINE_BYTES} bytes (1 MB), the limit of an NDJSON line` } };
         continue;
       }
+      if (read.notUtf8) {
+        yield { line, raw: read.text, result: { ok: false, reason: notUtf8Reason(read.notUtf8, 'of the line') } };
+        continue;
+      }
       // A byte order mark before the first line is an encoding marker, not text (the CSV reader strips it too).
       const text = line === 1 && read.text.startsWith('\uFEFF') ? read.text.slice(1) : read.text;
       if (text.trim() === '') continue;
@@ -133,7 +139,11 @@ export async function* rowsOf(file: string, format: IngestFormat, source: string
     }
     return;
   }
-  const parser = stream.pipe(
+  // csv-parse decodes an ill-formed byte to U+FFFD: the watch notes where such bytes lie and a record that holds
+  // one is refused by its line (utf8-watch.ts).
+  const watch = new Utf8Watch();
+  let recordStart = 0;
+  const parser = stream.pipe(watch).pipe(
     parse({
       bom: true,
       relax_column_count: true,
@@ -149,9 +159,20 @@ export async function* rowsOf(file: string, format: IngestFormat, source: string
   );
   let header: string[] | undefined;
   let columns: FieldMap = {};
-  for await (const item of parser as AsyncIterable<{ record: string[]; info: { lines: number }; raw: string }>) {
+  for await (const item of parser as AsyncIterable<{ record: string[]; info: { lines: number; bytes: number }; raw: string }>) {
     const { record, info, raw } = item;
     const line = info.lines;
+    // The record's bytes are those after the previous record's end (a record skipped as unreadable CSV in between
+    // is counted with this one's range: its own bytes were refused already).
+    const bad = watch.firstIn(recordStart, info.bytes);
+    const at = recordStart;
+    recordStart = info.bytes;
+    if (bad) {
+      const where = { byteOffset: bad.offset - at, byte: bad.byte };
+      if (!header) throw new MappingError(`the CSV header (line ${line}) is ${notUtf8Reason(where, 'of the header')}`);
+      yield { line, raw: raw.replace(/\r?\n$/, ''), result: { ok: false, reason: notUtf8Reason(where, 'of the row') } };
+      continue;
+    }
     if (!header) {
       header = record.map((h) => h.trim());
       // Two columns of one name would leave each row holding only the last one's cell: the file is refused.
@@ -170,6 +191,11 @@ export async function* rowsOf(file: string, format: IngestFormat, source: string
     yield { line, raw: rawText, result: mentionFromRow(row, record, columns, source) };
   }
   void file;
+}
+
+/** `not valid UTF-8: the byte 0xFF at byte offset 12 of the line …` (offsets count from 0). */
+function notUtf8Reason(bad: { byteOffset: number; byte: number }, of: string): string {
+  return `not valid UTF-8: the byte ${hexByte(bad.byte)} at byte offset ${bad.byteOffset} ${of} begins no well-formed sequence (RFC 3629); save the file as UTF-8`;
 }
 
 export async function ingestFile(options: IngestOptions): Promise<IngestSummary> {

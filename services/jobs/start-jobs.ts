@@ -15,6 +15,7 @@ import { createRegisterContext, type RegisterContext } from '../register/context
 import type { JobDeps } from './deps.ts';
 import { JOB_STEPS } from './deps.ts';
 import { workOnJobs } from './steps.ts';
+import { startWatchdog } from './watchdog.ts';
 import { unfinishedPartitions, updateJob } from '../../db/queries/jobs.ts';
 
 export interface StartJobsOptions {
@@ -33,6 +34,8 @@ export interface StartJobsOptions {
   worker?: string;
   /** Use the in-process queue even on PostgreSQL (tests, one-process tools). Default false. */
   inProcess?: boolean;
+  /** How often the job watchdog looks for steps the queue gave up (watchdog.ts). Default WATCHDOG_INTERVAL_MS. */
+  watchdogIntervalMs?: number;
 }
 
 export interface Jobs {
@@ -55,7 +58,16 @@ export async function startJobs(options: StartJobsOptions): Promise<Jobs> {
   if (options.work) await workOnJobs(deps, { concurrency: options.concurrency ?? 1 });
   // The in-process queue forgets everything when its process stops: pick up where the last one left off.
   if (options.work && queue.kind === 'in-process' && options.backend !== 'postgres') await resumeUnfinishedJobs(deps);
-  return { queue, deps, stop: () => queue.stop({ graceful: true }) };
+  // A step given up by the queue after its worker died on every attempt fails its job (watchdog.ts).
+  const watchdog = options.work ? startWatchdog(deps, options.watchdogIntervalMs) : undefined;
+  return {
+    queue,
+    deps,
+    stop: async () => {
+      watchdog?.stop();
+      await queue.stop({ graceful: true });
+    },
+  };
 }
 
 /**

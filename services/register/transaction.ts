@@ -7,6 +7,7 @@
 import type { RegisterContext } from './context.ts';
 import { ChangeSet } from './state/change-set.ts';
 import { RegisterError } from './errors.ts';
+import { markWorkCommitted } from '../../db/idempotency-scope.ts';
 
 /** deadlock_detected, serialization_failure, unique_violation (a concurrent insert of the same key). */
 const RETRYABLE = new Set(['40P01', '40001', '23505']);
@@ -21,7 +22,12 @@ export async function write<T>(ctx: RegisterContext, fn: (cs: ChangeSet) => Prom
   let lastError: unknown;
   for (let attempt = 0; attempt < MAX_ATTEMPTS; attempt++) {
     try {
-      return await ctx.db.transaction().execute((trx) => fn(new ChangeSet(trx, ctx.derived)));
+      return await ctx.db.transaction().execute(async (trx) => {
+        const result = await fn(new ChangeSet(trx, ctx.derived));
+        // An idempotent API request's claim is stamped in the same commit as its work (db/idempotency-scope.ts).
+        await markWorkCommitted(trx);
+        return result;
+      });
     } catch (error) {
       const code = pgErrorCode(error);
       if (!code || !RETRYABLE.has(code)) throw error;

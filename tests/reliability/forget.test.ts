@@ -11,7 +11,7 @@ import { insertChunk, insertJob, insertPartitions } from '../../db/queries/jobs.
 import { sql, type Kysely } from 'kysely';
 import { beforeAll, expect, it } from 'vitest';
 import type { Database } from '../../db/types.ts';
-import { createCounterparty, createRegisterContext, mergeCounterparties, resolveMention, undoEvent, type RegisterContext } from '../../services/register/index.ts';
+import { createCounterparty, createRegisterContext, mergeCounterparties, resolveMention, setAsideMention, undoEvent, type RegisterContext } from '../../services/register/index.ts';
 import { storeContract } from '../../services/register/contracts.ts';
 import { forgetCounterparty } from '../../services/forget/index.ts';
 import { verifyRegister } from '../../services/verify/index.ts';
@@ -89,6 +89,39 @@ describeEachBackend('forget a person', (t) => {
     expect(event.reason).toBe('erasure request 7');
     await expect(undoEvent(ctx, result.eventId, WHO)).rejects.toMatchObject({ code: 'NOT_UNDOABLE' });
 
+    const report = await verifyRegister(t.db());
+    expect(report.checks.filter((c) => !c.ok)).toEqual([]);
+  });
+
+  it('also erases review-queue mentions that name the person without being linked: by initial and surname, or pointing at them as a candidate', async () => {
+    const name = 'Bartholomew Quenneville';
+    const id = (await createCounterparty(ctx, { name, kind: 'person' }, WHO)).counterpartyId;
+    // "B. Quenneville" waits in the review queue with the person as its candidate (an open review item).
+    const initial = await resolveMention(ctx, { source: 'crm', externalId: 'q1', text: 'B. Quenneville', address: '3 Tollard Steps, Marrowby' }, WHO);
+    expect(initial).toMatchObject({ status: 'review', counterpartyId: null });
+    // "Quenneville, B." was set aside by a reviewer: no open item points at the person, only its text names them.
+    const reversed = await resolveMention(ctx, { source: 'crm', externalId: 'q2', text: 'Quenneville, B.' }, WHO);
+    await setAsideMention(ctx, reversed.mentionId, WHO);
+    // A company with the same surname, a record of its own: never touched.
+    const company = await resolveMention(ctx, { source: 'erp', externalId: 'q3', text: 'Quenneville Freight Ltd' }, WHO);
+    expect(company.counterpartyId).not.toBeNull();
+    const before = await everything(t.db());
+    for (const value of ['B. Quenneville', 'Quenneville, B.', '3 Tollard Steps']) expect(before).toContain(value);
+
+    const result = await forgetCounterparty(ctx, id, { ...WHO, reason: 'erasure request 9' });
+    expect(result.unlinkedMentions).toBe(2);
+    const after = await everything(t.db());
+    for (const value of ['B. Quenneville', 'Quenneville, B.', '3 Tollard Steps', name]) expect(after.toLowerCase(), value).not.toContain(value.toLowerCase());
+    // What still holds the surname is the company's own record (its rows, its blocking keys) and nothing else
+    // (folded, so no copy escapes).
+    const holders = after.split('\n').filter((line) => line.toLowerCase().includes('quenneville'));
+    expect(holders.length).toBeGreaterThan(0);
+    for (const line of holders) expect(line.toLowerCase().includes('quenneville freight') || line.includes(`"counterparty_id":${company.counterpartyId},`), line.slice(0, 200)).toBe(true);
+    // The review item is still there for a person to decide, now between two pseudonymised records.
+    const item = await t.db().selectFrom('review_item').select(['status', 'right_counterparty_id']).where('mention_id', '=', initial.mentionId).executeTakeFirstOrThrow();
+    expect(item).toMatchObject({ status: 'open', right_counterparty_id: id });
+    const mention = await t.db().selectFrom('mention').select('text').where('id', '=', initial.mentionId).executeTakeFirstOrThrow();
+    expect(mention.text).toMatch(/^Forgotten Person [0-9A-F]{8}/);
     const report = await verifyRegister(t.db());
     expect(report.checks.filter((c) => !c.ok)).toEqual([]);
   });

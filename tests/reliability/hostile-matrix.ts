@@ -1,6 +1,7 @@
 /**
  * The fixed hostile-input matrix (issue 17): for every live route, the inputs that once answered 500 or were
- * mishandled — NUL, a lone surrogate, integers out of range, deep JSON, a wrong media type — placed in the query
+ * mishandled — NUL, a lone surrogate, integers out of range, deep JSON, a wrong media type, bodies that are not
+ * UTF-8 (0xFF, an overlong form, a sequence cut short, CESU-8 surrogate bytes) or declare another charset — placed in the query
  * string, each path parameter and the body, each with the answer it must get. Where a route declares a parameter
  * of the right kind (a string to hold the NUL, an integer to overflow) the input goes there, read from
  * /openapi.json; so a new route or parameter is covered without a list. Path parameters not under test hold
@@ -31,10 +32,13 @@ export interface HostileCase {
   label: string;
   method: string;
   url: string;
-  payload?: string;
+  payload?: string | Buffer;
   contentType?: string;
-  /** What a correct answer is: the status, one of the codes, and a field error at this pointer in this part. */
-  expect: { status?: number; codes?: string[]; pointer?: string; in?: 'query' | 'path' | 'body' };
+  /**
+   * What a correct answer is: the status, one of the codes, a field error at this pointer in this part, and for a
+   * body that is not UTF-8 the byte offset it must name.
+   */
+  expect: { status?: number; codes?: string[]; pointer?: string; in?: 'query' | 'path' | 'body' | 'header'; byteOffset?: number };
 }
 
 /** 2^63: one past PostgreSQL's bigint, and far past 2^53 (where JSON integers stop being exact). */
@@ -42,6 +46,14 @@ export const OUT_OF_RANGE = '9223372036854775808';
 export const DEEP_JSON = `${'['.repeat(20_000)}${']'.repeat(20_000)}`;
 const NUL = 'a%00b';
 const SURROGATE = 'a%ED%A0%80'; // CESU-8 bytes of U+D800: the only way a lone surrogate travels in a URL
+
+/** Ill-formed UTF-8, one of each kind: the byte values are those Table 3-7 of The Unicode Standard excludes. */
+export const NOT_UTF8: readonly [string, readonly number[]][] = [
+  ['0xFF', [0xff]],
+  ['overlong', [0xc0, 0xaf]],
+  ['truncated', [0xe2, 0x82]],
+  ['CESU-8 surrogate', [0xed, 0xa0, 0x80]],
+];
 
 const isType = (schema: Schema | undefined, type: string): boolean =>
   schema?.type === type || (Array.isArray(schema?.type) && schema.type.includes(type));
@@ -133,6 +145,12 @@ export function hostileMatrix(routes: readonly LiveRoute[], doc: OpenApiDoc): Ho
       // Counted once per route (the first field) so that the per-kind count is the route count; the others too.
       add(i === 0 ? 'body out-of-range integer' : 'body out-of-range integer (more fields)', { url, payload: field.json, expect: { status: 422, codes: ['VALIDATION_FAILED'], pointer: field.pointer, in: 'body' } });
     }
+    // Bytes that are not UTF-8 inside a JSON string (Unicode Table 3-7): refused with the offset, never read as U+FFFD.
+    for (const [name, bytes] of NOT_UTF8) {
+      const head = Buffer.from(`{${JSON.stringify(textField ?? 'note')}:"ab`);
+      add(`body not UTF-8 (${name})`, { url, payload: Buffer.concat([head, Buffer.from(bytes), Buffer.from('c"}')]), expect: { status: 400, codes: ['BODY_NOT_UTF8'], byteOffset: head.length } });
+    }
+    add('body charset latin1', { url, payload: '{}', contentType: 'application/json; charset=latin1', expect: { status: 415, codes: ['UNSUPPORTED_MEDIA_TYPE'], pointer: '/content-type', in: 'header' } });
     add('body deep JSON', { url, payload: DEEP_JSON, expect: { status: 422, codes: ['BODY_TOO_DEEP'] } });
     add('body wrong media type', { url, payload: 'source=s&text=t', contentType: 'text/plain', expect: { status: 415, codes: ['UNSUPPORTED_MEDIA_TYPE'] } });
   }

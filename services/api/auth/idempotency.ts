@@ -6,6 +6,11 @@
  * is still running answers 409 IDEMPOTENCY_KEY_IN_USE. Keys are scoped to the API key that sent them and kept
  * 24 hours. A 5xx answer is not stored (the retry runs again: a failed request changed nothing).
  *
+ * The claim row is written before the work and the answer after it, outside the work's transaction; the work's
+ * own transaction stamps the claim `work_committed_at` (db/idempotency-scope.ts: register writes and key
+ * creation). A retry of a claim left without an answer for ABANDONED_AFTER_MS (its process died) redoes the work
+ * only when that stamp is absent; otherwise it answers 409 IDEMPOTENT_ANSWER_LOST instead of doing it twice.
+ *
  * An answer that holds a secret shown once (POST /v1/keys) is never stored as it was sent: the route says in
  * `config.idempotentReplay` what a replay answers instead (the key's id and metadata, `secretWithheld: true`),
  * and whatever is stored is searched for whole API keys, each replaced by a marker, so that a route that forgets
@@ -19,6 +24,7 @@ import { ApiError } from '../errors.ts';
 import type { AppPlugin } from '../types.ts';
 import { KEY_IN_TEXT } from './keys.ts';
 import { canonicalJson } from './canonical-json.ts';
+import { currentIdempotencyScope, runInIdempotencyScope } from '../../../db/idempotency-scope.ts';
 
 export const IDEMPOTENCY_TTL_HOURS = 24;
 /** A first request that left no answer this long ago (its instance died) may be taken over. */
@@ -89,6 +95,15 @@ export async function claimIdempotencyKey(
   }
   if (row.status_code === null || row.response === null) {
     const age = Date.now() - new Date(row.created_at).getTime();
+    if (age > ABANDONED_AFTER_MS && row.work_committed_at !== null) {
+      // The first request's work was committed (stamped in its transaction) but its process stopped before the
+      // answer was stored: doing the work again would do it twice (a second counterparty, a second key).
+      throw new ApiError(
+        'IDEMPOTENT_ANSWER_LOST',
+        'the first request with this Idempotency-Key changed the register, but its answer was lost when its process stopped; it is not done again: read the resource to see the result, and use a new key for a new request',
+        { extensions: { workCommittedAt: new Date(row.work_committed_at).toISOString() } },
+      );
+    }
     if (age > ABANDONED_AFTER_MS) {
       const taken = await db
         .updateTable('idempotency_record')
@@ -166,6 +181,11 @@ export function idempotencyKeyOf(request: FastifyRequest): string | undefined {
 
 export const idempotencyPlugin: AppPlugin = (app, deps) => {
   app.decorateRequest('idempotency', null);
+  // Every request runs in a scope of its own, so that the transaction that commits its work can stamp its claim
+  // (db/idempotency-scope.ts). A callback hook: the rest of the request runs inside `run`.
+  app.addHook('onRequest', (_request, _reply, done) => {
+    runInIdempotencyScope(done);
+  });
   app.addHook('preHandler', async (request, reply) => {
     if (request.method !== 'POST' || !request.apiKey) return;
     const key = idempotencyKeyOf(request);
@@ -177,11 +197,15 @@ export const idempotencyPlugin: AppPlugin = (app, deps) => {
     const result = await claimIdempotencyKey(deps.db, { ...claim, method: request.method, path, hash: bodyHash(request.method, path, request.body) });
     if (result.kind === 'replay') return sendStoredAnswer(reply, result.answer);
     request.idempotency = claim;
+    const scope = currentIdempotencyScope();
+    if (scope) scope.claim = claim;
   });
   app.addHook('onSend', async (request, reply, payload) => {
     const claim = request.idempotency;
     if (!claim) return payload;
     request.idempotency = null;
+    const scope = currentIdempotencyScope();
+    if (scope) scope.claim = undefined;
     if (reply.statusCode >= 500 || isReadable(payload) || reply.getHeader('idempotent-replayed')) {
       await releaseIdempotencyKey(deps.db, claim);
       return payload;

@@ -7,6 +7,7 @@
 import { createHash, randomBytes, timingSafeEqual } from 'node:crypto';
 import type { Kysely } from 'kysely';
 import type { Database } from '../../../db/types.ts';
+import { markWorkCommitted } from '../../../db/idempotency-scope.ts';
 import { API_SCOPES, type ApiScope } from '../../../resolvers/vocabulary.ts';
 
 export interface ApiKeyInfo {
@@ -57,11 +58,12 @@ export async function createApiKey(db: Kysely<Database>, input: { scope: ApiScop
   const label = checkLabel(input.label);
   const id = `k${randomBytes(6).toString('hex')}`;
   const secret = `cpreg_${id}_${randomBytes(32).toString('base64url')}`;
-  const row = await db
-    .insertInto('api_key')
-    .values({ id, label, scope: input.scope, secret_hash: digest(secret), created_at: new Date() })
-    .returningAll()
-    .executeTakeFirstOrThrow();
+  const row = await db.transaction().execute(async (trx) => {
+    const created = await trx.insertInto('api_key').values({ id, label, scope: input.scope, secret_hash: digest(secret), created_at: new Date() }).returningAll().executeTakeFirstOrThrow();
+    // A retried POST /v1/keys whose answer was lost must not create a second key (db/idempotency-scope.ts).
+    await markWorkCommitted(trx);
+    return created;
+  });
   return { ...toInfo(row), secret };
 }
 

@@ -5,11 +5,14 @@
  * its own codes. Thresholds (≥ 99 % abbreviations, ≥ 95 % local names) are the acceptance criteria of issue 3.
  */
 import { existsSync, readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { analyseName, isPrefixJurisdiction } from '../../../resolvers/analyse/index.ts';
 import { parseElfRows } from '../../../resolvers/analyse/buildElfTable.ts';
 
-const CSV = '../shared/reference/iso20275-elf-code-list.csv';
+// Resolved from this file, not the working directory: run from elsewhere, a relative path turned the checks below
+// into skips (issue 17). The worktree sits beside ../shared.
+const CSV = fileURLToPath(new URL('../../../../shared/reference/iso20275-elf-code-list.csv', import.meta.url));
 const present = existsSync(CSV);
 
 /** An invented name no designator ends or starts with. */

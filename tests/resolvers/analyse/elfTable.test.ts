@@ -3,11 +3,14 @@
  * builder handles the quirks of v1.5 listed in ../shared/reference/SOURCES.md §2.
  */
 import { existsSync, readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { designatorKey } from '../../../resolvers/analyse/index.ts';
 import { buildElfTable, compoundFamily, parseElfRows, serialiseElfTable, splitAbbreviations } from '../../../resolvers/analyse/buildElfTable.ts';
 
-const CSV = '../shared/reference/iso20275-elf-code-list.csv';
+// Resolved from this file, not the working directory: run from elsewhere, a relative path turned the checks below
+// into skips (issue 17). The worktree sits beside ../shared.
+const CSV = fileURLToPath(new URL('../../../../shared/reference/iso20275-elf-code-list.csv', import.meta.url));
 const present = existsSync(CSV);
 
 describe('splitAbbreviations (quirks from SOURCES.md §2)', () => {
@@ -50,7 +53,7 @@ describe.skipIf(!present)('the committed table (needs ../shared/reference)', () 
   });
 
   it('equals the output of scripts/build-elf-table.ts', () => {
-    const committed = readFileSync('resolvers/analyse/elf-table.json', 'utf8');
+    const committed = readFileSync(new URL('../../../resolvers/analyse/elf-table.json', import.meta.url), 'utf8');
     expect(committed).toBe(serialiseElfTable(buildElfTable(csv)));
   });
 

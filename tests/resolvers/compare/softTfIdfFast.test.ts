@@ -47,8 +47,10 @@ function referenceSoftTfIdf(a: readonly string[], b: readonly string[], idf: Idf
 
 // Short tokens over a small alphabet make near-threshold and length-skipped pairs common; lengths 1..14 cover
 // ratios on both sides of the bound (common practice for property tests: shrinkable, seeded generators).
-const token = fc.string({ unit: fc.constantFrom(...'abcdeio'), minLength: 1, maxLength: 14 });
-const tokens = fc.array(token, { minLength: 0, maxLength: 6 });
+// `size: 'max'`: with fast-check's default size strings and arrays stop at about ten items whatever maxLength says,
+// so tokens of 11 to 14 letters and 40-letter texts were never generated (issue 17).
+const token = fc.string({ unit: fc.constantFrom(...'abcdeio'), minLength: 1, maxLength: 14, size: 'max' });
+const tokens = fc.array(token, { minLength: 0, maxLength: 6, size: 'max' });
 
 describe('jaroWinklerUpperBound (derived in resolvers/compare/jaroWinkler.ts)', () => {
   it('is reached by a prefix of the longer string (hand computation)', () => {
@@ -62,30 +64,37 @@ describe('jaroWinklerUpperBound (derived in resolvers/compare/jaroWinkler.ts)', 
   });
 
   it('is never below the similarity of two different strings (fast-check)', () => {
-    const text = fc.string({ unit: fc.constantFrom(...'abcdexyz'), minLength: 0, maxLength: 40 });
+    const text = fc.string({ unit: fc.constantFrom(...'abcdexyz'), minLength: 0, maxLength: 40, size: 'max' });
+    let longest = 0;
     fc.assert(
       fc.property(text, text, (a, b) => {
+        longest = Math.max(longest, a.length, b.length);
         if (a === b) return;
         expect(jaroWinkler(a, b)).toBeLessThanOrEqual(jaroWinklerUpperBound(a.length, b.length) + 1e-12);
       }),
       { numRuns: 20_000, seed: 5 },
     );
+    expect(longest).toBe(40);
   });
 
   it('never skips a token pair that passes θ: every pair above θ has its bound above θ too (fast-check)', () => {
+    const lengths = new Set<number>();
     fc.assert(
       fc.property(token, token, fc.double({ min: 0, max: 1, noNaN: true }), (a, b, threshold) => {
+        lengths.add(a.length).add(b.length);
         if (a !== b && jaroWinkler(a, b) > threshold) expect(jaroWinklerUpperBound(a.length, b.length)).toBeGreaterThan(threshold - 1e-9);
       }),
       { numRuns: 20_000, seed: 6 },
     );
+    // Every token length 1..14 the comment above relies on was generated.
+    expect([...lengths].sort((x, y) => x - y)).toEqual(Array.from({ length: 14 }, (_, i) => i + 1));
   });
 });
 
 describe('softTfIdf equals the straightforward definition', () => {
   it('to 1e-12 on random token lists, IDF tables and thresholds (fast-check)', () => {
     fc.assert(
-      fc.property(tokens, tokens, fc.array(tokens, { maxLength: 8 }), fc.constantFrom(0.9, 0.8, 0.95, 0.5, 0, 1), (a, b, corpus, threshold) => {
+      fc.property(tokens, tokens, fc.array(tokens, { maxLength: 8, size: 'max' }), fc.constantFrom(0.9, 0.8, 0.95, 0.5, 0, 1), (a, b, corpus, threshold) => {
         const idf = buildIdfTable([a, b, ...corpus]);
         const fast = softTfIdf(a, b, idf, { threshold });
         const reference = referenceSoftTfIdf(a, b, idf, threshold);

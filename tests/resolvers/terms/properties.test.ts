@@ -30,8 +30,10 @@ const clause = fc
   )
   .map((parts) => parts.join(''));
 
+// `size: 'max'`: fast-check's default size caps arrays and strings at about ten items whatever maxLength says, so
+// contract-like texts had about ten pieces and the Unicode texts about ten characters (issue 17).
 const contractLike = fc
-  .array(fc.oneof(clause, fc.constantFrom(...FRAGMENTS), fc.string({ maxLength: 12 }), fc.string({ unit: 'binary', maxLength: 6 })), { maxLength: 120 })
+  .array(fc.oneof(clause, fc.constantFrom(...FRAGMENTS), fc.string({ maxLength: 12, size: 'max' }), fc.string({ unit: 'binary', maxLength: 6, size: 'max' })), { maxLength: 120, size: 'max' })
   .map((parts) => parts.join(''));
 
 function assertInvariants(text: string, parsed: ParsedContract): void {
@@ -45,18 +47,24 @@ function assertInvariants(text: string, parsed: ParsedContract): void {
 }
 
 describe('parseParties properties', () => {
-  it('never throws on arbitrary Unicode and returns only verbatim names', () => {
+  it('never throws on arbitrary Unicode up to 2,000 code points and returns only verbatim names', () => {
+    const lengths: number[] = [];
     fc.assert(
-      fc.property(fc.string({ unit: 'binary', maxLength: 2000 }), (text) => {
+      fc.property(fc.string({ unit: 'binary', maxLength: 2000, size: 'max' }), (text) => {
+        lengths.push([...text].length);
         assertInvariants(text, parseParties(text));
       }),
       { numRuns: 300, seed: 20260401 },
     );
+    // Long texts were really generated (with the default size the longest was about ten characters).
+    expect(Math.max(...lengths)).toBeGreaterThan(1_500);
   });
 
   it('never throws on contract-like text and returns only verbatim names', () => {
+    let longest = 0;
     fc.assert(
       fc.property(contractLike, (text) => {
+        longest = Math.max(longest, text.length);
         const parsed = parseParties(text);
         assertInvariants(text, parsed);
         // Resolution never throws either, and never binds a term the contract does not define.
@@ -65,6 +73,8 @@ describe('parseParties properties', () => {
       }),
       { numRuns: 400, seed: 20260402 },
     );
+    // Up to 120 pieces of up to ~150 characters: texts of thousands of characters, not a handful of pieces.
+    expect(longest).toBeGreaterThan(2_000);
   });
 
   it('finds parties on some generated texts (the property above is not vacuous)', () => {

@@ -9,6 +9,7 @@ import { RegisterError } from '../../../register/errors.ts';
 import type { MentionInput } from '../../../../resolvers/vocabulary.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import type { RoutePlugin } from '../../types.ts';
+import { bodyText } from '../../body/strict-json.ts';
 import { COUNTRY, IDENTIFIER, NAME, SOURCE_ID, actorOf, registerContextOf, toApiError } from './common.ts';
 
 export const MAX_BATCH_ITEMS = 10_000;
@@ -100,9 +101,10 @@ function mentionScope(app: FastifyInstance): void {
 export const mentionRoutes: RoutePlugin = (app, deps) => {
   mentionScope(app);
   const ctx = registerContextOf(deps);
-  app.addContentTypeParser(NDJSON, { parseAs: 'string', bodyLimit: BATCH_BODY_LIMIT }, (_request, body, done) => {
+  app.addContentTypeParser(NDJSON, { parseAs: 'buffer', bodyLimit: BATCH_BODY_LIMIT }, (request, body, done) => {
     try {
-      done(null, parseNdjson(body as string));
+      // UTF-8 to the last byte, as every JSON body (body/strict-json.ts): an ill-formed line is named, not repaired.
+      done(null, parseNdjson(bodyText(request, body as Buffer, 'the NDJSON body')));
     } catch (error) {
       done(error as Error, undefined);
     }
