@@ -1,0 +1,124 @@
+/**
+ * POST /v1/jobs/contracts (write): a zip of PDF, Word and text contracts, as the body (application/zip) or as the
+ * one file of a multipart/form-data upload (@fastify/multipart), at most CONTRACTS_UPLOAD_LIMIT bytes (413 over
+ * it). The upload is streamed to a temporary file, checked (a zip within the archive limits; 422 ARCHIVE_REFUSED
+ * otherwise), and answered 202 with the job; its files are then read, their text extracted, and the job runs as
+ * partitions of documents on whichever worker takes them (services/jobs/contracts-job.ts), exactly the import of
+ * `cpreg contracts import`. GET /v1/jobs/{id} shows the progress and, when finished, the result.
+ */
+import { randomBytes } from 'node:crypto';
+import { createWriteStream } from 'node:fs';
+import { rm } from 'node:fs/promises';
+import { once } from 'node:events';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import type { Readable } from 'node:stream';
+import multipart from '@fastify/multipart';
+import { REJECT_REASONS } from '../../../../resolvers/files/index.ts';
+import { ArchiveRefusedError } from '../../../contract-files/find-documents.ts';
+import { submitContractsJob } from '../../../jobs/submit-contracts.ts';
+import { ApiError, problemResponses } from '../../errors.ts';
+import type { RoutePlugin } from '../../types.ts';
+import { SOURCE_ID, actorOf } from './common.ts';
+import { JOB_OUT, jobView } from './exports-jobs.ts';
+import { jobsFor } from './job-queue.ts';
+
+/** The largest upload: 100 MiB. */
+export const CONTRACTS_UPLOAD_LIMIT = 100 * 1024 * 1024;
+const ZIP = 'application/zip';
+
+const tooLarge = (): ApiError =>
+  new ApiError('PAYLOAD_TOO_LARGE', `the upload is over the limit of ${CONTRACTS_UPLOAD_LIMIT} bytes (100 MiB): split the archive, or import it with \`cpreg contracts import\``, {
+    extensions: { limitBytes: CONTRACTS_UPLOAD_LIMIT },
+  });
+
+/** Streams the upload to `file`, counting: over the limit it stops and answers 413. */
+async function saveUpload(upload: Readable, file: string): Promise<void> {
+  const out = createWriteStream(file);
+  let size = 0;
+  try {
+    for await (const chunk of upload) {
+      size += (chunk as Buffer).length;
+      if (size > CONTRACTS_UPLOAD_LIMIT) throw tooLarge();
+      if (!out.write(chunk)) await once(out, 'drain');
+    }
+  } catch (error) {
+    if ((error as { code?: string }).code === 'FST_REQ_FILE_TOO_LARGE') throw tooLarge();
+    throw error;
+  } finally {
+    out.end();
+    await once(out, 'finish').catch(() => undefined);
+  }
+}
+
+export const contractsJobRoutes: RoutePlugin = async (app, deps) => {
+  const db = deps.db;
+  // The zip body is streamed to a temporary file, never held in memory.
+  app.addContentTypeParser(ZIP, (_request, payload, done) => done(null, payload));
+  await app.register(multipart, { limits: { fileSize: CONTRACTS_UPLOAD_LIMIT, files: 1, fields: 0, parts: 1 } });
+
+  app.post<{ Querystring: { source: string; partitionSize?: number } }>(
+    '/v1/jobs/contracts',
+    {
+      config: { scope: 'write' },
+      schema: {
+        summary: 'Upload a zip of PDF, Word and text contracts: answered 202 with a job to poll',
+        description: [
+          `Content-Type ${ZIP} (the body is the archive) or multipart/form-data with one file part; at most ${CONTRACTS_UPLOAD_LIMIT} bytes (100 MiB), 413 over it.`,
+          'Each .pdf, .docx, .txt and .md file (type read from the content) is stored as a contract through the same path as POST /v1/contracts, under `source`, with its path inside the zip as external id: a second upload of the same files finds them unchanged, a changed file is a new version of its contract.',
+          'The archive is refused whole (422 ARCHIVE_REFUSED) when it is not a zip, lists over 50,000 entries or expands to over 4 GiB; single entries are refused with a reason (path outside the archive, symbolic link, encrypted, a compression ratio over 200 for an entry over 1 MiB, a zip inside a zip inside the zip) while the rest is read.',
+          'GET /v1/jobs/{id}: progress.stage is staging (files read and their text extracted; filesRead of filesTotal), then storing (partitions.fractionDone), then finished; result.files reconciles (read = imported + unchanged + rejected), result.rejectedBy counts the reasons, result.rejected and result.contracts list up to 1,000 each (contracts with their parties, each with its counterparty or review item).',
+          `Reasons: ${Object.keys(REJECT_REASONS).join(', ')}. No OCR is attempted: a scan without a text layer is rejected as no_text_layer. Extraction and party parsing are proposals; the signed document stands.`,
+        ].join(' '),
+        tags: ['jobs'],
+        consumes: [ZIP, 'multipart/form-data'],
+        querystring: {
+          type: 'object',
+          additionalProperties: false,
+          properties: {
+            source: { ...SOURCE_ID, default: 'files', description: 'The source the contracts are stored under' },
+            partitionSize: { type: 'integer', minimum: 1, maximum: 10_000, default: 25, description: 'Documents per partition' },
+          },
+        },
+        response: {
+          202: {
+            ...JOB_OUT,
+            example: { id: 12, kind: 'contracts', status: 'queued', actor: 'legal-ops', params: { source: 'files', input: 'upload.zip', partitioned: true, partitionSize: 25 }, progress: { stage: 'staging', filesRead: 0, filesTotal: 0 }, result: null, error: null },
+          },
+          ...problemResponses(422),
+        },
+      },
+    },
+    async (request, reply) => {
+      const declared = Number(request.headers['content-length'] ?? 0);
+      if (declared > CONTRACTS_UPLOAD_LIMIT + 64 * 1024) throw tooLarge();
+      let upload: Readable;
+      let inputName = 'upload.zip';
+      if (request.isMultipart()) {
+        const part = await request.file();
+        if (!part) throw new ApiError('UNSUPPORTED_MEDIA_TYPE', 'the multipart upload holds no file part: send the zip as its one file');
+        upload = part.file;
+        if (part.filename) inputName = part.filename.slice(0, 300);
+      } else {
+        upload = request.body as Readable;
+        if (!upload || typeof (upload as { pipe?: unknown }).pipe !== 'function') {
+          throw new ApiError('UNSUPPORTED_MEDIA_TYPE', `send the zip as Content-Type ${ZIP}, or as the one file of a multipart/form-data upload`);
+        }
+      }
+      const file = join(tmpdir(), `cpreg-contracts-${randomBytes(8).toString('hex')}.zip`);
+      let submitted;
+      try {
+        await saveUpload(upload, file);
+        const jobs = await jobsFor(app, deps);
+        submitted = await submitContractsJob({ db, queue: jobs.queue }, { file, source: request.query.source, actor: actorOf(request).actor, inputName, partitionSize: request.query.partitionSize });
+      } catch (error) {
+        await rm(file, { force: true });
+        if (error instanceof ArchiveRefusedError) throw new ApiError('ARCHIVE_REFUSED', error.message);
+        throw error;
+      }
+      void submitted.staged.finally(() => rm(file, { force: true }));
+      reply.code(202).header('location', `/v1/jobs/${submitted.jobId}`);
+      return jobView(db, submitted.jobId);
+    },
+  );
+};
