@@ -19,8 +19,13 @@ import { CONTRACTS_PARTITION_SIZE, type StagedFile } from './contracts-job.ts';
 import { JOB_STEPS } from './deps.ts';
 
 export interface SubmitContractsOptions {
-  /** The uploaded archive on disk (removed by the caller once `staged` settles). */
+  /**
+   * The upload on disk (removed by the caller once `staged` settles): one zip archive, or a folder holding the
+   * files of a multipart upload (documents and zips, read as `cpreg contracts import <folder>` reads them).
+   */
   file: string;
+  /** `file` is a folder of uploaded files, not one archive. */
+  folder?: boolean;
   source: string;
   actor: string;
   inputName: string;
@@ -56,7 +61,7 @@ export async function checkUploadedArchive(file: string, inputName: string, limi
 
 export async function submitContractsJob(deps: { db: Kysely<Database>; queue: JobQueue }, options: SubmitContractsOptions): Promise<{ jobId: number; staged: Promise<void> }> {
   const limits = { ...FILE_LIMIT_DEFAULTS, ...options.limits };
-  await checkUploadedArchive(options.file, options.inputName, limits);
+  if (!options.folder) await checkUploadedArchive(options.file, options.inputName, limits);
   const partitionSize = options.partitionSize ?? CONTRACTS_PARTITION_SIZE;
   const jobId = await insertJob(deps.db, {
     kind: 'contracts',

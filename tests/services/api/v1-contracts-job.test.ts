@@ -71,6 +71,22 @@ describeEachBackend('POST /v1/jobs/contracts', (ctx) => {
     expect(job.result.files).toEqual({ read: 5, imported: 0, new: 0, changed: 0, unchanged: 3, rejected: 2 });
   });
 
+  it('takes documents as the file parts of a multipart upload, each named by its file name', async () => {
+    const boundary = 'cpregtestfiles';
+    const part = (name: string, type: string, content: Buffer) => [Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="files"; filename="${name}"\r\nContent-Type: ${type}\r\n\r\n`), content, Buffer.from('\r\n')];
+    const body = Buffer.concat([
+      ...part('bolts.pdf', 'application/pdf', await pdfLibPdf(inventedContract('Marlowick Fasteners Ltd'))), // pdf-lib
+      ...part('../../nuts.txt', 'text/plain', Buffer.from(inventedContract('Ostrevale Nuts Ltd'))),
+      Buffer.from(`--${boundary}--\r\n`),
+    ]);
+    const res = await k.call('write', { method: 'POST', url: '/v1/jobs/contracts?source=parts', payload: body, headers: { 'content-type': `multipart/form-data; boundary=${boundary}` } });
+    expect(res.statusCode).toBe(202);
+    const job = await finished(res.json().id);
+    expect(job.result.files).toEqual({ read: 2, imported: 2, new: 2, changed: 0, unchanged: 0, rejected: 0 });
+    // A client's path in a file name is cut to the name: nothing is written outside the upload folder.
+    expect(job.result.contracts.map((c: { path: string }) => c.path).sort()).toEqual(['bolts.pdf', 'nuts.txt']);
+  });
+
   it('refuses a body that is no zip (422 ARCHIVE_REFUSED), an upload over 100 MiB (413), and a read-only key (403)', async () => {
     const notZip = await k.call('write', { method: 'POST', url: '/v1/jobs/contracts', payload: await pdfLibPdf(inventedContract()), headers: { 'content-type': 'application/zip' } });
     expect(notZip.statusCode).toBe(422);
