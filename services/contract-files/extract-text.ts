@@ -1,10 +1,13 @@
 /**
  * The text of one PDF or Word document. PDF: unpdf (pdf.js built to run without a browser or a worker; no font
- * program is evaluated), pages joined by a blank line; a password-protected PDF and a PDF without a text layer
- * (a scan) are refused by name: no OCR is attempted and nothing is downloaded. Word: mammoth's raw text, one line
+ * program is evaluated), one line per line of text on the page, a blank line where the page leaves one (the party
+ * parser reads blank lines as boundaries: without them a title runs into the first party's name), pages joined by
+ * a blank line; a password-protected PDF and a PDF without a text layer (a scan) are refused by name: no OCR is
+ * attempted and nothing is downloaded. Word: mammoth's raw text, one line
  * per paragraph (mammoth ends each paragraph with a blank line; a contract's plain text has one paragraph a line,
  * and the party parser reads blank lines as boundaries, so they are made single again).
  */
+import type { PDFDocumentProxy } from 'unpdf/pdfjs';
 import { MAX_CONTRACT_BYTES } from '../../resolvers/terms/index.ts';
 import type { FileReject } from '../../resolvers/files/index.ts';
 
@@ -13,7 +16,7 @@ export type Extraction = { ok: true; text: string } | { ok: false; reject: Omit<
 const refuse = (reason: FileReject['reason'], detail: string): Extraction => ({ ok: false, reject: { reason, detail } });
 
 export async function extractPdfText(bytes: Buffer): Promise<Extraction> {
-  const { extractText, getDocumentProxy } = await import('unpdf');
+  const { getDocumentProxy } = await import('unpdf');
   let pdf;
   try {
     pdf = await getDocumentProxy(new Uint8Array(bytes), { isEvalSupported: false, disableFontFace: true, verbosity: 0 });
@@ -23,15 +26,56 @@ export async function extractPdfText(bytes: Buffer): Promise<Extraction> {
     return refuse('unreadable', `not a readable PDF: ${(error as Error).message}`);
   }
   try {
-    const { text, totalPages } = await extractText(pdf, { mergePages: false });
-    const joined = text.join('\n\n');
+    const totalPages = pdf.numPages;
+    const pages: string[] = [];
+    let bytes = 0;
+    for (let n = 1; n <= totalPages; n++) {
+      const page = await pageText(pdf, n);
+      bytes += Buffer.byteLength(page);
+      // Stop reading once over the limit: the rest of a long PDF need not be decoded to refuse it.
+      if (bytes > MAX_CONTRACT_BYTES) return refuse('text_too_large', `over ${MAX_CONTRACT_BYTES} bytes of text by page ${n} of ${totalPages}; the limit is ${MAX_CONTRACT_BYTES}`);
+      pages.push(page);
+    }
+    const joined = pages.join('\n\n');
     if (joined.trim() === '') return refuse('no_text_layer', `${totalPages} page${totalPages === 1 ? '' : 's'} without any text`);
-    if (Buffer.byteLength(joined) > MAX_CONTRACT_BYTES) return refuse('text_too_large', `${Buffer.byteLength(joined)} bytes of text from ${totalPages} pages; the limit is ${MAX_CONTRACT_BYTES}`);
     return { ok: true, text: joined };
   } catch (error) {
     return refuse('unreadable', `the PDF's text could not be read: ${(error as Error).message}`);
   } finally {
     await pdf.destroy();
+  }
+}
+
+/**
+ * A vertical step between two text runs larger than this share of the font size starts a new line; larger than
+ * BLANK_LINE_STEP, a blank line too (common practice: body text is set at 1.0–1.5 times its size, so a step of
+ * about twice the size or more means an empty line between).
+ */
+const NEW_LINE_STEP = 0.5;
+const BLANK_LINE_STEP = 1.9;
+
+async function pageText(pdf: PDFDocumentProxy, n: number): Promise<string> {
+  const page = await pdf.getPage(n);
+  try {
+    const content = await page.getTextContent();
+    let text = '';
+    let lastY: number | null = null;
+    for (const item of content.items) {
+      if (!('str' in item)) continue;
+      const y = item.transform[5] as number;
+      const size = item.height > 0 ? item.height : Math.hypot(item.transform[2] as number, item.transform[3] as number) || 10;
+      if (lastY !== null && Math.abs(lastY - y) > size * NEW_LINE_STEP) {
+        text = text.trimEnd();
+        text += Math.abs(lastY - y) > size * BLANK_LINE_STEP ? '\n\n' : '\n';
+      }
+      if (item.str !== '') {
+        text += item.str;
+        lastY = y;
+      }
+    }
+    return text.trimEnd();
+  } finally {
+    page.cleanup();
   }
 }
 
