@@ -24,30 +24,38 @@ export interface StoredParty {
 
 export type DocumentOutcome =
   | { kind: 'imported'; change: 'new' | 'changed'; contractId: number; parties: StoredParty[] }
-  | { kind: 'unchanged'; contractId: number }
+  | { kind: 'unchanged'; contractId: number; partyCount: number }
   | { kind: 'rejected'; reason: RejectReason; detail: string };
 
 export interface DocumentInput {
   path: string;
   title: string;
   text: string;
+  /** The contract's external id when it is not the path (the demo keeps its scenario's ids). Default: path. */
+  externalId?: string;
+}
+
+export interface StoreDocumentOptions {
+  /** Refuse a text in which the parser finds no party (`no_parties`). Default true. */
+  requireParties?: boolean;
 }
 
 const TEXT_PROBLEMS: Record<string, RejectReason> = { too_large: 'text_too_large', empty_text: 'no_text', binary_data: 'unsupported_type' };
 
-export async function storeDocument(ctx: RegisterContext, doc: DocumentInput, source: string, who: ActorInput): Promise<DocumentOutcome> {
+export async function storeDocument(ctx: RegisterContext, doc: DocumentInput, source: string, who: ActorInput, options: StoreDocumentOptions = {}): Promise<DocumentOutcome> {
   const problem = checkContractText(doc.text);
   if (problem) return { kind: 'rejected', reason: TEXT_PROBLEMS[problem.code] ?? 'contract_refused', detail: problem.message };
-  const existed = (await findContractId(ctx.db, source, doc.path)) !== undefined;
+  const externalId = doc.externalId ?? doc.path;
+  const existed = (await findContractId(ctx.db, source, externalId)) !== undefined;
   let result;
   try {
-    result = await storeContract(ctx, { source, externalId: doc.path, title: doc.title, text: doc.text }, who, { requireParties: true });
+    result = await storeContract(ctx, { source, externalId, title: doc.title, text: doc.text }, who, { requireParties: options.requireParties ?? true });
   } catch (error) {
     if (!(error instanceof RegisterError) || error.code !== 'INVALID_INPUT') throw error;
     if (error.details.reason === 'no_parties_found') return { kind: 'rejected', reason: 'no_parties', detail: error.message.replace(/^text: /, '') };
     return { kind: 'rejected', reason: 'contract_refused', detail: error.message };
   }
-  if (result.alreadyStored) return { kind: 'unchanged', contractId: result.contractId };
+  if (result.alreadyStored) return { kind: 'unchanged', contractId: result.contractId, partyCount: result.contract.parties.length };
   return {
     kind: 'imported',
     change: existed ? 'changed' : 'new',
