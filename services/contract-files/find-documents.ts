@@ -6,7 +6,7 @@
  * and a zip inside it once more (FileLimits.maxNesting), never deeper. The path of a file inside the folder or
  * archive is what a contract's external id is made of.
  */
-import { lstat, open, readdir, readFile, stat } from 'node:fs/promises';
+import { open, readdir, readFile, stat } from 'node:fs/promises';
 import { basename, join } from 'node:path';
 import {
   FILE_LIMIT_DEFAULTS,
@@ -137,7 +137,8 @@ export class DocumentFinder {
     let size: number;
     let head: Buffer;
     try {
-      const info = await lstat(abs);
+      // Links inside a folder were refused when it was listed: this is a regular file, or the target given.
+      const info = await stat(abs);
       size = info.size;
       head = await readHead(abs, size);
     } catch (error) {
