@@ -87,6 +87,21 @@ describeEachBackend('POST /v1/jobs/contracts', (ctx) => {
     expect(job.result.contracts.map((c: { path: string }) => c.path).sort()).toEqual(['bolts.pdf', 'nuts.txt']);
   });
 
+  it('answers a retry with the same Idempotency-Key and upload with the first job; another upload under that key is 422', async () => {
+    const small = zipOf({ 'retry/hinges.txt': Buffer.from(inventedContract('Calderholt Wire Ltd')) });
+    const headers = { 'content-type': 'application/zip', 'idempotency-key': 'contracts-upload-0001' };
+    const first = await k.call('write', { method: 'POST', url: '/v1/jobs/contracts?source=retry', payload: small, headers });
+    expect(first.statusCode).toBe(202);
+    const again = await k.call('write', { method: 'POST', url: '/v1/jobs/contracts?source=retry', payload: small, headers });
+    expect(again.statusCode).toBe(202);
+    expect(again.headers['idempotent-replayed']).toBe('true');
+    expect(again.json().id).toBe(first.json().id);
+    const other = await k.call('write', { method: 'POST', url: '/v1/jobs/contracts?source=retry', payload: archive, headers });
+    expect(other.statusCode).toBe(422);
+    expect(other.json().code).toBe('IDEMPOTENCY_KEY_REUSED');
+    expect((await finished(first.json().id)).result.files.imported).toBe(1);
+  });
+
   it('refuses a body that is no zip (422 ARCHIVE_REFUSED), an upload over 100 MiB (413), and a read-only key (403)', async () => {
     const notZip = await k.call('write', { method: 'POST', url: '/v1/jobs/contracts', payload: await pdfLibPdf(inventedContract()), headers: { 'content-type': 'application/zip' } });
     expect(notZip.statusCode).toBe(422);

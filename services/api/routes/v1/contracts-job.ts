@@ -6,7 +6,7 @@
  * partitions of documents on whichever worker takes them (services/jobs/contracts-job.ts), exactly the import of
  * `cpreg contracts import`. GET /v1/jobs/{id} shows the progress and, when finished, the result.
  */
-import { randomBytes } from 'node:crypto';
+import { createHash, randomBytes, type Hash } from 'node:crypto';
 import { createWriteStream } from 'node:fs';
 import { mkdtemp, rm } from 'node:fs/promises';
 import { once } from 'node:events';
@@ -23,6 +23,15 @@ import type { RoutePlugin } from '../../types.ts';
 import { SOURCE_ID, actorOf } from './common.ts';
 import { JOB_OUT, jobView } from './exports-jobs.ts';
 import { jobsFor } from './job-queue.ts';
+import { claimIdempotencyKey, idempotencyKeyOf, releaseIdempotencyKey, sendStoredAnswer, storeIdempotentAnswer } from '../../auth/idempotency.ts';
+
+/** An upload saved on disk: one archive, or a folder of files; `cleanup` is what to remove afterwards. */
+interface Upload {
+  path: string;
+  folder: boolean;
+  inputName: string;
+  cleanup: string;
+}
 
 /** The largest upload: 100 MiB. */
 export const CONTRACTS_UPLOAD_LIMIT = 100 * 1024 * 1024;
@@ -33,13 +42,17 @@ const tooLarge = (): ApiError =>
     extensions: { limitBytes: CONTRACTS_UPLOAD_LIMIT },
   });
 
-/** Streams one upload to `file`, counting on from `before` bytes: over the limit it stops and answers 413. */
-async function saveUpload(upload: Readable, file: string, before = 0): Promise<number> {
+/**
+ * Streams one upload to `file`, counting on from `before` bytes (over the limit it stops and answers 413) and
+ * feeding `hash` (the request's fingerprint for Idempotency-Key).
+ */
+async function saveUpload(upload: Readable, file: string, hash: Hash, before = 0): Promise<number> {
   const out = createWriteStream(file);
   let size = before;
   try {
     for await (const chunk of upload) {
       size += (chunk as Buffer).length;
+      hash.update(chunk as Buffer);
       if (size > CONTRACTS_UPLOAD_LIMIT) throw tooLarge();
       if (!out.write(chunk)) await once(out, 'drain');
     }
@@ -67,12 +80,16 @@ function uploadName(filename: string | undefined, taken: Set<string>): string {
  * The files of a multipart upload into a new folder: answers that folder and its names, or, when the upload is one
  * zip archive, that file (read as the application/zip body is, so both give the same external ids).
  */
-async function saveParts(request: FastifyRequest): Promise<{ path: string; folder: boolean; inputName: string; cleanup: string }> {
+async function saveParts(request: FastifyRequest, hash: Hash): Promise<Upload> {
   const dir = await mkdtemp(join(tmpdir(), 'cpreg-contracts-'));
   try {
     const taken = new Set<string>();
     let total = 0;
-    for await (const part of request.files()) total = await saveUpload(part.file, join(dir, uploadName(part.filename, taken)), total);
+    for await (const part of request.files()) {
+      const name = uploadName(part.filename, taken);
+      hash.update(`\u0000file:${name}\u0000`);
+      total = await saveUpload(part.file, join(dir, name), hash, total);
+    }
     if (taken.size === 0) throw new ApiError('UNSUPPORTED_MEDIA_TYPE', 'the multipart upload holds no file part: send the zip or the documents as file parts');
     const [only] = [...taken];
     if (taken.size === 1 && only!.toLowerCase().endsWith('.zip')) return { path: join(dir, only!), folder: false, inputName: only!, cleanup: dir };
@@ -124,8 +141,9 @@ export const contractsJobRoutes: RoutePlugin = async (app, deps) => {
     async (request, reply) => {
       const declared = Number(request.headers['content-length'] ?? 0);
       if (declared > CONTRACTS_UPLOAD_LIMIT + 64 * 1024) throw tooLarge();
-      let upload: { path: string; folder: boolean; inputName: string; cleanup: string };
-      if (request.isMultipart()) upload = await saveParts(request);
+      const hash = createHash('sha256').update(`POST ${request.url} ${request.isMultipart() ? 'multipart' : 'zip'}\u0000`);
+      let upload: Upload;
+      if (request.isMultipart()) upload = await saveParts(request, hash);
       else {
         const body = request.body as Readable;
         if (!body || typeof (body as { pipe?: unknown }).pipe !== 'function') {
@@ -134,13 +152,26 @@ export const contractsJobRoutes: RoutePlugin = async (app, deps) => {
         const file = join(tmpdir(), `cpreg-contracts-${randomBytes(8).toString('hex')}.zip`);
         upload = { path: file, folder: false, inputName: 'upload.zip', cleanup: file };
         try {
-          await saveUpload(body, file);
+          await saveUpload(body, file, hash);
         } catch (error) {
           await rm(file, { force: true });
           throw error;
         }
       }
       const removeUpload = () => rm(upload.cleanup, { recursive: true, force: true });
+      // Idempotency-Key: a retry of the same upload answers the first job instead of importing it again.
+      const key = idempotencyKeyOf(request);
+      const claim = key && request.apiKey ? { keyId: request.apiKey.id, key } : undefined;
+      if (claim) {
+        const claimed = await claimIdempotencyKey(db, { ...claim, method: 'POST', path: request.url, hash: hash.digest('hex') }).catch(async (error: unknown) => {
+          await removeUpload();
+          throw error;
+        });
+        if (claimed.kind === 'replay') {
+          await removeUpload();
+          return sendStoredAnswer(reply, claimed.answer);
+        }
+      }
       let submitted;
       try {
         const jobs = await jobsFor(app, deps);
@@ -150,12 +181,17 @@ export const contractsJobRoutes: RoutePlugin = async (app, deps) => {
         );
       } catch (error) {
         await removeUpload();
+        if (claim) await releaseIdempotencyKey(db, claim);
         if (error instanceof ArchiveRefusedError) throw new ApiError('ARCHIVE_REFUSED', error.message);
         throw error;
       }
       void submitted.staged.finally(removeUpload);
+      const job = await jobView(db, submitted.jobId);
+      if (claim) {
+        await storeIdempotentAnswer(db, claim, { statusCode: 202, contentType: 'application/json; charset=utf-8', headers: { location: `/v1/jobs/${submitted.jobId}` }, body: JSON.stringify(job) });
+      }
       reply.code(202).header('location', `/v1/jobs/${submitted.jobId}`);
-      return jobView(db, submitted.jobId);
+      return job;
     },
   );
 };
