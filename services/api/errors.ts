@@ -33,6 +33,7 @@ export const ERROR_CATALOGUE = {
   UNSUPPORTED_MEDIA_TYPE: { status: 415, title: 'The request body has an unsupported media type' },
   VALIDATION_FAILED: { status: 422, title: 'The request does not match its schema' },
   BODY_TOO_DEEP: { status: 422, title: 'The request body is nested too deeply' },
+  ARCHIVE_REFUSED: { status: 422, title: 'The uploaded archive cannot be imported' },
   NOT_UNDOABLE: { status: 422, title: 'This event cannot be undone' },
   IDEMPOTENCY_KEY_REUSED: { status: 422, title: 'The Idempotency-Key was used for another request' },
   PRECONDITION_REQUIRED: { status: 428, title: 'The request must say which version it changes (If-Match)' },

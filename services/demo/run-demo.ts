@@ -1,7 +1,7 @@
 /**
  * The demo behind `npm start`: loads the invented scenario into a register through the same public paths a
- * user takes (own entities through the register service, contracts through storeContract — what
- * POST /v1/contracts calls —, the extracted mentions as a batch file through services/ingest), then reads the
+ * user takes (own entities through the register service, contracts as PDF, Word and text files through the
+ * contract-file import, which stores them through storeContract — what POST /v1/contracts calls —, the extracted mentions as a batch file through services/ingest), then reads the
  * register back into a summary with the accuracy measured against the scenario's ground truth.
  * Every step is idempotent: loading again into the same database stores nothing twice.
  */
@@ -9,7 +9,11 @@ import { join } from 'node:path';
 import type { Kysely } from 'kysely';
 import type { Database } from '../../db/types.ts';
 import { survivorsOf } from '../../db/queries/counterparties.ts';
-import { addOwnEntity, createRegisterContext, storeContract, PARTY_SOURCE_PREFIX } from '../register/index.ts';
+import { addOwnEntity, createRegisterContext, PARTY_SOURCE_PREFIX } from '../register/index.ts';
+import { DocumentFinder } from '../contract-files/find-documents.ts';
+import { storeDocument } from '../contract-files/store-document.ts';
+import type { FileReject } from '../../resolvers/files/index.ts';
+import { CONTRACT_FILES_DIR, writeContractFiles, type ContractFileType } from './contract-files.ts';
 import { ingestFile, type IngestSummary } from '../ingest/run-ingest.ts';
 import type { ResolutionStatus } from '../../resolvers/vocabulary.ts';
 import { MENTION_SOURCE, type MentionTruth, type Scenario } from './scenario/index.ts';
@@ -38,7 +42,15 @@ export interface LoadDemoOptions {
 export interface DemoLoad {
   interrupted: boolean;
   ownEntities: { added: number; existing: number };
-  contracts: { stored: number; alreadyStored: number; parties: number };
+  contracts: {
+    stored: number;
+    alreadyStored: number;
+    parties: number;
+    /** The contract files written, by type. */
+    files?: Record<ContractFileType, number>;
+    /** Files the import refused (none expected: a defect if any). */
+    rejected: FileReject[];
+  };
   ingest?: IngestSummary;
   /** Seconds per stage. */
   seconds: Partial<Record<DemoStage, number>>;
@@ -50,7 +62,7 @@ export async function loadDemo(options: LoadDemoOptions): Promise<DemoLoad> {
   const who = { actor, reason: 'demo scenario' };
   const stop = options.shouldStop ?? (() => false);
   const progress = options.onProgress ?? (() => undefined);
-  const load: DemoLoad = { interrupted: false, ownEntities: { added: 0, existing: 0 }, contracts: { stored: 0, alreadyStored: 0, parties: 0 }, seconds: {} };
+  const load: DemoLoad = { interrupted: false, ownEntities: { added: 0, existing: 0 }, contracts: { stored: 0, alreadyStored: 0, parties: 0, rejected: [] }, seconds: {} };
   const timed = async (stage: DemoStage, fn: () => Promise<void>): Promise<void> => {
     const started = performance.now();
     await fn();
@@ -68,18 +80,31 @@ export async function loadDemo(options: LoadDemoOptions): Promise<DemoLoad> {
 
   await timed('contracts', async () => {
     progress({ stage: 'contracts', done: 0, total: scenario.contracts.length });
-    for (const [i, c] of scenario.contracts.entries()) {
+    // The contracts as files (PDF, Word, text), read back through the contract-file import: type from the content,
+    // text extracted, stored through storeContract under the scenario's own ids and titles.
+    const dir = join(options.filesDir, CONTRACT_FILES_DIR);
+    const written = await writeContractFiles(dir, scenario.contracts);
+    load.contracts.files = written.counts;
+    let done = 0;
+    for await (const found of new DocumentFinder(dir).documents()) {
       // PGlite answers through microtasks only: without a turn of the event loop a Ctrl-C would not be seen here.
       await new Promise((resolve) => setImmediate(resolve));
       if (stop()) {
         load.interrupted = true;
         return;
       }
-      const stored = await storeContract(ctx, { source: c.source, externalId: c.externalId, title: c.title, text: c.text }, who);
-      if (stored.alreadyStored) load.contracts.alreadyStored++;
-      else load.contracts.stored++;
-      load.contracts.parties += stored.alreadyStored ? stored.contract.parties.length : stored.parties.length;
-      progress({ stage: 'contracts', done: i + 1, total: scenario.contracts.length });
+      const c = written.files.get(found.path);
+      const outcome = found.kind === 'document' && c
+        ? await storeDocument(ctx, { path: found.path, externalId: c.externalId, title: c.title, text: found.text }, c.source, who, { requireParties: false })
+        : { kind: 'rejected' as const, reason: found.kind === 'rejected' ? found.reason : 'unsupported_type', detail: found.kind === 'rejected' ? found.detail : 'not a file the demo wrote' };
+      if (outcome.kind === 'imported') {
+        load.contracts.stored++;
+        load.contracts.parties += outcome.parties.length;
+      } else if (outcome.kind === 'unchanged') {
+        load.contracts.alreadyStored++;
+        load.contracts.parties += outcome.partyCount;
+      } else load.contracts.rejected.push({ path: found.path, reason: outcome.reason, detail: outcome.detail });
+      progress({ stage: 'contracts', done: ++done, total: scenario.contracts.length });
     }
   });
   if (load.interrupted) return load;

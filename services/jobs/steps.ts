@@ -6,6 +6,7 @@
 import type { Delivery, JobQueue } from '../../db/job-queue.ts';
 import { insertJob, readJob, updateJob } from '../../db/queries/jobs.ts';
 import { JOB_STEPS, type JobDeps, type StepData } from './deps.ts';
+import { finishContracts, planContracts, runContractsPartition } from './contracts-job.ts';
 import { finishIngest } from './finish-ingest.ts';
 import { planIngest } from './plan-ingest.ts';
 import { runIngestPartition } from './run-ingest-partition.ts';
@@ -15,6 +16,7 @@ import { finishSweep, planSweep, runSweepPartition } from './sweep-job.ts';
 const KINDS = {
   ingest: { plan: planIngest, partition: runIngestPartition, finish: finishIngest },
   sweep: { plan: planSweep, partition: runSweepPartition, finish: finishSweep },
+  contracts: { plan: planContracts, partition: runContractsPartition, finish: finishContracts },
 } as const;
 
 export type PartitionedKind = keyof typeof KINDS;

@@ -97,11 +97,22 @@ async function withdrawVanishedParties(cs: ChangeSet, contractId: number, count:
   }
 }
 
-export async function storeContract(ctx: RegisterContext, input: ContractInput, who: ActorInput): Promise<StoreContractResult> {
+export interface StoreContractOptions {
+  /**
+   * Refuse (INVALID_INPUT, details.reason `no_parties_found`) a text in which the parser finds no party, instead of
+   * storing a contract without parties: what a file import wants, where such a file is most likely no contract.
+   */
+  requireParties?: boolean;
+}
+
+export async function storeContract(ctx: RegisterContext, input: ContractInput, who: ActorInput, options: StoreContractOptions = {}): Promise<StoreContractResult> {
   check(input);
   const contentHash = createHash('sha256').update(JSON.stringify([input.title ?? null, input.text])).digest('hex');
   const ownNames = (await listOwnEntities(ctx.db)).map((o) => o.name);
   const parsed = parseParties(input.text, { ownEntities: ownNames });
+  if (options.requireParties && parsed.parties.length === 0) {
+    throw new RegisterError('INVALID_INPUT', `text: ${parsed.reason?.message ?? 'no party was recognised'}`, { field: 'text', reason: 'no_parties_found' });
+  }
   const prepared = parsed.parties.map((_, i) => prepareMention(partyMention(input, parsed, i), { lenientIdentifiers: true }));
   return write(ctx, async (cs) => {
     const at = ctx.now();

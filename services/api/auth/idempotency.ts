@@ -190,8 +190,9 @@ export const idempotencyPlugin: AppPlugin = (app, deps) => {
     if (request.method !== 'POST' || !request.apiKey) return;
     const key = idempotencyKeyOf(request);
     if (key === undefined) return;
-    // A streamed upload (jobs/ingest) is hashed by its route while it is read.
-    if (isReadable(request.body)) return;
+    // A streamed upload (jobs/ingest, jobs/contracts; a multipart upload is read by its route) is hashed by its
+    // route while it is read.
+    if (isReadable(request.body) || (request as { isMultipart?: () => boolean }).isMultipart?.() === true) return;
     const path = request.url;
     const claim = { keyId: request.apiKey.id, key };
     const result = await claimIdempotencyKey(deps.db, { ...claim, method: request.method, path, hash: bodyHash(request.method, path, request.body) });

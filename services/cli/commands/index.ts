@@ -10,6 +10,7 @@ import serve from './serve.ts';
 import migrate from './migrate.ts';
 import demo from './demo.ts';
 import contract from './contract.ts';
+import contracts from './contracts.ts';
 import keys from './keys.ts';
 import ingest from './ingest.ts';
 import exportCommand from './export.ts';
@@ -33,6 +34,7 @@ export const COMMANDS: Array<(program: Command) => void> = [
   migrate,
   demo,
   contract,
+  contracts,
   keys,
   ingest,
   exportCommand,

@@ -70,6 +70,23 @@ export async function api(path, { method = 'GET', body, key = storedKey(), signa
   return { data, etag: response.headers.get('etag'), status: response.status };
 }
 
+/** Sends a form with files (multipart/form-data; the browser sets the boundary): answers { data, status }. */
+export async function apiForm(path, form, { method = 'POST' } = {}) {
+  const key = storedKey();
+  let response;
+  try {
+    response = await fetch(path, { method, headers: headers(key, {}, false), body: form, cache: 'no-store' });
+  } catch {
+    throw new ApiProblem(0, { title: 'No answer', detail: 'the service did not answer; check that it is running and the network is up', code: 'NETWORK' });
+  }
+  if (!response.ok) {
+    const problem = new ApiProblem(response.status, await problemOf(response));
+    if (response.status === 401 && key) for (const listener of listeners) listener(problem);
+    throw problem;
+  }
+  return { data: await response.json(), status: response.status };
+}
+
 /** Fetches an export with the key and hands it to the browser as a file download. */
 export async function download(path, filename) {
   let response;
@@ -110,6 +127,8 @@ const PLAIN = {
   RATE_LIMITED: 'Too many requests in the last minute. Wait a little and try again.',
   BUSY_RETRY: 'The register is busy. Try again in a moment.',
   PAYLOAD_TOO_LARGE: 'The request is larger than the service accepts.',
+  ARCHIVE_REFUSED: 'The archive cannot be imported as it is.',
+  UNSUPPORTED_MEDIA_TYPE: 'The service does not take this kind of upload.',
   DATABASE_UNAVAILABLE: 'The service cannot reach its database right now.',
   ROUTE_NOT_FOUND: 'The console asked for something the service does not offer.',
 };

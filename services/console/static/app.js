@@ -9,6 +9,7 @@ import * as network from './pages/network.js';
 import * as review from './pages/review.js';
 import * as scores from './pages/scores.js';
 import * as contract from './pages/contract.js';
+import * as importFiles from './pages/import.js';
 
 // What the key allows (GET /v1/me): the pages ask `session.can('merge')` and hide or disable the rest.
 export const session = {
@@ -25,6 +26,7 @@ const ROUTES = [
   { pattern: /^\/contract\/(\d+)$/, page: contract, section: 'search' },
   { pattern: /^\/review$/, page: review, section: 'review' },
   { pattern: /^\/scores$/, page: scores, section: 'scores' },
+  { pattern: /^\/import$/, page: importFiles, section: 'import' },
 ];
 
 let cleanup = null;

@@ -17,7 +17,8 @@ import { Readable } from 'node:stream';
 import type { Kysely } from 'kysely';
 import type { Database } from '../../../../db/types.ts';
 import { EXPORT_FORMATS, EXPORT_KINDS, exportChunks, type ExportFormat, type ExportKind } from '../../../export/exports.ts';
-import { startJobs, type Jobs } from '../../../jobs/start-jobs.ts';
+import type { Jobs } from '../../../jobs/start-jobs.ts';
+import { jobsFor } from './job-queue.ts';
 import { submitIngestJob } from '../../../jobs/submit-ingest.ts';
 import { submitSweepJob } from '../../../jobs/steps.ts';
 import { partitionTally } from '../../../../db/queries/jobs.ts';
@@ -28,11 +29,11 @@ import { claimIdempotencyKey, idempotencyKeyOf, releaseIdempotencyKey, sendStore
 import { ID_PARAM, SOURCE_ID, actorOf, v1Scope } from './common.ts';
 import { NDJSON } from './mentions.ts';
 
-const JOB_OUT = {
+export const JOB_OUT = {
   type: 'object',
   properties: {
     id: { type: 'integer' },
-    kind: { type: 'string', enum: ['ingest', 'sweep', 'reresolve'] },
+    kind: { type: 'string', enum: ['ingest', 'sweep', 'reresolve', 'contracts'] },
     status: { type: 'string', enum: ['queued', 'running', 'finished', 'failed'] },
     actor: { type: 'string' },
     params: { type: 'object', additionalProperties: true },
@@ -45,7 +46,7 @@ const JOB_OUT = {
     partitions: {
       type: 'object',
       nullable: true,
-      description: 'For a partitioned job (ingest, sweep): its partitions by state (total 0 until it is planned); null for a job that runs in one piece (reresolve)',
+      description: 'For a partitioned job (ingest, sweep, contracts): its partitions by state (total 0 until it is planned); null for a job that runs in one piece (reresolve)',
       properties: { total: { type: 'integer' }, queued: { type: 'integer' }, running: { type: 'integer' }, done: { type: 'integer' }, fractionDone: { type: 'number' } },
     },
   },
@@ -121,14 +122,7 @@ export const exportJobRoutes: RoutePlugin = async (app, deps) => {
 
   // Ingest and sweep run as partitioned jobs through the job queue (services/jobs): on PostgreSQL any worker
   // process takes the steps, so this instance keeps no job state; on the embedded database they run here.
-  let jobs = deps.jobs;
-  const jobsReady = async (): Promise<Jobs> => {
-    if (!jobs) {
-      jobs = await startJobs({ db, backend: deps.backend, work: true, inProcess: true, log: (level, fields, message) => app.log[level](fields, message) });
-      app.addHook('onClose', async () => jobs?.stop());
-    }
-    return jobs;
-  };
+  const jobsReady = (): Promise<Jobs> => jobsFor(app, deps);
   if (!deps.jobs) await jobsReady();
 
   app.post<{ Querystring: { source: string; partitionSize?: number } }>(
@@ -228,7 +222,7 @@ export const exportJobRoutes: RoutePlugin = async (app, deps) => {
   );
 };
 
-async function jobView(db: Kysely<Database>, id: number): Promise<Record<string, unknown>> {
+export async function jobView(db: Kysely<Database>, id: number): Promise<Record<string, unknown>> {
   const row = await db.selectFrom('job').selectAll().where('id', '=', id).executeTakeFirst();
   if (!row) throw new ApiError('NOT_FOUND', `job ${id} does not exist`);
   const parse = (v: unknown): unknown => (typeof v === 'string' ? JSON.parse(v) : v);

@@ -7,5 +7,6 @@ import { upkeepRoutes } from './upkeep.ts';
 import { mentionRoutes } from './mentions.ts';
 import { contractReviewRoutes } from './contracts-review.ts';
 import { exportJobRoutes } from './exports-jobs.ts';
+import { contractsJobRoutes } from './contracts-job.ts';
 
-export const V1_ROUTES: RoutePlugin[] = [keyRoutes, counterpartyRoutes, historyRoutes, upkeepRoutes, mentionRoutes, contractReviewRoutes, exportJobRoutes];
+export const V1_ROUTES: RoutePlugin[] = [keyRoutes, counterpartyRoutes, historyRoutes, upkeepRoutes, mentionRoutes, contractReviewRoutes, exportJobRoutes, contractsJobRoutes];
