@@ -28,6 +28,7 @@
  */
 export type {
   CollectiveTerm,
+  DeclaredName,
   ContractIdentifier,
   ContractParty,
   ContractSigner,

@@ -35,6 +35,13 @@ export interface ContractParty {
   address?: string;
 }
 
+/** Another name a contract declares for a party: a trade name (d/b/a, t/a), an a/k/a, or a former name (f/k/a). */
+export interface DeclaredName {
+  kind: AliasKind;
+  /** As the contract writes it. */
+  name: string;
+}
+
 /** A person who signs, witnesses or notarises the contract: seen in the text, never a party for that. */
 export interface ContractSigner {
   /** The name as written, without a form of address ("Oswin Tarrant"). */
@@ -102,6 +109,8 @@ export interface InContractResolution {
   parties?: PartyRef[];
   /** The defined term that decided the outcome, as the contract writes it. */
   term?: string;
+  /** `match` through another name the contract declares for the party ("formerly X", "d/b/a X"): which one. */
+  alias?: DeclaredName;
   analysis: NameAnalysis;
   /** One sentence saying why: every decision must be explainable. */
   explanation: string;

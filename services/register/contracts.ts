@@ -144,7 +144,7 @@ export async function storeContract(ctx: RegisterContext, input: ContractInput, 
         }
       };
       const result = await resolveWithin(ctx, cs, p, who, {
-        party: { contractId, position: index, ownEntity: party.ownEntity },
+        party: { contractId, position: index, ownEntity: party.ownEntity, aliases: party.aliases },
         cause: existing ? 'contract_changed' : undefined,
         beforeCommit: keepParty,
       });

@@ -55,9 +55,24 @@ export async function scoredCandidates(
   const memoKey = { country: probe.country ?? null, identifiers: probe.identifiers, exclude };
   const memo = reads?.scoredFor<ScoredCandidate[]>(probe.analysis, memoKey);
   if (memo) return memo;
-  const out = await scoreCandidates(db, probe, model, exclude, reads);
+  const out = await scoreCandidates(db, probe, model, exclude, reads, 'current');
   reads?.rememberScored(probe.analysis, memoKey, out);
   return out;
+}
+
+/**
+ * The register's candidates for `probe` scored on their former names only (names of kind `former`, which a contract
+ * declared: "formerly X", "f/k/a X"), best first. Kept apart from scoredCandidates, which never scores a former
+ * name, so that a caller always knows a match came through a name the counterparty no longer uses.
+ */
+export async function scoredFormerNameCandidates(
+  db: Queryable,
+  probe: Probe,
+  model: MatchModel,
+  exclude: ReadonlySet<number> = new Set(),
+  reads?: BatchReads,
+): Promise<ScoredCandidate[]> {
+  return scoreCandidates(db, probe, model, exclude, reads, 'former');
 }
 
 async function scoreCandidates(
@@ -66,6 +81,7 @@ async function scoreCandidates(
   model: MatchModel,
   exclude: ReadonlySet<number>,
   reads: BatchReads | undefined,
+  which: 'current' | 'former',
 ): Promise<ScoredCandidate[]> {
   const keys = keysOfAnalysis(probe.analysis);
   let details = reads?.detailsFor(keys, probe.identifiers);
@@ -77,7 +93,7 @@ async function scoreCandidates(
   const analysed = details.map((cp) => ({
     id: cp.counterpartyId,
     cp: { canonical_name: cp.canonicalName, jurisdiction: cp.jurisdiction },
-    names: cp.names.filter((n) => n.kind !== 'former').map((n) => ({ name: n.name, analysis: analyse(n.name, cp.jurisdiction) })),
+    names: cp.names.filter((n) => (n.kind === 'former') === (which === 'former')).map((n) => ({ name: n.name, analysis: analyse(n.name, cp.jurisdiction) })),
     identifiers: cp.identifiers.map((i) => ({ scheme: i.scheme, value: i.value, ...(i.label ? { label: i.label } : {}) }) as Identifier),
   }));
   const idf = await idfFor(db, [probe.analysis.tokens, ...analysed.flatMap((a) => a.names.map((n) => n.analysis.tokens))].flat(), reads);

@@ -9,10 +9,10 @@
  *   review           the best candidate between newAt and linkAt, or two different candidates both above linkAt
  *   new              nothing above newAt: a new counterparty
  */
-import { resolveInContract, type ParsedContract } from '../../../resolvers/terms/index.ts';
+import { resolveInContract, type DeclaredName, type ParsedContract } from '../../../resolvers/terms/index.ts';
 import type { MatchModel } from '../../../resolvers/score/index.ts';
 import { scorePair } from '../../../resolvers/score/index.ts';
-import { isStrongScheme, type Identifier, type ResolutionStatus } from '../../../resolvers/vocabulary.ts';
+import { isStrongScheme, type Identifier, type NameKind, type ResolutionStatus } from '../../../resolvers/vocabulary.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
 import { listOwnEntities } from '../../../db/queries/own-entities.ts';
 import { cannotLinksOf } from '../../../db/queries/review.ts';
@@ -22,6 +22,7 @@ import { idfFor } from '../matching/idf.ts';
 import { jsonScore, probeRecord, scoredCandidates, type Probe, type ScoredCandidate } from '../matching/candidates.ts';
 import type { BatchReads } from '../matching/batch-reads.ts';
 import type { PreparedMention } from './prepare.ts';
+import { throughFormerName } from './former-name.ts';
 
 export interface ContractContext {
   contractId: number;
@@ -34,6 +35,8 @@ export interface PartyContext {
   contractId: number;
   position: number;
   ownEntity: boolean;
+  /** Other names the contract declares for this party ("formerly X", "d/b/a X"): stored on its counterparty. */
+  aliases?: DeclaredName[];
 }
 
 export interface Outcome {
@@ -47,6 +50,10 @@ export interface Outcome {
   confirmedByIdentifier?: string;
   /** The mention's own name is recorded on the counterparty (false for terms bound through a contract). */
   recordName: boolean;
+  /** The kind the recorded name gets when it is not the mention's own current name (a declared former name). */
+  nameKind?: NameKind;
+  /** Other names of the counterparty declared beside the mention (a contract party's "formerly X"): stored too. */
+  declaredNames?: DeclaredName[];
 }
 
 function summaryOf(c: ScoredCandidate) {
@@ -109,12 +116,21 @@ export async function decide(
         const party = partyMentionId === undefined
           ? undefined
           : await db.selectFrom('mention').select(['status', 'counterparty_id', 'own_entity_id']).where('id', '=', partyMentionId).executeTakeFirst();
-        const evidence = { ...base, summary: r.explanation, via: 'defined_term', term: r.term ?? null, contractId: context.contract.contractId, partyMentionId: partyMentionId ?? null };
+        const evidence = {
+          ...base,
+          summary: r.explanation,
+          via: r.alias ? 'declared_name' : 'defined_term',
+          term: r.term ?? null,
+          ...(r.alias ? { declaredName: r.alias } : {}),
+          contractId: context.contract.contractId,
+          partyMentionId: partyMentionId ?? null,
+        };
         if (party?.status === 'own_entity' && party.own_entity_id !== null) {
           return { status: 'own_entity', ownEntityId: Number(party.own_entity_id), score: null, recordName: false, evidence };
         }
         if ((party?.status === 'linked' || party?.status === 'new') && party.counterparty_id !== null) {
-          return { status: 'linked', counterpartyId: Number(party.counterparty_id), score: null, recordName: r.status === 'match', evidence };
+          // A declared other name is recorded with its kind: a former name never competes as a current name.
+          return { status: 'linked', counterpartyId: Number(party.counterparty_id), score: null, recordName: r.status === 'match', ...(r.alias ? { nameKind: r.alias.kind } : {}), evidence };
         }
         // The party itself is not settled yet: match the party's own name against the register instead.
         const partyRecord = context.contract.parsed.parties[r.party.index];
@@ -157,9 +173,12 @@ export async function decide(
   const top = candidates.slice(0, 5).map(summaryOf);
   const best = candidates.find((c) => c.score !== -Infinity);
   const common = { ...base, via, ...(term ? { term } : {}), candidates: top };
+  // No link on a current name: a former name a contract declared may still name the party (resolve/former-name.ts).
+  const orFormerName = async (outcome: Outcome & { status: 'new' | 'review' }): Promise<Outcome> =>
+    (await throughFormerName(db, { text: prepared.text, probe, model, exclude, current: candidates, currentStatus: outcome.status, base, reads: context.reads })) ?? outcome;
   // The pair's own decision (resolvers/score/decisionRules): at or below newAt, or names with nothing in common.
   if (!best || best.pair.decision === 'new') {
-    return {
+    return orFormerName({
       status: 'new',
       score: best ? jsonScore(best.score) : null,
       recordName: true,
@@ -175,7 +194,7 @@ export async function decide(
         ignoredIdentifiers: prepared.ignoredIdentifiers,
       },
       confirmedByIdentifier: prepared.identifiers.find((i) => isStrongScheme(i.scheme))?.scheme,
-    };
+    });
   }
   const detail = {
     ...common,
@@ -212,5 +231,5 @@ export async function decide(
     : best.pair.heldBackBy && best.pair.rawScore >= model.linkAt
       ? `best candidate ${best.canonicalName} scored ${jsonScore(best.pair.rawScore)} but is held back from a link: ${best.pair.heldBackBy}${best.pair.distinguishingTokens.length > 0 ? ` (${best.pair.distinguishingTokens.join(', ')})` : ''}; a person decides`
       : `best candidate ${best.canonicalName} scored ${jsonScore(best.score)}, between the new-record threshold (${model.newAt}) and the link threshold (${model.linkAt}): a person decides`;
-  return { status: 'review', counterpartyId: best.counterpartyId, score: jsonScore(best.score), recordName: false, evidence: { ...detail, summary: why } };
+  return orFormerName({ status: 'review', counterpartyId: best.counterpartyId, score: jsonScore(best.score), recordName: false, evidence: { ...detail, summary: why } });
 }

@@ -39,6 +39,8 @@ export interface CorpusCase {
   signers?: { name: string; title?: string; capacity?: 'signatory' | 'witness' | 'notary'; signsFor?: string }[];
   /** Exactly these entities are named but expressly not parties (absent: none). */
   mentioned?: string[];
+  /** Mentions that resolveInContract must resolve to `party` through the other name the contract declares for it. */
+  resolves?: { mention: string; party: string; alias: AliasKind }[];
 }
 
 export const CORPUS: CorpusCase[] = [
