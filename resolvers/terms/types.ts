@@ -4,6 +4,7 @@
  */
 import type { AliasKind, EntityKind, IdentifierScheme, RelationType, ResolutionStatus } from '../vocabulary.ts';
 import type { LegalFormMatch, NameAnalysis } from '../analyse/types.ts';
+import type { AgreementReference } from './findEarlierAgreements.ts';
 
 export interface ContractIdentifier {
   scheme: IdentifierScheme;
@@ -78,6 +79,8 @@ export interface ParsedContract {
   signers?: ContractSigner[];
   /** Entities named but expressly not parties: recorded as mentioned, never as parties of this contract. */
   mentioned?: MentionedEntity[];
+  /** Earlier agreements whose defined terms this contract uses (an amendment, a side letter): absent when none. */
+  earlierAgreements?: AgreementReference[];
   /** Present when something was left out (more than MAX_PARTIES parties). */
   warnings?: string[];
   /** Present only when `parties` is empty: why. */

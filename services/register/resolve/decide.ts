@@ -9,7 +9,8 @@
  *   review           the best candidate between newAt and linkAt, or two different candidates both above linkAt
  *   new              nothing above newAt: a new counterparty
  */
-import { resolveInContract, type DeclaredName, type ParsedContract } from '../../../resolvers/terms/index.ts';
+import { resolveInContract, type DeclaredName, type InContractResolution, type ParsedContract } from '../../../resolvers/terms/index.ts';
+import type { EarlierContract } from '../earlier-contract.ts';
 import type { MatchModel } from '../../../resolvers/score/index.ts';
 import { scorePair } from '../../../resolvers/score/index.ts';
 import { isStrongScheme, type Identifier, type NameKind, type ResolutionStatus } from '../../../resolvers/vocabulary.ts';
@@ -29,6 +30,22 @@ export interface ContractContext {
   parsed: ParsedContract;
   /** Mention id of each party, by position. */
   partyMentions: Map<number, number>;
+  /** The earlier agreement whose defined terms this one uses (an amendment, a side letter), when the register holds it. */
+  earlier?: EarlierContract & { partyMentions: Map<number, number> };
+}
+
+/**
+ * A term this contract does not define, bound instead by the earlier agreement whose defined terms it says it uses
+ * ("the Supplier" in a side letter to a supply agreement): that agreement's party, with the way it was found.
+ */
+function throughEarlier(contract: ContractContext, text: string, r: InContractResolution): { r: InContractResolution; terms: ContractContext } | null {
+  const earlier = contract.earlier;
+  if (!earlier || r.status !== 'unbound_term' || r.term !== undefined) return null;
+  const there = resolveInContract(earlier.parsed, text);
+  if (there.status !== 'bound' || !there.party) return null;
+  const found = earlier.how === 'reference' ? 'by its reference number' : earlier.how === 'title_and_date' ? 'by its title and date' : 'by its title and parties';
+  const explanation = `"${text}" is not defined in this contract, which uses the defined terms of ${earlier.title ?? 'an earlier agreement'} (${earlier.source}/${earlier.externalId}, found ${found}); there it is the term for ${there.party.name}`;
+  return { r: { ...there, explanation }, terms: { contractId: earlier.contractId, parsed: earlier.parsed, partyMentions: earlier.partyMentions } };
 }
 
 export interface PartyContext {
@@ -107,22 +124,28 @@ export async function decide(
 
   if (!context.party) {
     if (context.contract) {
-      const r = resolveInContract(context.contract.parsed, prepared.text);
+      const own = resolveInContract(context.contract.parsed, prepared.text);
+      const earlier = throughEarlier(context.contract, prepared.text, own);
+      const r = earlier?.r ?? own;
+      const terms = earlier?.terms ?? context.contract;
       if (r.status === 'collective_term' || r.status === 'unbound_term' || r.status === 'not_a_party') {
         return { status: r.status, score: null, recordName: false, evidence: { ...base, summary: r.explanation, via: 'contract', term: r.term ?? null } };
       }
       if (r.party) {
-        const partyMentionId = context.contract.partyMentions.get(r.party.index);
+        const partyMentionId = terms.partyMentions.get(r.party.index);
         const party = partyMentionId === undefined
           ? undefined
           : await db.selectFrom('mention').select(['status', 'counterparty_id', 'own_entity_id']).where('id', '=', partyMentionId).executeTakeFirst();
         const evidence = {
           ...base,
           summary: r.explanation,
-          via: r.alias ? 'declared_name' : 'defined_term',
+          via: r.alias ? 'declared_name' : earlier ? 'earlier_agreement_term' : 'defined_term',
           term: r.term ?? null,
           ...(r.alias ? { declaredName: r.alias } : {}),
-          contractId: context.contract.contractId,
+          ...(earlier && context.contract.earlier
+            ? { earlierAgreement: { contractId: context.contract.earlier.contractId, source: context.contract.earlier.source, externalId: context.contract.earlier.externalId, how: context.contract.earlier.how, statement: context.contract.earlier.statement } }
+            : {}),
+          contractId: terms.contractId,
           partyMentionId: partyMentionId ?? null,
         };
         if (party?.status === 'own_entity' && party.own_entity_id !== null) {
@@ -133,7 +156,7 @@ export async function decide(
           return { status: 'linked', counterpartyId: Number(party.counterparty_id), score: null, recordName: r.status === 'match', ...(r.alias ? { nameKind: r.alias.kind } : {}), evidence };
         }
         // The party itself is not settled yet: match the party's own name against the register instead.
-        const partyRecord = context.contract.parsed.parties[r.party.index];
+        const partyRecord = terms.parsed.parties[r.party.index];
         if (partyRecord) {
           probe = {
             analysis: analyse(partyRecord.name, partyRecord.jurisdiction ?? prepared.input.country),

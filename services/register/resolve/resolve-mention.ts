@@ -20,6 +20,7 @@ import { askAgain, earlierDecisionOf, type EarlierDecision } from './earlier-dec
 import { applyOutcome, canonicalNameIn, eventTypeFor } from './apply.ts';
 import { decide, type ContractContext, type PartyContext } from './decide.ts';
 import { prepareMention, type PreparedMention } from './prepare.ts';
+import { earlierContractOf } from '../earlier-contract.ts';
 
 export interface ResolveResult {
   mentionId: number;
@@ -102,12 +103,17 @@ export async function contractContextFor(cs: ChangeSet, ref: { source: string; e
     .where('external_id', '=', ref.externalId)
     .executeTakeFirst();
   if (!contract || contract.status !== 'active') return null;
-  const parties = await cs.trx.selectFrom('contract_party').select(['position', 'mention_id']).where('contract_id', '=', contract.id).execute();
-  return {
-    contractId: Number(contract.id),
-    parsed: contract.parsed as unknown as ParsedContract,
-    partyMentions: new Map(parties.map((p) => [p.position, Number(p.mention_id)])),
-  };
+  const parsed = contract.parsed as unknown as ParsedContract;
+  const context: ContractContext = { contractId: Number(contract.id), parsed, partyMentions: await partyMentionsOf(cs, Number(contract.id)) };
+  // An amendment or side letter: the earlier agreement whose defined terms it uses, when the register holds it.
+  const earlier = parsed.earlierAgreements ? await earlierContractOf(cs.trx, context.contractId, parsed) : null;
+  if (earlier) context.earlier = { ...earlier, partyMentions: await partyMentionsOf(cs, earlier.contractId) };
+  return context;
+}
+
+async function partyMentionsOf(cs: ChangeSet, contractId: number): Promise<Map<number, number>> {
+  const parties = await cs.trx.selectFrom('contract_party').select(['position', 'mention_id']).where('contract_id', '=', contractId).execute();
+  return new Map(parties.map((p) => [p.position, Number(p.mention_id)]));
 }
 
 export interface ResolveWithinOptions {
