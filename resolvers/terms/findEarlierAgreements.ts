@@ -103,7 +103,8 @@ function titleIn(description: string): string | undefined {
     const w = trimEndChars(words[k] as string, ',.;:');
     if (!TITLE_WORDS.some((t) => t.toLowerCase() === w.toLowerCase())) continue;
     let s = k;
-    while (s > 0 && k - s < 5 && !BEFORE_TITLE.has((words[s - 1] as string).toLowerCase()) && /^\p{L}/u.test(words[s - 1] as string)) s--;
+    // Backwards over words of the title; a label ("Re:") or another word before it ends it.
+    while (s > 0 && k - s < 5 && !BEFORE_TITLE.has((words[s - 1] as string).toLowerCase()) && /^\p{L}/u.test(words[s - 1] as string) && !(words[s - 1] as string).endsWith(':')) s--;
     if (s > 0 && ['this', 'these'].includes((words[s - 1] as string).toLowerCase())) continue;
     if (s < k) return [...words.slice(s, k), w].join(' ');
   }
@@ -161,7 +162,8 @@ export function findEarlierAgreements(text: string): AgreementReference[] {
       const statement = text.slice(s, e + 1).trim();
       // "the Agreement" as a defined term of this text: its definition describes the earlier agreement.
       const named = namedAfter(text.slice(at, e));
-      const short = trimEndChars(named.replace(/^(?:the|that)\s/iu, '').trim(), '.,;:');
+      // "the Cooperation Agreement, of which this letter forms part": the term ends at the first comma or parenthesis.
+      const short = trimEndChars(cutAtFirst(named, [',', ';', ' (']).replace(/^(?:the|that)\s/iu, '').trim(), '.,;:');
       const defined = short.split(' ').length <= 4 ? definitionOf(text, short) : undefined;
       const reference = describe(statement, defined ?? (named === '' ? statement : named));
       if (reference.title === undefined && reference.reference === undefined && reference.date === undefined) continue;

@@ -105,7 +105,7 @@ function declaredAlias(parties: ContractParty[], analysis: NameAnalysis): { inde
 
 function aliasExplanation(mention: string, party: PartyRef, alias: DeclaredName): string {
   if (alias.kind === 'former') {
-    return `"${mention}" is the former name this contract declares for party ${party.name} ("formerly ${alias.name}"): the same party under its earlier name, not another counterparty`;
+    return `"${mention}" is the former name this contract declares for party ${party.name} (declared as "${alias.name}"): the same party under its earlier name, not another counterparty`;
   }
   return `"${mention}" is another name (d/b/a, t/a, a/k/a) of party ${party.name} in this contract: the same party, not another counterparty`;
 }

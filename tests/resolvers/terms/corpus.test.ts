@@ -8,9 +8,10 @@ import { checkCase } from './corpus/checkCase.ts';
 import { NON_PARTY_SHAPES } from './corpus/nonPartyShapes.ts';
 import { SHAPES_OF, SIGNER_SHAPES } from './corpus/signerShapes.ts';
 import { DECLARED_NAME_SHAPES, DECLARED_SHAPES_OF } from './corpus/declaredNameShapes.ts';
+import { EARLIER_AGREEMENT_SHAPES, EARLIER_SHAPES_OF } from './corpus/earlierAgreementShapes.ts';
 
 /** Issue 16's shapes (places, document references, unbound roles) are checked like every other passage. */
-const CORPUS = [...BASE, ...NON_PARTY_SHAPES, ...SIGNER_SHAPES, ...DECLARED_NAME_SHAPES];
+const CORPUS = [...BASE, ...NON_PARTY_SHAPES, ...SIGNER_SHAPES, ...DECLARED_NAME_SHAPES, ...EARLIER_AGREEMENT_SHAPES];
 
 const failures = new Map<string, string[]>();
 
@@ -49,6 +50,15 @@ describe('terms corpus', () => {
       expect(new Set(ids.map((id) => id.split('-')[0])), shape).toEqual(new Set(['uk', 'us', 'eu']));
       const resolved = DECLARED_NAME_SHAPES.flatMap((c) => c.resolves ?? []).filter((r) => r.alias === shape);
       expect(resolved.length, shape).toBeGreaterThanOrEqual(3);
+    }
+  });
+
+  it('has at least three passages per earlier-agreement shape, in British, US and translated styles', () => {
+    // Issue 16 item 9: a reference number, an agreement named by a defined term, the earlier agreement's parties.
+    for (const shape of ['reference', 'defined', 'named-parties']) {
+      const ids = EARLIER_AGREEMENT_SHAPES.map((c) => c.id).filter((id) => EARLIER_SHAPES_OF[id]?.includes(shape));
+      expect(ids.length, shape).toBeGreaterThanOrEqual(3);
+      expect(new Set(ids.map((id) => id.split('-')[0])), shape).toEqual(new Set(['uk', 'us', 'eu']));
     }
   });
 

@@ -41,6 +41,8 @@ export interface CorpusCase {
   mentioned?: string[];
   /** Mentions that resolveInContract must resolve to `party` through the other name the contract declares for it. */
   resolves?: { mention: string; party: string; alias: AliasKind }[];
+  /** Exactly these earlier agreements whose defined terms the text says it uses (absent: none). */
+  earlier?: { title?: string; date?: string; reference?: string; parties: string[] }[];
 }
 
 export const CORPUS: CorpusCase[] = [
