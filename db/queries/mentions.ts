@@ -1,5 +1,5 @@
 /** Mentions: by source id, by counterparty, pending a contract, open for re-resolution. */
-import type { Selectable } from 'kysely';
+import { sql, type Selectable } from 'kysely';
 import type { MentionTable } from '../types.ts';
 import type { Queryable } from './util.ts';
 import { id, idOrNull, iso } from './util.ts';
@@ -116,4 +116,39 @@ export async function countByStatus(db: Queryable): Promise<Record<string, numbe
     .groupBy('status')
     .execute();
   return Object.fromEntries(rows.map((r) => [r.status, Number(r.n)]));
+}
+
+/** Most amendments whose waiting mentions one stored contract looks at; beyond it the rest wait for `cpreg reresolve`. */
+export const MAX_WAITING_AMENDMENTS = 200;
+
+/**
+ * Contracts that say they use an earlier agreement's defined terms (an amendment, a side letter: `parsed` holds
+ * `earlierAgreements`) and hold mentions still `unbound_term` that no person confirmed: a contract that arrives may be
+ * that earlier agreement. Each with its parsed result and those mentions, oldest contract first.
+ */
+export async function amendmentsWithUnboundMentions(db: Queryable, exceptContractId: number): Promise<{ contractId: number; parsed: unknown; mentionIds: number[] }[]> {
+  const rows = await db
+    .selectFrom('mention as m')
+    .innerJoin('contract as c', 'c.id', 'm.contract_id')
+    .select(['c.id as contract_id', 'c.parsed', 'm.id as mention_id'])
+    .where('m.status', '=', 'unbound_term')
+    .where('m.confirmed_by', 'is', null)
+    .where('c.status', '=', 'active')
+    .where('c.id', '<>', exceptContractId)
+    .where(sql<boolean>`c.parsed -> 'earlierAgreements' IS NOT NULL`)
+    .orderBy('c.id')
+    .orderBy('m.id')
+    .execute();
+  const out: { contractId: number; parsed: unknown; mentionIds: number[] }[] = [];
+  for (const r of rows) {
+    const contractId = id(r.contract_id);
+    let last = out[out.length - 1];
+    if (last?.contractId !== contractId) {
+      if (out.length >= MAX_WAITING_AMENDMENTS) break;
+      last = { contractId, parsed: r.parsed, mentionIds: [] };
+      out.push(last);
+    }
+    last.mentionIds.push(id(r.mention_id));
+  }
+  return out;
 }

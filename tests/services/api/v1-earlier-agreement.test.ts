@@ -98,6 +98,25 @@ describeEachBackend('/v1 amendments use the defined terms of an earlier agreemen
     expect(r.counterpartyId).toBeNull();
   });
 
+  it('resolves a waiting amendment term again when the earlier agreement arrives after it', async () => {
+    const variation = `DEED OF VARIATION dated 1 August 2024 between Corrin Hale Ltd ("Tenant") and Sallow Weaving Ltd.
+
+Words and expressions used in this Deed bear the same meaning as in the Warehouse Lease dated 5 May 2022 between Sallow Weaving Ltd and Corrin Hale Ltd (reference LSE-2022-5).`;
+    const lease = `WAREHOUSE LEASE
+
+This Lease is dated 5 May 2022 and made between Sallow Weaving Ltd, a company incorporated in Scotland (the "Landlord"), and Corrin Hale Ltd, a company incorporated in England and Wales (the "Tenant").`;
+    await post('/v1/contracts', { source: 'clm', externalId: 'VAR-4', text: variation });
+    const waiting = await mention('VAR-4/1', 'the Landlord', 'VAR-4');
+    expect(waiting.status).toBe('unbound_term');
+    const stored = await post('/v1/contracts', { source: 'clm', externalId: 'LSE-2022-5', title: 'Warehouse Lease', text: lease });
+    const landlord = partyOf(stored, 'Landlord');
+    const again = stored.reresolved.find((r: { mentionId: number }) => r.mentionId === waiting.mentionId);
+    expect(again).toMatchObject({ status: 'linked', counterpartyId: landlord });
+    expect(again.explanation.earlierAgreement).toMatchObject({ externalId: 'LSE-2022-5', how: 'reference' });
+    const got = await k.call('read', { method: 'GET', url: `/v1/mentions/${waiting.mentionId}` });
+    expect(got.json()).toMatchObject({ status: 'linked', counterpartyId: landlord });
+  });
+
   it('binds nothing when two stored contracts agree equally with the statement', async () => {
     // A second supply agreement of the same date between the same parties: which one the letter means is unknown.
     await post('/v1/contracts', { source: 'clm', externalId: 'SUP-1-COPY', title: 'Supply Agreement (counterpart)', text: SUPPLY.replace('THIS AGREEMENT', 'THIS SUPPLY AGREEMENT') });
