@@ -146,3 +146,19 @@ export async function earlierContractCandidates(db: Queryable, wanted: { referen
     LIMIT 20`.execute(db);
   return result.rows.map((r) => ({ id: id(r.id), source: r.source, externalId: r.external_id, title: r.title, parsed: r.parsed, head: r.head, byReference: r.by_reference === true }));
 }
+
+/**
+ * The other names (former, trade, a/k/a) the contract declares for the party a contract-party mention stands for, as
+ * its stored parse gives them; empty for any other mention.
+ */
+export async function declaredNamesOfPartyMention(db: Queryable, mentionId: number): Promise<{ kind: 'trade' | 'former' | 'also_known_as'; name: string }[]> {
+  const row = await db
+    .selectFrom('contract_party as p')
+    .innerJoin('contract as c', 'c.id', 'p.contract_id')
+    .select(['p.position', 'c.parsed'])
+    .where('p.mention_id', '=', mentionId)
+    .executeTakeFirst();
+  if (!row) return [];
+  const parties = (row.parsed as { parties?: { aliases?: { kind: 'trade' | 'former' | 'also_known_as'; name: string }[] }[] }).parties ?? [];
+  return (parties[row.position]?.aliases ?? []).map((a) => ({ kind: a.kind, name: a.name }));
+}

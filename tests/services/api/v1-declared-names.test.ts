@@ -116,6 +116,27 @@ describeEachBackend('/v1 declared former and trade names (issue 16 item 8)', (ct
     expect(r.status).toBe('review');
     expect(r.explanation.via).toBe('former_name');
     expect(r.explanation.summary).toMatch(/another counterparty, (Brennock Mills Limited|Sallow Weaving Ltd), declared the same former name/);
+    // A person says which: the name joins that counterparty as a former name, never as its current legal name.
+    const decided = await k.call('admin', { method: 'POST', url: `/v1/review-items/${r.reviewItemId}/decision`, payload: { decision: 'same', reason: 'the letterhead gives the company number' } });
+    expect(decided.statusCode, decided.body).toBe(200);
+    const chosen = (await k.call('read', { method: 'GET', url: `/v1/mentions/${r.mentionId}` })).json().counterpartyId as number;
+    expect((await namesOf(chosen)).filter((n) => n.name === 'Ardley Textiles Limited').map((n) => n.kind)).toEqual(['former']);
+  });
+
+  it('stores the declared names of a contract party that a person links from review', async () => {
+    await post('/v1/mentions', { source: 'erp', externalId: 'v-80', text: 'Wexmoor Pumps' });
+    const stored = await post('/v1/contracts', {
+      source: 'clm',
+      externalId: 'SVC-10',
+      text: `This Agreement is made between Wexmoor Pumps Ltd (formerly Wexmoor Irrigation Ltd), a company incorporated in England and Wales (the "Contractor"), and Corrin Hale Ltd (the "Client").`,
+    });
+    const party = stored.parties.find((p: { role: string | null }) => p.role === 'Contractor');
+    expect(party.status).toBe('review');
+    const decided = await k.call('admin', { method: 'POST', url: `/v1/review-items/${party.reviewItemId}/decision`, payload: { decision: 'same', reason: 'same company' } });
+    expect(decided.statusCode, decided.body).toBe(200);
+    const linked = (await k.call('read', { method: 'GET', url: `/v1/mentions/${party.mentionId}` })).json();
+    expect(linked.status).toBe('linked');
+    expect(await namesOf(linked.counterpartyId)).toEqual(expect.arrayContaining([expect.objectContaining({ name: 'Wexmoor Irrigation Ltd', kind: 'former' })]));
   });
 
   it('links the former name to the company that bears it as its current name today, not to its former holder', async () => {
