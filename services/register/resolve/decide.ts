@@ -20,7 +20,7 @@ import { cannotLinksOf } from '../../../db/queries/review.ts';
 import { survivorsOf } from '../../../db/queries/counterparties.ts';
 import { analyse } from '../matching/analysis.ts';
 import { idfFor } from '../matching/idf.ts';
-import { jsonScore, probeRecord, scoredCandidates, type Probe, type ScoredCandidate } from '../matching/candidates.ts';
+import { jsonScore, probeRecord, scoredCandidatesWithFormer, type Probe, type ScoredCandidate } from '../matching/candidates.ts';
 import type { BatchReads } from '../matching/batch-reads.ts';
 import type { PreparedMention } from './prepare.ts';
 import { throughFormerName } from './former-name.ts';
@@ -192,13 +192,13 @@ export async function decide(
   }
 
   const exclude = await excludedFor(db, context.mentionId);
-  const candidates = await scoredCandidates(db, probe, model, exclude, context.reads);
+  const { current: candidates, former } = await scoredCandidatesWithFormer(db, probe, model, exclude, context.reads);
   const top = candidates.slice(0, 5).map(summaryOf);
   const best = candidates.find((c) => c.score !== -Infinity);
   const common = { ...base, via, ...(term ? { term } : {}), candidates: top };
   // No link on a current name: a former name a contract declared may still name the party (resolve/former-name.ts).
   const orFormerName = async (outcome: Outcome & { status: 'new' | 'review' }): Promise<Outcome> =>
-    (await throughFormerName(db, { text: prepared.text, probe, model, exclude, current: candidates, currentStatus: outcome.status, base, reads: context.reads })) ?? outcome;
+    (await throughFormerName(db, { text: prepared.text, model, former, current: candidates, currentStatus: outcome.status, base })) ?? outcome;
   // The pair's own decision (resolvers/score/decisionRules): at or below newAt, or names with nothing in common.
   if (!best || best.pair.decision === 'new') {
     return orFormerName({

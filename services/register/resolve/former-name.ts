@@ -13,21 +13,19 @@
 import type { MatchModel } from '../../../resolvers/score/index.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
 import { nameOrigin } from '../../../db/queries/names.ts';
-import { jsonScore, scoredFormerNameCandidates, type Probe, type ScoredCandidate } from '../matching/candidates.ts';
-import type { BatchReads } from '../matching/batch-reads.ts';
+import { jsonScore, type ScoredCandidate } from '../matching/candidates.ts';
 import type { Outcome } from './decide.ts';
 
 export interface FormerNameInput {
   text: string;
-  probe: Probe;
   model: MatchModel;
-  exclude: ReadonlySet<number>;
+  /** The candidates scored on their former names only (matching/candidates.ts scoredCandidatesWithFormer). */
+  former: readonly ScoredCandidate[];
   /** The candidates on current names, already scored: a similar current name elsewhere forbids a link. */
   current: readonly ScoredCandidate[];
   /** Whether matching on current names ended in review (then a former name never turns it into a new record). */
   currentStatus: 'new' | 'review';
   base: Record<string, unknown>;
-  reads?: BatchReads;
 }
 
 function levelOf(c: ScoredCandidate, feature: string): string | null {
@@ -47,7 +45,7 @@ async function declaredIn(db: Queryable, c: ScoredCandidate): Promise<string> {
 /** The outcome through a declared former name, or null when no former name scores above newAt. */
 export async function throughFormerName(db: Queryable, input: FormerNameInput): Promise<Outcome | null> {
   const { model, text } = input;
-  const former = (await scoredFormerNameCandidates(db, input.probe, model, input.exclude, input.reads)).filter((c) => c.score !== -Infinity && c.score > model.newAt);
+  const former = input.former.filter((c) => c.score !== -Infinity && c.score > model.newAt);
   const best = former[0];
   if (best === undefined) return null;
   const bearers = input.current.filter((c) => c.counterpartyId !== best.counterpartyId && c.score !== -Infinity && c.score > model.newAt);
