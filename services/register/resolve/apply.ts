@@ -31,10 +31,14 @@ function nameKindOf(prepared: PreparedMention, outcome: Outcome): NameKind {
   return prepared.analysis.legalForm ? 'legal' : 'observed';
 }
 
-/** The declared other names to store, without the mention's own recorded name and without repeats. */
-function declaredToRecord(outcome: Outcome, recordedName: RecordedName | null): RecordedName[] {
+/**
+ * The other names to store beside the mention's own: those its contract declares for the party (outcome.declaredNames)
+ * and, when the mention's own name is recorded, those its text introduces ("X f/k/a Y", "X d/b/a Y"); without the
+ * recorded name itself and without repeats.
+ */
+function declaredToRecord(outcome: Outcome, recordedName: RecordedName | null, prepared: PreparedMention): RecordedName[] {
   const out: RecordedName[] = [];
-  for (const d of outcome.declaredNames ?? []) {
+  for (const d of [...(outcome.declaredNames ?? []), ...(recordedName ? prepared.analysis.aliases : [])]) {
     const same = (r: RecordedName) => r.name === d.name && r.kind === d.kind;
     if ((recordedName && same(recordedName)) || out.some(same)) continue;
     out.push({ name: d.name, kind: d.kind });
@@ -104,7 +108,7 @@ export async function applyOutcome(
     values.evidence = { ...outcome.evidence, recordedName };
   }
   // Kept in the evidence like recordedName, so that moving the mention away takes exactly these sightings with it.
-  const recordedAliases = linking ? declaredToRecord(outcome, recordedName) : [];
+  const recordedAliases = linking ? declaredToRecord(outcome, recordedName, prepared) : [];
   if (recordedAliases.length > 0) values.evidence = { ...(values.evidence as Record<string, unknown>), recordedAliases };
   const mention = existing
     ? await cs.update('mention', existing.id as number, values)
@@ -118,11 +122,6 @@ export async function applyOutcome(
     }
     for (const alias of recordedAliases) {
       await addNameSighting(cs, counterpartyId, { ...alias, source: prepared.input.source, mentionId, contractId: extra.contractId }, at);
-    }
-    if (created) {
-      for (const alias of prepared.analysis.aliases) {
-        await addNameSighting(cs, counterpartyId, { name: alias.name, kind: alias.kind, source: prepared.input.source, mentionId, contractId: extra.contractId }, at);
-      }
     }
     const notes = await addMentionIdentifiers(cs, counterpartyId, prepared, mentionId, confirmedBy, at);
     if (notes.length > 0) {

@@ -148,6 +148,16 @@ describeEachBackend('/v1 declared former and trade names (issue 16 item 8)', (ct
     expect(r.explanation.via).toBe('register');
   });
 
+  it('stores the former name a mention itself declares ("X f/k/a Y") on the counterparty it links to, and unlinking takes it away', async () => {
+    const created = await post('/v1/mentions', { source: 'erp', externalId: 'v-90', text: 'Dunmore Tiles Ltd', country: 'GB' });
+    const fka = await post('/v1/mentions', { source: 'erp', externalId: 'v-91', text: 'Dunmore Tiles Ltd f/k/a Dunmore Ceramics Ltd', country: 'GB' });
+    expect(fka).toMatchObject({ status: 'linked', counterpartyId: created.counterpartyId });
+    expect(await namesOf(created.counterpartyId)).toEqual(expect.arrayContaining([expect.objectContaining({ name: 'Dunmore Ceramics Ltd', kind: 'former' })]));
+    const unlinked = await k.call('admin', { method: 'POST', url: `/v1/mentions/${fka.mentionId}/unlink`, payload: { reason: 'test' } });
+    expect(unlinked.statusCode, unlinked.body).toBe(200);
+    expect((await namesOf(created.counterpartyId)).map((n) => `${n.kind}:${n.name}`)).toEqual(['legal:Dunmore Tiles Ltd']);
+  });
+
   it('takes the declared former name away again when the contract no longer declares it', async () => {
     const changed = UK_SUPPLY.replace(' (formerly Tollaby Cold Storage Ltd)', '');
     await post('/v1/contracts', { source: 'clm', externalId: 'SUP-1', text: changed });
