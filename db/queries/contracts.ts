@@ -116,8 +116,6 @@ export interface EarlierContractRow {
   parsed: unknown;
   /** The opening of its text (where a contract states its date and parties). */
   head: string;
-  /** Whether the reference number is its external id, in its title or in its opening. */
-  byReference: boolean;
 }
 
 /** How much of a contract's opening is searched for a reference number and read for its date. */
@@ -125,17 +123,16 @@ export const CONTRACT_HEAD_CHARS = 4000;
 
 /**
  * Active contracts other than `excludeId` that an amendment's statement may mean: those carrying the reference number
- * (external id, title or opening, case-insensitive) and those whose title contains the title it gives. At most 20,
- * oldest first; the caller decides which one, if any, it is.
+ * (external id, title or opening, case-insensitive, as a substring: resolvers/terms matchEarlierAgreement then asks
+ * for a whole token) and those whose title or heading contains the title it gives. At most 20, oldest first; the
+ * caller decides which one, if any, it is.
  */
 export async function earlierContractCandidates(db: Queryable, wanted: { reference?: string; title?: string; excludeId: number }): Promise<EarlierContractRow[]> {
   if (!wanted.reference && !wanted.title) return [];
   const ref = wanted.reference?.toLowerCase() ?? null;
   const title = wanted.title?.toLowerCase() ?? null;
-  const result = await sql<{ id: string | number; source: string; external_id: string; title: string | null; parsed: unknown; head: string; by_reference: boolean }>`
-    SELECT id, source, external_id, title, parsed, left(text, ${CONTRACT_HEAD_CHARS}) AS head,
-           (${ref}::text IS NOT NULL AND (lower(external_id) = ${ref} OR strpos(lower(coalesce(title, '')), ${ref}) > 0
-             OR strpos(lower(left(text, ${CONTRACT_HEAD_CHARS})), ${ref}) > 0)) AS by_reference
+  const result = await sql<{ id: string | number; source: string; external_id: string; title: string | null; parsed: unknown; head: string }>`
+    SELECT id, source, external_id, title, parsed, left(text, ${CONTRACT_HEAD_CHARS}) AS head
     FROM contract
     WHERE status = 'active' AND id <> ${wanted.excludeId}
       AND ((${ref}::text IS NOT NULL AND (lower(external_id) = ${ref} OR strpos(lower(coalesce(title, '')), ${ref}) > 0
@@ -144,7 +141,7 @@ export async function earlierContractCandidates(db: Queryable, wanted: { referen
              OR strpos(lower(left(text, 300)), ${title}) > 0)))
     ORDER BY id
     LIMIT 20`.execute(db);
-  return result.rows.map((r) => ({ id: id(r.id), source: r.source, externalId: r.external_id, title: r.title, parsed: r.parsed, head: r.head, byReference: r.by_reference === true }));
+  return result.rows.map((r) => ({ id: id(r.id), source: r.source, externalId: r.external_id, title: r.title, parsed: r.parsed, head: r.head }));
 }
 
 /**

@@ -50,7 +50,7 @@ export { classifyNotParties } from './classifyNotParties.ts';
 export { findEarlierAgreements } from './findEarlierAgreements.ts';
 export type { AgreementReference } from './findEarlierAgreements.ts';
 export { datesIn, readDate } from './readDate.ts';
-export { matchEarlierAgreement } from './matchEarlierAgreement.ts';
+export { containsToken, matchEarlierAgreement } from './matchEarlierAgreement.ts';
 export type { EarlierCandidate, EarlierMatch } from './matchEarlierAgreement.ts';
 export { sameEntityName } from './sameEntityName.ts';
 export type { NotPartyGroups } from './classifyNotParties.ts';

@@ -26,7 +26,7 @@ export async function earlierContractOf(db: Queryable, contractId: number, parse
     const agreeing: EarlierContract[] = [];
     for (const row of rows) {
       const candidateParsed = row.parsed as ParsedContract;
-      const verdict = matchEarlierAgreement(ref, parsed, { title: row.title, head: row.head, parsed: candidateParsed, byReference: row.byReference });
+      const verdict = matchEarlierAgreement(ref, parsed, { externalId: row.externalId, title: row.title, head: row.head, parsed: candidateParsed });
       if (verdict.agrees) {
         agreeing.push({ contractId: row.id, source: row.source, externalId: row.externalId, title: row.title, parsed: candidateParsed, how: verdict.how, statement: ref.statement });
       }

@@ -6,7 +6,7 @@
  * passage writes down.
  */
 import { describe, expect, it } from 'vitest';
-import { datesIn, findEarlierAgreements, matchEarlierAgreement, parseParties } from '../../../resolvers/terms/index.ts';
+import { containsToken, datesIn, findEarlierAgreements, matchEarlierAgreement, parseParties } from '../../../resolvers/terms/index.ts';
 
 const US_AMENDMENT = `FIRST AMENDMENT TO MASTER SERVICES AGREEMENT
 
@@ -89,16 +89,26 @@ This Master Services Agreement is entered into as of June 1, 2024 by and between
   const head = 'MASTER SERVICES AGREEMENT\n\nThis Master Services Agreement is entered into as of June 1, 2024 by and between Harrowgate Analytics, Inc.';
   const amendment = parseParties(US_AMENDMENT);
   const [ref] = findEarlierAgreements(US_AMENDMENT);
+  const stored = { externalId: 'MSA-2024-017', title: 'Master Services Agreement', head, parsed: msa };
 
-  it('agrees by reference number, and by title, date and parties without it', () => {
-    expect(matchEarlierAgreement(ref!, amendment, { title: 'Master Services Agreement', head, parsed: msa, byReference: true })).toEqual({ agrees: true, how: 'reference' });
-    expect(matchEarlierAgreement(ref!, amendment, { title: 'Master Services Agreement', head, parsed: msa, byReference: false })).toEqual({ agrees: true, how: 'title_and_parties' });
+  it('agrees by reference number (external id, or a whole token of the title or opening), and by title, date and parties without it', () => {
+    expect(matchEarlierAgreement(ref!, amendment, stored)).toEqual({ agrees: true, how: 'reference' });
+    expect(matchEarlierAgreement(ref!, amendment, { ...stored, externalId: 'c-1', title: 'Master Services Agreement MSA-2024-017' })).toEqual({ agrees: true, how: 'reference' });
+    expect(matchEarlierAgreement(ref!, amendment, { ...stored, externalId: 'c-1', head: `Contract No. msa-2024-017\n${head}` })).toEqual({ agrees: true, how: 'reference' });
+    expect(matchEarlierAgreement(ref!, amendment, { ...stored, externalId: 'c-1' })).toEqual({ agrees: true, how: 'title_and_parties' });
   });
 
-  it('refuses another date, another title and other parties', () => {
-    expect(matchEarlierAgreement(ref!, amendment, { title: 'Master Services Agreement', head: head.replace('June 1, 2024', 'July 1, 2024'), parsed: msa, byReference: false }).agrees).toBe(false);
-    expect(matchEarlierAgreement(ref!, amendment, { title: 'Warehouse Lease', head: 'WAREHOUSE LEASE dated June 1, 2024', parsed: msa, byReference: false }).agrees).toBe(false);
+  it('never reads a number inside a longer one as the reference', () => {
+    expect(containsToken('Contract No. XMSA-2024-0170', 'MSA-2024-017')).toBe(false);
+    expect(containsToken('(Contract No. MSA-2024-017)', 'MSA-2024-017')).toBe(true);
+    const elsewhere = { ...stored, externalId: 'c-1', title: 'Warehouse Lease', head: 'WAREHOUSE LEASE under contract MSA-2024-0170 dated June 1, 2024' };
+    expect(matchEarlierAgreement(ref!, amendment, elsewhere).agrees).toBe(false);
+  });
+
+  it('refuses another date, another title and other parties, even with the reference number', () => {
+    expect(matchEarlierAgreement(ref!, amendment, { ...stored, externalId: 'c-1', head: head.replace('June 1, 2024', 'July 1, 2024') }).agrees).toBe(false);
+    expect(matchEarlierAgreement(ref!, amendment, { ...stored, externalId: 'c-1', title: 'Warehouse Lease', head: 'WAREHOUSE LEASE dated June 1, 2024' }).agrees).toBe(false);
     const other = parseParties(`This Master Services Agreement is made on June 1, 2024 between Sallow Weaving Ltd (the "Customer") and Corrin Hale Ltd (the "Carrier").`);
-    expect(matchEarlierAgreement(ref!, amendment, { title: 'Master Services Agreement', head, parsed: other, byReference: true })).toMatchObject({ agrees: false });
+    expect(matchEarlierAgreement(ref!, amendment, { ...stored, parsed: other })).toMatchObject({ agrees: false });
   });
 });
