@@ -127,28 +127,30 @@ export const MAX_WAITING_AMENDMENTS = 200;
  * that earlier agreement. Each with its parsed result and those mentions, oldest contract first.
  */
 export async function amendmentsWithUnboundMentions(db: Queryable, exceptContractId: number): Promise<{ contractId: number; parsed: unknown; mentionIds: number[] }[]> {
-  const rows = await db
-    .selectFrom('mention as m')
-    .innerJoin('contract as c', 'c.id', 'm.contract_id')
-    .select(['c.id as contract_id', 'c.parsed', 'm.id as mention_id'])
-    .where('m.status', '=', 'unbound_term')
-    .where('m.confirmed_by', 'is', null)
-    .where('c.status', '=', 'active')
+  // The predicate is contract_amendment_idx's (migration 20261205003000): the few amendments, then their mentions.
+  const amendments = await db
+    .selectFrom('contract as c')
+    .select(['c.id', 'c.parsed'])
+    .where(sql<boolean>`(c.parsed -> 'earlierAgreements') IS NOT NULL AND c.status = 'active'`)
     .where('c.id', '<>', exceptContractId)
-    .where(sql<boolean>`c.parsed -> 'earlierAgreements' IS NOT NULL`)
+    .where(({ exists, selectFrom }) =>
+      exists(selectFrom('mention as m').select('m.id').whereRef('m.contract_id', '=', 'c.id').where('m.status', '=', 'unbound_term').where('m.confirmed_by', 'is', null)),
+    )
     .orderBy('c.id')
-    .orderBy('m.id')
+    .limit(MAX_WAITING_AMENDMENTS)
     .execute();
-  const out: { contractId: number; parsed: unknown; mentionIds: number[] }[] = [];
-  for (const r of rows) {
-    const contractId = id(r.contract_id);
-    let last = out[out.length - 1];
-    if (last?.contractId !== contractId) {
-      if (out.length >= MAX_WAITING_AMENDMENTS) break;
-      last = { contractId, parsed: r.parsed, mentionIds: [] };
-      out.push(last);
-    }
-    last.mentionIds.push(id(r.mention_id));
-  }
-  return out;
+  if (amendments.length === 0) return [];
+  const rows = await db
+    .selectFrom('mention')
+    .select(['id', 'contract_id'])
+    .where('contract_id', 'in', amendments.map((a) => a.id))
+    .where('status', '=', 'unbound_term')
+    .where('confirmed_by', 'is', null)
+    .orderBy('id')
+    .execute();
+  return amendments.map((a) => ({
+    contractId: id(a.id),
+    parsed: a.parsed,
+    mentionIds: rows.filter((r) => id(r.contract_id) === id(a.id)).map((r) => id(r.id)),
+  }));
 }
