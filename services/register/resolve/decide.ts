@@ -1,13 +1,16 @@
 /**
- * The decision for one mention, read-only: contract terms first, then our own entities, then the register.
+ * The decision for one mention, read-only: contract terms first (the contract's own, then, for a term it does not
+ * define, those of the earlier agreement it says it uses), then our own entities, then the register.
  *
  *   not_a_party      the name analysis (or the contract) says it names no party
  *   unbound_term     a pronoun or role word that its contract does not bind (or whose contract has not arrived)
  *   collective_term  a term of the contract for a set of parties ("the Parties")
  *   own_entity       one of our own legal entities (scored like a counterparty, linked at linkAt)
- *   linked           a decisive strong identifier, or the best candidate at or above linkAt and unambiguous
- *   review           the best candidate between newAt and linkAt, or two different candidates both above linkAt
- *   new              nothing above newAt: a new counterparty
+ *   linked           a decisive strong identifier, or the best candidate at or above linkAt and unambiguous, or a
+ *                    declared former name under the rules of resolve/former-name.ts
+ *   review           the best candidate between newAt and linkAt, or two different candidates both above linkAt, or
+ *                    a former name too uncertain to link
+ *   new              nothing above newAt (on current or former names): a new counterparty
  */
 import { resolveInContract, type DeclaredName, type InContractResolution, type ParsedContract } from '../../../resolvers/terms/index.ts';
 import type { EarlierContract } from '../earlier-contract.ts';
