@@ -32,7 +32,8 @@ export const ALIAS_CUES = [
   'd/b/a', 'dba', 'doing business as', 't/a', 'trading as', 'f/k/a', 'fka', 'formerly known as', 'formerly called',
   'formerly named', 'formerly trading as', 'formerly', 'previously known as', 'previously called', 'previously named',
   'previously', 'a/k/a', 'aka', 'also known as', 'operating as', 'o/a', 'successor in interest to',
-  'successor by merger to', 'successor to', 'vormals', 'ehemals', 'anciennement', 'anteriormente denominada',
+  'successor by merger to', 'successor to', 'vormals', 'ehemals', 'anciennement dénommée', 'anciennement denommee',
+  'anciennement', 'anteriormente denominada',
   'precedentemente denominata',
 ];
 
@@ -240,7 +241,10 @@ function extendOverDesignator(text: string, s: number, e: number, to: number): n
 function aliasInParentheses(text: string, p: number, to: number): number {
   if (text[p] !== '(') return -1;
   const inner = skipSpaces(text, p + 1, to);
-  if (anyWordAt(text, inner, ALIAS_CUES) === undefined) return -1;
+  const cue = anyWordAt(text, inner, ALIAS_CUES);
+  if (cue === undefined) return -1;
+  // "(formerly the Licensee under the Original Agreement)" describes a role, not a name: a name starts with a capital.
+  if (!/[\p{Lu}\p{N}]/u.test(text[skipSpaces(text, inner + cue.length, to)] ?? '')) return -1;
   const close = text.indexOf(')', inner);
   if (close < 0 || close >= to || close - p > MAX_NAME) return -1;
   // A quote inside is a definition ("(formerly "Kestrel")"): left to findDefinitions.
