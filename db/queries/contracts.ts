@@ -107,3 +107,55 @@ export async function termsOfContract(
     collective: t.collective,
   }));
 }
+
+export interface EarlierContractRow {
+  id: number;
+  source: string;
+  externalId: string;
+  title: string | null;
+  parsed: unknown;
+  /** The opening of its text (where a contract states its date and parties). */
+  head: string;
+}
+
+/** How much of a contract's opening is searched for a reference number and read for its date. */
+export const CONTRACT_HEAD_CHARS = 4000;
+
+/**
+ * Active contracts other than `excludeId` that an amendment's statement may mean: those carrying the reference number
+ * (external id, title or opening, case-insensitive, as a substring: resolvers/terms matchEarlierAgreement then asks
+ * for a whole token) and those whose title or heading contains the title it gives. At most 20, oldest first; the
+ * caller decides which one, if any, it is.
+ */
+export async function earlierContractCandidates(db: Queryable, wanted: { reference?: string; title?: string; excludeId: number }): Promise<EarlierContractRow[]> {
+  if (!wanted.reference && !wanted.title) return [];
+  const ref = wanted.reference?.toLowerCase() ?? null;
+  const title = wanted.title?.toLowerCase() ?? null;
+  const result = await sql<{ id: string | number; source: string; external_id: string; title: string | null; parsed: unknown; head: string }>`
+    SELECT id, source, external_id, title, parsed, left(text, ${CONTRACT_HEAD_CHARS}) AS head
+    FROM contract
+    WHERE status = 'active' AND id <> ${wanted.excludeId}
+      AND ((${ref}::text IS NOT NULL AND (lower(external_id) = ${ref} OR strpos(lower(coalesce(title, '')), ${ref}) > 0
+             OR strpos(lower(left(text, ${CONTRACT_HEAD_CHARS})), ${ref}) > 0))
+        OR (${title}::text IS NOT NULL AND (strpos(lower(coalesce(title, '')), ${title}) > 0
+             OR strpos(lower(left(text, 300)), ${title}) > 0)))
+    ORDER BY id
+    LIMIT 20`.execute(db);
+  return result.rows.map((r) => ({ id: id(r.id), source: r.source, externalId: r.external_id, title: r.title, parsed: r.parsed, head: r.head }));
+}
+
+/**
+ * The other names (former, trade, a/k/a) the contract declares for the party a contract-party mention stands for, as
+ * its stored parse gives them; empty for any other mention.
+ */
+export async function declaredNamesOfPartyMention(db: Queryable, mentionId: number): Promise<{ kind: 'trade' | 'former' | 'also_known_as'; name: string }[]> {
+  const row = await db
+    .selectFrom('contract_party as p')
+    .innerJoin('contract as c', 'c.id', 'p.contract_id')
+    .select(['p.position', 'c.parsed'])
+    .where('p.mention_id', '=', mentionId)
+    .executeTakeFirst();
+  if (!row) return [];
+  const parties = (row.parsed as { parties?: { aliases?: { kind: 'trade' | 'former' | 'also_known_as'; name: string }[] }[] }).parties ?? [];
+  return (parties[row.position]?.aliases ?? []).map((a) => ({ kind: a.kind, name: a.name }));
+}

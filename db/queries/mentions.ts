@@ -1,5 +1,5 @@
 /** Mentions: by source id, by counterparty, pending a contract, open for re-resolution. */
-import type { Selectable } from 'kysely';
+import { sql, type Selectable } from 'kysely';
 import type { MentionTable } from '../types.ts';
 import type { Queryable } from './util.ts';
 import { id, idOrNull, iso } from './util.ts';
@@ -116,4 +116,41 @@ export async function countByStatus(db: Queryable): Promise<Record<string, numbe
     .groupBy('status')
     .execute();
   return Object.fromEntries(rows.map((r) => [r.status, Number(r.n)]));
+}
+
+/** Most amendments whose waiting mentions one stored contract looks at; beyond it the rest wait for `cpreg reresolve`. */
+export const MAX_WAITING_AMENDMENTS = 200;
+
+/**
+ * Contracts that say they use an earlier agreement's defined terms (an amendment, a side letter: `parsed` holds
+ * `earlierAgreements`) and hold mentions still `unbound_term` that no person confirmed: a contract that arrives may be
+ * that earlier agreement. Each with its parsed result and those mentions, oldest contract first.
+ */
+export async function amendmentsWithUnboundMentions(db: Queryable, exceptContractId: number): Promise<{ contractId: number; parsed: unknown; mentionIds: number[] }[]> {
+  // The predicate is contract_amendment_idx's (migration 20261205003000): the few amendments, then their mentions.
+  const amendments = await db
+    .selectFrom('contract as c')
+    .select(['c.id', 'c.parsed'])
+    .where(sql<boolean>`(c.parsed -> 'earlierAgreements') IS NOT NULL AND c.status = 'active'`)
+    .where('c.id', '<>', exceptContractId)
+    .where(({ exists, selectFrom }) =>
+      exists(selectFrom('mention as m').select('m.id').whereRef('m.contract_id', '=', 'c.id').where('m.status', '=', 'unbound_term').where('m.confirmed_by', 'is', null)),
+    )
+    .orderBy('c.id')
+    .limit(MAX_WAITING_AMENDMENTS)
+    .execute();
+  if (amendments.length === 0) return [];
+  const rows = await db
+    .selectFrom('mention')
+    .select(['id', 'contract_id'])
+    .where('contract_id', 'in', amendments.map((a) => a.id))
+    .where('status', '=', 'unbound_term')
+    .where('confirmed_by', 'is', null)
+    .orderBy('id')
+    .execute();
+  return amendments.map((a) => ({
+    contractId: id(a.id),
+    parsed: a.parsed,
+    mentionIds: rows.filter((r) => id(r.contract_id) === id(a.id)).map((r) => id(r.id)),
+  }));
 }

@@ -47,3 +47,26 @@ export async function findNameId(db: Queryable, counterpartyId: number, name: st
   const row = await db.selectFrom('counterparty_name').select('id').where('counterparty_id', '=', counterpartyId).where('name', '=', name).where('kind', '=', kind).executeTakeFirst();
   return row ? id(row.id) : undefined;
 }
+
+export interface NameOrigin {
+  /** The contract the name was first seen in, when it came from one. */
+  contractId: number | null;
+  contractSource: string | null;
+  contractExternalId: string | null;
+  /** The source system that first sent the name. */
+  source: string | null;
+}
+
+/** Where a counterparty's name of this (name, kind) was first seen: the contract that declared it, if any. */
+export async function nameOrigin(db: Queryable, counterpartyId: number, name: string, kind: NameKind): Promise<NameOrigin | undefined> {
+  const row = await db
+    .selectFrom('counterparty_name as n')
+    .leftJoin('contract as c', 'c.id', 'n.contract_id')
+    .select(['n.contract_id', 'n.source', 'c.source as contract_source', 'c.external_id as contract_external_id'])
+    .where('n.counterparty_id', '=', counterpartyId)
+    .where('n.name', '=', name)
+    .where('n.kind', '=', kind)
+    .executeTakeFirst();
+  if (!row) return undefined;
+  return { contractId: idOrNull(row.contract_id), contractSource: row.contract_source, contractExternalId: row.contract_external_id, source: row.source };
+}

@@ -28,10 +28,23 @@ const MARKERS: readonly Marker[] = [
   { words: ['fka'], kind: 'former' },
   { words: ['formerly', 'known', 'as'], kind: 'former' },
   { words: ['formerly', 'called'], kind: 'former' },
+  { words: ['formerly', 'named'], kind: 'former' },
+  // A trade name no longer used is a former name, not a current trade name.
+  { words: ['formerly', 'trading', 'as'], kind: 'former' },
   { words: ['formerly'], kind: 'former' },
   { words: ['previously', 'known', 'as'], kind: 'former' },
   { words: ['previously', 'called'], kind: 'former' },
+  { words: ['previously', 'named'], kind: 'former' },
   { words: ['previously'], kind: 'former' },
+  // The same declaration in contracts drafted in German, French, Spanish and Italian ("vormals", "ehemals",
+  // "anciennement [dénommée]", "anteriormente denominada", "precedentemente denominata"; common practice).
+  { words: ['vormals'], kind: 'former' },
+  { words: ['ehemals'], kind: 'former' },
+  { words: ['anciennement', 'd\u00e9nomm\u00e9e'], kind: 'former' },
+  { words: ['anciennement', 'denommee'], kind: 'former' },
+  { words: ['anciennement'], kind: 'former' },
+  { words: ['anteriormente', 'denominada'], kind: 'former' },
+  { words: ['precedentemente', 'denominata'], kind: 'former' },
   { words: ['a', 'k', 'a'], kind: 'also_known_as', compact: true },
   { words: ['aka'], kind: 'also_known_as' },
   { words: ['also', 'known', 'as'], kind: 'also_known_as' },
@@ -75,8 +88,8 @@ function words(text: string): Word[] {
     const isWord = (c >= 0x61 && c <= 0x7a) || (c >= 0x41 && c <= 0x5a) || (c >= 0x30 && c <= 0x39) || c >= 0x80;
     if (isWord && start < 0) start = i;
     else if (!isWord && start >= 0) {
-      // Marker words are at most 12 letters: longer words are never compared, so not lower-cased either.
-      out.push({ text: i - start <= 12 ? text.slice(start, i).toLowerCase() : '', start, end: i });
+      // Marker words are at most 15 letters ("precedentemente"): longer words are never compared, so not lower-cased either.
+      out.push({ text: i - start <= 15 ? text.slice(start, i).toLowerCase() : '', start, end: i });
       start = -1;
     }
   }

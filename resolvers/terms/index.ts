@@ -13,7 +13,9 @@
  *   4. signature blocks: the entity line above "By:" or "/s/", "for and on behalf of X" (findSignatureBlocks);
  *      the people who sign, witness or notarise (findSignatureBlocks, findSigners) are `signers`, with their title:
  *      their names are non-party names, their titles never;
- *   5. express exclusions ("X, which is not a party hereto": findExclusions): X is `mentioned`, not a party.
+ *   5. express exclusions ("X, which is not a party hereto": findExclusions): X is `mentioned`, not a party;
+ *   6. statements that the contract uses an earlier agreement's defined terms (findEarlierAgreements: "capitalised
+ *      terms have the meaning given in the Agreement dated …"): `earlierAgreements`, for the register to look up.
  * The same entity seen twice (preamble and signature block) is merged on the name analysis (sameEntityName).
  * Descriptive phrases give jurisdiction, identifiers (normalised by resolvers/identifiers; a rejected value is kept
  * with its `problem`), address and, through resolvers/analyse, legal form, aliases, related entities and kind.
@@ -28,6 +30,7 @@
  */
 export type {
   CollectiveTerm,
+  DeclaredName,
   ContractIdentifier,
   ContractParty,
   ContractSigner,
@@ -44,4 +47,10 @@ export { resolveInContract } from './resolveInContract.ts';
 export { MAX_CONTRACT_BYTES, checkContractText } from './checkContractText.ts';
 export { termKey } from './cleanTerm.ts';
 export { classifyNotParties } from './classifyNotParties.ts';
+export { findEarlierAgreements } from './findEarlierAgreements.ts';
+export type { AgreementReference } from './findEarlierAgreements.ts';
+export { datesIn, readDate } from './readDate.ts';
+export { containsToken, matchEarlierAgreement } from './matchEarlierAgreement.ts';
+export type { EarlierCandidate, EarlierMatch } from './matchEarlierAgreement.ts';
+export { sameEntityName } from './sameEntityName.ts';
 export type { NotPartyGroups } from './classifyNotParties.ts';

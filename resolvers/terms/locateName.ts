@@ -27,9 +27,14 @@ const DESCRIPTIVE_STARTS = [
   'une', 'un', 'eine', 'ein', 'una', 'uno', 'sociedad', 'società', 'société', 'gesellschaft', 'vertreten', 'sis', 'situé',
   'domicilié', 'domiciliée', 'eingetragen', 'established', 'duly', 'whose', 'which', 'that', 'who', 'in', 'at', 'on',
 ];
+/** Longest first where one starts another ("formerly known as" before "formerly"); the kinds are splitAliases'. */
 export const ALIAS_CUES = [
-  'd/b/a', 'dba', 'doing business as', 't/a', 'trading as', 'f/k/a', 'fka', 'formerly known as', 'formerly', 'a/k/a',
-  'aka', 'also known as', 'operating as', 'o/a', 'successor in interest to', 'successor by merger to', 'successor to',
+  'd/b/a', 'dba', 'doing business as', 't/a', 'trading as', 'f/k/a', 'fka', 'formerly known as', 'formerly called',
+  'formerly named', 'formerly trading as', 'formerly', 'previously known as', 'previously called', 'previously named',
+  'previously', 'a/k/a', 'aka', 'also known as', 'operating as', 'o/a', 'successor in interest to',
+  'successor by merger to', 'successor to', 'vormals', 'ehemals', 'anciennement dénommée', 'anciennement denommee',
+  'anciennement', 'anteriormente denominada',
+  'precedentemente denominata',
 ];
 
 export interface LocatedName {
@@ -229,12 +234,34 @@ function extendOverDesignator(text: string, s: number, e: number, to: number): n
   return lp.length > 0 && loose(lf.text).endsWith(lp) ? pe : e;
 }
 
-/** Alias phrases after the name: ", d/b/a Brightwater Tools", " formerly known as Kestrel Ltd". */
+/**
+ * "Tollaby Logistics Limited (formerly Tollaby Cold Storage Ltd)": an alias phrase in parentheses right after the
+ * name. Answers the index after the closing parenthesis, or -1 when the parenthesis holds no alias phrase.
+ */
+function aliasInParentheses(text: string, p: number, to: number): number {
+  if (text[p] !== '(') return -1;
+  const inner = skipSpaces(text, p + 1, to);
+  const cue = anyWordAt(text, inner, ALIAS_CUES);
+  if (cue === undefined) return -1;
+  // "(formerly the Licensee under the Original Agreement)" describes a role, not a name: a name starts with a capital.
+  if (!/[\p{Lu}\p{N}]/u.test(text[skipSpaces(text, inner + cue.length, to)] ?? '')) return -1;
+  const close = text.indexOf(')', inner);
+  if (close < 0 || close >= to || close - p > MAX_NAME) return -1;
+  // A quote inside is a definition ("(formerly "Kestrel")"): left to findDefinitions.
+  return /["“”„«»]/u.test(text.slice(inner, close)) ? -1 : close + 1;
+}
+
+/** Alias phrases after the name: ", d/b/a Brightwater Tools", " formerly known as Kestrel Ltd", " (f/k/a Kestrel Ltd)". */
 function extendOverAliases(text: string, e: number, to: number): number {
   let end = e;
   for (let guard = 0; guard < 4; guard++) {
     let p = text[end] === ',' ? end + 1 : end;
     p = skipSpaces(text, p, to);
+    const closed = aliasInParentheses(text, p, to);
+    if (closed > 0) {
+      end = closed;
+      continue;
+    }
     const cue = anyWordAt(text, p, ALIAS_CUES);
     if (cue === undefined) return end;
     const s = skipSpaces(text, p + cue.length, to);

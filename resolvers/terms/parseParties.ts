@@ -3,6 +3,7 @@
  * Each party carries its defined terms, role, and what the descriptive phrase says (jurisdiction,
  * legal form, identifiers, address, aliases). Terms bind only inside this one contract.
  */
+import { findEarlierAgreements } from './findEarlierAgreements.ts';
 import { analyseCached as analyseName } from './analyseCached.ts';
 import type { NameAnalysis } from '../analyse/types.ts';
 import { normaliseIdentifier } from '../identifiers/index.ts';
@@ -349,6 +350,9 @@ export function parseParties(text: string, options: ParseOptions = {}): ParsedCo
   const notParties = c.notParties.filter((n) => !boundKeys.has(termKey(n)));
   const result: ParsedContract = { parties, collectiveTerms, notParties, signers };
   if (mentioned.length > 0) result.mentioned = mentioned;
+  // An amendment or side letter that uses an earlier agreement's defined terms: the register looks that one up.
+  const earlier = findEarlierAgreements(text);
+  if (earlier.length > 0) result.earlierAgreements = earlier;
   const warnings: string[] = [];
   if (c.overflow > 0) warnings.push(`${c.overflow} more party names were found beyond the limit of ${MAX_PARTIES} parties and are not reported`);
   if (c.overflowTerms > 0) warnings.push(`${c.overflowTerms} more defined terms were found beyond the limit of ${MAX_TERMS_PER_PARTY} per party and are not reported`);

@@ -8,7 +8,8 @@ import { analyseCached } from './analyseCached.ts';
 import { termKey } from './cleanTerm.ts';
 import { sameEntityName } from './sameEntityName.ts';
 import { partyByShortName } from './partyByShortName.ts';
-import type { ContractParty, InContractResolution, ParsedContract, PartyRef } from './types.ts';
+import type { NameAnalysis } from '../analyse/types.ts';
+import type { ContractParty, DeclaredName, InContractResolution, ParsedContract, PartyRef } from './types.ts';
 
 function ref(parties: ContractParty[], index: number): PartyRef {
   const p = parties[index] as ContractParty;
@@ -70,11 +71,12 @@ export function resolveInContract(parsed: ParsedContract, mentionText: string): 
     return { status: 'match', mention, analysis, explanation: `"${mention}" is named in this contract, which says it is not a party to it; it goes on to matching as a mentioned entity, not as a party` };
   }
   const same = parties.findIndex((p) => sameEntityName(analyseCached(p.name), analysis));
-  // "Gareth Pembury d/b/a Pembury Design Studio": a trade or a-k-a name is the same party, never a second counterparty.
-  const byAlias = same >= 0 ? -1 : parties.findIndex((p) => p.aliases.some((a) => a.kind !== 'former' && sameEntityName(analyseCached(a.name), analysis)));
-  if (byAlias >= 0) {
-    const party = ref(parties, byAlias);
-    return { status: 'match', mention, party, analysis, explanation: `"${mention}" is another name (d/b/a, t/a, a/k/a) of party ${party.name} in this contract: the same party, not another counterparty` };
+  // "Gareth Pembury d/b/a Pembury Design Studio", "Tollaby Logistics Limited (formerly Tollaby Cold Storage Ltd)": a
+  // name the contract itself declares for a party (trade, a-k-a or former) is that party, never a second counterparty.
+  const declared = same >= 0 ? undefined : declaredAlias(parties, analysis);
+  if (declared !== undefined) {
+    const party = ref(parties, declared.index);
+    return { status: 'match', mention, party, alias: declared.alias, analysis, explanation: aliasExplanation(mention, party, declared.alias) };
   }
   if (same >= 0) {
     const party = ref(parties, same);
@@ -87,6 +89,25 @@ export function resolveInContract(parsed: ParsedContract, mentionText: string): 
     return { status: 'match', mention, party, analysis, explanation: `"${mention}" is the start of the name of party ${party.name}, the only party of this contract so named` };
   }
   return { status: 'match', mention, analysis, explanation: `"${mention}" is not a term of this contract; it goes on to matching against the register` };
+}
+
+/** The one party whose declared other name (d/b/a, a/k/a, former name) the mention is; two such parties bind neither. */
+function declaredAlias(parties: ContractParty[], analysis: NameAnalysis): { index: number; alias: DeclaredName } | undefined {
+  let found: { index: number; alias: DeclaredName } | undefined;
+  for (const [index, p] of parties.entries()) {
+    const alias = p.aliases.find((a) => sameEntityName(analyseCached(a.name), analysis));
+    if (alias === undefined) continue;
+    if (found !== undefined && found.index !== index) return undefined;
+    found = { index, alias: { kind: alias.kind, name: alias.name } };
+  }
+  return found;
+}
+
+function aliasExplanation(mention: string, party: PartyRef, alias: DeclaredName): string {
+  if (alias.kind === 'former') {
+    return `"${mention}" is the former name this contract declares for party ${party.name} (declared as "${alias.name}"): the same party under its earlier name, not another counterparty`;
+  }
+  return `"${mention}" is another name (d/b/a, t/a, a/k/a) of party ${party.name} in this contract: the same party, not another counterparty`;
 }
 
 /** Why the contract rules a mention out: a signer (and for whom), a term of an entity that is expressly no party, or another use. */

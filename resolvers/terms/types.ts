@@ -4,6 +4,7 @@
  */
 import type { AliasKind, EntityKind, IdentifierScheme, RelationType, ResolutionStatus } from '../vocabulary.ts';
 import type { LegalFormMatch, NameAnalysis } from '../analyse/types.ts';
+import type { AgreementReference } from './findEarlierAgreements.ts';
 
 export interface ContractIdentifier {
   scheme: IdentifierScheme;
@@ -33,6 +34,13 @@ export interface ContractParty {
   kind: EntityKind;
   /** The address as written, when the descriptive phrase gives one. */
   address?: string;
+}
+
+/** Another name a contract declares for a party: a trade name (d/b/a, t/a), an a/k/a, or a former name (f/k/a). */
+export interface DeclaredName {
+  kind: AliasKind;
+  /** As the contract writes it. */
+  name: string;
 }
 
 /** A person who signs, witnesses or notarises the contract: seen in the text, never a party for that. */
@@ -71,6 +79,8 @@ export interface ParsedContract {
   signers?: ContractSigner[];
   /** Entities named but expressly not parties: recorded as mentioned, never as parties of this contract. */
   mentioned?: MentionedEntity[];
+  /** Earlier agreements whose defined terms this contract uses (an amendment, a side letter): absent when none. */
+  earlierAgreements?: AgreementReference[];
   /** Present when something was left out (more than MAX_PARTIES parties). */
   warnings?: string[];
   /** Present only when `parties` is empty: why. */
@@ -102,6 +112,8 @@ export interface InContractResolution {
   parties?: PartyRef[];
   /** The defined term that decided the outcome, as the contract writes it. */
   term?: string;
+  /** `match` through another name the contract declares for the party ("formerly X", "d/b/a X"): which one. */
+  alias?: DeclaredName;
   analysis: NameAnalysis;
   /** One sentence saying why: every decision must be explainable. */
   explanation: string;

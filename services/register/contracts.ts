@@ -14,7 +14,8 @@ import { write } from './transaction.ts';
 import { detachMention } from './upkeep.ts';
 import { prepareMention } from './resolve/prepare.ts';
 import { resolveWithin, type ResolveResult } from './resolve/resolve-mention.ts';
-import { mentionsAwaitingContract } from '../../db/queries/mentions.ts';
+import { amendmentsWithUnboundMentions, mentionsAwaitingContract } from '../../db/queries/mentions.ts';
+import { earlierContractOf } from './earlier-contract.ts';
 import { listOwnEntities } from '../../db/queries/own-entities.ts';
 import { getContract, type ContractView } from '../../db/queries/contracts.ts';
 import { analyse } from './matching/analysis.ts';
@@ -97,6 +98,27 @@ async function withdrawVanishedParties(cs: ChangeSet, contractId: number, count:
   }
 }
 
+/** Resolves a stored mention again in its own contract (a contract it waited for has arrived); null when a person settled it. */
+async function resolveAgain(ctx: RegisterContext, cs: ChangeSet, mentionId: number, who: ActorInput): Promise<ResolveResult | null> {
+  const row = await cs.trx.selectFrom('mention').selectAll().where('id', '=', mentionId).executeTakeFirstOrThrow();
+  const m = canonicalRow('mention', row);
+  if (m.status === 'withdrawn' || m.status === 'set_aside' || m.confirmed_by || !m.contract_source || !m.contract_external_id) return null;
+  const again = prepareMention(
+    {
+      source: m.source as string,
+      externalId: m.external_id as string,
+      text: m.text as string,
+      contract: { source: m.contract_source as string, externalId: m.contract_external_id as string },
+      ...(m.role ? { role: m.role as string } : {}),
+      ...(m.country ? { country: m.country as string } : {}),
+      ...(m.address ? { address: m.address as string } : {}),
+      identifiers: m.identifiers as MentionInput['identifiers'],
+    },
+    { lenientIdentifiers: true },
+  );
+  return resolveWithin(ctx, cs, again, who, { force: true, cause: 'contract_arrived' });
+}
+
 export interface StoreContractOptions {
   /**
    * Refuse (INVALID_INPUT, details.reason `no_parties_found`) a text in which the parser finds no party, instead of
@@ -155,7 +177,7 @@ export async function storeContract(ctx: RegisterContext, input: ContractInput, 
         }
       };
       const result = await resolveWithin(ctx, cs, p, who, {
-        party: { contractId, position: index, ownEntity: party.ownEntity },
+        party: { contractId, position: index, ownEntity: party.ownEntity, aliases: party.aliases },
         cause: existing ? 'contract_changed' : undefined,
         beforeCommit: keepParty,
       });
@@ -170,23 +192,17 @@ export async function storeContract(ctx: RegisterContext, input: ContractInput, 
     if (existing) await withdrawVanishedParties(cs, contractId, parsed.parties.length, who, at);
     const reresolved: ResolveResult[] = [];
     for (const mentionId of await mentionsAwaitingContract(cs.trx, input.source, input.externalId)) {
-      const row = await cs.trx.selectFrom('mention').selectAll().where('id', '=', mentionId).executeTakeFirstOrThrow();
-      const m = canonicalRow('mention', row);
-      if (m.status === 'withdrawn' || m.status === 'set_aside' || m.confirmed_by) continue;
-      const again = prepareMention(
-        {
-          source: m.source as string,
-          externalId: m.external_id as string,
-          text: m.text as string,
-          contract: { source: input.source, externalId: input.externalId },
-          ...(m.role ? { role: m.role as string } : {}),
-          ...(m.country ? { country: m.country as string } : {}),
-          ...(m.address ? { address: m.address as string } : {}),
-          identifiers: m.identifiers as MentionInput['identifiers'],
-        },
-        { lenientIdentifiers: true },
-      );
-      reresolved.push(await resolveWithin(ctx, cs, again, who, { force: true, cause: 'contract_arrived' }));
+      const again = await resolveAgain(ctx, cs, mentionId, who);
+      if (again) reresolved.push(again);
+    }
+    // Amendments and side letters that arrived first: their unbound terms may be this contract's (issue 16 item 9).
+    for (const amendment of await amendmentsWithUnboundMentions(cs.trx, contractId)) {
+      const earlier = await earlierContractOf(cs.trx, amendment.contractId, amendment.parsed as ParsedContract);
+      if (earlier?.contractId !== contractId) continue;
+      for (const mentionId of amendment.mentionIds) {
+        const again = await resolveAgain(ctx, cs, mentionId, who);
+        if (again) reresolved.push(again);
+      }
     }
     const contract = await getContract(cs.trx, contractId);
     if (!contract) throw new RegisterError('CONFLICT', `contract ${contractId} vanished while it was stored`);

@@ -31,7 +31,7 @@ export async function idsMergedInto(cs: ChangeSet, ids: number[]): Promise<numbe
   }
   return [...all];
 }
-import { recordedNameOf } from './mention-names.ts';
+import { recordedNameOf, recordedNamesOf } from './mention-names.ts';
 
 export interface MergeInput {
   /** Counterparty ids to merge (two or more; merged ids are followed to their survivors). */
@@ -274,8 +274,7 @@ export async function splitCounterparty(
       created = true;
     }
     for (const m of mentions) {
-      const recorded = recordedNameOf(m);
-      if (recorded) {
+      for (const recorded of recordedNamesOf(m)) {
         await removeNameSighting(cs, sourceId, recorded.name, recorded.kind);
         await addNameSighting(cs, targetId, { name: recorded.name, kind: recorded.kind, source: m.source as string, mentionId: m.id as number }, at);
       }

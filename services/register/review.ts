@@ -15,6 +15,7 @@
  *
  * Every "same" or "different" decision is also kept as a labelled pair (labelled_pair) for the scorer to learn from.
  */
+import { declaredNamesOfPartyMention } from '../../db/queries/contracts.ts';
 import type { ActorInput, RegisterContext } from './context.ts';
 import { RegisterError, invalid, notFound } from './errors.ts';
 import { commitEvent } from './history/commit.ts';
@@ -87,10 +88,29 @@ async function insertCannotLink(cs: ChangeSet, values: { counterpartyId: number;
   });
 }
 
+/** The evidence without names recorded by an earlier link: the names recorded now replace them. */
+function withoutRecordedAliases(evidence: unknown): Record<string, unknown> {
+  const { recordedAliases: _earlier, ...rest } = (evidence ?? {}) as Record<string, unknown>;
+  return rest;
+}
+
+/** The kind a person-confirmed mention's name is recorded with: a former name stays a former name. */
+function confirmedNameKind(mention: Row): NameKind {
+  const evidence = mention.evidence as { via?: string; declaredName?: { kind: NameKind } } | null;
+  if (evidence?.via === 'former_name') return 'former';
+  if (evidence?.declaredName) return evidence.declaredName.kind;
+  return analyse(mention.text as string, mention.country as string | null).legalForm ? 'legal' : 'observed';
+}
+
 async function linkMentionByPerson(cs: ChangeSet, mention: Row, counterpartyId: number, actor: string, at: Date, status: 'linked' | 'new'): Promise<void> {
-  const analysis = analyse(mention.text as string, mention.country as string | null);
-  const recordedName = { name: mention.text as string, kind: (analysis.legalForm ? 'legal' : 'observed') as NameKind };
+  const recordedName = { name: mention.text as string, kind: confirmedNameKind(mention) };
   await addNameSighting(cs, counterpartyId, { ...recordedName, source: mention.source as string, mentionId: mention.id as number }, at);
+  // A contract party confirmed by a person brings the names its contract declares for it ("formerly X"), as a
+  // party linked automatically does (resolve/apply.ts), kept in the evidence so that moving it takes them away.
+  const recordedAliases = (await declaredNamesOfPartyMention(cs.trx, mention.id as number)).filter((a) => a.name !== recordedName.name || a.kind !== recordedName.kind);
+  for (const alias of recordedAliases) {
+    await addNameSighting(cs, counterpartyId, { ...alias, source: mention.source as string, mentionId: mention.id as number, contractId: (mention.contract_id as number | null) ?? null }, at);
+  }
   for (const identifier of (mention.identifiers as Identifier[]) ?? []) {
     try {
       await addIdentifierRow(cs, counterpartyId, identifier, { source: mention.source as string, mentionId: mention.id as number }, at);
@@ -102,7 +122,7 @@ async function linkMentionByPerson(cs: ChangeSet, mention: Row, counterpartyId: 
     status,
     counterparty_id: counterpartyId,
     confirmed_by: actor,
-    evidence: { ...(mention.evidence as Record<string, unknown>), recordedName },
+    evidence: { ...withoutRecordedAliases(mention.evidence), recordedName, ...(recordedAliases.length > 0 ? { recordedAliases } : {}) },
     updated_at: at.toISOString(),
   });
   await touchCounterparty(cs, counterpartyId, at);

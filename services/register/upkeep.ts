@@ -9,7 +9,7 @@ import { removeNameSighting, touchCounterparty } from './records.ts';
 import type { ChangeSet } from './state/change-set.ts';
 import type { Row } from './state/tables.ts';
 import { write } from './transaction.ts';
-import { recordedNameOf } from './mention-names.ts';
+import { recordedNamesOf } from './mention-names.ts';
 import { findMentionBySourceId } from '../../db/queries/mentions.ts';
 
 export interface MentionChangeResult {
@@ -31,8 +31,7 @@ export async function detachMention(
 ): Promise<number | null> {
   const cpId = mention.counterparty_id as number | null;
   if (cpId === null) return null;
-  const recorded = recordedNameOf(mention);
-  if (recorded) await removeNameSighting(cs, cpId, recorded.name, recorded.kind);
+  for (const recorded of recordedNamesOf(mention)) await removeNameSighting(cs, cpId, recorded.name, recorded.kind);
   await cs.update('mention', mention.id as number, { status, counterparty_id: null, updated_at: at.toISOString() });
   await touchCounterparty(cs, cpId, at);
   return cpId;

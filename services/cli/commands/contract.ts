@@ -101,6 +101,11 @@ function formatText(parsed: Parsed, resolution: Resolution | undefined, left: No
   if (left.documents.length > 0) lines.push(`Document references (not parties): ${left.documents.join('; ')}`);
   if (left.roles.length > 0) lines.push(`Roles not bound to a party: ${left.roles.join('; ')}`);
   if (left.other.length > 0) lines.push(`Not parties: ${left.other.join('; ')}`);
+  // An amendment or side letter: the register binds the terms it does not define through this earlier agreement.
+  for (const a of parsed.earlierAgreements ?? []) {
+    const facts = [a.title, a.date === undefined ? undefined : `dated ${a.date}`, a.reference === undefined ? undefined : `reference ${a.reference}`, a.parties.length > 0 ? `between ${a.parties.join(' and ')}` : undefined];
+    lines.push(`Uses the defined terms of an earlier agreement: ${facts.filter((f) => f !== undefined).join(', ')}`);
+  }
   for (const w of parsed.warnings ?? []) lines.push(`Warning: ${w}`);
   if (resolution !== undefined) {
     const who = resolution.party === undefined ? '' : ` → ${resolution.party.name}${resolution.party.role ? ` (${resolution.party.role})` : ''}`;

@@ -55,9 +55,36 @@ export async function scoredCandidates(
   const memoKey = { country: probe.country ?? null, identifiers: probe.identifiers, exclude };
   const memo = reads?.scoredFor<ScoredCandidate[]>(probe.analysis, memoKey);
   if (memo) return memo;
-  const out = await scoreCandidates(db, probe, model, exclude, reads);
+  const out = (await scoreCandidates(db, probe, model, exclude, reads, false)).current;
   reads?.rememberScored(probe.analysis, memoKey, out);
   return out;
+}
+
+/**
+ * scoredCandidates, and beside it the same candidates scored on their former names only (names of kind `former`,
+ * which a contract declared: "formerly X", "f/k/a X"), from the same read. Kept apart, so that a caller always knows
+ * a match came through a name the counterparty no longer uses; the current list is exactly scoredCandidates'.
+ */
+export async function scoredCandidatesWithFormer(
+  db: Queryable,
+  probe: Probe,
+  model: MatchModel,
+  exclude: ReadonlySet<number> = new Set(),
+  reads?: BatchReads,
+): Promise<{ current: ScoredCandidate[]; former: ScoredCandidate[] }> {
+  const memoKey = { country: probe.country ?? null, identifiers: probe.identifiers, exclude };
+  const both = await scoreCandidates(db, probe, model, exclude, reads, true);
+  const memo = reads?.scoredFor<ScoredCandidate[]>(probe.analysis, memoKey);
+  if (!memo) reads?.rememberScored(probe.analysis, memoKey, both.current);
+  return { current: memo ?? both.current, former: both.former };
+}
+
+interface AnalysedCandidate {
+  id: number;
+  canonicalName: string;
+  jurisdiction: string | null;
+  names: { name: string; former: boolean; analysis: NameAnalysis }[];
+  identifiers: Identifier[];
 }
 
 async function scoreCandidates(
@@ -66,45 +93,46 @@ async function scoreCandidates(
   model: MatchModel,
   exclude: ReadonlySet<number>,
   reads: BatchReads | undefined,
-): Promise<ScoredCandidate[]> {
+  withFormer: boolean,
+): Promise<{ current: ScoredCandidate[]; former: ScoredCandidate[] }> {
   const keys = keysOfAnalysis(probe.analysis);
   let details = reads?.detailsFor(keys, probe.identifiers);
   if (!details) {
     details = await candidateDetails(db, keys, probe.identifiers, { limit: MAX_CANDIDATES });
     reads?.rememberDetails(keys, probe.identifiers, details);
   }
-  if (details.length === 0) return [];
-  const analysed = details.map((cp) => ({
+  if (details.length === 0) return { current: [], former: [] };
+  const analysed: AnalysedCandidate[] = details.map((cp) => ({
     id: cp.counterpartyId,
-    cp: { canonical_name: cp.canonicalName, jurisdiction: cp.jurisdiction },
-    names: cp.names.filter((n) => n.kind !== 'former').map((n) => ({ name: n.name, analysis: analyse(n.name, cp.jurisdiction) })),
+    canonicalName: cp.canonicalName,
+    jurisdiction: cp.jurisdiction,
+    names: cp.names
+      .filter((n) => withFormer || n.kind !== 'former')
+      .map((n) => ({ name: n.name, former: n.kind === 'former', analysis: analyse(n.name, cp.jurisdiction) })),
     identifiers: cp.identifiers.map((i) => ({ scheme: i.scheme, value: i.value, ...(i.label ? { label: i.label } : {}) }) as Identifier),
   }));
   const idf = await idfFor(db, [probe.analysis.tokens, ...analysed.flatMap((a) => a.names.map((n) => n.analysis.tokens))].flat(), reads);
   const record = probeRecord(probe);
-  const out: ScoredCandidate[] = [];
-  for (const candidate of analysed) {
-    let best: { name: string; pair: PairScore } | undefined;
-    for (const name of candidate.names) {
-      const other: MatchRecord = {
-        id: `cp:${candidate.id}`,
-        analysis: name.analysis,
-        ...(candidate.cp.jurisdiction ? { country: candidate.cp.jurisdiction } : {}),
-        identifiers: candidate.identifiers,
-      };
-      const pair = scorePair(record, other, model, idf, { cannotLink: exclude.has(candidate.id) });
-      if (!best || pair.score > best.pair.score) best = { name: name.name, pair };
+  const best = (former: boolean): ScoredCandidate[] => {
+    const out: ScoredCandidate[] = [];
+    for (const candidate of analysed) {
+      let top: { name: string; pair: PairScore } | undefined;
+      for (const name of candidate.names) {
+        if (name.former !== former) continue;
+        const other: MatchRecord = {
+          id: `cp:${candidate.id}`,
+          analysis: name.analysis,
+          ...(candidate.jurisdiction ? { country: candidate.jurisdiction } : {}),
+          identifiers: candidate.identifiers,
+        };
+        const pair = scorePair(record, other, model, idf, { cannotLink: exclude.has(candidate.id) });
+        if (!top || pair.score > top.pair.score) top = { name: name.name, pair };
+      }
+      if (top) out.push({ counterpartyId: candidate.id, canonicalName: candidate.canonicalName, matchedName: top.name, score: top.pair.score, pair: top.pair });
     }
-    if (!best) continue;
-    out.push({
-      counterpartyId: candidate.id,
-      canonicalName: candidate.cp.canonical_name,
-      matchedName: best.name,
-      score: best.pair.score,
-      pair: best.pair,
-    });
-  }
-  return out.sort((a, b) => b.score - a.score || a.counterpartyId - b.counterpartyId);
+    return out.sort((a, b) => b.score - a.score || a.counterpartyId - b.counterpartyId);
+  };
+  return { current: best(false), former: withFormer ? best(true) : [] };
 }
 
 /** A score fit for JSON (±∞ are not JSON numbers): the explanation says which override decided. */

@@ -26,8 +26,24 @@ export interface Applied {
   createdCounterparty: boolean;
 }
 
-function nameKindOf(prepared: PreparedMention): NameKind {
+function nameKindOf(prepared: PreparedMention, outcome: Outcome): NameKind {
+  if (outcome.nameKind) return outcome.nameKind;
   return prepared.analysis.legalForm ? 'legal' : 'observed';
+}
+
+/**
+ * The other names to store beside the mention's own: those its contract declares for the party (outcome.declaredNames)
+ * and, when the mention's own name is recorded, those its text introduces ("X f/k/a Y", "X d/b/a Y"); without the
+ * recorded name itself and without repeats.
+ */
+function declaredToRecord(outcome: Outcome, recordedName: RecordedName | null, prepared: PreparedMention): RecordedName[] {
+  const out: RecordedName[] = [];
+  for (const d of [...(outcome.declaredNames ?? []), ...(recordedName ? prepared.analysis.aliases : [])]) {
+    const same = (r: RecordedName) => r.name === d.name && r.kind === d.kind;
+    if ((recordedName && same(recordedName)) || out.some(same)) continue;
+    out.push({ name: d.name, kind: d.kind });
+  }
+  return out;
 }
 
 /** Identifiers of the mention that the counterparty does not hold yet; a strong one held elsewhere is noted. */
@@ -88,9 +104,12 @@ export async function applyOutcome(
   };
   const linking = (outcome.status === 'linked' || outcome.status === 'new') && counterpartyId !== null;
   if (linking && outcome.recordName) {
-    recordedName = { name: prepared.text, kind: nameKindOf(prepared) };
+    recordedName = { name: prepared.text, kind: nameKindOf(prepared, outcome) };
     values.evidence = { ...outcome.evidence, recordedName };
   }
+  // Kept in the evidence like recordedName, so that moving the mention away takes exactly these sightings with it.
+  const recordedAliases = linking ? declaredToRecord(outcome, recordedName, prepared) : [];
+  if (recordedAliases.length > 0) values.evidence = { ...(values.evidence as Record<string, unknown>), recordedAliases };
   const mention = existing
     ? await cs.update('mention', existing.id as number, values)
     : await cs.insert('mention', { ...values, created_at: iso });
@@ -101,13 +120,13 @@ export async function applyOutcome(
     if (recordedName) {
       await addNameSighting(cs, counterpartyId, { ...recordedName, source: prepared.input.source, mentionId, contractId: extra.contractId, confirmedBy }, at);
     }
-    if (created) {
-      for (const alias of prepared.analysis.aliases) {
-        await addNameSighting(cs, counterpartyId, { name: alias.name, kind: alias.kind, source: prepared.input.source, mentionId, contractId: extra.contractId }, at);
-      }
+    for (const alias of recordedAliases) {
+      await addNameSighting(cs, counterpartyId, { ...alias, source: prepared.input.source, mentionId, contractId: extra.contractId }, at);
     }
     const notes = await addMentionIdentifiers(cs, counterpartyId, prepared, mentionId, confirmedBy, at);
-    if (notes.length > 0) await cs.update('mention', mentionId, { evidence: { ...outcome.evidence, recordedName, identifierConflicts: notes } });
+    if (notes.length > 0) {
+      await cs.update('mention', mentionId, { evidence: { ...outcome.evidence, recordedName, ...(recordedAliases.length > 0 ? { recordedAliases } : {}), identifierConflicts: notes } });
+    }
     await touchCounterparty(cs, counterpartyId, at);
   }
   if (outcome.status === 'review' && counterpartyId !== null) {

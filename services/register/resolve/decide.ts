@@ -1,39 +1,62 @@
 /**
- * The decision for one mention, read-only: contract terms first, then our own entities, then the register.
+ * The decision for one mention, read-only: contract terms first (the contract's own, then, for a term it does not
+ * define, those of the earlier agreement it says it uses), then our own entities, then the register.
  *
  *   not_a_party      the name analysis (or the contract) says it names no party
  *   unbound_term     a pronoun or role word that its contract does not bind (or whose contract has not arrived)
  *   collective_term  a term of the contract for a set of parties ("the Parties")
  *   own_entity       one of our own legal entities (scored like a counterparty, linked at linkAt)
- *   linked           a decisive strong identifier, or the best candidate at or above linkAt and unambiguous
- *   review           the best candidate between newAt and linkAt, or two different candidates both above linkAt
- *   new              nothing above newAt: a new counterparty
+ *   linked           a decisive strong identifier, or the best candidate at or above linkAt and unambiguous, or a
+ *                    declared former name under the rules of resolve/former-name.ts
+ *   review           the best candidate between newAt and linkAt, or two different candidates both above linkAt, or
+ *                    a former name too uncertain to link
+ *   new              nothing above newAt (on current or former names): a new counterparty
  */
-import { resolveInContract, type ParsedContract } from '../../../resolvers/terms/index.ts';
+import { resolveInContract, type DeclaredName, type InContractResolution, type ParsedContract } from '../../../resolvers/terms/index.ts';
+import type { EarlierContract } from '../earlier-contract.ts';
 import type { MatchModel } from '../../../resolvers/score/index.ts';
 import { scorePair } from '../../../resolvers/score/index.ts';
-import { isStrongScheme, type Identifier, type ResolutionStatus } from '../../../resolvers/vocabulary.ts';
+import { isStrongScheme, type Identifier, type NameKind, type ResolutionStatus } from '../../../resolvers/vocabulary.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
 import { listOwnEntities } from '../../../db/queries/own-entities.ts';
 import { cannotLinksOf } from '../../../db/queries/review.ts';
 import { survivorsOf } from '../../../db/queries/counterparties.ts';
 import { analyse } from '../matching/analysis.ts';
 import { idfFor } from '../matching/idf.ts';
-import { jsonScore, probeRecord, scoredCandidates, type Probe, type ScoredCandidate } from '../matching/candidates.ts';
+import { jsonScore, probeRecord, scoredCandidatesWithFormer, type Probe, type ScoredCandidate } from '../matching/candidates.ts';
 import type { BatchReads } from '../matching/batch-reads.ts';
 import type { PreparedMention } from './prepare.ts';
+import { throughFormerName } from './former-name.ts';
 
 export interface ContractContext {
   contractId: number;
   parsed: ParsedContract;
   /** Mention id of each party, by position. */
   partyMentions: Map<number, number>;
+  /** The earlier agreement whose defined terms this one uses (an amendment, a side letter), when the register holds it. */
+  earlier?: EarlierContract & { partyMentions: Map<number, number> };
+}
+
+/**
+ * A term this contract does not define, bound instead by the earlier agreement whose defined terms it says it uses
+ * ("the Supplier" in a side letter to a supply agreement): that agreement's party, with the way it was found.
+ */
+function throughEarlier(contract: ContractContext, text: string, r: InContractResolution): { r: InContractResolution; terms: ContractContext } | null {
+  const earlier = contract.earlier;
+  if (!earlier || r.status !== 'unbound_term' || r.term !== undefined) return null;
+  const there = resolveInContract(earlier.parsed, text);
+  if (there.status !== 'bound' || !there.party) return null;
+  const found = earlier.how === 'reference' ? 'by its reference number' : earlier.how === 'title_and_date' ? 'by its title and date' : 'by its title and parties';
+  const explanation = `"${text}" is not defined in this contract, which uses the defined terms of ${earlier.title ?? 'an earlier agreement'} (${earlier.source}/${earlier.externalId}, found ${found}); there it is the term for ${there.party.name}`;
+  return { r: { ...there, explanation }, terms: { contractId: earlier.contractId, parsed: earlier.parsed, partyMentions: earlier.partyMentions } };
 }
 
 export interface PartyContext {
   contractId: number;
   position: number;
   ownEntity: boolean;
+  /** Other names the contract declares for this party ("formerly X", "d/b/a X"): stored on its counterparty. */
+  aliases?: DeclaredName[];
 }
 
 export interface Outcome {
@@ -47,6 +70,10 @@ export interface Outcome {
   confirmedByIdentifier?: string;
   /** The mention's own name is recorded on the counterparty (false for terms bound through a contract). */
   recordName: boolean;
+  /** The kind the recorded name gets when it is not the mention's own current name (a declared former name). */
+  nameKind?: NameKind;
+  /** Other names of the counterparty declared beside the mention (a contract party's "formerly X"): stored too. */
+  declaredNames?: DeclaredName[];
 }
 
 function summaryOf(c: ScoredCandidate) {
@@ -100,24 +127,39 @@ export async function decide(
 
   if (!context.party) {
     if (context.contract) {
-      const r = resolveInContract(context.contract.parsed, prepared.text);
+      const own = resolveInContract(context.contract.parsed, prepared.text);
+      const earlier = throughEarlier(context.contract, prepared.text, own);
+      const r = earlier?.r ?? own;
+      const terms = earlier?.terms ?? context.contract;
       if (r.status === 'collective_term' || r.status === 'unbound_term' || r.status === 'not_a_party') {
         return { status: r.status, score: null, recordName: false, evidence: { ...base, summary: r.explanation, via: 'contract', term: r.term ?? null } };
       }
       if (r.party) {
-        const partyMentionId = context.contract.partyMentions.get(r.party.index);
+        const partyMentionId = terms.partyMentions.get(r.party.index);
         const party = partyMentionId === undefined
           ? undefined
           : await db.selectFrom('mention').select(['status', 'counterparty_id', 'own_entity_id']).where('id', '=', partyMentionId).executeTakeFirst();
-        const evidence = { ...base, summary: r.explanation, via: 'defined_term', term: r.term ?? null, contractId: context.contract.contractId, partyMentionId: partyMentionId ?? null };
+        const evidence = {
+          ...base,
+          summary: r.explanation,
+          via: r.alias ? 'declared_name' : earlier ? 'earlier_agreement_term' : 'defined_term',
+          term: r.term ?? null,
+          ...(r.alias ? { declaredName: r.alias } : {}),
+          ...(earlier && context.contract.earlier
+            ? { earlierAgreement: { contractId: context.contract.earlier.contractId, source: context.contract.earlier.source, externalId: context.contract.earlier.externalId, how: context.contract.earlier.how, statement: context.contract.earlier.statement } }
+            : {}),
+          contractId: terms.contractId,
+          partyMentionId: partyMentionId ?? null,
+        };
         if (party?.status === 'own_entity' && party.own_entity_id !== null) {
           return { status: 'own_entity', ownEntityId: Number(party.own_entity_id), score: null, recordName: false, evidence };
         }
         if ((party?.status === 'linked' || party?.status === 'new') && party.counterparty_id !== null) {
-          return { status: 'linked', counterpartyId: Number(party.counterparty_id), score: null, recordName: r.status === 'match', evidence };
+          // A declared other name is recorded with its kind: a former name never competes as a current name.
+          return { status: 'linked', counterpartyId: Number(party.counterparty_id), score: null, recordName: r.status === 'match', ...(r.alias ? { nameKind: r.alias.kind } : {}), evidence };
         }
         // The party itself is not settled yet: match the party's own name against the register instead.
-        const partyRecord = context.contract.parsed.parties[r.party.index];
+        const partyRecord = terms.parsed.parties[r.party.index];
         if (partyRecord) {
           probe = {
             analysis: analyse(partyRecord.name, partyRecord.jurisdiction ?? prepared.input.country),
@@ -153,13 +195,16 @@ export async function decide(
   }
 
   const exclude = await excludedFor(db, context.mentionId);
-  const candidates = await scoredCandidates(db, probe, model, exclude, context.reads);
+  const { current: candidates, former } = await scoredCandidatesWithFormer(db, probe, model, exclude, context.reads);
   const top = candidates.slice(0, 5).map(summaryOf);
   const best = candidates.find((c) => c.score !== -Infinity);
   const common = { ...base, via, ...(term ? { term } : {}), candidates: top };
+  // No link on a current name: a former name a contract declared may still name the party (resolve/former-name.ts).
+  const orFormerName = async (outcome: Outcome & { status: 'new' | 'review' }): Promise<Outcome> =>
+    (await throughFormerName(db, { text: prepared.text, model, former, current: candidates, currentStatus: outcome.status, base })) ?? outcome;
   // The pair's own decision (resolvers/score/decisionRules): at or below newAt, or names with nothing in common.
   if (!best || best.pair.decision === 'new') {
-    return {
+    return orFormerName({
       status: 'new',
       score: best ? jsonScore(best.score) : null,
       recordName: true,
@@ -175,7 +220,7 @@ export async function decide(
         ignoredIdentifiers: prepared.ignoredIdentifiers,
       },
       confirmedByIdentifier: prepared.identifiers.find((i) => isStrongScheme(i.scheme))?.scheme,
-    };
+    });
   }
   const detail = {
     ...common,
@@ -212,5 +257,5 @@ export async function decide(
     : best.pair.heldBackBy && best.pair.rawScore >= model.linkAt
       ? `best candidate ${best.canonicalName} scored ${jsonScore(best.pair.rawScore)} but is held back from a link: ${best.pair.heldBackBy}${best.pair.distinguishingTokens.length > 0 ? ` (${best.pair.distinguishingTokens.join(', ')})` : ''}; a person decides`
       : `best candidate ${best.canonicalName} scored ${jsonScore(best.score)}, between the new-record threshold (${model.newAt}) and the link threshold (${model.linkAt}): a person decides`;
-  return { status: 'review', counterpartyId: best.counterpartyId, score: jsonScore(best.score), recordName: false, evidence: { ...detail, summary: why } };
+  return orFormerName({ status: 'review', counterpartyId: best.counterpartyId, score: jsonScore(best.score), recordName: false, evidence: { ...detail, summary: why } });
 }

@@ -20,6 +20,7 @@ import { askAgain, earlierDecisionOf, type EarlierDecision } from './earlier-dec
 import { applyOutcome, canonicalNameIn, eventTypeFor } from './apply.ts';
 import { decide, type ContractContext, type PartyContext } from './decide.ts';
 import { prepareMention, type PreparedMention } from './prepare.ts';
+import { earlierContractOf } from '../earlier-contract.ts';
 
 export interface ResolveResult {
   mentionId: number;
@@ -57,6 +58,7 @@ export async function resultOf(
   }
   const evidence = { ...(mention.evidence as Record<string, unknown>) };
   delete evidence.recordedName;
+  delete evidence.recordedAliases;
   return {
     mentionId: mention.id as number,
     source: mention.source as string,
@@ -101,12 +103,17 @@ export async function contractContextFor(cs: ChangeSet, ref: { source: string; e
     .where('external_id', '=', ref.externalId)
     .executeTakeFirst();
   if (!contract || contract.status !== 'active') return null;
-  const parties = await cs.trx.selectFrom('contract_party').select(['position', 'mention_id']).where('contract_id', '=', contract.id).execute();
-  return {
-    contractId: Number(contract.id),
-    parsed: contract.parsed as unknown as ParsedContract,
-    partyMentions: new Map(parties.map((p) => [p.position, Number(p.mention_id)])),
-  };
+  const parsed = contract.parsed as unknown as ParsedContract;
+  const context: ContractContext = { contractId: Number(contract.id), parsed, partyMentions: await partyMentionsOf(cs, Number(contract.id)) };
+  // An amendment or side letter: the earlier agreement whose defined terms it uses, when the register holds it.
+  const earlier = parsed.earlierAgreements ? await earlierContractOf(cs.trx, context.contractId, parsed) : null;
+  if (earlier) context.earlier = { ...earlier, partyMentions: await partyMentionsOf(cs, earlier.contractId) };
+  return context;
+}
+
+async function partyMentionsOf(cs: ChangeSet, contractId: number): Promise<Map<number, number>> {
+  const parties = await cs.trx.selectFrom('contract_party').select(['position', 'mention_id']).where('contract_id', '=', contractId).execute();
+  return new Map(parties.map((p) => [p.position, Number(p.mention_id)]));
 }
 
 export interface ResolveWithinOptions {
@@ -134,10 +141,12 @@ export async function resolveWithin(
   let prepared = preparedInput;
   const found = await cs.trx
     .selectFrom('mention')
-    .select(['id', 'content_hash', 'counterparty_id'])
+    .select(['id', 'content_hash', 'counterparty_id', 'status', 'evidence'])
     .where('source', '=', prepared.input.source)
     .where('external_id', '=', prepared.input.externalId)
     .executeTakeFirst();
+  // A changed contract that keeps a party's name but declares other former or trade names for it resolves it again.
+  if (found && !options.force && declaredNamesChanged(found, options.party)) options = { ...options, force: true };
   if (found && found.content_hash === prepared.contentHash && !options.force) {
     const row = await cs.trx.selectFrom('mention').selectAll().where('id', '=', found.id).executeTakeFirstOrThrow();
     return resultOf(cs.trx, canonicalRow('mention', row), { alreadyIngested: true, eventId: null });
@@ -169,6 +178,7 @@ export async function resolveWithin(
     contractAwaited: prepared.input.contract !== undefined && contract === null,
   });
   const outcome = earlier ? askAgain(decided, earlier) : decided;
+  if (options.party?.aliases && options.party.aliases.length > 0) outcome.declaredNames = options.party.aliases;
   outcome.evidence.modelVersion = version;
   const existing = found ? await cs.require('mention', Number(found.id)) : undefined;
   const applied = await applyOutcome(cs, prepared, outcome, existing, {
@@ -199,6 +209,14 @@ export async function resolveWithin(
     reviewItemId: applied.reviewItemId,
     canonicalName: canonicalNameIn(cs, (applied.mention.counterparty_id as number | null) ?? null),
   });
+}
+
+/** Whether a linked contract party's stored declared names (recordedAliases) differ from what its contract declares now. */
+function declaredNamesChanged(found: { status: string; evidence: unknown }, party: PartyContext | undefined): boolean {
+  if (party === undefined || (found.status !== 'linked' && found.status !== 'new')) return false;
+  const stored = ((found.evidence as { recordedAliases?: { name: string; kind: string }[] } | null)?.recordedAliases ?? []).map((a) => `${a.kind}:${a.name}`);
+  const now = [...new Set((party.aliases ?? []).map((a) => `${a.kind}:${a.name}`))];
+  return stored.length !== now.length || now.some((k) => !stored.includes(k));
 }
 
 /** Resolves one mention (see the file header). */

@@ -5,6 +5,8 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { runCli } from '../../support/cli.ts';
 import { CORPUS } from './corpus/contracts.ts';
+import { DECLARED_NAME_SHAPES } from './corpus/declaredNameShapes.ts';
+import { EARLIER_AGREEMENT_SHAPES } from './corpus/earlierAgreementShapes.ts';
 
 let dir = '';
 const file = (name: string): string => join(dir, name);
@@ -14,6 +16,8 @@ beforeAll(async () => {
   const classic = CORPUS.find((c) => c.id === 'us-license-classic');
   await writeFile(file('license.txt'), classic?.text ?? '');
   await writeFile(file('empty.txt'), '  \n');
+  await writeFile(file('formerly.txt'), DECLARED_NAME_SHAPES.find((c) => c.id === 'uk-declared-formerly-trading-as')?.text ?? '');
+  await writeFile(file('amendment.txt'), EARLIER_AGREEMENT_SHAPES.find((c) => c.id === 'us-earlier-amendment-meanings-ascribed')?.text ?? '');
   await writeFile(file('prose.txt'), 'The river ran clear all year.\n');
   await writeFile(file('binary.bin'), Buffer.from([0x25, 0x50, 0x44, 0x46, 0x00, 0x01, 0xff, 0xfe]));
   await writeFile(file('latin1.txt'), Buffer.from([0x41, 0x63, 0x6d, 0xe9, 0x20, 0x4c, 0x74, 0x64]));
@@ -54,7 +58,21 @@ describe('cpreg contract parse', () => {
     expect(JSON.parse(json.stdout).mention.status).toBe('unbound_term');
   });
 
-  it('prints an empty result with its reason when no party is found', async () => {
+  it('shows declared former names, resolves a mention of one, and names the earlier agreement an amendment uses', async () => {
+    // Issue 16 items 8 and 9: a reviewer sees why a former name is the party and which agreement's terms bind.
+    const former = await runCli(['contract', 'parse', file('formerly.txt'), '--mention', 'Tollaby Cold Storage Ltd']);
+    expect(former.code).toBe(0);
+    expect(former.stdout).toContain('aliases: former Tollaby Cold Storage Ltd');
+    expect(former.stdout).toContain('Mention "Tollaby Cold Storage Ltd": match → Tollaby Logistics Limited (Customer)');
+    expect(former.stdout).toContain('is the former name this contract declares for party Tollaby Logistics Limited');
+    const amendment = await runCli(['contract', 'parse', file('amendment.txt')]);
+    expect(amendment.code).toBe(0);
+    expect(amendment.stdout).toContain(
+      'Uses the defined terms of an earlier agreement: Master Services Agreement, dated 2024-06-01, reference MSA-2024-017, between Harrowgate Analytics, Inc. and Quillon Freight LLC',
+    );
+  });
+
+    it('prints an empty result with its reason when no party is found', async () => {
     const r = await runCli(['contract', 'parse', file('prose.txt'), '--json']);
     expect(r.code).toBe(0);
     const out = JSON.parse(r.stdout);

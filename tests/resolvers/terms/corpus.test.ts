@@ -7,9 +7,11 @@ import { CORPUS as BASE } from './corpus/contracts.ts';
 import { checkCase } from './corpus/checkCase.ts';
 import { NON_PARTY_SHAPES } from './corpus/nonPartyShapes.ts';
 import { SHAPES_OF, SIGNER_SHAPES } from './corpus/signerShapes.ts';
+import { DECLARED_NAME_SHAPES, DECLARED_SHAPES_OF } from './corpus/declaredNameShapes.ts';
+import { EARLIER_AGREEMENT_SHAPES, EARLIER_SHAPES_OF } from './corpus/earlierAgreementShapes.ts';
 
 /** Issue 16's shapes (places, document references, unbound roles) are checked like every other passage. */
-const CORPUS = [...BASE, ...NON_PARTY_SHAPES, ...SIGNER_SHAPES];
+const CORPUS = [...BASE, ...NON_PARTY_SHAPES, ...SIGNER_SHAPES, ...DECLARED_NAME_SHAPES, ...EARLIER_AGREEMENT_SHAPES];
 
 const failures = new Map<string, string[]>();
 
@@ -35,6 +37,26 @@ describe('terms corpus', () => {
     const shapes = ['conformed', 'on-behalf-by', 'duly-authorised', 'acting-through', 'witness', 'notary', 'exclusion', 'individual', 'sole-trader', 'titled-person'];
     for (const shape of shapes) {
       const ids = SIGNER_SHAPES.map((c) => c.id).filter((id) => SHAPES_OF[id]?.includes(shape));
+      expect(ids.length, shape).toBeGreaterThanOrEqual(3);
+      expect(new Set(ids.map((id) => id.split('-')[0])), shape).toEqual(new Set(['uk', 'us', 'eu']));
+    }
+  });
+
+  it('has at least three passages per declared-name shape (former, trade), in British, US and translated styles', () => {
+    // Issue 16 item 8: each passage also resolves later mentions of the declared names to their party.
+    for (const shape of ['former', 'trade']) {
+      const ids = DECLARED_NAME_SHAPES.map((c) => c.id).filter((id) => DECLARED_SHAPES_OF[id]?.includes(shape));
+      expect(ids.length, shape).toBeGreaterThanOrEqual(3);
+      expect(new Set(ids.map((id) => id.split('-')[0])), shape).toEqual(new Set(['uk', 'us', 'eu']));
+      const resolved = DECLARED_NAME_SHAPES.flatMap((c) => c.resolves ?? []).filter((r) => r.alias === shape);
+      expect(resolved.length, shape).toBeGreaterThanOrEqual(3);
+    }
+  });
+
+  it('has at least three passages per earlier-agreement shape, in British, US and translated styles', () => {
+    // Issue 16 item 9: a reference number, an agreement named by a defined term, the earlier agreement's parties.
+    for (const shape of ['reference', 'defined', 'named-parties']) {
+      const ids = EARLIER_AGREEMENT_SHAPES.map((c) => c.id).filter((id) => EARLIER_SHAPES_OF[id]?.includes(shape));
       expect(ids.length, shape).toBeGreaterThanOrEqual(3);
       expect(new Set(ids.map((id) => id.split('-')[0])), shape).toEqual(new Set(['uk', 'us', 'eu']));
     }

@@ -110,4 +110,22 @@ By: ______`;
     expect(parsed.parties.map((p) => p.name)).toEqual(['Ashdown Mills Ltd', 'Brockley Farms Ltd']);
     expect(resolveInContract(parsed, 'the Supplier').party?.name).toBe('Ashdown Mills Ltd');
   });
+
+  it('reads a declared former name only when a name follows the cue, and binds a name two parties declared to neither', () => {
+    // Issue 16 item 8: "(formerly the licensee under …)" describes a role; "(formerly X Ltd)" declares a name.
+    const parsed = parseParties(
+      `This Agreement is made between Acme Widgets Ltd (formerly the licensee under the Original Agreement), a company incorporated in England (the "Licensee"), and Corrin Hale Ltd (formerly Corrin Hale & Sons Ltd) (the "Licensor").`,
+    );
+    expect(parsed.parties.map((p) => [p.name, p.aliases])).toEqual([
+      ['Acme Widgets Ltd', []],
+      ['Corrin Hale Ltd', [{ kind: 'former', name: 'Corrin Hale & Sons Ltd' }]],
+    ]);
+    expect(resolveInContract(parsed, 'Corrin Hale & Sons Limited')).toMatchObject({ status: 'match', party: { name: 'Corrin Hale Ltd' }, alias: { kind: 'former' } });
+    const both = parseParties(
+      `This Agreement is made between Brennock Mills Limited (formerly Ardley Textiles Limited) (the "Buyer") and Sallow Weaving Ltd (previously Ardley Textiles Limited) (the "Seller").`,
+    );
+    const r = resolveInContract(both, 'Ardley Textiles Limited');
+    expect(r.party).toBeUndefined();
+    expect(r.status).toBe('match');
+  });
 });

@@ -1,5 +1,5 @@
 /** Compares parseParties' result on one corpus case with its expectations; returns the differences. */
-import { parseParties, termKey } from '../../../../resolvers/terms/index.ts';
+import { parseParties, resolveInContract, termKey } from '../../../../resolvers/terms/index.ts';
 import type { ParsedContract } from '../../../../resolvers/terms/index.ts';
 import type { CorpusCase } from './contracts.ts';
 
@@ -54,6 +54,16 @@ export function checkCase(c: CorpusCase, parsed: ParsedContract = parseParties(c
     if (names.includes(e.name) && !want.includes(e.name)) diffs.push(`signer ${e.name} is a party`);
   }
   for (const s of signers) if (s.title !== undefined && parsed.notParties.includes(s.title)) diffs.push(`job title ${JSON.stringify(s.title)} listed as a non-party name`);
+  // Issue 16 item 8: a declared former or trade name mentioned later is that party, and the explanation says how.
+  for (const e of c.resolves ?? []) {
+    const r = resolveInContract(parsed, e.mention);
+    if (r.party?.name !== e.party || r.alias?.kind !== e.alias) diffs.push(`mention ${JSON.stringify(e.mention)}: ${r.status} ${JSON.stringify(r.party?.name)} via ${JSON.stringify(r.alias)}, want ${e.party} via its ${e.alias} name`);
+    else if (e.alias === 'former' && !r.explanation.includes('former name')) diffs.push(`mention ${JSON.stringify(e.mention)}: explanation does not say former name: ${r.explanation}`);
+  }
+  // Issue 16 item 9: the earlier agreement as the text describes it (the statement itself is evidence, not compared).
+  const earlier = (parsed.earlierAgreements ?? []).map(({ statement: _statement, ...rest }) => JSON.stringify(rest));
+  const wantEarlier = (c.earlier ?? []).map((e) => JSON.stringify({ ...(e.title ? { title: e.title } : {}), ...(e.date ? { date: e.date } : {}), ...(e.reference ? { reference: e.reference } : {}), parties: e.parties }));
+  if (!sameList(earlier, wantEarlier)) diffs.push(`earlier agreements: got ${JSON.stringify(earlier)}, want ${JSON.stringify(wantEarlier)}`);
   const mentioned = (parsed.mentioned ?? []).map((m) => m.name);
   if (!sameSet(mentioned, c.mentioned ?? [])) diffs.push(`mentioned: got ${JSON.stringify(mentioned)}, want ${JSON.stringify(c.mentioned ?? [])}`);
   return diffs;

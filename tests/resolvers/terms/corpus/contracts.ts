@@ -39,6 +39,10 @@ export interface CorpusCase {
   signers?: { name: string; title?: string; capacity?: 'signatory' | 'witness' | 'notary'; signsFor?: string }[];
   /** Exactly these entities are named but expressly not parties (absent: none). */
   mentioned?: string[];
+  /** Mentions that resolveInContract must resolve to `party` through the other name the contract declares for it. */
+  resolves?: { mention: string; party: string; alias: AliasKind }[];
+  /** Exactly these earlier agreements whose defined terms the text says it uses (absent: none). */
+  earlier?: { title?: string; date?: string; reference?: string; parties: string[] }[];
 }
 
 export const CORPUS: CorpusCase[] = [
