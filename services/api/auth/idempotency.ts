@@ -41,6 +41,11 @@ declare module 'fastify' {
      * answer's parsed JSON body (2xx answers only). Without it the answer is stored as sent.
      */
     idempotentReplay?: (body: unknown) => unknown;
+    /**
+     * The route claims its Idempotency-Key itself, once it has read its upload (jobs/contracts): the app-wide hook
+     * leaves every request to it, so a body the route refuses before its claim leaves no stored answer.
+     */
+    ownIdempotency?: boolean;
   }
 }
 
@@ -193,6 +198,7 @@ export const idempotencyPlugin: AppPlugin = (app, deps) => {
     // A streamed upload (jobs/ingest, jobs/contracts; a multipart upload is read by its route) is hashed by its
     // route while it is read.
     if (isReadable(request.body) || (request as { isMultipart?: () => boolean }).isMultipart?.() === true) return;
+    if (request.routeOptions.config?.ownIdempotency === true) return;
     const path = request.url;
     const claim = { keyId: request.apiKey.id, key };
     const result = await claimIdempotencyKey(deps.db, { ...claim, method: request.method, path, hash: bodyHash(request.method, path, request.body) });

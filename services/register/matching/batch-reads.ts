@@ -9,7 +9,6 @@ import type { NameAnalysis } from '../../../resolvers/analyse/types.ts';
 import type { Identifier } from '../../../resolvers/vocabulary.ts';
 import { candidateDetailsBatch, type CandidateDetail } from '../../../db/queries/blocking-keys.ts';
 import { listOwnEntities, type OwnEntityView } from '../../../db/queries/own-entities.ts';
-import { registerNameCount } from '../../../db/queries/name-count.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
 import { analyse } from './analysis.ts';
 import { documentFrequencies } from './idf.ts';
@@ -27,7 +26,6 @@ function detailKey(keys: readonly string[], identifiers: readonly { scheme: stri
 
 export class BatchReads {
   private own: Promise<OwnEntityView[]> | undefined;
-  private names: Promise<number> | undefined;
   private readonly df = new Map<string, number>();
   private readonly details = new Map<string, CandidateDetail[]>();
   /** Scored candidates by analysis object (the same prepared mention is scored in decide and in clustering). */
@@ -38,12 +36,6 @@ export class BatchReads {
   ownEntities(): Promise<OwnEntityView[]> {
     this.own ??= listOwnEntities(this.db);
     return this.own;
-  }
-
-  /** How many names the register holds, read once per batch (the N of the token rarity, matching/idf.ts). */
-  nameCount(): Promise<number> {
-    this.names ??= registerNameCount(this.db);
-    return this.names;
   }
 
   /** Document frequencies of `tokens`, reading only those not read before in this batch. */

@@ -109,7 +109,7 @@ export const contractsJobRoutes: RoutePlugin = async (app, deps) => {
   app.post<{ Querystring: { source: string; partitionSize?: number } }>(
     '/v1/jobs/contracts',
     {
-      config: { scope: 'write' },
+      config: { scope: 'write', ownIdempotency: true },
       schema: {
         summary: 'Upload a zip of PDF, Word and text contracts: answered 202 with a job to poll',
         description: [
