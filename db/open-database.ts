@@ -12,7 +12,7 @@ import type { PGlite as PGliteClass } from '@electric-sql/pglite';
 import type { PoolClient } from 'pg';
 import type { Database } from './types.ts';
 import { acquireDirectoryLock, LOCK_FILE_NAME, type DirectoryLock } from './lock.ts';
-import { DatabaseOpenError } from './database-errors.ts';
+import { DatabaseOpenError, NoDatabaseError } from './database-errors.ts';
 
 export type Backend = 'pglite' | 'postgres';
 
@@ -38,6 +38,11 @@ export interface OpenDatabaseOptions {
   loadDataDir?: Blob;
   /** Told when the pool reports an error on an idle PostgreSQL connection (default: ignored; the pool replaces it). */
   onPoolError?: (error: Error) => void;
+  /**
+   * Embedded only: whether a directory without a database may be made into a new empty one (default true).
+   * False (read-only commands): such a directory is refused with NoDatabaseError and nothing is written.
+   */
+  create?: boolean;
 }
 
 export interface OpenedDatabase {
@@ -45,6 +50,8 @@ export interface OpenedDatabase {
   backend: Backend;
   /** What was opened, fit for messages: a URL without its password, a directory, or `memory:`. */
   description: string;
+  /** True when this call made a new empty embedded database (the directory held none). */
+  created: boolean;
   close(): Promise<void>;
 }
 
@@ -124,6 +131,7 @@ async function openPostgres(url: string, options: OpenDatabaseOptions): Promise<
     db,
     backend: 'postgres',
     description: where.safe,
+    created: false,
     async close() {
       if (closed) return;
       closed = true;
@@ -234,6 +242,7 @@ async function openPglite(target: string, options: OpenDatabaseOptions): Promise
   let lock: DirectoryLock | undefined;
   if (dir) {
     checkEmbeddedDirectory(dir);
+    if (options.create === false && !holdsDatabase(dir)) throw new NoDatabaseError(target);
     mkdirSync(dir, { recursive: true });
     lock = acquireDirectoryLock(dir, { command: options.command, onMessage: options.onMessage });
   }
@@ -269,6 +278,7 @@ async function openPglite(target: string, options: OpenDatabaseOptions): Promise
     db,
     backend: 'pglite',
     description: memory ? MEMORY_TARGET : target,
+    created: fresh,
     async close() {
       if (closed) return;
       closed = true;
@@ -280,6 +290,11 @@ async function openPglite(target: string, options: OpenDatabaseOptions): Promise
       }
     },
   };
+}
+
+/** Whether a directory holds a complete embedded database (a first start that was interrupted does not). */
+export function holdsDatabase(dir: string): boolean {
+  return existsSync(join(dir, 'PG_VERSION')) && !existsSync(join(dir, INIT_MARKER_NAME));
 }
 
 /**

@@ -71,7 +71,7 @@ export default function register(program: Command): void {
       process.on('SIGINT', onSignal);
       const progress = progressReporter('ingest', 'rows');
       try {
-        const summary = await withDatabase(options.db, 'cpreg ingest', (db) =>
+        const summary = await withDatabase(options.db, 'cpreg ingest', 'writes', (db) =>
           ingestFile({
             db,
             file,
