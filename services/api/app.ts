@@ -69,7 +69,7 @@ export async function buildApp(inputDeps: AppDeps): Promise<FastifyInstance> {
         version: deps.version!,
         description:
           'Counterparty register: links the party names found in contracts to one canonical record per company or person. ' +
-          'Errors are RFC 9457 problem details (application/problem+json) with a stable `code` (see docs/errors.md). ' +
+          'Errors are RFC 9457 problem details (application/problem+json) with a stable `code`, each explained in the error catalogue served at /docs/errors. ' +
           `Open routes (no API key): ${OPEN_ROUTES.join(', ')}.`,
       },
       components: {
