@@ -33,13 +33,39 @@ export function openedLine(opened: OpenedDatabase, given: string | undefined): s
 }
 
 export async function openCommandDatabase(given: string | undefined, command: string, options: CommandDatabaseOptions): Promise<OpenedDatabase> {
+  const say = options.say ?? ((line: string) => void process.stderr.write(`${line}\n`));
+  // A command that only reads opens the embedded database without its search extensions (a third of the start);
+  // should the schema need a migration, it is opened again with them and migrated.
+  if (!options.writes && options.migrate !== false) {
+    const opened = await openOrExplain(given, command, { writes: false, extensions: false }, say);
+    const { schemaState } = await import('../../db/migrate.ts');
+    if ((await schemaState(opened.db)).upToDate) return opened;
+    await opened.close();
+  }
+  return openAndMigrate(given, command, options, say);
+}
+
+async function openAndMigrate(given: string | undefined, command: string, options: CommandDatabaseOptions, say: (line: string) => void): Promise<OpenedDatabase> {
+  const opened = await openOrExplain(given, command, { writes: options.writes, extensions: true }, say);
+  if (options.writes || opened.created) say(openedLine(opened, given));
+  if (options.migrate === false) return opened;
+  try {
+    const { migrateToLatest } = await import('../../db/migrate.ts');
+    await migrateToLatest(opened.db);
+  } catch (error) {
+    await opened.close();
+    throw new CliError((error as Error).message, 1, { cause: error });
+  }
+  return opened;
+}
+
+/** Opens, turning the database's refusals into one-line CLI errors (no database here, locked, unreachable). */
+async function openOrExplain(given: string | undefined, command: string, how: { writes: boolean; extensions: boolean }, say: (line: string) => void): Promise<OpenedDatabase> {
   const { openDatabase, resolveTarget } = await import('../../db/open-database.ts');
   const { DatabaseOpenError, NoDatabaseError } = await import('../../db/database-errors.ts');
   const { DatabaseLockedError } = await import('../../db/lock.ts');
-  const say = options.say ?? ((line: string) => void process.stderr.write(`${line}\n`));
-  let opened: OpenedDatabase;
   try {
-    opened = await openDatabase(given, { command, create: options.writes, onMessage: (line) => say(`cpreg: ${line}`) });
+    return await openDatabase(given, { command, create: how.writes, extensions: how.extensions, onMessage: (line) => say(`cpreg: ${line}`) });
   } catch (error) {
     if (error instanceof NoDatabaseError) {
       throw new CliError(
@@ -52,14 +78,4 @@ export async function openCommandDatabase(given: string | undefined, command: st
     if (error instanceof DatabaseOpenError || error instanceof DatabaseLockedError) throw new CliError(error.message, 1, { cause: error });
     throw error;
   }
-  if (options.writes || opened.created) say(openedLine(opened, given));
-  if (options.migrate === false) return opened;
-  try {
-    const { migrateToLatest } = await import('../../db/migrate.ts');
-    await migrateToLatest(opened.db);
-  } catch (error) {
-    await opened.close();
-    throw new CliError((error as Error).message, 1, { cause: error });
-  }
-  return opened;
 }

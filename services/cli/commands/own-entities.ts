@@ -77,9 +77,11 @@ export default function register(program: Command): void {
     .option('--json', 'print the result as JSON')
     .showHelpAfterError(true)
     .action(async (options: { all?: boolean; db?: string; json?: boolean }) => {
-      await withRegister(options.db, 'cpreg own-entities list', 'reads', async ({ ctx }) => {
-        const { ownEntities } = await import('../../register/own-entities.ts');
-        const list = await ownEntities(ctx, { includeRemoved: options.all === true });
+      // Reads one table: the query module alone, without loading the register (a second of imports).
+      const { withDatabase } = await import('../../ingest/cli-support.ts');
+      await withDatabase(options.db, 'cpreg own-entities list', 'reads', async (db) => {
+        const { listOwnEntities } = await import('../../../db/queries/own-entities.ts');
+        const list = await listOwnEntities(db, { includeRemoved: options.all === true });
         const lines = list.length === 0 ? 'no own entities listed (add one with: cpreg own-entities add "<name>")' : list.map((o) => `${o.id}\t${o.name}${o.country ? `\t${o.country}` : ''}${o.removedAt ? '\t(removed)' : ''}`).join('\n');
         print(options.json, list, lines);
       });
