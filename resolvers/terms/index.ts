@@ -45,3 +45,5 @@ export { MAX_CONTRACT_BYTES, checkContractText } from './checkContractText.ts';
 export { termKey } from './cleanTerm.ts';
 export { classifyNotParties } from './classifyNotParties.ts';
 export type { NotPartyGroups } from './classifyNotParties.ts';
+export { reconcileGivenParties } from './reconcileGivenParties.ts';
+export type { GivenPartyFacts, ParsedPartyFacts, PartyDisagreement, PartyReconciliation } from './reconcileGivenParties.ts';
