@@ -59,6 +59,8 @@ export async function startServer(options: ServeOptions): Promise<RunningServer>
   try {
     const report = await migrateToLatest(database.db);
     if (report.applied.length > 0) say(`cpreg: applied ${report.applied.length} migration(s): ${report.applied.join(', ')}`);
+    // Building the API (every route's schemas compiled) takes seconds on a small machine: a line before the wait.
+    say(`cpreg: database open (${database.description}); starting the API`);
     const workSlots = options.workSlots ?? 1;
     jobs = await startJobs({
       db: database.db,
