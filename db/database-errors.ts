@@ -11,6 +11,14 @@ export class DatabaseOpenError extends Error {
   }
 }
 
+/** Raised by openDatabase with `create: false` when an embedded directory holds no database; nothing was written. */
+export class NoDatabaseError extends DatabaseOpenError {
+  constructor(readonly target: string) {
+    super(`there is no database at ${target} (nothing was created)`);
+    this.name = 'NoDatabaseError';
+  }
+}
+
 /** Raised when a database call does not finish within the configured timeout. */
 export class DatabaseTimeoutError extends Error {
   constructor(readonly timeoutMs: number) {

@@ -29,3 +29,4 @@ export { normalisePhone, normaliseEmailDomain, normaliseWebDomain, isFreeMailDom
 export { FREE_MAIL_DOMAINS } from './freeMailDomains.ts';
 export { normaliseIban } from './iban.ts';
 export { normaliseAddress } from './address.ts';
+export { schemeOfTaxId, schemeOfRegistrationNumber } from './schemeOfColumn.ts';

@@ -54,3 +54,5 @@ export { containsToken, matchEarlierAgreement } from './matchEarlierAgreement.ts
 export type { EarlierCandidate, EarlierMatch } from './matchEarlierAgreement.ts';
 export { sameEntityName } from './sameEntityName.ts';
 export type { NotPartyGroups } from './classifyNotParties.ts';
+export { reconcileGivenParties } from './reconcileGivenParties.ts';
+export type { GivenPartyFacts, ParsedPartyFacts, PartyDisagreement, PartyReconciliation } from './reconcileGivenParties.ts';

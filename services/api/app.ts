@@ -10,6 +10,7 @@ import { randomUUID } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import Fastify, { LogController, type FastifyInstance, type FastifyServerOptions, type RouteOptions } from 'fastify';
 import swagger from '@fastify/swagger';
+import { operationIdOf } from './operation-ids.ts';
 import { PROBLEM_SCHEMA, problemResponses } from './errors.ts';
 import { registerErrorHandling } from './error-handler.ts';
 import { MAX_PATH_PARAMETER_LENGTH, frameworkErrors } from './framework-errors.ts';
@@ -72,7 +73,7 @@ export async function buildApp(inputDeps: AppDeps): Promise<FastifyInstance> {
         version: deps.version!,
         description:
           'Counterparty register: links the party names found in contracts to one canonical record per company or person. ' +
-          'Errors are RFC 9457 problem details (application/problem+json) with a stable `code` (see docs/errors.md). ' +
+          'Errors are RFC 9457 problem details (application/problem+json) with a stable `code`, each explained in the error catalogue served at /docs/errors. ' +
           `Open routes (no API key): ${OPEN_ROUTES.join(', ')}.`,
       },
       components: {
@@ -107,7 +108,7 @@ function loggingOptions(logger: AppDeps['logger']): Pick<FastifyServerOptions, '
 
 /**
  * Adds the problems every documented route can answer to its response schema, so that /openapi.json
- * lists them without each route repeating them.
+ * lists them without each route repeating them, and the route's operationId (services/api/operation-ids.ts).
  */
 function documentCommonProblems(route: RouteOptions): void {
   const schema = route.schema as (Record<string, unknown> & { hide?: boolean; response?: Record<string, unknown> }) | undefined;
@@ -118,4 +119,7 @@ function documentCommonProblems(route: RouteOptions): void {
   if (schema.body) statuses.push(400, 413, 415);
   const common = problemResponses(...statuses);
   schema.response = { ...common, ...(schema.response ?? {}) };
+  // HEAD routes fastify adds share the GET's schema and have no entry: the GET's id stays.
+  const operationId = operationIdOf(Array.isArray(route.method) ? route.method[0]! : route.method, route.url);
+  if (operationId && schema.operationId === undefined) schema.operationId = operationId;
 }

@@ -44,6 +44,7 @@ export const DOCS_PAGE = `<!doctype html>
 <header>
   <h1 id="title">cpreg API reference</h1>
   <p id="subtitle">Loading /openapi.json…</p>
+  <p><a href="/docs/errors">Error catalogue</a>: every problem code this service answers, its status and what to do.</p>
   <input id="filter" type="search" placeholder="Filter by path, method or summary" aria-label="Filter operations">
 </header>
 <main>

@@ -121,7 +121,7 @@ export function problem(
 export const PROBLEM_SCHEMA = {
   $id: 'Problem',
   type: 'object',
-  description: 'RFC 9457 problem details; `code` is stable (see docs/errors.md).',
+  description: 'RFC 9457 problem details; `code` is stable (the error catalogue: /docs/errors).',
   required: ['type', 'title', 'status', 'detail', 'code'],
   properties: {
     type: { type: 'string', example: 'urn:cpreg:problem:VALIDATION_FAILED' },

@@ -2,7 +2,7 @@
  * Routes anyone may call without an API key. Everything else needs a key (the authentication hook
  * of the public interface consults isOpenRoute). Keep this list short and explicit.
  */
-export const OPEN_ROUTES: readonly string[] = ['/healthz', '/openapi.json', '/docs', '/console', '/console/*'];
+export const OPEN_ROUTES: readonly string[] = ['/healthz', '/openapi.json', '/docs', '/docs/errors', '/console', '/console/*'];
 
 /** `url` is a route pattern (request.routeOptions.url) or a path; query strings are ignored. */
 export function isOpenRoute(url: string): boolean {

@@ -5,6 +5,7 @@
  */
 import type { FastifyInstance } from 'fastify';
 import pino from 'pino';
+import { resolve as resolvePath } from 'node:path';
 import { openDatabase, resolveTarget, type OpenedDatabase } from '../../db/open-database.ts';
 import { startJobs, type Jobs } from '../jobs/start-jobs.ts';
 import { migrateToLatest } from '../../db/migrate.ts';
@@ -51,11 +52,15 @@ export async function startServer(options: ServeOptions): Promise<RunningServer>
     onMessage: (line) => say(`cpreg: ${line}`),
     onPoolError: (error) => logger.warn({ err: error }, 'idle database connection lost; the pool reconnects on demand'),
   });
+  // Never made silently: the serving line names the database, this one says it is new and empty.
+  if (database.created) say(`cpreg: created a new empty database at ${resolvePath(database.description)}`);
   let app: FastifyInstance | undefined;
   let jobs: Jobs | undefined;
   try {
     const report = await migrateToLatest(database.db);
     if (report.applied.length > 0) say(`cpreg: applied ${report.applied.length} migration(s): ${report.applied.join(', ')}`);
+    // Building the API (every route's schemas compiled) takes seconds on a small machine: a line before the wait.
+    say(`cpreg: database open (${database.description}); starting the API`);
     const workSlots = options.workSlots ?? 1;
     jobs = await startJobs({
       db: database.db,

@@ -77,6 +77,34 @@ function escapePointerToken(token: string): string {
   return token.replaceAll('~', '~0').replaceAll('/', '~1');
 }
 
+/** A field error with the schema rule it breaks (`required`, `minLength`, …): what a batch item's problem names. */
+export type RuleError = FieldError & { rule: string };
+
+/** One body schema compiled as request bodies are (for a route's own validatorCompiler). */
+export function compileBodySchema(schema: object) {
+  return makeAjv({ coerceTypes: false }, {}).compile(withSafeIntegers(schema));
+}
+
+/**
+ * A validator for one body schema with the same rules as request bodies (no coercion, unknown fields refused),
+ * for a route that checks the items of a batch one by one: the errors of a value, none when it is valid.
+ */
+export function bodyValidator(schema: object): (value: unknown) => RuleError[] {
+  const validate = compileBodySchema(schema);
+  return (value) => {
+    if (validate(value)) return [];
+    const seen = new Set<string>();
+    const out: RuleError[] = [];
+    for (const error of validate.errors ?? []) {
+      const { pointer, message } = describe(error);
+      if (seen.has(`${pointer}\u0000${message}`)) continue;
+      seen.add(`${pointer}\u0000${message}`);
+      out.push({ pointer, message, rule: error.keyword });
+    }
+    return out;
+  };
+}
+
 /** One field error per ajv error, pointing at the offending field (not at its parent object). */
 export function toFieldErrors(errors: ErrorObject[], part: string | undefined): FieldError[] {
   const where = PART_TO_IN[part ?? 'body'] ?? 'body';

@@ -11,14 +11,17 @@
  *      the server, closes the database and releases its lock.
  */
 import { existsSync, mkdirSync, readFileSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { join, resolve } from 'node:path';
+import { DEFAULT_DATA_DIR } from '../../db/open-database.ts';
 import type { Kysely } from 'kysely';
 import type { Database } from '../../db/types.ts';
 import { CliError } from '../cli/cli-error.ts';
 import type { DemoCliOptions } from '../cli/commands/demo.ts';
-import { DEMO_DATA_DIR, DEMO_KEY_LABEL } from '../cli/commands/demo.ts';
+import { DEMO_KEY_LABEL } from '../cli/commands/demo.ts';
+import { countOf } from '../cli/count-words.ts';
+import { additionsLine, demoState } from './demo-state.ts';
 import { cliActor, progressReporter } from '../ingest/cli-support.ts';
-import { CONTRACT_SOURCE, MENTION_SOURCE, generateScenario, type Scenario } from './scenario/index.ts';
+import { CONTRACT_SOURCE, generateScenario, type Scenario } from './scenario/index.ts';
 import { writeScenario } from './write-scenario.ts';
 import { loadDemo, summariseDemo, type DemoStage, type DemoSummary } from './run-demo.ts';
 import { formatSummary } from './run-demo-format.ts';
@@ -35,31 +38,24 @@ export const CAUTION =
   'Links are proposals: verify them against official registers before they drive payments or notices.';
 
 export async function runDemoCommand(options: DemoCliOptions): Promise<void> {
-  const { isPostgresUrl, MEMORY_TARGET, openDatabase } = await import('../../db/open-database.ts');
-  const dbDir = withoutTrailingSlashes(options.db);
+  const { isPostgresUrl, MEMORY_TARGET, resolveTarget, DEFAULT_DATA_DIR } = await import('../../db/open-database.ts');
+  const { openCommandDatabase, targetOrigin } = await import('../cli/open-command-database.ts');
+  // The one rule every command follows: --db, else DATABASE_URL, else ./data/cpreg.
+  const dbDir = withoutTrailingSlashes(resolveTarget(options.db));
   if (isPostgresUrl(dbDir) || dbDir === MEMORY_TARGET) {
-    throw new CliError(`--db ${options.db}: the demo builds an embedded database; give a directory (default ${DEMO_DATA_DIR})`);
+    throw new CliError(`the demo builds an embedded database, and its database (${targetOrigin(options.db)}) is ${dbDir.startsWith('memory') ? dbDir : 'a PostgreSQL URL'}: give a directory with --db (default ${DEFAULT_DATA_DIR})`);
   }
   const filesDir = options.files ?? `${dbDir}-scenario`;
   const note = (line: string): void => {
     process.stderr.write(`${line}\n`);
   };
   if (options.fresh) await removeDemo(dbDir, filesDir, note);
+  if (!options.db) noteEarlierDemo(dbDir, note);
 
   const state = readState(filesDir);
   const seed = options.seed ?? state?.seed ?? 1;
   const scenario = generateScenario(seed);
-
-  const { DatabaseOpenError } = await import('../../db/database-errors.ts');
-  const { DatabaseLockedError } = await import('../../db/lock.ts');
-  const { migrateToLatest } = await import('../../db/migrate.ts');
-  let database;
-  try {
-    database = await openDatabase(dbDir, { command: 'cpreg demo', onMessage: (line) => note(`cpreg: ${line}`) });
-  } catch (error) {
-    if (error instanceof DatabaseOpenError || error instanceof DatabaseLockedError) throw new CliError(error.message, 1, { cause: error });
-    throw error;
-  }
+  const database = await openCommandDatabase(options.db, 'cpreg demo', { writes: true, say: note });
 
   let stop = false;
   const onSignal = (): void => {
@@ -72,17 +68,27 @@ export async function runDemoCommand(options: DemoCliOptions): Promise<void> {
   let summary: DemoSummary;
   let apiKey: string | undefined;
   try {
-    await migrateToLatest(database.db);
-    const built = await builtState(database.db, scenario);
-    if (built === 'other') {
-      throw new CliError(`${dbDir} holds a demo built from another scenario; add --fresh to rebuild it with seed ${seed}`);
+    const built = await demoState(database.db, scenario, state?.seed);
+    if (built.kind === 'other') {
+      const was = state && state.seed !== seed ? `seed ${state.seed}` : 'another seed';
+      throw new CliError(
+        `${dbDir} holds the demo built from ${was}, not from seed ${seed}: run the demo without --seed to reuse it, or add --fresh to rebuild it with seed ${seed} (--fresh deletes that database, with anything added to it)`,
+      );
+    }
+    if (built.kind === 'not_demo') {
+      const c = built.contents;
+      throw new CliError(
+        `${dbDir} holds a register that is not the demo (${countOf(c.contracts, 'contract')}, ${countOf(c.mentions, 'mention')}, ${countOf(c.ownEntities, 'own entity', 'own entities')}); ` +
+          'the demo never mixes its invented data into it: give the demo a directory of its own, e.g. --db ./data/demo',
+      );
     }
     // Written only once the database is known to hold (or to be about to hold) this scenario.
     mkdirSync(filesDir, { recursive: true });
     await writeScenario(filesDir, scenario);
     writeFileSync(join(filesDir, STATE_FILE), `${JSON.stringify({ seed }, null, 2)}\n`);
-    if (built === 'complete') {
-      note(`cpreg demo: reusing the demo database in ${dbDir} (seed ${seed}; --fresh rebuilds it)`);
+    if (built.kind === 'complete') {
+      const added = await additionsLine(database.db, built.changedContracts);
+      note(`cpreg demo: reusing the demo database in ${dbDir} (seed ${seed}; --fresh rebuilds it)${added ? `; ${added}` : ''}`);
     } else {
       note(`cpreg demo: building the demo in ${dbDir} from seed ${seed} (scenario files in ${filesDir})`);
       await build(database.db, scenario, filesDir, () => stop, note);
@@ -110,6 +116,13 @@ export async function runDemoCommand(options: DemoCliOptions): Promise<void> {
   await serve(options, { dbDir, filesDir, apiKey: apiKey!, busiest: summary.busiest[0] }, note);
 }
 
+/** Earlier versions kept the demo in ./data/demo: say where it is, once, when the default directory holds none. */
+function noteEarlierDemo(dbDir: string, note: (line: string) => void): void {
+  const earlier = './data/demo';
+  if (!existsSync(join(earlier, 'PG_VERSION')) || existsSync(join(dbDir, 'PG_VERSION'))) return;
+  note(`cpreg demo: an earlier demo is kept in ${earlier} and left as it is; every command now uses ${dbDir} by default (move it there, or give --db ${earlier})`);
+}
+
 function withoutTrailingSlashes(path: string): string {
   let end = path.length;
   while (end > 1 && (path[end - 1] === '/' || path[end - 1] === '\\')) end--;
@@ -117,20 +130,6 @@ function withoutTrailingSlashes(path: string): string {
 }
 
 // ---------------------------------------------------------------- building
-
-type BuiltState = 'empty' | 'partial' | 'complete' | 'other';
-
-/** Whether the database already holds this scenario: every contract with the same text, every mention stored. */
-async function builtState(db: Kysely<Database>, scenario: Scenario): Promise<BuiltState> {
-  const stored = await db.selectFrom('contract').select(['external_id', 'text']).where('source', '=', CONTRACT_SOURCE).execute();
-  if (stored.length === 0) return 'empty';
-  // Contracts come in as PDF, Word and text files: their stored text is the extracted one, whose line breaks differ.
-  const words = (text: string | undefined): string => (text ?? '').split(/\s+/).filter(Boolean).join(' ');
-  const texts = new Map(scenario.contracts.map((c) => [c.externalId, words(c.text)]));
-  if (stored.some((c) => texts.get(c.external_id) !== words(c.text))) return 'other';
-  const mentions = await db.selectFrom('mention').select((eb) => eb.fn.countAll<string>().as('n')).where('source', '=', MENTION_SOURCE).executeTakeFirstOrThrow();
-  return stored.length === scenario.contracts.length && Number(mentions.n) === scenario.mentions.length ? 'complete' : 'partial';
-}
 
 async function build(db: Kysely<Database>, scenario: Scenario, filesDir: string, shouldStop: () => boolean, note: (line: string) => void): Promise<void> {
   let current: { stage: DemoStage; bar: ReturnType<typeof progressReporter> } | undefined;
@@ -251,7 +250,8 @@ export interface Suggestions {
 export function afterServing(x: Suggestions): string {
   const auth = `-H "Authorization: Bearer ${x.apiKey}"`;
   const rel = (p: string): string => (p.startsWith('.') || p.startsWith('/') ? p : `./${p}`);
-  const db = `--db ${rel(x.dbDir)}`;
+  // Every command opens the same database by default: name it only when the demo runs elsewhere.
+  const db = resolve(x.dbDir) === resolve(DEFAULT_DATA_DIR) ? '' : ` --db ${rel(x.dbDir)}`;
   const word = x.busiest?.name.split(/\s+/)[0] ?? 'logistics';
   const id = x.busiest?.id ?? 1;
   // Its name as an extraction model might send it (capitals, no punctuation), in one of its contracts.
@@ -271,12 +271,12 @@ export function afterServing(x: Suggestions): string {
     `    curl -s ${auth} -H "Content-Type: application/json" -d '{"source":"try","externalId":"1","text":"${shouted}"${contract}}' ${x.url}/v1/mentions`,
     '',
     '  after Ctrl-C',
-    `    node bin/cpreg.js own-entities list ${db}`,
-    `    node bin/cpreg.js export links --format csv --out links.csv ${db}`,
-    `    node bin/cpreg.js reconcile ${rel(x.filesDir)}/vendor-master.csv --out vendor-report.csv ${db}`,
-    `    node bin/cpreg.js sweep ${db}`,
-    `    node bin/cpreg.js verify ${db}`,
-    `    node bin/cpreg.js serve ${db}`,
+    `    node bin/cpreg.js own-entities list${db}`,
+    `    node bin/cpreg.js export links --format csv --out links.csv${db}`,
+    `    node bin/cpreg.js reconcile ${rel(x.filesDir)}/vendor-master.csv --out vendor-report.csv${db}`,
+    `    node bin/cpreg.js sweep${db}`,
+    `    node bin/cpreg.js verify${db}`,
+    `    node bin/cpreg.js serve${db}`,
     '',
     '  Ctrl-C stops the server and closes the database.',
   ].join('\n');

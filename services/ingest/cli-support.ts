@@ -1,30 +1,19 @@
 /**
- * What the keys, ingest, export and reconcile commands share: opening (and migrating) the database with clear
- * one-line errors, the CLI actor `cli:<operating-system user>`, and progress on stderr — a bar with rate and
+ * What the keys, ingest, export and reconcile commands share: opening (and migrating) the database, the CLI actor `cli:<operating-system user>`, and progress on stderr — a bar with rate and
  * time left on a terminal, a plain line every few seconds otherwise.
  */
 import { userInfo } from 'node:os';
 import type { Kysely } from 'kysely';
 import type { Database } from '../../db/types.ts';
-import { CliError } from '../cli/cli-error.ts';
 import { countOf, singularOf } from '../cli/count-words.ts';
 
 export { countOf, pluralOf, singularOf } from '../cli/count-words.ts';
 
-export async function withDatabase<T>(target: string | undefined, command: string, fn: (db: Kysely<Database>) => Promise<T>): Promise<T> {
-  const { openDatabase } = await import('../../db/open-database.ts');
-  const { migrateToLatest } = await import('../../db/migrate.ts');
-  const { DatabaseOpenError } = await import('../../db/database-errors.ts');
-  const { DatabaseLockedError } = await import('../../db/lock.ts');
-  let database;
+/** Opens the command's database (services/cli/open-command-database.ts: which one, created or refused), migrated; runs `fn`; closes. */
+export async function withDatabase<T>(target: string | undefined, command: string, access: 'reads' | 'writes', fn: (db: Kysely<Database>) => Promise<T>): Promise<T> {
+  const { openCommandDatabase } = await import('../cli/open-command-database.ts');
+  const database = await openCommandDatabase(target, command, { writes: access === 'writes' });
   try {
-    database = await openDatabase(target, { command, onMessage: (line) => process.stderr.write(`cpreg: ${line}\n`) });
-  } catch (error) {
-    if (error instanceof DatabaseOpenError || error instanceof DatabaseLockedError) throw new CliError(error.message, 1, { cause: error });
-    throw error;
-  }
-  try {
-    await migrateToLatest(database.db);
     return await fn(database.db);
   } finally {
     await database.close();

@@ -6,8 +6,9 @@
  */
 import { createHash } from 'node:crypto';
 import { IDENTIFIER_SCHEMES, type IdentifierScheme, type MentionInput } from '../../resolvers/vocabulary.ts';
+import { schemeOfRegistrationNumber, schemeOfTaxId } from '../../resolvers/identifiers/index.ts';
 
-export const MENTION_FIELDS = ['externalId', 'text', 'contract', 'contractSource', 'role', 'country', 'address', 'identifiers', 'source'] as const;
+export const MENTION_FIELDS = ['externalId', 'text', 'contract', 'contractSource', 'role', 'country', 'address', 'identifiers', 'taxId', 'registrationNumber', 'source'] as const;
 export type MentionField = (typeof MENTION_FIELDS)[number];
 
 /** Column names recognised without --map (compared lower-case without spaces, _ and -). */
@@ -20,8 +21,14 @@ const DEFAULT_COLUMNS: Record<MentionField, string[]> = {
   country: ['country', 'jurisdiction'],
   address: ['address'],
   identifiers: ['identifiers'],
+  // The scheme of these is told per value (schemeOfTaxId / schemeOfRegistrationNumber), as reconcile does.
+  taxId: ['taxid', 'vat', 'vatid', 'vatnumber', 'taxnumber'],
+  registrationNumber: ['registrationno', 'registrationnumber', 'companynumber', 'regno'],
   source: ['source'],
 };
+
+/** Header words that suggest a column holds a row's own id when it is not read as one. */
+const ID_LIKE = /(?:id|ref|reference|no|number|key|code)$/;
 
 export type FieldMap = Partial<Record<MentionField | IdentifierScheme, string>>;
 
@@ -59,6 +66,31 @@ export function resolveColumns(header: readonly string[], map: FieldMap): FieldM
   }
   if (out.text === undefined) throw new MappingError(`no column for the party name: add --map text=<column>; the file's columns: ${header.join(', ')}`);
   return out;
+}
+
+/**
+ * What the file's header leaves unread, in words for a warning: columns no field reads (named, so that nothing is
+ * dropped silently), and a missing id column (rows then get ids from their content, so a re-sent row with another
+ * text becomes a new mention instead of an update), naming the columns that look like ids.
+ */
+export function columnWarnings(header: readonly string[], columns: FieldMap): string[] {
+  const read = new Set(Object.values(columns));
+  const unread = header.filter((h) => h !== '' && !read.has(h));
+  const warnings: string[] = [];
+  if (unread.length > 0) {
+    warnings.push(
+      `${unread.length === 1 ? 'column' : `${unread.length} columns`} not read: ${unread.map((h) => `"${h}"`).join(', ')} ` +
+        `(to read one, --map <field>=<column>; fields: ${MENTION_FIELDS.join(', ')}, or an identifier scheme such as lei)`,
+    );
+  }
+  if (columns.externalId === undefined) {
+    const idLike = unread.filter((h) => ID_LIKE.test(squash(h)) && !DEFAULT_COLUMNS.contract.includes(squash(h)));
+    warnings.push(
+      'no column is read as the row id, so each row gets an id made from its content: a row sent again with another text ' +
+        `becomes a new mention instead of updating the first${idLike.length > 0 ? `; if ${idLike.map((h) => `"${h}"`).join(' or ')} identifies a row, add --map externalId=${idLike[0]}` : '; add --map externalId=<column> if a column identifies each row'}`,
+    );
+  }
+  return warnings;
 }
 
 export type RowResult = { ok: true; mention: MentionInput; identity: string } | { ok: false; reason: string };
@@ -114,8 +146,18 @@ export function mentionFromRow(row: Record<string, string>, values: readonly str
     const value = get(scheme);
     if (value !== undefined) identifiers.push({ scheme, value });
   }
+  // A column that says only "tax id" or "registration number": the scheme is told per value and country; a value
+  // whose scheme cannot be told is kept as a labelled `other` identifier (shared, never a strong link).
+  const taxId = get('taxId');
+  if (taxId !== undefined) identifiers.push(withScheme(schemeOfTaxId(taxId, country), taxId, 'tax id'));
+  const registration = get('registrationNumber');
+  if (registration !== undefined) identifiers.push(withScheme(schemeOfRegistrationNumber(country), registration, 'registration number'));
   if (identifiers.length > 0) mention.identifiers = identifiers as MentionInput['identifiers'];
   return { ok: true, mention, identity: `${rowSource}\u0000${externalId}` };
+}
+
+function withScheme(scheme: IdentifierScheme | undefined, value: string, label: string): { scheme: string; value: string; label?: string } {
+  return scheme ? { scheme, value } : { scheme: 'other', value, label };
 }
 
 /** An NDJSON line as a mention: the line is a mention object; source and externalId default as for CSV. */

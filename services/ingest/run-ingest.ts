@@ -19,7 +19,7 @@ import { createRegisterContext, type RegisterContext } from '../register/context
 import { resolveBatch } from '../register/batch.ts';
 import { prepareMention } from '../register/resolve/prepare.ts';
 import type { MentionInput } from '../../resolvers/vocabulary.ts';
-import { MappingError, mentionFromJson, mentionFromRow, resolveColumns, type FieldMap, type RowResult } from './mapping.ts';
+import { columnWarnings, MappingError, mentionFromJson, mentionFromRow, resolveColumns, type FieldMap, type RowResult } from './mapping.ts';
 import { RejectsWriter } from './rejects.ts';
 import { unstorableRowReason } from './unstorable-text.ts';
 import { MAX_NDJSON_LINE_BYTES, ndjsonLines } from './ndjson-lines.ts';
@@ -48,6 +48,8 @@ export interface IngestOptions {
   /** Checked between batches: when it answers true the run stops cleanly as `interrupted`. */
   shouldStop?: () => boolean;
   ctx?: RegisterContext;
+  /** Told what the file's header leaves unread (also listed in the summary's `warnings`). */
+  onWarning?: (message: string) => void;
 }
 
 export interface IngestProgress {
@@ -63,6 +65,8 @@ export interface IngestSummary extends IngestProgress {
   rejectsFile: string | null;
   /** read minus the sum of the outcome counts: always 0 (the run fails loudly otherwise). */
   unaccounted: number;
+  /** Columns not read, a missing id column (services/ingest/mapping.ts columnWarnings). */
+  warnings: string[];
 }
 
 /** Ids per lookup statement (a whole job's mentions are looked up at once by its planner). */
@@ -113,7 +117,15 @@ export interface Row {
 }
 
 /** Rows of the file, each with its line number and raw text. */
-export async function* rowsOf(file: string, format: IngestFormat, source: string, map: FieldMap, stream: NodeJS.ReadableStream, onSkip: (line: number, reason: string, raw: string) => void): AsyncGenerator<Row> {
+export async function* rowsOf(
+  file: string,
+  format: IngestFormat,
+  source: string,
+  map: FieldMap,
+  stream: NodeJS.ReadableStream,
+  onSkip: (line: number, reason: string, raw: string) => void,
+  onWarning: (message: string) => void = () => undefined,
+): AsyncGenerator<Row> {
   if (format === 'ndjson') {
     for await (const read of ndjsonLines(stream as AsyncIterable<Buffer | string>)) {
       const line = read.line;
@@ -179,6 +191,7 @@ export async function* rowsOf(file: string, format: IngestFormat, source: string
       const twice = duplicateColumn(header);
       if (twice) throw new MappingError(`the CSV header names the column "${twice.name}" twice (columns ${twice.first} and ${twice.second}); rename or remove one`);
       columns = resolveColumns(header, map);
+      for (const warning of columnWarnings(header, columns)) onWarning(warning);
       continue;
     }
     const rawText = raw.replace(/\r?\n$/, '');
@@ -219,6 +232,11 @@ export async function ingestFile(options: IngestOptions): Promise<IngestSummary>
     counts.rejected++;
     rejects.write(line, reason, raw);
   };
+  const warnings: string[] = [];
+  const warn = (message: string): void => {
+    warnings.push(message);
+    options.onWarning?.(message);
+  };
   let batch: { line: number; raw: string; mention: MentionInput; identity: string }[] = [];
   let seen = new Map<string, { line: number; raw: string }>();
   const flush = async (): Promise<void> => {
@@ -255,7 +273,7 @@ export async function ingestFile(options: IngestOptions): Promise<IngestSummary>
   };
   let status: IngestSummary['status'] = 'finished';
   try {
-    for await (const row of rowsOf(options.file, format, options.source, options.map ?? {}, stream, reject)) {
+    for await (const row of rowsOf(options.file, format, options.source, options.map ?? {}, stream, reject, warn)) {
       if (!row.result.ok) {
         reject(row.line, row.result.reason, row.raw);
         continue;
@@ -307,5 +325,5 @@ export async function ingestFile(options: IngestOptions): Promise<IngestSummary>
     .where('id', '=', runId)
     .execute();
   if (gap !== 0) throw new Error(`ingest run ${runId}: ${gap} rows read but not accounted for (a defect: please report it)`);
-  return { ...progress(), bytesRead: status === 'finished' ? totalBytes : stream.bytesRead, status, rejectsFile: rejects.written > 0 ? options.rejectsFile : null, unaccounted: gap };
+  return { ...progress(), bytesRead: status === 'finished' ? totalBytes : stream.bytesRead, status, rejectsFile: rejects.written > 0 ? options.rejectsFile : null, unaccounted: gap, warnings };
 }

@@ -29,6 +29,8 @@ export interface SubmitIngestOptions {
   /** Mentions per partition aimed at. Default PARTITION_DEFAULTS.partitionSize. */
   partitionSize?: number;
   chunkSize?: number;
+  /** Told what the file's header leaves unread (services/ingest/mapping.ts columnWarnings). */
+  onWarning?: (message: string) => void;
 }
 
 export async function submitIngestJob(deps: { db: Kysely<Database>; queue: JobQueue }, options: SubmitIngestOptions): Promise<number> {
@@ -50,7 +52,7 @@ export async function submitIngestJob(deps: { db: Kysely<Database>; queue: JobQu
     let rows = 0;
     const stream = createReadStream(options.file);
     const skipped: StagedRow[] = [];
-    for await (const row of rowsOf(options.file, format, options.source, options.map ?? {}, stream, (line, reason) => skipped.push({ line, reason }))) {
+    for await (const row of rowsOf(options.file, format, options.source, options.map ?? {}, stream, (line, reason) => skipped.push({ line, reason }), options.onWarning)) {
       chunk.push(...skipped.splice(0));
       const unstorable = row.result.ok ? unstorableRowReason(row.result.mention) : undefined;
       if (unstorable) chunk.push({ line: row.line, reason: unstorable });

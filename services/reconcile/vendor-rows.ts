@@ -5,7 +5,7 @@
  * registration number by the country (GB company, DE register, FR SIREN, NL KvK, AU ACN, SE org). A value that
  * does not validate is kept out of matching and named in the evidence, never dropped silently.
  */
-import { normaliseIdentifier } from '../../resolvers/identifiers/index.ts';
+import { normaliseIdentifier, schemeOfRegistrationNumber, schemeOfTaxId } from '../../resolvers/identifiers/index.ts';
 import { normaliseAddress } from '../../resolvers/identifiers/index.ts';
 import type { Identifier, IdentifierScheme } from '../../resolvers/vocabulary.ts';
 
@@ -75,9 +75,6 @@ export interface VendorRow {
   problems: string[];
 }
 
-const TAX_BY_COUNTRY: Partial<Record<string, IdentifierScheme>> = { US: 'us_ein', AU: 'au_abn' };
-const REGISTRATION_BY_COUNTRY: Partial<Record<string, IdentifierScheme>> = { GB: 'gb_company', DE: 'de_register', FR: 'fr_siren', NL: 'nl_kvk', AU: 'au_acn', SE: 'se_org' };
-
 function add(list: Identifier[], problems: string[], scheme: IdentifierScheme | undefined, value: string | undefined, country: string | null, what: string): void {
   if (!value) return;
   if (!scheme) {
@@ -105,8 +102,8 @@ export function vendorRow(line: number, row: Record<string, string>, columns: Ve
   const contact: Identifier[] = [];
   const problems: string[] = [];
   const tax = get('taxId');
-  if (tax) add(strong, problems, /^[a-z]{2}\s?[0-9a-z]/i.test(tax) ? 'vat' : country ? TAX_BY_COUNTRY[country] : undefined, tax, country, 'tax id');
-  add(strong, problems, country ? REGISTRATION_BY_COUNTRY[country] : undefined, get('registrationNumber'), country, 'registration number');
+  if (tax) add(strong, problems, schemeOfTaxId(tax, country), tax, country, 'tax id');
+  add(strong, problems, schemeOfRegistrationNumber(country), get('registrationNumber'), country, 'registration number');
   add(contact, problems, 'phone', get('phone'), country, 'phone');
   const email = get('email');
   if (email) add(contact, problems, 'email_domain', email.slice(email.lastIndexOf('@') + 1), country, 'e-mail domain');

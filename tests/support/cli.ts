@@ -23,10 +23,10 @@ export function childEnv(extra: Record<string, string | undefined> = {}): NodeJS
   return env;
 }
 
-/** Runs `cpreg <args>` to completion (killed after timeoutMs, which only catches hangs). */
-export function runCli(args: string[], options: { env?: NodeJS.ProcessEnv; timeoutMs?: number } = {}): Promise<CliResult> {
+/** Runs `cpreg <args>` to completion (killed after timeoutMs, which only catches hangs); `cwd` defaults to the repository. */
+export function runCli(args: string[], options: { env?: NodeJS.ProcessEnv; timeoutMs?: number; cwd?: string } = {}): Promise<CliResult> {
   return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, [CPREG_BIN, ...args], { cwd: REPO_ROOT, env: options.env ?? childEnv() });
+    const child = spawn(process.execPath, [CPREG_BIN, ...args], { cwd: options.cwd ?? REPO_ROOT, env: options.env ?? childEnv() });
     let stdout = '';
     let stderr = '';
     child.stdout.on('data', (chunk) => (stdout += chunk));

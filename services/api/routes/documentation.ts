@@ -1,5 +1,9 @@
-/** GET /openapi.json (generated from the route schemas by @fastify/swagger) and GET /docs (a page that browses it). */
+/**
+ * GET /openapi.json (generated from the route schemas by @fastify/swagger), GET /docs (a page that browses it) and
+ * GET /docs/errors (the error catalogue, docs/errors.md, as a page).
+ */
 import { DOCS_PAGE } from '../docs-page.ts';
+import { errorsPage } from '../errors-page.ts';
 import type { RoutePlugin } from '../types.ts';
 
 export const documentationRoutes: RoutePlugin = (app) => {
@@ -13,5 +17,9 @@ export const documentationRoutes: RoutePlugin = (app) => {
         "default-src 'none'; script-src 'unsafe-inline'; style-src 'unsafe-inline'; connect-src 'self'; img-src 'self' data:",
       )
       .send(DOCS_PAGE),
+  );
+  const errors = errorsPage();
+  app.get('/docs/errors', { schema: { hide: true } }, async (_request, reply) =>
+    reply.type('text/html; charset=utf-8').header('content-security-policy', "default-src 'none'; style-src 'unsafe-inline'; img-src data:").send(errors),
   );
 };

@@ -15,7 +15,7 @@ export default function register(program: Command): void {
     .option('--json', 'print the result as JSON')
     .showHelpAfterError(true)
     .action(async (options: { dryRun?: boolean; db?: string; json?: boolean }) => {
-      await withRegister(options.db, 'cpreg adjust-weights', async ({ ctx }, actor) => {
+      await withRegister(options.db, 'cpreg adjust-weights', 'writes', async ({ ctx }, actor) => {
         const { adjustWeights } = await import('../../register/matching/adjust-weights.ts');
         const result = await adjustWeights(ctx, { actor }, { dryRun: options.dryRun ?? false });
         if (options.json) {

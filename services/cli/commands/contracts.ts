@@ -46,7 +46,7 @@ export default function register(program: Command): void {
       process.on('SIGINT', onSignal);
       const progress = progressReporter('import', 'files');
       try {
-        const summary = await withDatabase(options.db, 'cpreg contracts import', (db) =>
+        const summary = await withDatabase(options.db, 'cpreg contracts import', 'writes', (db) =>
           importContractFiles({
             db,
             target,

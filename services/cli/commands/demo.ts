@@ -1,18 +1,17 @@
 /**
  * `cpreg demo [--db <dir>] [--fresh] [--seed <n>] [--port] [--host] [--no-serve] [--json]` (= `npm start`):
- * builds the invented demo scenario into an embedded database (./data/demo; reused when already built),
+ * builds the invented demo scenario into an embedded database (the directory every command uses: --db, else
+ * DATABASE_URL, else ./data/cpreg; reused when already built, with what a user added since),
  * prints what the register made of it with the accuracy measured against the ground truth, then serves the
  * API with a local admin key until Ctrl-C.
  */
 import { InvalidArgumentError, type Command } from 'commander';
 import { DEFAULT_HOST, parsePort } from './serve.ts';
-
-export const DEMO_DATA_DIR = './data/demo';
 export const DEMO_PORT = 4620;
 export const DEMO_KEY_LABEL = 'demo (local admin)';
 
 export interface DemoCliOptions {
-  db: string;
+  db?: string;
   files?: string;
   fresh?: boolean;
   seed?: number;
@@ -30,9 +29,9 @@ function parseSeed(value: string): number {
 export default function register(program: Command): void {
   program
     .command('demo')
-    .description(`build the invented demo scenario into ${DEMO_DATA_DIR} (or reuse it), print what the register made of it, then serve the API (stop with Ctrl-C)`)
+    .description('build the invented demo scenario into the database every command uses (./data/cpreg unless --db or DATABASE_URL say otherwise; reused when built), print what the register made of it, then serve the API (stop with Ctrl-C)')
     .showHelpAfterError(true)
-    .option('--db <dir>', 'embedded database directory', DEMO_DATA_DIR)
+    .option('--db <dir>', 'embedded database directory (default: $DATABASE_URL when it is a directory, else ./data/cpreg)')
     .option('--files <dir>', "where the scenario's files go (contracts, mentions, vendor master, truth.json; default: <db>-scenario)")
     .option('--fresh', 'delete the demo database and build it again')
     .option('--seed <n>', 'scenario seed (default 1, or the seed the database was built with)', parseSeed)

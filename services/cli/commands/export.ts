@@ -26,7 +26,7 @@ export default function register(program: Command): void {
       const out = options.out ? createWriteStream(options.out) : process.stdout;
       const progress = progressReporter(`export ${kind}`, 'rows');
       let rows = 0;
-      await withDatabase(options.db, 'cpreg export', async (db) => {
+      await withDatabase(options.db, 'cpreg export', 'reads', async (db) => {
         for await (const chunk of exportChunks(db, kind as 'register', options.format as 'csv', (n) => {
           rows += n;
           if (options.out) progress.update({ done: rows });

@@ -32,7 +32,7 @@ export default function register(program: Command): void {
     .showHelpAfterError(true)
     .action(async (idText: string, options: { reason: string; organisation?: boolean; db?: string; json?: boolean }) => {
       if (!/^[1-9]\d{0,15}$/.test(idText)) throw new CliError(`counterparty id "${idText}" is not a positive whole number`);
-      await withRegister(options.db, 'cpreg forget', async ({ ctx }, actor) => {
+      await withRegister(options.db, 'cpreg forget', 'writes', async ({ ctx }, actor) => {
         const { forgetCounterparty } = await import('../../forget/forget.ts');
         const result = await forgetCounterparty(ctx, Number(idText), { actor, reason: options.reason }, { allowOrganisation: options.organisation ?? false });
         if (options.json) process.stdout.write(`${JSON.stringify(result)}\n`);

@@ -20,6 +20,8 @@ interface IngestCliOptions {
   wait: boolean;
 }
 
+const printWarning = (message: string): void => void process.stderr.write(`cpreg ingest: warning: ${message}\n`);
+
 const collect = (value: string, previous: string[]): string[] => [...previous, value];
 
 export default function register(program: Command): void {
@@ -28,7 +30,12 @@ export default function register(program: Command): void {
     .description('ingest mentions from a CSV or NDJSON file (streamed; progress; rejected rows to a rejects file; run again to resume)')
     .argument('<file>', 'a .csv (with a header row) or .ndjson file')
     .requiredOption('--source <name>', 'the source system the rows come from (part of each row identity)')
-    .option('--map <field=column>', 'which column feeds a field (repeat): externalId, text, contract, contractSource, role, country, address, identifiers, source, or an identifier scheme (e.g. lei=LEI)', collect, [])
+    .option(
+      '--map <field=column>',
+      'which column feeds a field (repeat): externalId, text, contract, contractSource, role, country, address, identifiers, taxId and registrationNumber (scheme told per value and country), source, or an identifier scheme (e.g. lei=LEI)',
+      collect,
+      [],
+    )
     .option('--rejects <file>', 'where rejected rows go (default: <file>.rejects.csv)')
     .option('--format <format>', 'csv or ndjson (default: from the file name)')
     .option('--batch-size <n>', 'rows resolved together', '1000')
@@ -71,7 +78,7 @@ export default function register(program: Command): void {
       process.on('SIGINT', onSignal);
       const progress = progressReporter('ingest', 'rows');
       try {
-        const summary = await withDatabase(options.db, 'cpreg ingest', (db) =>
+        const summary = await withDatabase(options.db, 'cpreg ingest', 'writes', (db) =>
           ingestFile({
             db,
             file,
@@ -82,6 +89,7 @@ export default function register(program: Command): void {
             actor: cliActor(),
             batchSize,
             shouldStop: () => stop,
+            onWarning: printWarning,
             onProgress: (p) => progress.update({ done: p.counts.read, fraction: p.totalBytes > 0 ? p.bytesRead / p.totalBytes : undefined, note: p.counts.rejected > 0 ? `${p.counts.rejected} rejected` : undefined }),
           }),
         );
@@ -117,6 +125,6 @@ async function ingestAsJob(file: string, options: Omit<IngestCliOptions, 'format
   const { submitIngestJob } = await import('../../jobs/submit-ingest.ts');
   const { submitAndFollow } = await import('./jobs.ts');
   await submitAndFollow(options.db, 'cpreg ingest', { json: options.json, wait: options.wait, label: 'ingest' }, (deps) =>
-    submitIngestJob(deps, { file, format: options.format, source: options.source, map: options.map, actor: cliActor(), partitionSize: options.partitionSize }),
+    submitIngestJob(deps, { file, format: options.format, source: options.source, map: options.map, actor: cliActor(), partitionSize: options.partitionSize, onWarning: printWarning }),
   );
 }

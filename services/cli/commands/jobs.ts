@@ -59,7 +59,7 @@ export async function submitAndFollow(
   const { startJobs } = await import('../../jobs/start-jobs.ts');
   const url = resolveTarget(target);
   const postgres = isPostgresUrl(url);
-  await withDatabase(target, command, async (db) => {
+  await withDatabase(target, command, 'writes', async (db) => {
     const log = (level: string, fields: Record<string, unknown>, message: string): void => {
       if (level !== 'info') process.stderr.write(`cpreg: ${message} ${String((fields.err as Error | undefined)?.message ?? '')}\n`);
     };
@@ -146,7 +146,7 @@ export default function register(program: Command): void {
       if (!Number.isSafeInteger(jobId) || jobId < 1) throw new CliError(`<id> ${idText}: expected a job id (a whole number)`);
       const { withDatabase } = await import('../../ingest/cli-support.ts');
       const { readJob, partitionTally } = await import('../../../db/queries/jobs.ts');
-      await withDatabase(options.db, 'cpreg jobs show', async (db) => {
+      await withDatabase(options.db, 'cpreg jobs show', 'reads', async (db) => {
         const job = options.watch ? await followJob(db, jobId, `job ${jobId}`) : await readJob(db, jobId);
         if (!job) throw new CliError(`job ${jobId} does not exist`);
         const partitions = await partitionTally(db, jobId);

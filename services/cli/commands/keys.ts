@@ -25,7 +25,7 @@ export default function register(program: Command): void {
         throw new CliError(`--${(error as Error).message}`);
       }
       const { withDatabase } = await import('../../ingest/cli-support.ts');
-      const created = await withDatabase(options.db, 'cpreg keys create', (db) => createApiKey(db, { scope: options.scope as 'read', label: options.label }));
+      const created = await withDatabase(options.db, 'cpreg keys create', 'writes', (db) => createApiKey(db, { scope: options.scope as 'read', label: options.label }));
       if (options.json) {
         process.stdout.write(`${JSON.stringify(created)}\n`);
         return;
@@ -48,7 +48,7 @@ export default function register(program: Command): void {
     .action(async (keyId: string, options: { db?: string; json?: boolean }) => {
       const { revokeApiKey, getApiKey } = await import('../../api/auth/keys.ts');
       const { withDatabase } = await import('../../ingest/cli-support.ts');
-      const key = await withDatabase(options.db, 'cpreg keys revoke', async (db) => ((await getApiKey(db, keyId)) ? revokeApiKey(db, keyId) : undefined));
+      const key = await withDatabase(options.db, 'cpreg keys revoke', 'writes', async (db) => ((await getApiKey(db, keyId)) ? revokeApiKey(db, keyId) : undefined));
       if (!key) throw new CliError(`no API key ${keyId}; cpreg keys list shows the key ids`);
       process.stdout.write(options.json ? `${JSON.stringify(key)}\n` : `key ${key.id} (${key.label}) revoked at ${key.revokedAt}\n`);
     });
@@ -62,7 +62,7 @@ export default function register(program: Command): void {
     .action(async (options: { all?: boolean; db?: string; json?: boolean }) => {
       const { listApiKeys } = await import('../../api/auth/keys.ts');
       const { withDatabase } = await import('../../ingest/cli-support.ts');
-      const list = await withDatabase(options.db, 'cpreg keys list', (db) => listApiKeys(db, { includeRevoked: options.all }));
+      const list = await withDatabase(options.db, 'cpreg keys list', 'reads', (db) => listApiKeys(db, { includeRevoked: options.all }));
       if (options.json) {
         process.stdout.write(`${JSON.stringify(list)}\n`);
         return;

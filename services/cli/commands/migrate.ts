@@ -11,19 +11,9 @@ export default function register(program: Command): void {
     .option('--db <target>', DB_OPTION_HELP)
     .option('--json', 'print the result as JSON')
     .action(async (options: { db?: string; json?: boolean }) => {
-      const { openDatabase } = await import('../../../db/open-database.ts');
+      const { openCommandDatabase } = await import('../open-command-database.ts');
       const { migrateToLatest } = await import('../../../db/migrate.ts');
-      const { DatabaseOpenError } = await import('../../../db/database-errors.ts');
-      const { DatabaseLockedError } = await import('../../../db/lock.ts');
-      let database;
-      try {
-        database = await openDatabase(options.db, { command: 'cpreg migrate' });
-      } catch (error) {
-        if (error instanceof DatabaseOpenError || error instanceof DatabaseLockedError) {
-          throw new CliError(error.message, 1, { cause: error });
-        }
-        throw error;
-      }
+      const database = await openCommandDatabase(options.db, 'cpreg migrate', { writes: true, migrate: false });
       try {
         const report = await migrateToLatest(database.db);
         if (options.json) {

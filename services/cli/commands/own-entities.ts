@@ -6,30 +6,31 @@ import type { Command } from 'commander';
 import { CliError } from '../cli-error.ts';
 import { DB_OPTION_HELP } from './serve.ts';
 
-import type { openRegister } from '../../register/open-register.ts';
+import type { OpenedDatabase } from '../../../db/open-database.ts';
+import type { RegisterContext } from '../../register/context.ts';
 
-type Opened = Awaited<ReturnType<typeof openRegister>>;
+interface Opened {
+  ctx: RegisterContext;
+  database: OpenedDatabase;
+}
 
-/** Opens the register, runs `fn`, closes; database and register errors become one-line CLI errors. */
-export async function withRegister<T>(db: string | undefined, command: string, fn: (opened: Opened, actor: string) => Promise<T>): Promise<T> {
-  const { openRegister, cliActor } = await import('../../register/open-register.ts');
+/**
+ * Opens the register (services/cli/open-command-database.ts says which database, and whether it may be created),
+ * runs `fn`, closes; register errors become one-line CLI errors.
+ */
+export async function withRegister<T>(db: string | undefined, command: string, access: 'reads' | 'writes', fn: (opened: Opened, actor: string) => Promise<T>): Promise<T> {
+  const { cliActor } = await import('../../register/open-register.ts');
+  const { createRegisterContext } = await import('../../register/context.ts');
   const { RegisterError } = await import('../../register/errors.ts');
-  const { DatabaseOpenError } = await import('../../../db/database-errors.ts');
-  const { DatabaseLockedError } = await import('../../../db/lock.ts');
-  let opened: Opened;
+  const { openCommandDatabase } = await import('../open-command-database.ts');
+  const database = await openCommandDatabase(db, command, { writes: access === 'writes' });
   try {
-    opened = await openRegister(db, command);
-  } catch (error) {
-    if (error instanceof DatabaseOpenError || error instanceof DatabaseLockedError) throw new CliError(error.message, 1, { cause: error });
-    throw error;
-  }
-  try {
-    return await fn(opened, cliActor());
+    return await fn({ ctx: createRegisterContext(database.db), database }, cliActor());
   } catch (error) {
     if (error instanceof RegisterError) throw new CliError(error.message, 1, { cause: error });
     throw error;
   } finally {
-    await opened.database.close();
+    await database.close();
   }
 }
 
@@ -61,7 +62,7 @@ export default function register(program: Command): void {
         if (at <= 0) throw new CliError(`--identifier "${pair}": write it as scheme=value, e.g. lei=...`);
         return { scheme: pair.slice(0, at), value: pair.slice(at + 1) };
       });
-      await withRegister(options.db, 'cpreg own-entities add', async ({ ctx }, actor) => {
+      await withRegister(options.db, 'cpreg own-entities add', 'writes', async ({ ctx }, actor) => {
         const { addOwnEntity } = await import('../../register/own-entities.ts');
         const result = await addOwnEntity(ctx, { name, ...(options.country ? { country: options.country } : {}), identifiers }, { actor, ...(options.reason ? { reason: options.reason } : {}) });
         print(options.json, result, result.created ? `added own entity ${result.ownEntityId}: ${name}` : `already listed as own entity ${result.ownEntityId}: ${name}`);
@@ -76,9 +77,11 @@ export default function register(program: Command): void {
     .option('--json', 'print the result as JSON')
     .showHelpAfterError(true)
     .action(async (options: { all?: boolean; db?: string; json?: boolean }) => {
-      await withRegister(options.db, 'cpreg own-entities list', async ({ ctx }) => {
-        const { ownEntities } = await import('../../register/own-entities.ts');
-        const list = await ownEntities(ctx, { includeRemoved: options.all === true });
+      // Reads one table: the query module alone, without loading the register (a second of imports).
+      const { withDatabase } = await import('../../ingest/cli-support.ts');
+      await withDatabase(options.db, 'cpreg own-entities list', 'reads', async (db) => {
+        const { listOwnEntities } = await import('../../../db/queries/own-entities.ts');
+        const list = await listOwnEntities(db, { includeRemoved: options.all === true });
         const lines = list.length === 0 ? 'no own entities listed (add one with: cpreg own-entities add "<name>")' : list.map((o) => `${o.id}\t${o.name}${o.country ? `\t${o.country}` : ''}${o.removedAt ? '\t(removed)' : ''}`).join('\n');
         print(options.json, list, lines);
       });
@@ -94,7 +97,7 @@ export default function register(program: Command): void {
     .showHelpAfterError(true)
     .action(async (idText: string, options: { reason?: string; db?: string; json?: boolean }) => {
       const id = parseId(idText);
-      await withRegister(options.db, 'cpreg own-entities remove', async ({ ctx }, actor) => {
+      await withRegister(options.db, 'cpreg own-entities remove', 'writes', async ({ ctx }, actor) => {
         const { removeOwnEntity } = await import('../../register/own-entities.ts');
         const result = await removeOwnEntity(ctx, id, { actor, ...(options.reason ? { reason: options.reason } : {}) });
         print(options.json, { ownEntityId: id, ...result }, result.eventId === null ? `own entity ${id} was already removed` : `removed own entity ${id}`);

@@ -15,7 +15,7 @@ export default function register(program: Command): void {
     .option('--json', 'print the summary as JSON')
     .showHelpAfterError(true)
     .action(async (options: { reason?: string; db?: string; json?: boolean }) => {
-      await withRegister(options.db, 'cpreg reresolve', async ({ ctx }, actor) => {
+      await withRegister(options.db, 'cpreg reresolve', 'writes', async ({ ctx }, actor) => {
         const { reresolve } = await import('../../register/reresolve.ts');
         const tty = process.stderr.isTTY && !options.json;
         const summary = await reresolve(ctx, { actor, reason: options.reason ?? 'reresolve' }, {

@@ -30,7 +30,7 @@ export default function register(program: Command): void {
         await submitAndFollow(options.db, 'cpreg sweep', { json: options.json, wait: options.wait, label: 'sweep' }, (deps) => submitSweepJob(deps, { actor: cliActor(), partitionSize }));
         return;
       }
-      await withRegister(options.db, 'cpreg sweep', async ({ ctx }, actor) => {
+      await withRegister(options.db, 'cpreg sweep', 'writes', async ({ ctx }, actor) => {
         const { sweep } = await import('../../register/sweep.ts');
         const { countOf } = await import('../../ingest/cli-support.ts');
         const tty = process.stderr.isTTY && !options.json;

@@ -18,17 +18,10 @@ export default function register(program: Command): void {
     .action(async (options: { db?: string; json?: boolean; replay: boolean; limit: string }) => {
       const limit = Number(options.limit);
       if (!Number.isInteger(limit) || limit < 0 || limit > 1_000_000) throw new CliError(`--limit "${options.limit}" must be a whole number from 0 to 1000000`);
-      const { openDatabase } = await import('../../../db/open-database.ts');
-      const { DatabaseOpenError } = await import('../../../db/database-errors.ts');
-      const { DatabaseLockedError } = await import('../../../db/lock.ts');
+      const { openCommandDatabase } = await import('../open-command-database.ts');
       const { verifyRegister, formatVerifyReport } = await import('../../verify/verify.ts');
-      let opened;
-      try {
-        opened = await openDatabase(options.db, { command: 'cpreg verify' });
-      } catch (error) {
-        if (error instanceof DatabaseOpenError || error instanceof DatabaseLockedError) throw new CliError(error.message, 1, { cause: error });
-        throw error;
-      }
+      // Read-only: refuses a directory without a database, and checks the schema as it is (no migration).
+      const opened = await openCommandDatabase(options.db, 'cpreg verify', { writes: false, migrate: false });
       try {
         const report = await verifyRegister(opened.db, { replay: options.replay, listLimit: limit });
         process.stdout.write(options.json ? `${JSON.stringify(report)}\n` : `${formatVerifyReport(report)}\n`);

@@ -24,28 +24,20 @@ export default function register(program: Command): void {
     .showHelpAfterError(true)
     .action(async (options: WorkerCliOptions) => {
       if (options.concurrency < 1) throw new CliError('--concurrency: expected at least 1');
-      const { resolveTarget, isPostgresUrl, openDatabase } = await import('../../../db/open-database.ts');
-      const { migrateToLatest } = await import('../../../db/migrate.ts');
-      const { DatabaseOpenError } = await import('../../../db/database-errors.ts');
+      const { resolveTarget, isPostgresUrl } = await import('../../../db/open-database.ts');
       const { startJobs } = await import('../../jobs/start-jobs.ts');
       const target = resolveTarget(options.db);
       if (!isPostgresUrl(target)) {
         throw new CliError('cpreg worker needs PostgreSQL (--db postgres://… or DATABASE_URL): the embedded database runs its jobs inside `cpreg serve` or the command that submits them');
       }
-      let database;
-      try {
-        database = await openDatabase(target, { command: 'cpreg worker', onMessage: (line) => process.stderr.write(`cpreg: ${line}\n`) });
-      } catch (error) {
-        if (error instanceof DatabaseOpenError) throw new CliError(error.message, 1, { cause: error });
-        throw error;
-      }
+      const { openCommandDatabase } = await import('../open-command-database.ts');
+      const database = await openCommandDatabase(options.db, 'cpreg worker', { writes: true });
       const say = (line: string): void => void process.stderr.write(`${line}\n`);
       const log = (level: 'info' | 'warn' | 'error', fields: Record<string, unknown>, message: string): void => {
         const err = fields.err as Error | undefined;
         if (options.json) process.stdout.write(`${JSON.stringify({ time: new Date().toISOString(), level, message, ...fields, ...(err ? { err: err.message } : {}) })}\n`);
         else say(`cpreg worker: ${message} ${Object.entries(fields).map(([k, v]) => `${k}=${k === 'err' ? (v as Error).message : JSON.stringify(v)}`).join(' ')}`);
       };
-      await migrateToLatest(database.db);
       const jobs = await startJobs({ db: database.db, backend: database.backend, url: target, work: true, concurrency: options.concurrency, log });
       say(`cpreg: worker ${jobs.deps.worker} taking jobs from ${database.description} (${options.concurrency} at once; stop with Ctrl-C)`);
       await new Promise<void>((resolve) => {

@@ -2,6 +2,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { FastifyInstance } from 'fastify';
 import { buildApp } from '../../../services/api/app.ts';
 import { isOpenRoute, OPEN_ROUTES } from '../../../services/api/open-routes.ts';
+import { ERROR_CATALOGUE } from '../../../services/api/errors.ts';
+import { renderCatalogue } from '../../../services/api/errors-page.ts';
 import { openTestDatabase, type TestDatabase } from '../../support/database.ts';
 
 /** Every $ref in the document, to check that each resolves inside it. */
@@ -62,11 +64,31 @@ describe('the API description', () => {
     expect(script).toBeDefined();
     expect(() => new Function(script!)).not.toThrow();
   });
+
+  it('/docs links to the error catalogue the service serves itself, one section per code, without a key (issue 19 item 4)', async () => {
+    const docs = await app.inject({ method: 'GET', url: '/docs' });
+    expect(docs.body).toContain('<a href="/docs/errors">');
+    const page = await app.inject({ method: 'GET', url: '/docs/errors' });
+    expect(page.statusCode).toBe(200);
+    expect(page.headers['content-type']).toBe('text/html; charset=utf-8');
+    for (const code of Object.keys(ERROR_CATALOGUE)) expect(page.body, code).toContain(`<h2 id="${code}">${code}</h2>`);
+    expect((app.swagger() as { info: { description: string } }).info.description).toContain('/docs/errors');
+  });
+});
+
+describe('the error catalogue page', () => {
+  it('renders headings, lists, code and paragraphs, and escapes everything else', () => {
+    const html = renderCatalogue('# Errors\n\nText with `<b>` and <i>.\n\n- one\n  more\n- two\n\n```json\n{"a": "<x>"}\n```\n\n## NOT_FOUND\n\nStatus 404.');
+    expect(html).toBe(
+      '<h1>Errors</h1>\n<p>Text with <code>&lt;b&gt;</code> and &lt;i&gt;.</p>\n<ul><li>one more</li><li>two</li></ul>\n' +
+        '<pre>{&quot;a&quot;: &quot;&lt;x&gt;&quot;}</pre>\n<h2 id="NOT_FOUND">NOT_FOUND</h2>\n<p>Status 404.</p>',
+    );
+  });
 });
 
 describe('open routes', () => {
-  it('are exactly the health check, the API description and the console', () => {
-    expect(OPEN_ROUTES).toEqual(['/healthz', '/openapi.json', '/docs', '/console', '/console/*']);
+  it('are exactly the health check, the API description, its error catalogue and the console', () => {
+    expect(OPEN_ROUTES).toEqual(['/healthz', '/openapi.json', '/docs', '/docs/errors', '/console', '/console/*']);
     expect(isOpenRoute('/healthz')).toBe(true);
     expect(isOpenRoute('/docs?x=1')).toBe(true);
     expect(isOpenRoute('/console/app.js')).toBe(true);

@@ -41,6 +41,22 @@ describeEachBackend('/v1 counterparties', (ctx) => {
     expect(after.json().canonicalName).toBe('Quillmere Logistik GmbH');
   });
 
+  it('takes back the field names GET answers: canonicalName renames (issue 19 item 4); name still works, both at once is refused', async () => {
+    const { id } = await create('Vellacourt Instruments GmbH', { jurisdiction: 'DE' });
+    const got = await k.call('read', { method: 'GET', url: `/v1/counterparties/${id}` });
+    const body = got.json() as { canonicalName: string; etag: string };
+    const renamed = await k.call('admin', { method: 'PATCH', url: `/v1/counterparties/${id}`, headers: { 'if-match': body.etag }, payload: { canonicalName: 'Vellacourt Instrumente GmbH', reason: 'register spelling' } });
+    expect(renamed.statusCode, renamed.body).toBe(200);
+    expect(renamed.json().canonicalName).toBe('Vellacourt Instrumente GmbH');
+    const both = await k.call('admin', { method: 'PATCH', url: `/v1/counterparties/${id}`, headers: { 'if-match': renamed.headers.etag as string }, payload: { canonicalName: 'A GmbH', name: 'B GmbH' } });
+    expect(both.statusCode).toBe(422);
+    expect(both.json().errors).toEqual([{ pointer: '/name', message: 'give either canonicalName or name, not both' }]);
+    const empty = await k.call('admin', { method: 'PATCH', url: `/v1/counterparties/${id}`, headers: { 'if-match': renamed.headers.etag as string }, payload: { canonicalName: '' } });
+    expect(empty.statusCode).toBe(422);
+    expect(empty.body).toContain('canonicalName');
+    expect((await k.call('read', { method: 'GET', url: `/v1/counterparties/${id}` })).json().canonicalName).toBe('Vellacourt Instrumente GmbH');
+  });
+
   it('merges with ETags, answers 308 for the merged id, and undoes the merge', async () => {
     const a = await create('Tarnwell Optics Ltd', { jurisdiction: 'GB' });
     const b = await create('Tarnwell Optics Limited', { jurisdiction: 'GB' });

@@ -213,6 +213,14 @@ describe('cpreg demo (child process)', () => {
     expect((await me.json()).scope).toBe('admin');
     const first = await fetch(`${listening.url}/v1/counterparties/${summary.busiest[0]!.id}`, { headers: { authorization: `Bearer ${listening.apiKey}` } });
     expect(first.status).toBe(200);
+    // Normal use (issue 19 item 1): a contract system posts its own contract with the source the API reference's
+    // example uses, the same source the demo's contracts carry. Invented names.
+    const posted = await fetch(`${listening.url}/v1/contracts`, {
+      method: 'POST',
+      headers: { authorization: `Bearer ${listening.apiKey}`, 'content-type': 'application/json' },
+      body: JSON.stringify({ source: 'clm', externalId: 'C-2031', title: 'Supply Agreement', text: 'This Supply Agreement is made between Quillmere Fabrication, Inc. ("Supplier") and Orvane Trading B.V. ("Buyer").' }),
+    });
+    expect(posted.status, await posted.clone().text()).toBeLessThan(300);
 
     child.kill('SIGINT');
     const { code, signal } = await Promise.race([
@@ -228,7 +236,19 @@ describe('cpreg demo (child process)', () => {
     const keys = await runCli(['keys', 'list', '--db', dbDir, '--json'], { timeoutMs: 120_000 });
     expect(keys.code).toBe(0);
     expect((JSON.parse(keys.stdout) as Array<{ label: string; scope: string }>).some((k) => k.label === 'demo (local admin)' && k.scope === 'admin')).toBe(true);
-  }, 10 * 60_000);
+
+    // The next start reuses the demo with the user's contract in it, and says what was added since it was built.
+    const again = await runCli(['demo', '--db', dbDir, '--no-serve', '--json'], { timeoutMs: 10 * 60_000 });
+    expect(again.code, again.stderr).toBe(0);
+    expect(again.stderr).toContain('reusing the demo database');
+    expect(again.stderr).toMatch(/added since it was built \([^)]*\): 1 contract, \d+ mentions? \(source contract:clm\)/);
+    expect(again.stderr).not.toContain('another scenario');
+    expect(JSON.parse(again.stdout.trim()).seed).toBe(1);
+    // "Another scenario" is said only when it is true: another seed is refused, naming the seed the demo was built from.
+    const other = await runCli(['demo', '--db', dbDir, '--seed', '2', '--no-serve'], { timeoutMs: 10 * 60_000 });
+    expect(other.code).toBe(1);
+    expect(other.stderr).toContain('holds the demo built from seed 1, not from seed 2');
+  }, 20 * 60_000);
 });
 
 describe('cpreg demo interrupted while building', () => {

@@ -1,6 +1,8 @@
 /** Contracts (post: write; read: read), review items (list: read; decide: admin) and the score statistics. */
 import { sql } from 'kysely';
 import { storeContract, type ContractInput } from '../../../register/contracts.ts';
+import { applyGivenParties, type GivenParty } from '../../../register/contract-given-parties.ts';
+import { normaliseIdentifierOrThrow } from '../../../register/records.ts';
 import { decideReview, detailsOf, listReviewItems, type ReviewDecisionInput } from '../../../register/review.ts';
 import { getReviewItem } from '../../../../db/queries/review.ts';
 import { decideReviewGroup, listRankedReviewItems } from '../../../register/review-queue.ts';
@@ -8,7 +10,7 @@ import { currentModel } from '../../../register/matching/model.ts';
 import { findContractId, getContract } from '../../../../db/queries/contracts.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import type { RoutePlugin } from '../../types.ts';
-import { ID, ID_PARAM, MENTION_OUT, PAGE_QUERY, REASON, SOURCE_ID, actorOf, decodeCursor, encodeCursor, page, pagedOf, v1Scope } from './common.ts';
+import { ID, ID_PARAM, IDENTIFIER, MENTION_OUT, NAME, PAGE_QUERY, REASON, SOURCE_ID, actorOf, decodeCursor, encodeCursor, page, pagedOf, v1Scope } from './common.ts';
 import { RESOLVE_OUT } from './mentions.ts';
 import { withLegalForm } from './legal-form.ts';
 
@@ -103,20 +105,37 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
   const ctx = v1Scope(app, deps);
   const db = deps.db;
 
-  app.post<{ Body: ContractInput }>(
+  app.post<{ Body: ContractInput & { parties?: GivenParty[] } }>(
     '/v1/contracts',
     {
       config: { scope: 'write' },
       bodyLimit: CONTRACT_BODY_LIMIT,
       schema: {
         summary: 'Store a contract, find its parties and defined terms, and resolve each party into the register',
-        description: 'Body up to 1 MB. The same (source, externalId) with the same text answers the stored contract (alreadyStored). Mentions that named this contract before it arrived are resolved again (reresolved).',
+        description:
+          'Body up to 1 MB. The same (source, externalId) with the same text answers the stored contract (alreadyStored). Mentions that named this contract before it arrived are resolved again (reresolved). ' +
+          '`parties` (optional): the parties the contract system already knows. They are reconciled with the parties read from the text (`reconciliation`: which given party is which, given parties the text does not name, parties of the text not given, roles and defined terms that differ); the identifiers given for a party the text names are added to its mention, which is resolved again (`identifiersAdded`). The text stays the source of the contract\'s parties: a given party it does not name is reported, not added.',
         tags: ['contracts'],
         body: {
           type: 'object',
           required: ['source', 'externalId', 'text'],
           additionalProperties: false,
-          properties: { source: SOURCE_ID, externalId: SOURCE_ID, title: { type: 'string', maxLength: 1000 }, text: { type: 'string', minLength: 1, maxLength: MAX_CONTRACT_TEXT } },
+          properties: {
+            source: SOURCE_ID,
+            externalId: SOURCE_ID,
+            title: { type: 'string', maxLength: 1000 },
+            text: { type: 'string', minLength: 1, maxLength: MAX_CONTRACT_TEXT },
+            parties: {
+              type: 'array',
+              maxItems: 50,
+              items: {
+                type: 'object',
+                required: ['name'],
+                additionalProperties: false,
+                properties: { name: NAME, role: { type: 'string', minLength: 1, maxLength: 300 }, definedTerm: { type: 'string', minLength: 1, maxLength: 300 }, identifiers: { type: 'array', maxItems: 50, items: IDENTIFIER } },
+              },
+            },
+          },
           example: { source: 'clm', externalId: 'C-2031', title: 'Supply Agreement', text: 'This Supply Agreement is made between Brackenridge Fabrication, Inc. ("Supplier") and Orvane Trading B.V. ("Buyer")…' },
         },
         response: {
@@ -128,12 +147,33 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
               parties: { type: 'array', items: { type: 'object', properties: { ...RESOLVE_OUT.properties, position: { type: 'integer' }, role: { type: 'string', nullable: true }, terms: { type: 'array', items: { type: 'string' } } } } },
               reresolved: { type: 'array', items: RESOLVE_OUT },
               contract: CONTRACT_OUT,
+              reconciliation: {
+                type: 'object',
+                description: 'only when parties were given',
+                properties: {
+                  matched: { type: 'array', items: { type: 'object', properties: { given: { type: 'integer' }, position: { type: 'integer' } } } },
+                  givenNotInText: { type: 'array', items: { type: 'integer' } },
+                  parsedNotGiven: { type: 'array', items: { type: 'integer' } },
+                  disagreements: {
+                    type: 'array',
+                    items: { type: 'object', properties: { given: { type: 'integer' }, position: { type: 'integer' }, field: { type: 'string', enum: ['role', 'definedTerm'] }, givenValue: { type: 'string' }, parsedValue: { type: 'string', nullable: true } } },
+                  },
+                },
+              },
+              identifiersAdded: { type: 'array', items: { type: 'object', properties: { ...RESOLVE_OUT.properties, position: { type: 'integer' } } } },
             },
           },
         },
       },
     },
-    async (request) => storeContract(ctx, request.body, actorOf(request)),
+    async (request) => {
+      const { parties: given, ...input } = request.body;
+      // Every given identifier is checked before anything is stored.
+      (given ?? []).forEach((g, i) => (g.identifiers ?? []).forEach((x, j) => normaliseIdentifierOrThrow(`parties/${i}/identifiers/${j}`, x)));
+      const stored = await storeContract(ctx, input, actorOf(request));
+      if (!given) return stored;
+      return { ...stored, ...(await applyGivenParties(ctx, stored, given, actorOf(request))) };
+    },
   );
 
   app.get<{ Querystring: { q?: string; source?: string; externalId?: string; cursor?: string; limit: number } }>(

@@ -218,7 +218,8 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
           additionalProperties: false,
           minProperties: 1,
           properties: {
-            name: { ...NAME, description: 'the new canonical name (confirmed: the rules keep it)' },
+            canonicalName: { ...NAME, description: 'the new canonical name, the field GET answers (confirmed: the rules keep it)' },
+            name: { ...NAME, deprecated: true, description: 'the earlier name of canonicalName, still accepted; send one of the two' },
             jurisdiction: { ...COUNTRY, nullable: true, description: 'ISO 3166-1 alpha-2 or ISO 3166-2 code; null clears it. Identifiers added in the same request are read under it.' },
             addNames: { type: 'array', maxItems: 100, items: { type: 'object', required: ['name', 'kind'], additionalProperties: false, properties: { name: NAME, kind: { type: 'string', enum: [...NAME_KINDS] } } } },
             removeNameIds: { type: 'array', maxItems: 100, items: ID },
@@ -226,7 +227,7 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
             removeIdentifierIds: { type: 'array', maxItems: 100, items: ID },
             reason: REASON,
           },
-          example: { name: 'Brackenridge Fabrication, Inc.', jurisdiction: 'US-DE', addNames: [{ name: 'Brackenridge Fab', kind: 'trade' }], reason: 'trade name from the invoice' },
+          example: { canonicalName: 'Brackenridge Fabrication, Inc.', jurisdiction: 'US-DE', addNames: [{ name: 'Brackenridge Fab', kind: 'trade' }], reason: 'trade name from the invoice' },
         },
         response: { 200: COUNTERPARTY_OUT, ...problemResponses(404, 409, 412, 428) },
       },
@@ -237,7 +238,11 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
       const body = request.body;
       const who = actorOf(request, body.reason);
       // Check every field first, so that a bad field stops the request before anything is written.
-      if (body.name !== undefined) checkName('name', body.name);
+      if (body.name !== undefined && body.canonicalName !== undefined) {
+        throw new ApiError('VALIDATION_FAILED', 'send canonicalName only (name is its earlier spelling)', { errors: [{ pointer: '/name', message: 'give either canonicalName or name, not both' }] });
+      }
+      const newName = body.canonicalName ?? body.name;
+      if (newName !== undefined) checkName(body.canonicalName !== undefined ? 'canonicalName' : 'name', newName);
       const jurisdiction = body.jurisdiction === undefined ? undefined : checkJurisdiction('jurisdiction', body.jurisdiction);
       (body.addNames ?? []).forEach((n, i) => checkName(`addNames/${i}/name`, n.name));
       const current = await getCounterparty(ctx, id);
@@ -250,7 +255,7 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
         if (!current.counterparty.identifiers.some((n) => n.id === identifierId)) throw new ApiError('VALIDATION_FAILED', `identifier ${identifierId} is not an identifier of counterparty ${id}`, { errors: [{ pointer: '/removeIdentifierIds', message: `identifier ${identifierId} is not an identifier of counterparty ${id}` }] });
       }
       let version = expected;
-      if (body.name !== undefined) version = (await renameCounterparty(ctx, id, { name: body.name, expectedVersion: version }, who)).version;
+      if (newName !== undefined) version = (await renameCounterparty(ctx, id, { name: newName, expectedVersion: version }, who)).version;
       if (jurisdiction !== undefined) version = (await setJurisdiction(ctx, id, { jurisdiction, expectedVersion: version }, who)).version;
       for (const n of body.addNames ?? []) version = (await addName(ctx, id, { ...n, expectedVersion: version }, who)).version;
       for (const x of body.addIdentifiers ?? []) version = (await addIdentifier(ctx, id, { ...x, expectedVersion: version }, who)).version;
@@ -505,6 +510,8 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
 };
 
 interface PatchBody {
+  canonicalName?: string;
+  /** The earlier spelling of canonicalName. */
   name?: string;
   jurisdiction?: string | null;
   addNames?: { name: string; kind: (typeof NAME_KINDS)[number] }[];

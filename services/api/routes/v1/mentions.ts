@@ -10,6 +10,7 @@ import type { MentionInput } from '../../../../resolvers/vocabulary.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import type { RoutePlugin } from '../../types.ts';
 import { bodyText } from '../../body/strict-json.ts';
+import { bodyValidator, compileBodySchema, type RuleError } from '../../validation.ts';
 import { COUNTRY, IDENTIFIER, NAME, SOURCE_ID, actorOf, registerContextOf, toApiError } from './common.ts';
 
 export const MAX_BATCH_ITEMS = 10_000;
@@ -52,14 +53,39 @@ export const RESOLVE_OUT = {
   example: { mentionId: 311, source: 'clm', externalId: 'C-2031/p2', status: 'linked', counterpartyId: 42, canonicalName: 'Brackenridge Fabrication, Inc.', ownEntityId: null, score: 14.2, explanation: { summary: 'same core name and legal form' }, reviewItemId: null, alreadyIngested: false, eventId: 120 },
 } as const;
 
+const RULE_ERROR = { type: 'object', properties: { pointer: { type: 'string' }, message: { type: 'string' }, rule: { type: 'string' } } } as const;
+
 const BATCH_ITEM_OUT = {
   type: 'object',
   properties: {
     ...RESOLVE_OUT.properties,
-    index: { type: 'integer' },
-    error: { type: 'object', properties: { code: { type: 'string' }, message: { type: 'string' }, field: { type: 'string' } } },
+    index: { type: 'integer', description: 'the item\'s place in the request, from 0' },
+    error: {
+      type: 'object',
+      description: 'why the item was not taken: VALIDATION_FAILED (the item breaks the mention schema: field is its first JSON pointer inside the item, rule the schema rule, errors every one) or the register\'s own refusal',
+      properties: { code: { type: 'string' }, message: { type: 'string' }, field: { type: 'string' }, rule: { type: 'string' }, errors: { type: 'array', items: RULE_ERROR } },
+    },
   },
 } as const;
+
+const checkMention = bodyValidator(MENTION_IN);
+
+/** An item that breaks the mention schema, answered in its place with its own problem; the rest of the batch goes on. */
+function refusedItem(index: number, item: unknown, errors: RuleError[]) {
+  const first = errors[0]!;
+  const object = typeof item === 'object' && item !== null && !Array.isArray(item) ? (item as Record<string, unknown>) : {};
+  const text = (key: string): string | undefined => (typeof object[key] === 'string' ? (object[key] as string) : undefined);
+  return {
+    index,
+    ...(text('source') !== undefined ? { source: text('source') } : {}),
+    ...(text('externalId') !== undefined ? { externalId: text('externalId') } : {}),
+    status: 'rejected' as const,
+    error: { code: 'VALIDATION_FAILED', message: `item ${index}: ${errors.map((e) => `${e.pointer || '(the item)'} ${e.message}`).join('; ')}`, field: first.pointer, rule: first.rule, errors },
+  };
+}
+
+/** The batch body's own check: an array (of anything; the items are checked one by one). */
+const checkArray = compileBodySchema({ type: 'array' });
 
 function tooLarge(detail: string, extensions: Record<string, unknown>): ApiError {
   return new ApiError('BATCH_TOO_LARGE', detail, { extensions: { ...extensions, jobRoute: '/v1/jobs/ingest' } });
@@ -135,9 +161,11 @@ export const mentionRoutes: RoutePlugin = (app, deps) => {
       schema: {
         summary: 'Resolve up to 10,000 mentions together (JSON array or NDJSON); results in input order',
         description:
-          'Content-Type application/json (an array) or application/x-ndjson (one mention per line). At most 10,000 items and 10 MB; a larger batch answers 413 BATCH_TOO_LARGE / PAYLOAD_TOO_LARGE naming the limit and POST /v1/jobs/ingest. The batch is clustered together with the register, so the outcome does not depend on the order of the items. A malformed item fails the whole request (422 with its pointer, nothing stored); an item the register refuses (e.g. a bad check digit) answers status `rejected` with its error in place.',
+          'Content-Type application/json (an array) or application/x-ndjson (one mention per line). At most 10,000 items and 10 MB; a larger batch answers 413 BATCH_TOO_LARGE / PAYLOAD_TOO_LARGE naming the limit and POST /v1/jobs/ingest. The batch is clustered together with the register, so the outcome does not depend on the order of the items. Every item is answered in its place: the valid ones are taken; one that breaks the mention schema (an empty text, a missing field) or that the register refuses (e.g. a bad check digit) answers status `rejected` with its own error (index, field, rule) and nothing of it is stored. With an Idempotency-Key the batch is one request: a retry answers the first answer whole.',
         tags: ['mentions'],
         body: { type: 'array', items: MENTION_IN, description: `at most ${MAX_BATCH_ITEMS} items` },
+        // (The items are documented with the mention schema but checked one by one in the handler, so that one bad
+        // item answers its own problem instead of refusing the batch: see validatorCompiler below.)
         response: {
           200: {
             type: 'object',
@@ -146,6 +174,8 @@ export const mentionRoutes: RoutePlugin = (app, deps) => {
           ...problemResponses(413),
         },
       },
+      // The body must be an array; its items are checked one by one in the handler (per-item problems).
+      validatorCompiler: ({ httpPart }) => (httpPart === 'body' ? checkArray : () => true),
       preValidation: async (request) => {
         if (Array.isArray(request.body) && request.body.length > MAX_BATCH_ITEMS) {
           throw tooLarge(`the batch has ${request.body.length} items, more than the limit of ${MAX_BATCH_ITEMS}; send it to POST /v1/jobs/ingest (NDJSON, any size)`, { limit: MAX_BATCH_ITEMS, items: request.body.length });
@@ -153,14 +183,22 @@ export const mentionRoutes: RoutePlugin = (app, deps) => {
       },
     },
     async (request) => {
-      const results = await resolveBatch(ctx, request.body, actorOf(request));
-      const counts: Record<string, number> = {};
-      const items = results.map((r, index) => {
-        const key = r.status === 'rejected' ? 'rejected' : r.alreadyIngested ? 'already_ingested' : r.status;
-        counts[key] = (counts[key] ?? 0) + 1;
-        return { index, ...r };
+      const body = request.body as unknown[];
+      const taken: { index: number; mention: MentionInput }[] = [];
+      const answers: Array<Record<string, unknown> & { index: number; status: string; alreadyIngested?: boolean }> = new Array(body.length);
+      body.forEach((item, index) => {
+        const errors = checkMention(item);
+        if (errors.length === 0) taken.push({ index, mention: item as MentionInput });
+        else answers[index] = refusedItem(index, item, errors);
       });
-      return { items, counts };
+      const results = taken.length === 0 ? [] : await resolveBatch(ctx, taken.map((t) => t.mention), actorOf(request));
+      results.forEach((r, i) => (answers[taken[i]!.index] = { index: taken[i]!.index, ...r }));
+      const counts: Record<string, number> = {};
+      for (const a of answers) {
+        const key = a.status === 'rejected' ? 'rejected' : a.alreadyIngested ? 'already_ingested' : a.status;
+        counts[key] = (counts[key] ?? 0) + 1;
+      }
+      return { items: answers, counts };
     },
   );
 };
