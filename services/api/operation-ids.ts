@@ -45,6 +45,7 @@ export const OPERATION_IDS: Readonly<Record<string, string>> = {
   'GET /v1/stats/scores': 'readScoreDistribution',
   'GET /v1/exports/{kind}': 'exportRecords',
   'POST /v1/jobs/ingest': 'submitIngestJob',
+  'POST /v1/jobs/contracts': 'submitContractsImportJob',
   'POST /v1/jobs/sweep': 'submitSweepJob',
   'POST /v1/jobs/reresolve': 'submitReresolveJob',
   'GET /v1/jobs/{id}': 'readJob',
