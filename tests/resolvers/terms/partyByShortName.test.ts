@@ -21,3 +21,18 @@ describe('partyByShortName through resolveInContract', () => {
     expect(resolveInContract(parsed, 'Hanardham Freight').party).toBeUndefined();
   });
 });
+
+describe('partyByShortName: a dropped middle word, the party\'s own legal form', () => {
+  const deal = 'This Supply Agreement is made on 3 March 2025 between Orvanel Holdings plc, a company incorporated in England and Wales ("Buyer"), and Indfenmore Rail Components K.K., a company incorporated in Japan ("Supplier").';
+  it('keeps the first word and drops a middle one', () => {
+    const parsed = parseParties(deal, { ownEntities: ['Orvanel Holdings plc'] });
+    expect(resolveInContract(parsed, 'INDFENMORE COMPONENTS K.K.').party?.name).toBe('Indfenmore Rail Components K.K.');
+    expect(resolveInContract(parsed, 'Indfenmore K.K.').party?.name).toBe('Indfenmore Rail Components K.K.');
+  });
+  it('a legal form of another family decides nothing (as often another company of the group)', () => {
+    const parsed = parseParties(deal, { ownEntities: ['Orvanel Holdings plc'] });
+    expect(resolveInContract(parsed, 'Orvanel Ltd').party).toBeUndefined();
+    expect(resolveInContract(parsed, 'Indfenmore GmbH').party).toBeUndefined();
+    expect(resolveInContract(parsed, 'Components Indfenmore K.K.').party).toBeUndefined();
+  });
+});
