@@ -7,6 +7,7 @@
  * another company of the group) decides nothing.
  */
 import type { NameAnalysis } from '../analyse/types.ts';
+import { compareAcronym } from '../compare/index.ts';
 import { analyseCached } from './analyseCached.ts';
 import type { ContractParty } from './types.ts';
 
@@ -41,4 +42,29 @@ function shortens(short: readonly string[], full: readonly string[]): boolean {
 function sameFormOrNone(mention: NameAnalysis, party: NameAnalysis): boolean {
   if (mention.legalForm === null) return true;
   return party.legalForm !== null && party.legalForm.family === mention.legalForm.family;
+}
+
+/** Letters of an acronym that may stand for a party: two to five ("KC", "MFP"). */
+const ACRONYM_LETTERS = /^\p{L}{2,5}$/u;
+
+/**
+ * The party whose initials a one-word mention is, inside one contract: "KC AB" for "Kelnatette Ceramics AB",
+ * "MFP, Inc." for "Melselico Fire Protection Inc" (resolvers/compare/compareAcronym). The same guards as a short
+ * name: the party's own legal form or none, and exactly one party so abbreviated; an acronym alone in the register
+ * is far weaker evidence (many firms share three letters), so this is for the contract's own parties only.
+ */
+export function partyByInitials(parties: readonly ContractParty[], mention: NameAnalysis): number {
+  if (mention.partyStatus !== 'party' || mention.kind === 'person') return -1;
+  if (mention.tokens.length !== 1 || !ACRONYM_LETTERS.test(mention.tokens[0] as string)) return -1;
+  let found = -1;
+  for (let i = 0; i < parties.length; i++) {
+    const p = parties[i] as ContractParty;
+    if (p.kind === 'person') continue;
+    const full = analyseCached(p.name);
+    if (full.tokens.length < 2 || !sameFormOrNone(mention, full)) continue;
+    if (compareAcronym(mention.tokens, full.tokens).level === 'none') continue;
+    if (found >= 0) return -1;
+    found = i;
+  }
+  return found;
 }

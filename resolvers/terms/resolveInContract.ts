@@ -7,7 +7,7 @@ import { analyseName } from '../analyse/index.ts';
 import { analyseCached } from './analyseCached.ts';
 import { termKey } from './cleanTerm.ts';
 import { sameEntityName } from './sameEntityName.ts';
-import { partyByShortName } from './partyByShortName.ts';
+import { partyByInitials, partyByShortName } from './partyByShortName.ts';
 import type { NameAnalysis } from '../analyse/types.ts';
 import type { ContractParty, DeclaredName, InContractResolution, ParsedContract, PartyRef } from './types.ts';
 
@@ -86,7 +86,13 @@ export function resolveInContract(parsed: ParsedContract, mentionText: string): 
   const short = partyByShortName(parties, analysis);
   if (short >= 0) {
     const party = ref(parties, short);
-    return { status: 'match', mention, party, analysis, explanation: `"${mention}" is the start of the name of party ${party.name}, the only party of this contract so named` };
+    return { status: 'match', mention, party, analysis, explanation: `"${mention}" is a short form of the name of party ${party.name}, the only party of this contract so named` };
+  }
+  // "KC AB" in a contract of "Kelnatette Ceramics AB": the initials of one party's name.
+  const initials = partyByInitials(parties, analysis);
+  if (initials >= 0) {
+    const party = ref(parties, initials);
+    return { status: 'match', mention, party, analysis, explanation: `"${mention}" is the initials of party ${party.name}, the only party of this contract so abbreviated` };
   }
   return { status: 'match', mention, analysis, explanation: `"${mention}" is not a term of this contract; it goes on to matching against the register` };
 }

@@ -36,3 +36,20 @@ describe('partyByShortName: a dropped middle word, the party\'s own legal form',
     expect(resolveInContract(parsed, 'Components Indfenmore K.K.').party).toBeUndefined();
   });
 });
+
+describe('partyByInitials through resolveInContract', () => {
+  const deal = 'This Services Agreement is made on 9 May 2025 between Orvanel Holdings plc, a company incorporated in England and Wales ("Customer"), and Kelnatette Ceramics AB, a company incorporated in Sweden ("Supplier").';
+  it('the initials of one party name that party, with its legal form or none', () => {
+    const parsed = parseParties(deal, { ownEntities: ['Orvanel Holdings plc'] });
+    expect(resolveInContract(parsed, 'KC AB').party?.name).toBe('Kelnatette Ceramics AB');
+    expect(resolveInContract(parsed, 'KC').party?.name).toBe('Kelnatette Ceramics AB');
+    expect(resolveInContract(parsed, 'KC AB').explanation).toContain('initials of party Kelnatette Ceramics AB');
+  });
+  it('other letters, another legal form, or initials two parties share decide nothing', () => {
+    const parsed = parseParties(deal, { ownEntities: ['Orvanel Holdings plc'] });
+    expect(resolveInContract(parsed, 'KX AB').party).toBeUndefined();
+    expect(resolveInContract(parsed, 'KC GmbH').party).toBeUndefined();
+    const two = parseParties('This Agreement is made between Kelnatette Ceramics AB, a company incorporated in Sweden ("Buyer"), and Korvell Cables AB, a company incorporated in Sweden ("Seller").');
+    expect(resolveInContract(two, 'KC AB').party).toBeUndefined();
+  });
+});
