@@ -129,7 +129,7 @@ function firstFree(b: readonly string[], taken: Uint8Array, fits: (other: string
 
 function isTypo(x: string, y: string, minLength: number): boolean {
   // A letter misread as one it looks like ("CATERlNG" / "CATERING") is a typo in a shorter word too.
-  if (x.length === y.length && x.length >= TYPO_MIN_LENGTH_BESIDE_RARE && x !== y && lookAlike(x) === lookAlike(y)) return true;
+  if (x.length === y.length && x.length >= TYPO_MIN_LENGTH_BESIDE_RARE && x !== y && lookAlike(x) === lookAlike(y)) return !isNumberToken(x) && !isNumberToken(y);
   if (x.length < minLength || y.length < minLength) return false;
   // One typo (a letter added, dropped, changed or swapped) changes the length by one at most.
   if (Math.abs(x.length - y.length) > 1) return false;

@@ -131,3 +131,9 @@ describe('compareNameTokens: misread look-alike letters', () => {
     expect(diff('Raiffeisenbank Purbach', 'Raiffeisenbank Purbech').kind).not.toBe('typo');
   });
 });
+
+describe('compareNameTokens: a number is never a look-alike typo', () => {
+  it('"20150" / "2O15O" stays a difference', () => {
+    expect(diff('Harrowdene Fund 20150', 'Harrowdene Fund 2O15O').kind).not.toBe('typo');
+  });
+});
