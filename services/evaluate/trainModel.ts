@@ -7,7 +7,7 @@
  *           a cliff by chance);
  *   newAt   the lowest score such that, in EVERY dataset, at least the target share of the pairs a person would be
  *           asked about (between newAt and linkAt, names agreeing at least in part: decisionRules.worthReview) are
- *           true matches.
+ *           true matches; never above linkAt − MIN_REVIEW_BAND.
  */
 import { analyseName } from '../../resolvers/analyse/index.ts';
 import { candidatePairs, type MatchRecord } from '../../resolvers/block/index.ts';
