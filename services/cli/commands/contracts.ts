@@ -8,6 +8,7 @@ import { CliError } from '../cli-error.ts';
 import { countOf } from '../count-words.ts';
 import { DB_OPTION_HELP } from './serve.ts';
 import type { ImportFilesSummary as Summary } from '../../contract-files/import-files.ts';
+import { stopOnInterrupt } from '../stop-on-interrupt.ts';
 
 interface ImportCliOptions {
   source: string;
@@ -37,13 +38,7 @@ export default function register(program: Command): void {
       const { ArchiveRefusedError, TargetError } = await import('../../contract-files/find-documents.ts');
       const { withDatabase, cliActor, progressReporter } = await import('../../ingest/cli-support.ts');
       const rejectsFile = options.rejects ?? `${trimSeparators(target)}.rejects.csv`;
-      let stop = false;
-      const onSignal = (): void => {
-        if (stop) process.exit(130);
-        stop = true;
-        process.stderr.write('\ncpreg: stopping after the current file (Ctrl-C again to quit at once; run the same command to go on)\n');
-      };
-      process.on('SIGINT', onSignal);
+      const stop = stopOnInterrupt('stopping after the current file (Ctrl-C again to quit at once; run the same command to go on)');
       const progress = progressReporter('import', 'files');
       try {
         const summary = await withDatabase(options.db, 'cpreg contracts import', 'writes', (db) =>
@@ -54,7 +49,7 @@ export default function register(program: Command): void {
             actor: cliActor(),
             recursive: options.recursive,
             rejectsFile,
-            shouldStop: () => stop,
+            shouldStop: stop.requested,
             onProgress: (p) => progress.update({ done: p.done, fraction: p.total > 0 ? p.done / p.total : undefined, note: p.tally.files.rejected > 0 ? `${p.tally.files.rejected} rejected` : undefined }),
           }),
         );
@@ -71,7 +66,7 @@ export default function register(program: Command): void {
         if (error instanceof ArchiveRefusedError || error instanceof TargetError) throw new CliError(error.message, 1, { cause: error });
         throw error;
       } finally {
-        process.off('SIGINT', onSignal);
+        stop.release();
       }
     });
 }

@@ -6,6 +6,7 @@ import type { Command } from 'commander';
 import type { FieldMap } from '../../ingest/mapping.ts';
 import { CliError } from '../cli-error.ts';
 import { DB_OPTION_HELP } from './serve.ts';
+import { stopOnInterrupt } from '../stop-on-interrupt.ts';
 
 interface IngestCliOptions {
   source: string;
@@ -69,13 +70,7 @@ export default function register(program: Command): void {
         return;
       }
       const rejectsFile = options.rejects ?? `${file}.rejects.csv`;
-      let stop = false;
-      const onSignal = (): void => {
-        if (stop) process.exit(130);
-        stop = true;
-        process.stderr.write('\ncpreg: stopping after the current batch (Ctrl-C again to quit at once; run the same command to resume)\n');
-      };
-      process.on('SIGINT', onSignal);
+      const stop = stopOnInterrupt('stopping after the current batch (Ctrl-C again to quit at once; run the same command to resume)');
       const progress = progressReporter('ingest', 'rows');
       try {
         const summary = await withDatabase(options.db, 'cpreg ingest', 'writes', (db) =>
@@ -88,7 +83,7 @@ export default function register(program: Command): void {
             rejectsFile,
             actor: cliActor(),
             batchSize,
-            shouldStop: () => stop,
+            shouldStop: stop.requested,
             onWarning: printWarning,
             onProgress: (p) => progress.update({ done: p.counts.read, fraction: p.totalBytes > 0 ? p.bytesRead / p.totalBytes : undefined, note: p.counts.rejected > 0 ? `${p.counts.rejected} rejected` : undefined }),
           }),
@@ -115,7 +110,7 @@ export default function register(program: Command): void {
         if (error instanceof MappingError || error instanceof RangeError) throw new CliError(error.message, 1, { cause: error });
         throw error;
       } finally {
-        process.off('SIGINT', onSignal);
+        stop.release();
       }
     });
 }
