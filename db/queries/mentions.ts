@@ -154,3 +154,23 @@ export async function amendmentsWithUnboundMentions(db: Queryable, exceptContrac
     mentionIds: rows.filter((r) => id(r.contract_id) === id(a.id)).map((r) => id(r.id)),
   }));
 }
+
+/** Where each mention of one source stands, for measuring the register against ground truth (cpreg evaluate
+ * --through-register): its status, its counterparty, and the candidate of its open review item if any. */
+export async function outcomesOfSource(
+  db: Queryable,
+  source: string,
+): Promise<{ externalId: string; status: string; counterpartyId: number | null; reviewCandidateId: number | null }[]> {
+  const rows = await db
+    .selectFrom('mention as m')
+    .leftJoin('review_item as r', (join) => join.onRef('r.mention_id', '=', 'm.id').on('r.status', '=', 'open'))
+    .select(['m.external_id', 'm.status', 'm.counterparty_id', 'r.right_counterparty_id'])
+    .where('m.source', '=', source)
+    .execute();
+  return rows.map((r) => ({
+    externalId: r.external_id,
+    status: r.status,
+    counterpartyId: r.counterparty_id === null ? null : Number(r.counterparty_id),
+    reviewCandidateId: r.right_counterparty_id === null ? null : Number(r.right_counterparty_id),
+  }));
+}

@@ -11,6 +11,7 @@ import { LabelledFileError, loadLabelledCsv, parseColumnValue, type LabelledRow 
 import { METHODS, runEvaluation, type EvaluationReport, type Method } from './runEvaluation.ts';
 import { formatReport } from './formatReport.ts';
 import { setAsideSharedNames } from './setAsideSharedNames.ts';
+import { evaluateThroughRegister } from './throughRegister.ts';
 
 export async function evaluateCommand(file: string, flags: EvaluateFlags): Promise<void> {
   if (!(METHODS as readonly string[]).includes(flags.method)) {
@@ -37,6 +38,7 @@ export async function evaluateCommand(file: string, flags: EvaluateFlags): Promi
   if (flags.setAsideSharedNames && !flags.json) process.stderr.write(`  set aside ${aside.setAside} rows whose name and country two or more entities share\n`);
   const rows = aside.kept;
   if (rows.length === 0) throw new CliError(`${file}: no usable rows after filtering (${loaded.problems.length} rows with problems)`);
+  if (flags.throughRegister) return throughRegisterCommand(rows, flags);
   const model = flags.model ? readModel(flags.model) : DEFAULT_MATCH_MODEL;
   const isAcronym = acronymRule
     ? (row: LabelledRow): boolean => row.fields[acronymRule[0]] === acronymRule[1] || (row.fields[acronymRule[0]] ?? '').split('+').includes(acronymRule[1])
@@ -99,6 +101,35 @@ function writeOutputs(folder: string, report: EvaluationReport, input: object): 
   } catch (error) {
     throw new CliError(`--out ${folder}: ${(error as Error).message}`, 1, { cause: error });
   }
+}
+
+async function throughRegisterCommand(rows: LabelledRow[], flags: EvaluateFlags): Promise<void> {
+  if (flags.method !== 'cpreg') throw new CliError('--through-register measures the register itself: leave out --method');
+  for (const [set, option] of [[flags.model, '--model'], [flags.linkAt, '--link-at'], [flags.newAt, '--new-at'], [flags.train, '--train']] as const) {
+    if (set !== undefined) throw new CliError(`${option} does not apply with --through-register: the register scores with its own model`);
+  }
+  const batchSize = flags.batchSize === undefined ? undefined : parseNumber('--batch-size', flags.batchSize);
+  if (batchSize !== undefined && !(Number.isInteger(batchSize) && batchSize >= 1)) throw new CliError(`--batch-size expects a whole number of at least 1, got "${flags.batchSize}"`);
+  const report = await evaluateThroughRegister(rows, {
+    ...(flags.db ? { db: flags.db } : {}),
+    ...(batchSize !== undefined ? { batchSize } : {}),
+    log: flags.json ? () => undefined : (line) => process.stderr.write(`  ${line}\n`),
+  });
+  if (flags.json) {
+    process.stdout.write(`${JSON.stringify(report)}\n`);
+    return;
+  }
+  const f = (x: number): string => x.toFixed(4);
+  process.stdout.write(
+    [
+      `through the register: ${report.rows} rows in batches of ${report.batchSize}, ${(report.elapsedMs / 1000).toFixed(1)} s`,
+      `  pairwise  precision ${f(report.pairwise.precision)}  recall ${f(report.pairwise.recall)}  F1 ${f(report.pairwise.f1)}`,
+      `  B-cubed   precision ${f(report.bcubed.precision)}  recall ${f(report.bcubed.recall)}  F1 ${f(report.bcubed.f1)}`,
+      `  linked ${report.linked}, new ${report.new}, review ${report.review} (${(100 * report.reviewShare).toFixed(2)} %, ${(100 * report.reviewTrueMatchShare).toFixed(1)} % true), other ${report.other}`,
+      `  counterparties ${report.counterparties}`,
+      '',
+    ].join('\n'),
+  );
 }
 
 function readModel(path: string): MatchModel {

@@ -12,7 +12,7 @@ import { scorePair } from '../../resolvers/score/index.ts';
 import { chunksOf, deleteChunks, insertPartitions, readJob, updateJob } from '../../db/queries/jobs.ts';
 import { emptyCounts, storedHashes } from '../ingest/run-ingest.ts';
 import { RegisterError } from '../register/errors.ts';
-import { idfFor } from '../register/matching/idf.ts';
+import { basisOf, documentFrequencies, freezeRarity, idfFromCounts, registerNameCount, type FrozenRarity } from '../register/matching/idf.ts';
 import { currentModel } from '../register/matching/model.ts';
 import { prepareMention, type PreparedMention } from '../register/resolve/prepare.ts';
 import type { MentionInput } from '../../resolvers/vocabulary.ts';
@@ -29,6 +29,11 @@ export interface PartitionItem {
    * before it was kept: the partition then blocks by itself.
    */
   compareWith?: number[];
+  /**
+   * Counts frozen by the plan for this mention's tokens that the job holds at least twice (register/matching/idf.ts
+   * freezeRarity), kept with the mention so that a partition reads only its own share.
+   */
+  tokenCounts?: Record<string, number>;
 }
 
 /** A linking pair across partitions: the two mentions' (source, externalId) and the pair's score. */
@@ -41,6 +46,8 @@ export interface IngestPlan {
   linkingPairs: number;
   crossPairs: CrossPair[];
   refusedJoins: number;
+  /** Names counted for token rarity: the register's at planning time and the whole job's (absent in older plans). */
+  rarityDocuments?: number;
   counts: Record<string, number>;
   rejected: { line: number; reason: string }[];
   planningMs: number;
@@ -108,7 +115,12 @@ export async function planIngest(deps: JobDeps, jobId: number): Promise<{ partit
     identifiers: v.prepared.identifiers,
   }));
   const { model } = await currentModel(deps.db);
-  const idf = await idfFor(deps.db, records.flatMap((r) => r.analysis.tokens));
+  // Token rarity over the register and the whole job, frozen for the partitions (register/matching/idf.ts).
+  const registerDf = await documentFrequencies(deps.db, records.flatMap((r) => r.analysis.tokens));
+  const registerNames = await registerNameCount(deps.db);
+  const jobBasis = basisOf(records.map((r) => r.analysis.tokens));
+  const idf = idfFromCounts(registerDf, registerNames, jobBasis);
+  const rarity = freezeRarity(registerDf, registerNames, jobBasis, heldTwice(records.map((r) => r.analysis.tokens)));
   const pairs = candidatePairs(records, { idf });
   const scores = new Float64Array(pairs.count);
   let linkingPairs = 0;
@@ -123,7 +135,7 @@ export async function planIngest(deps: JobDeps, jobId: number): Promise<{ partit
   fresh.forEach((v, i) => {
     const partition = partitions[cut.partitionOf[i]!]!;
     at[i] = partition.length;
-    partition.push({ ...v.item });
+    partition.push({ ...v.item, ...frozenCountsOf(v.prepared.analysis.tokens, rarity) });
   });
   for (let k = 0; k < pairs.count; k++) {
     const i = pairs.left[k]!;
@@ -140,6 +152,7 @@ export async function planIngest(deps: JobDeps, jobId: number): Promise<{ partit
     linkingPairs,
     crossPairs: cut.crossPairs.map((k) => [identityOf(pairs.left[k]!), identityOf(pairs.right[k]!), scores[k]!]),
     refusedJoins: cut.refusedJoins,
+    rarityDocuments: rarity.documents,
     counts,
     rejected,
     planningMs: Math.round(performance.now() - started),
@@ -151,6 +164,26 @@ export async function planIngest(deps: JobDeps, jobId: number): Promise<{ partit
   });
   deps.log('info', { jobId, partitions: cut.count, mentions: fresh.length, crossPairs: plan.crossPairs.length, planningMs: plan.planningMs }, 'job planned');
   return { partitions: cut.count, alreadyPlanned: false };
+}
+
+/** Tokens that two or more mentions hold (so that may fall in two partitions). */
+function heldTwice(names: readonly (readonly string[])[]): Set<string> {
+  const once = new Set<string>();
+  const twice = new Set<string>();
+  for (const tokens of names) for (const token of new Set(tokens)) (once.has(token) ? twice : once).add(token);
+  return twice;
+}
+
+function frozenCountsOf(tokens: readonly string[], rarity: FrozenRarity): Pick<PartitionItem, 'tokenCounts'> {
+  const counts: Record<string, number> = {};
+  let any = false;
+  for (const token of tokens) {
+    const df = rarity.frequencies[token];
+    if (df === undefined) continue;
+    counts[token] = df;
+    any = true;
+  }
+  return any ? { tokenCounts: counts } : {};
 }
 
 function compareIdentity(a: PreparedMention, b: PreparedMention): number {

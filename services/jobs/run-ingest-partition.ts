@@ -11,7 +11,7 @@ import { resolveBatch, type BatchOptions } from '../register/batch.ts';
 import { prepareMention } from '../register/resolve/prepare.ts';
 import { MAX_LISTED_REJECTS, type JobDeps } from './deps.ts';
 import { queueFinishWhenAllDone } from './finish-guard.ts';
-import type { PartitionItem } from './plan-ingest.ts';
+import type { IngestPlan, PartitionItem } from './plan-ingest.ts';
 
 export interface PartitionResult {
   counts: Record<string, number>;
@@ -30,6 +30,19 @@ function plannedPairs(items: readonly PartitionItem[]): BatchOptions {
   const comparePairs: [string, string][] = [];
   for (const item of items) for (const j of item.compareWith ?? []) comparePairs.push([key(item), key(items[j]!)]);
   return { comparePairs };
+}
+
+/**
+ * The token counts the plan froze for this partition (register/matching/idf.ts): N over the register and the whole
+ * job, and the counts of the partition's tokens that the job holds at least twice. Plans made before they were kept
+ * leave the partition to count the register and itself.
+ */
+function frozenRarity(plan: Record<string, unknown> | null, items: readonly PartitionItem[]): BatchOptions {
+  const documents = (plan as Partial<IngestPlan> | null)?.rarityDocuments;
+  if (documents === undefined) return {};
+  const frequencies: Record<string, number> = {};
+  for (const item of items) Object.assign(frequencies, item.tokenCounts);
+  return { rarity: { documents, frequencies } };
 }
 
 export async function runIngestPartition(deps: JobDeps, jobId: number, partitionNo: number): Promise<void> {
@@ -52,7 +65,7 @@ export async function runIngestPartition(deps: JobDeps, jobId: number, partition
       }
       return true;
     });
-    const results = fresh.length === 0 ? [] : await resolveBatch(deps.ctx, fresh.map((i) => i.mention), { actor: job.actor, reason: `job ${jobId} partition ${partitionNo}` }, plannedPairs(items));
+    const results = fresh.length === 0 ? [] : await resolveBatch(deps.ctx, fresh.map((i) => i.mention), { actor: job.actor, reason: `job ${jobId} partition ${partitionNo}` }, { ...plannedPairs(items), ...frozenRarity(job.plan, items) });
     results.forEach((result, i) => {
       counts.read!++;
       if (result.status === 'rejected') {

@@ -28,7 +28,7 @@ import type { ActorInput, RegisterContext } from './context.ts';
 import { RegisterError } from './errors.ts';
 import { commitEvent } from './history/commit.ts';
 import { currentModel } from './matching/model.ts';
-import { idfFor } from './matching/idf.ts';
+import { basisOf, idfFor, type FrozenRarity } from './matching/idf.ts';
 import { BatchReads } from './matching/batch-reads.ts';
 import { askAgain, earlierDecisionOf } from './resolve/earlier-decision.ts';
 import { jsonScore, MAX_CANDIDATES, scoredCandidates } from './matching/candidates.ts';
@@ -68,6 +68,8 @@ export interface BatchOptions {
    * whole job, so that a job cut into partitions clusters as the whole batch does. Default: the batch's blocking.
    */
   comparePairs?: readonly (readonly [string, string])[];
+  /** A partition's token counts frozen by its job's plan (matching/idf.ts). Default: the register's and the batch's. */
+  rarity?: FrozenRarity;
 }
 
 export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[], who: ActorInput, options: BatchOptions = {}): Promise<BatchItemResult[]> {
@@ -99,6 +101,7 @@ export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[],
   const stored = await storedMentions(ctx, checked.map((c) => c.prepared));
   const reads = new BatchReads(ctx.db);
   const toDecide = checked.filter((c) => stored.get(c.key)?.content_hash !== c.prepared.contentHash);
+  reads.basis = basisOf(toDecide.map((c) => c.prepared.analysis.tokens), options.rarity);
   await reads.prefetch(toDecide.map((c) => c.prepared), MAX_CANDIDATES);
   const contracts = new Map<string, Promise<ContractContext | null>>();
   for (const { index, prepared, key } of checked) {

@@ -28,6 +28,9 @@ interface EvaluateFlags {
   maxBlock?: string;
   window?: string;
   setAsideSharedNames?: boolean;
+  throughRegister?: boolean;
+  db?: string;
+  batchSize?: string;
 }
 
 const collect = (value: string, previous: string[]): string[] => [...previous, value];
@@ -56,6 +59,9 @@ export default function register(program: Command): void {
     .option('--max-block <n>', 'cpreg: blocks up to this size are paired exhaustively')
     .option('--window <n>', 'cpreg: sorted-neighbourhood window inside oversized blocks')
     .option('--set-aside-shared-names', 'leave out rows whose (case-folded name, country) two or more ids share (the LEI data\'s scoring protocol)')
+    .option('--through-register', 'cpreg: ingest the rows into an empty register, as `cpreg ingest` would, and measure the links it stored')
+    .option('--db <dir|url>', 'with --through-register: the empty register to use (default: a temporary embedded one, removed after)')
+    .option('--batch-size <n>', 'with --through-register: rows per ingest batch (default 1000, as cpreg ingest)')
     .option('--out <folder>', 'write report.json, sweep.csv and sweep.svg (cpreg) into this folder')
     .option('--json', 'print the report as JSON')
     .action(async (file: string, flags: EvaluateFlags) => {

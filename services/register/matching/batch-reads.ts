@@ -11,7 +11,7 @@ import { candidateDetailsBatch, type CandidateDetail } from '../../../db/queries
 import { listOwnEntities, type OwnEntityView } from '../../../db/queries/own-entities.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
 import { analyse } from './analysis.ts';
-import { documentFrequencies } from './idf.ts';
+import { documentFrequencies, NO_BASIS, registerNameCount, type RarityBasis, type RarityReads } from './idf.ts';
 import { keysOfAnalysis } from './keys.ts';
 
 export interface ScoredMemoKey {
@@ -24,8 +24,11 @@ function detailKey(keys: readonly string[], identifiers: readonly { scheme: stri
   return JSON.stringify([keys, identifiers.map((i) => [i.scheme, i.value])]);
 }
 
-export class BatchReads {
+export class BatchReads implements RarityReads {
   private own: Promise<OwnEntityView[]> | undefined;
+  private names: Promise<number> | undefined;
+  /** The names resolved with the register's in this batch (matching/idf.ts): set once, before any scoring. */
+  basis: RarityBasis = NO_BASIS;
   private readonly df = new Map<string, number>();
   private readonly details = new Map<string, CandidateDetail[]>();
   /** Scored candidates by analysis object (the same prepared mention is scored in decide and in clustering). */
@@ -36,6 +39,12 @@ export class BatchReads {
   ownEntities(): Promise<OwnEntityView[]> {
     this.own ??= listOwnEntities(this.db);
     return this.own;
+  }
+
+  /** The register's name count, read once per batch. */
+  registerNames(): Promise<number> {
+    this.names ??= registerNameCount(this.db);
+    return this.names;
   }
 
   /** Document frequencies of `tokens`, reading only those not read before in this batch. */

@@ -1,36 +1,135 @@
 /**
- * Token rarity for soft TF-IDF, read from the register's blocking keys (t:<token>, one row per name holding the
- * token). Counting is capped at DF_CAP per token so that a very common word ("holdings") costs one short index
- * scan; every token at or above the cap counts as equally common. N is a fixed reference size, so the weights
- * depend only on the register's contents, never on an estimate that differs between instances.
+ * Token rarity for soft TF-IDF and for the informative-core rule, counted over the same names `cpreg evaluate`
+ * counts: the register's names plus the names being resolved with them (the batch, or a whole job). N is the number
+ * of those names and df the number holding the token, so a word is common in the register exactly when it would
+ * be common in an evaluation of the same names (issue 15 item 7: one decision logic).
  *
- * Each token's weight depends on its own count only, so a table built from more tokens than a comparison uses
- * gives the same weights (what lets a batch read the counts of all its tokens once: matching/batch-reads.ts).
+ * - A "name" here is one distinct name per company: the register counts counterparties (not their several
+ *   spellings), a batch counts its distinct names. Otherwise one company written five ways would make its own
+ *   words common, and its spellings would stop linking to each other (a job of one supplier's spellings).
+ * - The register's counts come from its blocking keys (t:<token>, one row per name holding the token), the
+ *   counterparties among the first DF_CAP rows, so that a very common word ("holdings") costs one short index scan.
+ *   A token at the cap is counted as common at any register size (atLeastCommonWhenCapped).
+ * - The register's N is its highest counterparty id: counterparties are never deleted (merged ones stay as rows),
+ *   and reading it is one index probe where a count(*) would scan a million rows.
+ * - A job's partitions run at different times, so what the register holds when one runs depends on the others.
+ *   The planner therefore freezes N (register at planning time + the whole job) and, with each mention, the counts
+ *   of its tokens that the job holds at least twice; a partition adds only its own names for its other tokens,
+ *   which no other partition holds. Its mentions' tokens then weigh as the plan weighed them, whatever order the
+ *   partitions run in (a candidate name's token that none of the partition's mentions holds is read as it stands).
+ *
+ * Each token's weight depends on its own count and N only, so a table built from more tokens than a comparison
+ * uses gives the same weights (what lets a batch read the counts of all its tokens once: matching/batch-reads.ts).
  */
 import { sql } from 'kysely';
 import { idfTableFromFrequencies, type IdfTable } from '../../../resolvers/compare/index.ts';
+import { COMMON_TOKEN_SHARE } from '../../../resolvers/score/index.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
 
 export const DF_CAP = 1000;
-export const REFERENCE_DOCUMENTS = 1_000_000;
 
-/** Capped document frequency of each distinct token. */
+/** Capped document frequency of each distinct token in the register. */
 export async function documentFrequencies(db: Queryable, tokens: Iterable<string>): Promise<Map<string, number>> {
   const unique = [...new Set(tokens)];
   const frequencies = new Map<string, number>();
   if (unique.length > 0) {
     const result = await sql<{ token: string; df: string | number }>`
-      SELECT t.token, (SELECT count(*) FROM (SELECT 1 FROM blocking_key b WHERE b.key = 't:' || t.token LIMIT ${DF_CAP}) s) AS df
+      SELECT t.token, (SELECT count(DISTINCT s.counterparty_id) FROM (SELECT b.counterparty_id FROM blocking_key b WHERE b.key = 't:' || t.token LIMIT ${DF_CAP}) s) AS df
       FROM unnest(${sql.val(unique)}::text[]) AS t(token)`.execute(db);
     for (const row of result.rows) frequencies.set(row.token, Number(row.df));
   }
   return frequencies;
 }
 
-export function idfFromFrequencies(frequencies: ReadonlyMap<string, number>): IdfTable {
-  return idfTableFromFrequencies(frequencies, REFERENCE_DOCUMENTS);
+/** How many counterparties the register holds (its highest counterparty id: see the header). */
+export async function registerNameCount(db: Queryable): Promise<number> {
+  const result = await sql<{ n: string | number | null }>`SELECT max(id) AS n FROM counterparty`.execute(db);
+  return Number(result.rows[0]?.n ?? 0);
 }
 
-export async function idfFor(db: Queryable, tokens: Iterable<string>, reads?: { frequencies(tokens: Iterable<string>): Promise<Map<string, number>> }): Promise<IdfTable> {
-  return idfFromFrequencies(reads ? await reads.frequencies(tokens) : await documentFrequencies(db, tokens));
+/** Token counts frozen by a job's plan: N and the counts of the tokens the job holds at least twice. */
+export interface FrozenRarity {
+  documents: number;
+  frequencies: Record<string, number>;
+}
+
+/** The names counted besides the register's: a batch's own, and a job's frozen counts when it is a partition. */
+export interface RarityBasis {
+  documents: number;
+  frequencies: ReadonlyMap<string, number>;
+  frozen?: FrozenRarity;
+}
+
+/**
+ * A basis from the token lists of the names resolved together (one list per mention). Names with the same tokens
+ * count once, as the register keeps one row per spelling; a token counts once a name.
+ */
+export function basisOf(names: Iterable<readonly string[]>, frozen?: FrozenRarity): RarityBasis {
+  const frequencies = new Map<string, number>();
+  const seen = new Set<string>();
+  let documents = 0;
+  for (const tokens of names) {
+    const key = tokens.join(' ');
+    if (seen.has(key)) continue;
+    seen.add(key);
+    documents++;
+    for (const token of new Set(tokens)) frequencies.set(token, (frequencies.get(token) ?? 0) + 1);
+  }
+  return { documents, frequencies, ...(frozen ? { frozen } : {}) };
+}
+
+export const NO_BASIS: RarityBasis = { documents: 0, frequencies: new Map() };
+
+/**
+ * The IDF table for register counts `registerDf` (capped) and `registerNames`, with `basis` added. A token at the
+ * cap counts as at least COMMON_TOKEN_SHARE of N, so that it stays common in a register of more than a million
+ * names (where the cap alone would make it look rare).
+ */
+export function idfFromCounts(registerDf: ReadonlyMap<string, number>, registerNames: number, basis: RarityBasis = NO_BASIS): IdfTable {
+  const frozen = basis.frozen;
+  const documents = frozen ? Math.max(frozen.documents, 1) : registerNames + basis.documents;
+  const frequencies = new Map<string, number>();
+  for (const [token, stored] of registerDf) {
+    const held = frozen?.frequencies[token];
+    if (held !== undefined) {
+      frequencies.set(token, Math.min(held, documents));
+      continue;
+    }
+    frequencies.set(token, Math.min(documents, atLeastCommonWhenCapped(stored, documents) + (basis.frequencies.get(token) ?? 0)));
+  }
+  return idfTableFromFrequencies(frequencies, documents);
+}
+
+function atLeastCommonWhenCapped(stored: number, documents: number): number {
+  return stored >= DF_CAP ? Math.max(stored, Math.ceil(COMMON_TOKEN_SHARE * documents)) : stored;
+}
+
+/** What idfFor reads through when a batch is running (matching/batch-reads.ts): cached counts and the batch's basis. */
+export interface RarityReads {
+  frequencies(tokens: Iterable<string>): Promise<Map<string, number>>;
+  registerNames(): Promise<number>;
+  readonly basis: RarityBasis;
+}
+
+export async function idfFor(db: Queryable, tokens: Iterable<string>, reads?: RarityReads): Promise<IdfTable> {
+  if (reads) return idfFromCounts(await reads.frequencies(tokens), await reads.registerNames(), reads.basis);
+  const list = [...tokens];
+  const [df, names] = await Promise.all([documentFrequencies(db, list), registerNameCount(db)]);
+  return idfFromCounts(df, names);
+}
+
+/**
+ * What a job's plan freezes for its partitions: N over the register and the whole job, and the count of every
+ * token in `shared`, the tokens two or more of the job's mentions hold (the others are held by one mention, so by
+ * one partition only, which counts them itself).
+ */
+export function freezeRarity(registerDf: ReadonlyMap<string, number>, registerNames: number, job: RarityBasis, shared: ReadonlySet<string>): FrozenRarity {
+  const idfDocuments = registerNames + job.documents;
+  const frequencies: Record<string, number> = {};
+  for (const [token, inJob] of job.frequencies) {
+    if (!shared.has(token)) continue;
+    const stored = registerDf.get(token) ?? 0;
+    frequencies[token] = Math.min(idfDocuments, atLeastCommonWhenCapped(stored, idfDocuments) + inJob);
+  }
+  return { documents: idfDocuments, frequencies };
 }

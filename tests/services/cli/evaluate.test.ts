@@ -125,3 +125,25 @@ describe('cpreg evaluate: the LEI protocol, the three outcomes, the candidate-pa
     expect(jw.pairwise.predictedPairs).toBe(2);
   });
 });
+
+describe('cpreg evaluate --through-register', () => {
+  it('ingests the rows into an empty register and measures the links it stored, every row accounted for', async () => {
+    const { stdout } = await cpreg([SAMPLE, ...BASE, '--through-register', '--batch-size', '20', '--json']);
+    const report = JSON.parse(stdout);
+    expect(report.rows).toBe(47);
+    expect(report.batchSize).toBe(20);
+    expect(report.linked + report.new + report.review + report.other).toBe(47);
+    // Every stored counterparty was made by a mention of this file: one "new" each.
+    expect(report.counterparties).toBe(report.new);
+    expect(report.pairwise.goldPairs).toBeGreaterThan(0);
+    for (const key of ['pairwise', 'bcubed'] as const) {
+      expect(report[key].precision).toBeGreaterThanOrEqual(0);
+      expect(report[key].precision).toBeLessThanOrEqual(1);
+    }
+  }, 120_000);
+
+  it('refuses what does not apply to the register', async () => {
+    await expect(cpreg([SAMPLE, ...BASE, '--through-register', '--link-at', '5'])).rejects.toMatchObject({ stderr: expect.stringMatching(/--link-at does not apply with --through-register/) });
+    await expect(cpreg([SAMPLE, ...BASE, '--through-register', '--batch-size', '0'])).rejects.toMatchObject({ stderr: expect.stringMatching(/--batch-size expects a whole number of at least 1/) });
+  }, 60_000);
+});
