@@ -3,7 +3,8 @@
  * (services/evaluate/runEvaluation.ts: the register's own decision rules):
  *  - company names keyed by LEI (../shared/datasets/lei_org_names_dev.csv, its README's protocol: rows whose name and
  *    country two entities share set aside): pairwise precision ≥ 0.99 and F1 ≥ 0.82 on automatic links, at most 10 %
- *    of records sent to review, at least half of review items true matches;
+ *    of records sent to review, at least half of review items true matches; and the same rows through the register
+ *    itself (`cpreg evaluate --through-register`), against the same precision, F1 and review goals;
  *  - generated names (the scale generator with its hard negatives) at 10,000 and (default mode) 200,000: precision
  *    ≥ 0.98, F1 above plain Jaro–Winkler ≥ 0.9 over the same candidate pairs (the baseline row), review as above;
  *  - ROR test split (companies and all): precision and F1 above the exact and candidate-pair JW baselines;
@@ -16,6 +17,7 @@ import { fileURLToPath } from 'node:url';
 import { DEFAULT_MATCH_MODEL } from '../resolvers/score/defaultModel.ts';
 import { loadLabelledCsv, type LabelledRow } from '../services/evaluate/loadLabelledCsv.ts';
 import { runEvaluation, type EvaluationReport, type Method } from '../services/evaluate/runEvaluation.ts';
+import { evaluateThroughRegister } from '../services/evaluate/throughRegister.ts';
 import { setAsideSharedNames } from '../services/evaluate/setAsideSharedNames.ts';
 import { looksLikeAcronym } from '../services/evaluate/evaluateCommand.ts';
 import type { BenchContext, BenchRow } from './types.ts';
@@ -68,6 +70,17 @@ export async function run(ctx: BenchContext): Promise<BenchRow[]> {
     ctx.log('LEI dev names');
     const kept = setAsideSharedNames(loadLabelledCsv(lei, { idColumn: 'entity_id', nameColumn: 'name', countryColumn: 'country' }).rows).kept;
     rows.push(...judgementRows('lei', 'LEI dev', evaluate(kept, 'cpreg'), evaluate(kept, 'exact'), { precision: 0.99, f1: 0.82, review: true }, kept.length));
+    // The same rows through the register itself (`cpreg evaluate --through-register`: ingested in batches of 1,000
+    // into an empty embedded register), so that what the register does is measured beside what the rules do.
+    ctx.log('LEI dev names through the register');
+    const through = await evaluateThroughRegister(kept);
+    const size = kept.length;
+    rows.push(
+      { id: 'lei.register.precision', label: 'LEI dev through the register: pairwise precision', value: through.pairwise.precision, unit: 'ratio', better: 'higher', size, backend: 'pglite', goal: { op: '>=', value: 0.99 } },
+      { id: 'lei.register.recall', label: 'LEI dev through the register: pairwise recall', value: through.pairwise.recall, unit: 'ratio', better: 'higher', size, backend: 'pglite' },
+      { id: 'lei.register.f1', label: 'LEI dev through the register: pairwise F1', value: through.pairwise.f1, unit: 'f1', better: 'higher', size, backend: 'pglite', goal: { op: '>=', value: 0.82 } },
+      { id: 'lei.register.review_share', label: 'LEI dev through the register: share of mentions sent to review', value: through.reviewShare, unit: 'ratio', better: 'lower', size, backend: 'pglite', goal: { op: '<=', value: 0.1 } },
+    );
   } else rows.push({ id: 'lei', label: 'LEI dev names', value: 0, unit: 'ratio', better: 'higher', skipped: `${lei} not found` });
 
   for (const size of ctx.mode === 'quick' ? [10_000] : [10_000, 200_000]) {
