@@ -280,9 +280,14 @@ function saysIndividual(description: string): boolean {
  * are kept as written.
  */
 export function oneLine(name: string): string {
-  return name.replace(LINE_BREAK_RUN, ' ');
+  const lines = name.split(LINE_BREAK);
+  if (lines.length === 1) return name;
+  const last = lines.length - 1;
+  // Spaces at a line's edges go with the break; a blank line inside the name adds nothing.
+  const kept = lines.map((line, i) => (i > 0 ? line.trimStart() : line)).map((line, i) => (i < last ? line.trimEnd() : line));
+  return kept.filter((line, i) => line !== '' || i === 0 || i === last).join(' ');
 }
-const LINE_BREAK_RUN = /[ \t]*(?:\r\n|[\r\n\u2028\u2029\u0085])[\s]*/gu;
+const LINE_BREAK = /\r\n|[\r\n\u2028\u2029\u0085]/u;
 
 function finishParty(d: Draft, ownEntities: NameAnalysis[]): ContractParty {
   const description = d.descriptions.join(' ');
