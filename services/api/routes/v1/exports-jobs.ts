@@ -31,6 +31,7 @@ import { NDJSON } from './mentions.ts';
 
 export const JOB_OUT = {
   type: 'object',
+  required: ['id', 'kind', 'status'],
   properties: {
     id: { type: 'integer' },
     kind: { type: 'string', enum: ['ingest', 'sweep', 'reresolve', 'contracts'] },
