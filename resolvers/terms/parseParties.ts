@@ -274,6 +274,21 @@ function saysIndividual(description: string): boolean {
   return ['an individual', 'a natural person', 'residing at', 'born on', 'une personne physique', 'demeurant', 'natürliche person', 'wohnhaft', 'domiciliado en', 'residente in'].some((p) => lower.includes(p));
 }
 
+/**
+ * A name the text breaks across lines (a hard-wrapped .txt, text extracted from a PDF) is one name: each line
+ * break, with the spaces around it, reads as one space ("Brackenfold Coatings\nLimited"). Spaces within a line
+ * are kept as written.
+ */
+export function oneLine(name: string): string {
+  const lines = name.split(LINE_BREAK);
+  if (lines.length === 1) return name;
+  const last = lines.length - 1;
+  // Spaces at a line's edges go with the break; a blank line inside the name adds nothing.
+  const kept = lines.map((line, i) => (i > 0 ? line.trimStart() : line)).map((line, i) => (i < last ? line.trimEnd() : line));
+  return kept.filter((line, i) => line !== '' || i === 0 || i === last).join(' ');
+}
+const LINE_BREAK = /\r\n|[\r\n\u2028\u2029\u0085]/u;
+
 function finishParty(d: Draft, ownEntities: NameAnalysis[]): ContractParty {
   const description = d.descriptions.join(' ');
   let jurisdiction = extractJurisdiction(description);
@@ -281,14 +296,14 @@ function finishParty(d: Draft, ownEntities: NameAnalysis[]): ContractParty {
   if (jurisdiction === undefined && jurisdictions.length === 1) jurisdiction = jurisdictions[0];
   const analysis = jurisdiction === undefined ? d.analysis : analyseWithCountry(d, jurisdiction);
   const party: ContractParty = {
-    name: d.name,
+    name: oneLine(d.name),
     role: pickRole(d.terms, d.analysis, d.label),
     terms: d.terms,
     ownEntity: ownEntities.some((o) => sameEntityName(o, d.analysis)),
     identifiers: finishIdentifiers(extractIdentifiers(description, jurisdiction), jurisdiction),
     // Copies: analyses are memoised and shared.
-    aliases: analysis.aliases.map((a) => ({ ...a })),
-    related: analysis.related.map((r) => ({ ...r })),
+    aliases: analysis.aliases.map((a) => ({ ...a, name: oneLine(a.name) })),
+    related: analysis.related.map((r) => ({ ...r, name: oneLine(r.name) })),
     kind: analysis.kind === 'unknown' && (d.honorific || saysIndividual(description)) ? 'person' : analysis.kind,
   };
   if (jurisdiction !== undefined) party.jurisdiction = jurisdiction;
@@ -345,9 +360,9 @@ export function parseParties(text: string, options: ParseOptions = {}): ParsedCo
   const boundKeys = new Set(parties.flatMap((p) => [...p.terms, p.name].map(termKey)));
   const collectiveTerms = parties.length === 0 ? [] : c.collectives.map((k) => ({
     term: k.term,
-    parties: [...(k.members ?? drafts)].sort((a, b) => a.position - b.position).map((d) => d.name),
+    parties: [...(k.members ?? drafts)].sort((a, b) => a.position - b.position).map((d) => oneLine(d.name)),
   }));
-  const notParties = c.notParties.filter((n) => !boundKeys.has(termKey(n)));
+  const notParties = c.notParties.map(oneLine).filter((n) => !boundKeys.has(termKey(n)));
   const result: ParsedContract = { parties, collectiveTerms, notParties, signers };
   if (mentioned.length > 0) result.mentioned = mentioned;
   // An amendment or side letter that uses an earlier agreement's defined terms: the register looks that one up.

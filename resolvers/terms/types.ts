@@ -17,7 +17,10 @@ export interface ContractIdentifier {
 }
 
 export interface ContractParty {
-  /** The party's name exactly as it stands in the text (always a verbatim substring of the input). */
+  /**
+   * The party's name as it stands in the text: a verbatim substring of the input, except that a line break inside
+   * the name (with the spaces around it) reads as one space (parseParties.ts oneLine).
+   */
   name: string;
   /** Its role in this contract (the defined term that names a role: "Licensor", "Paying Agent"), or null. */
   role: string | null;

@@ -6,7 +6,7 @@
 import type { FastifyInstance } from 'fastify';
 import pino from 'pino';
 import { resolve as resolvePath } from 'node:path';
-import { openDatabase, resolveTarget, type OpenedDatabase } from '../../db/open-database.ts';
+import { keepAsTemplate, openDatabase, resolveTarget, type OpenedDatabase } from '../../db/open-database.ts';
 import { startJobs, type Jobs } from '../jobs/start-jobs.ts';
 import { migrateToLatest } from '../../db/migrate.ts';
 import { buildApp } from './app.ts';
@@ -59,6 +59,7 @@ export async function startServer(options: ServeOptions): Promise<RunningServer>
   try {
     const report = await migrateToLatest(database.db);
     if (report.applied.length > 0) say(`cpreg: applied ${report.applied.length} migration(s): ${report.applied.join(', ')}`);
+    await keepAsTemplate(database);
     // Building the API (every route's schemas compiled) takes seconds on a small machine: a line before the wait.
     say(`cpreg: database open (${database.description}); starting the API`);
     const workSlots = options.workSlots ?? 1;

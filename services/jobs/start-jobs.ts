@@ -9,7 +9,6 @@ import type { Kysely } from 'kysely';
 import type { Backend } from '../../db/open-database.ts';
 import { InProcessQueue } from '../../db/in-process-queue.ts';
 import { queueOptionsFromEnv, type JobQueue, type QueueOptions } from '../../db/job-queue.ts';
-import { openPgBossQueue } from '../../db/pg-boss-queue.ts';
 import type { Database } from '../../db/types.ts';
 import { createRegisterContext, type RegisterContext } from '../register/context.ts';
 import type { JobDeps } from './deps.ts';
@@ -50,6 +49,8 @@ export async function startJobs(options: StartJobsOptions): Promise<Jobs> {
   let queue: JobQueue;
   if (options.backend === 'postgres' && !options.inProcess) {
     if (!options.url) throw new Error('startJobs on PostgreSQL needs the database URL');
+    // Loaded only here: pg-boss and the pg driver are about 40 modules the embedded service never needs.
+    const { openPgBossQueue } = await import('../../db/pg-boss-queue.ts');
     queue = await openPgBossQueue(options.url, { ...queueOptions, supervise: options.work, onError: (error) => log('warn', { err: error }, 'job queue error') });
   } else {
     queue = new InProcessQueue({ ...queueOptions, onError: (error, job) => log('warn', { err: error, queueJob: job.id }, `job step ${job.name} failed`) });

@@ -17,6 +17,7 @@ import { ArchiveRefusedError, DocumentFinder } from '../contract-files/find-docu
 import { archiveProblem, surveyZip } from '../contract-files/zip-archive.ts';
 import { CONTRACTS_PARTITION_SIZE, type StagedFile } from './contracts-job.ts';
 import { JOB_STEPS } from './deps.ts';
+import type { JobCreatedHook } from './submit-ingest.ts';
 
 export interface SubmitContractsOptions {
   /**
@@ -31,6 +32,8 @@ export interface SubmitContractsOptions {
   inputName: string;
   partitionSize?: number;
   limits?: Partial<FileLimits>;
+  /** Runs inside the transaction that creates the job (see submit-ingest.ts). */
+  onJobCreated?: JobCreatedHook;
 }
 
 /** Staged rows per job_chunk, and the text a chunk holds at most before it is written (bytes). */
@@ -63,13 +66,17 @@ export async function submitContractsJob(deps: { db: Kysely<Database>; queue: Jo
   const limits = { ...FILE_LIMIT_DEFAULTS, ...options.limits };
   if (!options.folder) await checkUploadedArchive(options.file, options.inputName, limits);
   const partitionSize = options.partitionSize ?? CONTRACTS_PARTITION_SIZE;
-  const jobId = await insertJob(deps.db, {
-    kind: 'contracts',
-    actor: options.actor,
-    status: 'queued',
-    params: { source: options.source, input: options.inputName, partitioned: true, partitionSize },
+  const jobId = await deps.db.transaction().execute(async (trx) => {
+    const created = await insertJob(trx, {
+      kind: 'contracts',
+      actor: options.actor,
+      status: 'queued',
+      params: { source: options.source, input: options.inputName, partitioned: true, partitionSize },
+    });
+    await updateJob(trx, created, { progress: { stage: 'staging', filesRead: 0, filesTotal: 0 } });
+    await options.onJobCreated?.(trx, created);
+    return created;
   });
-  await updateJob(deps.db, jobId, { progress: { stage: 'staging', filesRead: 0, filesTotal: 0 } });
   const staged = stage(deps, jobId, options, limits).catch(async (error: unknown) => {
     await updateJob(deps.db, jobId, { status: 'failed', error: `reading ${options.inputName} failed: ${(error as Error).message}` }).catch(() => undefined);
   });

@@ -5,7 +5,7 @@
  * resolution runs in whichever worker takes the steps (services/jobs/steps.ts).
  */
 import { createReadStream } from 'node:fs';
-import type { Kysely } from 'kysely';
+import type { Kysely, Transaction } from 'kysely';
 import type { JobQueue } from '../../db/job-queue.ts';
 import { insertChunk, insertJob, updateJob } from '../../db/queries/jobs.ts';
 import type { Database } from '../../db/types.ts';
@@ -31,7 +31,14 @@ export interface SubmitIngestOptions {
   chunkSize?: number;
   /** Told what the file's header leaves unread (services/ingest/mapping.ts columnWarnings). */
   onWarning?: (message: string) => void;
+  /**
+   * Runs inside the transaction that creates the job (the API stores its Idempotency-Key answer there, so that a
+   * retry whose first answer was lost gets the same job, never a second one).
+   */
+  onJobCreated?: JobCreatedHook;
 }
+
+export type JobCreatedHook = (trx: Transaction<Database>, jobId: number) => Promise<void>;
 
 export async function submitIngestJob(deps: { db: Kysely<Database>; queue: JobQueue }, options: SubmitIngestOptions): Promise<number> {
   const format = formatOf(options.file, options.format);
@@ -39,13 +46,17 @@ export async function submitIngestJob(deps: { db: Kysely<Database>; queue: JobQu
   if (!Number.isInteger(partitionSize) || partitionSize < 1) throw new RangeError(`partitionSize must be a whole number of at least 1, got ${partitionSize}`);
   const chunkSize = options.chunkSize ?? PARTITION_DEFAULTS.chunkSize;
   const inputName = options.inputName ?? options.file.split(/[\\/]/).pop() ?? options.file;
-  const run = await deps.db
-    .insertInto('ingest_run')
-    .values({ source: options.source, input_name: inputName, actor: options.actor, status: 'running', started_at: new Date() })
-    .returning('id')
-    .executeTakeFirstOrThrow();
-  const ingestRunId = Number(run.id);
-  const jobId = await insertJob(deps.db, { kind: 'ingest', actor: options.actor, status: 'queued', params: { source: options.source, input: inputName, partitioned: true, partitionSize, ingestRunId } });
+  const { ingestRunId, jobId } = await deps.db.transaction().execute(async (trx) => {
+    const run = await trx
+      .insertInto('ingest_run')
+      .values({ source: options.source, input_name: inputName, actor: options.actor, status: 'running', started_at: new Date() })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    const runId = Number(run.id);
+    const created = await insertJob(trx, { kind: 'ingest', actor: options.actor, status: 'queued', params: { source: options.source, input: inputName, partitioned: true, partitionSize, ingestRunId: runId } });
+    await options.onJobCreated?.(trx, created);
+    return { ingestRunId: runId, jobId: created };
+  });
   try {
     let chunk: StagedRow[] = [];
     let chunkNo = 0;

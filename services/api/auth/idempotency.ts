@@ -139,8 +139,15 @@ export async function storeIdempotentAnswer(db: Kysely<Database>, claim: { keyId
     .execute();
 }
 
-export async function releaseIdempotencyKey(db: Kysely<Database>, claim: { keyId: string; key: string }): Promise<void> {
-  await db.deleteFrom('idempotency_record').where('key_id', '=', claim.keyId).where('idempotency_key', '=', claim.key).where('status_code', 'is', null).execute();
+/**
+ * Gives the key back after a request that failed in this process. `answered`: also when an answer was stored with
+ * the work (a job submission stores its 202 in the transaction that creates the job, then may still fail while
+ * reading the upload; the failed job stays, and the retry submits again).
+ */
+export async function releaseIdempotencyKey(db: Kysely<Database>, claim: { keyId: string; key: string }, options: { answered?: boolean } = {}): Promise<void> {
+  let query = db.deleteFrom('idempotency_record').where('key_id', '=', claim.keyId).where('idempotency_key', '=', claim.key);
+  if (!options.answered) query = query.where('status_code', 'is', null);
+  await query.execute();
 }
 
 export function sendStoredAnswer(reply: FastifyReply, answer: StoredAnswer): FastifyReply {

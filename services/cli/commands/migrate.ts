@@ -16,6 +16,8 @@ export default function register(program: Command): void {
       const database = await openCommandDatabase(options.db, 'cpreg migrate', { writes: true, migrate: false });
       try {
         const report = await migrateToLatest(database.db);
+        const { keepAsTemplate } = await import('../../../db/open-database.ts');
+        await keepAsTemplate(database);
         if (options.json) {
           const out = { database: database.description, backend: database.backend, ...report };
           process.stdout.write(`${JSON.stringify(out)}\n`);

@@ -11,6 +11,7 @@ import { findExclusions } from '../../../resolvers/terms/findExclusions.ts';
 import { isJobTitle, jobTitleOf } from '../../../resolvers/terms/isJobTitle.ts';
 import { readPersonName } from '../../../resolvers/terms/readPersonName.ts';
 import { grow } from './grow.ts';
+import { oneLine } from '../../../resolvers/terms/parseParties.ts';
 
 const read = (s: string): string | null => readPersonName(s, 0, s.length)?.name ?? null;
 
@@ -149,7 +150,7 @@ describe('signer and exclusion scanners on adversarial 1 MB inputs', () => {
     const started = Date.now();
     const parsed = parseParties(text);
     expect(Date.now() - started).toBeLessThan(HANG_CEILING_MS);
-    for (const p of parsed.parties) expect(text.includes(p.name)).toBe(true);
+    for (const p of parsed.parties) expect(oneLine(text).includes(p.name)).toBe(true);
     expect((parsed.signers ?? []).length).toBeLessThanOrEqual(MAX_SIGNERS);
   }, HANG_CEILING_MS * 2);
 });

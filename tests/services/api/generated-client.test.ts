@@ -41,14 +41,21 @@ export async function flow(baseUrl: string, adminKey: string) {
   const text = 'This Services Agreement is made between Hartsell Cold Chain Limited, a company incorporated in England (the "Provider"), and Dallowmere Foods Ltd (the "Client").';
   const contract = must(await system.POST('/v1/contracts', { body: { source: 'clm', externalId: 'G-1', text } }), 'storeContract');
   const mention = must(await system.POST('/v1/mentions', { body: { source: 'queue', externalId: 'g-1', text: 'Hartsell Cold Chain' } }), 'resolveMention');
-  const read = must(await system.GET('/v1/mentions/{id}', { params: { path: { id: mention.mentionId ?? 0 } } }), 'readMention');
-  // The response schemas list no required fields yet, so the generated types make every field optional.
-  const provider = (contract.parties ?? []).find((p) => p.role === 'Provider');
+  const read = must(await system.GET('/v1/mentions/{id}', { params: { path: { id: mention.mentionId } } }), 'readMention');
+  // The response schemas declare the fields always present as required: the generated types do not make them
+  // optional. Each annotation below is a check: it does not compile when the field's type is number | undefined.
+  const mentionId: number = mention.mentionId;
+  const status: string = read.status;
+  const provider = contract.parties.find((p) => p.role === 'Provider');
   const counterparty = must(await system.GET('/v1/counterparties/{id}', { params: { path: { id: provider?.counterpartyId ?? 0 } } }), 'readCounterparty');
+  const canonicalName: string = counterparty.canonicalName;
+  const counterpartyId: number = counterparty.id;
   const item = must(await system.GET('/v1/review-items/{id}', { params: { path: { id: read.reviewItemId ?? 0 } } }), 'readReviewItem');
   const decision: Decision = { decision: 'same', reason: 'the same provider' };
-  const decided = must(await admin.POST('/v1/review-items/{id}/decision', { params: { path: { id: item.id ?? 0 } }, body: decision }), 'decideReviewItem');
-  return { key: key.scope, mention: mention.status, reviewItemId: read.reviewItemId, counterparty: counterparty.canonicalName, counterpartyId: counterparty.id, item: item.status, decided };
+  const decided = must(await admin.POST('/v1/review-items/{id}/decision', { params: { path: { id: item.id } }, body: decision }), 'decideReviewItem');
+  void mentionId;
+  void status;
+  return { key: key.scope, mention: mention.status, reviewItemId: read.reviewItemId, counterparty: canonicalName, counterpartyId, item: item.status, decided };
 }
 `;
 
@@ -81,6 +88,17 @@ describeEachBackend('a client generated from /openapi.json', (ctx) => {
     for (const id of ids) expect(id).toMatch(/^[a-z][A-Za-z]+$/);
     // No stale entry: each name in services/api/operation-ids.ts is served.
     expect(ids.sort()).toEqual(Object.values(OPERATION_IDS).sort());
+  });
+
+  it('declares the fields always present as required, so generated types do not make them optional', () => {
+    type Schema = { required?: string[]; properties?: Record<string, unknown> };
+    const components = (doc as unknown as { paths: Record<string, Record<string, { responses?: Record<string, { content?: Record<string, { schema?: Schema }> }> }>> }).paths;
+    const answer = (path: string, method: string, status: string): Schema | undefined => components[path]?.[method]?.responses?.[status]?.content?.['application/json']?.schema;
+    expect(answer('/v1/counterparties/{id}', 'get', '200')?.required).toEqual(expect.arrayContaining(['id', 'canonicalName', 'status', 'version']));
+    expect(answer('/v1/mentions/{id}', 'get', '200')?.required).toEqual(expect.arrayContaining(['id', 'source', 'externalId', 'text', 'status']));
+    expect(answer('/v1/mentions', 'post', '200')?.required).toEqual(expect.arrayContaining(['mentionId', 'status', 'reviewItemId']));
+    expect(answer('/v1/contracts', 'post', '200')?.required).toEqual(expect.arrayContaining(['contractId', 'parties']));
+    expect(answer('/v1/review-items/{id}', 'get', '200')?.required).toEqual(expect.arrayContaining(['id', 'kind', 'status']));
   });
 
   it('generates types that compile with a typed flow, and the flow runs against the service', async () => {

@@ -57,6 +57,29 @@ describeEachBackend('/v1 counterparties', (ctx) => {
     expect((await k.call('read', { method: 'GET', url: `/v1/counterparties/${id}` })).json().canonicalName).toBe('Vellacourt Instrumente GmbH');
   });
 
+  it('creates with canonicalName, the field GET answers (issue 19); name stays a deprecated alias; both, or neither, is refused', async () => {
+    const made = await k.call('admin', { method: 'POST', url: '/v1/counterparties', payload: { canonicalName: 'Orrinford Marine Services Ltd', jurisdiction: 'GB' } });
+    expect(made.statusCode, made.body).toBe(201);
+    const got = await k.call('read', { method: 'GET', url: `/v1/counterparties/${made.json().counterpartyId}` });
+    expect(got.json().canonicalName).toBe('Orrinford Marine Services Ltd');
+    const alias = await k.call('admin', { method: 'POST', url: '/v1/counterparties', payload: { name: 'Orrinford Dredging Ltd' } });
+    expect(alias.statusCode, alias.body).toBe(201);
+    expect((await k.call('read', { method: 'GET', url: `/v1/counterparties/${alias.json().counterpartyId}` })).json().canonicalName).toBe('Orrinford Dredging Ltd');
+    // The same refusal as PATCH gives (422 VALIDATION_FAILED, naming the field), and nothing is created.
+    const before = (await k.call('read', { method: 'GET', url: '/v1/counterparties?q=Orrinford' })).body;
+    const both = await k.call('admin', { method: 'POST', url: '/v1/counterparties', payload: { canonicalName: 'Orrinford A Ltd', name: 'Orrinford B Ltd' } });
+    expect(both.statusCode).toBe(422);
+    expect(both.headers['content-type']).toContain('application/problem+json');
+    expect(both.json().errors).toEqual([{ pointer: '/name', message: 'give either canonicalName or name, not both' }]);
+    const neither = await k.call('admin', { method: 'POST', url: '/v1/counterparties', payload: { jurisdiction: 'GB' } });
+    expect(neither.statusCode).toBe(422);
+    expect(neither.json().errors).toEqual([{ pointer: '/canonicalName', message: 'canonicalName is required (or its deprecated spelling name)' }]);
+    const blank = await k.call('admin', { method: 'POST', url: '/v1/counterparties', payload: { canonicalName: '   ' } });
+    expect(blank.statusCode).toBe(422);
+    expect(blank.body).toContain('canonicalName');
+    expect((await k.call('read', { method: 'GET', url: '/v1/counterparties?q=Orrinford' })).body).toBe(before);
+  });
+
   it('merges with ETags, answers 308 for the merged id, and undoes the merge', async () => {
     const a = await create('Tarnwell Optics Ltd', { jurisdiction: 'GB' });
     const b = await create('Tarnwell Optics Limited', { jurisdiction: 'GB' });

@@ -242,6 +242,8 @@ export const COUNTERPARTY_SUMMARY_PROPS = {
 
 export const COUNTERPARTY_OUT = {
   type: 'object',
+  // Always present (nullable ones as null): a generated client types them as such, not as optional.
+  required: ['id', 'canonicalName', 'kind', 'status', 'version'],
   properties: {
     ...COUNTERPARTY_SUMMARY_PROPS,
     names: { type: 'array', items: NAME_OUT },
@@ -281,6 +283,7 @@ export const COUNTERPARTY_OUT = {
 
 export const MENTION_OUT = {
   type: 'object',
+  required: ['id', 'source', 'externalId', 'text', 'status'],
   properties: {
     id: { type: 'integer' },
     source: { type: 'string' },
@@ -329,6 +332,7 @@ export const EVENT_OUT = {
 
 export const CHANGE_RESULT = {
   type: 'object',
+  required: ['counterpartyId', 'eventId', 'version'],
   properties: { counterpartyId: { type: 'integer' }, eventId: { type: 'integer', nullable: true }, version: { type: 'integer' }, etag: { type: 'string' } },
 } as const;
 

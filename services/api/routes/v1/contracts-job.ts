@@ -21,7 +21,7 @@ import { submitContractsJob } from '../../../jobs/submit-contracts.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import type { RoutePlugin } from '../../types.ts';
 import { SOURCE_ID, actorOf } from './common.ts';
-import { JOB_OUT, jobView } from './exports-jobs.ts';
+import { JOB_OUT, answerJobCreated, jobView } from './exports-jobs.ts';
 import { jobsFor } from './job-queue.ts';
 import { claimIdempotencyKey, idempotencyKeyOf, releaseIdempotencyKey, sendStoredAnswer, storeIdempotentAnswer } from '../../auth/idempotency.ts';
 
@@ -177,11 +177,19 @@ export const contractsJobRoutes: RoutePlugin = async (app, deps) => {
         const jobs = await jobsFor(app, deps);
         submitted = await submitContractsJob(
           { db, queue: jobs.queue },
-          { file: upload.path, folder: upload.folder, source: request.query.source, actor: actorOf(request).actor, inputName: upload.inputName, partitionSize: request.query.partitionSize },
+          {
+            file: upload.path,
+            folder: upload.folder,
+            source: request.query.source,
+            actor: actorOf(request).actor,
+            inputName: upload.inputName,
+            partitionSize: request.query.partitionSize,
+            ...(claim ? { onJobCreated: answerJobCreated(claim) } : {}),
+          },
         );
       } catch (error) {
         await removeUpload();
-        if (claim) await releaseIdempotencyKey(db, claim);
+        if (claim) await releaseIdempotencyKey(db, claim, { answered: true });
         if (error instanceof ArchiveRefusedError) throw new ApiError('ARCHIVE_REFUSED', error.message);
         throw error;
       }

@@ -11,7 +11,7 @@ import { findContractId, getContract } from '../../../../db/queries/contracts.ts
 import { ApiError, problemResponses } from '../../errors.ts';
 import type { RoutePlugin } from '../../types.ts';
 import { ID, ID_PARAM, IDENTIFIER, MENTION_OUT, NAME, PAGE_QUERY, REASON, SOURCE_ID, actorOf, decodeCursor, encodeCursor, page, pagedOf, v1Scope } from './common.ts';
-import { RESOLVE_OUT } from './mentions.ts';
+import { RESOLVE_OUT, RESOLVE_REQUIRED } from './mentions.ts';
 import { withLegalForm } from './legal-form.ts';
 
 export const CONTRACT_BODY_LIMIT = 1024 * 1024;
@@ -66,6 +66,7 @@ interface ReviewQuery {
 /** One review item with its mention and both sides; the ranked list adds priority, uncertainty and group. */
 const REVIEW_ITEM_OUT = {
   type: 'object',
+  required: ['id', 'kind', 'status'],
   properties: {
     id: { type: 'integer' },
     kind: { type: 'string' },
@@ -141,10 +142,11 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
         response: {
           200: {
             type: 'object',
+            required: ['contractId', 'alreadyStored', 'parties', 'reresolved'],
             properties: {
               contractId: { type: 'integer' },
               alreadyStored: { type: 'boolean' },
-              parties: { type: 'array', items: { type: 'object', properties: { ...RESOLVE_OUT.properties, position: { type: 'integer' }, role: { type: 'string', nullable: true }, terms: { type: 'array', items: { type: 'string' } } } } },
+              parties: { type: 'array', items: { type: 'object', required: [...RESOLVE_REQUIRED, 'position', 'role', 'terms'], properties: { ...RESOLVE_OUT.properties, position: { type: 'integer' }, role: { type: 'string', nullable: true }, terms: { type: 'array', items: { type: 'string' } } } } },
               reresolved: { type: 'array', items: RESOLVE_OUT },
               contract: CONTRACT_OUT,
               reconciliation: {

@@ -169,33 +169,35 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
     },
   );
 
-  app.post<{ Body: { name: string; kind?: 'organisation' | 'person' | 'unknown'; jurisdiction?: string; otherNames?: { name: string; kind: (typeof NAME_KINDS)[number] }[]; identifiers?: { scheme: string; value: string; label?: string }[]; reason?: string } }>(
+  app.post<{ Body: CreateBody }>(
     '/v1/counterparties',
     {
       config: { scope: 'admin' },
       schema: {
         summary: 'Create a counterparty by hand',
+        description: 'The name is `canonicalName`, the field GET answers; `name` is its earlier spelling, still accepted. Send exactly one of the two.',
         tags: TAGS,
         body: {
           type: 'object',
-          required: ['name'],
           additionalProperties: false,
           properties: {
-            name: NAME,
+            canonicalName: { ...NAME, description: 'the canonical name, the field GET answers (required unless the deprecated name is sent)' },
+            name: { ...NAME, deprecated: true, description: 'the earlier name of canonicalName, still accepted; send one of the two' },
             kind: { type: 'string', enum: ['organisation', 'person', 'unknown'] },
             jurisdiction: COUNTRY,
             otherNames: { type: 'array', maxItems: 100, items: { type: 'object', required: ['name', 'kind'], additionalProperties: false, properties: { name: NAME, kind: { type: 'string', enum: [...NAME_KINDS] } } } },
             identifiers: { type: 'array', maxItems: 100, items: IDENTIFIER },
             reason: REASON,
           },
-          example: { name: 'Harrowgate Tooling Ltd', jurisdiction: 'GB', identifiers: [{ scheme: 'gb_company', value: '01234567' }], reason: 'onboarded by procurement' },
+          example: { canonicalName: 'Harrowgate Tooling Ltd', jurisdiction: 'GB', identifiers: [{ scheme: 'gb_company', value: '01234567' }], reason: 'onboarded by procurement' },
         },
         response: { 201: CHANGE_RESULT, ...problemResponses(409) },
       },
     },
     async (request, reply) => {
-      const { reason, ...input } = request.body;
-      const result = await createCounterparty(ctx, input, actorOf(request, reason));
+      const { reason, canonicalName, name, ...rest } = request.body;
+      const given = oneCanonicalName(canonicalName, name);
+      const result = await createCounterparty(ctx, { ...rest, name: given }, actorOf(request, reason));
       const etag = etagOf(result.counterpartyId, result.version);
       reply.code(201).header('location', `/v1/counterparties/${result.counterpartyId}`).header('etag', etag);
       return { ...result, etag };
@@ -238,9 +240,7 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
       const body = request.body;
       const who = actorOf(request, body.reason);
       // Check every field first, so that a bad field stops the request before anything is written.
-      if (body.name !== undefined && body.canonicalName !== undefined) {
-        throw new ApiError('VALIDATION_FAILED', 'send canonicalName only (name is its earlier spelling)', { errors: [{ pointer: '/name', message: 'give either canonicalName or name, not both' }] });
-      }
+      if (body.name !== undefined && body.canonicalName !== undefined) throw bothNames();
       const newName = body.canonicalName ?? body.name;
       if (newName !== undefined) checkName(body.canonicalName !== undefined ? 'canonicalName' : 'name', newName);
       const jurisdiction = body.jurisdiction === undefined ? undefined : checkJurisdiction('jurisdiction', body.jurisdiction);
@@ -519,4 +519,31 @@ interface PatchBody {
   addIdentifiers?: { scheme: string; value: string; label?: string }[];
   removeIdentifierIds?: number[];
   reason?: string;
+}
+
+interface CreateBody {
+  canonicalName?: string;
+  /** Deprecated spelling of canonicalName. */
+  name?: string;
+  kind?: 'organisation' | 'person' | 'unknown';
+  jurisdiction?: string;
+  otherNames?: { name: string; kind: (typeof NAME_KINDS)[number] }[];
+  identifiers?: { scheme: string; value: string; label?: string }[];
+  reason?: string;
+}
+
+/** Both spellings of the one name at once: refused, the same way on POST and PATCH. */
+function bothNames(): ApiError {
+  return new ApiError('VALIDATION_FAILED', 'send canonicalName only (name is its earlier spelling)', { errors: [{ pointer: '/name', message: 'give either canonicalName or name, not both' }] });
+}
+
+/** The name a new counterparty gets: canonicalName, or its deprecated spelling name; exactly one of them. */
+function oneCanonicalName(canonicalName: string | undefined, name: string | undefined): string {
+  if (canonicalName !== undefined && name !== undefined) throw bothNames();
+  const given = canonicalName ?? name;
+  if (given === undefined) {
+    throw new ApiError('VALIDATION_FAILED', 'canonicalName is required', { errors: [{ pointer: '/canonicalName', message: 'canonicalName is required (or its deprecated spelling name)' }] });
+  }
+  checkName(canonicalName !== undefined ? 'canonicalName' : 'name', given);
+  return given;
 }

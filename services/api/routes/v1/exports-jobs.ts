@@ -19,7 +19,7 @@ import type { Database } from '../../../../db/types.ts';
 import { EXPORT_FORMATS, EXPORT_KINDS, exportChunks, type ExportFormat, type ExportKind } from '../../../export/exports.ts';
 import type { Jobs } from '../../../jobs/start-jobs.ts';
 import { jobsFor } from './job-queue.ts';
-import { submitIngestJob } from '../../../jobs/submit-ingest.ts';
+import { submitIngestJob, type JobCreatedHook } from '../../../jobs/submit-ingest.ts';
 import { submitSweepJob } from '../../../jobs/steps.ts';
 import { partitionTally } from '../../../../db/queries/jobs.ts';
 import { reresolve } from '../../../register/reresolve.ts';
@@ -31,6 +31,7 @@ import { NDJSON } from './mentions.ts';
 
 export const JOB_OUT = {
   type: 'object',
+  required: ['id', 'kind', 'status'],
   properties: {
     id: { type: 'integer' },
     kind: { type: 'string', enum: ['ingest', 'sweep', 'reresolve', 'contracts'] },
@@ -167,9 +168,12 @@ export const exportJobRoutes: RoutePlugin = async (app, deps) => {
         const who = actorOf(request);
         let id: number;
         try {
-          id = await submitIngestJob({ db, queue: (await jobsReady()).queue }, { file, format: 'ndjson', source: request.query.source, actor: who.actor, inputName: 'upload', ...(request.query.partitionSize ? { partitionSize: request.query.partitionSize } : {}) });
+          id = await submitIngestJob(
+            { db, queue: (await jobsReady()).queue },
+            { file, format: 'ndjson', source: request.query.source, actor: who.actor, inputName: 'upload', ...(request.query.partitionSize ? { partitionSize: request.query.partitionSize } : {}), ...(claim ? { onJobCreated: answerJobCreated(claim) } : {}) },
+          );
         } catch (error) {
-          if (claim) await releaseIdempotencyKey(db, claim);
+          if (claim) await releaseIdempotencyKey(db, claim, { answered: true });
           throw error;
         }
         const job = await jobView(db, id);
@@ -221,6 +225,16 @@ export const exportJobRoutes: RoutePlugin = async (app, deps) => {
     async (request) => jobView(db, request.params.id),
   );
 };
+
+/**
+ * A job submission's Idempotency-Key answer, stored in the transaction that creates the job: a retry whose first
+ * answer was lost (the process stopped while the upload was read, or before it answered) is answered with the same
+ * job, never a second one. The answer stored once the submission is done replaces it with the job as it then is.
+ */
+export function answerJobCreated(claim: { keyId: string; key: string }): JobCreatedHook {
+  return async (trx, jobId) =>
+    storeIdempotentAnswer(trx, claim, { statusCode: 202, contentType: 'application/json; charset=utf-8', headers: { location: `/v1/jobs/${jobId}` }, body: JSON.stringify(await jobView(trx, jobId)) });
+}
 
 export async function jobView(db: Kysely<Database>, id: number): Promise<Record<string, unknown>> {
   const row = await db.selectFrom('job').selectAll().where('id', '=', id).executeTakeFirst();

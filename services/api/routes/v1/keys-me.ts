@@ -7,6 +7,7 @@ import { v1Scope } from './common.ts';
 
 const KEY_OUT = {
   type: 'object',
+  required: ['id', 'label', 'scope', 'createdAt'],
   properties: {
     id: { type: 'string' },
     label: { type: 'string' },

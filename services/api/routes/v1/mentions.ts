@@ -34,8 +34,12 @@ export const MENTION_IN = {
   example: { source: 'clm', externalId: 'C-2031/p2', text: 'Brackenridge Fabrication, Inc.', contract: { source: 'clm', externalId: 'C-2031' }, role: 'Supplier', country: 'US-DE' },
 } as const;
 
+/** Every field of a resolution result (services/register/resolve ResolveResult), always present. */
+export const RESOLVE_REQUIRED = ['mentionId', 'source', 'externalId', 'status', 'counterpartyId', 'canonicalName', 'ownEntityId', 'score', 'reviewItemId', 'alreadyIngested', 'eventId'];
+
 export const RESOLVE_OUT = {
   type: 'object',
+  required: RESOLVE_REQUIRED,
   properties: {
     mentionId: { type: 'integer' },
     source: { type: 'string' },

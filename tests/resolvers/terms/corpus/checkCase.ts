@@ -2,6 +2,7 @@
 import { parseParties, resolveInContract, termKey } from '../../../../resolvers/terms/index.ts';
 import type { ParsedContract } from '../../../../resolvers/terms/index.ts';
 import type { CorpusCase } from './contracts.ts';
+import { oneLine } from '../../../../resolvers/terms/parseParties.ts';
 
 const sameList = (a: string[], b: string[]): boolean => a.length === b.length && a.every((x, i) => x === b[i]);
 const sameSet = (a: string[], b: string[]): boolean => a.length === b.length && a.every((x) => b.includes(x));
@@ -14,7 +15,8 @@ export function checkCase(c: CorpusCase, parsed: ParsedContract = parseParties(c
   for (const e of c.parties) {
     const p = parsed.parties.find((x) => x.name === e.name);
     if (p === undefined) continue;
-    if (!c.text.includes(p.name)) diffs.push(`${e.name}: name not verbatim in the text`);
+    // Verbatim, a line break inside a name read as one space (oneLine).
+    if (!oneLine(c.text).includes(p.name)) diffs.push(`${e.name}: name not verbatim in the text`);
     if (!sameSet(p.terms, e.terms)) diffs.push(`${e.name}: terms ${JSON.stringify(p.terms)}, want ${JSON.stringify(e.terms)}`);
     if (e.role !== undefined && p.role !== e.role) diffs.push(`${e.name}: role ${JSON.stringify(p.role)}, want ${JSON.stringify(e.role)}`);
     if (e.jurisdiction !== undefined && p.jurisdiction !== e.jurisdiction) diffs.push(`${e.name}: jurisdiction ${p.jurisdiction}, want ${e.jurisdiction}`);

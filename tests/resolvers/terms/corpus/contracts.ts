@@ -618,10 +618,10 @@ Holdings plc (the "Owner"; and together with the Operator, the "Parties").
 "Business Day" means a day other than a Saturday.
 The Operator shall provide the services to the Owner (the "Services").`,
     parties: [
-      { name: 'Greystoke\nHarbour Services Limited', terms: ['Operator'], role: 'Operator', jurisdiction: 'GB' },
-      { name: 'Ilfracombe Marine\nHoldings plc', terms: ['Owner'], role: 'Owner' },
+      { name: 'Greystoke Harbour Services Limited', terms: ['Operator'], role: 'Operator', jurisdiction: 'GB' },
+      { name: 'Ilfracombe Marine Holdings plc', terms: ['Owner'], role: 'Owner' },
     ],
-    collective: [{ term: 'Parties', parties: ['Greystoke\nHarbour Services Limited', 'Ilfracombe Marine\nHoldings plc'] }],
+    collective: [{ term: 'Parties', parties: ['Greystoke Harbour Services Limited', 'Ilfracombe Marine Holdings plc'] }],
     notParties: ['Services'],
   },
   {
