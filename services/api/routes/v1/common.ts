@@ -5,7 +5,8 @@
 import type { FastifyError, FastifyInstance, FastifyReply, FastifyRequest } from 'fastify';
 import { createRegisterContext, type ActorInput, type RegisterContext } from '../../../register/context.ts';
 import { RegisterError } from '../../../register/errors.ts';
-import { ApiError, type ErrorCode } from '../../errors.ts';
+import { ApiError } from '../../errors.ts';
+import { REGISTER_TO_API } from '../../register-error-codes.ts';
 import type { AppDeps } from '../../types.ts';
 import { IDENTIFIER_SCHEMES, NAME_KINDS, RELATION_TYPES, RESOLUTION_STATUSES } from '../../../../resolvers/vocabulary.ts';
 
@@ -15,23 +16,9 @@ export const MAX_REASON = 2000;
 export const MAX_PAGE = 500;
 export const DEFAULT_PAGE = 50;
 
-const REGISTER_TO_API: Record<string, ErrorCode> = {
-  NOT_FOUND: 'NOT_FOUND',
-  INVALID_INPUT: 'VALIDATION_FAILED',
-  CONFLICT: 'CONFLICT',
-  IDENTIFIER_TAKEN: 'IDENTIFIER_TAKEN',
-  CANNOT_LINK: 'CANNOT_LINK',
-  COUNTERPARTY_MERGED: 'COUNTERPARTY_MERGED',
-  UNDO_BLOCKED: 'UNDO_BLOCKED',
-  ALREADY_UNDONE: 'ALREADY_UNDONE',
-  NOT_UNDOABLE: 'NOT_UNDOABLE',
-  STALE_VERSION: 'PRECONDITION_FAILED',
-  TRANSACTION_RETRIES_EXHAUSTED: 'BUSY_RETRY',
-};
-
 /** A register error as the problem the API answers (field errors point into the body). */
 export function toApiError(error: RegisterError): ApiError {
-  const code = REGISTER_TO_API[error.code] ?? 'CONFLICT';
+  const code = REGISTER_TO_API[error.code];
   const field = typeof error.details.field === 'string' ? error.details.field : undefined;
   const extensions: Record<string, unknown> = {};
   for (const [name, value] of Object.entries(error.details)) if (name !== 'field' && name !== 'what') extensions[name] = value;
