@@ -18,7 +18,7 @@ import type { Database } from '../../db/types.ts';
 import { createRegisterContext, type RegisterContext } from '../register/context.ts';
 import { resolveBatch } from '../register/batch.ts';
 import { prepareMention } from '../register/resolve/prepare.ts';
-import type { MentionInput } from '../../resolvers/vocabulary.ts';
+import { mentionKey, type MentionInput } from '../../resolvers/vocabulary.ts';
 import { columnWarnings, MappingError, mentionFromJson, mentionFromRow, resolveColumns, type FieldMap, type RowResult } from './mapping.ts';
 import { RejectsWriter } from './rejects.ts';
 import { unstorableRowReason } from './unstorable-text.ts';
@@ -84,7 +84,7 @@ export async function storedHashes(db: Kysely<Database>, mentions: MentionInput[
     for (let start = 0; start < ids.length; start += STORED_LOOKUP_CHUNK) {
       const slice = ids.slice(start, start + STORED_LOOKUP_CHUNK);
       const rows = await db.selectFrom('mention').select(['external_id', 'content_hash']).where('source', '=', source).where('external_id', 'in', slice).execute();
-      for (const r of rows) out.set(`${source}\u0000${r.external_id}`, r.content_hash);
+      for (const r of rows) out.set(mentionKey(source, r.external_id), r.content_hash);
     }
   }
   return out;
@@ -245,7 +245,7 @@ export async function ingestFile(options: IngestOptions): Promise<IngestSummary>
     // per row (the register would answer the same: already ingested, nothing done).
     const stored = await storedHashes(options.db, batch.map((b) => b.mention));
     const fresh = batch.filter((b) => {
-      const hash = stored.get(`${b.mention.source}\u0000${b.mention.externalId}`);
+      const hash = stored.get(mentionKey(b.mention.source, b.mention.externalId));
       if (hash === undefined) return true;
       try {
         if (prepareMention(b.mention).contentHash !== hash) return true;

@@ -20,6 +20,7 @@ import { MAX_LISTED_REJECTS, type JobDeps } from './deps.ts';
 import { readyToFinish } from './finish-guard.ts';
 import type { CrossPair, IngestPlan } from './plan-ingest.ts';
 import type { PartitionResult } from './run-ingest-partition.ts';
+import { mentionKey } from '../../resolvers/vocabulary.ts';
 
 export interface CrossMerge {
   survivorId: number;
@@ -85,11 +86,11 @@ async function mergeAcrossPartitions(deps: JobDeps, job: JobRow, crossPairs: rea
     SELECT m.source, m.external_id, m.counterparty_id FROM mention m
     JOIN unnest(${sql.val(sources)}::text[], ${sql.val(externalIds)}::text[]) AS k(source, external_id)
       ON m.source = k.source AND m.external_id = k.external_id`.execute(deps.db);
-  const cpOf = new Map(found.rows.filter((r) => r.counterparty_id !== null).map((r) => [`${r.source}\u0000${r.external_id}`, Number(r.counterparty_id)]));
+  const cpOf = new Map(found.rows.filter((r) => r.counterparty_id !== null).map((r) => [mentionKey(r.source, r.external_id), Number(r.counterparty_id)]));
   const best = new Map<string, ScoredEdge>();
   for (const [a, b, score] of crossPairs) {
-    const x = cpOf.get(`${a[0]}\u0000${a[1]}`);
-    const y = cpOf.get(`${b[0]}\u0000${b[1]}`);
+    const x = cpOf.get(mentionKey(a[0], a[1]));
+    const y = cpOf.get(mentionKey(b[0], b[1]));
     if (x === undefined || y === undefined || x === y) continue;
     const [lo, hi] = x < y ? [x, y] : [y, x];
     const key = `${lo}:${hi}`;

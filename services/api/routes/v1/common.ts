@@ -8,10 +8,8 @@ import { RegisterError } from '../../../register/errors.ts';
 import { ApiError } from '../../errors.ts';
 import { REGISTER_TO_API } from '../../register-error-codes.ts';
 import type { AppDeps } from '../../types.ts';
-import { IDENTIFIER_SCHEMES, NAME_KINDS, RELATION_TYPES, RESOLUTION_STATUSES } from '../../../../resolvers/vocabulary.ts';
+import { IDENTIFIER_SCHEMES, MAX_ID_LENGTH, MAX_NAME_LENGTH, NAME_KINDS, RELATION_TYPES, RESOLUTION_STATUSES } from '../../../../resolvers/vocabulary.ts';
 
-export const MAX_NAME = 1000;
-export const MAX_ID = 300;
 export const MAX_REASON = 2000;
 export const MAX_PAGE = 500;
 export const DEFAULT_PAGE = 50;
@@ -150,8 +148,8 @@ export const REDIRECT_308 = {
 } as const;
 
 export const REASON = { type: 'string', maxLength: MAX_REASON, description: 'why (kept in the history)' } as const;
-export const NAME = { type: 'string', minLength: 1, maxLength: MAX_NAME } as const;
-export const SOURCE_ID = { type: 'string', minLength: 1, maxLength: MAX_ID } as const;
+export const NAME = { type: 'string', minLength: 1, maxLength: MAX_NAME_LENGTH } as const;
+export const SOURCE_ID = { type: 'string', minLength: 1, maxLength: MAX_ID_LENGTH } as const;
 export const COUNTRY = { type: 'string', pattern: '^[A-Z]{2}(-[A-Z0-9]{1,3})?$', description: 'ISO 3166-1 alpha-2 or ISO 3166-2', example: 'DE' } as const;
 
 export const IDENTIFIER = {
