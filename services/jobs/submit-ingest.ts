@@ -7,6 +7,7 @@
 import { createReadStream } from 'node:fs';
 import type { Kysely } from 'kysely';
 import type { JobQueue } from '../../db/job-queue.ts';
+import { finishIngestRun, insertIngestRun } from '../../db/queries/ingest-runs.ts';
 import { insertChunk, insertJob, updateJob } from '../../db/queries/jobs.ts';
 import type { Database } from '../../db/types.ts';
 import type { MentionInput } from '../../resolvers/vocabulary.ts';
@@ -39,12 +40,7 @@ export async function submitIngestJob(deps: { db: Kysely<Database>; queue: JobQu
   if (!Number.isInteger(partitionSize) || partitionSize < 1) throw new RangeError(`partitionSize must be a whole number of at least 1, got ${partitionSize}`);
   const chunkSize = options.chunkSize ?? PARTITION_DEFAULTS.chunkSize;
   const inputName = options.inputName ?? options.file.split(/[\\/]/).pop() ?? options.file;
-  const run = await deps.db
-    .insertInto('ingest_run')
-    .values({ source: options.source, input_name: inputName, actor: options.actor, status: 'running', started_at: new Date() })
-    .returning('id')
-    .executeTakeFirstOrThrow();
-  const ingestRunId = Number(run.id);
+  const ingestRunId = await insertIngestRun(deps.db, { source: options.source, inputName, actor: options.actor });
   const jobId = await insertJob(deps.db, { kind: 'ingest', actor: options.actor, status: 'queued', params: { source: options.source, input: inputName, partitioned: true, partitionSize, ingestRunId } });
   try {
     let chunk: StagedRow[] = [];
@@ -73,7 +69,7 @@ export async function submitIngestJob(deps: { db: Kysely<Database>; queue: JobQu
   } catch (error) {
     const message = `reading ${inputName} failed: ${(error as Error).message}`;
     await updateJob(deps.db, jobId, { status: 'failed', error: message });
-    await deps.db.updateTable('ingest_run').set({ status: 'failed', finished_at: new Date(), error: message }).where('id', '=', ingestRunId).execute();
+    await finishIngestRun(deps.db, ingestRunId, { status: 'failed', error: message });
     throw error;
   }
   await deps.queue.send(JOB_STEPS.plan, { jobId }, { singletonKey: String(jobId) });
