@@ -13,6 +13,8 @@ const SUPPORT_RENAMES: Record<string, string> = {
 };
 /** Text files whose references are rewritten (everything tracked that is not binary or data). */
 export const TEXT = /\.(?:ts|js|mjs|cjs|json|md|yml|yaml|html|css|sh)$|^\.prettierignore$|(?:^|\/)\.prettierignore$|(?:^|\/)Dockerfile$/;
+/** Files that spell old names on purpose (the rename plan and its tests): never rewritten. */
+export const NO_REWRITE: readonly string[] = ['scripts/kebab-names.ts', 'scripts/rename-to-kebab.ts', 'tests/conventions/file-names.test.ts'];
 export const DATA = [/^data\//, /^tests\/fixtures\/.*\.(?:json|csv|ndjson)$/, /^resolvers\/analyse\/elf-table\.json$/, /^package-lock\.json$/];
 
 /** `analyseName.test.ts` → `analyse-name.test.ts`: each dot-separated part of the name in kebab-case. */

@@ -11,7 +11,7 @@
  */
 import { execFileSync } from 'node:child_process';
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
-import { DATA, TEXT, plannedRenames, rewriteReferences } from './kebab-names.ts';
+import { DATA, NO_REWRITE, TEXT, plannedRenames, rewriteReferences } from './kebab-names.ts';
 
 function git(args: string[]): string {
   return execFileSync('git', args, { encoding: 'utf8', maxBuffer: 64 * 1024 * 1024 });
@@ -38,7 +38,7 @@ function main(): void {
   let rewritten = 0;
   for (const oldFile of files) {
     const file = newOf(oldFile);
-    if (!TEXT.test(file) || DATA.some((p) => p.test(file)) || !existsSync(file)) continue;
+    if (!TEXT.test(file) || DATA.some((p) => p.test(file)) || NO_REWRITE.includes(file) || !existsSync(file)) continue;
     const text = readFileSync(file, 'utf8');
     const next = rewriteReferences(text, file, oldFile, plan);
     if (next !== text) {
