@@ -14,7 +14,7 @@ import { spawnSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { DEFAULT_MATCH_MODEL } from '../resolvers/score/defaultModel.ts';
+import { DEFAULT_MATCH_MODEL } from '../resolvers/score/index.ts';
 import { loadLabelledCsv, type LabelledRow } from '../services/evaluate/loadLabelledCsv.ts';
 import { runEvaluation, type EvaluationReport, type Method } from '../services/evaluate/runEvaluation.ts';
 import { evaluateThroughRegister } from '../services/evaluate/throughRegister.ts';

@@ -72,6 +72,20 @@ export interface MentionInput {
   identifiers?: Identifier[];
 }
 
+/** The longest name a mention, alias or counterparty may carry (characters): the API schemas, the register and the CLI check it. */
+export const MAX_NAME_LENGTH = 1000;
+
+/** The longest source, external id or role (characters): the API schemas and the register check it. */
+export const MAX_ID_LENGTH = 300;
+
+/**
+ * One string for a mention's identity (source, externalId), as a map key. U+0000 separates the parts: the
+ * register refuses it in stored text, so no two identities share a key.
+ */
+export function mentionKey(source: string, externalId: string): string {
+  return `${source}\u0000${externalId}`;
+}
+
 /** What the analysis of one name says about it being a party. */
 export const PARTY_STATUSES = ['party', 'needs_binding', 'not_a_party'] as const;
 export type PartyStatus = (typeof PARTY_STATUSES)[number];

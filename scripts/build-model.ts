@@ -14,7 +14,7 @@ import { loadLabelledCsv, type LabelledRow } from '../services/evaluate/loadLabe
 import { setAsideSharedNames } from '../services/evaluate/setAsideSharedNames.ts';
 import { estimateModel, labelledPairsOf } from '../services/evaluate/trainModel.ts';
 import { generateNames } from '../services/demo/generate-names.ts';
-import { DEFAULT_MATCH_MODEL } from '../resolvers/score/defaultModel.ts';
+import { DEFAULT_MATCH_MODEL } from '../resolvers/score/index.ts';
 
 const datasets = resolve(process.env.CPREG_DATASETS ?? '../shared/datasets');
 const targets = { linkPrecision: 0.99, reviewMatchShare: 0.5 };

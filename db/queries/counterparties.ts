@@ -107,6 +107,19 @@ export async function activeIdsAfter(db: Queryable, afterId: number, limit: numb
   return rows.map((r) => id(r.id));
 }
 
+/** Every active counterparty's id, in id order (a sweep job cuts them into ranges). */
+export async function allActiveIds(db: Queryable): Promise<number[]> {
+  const rows = await db.selectFrom('counterparty').select('id').where('status', '=', 'active').orderBy('id').execute();
+  return rows.map((r) => id(r.id));
+}
+
+/** Status and creation time of these counterparties (ids that do not exist are left out). */
+export async function counterpartyStates(db: Queryable, ids: readonly number[]): Promise<{ id: number; status: string; createdAt: Date }[]> {
+  if (ids.length === 0) return [];
+  const rows = await db.selectFrom('counterparty').select(['id', 'status', 'created_at']).where('id', 'in', [...ids]).execute();
+  return rows.map((r) => ({ id: id(r.id), status: r.status, createdAt: new Date(r.created_at) }));
+}
+
 export async function countActive(db: Queryable): Promise<number> {
   const row = await db
     .selectFrom('counterparty')

@@ -170,3 +170,28 @@ export async function unfinishedPartitions(db: Queryable, jobId: number): Promis
   const rows = await db.selectFrom('job_partition').select('partition_no').where('job_id', '=', jobId).where('status', '<>', 'done').orderBy('partition_no').execute();
   return rows.map((r) => r.partition_no);
 }
+
+/** An unfinished (queued or running) job as the restart and the watchdog read it. */
+export interface UnfinishedJob {
+  id: number;
+  params: Record<string, unknown>;
+  plan: unknown;
+  progress: Record<string, unknown>;
+}
+
+/** Jobs still queued or running, oldest first. */
+export async function unfinishedJobs(db: Queryable): Promise<UnfinishedJob[]> {
+  const rows = await db.selectFrom('job').select(['id', 'params', 'plan', 'progress']).where('status', 'in', ['queued', 'running']).orderBy('id').execute();
+  return rows.map((r) => ({ id: id(r.id), params: parsed(r.params), plan: parsed(r.plan), progress: parsed(r.progress) }));
+}
+
+/** Marks a job failed only while it is still unfinished (another worker may have finished it); answers whether it did. */
+export async function failJobIfUnfinished(db: Queryable, jobId: number, error: string): Promise<boolean> {
+  const done = await db
+    .updateTable('job')
+    .set({ status: 'failed', error, updated_at: new Date(), finished_at: new Date() })
+    .where('id', '=', jobId)
+    .where('status', 'in', ['queued', 'running'])
+    .executeTakeFirst();
+  return Number(done.numUpdatedRows) > 0;
+}

@@ -52,3 +52,9 @@ export async function findRelation(
     .executeTakeFirst();
   return row ? id(row.id) : undefined;
 }
+
+/** The two counterparties a relation joins, or undefined when there is no such relation. */
+export async function relationEnds(db: Queryable, relationId: number): Promise<{ from: number; to: number } | undefined> {
+  const row = await db.selectFrom('counterparty_relation').select(['from_counterparty_id', 'to_counterparty_id']).where('id', '=', relationId).executeTakeFirst();
+  return row ? { from: id(row.from_counterparty_id), to: id(row.to_counterparty_id) } : undefined;
+}

@@ -14,3 +14,5 @@ export { looksLikePersonName } from './looksLikePersonName.ts';
 export { isPrefixJurisdiction } from './legalFormIndex.ts';
 export { validateCountry } from './narrowCodes.ts';
 export type { NameAlternative } from './alternativeNames.ts';
+export { DOCUMENT_TERMS } from './documentTerms.ts';
+export { sameWithTranslatedForm } from './sameWithTranslatedForm.ts';

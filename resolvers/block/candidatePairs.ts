@@ -9,7 +9,7 @@
  * Cost: Σ over small blocks of size² / 2 plus (keys per record × 2 × window) per record; memory: the key index
  * and the pairs (two Int32 per pair).
  */
-import type { IdfTable } from '../compare/idfTable.ts';
+import type { IdfTable } from '../compare/index.ts';
 import { blockingKeys } from './blockingKeys.ts';
 import type { MatchRecord } from './matchRecord.ts';
 

@@ -2,7 +2,7 @@
  * What blocking, scoring and clustering see of one name: its analysis plus the context that travels with it.
  * The register builds one per stored name; `evaluate` one per CSV row.
  */
-import type { NameAnalysis } from '../analyse/types.ts';
+import type { NameAnalysis } from '../analyse/index.ts';
 import type { Identifier } from '../vocabulary.ts';
 
 export interface MatchRecord {

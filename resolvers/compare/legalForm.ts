@@ -11,7 +11,7 @@
  *   different legal entities too, but often affiliates (a foreign subsidiary), hence a level of its own.
  * - missing: one side (or both) has no legal form.
  */
-import type { LegalFormMatch } from '../analyse/types.ts';
+import type { LegalFormMatch } from '../analyse/index.ts';
 import { jurisdictionsCompatible } from './jurisdiction.ts';
 
 export type LegalFormLevel = 'same_family' | 'compatible' | 'conflicting' | 'different_jurisdiction' | 'missing';

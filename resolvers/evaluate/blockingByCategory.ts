@@ -4,8 +4,7 @@
  * Translations and most acronyms cannot be found by name keys at all, so one overall PC would hide the figure
  * that matters: PC on Latin-script pairs that share a word.
  */
-import type { MatchRecord } from '../block/matchRecord.ts';
-import { nameScript } from '../block/script.ts';
+import { nameScript, type MatchRecord } from '../block/index.ts';
 import { blockingMetrics, type BlockingMetrics } from './blockingMetrics.ts';
 
 export const PAIR_CATEGORIES = ['latin_shared_word', 'latin_no_shared_word', 'acronym', 'non_latin'] as const;

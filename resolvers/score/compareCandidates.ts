@@ -2,11 +2,10 @@
  * Compares every candidate pair of a batch once and keeps the result compactly (one byte per feature per pair),
  * so that EM, scoring and a threshold sweep reuse it without comparing again.
  */
-import type { CandidatePairs } from '../block/candidatePairs.ts';
-import type { MatchRecord } from '../block/matchRecord.ts';
+import type { CandidatePairs, MatchRecord } from '../block/index.ts';
 import { softTfIdfWeighted, weighTokens, type IdfTable } from '../compare/index.ts';
 import { compareIdentifiers } from '../identifiers/index.ts';
-import type { IndexedPairs, ScoredEdge } from '../cluster/clusterRecords.ts';
+import type { IndexedPairs, ScoredEdge } from '../cluster/index.ts';
 import type { Random } from '../prng.ts';
 import { compareRecords, nameLevelOf, nameLevels, qualifierLevel } from './compareRecords.ts';
 import { acronymLevel, jurisdictionLevel, legalFormLevel } from './contextLevels.ts';

@@ -2,7 +2,7 @@
  * Compares two records feature by feature: the comparison vector EM learns from and scorePair weighs.
  * Identifier evidence is kept apart from the vector: a decisive identifier or a cannot-link overrides the sum.
  */
-import type { MatchRecord } from '../block/matchRecord.ts';
+import type { MatchRecord } from '../block/index.ts';
 import { compareIdentifiers, type IdentifierComparison } from '../identifiers/index.ts';
 import { compareNameTokens, jaroWinkler, jaroWinklerUpperBound, softTfIdfWeighted, weighTokens, type IdfTable, type NameDifference, type WeightedTokens } from '../compare/index.ts';
 import { distinctLevelOf, isInformativeCore, rareIn, NAME_BANDS, nameLevel, nameLevelOfKind, type ComparisonLevels, type FeatureLevel } from './features.ts';

@@ -7,8 +7,8 @@
  * Only the level is needed here, and it depends on a few distinct values (legal forms, country codes), so the
  * levels are memoised by those values in bounded maps: same inputs, same level as the comparator gives.
  */
-import type { LegalFormMatch } from '../analyse/types.ts';
-import type { MatchRecord } from '../block/matchRecord.ts';
+import type { LegalFormMatch } from '../analyse/index.ts';
+import type { MatchRecord } from '../block/index.ts';
 import { compareAcronym, compareJurisdictions, compareLegalForms } from '../compare/index.ts';
 import type { FeatureLevel } from './features.ts';
 

@@ -3,7 +3,7 @@ export { estimateByEm, levelFrequencies, countPatterns, type ComparisonVector, t
 export { estimateFromLabels, type LabelledVector } from './estimateFromLabels.ts';
 export { decide, featureWeights, parseMatchModel, type Decision, type FeatureModel, type MatchModel } from './matchModel.ts';
 export { COMMON_TOKEN_SHARE, FEATURE_LEVELS, FEATURE_NAMES, NAME_BANDS, expectedNamesWith, isInformativeCore, levelIndices, nameLevel, nameLevelOfKind, type ComparisonLevels, type FeatureName } from './features.ts';
-export { capOf, clusterRulesOf, decidePair, holdOf, linkHeldBackBy, ruledScore, worthReview, HELD_BACK_MARGIN, type Hold, type Override } from './decisionRules.ts';
+export { capOf, clusterRulesOf, decidePair, decidePairAt, holdOf, indexedRules, linkHeldBackBy, ruledScore, worthReview, worthReviewAt, HELD_BACK_MARGIN, type Hold, type Override } from './decisionRules.ts';
 export { compareRecords, compareWeighted, type Comparison } from './compareRecords.ts';
 export { scorePair, scoreComparison, explainLevels, levelVector, type PairScore, type FeatureExplanation, type ScoreOptions } from './scorePair.ts';
 export { trainModel, type TrainOptions } from './trainModel.ts';

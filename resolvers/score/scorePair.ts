@@ -4,7 +4,7 @@
  * (different LEIs, different numbers in one register, a recorded reviewer decision) forbids (−Infinity).
  * The explanation lists every feature, its level and its weight, so every score can be read back.
  */
-import type { MatchRecord } from '../block/matchRecord.ts';
+import type { MatchRecord } from '../block/index.ts';
 import type { IdfTable } from '../compare/index.ts';
 import { compareRecords, type Comparison } from './compareRecords.ts';
 import { FEATURE_NAMES, type ComparisonLevels } from './features.ts';

@@ -3,8 +3,7 @@
  * times (every definition tries several name starts). Pure: same input, same output; results are shared, so
  * callers copy before handing anything out.
  */
-import { analyseName } from '../analyse/index.ts';
-import type { AnalyseHints, NameAnalysis } from '../analyse/types.ts';
+import { analyseName, type AnalyseHints, type NameAnalysis } from '../analyse/index.ts';
 
 const MAX_ENTRIES = 20_000;
 const cache = new Map<string, NameAnalysis>();

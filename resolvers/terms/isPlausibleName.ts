@@ -4,7 +4,7 @@
  * descriptive phrase with a jurisdiction, identifier or address). This keeps "Italy (the "Territory")"
  * and "WHEREAS, the Licensor owns…" out.
  */
-import type { NameAnalysis } from '../analyse/types.ts';
+import type { NameAnalysis } from '../analyse/index.ts';
 
 const NAME_CONNECTORS = new Set([
   'of', 'and', 'the', 'for', 'de', 'du', 'des', 'la', 'le', 'les', 'von', 'van', 'der', 'den', 'di', 'da', 'del',

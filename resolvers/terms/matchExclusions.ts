@@ -7,7 +7,7 @@ import { analyseCached } from './analyseCached.ts';
 import { termKey } from './cleanTerm.ts';
 import type { Exclusion } from './findExclusions.ts';
 import { sameEntityName } from './sameEntityName.ts';
-import type { NameAnalysis } from '../analyse/types.ts';
+import type { NameAnalysis } from '../analyse/index.ts';
 import type { MentionedEntity } from './types.ts';
 
 export interface ExcludableParty {

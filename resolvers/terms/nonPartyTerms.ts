@@ -4,6 +4,6 @@
  * The document terms are resolvers/analyse's (the name analysis rules them out too); a contract also never binds
  * the collective "Affiliates" or "Subsidiaries" to one party.
  */
-import { DOCUMENT_TERMS } from '../analyse/documentTerms.ts';
+import { DOCUMENT_TERMS } from '../analyse/index.ts';
 
 export const NON_PARTY_TERMS: ReadonlySet<string> = new Set([...DOCUMENT_TERMS, 'affiliates', 'affiliate', 'subsidiaries']);

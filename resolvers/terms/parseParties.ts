@@ -5,7 +5,7 @@
  */
 import { findEarlierAgreements } from './findEarlierAgreements.ts';
 import { analyseCached as analyseName } from './analyseCached.ts';
-import type { NameAnalysis } from '../analyse/types.ts';
+import { sameWithTranslatedForm, type NameAnalysis } from '../analyse/index.ts';
 import { normaliseIdentifier } from '../identifiers/index.ts';
 import { checkContractText } from './checkContractText.ts';
 import { cleanTerm, termKey } from './cleanTerm.ts';
@@ -29,7 +29,6 @@ import type { LocatedName } from './locateName.ts';
 import { NON_PARTY_TERMS } from './nonPartyTerms.ts';
 import { pickRole } from './pickRole.ts';
 import { sameEntityName } from './sameEntityName.ts';
-import { sameWithTranslatedForm } from '../analyse/sameWithTranslatedForm.ts';
 import type { ContractIdentifier, ContractParty, ContractSigner, ParsedContract, ParseOptions } from './types.ts';
 
 /** Descriptive text kept per party: enough for any phrase seen in practice, bounded for 1 MB inputs. */

@@ -6,7 +6,7 @@
  * given name, or a name whose own legal form is not the party's ("Orvanel Ltd" for "Orvanel Holdings plc": as often
  * another company of the group) decides nothing.
  */
-import type { NameAnalysis } from '../analyse/types.ts';
+import type { NameAnalysis } from '../analyse/index.ts';
 import { compareAcronym } from '../compare/index.ts';
 import { analyseCached } from './analyseCached.ts';
 import type { ContractParty } from './types.ts';

@@ -2,7 +2,7 @@
  * A party's role in a contract: the defined term that names what it does ("Licensor", "Paying Agent"),
  * not a short form of its own name ("Larkspur", "TMG") nor a pronoun ("we").
  */
-import type { NameAnalysis } from '../analyse/types.ts';
+import type { NameAnalysis } from '../analyse/index.ts';
 import { termKey } from './cleanTerm.ts';
 
 export const PRONOUNS: ReadonlySet<string> = new Set(['we', 'us', 'our', 'ours', 'you', 'your', 'yours', 'i', 'me', 'my', 'nous', 'wir', 'uns', 'noi', 'nosotros']);

@@ -4,7 +4,7 @@
  * a preamble's name with its signature block's), and where they disagree: a given party the text does not name, a
  * party of the text that was not given, or a role or defined term that differs. Pure; the caller analyses names.
  */
-import type { NameAnalysis } from '../analyse/types.ts';
+import type { NameAnalysis } from '../analyse/index.ts';
 import { cleanTerm, termKey } from './cleanTerm.ts';
 import { sameEntityName } from './sameEntityName.ts';
 

@@ -3,12 +3,11 @@
  * a collective term to no single party; a term the contract does not bind is never matched against the
  * register; anything else goes on to matching. Only `parsed` is consulted, so contracts never leak.
  */
-import { analyseName } from '../analyse/index.ts';
+import { analyseName, type NameAnalysis } from '../analyse/index.ts';
 import { analyseCached } from './analyseCached.ts';
 import { termKey } from './cleanTerm.ts';
 import { sameEntityName } from './sameEntityName.ts';
 import { partyByInitials, partyByShortName } from './partyByShortName.ts';
-import type { NameAnalysis } from '../analyse/types.ts';
 import type { ContractParty, DeclaredName, InContractResolution, ParsedContract, PartyRef } from './types.ts';
 
 function ref(parties: ContractParty[], index: number): PartyRef {

@@ -4,8 +4,7 @@
  * equal normalised names, equal cores with the same (or an absent) legal form family, or one name with its local
  * legal form and an English rendering of that form (sameWithTranslatedForm).
  */
-import type { NameAnalysis } from '../analyse/types.ts';
-import { sameWithTranslatedForm } from '../analyse/sameWithTranslatedForm.ts';
+import { sameWithTranslatedForm, type NameAnalysis } from '../analyse/index.ts';
 
 export function sameEntityName(a: NameAnalysis, b: NameAnalysis): boolean {
   if (a.normalised.length === 0 || b.normalised.length === 0) return false;

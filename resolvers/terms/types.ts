@@ -3,7 +3,7 @@
  * The JSON shape of `cpreg contract parse --json` is exactly `ParsedContract` minus `reason`'s absence.
  */
 import type { AliasKind, EntityKind, IdentifierScheme, RelationType, ResolutionStatus } from '../vocabulary.ts';
-import type { LegalFormMatch, NameAnalysis } from '../analyse/types.ts';
+import type { LegalFormMatch, NameAnalysis } from '../analyse/index.ts';
 import type { AgreementReference } from './findEarlierAgreements.ts';
 
 export interface ContractIdentifier {

@@ -38,8 +38,8 @@ export interface AppDeps {
  */
 export type RoutePlugin = (app: FastifyInstance, deps: AppDeps) => Promise<void> | void;
 
-/** An app-wide plugin: runs on the root instance before any route is registered. */
-export type AppPlugin = (app: FastifyInstance, deps: AppDeps) => Promise<void> | void;
+/** An app-wide plugin: the same shape as a route plugin, run on the root instance before any route is registered. */
+export type AppPlugin = RoutePlugin;
 
 export const DEFAULT_DB_TIMEOUT_MS = 5000;
 export const DEFAULT_BODY_LIMIT = 64 * 1024;

@@ -18,11 +18,12 @@ import {
   type SweepPoint,
 } from '../../resolvers/evaluate/index.ts';
 import { seededRandom } from '../../resolvers/prng.ts';
-import { decidePairAt, indexedRules } from '../../resolvers/score/decisionRules.ts';
 import {
   clusterRulesOf,
   compareCandidates,
   comparedVectors,
+  decidePairAt,
+  indexedRules,
   FEATURE_NAMES,
   estimateFromLabels,
   indexedPairsOf,

@@ -12,10 +12,9 @@
 import { analyseName } from '../../resolvers/analyse/index.ts';
 import { candidatePairs, type MatchRecord } from '../../resolvers/block/index.ts';
 import { buildIdfTable } from '../../resolvers/compare/index.ts';
-import { clusterRulesOf, compareCandidates, FEATURE_LEVELS, FEATURE_NAMES, indexedPairsOf, scoreCompared, type ComparedPairs, type MatchModel } from '../../resolvers/score/index.ts';
+import { clusterRulesOf, compareCandidates, FEATURE_LEVELS, FEATURE_NAMES, indexedPairsOf, indexedRules, scoreCompared, worthReviewAt, type ComparedPairs, type MatchModel } from '../../resolvers/score/index.ts';
 import { clusterIndexed, clustersToLabels } from '../../resolvers/cluster/index.ts';
 import { pairwiseScores } from '../../resolvers/evaluate/index.ts';
-import { indexedRules, worthReviewAt } from '../../resolvers/score/decisionRules.ts';
 import type { LabelledRow } from './loadLabelledCsv.ts';
 
 export interface TrainingSet {

@@ -5,7 +5,7 @@
  * id updates its mention (docs/api.md, "Batch ingest").
  */
 import { createHash } from 'node:crypto';
-import { IDENTIFIER_SCHEMES, type IdentifierScheme, type MentionInput } from '../../resolvers/vocabulary.ts';
+import { mentionKey, IDENTIFIER_SCHEMES, type IdentifierScheme, type MentionInput } from '../../resolvers/vocabulary.ts';
 import { schemeOfRegistrationNumber, schemeOfTaxId } from '../../resolvers/identifiers/index.ts';
 
 export const MENTION_FIELDS = ['externalId', 'text', 'contract', 'contractSource', 'role', 'country', 'address', 'identifiers', 'taxId', 'registrationNumber', 'source'] as const;
@@ -153,7 +153,7 @@ export function mentionFromRow(row: Record<string, string>, values: readonly str
   const registration = get('registrationNumber');
   if (registration !== undefined) identifiers.push(withScheme(schemeOfRegistrationNumber(country), registration, 'registration number'));
   if (identifiers.length > 0) mention.identifiers = identifiers as MentionInput['identifiers'];
-  return { ok: true, mention, identity: `${rowSource}\u0000${externalId}` };
+  return { ok: true, mention, identity: mentionKey(rowSource, externalId) };
 }
 
 function withScheme(scheme: IdentifierScheme | undefined, value: string, label: string): { scheme: string; value: string; label?: string } {
@@ -168,5 +168,5 @@ export function mentionFromJson(value: unknown, line: string, source: string): R
   const rowSource = typeof object.source === 'string' && object.source !== '' ? object.source : source;
   const externalId = typeof object.externalId === 'string' && object.externalId !== '' ? object.externalId : rowIdentity(rowSource, [line]);
   const mention = { ...object, source: rowSource, externalId } as unknown as MentionInput;
-  return { ok: true, mention, identity: `${rowSource}\u0000${externalId}` };
+  return { ok: true, mention, identity: mentionKey(rowSource, externalId) };
 }

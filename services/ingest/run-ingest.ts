@@ -15,10 +15,12 @@ import { createReadStream, statSync } from 'node:fs';
 import { parse } from 'csv-parse';
 import type { Kysely } from 'kysely';
 import type { Database } from '../../db/types.ts';
+import { finishIngestRun, insertIngestRun, updateIngestRunCounts } from '../../db/queries/ingest-runs.ts';
+import { storedMentionsByRef } from '../../db/queries/mentions.ts';
 import { createRegisterContext, type RegisterContext } from '../register/context.ts';
 import { resolveBatch } from '../register/batch.ts';
 import { prepareMention } from '../register/resolve/prepare.ts';
-import type { MentionInput } from '../../resolvers/vocabulary.ts';
+import { mentionKey, type MentionInput } from '../../resolvers/vocabulary.ts';
 import { columnWarnings, MappingError, mentionFromJson, mentionFromRow, resolveColumns, type FieldMap, type RowResult } from './mapping.ts';
 import { RejectsWriter } from './rejects.ts';
 import { unstorableRowReason } from './unstorable-text.ts';
@@ -69,25 +71,10 @@ export interface IngestSummary extends IngestProgress {
   warnings: string[];
 }
 
-/** Ids per lookup statement (a whole job's mentions are looked up at once by its planner). */
-const STORED_LOOKUP_CHUNK = 5000;
-
+/** The content hash of each of these mentions already stored, by mentionKey(source, externalId). */
 export async function storedHashes(db: Kysely<Database>, mentions: MentionInput[]): Promise<Map<string, string>> {
-  const out = new Map<string, string>();
-  const bySource = new Map<string, string[]>();
-  for (const m of mentions) {
-    const ids = bySource.get(m.source);
-    if (ids) ids.push(m.externalId);
-    else bySource.set(m.source, [m.externalId]);
-  }
-  for (const [source, ids] of bySource) {
-    for (let start = 0; start < ids.length; start += STORED_LOOKUP_CHUNK) {
-      const slice = ids.slice(start, start + STORED_LOOKUP_CHUNK);
-      const rows = await db.selectFrom('mention').select(['external_id', 'content_hash']).where('source', '=', source).where('external_id', 'in', slice).execute();
-      for (const r of rows) out.set(`${source}\u0000${r.external_id}`, r.content_hash);
-    }
-  }
-  return out;
+  const stored = await storedMentionsByRef(db, mentions);
+  return new Map([...stored].map(([key, m]) => [key, m.contentHash]));
 }
 
 export function emptyCounts(): IngestCounts {
@@ -217,12 +204,7 @@ export async function ingestFile(options: IngestOptions): Promise<IngestSummary>
   const ctx = options.ctx ?? createRegisterContext(options.db);
   const batchSize = options.batchSize ?? 1000;
   const started = performance.now();
-  const run = await options.db
-    .insertInto('ingest_run')
-    .values({ source: options.source, input_name: options.file.split(/[\\/]/).pop() ?? options.file, actor: options.actor, status: 'running', started_at: new Date() })
-    .returning('id')
-    .executeTakeFirstOrThrow();
-  const runId = Number(run.id);
+  const runId = await insertIngestRun(options.db, { source: options.source, inputName: options.file.split(/[\\/]/).pop() ?? options.file, actor: options.actor });
   const counts = emptyCounts();
   const rejects = new RejectsWriter(options.rejectsFile);
   const stream = createReadStream(options.file);
@@ -245,7 +227,7 @@ export async function ingestFile(options: IngestOptions): Promise<IngestSummary>
     // per row (the register would answer the same: already ingested, nothing done).
     const stored = await storedHashes(options.db, batch.map((b) => b.mention));
     const fresh = batch.filter((b) => {
-      const hash = stored.get(`${b.mention.source}\u0000${b.mention.externalId}`);
+      const hash = stored.get(mentionKey(b.mention.source, b.mention.externalId));
       if (hash === undefined) return true;
       try {
         if (prepareMention(b.mention).contentHash !== hash) return true;
@@ -268,7 +250,7 @@ export async function ingestFile(options: IngestOptions): Promise<IngestSummary>
     });
     batch = [];
     seen = new Map();
-    await options.db.updateTable('ingest_run').set({ counts: JSON.stringify(counts) }).where('id', '=', runId).execute();
+    await updateIngestRunCounts(options.db, runId, counts);
     options.onProgress?.(progress());
   };
   let status: IngestSummary['status'] = 'finished';
@@ -309,21 +291,13 @@ export async function ingestFile(options: IngestOptions): Promise<IngestSummary>
   } catch (error) {
     stream.destroy();
     await rejects.close();
-    await options.db
-      .updateTable('ingest_run')
-      .set({ status: 'failed', counts: JSON.stringify(counts), finished_at: new Date(), error: (error as Error).message })
-      .where('id', '=', runId)
-      .execute();
+    await finishIngestRun(options.db, runId, { status: 'failed', counts, error: (error as Error).message });
     throw error;
   }
   stream.destroy();
   await rejects.close();
   const gap = unaccounted(counts);
-  await options.db
-    .updateTable('ingest_run')
-    .set({ status, counts: JSON.stringify(counts), finished_at: new Date(), error: gap === 0 ? null : `${gap} rows unaccounted` })
-    .where('id', '=', runId)
-    .execute();
+  await finishIngestRun(options.db, runId, { status, counts, error: gap === 0 ? null : `${gap} rows unaccounted` });
   if (gap !== 0) throw new Error(`ingest run ${runId}: ${gap} rows read but not accounted for (a defect: please report it)`);
   return { ...progress(), bytesRead: status === 'finished' ? totalBytes : stream.bytesRead, status, rejectsFile: rejects.written > 0 ? options.rejectsFile : null, unaccounted: gap, warnings };
 }

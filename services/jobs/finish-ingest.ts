@@ -8,10 +8,12 @@
  * refuses (a cannot-link, conflicting identifiers) is listed in the result, not forced. Then the counts of the
  * planner and of every partition are added up and must reconcile.
  */
-import { sql } from 'kysely';
 import { clusterRecords, type ScoredEdge } from '../../resolvers/cluster/index.ts';
 import { clusterRulesOf } from '../../resolvers/score/index.ts';
+import { counterpartyStates } from '../../db/queries/counterparties.ts';
+import { finishIngestRun } from '../../db/queries/ingest-runs.ts';
 import { partitionResults, updateJob, type JobRow } from '../../db/queries/jobs.ts';
+import { storedMentionsByRef } from '../../db/queries/mentions.ts';
 import { emptyCounts, unaccounted, type IngestCounts } from '../ingest/run-ingest.ts';
 import { RegisterError } from '../register/errors.ts';
 import { mergeCounterparties } from '../register/merge-split.ts';
@@ -20,6 +22,7 @@ import { MAX_LISTED_REJECTS, type JobDeps } from './deps.ts';
 import { readyToFinish } from './finish-guard.ts';
 import type { CrossPair, IngestPlan } from './plan-ingest.ts';
 import type { PartitionResult } from './run-ingest-partition.ts';
+import { mentionKey } from '../../resolvers/vocabulary.ts';
 
 export interface CrossMerge {
   survivorId: number;
@@ -53,11 +56,7 @@ export async function finishIngest(deps: JobDeps, jobId: number): Promise<void> 
   rejected.sort((a, b) => a.line - b.line);
   const gap = unaccounted(counts as IngestCounts);
   const ingestRunId = Number(job.params.ingestRunId);
-  await deps.db
-    .updateTable('ingest_run')
-    .set({ status: gap === 0 ? 'finished' : 'failed', counts: JSON.stringify(counts), finished_at: new Date(), error: gap === 0 ? null : `${gap} rows unaccounted` })
-    .where('id', '=', ingestRunId)
-    .execute();
+  await finishIngestRun(deps.db, ingestRunId, { status: gap === 0 ? 'finished' : 'failed', counts, error: gap === 0 ? null : `${gap} rows unaccounted` });
   const result = {
     ingestRunId,
     counts,
@@ -79,17 +78,12 @@ export async function finishIngest(deps: JobDeps, jobId: number): Promise<void> 
 
 async function mergeAcrossPartitions(deps: JobDeps, job: JobRow, crossPairs: readonly CrossPair[]): Promise<CrossMerge[]> {
   if (crossPairs.length === 0) return [];
-  const sources = crossPairs.flatMap(([a, b]) => [a[0], b[0]]);
-  const externalIds = crossPairs.flatMap(([a, b]) => [a[1], b[1]]);
-  const found = await sql<{ source: string; external_id: string; counterparty_id: number | string | null }>`
-    SELECT m.source, m.external_id, m.counterparty_id FROM mention m
-    JOIN unnest(${sql.val(sources)}::text[], ${sql.val(externalIds)}::text[]) AS k(source, external_id)
-      ON m.source = k.source AND m.external_id = k.external_id`.execute(deps.db);
-  const cpOf = new Map(found.rows.filter((r) => r.counterparty_id !== null).map((r) => [`${r.source}\u0000${r.external_id}`, Number(r.counterparty_id)]));
+  const refs = crossPairs.flatMap(([a, b]) => [a, b].map(([source, externalId]) => ({ source, externalId })));
+  const cpOf = new Map([...(await storedMentionsByRef(deps.db, refs))].flatMap(([key, m]) => (m.counterpartyId === null ? [] : [[key, m.counterpartyId] as const])));
   const best = new Map<string, ScoredEdge>();
   for (const [a, b, score] of crossPairs) {
-    const x = cpOf.get(`${a[0]}\u0000${a[1]}`);
-    const y = cpOf.get(`${b[0]}\u0000${b[1]}`);
+    const x = cpOf.get(mentionKey(a[0], a[1]));
+    const y = cpOf.get(mentionKey(b[0], b[1]));
     if (x === undefined || y === undefined || x === y) continue;
     const [lo, hi] = x < y ? [x, y] : [y, x];
     const key = `${lo}:${hi}`;
@@ -97,8 +91,8 @@ async function mergeAcrossPartitions(deps: JobDeps, job: JobRow, crossPairs: rea
   }
   if (best.size === 0) return [];
   const ids = [...new Set([...best.values()].flatMap((e) => [Number(e.a.slice(3)), Number(e.b.slice(3))]))].sort((x, y) => x - y);
-  const rows = await deps.db.selectFrom('counterparty').select(['id', 'status', 'created_at']).where('id', 'in', ids).execute();
-  const createdByJob = new Set(rows.filter((r) => r.status === 'active' && new Date(r.created_at) >= job.createdAt).map((r) => Number(r.id)));
+  const rows = await counterpartyStates(deps.db, ids);
+  const createdByJob = new Set(rows.filter((r) => r.status === 'active' && r.createdAt >= job.createdAt).map((r) => r.id));
   const older = ids.filter((id) => !createdByJob.has(id));
   const cannot: [string, string][] = [];
   for (let i = 0; i < older.length; i++) for (let j = i + 1; j < older.length; j++) cannot.push([`cp:${older[i]}`, `cp:${older[j]}`]);

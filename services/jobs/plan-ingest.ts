@@ -15,7 +15,7 @@ import { RegisterError } from '../register/errors.ts';
 import { basisOf, documentFrequencies, freezeRarity, idfFromCounts, registerNameCount, type FrozenRarity } from '../register/matching/idf.ts';
 import { currentModel } from '../register/matching/model.ts';
 import { prepareMention, type PreparedMention } from '../register/resolve/prepare.ts';
-import type { MentionInput } from '../../resolvers/vocabulary.ts';
+import { mentionKey, type MentionInput } from '../../resolvers/vocabulary.ts';
 import { MAX_LISTED_REJECTS, PARTITION_DEFAULTS, type JobDeps } from './deps.ts';
 import type { StagedRow } from './submit-ingest.ts';
 
@@ -82,7 +82,7 @@ export async function planIngest(deps: JobDeps, jobId: number): Promise<{ partit
         reject(row.line, error.message);
         continue;
       }
-      const identity = `${prepared.input.source}\u0000${prepared.input.externalId}`;
+      const identity = mentionKey(prepared.input.source, prepared.input.externalId);
       const earlier = seen.get(identity);
       if (earlier) {
         // As in `cpreg ingest`: an exact repeat is already ingested; other content under the same id is refused.
@@ -99,7 +99,7 @@ export async function planIngest(deps: JobDeps, jobId: number): Promise<{ partit
   // Rows stored before with the same content need no partition (a resumed or repeated upload).
   const stored = await storedHashes(deps.db, valid.map((v) => v.prepared.input));
   const fresh = valid.filter((v) => {
-    const same = stored.get(`${v.prepared.input.source}\u0000${v.prepared.input.externalId}`) === v.prepared.contentHash;
+    const same = stored.get(mentionKey(v.prepared.input.source, v.prepared.input.externalId)) === v.prepared.contentHash;
     if (same) {
       counts.read!++;
       counts.already_ingested!++;
@@ -187,7 +187,7 @@ function frozenCountsOf(tokens: readonly string[], rarity: FrozenRarity): Pick<P
 }
 
 function compareIdentity(a: PreparedMention, b: PreparedMention): number {
-  const x = `${a.input.source}\u0000${a.input.externalId}`;
-  const y = `${b.input.source}\u0000${b.input.externalId}`;
+  const x = mentionKey(a.input.source, a.input.externalId);
+  const y = mentionKey(b.input.source, b.input.externalId);
   return x < y ? -1 : x > y ? 1 : 0;
 }

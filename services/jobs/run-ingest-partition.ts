@@ -12,6 +12,7 @@ import { prepareMention } from '../register/resolve/prepare.ts';
 import { MAX_LISTED_REJECTS, type JobDeps } from './deps.ts';
 import { queueFinishWhenAllDone } from './finish-guard.ts';
 import type { IngestPlan, PartitionItem } from './plan-ingest.ts';
+import { mentionKey } from '../../resolvers/vocabulary.ts';
 
 export interface PartitionResult {
   counts: Record<string, number>;
@@ -26,7 +27,7 @@ export interface PartitionResult {
 /** The plan's pairs of this partition by (source, externalId) key, or no option when the plan did not keep them. */
 function plannedPairs(items: readonly PartitionItem[]): BatchOptions {
   if (!items.some((i) => i.compareWith !== undefined)) return {};
-  const key = (i: PartitionItem): string => `${i.mention.source}\u0000${i.mention.externalId}`;
+  const key = (i: PartitionItem): string => mentionKey(i.mention.source, i.mention.externalId);
   const comparePairs: [string, string][] = [];
   for (const item of items) for (const j of item.compareWith ?? []) comparePairs.push([key(item), key(items[j]!)]);
   return { comparePairs };
@@ -57,7 +58,7 @@ export async function runIngestPartition(deps: JobDeps, jobId: number, partition
     const rejected: { line: number; reason: string }[] = [];
     const stored = await storedHashes(deps.db, items.map((i) => i.mention));
     const fresh = items.filter((i) => {
-      const hash = stored.get(`${i.mention.source}\u0000${i.mention.externalId}`);
+      const hash = stored.get(mentionKey(i.mention.source, i.mention.externalId));
       if (hash !== undefined && prepareMention(i.mention).contentHash === hash) {
         counts.read!++;
         counts.already_ingested!++;

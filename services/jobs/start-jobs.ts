@@ -15,7 +15,7 @@ import type { JobDeps } from './deps.ts';
 import { JOB_STEPS } from './deps.ts';
 import { workOnJobs } from './steps.ts';
 import { startWatchdog } from './watchdog.ts';
-import { unfinishedPartitions, updateJob } from '../../db/queries/jobs.ts';
+import { unfinishedJobs, unfinishedPartitions, updateJob } from '../../db/queries/jobs.ts';
 
 export interface StartJobsOptions {
   db: Kysely<Database>;
@@ -77,14 +77,11 @@ export async function startJobs(options: StartJobsOptions): Promise<Jobs> {
  * (rows stored meanwhile count as already ingested).
  */
 export async function resumeUnfinishedJobs(deps: JobDeps): Promise<number> {
-  const rows = await deps.db.selectFrom('job').select(['id', 'params', 'plan', 'progress']).where('status', 'in', ['queued', 'running']).orderBy('id').execute();
   let resumed = 0;
-  for (const row of rows) {
-    const params = (typeof row.params === 'string' ? JSON.parse(row.params) : row.params) as Record<string, unknown>;
-    if (params.partitioned !== true) continue;
-    const progress = (typeof row.progress === 'string' ? JSON.parse(row.progress) : row.progress) as Record<string, unknown>;
-    const jobId = Number(row.id);
-    if (row.plan === null && progress.stage === 'staging') {
+  for (const row of await unfinishedJobs(deps.db)) {
+    if (row.params.partitioned !== true) continue;
+    const jobId = row.id;
+    if (row.plan === null && row.progress.stage === 'staging') {
       await updateJob(deps.db, jobId, { status: 'failed', error: 'the process stopped while reading the input: submit it again (rows already stored count as already ingested)' });
       continue;
     }

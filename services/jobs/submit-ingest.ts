@@ -7,6 +7,7 @@
 import { createReadStream } from 'node:fs';
 import type { Kysely, Transaction } from 'kysely';
 import type { JobQueue } from '../../db/job-queue.ts';
+import { finishIngestRun, insertIngestRun } from '../../db/queries/ingest-runs.ts';
 import { insertChunk, insertJob, updateJob } from '../../db/queries/jobs.ts';
 import type { Database } from '../../db/types.ts';
 import type { MentionInput } from '../../resolvers/vocabulary.ts';
@@ -47,12 +48,7 @@ export async function submitIngestJob(deps: { db: Kysely<Database>; queue: JobQu
   const chunkSize = options.chunkSize ?? PARTITION_DEFAULTS.chunkSize;
   const inputName = options.inputName ?? options.file.split(/[\\/]/).pop() ?? options.file;
   const { ingestRunId, jobId } = await deps.db.transaction().execute(async (trx) => {
-    const run = await trx
-      .insertInto('ingest_run')
-      .values({ source: options.source, input_name: inputName, actor: options.actor, status: 'running', started_at: new Date() })
-      .returning('id')
-      .executeTakeFirstOrThrow();
-    const runId = Number(run.id);
+    const runId = await insertIngestRun(trx, { source: options.source, inputName, actor: options.actor });
     const created = await insertJob(trx, { kind: 'ingest', actor: options.actor, status: 'queued', params: { source: options.source, input: inputName, partitioned: true, partitionSize, ingestRunId: runId } });
     await options.onJobCreated?.(trx, created);
     return { ingestRunId: runId, jobId: created };
@@ -84,7 +80,7 @@ export async function submitIngestJob(deps: { db: Kysely<Database>; queue: JobQu
   } catch (error) {
     const message = `reading ${inputName} failed: ${(error as Error).message}`;
     await updateJob(deps.db, jobId, { status: 'failed', error: message });
-    await deps.db.updateTable('ingest_run').set({ status: 'failed', finished_at: new Date(), error: message }).where('id', '=', ingestRunId).execute();
+    await finishIngestRun(deps.db, ingestRunId, { status: 'failed', error: message });
     throw error;
   }
   await deps.queue.send(JOB_STEPS.plan, { jobId }, { singletonKey: String(jobId) });

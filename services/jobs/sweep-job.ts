@@ -4,6 +4,7 @@
  * planner cuts the active counterparties into id ranges, each partition sweeps its range against the whole
  * register, and the final pass adds up the summaries. No pair crosses partitions in the sense of the ingest plan.
  */
+import { allActiveIds } from '../../db/queries/counterparties.ts';
 import { finishPartition, insertPartitions, partitionResults, readJob, readPartition, startPartition, updateJob } from '../../db/queries/jobs.ts';
 import { sweep, type SweepSummary } from '../register/sweep.ts';
 import { PARTITION_DEFAULTS, type JobDeps } from './deps.ts';
@@ -19,7 +20,7 @@ export async function planSweep(deps: JobDeps, jobId: number): Promise<{ partiti
   if (!job) throw new Error(`job ${jobId} does not exist`);
   if (job.plan) return { partitions: Number(job.plan.partitions), alreadyPlanned: true };
   const size = Number(job.params.partitionSize ?? PARTITION_DEFAULTS.sweepPartitionSize);
-  const ids = (await deps.db.selectFrom('counterparty').select('id').where('status', '=', 'active').orderBy('id').execute()).map((r) => Number(r.id));
+  const ids = await allActiveIds(deps.db);
   const ranges: SweepRange[][] = [];
   for (let start = 0; start < ids.length; start += size) {
     const slice = ids.slice(start, start + size);

@@ -8,7 +8,7 @@
  * WATCHDOG_INTERVAL_MS; any one of them is enough.
  */
 import type { GivenUp } from '../../db/job-queue.ts';
-import { unfinishedPartitions } from '../../db/queries/jobs.ts';
+import { failJobIfUnfinished, unfinishedJobs, unfinishedPartitions } from '../../db/queries/jobs.ts';
 import { JOB_STEPS, type JobDeps } from './deps.ts';
 
 export const WATCHDOG_INTERVAL_MS = 30_000;
@@ -42,22 +42,14 @@ async function givenUpStep(deps: JobDeps, jobId: number, planned: boolean): Prom
 
 /** Fails every unfinished partitioned job one of whose steps the queue gave up; answers those jobs. */
 export async function failAbandonedJobs(deps: JobDeps): Promise<AbandonedJob[]> {
-  const rows = await deps.db.selectFrom('job').select(['id', 'params', 'plan']).where('status', 'in', ['queued', 'running']).orderBy('id').execute();
   const failed: AbandonedJob[] = [];
-  for (const row of rows) {
-    const params = (typeof row.params === 'string' ? JSON.parse(row.params) : row.params) as Record<string, unknown>;
-    if (params.partitioned !== true) continue;
-    const jobId = Number(row.id);
+  for (const row of await unfinishedJobs(deps.db)) {
+    if (row.params.partitioned !== true) continue;
+    const jobId = row.id;
     const error = await givenUpStep(deps, jobId, row.plan !== null);
     if (!error) continue;
     // Only a job still unfinished: a step that succeeded meanwhile on another worker may have finished it.
-    const done = await deps.db
-      .updateTable('job')
-      .set({ status: 'failed', error, updated_at: new Date(), finished_at: new Date() })
-      .where('id', '=', jobId)
-      .where('status', 'in', ['queued', 'running'])
-      .executeTakeFirst();
-    if (Number(done.numUpdatedRows) === 0) continue;
+    if (!(await failJobIfUnfinished(deps.db, jobId, error))) continue;
     deps.log('error', { jobId }, error);
     failed.push({ jobId, error });
   }

@@ -34,8 +34,7 @@ export interface NormalisedIdentifier {
   label?: string;
 }
 
-/** Longest name accepted (characters), as the public interface promises. */
-export const MAX_NAME_LENGTH = 1000;
+import { MAX_NAME_LENGTH } from '../../resolvers/vocabulary.ts';
 
 export function checkName(field: string, name: unknown): string {
   if (typeof name !== 'string') throw invalid(field, 'must be a string');

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sql } from 'kysely';
 import { migrateToLatest, createMigrator, REQUIRED_EXTENSIONS } from '../../db/migrate.ts';
-import { describeEachBackend, isBackendAvailable, openTestDatabase, type TestDatabase } from '../support/database.ts';
+import { describeEachBackend, describePostgres, openTestDatabase, type TestDatabase } from '../support/database.ts';
 import { schemaSnapshot } from './schema-snapshot.ts';
 
 describeEachBackend('migrations', (ctx) => {
@@ -70,7 +70,7 @@ describe('a database migrated from empty', () => {
   });
 });
 
-describe.skipIf(!isBackendAvailable('postgres'))('both backends', () => {
+describePostgres('both backends', () => {
   let pglite: TestDatabase;
   let postgres: TestDatabase;
   beforeAll(async () => {

@@ -5,7 +5,7 @@
  * already undone…) are counted; any other error fails the run. At the end every acknowledged change is in the
  * history with its type (an undo's target marked undone), and verify (invariants and replay) passes.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, expect, it } from 'vitest';
 import {
   createRegisterContext,
   decideReview,
@@ -19,7 +19,7 @@ import {
 } from '../../services/register/index.ts';
 import { verifyRegister } from '../../services/verify/index.ts';
 import { seededRandom, type Random } from '../../resolvers/prng.ts';
-import { isBackendAvailable, openTestDatabase, type TestDatabase } from '../support/index.ts';
+import { describePostgres, openTestDatabase, type TestDatabase } from '../support/index.ts';
 
 const LONG = process.env.CPREG_LONG === '1';
 const CLIENTS = 50;
@@ -38,7 +38,7 @@ type Ack = { type: string; eventId: number; undoes?: number };
 const DESIGNED_REFUSALS = new Set(['UNDO_BLOCKED', 'NOT_FOUND', 'INVALID_INPUT', 'CONFLICT', 'ALREADY_UNDONE', 'CANNOT_LINK']);
 const MAX_RETRIES_EXHAUSTED_SHARE = 0.02;
 
-(isBackendAvailable('postgres') ? describe : describe.skip)('concurrency: 50 clients on PostgreSQL [postgres]', () => {
+describePostgres('concurrency: 50 clients on PostgreSQL [postgres]', () => {
   let database: TestDatabase;
   let ctx: RegisterContext;
   beforeAll(async () => {

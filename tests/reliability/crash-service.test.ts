@@ -6,19 +6,19 @@
  * were in flight (and cut requests off), each round acknowledged changes before its kill, no request failed before a
  * kill, and no answer was a 5xx other than the rare, documented BUSY_RETRY.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, expect, it } from 'vitest';
 import { createApiKey } from '../../services/api/auth/keys.ts';
 import { createRegisterContext, resolveMention } from '../../services/register/index.ts';
 import { verifyRegister } from '../../services/verify/index.ts';
 import { seededRandom, type Random } from '../../resolvers/prng.ts';
 import { childEnv, startServe } from '../support/cli.ts';
-import { isBackendAvailable, openTestDatabase, type TestDatabase } from '../support/index.ts';
+import { describePostgres, openTestDatabase, type TestDatabase } from '../support/index.ts';
 
 const KILLS = 5;
 const CLIENTS = 8;
 const WORDS = ['Wrenfield', 'Oxcombe', 'Tillmarsh', 'Quenby', 'Harcourt', 'Bellsworth', 'Ravensby', 'Mistley'];
 
-(isBackendAvailable('postgres') ? describe : describe.skip)('crash safety: service killed with SIGKILL mid-merge and mid-split [postgres]', () => {
+describePostgres('crash safety: service killed with SIGKILL mid-merge and mid-split [postgres]', () => {
   let database: TestDatabase;
   let key: string;
   beforeAll(async () => {

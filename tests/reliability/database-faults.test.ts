@@ -6,15 +6,13 @@
  * every write it acknowledged is there (and verify passes).
  */
 import pg from 'pg';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, expect, it } from 'vitest';
 import { runCli, startServe, childEnv, type ServerProcess } from '../support/cli.ts';
+import { describePostgres } from '../support/index.ts';
 import { ownPostgresUnavailable, startOwnPostgres, type OwnPostgres } from './own-postgres.ts';
 
 const DB_TIMEOUT_MS = 1500;
-const unavailable = ownPostgresUnavailable();
-if (unavailable) process.stdout.write(`database-faults: skipped (not passed): ${unavailable}\n`);
-
-(unavailable ? describe.skip : describe)('PostgreSQL stopped and started under a running service', () => {
+describePostgres('PostgreSQL stopped and started under a running service', () => {
   let server: OwnPostgres;
   let service: ServerProcess;
   let url: string;
@@ -146,4 +144,4 @@ if (unavailable) process.stdout.write(`database-faults: skipped (not passed): ${
     const verify = await runCli(['verify', '--db', url, '--json']);
     expect(verify.code, verify.stdout + verify.stderr).toBe(0);
   }, 240_000);
-});
+}, { unavailable: ownPostgresUnavailable() });

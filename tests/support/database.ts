@@ -10,7 +10,8 @@
  * registers `counterparty queries [pglite]` and `counterparty queries [postgres]`; the latter is
  * skipped (reported as skipped, never as passed) when the run has no PostgreSQL. The copy is opened
  * in beforeAll and dropped in afterAll; tests inside one describe share it (clean up after yourself
- * or use distinct keys). `openTestDatabase(backend)` gives a copy outside that pattern.
+ * or use distinct keys). `withTestDatabase(backend, work)` gives a copy for one piece of work and always closes it;
+ * `describePostgres(title, fn)` declares a suite that needs PostgreSQL itself (the one way to skip one).
  */
 import { readFileSync } from 'node:fs';
 import { mkdtempSync, rmSync } from 'node:fs';
@@ -154,7 +155,44 @@ export function describeEachBackend(title: string, fn: (ctx: BackendContext) => 
   }
 }
 
-/** The same as describeEachBackend, for suites that open their own databases per backend. */
+/**
+ * The same as describeEachBackend for suites that open their own databases (a data directory for a child
+ * process, a PostgreSQL copy by URL): registers `title [backend]` per backend, skipped where it is missing.
+ */
+export function describeBackends(title: string, fn: (backend: TestBackend) => void): void {
+  for (const backend of ALL_TEST_BACKENDS) (isBackendAvailable(backend) ? describe : describe.skip)(`${title} [${backend}]`, () => fn(backend));
+}
+
+/**
+ * The one way to declare a suite that needs PostgreSQL itself (pg-boss, a second pool, a server to stop): skipped,
+ * reported as skipped and never as passed, when the run has none. A suite that starts its own server passes
+ * `{ unavailable }` instead (undefined when it can run, else why not; printed so the skip is seen).
+ */
+export function describePostgres(title: string, fn: () => void, options: { unavailable?: string } = {}): void {
+  // The run's own check is announced by the global setup; a suite's own reason is announced here.
+  if (options.unavailable !== undefined) process.stdout.write(`${title}: skipped (not passed): ${options.unavailable}\n`);
+  const skip = 'unavailable' in options ? options.unavailable !== undefined : !isBackendAvailable('postgres');
+  (skip ? describe.skip : describe)(title, fn);
+}
+
+/** A migrated database (see openTestDatabase) for the length of `work`, closed (and dropped on PostgreSQL) however `work` ends. */
+export async function withTestDatabase<T>(
+  backend: TestBackend,
+  work: (database: TestDatabase) => Promise<T>,
+  options: Omit<OpenDatabaseOptions, 'loadDataDir'> = {},
+): Promise<T> {
+  const database = await openTestDatabase(backend, options);
+  try {
+    return await work(database);
+  } finally {
+    await database.close();
+  }
+}
+
+/**
+ * Older form of describeBackends, where the caller registers (and skips) the suite itself. Kept only for
+ * tests/services/register (rewritten in issue 21 item 1); use describeBackends.
+ */
 export function forEachBackend(fn: (backend: TestBackend, available: boolean) => void): void {
   for (const backend of ALL_TEST_BACKENDS) fn(backend, isBackendAvailable(backend));
 }

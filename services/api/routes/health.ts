@@ -1,7 +1,7 @@
 /** GET /healthz: is the service up and does its database answer (within the database timeout)? */
-import { sql } from 'kysely';
 import { withDatabaseTimeout } from '../../../db/database-errors.ts';
 import { schemaState } from '../../../db/migrate.ts';
+import { ping } from '../../../db/queries/ping.ts';
 import { ApiError, problemResponses } from '../errors.ts';
 import { DEFAULT_DB_TIMEOUT_MS, type RoutePlugin } from '../types.ts';
 
@@ -39,7 +39,7 @@ export const healthRoutes: RoutePlugin = (app, deps) => {
     async () => {
       const started = performance.now();
       try {
-        await withDatabaseTimeout(sql`select 1`.execute(deps.db), timeoutMs);
+        await withDatabaseTimeout(ping(deps.db), timeoutMs);
       } catch (error) {
         throw new ApiError('DATABASE_UNAVAILABLE', `the ${deps.backend} database did not answer within ${timeoutMs} ms`, {
           headers: { 'retry-after': '5' },

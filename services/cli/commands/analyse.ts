@@ -4,9 +4,8 @@
  */
 import type { Command } from 'commander';
 import { CliError } from '../cli-error.ts';
-
-/** Names are limited to 1,000 characters elsewhere in cpreg (mentions, API); the CLI uses the same limit. */
-export const MAX_NAME_LENGTH = 1000;
+// The CLI accepts the same longest name as the register and the API.
+import { MAX_NAME_LENGTH } from '../../../resolvers/vocabulary.ts';
 
 export default function register(program: Command): void {
   program

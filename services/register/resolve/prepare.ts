@@ -10,7 +10,7 @@ import { invalid } from '../errors.ts';
 import { analyse } from '../matching/analysis.ts';
 import { checkName, normaliseIdentifierOrThrow } from '../records.ts';
 
-export const MAX_ID_LENGTH = 300;
+import { MAX_ID_LENGTH } from '../../../resolvers/vocabulary.ts';
 export const MAX_ADDRESS_LENGTH = 2000;
 const COUNTRY = /^[A-Z]{2}(?:-[A-Z0-9]{1,3})?$/;
 

@@ -1,6 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { ERROR_CATALOGUE, problem, type ErrorCode } from '../../../services/api/errors.ts';
+import { REGISTER_TO_API } from '../../../services/api/register-error-codes.ts';
+import { toApiError } from '../../../services/api/routes/v1/common.ts';
+import { REGISTER_ERROR_CODES, RegisterError, type RegisterErrorCode } from '../../../services/register/errors.ts';
 
 const DOC = readFileSync(new URL('../../../docs/errors.md', import.meta.url), 'utf8');
 
@@ -47,5 +50,17 @@ describe('the error catalogue', () => {
     });
     // Extension members never overwrite the standard ones.
     expect(problem('CONFLICT', 'x', undefined, { status: 200, holder: 3 })).toMatchObject({ status: 409, holder: 3 });
+  });
+
+  it('maps every register error code to a catalogue code with the same HTTP status, and nothing else', () => {
+    // The type (`satisfies Record<RegisterErrorCode, ErrorCode>`) keeps the map exhaustive; this checks the values.
+    expect(Object.keys(REGISTER_TO_API).sort()).toEqual(Object.keys(REGISTER_ERROR_CODES).sort());
+    for (const [registerCode, status] of Object.entries(REGISTER_ERROR_CODES)) {
+      const apiCode = REGISTER_TO_API[registerCode as RegisterErrorCode];
+      expect(Object.hasOwn(ERROR_CATALOGUE, apiCode), `${registerCode} maps to ${apiCode}, not in the catalogue`).toBe(true);
+      expect(ERROR_CATALOGUE[apiCode].status, `${registerCode} (${status}) and ${apiCode} differ in status`).toBe(status);
+      const answered = toApiError(new RegisterError(registerCode as RegisterErrorCode, 'x'));
+      expect([answered.code, answered.status]).toEqual([apiCode, status]);
+    }
   });
 });

@@ -5,7 +5,7 @@ import { sql } from 'kysely';
 import type { FastifyInstance } from 'fastify';
 import { buildApp, type RoutePlugin } from '../../../services/api/app.ts';
 import { ApiError } from '../../../services/api/errors.ts';
-import { describeEachBackend, isBackendAvailable, openTestDatabase } from '../../support/database.ts';
+import { describeEachBackend, describePostgres, openTestDatabase } from '../../support/database.ts';
 
 /** A route with a body and a query schema, to exercise validation and parsing. */
 const echoRoutes: RoutePlugin = (app) => {
@@ -225,7 +225,7 @@ describe('database outages', () => {
   });
 });
 
-describe.skipIf(!isBackendAvailable('postgres'))('the PostgreSQL statement timeout [postgres]', () => {
+describePostgres('the PostgreSQL statement timeout [postgres]', () => {
   it('turns a statement that runs past --db-timeout into 503', async () => {
     const database = await openTestDatabase('postgres', { timeoutMs: 300 });
     const slowRoute: RoutePlugin = (app, deps) => {

@@ -6,8 +6,8 @@
  */
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { describe, expect, it } from 'vitest';
-import { isBackendAvailable, makeTempDir, openTestDatabase, removeTempDir } from '../../support/index.ts';
+import { expect, it } from 'vitest';
+import { describePostgres, makeTempDir, openTestDatabase, removeTempDir } from '../../support/index.ts';
 import { startJobs } from '../../../services/jobs/start-jobs.ts';
 import { submitContractsJob } from '../../../services/jobs/submit-contracts.ts';
 import { watchJob } from '../../../services/jobs/watch-job.ts';
@@ -18,7 +18,7 @@ const FAST_QUEUE = { retryLimit: 1, retryDelaySeconds: 0, pollingIntervalSeconds
 const SUPPLIERS = ['Quillmoor Fabrication Ltd', 'Brindlecombe Tools Ltd', 'Farrowdene Metals Ltd', 'Marlowick Fasteners Ltd', 'Ostrevale Castings Ltd', 'Penderwyn Coatings Ltd', 'Harrowgate Springs Ltd', 'Kestlemoor Valves Ltd', 'Ashcombe Gaskets Ltd', 'Wrenfield Bearings Ltd', 'Dunmarsh Pumps Ltd', 'Calderholt Wire Ltd'];
 
 // pg-boss lives in PostgreSQL only: this suite has no embedded variant (reported as skipped without PostgreSQL).
-(isBackendAvailable('postgres') ? describe : describe.skip)('contracts job through pg-boss [postgres]', () => {
+describePostgres('contracts job through pg-boss [postgres]', () => {
   it('two job processes share the partitions; one counterparty for the customer all contracts name', { timeout: 180_000 }, async () => {
     const database = await openTestDatabase('postgres');
     const dir = makeTempDir('cpreg-contracts-job-');

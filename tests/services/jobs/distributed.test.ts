@@ -22,11 +22,11 @@ const AGREEMENT = 0.995;
 import { readFileSync } from 'node:fs';
 import { hostname } from 'node:os';
 import { join } from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, expect, it } from 'vitest';
 import { differingPairs, pairAgreement } from '../../../resolvers/evaluate/index.ts';
 import { openDatabase, type OpenedDatabase } from '../../../db/open-database.ts';
 import { watchJob } from '../../../services/jobs/watch-job.ts';
-import { createPostgresCopy, isBackendAvailable, makeTempDir, removeTempDir } from '../../support/index.ts';
+import { createPostgresCopy, describePostgres, makeTempDir, removeTempDir } from '../../support/index.ts';
 import { CPREG_BIN, REPO_ROOT, childEnv, runCli, startServe, type ServerProcess } from '../../support/cli.ts';
 import { clusteringOf, generatedMentions, writeNdjson, type TruthMention } from './support.ts';
 
@@ -69,7 +69,7 @@ function startWorker(url: string, env: Record<string, string> = {}): Promise<Wor
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
-(isBackendAvailable('postgres') ? describe : describe.skip)('scale-out: one API and three workers on PostgreSQL [postgres]', () => {
+describePostgres('scale-out: one API and three workers on PostgreSQL [postgres]', () => {
   let dir: string;
   let file: string;
   let mentions: TruthMention[];

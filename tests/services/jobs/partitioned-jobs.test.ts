@@ -5,8 +5,8 @@
  * that keeps failing fails its job with the reason. Names are invented (cpreg generate's generator).
  */
 import { join } from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { describeEachBackend, isBackendAvailable, makeTempDir, openTestDatabase, removeTempDir, type TestDatabase } from '../../support/index.ts';
+import { afterAll, beforeAll, expect, it } from 'vitest';
+import { describeEachBackend, describePostgres, makeTempDir, openTestDatabase, removeTempDir, type TestDatabase } from '../../support/index.ts';
 import { startJobs, resumeUnfinishedJobs, type Jobs } from '../../../services/jobs/start-jobs.ts';
 import { submitIngestJob } from '../../../services/jobs/submit-ingest.ts';
 import { submitSweepJob } from '../../../services/jobs/steps.ts';
@@ -143,7 +143,7 @@ describeEachBackend('partitioned jobs', (t) => {
 });
 
 // pg-boss lives in PostgreSQL only: this suite has no embedded variant (reported as skipped without PostgreSQL).
-(isBackendAvailable('postgres') ? describe : describe.skip)('partitioned jobs through pg-boss [postgres]', () => {
+describePostgres('partitioned jobs through pg-boss [postgres]', () => {
   it('runs an ingest job through the PostgreSQL queue in this process', async () => {
     const database: TestDatabase = await openTestDatabase('postgres');
     const dir = makeTempDir('cpreg-jobs-boss-');

@@ -7,8 +7,8 @@
  * (pg-boss). Names are invented (cpreg generate's generator).
  */
 import { join } from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { describeEachBackend, isBackendAvailable, makeTempDir, openTestDatabase, removeTempDir } from '../../support/index.ts';
+import { afterAll, beforeAll, expect, it } from 'vitest';
+import { describeEachBackend, describePostgres, makeTempDir, openTestDatabase, removeTempDir } from '../../support/index.ts';
 import { startJobs, type Jobs } from '../../../services/jobs/start-jobs.ts';
 import { submitIngestJob } from '../../../services/jobs/submit-ingest.ts';
 import { planIngest } from '../../../services/jobs/plan-ingest.ts';
@@ -91,7 +91,7 @@ describeEachBackend('job watchdog (in-process queue)', (t) => {
   });
 });
 
-(isBackendAvailable('postgres') ? describe : describe.skip)('job watchdog (pg-boss) [postgres]', () => {
+describePostgres('job watchdog (pg-boss) [postgres]', () => {
   it('fails a job whose partition pg-boss gave up after its worker never answered', async () => {
     const database = await openTestDatabase('postgres');
     const dir = makeTempDir('cpreg-watchdog-boss-');

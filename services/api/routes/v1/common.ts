@@ -5,33 +5,18 @@
 import type { FastifyError, FastifyInstance, FastifyReply, FastifyRequest } from 'fastify';
 import { createRegisterContext, type ActorInput, type RegisterContext } from '../../../register/context.ts';
 import { RegisterError } from '../../../register/errors.ts';
-import { ApiError, type ErrorCode } from '../../errors.ts';
+import { ApiError } from '../../errors.ts';
+import { REGISTER_TO_API } from '../../register-error-codes.ts';
 import type { AppDeps } from '../../types.ts';
-import { IDENTIFIER_SCHEMES, NAME_KINDS, RELATION_TYPES, RESOLUTION_STATUSES } from '../../../../resolvers/vocabulary.ts';
+import { IDENTIFIER_SCHEMES, MAX_ID_LENGTH, MAX_NAME_LENGTH, NAME_KINDS, RELATION_TYPES, RESOLUTION_STATUSES } from '../../../../resolvers/vocabulary.ts';
 
-export const MAX_NAME = 1000;
-export const MAX_ID = 300;
 export const MAX_REASON = 2000;
 export const MAX_PAGE = 500;
 export const DEFAULT_PAGE = 50;
 
-const REGISTER_TO_API: Record<string, ErrorCode> = {
-  NOT_FOUND: 'NOT_FOUND',
-  INVALID_INPUT: 'VALIDATION_FAILED',
-  CONFLICT: 'CONFLICT',
-  IDENTIFIER_TAKEN: 'IDENTIFIER_TAKEN',
-  CANNOT_LINK: 'CANNOT_LINK',
-  COUNTERPARTY_MERGED: 'COUNTERPARTY_MERGED',
-  UNDO_BLOCKED: 'UNDO_BLOCKED',
-  ALREADY_UNDONE: 'ALREADY_UNDONE',
-  NOT_UNDOABLE: 'NOT_UNDOABLE',
-  STALE_VERSION: 'PRECONDITION_FAILED',
-  TRANSACTION_RETRIES_EXHAUSTED: 'BUSY_RETRY',
-};
-
 /** A register error as the problem the API answers (field errors point into the body). */
 export function toApiError(error: RegisterError): ApiError {
-  const code = REGISTER_TO_API[error.code] ?? 'CONFLICT';
+  const code = REGISTER_TO_API[error.code];
   const field = typeof error.details.field === 'string' ? error.details.field : undefined;
   const extensions: Record<string, unknown> = {};
   for (const [name, value] of Object.entries(error.details)) if (name !== 'field' && name !== 'what') extensions[name] = value;
@@ -163,8 +148,8 @@ export const REDIRECT_308 = {
 } as const;
 
 export const REASON = { type: 'string', maxLength: MAX_REASON, description: 'why (kept in the history)' } as const;
-export const NAME = { type: 'string', minLength: 1, maxLength: MAX_NAME } as const;
-export const SOURCE_ID = { type: 'string', minLength: 1, maxLength: MAX_ID } as const;
+export const NAME = { type: 'string', minLength: 1, maxLength: MAX_NAME_LENGTH } as const;
+export const SOURCE_ID = { type: 'string', minLength: 1, maxLength: MAX_ID_LENGTH } as const;
 export const COUNTRY = { type: 'string', pattern: '^[A-Z]{2}(-[A-Z0-9]{1,3})?$', description: 'ISO 3166-1 alpha-2 or ISO 3166-2', example: 'DE' } as const;
 
 export const IDENTIFIER = {

@@ -22,7 +22,8 @@ import { currentModel } from '../../../register/matching/model.ts';
 import { jsonScore, scoredCandidates } from '../../../register/matching/candidates.ts';
 import { eventsOfCounterparty } from '../../../../db/queries/history.ts';
 import { mentionsOfCounterparty } from '../../../../db/queries/mentions.ts';
-import { getSummaries } from '../../../../db/queries/counterparties.ts';
+import { activeIdsAfter, getSummaries } from '../../../../db/queries/counterparties.ts';
+import { relationEnds } from '../../../../db/queries/relations.ts';
 import { NAME_KINDS, RELATION_TYPES } from '../../../../resolvers/vocabulary.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import type { RoutePlugin } from '../../types.ts';
@@ -55,7 +56,7 @@ import {
 } from './common.ts';
 import { highlightRanges, words } from './highlight.ts';
 import { legalFormFamily, withLegalForm } from './legal-form.ts';
-import { counterpartyGroups, namesLike, otherPartiesOf } from './reads.ts';
+import { counterpartyGroups, namesLike, otherPartiesOf } from '../../../../db/queries/counterparty-reads.ts';
 
 export const MAX_SEARCH_RESULTS = 50;
 const TAGS = ['counterparties'];
@@ -117,9 +118,9 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
       const { q, limit } = request.query;
       const offset = decodeCursor(request.query.cursor);
       if (!q || q.trim().length === 0) {
-        const rows = await db.selectFrom('counterparty').select('id').where('status', '=', 'active').where('id', '>', offset).orderBy('id').limit(limit + 1).execute();
-        const summaries = await getSummaries(db, rows.map((r) => Number(r.id)));
-        const items = rows.map((r) => summaries.get(Number(r.id))!).map((s) => ({ id: s.id, canonicalName: s.canonicalName, jurisdiction: s.jurisdiction, legalForm: legalFormFamily(s.canonicalName), matchedName: s.canonicalName, highlight: [], score: null, version: s.version }));
+        const ids = await activeIdsAfter(db, offset, limit + 1);
+        const summaries = await getSummaries(db, ids);
+        const items = ids.map((id) => summaries.get(id)!).map((s) => ({ id: s.id, canonicalName: s.canonicalName, jurisdiction: s.jurisdiction, legalForm: legalFormFamily(s.canonicalName), matchedName: s.canonicalName, highlight: [], score: null, version: s.version }));
         return page(items, limit);
       }
       const wanted = Math.min(MAX_SEARCH_RESULTS, offset + limit);
@@ -383,9 +384,9 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
       },
     },
     async (request) => {
-      const relation = await db.selectFrom('counterparty_relation').select(['from_counterparty_id', 'to_counterparty_id']).where('id', '=', request.params.relationId).executeTakeFirst();
+      const relation = await relationEnds(db, request.params.relationId);
       const survivor = await survivorOf(db, request.params.id);
-      const ends = relation ? [Number(relation.from_counterparty_id), Number(relation.to_counterparty_id)] : [];
+      const ends = relation ? [relation.from, relation.to] : [];
       if (!relation || !survivor || !ends.includes(survivor.id)) {
         throw new ApiError('NOT_FOUND', `counterparty ${request.params.id} has no relation ${request.params.relationId}`);
       }

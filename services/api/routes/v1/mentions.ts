@@ -6,7 +6,7 @@ import type { FastifyError, FastifyInstance } from 'fastify';
 import { resolveMention } from '../../../register/resolve/resolve-mention.ts';
 import { resolveBatch } from '../../../register/batch.ts';
 import { RegisterError } from '../../../register/errors.ts';
-import type { MentionInput } from '../../../../resolvers/vocabulary.ts';
+import { MAX_ID_LENGTH, type MentionInput } from '../../../../resolvers/vocabulary.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import type { RoutePlugin } from '../../types.ts';
 import { bodyText } from '../../body/strict-json.ts';
@@ -26,7 +26,7 @@ export const MENTION_IN = {
     externalId: SOURCE_ID,
     text: { ...NAME, description: 'the party name as the source wrote it (at most 1,000 characters)' },
     contract: { type: 'object', required: ['source', 'externalId'], additionalProperties: false, properties: { source: SOURCE_ID, externalId: SOURCE_ID } },
-    role: { type: 'string', maxLength: 300 },
+    role: { type: 'string', maxLength: MAX_ID_LENGTH },
     country: COUNTRY,
     address: { type: 'string', maxLength: 2000 },
     identifiers: { type: 'array', maxItems: 50, items: IDENTIFIER },

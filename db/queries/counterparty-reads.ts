@@ -1,7 +1,7 @@
 /** Read queries of the public interface that no register module offers: network, groups, search fallback. */
 import { sql } from 'kysely';
-import type { Queryable } from '../../../../db/queries/util.ts';
-import { toMentionView, type MentionView } from '../../../../db/queries/mentions.ts';
+import type { Queryable } from './util.ts';
+import { toMentionView, type MentionView } from './mentions.ts';
 
 export interface NetworkParty {
   contractId: number;

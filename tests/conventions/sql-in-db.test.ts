@@ -1,0 +1,71 @@
+/**
+ * SQL lives in db/ (one query module per concern, db/queries/<concern>.ts); services call those functions. This test
+ * reads every tracked file under services/ and fails on a sql`…` template, sql.raw, a query-builder entry
+ * (.selectFrom( / .insertInto( / .updateTable( / .deleteFrom( / .mergeInto() or a string that starts with SQL text,
+ * outside the allow-list below. The allow-list only shrinks: each entry says why it is still there.
+ */
+import { execFileSync } from 'node:child_process';
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+
+const ALLOWED: { prefix: string; why: string }[] = [
+  { prefix: 'services/register/', why: 'moving in issue 21 item 1 (the register write path and its SQL go to db/)' },
+  { prefix: 'services/forget/forget.ts', why: 'not yet moved (issue 21 item 4): the erasure statements, one file of its own' },
+  { prefix: 'services/forget/person-mentions.ts', why: 'not yet moved (issue 21 item 4)' },
+  { prefix: 'services/verify/invariants.ts', why: 'not yet moved (issue 21 item 4): the invariant queries' },
+  { prefix: 'services/verify/verify.ts', why: 'not yet moved (issue 21 item 4)' },
+  { prefix: 'services/reconcile/reconcile.ts', why: 'not yet moved (issue 21 item 4)' },
+  { prefix: 'services/demo/run-demo.ts', why: 'not yet moved (issue 21 item 4)' },
+  { prefix: 'services/export/exports.ts', why: 'not yet moved (issue 21 item 4)' },
+  { prefix: 'services/api/auth/', why: 'not yet moved (issue 21 item 4): API keys and idempotency records' },
+  { prefix: 'services/api/routes/v1/contracts-review.ts', why: 'not yet moved (issue 21 item 4)' },
+  { prefix: 'services/api/routes/v1/exports-jobs.ts', why: 'not yet moved (issue 21 item 4)' },
+];
+
+/** What counts as SQL in a service file (the query builder's entry points, the template tag, raw SQL text). */
+const SQL_PATTERNS: RegExp[] = [
+  /\bsql(?:<[^`\n]*>)?`/,
+  /\bsql\.raw\(/,
+  /\.(?:selectFrom|insertInto|updateTable|deleteFrom|mergeInto)\(/,
+  /['"`]\s*(?:SELECT|INSERT INTO|UPDATE [a-z_]+ SET|DELETE FROM|WITH [a-z_]+ AS|CREATE |DROP |ALTER |TRUNCATE )/,
+];
+
+function trackedServiceFiles(): string[] {
+  const out = execFileSync('git', ['ls-files', '-z', 'services'], { encoding: 'utf8' });
+  return out.split('\0').filter((f) => /\.(?:ts|js)$/.test(f));
+}
+
+/** `file:line: text` for every line of a service file that holds SQL. */
+export function sqlLines(file: string, text: string): string[] {
+  const found: string[] = [];
+  text.split('\n').forEach((line, i) => {
+    if (SQL_PATTERNS.some((p) => p.test(line))) found.push(`${file}:${i + 1}: ${line.trim().slice(0, 120)}`);
+  });
+  return found;
+}
+
+describe('SQL lives in db/', () => {
+  it('finds the SQL forms it looks for (each pattern catches its example, plain code passes)', () => {
+    // Examples written for this test (common practice for a grep-based rule: show it fires).
+    expect(sqlLines('x.ts', 'await sql`select 1`.execute(db);')).toHaveLength(1);
+    expect(sqlLines('x.ts', 'const r = await sql<{ n: number }>`SELECT count(*) AS n FROM mention`;')).toHaveLength(1);
+    expect(sqlLines('x.ts', "await db.selectFrom('job').selectAll().execute();")).toHaveLength(1);
+    expect(sqlLines('x.ts', "await trx.deleteFrom('mention').execute();")).toHaveLength(1);
+    expect(sqlLines('x.ts', "await client.query('DELETE FROM mention WHERE id = $1', [id]);")).toHaveLength(1);
+    expect(sqlLines('x.ts', 'sql.raw(text)')).toHaveLength(1);
+    expect(sqlLines('x.ts', "// one SELECT per identifier, which is why the rows are read up front\nconst selected = items.filter(Boolean);")).toEqual([]);
+  });
+
+  it('has no SQL in services/ outside the allow-list', () => {
+    const offending = trackedServiceFiles()
+      .filter((f) => !ALLOWED.some((a) => f.startsWith(a.prefix)))
+      .flatMap((f) => sqlLines(f, readFileSync(f, 'utf8')));
+    expect(offending, 'move these statements into a db/queries/<concern>.ts function and call it').toEqual([]);
+  });
+
+  it('keeps no allow-list entry that is no longer needed (so the list only shrinks)', () => {
+    const files = trackedServiceFiles();
+    const stale = ALLOWED.filter((a) => !files.some((f) => f.startsWith(a.prefix) && sqlLines(f, readFileSync(f, 'utf8')).length > 0));
+    expect(stale.map((a) => a.prefix)).toEqual([]);
+  });
+});
