@@ -1,7 +1,8 @@
 /**
  * Candidate lookup through blocking keys. Each key contributes at most `perKey` counterparties (an index range
- * scan on the primary key), so a very common key cannot flood the candidate list; counterparties sharing more
- * keys come first.
+ * scan on the primary key), so a very common key cannot flood the candidate list. Candidates are ranked by the
+ * rarity of the keys they share (rarityOf: a key held by few names says more than many common ones), then by
+ * how many they share, and only then by id, so which candidates fill the limit is no longer an accident of ids.
  */
 import { sql } from 'kysely';
 import type { Queryable } from './util.ts';
@@ -27,6 +28,17 @@ export async function candidatesByKeys(
   return result.rows.map((r) => ({ counterpartyId: id(r.counterparty_id), sharedKeys: Number(r.shared) }));
 }
 
+/** Names a count of REFERENCE_NAMES or more would give a key weight 0; the cap of the count table is far below. */
+const REFERENCE_NAMES = 1_000_000;
+
+/**
+ * The rarity weight of key `k.key`: round(1000 · ln(REFERENCE_NAMES / names holding it)), an integer so that sums
+ * (and so ties) do not depend on the order of addition. Counts come from blocking_key_count (kept by triggers,
+ * capped: every capped key weighs the same); a key no name holds yet counts as held once.
+ */
+const rarityOf = (alias: string) =>
+  sql.raw(`round(1000 * ln(${REFERENCE_NAMES}::float8 / greatest(1, coalesce((SELECT kc.names FROM blocking_key_count kc WHERE kc.key = ${alias}.key), 1))))::bigint`);
+
 export async function keysOfCounterparty(db: Queryable, counterpartyId: number): Promise<string[]> {
   const rows = await db.selectFrom('blocking_key').select('key').distinct().where('counterparty_id', '=', counterpartyId).orderBy('key').execute();
   return rows.map((r) => r.key);
@@ -49,53 +61,31 @@ export async function candidateDetails(
   db: Queryable,
   keys: string[],
   identifiers: { scheme: string; value: string }[],
-  options: { perKey?: number; limit?: number } = {},
+  options: { perKey?: number; limit?: number; country?: string | null } = {},
 ): Promise<CandidateDetail[]> {
-  if (keys.length === 0 && identifiers.length === 0) return [];
-  const result = await sql<{
-    id: string | number;
-    canonical_name: string;
-    jurisdiction: string | null;
-    names: [string, string][] | string;
-    identifiers: [string, string, string | null][] | string;
-  }>`
-    WITH by_key AS (
-      SELECT c.counterparty_id, count(*) AS shared
-      FROM unnest(${sql.val(keys)}::text[]) AS k(key)
-      CROSS JOIN LATERAL (
-        SELECT DISTINCT b.counterparty_id FROM blocking_key b WHERE b.key = k.key LIMIT ${options.perKey ?? 200}
-      ) c
-      GROUP BY c.counterparty_id
-      ORDER BY shared DESC, c.counterparty_id
-      LIMIT ${options.limit ?? 50}
-    ), ids AS (
-      SELECT counterparty_id FROM by_key
-      UNION
-      SELECT i.counterparty_id FROM counterparty_identifier i
-      JOIN unnest(${sql.val(identifiers.map((i) => i.scheme))}::text[], ${sql.val(identifiers.map((i) => i.value))}::text[]) AS p(scheme, value)
-        ON i.scheme = p.scheme AND i.value = p.value
-    )
-    SELECT cp.id, cp.canonical_name, cp.jurisdiction,
-      (SELECT coalesce(json_agg(json_build_array(n.name, n.kind) ORDER BY n.id), '[]'::json) FROM counterparty_name n WHERE n.counterparty_id = cp.id) AS names,
-      (SELECT coalesce(json_agg(json_build_array(i.scheme, i.value, i.label) ORDER BY i.id), '[]'::json) FROM counterparty_identifier i WHERE i.counterparty_id = cp.id) AS identifiers
-    FROM ids JOIN counterparty cp ON cp.id = ids.counterparty_id
-    WHERE cp.status = 'active'
-    ORDER BY cp.id`.execute(db);
-  return result.rows.map(detailOf);
+  // One probe of the batch statement: the single and the batch answers cannot drift apart.
+  return (await candidateDetailsBatch(db, [{ keys, identifiers, country: options.country ?? null }], options))[0]!;
 }
 
 /**
- * candidateDetails for many probes in ONE statement: the answer for probe i is exactly what candidateDetails
- * answers for it alone (same per-key cap, same ranking by shared keys then id, same limit per probe, identifier
- * holders added, active only, ordered by id). Each distinct key is looked up once, and each candidate's names and
+ * Candidates of many probes in ONE statement (candidateDetails is its one-probe case): per probe, the `limit`
+ * best ranked by the rarity of the keys shared, then their number, then id (each key contributing at most `perKey`
+ * counterparties), the identifier holders added, active only; each probe's list in rank order. Each distinct key is looked up once, and each candidate's names and
  * identifiers are read once however many probes share it.
  */
 export async function candidateDetailsBatch(
   db: Queryable,
-  probes: { keys: string[]; identifiers: { scheme: string; value: string }[] }[],
+  probes: { keys: string[]; identifiers: { scheme: string; value: string }[]; country?: string | null }[],
   options: { perKey?: number; limit?: number } = {},
 ): Promise<CandidateDetail[][]> {
   const out: CandidateDetail[][] = probes.map(() => []);
+  const countryProbe: number[] = [];
+  const countries: string[] = [];
+  probes.forEach((probe, p) => {
+    if (!probe.country) return;
+    countryProbe.push(p);
+    countries.push(probe.country);
+  });
   const keyProbe: number[] = [];
   const keys: string[] = [];
   const idProbe: number[] = [];
@@ -115,6 +105,7 @@ export async function candidateDetailsBatch(
   if (keys.length === 0 && schemes.length === 0) return out;
   const result = await sql<{
     ps: (string | number)[] | string;
+    rns: (string | number)[] | string;
     id: string | number;
     canonical_name: string;
     jurisdiction: string | null;
@@ -123,40 +114,66 @@ export async function candidateDetailsBatch(
   }>`
     WITH q AS (
       SELECT p, key FROM unnest(${sql.val(keyProbe)}::int[], ${sql.val(keys)}::text[]) AS q(p, key)
+    ), dk AS (
+      SELECT dk.key, ${rarityOf('dk')} AS rarity FROM (SELECT DISTINCT key FROM q) dk
     ), hits AS (
-      SELECT dk.key, c.counterparty_id
-      FROM (SELECT DISTINCT key FROM q) dk
+      SELECT dk.key, dk.rarity, c.counterparty_id
+      FROM dk
       CROSS JOIN LATERAL (
         SELECT DISTINCT b.counterparty_id FROM blocking_key b WHERE b.key = dk.key LIMIT ${options.perKey ?? 200}
       ) c
+    ), ranked AS (
+      SELECT q.p, h.counterparty_id, row_number() OVER (PARTITION BY q.p ORDER BY sum(h.rarity) DESC, count(*) DESC, h.counterparty_id) AS rn
+      FROM q JOIN hits h ON h.key = q.key
+      GROUP BY q.p, h.counterparty_id
+    ), pc AS (
+      SELECT p, country FROM unnest(${sql.val(countryProbe)}::int[], ${sql.val(countries)}::text[]) AS pc(p, country)
     ), by_key AS (
-      SELECT p, counterparty_id FROM (
-        SELECT q.p, h.counterparty_id, row_number() OVER (PARTITION BY q.p ORDER BY count(*) DESC, h.counterparty_id) AS rn
-        FROM q JOIN hits h ON h.key = q.key
-        GROUP BY q.p, h.counterparty_id
-      ) r
+      -- The POOL rarest, then those whose country does not conflict with the probe's first (a conflict costs a
+      -- pair far more than any key says: resolvers/score, jurisdiction conflicting).
+      SELECT p, counterparty_id, rn FROM (
+        SELECT r.p, r.counterparty_id, row_number() OVER (PARTITION BY r.p ORDER BY
+          (pc.country IS NOT NULL AND cp.jurisdiction IS NOT NULL AND split_part(cp.jurisdiction, '-', 1) <> split_part(pc.country, '-', 1)), r.rn) AS rn
+        FROM ranked r JOIN counterparty cp ON cp.id = r.counterparty_id LEFT JOIN pc ON pc.p = r.p
+        WHERE r.rn <= ${CANDIDATE_POOL}
+      ) x
       WHERE rn <= ${options.limit ?? 50}
     ), pairs AS (
-      SELECT p, counterparty_id FROM by_key
-      UNION
-      SELECT ip.p, i.counterparty_id FROM counterparty_identifier i
+      SELECT p, counterparty_id, rn FROM by_key
+      UNION ALL
+      SELECT ip.p, i.counterparty_id, NULL FROM counterparty_identifier i
       JOIN unnest(${sql.val(idProbe)}::int[], ${sql.val(schemes)}::text[], ${sql.val(values)}::text[]) AS ip(p, scheme, value)
         ON i.scheme = ip.scheme AND i.value = ip.value
     ), cps AS (
-      SELECT counterparty_id, array_agg(p ORDER BY p) AS ps FROM pairs GROUP BY counterparty_id
+      SELECT counterparty_id, array_agg(p ORDER BY p) AS ps, array_agg(rn ORDER BY p) AS rns
+      FROM (SELECT p, counterparty_id, coalesce(min(rn), ${UNRANKED})::int AS rn FROM pairs GROUP BY p, counterparty_id) x
+      GROUP BY counterparty_id
     )
-    SELECT cps.ps, cp.id, cp.canonical_name, cp.jurisdiction,
+    SELECT cps.ps, cps.rns, cp.id, cp.canonical_name, cp.jurisdiction,
       (SELECT coalesce(json_agg(json_build_array(n.name, n.kind) ORDER BY n.id), '[]'::json) FROM counterparty_name n WHERE n.counterparty_id = cp.id) AS names,
       (SELECT coalesce(json_agg(json_build_array(i.scheme, i.value, i.label) ORDER BY i.id), '[]'::json) FROM counterparty_identifier i WHERE i.counterparty_id = cp.id) AS identifiers
     FROM cps JOIN counterparty cp ON cp.id = cps.counterparty_id
     WHERE cp.status = 'active'
     ORDER BY cp.id`.execute(db);
+  const ranks = probes.map(() => new Map<CandidateDetail, number>());
   for (const r of result.rows) {
     const detail = detailOf(r);
-    for (const p of parseIntArray(r.ps)) out[p]!.push(detail);
+    const rns = parseIntArray(r.rns);
+    parseIntArray(r.ps).forEach((p, i) => {
+      out[p]!.push(detail);
+      ranks[p]!.set(detail, rns[i]!);
+    });
   }
+  // Rows come by id; each probe's list is put in its rank order (identifier holders without a key last, by id).
+  out.forEach((list, p) => list.sort((x, y) => ranks[p]!.get(x)! - ranks[p]!.get(y)! || x.counterpartyId - y.counterpartyId));
   return out;
 }
+
+/** How many of the rarest candidates are reordered by country before the limit is taken. */
+export const CANDIDATE_POOL = 50;
+
+/** The rank of a candidate found by an identifier only (after every candidate found by keys). */
+const UNRANKED = 2_147_483_647;
 
 /** int[] as both drivers answer it (an array, or PostgreSQL's text form '{1,2}'). */
 function parseIntArray(value: (string | number)[] | string): number[] {

@@ -20,8 +20,13 @@ export interface ScoredMemoKey {
   exclude: ReadonlySet<number>;
 }
 
-function detailKey(keys: readonly string[], identifiers: readonly { scheme: string; value: string }[]): string {
-  return JSON.stringify([keys, identifiers.map((i) => [i.scheme, i.value])]);
+function detailKey(keys: readonly string[], identifiers: readonly { scheme: string; value: string }[], country: string | null): string {
+  return JSON.stringify([keys, identifiers.map((i) => [i.scheme, i.value]), country]);
+}
+
+/** A probe's country: its own, or its input's (a prepared mention). */
+function countryOf(probe: { country?: string | null; input?: { country?: string | null } }): string | null {
+  return probe.country ?? probe.input?.country ?? null;
 }
 
 export class BatchReads implements RarityReads {
@@ -56,12 +61,13 @@ export class BatchReads implements RarityReads {
   }
 
   /** Fetches the candidates of many probes in one statement (see candidateDetailsBatch). */
-  async prefetch(probes: { analysis: NameAnalysis; identifiers: Identifier[] }[], limit: number): Promise<void> {
-    const todo = new Map<string, { keys: string[]; identifiers: Identifier[] }>();
+  async prefetch(probes: { analysis: NameAnalysis; identifiers: Identifier[]; country?: string | null; input?: { country?: string | null } }[], limit: number): Promise<void> {
+    const todo = new Map<string, { keys: string[]; identifiers: Identifier[]; country: string | null }>();
     for (const probe of probes) {
       const keys = keysOfAnalysis(probe.analysis);
-      const key = detailKey(keys, probe.identifiers);
-      if (!this.details.has(key)) todo.set(key, { keys, identifiers: probe.identifiers });
+      const country = countryOf(probe);
+      const key = detailKey(keys, probe.identifiers, country);
+      if (!this.details.has(key)) todo.set(key, { keys, identifiers: probe.identifiers, country });
     }
     if (todo.size === 0) return;
     const entries = [...todo.entries()];
@@ -80,12 +86,12 @@ export class BatchReads implements RarityReads {
     await this.frequencies(tokens);
   }
 
-  detailsFor(keys: readonly string[], identifiers: readonly { scheme: string; value: string }[]): CandidateDetail[] | undefined {
-    return this.details.get(detailKey(keys, identifiers));
+  detailsFor(keys: readonly string[], identifiers: readonly { scheme: string; value: string }[], country: string | null): CandidateDetail[] | undefined {
+    return this.details.get(detailKey(keys, identifiers, country));
   }
 
-  rememberDetails(keys: readonly string[], identifiers: readonly { scheme: string; value: string }[], details: CandidateDetail[]): void {
-    this.details.set(detailKey(keys, identifiers), details);
+  rememberDetails(keys: readonly string[], identifiers: readonly { scheme: string; value: string }[], country: string | null, details: CandidateDetail[]): void {
+    this.details.set(detailKey(keys, identifiers, country), details);
   }
 
   scoredFor<T>(analysis: NameAnalysis, key: ScoredMemoKey): T | undefined {

@@ -28,15 +28,24 @@ import type { Queryable } from '../../../db/queries/util.ts';
 
 export const DF_CAP = 1000;
 
-/** Capped document frequency of each distinct token in the register. */
+/**
+ * Capped document frequency of each distinct token in the register, in counterparties (see the header). The count
+ * of names per key that triggers keep in blocking_key_count (migrations/20261205102000_blocking_key_count.ts)
+ * answers at once for a token at most one name holds and for a token at the cap; only the tokens between scan
+ * their keys (at most DF_CAP index rows) to count the counterparties among them.
+ */
 export async function documentFrequencies(db: Queryable, tokens: Iterable<string>): Promise<Map<string, number>> {
   const unique = [...new Set(tokens)];
   const frequencies = new Map<string, number>();
   if (unique.length > 0) {
-    const result = await sql<{ token: string; df: string | number }>`
-      SELECT t.token, (SELECT count(DISTINCT s.counterparty_id) FROM (SELECT b.counterparty_id FROM blocking_key b WHERE b.key = 't:' || t.token LIMIT ${DF_CAP}) s) AS df
-      FROM unnest(${sql.val(unique)}::text[]) AS t(token)`.execute(db);
-    for (const row of result.rows) frequencies.set(row.token, Number(row.df));
+    const result = await sql<{ token: string; df: string | number | null }>`
+      SELECT t.token,
+        CASE WHEN coalesce(c.names, 0) <= 1 OR c.names >= ${DF_CAP} THEN coalesce(c.names, 0)
+          ELSE (SELECT count(DISTINCT s.counterparty_id) FROM (SELECT b.counterparty_id FROM blocking_key b WHERE b.key = 't:' || t.token LIMIT ${DF_CAP}) s)
+        END AS df
+      FROM unnest(${sql.val(unique)}::text[]) AS t(token)
+      LEFT JOIN blocking_key_count c ON c.key = 't:' || t.token`.execute(db);
+    for (const row of result.rows) frequencies.set(row.token, Math.min(DF_CAP, Number(row.df ?? 0)));
   }
   return frequencies;
 }
