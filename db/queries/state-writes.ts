@@ -3,7 +3,7 @@
  * drawn from the tables' sequences, and the set-based statements a ChangeSet's buffer is written with. Values
  * are canonical row images (services/register/state/tables.ts): jsonb as JSON, timestamps as ISO text.
  */
-import { sql, type Transaction } from 'kysely';
+import { sql, type RawBuilder, type Transaction } from 'kysely';
 import type { Database } from '../types.ts';
 import type { Queryable } from './util.ts';
 
@@ -55,26 +55,40 @@ export async function deleteById(trx: Trx, table: string, id: number): Promise<v
   await sql`DELETE FROM ${sql.table(table)} WHERE id = ${id}`.execute(trx);
 }
 
-/** Inserts many rows in one statement (every column named). */
-export async function insertRows(trx: Trx, table: string, columns: readonly string[], rows: readonly Values[]): Promise<void> {
+/** One set-based write, to be run alone or with others in one statement (`runWrites`). */
+export type SetWrite = RawBuilder<unknown>;
+
+/** Inserts many rows (every column named). */
+export function insertRows(table: string, columns: readonly string[], rows: readonly Values[]): SetWrite {
   const cols = sql.join(columns.map((c) => sql.ref(c)));
-  await sql`INSERT INTO ${sql.table(table)} (${cols}) SELECT ${cols} FROM jsonb_populate_recordset(NULL::${sql.table(table)}, ${JSON.stringify(rows)}::jsonb)`.execute(
-    trx,
-  );
+  return sql`INSERT INTO ${sql.table(table)} (${cols}) SELECT ${cols} FROM jsonb_populate_recordset(NULL::${sql.table(table)}, ${JSON.stringify(rows)}::jsonb)`;
 }
 
-/** Sets the same columns of many rows (each row carries its id) in one statement. */
-export async function updateRows(trx: Trx, table: string, columns: readonly string[], rows: readonly Values[]): Promise<void> {
-  await sql`UPDATE ${sql.table(table)} AS t SET ${sql.join(columns.map((c) => sql`${sql.ref(c)} = r.${sql.ref(c)}`))}
-    FROM jsonb_populate_recordset(NULL::${sql.table(table)}, ${JSON.stringify(rows)}::jsonb) AS r WHERE t.id = r.id`.execute(trx);
+/** Sets the same columns of many rows (each row carries its id). */
+export function updateRows(table: string, columns: readonly string[], rows: readonly Values[]): SetWrite {
+  return sql`UPDATE ${sql.table(table)} AS t SET ${sql.join(columns.map((c) => sql`${sql.ref(c)} = r.${sql.ref(c)}`))}
+    FROM jsonb_populate_recordset(NULL::${sql.table(table)}, ${JSON.stringify(rows)}::jsonb) AS r WHERE t.id = r.id`;
 }
 
-/** Blocking keys of names, in one statement (a key already there stays). */
-export async function insertBlockingKeys(trx: Trx, keys: readonly { key: string; counterparty_id: number; name_id: number }[]): Promise<void> {
-  if (keys.length === 0) return;
-  await sql`INSERT INTO blocking_key (key, counterparty_id, name_id)
+/** Blocking keys of names (a key already there stays). */
+export function insertBlockingKeys(keys: readonly { key: string; counterparty_id: number; name_id: number }[]): SetWrite {
+  return sql`INSERT INTO blocking_key (key, counterparty_id, name_id)
     SELECT key, counterparty_id, name_id FROM jsonb_populate_recordset(NULL::blocking_key, ${JSON.stringify(keys)}::jsonb)
-    ON CONFLICT DO NOTHING`.execute(trx);
+    ON CONFLICT DO NOTHING`;
+}
+
+/**
+ * Runs set-based writes as ONE statement (one round trip), each a data-modifying WITH query. They touch different
+ * rows; foreign keys are checked at the end of the statement, so a row may refer to one inserted beside it.
+ */
+export async function runWrites(trx: Trx, writes: readonly SetWrite[]): Promise<void> {
+  if (writes.length === 0) return;
+  if (writes.length === 1) {
+    await writes[0]!.execute(trx);
+    return;
+  }
+  const parts = writes.map((w, i) => sql`${sql.raw(`w${i}`)} AS (${w})`);
+  await sql`WITH ${sql.join(parts)} SELECT 1`.execute(trx);
 }
 
 export function insertClause(values: Values) {

@@ -111,7 +111,15 @@ export async function resolveWithin(
   cs.startBuffering();
   // The ids of the rows it adds, in one statement (a person's earlier decision may still turn it into a review).
   const askable = textChanged && found?.confirmed_by !== null && found?.counterparty_id !== null;
-  await cs.reserveIds({ counterparty: outcome.status === 'new' ? 1 : 0, mention: found ? 0 : 1, review_item: outcome.status === 'review' || askable ? 1 : 0 });
+  // The names are an upper bound (a name already there is one more sighting): an id left over is a harmless gap.
+  const linking = outcome.status === 'linked' || outcome.status === 'new';
+  await cs.reserveIds({
+    counterparty: outcome.status === 'new' ? 1 : 0,
+    mention: found ? 0 : 1,
+    review_item: outcome.status === 'review' || askable ? 1 : 0,
+    counterparty_name: linking ? 1 + (outcome.declaredNames?.length ?? 0) + prepared.analysis.aliases.length : 0,
+    history_event: 1,
+  });
   const result = await writeMention(
     cs,
     {

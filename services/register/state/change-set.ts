@@ -24,6 +24,9 @@ export type { BufferedEvent } from './write-buffer.ts';
 
 export type Db = Kysely<Database> | Transaction<Database>;
 
+/** Tables whose ids a ChangeSet draws beforehand: the state tables and the history. */
+export type IdTable = StateTable | 'history_event';
+
 export class ChangeSet {
   readonly ops: Op[] = [];
   /** Merged id → survivor, as found while locking (records.ts lockActive). */
@@ -32,7 +35,7 @@ export class ChangeSet {
   /** Buffered mode (the resolve path): set by `startBuffering`, written by `flush`. */
   private buffer: WriteBuffer | null = null;
   /** Ids reserved for new rows, per table, taken in order (buffered or not). */
-  private pools = new Map<StateTable, number[]>();
+  private pools = new Map<IdTable, number[]>();
   private nextTemp = TEMP_ID_BASE;
   /** Real ids of temporary ids already written. */
   private readonly realIds = new Map<number, number>();
@@ -75,8 +78,8 @@ export class ChangeSet {
   }
 
   /** Draws ids for the rows this ChangeSet will insert, per table, in one statement; they are used in order. */
-  async reserveIds(counts: Partial<Record<StateTable, number>>): Promise<void> {
-    const drawn = await drawIds(this.trx, new Map(Object.entries(counts) as [StateTable, number][]));
+  async reserveIds(counts: Partial<Record<IdTable, number>>): Promise<void> {
+    const drawn = await drawIds(this.trx, new Map(Object.entries(counts) as [IdTable, number][]));
     for (const [table, ids] of drawn) this.pools.set(table, [...(this.pools.get(table) ?? []), ...ids]);
   }
 
@@ -106,16 +109,17 @@ export class ChangeSet {
   }
 
   private async newId(table: StateTable): Promise<number> {
-    // Names get a temporary id (drawn for real at flush): how many a batch adds is not known beforehand.
-    if (table === 'counterparty_name') return this.nextTemp++;
     const pool = this.pools.get(table);
     if (pool && pool.length > 0) return pool.shift()!;
+    // Names get a temporary id (drawn for real at flush) unless reserved: how many a batch adds is not known beforehand.
+    if (table === 'counterparty_name') return this.nextTemp++;
     return nextId(this.trx, table);
   }
 
-  /** Buffered mode: a history event written at the next flush, under a temporary id (see `realId`). */
+  /** Buffered mode: a history event written at the next flush, under a reserved id or a temporary one (see `realId`). */
   bufferEvent(values: Row, ops: Op[]): number {
-    const event: BufferedEvent = { id: this.nextTemp++, values, ops };
+    const pool = this.pools.get('history_event');
+    const event: BufferedEvent = { id: pool && pool.length > 0 ? pool.shift()! : this.nextTemp++, values, ops };
     this.buffer!.event(event);
     return event.id;
   }

@@ -6,7 +6,7 @@
  */
 import type { Transaction } from 'kysely';
 import type { Database } from '../../../db/types.ts';
-import { drawIds, insertBlockingKeys, insertRows, updateRows } from '../../../db/queries/state-writes.ts';
+import { drawIds, insertBlockingKeys, insertRows, runWrites, updateRows, type SetWrite } from '../../../db/queries/state-writes.ts';
 import type { Op } from './ops.ts';
 import type { RowCache } from './row-cache.ts';
 import { columnsOf, STATE_TABLES, type Row, type StateTable } from './tables.ts';
@@ -70,10 +70,10 @@ export class WriteBuffer {
    */
   async write(trx: Transaction<Database>, cache: RowCache, ops: Op[]): Promise<Map<number, number>> {
     const map = await this.drawRealIds(trx, cache, ops);
+    const writes: SetWrite[] = [];
     for (const table of STATE_TABLES) {
       const ids = this.inserts.get(table);
-      if (!ids || ids.length === 0) continue;
-      await insertRows(trx, table, columnsOf(table), ids.map((id) => cache.get(table, map.get(id) ?? id)!));
+      if (ids && ids.length > 0) writes.push(insertRows(table, columnsOf(table), ids.map((id) => cache.get(table, map.get(id) ?? id)!)));
     }
     const byColumns = new Map<string, { table: StateTable; columns: string[]; rows: Row[] }>();
     for (const { table, id, after } of this.updates.values()) {
@@ -82,12 +82,14 @@ export class WriteBuffer {
       if (!byColumns.has(key)) byColumns.set(key, { table, columns, rows: [] });
       byColumns.get(key)!.rows.push({ id, ...after });
     }
-    for (const { table, columns, rows } of byColumns.values()) await updateRows(trx, table, columns, rows);
-    await insertBlockingKeys(trx, this.blockingKeys.map((k) => ({ ...k, name_id: map.get(k.name_id) ?? k.name_id })));
+    for (const { table, columns, rows } of byColumns.values()) writes.push(updateRows(table, columns, rows));
+    if (this.blockingKeys.length > 0) writes.push(insertBlockingKeys(this.blockingKeys.map((k) => ({ ...k, name_id: map.get(k.name_id) ?? k.name_id }))));
     if (this.events.length > 0) {
-      const rows = this.events.map((e) => ({ ...e.values, id: map.get(e.id)!, payload: { ...(e.values.payload as Row), ops: e.ops } }));
-      await insertRows(trx, 'history_event', EVENT_COLUMNS, rows);
+      const rows = this.events.map((e) => ({ ...e.values, id: map.get(e.id) ?? e.id, payload: { ...(e.values.payload as Row), ops: e.ops } }));
+      writes.push(insertRows('history_event', EVENT_COLUMNS, rows));
     }
+    // Everything in one statement: one round trip per flush.
+    await runWrites(trx, writes);
     this.inserts = new Map();
     this.inserted = new Set();
     this.updates = new Map();
@@ -99,7 +101,7 @@ export class WriteBuffer {
   /** Real ids for the temporary ids of names and events, in one statement; renames the names everywhere. */
   private async drawRealIds(trx: Transaction<Database>, cache: RowCache, ops: Op[]): Promise<Map<number, number>> {
     const nameTemps = (this.inserts.get('counterparty_name') ?? []).filter((id) => id >= TEMP_ID_BASE);
-    const eventTemps = this.events.map((e) => e.id);
+    const eventTemps = this.events.map((e) => e.id).filter((id) => id >= TEMP_ID_BASE);
     const map = new Map<number, number>();
     if (nameTemps.length + eventTemps.length === 0) return map;
     const drawn = await drawIds(trx, new Map([['counterparty_name', nameTemps.length], ['history_event', eventTemps.length]]));
