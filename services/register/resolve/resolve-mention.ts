@@ -118,8 +118,9 @@ export async function resolveWithin(
     mention: found ? 0 : 1,
     review_item: outcome.status === 'review' || askable ? 1 : 0,
     counterparty_name: linking ? 1 + (outcome.declaredNames?.length ?? 0) + prepared.analysis.aliases.length : 0,
-    history_event: 1,
   });
+  // Not the event's id: it is drawn at the flush, after every lock, so that the events of two transactions that
+  // change one row are numbered in the order they commit (replay applies them in id order).
   const result = await writeMention(
     cs,
     {
