@@ -48,6 +48,12 @@ export async function findNameId(db: Queryable, counterpartyId: number, name: st
   return row ? id(row.id) : undefined;
 }
 
+/** How many names a counterparty has. */
+export async function countNames(db: Queryable, counterpartyId: number): Promise<number> {
+  const row = await db.selectFrom('counterparty_name').select((eb) => eb.fn.countAll().as('n')).where('counterparty_id', '=', counterpartyId).executeTakeFirstOrThrow();
+  return Number(row.n);
+}
+
 export interface NameOrigin {
   /** The contract the name was first seen in, when it came from one. */
   contractId: number | null;

@@ -11,7 +11,6 @@
  * Rows are checked before anything is written: a bad row stops the load with an error naming its line; the chunks
  * already committed stay (each is complete), and the error says how many rows were loaded.
  */
-import { sql } from 'kysely';
 import type { RegisterContext, ActorInput } from './context.ts';
 import { write } from './transaction.ts';
 import { addNameSighting, checkName, createCounterpartyRow } from './records.ts';
@@ -68,8 +67,7 @@ async function loadChunk(ctx: RegisterContext, chunk: { row: LoadRow; line: numb
   });
   await write(ctx, async (cs) => {
     cs.startBuffering();
-    const drawn = await sql<{ id: string | number }>`SELECT nextval(pg_get_serial_sequence('counterparty', 'id')) AS id FROM generate_series(1, ${checked.length})`.execute(cs.trx);
-    cs.reserveIds(new Map([['counterparty', drawn.rows.map((r) => Number(r.id)).sort((a, b) => a - b)]]));
+    await cs.reserveIds({ counterparty: checked.length });
     const at = ctx.now();
     for (const { name, jurisdiction } of checked) {
       const cp = await createCounterpartyRow(cs, { name, jurisdiction, at });

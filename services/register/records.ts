@@ -2,7 +2,6 @@
  * Building blocks shared by every register change, all inside one ChangeSet: create a counterparty, add a name
  * or an identifier, keep the canonical name by the rules, bump the version (the ETag), follow merges.
  */
-import { sql } from 'kysely';
 import type { IdentifierScheme, NameKind } from '../../resolvers/vocabulary.ts';
 import { isStrongScheme } from '../../resolvers/vocabulary.ts';
 import { normaliseIdentifier } from '../../resolvers/identifiers/index.ts';
@@ -11,7 +10,8 @@ import type { Row } from './state/tables.ts';
 import { chooseCanonicalName, type NameCandidate } from './canonical-name.ts';
 import { RegisterError, invalid, notFound } from './errors.ts';
 import { analyse } from './matching/analysis.ts';
-import { findNameId } from '../../db/queries/names.ts';
+import { countNames, findNameId } from '../../db/queries/names.ts';
+import { holdersOf } from '../../db/queries/identifiers.ts';
 
 export interface NameSighting {
   name: string;
@@ -97,29 +97,18 @@ export async function addNameSighting(cs: ChangeSet, counterpartyId: number, sig
 
 /** One fewer sighting of a name (a mention moved away); the row goes when nobody has seen it any more. */
 export async function removeNameSighting(cs: ChangeSet, counterpartyId: number, name: string, kind: NameKind): Promise<void> {
-  const existing = await cs.trx
-    .selectFrom('counterparty_name')
-    .select('id')
-    .where('counterparty_id', '=', counterpartyId)
-    .where('name', '=', name)
-    .where('kind', '=', kind)
-    .executeTakeFirst();
-  if (!existing) return;
-  const row = await cs.require('counterparty_name', Number(existing.id));
+  // A buffered write holds the counterparty's names (ChangeSet.namesOf); otherwise they are read.
+  const held = await cs.namesOf(counterpartyId);
+  const existing = held ? (held.find((n) => n.name === name && n.kind === kind)?.id as number | undefined) : await findNameId(cs.trx, counterpartyId, name, kind);
+  if (existing === undefined || existing === null) return;
+  const row = await cs.require('counterparty_name', Number(existing));
   const count = (row.seen_count as number) - 1;
-  if (count <= 0 && !row.confirmed_by) {
-    const others = await cs.trx
-      .selectFrom('counterparty_name')
-      .select(sql<number>`count(*)`.as('n'))
-      .where('counterparty_id', '=', counterpartyId)
-      .executeTakeFirstOrThrow();
-    // A counterparty keeps at least one name: the last one stays with a zero count.
-    if (Number(others.n) > 1) {
-      await cs.delete('counterparty_name', Number(existing.id));
-      return;
-    }
+  // A counterparty keeps at least one name: the last one stays with a zero count.
+  if (count <= 0 && !row.confirmed_by && (held ? held.length : await countNames(cs.trx, counterpartyId)) > 1) {
+    await cs.delete('counterparty_name', Number(existing));
+    return;
   }
-  await cs.update('counterparty_name', Number(existing.id), { seen_count: Math.max(0, count) });
+  await cs.update('counterparty_name', Number(existing), { seen_count: Math.max(0, count) });
 }
 
 /** Adds an identifier; a strong one already held by another active counterparty is refused, naming it. */
@@ -130,12 +119,11 @@ export async function addIdentifierRow(
   origin: { source?: string | null; mentionId?: number | null; confirmedBy?: string | null },
   at: Date,
 ): Promise<Row | undefined> {
-  const holders = await cs.trx
-    .selectFrom('counterparty_identifier')
-    .select(['id', 'counterparty_id'])
-    .where('scheme', '=', identifier.scheme)
-    .where('value', '=', identifier.value)
-    .execute();
+  // The stored holders, then those added in this ChangeSet's buffer (not written yet).
+  const holders = [
+    ...(await holdersOf(cs.trx, [identifier])).map((h) => ({ counterparty_id: h.counterpartyId })),
+    ...cs.unwritten('counterparty_identifier').filter((r) => r.scheme === identifier.scheme && r.value === identifier.value),
+  ];
   const own = holders.find((h) => Number(h.counterparty_id) === counterpartyId);
   if (own) return undefined;
   const strong = isStrongScheme(identifier.scheme);

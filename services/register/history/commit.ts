@@ -3,8 +3,8 @@
  * enough to replay from empty and to undo exactly) beside the event's own details (what a person reads).
  */
 import type { HistoryEventType } from '../../../resolvers/vocabulary.ts';
-import type { ChangeSet, Op } from '../state/change-set.ts';
-import { touchedBy } from '../state/change-set.ts';
+import type { ChangeSet } from '../state/change-set.ts';
+import { touchedBy, type Op } from '../state/ops.ts';
 
 export interface EventInput {
   type: HistoryEventType;

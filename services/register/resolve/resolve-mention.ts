@@ -7,73 +7,21 @@
  */
 import { sql } from 'kysely';
 import type { ParsedContract } from '../../../resolvers/terms/index.ts';
-import type { MentionInput, ResolutionStatus } from '../../../resolvers/vocabulary.ts';
+import type { MentionInput } from '../../../resolvers/vocabulary.ts';
+import { mentionsByKeys } from '../../../db/queries/state-writes.ts';
 import type { ActorInput, RegisterContext } from '../context.ts';
-import { commitEvent } from '../history/commit.ts';
 import { currentModel } from '../matching/model.ts';
 import { keysOfAnalysis } from '../matching/keys.ts';
 import type { ChangeSet } from '../state/change-set.ts';
-import { canonicalRow, type Row } from '../state/tables.ts';
+import { canonicalRow } from '../state/tables.ts';
 import { write } from '../transaction.ts';
-import { closeOpenItemsOfMention, detachMention } from '../upkeep.ts';
-import { askAgain, earlierDecisionOf, type EarlierDecision } from './earlier-decision.ts';
-import { applyOutcome, canonicalNameIn, eventTypeFor } from './apply.ts';
 import { decide, type ContractContext, type PartyContext } from './decide.ts';
 import { prepareMention, type PreparedMention } from './prepare.ts';
+import { resultOf, type ResolveResult } from './result.ts';
+import { writeMention } from './write-mention.ts';
 import { earlierContractOf } from '../earlier-contract.ts';
 
-export interface ResolveResult {
-  mentionId: number;
-  source: string;
-  externalId: string;
-  status: ResolutionStatus;
-  counterpartyId: number | null;
-  canonicalName: string | null;
-  ownEntityId: number | null;
-  score: number | null;
-  /** Why: summary sentence, per-feature weights, identifier notes, top candidates, thresholds. */
-  explanation: Record<string, unknown>;
-  reviewItemId: number | null;
-  /** True when this exact mention was already stored: nothing was done. */
-  alreadyIngested: boolean;
-  eventId: number | null;
-}
-
-export async function resultOf(
-  db: ChangeSet['trx'] | RegisterContext['db'],
-  mention: Row,
-  extra: { alreadyIngested: boolean; eventId: number | null; reviewItemId?: number | null; canonicalName?: string },
-): Promise<ResolveResult> {
-  const cpId = (mention.counterparty_id as number | null) ?? null;
-  const cp =
-    cpId === null
-      ? undefined
-      : extra.canonicalName !== undefined
-        ? { canonical_name: extra.canonicalName }
-        : await db.selectFrom('counterparty').select('canonical_name').where('id', '=', cpId).executeTakeFirst();
-  let reviewItemId = extra.reviewItemId ?? null;
-  if (reviewItemId === null && mention.status === 'review') {
-    const item = await db.selectFrom('review_item').select('id').where('mention_id', '=', mention.id as number).where('status', '=', 'open').orderBy('id', 'desc').executeTakeFirst();
-    reviewItemId = item ? Number(item.id) : null;
-  }
-  const evidence = { ...(mention.evidence as Record<string, unknown>) };
-  delete evidence.recordedName;
-  delete evidence.recordedAliases;
-  return {
-    mentionId: mention.id as number,
-    source: mention.source as string,
-    externalId: mention.external_id as string,
-    status: mention.status as ResolutionStatus,
-    counterpartyId: cpId,
-    canonicalName: cp?.canonical_name ?? null,
-    ownEntityId: (mention.own_entity_id as number | null) ?? null,
-    score: (mention.score as number | null) ?? null,
-    explanation: evidence,
-    reviewItemId,
-    alreadyIngested: extra.alreadyIngested,
-    eventId: extra.eventId,
-  };
-}
+export { resultOf, type ResolveResult } from './result.ts';
 
 /** Serialises resolutions of look-alike names (same core or same 6-letter prefix, same strong identifier) across
  * instances, so that two concurrent mentions of one new company do not create it twice. Transaction-scoped. */
@@ -127,8 +75,9 @@ export interface ResolveWithinOptions {
 }
 
 /**
- * The whole resolution inside an open ChangeSet; commits one event when anything changed. Used by the public
- * resolveMention and by contracts, reresolve and review.
+ * The whole resolution inside an open ChangeSet, as a batch of one: read → decide → the write stage shared with
+ * the batch (resolve/write-mention.ts), buffered and written at one flush; commits one event when anything changed.
+ * Used by the public resolveMention and by contracts, reresolve and review.
  */
 export async function resolveWithin(
   ctx: RegisterContext,
@@ -139,80 +88,63 @@ export async function resolveWithin(
 ): Promise<ResolveResult> {
   const at = ctx.now();
   let prepared = preparedInput;
-  const found = await cs.trx
-    .selectFrom('mention')
-    .select(['id', 'content_hash', 'counterparty_id', 'status', 'evidence'])
-    .where('source', '=', prepared.input.source)
-    .where('external_id', '=', prepared.input.externalId)
-    .executeTakeFirst();
+  const [stored] = await mentionsByKeys(cs.trx, [prepared.input]);
+  const found = stored ? canonicalRow('mention', stored) : undefined;
   // A changed contract that keeps a party's name but declares other former or trade names for it resolves it again.
   if (found && !options.force && declaredNamesChanged(found, options.party)) options = { ...options, force: true };
-  if (found && found.content_hash === prepared.contentHash && !options.force) {
-    const row = await cs.trx.selectFrom('mention').selectAll().where('id', '=', found.id).executeTakeFirstOrThrow();
-    return resultOf(cs.trx, canonicalRow('mention', row), { alreadyIngested: true, eventId: null });
-  }
+  if (found && found.content_hash === prepared.contentHash && !options.force) return resultOf(cs.trx, found, { alreadyIngested: true, eventId: null });
   await lockNameNeighbourhood(cs, prepared);
-  let previous: Row | undefined;
-  let earlier: EarlierDecision | null = null;
-  if (found) {
-    // Lock order: counterparty, then mention (as everywhere).
-    if (found.counterparty_id !== null) await cs.lock('counterparty', [Number(found.counterparty_id)]);
-    previous = await cs.require('mention', Number(found.id));
-    earlier = earlierDecisionOf(previous, found.content_hash !== prepared.contentHash && !options.force);
-    if (previous.counterparty_id !== null && Number(found.counterparty_id) !== previous.counterparty_id) {
-      await cs.lock('counterparty', [previous.counterparty_id as number]);
-    }
-    await detachMention(cs, previous, at);
-    await closeOpenItemsOfMention(cs, previous.id as number);
-    previous = { ...previous };
-  }
   const textChanged = found !== undefined && found.content_hash !== prepared.contentHash && !options.force;
   // A forced re-resolution keeps the stored content hash: the source's own input is what idempotency compares.
-  if (found && options.force) prepared = { ...prepared, contentHash: found.content_hash };
+  if (found && options.force) prepared = { ...prepared, contentHash: found.content_hash as string };
   const contract = options.party ? null : await contractContextFor(cs, prepared.input.contract);
   const { model, version } = await currentModel(cs.trx);
-  const decided = await decide(cs.trx, prepared, model, {
-    mentionId: found ? Number(found.id) : null,
+  const outcome = await decide(cs.trx, prepared, model, {
+    mentionId: found ? (found.id as number) : null,
     contract,
     party: options.party ?? null,
     contractAwaited: prepared.input.contract !== undefined && contract === null,
   });
-  const outcome = earlier ? askAgain(decided, earlier) : decided;
   if (options.party?.aliases && options.party.aliases.length > 0) outcome.declaredNames = options.party.aliases;
   outcome.evidence.modelVersion = version;
-  const existing = found ? await cs.require('mention', Number(found.id)) : undefined;
-  const applied = await applyOutcome(cs, prepared, outcome, existing, {
-    contractId: options.party?.contractId ?? contract?.contractId ?? null,
-    at,
+  const owned = !cs.buffering;
+  cs.startBuffering();
+  // The ids of the rows it adds, in one statement (a person's earlier decision may still turn it into a review).
+  const askable = textChanged && found?.confirmed_by !== null && found?.counterparty_id !== null;
+  // The names are an upper bound (a name already there is one more sighting): an id left over is a harmless gap.
+  const linking = outcome.status === 'linked' || outcome.status === 'new';
+  await cs.reserveIds({
+    counterparty: outcome.status === 'new' ? 1 : 0,
+    mention: found ? 0 : 1,
+    review_item: outcome.status === 'review' || askable ? 1 : 0,
+    counterparty_name: linking ? 1 + (outcome.declaredNames?.length ?? 0) + prepared.analysis.aliases.length : 0,
   });
-  if (options.beforeCommit) await options.beforeCommit(applied.mention.id as number);
-  const type = eventTypeFor(previous, applied, textChanged);
-  const eventId = await commitEvent(cs, {
-    type,
-    actor: who.actor,
-    at,
-    reason: who.reason,
-    requestId: who.requestId,
-    details: {
-      entity: 'mention',
-      mentionId: applied.mention.id,
-      status: outcome.status,
-      counterpartyId: applied.counterpartyId,
-      ...(applied.createdCounterparty ? { createdCounterpartyId: applied.counterpartyId } : {}),
-      ...(previous ? { previousStatus: previous.status, previousCounterpartyId: previous.counterparty_id, previousText: previous.text } : {}),
-      ...(options.cause ? { cause: options.cause } : textChanged ? { cause: 'text_changed' } : {}),
+  // Not the event's id: it is drawn at the flush, after every lock, so that the events of two transactions that
+  // change one row are numbered in the order they commit (replay applies them in id order).
+  const result = await writeMention(
+    cs,
+    {
+      prepared,
+      outcome,
+      stored: found ? { id: found.id as number, counterpartyId: found.counterparty_id as number | null } : null,
+      textChanged,
+      contractId: options.party?.contractId ?? contract?.contractId ?? null,
+      beforeCommit: options.beforeCommit,
+      details: (applied, previous) => ({
+        ...(applied.createdCounterparty ? { createdCounterpartyId: applied.counterpartyId } : {}),
+        ...(previous ? { previousStatus: previous.status, previousCounterpartyId: previous.counterparty_id, previousText: previous.text } : {}),
+        ...(options.cause ? { cause: options.cause } : textChanged ? { cause: 'text_changed' } : {}),
+      }),
     },
-  });
-  return resultOf(cs.trx, applied.mention, {
-    alreadyIngested: false,
-    eventId,
-    reviewItemId: applied.reviewItemId,
-    canonicalName: canonicalNameIn(cs, (applied.mention.counterparty_id as number | null) ?? null),
-  });
+    who,
+    at,
+  );
+  if (owned) await cs.stopBuffering();
+  return { ...result, eventId: result.eventId === null ? null : cs.realId(result.eventId) };
 }
 
 /** Whether a linked contract party's stored declared names (recordedAliases) differ from what its contract declares now. */
-function declaredNamesChanged(found: { status: string; evidence: unknown }, party: PartyContext | undefined): boolean {
+function declaredNamesChanged(found: { status?: unknown; evidence?: unknown }, party: PartyContext | undefined): boolean {
   if (party === undefined || (found.status !== 'linked' && found.status !== 'new')) return false;
   const stored = ((found.evidence as { recordedAliases?: { name: string; kind: string }[] } | null)?.recordedAliases ?? []).map((a) => `${a.kind}:${a.name}`);
   const now = [...new Set((party.aliases ?? []).map((a) => `${a.kind}:${a.name}`))];

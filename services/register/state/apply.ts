@@ -5,7 +5,8 @@
 import { sql, type Transaction } from 'kysely';
 import type { Database } from '../../../db/types.ts';
 import { deepEqual } from './deep-equal.ts';
-import { insertClause, setClause, type Op } from './change-set.ts';
+import { insertClause, setClause } from '../../../db/queries/state-writes.ts';
+import type { Op } from './ops.ts';
 import { syncDerived, type DerivedContext } from './derived.ts';
 import { canonicalRow, toDbValues, type Row, type StateTable } from './tables.ts';
 

@@ -23,7 +23,7 @@ export const STATE_TABLES = [
 ] as const;
 export type StateTable = (typeof STATE_TABLES)[number];
 
-type ColumnKind = 'int8' | 'int' | 'num' | 'text' | 'bool' | 'ts' | 'json';
+export type ColumnKind = 'int8' | 'int' | 'num' | 'text' | 'bool' | 'ts' | 'json';
 
 const COLUMNS: Record<StateTable, Record<string, ColumnKind>> = {
   own_entity: {
@@ -209,6 +209,10 @@ export type Row = Record<string, unknown>;
 
 export function columnsOf(table: StateTable): string[] {
   return Object.keys(COLUMNS[table]);
+}
+
+export function columnKindsOf(table: StateTable): Readonly<Record<string, ColumnKind>> {
+  return COLUMNS[table];
 }
 
 function canonicalValue(kind: ColumnKind, value: unknown): unknown {

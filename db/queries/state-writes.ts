@@ -1,0 +1,113 @@
+/**
+ * The SQL of the register's writes to its state tables (services/register/state/change-set.ts): row locks, ids
+ * drawn from the tables' sequences, and the set-based statements a ChangeSet's buffer is written with. Values
+ * are canonical row images (services/register/state/tables.ts): jsonb as JSON, timestamps as ISO text.
+ */
+import { sql, type RawBuilder, type Transaction } from 'kysely';
+import type { Database } from '../types.ts';
+import type { Queryable } from './util.ts';
+
+type Trx = Transaction<Database>;
+type Values = Record<string, unknown>;
+
+/** Locks rows of one table in id order (so that two transactions never wait on each other in a cycle). */
+export async function lockRows(trx: Trx, table: string, ids: readonly number[]): Promise<Values[]> {
+  const result = await sql<Values>`SELECT * FROM ${sql.table(table)} WHERE id IN (${sql.join(ids)}) ORDER BY id FOR UPDATE`.execute(trx);
+  return result.rows;
+}
+
+/** Locks every name of these counterparties, in id order. */
+export async function lockNamesOf(trx: Trx, counterpartyIds: readonly number[]): Promise<Values[]> {
+  const result = await sql<Values>`SELECT * FROM counterparty_name WHERE counterparty_id IN (${sql.join(counterpartyIds)}) ORDER BY id FOR UPDATE`.execute(trx);
+  return result.rows;
+}
+
+/** Ids drawn from the sequences of several tables in one statement, per table in ascending order. */
+export async function drawIds<T extends string>(trx: Trx, counts: ReadonlyMap<T, number>): Promise<Map<T, number[]>> {
+  const tables = [...counts.keys()].filter((t) => counts.get(t)! > 0);
+  const out = new Map<T, number[]>(tables.map((t) => [t, []]));
+  if (tables.length === 0) return out;
+  const drawn = await sql<{ t: T; id: unknown }>`
+    SELECT t, nextval(pg_get_serial_sequence(t, 'id')) AS id
+    FROM unnest(${sql.val(tables)}::text[], ${sql.val(tables.map((t) => counts.get(t)!))}::int[]) AS k(t, n), generate_series(1, k.n)`.execute(trx);
+  for (const row of drawn.rows) out.get(row.t)!.push(Number(row.id));
+  for (const ids of out.values()) ids.sort((a, b) => a - b);
+  return out;
+}
+
+/** One id from a table's sequence. */
+export async function nextId(trx: Trx, table: string): Promise<number> {
+  const result = await sql<{ id: string | number }>`SELECT nextval(pg_get_serial_sequence(${table}, 'id')) AS id`.execute(trx);
+  return Number(result.rows[0]!.id);
+}
+
+/** Inserts one row (values ready for the driver: jsonb as JSON text) and answers it as stored. */
+export async function insertReturning(trx: Trx, table: string, values: Values): Promise<Values> {
+  const result = await sql<Values>`INSERT INTO ${sql.table(table)} ${insertClause(values)} RETURNING *`.execute(trx);
+  return result.rows[0]!;
+}
+
+export async function updateById(trx: Trx, table: string, id: number, values: Values): Promise<void> {
+  await sql`UPDATE ${sql.table(table)} SET ${setClause(values)} WHERE id = ${id}`.execute(trx);
+}
+
+export async function deleteById(trx: Trx, table: string, id: number): Promise<void> {
+  await sql`DELETE FROM ${sql.table(table)} WHERE id = ${id}`.execute(trx);
+}
+
+/** One set-based write, to be run alone or with others in one statement (`runWrites`). */
+export type SetWrite = RawBuilder<unknown>;
+
+/** Inserts many rows (every column named). */
+export function insertRows(table: string, columns: readonly string[], rows: readonly Values[]): SetWrite {
+  const cols = sql.join(columns.map((c) => sql.ref(c)));
+  return sql`INSERT INTO ${sql.table(table)} (${cols}) SELECT ${cols} FROM jsonb_populate_recordset(NULL::${sql.table(table)}, ${JSON.stringify(rows)}::jsonb)`;
+}
+
+/** Sets the same columns of many rows (each row carries its id). */
+export function updateRows(table: string, columns: readonly string[], rows: readonly Values[]): SetWrite {
+  return sql`UPDATE ${sql.table(table)} AS t SET ${sql.join(columns.map((c) => sql`${sql.ref(c)} = r.${sql.ref(c)}`))}
+    FROM jsonb_populate_recordset(NULL::${sql.table(table)}, ${JSON.stringify(rows)}::jsonb) AS r WHERE t.id = r.id`;
+}
+
+/** Blocking keys of names (a key already there stays). */
+export function insertBlockingKeys(keys: readonly { key: string; counterparty_id: number; name_id: number }[]): SetWrite {
+  return sql`INSERT INTO blocking_key (key, counterparty_id, name_id)
+    SELECT key, counterparty_id, name_id FROM jsonb_populate_recordset(NULL::blocking_key, ${JSON.stringify(keys)}::jsonb)
+    ON CONFLICT DO NOTHING`;
+}
+
+/**
+ * Runs set-based writes as ONE statement (one round trip), each a data-modifying WITH query. They touch different
+ * rows; foreign keys are checked at the end of the statement, so a row may refer to one inserted beside it.
+ */
+export async function runWrites(trx: Trx, writes: readonly SetWrite[]): Promise<void> {
+  if (writes.length === 0) return;
+  if (writes.length === 1) {
+    await writes[0]!.execute(trx);
+    return;
+  }
+  const parts = writes.map((w, i) => sql`${sql.raw(`w${i}`)} AS (${w})`);
+  await sql`WITH ${sql.join(parts)} SELECT 1`.execute(trx);
+}
+
+export function insertClause(values: Values) {
+  const columns = Object.keys(values).filter((c) => values[c] !== undefined);
+  return sql`(${sql.join(columns.map((c) => sql.ref(c)))}) VALUES (${sql.join(columns.map((c) => values[c]))})`;
+}
+
+export function setClause(values: Values) {
+  return sql.join(Object.keys(values).map((c) => sql`${sql.ref(c)} = ${values[c]}`));
+}
+
+/** Stored mentions by (source, externalId), in one statement. */
+export async function mentionsByKeys(db: Queryable, keys: readonly { source: string; externalId: string }[]): Promise<MentionKeyRow[]> {
+  if (keys.length === 0) return [];
+  const result = await sql<MentionKeyRow>`
+    SELECT m.* FROM mention m
+    JOIN unnest(${sql.val(keys.map((k) => k.source))}::text[], ${sql.val(keys.map((k) => k.externalId))}::text[]) AS k(source, external_id)
+      ON m.source = k.source AND m.external_id = k.external_id`.execute(db);
+  return result.rows;
+}
+
+export type MentionKeyRow = Values & { id: unknown; source: string; external_id: string; content_hash: string; counterparty_id: unknown };

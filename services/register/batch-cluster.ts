@@ -1,0 +1,127 @@
+/**
+ * The cluster stage of a batch: the mentions whose outcome depends on the rest of the batch, with their register
+ * candidates, become a graph (mention–counterparty edges from the candidates' scores, mention–mention edges from
+ * pairs inside the batch that share a blocking key) clustered by resolvers/cluster, best edge first, ties broken
+ * by ids, so that the clusters are the same for any input order.
+ */
+import { candidatePairs, type MatchRecord } from '../../resolvers/block/index.ts';
+import { clusterRecords, type ScoredEdge } from '../../resolvers/cluster/index.ts';
+import { clusterRulesOf, scorePair, type MatchModel } from '../../resolvers/score/index.ts';
+import type { RegisterContext } from './context.ts';
+import { idfFor } from './matching/idf.ts';
+import type { BatchReads } from './matching/batch-reads.ts';
+import { scoredCandidates } from './matching/candidates.ts';
+import type { Outcome } from './resolve/decide.ts';
+import type { PreparedMention } from './resolve/prepare.ts';
+
+/** A mention of a batch after the decide stage. */
+export interface Pending {
+  index: number;
+  prepared: PreparedMention;
+  /** `${source}\u0000${externalId}`: the batch's order and identity of a mention. */
+  key: string;
+  outcome: Outcome;
+  /** The read phase found the mention stored (with another content). */
+  stored: boolean;
+}
+
+/** Mentions written together: those of one cluster, with the register counterparty it joined (if any). */
+export interface Group {
+  members: Pending[];
+  counterpartyId: number | null;
+}
+
+export async function clusterBatch(
+  ctx: RegisterContext,
+  matching: Pending[],
+  model: MatchModel,
+  reads: BatchReads,
+  comparePairs: readonly (readonly [string, string])[] | undefined,
+): Promise<Group[]> {
+  if (matching.length === 0) return [];
+  const byKey = [...matching].sort((a, b) => (a.key < b.key ? -1 : 1));
+  const records: MatchRecord[] = byKey.map((p) => ({
+    id: `m:${p.key}`,
+    analysis: p.prepared.analysis,
+    ...(p.prepared.input.country ? { country: p.prepared.input.country } : {}),
+    identifiers: p.prepared.identifiers,
+  }));
+  const idf = await idfFor(ctx.db, records.flatMap((r) => r.analysis.tokens), reads);
+  const edges: ScoredEdge[] = [];
+  const cannot: [string, string][] = [];
+  const cps = new Set<string>();
+  for (const p of byKey) {
+    const candidates = await scoredCandidates(ctx.db, { analysis: p.prepared.analysis, country: p.prepared.input.country ?? null, identifiers: p.prepared.identifiers }, model, new Set(), reads);
+    for (const c of candidates) {
+      const cpNode = `cp:${c.counterpartyId}`;
+      cps.add(cpNode);
+      if (c.score === -Infinity) cannot.push([`m:${p.key}`, cpNode]);
+      else edges.push({ a: `m:${p.key}`, b: cpNode, score: c.score });
+    }
+  }
+  const pairs = comparePairs ? pairsByKey(byKey, comparePairs) : candidatePairs(records, { idf });
+  for (let i = 0; i < pairs.count; i++) {
+    const a = records[pairs.left[i]!]!;
+    const b = records[pairs.right[i]!]!;
+    const s = scorePair(a, b, model, idf);
+    if (s.score === -Infinity) cannot.push([a.id, b.id]);
+    else edges.push({ a: a.id, b: b.id, score: s.score });
+  }
+  const cpList = [...cps].sort();
+  // Register counterparties never join each other: a cannot-link between every two of them. Only two that one
+  // chain of linking edges (score ≥ linkAt) connects can ever meet in a merge, so the cannot-links are given
+  // within each such component only (the clusters are the same; all pairs would grow with the square of the
+  // counterparties in the batch).
+  const root = new Map<string, string>();
+  const find = (node: string): string => {
+    let r = node;
+    while (root.has(r) && root.get(r) !== r) r = root.get(r)!;
+    let at = node;
+    while (at !== r) {
+      const next = root.get(at)!;
+      root.set(at, r);
+      at = next;
+    }
+    return r;
+  };
+  for (const e of edges) {
+    if (!(e.score >= model.linkAt)) continue;
+    const ra = find(e.a);
+    const rb = find(e.b);
+    if (ra !== rb) root.set(ra < rb ? rb : ra, ra < rb ? ra : rb);
+  }
+  const byComponent = new Map<string, string[]>();
+  for (const cp of cpList) {
+    const r = find(cp);
+    if (!byComponent.has(r)) byComponent.set(r, []);
+    byComponent.get(r)!.push(cp);
+  }
+  for (const group of byComponent.values()) for (let i = 0; i < group.length; i++) for (let j = i + 1; j < group.length; j++) cannot.push([group[i]!, group[j]!]);
+  const ids = [...records.map((r) => r.id), ...cpList];
+  const clusters = clusterRecords(ids, edges, cannot, clusterRulesOf(model));
+  const byNode = new Map(byKey.map((p) => [`m:${p.key}`, p]));
+  const out: Group[] = [];
+  for (const cluster of clusters) {
+    const members = cluster.filter((n) => n.startsWith('m:')).map((n) => byNode.get(n)!).sort((a, b) => (a.key < b.key ? -1 : 1));
+    if (members.length === 0) continue;
+    const cp = cluster.find((n) => n.startsWith('cp:'));
+    out.push({ members, counterpartyId: cp ? Number(cp.slice(3)) : null });
+  }
+  return out;
+}
+
+/** The given pairs of sort keys as index pairs into `byKey` (pairs naming a mention not in it are left out). */
+function pairsByKey(byKey: readonly Pending[], keys: readonly (readonly [string, string])[]): { left: Int32Array; right: Int32Array; count: number } {
+  const index = new Map(byKey.map((p, i) => [p.key, i]));
+  const left: number[] = [];
+  const right: number[] = [];
+  for (const [a, b] of keys) {
+    const i = index.get(a);
+    const j = index.get(b);
+    if (i === undefined || j === undefined || i === j) continue;
+    left.push(i);
+    right.push(j);
+  }
+  return { left: Int32Array.from(left), right: Int32Array.from(right), count: left.length };
+}
+

@@ -1,0 +1,61 @@
+/** What a resolve answers for one mention, read from its stored row (and the counterparty's canonical name). */
+import type { ResolutionStatus } from '../../../resolvers/vocabulary.ts';
+import type { Queryable } from '../../../db/queries/util.ts';
+import type { Row } from '../state/tables.ts';
+
+export interface ResolveResult {
+  mentionId: number;
+  source: string;
+  externalId: string;
+  status: ResolutionStatus;
+  counterpartyId: number | null;
+  canonicalName: string | null;
+  ownEntityId: number | null;
+  score: number | null;
+  /** Why: summary sentence, per-feature weights, identifier notes, top candidates, thresholds. */
+  explanation: Record<string, unknown>;
+  reviewItemId: number | null;
+  /** True when this exact mention was already stored: nothing was done. */
+  alreadyIngested: boolean;
+  eventId: number | null;
+}
+
+/**
+ * The result of a stored mention. A write passes what it knows (the review item it opened, the canonical name it
+ * holds): nothing is read then; a mention already stored reads them.
+ */
+export async function resultOf(
+  db: Queryable,
+  mention: Row,
+  extra: { alreadyIngested: boolean; eventId: number | null; reviewItemId?: number | null; canonicalName?: string },
+): Promise<ResolveResult> {
+  const cpId = (mention.counterparty_id as number | null) ?? null;
+  const cp =
+    cpId === null
+      ? undefined
+      : extra.canonicalName !== undefined
+        ? { canonical_name: extra.canonicalName }
+        : await db.selectFrom('counterparty').select('canonical_name').where('id', '=', cpId).executeTakeFirst();
+  let reviewItemId = extra.reviewItemId ?? null;
+  if (extra.reviewItemId === undefined && mention.status === 'review') {
+    const item = await db.selectFrom('review_item').select('id').where('mention_id', '=', mention.id as number).where('status', '=', 'open').orderBy('id', 'desc').executeTakeFirst();
+    reviewItemId = item ? Number(item.id) : null;
+  }
+  const evidence = { ...(mention.evidence as Record<string, unknown>) };
+  delete evidence.recordedName;
+  delete evidence.recordedAliases;
+  return {
+    mentionId: mention.id as number,
+    source: mention.source as string,
+    externalId: mention.external_id as string,
+    status: mention.status as ResolutionStatus,
+    counterpartyId: cpId,
+    canonicalName: cp?.canonical_name ?? null,
+    ownEntityId: (mention.own_entity_id as number | null) ?? null,
+    score: (mention.score as number | null) ?? null,
+    explanation: evidence,
+    reviewItemId,
+    alreadyIngested: extra.alreadyIngested,
+    eventId: extra.eventId,
+  };
+}

@@ -1,0 +1,127 @@
+/**
+ * The write buffer of a ChangeSet: rows inserted and columns changed since the last flush, the blocking keys of
+ * new names and the history events, written at the flush in a few set-based statements (db/queries/state-writes.ts).
+ * Names and events carry temporary ids until then (how many a batch adds is not known beforehand): the flush
+ * draws their real ids in one statement and renames them everywhere the ChangeSet keeps them.
+ */
+import type { Transaction } from 'kysely';
+import type { Database } from '../../../db/types.ts';
+import { drawIds, insertBlockingKeys, insertRows, runWrites, updateRows, type SetWrite } from '../../../db/queries/state-writes.ts';
+import type { Op } from './ops.ts';
+import type { RowCache } from './row-cache.ts';
+import { columnsOf, STATE_TABLES, type Row, type StateTable } from './tables.ts';
+
+/** Temporary ids sit above every real id, in the order the rows were made, so that comparing ids before and after
+ * the flush gives the same answer. */
+export const TEMP_ID_BASE = 2 ** 52;
+
+/** A history event waiting in the buffer (history/commit.ts). */
+export interface BufferedEvent {
+  id: number;
+  values: Row;
+  ops: Op[];
+}
+
+const EVENT_COLUMNS = ['id', 'type', 'actor', 'at', 'reason', 'payload', 'counterparty_ids', 'mention_ids', 'undoes_event_id', 'request_id'];
+
+export class WriteBuffer {
+  /** Rows inserted since the last flush, by table, as ids (their latest image is in the row cache). */
+  private inserts = new Map<StateTable, number[]>();
+  private inserted = new Set<string>();
+  /** Changed columns of rows stored before, by table and id. */
+  private updates = new Map<string, { table: StateTable; id: number; after: Row }>();
+  private blockingKeys: { key: string; counterparty_id: number; name_id: number }[] = [];
+  private events: BufferedEvent[] = [];
+
+  insert(table: StateTable, id: number): void {
+    if (!this.inserts.has(table)) this.inserts.set(table, []);
+    this.inserts.get(table)!.push(id);
+    this.inserted.add(`${table}:${id}`);
+  }
+
+  /** A change to a row; one inserted in this buffer is written with its latest image already. */
+  update(table: StateTable, id: number, after: Row): void {
+    const key = `${table}:${id}`;
+    if (this.inserted.has(key)) return;
+    const pending = this.updates.get(key);
+    this.updates.set(key, { table, id, after: { ...(pending?.after ?? {}), ...after } });
+  }
+
+  nameKeys(keys: readonly string[], counterpartyId: number, nameId: number): void {
+    for (const key of keys) this.blockingKeys.push({ key, counterparty_id: counterpartyId, name_id: nameId });
+  }
+
+  event(event: BufferedEvent): void {
+    this.events.push(event);
+  }
+
+  /** Ids of the rows of a table inserted since the last flush. */
+  insertedIds(table: StateTable): readonly number[] {
+    return this.inserts.get(table) ?? [];
+  }
+
+  get empty(): boolean {
+    return this.inserts.size === 0 && this.updates.size === 0 && this.events.length === 0 && this.blockingKeys.length === 0;
+  }
+
+  /**
+   * Writes everything and empties the buffer; answers the real id of each temporary id. `ops`: the ChangeSet's ops
+   * not yet in an event (their name ids are renamed too).
+   */
+  async write(trx: Transaction<Database>, cache: RowCache, ops: Op[]): Promise<Map<number, number>> {
+    const map = await this.drawRealIds(trx, cache, ops);
+    const writes: SetWrite[] = [];
+    for (const table of STATE_TABLES) {
+      const ids = this.inserts.get(table);
+      if (ids && ids.length > 0) writes.push(insertRows(table, columnsOf(table), ids.map((id) => cache.get(table, map.get(id) ?? id)!)));
+    }
+    const byColumns = new Map<string, { table: StateTable; columns: string[]; rows: Row[] }>();
+    for (const { table, id, after } of this.updates.values()) {
+      const columns = Object.keys(after).sort();
+      const key = `${table}:${columns.join(',')}`;
+      if (!byColumns.has(key)) byColumns.set(key, { table, columns, rows: [] });
+      byColumns.get(key)!.rows.push({ id, ...after });
+    }
+    for (const { table, columns, rows } of byColumns.values()) writes.push(updateRows(table, columns, rows));
+    if (this.blockingKeys.length > 0) writes.push(insertBlockingKeys(this.blockingKeys.map((k) => ({ ...k, name_id: map.get(k.name_id) ?? k.name_id }))));
+    if (this.events.length > 0) {
+      const rows = this.events.map((e) => ({ ...e.values, id: map.get(e.id) ?? e.id, payload: { ...(e.values.payload as Row), ops: e.ops } }));
+      writes.push(insertRows('history_event', EVENT_COLUMNS, rows));
+    }
+    // Everything in one statement: one round trip per flush.
+    await runWrites(trx, writes);
+    this.inserts = new Map();
+    this.inserted = new Set();
+    this.updates = new Map();
+    this.blockingKeys = [];
+    this.events = [];
+    return map;
+  }
+
+  /** Real ids for the temporary ids of names and events, in one statement; renames the names everywhere. */
+  private async drawRealIds(trx: Transaction<Database>, cache: RowCache, ops: Op[]): Promise<Map<number, number>> {
+    const nameTemps = (this.inserts.get('counterparty_name') ?? []).filter((id) => id >= TEMP_ID_BASE);
+    const eventTemps = this.events.map((e) => e.id).filter((id) => id >= TEMP_ID_BASE);
+    const map = new Map<number, number>();
+    if (nameTemps.length + eventTemps.length === 0) return map;
+    const drawn = await drawIds(trx, new Map([['counterparty_name', nameTemps.length], ['history_event', eventTemps.length]]));
+    nameTemps.forEach((temp, i) => map.set(temp, drawn.get('counterparty_name')![i]!));
+    eventTemps.forEach((temp, i) => map.set(temp, drawn.get('history_event')![i]!));
+    const names = new Map(nameTemps.map((t) => [t, map.get(t)!]));
+    renameNameOps([ops, ...this.events.map((e) => e.ops)], names);
+    cache.rename('counterparty_name', names);
+    return map;
+  }
+}
+
+function renameNameOps(lists: Op[][], map: ReadonlyMap<number, number>): void {
+  const done = new Set<Op>();
+  for (const ops of lists) {
+    for (const op of ops) {
+      if (op.table !== 'counterparty_name' || done.has(op)) continue;
+      done.add(op);
+      if (op.op === 'update') op.id = map.get(op.id) ?? op.id;
+      else if (map.has(op.row.id as number)) op.row.id = map.get(op.row.id as number);
+    }
+  }
+}
