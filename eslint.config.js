@@ -10,11 +10,20 @@ const IMPURE_FOR_RESOLVERS = [
     regex: '^(node:|(fs|path|os|child_process|worker_threads|net|http|https|crypto|stream|zlib)(/|$))',
     message: 'resolvers/ is pure: no I/O or Node built-ins (the service around it reads and writes).',
   },
-  { regex: '^(fastify|@fastify/|kysely|pg|pg-boss|@electric-sql/|pino|yauzl|unpdf|mammoth)(/|$)', message: 'resolvers/ is pure: no server, database or file libraries.' },
+  {
+    regex: '^(fastify|@fastify/|kysely|pg|pg-boss|@electric-sql/|pino|yauzl|unpdf|mammoth)(/|$)',
+    message: 'resolvers/ is pure: no server, database or file libraries.',
+  },
 ];
 // A stage (resolvers/<stage>/) is used through its index.ts; the other files are its inside.
-const PAST_STAGE_INDEX_FROM_RESOLVERS = { regex: '^\\.\\./[a-z-]+/(?!index\\.ts$)[^/]+$', message: "Import another stage through its index.ts (add the export there)." };
-const PAST_STAGE_INDEX = { regex: '(^|/)resolvers/[a-z-]+/(?!index\\.ts$)[^/]+$', message: "Import a resolvers stage through its index.ts (add the export there)." };
+const PAST_STAGE_INDEX_FROM_RESOLVERS = {
+  regex: '^\\.\\./[a-z-]+/(?!index\\.ts$)[^/]+$',
+  message: 'Import another stage through its index.ts (add the export there).',
+};
+const PAST_STAGE_INDEX = {
+  regex: '(^|/)resolvers/[a-z-]+/(?!index\\.ts$)[^/]+$',
+  message: 'Import a resolvers stage through its index.ts (add the export there).',
+};
 
 export default tseslint.config(
   { ignores: ['node_modules/**', 'data/**', 'test-output/**', 'bench/results/**', 'resolvers/analyse/elf-table.json'] },

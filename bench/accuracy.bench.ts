@@ -1,6 +1,6 @@
 /**
  * The matcher's judgement beside its goals (the company-names issue), measured exactly as `cpreg evaluate` does
- * (services/evaluate/runEvaluation.ts: the register's own decision rules):
+ * (services/evaluate/run-evaluation.ts: the register's own decision rules):
  *  - company names keyed by LEI (../shared/datasets/lei_org_names_dev.csv, its README's protocol: rows whose name and
  *    country two entities share set aside): pairwise precision ≥ 0.99 and F1 ≥ 0.82 on automatic links, at most 10 %
  *    of records sent to review, at least half of review items true matches; and the same rows through the register
@@ -15,11 +15,11 @@ import { existsSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { DEFAULT_MATCH_MODEL } from '../resolvers/score/index.ts';
-import { loadLabelledCsv, type LabelledRow } from '../services/evaluate/loadLabelledCsv.ts';
-import { runEvaluation, type EvaluationReport, type Method } from '../services/evaluate/runEvaluation.ts';
-import { evaluateThroughRegister } from '../services/evaluate/throughRegister.ts';
-import { setAsideSharedNames } from '../services/evaluate/setAsideSharedNames.ts';
-import { looksLikeAcronym } from '../services/evaluate/evaluateCommand.ts';
+import { loadLabelledCsv, type LabelledRow } from '../services/evaluate/load-labelled-csv.ts';
+import { runEvaluation, type EvaluationReport, type Method } from '../services/evaluate/run-evaluation.ts';
+import { evaluateThroughRegister } from '../services/evaluate/through-register.ts';
+import { setAsideSharedNames } from '../services/evaluate/set-aside-shared-names.ts';
+import { looksLikeAcronym } from '../services/evaluate/evaluate-command.ts';
 import type { BenchContext, BenchRow } from './types.ts';
 
 const ROOT = join(dirname(fileURLToPath(import.meta.url)), '..');
@@ -29,7 +29,14 @@ function evaluate(rows: readonly LabelledRow[], method: Method, isAcronym: (row:
   return runEvaluation(rows, { method, model: DEFAULT_MATCH_MODEL, isAcronym });
 }
 
-function judgementRows(prefix: string, label: string, report: EvaluationReport, baseline: EvaluationReport, goals: { precision?: number; f1?: number; review: boolean }, size: number): BenchRow[] {
+function judgementRows(
+  prefix: string,
+  label: string,
+  report: EvaluationReport,
+  baseline: EvaluationReport,
+  goals: { precision?: number; f1?: number; review: boolean },
+  size: number,
+): BenchRow[] {
   const o = report.outcomes!;
   const rows: BenchRow[] = [
     {
@@ -43,7 +50,15 @@ function judgementRows(prefix: string, label: string, report: EvaluationReport, 
       baseline: `${prefix}.baseline_precision`,
       ...(goals.precision !== undefined ? { goal: { op: '>=' as const, value: goals.precision } } : {}),
     },
-    { id: `${prefix}.baseline_precision`, label: `${label}: baseline (${baseline.method}) pairwise precision`, value: baseline.pairwise.precision, unit: 'ratio', better: 'higher', size, backend: 'memory' },
+    {
+      id: `${prefix}.baseline_precision`,
+      label: `${label}: baseline (${baseline.method}) pairwise precision`,
+      value: baseline.pairwise.precision,
+      unit: 'ratio',
+      better: 'higher',
+      size,
+      backend: 'memory',
+    },
     { id: `${prefix}.recall`, label: `${label}: pairwise recall`, value: report.pairwise.recall, unit: 'ratio', better: 'higher', size, backend: 'memory' },
     {
       id: `${prefix}.f1`,
@@ -56,9 +71,36 @@ function judgementRows(prefix: string, label: string, report: EvaluationReport, 
       baseline: `${prefix}.baseline_f1`,
       ...(goals.f1 !== undefined ? { goal: { op: '>=' as const, value: goals.f1 } } : {}),
     },
-    { id: `${prefix}.baseline_f1`, label: `${label}: baseline (${baseline.method}) pairwise F1`, value: baseline.pairwise.f1, unit: 'f1', better: 'higher', size, backend: 'memory', extra: { precision: baseline.pairwise.precision, recall: baseline.pairwise.recall } },
-    { id: `${prefix}.review_share`, label: `${label}: share of records sent to review`, value: o.reviewShare, unit: 'ratio', better: 'lower', size, backend: 'memory', ...(goals.review ? { goal: { op: '<=' as const, value: 0.1 } } : {}) },
-    { id: `${prefix}.review_true`, label: `${label}: share of review items that are true matches`, value: o.reviewTrueMatchShare, unit: 'ratio', better: 'higher', size, backend: 'memory', ...(goals.review ? { goal: { op: '>=' as const, value: 0.5 } } : {}) },
+    {
+      id: `${prefix}.baseline_f1`,
+      label: `${label}: baseline (${baseline.method}) pairwise F1`,
+      value: baseline.pairwise.f1,
+      unit: 'f1',
+      better: 'higher',
+      size,
+      backend: 'memory',
+      extra: { precision: baseline.pairwise.precision, recall: baseline.pairwise.recall },
+    },
+    {
+      id: `${prefix}.review_share`,
+      label: `${label}: share of records sent to review`,
+      value: o.reviewShare,
+      unit: 'ratio',
+      better: 'lower',
+      size,
+      backend: 'memory',
+      ...(goals.review ? { goal: { op: '<=' as const, value: 0.1 } } : {}),
+    },
+    {
+      id: `${prefix}.review_true`,
+      label: `${label}: share of review items that are true matches`,
+      value: o.reviewTrueMatchShare,
+      unit: 'ratio',
+      better: 'higher',
+      size,
+      backend: 'memory',
+      ...(goals.review ? { goal: { op: '>=' as const, value: 0.5 } } : {}),
+    },
   ];
   return rows;
 }
@@ -76,39 +118,121 @@ export async function run(ctx: BenchContext): Promise<BenchRow[]> {
     const through = await evaluateThroughRegister(kept);
     const size = kept.length;
     rows.push(
-      { id: 'lei.register.precision', label: 'LEI dev through the register: pairwise precision', value: through.pairwise.precision, unit: 'ratio', better: 'higher', size, backend: 'pglite', goal: { op: '>=', value: 0.99 } },
-      { id: 'lei.register.recall', label: 'LEI dev through the register: pairwise recall', value: through.pairwise.recall, unit: 'ratio', better: 'higher', size, backend: 'pglite' },
-      { id: 'lei.register.f1', label: 'LEI dev through the register: pairwise F1', value: through.pairwise.f1, unit: 'f1', better: 'higher', size, backend: 'pglite', goal: { op: '>=', value: 0.82 } },
-      { id: 'lei.register.review_share', label: 'LEI dev through the register: share of mentions sent to review', value: through.reviewShare, unit: 'ratio', better: 'lower', size, backend: 'pglite', goal: { op: '<=', value: 0.1 } },
+      {
+        id: 'lei.register.precision',
+        label: 'LEI dev through the register: pairwise precision',
+        value: through.pairwise.precision,
+        unit: 'ratio',
+        better: 'higher',
+        size,
+        backend: 'pglite',
+        goal: { op: '>=', value: 0.99 },
+      },
+      {
+        id: 'lei.register.recall',
+        label: 'LEI dev through the register: pairwise recall',
+        value: through.pairwise.recall,
+        unit: 'ratio',
+        better: 'higher',
+        size,
+        backend: 'pglite',
+      },
+      {
+        id: 'lei.register.f1',
+        label: 'LEI dev through the register: pairwise F1',
+        value: through.pairwise.f1,
+        unit: 'f1',
+        better: 'higher',
+        size,
+        backend: 'pglite',
+        goal: { op: '>=', value: 0.82 },
+      },
+      {
+        id: 'lei.register.review_share',
+        label: 'LEI dev through the register: share of mentions sent to review',
+        value: through.reviewShare,
+        unit: 'ratio',
+        better: 'lower',
+        size,
+        backend: 'pglite',
+        goal: { op: '<=', value: 0.1 },
+      },
     );
   } else rows.push({ id: 'lei', label: 'LEI dev names', value: 0, unit: 'ratio', better: 'higher', skipped: `${lei} not found` });
 
   for (const size of ctx.mode === 'quick' ? [10_000] : [10_000, 200_000]) {
     ctx.log(`generated names: ${size}`);
     const generated: LabelledRow[] = [];
-    for (const row of ctx.generator.names(size, ctx.seed)) generated.push({ line: generated.length + 2, id: row.entityId, name: row.name, originalName: row.name, country: row.country, fields: {} });
-    rows.push(...judgementRows(`generated.${size}`, `generated ${size}`, evaluate(generated, 'cpreg'), evaluate(generated, 'jw-candidates'), { precision: 0.98, review: true }, size));
+    for (const row of ctx.generator.names(size, ctx.seed))
+      generated.push({ line: generated.length + 2, id: row.entityId, name: row.name, originalName: row.name, country: row.country, fields: {} });
+    rows.push(
+      ...judgementRows(
+        `generated.${size}`,
+        `generated ${size}`,
+        evaluate(generated, 'cpreg'),
+        evaluate(generated, 'jw-candidates'),
+        { precision: 0.98, review: true },
+        size,
+      ),
+    );
   }
 
   const ror = join(DATASETS, 'ror_org_names.csv');
   if (existsSync(ror)) {
     ctx.log('ROR test split');
-    const test = loadLabelledCsv(ror, { idColumn: 'entity_id', nameColumn: 'name', countryColumn: 'country', filters: [['split', 'test']], excludes: [['status', 'withdrawn']], stripCountryQualifier: true }).rows;
+    const test = loadLabelledCsv(ror, {
+      idColumn: 'entity_id',
+      nameColumn: 'name',
+      countryColumn: 'country',
+      filters: [['split', 'test']],
+      excludes: [['status', 'withdrawn']],
+      stripCountryQualifier: true,
+    }).rows;
     const acronym = (r: LabelledRow): boolean => (r.fields.source_name_type ?? '').split('+').includes('acronym');
     const cpreg = evaluate(test, 'cpreg', acronym);
     rows.push(...judgementRows('ror_test', 'ROR test', cpreg, evaluate(test, 'jw-candidates', acronym), { review: false }, test.length));
-    rows.push({ id: 'ror_test.exact_f1', label: 'ROR test: exact baseline pairwise F1', value: evaluate(test, 'exact', acronym).pairwise.f1, unit: 'f1', better: 'higher', size: test.length, backend: 'memory' });
+    rows.push({
+      id: 'ror_test.exact_f1',
+      label: 'ROR test: exact baseline pairwise F1',
+      value: evaluate(test, 'exact', acronym).pairwise.f1,
+      unit: 'f1',
+      better: 'higher',
+      size: test.length,
+      backend: 'memory',
+    });
   }
 
   ctx.log('demo (seed 1)');
-  const demo = spawnSync(process.execPath, [join(ROOT, 'bin', 'cpreg.js'), 'demo', '--no-serve', '--json', '--db', join(ctx.tmpDir, 'demo')], { encoding: 'utf8', maxBuffer: 64 * 1024 * 1024 });
+  const demo = spawnSync(process.execPath, [join(ROOT, 'bin', 'cpreg.js'), 'demo', '--no-serve', '--json', '--db', join(ctx.tmpDir, 'demo')], {
+    encoding: 'utf8',
+    maxBuffer: 64 * 1024 * 1024,
+  });
   if (demo.status === 0) {
-    const summary = JSON.parse(demo.stdout.trim().split('\n').pop() as string) as { mentions: { total: number; byStatus: Record<string, number> }; accuracy: { mentions: { pairwise: { precision: number; recall: number } } } };
+    const summary = JSON.parse(demo.stdout.trim().split('\n').pop() as string) as {
+      mentions: { total: number; byStatus: Record<string, number> };
+      accuracy: { mentions: { pairwise: { precision: number; recall: number } } };
+    };
     const { precision, recall } = summary.accuracy.mentions.pairwise;
     rows.push(
-      { id: 'demo.precision', label: 'demo: pairwise precision of automatic links', value: precision, unit: 'ratio', better: 'higher', backend: 'pglite', goal: { op: '>=', value: 0.995 } },
+      {
+        id: 'demo.precision',
+        label: 'demo: pairwise precision of automatic links',
+        value: precision,
+        unit: 'ratio',
+        better: 'higher',
+        backend: 'pglite',
+        goal: { op: '>=', value: 0.995 },
+      },
       { id: 'demo.recall', label: 'demo: pairwise recall', value: recall, unit: 'ratio', better: 'higher', backend: 'pglite', goal: { op: '>=', value: 0.9 } },
-      { id: 'demo.review_share', label: 'demo: mentions in review', value: (summary.mentions.byStatus.review ?? 0) / summary.mentions.total, unit: 'ratio', better: 'lower', backend: 'pglite', goal: { op: '<=', value: 0.05 } },
+      {
+        id: 'demo.review_share',
+        label: 'demo: mentions in review',
+        value: (summary.mentions.byStatus.review ?? 0) / summary.mentions.total,
+        unit: 'ratio',
+        better: 'lower',
+        backend: 'pglite',
+        goal: { op: '<=', value: 0.05 },
+      },
     );
   } else rows.push({ id: 'demo', label: 'demo accuracy', value: 0, unit: 'ratio', better: 'higher', skipped: `cpreg demo failed: ${demo.stderr.slice(-300)}` });
   return rows;

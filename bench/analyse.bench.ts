@@ -14,8 +14,49 @@ import type { Random } from '../resolvers/prng.ts';
 export const GOAL_ANALYSES_PER_SECOND = 200_000; // issue 3
 
 const SYLLABLES = ['bran', 'quil', 'vor', 'tal', 'mer', 'os', 'pen', 'hal', 'dri', 'ka', 'lun', 'sev', 'or', 'thi', 'mu', 'el', 'gar', 'rin', 'zo', 'wy'];
-const WORDS = ['Widgets', 'Holdings', 'Print Works', 'Logistics', 'Feinmechanik', 'Systems', 'Trading', 'Foods', 'Engineering', 'Partners', 'Bakeries', 'Freight'];
-const FORMS = ['Ltd', 'Limited', 'Inc.', 'INC.', 'LLC', 'L.L.C.', 'Corp.', 'Corporation', 'plc', 'P.L.C.', 'GmbH', 'GmbH & Co. KG', 'AG', 'S.A.', 'S.A. de C.V.', 'SAS', 'S.à r.l.', 'B.V.', 'N.V.', 'Pty. Ltd.', 'S.p.A.', 'Oy', 'AB', 'A/S', 'Sp. z o.o.', 'LLP', 'Co.'];
+const WORDS = [
+  'Widgets',
+  'Holdings',
+  'Print Works',
+  'Logistics',
+  'Feinmechanik',
+  'Systems',
+  'Trading',
+  'Foods',
+  'Engineering',
+  'Partners',
+  'Bakeries',
+  'Freight',
+];
+const FORMS = [
+  'Ltd',
+  'Limited',
+  'Inc.',
+  'INC.',
+  'LLC',
+  'L.L.C.',
+  'Corp.',
+  'Corporation',
+  'plc',
+  'P.L.C.',
+  'GmbH',
+  'GmbH & Co. KG',
+  'AG',
+  'S.A.',
+  'S.A. de C.V.',
+  'SAS',
+  'S.à r.l.',
+  'B.V.',
+  'N.V.',
+  'Pty. Ltd.',
+  'S.p.A.',
+  'Oy',
+  'AB',
+  'A/S',
+  'Sp. z o.o.',
+  'LLP',
+  'Co.',
+];
 const PREFIX_FORMS = ['ООО', 'UAB', 'SIA', 'OOO'];
 const QUALIFIERS = ['(Europe)', '(UK)', '(Bristol)', '(Deutschland)'];
 const ALIAS_MARKERS = ['d/b/a', 't/a', 'f/k/a', 'formerly', 'a/k/a', 'trading as'];

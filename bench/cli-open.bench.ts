@@ -75,7 +75,11 @@ export function measureCli(options: { runs: number; db?: string; log?: (line: st
     const newDatabase = timed(['own-entities', 'add', 'Example Holdings GmbH', '--db', './data/cpreg'], home, cache);
     const db = options.db ?? join(home, 'data', 'cpreg');
     const readOnly: Record<string, Timing> = {};
-    for (const command of [['own-entities', 'list'], ['keys', 'list'], ['export', 'review', '--format', 'csv', '--out', join(home, 'review.csv')]]) {
+    for (const command of [
+      ['own-entities', 'list'],
+      ['keys', 'list'],
+      ['export', 'review', '--format', 'csv', '--out', join(home, 'review.csv')],
+    ]) {
       options.log?.(`cpreg ${command.join(' ')} × ${options.runs}`);
       readOnly[command.slice(0, 2).join(' ')] = medianOf(options.runs, () => timed([...command, '--db', db], home));
     }
@@ -89,12 +93,46 @@ export async function run(ctx: BenchContext): Promise<BenchRow[]> {
   const t = measureCli({ runs: ctx.mode === 'quick' ? 3 : 5, log: ctx.log });
   const cpu = (x: Timing) => (Number.isNaN(x.cpuMs) ? {} : { extra: { cpuMs: Math.round(x.cpuMs) } });
   const rows: BenchRow[] = [
-    { id: 'cli.help', label: 'cpreg --help (no database), median wall time', value: t.help.wallMs, unit: 'ms', better: 'lower', backend: 'memory', ...cpu(t.help) },
-    { id: 'cli.new_database_first', label: 'first command on the first new embedded database of a machine (no template yet: initdb and migrations), wall time', value: t.newDatabaseCold.wallMs, unit: 'ms', better: 'lower', backend: 'pglite', ...cpu(t.newDatabaseCold) },
-    { id: 'cli.new_database', label: 'first command on a new embedded database (own-entities add; a copy of the migrated template), wall time', value: t.newDatabase.wallMs, unit: 'ms', better: 'lower', backend: 'pglite', goal: { op: '<=', value: GOAL_NEW_DATABASE_MS }, ...cpu(t.newDatabase) },
+    {
+      id: 'cli.help',
+      label: 'cpreg --help (no database), median wall time',
+      value: t.help.wallMs,
+      unit: 'ms',
+      better: 'lower',
+      backend: 'memory',
+      ...cpu(t.help),
+    },
+    {
+      id: 'cli.new_database_first',
+      label: 'first command on the first new embedded database of a machine (no template yet: initdb and migrations), wall time',
+      value: t.newDatabaseCold.wallMs,
+      unit: 'ms',
+      better: 'lower',
+      backend: 'pglite',
+      ...cpu(t.newDatabaseCold),
+    },
+    {
+      id: 'cli.new_database',
+      label: 'first command on a new embedded database (own-entities add; a copy of the migrated template), wall time',
+      value: t.newDatabase.wallMs,
+      unit: 'ms',
+      better: 'lower',
+      backend: 'pglite',
+      goal: { op: '<=', value: GOAL_NEW_DATABASE_MS },
+      ...cpu(t.newDatabase),
+    },
   ];
   for (const [command, x] of Object.entries(t.readOnly)) {
-    rows.push({ id: `cli.read.${command.replace(' ', '_')}`, label: `cpreg ${command} on an existing embedded database, median wall time`, value: x.wallMs, unit: 'ms', better: 'lower', backend: 'pglite', goal: { op: '<=', value: GOAL_READ_ONLY_MS }, ...cpu(x) });
+    rows.push({
+      id: `cli.read.${command.replace(' ', '_')}`,
+      label: `cpreg ${command} on an existing embedded database, median wall time`,
+      value: x.wallMs,
+      unit: 'ms',
+      better: 'lower',
+      backend: 'pglite',
+      goal: { op: '<=', value: GOAL_READ_ONLY_MS },
+      ...cpu(x),
+    });
   }
   return rows;
 }

@@ -21,7 +21,7 @@ import { clusterIndexed, clustersToLabels } from '../resolvers/cluster/index.ts'
 import { buildIdfTable, jaroWinkler } from '../resolvers/compare/index.ts';
 import { blockingMetrics, pairwiseScores, type PairwiseScores } from '../resolvers/evaluate/index.ts';
 import { compareCandidates, DEFAULT_MATCH_MODEL, indexedPairsOf, scoreCompared } from '../resolvers/score/index.ts';
-import { JW_BASELINE_THRESHOLD, runEvaluation } from '../services/evaluate/runEvaluation.ts';
+import { JW_BASELINE_THRESHOLD, runEvaluation } from '../services/evaluate/run-evaluation.ts';
 import type { BenchContext, BenchRow, GeneratedName } from './types.ts';
 
 interface Measured {
@@ -63,7 +63,13 @@ function clusterAll(names: readonly GeneratedName[], sample: () => void, log: (m
   const predicted = ids.map((id) => labels.get(id) as string);
   const p = pairwiseScores(gold, predicted);
   const jwStarted = performance.now();
-  const jw = pairwiseScores(gold, jwOverCandidates(records.map((r) => r.analysis.normalised), pairs));
+  const jw = pairwiseScores(
+    gold,
+    jwOverCandidates(
+      records.map((r) => r.analysis.normalised),
+      pairs,
+    ),
+  );
   const jwSeconds = (performance.now() - jwStarted) / 1000;
   sample();
   log(`  baseline JW ≥ ${JW_BASELINE_THRESHOLD} over candidate pairs: ${jwSeconds.toFixed(1)} s`);
@@ -120,7 +126,16 @@ function exactBaseline(names: readonly GeneratedName[]): { scores: PairwiseScore
 function baselineRows(prefix: string, label: string, scores: PairwiseScores, seconds: number, size: number): BenchRow[] {
   const extra = { seconds: Math.round(seconds * 100) / 100, predictedPairs: scores.predictedPairs, truePositivePairs: scores.truePositivePairs };
   return [
-    { id: `${prefix}.precision`, label: `baseline ${label}: pairwise precision`, value: scores.precision, unit: 'ratio', better: 'higher', size, backend: 'memory', extra },
+    {
+      id: `${prefix}.precision`,
+      label: `baseline ${label}: pairwise precision`,
+      value: scores.precision,
+      unit: 'ratio',
+      better: 'higher',
+      size,
+      backend: 'memory',
+      extra,
+    },
     { id: `${prefix}.recall`, label: `baseline ${label}: pairwise recall`, value: scores.recall, unit: 'ratio', better: 'higher', size, backend: 'memory' },
     { id: `${prefix}.f1`, label: `baseline ${label}: pairwise F1`, value: scores.f1, unit: 'f1', better: 'higher', size, backend: 'memory' },
   ];
@@ -133,20 +148,80 @@ export async function run(ctx: BenchContext): Promise<BenchRow[]> {
     const names = Array.from(ctx.generator.names(size, ctx.seed));
     const { result, peakRssMb, peakHeapMb } = await ctx.withPeakMemory(async (sample) => clusterAll(names, sample, ctx.log));
     const total = Object.values(result.stages).reduce((s, v) => s + v, 0);
-    const extra = { ...Object.fromEntries(Object.entries(result.stages).map(([k, v]) => [`seconds_${k}`, Math.round(v * 100) / 100])), peakHeapMb: Math.round(peakHeapMb) };
+    const extra = {
+      ...Object.fromEntries(Object.entries(result.stages).map(([k, v]) => [`seconds_${k}`, Math.round(v * 100) / 100])),
+      peakHeapMb: Math.round(peakHeapMb),
+    };
     ctx.log('  baseline: exact after normalisation');
     const exact = exactBaseline(names);
     rows.push(
       { id: `cluster.${size}.seconds`, label: 'end-to-end clustering time', value: total, unit: 's', better: 'lower', size, backend: 'memory', extra },
-      { id: `cluster.${size}.comparisons`, label: 'pair comparisons made (candidate pairs)', value: result.comparisons, unit: 'count', better: 'lower', size, backend: 'memory' },
+      {
+        id: `cluster.${size}.comparisons`,
+        label: 'pair comparisons made (candidate pairs)',
+        value: result.comparisons,
+        unit: 'count',
+        better: 'lower',
+        size,
+        backend: 'memory',
+      },
       { id: `cluster.${size}.peak_rss`, label: 'peak RSS while clustering', value: peakRssMb, unit: 'MB', better: 'lower', size, backend: 'memory' },
-      { id: `cluster.${size}.reduction_ratio`, label: 'blocking reduction ratio', value: result.reductionRatio, unit: 'ratio', better: 'higher', size, backend: 'memory', goal: { op: '>=', value: 0.999 } },
-      { id: `cluster.${size}.pairs_completeness`, label: 'blocking pairs completeness (generator truth)', value: result.pairsCompleteness, unit: 'ratio', better: 'higher', size, backend: 'memory' },
-      { id: `cluster.${size}.precision`, label: 'pairwise precision vs generator truth', value: result.precision, unit: 'ratio', better: 'higher', size, backend: 'memory', baseline: `cluster.${size}.exact.precision` },
-      { id: `cluster.${size}.recall`, label: 'pairwise recall vs generator truth', value: result.recall, unit: 'ratio', better: 'higher', size, backend: 'memory' },
-      { id: `cluster.${size}.f1`, label: 'pairwise F1 vs generator truth', value: result.f1, unit: 'f1', better: 'higher', size, backend: 'memory', baseline: `cluster.${size}.jw.f1` },
+      {
+        id: `cluster.${size}.reduction_ratio`,
+        label: 'blocking reduction ratio',
+        value: result.reductionRatio,
+        unit: 'ratio',
+        better: 'higher',
+        size,
+        backend: 'memory',
+        goal: { op: '>=', value: 0.999 },
+      },
+      {
+        id: `cluster.${size}.pairs_completeness`,
+        label: 'blocking pairs completeness (generator truth)',
+        value: result.pairsCompleteness,
+        unit: 'ratio',
+        better: 'higher',
+        size,
+        backend: 'memory',
+      },
+      {
+        id: `cluster.${size}.precision`,
+        label: 'pairwise precision vs generator truth',
+        value: result.precision,
+        unit: 'ratio',
+        better: 'higher',
+        size,
+        backend: 'memory',
+        baseline: `cluster.${size}.exact.precision`,
+      },
+      {
+        id: `cluster.${size}.recall`,
+        label: 'pairwise recall vs generator truth',
+        value: result.recall,
+        unit: 'ratio',
+        better: 'higher',
+        size,
+        backend: 'memory',
+      },
+      {
+        id: `cluster.${size}.f1`,
+        label: 'pairwise F1 vs generator truth',
+        value: result.f1,
+        unit: 'f1',
+        better: 'higher',
+        size,
+        backend: 'memory',
+        baseline: `cluster.${size}.jw.f1`,
+      },
       ...baselineRows(`cluster.${size}.exact`, 'exact after normalisation', exact.scores, exact.seconds, size),
-      ...baselineRows(`cluster.${size}.jw`, `JW ≥ ${JW_BASELINE_THRESHOLD} on normalised name, same candidate pairs, components`, result.jw, result.jwSeconds, size),
+      ...baselineRows(
+        `cluster.${size}.jw`,
+        `JW ≥ ${JW_BASELINE_THRESHOLD} on normalised name, same candidate pairs, components`,
+        result.jw,
+        result.jwSeconds,
+        size,
+      ),
     );
   }
   const sizes = ctx.sizes.names;
@@ -155,7 +230,13 @@ export async function run(ctx: BenchContext): Promise<BenchRow[]> {
     const ta = rows.find((r) => r.id === `cluster.${a}.seconds`)!.value;
     const tb = rows.find((r) => r.id === `cluster.${b}.seconds`)!.value;
     // Growth exponent: time ∝ n^k between the two sizes (k = 1 linear, 2 quadratic).
-    rows.push({ id: 'cluster.growth_exponent', label: `time growth exponent between ${a} and ${b} names`, value: Math.log(tb / ta) / Math.log(b / a), unit: 'exponent', better: 'lower' });
+    rows.push({
+      id: 'cluster.growth_exponent',
+      label: `time growth exponent between ${a} and ${b} names`,
+      value: Math.log(tb / ta) / Math.log(b / a),
+      unit: 'exponent',
+      better: 'lower',
+    });
   }
   return rows;
 }

@@ -41,7 +41,13 @@ async function importRate(ctx: Ctx, folder: string, label: string): Promise<{ ra
   const database = await openDatabase(dir, { command: 'bench contract-files' });
   try {
     await migrateToLatest(database.db);
-    const summary = await importContractFiles({ db: database.db, target: folder, source: 'bench', actor: 'bench', rejectsFile: join(ctx.tmpDir, `${label}.rejects.csv`) });
+    const summary = await importContractFiles({
+      db: database.db,
+      target: folder,
+      source: 'bench',
+      actor: 'bench',
+      rejectsFile: join(ctx.tmpDir, `${label}.rejects.csv`),
+    });
     const seconds = summary.elapsedMs / 1000;
     ctx.log(`${label}: ${summary.files.read} files read, ${summary.files.imported} imported, ${summary.files.rejected} rejected in ${seconds.toFixed(1)} s`);
     return { rate: summary.files.imported / seconds, imported: summary.files.imported, read: summary.files.read, seconds };
@@ -69,10 +75,17 @@ export async function run(ctx: Ctx): Promise<BenchRow[]> {
   // is opened, so that the process's peak is this reading's): memory stays about that of one file.
   const files = 10_000;
   const zipFile = join(ctx.tmpDir, 'many.zip');
-  writeFileSync(zipFile, zipOf(Object.fromEntries(Array.from({ length: files }, (_, i) => [`c/${i}.txt`, Buffer.from(contracts[i % contracts.length]!.text)]))));
+  writeFileSync(
+    zipFile,
+    zipOf(Object.fromEntries(Array.from({ length: files }, (_, i) => [`c/${i}.txt`, Buffer.from(contracts[i % contracts.length]!.text)]))),
+  );
   const rssBefore = process.memoryUsage().rss / 1048576;
   const started = performance.now();
-  const { result: read, peakRssMb, peakHeapMb } = await ctx.withPeakMemory(async () => {
+  const {
+    result: read,
+    peakRssMb,
+    peakHeapMb,
+  } = await ctx.withPeakMemory(async () => {
     let n = 0;
     for await (const found of new DocumentFinder(zipFile).documents()) if (found.kind === 'document') n++;
     return n;
@@ -81,11 +94,56 @@ export async function run(ctx: Ctx): Promise<BenchRow[]> {
   const tw = await importRate(ctx, textWord, 'text-word');
   const pdf = await importRate(ctx, pdfs, 'pdf');
   return [
-    { id: 'import.text-word', label: 'contracts imported per second from .txt and .docx files (half each), embedded database', value: tw.rate, unit: 'contracts/s', better: 'higher', size: tw.imported, backend: 'pglite', goal: { op: '>=', value: 20 }, extra: { read: tw.read, seconds: tw.seconds } },
-    { id: 'import.pdf', label: 'contracts imported per second from text-layer PDFs, embedded database', value: pdf.rate, unit: 'contracts/s', better: 'higher', size: pdf.imported, backend: 'pglite', goal: { op: '>=', value: 5 }, extra: { read: pdf.read, seconds: pdf.seconds } },
-    { id: 'zip.read.10000', label: 'files read and extracted per second from a 10,000-file zip (no database)', value: read / zipSeconds, unit: 'files/s', better: 'higher', size: read, backend: 'memory' },
-    { id: 'zip.read.10000.peakRss', label: 'peak RSS while reading a 10,000-file zip', value: peakRssMb, unit: 'MB', better: 'lower', size: read, backend: 'memory', extra: { peakHeapMb, rssBeforeMb: rssBefore } },
-    { id: 'zip.read.10000.rssGrowth', label: 'RSS growth while reading a 10,000-file zip (peak minus before)', value: peakRssMb - rssBefore, unit: 'MB', better: 'lower', size: read, backend: 'memory' },
+    {
+      id: 'import.text-word',
+      label: 'contracts imported per second from .txt and .docx files (half each), embedded database',
+      value: tw.rate,
+      unit: 'contracts/s',
+      better: 'higher',
+      size: tw.imported,
+      backend: 'pglite',
+      goal: { op: '>=', value: 20 },
+      extra: { read: tw.read, seconds: tw.seconds },
+    },
+    {
+      id: 'import.pdf',
+      label: 'contracts imported per second from text-layer PDFs, embedded database',
+      value: pdf.rate,
+      unit: 'contracts/s',
+      better: 'higher',
+      size: pdf.imported,
+      backend: 'pglite',
+      goal: { op: '>=', value: 5 },
+      extra: { read: pdf.read, seconds: pdf.seconds },
+    },
+    {
+      id: 'zip.read.10000',
+      label: 'files read and extracted per second from a 10,000-file zip (no database)',
+      value: read / zipSeconds,
+      unit: 'files/s',
+      better: 'higher',
+      size: read,
+      backend: 'memory',
+    },
+    {
+      id: 'zip.read.10000.peakRss',
+      label: 'peak RSS while reading a 10,000-file zip',
+      value: peakRssMb,
+      unit: 'MB',
+      better: 'lower',
+      size: read,
+      backend: 'memory',
+      extra: { peakHeapMb, rssBeforeMb: rssBefore },
+    },
+    {
+      id: 'zip.read.10000.rssGrowth',
+      label: 'RSS growth while reading a 10,000-file zip (peak minus before)',
+      value: peakRssMb - rssBefore,
+      unit: 'MB',
+      better: 'lower',
+      size: read,
+      backend: 'memory',
+    },
   ];
 }
 

@@ -22,8 +22,25 @@ export async function run(ctx: BenchContext): Promise<BenchRow[]> {
       return { seconds: (performance.now() - started) / 1000, originals, chars };
     });
     rows.push(
-      { id: `names.${size}.rate`, label: 'names generated per second', value: size / result.seconds, unit: 'names/s', better: 'higher', size, backend: 'memory', extra: { seconds: result.seconds, meanLength: result.chars / size, heapLimitMb: Math.round(getHeapStatistics().heap_size_limit / 1024 ** 2) } },
-      { id: `names.${size}.originals`, label: 'share of originals (rest are variants)', value: result.originals / size, unit: 'ratio', better: 'higher', size, backend: 'memory' },
+      {
+        id: `names.${size}.rate`,
+        label: 'names generated per second',
+        value: size / result.seconds,
+        unit: 'names/s',
+        better: 'higher',
+        size,
+        backend: 'memory',
+        extra: { seconds: result.seconds, meanLength: result.chars / size, heapLimitMb: Math.round(getHeapStatistics().heap_size_limit / 1024 ** 2) },
+      },
+      {
+        id: `names.${size}.originals`,
+        label: 'share of originals (rest are variants)',
+        value: result.originals / size,
+        unit: 'ratio',
+        better: 'higher',
+        size,
+        backend: 'memory',
+      },
       // Streaming: peak memory should not grow with the size (compare the sizes of one run).
       { id: `names.${size}.peak_heap`, label: 'peak heap used while generating', value: peakHeapMb, unit: 'MB', better: 'lower', size, backend: 'memory' },
     );
@@ -39,8 +56,24 @@ export async function run(ctx: BenchContext): Promise<BenchRow[]> {
     return { count: all.length, seconds: (performance.now() - started) / 1000 };
   });
   rows.push(
-    { id: 'names.materialised.rate', label: 'names/s when collected into one array', value: materialised.count / materialised.seconds, unit: 'names/s', better: 'higher', size, backend: 'memory' },
-    { id: 'names.materialised.peak_heap', label: 'peak heap used, collected into one array', value: peakHeapMb, unit: 'MB', better: 'lower', size, backend: 'memory' },
+    {
+      id: 'names.materialised.rate',
+      label: 'names/s when collected into one array',
+      value: materialised.count / materialised.seconds,
+      unit: 'names/s',
+      better: 'higher',
+      size,
+      backend: 'memory',
+    },
+    {
+      id: 'names.materialised.peak_heap',
+      label: 'peak heap used, collected into one array',
+      value: peakHeapMb,
+      unit: 'MB',
+      better: 'lower',
+      size,
+      backend: 'memory',
+    },
   );
   rows.find((r) => r.id === `names.${size}.rate`)!.baseline = 'names.materialised.rate';
   rows.find((r) => r.id === `names.${size}.peak_heap`)!.baseline = 'names.materialised.peak_heap';

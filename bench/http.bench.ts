@@ -32,10 +32,32 @@ export async function run(ctx: BenchContext): Promise<BenchRow[]> {
       const rssEnd = rssMb(child.pid!);
       const base0 = { size, backend: 'http' as const };
       rows.push(
-        { id: `http.resolve.${size}.p50`, label: 'HTTP resolve median latency (50 connections)', value: result.latency.p50, unit: 'ms', better: 'lower', ...base0 },
-        { id: `http.resolve.${size}.p99`, label: 'HTTP resolve p99 latency (50 connections)', value: result.latency.p99, unit: 'ms', better: 'lower', ...base0 },
+        {
+          id: `http.resolve.${size}.p50`,
+          label: 'HTTP resolve median latency (50 connections)',
+          value: result.latency.p50,
+          unit: 'ms',
+          better: 'lower',
+          ...base0,
+        },
+        {
+          id: `http.resolve.${size}.p99`,
+          label: 'HTTP resolve p99 latency (50 connections)',
+          value: result.latency.p99,
+          unit: 'ms',
+          better: 'lower',
+          ...base0,
+        },
         { id: `http.resolve.${size}.rps`, label: 'HTTP resolves per second', value: result.requests.average, unit: 'req/s', better: 'higher', ...base0 },
-        { id: `http.resolve.${size}.errors`, label: 'errors + timeouts + non-2xx answers', value: result.errors + result.timeouts + result.non2xx, unit: 'count', better: 'lower', ...base0, extra: { errors: result.errors, timeouts: result.timeouts, non2xx: result.non2xx, total: result.requests.total } },
+        {
+          id: `http.resolve.${size}.errors`,
+          label: 'errors + timeouts + non-2xx answers',
+          value: result.errors + result.timeouts + result.non2xx,
+          unit: 'count',
+          better: 'lower',
+          ...base0,
+          extra: { errors: result.errors, timeouts: result.timeouts, non2xx: result.non2xx, total: result.requests.total },
+        },
         { id: `http.resolve.${size}.rss_start`, label: 'server RSS at the start of the load', value: rssStart, unit: 'MB', better: 'lower', ...base0 },
         { id: `http.resolve.${size}.rss_end`, label: 'server RSS at the end of the load', value: rssEnd, unit: 'MB', better: 'lower', ...base0 },
       );

@@ -64,7 +64,16 @@ export async function run(ctx: BenchContext): Promise<BenchRow[]> {
   for (const { backend, size } of targets.filter((t) => !ONLY || ONLY.includes(t.backend))) {
     const id = `ingest.${backend}.${size}`;
     if (backend === 'postgres' && !ctx.databaseUrl) {
-      rows.push({ id: `${id}.rate`, label: 'ingest mentions/s', value: 0, unit: 'mentions/s', better: 'higher', size, backend, skipped: 'DATABASE_URL not set' });
+      rows.push({
+        id: `${id}.rate`,
+        label: 'ingest mentions/s',
+        value: 0,
+        unit: 'mentions/s',
+        better: 'higher',
+        size,
+        backend,
+        skipped: 'DATABASE_URL not set',
+      });
       continue;
     }
     const file = join(ctx.tmpDir, `mentions-${size}.ndjson`);
@@ -100,15 +109,47 @@ export async function run(ctx: BenchContext): Promise<BenchRow[]> {
         size,
         backend,
         ...(backend === 'postgres' ? { goal: { op: '>=' as const, value: 5000 } } : {}),
-        extra: { seconds, rowsDone: result.counts.read, complete: !stopped, rejected: result.counts.rejected, linked: result.counts.linked, new: result.counts.new, review: result.counts.review },
+        extra: {
+          seconds,
+          rowsDone: result.counts.read,
+          complete: !stopped,
+          rejected: result.counts.rejected,
+          linked: result.counts.linked,
+          new: result.counts.new,
+          review: result.counts.review,
+        },
       });
       ctx.record({ id: `${id}.peak_rss`, label: 'peak RSS while ingesting', value: peakRssMb, unit: 'MB', better: 'lower', size, backend });
       if (stopped) {
-        rows.push({ id: `${id}.resume_rate`, label: 'ingest rows/s when every row is already ingested (resume)', value: 0, unit: 'rows/s', better: 'higher', size, backend, skipped: 'the first run stopped at its time budget' });
+        rows.push({
+          id: `${id}.resume_rate`,
+          label: 'ingest rows/s when every row is already ingested (resume)',
+          value: 0,
+          unit: 'rows/s',
+          better: 'higher',
+          size,
+          backend,
+          skipped: 'the first run stopped at its time budget',
+        });
         continue;
       }
-      const again = await ingestFile({ db: database.db, file, source: 'bench', rejectsFile: join(ctx.tmpDir, `rejects2-${backend}-${size}.csv`), actor: 'bench' });
-      rows.push({ id: `${id}.resume_rate`, label: 'ingest rows/s when every row is already ingested (resume)', value: again.counts.read / (again.elapsedMs / 1000), unit: 'rows/s', better: 'higher', size, backend, baseline: `${id}.rate` });
+      const again = await ingestFile({
+        db: database.db,
+        file,
+        source: 'bench',
+        rejectsFile: join(ctx.tmpDir, `rejects2-${backend}-${size}.csv`),
+        actor: 'bench',
+      });
+      rows.push({
+        id: `${id}.resume_rate`,
+        label: 'ingest rows/s when every row is already ingested (resume)',
+        value: again.counts.read / (again.elapsedMs / 1000),
+        unit: 'rows/s',
+        better: 'higher',
+        size,
+        backend,
+        baseline: `${id}.rate`,
+      });
     } finally {
       await database.close();
       await pgDb?.drop();

@@ -82,12 +82,38 @@ async function measure(ctx: BenchContext, db: Kysely<Database>, backend: 'pglite
   const perProbe = (k: 'fetched' | 'scored') => Math.round(((candidateCounts[k] - counted[k]) / lists) * 10) / 10;
   times.sort((a, b) => a - b);
   const goal = backend === 'postgres' && size >= 1_000_000 ? { goal: { op: '<=' as const, value: 10 } } : {};
-  const extra = { loadSeconds: Math.round(loadSeconds), calls: times.length, candidatesFetched: perProbe('fetched'), candidatesScored: perProbe('scored'), ...Object.fromEntries(Object.entries(statuses).map(([k, v]) => [`status_${k}`, v])) };
+  const extra = {
+    loadSeconds: Math.round(loadSeconds),
+    calls: times.length,
+    candidatesFetched: perProbe('fetched'),
+    candidatesScored: perProbe('scored'),
+    ...Object.fromEntries(Object.entries(statuses).map(([k, v]) => [`status_${k}`, v])),
+  };
   const against = (stat: 'median' | 'p99') => (baseline.length > 0 ? { baseline: trigramId(size, stat) } : {});
   return [
     ...baseline,
-    { id: `resolve.${backend}.${size}.median`, label: `resolve latency median (${backend}, ${size.toLocaleString('en-US')} counterparties)`, value: percentile(times, 50), unit: 'ms', better: 'lower', size, backend, extra, ...against('median') },
-    { id: `resolve.${backend}.${size}.p99`, label: `resolve latency p99 (${backend}, ${size.toLocaleString('en-US')} counterparties)`, value: percentile(times, 99), unit: 'ms', better: 'lower', size, backend, ...goal, ...against('p99') },
+    {
+      id: `resolve.${backend}.${size}.median`,
+      label: `resolve latency median (${backend}, ${size.toLocaleString('en-US')} counterparties)`,
+      value: percentile(times, 50),
+      unit: 'ms',
+      better: 'lower',
+      size,
+      backend,
+      extra,
+      ...against('median'),
+    },
+    {
+      id: `resolve.${backend}.${size}.p99`,
+      label: `resolve latency p99 (${backend}, ${size.toLocaleString('en-US')} counterparties)`,
+      value: percentile(times, 99),
+      unit: 'ms',
+      better: 'lower',
+      size,
+      backend,
+      ...goal,
+      ...against('p99'),
+    },
   ];
 }
 
@@ -121,8 +147,14 @@ async function measureTrigramTop10(db: Kysely<Database>, probes: readonly Genera
       }
     }
     times.sort((a, b) => a - b);
-    const extra = { calls: times.length, usesGistIndex: usesIndex, indexBuildSeconds: Math.round(indexSeconds * 10) / 10, meanRowsReturned: returned / Math.max(1, times.length) };
-    const label = (stat: string) => `baseline: pg_trgm top-10 (<-> on normalised name, GiST) ${stat} (postgres, ${size.toLocaleString('en-US')} counterparties)`;
+    const extra = {
+      calls: times.length,
+      usesGistIndex: usesIndex,
+      indexBuildSeconds: Math.round(indexSeconds * 10) / 10,
+      meanRowsReturned: returned / Math.max(1, times.length),
+    };
+    const label = (stat: string) =>
+      `baseline: pg_trgm top-10 (<-> on normalised name, GiST) ${stat} (postgres, ${size.toLocaleString('en-US')} counterparties)`;
     return [
       { id: trigramId(size, 'median'), label: label('median'), value: percentile(times, 50), unit: 'ms', better: 'lower', size, backend: 'postgres', extra },
       { id: trigramId(size, 'p99'), label: label('p99'), value: percentile(times, 99), unit: 'ms', better: 'lower', size, backend: 'postgres' },
@@ -166,7 +198,15 @@ export async function run(ctx: BenchContext): Promise<BenchRow[]> {
     }
   }
   if (!ctx.databaseUrl) {
-    rows.push({ id: 'resolve.postgres', label: 'resolve latency on PostgreSQL', value: 0, unit: 'ms', better: 'lower', backend: 'postgres', skipped: 'DATABASE_URL not set' });
+    rows.push({
+      id: 'resolve.postgres',
+      label: 'resolve latency on PostgreSQL',
+      value: 0,
+      unit: 'ms',
+      better: 'lower',
+      backend: 'postgres',
+      skipped: 'DATABASE_URL not set',
+    });
     return rows;
   }
   for (const size of ctx.sizes.register) {

@@ -56,7 +56,12 @@ async function adminQuery(databaseUrl: string, sql: string): Promise<void> {
  * returns the mentions to send: the generator's variants of the same entities (at most maxProbes), or the
  * originals when there are none.
  */
-export async function seedRegister(ctx: BenchContext, url: string, size: number, options: { seed: number; maxProbes: number; actor: string }): Promise<Probe[]> {
+export async function seedRegister(
+  ctx: BenchContext,
+  url: string,
+  size: number,
+  options: { seed: number; maxProbes: number; actor: string },
+): Promise<Probe[]> {
   const database = await openDatabase(url, { command: `${options.actor} seed` });
   await migrateToLatest(database.db);
   const reg = createRegisterContext(database.db);
@@ -125,7 +130,10 @@ export function resolveLoad(base: string, key: string, probes: readonly Probe[],
         setupRequest: (request) => {
           const probe = probes[n % probes.length]!;
           n++;
-          return { ...request, body: JSON.stringify({ source: options.source, externalId: `${options.source}-${n}`, text: probe.name, country: probe.country }) };
+          return {
+            ...request,
+            body: JSON.stringify({ source: options.source, externalId: `${options.source}-${n}`, text: probe.name, country: probe.country }),
+          };
         },
       },
     ],

@@ -154,12 +154,19 @@ export function formatTable(rows: BenchRow[]): string {
     r.goal ? `${r.goal.op} ${r.goal.value} ${r.goalMet === undefined ? '' : r.goalMet ? 'met' : 'MISSED'}` : '',
   ]);
   const widths = header.map((h, i) => Math.max(h.length, ...lines.map((l) => l[i]!.length)));
-  const fmt = (cells: string[]): string => cells.map((c, i) => c.padEnd(widths[i]!)).join('  ').trimEnd();
+  const fmt = (cells: string[]): string =>
+    cells
+      .map((c, i) => c.padEnd(widths[i]!))
+      .join('  ')
+      .trimEnd();
   return [fmt(header), fmt(widths.map((w) => '-'.repeat(w))), ...lines.map(fmt)].join('\n');
 }
 
 function timestamp(date: Date): string {
-  return date.toISOString().replaceAll(':', '-').replace(/\.\d+Z$/, 'Z');
+  return date
+    .toISOString()
+    .replaceAll(':', '-')
+    .replace(/\.\d+Z$/, 'Z');
 }
 
 async function parent(argv: string[]): Promise<number> {
@@ -224,10 +231,7 @@ async function parent(argv: string[]): Promise<number> {
 
 // ---------------------------------------------------------------- child
 
-type ChildMessage =
-  | { type: 'row'; row: BenchRow }
-  | { type: 'done'; peakRssMb: number }
-  | { type: 'error'; error: string };
+type ChildMessage = { type: 'row'; row: BenchRow } | { type: 'done'; peakRssMb: number } | { type: 'error'; error: string };
 
 function send(message: ChildMessage): Promise<void> {
   return new Promise((resolve) => {

@@ -101,7 +101,10 @@ class BackendCpu {
   ) {}
 
   async tick(): Promise<void> {
-    const { rows } = await this.admin.query<{ pid: number }>('SELECT pid FROM pg_stat_activity WHERE datname = $1 AND pid <> $2', [this.database, this.exclude]);
+    const { rows } = await this.admin.query<{ pid: number }>('SELECT pid FROM pg_stat_activity WHERE datname = $1 AND pid <> $2', [
+      this.database,
+      this.exclude,
+    ]);
     for (const { pid } of rows) {
       const cpu = procCpu(pid);
       if (!cpu) continue;
@@ -230,7 +233,19 @@ async function runOnce(ctx: BenchContext, file: string, size: number, workers: n
     const sampler = setInterval(() => void backends.tick().catch(() => undefined), 1000);
     let jobId: number;
     try {
-      const submitted = await cpreg(['ingest', file, '--source', 'bench', '--as-job', '--no-wait', '--json', '--partition-size', String(partitionSizeFor(size)), '--db', url]);
+      const submitted = await cpreg([
+        'ingest',
+        file,
+        '--source',
+        'bench',
+        '--as-job',
+        '--no-wait',
+        '--json',
+        '--partition-size',
+        String(partitionSizeFor(size)),
+        '--db',
+        url,
+      ]);
       jobId = Number((JSON.parse(submitted.trim().split('\n').pop()!) as { jobId: number }).jobId);
     } catch (error) {
       clearInterval(sampler);
@@ -255,7 +270,12 @@ async function runOnce(ctx: BenchContext, file: string, size: number, workers: n
       error = row.error;
       if (performance.now() - lastLog > 15_000) {
         lastLog = performance.now();
-        const t = (await target.query<{ done: string; total: string }>(`SELECT count(*) FILTER (WHERE status = 'done') AS done, count(*) AS total FROM job_partition WHERE job_id = $1`, [jobId])).rows[0]!;
+        const t = (
+          await target.query<{ done: string; total: string }>(
+            `SELECT count(*) FILTER (WHERE status = 'done') AS done, count(*) AS total FROM job_partition WHERE job_id = $1`,
+            [jobId],
+          )
+        ).rows[0]!;
         ctx.log(`${workers} worker(s): ${status}, ${t.done}/${t.total} partitions after ${((performance.now() - started) / 1000).toFixed(0)} s`);
       }
     }
@@ -269,8 +289,21 @@ async function runOnce(ctx: BenchContext, file: string, size: number, workers: n
     const benchCpuS = procCpu('self')!.own - benchStart;
     // CPU the machine spent on anything else meanwhile (other users' processes, other databases): it shares the cores.
     const otherCpuS = machineEnd.busy - machineStart.busy - workerCpuS - backends.seconds() - submitCpuS - benchCpuS;
-    const done = (await target.query<{ mentions: string | null }>(`SELECT sum(size) AS mentions FROM job_partition WHERE job_id = $1 AND status = 'done'`, [jobId])).rows[0]!;
-    const common = { wallS, mentions: size, mentionsDone: Number(done.mentions ?? 0), workerCpuS, postgresCpuS: backends.seconds(), submitCpuS, serverCpuS, machineBusyShare, otherCpuS, backends: backends.backends() };
+    const done = (
+      await target.query<{ mentions: string | null }>(`SELECT sum(size) AS mentions FROM job_partition WHERE job_id = $1 AND status = 'done'`, [jobId])
+    ).rows[0]!;
+    const common = {
+      wallS,
+      mentions: size,
+      mentionsDone: Number(done.mentions ?? 0),
+      workerCpuS,
+      postgresCpuS: backends.seconds(),
+      submitCpuS,
+      serverCpuS,
+      machineBusyShare,
+      otherCpuS,
+      backends: backends.backends(),
+    };
     if (status === 'failed') throw new Error(`job ${jobId} failed: ${error}`);
     if (status !== 'finished') return { ...common, complete: false, reason: `stopped at the ${BUDGET_S[ctx.mode]} s budget (${status})` };
     const shown = JSON.parse(await cpreg(['jobs', 'show', String(jobId), '--json', '--db', url])) as { result: Record<string, unknown> };
@@ -282,7 +315,12 @@ async function runOnce(ctx: BenchContext, file: string, size: number, workers: n
       )
     ).rows[0]!;
     const s = (a: Date, b: Date): number => (b.getTime() - a.getTime()) / 1000;
-    const phases = { stagingS: stagedS, toFirstPartitionS: s(times.created, times.first_start), partitionsS: s(times.first_start, times.last_done), finalPassS: s(times.last_done, times.finished) };
+    const phases = {
+      stagingS: stagedS,
+      toFirstPartitionS: s(times.created, times.first_start),
+      partitionsS: s(times.first_start, times.last_done),
+      finalPassS: s(times.last_done, times.finished),
+    };
     await target.query('ANALYZE');
     const sizes = [];
     for (const table of SIZED_TABLES) {
@@ -311,10 +349,30 @@ export async function run(ctx: BenchContext): Promise<BenchRow[]> {
   const override = process.env.CPREG_BENCH_SCALE_OUT_SIZES?.split(',').filter(Boolean).map(Number);
   const sizes = override && override.length > 0 ? override : (ctx.sizes.scaleOut ?? { quick: [5_000], default: [50_000], full: [1_000_000] }[ctx.mode]);
   if (!ctx.databaseUrl) {
-    return [{ id: 'scaleout.rate', label: 'job ingest mentions/s', value: 0, unit: 'mentions/s', better: 'higher', backend: 'postgres', skipped: 'DATABASE_URL not set' }];
+    return [
+      {
+        id: 'scaleout.rate',
+        label: 'job ingest mentions/s',
+        value: 0,
+        unit: 'mentions/s',
+        better: 'higher',
+        backend: 'postgres',
+        skipped: 'DATABASE_URL not set',
+      },
+    ];
   }
   if (process.platform !== 'linux') {
-    return [{ id: 'scaleout.rate', label: 'job ingest mentions/s', value: 0, unit: 'mentions/s', better: 'higher', backend: 'postgres', skipped: 'CPU times are read from /proc (Linux only)' }];
+    return [
+      {
+        id: 'scaleout.rate',
+        label: 'job ingest mentions/s',
+        value: 0,
+        unit: 'mentions/s',
+        better: 'higher',
+        backend: 'postgres',
+        skipped: 'CPU times are read from /proc (Linux only)',
+      },
+    ];
   }
   const rows: BenchRow[] = [];
   for (const size of sizes) {
@@ -364,18 +422,64 @@ export async function run(ctx: BenchContext): Promise<BenchRow[]> {
         extra,
       });
       const more: BenchRow[] = [
-        { id: `${id}.db_share`, label: `database share of CPU (postgres / (postgres + workers)), ${workers} worker(s)`, value: dbShare, unit: 'share', better: 'lower', ...base },
-        { id: `${id}.worker_cpu_ms_per_mention`, label: `worker (matching) CPU per mention, ${workers} worker(s)`, value: (o.workerCpuS * 1000) / Math.max(1, counted), unit: 'ms', better: 'lower', ...base },
-        { id: `${id}.postgres_cpu_ms_per_mention`, label: `PostgreSQL CPU per mention, ${workers} worker(s)`, value: (o.postgresCpuS * 1000) / Math.max(1, counted), unit: 'ms', better: 'lower', ...base },
+        {
+          id: `${id}.db_share`,
+          label: `database share of CPU (postgres / (postgres + workers)), ${workers} worker(s)`,
+          value: dbShare,
+          unit: 'share',
+          better: 'lower',
+          ...base,
+        },
+        {
+          id: `${id}.worker_cpu_ms_per_mention`,
+          label: `worker (matching) CPU per mention, ${workers} worker(s)`,
+          value: (o.workerCpuS * 1000) / Math.max(1, counted),
+          unit: 'ms',
+          better: 'lower',
+          ...base,
+        },
+        {
+          id: `${id}.postgres_cpu_ms_per_mention`,
+          label: `PostgreSQL CPU per mention, ${workers} worker(s)`,
+          value: (o.postgresCpuS * 1000) / Math.max(1, counted),
+          unit: 'ms',
+          better: 'lower',
+          ...base,
+        },
       ];
-      if (typeof result.planningMs === 'number') more.push({ id: `${id}.planning`, label: `planner time (serial), ${workers} worker(s)`, value: result.planningMs / 1000, unit: 's', better: 'lower', ...base });
-      if (o.phases) more.push({ id: `${id}.final_pass`, label: `final pass (serial), last partition done to job finished, ${workers} worker(s)`, value: o.phases.finalPassS, unit: 's', better: 'lower', ...base });
+      if (typeof result.planningMs === 'number')
+        more.push({
+          id: `${id}.planning`,
+          label: `planner time (serial), ${workers} worker(s)`,
+          value: result.planningMs / 1000,
+          unit: 's',
+          better: 'lower',
+          ...base,
+        });
+      if (o.phases)
+        more.push({
+          id: `${id}.final_pass`,
+          label: `final pass (serial), last partition done to job finished, ${workers} worker(s)`,
+          value: o.phases.finalPassS,
+          unit: 's',
+          better: 'lower',
+          ...base,
+        });
       // Sent now (kept if a later run fails), so not returned again.
       for (const row of more) ctx.record(row);
       if (o.complete) lastComplete = o;
     }
     if (!lastComplete?.sizes) {
-      rows.push({ id: `scaleout.${size}.size.total`, label: 'register size per million mentions', value: 0, unit: 'MB', better: 'lower', size, backend: 'postgres', skipped: 'no run finished within its budget' });
+      rows.push({
+        id: `scaleout.${size}.size.total`,
+        label: 'register size per million mentions',
+        value: 0,
+        unit: 'MB',
+        better: 'lower',
+        size,
+        backend: 'postgres',
+        skipped: 'no run finished within its budget',
+      });
       continue;
     }
     const mentions = lastComplete.mentionRows!;
@@ -392,7 +496,16 @@ export async function run(ctx: BenchContext): Promise<BenchRow[]> {
         better: 'lower',
         size,
         backend: 'postgres',
-        extra: { bytes: t.bytes, tableBytes: t.tableBytes, indexBytes: t.indexBytes, rows: t.rows, mentions, counterparties: cps, mbPerMillionCounterparties: (mb(t.bytes) * 1e6) / Math.max(1, cps), rowsPerMention: t.rows / mentions },
+        extra: {
+          bytes: t.bytes,
+          tableBytes: t.tableBytes,
+          indexBytes: t.indexBytes,
+          rows: t.rows,
+          mentions,
+          counterparties: cps,
+          mbPerMillionCounterparties: (mb(t.bytes) * 1e6) / Math.max(1, cps),
+          rowsPerMention: t.rows / mentions,
+        },
       });
     }
     rows.push({
@@ -403,7 +516,13 @@ export async function run(ctx: BenchContext): Promise<BenchRow[]> {
       better: 'lower',
       size,
       backend: 'postgres',
-      extra: { bytes: total, mentions, counterparties: cps, counterpartiesPerMention: cps / mentions, mbPerMillionCounterparties: (mb(total) * 1e6) / Math.max(1, cps) },
+      extra: {
+        bytes: total,
+        mentions,
+        counterparties: cps,
+        counterpartiesPerMention: cps / mentions,
+        mbPerMillionCounterparties: (mb(total) * 1e6) / Math.max(1, cps),
+      },
     });
   }
   return rows;

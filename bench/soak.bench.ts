@@ -15,7 +15,18 @@ import type { BenchContext, BenchRow } from './types.ts';
 export async function run(ctx: BenchContext): Promise<BenchRow[]> {
   const size = ctx.mode === 'full' ? 100_000 : 10_000;
   if (!ctx.databaseUrl) {
-    return [{ id: 'soak.5xx', label: 'soak: 5xx answers', value: 0, unit: 'count', better: 'lower', backend: 'http', size, skipped: 'DATABASE_URL not set (the soak runs on PostgreSQL)' }];
+    return [
+      {
+        id: 'soak.5xx',
+        label: 'soak: 5xx answers',
+        value: 0,
+        unit: 'count',
+        better: 'lower',
+        backend: 'http',
+        size,
+        skipped: 'DATABASE_URL not set (the soak runs on PostgreSQL)',
+      },
+    ];
   }
   const name = `cpreg_bench_soak_${size}`;
   const url = await freshDatabase(ctx.databaseUrl, name);
@@ -35,9 +46,32 @@ export async function run(ctx: BenchContext): Promise<BenchRow[]> {
       const fivexx = (result as unknown as { '5xx': number })['5xx'];
       const common = { size, backend: 'http' as const };
       rows.push(
-        { id: 'soak.5xx', label: `soak ${ctx.soakSeconds} s: 5xx answers`, value: fivexx, unit: 'count', better: 'lower', goal: { op: '<=', value: 0 }, ...common, extra: { total: result.requests.total, non2xx: result.non2xx, errors: result.errors, timeouts: result.timeouts } },
-        { id: 'soak.p50', label: `soak ${ctx.soakSeconds} s: resolve median latency (50 connections)`, value: result.latency.p50, unit: 'ms', better: 'lower', ...common },
-        { id: 'soak.p99', label: `soak ${ctx.soakSeconds} s: resolve p99 latency (50 connections)`, value: result.latency.p99, unit: 'ms', better: 'lower', ...common },
+        {
+          id: 'soak.5xx',
+          label: `soak ${ctx.soakSeconds} s: 5xx answers`,
+          value: fivexx,
+          unit: 'count',
+          better: 'lower',
+          goal: { op: '<=', value: 0 },
+          ...common,
+          extra: { total: result.requests.total, non2xx: result.non2xx, errors: result.errors, timeouts: result.timeouts },
+        },
+        {
+          id: 'soak.p50',
+          label: `soak ${ctx.soakSeconds} s: resolve median latency (50 connections)`,
+          value: result.latency.p50,
+          unit: 'ms',
+          better: 'lower',
+          ...common,
+        },
+        {
+          id: 'soak.p99',
+          label: `soak ${ctx.soakSeconds} s: resolve p99 latency (50 connections)`,
+          value: result.latency.p99,
+          unit: 'ms',
+          better: 'lower',
+          ...common,
+        },
         { id: 'soak.rps', label: `soak ${ctx.soakSeconds} s: resolves per second`, value: result.requests.average, unit: 'req/s', better: 'higher', ...common },
         { id: 'soak.rss_start', label: 'soak: server RSS at the start', value: rssStart, unit: 'MB', better: 'lower', ...common },
         { id: 'soak.rss_end', label: 'soak: server RSS at the end', value: rssEnd, unit: 'MB', better: 'lower', baseline: 'soak.rss_start', ...common },

@@ -10,7 +10,13 @@ import { register } from 'tsx/esm/api';
 const NO_DATABASE = new Set([undefined, '--help', '-h', 'help', 'analyse', 'generate', 'evaluate', 'contract']);
 const command = process.argv.slice(2).find((arg) => !arg.startsWith('--verbose'));
 if (!NO_DATABASE.has(command)) {
-  const preload = ['kysely', '@electric-sql/pglite', '@electric-sql/pglite/contrib/pg_trgm', '@electric-sql/pglite/contrib/fuzzystrmatch', '@electric-sql/pglite/contrib/unaccent'];
+  const preload = [
+    'kysely',
+    '@electric-sql/pglite',
+    '@electric-sql/pglite/contrib/pg_trgm',
+    '@electric-sql/pglite/contrib/fuzzystrmatch',
+    '@electric-sql/pglite/contrib/unaccent',
+  ];
   if (command === 'serve' || command === 'demo') preload.push('fastify', '@fastify/swagger', '@fastify/static', 'pino', 'ajv', 'ajv-formats');
   await Promise.all(preload.map((name) => import(name)));
 }

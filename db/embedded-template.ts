@@ -52,7 +52,9 @@ export function templateFile(dir = templateCacheDir()): string | undefined {
   if (!dir) return undefined;
   let names: string[];
   try {
-    names = readdirSync(MIGRATIONS_DIR).filter((f) => /\.(?:ts|js|mjs)$/.test(f) && !f.endsWith('.d.ts')).sort();
+    names = readdirSync(MIGRATIONS_DIR)
+      .filter((f) => /\.(?:ts|js|mjs)$/.test(f) && !f.endsWith('.d.ts'))
+      .sort();
   } catch {
     return undefined;
   }

@@ -60,7 +60,7 @@ export class InProcessQueue implements JobQueue {
 
   #pump(): void {
     if (this.#stopped) return;
-    for (let i = 0; i < this.#waiting.length; ) {
+    for (let i = 0; i < this.#waiting.length;) {
       const job = this.#waiting[i]!;
       const worker = this.#handlers.get(job.name);
       if (!worker || worker.busy >= worker.slots) {
@@ -79,7 +79,10 @@ export class InProcessQueue implements JobQueue {
           this.#onError(error, { name: job.name, id: job.id });
           if (job.retryCount < this.#retryLimit && !this.#stopped) this.#waiting.push({ ...job, retryCount: job.retryCount + 1 });
           else if (job.retryCount >= this.#retryLimit && job.singletonKey !== undefined) {
-            this.#givenUp.set(`${job.name}\u0000${job.singletonKey}`, { attempts: job.retryCount + 1, reason: error instanceof Error ? error.message : String(error) });
+            this.#givenUp.set(`${job.name}\u0000${job.singletonKey}`, {
+              attempts: job.retryCount + 1,
+              reason: error instanceof Error ? error.message : String(error),
+            });
           }
         } finally {
           worker.busy--;

@@ -13,11 +13,6 @@ export {
   type OpenedDatabase,
 } from './open-database.ts';
 export { migrateToLatest, createMigrator, ensureExtensions, MigrationError, MIGRATIONS_DIR, type MigrationReport } from './migrate.ts';
-export {
-  DatabaseOpenError,
-  DatabaseTimeoutError,
-  isDatabaseUnavailable,
-  withDatabaseTimeout,
-} from './database-errors.ts';
+export { DatabaseOpenError, DatabaseTimeoutError, isDatabaseUnavailable, withDatabaseTimeout } from './database-errors.ts';
 export { DatabaseLockedError, acquireDirectoryLock, LOCK_FILE_NAME, type LockHolder } from './lock.ts';
 export type { Database } from './types.ts';

@@ -31,9 +31,7 @@ export class DatabaseLockedError extends Error {
     super(
       `the embedded database ${directory} is in use by ${describeHolder(holder)}; ` +
         `stop that process or point --db at another directory` +
-        (holder && holder.host !== hostname()
-          ? ` (the holder runs on another host: if it is gone, delete ${join(directory, LOCK_FILE_NAME)})`
-          : ''),
+        (holder && holder.host !== hostname() ? ` (the holder runs on another host: if it is gone, delete ${join(directory, LOCK_FILE_NAME)})` : ''),
     );
     this.name = 'DatabaseLockedError';
   }
@@ -67,9 +65,7 @@ export function acquireDirectoryLock(directory: string, options: AcquireOptions 
     if (existing === 'missing') continue; // released between our attempt and the read
     if (existing !== undefined && isAlive(existing)) throw new DatabaseLockedError(directory, existing);
     if (attempt === 1) throw new DatabaseLockedError(directory, existing);
-    say(
-      `taking over the lock of ${directory}: its holder ${describeHolder(existing)} is no longer running`,
-    );
+    say(`taking over the lock of ${directory}: its holder ${describeHolder(existing)} is no longer running`);
     rmSync(path, { force: true });
   }
   throw new DatabaseLockedError(directory, undefined);

@@ -32,9 +32,7 @@ export class MigrationError extends Error {
   ) {
     const cause = options.cause as { message?: string } | undefined;
     super(
-      migration
-        ? `migration ${migration} failed: ${cause?.message ?? String(options.cause)}`
-        : `migrations failed: ${cause?.message ?? String(options.cause)}`,
+      migration ? `migration ${migration} failed: ${cause?.message ?? String(options.cause)}` : `migrations failed: ${cause?.message ?? String(options.cause)}`,
       options,
     );
     this.name = 'MigrationError';
@@ -75,7 +73,10 @@ export async function ensureExtensions(db: Kysely<any>): Promise<void> {
 /** The migration files' names (no extension), sorted, read from the folder without loading any module. */
 async function migrationFileNames(folder: string): Promise<string[]> {
   const files = await fs.readdir(folder);
-  return files.filter((f) => /\.(?:ts|js|mjs)$/.test(f) && !f.endsWith('.d.ts')).map((f) => f.replace(/\.(?:ts|js|mjs)$/, '')).sort();
+  return files
+    .filter((f) => /\.(?:ts|js|mjs)$/.test(f) && !f.endsWith('.d.ts'))
+    .map((f) => f.replace(/\.(?:ts|js|mjs)$/, ''))
+    .sort();
 }
 
 /** The names recorded as applied, sorted; null when the database has no migration table yet. */

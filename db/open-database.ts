@@ -242,8 +242,7 @@ export function checkEmbeddedDirectory(dir: string): void {
   if (entries.includes(INIT_MARKER_NAME)) return; // our own interrupted first start
   if (entries.length > 0 && !entries.includes('PG_VERSION')) {
     throw new DatabaseOpenError(
-      `${dir} is not an embedded cpreg database (it is not empty and has no PG_VERSION); ` +
-        `nothing was changed: point --db at an empty or new directory`,
+      `${dir} is not an embedded cpreg database (it is not empty and has no PG_VERSION); ` + `nothing was changed: point --db at an empty or new directory`,
     );
   }
 }

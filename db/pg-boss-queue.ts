@@ -43,7 +43,13 @@ export async function openPgBossQueue(connectionString: string, options: PgBossQ
   const created = new Set<string>();
   const ensureQueue = async (name: string): Promise<void> => {
     if (created.has(name)) return;
-    await boss.createQueue(name, { name, policy: 'standard', retryLimit: settings.retryLimit, retryDelay: settings.retryDelaySeconds, expireInSeconds: settings.expireInSeconds });
+    await boss.createQueue(name, {
+      name,
+      policy: 'standard',
+      retryLimit: settings.retryLimit,
+      retryDelay: settings.retryDelaySeconds,
+      expireInSeconds: settings.expireInSeconds,
+    });
     created.add(name);
   };
   const queue: JobQueue = {
@@ -70,7 +76,11 @@ export async function openPgBossQueue(connectionString: string, options: PgBossQ
       await ensureQueue(name);
       // pg-boss marks a job `failed` only when no retry is left (a failure with retries left becomes `retry`); a
       // worker that vanished is failed by the supervisor once the job's expiry passed, with its own message.
-      const job = (await boss.getJobById(name, jobIdFor(`${name}:${singletonKey}`), { includeArchive: true })) as { state?: string; retryCount?: number; output?: unknown } | null;
+      const job = (await boss.getJobById(name, jobIdFor(`${name}:${singletonKey}`), { includeArchive: true })) as {
+        state?: string;
+        retryCount?: number;
+        output?: unknown;
+      } | null;
       if (job?.state !== 'failed') return undefined;
       return { attempts: (job.retryCount ?? 0) + 1, reason: outputMessage(job.output) };
     },

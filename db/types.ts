@@ -7,15 +7,7 @@
  * (ids stay far below 2^53).
  */
 import type { ColumnType, Generated, Insertable, Selectable, Updateable } from 'kysely';
-import type {
-  CounterpartyStatus,
-  HistoryEventType,
-  IdentifierScheme,
-  NameKind,
-  RelationType,
-  ResolutionStatus,
-  ApiScope,
-} from '../resolvers/vocabulary.ts';
+import type { CounterpartyStatus, HistoryEventType, IdentifierScheme, NameKind, RelationType, ResolutionStatus, ApiScope } from '../resolvers/vocabulary.ts';
 
 /** An int8 id: read as number (see header), written as number or string. */
 export type Int8 = ColumnType<number, number | string | bigint, number | string | bigint>;
@@ -244,10 +236,7 @@ export interface IngestRunTable {
   source: string;
   input_name: string | null;
   actor: string;
-  status: ColumnType<
-    'running' | 'finished' | 'failed' | 'interrupted',
-    'running' | 'finished' | 'failed' | 'interrupted' | undefined
-  >;
+  status: ColumnType<'running' | 'finished' | 'failed' | 'interrupted', 'running' | 'finished' | 'failed' | 'interrupted' | undefined>;
   counts: JsonDefault<Record<string, number>>;
   started_at: TimestampDefault;
   finished_at: Timestamp | null;
@@ -257,10 +246,7 @@ export interface IngestRunTable {
 export interface JobTable {
   id: GeneratedInt8;
   kind: string;
-  status: ColumnType<
-    'queued' | 'running' | 'finished' | 'failed',
-    'queued' | 'running' | 'finished' | 'failed' | undefined
-  >;
+  status: ColumnType<'queued' | 'running' | 'finished' | 'failed', 'queued' | 'running' | 'finished' | 'failed' | undefined>;
   actor: string;
   params: JsonDefault<Record<string, unknown>>;
   progress: JsonDefault<Record<string, unknown>>;

@@ -7,7 +7,7 @@ import { readFileSync, writeFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 // The table builder stays out of the analyse stage's public surface: only this build script needs it (and csv-parse).
 // eslint-disable-next-line no-restricted-imports
-import { buildElfTable, serialiseElfTable } from '../resolvers/analyse/buildElfTable.ts';
+import { buildElfTable, serialiseElfTable } from '../resolvers/analyse/build-elf-table.ts';
 
 const input = resolve(process.argv[2] ?? '../shared/reference/iso20275-elf-code-list.csv');
 const output = resolve('resolvers/analyse/elf-table.json');
@@ -21,6 +21,4 @@ try {
 }
 const table = buildElfTable(csv);
 writeFileSync(output, serialiseElfTable(table));
-console.log(
-  `build-elf-table: ${Object.keys(table.forms).length} designators, ${Object.keys(table.codes).length} codes → resolvers/analyse/elf-table.json`,
-);
+console.log(`build-elf-table: ${Object.keys(table.forms).length} designators, ${Object.keys(table.codes).length} codes → resolvers/analyse/elf-table.json`);

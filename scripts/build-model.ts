@@ -1,5 +1,5 @@
 /**
- * Builds resolvers/score/defaultModel.ts, the built-in match model, from labelled data that looks like the job:
+ * Builds resolvers/score/default-model.ts, the built-in match model, from labelled data that looks like the job:
  *   - company names keyed by LEI (../shared/datasets/lei_org_names_dev.csv; rows whose name and country two
  *     entities share set aside, as its README's protocol says);
  *   - ROR companies, dev split (../shared/datasets/ror_org_names.csv: org_types has "company", withdrawn dropped,
@@ -10,9 +10,9 @@
  */
 import { writeFileSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { loadLabelledCsv, type LabelledRow } from '../services/evaluate/loadLabelledCsv.ts';
-import { setAsideSharedNames } from '../services/evaluate/setAsideSharedNames.ts';
-import { estimateModel, labelledPairsOf } from '../services/evaluate/trainModel.ts';
+import { loadLabelledCsv, type LabelledRow } from '../services/evaluate/load-labelled-csv.ts';
+import { setAsideSharedNames } from '../services/evaluate/set-aside-shared-names.ts';
+import { estimateModel, labelledPairsOf } from '../services/evaluate/train-model.ts';
 import { generateNames } from '../services/demo/generate-names.ts';
 import { DEFAULT_MATCH_MODEL } from '../resolvers/score/index.ts';
 
@@ -62,15 +62,20 @@ const note =
   labelled.map(({ pairs, matches }) => `${pairs.name} ${pairs.count} pairs (${matches} true)`).join('; ') +
   `; linkAt: lowest threshold whose clusters have pairwise precision >= ${targets.linkPrecision} in every dataset; newAt: lowest score with >= ${targets.reviewMatchShare} true matches among review pairs in every dataset` +
   `; rebuild: node bin/run-ts.js scripts/build-model.ts`;
-const model = estimateModel(labelled.map((l) => l.pairs), targets, note, DEFAULT_MATCH_MODEL);
+const model = estimateModel(
+  labelled.map((l) => l.pairs),
+  targets,
+  note,
+  DEFAULT_MATCH_MODEL,
+);
 console.error(`linkAt ${model.linkAt}, newAt ${model.newAt}`);
 const source = `/**
  * The built-in match model, made by scripts/build-model.ts from labelled company-name data (docs/matching.md →
  * 'Model'); rebuild with: node bin/run-ts.js scripts/build-model.ts
  */
-import type { MatchModel } from './matchModel.ts';
+import type { MatchModel } from './match-model.ts';
 
 export const DEFAULT_MATCH_MODEL: MatchModel = ${JSON.stringify(model, null, 2)};
 `;
 if (process.argv.includes('--dry-run')) process.stdout.write(source);
-else writeFileSync(resolve('resolvers/score/defaultModel.ts'), source);
+else writeFileSync(resolve('resolvers/score/default-model.ts'), source);

@@ -37,7 +37,9 @@ const REFERENCE_NAMES = 1_000_000;
  * capped: every capped key weighs the same); a key no name holds yet counts as held once.
  */
 const rarityOf = (alias: string) =>
-  sql.raw(`round(1000 * ln(${REFERENCE_NAMES}::float8 / greatest(1, coalesce((SELECT kc.names FROM blocking_key_count kc WHERE kc.key = ${alias}.key), 1))))::bigint`);
+  sql.raw(
+    `round(1000 * ln(${REFERENCE_NAMES}::float8 / greatest(1, coalesce((SELECT kc.names FROM blocking_key_count kc WHERE kc.key = ${alias}.key), 1))))::bigint`,
+  );
 
 export async function keysOfCounterparty(db: Queryable, counterpartyId: number): Promise<string[]> {
   const rows = await db.selectFrom('blocking_key').select('key').distinct().where('counterparty_id', '=', counterpartyId).orderBy('key').execute();

@@ -29,12 +29,7 @@ export interface ContractView {
 }
 
 export async function findContractId(db: Queryable, source: string, externalId: string): Promise<number | undefined> {
-  const row = await db
-    .selectFrom('contract')
-    .select('id')
-    .where('source', '=', source)
-    .where('external_id', '=', externalId)
-    .executeTakeFirst();
+  const row = await db.selectFrom('contract').select('id').where('source', '=', source).where('external_id', '=', externalId).executeTakeFirst();
   return row ? id(row.id) : undefined;
 }
 
@@ -63,12 +58,7 @@ export async function getContract(db: Queryable, contractId: number): Promise<Co
     LEFT JOIN counterparty c ON c.id = m.counterparty_id
     WHERE p.contract_id = ${contractId}
     ORDER BY p.position`.execute(db);
-  const terms = await db
-    .selectFrom('defined_term')
-    .select(['term', 'party_index', 'collective'])
-    .where('contract_id', '=', contractId)
-    .orderBy('id')
-    .execute();
+  const terms = await db.selectFrom('defined_term').select(['term', 'party_index', 'collective']).where('contract_id', '=', contractId).orderBy('id').execute();
   return {
     id: id(row.id),
     source: row.source,
@@ -127,7 +117,10 @@ export const CONTRACT_HEAD_CHARS = 4000;
  * for a whole token) and those whose title or heading contains the title it gives. At most 20, oldest first; the
  * caller decides which one, if any, it is.
  */
-export async function earlierContractCandidates(db: Queryable, wanted: { reference?: string; title?: string; excludeId: number }): Promise<EarlierContractRow[]> {
+export async function earlierContractCandidates(
+  db: Queryable,
+  wanted: { reference?: string; title?: string; excludeId: number },
+): Promise<EarlierContractRow[]> {
   if (!wanted.reference && !wanted.title) return [];
   const ref = wanted.reference?.toLowerCase() ?? null;
   const title = wanted.title?.toLowerCase() ?? null;

@@ -96,14 +96,7 @@ export async function contractsOf(db: Queryable, counterpartyId: number): Promis
 
 /** Active counterparties in id order after `afterId` (keyset paging: sweeps and exports). */
 export async function activeIdsAfter(db: Queryable, afterId: number, limit: number): Promise<number[]> {
-  const rows = await db
-    .selectFrom('counterparty')
-    .select('id')
-    .where('status', '=', 'active')
-    .where('id', '>', afterId)
-    .orderBy('id')
-    .limit(limit)
-    .execute();
+  const rows = await db.selectFrom('counterparty').select('id').where('status', '=', 'active').where('id', '>', afterId).orderBy('id').limit(limit).execute();
   return rows.map((r) => id(r.id));
 }
 
@@ -116,7 +109,11 @@ export async function allActiveIds(db: Queryable): Promise<number[]> {
 /** Status and creation time of these counterparties (ids that do not exist are left out). */
 export async function counterpartyStates(db: Queryable, ids: readonly number[]): Promise<{ id: number; status: string; createdAt: Date }[]> {
   if (ids.length === 0) return [];
-  const rows = await db.selectFrom('counterparty').select(['id', 'status', 'created_at']).where('id', 'in', [...ids]).execute();
+  const rows = await db
+    .selectFrom('counterparty')
+    .select(['id', 'status', 'created_at'])
+    .where('id', 'in', [...ids])
+    .execute();
   return rows.map((r) => ({ id: id(r.id), status: r.status, createdAt: new Date(r.created_at) }));
 }
 

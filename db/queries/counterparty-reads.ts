@@ -13,7 +13,13 @@ export interface NetworkParty {
 
 /** The other parties (counterparties and own entities) of every contract the counterparty is party to. */
 export async function otherPartiesOf(db: Queryable, counterpartyId: number): Promise<NetworkParty[]> {
-  const result = await sql<{ contract_id: string | number; role: string | null; counterparty_id: string | number | null; own_entity_id: string | number | null; name: string }>`
+  const result = await sql<{
+    contract_id: string | number;
+    role: string | null;
+    counterparty_id: string | number | null;
+    own_entity_id: string | number | null;
+    name: string;
+  }>`
     SELECT DISTINCT p2.contract_id, p2.role, m2.counterparty_id, m2.own_entity_id,
            coalesce(c2.canonical_name, o.name, m2.text) AS name
     FROM mention m
@@ -70,7 +76,14 @@ export async function counterpartyGroups(
   return cps.map((c) => {
     const id = Number(c.id);
     const entry = byCp.get(id);
-    return { id, canonicalName: c.canonical_name, jurisdiction: c.jurisdiction, version: Number(c.version), mentionCount: entry?.total ?? 0, mentions: entry?.list ?? [] };
+    return {
+      id,
+      canonicalName: c.canonical_name,
+      jurisdiction: c.jurisdiction,
+      version: Number(c.version),
+      mentionCount: entry?.total ?? 0,
+      mentions: entry?.list ?? [],
+    };
   });
 }
 

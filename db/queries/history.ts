@@ -58,6 +58,9 @@ export async function eventsAfter(db: Queryable, afterId: number, limit: number)
 }
 
 export async function lastEventId(db: Queryable): Promise<number> {
-  const row = await db.selectFrom('history_event').select((eb) => eb.fn.max('id').as('max')).executeTakeFirst();
+  const row = await db
+    .selectFrom('history_event')
+    .select((eb) => eb.fn.max('id').as('max'))
+    .executeTakeFirst();
   return row?.max === null || row?.max === undefined ? 0 : id(row.max);
 }

@@ -15,11 +15,19 @@ export async function insertIngestRun(db: Queryable, run: { source: string; inpu
 
 /** Records the counts so far of a running run. */
 export async function updateIngestRunCounts(db: Queryable, runId: number, counts: Record<string, number>): Promise<void> {
-  await db.updateTable('ingest_run').set({ counts: JSON.stringify(counts) }).where('id', '=', runId).execute();
+  await db
+    .updateTable('ingest_run')
+    .set({ counts: JSON.stringify(counts) })
+    .where('id', '=', runId)
+    .execute();
 }
 
 /** Ends a run with its outcome (counts when known, the error when it did not finish cleanly). */
-export async function finishIngestRun(db: Queryable, runId: number, outcome: { status: Exclude<IngestRunStatus, 'running'>; counts?: Record<string, number>; error: string | null }): Promise<void> {
+export async function finishIngestRun(
+  db: Queryable,
+  runId: number,
+  outcome: { status: Exclude<IngestRunStatus, 'running'>; counts?: Record<string, number>; error: string | null },
+): Promise<void> {
   await db
     .updateTable('ingest_run')
     .set({ status: outcome.status, ...(outcome.counts ? { counts: JSON.stringify(outcome.counts) } : {}), finished_at: new Date(), error: outcome.error })

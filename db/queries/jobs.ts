@@ -25,7 +25,11 @@ export interface JobRow {
 const parsed = <T>(v: unknown): T => (typeof v === 'string' ? (JSON.parse(v) as T) : (v as T));
 
 export async function insertJob(db: Queryable, job: { kind: string; actor: string; status: JobStatus; params: Record<string, unknown> }): Promise<number> {
-  const row = await db.insertInto('job').values({ kind: job.kind, actor: job.actor, status: job.status, params: JSON.stringify(job.params) }).returning('id').executeTakeFirstOrThrow();
+  const row = await db
+    .insertInto('job')
+    .values({ kind: job.kind, actor: job.actor, status: job.status, params: JSON.stringify(job.params) })
+    .returning('id')
+    .executeTakeFirstOrThrow();
   return id(row.id);
 }
 
@@ -72,7 +76,10 @@ export async function updateJob(
 }
 
 export async function insertChunk(db: Queryable, jobId: number, chunkNo: number, rows: unknown[]): Promise<void> {
-  await db.insertInto('job_chunk').values({ job_id: jobId, chunk_no: chunkNo, rows: JSON.stringify(rows) }).execute();
+  await db
+    .insertInto('job_chunk')
+    .values({ job_id: jobId, chunk_no: chunkNo, rows: JSON.stringify(rows) })
+    .execute();
 }
 
 /** The staged rows of a job, chunk by chunk in order. */
@@ -90,8 +97,14 @@ export async function deleteChunks(db: Queryable, jobId: number): Promise<void> 
 
 export async function insertPartitions(db: Queryable, jobId: number, partitions: readonly unknown[][]): Promise<void> {
   for (let start = 0; start < partitions.length; start += 50) {
-    const values = partitions.slice(start, start + 50).map((items, i) => ({ job_id: jobId, partition_no: start + i, size: items.length, items: JSON.stringify(items) }));
-    await db.insertInto('job_partition').values(values).onConflict((oc) => oc.columns(['job_id', 'partition_no']).doNothing()).execute();
+    const values = partitions
+      .slice(start, start + 50)
+      .map((items, i) => ({ job_id: jobId, partition_no: start + i, size: items.length, items: JSON.stringify(items) }));
+    await db
+      .insertInto('job_partition')
+      .values(values)
+      .onConflict((oc) => oc.columns(['job_id', 'partition_no']).doNothing())
+      .execute();
   }
 }
 
@@ -161,13 +174,25 @@ export async function partitionTally(db: Queryable, jobId: number): Promise<Part
 
 /** The results of a job's finished partitions, in partition order. */
 export async function partitionResults(db: Queryable, jobId: number): Promise<{ partitionNo: number; result: Record<string, unknown> }[]> {
-  const rows = await db.selectFrom('job_partition').select(['partition_no', 'result']).where('job_id', '=', jobId).where('status', '=', 'done').orderBy('partition_no').execute();
+  const rows = await db
+    .selectFrom('job_partition')
+    .select(['partition_no', 'result'])
+    .where('job_id', '=', jobId)
+    .where('status', '=', 'done')
+    .orderBy('partition_no')
+    .execute();
   return rows.map((r) => ({ partitionNo: r.partition_no, result: parsed(r.result) }));
 }
 
 /** Partitions of a job not done yet (a re-run of the planner queues them again). */
 export async function unfinishedPartitions(db: Queryable, jobId: number): Promise<number[]> {
-  const rows = await db.selectFrom('job_partition').select('partition_no').where('job_id', '=', jobId).where('status', '<>', 'done').orderBy('partition_no').execute();
+  const rows = await db
+    .selectFrom('job_partition')
+    .select('partition_no')
+    .where('job_id', '=', jobId)
+    .where('status', '<>', 'done')
+    .orderBy('partition_no')
+    .execute();
   return rows.map((r) => r.partition_no);
 }
 

@@ -32,10 +32,7 @@ export function toMentionView(r: Selectable<MentionTable>): MentionView {
     source: r.source,
     externalId: r.external_id,
     text: r.text,
-    contract:
-      r.contract_source !== null && r.contract_external_id !== null
-        ? { source: r.contract_source, externalId: r.contract_external_id }
-        : null,
+    contract: r.contract_source !== null && r.contract_external_id !== null ? { source: r.contract_source, externalId: r.contract_external_id } : null,
     contractId: idOrNull(r.contract_id),
     role: r.role,
     country: r.country,
@@ -58,12 +55,7 @@ export async function getMention(db: Queryable, mentionId: number): Promise<Ment
 }
 
 export async function findMentionBySourceId(db: Queryable, source: string, externalId: string): Promise<MentionView | undefined> {
-  const row = await db
-    .selectFrom('mention')
-    .selectAll()
-    .where('source', '=', source)
-    .where('external_id', '=', externalId)
-    .executeTakeFirst();
+  const row = await db.selectFrom('mention').selectAll().where('source', '=', source).where('external_id', '=', externalId).executeTakeFirst();
   return row ? toMentionView(row) : undefined;
 }
 
@@ -96,16 +88,13 @@ export async function storedMentionsByRef(db: Queryable, refs: readonly MentionR
       SELECT m.id, m.source, m.external_id, m.counterparty_id, m.content_hash FROM mention m
       JOIN unnest(${sql.val(slice.map((r) => r.source))}::text[], ${sql.val(slice.map((r) => r.externalId))}::text[]) AS k(source, external_id)
         ON m.source = k.source AND m.external_id = k.external_id`.execute(db);
-    for (const r of result.rows) out.set(mentionKey(r.source, r.external_id), { id: id(r.id), counterpartyId: idOrNull(r.counterparty_id), contentHash: r.content_hash });
+    for (const r of result.rows)
+      out.set(mentionKey(r.source, r.external_id), { id: id(r.id), counterpartyId: idOrNull(r.counterparty_id), contentHash: r.content_hash });
   }
   return out;
 }
 
-export async function mentionsOfCounterparty(
-  db: Queryable,
-  counterpartyId: number,
-  page: { afterId?: number; limit?: number } = {},
-): Promise<MentionView[]> {
+export async function mentionsOfCounterparty(db: Queryable, counterpartyId: number, page: { afterId?: number; limit?: number } = {}): Promise<MentionView[]> {
   const rows = await db
     .selectFrom('mention')
     .selectAll()
@@ -161,7 +150,10 @@ export const MAX_WAITING_AMENDMENTS = 200;
  * `earlierAgreements`) and hold mentions still `unbound_term` that no person confirmed: a contract that arrives may be
  * that earlier agreement. Each with its parsed result and those mentions, oldest contract first.
  */
-export async function amendmentsWithUnboundMentions(db: Queryable, exceptContractId: number): Promise<{ contractId: number; parsed: unknown; mentionIds: number[] }[]> {
+export async function amendmentsWithUnboundMentions(
+  db: Queryable,
+  exceptContractId: number,
+): Promise<{ contractId: number; parsed: unknown; mentionIds: number[] }[]> {
   // The predicate is contract_amendment_idx's (migration 20261205003000): the few amendments, then their mentions.
   const amendments = await db
     .selectFrom('contract as c')
@@ -169,7 +161,13 @@ export async function amendmentsWithUnboundMentions(db: Queryable, exceptContrac
     .where(sql<boolean>`(c.parsed -> 'earlierAgreements') IS NOT NULL AND c.status = 'active'`)
     .where('c.id', '<>', exceptContractId)
     .where(({ exists, selectFrom }) =>
-      exists(selectFrom('mention as m').select('m.id').whereRef('m.contract_id', '=', 'c.id').where('m.status', '=', 'unbound_term').where('m.confirmed_by', 'is', null)),
+      exists(
+        selectFrom('mention as m')
+          .select('m.id')
+          .whereRef('m.contract_id', '=', 'c.id')
+          .where('m.status', '=', 'unbound_term')
+          .where('m.confirmed_by', 'is', null),
+      ),
     )
     .orderBy('c.id')
     .limit(MAX_WAITING_AMENDMENTS)
@@ -178,7 +176,11 @@ export async function amendmentsWithUnboundMentions(db: Queryable, exceptContrac
   const rows = await db
     .selectFrom('mention')
     .select(['id', 'contract_id'])
-    .where('contract_id', 'in', amendments.map((a) => a.id))
+    .where(
+      'contract_id',
+      'in',
+      amendments.map((a) => a.id),
+    )
     .where('status', '=', 'unbound_term')
     .where('confirmed_by', 'is', null)
     .orderBy('id')

@@ -44,13 +44,23 @@ export async function namesOf(db: Queryable, counterpartyIds: number[]): Promise
 
 /** The id of a counterparty's name row with this exact (name, kind), if it has one. */
 export async function findNameId(db: Queryable, counterpartyId: number, name: string, kind: NameKind): Promise<number | undefined> {
-  const row = await db.selectFrom('counterparty_name').select('id').where('counterparty_id', '=', counterpartyId).where('name', '=', name).where('kind', '=', kind).executeTakeFirst();
+  const row = await db
+    .selectFrom('counterparty_name')
+    .select('id')
+    .where('counterparty_id', '=', counterpartyId)
+    .where('name', '=', name)
+    .where('kind', '=', kind)
+    .executeTakeFirst();
   return row ? id(row.id) : undefined;
 }
 
 /** How many names a counterparty has. */
 export async function countNames(db: Queryable, counterpartyId: number): Promise<number> {
-  const row = await db.selectFrom('counterparty_name').select((eb) => eb.fn.countAll().as('n')).where('counterparty_id', '=', counterpartyId).executeTakeFirstOrThrow();
+  const row = await db
+    .selectFrom('counterparty_name')
+    .select((eb) => eb.fn.countAll().as('n'))
+    .where('counterparty_id', '=', counterpartyId)
+    .executeTakeFirstOrThrow();
   return Number(row.n);
 }
 

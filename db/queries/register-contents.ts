@@ -13,7 +13,10 @@ export interface RegisterContents {
 }
 
 async function countRows(db: Kysely<Database>, table: 'contract' | 'mention' | 'counterparty' | 'own_entity'): Promise<number> {
-  const row = await db.selectFrom(table).select((eb) => eb.fn.countAll<string>().as('n')).executeTakeFirstOrThrow();
+  const row = await db
+    .selectFrom(table)
+    .select((eb) => eb.fn.countAll<string>().as('n'))
+    .executeTakeFirstOrThrow();
   return Number(row.n);
 }
 
@@ -61,11 +64,32 @@ export interface ChangesSince {
 
 export async function changesSince(db: Kysely<Database>, at: Date): Promise<ChangesSince> {
   const [contracts, mentions, counterparties, decisions, events] = await Promise.all([
-    db.selectFrom('contract').select((eb) => eb.fn.countAll<string>().as('n')).where('created_at', '>', at).executeTakeFirstOrThrow(),
-    db.selectFrom('mention').select(['source', (eb) => eb.fn.countAll<string>().as('n')]).where('created_at', '>', at).groupBy('source').execute(),
-    db.selectFrom('counterparty').select((eb) => eb.fn.countAll<string>().as('n')).where('created_at', '>', at).executeTakeFirstOrThrow(),
-    db.selectFrom('review_item').select((eb) => eb.fn.countAll<string>().as('n')).where('decided_at', '>', at).executeTakeFirstOrThrow(),
-    db.selectFrom('history_event').select((eb) => eb.fn.countAll<string>().as('n')).where('at', '>', at).executeTakeFirstOrThrow(),
+    db
+      .selectFrom('contract')
+      .select((eb) => eb.fn.countAll<string>().as('n'))
+      .where('created_at', '>', at)
+      .executeTakeFirstOrThrow(),
+    db
+      .selectFrom('mention')
+      .select(['source', (eb) => eb.fn.countAll<string>().as('n')])
+      .where('created_at', '>', at)
+      .groupBy('source')
+      .execute(),
+    db
+      .selectFrom('counterparty')
+      .select((eb) => eb.fn.countAll<string>().as('n'))
+      .where('created_at', '>', at)
+      .executeTakeFirstOrThrow(),
+    db
+      .selectFrom('review_item')
+      .select((eb) => eb.fn.countAll<string>().as('n'))
+      .where('decided_at', '>', at)
+      .executeTakeFirstOrThrow(),
+    db
+      .selectFrom('history_event')
+      .select((eb) => eb.fn.countAll<string>().as('n'))
+      .where('at', '>', at)
+      .executeTakeFirstOrThrow(),
   ]);
   return {
     contracts: Number(contracts.n),

@@ -37,12 +37,7 @@ export async function relationsOf(db: Queryable, counterpartyIds: number[]): Pro
   }));
 }
 
-export async function findRelation(
-  db: Queryable,
-  from: number,
-  to: number,
-  type: string,
-): Promise<number | undefined> {
+export async function findRelation(db: Queryable, from: number, to: number, type: string): Promise<number | undefined> {
   const row = await db
     .selectFrom('counterparty_relation')
     .select('id')
@@ -55,6 +50,10 @@ export async function findRelation(
 
 /** The two counterparties a relation joins, or undefined when there is no such relation. */
 export async function relationEnds(db: Queryable, relationId: number): Promise<{ from: number; to: number } | undefined> {
-  const row = await db.selectFrom('counterparty_relation').select(['from_counterparty_id', 'to_counterparty_id']).where('id', '=', relationId).executeTakeFirst();
+  const row = await db
+    .selectFrom('counterparty_relation')
+    .select(['from_counterparty_id', 'to_counterparty_id'])
+    .where('id', '=', relationId)
+    .executeTakeFirst();
   return row ? { from: id(row.from_counterparty_id), to: id(row.to_counterparty_id) } : undefined;
 }

@@ -31,10 +31,7 @@ interface FactsRow {
  * Every open review item (narrowed by `only`: a kind, the candidate, a mention, a counterparty on either side, an
  * age) with the facts the queue's order needs, in one statement.
  */
-export async function openReviewFacts(
-  db: Queryable,
-  only: Omit<ReviewFilter, 'status'> & { rightCounterpartyId?: number } = {},
-): Promise<OpenReviewFacts[]> {
+export async function openReviewFacts(db: Queryable, only: Omit<ReviewFilter, 'status'> & { rightCounterpartyId?: number } = {}): Promise<OpenReviewFacts[]> {
   const conditions = [
     ...(only.kind !== undefined ? [sql`r.kind = ${only.kind}`] : []),
     ...(only.rightCounterpartyId !== undefined ? [sql`r.right_counterparty_id = ${only.rightCounterpartyId}`] : []),
@@ -78,7 +75,11 @@ export async function openReviewFacts(
 /** Open or decided review items by id, in the order given (ids that do not exist are left out). */
 export async function reviewItemsByIds(db: Queryable, ids: readonly number[]): Promise<Record<string, unknown>[]> {
   if (ids.length === 0) return [];
-  const rows = await db.selectFrom('review_item').selectAll().where('id', 'in', [...ids]).execute();
+  const rows = await db
+    .selectFrom('review_item')
+    .selectAll()
+    .where('id', 'in', [...ids])
+    .execute();
   const byId = new Map(rows.map((r) => [id(r.id), r as Record<string, unknown>]));
   return ids.flatMap((i) => (byId.has(i) ? [byId.get(i)!] : []));
 }

@@ -51,7 +51,11 @@ export interface ReviewFilter {
 }
 
 /** Review items matching `filter`, in id order after `afterId`. */
-export async function listReviewItemsWhere(db: Queryable, filter: ReviewFilter = {}, page: { afterId?: number; limit?: number } = {}): Promise<ReviewItemView[]> {
+export async function listReviewItemsWhere(
+  db: Queryable,
+  filter: ReviewFilter = {},
+  page: { afterId?: number; limit?: number } = {},
+): Promise<ReviewItemView[]> {
   let query = db
     .selectFrom('review_item')
     .selectAll()
@@ -65,7 +69,10 @@ export async function listReviewItemsWhere(db: Queryable, filter: ReviewFilter =
   }
   if (filter.createdBefore !== undefined) query = query.where('created_at', '<', new Date(filter.createdBefore));
   if (filter.createdAfter !== undefined) query = query.where('created_at', '>=', new Date(filter.createdAfter));
-  const rows = await query.orderBy('id').limit(page.limit ?? 100).execute();
+  const rows = await query
+    .orderBy('id')
+    .limit(page.limit ?? 100)
+    .execute();
   return rows.map(toReviewView);
 }
 
@@ -85,13 +92,11 @@ export async function openItemOfMention(db: Queryable, mentionId: number): Promi
 }
 
 /** Open review items about one pair of counterparties (either order) or one mention and a counterparty. */
-export async function openItemFor(
-  db: Queryable,
-  pair: { mentionId?: number; left?: number; right: number },
-): Promise<number | undefined> {
-  const result = pair.mentionId !== undefined
-    ? await sql<{ id: string | number }>`SELECT id FROM review_item WHERE status = 'open' AND mention_id = ${pair.mentionId} LIMIT 1`.execute(db)
-    : await sql<{ id: string | number }>`SELECT id FROM review_item WHERE status = 'open' AND mention_id IS NULL
+export async function openItemFor(db: Queryable, pair: { mentionId?: number; left?: number; right: number }): Promise<number | undefined> {
+  const result =
+    pair.mentionId !== undefined
+      ? await sql<{ id: string | number }>`SELECT id FROM review_item WHERE status = 'open' AND mention_id = ${pair.mentionId} LIMIT 1`.execute(db)
+      : await sql<{ id: string | number }>`SELECT id FROM review_item WHERE status = 'open' AND mention_id IS NULL
         AND ((left_counterparty_id = ${pair.left!} AND right_counterparty_id = ${pair.right})
           OR (left_counterparty_id = ${pair.right} AND right_counterparty_id = ${pair.left!})) LIMIT 1`.execute(db);
   return result.rows[0] ? id(result.rows[0].id) : undefined;

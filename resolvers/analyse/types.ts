@@ -2,8 +2,8 @@
  * The analysis of one name string: the contract between resolvers/analyse and every later stage.
  */
 import type { AliasKind, EntityKind, PartyStatus, RelationType } from '../vocabulary.ts';
-import type { NameAlternative } from './alternativeNames.ts';
-import type { PartyReason } from './partyFilter.ts';
+import type { NameAlternative } from './alternative-names.ts';
+import type { PartyReason } from './party-filter.ts';
 
 export interface LegalFormMatch {
   /** The designator as it stands in the input ("Pty. Ltd.", "GmbH"). */

@@ -1,5 +1,5 @@
-export { blockingKeys, acronymKeys, PREFIX_KEY_LENGTH } from './blockingKeys.ts';
-export { candidatePairs, type CandidateOptions, type CandidatePairs } from './candidatePairs.ts';
-export type { MatchRecord } from './matchRecord.ts';
+export { blockingKeys, acronymKeys, PREFIX_KEY_LENGTH } from './blocking-keys.ts';
+export { candidatePairs, type CandidateOptions, type CandidatePairs } from './candidate-pairs.ts';
+export type { MatchRecord } from './match-record.ts';
 export { nameScript, type NameScript } from './script.ts';
-export { partitionRecords, type PartitionOptions, type PartitionPlan } from './partitionRecords.ts';
+export { partitionRecords, type PartitionOptions, type PartitionPlan } from './partition-records.ts';

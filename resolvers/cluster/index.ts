@@ -1,2 +1,2 @@
-export { clusterRecords, clusterIndexed, type ClusterOptions, type IndexedPairs, type ScoredEdge } from './clusterRecords.ts';
-export { clustersToLabels } from './clustersToLabels.ts';
+export { clusterRecords, clusterIndexed, type ClusterOptions, type IndexedPairs, type ScoredEdge } from './cluster-records.ts';
+export { clustersToLabels } from './clusters-to-labels.ts';

@@ -1,5 +1,5 @@
-export { jaro, jaroWinkler, jaroWinklerUpperBound, commonPrefixLength, WINKLER_PREFIX_SCALE, WINKLER_MAX_PREFIX } from './jaroWinkler.ts';
-export { buildIdfTable, idfTableFromFrequencies, smoothedIdf, type IdfTable } from './idfTable.ts';
+export { jaro, jaroWinkler, jaroWinklerUpperBound, commonPrefixLength, WINKLER_PREFIX_SCALE, WINKLER_MAX_PREFIX } from './jaro-winkler.ts';
+export { buildIdfTable, idfTableFromFrequencies, smoothedIdf, type IdfTable } from './idf-table.ts';
 export {
   softTfIdf,
   softTfIdfExplained,
@@ -10,23 +10,10 @@ export {
   type SoftTfIdfOptions,
   type SoftTfIdfMatch,
   type SoftTfIdfResult,
-} from './softTfIdf.ts';
+} from './soft-tf-idf.ts';
 export { levenshtein, levenshteinSimilarity } from './levenshtein.ts';
-export {
-  compareAcronym,
-  acronymTokens,
-  initialsOf,
-  ACRONYM_STOP_WORDS,
-  type AcronymComparison,
-  type AcronymLevel,
-} from './acronym.ts';
-export { compareLegalForms, type LegalFormComparison, type LegalFormLevel } from './legalForm.ts';
-export {
-  compareJurisdictions,
-  jurisdictionsCompatible,
-  parseJurisdiction,
-  type JurisdictionComparison,
-  type JurisdictionLevel,
-} from './jurisdiction.ts';
-export { compareNameTokens, type DistinguishingKind, type NameDifference, type NameDifferenceKind } from './nameDifference.ts';
-export { ACTIVITY_WORDS, BRANCH_WORDS, isNumberToken, isPlaceWord } from './distinguishingWords.ts';
+export { compareAcronym, acronymTokens, initialsOf, ACRONYM_STOP_WORDS, type AcronymComparison, type AcronymLevel } from './acronym.ts';
+export { compareLegalForms, type LegalFormComparison, type LegalFormLevel } from './legal-form.ts';
+export { compareJurisdictions, jurisdictionsCompatible, parseJurisdiction, type JurisdictionComparison, type JurisdictionLevel } from './jurisdiction.ts';
+export { compareNameTokens, type DistinguishingKind, type NameDifference, type NameDifferenceKind } from './name-difference.ts';
+export { ACTIVITY_WORDS, BRANCH_WORDS, isNumberToken, isPlaceWord } from './distinguishing-words.ts';

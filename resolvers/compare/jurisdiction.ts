@@ -34,7 +34,8 @@ export function jurisdictionsCompatible(a: string, b: string): boolean {
 export function compareJurisdictions(a: string | null | undefined, b: string | null | undefined): JurisdictionComparison {
   const hasA = typeof a === 'string' && a.trim().length > 0;
   const hasB = typeof b === 'string' && b.trim().length > 0;
-  if (!hasA || !hasB) return { level: 'missing', explanation: `${!hasA && !hasB ? 'no jurisdiction on either side' : `jurisdiction only on one side (${hasA ? a : b})`}` };
+  if (!hasA || !hasB)
+    return { level: 'missing', explanation: `${!hasA && !hasB ? 'no jurisdiction on either side' : `jurisdiction only on one side (${hasA ? a : b})`}` };
   const x = parseJurisdiction(a);
   const y = parseJurisdiction(b);
   if (x.code === y.code) return { level: 'same', explanation: `both ${x.code}` };

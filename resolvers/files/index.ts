@@ -7,8 +7,8 @@
  *   checkZipEntry(facts, limits): symbolic links, encryption, size and compression ratio of one entry;
  *   REJECT_REASONS: the one catalogue of reasons a file is not imported; FILE_LIMIT_DEFAULTS: the limits.
  */
-export { detectFileType, isTextDocumentName, zipPackageKind, type DetectedType } from './detectFileType.ts';
-export { checkEntryPath, type EntryPathCheck } from './checkEntryPath.ts';
-export { checkZipEntry, isSymlinkEntry, type ZipEntryFacts } from './checkZipEntry.ts';
-export { REJECT_REASONS, REJECT_REASON_CODES, type FileReject, type RejectReason } from './rejectReasons.ts';
+export { detectFileType, isTextDocumentName, zipPackageKind, type DetectedType } from './detect-file-type.ts';
+export { checkEntryPath, type EntryPathCheck } from './check-entry-path.ts';
+export { checkZipEntry, isSymlinkEntry, type ZipEntryFacts } from './check-zip-entry.ts';
+export { REJECT_REASONS, REJECT_REASON_CODES, type FileReject, type RejectReason } from './reject-reasons.ts';
 export { FILE_LIMIT_DEFAULTS, type FileLimits } from './limits.ts';

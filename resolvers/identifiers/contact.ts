@@ -3,14 +3,18 @@
  * domains. All of these are "same or affiliated" evidence at most: affiliates share switchboards and domains.
  */
 import { parsePhoneNumberFromString, type CountryCode } from 'libphonenumber-js/max';
-import { FREE_MAIL_DOMAINS } from './freeMailDomains.ts';
+import { FREE_MAIL_DOMAINS } from './free-mail-domains.ts';
 import { ok, problem, type SchemeResult } from './types.ts';
 
 export function normalisePhone(value: string, defaultCountry?: string): SchemeResult {
   const country = defaultCountry ? (defaultCountry.slice(0, 2).toUpperCase() as CountryCode) : undefined;
   const parsed = parsePhoneNumberFromString(value, country);
   if (!parsed) {
-    return problem(country ? `"${value}" is not a phone number (read with default country ${country})` : `"${value}" is not a phone number; give it with +country code or pass a default country`);
+    return problem(
+      country
+        ? `"${value}" is not a phone number (read with default country ${country})`
+        : `"${value}" is not a phone number; give it with +country code or pass a default country`,
+    );
   }
   if (!parsed.isValid()) return problem(`${parsed.number} is not a valid number for ${parsed.country ?? `+${parsed.countryCallingCode}`}`);
   return ok(parsed.number);

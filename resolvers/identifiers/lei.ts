@@ -34,9 +34,7 @@ export function normaliseLei(value: string): SchemeResult {
   if (!hasLeiFormat(compact)) return problem('the last two characters (check digits) must be digits');
   const remainder = mod97(compact);
   if (remainder !== 1) {
-    return problem(
-      `check digits do not verify (ISO 7064 MOD 97-10 gives ${remainder}, not 1); expected ${leiCheckDigits(compact.slice(0, 18))}`,
-    );
+    return problem(`check digits do not verify (ISO 7064 MOD 97-10 gives ${remainder}, not 1); expected ${leiCheckDigits(compact.slice(0, 18))}`);
   }
   return ok(compact);
 }

@@ -14,7 +14,21 @@ export const FEATURE_LEVELS = {
    * core that says little (four letters or fewer, or only words common in the names compared): value-specific
    * agreement weights in two classes (frequency-based matching, Winkler 1989).
    */
-  name: ['exact', 'exact_weak', 'near_exact', 'typo', 'abbreviation', 'extra_words', 'extra_activity', 'extra_place', 'very_high', 'high', 'medium', 'low', 'none'],
+  name: [
+    'exact',
+    'exact_weak',
+    'near_exact',
+    'typo',
+    'abbreviation',
+    'extra_words',
+    'extra_activity',
+    'extra_place',
+    'very_high',
+    'high',
+    'medium',
+    'low',
+    'none',
+  ],
   /** Legal-form compatibility (compare/compareLegalForms). */
   legalForm: ['same_family', 'compatible', 'conflicting', 'different_jurisdiction'],
   /** Jurisdiction / country agreement (compare/compareJurisdictions). */
@@ -63,7 +77,11 @@ export function nameLevel(coreEqual: boolean, soft: number, jw: number): Feature
  */
 export function nameLevelOfKind(difference: NameDifference, informative: () => boolean, band: () => FeatureLevel<'name'>): FeatureLevel<'name'> {
   const kind = difference.kind;
-  if (difference.distinguishing?.kind === 'place' && (kind === 'equal' || kind === 'near_equal' || kind === 'typo' || kind === 'abbreviation' || kind === 'extra_words')) return 'extra_place';
+  if (
+    difference.distinguishing?.kind === 'place' &&
+    (kind === 'equal' || kind === 'near_equal' || kind === 'typo' || kind === 'abbreviation' || kind === 'extra_words')
+  )
+    return 'extra_place';
   switch (kind) {
     case 'equal':
       return informative() ? 'exact' : 'exact_weak';

@@ -42,17 +42,17 @@ export type {
   ParseOptions,
   PartyRef,
 } from './types.ts';
-export { parseParties, MAX_COLLECTIVE_TERMS, MAX_PARTIES, MAX_TERMS_PER_PARTY } from './parseParties.ts';
-export { resolveInContract } from './resolveInContract.ts';
-export { MAX_CONTRACT_BYTES, checkContractText } from './checkContractText.ts';
-export { termKey } from './cleanTerm.ts';
-export { classifyNotParties } from './classifyNotParties.ts';
-export { findEarlierAgreements } from './findEarlierAgreements.ts';
-export type { AgreementReference } from './findEarlierAgreements.ts';
-export { datesIn, readDate } from './readDate.ts';
-export { containsToken, matchEarlierAgreement } from './matchEarlierAgreement.ts';
-export type { EarlierCandidate, EarlierMatch } from './matchEarlierAgreement.ts';
-export { sameEntityName } from './sameEntityName.ts';
-export type { NotPartyGroups } from './classifyNotParties.ts';
-export { reconcileGivenParties } from './reconcileGivenParties.ts';
-export type { GivenPartyFacts, ParsedPartyFacts, PartyDisagreement, PartyReconciliation } from './reconcileGivenParties.ts';
+export { parseParties, MAX_COLLECTIVE_TERMS, MAX_PARTIES, MAX_TERMS_PER_PARTY } from './parse-parties.ts';
+export { resolveInContract } from './resolve-in-contract.ts';
+export { MAX_CONTRACT_BYTES, checkContractText } from './check-contract-text.ts';
+export { termKey } from './clean-term.ts';
+export { classifyNotParties } from './classify-not-parties.ts';
+export { findEarlierAgreements } from './find-earlier-agreements.ts';
+export type { AgreementReference } from './find-earlier-agreements.ts';
+export { datesIn, readDate } from './read-date.ts';
+export { containsToken, matchEarlierAgreement } from './match-earlier-agreement.ts';
+export type { EarlierCandidate, EarlierMatch } from './match-earlier-agreement.ts';
+export { sameEntityName } from './same-entity-name.ts';
+export type { NotPartyGroups } from './classify-not-parties.ts';
+export { reconcileGivenParties } from './reconcile-given-parties.ts';
+export type { GivenPartyFacts, ParsedPartyFacts, PartyDisagreement, PartyReconciliation } from './reconcile-given-parties.ts';

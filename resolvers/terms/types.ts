@@ -4,7 +4,7 @@
  */
 import type { AliasKind, EntityKind, IdentifierScheme, RelationType, ResolutionStatus } from '../vocabulary.ts';
 import type { LegalFormMatch, NameAnalysis } from '../analyse/index.ts';
-import type { AgreementReference } from './findEarlierAgreements.ts';
+import type { AgreementReference } from './find-earlier-agreements.ts';
 
 export interface ContractIdentifier {
   scheme: IdentifierScheme;
@@ -19,7 +19,7 @@ export interface ContractIdentifier {
 export interface ContractParty {
   /**
    * The party's name as it stands in the text: a verbatim substring of the input, except that a line break inside
-   * the name (with the spaces around it) reads as one space (parseParties.ts oneLine).
+   * the name (with the spaces around it) reads as one space (parse-parties.ts oneLine).
    */
   name: string;
   /** Its role in this contract (the defined term that names a role: "Licensor", "Paying Agent"), or null. */

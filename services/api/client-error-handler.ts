@@ -19,7 +19,9 @@ interface ClientError extends Error {
 
 function problemFor(error: ClientError): Problem {
   if (error.code === 'HPE_HEADER_OVERFLOW') {
-    return problem('HEADERS_TOO_LARGE', `the request line and headers exceed ${maxHeaderSize} bytes (a long query string counts)`, undefined, { limitBytes: maxHeaderSize });
+    return problem('HEADERS_TOO_LARGE', `the request line and headers exceed ${maxHeaderSize} bytes (a long query string counts)`, undefined, {
+      limitBytes: maxHeaderSize,
+    });
   }
   if (error.code === 'ERR_HTTP_REQUEST_TIMEOUT') return problem('REQUEST_TIMEOUT', 'the request was not received completely in time');
   // The parser's reason code (HPE_…) names the rule that failed; its message may quote the caller's bytes.

@@ -78,7 +78,10 @@ function classify(error: FastifyError, request: FastifyRequest): Classified {
     case 'FST_ERR_CTP_INVALID_MEDIA_TYPE':
       return {
         // Names what is accepted; the caller's Content-Type is not repeated.
-        body: problem('UNSUPPORTED_MEDIA_TYPE', `the body's Content-Type is not accepted by ${request.method} ${request.routeOptions.url ?? 'this route'}; send application/json`),
+        body: problem(
+          'UNSUPPORTED_MEDIA_TYPE',
+          `the body's Content-Type is not accepted by ${request.method} ${request.routeOptions.url ?? 'this route'}; send application/json`,
+        ),
       };
   }
   // secure-json-parse rejects __proto__ / constructor.prototype keys with a SyntaxError marked 400.

@@ -103,12 +103,7 @@ export function isErrorCode(value: unknown): value is ErrorCode {
   return typeof value === 'string' && Object.hasOwn(ERROR_CATALOGUE, value);
 }
 
-export function problem(
-  code: ErrorCode,
-  detail: string,
-  errors?: FieldError[],
-  extensions: Record<string, unknown> = {},
-): Problem {
+export function problem(code: ErrorCode, detail: string, errors?: FieldError[], extensions: Record<string, unknown> = {}): Problem {
   const entry = ERROR_CATALOGUE[code];
   const body: Problem = { type: `${PROBLEM_TYPE_PREFIX}${code}`, title: entry.title, status: entry.status, detail, code };
   if (errors && errors.length > 0) body.errors = errors;

@@ -14,7 +14,12 @@ export const MAX_PATH_PARAMETER_LENGTH = 100;
 export function frameworkErrors(error: FastifyError, request: FastifyRequest, reply: FastifyReply): void {
   request.log.info({ code: error.code }, 'request refused by the router');
   if (error.code === 'FST_ERR_MAX_PARAM_LENGTH') {
-    sendProblem(reply, problem('URI_TOO_LONG', `a path parameter is longer than ${MAX_PATH_PARAMETER_LENGTH} characters`, undefined, { limitCharacters: MAX_PATH_PARAMETER_LENGTH }));
+    sendProblem(
+      reply,
+      problem('URI_TOO_LONG', `a path parameter is longer than ${MAX_PATH_PARAMETER_LENGTH} characters`, undefined, {
+        limitCharacters: MAX_PATH_PARAMETER_LENGTH,
+      }),
+    );
     return;
   }
   if (error.code === 'FST_ERR_BAD_URL') {

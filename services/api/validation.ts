@@ -143,7 +143,10 @@ function describe(error: ErrorObject): { pointer: string; message: string } {
     case 'minLength':
       return { pointer: base, message: `must be at least ${String(params.limit)} characters long` };
     case 'maximum':
-      return { pointer: base, message: `must be at most ${String(params.limit)}${params.limit === Number.MAX_SAFE_INTEGER ? ' (2^53 − 1, the largest exact integer)' : ''}` };
+      return {
+        pointer: base,
+        message: `must be at most ${String(params.limit)}${params.limit === Number.MAX_SAFE_INTEGER ? ' (2^53 − 1, the largest exact integer)' : ''}`,
+      };
     case 'minimum':
       return { pointer: base, message: `must be at least ${String(params.limit)}` };
     case 'maxItems':

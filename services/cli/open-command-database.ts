@@ -45,7 +45,12 @@ export async function openCommandDatabase(given: string | undefined, command: st
   return openAndMigrate(given, command, options, say);
 }
 
-async function openAndMigrate(given: string | undefined, command: string, options: CommandDatabaseOptions, say: (line: string) => void): Promise<OpenedDatabase> {
+async function openAndMigrate(
+  given: string | undefined,
+  command: string,
+  options: CommandDatabaseOptions,
+  say: (line: string) => void,
+): Promise<OpenedDatabase> {
   const opened = await openOrExplain(given, command, { writes: options.writes, extensions: true }, say);
   if (options.writes || opened.created) say(openedLine(opened, given));
   if (options.migrate === false) return opened;
@@ -63,7 +68,12 @@ async function openAndMigrate(given: string | undefined, command: string, option
 }
 
 /** Opens, turning the database's refusals into one-line CLI errors (no database here, locked, unreachable). */
-async function openOrExplain(given: string | undefined, command: string, how: { writes: boolean; extensions: boolean }, say: (line: string) => void): Promise<OpenedDatabase> {
+async function openOrExplain(
+  given: string | undefined,
+  command: string,
+  how: { writes: boolean; extensions: boolean },
+  say: (line: string) => void,
+): Promise<OpenedDatabase> {
   const { openDatabase, resolveTarget } = await import('../../db/open-database.ts');
   const { DatabaseOpenError, NoDatabaseError } = await import('../../db/database-errors.ts');
   const { DatabaseLockedError } = await import('../../db/lock.ts');

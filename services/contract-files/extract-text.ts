@@ -33,7 +33,8 @@ export async function extractPdfText(bytes: Buffer): Promise<Extraction> {
       const page = await pageText(pdf, n);
       bytes += Buffer.byteLength(page);
       // Stop reading once over the limit: the rest of a long PDF need not be decoded to refuse it.
-      if (bytes > MAX_CONTRACT_BYTES) return refuse('text_too_large', `over ${MAX_CONTRACT_BYTES} bytes of text by page ${n} of ${totalPages}; the limit is ${MAX_CONTRACT_BYTES}`);
+      if (bytes > MAX_CONTRACT_BYTES)
+        return refuse('text_too_large', `over ${MAX_CONTRACT_BYTES} bytes of text by page ${n} of ${totalPages}; the limit is ${MAX_CONTRACT_BYTES}`);
       pages.push(page);
     }
     const joined = pages.join('\n\n');

@@ -8,14 +8,7 @@
  */
 import { open, readdir, readFile, stat } from 'node:fs/promises';
 import { basename, join } from 'node:path';
-import {
-  FILE_LIMIT_DEFAULTS,
-  detectFileType,
-  isTextDocumentName,
-  zipPackageKind,
-  type FileLimits,
-  type FileReject,
-} from '../../resolvers/files/index.ts';
+import { FILE_LIMIT_DEFAULTS, detectFileType, isTextDocumentName, zipPackageKind, type FileLimits, type FileReject } from '../../resolvers/files/index.ts';
 import { MAX_CONTRACT_BYTES } from '../../resolvers/terms/index.ts';
 import { extractDocxText, extractPdfText, type Extraction } from './extract-text.ts';
 import { archiveProblem, surveyZip, zipItems, type ZipSource } from './zip-archive.ts';
@@ -38,7 +31,10 @@ export const MAX_PATH = 300;
 
 /** The archive given (or the only one to read) is over a limit: nothing in it is read. */
 export class ArchiveRefusedError extends Error {
-  constructor(readonly path: string, readonly detail: string) {
+  constructor(
+    readonly path: string,
+    readonly detail: string,
+  ) {
     super(`${path}: the archive is refused: ${detail}; nothing in it was read`);
     this.name = 'ArchiveRefusedError';
   }
@@ -88,7 +84,10 @@ export class DocumentFinder {
   skippedFolders = 0;
   readonly limits: FileLimits;
 
-  constructor(readonly target: string, readonly options: FindOptions = {}) {
+  constructor(
+    readonly target: string,
+    readonly options: FindOptions = {},
+  ) {
     this.limits = { ...FILE_LIMIT_DEFAULTS, ...options.limits };
   }
 
@@ -172,7 +171,14 @@ export class DocumentFinder {
     yield* this.fromBytes(bytes, rel || basename(abs), 0);
   }
 
-  private async *fromArchive(source: ZipSource, survey: Awaited<ReturnType<typeof surveyZip>>, shown: string, prefix: string, depth: number, top: boolean): AsyncGenerator<Found> {
+  private async *fromArchive(
+    source: ZipSource,
+    survey: Awaited<ReturnType<typeof surveyZip>>,
+    shown: string,
+    prefix: string,
+    depth: number,
+    top: boolean,
+  ): AsyncGenerator<Found> {
     const problem = archiveProblem(survey, this.limits);
     if (problem) {
       if (top) throw new ArchiveRefusedError(shown, problem);
@@ -239,7 +245,11 @@ export class DocumentFinder {
       return;
     }
     if (!isTextDocumentName(path)) {
-      yield rejected(path, 'unsupported_type', `UTF-8 text, but named "${titleOf(path)}": only .txt, .md or names without an extension are read as contract text`);
+      yield rejected(
+        path,
+        'unsupported_type',
+        `UTF-8 text, but named "${titleOf(path)}": only .txt, .md or names without an extension are read as contract text`,
+      );
       return;
     }
     if (bytes.length > MAX_CONTRACT_BYTES) {

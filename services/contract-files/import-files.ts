@@ -66,5 +66,14 @@ export async function importContractFiles(options: ImportFilesOptions): Promise<
   }
   const gap = unaccounted(tally.files);
   if (gap !== 0) throw new Error(`${gap} files read but not accounted for (a defect: please report it)`);
-  return { target: options.target, source: options.source, status, ...tally, skippedFolders: finder.skippedFolders, rejectsFile: options.rejectsFile, elapsedMs: performance.now() - started, contracts };
+  return {
+    target: options.target,
+    source: options.source,
+    status,
+    ...tally,
+    skippedFolders: finder.skippedFolders,
+    rejectsFile: options.rejectsFile,
+    elapsedMs: performance.now() - started,
+    contracts,
+  };
 }

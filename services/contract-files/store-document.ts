@@ -42,7 +42,13 @@ export interface StoreDocumentOptions {
 
 const TEXT_PROBLEMS: Record<string, RejectReason> = { too_large: 'text_too_large', empty_text: 'no_text', binary_data: 'unsupported_type' };
 
-export async function storeDocument(ctx: RegisterContext, doc: DocumentInput, source: string, who: ActorInput, options: StoreDocumentOptions = {}): Promise<DocumentOutcome> {
+export async function storeDocument(
+  ctx: RegisterContext,
+  doc: DocumentInput,
+  source: string,
+  who: ActorInput,
+  options: StoreDocumentOptions = {},
+): Promise<DocumentOutcome> {
   const problem = checkContractText(doc.text);
   if (problem) return { kind: 'rejected', reason: TEXT_PROBLEMS[problem.code] ?? 'contract_refused', detail: problem.message };
   const externalId = doc.externalId ?? doc.path;

@@ -58,7 +58,10 @@ export async function surveyZip(source: ZipSource, limits: Pick<FileLimits, 'max
 }
 
 /** Why an archive is refused whole (before any entry is read), or null. */
-export function archiveProblem(survey: Pick<ZipSurvey, 'entryCount' | 'totalUncompressed'>, limits: Pick<FileLimits, 'maxEntries' | 'maxTotalBytes'>): string | null {
+export function archiveProblem(
+  survey: Pick<ZipSurvey, 'entryCount' | 'totalUncompressed'>,
+  limits: Pick<FileLimits, 'maxEntries' | 'maxTotalBytes'>,
+): string | null {
   if (survey.entryCount > limits.maxEntries) return `${survey.entryCount} entries; the limit is ${limits.maxEntries}`;
   if (survey.totalUncompressed > limits.maxTotalBytes) {
     return `${survey.totalUncompressed} bytes uncompressed in all (a zip bomb?); the limit is ${limits.maxTotalBytes} bytes`;

@@ -99,9 +99,32 @@ function titleCase(s: string): string {
 
 /** QWERTY neighbours of each letter (same row and the rows above and below). */
 const KEY_NEIGHBOURS: Readonly<Record<string, string>> = {
-  q: 'wa', w: 'qeas', e: 'wrsd', r: 'etdf', t: 'ryfg', y: 'tugh', u: 'yihj', i: 'uojk', o: 'ipkl', p: 'ol',
-  a: 'qwsz', s: 'awedxz', d: 'serfcx', f: 'drtgvc', g: 'ftyhbv', h: 'gyujnb', j: 'huikmn', k: 'jiolm', l: 'kop',
-  z: 'asx', x: 'zsdc', c: 'xdfv', v: 'cfgb', b: 'vghn', n: 'bhjm', m: 'njk',
+  q: 'wa',
+  w: 'qeas',
+  e: 'wrsd',
+  r: 'etdf',
+  t: 'ryfg',
+  y: 'tugh',
+  u: 'yihj',
+  i: 'uojk',
+  o: 'ipkl',
+  p: 'ol',
+  a: 'qwsz',
+  s: 'awedxz',
+  d: 'serfcx',
+  f: 'drtgvc',
+  g: 'ftyhbv',
+  h: 'gyujnb',
+  j: 'huikmn',
+  k: 'jiolm',
+  l: 'kop',
+  z: 'asx',
+  x: 'zsdc',
+  c: 'xdfv',
+  v: 'cfgb',
+  b: 'vghn',
+  n: 'bhjm',
+  m: 'njk',
 };
 
 function matchCase(template: string, c: string): string {
@@ -135,8 +158,24 @@ export function keyboardTypo(s: string, rnd: Random): string | null {
 
 /** Character confusions of optical character recognition (pairs after Christen & Pudjijono 2009). */
 const OCR_PAIRS: ReadonlyArray<readonly [string, string]> = [
-  ['m', 'rn'], ['rn', 'm'], ['O', '0'], ['o', '0'], ['l', '1'], ['I', 'l'], ['i', 'l'], ['S', '5'], ['B', '8'],
-  ['cl', 'd'], ['d', 'cl'], ['w', 'vv'], ['e', 'c'], ['h', 'b'], ['g', 'q'], ['Z', '2'], ['G', '6'], ['n', 'ri'],
+  ['m', 'rn'],
+  ['rn', 'm'],
+  ['O', '0'],
+  ['o', '0'],
+  ['l', '1'],
+  ['I', 'l'],
+  ['i', 'l'],
+  ['S', '5'],
+  ['B', '8'],
+  ['cl', 'd'],
+  ['d', 'cl'],
+  ['w', 'vv'],
+  ['e', 'c'],
+  ['h', 'b'],
+  ['g', 'q'],
+  ['Z', '2'],
+  ['G', '6'],
+  ['n', 'ri'],
 ];
 
 export function ocrError(s: string, rnd: Random): string | null {
@@ -145,9 +184,31 @@ export function ocrError(s: string, rnd: Random): string | null {
 
 /** Sound-alike spellings (English-language rules in the spirit of Christen & Pudjijono 2009). */
 const PHONETIC_PAIRS: ReadonlyArray<readonly [string, string]> = [
-  ['ph', 'f'], ['f', 'ph'], ['ck', 'k'], ['c', 'k'], ['k', 'c'], ['z', 's'], ['s', 'z'], ['ie', 'y'], ['y', 'ie'],
-  ['ou', 'ow'], ['ei', 'ie'], ['ll', 'l'], ['tt', 't'], ['nn', 'n'], ['ss', 's'], ['l', 'll'], ['t', 'tt'],
-  ['ey', 'y'], ['gh', 'g'], ['th', 't'], ['v', 'w'], ['qu', 'kw'], ['x', 'ks'], ['ia', 'ya'], ['ae', 'e'],
+  ['ph', 'f'],
+  ['f', 'ph'],
+  ['ck', 'k'],
+  ['c', 'k'],
+  ['k', 'c'],
+  ['z', 's'],
+  ['s', 'z'],
+  ['ie', 'y'],
+  ['y', 'ie'],
+  ['ou', 'ow'],
+  ['ei', 'ie'],
+  ['ll', 'l'],
+  ['tt', 't'],
+  ['nn', 'n'],
+  ['ss', 's'],
+  ['l', 'll'],
+  ['t', 'tt'],
+  ['ey', 'y'],
+  ['gh', 'g'],
+  ['th', 't'],
+  ['v', 'w'],
+  ['qu', 'kw'],
+  ['x', 'ks'],
+  ['ia', 'ya'],
+  ['ae', 'e'],
 ];
 
 export function phoneticVariant(s: string, rnd: Random): string | null {
@@ -167,7 +228,7 @@ function replaceOne(s: string, pairs: ReadonlyArray<readonly [string, string]>, 
 
 /** Word abbreviations seen in company names (common practice). */
 export const WORD_ABBREVIATIONS: Readonly<Record<string, readonly string[]>> = {
-  International: ['Intl', 'Int\'l', 'Intl.'],
+  International: ['Intl', "Int'l", 'Intl.'],
   Engineering: ['Eng.', 'Engg', 'Eng'],
   Technologies: ['Tech', 'Techs', 'Technol.'],
   Services: ['Svcs', 'Servs.', 'Svc'],
@@ -242,9 +303,25 @@ function whitespaceVariant(s: string, rnd: Random): string | null {
 
 /** Accented letters written without their marks, or transcribed (ü → ue), as ASCII-only systems do. */
 const DIACRITIC_FOLDS: Readonly<Record<string, readonly string[]>> = {
-  ä: ['a', 'ae'], ö: ['o', 'oe'], ü: ['u', 'ue'], ß: ['ss'], é: ['e'], è: ['e'], ê: ['e'], à: ['a'], ó: ['o'],
-  í: ['i'], á: ['a'], ñ: ['n'], ç: ['c'], å: ['a', 'aa'], ø: ['o', 'oe'], Ö: ['O', 'Oe'], Ü: ['U', 'Ue'],
-  Ä: ['A', 'Ae'], É: ['E'],
+  ä: ['a', 'ae'],
+  ö: ['o', 'oe'],
+  ü: ['u', 'ue'],
+  ß: ['ss'],
+  é: ['e'],
+  è: ['e'],
+  ê: ['e'],
+  à: ['a'],
+  ó: ['o'],
+  í: ['i'],
+  á: ['a'],
+  ñ: ['n'],
+  ç: ['c'],
+  å: ['a', 'aa'],
+  ø: ['o', 'oe'],
+  Ö: ['O', 'Oe'],
+  Ü: ['U', 'Ue'],
+  Ä: ['A', 'Ae'],
+  É: ['E'],
 };
 
 function foldDiacritics(s: string, rnd: Random): string | null {

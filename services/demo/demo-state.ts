@@ -5,7 +5,14 @@
  */
 import type { Kysely } from 'kysely';
 import type { Database } from '../../db/types.ts';
-import { changesSince, contractTextsOfSource, firstFinishedIngest, mentionIdsOfSource, registerContents, type RegisterContents } from '../../db/queries/register-contents.ts';
+import {
+  changesSince,
+  contractTextsOfSource,
+  firstFinishedIngest,
+  mentionIdsOfSource,
+  registerContents,
+  type RegisterContents,
+} from '../../db/queries/register-contents.ts';
 import { countOf } from '../cli/count-words.ts';
 import { CONTRACT_SOURCE, MENTION_SOURCE, type Scenario } from './scenario/index.ts';
 

@@ -16,16 +16,7 @@ import {
   type HardNegativeName,
   type SeriesPosition,
 } from './hard-negatives.ts';
-import {
-  DESCRIPTORS,
-  ENDINGS,
-  INDUSTRIES,
-  JURISDICTIONS,
-  LEGAL_FORMS,
-  LOCAL_INDUSTRIES,
-  SYLLABLES,
-  countryOf,
-} from './name-parts.ts';
+import { DESCRIPTORS, ENDINGS, INDUSTRIES, JURISDICTIONS, LEGAL_FORMS, LOCAL_INDUSTRIES, SYLLABLES, countryOf } from './name-parts.ts';
 
 export interface GeneratedNameRow {
   /** Shared by every variant of one invented organisation (the ground truth). */
@@ -171,7 +162,7 @@ export function corePermutation(seed: number): { coreOf: (i: number) => number; 
   const inverse = modInverse(BigInt(a), n);
   return {
     coreOf: (i) => Number((BigInt(a) * BigInt(i) + BigInt(b)) % n),
-    indexOf: (core) => Number((((BigInt(core) - BigInt(b)) % n + n) * inverse) % n),
+    indexOf: (core) => Number(((((BigInt(core) - BigInt(b)) % n) + n) * inverse) % n),
   };
 }
 
@@ -260,7 +251,15 @@ function imitation(
 
 function hardNegative(of: InventedOrganisation, index: number, kind: HardNegativeKind, made: HardNegativeName | undefined): InventedOrganisation | undefined {
   if (!made) return undefined;
-  return { entityId: entityIdOf(index), country: made.country, parts: made.parts, siblingOf: of.entityId, siblingKind: kind, marker: made.marker, series: made.series };
+  return {
+    entityId: entityIdOf(index),
+    country: made.country,
+    parts: made.parts,
+    siblingOf: of.entityId,
+    siblingKind: kind,
+    marker: made.marker,
+    series: made.series,
+  };
 }
 
 /**
@@ -307,17 +306,35 @@ function siblingOf(org: InventedOrganisation, index: number, rnd: Random): Inven
   const others = families.filter((f) => f !== org.parts.family);
   if (others.length > 0 && rnd.chance(0.5)) {
     const family = rnd.pick(others);
-    return { entityId: entityIdOf(index), country: org.country, siblingOf: org.entityId, siblingKind: 'legal_form', parts: { ...org.parts, form: family.canonical, family } };
+    return {
+      entityId: entityIdOf(index),
+      country: org.country,
+      siblingOf: org.entityId,
+      siblingKind: 'legal_form',
+      parts: { ...org.parts, form: family.canonical, family },
+    };
   }
   const country = rnd.pick(JURISDICTIONS.filter((j) => countryOf(j.code) !== countryOf(org.country))).code;
   const family = LEGAL_FORMS[countryOf(country)]![0]!;
   // The comma before the form is a US habit ("Belpelmore Logistics, Inc."): kept only for a US sibling.
   const comma = countryOf(country) === 'US' && org.parts.comma;
-  return { entityId: entityIdOf(index), country, siblingOf: org.entityId, siblingKind: 'jurisdiction', parts: { ...org.parts, form: family.canonical, family, comma } };
+  return {
+    entityId: entityIdOf(index),
+    country,
+    siblingOf: org.entityId,
+    siblingKind: 'jurisdiction',
+    parts: { ...org.parts, form: family.canonical, family, comma },
+  };
 }
 
 function originalRow(org: InventedOrganisation): GeneratedNameRow {
-  const row: GeneratedNameRow = { entityId: org.entityId, name: renderName(org.parts), country: org.country, variantKind: 'original', siblingOf: org.siblingOf };
+  const row: GeneratedNameRow = {
+    entityId: org.entityId,
+    name: renderName(org.parts),
+    country: org.country,
+    variantKind: 'original',
+    siblingOf: org.siblingOf,
+  };
   if (org.siblingKind) row.siblingKind = org.siblingKind;
   return row;
 }
@@ -358,7 +375,12 @@ function applySome(parts: NameParts, rnd: Random, mix: NameMix, not: VariantKind
 }
 
 export function pickJurisdiction(rnd: Random): string {
-  return JURISDICTIONS[weightedIndex(JURISDICTIONS.map((j) => j.weight), rnd)]!.code;
+  return JURISDICTIONS[
+    weightedIndex(
+      JURISDICTIONS.map((j) => j.weight),
+      rnd,
+    )
+  ]!.code;
 }
 
 function capitalise(s: string): string {

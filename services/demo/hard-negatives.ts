@@ -62,18 +62,54 @@ export const REGION_QUALIFIERS = ['Asia', 'Europe', 'Asia Pacific', 'Americas', 
 /** Cities where a branch sits, by jurisdiction: the local spelling, then the English one. */
 export const BRANCH_CITIES: Readonly<Record<string, ReadonlyArray<readonly [string, string]>>> = {
   'US-DE': [['Wilmington', 'Wilmington']],
-  'US-CA': [['San Francisco', 'San Francisco'], ['Los Angeles', 'Los Angeles']],
+  'US-CA': [
+    ['San Francisco', 'San Francisco'],
+    ['Los Angeles', 'Los Angeles'],
+  ],
   'US-NY': [['New York', 'New York']],
-  'US-TX': [['Houston', 'Houston'], ['Dallas', 'Dallas']],
-  GB: [['London', 'London'], ['Manchester', 'Manchester'], ['Edinburgh', 'Edinburgh']],
-  DE: [['Frankfurt am Main', 'Frankfurt'], ['München', 'Munich'], ['Hamburg', 'Hamburg'], ['Düsseldorf', 'Dusseldorf']],
-  FR: [['Paris', 'Paris'], ['Lyon', 'Lyon']],
-  NL: [['Amsterdam', 'Amsterdam'], ['Rotterdam', 'Rotterdam']],
-  JP: [['Tokyo', 'Tokyo'], ['Osaka', 'Osaka']],
-  AU: [['Sydney', 'Sydney'], ['Melbourne', 'Melbourne']],
-  SE: [['Stockholm', 'Stockholm'], ['Göteborg', 'Gothenburg']],
-  IT: [['Milano', 'Milan'], ['Roma', 'Rome']],
-  ES: [['Madrid', 'Madrid'], ['Barcelona', 'Barcelona']],
+  'US-TX': [
+    ['Houston', 'Houston'],
+    ['Dallas', 'Dallas'],
+  ],
+  GB: [
+    ['London', 'London'],
+    ['Manchester', 'Manchester'],
+    ['Edinburgh', 'Edinburgh'],
+  ],
+  DE: [
+    ['Frankfurt am Main', 'Frankfurt'],
+    ['München', 'Munich'],
+    ['Hamburg', 'Hamburg'],
+    ['Düsseldorf', 'Dusseldorf'],
+  ],
+  FR: [
+    ['Paris', 'Paris'],
+    ['Lyon', 'Lyon'],
+  ],
+  NL: [
+    ['Amsterdam', 'Amsterdam'],
+    ['Rotterdam', 'Rotterdam'],
+  ],
+  JP: [
+    ['Tokyo', 'Tokyo'],
+    ['Osaka', 'Osaka'],
+  ],
+  AU: [
+    ['Sydney', 'Sydney'],
+    ['Melbourne', 'Melbourne'],
+  ],
+  SE: [
+    ['Stockholm', 'Stockholm'],
+    ['Göteborg', 'Gothenburg'],
+  ],
+  IT: [
+    ['Milano', 'Milan'],
+    ['Roma', 'Rome'],
+  ],
+  ES: [
+    ['Madrid', 'Madrid'],
+    ['Barcelona', 'Barcelona'],
+  ],
 };
 
 /**
@@ -129,7 +165,14 @@ export function placeQualified(parent: NameParts, country: string, rnd: Random):
 export function branchOf(parent: NameParts, country: string, rnd: Random): HardNegativeName | undefined {
   if (!parent.form || !parent.family) return undefined;
   const others = JURISDICTIONS.filter((j) => j.code !== country);
-  const where = rnd.chance(0.5) ? country : others[weightedIndex(others.map((j) => j.weight), rnd)]!.code;
+  const where = rnd.chance(0.5)
+    ? country
+    : others[
+        weightedIndex(
+          others.map((j) => j.weight),
+          rnd,
+        )
+      ]!.code;
   const [local, english] = rnd.pick(BRANCH_CITIES[where]!);
   const localPhrases = LOCAL_BRANCH_PHRASES[countryOf(where)];
   const phrase = localPhrases && rnd.chance(0.6) ? rnd.pick(localPhrases).replace('{city}', local) : ENGLISH_BRANCH_PHRASE.replace('{city}', english);
@@ -154,4 +197,3 @@ export function markerKey(s: string): string {
 export function carriesMarker(name: string, marker: string): boolean {
   return ` ${markerKey(name)} `.includes(` ${markerKey(marker)} `);
 }
-

@@ -34,8 +34,7 @@ const STAGE_LABEL: Record<DemoStage, [string, string]> = {
   vendor_master: ['vendor master', 'rows'],
 };
 
-export const CAUTION =
-  'Links are proposals: verify them against official registers before they drive payments or notices.';
+export const CAUTION = 'Links are proposals: verify them against official registers before they drive payments or notices.';
 
 export async function runDemoCommand(options: DemoCliOptions): Promise<void> {
   const { isPostgresUrl, MEMORY_TARGET, resolveTarget, DEFAULT_DATA_DIR } = await import('../../db/open-database.ts');
@@ -43,7 +42,9 @@ export async function runDemoCommand(options: DemoCliOptions): Promise<void> {
   // The one rule every command follows: --db, else DATABASE_URL, else ./data/cpreg.
   const dbDir = withoutTrailingSlashes(resolveTarget(options.db));
   if (isPostgresUrl(dbDir) || dbDir === MEMORY_TARGET) {
-    throw new CliError(`the demo builds an embedded database, and its database (${targetOrigin(options.db)}) is ${dbDir.startsWith('memory') ? dbDir : 'a PostgreSQL URL'}: give a directory with --db (default ${DEFAULT_DATA_DIR})`);
+    throw new CliError(
+      `the demo builds an embedded database, and its database (${targetOrigin(options.db)}) is ${dbDir.startsWith('memory') ? dbDir : 'a PostgreSQL URL'}: give a directory with --db (default ${DEFAULT_DATA_DIR})`,
+    );
   }
   const filesDir = options.files ?? `${dbDir}-scenario`;
   const note = (line: string): void => {
@@ -120,7 +121,9 @@ export async function runDemoCommand(options: DemoCliOptions): Promise<void> {
 function noteEarlierDemo(dbDir: string, note: (line: string) => void): void {
   const earlier = './data/demo';
   if (!existsSync(join(earlier, 'PG_VERSION')) || existsSync(join(dbDir, 'PG_VERSION'))) return;
-  note(`cpreg demo: an earlier demo is kept in ${earlier} and left as it is; every command now uses ${dbDir} by default (move it there, or give --db ${earlier})`);
+  note(
+    `cpreg demo: an earlier demo is kept in ${earlier} and left as it is; every command now uses ${dbDir} by default (move it there, or give --db ${earlier})`,
+  );
 }
 
 function withoutTrailingSlashes(path: string): string {
@@ -150,7 +153,9 @@ async function build(db: Kysely<Database>, scenario: Scenario, filesDir: string,
   });
   current?.bar.finish();
   if (load.interrupted) {
-    note(`cpreg demo: stopped after ${load.contracts.stored + load.contracts.alreadyStored} of ${scenario.contracts.length} contracts and ${load.ingest?.counts.read ?? 0} of ${scenario.mentions.length} mentions`);
+    note(
+      `cpreg demo: stopped after ${load.contracts.stored + load.contracts.alreadyStored} of ${scenario.contracts.length} contracts and ${load.ingest?.counts.read ?? 0} of ${scenario.mentions.length} mentions`,
+    );
     return;
   }
   const s = load.seconds;
@@ -159,7 +164,9 @@ async function build(db: Kysely<Database>, scenario: Scenario, filesDir: string,
     `cpreg demo: ${load.ownEntities.added} own entities declared, ${load.contracts.stored} contracts imported from files` +
       (load.contracts.files ? ` (${load.contracts.files.pdf} PDF, ${load.contracts.files.docx} Word, ${load.contracts.files.txt} text)` : '') +
       ` with ${load.contracts.parties} parties in ${secs(s.contracts)}` +
-      (load.contracts.rejected.length > 0 ? ` (${load.contracts.rejected.length} files not imported: ${load.contracts.rejected.map((r) => `${r.path} ${r.reason}`).join('; ')})` : '') +
+      (load.contracts.rejected.length > 0
+        ? ` (${load.contracts.rejected.length} files not imported: ${load.contracts.rejected.map((r) => `${r.path} ${r.reason}`).join('; ')})`
+        : '') +
       ', ' +
       `${load.ingest?.counts.read ?? 0} mentions ingested in ${secs(s.mentions)}` +
       (load.ingest && load.ingest.counts.rejected > 0 ? ` (${load.ingest.counts.rejected} rejected: see ${load.ingest.rejectsFile})` : ''),

@@ -20,7 +20,8 @@ export function formatSummary(s: DemoSummary, where: { filesDir?: string } = {})
     '',
     '  busiest counterparties',
     ...s.busiest.map(
-      (b) => `    #${b.id} ${b.name}${b.jurisdiction ? ` (${b.jurisdiction})` : ''}: ${b.contracts} contracts, ${b.mentions} mentions — ${b.contractIds.join(', ')}${b.contracts > b.contractIds.length ? ', …' : ''}`,
+      (b) =>
+        `    #${b.id} ${b.name}${b.jurisdiction ? ` (${b.jurisdiction})` : ''}: ${b.contracts} contracts, ${b.mentions} mentions — ${b.contractIds.join(', ')}${b.contracts > b.contractIds.length ? ', …' : ''}`,
     ),
     ...vendorLines(s, where.filesDir),
     '',
@@ -61,7 +62,12 @@ function accuracyLines(title: string, a: DemoAccuracy): string[] {
       `B-cubed precision ${pct(a.bcubed.precision)}  recall ${pct(a.bcubed.recall)}  F1 ${pct(a.bcubed.f1)}`,
     `      counterparty mentions ${a.counterpartyMentions.total}: ${pct(a.assignedCorrectly)} linked to the right counterparty, ` +
       `${a.counterpartyMentions.review} in review, ${a.counterpartyMentions.other} otherwise`,
-    `      status    ${[status('own entity', st.own_entity), status('not a party', st.not_a_party), status('unbound term', st.unbound_term), status('collective', st.collective_term)]
+    `      status    ${[
+      status('own entity', st.own_entity),
+      status('not a party', st.not_a_party),
+      status('unbound term', st.unbound_term),
+      status('collective', st.collective_term),
+    ]
       .filter((x) => !x.includes(' 0/0 '))
       .join(', ')}`,
   ];

@@ -62,7 +62,12 @@ export async function loadDemo(options: LoadDemoOptions): Promise<DemoLoad> {
   const who = { actor, reason: 'demo scenario' };
   const stop = options.shouldStop ?? (() => false);
   const progress = options.onProgress ?? (() => undefined);
-  const load: DemoLoad = { interrupted: false, ownEntities: { added: 0, existing: 0 }, contracts: { stored: 0, alreadyStored: 0, parties: 0, rejected: [] }, seconds: {} };
+  const load: DemoLoad = {
+    interrupted: false,
+    ownEntities: { added: 0, existing: 0 },
+    contracts: { stored: 0, alreadyStored: 0, parties: 0, rejected: [] },
+    seconds: {},
+  };
   const timed = async (stage: DemoStage, fn: () => Promise<void>): Promise<void> => {
     const started = performance.now();
     await fn();
@@ -94,9 +99,14 @@ export async function loadDemo(options: LoadDemoOptions): Promise<DemoLoad> {
         return;
       }
       const c = written.files.get(found.path);
-      const outcome = found.kind === 'document' && c
-        ? await storeDocument(ctx, { path: found.path, externalId: c.externalId, title: c.title, text: found.text }, c.source, who, { requireParties: false })
-        : { kind: 'rejected' as const, reason: found.kind === 'rejected' ? found.reason : 'unsupported_type', detail: found.kind === 'rejected' ? found.detail : 'not a file the demo wrote' };
+      const outcome =
+        found.kind === 'document' && c
+          ? await storeDocument(ctx, { path: found.path, externalId: c.externalId, title: c.title, text: found.text }, c.source, who, { requireParties: false })
+          : {
+              kind: 'rejected' as const,
+              reason: found.kind === 'rejected' ? found.reason : 'unsupported_type',
+              detail: found.kind === 'rejected' ? found.detail : 'not a file the demo wrote',
+            };
       if (outcome.kind === 'imported') {
         load.contracts.stored++;
         load.contracts.parties += outcome.parties.length;
@@ -187,7 +197,10 @@ export async function summariseDemo(db: Kysely<Database>, scenario: Scenario, op
     .selectFrom('mention')
     .select(['source', 'external_id', 'text', 'status', 'counterparty_id', 'own_entity_id', 'contract_external_id'])
     .execute()) as MentionRow[];
-  const survivors = await survivorsOf(db, rows.flatMap((r) => (r.counterparty_id === null ? [] : [Number(r.counterparty_id)])));
+  const survivors = await survivorsOf(
+    db,
+    rows.flatMap((r) => (r.counterparty_id === null ? [] : [Number(r.counterparty_id)])),
+  );
   const ownRows = await db.selectFrom('own_entity').select(['id', 'name']).execute();
   const ownRef = new Map<number, string>();
   for (const r of ownRows) {
@@ -212,9 +225,21 @@ export async function summariseDemo(db: Kysely<Database>, scenario: Scenario, op
 
   const vendorMaster = options.vendorMaster ? await options.vendorMaster(registerIds([...mentionItems, ...parties.items])) : null;
   const [counterparties, contracts, review] = await Promise.all([
-    db.selectFrom('counterparty').select((eb) => eb.fn.countAll<string>().as('n')).where('status', '=', 'active').executeTakeFirstOrThrow(),
-    db.selectFrom('contract').select((eb) => eb.fn.countAll<string>().as('n')).where('status', '=', 'active').executeTakeFirstOrThrow(),
-    db.selectFrom('review_item').select((eb) => eb.fn.countAll<string>().as('n')).where('status', '=', 'open').executeTakeFirstOrThrow(),
+    db
+      .selectFrom('counterparty')
+      .select((eb) => eb.fn.countAll<string>().as('n'))
+      .where('status', '=', 'active')
+      .executeTakeFirstOrThrow(),
+    db
+      .selectFrom('contract')
+      .select((eb) => eb.fn.countAll<string>().as('n'))
+      .where('status', '=', 'active')
+      .executeTakeFirstOrThrow(),
+    db
+      .selectFrom('review_item')
+      .select((eb) => eb.fn.countAll<string>().as('n'))
+      .where('status', '=', 'open')
+      .executeTakeFirstOrThrow(),
   ]);
   return {
     seed: scenario.seed,
@@ -285,7 +310,8 @@ function contractPartyItems(
     const read = [...(byContract.get(c.externalId) ?? [])];
     for (const party of c.parties) {
       expected++;
-      const truth: MentionTruth = party.ref.kind === 'counterparty' ? { kind: 'counterparty', counterpartyId: party.ref.id } : { kind: 'own_entity', ownEntityId: party.ref.id };
+      const truth: MentionTruth =
+        party.ref.kind === 'counterparty' ? { kind: 'counterparty', counterpartyId: party.ref.id } : { kind: 'own_entity', ownEntityId: party.ref.id };
       const at = read.findIndex((r) => fold(r.text) === fold(party.nameInText));
       if (at < 0) {
         items.push({ truth });
@@ -328,8 +354,19 @@ async function busiestCounterparties(db: Kysely<Database>, limit: number): Promi
       .orderBy('k.external_id')
       .limit(4)
       .execute();
-    const mentions = await db.selectFrom('mention').select((eb) => eb.fn.countAll<string>().as('n')).where('counterparty_id', '=', id).executeTakeFirstOrThrow();
-    out.push({ id, name: t.canonical_name, jurisdiction: t.jurisdiction, contracts: Number(t.contracts), contractIds: contracts.map((k) => k.external_id), mentions: Number(mentions.n) });
+    const mentions = await db
+      .selectFrom('mention')
+      .select((eb) => eb.fn.countAll<string>().as('n'))
+      .where('counterparty_id', '=', id)
+      .executeTakeFirstOrThrow();
+    out.push({
+      id,
+      name: t.canonical_name,
+      jurisdiction: t.jurisdiction,
+      contracts: Number(t.contracts),
+      contractIds: contracts.map((k) => k.external_id),
+      mentions: Number(mentions.n),
+    });
   }
   return out;
 }

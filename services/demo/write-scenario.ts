@@ -22,7 +22,10 @@ export async function writeScenario(dir: string, scenarioOrSeed: Scenario | numb
   await mkdir(join(dir, 'contracts'), { recursive: true });
   const files: Array<[string, string]> = [
     ['own-entities.json', json(scenario.ownEntities)],
-    ['contracts.ndjson', scenario.contracts.map((c) => JSON.stringify({ source: c.source, externalId: c.externalId, title: c.title, text: c.text })).join('\n') + '\n'],
+    [
+      'contracts.ndjson',
+      scenario.contracts.map((c) => JSON.stringify({ source: c.source, externalId: c.externalId, title: c.title, text: c.text })).join('\n') + '\n',
+    ],
     ...scenario.contracts.map((c): [string, string] => [join('contracts', `${c.externalId}.txt`), c.text]),
     ['mentions.ndjson', scenario.mentions.map((m) => JSON.stringify(m.input)).join('\n') + '\n'],
     ['mentions.csv', mentionsCsv(scenario)],
@@ -34,7 +37,13 @@ export async function writeScenario(dir: string, scenarioOrSeed: Scenario | numb
         group: scenario.group,
         counterparties: scenario.counterparties,
         contracts: scenario.contracts.map((c) => ({ source: c.source, externalId: c.externalId, style: c.style, parties: c.parties })),
-        mentions: scenario.mentions.map((m) => ({ source: m.input.source, externalId: m.input.externalId, text: m.input.text, style: m.style, truth: m.truth })),
+        mentions: scenario.mentions.map((m) => ({
+          source: m.input.source,
+          externalId: m.input.externalId,
+          text: m.input.text,
+          style: m.style,
+          truth: m.truth,
+        })),
         vendorMaster: scenario.vendorMaster.truth,
       }),
     ],

@@ -119,7 +119,20 @@ async function* linkRows(db: Kysely<Database>): AsyncGenerator<Record<string, Va
     const rows = await db
       .selectFrom('mention as m')
       .leftJoin('counterparty as c', 'c.id', 'm.counterparty_id')
-      .select(['m.id', 'm.source', 'm.external_id', 'm.text', 'm.contract_source', 'm.contract_external_id', 'm.role', 'm.status', 'm.counterparty_id', 'c.canonical_name', 'm.score', 'm.confirmed_by'])
+      .select([
+        'm.id',
+        'm.source',
+        'm.external_id',
+        'm.text',
+        'm.contract_source',
+        'm.contract_external_id',
+        'm.role',
+        'm.status',
+        'm.counterparty_id',
+        'c.canonical_name',
+        'm.score',
+        'm.confirmed_by',
+      ])
       .where('m.id', '>', after)
       .orderBy('m.id')
       .limit(PAGE)
@@ -174,7 +187,22 @@ async function* reviewRows(db: Kysely<Database>): AsyncGenerator<Record<string, 
       .leftJoin('mention as m', 'm.id', 'r.mention_id')
       .leftJoin('counterparty as l', 'l.id', 'r.left_counterparty_id')
       .leftJoin('counterparty as rt', 'rt.id', 'r.right_counterparty_id')
-      .select(['r.id', 'r.kind', 'r.status', 'r.score', 'r.mention_id', 'm.text as mention_text', 'r.left_counterparty_id', 'l.canonical_name as left_name', 'r.right_counterparty_id', 'rt.canonical_name as right_name', 'r.decision', 'r.decided_by', 'r.reason', 'r.created_at'])
+      .select([
+        'r.id',
+        'r.kind',
+        'r.status',
+        'r.score',
+        'r.mention_id',
+        'm.text as mention_text',
+        'r.left_counterparty_id',
+        'l.canonical_name as left_name',
+        'r.right_counterparty_id',
+        'rt.canonical_name as right_name',
+        'r.decision',
+        'r.decided_by',
+        'r.reason',
+        'r.created_at',
+      ])
       .where('r.id', '>', after)
       .orderBy('r.id')
       .limit(PAGE)
@@ -208,11 +236,13 @@ const SOURCES: Record<ExportKind, (db: Kysely<Database>) => AsyncGenerator<Recor
 };
 
 export function csvLine(columns: Column[], row: Record<string, Value>): string {
-  return stringify([columns.map((c) => {
-    const v = row[c.name];
-    if (v === null || v === undefined) return '';
-    return c.text ? neutralise(String(v)) : String(v);
-  })]);
+  return stringify([
+    columns.map((c) => {
+      const v = row[c.name];
+      if (v === null || v === undefined) return '';
+      return c.text ? neutralise(String(v)) : String(v);
+    }),
+  ]);
 }
 
 /** The export as text chunks (one page of rows each); `onRows` counts rows for progress. */

@@ -242,7 +242,10 @@ function replacer(secrets: Secrets): (value: unknown) => unknown {
 function containsAny(expr: ReturnType<typeof sql>, secrets: Secrets) {
   const needles = [...secrets.keys()].filter((s) => s.length >= MIN_SECRET).map((s) => JSON.stringify(s).slice(1, -1));
   if (needles.length === 0) return sql<boolean>`false`;
-  return sql<boolean>`(${sql.join(needles.map((n) => sql`strpos(${expr}, ${n}) > 0`), sql` OR `)})`;
+  return sql<boolean>`(${sql.join(
+    needles.map((n) => sql`strpos(${expr}, ${n}) > 0`),
+    sql` OR `,
+  )})`;
 }
 
 async function rewriteTable(
@@ -261,7 +264,8 @@ async function rewriteTable(
         : table === 'mention' && mentionIds.length > 0
           ? sql`id IN (${sql.join(mentionIds)})`
           : sql`false`;
-  const result = await sql<Row>`SELECT * FROM ${sql.table(table)} t WHERE ${own} OR ${containsAny(sql`row_to_json(t)::text`, secrets)} ORDER BY id FOR UPDATE`.execute(trx);
+  const result =
+    await sql<Row>`SELECT * FROM ${sql.table(table)} t WHERE ${own} OR ${containsAny(sql`row_to_json(t)::text`, secrets)} ORDER BY id FOR UPDATE`.execute(trx);
   const changed: Row[] = [];
   for (const raw of result.rows) {
     const before = canonicalRow(table, raw);
@@ -281,12 +285,21 @@ async function rewriteTable(
 
 async function rebuildKeys(trx: Transaction<Database>, names: Row[], ctx: RegisterContext): Promise<void> {
   for (const row of names) {
-    await trx.deleteFrom('blocking_key').where('name_id', '=', row.id as number).execute();
+    await trx
+      .deleteFrom('blocking_key')
+      .where('name_id', '=', row.id as number)
+      .execute();
     await insertNameKeys(trx, row, ctx.derived);
   }
 }
 
-async function rewriteHistory(trx: Transaction<Database>, cluster: number[], mentionIds: number[], secrets: Secrets, replace: (value: unknown) => unknown): Promise<number> {
+async function rewriteHistory(
+  trx: Transaction<Database>,
+  cluster: number[],
+  mentionIds: number[],
+  secrets: Secrets,
+  replace: (value: unknown) => unknown,
+): Promise<number> {
   const result = await sql<{ id: number; payload: unknown }>`
     SELECT id, payload FROM history_event
     WHERE counterparty_ids && ${sql.val(cluster)}::bigint[]
@@ -303,7 +316,11 @@ async function rewriteHistory(trx: Transaction<Database>, cluster: number[], men
     const current = await trx.selectFrom('history_event').select('reason').where('id', '=', Number(row.id)).executeTakeFirstOrThrow();
     const reason = current.reason === null ? null : (replace(current.reason) as string);
     if (JSON.stringify(rewritten) === JSON.stringify(payload) && reason === current.reason) continue;
-    await trx.updateTable('history_event').set({ payload: JSON.stringify(rewritten), reason }).where('id', '=', Number(row.id)).execute();
+    await trx
+      .updateTable('history_event')
+      .set({ payload: JSON.stringify(rewritten), reason })
+      .where('id', '=', Number(row.id))
+      .execute();
     count++;
   }
   return count;
@@ -313,7 +330,9 @@ async function rewriteHistory(trx: Transaction<Database>, cluster: number[], men
 async function rewriteStoredAnswers(trx: Transaction<Database>, secrets: Secrets, replace: (value: unknown) => unknown): Promise<number> {
   let count = 0;
   const records = await sql<{ key_id: string; idempotency_key: string; response: unknown }>`
-    SELECT key_id, idempotency_key, response FROM idempotency_record WHERE response IS NOT NULL AND ${containsAny(sql`response::text`, secrets)} FOR UPDATE`.execute(trx);
+    SELECT key_id, idempotency_key, response FROM idempotency_record WHERE response IS NOT NULL AND ${containsAny(sql`response::text`, secrets)} FOR UPDATE`.execute(
+    trx,
+  );
   for (const r of records.rows) {
     const response = typeof r.response === 'string' ? JSON.parse(r.response) : r.response;
     await trx
@@ -325,7 +344,9 @@ async function rewriteStoredAnswers(trx: Transaction<Database>, secrets: Secrets
     count++;
   }
   const jobs = await sql<{ id: number; params: unknown; result: unknown; plan: unknown }>`
-    SELECT id, params, result, plan FROM job WHERE ${containsAny(sql`coalesce(result::text, '') || params::text || coalesce(plan::text, '')`, secrets)} FOR UPDATE`.execute(trx);
+    SELECT id, params, result, plan FROM job WHERE ${containsAny(sql`coalesce(result::text, '') || params::text || coalesce(plan::text, '')`, secrets)} FOR UPDATE`.execute(
+    trx,
+  );
   for (const j of jobs.rows) {
     const parse = (v: unknown) => (typeof v === 'string' ? JSON.parse(v) : v);
     await trx
@@ -344,11 +365,18 @@ async function rewriteStoredAnswers(trx: Transaction<Database>, secrets: Secrets
     SELECT job_id, chunk_no, rows FROM job_chunk WHERE ${containsAny(sql`rows::text`, secrets)} FOR UPDATE`.execute(trx);
   for (const c of chunks.rows) {
     const rows = typeof c.rows === 'string' ? JSON.parse(c.rows) : c.rows;
-    await trx.updateTable('job_chunk').set({ rows: JSON.stringify(replace(rows)) }).where('job_id', '=', Number(c.job_id)).where('chunk_no', '=', c.chunk_no).execute();
+    await trx
+      .updateTable('job_chunk')
+      .set({ rows: JSON.stringify(replace(rows)) })
+      .where('job_id', '=', Number(c.job_id))
+      .where('chunk_no', '=', c.chunk_no)
+      .execute();
     count++;
   }
   const parts = await sql<{ job_id: number; partition_no: number; items: unknown; result: unknown }>`
-    SELECT job_id, partition_no, items, result FROM job_partition WHERE ${containsAny(sql`items::text || coalesce(result::text, '')`, secrets)} FOR UPDATE`.execute(trx);
+    SELECT job_id, partition_no, items, result FROM job_partition WHERE ${containsAny(sql`items::text || coalesce(result::text, '')`, secrets)} FOR UPDATE`.execute(
+    trx,
+  );
   for (const p of parts.rows) {
     const parse = (v: unknown) => (typeof v === 'string' ? JSON.parse(v) : v);
     await trx

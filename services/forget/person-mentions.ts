@@ -56,7 +56,11 @@ export async function mentionsNamingPerson(trx: Transaction<Database>, cluster: 
     if (!short.surname) continue;
     // Searched both folded and as written: lower() keeps accents, so "bréval" is found only as itself.
     surnames.add(short.surname);
-    const written = name.toLowerCase().split(/[^\p{L}\p{N}]+/u).filter((t) => t !== '').pop();
+    const written = name
+      .toLowerCase()
+      .split(/[^\p{L}\p{N}]+/u)
+      .filter((t) => t !== '')
+      .pop();
     if (written) surnames.add(written);
   }
   if (surnames.size === 0) return [...found].sort((a, b) => a - b);
@@ -66,7 +70,12 @@ export async function mentionsNamingPerson(trx: Transaction<Database>, cluster: 
     .select(['id', 'text'])
     .where('counterparty_id', 'is', null)
     .where('own_entity_id', 'is', null)
-    .where(sql<boolean>`(${sql.join([...surnames].map((s) => sql`strpos(lower(text), ${s}) > 0`), sql` OR `)})`)
+    .where(
+      sql<boolean>`(${sql.join(
+        [...surnames].map((s) => sql`strpos(lower(text), ${s}) > 0`),
+        sql` OR `,
+      )})`,
+    )
     .execute();
   for (const row of unlinked) if (forms.has(nameTokens(row.text).join(' '))) found.add(Number(row.id));
   return [...found].sort((a, b) => a - b);

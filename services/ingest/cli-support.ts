@@ -10,7 +10,12 @@ import { countOf, singularOf } from '../cli/count-words.ts';
 export { countOf, pluralOf, singularOf } from '../cli/count-words.ts';
 
 /** Opens the command's database (services/cli/open-command-database.ts: which one, created or refused), migrated; runs `fn`; closes. */
-export async function withDatabase<T>(target: string | undefined, command: string, access: 'reads' | 'writes', fn: (db: Kysely<Database>) => Promise<T>): Promise<T> {
+export async function withDatabase<T>(
+  target: string | undefined,
+  command: string,
+  access: 'reads' | 'writes',
+  fn: (db: Kysely<Database>) => Promise<T>,
+): Promise<T> {
   const { openCommandDatabase } = await import('../cli/open-command-database.ts');
   const database = await openCommandDatabase(target, command, { writes: access === 'writes' });
   try {
@@ -82,7 +87,11 @@ export function progressReporter(label: string, unit: string, out: NodeJS.WriteS
         out.write(`\r${label} ${bar}${pct} ${count}${tail ? ` (${tail})` : ''}${state.note ? ` ${state.note}` : ''}\u001b[K`);
       } else if (now - lastLine >= intervalMs || lastLine === 0) {
         lastLine = now;
-        const parts = [rateText, state.fraction === undefined ? '' : `${(state.fraction * 100).toFixed(0)}%`, judged ? `about ${duration(left)} left` : ''].filter(Boolean);
+        const parts = [
+          rateText,
+          state.fraction === undefined ? '' : `${(state.fraction * 100).toFixed(0)}%`,
+          judged ? `about ${duration(left)} left` : '',
+        ].filter(Boolean);
         out.write(`${label}: ${count}${parts.length > 0 ? ` (${parts.join(', ')})` : ''}${state.note ? `, ${state.note}` : ''}\n`);
       }
     },

@@ -8,7 +8,19 @@ import { createHash } from 'node:crypto';
 import { mentionKey, IDENTIFIER_SCHEMES, type IdentifierScheme, type MentionInput } from '../../resolvers/vocabulary.ts';
 import { schemeOfRegistrationNumber, schemeOfTaxId } from '../../resolvers/identifiers/index.ts';
 
-export const MENTION_FIELDS = ['externalId', 'text', 'contract', 'contractSource', 'role', 'country', 'address', 'identifiers', 'taxId', 'registrationNumber', 'source'] as const;
+export const MENTION_FIELDS = [
+  'externalId',
+  'text',
+  'contract',
+  'contractSource',
+  'role',
+  'country',
+  'address',
+  'identifiers',
+  'taxId',
+  'registrationNumber',
+  'source',
+] as const;
 export type MentionField = (typeof MENTION_FIELDS)[number];
 
 /** Column names recognised without --map (compared lower-case without spaces, _ and -). */
@@ -47,7 +59,10 @@ export function parseMapOptions(options: readonly string[]): FieldMap {
     const field = option.slice(0, at).trim();
     const column = option.slice(at + 1).trim();
     const known = [...MENTION_FIELDS, ...IDENTIFIER_SCHEMES] as readonly string[];
-    if (!known.includes(field)) throw new MappingError(`--map ${option}: unknown field "${field}"; fields: ${MENTION_FIELDS.join(', ')}, or an identifier scheme (${IDENTIFIER_SCHEMES.join(', ')})`);
+    if (!known.includes(field))
+      throw new MappingError(
+        `--map ${option}: unknown field "${field}"; fields: ${MENTION_FIELDS.join(', ')}, or an identifier scheme (${IDENTIFIER_SCHEMES.join(', ')})`,
+      );
     map[field as MentionField] = column;
   }
   return map;
@@ -111,7 +126,10 @@ export function parseIdentifierCell(cell: string): { scheme: string; value: stri
 }
 
 export function rowIdentity(source: string, values: readonly string[]): string {
-  return `row-${createHash('sha256').update(JSON.stringify([source, ...values])).digest('hex').slice(0, 32)}`;
+  return `row-${createHash('sha256')
+    .update(JSON.stringify([source, ...values]))
+    .digest('hex')
+    .slice(0, 32)}`;
 }
 
 /** A CSV row (by column) as a mention. */

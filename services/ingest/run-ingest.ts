@@ -117,7 +117,11 @@ export async function* rowsOf(
     for await (const read of ndjsonLines(stream as AsyncIterable<Buffer | string>)) {
       const line = read.line;
       if ('tooLong' in read) {
-        yield { line, raw: `${read.head}…`, result: { ok: false, reason: `the line is longer than ${MAX_NDJSON_LINE_BYTES} bytes (1 MB), the limit of an NDJSON line` } };
+        yield {
+          line,
+          raw: `${read.head}…`,
+          result: { ok: false, reason: `the line is longer than ${MAX_NDJSON_LINE_BYTES} bytes (1 MB), the limit of an NDJSON line` },
+        };
         continue;
       }
       if (read.notUtf8) {
@@ -176,7 +180,8 @@ export async function* rowsOf(
       header = record.map((h) => h.trim());
       // Two columns of one name would leave each row holding only the last one's cell: the file is refused.
       const twice = duplicateColumn(header);
-      if (twice) throw new MappingError(`the CSV header names the column "${twice.name}" twice (columns ${twice.first} and ${twice.second}); rename or remove one`);
+      if (twice)
+        throw new MappingError(`the CSV header names the column "${twice.name}" twice (columns ${twice.first} and ${twice.second}); rename or remove one`);
       columns = resolveColumns(header, map);
       for (const warning of columnWarnings(header, columns)) onWarning(warning);
       continue;
@@ -204,7 +209,11 @@ export async function ingestFile(options: IngestOptions): Promise<IngestSummary>
   const ctx = options.ctx ?? createRegisterContext(options.db);
   const batchSize = options.batchSize ?? 1000;
   const started = performance.now();
-  const runId = await insertIngestRun(options.db, { source: options.source, inputName: options.file.split(/[\\/]/).pop() ?? options.file, actor: options.actor });
+  const runId = await insertIngestRun(options.db, {
+    source: options.source,
+    inputName: options.file.split(/[\\/]/).pop() ?? options.file,
+    actor: options.actor,
+  });
   const counts = emptyCounts();
   const rejects = new RejectsWriter(options.rejectsFile);
   const stream = createReadStream(options.file);
@@ -225,7 +234,10 @@ export async function ingestFile(options: IngestOptions): Promise<IngestSummary>
     if (batch.length === 0) return;
     // Resuming: rows stored before with the same content are counted with one query per batch instead of one
     // per row (the register would answer the same: already ingested, nothing done).
-    const stored = await storedHashes(options.db, batch.map((b) => b.mention));
+    const stored = await storedHashes(
+      options.db,
+      batch.map((b) => b.mention),
+    );
     const fresh = batch.filter((b) => {
       const hash = stored.get(mentionKey(b.mention.source, b.mention.externalId));
       if (hash === undefined) return true;
@@ -238,7 +250,14 @@ export async function ingestFile(options: IngestOptions): Promise<IngestSummary>
       counts.already_ingested++;
       return false;
     });
-    const results = fresh.length === 0 ? [] : await resolveBatch(ctx, fresh.map((b) => b.mention), { actor: options.actor, reason: `ingest run ${runId}` });
+    const results =
+      fresh.length === 0
+        ? []
+        : await resolveBatch(
+            ctx,
+            fresh.map((b) => b.mention),
+            { actor: options.actor, reason: `ingest run ${runId}` },
+          );
     results.forEach((result, i) => {
       const row = fresh[i]!;
       counts.read++;
@@ -299,5 +318,12 @@ export async function ingestFile(options: IngestOptions): Promise<IngestSummary>
   const gap = unaccounted(counts);
   await finishIngestRun(options.db, runId, { status, counts, error: gap === 0 ? null : `${gap} rows unaccounted` });
   if (gap !== 0) throw new Error(`ingest run ${runId}: ${gap} rows read but not accounted for (a defect: please report it)`);
-  return { ...progress(), bytesRead: status === 'finished' ? totalBytes : stream.bytesRead, status, rejectsFile: rejects.written > 0 ? options.rejectsFile : null, unaccounted: gap, warnings };
+  return {
+    ...progress(),
+    bytesRead: status === 'finished' ? totalBytes : stream.bytesRead,
+    status,
+    rejectsFile: rejects.written > 0 ? options.rejectsFile : null,
+    unaccounted: gap,
+    warnings,
+  };
 }

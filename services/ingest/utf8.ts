@@ -13,7 +13,7 @@ const fatalDecoder = new TextDecoder('utf-8', { fatal: true, ignoreBOM: true });
  * exclude overlong forms (C0, C1, E0 80..9F, F0 80..8F), surrogates (ED A0..BF) and values past U+10FFFF.
  */
 export function firstIllFormedOffset(bytes: Uint8Array): number {
-  for (let i = 0; i < bytes.length; ) {
+  for (let i = 0; i < bytes.length;) {
     const length = sequenceAt(bytes, i);
     if (length <= 0) return i;
     i += length;
@@ -82,7 +82,11 @@ export function declaredCharset(contentType: string | undefined): string | undef
     const eq = part.indexOf('=');
     if (eq < 0) continue;
     if (part.slice(0, eq).trim().toLowerCase() !== 'charset') continue;
-    return part.slice(eq + 1).trim().replace(/^"(.*)"$/, '$1').toLowerCase();
+    return part
+      .slice(eq + 1)
+      .trim()
+      .replace(/^"(.*)"$/, '$1')
+      .toLowerCase();
   }
   return undefined;
 }

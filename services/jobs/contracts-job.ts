@@ -7,7 +7,17 @@
  * transaction, under the register's row locks and retries. A partition run again (a retry after its worker died)
  * finds the documents it had stored unchanged: the counts still reconcile.
  */
-import { chunksOf, deleteChunks, finishPartition, insertPartitions, partitionResults, readJob, readPartition, startPartition, updateJob } from '../../db/queries/jobs.ts';
+import {
+  chunksOf,
+  deleteChunks,
+  finishPartition,
+  insertPartitions,
+  partitionResults,
+  readJob,
+  readPartition,
+  startPartition,
+  updateJob,
+} from '../../db/queries/jobs.ts';
 import type { FileReject } from '../../resolvers/files/index.ts';
 import { storeDocument } from '../contract-files/store-document.ts';
 import { addTally, countOutcome, countRejected, emptyTally, unaccounted, type ImportTally, type ImportedContract } from '../contract-files/tally.ts';
@@ -87,7 +97,14 @@ export async function runContractsPartition(deps: JobDeps, jobId: number, partit
       if (outcome.kind === 'rejected') rejected.push({ path: doc.path, reason: outcome.reason, detail: outcome.detail });
       if (outcome.kind === 'imported') contracts.push({ path: doc.path, contractId: outcome.contractId, change: outcome.change, parties: outcome.parties });
     }
-    const result: PartitionResult = { tally, contracts, rejected, elapsedMs: Math.round(performance.now() - started), attempt: part.attempts + 1, worker: deps.worker };
+    const result: PartitionResult = {
+      tally,
+      contracts,
+      rejected,
+      elapsedMs: Math.round(performance.now() - started),
+      attempt: part.attempts + 1,
+      worker: deps.worker,
+    };
     await deps.db.transaction().execute(async (trx) => {
       await readJob(trx, jobId, { forUpdate: true });
       await finishPartition(trx, jobId, partitionNo, result);

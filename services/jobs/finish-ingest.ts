@@ -79,7 +79,9 @@ export async function finishIngest(deps: JobDeps, jobId: number): Promise<void> 
 async function mergeAcrossPartitions(deps: JobDeps, job: JobRow, crossPairs: readonly CrossPair[]): Promise<CrossMerge[]> {
   if (crossPairs.length === 0) return [];
   const refs = crossPairs.flatMap(([a, b]) => [a, b].map(([source, externalId]) => ({ source, externalId })));
-  const cpOf = new Map([...(await storedMentionsByRef(deps.db, refs))].flatMap(([key, m]) => (m.counterpartyId === null ? [] : [[key, m.counterpartyId] as const])));
+  const cpOf = new Map(
+    [...(await storedMentionsByRef(deps.db, refs))].flatMap(([key, m]) => (m.counterpartyId === null ? [] : [[key, m.counterpartyId] as const])),
+  );
   const best = new Map<string, ScoredEdge>();
   for (const [a, b, score] of crossPairs) {
     const x = cpOf.get(mentionKey(a[0], a[1]));
@@ -97,7 +99,12 @@ async function mergeAcrossPartitions(deps: JobDeps, job: JobRow, crossPairs: rea
   const cannot: [string, string][] = [];
   for (let i = 0; i < older.length; i++) for (let j = i + 1; j < older.length; j++) cannot.push([`cp:${older[i]}`, `cp:${older[j]}`]);
   const { model } = await currentModel(deps.db);
-  const clusters = clusterRecords(ids.map((id) => `cp:${id}`), [...best.values()], cannot, clusterRulesOf(model));
+  const clusters = clusterRecords(
+    ids.map((id) => `cp:${id}`),
+    [...best.values()],
+    cannot,
+    clusterRulesOf(model),
+  );
   const out: CrossMerge[] = [];
   for (const cluster of clusters) {
     if (cluster.length < 2) continue;
@@ -105,7 +112,11 @@ async function mergeAcrossPartitions(deps: JobDeps, job: JobRow, crossPairs: rea
     const survivorId = members.find((id) => !createdByJob.has(id)) ?? members[0]!;
     const mergedIds = members.filter((id) => id !== survivorId);
     try {
-      const merged = await mergeCounterparties(deps.ctx, { ids: members, survivorId, reason: `job ${job.id}: one entity's mentions were resolved in different partitions` }, { actor: job.actor });
+      const merged = await mergeCounterparties(
+        deps.ctx,
+        { ids: members, survivorId, reason: `job ${job.id}: one entity's mentions were resolved in different partitions` },
+        { actor: job.actor },
+      );
       out.push({ survivorId, mergedIds: merged.mergedIds, eventId: merged.eventId });
     } catch (error) {
       if (!(error instanceof RegisterError)) throw error;

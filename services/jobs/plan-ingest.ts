@@ -97,7 +97,10 @@ export async function planIngest(deps: JobDeps, jobId: number): Promise<{ partit
     }
   }
   // Rows stored before with the same content need no partition (a resumed or repeated upload).
-  const stored = await storedHashes(deps.db, valid.map((v) => v.prepared.input));
+  const stored = await storedHashes(
+    deps.db,
+    valid.map((v) => v.prepared.input),
+  );
   const fresh = valid.filter((v) => {
     const same = stored.get(mentionKey(v.prepared.input.source, v.prepared.input.externalId)) === v.prepared.contentHash;
     if (same) {
@@ -116,7 +119,10 @@ export async function planIngest(deps: JobDeps, jobId: number): Promise<{ partit
   }));
   const { model } = await currentModel(deps.db);
   // Token rarity over the register and the whole job, frozen for the partitions (register/matching/idf.ts).
-  const registerDf = await documentFrequencies(deps.db, records.flatMap((r) => r.analysis.tokens));
+  const registerDf = await documentFrequencies(
+    deps.db,
+    records.flatMap((r) => r.analysis.tokens),
+  );
   const registerNames = await registerNameCount(deps.db);
   const jobBasis = basisOf(records.map((r) => r.analysis.tokens));
   const idf = idfFromCounts(registerDf, registerNames, jobBasis);
@@ -129,7 +135,10 @@ export async function planIngest(deps: JobDeps, jobId: number): Promise<{ partit
     if (scores[k]! >= model.linkAt) linkingPairs++;
   }
   const partitionSize = Number(job.params.partitionSize ?? PARTITION_DEFAULTS.partitionSize);
-  const cut = partitionRecords(records.length, pairs.left.subarray(0, pairs.count), pairs.right.subarray(0, pairs.count), scores, { linkAt: model.linkAt, targetSize: partitionSize });
+  const cut = partitionRecords(records.length, pairs.left.subarray(0, pairs.count), pairs.right.subarray(0, pairs.count), scores, {
+    linkAt: model.linkAt,
+    targetSize: partitionSize,
+  });
   const partitions: PartitionItem[][] = Array.from({ length: cut.count }, () => []);
   const at = new Int32Array(fresh.length);
   fresh.forEach((v, i) => {

@@ -56,7 +56,10 @@ export async function runIngestPartition(deps: JobDeps, jobId: number, partition
     const items = part.items as PartitionItem[];
     const counts = emptyCounts() as Record<string, number>;
     const rejected: { line: number; reason: string }[] = [];
-    const stored = await storedHashes(deps.db, items.map((i) => i.mention));
+    const stored = await storedHashes(
+      deps.db,
+      items.map((i) => i.mention),
+    );
     const fresh = items.filter((i) => {
       const hash = stored.get(mentionKey(i.mention.source, i.mention.externalId));
       if (hash !== undefined && prepareMention(i.mention).contentHash === hash) {
@@ -66,7 +69,15 @@ export async function runIngestPartition(deps: JobDeps, jobId: number, partition
       }
       return true;
     });
-    const results = fresh.length === 0 ? [] : await resolveBatch(deps.ctx, fresh.map((i) => i.mention), { actor: job.actor, reason: `job ${jobId} partition ${partitionNo}` }, { ...plannedPairs(items), ...frozenRarity(job.plan, items) });
+    const results =
+      fresh.length === 0
+        ? []
+        : await resolveBatch(
+            deps.ctx,
+            fresh.map((i) => i.mention),
+            { actor: job.actor, reason: `job ${jobId} partition ${partitionNo}` },
+            { ...plannedPairs(items), ...frozenRarity(job.plan, items) },
+          );
     results.forEach((result, i) => {
       counts.read!++;
       if (result.status === 'rejected') {
@@ -75,7 +86,14 @@ export async function runIngestPartition(deps: JobDeps, jobId: number, partition
       } else if (result.alreadyIngested) counts.already_ingested!++;
       else counts[result.status] = (counts[result.status] ?? 0) + 1;
     });
-    const result: PartitionResult = { counts, rejected, elapsedMs: Math.round(performance.now() - started), attempt: part.attempts + 1, worker: deps.worker, members: items.map((i) => [i.mention.source, i.mention.externalId]) };
+    const result: PartitionResult = {
+      counts,
+      rejected,
+      elapsedMs: Math.round(performance.now() - started),
+      attempt: part.attempts + 1,
+      worker: deps.worker,
+      members: items.map((i) => [i.mention.source, i.mention.externalId]),
+    };
     await deps.db.transaction().execute(async (trx) => {
       await readJob(trx, jobId, { forUpdate: true });
       await finishPartition(trx, jobId, partitionNo, result);

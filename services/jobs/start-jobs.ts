@@ -51,11 +51,21 @@ export async function startJobs(options: StartJobsOptions): Promise<Jobs> {
     if (!options.url) throw new Error('startJobs on PostgreSQL needs the database URL');
     // Loaded only here: pg-boss and the pg driver are about 40 modules the embedded service never needs.
     const { openPgBossQueue } = await import('../../db/pg-boss-queue.ts');
-    queue = await openPgBossQueue(options.url, { ...queueOptions, supervise: options.work, onError: (error) => log('warn', { err: error }, 'job queue error') });
+    queue = await openPgBossQueue(options.url, {
+      ...queueOptions,
+      supervise: options.work,
+      onError: (error) => log('warn', { err: error }, 'job queue error'),
+    });
   } else {
     queue = new InProcessQueue({ ...queueOptions, onError: (error, job) => log('warn', { err: error, queueJob: job.id }, `job step ${job.name} failed`) });
   }
-  const deps: JobDeps = { db: options.db, ctx: options.ctx ?? createRegisterContext(options.db), queue, worker: options.worker ?? `${hostname()}:${process.pid}`, log };
+  const deps: JobDeps = {
+    db: options.db,
+    ctx: options.ctx ?? createRegisterContext(options.db),
+    queue,
+    worker: options.worker ?? `${hostname()}:${process.pid}`,
+    log,
+  };
   if (options.work) await workOnJobs(deps, { concurrency: options.concurrency ?? 1 });
   // The in-process queue forgets everything when its process stops: pick up where the last one left off.
   if (options.work && queue.kind === 'in-process' && options.backend !== 'postgres') await resumeUnfinishedJobs(deps);
@@ -82,7 +92,10 @@ export async function resumeUnfinishedJobs(deps: JobDeps): Promise<number> {
     if (row.params.partitioned !== true) continue;
     const jobId = row.id;
     if (row.plan === null && row.progress.stage === 'staging') {
-      await updateJob(deps.db, jobId, { status: 'failed', error: 'the process stopped while reading the input: submit it again (rows already stored count as already ingested)' });
+      await updateJob(deps.db, jobId, {
+        status: 'failed',
+        error: 'the process stopped while reading the input: submit it again (rows already stored count as already ingested)',
+      });
       continue;
     }
     resumed++;

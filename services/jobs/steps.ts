@@ -38,8 +38,16 @@ async function guarded(deps: JobDeps, name: string, data: StepData, delivery: De
     await step();
   } catch (error) {
     const last = delivery.retryCount >= delivery.retryLimit;
-    deps.log(last ? 'error' : 'warn', { err: error, jobId: data.jobId, partition: data.partition, step: name, retry: delivery.retryCount }, last ? 'job step failed for good' : 'job step failed; the queue retries it');
-    if (last) await updateJob(deps.db, data.jobId, { status: 'failed', error: `${name}${data.partition === undefined ? '' : ` of partition ${data.partition}`} failed: ${(error as Error).message}` }).catch(() => undefined);
+    deps.log(
+      last ? 'error' : 'warn',
+      { err: error, jobId: data.jobId, partition: data.partition, step: name, retry: delivery.retryCount },
+      last ? 'job step failed for good' : 'job step failed; the queue retries it',
+    );
+    if (last)
+      await updateJob(deps.db, data.jobId, {
+        status: 'failed',
+        error: `${name}${data.partition === undefined ? '' : ` of partition ${data.partition}`} failed: ${(error as Error).message}`,
+      }).catch(() => undefined);
     throw error;
   }
 }
@@ -49,7 +57,8 @@ export async function plan(deps: JobDeps, data: StepData): Promise<void> {
   if (!kind) return;
   const planned = await KINDS[kind].plan(deps, data.jobId);
   // Queued again even when a retry finds the plan made: the first run may have died before queueing them all.
-  for (let p = 0; p < planned.partitions; p++) await deps.queue.send(JOB_STEPS.partition, { jobId: data.jobId, partition: p }, { singletonKey: `${data.jobId}:${p}` });
+  for (let p = 0; p < planned.partitions; p++)
+    await deps.queue.send(JOB_STEPS.partition, { jobId: data.jobId, partition: p }, { singletonKey: `${data.jobId}:${p}` });
   if (planned.partitions === 0) await deps.queue.send(JOB_STEPS.finish, { jobId: data.jobId }, { singletonKey: String(data.jobId) });
 }
 
@@ -76,7 +85,12 @@ export async function workOnJobs(deps: JobDeps, options: { concurrency?: number 
 
 /** Submits a sweep as a partitioned job (the planner lists the counterparties when it runs). */
 export async function submitSweepJob(deps: Pick<JobDeps, 'db' | 'queue'>, options: { actor: string; partitionSize?: number }): Promise<number> {
-  const jobId = await insertJob(deps.db, { kind: 'sweep', actor: options.actor, status: 'queued', params: { partitioned: true, ...(options.partitionSize ? { partitionSize: options.partitionSize } : {}) } });
+  const jobId = await insertJob(deps.db, {
+    kind: 'sweep',
+    actor: options.actor,
+    status: 'queued',
+    params: { partitioned: true, ...(options.partitionSize ? { partitionSize: options.partitionSize } : {}) },
+  });
   await deps.queue.send(JOB_STEPS.plan, { jobId }, { singletonKey: String(jobId) });
   return jobId;
 }

@@ -62,7 +62,10 @@ export async function checkUploadedArchive(file: string, inputName: string, limi
   if (problem) throw new ArchiveRefusedError(inputName, problem);
 }
 
-export async function submitContractsJob(deps: { db: Kysely<Database>; queue: JobQueue }, options: SubmitContractsOptions): Promise<{ jobId: number; staged: Promise<void> }> {
+export async function submitContractsJob(
+  deps: { db: Kysely<Database>; queue: JobQueue },
+  options: SubmitContractsOptions,
+): Promise<{ jobId: number; staged: Promise<void> }> {
   const limits = { ...FILE_LIMIT_DEFAULTS, ...options.limits };
   if (!options.folder) await checkUploadedArchive(options.file, options.inputName, limits);
   const partitionSize = options.partitionSize ?? CONTRACTS_PARTITION_SIZE;
@@ -112,4 +115,3 @@ async function stage(deps: { db: Kysely<Database>; queue: JobQueue }, jobId: num
   await updateJob(deps.db, jobId, { progress: { stage: 'planning', filesRead: read, filesTotal: read } });
   await deps.queue.send(JOB_STEPS.plan, { jobId }, { singletonKey: String(jobId) });
 }
-

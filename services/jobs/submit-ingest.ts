@@ -49,7 +49,12 @@ export async function submitIngestJob(deps: { db: Kysely<Database>; queue: JobQu
   const inputName = options.inputName ?? options.file.split(/[\\/]/).pop() ?? options.file;
   const { ingestRunId, jobId } = await deps.db.transaction().execute(async (trx) => {
     const runId = await insertIngestRun(trx, { source: options.source, inputName, actor: options.actor });
-    const created = await insertJob(trx, { kind: 'ingest', actor: options.actor, status: 'queued', params: { source: options.source, input: inputName, partitioned: true, partitionSize, ingestRunId: runId } });
+    const created = await insertJob(trx, {
+      kind: 'ingest',
+      actor: options.actor,
+      status: 'queued',
+      params: { source: options.source, input: inputName, partitioned: true, partitionSize, ingestRunId: runId },
+    });
     await options.onJobCreated?.(trx, created);
     return { ingestRunId: runId, jobId: created };
   });
@@ -59,7 +64,15 @@ export async function submitIngestJob(deps: { db: Kysely<Database>; queue: JobQu
     let rows = 0;
     const stream = createReadStream(options.file);
     const skipped: StagedRow[] = [];
-    for await (const row of rowsOf(options.file, format, options.source, options.map ?? {}, stream, (line, reason) => skipped.push({ line, reason }), options.onWarning)) {
+    for await (const row of rowsOf(
+      options.file,
+      format,
+      options.source,
+      options.map ?? {},
+      stream,
+      (line, reason) => skipped.push({ line, reason }),
+      options.onWarning,
+    )) {
       chunk.push(...skipped.splice(0));
       const unstorable = row.result.ok ? unstorableRowReason(row.result.mention) : undefined;
       if (unstorable) chunk.push({ line: row.line, reason: unstorable });

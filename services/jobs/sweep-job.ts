@@ -28,7 +28,11 @@ export async function planSweep(deps: JobDeps, jobId: number): Promise<{ partiti
   }
   await deps.db.transaction().execute(async (trx) => {
     await insertPartitions(trx, jobId, ranges);
-    await updateJob(trx, jobId, { status: 'running', plan: { partitions: ranges.length, counterparties: ids.length }, progress: { stage: 'resolving', partitions: ranges.length, counterparties: ids.length } });
+    await updateJob(trx, jobId, {
+      status: 'running',
+      plan: { partitions: ranges.length, counterparties: ids.length },
+      progress: { stage: 'resolving', partitions: ranges.length, counterparties: ids.length },
+    });
   });
   return { partitions: ranges.length, alreadyPlanned: false };
 }
@@ -41,11 +45,21 @@ export async function runSweepPartition(deps: JobDeps, jobId: number, partitionN
     await startPartition(deps.db, jobId, partitionNo, deps.worker);
     const [range] = part.items as SweepRange[];
     const started = performance.now();
-    const summary = await sweep(deps.ctx, { actor: job.actor, reason: `duplicate sweep, job ${jobId}` }, { afterId: range!.afterId, throughId: range!.throughId });
+    const summary = await sweep(
+      deps.ctx,
+      { actor: job.actor, reason: `duplicate sweep, job ${jobId}` },
+      { afterId: range!.afterId, throughId: range!.throughId },
+    );
     const { itemIds, ...counts } = summary;
     await deps.db.transaction().execute(async (trx) => {
       await readJob(trx, jobId, { forUpdate: true });
-      await finishPartition(trx, jobId, partitionNo, { ...counts, items: itemIds.length, elapsedMs: Math.round(performance.now() - started), attempt: part.attempts + 1, worker: deps.worker });
+      await finishPartition(trx, jobId, partitionNo, {
+        ...counts,
+        items: itemIds.length,
+        elapsedMs: Math.round(performance.now() - started),
+        attempt: part.attempts + 1,
+        worker: deps.worker,
+      });
     });
   }
   await queueFinishWhenAllDone(deps, jobId);
@@ -58,5 +72,9 @@ export async function finishSweep(deps: JobDeps, jobId: number): Promise<void> {
   for (const { result } of await partitionResults(deps.db, jobId)) {
     for (const key of Object.keys(total) as (keyof typeof total)[]) total[key] += Number(result[key] ?? 0);
   }
-  await updateJob(deps.db, jobId, { status: 'finished', result: { ...total, partitions: Number(job.plan?.partitions ?? 0) }, progress: { ...job.progress, stage: 'finished' } });
+  await updateJob(deps.db, jobId, {
+    status: 'finished',
+    result: { ...total, partitions: Number(job.plan?.partitions ?? 0) },
+    progress: { ...job.progress, stage: 'finished' },
+  });
 }

@@ -53,7 +53,11 @@ export const SIMILAR_WORD = 0.85;
 /** Name-comparison levels too weak to link a vendor on (the sweep's rule too). */
 const WEAK_NAME_LEVELS = new Set<string | null>(['low', 'none', null]);
 
-export async function readVendorMaster(file: string, map: VendorMap, onRow?: (n: number) => void): Promise<{ rows: VendorRow[]; rejected: { line: number; reason: string }[] }> {
+export async function readVendorMaster(
+  file: string,
+  map: VendorMap,
+  onRow?: (n: number) => void,
+): Promise<{ rows: VendorRow[]; rejected: { line: number; reason: string }[] }> {
   const parser = createReadStream(file).pipe(parse({ bom: true, relax_column_count: true, skip_empty_lines: true, info: true }));
   let header: string[] | undefined;
   let columns: VendorMap = {};
@@ -112,7 +116,10 @@ async function matchVendor(db: Kysely<Database>, row: VendorRow, model: Awaited<
   if (row.strong.length > 0) {
     const holders = await holdersOf(db, row.strong);
     if (holders.length > 0) {
-      const survivors = await survivorsOf(db, holders.map((h) => h.counterpartyId));
+      const survivors = await survivorsOf(
+        db,
+        holders.map((h) => h.counterpartyId),
+      );
       const h = holders[0]!;
       return { counterpartyId: survivors.get(h.counterpartyId) ?? h.counterpartyId, evidence: `${h.scheme} ${h.value} held by the counterparty` };
     }
@@ -129,7 +136,10 @@ async function matchVendor(db: Kysely<Database>, row: VendorRow, model: Awaited<
     const nameLevel = c.pair.explanation.find((e) => e.feature === 'name')?.level ?? null;
     if (!decisive && WEAK_NAME_LEVELS.has(nameLevel)) continue;
     if (decisive || c.score - contactWeight >= model.linkAt) {
-      return { counterpartyId: c.counterpartyId, evidence: `name "${row.name}" ~ "${c.matchedName}" score ${(c.score - contactWeight).toFixed(2)} (link threshold ${model.linkAt})` };
+      return {
+        counterpartyId: c.counterpartyId,
+        evidence: `name "${row.name}" ~ "${c.matchedName}" score ${(c.score - contactWeight).toFixed(2)} (link threshold ${model.linkAt})`,
+      };
     }
   }
   return undefined;
@@ -177,7 +187,16 @@ function pairFindings(rows: VendorRow[]): Finding[] {
     const similar = similarNames(pair.a, pair.b);
     const same = pair.strong || (pair.phone && similar);
     const evidence = [...pair.evidence, ...(similar ? [`similar names "${pair.a.name}" / "${pair.b.name}"`] : [])].join('; ');
-    out.push({ vendorRowId: pair.a.id, vendorName: pair.a.name, finding: same ? 'same_entity' : 'same_or_affiliated', counterpartyId: null, canonicalName: null, contractCount: null, evidence, pairedVendorRowId: pair.b.id });
+    out.push({
+      vendorRowId: pair.a.id,
+      vendorName: pair.a.name,
+      finding: same ? 'same_entity' : 'same_or_affiliated',
+      counterpartyId: null,
+      canonicalName: null,
+      contractCount: null,
+      evidence,
+      pairedVendorRowId: pair.b.id,
+    });
   }
   return out;
 }
@@ -213,7 +232,16 @@ export async function reconcile(db: Kysely<Database>, rows: VendorRow[], onProgr
         pairedVendorRowId: null,
       });
     } else {
-      findings.push({ vendorRowId: row.id, vendorName: row.name, finding: 'vendor_without_contract', counterpartyId: null, canonicalName: null, contractCount: 0, evidence: `no counterparty in the register${problems}`, pairedVendorRowId: null });
+      findings.push({
+        vendorRowId: row.id,
+        vendorName: row.name,
+        finding: 'vendor_without_contract',
+        counterpartyId: null,
+        canonicalName: null,
+        contractCount: 0,
+        evidence: `no counterparty in the register${problems}`,
+        pairedVendorRowId: null,
+      });
     }
     onProgress?.(++done);
   }
@@ -224,7 +252,10 @@ export async function reconcile(db: Kysely<Database>, rows: VendorRow[], onProgr
     if (pair.finding !== 'same_entity') continue;
     const a = byVendor.get(pair.vendorRowId!);
     const b = byVendor.get(pair.pairedVendorRowId!);
-    for (const [from, to] of [[a, b], [b, a]] as const) {
+    for (const [from, to] of [
+      [a, b],
+      [b, a],
+    ] as const) {
       if (!from || !to || from.counterpartyId === null || to.counterpartyId !== null) continue;
       to.counterpartyId = from.counterpartyId;
       to.canonicalName = from.canonicalName;
@@ -236,14 +267,31 @@ export async function reconcile(db: Kysely<Database>, rows: VendorRow[], onProgr
   }
   for (const [counterpartyId, contracts] of [...counts].sort((a, b) => a[0] - b[0])) {
     if (matchedCounterparties.has(counterpartyId)) continue;
-    findings.push({ vendorRowId: null, vendorName: null, finding: 'counterparty_without_vendor', counterpartyId, canonicalName: await nameOf(counterpartyId), contractCount: contracts, evidence: `${contracts} contract(s), no vendor row matched`, pairedVendorRowId: null });
+    findings.push({
+      vendorRowId: null,
+      vendorName: null,
+      finding: 'counterparty_without_vendor',
+      counterpartyId,
+      canonicalName: await nameOf(counterpartyId),
+      contractCount: contracts,
+      evidence: `${contracts} contract(s), no vendor row matched`,
+      pairedVendorRowId: null,
+    });
   }
   findings.push(...pairs);
   return findings;
 }
 
 export function summarise(rowsRead: number, rejected: { line: number; reason: string }[], findings: Finding[]): ReconcileSummary {
-  const byFinding = { matched_with_contracts: 0, vendor_without_contract: 0, counterparty_without_vendor: 0, same_entity: 0, same_or_affiliated: 0 } as Record<ReconciliationFinding, number>;
+  const byFinding = { matched_with_contracts: 0, vendor_without_contract: 0, counterparty_without_vendor: 0, same_entity: 0, same_or_affiliated: 0 } as Record<
+    ReconciliationFinding,
+    number
+  >;
   for (const f of findings) byFinding[f.finding]++;
-  return { rowsRead, rowsRejected: rejected, matched: findings.filter((f) => f.vendorRowId !== null && f.counterpartyId !== null && f.pairedVendorRowId === null).length, byFinding };
+  return {
+    rowsRead,
+    rowsRejected: rejected,
+    matched: findings.filter((f) => f.vendorRowId !== null && f.counterpartyId !== null && f.pairedVendorRowId === null).length,
+    byFinding,
+  };
 }

@@ -3,7 +3,16 @@ import { stringify } from 'csv-stringify/sync';
 import { neutralise } from '../export/neutralise.ts';
 import type { Finding } from './reconcile.ts';
 
-export const REPORT_COLUMNS = ['vendor_row_id', 'vendor_name', 'finding', 'counterparty_id', 'canonical_name', 'contract_count', 'evidence', 'paired_vendor_row_id'];
+export const REPORT_COLUMNS = [
+  'vendor_row_id',
+  'vendor_name',
+  'finding',
+  'counterparty_id',
+  'canonical_name',
+  'contract_count',
+  'evidence',
+  'paired_vendor_row_id',
+];
 
 export function reportCsv(findings: Finding[]): string {
   return stringify([

@@ -48,7 +48,8 @@ const squash = (s: string): string => s.toLowerCase().replace(/[\s_-]+/g, '');
 export function vendorColumns(header: readonly string[], map: VendorMap): VendorMap {
   const out: VendorMap = { ...map };
   for (const [field, column] of Object.entries(map)) {
-    if (!header.includes(column!)) throw new VendorMappingError(`--map ${field}=${column}: the file has no column "${column}"; its columns: ${header.join(', ')}`);
+    if (!header.includes(column!))
+      throw new VendorMappingError(`--map ${field}=${column}: the file has no column "${column}"; its columns: ${header.join(', ')}`);
   }
   for (const field of VENDOR_FIELDS) {
     if (out[field] !== undefined) continue;
@@ -56,7 +57,10 @@ export function vendorColumns(header: readonly string[], map: VendorMap): Vendor
     if (found !== undefined) out[field] = found;
   }
   for (const needed of ['id', 'name'] as const) {
-    if (out[needed] === undefined) throw new VendorMappingError(`no column for the vendor ${needed === 'id' ? 'row id' : 'name'}: add --map ${needed}=<column>; the file's columns: ${header.join(', ')}`);
+    if (out[needed] === undefined)
+      throw new VendorMappingError(
+        `no column for the vendor ${needed === 'id' ? 'row id' : 'name'}: add --map ${needed}=<column>; the file's columns: ${header.join(', ')}`,
+      );
   }
   return out;
 }
@@ -75,7 +79,14 @@ export interface VendorRow {
   problems: string[];
 }
 
-function add(list: Identifier[], problems: string[], scheme: IdentifierScheme | undefined, value: string | undefined, country: string | null, what: string): void {
+function add(
+  list: Identifier[],
+  problems: string[],
+  scheme: IdentifierScheme | undefined,
+  value: string | undefined,
+  country: string | null,
+  what: string,
+): void {
   if (!value) return;
   if (!scheme) {
     problems.push(`${what} ${value}: no identifier scheme for country ${country ?? '(none)'}`);

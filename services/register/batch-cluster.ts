@@ -46,12 +46,22 @@ export async function clusterBatch(
     ...(p.prepared.input.country ? { country: p.prepared.input.country } : {}),
     identifiers: p.prepared.identifiers,
   }));
-  const idf = await idfFor(ctx.db, records.flatMap((r) => r.analysis.tokens), reads);
+  const idf = await idfFor(
+    ctx.db,
+    records.flatMap((r) => r.analysis.tokens),
+    reads,
+  );
   const edges: ScoredEdge[] = [];
   const cannot: [string, string][] = [];
   const cps = new Set<string>();
   for (const p of byKey) {
-    const candidates = await scoredCandidates(ctx.db, { analysis: p.prepared.analysis, country: p.prepared.input.country ?? null, identifiers: p.prepared.identifiers }, model, new Set(), reads);
+    const candidates = await scoredCandidates(
+      ctx.db,
+      { analysis: p.prepared.analysis, country: p.prepared.input.country ?? null, identifiers: p.prepared.identifiers },
+      model,
+      new Set(),
+      reads,
+    );
     for (const c of candidates) {
       const cpNode = `cp:${c.counterpartyId}`;
       cps.add(cpNode);
@@ -96,13 +106,17 @@ export async function clusterBatch(
     if (!byComponent.has(r)) byComponent.set(r, []);
     byComponent.get(r)!.push(cp);
   }
-  for (const group of byComponent.values()) for (let i = 0; i < group.length; i++) for (let j = i + 1; j < group.length; j++) cannot.push([group[i]!, group[j]!]);
+  for (const group of byComponent.values())
+    for (let i = 0; i < group.length; i++) for (let j = i + 1; j < group.length; j++) cannot.push([group[i]!, group[j]!]);
   const ids = [...records.map((r) => r.id), ...cpList];
   const clusters = clusterRecords(ids, edges, cannot, clusterRulesOf(model));
   const byNode = new Map(byKey.map((p) => [`m:${p.key}`, p]));
   const out: Group[] = [];
   for (const cluster of clusters) {
-    const members = cluster.filter((n) => n.startsWith('m:')).map((n) => byNode.get(n)!).sort((a, b) => (a.key < b.key ? -1 : 1));
+    const members = cluster
+      .filter((n) => n.startsWith('m:'))
+      .map((n) => byNode.get(n)!)
+      .sort((a, b) => (a.key < b.key ? -1 : 1));
     if (members.length === 0) continue;
     const cp = cluster.find((n) => n.startsWith('cp:'));
     out.push({ members, counterpartyId: cp ? Number(cp.slice(3)) : null });
@@ -124,4 +138,3 @@ function pairsByKey(byKey: readonly Pending[], keys: readonly (readonly [string,
   }
   return { left: Int32Array.from(left), right: Int32Array.from(right), count: left.length };
 }
-

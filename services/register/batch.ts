@@ -71,12 +71,23 @@ export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[],
     } catch (error) {
       if (!(error instanceof RegisterError)) throw error;
       const e = error;
-      results[index] = { status: 'rejected', index, error: { code: e.code ?? 'INVALID_INPUT', message: e.message, ...(e.details?.field ? { field: String(e.details.field) } : {}) } };
+      results[index] = {
+        status: 'rejected',
+        index,
+        error: { code: e.code ?? 'INVALID_INPUT', message: e.message, ...(e.details?.field ? { field: String(e.details.field) } : {}) },
+      };
       continue;
     }
     const key = sortKey(prepared);
     if (seen.has(key)) {
-      results[index] = { status: 'rejected', index, error: { code: 'INVALID_INPUT', message: `the batch holds (source, externalId) ${prepared.input.source}/${prepared.input.externalId} twice (items ${seen.get(key)} and ${index})` } };
+      results[index] = {
+        status: 'rejected',
+        index,
+        error: {
+          code: 'INVALID_INPUT',
+          message: `the batch holds (source, externalId) ${prepared.input.source}/${prepared.input.externalId} twice (items ${seen.get(key)} and ${index})`,
+        },
+      };
       continue;
     }
     seen.set(key, index);
@@ -84,11 +95,24 @@ export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[],
   }
   // The read-only phase reads in bulk: stored mentions in one statement, the candidates and token counts of every
   // mention in one statement each (matching/batch-reads.ts), each contract once.
-  const stored = new Map((await mentionsByKeys(ctx.db, checked.map((c) => c.prepared.input))).map((row) => [`${row.source}\u0000${row.external_id}`, row]));
+  const stored = new Map(
+    (
+      await mentionsByKeys(
+        ctx.db,
+        checked.map((c) => c.prepared.input),
+      )
+    ).map((row) => [`${row.source}\u0000${row.external_id}`, row]),
+  );
   const reads = new BatchReads(ctx.db);
   const toDecide = checked.filter((c) => stored.get(c.key)?.content_hash !== c.prepared.contentHash);
-  reads.basis = basisOf(toDecide.map((c) => c.prepared.analysis.tokens), options.rarity);
-  await reads.prefetch(toDecide.map((c) => c.prepared), MAX_CANDIDATES);
+  reads.basis = basisOf(
+    toDecide.map((c) => c.prepared.analysis.tokens),
+    options.rarity,
+  );
+  await reads.prefetch(
+    toDecide.map((c) => c.prepared),
+    MAX_CANDIDATES,
+  );
   const contracts = new Map<string, Promise<ContractContext | null>>();
   for (const { index, prepared, key } of checked) {
     const found = stored.get(key);
@@ -100,7 +124,11 @@ export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[],
     let contract: ContractContext | null = null;
     if (ref) {
       const refKey = JSON.stringify([ref.source, ref.externalId]);
-      if (!contracts.has(refKey)) contracts.set(refKey, ctx.db.transaction().execute((trx) => contractContextFor(new ChangeSet(trx, ctx.derived), ref)));
+      if (!contracts.has(refKey))
+        contracts.set(
+          refKey,
+          ctx.db.transaction().execute((trx) => contractContextFor(new ChangeSet(trx, ctx.derived), ref)),
+        );
       contract = await contracts.get(refKey)!;
     }
     const outcome = await decide(ctx.db, prepared, model, {
@@ -114,7 +142,14 @@ export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[],
   }
 
   // Mentions whose outcome does not depend on the rest of the batch.
-  const final = new Set(pending.filter((p) => !['linked', 'new', 'review'].includes(p.outcome.status) || p.outcome.evidence.via !== 'register' || p.outcome.evidence.override === 'decisive_identifier'));
+  const final = new Set(
+    pending.filter(
+      (p) =>
+        !['linked', 'new', 'review'].includes(p.outcome.status) ||
+        p.outcome.evidence.via !== 'register' ||
+        p.outcome.evidence.override === 'decisive_identifier',
+    ),
+  );
   const matching = pending.filter((p) => !final.has(p));
   const groups = await clusterBatch(ctx, matching, model, reads, options.comparePairs);
   const plan: Group[] = [...final].map((p) => ({ members: [p], counterpartyId: null }));
@@ -123,7 +158,7 @@ export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[],
 
   // Several clusters share one transaction (one commit, so one WAL flush, per chunk instead of per cluster);
   // each mention still records its own event, and a retried chunk re-reads everything it writes.
-  for (let start = 0; start < plan.length; ) {
+  for (let start = 0; start < plan.length;) {
     const chunk: typeof plan = [];
     let size = 0;
     while (start < plan.length && (chunk.length === 0 || size + plan[start]!.members.length <= WRITE_CHUNK)) {
@@ -136,14 +171,24 @@ export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[],
       // stored one meanwhile, its INSERT fails on the unique key, and the retry re-reads all.
       const recheck = attempt++ > 0;
       // Every neighbourhood lock of the chunk in one statement, in one sorted order, before any row lock.
-      await lockNameNeighbourhoods(cs, chunk.flatMap((g) => g.members.map((m) => m.prepared)));
+      await lockNameNeighbourhoods(
+        cs,
+        chunk.flatMap((g) => g.members.map((m) => m.prepared)),
+      );
       const members = chunk.flatMap((g) => g.members);
-      const found = storedIds(await mentionsByKeys(cs.trx, members.filter((m) => recheck || m.stored).map((m) => m.prepared.input)));
+      const found = storedIds(
+        await mentionsByKeys(
+          cs.trx,
+          members.filter((m) => recheck || m.stored).map((m) => m.prepared.input),
+        ),
+      );
       const plans = chunk.map((group) => planGroup(group, final.has(group.members[0]!), model.linkAt));
       // Every counterparty the chunk writes, in one sorted statement (then the survivors of merged ones), and
       // the names of those it links to; then the ids of the rows it adds, drawn in one statement.
       const linkTargets = plans.flatMap((p) => p.filter((o) => o.status === 'linked' && o.counterpartyId !== undefined).map((o) => o.counterpartyId!));
-      const targets = plans.flatMap((p) => p.filter((o) => (o.status === 'linked' || o.status === 'review') && o.counterpartyId !== undefined).map((o) => o.counterpartyId!));
+      const targets = plans.flatMap((p) =>
+        p.filter((o) => (o.status === 'linked' || o.status === 'review') && o.counterpartyId !== undefined).map((o) => o.counterpartyId!),
+      );
       await cs.lock('counterparty', [...targets, ...[...found.values()].flatMap((f) => (f.counterpartyId === null ? [] : [f.counterpartyId]))]);
       await lockActive(cs, targets);
       await cs.loadNames(linkTargets.map((id) => survivorFor(cs, id)));
@@ -170,7 +215,12 @@ export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[],
 
 /** Ids of stored mentions (with their counterparty) by sort key. */
 function storedIds(rows: MentionKeyRow[]): Map<string, { id: number; counterpartyId: number | null }> {
-  return new Map(rows.map((row) => [`${row.source}\u0000${row.external_id}`, { id: Number(row.id), counterpartyId: row.counterparty_id === null ? null : Number(row.counterparty_id) }]));
+  return new Map(
+    rows.map((row) => [
+      `${row.source}\u0000${row.external_id}`,
+      { id: Number(row.id), counterpartyId: row.counterparty_id === null ? null : Number(row.counterparty_id) },
+    ]),
+  );
 }
 
 /**
@@ -187,7 +237,18 @@ function planGroup(group: Group, fixed: boolean, linkAt: number): Outcome[] {
     if (target !== null) return clusteredWith(outcome, target, linkAt);
     if (lone && outcome.status === 'review') return outcome; // nothing in the batch or the register is close enough to decide
     if (i === 0) {
-      return { ...outcome, status: 'new', counterpartyId: undefined, recordName: true, evidence: { ...outcome.evidence, summary: group.members.length > 1 ? `a new counterparty for ${group.members.length} mentions of this batch clustered together` : outcome.evidence.summary, via: 'batch' } };
+      return {
+        ...outcome,
+        status: 'new',
+        counterpartyId: undefined,
+        recordName: true,
+        evidence: {
+          ...outcome.evidence,
+          summary:
+            group.members.length > 1 ? `a new counterparty for ${group.members.length} mentions of this batch clustered together` : outcome.evidence.summary,
+          via: 'batch',
+        },
+      };
     }
     // Linked to the counterparty the first member creates (writeGroup fills it in with clusteredWith).
     return { ...outcome, status: 'linked', counterpartyId: undefined };
@@ -195,7 +256,13 @@ function planGroup(group: Group, fixed: boolean, linkAt: number): Outcome[] {
 }
 
 function clusteredWith(outcome: Outcome, target: number, linkAt: number): Outcome {
-  return { ...outcome, status: 'linked', counterpartyId: target, recordName: true, evidence: { ...outcome.evidence, summary: `clustered with counterparty ${target} in a batch (linkAt ${linkAt})`, via: 'batch' } };
+  return {
+    ...outcome,
+    status: 'linked',
+    counterpartyId: target,
+    recordName: true,
+    evidence: { ...outcome.evidence, summary: `clustered with counterparty ${target} in a batch (linkAt ${linkAt})`, via: 'batch' },
+  };
 }
 
 async function writeGroup(

@@ -75,7 +75,13 @@ async function loadChunk(ctx: RegisterContext, chunk: { row: LoadRow; line: numb
     }
     // One event for the chunk: it names every counterparty it created (counterparty_ids), and undoing it takes the
     // whole chunk back, as loading it was one act.
-    await commitEvent(cs, { type: 'created', actor: who.actor, at, reason: who.reason ?? null, details: { entity: 'counterparties', count: checked.length, loadedFrom: source } });
+    await commitEvent(cs, {
+      type: 'created',
+      actor: who.actor,
+      at,
+      reason: who.reason ?? null,
+      details: { entity: 'counterparties', count: checked.length, loadedFrom: source },
+    });
     await cs.stopBuffering();
   });
 }

@@ -28,7 +28,12 @@ export interface GivenPartiesResult {
 
 const key = (i: { scheme: string; value: string }): string => `${i.scheme}\u0000${i.value}`;
 
-export async function applyGivenParties(ctx: RegisterContext, stored: StoreContractResult, given: readonly GivenParty[], who: ActorInput): Promise<GivenPartiesResult> {
+export async function applyGivenParties(
+  ctx: RegisterContext,
+  stored: StoreContractResult,
+  given: readonly GivenParty[],
+  who: ActorInput,
+): Promise<GivenPartiesResult> {
   const parties = stored.contract.parties;
   const reconciliation = reconcileGivenParties(
     given,
@@ -55,7 +60,11 @@ export async function applyGivenParties(ctx: RegisterContext, stored: StoreContr
         ...(mention.role ? { role: mention.role } : {}),
         ...(mention.country ? { country: mention.country } : {}),
         ...(mention.address ? { address: mention.address } : {}),
-        identifiers: [...mention.identifiers, ...fresh].map((i) => ({ scheme: i.scheme as IdentifierScheme, value: i.value, ...(i.label ? { label: i.label } : {}) })),
+        identifiers: [...mention.identifiers, ...fresh].map((i) => ({
+          scheme: i.scheme as IdentifierScheme,
+          value: i.value,
+          ...(i.label ? { label: i.label } : {}),
+        })),
       },
       who,
     );

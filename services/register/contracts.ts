@@ -71,7 +71,10 @@ function partyMention(input: ContractInput, parsed: ParsedContract, index: numbe
 
 async function replaceTerms(cs: ChangeSet, contractId: number, parsed: ParsedContract): Promise<void> {
   const old = await cs.trx.selectFrom('defined_term').select('id').where('contract_id', '=', contractId).orderBy('id').execute();
-  await cs.lock('defined_term', old.map((t) => Number(t.id)));
+  await cs.lock(
+    'defined_term',
+    old.map((t) => Number(t.id)),
+  );
   for (const t of old) await cs.delete('defined_term', Number(t.id));
   const seen = new Set<string>();
   const add = async (term: string, partyIndex: number | null, collective: boolean) => {
@@ -86,7 +89,13 @@ async function replaceTerms(cs: ChangeSet, contractId: number, parsed: ParsedCon
 
 /** A changed contract with fewer parties: the party mentions beyond the new count are withdrawn (not deleted). */
 async function withdrawVanishedParties(cs: ChangeSet, contractId: number, count: number, who: ActorInput, at: Date): Promise<void> {
-  const gone = await cs.trx.selectFrom('contract_party').select(['id', 'mention_id']).where('contract_id', '=', contractId).where('position', '>=', count).orderBy('position').execute();
+  const gone = await cs.trx
+    .selectFrom('contract_party')
+    .select(['id', 'mention_id'])
+    .where('contract_id', '=', contractId)
+    .where('position', '>=', count)
+    .orderBy('position')
+    .execute();
   for (const party of gone) {
     const peek = await cs.trx.selectFrom('mention').select('counterparty_id').where('id', '=', party.mention_id).executeTakeFirstOrThrow();
     if (peek.counterparty_id !== null) await cs.lock('counterparty', [Number(peek.counterparty_id)]);
@@ -94,7 +103,14 @@ async function withdrawVanishedParties(cs: ChangeSet, contractId: number, count:
     if (mention.status === 'withdrawn') continue;
     await detachMention(cs, mention, at, 'withdrawn');
     await cs.update('mention', mention.id as number, { status: 'withdrawn', own_entity_id: null, confirmed_by: who.actor, updated_at: at.toISOString() });
-    await commitEvent(cs, { type: 'withdrawn', actor: who.actor, at, reason: who.reason ?? 'no longer a party of the changed contract', requestId: who.requestId, details: { entity: 'mention', mentionId: mention.id, contractId } });
+    await commitEvent(cs, {
+      type: 'withdrawn',
+      actor: who.actor,
+      at,
+      reason: who.reason ?? 'no longer a party of the changed contract',
+      requestId: who.requestId,
+      details: { entity: 'mention', mentionId: mention.id, contractId },
+    });
   }
 }
 
@@ -127,9 +143,16 @@ export interface StoreContractOptions {
   requireParties?: boolean;
 }
 
-export async function storeContract(ctx: RegisterContext, input: ContractInput, who: ActorInput, options: StoreContractOptions = {}): Promise<StoreContractResult> {
+export async function storeContract(
+  ctx: RegisterContext,
+  input: ContractInput,
+  who: ActorInput,
+  options: StoreContractOptions = {},
+): Promise<StoreContractResult> {
   check(input);
-  const contentHash = createHash('sha256').update(JSON.stringify([input.title ?? null, input.text])).digest('hex');
+  const contentHash = createHash('sha256')
+    .update(JSON.stringify([input.title ?? null, input.text]))
+    .digest('hex');
   const ownNames = (await listOwnEntities(ctx.db)).map((o) => o.name);
   const parsed = parseParties(input.text, { ownEntities: ownNames });
   if (options.requireParties && parsed.parties.length === 0) {
@@ -139,7 +162,12 @@ export async function storeContract(ctx: RegisterContext, input: ContractInput, 
   return write(ctx, async (cs) => {
     const at = ctx.now();
     const iso = at.toISOString();
-    const existing = await cs.trx.selectFrom('contract').select(['id', 'content_hash']).where('source', '=', input.source).where('external_id', '=', input.externalId).executeTakeFirst();
+    const existing = await cs.trx
+      .selectFrom('contract')
+      .select(['id', 'content_hash'])
+      .where('source', '=', input.source)
+      .where('external_id', '=', input.externalId)
+      .executeTakeFirst();
     if (existing && existing.content_hash === contentHash) {
       const contract = (await getContract(cs.trx, Number(existing.id)))!;
       return { contractId: contract.id, alreadyStored: true, parties: [], reresolved: [], contract };
@@ -184,7 +212,14 @@ export async function storeContract(ctx: RegisterContext, input: ContractInput, 
       if (result.alreadyIngested) {
         await keepParty(result.mentionId);
         if (cs.ops.length > 0) {
-          await commitEvent(cs, { type: 'mention_changed', actor: who.actor, at, reason: who.reason, requestId: who.requestId, details: { entity: 'contract_party', contractId, mentionId: result.mentionId, position: index } });
+          await commitEvent(cs, {
+            type: 'mention_changed',
+            actor: who.actor,
+            at,
+            reason: who.reason,
+            requestId: who.requestId,
+            details: { entity: 'contract_party', contractId, mentionId: result.mentionId, position: index },
+          });
         }
       }
       parties.push({ ...result, position: index, role: party.role, terms: party.terms });

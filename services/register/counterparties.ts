@@ -46,28 +46,21 @@ function checkKind(field: string, kind: unknown): NameKind {
 
 function checkVersion(cs: ChangeSet, cp: Record<string, unknown>, expected: number | undefined): void {
   if (expected !== undefined && cp.version !== expected) {
-    throw new RegisterError(
-      'STALE_VERSION',
-      `counterparty ${String(cp.id)} is at version ${String(cp.version)}, not ${expected}: read it again`,
-      { counterpartyId: cp.id, version: cp.version },
-    );
+    throw new RegisterError('STALE_VERSION', `counterparty ${String(cp.id)} is at version ${String(cp.version)}, not ${expected}: read it again`, {
+      counterpartyId: cp.id,
+      version: cp.version,
+    });
   }
   void cs;
 }
 
-export async function createCounterparty(
-  ctx: RegisterContext,
-  input: CreateCounterpartyInput,
-  who: ActorInput,
-): Promise<ChangeResult> {
+export async function createCounterparty(ctx: RegisterContext, input: CreateCounterpartyInput, who: ActorInput): Promise<ChangeResult> {
   const name = checkName('name', input.name);
   const others = (input.otherNames ?? []).map((n, i) => ({
     name: checkName(`otherNames/${i}/name`, n.name),
     kind: checkKind(`otherNames/${i}/kind`, n.kind),
   }));
-  const identifiers = (input.identifiers ?? []).map((id, i) =>
-    normaliseIdentifierOrThrow(`identifiers/${i}`, id, input.jurisdiction),
-  );
+  const identifiers = (input.identifiers ?? []).map((id, i) => normaliseIdentifierOrThrow(`identifiers/${i}`, id, input.jurisdiction));
   return write(ctx, async (cs) => {
     const at = ctx.now();
     const cp = await createCounterpartyRow(cs, { name, kind: input.kind, jurisdiction: input.jurisdiction, at });

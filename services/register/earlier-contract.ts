@@ -28,7 +28,15 @@ export async function earlierContractOf(db: Queryable, contractId: number, parse
       const candidateParsed = row.parsed as ParsedContract;
       const verdict = matchEarlierAgreement(ref, parsed, { externalId: row.externalId, title: row.title, head: row.head, parsed: candidateParsed });
       if (verdict.agrees) {
-        agreeing.push({ contractId: row.id, source: row.source, externalId: row.externalId, title: row.title, parsed: candidateParsed, how: verdict.how, statement: ref.statement });
+        agreeing.push({
+          contractId: row.id,
+          source: row.source,
+          externalId: row.externalId,
+          title: row.title,
+          parsed: candidateParsed,
+          how: verdict.how,
+          statement: ref.statement,
+        });
       }
     }
     // A reference number outranks title matches: several contracts may share a title, a number names one.

@@ -31,14 +31,7 @@ export {
 } from './counterparties.ts';
 export { chooseCanonicalName, type NameCandidate } from './canonical-name.ts';
 export { setJurisdiction, checkJurisdiction, type JurisdictionInput, type JurisdictionChangeResult } from './jurisdiction.ts';
-export {
-  unlinkMention,
-  setAsideMention,
-  withdrawMention,
-  withdrawMentionBySourceId,
-  withdrawContract,
-  type MentionChangeResult,
-} from './upkeep.ts';
+export { unlinkMention, setAsideMention, withdrawMention, withdrawMentionBySourceId, withdrawContract, type MentionChangeResult } from './upkeep.ts';
 export { mergeCounterparties, splitCounterparty, type MergeInput, type MergeResult, type SplitInput, type SplitResult } from './merge-split.ts';
 export { addRelation, removeRelation, type RelationInput } from './relations.ts';
 

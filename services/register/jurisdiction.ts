@@ -50,11 +50,10 @@ export async function setJurisdiction(
     const id = survivorFor(cs, counterpartyId);
     const cp = await cs.require('counterparty', id);
     if (input.expectedVersion !== undefined && cp.version !== input.expectedVersion) {
-      throw new RegisterError(
-        'STALE_VERSION',
-        `counterparty ${id} is at version ${String(cp.version)}, not ${input.expectedVersion}: read it again`,
-        { counterpartyId: id, version: cp.version },
-      );
+      throw new RegisterError('STALE_VERSION', `counterparty ${id} is at version ${String(cp.version)}, not ${input.expectedVersion}: read it again`, {
+        counterpartyId: id,
+        version: cp.version,
+      });
     }
     const previous = (cp.jurisdiction as string | null) ?? null;
     if (previous === jurisdiction) return { counterpartyId: id, eventId: null, version: cp.version as number, jurisdiction };

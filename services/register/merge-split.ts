@@ -5,14 +5,7 @@
 import type { ActorInput, RegisterContext } from './context.ts';
 import { RegisterError, invalid, notFound } from './errors.ts';
 import { commitEvent } from './history/commit.ts';
-import {
-  addNameSighting,
-  createCounterpartyRow,
-  lockActive,
-  removeNameSighting,
-  survivorFor,
-  touchCounterparty,
-} from './records.ts';
+import { addNameSighting, createCounterpartyRow, lockActive, removeNameSighting, survivorFor, touchCounterparty } from './records.ts';
 import type { ChangeSet } from './state/change-set.ts';
 import type { Row } from './state/tables.ts';
 import { write } from './transaction.ts';
@@ -54,18 +47,19 @@ export interface MergeResult {
 /** Refuses when a cannot-link separates any two of the counterparties (after following merges). */
 export async function assertNoCannotLink(cs: ChangeSet, ids: number[]): Promise<void> {
   const links = await cannotLinksOf(cs.trx, await idsMergedInto(cs, ids));
-  const survivors = await survivorsOf(cs.trx, links.flatMap((l) => [l.counterpartyId, l.otherCounterpartyId ?? l.counterpartyId]));
+  const survivors = await survivorsOf(
+    cs.trx,
+    links.flatMap((l) => [l.counterpartyId, l.otherCounterpartyId ?? l.counterpartyId]),
+  );
   const set = new Set(ids);
   for (const link of links) {
     if (link.otherCounterpartyId === null) continue;
     const a = survivors.get(link.counterpartyId) ?? link.counterpartyId;
     const b = survivors.get(link.otherCounterpartyId) ?? link.otherCounterpartyId;
     if (a !== b && set.has(a) && set.has(b)) {
-      throw new RegisterError(
-        'CANNOT_LINK',
-        `counterparties ${a} and ${b} were recorded as different entities; undo that review decision first`,
-        { counterpartyIds: [a, b] },
-      );
+      throw new RegisterError('CANNOT_LINK', `counterparties ${a} and ${b} were recorded as different entities; undo that review decision first`, {
+        counterpartyIds: [a, b],
+      });
     }
   }
 }
@@ -122,7 +116,10 @@ export async function mergeInto(cs: ChangeSet, survivorId: number, loserId: numb
     else await cs.update('counterparty_identifier', Number(i.id), { counterparty_id: survivorId });
   }
   const mentions = await cs.trx.selectFrom('mention').select('id').where('counterparty_id', '=', loserId).orderBy('id').execute();
-  await cs.lock('mention', mentions.map((m) => Number(m.id)));
+  await cs.lock(
+    'mention',
+    mentions.map((m) => Number(m.id)),
+  );
   for (const m of mentions) await cs.update('mention', Number(m.id), { counterparty_id: survivorId, updated_at: iso });
   const relations = await cs.trx
     .selectFrom('counterparty_relation')
@@ -185,10 +182,14 @@ export async function mergeCounterparties(ctx: RegisterContext, input: MergeInpu
       for (const row of rows) {
         const expected = input.expectedVersions[row.id as number];
         if (expected !== undefined && expected !== row.version) {
-          throw new RegisterError('STALE_VERSION', `counterparty ${String(row.id)} changed since it was read (version ${String(row.version)}, not ${expected})`, {
-            counterpartyId: row.id,
-            version: row.version,
-          });
+          throw new RegisterError(
+            'STALE_VERSION',
+            `counterparty ${String(row.id)} changed since it was read (version ${String(row.version)}, not ${expected})`,
+            {
+              counterpartyId: row.id,
+              version: row.version,
+            },
+          );
         }
       }
     }
@@ -236,12 +237,7 @@ export interface SplitResult {
   movedMentionIds: number[];
 }
 
-export async function splitCounterparty(
-  ctx: RegisterContext,
-  counterpartyId: number,
-  input: SplitInput,
-  who: ActorInput,
-): Promise<SplitResult> {
+export async function splitCounterparty(ctx: RegisterContext, counterpartyId: number, input: SplitInput, who: ActorInput): Promise<SplitResult> {
   if (!Array.isArray(input.mentionIds) || input.mentionIds.length === 0) invalidSplit();
   return write(ctx, async (cs) => {
     const at = ctx.now();
@@ -289,7 +285,12 @@ export async function splitCounterparty(
       const names = await cs.trx.selectFrom('counterparty_name').select('id').where('counterparty_id', '=', targetId).executeTakeFirst();
       if (!names) {
         const first = mentions[0]!;
-        await addNameSighting(cs, targetId, { name: first.text as string, kind: 'observed', source: first.source as string, mentionId: first.id as number }, at);
+        await addNameSighting(
+          cs,
+          targetId,
+          { name: first.text as string, kind: 'observed', source: first.source as string, mentionId: first.id as number },
+          at,
+        );
       }
     }
     await touchCounterparty(cs, sourceId, at);
@@ -313,7 +314,10 @@ function invalidSplit(): never {
 async function assertNoCannotLinkMentions(cs: ChangeSet, targetId: number, mentionIds: number[]): Promise<void> {
   for (const mentionId of mentionIds) {
     const links = await cannotLinksOf(cs.trx, [], mentionId);
-    const survivors = await survivorsOf(cs.trx, links.map((l) => l.counterpartyId));
+    const survivors = await survivorsOf(
+      cs.trx,
+      links.map((l) => l.counterpartyId),
+    );
     if (links.some((l) => l.mentionId === mentionId && survivors.get(l.counterpartyId) === targetId)) {
       throw new RegisterError('CANNOT_LINK', `mention ${mentionId} was recorded as not being counterparty ${targetId}`, {
         mentionId,

@@ -33,12 +33,7 @@ export async function addOwnEntity(
   const normalised = analyse(name, input.country).normalised;
   return write(ctx, async (cs) => {
     const at = ctx.now();
-    const existing = await cs.trx
-      .selectFrom('own_entity')
-      .select('id')
-      .where('normalised', '=', normalised)
-      .where('removed_at', 'is', null)
-      .executeTakeFirst();
+    const existing = await cs.trx.selectFrom('own_entity').select('id').where('normalised', '=', normalised).where('removed_at', 'is', null).executeTakeFirst();
     if (existing) return { eventId: null, ownEntityId: Number(existing.id), created: false };
     const row = await cs.insert('own_entity', {
       name,

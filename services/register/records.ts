@@ -72,7 +72,9 @@ export async function createCounterpartyRow(
 export async function addNameSighting(cs: ChangeSet, counterpartyId: number, sighting: NameSighting, at: Date): Promise<Row> {
   // A batch write holds the counterparty's names (ChangeSet.namesOf); otherwise they are read.
   const held = await cs.namesOf(counterpartyId);
-  const existing = held ? held.find((n) => n.name === sighting.name && n.kind === sighting.kind)?.id : await findNameId(cs.trx, counterpartyId, sighting.name, sighting.kind);
+  const existing = held
+    ? held.find((n) => n.name === sighting.name && n.kind === sighting.kind)?.id
+    : await findNameId(cs.trx, counterpartyId, sighting.name, sighting.kind);
   if (existing !== undefined && existing !== null) {
     const row = await cs.require('counterparty_name', Number(existing));
     const patch: Row = { seen_count: (row.seen_count as number) + 1 };
@@ -99,7 +101,9 @@ export async function addNameSighting(cs: ChangeSet, counterpartyId: number, sig
 export async function removeNameSighting(cs: ChangeSet, counterpartyId: number, name: string, kind: NameKind): Promise<void> {
   // A buffered write holds the counterparty's names (ChangeSet.namesOf); otherwise they are read.
   const held = await cs.namesOf(counterpartyId);
-  const existing = held ? (held.find((n) => n.name === name && n.kind === kind)?.id as number | undefined) : await findNameId(cs.trx, counterpartyId, name, kind);
+  const existing = held
+    ? (held.find((n) => n.name === name && n.kind === kind)?.id as number | undefined)
+    : await findNameId(cs.trx, counterpartyId, name, kind);
   if (existing === undefined || existing === null) return;
   const row = await cs.require('counterparty_name', Number(existing));
   const count = (row.seen_count as number) - 1;

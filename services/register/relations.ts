@@ -50,11 +50,7 @@ export async function insertRelation(cs: ChangeSet, from: number, to: number, in
   });
 }
 
-export async function addRelation(
-  ctx: RegisterContext,
-  input: RelationInput,
-  who: ActorInput,
-): Promise<{ eventId: number | null; relationId: number }> {
+export async function addRelation(ctx: RegisterContext, input: RelationInput, who: ActorInput): Promise<{ eventId: number | null; relationId: number }> {
   if (!(RELATION_TYPES as readonly string[]).includes(input.type)) throw invalid('type', `must be one of ${RELATION_TYPES.join(', ')}`);
   if (input.type === 'successor_of' && !input.since) throw invalid('since', 'successor_of needs the date of succession (YYYY-MM-DD)');
   if (input.since !== undefined) checkDate('since', input.since);

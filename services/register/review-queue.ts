@@ -1,5 +1,5 @@
 /**
- * The review queue in the order a person should work it (resolvers/score/rankReviewItems.ts says how), and a
+ * The review queue in the order a person should work it (resolvers/score/rank-review-items.ts says how), and a
  * decision that settles a whole group: the same spelling of one name waiting on the same candidate in several
  * contracts is one question, answered once.
  */
@@ -42,7 +42,10 @@ export async function listRankedReviewItems(
   const ranked = await rankOpenReviewItems(ctx, page.filter);
   const start = page.offset ?? 0;
   const shown = ranked.slice(start, start + (page.limit ?? 100));
-  const rows = await reviewItemsByIds(ctx.db, shown.map((r) => r.id));
+  const rows = await reviewItemsByIds(
+    ctx.db,
+    shown.map((r) => r.id),
+  );
   const details = await detailsOf(ctx, rows.map(toReviewView));
   const rankOf = new Map(shown.map((r) => [r.id, r]));
   return details.map((d) => {
@@ -67,7 +70,10 @@ export async function decideReviewGroup(ctx: RegisterContext, reviewItemId: numb
   const item = (await reviewItemsByIds(ctx.db, [reviewItemId]))[0];
   if (!item) throw notFound('review item', reviewItemId);
   const view = toReviewView(item);
-  const facts = view.status === 'open' ? await openReviewFacts(ctx.db, { kind: view.kind as NonNullable<ReviewFilter['kind']>, rightCounterpartyId: view.rightCounterpartyId }) : [];
+  const facts =
+    view.status === 'open'
+      ? await openReviewFacts(ctx.db, { kind: view.kind as NonNullable<ReviewFilter['kind']>, rightCounterpartyId: view.rightCounterpartyId })
+      : [];
   const keyed = facts.map((f) => ({ id: f.id, key: factsOf(f).groupKey }));
   const key = keyed.find((k) => k.id === reviewItemId)?.key;
   const others = key === undefined ? [] : keyed.filter((k) => k.key === key && k.id !== reviewItemId).map((k) => k.id);

@@ -56,7 +56,10 @@ export interface ReviewItemDetail extends ReviewItemView {
 }
 
 /** Review items (open ones unless the filter says otherwise) oldest first (ids after `afterId`), with both sides. */
-export async function listReviewItems(ctx: RegisterContext, page: { afterId?: number; limit?: number; filter?: ReviewFilter } = {}): Promise<ReviewItemDetail[]> {
+export async function listReviewItems(
+  ctx: RegisterContext,
+  page: { afterId?: number; limit?: number; filter?: ReviewFilter } = {},
+): Promise<ReviewItemDetail[]> {
   return detailsOf(ctx, await listReviewItemsWhere(ctx.db, page.filter ?? {}, page));
 }
 
@@ -76,7 +79,10 @@ export async function detailsOf(ctx: RegisterContext, items: readonly ReviewItem
   return out;
 }
 
-async function insertCannotLink(cs: ChangeSet, values: { counterpartyId: number; otherCounterpartyId?: number; mentionId?: number; reviewItemId: number; actor: string; reason: string | null; at: Date }) {
+async function insertCannotLink(
+  cs: ChangeSet,
+  values: { counterpartyId: number; otherCounterpartyId?: number; mentionId?: number; reviewItemId: number; actor: string; reason: string | null; at: Date },
+) {
   await cs.insert('cannot_link', {
     counterparty_id: values.counterpartyId,
     other_counterparty_id: values.otherCounterpartyId ?? null,
@@ -107,9 +113,16 @@ async function linkMentionByPerson(cs: ChangeSet, mention: Row, counterpartyId: 
   await addNameSighting(cs, counterpartyId, { ...recordedName, source: mention.source as string, mentionId: mention.id as number }, at);
   // A contract party confirmed by a person brings the names its contract declares for it ("formerly X"), as a
   // party linked automatically does (resolve/apply.ts), kept in the evidence so that moving it takes them away.
-  const recordedAliases = (await declaredNamesOfPartyMention(cs.trx, mention.id as number)).filter((a) => a.name !== recordedName.name || a.kind !== recordedName.kind);
+  const recordedAliases = (await declaredNamesOfPartyMention(cs.trx, mention.id as number)).filter(
+    (a) => a.name !== recordedName.name || a.kind !== recordedName.kind,
+  );
   for (const alias of recordedAliases) {
-    await addNameSighting(cs, counterpartyId, { ...alias, source: mention.source as string, mentionId: mention.id as number, contractId: (mention.contract_id as number | null) ?? null }, at);
+    await addNameSighting(
+      cs,
+      counterpartyId,
+      { ...alias, source: mention.source as string, mentionId: mention.id as number, contractId: (mention.contract_id as number | null) ?? null },
+      at,
+    );
   }
   for (const identifier of (mention.identifiers as Identifier[]) ?? []) {
     try {
@@ -128,12 +141,7 @@ async function linkMentionByPerson(cs: ChangeSet, mention: Row, counterpartyId: 
   await touchCounterparty(cs, counterpartyId, at);
 }
 
-export async function decideReview(
-  ctx: RegisterContext,
-  reviewItemId: number,
-  input: ReviewDecisionInput,
-  who: ActorInput,
-): Promise<ReviewDecisionResult> {
+export async function decideReview(ctx: RegisterContext, reviewItemId: number, input: ReviewDecisionInput, who: ActorInput): Promise<ReviewDecisionResult> {
   if (input.decision !== 'same' && input.decision !== 'different' && input.decision !== 'not_a_party') {
     throw invalid('decision', 'must be "same", "different" or "not_a_party"');
   }
@@ -150,9 +158,13 @@ export async function decideReview(
     await lockActive(cs, sides);
     const item = await cs.require('review_item', reviewItemId);
     if (item.status !== 'open') {
-      throw new RegisterError('CONFLICT', `review item ${reviewItemId} is ${String(item.status)}${item.decision ? ` (${String(item.decision)} by ${String(item.decided_by)})` : ''}`, {
-        reviewItemId,
-      });
+      throw new RegisterError(
+        'CONFLICT',
+        `review item ${reviewItemId} is ${String(item.status)}${item.decision ? ` (${String(item.decision)} by ${String(item.decided_by)})` : ''}`,
+        {
+          reviewItemId,
+        },
+      );
     }
     const right = survivorFor(cs, item.right_counterparty_id as number);
     const left = item.left_counterparty_id === null ? null : survivorFor(cs, item.left_counterparty_id as number);
@@ -195,7 +207,8 @@ export async function decideReview(
         await insertCannotLink(cs, { counterpartyId: right, otherCounterpartyId: resultId, reviewItemId, actor: who.actor, reason, at });
       }
     } else {
-      if (input.decision === 'not_a_party') throw invalid('decision', `"not_a_party" answers a mention's item only; item ${reviewItemId} pairs two counterparties`);
+      if (input.decision === 'not_a_party')
+        throw invalid('decision', `"not_a_party" answers a mention's item only; item ${reviewItemId} pairs two counterparties`);
       if (left === null) throw new Error(`review item ${reviewItemId} has no left counterparty`);
       leftText = (await cs.require('counterparty', left)).canonical_name as string;
       if (left === right) {
@@ -208,7 +221,14 @@ export async function decideReview(
         await touchCounterparty(cs, survivor, at);
         resultId = survivor;
       } else if (input.decision === 'same') {
-        await insertRelation(cs, left, right, { fromId: left, toId: right, type: 'affiliate_of', origin: 'person', status: 'confirmed', evidence: { reviewItemId } }, who.actor, at);
+        await insertRelation(
+          cs,
+          left,
+          right,
+          { fromId: left, toId: right, type: 'affiliate_of', origin: 'person', status: 'confirmed', evidence: { reviewItemId } },
+          who.actor,
+          at,
+        );
         await touchCounterparty(cs, left, at);
         await touchCounterparty(cs, right, at);
       } else {

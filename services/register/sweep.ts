@@ -64,12 +64,19 @@ export async function sweep(
       summary.scanned++;
       const cp = await ctx.db.selectFrom('counterparty').select(['canonical_name', 'jurisdiction', 'status']).where('id', '=', id).executeTakeFirst();
       if (!cp || cp.status !== 'active') continue;
-      const identifiers = (await ctx.db.selectFrom('counterparty_identifier').select(['scheme', 'value', 'label']).where('counterparty_id', '=', id).execute()).map(
-        (i) => ({ scheme: i.scheme, value: i.value, ...(i.label ? { label: i.label } : {}) }) as Identifier,
+      const identifiers = (
+        await ctx.db.selectFrom('counterparty_identifier').select(['scheme', 'value', 'label']).where('counterparty_id', '=', id).execute()
+      ).map((i) => ({ scheme: i.scheme, value: i.value, ...(i.label ? { label: i.label } : {}) }) as Identifier);
+      const candidates = await scoredCandidates(
+        ctx.db,
+        { analysis: analyse(cp.canonical_name, cp.jurisdiction), country: cp.jurisdiction, identifiers },
+        model,
       );
-      const candidates = await scoredCandidates(ctx.db, { analysis: analyse(cp.canonical_name, cp.jurisdiction), country: cp.jurisdiction, identifiers }, model);
       const links = await cannotLinksOf(ctx.db, [id]);
-      const survivors = await survivorsOf(ctx.db, links.flatMap((l) => [l.counterpartyId, l.otherCounterpartyId ?? l.counterpartyId]));
+      const survivors = await survivorsOf(
+        ctx.db,
+        links.flatMap((l) => [l.counterpartyId, l.otherCounterpartyId ?? l.counterpartyId]),
+      );
       const apart = new Set(
         links.filter((l) => l.otherCounterpartyId !== null).flatMap((l) => [survivors.get(l.counterpartyId), survivors.get(l.otherCounterpartyId as number)]),
       );

@@ -23,12 +23,7 @@ export interface MentionChangeResult {
  * Takes a mention off its counterparty (names it contributed go with it) and gives it `status` (one that needs no
  * counterparty). The caller has locked the counterparty.
  */
-export async function detachMention(
-  cs: ChangeSet,
-  mention: Row,
-  at: Date,
-  status: 'review' | 'set_aside' | 'withdrawn' = 'review',
-): Promise<number | null> {
+export async function detachMention(cs: ChangeSet, mention: Row, at: Date, status: 'review' | 'set_aside' | 'withdrawn' = 'review'): Promise<number | null> {
   const cpId = mention.counterparty_id as number | null;
   if (cpId === null) return null;
   for (const recorded of recordedNamesOf(mention)) await removeNameSighting(cs, cpId, recorded.name, recorded.kind);
@@ -123,12 +118,7 @@ export function withdrawMention(ctx: RegisterContext, mentionId: number, who: Ac
   return changeMention(ctx, mentionId, who, 'withdrawn', 'withdrawn');
 }
 
-export async function withdrawMentionBySourceId(
-  ctx: RegisterContext,
-  source: string,
-  externalId: string,
-  who: ActorInput,
-): Promise<MentionChangeResult> {
+export async function withdrawMentionBySourceId(ctx: RegisterContext, source: string, externalId: string, who: ActorInput): Promise<MentionChangeResult> {
   const mention = await findMentionBySourceId(ctx.db, source, externalId);
   if (!mention) throw notFound('mention', `${source}/${externalId}`);
   return withdrawMention(ctx, mention.id, who);
@@ -150,7 +140,10 @@ export async function withdrawContract(
     const peek = ids.length
       ? await cs.trx.selectFrom('mention').select('counterparty_id').where('id', 'in', ids).where('counterparty_id', 'is not', null).execute()
       : [];
-    await cs.lock('counterparty', peek.map((p) => Number(p.counterparty_id)));
+    await cs.lock(
+      'counterparty',
+      peek.map((p) => Number(p.counterparty_id)),
+    );
     const mentions = await cs.lock('mention', ids);
     for (const mention of mentions) {
       if (mention.status === 'withdrawn') continue;

@@ -59,7 +59,12 @@ export const redirectChains: Check = async (db) => {
   const out: Violation[] = [];
   for (const [id, row] of byId) {
     if (row.status === 'active') {
-      if (row.mergedInto !== null) out.push({ check: 'redirect_chain_broken', message: `active counterparty ${id} redirects to ${row.mergedInto}`, ids: { counterpartyId: id, mergedInto: row.mergedInto } });
+      if (row.mergedInto !== null)
+        out.push({
+          check: 'redirect_chain_broken',
+          message: `active counterparty ${id} redirects to ${row.mergedInto}`,
+          ids: { counterpartyId: id, mergedInto: row.mergedInto },
+        });
       continue;
     }
     const seen = new Set<number>([id]);
@@ -132,7 +137,8 @@ export const reviewDecisionsReflected: Check = async (db) => {
     FROM review_item r WHERE r.status = 'decided' ORDER BY r.id`.execute(db);
   const survivors = await survivorMap(db);
   const out: Violation[] = [];
-  const add = (id: number, message: string) => out.push({ check: 'review_decision_not_reflected', message: `review item ${id}: ${message}`, ids: { reviewItemId: id } });
+  const add = (id: number, message: string) =>
+    out.push({ check: 'review_decision_not_reflected', message: `review item ${id}: ${message}`, ids: { reviewItemId: id } });
   for (const r of items.rows) {
     const id = Number(r.id);
     if (r.decision === null || r.decided_by === null || r.decided_at === null) add(id, 'decided without a decision, a decider or a time');
@@ -190,7 +196,16 @@ export const ingestCountsReconcile: Check = async (db) => {
  * changed without the stored names following, shows here.
  */
 export const canonicalNamesFollowRules: Check = async (db) => {
-  const rows = await sql<{ counterparty_id: number; canonical_name: string; id: number; name: string; kind: string; legal_form: string | null; seen_count: number; confirmed_by: string | null }>`
+  const rows = await sql<{
+    counterparty_id: number;
+    canonical_name: string;
+    id: number;
+    name: string;
+    kind: string;
+    legal_form: string | null;
+    seen_count: number;
+    confirmed_by: string | null;
+  }>`
     SELECT c.id AS counterparty_id, c.canonical_name, n.id, n.name, n.kind, n.legal_form, n.seen_count, n.confirmed_by
     FROM counterparty c JOIN counterparty_name n ON n.counterparty_id = c.id
     WHERE c.status = 'active' AND c.name_locked_by IS NULL
@@ -201,7 +216,14 @@ export const canonicalNamesFollowRules: Check = async (db) => {
   for (const r of rows.rows) {
     const key = Number(r.counterparty_id);
     const entry = byCounterparty.get(key) ?? { canonical: r.canonical_name, names: [] };
-    entry.names.push({ id: Number(r.id), name: r.name, kind: r.kind, legal_form: r.legal_form, seen_count: Number(r.seen_count), confirmed_by: r.confirmed_by });
+    entry.names.push({
+      id: Number(r.id),
+      name: r.name,
+      kind: r.kind,
+      legal_form: r.legal_form,
+      seen_count: Number(r.seen_count),
+      confirmed_by: r.confirmed_by,
+    });
     byCounterparty.set(key, entry);
   }
   const out: Violation[] = [];

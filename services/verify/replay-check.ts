@@ -53,10 +53,16 @@ export function compareSnapshots(live: StateSnapshot, replayed: StateSnapshot): 
         continue;
       }
       const columns = Object.keys(row).filter((c) => JSON.stringify(row[c]) !== JSON.stringify(other[c]));
-      if (columns.length > 0) out.push({ check: 'replay_differs', message: `${table} row ${key} differs from the replayed history in ${columns.join(', ')}`, ids });
+      if (columns.length > 0)
+        out.push({ check: 'replay_differs', message: `${table} row ${key} differs from the replayed history in ${columns.join(', ')}`, ids });
     }
     for (const key of replayRows.keys()) {
-      if (!seen.has(key)) out.push({ check: 'replay_differs', message: `${table} row ${key} follows from the history but is missing from the register`, ids: { table, rowId: key } });
+      if (!seen.has(key))
+        out.push({
+          check: 'replay_differs',
+          message: `${table} row ${key} follows from the history but is missing from the register`,
+          ids: { table, rowId: key },
+        });
     }
   }
   return out;

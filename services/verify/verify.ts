@@ -50,7 +50,14 @@ async function verifyIn(db: Kysely<Database>, options: VerifyOptions): Promise<V
     report('replay_differs', replay.violations);
   }
   const count = async (table: 'counterparty' | 'mention' | 'history_event') =>
-    Number((await db.selectFrom(table).select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n);
+    Number(
+      (
+        await db
+          .selectFrom(table)
+          .select((eb) => eb.fn.countAll<number>().as('n'))
+          .executeTakeFirstOrThrow()
+      ).n,
+    );
   return {
     ok: checks.every((c) => c.ok),
     checks,
@@ -82,7 +89,8 @@ export function formatVerifyReport(report: VerifyReport): string {
     const holds = CHECK_HOLDS[check.check] ?? check.check.replaceAll('_', ' ');
     lines.push(check.ok ? `ok:   ${holds}` : `FAIL: ${holds}: not so for ${countOf(check.violationCount, 'case')} (${check.check})`);
     for (const v of check.violations) lines.push(`       ${v.message}`);
-    if (check.violationCount > check.violations.length) lines.push(`       … and ${(check.violationCount - check.violations.length).toLocaleString('en-US')} more (use --json --limit)`);
+    if (check.violationCount > check.violations.length)
+      lines.push(`       … and ${(check.violationCount - check.violations.length).toLocaleString('en-US')} more (use --json --limit)`);
   }
   lines.push(report.ok ? 'register verified: no violations' : 'register NOT verified: see the violations above');
   return lines.join('\n');

@@ -53,7 +53,7 @@ describe('SQL lives in db/', () => {
     expect(sqlLines('x.ts', "await trx.deleteFrom('mention').execute();")).toHaveLength(1);
     expect(sqlLines('x.ts', "await client.query('DELETE FROM mention WHERE id = $1', [id]);")).toHaveLength(1);
     expect(sqlLines('x.ts', 'sql.raw(text)')).toHaveLength(1);
-    expect(sqlLines('x.ts', "// one SELECT per identifier, which is why the rows are read up front\nconst selected = items.filter(Boolean);")).toEqual([]);
+    expect(sqlLines('x.ts', '// one SELECT per identifier, which is why the rows are read up front\nconst selected = items.filter(Boolean);')).toEqual([]);
   });
 
   it('has no SQL in services/ outside the allow-list', () => {

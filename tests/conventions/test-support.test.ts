@@ -11,13 +11,16 @@ import { describe, expect, it } from 'vitest';
 const NOT_YET: readonly string[] = ['tests/services/register/'];
 
 /** A suite registered or skipped by hand on the backends' availability. */
-const HAND_ROLLED_SKIP = /\?\s*describe\s*:\s*describe\.skip|\?\s*describe\.skip\s*:\s*describe|describe\.skipIf\(!?(?:isBackendAvailable|available|unavailable)/;
+const HAND_ROLLED_SKIP =
+  /\?\s*describe\s*:\s*describe\.skip|\?\s*describe\.skip\s*:\s*describe|describe\.skipIf\(!?(?:isBackendAvailable|available|unavailable)/;
 
 function trackedTestFiles(): string[] {
-  return execFileSync('git', ['ls-files', '-z', 'tests'], { encoding: 'utf8' })
-    .split('\0')
-    // tests/conventions holds the examples of the forms it rejects.
-    .filter((f) => f.endsWith('.ts') && !f.startsWith('tests/support/') && !f.startsWith('tests/conventions/') && !NOT_YET.some((p) => f.startsWith(p)));
+  return (
+    execFileSync('git', ['ls-files', '-z', 'tests'], { encoding: 'utf8' })
+      .split('\0')
+      // tests/conventions holds the examples of the forms it rejects.
+      .filter((f) => f.endsWith('.ts') && !f.startsWith('tests/support/') && !f.startsWith('tests/conventions/') && !NOT_YET.some((p) => f.startsWith(p)))
+  );
 }
 
 describe('one test harness', () => {

@@ -30,14 +30,21 @@ forEachBackend((backend, available) => {
       const opened = await openTestDatabase(backend);
       try {
         const ctx = createRegisterContext(opened.db);
-        await loadCounterparties(ctx, ['Quenby Marlow Tiles Ltd', 'Quenby Marlow Glass Ltd', 'Ostrava Pumpworks s.r.o.'].map((name) => ({ name, country: null })), WHO, { source: 'test' });
+        await loadCounterparties(
+          ctx,
+          ['Quenby Marlow Tiles Ltd', 'Quenby Marlow Glass Ltd', 'Ostrava Pumpworks s.r.o.'].map((name) => ({ name, country: null })),
+          WHO,
+          { source: 'test' },
+        );
         expect(await countDrift(opened.db)).toEqual([]);
         const a = await resolveMention(ctx, { source: 't', externalId: '1', text: 'Veldhoven Anchor Systems B.V.' }, WHO);
         const b = await resolveMention(ctx, { source: 't', externalId: '2', text: 'Veldhoven Ankor Systemen BV' }, WHO);
         expect(await countDrift(opened.db)).toEqual([]);
         // Concurrent writers sharing rare words (PostgreSQL runs them at once; PGlite one after the other).
         await Promise.all(
-          ['Tarnwick Rope Makers', 'Tarnwick Rope Makers Ltd', 'Rope Makers of Tarnwick', 'Tarnwick Ropes'].map((text, i) => resolveMention(ctx, { source: 'c', externalId: String(i), text }, WHO)),
+          ['Tarnwick Rope Makers', 'Tarnwick Rope Makers Ltd', 'Rope Makers of Tarnwick', 'Tarnwick Ropes'].map((text, i) =>
+            resolveMention(ctx, { source: 'c', externalId: String(i), text }, WHO),
+          ),
         );
         expect(await countDrift(opened.db)).toEqual([]);
         if (a.counterpartyId !== b.counterpartyId) {
@@ -60,9 +67,12 @@ forEachBackend((backend, available) => {
         const ctx = createRegisterContext(opened.db);
         const rows = Array.from({ length: 1001 }, (_, i) => ({ name: `Pellworth Cobalt ${i + 1}`, country: null }));
         await loadCounterparties(ctx, rows, WHO, { source: 'test' });
-        const stored = async () => (await sql<{ names: number }>`SELECT names FROM blocking_key_count WHERE key = 't:pellworth'`.execute(opened.db)).rows[0]?.names;
+        const stored = async () =>
+          (await sql<{ names: number }>`SELECT names FROM blocking_key_count WHERE key = 't:pellworth'`.execute(opened.db)).rows[0]?.names;
         expect(await stored()).toBe(1000);
-        await sql`DELETE FROM blocking_key WHERE key = 't:pellworth' AND name_id IN (SELECT name_id FROM blocking_key WHERE key = 't:pellworth' ORDER BY name_id LIMIT 5)`.execute(opened.db);
+        await sql`DELETE FROM blocking_key WHERE key = 't:pellworth' AND name_id IN (SELECT name_id FROM blocking_key WHERE key = 't:pellworth' ORDER BY name_id LIMIT 5)`.execute(
+          opened.db,
+        );
         expect(await stored()).toBe(1000);
         expect((await documentFrequencies(opened.db, ['pellworth'])).get('pellworth')).toBe(1000);
       } finally {

@@ -66,7 +66,16 @@ describe('cpreg backup / restore (embedded)', () => {
       expect(refused.code).toBe(1);
       expect(refused.stderr).toMatch(/is not empty: restore refuses to overwrite a database; pass --force/);
       const before = await openDatabase(occupied, { command: 'backup test' });
-      expect(Number((await before.db.selectFrom('history_event').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n)).toBe(0);
+      expect(
+        Number(
+          (
+            await before.db
+              .selectFrom('history_event')
+              .select((eb) => eb.fn.countAll<number>().as('n'))
+              .executeTakeFirstOrThrow()
+          ).n,
+        ),
+      ).toBe(0);
       await before.close();
       const forced = await runCli(['restore', file, '--db', occupied, '--force']);
       expect(forced.stderr).toBe('');

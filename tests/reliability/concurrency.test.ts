@@ -93,7 +93,13 @@ describePostgres('concurrency: 50 clients on PostgreSQL [postgres]', () => {
           const r = await undoEvent(ctx, own.eventId, WHO);
           acks.push({ type: 'undone', eventId: r.eventId, undoes: own.eventId });
         } else if (roll < 88) {
-          const recent = await database.db.selectFrom('history_event').select('id').where('type', 'in', ['merged', 'split', 'linked', 'created']).orderBy('id', 'desc').limit(20).execute();
+          const recent = await database.db
+            .selectFrom('history_event')
+            .select('id')
+            .where('type', 'in', ['merged', 'split', 'linked', 'created'])
+            .orderBy('id', 'desc')
+            .limit(20)
+            .execute();
           if (recent.length === 0) continue;
           const target = Number(rng.pick(recent).id);
           const r = await undoEvent(ctx, target, WHO);
@@ -113,36 +119,40 @@ describePostgres('concurrency: 50 clients on PostgreSQL [postgres]', () => {
     }
   }
 
-  it('every acknowledged change is in the history and verify passes', async () => {
-    const acks: Ack[] = [];
-    const refusals = new Map<string, number>();
-    const failures: string[] = [];
-    const deadline = Date.now() + DURATION_MS;
-    await Promise.all(Array.from({ length: CLIENTS }, (_, i) => client(i, deadline, acks, refusals, failures)));
-    expect(failures).toEqual([]);
-    // Retries exhausted is bounded: a few under this contention, never a share that would hide a livelock.
-    const refused = [...refusals.values()].reduce((a, b) => a + b, 0);
-    const attempts = acks.length + refused;
-    expect(refusals.get('TRANSACTION_RETRIES_EXHAUSTED') ?? 0).toBeLessThanOrEqual(Math.ceil(attempts * MAX_RETRIES_EXHAUSTED_SHARE));
-    // Most operations are acknowledged: refusals by design stay the minority.
-    expect(refused).toBeLessThan(acks.length);
-    const byType = new Map<string, number>();
-    for (const a of acks) byType.set(a.type, (byType.get(a.type) ?? 0) + 1);
-    // The mix really happened.
-    for (const type of ['resolve', 'merged', 'split', 'undone']) expect(byType.get(type) ?? 0, type).toBeGreaterThan(0);
+  it(
+    'every acknowledged change is in the history and verify passes',
+    async () => {
+      const acks: Ack[] = [];
+      const refusals = new Map<string, number>();
+      const failures: string[] = [];
+      const deadline = Date.now() + DURATION_MS;
+      await Promise.all(Array.from({ length: CLIENTS }, (_, i) => client(i, deadline, acks, refusals, failures)));
+      expect(failures).toEqual([]);
+      // Retries exhausted is bounded: a few under this contention, never a share that would hide a livelock.
+      const refused = [...refusals.values()].reduce((a, b) => a + b, 0);
+      const attempts = acks.length + refused;
+      expect(refusals.get('TRANSACTION_RETRIES_EXHAUSTED') ?? 0).toBeLessThanOrEqual(Math.ceil(attempts * MAX_RETRIES_EXHAUSTED_SHARE));
+      // Most operations are acknowledged: refusals by design stay the minority.
+      expect(refused).toBeLessThan(acks.length);
+      const byType = new Map<string, number>();
+      for (const a of acks) byType.set(a.type, (byType.get(a.type) ?? 0) + 1);
+      // The mix really happened.
+      for (const type of ['resolve', 'merged', 'split', 'undone']) expect(byType.get(type) ?? 0, type).toBeGreaterThan(0);
 
-    const events = await database.db.selectFrom('history_event').select(['id', 'type', 'undoes_event_id']).execute();
-    const byId = new Map(events.map((e) => [Number(e.id), e]));
-    for (const ack of acks) {
-      const event = byId.get(ack.eventId);
-      expect(event, `acknowledged ${ack.type} event ${ack.eventId}`).toBeDefined();
-      if (ack.type !== 'resolve') expect(event!.type).toBe(ack.type);
-      if (ack.undoes !== undefined) expect(Number(event!.undoes_event_id)).toBe(ack.undoes);
-    }
-    const report = await verifyRegister(database.db);
-    expect(report.checks.filter((c) => !c.ok)).toEqual([]);
-    process.stdout.write(
-      `concurrency: ${CLIENTS} clients, ${DURATION_MS / 1000} s: acknowledged ${JSON.stringify(Object.fromEntries(byType))}, refused ${JSON.stringify(Object.fromEntries(refusals))}, ${report.counts.historyEvents} events replayed\n`,
-    );
-  }, DURATION_MS + 240_000);
+      const events = await database.db.selectFrom('history_event').select(['id', 'type', 'undoes_event_id']).execute();
+      const byId = new Map(events.map((e) => [Number(e.id), e]));
+      for (const ack of acks) {
+        const event = byId.get(ack.eventId);
+        expect(event, `acknowledged ${ack.type} event ${ack.eventId}`).toBeDefined();
+        if (ack.type !== 'resolve') expect(event!.type).toBe(ack.type);
+        if (ack.undoes !== undefined) expect(Number(event!.undoes_event_id)).toBe(ack.undoes);
+      }
+      const report = await verifyRegister(database.db);
+      expect(report.checks.filter((c) => !c.ok)).toEqual([]);
+      process.stdout.write(
+        `concurrency: ${CLIENTS} clients, ${DURATION_MS / 1000} s: acknowledged ${JSON.stringify(Object.fromEntries(byType))}, refused ${JSON.stringify(Object.fromEntries(refusals))}, ${report.counts.historyEvents} events replayed\n`,
+      );
+    },
+    DURATION_MS + 240_000,
+  );
 });

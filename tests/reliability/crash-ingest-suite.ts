@@ -13,7 +13,15 @@ import { afterAll, beforeAll, expect, it } from 'vitest';
 import { openDatabase } from '../../db/open-database.ts';
 import { seededRandom } from '../../resolvers/prng.ts';
 import { CPREG_BIN, REPO_ROOT, childEnv, runCli } from '../support/cli.ts';
-import { createMigratedDataDir, createPostgresCopy, dropPostgresCopy, describePostgres, makeTempDir, removeTempDir, type TestBackend } from '../support/index.ts';
+import {
+  createMigratedDataDir,
+  createPostgresCopy,
+  dropPostgresCopy,
+  describePostgres,
+  makeTempDir,
+  removeTempDir,
+  type TestBackend,
+} from '../support/index.ts';
 import { describe } from 'vitest';
 
 const LONG = process.env.CPREG_LONG === '1';
@@ -23,7 +31,33 @@ const LONG = process.env.CPREG_LONG === '1';
 const SIZE = { postgres: LONG ? 100_000 : 15_000, pglite: LONG ? 30_000 : 15_000 };
 const KILLS = 5;
 
-const SYLLABLES = ['ash', 'brack', 'cin', 'dun', 'esk', 'fal', 'gorse', 'hol', 'ivy', 'jun', 'kes', 'larch', 'mor', 'nes', 'orv', 'pell', 'quar', 'ros', 'sel', 'tam', 'ulv', 'ver', 'wen', 'yar', 'zel'];
+const SYLLABLES = [
+  'ash',
+  'brack',
+  'cin',
+  'dun',
+  'esk',
+  'fal',
+  'gorse',
+  'hol',
+  'ivy',
+  'jun',
+  'kes',
+  'larch',
+  'mor',
+  'nes',
+  'orv',
+  'pell',
+  'quar',
+  'ros',
+  'sel',
+  'tam',
+  'ulv',
+  'ver',
+  'wen',
+  'yar',
+  'zel',
+];
 const ENDINGS = ['by', 'mere', 'wood', 'vale', 'ford', 'ton', 'wick', 'holm', 'stead', 'gate'];
 const TRADES = ['Tooling', 'Castings', 'Freight', 'Textiles', 'Optics', 'Joinery', 'Ceramics', 'Analytics'];
 const FORMS = ['Ltd', 'Limited', 'GmbH', 'Inc.', 'LLC', 'S.A.'];
@@ -74,7 +108,11 @@ export function crashIngestSuite(backend: TestBackend): void {
       if (backend === 'pglite') return -1; // the child holds the directory: counted from its progress instead
       const opened = await openDatabase(target, { command: 'crash test' });
       try {
-        const row = await opened.db.selectFrom('mention').select((eb) => eb.fn.countAll<number>().as('n')).where('source', '=', 'crash').executeTakeFirstOrThrow();
+        const row = await opened.db
+          .selectFrom('mention')
+          .select((eb) => eb.fn.countAll<number>().as('n'))
+          .where('source', '=', 'crash')
+          .executeTakeFirstOrThrow();
         return Number(row.n);
       } finally {
         await opened.close();
@@ -89,7 +127,11 @@ export function crashIngestSuite(backend: TestBackend): void {
       const started = performance.now();
       const kills: { afterMs: number; stored: number }[] = [];
       for (let k = 0; k < KILLS; k++) {
-        const child = spawn(process.execPath, [CPREG_BIN, 'ingest', file, '--source', 'crash', '--db', target, '--batch-size', '500'], { cwd: REPO_ROOT, env: childEnv(), stdio: ['ignore', 'pipe', 'pipe'] });
+        const child = spawn(process.execPath, [CPREG_BIN, 'ingest', file, '--source', 'crash', '--db', target, '--batch-size', '500'], {
+          cwd: REPO_ROOT,
+          env: childEnv(),
+          stdio: ['ignore', 'pipe', 'pipe'],
+        });
         let output = '';
         child.stdout.on('data', (c) => (output += c));
         child.stderr.on('data', (c) => (output += c));
@@ -100,7 +142,8 @@ export function crashIngestSuite(backend: TestBackend): void {
         let done = false;
         if (backend === 'postgres') {
           const point = Math.floor(((k + rng.int(1000) / 1000) / KILLS) * size * 0.9);
-          while (!done && (await storedRows()) < point) done = await Promise.race([exited.then(() => true), new Promise<boolean>((r) => setTimeout(() => r(false), 100))]);
+          while (!done && (await storedRows()) < point)
+            done = await Promise.race([exited.then(() => true), new Promise<boolean>((r) => setTimeout(() => r(false), 100))]);
         } else {
           const waitMs = 3000 + rng.int(5000);
           done = await Promise.race([exited.then(() => true), new Promise<boolean>((r) => setTimeout(() => r(false), waitMs))]);

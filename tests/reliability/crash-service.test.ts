@@ -57,7 +57,9 @@ describePostgres('crash safety: service killed with SIGKILL mid-merge and mid-sp
     let busy = 0;
     let attempts = 0;
     for (let k = 0; k < KILLS; k++) {
-      const service = await startServe(['--db', database.url!, '--port', '0', '--db-timeout', '5000'], { env: childEnv({ CPREG_RATE_LIMIT_PER_MINUTE: 'off' }) });
+      const service = await startServe(['--db', database.url!, '--port', '0', '--db-timeout', '5000'], {
+        env: childEnv({ CPREG_RATE_LIMIT_PER_MINUTE: 'off' }),
+      });
       let stop = false;
       let killing = false;
       let cutOff = 0;
@@ -66,7 +68,12 @@ describePostgres('crash safety: service killed with SIGKILL mid-merge and mid-sp
         attempts++;
         inFlight[kind]++;
         try {
-          const res = await fetch(`${service.url}${path}`, { method: 'POST', headers: { authorization: `Bearer ${key}`, 'content-type': 'application/json' }, body: JSON.stringify(body), signal: AbortSignal.timeout(20_000) });
+          const res = await fetch(`${service.url}${path}`, {
+            method: 'POST',
+            headers: { authorization: `Bearer ${key}`, 'content-type': 'application/json' },
+            body: JSON.stringify(body),
+            signal: AbortSignal.timeout(20_000),
+          });
           const answer = { status: res.status, body: (await res.json()) as { eventId?: number; code?: string } };
           statuses[String(answer.status)] = (statuses[String(answer.status)] ?? 0) + 1;
           if (answer.status >= 500) {
@@ -89,7 +96,10 @@ describePostgres('crash safety: service killed with SIGKILL mid-merge and mid-sp
           if (wr.chance(0.5)) {
             const pair = await pickActive(wr, 2);
             if (pair.length < 2) continue;
-            const res = await post('merge', '/v1/counterparties/merge', { items: pair.map((p) => ({ id: p.id, etag: `"cp${p.id}.v${p.version}"` })), reason: 'crash test' });
+            const res = await post('merge', '/v1/counterparties/merge', {
+              items: pair.map((p) => ({ id: p.id, etag: `"cp${p.id}.v${p.version}"` })),
+              reason: 'crash test',
+            });
             if (res && res.status < 300 && res.body.eventId) acks.push({ type: 'merged', eventId: res.body.eventId });
           } else {
             const [cp] = await pickActive(wr, 1);
@@ -116,7 +126,9 @@ describePostgres('crash safety: service killed with SIGKILL mid-merge and mid-sp
       expect(atKill.merge + atKill.split, `round ${k}: requests in flight at the kill`).toBeGreaterThan(0);
     }
     const types = { merged: acks.filter((a) => a.type === 'merged').length, split: acks.filter((a) => a.type === 'split').length };
-    process.stdout.write(`crash-service: kills ${JSON.stringify(kills)}, acknowledged ${JSON.stringify(types)}, answers ${JSON.stringify(statuses)}, busy ${busy} of ${attempts}\n`);
+    process.stdout.write(
+      `crash-service: kills ${JSON.stringify(kills)}, acknowledged ${JSON.stringify(types)}, answers ${JSON.stringify(statuses)}, busy ${busy} of ${attempts}\n`,
+    );
     expect(unexpected).toEqual([]);
     // BUSY_RETRY (retries exhausted under contention) is an allowed refusal, but a rare one.
     expect(busy).toBeLessThanOrEqual(Math.ceil(attempts * 0.02));

@@ -11,12 +11,20 @@ import { insertChunk, insertJob, insertPartitions } from '../../db/queries/jobs.
 import { sql, type Kysely } from 'kysely';
 import { beforeAll, expect, it } from 'vitest';
 import type { Database } from '../../db/types.ts';
-import { createCounterparty, createRegisterContext, mergeCounterparties, resolveMention, setAsideMention, undoEvent, type RegisterContext } from '../../services/register/index.ts';
+import {
+  createCounterparty,
+  createRegisterContext,
+  mergeCounterparties,
+  resolveMention,
+  setAsideMention,
+  undoEvent,
+  type RegisterContext,
+} from '../../services/register/index.ts';
 import { storeContract } from '../../services/register/contracts.ts';
 import { forgetCounterparty } from '../../services/forget/index.ts';
 import { verifyRegister } from '../../services/verify/index.ts';
 import { describeEachBackend } from '../support/index.ts';
-import { keyedApp } from '../services/api/v1-support.ts';
+import { keyedApp } from '../services/api/support.ts';
 
 const WHO = { actor: 'test:forget' };
 const PERSON = 'Ottilie Vandersnoot';
@@ -27,7 +35,25 @@ const ADDRESS = '14 Quillet Lane, Marrowby';
 /** Everything stored, as text: every state table, the history, idempotency records and jobs. */
 async function everything(db: Kysely<Database>): Promise<string> {
   const parts: string[] = [];
-  for (const table of ['counterparty', 'counterparty_name', 'counterparty_identifier', 'blocking_key', 'mention', 'contract', 'defined_term', 'contract_party', 'review_item', 'labelled_pair', 'cannot_link', 'counterparty_relation', 'history_event', 'idempotency_record', 'job', 'job_chunk', 'job_partition']) {
+  for (const table of [
+    'counterparty',
+    'counterparty_name',
+    'counterparty_identifier',
+    'blocking_key',
+    'mention',
+    'contract',
+    'defined_term',
+    'contract_party',
+    'review_item',
+    'labelled_pair',
+    'cannot_link',
+    'counterparty_relation',
+    'history_event',
+    'idempotency_record',
+    'job',
+    'job_chunk',
+    'job_partition',
+  ]) {
     const rows = await sql<{ j: string }>`SELECT row_to_json(t)::text AS j FROM ${sql.table(table)} t`.execute(db);
     parts.push(...rows.rows.map((r) => r.j));
   }
@@ -49,17 +75,45 @@ describeEachBackend('forget a person', (t) => {
   beforeAll(async () => {
     ctx = createRegisterContext(t.db());
     personId = (await createCounterparty(ctx, { name: PERSON, kind: 'person', identifiers: [{ scheme: 'iban', value: IBAN }] }, WHO)).counterpartyId;
-    const first = await resolveMention(ctx, { source: 'crm', externalId: 'p1', text: PERSON, address: ADDRESS, identifiers: [{ scheme: 'iban', value: 'GB82 WEST 1234 5698 7654 32' }, { scheme: 'phone', value: PHONE }] }, WHO);
+    const first = await resolveMention(
+      ctx,
+      {
+        source: 'crm',
+        externalId: 'p1',
+        text: PERSON,
+        address: ADDRESS,
+        identifiers: [
+          { scheme: 'iban', value: 'GB82 WEST 1234 5698 7654 32' },
+          { scheme: 'phone', value: PHONE },
+        ],
+      },
+      WHO,
+    );
     expect(first).toMatchObject({ status: 'linked', counterpartyId: personId });
     // A second record of the same person, merged in: the erasure covers every id merged into the survivor.
-    const second = await createCounterparty(ctx, { name: `Dr ${PERSON}`, kind: 'person', identifiers: [{ scheme: 'email_domain', value: 'vandersnoot-family.example' }] }, WHO);
+    const second = await createCounterparty(
+      ctx,
+      { name: `Dr ${PERSON}`, kind: 'person', identifiers: [{ scheme: 'email_domain', value: 'vandersnoot-family.example' }] },
+      WHO,
+    );
     await mergeCounterparties(ctx, { ids: [personId, second.counterpartyId], survivorId: personId }, WHO);
-    await storeContract(ctx, { source: 'dms', externalId: 'c1', title: 'Consulting agreement', text: `This agreement is made between Harrowgate Lantern Works Ltd ("the Client") and ${PERSON} ("the Consultant").` }, WHO);
+    await storeContract(
+      ctx,
+      {
+        source: 'dms',
+        externalId: 'c1',
+        title: 'Consulting agreement',
+        text: `This agreement is made between Harrowgate Lantern Works Ltd ("the Client") and ${PERSON} ("the Consultant").`,
+      },
+      WHO,
+    );
     otherId = (await createCounterparty(ctx, { name: 'Harrowgate Lantern Works Ltd', kind: 'organisation' }, WHO)).counterpartyId;
     // A partitioned job still under way holds the person in its staged rows and in a partition's input.
     const jobId = await insertJob(t.db(), { kind: 'ingest', actor: 'test', status: 'running', params: { partitioned: true } });
     await insertChunk(t.db(), jobId, 0, [{ line: 1, mention: { source: 'upload', externalId: 'u1', text: PERSON, address: ADDRESS } }]);
-    await insertPartitions(t.db(), jobId, [[{ line: 2, mention: { source: 'upload', externalId: 'u2', text: `${PERSON} (sole trader)`, identifiers: [{ scheme: 'phone', value: PHONE }] } }]]);
+    await insertPartitions(t.db(), jobId, [
+      [{ line: 2, mention: { source: 'upload', externalId: 'u2', text: `${PERSON} (sole trader)`, identifiers: [{ scheme: 'phone', value: PHONE }] } }],
+    ]);
   });
 
   it('leaves none of the personal values anywhere, keeps the structure, records one forgotten event, verify passes', async () => {
@@ -76,7 +130,8 @@ describeEachBackend('forget a person', (t) => {
     const after = await everything(t.db());
     // Case-insensitive: a folded or upper-cased copy (a blocking key, a normalised column) is the person still.
     const folded = after.toLowerCase();
-    for (const value of [PERSON, IBAN, 'GB82 WEST 1234 5698 7654 32', PHONE, ADDRESS, 'Vandersnoot', 'vandersnoot-family.example']) expect(folded, value).not.toContain(value.toLowerCase());
+    for (const value of [PERSON, IBAN, 'GB82 WEST 1234 5698 7654 32', PHONE, ADDRESS, 'Vandersnoot', 'vandersnoot-family.example'])
+      expect(folded, value).not.toContain(value.toLowerCase());
     expect(after).toContain(result.pseudonym);
     // The other party of the contract keeps its name.
     expect(after).toContain('Harrowgate Lantern Works Ltd');
@@ -116,9 +171,17 @@ describeEachBackend('forget a person', (t) => {
     // (folded, so no copy escapes).
     const holders = after.split('\n').filter((line) => line.toLowerCase().includes('quenneville'));
     expect(holders.length).toBeGreaterThan(0);
-    for (const line of holders) expect(line.toLowerCase().includes('quenneville freight') || line.includes(`"counterparty_id":${company.counterpartyId},`), line.slice(0, 200)).toBe(true);
+    for (const line of holders)
+      expect(line.toLowerCase().includes('quenneville freight') || line.includes(`"counterparty_id":${company.counterpartyId},`), line.slice(0, 200)).toBe(
+        true,
+      );
     // The review item is still there for a person to decide, now between two pseudonymised records.
-    const item = await t.db().selectFrom('review_item').select(['status', 'right_counterparty_id']).where('mention_id', '=', initial.mentionId).executeTakeFirstOrThrow();
+    const item = await t
+      .db()
+      .selectFrom('review_item')
+      .select(['status', 'right_counterparty_id'])
+      .where('mention_id', '=', initial.mentionId)
+      .executeTakeFirstOrThrow();
     expect(item).toMatchObject({ status: 'open', right_counterparty_id: id });
     const mention = await t.db().selectFrom('mention').select('text').where('id', '=', initial.mentionId).executeTakeFirstOrThrow();
     expect(mention.text).toMatch(/^Forgotten Person [0-9A-F]{8}/);
@@ -134,7 +197,9 @@ describeEachBackend('forget a person', (t) => {
   it('POST /v1/counterparties/{id}/forget is admin-only and answers the erasure', async () => {
     const { app, call } = await keyedApp(t.db(), t.backend);
     try {
-      const id = (await createCounterparty(ctx, { name: 'Wilhelmina Crabtree-Oddy', kind: 'person', identifiers: [{ scheme: 'phone', value: '+442079460456' }] }, WHO)).counterpartyId;
+      const id = (
+        await createCounterparty(ctx, { name: 'Wilhelmina Crabtree-Oddy', kind: 'person', identifiers: [{ scheme: 'phone', value: '+442079460456' }] }, WHO)
+      ).counterpartyId;
       expect((await call(null, { method: 'POST', url: `/v1/counterparties/${id}/forget`, payload: {} })).statusCode).toBe(401);
       const denied = await call('write', { method: 'POST', url: `/v1/counterparties/${id}/forget`, payload: {} });
       expect(denied.statusCode).toBe(403);

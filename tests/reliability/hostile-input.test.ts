@@ -19,7 +19,7 @@ import { afterAll, beforeAll, expect, it } from 'vitest';
 import type { InjectOptions, LightMyRequestResponse } from 'fastify';
 import { createRegisterContext, resolveMention, stateSnapshot } from '../../services/register/index.ts';
 import { describeEachBackend } from '../support/index.ts';
-import { keyedApp, type KeyedApp } from '../services/api/v1-support.ts';
+import { keyedApp, type KeyedApp } from '../services/api/support.ts';
 import { liveRoutes, type LiveRoute } from './route-table.ts';
 import { NOT_UTF8, hostileMatrix, type HostileCase, type OpenApiDoc } from './hostile-matrix.ts';
 
@@ -36,7 +36,7 @@ const ATTACKS = [
   '../../../../etc/passwd',
   '{{7*7}}',
   '${jndi:ldap://example.invalid/a}',
-  "=HYPERLINK(\"http://example.invalid\")",
+  '=HYPERLINK("http://example.invalid")',
   '<script>alert(1)</script>',
   '\u0000',
   'a\u0000b',
@@ -64,7 +64,32 @@ const hostileString = fc.oneof(
   fc.constantFrom(1001, 10_000, 70_000).map((n) => 'Ä'.repeat(n)),
 );
 const hostileNumber = fc.constantFrom(1e308, -1e308, 2 ** 53 + 1, -0, 1.5, -1, 0, Number.MAX_SAFE_INTEGER, 2 ** 31);
-const FIELDS = ['text', 'source', 'externalId', 'ids', 'items', 'mentionIds', 'targetId', 'survivorId', 'reason', 'name', 'decision', 'scope', 'label', 'type', 'toId', 'identifiers', 'country', 'contract', 'title', 'kind', 'id', 'etag', '__proto__', 'constructor'];
+const FIELDS = [
+  'text',
+  'source',
+  'externalId',
+  'ids',
+  'items',
+  'mentionIds',
+  'targetId',
+  'survivorId',
+  'reason',
+  'name',
+  'decision',
+  'scope',
+  'label',
+  'type',
+  'toId',
+  'identifiers',
+  'country',
+  'contract',
+  'title',
+  'kind',
+  'id',
+  'etag',
+  '__proto__',
+  'constructor',
+];
 const hostileValue: fc.Arbitrary<unknown> = fc.letrec<{ value: unknown }>((tie) => ({
   value: fc.oneof(
     { depthSize: 'small' },
@@ -88,14 +113,45 @@ const hostileBody: fc.Arbitrary<{ payload: string | Buffer; contentType: string 
     contentType: 'application/json',
   }),
   fc.constant({ payload: '{"limit":1e999,"ids":[123456789012345678901234567890,-1e400],"survivorId":1e309}', contentType: 'application/json' }),
-  fc.uint8Array({ minLength: 1, maxLength: 64 }).map((bytes) => ({ payload: Buffer.concat([Buffer.from('{"text":"'), Buffer.from([0xff, 0xfe, 0xc3, 0x28, ...bytes]), Buffer.from('"}')]), contentType: 'application/json' })),
+  fc.uint8Array({ minLength: 1, maxLength: 64 }).map((bytes) => ({
+    payload: Buffer.concat([Buffer.from('{"text":"'), Buffer.from([0xff, 0xfe, 0xc3, 0x28, ...bytes]), Buffer.from('"}')]),
+    contentType: 'application/json',
+  })),
   fc.constantFrom('{"text": "abc', '', 'null', '[]', '"str"', '{"a":1,"a":2}').map((payload) => ({ payload, contentType: 'application/json' })),
-  fc.tuple(hostileString, fc.constantFrom('text/plain', 'application/x-ndjson', 'multipart/form-data; boundary=x', 'application/xml', 'application/json; charset=latin1', '')).map(([s, ct]) => ({ payload: s, contentType: ct })),
+  fc
+    .tuple(
+      hostileString,
+      fc.constantFrom('text/plain', 'application/x-ndjson', 'multipart/form-data; boundary=x', 'application/xml', 'application/json; charset=latin1', ''),
+    )
+    .map(([s, ct]) => ({ payload: s, contentType: ct })),
 );
 
-const hostileQuery = fc.dictionary(fc.oneof(fc.constantFrom('q', 'cursor', 'limit', 'source', 'externalId', 'includeRemoved', 'format', '__proto__', 'constructor[prototype]'), fc.string({ maxLength: 10 })), fc.oneof(hostileString, hostileNumber.map(String)), { maxKeys: 4 });
+const hostileQuery = fc.dictionary(
+  fc.oneof(
+    fc.constantFrom('q', 'cursor', 'limit', 'source', 'externalId', 'includeRemoved', 'format', '__proto__', 'constructor[prototype]'),
+    fc.string({ maxLength: 10 }),
+  ),
+  fc.oneof(hostileString, hostileNumber.map(String)),
+  { maxKeys: 4 },
+);
 const hostileParam = fc.oneof(
-  fc.constantFrom('1', '999999', '0', '-1', '1e999', '0x10', '99999999999999999999999', '__proto__', 'constructor', '%00', '%FF', '..%2F..%2Fetc', "1'%20OR%20'1'='1", 'register', 'history'),
+  fc.constantFrom(
+    '1',
+    '999999',
+    '0',
+    '-1',
+    '1e999',
+    '0x10',
+    '99999999999999999999999',
+    '__proto__',
+    'constructor',
+    '%00',
+    '%FF',
+    '..%2F..%2Fetc',
+    "1'%20OR%20'1'='1",
+    'register',
+    'history',
+  ),
   fc.string({ maxLength: 20 }).map((s) => encodeURIComponent(s) || 'x'),
 );
 const hostileHeaders = fc.record(
@@ -126,7 +182,6 @@ function expectProblem(res: LightMyRequestResponse, what: string): void {
     expect(String(body.type)).toMatch(/^urn:cpreg:problem:/);
   }
 }
-
 
 describeEachBackend('hostile input over HTTP', (t) => {
   let k: KeyedApp;
@@ -163,14 +218,31 @@ describeEachBackend('hostile input over HTTP', (t) => {
     const keys = routes.map((r) => `${r.method} ${r.path}`);
     expect(keys.length).toBeGreaterThan(40);
     // A few routes named so that a broken parser fails here, not silently by fuzzing nothing.
-    expect(keys).toEqual(expect.arrayContaining(['POST /v1/mentions', 'POST /v1/counterparties/merge', 'POST /v1/counterparties/:id/split', 'POST /v1/history/:eventId/undo', 'GET /healthz', 'POST /v1/counterparties/:id/forget']));
+    expect(keys).toEqual(
+      expect.arrayContaining([
+        'POST /v1/mentions',
+        'POST /v1/counterparties/merge',
+        'POST /v1/counterparties/:id/split',
+        'POST /v1/history/:eventId/undo',
+        'GET /healthz',
+        'POST /v1/counterparties/:id/forget',
+      ]),
+    );
   });
 
   // Runs before the random fuzzing: that test's lenient routes start jobs (sweep, reresolve) that go on changing
   // the register in the background, which this test's nothing-stored check would see.
   it('matrix: NUL, lone surrogate, out-of-range integers, deep JSON, wrong media types, invalid UTF-8 and other charsets in body, query and path of every route are each refused as expected, and nothing is stored', async () => {
     const count = async (table: 'history_event' | 'api_key' | 'job' | 'idempotency_record' | 'mention'): Promise<number> =>
-      Number((await t.db().selectFrom(table).select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n);
+      Number(
+        (
+          await t
+            .db()
+            .selectFrom(table)
+            .select((eb) => eb.fn.countAll<number>().as('n'))
+            .executeTakeFirstOrThrow()
+        ).n,
+      );
     const tables = ['history_event', 'api_key', 'job', 'idempotency_record', 'mention'] as const;
     const before = { state: await stateSnapshot(t.db()), counts: await Promise.all(tables.map(count)) };
     const cases: HostileCase[] = hostileMatrix(routes, openApi);
@@ -179,7 +251,10 @@ describeEachBackend('hostile input over HTTP', (t) => {
     const wrong: string[] = [];
     for (const [i, c] of cases.entries()) {
       // Bodies go with an Idempotency-Key: the body hash once overflowed the stack on deep JSON.
-      const body = c.payload === undefined ? {} : { payload: c.payload, headers: { 'content-type': c.contentType ?? 'application/json', 'idempotency-key': `matrix-${i}` } };
+      const body =
+        c.payload === undefined
+          ? {}
+          : { payload: c.payload, headers: { 'content-type': c.contentType ?? 'application/json', 'idempotency-key': `matrix-${i}` } };
       const res = await k.call('admin', { method: c.method as 'GET', url: c.url, ...body });
       tried[c.kind] = (tried[c.kind] ?? 0) + 1;
       const what = `${c.label}: ${res.statusCode} ${res.body.slice(0, 200)}`;
@@ -189,13 +264,16 @@ describeEachBackend('hostile input over HTTP', (t) => {
         answer !== undefined &&
         (c.expect.status === undefined || res.statusCode === c.expect.status) &&
         (c.expect.codes === undefined || c.expect.codes.includes(answer.code)) &&
-        (c.expect.pointer === undefined || (answer.errors ?? []).some((e) => e.pointer === c.expect.pointer && (c.expect.in === undefined || (e.in ?? 'body') === c.expect.in))) &&
+        (c.expect.pointer === undefined ||
+          (answer.errors ?? []).some((e) => e.pointer === c.expect.pointer && (c.expect.in === undefined || (e.in ?? 'body') === c.expect.in))) &&
         (c.expect.byteOffset === undefined || answer.byteOffset === c.expect.byteOffset);
       if (ok) refused[c.kind] = (refused[c.kind] ?? 0) + 1;
       else wrong.push(what);
     }
     const total = (r: Record<string, number>) => Object.values(r).reduce((a, b) => a + b, 0);
-    console.log(`hostile matrix [${t.backend}]: ${routes.length} routes, ${total(tried)} inputs tried, ${total(refused)} refused as expected; by kind tried ${JSON.stringify(tried)} refused ${JSON.stringify(refused)}`);
+    console.log(
+      `hostile matrix [${t.backend}]: ${routes.length} routes, ${total(tried)} inputs tried, ${total(refused)} refused as expected; by kind tried ${JSON.stringify(tried)} refused ${JSON.stringify(refused)}`,
+    );
     expect(wrong).toEqual([]);
     // Every route got a query-string NUL and surrogate; every route with a body got each body input; every path
     // parameter and declared integer got its input: far more than the route count, and every one refused.
@@ -206,7 +284,16 @@ describeEachBackend('hostile input over HTTP', (t) => {
     expect(tried['query surrogate']).toBe(routes.length);
     const withBody = routes.filter((r) => r.method !== 'GET').length;
     const notUtf8Kinds = NOT_UTF8.map(([name]) => `body not UTF-8 (${name})`);
-    for (const kind of ['body NUL', 'body surrogate', 'body out-of-range integer', 'body deep JSON', 'body wrong media type', 'body charset latin1', ...notUtf8Kinds]) expect(tried[kind], kind).toBe(withBody);
+    for (const kind of [
+      'body NUL',
+      'body surrogate',
+      'body out-of-range integer',
+      'body deep JSON',
+      'body wrong media type',
+      'body charset latin1',
+      ...notUtf8Kinds,
+    ])
+      expect(tried[kind], kind).toBe(withBody);
     expect(tried['path NUL']).toBeGreaterThan(15);
     expect(tried['path out-of-range integer']).toBeGreaterThan(15);
     expect(tried['query out-of-range integer']).toBeGreaterThan(5);
@@ -220,7 +307,15 @@ describeEachBackend('hostile input over HTTP', (t) => {
   it('property: malformed input on every route is never a 5xx, always problem+json, and changes nothing', async () => {
     const before = { state: await stateSnapshot(t.db()), events: await count('history_event'), keys: await count('api_key') };
     async function count(table: 'history_event' | 'api_key' | 'job'): Promise<number> {
-      return Number((await t.db().selectFrom(table).select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n);
+      return Number(
+        (
+          await t
+            .db()
+            .selectFrom(table)
+            .select((eb) => eb.fn.countAll<number>().as('n'))
+            .executeTakeFirstOrThrow()
+        ).n,
+      );
     }
     let requests = 0;
     let refused = 0;
@@ -228,24 +323,31 @@ describeEachBackend('hostile input over HTTP', (t) => {
     const fuzzRoutes = async (list: LiveRoute[], record: boolean) => {
       for (const route of list) {
         await fc.assert(
-          fc.asyncProperty(hostileBody, hostileQuery, hostileParam, hostileHeaders, fc.constantFrom('admin', 'write', 'read', 'garbage', 'none'), async (body, query, param, headers, who) => {
-            const url = fillPath(route.path, param);
-            const auth: Record<string, string> =
-              who === 'none' ? {} : who === 'garbage' ? { authorization: "Bearer 'OR1=1--" } : { authorization: `Bearer ${k.keys[who]}` };
-            const options: InjectOptions = {
-              method: route.method as 'GET',
-              url,
-              query: query as Record<string, string>,
-              headers: { ...headers, ...auth, ...(route.method === 'GET' || route.method === 'DELETE' ? {} : { 'content-type': body.contentType }) },
-              ...(route.method === 'GET' ? {} : { payload: body.payload }),
-            };
-            const res = await k.app.inject(options);
-            requests++;
-            if (res.statusCode >= 400) refused++;
-            const what = `${route.method} ${url} (${who}) body ${String(body.payload).slice(0, 120)}`;
-            expectProblem(res, what);
-            if (record && route.method !== 'GET' && res.statusCode < 300 && !route.path.startsWith('/console')) accepted.push(`${what} → ${res.statusCode}`);
-          }),
+          fc.asyncProperty(
+            hostileBody,
+            hostileQuery,
+            hostileParam,
+            hostileHeaders,
+            fc.constantFrom('admin', 'write', 'read', 'garbage', 'none'),
+            async (body, query, param, headers, who) => {
+              const url = fillPath(route.path, param);
+              const auth: Record<string, string> =
+                who === 'none' ? {} : who === 'garbage' ? { authorization: "Bearer 'OR1=1--" } : { authorization: `Bearer ${k.keys[who]}` };
+              const options: InjectOptions = {
+                method: route.method as 'GET',
+                url,
+                query: query as Record<string, string>,
+                headers: { ...headers, ...auth, ...(route.method === 'GET' || route.method === 'DELETE' ? {} : { 'content-type': body.contentType }) },
+                ...(route.method === 'GET' ? {} : { payload: body.payload }),
+              };
+              const res = await k.app.inject(options);
+              requests++;
+              if (res.statusCode >= 400) refused++;
+              const what = `${route.method} ${url} (${who}) body ${String(body.payload).slice(0, 120)}`;
+              expectProblem(res, what);
+              if (record && route.method !== 'GET' && res.statusCode < 300 && !route.path.startsWith('/console')) accepted.push(`${what} → ${res.statusCode}`);
+            },
+          ),
           { numRuns: RUNS_PER_ROUTE, seed: 20261202, endOnFailure: true },
         );
       }
@@ -268,7 +370,9 @@ describeEachBackend('hostile input over HTTP', (t) => {
     expect(requests).toBe(routes.length * RUNS_PER_ROUTE);
     // Counted, so that a run whose inputs were all refused for one trivial reason, or never sent, cannot pass
     // unnoticed: most random hostile inputs must be refused (a GET may answer 200 to a harmless query).
-    console.log(`hostile fuzz [${t.backend}]: ${requests} requests over ${routes.length} routes, ${refused} refused (4xx), ${requests - refused} answered 2xx/3xx; strict routes ${strictRefused} of ${strict.length * RUNS_PER_ROUTE} refused`);
+    console.log(
+      `hostile fuzz [${t.backend}]: ${requests} requests over ${routes.length} routes, ${refused} refused (4xx), ${requests - refused} answered 2xx/3xx; strict routes ${strictRefused} of ${strict.length * RUNS_PER_ROUTE} refused`,
+    );
     expect(refused).toBeGreaterThan(requests / 2);
     expect(({} as Record<string, unknown>).polluted).toBeUndefined();
   }, 300_000);
@@ -278,25 +382,32 @@ describeEachBackend('hostile input over HTTP', (t) => {
     let accepted = 0;
     let unstorableSent = 0;
     await fc.assert(
-      fc.asyncProperty(fc.oneof(fc.constantFrom(...ATTACKS), fc.string({ unit: 'grapheme', minLength: 1, maxLength: 60 }), fc.string({ unit: 'binary', minLength: 1, maxLength: 60 })), async (text) => {
-        const externalId = `h-${n++}`;
-        const res = await k.call('write', { method: 'POST', url: '/v1/mentions', payload: { source: 'fuzz', externalId, text } });
-        expectProblem(res, `POST /v1/mentions text ${JSON.stringify(text)}`);
-        const storable = !text.includes('\u0000') && (text as string & { isWellFormed(): boolean }).isWellFormed();
-        if (!storable) unstorableSent++;
-        if (res.statusCode >= 400) {
-          expect([400, 422], `${JSON.stringify(text)} → ${res.body}`).toContain(res.statusCode);
-          return;
-        }
-        accepted++;
-        const { mentionId } = res.json() as { mentionId: number };
-        const read = await k.call('read', { method: 'GET', url: `/v1/mentions/${mentionId}` });
-        expect(read.statusCode).toBe(200);
-        // Surrounding white space (String.prototype.trim's set, U+FEFF included) is trimmed by design; nothing else changes.
-        if ((text as string & { isWellFormed(): boolean }).isWellFormed()) expect([text, text.trim()]).toContain((read.json() as { text: string }).text);
-        const search = await k.call('read', { method: 'GET', url: '/v1/counterparties', query: { q: text.slice(0, 200) } });
-        expectProblem(search, `search ${JSON.stringify(text)}`);
-      }),
+      fc.asyncProperty(
+        fc.oneof(
+          fc.constantFrom(...ATTACKS),
+          fc.string({ unit: 'grapheme', minLength: 1, maxLength: 60 }),
+          fc.string({ unit: 'binary', minLength: 1, maxLength: 60 }),
+        ),
+        async (text) => {
+          const externalId = `h-${n++}`;
+          const res = await k.call('write', { method: 'POST', url: '/v1/mentions', payload: { source: 'fuzz', externalId, text } });
+          expectProblem(res, `POST /v1/mentions text ${JSON.stringify(text)}`);
+          const storable = !text.includes('\u0000') && (text as string & { isWellFormed(): boolean }).isWellFormed();
+          if (!storable) unstorableSent++;
+          if (res.statusCode >= 400) {
+            expect([400, 422], `${JSON.stringify(text)} → ${res.body}`).toContain(res.statusCode);
+            return;
+          }
+          accepted++;
+          const { mentionId } = res.json() as { mentionId: number };
+          const read = await k.call('read', { method: 'GET', url: `/v1/mentions/${mentionId}` });
+          expect(read.statusCode).toBe(200);
+          // Surrounding white space (String.prototype.trim's set, U+FEFF included) is trimmed by design; nothing else changes.
+          if ((text as string & { isWellFormed(): boolean }).isWellFormed()) expect([text, text.trim()]).toContain((read.json() as { text: string }).text);
+          const search = await k.call('read', { method: 'GET', url: '/v1/counterparties', query: { q: text.slice(0, 200) } });
+          expectProblem(search, `search ${JSON.stringify(text)}`);
+        },
+      ),
       { numRuns: process.env.CPREG_LONG === '1' ? 1000 : 150, seed: 7, endOnFailure: true },
     );
     // Counted, so that a run that refused everything (and so read nothing back) cannot pass: every text that can

@@ -55,8 +55,7 @@ export const NOT_UTF8: readonly [string, readonly number[]][] = [
   ['CESU-8 surrogate', [0xed, 0xa0, 0x80]],
 ];
 
-const isType = (schema: Schema | undefined, type: string): boolean =>
-  schema?.type === type || (Array.isArray(schema?.type) && schema.type.includes(type));
+const isType = (schema: Schema | undefined, type: string): boolean => schema?.type === type || (Array.isArray(schema?.type) && schema.type.includes(type));
 
 function paramNames(path: string): string[] {
   return [...path.matchAll(/:([A-Z]+)|\*$/gi)].map((m) => m[1] ?? '*');
@@ -110,9 +109,15 @@ export function hostileMatrix(routes: readonly LiveRoute[], doc: OpenApiDoc): Ho
     const queryParams = (op?.parameters ?? []).filter((p) => p.in === 'query');
     const textParam = queryParams.find((p) => isType(p.schema, 'string') && !p.schema?.enum)?.name ?? 'note';
     add('query NUL', { url: `${url}?${textParam}=${NUL}`, expect: { status: 400, codes: ['UNSTORABLE_TEXT'], pointer: `/${textParam}`, in: 'query' } });
-    add('query surrogate', { url: `${url}?${textParam}=${SURROGATE}`, expect: { status: 400, codes: ['UNSTORABLE_TEXT'], pointer: `/${textParam}`, in: 'query' } });
+    add('query surrogate', {
+      url: `${url}?${textParam}=${SURROGATE}`,
+      expect: { status: 400, codes: ['UNSTORABLE_TEXT'], pointer: `/${textParam}`, in: 'query' },
+    });
     for (const p of queryParams.filter((q) => isType(q.schema, 'integer'))) {
-      add('query out-of-range integer', { url: `${url}?${p.name}=${OUT_OF_RANGE}`, expect: { status: 422, codes: ['VALIDATION_FAILED'], pointer: `/${p.name}`, in: 'query' } });
+      add('query out-of-range integer', {
+        url: `${url}?${p.name}=${OUT_OF_RANGE}`,
+        expect: { status: 422, codes: ['VALIDATION_FAILED'], pointer: `/${p.name}`, in: 'query' },
+      });
     }
 
     // Path: each parameter in turn.
@@ -122,7 +127,10 @@ export function hostileMatrix(routes: readonly LiveRoute[], doc: OpenApiDoc): Ho
       add('path surrogate', { url: at(SURROGATE), expect: { status: 400, codes: ['BAD_REQUEST', 'UNSTORABLE_TEXT'] } });
       const integer = isType(params.get(`path:${name}`), 'integer');
       // A text parameter (a key id, a file under /console/) takes the digits as text: it names nothing (4xx).
-      add('path out-of-range integer', { url: at(OUT_OF_RANGE), expect: integer ? { status: 422, codes: ['VALIDATION_FAILED'], pointer: `/${name}`, in: 'path' } : {} });
+      add('path out-of-range integer', {
+        url: at(OUT_OF_RANGE),
+        expect: integer ? { status: 422, codes: ['VALIDATION_FAILED'], pointer: `/${name}`, in: 'path' } : {},
+      });
     }
 
     // Body: every route that reads one (fastify reads no body on GET).
@@ -143,14 +151,27 @@ export function hostileMatrix(routes: readonly LiveRoute[], doc: OpenApiDoc): Ho
     }
     for (const [i, field] of ints.entries()) {
       // Counted once per route (the first field) so that the per-kind count is the route count; the others too.
-      add(i === 0 ? 'body out-of-range integer' : 'body out-of-range integer (more fields)', { url, payload: field.json, expect: { status: 422, codes: ['VALIDATION_FAILED'], pointer: field.pointer, in: 'body' } });
+      add(i === 0 ? 'body out-of-range integer' : 'body out-of-range integer (more fields)', {
+        url,
+        payload: field.json,
+        expect: { status: 422, codes: ['VALIDATION_FAILED'], pointer: field.pointer, in: 'body' },
+      });
     }
     // Bytes that are not UTF-8 inside a JSON string (Unicode Table 3-7): refused with the offset, never read as U+FFFD.
     for (const [name, bytes] of NOT_UTF8) {
       const head = Buffer.from(`{${JSON.stringify(textField ?? 'note')}:"ab`);
-      add(`body not UTF-8 (${name})`, { url, payload: Buffer.concat([head, Buffer.from(bytes), Buffer.from('c"}')]), expect: { status: 400, codes: ['BODY_NOT_UTF8'], byteOffset: head.length } });
+      add(`body not UTF-8 (${name})`, {
+        url,
+        payload: Buffer.concat([head, Buffer.from(bytes), Buffer.from('c"}')]),
+        expect: { status: 400, codes: ['BODY_NOT_UTF8'], byteOffset: head.length },
+      });
     }
-    add('body charset latin1', { url, payload: '{}', contentType: 'application/json; charset=latin1', expect: { status: 415, codes: ['UNSUPPORTED_MEDIA_TYPE'], pointer: '/content-type', in: 'header' } });
+    add('body charset latin1', {
+      url,
+      payload: '{}',
+      contentType: 'application/json; charset=latin1',
+      expect: { status: 415, codes: ['UNSUPPORTED_MEDIA_TYPE'], pointer: '/content-type', in: 'header' },
+    });
     add('body deep JSON', { url, payload: DEEP_JSON, expect: { status: 422, codes: ['BODY_TOO_DEEP'] } });
     add('body wrong media type', { url, payload: 'source=s&text=t', contentType: 'text/plain', expect: { status: 415, codes: ['UNSUPPORTED_MEDIA_TYPE'] } });
   }

@@ -51,7 +51,8 @@ it('the console and docs page call only relative URLs (their own origin)', () =>
   const absolute: string[] = [];
   for (const file of browser) {
     const text = readFileSync(file, 'utf8');
-    for (const match of text.matchAll(/fetch\(\s*(['"`])([^'"`]*)\1/g)) if (/^[a-z]+:|^\/\//i.test(match[2]!)) absolute.push(`${relative(REPO_ROOT, file)}: ${match[2]}`);
+    for (const match of text.matchAll(/fetch\(\s*(['"`])([^'"`]*)\1/g))
+      if (/^[a-z]+:|^\/\//i.test(match[2]!)) absolute.push(`${relative(REPO_ROOT, file)}: ${match[2]}`);
   }
   expect(absolute).toEqual([]);
 });

@@ -77,7 +77,12 @@ export async function startOwnPostgres(): Promise<OwnPostgres> {
     stop,
     pids() {
       const main = Number(readFileSync(join(data, 'postmaster.pid'), 'utf8').split('\n')[0]);
-      const children = execFileSync('pgrep', ['-P', String(main)]).toString().trim().split('\n').filter(Boolean).map(Number);
+      const children = execFileSync('pgrep', ['-P', String(main)])
+        .toString()
+        .trim()
+        .split('\n')
+        .filter(Boolean)
+        .map(Number);
       return [main, ...children];
     },
     destroy() {

@@ -27,7 +27,11 @@ describeEachBackend('cpreg verify', (t) => {
     await runWorkload(ctx, seededRandom(10_2026), 60, 'v');
     // A sure merge, so that merged rows exist whatever the workload did. The LEI is invented, with valid ISO 17442
     // check digits (ISO 7064 MOD 97-10, computed with resolvers/identifiers/lei.ts).
-    const a = await resolveMention(ctx, { source: 'v', externalId: 'm-a', text: 'Pellowby Instruments Ltd', identifiers: [{ scheme: 'lei', value: 'CPREG0EXAMPLE0000185' }] }, WHO);
+    const a = await resolveMention(
+      ctx,
+      { source: 'v', externalId: 'm-a', text: 'Pellowby Instruments Ltd', identifiers: [{ scheme: 'lei', value: 'CPREG0EXAMPLE0000185' }] },
+      WHO,
+    );
     const b = await resolveMention(ctx, { source: 'v', externalId: 'm-b', text: 'Quarrendon Valves GmbH' }, WHO);
     await mergeCounterparties(ctx, { ids: [a.counterpartyId!, b.counterpartyId!], survivorId: a.counterpartyId!, reason: 'test' }, WHO);
   });
@@ -62,31 +66,68 @@ describeEachBackend('cpreg verify', (t) => {
     await db.updateTable('counterparty_name').set({ counterparty_id: mergedId }).where('id', '=', name.id).execute();
     // 3. a redirect loop (two merged counterparties pointing at each other; the constraints allow it)
     const now = new Date().toISOString();
-    const [x, y] = await db.insertInto('counterparty').values([{ canonical_name: 'Loopwell Ltd', created_at: now, updated_at: now }, { canonical_name: 'Loopwell Limited', created_at: now, updated_at: now }]).returning('id').execute();
+    const [x, y] = await db
+      .insertInto('counterparty')
+      .values([
+        { canonical_name: 'Loopwell Ltd', created_at: now, updated_at: now },
+        { canonical_name: 'Loopwell Limited', created_at: now, updated_at: now },
+      ])
+      .returning('id')
+      .execute();
     await db.updateTable('counterparty').set({ status: 'merged', merged_into: y!.id }).where('id', '=', x!.id).execute();
     await db.updateTable('counterparty').set({ status: 'merged', merged_into: x!.id }).where('id', '=', y!.id).execute();
     // 4. one LEI on two active counterparties (the partial unique index is dropped in this copy only, as a bug would bypass it)
     await sql`DROP INDEX counterparty_identifier_strong_uq`.execute(db);
-    const lei = await db.selectFrom('counterparty_identifier').select(['counterparty_id']).where('scheme', '=', 'lei').where('value', '=', 'CPREG0EXAMPLE0000185').executeTakeFirstOrThrow();
+    const lei = await db
+      .selectFrom('counterparty_identifier')
+      .select(['counterparty_id'])
+      .where('scheme', '=', 'lei')
+      .where('value', '=', 'CPREG0EXAMPLE0000185')
+      .executeTakeFirstOrThrow();
     const other = active.find((r) => Number(r.id) !== Number(lei.counterparty_id))!;
-    await db.insertInto('counterparty_identifier').values({ counterparty_id: other.id, scheme: 'lei', value: 'CPREG0EXAMPLE0000185', strong: true, created_at: new Date().toISOString() }).execute();
+    await db
+      .insertInto('counterparty_identifier')
+      .values({ counterparty_id: other.id, scheme: 'lei', value: 'CPREG0EXAMPLE0000185', strong: true, created_at: new Date().toISOString() })
+      .execute();
     // 5. a review item marked decided with nothing else recorded
     const review = await db
       .insertInto('review_item')
-      .values({ kind: 'duplicate', left_counterparty_id: active[0]!.id, right_counterparty_id: other.id, status: 'decided', decision: 'different', decided_by: 'someone', decided_at: new Date().toISOString(), created_at: new Date().toISOString() })
+      .values({
+        kind: 'duplicate',
+        left_counterparty_id: active[0]!.id,
+        right_counterparty_id: other.id,
+        status: 'decided',
+        decision: 'different',
+        decided_by: 'someone',
+        decided_at: new Date().toISOString(),
+        created_at: new Date().toISOString(),
+      })
       .returning('id')
       .executeTakeFirstOrThrow();
     // 6. an ingest run whose counts do not add up
-    const run = await db.insertInto('ingest_run').values({ source: 'v', actor: 'test', status: 'finished', counts: JSON.stringify({ read: 5, linked: 3, new: 1 }) }).returning('id').executeTakeFirstOrThrow();
+    const run = await db
+      .insertInto('ingest_run')
+      .values({ source: 'v', actor: 'test', status: 'finished', counts: JSON.stringify({ read: 5, linked: 3, new: 1 }) })
+      .returning('id')
+      .executeTakeFirstOrThrow();
     // 7. a change that no event records
     await db.updateTable('counterparty').set({ canonical_name: 'Edited Behind The History Ltd' }).where('id', '=', other.id).execute();
     // 8. a canonical name the canonical-value rules would not choose (a counterparty no person renamed)
-    const unlocked = await db.selectFrom('counterparty').select('id').where('status', '=', 'active').where('name_locked_by', 'is', null).where('id', '!=', other.id).orderBy('id', 'desc').executeTakeFirstOrThrow();
+    const unlocked = await db
+      .selectFrom('counterparty')
+      .select('id')
+      .where('status', '=', 'active')
+      .where('name_locked_by', 'is', null)
+      .where('id', '!=', other.id)
+      .orderBy('id', 'desc')
+      .executeTakeFirstOrThrow();
     await db.updateTable('counterparty').set({ canonical_name: 'planted lower-case name ltd' }).where('id', '=', unlocked.id).execute();
 
     const report = await verifyRegister(db);
     expect(report.ok).toBe(false);
-    expect(violationsOf(report, 'mention_not_on_active_counterparty')).toEqual([expect.objectContaining({ ids: { mentionId: Number(linked.id), counterpartyId: mergedId } })]);
+    expect(violationsOf(report, 'mention_not_on_active_counterparty')).toEqual([
+      expect.objectContaining({ ids: { mentionId: Number(linked.id), counterpartyId: mergedId } }),
+    ]);
     expect(violationsOf(report, 'merged_counterparty_owns_rows')).toEqual(
       expect.arrayContaining([
         expect.objectContaining({ ids: { counterpartyId: mergedId, nameId: Number(name.id) } }),
@@ -134,7 +175,10 @@ describe('cpreg verify (command line, embedded)', () => {
       expect(JSON.parse(good.stdout)).toMatchObject({ ok: true, counts: { counterparties: 1, mentions: 1 } });
 
       const again = await openDatabase(dir, { command: 'verify test' });
-      await again.db.insertInto('ingest_run').values({ source: 'cli', actor: 'test', status: 'finished', counts: JSON.stringify({ read: 2, linked: 1 }) }).execute();
+      await again.db
+        .insertInto('ingest_run')
+        .values({ source: 'cli', actor: 'test', status: 'finished', counts: JSON.stringify({ read: 2, linked: 1 }) })
+        .execute();
       await again.close();
       const bad = await runCli(['verify', '--db', dir]);
       expect(bad.code).toBe(1);

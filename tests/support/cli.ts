@@ -56,9 +56,7 @@ export function startServe(args: string[], options: { env?: NodeJS.ProcessEnv; t
       env: options.env ?? childEnv(),
     });
     let output = '';
-    const exited = new Promise<{ code: number | null; signal: NodeJS.Signals | null }>((done) =>
-      child.on('exit', (code, signal) => done({ code, signal })),
-    );
+    const exited = new Promise<{ code: number | null; signal: NodeJS.Signals | null }>((done) => child.on('exit', (code, signal) => done({ code, signal })));
     const timer = setTimeout(() => {
       child.kill('SIGKILL');
       reject(new Error(`cpreg serve did not start in time; output:\n${output}`));

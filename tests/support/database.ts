@@ -67,10 +67,7 @@ export function pgliteTemplate(): Blob {
  * A fresh migrated database: PGlite in memory loaded from the template dump (about half a second),
  * or a PostgreSQL database copied from the run's template. close() also drops the PostgreSQL copy.
  */
-export async function openTestDatabase(
-  backend: TestBackend,
-  options: Omit<OpenDatabaseOptions, 'loadDataDir'> = {},
-): Promise<TestDatabase> {
+export async function openTestDatabase(backend: TestBackend, options: Omit<OpenDatabaseOptions, 'loadDataDir'> = {}): Promise<TestDatabase> {
   if (backend === 'pglite') {
     const opened = await openDatabase('memory:', { ...options, loadDataDir: pgliteTemplate() });
     return { ...opened, backend };
@@ -102,7 +99,7 @@ export async function openTestDatabase(
  */
 export async function createPostgresCopy(): Promise<string> {
   const server = testEnvironment().postgres;
-  if (!server) throw new Error('no PostgreSQL in this run (see the run\'s first line)');
+  if (!server) throw new Error("no PostgreSQL in this run (see the run's first line)");
   const name = `${server.databasePrefix}${randomBytes(5).toString('hex')}`;
   await createDatabaseFromTemplate(server.adminUrl, name, server.templateDatabase);
   return withDatabase(server.adminUrl, name);

@@ -80,9 +80,7 @@ function templateHash(): string {
 
 // ------------------------------------------------------------------ PostgreSQL
 
-type Found =
-  | { adminUrl: string; source: PostgresTestServer['source']; stop?: () => Promise<void> }
-  | { reason: string };
+type Found = { adminUrl: string; source: PostgresTestServer['source']; stop?: () => Promise<void> } | { reason: string };
 
 async function findPostgres(): Promise<Found> {
   const url = process.env.DATABASE_URL;
@@ -143,11 +141,7 @@ async function withTimeout<T>(work: Promise<T>, ms: number, message: string): Pr
   }
 }
 
-async function preparePostgresTemplate(
-  adminUrl: string,
-  runTag: string,
-  source: PostgresTestServer['source'],
-): Promise<PostgresTestServer> {
+async function preparePostgresTemplate(adminUrl: string, runTag: string, source: PostgresTestServer['source']): Promise<PostgresTestServer> {
   await dropStaleDatabases(adminUrl);
   const templateDatabase = `${TEMPLATE_DATABASE_PREFIX}${runTag}`;
   await withAdminClient(adminUrl, async (client) => {
@@ -172,9 +166,7 @@ async function dropStaleDatabases(adminUrl: string): Promise<void> {
     for (const name of await listDatabases(adminUrl, prefix)) {
       const createdAt = Number(name.slice(prefix.length).split('_')[0]);
       if (!Number.isFinite(createdAt) || now - createdAt < STALE_AFTER_SECONDS) continue;
-      await withAdminClient(adminUrl, (client) => client.query(`DROP DATABASE IF EXISTS ${quoteIdent(name)}`)).catch(
-        () => undefined,
-      );
+      await withAdminClient(adminUrl, (client) => client.query(`DROP DATABASE IF EXISTS ${quoteIdent(name)}`)).catch(() => undefined);
     }
   }
 }

@@ -50,10 +50,7 @@ export async function dropDatabase(adminUrl: string, name: string): Promise<void
 
 export async function listDatabases(adminUrl: string, prefix: string): Promise<string[]> {
   return withAdminClient(adminUrl, async (client) => {
-    const { rows } = await client.query<{ datname: string }>(
-      `SELECT datname FROM pg_database WHERE starts_with(datname, $1) ORDER BY datname`,
-      [prefix],
-    );
+    const { rows } = await client.query<{ datname: string }>(`SELECT datname FROM pg_database WHERE starts_with(datname, $1) ORDER BY datname`, [prefix]);
     return rows.map((r) => r.datname);
   });
 }

@@ -58,7 +58,9 @@ export function canonicalJson(value: unknown): string {
         steps.push({ value: record });
         continue;
       }
-      const keys = Object.keys(record).filter((key) => !isDropped(record[key])).sort();
+      const keys = Object.keys(record)
+        .filter((key) => !isDropped(record[key]))
+        .sort();
       steps.push({ text: '}' });
       for (let i = keys.length - 1; i >= 0; i--) {
         const key = keys[i]!;

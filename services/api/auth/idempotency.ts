@@ -57,7 +57,9 @@ export const SECRET_NOT_STORED = '[secret not stored]';
  * same request), built iteratively (a deep body cannot overflow the stack; body-depth.ts also refuses one).
  */
 export function bodyHash(method: string, path: string, body: unknown): string {
-  return createHash('sha256').update(canonicalJson([method, path, body ?? null])).digest('hex');
+  return createHash('sha256')
+    .update(canonicalJson([method, path, body ?? null]))
+    .digest('hex');
 }
 
 export interface StoredAnswer {
@@ -75,7 +77,10 @@ export async function claimIdempotencyKey(
   input: { keyId: string; key: string; method: string; path: string; hash: string },
 ): Promise<ClaimResult> {
   if (Math.random() < 0.01) {
-    await db.deleteFrom('idempotency_record').where('created_at', '<', new Date(Date.now() - IDEMPOTENCY_TTL_HOURS * 3_600_000)).execute();
+    await db
+      .deleteFrom('idempotency_record')
+      .where('created_at', '<', new Date(Date.now() - IDEMPOTENCY_TTL_HOURS * 3_600_000))
+      .execute();
   }
   const inserted = await db
     .insertInto('idempotency_record')
@@ -230,10 +235,21 @@ export const idempotencyPlugin: AppPlugin = (app, deps) => {
       if (value !== undefined) headers[name] = String(value);
     }
     const contentType = reply.getHeader('content-type');
-    const sent = typeof payload === 'string' ? payload : Buffer.isBuffer(payload) ? payload.toString('utf8') : payload === null || payload === undefined ? '' : JSON.stringify(payload);
+    const sent =
+      typeof payload === 'string'
+        ? payload
+        : Buffer.isBuffer(payload)
+          ? payload.toString('utf8')
+          : payload === null || payload === undefined
+            ? ''
+            : JSON.stringify(payload);
     const body = replayBody(request, reply.statusCode, sent);
-    await storeIdempotentAnswer(deps.db, claim, { statusCode: reply.statusCode, contentType: contentType === undefined ? null : String(contentType), headers, body });
+    await storeIdempotentAnswer(deps.db, claim, {
+      statusCode: reply.statusCode,
+      contentType: contentType === undefined ? null : String(contentType),
+      headers,
+      body,
+    });
     return payload;
   });
 };
-

@@ -59,7 +59,11 @@ export async function createApiKey(db: Kysely<Database>, input: { scope: ApiScop
   const id = `k${randomBytes(6).toString('hex')}`;
   const secret = `cpreg_${id}_${randomBytes(32).toString('base64url')}`;
   const row = await db.transaction().execute(async (trx) => {
-    const created = await trx.insertInto('api_key').values({ id, label, scope: input.scope, secret_hash: digest(secret), created_at: new Date() }).returningAll().executeTakeFirstOrThrow();
+    const created = await trx
+      .insertInto('api_key')
+      .values({ id, label, scope: input.scope, secret_hash: digest(secret), created_at: new Date() })
+      .returningAll()
+      .executeTakeFirstOrThrow();
     // A retried POST /v1/keys whose answer was lost must not create a second key (db/idempotency-scope.ts).
     await markWorkCommitted(trx);
     return created;
@@ -74,7 +78,11 @@ export async function listApiKeys(db: Kysely<Database>, options: { includeRevoke
 }
 
 export async function getApiKey(db: Kysely<Database>, id: string): Promise<ApiKeyInfo | undefined> {
-  const row = await db.selectFrom('api_key').select(['id', 'label', 'scope', 'created_at', 'revoked_at', 'last_used_at']).where('id', '=', id).executeTakeFirst();
+  const row = await db
+    .selectFrom('api_key')
+    .select(['id', 'label', 'scope', 'created_at', 'revoked_at', 'last_used_at'])
+    .where('id', '=', id)
+    .executeTakeFirst();
   return row ? toInfo(row) : undefined;
 }
 

@@ -115,7 +115,10 @@ export const authPlugin: AppPlugin = (app, deps) => {
         throw new ApiError(
           'RATE_LIMITED',
           `key ${key.id} exceeded its rate limit of ${decision.limit} requests per minute (per service instance); retry in ${decision.retryAfterSeconds} s`,
-          { headers: { 'retry-after': String(decision.retryAfterSeconds) }, extensions: { limit: decision.limit, limitPer: 'minute', retryAfterSeconds: decision.retryAfterSeconds } },
+          {
+            headers: { 'retry-after': String(decision.retryAfterSeconds) },
+            extensions: { limit: decision.limit, limitPer: 'minute', retryAfterSeconds: decision.retryAfterSeconds },
+          },
         );
       }
     }

@@ -33,7 +33,10 @@ export class RateLimiter {
   private readonly buckets = new Map<string, Bucket>();
   private readonly perMs: number;
 
-  constructor(readonly options: RateLimitOptions, private readonly now: () => number = () => performance.now()) {
+  constructor(
+    readonly options: RateLimitOptions,
+    private readonly now: () => number = () => performance.now(),
+  ) {
     this.perMs = options.perMinute / 60_000;
   }
 

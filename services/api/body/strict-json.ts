@@ -12,16 +12,24 @@ import { decodeUtf8Strictly, declaredCharset, hexByte, isUtf8Charset } from '../
 export function bodyText(request: FastifyRequest, bytes: Buffer, what = 'the body'): string {
   const charset = declaredCharset(request.headers['content-type']);
   if (!isUtf8Charset(charset)) {
-    throw new ApiError('UNSUPPORTED_MEDIA_TYPE', `${what} is declared in a charset other than UTF-8; this API reads JSON in UTF-8 only (RFC 8259 §8.1): send it as UTF-8, with charset=utf-8 or no charset`, {
-      errors: [{ pointer: '/content-type', message: 'charset must be utf-8 (or absent)', in: 'header' }],
-    });
+    throw new ApiError(
+      'UNSUPPORTED_MEDIA_TYPE',
+      `${what} is declared in a charset other than UTF-8; this API reads JSON in UTF-8 only (RFC 8259 §8.1): send it as UTF-8, with charset=utf-8 or no charset`,
+      {
+        errors: [{ pointer: '/content-type', message: 'charset must be utf-8 (or absent)', in: 'header' }],
+      },
+    );
   }
   const decoded = decodeUtf8Strictly(bytes);
   if (!decoded.ok) {
     const line = lineAt(bytes, decoded.byteOffset);
-    throw new ApiError('BODY_NOT_UTF8', `${what} is not valid UTF-8: the byte ${hexByte(decoded.byte)} at byte offset ${decoded.byteOffset} (line ${line}) begins no well-formed sequence (RFC 3629); nothing was read`, {
-      extensions: { byteOffset: decoded.byteOffset, line },
-    });
+    throw new ApiError(
+      'BODY_NOT_UTF8',
+      `${what} is not valid UTF-8: the byte ${hexByte(decoded.byte)} at byte offset ${decoded.byteOffset} (line ${line}) begins no well-formed sequence (RFC 3629); nothing was read`,
+      {
+        extensions: { byteOffset: decoded.byteOffset, line },
+      },
+    );
   }
   return decoded.text;
 }

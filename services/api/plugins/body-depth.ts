@@ -28,7 +28,9 @@ export function nestsDeeperThan(value: unknown, limit: number): boolean {
 export const bodyDepthPlugin: AppPlugin = (app) => {
   app.addHook('preValidation', async (request) => {
     if (nestsDeeperThan(request.body, MAX_BODY_DEPTH)) {
-      throw new ApiError('BODY_TOO_DEEP', `the body nests arrays and objects deeper than ${MAX_BODY_DEPTH} levels`, { extensions: { maxDepth: MAX_BODY_DEPTH } });
+      throw new ApiError('BODY_TOO_DEEP', `the body nests arrays and objects deeper than ${MAX_BODY_DEPTH} levels`, {
+        extensions: { maxDepth: MAX_BODY_DEPTH },
+      });
     }
   });
 };

@@ -10,9 +10,4 @@ import { idempotencyPlugin } from '../auth/idempotency.ts';
 import { wellFormedTextPlugin } from './well-formed-text.ts';
 import { bodyDepthPlugin } from './body-depth.ts';
 
-export const APP_PLUGINS: AppPlugin[] = [
-  authPlugin,
-  idempotencyPlugin,
-  bodyDepthPlugin,
-  wellFormedTextPlugin,
-];
+export const APP_PLUGINS: AppPlugin[] = [authPlugin, idempotencyPlugin, bodyDepthPlugin, wellFormedTextPlugin];

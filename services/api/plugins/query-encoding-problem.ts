@@ -26,7 +26,10 @@ export function queryEncodingProblem(url: string): { pointer: string; message: s
     const value = eq < 0 ? '' : pair.slice(eq + 1);
     if (!decodes(name)) return { pointer: '', message: 'has a parameter name that is not percent-encoded UTF-8' };
     if (!decodes(value)) {
-      return { pointer: `/${pointerToken(decodeURIComponent(name.replaceAll('+', ' ')))}`, message: 'is not percent-encoded UTF-8 (a lone surrogate or a broken byte sequence)' };
+      return {
+        pointer: `/${pointerToken(decodeURIComponent(name.replaceAll('+', ' ')))}`,
+        message: 'is not percent-encoded UTF-8 (a lone surrogate or a broken byte sequence)',
+      };
     }
   }
   return undefined;

@@ -12,10 +12,7 @@ export const documentationRoutes: RoutePlugin = (app) => {
     reply
       .type('text/html; charset=utf-8')
       // The page's only script is inline and it fetches /openapi.json from this origin; nothing else loads.
-      .header(
-        'content-security-policy',
-        "default-src 'none'; script-src 'unsafe-inline'; style-src 'unsafe-inline'; connect-src 'self'; img-src 'self' data:",
-      )
+      .header('content-security-policy', "default-src 'none'; script-src 'unsafe-inline'; style-src 'unsafe-inline'; connect-src 'self'; img-src 'self' data:")
       .send(DOCS_PAGE),
   );
   const errors = errorsPage();

@@ -30,12 +30,16 @@ export const forgetRoutes: RoutePlugin = (app, deps) => {
         body: {
           type: 'object',
           additionalProperties: false,
-          properties: { reason: REASON, allowOrganisation: { type: 'boolean', default: false, description: 'also erase a counterparty recorded as an organisation' } },
+          properties: {
+            reason: REASON,
+            allowOrganisation: { type: 'boolean', default: false, description: 'also erase a counterparty recorded as an organisation' },
+          },
           example: { reason: 'erasure request 2026-114' },
         },
         response: { 200: FORGET_OUT, ...problemResponses(404, 409) },
       },
     },
-    async (request) => forgetCounterparty(ctx, request.params.id, actorOf(request, request.body?.reason), { allowOrganisation: request.body?.allowOrganisation ?? false }),
+    async (request) =>
+      forgetCounterparty(ctx, request.params.id, actorOf(request, request.body?.reason), { allowOrganisation: request.body?.allowOrganisation ?? false }),
   );
 };

@@ -50,7 +50,9 @@ export const healthRoutes: RoutePlugin = (app, deps) => {
       // Answering is not enough: a database created again empty answers too, and every call would then fail.
       const schema = await withDatabaseTimeout(schemaState(deps.db), timeoutMs).catch(() => null);
       if (!schema?.upToDate) {
-        const what = schema ? `${schema.missing.length} migration(s) not applied, ${schema.unknown.length} unknown to this service` : 'its migrations could not be read';
+        const what = schema
+          ? `${schema.missing.length} migration(s) not applied, ${schema.unknown.length} unknown to this service`
+          : 'its migrations could not be read';
         throw new ApiError('SCHEMA_NOT_READY', `the ${deps.backend} database answers but its schema is not ready: ${what}; run \`cpreg migrate\``, {
           headers: { 'retry-after': '5' },
         });

@@ -9,9 +9,4 @@ import { documentationRoutes } from './documentation.ts';
 import { V1_ROUTES } from './v1/index.ts';
 import { forgetRoutes } from './forget.ts';
 
-export const ROUTES: RoutePlugin[] = [
-  healthRoutes,
-  documentationRoutes,
-  ...V1_ROUTES,
-  forgetRoutes,
-];
+export const ROUTES: RoutePlugin[] = [healthRoutes, documentationRoutes, ...V1_ROUTES, forgetRoutes];

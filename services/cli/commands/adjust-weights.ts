@@ -23,11 +23,13 @@ export default function register(program: Command): void {
           return;
         }
         process.stdout.write(`${result.decisions} reviewers' decisions read, ${result.used} with levels of today's features\n`);
-        if (result.shifts.length === 0) process.stdout.write('no level moved (a level needs 5 decisions, and decisions the weights already agree with move nothing)\n');
+        if (result.shifts.length === 0)
+          process.stdout.write('no level moved (a level needs 5 decisions, and decisions the weights already agree with move nothing)\n');
         for (const s of result.shifts) {
           process.stdout.write(`  ${s.feature} ${s.level}: ${s.shift > 0 ? '+' : ''}${s.shift.toFixed(2)} bits (${s.same} same of ${s.decisions})\n`);
         }
-        if (result.version !== null) process.stdout.write(`stored as settings version ${result.version}; run \`cpreg reresolve\` to apply it to stored mentions\n`);
+        if (result.version !== null)
+          process.stdout.write(`stored as settings version ${result.version}; run \`cpreg reresolve\` to apply it to stored mentions\n`);
         else if (options.dryRun) process.stdout.write('dry run: nothing stored\n');
       });
     });

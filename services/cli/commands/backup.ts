@@ -19,7 +19,8 @@ export default function register(program: Command): void {
         const result = await backupEmbedded(options.db, options.out);
         process.stdout.write(options.json ? `${JSON.stringify(result)}\n` : `backed up ${result.source} to ${result.file} (${result.bytes} bytes)\n`);
       } catch (error) {
-        if (error instanceof BackupError || error instanceof DatabaseOpenError || error instanceof DatabaseLockedError) throw new CliError(error.message, 1, { cause: error });
+        if (error instanceof BackupError || error instanceof DatabaseOpenError || error instanceof DatabaseLockedError)
+          throw new CliError(error.message, 1, { cause: error });
         throw error;
       }
     });

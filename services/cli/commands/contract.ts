@@ -44,7 +44,7 @@ async function readContract(file: string): Promise<string> {
 }
 
 export default function register(program: Command): void {
-  const contract = program.command('contract').description('work with one contract\'s parties and defined terms');
+  const contract = program.command('contract').description("work with one contract's parties and defined terms");
   contract
     .command('parse')
     .description('print the parties, roles and defined terms found in a plain-text contract (nothing is stored)')
@@ -69,7 +69,6 @@ export default function register(program: Command): void {
       process.stdout.write(`${formatText(parsed, resolution, classifyNotParties(parsed.notParties))}\n`);
     });
 }
-
 
 function formatText(parsed: Parsed, resolution: Resolution | undefined, left: NotPartyGroups): string {
   const lines: string[] = [];
@@ -103,7 +102,12 @@ function formatText(parsed: Parsed, resolution: Resolution | undefined, left: No
   if (left.other.length > 0) lines.push(`Not parties: ${left.other.join('; ')}`);
   // An amendment or side letter: the register binds the terms it does not define through this earlier agreement.
   for (const a of parsed.earlierAgreements ?? []) {
-    const facts = [a.title, a.date === undefined ? undefined : `dated ${a.date}`, a.reference === undefined ? undefined : `reference ${a.reference}`, a.parties.length > 0 ? `between ${a.parties.join(' and ')}` : undefined];
+    const facts = [
+      a.title,
+      a.date === undefined ? undefined : `dated ${a.date}`,
+      a.reference === undefined ? undefined : `reference ${a.reference}`,
+      a.parties.length > 0 ? `between ${a.parties.join(' and ')}` : undefined,
+    ];
     lines.push(`Uses the defined terms of an earlier agreement: ${facts.filter((f) => f !== undefined).join(', ')}`);
   }
   for (const w of parsed.warnings ?? []) lines.push(`Warning: ${w}`);

@@ -26,7 +26,7 @@ export default function register(program: Command): void {
     .command('import')
     .description('import the PDF, Word (.docx) and text contracts of a folder, a zip or one file (run again: only new or changed files are imported)')
     .argument('<target>', 'a folder, a .zip archive, or one .pdf, .docx, .txt or .md file (the type is read from the content)')
-    .option('--source <name>', 'the source the contracts are stored under (with each file\'s path as its external id)', 'files')
+    .option('--source <name>', "the source the contracts are stored under (with each file's path as its external id)", 'files')
     .option('--recursive', 'also read the subfolders of a folder (an archive is always read whole)')
     .option('--rejects <file>', 'where the files not imported are listed with their reasons (default: <target>.rejects.csv)')
     .option('--db <target>', DB_OPTION_HELP)
@@ -50,7 +50,12 @@ export default function register(program: Command): void {
             recursive: options.recursive,
             rejectsFile,
             shouldStop: stop.requested,
-            onProgress: (p) => progress.update({ done: p.done, fraction: p.total > 0 ? p.done / p.total : undefined, note: p.tally.files.rejected > 0 ? `${p.tally.files.rejected} rejected` : undefined }),
+            onProgress: (p) =>
+              progress.update({
+                done: p.done,
+                fraction: p.total > 0 ? p.done / p.total : undefined,
+                note: p.tally.files.rejected > 0 ? `${p.tally.files.rejected} rejected` : undefined,
+              }),
           }),
         );
         progress.finish();

@@ -29,7 +29,9 @@ function parseSeed(value: string): number {
 export default function register(program: Command): void {
   program
     .command('demo')
-    .description('build the invented demo scenario into the database every command uses (./data/cpreg unless --db or DATABASE_URL say otherwise; reused when built), print what the register made of it, then serve the API (stop with Ctrl-C)')
+    .description(
+      'build the invented demo scenario into the database every command uses (./data/cpreg unless --db or DATABASE_URL say otherwise; reused when built), print what the register made of it, then serve the API (stop with Ctrl-C)',
+    )
     .showHelpAfterError(true)
     .option('--db <dir>', 'embedded database directory (default: $DATABASE_URL when it is a directory, else ./data/cpreg)')
     .option('--files <dir>', "where the scenario's files go (contracts, mentions, vendor master, truth.json; default: <db>-scenario)")

@@ -46,26 +46,30 @@ export default function register(program: Command): void {
     .option('--filter <column=value>', 'keep only rows where column=value (repeatable; values of one column are alternatives)', collect, [])
     .option('--exclude <column=value>', 'leave out rows where column=value (repeatable)', collect, [])
     .option('--acronym <column=value>', 'rows where column=value are acronyms (default: one upper-case token of 2-10 characters)')
-    .option('--method <method>', 'cpreg (the full pipeline), exact (equal after normalisation), jw (Jaro-Winkler >= 0.9 over all pairs) or jw-candidates (the same over cpreg\'s candidate pairs)', 'cpreg')
+    .option(
+      '--method <method>',
+      "cpreg (the full pipeline), exact (equal after normalisation), jw (Jaro-Winkler >= 0.9 over all pairs) or jw-candidates (the same over cpreg's candidate pairs)",
+      'cpreg',
+    )
     .option('--strip-country-qualifier', 'remove a trailing "(Country name)" display qualifier from names before matching')
     .option('--model <file.json>', 'cpreg: match model to score with (default: the built-in model)')
     .option('--train', "cpreg: re-estimate m and u by EM on this file's candidate pairs (labels are not used)")
     .option('--fix-u', 'cpreg with --train: hold u at the random-pair frequencies')
     .option('--learn-from-labels', "cpreg, for tuning: estimate m and u from this file's ground truth (never on the split you report)")
     .option('--entity-sample <fraction>', 'keep a stable subsample of whole entities (by a hash of the id), e.g. 0.3')
-    .option('--link-at <bits>', 'cpreg: override the model\'s link threshold (a pair links at this score or above)')
-    .option('--new-at <bits>', 'cpreg: override the model\'s new-record threshold (a pair at this score or below is a new record)')
+    .option('--link-at <bits>', "cpreg: override the model's link threshold (a pair links at this score or above)")
+    .option('--new-at <bits>', "cpreg: override the model's new-record threshold (a pair at this score or below is a new record)")
     .option('--save-model <file.json>', 'cpreg: write the model used (trained or loaded) to this file')
     .option('--max-block <n>', 'cpreg: blocks up to this size are paired exhaustively')
     .option('--window <n>', 'cpreg: sorted-neighbourhood window inside oversized blocks')
-    .option('--set-aside-shared-names', 'leave out rows whose (case-folded name, country) two or more ids share (the LEI data\'s scoring protocol)')
+    .option('--set-aside-shared-names', "leave out rows whose (case-folded name, country) two or more ids share (the LEI data's scoring protocol)")
     .option('--through-register', 'cpreg: ingest the rows into an empty register, as `cpreg ingest` would, and measure the links it stored')
     .option('--db <dir|url>', 'with --through-register: the empty register to use (default: a temporary embedded one, removed after)')
     .option('--batch-size <n>', 'with --through-register: rows per ingest batch (default 1000, as cpreg ingest)')
     .option('--out <folder>', 'write report.json, sweep.csv and sweep.svg (cpreg) into this folder')
     .option('--json', 'print the report as JSON')
     .action(async (file: string, flags: EvaluateFlags) => {
-      const { evaluateCommand } = await import('../../evaluate/evaluateCommand.ts');
+      const { evaluateCommand } = await import('../../evaluate/evaluate-command.ts');
       await evaluateCommand(file, flags).catch((error: unknown) => {
         if (error instanceof CliError) throw error;
         if (error instanceof Error && error.name === 'LabelledFileError') throw new CliError(error.message, 1, { cause: error });

@@ -39,7 +39,11 @@ export default function register(program: Command): void {
         await once(out, 'finish');
         progress.finish();
         const summary = { kind, format: options.format, rows, file: options.out };
-        process.stdout.write(options.json ? `${JSON.stringify(summary)}\n` : `exported ${countOf(rows, 'row')} of ${KIND_WORDS[kind as keyof typeof KIND_WORDS]} to ${options.out}\n`);
+        process.stdout.write(
+          options.json
+            ? `${JSON.stringify(summary)}\n`
+            : `exported ${countOf(rows, 'row')} of ${KIND_WORDS[kind as keyof typeof KIND_WORDS]} to ${options.out}\n`,
+        );
       }
     });
 }

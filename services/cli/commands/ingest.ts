@@ -42,14 +42,18 @@ export default function register(program: Command): void {
     .option('--batch-size <n>', 'rows resolved together', '1000')
     .option('--db <target>', DB_OPTION_HELP)
     .option('--json', 'print the summary as JSON')
-    .option('--as-job', 'run as a partitioned job: on PostgreSQL `cpreg worker` processes resolve the partitions (the result lists up to 1,000 rejected lines instead of a rejects file)')
+    .option(
+      '--as-job',
+      'run as a partitioned job: on PostgreSQL `cpreg worker` processes resolve the partitions (the result lists up to 1,000 rejected lines instead of a rejects file)',
+    )
     .option('--partition-size <n>', 'with --as-job: mentions per partition aimed at', '2000')
     .option('--no-wait', 'with --as-job: print the job id and return at once (follow it with `cpreg jobs show <id> --watch`)')
     .showHelpAfterError(true)
     .action(async (file: string, options: IngestCliOptions) => {
       const { existsSync } = await import('node:fs');
       if (!existsSync(file)) throw new CliError(`${file}: no such file`);
-      if (options.format !== undefined && options.format !== 'csv' && options.format !== 'ndjson') throw new CliError(`--format ${options.format}: expected csv or ndjson`);
+      if (options.format !== undefined && options.format !== 'csv' && options.format !== 'ndjson')
+        throw new CliError(`--format ${options.format}: expected csv or ndjson`);
       const batchSize = Number(options.batchSize);
       if (!Number.isInteger(batchSize) || batchSize < 1 || batchSize > 10_000) throw new CliError('--batch-size: expected a whole number from 1 to 10000');
       const { parseMapOptions, MappingError } = await import('../../ingest/mapping.ts');
@@ -65,7 +69,8 @@ export default function register(program: Command): void {
       }
       if (options.asJob) {
         const partitionSize = Number(options.partitionSize);
-        if (!Number.isInteger(partitionSize) || partitionSize < 1 || partitionSize > 1_000_000) throw new CliError('--partition-size: expected a whole number from 1 to 1000000');
+        if (!Number.isInteger(partitionSize) || partitionSize < 1 || partitionSize > 1_000_000)
+          throw new CliError('--partition-size: expected a whole number from 1 to 1000000');
         await ingestAsJob(file, { ...options, format, map, partitionSize });
         return;
       }
@@ -85,12 +90,19 @@ export default function register(program: Command): void {
             batchSize,
             shouldStop: stop.requested,
             onWarning: printWarning,
-            onProgress: (p) => progress.update({ done: p.counts.read, fraction: p.totalBytes > 0 ? p.bytesRead / p.totalBytes : undefined, note: p.counts.rejected > 0 ? `${p.counts.rejected} rejected` : undefined }),
+            onProgress: (p) =>
+              progress.update({
+                done: p.counts.read,
+                fraction: p.totalBytes > 0 ? p.bytesRead / p.totalBytes : undefined,
+                note: p.counts.rejected > 0 ? `${p.counts.rejected} rejected` : undefined,
+              }),
           }),
         );
         progress.finish();
         if (options.json) {
-          process.stdout.write(`${JSON.stringify({ ...summary, seconds: summary.elapsedMs / 1000, rowsPerSecond: summary.counts.read / (summary.elapsedMs / 1000) })}\n`);
+          process.stdout.write(
+            `${JSON.stringify({ ...summary, seconds: summary.elapsedMs / 1000, rowsPerSecond: summary.counts.read / (summary.elapsedMs / 1000) })}\n`,
+          );
         } else {
           const c = summary.counts;
           const lines = [
@@ -115,11 +127,22 @@ export default function register(program: Command): void {
     });
 }
 
-async function ingestAsJob(file: string, options: Omit<IngestCliOptions, 'format' | 'partitionSize' | 'map'> & { format: 'csv' | 'ndjson'; map: FieldMap; partitionSize: number }): Promise<void> {
+async function ingestAsJob(
+  file: string,
+  options: Omit<IngestCliOptions, 'format' | 'partitionSize' | 'map'> & { format: 'csv' | 'ndjson'; map: FieldMap; partitionSize: number },
+): Promise<void> {
   const { cliActor } = await import('../../ingest/cli-support.ts');
   const { submitIngestJob } = await import('../../jobs/submit-ingest.ts');
   const { submitAndFollow } = await import('./jobs.ts');
   await submitAndFollow(options.db, 'cpreg ingest', { json: options.json, wait: options.wait, label: 'ingest' }, (deps) =>
-    submitIngestJob(deps, { file, format: options.format, source: options.source, map: options.map, actor: cliActor(), partitionSize: options.partitionSize, onWarning: printWarning }),
+    submitIngestJob(deps, {
+      file,
+      format: options.format,
+      source: options.source,
+      map: options.map,
+      actor: cliActor(),
+      partitionSize: options.partitionSize,
+      onWarning: printWarning,
+    }),
   );
 }

@@ -102,7 +102,13 @@ const PARTITION_FIELDS = new Set(['partitions', 'retriedPartitions', 'crossPairs
 
 /** A result field in words: the table above, else its name split into words ("elapsedMs" → "elapsed ms"). */
 export function resultWords(key: string): string {
-  return RESULT_WORDS[key] ?? key.replace(/([a-z0-9])([A-Z])/g, '$1 $2').replaceAll('_', ' ').toLowerCase();
+  return (
+    RESULT_WORDS[key] ??
+    key
+      .replace(/([a-z0-9])([A-Z])/g, '$1 $2')
+      .replaceAll('_', ' ')
+      .toLowerCase()
+  );
 }
 
 export function describeJob(job: JobRow): string[] {
@@ -151,7 +157,10 @@ export default function register(program: Command): void {
         if (!job) throw new CliError(`job ${jobId} does not exist`);
         const partitions = await partitionTally(db, jobId);
         if (options.json) process.stdout.write(`${JSON.stringify({ ...job, partitions })}\n`);
-        else process.stdout.write(`${[...describeJob(job), `partitions: ${partitions.done} done, ${partitions.running} running, ${partitions.queued} queued of ${partitions.total}`].join('\n')}\n`);
+        else
+          process.stdout.write(
+            `${[...describeJob(job), `partitions: ${partitions.done} done, ${partitions.running} running, ${partitions.queued} queued of ${partitions.total}`].join('\n')}\n`,
+          );
       });
     });
 }

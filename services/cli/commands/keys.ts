@@ -25,7 +25,9 @@ export default function register(program: Command): void {
         throw new CliError(`--${(error as Error).message}`);
       }
       const { withDatabase } = await import('../../ingest/cli-support.ts');
-      const created = await withDatabase(options.db, 'cpreg keys create', 'writes', (db) => createApiKey(db, { scope: options.scope as 'read', label: options.label }));
+      const created = await withDatabase(options.db, 'cpreg keys create', 'writes', (db) =>
+        createApiKey(db, { scope: options.scope as 'read', label: options.label }),
+      );
       if (options.json) {
         process.stdout.write(`${JSON.stringify(created)}\n`);
         return;
@@ -48,7 +50,9 @@ export default function register(program: Command): void {
     .action(async (keyId: string, options: { db?: string; json?: boolean }) => {
       const { revokeApiKey, getApiKey } = await import('../../api/auth/keys.ts');
       const { withDatabase } = await import('../../ingest/cli-support.ts');
-      const key = await withDatabase(options.db, 'cpreg keys revoke', 'writes', async (db) => ((await getApiKey(db, keyId)) ? revokeApiKey(db, keyId) : undefined));
+      const key = await withDatabase(options.db, 'cpreg keys revoke', 'writes', async (db) =>
+        (await getApiKey(db, keyId)) ? revokeApiKey(db, keyId) : undefined,
+      );
       if (!key) throw new CliError(`no API key ${keyId}; cpreg keys list shows the key ids`);
       process.stdout.write(options.json ? `${JSON.stringify(key)}\n` : `key ${key.id} (${key.label}) revoked at ${key.revokedAt}\n`);
     });
@@ -72,7 +76,9 @@ export default function register(program: Command): void {
         return;
       }
       for (const k of list) {
-        process.stdout.write(`${k.id}  ${k.scope.padEnd(5)}  ${k.label}  created ${k.createdAt}${k.revokedAt ? `  revoked ${k.revokedAt}` : ''}${k.lastUsedAt ? `  last used ${k.lastUsedAt}` : ''}\n`);
+        process.stdout.write(
+          `${k.id}  ${k.scope.padEnd(5)}  ${k.label}  created ${k.createdAt}${k.revokedAt ? `  revoked ${k.revokedAt}` : ''}${k.lastUsedAt ? `  last used ${k.lastUsedAt}` : ''}\n`,
+        );
       }
     });
 }

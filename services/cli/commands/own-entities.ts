@@ -18,7 +18,12 @@ interface Opened {
  * Opens the register (services/cli/open-command-database.ts says which database, and whether it may be created),
  * runs `fn`, closes; register errors become one-line CLI errors.
  */
-export async function withRegister<T>(db: string | undefined, command: string, access: 'reads' | 'writes', fn: (opened: Opened, actor: string) => Promise<T>): Promise<T> {
+export async function withRegister<T>(
+  db: string | undefined,
+  command: string,
+  access: 'reads' | 'writes',
+  fn: (opened: Opened, actor: string) => Promise<T>,
+): Promise<T> {
   const { cliActor } = await import('../../register/open-register.ts');
   const { createRegisterContext } = await import('../../register/context.ts');
   const { RegisterError } = await import('../../register/errors.ts');
@@ -64,8 +69,16 @@ export default function register(program: Command): void {
       });
       await withRegister(options.db, 'cpreg own-entities add', 'writes', async ({ ctx }, actor) => {
         const { addOwnEntity } = await import('../../register/own-entities.ts');
-        const result = await addOwnEntity(ctx, { name, ...(options.country ? { country: options.country } : {}), identifiers }, { actor, ...(options.reason ? { reason: options.reason } : {}) });
-        print(options.json, result, result.created ? `added own entity ${result.ownEntityId}: ${name}` : `already listed as own entity ${result.ownEntityId}: ${name}`);
+        const result = await addOwnEntity(
+          ctx,
+          { name, ...(options.country ? { country: options.country } : {}), identifiers },
+          { actor, ...(options.reason ? { reason: options.reason } : {}) },
+        );
+        print(
+          options.json,
+          result,
+          result.created ? `added own entity ${result.ownEntityId}: ${name}` : `already listed as own entity ${result.ownEntityId}: ${name}`,
+        );
       });
     });
 
@@ -82,7 +95,10 @@ export default function register(program: Command): void {
       await withDatabase(options.db, 'cpreg own-entities list', 'reads', async (db) => {
         const { listOwnEntities } = await import('../../../db/queries/own-entities.ts');
         const list = await listOwnEntities(db, { includeRemoved: options.all === true });
-        const lines = list.length === 0 ? 'no own entities listed (add one with: cpreg own-entities add "<name>")' : list.map((o) => `${o.id}\t${o.name}${o.country ? `\t${o.country}` : ''}${o.removedAt ? '\t(removed)' : ''}`).join('\n');
+        const lines =
+          list.length === 0
+            ? 'no own entities listed (add one with: cpreg own-entities add "<name>")'
+            : list.map((o) => `${o.id}\t${o.name}${o.country ? `\t${o.country}` : ''}${o.removedAt ? '\t(removed)' : ''}`).join('\n');
         print(options.json, list, lines);
       });
     });

@@ -11,9 +11,16 @@ const collect = (value: string, previous: string[]): string[] => [...previous, v
 export default function register(program: Command): void {
   program
     .command('reconcile')
-    .description('reconcile an ERP vendor master with the register (read-only): matches, vendors without contracts, counterparties without vendor rows, duplicate vendors')
+    .description(
+      'reconcile an ERP vendor master with the register (read-only): matches, vendors without contracts, counterparties without vendor rows, duplicate vendors',
+    )
     .argument('<vendor-master.csv>', 'the vendor master as CSV with a header row')
-    .option('--map <field=column>', 'which column holds a field (repeat): id, name, taxId, registrationNumber, phone, email, iban, street, city, postalCode, country', collect, [])
+    .option(
+      '--map <field=column>',
+      'which column holds a field (repeat): id, name, taxId, registrationNumber, phone, email, iban, street, city, postalCode, country',
+      collect,
+      [],
+    )
     .option('--out <file>', 'write the report (one CSV row per finding) here')
     .option('--db <target>', DB_OPTION_HELP)
     .option('--json', 'print the summary and findings as JSON')

@@ -18,11 +18,15 @@ export default function register(program: Command): void {
       await withRegister(options.db, 'cpreg reresolve', 'writes', async ({ ctx }, actor) => {
         const { reresolve } = await import('../../register/reresolve.ts');
         const tty = process.stderr.isTTY && !options.json;
-        const summary = await reresolve(ctx, { actor, reason: options.reason ?? 'reresolve' }, {
-          onProgress: (s) => {
-            if (tty) process.stderr.write(`\rexamined ${s.examined}, changed ${s.changed}, failed ${s.failed}`);
+        const summary = await reresolve(
+          ctx,
+          { actor, reason: options.reason ?? 'reresolve' },
+          {
+            onProgress: (s) => {
+              if (tty) process.stderr.write(`\rexamined ${s.examined}, changed ${s.changed}, failed ${s.failed}`);
+            },
           },
-        });
+        );
         if (tty) process.stderr.write('\n');
         if (options.json) process.stdout.write(`${JSON.stringify(summary)}\n`);
         else {

@@ -19,10 +19,13 @@ export default function register(program: Command): void {
       try {
         const result = await restoreEmbedded(file, options.db, { force: options.force ?? false });
         process.stdout.write(
-          options.json ? `${JSON.stringify(result)}\n` : `restored ${file} into ${result.target}${result.replaced ? ' (replacing the database that was there)' : ''}\n`,
+          options.json
+            ? `${JSON.stringify(result)}\n`
+            : `restored ${file} into ${result.target}${result.replaced ? ' (replacing the database that was there)' : ''}\n`,
         );
       } catch (error) {
-        if (error instanceof BackupError || error instanceof DatabaseOpenError || error instanceof DatabaseLockedError) throw new CliError(error.message, 1, { cause: error });
+        if (error instanceof BackupError || error instanceof DatabaseOpenError || error instanceof DatabaseLockedError)
+          throw new CliError(error.message, 1, { cause: error });
         throw error;
       }
     });

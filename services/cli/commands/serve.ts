@@ -20,8 +20,7 @@ export function parseMilliseconds(value: string): number {
   return ms;
 }
 
-export const DB_OPTION_HELP =
-  'database: a postgres:// URL, a directory for the embedded database, or memory: (default: $DATABASE_URL, else ./data/cpreg)';
+export const DB_OPTION_HELP = 'database: a postgres:// URL, a directory for the embedded database, or memory: (default: $DATABASE_URL, else ./data/cpreg)';
 
 interface ServeCliOptions {
   port: number;
@@ -75,12 +74,7 @@ export async function runServe(options: ServeCliOptions, command: string): Promi
       onListening: options.json ? (info) => process.stdout.write(`${JSON.stringify(info)}\n`) : undefined,
     });
   } catch (error) {
-    if (
-      error instanceof DatabaseOpenError ||
-      error instanceof DatabaseLockedError ||
-      error instanceof MigrationError ||
-      error instanceof ListenError
-    ) {
+    if (error instanceof DatabaseOpenError || error instanceof DatabaseLockedError || error instanceof MigrationError || error instanceof ListenError) {
       throw new CliError(error.message, 1, { cause: error });
     }
     throw error;

@@ -20,26 +20,35 @@ export default function register(program: Command): void {
     .showHelpAfterError(true)
     .action(async (options: { blockSize: string; db?: string; json?: boolean; asJob?: boolean; partitionSize: string; wait: boolean }) => {
       const blockSize = Number(options.blockSize);
-      if (!Number.isInteger(blockSize) || blockSize < 1 || blockSize > 100_000) throw new CliError(`--block-size "${options.blockSize}" must be a whole number from 1 to 100000`);
+      if (!Number.isInteger(blockSize) || blockSize < 1 || blockSize > 100_000)
+        throw new CliError(`--block-size "${options.blockSize}" must be a whole number from 1 to 100000`);
       if (options.asJob) {
         const partitionSize = Number(options.partitionSize);
-        if (!Number.isInteger(partitionSize) || partitionSize < 1 || partitionSize > 1_000_000) throw new CliError(`--partition-size "${options.partitionSize}" must be a whole number from 1 to 1000000`);
+        if (!Number.isInteger(partitionSize) || partitionSize < 1 || partitionSize > 1_000_000)
+          throw new CliError(`--partition-size "${options.partitionSize}" must be a whole number from 1 to 1000000`);
         const { cliActor } = await import('../../ingest/cli-support.ts');
         const { submitSweepJob } = await import('../../jobs/steps.ts');
         const { submitAndFollow } = await import('./jobs.ts');
-        await submitAndFollow(options.db, 'cpreg sweep', { json: options.json, wait: options.wait, label: 'sweep' }, (deps) => submitSweepJob(deps, { actor: cliActor(), partitionSize }));
+        await submitAndFollow(options.db, 'cpreg sweep', { json: options.json, wait: options.wait, label: 'sweep' }, (deps) =>
+          submitSweepJob(deps, { actor: cliActor(), partitionSize }),
+        );
         return;
       }
       await withRegister(options.db, 'cpreg sweep', 'writes', async ({ ctx }, actor) => {
         const { sweep } = await import('../../register/sweep.ts');
         const { countOf } = await import('../../ingest/cli-support.ts');
         const tty = process.stderr.isTTY && !options.json;
-        const summary = await sweep(ctx, { actor, reason: 'duplicate sweep' }, {
-          blockSize,
-          onProgress: (s) => {
-            if (tty) process.stderr.write(`\rscanned ${countOf(s.scanned, 'counterparty')}, filed ${countOf(s.duplicateItems + s.affiliateItems, 'review item')}`);
+        const summary = await sweep(
+          ctx,
+          { actor, reason: 'duplicate sweep' },
+          {
+            blockSize,
+            onProgress: (s) => {
+              if (tty)
+                process.stderr.write(`\rscanned ${countOf(s.scanned, 'counterparty')}, filed ${countOf(s.duplicateItems + s.affiliateItems, 'review item')}`);
+            },
           },
-        });
+        );
         if (tty) process.stderr.write('\n');
         if (options.json) process.stdout.write(`${JSON.stringify(summary)}\n`);
         else

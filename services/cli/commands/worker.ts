@@ -28,15 +28,23 @@ export default function register(program: Command): void {
       const { startJobs } = await import('../../jobs/start-jobs.ts');
       const target = resolveTarget(options.db);
       if (!isPostgresUrl(target)) {
-        throw new CliError('cpreg worker needs PostgreSQL (--db postgres://… or DATABASE_URL): the embedded database runs its jobs inside `cpreg serve` or the command that submits them');
+        throw new CliError(
+          'cpreg worker needs PostgreSQL (--db postgres://… or DATABASE_URL): the embedded database runs its jobs inside `cpreg serve` or the command that submits them',
+        );
       }
       const { openCommandDatabase } = await import('../open-command-database.ts');
       const database = await openCommandDatabase(options.db, 'cpreg worker', { writes: true });
       const say = (line: string): void => void process.stderr.write(`${line}\n`);
       const log = (level: 'info' | 'warn' | 'error', fields: Record<string, unknown>, message: string): void => {
         const err = fields.err as Error | undefined;
-        if (options.json) process.stdout.write(`${JSON.stringify({ time: new Date().toISOString(), level, message, ...fields, ...(err ? { err: err.message } : {}) })}\n`);
-        else say(`cpreg worker: ${message} ${Object.entries(fields).map(([k, v]) => `${k}=${k === 'err' ? (v as Error).message : JSON.stringify(v)}`).join(' ')}`);
+        if (options.json)
+          process.stdout.write(`${JSON.stringify({ time: new Date().toISOString(), level, message, ...fields, ...(err ? { err: err.message } : {}) })}\n`);
+        else
+          say(
+            `cpreg worker: ${message} ${Object.entries(fields)
+              .map(([k, v]) => `${k}=${k === 'err' ? (v as Error).message : JSON.stringify(v)}`)
+              .join(' ')}`,
+          );
       };
       const jobs = await startJobs({ db: database.db, backend: database.backend, url: target, work: true, concurrency: options.concurrency, log });
       say(`cpreg: worker ${jobs.deps.worker} taking jobs from ${database.description} (${options.concurrency} at once; stop with Ctrl-C)`);

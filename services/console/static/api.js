@@ -55,7 +55,13 @@ async function problemOf(response) {
 export async function api(path, { method = 'GET', body, key = storedKey(), signal, extraHeaders } = {}) {
   let response;
   try {
-    response = await fetch(path, { method, headers: headers(key, extraHeaders, body !== undefined), body: body === undefined ? undefined : JSON.stringify(body), signal, cache: 'no-store' });
+    response = await fetch(path, {
+      method,
+      headers: headers(key, extraHeaders, body !== undefined),
+      body: body === undefined ? undefined : JSON.stringify(body),
+      signal,
+      cache: 'no-store',
+    });
   } catch (error) {
     if (error && error.name === 'AbortError') throw error;
     throw new ApiProblem(0, { title: 'No answer', detail: 'the service did not answer; check that it is running and the network is up', code: 'NETWORK' });

@@ -64,7 +64,13 @@ function collect(network, maxContracts) {
   for (const p of network.parties) {
     if (!shown.has(p.contractId)) continue;
     const key = p.counterpartyId !== null ? `cp${p.counterpartyId}` : p.ownEntityId !== null ? `own${p.ownEntityId}` : `m${p.contractId}-${p.name}`;
-    const entry = others.get(key) ?? { key, kind: p.counterpartyId !== null ? 'counterparty' : 'own', id: p.counterpartyId ?? p.ownEntityId, label: p.name, contractIds: [] };
+    const entry = others.get(key) ?? {
+      key,
+      kind: p.counterpartyId !== null ? 'counterparty' : 'own',
+      id: p.counterpartyId ?? p.ownEntityId,
+      label: p.name,
+      contractIds: [],
+    };
     entry.contractIds.push(p.contractId);
     edges.push({ from: `k${p.contractId}`, to: key, kind: 'party', label: p.role ?? '' });
     others.set(key, entry);
@@ -73,7 +79,8 @@ function collect(network, maxContracts) {
     const outgoing = r.fromCounterpartyId === network.counterparty.id;
     const otherId = outgoing ? r.toCounterpartyId : r.fromCounterpartyId;
     const key = `cp${otherId}`;
-    if (!others.has(key)) others.set(key, { key, kind: 'counterparty', id: otherId, label: r.relatedCanonicalName ?? `counterparty #${otherId}`, contractIds: [] });
+    if (!others.has(key))
+      others.set(key, { key, kind: 'counterparty', id: otherId, label: r.relatedCanonicalName ?? `counterparty #${otherId}`, contractIds: [] });
     edges.push({ from: outgoing ? selfKey : key, to: outgoing ? key : selfKey, kind: 'relation', label: r.type.replaceAll('_', ' ') });
   }
   const list = [...others.values()].map((o) => ({
@@ -85,7 +92,13 @@ function collect(network, maxContracts) {
     href: o.kind === 'counterparty' ? `#/counterparty/${o.id}` : undefined,
     detail: o.kind === 'own' ? 'our own entity' : undefined,
   }));
-  const self = { key: selfKey, kind: 'self', id: network.counterparty.id, label: network.counterparty.canonicalName, href: `#/counterparty/${network.counterparty.id}` };
+  const self = {
+    key: selfKey,
+    kind: 'self',
+    id: network.counterparty.id,
+    label: network.counterparty.canonicalName,
+    href: `#/counterparty/${network.counterparty.id}`,
+  };
   return { self, contracts, others: list, edges };
 }
 

@@ -9,15 +9,26 @@ export function whatHappened(event) {
   const d = event.details ?? {};
   switch (event.type) {
     case 'created':
-      return d.createdCounterpartyId ? ['Created counterparty ', cpLink(d.createdCounterpartyId), d.mentionId ? ` from mention ${d.mentionId}` : ''] : ['Created'];
+      return d.createdCounterpartyId
+        ? ['Created counterparty ', cpLink(d.createdCounterpartyId), d.mentionId ? ` from mention ${d.mentionId}` : '']
+        : ['Created'];
     case 'linked':
-      return [`Mention ${d.mentionId ?? event.mentionIds?.[0] ?? ''} linked`, d.counterpartyId ? [' to ', cpLink(d.counterpartyId)] : '', d.score !== null && d.score !== undefined ? (Math.abs(d.score) >= 1e5 ? ' (by a strong identifier)' : ` (score ${num(d.score, 1)})`) : ''];
+      return [
+        `Mention ${d.mentionId ?? event.mentionIds?.[0] ?? ''} linked`,
+        d.counterpartyId ? [' to ', cpLink(d.counterpartyId)] : '',
+        d.score !== null && d.score !== undefined ? (Math.abs(d.score) >= 1e5 ? ' (by a strong identifier)' : ` (score ${num(d.score, 1)})`) : '',
+      ];
     case 'unlinked':
       return [`Mention ${d.mentionId ?? event.mentionIds?.[0] ?? ''} unlinked`];
     case 'merged':
       return ['Merged ', list(d.mergedIds), ' into ', d.survivorId ? cpLink(d.survivorId) : '?'];
     case 'split':
-      return [`Split: ${plural((d.mentionIds ?? event.mentionIds ?? []).length, 'mention')} moved from `, d.sourceId ? cpLink(d.sourceId) : '?', ' to ', d.targetId ? cpLink(d.targetId) : '?'];
+      return [
+        `Split: ${plural((d.mentionIds ?? event.mentionIds ?? []).length, 'mention')} moved from `,
+        d.sourceId ? cpLink(d.sourceId) : '?',
+        ' to ',
+        d.targetId ? cpLink(d.targetId) : '?',
+      ];
     case 'renamed':
       return [`Renamed from “${d.from ?? '?'}” to “${d.to ?? '?'}”`];
     case 'jurisdiction_changed':
@@ -55,7 +66,11 @@ export function evidence(event) {
     'details',
     { class: 'evidence' },
     h('summary', null, 'Evidence'),
-    h('dl', { class: 'facts small' }, entries.flatMap(([k, v]) => [h('dt', null, keyWords(k)), h('dd', null, shortValue(v))])),
+    h(
+      'dl',
+      { class: 'facts small' },
+      entries.flatMap(([k, v]) => [h('dt', null, keyWords(k)), h('dd', null, shortValue(v))]),
+    ),
   );
 }
 

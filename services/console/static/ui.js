@@ -104,5 +104,9 @@ export function sectionWith(cls, title, ...children) {
 
 /** A key/value list. */
 export function facts(pairs) {
-  return h('dl', { class: 'facts' }, pairs.filter(([, v]) => v !== undefined).flatMap(([k, v]) => [h('dt', null, k), h('dd', null, v ?? '—')]));
+  return h(
+    'dl',
+    { class: 'facts' },
+    pairs.filter(([, v]) => v !== undefined).flatMap(([k, v]) => [h('dt', null, k), h('dd', null, v ?? '—')]),
+  );
 }

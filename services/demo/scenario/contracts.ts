@@ -36,7 +36,16 @@ export const ALL_ROLES: readonly string[] = [...new Set(KINDS.flatMap(([, a, b])
 
 const US_STATES: Readonly<Record<string, string>> = { 'US-DE': 'Delaware', 'US-CA': 'California', 'US-NY': 'New York', 'US-TX': 'Texas' };
 const COUNTRY_NAMES: Readonly<Record<string, string>> = {
-  GB: 'England and Wales', DE: 'Germany', FR: 'France', NL: 'the Netherlands', JP: 'Japan', AU: 'Australia', SE: 'Sweden', IT: 'Italy', ES: 'Spain', US: 'the United States',
+  GB: 'England and Wales',
+  DE: 'Germany',
+  FR: 'France',
+  NL: 'the Netherlands',
+  JP: 'Japan',
+  AU: 'Australia',
+  SE: 'Sweden',
+  IT: 'Italy',
+  ES: 'Spain',
+  US: 'the United States',
 };
 
 export interface PartyInput {
@@ -53,7 +62,16 @@ export interface PartyInput {
 }
 
 export function partyFromOwn(e: OwnEntity, rnd: Random): PartyInput {
-  return { ref: { kind: 'own_entity', id: e.id }, legalName: e.legalName, jurisdiction: e.jurisdiction, legalForm: e.legalForm, isPerson: false, identifiers: e.identifiers, addressText: formatAddress(e.address), signer: rnd.pick(e.signers) };
+  return {
+    ref: { kind: 'own_entity', id: e.id },
+    legalName: e.legalName,
+    jurisdiction: e.jurisdiction,
+    legalForm: e.legalForm,
+    isPerson: false,
+    identifiers: e.identifiers,
+    addressText: formatAddress(e.address),
+    signer: rnd.pick(e.signers),
+  };
 }
 
 export function partyFromCounterparty(c: ScenarioCounterparty, rnd: Random): PartyInput {
@@ -83,7 +101,9 @@ function describe(p: PartyInput, rnd: Random): string {
   // Companies House numbers starting "SC" belong to companies registered in Scotland.
   const scottish = p.identifiers.some((i) => i.scheme === 'gb_company' && i.value.startsWith('SC'));
   const place =
-    c === 'GB' ? `incorporated and registered in ${scottish ? 'Scotland' : 'England and Wales'}` : `a company incorporated under the laws of ${COUNTRY_NAMES[c]}`;
+    c === 'GB'
+      ? `incorporated and registered in ${scottish ? 'Scotland' : 'England and Wales'}`
+      : `a company incorporated under the laws of ${COUNTRY_NAMES[c]}`;
   const reg = registrationPhrase(p.identifiers, c);
   return `${place}${reg ? ` ${reg}` : ''}${rnd.chance(0.5) ? `, whose registered office is at ${p.addressText}` : ''}`;
 }
@@ -123,7 +143,12 @@ function q(term: string): string {
 
 function acronymOf(name: string): string | undefined {
   const words = name.split(/[\s,]+/).filter((w) => /^[A-Z][a-z]/.test(w));
-  return words.length >= 2 ? words.slice(0, 3).map((w) => w[0]).join('') : undefined;
+  return words.length >= 2
+    ? words
+        .slice(0, 3)
+        .map((w) => w[0])
+        .join('')
+    : undefined;
 }
 
 export interface ContractDraft {

@@ -9,19 +9,74 @@ import type { Address, OwnEntity, Person, ScenarioCounterparty } from './types.t
 export const GROUP_NAME = 'Orvanel';
 
 const CITIES: Readonly<Record<string, ReadonlyArray<readonly [string, string]>>> = {
-  'US-DE': [['Wilmington', 'DE 19801'], ['Dover', 'DE 19901'], ['Newark', 'DE 19711']],
-  'US-CA': [['San Jose', 'CA 95113'], ['Sacramento', 'CA 95814'], ['Oakland', 'CA 94612']],
-  'US-NY': [['Albany', 'NY 12207'], ['Buffalo', 'NY 14202'], ['Rochester', 'NY 14604']],
-  'US-TX': [['Austin', 'TX 78701'], ['Houston', 'TX 77002'], ['Dallas', 'TX 75201']],
-  GB: [['Leeds', 'LS1 4AP'], ['Bristol', 'BS1 5TR'], ['Manchester', 'M2 3WQ'], ['London', 'EC2A 4NE']],
-  DE: [['Hamburg', '20095'], ['Köln', '50667'], ['Stuttgart', '70173'], ['München', '80331']],
-  FR: [['Lyon', '69002'], ['Nantes', '44000'], ['Lille', '59000'], ['Paris', '75009']],
-  NL: [['Utrecht', '3511 AB'], ['Eindhoven', '5611 AZ'], ['Rotterdam', '3011 AD']],
-  JP: [['Osaka', '530-0001'], ['Nagoya', '450-0002'], ['Tokyo', '100-0005']],
-  AU: [['Brisbane', 'QLD 4000'], ['Perth', 'WA 6000'], ['Melbourne', 'VIC 3000']],
-  SE: [['Göteborg', '411 03'], ['Malmö', '211 20'], ['Uppsala', '753 20']],
-  IT: [['Torino', '10121'], ['Bologna', '40121'], ['Milano', '20121']],
-  ES: [['Valencia', '46002'], ['Zaragoza', '50001'], ['Sevilla', '41001']],
+  'US-DE': [
+    ['Wilmington', 'DE 19801'],
+    ['Dover', 'DE 19901'],
+    ['Newark', 'DE 19711'],
+  ],
+  'US-CA': [
+    ['San Jose', 'CA 95113'],
+    ['Sacramento', 'CA 95814'],
+    ['Oakland', 'CA 94612'],
+  ],
+  'US-NY': [
+    ['Albany', 'NY 12207'],
+    ['Buffalo', 'NY 14202'],
+    ['Rochester', 'NY 14604'],
+  ],
+  'US-TX': [
+    ['Austin', 'TX 78701'],
+    ['Houston', 'TX 77002'],
+    ['Dallas', 'TX 75201'],
+  ],
+  GB: [
+    ['Leeds', 'LS1 4AP'],
+    ['Bristol', 'BS1 5TR'],
+    ['Manchester', 'M2 3WQ'],
+    ['London', 'EC2A 4NE'],
+  ],
+  DE: [
+    ['Hamburg', '20095'],
+    ['Köln', '50667'],
+    ['Stuttgart', '70173'],
+    ['München', '80331'],
+  ],
+  FR: [
+    ['Lyon', '69002'],
+    ['Nantes', '44000'],
+    ['Lille', '59000'],
+    ['Paris', '75009'],
+  ],
+  NL: [
+    ['Utrecht', '3511 AB'],
+    ['Eindhoven', '5611 AZ'],
+    ['Rotterdam', '3011 AD'],
+  ],
+  JP: [
+    ['Osaka', '530-0001'],
+    ['Nagoya', '450-0002'],
+    ['Tokyo', '100-0005'],
+  ],
+  AU: [
+    ['Brisbane', 'QLD 4000'],
+    ['Perth', 'WA 6000'],
+    ['Melbourne', 'VIC 3000'],
+  ],
+  SE: [
+    ['Göteborg', '411 03'],
+    ['Malmö', '211 20'],
+    ['Uppsala', '753 20'],
+  ],
+  IT: [
+    ['Torino', '10121'],
+    ['Bologna', '40121'],
+    ['Milano', '20121'],
+  ],
+  ES: [
+    ['Valencia', '46002'],
+    ['Zaragoza', '50001'],
+    ['Sevilla', '41001'],
+  ],
 };
 
 const STREET_WORDS: Readonly<Record<string, readonly string[]>> = {
@@ -51,7 +106,16 @@ export function personName(rnd: Random): string {
   return `${rnd.pick(GIVEN_NAMES)} ${surname(rnd)}`;
 }
 
-const TITLES = ['Chief Executive Officer', 'Director', 'Managing Director', 'General Counsel', 'Head of Procurement', 'Chief Financial Officer', 'Vice President, Operations', 'Company Secretary'];
+const TITLES = [
+  'Chief Executive Officer',
+  'Director',
+  'Managing Director',
+  'General Counsel',
+  'Head of Procurement',
+  'Chief Financial Officer',
+  'Vice President, Operations',
+  'Company Secretary',
+];
 
 export function signers(rnd: Random, n: number): Person[] {
   return Array.from({ length: n }, () => ({ name: personName(rnd), title: rnd.pick(TITLES) }));
@@ -174,7 +238,9 @@ export function ownGroup(rnd: Random): OwnEntity[] {
     legalName,
     jurisdiction,
     legalForm,
-    identifiers: companyIdentifiers(rnd, jurisdiction, legalForm).filter((x) => x.scheme !== 'lei').concat(i === 0 ? [{ scheme: 'lei', value: ids.lei(rnd) }] : []),
+    identifiers: companyIdentifiers(rnd, jurisdiction, legalForm)
+      .filter((x) => x.scheme !== 'lei')
+      .concat(i === 0 ? [{ scheme: 'lei', value: ids.lei(rnd) }] : []),
     address: address(rnd, jurisdiction),
     parentId: i === 0 ? undefined : 'own-01',
     signers: signers(rnd, 2),
@@ -213,7 +279,14 @@ export interface CounterpartyPlan {
   persons: number;
 }
 
-export const DEFAULT_COUNTERPARTY_PLAN: CounterpartyPlan = { total: 150, parentSubsidiaryPairs: 6, lookalikePairs: 6, tradeNames: 6, formerNames: 6, persons: 4 };
+export const DEFAULT_COUNTERPARTY_PLAN: CounterpartyPlan = {
+  total: 150,
+  parentSubsidiaryPairs: 6,
+  lookalikePairs: 6,
+  tradeNames: 6,
+  formerNames: 6,
+  persons: 4,
+};
 
 /** The counterparties, in id order: plain companies, then subsidiaries of the first few, lookalikes, persons. */
 export function inventCounterparties(rnd: Random, plan: CounterpartyPlan = DEFAULT_COUNTERPARTY_PLAN): ScenarioCounterparty[] {

@@ -75,7 +75,14 @@ export function deVat(rnd: Random): string {
   return `DE${body}${check}`;
 }
 
-const DE_COURTS = ['Amtsgericht Hamburg', 'Amtsgericht München', 'Amtsgericht Köln', 'Amtsgericht Stuttgart', 'Amtsgericht Düsseldorf', 'Amtsgericht Frankfurt am Main'];
+const DE_COURTS = [
+  'Amtsgericht Hamburg',
+  'Amtsgericht München',
+  'Amtsgericht Köln',
+  'Amtsgericht Stuttgart',
+  'Amtsgericht Düsseldorf',
+  'Amtsgericht Frankfurt am Main',
+];
 
 /** DE commercial register entry: court, HRB (companies) or HRA (partnerships), number. */
 export function deRegister(rnd: Random, partnership: boolean): { court: string; type: string; number: string } {

@@ -126,7 +126,14 @@ interface PartyInfo {
 function infoOf(party: ContractParty, lookup: Lookup): PartyInfo {
   if (party.ref.kind === 'own_entity') {
     const e = lookup.ownEntities.get(party.ref.id)!;
-    return { legalForm: e.legalForm, jurisdiction: e.jurisdiction, isPerson: false, truth: { kind: 'own_entity', ownEntityId: e.id }, country: e.jurisdiction, identifiers: e.identifiers };
+    return {
+      legalForm: e.legalForm,
+      jurisdiction: e.jurisdiction,
+      isPerson: false,
+      truth: { kind: 'own_entity', ownEntityId: e.id },
+      country: e.jurisdiction,
+      identifiers: e.identifiers,
+    };
   }
   const c = lookup.counterparties.get(party.ref.id)!;
   return {
@@ -146,7 +153,13 @@ export function mentionsOfContract(contract: ScenarioContract, lookup: Lookup, r
   const out: ScenarioMention[] = [];
   const add = (text: string, truth: MentionTruth, style: MentionStyle, extra: Partial<MentionInput> = {}): void => {
     out.push({
-      input: { source: MENTION_SOURCE, externalId: `${contract.externalId}/${out.length + 1}`, text, contract: { source: contract.source, externalId: contract.externalId }, ...extra },
+      input: {
+        source: MENTION_SOURCE,
+        externalId: `${contract.externalId}/${out.length + 1}`,
+        text,
+        contract: { source: contract.source, externalId: contract.externalId },
+        ...extra,
+      },
       truth,
       style,
     });

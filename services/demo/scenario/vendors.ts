@@ -59,7 +59,7 @@ function rowOf(vendorId: string, p: Party, rnd: Random, name = erpName(p.name, r
     registrationNumber: reg && rnd.chance(0.5) ? reg.value : '',
     phone: localPhone(p.phone, rnd),
     email,
-    iban: p.iban && rnd.chance(0.85) ? (rnd.chance(0.5) ? friendlyFormatIBAN(p.iban) ?? p.iban : p.iban) : '',
+    iban: p.iban && rnd.chance(0.85) ? (rnd.chance(0.5) ? (friendlyFormatIBAN(p.iban) ?? p.iban) : p.iban) : '',
     street: p.address.street,
     city: p.address.city,
     postalCode: p.address.postalCode,
@@ -68,7 +68,17 @@ function rowOf(vendorId: string, p: Party, rnd: Random, name = erpName(p.name, r
 }
 
 function partyOf(c: ScenarioCounterparty): Party {
-  return { name: c.legalName, jurisdiction: c.jurisdiction, legalForm: c.legalForm, isPerson: c.kind === 'person', identifiers: c.identifiers, address: c.address, phone: c.phone, emailDomain: c.emailDomain, iban: c.iban };
+  return {
+    name: c.legalName,
+    jurisdiction: c.jurisdiction,
+    legalForm: c.legalForm,
+    isPerson: c.kind === 'person',
+    identifiers: c.identifiers,
+    address: c.address,
+    phone: c.phone,
+    emailDomain: c.emailDomain,
+    iban: c.iban,
+  };
 }
 
 /** A name variant another clerk would type for the same company. */
@@ -137,7 +147,12 @@ export function buildVendorMaster(rnd: Random, counterparties: readonly Scenario
     second.phone = localPhone(phone(rnd, c.jurisdiction), rnd);
     second.iban = '';
     push(second, { kind: 'counterparty', id: c.id });
-    duplicates.push({ vendorIds: [first.vendorId, second.vendorId], expectedFinding: 'same_entity', sameEntity: true, shared: [tax ? 'tax_id' : 'registration_number'] });
+    duplicates.push({
+      vendorIds: [first.vendorId, second.vendorId],
+      expectedFinding: 'same_entity',
+      sameEntity: true,
+      shared: [tax ? 'tax_id' : 'registration_number'],
+    });
   }
   for (const c of phoneDupes) {
     const first = rowOfCounterparty.get(c.id)!;
@@ -155,7 +170,18 @@ export function buildVendorMaster(rnd: Random, counterparties: readonly Scenario
     const first = rowOfCounterparty.get(c.id)!;
     const p = partyOf(c);
     const payee = coinedWord(rnd);
-    const second = rowOf(newId(), { ...p, name: `${payee} Payments`, phone: phone(rnd, c.jurisdiction), address: address(rnd, c.jurisdiction), identifiers: [], emailDomain: `${payee.toLowerCase()}.example` }, rnd);
+    const second = rowOf(
+      newId(),
+      {
+        ...p,
+        name: `${payee} Payments`,
+        phone: phone(rnd, c.jurisdiction),
+        address: address(rnd, c.jurisdiction),
+        identifiers: [],
+        emailDomain: `${payee.toLowerCase()}.example`,
+      },
+      rnd,
+    );
     first.iban = c.iban!;
     second.iban = friendlyFormatIBAN(c.iban!) ?? c.iban!;
     push(second, { kind: 'counterparty', id: c.id });
@@ -187,7 +213,17 @@ export function buildVendorMaster(rnd: Random, counterparties: readonly Scenario
     const jurisdiction = pickJurisdiction(rnd);
     const form = LEGAL_FORMS[countryOf(jurisdiction)]![0]!.canonical;
     const name = `${core} ${rnd.pick(INDUSTRIES)} ${form}`;
-    const p: Party = { name, jurisdiction, legalForm: form, isPerson: false, identifiers: companyIdentifiers(rnd, jurisdiction, form), address: address(rnd, jurisdiction), phone: phone(rnd, jurisdiction), emailDomain: `${core.toLowerCase()}.example`, iban: makeIban(rnd, countryOf(jurisdiction)) };
+    const p: Party = {
+      name,
+      jurisdiction,
+      legalForm: form,
+      isPerson: false,
+      identifiers: companyIdentifiers(rnd, jurisdiction, form),
+      address: address(rnd, jurisdiction),
+      phone: phone(rnd, jurisdiction),
+      emailDomain: `${core.toLowerCase()}.example`,
+      iban: makeIban(rnd, countryOf(jurisdiction)),
+    };
     const row = push(rowOf(newId(), p, rnd), { kind: 'vendor_only', id: `vo-${String(i + 1).padStart(3, '0')}`, name });
     if (i < 2) row.iban = agentIban;
     vendorsWithoutContract.push(row.vendorId);
@@ -202,5 +238,10 @@ export function buildVendorMaster(rnd: Random, counterparties: readonly Scenario
     { header: true, columns: VENDOR_COLUMNS, record_delimiter: '\r\n' },
   );
   truthRows.sort((a, b) => a.vendorId.localeCompare(b.vendorId));
-  return { columns: VENDOR_COLUMNS, csv, rows, truth: { rows: truthRows, duplicates, vendorsWithoutContract, counterpartiesWithoutVendor, distinctLookalikes } };
+  return {
+    columns: VENDOR_COLUMNS,
+    csv,
+    rows,
+    truth: { rows: truthRows, duplicates, vendorsWithoutContract, counterpartiesWithoutVendor, distinctLookalikes },
+  };
 }

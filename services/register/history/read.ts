@@ -2,7 +2,11 @@
 import type { RegisterContext } from '../context.ts';
 import { eventsAfter, eventsOfCounterparty, getEvent, type HistoryEventView } from '../../../db/queries/history.ts';
 
-export function counterpartyHistory(ctx: RegisterContext, counterpartyId: number, page: { beforeId?: number; limit?: number } = {}): Promise<HistoryEventView[]> {
+export function counterpartyHistory(
+  ctx: RegisterContext,
+  counterpartyId: number,
+  page: { beforeId?: number; limit?: number } = {},
+): Promise<HistoryEventView[]> {
   return eventsOfCounterparty(ctx.db, counterpartyId, page);
 }
 

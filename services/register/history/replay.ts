@@ -65,7 +65,5 @@ export async function replayHistory(
 }
 
 export async function resetSequence(db: Kysely<Database>, table: string): Promise<void> {
-  await sql`SELECT setval(pg_get_serial_sequence(${table}, 'id'), coalesce((SELECT max(id) FROM ${sql.table(table)}), 0) + 1, false)`.execute(
-    db,
-  );
+  await sql`SELECT setval(pg_get_serial_sequence(${table}, 'id'), coalesce((SELECT max(id) FROM ${sql.table(table)}), 0) + 1, false)`.execute(db);
 }

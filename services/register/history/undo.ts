@@ -80,11 +80,10 @@ export async function undoEvent(ctx: RegisterContext, eventId: number, who: Acto
     const blockers = await blockingEvents(trx, { id: eventId, counterparty_ids: cps, mention_ids: mentions });
     if (blockers.length > 0) {
       const list = blockers.map((b) => `${b.id} (${b.type})`).join(', ');
-      throw new RegisterError(
-        'UNDO_BLOCKED',
-        `event ${eventId} cannot be undone while later events that depend on it stand: ${list}; undo those first`,
-        { eventId, blockingEvents: blockers },
-      );
+      throw new RegisterError('UNDO_BLOCKED', `event ${eventId} cannot be undone while later events that depend on it stand: ${list}; undo those first`, {
+        eventId,
+        blockingEvents: blockers,
+      });
     }
     const payload = event.payload as unknown as EventPayload;
     const inverses: Op[] = [];

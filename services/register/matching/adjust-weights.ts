@@ -1,5 +1,5 @@
 /**
- * Reviewers' decisions adjust the weights in force, within bounds (resolvers/score/adjustFromDecisions.ts says
+ * Reviewers' decisions adjust the weights in force, within bounds (resolvers/score/adjust-from-decisions.ts says
  * how and why bounded). Reads every decided mention or duplicate pair kept in labelled_pair, rebuilds each one's
  * comparison vector from the levels its explanation recorded, and stores the adjusted model as a new settings
  * version (thresholds unchanged). Mentions already resolved keep their outcome until `cpreg reresolve`.
@@ -49,9 +49,15 @@ export async function adjustWeights(ctx: RegisterContext, who: ActorInput, optio
   const adjusted = adjustFromDecisions(model, decided);
   // Compared shift by shift: the stored model comes back from JSON (jsonb orders keys its own way).
   const unchanged = Object.entries(adjusted.model.features).every(([name, f]) => sameShift(f.shift, model.features[name]?.shift));
-  const version = options.dryRun || unchanged
-    ? null
-    : await writeSettings(ctx.db, { linkAt: model.linkAt, newAt: model.newAt, weights: adjusted.model as unknown as Record<string, unknown>, updatedBy: who.actor });
+  const version =
+    options.dryRun || unchanged
+      ? null
+      : await writeSettings(ctx.db, {
+          linkAt: model.linkAt,
+          newAt: model.newAt,
+          weights: adjusted.model as unknown as Record<string, unknown>,
+          updatedBy: who.actor,
+        });
   return { decisions: pairs.length, used: decided.length, shifts: adjusted.shifts, version, model: adjusted.model };
 }
 

@@ -61,7 +61,10 @@ export class BatchReads implements RarityReads {
   }
 
   /** Fetches the candidates of many probes in one statement (see candidateDetailsBatch). */
-  async prefetch(probes: { analysis: NameAnalysis; identifiers: Identifier[]; country?: string | null; input?: { country?: string | null } }[], limit: number): Promise<void> {
+  async prefetch(
+    probes: { analysis: NameAnalysis; identifiers: Identifier[]; country?: string | null; input?: { country?: string | null } }[],
+    limit: number,
+  ): Promise<void> {
     const todo = new Map<string, { keys: string[]; identifiers: Identifier[]; country: string | null }>();
     for (const probe of probes) {
       const keys = keysOfAnalysis(probe.analysis);
@@ -90,7 +93,12 @@ export class BatchReads implements RarityReads {
     return this.details.get(detailKey(keys, identifiers, country));
   }
 
-  rememberDetails(keys: readonly string[], identifiers: readonly { scheme: string; value: string }[], country: string | null, details: CandidateDetail[]): void {
+  rememberDetails(
+    keys: readonly string[],
+    identifiers: readonly { scheme: string; value: string }[],
+    country: string | null,
+    details: CandidateDetail[],
+  ): void {
     this.details.set(detailKey(keys, identifiers, country), details);
   }
 

@@ -10,8 +10,8 @@
  */
 import type { MatchRecord } from '../../../resolvers/block/index.ts';
 import { featureWeights, FEATURE_NAMES, type MatchModel } from '../../../resolvers/score/index.ts';
-import { acronymLevel, jurisdictionLevel, legalFormLevel } from '../../../resolvers/score/contextLevels.ts';
-import { qualifierLevel } from '../../../resolvers/score/compareRecords.ts';
+import { acronymLevel, jurisdictionLevel, legalFormLevel } from '../../../resolvers/score/context-levels.ts';
+import { qualifierLevel } from '../../../resolvers/score/compare-records.ts';
 
 /** Weight of one observed level under the model (an unobserved or unknown level weighs 0, as in explainLevels). */
 function weightOf(model: MatchModel, feature: string, level: string | null): number {

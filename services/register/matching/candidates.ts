@@ -87,7 +87,13 @@ export async function scoredCandidatesWithFormer(
   return { current: state.list(false, true), former: state.list(true, true) };
 }
 
-async function scoringState(db: Queryable, probe: Probe, model: MatchModel, exclude: ReadonlySet<number>, reads: BatchReads | undefined): Promise<ScoringState> {
+async function scoringState(
+  db: Queryable,
+  probe: Probe,
+  model: MatchModel,
+  exclude: ReadonlySet<number>,
+  reads: BatchReads | undefined,
+): Promise<ScoringState> {
   const memoKey = { country: probe.country ?? null, identifiers: probe.identifiers, exclude };
   const memo = reads?.scoredFor<ScoringState>(probe.analysis, memoKey);
   if (memo && memo.model === model) return memo;
@@ -154,7 +160,14 @@ class ScoringState {
     candidateCounts.fetched += analysed.length;
   }
 
-  static async create(db: Queryable, probe: Probe, details: readonly CandidateDetail[], model: MatchModel, exclude: ReadonlySet<number>, reads: BatchReads | undefined): Promise<ScoringState> {
+  static async create(
+    db: Queryable,
+    probe: Probe,
+    details: readonly CandidateDetail[],
+    model: MatchModel,
+    exclude: ReadonlySet<number>,
+    reads: BatchReads | undefined,
+  ): Promise<ScoringState> {
     const analysed: AnalysedCandidate[] = details.map((cp) => ({
       id: cp.counterpartyId,
       canonicalName: cp.canonicalName,
@@ -196,7 +209,9 @@ class ScoringState {
       const pair = scorePair(this.record, this.other(candidate, name), this.model, this.idf, { cannotLink: this.exclude.has(candidate.id) });
       if (!top || pair.score > top.pair.score) top = { name: name.name, pair };
     }
-    const out = top ? { counterpartyId: candidate.id, canonicalName: candidate.canonicalName, matchedName: top.name, score: top.pair.score, pair: top.pair } : null;
+    const out = top
+      ? { counterpartyId: candidate.id, canonicalName: candidate.canonicalName, matchedName: top.name, score: top.pair.score, pair: top.pair }
+      : null;
     if (out) candidateCounts.scored++;
     memo.set(i, out);
     return out;

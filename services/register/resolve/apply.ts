@@ -4,14 +4,7 @@
  */
 import { isStrongScheme, type NameKind } from '../../../resolvers/vocabulary.ts';
 import type { HistoryEventType } from '../../../resolvers/vocabulary.ts';
-import {
-  addIdentifierRow,
-  addNameSighting,
-  createCounterpartyRow,
-  lockActive,
-  survivorFor,
-  touchCounterparty,
-} from '../records.ts';
+import { addIdentifierRow, addNameSighting, createCounterpartyRow, lockActive, survivorFor, touchCounterparty } from '../records.ts';
 import { RegisterError } from '../errors.ts';
 import type { ChangeSet } from '../state/change-set.ts';
 import type { Row } from '../state/tables.ts';
@@ -47,11 +40,24 @@ function declaredToRecord(outcome: Outcome, recordedName: RecordedName | null, p
 }
 
 /** Identifiers of the mention that the counterparty does not hold yet; a strong one held elsewhere is noted. */
-async function addMentionIdentifiers(cs: ChangeSet, counterpartyId: number, prepared: PreparedMention, mentionId: number, confirmedBy: string | null, at: Date): Promise<string[]> {
+async function addMentionIdentifiers(
+  cs: ChangeSet,
+  counterpartyId: number,
+  prepared: PreparedMention,
+  mentionId: number,
+  confirmedBy: string | null,
+  at: Date,
+): Promise<string[]> {
   const notes: string[] = [];
   for (const identifier of prepared.identifiers) {
     try {
-      await addIdentifierRow(cs, counterpartyId, identifier, { source: prepared.input.source, mentionId, confirmedBy: isStrongScheme(identifier.scheme) ? confirmedBy : null }, at);
+      await addIdentifierRow(
+        cs,
+        counterpartyId,
+        identifier,
+        { source: prepared.input.source, mentionId, confirmedBy: isStrongScheme(identifier.scheme) ? confirmedBy : null },
+        at,
+      );
     } catch (error) {
       if (error instanceof RegisterError && error.code === 'IDENTIFIER_TAKEN') notes.push(error.message);
       else throw error;
@@ -110,9 +116,7 @@ export async function applyOutcome(
   // Kept in the evidence like recordedName, so that moving the mention away takes exactly these sightings with it.
   const recordedAliases = linking ? declaredToRecord(outcome, recordedName, prepared) : [];
   if (recordedAliases.length > 0) values.evidence = { ...(values.evidence as Record<string, unknown>), recordedAliases };
-  const mention = existing
-    ? await cs.update('mention', existing.id as number, values)
-    : await cs.insert('mention', { ...values, created_at: iso });
+  const mention = existing ? await cs.update('mention', existing.id as number, values) : await cs.insert('mention', { ...values, created_at: iso });
   const mentionId = mention.id as number;
   let reviewItemId: number | null = null;
   if (linking && counterpartyId !== null) {
@@ -125,7 +129,9 @@ export async function applyOutcome(
     }
     const notes = await addMentionIdentifiers(cs, counterpartyId, prepared, mentionId, confirmedBy, at);
     if (notes.length > 0) {
-      await cs.update('mention', mentionId, { evidence: { ...outcome.evidence, recordedName, ...(recordedAliases.length > 0 ? { recordedAliases } : {}), identifierConflicts: notes } });
+      await cs.update('mention', mentionId, {
+        evidence: { ...outcome.evidence, recordedName, ...(recordedAliases.length > 0 ? { recordedAliases } : {}), identifierConflicts: notes },
+      });
     }
     await touchCounterparty(cs, counterpartyId, at);
   }

@@ -46,7 +46,8 @@ function throughEarlier(contract: ContractContext, text: string, r: InContractRe
   if (!earlier || r.status !== 'unbound_term' || r.term !== undefined) return null;
   const there = resolveInContract(earlier.parsed, text);
   if (there.status !== 'bound' || !there.party) return null;
-  const found = earlier.how === 'reference' ? 'by its reference number' : earlier.how === 'title_and_date' ? 'by its title and date' : 'by its title and parties';
+  const found =
+    earlier.how === 'reference' ? 'by its reference number' : earlier.how === 'title_and_date' ? 'by its title and date' : 'by its title and parties';
   const explanation = `"${text}" is not defined in this contract, which uses the defined terms of ${earlier.title ?? 'an earlier agreement'} (${earlier.source}/${earlier.externalId}, found ${found}); there it is the term for ${there.party.name}`;
   return { r: { ...there, explanation }, terms: { contractId: earlier.contractId, parsed: earlier.parsed, partyMentions: earlier.partyMentions } };
 }
@@ -80,7 +81,13 @@ function summaryOf(c: ScoredCandidate) {
   return { counterpartyId: c.counterpartyId, name: c.canonicalName, matchedName: c.matchedName, score: jsonScore(c.score) };
 }
 
-async function ownEntityMatch(db: Queryable, probe: Probe, model: MatchModel, partyIsOwn: boolean, reads: BatchReads | undefined): Promise<{ id: number; name: string; score: number } | undefined> {
+async function ownEntityMatch(
+  db: Queryable,
+  probe: Probe,
+  model: MatchModel,
+  partyIsOwn: boolean,
+  reads: BatchReads | undefined,
+): Promise<{ id: number; name: string; score: number } | undefined> {
   const own = reads ? await reads.ownEntities() : await listOwnEntities(db);
   if (own.length === 0) return undefined;
   const idf = await idfFor(db, probe.analysis.tokens, reads);
@@ -110,7 +117,10 @@ async function ownEntityMatch(db: Queryable, probe: Probe, model: MatchModel, pa
 async function excludedFor(db: Queryable, mentionId: number | null): Promise<Set<number>> {
   if (mentionId === null) return new Set();
   const links = (await cannotLinksOf(db, [], mentionId)).filter((l) => l.mentionId === mentionId);
-  const survivors = await survivorsOf(db, links.map((l) => l.counterpartyId));
+  const survivors = await survivorsOf(
+    db,
+    links.map((l) => l.counterpartyId),
+  );
   return new Set(links.map((l) => survivors.get(l.counterpartyId) ?? l.counterpartyId));
 }
 
@@ -136,9 +146,10 @@ export async function decide(
       }
       if (r.party) {
         const partyMentionId = terms.partyMentions.get(r.party.index);
-        const party = partyMentionId === undefined
-          ? undefined
-          : await db.selectFrom('mention').select(['status', 'counterparty_id', 'own_entity_id']).where('id', '=', partyMentionId).executeTakeFirst();
+        const party =
+          partyMentionId === undefined
+            ? undefined
+            : await db.selectFrom('mention').select(['status', 'counterparty_id', 'own_entity_id']).where('id', '=', partyMentionId).executeTakeFirst();
         const evidence = {
           ...base,
           summary: r.explanation,
@@ -146,7 +157,15 @@ export async function decide(
           term: r.term ?? null,
           ...(r.alias ? { declaredName: r.alias } : {}),
           ...(earlier && context.contract.earlier
-            ? { earlierAgreement: { contractId: context.contract.earlier.contractId, source: context.contract.earlier.source, externalId: context.contract.earlier.externalId, how: context.contract.earlier.how, statement: context.contract.earlier.statement } }
+            ? {
+                earlierAgreement: {
+                  contractId: context.contract.earlier.contractId,
+                  source: context.contract.earlier.source,
+                  externalId: context.contract.earlier.externalId,
+                  how: context.contract.earlier.how,
+                  statement: context.contract.earlier.statement,
+                },
+              }
             : {}),
           contractId: terms.contractId,
           partyMentionId: partyMentionId ?? null,
@@ -156,7 +175,14 @@ export async function decide(
         }
         if ((party?.status === 'linked' || party?.status === 'new') && party.counterparty_id !== null) {
           // A declared other name is recorded with its kind: a former name never competes as a current name.
-          return { status: 'linked', counterpartyId: Number(party.counterparty_id), score: null, recordName: r.status === 'match', ...(r.alias ? { nameKind: r.alias.kind } : {}), evidence };
+          return {
+            status: 'linked',
+            counterpartyId: Number(party.counterparty_id),
+            score: null,
+            recordName: r.status === 'match',
+            ...(r.alias ? { nameKind: r.alias.kind } : {}),
+            evidence,
+          };
         }
         // The party itself is not settled yet: match the party's own name against the register instead.
         const partyRecord = terms.parsed.parties[r.party.index];
@@ -178,7 +204,12 @@ export async function decide(
     }
   }
   if (prepared.analysis.partyStatus === 'not_a_party' && via === 'register') {
-    return { status: 'not_a_party', score: null, recordName: false, evidence: { ...base, summary: `"${prepared.text}" does not name a party (name analysis)`, via: 'analysis' } };
+    return {
+      status: 'not_a_party',
+      score: null,
+      recordName: false,
+      evidence: { ...base, summary: `"${prepared.text}" does not name a party (name analysis)`, via: 'analysis' },
+    };
   }
 
   const own = await ownEntityMatch(db, probe, model, context.party?.ownEntity === true, context.reads);
@@ -249,7 +280,10 @@ export async function decide(
       counterpartyId: best.counterpartyId,
       score: jsonScore(best.score),
       recordName: true,
-      evidence: { ...detail, summary: `"${prepared.text}" matches ${best.canonicalName} with score ${jsonScore(best.score)} (the link threshold is ${model.linkAt})` },
+      evidence: {
+        ...detail,
+        summary: `"${prepared.text}" matches ${best.canonicalName} with score ${jsonScore(best.score)} (the link threshold is ${model.linkAt})`,
+      },
     };
   }
   const why = rival
@@ -257,5 +291,11 @@ export async function decide(
     : best.pair.heldBackBy && best.pair.rawScore >= model.linkAt
       ? `best candidate ${best.canonicalName} scored ${jsonScore(best.pair.rawScore)} but is held back from a link: ${best.pair.heldBackBy}${best.pair.distinguishingTokens.length > 0 ? ` (${best.pair.distinguishingTokens.join(', ')})` : ''}; a person decides`
       : `best candidate ${best.canonicalName} scored ${jsonScore(best.score)}, between the new-record threshold (${model.newAt}) and the link threshold (${model.linkAt}): a person decides`;
-  return orFormerName({ status: 'review', counterpartyId: best.counterpartyId, score: jsonScore(best.score), recordName: false, evidence: { ...detail, summary: why } });
+  return orFormerName({
+    status: 'review',
+    counterpartyId: best.counterpartyId,
+    score: jsonScore(best.score),
+    recordName: false,
+    evidence: { ...detail, summary: why },
+  });
 }

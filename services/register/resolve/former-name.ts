@@ -59,7 +59,9 @@ export async function throughFormerName(db: Queryable, input: FormerNameInput): 
     via: 'former_name',
     formerName: best.matchedName,
     declaredIn: where,
-    candidates: [...former, ...input.current].slice(0, 5).map((c) => ({ counterpartyId: c.counterpartyId, name: c.canonicalName, matchedName: c.matchedName, score: jsonScore(c.score) })),
+    candidates: [...former, ...input.current]
+      .slice(0, 5)
+      .map((c) => ({ counterpartyId: c.counterpartyId, name: c.canonicalName, matchedName: c.matchedName, score: jsonScore(c.score) })),
     matchedName: best.matchedName,
     features: best.pair.explanation,
     identifierNotes: best.pair.identifierNotes,
@@ -72,7 +74,10 @@ export async function throughFormerName(db: Queryable, input: FormerNameInput): 
       score: jsonScore(best.score),
       recordName: true,
       nameKind: 'former',
-      evidence: { ...evidence, summary: `${declared}: "${text}" is linked through that declared former name (score ${jsonScore(best.score)}, the link threshold is ${model.linkAt})` },
+      evidence: {
+        ...evidence,
+        summary: `${declared}: "${text}" is linked through that declared former name (score ${jsonScore(best.score)}, the link threshold is ${model.linkAt})`,
+      },
     };
   }
   const why = rival

@@ -38,7 +38,13 @@ export async function resultOf(
         : await db.selectFrom('counterparty').select('canonical_name').where('id', '=', cpId).executeTakeFirst();
   let reviewItemId = extra.reviewItemId ?? null;
   if (extra.reviewItemId === undefined && mention.status === 'review') {
-    const item = await db.selectFrom('review_item').select('id').where('mention_id', '=', mention.id as number).where('status', '=', 'open').orderBy('id', 'desc').executeTakeFirst();
+    const item = await db
+      .selectFrom('review_item')
+      .select('id')
+      .where('mention_id', '=', mention.id as number)
+      .where('status', '=', 'open')
+      .orderBy('id', 'desc')
+      .executeTakeFirst();
     reviewItemId = item ? Number(item.id) : null;
   }
   const evidence = { ...(mention.evidence as Record<string, unknown>) };

@@ -36,7 +36,8 @@ export async function writeMention(cs: ChangeSet, w: MentionWrite, who: ActorInp
     // Lock order: counterparty, then mention (as everywhere); a mention moved since it was read locks its new one.
     if (w.stored.counterpartyId !== null) await cs.lock('counterparty', [w.stored.counterpartyId]);
     previous = await cs.require('mention', w.stored.id);
-    if (previous.counterparty_id !== null && previous.counterparty_id !== w.stored.counterpartyId) await cs.lock('counterparty', [previous.counterparty_id as number]);
+    if (previous.counterparty_id !== null && previous.counterparty_id !== w.stored.counterpartyId)
+      await cs.lock('counterparty', [previous.counterparty_id as number]);
     // A person's decision on it turns the new text into a question for a person (resolve/earlier-decision.ts).
     const earlier = earlierDecisionOf(previous, w.textChanged);
     if (earlier) outcome = { ...askAgain(outcome, earlier), ...(outcome.declaredNames ? { declaredNames: outcome.declaredNames } : {}) };
@@ -52,7 +53,13 @@ export async function writeMention(cs: ChangeSet, w: MentionWrite, who: ActorInp
     at,
     reason: who.reason,
     requestId: who.requestId,
-    details: { entity: 'mention', mentionId: applied.mention.id, status: outcome.status, counterpartyId: applied.counterpartyId, ...w.details(applied, previous, outcome) },
+    details: {
+      entity: 'mention',
+      mentionId: applied.mention.id,
+      status: outcome.status,
+      counterpartyId: applied.counterpartyId,
+      ...w.details(applied, previous, outcome),
+    },
   });
   return resultOf(cs.trx, applied.mention, {
     alreadyIngested: false,

@@ -26,7 +26,6 @@ async function readRow(trx: Transaction<Database>, table: StateTable, id: number
   return result.rows[0] ? canonicalRow(table, result.rows[0]) : undefined;
 }
 
-
 async function insertRow(trx: Transaction<Database>, table: StateTable, row: Row, derived: DerivedContext) {
   await sql`INSERT INTO ${sql.table(table)} ${insertClause(toDbValues(table, row))}`.execute(trx);
   await syncDerived(trx, { op: 'insert', table, row }, derived);
@@ -37,14 +36,7 @@ async function deleteRow(trx: Transaction<Database>, table: StateTable, row: Row
   await sql`DELETE FROM ${sql.table(table)} WHERE id = ${row.id as number}`.execute(trx);
 }
 
-async function updateRow(
-  trx: Transaction<Database>,
-  table: StateTable,
-  id: number,
-  values: Row,
-  refs: Row,
-  derived: DerivedContext,
-) {
+async function updateRow(trx: Transaction<Database>, table: StateTable, id: number, values: Row, refs: Row, derived: DerivedContext) {
   await sql`UPDATE ${sql.table(table)} SET ${setClause(toDbValues(table, values))} WHERE id = ${id}`.execute(trx);
   await syncDerived(trx, { op: 'update', table, id, before: {}, after: values, refs }, derived);
 }

@@ -13,11 +13,7 @@ export interface DerivedContext {
   nameKeys(name: { name: string; normalised: string; kind: string }): string[];
 }
 
-export async function insertNameKeys(
-  trx: Transaction<Database>,
-  row: Row,
-  derived: DerivedContext,
-): Promise<void> {
+export async function insertNameKeys(trx: Transaction<Database>, row: Row, derived: DerivedContext): Promise<void> {
   const keys = [...new Set(derived.nameKeys(row as { name: string; normalised: string; kind: string }))];
   if (keys.length === 0) return;
   await trx
@@ -32,7 +28,10 @@ export async function syncDerived(trx: Transaction<Database>, op: Op, derived: D
   if (op.op === 'insert') {
     await insertNameKeys(trx, op.row, derived);
   } else if (op.op === 'delete') {
-    await trx.deleteFrom('blocking_key').where('name_id', '=', op.row.id as number).execute();
+    await trx
+      .deleteFrom('blocking_key')
+      .where('name_id', '=', op.row.id as number)
+      .execute();
   } else {
     if ('name' in op.after || 'normalised' in op.after) {
       // The text changed: recompute its keys.

@@ -73,7 +73,14 @@ export class WriteBuffer {
     const writes: SetWrite[] = [];
     for (const table of STATE_TABLES) {
       const ids = this.inserts.get(table);
-      if (ids && ids.length > 0) writes.push(insertRows(table, columnsOf(table), ids.map((id) => cache.get(table, map.get(id) ?? id)!)));
+      if (ids && ids.length > 0)
+        writes.push(
+          insertRows(
+            table,
+            columnsOf(table),
+            ids.map((id) => cache.get(table, map.get(id) ?? id)!),
+          ),
+        );
     }
     const byColumns = new Map<string, { table: StateTable; columns: string[]; rows: Row[] }>();
     for (const { table, id, after } of this.updates.values()) {
@@ -104,7 +111,13 @@ export class WriteBuffer {
     const eventTemps = this.events.map((e) => e.id).filter((id) => id >= TEMP_ID_BASE);
     const map = new Map<number, number>();
     if (nameTemps.length + eventTemps.length === 0) return map;
-    const drawn = await drawIds(trx, new Map([['counterparty_name', nameTemps.length], ['history_event', eventTemps.length]]));
+    const drawn = await drawIds(
+      trx,
+      new Map([
+        ['counterparty_name', nameTemps.length],
+        ['history_event', eventTemps.length],
+      ]),
+    );
     nameTemps.forEach((temp, i) => map.set(temp, drawn.get('counterparty_name')![i]!));
     eventTemps.forEach((temp, i) => map.set(temp, drawn.get('history_event')![i]!));
     const names = new Map(nameTemps.map((t) => [t, map.get(t)!]));

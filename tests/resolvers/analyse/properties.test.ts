@@ -10,16 +10,52 @@ import { analyseName, normaliseName } from '../../../resolvers/analyse/index.ts'
  * Any UTF-16 string, lone surrogates included, up to 10,000 code units (issue 3 bound). `size: 'max'`: without it
  * fast-check's default size caps generated arrays at about ten items whatever maxLength says (issue 17).
  */
-const anyUnits = fc
-  .array(fc.integer({ min: 0, max: 0xffff }), { maxLength: 10_000, size: 'max' })
-  .map((codes) => String.fromCharCode(...codes));
+const anyUnits = fc.array(fc.integer({ min: 0, max: 0xffff }), { maxLength: 10_000, size: 'max' }).map((codes) => String.fromCharCode(...codes));
 /** Any code points (astral planes included). */
 const anyCodePoints = fc.string({ unit: 'binary', maxLength: 2_000, size: 'max' });
 /** Name-like strings: words, designators, markers, brackets and punctuation mixed at random. */
 const PIECES = [
-  'Ltd', 'GmbH', '&', 'Co.', 'KG', 'S.A.', 'de', 'C.V.,', 'd/b/a', 'f/k/a', 'trading as', '(', ')', 'the', 'Company',
-  'ООО', '«', '»', 'Mühlberg', 'Muehlberg', 'we', 'By:', ',', '.', 'Pty', 'Inc.', 'successor in interest to', 'ß', 'ǅ',
-  '\u00a0', '\u0301', 'a trading name of', 'p.l.c.', 'Iolo', 'Brannock', '株式会社', '(SE)', '[', ']', "O'", '–',
+  'Ltd',
+  'GmbH',
+  '&',
+  'Co.',
+  'KG',
+  'S.A.',
+  'de',
+  'C.V.,',
+  'd/b/a',
+  'f/k/a',
+  'trading as',
+  '(',
+  ')',
+  'the',
+  'Company',
+  'ООО',
+  '«',
+  '»',
+  'Mühlberg',
+  'Muehlberg',
+  'we',
+  'By:',
+  ',',
+  '.',
+  'Pty',
+  'Inc.',
+  'successor in interest to',
+  'ß',
+  'ǅ',
+  '\u00a0',
+  '\u0301',
+  'a trading name of',
+  'p.l.c.',
+  'Iolo',
+  'Brannock',
+  '株式会社',
+  '(SE)',
+  '[',
+  ']',
+  "O'",
+  '–',
 ];
 const nameLike = fc.array(fc.constantFrom(...PIECES), { maxLength: 40, size: 'max' }).map((parts) => parts.join(' '));
 

@@ -118,17 +118,32 @@ describe('candidatePairs', () => {
   });
 
   it('finds the same pairs whatever the input order (property)', () => {
-    const names = ['Kittering Bay Outfitters', 'Kittering Bay Outfitter', 'Bay Outfitters Kittering', 'Quillon Vale Dairy', 'Quillon Dairy', 'QVD', 'Quillon Vale Dairies'];
+    const names = [
+      'Kittering Bay Outfitters',
+      'Kittering Bay Outfitter',
+      'Bay Outfitters Kittering',
+      'Quillon Vale Dairy',
+      'Quillon Dairy',
+      'QVD',
+      'Quillon Vale Dairies',
+    ];
     fc.assert(
-      fc.property(fc.shuffledSubarray(names.map((n, i) => record(`r${i}`, n, { country: i % 2 === 0 ? 'GB' : 'FR' })), { minLength: names.length }), (shuffled) => {
-        const pairs = candidatePairs(shuffled, { maxBlockSize: 2, window: 1, globalWindow: 1 });
-        const set = new Set(
-          Array.from({ length: pairs.count }, (_, k) => [shuffled[pairs.left[k]!]!.id, shuffled[pairs.right[k]!]!.id].sort().join('-')),
-        );
-        const reference = candidatePairs(names.map((n, i) => record(`r${i}`, n, { country: i % 2 === 0 ? 'GB' : 'FR' })), { maxBlockSize: 2, window: 1, globalWindow: 1 });
-        const refSet = new Set(Array.from({ length: reference.count }, (_, k) => [`r${reference.left[k]}`, `r${reference.right[k]}`].sort().join('-')));
-        expect(set).toEqual(refSet);
-      }),
+      fc.property(
+        fc.shuffledSubarray(
+          names.map((n, i) => record(`r${i}`, n, { country: i % 2 === 0 ? 'GB' : 'FR' })),
+          { minLength: names.length },
+        ),
+        (shuffled) => {
+          const pairs = candidatePairs(shuffled, { maxBlockSize: 2, window: 1, globalWindow: 1 });
+          const set = new Set(Array.from({ length: pairs.count }, (_, k) => [shuffled[pairs.left[k]!]!.id, shuffled[pairs.right[k]!]!.id].sort().join('-')));
+          const reference = candidatePairs(
+            names.map((n, i) => record(`r${i}`, n, { country: i % 2 === 0 ? 'GB' : 'FR' })),
+            { maxBlockSize: 2, window: 1, globalWindow: 1 },
+          );
+          const refSet = new Set(Array.from({ length: reference.count }, (_, k) => [`r${reference.left[k]}`, `r${reference.right[k]}`].sort().join('-')));
+          expect(set).toEqual(refSet);
+        },
+      ),
       { numRuns: 50 },
     );
   });

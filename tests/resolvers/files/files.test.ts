@@ -36,7 +36,7 @@ describe('detectFileType', () => {
     expect(detectFileType(bytes(0x41, 0xc3, 0x28))).toMatchObject({ kind: 'other' });
   });
 
-  it('tells a Word package from other zips by its parts (ECMA-376 Part 2 content types, Word\'s main part name)', () => {
+  it("tells a Word package from other zips by its parts (ECMA-376 Part 2 content types, Word's main part name)", () => {
     expect(zipPackageKind(['[Content_Types].xml', '_rels/.rels', 'word/document.xml'])).toBe('docx');
     expect(zipPackageKind(['[Content_Types].xml', 'xl/workbook.xml'])).toBe('office');
     expect(zipPackageKind(['word/document.xml'])).toBe('archive');

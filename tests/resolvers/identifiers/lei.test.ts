@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { isValidLei, leiCheckDigits, mod97, mod97CheckDigits, normaliseIdentifier } from '../../../resolvers/identifiers/index.ts';
-import { workedExamples } from '../compare/referenceData.ts';
+import { workedExamples } from '../compare/reference-data.ts';
 
 const lei = workedExamples.lei_iso17442 as Record<string, any>;
 
@@ -30,13 +30,10 @@ describe('LEI (ISO 17442)', () => {
     expect(row.lei.slice(18)).toBe(row.recomputed_check_digits);
   });
 
-  it.each(lei.invalid_variants as Array<{ candidate: string; why: string; mod97: number; format_ok: boolean }>)(
-    'rejects $candidate ($why)',
-    (row) => {
-      expect(isValidLei(row.candidate)).toBe(false);
-      if (row.format_ok) expect(mod97(row.candidate)).toBe(row.mod97);
-    },
-  );
+  it.each(lei.invalid_variants as Array<{ candidate: string; why: string; mod97: number; format_ok: boolean }>)('rejects $candidate ($why)', (row) => {
+    expect(isValidLei(row.candidate)).toBe(false);
+    if (row.format_ok) expect(mod97(row.candidate)).toBe(row.mod97);
+  });
 
   it('normaliseIdentifier forgives case and spaces, then applies the strict rule', () => {
     // The lower-case variant fails the strict format (worked-examples.json) but is the same LEI once upper-cased.

@@ -6,7 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import { MAX_CONTRACT_BYTES, parseParties } from '../../../resolvers/terms/index.ts';
 import { grow } from './grow.ts';
-import { oneLine } from '../../../resolvers/terms/parseParties.ts';
+import { oneLine } from '../../../resolvers/terms/parse-parties.ts';
 
 const HANG_CEILING_MS = 30_000;
 
@@ -39,16 +39,19 @@ const INPUTS: Array<[string, string]> = [
   ['many parties and collective terms', grow((i) => `between Qorv${i % 700} Ltd ("A${i % 700}") and Beta${i} Ltd (each a "P${i}") `)],
 ];
 
-
 describe('parseParties on adversarial 1 MB inputs', () => {
-  it.each(INPUTS)('%s: finishes well under the hang ceiling', (_label, text) => {
-    expect(new TextEncoder().encode(text).length).toBeLessThanOrEqual(MAX_CONTRACT_BYTES);
-    expect(text.length).toBeGreaterThan(MAX_CONTRACT_BYTES / 8);
-    const started = Date.now();
-    const parsed = parseParties(text);
-    expect(Date.now() - started).toBeLessThan(HANG_CEILING_MS);
-    for (const p of parsed.parties) expect(oneLine(text).includes(p.name)).toBe(true);
-  }, HANG_CEILING_MS * 2);
+  it.each(INPUTS)(
+    '%s: finishes well under the hang ceiling',
+    (_label, text) => {
+      expect(new TextEncoder().encode(text).length).toBeLessThanOrEqual(MAX_CONTRACT_BYTES);
+      expect(text.length).toBeGreaterThan(MAX_CONTRACT_BYTES / 8);
+      const started = Date.now();
+      const parsed = parseParties(text);
+      expect(Date.now() - started).toBeLessThan(HANG_CEILING_MS);
+      for (const p of parsed.parties) expect(oneLine(text).includes(p.name)).toBe(true);
+    },
+    HANG_CEILING_MS * 2,
+  );
 
   it('terms beyond 50 per party are counted in a warning, not dropped silently', () => {
     let text = '';
@@ -59,11 +62,15 @@ describe('parseParties on adversarial 1 MB inputs', () => {
     expect(parsed.warnings?.[0]).toContain('30 more defined terms');
   });
 
-  it('many distinct parties: capped at 500 with a warning, not dropped silently', () => {
-    let text = '';
-    for (let i = 0; text.length < 200_000; i++) text += `between Qorv${i} Ltd ("A${i}") and `;
-    const parsed = parseParties(text);
-    expect(parsed.parties).toHaveLength(500);
-    expect(parsed.warnings?.[0]).toContain('limit of 500');
-  }, HANG_CEILING_MS * 2);
+  it(
+    'many distinct parties: capped at 500 with a warning, not dropped silently',
+    () => {
+      let text = '';
+      for (let i = 0; text.length < 200_000; i++) text += `between Qorv${i} Ltd ("A${i}") and `;
+      const parsed = parseParties(text);
+      expect(parsed.parties).toHaveLength(500);
+      expect(parsed.warnings?.[0]).toContain('limit of 500');
+    },
+    HANG_CEILING_MS * 2,
+  );
 });

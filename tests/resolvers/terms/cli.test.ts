@@ -5,8 +5,8 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { runCli } from '../../support/cli.ts';
 import { CORPUS } from './corpus/contracts.ts';
-import { DECLARED_NAME_SHAPES } from './corpus/declaredNameShapes.ts';
-import { EARLIER_AGREEMENT_SHAPES } from './corpus/earlierAgreementShapes.ts';
+import { DECLARED_NAME_SHAPES } from './corpus/declared-name-shapes.ts';
+import { EARLIER_AGREEMENT_SHAPES } from './corpus/earlier-agreement-shapes.ts';
 
 let dir = '';
 const file = (name: string): string => join(dir, name);
@@ -72,7 +72,7 @@ describe('cpreg contract parse', () => {
     );
   });
 
-    it('prints an empty result with its reason when no party is found', async () => {
+  it('prints an empty result with its reason when no party is found', async () => {
     const r = await runCli(['contract', 'parse', file('prose.txt'), '--json']);
     expect(r.code).toBe(0);
     const out = JSON.parse(r.stdout);

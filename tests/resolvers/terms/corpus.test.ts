@@ -4,11 +4,11 @@
  */
 import { afterAll, describe, expect, it } from 'vitest';
 import { CORPUS as BASE } from './corpus/contracts.ts';
-import { checkCase } from './corpus/checkCase.ts';
-import { NON_PARTY_SHAPES } from './corpus/nonPartyShapes.ts';
-import { SHAPES_OF, SIGNER_SHAPES } from './corpus/signerShapes.ts';
-import { DECLARED_NAME_SHAPES, DECLARED_SHAPES_OF } from './corpus/declaredNameShapes.ts';
-import { EARLIER_AGREEMENT_SHAPES, EARLIER_SHAPES_OF } from './corpus/earlierAgreementShapes.ts';
+import { checkCase } from './corpus/check-case.ts';
+import { NON_PARTY_SHAPES } from './corpus/non-party-shapes.ts';
+import { SHAPES_OF, SIGNER_SHAPES } from './corpus/signer-shapes.ts';
+import { DECLARED_NAME_SHAPES, DECLARED_SHAPES_OF } from './corpus/declared-name-shapes.ts';
+import { EARLIER_AGREEMENT_SHAPES, EARLIER_SHAPES_OF } from './corpus/earlier-agreement-shapes.ts';
 
 /** Issue 16's shapes (places, document references, unbound roles) are checked like every other passage. */
 const CORPUS = [...BASE, ...NON_PARTY_SHAPES, ...SIGNER_SHAPES, ...DECLARED_NAME_SHAPES, ...EARLIER_AGREEMENT_SHAPES];
@@ -34,7 +34,18 @@ describe('terms corpus', () => {
 
   it('has at least three passages per signer, exclusion and person shape, in British, US and translated styles', () => {
     // Issue 16 items 4, 5 and 7: every new shape in more than one drafting style.
-    const shapes = ['conformed', 'on-behalf-by', 'duly-authorised', 'acting-through', 'witness', 'notary', 'exclusion', 'individual', 'sole-trader', 'titled-person'];
+    const shapes = [
+      'conformed',
+      'on-behalf-by',
+      'duly-authorised',
+      'acting-through',
+      'witness',
+      'notary',
+      'exclusion',
+      'individual',
+      'sole-trader',
+      'titled-person',
+    ];
     for (const shape of shapes) {
       const ids = SIGNER_SHAPES.map((c) => c.id).filter((id) => SHAPES_OF[id]?.includes(shape));
       expect(ids.length, shape).toBeGreaterThanOrEqual(3);

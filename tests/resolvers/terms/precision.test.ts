@@ -34,7 +34,11 @@ WHEREAS, the Licensor owns certain software (the "Software") and wishes to licen
 2. Corran shall give Ashby access to the Corran Analytics Suite (the "Suite") and to the Dashboard (the "Portal").`;
     const r = parseParties(text);
     expect(r.parties.map((p) => p.name)).toEqual(['Corran Vale Ltd', 'Ashby Lane Ltd']);
-    for (const term of ['Software', 'Territory', 'Suite', 'Portal']) expect(r.parties.some((p) => p.terms.includes(term)), term).toBe(false);
+    for (const term of ['Software', 'Territory', 'Suite', 'Portal'])
+      expect(
+        r.parties.some((p) => p.terms.includes(term)),
+        term,
+      ).toBe(false);
   });
 
   it('does not take a witness clause above "By:" for a party', () => {
@@ -50,7 +54,8 @@ WHEREAS, the Licensor owns certain software (the "Software") and wishes to licen
   });
 
   it('label lines that are not party labels introduce no party', () => {
-    const text = 'Notices: Harrowby Fine Foods Limited\nBank: Lowther Bank plc\nCopy to: Ashdown Mills Ltd\nAttention: Corran Vale Ltd\nBetween: Brockley Farms Ltd';
+    const text =
+      'Notices: Harrowby Fine Foods Limited\nBank: Lowther Bank plc\nCopy to: Ashdown Mills Ltd\nAttention: Corran Vale Ltd\nBetween: Brockley Farms Ltd';
     expect(parseParties(text).parties).toEqual([]);
   });
 });

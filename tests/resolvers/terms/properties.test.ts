@@ -7,18 +7,59 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { MAX_CONTRACT_BYTES, parseParties, resolveInContract } from '../../../resolvers/terms/index.ts';
 import type { ParsedContract } from '../../../resolvers/terms/index.ts';
-import { oneLine } from '../../../resolvers/terms/parseParties.ts';
+import { oneLine } from '../../../resolvers/terms/parse-parties.ts';
 import { CORPUS } from './corpus/contracts.ts';
 
 /** Pieces of drafting (invented) that the parser reacts to, so random texts exercise every branch. */
 const FRAGMENTS = [
-  'between ', ' and ', ', ', '; ', '\n', '\n\n', '(', ')', '"', '“', '”', '„', '«', '»', "'", '‘', '’',
-  'Qorv Widgets Ltd', 'Brackenridge Fabrication, Inc.', 'Holzner GmbH', 'Tsubame K.K.', 'Lumière SAS',
-  ' (the "Licensee")', ' ("Supplier")', ' (hereinafter "Buyer")', ' (each a "Party" and together the "Parties")',
-  ', a Delaware corporation', ', incorporated and registered in England and Wales with company number 04417782',
-  ' HRB 20931', ' RCS Nantes 533 214 904', ' ACN 004 085 616', ' d/b/a Brightwater', ' f/k/a ',
-  'BETWEEN:', 'AND:', '(1) ', '(ii) ', '1. ', 'The undersigned:', 'By: ____', 'Name: Jane Doe', 'Title: CEO',
-  'for and on behalf of ', 'LICENSOR:', 'im Folgenden „X“', 'ci-après « le Client »', 'this "Agreement"', '(Wattle)\n',
+  'between ',
+  ' and ',
+  ', ',
+  '; ',
+  '\n',
+  '\n\n',
+  '(',
+  ')',
+  '"',
+  '“',
+  '”',
+  '„',
+  '«',
+  '»',
+  "'",
+  '‘',
+  '’',
+  'Qorv Widgets Ltd',
+  'Brackenridge Fabrication, Inc.',
+  'Holzner GmbH',
+  'Tsubame K.K.',
+  'Lumière SAS',
+  ' (the "Licensee")',
+  ' ("Supplier")',
+  ' (hereinafter "Buyer")',
+  ' (each a "Party" and together the "Parties")',
+  ', a Delaware corporation',
+  ', incorporated and registered in England and Wales with company number 04417782',
+  ' HRB 20931',
+  ' RCS Nantes 533 214 904',
+  ' ACN 004 085 616',
+  ' d/b/a Brightwater',
+  ' f/k/a ',
+  'BETWEEN:',
+  'AND:',
+  '(1) ',
+  '(ii) ',
+  '1. ',
+  'The undersigned:',
+  'By: ____',
+  'Name: Jane Doe',
+  'Title: CEO',
+  'for and on behalf of ',
+  'LICENSOR:',
+  'im Folgenden „X“',
+  'ci-après « le Client »',
+  'this "Agreement"',
+  '(Wattle)\n',
 ];
 
 /** A whole party clause (cue, name, descriptive phrase, definition), so that parties are actually found. */
@@ -34,7 +75,10 @@ const clause = fc
 // `size: 'max'`: fast-check's default size caps arrays and strings at about ten items whatever maxLength says, so
 // contract-like texts had about ten pieces and the Unicode texts about ten characters (issue 17).
 const contractLike = fc
-  .array(fc.oneof(clause, fc.constantFrom(...FRAGMENTS), fc.string({ maxLength: 12, size: 'max' }), fc.string({ unit: 'binary', maxLength: 6, size: 'max' })), { maxLength: 120, size: 'max' })
+  .array(fc.oneof(clause, fc.constantFrom(...FRAGMENTS), fc.string({ maxLength: 12, size: 'max' }), fc.string({ unit: 'binary', maxLength: 6, size: 'max' })), {
+    maxLength: 120,
+    size: 'max',
+  })
   .map((parts) => parts.join(''));
 
 function assertInvariants(text: string, parsed: ParsedContract): void {

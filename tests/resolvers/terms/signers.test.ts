@@ -5,20 +5,31 @@
  */
 import { describe, expect, it } from 'vitest';
 import { parseParties, resolveInContract } from '../../../resolvers/terms/index.ts';
-import { MAX_SIGNERS } from '../../../resolvers/terms/mergeSigners.ts';
-import { findSigners } from '../../../resolvers/terms/findSigners.ts';
-import { findExclusions } from '../../../resolvers/terms/findExclusions.ts';
-import { isJobTitle, jobTitleOf } from '../../../resolvers/terms/isJobTitle.ts';
-import { readPersonName } from '../../../resolvers/terms/readPersonName.ts';
+import { MAX_SIGNERS } from '../../../resolvers/terms/merge-signers.ts';
+import { findSigners } from '../../../resolvers/terms/find-signers.ts';
+import { findExclusions } from '../../../resolvers/terms/find-exclusions.ts';
+import { isJobTitle, jobTitleOf } from '../../../resolvers/terms/is-job-title.ts';
+import { readPersonName } from '../../../resolvers/terms/read-person-name.ts';
 import { grow } from './grow.ts';
-import { oneLine } from '../../../resolvers/terms/parseParties.ts';
+import { oneLine } from '../../../resolvers/terms/parse-parties.ts';
 
 const read = (s: string): string | null => readPersonName(s, 0, s.length)?.name ?? null;
 
 describe('job titles', () => {
   it('reads the titles of execution blocks, with their leading "its"/"a" dropped', () => {
     // Common practice: titles of US, UK and translated signature blocks.
-    for (const t of ['Managing Director', 'Chief Executive Officer', 'Vice President, Operations', 'Head of Procurement', 'Company Secretary', 'Representative Director', 'Geschäftsführer', 'Président', 'Notary Public', 'General Counsel']) {
+    for (const t of [
+      'Managing Director',
+      'Chief Executive Officer',
+      'Vice President, Operations',
+      'Head of Procurement',
+      'Company Secretary',
+      'Representative Director',
+      'Geschäftsführer',
+      'Président',
+      'Notary Public',
+      'General Counsel',
+    ]) {
       expect(isJobTitle(t), t).toBe(true);
     }
     expect(jobTitleOf('its managing director')).toBe('managing director');
@@ -57,8 +68,12 @@ describe('findSigners', () => {
 
   it('"Y, duly authorised", "acting through its director Y", "represented by Mr Y"', () => {
     expect(one('For Vellmark GmbH: Anselm Voigt, duly authorised').map((s) => s.name)).toEqual(['Anselm Voigt']);
-    expect(one('Brunnhof GmbH, acting through its director Oskar Lindqvist (the "Seller")')).toEqual([{ name: 'Oskar Lindqvist', title: 'director', capacity: 'signatory' }]);
-    expect(one('Atelier Faure SARL, represented by Mr Lucien Faure, its manager (the "Client")')).toEqual([{ name: 'Lucien Faure', title: 'manager', capacity: 'signatory' }]);
+    expect(one('Brunnhof GmbH, acting through its director Oskar Lindqvist (the "Seller")')).toEqual([
+      { name: 'Oskar Lindqvist', title: 'director', capacity: 'signatory' },
+    ]);
+    expect(one('Atelier Faure SARL, represented by Mr Lucien Faure, its manager (the "Client")')).toEqual([
+      { name: 'Lucien Faure', title: 'manager', capacity: 'signatory' },
+    ]);
   });
 
   it('witness and notary lines, on one line or with the name below', () => {
@@ -71,11 +86,15 @@ Before me, Hester Galloway, a Notary Public in and for said State, personally ap
 
 Notary: Maître Solène Garnier`;
     const got = one(text).map((s) => `${s.capacity}:${s.name}`);
-    expect(got).toEqual(expect.arrayContaining(['witness:Theda Kornblum', 'witness:Corbin Yates', 'notary:Hester Galloway', 'signatory:Harlan Beeche', 'notary:Solène Garnier']));
+    expect(got).toEqual(
+      expect.arrayContaining(['witness:Theda Kornblum', 'witness:Corbin Yates', 'notary:Hester Galloway', 'signatory:Harlan Beeche', 'notary:Solène Garnier']),
+    );
   });
 
   it('a conformed "/s/" signature with the bare title on the next line', () => {
-    expect(one('/s/ Quentin Aldous\nQuentin Aldous\nChief Financial Officer')).toEqual([{ name: 'Quentin Aldous', title: 'Chief Financial Officer', capacity: 'signatory' }]);
+    expect(one('/s/ Quentin Aldous\nQuentin Aldous\nChief Financial Officer')).toEqual([
+      { name: 'Quentin Aldous', title: 'Chief Financial Officer', capacity: 'signatory' },
+    ]);
   });
 
   it('"IN WITNESS WHEREOF" and "signed by the Parties" name no one', () => {
@@ -103,22 +122,32 @@ describe('parseParties: signers', () => {
   });
 
   it('an individual party who signs for herself stays a party', () => {
-    const p = parseParties('This Agreement is made between Ravensholt Surveys Limited, a company registered in England and Wales (the "Company"), and Harriet Quillan (the "Consultant").\n\nSigned by Harriet Quillan, Consultant');
-    expect(p.parties.map((x) => [x.name, x.kind])).toEqual([['Ravensholt Surveys Limited', 'organisation'], ['Harriet Quillan', 'person']]);
+    const p = parseParties(
+      'This Agreement is made between Ravensholt Surveys Limited, a company registered in England and Wales (the "Company"), and Harriet Quillan (the "Consultant").\n\nSigned by Harriet Quillan, Consultant',
+    );
+    expect(p.parties.map((x) => [x.name, x.kind])).toEqual([
+      ['Ravensholt Surveys Limited', 'organisation'],
+      ['Harriet Quillan', 'person'],
+    ]);
     expect(p.notParties).not.toContain('Harriet Quillan');
   });
 });
 
 describe('express exclusions', () => {
   it('finds the name before "which is not a party hereto" and a term defined before "is not a party"', () => {
-    expect(findExclusions('The fees are paid by Dunmore Realty Partners LLC, which is not a party hereto.').map((e) => e.name)).toEqual(['Dunmore Realty Partners LLC']);
-    expect(findExclusions('Kittering Holdings plc (the "Guarantor") is not a party to this Deed.')).toEqual([{ name: 'Kittering Holdings plc', start: 0, terms: ['Guarantor'] }]);
+    expect(findExclusions('The fees are paid by Dunmore Realty Partners LLC, which is not a party hereto.').map((e) => e.name)).toEqual([
+      'Dunmore Realty Partners LLC',
+    ]);
+    expect(findExclusions('Kittering Holdings plc (the "Guarantor") is not a party to this Deed.')).toEqual([
+      { name: 'Kittering Holdings plc', start: 0, terms: ['Guarantor'] },
+    ]);
     expect(findExclusions('For the avoidance of doubt, the Guarantor shall not be a party to this Agreement.').map((e) => e.name)).toEqual(['Guarantor']);
     expect(findExclusions('No third party shall have any right under it.')).toEqual([]);
   });
 
   it('records the entity as mentioned, not as a party; its term binds no party', () => {
-    const text = 'This Agreement is made between Ashcombe Joinery Limited (the "Tenant") and Pennock Estates LLP (the "Landlord"). Kittering Holdings plc (the "Guarantor") is not a party to this Agreement.';
+    const text =
+      'This Agreement is made between Ashcombe Joinery Limited (the "Tenant") and Pennock Estates LLP (the "Landlord"). Kittering Holdings plc (the "Guarantor") is not a party to this Agreement.';
     const p = parseParties(text);
     expect(p.parties.map((x) => x.name)).toEqual(['Ashcombe Joinery Limited', 'Pennock Estates LLP']);
     expect(p.mentioned).toEqual([{ name: 'Kittering Holdings plc', terms: ['Guarantor'] }]);
@@ -146,11 +175,15 @@ describe('signer and exclusion scanners on adversarial 1 MB inputs', () => {
     ['exclusions', grow((i) => `${coined(i)} Holdings plc (the "Guarantor") is not a party to this Deed. `)],
     ['not-a-party phrases after lower-case words', grow(() => 'which is not a party ')],
   ];
-  it.each(inputs)('%s: finishes well under the hang ceiling', (_label, text) => {
-    const started = Date.now();
-    const parsed = parseParties(text);
-    expect(Date.now() - started).toBeLessThan(HANG_CEILING_MS);
-    for (const p of parsed.parties) expect(oneLine(text).includes(p.name)).toBe(true);
-    expect((parsed.signers ?? []).length).toBeLessThanOrEqual(MAX_SIGNERS);
-  }, HANG_CEILING_MS * 2);
+  it.each(inputs)(
+    '%s: finishes well under the hang ceiling',
+    (_label, text) => {
+      const started = Date.now();
+      const parsed = parseParties(text);
+      expect(Date.now() - started).toBeLessThan(HANG_CEILING_MS);
+      for (const p of parsed.parties) expect(oneLine(text).includes(p.name)).toBe(true);
+      expect((parsed.signers ?? []).length).toBeLessThanOrEqual(MAX_SIGNERS);
+    },
+    HANG_CEILING_MS * 2,
+  );
 });

@@ -21,7 +21,8 @@ describeEachBackend('failed authentications per address', (t) => {
     await app?.close();
   });
 
-  const me = (key: string, address: string) => app.inject({ method: 'GET', url: '/v1/me', headers: { authorization: `Bearer ${key}` }, remoteAddress: address });
+  const me = (key: string, address: string) =>
+    app.inject({ method: 'GET', url: '/v1/me', headers: { authorization: `Bearer ${key}` }, remoteAddress: address });
 
   it('answers 401 for the allowed failures, then 429 with Retry-After, and leaves another address alone', async () => {
     for (let i = 0; i < ALLOWED; i++) expect((await me(`cpreg_k0_guess${i}`, '192.0.2.10')).statusCode).toBe(401);

@@ -92,8 +92,11 @@ describeEachBackend('a client generated from /openapi.json', (ctx) => {
 
   it('declares the fields always present as required, so generated types do not make them optional', () => {
     type Schema = { required?: string[]; properties?: Record<string, unknown> };
-    const components = (doc as unknown as { paths: Record<string, Record<string, { responses?: Record<string, { content?: Record<string, { schema?: Schema }> }> }>> }).paths;
-    const answer = (path: string, method: string, status: string): Schema | undefined => components[path]?.[method]?.responses?.[status]?.content?.['application/json']?.schema;
+    const components = (
+      doc as unknown as { paths: Record<string, Record<string, { responses?: Record<string, { content?: Record<string, { schema?: Schema }> }> }>> }
+    ).paths;
+    const answer = (path: string, method: string, status: string): Schema | undefined =>
+      components[path]?.[method]?.responses?.[status]?.content?.['application/json']?.schema;
     expect(answer('/v1/counterparties/{id}', 'get', '200')?.required).toEqual(expect.arrayContaining(['id', 'canonicalName', 'status', 'version']));
     expect(answer('/v1/mentions/{id}', 'get', '200')?.required).toEqual(expect.arrayContaining(['id', 'source', 'externalId', 'text', 'status']));
     expect(answer('/v1/mentions', 'post', '200')?.required).toEqual(expect.arrayContaining(['mentionId', 'status', 'reviewItemId']));
@@ -109,7 +112,23 @@ describeEachBackend('a client generated from /openapi.json', (ctx) => {
     writeFileSync(join(OUT, 'flow.ts'), FLOW);
     // Strict type check of the generated types with the flow: a renamed field or operation fails here.
     const tsc = join(REPO_ROOT, 'node_modules', 'typescript', 'bin', 'tsc');
-    const args = ['--noEmit', '--strict', '--target', 'ES2022', '--module', 'ESNext', '--moduleResolution', 'Bundler', '--allowImportingTsExtensions', '--skipLibCheck', '--lib', 'ES2023,DOM', '--types', 'node', join(OUT, 'flow.ts')];
+    const args = [
+      '--noEmit',
+      '--strict',
+      '--target',
+      'ES2022',
+      '--module',
+      'ESNext',
+      '--moduleResolution',
+      'Bundler',
+      '--allowImportingTsExtensions',
+      '--skipLibCheck',
+      '--lib',
+      'ES2023,DOM',
+      '--types',
+      'node',
+      join(OUT, 'flow.ts'),
+    ];
     try {
       execFileSync(process.execPath, [tsc, ...args], { cwd: REPO_ROOT, encoding: 'utf8' });
     } catch (error) {

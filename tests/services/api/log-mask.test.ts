@@ -7,20 +7,15 @@ import { describe, expect, it } from 'vitest';
 import { maskSensitive } from '../../../services/api/log-mask.ts';
 
 describe('maskSensitive', () => {
-  it.each([
-    ['+442079460958'],
-    ['+44 20 7946 0958'],
-    ['+44-20-7946-0958'],
-    ['+1 (212) 555-0100'],
-    ['(020) 7946 0958'],
-    ['020 7946 0958'],
-    ['020.7946.0958'],
-  ])('masks the phone number %s', (phone) => {
-    const masked = maskSensitive(`call ${phone} today`);
-    expect(masked).toContain('[phone redacted]');
-    expect(masked).not.toContain('7946');
-    expect(masked).not.toContain('555');
-  });
+  it.each([['+442079460958'], ['+44 20 7946 0958'], ['+44-20-7946-0958'], ['+1 (212) 555-0100'], ['(020) 7946 0958'], ['020 7946 0958'], ['020.7946.0958']])(
+    'masks the phone number %s',
+    (phone) => {
+      const masked = maskSensitive(`call ${phone} today`);
+      expect(masked).toContain('[phone redacted]');
+      expect(masked).not.toContain('7946');
+      expect(masked).not.toContain('555');
+    },
+  );
 
   it('masks an IBAN in either case and grouping, keeping the country and the last two characters', () => {
     for (const iban of ['GB82WEST12345698765432', 'gb82west12345698765432', 'GB82 WEST 1234 5698 7654 32']) {

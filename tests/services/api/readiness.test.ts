@@ -7,7 +7,7 @@ import { afterAll, beforeAll, expect, it } from 'vitest';
 import { sql } from 'kysely';
 import { describeEachBackend } from '../../support/database.ts';
 import { migrateToLatest, schemaState } from '../../../db/migrate.ts';
-import { keyedApp, type KeyedApp } from './v1-support.ts';
+import { keyedApp, type KeyedApp } from './support.ts';
 
 describeEachBackend('readiness follows the schema', (t) => {
   let k: KeyedApp;

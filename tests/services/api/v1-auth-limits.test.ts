@@ -10,7 +10,7 @@ import { sql } from 'kysely';
 import { buildApp } from '../../../services/api/app.ts';
 import { createApiKey, digest, revokeApiKey } from '../../../services/api/auth/keys.ts';
 import { describeEachBackend } from '../../support/database.ts';
-import { keyedApp, type KeyedApp } from './v1-support.ts';
+import { keyedApp, type KeyedApp } from './support.ts';
 import type { ApiScope } from '../../../resolvers/vocabulary.ts';
 
 const RANK: Record<ApiScope, number> = { read: 0, write: 1, admin: 2 };
@@ -24,7 +24,11 @@ describeEachBackend('/v1 keys, scopes, limits and idempotency', (ctx) => {
     for (const [path, methods] of Object.entries(spec.paths)) {
       for (const [method, op] of Object.entries(methods)) {
         if (!path.startsWith('/v1')) continue;
-        routes.push({ method: method.toUpperCase(), url: path.replace(/\{[a-z]+\}/gi, (m) => (m.includes('kind') ? 'register' : m.includes('keyId') ? 'kffffffffffff' : '999999')), scope: op['x-scope']! });
+        routes.push({
+          method: method.toUpperCase(),
+          url: path.replace(/\{[a-z]+\}/gi, (m) => (m.includes('kind') ? 'register' : m.includes('keyId') ? 'kffffffffffff' : '999999')),
+          scope: op['x-scope']!,
+        });
       }
     }
   });
@@ -88,7 +92,12 @@ describeEachBackend('/v1 keys, scopes, limits and idempotency', (ctx) => {
     const lines: string[] = [];
     const logger = pino({ level: 'info' }, new Writable({ write: (chunk, _e, done) => (lines.push(String(chunk)), done()) }));
     const app = await buildApp({ db: ctx.db(), backend: ctx.backend, logger, rateLimitPerMinute: false });
-    const res = await app.inject({ method: 'POST', url: '/v1/keys', headers: { authorization: `Bearer ${k.keys.admin}` }, payload: { scope: 'read', label: 'auditor' } });
+    const res = await app.inject({
+      method: 'POST',
+      url: '/v1/keys',
+      headers: { authorization: `Bearer ${k.keys.admin}` },
+      payload: { scope: 'read', label: 'auditor' },
+    });
     expect(res.statusCode).toBe(201);
     const secret = res.json().secret as string;
     await app.inject({ method: 'GET', url: '/v1/me', headers: { authorization: `Bearer ${secret}` } });
@@ -120,7 +129,11 @@ describeEachBackend('/v1 keys, scopes, limits and idempotency', (ctx) => {
     const res = await k.call('write', { method: 'POST', url: '/v1/mentions', payload: big });
     expect(res.statusCode).toBe(413);
     expect(res.json()).toMatchObject({ code: 'PAYLOAD_TOO_LARGE', limitBytes: 65536 });
-    const contract = await k.call('write', { method: 'POST', url: '/v1/contracts', payload: { source: 's', externalId: 'c', text: 'x'.repeat(1024 * 1024 + 10) } });
+    const contract = await k.call('write', {
+      method: 'POST',
+      url: '/v1/contracts',
+      payload: { source: 's', externalId: 'c', text: 'x'.repeat(1024 * 1024 + 10) },
+    });
     expect(contract.statusCode).toBe(413);
     expect(contract.json().limitBytes).toBe(1024 * 1024);
     const items = Array.from({ length: 10_001 }, (_, i) => ({ source: 's', externalId: `b${i}`, text: 'Tolvern Ltd' }));

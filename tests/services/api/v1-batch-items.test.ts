@@ -5,7 +5,7 @@
  */
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { describeEachBackend } from '../../support/database.ts';
-import { keyedApp, type KeyedApp } from './v1-support.ts';
+import { keyedApp, type KeyedApp } from './support.ts';
 
 describeEachBackend('POST /v1/mentions/batch, item by item', (ctx) => {
   let k: KeyedApp;
@@ -30,7 +30,10 @@ describeEachBackend('POST /v1/mentions/batch, item by item', (ctx) => {
     ];
     const res = await k.call('write', { method: 'POST', url: '/v1/mentions/batch', payload: items });
     expect(res.statusCode, res.body).toBe(200);
-    const out = res.json() as { items: Array<{ index: number; status: string; externalId?: string; error?: { code: string; field: string; rule: string; message: string } }>; counts: Record<string, number> };
+    const out = res.json() as {
+      items: Array<{ index: number; status: string; externalId?: string; error?: { code: string; field: string; rule: string; message: string } }>;
+      counts: Record<string, number>;
+    };
     expect(out.items.map((i) => i.index)).toEqual([0, 1, 2, 3, 4, 5]);
     expect(out.items[0]!.status).not.toBe('rejected');
     expect(out.items[5]!.status).not.toBe('rejected');

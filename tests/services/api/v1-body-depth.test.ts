@@ -6,7 +6,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { describeEachBackend } from '../../support/index.ts';
-import { keyedApp, type KeyedApp } from './v1-support.ts';
+import { keyedApp, type KeyedApp } from './support.ts';
 import { MAX_BODY_DEPTH } from '../../../services/api/plugins/body-depth.ts';
 import { bodyHash } from '../../../services/api/auth/idempotency.ts';
 import { canonicalJson } from '../../../services/api/auth/canonical-json.ts';
@@ -47,7 +47,15 @@ describeEachBackend('body depth', (t) => {
   });
 
   async function jobCount(): Promise<number> {
-    return Number((await t.db().selectFrom('job').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n);
+    return Number(
+      (
+        await t
+          .db()
+          .selectFrom('job')
+          .select((eb) => eb.fn.countAll<number>().as('n'))
+          .executeTakeFirstOrThrow()
+      ).n,
+    );
   }
 
   it('refuses a 20,000-deep body to the job routes with an Idempotency-Key: 422 naming the limit, no job, no 500', async () => {
@@ -55,7 +63,12 @@ describeEachBackend('body depth', (t) => {
     for (const url of ['/v1/jobs/sweep', '/v1/jobs/reresolve']) {
       // 10,000 levels of {"a": fit in the 64 KiB body limit (20,000 would be refused as too large first).
       for (const payload of [deepArray(20_000), deepObject(10_000)]) {
-        const res = await k.call('admin', { method: 'POST', url, headers: { 'content-type': 'application/json', 'idempotency-key': `deep-${url}-${payload.length}-${payload[1]}` }, payload });
+        const res = await k.call('admin', {
+          method: 'POST',
+          url,
+          headers: { 'content-type': 'application/json', 'idempotency-key': `deep-${url}-${payload.length}-${payload[1]}` },
+          payload,
+        });
         expect(res.statusCode, `${url}: ${res.body.slice(0, 200)}`).toBe(422);
         expect(res.headers['content-type']).toMatch(/^application\/problem\+json/);
         expect(res.json()).toMatchObject({ code: 'BODY_TOO_DEEP', maxDepth: MAX_BODY_DEPTH });
@@ -77,7 +90,12 @@ describeEachBackend('body depth', (t) => {
     const tooDeep = `{"source":"s","externalId":"e","text":"t","contract":${deepArray(MAX_BODY_DEPTH)}}`;
     const mention = await k.call('write', { method: 'POST', url: '/v1/mentions', headers: { 'content-type': 'application/json' }, payload: tooDeep });
     expect(mention.json()).toMatchObject({ code: 'BODY_TOO_DEEP' });
-    const batch = await k.call('write', { method: 'POST', url: '/v1/mentions/batch', headers: { 'content-type': 'application/x-ndjson' }, payload: `{"source":"s","externalId":"1","text":"t"}\n${tooDeep}\n` });
+    const batch = await k.call('write', {
+      method: 'POST',
+      url: '/v1/mentions/batch',
+      headers: { 'content-type': 'application/x-ndjson' },
+      payload: `{"source":"s","externalId":"1","text":"t"}\n${tooDeep}\n`,
+    });
     expect(batch.json()).toMatchObject({ code: 'BODY_TOO_DEEP' });
     // MAX_BODY_DEPTH levels in all (the outer object is level 1) is allowed: refused by the schema instead.
     const atLimit = `{"source":"s","externalId":"e","text":"t","contract":${deepArray(MAX_BODY_DEPTH - 1)}}`;

@@ -8,7 +8,7 @@
  */
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { describeEachBackend } from '../../support/index.ts';
-import { keyedApp, type KeyedApp } from './v1-support.ts';
+import { keyedApp, type KeyedApp } from './support.ts';
 
 /** `{"source":"u8","externalId":"<id>","text":"Ab<bad>c"}`: the bad bytes start at a known offset. */
 function mentionBody(id: string, bad: number[]): { payload: Buffer; offset: number } {
@@ -29,7 +29,16 @@ const ILL_FORMED: [string, number[]][] = [
 
 describeEachBackend('JSON bodies must be UTF-8', (t) => {
   let k: KeyedApp;
-  const mentions = async (): Promise<number> => Number((await t.db().selectFrom('mention').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n);
+  const mentions = async (): Promise<number> =>
+    Number(
+      (
+        await t
+          .db()
+          .selectFrom('mention')
+          .select((eb) => eb.fn.countAll<number>().as('n'))
+          .executeTakeFirstOrThrow()
+      ).n,
+    );
   beforeAll(async () => {
     k = await keyedApp(t.db(), t.backend);
   });
@@ -55,7 +64,12 @@ describeEachBackend('JSON bodies must be UTF-8', (t) => {
 
   it('still takes well-formed UTF-8 of every length (2, 3 and 4 bytes) and stores it as sent', async () => {
     const text = 'Ab\u00e9\u20ac\u{1F600}c Ltd';
-    const res = await k.call('write', { method: 'POST', url: '/v1/mentions', payload: Buffer.from(JSON.stringify({ source: 'u8', externalId: 'good', text })), headers: { 'content-type': 'application/json; charset=UTF-8' } });
+    const res = await k.call('write', {
+      method: 'POST',
+      url: '/v1/mentions',
+      payload: Buffer.from(JSON.stringify({ source: 'u8', externalId: 'good', text })),
+      headers: { 'content-type': 'application/json; charset=UTF-8' },
+    });
     expect(res.statusCode, res.body).toBe(200);
     const read = await k.call('read', { method: 'GET', url: `/v1/mentions/${(res.json() as { mentionId: number }).mentionId}` });
     expect((read.json() as { text: string }).text).toBe(text);
@@ -64,7 +78,12 @@ describeEachBackend('JSON bodies must be UTF-8', (t) => {
   it('refuses a JSON body declared in another charset with 415 pointing at the header', async () => {
     const before = await mentions();
     for (const charset of ['latin1', 'ISO-8859-1', '"windows-1252"', 'utf-16']) {
-      const res = await k.call('write', { method: 'POST', url: '/v1/mentions', payload: JSON.stringify({ source: 'u8', externalId: 'cs', text: 'Plain Ltd' }), headers: { 'content-type': `application/json; charset=${charset}` } });
+      const res = await k.call('write', {
+        method: 'POST',
+        url: '/v1/mentions',
+        payload: JSON.stringify({ source: 'u8', externalId: 'cs', text: 'Plain Ltd' }),
+        headers: { 'content-type': `application/json; charset=${charset}` },
+      });
       expect(res.statusCode, `${charset}: ${res.body}`).toBe(415);
       const body = res.json() as { code: string; errors: { pointer: string; in: string }[]; detail: string };
       expect(body.code).toBe('UNSUPPORTED_MEDIA_TYPE');
@@ -75,7 +94,10 @@ describeEachBackend('JSON bodies must be UTF-8', (t) => {
   });
 
   it('refuses an NDJSON batch with an ill-formed line, naming its line and byte offset', async () => {
-    const lines = [JSON.stringify({ source: 'u8', externalId: 'b1', text: 'Firstline Ltd' }), JSON.stringify({ source: 'u8', externalId: 'b2', text: 'Second' })];
+    const lines = [
+      JSON.stringify({ source: 'u8', externalId: 'b1', text: 'Firstline Ltd' }),
+      JSON.stringify({ source: 'u8', externalId: 'b2', text: 'Second' }),
+    ];
     const bad = Buffer.concat([Buffer.from(`${lines[0]}\n${lines[1]!.slice(0, 40)}`), Buffer.from([0xff]), Buffer.from(`${lines[1]!.slice(40)}\n`)]);
     const before = await mentions();
     const res = await k.call('write', { method: 'POST', url: '/v1/mentions/batch', payload: bad, headers: { 'content-type': 'application/x-ndjson' } });

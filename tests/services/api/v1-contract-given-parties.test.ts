@@ -6,7 +6,7 @@
  */
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { describeEachBackend } from '../../support/database.ts';
-import { keyedApp, type KeyedApp } from './v1-support.ts';
+import { keyedApp, type KeyedApp } from './support.ts';
 
 const TEXT =
   'This Services Agreement is made between Hartsell Cold Chain Limited, a company incorporated in England (the "Provider"), and Dallowmere Foods Ltd (the "Client").';
@@ -36,7 +36,9 @@ describeEachBackend('POST /v1/contracts with the parties a contract system knows
     ]);
     expect(body.reconciliation.givenNotInText).toEqual([2]);
     expect(body.reconciliation.parsedNotGiven).toEqual([]);
-    expect(body.reconciliation.disagreements).toEqual([{ given: 1, position: position('Dallowmere'), field: 'definedTerm', givenValue: 'the Customer', parsedValue: 'Client' }]);
+    expect(body.reconciliation.disagreements).toEqual([
+      { given: 1, position: position('Dallowmere'), field: 'definedTerm', givenValue: 'the Customer', parsedValue: 'Client' },
+    ]);
     expect(body.identifiersAdded).toHaveLength(1);
     const mention = await k.call('read', { method: 'GET', url: `/v1/mentions/${body.identifiersAdded[0].mentionId}` });
     expect(mention.json().identifiers).toEqual(expect.arrayContaining([expect.objectContaining({ scheme: 'gb_company', value: '01234567' })]));
@@ -49,7 +51,12 @@ describeEachBackend('POST /v1/contracts with the parties a contract system knows
     const res = await k.call('write', {
       method: 'POST',
       url: '/v1/contracts',
-      payload: { source: 'clm', externalId: 'GP-2', text: TEXT, parties: [{ name: 'Hartsell Cold Chain Limited', identifiers: [{ scheme: 'lei', value: 'NOT-AN-LEI' }] }] },
+      payload: {
+        source: 'clm',
+        externalId: 'GP-2',
+        text: TEXT,
+        parties: [{ name: 'Hartsell Cold Chain Limited', identifiers: [{ scheme: 'lei', value: 'NOT-AN-LEI' }] }],
+      },
     });
     expect(res.statusCode).toBe(422);
     expect(res.body).toContain('parties/0/identifiers/0');

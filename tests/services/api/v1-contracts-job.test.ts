@@ -7,7 +7,7 @@
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { describeEachBackend } from '../../support/database.ts';
 import { docxFile, imageOnlyPdf, inventedContract, pdfLibPdf, zipOf } from '../contract-files/documents.ts';
-import { keyedApp, type KeyedApp } from './v1-support.ts';
+import { keyedApp, type KeyedApp } from './support.ts';
 import { CONTRACTS_UPLOAD_LIMIT } from '../../../services/api/routes/v1/contracts-job.ts';
 
 describeEachBackend('POST /v1/jobs/contracts', (ctx) => {
@@ -36,7 +36,12 @@ describeEachBackend('POST /v1/jobs/contracts', (ctx) => {
   }
 
   it('imports a zip body as a partitioned job whose result reconciles and lists contracts and rejects', async () => {
-    const res = await k.call('write', { method: 'POST', url: '/v1/jobs/contracts?source=upload&partitionSize=2', payload: archive, headers: { 'content-type': 'application/zip' } });
+    const res = await k.call('write', {
+      method: 'POST',
+      url: '/v1/jobs/contracts?source=upload&partitionSize=2',
+      payload: archive,
+      headers: { 'content-type': 'application/zip' },
+    });
     expect(res.statusCode).toBe(202);
     const accepted = res.json();
     expect(accepted).toMatchObject({ kind: 'contracts', params: { source: 'upload', partitioned: true, partitionSize: 2 } });
@@ -50,7 +55,9 @@ describeEachBackend('POST /v1/jobs/contracts', (ctx) => {
     const paths = job.result.contracts.map((c: { path: string }) => c.path).sort();
     expect(paths).toEqual(['signed/hinges.txt', 'signed/service.docx', 'signed/supply.pdf']);
     // The customer named in all three is one counterparty.
-    const customers = job.result.contracts.flatMap((c: { parties: { name: string; counterpartyId: number }[] }) => c.parties.filter((p) => p.name === 'Tessaline Trading GmbH').map((p) => p.counterpartyId));
+    const customers = job.result.contracts.flatMap((c: { parties: { name: string; counterpartyId: number }[] }) =>
+      c.parties.filter((p) => p.name === 'Tessaline Trading GmbH').map((p) => p.counterpartyId),
+    );
     expect(customers).toHaveLength(3);
     expect(new Set(customers).size).toBe(1);
     const stored = await k.call('read', { method: 'GET', url: '/v1/contracts?source=upload&externalId=signed/supply.pdf' });
@@ -64,7 +71,12 @@ describeEachBackend('POST /v1/jobs/contracts', (ctx) => {
       archive,
       Buffer.from(`\r\n--${boundary}--\r\n`),
     ]);
-    const res = await k.call('write', { method: 'POST', url: '/v1/jobs/contracts?source=upload', payload: body, headers: { 'content-type': `multipart/form-data; boundary=${boundary}` } });
+    const res = await k.call('write', {
+      method: 'POST',
+      url: '/v1/jobs/contracts?source=upload',
+      payload: body,
+      headers: { 'content-type': `multipart/form-data; boundary=${boundary}` },
+    });
     expect(res.statusCode).toBe(202);
     expect(res.json().params.input).toBe('again.zip');
     const job = await finished(res.json().id);
@@ -73,13 +85,22 @@ describeEachBackend('POST /v1/jobs/contracts', (ctx) => {
 
   it('takes documents as the file parts of a multipart upload, each named by its file name', async () => {
     const boundary = 'cpregtestfiles';
-    const part = (name: string, type: string, content: Buffer) => [Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="files"; filename="${name}"\r\nContent-Type: ${type}\r\n\r\n`), content, Buffer.from('\r\n')];
+    const part = (name: string, type: string, content: Buffer) => [
+      Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="files"; filename="${name}"\r\nContent-Type: ${type}\r\n\r\n`),
+      content,
+      Buffer.from('\r\n'),
+    ];
     const body = Buffer.concat([
       ...part('bolts.pdf', 'application/pdf', await pdfLibPdf(inventedContract('Marlowick Fasteners Ltd'))), // pdf-lib
       ...part('../../nuts.txt', 'text/plain', Buffer.from(inventedContract('Ostrevale Nuts Ltd'))),
       Buffer.from(`--${boundary}--\r\n`),
     ]);
-    const res = await k.call('write', { method: 'POST', url: '/v1/jobs/contracts?source=parts', payload: body, headers: { 'content-type': `multipart/form-data; boundary=${boundary}` } });
+    const res = await k.call('write', {
+      method: 'POST',
+      url: '/v1/jobs/contracts?source=parts',
+      payload: body,
+      headers: { 'content-type': `multipart/form-data; boundary=${boundary}` },
+    });
     expect(res.statusCode).toBe(202);
     const job = await finished(res.json().id);
     expect(job.result.files).toEqual({ read: 2, imported: 2, new: 2, changed: 0, unchanged: 0, rejected: 0 });
@@ -103,10 +124,20 @@ describeEachBackend('POST /v1/jobs/contracts', (ctx) => {
   });
 
   it('refuses a body that is no zip (422 ARCHIVE_REFUSED), an upload over 100 MiB (413), and a read-only key (403)', async () => {
-    const notZip = await k.call('write', { method: 'POST', url: '/v1/jobs/contracts', payload: await pdfLibPdf(inventedContract()), headers: { 'content-type': 'application/zip' } });
+    const notZip = await k.call('write', {
+      method: 'POST',
+      url: '/v1/jobs/contracts',
+      payload: await pdfLibPdf(inventedContract()),
+      headers: { 'content-type': 'application/zip' },
+    });
     expect(notZip.statusCode).toBe(422);
     expect(notZip.json()).toMatchObject({ code: 'ARCHIVE_REFUSED', detail: expect.stringContaining('not a zip archive') });
-    const big = await k.call('write', { method: 'POST', url: '/v1/jobs/contracts', payload: Buffer.alloc(CONTRACTS_UPLOAD_LIMIT + 1024 * 1024), headers: { 'content-type': 'application/zip' } });
+    const big = await k.call('write', {
+      method: 'POST',
+      url: '/v1/jobs/contracts',
+      payload: Buffer.alloc(CONTRACTS_UPLOAD_LIMIT + 1024 * 1024),
+      headers: { 'content-type': 'application/zip' },
+    });
     expect(big.statusCode).toBe(413);
     expect(big.json()).toMatchObject({ code: 'PAYLOAD_TOO_LARGE', limitBytes: CONTRACTS_UPLOAD_LIMIT });
     const readOnly = await k.call('read', { method: 'POST', url: '/v1/jobs/contracts', payload: archive, headers: { 'content-type': 'application/zip' } });

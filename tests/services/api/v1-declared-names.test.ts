@@ -6,7 +6,7 @@
  */
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { describeEachBackend } from '../../support/database.ts';
-import { keyedApp, type KeyedApp } from './v1-support.ts';
+import { keyedApp, type KeyedApp } from './support.ts';
 
 const UK_SUPPLY = `SUPPLY AGREEMENT
 
@@ -66,7 +66,12 @@ describeEachBackend('/v1 declared former and trade names (issue 16 item 8)', (ct
   });
 
   it('links a mention of the former name in the same contract to the party, saying so', async () => {
-    const r = await post('/v1/mentions', { source: 'extraction', externalId: 'SUP-1/7', text: 'Tollaby Cold Storage Ltd', contract: { source: 'clm', externalId: 'SUP-1' } });
+    const r = await post('/v1/mentions', {
+      source: 'extraction',
+      externalId: 'SUP-1/7',
+      text: 'Tollaby Cold Storage Ltd',
+      contract: { source: 'clm', externalId: 'SUP-1' },
+    });
     expect(r.status).toBe('linked');
     expect(r.counterpartyId).toBe(tollaby);
     expect(r.explanation.via).toBe('declared_name');
@@ -77,7 +82,12 @@ describeEachBackend('/v1 declared former and trade names (issue 16 item 8)', (ct
   });
 
   it('links a mention of the former name in another contract, through the declared former name', async () => {
-    const r = await post('/v1/mentions', { source: 'extraction', externalId: 'PO-3/9', text: 'Tollaby Cold Storage Limited', contract: { source: 'clm', externalId: 'PO-3' } });
+    const r = await post('/v1/mentions', {
+      source: 'extraction',
+      externalId: 'PO-3/9',
+      text: 'Tollaby Cold Storage Limited',
+      contract: { source: 'clm', externalId: 'PO-3' },
+    });
     expect(r.status).toBe('linked');
     expect(r.counterpartyId).toBe(tollaby);
     expect(r.explanation.via).toBe('former_name');
@@ -117,7 +127,11 @@ describeEachBackend('/v1 declared former and trade names (issue 16 item 8)', (ct
     expect(r.explanation.via).toBe('former_name');
     expect(r.explanation.summary).toMatch(/another counterparty, (Brennock Mills Limited|Sallow Weaving Ltd), declared the same former name/);
     // A person says which: the name joins that counterparty as a former name, never as its current legal name.
-    const decided = await k.call('admin', { method: 'POST', url: `/v1/review-items/${r.reviewItemId}/decision`, payload: { decision: 'same', reason: 'the letterhead gives the company number' } });
+    const decided = await k.call('admin', {
+      method: 'POST',
+      url: `/v1/review-items/${r.reviewItemId}/decision`,
+      payload: { decision: 'same', reason: 'the letterhead gives the company number' },
+    });
     expect(decided.statusCode, decided.body).toBe(200);
     const chosen = (await k.call('read', { method: 'GET', url: `/v1/mentions/${r.mentionId}` })).json().counterpartyId as number;
     expect((await namesOf(chosen)).filter((n) => n.name === 'Ardley Textiles Limited').map((n) => n.kind)).toEqual(['former']);
@@ -132,7 +146,11 @@ describeEachBackend('/v1 declared former and trade names (issue 16 item 8)', (ct
     });
     const party = stored.parties.find((p: { role: string | null }) => p.role === 'Contractor');
     expect(party.status).toBe('review');
-    const decided = await k.call('admin', { method: 'POST', url: `/v1/review-items/${party.reviewItemId}/decision`, payload: { decision: 'same', reason: 'same company' } });
+    const decided = await k.call('admin', {
+      method: 'POST',
+      url: `/v1/review-items/${party.reviewItemId}/decision`,
+      payload: { decision: 'same', reason: 'same company' },
+    });
     expect(decided.statusCode, decided.body).toBe(200);
     const linked = (await k.call('read', { method: 'GET', url: `/v1/mentions/${party.mentionId}` })).json();
     expect(linked.status).toBe('linked');
@@ -141,7 +159,13 @@ describeEachBackend('/v1 declared former and trade names (issue 16 item 8)', (ct
 
   it('links the former name to the company that bears it as its current name today, not to its former holder', async () => {
     // An unrelated company registered the released name later (invented): the register holds both.
-    await post('/v1/mentions', { source: 'erp', externalId: 'v-60', text: 'Harrowgate Data Corporation', country: 'US-NY', identifiers: [{ scheme: 'us_ein', value: '84-1234567' }] });
+    await post('/v1/mentions', {
+      source: 'erp',
+      externalId: 'v-60',
+      text: 'Harrowgate Data Corporation',
+      country: 'US-NY',
+      identifiers: [{ scheme: 'us_ein', value: '84-1234567' }],
+    });
     const r = await post('/v1/mentions', { source: 'erp', externalId: 'v-61', text: 'Harrowgate Data Corp', country: 'US' });
     // The company that bears the name today wins on its current name; the former name never overrides it.
     expect(r).toMatchObject({ status: 'linked', canonicalName: 'Harrowgate Data Corporation' });

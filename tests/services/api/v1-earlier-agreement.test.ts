@@ -6,7 +6,7 @@
  */
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { describeEachBackend } from '../../support/database.ts';
-import { keyedApp, type KeyedApp } from './v1-support.ts';
+import { keyedApp, type KeyedApp } from './support.ts';
 
 const MSA = `MASTER SERVICES AGREEMENT
 
@@ -51,8 +51,10 @@ describeEachBackend('/v1 amendments use the defined terms of an earlier agreemen
     expect(res.statusCode, res.body).toBe(200);
     return res.json();
   };
-  const partyOf = (stored: { parties: { role: string | null; counterpartyId: number | null }[] }, role: string) => stored.parties.find((p) => p.role === role)?.counterpartyId;
-  const mention = (externalId: string, text: string, contract: string) => post('/v1/mentions', { source: 'extraction', externalId, text, contract: { source: 'clm', externalId: contract } });
+  const partyOf = (stored: { parties: { role: string | null; counterpartyId: number | null }[] }, role: string) =>
+    stored.parties.find((p) => p.role === role)?.counterpartyId;
+  const mention = (externalId: string, text: string, contract: string) =>
+    post('/v1/mentions', { source: 'extraction', externalId, text, contract: { source: 'clm', externalId: contract } });
   let carrier: number | null | undefined;
   let supplier: number | null | undefined;
   let client: number | null | undefined;
@@ -77,7 +79,9 @@ describeEachBackend('/v1 amendments use the defined terms of an earlier agreemen
     expect(r).toMatchObject({ status: 'linked', counterpartyId: carrier });
     expect(r.explanation.via).toBe('earlier_agreement_term');
     expect(r.explanation.earlierAgreement).toMatchObject({ externalId: 'MSA-2024-017', how: 'reference' });
-    expect(r.explanation.summary).toContain('uses the defined terms of Master Services Agreement (clm/MSA-2024-017, found by its reference number); there it is the term for Quillon Freight LLC');
+    expect(r.explanation.summary).toContain(
+      'uses the defined terms of Master Services Agreement (clm/MSA-2024-017, found by its reference number); there it is the term for Quillon Freight LLC',
+    );
   });
 
   it('UK: "the Supplier" in a side letter "between us" is the supply agreement\'s Supplier, found by title and date', async () => {
@@ -119,7 +123,12 @@ This Lease is dated 5 May 2022 and made between Sallow Weaving Ltd, a company in
 
   it('binds nothing when two stored contracts agree equally with the statement', async () => {
     // A second supply agreement of the same date between the same parties: which one the letter means is unknown.
-    await post('/v1/contracts', { source: 'clm', externalId: 'SUP-1-COPY', title: 'Supply Agreement (counterpart)', text: SUPPLY.replace('THIS AGREEMENT', 'THIS SUPPLY AGREEMENT') });
+    await post('/v1/contracts', {
+      source: 'clm',
+      externalId: 'SUP-1-COPY',
+      title: 'Supply Agreement (counterpart)',
+      text: SUPPLY.replace('THIS AGREEMENT', 'THIS SUPPLY AGREEMENT'),
+    });
     const r = await mention('SL-1/2', 'the Customer', 'SL-1');
     expect(r.status).toBe('unbound_term');
   });

@@ -33,7 +33,11 @@ describeEachBackend('/v1 over real HTTP', (ctx) => {
     fetch(`${base}${url}`, {
       method: init.method ?? 'GET',
       redirect: 'manual',
-      headers: { ...(init.key === '' ? {} : { authorization: `Bearer ${init.key ?? admin}` }), ...(init.body !== undefined ? { 'content-type': 'application/json' } : {}), ...init.headers },
+      headers: {
+        ...(init.key === '' ? {} : { authorization: `Bearer ${init.key ?? admin}` }),
+        ...(init.body !== undefined ? { 'content-type': 'application/json' } : {}),
+        ...init.headers,
+      },
       body: init.body === undefined ? undefined : JSON.stringify(init.body),
     });
 
@@ -54,10 +58,18 @@ describeEachBackend('/v1 over real HTTP', (ctx) => {
       JSON.stringify({ externalId: 'u-2', text: 'Brindlecombe Optics Limited', country: 'GB' }),
       '{"externalId":"u-3","text":"Nul\\u0000Byte Traders"}',
     ];
-    const res = await fetch(`${base}/v1/jobs/ingest?source=http-upload`, { method: 'POST', headers: { authorization: `Bearer ${admin}`, 'content-type': 'application/x-ndjson' }, body: `${lines.join('\n')}\n`, signal: AbortSignal.timeout(60_000) });
+    const res = await fetch(`${base}/v1/jobs/ingest?source=http-upload`, {
+      method: 'POST',
+      headers: { authorization: `Bearer ${admin}`, 'content-type': 'application/x-ndjson' },
+      body: `${lines.join('\n')}\n`,
+      signal: AbortSignal.timeout(60_000),
+    });
     expect(res.status, await res.clone().text()).toBe(202);
     const id = ((await res.json()) as { id: number }).id;
-    let job: { status: string; result: { counts: Record<string, number>; rejected: { line: number; reason: string }[] } | null } = { status: 'queued', result: null };
+    let job: { status: string; result: { counts: Record<string, number>; rejected: { line: number; reason: string }[] } | null } = {
+      status: 'queued',
+      result: null,
+    };
     for (let i = 0; i < 300 && (job.status === 'queued' || job.status === 'running'); i++) {
       await new Promise((r) => setTimeout(r, 100));
       job = (await (await call(`/v1/jobs/${id}`)).json()) as typeof job;
@@ -70,7 +82,16 @@ describeEachBackend('/v1 over real HTTP', (ctx) => {
   it('answers 308 to the survivor for a merged id', async () => {
     const a = await (await call('/v1/counterparties', { method: 'POST', body: { name: 'Istervale Paper AB', jurisdiction: 'SE' } })).json();
     const b = await (await call('/v1/counterparties', { method: 'POST', body: { name: 'Istervale Papper AB', jurisdiction: 'SE' } })).json();
-    const merged = await call('/v1/counterparties/merge', { method: 'POST', body: { items: [{ id: a.counterpartyId, etag: a.etag }, { id: b.counterpartyId, etag: b.etag }], reason: 'typo' } });
+    const merged = await call('/v1/counterparties/merge', {
+      method: 'POST',
+      body: {
+        items: [
+          { id: a.counterpartyId, etag: a.etag },
+          { id: b.counterpartyId, etag: b.etag },
+        ],
+        reason: 'typo',
+      },
+    });
     expect(merged.status).toBe(200);
     const res = await call(`/v1/counterparties/${b.counterpartyId}/mentions`);
     expect(res.status).toBe(308);
@@ -85,7 +106,11 @@ describeEachBackend('/v1 over real HTTP', (ctx) => {
     const otherBase = await listen(other);
     try {
       const via = (root: string, url: string, body?: unknown) =>
-        fetch(`${root}${url}`, { method: body ? 'POST' : 'GET', headers: { authorization: `Bearer ${admin}`, ...(body ? { 'content-type': 'application/json' } : {}) }, body: body ? JSON.stringify(body) : undefined });
+        fetch(`${root}${url}`, {
+          method: body ? 'POST' : 'GET',
+          headers: { authorization: `Bearer ${admin}`, ...(body ? { 'content-type': 'application/json' } : {}) },
+          body: body ? JSON.stringify(body) : undefined,
+        });
       // The same company written three ways, sent at once through both instances: one counterparty.
       const names = ['Caldermoor Instruments GmbH', 'Caldermoor Instruments G.m.b.H.', 'CALDERMOOR INSTRUMENTS GMBH'];
       const answers = await Promise.all(
@@ -98,7 +123,12 @@ describeEachBackend('/v1 over real HTTP', (ctx) => {
       for (const r of answers) expect(r.status).toBe(200);
       const ids = new Set(results.map((r) => r.counterpartyId));
       expect(ids.size).toBe(1);
-      const count = await ctx.db().selectFrom('mention').select((eb) => eb.fn.countAll<string>().as('n')).where('source', '=', 'two').executeTakeFirstOrThrow();
+      const count = await ctx
+        .db()
+        .selectFrom('mention')
+        .select((eb) => eb.fn.countAll<string>().as('n'))
+        .where('source', '=', 'two')
+        .executeTakeFirstOrThrow();
       expect(Number(count.n)).toBe(3);
       const [one, two] = await Promise.all([via(base, `/v1/counterparties/${[...ids][0]}`), via(otherBase, `/v1/counterparties/${[...ids][0]}`)]);
       const [j1, j2] = [await one.json(), await two.json()];

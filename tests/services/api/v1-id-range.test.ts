@@ -7,7 +7,7 @@ import { afterAll, beforeAll, expect, it } from 'vitest';
 import type { LightMyRequestResponse } from 'fastify';
 import { createRegisterContext, resolveMention, stateSnapshot } from '../../../services/register/index.ts';
 import { describeEachBackend } from '../../support/index.ts';
-import { keyedApp, type KeyedApp } from './v1-support.ts';
+import { keyedApp, type KeyedApp } from './support.ts';
 
 interface ProblemBody {
   code: string;
@@ -54,14 +54,46 @@ describeEachBackend('ids out of range', (t) => {
   it('refuses body ids beyond bigint, above 2^53 or written as 1e300 with 422 naming the field', async () => {
     const json = { 'content-type': 'application/json' };
     const before = await stateSnapshot(t.db());
-    expectNamed(await k.call('admin', { method: 'POST', url: `/v1/counterparties/${cp}/split`, headers: json, payload: `{"mentionIds":[${BIG}],"reason":"r"}` }), '/mentionIds/0');
-    expectNamed(await k.call('admin', { method: 'POST', url: `/v1/counterparties/${cp}/split`, headers: json, payload: '{"mentionIds":[1],"targetId":1e300,"reason":"r"}' }), '/targetId');
-    expectNamed(await k.call('admin', { method: 'POST', url: `/v1/counterparties/${cp}/relations`, headers: json, payload: `{"toId":${JUST_UNSAFE},"type":"parent_of"}` }), '/toId');
     expectNamed(
-      await k.call('admin', { method: 'POST', url: '/v1/counterparties/merge', headers: json, payload: `{"items":[{"id":${cp},"etag":${JSON.stringify(etag)}},{"id":${BIG},"etag":"\\"cp1.v1\\""}],"survivorId":${cp},"reason":"r"}` }),
+      await k.call('admin', { method: 'POST', url: `/v1/counterparties/${cp}/split`, headers: json, payload: `{"mentionIds":[${BIG}],"reason":"r"}` }),
+      '/mentionIds/0',
+    );
+    expectNamed(
+      await k.call('admin', {
+        method: 'POST',
+        url: `/v1/counterparties/${cp}/split`,
+        headers: json,
+        payload: '{"mentionIds":[1],"targetId":1e300,"reason":"r"}',
+      }),
+      '/targetId',
+    );
+    expectNamed(
+      await k.call('admin', {
+        method: 'POST',
+        url: `/v1/counterparties/${cp}/relations`,
+        headers: json,
+        payload: `{"toId":${JUST_UNSAFE},"type":"parent_of"}`,
+      }),
+      '/toId',
+    );
+    expectNamed(
+      await k.call('admin', {
+        method: 'POST',
+        url: '/v1/counterparties/merge',
+        headers: json,
+        payload: `{"items":[{"id":${cp},"etag":${JSON.stringify(etag)}},{"id":${BIG},"etag":"\\"cp1.v1\\""}],"survivorId":${cp},"reason":"r"}`,
+      }),
       '/items/1/id',
     );
-    expectNamed(await k.call('admin', { method: 'POST', url: '/v1/counterparties/merge', headers: json, payload: `{"items":[{"id":${cp},"etag":"x"},{"id":2,"etag":"y"}],"survivorId":${JUST_UNSAFE},"reason":"r"}` }), '/survivorId');
+    expectNamed(
+      await k.call('admin', {
+        method: 'POST',
+        url: '/v1/counterparties/merge',
+        headers: json,
+        payload: `{"items":[{"id":${cp},"etag":"x"},{"id":2,"etag":"y"}],"survivorId":${JUST_UNSAFE},"reason":"r"}`,
+      }),
+      '/survivorId',
+    );
     expect(await stateSnapshot(t.db())).toEqual(before);
   });
 

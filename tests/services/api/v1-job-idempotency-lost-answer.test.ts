@@ -18,7 +18,7 @@ import { submitIngestJob } from '../../../services/jobs/submit-ingest.ts';
 import { submitContractsJob } from '../../../services/jobs/submit-contracts.ts';
 import type { JobQueue } from '../../../db/job-queue.ts';
 import { inventedContract, zipOf } from '../contract-files/documents.ts';
-import { keyedApp, type KeyedApp } from './v1-support.ts';
+import { keyedApp, type KeyedApp } from './support.ts';
 
 /** A queue whose process stops at its first send: nothing after it in the submission runs. */
 const dyingQueue = { kind: 'in-process', send: async () => Promise.reject(new Error('the process stopped here')) } as unknown as JobQueue;
@@ -37,9 +37,23 @@ describeEachBackend('idempotency: a job submission whose answer was lost', (t) =
 
   /** The write key's id, as the idempotency claim names it (the secret is cpreg_<id>_<random>). */
   const writeKeyId = (): string => k.keys.write.split('_')[1]!;
-  const jobCount = async (): Promise<number> => Number((await t.db().selectFrom('job').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n);
+  const jobCount = async (): Promise<number> =>
+    Number(
+      (
+        await t
+          .db()
+          .selectFrom('job')
+          .select((eb) => eb.fn.countAll<number>().as('n'))
+          .executeTakeFirstOrThrow()
+      ).n,
+    );
   const age = (key: string) =>
-    t.db().updateTable('idempotency_record').set({ created_at: new Date(Date.now() - ABANDONED_AFTER_MS - 60_000) }).where('idempotency_key', '=', key).execute();
+    t
+      .db()
+      .updateTable('idempotency_record')
+      .set({ created_at: new Date(Date.now() - ABANDONED_AFTER_MS - 60_000) })
+      .where('idempotency_key', '=', key)
+      .execute();
 
   it('POST /v1/jobs/ingest: the retry gets the same job, and no second job is made', async () => {
     const body = `${JSON.stringify({ externalId: 'lost-1', text: 'Harrowgate Lanterns Ltd' })}\n`;
@@ -50,13 +64,21 @@ describeEachBackend('idempotency: a job submission whose answer was lost', (t) =
     const file = join(dir, 'upload.ndjson');
     writeFileSync(file, body);
     await expect(
-      submitIngestJob({ db: t.db(), queue: dyingQueue }, { file, format: 'ndjson', source: 'lostanswer', actor: 'test', inputName: 'upload', onJobCreated: answerJobCreated(claim) }),
+      submitIngestJob(
+        { db: t.db(), queue: dyingQueue },
+        { file, format: 'ndjson', source: 'lostanswer', actor: 'test', inputName: 'upload', onJobCreated: answerJobCreated(claim) },
+      ),
     ).rejects.toThrow('the process stopped here');
     const made = await t.db().selectFrom('job').select('id').orderBy('id', 'desc').executeTakeFirstOrThrow();
     await age(claim.key);
     const before = await jobCount();
 
-    const retry = await k.call('write', { method: 'POST', url, payload: body, headers: { 'content-type': 'application/x-ndjson', 'idempotency-key': claim.key } });
+    const retry = await k.call('write', {
+      method: 'POST',
+      url,
+      payload: body,
+      headers: { 'content-type': 'application/x-ndjson', 'idempotency-key': claim.key },
+    });
     expect(retry.statusCode, retry.body).toBe(202);
     expect(retry.headers['idempotent-replayed']).toBe('true');
     expect(retry.json().id).toBe(Number(made.id));
@@ -73,7 +95,10 @@ describeEachBackend('idempotency: a job submission whose answer was lost', (t) =
     expect((await claimIdempotencyKey(t.db(), { ...claim, method: 'POST', path: url, hash })).kind).toBe('claimed');
     const file = join(dir, 'upload.zip');
     writeFileSync(file, zip);
-    const submitted = await submitContractsJob({ db: t.db(), queue: dyingQueue }, { file, source: 'lostanswer', actor: 'test', inputName: 'upload.zip', onJobCreated: answerJobCreated(claim) });
+    const submitted = await submitContractsJob(
+      { db: t.db(), queue: dyingQueue },
+      { file, source: 'lostanswer', actor: 'test', inputName: 'upload.zip', onJobCreated: answerJobCreated(claim) },
+    );
     await submitted.staged; // staging stops at the dying queue; the route never answered
     await age(claim.key);
     const before = await jobCount();
@@ -90,6 +115,8 @@ describeEachBackend('idempotency: a job submission whose answer was lost', (t) =
     const headers = { 'content-type': 'application/zip', 'idempotency-key': 'lost-job-refused-1' };
     const refused = await k.call('write', { method: 'POST', url, payload: Buffer.from('not a zip at all'), headers });
     expect(refused.statusCode).toBe(422);
-    expect(await t.db().selectFrom('idempotency_record').select('key_id').where('idempotency_key', '=', 'lost-job-refused-1').executeTakeFirst()).toBeUndefined();
+    expect(
+      await t.db().selectFrom('idempotency_record').select('key_id').where('idempotency_key', '=', 'lost-job-refused-1').executeTakeFirst(),
+    ).toBeUndefined();
   });
 });

@@ -10,7 +10,7 @@ import type { Database } from '../../../db/types.ts';
 import { digest } from '../../../services/api/auth/keys.ts';
 import { claimIdempotencyKey, SECRET_NOT_STORED, storeIdempotentAnswer } from '../../../services/api/auth/idempotency.ts';
 import { describeEachBackend } from '../../support/database.ts';
-import { keyedApp, type KeyedApp } from './v1-support.ts';
+import { keyedApp, type KeyedApp } from './support.ts';
 
 type Ctx = { db(): Kysely<Database> };
 
@@ -46,7 +46,12 @@ describeEachBackend('POST /v1/keys with an Idempotency-Key: the secret is shown 
   });
 
   it('replays the creation without the secret, and no table holds the secret', async () => {
-    const request = { method: 'POST' as const, url: '/v1/keys', payload: { scope: 'write', label: 'Brackenholt invoice feed' }, headers: { 'idempotency-key': 'create-key-brackenholt-1' } };
+    const request = {
+      method: 'POST' as const,
+      url: '/v1/keys',
+      payload: { scope: 'write', label: 'Brackenholt invoice feed' },
+      headers: { 'idempotency-key': 'create-key-brackenholt-1' },
+    };
     const first = await k.call('admin', request);
     expect(first.statusCode).toBe(201);
     const created = first.json() as { id: string; label: string; scope: string; createdAt: string; secret: string };
@@ -60,7 +65,14 @@ describeEachBackend('POST /v1/keys with an Idempotency-Key: the secret is shown 
     expect(replay.body).not.toContain(secret);
     const replayed = replay.json() as Record<string, unknown>;
     expect(replayed).not.toHaveProperty('secret');
-    expect(replayed).toMatchObject({ id: created.id, label: created.label, scope: 'write', createdAt: created.createdAt, revokedAt: null, secretWithheld: true });
+    expect(replayed).toMatchObject({
+      id: created.id,
+      label: created.label,
+      scope: 'write',
+      createdAt: created.createdAt,
+      revokedAt: null,
+      secretWithheld: true,
+    });
     expect(replayed.detail).toContain('shown once');
 
     // One key was created, and the secret shown the first time works.
@@ -82,7 +94,12 @@ describeEachBackend('POST /v1/keys with an Idempotency-Key: the secret is shown 
     const claim = { keyId: 'k000000000001', key: 'stored-answer-guard-1' };
     const leaked = `cpreg_k0123456789ab_${'A'.repeat(43)}`;
     expect((await claimIdempotencyKey(ctx.db(), { ...claim, method: 'POST', path: '/v1/elsewhere', hash: 'h' })).kind).toBe('claimed');
-    await storeIdempotentAnswer(ctx.db(), claim, { statusCode: 200, contentType: 'application/json', headers: {}, body: JSON.stringify({ note: `key ${leaked} here` }) });
+    await storeIdempotentAnswer(ctx.db(), claim, {
+      statusCode: 200,
+      contentType: 'application/json',
+      headers: {},
+      body: JSON.stringify({ note: `key ${leaked} here` }),
+    });
     const replay = await claimIdempotencyKey(ctx.db(), { ...claim, method: 'POST', path: '/v1/elsewhere', hash: 'h' });
     expect(replay.kind).toBe('replay');
     const body = replay.kind === 'replay' ? replay.answer.body : '';

@@ -10,7 +10,7 @@ import type { AddressInfo } from 'node:net';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import type { LightMyRequestResponse } from 'fastify';
 import { describeEachBackend } from '../../support/index.ts';
-import { keyedApp, type KeyedApp } from './v1-support.ts';
+import { keyedApp, type KeyedApp } from './support.ts';
 
 function expectProblem(res: LightMyRequestResponse, status: number, code: string): void {
   expect(res.statusCode, res.body).toBe(status);
@@ -49,13 +49,28 @@ describeEachBackend('media types and framing errors', (t) => {
   });
 
   it('answers 415 problem+json for a body of another media type (was 422 "(root) must be object")', async () => {
-    for (const contentType of ['text/plain', 'text/plain; charset=utf-8', 'application/xml', 'application/x-www-form-urlencoded', 'multipart/form-data; boundary=x']) {
-      const res = await k.call('write', { method: 'POST', url: '/v1/mentions', headers: { 'content-type': contentType }, payload: 'source=s&externalId=e&text=t' });
+    for (const contentType of [
+      'text/plain',
+      'text/plain; charset=utf-8',
+      'application/xml',
+      'application/x-www-form-urlencoded',
+      'multipart/form-data; boundary=x',
+    ]) {
+      const res = await k.call('write', {
+        method: 'POST',
+        url: '/v1/mentions',
+        headers: { 'content-type': contentType },
+        payload: 'source=s&externalId=e&text=t',
+      });
       expectProblem(res, 415, 'UNSUPPORTED_MEDIA_TYPE');
       // The message names what is accepted, never the caller's header.
       expect((res.json() as { detail: string }).detail).not.toContain(contentType);
     }
-    expectProblem(await k.call('admin', { method: 'POST', url: '/v1/jobs/sweep', headers: { 'content-type': 'text/plain' }, payload: 'go' }), 415, 'UNSUPPORTED_MEDIA_TYPE');
+    expectProblem(
+      await k.call('admin', { method: 'POST', url: '/v1/jobs/sweep', headers: { 'content-type': 'text/plain' }, payload: 'go' }),
+      415,
+      'UNSUPPORTED_MEDIA_TYPE',
+    );
   });
 
   it('answers a bad percent-encoding in the path and an over-long path parameter with problem+json', async () => {
@@ -71,7 +86,11 @@ describeEachBackend('media types and framing errors', (t) => {
   });
 
   it('answers malformed HTTP framing with 400 problem+json', async () => {
-    for (const bytes of ['GARBAGE\r\n\r\n', 'GET / HTTP/1.1\r\nHost: x\r\nContent-Length: 5\r\nContent-Length: 6\r\n\r\nhello', 'POST /v1/mentions HTTP/1.1\r\nHost: x\r\nTransfer-Encoding: chunked\r\n\r\nzz\r\n']) {
+    for (const bytes of [
+      'GARBAGE\r\n\r\n',
+      'GET / HTTP/1.1\r\nHost: x\r\nContent-Length: 5\r\nContent-Length: 6\r\n\r\nhello',
+      'POST /v1/mentions HTTP/1.1\r\nHost: x\r\nTransfer-Encoding: chunked\r\n\r\nzz\r\n',
+    ]) {
       const res = await raw(port, bytes);
       expect(res.status, bytes).toBe(400);
       expect(res.headers).toMatch(/content-type: application\/problem\+json/i);

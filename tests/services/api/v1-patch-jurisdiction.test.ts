@@ -4,7 +4,7 @@
  */
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { describeEachBackend } from '../../support/database.ts';
-import { keyedApp, type KeyedApp } from './v1-support.ts';
+import { keyedApp, type KeyedApp } from './support.ts';
 
 describeEachBackend('/v1 PATCH jurisdiction', (ctx) => {
   let k: KeyedApp;
@@ -21,7 +21,12 @@ describeEachBackend('/v1 PATCH jurisdiction', (ctx) => {
     return { id: res.json().counterpartyId, etag: res.headers.etag as string };
   }
   const patch = (id: number, etag: string | undefined, payload: unknown) =>
-    k.call('admin', { method: 'PATCH', url: `/v1/counterparties/${id}`, headers: etag ? { 'if-match': etag } : {}, payload: payload as Record<string, unknown> });
+    k.call('admin', {
+      method: 'PATCH',
+      url: `/v1/counterparties/${id}`,
+      headers: etag ? { 'if-match': etag } : {},
+      payload: payload as Record<string, unknown>,
+    });
 
   it('sets and clears the jurisdiction, one jurisdiction_changed event each, visible in history and the change feed', async () => {
     const { id, etag } = await create('Ravenstoke Instruments Ltd', { jurisdiction: 'GB' });
@@ -32,7 +37,9 @@ describeEachBackend('/v1 PATCH jurisdiction', (ctx) => {
     const got = await k.call('read', { method: 'GET', url: `/v1/counterparties/${id}` });
     expect(got.json().jurisdiction).toBe('US-DE');
     const history = await k.call('read', { method: 'GET', url: `/v1/counterparties/${id}/history` });
-    const event = (history.json().items as { type: string; details: Record<string, unknown>; reason: string | null }[]).find((e) => e.type === 'jurisdiction_changed');
+    const event = (history.json().items as { type: string; details: Record<string, unknown>; reason: string | null }[]).find(
+      (e) => e.type === 'jurisdiction_changed',
+    );
     expect(event).toMatchObject({ details: { counterpartyId: id, from: 'GB', to: 'US-DE' }, reason: 'reincorporated in Delaware' });
 
     const cleared = await patch(id, set.headers.etag as string, { jurisdiction: null });
@@ -71,7 +78,12 @@ describeEachBackend('/v1 PATCH jurisdiction', (ctx) => {
     expect(moved.statusCode).toBe(200);
     const stale = await patch(id, etag, { jurisdiction: 'FR' });
     expect(stale.statusCode).toBe(412);
-    const forbidden = await k.call('read', { method: 'PATCH', url: `/v1/counterparties/${id}`, headers: { 'if-match': moved.headers.etag as string }, payload: { jurisdiction: 'FR' } });
+    const forbidden = await k.call('read', {
+      method: 'PATCH',
+      url: `/v1/counterparties/${id}`,
+      headers: { 'if-match': moved.headers.etag as string },
+      payload: { jurisdiction: 'FR' },
+    });
     expect(forbidden.statusCode).toBe(403);
     const after = (await k.call('read', { method: 'GET', url: `/v1/counterparties/${id}` })).json();
     expect(after).toMatchObject({ canonicalName: 'Ravenstoke Gauges Ltd', jurisdiction: 'IE' });

@@ -1,11 +1,11 @@
 /**
  * GET /v1/review-items in priority order (the default) and oldest first, and a decision with scope "group",
  * over fastify inject on both backends. Invented names; the ranking itself is unit-tested in
- * tests/resolvers/score/rankReviewItems.test.ts.
+ * tests/resolvers/score/rank-review-items.test.ts.
  */
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { describeEachBackend } from '../../support/database.ts';
-import { keyedApp, type KeyedApp } from './v1-support.ts';
+import { keyedApp, type KeyedApp } from './support.ts';
 
 describeEachBackend('/v1/review-items order and group decisions', (ctx) => {
   let k: KeyedApp;
@@ -16,12 +16,20 @@ describeEachBackend('/v1/review-items order and group decisions', (ctx) => {
       externalId: id,
       text: `This Services Agreement is made between ${name}, a company incorporated in England (the "Provider"), and Dallowmere Foods Ltd (the "Client").`,
     });
-    for (const [id, name] of [['r-0', 'Hartsell Cold Chain Limited'], ['r-1', 'Wexbury Signals Limited'], ['r-2', 'Wexbury Signals Limited']]) {
+    for (const [id, name] of [
+      ['r-0', 'Hartsell Cold Chain Limited'],
+      ['r-1', 'Wexbury Signals Limited'],
+      ['r-2', 'Wexbury Signals Limited'],
+    ]) {
       const stored = await k.call('write', { method: 'POST', url: '/v1/contracts', payload: contract(id!, name!) });
       expect(stored.statusCode, stored.body).toBe(200);
     }
     // Names alone (no legal form, no country): equal names with nothing to confirm them go to a person.
-    for (const [id, text] of [['h-1', 'Hartsell Cold Chain'], ['w-1', 'Wexbury Signals'], ['w-2', 'WEXBURY SIGNALS']]) {
+    for (const [id, text] of [
+      ['h-1', 'Hartsell Cold Chain'],
+      ['w-1', 'Wexbury Signals'],
+      ['w-2', 'WEXBURY SIGNALS'],
+    ]) {
       const r = await k.call('write', { method: 'POST', url: '/v1/mentions', payload: { source: 'queue', externalId: id, text } });
       expect(r.json().status, text).toBe('review');
     }
@@ -33,7 +41,12 @@ describeEachBackend('/v1/review-items order and group decisions', (ctx) => {
   it('lists the group touching more contracts first by default, with its group, and oldest first on request', async () => {
     const ranked = await k.call('read', { method: 'GET', url: '/v1/review-items' });
     expect(ranked.statusCode, ranked.body).toBe(200);
-    const items = ranked.json().items as { id: number; mention: { externalId: string }; group: { size: number; itemIds: number[]; contracts: number }; priority: number }[];
+    const items = ranked.json().items as {
+      id: number;
+      mention: { externalId: string };
+      group: { size: number; itemIds: number[]; contracts: number };
+      priority: number;
+    }[];
     expect(items.map((i) => i.mention.externalId)).toEqual(['w-1', 'w-2', 'h-1']);
     expect(items[0]!.group).toMatchObject({ size: 2, contracts: 2, itemIds: [items[0]!.id, items[1]!.id] });
     expect(ranked.json().open).toBe(3);
@@ -50,7 +63,12 @@ describeEachBackend('/v1/review-items order and group decisions', (ctx) => {
   });
 
   it('answers the next questions of a contract system: the item of a mention, one item, and the queue narrowed', async () => {
-    const all = (await k.call('read', { method: 'GET', url: '/v1/review-items' })).json().items as { id: number; mentionId: number; rightCounterpartyId: number; mention: { externalId: string } }[];
+    const all = (await k.call('read', { method: 'GET', url: '/v1/review-items' })).json().items as {
+      id: number;
+      mentionId: number;
+      rightCounterpartyId: number;
+      mention: { externalId: string };
+    }[];
     const wexbury = all.find((i) => i.mention.externalId === 'w-1')!;
     const mention = await k.call('read', { method: 'GET', url: `/v1/mentions/${wexbury.mentionId}` });
     expect(mention.json()).toMatchObject({ status: 'review', reviewItemId: wexbury.id });
@@ -60,7 +78,8 @@ describeEachBackend('/v1/review-items order and group decisions', (ctx) => {
     expect((await k.call('read', { method: 'GET', url: '/v1/review-items/999999' })).statusCode).toBe(404);
     const byMention = (await k.call('read', { method: 'GET', url: `/v1/review-items?mentionId=${wexbury.mentionId}` })).json().items;
     expect(byMention.map((i: { id: number }) => i.id)).toEqual([wexbury.id]);
-    const byCounterparty = (await k.call('read', { method: 'GET', url: `/v1/review-items?counterpartyId=${wexbury.rightCounterpartyId}&order=oldest` })).json().items;
+    const byCounterparty = (await k.call('read', { method: 'GET', url: `/v1/review-items?counterpartyId=${wexbury.rightCounterpartyId}&order=oldest` })).json()
+      .items;
     expect(byCounterparty.map((i: { mention: { externalId: string } }) => i.mention.externalId)).toEqual(['w-1', 'w-2']);
     expect((await k.call('read', { method: 'GET', url: '/v1/review-items?kind=duplicate' })).json().items).toEqual([]);
     expect((await k.call('read', { method: 'GET', url: '/v1/review-items?createdBefore=2000-01-01T00:00:00Z' })).json().items).toEqual([]);
@@ -71,7 +90,11 @@ describeEachBackend('/v1/review-items order and group decisions', (ctx) => {
 
   it('settles every item of the group with scope "group", and one item alone by default ("not a party" here)', async () => {
     const items = (await k.call('read', { method: 'GET', url: '/v1/review-items' })).json().items as { id: number; group: { itemIds: number[] } }[];
-    const decided = await k.call('admin', { method: 'POST', url: `/v1/review-items/${items[0]!.id}/decision`, payload: { decision: 'same', scope: 'group', reason: 'same firm' } });
+    const decided = await k.call('admin', {
+      method: 'POST',
+      url: `/v1/review-items/${items[0]!.id}/decision`,
+      payload: { decision: 'same', scope: 'group', reason: 'same firm' },
+    });
     expect(decided.statusCode, decided.body).toBe(200);
     expect(decided.json().settled.map((s: { reviewItemId: number }) => s.reviewItemId)).toEqual(items[0]!.group.itemIds);
     expect(decided.json().skipped).toEqual([]);

@@ -6,7 +6,7 @@
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { setTimeout as sleep } from 'node:timers/promises';
 import { describeEachBackend } from '../../support/database.ts';
-import { keyedApp, type KeyedApp } from './v1-support.ts';
+import { keyedApp, type KeyedApp } from './support.ts';
 
 const CONTRACT = `MASTER SERVICES AGREEMENT
 
@@ -56,20 +56,32 @@ describeEachBackend('/v1 routes', (ctx) => {
     // 5493001KJTIIGC8Y1R13 fails the ISO 17442 check digits (…R12 is the valid form: ISO 7064 MOD 97-10).
     expect(out.items[2]).toMatchObject({ status: 'rejected', index: 2 });
     expect(out.items[0].counterpartyId).toBe(out.items[1].counterpartyId);
-    const ndjson = [{ source: 'erp', externalId: 'b-4', text: 'Marlowe Pumps Inc.', country: 'US' }, { source: 'erp', externalId: 'b-1', text: 'Corvallen Textiles S.A.', country: 'FR' }]
+    const ndjson = [
+      { source: 'erp', externalId: 'b-4', text: 'Marlowe Pumps Inc.', country: 'US' },
+      { source: 'erp', externalId: 'b-1', text: 'Corvallen Textiles S.A.', country: 'FR' },
+    ]
       .map((i) => JSON.stringify(i))
       .join('\n');
     const res2 = await k.call('write', { method: 'POST', url: '/v1/mentions/batch', payload: ndjson, headers: { 'content-type': 'application/x-ndjson' } });
     expect(res2.statusCode, res2.body).toBe(200);
     expect(res2.json().items.map((i: { externalId: string }) => i.externalId)).toEqual(['b-4', 'b-1']);
     expect(res2.json().counts).toMatchObject({ already_ingested: 1 });
-    const bad = await k.call('write', { method: 'POST', url: '/v1/mentions/batch', payload: '{"source":"erp"}\nnot json', headers: { 'content-type': 'application/x-ndjson' } });
+    const bad = await k.call('write', {
+      method: 'POST',
+      url: '/v1/mentions/batch',
+      payload: '{"source":"erp"}\nnot json',
+      headers: { 'content-type': 'application/x-ndjson' },
+    });
     expect(bad.statusCode).toBe(400);
     expect(bad.json()).toMatchObject({ code: 'MALFORMED_JSON', line: 2 });
   });
 
   it('stores a contract, finds its parties with roles, and reads it by id and by source id', async () => {
-    const res = await k.call('write', { method: 'POST', url: '/v1/contracts', payload: { source: 'clm', externalId: 'MSA-77', title: 'Master Services Agreement', text: CONTRACT } });
+    const res = await k.call('write', {
+      method: 'POST',
+      url: '/v1/contracts',
+      payload: { source: 'clm', externalId: 'MSA-77', title: 'Master Services Agreement', text: CONTRACT },
+    });
     expect(res.statusCode, res.body).toBe(200);
     const stored = res.json();
     const names = stored.parties.map((p: { canonicalName: string | null }) => p.canonicalName);
@@ -85,7 +97,12 @@ describeEachBackend('/v1 routes', (ctx) => {
     const network = await k.call('read', { method: 'GET', url: `/v1/counterparties/${provider.counterpartyId}/network` });
     expect(network.statusCode).toBe(200);
     expect(network.json().contracts[0]).toMatchObject({ externalId: 'MSA-77', roles: ['Provider'] });
-    expect(network.json().parties.map((p: { name: string }) => p.name).join(' ')).toContain('Tansbury');
+    expect(
+      network
+        .json()
+        .parties.map((p: { name: string }) => p.name)
+        .join(' '),
+    ).toContain('Tansbury');
     const cp = await k.call('read', { method: 'GET', url: `/v1/counterparties/${provider.counterpartyId}` });
     expect(cp.json().contracts).toHaveLength(1);
   });
@@ -100,7 +117,17 @@ describeEachBackend('/v1 routes', (ctx) => {
     }
     const a = (await k.call('admin', { method: 'POST', url: '/v1/counterparties', payload: { name: 'Wrexford Signal Ltd', jurisdiction: 'GB' } })).json();
     const b = (await k.call('admin', { method: 'POST', url: '/v1/counterparties', payload: { name: 'Wrexford Signalling Ltd', jurisdiction: 'GB' } })).json();
-    const merged = await k.call('admin', { method: 'POST', url: '/v1/counterparties/merge', payload: { items: [{ id: a.counterpartyId, etag: a.etag }, { id: b.counterpartyId, etag: b.etag }], reason: 'one company' } });
+    const merged = await k.call('admin', {
+      method: 'POST',
+      url: '/v1/counterparties/merge',
+      payload: {
+        items: [
+          { id: a.counterpartyId, etag: a.etag },
+          { id: b.counterpartyId, etag: b.etag },
+        ],
+        reason: 'one company',
+      },
+    });
     expect(merged.statusCode, merged.body).toBe(200);
     const undo = await k.call('admin', { method: 'POST', url: `/v1/history/${merged.json().eventId}/undo`, payload: { reason: 'not one company' } });
     expect(undo.statusCode, undo.body).toBe(200);
@@ -121,7 +148,11 @@ describeEachBackend('/v1 routes', (ctx) => {
     expect([200, 201]).toContain(own.statusCode);
     const list = await k.call('read', { method: 'GET', url: '/v1/own-entities' });
     expect(list.json().items.map((o: { name: string }) => o.name)).toContain('Orrinwood Group Holdings B.V.');
-    const ownMention = await k.call('write', { method: 'POST', url: '/v1/mentions', payload: { source: 'clm', externalId: 'own-1', text: 'Orrinwood Group Holdings B.V.', country: 'NL' } });
+    const ownMention = await k.call('write', {
+      method: 'POST',
+      url: '/v1/mentions',
+      payload: { source: 'clm', externalId: 'own-1', text: 'Orrinwood Group Holdings B.V.', country: 'NL' },
+    });
     expect(ownMention.json().status).toBe('own_entity');
     const groups = await k.call('read', { method: 'GET', url: '/v1/counterparty-groups?limit=200' });
     expect(groups.statusCode).toBe(200);
@@ -130,7 +161,11 @@ describeEachBackend('/v1 routes', (ctx) => {
     const items = await k.call('read', { method: 'GET', url: '/v1/review-items' });
     expect(items.statusCode).toBe(200);
     for (const item of items.json().items.slice(0, 1)) {
-      const decided = await k.call('admin', { method: 'POST', url: `/v1/review-items/${item.id}/decision`, payload: { decision: 'different', reason: 'test' } });
+      const decided = await k.call('admin', {
+        method: 'POST',
+        url: `/v1/review-items/${item.id}/decision`,
+        payload: { decision: 'different', reason: 'test' },
+      });
       expect(decided.statusCode, decided.body).toBe(200);
     }
     const stats = await k.call('read', { method: 'GET', url: '/v1/stats/scores' });
@@ -141,8 +176,16 @@ describeEachBackend('/v1 routes', (ctx) => {
   });
 
   it('streams exports with formula-injection neutralisation of text cells', async () => {
-    await k.call('write', { method: 'POST', url: '/v1/mentions', payload: { source: 'clm', externalId: 'inj-1', text: '=HYPERLINK("http://x.example","Pay") Ltd' } });
-    await k.call('admin', { method: 'POST', url: '/v1/counterparties', payload: { name: 'Fenwarrow Audio Ltd', jurisdiction: 'GB', identifiers: [{ scheme: 'phone', value: '+44 20 7946 0958' }] } });
+    await k.call('write', {
+      method: 'POST',
+      url: '/v1/mentions',
+      payload: { source: 'clm', externalId: 'inj-1', text: '=HYPERLINK("http://x.example","Pay") Ltd' },
+    });
+    await k.call('admin', {
+      method: 'POST',
+      url: '/v1/counterparties',
+      payload: { name: 'Fenwarrow Audio Ltd', jurisdiction: 'GB', identifiers: [{ scheme: 'phone', value: '+44 20 7946 0958' }] },
+    });
     const links = await k.call('read', { method: 'GET', url: '/v1/exports/links?format=csv' });
     expect(links.statusCode).toBe(200);
     expect(links.headers['content-type']).toMatch(/^text\/csv/);
@@ -151,7 +194,10 @@ describeEachBackend('/v1 routes', (ctx) => {
     const register = await k.call('read', { method: 'GET', url: '/v1/exports/register?format=csv' });
     expect(register.body).toContain('phone:+442079460958');
     const nd = await k.call('read', { method: 'GET', url: '/v1/exports/links?format=ndjson' });
-    const rows = nd.body.trim().split('\n').map((l) => JSON.parse(l));
+    const rows = nd.body
+      .trim()
+      .split('\n')
+      .map((l) => JSON.parse(l));
     expect(rows.find((r: { external_id: string }) => r.external_id === 'inj-1').text).toBe('=HYPERLINK("http://x.example","Pay") Ltd');
   });
 
@@ -161,7 +207,12 @@ describeEachBackend('/v1 routes', (ctx) => {
       { externalId: 'j-2', text: 'Kelmscott Brewing LLC', country: 'US' },
       { externalId: 'j-3' },
     ].map((l) => JSON.stringify(l));
-    const res = await k.call('write', { method: 'POST', url: '/v1/jobs/ingest?source=upload', payload: `${lines.join('\n')}\nnot json\n`, headers: { 'content-type': 'application/x-ndjson' } });
+    const res = await k.call('write', {
+      method: 'POST',
+      url: '/v1/jobs/ingest?source=upload',
+      payload: `${lines.join('\n')}\nnot json\n`,
+      headers: { 'content-type': 'application/x-ndjson' },
+    });
     expect(res.statusCode, res.body).toBe(202);
     const id = res.json().id;
     expect(res.headers.location).toBe(`/v1/jobs/${id}`);

@@ -7,7 +7,7 @@
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import type { LightMyRequestResponse } from 'fastify';
 import { describeEachBackend } from '../../support/index.ts';
-import { keyedApp, type KeyedApp } from './v1-support.ts';
+import { keyedApp, type KeyedApp } from './support.ts';
 
 interface ProblemBody {
   code: string;
@@ -61,9 +61,18 @@ describeEachBackend('text the database cannot store, from every part of a reques
   });
 
   it('refuses a NUL or a lone surrogate in a body field with the same code', async () => {
-    expectRefused(await k.call('write', { method: 'POST', url: '/v1/mentions', payload: { source: 's', externalId: 'e', text: 'A\u0000B Ltd' } }), 'body', '/text');
     expectRefused(
-      await k.call('write', { method: 'POST', url: '/v1/mentions', headers: { 'content-type': 'application/json' }, payload: '{"source":"s","externalId":"\\ud800","text":"x"}' }),
+      await k.call('write', { method: 'POST', url: '/v1/mentions', payload: { source: 's', externalId: 'e', text: 'A\u0000B Ltd' } }),
+      'body',
+      '/text',
+    );
+    expectRefused(
+      await k.call('write', {
+        method: 'POST',
+        url: '/v1/mentions',
+        headers: { 'content-type': 'application/json' },
+        payload: '{"source":"s","externalId":"\\ud800","text":"x"}',
+      }),
       'body',
       '/externalId',
     );

@@ -7,7 +7,7 @@
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { isValidLei } from '../../../resolvers/identifiers/index.ts';
 import { describeEachBackend } from '../../support/database.ts';
-import { keyedApp, type KeyedApp } from './v1-support.ts';
+import { keyedApp, type KeyedApp } from './support.ts';
 
 /** Every value under a key named `key` anywhere in the document. */
 function valuesOf(node: unknown, key: string, out: unknown[] = []): unknown[] {
@@ -31,9 +31,17 @@ describeEachBackend('/v1 wording', (ctx) => {
   });
 
   it('a mention that waits for a person says so in words: between the new-record threshold and the link threshold', async () => {
-    const created = await k.call('admin', { method: 'POST', url: '/v1/counterparties', payload: { name: 'Harnwick Tillage Supplies Ltd', jurisdiction: 'GB' } });
+    const created = await k.call('admin', {
+      method: 'POST',
+      url: '/v1/counterparties',
+      payload: { name: 'Harnwick Tillage Supplies Ltd', jurisdiction: 'GB' },
+    });
     expect(created.statusCode, created.body).toBe(201);
-    const res = await k.call('write', { method: 'POST', url: '/v1/mentions', payload: { source: 'wording', externalId: 'w1', text: 'Harnwick Tillage Supplies' } });
+    const res = await k.call('write', {
+      method: 'POST',
+      url: '/v1/mentions',
+      payload: { source: 'wording', externalId: 'w1', text: 'Harnwick Tillage Supplies' },
+    });
     expect(res.statusCode, res.body).toBeLessThan(300);
     const mention = res.json() as { status: string; explanation: { summary: string } };
     expect(mention.status, res.body).toBe('review');

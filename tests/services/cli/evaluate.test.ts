@@ -41,8 +41,26 @@ describe('cpreg evaluate', () => {
   }, 60_000);
 
   it('exact baseline: "Norsk Tipping" and "Norsk Tipping (Norway)" meet once the qualifier is stripped', async () => {
-    const kept = JSON.parse((await cpreg([SAMPLE, '--id', 'entity_id', '--name', 'name', '--method', 'exact', '--json', '--filter', 'entity_id=02n15q260'])).stdout);
-    const stripped = JSON.parse((await cpreg([SAMPLE, '--id', 'entity_id', '--name', 'name', '--method', 'exact', '--json', '--filter', 'entity_id=02n15q260', '--strip-country-qualifier'])).stdout);
+    const kept = JSON.parse(
+      (await cpreg([SAMPLE, '--id', 'entity_id', '--name', 'name', '--method', 'exact', '--json', '--filter', 'entity_id=02n15q260'])).stdout,
+    );
+    const stripped = JSON.parse(
+      (
+        await cpreg([
+          SAMPLE,
+          '--id',
+          'entity_id',
+          '--name',
+          'name',
+          '--method',
+          'exact',
+          '--json',
+          '--filter',
+          'entity_id=02n15q260',
+          '--strip-country-qualifier',
+        ])
+      ).stdout,
+    );
     // 4 names of one entity: 6 true pairs. Kept: no two normalised names are equal → 0 predicted pairs.
     expect(kept.pairwise.goldPairs).toBe(6);
     expect(kept.pairwise.predictedPairs).toBe(0);
@@ -143,7 +161,11 @@ describe('cpreg evaluate --through-register', () => {
   }, 120_000);
 
   it('refuses what does not apply to the register', async () => {
-    await expect(cpreg([SAMPLE, ...BASE, '--through-register', '--link-at', '5'])).rejects.toMatchObject({ stderr: expect.stringMatching(/--link-at does not apply with --through-register/) });
-    await expect(cpreg([SAMPLE, ...BASE, '--through-register', '--batch-size', '0'])).rejects.toMatchObject({ stderr: expect.stringMatching(/--batch-size expects a whole number of at least 1/) });
+    await expect(cpreg([SAMPLE, ...BASE, '--through-register', '--link-at', '5'])).rejects.toMatchObject({
+      stderr: expect.stringMatching(/--link-at does not apply with --through-register/),
+    });
+    await expect(cpreg([SAMPLE, ...BASE, '--through-register', '--batch-size', '0'])).rejects.toMatchObject({
+      stderr: expect.stringMatching(/--batch-size expects a whole number of at least 1/),
+    });
   }, 60_000);
 });

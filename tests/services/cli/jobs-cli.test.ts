@@ -14,16 +14,32 @@ describe('cpreg ingest --as-job, jobs show, sweep --as-job, worker', () => {
   let dir: string;
   beforeAll(() => {
     dir = makeTempDir('cpreg-jobs-cli-');
-    const rows = ['Ravelstone Pumps Ltd', 'RAVELSTONE PUMPS LTD', 'Ravelstone Pumps Limited', 'Corvath Mills GmbH', 'Corvath Mühlen GmbH', 'Tessaly Freight AS'];
-    writeFileSync(join(dir, 'm.ndjson'), rows.map((text, i) => JSON.stringify({ externalId: `m${i}`, text, country: i < 3 ? 'GB' : i < 5 ? 'DE' : 'NO' })).join('\n') + '\nnot json\n');
+    const rows = [
+      'Ravelstone Pumps Ltd',
+      'RAVELSTONE PUMPS LTD',
+      'Ravelstone Pumps Limited',
+      'Corvath Mills GmbH',
+      'Corvath Mühlen GmbH',
+      'Tessaly Freight AS',
+    ];
+    writeFileSync(
+      join(dir, 'm.ndjson'),
+      rows.map((text, i) => JSON.stringify({ externalId: `m${i}`, text, country: i < 3 ? 'GB' : i < 5 ? 'DE' : 'NO' })).join('\n') + '\nnot json\n',
+    );
   });
   afterAll(() => removeTempDir(dir));
 
   it('ingests as a partitioned job in this process, and the job reads back', async () => {
     const db = join(dir, 'db');
-    const run = await runCli(['ingest', join(dir, 'm.ndjson'), '--source', 'cli', '--as-job', '--partition-size', '2', '--json', '--db', db], { timeoutMs: 180_000 });
+    const run = await runCli(['ingest', join(dir, 'm.ndjson'), '--source', 'cli', '--as-job', '--partition-size', '2', '--json', '--db', db], {
+      timeoutMs: 180_000,
+    });
     expect(run.code, run.stderr).toBe(0);
-    const job = JSON.parse(run.stdout) as { id: number; status: string; result: { counts: Record<string, number>; rejected: { line: number }[]; partitions: number } };
+    const job = JSON.parse(run.stdout) as {
+      id: number;
+      status: string;
+      result: { counts: Record<string, number>; rejected: { line: number }[]; partitions: number };
+    };
     expect(job.status).toBe('finished');
     expect(job.result.counts.read).toBe(7);
     expect(job.result.counts.rejected).toBe(1);

@@ -81,7 +81,10 @@ describe('cpreg on an embedded directory it must not use', () => {
     try {
       writeFileSync(join(dir, 'ledger.csv'), 'id,amount\n1,10\n');
       const before = readdirSync(dir);
-      for (const args of [['migrate', '--db', dir], ['serve', '--db', dir, '--port', '0']]) {
+      for (const args of [
+        ['migrate', '--db', dir],
+        ['serve', '--db', dir, '--port', '0'],
+      ]) {
         const result = await runCli(args, { timeoutMs: 30_000 });
         expect(result.code).toBe(1);
         expect(result.stderr.trim().split('\n')).toHaveLength(1);

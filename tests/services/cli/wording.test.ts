@@ -59,7 +59,13 @@ describe('cpreg commands print words', () => {
     db = await createMigratedDataDir();
     const rows = ['Ravelstone Pumps Ltd', 'Corvath Mills GmbH', 'Tessaly Freight AS', 'Quenby Orchard Holdings Ltd'];
     writeFileSync(join(dir, 'one.ndjson'), `${JSON.stringify({ externalId: 'm0', text: rows[0], country: 'GB' })}\n`);
-    writeFileSync(join(dir, 'rest.ndjson'), rows.slice(1).map((text, i) => JSON.stringify({ externalId: `m${i + 1}`, text, country: i === 0 ? 'DE' : i === 1 ? 'NO' : 'GB' })).join('\n') + '\n');
+    writeFileSync(
+      join(dir, 'rest.ndjson'),
+      rows
+        .slice(1)
+        .map((text, i) => JSON.stringify({ externalId: `m${i + 1}`, text, country: i === 0 ? 'DE' : i === 1 ? 'NO' : 'GB' }))
+        .join('\n') + '\n',
+    );
     writeFileSync(join(dir, 'vendors.csv'), 'Vendor ID,Vendor Name,Country\nV-1,Ravelstone Pumps Ltd,GB\n');
   }, 120_000);
   afterAll(() => {

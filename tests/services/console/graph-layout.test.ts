@@ -15,19 +15,25 @@ describe('spreadAngles', () => {
   it('keeps neighbours at least the gap apart and keeps their order', () => {
     fc.assert(
       // Whole milliradians within one turn: equal inputs are equal after the layout's own normalisation too.
-      fc.property(fc.array(fc.integer({ min: 0, max: 6283 }).map((m) => m / 1000), { minLength: 1, maxLength: 30 }), (angles) => {
-        const gap = TAU / (angles.length * 2);
-        const out = spreadAngles(angles, gap);
-        expect(out).toHaveLength(angles.length);
-        for (let i = 0; i < out.length; i++) for (let j = i + 1; j < out.length; j++) expect(circular(out[i]!, out[j]!)).toBeGreaterThanOrEqual(gap * 0.999);
-        // Order kept round the circle: walking the inputs in angle order, the outputs turn one way only,
-        // less than one full turn in all.
-        const byWanted = angles.map((a, i) => ({ a, i })).sort((x, y) => x.a - y.a || x.i - y.i);
-        const spread = byWanted.map(({ i }) => out[i]!);
-        let turned = 0;
-        for (let k = 1; k < spread.length; k++) turned += (((spread[k]! - spread[k - 1]!) % TAU) + TAU) % TAU;
-        expect(turned).toBeLessThan(TAU + 1e-9);
-      }),
+      fc.property(
+        fc.array(
+          fc.integer({ min: 0, max: 6283 }).map((m) => m / 1000),
+          { minLength: 1, maxLength: 30 },
+        ),
+        (angles) => {
+          const gap = TAU / (angles.length * 2);
+          const out = spreadAngles(angles, gap);
+          expect(out).toHaveLength(angles.length);
+          for (let i = 0; i < out.length; i++) for (let j = i + 1; j < out.length; j++) expect(circular(out[i]!, out[j]!)).toBeGreaterThanOrEqual(gap * 0.999);
+          // Order kept round the circle: walking the inputs in angle order, the outputs turn one way only,
+          // less than one full turn in all.
+          const byWanted = angles.map((a, i) => ({ a, i })).sort((x, y) => x.a - y.a || x.i - y.i);
+          const spread = byWanted.map(({ i }) => out[i]!);
+          let turned = 0;
+          for (let k = 1; k < spread.length; k++) turned += (((spread[k]! - spread[k - 1]!) % TAU) + TAU) % TAU;
+          expect(turned).toBeLessThan(TAU + 1e-9);
+        },
+      ),
     );
   });
 
@@ -92,14 +98,24 @@ describe('layoutNetwork', () => {
     const busy: NetworkAnswer = {
       counterparty: network.counterparty,
       contracts: Array.from({ length: 15 }, (_, i) => ({ contractId: i + 1, externalId: `C-${i + 1}`, title: 'Supply Agreement', roles: ['Supplier'] })),
-      parties: Array.from({ length: 15 }, (_, i) => ({ contractId: i + 1, role: 'Buyer', counterpartyId: 100 + (i % 4), ownEntityId: null, name: `Invented Buyer ${i % 4}` })),
+      parties: Array.from({ length: 15 }, (_, i) => ({
+        contractId: i + 1,
+        role: 'Buyer',
+        counterpartyId: 100 + (i % 4),
+        ownEntityId: null,
+        name: `Invented Buyer ${i % 4}`,
+      })),
     };
     const layout = layoutNetwork(busy, { width: 1000, labelRoom: 200 });
     const contracts = layout.nodes.filter((n) => n.kind === 'contract');
     const others = layout.nodes.filter((n) => n.kind === 'counterparty');
     expect(new Set(contracts.map((n) => n.x)).size).toBe(1);
     expect(others).toHaveLength(4);
-    const gaps = (ys: number[]) => ys.sort((a, b) => a - b).slice(1).map((y, i) => y - ys[i]!);
+    const gaps = (ys: number[]) =>
+      ys
+        .sort((a, b) => a - b)
+        .slice(1)
+        .map((y, i) => y - ys[i]!);
     for (const gap of [...gaps(contracts.map((n) => n.y)), ...gaps(others.map((n) => n.y))]) expect(gap).toBeGreaterThanOrEqual(45.999);
     const { x, y, width, height } = layout.bounds;
     for (const n of layout.nodes) {

@@ -90,7 +90,11 @@ describe('import page in chromium', () => {
     expect(await page.textContent('#import-caution')).toContain('Extraction and party parsing are proposals; the signed document stands.');
     await page.setInputFiles('#import-files', [
       { name: 'supply.pdf', mimeType: 'application/pdf', buffer: await pdfLibPdf(inventedContract()) }, // pdf-lib
-      { name: 'service.docx', mimeType: 'application/vnd.openxmlformats-officedocument.wordprocessingml.document', buffer: await docxFile(inventedContract('Brindlecombe Tools Ltd')) }, // docx
+      {
+        name: 'service.docx',
+        mimeType: 'application/vnd.openxmlformats-officedocument.wordprocessingml.document',
+        buffer: await docxFile(inventedContract('Brindlecombe Tools Ltd')),
+      }, // docx
       { name: 'scan.pdf', mimeType: 'application/pdf', buffer: await imageOnlyPdf() }, // pdf-lib
     ]);
     expect(await page.textContent('#import-picked')).toContain('3 files chosen');

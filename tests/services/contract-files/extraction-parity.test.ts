@@ -28,7 +28,8 @@ function wrapped(text: string): string {
   return out.join('\n');
 }
 
-const partiesOf = (text: string) => parseParties(text).parties.map((p) => ({ name: p.name, role: p.role, terms: p.terms, jurisdiction: p.jurisdiction, identifiers: p.identifiers }));
+const partiesOf = (text: string) =>
+  parseParties(text).parties.map((p) => ({ name: p.name, role: p.role, terms: p.terms, jurisdiction: p.jurisdiction, identifiers: p.identifiers }));
 
 describe('extraction parity over the demo scenario', () => {
   const contracts = generateScenario(1).contracts;

@@ -24,7 +24,10 @@ describeEachBackend('contract files imported', (ctx) => {
     writeFileSync(join(folder, 'supply.txt'), text);
     writeFileSync(join(folder, 'memo.txt'), 'Please file the signed copies by Friday.\n');
     writeFileSync(join(folder, 'scan.pdf'), await imageOnlyPdf());
-    writeFileSync(join(folder, 'export.zip'), zipOf({ 'a/brackets.txt': Buffer.from(inventedContract('Farrowdene Metals Ltd')), '../escape.txt': Buffer.from(text) }));
+    writeFileSync(
+      join(folder, 'export.zip'),
+      zipOf({ 'a/brackets.txt': Buffer.from(inventedContract('Farrowdene Metals Ltd')), '../escape.txt': Buffer.from(text) }),
+    );
   });
   afterAll(() => removeTempDir(dir));
 
@@ -63,13 +66,22 @@ describeEachBackend('contract files imported', (ctx) => {
     writeFileSync(join(folder, 'supply.txt'), inventedContract('Quillmoor Fabrication Ltd', 'Tessaline Trading GmbH', 'stainless hinges'));
     const third = await run(join(dir, 'third.rejects.csv'));
     expect(third.files).toEqual({ read: 7, imported: 1, new: 0, changed: 1, unchanged: 3, rejected: 3 });
-    const after = await ctx.db().selectFrom('contract').select(['id', 'content_hash', 'text']).where('external_id', '=', 'supply.txt').executeTakeFirstOrThrow();
+    const after = await ctx
+      .db()
+      .selectFrom('contract')
+      .select(['id', 'content_hash', 'text'])
+      .where('external_id', '=', 'supply.txt')
+      .executeTakeFirstOrThrow();
     expect(after.id).toBe(before.id);
     expect(after.content_hash).not.toBe(before.content_hash);
     expect(after.text).toContain('stainless hinges');
     const events = await ctx.db().selectFrom('history_event').select(['type', 'payload']).where('actor', '=', 'test:import').orderBy('id').execute();
     const ofContract = events.filter((e) => {
-      const p = (typeof e.payload === 'string' ? JSON.parse(e.payload) : e.payload) as { details?: { entity?: string; contractId?: number }; entity?: string; contractId?: number };
+      const p = (typeof e.payload === 'string' ? JSON.parse(e.payload) : e.payload) as {
+        details?: { entity?: string; contractId?: number };
+        entity?: string;
+        contractId?: number;
+      };
       const d = p.details ?? p;
       return d.entity === 'contract' && Number(d.contractId) === Number(before.id);
     });

@@ -179,7 +179,7 @@ describe('cpreg demo (child process)', () => {
     expect(p.found / p.expected).toBeGreaterThanOrEqual(0.95);
   });
 
-  it('prints the extracted mentions\' pairwise precision the README quotes for seed 1', () => {
+  it("prints the extracted mentions' pairwise precision the README quotes for seed 1", () => {
     // README, "Latest figures": the demo row quotes precision / recall as the demo prints them (one decimal). Only
     // the precision is held exactly here (issue 19 item 7); recall drifts with work in progress (floors above).
     const readme = readFileSync(join(REPO_ROOT, 'README.md'), 'utf8');
@@ -189,104 +189,122 @@ describe('cpreg demo (child process)', () => {
     expect(row![1], `the demo prints pairwise precision ${printed} %: update the README's demo row`).toBe(printed);
   });
 
-  it('serves the built demo with an admin key, and SIGINT stops it cleanly: server closed, database closed and reopenable', async () => {
-    const child = spawn(process.execPath, [CPREG_BIN, 'demo', '--db', dbDir, '--port', '0', '--json'], { cwd: REPO_ROOT, env: childEnv() });
-    let stdout = '';
-    let stderr = '';
-    child.stdout.on('data', (chunk) => (stdout += chunk));
-    child.stderr.on('data', (chunk) => (stderr += chunk));
-    const exited = new Promise<{ code: number | null; signal: NodeJS.Signals | null }>((done) => child.on('exit', (code, signal) => done({ code, signal })));
-    const listening = await new Promise<{ url: string; apiKey: string }>((resolve, reject) => {
-      const timer = setTimeout(() => reject(new Error(`the demo did not start serving in time:\n${stderr}`)), 5 * 60_000);
-      child.stdout.on('data', () => {
-        const line = stdout.split('\n').find((l) => l.includes('"url"'));
-        if (line) {
-          clearTimeout(timer);
-          resolve(JSON.parse(line));
-        }
+  it(
+    'serves the built demo with an admin key, and SIGINT stops it cleanly: server closed, database closed and reopenable',
+    async () => {
+      const child = spawn(process.execPath, [CPREG_BIN, 'demo', '--db', dbDir, '--port', '0', '--json'], { cwd: REPO_ROOT, env: childEnv() });
+      let stdout = '';
+      let stderr = '';
+      child.stdout.on('data', (chunk) => (stdout += chunk));
+      child.stderr.on('data', (chunk) => (stderr += chunk));
+      const exited = new Promise<{ code: number | null; signal: NodeJS.Signals | null }>((done) => child.on('exit', (code, signal) => done({ code, signal })));
+      const listening = await new Promise<{ url: string; apiKey: string }>((resolve, reject) => {
+        const timer = setTimeout(() => reject(new Error(`the demo did not start serving in time:\n${stderr}`)), 5 * 60_000);
+        child.stdout.on('data', () => {
+          const line = stdout.split('\n').find((l) => l.includes('"url"'));
+          if (line) {
+            clearTimeout(timer);
+            resolve(JSON.parse(line));
+          }
+        });
+        void exited.then(({ code }) => reject(new Error(`the demo exited (${code}) before serving:\n${stderr}`)));
       });
-      void exited.then(({ code }) => reject(new Error(`the demo exited (${code}) before serving:\n${stderr}`)));
-    });
-    expect(existsSync(join(dbDir, LOCK_FILE_NAME))).toBe(true);
-    const me = await fetch(`${listening.url}/v1/me`, { headers: { authorization: `Bearer ${listening.apiKey}` } });
-    expect(me.status).toBe(200);
-    expect((await me.json()).scope).toBe('admin');
-    const first = await fetch(`${listening.url}/v1/counterparties/${summary.busiest[0]!.id}`, { headers: { authorization: `Bearer ${listening.apiKey}` } });
-    expect(first.status).toBe(200);
-    // Normal use (issue 19 item 1): a contract system posts its own contract with the source the API reference's
-    // example uses, the same source the demo's contracts carry. Invented names.
-    const posted = await fetch(`${listening.url}/v1/contracts`, {
-      method: 'POST',
-      headers: { authorization: `Bearer ${listening.apiKey}`, 'content-type': 'application/json' },
-      body: JSON.stringify({ source: 'clm', externalId: 'C-2031', title: 'Supply Agreement', text: 'This Supply Agreement is made between Quillmere Fabrication, Inc. ("Supplier") and Orvane Trading B.V. ("Buyer").' }),
-    });
-    expect(posted.status, await posted.clone().text()).toBeLessThan(300);
+      expect(existsSync(join(dbDir, LOCK_FILE_NAME))).toBe(true);
+      const me = await fetch(`${listening.url}/v1/me`, { headers: { authorization: `Bearer ${listening.apiKey}` } });
+      expect(me.status).toBe(200);
+      expect((await me.json()).scope).toBe('admin');
+      const first = await fetch(`${listening.url}/v1/counterparties/${summary.busiest[0]!.id}`, { headers: { authorization: `Bearer ${listening.apiKey}` } });
+      expect(first.status).toBe(200);
+      // Normal use (issue 19 item 1): a contract system posts its own contract with the source the API reference's
+      // example uses, the same source the demo's contracts carry. Invented names.
+      const posted = await fetch(`${listening.url}/v1/contracts`, {
+        method: 'POST',
+        headers: { authorization: `Bearer ${listening.apiKey}`, 'content-type': 'application/json' },
+        body: JSON.stringify({
+          source: 'clm',
+          externalId: 'C-2031',
+          title: 'Supply Agreement',
+          text: 'This Supply Agreement is made between Quillmere Fabrication, Inc. ("Supplier") and Orvane Trading B.V. ("Buyer").',
+        }),
+      });
+      expect(posted.status, await posted.clone().text()).toBeLessThan(300);
 
-    child.kill('SIGINT');
-    const { code, signal } = await Promise.race([
-      exited,
-      new Promise<never>((_, reject) => setTimeout(() => reject(new Error('the demo did not stop within 60 s of SIGINT')), 60_000)),
-    ]);
-    expect({ code, signal }).toEqual({ code: 0, signal: null });
-    expect(stderr).toContain('the database is closed');
-    // The server is closed: nothing listens on its port any more.
-    await expect(fetch(`${listening.url}/healthz`)).rejects.toThrow();
-    // The database is closed and its lock released: another process opens it and sees the demo's key.
-    expect(existsSync(join(dbDir, LOCK_FILE_NAME))).toBe(false);
-    const keys = await runCli(['keys', 'list', '--db', dbDir, '--json'], { timeoutMs: 120_000 });
-    expect(keys.code).toBe(0);
-    expect((JSON.parse(keys.stdout) as Array<{ label: string; scope: string }>).some((k) => k.label === 'demo (local admin)' && k.scope === 'admin')).toBe(true);
+      child.kill('SIGINT');
+      const { code, signal } = await Promise.race([
+        exited,
+        new Promise<never>((_, reject) => setTimeout(() => reject(new Error('the demo did not stop within 60 s of SIGINT')), 60_000)),
+      ]);
+      expect({ code, signal }).toEqual({ code: 0, signal: null });
+      expect(stderr).toContain('the database is closed');
+      // The server is closed: nothing listens on its port any more.
+      await expect(fetch(`${listening.url}/healthz`)).rejects.toThrow();
+      // The database is closed and its lock released: another process opens it and sees the demo's key.
+      expect(existsSync(join(dbDir, LOCK_FILE_NAME))).toBe(false);
+      const keys = await runCli(['keys', 'list', '--db', dbDir, '--json'], { timeoutMs: 120_000 });
+      expect(keys.code).toBe(0);
+      expect((JSON.parse(keys.stdout) as Array<{ label: string; scope: string }>).some((k) => k.label === 'demo (local admin)' && k.scope === 'admin')).toBe(
+        true,
+      );
 
-    // The next start reuses the demo with the user's contract in it, and says what was added since it was built.
-    const again = await runCli(['demo', '--db', dbDir, '--no-serve', '--json'], { timeoutMs: 10 * 60_000 });
-    expect(again.code, again.stderr).toBe(0);
-    expect(again.stderr).toContain('reusing the demo database');
-    expect(again.stderr).toMatch(/added since it was built \([^)]*\): 1 contract, \d+ mentions? \(source contract:clm\)/);
-    expect(again.stderr).not.toContain('another scenario');
-    expect(JSON.parse(again.stdout.trim()).seed).toBe(1);
-    // "Another scenario" is said only when it is true: another seed is refused, naming the seed the demo was built from.
-    const other = await runCli(['demo', '--db', dbDir, '--seed', '2', '--no-serve'], { timeoutMs: 10 * 60_000 });
-    expect(other.code).toBe(1);
-    expect(other.stderr).toContain('holds the demo built from seed 1, not from seed 2');
-  }, 20 * 60_000);
+      // The next start reuses the demo with the user's contract in it, and says what was added since it was built.
+      const again = await runCli(['demo', '--db', dbDir, '--no-serve', '--json'], { timeoutMs: 10 * 60_000 });
+      expect(again.code, again.stderr).toBe(0);
+      expect(again.stderr).toContain('reusing the demo database');
+      expect(again.stderr).toMatch(/added since it was built \([^)]*\): 1 contract, \d+ mentions? \(source contract:clm\)/);
+      expect(again.stderr).not.toContain('another scenario');
+      expect(JSON.parse(again.stdout.trim()).seed).toBe(1);
+      // "Another scenario" is said only when it is true: another seed is refused, naming the seed the demo was built from.
+      const other = await runCli(['demo', '--db', dbDir, '--seed', '2', '--no-serve'], { timeoutMs: 10 * 60_000 });
+      expect(other.code).toBe(1);
+      expect(other.stderr).toContain('holds the demo built from seed 1, not from seed 2');
+    },
+    20 * 60_000,
+  );
 });
 
 describe('cpreg demo interrupted while building', () => {
-  it('stops at the next step on SIGINT, closes the database (lock released, reopenable) and says how to resume', async () => {
-    const root = mkdtempSync(join(tmpdir(), 'cpreg-demo-int-'));
-    const dbDir = join(root, 'demo');
-    try {
-      const child = spawn(process.execPath, [CPREG_BIN, 'demo', '--db', dbDir, '--no-serve'], { cwd: REPO_ROOT, env: childEnv() });
-      let stderr = '';
-      const exited = new Promise<{ code: number | null }>((done) => child.on('exit', (code) => done({ code })));
-      await new Promise<void>((resolve, reject) => {
-        const timer = setTimeout(() => reject(new Error(`no contract stored in time:\n${stderr}`)), 5 * 60_000);
-        child.stderr.on('data', (chunk) => {
-          stderr += chunk;
-          // Progress lines name the stage; wait until the contracts stage has started.
-          if (/contracts/.test(stderr) && /building the demo/.test(stderr)) {
-            clearTimeout(timer);
-            resolve();
-          }
-        });
-      });
-      child.kill('SIGINT');
-      const { code } = await Promise.race([
-        exited,
-        new Promise<never>((_, reject) => setTimeout(() => reject(new Error('the demo did not stop within 120 s of SIGINT')), 120_000)),
-      ]);
-      expect(code).toBe(130);
-      expect(stderr).toContain('run the demo again');
-      expect(existsSync(join(dbDir, LOCK_FILE_NAME))).toBe(false);
-      const database = await openDatabase(dbDir, { command: 'demo test' });
+  it(
+    'stops at the next step on SIGINT, closes the database (lock released, reopenable) and says how to resume',
+    async () => {
+      const root = mkdtempSync(join(tmpdir(), 'cpreg-demo-int-'));
+      const dbDir = join(root, 'demo');
       try {
-        const stored = await database.db.selectFrom('contract').select((eb) => eb.fn.countAll<string>().as('n')).executeTakeFirstOrThrow();
-        expect(Number(stored.n)).toBeLessThan(300); // stopped part-way: nothing half-written, the rest on the next run
+        const child = spawn(process.execPath, [CPREG_BIN, 'demo', '--db', dbDir, '--no-serve'], { cwd: REPO_ROOT, env: childEnv() });
+        let stderr = '';
+        const exited = new Promise<{ code: number | null }>((done) => child.on('exit', (code) => done({ code })));
+        await new Promise<void>((resolve, reject) => {
+          const timer = setTimeout(() => reject(new Error(`no contract stored in time:\n${stderr}`)), 5 * 60_000);
+          child.stderr.on('data', (chunk) => {
+            stderr += chunk;
+            // Progress lines name the stage; wait until the contracts stage has started.
+            if (/contracts/.test(stderr) && /building the demo/.test(stderr)) {
+              clearTimeout(timer);
+              resolve();
+            }
+          });
+        });
+        child.kill('SIGINT');
+        const { code } = await Promise.race([
+          exited,
+          new Promise<never>((_, reject) => setTimeout(() => reject(new Error('the demo did not stop within 120 s of SIGINT')), 120_000)),
+        ]);
+        expect(code).toBe(130);
+        expect(stderr).toContain('run the demo again');
+        expect(existsSync(join(dbDir, LOCK_FILE_NAME))).toBe(false);
+        const database = await openDatabase(dbDir, { command: 'demo test' });
+        try {
+          const stored = await database.db
+            .selectFrom('contract')
+            .select((eb) => eb.fn.countAll<string>().as('n'))
+            .executeTakeFirstOrThrow();
+          expect(Number(stored.n)).toBeLessThan(300); // stopped part-way: nothing half-written, the rest on the next run
+        } finally {
+          await database.close();
+        }
       } finally {
-        await database.close();
+        rmSync(root, { recursive: true, force: true });
       }
-    } finally {
-      rmSync(root, { recursive: true, force: true });
-    }
-  }, 10 * 60_000);
+    },
+    10 * 60_000,
+  );
 });

@@ -66,7 +66,10 @@ describe.each(SEEDS)('generateScenario(%i): ground truth is consistent', (seed) 
         case 'counterparty': {
           const id = m.truth.counterpartyId;
           expect(cps.has(id)).toBe(true);
-          expect(c!.parties.some((p) => p.ref.kind === 'counterparty' && p.ref.id === id), m.input.externalId).toBe(true);
+          expect(
+            c!.parties.some((p) => p.ref.kind === 'counterparty' && p.ref.id === id),
+            m.input.externalId,
+          ).toBe(true);
           break;
         }
         case 'own_entity': {
@@ -91,7 +94,9 @@ describe.each(SEEDS)('generateScenario(%i): ground truth is consistent', (seed) 
       }
       if (m.style === 'defined_term' || m.style === 'pronoun') {
         const party = c!.parties.find((p) =>
-          m.truth.kind === 'counterparty' ? p.ref.kind === 'counterparty' && p.ref.id === m.truth.counterpartyId : m.truth.kind === 'own_entity' && p.ref.id === m.truth.ownEntityId,
+          m.truth.kind === 'counterparty'
+            ? p.ref.kind === 'counterparty' && p.ref.id === m.truth.counterpartyId
+            : m.truth.kind === 'own_entity' && p.ref.id === m.truth.ownEntityId,
         );
         expect(party!.terms, m.input.externalId).toContain(bare);
       }
@@ -111,7 +116,9 @@ describe.each(SEEDS)('generateScenario(%i): ground truth is consistent', (seed) 
     for (const twin of lookalikes) {
       const original = cps.get(twin.lookalikeOf!)!;
       expect(twin.id).not.toBe(original.id);
-      expect(splitLegalName(twin.legalName, twin.legalForm, twin.jurisdiction).base).toBe(splitLegalName(original.legalName, original.legalForm, original.jurisdiction).base);
+      expect(splitLegalName(twin.legalName, twin.legalForm, twin.jurisdiction).base).toBe(
+        splitLegalName(original.legalName, original.legalForm, original.jurisdiction).base,
+      );
       expect(twin.legalForm !== original.legalForm || twin.jurisdiction !== original.jurisdiction).toBe(true);
     }
     const subs = s.counterparties.filter((c) => c.parentId);

@@ -12,7 +12,10 @@ describe('writeScenario', () => {
   it('writes contracts, mentions, the vendor master and the truth, each complete', async () => {
     const { scenario, files } = await writeScenario(dir, 3);
     expect(readdirSync(join(dir, 'contracts'))).toHaveLength(scenario.contracts.length);
-    const ndjson = readFileSync(join(dir, 'contracts.ndjson'), 'utf8').trim().split('\n').map((l) => JSON.parse(l) as { externalId: string; text: string });
+    const ndjson = readFileSync(join(dir, 'contracts.ndjson'), 'utf8')
+      .trim()
+      .split('\n')
+      .map((l) => JSON.parse(l) as { externalId: string; text: string });
     expect(ndjson.map((c) => c.externalId)).toEqual(scenario.contracts.map((c) => c.externalId));
     expect(readFileSync(join(dir, 'contracts', `${ndjson[0]!.externalId}.txt`), 'utf8')).toBe(ndjson[0]!.text);
     const mentions = parse(readFileSync(join(dir, 'mentions.csv'), 'utf8'), { columns: true }) as Array<Record<string, string>>;

@@ -9,9 +9,11 @@ import { nameTokens, shortForms } from '../../../services/forget/person-mentions
 it('finds "B. Quenneville", "Quenneville, B." and "Dr Bartholomew Quenneville" as forms of Bartholomew Quenneville', () => {
   const { forms, surname } = shortForms('Bartholomew Quenneville');
   expect(surname).toBe('quenneville');
-  for (const text of ['B. Quenneville', 'Quenneville, B.', 'Dr Bartholomew Quenneville', 'QUENNEVILLE Bartholomew', 'Mr. B Quenneville']) expect(forms.has(nameTokens(text).join(' ')), text).toBe(true);
+  for (const text of ['B. Quenneville', 'Quenneville, B.', 'Dr Bartholomew Quenneville', 'QUENNEVILLE Bartholomew', 'Mr. B Quenneville'])
+    expect(forms.has(nameTokens(text).join(' ')), text).toBe(true);
   // Another initial, another surname, or more words (a company) are not the person.
-  for (const text of ['C. Quenneville', 'B. Quennevale', 'Quenneville Freight Ltd', 'Quenneville']) expect(forms.has(nameTokens(text).join(' ')), text).toBe(false);
+  for (const text of ['C. Quenneville', 'B. Quennevale', 'Quenneville Freight Ltd', 'Quenneville'])
+    expect(forms.has(nameTokens(text).join(' ')), text).toBe(false);
 });
 
 it('folds accents, and gives no forms for a one-word name or a surname under three letters', () => {

@@ -50,7 +50,7 @@ describe('ndjsonLines', () => {
     const { lines, peak } = await collect(source());
     expect(lines.map((l) => l.line)).toEqual([1, 2, 3]);
     expect(lines[1]).toMatchObject({ line: 2, tooLong: true });
-    expect(((lines[1] as { head: string }).head).length).toBeLessThanOrEqual(200);
+    expect((lines[1] as { head: string }).head.length).toBeLessThanOrEqual(200);
     expect(lines[2]).toEqual({ line: 3, text: '{"ok":3}' });
     expect(peak).toBeLessThanOrEqual(MAX_NDJSON_LINE_BYTES);
   });

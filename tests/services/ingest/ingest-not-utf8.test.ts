@@ -88,9 +88,17 @@ describeBackends(`cpreg ingest: rows that are not UTF-8 are rejected by their li
     const cesu = badLine('b2,"Wrenfold', [0xed, 0xa0, 0x80], ' Tiles, Ltd",GB');
     const body = Buffer.concat([
       Buffer.from([0xef, 0xbb, 0xbf]),
-      Buffer.from(`id,name,country\n${GOOD.slice(0, 2).map((t, i) => `g${i},${t},GB`).join('\n')}\n`),
+      Buffer.from(
+        `id,name,country\n${GOOD.slice(0, 2)
+          .map((t, i) => `g${i},${t},GB`)
+          .join('\n')}\n`,
+      ),
       bad.line,
-      Buffer.from(`\n${GOOD.slice(2).map((t, i) => `g${i + 2},${t},GB`).join('\n')}\n`),
+      Buffer.from(
+        `\n${GOOD.slice(2)
+          .map((t, i) => `g${i + 2},${t},GB`)
+          .join('\n')}\n`,
+      ),
       cesu.line,
       Buffer.from('\n'),
     ]);

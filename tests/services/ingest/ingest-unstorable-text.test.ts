@@ -103,7 +103,12 @@ describeBackends(`cpreg ingest: a row with text the database cannot store is rej
 
   it('CSV with a raw NUL byte in the name: the row is rejected naming the field, and the printed counts reconcile', async () => {
     const file = join(dir, 'nul.csv');
-    const lines = ['id,name,country', ...GOOD.slice(0, 2).map((g) => `${g.externalId},${g.text},${g.country}`), 'b3,Vennick\u0000Ropes Ltd,GB', ...GOOD.slice(2).map((g) => `${g.externalId},${g.text},${g.country}`)];
+    const lines = [
+      'id,name,country',
+      ...GOOD.slice(0, 2).map((g) => `${g.externalId},${g.text},${g.country}`),
+      'b3,Vennick\u0000Ropes Ltd,GB',
+      ...GOOD.slice(2).map((g) => `${g.externalId},${g.text},${g.country}`),
+    ];
     writeFileSync(file, `${lines.join('\n')}\n`);
     expect(readFileSync(file).includes(0)).toBe(true);
     const run = await ingest(file, 'nul-csv', false);

@@ -55,7 +55,13 @@ describeEachBackend('ingest', (ctx) => {
     const stored = (typeof run.counts === 'string' ? JSON.parse(run.counts) : run.counts) as Record<string, number>;
     expect(stored).toEqual(c);
     // Without an id, the row's identity is a hash of source and content: the same row again is the same mention.
-    const hashed = await ctx.db().selectFrom('mention').select('external_id').where('source', '=', 'erp-test').where('text', '=', 'Bellmere, Dace & Co. KG').execute();
+    const hashed = await ctx
+      .db()
+      .selectFrom('mention')
+      .select('external_id')
+      .where('source', '=', 'erp-test')
+      .where('text', '=', 'Bellmere, Dace & Co. KG')
+      .execute();
     expect(hashed).toHaveLength(1);
     expect(hashed[0]!.external_id).toMatch(/^row-[0-9a-f]{32}$/);
     // …and an edited row without an id is a new mention (the documented rule).
@@ -74,10 +80,20 @@ describeEachBackend('ingest', (ctx) => {
 
   it('resumes an interrupted run without duplicates', async () => {
     const file = join(dir, 'many.ndjson');
-    const lines = Array.from({ length: 60 }, (_, i) => JSON.stringify({ externalId: `n-${i}`, text: `Quenby ${['Alder', 'Birch', 'Cedar', 'Damson', 'Elm', 'Fir'][i % 6]} Works ${i} Ltd`, country: 'GB' }));
+    const lines = Array.from({ length: 60 }, (_, i) =>
+      JSON.stringify({ externalId: `n-${i}`, text: `Quenby ${['Alder', 'Birch', 'Cedar', 'Damson', 'Elm', 'Fir'][i % 6]} Works ${i} Ltd`, country: 'GB' }),
+    );
     writeFileSync(file, `${lines.join('\n')}\n`);
     let batches = 0;
-    const first = await ingestFile({ db: ctx.db(), file, source: 'resume', rejectsFile: join(dir, 'r.csv'), actor: 'cli:test', batchSize: 20, shouldStop: () => ++batches >= 1 });
+    const first = await ingestFile({
+      db: ctx.db(),
+      file,
+      source: 'resume',
+      rejectsFile: join(dir, 'r.csv'),
+      actor: 'cli:test',
+      batchSize: 20,
+      shouldStop: () => ++batches >= 1,
+    });
     expect(first.status).toBe('interrupted');
     expect(first.counts.read).toBe(20);
     const run = await ctx.db().selectFrom('ingest_run').select('status').where('id', '=', first.runId).executeTakeFirstOrThrow();
@@ -91,35 +107,53 @@ describeEachBackend('ingest', (ctx) => {
     expect(new Set(rows.map((r) => r.external_id)).size).toBe(60);
   });
 
-  it.skipIf(ctx.backend === 'pglite')('resumes after the process is killed with SIGKILL, without duplicates', async () => {
-    const file = join(dir, 'kill.ndjson');
-    const lines = Array.from({ length: 400 }, (_, i) => JSON.stringify({ externalId: `k-${i}`, text: `Harrowfen ${i % 2 ? 'Tooling' : 'Castings'} ${i} GmbH`, country: 'DE' }));
-    writeFileSync(file, `${lines.join('\n')}\n`);
-    const url = ctx.database().url!;
-    const run = (extra: string[] = []) =>
-      spawn(process.execPath, ['bin/cpreg.js', 'ingest', file, '--source', 'kill', '--db', url, '--batch-size', '25', ...extra], { stdio: ['ignore', 'pipe', 'pipe'] });
-    const child = run();
-    // Kill once some rows are stored, mid-run.
-    for (let i = 0; i < 600; i++) {
-      const n = await ctx.db().selectFrom('mention').select((eb) => eb.fn.countAll<string>().as('n')).where('source', '=', 'kill').executeTakeFirstOrThrow();
-      if (Number(n.n) >= 50) break;
-      await new Promise((r) => setTimeout(r, 100));
-    }
-    child.kill('SIGKILL');
-    await new Promise((r) => child.once('exit', r));
-    const partial = await ctx.db().selectFrom('mention').select((eb) => eb.fn.countAll<string>().as('n')).where('source', '=', 'kill').executeTakeFirstOrThrow();
-    expect(Number(partial.n)).toBeGreaterThan(0);
-    expect(Number(partial.n)).toBeLessThan(400);
-    const again = run(['--json']);
-    let out = '';
-    again.stdout.on('data', (d) => (out += String(d)));
-    const code = await new Promise((r) => again.once('exit', r));
-    expect(code).toBe(0);
-    const summary = JSON.parse(out.trim().split('\n').pop()!);
-    expect(summary.counts.read).toBe(400);
-    expect(summary.counts.already_ingested).toBe(Number(partial.n));
-    expect(summary.unaccounted).toBe(0);
-    const rows = await ctx.db().selectFrom('mention').select('external_id').where('source', '=', 'kill').execute();
-    expect(rows).toHaveLength(400);
-  }, 120_000);
+  it.skipIf(ctx.backend === 'pglite')(
+    'resumes after the process is killed with SIGKILL, without duplicates',
+    async () => {
+      const file = join(dir, 'kill.ndjson');
+      const lines = Array.from({ length: 400 }, (_, i) =>
+        JSON.stringify({ externalId: `k-${i}`, text: `Harrowfen ${i % 2 ? 'Tooling' : 'Castings'} ${i} GmbH`, country: 'DE' }),
+      );
+      writeFileSync(file, `${lines.join('\n')}\n`);
+      const url = ctx.database().url!;
+      const run = (extra: string[] = []) =>
+        spawn(process.execPath, ['bin/cpreg.js', 'ingest', file, '--source', 'kill', '--db', url, '--batch-size', '25', ...extra], {
+          stdio: ['ignore', 'pipe', 'pipe'],
+        });
+      const child = run();
+      // Kill once some rows are stored, mid-run.
+      for (let i = 0; i < 600; i++) {
+        const n = await ctx
+          .db()
+          .selectFrom('mention')
+          .select((eb) => eb.fn.countAll<string>().as('n'))
+          .where('source', '=', 'kill')
+          .executeTakeFirstOrThrow();
+        if (Number(n.n) >= 50) break;
+        await new Promise((r) => setTimeout(r, 100));
+      }
+      child.kill('SIGKILL');
+      await new Promise((r) => child.once('exit', r));
+      const partial = await ctx
+        .db()
+        .selectFrom('mention')
+        .select((eb) => eb.fn.countAll<string>().as('n'))
+        .where('source', '=', 'kill')
+        .executeTakeFirstOrThrow();
+      expect(Number(partial.n)).toBeGreaterThan(0);
+      expect(Number(partial.n)).toBeLessThan(400);
+      const again = run(['--json']);
+      let out = '';
+      again.stdout.on('data', (d) => (out += String(d)));
+      const code = await new Promise((r) => again.once('exit', r));
+      expect(code).toBe(0);
+      const summary = JSON.parse(out.trim().split('\n').pop()!);
+      expect(summary.counts.read).toBe(400);
+      expect(summary.counts.already_ingested).toBe(Number(partial.n));
+      expect(summary.unaccounted).toBe(0);
+      const rows = await ctx.db().selectFrom('mention').select('external_id').where('source', '=', 'kill').execute();
+      expect(rows).toHaveLength(400);
+    },
+    120_000,
+  );
 });

@@ -20,7 +20,12 @@ const wellFormed = (bytes: Uint8Array): boolean => {
 };
 
 // Bytes biased towards UTF-8 lead and continuation bytes, so that near-valid sequences are common.
-const byte = fc.oneof(fc.integer({ min: 0, max: 0x7f }), fc.integer({ min: 0x80, max: 0xbf }), fc.integer({ min: 0xc0, max: 0xff }), fc.constantFrom(0xe0, 0xed, 0xf0, 0xf4, 0xc2, 0xef));
+const byte = fc.oneof(
+  fc.integer({ min: 0, max: 0x7f }),
+  fc.integer({ min: 0x80, max: 0xbf }),
+  fc.integer({ min: 0xc0, max: 0xff }),
+  fc.constantFrom(0xe0, 0xed, 0xf0, 0xf4, 0xc2, 0xef),
+);
 const bytes = fc.oneof(
   fc.array(byte, { maxLength: 40 }).map((a) => Uint8Array.from(a)),
   fc.tuple(fc.string({ unit: 'binary', maxLength: 20 }), fc.array(byte, { maxLength: 4 }), fc.string({ unit: 'binary', maxLength: 20 })).map(([a, b, c]) => {

@@ -15,26 +15,60 @@ import { verifyRegister } from '../../../services/verify/index.ts';
 import { docxFile, inventedContract, pdfLibPdf, zipOf } from '../contract-files/documents.ts';
 
 const FAST_QUEUE = { retryLimit: 1, retryDelaySeconds: 0, pollingIntervalSeconds: 0.5, maintenanceIntervalSeconds: 2, expireInSeconds: 60 };
-const SUPPLIERS = ['Quillmoor Fabrication Ltd', 'Brindlecombe Tools Ltd', 'Farrowdene Metals Ltd', 'Marlowick Fasteners Ltd', 'Ostrevale Castings Ltd', 'Penderwyn Coatings Ltd', 'Harrowgate Springs Ltd', 'Kestlemoor Valves Ltd', 'Ashcombe Gaskets Ltd', 'Wrenfield Bearings Ltd', 'Dunmarsh Pumps Ltd', 'Calderholt Wire Ltd'];
+const SUPPLIERS = [
+  'Quillmoor Fabrication Ltd',
+  'Brindlecombe Tools Ltd',
+  'Farrowdene Metals Ltd',
+  'Marlowick Fasteners Ltd',
+  'Ostrevale Castings Ltd',
+  'Penderwyn Coatings Ltd',
+  'Harrowgate Springs Ltd',
+  'Kestlemoor Valves Ltd',
+  'Ashcombe Gaskets Ltd',
+  'Wrenfield Bearings Ltd',
+  'Dunmarsh Pumps Ltd',
+  'Calderholt Wire Ltd',
+];
 
 // pg-boss lives in PostgreSQL only: this suite has no embedded variant (reported as skipped without PostgreSQL).
 describePostgres('contracts job through pg-boss [postgres]', () => {
   it('two job processes share the partitions; one counterparty for the customer all contracts name', { timeout: 180_000 }, async () => {
     const database = await openTestDatabase('postgres');
     const dir = makeTempDir('cpreg-contracts-job-');
-    const a = await startJobs({ db: database.db, backend: 'postgres', url: database.url!, work: true, concurrency: 2, queueOptions: FAST_QUEUE, worker: 'worker-a' });
-    const b = await startJobs({ db: database.db, backend: 'postgres', url: database.url!, work: true, concurrency: 2, queueOptions: FAST_QUEUE, worker: 'worker-b' });
+    const a = await startJobs({
+      db: database.db,
+      backend: 'postgres',
+      url: database.url!,
+      work: true,
+      concurrency: 2,
+      queueOptions: FAST_QUEUE,
+      worker: 'worker-a',
+    });
+    const b = await startJobs({
+      db: database.db,
+      backend: 'postgres',
+      url: database.url!,
+      work: true,
+      concurrency: 2,
+      queueOptions: FAST_QUEUE,
+      worker: 'worker-b',
+    });
     try {
       const entries: Record<string, Buffer> = {};
       for (const [i, supplier] of SUPPLIERS.entries()) {
         const text = inventedContract(supplier, 'Tessaline Trading GmbH');
-        if (i % 3 === 0) entries[`c${i}.pdf`] = await pdfLibPdf(text); // pdf-lib
-        else if (i % 3 === 1) entries[`c${i}.docx`] = await docxFile(text); // docx
+        if (i % 3 === 0)
+          entries[`c${i}.pdf`] = await pdfLibPdf(text); // pdf-lib
+        else if (i % 3 === 1)
+          entries[`c${i}.docx`] = await docxFile(text); // docx
         else entries[`c${i}.txt`] = Buffer.from(text);
       }
       const file = join(dir, 'upload.zip');
       writeFileSync(file, zipOf(entries)); // fflate
-      const { jobId, staged } = await submitContractsJob({ db: database.db, queue: a.queue }, { file, source: 'boss', actor: 'test', inputName: 'upload.zip', partitionSize: 2 });
+      const { jobId, staged } = await submitContractsJob(
+        { db: database.db, queue: a.queue },
+        { file, source: 'boss', actor: 'test', inputName: 'upload.zip', partitionSize: 2 },
+      );
       await staged;
       const job = await watchJob(database.db, jobId, { pollMs: 200 });
       expect(job.status, String(job.error)).toBe('finished');
@@ -43,7 +77,12 @@ describePostgres('contracts job through pg-boss [postgres]', () => {
       expect(result.partitions).toBe(6);
       const parts = await database.db.selectFrom('job_partition').select(['status', 'worker']).where('job_id', '=', jobId).execute();
       expect(parts.every((p) => p.status === 'done' && (p.worker === 'worker-a' || p.worker === 'worker-b'))).toBe(true);
-      const customers = await database.db.selectFrom('counterparty').select('id').where('canonical_name', '=', 'Tessaline Trading GmbH').where('status', '=', 'active').execute();
+      const customers = await database.db
+        .selectFrom('counterparty')
+        .select('id')
+        .where('canonical_name', '=', 'Tessaline Trading GmbH')
+        .where('status', '=', 'active')
+        .execute();
       expect(customers).toHaveLength(1);
       const report = await verifyRegister(database.db);
       expect(report.checks.filter((c) => !c.ok)).toEqual([]);

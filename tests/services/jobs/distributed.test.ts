@@ -95,102 +95,119 @@ describePostgres('scale-out: one API and three workers on PostgreSQL [postgres]'
     removeTempDir(dir);
   });
 
-  it(`resolves ${SIZE.toLocaleString('en-US')} mentions as one process does, through a worker killed mid-partition`, async () => {
-    const created = await runCli(['keys', 'create', '--scope', 'write', '--label', 'scale-out test', '--json', '--db', distUrl], { env: childEnv(ENV) });
-    expect(created.code, created.stderr).toBe(0);
-    const key = (JSON.parse(created.stdout) as { secret: string }).secret;
-    api = await startServe(['--db', distUrl, '--port', '0', '--work', '0'], { env: childEnv(ENV) });
-    for (let i = 0; i < 3; i++) workers.push(await startWorker(distUrl));
+  it(
+    `resolves ${SIZE.toLocaleString('en-US')} mentions as one process does, through a worker killed mid-partition`,
+    async () => {
+      const created = await runCli(['keys', 'create', '--scope', 'write', '--label', 'scale-out test', '--json', '--db', distUrl], { env: childEnv(ENV) });
+      expect(created.code, created.stderr).toBe(0);
+      const key = (JSON.parse(created.stdout) as { secret: string }).secret;
+      api = await startServe(['--db', distUrl, '--port', '0', '--work', '0'], { env: childEnv(ENV) });
+      for (let i = 0; i < 3; i++) workers.push(await startWorker(distUrl));
 
-    // The reference: one worker process alone resolves the same file as one batch (a single partition), into a
-    // database of its own (it runs meanwhile; this test process only watches).
-    const ref = await openDatabase(refUrl);
-    opened.push(ref);
-    // (Its one partition takes minutes: a longer expiry, so that the queue does not take it for lost.)
-    workers.push(await startWorker(refUrl, { CPREG_QUEUE_EXPIRE_S: '3600' }));
-    const submitted = await runCli(['ingest', file, '--source', 'scale', '--as-job', '--no-wait', '--json', '--partition-size', String(SIZE), '--db', refUrl], { env: childEnv(ENV), timeoutMs: 300_000 });
-    expect(submitted.code, submitted.stderr).toBe(0);
-    const refJobId = (JSON.parse(submitted.stdout) as { jobId: number }).jobId;
+      // The reference: one worker process alone resolves the same file as one batch (a single partition), into a
+      // database of its own (it runs meanwhile; this test process only watches).
+      const ref = await openDatabase(refUrl);
+      opened.push(ref);
+      // (Its one partition takes minutes: a longer expiry, so that the queue does not take it for lost.)
+      workers.push(await startWorker(refUrl, { CPREG_QUEUE_EXPIRE_S: '3600' }));
+      const submitted = await runCli(
+        ['ingest', file, '--source', 'scale', '--as-job', '--no-wait', '--json', '--partition-size', String(SIZE), '--db', refUrl],
+        { env: childEnv(ENV), timeoutMs: 300_000 },
+      );
+      expect(submitted.code, submitted.stderr).toBe(0);
+      const refJobId = (JSON.parse(submitted.stdout) as { jobId: number }).jobId;
 
-    const upload = await fetch(`${api.url}/v1/jobs/ingest?source=scale&partitionSize=${PARTITION_SIZE}`, { method: 'POST', headers: { authorization: `Bearer ${key}`, 'content-type': 'application/x-ndjson' }, body: readFileSync(file) });
-    expect(upload.status, await upload.clone().text()).toBe(202);
-    const jobId = ((await upload.json()) as { id: number }).id;
+      const upload = await fetch(`${api.url}/v1/jobs/ingest?source=scale&partitionSize=${PARTITION_SIZE}`, {
+        method: 'POST',
+        headers: { authorization: `Bearer ${key}`, 'content-type': 'application/x-ndjson' },
+        body: readFileSync(file),
+      });
+      expect(upload.status, await upload.clone().text()).toBe(202);
+      const jobId = ((await upload.json()) as { id: number }).id;
 
-    // Kill the first worker while it is inside a partition.
-    const dist = await openDatabase(distUrl);
-    opened.push(dist);
-    let killed: { partitionNo: number } | undefined;
-    for (let i = 0; i < 1200 && !killed; i++) {
-      const running = await dist.db
+      // Kill the first worker while it is inside a partition.
+      const dist = await openDatabase(distUrl);
+      opened.push(dist);
+      let killed: { partitionNo: number } | undefined;
+      for (let i = 0; i < 1200 && !killed; i++) {
+        const running = await dist.db
+          .selectFrom('job_partition')
+          .select(['partition_no', 'started_at'])
+          .where('job_id', '=', jobId)
+          .where('status', '=', 'running')
+          .where('worker', '=', workers[0]!.id)
+          .executeTakeFirst();
+        if (running && Date.now() - new Date(running.started_at!).getTime() > 1000) {
+          workers[0]!.child.kill('SIGKILL');
+          killed = { partitionNo: running.partition_no };
+        } else await sleep(250);
+      }
+      expect(killed, 'the first worker never ran a partition').toBeDefined();
+
+      // Follow the job through the API, as a client would.
+      let view:
+        { status: string; partitions: { total: number; done: number } | null; result: Record<string, unknown> | null; error: string | null } | undefined;
+      const deadline = Date.now() + 25 * 60_000;
+      do {
+        await sleep(2000);
+        const res = await fetch(`${api.url}/v1/jobs/${jobId}`, { headers: { authorization: `Bearer ${key}` } });
+        expect(res.status).toBe(200);
+        view = (await res.json()) as typeof view;
+      } while (view!.status !== 'finished' && view!.status !== 'failed' && Date.now() < deadline);
+      expect(view!.status, JSON.stringify(view!.error)).toBe('finished');
+      expect(view!.partitions!.done).toBe(view!.partitions!.total);
+      const result = view!.result as { counts: Record<string, number>; retriedPartitions: number; partitions: number; crossPairs: number; merges: unknown[] };
+      expect(result.counts.read).toBe(SIZE);
+
+      // The killed worker's partition ran again, elsewhere.
+      const again = await dist.db
         .selectFrom('job_partition')
-        .select(['partition_no', 'started_at'])
+        .select(['status', 'attempts', 'worker'])
         .where('job_id', '=', jobId)
-        .where('status', '=', 'running')
-        .where('worker', '=', workers[0]!.id)
-        .executeTakeFirst();
-      if (running && Date.now() - new Date(running.started_at!).getTime() > 1000) {
-        workers[0]!.child.kill('SIGKILL');
-        killed = { partitionNo: running.partition_no };
-      } else await sleep(250);
-    }
-    expect(killed, 'the first worker never ran a partition').toBeDefined();
+        .where('partition_no', '=', killed!.partitionNo)
+        .executeTakeFirstOrThrow();
+      expect(again.status).toBe('done');
+      expect(again.attempts).toBeGreaterThanOrEqual(2);
+      expect(again.worker).not.toBe(workers[0]!.id);
+      expect(result.retriedPartitions).toBeGreaterThanOrEqual(1);
 
-    // Follow the job through the API, as a client would.
-    let view: { status: string; partitions: { total: number; done: number } | null; result: Record<string, unknown> | null; error: string | null } | undefined;
-    const deadline = Date.now() + 25 * 60_000;
-    do {
-      await sleep(2000);
-      const res = await fetch(`${api.url}/v1/jobs/${jobId}`, { headers: { authorization: `Bearer ${key}` } });
-      expect(res.status).toBe(200);
-      view = (await res.json()) as typeof view;
-    } while (view!.status !== 'finished' && view!.status !== 'failed' && Date.now() < deadline);
-    expect(view!.status, JSON.stringify(view!.error)).toBe('finished');
-    expect(view!.partitions!.done).toBe(view!.partitions!.total);
-    const result = view!.result as { counts: Record<string, number>; retriedPartitions: number; partitions: number; crossPairs: number; merges: unknown[] };
-    expect(result.counts.read).toBe(SIZE);
+      const refJob = await watchJob(ref.db, refJobId, { pollMs: 2000 });
+      expect(refJob.status, String(refJob.error)).toBe('finished');
+      expect((refJob.result as { counts: { read: number }; partitions: number }).counts.read).toBe(SIZE);
+      expect((refJob.result as { partitions: number }).partitions).toBe(1);
 
-    // The killed worker's partition ran again, elsewhere.
-    const again = await dist.db.selectFrom('job_partition').select(['status', 'attempts', 'worker']).where('job_id', '=', jobId).where('partition_no', '=', killed!.partitionNo).executeTakeFirstOrThrow();
-    expect(again.status).toBe('done');
-    expect(again.attempts).toBeGreaterThanOrEqual(2);
-    expect(again.worker).not.toBe(workers[0]!.id);
-    expect(result.retriedPartitions).toBeGreaterThanOrEqual(1);
+      // The two registers agree.
+      const a = await clusteringOf(dist.db, mentions);
+      const b = await clusteringOf(ref.db, mentions);
+      const agreement = pairAgreement(a, b);
+      const partitionOf = new Map<string, number>();
+      const parts = await dist.db.selectFrom('job_partition').select(['partition_no', 'result']).where('job_id', '=', jobId).execute();
+      for (const p of parts) {
+        const r = (typeof p.result === 'string' ? JSON.parse(p.result) : p.result) as { members: [string, string][] };
+        for (const [, externalId] of r.members) partitionOf.set(externalId, p.partition_no);
+      }
+      const differing = differingPairs(a, b);
+      const lines = [
+        `scale-out: ${SIZE} mentions, ${result.partitions} partitions, ${result.crossPairs} linking pairs across partitions, ${result.merges.length} final-pass merges, ${result.retriedPartitions} partition(s) run again (worker ${workers[0]!.id} killed in partition ${killed!.partitionNo})`,
+        `pairwise agreement with one process: ${agreement.agreement.toFixed(6)} (together in both ${agreement.both}, only distributed ${agreement.firstOnly}, only one process ${agreement.secondOnly})`,
+        ...differing.map(({ pair: [x, y], together }) => {
+          const m = mentions[x]!;
+          const n = mentions[y]!;
+          return `  differs: "${m.text}" (${m.externalId}, partition ${partitionOf.get(m.externalId)}) + "${n.text}" (${n.externalId}, partition ${partitionOf.get(n.externalId)}): together only in the ${together === 'first' ? 'distributed' : 'one-process'} register`;
+        }),
+      ];
+      process.stdout.write(`${lines.join('\n')}\n`);
+      expect(agreement.both).toBeGreaterThan(SIZE / 10);
+      expect(agreement.agreement).toBeGreaterThanOrEqual(AGREEMENT);
 
-    const refJob = await watchJob(ref.db, refJobId, { pollMs: 2000 });
-    expect(refJob.status, String(refJob.error)).toBe('finished');
-    expect((refJob.result as { counts: { read: number }; partitions: number }).counts.read).toBe(SIZE);
-    expect((refJob.result as { partitions: number }).partitions).toBe(1);
-
-    // The two registers agree.
-    const a = await clusteringOf(dist.db, mentions);
-    const b = await clusteringOf(ref.db, mentions);
-    const agreement = pairAgreement(a, b);
-    const partitionOf = new Map<string, number>();
-    const parts = await dist.db.selectFrom('job_partition').select(['partition_no', 'result']).where('job_id', '=', jobId).execute();
-    for (const p of parts) {
-      const r = (typeof p.result === 'string' ? JSON.parse(p.result) : p.result) as { members: [string, string][] };
-      for (const [, externalId] of r.members) partitionOf.set(externalId, p.partition_no);
-    }
-    const differing = differingPairs(a, b);
-    const lines = [
-      `scale-out: ${SIZE} mentions, ${result.partitions} partitions, ${result.crossPairs} linking pairs across partitions, ${result.merges.length} final-pass merges, ${result.retriedPartitions} partition(s) run again (worker ${workers[0]!.id} killed in partition ${killed!.partitionNo})`,
-      `pairwise agreement with one process: ${agreement.agreement.toFixed(6)} (together in both ${agreement.both}, only distributed ${agreement.firstOnly}, only one process ${agreement.secondOnly})`,
-      ...differing.map(({ pair: [x, y], together }) => {
-        const m = mentions[x]!;
-        const n = mentions[y]!;
-        return `  differs: "${m.text}" (${m.externalId}, partition ${partitionOf.get(m.externalId)}) + "${n.text}" (${n.externalId}, partition ${partitionOf.get(n.externalId)}): together only in the ${together === 'first' ? 'distributed' : 'one-process'} register`;
-      }),
-    ];
-    process.stdout.write(`${lines.join('\n')}\n`);
-    expect(agreement.both).toBeGreaterThan(SIZE / 10);
-    expect(agreement.agreement).toBeGreaterThanOrEqual(AGREEMENT);
-
-    // `cpreg verify` on the distributed register: every invariant and a replay of the whole history. (The
-    // reference only needs its invariants.)
-    const verified = await Promise.all([
-      runCli(['verify', '--db', distUrl, '--json'], { timeoutMs: 900_000 }),
-      runCli(['verify', '--no-replay', '--db', refUrl, '--json'], { timeoutMs: 900_000 }),
-    ]);
-    for (const v of verified) expect(v.code, v.stdout + v.stderr).toBe(0);
-  }, 40 * 60_000);
+      // `cpreg verify` on the distributed register: every invariant and a replay of the whole history. (The
+      // reference only needs its invariants.)
+      const verified = await Promise.all([
+        runCli(['verify', '--db', distUrl, '--json'], { timeoutMs: 900_000 }),
+        runCli(['verify', '--no-replay', '--db', refUrl, '--json'], { timeoutMs: 900_000 }),
+      ]);
+      for (const v of verified) expect(v.code, v.stdout + v.stderr).toBe(0);
+    },
+    40 * 60_000,
+  );
 });

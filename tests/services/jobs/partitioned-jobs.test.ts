@@ -17,7 +17,10 @@ import { clusteringOf, generatedMentions, writeNdjson } from './support.ts';
 
 async function expectVerified(db: Parameters<typeof verifyRegister>[0]): Promise<void> {
   const report = await verifyRegister(db);
-  expect(report.checks.filter((c) => !c.ok), JSON.stringify(report.checks.filter((c) => !c.ok))).toEqual([]);
+  expect(
+    report.checks.filter((c) => !c.ok),
+    JSON.stringify(report.checks.filter((c) => !c.ok)),
+  ).toEqual([]);
   expect(report.ok).toBe(true);
 }
 
@@ -47,7 +50,12 @@ describeEachBackend('partitioned jobs', (t) => {
     writeNdjson(file, mentions);
     // Two rows that cannot be read and one repeat: named in the result, counted, never dropped.
     const { appendFileSync } = await import('node:fs');
-    appendFileSync(file, 'not json\n{"externalId":"x1"}\n' + JSON.stringify({ source: 'job-a', externalId: mentions[0]!.externalId, text: mentions[0]!.text, country: mentions[0]!.country }) + '\n');
+    appendFileSync(
+      file,
+      'not json\n{"externalId":"x1"}\n' +
+        JSON.stringify({ source: 'job-a', externalId: mentions[0]!.externalId, text: mentions[0]!.text, country: mentions[0]!.country }) +
+        '\n',
+    );
     const jobId = await submitIngestJob({ db: t.db(), queue: jobs.queue }, { file, source: 'job-a', actor: 'test', partitionSize: 100 });
     const job = await runJob(jobId);
     const result = job.result as { counts: Record<string, number>; rejected: { line: number }[]; partitions: number };
@@ -87,7 +95,12 @@ describeEachBackend('partitioned jobs', (t) => {
   it('a component larger than a partition is cut, and the final pass joins the parts again', async () => {
     // 24 spellings of one invented company: one component of linking pairs, partitions of 5.
     const base = ['Quillmarsh Textiles Ltd', 'QUILLMARSH TEXTILES LTD', 'Quillmarsh Textiles Limited', 'Quillmarsh Textiles Ltd.'];
-    const mentions = Array.from({ length: 24 }, (_, i) => ({ source: 'job-b', externalId: `q${String(i).padStart(2, '0')}`, text: base[i % base.length]!, country: 'GB' }));
+    const mentions = Array.from({ length: 24 }, (_, i) => ({
+      source: 'job-b',
+      externalId: `q${String(i).padStart(2, '0')}`,
+      text: base[i % base.length]!,
+      country: 'GB',
+    }));
     const file = join(dir, 'b.ndjson');
     writeNdjson(file, mentions);
     const jobId = await submitIngestJob({ db: t.db(), queue: jobs.queue }, { file, source: 'job-b', actor: 'test', partitionSize: 5 });
@@ -103,7 +116,12 @@ describeEachBackend('partitioned jobs', (t) => {
   });
 
   it('a sweep job covers every active counterparty once, over several partitions', async () => {
-    const active = await t.db().selectFrom('counterparty').select((eb) => eb.fn.countAll<number>().as('n')).where('status', '=', 'active').executeTakeFirstOrThrow();
+    const active = await t
+      .db()
+      .selectFrom('counterparty')
+      .select((eb) => eb.fn.countAll<number>().as('n'))
+      .where('status', '=', 'active')
+      .executeTakeFirstOrThrow();
     const jobId = await submitSweepJob({ db: t.db(), queue: jobs.queue }, { actor: 'test', partitionSize: 97 });
     const job = await runJob(jobId);
     const result = job.result as { scanned: number; partitions: number };

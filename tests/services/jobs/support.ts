@@ -13,12 +13,16 @@ export interface TruthMention extends MentionInput {
 export function generatedMentions(count: number, seed: number, source = 'gen'): TruthMention[] {
   const out: TruthMention[] = [];
   let i = 0;
-  for (const row of generateNames(count, seed)) out.push({ source, externalId: `g${String(i++).padStart(7, '0')}`, text: row.name, country: row.country.slice(0, 2), entityId: row.entityId });
+  for (const row of generateNames(count, seed))
+    out.push({ source, externalId: `g${String(i++).padStart(7, '0')}`, text: row.name, country: row.country.slice(0, 2), entityId: row.entityId });
   return out;
 }
 
 export function writeNdjson(file: string, mentions: readonly MentionInput[]): void {
-  writeFileSync(file, mentions.map(({ source, externalId, text, country }) => JSON.stringify({ source, externalId, text, ...(country ? { country } : {}) })).join('\n') + '\n');
+  writeFileSync(
+    file,
+    mentions.map(({ source, externalId, text, country }) => JSON.stringify({ source, externalId, text, ...(country ? { country } : {}) })).join('\n') + '\n',
+  );
 }
 
 /**

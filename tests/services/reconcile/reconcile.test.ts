@@ -34,7 +34,8 @@ describeEachBackend('reconcile', (ctx) => {
     scenario = generateScenario(3, { contracts: 90, counterparties: { total: 80 } });
     const reg = createRegisterContext(ctx.db());
     for (const o of scenario.ownEntities) await addOwnEntity(reg, { name: o.legalName, identifiers: o.identifiers }, { actor: 'test' });
-    for (const c of scenario.contracts) await storeContract(reg, { source: c.source, externalId: c.externalId, title: c.title, text: c.text }, { actor: 'test' });
+    for (const c of scenario.contracts)
+      await storeContract(reg, { source: c.source, externalId: c.externalId, title: c.title, text: c.text }, { actor: 'test' });
     dir = makeTempDir('cpreg-reconcile-');
     const file = join(dir, 'vendor-master.csv');
     writeFileSync(file, scenario.vendorMaster.csv);
@@ -66,7 +67,8 @@ describeEachBackend('reconcile', (ctx) => {
 
   it('reports every vendor that never signed as vendor_without_contract', () => {
     const without = new Set(findings.filter((f) => f.finding === 'vendor_without_contract').map((f) => f.vendorRowId));
-    for (const id of scenario.vendorMaster.truth.vendorsWithoutContract) expect(without.has(id), `${id}: ${JSON.stringify(findings.filter((f) => f.vendorRowId === id))}`).toBe(true);
+    for (const id of scenario.vendorMaster.truth.vendorsWithoutContract)
+      expect(without.has(id), `${id}: ${JSON.stringify(findings.filter((f) => f.vendorRowId === id))}`).toBe(true);
   });
 
   it('reports contracting counterparties without a vendor row', async () => {
@@ -97,7 +99,7 @@ describeEachBackend('reconcile', (ctx) => {
     expect(resolved / truth.length, `${resolved} of ${truth.length} resolved`).toBeGreaterThanOrEqual(0.9);
   });
 
-  it('writes one CSV row per finding with the issue\'s columns', () => {
+  it("writes one CSV row per finding with the issue's columns", () => {
     const rows = parse(reportCsv(findings), { columns: true }) as Record<string, string>[];
     expect(Object.keys(rows[0]!)).toEqual(REPORT_COLUMNS);
     expect(rows).toHaveLength(findings.length);

@@ -1,7 +1,7 @@
 /**
  * `adjustWeights`: reviewers' decisions kept as labelled pairs adjust the weights in force within bounds, stored as
  * a new settings version; a dry run stores nothing. Invented names; the bounded method itself is unit-tested in
- * tests/resolvers/score/adjustFromDecisions.test.ts.
+ * tests/resolvers/score/adjust-from-decisions.test.ts.
  */
 import { beforeAll, expect, it } from 'vitest';
 import { describeEachBackend } from '../../support/index.ts';
@@ -9,7 +9,7 @@ import { decideReview, resolveMention, storeContract, type RegisterContext } fro
 import { featureWeights } from '../../../resolvers/score/index.ts';
 import { adjustWeights, vectorOfEvidence } from '../../../services/register/matching/adjust-weights.ts';
 import { currentModel } from '../../../services/register/matching/model.ts';
-import { WHO, contextFor } from './helpers.ts';
+import { WHO, contextFor } from './support.ts';
 
 const FIRMS = ['Ravelstoke Pumps', 'Dunquarry Textiles', 'Mirrowfen Optics', 'Calthwaite Seeds', 'Brisdown Ceramics', 'Hollinvar Paints'];
 
@@ -18,16 +18,29 @@ describeEachBackend('adjusting weights from decisions', (t) => {
   beforeAll(async () => {
     ctx = contextFor(t.db());
     for (const [i, firm] of FIRMS.entries()) {
-      await storeContract(ctx, { source: 'clm', externalId: `A-${i}`, text: `This Agreement is made between ${firm} Limited, a company incorporated in England (the "Supplier"), and Tarnwick Retail Ltd (the "Buyer").` }, WHO);
+      await storeContract(
+        ctx,
+        {
+          source: 'clm',
+          externalId: `A-${i}`,
+          text: `This Agreement is made between ${firm} Limited, a company incorporated in England (the "Supplier"), and Tarnwick Retail Ltd (the "Buyer").`,
+        },
+        WHO,
+      );
       const r = await resolveMention(ctx, { source: 'adjust-test', externalId: `m-${i}`, text: firm }, WHO);
       expect(r.status, firm).toBe('review');
       await decideReview(ctx, r.reviewItemId!, { decision: 'different', reason: 'another firm of that name' }, WHO);
     }
   });
 
-  it('reads each decision\'s levels back from its explanation', async () => {
+  it("reads each decision's levels back from its explanation", async () => {
     const { model } = await currentModel(ctx.db);
-    const vector = vectorOfEvidence(model, { features: [{ feature: 'name', level: 'exact' }, { feature: 'jurisdiction', level: null }] });
+    const vector = vectorOfEvidence(model, {
+      features: [
+        { feature: 'name', level: 'exact' },
+        { feature: 'jurisdiction', level: null },
+      ],
+    });
     expect(vector![0]).toBe(model.features.name!.levels.indexOf('exact'));
     expect(vector!.slice(1).every((v) => v === null)).toBe(true);
     expect(vectorOfEvidence(model, { features: [{ feature: 'name', level: 'no such level' }] })).toBeNull();

@@ -7,7 +7,7 @@ import { forEachBackend, openTestDatabase } from '../../support/index.ts';
 import { createRegisterContext, resolveBatch, resolveMention } from '../../../services/register/index.ts';
 import type { MentionInput } from '../../../resolvers/vocabulary.ts';
 import { seededRandom } from '../../../resolvers/prng.ts';
-import { WHO } from './helpers.ts';
+import { WHO } from './support.ts';
 
 const REGISTER = ['Larchmont Pottery Ltd', 'Vossberg Kältetechnik GmbH'];
 /** Countries of the batch items, in order (the model weighs an agreeing jurisdiction). */
@@ -31,7 +31,10 @@ async function run(backend: 'pglite' | 'postgres', inputs: MentionInput[]) {
     const results = await resolveBatch(ctx, inputs, WHO);
     expect(results).toHaveLength(inputs.length);
     return new Map(
-      results.map((r, i) => [inputs[i]!.externalId, 'mentionId' in r ? { status: r.status, counterpartyId: r.counterpartyId } : { status: r.status, counterpartyId: null }]),
+      results.map((r, i) => [
+        inputs[i]!.externalId,
+        'mentionId' in r ? { status: r.status, counterpartyId: r.counterpartyId } : { status: r.status, counterpartyId: null },
+      ]),
     );
   } finally {
     await opened.close();

@@ -12,9 +12,15 @@ import { bulkLoad } from '../../../bench/register.bench.ts';
 import { generateNames } from '../../../services/demo/generate-names.ts';
 import { analyse } from '../../../services/register/matching/analysis.ts';
 import { keysOfAnalysis } from '../../../services/register/matching/keys.ts';
-import { candidateCounts, MAX_CANDIDATES, scoreDetails, scoredCandidatesWithFormer, type ScoredCandidate } from '../../../services/register/matching/candidates.ts';
+import {
+  candidateCounts,
+  MAX_CANDIDATES,
+  scoreDetails,
+  scoredCandidatesWithFormer,
+  type ScoredCandidate,
+} from '../../../services/register/matching/candidates.ts';
 import { candidateDetails, type CandidateDetail } from '../../../db/queries/blocking-keys.ts';
-import { DEFAULT_MATCH_MODEL } from '../../../resolvers/score/defaultModel.ts';
+import { DEFAULT_MATCH_MODEL } from '../../../resolvers/score/default-model.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
 
 const REGISTER_SIZE = 2000;
@@ -62,7 +68,9 @@ forEachBackend((backend, available) => {
           expect({ probe: row.name, above: above(decision.current) }).toEqual({ probe: row.name, above: above(everything) });
           if ((full?.score ?? -Infinity) > model.newAt) linkedOrReviewed++;
 
-          const previous = bestOf((await scoreDetails(opened.db, probe, await previousCandidates(opened.db, keys), model, new Set(), undefined, false)).current);
+          const previous = bestOf(
+            (await scoreDetails(opened.db, probe, await previousCandidates(opened.db, keys), model, new Set(), undefined, false)).current,
+          );
           expect({ probe: row.name, notWorse: (full?.score ?? -Infinity) >= (previous?.score ?? -Infinity) }).toEqual({ probe: row.name, notWorse: true });
           if ((full?.score ?? -Infinity) > (previous?.score ?? -Infinity)) better++;
         }
@@ -70,7 +78,9 @@ forEachBackend((backend, available) => {
         expect(linkedOrReviewed).toBeGreaterThan(PROBES / 5);
         const { probes, fetched, scored } = counted;
         expect(scored).toBeLessThan(fetched);
-        console.log(`[${backend}] ${PROBES} probes: ${better} with a better best than the previous ranking; per probe list ${(fetched / probes).toFixed(1)} fetched, ${(scored / probes).toFixed(1)} scored`);
+        console.log(
+          `[${backend}] ${PROBES} probes: ${better} with a better best than the previous ranking; per probe list ${(fetched / probes).toFixed(1)} fetched, ${(scored / probes).toFixed(1)} scored`,
+        );
       } finally {
         await opened.close();
       }

@@ -8,14 +8,8 @@ import { sql } from 'kysely';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { openDatabase, type OpenedDatabase } from '../../../db/open-database.ts';
 import { describeEachBackend } from '../../support/index.ts';
-import {
-  createRegisterContext,
-  mergeCounterparties,
-  resolveMention,
-  type RegisterError,
-  type RegisterContext,
-} from '../../../services/register/index.ts';
-import { WHO } from './helpers.ts';
+import { createRegisterContext, mergeCounterparties, resolveMention, type RegisterError, type RegisterContext } from '../../../services/register/index.ts';
+import { WHO } from './support.ts';
 
 const VARIANTS = ['Wrenfield Instruments Ltd', 'Wrenfield Instruments Limited', 'WRENFIELD INSTRUMENTS LTD', 'Wrenfield Instruments Ltd.'];
 
@@ -95,7 +89,15 @@ describeEachBackend('register across instances', (t) => {
     const mentions = await db.selectFrom('mention').select(['counterparty_id']).where('source', '=', 'merge').execute();
     expect(mentions).toHaveLength(12);
     expect(new Set(mentions.map((m) => Number(m.counterparty_id)))).toEqual(new Set([survivor]));
-    const leftovers = await db.selectFrom('counterparty_name').select('id').where('counterparty_id', 'in', cps.filter((id) => id !== survivor)).execute();
+    const leftovers = await db
+      .selectFrom('counterparty_name')
+      .select('id')
+      .where(
+        'counterparty_id',
+        'in',
+        cps.filter((id) => id !== survivor),
+      )
+      .execute();
     expect(leftovers).toHaveLength(0);
     const names = await db.selectFrom('counterparty_name').select(['name', 'seen_count']).where('counterparty_id', '=', survivor).execute();
     expect(names.reduce((sum, n) => sum + n.seen_count, 0)).toBe(12);

@@ -7,11 +7,11 @@
 import { beforeAll, expect, it } from 'vitest';
 import { describeEachBackend } from '../../support/index.ts';
 import { decideReview, resolveBatch, resolveMention, storeContract, type RegisterContext } from '../../../services/register/index.ts';
-import { WHO, contextFor } from './helpers.ts';
+import { WHO, contextFor } from './support.ts';
 
 const REVIEWER = { actor: 'test:reviewer' };
 
-describeEachBackend('a person\'s decision against a changed text', (t) => {
+describeEachBackend("a person's decision against a changed text", (t) => {
   let ctx: RegisterContext;
   let supplier: number;
 
@@ -27,7 +27,15 @@ describeEachBackend('a person\'s decision against a changed text', (t) => {
 
   beforeAll(async () => {
     ctx = contextFor(t.db());
-    const stored = await storeContract(ctx, { source: 'clm', externalId: 'E-1', text: 'This Haulage Agreement is made between Quillacombe Freight Limited, a company incorporated in England (the "Carrier"), and Tessingham Mills Ltd (the "Customer").' }, WHO);
+    const stored = await storeContract(
+      ctx,
+      {
+        source: 'clm',
+        externalId: 'E-1',
+        text: 'This Haulage Agreement is made between Quillacombe Freight Limited, a company incorporated in England (the "Carrier"), and Tessingham Mills Ltd (the "Customer").',
+      },
+      WHO,
+    );
     supplier = stored.parties.find((p) => p.canonicalName?.startsWith('Quillacombe') ?? false)!.counterpartyId!;
   });
 
@@ -56,7 +64,13 @@ describeEachBackend('a person\'s decision against a changed text', (t) => {
     await confirmed('q-3');
     const [result] = await resolveBatch(ctx, [{ source: 'erp', externalId: 'q-3', text: 'Quillacombe Freight Limited', country: 'GB' }], WHO);
     expect(result!.status).toBe('review');
-    const item = await t.db().selectFrom('review_item').selectAll().where('mention_id', '=', (await mention('q-3')).id).where('status', '=', 'open').executeTakeFirstOrThrow();
+    const item = await t
+      .db()
+      .selectFrom('review_item')
+      .selectAll()
+      .where('mention_id', '=', (await mention('q-3')).id)
+      .where('status', '=', 'open')
+      .executeTakeFirstOrThrow();
     expect(Number(item.right_counterparty_id)).toBe(supplier);
     expect((item.evidence as { earlierDecision?: unknown }).earlierDecision).toBeDefined();
   });

@@ -17,7 +17,7 @@ import {
   undoEvent,
   type RegisterContext,
 } from '../../../services/register/index.ts';
-import { WHO, contextFor, expectSameState } from './helpers.ts';
+import { WHO, contextFor, expectSameState } from './support.ts';
 import { randomName, runWorkload } from './workload.ts';
 
 describeEachBackend('register history', (t) => {
@@ -88,14 +88,37 @@ describeEachBackend('register history', (t) => {
               const r = await resolveMention(ctx, { source, externalId: String(n++), text: randomName(seededRandom(c.seed)) }, WHO);
               eventId = r.eventId;
             } else if (c.kind === 'merge' || c.kind === 'split') {
-              const ids = (await t.db().selectFrom('mention').select('counterparty_id').where('source', '=', source).where('counterparty_id', 'is not', null).orderBy('id').execute()).map((r) => Number(r.counterparty_id));
+              const ids = (
+                await t
+                  .db()
+                  .selectFrom('mention')
+                  .select('counterparty_id')
+                  .where('source', '=', source)
+                  .where('counterparty_id', 'is not', null)
+                  .orderBy('id')
+                  .execute()
+              ).map((r) => Number(r.counterparty_id));
               if (c.kind === 'merge' && ids.length > 0) {
                 eventId = (await mergeCounterparties(ctx, { ids: [ids[c.a % ids.length]!, ids[c.b % ids.length]!] }, WHO)).eventId;
               } else if (c.kind === 'split' && ids.length > 0) {
-                const mentions = await t.db().selectFrom('mention').select(['id', 'counterparty_id']).where('source', '=', source).where('counterparty_id', 'is not', null).orderBy('id').execute();
+                const mentions = await t
+                  .db()
+                  .selectFrom('mention')
+                  .select(['id', 'counterparty_id'])
+                  .where('source', '=', source)
+                  .where('counterparty_id', 'is not', null)
+                  .orderBy('id')
+                  .execute();
                 const m = mentions[c.m % mentions.length]!;
                 const target = c.toNew ? undefined : ids[c.target % ids.length];
-                eventId = (await splitCounterparty(ctx, Number(m.counterparty_id), { mentionIds: [Number(m.id)], ...(target !== undefined ? { targetId: target } : {}) }, WHO)).eventId;
+                eventId = (
+                  await splitCounterparty(
+                    ctx,
+                    Number(m.counterparty_id),
+                    { mentionIds: [Number(m.id)], ...(target !== undefined ? { targetId: target } : {}) },
+                    WHO,
+                  )
+                ).eventId;
               }
             } else if (stack.length > 0) {
               const last = stack.pop()!;

@@ -15,7 +15,7 @@ import {
   undoEvent,
   type RegisterContext,
 } from '../../../services/register/index.ts';
-import { WHO, contextFor, expectSameState } from './helpers.ts';
+import { WHO, contextFor, expectSameState } from './support.ts';
 
 describeEachBackend('register: setJurisdiction', (t) => {
   let ctx: RegisterContext;
@@ -25,7 +25,12 @@ describeEachBackend('register: setJurisdiction', (t) => {
 
   it('sets, changes and clears the jurisdiction, one event each, version bumped', async () => {
     const created = await createCounterparty(ctx, { name: 'Quillmere Pumps Ltd' }, WHO);
-    const set = await setJurisdiction(ctx, created.counterpartyId, { jurisdiction: 'gb', expectedVersion: created.version }, { ...WHO, reason: 'registered in England' });
+    const set = await setJurisdiction(
+      ctx,
+      created.counterpartyId,
+      { jurisdiction: 'gb', expectedVersion: created.version },
+      { ...WHO, reason: 'registered in England' },
+    );
     expect(set).toMatchObject({ counterpartyId: created.counterpartyId, jurisdiction: 'GB', version: created.version + 1 });
     expect((await getCounterparty(ctx, created.counterpartyId)).counterparty.jurisdiction).toBe('GB');
     const event = await t.db().selectFrom('history_event').selectAll().where('id', '=', set.eventId!).executeTakeFirstOrThrow();
@@ -46,9 +51,14 @@ describeEachBackend('register: setJurisdiction', (t) => {
   it('refuses a code that is not ISO 3166-1 alpha-2 or ISO 3166-2, naming the field, and a stale version', async () => {
     const created = await createCounterparty(ctx, { name: 'Quillmere Valves Ltd', jurisdiction: 'GB' }, WHO);
     for (const bad of ['Britain', 'GBR', 'US_DE', 'US-DELA', '']) {
-      await expect(setJurisdiction(ctx, created.counterpartyId, { jurisdiction: bad }, WHO)).rejects.toMatchObject({ code: 'INVALID_INPUT', details: { field: 'jurisdiction' } });
+      await expect(setJurisdiction(ctx, created.counterpartyId, { jurisdiction: bad }, WHO)).rejects.toMatchObject({
+        code: 'INVALID_INPUT',
+        details: { field: 'jurisdiction' },
+      });
     }
-    await expect(setJurisdiction(ctx, created.counterpartyId, { jurisdiction: 'IE', expectedVersion: created.version - 1 }, WHO)).rejects.toMatchObject({ code: 'STALE_VERSION' });
+    await expect(setJurisdiction(ctx, created.counterpartyId, { jurisdiction: 'IE', expectedVersion: created.version - 1 }, WHO)).rejects.toMatchObject({
+      code: 'STALE_VERSION',
+    });
     await expect(setJurisdiction(ctx, 99_999_999, { jurisdiction: 'IE' }, WHO)).rejects.toMatchObject({ code: 'NOT_FOUND' });
     expect((await getCounterparty(ctx, created.counterpartyId)).counterparty).toMatchObject({ jurisdiction: 'GB', version: created.version });
   });

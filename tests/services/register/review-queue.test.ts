@@ -15,7 +15,7 @@ import {
   type RegisterContext,
 } from '../../../services/register/index.ts';
 import { verifyRegister } from '../../../services/verify/index.ts';
-import { WHO, contextFor } from './helpers.ts';
+import { WHO, contextFor } from './support.ts';
 
 const BUSY = 'Quenmarrow Fabrication, Inc.';
 const QUIET = 'Ostlewick Haulage Limited';
@@ -37,7 +37,13 @@ describeEachBackend('review queue order and group decisions', (t) => {
   async function toReview(externalId: string, text: string): Promise<number> {
     const r = await resolveMention(ctx, { source: 'queue-test', externalId, text }, WHO);
     expect(r.status, `"${text}"`).toBe('review');
-    const row = await t.db().selectFrom('mention').select('id').where('source', '=', 'queue-test').where('external_id', '=', externalId).executeTakeFirstOrThrow();
+    const row = await t
+      .db()
+      .selectFrom('mention')
+      .select('id')
+      .where('source', '=', 'queue-test')
+      .where('external_id', '=', externalId)
+      .executeTakeFirstOrThrow();
     mentionIds[externalId] = Number(row.id);
     return r.reviewItemId!;
   }
@@ -54,7 +60,11 @@ describeEachBackend('review queue order and group decisions', (t) => {
 
   it('ranks the group touching more contracts first, though its items are younger, and keeps the group together', async () => {
     const quietItem = await toReview('q1', 'Ostlewick Haulage');
-    const busyItems = [await toReview('b1', 'Quenmarrow Fabrication'), await toReview('b2', 'QUENMARROW FABRICATION'), await toReview('b3', 'Quenmarrow  Fabrication')];
+    const busyItems = [
+      await toReview('b1', 'Quenmarrow Fabrication'),
+      await toReview('b2', 'QUENMARROW FABRICATION'),
+      await toReview('b3', 'Quenmarrow  Fabrication'),
+    ];
     const queue = await listRankedReviewItems(ctx);
     expect(queue.map((i) => i.id)).toEqual([...busyItems, quietItem]);
     expect(queue[0]!.rightCounterpartyId).toBe(busyId);
@@ -80,7 +90,12 @@ describeEachBackend('review queue order and group decisions', (t) => {
       expect(event?.type).toBe('review_decided');
     }
     for (const key of ['b1', 'b2', 'b3']) {
-      const m = await t.db().selectFrom('mention').select(['status', 'counterparty_id', 'confirmed_by']).where('id', '=', mentionIds[key]!).executeTakeFirstOrThrow();
+      const m = await t
+        .db()
+        .selectFrom('mention')
+        .select(['status', 'counterparty_id', 'confirmed_by'])
+        .where('id', '=', mentionIds[key]!)
+        .executeTakeFirstOrThrow();
       expect([m.status, Number(m.counterparty_id), m.confirmed_by]).toEqual(['linked', busyId, WHO.actor]);
     }
     const left = await listRankedReviewItems(ctx);
@@ -98,7 +113,13 @@ describeEachBackend('review queue order and group decisions', (t) => {
     expect(result.settled.map((s) => s.counterpartyId)).toEqual([made, made]);
     const mentions = await t.db().selectFrom('mention').select(['counterparty_id']).where('id', 'in', [mentionIds.q1!, mentionIds.q2!]).execute();
     expect(mentions.map((m) => Number(m.counterparty_id))).toEqual([made, made]);
-    const apart = await t.db().selectFrom('cannot_link').select('id').where('counterparty_id', '=', quietId).where('other_counterparty_id', '=', made).execute();
+    const apart = await t
+      .db()
+      .selectFrom('cannot_link')
+      .select('id')
+      .where('counterparty_id', '=', quietId)
+      .where('other_counterparty_id', '=', made)
+      .execute();
     expect(apart.length).toBeGreaterThan(0);
     expect(await listRankedReviewItems(ctx)).toEqual([]);
   });
@@ -118,7 +139,13 @@ describeEachBackend('review decision "not a party"', (t) => {
     expect(r.status).toBe('review');
     const decided = await decideReviewGroup(ctx, r.reviewItemId!, { decision: 'not_a_party', reason: 'a house name in the address' }, WHO);
     expect(decided.counterpartyId).toBeNull();
-    const m = await t.db().selectFrom('mention').select(['status', 'counterparty_id', 'confirmed_by']).where('source', '=', 'np-test').where('external_id', '=', 'b').executeTakeFirstOrThrow();
+    const m = await t
+      .db()
+      .selectFrom('mention')
+      .select(['status', 'counterparty_id', 'confirmed_by'])
+      .where('source', '=', 'np-test')
+      .where('external_id', '=', 'b')
+      .executeTakeFirstOrThrow();
     expect([m.status, m.counterparty_id, m.confirmed_by]).toEqual(['not_a_party', null, WHO.actor]);
     const labels = await t.db().selectFrom('labelled_pair').select('id').where('review_item_id', '=', r.reviewItemId!).execute();
     expect(labels).toEqual([]);

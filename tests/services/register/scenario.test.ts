@@ -21,7 +21,7 @@ import {
   undoEvent,
   type RegisterContext,
 } from '../../../services/register/index.ts';
-import { WHO, contextFor, expectSameState } from './helpers.ts';
+import { WHO, contextFor, expectSameState } from './support.ts';
 
 const OWN = 'Halvorsen Maritime Holdings AS';
 
@@ -66,7 +66,8 @@ describeEachBackend('register scenario', (t) => {
     // A misspelling is close but not certain: the built-in model sends it to a person, who confirms it.
     const typo = await resolveMention(ctx, { source: 'erp', externalId: 'm-2', text: 'Brackenridge Fabricaton Inc.', country: 'US-DE' }, WHO);
     expect(['linked', 'review']).toContain(typo.status);
-    const typoCounterparty = typo.status === 'review' ? (await decideReview(ctx, typo.reviewItemId!, { decision: 'same' }, WHO)).counterpartyId : typo.counterpartyId;
+    const typoCounterparty =
+      typo.status === 'review' ? (await decideReview(ctx, typo.reviewItemId!, { decision: 'same' }, WHO)).counterpartyId : typo.counterpartyId;
     const ids = new Set([...partyIds, viaTerm.counterpartyId, typoCounterparty]);
     expect(ids.size).toBe(1);
     const [only] = [...ids];
@@ -83,7 +84,7 @@ describeEachBackend('register scenario', (t) => {
     expect(ownMention.counterpartyId).toBeNull();
   });
 
-  it('keeps two companies that differ only in legal form apart, and a reviewer\'s different keeps them apart next time', async () => {
+  it("keeps two companies that differ only in legal form apart, and a reviewer's different keeps them apart next time", async () => {
     const gmbh = await resolveMention(ctx, { source: 'erp', externalId: 'k-1', text: 'Kestrel Tooling GmbH', country: 'DE' }, WHO);
     expect(gmbh.status).toBe('new');
     const ag = await resolveMention(ctx, { source: 'erp', externalId: 'k-2', text: 'Kestrel Tooling AG', country: 'DE' }, WHO);

@@ -28,7 +28,7 @@ import {
   withdrawContract,
   type RegisterContext,
 } from '../../../services/register/index.ts';
-import { WHO, contextFor } from './helpers.ts';
+import { WHO, contextFor } from './support.ts';
 
 const lei = (base: string) => `${base}${leiCheckDigits(base)}`;
 const LEI_A = lei('984500INVENTED0A01');
@@ -41,7 +41,11 @@ describeEachBackend('register operations', (t) => {
   });
 
   async function eventCount(): Promise<number> {
-    const row = await t.db().selectFrom('history_event').select((eb) => eb.fn.countAll<string>().as('n')).executeTakeFirstOrThrow();
+    const row = await t
+      .db()
+      .selectFrom('history_event')
+      .select((eb) => eb.fn.countAll<string>().as('n'))
+      .executeTakeFirstOrThrow();
     return Number(row.n);
   }
 
@@ -77,7 +81,18 @@ describeEachBackend('register operations', (t) => {
     expect(stored.reresolved).toHaveLength(1);
     expect(stored.reresolved[0]).toMatchObject({ mentionId: early.mentionId, status: 'linked', counterpartyId: licensee.counterpartyId });
     // The same contract again is a no-op.
-    const twice = await storeContract(ctx, { source: 'clm', externalId: 'LIC-7', title: 'Software licence', text: stored.contract.parties.length ? (await t.db().selectFrom('contract').select('text').where('id', '=', stored.contractId).executeTakeFirstOrThrow()).text : '' }, WHO);
+    const twice = await storeContract(
+      ctx,
+      {
+        source: 'clm',
+        externalId: 'LIC-7',
+        title: 'Software licence',
+        text: stored.contract.parties.length
+          ? (await t.db().selectFrom('contract').select('text').where('id', '=', stored.contractId).executeTakeFirstOrThrow()).text
+          : '',
+      },
+      WHO,
+    );
     expect(twice.alreadyStored).toBe(true);
     // Withdrawing the contract withdraws its party mentions.
     const withdrawn = await withdrawContract(ctx, stored.contractId, WHO);
@@ -87,10 +102,12 @@ describeEachBackend('register operations', (t) => {
   });
 
   it('a changed contract keeps its party mentions and re-resolves the ones whose text changed', async () => {
-    const v1 = 'This Agreement is made between Ravelston Quarry Products Limited, a company incorporated in Scotland (the "Seller"), and Glenmarrow Aggregates Ltd, a company incorporated in Scotland (the "Buyer").';
+    const v1 =
+      'This Agreement is made between Ravelston Quarry Products Limited, a company incorporated in Scotland (the "Seller"), and Glenmarrow Aggregates Ltd, a company incorporated in Scotland (the "Buyer").';
     const first = await storeContract(ctx, { source: 'clm', externalId: 'Q-1', text: v1 }, WHO);
     expect(first.parties).toHaveLength(2);
-    const v2 = 'This Agreement is made between Ravelston Quarry Products Limited, a company incorporated in Scotland (the "Seller"), and Tarbolton Haulage Limited, a company incorporated in Scotland (the "Buyer").';
+    const v2 =
+      'This Agreement is made between Ravelston Quarry Products Limited, a company incorporated in Scotland (the "Seller"), and Tarbolton Haulage Limited, a company incorporated in Scotland (the "Buyer").';
     const second = await storeContract(ctx, { source: 'clm', externalId: 'Q-1', text: v2 }, WHO);
     expect(second.contractId).toBe(first.contractId);
     const buyer = second.parties.find((p) => p.role === 'Buyer')!;
@@ -102,7 +119,11 @@ describeEachBackend('register operations', (t) => {
   });
 
   it('links on an equal strong identifier, confirms the name by it, and refuses the identifier to a second counterparty', async () => {
-    const created = await createCounterparty(ctx, { name: 'Pendlebury Marine Coatings Limited', jurisdiction: 'GB', identifiers: [{ scheme: 'lei', value: LEI_A }] }, WHO);
+    const created = await createCounterparty(
+      ctx,
+      { name: 'Pendlebury Marine Coatings Limited', jurisdiction: 'GB', identifiers: [{ scheme: 'lei', value: LEI_A }] },
+      WHO,
+    );
     const viaLei = await resolveMention(ctx, { source: 'kyc', externalId: 'l1', text: 'PMC Coatings', identifiers: [{ scheme: 'lei', value: LEI_A }] }, WHO);
     expect(viaLei.status).toBe('linked');
     expect(viaLei.counterpartyId).toBe(created.counterpartyId);
@@ -114,7 +135,7 @@ describeEachBackend('register operations', (t) => {
     expect(added.identifierId).not.toBeNull();
   });
 
-  it('applies the canonical-value rules: a person\'s rename wins and stays', async () => {
+  it("applies the canonical-value rules: a person's rename wins and stays", async () => {
     const r = await resolveMention(ctx, { source: 'crm', externalId: 'c1', text: 'Thistledown Foods', country: 'GB' }, WHO);
     await resolveMention(ctx, { source: 'crm', externalId: 'c2', text: 'Thistledown Foods Limited', country: 'GB' }, WHO);
     // Rule 2: the full legal name with its legal form beats the bare name.
@@ -132,12 +153,18 @@ describeEachBackend('register operations', (t) => {
   it('relations never merge; successor_of needs its date', async () => {
     const parent = await createCounterparty(ctx, { name: 'Greyfriars Holdings plc', jurisdiction: 'GB' }, WHO);
     const child = await createCounterparty(ctx, { name: 'Greyfriars Ropeworks Ltd', jurisdiction: 'GB' }, WHO);
-    await expect(addRelation(ctx, { fromId: child.counterpartyId, toId: parent.counterpartyId, type: 'successor_of' }, WHO)).rejects.toMatchObject({ code: 'INVALID_INPUT' });
-    await expect(addRelation(ctx, { fromId: child.counterpartyId, toId: parent.counterpartyId, type: 'successor_of', since: '2021-02-30' }, WHO)).rejects.toMatchObject({ code: 'INVALID_INPUT' });
+    await expect(addRelation(ctx, { fromId: child.counterpartyId, toId: parent.counterpartyId, type: 'successor_of' }, WHO)).rejects.toMatchObject({
+      code: 'INVALID_INPUT',
+    });
+    await expect(
+      addRelation(ctx, { fromId: child.counterpartyId, toId: parent.counterpartyId, type: 'successor_of', since: '2021-02-30' }, WHO),
+    ).rejects.toMatchObject({ code: 'INVALID_INPUT' });
     const rel = await addRelation(ctx, { fromId: parent.counterpartyId, toId: child.counterpartyId, type: 'parent_of' }, WHO);
     const view = await getCounterparty(ctx, child.counterpartyId);
     expect(view.counterparty.status).toBe('active');
-    expect(view.counterparty.relations).toEqual([expect.objectContaining({ type: 'parent_of', fromCounterpartyId: parent.counterpartyId, toCounterpartyId: child.counterpartyId })]);
+    expect(view.counterparty.relations).toEqual([
+      expect.objectContaining({ type: 'parent_of', fromCounterpartyId: parent.counterpartyId, toCounterpartyId: child.counterpartyId }),
+    ]);
     await removeRelation(ctx, rel.relationId, WHO);
     expect((await getCounterparty(ctx, child.counterpartyId)).counterparty.relations).toEqual([]);
   });
@@ -151,7 +178,13 @@ describeEachBackend('register operations', (t) => {
     const c = await resolveMention(ctx, { source: 'ap', externalId: 'u3', text: 'Signal Box Antiques', country: 'GB' }, WHO);
     await setAsideMention(ctx, c.mentionId, WHO);
     await reresolve(ctx, WHO);
-    const after = await t.db().selectFrom('mention').select(['id', 'status', 'counterparty_id']).where('id', 'in', [b.mentionId, c.mentionId]).orderBy('id').execute();
+    const after = await t
+      .db()
+      .selectFrom('mention')
+      .select(['id', 'status', 'counterparty_id'])
+      .where('id', 'in', [b.mentionId, c.mentionId])
+      .orderBy('id')
+      .execute();
     expect(Number(after[0]!.counterparty_id)).not.toBe(a.counterpartyId);
     expect(after[1]!.status).toBe('set_aside');
   });
@@ -181,8 +214,16 @@ describeEachBackend('register operations', (t) => {
   it('the sweep files a duplicate for look-alike counterparties and proposes affiliate_of for a shared phone only; it merges nothing', async () => {
     const one = await createCounterparty(ctx, { name: 'Brambleholt Joinery Limited', jurisdiction: 'GB' }, WHO);
     const two = await createCounterparty(ctx, { name: 'Brambleholt Joinery Ltd', jurisdiction: 'GB' }, WHO);
-    const p = await createCounterparty(ctx, { name: 'Quayside Netmakers Ltd', jurisdiction: 'GB', identifiers: [{ scheme: 'phone', value: '+44 20 7946 0011' }] }, WHO);
-    const q = await createCounterparty(ctx, { name: 'Harbourlight Chandlery Ltd', jurisdiction: 'GB', identifiers: [{ scheme: 'phone', value: '+44 20 7946 0011' }] }, WHO);
+    const p = await createCounterparty(
+      ctx,
+      { name: 'Quayside Netmakers Ltd', jurisdiction: 'GB', identifiers: [{ scheme: 'phone', value: '+44 20 7946 0011' }] },
+      WHO,
+    );
+    const q = await createCounterparty(
+      ctx,
+      { name: 'Harbourlight Chandlery Ltd', jurisdiction: 'GB', identifiers: [{ scheme: 'phone', value: '+44 20 7946 0011' }] },
+      WHO,
+    );
     const summary = await sweep(ctx, WHO);
     const items = await listReviewItems(ctx, { limit: 1000 });
     const pair = (a: number, b: number) => items.find((i) => [i.leftCounterpartyId, i.rightCounterpartyId].sort().join() === [a, b].sort().join());

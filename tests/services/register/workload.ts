@@ -21,7 +21,7 @@ import {
   withdrawMention,
   type RegisterContext,
 } from '../../../services/register/index.ts';
-import { WHO } from './helpers.ts';
+import { WHO } from './support.ts';
 
 /** Invented stems; each is written a few ways so that links, reviews and new counterparties all happen. */
 const STEMS = ['Brindlecombe Optics', 'Quillmarsh Freight', 'Ostrava Pine Joinery', 'Tellisford Bakeries', 'Marrowgate Analytics', 'Hobblestone Paper'];
@@ -30,7 +30,12 @@ const FORMS = ['Ltd', 'Limited', 'GmbH', 'Inc.', '', 'LLC'];
 export function randomName(rng: Random): string {
   const stem = rng.pick(STEMS);
   const form = rng.pick(FORMS);
-  const typo = rng.chance(0.15) ? stem.replace(/o/, '0').replace('0', 'o').replace(/e(?=[^e]*$)/, '') : stem;
+  const typo = rng.chance(0.15)
+    ? stem
+        .replace(/o/, '0')
+        .replace('0', 'o')
+        .replace(/e(?=[^e]*$)/, '')
+    : stem;
   return `${typo}${form ? ` ${form}` : ''}`;
 }
 
@@ -59,7 +64,11 @@ export async function runWorkload(ctx: RegisterContext, rng: Random, steps: numb
     const roll = rng.next();
     try {
       if (roll < 0.4) {
-        const r = await resolveMention(ctx, { source: prefix, externalId: `m${mentionNo++}`, text: randomName(rng), ...(rng.chance(0.5) ? { country: rng.pick(['GB', 'DE', 'US']) } : {}) }, WHO);
+        const r = await resolveMention(
+          ctx,
+          { source: prefix, externalId: `m${mentionNo++}`, text: randomName(rng), ...(rng.chance(0.5) ? { country: rng.pick(['GB', 'DE', 'US']) } : {}) },
+          WHO,
+        );
         if (r.eventId) eventIds.push(r.eventId);
       } else if (roll < 0.5) {
         const ids = await activeIds(ctx);
@@ -70,7 +79,9 @@ export async function runWorkload(ctx: RegisterContext, rng: Random, steps: numb
           const m = rng.pick(mentions);
           const ids = await activeIds(ctx);
           const target = rng.chance(0.5) ? undefined : rng.pick(ids);
-          eventIds.push((await splitCounterparty(ctx, m.counterpartyId, { mentionIds: [m.id], ...(target !== undefined ? { targetId: target } : {}) }, WHO)).eventId);
+          eventIds.push(
+            (await splitCounterparty(ctx, m.counterpartyId, { mentionIds: [m.id], ...(target !== undefined ? { targetId: target } : {}) }, WHO)).eventId,
+          );
         }
       } else if (roll < 0.63) {
         const ids = await activeIds(ctx);

@@ -130,7 +130,9 @@ export const ID_PARAM = {
 } as const;
 
 /** Path parameters that are all ids, e.g. idParams('id', 'relationId'). */
-export function idParams<const N extends string>(...names: N[]): { type: 'object'; required: N[]; additionalProperties: false; properties: Record<N, typeof ID> } {
+export function idParams<const N extends string>(
+  ...names: N[]
+): { type: 'object'; required: N[]; additionalProperties: false; properties: Record<N, typeof ID> } {
   return { type: 'object', required: names, additionalProperties: false, properties: Object.fromEntries(names.map((n) => [n, ID])) as Record<N, typeof ID> };
 }
 
@@ -286,7 +288,11 @@ export const MENTION_OUT = {
     score: { type: 'number', nullable: true },
     evidence: { type: 'object', additionalProperties: true },
     confirmedBy: { type: 'string', nullable: true },
-    reviewItemId: { type: 'integer', nullable: true, description: 'GET /v1/mentions/{id}: the open review item about this mention (GET /v1/review-items/{id}), null when none' },
+    reviewItemId: {
+      type: 'integer',
+      nullable: true,
+      description: 'GET /v1/mentions/{id}: the open review item about this mention (GET /v1/review-items/{id}), null when none',
+    },
     legalForm: {
       type: 'object',
       nullable: true,
@@ -312,7 +318,17 @@ export const EVENT_OUT = {
     undoesEventId: { type: 'integer', nullable: true },
     requestId: { type: 'string', nullable: true },
   },
-  example: { id: 118, type: 'merged', actor: 'legal operations (admin key)', at: '2026-11-30T10:00:00.000Z', reason: 'same EIN', details: { survivorId: 42, mergedIds: [57] }, counterpartyIds: [42, 57], mentionIds: [], undoesEventId: null },
+  example: {
+    id: 118,
+    type: 'merged',
+    actor: 'legal operations (admin key)',
+    at: '2026-11-30T10:00:00.000Z',
+    reason: 'same EIN',
+    details: { survivorId: 42, mergedIds: [57] },
+    counterpartyIds: [42, 57],
+    mentionIds: [],
+    undoesEventId: null,
+  },
 } as const;
 
 export const CHANGE_RESULT = {

@@ -38,9 +38,13 @@ export const CONTRACTS_UPLOAD_LIMIT = 100 * 1024 * 1024;
 const ZIP = 'application/zip';
 
 const tooLarge = (): ApiError =>
-  new ApiError('PAYLOAD_TOO_LARGE', `the upload is over the limit of ${CONTRACTS_UPLOAD_LIMIT} bytes (100 MiB): split the archive, or import it with \`cpreg contracts import\``, {
-    extensions: { limitBytes: CONTRACTS_UPLOAD_LIMIT },
-  });
+  new ApiError(
+    'PAYLOAD_TOO_LARGE',
+    `the upload is over the limit of ${CONTRACTS_UPLOAD_LIMIT} bytes (100 MiB): split the archive, or import it with \`cpreg contracts import\``,
+    {
+      extensions: { limitBytes: CONTRACTS_UPLOAD_LIMIT },
+    },
+  );
 
 /**
  * Streams one upload to `file`, counting on from `before` bytes (over the limit it stops and answers 413) and
@@ -69,7 +73,10 @@ async function saveUpload(upload: Readable, file: string, hash: Hash, before = 0
 /** A file name of a multipart part made safe as a file name in the upload folder (and unique there). */
 function uploadName(filename: string | undefined, taken: Set<string>): string {
   const last = (filename ?? '').split(/[\\/]/).pop()!;
-  const base = [...last].filter((ch) => ch.charCodeAt(0) >= 0x20 && ch.charCodeAt(0) !== 0x7f).join('').slice(0, 200);
+  const base = [...last]
+    .filter((ch) => ch.charCodeAt(0) >= 0x20 && ch.charCodeAt(0) !== 0x7f)
+    .join('')
+    .slice(0, 200);
   let name = base === '' || base === '.' || base === '..' ? `file-${taken.size + 1}` : base;
   for (let n = 2; taken.has(name); n++) name = `${n}-${base}`;
   taken.add(name);
@@ -132,7 +139,16 @@ export const contractsJobRoutes: RoutePlugin = async (app, deps) => {
         response: {
           202: {
             ...JOB_OUT,
-            example: { id: 12, kind: 'contracts', status: 'queued', actor: 'legal-ops', params: { source: 'files', input: 'upload.zip', partitioned: true, partitionSize: 25 }, progress: { stage: 'staging', filesRead: 0, filesTotal: 0 }, result: null, error: null },
+            example: {
+              id: 12,
+              kind: 'contracts',
+              status: 'queued',
+              actor: 'legal-ops',
+              params: { source: 'files', input: 'upload.zip', partitioned: true, partitionSize: 25 },
+              progress: { stage: 'staging', filesRead: 0, filesTotal: 0 },
+              result: null,
+              error: null,
+            },
           },
           ...problemResponses(422),
         },
@@ -147,7 +163,10 @@ export const contractsJobRoutes: RoutePlugin = async (app, deps) => {
       else {
         const body = request.body as Readable;
         if (!body || typeof (body as { pipe?: unknown }).pipe !== 'function') {
-          throw new ApiError('UNSUPPORTED_MEDIA_TYPE', `send the zip as Content-Type ${ZIP}, or the zip or the documents as the file parts of a multipart/form-data upload`);
+          throw new ApiError(
+            'UNSUPPORTED_MEDIA_TYPE',
+            `send the zip as Content-Type ${ZIP}, or the zip or the documents as the file parts of a multipart/form-data upload`,
+          );
         }
         const file = join(tmpdir(), `cpreg-contracts-${randomBytes(8).toString('hex')}.zip`);
         upload = { path: file, folder: false, inputName: 'upload.zip', cleanup: file };
@@ -163,10 +182,12 @@ export const contractsJobRoutes: RoutePlugin = async (app, deps) => {
       const key = idempotencyKeyOf(request);
       const claim = key && request.apiKey ? { keyId: request.apiKey.id, key } : undefined;
       if (claim) {
-        const claimed = await claimIdempotencyKey(db, { ...claim, method: 'POST', path: request.url, hash: hash.digest('hex') }).catch(async (error: unknown) => {
-          await removeUpload();
-          throw error;
-        });
+        const claimed = await claimIdempotencyKey(db, { ...claim, method: 'POST', path: request.url, hash: hash.digest('hex') }).catch(
+          async (error: unknown) => {
+            await removeUpload();
+            throw error;
+          },
+        );
         if (claimed.kind === 'replay') {
           await removeUpload();
           return sendStoredAnswer(reply, claimed.answer);
@@ -196,7 +217,12 @@ export const contractsJobRoutes: RoutePlugin = async (app, deps) => {
       void submitted.staged.finally(removeUpload);
       const job = await jobView(db, submitted.jobId);
       if (claim) {
-        await storeIdempotentAnswer(db, claim, { statusCode: 202, contentType: 'application/json; charset=utf-8', headers: { location: `/v1/jobs/${submitted.jobId}` }, body: JSON.stringify(job) });
+        await storeIdempotentAnswer(db, claim, {
+          statusCode: 202,
+          contentType: 'application/json; charset=utf-8',
+          headers: { location: `/v1/jobs/${submitted.jobId}` },
+          body: JSON.stringify(job),
+        });
       }
       reply.code(202).header('location', `/v1/jobs/${submitted.jobId}`);
       return job;

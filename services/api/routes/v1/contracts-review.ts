@@ -10,7 +10,22 @@ import { currentModel } from '../../../register/matching/model.ts';
 import { findContractId, getContract } from '../../../../db/queries/contracts.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import type { RoutePlugin } from '../../types.ts';
-import { ID, ID_PARAM, IDENTIFIER, MENTION_OUT, NAME, PAGE_QUERY, REASON, SOURCE_ID, actorOf, decodeCursor, encodeCursor, page, pagedOf, v1Scope } from './common.ts';
+import {
+  ID,
+  ID_PARAM,
+  IDENTIFIER,
+  MENTION_OUT,
+  NAME,
+  PAGE_QUERY,
+  REASON,
+  SOURCE_ID,
+  actorOf,
+  decodeCursor,
+  encodeCursor,
+  page,
+  pagedOf,
+  v1Scope,
+} from './common.ts';
 import { RESOLVE_OUT, RESOLVE_REQUIRED } from './mentions.ts';
 import { withLegalForm } from './legal-form.ts';
 
@@ -43,13 +58,25 @@ const CONTRACT_OUT = {
         },
       },
     },
-    definedTerms: { type: 'array', items: { type: 'object', properties: { term: { type: 'string' }, partyIndex: { type: 'integer', nullable: true }, collective: { type: 'boolean' } } } },
+    definedTerms: {
+      type: 'array',
+      items: { type: 'object', properties: { term: { type: 'string' }, partyIndex: { type: 'integer', nullable: true }, collective: { type: 'boolean' } } },
+    },
     createdAt: { type: 'string' },
     updatedAt: { type: 'string' },
   },
 } as const;
 
-const SUMMARY = { type: 'object', properties: { id: { type: 'integer' }, canonicalName: { type: 'string' }, jurisdiction: { type: 'string', nullable: true }, status: { type: 'string' }, version: { type: 'integer' } } } as const;
+const SUMMARY = {
+  type: 'object',
+  properties: {
+    id: { type: 'integer' },
+    canonicalName: { type: 'string' },
+    jurisdiction: { type: 'string', nullable: true },
+    status: { type: 'string' },
+    version: { type: 'integer' },
+  },
+} as const;
 
 interface ReviewQuery {
   cursor?: string;
@@ -80,12 +107,17 @@ const REVIEW_ITEM_OUT = {
     mention: { ...MENTION_OUT, nullable: true },
     left: { ...SUMMARY, nullable: true },
     right: { ...SUMMARY, nullable: true },
-    priority: { type: 'number', description: 'order=priority: the group\'s rank value (higher first)' },
+    priority: { type: 'number', description: "order=priority: the group's rank value (higher first)" },
     uncertainty: { type: 'number', description: 'order=priority: 1 midway between the thresholds, 0 at either' },
     group: {
       type: 'object',
       description: 'order=priority: the open items one decision settles (scope "group" on the decision)',
-      properties: { key: { type: 'string' }, size: { type: 'integer' }, itemIds: { type: 'array', items: { type: 'integer' } }, contracts: { type: 'integer' } },
+      properties: {
+        key: { type: 'string' },
+        size: { type: 'integer' },
+        itemIds: { type: 'array', items: { type: 'integer' } },
+        contracts: { type: 'integer' },
+      },
     },
     decision: { type: 'string', nullable: true },
     decidedBy: { type: 'string', nullable: true },
@@ -94,7 +126,12 @@ const REVIEW_ITEM_OUT = {
   },
 } as const;
 
-const DECISION_OUT = { eventId: { type: 'integer' }, reviewItemId: { type: 'integer' }, decision: { type: 'string' }, counterpartyId: { type: 'integer', nullable: true } } as const;
+const DECISION_OUT = {
+  eventId: { type: 'integer' },
+  reviewItemId: { type: 'integer' },
+  decision: { type: 'string' },
+  counterpartyId: { type: 'integer', nullable: true },
+} as const;
 
 /** The review list also says how many items are open in all (the console's counter). */
 function withOpenCount(schema: object): object {
@@ -115,7 +152,7 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
         summary: 'Store a contract, find its parties and defined terms, and resolve each party into the register',
         description:
           'Body up to 1 MB. The same (source, externalId) with the same text answers the stored contract (alreadyStored). Mentions that named this contract before it arrived are resolved again (reresolved). ' +
-          '`parties` (optional): the parties the contract system already knows. They are reconciled with the parties read from the text (`reconciliation`: which given party is which, given parties the text does not name, parties of the text not given, roles and defined terms that differ); the identifiers given for a party the text names are added to its mention, which is resolved again (`identifiersAdded`). The text stays the source of the contract\'s parties: a given party it does not name is reported, not added.',
+          "`parties` (optional): the parties the contract system already knows. They are reconciled with the parties read from the text (`reconciliation`: which given party is which, given parties the text does not name, parties of the text not given, roles and defined terms that differ); the identifiers given for a party the text names are added to its mention, which is resolved again (`identifiersAdded`). The text stays the source of the contract's parties: a given party it does not name is reported, not added.",
         tags: ['contracts'],
         body: {
           type: 'object',
@@ -133,11 +170,21 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
                 type: 'object',
                 required: ['name'],
                 additionalProperties: false,
-                properties: { name: NAME, role: { type: 'string', minLength: 1, maxLength: 300 }, definedTerm: { type: 'string', minLength: 1, maxLength: 300 }, identifiers: { type: 'array', maxItems: 50, items: IDENTIFIER } },
+                properties: {
+                  name: NAME,
+                  role: { type: 'string', minLength: 1, maxLength: 300 },
+                  definedTerm: { type: 'string', minLength: 1, maxLength: 300 },
+                  identifiers: { type: 'array', maxItems: 50, items: IDENTIFIER },
+                },
               },
             },
           },
-          example: { source: 'clm', externalId: 'C-2031', title: 'Supply Agreement', text: 'This Supply Agreement is made between Brackenridge Fabrication, Inc. ("Supplier") and Orvane Trading B.V. ("Buyer")…' },
+          example: {
+            source: 'clm',
+            externalId: 'C-2031',
+            title: 'Supply Agreement',
+            text: 'This Supply Agreement is made between Brackenridge Fabrication, Inc. ("Supplier") and Orvane Trading B.V. ("Buyer")…',
+          },
         },
         response: {
           200: {
@@ -146,7 +193,19 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
             properties: {
               contractId: { type: 'integer' },
               alreadyStored: { type: 'boolean' },
-              parties: { type: 'array', items: { type: 'object', required: [...RESOLVE_REQUIRED, 'position', 'role', 'terms'], properties: { ...RESOLVE_OUT.properties, position: { type: 'integer' }, role: { type: 'string', nullable: true }, terms: { type: 'array', items: { type: 'string' } } } } },
+              parties: {
+                type: 'array',
+                items: {
+                  type: 'object',
+                  required: [...RESOLVE_REQUIRED, 'position', 'role', 'terms'],
+                  properties: {
+                    ...RESOLVE_OUT.properties,
+                    position: { type: 'integer' },
+                    role: { type: 'string', nullable: true },
+                    terms: { type: 'array', items: { type: 'string' } },
+                  },
+                },
+              },
               reresolved: { type: 'array', items: RESOLVE_OUT },
               contract: CONTRACT_OUT,
               reconciliation: {
@@ -158,7 +217,16 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
                   parsedNotGiven: { type: 'array', items: { type: 'integer' } },
                   disagreements: {
                     type: 'array',
-                    items: { type: 'object', properties: { given: { type: 'integer' }, position: { type: 'integer' }, field: { type: 'string', enum: ['role', 'definedTerm'] }, givenValue: { type: 'string' }, parsedValue: { type: 'string', nullable: true } } },
+                    items: {
+                      type: 'object',
+                      properties: {
+                        given: { type: 'integer' },
+                        position: { type: 'integer' },
+                        field: { type: 'string', enum: ['role', 'definedTerm'] },
+                        givenValue: { type: 'string' },
+                        parsedValue: { type: 'string', nullable: true },
+                      },
+                    },
                   },
                 },
               },
@@ -191,22 +259,45 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
           properties: { q: { type: 'string', maxLength: 1000 }, source: SOURCE_ID, externalId: SOURCE_ID, ...PAGE_QUERY },
         },
         response: {
-          200: pagedOf({ type: 'object', properties: { id: { type: 'integer' }, source: { type: 'string' }, externalId: { type: 'string' }, title: { type: 'string', nullable: true }, status: { type: 'string' }, createdAt: { type: 'string' } } }),
+          200: pagedOf({
+            type: 'object',
+            properties: {
+              id: { type: 'integer' },
+              source: { type: 'string' },
+              externalId: { type: 'string' },
+              title: { type: 'string', nullable: true },
+              status: { type: 'string' },
+              createdAt: { type: 'string' },
+            },
+          }),
         },
       },
     },
     async (request) => {
       const { q, source, externalId, limit } = request.query;
-      let query = db.selectFrom('contract').select(['id', 'source', 'external_id', 'title', 'status', 'created_at']).where('id', '>', decodeCursor(request.query.cursor));
+      let query = db
+        .selectFrom('contract')
+        .select(['id', 'source', 'external_id', 'title', 'status', 'created_at'])
+        .where('id', '>', decodeCursor(request.query.cursor));
       if (source !== undefined) query = query.where('source', '=', source);
       if (externalId !== undefined) query = query.where('external_id', '=', externalId);
       if (q) {
         const like = `%${q.toLowerCase().replaceAll('\\', '\\\\').replaceAll('%', '\\%').replaceAll('_', '\\_')}%`;
         query = query.where((eb) => eb.or([eb(sql`lower(coalesce(title, ''))`, 'like', like), eb('external_id', '=', q)]));
       }
-      const rows = await query.orderBy('id').limit(limit + 1).execute();
+      const rows = await query
+        .orderBy('id')
+        .limit(limit + 1)
+        .execute();
       return page(
-        rows.map((r) => ({ id: Number(r.id), source: r.source, externalId: r.external_id, title: r.title, status: r.status, createdAt: new Date(r.created_at).toISOString() })),
+        rows.map((r) => ({
+          id: Number(r.id),
+          source: r.source,
+          externalId: r.external_id,
+          title: r.title,
+          status: r.status,
+          createdAt: new Date(r.created_at).toISOString(),
+        })),
         limit,
       );
     },
@@ -216,7 +307,12 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
     '/v1/contracts/:id',
     {
       config: { scope: 'read' },
-      schema: { summary: 'A contract with its parties (roles, terms, resolution) and defined terms', tags: ['contracts'], params: ID_PARAM, response: { 200: CONTRACT_OUT, ...problemResponses(404) } },
+      schema: {
+        summary: 'A contract with its parties (roles, terms, resolution) and defined terms',
+        tags: ['contracts'],
+        params: ID_PARAM,
+        response: { 200: CONTRACT_OUT, ...problemResponses(404) },
+      },
     },
     async (request) => {
       const contract = await getContract(db, request.params.id);
@@ -232,7 +328,12 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
       schema: {
         summary: 'The contract with this source and external id',
         tags: ['contracts'],
-        querystring: { type: 'object', required: ['source', 'externalId'], additionalProperties: false, properties: { source: SOURCE_ID, externalId: SOURCE_ID } },
+        querystring: {
+          type: 'object',
+          required: ['source', 'externalId'],
+          additionalProperties: false,
+          properties: { source: SOURCE_ID, externalId: SOURCE_ID },
+        },
         response: { 200: CONTRACT_OUT, ...problemResponses(404) },
       },
     },
@@ -261,7 +362,12 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
           additionalProperties: false,
           properties: {
             ...PAGE_QUERY,
-            order: { type: 'string', enum: ['priority', 'oldest'], default: 'priority', description: 'priority applies to open items; other statuses come oldest first' },
+            order: {
+              type: 'string',
+              enum: ['priority', 'oldest'],
+              default: 'priority',
+              description: 'priority applies to open items; other statuses come oldest first',
+            },
             status: { type: 'string', enum: ['open', 'decided', 'obsolete'], default: 'open' },
             kind: { type: 'string', enum: ['mention_link', 'duplicate', 'affiliate'] },
             mentionId: { ...ID, description: 'items about this mention' },
@@ -279,7 +385,11 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
       const { limit, order, cursor: _cursor, status, ...narrow } = request.query;
       const filter = { ...narrow, status };
       const start = decodeCursor(request.query.cursor);
-      const total = await db.selectFrom('review_item').select((eb) => eb.fn.countAll<string>().as('n')).where('status', '=', 'open').executeTakeFirstOrThrow();
+      const total = await db
+        .selectFrom('review_item')
+        .select((eb) => eb.fn.countAll<string>().as('n'))
+        .where('status', '=', 'open')
+        .executeTakeFirstOrThrow();
       if (order === 'oldest' || status !== 'open') {
         const items = await listReviewItems(ctx, { afterId: start, limit: limit + 1, filter });
         const withForms = items.map((item) => ({ ...item, mention: item.mention ? withLegalForm(item.mention) : null }));
@@ -317,7 +427,8 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
     {
       config: { scope: 'admin' },
       schema: {
-        summary: 'Decide a review item: same (merge or link), different (a cannot-link every later resolution honours) or not_a_party (a mention that names no party)',
+        summary:
+          'Decide a review item: same (merge or link), different (a cannot-link every later resolution honours) or not_a_party (a mention that names no party)',
         tags: ['review'],
         params: ID_PARAM,
         body: {
@@ -328,14 +439,15 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
             decision: {
               type: 'string',
               enum: ['same', 'different', 'not_a_party'],
-              description: 'not_a_party (mention items only): the mention names no party (a place, a document word, a signer); it is set aside and never taught to the weights',
+              description:
+                'not_a_party (mention items only): the mention names no party (a place, a document word, a signer); it is set aside and never taught to the weights',
             },
             reason: REASON,
             scope: {
               type: 'string',
               enum: ['item', 'group'],
               default: 'item',
-              description: 'group: the same decision for every open item of this item\'s group (see GET /v1/review-items); each is its own history event',
+              description: "group: the same decision for every open item of this item's group (see GET /v1/review-items); each is its own history event",
             },
           },
           example: { decision: 'different', reason: 'different registration numbers' },
@@ -374,7 +486,10 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
         querystring: {
           type: 'object',
           additionalProperties: false,
-          properties: { limit: { type: 'integer', minimum: 1, maximum: 100_000, default: 5000, description: 'how many recent scored mentions' }, buckets: { type: 'integer', minimum: 2, maximum: 200, default: 40 } },
+          properties: {
+            limit: { type: 'integer', minimum: 1, maximum: 100_000, default: 5000, description: 'how many recent scored mentions' },
+            buckets: { type: 'integer', minimum: 2, maximum: 200, default: 40 },
+          },
         },
         response: {
           200: {
@@ -385,7 +500,18 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
               count: { type: 'integer' },
               min: { type: 'number', nullable: true },
               max: { type: 'number', nullable: true },
-              buckets: { type: 'array', items: { type: 'object', properties: { from: { type: 'number' }, to: { type: 'number' }, count: { type: 'integer' }, byStatus: { type: 'object', additionalProperties: { type: 'integer' } } } } },
+              buckets: {
+                type: 'array',
+                items: {
+                  type: 'object',
+                  properties: {
+                    from: { type: 'number' },
+                    to: { type: 'number' },
+                    count: { type: 'integer' },
+                    byStatus: { type: 'object', additionalProperties: { type: 'integer' } },
+                  },
+                },
+              },
             },
           },
         },
@@ -407,7 +533,12 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
       const max = scores.length ? Math.max(...scores, model.linkAt) : null;
       const n = request.query.buckets;
       const width = min === null || max === null || max === min ? 1 : (max - min) / n;
-      const buckets = Array.from({ length: min === null ? 0 : n }, (_, i) => ({ from: min! + i * width, to: min! + (i + 1) * width, count: 0, byStatus: {} as Record<string, number> }));
+      const buckets = Array.from({ length: min === null ? 0 : n }, (_, i) => ({
+        from: min! + i * width,
+        to: min! + (i + 1) * width,
+        count: 0,
+        byStatus: {} as Record<string, number>,
+      }));
       rows.forEach((r, i) => {
         const b = buckets[Math.min(n - 1, Math.floor((scores[i]! - min!) / width))]!;
         b.count++;

@@ -84,7 +84,11 @@ const SEARCH_HIT = {
     jurisdiction: { type: 'string', nullable: true },
     legalForm: { type: 'string', nullable: true },
     matchedName: { type: 'string' },
-    highlight: { type: 'array', items: { type: 'array', items: { type: 'integer' }, minItems: 2, maxItems: 2 }, description: '[start, end) UTF-16 offsets in matchedName' },
+    highlight: {
+      type: 'array',
+      items: { type: 'array', items: { type: 'integer' }, minItems: 2, maxItems: 2 },
+      description: '[start, end) UTF-16 offsets in matchedName',
+    },
     score: { type: 'number', nullable: true, description: 'match score of the best name, in bits of evidence (null: found by partial text only)' },
     version: { type: 'integer' },
   },
@@ -108,7 +112,18 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
         },
         response: {
           200: pagedOf(SEARCH_HIT, {
-            items: [{ id: 42, canonicalName: 'Brackenridge Fabrication, Inc.', jurisdiction: 'US-DE', legalForm: 'inc', matchedName: 'Brackenridge Fabrication, Inc.', highlight: [[0, 12]], score: 14.2, version: 3 }],
+            items: [
+              {
+                id: 42,
+                canonicalName: 'Brackenridge Fabrication, Inc.',
+                jurisdiction: 'US-DE',
+                legalForm: 'inc',
+                matchedName: 'Brackenridge Fabrication, Inc.',
+                highlight: [[0, 12]],
+                score: 14.2,
+                version: 3,
+              },
+            ],
             nextCursor: null,
           }),
         },
@@ -120,7 +135,18 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
       if (!q || q.trim().length === 0) {
         const ids = await activeIdsAfter(db, offset, limit + 1);
         const summaries = await getSummaries(db, ids);
-        const items = ids.map((id) => summaries.get(id)!).map((s) => ({ id: s.id, canonicalName: s.canonicalName, jurisdiction: s.jurisdiction, legalForm: legalFormFamily(s.canonicalName), matchedName: s.canonicalName, highlight: [], score: null, version: s.version }));
+        const items = ids
+          .map((id) => summaries.get(id)!)
+          .map((s) => ({
+            id: s.id,
+            canonicalName: s.canonicalName,
+            jurisdiction: s.jurisdiction,
+            legalForm: legalFormFamily(s.canonicalName),
+            matchedName: s.canonicalName,
+            highlight: [],
+            score: null,
+            version: s.version,
+          }));
         return page(items, limit);
       }
       const wanted = Math.min(MAX_SEARCH_RESULTS, offset + limit);
@@ -135,7 +161,9 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
     const { model } = await currentModel(db);
     const scored = await scoredCandidates(db, { analysis, identifiers: [] }, model);
     const seen = new Set(scored.map((s) => s.counterpartyId));
-    const folded = words(q).map((w) => w.folded).join(' ');
+    const folded = words(q)
+      .map((w) => w.folded)
+      .join(' ');
     const partial = (await namesLike(db, folded, wanted)).filter((p) => !seen.has(p.counterpartyId) && (seen.add(p.counterpartyId), true));
     const summaries = await getSummaries(db, [...scored.map((s) => s.counterpartyId), ...partial.map((p) => p.counterpartyId)]);
     const out = [
@@ -146,7 +174,14 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
       .slice(0, wanted)
       .map((hit) => {
         const s = summaries.get(hit.id)!;
-        return { ...hit, canonicalName: s.canonicalName, jurisdiction: s.jurisdiction, legalForm: legalFormFamily(s.canonicalName), highlight: highlightRanges(hit.matchedName, q), version: s.version };
+        return {
+          ...hit,
+          canonicalName: s.canonicalName,
+          jurisdiction: s.jurisdiction,
+          legalForm: legalFormFamily(s.canonicalName),
+          highlight: highlightRanges(hit.matchedName, q),
+          version: s.version,
+        };
       });
     return out;
   }
@@ -186,11 +221,25 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
             name: { ...NAME, deprecated: true, description: 'the earlier name of canonicalName, still accepted; send one of the two' },
             kind: { type: 'string', enum: ['organisation', 'person', 'unknown'] },
             jurisdiction: COUNTRY,
-            otherNames: { type: 'array', maxItems: 100, items: { type: 'object', required: ['name', 'kind'], additionalProperties: false, properties: { name: NAME, kind: { type: 'string', enum: [...NAME_KINDS] } } } },
+            otherNames: {
+              type: 'array',
+              maxItems: 100,
+              items: {
+                type: 'object',
+                required: ['name', 'kind'],
+                additionalProperties: false,
+                properties: { name: NAME, kind: { type: 'string', enum: [...NAME_KINDS] } },
+              },
+            },
             identifiers: { type: 'array', maxItems: 100, items: IDENTIFIER },
             reason: REASON,
           },
-          example: { canonicalName: 'Harrowgate Tooling Ltd', jurisdiction: 'GB', identifiers: [{ scheme: 'gb_company', value: '01234567' }], reason: 'onboarded by procurement' },
+          example: {
+            canonicalName: 'Harrowgate Tooling Ltd',
+            jurisdiction: 'GB',
+            identifiers: [{ scheme: 'gb_company', value: '01234567' }],
+            reason: 'onboarded by procurement',
+          },
         },
         response: { 201: CHANGE_RESULT, ...problemResponses(409) },
       },
@@ -223,14 +272,32 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
           properties: {
             canonicalName: { ...NAME, description: 'the new canonical name, the field GET answers (confirmed: the rules keep it)' },
             name: { ...NAME, deprecated: true, description: 'the earlier name of canonicalName, still accepted; send one of the two' },
-            jurisdiction: { ...COUNTRY, nullable: true, description: 'ISO 3166-1 alpha-2 or ISO 3166-2 code; null clears it. Identifiers added in the same request are read under it.' },
-            addNames: { type: 'array', maxItems: 100, items: { type: 'object', required: ['name', 'kind'], additionalProperties: false, properties: { name: NAME, kind: { type: 'string', enum: [...NAME_KINDS] } } } },
+            jurisdiction: {
+              ...COUNTRY,
+              nullable: true,
+              description: 'ISO 3166-1 alpha-2 or ISO 3166-2 code; null clears it. Identifiers added in the same request are read under it.',
+            },
+            addNames: {
+              type: 'array',
+              maxItems: 100,
+              items: {
+                type: 'object',
+                required: ['name', 'kind'],
+                additionalProperties: false,
+                properties: { name: NAME, kind: { type: 'string', enum: [...NAME_KINDS] } },
+              },
+            },
             removeNameIds: { type: 'array', maxItems: 100, items: ID },
             addIdentifiers: { type: 'array', maxItems: 100, items: IDENTIFIER },
             removeIdentifierIds: { type: 'array', maxItems: 100, items: ID },
             reason: REASON,
           },
-          example: { canonicalName: 'Brackenridge Fabrication, Inc.', jurisdiction: 'US-DE', addNames: [{ name: 'Brackenridge Fab', kind: 'trade' }], reason: 'trade name from the invoice' },
+          example: {
+            canonicalName: 'Brackenridge Fabrication, Inc.',
+            jurisdiction: 'US-DE',
+            addNames: [{ name: 'Brackenridge Fab', kind: 'trade' }],
+            reason: 'trade name from the invoice',
+          },
         },
         response: { 200: COUNTERPARTY_OUT, ...problemResponses(404, 409, 412, 428) },
       },
@@ -247,13 +314,24 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
       const jurisdiction = body.jurisdiction === undefined ? undefined : checkJurisdiction('jurisdiction', body.jurisdiction);
       (body.addNames ?? []).forEach((n, i) => checkName(`addNames/${i}/name`, n.name));
       const current = await getCounterparty(ctx, id);
-      if (current.merged) throw new ApiError('COUNTERPARTY_MERGED', `counterparty ${id} was merged into ${current.counterparty.id}; change the survivor`, { extensions: { survivorId: current.counterparty.id } });
-      (body.addIdentifiers ?? []).forEach((x, i) => normaliseIdentifierOrThrow(`addIdentifiers/${i}`, x, jurisdiction === undefined ? current.counterparty.jurisdiction : jurisdiction));
+      if (current.merged)
+        throw new ApiError('COUNTERPARTY_MERGED', `counterparty ${id} was merged into ${current.counterparty.id}; change the survivor`, {
+          extensions: { survivorId: current.counterparty.id },
+        });
+      (body.addIdentifiers ?? []).forEach((x, i) =>
+        normaliseIdentifierOrThrow(`addIdentifiers/${i}`, x, jurisdiction === undefined ? current.counterparty.jurisdiction : jurisdiction),
+      );
       for (const nameId of body.removeNameIds ?? []) {
-        if (!current.counterparty.names.some((n) => n.id === nameId)) throw new ApiError('VALIDATION_FAILED', `name ${nameId} is not a name of counterparty ${id}`, { errors: [{ pointer: '/removeNameIds', message: `name ${nameId} is not a name of counterparty ${id}` }] });
+        if (!current.counterparty.names.some((n) => n.id === nameId))
+          throw new ApiError('VALIDATION_FAILED', `name ${nameId} is not a name of counterparty ${id}`, {
+            errors: [{ pointer: '/removeNameIds', message: `name ${nameId} is not a name of counterparty ${id}` }],
+          });
       }
       for (const identifierId of body.removeIdentifierIds ?? []) {
-        if (!current.counterparty.identifiers.some((n) => n.id === identifierId)) throw new ApiError('VALIDATION_FAILED', `identifier ${identifierId} is not an identifier of counterparty ${id}`, { errors: [{ pointer: '/removeIdentifierIds', message: `identifier ${identifierId} is not an identifier of counterparty ${id}` }] });
+        if (!current.counterparty.identifiers.some((n) => n.id === identifierId))
+          throw new ApiError('VALIDATION_FAILED', `identifier ${identifierId} is not an identifier of counterparty ${id}`, {
+            errors: [{ pointer: '/removeIdentifierIds', message: `identifier ${identifierId} is not an identifier of counterparty ${id}` }],
+          });
       }
       let version = expected;
       if (newName !== undefined) version = (await renameCounterparty(ctx, id, { name: newName, expectedVersion: version }, who)).version;
@@ -261,7 +339,8 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
       for (const n of body.addNames ?? []) version = (await addName(ctx, id, { ...n, expectedVersion: version }, who)).version;
       for (const x of body.addIdentifiers ?? []) version = (await addIdentifier(ctx, id, { ...x, expectedVersion: version }, who)).version;
       for (const nameId of body.removeNameIds ?? []) version = (await removeName(ctx, id, nameId, { ...who, expectedVersion: version })).version;
-      for (const identifierId of body.removeIdentifierIds ?? []) version = (await removeIdentifier(ctx, id, identifierId, { ...who, expectedVersion: version })).version;
+      for (const identifierId of body.removeIdentifierIds ?? [])
+        version = (await removeIdentifier(ctx, id, identifierId, { ...who, expectedVersion: version })).version;
       const after = await getCounterparty(ctx, id);
       reply.header('etag', etagOf(after.counterparty.id, after.counterparty.version));
       return withEtag(after.counterparty);
@@ -284,15 +363,36 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
               type: 'array',
               minItems: 2,
               maxItems: 100,
-              items: { type: 'object', required: ['id', 'etag'], additionalProperties: false, properties: { id: ID, etag: { type: 'string', maxLength: 100 } } },
+              items: {
+                type: 'object',
+                required: ['id', 'etag'],
+                additionalProperties: false,
+                properties: { id: ID, etag: { type: 'string', maxLength: 100 } },
+              },
             },
             survivorId: ID,
             reason: { ...REASON, minLength: 1 },
           },
-          example: { items: [{ id: 42, etag: '"cp42.v3"' }, { id: 57, etag: '"cp57.v1"' }], survivorId: 42, reason: 'same EIN on both' },
+          example: {
+            items: [
+              { id: 42, etag: '"cp42.v3"' },
+              { id: 57, etag: '"cp57.v1"' },
+            ],
+            survivorId: 42,
+            reason: 'same EIN on both',
+          },
         },
         response: {
-          200: { type: 'object', properties: { eventId: { type: 'integer' }, survivorId: { type: 'integer' }, mergedIds: { type: 'array', items: { type: 'integer' } }, version: { type: 'integer' }, etag: { type: 'string' } } },
+          200: {
+            type: 'object',
+            properties: {
+              eventId: { type: 'integer' },
+              survivorId: { type: 'integer' },
+              mergedIds: { type: 'array', items: { type: 'integer' } },
+              version: { type: 'integer' },
+              etag: { type: 'string' },
+            },
+          },
           ...problemResponses(404, 409, 412),
         },
       },
@@ -306,7 +406,11 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
         }
         expectedVersions[item.id] = version;
       });
-      const result = await mergeCounterparties(ctx, { ids: request.body.items.map((i) => i.id), survivorId: request.body.survivorId, expectedVersions }, actorOf(request, request.body.reason));
+      const result = await mergeCounterparties(
+        ctx,
+        { ids: request.body.items.map((i) => i.id), survivorId: request.body.survivorId, expectedVersions },
+        actorOf(request, request.body.reason),
+      );
       const etag = etagOf(result.survivorId, result.version);
       reply.header('etag', etag);
       return { ...result, etag };
@@ -333,7 +437,16 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
           example: { mentionIds: [311, 312], reason: 'these name the UK subsidiary' },
         },
         response: {
-          200: { type: 'object', properties: { eventId: { type: 'integer' }, sourceId: { type: 'integer' }, targetId: { type: 'integer' }, created: { type: 'boolean' }, movedMentionIds: { type: 'array', items: { type: 'integer' } } } },
+          200: {
+            type: 'object',
+            properties: {
+              eventId: { type: 'integer' },
+              sourceId: { type: 'integer' },
+              targetId: { type: 'integer' },
+              created: { type: 'boolean' },
+              movedMentionIds: { type: 'array', items: { type: 'integer' } },
+            },
+          },
           ...problemResponses(404, 409, 412),
         },
       },
@@ -341,7 +454,12 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
     async (request) => {
       const id = request.params.id;
       const expectedVersion = typeof request.headers['if-match'] === 'string' ? requireIfMatch(request, id) : undefined;
-      return splitCounterparty(ctx, id, { mentionIds: request.body.mentionIds, targetId: request.body.targetId, expectedVersion }, actorOf(request, request.body.reason));
+      return splitCounterparty(
+        ctx,
+        id,
+        { mentionIds: request.body.mentionIds, targetId: request.body.targetId, expectedVersion },
+        actorOf(request, request.body.reason),
+      );
     },
   );
 
@@ -357,10 +475,18 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
           type: 'object',
           required: ['toId', 'type'],
           additionalProperties: false,
-          properties: { toId: ID, type: { type: 'string', enum: [...RELATION_TYPES] }, since: { type: 'string', maxLength: 10, description: 'YYYY-MM-DD (successor_of)' }, reason: REASON },
+          properties: {
+            toId: ID,
+            type: { type: 'string', enum: [...RELATION_TYPES] },
+            since: { type: 'string', maxLength: 10, description: 'YYYY-MM-DD (successor_of)' },
+            reason: REASON,
+          },
           example: { toId: 57, type: 'parent_of', reason: 'group structure from the annual report' },
         },
-        response: { 201: { type: 'object', properties: { eventId: { type: 'integer', nullable: true }, relationId: { type: 'integer' } } }, ...problemResponses(404, 409) },
+        response: {
+          201: { type: 'object', properties: { eventId: { type: 'integer', nullable: true }, relationId: { type: 'integer' } } },
+          ...problemResponses(404, 409),
+        },
       },
     },
     async (request, reply) => {
@@ -451,7 +577,16 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
               contracts: COUNTERPARTY_OUT.properties.contracts,
               parties: {
                 type: 'array',
-                items: { type: 'object', properties: { contractId: { type: 'integer' }, role: { type: 'string', nullable: true }, counterpartyId: { type: 'integer', nullable: true }, ownEntityId: { type: 'integer', nullable: true }, name: { type: 'string' } } },
+                items: {
+                  type: 'object',
+                  properties: {
+                    contractId: { type: 'integer' },
+                    role: { type: 'string', nullable: true },
+                    counterpartyId: { type: 'integer', nullable: true },
+                    ownEntityId: { type: 'integer', nullable: true },
+                    name: { type: 'string' },
+                  },
+                },
               },
               relations: {
                 type: 'array',
@@ -476,9 +611,14 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
       if (id === undefined) return reply;
       const view = await getCounterparty(ctx, id);
       const parties = await otherPartiesOf(db, id);
-      const relatedId = (r: { fromCounterpartyId: number; toCounterpartyId: number }) => (r.fromCounterpartyId === id ? r.toCounterpartyId : r.fromCounterpartyId);
+      const relatedId = (r: { fromCounterpartyId: number; toCounterpartyId: number }) =>
+        r.fromCounterpartyId === id ? r.toCounterpartyId : r.fromCounterpartyId;
       const related = await getSummaries(db, [...new Set(view.counterparty.relations.map(relatedId))]);
-      const relations = view.counterparty.relations.map((r) => ({ ...r, relatedCounterpartyId: relatedId(r), relatedCanonicalName: related.get(relatedId(r))?.canonicalName ?? `counterparty #${relatedId(r)}` }));
+      const relations = view.counterparty.relations.map((r) => ({
+        ...r,
+        relatedCounterpartyId: relatedId(r),
+        relatedCanonicalName: related.get(relatedId(r))?.canonicalName ?? `counterparty #${relatedId(r)}`,
+      }));
       return { counterparty: { id, canonicalName: view.counterparty.canonicalName }, contracts: view.counterparty.contracts, parties, relations };
     },
   );
@@ -493,12 +633,23 @@ export const counterpartyRoutes: RoutePlugin = (app, deps) => {
         querystring: {
           type: 'object',
           additionalProperties: false,
-          properties: { ...PAGE_QUERY, limit: { type: 'integer', minimum: 1, maximum: 200, default: 50 }, mentionsPerGroup: { type: 'integer', minimum: 0, maximum: 1000, default: 100 } },
+          properties: {
+            ...PAGE_QUERY,
+            limit: { type: 'integer', minimum: 1, maximum: 200, default: 50 },
+            mentionsPerGroup: { type: 'integer', minimum: 0, maximum: 1000, default: 100 },
+          },
         },
         response: {
           200: pagedOf({
             type: 'object',
-            properties: { id: { type: 'integer' }, canonicalName: { type: 'string' }, jurisdiction: { type: 'string', nullable: true }, version: { type: 'integer' }, mentionCount: { type: 'integer' }, mentions: { type: 'array', items: MENTION_OUT } },
+            properties: {
+              id: { type: 'integer' },
+              canonicalName: { type: 'string' },
+              jurisdiction: { type: 'string', nullable: true },
+              version: { type: 'integer' },
+              mentionCount: { type: 'integer' },
+              mentions: { type: 'array', items: MENTION_OUT },
+            },
           }),
         },
       },
@@ -535,7 +686,9 @@ interface CreateBody {
 
 /** Both spellings of the one name at once: refused, the same way on POST and PATCH. */
 function bothNames(): ApiError {
-  return new ApiError('VALIDATION_FAILED', 'send canonicalName only (name is its earlier spelling)', { errors: [{ pointer: '/name', message: 'give either canonicalName or name, not both' }] });
+  return new ApiError('VALIDATION_FAILED', 'send canonicalName only (name is its earlier spelling)', {
+    errors: [{ pointer: '/name', message: 'give either canonicalName or name, not both' }],
+  });
 }
 
 /** The name a new counterparty gets: canonicalName, or its deprecated spelling name; exactly one of them. */
@@ -543,7 +696,9 @@ function oneCanonicalName(canonicalName: string | undefined, name: string | unde
   if (canonicalName !== undefined && name !== undefined) throw bothNames();
   const given = canonicalName ?? name;
   if (given === undefined) {
-    throw new ApiError('VALIDATION_FAILED', 'canonicalName is required', { errors: [{ pointer: '/canonicalName', message: 'canonicalName is required (or its deprecated spelling name)' }] });
+    throw new ApiError('VALIDATION_FAILED', 'canonicalName is required', {
+      errors: [{ pointer: '/canonicalName', message: 'canonicalName is required (or its deprecated spelling name)' }],
+    });
   }
   checkName(canonicalName !== undefined ? 'canonicalName' : 'name', given);
   return given;

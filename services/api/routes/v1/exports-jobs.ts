@@ -47,19 +47,43 @@ export const JOB_OUT = {
     partitions: {
       type: 'object',
       nullable: true,
-      description: 'For a partitioned job (ingest, sweep, contracts): its partitions by state (total 0 until it is planned); null for a job that runs in one piece (reresolve)',
-      properties: { total: { type: 'integer' }, queued: { type: 'integer' }, running: { type: 'integer' }, done: { type: 'integer' }, fractionDone: { type: 'number' } },
+      description:
+        'For a partitioned job (ingest, sweep, contracts): its partitions by state (total 0 until it is planned); null for a job that runs in one piece (reresolve)',
+      properties: {
+        total: { type: 'integer' },
+        queued: { type: 'integer' },
+        running: { type: 'integer' },
+        done: { type: 'integer' },
+        fractionDone: { type: 'number' },
+      },
     },
   },
-  example: { id: 7, kind: 'ingest', status: 'finished', actor: 'contract system', params: { source: 'erp' }, progress: { read: 120000 }, result: { counts: { read: 120000, linked: 90000, new: 25000, review: 4000, rejected: 1000 } }, error: null },
+  example: {
+    id: 7,
+    kind: 'ingest',
+    status: 'finished',
+    actor: 'contract system',
+    params: { source: 'erp' },
+    progress: { read: 120000 },
+    result: { counts: { read: 120000, linked: 90000, new: 25000, review: 4000, rejected: 1000 } },
+    error: null,
+  },
 } as const;
 
 async function createJob(db: Kysely<Database>, kind: string, actor: string, params: Record<string, unknown>): Promise<number> {
-  const row = await db.insertInto('job').values({ kind, actor, status: 'running', params: JSON.stringify(params) }).returning('id').executeTakeFirstOrThrow();
+  const row = await db
+    .insertInto('job')
+    .values({ kind, actor, status: 'running', params: JSON.stringify(params) })
+    .returning('id')
+    .executeTakeFirstOrThrow();
   return Number(row.id);
 }
 
-async function updateJob(db: Kysely<Database>, id: number, values: { progress?: unknown; result?: unknown; status?: 'finished' | 'failed'; error?: string }): Promise<void> {
+async function updateJob(
+  db: Kysely<Database>,
+  id: number,
+  values: { progress?: unknown; result?: unknown; status?: 'finished' | 'failed'; error?: string },
+): Promise<void> {
   await db
     .updateTable('job')
     .set({
@@ -74,7 +98,13 @@ async function updateJob(db: Kysely<Database>, id: number, values: { progress?: 
 }
 
 /** Runs `work` after the answer has gone; failures end in the job row, never in an unhandled rejection. */
-function runInBackground(db: Kysely<Database>, id: number, work: () => Promise<unknown>, log: { error: (o: object, m: string) => void }, cleanup?: () => Promise<void>): void {
+function runInBackground(
+  db: Kysely<Database>,
+  id: number,
+  work: () => Promise<unknown>,
+  log: { error: (o: object, m: string) => void },
+  cleanup?: () => Promise<void>,
+): void {
   setImmediate(() => {
     work()
       .then((result) => updateJob(db, id, { status: 'finished', result }))
@@ -104,7 +134,8 @@ export const exportJobRoutes: RoutePlugin = async (app, deps) => {
       config: { scope: 'read' },
       schema: {
         summary: 'Export the register, links, history or review items (streamed CSV or NDJSON)',
-        description: 'CSV free-text cells that begin with =, +, -, @, tab or CR carry a leading apostrophe (formula-injection neutralisation; docs/api.md lists the columns).',
+        description:
+          'CSV free-text cells that begin with =, +, -, @, tab or CR carry a leading apostrophe (formula-injection neutralisation; docs/api.md lists the columns).',
         tags: ['exports'],
         params: { type: 'object', required: ['kind'], properties: { kind: { type: 'string', enum: [...EXPORT_KINDS] } } },
         querystring: { type: 'object', additionalProperties: false, properties: { format: { type: 'string', enum: [...EXPORT_FORMATS], default: 'csv' } } },
@@ -139,7 +170,10 @@ export const exportJobRoutes: RoutePlugin = async (app, deps) => {
           type: 'object',
           required: ['source'],
           additionalProperties: false,
-          properties: { source: SOURCE_ID, partitionSize: { type: 'integer', minimum: 1, maximum: 1_000_000, default: 2000, description: 'Mentions per partition aimed at (whole clusters)' } },
+          properties: {
+            source: SOURCE_ID,
+            partitionSize: { type: 'integer', minimum: 1, maximum: 1_000_000, default: 2000, description: 'Mentions per partition aimed at (whole clusters)' },
+          },
         },
         response: { 202: JOB_OUT, ...problemResponses(415) },
       },
@@ -170,7 +204,15 @@ export const exportJobRoutes: RoutePlugin = async (app, deps) => {
         try {
           id = await submitIngestJob(
             { db, queue: (await jobsReady()).queue },
-            { file, format: 'ndjson', source: request.query.source, actor: who.actor, inputName: 'upload', ...(request.query.partitionSize ? { partitionSize: request.query.partitionSize } : {}), ...(claim ? { onJobCreated: answerJobCreated(claim) } : {}) },
+            {
+              file,
+              format: 'ndjson',
+              source: request.query.source,
+              actor: who.actor,
+              inputName: 'upload',
+              ...(request.query.partitionSize ? { partitionSize: request.query.partitionSize } : {}),
+              ...(claim ? { onJobCreated: answerJobCreated(claim) } : {}),
+            },
           );
         } catch (error) {
           if (claim) await releaseIdempotencyKey(db, claim, { answered: true });
@@ -179,7 +221,12 @@ export const exportJobRoutes: RoutePlugin = async (app, deps) => {
         const job = await jobView(db, id);
         reply.code(202).header('location', `/v1/jobs/${id}`);
         if (claim) {
-          await storeIdempotentAnswer(db, claim, { statusCode: 202, contentType: 'application/json; charset=utf-8', headers: { location: `/v1/jobs/${id}` }, body: JSON.stringify(job) });
+          await storeIdempotentAnswer(db, claim, {
+            statusCode: 202,
+            contentType: 'application/json; charset=utf-8',
+            headers: { location: `/v1/jobs/${id}` },
+            body: JSON.stringify(job),
+          });
         }
         return job;
       } finally {
@@ -192,7 +239,12 @@ export const exportJobRoutes: RoutePlugin = async (app, deps) => {
     '/v1/jobs/sweep',
     {
       config: { scope: 'admin' },
-      schema: { summary: 'Start a duplicate sweep (files review items; never merges), partitioned over the workers', tags: ['jobs'], body: NO_OPTIONS, response: { 202: JOB_OUT } },
+      schema: {
+        summary: 'Start a duplicate sweep (files review items; never merges), partitioned over the workers',
+        tags: ['jobs'],
+        body: NO_OPTIONS,
+        response: { 202: JOB_OUT },
+      },
     },
     async (request, reply) => {
       const id = await submitSweepJob({ db, queue: (await jobsReady()).queue }, { actor: actorOf(request).actor });
@@ -205,12 +257,23 @@ export const exportJobRoutes: RoutePlugin = async (app, deps) => {
     '/v1/jobs/reresolve',
     {
       config: { scope: 'admin' },
-      schema: { summary: 'Re-resolve every mention no person confirmed (after thresholds or weights changed)', tags: ['jobs'], body: NO_OPTIONS, response: { 202: JOB_OUT } },
+      schema: {
+        summary: 'Re-resolve every mention no person confirmed (after thresholds or weights changed)',
+        tags: ['jobs'],
+        body: NO_OPTIONS,
+        response: { 202: JOB_OUT },
+      },
     },
     async (request, reply) => {
       const who = actorOf(request);
       const id = await createJob(db, 'reresolve', who.actor, {});
-      runInBackground(db, id, () => reresolve(ctx, who, { onProgress: (s) => void updateJob(db, id, { progress: { examined: s.examined, changed: s.changed } }).catch(() => undefined) }), request.log);
+      runInBackground(
+        db,
+        id,
+        () =>
+          reresolve(ctx, who, { onProgress: (s) => void updateJob(db, id, { progress: { examined: s.examined, changed: s.changed } }).catch(() => undefined) }),
+        request.log,
+      );
       reply.code(202).header('location', `/v1/jobs/${id}`);
       return jobView(db, id);
     },
@@ -220,7 +283,12 @@ export const exportJobRoutes: RoutePlugin = async (app, deps) => {
     '/v1/jobs/:id',
     {
       config: { scope: 'read' },
-      schema: { summary: 'A job: status, progress and, when finished, its result', tags: ['jobs'], params: ID_PARAM, response: { 200: JOB_OUT, ...problemResponses(404) } },
+      schema: {
+        summary: 'A job: status, progress and, when finished, its result',
+        tags: ['jobs'],
+        params: ID_PARAM,
+        response: { 200: JOB_OUT, ...problemResponses(404) },
+      },
     },
     async (request) => jobView(db, request.params.id),
   );
@@ -233,7 +301,12 @@ export const exportJobRoutes: RoutePlugin = async (app, deps) => {
  */
 export function answerJobCreated(claim: { keyId: string; key: string }): JobCreatedHook {
   return async (trx, jobId) =>
-    storeIdempotentAnswer(trx, claim, { statusCode: 202, contentType: 'application/json; charset=utf-8', headers: { location: `/v1/jobs/${jobId}` }, body: JSON.stringify(await jobView(trx, jobId)) });
+    storeIdempotentAnswer(trx, claim, {
+      statusCode: 202,
+      contentType: 'application/json; charset=utf-8',
+      headers: { location: `/v1/jobs/${jobId}` },
+      body: JSON.stringify(await jobView(trx, jobId)),
+    });
 }
 
 export async function jobView(db: Kysely<Database>, id: number): Promise<Record<string, unknown>> {

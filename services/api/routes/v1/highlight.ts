@@ -31,7 +31,9 @@ export function words(text: string): { start: number; end: number; folded: strin
 }
 
 export function highlightRanges(name: string, query: string): [number, number][] {
-  const queryWords = words(query).map((w) => w.folded).filter((w) => w.length > 0);
+  const queryWords = words(query)
+    .map((w) => w.folded)
+    .filter((w) => w.length > 0);
   const ranges: [number, number][] = [];
   for (const word of words(name)) {
     const hit = queryWords.some(

@@ -34,9 +34,23 @@ export const historyRoutes: RoutePlugin = (app, deps) => {
         summary: 'Undo an event (refused while a later event that depends on it stands; the refusal names them)',
         tags: ['history'],
         params: idParams('eventId'),
-        body: { type: 'object', required: ['reason'], additionalProperties: false, properties: { reason: { ...REASON, minLength: 1 } }, example: { reason: 'merged by mistake' } },
+        body: {
+          type: 'object',
+          required: ['reason'],
+          additionalProperties: false,
+          properties: { reason: { ...REASON, minLength: 1 } },
+          example: { reason: 'merged by mistake' },
+        },
         response: {
-          200: { type: 'object', properties: { eventId: { type: 'integer' }, undoneEventId: { type: 'integer' }, counterpartyIds: { type: 'array', items: { type: 'integer' } }, mentionIds: { type: 'array', items: { type: 'integer' } } } },
+          200: {
+            type: 'object',
+            properties: {
+              eventId: { type: 'integer' },
+              undoneEventId: { type: 'integer' },
+              counterpartyIds: { type: 'array', items: { type: 'integer' } },
+              mentionIds: { type: 'array', items: { type: 'integer' } },
+            },
+          },
           ...problemResponses(404, 409, 422),
         },
       },

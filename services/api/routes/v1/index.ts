@@ -9,4 +9,13 @@ import { contractReviewRoutes } from './contracts-review.ts';
 import { exportJobRoutes } from './exports-jobs.ts';
 import { contractsJobRoutes } from './contracts-job.ts';
 
-export const V1_ROUTES: RoutePlugin[] = [keyRoutes, counterpartyRoutes, historyRoutes, upkeepRoutes, mentionRoutes, contractReviewRoutes, exportJobRoutes, contractsJobRoutes];
+export const V1_ROUTES: RoutePlugin[] = [
+  keyRoutes,
+  counterpartyRoutes,
+  historyRoutes,
+  upkeepRoutes,
+  mentionRoutes,
+  contractReviewRoutes,
+  exportJobRoutes,
+  contractsJobRoutes,
+];

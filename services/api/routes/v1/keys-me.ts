@@ -33,7 +33,19 @@ export function createdKeyReplay(body: unknown): unknown {
 const ALLOWS: Record<ApiScope, string[]> = {
   read: ['read'],
   write: ['read', 'ingest', 'resolve', 'post_contracts'],
-  admin: ['read', 'ingest', 'resolve', 'post_contracts', 'merge', 'split', 'undo', 'decide_reviews', 'edit_counterparties', 'manage_own_entities', 'manage_keys'],
+  admin: [
+    'read',
+    'ingest',
+    'resolve',
+    'post_contracts',
+    'merge',
+    'split',
+    'undo',
+    'decide_reviews',
+    'edit_counterparties',
+    'manage_own_entities',
+    'manage_keys',
+  ],
 };
 
 export const keyRoutes: RoutePlugin = (app, deps) => {
@@ -48,7 +60,12 @@ export const keyRoutes: RoutePlugin = (app, deps) => {
         response: {
           200: {
             type: 'object',
-            properties: { keyId: { type: 'string' }, label: { type: 'string' }, scope: { type: 'string', enum: [...API_SCOPES] }, allows: { type: 'array', items: { type: 'string' } } },
+            properties: {
+              keyId: { type: 'string' },
+              label: { type: 'string' },
+              scope: { type: 'string', enum: [...API_SCOPES] },
+              allows: { type: 'array', items: { type: 'string' } },
+            },
             example: { keyId: 'k3f9a1c2b7d40', label: 'legal operations (admin key)', scope: 'admin', allows: ALLOWS.admin },
           },
         },
@@ -88,7 +105,10 @@ export const keyRoutes: RoutePlugin = (app, deps) => {
           type: 'object',
           required: ['scope', 'label'],
           additionalProperties: false,
-          properties: { scope: { type: 'string', enum: [...API_SCOPES] }, label: { type: 'string', minLength: 1, maxLength: MAX_LABEL_LENGTH, description: 'the person or system the key is for' } },
+          properties: {
+            scope: { type: 'string', enum: [...API_SCOPES] },
+            label: { type: 'string', minLength: 1, maxLength: MAX_LABEL_LENGTH, description: 'the person or system the key is for' },
+          },
           example: { scope: 'write', label: 'contract system' },
         },
         response: {

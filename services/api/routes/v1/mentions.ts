@@ -31,11 +31,30 @@ export const MENTION_IN = {
     address: { type: 'string', maxLength: 2000 },
     identifiers: { type: 'array', maxItems: 50, items: IDENTIFIER },
   },
-  example: { source: 'clm', externalId: 'C-2031/p2', text: 'Brackenridge Fabrication, Inc.', contract: { source: 'clm', externalId: 'C-2031' }, role: 'Supplier', country: 'US-DE' },
+  example: {
+    source: 'clm',
+    externalId: 'C-2031/p2',
+    text: 'Brackenridge Fabrication, Inc.',
+    contract: { source: 'clm', externalId: 'C-2031' },
+    role: 'Supplier',
+    country: 'US-DE',
+  },
 } as const;
 
 /** Every field of a resolution result (services/register/resolve ResolveResult), always present. */
-export const RESOLVE_REQUIRED = ['mentionId', 'source', 'externalId', 'status', 'counterpartyId', 'canonicalName', 'ownEntityId', 'score', 'reviewItemId', 'alreadyIngested', 'eventId'];
+export const RESOLVE_REQUIRED = [
+  'mentionId',
+  'source',
+  'externalId',
+  'status',
+  'counterpartyId',
+  'canonicalName',
+  'ownEntityId',
+  'score',
+  'reviewItemId',
+  'alreadyIngested',
+  'eventId',
+];
 
 export const RESOLVE_OUT = {
   type: 'object',
@@ -54,7 +73,20 @@ export const RESOLVE_OUT = {
     alreadyIngested: { type: 'boolean' },
     eventId: { type: 'integer', nullable: true },
   },
-  example: { mentionId: 311, source: 'clm', externalId: 'C-2031/p2', status: 'linked', counterpartyId: 42, canonicalName: 'Brackenridge Fabrication, Inc.', ownEntityId: null, score: 14.2, explanation: { summary: 'same core name and legal form' }, reviewItemId: null, alreadyIngested: false, eventId: 120 },
+  example: {
+    mentionId: 311,
+    source: 'clm',
+    externalId: 'C-2031/p2',
+    status: 'linked',
+    counterpartyId: 42,
+    canonicalName: 'Brackenridge Fabrication, Inc.',
+    ownEntityId: null,
+    score: 14.2,
+    explanation: { summary: 'same core name and legal form' },
+    reviewItemId: null,
+    alreadyIngested: false,
+    eventId: 120,
+  },
 } as const;
 
 const RULE_ERROR = { type: 'object', properties: { pointer: { type: 'string' }, message: { type: 'string' }, rule: { type: 'string' } } } as const;
@@ -63,11 +95,18 @@ const BATCH_ITEM_OUT = {
   type: 'object',
   properties: {
     ...RESOLVE_OUT.properties,
-    index: { type: 'integer', description: 'the item\'s place in the request, from 0' },
+    index: { type: 'integer', description: "the item's place in the request, from 0" },
     error: {
       type: 'object',
-      description: 'why the item was not taken: VALIDATION_FAILED (the item breaks the mention schema: field is its first JSON pointer inside the item, rule the schema rule, errors every one) or the register\'s own refusal',
-      properties: { code: { type: 'string' }, message: { type: 'string' }, field: { type: 'string' }, rule: { type: 'string' }, errors: { type: 'array', items: RULE_ERROR } },
+      description:
+        "why the item was not taken: VALIDATION_FAILED (the item breaks the mention schema: field is its first JSON pointer inside the item, rule the schema rule, errors every one) or the register's own refusal",
+      properties: {
+        code: { type: 'string' },
+        message: { type: 'string' },
+        field: { type: 'string' },
+        rule: { type: 'string' },
+        errors: { type: 'array', items: RULE_ERROR },
+      },
     },
   },
 } as const;
@@ -84,7 +123,13 @@ function refusedItem(index: number, item: unknown, errors: RuleError[]) {
     ...(text('source') !== undefined ? { source: text('source') } : {}),
     ...(text('externalId') !== undefined ? { externalId: text('externalId') } : {}),
     status: 'rejected' as const,
-    error: { code: 'VALIDATION_FAILED', message: `item ${index}: ${errors.map((e) => `${e.pointer || '(the item)'} ${e.message}`).join('; ')}`, field: first.pointer, rule: first.rule, errors },
+    error: {
+      code: 'VALIDATION_FAILED',
+      message: `item ${index}: ${errors.map((e) => `${e.pointer || '(the item)'} ${e.message}`).join('; ')}`,
+      field: first.pointer,
+      rule: first.rule,
+      errors,
+    },
   };
 }
 
@@ -120,9 +165,13 @@ function mentionScope(app: FastifyInstance): void {
     if (error instanceof RegisterError) throw toApiError(error);
     if ((error as FastifyError).code === 'FST_ERR_CTP_BODY_TOO_LARGE') {
       const limit = request.routeOptions.bodyLimit;
-      throw new ApiError('PAYLOAD_TOO_LARGE', `the body exceeds this route's limit of ${limit} bytes${request.routeOptions.url === '/v1/mentions/batch' ? '; send larger sets to POST /v1/jobs/ingest (NDJSON, any size)' : ''}`, {
-        extensions: { limitBytes: limit, ...(request.routeOptions.url === '/v1/mentions/batch' ? { jobRoute: '/v1/jobs/ingest' } : {}) },
-      });
+      throw new ApiError(
+        'PAYLOAD_TOO_LARGE',
+        `the body exceeds this route's limit of ${limit} bytes${request.routeOptions.url === '/v1/mentions/batch' ? '; send larger sets to POST /v1/jobs/ingest (NDJSON, any size)' : ''}`,
+        {
+          extensions: { limitBytes: limit, ...(request.routeOptions.url === '/v1/mentions/batch' ? { jobRoute: '/v1/jobs/ingest' } : {}) },
+        },
+      );
     }
     throw error;
   });
@@ -146,7 +195,8 @@ export const mentionRoutes: RoutePlugin = (app, deps) => {
       config: { scope: 'write' },
       schema: {
         summary: 'Resolve one mention: status, counterparty, score and the explanation',
-        description: 'The same (source, externalId) sent again with the same content answers the stored result (alreadyIngested); with another text the mention is updated and resolved again.',
+        description:
+          'The same (source, externalId) sent again with the same content answers the stored result (alreadyIngested); with another text the mention is updated and resolved again.',
         tags: ['mentions'],
         body: MENTION_IN,
         response: { 200: RESOLVE_OUT, ...problemResponses(409) },
@@ -182,7 +232,10 @@ export const mentionRoutes: RoutePlugin = (app, deps) => {
       validatorCompiler: ({ httpPart }) => (httpPart === 'body' ? checkArray : () => true),
       preValidation: async (request) => {
         if (Array.isArray(request.body) && request.body.length > MAX_BATCH_ITEMS) {
-          throw tooLarge(`the batch has ${request.body.length} items, more than the limit of ${MAX_BATCH_ITEMS}; send it to POST /v1/jobs/ingest (NDJSON, any size)`, { limit: MAX_BATCH_ITEMS, items: request.body.length });
+          throw tooLarge(
+            `the batch has ${request.body.length} items, more than the limit of ${MAX_BATCH_ITEMS}; send it to POST /v1/jobs/ingest (NDJSON, any size)`,
+            { limit: MAX_BATCH_ITEMS, items: request.body.length },
+          );
         }
       },
     },
@@ -195,7 +248,14 @@ export const mentionRoutes: RoutePlugin = (app, deps) => {
         if (errors.length === 0) taken.push({ index, mention: item as MentionInput });
         else answers[index] = refusedItem(index, item, errors);
       });
-      const results = taken.length === 0 ? [] : await resolveBatch(ctx, taken.map((t) => t.mention), actorOf(request));
+      const results =
+        taken.length === 0
+          ? []
+          : await resolveBatch(
+              ctx,
+              taken.map((t) => t.mention),
+              actorOf(request),
+            );
       results.forEach((r, i) => (answers[taken[i]!.index] = { index: taken[i]!.index, ...r }));
       const counts: Record<string, number> = {};
       for (const a of answers) {

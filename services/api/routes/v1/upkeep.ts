@@ -10,7 +10,12 @@ import { COUNTRY, ID_PARAM, IDENTIFIER, MENTION_OUT, NAME, REASON, actorOf, v1Sc
 
 const MENTION_CHANGE = {
   type: 'object',
-  properties: { eventId: { type: 'integer', nullable: true }, mentionId: { type: 'integer' }, status: { type: 'string' }, previousCounterpartyId: { type: 'integer', nullable: true } },
+  properties: {
+    eventId: { type: 'integer', nullable: true },
+    mentionId: { type: 'integer' },
+    status: { type: 'string' },
+    previousCounterpartyId: { type: 'integer', nullable: true },
+  },
 } as const;
 
 const ACTIONS = {
@@ -21,7 +26,14 @@ const ACTIONS = {
 
 const OWN_ENTITY_OUT = {
   type: 'object',
-  properties: { id: { type: 'integer' }, name: { type: 'string' }, country: { type: 'string', nullable: true }, identifiers: { type: 'array', items: { type: 'object', additionalProperties: true } }, createdAt: { type: 'string' }, removedAt: { type: 'string', nullable: true } },
+  properties: {
+    id: { type: 'integer' },
+    name: { type: 'string' },
+    country: { type: 'string', nullable: true },
+    identifiers: { type: 'array', items: { type: 'object', additionalProperties: true } },
+    createdAt: { type: 'string' },
+    removedAt: { type: 'string', nullable: true },
+  },
 } as const;
 
 export const upkeepRoutes: RoutePlugin = (app, deps) => {
@@ -31,7 +43,12 @@ export const upkeepRoutes: RoutePlugin = (app, deps) => {
     '/v1/mentions/:id',
     {
       config: { scope: 'read' },
-      schema: { summary: 'One mention with its status, counterparty, score and evidence', tags: ['mentions'], params: ID_PARAM, response: { 200: MENTION_OUT, ...problemResponses(404) } },
+      schema: {
+        summary: 'One mention with its status, counterparty, score and evidence',
+        tags: ['mentions'],
+        params: ID_PARAM,
+        response: { 200: MENTION_OUT, ...problemResponses(404) },
+      },
     },
     async (request) => {
       const mention = await getMention(deps.db, request.params.id);
@@ -87,7 +104,10 @@ export const upkeepRoutes: RoutePlugin = (app, deps) => {
           properties: { name: NAME, country: COUNTRY, identifiers: { type: 'array', maxItems: 50, items: IDENTIFIER }, reason: REASON },
           example: { name: 'Orvane Holdings B.V.', country: 'NL' },
         },
-        response: { 201: { type: 'object', properties: { eventId: { type: 'integer', nullable: true }, ownEntityId: { type: 'integer' }, created: { type: 'boolean' } } }, ...problemResponses(409) },
+        response: {
+          201: { type: 'object', properties: { eventId: { type: 'integer', nullable: true }, ownEntityId: { type: 'integer' }, created: { type: 'boolean' } } },
+          ...problemResponses(409),
+        },
       },
     },
     async (request, reply) => {

@@ -4,7 +4,12 @@ import { h, pageTitle, replace, when } from '../dom.js';
 import { facts, section } from '../ui.js';
 
 // A party's status in words where no counterparty or own entity names it ("not_a_party" is no word for a screen).
-const PARTY_STATUS_WORDS = { review: 'waiting for review', not_a_party: 'not a party', unbound_term: 'a defined term no party holds', collective_term: 'several parties together' };
+const PARTY_STATUS_WORDS = {
+  review: 'waiting for review',
+  not_a_party: 'not a party',
+  unbound_term: 'a defined term no party holds',
+  collective_term: 'several parties together',
+};
 const partyStatus = (status) => PARTY_STATUS_WORDS[status] ?? String(status ?? '—').replaceAll('_', ' ');
 
 export async function render(main, { params }) {
@@ -13,13 +18,29 @@ export async function render(main, { params }) {
     main,
     h('p', { class: 'crumbs' }, h('a', { href: '#/search' }, 'Search'), ' › contract'),
     pageTitle(c.title ?? c.externalId),
-    facts([['Reference', h('code', null, c.externalId)], ['Source', c.source], ['Status', String(c.status ?? '—').replaceAll('_', ' ')], ['Stored', when(c.createdAt)]]),
+    facts([
+      ['Reference', h('code', null, c.externalId)],
+      ['Source', c.source],
+      ['Status', String(c.status ?? '—').replaceAll('_', ' ')],
+      ['Stored', when(c.createdAt)],
+    ]),
     section(
       'Parties',
       h(
         'table',
         { class: 'table' },
-        h('thead', null, h('tr', null, h('th', { scope: 'col' }, 'As written'), h('th', { scope: 'col' }, 'Role'), h('th', { scope: 'col' }, 'Defined as'), h('th', { scope: 'col' }, 'In the register'))),
+        h(
+          'thead',
+          null,
+          h(
+            'tr',
+            null,
+            h('th', { scope: 'col' }, 'As written'),
+            h('th', { scope: 'col' }, 'Role'),
+            h('th', { scope: 'col' }, 'Defined as'),
+            h('th', { scope: 'col' }, 'In the register'),
+          ),
+        ),
         h(
           'tbody',
           null,
@@ -30,7 +51,15 @@ export async function render(main, { params }) {
               h('td', null, p.text),
               h('td', null, p.role ?? '—'),
               h('td', null, p.terms.length ? p.terms.map((t) => `“${t}”`).join(', ') : '—'),
-              h('td', null, p.counterpartyId ? h('a', { href: `#/counterparty/${p.counterpartyId}` }, p.canonicalName ?? `#${p.counterpartyId}`) : p.ownEntityId ? 'our own entity' : partyStatus(p.status)),
+              h(
+                'td',
+                null,
+                p.counterpartyId
+                  ? h('a', { href: `#/counterparty/${p.counterpartyId}` }, p.canonicalName ?? `#${p.counterpartyId}`)
+                  : p.ownEntityId
+                    ? 'our own entity'
+                    : partyStatus(p.status),
+              ),
             ),
           ),
         ),

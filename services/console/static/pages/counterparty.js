@@ -31,7 +31,18 @@ function namesTable(cp) {
   return h(
     'table',
     { class: 'table' },
-    h('thead', null, h('tr', null, h('th', { scope: 'col' }, 'Name'), h('th', { scope: 'col' }, 'Kind'), h('th', { scope: 'col' }, 'Legal form'), h('th', { scope: 'col' }, 'Where seen'))),
+    h(
+      'thead',
+      null,
+      h(
+        'tr',
+        null,
+        h('th', { scope: 'col' }, 'Name'),
+        h('th', { scope: 'col' }, 'Kind'),
+        h('th', { scope: 'col' }, 'Legal form'),
+        h('th', { scope: 'col' }, 'Where seen'),
+      ),
+    ),
     h(
       'tbody',
       null,
@@ -39,10 +50,23 @@ function namesTable(cp) {
         h(
           'tr',
           null,
-          h('td', { class: n.name === cp.canonicalName ? 'canonical' : null }, n.name, n.name === cp.canonicalName ? h('span', { class: 'tag' }, 'canonical') : null),
+          h(
+            'td',
+            { class: n.name === cp.canonicalName ? 'canonical' : null },
+            n.name,
+            n.name === cp.canonicalName ? h('span', { class: 'tag' }, 'canonical') : null,
+          ),
           h('td', null, NAME_KIND_WORDS[n.kind] ?? n.kind),
           h('td', null, n.legalForm ? n.legalForm.toUpperCase() : '—'),
-          h('td', { class: 'where' }, `${plural(n.seenCount, 'time')}`, n.source ? ` · ${n.source}` : '', n.contractId ? [' · ', contractLink(n.contractId, cp.contracts.find((c) => c.contractId === n.contractId)?.externalId)] : '', n.mentionId ? ` · mention ${n.mentionId}` : '', n.confirmedBy ? ` · confirmed by ${n.confirmedBy}` : ''),
+          h(
+            'td',
+            { class: 'where' },
+            `${plural(n.seenCount, 'time')}`,
+            n.source ? ` · ${n.source}` : '',
+            n.contractId ? [' · ', contractLink(n.contractId, cp.contracts.find((c) => c.contractId === n.contractId)?.externalId)] : '',
+            n.mentionId ? ` · mention ${n.mentionId}` : '',
+            n.confirmedBy ? ` · confirmed by ${n.confirmedBy}` : '',
+          ),
         ),
       ),
     ),
@@ -54,7 +78,17 @@ function identifiersList(cp) {
   return h(
     'ul',
     { class: 'plain-list' },
-    cp.identifiers.map((x) => h('li', null, h('span', { class: 'scheme' }, x.scheme), ' ', h('code', null, x.value), x.strong ? h('span', { class: 'tag tag-strong', title: 'a strong identifier decides a match by itself' }, 'strong') : null, h('span', { class: 'muted' }, x.source ? ` from ${x.source}` : '', x.confirmedBy ? ` · ${x.confirmedBy}` : ''))),
+    cp.identifiers.map((x) =>
+      h(
+        'li',
+        null,
+        h('span', { class: 'scheme' }, x.scheme),
+        ' ',
+        h('code', null, x.value),
+        x.strong ? h('span', { class: 'tag tag-strong', title: 'a strong identifier decides a match by itself' }, 'strong') : null,
+        h('span', { class: 'muted' }, x.source ? ` from ${x.source}` : '', x.confirmedBy ? ` · ${x.confirmedBy}` : ''),
+      ),
+    ),
   );
 }
 
@@ -66,7 +100,14 @@ function relationsList(cp) {
     cp.relations.map((r) => {
       const other = r.fromCounterpartyId === cp.id ? r.toCounterpartyId : r.fromCounterpartyId;
       const words = r.fromCounterpartyId === cp.id ? r.type.replaceAll('_', ' ') : `${r.type.replaceAll('_', ' ')} (from)`;
-      return h('li', null, `${words} `, h('a', { href: `#/counterparty/${other}` }, `#${other}`), r.since ? ` since ${r.since}` : '', h('span', { class: 'muted' }, ` · ${r.origin}, ${r.status}`));
+      return h(
+        'li',
+        null,
+        `${words} `,
+        h('a', { href: `#/counterparty/${other}` }, `#${other}`),
+        r.since ? ` since ${r.since}` : '',
+        h('span', { class: 'muted' }, ` · ${r.origin}, ${r.status}`),
+      );
     }),
   );
 }
@@ -77,7 +118,19 @@ function contractsTable(cp) {
     'table',
     { class: 'table' },
     h('thead', null, h('tr', null, h('th', { scope: 'col' }, 'Contract'), h('th', { scope: 'col' }, 'Reference'), h('th', { scope: 'col' }, 'Role'))),
-    h('tbody', null, cp.contracts.map((c) => h('tr', null, h('td', null, contractLink(c.contractId, c.title ?? '(untitled)')), h('td', null, h('code', null, c.externalId), h('span', { class: 'muted' }, ` ${c.source}`)), h('td', null, c.roles.length ? c.roles.join(', ') : '—')))),
+    h(
+      'tbody',
+      null,
+      cp.contracts.map((c) =>
+        h(
+          'tr',
+          null,
+          h('td', null, contractLink(c.contractId, c.title ?? '(untitled)')),
+          h('td', null, h('code', null, c.externalId), h('span', { class: 'muted' }, ` ${c.source}`)),
+          h('td', null, c.roles.length ? c.roles.join(', ') : '—'),
+        ),
+      ),
+    ),
   );
 }
 
@@ -104,7 +157,12 @@ export async function render(main, { params, session, navigate }) {
   };
   const mentionRows = mentions.items.map((m) => {
     const box = canSplit
-      ? h('input', { type: 'checkbox', 'aria-label': `choose mention ${m.id}: ${m.text}`, dataset: { mention: String(m.id) }, onchange: (e) => (e.target.checked ? chosen.add(m.id) : chosen.delete(m.id), updateSplit()) })
+      ? h('input', {
+          type: 'checkbox',
+          'aria-label': `choose mention ${m.id}: ${m.text}`,
+          dataset: { mention: String(m.id) },
+          onchange: (e) => (e.target.checked ? chosen.add(m.id) : chosen.delete(m.id), updateSplit()),
+        })
       : null;
     return h(
       'tr',
@@ -125,7 +183,22 @@ export async function render(main, { params, session, navigate }) {
     h(
       'table',
       { class: 'table', id: 'mentions' },
-      h('thead', null, h('tr', null, canSplit ? h('th', { scope: 'col' }, h('span', { class: 'visually-hidden' }, 'Choose')) : null, h('th', { scope: 'col' }, 'As written'), h('th', { scope: 'col' }, 'Legal form'), h('th', { scope: 'col' }, 'Contract'), h('th', { scope: 'col' }, 'Role'), h('th', { scope: 'col' }, 'Status'), h('th', { scope: 'col' }, 'Score'), h('th', { scope: 'col' }, 'Source'))),
+      h(
+        'thead',
+        null,
+        h(
+          'tr',
+          null,
+          canSplit ? h('th', { scope: 'col' }, h('span', { class: 'visually-hidden' }, 'Choose')) : null,
+          h('th', { scope: 'col' }, 'As written'),
+          h('th', { scope: 'col' }, 'Legal form'),
+          h('th', { scope: 'col' }, 'Contract'),
+          h('th', { scope: 'col' }, 'Role'),
+          h('th', { scope: 'col' }, 'Status'),
+          h('th', { scope: 'col' }, 'Score'),
+          h('th', { scope: 'col' }, 'Source'),
+        ),
+      ),
       h('tbody', null, mentionRows),
     ),
   );
@@ -135,13 +208,25 @@ export async function render(main, { params, session, navigate }) {
       title: `Split ${plural(moving.length, 'mention')} out of #${cp.id}`,
       body: [
         h('p', null, `These ${plural(moving.length, 'mention')} leave #${cp.id} “${cp.canonicalName}” and go to a new counterparty:`),
-        h('ul', { class: 'plain-list change-list' }, moving.map((m) => h('li', null, `“${m.text}”`, m.contract ? ` (contract ${m.contract.externalId}${m.role ? `, ${m.role}` : ''})` : ''))),
-        h('p', null, `#${cp.id} keeps its other ${plural(mentions.items.length - moving.length, 'mention')}. The split is recorded in the history and can be undone there.`),
+        h(
+          'ul',
+          { class: 'plain-list change-list' },
+          moving.map((m) => h('li', null, `“${m.text}”`, m.contract ? ` (contract ${m.contract.externalId}${m.role ? `, ${m.role}` : ''})` : '')),
+        ),
+        h(
+          'p',
+          null,
+          `#${cp.id} keeps its other ${plural(mentions.items.length - moving.length, 'mention')}. The split is recorded in the history and can be undone there.`,
+        ),
       ],
       confirmLabel: 'Split',
       onConfirm: async (reason) => {
         const { data } = await api(`/v1/counterparties/${cp.id}/split`, { method: 'POST', body: { mentionIds: moving.map((m) => m.id), reason } });
-        toast(`Split done: ${plural(data.movedMentionIds.length, 'mention')} moved to `, h('a', { href: `#/counterparty/${data.targetId}` }, `#${data.targetId}`), '.');
+        toast(
+          `Split done: ${plural(data.movedMentionIds.length, 'mention')} moved to `,
+          h('a', { href: `#/counterparty/${data.targetId}` }, `#${data.targetId}`),
+          '.',
+        );
       },
     });
     if (ok) reload();
@@ -153,16 +238,21 @@ export async function render(main, { params, session, navigate }) {
   // ---- history timeline
   const undone = new Set(historyPage.items.filter((e) => e.undoesEventId).map((e) => e.undoesEventId));
   const eventItem = (event) => {
-      const undoable = canUndo && !NOT_UNDOABLE.has(event.type) && !undone.has(event.id);
-      return h(
-        'li',
-        { class: `event event-${event.type}${undone.has(event.id) ? ' is-undone' : ''}`, dataset: { event: String(event.id), type: event.type } },
-        h('div', { class: 'event-head' }, h('span', { class: 'event-what' }, whatHappened(event)), undone.has(event.id) ? h('span', { class: 'tag tag-undone' }, 'undone') : null),
-        h('div', { class: 'event-meta' }, when(event.at), ' · by ', h('strong', null, event.actor), ` · change ${event.id}`),
-        event.reason ? h('div', { class: 'event-why' }, 'Why: ', event.reason) : null,
-        evidence(event),
-        undoable ? h('button', { type: 'button', class: 'small', dataset: { undo: String(event.id) }, onclick: () => undo(event) }, 'Undo') : null,
-      );
+    const undoable = canUndo && !NOT_UNDOABLE.has(event.type) && !undone.has(event.id);
+    return h(
+      'li',
+      { class: `event event-${event.type}${undone.has(event.id) ? ' is-undone' : ''}`, dataset: { event: String(event.id), type: event.type } },
+      h(
+        'div',
+        { class: 'event-head' },
+        h('span', { class: 'event-what' }, whatHappened(event)),
+        undone.has(event.id) ? h('span', { class: 'tag tag-undone' }, 'undone') : null,
+      ),
+      h('div', { class: 'event-meta' }, when(event.at), ' · by ', h('strong', null, event.actor), ` · change ${event.id}`),
+      event.reason ? h('div', { class: 'event-why' }, 'Why: ', event.reason) : null,
+      evidence(event),
+      undoable ? h('button', { type: 'button', class: 'small', dataset: { undo: String(event.id) }, onclick: () => undo(event) }, 'Undo') : null,
+    );
   };
   const timeline = h('ol', { class: 'timeline', id: 'history' }, historyPage.items.map(eventItem));
   // A page of changes at a time, newest first: the cursors of the pages seen so far lead back to newer ones.
@@ -209,7 +299,10 @@ export async function render(main, { params, session, navigate }) {
   async function undo(event) {
     const ok = await confirmChange({
       title: `Undo change ${event.id}`,
-      body: [h('p', null, 'This reverses: ', h('strong', null, whatHappened(event)), ` (by ${event.actor}).`), h('p', null, 'The undo is itself recorded in the history. If later changes depend on this one, the register refuses and names them.')],
+      body: [
+        h('p', null, 'This reverses: ', h('strong', null, whatHappened(event)), ` (by ${event.actor}).`),
+        h('p', null, 'The undo is itself recorded in the history. If later changes depend on this one, the register refuses and names them.'),
+      ],
       confirmLabel: 'Undo',
       onConfirm: async (reason) => {
         await api(`/v1/history/${event.id}/undo`, { method: 'POST', body: { reason } });
@@ -228,14 +321,41 @@ export async function render(main, { params, session, navigate }) {
       h('p', { class: 'crumbs' }, h('a', { href: '#/search' }, 'Search'), ' › counterparty'),
       cp.id !== requested ? h('p', { class: 'ok', id: 'merged-notice' }, `Counterparty #${requested} was merged into #${cp.id}; this is #${cp.id}.`) : null,
       pageTitle(cp.canonicalName),
-      h('p', { class: 'cp-badges' }, legalFormBadge(legalForm), jurisdictionBadge(cp.jurisdiction), h('span', { class: 'badge' }, cp.kind), h('span', { class: 'badge' }, `#${cp.id}`), h('span', { class: 'badge' }, plural(cp.mentionCount, 'mention')), h('span', { class: 'badge' }, plural(cp.contracts.length, 'contract'))),
-      h('p', { class: 'cp-actions' }, h('a', { class: 'button', href: `#/network/${cp.id}`, id: 'open-network' }, 'Network'), canMerge ? null : h('span', { class: 'muted' }, `Your key (${session.me.scope}) may read; merging and splitting need an admin key.`)),
+      h(
+        'p',
+        { class: 'cp-badges' },
+        legalFormBadge(legalForm),
+        jurisdictionBadge(cp.jurisdiction),
+        h('span', { class: 'badge' }, cp.kind),
+        h('span', { class: 'badge' }, `#${cp.id}`),
+        h('span', { class: 'badge' }, plural(cp.mentionCount, 'mention')),
+        h('span', { class: 'badge' }, plural(cp.contracts.length, 'contract')),
+      ),
+      h(
+        'p',
+        { class: 'cp-actions' },
+        h('a', { class: 'button', href: `#/network/${cp.id}`, id: 'open-network' }, 'Network'),
+        canMerge ? null : h('span', { class: 'muted' }, `Your key (${session.me.scope}) may read; merging and splitting need an admin key.`),
+      ),
     ),
     h(
       'div',
       { class: 'cp-grid' },
       section('Names', namesTable(cp)),
-      sectionWith(mergePanel ? 'panel-tall' : 'panel-plain', 'Identifiers and place', facts([['Jurisdiction', cp.jurisdiction ?? 'unknown'], ['Kind', cp.kind], ['Canonical name set by', cp.nameLockedBy ?? 'the register’s rules'], ['Updated', when(cp.updatedAt)]]), h('h3', null, 'Identifiers'), identifiersList(cp), h('h3', null, 'Relations'), relationsList(cp)),
+      sectionWith(
+        mergePanel ? 'panel-tall' : 'panel-plain',
+        'Identifiers and place',
+        facts([
+          ['Jurisdiction', cp.jurisdiction ?? 'unknown'],
+          ['Kind', cp.kind],
+          ['Canonical name set by', cp.nameLockedBy ?? 'the register’s rules'],
+          ['Updated', when(cp.updatedAt)],
+        ]),
+        h('h3', null, 'Identifiers'),
+        identifiersList(cp),
+        h('h3', null, 'Relations'),
+        relationsList(cp),
+      ),
       section('Contracts', contractsTable(cp)),
       mergePanel ? section('Merge', mergePanel) : null,
     ),
@@ -257,7 +377,21 @@ function mergeChooser(cp, etag, navigate) {
       const { data } = await api(`/v1/counterparties?q=${encodeURIComponent(q)}&limit=8`);
       if (mine !== sequence) return;
       const others = data.items.filter((hit) => hit.id !== cp.id);
-      replace(results, others.length === 0 ? h('li', { class: 'empty' }, 'No other counterparty found.') : others.map((hit) => h('li', null, h('button', { type: 'button', class: 'small', dataset: { mergeWith: String(hit.id) }, onclick: () => confirmMerge(hit.id) }, 'Merge with'), ' ', highlighted(hit.matchedName, hit.highlight), h('span', { class: 'muted' }, ` #${hit.id} · ${hit.jurisdiction ?? '?'}`))));
+      replace(
+        results,
+        others.length === 0
+          ? h('li', { class: 'empty' }, 'No other counterparty found.')
+          : others.map((hit) =>
+              h(
+                'li',
+                null,
+                h('button', { type: 'button', class: 'small', dataset: { mergeWith: String(hit.id) }, onclick: () => confirmMerge(hit.id) }, 'Merge with'),
+                ' ',
+                highlighted(hit.matchedName, hit.highlight),
+                h('span', { class: 'muted' }, ` #${hit.id} · ${hit.jurisdiction ?? '?'}`),
+              ),
+            ),
+      );
     } catch (error) {
       replace(results, h('li', null, errorBox(error, 'Search failed')));
     }
@@ -281,18 +415,40 @@ function mergeChooser(cp, etag, navigate) {
     const explain = () =>
       replace(
         describe,
-        h('p', null, h('strong', null, `#${absorbed.id} “${absorbed.canonicalName}”`), ` joins `, h('strong', null, `#${survivor.id} “${survivor.canonicalName}”`), '.'),
+        h(
+          'p',
+          null,
+          h('strong', null, `#${absorbed.id} “${absorbed.canonicalName}”`),
+          ` joins `,
+          h('strong', null, `#${survivor.id} “${survivor.canonicalName}”`),
+          '.',
+        ),
         h(
           'ul',
           { class: 'plain-list change-list' },
-          h('li', null, `${plural(absorbed.mentionCount, 'mention')}, ${plural(absorbed.names.length, 'name')}, ${plural(absorbed.identifiers.length, 'identifier')} and ${plural(absorbed.contracts.length, 'contract')} of #${absorbed.id} move to #${survivor.id}.`),
+          h(
+            'li',
+            null,
+            `${plural(absorbed.mentionCount, 'mention')}, ${plural(absorbed.names.length, 'name')}, ${plural(absorbed.identifiers.length, 'identifier')} and ${plural(absorbed.contracts.length, 'contract')} of #${absorbed.id} move to #${survivor.id}.`,
+          ),
           h('li', null, `#${survivor.id} then has ${plural(survivor.mentionCount + absorbed.mentionCount, 'mention')}.`),
           h('li', null, `#${absorbed.id} stops being active; reading #${absorbed.id} through the API leads to #${survivor.id}.`),
           h('li', null, 'The merge is recorded in the history and can be undone there.'),
         ),
       );
     const choice = (candidate, checked) =>
-      h('label', { class: 'radio' }, h('input', { type: 'radio', name: 'survivor', value: String(candidate.id), checked, onchange: () => ((survivor = candidate), (absorbed = candidate === cp ? other : cp), explain()) }), ` keep #${candidate.id} “${candidate.canonicalName}”`);
+      h(
+        'label',
+        { class: 'radio' },
+        h('input', {
+          type: 'radio',
+          name: 'survivor',
+          value: String(candidate.id),
+          checked,
+          onchange: () => ((survivor = candidate), (absorbed = candidate === cp ? other : cp), explain()),
+        }),
+        ` keep #${candidate.id} “${candidate.canonicalName}”`,
+      );
     explain();
     const ok = await confirmChange({
       title: `Merge #${cp.id} and #${other.id}`,
@@ -300,7 +456,17 @@ function mergeChooser(cp, etag, navigate) {
       confirmLabel: 'Merge',
       danger: true,
       onConfirm: async (reason) => {
-        const { data } = await api('/v1/counterparties/merge', { method: 'POST', body: { items: [{ id: cp.id, etag }, { id: other.id, etag: otherEtag }], survivorId: survivor.id, reason } });
+        const { data } = await api('/v1/counterparties/merge', {
+          method: 'POST',
+          body: {
+            items: [
+              { id: cp.id, etag },
+              { id: other.id, etag: otherEtag },
+            ],
+            survivorId: survivor.id,
+            reason,
+          },
+        });
         toast(`Merged: #${data.mergedIds.join(', #')} into #${data.survivorId}.`);
         survivor = { id: data.survivorId };
       },

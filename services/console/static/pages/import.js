@@ -4,7 +4,7 @@ import { api, apiForm } from '../api.js';
 import { h, pageTitle, plural, replace } from '../dom.js';
 import { errorBox, section } from '../ui.js';
 
-// The reasons a file is not imported (resolvers/files/rejectReasons.ts), in words for a person.
+// The reasons a file is not imported (resolvers/files/reject-reasons.ts), in words for a person.
 const REASON_WORDS = {
   unreadable: 'could not be read or is damaged',
   encrypted_pdf: 'PDF locked with a password',
@@ -25,7 +25,12 @@ const REASON_WORDS = {
   path_too_long: 'path too long for a contract reference',
 };
 const reasonWords = (code) => REASON_WORDS[code] ?? String(code).replaceAll('_', ' ');
-const STAGE_WORDS = { staging: 'Reading the files and extracting their text', planning: 'Planning', storing: 'Storing the contracts and resolving their parties', finished: 'Finished' };
+const STAGE_WORDS = {
+  staging: 'Reading the files and extracting their text',
+  planning: 'Planning',
+  storing: 'Storing the contracts and resolving their parties',
+  finished: 'Finished',
+};
 const POLL_MS = 700;
 
 function partyCell(p) {
@@ -54,7 +59,12 @@ function contractsTable(contracts) {
           h(
             'tr',
             null,
-            h('td', { class: 'file-path' }, h('a', { href: `#/contract/${c.contractId}` }, c.path), c.change === 'changed' ? h('span', { class: 'hint' }, ' (new version)') : null),
+            h(
+              'td',
+              { class: 'file-path' },
+              h('a', { href: `#/contract/${c.contractId}` }, c.path),
+              c.change === 'changed' ? h('span', { class: 'hint' }, ' (new version)') : null,
+            ),
             h('td', null, h('ul', { class: 'party-list' }, c.parties.map(partyCell))),
           ),
         ),
@@ -71,7 +81,18 @@ function rejectsTable(rejected) {
       'table',
       { class: 'table', id: 'import-rejects' },
       h('thead', null, h('tr', null, h('th', { scope: 'col' }, 'File'), h('th', { scope: 'col' }, 'Why not imported'))),
-      h('tbody', null, rejected.map((r) => h('tr', { dataset: { reason: r.reason } }, h('td', { class: 'file-path' }, r.path), h('td', null, h('strong', null, reasonWords(r.reason)), h('span', { class: 'hint' }, ` ${r.detail}`))))),
+      h(
+        'tbody',
+        null,
+        rejected.map((r) =>
+          h(
+            'tr',
+            { dataset: { reason: r.reason } },
+            h('td', { class: 'file-path' }, r.path),
+            h('td', null, h('strong', null, reasonWords(r.reason)), h('span', { class: 'hint' }, ` ${r.detail}`)),
+          ),
+        ),
+      ),
     ),
   );
 }
@@ -98,7 +119,11 @@ function progressOf(job) {
     value = job.partitions.fractionDone;
     words = `${job.partitions.done} of ${plural(job.partitions.total, 'part')} done`;
   }
-  return [h('span', null, `${stage}${words ? `: ${words}` : '…'}`), ' ', h('progress', { max: '1', value: value === null ? null : String(value), 'aria-label': stage })];
+  return [
+    h('span', null, `${stage}${words ? `: ${words}` : '…'}`),
+    ' ',
+    h('progress', { max: '1', value: value === null ? null : String(value), 'aria-label': stage }),
+  ];
 }
 
 export function render(main, { session }) {
@@ -134,7 +159,7 @@ export function render(main, { session }) {
     input,
     drop,
     picked,
-    h('label', { for: 'import-source' }, 'Source (stored with each contract; a file\'s path is its reference)'),
+    h('label', { for: 'import-source' }, "Source (stored with each contract; a file's path is its reference)"),
     source,
     h('div', null, start),
   );
@@ -158,7 +183,10 @@ export function render(main, { session }) {
       replace(
         results,
         summary(r),
-        section(`Imported contracts (${r.contracts.length})`, r.contracts.length ? contractsTable(r.contracts) : h('p', null, 'None: every file was unchanged or not imported.')),
+        section(
+          `Imported contracts (${r.contracts.length})`,
+          r.contracts.length ? contractsTable(r.contracts) : h('p', null, 'None: every file was unchanged or not imported.'),
+        ),
         section(`Files not imported (${r.rejected.length})`, r.rejected.length ? rejectsTable(r.rejected) : h('p', null, 'None.')),
       );
       start.disabled = false;
@@ -194,7 +222,12 @@ export function render(main, { session }) {
   replace(
     main,
     pageTitle('Import contract files'),
-    h('p', { class: 'caution', id: 'import-caution' }, h('strong', null, 'Extraction and party parsing are proposals; the signed document stands. '), 'A scan without a text layer is not read: no OCR is attempted. Importing the same files again adds only what is new or changed.'),
+    h(
+      'p',
+      { class: 'caution', id: 'import-caution' },
+      h('strong', null, 'Extraction and party parsing are proposals; the signed document stands. '),
+      'A scan without a text layer is not read: no OCR is attempted. Importing the same files again adds only what is new or changed.',
+    ),
     allowed ? null : h('p', { class: 'error-box' }, 'Your key may read but not post contracts: ask for a write key to import.'),
     form,
     progress,

@@ -9,7 +9,16 @@ import { legalFormOf } from './counterparty.js';
 export const SHORTCUTS = { same: 's', different: 'd', notAParty: 'p', skip: 'k', note: 'n' };
 const PAGE = 20;
 
-const FEATURE_WORDS = { name: 'Name', legalForm: 'Legal form', jurisdiction: 'Jurisdiction', acronym: 'Acronym', qualifier: 'Place qualifier', sharedContact: 'Shared contact', identifier: 'Identifier', identifiers: 'Identifiers' };
+const FEATURE_WORDS = {
+  name: 'Name',
+  legalForm: 'Legal form',
+  jurisdiction: 'Jurisdiction',
+  acronym: 'Acronym',
+  qualifier: 'Place qualifier',
+  sharedContact: 'Shared contact',
+  identifier: 'Identifier',
+  identifiers: 'Identifiers',
+};
 
 function featureBars(evidence, score) {
   const features = (evidence?.features ?? []).filter((f) => typeof f.weight === 'number');
@@ -25,7 +34,12 @@ function featureBars(evidence, score) {
   const scale = (w) => (w / extent) * (barW / 2);
   const chart = s(
     'svg',
-    { viewBox: `0 0 ${width} ${height}`, class: 'bars', role: 'img', 'aria-label': `Score ${num(score, 2)}: ${features.map((f) => `${FEATURE_WORDS[f.feature] ?? f.feature} ${num(f.weight, 2)}`).join(', ')}` },
+    {
+      viewBox: `0 0 ${width} ${height}`,
+      class: 'bars',
+      role: 'img',
+      'aria-label': `Score ${num(score, 2)}: ${features.map((f) => `${FEATURE_WORDS[f.feature] ?? f.feature} ${num(f.weight, 2)}`).join(', ')}`,
+    },
     s('line', { x1: mid, x2: mid, y1: 0, y2: height, class: 'axis' }),
     features.map((f, i) => {
       const y = 4 + i * rowH;
@@ -43,7 +57,15 @@ function featureBars(evidence, score) {
   return h(
     'div',
     { class: 'score-box' },
-    h('p', { class: 'score-total' }, 'Score ', h('strong', { id: 'pair-score' }, num(score, 2)), thresholds.linkAt !== undefined ? h('span', { class: 'muted' }, ` · links at ${num(thresholds.linkAt)} or more, new below ${num(thresholds.newAt)}`) : null),
+    h(
+      'p',
+      { class: 'score-total' },
+      'Score ',
+      h('strong', { id: 'pair-score' }, num(score, 2)),
+      thresholds.linkAt !== undefined
+        ? h('span', { class: 'muted' }, ` · links at ${num(thresholds.linkAt)} or more, new below ${num(thresholds.newAt)}`)
+        : null,
+    ),
     h('p', { class: 'legend' }, h('span', { class: 'key key-for' }), ' for the same  ', h('span', { class: 'key key-against' }), ' against'),
     chart,
     evidence?.summary ? h('p', { class: 'muted small-text' }, evidence.summary) : null,
@@ -52,7 +74,11 @@ function featureBars(evidence, score) {
 
 function identifierLines(list) {
   if (!list || list.length === 0) return h('span', { class: 'muted' }, 'none');
-  return h('ul', { class: 'plain-list' }, list.map((x) => h('li', null, h('span', { class: 'scheme' }, x.scheme), ' ', h('code', null, x.value))));
+  return h(
+    'ul',
+    { class: 'plain-list' },
+    list.map((x) => h('li', null, h('span', { class: 'scheme' }, x.scheme), ' ', h('code', null, x.value))),
+  );
 }
 
 /** The mention's legal form as the API analysed it ("B.V." · family bv), with how the matcher compared it. */
@@ -75,7 +101,12 @@ function mentionSide(item) {
       ['Country', m.country ?? '—'],
       ['Address', m.address ?? '—'],
       ['Identifiers', identifierLines(m.identifiers)],
-      ['Contract', m.contractId ? h('span', null, h('a', { href: `#/contract/${m.contractId}` }, m.contract?.externalId ?? `contract ${m.contractId}`), m.role ? ` as ${m.role}` : '') : '—'],
+      [
+        'Contract',
+        m.contractId
+          ? h('span', null, h('a', { href: `#/contract/${m.contractId}` }, m.contract?.externalId ?? `contract ${m.contractId}`), m.role ? ` as ${m.role}` : '')
+          : '—',
+      ],
       ['Source', `${m.source} · ${m.externalId}`],
     ]),
   );
@@ -94,7 +125,21 @@ function counterpartySide(cp, label, cls) {
       ['Jurisdiction', cp.jurisdiction ?? '—'],
       ['Other names', names.length ? names.map((n) => n.name).join('; ') : '—'],
       ['Identifiers', identifierLines(cp.identifiers)],
-      ['Contracts', cp.contracts.length ? h('ul', { class: 'plain-list' }, cp.contracts.slice(0, 4).map((c) => h('li', null, h('a', { href: `#/contract/${c.contractId}` }, c.title ?? c.externalId), c.roles.length ? ` as ${c.roles.join(', ')}` : '')), cp.contracts.length > 4 ? h('li', { class: 'muted' }, `and ${cp.contracts.length - 4} more`) : null) : 'none'],
+      [
+        'Contracts',
+        cp.contracts.length
+          ? h(
+              'ul',
+              { class: 'plain-list' },
+              cp.contracts
+                .slice(0, 4)
+                .map((c) =>
+                  h('li', null, h('a', { href: `#/contract/${c.contractId}` }, c.title ?? c.externalId), c.roles.length ? ` as ${c.roles.join(', ')}` : ''),
+                ),
+              cp.contracts.length > 4 ? h('li', { class: 'muted' }, `and ${cp.contracts.length - 4} more`) : null,
+            )
+          : 'none',
+      ],
       ['Mentions', String(cp.mentionCount)],
     ]),
   );
@@ -120,11 +165,26 @@ export async function render(main, { session }) {
   const stage = h('div', { class: 'review-stage', id: 'review-stage' });
   const scoreSlot = h('div', { class: 'score-slot' });
   const note = h('textarea', { id: 'review-note', rows: '2', maxlength: '2000', placeholder: 'why (kept with the decision)', disabled: !canDecide });
-  const sameButton = h('button', { type: 'button', class: 'primary decide', id: 'decide-same', disabled: !canDecide, 'aria-keyshortcuts': 'S' }, 'Same ', h('kbd', null, 'S'));
-  const differentButton = h('button', { type: 'button', class: 'decide', id: 'decide-different', disabled: !canDecide, 'aria-keyshortcuts': 'D' }, 'Different ', h('kbd', null, 'D'));
+  const sameButton = h(
+    'button',
+    { type: 'button', class: 'primary decide', id: 'decide-same', disabled: !canDecide, 'aria-keyshortcuts': 'S' },
+    'Same ',
+    h('kbd', null, 'S'),
+  );
+  const differentButton = h(
+    'button',
+    { type: 'button', class: 'decide', id: 'decide-different', disabled: !canDecide, 'aria-keyshortcuts': 'D' },
+    'Different ',
+    h('kbd', null, 'D'),
+  );
   // A mention that names no party at all (a place, a document word, a signer) is answered as such, not as
   // "different": that answer is kept out of what the weights learn from.
-  const notPartyButton = h('button', { type: 'button', class: 'decide', id: 'decide-not-a-party', disabled: !canDecide, 'aria-keyshortcuts': 'P' }, 'Not a party ', h('kbd', null, 'P'));
+  const notPartyButton = h(
+    'button',
+    { type: 'button', class: 'decide', id: 'decide-not-a-party', disabled: !canDecide, 'aria-keyshortcuts': 'P' },
+    'Not a party ',
+    h('kbd', null, 'P'),
+  );
   const skipButton = h('button', { type: 'button', id: 'decide-skip', 'aria-keyshortcuts': 'K' }, 'Skip ', h('kbd', null, 'K'));
   const wholeGroup = h('input', { type: 'checkbox', id: 'review-whole-group', disabled: !canDecide });
   const groupRow = h('p', { class: 'group-row', hidden: true }, wholeGroup, h('label', { for: 'review-whole-group', id: 'review-group-label' }, ''));
@@ -142,7 +202,14 @@ export async function render(main, { session }) {
 
   const record = (id) => {
     if (id === null || id === undefined) return Promise.resolve(null);
-    if (!details.has(id)) details.set(id, api(`/v1/counterparties/${id}`).then((r) => r.data, () => null));
+    if (!details.has(id))
+      details.set(
+        id,
+        api(`/v1/counterparties/${id}`).then(
+          (r) => r.data,
+          () => null,
+        ),
+      );
     return details.get(id);
   };
 
@@ -184,7 +251,16 @@ export async function render(main, { session }) {
     showCounter();
     if (!current) {
       replace(scoreSlot);
-      replace(stage, h('p', { class: 'empty done' }, skipped.size ? 'No more pairs in this pass. Reload the page to see the skipped ones again.' : 'The queue is empty: every doubtful pair has been decided.'));
+      replace(
+        stage,
+        h(
+          'p',
+          { class: 'empty done' },
+          skipped.size
+            ? 'No more pairs in this pass. Reload the page to see the skipped ones again.'
+            : 'The queue is empty: every doubtful pair has been decided.',
+        ),
+      );
       controls.hidden = true;
       return;
     }
@@ -198,8 +274,18 @@ export async function render(main, { session }) {
     }
     replace(
       stage,
-      h('h2', { class: 'question', id: 'review-question', tabindex: '-1', dataset: { item: String(item.id), kind: item.kind } }, KIND_WORDS[item.kind] ?? 'Are these the same?', h('span', { class: 'muted' }, ` · item ${item.id}`)),
-      h('div', { class: 'pair' }, item.kind === 'mention_link' && item.mention ? mentionSide(item) : counterpartySide(left, 'Counterparty', 'side-left'), counterpartySide(right, item.kind === 'mention_link' ? 'Best candidate in the register' : 'Counterparty', 'side-right')),
+      h(
+        'h2',
+        { class: 'question', id: 'review-question', tabindex: '-1', dataset: { item: String(item.id), kind: item.kind } },
+        KIND_WORDS[item.kind] ?? 'Are these the same?',
+        h('span', { class: 'muted' }, ` · item ${item.id}`),
+      ),
+      h(
+        'div',
+        { class: 'pair' },
+        item.kind === 'mention_link' && item.mention ? mentionSide(item) : counterpartySide(left, 'Counterparty', 'side-left'),
+        counterpartySide(right, item.kind === 'mention_link' ? 'Best candidate in the register' : 'Counterparty', 'side-right'),
+      ),
     );
     replace(scoreSlot, featureBars(item.evidence, item.score));
     notPartyButton.disabled = !canDecide || item.kind !== 'mention_link';
@@ -207,7 +293,8 @@ export async function render(main, { session }) {
     const size = item.group?.size ?? 1;
     groupRow.hidden = size < 2;
     wholeGroup.checked = false;
-    groupRow.querySelector('label').textContent = ` Decide all ${size} alike at once (the same spelling of this name, waiting on the same candidate, in ${plural(item.group?.contracts ?? 0, 'contract')})`;
+    groupRow.querySelector('label').textContent =
+      ` Decide all ${size} alike at once (the same spelling of this name, waiting on the same candidate, in ${plural(item.group?.contracts ?? 0, 'contract')})`;
     if (queue.length < 3 && more) fetchMore().catch(() => undefined);
   }
 
@@ -227,7 +314,15 @@ export async function render(main, { session }) {
       details.delete(item.rightCounterpartyId);
       details.delete(item.leftCounterpartyId);
       const where = data.counterpartyId ? h('a', { href: `#/counterparty/${data.counterpartyId}`, id: 'decision-result' }, `#${data.counterpartyId}`) : null;
-      replace(outcome, h('p', { class: 'ok', dataset: { item: String(item.id), decision } }, `Item ${item.id}${settled.size > 1 ? ` and ${plural(settled.size - 1, 'item')} like it` : ''}: ${decision.replaceAll('_', ' ')}. `, where ? ['The register now shows it under ', where, '.'] : ''));
+      replace(
+        outcome,
+        h(
+          'p',
+          { class: 'ok', dataset: { item: String(item.id), decision } },
+          `Item ${item.id}${settled.size > 1 ? ` and ${plural(settled.size - 1, 'item')} like it` : ''}: ${decision.replaceAll('_', ' ')}. `,
+          where ? ['The register now shows it under ', where, '.'] : '',
+        ),
+      );
       toast(`Decided ${decision.replaceAll('_', ' ')} on item ${item.id}.`);
       await showNext();
       stage.querySelector('h2')?.focus();
@@ -277,7 +372,13 @@ export async function render(main, { session }) {
   document.addEventListener('keydown', onKey);
 
   // Wide windows: the score beside the decision, so both fit above the fold with the pair.
-  replace(main, pageTitle('Review queue'), counter, stage, h('div', { class: 'review-lower' }, scoreSlot, h('div', { class: 'decide-column' }, controls, outcome)));
+  replace(
+    main,
+    pageTitle('Review queue'),
+    counter,
+    stage,
+    h('div', { class: 'review-lower' }, scoreSlot, h('div', { class: 'decide-column' }, controls, outcome)),
+  );
   stage.setAttribute('tabindex', '-1');
   const stop = () => document.removeEventListener('keydown', onKey);
   try {

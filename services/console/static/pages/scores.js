@@ -42,7 +42,17 @@ export function histogram(stats, width = 900) {
     return statuses.map((st) => {
       const n = b.byStatus[st] ?? 0;
       if (n === 0) return null;
-      const rect = s('rect', { x: x(b.from) + 1, width: Math.max(1, x(b.to) - x(b.from) - 2), y: y(base + n), height: y(base) - y(base + n), class: `hist hist-${STATUS_ORDER.includes(st) ? st : 'other'}` }, s('title', null, `${num(b.from)} to ${num(b.to)}: ${n} ${statusWords(st)}`));
+      const rect = s(
+        'rect',
+        {
+          x: x(b.from) + 1,
+          width: Math.max(1, x(b.to) - x(b.from) - 2),
+          y: y(base + n),
+          height: y(base) - y(base + n),
+          class: `hist hist-${STATUS_ORDER.includes(st) ? st : 'other'}`,
+        },
+        s('title', null, `${num(b.from)} to ${num(b.to)}: ${n} ${statusWords(st)}`),
+      );
       base += n;
       return rect;
     });
@@ -50,18 +60,37 @@ export function histogram(stats, width = 900) {
   const yTicks = ticks(0, peak, 4).filter((t) => Number.isInteger(t));
   return s(
     'svg',
-    { viewBox: `0 0 ${W} ${H}`, class: 'histogram', id: 'score-chart', role: 'img', 'aria-label': `Scores of ${stats.count} recent resolutions from ${num(min)} to ${num(max)}; new below ${num(newAt)}, linked at ${num(linkAt)} or more, between them a person decides` },
+    {
+      viewBox: `0 0 ${W} ${H}`,
+      class: 'histogram',
+      id: 'score-chart',
+      role: 'img',
+      'aria-label': `Scores of ${stats.count} recent resolutions from ${num(min)} to ${num(max)}; new below ${num(newAt)}, linked at ${num(linkAt)} or more, between them a person decides`,
+    },
     s('rect', { x: x(newAt), y: pad.t, width: Math.max(0, x(linkAt) - x(newAt)), height: H - pad.b - pad.t, class: 'zone-doubt' }),
-    s('text', { x: (x(newAt) + x(linkAt)) / 2, y: pad.t + 16, 'text-anchor': 'middle', class: 'zone-label' }, x(linkAt) - x(newAt) < 170 ? 'doubtful' : 'doubtful: a person reviews'),
-    yTicks.map((t) => [s('line', { x1: pad.l, x2: W - pad.r, y1: y(t), y2: y(t), class: 'grid' }), s('text', { x: pad.l - 6, y: y(t) + 4, 'text-anchor': 'end', class: 'tick' }, String(t))]),
+    s(
+      'text',
+      { x: (x(newAt) + x(linkAt)) / 2, y: pad.t + 16, 'text-anchor': 'middle', class: 'zone-label' },
+      x(linkAt) - x(newAt) < 170 ? 'doubtful' : 'doubtful: a person reviews',
+    ),
+    yTicks.map((t) => [
+      s('line', { x1: pad.l, x2: W - pad.r, y1: y(t), y2: y(t), class: 'grid' }),
+      s('text', { x: pad.l - 6, y: y(t) + 4, 'text-anchor': 'end', class: 'tick' }, String(t)),
+    ]),
     bars,
     s('line', { x1: pad.l, x2: W - pad.r, y1: H - pad.b, y2: H - pad.b, class: 'axis' }),
-    ticks(min, max, W < 600 ? 5 : 8).map((t) => [s('line', { x1: x(t), x2: x(t), y1: H - pad.b, y2: H - pad.b + 5, class: 'axis' }), s('text', { x: x(t), y: H - pad.b + 18, 'text-anchor': 'middle', class: 'tick' }, String(t))]),
+    ticks(min, max, W < 600 ? 5 : 8).map((t) => [
+      s('line', { x1: x(t), x2: x(t), y1: H - pad.b, y2: H - pad.b + 5, class: 'axis' }),
+      s('text', { x: x(t), y: H - pad.b + 18, 'text-anchor': 'middle', class: 'tick' }, String(t)),
+    ]),
     s('text', { x: (pad.l + W - pad.r) / 2, y: H - 6, 'text-anchor': 'middle', class: 'axis-title' }, 'match score (weight of evidence)'),
     [
       { v: newAt, label: `new below ${num(newAt)}`, cls: 'threshold-new', anchor: 'end', dx: -4 },
       { v: linkAt, label: `linked from ${num(linkAt)}`, cls: 'threshold-link', anchor: 'start', dx: 4 },
-    ].map((t) => [s('line', { x1: x(t.v), x2: x(t.v), y1: pad.t - 22, y2: H - pad.b, class: `threshold ${t.cls}` }), s('text', { x: x(t.v) + t.dx, y: pad.t - 10, 'text-anchor': t.anchor, class: `threshold-label ${t.cls}` }, t.label)]),
+    ].map((t) => [
+      s('line', { x1: x(t.v), x2: x(t.v), y1: pad.t - 22, y2: H - pad.b, class: `threshold ${t.cls}` }),
+      s('text', { x: x(t.v) + t.dx, y: pad.t - 10, 'text-anchor': t.anchor, class: `threshold-label ${t.cls}` }, t.label),
+    ]),
   );
 }
 
@@ -73,7 +102,48 @@ export async function render(main) {
     'details',
     { class: 'data-table' },
     h('summary', null, 'The numbers behind the chart'),
-    h('div', { class: 'table-wrap' }, h('table', { class: 'table' }, h('thead', null, h('tr', null, h('th', { scope: 'col' }, 'From'), h('th', { scope: 'col' }, 'To'), h('th', { scope: 'col' }, 'Count'), h('th', { scope: 'col' }, 'By status'))), h('tbody', null, stats.buckets.filter((b) => b.count > 0).map((b) => h('tr', null, h('td', { class: 'num' }, num(b.from)), h('td', { class: 'num' }, num(b.to)), h('td', { class: 'num' }, String(b.count)), h('td', null, Object.entries(b.byStatus).map(([k, v]) => `${k} ${v}`).join(', '))))))),
+    h(
+      'div',
+      { class: 'table-wrap' },
+      h(
+        'table',
+        { class: 'table' },
+        h(
+          'thead',
+          null,
+          h(
+            'tr',
+            null,
+            h('th', { scope: 'col' }, 'From'),
+            h('th', { scope: 'col' }, 'To'),
+            h('th', { scope: 'col' }, 'Count'),
+            h('th', { scope: 'col' }, 'By status'),
+          ),
+        ),
+        h(
+          'tbody',
+          null,
+          stats.buckets
+            .filter((b) => b.count > 0)
+            .map((b) =>
+              h(
+                'tr',
+                null,
+                h('td', { class: 'num' }, num(b.from)),
+                h('td', { class: 'num' }, num(b.to)),
+                h('td', { class: 'num' }, String(b.count)),
+                h(
+                  'td',
+                  null,
+                  Object.entries(b.byStatus)
+                    .map(([k, v]) => `${k} ${v}`)
+                    .join(', '),
+                ),
+              ),
+            ),
+        ),
+      ),
+    ),
   );
   const downloads = h('div', { class: 'exports' });
   const status = h('div', { class: 'export-status', role: 'status', 'aria-live': 'polite' });
@@ -105,8 +175,16 @@ export async function render(main) {
     pageTitle('Scores and exports'),
     section(
       'How sure the register was',
-      h('p', null, `The last ${plural(stats.count, 'scored resolution')}. At or above ${num(stats.linkAt)} a mention is linked on its own; below ${num(stats.newAt)} it becomes a new counterparty; in between it waits for a reviewer.`),
-      h('p', { class: 'legend' }, statusesOf(stats.buckets).map((st) => [h('span', { class: `key hist-${STATUS_ORDER.includes(st) ? st : 'other'}` }), ` ${statusWords(st)}  `])),
+      h(
+        'p',
+        null,
+        `The last ${plural(stats.count, 'scored resolution')}. At or above ${num(stats.linkAt)} a mention is linked on its own; below ${num(stats.newAt)} it becomes a new counterparty; in between it waits for a reviewer.`,
+      ),
+      h(
+        'p',
+        { class: 'legend' },
+        statusesOf(stats.buckets).map((st) => [h('span', { class: `key hist-${STATUS_ORDER.includes(st) ? st : 'other'}` }), ` ${statusWords(st)}  `]),
+      ),
       h('div', { class: 'chart-wrap' }, chart),
       table,
     ),

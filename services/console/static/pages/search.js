@@ -6,7 +6,9 @@ import { errorBox } from '../ui.js';
 const DEBOUNCE_MS = 200;
 
 export function legalFormBadge(legalForm) {
-  return legalForm ? h('span', { class: 'badge badge-form', title: 'legal form' }, legalForm.toUpperCase()) : h('span', { class: 'badge badge-none', title: 'legal form' }, 'no legal form');
+  return legalForm
+    ? h('span', { class: 'badge badge-form', title: 'legal form' }, legalForm.toUpperCase())
+    : h('span', { class: 'badge badge-none', title: 'legal form' }, 'no legal form');
 }
 
 export function jurisdictionBadge(jurisdiction) {
@@ -23,13 +25,29 @@ function resultItem(hit) {
       { href: `#/counterparty/${hit.id}`, class: 'result-link', dataset: { id: String(hit.id) } },
       h('span', { class: 'result-name' }, highlighted(hit.matchedName, hit.highlight)),
       other ? h('span', { class: 'result-canonical' }, `registered as ${hit.canonicalName}`) : null,
-      h('span', { class: 'result-meta' }, legalFormBadge(hit.legalForm), jurisdictionBadge(hit.jurisdiction), h('span', { class: 'result-id' }, `#${hit.id}`), hit.score !== null ? h('span', { class: 'result-score', title: 'match score (weight of evidence, in bits)' }, `score ${num(hit.score, 1)}`) : null),
+      h(
+        'span',
+        { class: 'result-meta' },
+        legalFormBadge(hit.legalForm),
+        jurisdictionBadge(hit.jurisdiction),
+        h('span', { class: 'result-id' }, `#${hit.id}`),
+        hit.score !== null ? h('span', { class: 'result-score', title: 'match score (weight of evidence, in bits)' }, `score ${num(hit.score, 1)}`) : null,
+      ),
     ),
   );
 }
 
 export function render(main, { query }) {
-  const box = h('input', { id: 'search-box', type: 'search', autocomplete: 'off', spellcheck: 'false', value: query.get('q') ?? '', 'aria-controls': 'results', 'aria-describedby': 'search-hint', placeholder: 'a company name, or part of one' });
+  const box = h('input', {
+    id: 'search-box',
+    type: 'search',
+    autocomplete: 'off',
+    spellcheck: 'false',
+    value: query.get('q') ?? '',
+    'aria-controls': 'results',
+    'aria-describedby': 'search-hint',
+    placeholder: 'a company name, or part of one',
+  });
   const status = h('p', { class: 'search-status', role: 'status', 'aria-live': 'polite' });
   const results = h('ol', { id: 'results', class: 'results' });
   let sequence = 0;
@@ -46,9 +64,14 @@ export function render(main, { query }) {
       const path = q ? `/v1/counterparties?q=${encodeURIComponent(q)}&limit=25` : '/v1/counterparties?limit=25';
       const { data } = await api(path, { signal: controller.signal });
       if (mine !== sequence) return;
-      replace(results, data.items.map((hit) => resultItem(hit)));
+      replace(
+        results,
+        data.items.map((hit) => resultItem(hit)),
+      );
       status.textContent = q
-        ? data.items.length === 0 ? `Nothing found for “${q}”.` : `${data.items.length}${data.nextCursor ? '+' : ''} found for “${q}”, best first.`
+        ? data.items.length === 0
+          ? `Nothing found for “${q}”.`
+          : `${data.items.length}${data.nextCursor ? '+' : ''} found for “${q}”, best first.`
         : 'Type to search. Below: the first counterparties in the register, in the order they were created.';
     } catch (error) {
       if (error && error.name === 'AbortError') return;

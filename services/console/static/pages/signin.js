@@ -5,9 +5,16 @@ import { errorBox } from '../ui.js';
 
 const ALLOW_WORDS = {
   read: 'search and read counterparties, contracts, history, the review queue and scores; download exports',
-  ingest: 'load mentions', resolve: 'resolve mentions', post_contracts: 'post contracts',
-  merge: 'merge', split: 'split', undo: 'undo changes', decide_reviews: 'decide review items',
-  edit_counterparties: 'edit counterparties', manage_own_entities: 'manage our own entities', manage_keys: 'manage API keys',
+  ingest: 'load mentions',
+  resolve: 'resolve mentions',
+  post_contracts: 'post contracts',
+  merge: 'merge',
+  split: 'split',
+  undo: 'undo changes',
+  decide_reviews: 'decide review items',
+  edit_counterparties: 'edit counterparties',
+  manage_own_entities: 'manage our own entities',
+  manage_keys: 'manage API keys',
 };
 
 export function describeAllows(allows) {
@@ -15,7 +22,15 @@ export function describeAllows(allows) {
 }
 
 export function render(main, { onSignedIn }) {
-  const key = h('input', { id: 'api-key', name: 'api-key', type: 'password', autocomplete: 'off', spellcheck: 'false', required: true, placeholder: 'your API key' });
+  const key = h('input', {
+    id: 'api-key',
+    name: 'api-key',
+    type: 'password',
+    autocomplete: 'off',
+    spellcheck: 'false',
+    required: true,
+    placeholder: 'your API key',
+  });
   const problem = h('div', { class: 'form-problem' });
   const button = h('button', { type: 'submit', class: 'primary', id: 'sign-in' }, 'Sign in');
   const form = h(
@@ -23,7 +38,13 @@ export function render(main, { onSignedIn }) {
     { class: 'signin', novalidate: true },
     h('label', { for: 'api-key' }, 'API key'),
     key,
-    h('p', { class: 'hint' }, 'Kept in this browser tab only and forgotten when it closes. An administrator makes keys with ', h('code', null, 'cpreg keys create'), '.'),
+    h(
+      'p',
+      { class: 'hint' },
+      'Kept in this browser tab only and forgotten when it closes. An administrator makes keys with ',
+      h('code', null, 'cpreg keys create'),
+      '.',
+    ),
     problem,
     button,
   );
@@ -47,6 +68,15 @@ export function render(main, { onSignedIn }) {
       button.disabled = false;
     }
   });
-  replace(main, h('div', { class: 'signin-page' }, pageTitle('Sign in to the counterparty register'), h('p', { class: 'lead' }, 'Search counterparties, work the review queue, merge and split, and see who contracts with whom.'), form));
+  replace(
+    main,
+    h(
+      'div',
+      { class: 'signin-page' },
+      pageTitle('Sign in to the counterparty register'),
+      h('p', { class: 'lead' }, 'Search counterparties, work the review queue, merge and split, and see who contracts with whom.'),
+      form,
+    ),
+  );
   key.focus();
 }

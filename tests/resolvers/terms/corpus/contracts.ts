@@ -60,8 +60,22 @@ By: ______________________
 Name: Jane Harlow
 Title: Chief Executive Officer`,
     parties: [
-      { name: 'Brackenridge Fabrication, Inc.', terms: ['Licensor'], role: 'Licensor', jurisdiction: 'US-DE', address: '100 Foundry Road', kind: 'organisation' },
-      { name: 'Pellinore Widgets Ltd', terms: ['Licensee'], role: 'Licensee', jurisdiction: 'GB', identifiers: [{ scheme: 'gb_company', value: '04417782' }], address: '4 Quarry Lane, Leeds LS1 4AB' },
+      {
+        name: 'Brackenridge Fabrication, Inc.',
+        terms: ['Licensor'],
+        role: 'Licensor',
+        jurisdiction: 'US-DE',
+        address: '100 Foundry Road',
+        kind: 'organisation',
+      },
+      {
+        name: 'Pellinore Widgets Ltd',
+        terms: ['Licensee'],
+        role: 'Licensee',
+        jurisdiction: 'GB',
+        identifiers: [{ scheme: 'gb_company', value: '04417782' }],
+        address: '4 Quarry Lane, Leeds LS1 4AB',
+      },
     ],
     collective: [
       { term: 'Party', parties: ['Brackenridge Fabrication, Inc.', 'Pellinore Widgets Ltd'] },
@@ -127,7 +141,14 @@ Title: Vice President, Operations`,
     style: 'US: d/b/a trade name, EIN in parentheses, an individual party',
     text: `This Consulting Agreement (the "Agreement") is entered into by and between Sunbury Logistics, Inc. d/b/a Sunbury Freight, a Georgia corporation (EIN 58-1234567) (the "Company"), and Rowan Ellery, an individual residing at 12 Birch Court, Athens, GA 30601 (the "Consultant").`,
     parties: [
-      { name: 'Sunbury Logistics, Inc.', terms: ['Company'], role: 'Company', jurisdiction: 'US-GA', identifiers: [{ scheme: 'us_ein', value: '58-1234567' }], aliases: [{ kind: 'trade', name: 'Sunbury Freight' }] },
+      {
+        name: 'Sunbury Logistics, Inc.',
+        terms: ['Company'],
+        role: 'Company',
+        jurisdiction: 'US-GA',
+        identifiers: [{ scheme: 'us_ein', value: '58-1234567' }],
+        aliases: [{ kind: 'trade', name: 'Sunbury Freight' }],
+      },
       { name: 'Rowan Ellery', terms: ['Consultant'], role: 'Consultant', kind: 'person', address: '12 Birch Court' },
     ],
     notParties: ['Agreement'],
@@ -193,8 +214,20 @@ Title: Vice President, Operations`,
     style: 'US: formerly known as, a/k/a',
     text: `This Amendment is made by and between Harrowgate Financial Services, LLC, formerly known as Harrowgate Lending, LLC, a Delaware limited liability company ("Harrowgate"), and Pemberwick Mills Co. a/k/a Pemberwick Textile Mills, a North Carolina corporation ("Pemberwick").`,
     parties: [
-      { name: 'Harrowgate Financial Services, LLC', terms: ['Harrowgate'], role: null, jurisdiction: 'US-DE', aliases: [{ kind: 'former', name: 'Harrowgate Lending, LLC' }] },
-      { name: 'Pemberwick Mills Co.', terms: ['Pemberwick'], role: null, jurisdiction: 'US-NC', aliases: [{ kind: 'also_known_as', name: 'Pemberwick Textile Mills' }] },
+      {
+        name: 'Harrowgate Financial Services, LLC',
+        terms: ['Harrowgate'],
+        role: null,
+        jurisdiction: 'US-DE',
+        aliases: [{ kind: 'former', name: 'Harrowgate Lending, LLC' }],
+      },
+      {
+        name: 'Pemberwick Mills Co.',
+        terms: ['Pemberwick'],
+        role: null,
+        jurisdiction: 'US-NC',
+        aliases: [{ kind: 'also_known_as', name: 'Pemberwick Textile Mills' }],
+      },
     ],
   },
   {
@@ -202,7 +235,13 @@ Title: Vice President, Operations`,
     style: 'US: successor in interest (a related entity, not an alias)',
     text: `This Transportation Agreement is entered into between Dunmore Freight Lines, Inc., successor in interest to Coldbrook Carriers, Inc., an Ohio corporation (the "Carrier"), and Osgood Grain Company, a Kansas corporation (the "Shipper").`,
     parties: [
-      { name: 'Dunmore Freight Lines, Inc.', terms: ['Carrier'], role: 'Carrier', jurisdiction: 'US-OH', related: [{ relation: 'successor_of', name: 'Coldbrook Carriers, Inc.' }] },
+      {
+        name: 'Dunmore Freight Lines, Inc.',
+        terms: ['Carrier'],
+        role: 'Carrier',
+        jurisdiction: 'US-OH',
+        related: [{ relation: 'successor_of', name: 'Coldbrook Carriers, Inc.' }],
+      },
       { name: 'Osgood Grain Company', terms: ['Shipper'], role: 'Shipper', jurisdiction: 'US-KS' },
     ],
   },
@@ -221,7 +260,16 @@ Title: Vice President, Operations`,
     style: 'UK capital markets: descriptive phrase after the definition, registered number and LEI',
     text: `This Paying Agency Agreement is dated 2 September 2024 and made between Wrenfield Capital plc (the "Issuer"), a public limited company incorporated in England and Wales with registered number 08812345 and LEI 984500W7K2MQ3RZ8LN12, and Astley Trust Services Limited (the "Paying Agent").`,
     parties: [
-      { name: 'Wrenfield Capital plc', terms: ['Issuer'], role: 'Issuer', jurisdiction: 'GB', identifiers: [{ scheme: 'gb_company', value: '08812345' }, { scheme: 'lei', value: '984500W7K2MQ3RZ8LN12' }] },
+      {
+        name: 'Wrenfield Capital plc',
+        terms: ['Issuer'],
+        role: 'Issuer',
+        jurisdiction: 'GB',
+        identifiers: [
+          { scheme: 'gb_company', value: '08812345' },
+          { scheme: 'lei', value: '984500W7K2MQ3RZ8LN12' },
+        ],
+      },
       { name: 'Astley Trust Services Limited', terms: ['Paying Agent'], role: 'Paying Agent' },
     ],
   },
@@ -236,7 +284,13 @@ PARTIES
 
 (2) GOLDWREN (EUROPE) LTD incorporated and registered in Scotland with company number SC512345 whose registered office is at 9 Harbour Street, Leith EH6 6QX (the "Customer").`,
     parties: [
-      { name: 'PELLINORE WIDGETS LIMITED', terms: ['Supplier'], role: 'Supplier', jurisdiction: 'GB', identifiers: [{ scheme: 'gb_company', value: '04417782' }] },
+      {
+        name: 'PELLINORE WIDGETS LIMITED',
+        terms: ['Supplier'],
+        role: 'Supplier',
+        jurisdiction: 'GB',
+        identifiers: [{ scheme: 'gb_company', value: '04417782' }],
+      },
       { name: 'GOLDWREN (EUROPE) LTD', terms: ['Customer'], role: 'Customer', jurisdiction: 'GB', identifiers: [{ scheme: 'gb_company', value: 'SC512345' }] },
     ],
   },
@@ -303,7 +357,15 @@ Director`,
     style: 'UK lease deed: company number and VAT number in parentheses, "of" address',
     text: `THIS DEED is made on 1 May 2024 between Penhallow Estates Limited (company number 07654321, VAT number GB 123 4567 89) of 1 Fore Street, Truro TR1 2AA ("Landlord") and Trevose Surf Hire Ltd (company number 08765432) of 5 Beach Road, Newquay TR7 1AA ("Tenant").`,
     parties: [
-      { name: 'Penhallow Estates Limited', terms: ['Landlord'], role: 'Landlord', identifiers: [{ scheme: 'gb_company', value: '07654321' }, { scheme: 'vat', value: 'GB123456789' }] },
+      {
+        name: 'Penhallow Estates Limited',
+        terms: ['Landlord'],
+        role: 'Landlord',
+        identifiers: [
+          { scheme: 'gb_company', value: '07654321' },
+          { scheme: 'vat', value: 'GB123456789' },
+        ],
+      },
       { name: 'Trevose Surf Hire Ltd', terms: ['Tenant'], role: 'Tenant', identifiers: [{ scheme: 'gb_company', value: '08765432' }] },
     ],
   },
@@ -360,7 +422,13 @@ Title: Head of Procurement`,
     style: 'UK guarantee: term followed by "which expression shall include its successors"',
     text: `THIS GUARANTEE is made between Ravenglass Steel Limited, a company incorporated in England and Wales with company number 02345678 (the "Guarantor", which expression shall include its successors and permitted assigns), and Lowther Bank plc (the "Lender").`,
     parties: [
-      { name: 'Ravenglass Steel Limited', terms: ['Guarantor'], role: 'Guarantor', jurisdiction: 'GB', identifiers: [{ scheme: 'gb_company', value: '02345678' }] },
+      {
+        name: 'Ravenglass Steel Limited',
+        terms: ['Guarantor'],
+        role: 'Guarantor',
+        jurisdiction: 'GB',
+        identifiers: [{ scheme: 'gb_company', value: '02345678' }],
+      },
       { name: 'Lowther Bank plc', terms: ['Lender'], role: 'Lender' },
     ],
   },
@@ -369,7 +437,13 @@ Title: Head of Procurement`,
     style: 'EU in English: German GmbH with Amtsgericht and HRB; Swedish AB with organisation number',
     text: `This Supply Agreement is made between Holzner Feinmechanik GmbH, a company organised under the laws of Germany, registered with the commercial register of the Amtsgericht München under HRB 20931 ("Holzner"), and Vasterby Components AB, a company incorporated under the laws of Sweden with organisation number 556410-2712 ("Vasterby").`,
     parties: [
-      { name: 'Holzner Feinmechanik GmbH', terms: ['Holzner'], role: null, jurisdiction: 'DE', identifiers: [{ scheme: 'de_register', value: 'muenchen HRB 20931' }] },
+      {
+        name: 'Holzner Feinmechanik GmbH',
+        terms: ['Holzner'],
+        role: null,
+        jurisdiction: 'DE',
+        identifiers: [{ scheme: 'de_register', value: 'muenchen HRB 20931' }],
+      },
       { name: 'Vasterby Components AB', terms: ['Vasterby'], role: null, jurisdiction: 'SE', identifiers: [{ scheme: 'se_org', value: '5564102712' }] },
     ],
   },
@@ -378,7 +452,14 @@ Title: Head of Procurement`,
     style: 'EU in English: French SAS with RCS number',
     text: `This Services Agreement is entered into between Lumiere Atlantique SAS, a French societe par actions simplifiee registered with the RCS Nantes 533 214 904, whose registered office is at 12 quai de la Fosse, 44000 Nantes, France (the "Service Provider"), and Brightwater Tools Corp., a Nevada corporation (the "Client").`,
     parties: [
-      { name: 'Lumiere Atlantique SAS', terms: ['Service Provider'], role: 'Service Provider', jurisdiction: 'FR', identifiers: [{ scheme: 'fr_siren', value: '533214904' }], address: '12 quai de la Fosse' },
+      {
+        name: 'Lumiere Atlantique SAS',
+        terms: ['Service Provider'],
+        role: 'Service Provider',
+        jurisdiction: 'FR',
+        identifiers: [{ scheme: 'fr_siren', value: '533214904' }],
+        address: '12 quai de la Fosse',
+      },
       { name: 'Brightwater Tools Corp.', terms: ['Client'], role: 'Client', jurisdiction: 'US-NV' },
     ],
   },
@@ -405,10 +486,16 @@ have agreed as follows:`,
   },
   {
     id: 'eu-sweden-issue-example',
-    style: 'EU Nordic: the issue\'s organisation number example (fails its Luhn check: kept with a problem)',
+    style: "EU Nordic: the issue's organisation number example (fails its Luhn check: kept with a problem)",
     text: `This Agreement is entered into between Norrvik Energi AB, a company incorporated under the laws of Sweden with organisation number 559912-3381 ("Norrvik"), and Kallfors Data Oy, a company incorporated in Finland ("Kallfors").`,
     parties: [
-      { name: 'Norrvik Energi AB', terms: ['Norrvik'], role: null, jurisdiction: 'SE', identifiers: [{ scheme: 'se_org', value: '559912-3381', problem: true }] },
+      {
+        name: 'Norrvik Energi AB',
+        terms: ['Norrvik'],
+        role: null,
+        jurisdiction: 'SE',
+        identifiers: [{ scheme: 'se_org', value: '559912-3381', problem: true }],
+      },
       { name: 'Kallfors Data Oy', terms: ['Kallfors'], role: null, jurisdiction: 'FI' },
     ],
   },
@@ -461,8 +548,22 @@ Bunyip Haulage Pty Limited ACN 123 456 780 of 8 Port Road, Adelaide SA 5000 (Con
     style: 'Australian: company as trustee with ACN and ABN; state of incorporation',
     text: `This Deed is made between Billabirra Ridge Investments Pty Limited ACN 123 456 780 as trustee for the Billabirra Ridge Family Trust ABN 51 824 753 556 ("Trustee") and Kookaburra Freight Pty Ltd (ACN 004 085 616), a company incorporated in New South Wales ("Kookaburra").`,
     parties: [
-      { name: 'Billabirra Ridge Investments Pty Limited', terms: ['Trustee'], role: 'Trustee', identifiers: [{ scheme: 'au_acn', value: '123456780' }, { scheme: 'au_abn', value: '51824753556' }] },
-      { name: 'Kookaburra Freight Pty Ltd', terms: ['Kookaburra'], role: null, jurisdiction: 'AU-NSW', identifiers: [{ scheme: 'au_acn', value: '004085616' }] },
+      {
+        name: 'Billabirra Ridge Investments Pty Limited',
+        terms: ['Trustee'],
+        role: 'Trustee',
+        identifiers: [
+          { scheme: 'au_acn', value: '123456780' },
+          { scheme: 'au_abn', value: '51824753556' },
+        ],
+      },
+      {
+        name: 'Kookaburra Freight Pty Ltd',
+        terms: ['Kookaburra'],
+        role: null,
+        jurisdiction: 'AU-NSW',
+        identifiers: [{ scheme: 'au_acn', value: '004085616' }],
+      },
     ],
   },
   {
@@ -479,7 +580,13 @@ Bunyip Haulage Pty Limited ACN 123 456 780 of 8 Port Road, Adelaide SA 5000 (Con
     style: 'Japanese company described in English: Co., Ltd., a Japanese corporation, corporate number',
     text: `This Purchase Agreement is made between Mizukane Denki Co., Ltd., a Japanese corporation (corporate number 4010001234567) (the "Manufacturer"), and Ferncastle Audio Limited, a company incorporated in England and Wales (the "Purchaser").`,
     parties: [
-      { name: 'Mizukane Denki Co., Ltd.', terms: ['Manufacturer'], role: 'Manufacturer', jurisdiction: 'JP', identifiers: [{ scheme: 'other', value: '4010001234567' }] },
+      {
+        name: 'Mizukane Denki Co., Ltd.',
+        terms: ['Manufacturer'],
+        role: 'Manufacturer',
+        jurisdiction: 'JP',
+        identifiers: [{ scheme: 'other', value: '4010001234567' }],
+      },
       { name: 'Ferncastle Audio Limited', terms: ['Purchaser'], role: 'Purchaser', jurisdiction: 'GB' },
     ],
   },
@@ -499,7 +606,7 @@ Title: Representative Director`,
   },
   {
     id: 'fr-ci-apres',
-    style: 'French: ENTRE LES SOUSSIGNÉS, « ci-après », RCS de ... sous le numéro (the issue\'s example number, fails Luhn)',
+    style: "French: ENTRE LES SOUSSIGNÉS, « ci-après », RCS de ... sous le numéro (the issue's example number, fails Luhn)",
     text: `ENTRE LES SOUSSIGNÉS :
 
 La société Lumière Atlantique SAS, société par actions simplifiée au capital de 50 000 euros, immatriculée au RCS de Nantes sous le numéro 533 214 907, dont le siège social est situé 12 quai de la Fosse, 44000 Nantes (ci-après « le Prestataire »),
@@ -527,8 +634,18 @@ der Lindqvist Software GmbH, Hafenstraße 12, 20457 Hamburg, eingetragen im Hand
 
 – im Folgenden „Auftragnehmer“ –`,
     parties: [
-      { name: 'Holzner Feinmechanik GmbH', terms: ['Auftraggeber'], role: 'Auftraggeber', identifiers: [{ scheme: 'de_register', value: 'muenchen HRB 20931' }] },
-      { name: 'Lindqvist Software GmbH', terms: ['Auftragnehmer'], role: 'Auftragnehmer', identifiers: [{ scheme: 'de_register', value: 'hamburg HRB 154321' }] },
+      {
+        name: 'Holzner Feinmechanik GmbH',
+        terms: ['Auftraggeber'],
+        role: 'Auftraggeber',
+        identifiers: [{ scheme: 'de_register', value: 'muenchen HRB 20931' }],
+      },
+      {
+        name: 'Lindqvist Software GmbH',
+        terms: ['Auftragnehmer'],
+        role: 'Auftragnehmer',
+        identifiers: [{ scheme: 'de_register', value: 'hamburg HRB 154321' }],
+      },
     ],
   },
   {
@@ -608,7 +725,8 @@ WHEREAS, Northfield Agri Supply Ltd., a company incorporated under the laws of C
   },
   {
     id: 'uk-hard-wrapped',
-    style: 'UK plain text hard-wrapped at 70 columns: names broken across lines, (hereinafter referred to as the "X") inside parentheses, party and collective term in one parenthesis',
+    style:
+      'UK plain text hard-wrapped at 70 columns: names broken across lines, (hereinafter referred to as the "X") inside parentheses, party and collective term in one parenthesis',
     text: `THIS AGREEMENT is made on 4 June 2024 by and between Greystoke
 Harbour Services Limited, a company incorporated in England and Wales
 (hereinafter referred to as the "Operator"), and Ilfracombe Marine
@@ -695,7 +813,13 @@ Ci-après dénommé « le Client »,
 
 D'autre part.`,
     parties: [
-      { name: 'Atelier Verdier SARL', terms: ['Prestataire'], role: 'Prestataire', identifiers: [{ scheme: 'fr_siren', value: '412876302' }], address: '3 rue des Tanneurs' },
+      {
+        name: 'Atelier Verdier SARL',
+        terms: ['Prestataire'],
+        role: 'Prestataire',
+        identifiers: [{ scheme: 'fr_siren', value: '412876302' }],
+        address: '3 rue des Tanneurs',
+      },
       { name: 'Julien Marchetti', terms: ['Client'], role: 'Client', kind: 'person' },
     ],
     notParties: [],

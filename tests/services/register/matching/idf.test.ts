@@ -62,7 +62,13 @@ describe('register token rarity (services/register/matching/idf.ts)', () => {
   });
 
   it('a token counted to the cap stays common in a register of more than a million names', () => {
-    const table = idfFromCounts(new Map([['holdings', DF_CAP], ['zanvory', 3]]), 5_000_000);
+    const table = idfFromCounts(
+      new Map([
+        ['holdings', DF_CAP],
+        ['zanvory', 3],
+      ]),
+      5_000_000,
+    );
     // Share 0.001 of 5,000,000 = 5,000 names (COMMON_TOKEN_SHARE): the capped count is raised to it.
     expect(isInformativeCore(['holdings'], table)).toBe(false);
     expect(isInformativeCore(['zanvory'], table)).toBe(true);

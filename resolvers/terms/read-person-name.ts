@@ -1,0 +1,132 @@
+/**
+ * Reads a natural person's name where a signature phrase says one stands ("by Oswin Tarrant, Managing Director",
+ * "Witness: Theda Kornblum", "represented by Mr Anselm Voigt"): capitalised words, initials and family-name
+ * particles, after an optional form of address. The cue, not the words, says it is a person, so no given-name list
+ * is needed here; the reader only refuses what cannot be a name (a job title, a legal form, a signature rule).
+ * Forms of address and particles are common practice.
+ */
+import { analyseCached } from './analyse-cached.ts';
+import { TITLE_WORDS } from './is-job-title.ts';
+import { isSpace } from './text-scan.ts';
+import { trimEndChars } from './trim-end-chars.ts';
+
+export interface ReadName {
+  /** The name without its form of address, as written. */
+  name: string;
+  start: number;
+  /** Index just after the name's last word. */
+  end: number;
+  /** A form of address stood before it ("Mr", "Maître"): a person for sure. */
+  addressed: boolean;
+}
+
+/** Forms of address skipped before the name ("Mr", "Dr.", "Maître", "Herr"). */
+const ADDRESS = new Set([
+  'mr',
+  'mrs',
+  'ms',
+  'miss',
+  'mx',
+  'dr',
+  'prof',
+  'sir',
+  'dame',
+  'monsieur',
+  'madame',
+  'mademoiselle',
+  'm',
+  'mme',
+  'me',
+  'maître',
+  'maitre',
+  'herr',
+  'frau',
+  'señor',
+  'señora',
+  'sr',
+  'sra',
+  'signor',
+  'signora',
+  'sig',
+  'dott',
+  'dott.ssa',
+  'avv',
+]);
+/** Lower-case particles inside a family name ("Maria van der Linde"). */
+const PARTICLES = new Set([
+  'van',
+  'von',
+  'de',
+  'der',
+  'den',
+  'da',
+  'di',
+  'du',
+  'del',
+  'della',
+  'la',
+  'le',
+  'ten',
+  'ter',
+  'bin',
+  'ibn',
+  'al',
+  'dos',
+  'das',
+  'y',
+  'zu',
+]);
+/** A real name has at most this many words (given names, particles, family names). Common practice. */
+const MAX_WORDS = 6;
+
+interface Word {
+  start: number;
+  end: number;
+  text: string;
+}
+
+function wordAt(text: string, i: number, end: number): Word | null {
+  let j = i;
+  while (j < end && /[\p{L}\p{M}'’.-]/u.test(text[j] as string)) j++;
+  if (j === i) return null;
+  return { start: i, end: j, text: text.slice(i, j) };
+}
+
+/** Reads a name starting at or after `from` (spaces skipped), before `end`; null when none stands there. */
+export function readPersonName(text: string, from: number, end: number): ReadName | null {
+  let i = from;
+  while (i < end && isSpace(text[i])) i++;
+  const taken: Word[] = [];
+  let addressed = false;
+  for (let guard = 0; guard < MAX_WORDS + 2 && i < end; guard++) {
+    const w = wordAt(text, i, end);
+    if (w === null) break;
+    const bare = trimEndChars(w.text, ".'’");
+    const lower = bare.toLowerCase();
+    if (taken.length === 0 && !addressed && ADDRESS.has(lower) && /^\p{Lu}/u.test(w.text)) {
+      addressed = true;
+    } else if (/^\p{Lu}/u.test(w.text) && !TITLE_WORDS.has(lower)) {
+      taken.push({ ...w, text: w.text.endsWith('.') && bare.length > 1 ? bare : w.text });
+    } else if (taken.length > 0 && PARTICLES.has(w.text)) {
+      taken.push(w);
+    } else break;
+    i = w.end;
+    // Words of a name are separated by single spaces (or a line wrap inside prose); anything else ends it.
+    let k = i;
+    while (k < end && (text[k] === ' ' || text[k] === '\u00a0')) k++;
+    if (k === i) break;
+    i = k;
+  }
+  while (taken.length > 0 && PARTICLES.has((taken[taken.length - 1] as Word).text)) taken.pop();
+  if (taken.length === 0 || taken.length > MAX_WORDS) return null;
+  // One word is a name only after a form of address ("Maître Dufresne"); an initial alone never is.
+  if (taken.length === 1 && !addressed) return null;
+  const first = taken[0] as Word;
+  const last = taken[taken.length - 1] as Word;
+  const name = text.slice(first.start, last.start + last.text.length);
+  if (name.replace(/\P{L}/gu, '').length < 2) return null;
+  const analysis = analyseCached(name);
+  // "Qorv Holdings Ltd": a company signing through its general partner is no person.
+  if (analysis.legalForm !== null || analysis.kind === 'organisation' || analysis.partyStatus !== 'party') return null;
+  return { name, start: first.start, end: last.start + last.text.length, addressed };
+}
