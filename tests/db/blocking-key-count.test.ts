@@ -5,8 +5,8 @@
  * (common practice: a materialised count checked against a recount). Names are invented.
  */
 import { sql, type Kysely } from 'kysely';
-import { describe, expect, it } from 'vitest';
-import { forEachBackend, openTestDatabase } from '../support/index.ts';
+import { expect, it } from 'vitest';
+import { describeBackends, openTestDatabase } from '../support/index.ts';
 import type { Database } from '../../db/types.ts';
 import { createRegisterContext, mergeCounterparties, resolveMention, undoEvent } from '../../services/register/index.ts';
 import { loadCounterparties } from '../../services/register/bulk-load.ts';
@@ -24,8 +24,8 @@ async function countDrift(db: Kysely<Database>): Promise<unknown[]> {
   return result.rows;
 }
 
-forEachBackend((backend, available) => {
-  (available ? describe : describe.skip)(`blocking_key_count [${backend}]`, () => {
+describeBackends('blocking_key_count', (backend) => {
+  {
     it('equals the capped recount after loads, resolves, a merge, an undo and concurrent writers', async () => {
       const opened = await openTestDatabase(backend);
       try {
@@ -79,5 +79,5 @@ forEachBackend((backend, available) => {
         await opened.close();
       }
     }, 180_000);
-  });
+  }
 });
