@@ -32,14 +32,12 @@ export async function candidatesByKeys(
 const REFERENCE_NAMES = 1_000_000;
 
 /**
- * The rarity weight of key `k.key`: round(1000 · ln(REFERENCE_NAMES / names holding it)), an integer so that sums
- * (and so ties) do not depend on the order of addition. Counts come from blocking_key_count (kept by triggers,
- * capped: every capped key weighs the same); a key no name holds yet counts as held once.
+ * The rarity weight of a key held by `names` names: round(1000 · ln(REFERENCE_NAMES / names)), an integer so that
+ * sums (and so ties) do not depend on the order of addition. Counts come from blocking_key_count (kept by triggers,
+ * capped: every capped key weighs the same); a key no name holds yet counts as held once. Joined, not read by a
+ * subquery per key: the subquery form halved the ingest rate (the planner evaluated it per candidate hit).
  */
-const rarityOf = (alias: string) =>
-  sql.raw(
-    `round(1000 * ln(${REFERENCE_NAMES}::float8 / greatest(1, coalesce((SELECT kc.names FROM blocking_key_count kc WHERE kc.key = ${alias}.key), 1))))::bigint`,
-  );
+const rarityOf = (names: string) => sql.raw(`round(1000 * ln(${REFERENCE_NAMES}::float8 / greatest(1, coalesce(${names}, 1))))::bigint`);
 
 export async function keysOfCounterparty(db: Queryable, counterpartyId: number): Promise<string[]> {
   const rows = await db.selectFrom('blocking_key').select('key').distinct().where('counterparty_id', '=', counterpartyId).orderBy('key').execute();
@@ -117,7 +115,7 @@ export async function candidateDetailsBatch(
     WITH q AS (
       SELECT p, key FROM unnest(${sql.val(keyProbe)}::int[], ${sql.val(keys)}::text[]) AS q(p, key)
     ), dk AS (
-      SELECT dk.key, ${rarityOf('dk')} AS rarity FROM (SELECT DISTINCT key FROM q) dk
+      SELECT dk.key, ${rarityOf('kc.names')} AS rarity FROM (SELECT DISTINCT key FROM q) dk LEFT JOIN blocking_key_count kc ON kc.key = dk.key
     ), hits AS (
       SELECT dk.key, dk.rarity, c.counterparty_id
       FROM dk
