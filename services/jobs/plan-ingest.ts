@@ -12,7 +12,7 @@ import { scorePair } from '../../resolvers/score/index.ts';
 import { chunksOf, deleteChunks, insertPartitions, readJob, updateJob } from '../../db/queries/jobs.ts';
 import { emptyCounts, storedHashes } from '../ingest/run-ingest.ts';
 import { RegisterError } from '../register/errors.ts';
-import { basisOf, documentFrequencies, freezeRarity, idfFromCounts, registerNameCount, type FrozenRarity } from '../register/matching/idf.ts';
+import { basisOf, documentFrequencies, freezeRarity, idfFromCounts, registerSize, type FrozenRarity } from '../register/matching/idf.ts';
 import { currentModel } from '../register/matching/model.ts';
 import { prepareMention, type PreparedMention } from '../register/resolve/prepare.ts';
 import { mentionKey, type MentionInput } from '../../resolvers/vocabulary.ts';
@@ -123,10 +123,10 @@ export async function planIngest(deps: JobDeps, jobId: number): Promise<{ partit
     deps.db,
     records.flatMap((r) => r.analysis.tokens),
   );
-  const registerNames = await registerNameCount(deps.db);
+  const registerCount = await registerSize(deps.db);
   const jobBasis = basisOf(records.map((r) => r.analysis.tokens));
-  const idf = idfFromCounts(registerDf, registerNames, jobBasis);
-  const rarity = freezeRarity(registerDf, registerNames, jobBasis, heldTwice(records.map((r) => r.analysis.tokens)));
+  const idf = idfFromCounts(registerDf, registerCount, jobBasis);
+  const rarity = freezeRarity(registerDf, registerCount, jobBasis, heldTwice(records.map((r) => r.analysis.tokens)));
   const pairs = candidatePairs(records, { idf });
   const scores = new Float64Array(pairs.count);
   let linkingPairs = 0;

@@ -11,7 +11,7 @@ import { candidateDetailsBatch, type CandidateDetail } from '../../../db/queries
 import { listOwnEntities, type OwnEntityView } from '../../../db/queries/own-entities.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
 import { analyse } from './analysis.ts';
-import { documentFrequencies, NO_BASIS, registerNameCount, type RarityBasis, type RarityReads } from './idf.ts';
+import { documentFrequencies, NO_BASIS, registerSize, type RarityBasis, type RarityReads } from './idf.ts';
 import { keysOfAnalysis } from './keys.ts';
 
 export interface ScoredMemoKey {
@@ -31,7 +31,7 @@ function countryOf(probe: { country?: string | null; input?: { country?: string 
 
 export class BatchReads implements RarityReads {
   private own: Promise<OwnEntityView[]> | undefined;
-  private names: Promise<number> | undefined;
+  private size: Promise<number> | undefined;
   /** The names resolved with the register's in this batch (matching/idf.ts): set once, before any scoring. */
   basis: RarityBasis = NO_BASIS;
   private readonly df = new Map<string, number>();
@@ -46,10 +46,10 @@ export class BatchReads implements RarityReads {
     return this.own;
   }
 
-  /** The register's name count, read once per batch. */
-  registerNames(): Promise<number> {
-    this.names ??= registerNameCount(this.db);
-    return this.names;
+  /** The register's size in counterparties (matching/idf.ts), read once per batch. */
+  registerSize(): Promise<number> {
+    this.size ??= registerSize(this.db);
+    return this.size;
   }
 
   /** Document frequencies of `tokens`, reading only those not read before in this batch. */

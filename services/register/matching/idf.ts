@@ -51,7 +51,7 @@ export async function documentFrequencies(db: Queryable, tokens: Iterable<string
 }
 
 /** How many counterparties the register holds (its highest counterparty id: see the header). */
-export async function registerNameCount(db: Queryable): Promise<number> {
+export async function registerSize(db: Queryable): Promise<number> {
   const result = await sql<{ n: string | number | null }>`SELECT max(id) AS n FROM counterparty`.execute(db);
   return Number(result.rows[0]?.n ?? 0);
 }
@@ -90,13 +90,13 @@ export function basisOf(names: Iterable<readonly string[]>, frozen?: FrozenRarit
 export const NO_BASIS: RarityBasis = { documents: 0, frequencies: new Map() };
 
 /**
- * The IDF table for register counts `registerDf` (capped) and `registerNames`, with `basis` added. A token at the
+ * The IDF table for register counts `registerDf` (capped) and `registerCounterparties`, with `basis` added. A token at the
  * cap counts as at least COMMON_TOKEN_SHARE of N, so that it stays common in a register of more than a million
  * names (where the cap alone would make it look rare).
  */
-export function idfFromCounts(registerDf: ReadonlyMap<string, number>, registerNames: number, basis: RarityBasis = NO_BASIS): IdfTable {
+export function idfFromCounts(registerDf: ReadonlyMap<string, number>, registerCounterparties: number, basis: RarityBasis = NO_BASIS): IdfTable {
   const frozen = basis.frozen;
-  const documents = frozen ? Math.max(frozen.documents, 1) : registerNames + basis.documents;
+  const documents = frozen ? Math.max(frozen.documents, 1) : registerCounterparties + basis.documents;
   const frequencies = new Map<string, number>();
   for (const [token, stored] of registerDf) {
     const held = frozen?.frequencies[token];
@@ -116,14 +116,14 @@ function atLeastCommonWhenCapped(stored: number, documents: number): number {
 /** What idfFor reads through when a batch is running (matching/batch-reads.ts): cached counts and the batch's basis. */
 export interface RarityReads {
   frequencies(tokens: Iterable<string>): Promise<Map<string, number>>;
-  registerNames(): Promise<number>;
+  registerSize(): Promise<number>;
   readonly basis: RarityBasis;
 }
 
 export async function idfFor(db: Queryable, tokens: Iterable<string>, reads?: RarityReads): Promise<IdfTable> {
-  if (reads) return idfFromCounts(await reads.frequencies(tokens), await reads.registerNames(), reads.basis);
+  if (reads) return idfFromCounts(await reads.frequencies(tokens), await reads.registerSize(), reads.basis);
   const list = [...tokens];
-  const [df, names] = await Promise.all([documentFrequencies(db, list), registerNameCount(db)]);
+  const [df, names] = await Promise.all([documentFrequencies(db, list), registerSize(db)]);
   return idfFromCounts(df, names);
 }
 
@@ -132,8 +132,13 @@ export async function idfFor(db: Queryable, tokens: Iterable<string>, reads?: Ra
  * token in `shared`, the tokens two or more of the job's mentions hold (the others are held by one mention, so by
  * one partition only, which counts them itself).
  */
-export function freezeRarity(registerDf: ReadonlyMap<string, number>, registerNames: number, job: RarityBasis, shared: ReadonlySet<string>): FrozenRarity {
-  const idfDocuments = registerNames + job.documents;
+export function freezeRarity(
+  registerDf: ReadonlyMap<string, number>,
+  registerCounterparties: number,
+  job: RarityBasis,
+  shared: ReadonlySet<string>,
+): FrozenRarity {
+  const idfDocuments = registerCounterparties + job.documents;
   const frequencies: Record<string, number> = {};
   for (const [token, inJob] of job.frequencies) {
     if (!shared.has(token)) continue;
