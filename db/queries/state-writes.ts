@@ -58,22 +58,36 @@ export async function deleteById(trx: Trx, table: string, id: number): Promise<v
 /** One set-based write, to be run alone or with others in one statement (`runWrites`). */
 export type SetWrite = RawBuilder<unknown>;
 
+/**
+ * Rows as the JSON text the set-based writes read. A string holding a lone surrogate (half of a character outside
+ * the Basic Multilingual Plane, cut by code that counted UTF-16 units) is written with U+FFFD in its place, as a
+ * text parameter is when the driver encodes it as UTF-8; JSON.stringify would write it as an escape that the
+ * database's JSON parser refuses ("Unicode low surrogate must follow a high surrogate"), failing the whole write.
+ */
+function rowsJson(rows: readonly object[]): string {
+  return JSON.stringify(rows, (_key, value: unknown) => (typeof value === 'string' && !wellFormed(value) ? toWellFormed(value) : value));
+}
+
+// ES2024 string methods (Node 20 has them; the ES2023 lib in tsconfig does not declare them).
+const wellFormed = (text: string): boolean => (text as unknown as { isWellFormed(): boolean }).isWellFormed();
+const toWellFormed = (text: string): string => (text as unknown as { toWellFormed(): string }).toWellFormed();
+
 /** Inserts many rows (every column named). */
 export function insertRows(table: string, columns: readonly string[], rows: readonly Values[]): SetWrite {
   const cols = sql.join(columns.map((c) => sql.ref(c)));
-  return sql`INSERT INTO ${sql.table(table)} (${cols}) SELECT ${cols} FROM jsonb_populate_recordset(NULL::${sql.table(table)}, ${JSON.stringify(rows)}::jsonb)`;
+  return sql`INSERT INTO ${sql.table(table)} (${cols}) SELECT ${cols} FROM jsonb_populate_recordset(NULL::${sql.table(table)}, ${rowsJson(rows)}::jsonb)`;
 }
 
 /** Sets the same columns of many rows (each row carries its id). */
 export function updateRows(table: string, columns: readonly string[], rows: readonly Values[]): SetWrite {
   return sql`UPDATE ${sql.table(table)} AS t SET ${sql.join(columns.map((c) => sql`${sql.ref(c)} = r.${sql.ref(c)}`))}
-    FROM jsonb_populate_recordset(NULL::${sql.table(table)}, ${JSON.stringify(rows)}::jsonb) AS r WHERE t.id = r.id`;
+    FROM jsonb_populate_recordset(NULL::${sql.table(table)}, ${rowsJson(rows)}::jsonb) AS r WHERE t.id = r.id`;
 }
 
 /** Blocking keys of names (a key already there stays). */
 export function insertBlockingKeys(keys: readonly { key: string; counterparty_id: number; name_id: number }[]): SetWrite {
   return sql`INSERT INTO blocking_key (key, counterparty_id, name_id)
-    SELECT key, counterparty_id, name_id FROM jsonb_populate_recordset(NULL::blocking_key, ${JSON.stringify(keys)}::jsonb)
+    SELECT key, counterparty_id, name_id FROM jsonb_populate_recordset(NULL::blocking_key, ${rowsJson(keys)}::jsonb)
     ON CONFLICT DO NOTHING`;
 }
 

@@ -104,7 +104,9 @@ export function initialsOf(tokens: readonly string[], keepStopWords: boolean): s
   for (const token of tokens) {
     if (!keepStopWords && ACRONYM_STOP_WORDS.has(token)) continue;
     if (token === '&') continue;
-    out += token[0] ?? '';
+    // The first character, not the first UTF-16 unit: half of a character outside the BMP is no initial.
+    const first = token.codePointAt(0);
+    if (first !== undefined) out += String.fromCodePoint(first);
   }
   return out;
 }
