@@ -3,7 +3,8 @@
  *
  *   equal          the same tokens in the same order
  *   near_equal     the same letters up to spacing ("Crelan Co" / "CrelanCo") or word order
- *   typo           the same words but for one typo in one long word ("Fabrication" / "Fabricatoin")
+ *   typo           the same words but for a typo in one word ("Fabrication" / "Fabricatoin"), or in two when a third
+ *                  word is shared exactly; or the same words run together with one typo
  *   abbreviation   the same words, one or more abbreviated on one side ("Caja R. de Navarra" / "Caja Rural de
  *                  Navarra"): an abbreviation is a leading part of the other side's word
  *   extra_words    one side's words all stand in the other, which adds some ("Sparkasse Dortmund" /
@@ -16,6 +17,7 @@
  */
 import { ACTIVITY_WORDS, BRANCH_WORDS, isNumberToken, isPlaceWord } from './distinguishing-words.ts';
 import { jaroWinkler, jaroWinklerUpperBound } from './jaro-winkler.ts';
+import { withinOneEdit } from './within-one-edit.ts';
 
 export type NameDifferenceKind = 'equal' | 'near_equal' | 'typo' | 'abbreviation' | 'extra_words' | 'different';
 export type DistinguishingKind = 'number' | 'branch' | 'activity' | 'place';
@@ -75,6 +77,10 @@ const TYPO_SIMILARITY = 0.92;
 const TYPO_MIN_LENGTH = 9;
 const TYPO_MIN_LENGTH_BESIDE_RARE = 5;
 const ABBREVIATION_MAX_LENGTH = 4;
+const ONE_EDIT_MIN_LENGTH = 8;
+const MAX_TYPOS = 2;
+const JOINED_TYPO_MIN_LENGTH = 12;
+const ONE_EDIT_MIN_LENGTH_BESIDE_RARE = 4;
 
 interface Alignment {
   restA: string[];
@@ -108,11 +114,14 @@ export function compareNameTokens(
 
 function differenceKind(a: readonly string[], b: readonly string[], aligned: Alignment): NameDifferenceKind {
   if (a.length === 0 || b.length === 0) return 'different';
-  if (letterCount(a) === letterCount(b) && a.join('') === b.join('')) return 'near_equal';
+  const joinedA = a.join('');
+  const joinedB = b.join('');
+  if (joinedA === joinedB) return 'near_equal';
+  if (a.length !== b.length && isJoinedTypo(a, b)) return 'typo';
   if (aligned.shared === 0) return 'different';
   if (aligned.restA.length === 0 && aligned.restB.length === 0) {
     if (aligned.abbreviations > 0) return 'abbreviation';
-    return aligned.typos === 0 ? 'near_equal' : aligned.typos === 1 ? 'typo' : 'different';
+    return aligned.typos === 0 ? 'near_equal' : aligned.typos === 1 || (aligned.typos <= MAX_TYPOS && aligned.shared > aligned.typos) ? 'typo' : 'different';
   }
   if (aligned.restA.length === 0 || aligned.restB.length === 0) return aligned.typos === 0 ? 'extra_words' : 'different';
   return 'different';
@@ -136,9 +145,13 @@ function align(a: readonly string[], b: readonly string[], isRare: (token: strin
   const leftA: string[] = [];
   // A typo in a shorter word counts only beside a rare word the names share ("Pelrosico Rail Compnents" /
   // "Pelrosico Rail Components"); beside common words it is as often another name ("Tiberio SPV" / "Tiberius SPV").
-  const minLength = restA.length > 0 && a.some((t) => !restA.includes(t) && isRare(t)) ? TYPO_MIN_LENGTH_BESIDE_RARE : TYPO_MIN_LENGTH;
+  const besideRare = restA.length > 0 && a.some((t) => !restA.includes(t) && isRare(t));
+  const minLength = besideRare ? TYPO_MIN_LENGTH_BESIDE_RARE : TYPO_MIN_LENGTH;
+  // One edit reads as a typo only beside a word the names share: a one-word name one letter from another is as often
+  // another name ("CESAB" / "CESAM"); and in a short word only beside a rare shared word ("Hunan" / "Henan").
+  const oneEditMin = shared === 0 ? Infinity : besideRare ? ONE_EDIT_MIN_LENGTH_BESIDE_RARE : ONE_EDIT_MIN_LENGTH;
   for (const token of restA) {
-    const k = firstFree(b, taken, (other) => isTypo(token, other, minLength));
+    const k = firstFree(b, taken, (other) => isTypo(token, other, minLength, oneEditMin));
     if (k >= 0) {
       taken[k] = 1;
       typos++;
@@ -158,27 +171,53 @@ function align(a: readonly string[], b: readonly string[], isRare: (token: strin
   return { restA: leftA, restB, typos, abbreviations, shared };
 }
 
+/**
+ * Words run together and a typo besides ("ZanludicoInstruments" / "Zanludico Instrumentz"): the words the two sides
+ * do not share are one edit apart once the spaces are gone, and long (a short run is as often another name: "Citibank"
+ * / "Cit Bank"); no digits, where one edit is another number.
+ */
+function isJoinedTypo(a: readonly string[], b: readonly string[]): boolean {
+  const restA = a.filter((t) => !b.includes(t)).join('');
+  const restB = b.filter((t) => !a.includes(t)).join('');
+  if (restA.length < JOINED_TYPO_MIN_LENGTH || restB.length < JOINED_TYPO_MIN_LENGTH) return false;
+  return !/\d/.test(restA + restB) && withinOneEdit(restA, restB);
+}
+
 function firstFree(b: readonly string[], taken: Uint8Array, fits: (other: string) => boolean): number {
   for (let k = 0; k < b.length; k++) if (taken[k] === 0 && fits(b[k] as string)) return k;
   return -1;
 }
 
-function isTypo(x: string, y: string, minLength: number): boolean {
+function isTypo(x: string, y: string, minLength: number, oneEditMin: number): boolean {
   // A letter misread as one it looks like ("CATERlNG" / "CATERING") is a typo in a shorter word too.
   if (x.length === y.length && x.length >= TYPO_MIN_LENGTH_BESIDE_RARE && x !== y && lookAlike(x) === lookAlike(y))
     return !isNumberToken(x) && !isNumberToken(y);
-  if (x.length < minLength || y.length < minLength) return false;
-  // One typo (a letter added, dropped, changed or swapped) changes the length by one at most.
-  if (Math.abs(x.length - y.length) > 1) return false;
   // Scripts written without spaces (Han, Kana, Thai…) make a whole name one token: a changed character there is
   // another name ("…鄞州农村商业银行" / "…慈溪农村商业银行"), not a typo.
   if (!isSpacedScript(x) || !isSpacedScript(y)) return false;
+  if (!typoNumbersAgree(x, y)) return false;
+  // One edit ("Halselan" / "Halseln", "Power" / "ower"): two edits are as often another name ("Tiberio" /
+  // "Tiberius", "Purbach" / "Peuerbach"). Not in a word with digits, where one digit is another number ("U1165").
+  if (x.length >= oneEditMin && y.length >= oneEditMin && !/\d/.test(x + y) && withinOneEdit(x, y)) return true;
+  if (x.length < minLength || y.length < minLength) return false;
+  // One typo (a letter added, dropped, changed or swapped) changes the length by one at most.
+  if (Math.abs(x.length - y.length) > 1) return false;
   if (jaroWinklerUpperBound(x.length, y.length) < TYPO_SIMILARITY || sharedLetterBound(x, y) < TYPO_SIMILARITY) return false;
-  if (isNumberToken(x) || isNumberToken(y)) return false;
-  // Digits carry identity ("3Eclipse" / "Eclipse", "Fund2" / "Fund3"): a word whose digits differ is no typo, unless
-  // a digit stands in a letter's place that it looks like ("Ostjasic0" / "Ostjasico", a misread scan).
-  if (digitsOf(x) !== digitsOf(y) && (x.length !== y.length || digitsOf(lookAlike(x)) !== digitsOf(lookAlike(y)))) return false;
   return jaroWinkler(x, y) >= TYPO_SIMILARITY;
+}
+
+/**
+ * Numbers carry identity: two numbers are never one with a typo ("II" / "III", "2" / "3"), and a word whose digits
+ * differ is no typo ("3Eclipse" / "Eclipse", "Fund2" / "Fund3"), unless a digit stands in a letter's place that it
+ * looks like ("Ostjasic0" / "Ostjasico", a misread scan). A number word against a plain word ("First" / "Firt") may
+ * be a typo of it.
+ */
+function typoNumbersAgree(x: string, y: string): boolean {
+  const numberX = isNumberToken(x);
+  const numberY = isNumberToken(y);
+  if (numberX && numberY) return false;
+  if ((numberX || numberY) && (/\d/.test(x) || /\d/.test(y))) return false;
+  return digitsOf(x) === digitsOf(y) || (x.length === y.length && digitsOf(lookAlike(x)) === digitsOf(lookAlike(y)));
 }
 
 function digitsOf(token: string): string {
@@ -259,12 +298,6 @@ function sameQualifierSides(qa: readonly string[], qb: readonly string[]): boole
 
 function onlyOnOneSide(qa: readonly string[], qb: readonly string[]): string[] {
   return [...qa.filter((q) => !qb.includes(q)), ...qb.filter((q) => !qa.includes(q))];
-}
-
-function letterCount(tokens: readonly string[]): number {
-  let n = 0;
-  for (const t of tokens) n += t.length;
-  return n;
 }
 
 function sameList(a: readonly string[], b: readonly string[]): boolean {

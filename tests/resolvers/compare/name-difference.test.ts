@@ -139,3 +139,35 @@ describe('compareNameTokens: a number is never a look-alike typo', () => {
     expect(diff('Harrowdene Fund 20150', 'Harrowdene Fund 2O15O').kind).not.toBe('typo');
   });
 });
+
+describe('compareNameTokens: one edit, two typos, words run together', () => {
+  const tokens = (t: string) => analyseName(t).tokens;
+  const none = () => false;
+  it('one edit in a long word is a typo beside any shared word ("Halselann" / "Halselan")', () => {
+    expect(compareNameTokens(tokens('Halselann Agritech LP'), tokens('Halselan Agritech LP'), [], [], none).kind).toBe('typo');
+  });
+  it('one edit in a 4-letter word is a typo beside a rare shared word, not beside a common one', () => {
+    const rare = (t: string) => t === 'froskmere'; // the analysis folds "oe" to "o"
+    expect(compareNameTokens(tokens('Froeskmere Power Tools'), tokens('Froeskmere ower Tools'), [], [], rare).kind).toBe('typo');
+    expect(compareNameTokens(tokens('Volksbank Brühl'), tokens('Volksbank Bühl'), [], [], none).kind).not.toBe('typo');
+  });
+  it('one edit is no typo in a one-word name, or in a word with digits', () => {
+    expect(compareNameTokens(tokens('Cesabran'), tokens('Cesambran'), [], [], none).kind).not.toBe('typo');
+    expect(compareNameTokens(tokens('Orvel Unit U11650'), tokens('Orvel Unit U11600'), [], [], none).kind).not.toBe('typo');
+  });
+  it('a number word against a plain word may be a typo of it ("First" / "Firt"); two numbers never', () => {
+    const rare = (t: string) => t === 'elmosting';
+    expect(compareNameTokens(tokens('Elmosting First Instruments'), tokens('Elmosting Firt Instruments'), [], [], rare).kind).toBe('typo');
+    expect(compareNameTokens(tokens('Elmosting Fund Three'), tokens('Elmosting Fund Tree'), [], [], rare).kind).toBe('typo');
+    expect(compareNameTokens(tokens('Elmosting Fund Seven'), tokens('Elmosting Fund Eleven'), [], [], rare).kind).not.toBe('typo');
+  });
+  it('two typos are a typo when another word is shared exactly; with nothing else shared they are different', () => {
+    expect(compareNameTokens(tokens('Ulvgrenfield Insurance Brlkerage'), tokens('Ulvgrenfied Insurance Brokerage'), [], [], none).kind).toBe('typo');
+    expect(diff('Brackenwhit Fabrication Ltd', 'Brackenwhot Fabricatoin Ltd').kind).toBe('different');
+  });
+  it('words run together with a typo are a typo when the run is long ("ZanludicoInstruments" / "Zanludico Instrumentz")', () => {
+    expect(diff('ZanludicoInstruments S.L.', 'Zanludico Instrumentz S.L.').kind).toBe('typo');
+    // A short run is as often another name.
+    expect(diff('Corbibank, National Association', 'Corb Bank, National Association').kind).not.toBe('typo');
+  });
+});
