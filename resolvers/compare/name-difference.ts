@@ -77,6 +77,8 @@ const TYPO_SIMILARITY = 0.92;
 const TYPO_MIN_LENGTH = 9;
 const TYPO_MIN_LENGTH_BESIDE_RARE = 5;
 const ABBREVIATION_MAX_LENGTH = 4;
+const CONTRACTION_MIN_LENGTH = 3;
+const CONTRACTION_MAX_LENGTH = 5;
 const ONE_EDIT_MIN_LENGTH = 8;
 const MAX_TYPOS = 2;
 const JOINED_TYPO_MIN_LENGTH = 12;
@@ -262,12 +264,29 @@ function sharedLetterBound(x: string, y: string): number {
  */
 function abbreviates(short: string, long: string): boolean {
   if (short.length >= long.length || long.length < 3) return false;
-  if (short.length > ABBREVIATION_MAX_LENGTH && short.length * 2 > long.length) return false;
   if (isNumberToken(short) && short.length > 1) return false;
   // "I" is no abbreviation of "III": a series number is a distinguishing word, never shortened.
   if (isNumberToken(long)) return false;
   if (short.length > 1 && FUNCTION_WORDS.has(short)) return false;
+  if (isContraction(short, long)) return true;
+  if (short.length > ABBREVIATION_MAX_LENGTH && short.length * 2 > long.length) return false;
   return long.startsWith(short);
+}
+
+/**
+ * `short` keeps the first and last letters of `long` and some of the rest in order, as business contractions do
+ * ("Mgmt" / "Management", "Hldgs" / "Holdings", "Ptnrs" / "Partners", "Intl" / "International"): at least three
+ * letters, at most five, at most one vowel after the first letter, no digits, and at least two letters fewer than the
+ * word.
+ */
+function isContraction(short: string, long: string): boolean {
+  if (short.length < CONTRACTION_MIN_LENGTH || short.length > CONTRACTION_MAX_LENGTH || long.length < short.length + 2) return false;
+  if (short[0] !== long[0] || short[short.length - 1] !== long[long.length - 1] || /\d/.test(short)) return false;
+  // Contractions drop the vowels; a short word with vowels is as often another word ("Saka" / "Sakura").
+  if ((short.slice(1).match(/[aeiouy]/g)?.length ?? 0) > 1) return false;
+  let k = 1;
+  for (let i = 1; i < long.length - 1 && k < short.length - 1; i++) if (long[i] === short[k]) k++;
+  return k === short.length - 1;
 }
 
 function distinguishingOf(

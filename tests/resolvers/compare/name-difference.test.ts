@@ -171,3 +171,16 @@ describe('compareNameTokens: one edit, two typos, words run together', () => {
     expect(diff('Corbibank, National Association', 'Corb Bank, National Association').kind).not.toBe('typo');
   });
 });
+
+describe('compareNameTokens: contractions', () => {
+  // Business contractions keep the first and last letters and drop vowels: common practice in company names.
+  it('"Hldgs" / "Holdings", "Mgmt" / "Management", "Intl" / "International" are abbreviations', () => {
+    expect(diff('Kinloring Hldgs Ltd', 'Kinloring Holdings Ltd').kind).toBe('abbreviation');
+    expect(diff('Ostravel Asset Mgmt LLC', 'Ostravel Asset Management LLC').kind).toBe('abbreviation');
+    expect(diff('Veldmark Intl Ltd', 'Veldmark International Ltd').kind).toBe('abbreviation');
+  });
+  it('a short word with vowels, or without the last letter, is no contraction ("Saka" / "Sakura")', () => {
+    expect(diff('Saka General Works', 'Sakura General Works').kind).not.toBe('abbreviation');
+    expect(diff('Velmora Grp Ltd', 'Velmora Groups Ltd').kind).not.toBe('abbreviation');
+  });
+});
