@@ -15,26 +15,10 @@ import { openDatabase } from '../db/open-database.ts';
 import { importContractFiles } from '../services/contract-files/import-files.ts';
 import { DocumentFinder } from '../services/contract-files/find-documents.ts';
 import { generateScenario } from '../services/demo/scenario/index.ts';
-import { docxFile, pdfLibPdf, zipOf } from '../tests/services/contract-files/documents.ts';
+import { contractPdf, docxFile, zipOf } from '../tests/services/contract-files/documents.ts';
 import type { BenchContext, BenchRow } from './types.ts';
 
 type Ctx = Pick<BenchContext, 'mode' | 'seed' | 'tmpDir' | 'log' | 'withPeakMemory'>;
-
-/** Long lines cut at 95 characters on a space, so that a PDF page (pdf-lib does not wrap) holds them. */
-function wrapped(text: string): string {
-  const out: string[] = [];
-  for (const line of text.split('\n')) {
-    let rest = line;
-    while (rest.length > 95) {
-      const cut = rest.lastIndexOf(' ', 95);
-      const at = cut > 20 ? cut : 95;
-      out.push(rest.slice(0, at));
-      rest = rest.slice(at).trimStart();
-    }
-    out.push(rest);
-  }
-  return out.join('\n');
-}
 
 async function importRate(ctx: Ctx, folder: string, label: string): Promise<{ rate: number; imported: number; read: number; seconds: number }> {
   const dir = join(ctx.tmpDir, `db-${label}`);
@@ -68,7 +52,7 @@ export async function run(ctx: Ctx): Promise<BenchRow[]> {
     const name = c.externalId.replace(/[^\w.-]/g, '_');
     if (i % 2 === 0) writeFileSync(join(textWord, `${name}.txt`), c.text);
     else writeFileSync(join(textWord, `${name}.docx`), await docxFile(c.text)); // docx
-    writeFileSync(join(pdfs, `${name}.pdf`), await pdfLibPdf(wrapped(c.text))); // pdf-lib
+    writeFileSync(join(pdfs, `${name}.pdf`), await contractPdf(c.text)); // pdf-lib
   }
 
   // 10,000 small text files in one zip, read and extracted without a database (first, before any database

@@ -152,3 +152,32 @@ export async function declaredNamesOfPartyMention(db: Queryable, mentionId: numb
   const parties = (row.parsed as { parties?: { aliases?: { kind: 'trade' | 'former' | 'also_known_as'; name: string }[] }[] }).parties ?? [];
   return (parties[row.position]?.aliases ?? []).map((a) => ({ kind: a.kind, name: a.name }));
 }
+
+export interface ContractListRow {
+  id: number;
+  source: string;
+  externalId: string;
+  title: string | null;
+  status: string;
+  createdAt: string;
+}
+
+/**
+ * Contracts after `afterId` in id order, narrowed by source, external id and a text `q` (a case-insensitive
+ * substring of the title, with LIKE's wildcards taken literally, or the exact external id). `limit` rows at most.
+ */
+export async function searchContracts(
+  db: Queryable,
+  filter: { afterId: number; limit: number; source?: string; externalId?: string; q?: string },
+): Promise<ContractListRow[]> {
+  let query = db.selectFrom('contract').select(['id', 'source', 'external_id', 'title', 'status', 'created_at']).where('id', '>', filter.afterId);
+  if (filter.source !== undefined) query = query.where('source', '=', filter.source);
+  if (filter.externalId !== undefined) query = query.where('external_id', '=', filter.externalId);
+  const q = filter.q;
+  if (q) {
+    const like = `%${q.toLowerCase().replaceAll('\\', '\\\\').replaceAll('%', '\\%').replaceAll('_', '\\_')}%`;
+    query = query.where((eb) => eb.or([eb(sql`lower(coalesce(title, ''))`, 'like', like), eb('external_id', '=', q)]));
+  }
+  const rows = await query.orderBy('id').limit(filter.limit).execute();
+  return rows.map((r) => ({ id: id(r.id), source: r.source, externalId: r.external_id, title: r.title, status: r.status, createdAt: iso(r.created_at)! }));
+}

@@ -143,3 +143,20 @@ export async function survivorsOf(db: Queryable, ids: number[]): Promise<Map<num
   for (const r of result.rows) out.set(id(r.start), id(r.id));
   return out;
 }
+
+/** Active counterparties mapped to the number of active contracts their linked or new mentions are parties of. */
+export async function activeContractCounts(db: Queryable): Promise<Map<number, number>> {
+  const result = await sql<{ counterparty_id: string | number; n: string | number }>`
+    SELECT m.counterparty_id, count(DISTINCT p.contract_id) AS n
+    FROM mention m JOIN contract_party p ON p.mention_id = m.id JOIN contract c ON c.id = p.contract_id AND c.status = 'active'
+    JOIN counterparty cp ON cp.id = m.counterparty_id AND cp.status = 'active'
+    WHERE m.status IN ('linked', 'new')
+    GROUP BY m.counterparty_id`.execute(db);
+  return new Map(result.rows.map((r) => [id(r.counterparty_id), Number(r.n)]));
+}
+
+/** A counterparty's canonical name, whatever its status; undefined when no such counterparty exists. */
+export async function canonicalNameOf(db: Queryable, counterpartyId: number): Promise<string | undefined> {
+  const row = await db.selectFrom('counterparty').select('canonical_name').where('id', '=', counterpartyId).executeTakeFirst();
+  return row?.canonical_name;
+}

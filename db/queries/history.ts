@@ -1,5 +1,6 @@
-/** History reads: one event, the events of a counterparty, the change feed (every event in id order). */
-import { sql } from 'kysely';
+/** History reads (one event, the events of a counterparty, the change feed in id order) and appending an event. */
+import { sql, type Insertable } from 'kysely';
+import type { HistoryEventTable } from '../types.ts';
 import type { Queryable } from './util.ts';
 import { id, idOrNull, iso } from './util.ts';
 
@@ -63,4 +64,10 @@ export async function lastEventId(db: Queryable): Promise<number> {
     .select((eb) => eb.fn.max('id').as('max'))
     .executeTakeFirst();
   return row?.max === null || row?.max === undefined ? 0 : id(row.max);
+}
+
+/** Appends one event; answers its id. */
+export async function insertHistoryEvent(db: Queryable, event: Insertable<HistoryEventTable>): Promise<number> {
+  const row = await db.insertInto('history_event').values(event).returning('id').executeTakeFirstOrThrow();
+  return id(row.id);
 }

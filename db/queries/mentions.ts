@@ -211,3 +211,21 @@ export async function outcomesOfSource(
     reviewCandidateId: r.right_counterparty_id === null ? null : Number(r.right_counterparty_id),
   }));
 }
+
+/**
+ * The scores and statuses of the `limit` most recently updated scored mentions (newest first), for the score
+ * statistics route. Scores of magnitude 1e5 or more are left out, as that route always has (outside the range of
+ * the match weights its buckets show).
+ */
+export async function recentMentionScores(db: Queryable, limit: number): Promise<{ score: number; status: Selectable<MentionTable>['status'] }[]> {
+  const rows = await db
+    .selectFrom('mention')
+    .select(['score', 'status'])
+    .where('score', 'is not', null)
+    .where(sql<boolean>`abs(score) < 1e5`)
+    .orderBy('updated_at', 'desc')
+    .orderBy('id', 'desc')
+    .limit(limit)
+    .execute();
+  return rows.map((r) => ({ score: Number(r.score), status: r.status }));
+}

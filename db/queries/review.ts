@@ -139,3 +139,12 @@ export async function labelledPairs(
   const rows = await db.selectFrom('labelled_pair').selectAll().orderBy('id').limit(limit).execute();
   return rows.map((r) => ({ leftText: r.left_text, rightText: r.right_text, label: r.label, features: r.features }));
 }
+
+export async function countOpenReviewItems(db: Queryable): Promise<number> {
+  const row = await db
+    .selectFrom('review_item')
+    .select((eb) => eb.fn.countAll<string>().as('n'))
+    .where('status', '=', 'open')
+    .executeTakeFirstOrThrow();
+  return Number(row.n);
+}

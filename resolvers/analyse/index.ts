@@ -16,3 +16,5 @@ export { validateCountry } from './narrow-codes.ts';
 export type { NameAlternative } from './alternative-names.ts';
 export { DOCUMENT_TERMS } from './document-terms.ts';
 export { sameWithTranslatedForm } from './same-with-translated-form.ts';
+export { US_STATES } from './us-states.ts';
+export { FAMILY_NAME_PARTICLES, FORMS_OF_ADDRESS } from './person-name-words.ts';

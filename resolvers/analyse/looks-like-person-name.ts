@@ -8,54 +8,12 @@
  */
 
 import { GIVEN_NAMES } from './given-names.ts';
+import { FAMILY_NAME_PARTICLES, FORMS_OF_ADDRESS } from './person-name-words.ts';
 
-export const HONORIFICS: ReadonlySet<string> = new Set([
-  'mr',
-  'mrs',
-  'ms',
-  'miss',
-  'mx',
-  'dr',
-  'prof',
-  'professor',
-  'sir',
-  'dame',
-  'lord',
-  'lady',
-  'herr',
-  'frau',
-  'mme',
-  'mlle',
-  'sr',
-  'sra',
-  'srta',
-  'dott',
-  'ing',
-  'mag',
-  'rev',
-]);
+/** Forms of address (FORMS_OF_ADDRESS) and the titles a whole name may open with besides. */
+export const HONORIFICS: ReadonlySet<string> = new Set([...FORMS_OF_ADDRESS, 'professor', 'lord', 'lady', 'mlle', 'srta', 'ing', 'mag', 'rev']);
 export const PERSON_SUFFIXES: ReadonlySet<string> = new Set(['jr', 'sr', 'ii', 'iii', 'iv', 'phd', 'esq', 'md', 'kc', 'qc', 'cpa']);
-const PARTICLES: ReadonlySet<string> = new Set([
-  'van',
-  'von',
-  'de',
-  'der',
-  'den',
-  'da',
-  'di',
-  'du',
-  'del',
-  'della',
-  'le',
-  'la',
-  'ten',
-  'ter',
-  'bin',
-  'ibn',
-  'al',
-  'dos',
-  'das',
-]);
+const PARTICLES: ReadonlySet<string> = new Set(FAMILY_NAME_PARTICLES);
 
 /** Words that mark an organisation whatever else the name looks like. */
 export const ORGANISATION_WORDS: ReadonlySet<string> = new Set(

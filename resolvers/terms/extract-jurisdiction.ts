@@ -3,7 +3,8 @@
  * "incorporated and registered in England and Wales" → GB, "under the laws of Sweden" → SE.
  * Cue words followed by a place from a table; the earliest cue in the phrase wins.
  */
-import { ADJECTIVES, COUNTRIES, FOREIGN_PHRASES, SUBDIVISIONS, US_STATES } from './places.ts';
+import { US_STATES } from '../analyse/index.ts';
+import { ADJECTIVES, COUNTRIES, FOREIGN_PHRASES, SUBDIVISIONS } from './places.ts';
 import { isWordChar } from './text-scan.ts';
 
 const PLACE_CUES = [

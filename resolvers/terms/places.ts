@@ -1,61 +1,8 @@
 /**
  * Place names that descriptive phrases use for a party's jurisdiction, to ISO 3166-1 alpha-2 or ISO 3166-2 codes.
- * Codes: ISO 3166-1 and ISO 3166-2 (US states "US-DE", Australian states "AU-NSW", Canadian provinces "CA-ON").
+ * Codes: ISO 3166-1 and ISO 3166-2 (Australian states "AU-NSW", Canadian provinces "CA-ON"). The US states are
+ * the analyse stage's list (US_STATES, resolvers/analyse/us-states.ts), one list for both stages.
  */
-
-export const US_STATES: ReadonlyArray<[string, string]> = [
-  ['alabama', 'US-AL'],
-  ['alaska', 'US-AK'],
-  ['arizona', 'US-AZ'],
-  ['arkansas', 'US-AR'],
-  ['california', 'US-CA'],
-  ['colorado', 'US-CO'],
-  ['connecticut', 'US-CT'],
-  ['delaware', 'US-DE'],
-  ['district of columbia', 'US-DC'],
-  ['florida', 'US-FL'],
-  ['georgia', 'US-GA'],
-  ['hawaii', 'US-HI'],
-  ['idaho', 'US-ID'],
-  ['illinois', 'US-IL'],
-  ['indiana', 'US-IN'],
-  ['iowa', 'US-IA'],
-  ['kansas', 'US-KS'],
-  ['kentucky', 'US-KY'],
-  ['louisiana', 'US-LA'],
-  ['maine', 'US-ME'],
-  ['maryland', 'US-MD'],
-  ['massachusetts', 'US-MA'],
-  ['michigan', 'US-MI'],
-  ['minnesota', 'US-MN'],
-  ['mississippi', 'US-MS'],
-  ['missouri', 'US-MO'],
-  ['montana', 'US-MT'],
-  ['nebraska', 'US-NE'],
-  ['nevada', 'US-NV'],
-  ['new hampshire', 'US-NH'],
-  ['new jersey', 'US-NJ'],
-  ['new mexico', 'US-NM'],
-  ['new york', 'US-NY'],
-  ['north carolina', 'US-NC'],
-  ['north dakota', 'US-ND'],
-  ['ohio', 'US-OH'],
-  ['oklahoma', 'US-OK'],
-  ['oregon', 'US-OR'],
-  ['pennsylvania', 'US-PA'],
-  ['rhode island', 'US-RI'],
-  ['south carolina', 'US-SC'],
-  ['south dakota', 'US-SD'],
-  ['tennessee', 'US-TN'],
-  ['texas', 'US-TX'],
-  ['utah', 'US-UT'],
-  ['vermont', 'US-VT'],
-  ['virginia', 'US-VA'],
-  ['washington', 'US-WA'],
-  ['west virginia', 'US-WV'],
-  ['wisconsin', 'US-WI'],
-  ['wyoming', 'US-WY'],
-];
 
 export const SUBDIVISIONS: ReadonlyArray<[string, string]> = [
   ['new south wales', 'AU-NSW'],

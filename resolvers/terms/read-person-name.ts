@@ -5,6 +5,7 @@
  * is needed here; the reader only refuses what cannot be a name (a job title, a legal form, a signature rule).
  * Forms of address and particles are common practice.
  */
+import { FAMILY_NAME_PARTICLES, FORMS_OF_ADDRESS } from '../analyse/index.ts';
 import { analyseCached } from './analyse-cached.ts';
 import { TITLE_WORDS } from './is-job-title.ts';
 import { isSpace } from './text-scan.ts';
@@ -20,62 +21,29 @@ export interface ReadName {
   addressed: boolean;
 }
 
-/** Forms of address skipped before the name ("Mr", "Dr.", "Maître", "Herr"). */
-const ADDRESS = new Set([
-  'mr',
-  'mrs',
-  'ms',
-  'miss',
-  'mx',
-  'dr',
-  'prof',
-  'sir',
-  'dame',
+/**
+ * Forms of address skipped before the name: the shared ones, and the French, Spanish and Italian forms a signature
+ * block uses ("Maître", "Señora", "Avv."); "M"/"Me" only here, where a cue already says a person follows.
+ */
+const ADDRESS: ReadonlySet<string> = new Set([
+  ...FORMS_OF_ADDRESS,
   'monsieur',
   'madame',
   'mademoiselle',
   'm',
-  'mme',
   'me',
   'maître',
   'maitre',
-  'herr',
-  'frau',
   'señor',
   'señora',
-  'sr',
-  'sra',
   'signor',
   'signora',
   'sig',
-  'dott',
   'dott.ssa',
   'avv',
 ]);
-/** Lower-case particles inside a family name ("Maria van der Linde"). */
-const PARTICLES = new Set([
-  'van',
-  'von',
-  'de',
-  'der',
-  'den',
-  'da',
-  'di',
-  'du',
-  'del',
-  'della',
-  'la',
-  'le',
-  'ten',
-  'ter',
-  'bin',
-  'ibn',
-  'al',
-  'dos',
-  'das',
-  'y',
-  'zu',
-]);
+/** Particles inside a family name: the shared ones, and "y" and "zu" ("Ortega y Gasset", "zu Guttenberg"). */
+const PARTICLES: ReadonlySet<string> = new Set([...FAMILY_NAME_PARTICLES, 'y', 'zu']);
 /** A real name has at most this many words (given names, particles, family names). Common practice. */
 const MAX_WORDS = 6;
 

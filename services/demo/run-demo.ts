@@ -8,7 +8,16 @@
 import { join } from 'node:path';
 import type { Kysely } from 'kysely';
 import type { Database } from '../../db/types.ts';
-import { survivorsOf } from '../../db/queries/counterparties.ts';
+import { countActive, survivorsOf } from '../../db/queries/counterparties.ts';
+import {
+  busiestCounterparties,
+  countActiveContracts,
+  mentionOutcomes,
+  type BusiestCounterpartyRow,
+  type MentionOutcomeRow,
+} from '../../db/queries/demo-summary.ts';
+import { listOwnEntities } from '../../db/queries/own-entities.ts';
+import { countOpenReviewItems } from '../../db/queries/review.ts';
 import { addOwnEntity, createRegisterContext, PARTY_SOURCE_PREFIX } from '../register/index.ts';
 import { DocumentFinder } from '../contract-files/find-documents.ts';
 import { storeDocument } from '../contract-files/store-document.ts';
@@ -140,15 +149,8 @@ export async function loadDemo(options: LoadDemoOptions): Promise<DemoLoad> {
 
 // ---------------------------------------------------------------- reading the register back
 
-export interface BusyCounterparty {
-  id: number;
-  name: string;
-  jurisdiction: string | null;
-  contracts: number;
-  /** A few of its contracts' external ids, oldest first. */
-  contractIds: string[];
-  mentions: number;
-}
+/** A counterparty named in many contracts (db/queries/demo-summary.ts says what each figure counts). */
+export type BusyCounterparty = BusiestCounterpartyRow;
 
 export interface DemoSummary {
   seed: number;
@@ -174,15 +176,7 @@ export interface DemoSummary {
   };
 }
 
-interface MentionRow {
-  source: string;
-  external_id: string;
-  text: string;
-  status: ResolutionStatus;
-  counterparty_id: number | string | null;
-  own_entity_id: number | string | null;
-  contract_external_id: string | null;
-}
+type MentionRow = MentionOutcomeRow;
 
 export interface SummariseOptions {
   /**
@@ -193,15 +187,12 @@ export interface SummariseOptions {
 }
 
 export async function summariseDemo(db: Kysely<Database>, scenario: Scenario, options: SummariseOptions = {}): Promise<DemoSummary> {
-  const rows = (await db
-    .selectFrom('mention')
-    .select(['source', 'external_id', 'text', 'status', 'counterparty_id', 'own_entity_id', 'contract_external_id'])
-    .execute()) as MentionRow[];
+  const rows: MentionRow[] = await mentionOutcomes(db);
   const survivors = await survivorsOf(
     db,
     rows.flatMap((r) => (r.counterparty_id === null ? [] : [Number(r.counterparty_id)])),
   );
-  const ownRows = await db.selectFrom('own_entity').select(['id', 'name']).execute();
+  const ownRows = await listOwnEntities(db, { includeRemoved: true });
   const ownRef = new Map<number, string>();
   for (const r of ownRows) {
     const match = scenario.ownEntities.find((o) => o.legalName === r.name);
@@ -224,34 +215,18 @@ export async function summariseDemo(db: Kysely<Database>, scenario: Scenario, op
   const parties = contractPartyItems(scenario, partyRows, observe);
 
   const vendorMaster = options.vendorMaster ? await options.vendorMaster(registerIds([...mentionItems, ...parties.items])) : null;
-  const [counterparties, contracts, review] = await Promise.all([
-    db
-      .selectFrom('counterparty')
-      .select((eb) => eb.fn.countAll<string>().as('n'))
-      .where('status', '=', 'active')
-      .executeTakeFirstOrThrow(),
-    db
-      .selectFrom('contract')
-      .select((eb) => eb.fn.countAll<string>().as('n'))
-      .where('status', '=', 'active')
-      .executeTakeFirstOrThrow(),
-    db
-      .selectFrom('review_item')
-      .select((eb) => eb.fn.countAll<string>().as('n'))
-      .where('status', '=', 'open')
-      .executeTakeFirstOrThrow(),
-  ]);
+  const [counterparties, contracts, review] = await Promise.all([countActive(db), countActiveContracts(db), countOpenReviewItems(db)]);
   return {
     seed: scenario.seed,
     group: scenario.group.name,
-    counterparties: Number(counterparties.n),
+    counterparties,
     truthCounterparties: scenario.counterparties.length,
     ownEntities: ownRows.length,
-    contracts: Number(contracts.n),
+    contracts,
     mentions: { total: extracted.length, byStatus: countStatuses(extracted) },
     contractParties: { total: partyRows.length, byStatus: countStatuses(partyRows) },
     busiest: await busiestCounterparties(db, 5),
-    reviewQueue: Number(review.n),
+    reviewQueue: review,
     vendorMaster,
     accuracy: {
       mentions: measureAccuracy(mentionItems),
@@ -327,46 +302,4 @@ function contractPartyItems(
     }
   }
   return { items, found, expected, extra };
-}
-
-async function busiestCounterparties(db: Kysely<Database>, limit: number): Promise<BusyCounterparty[]> {
-  const top = await db
-    .selectFrom('contract_party as p')
-    .innerJoin('mention as m', 'm.id', 'p.mention_id')
-    .innerJoin('counterparty as c', 'c.id', 'm.counterparty_id')
-    .select(['c.id', 'c.canonical_name', 'c.jurisdiction', (eb) => eb.fn.count<string>('p.contract_id').distinct().as('contracts')])
-    .where('c.status', '=', 'active')
-    .groupBy(['c.id', 'c.canonical_name', 'c.jurisdiction'])
-    .orderBy('contracts', 'desc')
-    .orderBy('c.id')
-    .limit(limit)
-    .execute();
-  const out: BusyCounterparty[] = [];
-  for (const t of top) {
-    const id = Number(t.id);
-    const contracts = await db
-      .selectFrom('contract_party as p')
-      .innerJoin('mention as m', 'm.id', 'p.mention_id')
-      .innerJoin('contract as k', 'k.id', 'p.contract_id')
-      .select('k.external_id')
-      .distinct()
-      .where('m.counterparty_id', '=', id)
-      .orderBy('k.external_id')
-      .limit(4)
-      .execute();
-    const mentions = await db
-      .selectFrom('mention')
-      .select((eb) => eb.fn.countAll<string>().as('n'))
-      .where('counterparty_id', '=', id)
-      .executeTakeFirstOrThrow();
-    out.push({
-      id,
-      name: t.canonical_name,
-      jurisdiction: t.jurisdiction,
-      contracts: Number(t.contracts),
-      contractIds: contracts.map((k) => k.external_id),
-      mentions: Number(mentions.n),
-    });
-  }
-  return out;
 }

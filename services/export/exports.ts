@@ -8,9 +8,10 @@
  * injection (neutralise.ts); NDJSON carries values as they are.
  */
 import { stringify } from 'csv-stringify/sync';
-import { sql, type Kysely } from 'kysely';
+import type { Kysely } from 'kysely';
 import type { Database } from '../../db/types.ts';
 import { neutralise } from './neutralise.ts';
+import { historyExportPage, linkExportPage, registerExportPage, reviewExportPage } from '../../db/queries/export-pages.ts';
 
 export const EXPORT_KINDS = ['register', 'links', 'history', 'review'] as const;
 export type ExportKind = (typeof EXPORT_KINDS)[number];
@@ -88,22 +89,16 @@ const num = (v: unknown): number | null => (v === null || v === undefined ? null
 async function* registerRows(db: Kysely<Database>): AsyncGenerator<Record<string, Value>[]> {
   let after = 0;
   for (;;) {
-    const result = await sql<Record<string, unknown>>`
-      SELECT c.id, c.canonical_name, c.kind, c.jurisdiction, c.version, c.created_at, c.updated_at,
-        (SELECT string_agg(n.name || ' (' || n.kind || ')', '; ' ORDER BY n.id) FROM counterparty_name n WHERE n.counterparty_id = c.id) AS names,
-        (SELECT string_agg(i.scheme || ':' || i.value, '; ' ORDER BY i.id) FROM counterparty_identifier i WHERE i.counterparty_id = c.id) AS identifiers,
-        (SELECT count(*) FROM mention m WHERE m.counterparty_id = c.id AND m.status IN ('linked', 'new')) AS mention_count,
-        (SELECT count(DISTINCT p.contract_id) FROM mention m JOIN contract_party p ON p.mention_id = m.id WHERE m.counterparty_id = c.id AND m.status IN ('linked', 'new')) AS contract_count
-      FROM counterparty c WHERE c.status = 'active' AND c.id > ${after} ORDER BY c.id LIMIT ${PAGE}`.execute(db);
-    if (result.rows.length === 0) return;
-    after = Number(result.rows[result.rows.length - 1]!.id);
-    yield result.rows.map((r) => ({
+    const rows = await registerExportPage(db, after, PAGE);
+    if (rows.length === 0) return;
+    after = Number(rows[rows.length - 1]!.id);
+    yield rows.map((r) => ({
       counterparty_id: Number(r.id),
-      canonical_name: r.canonical_name as string,
-      kind: r.kind as string,
-      jurisdiction: (r.jurisdiction as string | null) ?? null,
-      names: (r.names as string | null) ?? '',
-      identifiers: (r.identifiers as string | null) ?? '',
+      canonical_name: r.canonical_name,
+      kind: r.kind,
+      jurisdiction: r.jurisdiction ?? null,
+      names: r.names ?? '',
+      identifiers: r.identifiers ?? '',
       mention_count: Number(r.mention_count),
       contract_count: Number(r.contract_count),
       version: Number(r.version),
@@ -116,27 +111,7 @@ async function* registerRows(db: Kysely<Database>): AsyncGenerator<Record<string
 async function* linkRows(db: Kysely<Database>): AsyncGenerator<Record<string, Value>[]> {
   let after = 0;
   for (;;) {
-    const rows = await db
-      .selectFrom('mention as m')
-      .leftJoin('counterparty as c', 'c.id', 'm.counterparty_id')
-      .select([
-        'm.id',
-        'm.source',
-        'm.external_id',
-        'm.text',
-        'm.contract_source',
-        'm.contract_external_id',
-        'm.role',
-        'm.status',
-        'm.counterparty_id',
-        'c.canonical_name',
-        'm.score',
-        'm.confirmed_by',
-      ])
-      .where('m.id', '>', after)
-      .orderBy('m.id')
-      .limit(PAGE)
-      .execute();
+    const rows = await linkExportPage(db, after, PAGE);
     if (rows.length === 0) return;
     after = Number(rows[rows.length - 1]!.id);
     yield rows.map((r) => ({
@@ -159,7 +134,7 @@ async function* linkRows(db: Kysely<Database>): AsyncGenerator<Record<string, Va
 async function* historyRows(db: Kysely<Database>): AsyncGenerator<Record<string, Value>[]> {
   let after = 0;
   for (;;) {
-    const rows = await db.selectFrom('history_event').selectAll().where('id', '>', after).orderBy('id').limit(PAGE).execute();
+    const rows = await historyExportPage(db, after, PAGE);
     if (rows.length === 0) return;
     after = Number(rows[rows.length - 1]!.id);
     yield rows.map((r) => {
@@ -182,31 +157,7 @@ async function* historyRows(db: Kysely<Database>): AsyncGenerator<Record<string,
 async function* reviewRows(db: Kysely<Database>): AsyncGenerator<Record<string, Value>[]> {
   let after = 0;
   for (;;) {
-    const rows = await db
-      .selectFrom('review_item as r')
-      .leftJoin('mention as m', 'm.id', 'r.mention_id')
-      .leftJoin('counterparty as l', 'l.id', 'r.left_counterparty_id')
-      .leftJoin('counterparty as rt', 'rt.id', 'r.right_counterparty_id')
-      .select([
-        'r.id',
-        'r.kind',
-        'r.status',
-        'r.score',
-        'r.mention_id',
-        'm.text as mention_text',
-        'r.left_counterparty_id',
-        'l.canonical_name as left_name',
-        'r.right_counterparty_id',
-        'rt.canonical_name as right_name',
-        'r.decision',
-        'r.decided_by',
-        'r.reason',
-        'r.created_at',
-      ])
-      .where('r.id', '>', after)
-      .orderBy('r.id')
-      .limit(PAGE)
-      .execute();
+    const rows = await reviewExportPage(db, after, PAGE);
     if (rows.length === 0) return;
     after = Number(rows[rows.length - 1]!.id);
     yield rows.map((r) => ({

@@ -16,7 +16,7 @@
  * events were rewritten); it cannot be undone (the register refuses to).
  */
 import { randomBytes } from 'node:crypto';
-import { sql, type Transaction } from 'kysely';
+import type { Transaction } from 'kysely';
 import type { Database } from '../../db/types.ts';
 import { write } from '../register/transaction.ts';
 import { RegisterError } from '../register/errors.ts';
@@ -26,6 +26,25 @@ import { insertNameKeys } from '../register/state/derived.ts';
 import { STATE_TABLES, canonicalRow, toDbValues, type Row, type StateTable } from '../register/state/tables.ts';
 import type { Op } from '../register/state/change-set.ts';
 import { mentionsNamingPerson } from './person-mentions.ts';
+import { counterpartyRedirects } from '../../db/queries/invariant-reads.ts';
+import { insertHistoryEvent } from '../../db/queries/history.ts';
+import { historyPageTouching, mentionIdsOfCounterparties, mentionRowsById, namesOfCounterparties, ownedStateRows } from '../../db/queries/erasure-reads.ts';
+import {
+  allowHistoryRewrite,
+  deleteBlockingKeysOfName,
+  lockHistoryToErase,
+  lockIdempotencyAnswersToErase,
+  lockJobChunksToErase,
+  lockJobPartitionsToErase,
+  lockJobsToErase,
+  lockStateRowsToErase,
+  rewriteHistoryEvent,
+  rewriteIdempotencyAnswer,
+  rewriteJobChunk,
+  rewriteJobJson,
+  rewriteJobPartition,
+  rewriteStateRow,
+} from '../../db/queries/erasure-writes.ts';
 
 export interface ForgetOptions {
   /** Allow erasing a counterparty recorded as an organisation (default: refused; the right applies to persons). */
@@ -70,9 +89,9 @@ export async function forgetCounterparty(ctx: RegisterContext, counterpartyId: n
     }
     const token = randomBytes(4).toString('hex').toUpperCase();
     const pseudonym = `Forgotten Person ${token}`;
-    const linkedIds = (await trx.selectFrom('mention').select('id').where('counterparty_id', 'in', cluster).execute()).map((r) => Number(r.id));
+    const linkedIds = await mentionIdsOfCounterparties(trx, cluster);
     // Mentions that name the person without being linked to them (the review queue): erased with the rest.
-    const namingIds = await mentionsNamingPerson(trx, cluster, await namesOf(trx, cluster));
+    const namingIds = await mentionsNamingPerson(trx, cluster, await namesOfCounterparties(trx, cluster));
     const mentionIds = [...new Set([...linkedIds, ...namingIds])].sort((a, b) => a - b);
     const unlinkedMentions = mentionIds.length - linkedIds.length;
     const secrets = await collectSecrets(trx, cluster, mentionIds, pseudonym, token);
@@ -89,36 +108,25 @@ export async function forgetCounterparty(ctx: RegisterContext, counterpartyId: n
 
     const at = ctx.now();
     const details = { counterpartyId: Number(survivor.id), counterpartyIds: cluster, pseudonym, rows: rowCounts, events, storedAnswers, unlinkedMentions };
-    const event = await trx
-      .insertInto('history_event')
-      .values({
-        type: 'forgotten',
-        actor: who.actor,
-        at: at.toISOString(),
-        reason: who.reason ?? null,
-        payload: JSON.stringify({ details, ops: [] satisfies Op[] }),
-        counterparty_ids: cluster,
-        mention_ids: [],
-        undoes_event_id: null,
-        request_id: who.requestId ?? null,
-      })
-      .returning('id')
-      .executeTakeFirstOrThrow();
-    return { eventId: Number(event.id), ...details };
+    const eventId = await insertHistoryEvent(trx, {
+      type: 'forgotten',
+      actor: who.actor,
+      at: at.toISOString(),
+      reason: who.reason ?? null,
+      payload: JSON.stringify({ details, ops: [] satisfies Op[] }),
+      counterparty_ids: cluster,
+      mention_ids: [],
+      undoes_event_id: null,
+      request_id: who.requestId ?? null,
+    });
+    return { eventId, ...details };
   });
-}
-
-/** Every name the cluster holds (canonical and recorded), to find the short forms of (person-mentions.ts). */
-async function namesOf(trx: Transaction<Database>, cluster: number[]): Promise<string[]> {
-  const canonical = await trx.selectFrom('counterparty').select('canonical_name').where('id', 'in', cluster).execute();
-  const recorded = await trx.selectFrom('counterparty_name').select('name').where('counterparty_id', 'in', cluster).execute();
-  return [...new Set([...canonical.map((r) => r.canonical_name), ...recorded.map((r) => r.name)])];
 }
 
 /** The survivor of `id` and every counterparty whose redirect chain ends in it. */
 async function clusterOf(trx: Transaction<Database>, id: number): Promise<number[]> {
-  const all = await trx.selectFrom('counterparty').select(['id', 'merged_into']).execute();
-  const next = new Map(all.map((r) => [Number(r.id), r.merged_into === null ? null : Number(r.merged_into)]));
+  const all = await counterpartyRedirects(trx);
+  const next = new Map(all.map((r) => [r.id, r.mergedInto]));
   if (!next.has(id)) return [];
   const end = (start: number): number => {
     let at = start;
@@ -176,14 +184,9 @@ async function collectSecrets(trx: Transaction<Database>, cluster: number[], men
   };
   // Current state first (identifier values stored normalised), then everything the history ever held.
   for (const table of ['counterparty', 'counterparty_name', 'counterparty_identifier'] as const) {
-    const column = table === 'counterparty' ? 'id' : 'counterparty_id';
-    const result = await sql<Row>`SELECT * FROM ${sql.table(table)} WHERE ${sql.ref(column)} IN (${sql.join(cluster)}) ORDER BY id`.execute(trx);
-    for (const row of result.rows) visit(table, canonicalRow(table, row));
+    for (const row of await ownedStateRows(trx, table, cluster)) visit(table, canonicalRow(table, row));
   }
-  if (mentionIds.length > 0) {
-    const result = await sql<Row>`SELECT * FROM mention WHERE id IN (${sql.join(mentionIds)}) ORDER BY id`.execute(trx);
-    for (const row of result.rows) visit('mention', canonicalRow('mention', row));
-  }
+  for (const row of await mentionRowsById(trx, mentionIds)) visit('mention', canonicalRow('mention', row));
   for await (const event of historyTouching(trx, cluster, mentionIds)) {
     for (const op of (event.payload as { ops?: Op[] }).ops ?? []) {
       if (op.op === 'update') {
@@ -198,22 +201,10 @@ async function collectSecrets(trx: Transaction<Database>, cluster: number[], men
 async function* historyTouching(trx: Transaction<Database>, cluster: number[], mentionIds: number[]) {
   let after = 0;
   for (;;) {
-    const page = await trx
-      .selectFrom('history_event')
-      .select(['id', 'payload'])
-      .where('id', '>', after)
-      .where((eb) =>
-        eb.or([
-          sql<boolean>`counterparty_ids && ${sql.val(cluster)}::bigint[]`,
-          ...(mentionIds.length > 0 ? [sql<boolean>`mention_ids && ${sql.val(mentionIds)}::bigint[]`] : []),
-        ]),
-      )
-      .orderBy('id')
-      .limit(500)
-      .execute();
+    const page = await historyPageTouching(trx, cluster, mentionIds, after, 500);
     if (page.length === 0) return;
-    for (const event of page) yield { id: Number(event.id), payload: typeof event.payload === 'string' ? JSON.parse(event.payload) : event.payload };
-    after = Number(page[page.length - 1]!.id);
+    yield* page;
+    after = page[page.length - 1]!.id;
   }
 }
 
@@ -238,14 +229,9 @@ function replacer(secrets: Secrets): (value: unknown) => unknown {
   return deep;
 }
 
-/** A SQL condition: the JSON text of `expr` contains one of the secrets (written as JSON escapes them). */
-function containsAny(expr: ReturnType<typeof sql>, secrets: Secrets) {
-  const needles = [...secrets.keys()].filter((s) => s.length >= MIN_SECRET).map((s) => JSON.stringify(s).slice(1, -1));
-  if (needles.length === 0) return sql<boolean>`false`;
-  return sql<boolean>`(${sql.join(
-    needles.map((n) => sql`strpos(${expr}, ${n}) > 0`),
-    sql` OR `,
-  )})`;
+/** The secrets as the searches look for them: long enough to replace, and written as JSON escapes them. */
+function needlesOf(secrets: Secrets): string[] {
+  return [...secrets.keys()].filter((s) => s.length >= MIN_SECRET).map((s) => JSON.stringify(s).slice(1, -1));
 }
 
 async function rewriteTable(
@@ -256,28 +242,15 @@ async function rewriteTable(
   secrets: Secrets,
   replace: (value: unknown) => unknown,
 ): Promise<Row[]> {
-  const own =
-    table === 'counterparty'
-      ? sql`id IN (${sql.join(cluster)})`
-      : table === 'counterparty_name' || table === 'counterparty_identifier'
-        ? sql`counterparty_id IN (${sql.join(cluster)})`
-        : table === 'mention' && mentionIds.length > 0
-          ? sql`id IN (${sql.join(mentionIds)})`
-          : sql`false`;
-  const result =
-    await sql<Row>`SELECT * FROM ${sql.table(table)} t WHERE ${own} OR ${containsAny(sql`row_to_json(t)::text`, secrets)} ORDER BY id FOR UPDATE`.execute(trx);
+  const rows = await lockStateRowsToErase(trx, table, cluster, mentionIds, needlesOf(secrets));
   const changed: Row[] = [];
-  for (const raw of result.rows) {
+  for (const raw of rows) {
     const before = canonicalRow(table, raw);
     const after = replace(before) as Row;
     const patch: Row = {};
     for (const column of Object.keys(before)) if (JSON.stringify(before[column]) !== JSON.stringify(after[column])) patch[column] = after[column];
     if (Object.keys(patch).length === 0) continue;
-    await trx
-      .updateTable(table as 'counterparty')
-      .set(toDbValues(table, patch) as never)
-      .where('id', '=', before.id as number)
-      .execute();
+    await rewriteStateRow(trx, table, before.id as number, toDbValues(table, patch));
     changed.push(after);
   }
   return changed;
@@ -285,10 +258,7 @@ async function rewriteTable(
 
 async function rebuildKeys(trx: Transaction<Database>, names: Row[], ctx: RegisterContext): Promise<void> {
   for (const row of names) {
-    await trx
-      .deleteFrom('blocking_key')
-      .where('name_id', '=', row.id as number)
-      .execute();
+    await deleteBlockingKeysOfName(trx, row.id as number);
     await insertNameKeys(trx, row, ctx.derived);
   }
 }
@@ -300,27 +270,15 @@ async function rewriteHistory(
   secrets: Secrets,
   replace: (value: unknown) => unknown,
 ): Promise<number> {
-  const result = await sql<{ id: number; payload: unknown }>`
-    SELECT id, payload FROM history_event
-    WHERE counterparty_ids && ${sql.val(cluster)}::bigint[]
-      ${mentionIds.length > 0 ? sql`OR mention_ids && ${sql.val(mentionIds)}::bigint[]` : sql``}
-      OR ${containsAny(sql`payload::text`, secrets)}
-      OR ${containsAny(sql`coalesce(reason, '')`, secrets)}
-    ORDER BY id FOR UPDATE`.execute(trx);
+  const rows = await lockHistoryToErase(trx, cluster, mentionIds, needlesOf(secrets));
   let count = 0;
-  // The append-only trigger lets rows through only with this set, for this transaction alone.
-  await sql`SELECT set_config('cpreg.history_rewrite', 'on', true)`.execute(trx);
-  for (const row of result.rows) {
-    const payload = typeof row.payload === 'string' ? JSON.parse(row.payload) : row.payload;
+  await allowHistoryRewrite(trx);
+  for (const row of rows) {
+    const payload = row.payload;
     const rewritten = replace(payload);
-    const current = await trx.selectFrom('history_event').select('reason').where('id', '=', Number(row.id)).executeTakeFirstOrThrow();
-    const reason = current.reason === null ? null : (replace(current.reason) as string);
-    if (JSON.stringify(rewritten) === JSON.stringify(payload) && reason === current.reason) continue;
-    await trx
-      .updateTable('history_event')
-      .set({ payload: JSON.stringify(rewritten), reason })
-      .where('id', '=', Number(row.id))
-      .execute();
+    const reason = row.reason === null ? null : (replace(row.reason) as string);
+    if (JSON.stringify(rewritten) === JSON.stringify(payload) && reason === row.reason) continue;
+    await rewriteHistoryEvent(trx, row.id, JSON.stringify(rewritten), reason);
     count++;
   }
   return count;
@@ -329,62 +287,29 @@ async function rewriteHistory(
 /** Answers kept for idempotent retries and job results may quote the person: rewritten too. */
 async function rewriteStoredAnswers(trx: Transaction<Database>, secrets: Secrets, replace: (value: unknown) => unknown): Promise<number> {
   let count = 0;
-  const records = await sql<{ key_id: string; idempotency_key: string; response: unknown }>`
-    SELECT key_id, idempotency_key, response FROM idempotency_record WHERE response IS NOT NULL AND ${containsAny(sql`response::text`, secrets)} FOR UPDATE`.execute(
-    trx,
-  );
-  for (const r of records.rows) {
-    const response = typeof r.response === 'string' ? JSON.parse(r.response) : r.response;
-    await trx
-      .updateTable('idempotency_record')
-      .set({ response: JSON.stringify(replace(response)) })
-      .where('key_id', '=', r.key_id)
-      .where('idempotency_key', '=', r.idempotency_key)
-      .execute();
+  const needles = needlesOf(secrets);
+  for (const r of await lockIdempotencyAnswersToErase(trx, needles)) {
+    await rewriteIdempotencyAnswer(trx, r.keyId, r.key, JSON.stringify(replace(r.response)));
     count++;
   }
-  const jobs = await sql<{ id: number; params: unknown; result: unknown; plan: unknown }>`
-    SELECT id, params, result, plan FROM job WHERE ${containsAny(sql`coalesce(result::text, '') || params::text || coalesce(plan::text, '')`, secrets)} FOR UPDATE`.execute(
-    trx,
-  );
-  for (const j of jobs.rows) {
-    const parse = (v: unknown) => (typeof v === 'string' ? JSON.parse(v) : v);
-    await trx
-      .updateTable('job')
-      .set({
-        params: JSON.stringify(replace(parse(j.params))),
-        result: j.result === null ? null : JSON.stringify(replace(parse(j.result))),
-        plan: j.plan === null ? null : JSON.stringify(replace(parse(j.plan))),
-      })
-      .where('id', '=', Number(j.id))
-      .execute();
+  for (const j of await lockJobsToErase(trx, needles)) {
+    await rewriteJobJson(trx, j.id, {
+      params: JSON.stringify(replace(j.params)),
+      result: j.result === null ? null : JSON.stringify(replace(j.result)),
+      plan: j.plan === null ? null : JSON.stringify(replace(j.plan)),
+    });
     count++;
   }
   // A job still under way holds its input (staged rows, partition items): the same replacement applies there.
-  const chunks = await sql<{ job_id: number; chunk_no: number; rows: unknown }>`
-    SELECT job_id, chunk_no, rows FROM job_chunk WHERE ${containsAny(sql`rows::text`, secrets)} FOR UPDATE`.execute(trx);
-  for (const c of chunks.rows) {
-    const rows = typeof c.rows === 'string' ? JSON.parse(c.rows) : c.rows;
-    await trx
-      .updateTable('job_chunk')
-      .set({ rows: JSON.stringify(replace(rows)) })
-      .where('job_id', '=', Number(c.job_id))
-      .where('chunk_no', '=', c.chunk_no)
-      .execute();
+  for (const c of await lockJobChunksToErase(trx, needles)) {
+    await rewriteJobChunk(trx, c.jobId, c.chunkNo, JSON.stringify(replace(c.rows)));
     count++;
   }
-  const parts = await sql<{ job_id: number; partition_no: number; items: unknown; result: unknown }>`
-    SELECT job_id, partition_no, items, result FROM job_partition WHERE ${containsAny(sql`items::text || coalesce(result::text, '')`, secrets)} FOR UPDATE`.execute(
-    trx,
-  );
-  for (const p of parts.rows) {
-    const parse = (v: unknown) => (typeof v === 'string' ? JSON.parse(v) : v);
-    await trx
-      .updateTable('job_partition')
-      .set({ items: JSON.stringify(replace(parse(p.items))), result: p.result === null ? null : JSON.stringify(replace(parse(p.result))) })
-      .where('job_id', '=', Number(p.job_id))
-      .where('partition_no', '=', p.partition_no)
-      .execute();
+  for (const p of await lockJobPartitionsToErase(trx, needles)) {
+    await rewriteJobPartition(trx, p.jobId, p.partitionNo, {
+      items: JSON.stringify(replace(p.items)),
+      result: p.result === null ? null : JSON.stringify(replace(p.result)),
+    });
     count++;
   }
   return count;

@@ -7,8 +7,9 @@
  *    surname ("J. Smith", "Smith, J."), given name and surname in either order, with or without a title.
  * A mention linked to another counterparty is never touched: "J. Smith" there is someone else's record.
  */
-import { sql, type Transaction } from 'kysely';
+import type { Transaction } from 'kysely';
 import type { Database } from '../../db/types.ts';
+import { openReviewMentionsOf, unlinkedMentionsContaining } from '../../db/queries/erasure-reads.ts';
 
 /** Titles dropped before comparing (common practice in English-language records; from memory). */
 const TITLES = new Set(['mr', 'mrs', 'ms', 'miss', 'mx', 'dr', 'prof', 'sir', 'dame']);
@@ -38,15 +39,7 @@ export function shortForms(name: string): { forms: Set<string>; surname: string 
 /** Ids of the mentions described above, for the names the cluster holds and held. */
 export async function mentionsNamingPerson(trx: Transaction<Database>, cluster: number[], names: readonly string[]): Promise<number[]> {
   const found = new Set<number>();
-  const candidates = await trx
-    .selectFrom('review_item')
-    .innerJoin('mention', 'mention.id', 'review_item.mention_id')
-    .select('mention.id')
-    .where('review_item.status', '=', 'open')
-    .where((eb) => eb.or([eb('review_item.right_counterparty_id', 'in', cluster), eb('review_item.left_counterparty_id', 'in', cluster)]))
-    .where((eb) => eb.or([eb('mention.counterparty_id', 'is', null), eb('mention.counterparty_id', 'in', cluster)]))
-    .execute();
-  for (const row of candidates) found.add(Number(row.id));
+  for (const mentionId of await openReviewMentionsOf(trx, cluster)) found.add(mentionId);
 
   const forms = new Set<string>();
   const surnames = new Set<string>();
@@ -65,18 +58,7 @@ export async function mentionsNamingPerson(trx: Transaction<Database>, cluster: 
   }
   if (surnames.size === 0) return [...found].sort((a, b) => a - b);
   // The surname narrows the search in SQL; the whole text is then compared as tokens.
-  const unlinked = await trx
-    .selectFrom('mention')
-    .select(['id', 'text'])
-    .where('counterparty_id', 'is', null)
-    .where('own_entity_id', 'is', null)
-    .where(
-      sql<boolean>`(${sql.join(
-        [...surnames].map((s) => sql`strpos(lower(text), ${s}) > 0`),
-        sql` OR `,
-      )})`,
-    )
-    .execute();
-  for (const row of unlinked) if (forms.has(nameTokens(row.text).join(' '))) found.add(Number(row.id));
+  const unlinked = await unlinkedMentionsContaining(trx, [...surnames]);
+  for (const row of unlinked) if (forms.has(nameTokens(row.text).join(' '))) found.add(row.id);
   return [...found].sort((a, b) => a - b);
 }

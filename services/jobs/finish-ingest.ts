@@ -16,7 +16,7 @@ import { partitionResults, updateJob, type JobRow } from '../../db/queries/jobs.
 import { storedMentionsByRef } from '../../db/queries/mentions.ts';
 import { emptyCounts, unaccounted, type IngestCounts } from '../ingest/run-ingest.ts';
 import { RegisterError } from '../register/errors.ts';
-import { mergeCounterparties } from '../register/merge-split.ts';
+import { mergeCounterparties } from '../register/merge-counterparties.ts';
 import { currentModel } from '../register/matching/model.ts';
 import { MAX_LISTED_REJECTS, type JobDeps } from './deps.ts';
 import { readyToFinish } from './finish-guard.ts';

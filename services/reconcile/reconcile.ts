@@ -13,10 +13,9 @@
 import { parse } from 'csv-parse';
 import { createReadStream } from 'node:fs';
 import type { Kysely } from 'kysely';
-import { sql } from 'kysely';
 import type { Database } from '../../db/types.ts';
 import { holdersOf } from '../../db/queries/identifiers.ts';
-import { survivorsOf } from '../../db/queries/counterparties.ts';
+import { activeContractCounts, canonicalNameOf, survivorsOf } from '../../db/queries/counterparties.ts';
 import { analyse } from '../register/matching/analysis.ts';
 import { currentModel } from '../register/matching/model.ts';
 import { scoredCandidates } from '../register/matching/candidates.ts';
@@ -145,16 +144,6 @@ async function matchVendor(db: Kysely<Database>, row: VendorRow, model: Awaited<
   return undefined;
 }
 
-async function contractCounts(db: Kysely<Database>): Promise<Map<number, number>> {
-  const result = await sql<{ counterparty_id: string | number; n: string | number }>`
-    SELECT m.counterparty_id, count(DISTINCT p.contract_id) AS n
-    FROM mention m JOIN contract_party p ON p.mention_id = m.id JOIN contract c ON c.id = p.contract_id AND c.status = 'active'
-    JOIN counterparty cp ON cp.id = m.counterparty_id AND cp.status = 'active'
-    WHERE m.status IN ('linked', 'new')
-    GROUP BY m.counterparty_id`.execute(db);
-  return new Map(result.rows.map((r) => [Number(r.counterparty_id), Number(r.n)]));
-}
-
 function pairFindings(rows: VendorRow[]): Finding[] {
   const groups = new Map<string, { what: string; rows: VendorRow[] }>();
   const put = (key: string, what: string, row: VendorRow): void => {
@@ -203,14 +192,13 @@ function pairFindings(rows: VendorRow[]): Finding[] {
 
 export async function reconcile(db: Kysely<Database>, rows: VendorRow[], onProgress?: (done: number) => void): Promise<Finding[]> {
   const { model } = await currentModel(db);
-  const counts = await contractCounts(db);
+  const counts = await activeContractCounts(db);
   const findings: Finding[] = [];
   const matchedCounterparties = new Set<number>();
   const names = new Map<number, string>();
   const nameOf = async (id: number): Promise<string> => {
     if (!names.has(id)) {
-      const row = await db.selectFrom('counterparty').select('canonical_name').where('id', '=', id).executeTakeFirst();
-      names.set(id, row?.canonical_name ?? '');
+      names.set(id, (await canonicalNameOf(db, id)) ?? '');
     }
     return names.get(id)!;
   };

@@ -32,7 +32,8 @@ export {
 export { chooseCanonicalName, type NameCandidate } from './canonical-name.ts';
 export { setJurisdiction, checkJurisdiction, type JurisdictionInput, type JurisdictionChangeResult } from './jurisdiction.ts';
 export { unlinkMention, setAsideMention, withdrawMention, withdrawMentionBySourceId, withdrawContract, type MentionChangeResult } from './upkeep.ts';
-export { mergeCounterparties, splitCounterparty, type MergeInput, type MergeResult, type SplitInput, type SplitResult } from './merge-split.ts';
+export { mergeCounterparties, type MergeInput, type MergeResult } from './merge-counterparties.ts';
+export { splitCounterparty, type SplitInput, type SplitResult } from './split-counterparty.ts';
 export { addRelation, removeRelation, type RelationInput } from './relations.ts';
 
 // Review

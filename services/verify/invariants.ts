@@ -3,8 +3,17 @@
  * Read-only: these run inside one REPEATABLE READ transaction on PostgreSQL (see verify.ts), so that a
  * running service does not make a consistent register look broken halfway through the checks.
  */
-import { sql, type Kysely } from 'kysely';
+import type { Kysely } from 'kysely';
 import type { Database } from '../../db/types.ts';
+import {
+  canonicalNameCandidates,
+  counterpartyRedirects,
+  decidedReviewFacts,
+  finishedIngestRunCounts,
+  mentionsOffActiveCounterparty,
+  rowsOwnedByMerged,
+  sharedStrongIdentifiers,
+} from '../../db/queries/invariant-reads.ts';
 import { STRONG_SCHEMES } from '../../resolvers/vocabulary.ts';
 import { COUNT_KEYS } from '../ingest/run-ingest.ts';
 import { chooseCanonicalName, type NameCandidate } from '../register/canonical-name.ts';
@@ -21,41 +30,31 @@ export type Check = (db: Kysely<Database>) => Promise<Violation[]>;
 
 /** Every linked or new mention points to an existing, active counterparty. */
 export const mentionsPointToActive: Check = async (db) => {
-  const rows = await sql<{ id: number; status: string; counterparty_id: number | null; cp_status: string | null }>`
-    SELECT m.id, m.status, m.counterparty_id, c.status AS cp_status
-    FROM mention m LEFT JOIN counterparty c ON c.id = m.counterparty_id
-    WHERE m.status IN ('linked', 'new') AND (m.counterparty_id IS NULL OR c.id IS NULL OR c.status <> 'active')
-    ORDER BY m.id`.execute(db);
-  return rows.rows.map((r) => ({
+  const rows = await mentionsOffActiveCounterparty(db);
+  return rows.map((r) => ({
     check: 'mention_not_on_active_counterparty',
     message:
       r.counterparty_id === null
         ? `mention ${r.id} is ${r.status} but has no counterparty`
         : `mention ${r.id} is ${r.status} on counterparty ${r.counterparty_id}, which is ${r.cp_status ?? 'missing'}`,
-    ids: { mentionId: Number(r.id), counterpartyId: r.counterparty_id === null ? null : Number(r.counterparty_id) },
+    ids: { mentionId: r.id, counterpartyId: r.counterparty_id },
   }));
 };
 
 /** A merged counterparty owns no names, identifiers or mentions. */
 export const mergedOwnsNothing: Check = async (db) => {
-  const rows = await sql<{ what: string; id: number; counterparty_id: number }>`
-    SELECT 'name' AS what, n.id, n.counterparty_id FROM counterparty_name n JOIN counterparty c ON c.id = n.counterparty_id WHERE c.status = 'merged'
-    UNION ALL
-    SELECT 'identifier', i.id, i.counterparty_id FROM counterparty_identifier i JOIN counterparty c ON c.id = i.counterparty_id WHERE c.status = 'merged'
-    UNION ALL
-    SELECT 'mention', m.id, m.counterparty_id FROM mention m JOIN counterparty c ON c.id = m.counterparty_id WHERE c.status = 'merged'
-    ORDER BY 3, 1, 2`.execute(db);
-  return rows.rows.map((r) => ({
+  const rows = await rowsOwnedByMerged(db);
+  return rows.map((r) => ({
     check: 'merged_counterparty_owns_rows',
     message: `merged counterparty ${r.counterparty_id} still owns ${r.what} ${r.id}`,
-    ids: { counterpartyId: Number(r.counterparty_id), [`${r.what}Id`]: Number(r.id) },
+    ids: { counterpartyId: r.counterparty_id, [`${r.what}Id`]: r.id },
   }));
 };
 
 /** Every merged id's redirect chain ends in an active counterparty; an active one redirects nowhere. */
 export const redirectChains: Check = async (db) => {
-  const rows = await db.selectFrom('counterparty').select(['id', 'status', 'merged_into']).execute();
-  const byId = new Map(rows.map((r) => [Number(r.id), { status: r.status, mergedInto: r.merged_into === null ? null : Number(r.merged_into) }]));
+  const rows = await counterpartyRedirects(db);
+  const byId = new Map(rows.map((r) => [r.id, { status: r.status, mergedInto: r.mergedInto }]));
   const out: Violation[] = [];
   for (const [id, row] of byId) {
     if (row.status === 'active') {
@@ -95,15 +94,9 @@ export const redirectChains: Check = async (db) => {
 
 /** A strong identifier (scheme + value) belongs to at most one active counterparty. */
 export const strongIdentifiersUnique: Check = async (db) => {
-  const strong = [...STRONG_SCHEMES];
-  const rows = await sql<{ scheme: string; value: string; ids: number[] }>`
-    SELECT i.scheme, i.value, array_agg(DISTINCT i.counterparty_id ORDER BY i.counterparty_id) AS ids
-    FROM counterparty_identifier i JOIN counterparty c ON c.id = i.counterparty_id
-    WHERE c.status = 'active' AND (i.strong OR i.scheme IN (${sql.join(strong)}))
-    GROUP BY i.scheme, i.value HAVING count(DISTINCT i.counterparty_id) > 1
-    ORDER BY 1, 2`.execute(db);
-  return rows.rows.map((r) => {
-    const ids = r.ids.map(Number);
+  const rows = await sharedStrongIdentifiers(db, STRONG_SCHEMES);
+  return rows.map((r) => {
+    const ids = r.ids;
     return {
       check: 'strong_identifier_shared',
       message: `${r.scheme} identifier is held by ${ids.length} active counterparties: ${ids.join(', ')}`,
@@ -118,37 +111,21 @@ export const strongIdentifiersUnique: Check = async (db) => {
  * review_decided event for it, a cannot-link for `different` on a pair, one survivor for `same` on a duplicate.
  */
 export const reviewDecisionsReflected: Check = async (db) => {
-  const items = await sql<{
-    id: number;
-    kind: string;
-    decision: string | null;
-    decided_by: string | null;
-    decided_at: unknown;
-    left_counterparty_id: number | null;
-    right_counterparty_id: number;
-    pairs: number;
-    events: number;
-    cannot_links: number;
-  }>`
-    SELECT r.id, r.kind, r.decision, r.decided_by, r.decided_at, r.left_counterparty_id, r.right_counterparty_id,
-      (SELECT count(*) FROM labelled_pair p WHERE p.review_item_id = r.id)::int AS pairs,
-      (SELECT count(*) FROM history_event e WHERE e.type = 'review_decided' AND e.payload->'details'->>'reviewItemId' = r.id::text)::int AS events,
-      (SELECT count(*) FROM cannot_link l WHERE l.review_item_id = r.id)::int AS cannot_links
-    FROM review_item r WHERE r.status = 'decided' ORDER BY r.id`.execute(db);
+  const items = await decidedReviewFacts(db);
   const survivors = await survivorMap(db);
   const out: Violation[] = [];
   const add = (id: number, message: string) =>
     out.push({ check: 'review_decision_not_reflected', message: `review item ${id}: ${message}`, ids: { reviewItemId: id } });
-  for (const r of items.rows) {
-    const id = Number(r.id);
+  for (const r of items) {
+    const id = r.id;
     if (r.decision === null || r.decided_by === null || r.decided_at === null) add(id, 'decided without a decision, a decider or a time');
     // "not a party" is never a label (it says nothing about two names); every other decision is one.
     if (r.decision === 'not_a_party' && r.pairs > 0) add(id, 'decided "not a party" but kept as a labelled pair');
     if (r.decision !== 'not_a_party' && r.pairs < 1) add(id, 'no labelled pair records the decision');
     if (r.events < 1) add(id, 'no review_decided event in the history');
     if (r.left_counterparty_id === null) continue;
-    const left = survivors(Number(r.left_counterparty_id));
-    const right = survivors(Number(r.right_counterparty_id));
+    const left = survivors(r.left_counterparty_id);
+    const right = survivors(r.right_counterparty_id);
     if (r.decision === 'different' && r.cannot_links < 1) add(id, 'decided "different" but no cannot-link keeps the two apart');
     if (r.decision === 'different' && left === right) add(id, `decided "different" but both sides are now counterparty ${left}`);
     if (r.decision === 'same' && r.kind === 'duplicate' && left !== right) add(id, `decided "same" but the sides are still ${left} and ${right}`);
@@ -157,8 +134,8 @@ export const reviewDecisionsReflected: Check = async (db) => {
 };
 
 async function survivorMap(db: Kysely<Database>): Promise<(id: number) => number> {
-  const rows = await db.selectFrom('counterparty').select(['id', 'merged_into']).where('status', '=', 'merged').execute();
-  const next = new Map(rows.map((r) => [Number(r.id), r.merged_into === null ? null : Number(r.merged_into)]));
+  const rows = await counterpartyRedirects(db, { mergedOnly: true });
+  const next = new Map(rows.map((r) => [r.id, r.mergedInto]));
   return (id) => {
     let at = id;
     for (let hops = 0; hops <= next.size; hops++) {
@@ -172,10 +149,10 @@ async function survivorMap(db: Kysely<Database>): Promise<(id: number) => number
 
 /** A finished ingest run's counts reconcile: read = the sum of the outcome counts. */
 export const ingestCountsReconcile: Check = async (db) => {
-  const runs = await db.selectFrom('ingest_run').select(['id', 'status', 'counts']).where('status', '=', 'finished').orderBy('id').execute();
+  const runs = await finishedIngestRunCounts(db);
   const out: Violation[] = [];
   for (const run of runs) {
-    const counts = (typeof run.counts === 'string' ? JSON.parse(run.counts) : run.counts) as Record<string, number>;
+    const counts = run.counts;
     const read = Number(counts.read ?? 0);
     let sum = 0;
     for (const key of COUNT_KEYS) sum += Number(counts[key] ?? 0);
@@ -183,7 +160,7 @@ export const ingestCountsReconcile: Check = async (db) => {
       out.push({
         check: 'ingest_counts_do_not_reconcile',
         message: `ingest run ${run.id}: read ${read} but the outcomes add up to ${sum}`,
-        ids: { ingestRunId: Number(run.id) },
+        ids: { ingestRunId: run.id },
       });
     }
   }
@@ -196,32 +173,17 @@ export const ingestCountsReconcile: Check = async (db) => {
  * changed without the stored names following, shows here.
  */
 export const canonicalNamesFollowRules: Check = async (db) => {
-  const rows = await sql<{
-    counterparty_id: number;
-    canonical_name: string;
-    id: number;
-    name: string;
-    kind: string;
-    legal_form: string | null;
-    seen_count: number;
-    confirmed_by: string | null;
-  }>`
-    SELECT c.id AS counterparty_id, c.canonical_name, n.id, n.name, n.kind, n.legal_form, n.seen_count, n.confirmed_by
-    FROM counterparty c JOIN counterparty_name n ON n.counterparty_id = c.id
-    WHERE c.status = 'active' AND c.name_locked_by IS NULL
-      -- An erasure rewrote the names with pseudonyms ("Forgotten Person X", "… X 2"): the rules are not applied to them.
-      AND NOT EXISTS (SELECT 1 FROM history_event e WHERE e.type = 'forgotten' AND e.payload->'details'->>'counterpartyId' = c.id::text)
-    ORDER BY c.id, n.id`.execute(db);
+  const rows = await canonicalNameCandidates(db);
   const byCounterparty = new Map<number, { canonical: string; names: NameCandidate[] }>();
-  for (const r of rows.rows) {
-    const key = Number(r.counterparty_id);
+  for (const r of rows) {
+    const key = r.counterparty_id;
     const entry = byCounterparty.get(key) ?? { canonical: r.canonical_name, names: [] };
     entry.names.push({
-      id: Number(r.id),
+      id: r.id,
       name: r.name,
       kind: r.kind,
       legal_form: r.legal_form,
-      seen_count: Number(r.seen_count),
+      seen_count: r.seen_count,
       confirmed_by: r.confirmed_by,
     });
     byCounterparty.set(key, entry);

@@ -7,6 +7,7 @@ import type { Kysely } from 'kysely';
 import type { Database } from '../../db/types.ts';
 import { INVARIANT_CHECKS, type Violation } from './invariants.ts';
 import { checkReplay } from './replay-check.ts';
+import { countRows } from '../../db/queries/invariant-reads.ts';
 import { countOf } from '../cli/count-words.ts';
 
 export interface VerifyOptions {
@@ -49,15 +50,7 @@ async function verifyIn(db: Kysely<Database>, options: VerifyOptions): Promise<V
     replayedEvents = replay.events;
     report('replay_differs', replay.violations);
   }
-  const count = async (table: 'counterparty' | 'mention' | 'history_event') =>
-    Number(
-      (
-        await db
-          .selectFrom(table)
-          .select((eb) => eb.fn.countAll<number>().as('n'))
-          .executeTakeFirstOrThrow()
-      ).n,
-    );
+  const count = (table: 'counterparty' | 'mention' | 'history_event'): Promise<number> => countRows(db, table);
   return {
     ok: checks.every((c) => c.ok),
     checks,

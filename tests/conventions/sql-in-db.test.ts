@@ -10,16 +10,6 @@ import { describe, expect, it } from 'vitest';
 
 const ALLOWED: { prefix: string; why: string }[] = [
   { prefix: 'services/register/', why: 'moving in issue 21 item 1 (the register write path and its SQL go to db/)' },
-  { prefix: 'services/forget/forget.ts', why: 'not yet moved (issue 21 item 4): the erasure statements, one file of its own' },
-  { prefix: 'services/forget/person-mentions.ts', why: 'not yet moved (issue 21 item 4)' },
-  { prefix: 'services/verify/invariants.ts', why: 'not yet moved (issue 21 item 4): the invariant queries' },
-  { prefix: 'services/verify/verify.ts', why: 'not yet moved (issue 21 item 4)' },
-  { prefix: 'services/reconcile/reconcile.ts', why: 'not yet moved (issue 21 item 4)' },
-  { prefix: 'services/demo/run-demo.ts', why: 'not yet moved (issue 21 item 4)' },
-  { prefix: 'services/export/exports.ts', why: 'not yet moved (issue 21 item 4)' },
-  { prefix: 'services/api/auth/', why: 'not yet moved (issue 21 item 4): API keys and idempotency records' },
-  { prefix: 'services/api/routes/v1/contracts-review.ts', why: 'not yet moved (issue 21 item 4)' },
-  { prefix: 'services/api/routes/v1/exports-jobs.ts', why: 'not yet moved (issue 21 item 4)' },
 ];
 
 /** What counts as SQL in a service file (the query builder's entry points, the template tag, raw SQL text). */

@@ -185,11 +185,3 @@ export async function withTestDatabase<T>(
     await database.close();
   }
 }
-
-/**
- * Older form of describeBackends, where the caller registers (and skips) the suite itself. Kept only for
- * tests/services/register (rewritten in issue 21 item 1); use describeBackends.
- */
-export function forEachBackend(fn: (backend: TestBackend, available: boolean) => void): void {
-  for (const backend of ALL_TEST_BACKENDS) fn(backend, isBackendAvailable(backend));
-}

@@ -25,6 +25,14 @@ import type { AppPlugin } from '../types.ts';
 import { KEY_IN_TEXT } from './keys.ts';
 import { canonicalJson } from './canonical-json.ts';
 import { currentIdempotencyScope, runInIdempotencyScope } from '../../../db/idempotency-scope.ts';
+import {
+  deleteIdempotencyClaim,
+  deleteIdempotencyRecordsBefore,
+  insertIdempotencyClaim,
+  selectIdempotencyRecord,
+  takeOverIdempotencyClaim,
+  updateIdempotencyAnswer,
+} from '../../../db/queries/idempotency-records.ts';
 
 export const IDEMPOTENCY_TTL_HOURS = 24;
 /** A first request that left no answer this long ago (its instance died) may be taken over. */
@@ -77,24 +85,10 @@ export async function claimIdempotencyKey(
   input: { keyId: string; key: string; method: string; path: string; hash: string },
 ): Promise<ClaimResult> {
   if (Math.random() < 0.01) {
-    await db
-      .deleteFrom('idempotency_record')
-      .where('created_at', '<', new Date(Date.now() - IDEMPOTENCY_TTL_HOURS * 3_600_000))
-      .execute();
+    await deleteIdempotencyRecordsBefore(db, new Date(Date.now() - IDEMPOTENCY_TTL_HOURS * 3_600_000));
   }
-  const inserted = await db
-    .insertInto('idempotency_record')
-    .values({ key_id: input.keyId, idempotency_key: input.key, method: input.method, path: input.path, body_hash: input.hash, created_at: new Date() })
-    .onConflict((oc) => oc.columns(['key_id', 'idempotency_key']).doNothing())
-    .returning('key_id')
-    .executeTakeFirst();
-  if (inserted) return { kind: 'claimed' };
-  const row = await db
-    .selectFrom('idempotency_record')
-    .selectAll()
-    .where('key_id', '=', input.keyId)
-    .where('idempotency_key', '=', input.key)
-    .executeTakeFirst();
+  if (await insertIdempotencyClaim(db, { ...input, createdAt: new Date() })) return { kind: 'claimed' };
+  const row = await selectIdempotencyRecord(db, input);
   if (!row) return claimIdempotencyKey(db, input); // expired and deleted meanwhile
   if (row.method !== input.method || row.path !== input.path || row.body_hash !== input.hash) {
     throw new ApiError(
@@ -115,15 +109,7 @@ export async function claimIdempotencyKey(
       );
     }
     if (age > ABANDONED_AFTER_MS) {
-      const taken = await db
-        .updateTable('idempotency_record')
-        .set({ created_at: new Date() })
-        .where('key_id', '=', input.keyId)
-        .where('idempotency_key', '=', input.key)
-        .where('status_code', 'is', null)
-        .where('created_at', '=', row.created_at)
-        .executeTakeFirst();
-      if (Number(taken.numUpdatedRows) === 1) return { kind: 'claimed' };
+      if (await takeOverIdempotencyClaim(db, input, row.created_at, new Date())) return { kind: 'claimed' };
     }
     throw new ApiError('IDEMPOTENCY_KEY_IN_USE', 'a request with this Idempotency-Key is still being processed; retry in a few seconds', {
       headers: { 'retry-after': '2' },
@@ -136,12 +122,7 @@ export async function claimIdempotencyKey(
 export async function storeIdempotentAnswer(db: Kysely<Database>, claim: { keyId: string; key: string }, answer: StoredAnswer): Promise<void> {
   // A secret is shown once and stored only hashed: never kept for a replay, whichever route sent it.
   const stored: StoredAnswer = { ...answer, body: answer.body.replace(KEY_IN_TEXT, SECRET_NOT_STORED) };
-  await db
-    .updateTable('idempotency_record')
-    .set({ status_code: stored.statusCode, response: JSON.stringify(stored) })
-    .where('key_id', '=', claim.keyId)
-    .where('idempotency_key', '=', claim.key)
-    .execute();
+  await updateIdempotencyAnswer(db, claim, stored.statusCode, JSON.stringify(stored));
 }
 
 /**
@@ -150,9 +131,7 @@ export async function storeIdempotentAnswer(db: Kysely<Database>, claim: { keyId
  * reading the upload; the failed job stays, and the retry submits again).
  */
 export async function releaseIdempotencyKey(db: Kysely<Database>, claim: { keyId: string; key: string }, options: { answered?: boolean } = {}): Promise<void> {
-  let query = db.deleteFrom('idempotency_record').where('key_id', '=', claim.keyId).where('idempotency_key', '=', claim.key);
-  if (!options.answered) query = query.where('status_code', 'is', null);
-  await query.execute();
+  await deleteIdempotencyClaim(db, claim, options);
 }
 
 export function sendStoredAnswer(reply: FastifyReply, answer: StoredAnswer): FastifyReply {

@@ -8,6 +8,7 @@ import { createHash, randomBytes, timingSafeEqual } from 'node:crypto';
 import type { Kysely } from 'kysely';
 import type { Database } from '../../../db/types.ts';
 import { markWorkCommitted } from '../../../db/idempotency-scope.ts';
+import { insertApiKey, markApiKeyRevoked, selectApiKey, selectApiKeys, selectApiKeyWithDigest, touchApiKeyLastUsed } from '../../../db/queries/api-keys.ts';
 import { API_SCOPES, type ApiScope } from '../../../resolvers/vocabulary.ts';
 
 export interface ApiKeyInfo {
@@ -59,11 +60,7 @@ export async function createApiKey(db: Kysely<Database>, input: { scope: ApiScop
   const id = `k${randomBytes(6).toString('hex')}`;
   const secret = `cpreg_${id}_${randomBytes(32).toString('base64url')}`;
   const row = await db.transaction().execute(async (trx) => {
-    const created = await trx
-      .insertInto('api_key')
-      .values({ id, label, scope: input.scope, secret_hash: digest(secret), created_at: new Date() })
-      .returningAll()
-      .executeTakeFirstOrThrow();
+    const created = await insertApiKey(trx, { id, label, scope: input.scope, secretHash: digest(secret), createdAt: new Date() });
     // A retried POST /v1/keys whose answer was lost must not create a second key (db/idempotency-scope.ts).
     await markWorkCommitted(trx);
     return created;
@@ -72,23 +69,17 @@ export async function createApiKey(db: Kysely<Database>, input: { scope: ApiScop
 }
 
 export async function listApiKeys(db: Kysely<Database>, options: { includeRevoked?: boolean } = {}): Promise<ApiKeyInfo[]> {
-  let query = db.selectFrom('api_key').select(['id', 'label', 'scope', 'created_at', 'revoked_at', 'last_used_at']).orderBy('created_at').orderBy('id');
-  if (!options.includeRevoked) query = query.where('revoked_at', 'is', null);
-  return (await query.execute()).map(toInfo);
+  return (await selectApiKeys(db, options)).map(toInfo);
 }
 
 export async function getApiKey(db: Kysely<Database>, id: string): Promise<ApiKeyInfo | undefined> {
-  const row = await db
-    .selectFrom('api_key')
-    .select(['id', 'label', 'scope', 'created_at', 'revoked_at', 'last_used_at'])
-    .where('id', '=', id)
-    .executeTakeFirst();
+  const row = await selectApiKey(db, id);
   return row ? toInfo(row) : undefined;
 }
 
 /** Revokes a key; answers undefined when no such key exists. Revoking twice keeps the first time. */
 export async function revokeApiKey(db: Kysely<Database>, id: string): Promise<ApiKeyInfo | undefined> {
-  await db.updateTable('api_key').set({ revoked_at: new Date() }).where('id', '=', id).where('revoked_at', 'is', null).execute();
+  await markApiKeyRevoked(db, id, new Date());
   return getApiKey(db, id);
 }
 
@@ -99,7 +90,7 @@ export async function revokeApiKey(db: Kysely<Database>, id: string): Promise<Ap
 export async function verifyApiKey(db: Kysely<Database>, presented: string): Promise<ApiKeyInfo | undefined> {
   const match = KEY_SHAPE.exec(presented);
   if (!match) return undefined;
-  const row = await db.selectFrom('api_key').selectAll().where('id', '=', match[1]!).executeTakeFirst();
+  const row = await selectApiKeyWithDigest(db, match[1]!);
   const expected = Buffer.from(row?.secret_hash ?? '0'.repeat(64), 'hex');
   const actual = Buffer.from(digest(presented), 'hex');
   const equal = timingSafeEqual(expected, actual);
@@ -109,10 +100,5 @@ export async function verifyApiKey(db: Kysely<Database>, presented: string): Pro
 
 /** Records use at most once a minute per key, so that reads do not turn into writes. */
 export async function touchApiKey(db: Kysely<Database>, id: string, at: Date): Promise<void> {
-  await db
-    .updateTable('api_key')
-    .set({ last_used_at: at })
-    .where('id', '=', id)
-    .where((eb) => eb.or([eb('last_used_at', 'is', null), eb('last_used_at', '<', new Date(at.getTime() - 60_000))]))
-    .execute();
+  await touchApiKeyLastUsed(db, id, at, 60_000);
 }

@@ -6,12 +6,8 @@
  *
  * Screenshots of every page at 1280×800 and 390×844 go to test-output/console/ (not committed).
  */
-import { existsSync, mkdirSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import type { FastifyInstance } from 'fastify';
 import { buildApp } from '../../../services/api/app.ts';
 import { createApiKey } from '../../../services/api/auth/keys.ts';
@@ -21,9 +17,8 @@ import { loadDemo } from '../../../services/demo/run-demo.ts';
 import { createRegisterContext, resolveMention } from '../../../services/register/index.ts';
 import { analyseName } from '../../../resolvers/analyse/index.ts';
 import { makeTempDir, openTestDatabase, removeTempDir, type TestDatabase } from '../../support/index.ts';
+import { openConsoleBrowser, type ConsoleBrowser } from '../../support/console-browser.ts';
 
-const CHROMIUM = '/usr/bin/chromium';
-const SHOTS = fileURLToPath(new URL('../../../test-output/console/', import.meta.url));
 const WIDE = { width: 1280, height: 800 };
 const NARROW = { width: 390, height: 844 };
 // Ceilings that only catch hangs.
@@ -50,8 +45,7 @@ let base: string;
 let adminKey: string;
 let readKey: string;
 let filesDir: string;
-let profileDir: string;
-let context: BrowserContext;
+let browser: ConsoleBrowser;
 let page: Page;
 
 /** Calls the API directly (not through the page), to check what the register holds. */
@@ -68,11 +62,6 @@ async function openReviewItems(): Promise<{ items: ReviewItem[]; open: number }>
   return { items: body.items, open: body.items.length };
 }
 
-async function shot(name: string): Promise<void> {
-  const size = page.viewportSize()!;
-  await page.screenshot({ path: join(SHOTS, `${name}-${size.width}x${size.height}.png`), fullPage: true });
-}
-
 async function go(hash: string): Promise<void> {
   // A dialog left open by an earlier failure would cover the page: close it so each test starts clean.
   await page.evaluate(() => (document.getElementById('confirm') as HTMLDialogElement | null)?.close()).catch(() => undefined);
@@ -80,35 +69,7 @@ async function go(hash: string): Promise<void> {
   await page.waitForSelector('main h1', { timeout: STEP_MS });
 }
 
-async function signIn(key: string): Promise<void> {
-  await page.goto(`${base}/console/#/signin`);
-  await page.fill('#api-key', key);
-  await page.click('#sign-in');
-  await page.waitForSelector('#search-box', { timeout: STEP_MS });
-}
-
-/** Presses Tab until the focused element matches `selector` (keyboard-only navigation). */
-async function tabTo(selector: string, limit = 40): Promise<void> {
-  for (let i = 0; i < limit; i++) {
-    await page.keyboard.press('Tab');
-    if (await page.evaluate((sel) => document.activeElement?.matches(sel) ?? false, selector)) return;
-  }
-  throw new Error(`Tab never reached ${selector} in ${limit} presses`);
-}
-
-/** The page must not scroll sideways (the narrow layout fits the window). */
-async function expectNoSidewaysScroll(): Promise<void> {
-  const { scroll, client } = await page.evaluate(() => ({ scroll: document.documentElement.scrollWidth, client: document.documentElement.clientWidth }));
-  expect(scroll, `page is ${scroll}px wide in a ${client}px window`).toBeLessThanOrEqual(client + 1);
-}
-
 beforeAll(async () => {
-  if (!existsSync(CHROMIUM)) {
-    throw new Error(`${CHROMIUM} is missing: install Debian's chromium (apt-get install -y chromium); the console tests never use a downloaded browser`);
-  }
-  rmSync(SHOTS, { recursive: true, force: true });
-  mkdirSync(SHOTS, { recursive: true });
-
   // A small scenario (30 counterparties, 40 contracts) keeps the load to seconds and still fills the review queue.
   const scenario = generateScenario(1, {
     contracts: 40,
@@ -127,28 +88,15 @@ beforeAll(async () => {
   readKey = (await createApiKey(database.db, { scope: 'read', label: 'finance viewer' })).secret;
   base = await app.listen({ port: 0, host: '127.0.0.1' });
 
-  profileDir = join(tmpdir(), `cpreg-console-profile-${process.pid}-${Date.now()}`);
-  context = await chromium.launchPersistentContext(profileDir, {
-    executablePath: CHROMIUM,
-    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking'],
-    viewport: WIDE,
-    acceptDownloads: true,
-  });
-  page = context.pages()[0] ?? (await context.newPage());
-  const pageErrors: string[] = [];
-  page.on('pageerror', (error) => pageErrors.push(error.message));
-  page.on('console', (message) => {
-    if (message.type() === 'error' && !/status of 40[134] /.test(message.text())) pageErrors.push(message.text());
-  });
-  (globalThis as { consolePageErrors?: string[] }).consolePageErrors = pageErrors;
+  browser = await openConsoleBrowser({ base, name: 'console', viewport: WIDE, stepMs: STEP_MS, acceptDownloads: true, consoleErrors: true, clearShots: true });
+  page = browser.page;
 }, 240_000);
 
 afterAll(async () => {
-  await context?.close();
+  await browser?.close();
   await app?.close();
   await database?.close();
   if (filesDir) removeTempDir(filesDir);
-  if (profileDir) rmSync(profileDir, { recursive: true, force: true });
 });
 
 /**
@@ -173,7 +121,7 @@ async function addPairsToReview(db: TestDatabase): Promise<void> {
 }
 
 function pageErrors(): string[] {
-  return (globalThis as { consolePageErrors?: string[] }).consolePageErrors ?? [];
+  return browser.pageErrors;
 }
 
 describe('review console in chromium', () => {
@@ -199,13 +147,13 @@ describe('review console in chromium', () => {
       expect(await page.isVisible('#nav')).toBe(false);
       expect(await page.isVisible('#who')).toBe(false);
       expect(await page.title()).toBe('Sign in to the counterparty register · cpreg console');
-      await shot('01-signin');
+      await browser.shot('01-signin');
       // A wrong key is refused in plain words with the problem's code.
       await page.fill('#api-key', 'not-a-key');
       await page.click('#sign-in');
       const refusal = await page.waitForSelector('.signin .error-box', { timeout: STEP_MS });
       expect(await refusal.textContent()).toMatch(/not accepted.*code UNAUTHENTICATED, HTTP 401/s);
-      await shot('02-signin-refused');
+      await browser.shot('02-signin-refused');
 
       await page.fill('#api-key', adminKey);
       await page.click('#sign-in');
@@ -237,7 +185,7 @@ describe('review console in chromium', () => {
       expect(await link.$eval('.badge-place', (n) => n.textContent)).not.toBe('');
       expect(await link.$eval('.badge-form, .badge-none', (n) => n.textContent)).not.toBe('');
       expect(page.url()).toContain(`q=${encodeURIComponent(typed)}`);
-      await shot('03-search');
+      await browser.shot('03-search');
 
       await link.click();
       await page.waitForSelector('#history', { timeout: STEP_MS });
@@ -247,7 +195,7 @@ describe('review console in chromium', () => {
       for (const name of detail.names) expect(text).toContain(name.name);
       for (const contract of detail.contracts) expect(text).toContain(contract.externalId);
       expect(await page.$$eval('#history li.event', (n) => n.length)).toBeGreaterThan(0);
-      await shot('04-counterparty');
+      await browser.shot('04-counterparty');
     },
     TEST_MS,
   );
@@ -261,7 +209,7 @@ describe('review console in chromium', () => {
       await page.waitForSelector('#review-question', { timeout: STEP_MS });
       expect(await page.textContent('#review-counter')).toContain(`${before.open} pairs left`);
       expect(await page.$$eval('.bars .bar', (n) => n.length)).toBeGreaterThan(0);
-      await shot('05-review');
+      await browser.shot('05-review');
 
       // "same"
       const first = Number(await page.getAttribute('#review-question', 'data-item'));
@@ -285,7 +233,7 @@ describe('review console in chromium', () => {
       await page.click('#decide-different');
       await page.waitForSelector(`#review-outcome [data-item="${second}"][data-decision="different"]`, { timeout: STEP_MS });
       expect((await openReviewItems()).items.some((i) => i.id === second)).toBe(false);
-      await shot('06-review-after-two');
+      await browser.shot('06-review-after-two');
 
       // The outcome links to where the register put it; the page shows the change.
       await page.click('#decision-result');
@@ -300,7 +248,7 @@ describe('review console in chromium', () => {
         expect(moved).toBeTruthy();
         expect(await page.textContent('#mentions')).toContain(moved.text);
       }
-      await shot('07-counterparty-after-different');
+      await browser.shot('07-counterparty-after-different');
     },
     TEST_MS,
   );
@@ -311,7 +259,7 @@ describe('review console in chromium', () => {
       const before = await openReviewItems();
       await go('/search');
       await page.focus('body');
-      await tabTo('#nav a[data-section="review"]');
+      await browser.tabTo('#nav a[data-section="review"]');
       await page.keyboard.press('Enter');
       await page.waitForSelector('#review-question', { timeout: STEP_MS });
       const item = Number(await page.getAttribute('#review-question', 'data-item'));
@@ -349,7 +297,7 @@ describe('review console in chromium', () => {
       const words = (await page.textContent('dialog#confirm .merge-description'))!;
       expect(words).toContain(`#${absorb.id} “${absorb.canonicalName}” joins #${keep.id} “${keep.canonicalName}”`);
       expect(words).toMatch(/stops being active/);
-      await shot('08-merge-confirm');
+      await browser.shot('08-merge-confirm');
       // The reason is required: confirming without one is stopped in the dialog.
       await page.click('#confirm-ok');
       await page.waitForSelector('dialog#confirm .field-problem', { timeout: STEP_MS });
@@ -360,7 +308,7 @@ describe('review console in chromium', () => {
       const merged = await apiGet<unknown>(`/v1/counterparties/${absorb.id}`);
       expect(merged.status).toBe(308);
       expect(merged.location).toContain(`/v1/counterparties/${keep.id}`);
-      await shot('09-after-merge');
+      await browser.shot('09-after-merge');
 
       const eventId = await page.getAttribute('#history li[data-type="merged"]', 'data-event');
       await page.click(`#history button[data-undo="${eventId}"]`);
@@ -372,7 +320,7 @@ describe('review console in chromium', () => {
       const back = await apiGet<{ id: number; status: string }>(`/v1/counterparties/${absorb.id}`);
       expect(back.status).toBe(200);
       expect(back.body.status).toBe('active');
-      await shot('10-after-undo');
+      await browser.shot('10-after-undo');
     },
     TEST_MS,
   );
@@ -413,7 +361,7 @@ describe('review console in chromium', () => {
       const targetId = Number(await page.$eval('#history li[data-type="split"] a:last-of-type', (a) => a.getAttribute('href')!.split('/').pop()));
       const moved = (await apiGet<{ items: { id: number }[] }>(`/v1/counterparties/${targetId}/mentions?limit=50`)).body.items;
       expect(moved.map((m) => m.id)).toContain(moving!.id);
-      await shot('10b-after-split');
+      await browser.shot('10b-after-split');
     },
     TEST_MS,
   );
@@ -484,7 +432,7 @@ describe('review console in chromium', () => {
       expect(await page.$$eval('#network-graph .node-contract', (n) => n.length)).toBeGreaterThan(0);
       expect(await page.$$eval('#network-graph .edge-relation', (n) => n.length)).toBe(1);
       expect(await page.textContent(`#network-graph [data-node="cp${related.id}"] title`)).toContain(related.canonicalName);
-      await shot('11-network');
+      await browser.shot('11-network');
       const node = await page.$('#network-graph a.node-counterparty');
       const href = (await node!.getAttribute('href'))!;
       await node!.click();
@@ -506,7 +454,7 @@ describe('review console in chromium', () => {
       const file = await download;
       expect(file.suggestedFilename()).toBe('cpreg-register.csv');
       await page.waitForSelector('.export-status .ok', { timeout: STEP_MS });
-      await shot('12-scores');
+      await browser.shot('12-scores');
     },
     TEST_MS,
   );
@@ -517,7 +465,7 @@ describe('review console in chromium', () => {
       await page.goto(`${base}/console/#/counterparty/987654`);
       const box = await page.waitForSelector('main .error-box', { timeout: STEP_MS });
       expect(await box.textContent()).toMatch(/does not exist.*code NOT_FOUND, HTTP 404/s);
-      await shot('13-error');
+      await browser.shot('13-error');
     },
     TEST_MS,
   );
@@ -528,7 +476,7 @@ describe('review console in chromium', () => {
       await page.click('#sign-out');
       await page.waitForSelector('#api-key', { timeout: STEP_MS });
       expect(await page.evaluate(() => sessionStorage.length)).toBe(0);
-      await signIn(readKey);
+      await browser.signIn(readKey);
       expect(await page.textContent('#who .scope')).toBe('read');
       const some = (await apiGet<{ items: SearchHit[] }>('/v1/counterparties?limit=5')).body.items[0]!;
       await go(`/counterparty/${some.id}`);
@@ -537,7 +485,7 @@ describe('review console in chromium', () => {
       expect(await page.$('#split-button')).toBeNull();
       expect(await page.$('#history button[data-undo]')).toBeNull();
       expect(await page.textContent('.cp-actions')).toMatch(/need an admin key/);
-      await shot('14-readonly-counterparty');
+      await browser.shot('14-readonly-counterparty');
       await go('/review');
       await page.waitForSelector('#review-question', { timeout: STEP_MS });
       expect(await page.isDisabled('#decide-same')).toBe(true);
@@ -562,7 +510,7 @@ describe('review console in chromium', () => {
       }, readKey);
       expect(refused.status).toBe(403);
       expect(refused.body.code).toBe('FORBIDDEN');
-      await shot('15-readonly-review');
+      await browser.shot('15-readonly-review');
     },
     TEST_MS,
   );
@@ -572,7 +520,7 @@ describe('review console in chromium', () => {
     async () => {
       await page.click('#sign-out');
       await page.waitForSelector('#api-key', { timeout: STEP_MS });
-      await signIn(adminKey);
+      await browser.signIn(adminKey);
       const some = (await apiGet<{ items: SearchHit[] }>('/v1/counterparties?limit=5')).body.items[1]!;
       const contract = (await apiGet<{ items: { id: number }[] }>('/v1/contracts?limit=1')).body.items[0]!;
       const pages: [string, string][] = [
@@ -590,8 +538,8 @@ describe('review console in chromium', () => {
           await go(hash);
           await page.waitForFunction(() => !document.querySelector('main .loading'), undefined, { timeout: STEP_MS });
           if (name === 'search') await page.waitForSelector('#results a', { timeout: STEP_MS });
-          await expectNoSidewaysScroll();
-          await shot(`20-${name}`);
+          await browser.expectNoSidewaysScroll();
+          await browser.shot(`20-${name}`);
           // Each page has its own document title, its heading first (issue 19 item 6), and no internal field names.
           titles.set(name, await page.title());
           expect(await page.title()).toBe(`${(await page.textContent('main h1'))!.trim()} · cpreg console`);

@@ -25,6 +25,30 @@ export function inventedContract(supplier = 'Quillmoor Fabrication Ltd', custome
   ].join('\n');
 }
 
+/**
+ * Long lines cut at 95 characters on a space (blank lines kept), so that a PDF page holds them: pdf-lib does not
+ * wrap. Used where a contract's own text, not a test's short one, goes into a PDF (the parity test, the bench).
+ */
+export function wrappedForPage(text: string): string {
+  const out: string[] = [];
+  for (const line of text.split('\n')) {
+    let rest = line;
+    while (rest.length > 95) {
+      const cut = rest.lastIndexOf(' ', 95);
+      const at = cut > 20 ? cut : 95;
+      out.push(rest.slice(0, at));
+      rest = rest.slice(at).trimStart();
+    }
+    out.push(rest);
+  }
+  return out.join('\n');
+}
+
+/** A contract's text as a PDF by pdf-lib, its lines wrapped as a page holds them (wrappedForPage). */
+export function contractPdf(text: string): Promise<Buffer> {
+  return pdfLibPdf(wrappedForPage(text));
+}
+
 /** pdf-lib: one text line per line of `text`, Helvetica 10 pt, 14 pt apart, 50 lines a page. */
 export async function pdfLibPdf(text: string): Promise<Buffer> {
   const doc = await PDFDocument.create();

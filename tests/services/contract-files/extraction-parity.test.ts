@@ -9,24 +9,9 @@ import { describe, expect, it } from 'vitest';
 import { parseParties } from '../../../resolvers/terms/index.ts';
 import { extractDocxText, extractPdfText } from '../../../services/contract-files/extract-text.ts';
 import { DRAFTING_STYLES, generateScenario } from '../../../services/demo/scenario/index.ts';
-import { docxFile, pdfLibPdf } from './documents.ts';
+import { contractPdf, docxFile } from './documents.ts';
 
 const PER_STYLE = 3;
-
-function wrapped(text: string): string {
-  const out: string[] = [];
-  for (const line of text.split('\n')) {
-    let rest = line;
-    while (rest.length > 95) {
-      const cut = rest.lastIndexOf(' ', 95);
-      const at = cut > 20 ? cut : 95;
-      out.push(rest.slice(0, at));
-      rest = rest.slice(at).trimStart();
-    }
-    out.push(rest);
-  }
-  return out.join('\n');
-}
 
 const partiesOf = (text: string) =>
   parseParties(text).parties.map((p) => ({ name: p.name, role: p.role, terms: p.terms, jurisdiction: p.jurisdiction, identifiers: p.identifiers }));
@@ -40,7 +25,7 @@ describe('extraction parity over the demo scenario', () => {
       for (const c of sample) {
         const reference = partiesOf(c.text);
         expect(reference.length, c.externalId).toBeGreaterThanOrEqual(2);
-        const pdf = await extractPdfText(await pdfLibPdf(wrapped(c.text))); // pdf-lib, as a page holds the lines
+        const pdf = await extractPdfText(await contractPdf(c.text)); // pdf-lib, as a page holds the lines
         expect(pdf.ok && partiesOf(pdf.text), `${c.externalId} from PDF`).toEqual(reference);
         const word = await extractDocxText(await docxFile(c.text)); // docx
         expect(word.ok && partiesOf(word.text), `${c.externalId} from Word`).toEqual(reference);

@@ -3,8 +3,8 @@
  * candidateDetails probe by probe (same per-key cap, ranking, limit and identifier holders), and a batch's memo
  * of scored candidates equals scoring each probe alone. Names are invented.
  */
-import { describe, expect, it } from 'vitest';
-import { forEachBackend, openTestDatabase } from '../../support/index.ts';
+import { expect, it } from 'vitest';
+import { describeBackends, withTestDatabase } from '../../support/index.ts';
 import { createRegisterContext, resolveMention } from '../../../services/register/index.ts';
 import { candidateDetails, candidateDetailsBatch } from '../../../db/queries/blocking-keys.ts';
 import { analyse } from '../../../services/register/matching/analysis.ts';
@@ -26,52 +26,47 @@ const REGISTER = [
 ];
 const PROBES = ['Larchmont Pottery Limited', 'Vossberg Kaltetechnik GmbH', 'Silverbirch Robotics', 'Tidewell Fisheries', 'Quillon Dynamics SA', 'Larchmont'];
 
-forEachBackend((backend, available) => {
-  (available ? describe : describe.skip)(`batch reads [${backend}]`, () => {
-    it('answer what the per-mention reads answer, probe by probe', async () => {
-      const opened = await openTestDatabase(backend);
-      try {
-        const ctx = createRegisterContext(opened.db);
-        const ids: number[] = [];
-        for (const [i, text] of REGISTER.entries()) ids.push((await resolveMention(ctx, { source: 'seed', externalId: String(i), text }, WHO)).counterpartyId!);
-        // An identifier held by a counterparty no key finds, so that identifier holders are part of the comparison
-        // (written directly: the lookup is what is tested, not the upkeep).
-        await opened.db
-          .insertInto('counterparty_identifier')
-          .values({
-            counterparty_id: ids[7]!,
-            scheme: 'other',
-            value: '150483782',
-            label: null,
-            strong: false,
-            source: 'test',
-            mention_id: null,
-            confirmed_by: null,
-            created_at: new Date().toISOString(),
-          })
-          .execute();
-        const probes = PROBES.map((text, i) => ({ analysis: analyse(text), identifiers: i === 0 ? [{ scheme: 'other' as const, value: '150483782' }] : [] }));
-        const batch = await candidateDetailsBatch(
-          opened.db,
-          probes.map((p) => ({ keys: keysOfAnalysis(p.analysis), identifiers: p.identifiers })),
-          { limit: 3 },
-        );
-        for (const [i, probe] of probes.entries()) {
-          const alone = await candidateDetails(opened.db, keysOfAnalysis(probe.analysis), probe.identifiers, { limit: 3 });
-          expect({ probe: PROBES[i], details: batch[i] }).toEqual({ probe: PROBES[i], details: alone });
-        }
-        expect(batch.some((d) => d.length > 1)).toBe(true);
-        expect(batch[0]!.some((d) => d.counterpartyId === ids[7])).toBe(true);
+describeBackends('batch reads', (backend) => {
+  it('answer what the per-mention reads answer, probe by probe', async () => {
+    await withTestDatabase(backend, async (opened) => {
+      const ctx = createRegisterContext(opened.db);
+      const ids: number[] = [];
+      for (const [i, text] of REGISTER.entries()) ids.push((await resolveMention(ctx, { source: 'seed', externalId: String(i), text }, WHO)).counterpartyId!);
+      // An identifier held by a counterparty no key finds, so that identifier holders are part of the comparison
+      // (written directly: the lookup is what is tested, not the upkeep).
+      await opened.db
+        .insertInto('counterparty_identifier')
+        .values({
+          counterparty_id: ids[7]!,
+          scheme: 'other',
+          value: '150483782',
+          label: null,
+          strong: false,
+          source: 'test',
+          mention_id: null,
+          confirmed_by: null,
+          created_at: new Date().toISOString(),
+        })
+        .execute();
+      const probes = PROBES.map((text, i) => ({ analysis: analyse(text), identifiers: i === 0 ? [{ scheme: 'other' as const, value: '150483782' }] : [] }));
+      const batch = await candidateDetailsBatch(
+        opened.db,
+        probes.map((p) => ({ keys: keysOfAnalysis(p.analysis), identifiers: p.identifiers })),
+        { limit: 3 },
+      );
+      for (const [i, probe] of probes.entries()) {
+        const alone = await candidateDetails(opened.db, keysOfAnalysis(probe.analysis), probe.identifiers, { limit: 3 });
+        expect({ probe: PROBES[i], details: batch[i] }).toEqual({ probe: PROBES[i], details: alone });
+      }
+      expect(batch.some((d) => d.length > 1)).toBe(true);
+      expect(batch[0]!.some((d) => d.counterpartyId === ids[7])).toBe(true);
 
-        const reads = new BatchReads(opened.db);
-        await reads.prefetch(probes, MAX_CANDIDATES);
-        for (const [i, probe] of probes.entries()) {
-          const alone = await scoredCandidates(opened.db, { ...probe, country: null }, DEFAULT_MATCH_MODEL);
-          const shared = await scoredCandidates(opened.db, { ...probe, country: null }, DEFAULT_MATCH_MODEL, new Set(), reads);
-          expect({ probe: PROBES[i], scored: shared }).toEqual({ probe: PROBES[i], scored: alone });
-        }
-      } finally {
-        await opened.close();
+      const reads = new BatchReads(opened.db);
+      await reads.prefetch(probes, MAX_CANDIDATES);
+      for (const [i, probe] of probes.entries()) {
+        const alone = await scoredCandidates(opened.db, { ...probe, country: null }, DEFAULT_MATCH_MODEL);
+        const shared = await scoredCandidates(opened.db, { ...probe, country: null }, DEFAULT_MATCH_MODEL, new Set(), reads);
+        expect({ probe: PROBES[i], scored: shared }).toEqual({ probe: PROBES[i], scored: alone });
       }
     });
   });

@@ -6,8 +6,8 @@
  *    keys, then lowest id, 25 per probe: the query of commit b60e5eb, written out below as the reference).
  */
 import { sql } from 'kysely';
-import { describe, expect, it } from 'vitest';
-import { forEachBackend, openTestDatabase } from '../../support/index.ts';
+import { expect, it } from 'vitest';
+import { describeBackends, withTestDatabase } from '../../support/index.ts';
 import { bulkLoad } from '../../../bench/register.bench.ts';
 import { generateNames } from '../../../services/demo/generate-names.ts';
 import { analyse } from '../../../services/register/matching/analysis.ts';
@@ -42,48 +42,41 @@ function bestOf(list: readonly ScoredCandidate[]): ScoredCandidate | undefined {
   return list.find((c) => c.score !== -Infinity);
 }
 
-forEachBackend((backend, available) => {
-  (available ? describe : describe.skip)(`candidate ranking and score bound [${backend}]`, () => {
-    it('find the same best candidates as scoring everything, and never a worse one than the previous ranking', async () => {
-      const opened = await openTestDatabase(backend);
-      try {
-        const stream = generateNames(REGISTER_SIZE + 1000, 3)[Symbol.iterator]();
-        await bulkLoad(opened.db, stream, REGISTER_SIZE, () => {});
-        const model = DEFAULT_MATCH_MODEL;
-        let better = 0;
-        let linkedOrReviewed = 0;
-        const counted = { probes: 0, fetched: 0, scored: 0 };
-        for (let i = 0; i < PROBES; i++) {
-          const row = stream.next().value!;
-          const probe = { analysis: analyse(row.name), country: row.country, identifiers: [] };
-          const keys = keysOfAnalysis(probe.analysis);
-          const before = { ...candidateCounts };
-          const decision = await scoredCandidatesWithFormer(opened.db, probe, model);
-          for (const k of ['probes', 'fetched', 'scored'] as const) counted[k] += candidateCounts[k] - before[k];
-          const details = await candidateDetails(opened.db, keys, [], { limit: MAX_CANDIDATES, country: row.country });
-          const everything = (await scoreDetails(opened.db, probe, details, model, new Set(), undefined, true)).current;
-          const [best, full] = [bestOf(decision.current), bestOf(everything)];
-          expect({ probe: row.name, id: best?.counterpartyId, score: best?.score }).toEqual({ probe: row.name, id: full?.counterpartyId, score: full?.score });
-          const above = (list: readonly ScoredCandidate[]) => list.filter((c) => c.score > model.newAt).map((c) => [c.counterpartyId, c.score]);
-          expect({ probe: row.name, above: above(decision.current) }).toEqual({ probe: row.name, above: above(everything) });
-          if ((full?.score ?? -Infinity) > model.newAt) linkedOrReviewed++;
+describeBackends('candidate ranking and score bound', (backend) => {
+  it('find the same best candidates as scoring everything, and never a worse one than the previous ranking', async () => {
+    await withTestDatabase(backend, async (opened) => {
+      const stream = generateNames(REGISTER_SIZE + 1000, 3)[Symbol.iterator]();
+      await bulkLoad(opened.db, stream, REGISTER_SIZE, () => {});
+      const model = DEFAULT_MATCH_MODEL;
+      let better = 0;
+      let linkedOrReviewed = 0;
+      const counted = { probes: 0, fetched: 0, scored: 0 };
+      for (let i = 0; i < PROBES; i++) {
+        const row = stream.next().value!;
+        const probe = { analysis: analyse(row.name), country: row.country, identifiers: [] };
+        const keys = keysOfAnalysis(probe.analysis);
+        const before = { ...candidateCounts };
+        const decision = await scoredCandidatesWithFormer(opened.db, probe, model);
+        for (const k of ['probes', 'fetched', 'scored'] as const) counted[k] += candidateCounts[k] - before[k];
+        const details = await candidateDetails(opened.db, keys, [], { limit: MAX_CANDIDATES, country: row.country });
+        const everything = (await scoreDetails(opened.db, probe, details, model, new Set(), undefined, true)).current;
+        const [best, full] = [bestOf(decision.current), bestOf(everything)];
+        expect({ probe: row.name, id: best?.counterpartyId, score: best?.score }).toEqual({ probe: row.name, id: full?.counterpartyId, score: full?.score });
+        const above = (list: readonly ScoredCandidate[]) => list.filter((c) => c.score > model.newAt).map((c) => [c.counterpartyId, c.score]);
+        expect({ probe: row.name, above: above(decision.current) }).toEqual({ probe: row.name, above: above(everything) });
+        if ((full?.score ?? -Infinity) > model.newAt) linkedOrReviewed++;
 
-          const previous = bestOf(
-            (await scoreDetails(opened.db, probe, await previousCandidates(opened.db, keys), model, new Set(), undefined, false)).current,
-          );
-          expect({ probe: row.name, notWorse: (full?.score ?? -Infinity) >= (previous?.score ?? -Infinity) }).toEqual({ probe: row.name, notWorse: true });
-          if ((full?.score ?? -Infinity) > (previous?.score ?? -Infinity)) better++;
-        }
-        // The probes include matches (else the comparison says little), and the bound leaves candidates unscored.
-        expect(linkedOrReviewed).toBeGreaterThan(PROBES / 5);
-        const { probes, fetched, scored } = counted;
-        expect(scored).toBeLessThan(fetched);
-        console.log(
-          `[${backend}] ${PROBES} probes: ${better} with a better best than the previous ranking; per probe list ${(fetched / probes).toFixed(1)} fetched, ${(scored / probes).toFixed(1)} scored`,
-        );
-      } finally {
-        await opened.close();
+        const previous = bestOf((await scoreDetails(opened.db, probe, await previousCandidates(opened.db, keys), model, new Set(), undefined, false)).current);
+        expect({ probe: row.name, notWorse: (full?.score ?? -Infinity) >= (previous?.score ?? -Infinity) }).toEqual({ probe: row.name, notWorse: true });
+        if ((full?.score ?? -Infinity) > (previous?.score ?? -Infinity)) better++;
       }
-    }, 300_000);
-  });
+      // The probes include matches (else the comparison says little), and the bound leaves candidates unscored.
+      expect(linkedOrReviewed).toBeGreaterThan(PROBES / 5);
+      const { probes, fetched, scored } = counted;
+      expect(scored).toBeLessThan(fetched);
+      console.log(
+        `[${backend}] ${PROBES} probes: ${better} with a better best than the previous ranking; per probe list ${(fetched / probes).toFixed(1)} fetched, ${(scored / probes).toFixed(1)} scored`,
+      );
+    });
+  }, 300_000);
 });

@@ -1,13 +1,13 @@
 /** Contracts (post: write; read: read), review items (list: read; decide: admin) and the score statistics. */
-import { sql } from 'kysely';
 import { storeContract, type ContractInput } from '../../../register/contracts.ts';
 import { applyGivenParties, type GivenParty } from '../../../register/contract-given-parties.ts';
 import { normaliseIdentifierOrThrow } from '../../../register/records.ts';
 import { decideReview, detailsOf, listReviewItems, type ReviewDecisionInput } from '../../../register/review.ts';
-import { getReviewItem } from '../../../../db/queries/review.ts';
+import { countOpenReviewItems, getReviewItem } from '../../../../db/queries/review.ts';
+import { recentMentionScores } from '../../../../db/queries/mentions.ts';
 import { decideReviewGroup, listRankedReviewItems } from '../../../register/review-queue.ts';
 import { currentModel } from '../../../register/matching/model.ts';
-import { findContractId, getContract } from '../../../../db/queries/contracts.ts';
+import { findContractId, getContract, searchContracts } from '../../../../db/queries/contracts.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import type { RoutePlugin } from '../../types.ts';
 import {
@@ -275,31 +275,8 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
     },
     async (request) => {
       const { q, source, externalId, limit } = request.query;
-      let query = db
-        .selectFrom('contract')
-        .select(['id', 'source', 'external_id', 'title', 'status', 'created_at'])
-        .where('id', '>', decodeCursor(request.query.cursor));
-      if (source !== undefined) query = query.where('source', '=', source);
-      if (externalId !== undefined) query = query.where('external_id', '=', externalId);
-      if (q) {
-        const like = `%${q.toLowerCase().replaceAll('\\', '\\\\').replaceAll('%', '\\%').replaceAll('_', '\\_')}%`;
-        query = query.where((eb) => eb.or([eb(sql`lower(coalesce(title, ''))`, 'like', like), eb('external_id', '=', q)]));
-      }
-      const rows = await query
-        .orderBy('id')
-        .limit(limit + 1)
-        .execute();
-      return page(
-        rows.map((r) => ({
-          id: Number(r.id),
-          source: r.source,
-          externalId: r.external_id,
-          title: r.title,
-          status: r.status,
-          createdAt: new Date(r.created_at).toISOString(),
-        })),
-        limit,
-      );
+      const rows = await searchContracts(db, { afterId: decodeCursor(request.query.cursor), limit: limit + 1, source, externalId, q });
+      return page(rows, limit);
     },
   );
 
@@ -385,21 +362,17 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
       const { limit, order, cursor: _cursor, status, ...narrow } = request.query;
       const filter = { ...narrow, status };
       const start = decodeCursor(request.query.cursor);
-      const total = await db
-        .selectFrom('review_item')
-        .select((eb) => eb.fn.countAll<string>().as('n'))
-        .where('status', '=', 'open')
-        .executeTakeFirstOrThrow();
+      const open = await countOpenReviewItems(db);
       if (order === 'oldest' || status !== 'open') {
         const items = await listReviewItems(ctx, { afterId: start, limit: limit + 1, filter });
         const withForms = items.map((item) => ({ ...item, mention: item.mention ? withLegalForm(item.mention) : null }));
-        return { ...page(withForms, limit), open: Number(total.n) };
+        return { ...page(withForms, limit), open };
       }
       // The cursor of the ranked order is the count of items already shown.
       const items = await listRankedReviewItems(ctx, { offset: start, limit: limit + 1, filter: narrow });
       const withForms = items.map((item) => ({ ...item, mention: item.mention ? withLegalForm(item.mention) : null }));
       const more = withForms.length > limit;
-      return { items: more ? withForms.slice(0, limit) : withForms, nextCursor: more ? encodeCursor(start + limit) : null, open: Number(total.n) };
+      return { items: more ? withForms.slice(0, limit) : withForms, nextCursor: more ? encodeCursor(start + limit) : null, open };
     },
   );
 
@@ -519,16 +492,8 @@ export const contractReviewRoutes: RoutePlugin = (app, deps) => {
     },
     async (request) => {
       const { model } = await currentModel(db);
-      const rows = await db
-        .selectFrom('mention')
-        .select(['score', 'status'])
-        .where('score', 'is not', null)
-        .where(sql<boolean>`abs(score) < 1e5`)
-        .orderBy('updated_at', 'desc')
-        .orderBy('id', 'desc')
-        .limit(request.query.limit)
-        .execute();
-      const scores = rows.map((r) => Number(r.score));
+      const rows = await recentMentionScores(db, request.query.limit);
+      const scores = rows.map((r) => r.score);
       const min = scores.length ? Math.min(...scores, model.newAt) : null;
       const max = scores.length ? Math.max(...scores, model.linkAt) : null;
       const n = request.query.buckets;

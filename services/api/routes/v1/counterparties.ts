@@ -13,7 +13,8 @@ import {
   renameCounterparty,
 } from '../../../register/counterparties.ts';
 import { checkJurisdiction, setJurisdiction } from '../../../register/jurisdiction.ts';
-import { mergeCounterparties, splitCounterparty } from '../../../register/merge-split.ts';
+import { mergeCounterparties } from '../../../register/merge-counterparties.ts';
+import { splitCounterparty } from '../../../register/split-counterparty.ts';
 import { addRelation, removeRelation } from '../../../register/relations.ts';
 import { survivorOf } from '../../../register/records.ts';
 import { checkName, normaliseIdentifierOrThrow } from '../../../register/records.ts';

@@ -21,7 +21,7 @@ import type { Jobs } from '../../../jobs/start-jobs.ts';
 import { jobsFor } from './job-queue.ts';
 import { submitIngestJob, type JobCreatedHook } from '../../../jobs/submit-ingest.ts';
 import { submitSweepJob } from '../../../jobs/steps.ts';
-import { partitionTally } from '../../../../db/queries/jobs.ts';
+import { insertJob, partitionTally, readJob, updateJob, type JobRow } from '../../../../db/queries/jobs.ts';
 import { reresolve } from '../../../register/reresolve.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import type { RoutePlugin } from '../../types.ts';
@@ -69,33 +69,6 @@ export const JOB_OUT = {
     error: null,
   },
 } as const;
-
-async function createJob(db: Kysely<Database>, kind: string, actor: string, params: Record<string, unknown>): Promise<number> {
-  const row = await db
-    .insertInto('job')
-    .values({ kind, actor, status: 'running', params: JSON.stringify(params) })
-    .returning('id')
-    .executeTakeFirstOrThrow();
-  return Number(row.id);
-}
-
-async function updateJob(
-  db: Kysely<Database>,
-  id: number,
-  values: { progress?: unknown; result?: unknown; status?: 'finished' | 'failed'; error?: string },
-): Promise<void> {
-  await db
-    .updateTable('job')
-    .set({
-      updated_at: new Date(),
-      ...(values.progress !== undefined ? { progress: JSON.stringify(values.progress) } : {}),
-      ...(values.result !== undefined ? { result: JSON.stringify(values.result) } : {}),
-      ...(values.status ? { status: values.status, finished_at: new Date() } : {}),
-      ...(values.error !== undefined ? { error: values.error } : {}),
-    })
-    .where('id', '=', id)
-    .execute();
-}
 
 /** Runs `work` after the answer has gone; failures end in the job row, never in an unhandled rejection. */
 function runInBackground(
@@ -266,7 +239,7 @@ export const exportJobRoutes: RoutePlugin = async (app, deps) => {
     },
     async (request, reply) => {
       const who = actorOf(request);
-      const id = await createJob(db, 'reresolve', who.actor, {});
+      const id = await insertJob(db, { kind: 'reresolve', actor: who.actor, status: 'running', params: {} });
       runInBackground(
         db,
         id,
@@ -310,30 +283,28 @@ export function answerJobCreated(claim: { keyId: string; key: string }): JobCrea
 }
 
 export async function jobView(db: Kysely<Database>, id: number): Promise<Record<string, unknown>> {
-  const row = await db.selectFrom('job').selectAll().where('id', '=', id).executeTakeFirst();
+  const row = await readJob(db, id);
   if (!row) throw new ApiError('NOT_FOUND', `job ${id} does not exist`);
-  const parse = (v: unknown): unknown => (typeof v === 'string' ? JSON.parse(v) : v);
-  const iso = (v: Date | null): string | null => (v === null ? null : new Date(v).toISOString());
+  const iso = (v: Date | null): string | null => (v === null ? null : v.toISOString());
   return {
-    id: Number(row.id),
+    id: row.id,
     kind: row.kind,
     status: row.status,
     actor: row.actor,
-    params: parse(row.params),
-    progress: parse(row.progress),
-    result: parse(row.result) ?? null,
+    params: row.params,
+    progress: row.progress,
+    result: row.result ?? null,
     error: row.error,
-    createdAt: iso(row.created_at),
-    updatedAt: iso(row.updated_at),
-    finishedAt: iso(row.finished_at),
+    createdAt: iso(row.createdAt),
+    updatedAt: iso(row.updatedAt),
+    finishedAt: iso(row.finishedAt),
     partitions: await partitionsOf(db, row),
   };
 }
 
 /** A partitioned job's partitions by state, and the share of its mentions (or counterparties) done. */
-async function partitionsOf(db: Kysely<Database>, row: { id: unknown; params: unknown }): Promise<Record<string, number> | null> {
-  const params = (typeof row.params === 'string' ? JSON.parse(row.params) : row.params) as Record<string, unknown>;
-  if (params.partitioned !== true) return null;
-  const t = await partitionTally(db, Number(row.id));
+async function partitionsOf(db: Kysely<Database>, row: JobRow): Promise<Record<string, number> | null> {
+  if (row.params.partitioned !== true) return null;
+  const t = await partitionTally(db, row.id);
   return { total: t.total, queued: t.queued, running: t.running, done: t.done, fractionDone: t.total === 0 ? 0 : t.done / t.total };
 }
