@@ -7,7 +7,7 @@ import { softTfIdfWeighted, weighTokens, type IdfTable } from '../compare/index.
 import { compareIdentifiers } from '../identifiers/index.ts';
 import type { IndexedPairs, ScoredEdge } from '../cluster/index.ts';
 import type { Random } from '../prng.ts';
-import { compareRecords, nameLevelOf, nameLevels, qualifierLevel } from './compare-records.ts';
+import { compareRecords, nameLevelOf, nameLevels, qualifierLevelBeside } from './compare-records.ts';
 import { acronymLevel, jurisdictionLevel, legalFormLevel } from './context-levels.ts';
 import type { ComparisonVector } from './em.ts';
 import { FEATURE_LEVELS, FEATURE_NAMES, levelIndices } from './features.ts';
@@ -63,7 +63,7 @@ export function compareCandidates(records: readonly MatchRecord[], pairs: Candid
     put(row, LEGAL_FORM, legalFormLevel(a, b));
     put(row, JURISDICTION, jurisdictionLevel(a, b));
     put(row, ACRONYM, acronymLevel(a, b));
-    put(row, QUALIFIER, qualifierLevel(a.analysis.qualifiers, b.analysis.qualifiers));
+    put(row, QUALIFIER, qualifierLevelBeside(name.name, a.analysis.qualifiers, b.analysis.qualifiers));
     const ids = (a.identifiers?.length ?? 0) > 0 && (b.identifiers?.length ?? 0) > 0 ? compareIdentifiers(a.identifiers ?? [], b.identifiers ?? []) : null;
     put(row, SHARED_CONTACT, ids === null ? null : ids.sharedWeak.length > 0 ? 'shared' : 'none_shared');
     if (ids?.cannotLink) overrides.set(k, 'cannot_link');

@@ -47,7 +47,7 @@ export function compareWeighted(a: MatchRecord, b: MatchRecord, weightedA: Weigh
     legalForm: legalFormLevel(a, b),
     jurisdiction: jurisdictionLevel(a, b),
     acronym: acronymLevel(a, b),
-    qualifier: qualifierLevel(a.analysis.qualifiers, b.analysis.qualifiers),
+    qualifier: qualifierLevelBeside(name.name, a.analysis.qualifiers, b.analysis.qualifiers),
     sharedContact: identifiers === null ? null : identifiers.sharedWeak.length > 0 ? 'shared' : 'none_shared',
     distinct: name.distinct,
   };
@@ -140,6 +140,16 @@ export function nameLevelOf(coreA: string, coreB: string, soft: number): Feature
   const cut = NAME_BANDS[softBand - 1]!.jaroWinkler;
   if (jaroWinklerUpperBound(coreA.length, coreB.length) < cut - 1e-9) return softBand < NAME_BANDS.length ? NAME_BANDS[softBand]!.level : 'none';
   return nameLevel(false, soft, jaroWinkler(coreA, coreB));
+}
+
+/**
+ * The qualifier level beside the name level. Companies of one group share their place qualifier ("Alder Securities
+ * (Asia)" / "Alder (Asia)"): beside names where one side only adds words, an equal qualifier is the group's and says
+ * nothing more about one company, so it is not observed (the two features are not independent there).
+ */
+export function qualifierLevelBeside(name: FeatureLevel<'name'> | null, a: readonly string[], b: readonly string[]): FeatureLevel<'qualifier'> | null {
+  const level = qualifierLevel(a, b);
+  return level === 'same' && (name === 'extra_words' || name === 'extra_activity') ? null : level;
 }
 
 export function qualifierLevel(a: readonly string[], b: readonly string[]): FeatureLevel<'qualifier'> | null {
