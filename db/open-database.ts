@@ -277,7 +277,14 @@ async function openPglite(target: string, options: OpenDatabaseOptions): Promise
   try {
     if (dir) fresh = prepareFirstStart(dir, options.onMessage);
     // A copy of the migrated template when there is one (seconds faster than initdb and the migrations).
-    if (dir && fresh && !options.loadDataDir) fromTemplate = (await import('./embedded-template.ts')).copyTemplateInto(dir);
+    if (dir && fresh && !options.loadDataDir) {
+      const { copyTemplateInto, hasTemplate } = await import('./embedded-template.ts');
+      // Said before the copy and the engine's start (seconds together), so that the command is not silent meanwhile.
+      if (hasTemplate()) {
+        options.onMessage?.(`creating a new empty database in ${dir} (a copy of the migrated template)`);
+        fromTemplate = copyTemplateInto(dir);
+      }
+    }
     // The embedded engine's first start (initdb) takes several seconds: say so before, not only after.
     if (fresh && !fromTemplate && !options.loadDataDir) options.onMessage?.(`creating a new empty database in ${dir} (its first start takes several seconds)`);
     // A new cluster always gets them: its first migration enables them.

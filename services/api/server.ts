@@ -6,7 +6,7 @@
 import type { FastifyInstance } from 'fastify';
 import pino from 'pino';
 import { resolve as resolvePath } from 'node:path';
-import { keepAsTemplate, openDatabase, resolveTarget, type OpenedDatabase } from '../../db/open-database.ts';
+import { isPostgresUrl, keepAsTemplate, openDatabase, resolveTarget, type OpenedDatabase } from '../../db/open-database.ts';
 import type { Jobs } from '../jobs/start-jobs.ts';
 import { migrateToLatest } from '../../db/migrate.ts';
 import { loggerOptions } from './logger.ts';
@@ -45,6 +45,10 @@ export async function startServer(options: ServeOptions): Promise<RunningServer>
   const say = options.say ?? ((line: string) => process.stdout.write(`${line}\n`));
   const dbTimeoutMs = options.dbTimeoutMs ?? DEFAULT_DB_TIMEOUT_MS;
   const logger = pino(loggerOptions(options.logLevel));
+  // Opening the embedded database and loading the API take seconds: a line before the wait. (Not for PostgreSQL: a
+  // server that cannot be reached is reported in one line, with nothing before it.)
+  const target = resolveTarget(options.db);
+  if (!isPostgresUrl(target)) say(`cpreg: opening the embedded database ${target} and loading the API`);
   // The API's modules (fastify, every route, the register, the job runner) load while the database opens: the
   // embedded engine compiles its WebAssembly on other threads meanwhile, and this thread would only wait.
   const modules = Promise.all([import('./app.ts'), import('../jobs/start-jobs.ts')]);
