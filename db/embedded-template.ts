@@ -62,6 +62,12 @@ export function templateFile(dir = templateCacheDir()): string | undefined {
   return join(dir, `pglite-${pgliteVersion()}-schema-${digest}`);
 }
 
+/** Whether today's template exists, so that a new database can be a copy of it. */
+export function hasTemplate(): boolean {
+  const template = templateFile();
+  return template !== undefined && existsSync(join(template, 'PG_VERSION'));
+}
+
 /**
  * Copies today's template into `dir` (a new database directory that holds no cluster yet). Returns false, having
  * copied nothing that stays, when there is no template or it cannot be copied: the caller then runs initdb.

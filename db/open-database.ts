@@ -49,7 +49,16 @@ export interface OpenDatabaseOptions {
    * opens without them. Calling one of their functions then fails with "could not access file".
    */
   extensions?: boolean;
+  /**
+   * Embedded only: start the engine with a small buffer pool (16 MB instead of the cluster's 128 MB). The engine
+   * zeroes its whole pool at every start, about 0.4 s of CPU for 128 MB; a command that opens, reads a little and
+   * exits gains that. Writers keep the large pool: an ingest of 6,000 names took a quarter more CPU with the small one.
+   */
+  smallBufferPool?: boolean;
 }
+
+/** The buffer pool of a `smallBufferPool` start (see OpenDatabaseOptions). */
+export const SMALL_BUFFER_POOL = '16MB';
 
 export interface OpenedDatabase {
   db: Kysely<Database>;
@@ -199,7 +208,10 @@ function oneLine(text: string): string {
 
 // ---------------------------------------------------------------- PGlite
 
-async function loadPglite(withExtensions: boolean): Promise<{ create: (dir: string | undefined, loadDataDir?: Blob) => Promise<PGliteLike> }> {
+async function loadPglite(
+  withExtensions: boolean,
+  smallBufferPool: boolean,
+): Promise<{ create: (dir: string | undefined, loadDataDir?: Blob) => Promise<PGliteLike> }> {
   const [{ PGlite }, extensions] = await Promise.all([import('@electric-sql/pglite'), withExtensions ? loadExtensions() : undefined]);
   return {
     create: async (dir, loadDataDir) =>
@@ -208,6 +220,8 @@ async function loadPglite(withExtensions: boolean): Promise<{ create: (dir: stri
         ...(loadDataDir ? { loadDataDir } : {}),
         // Loaded here; CREATE EXTENSION IF NOT EXISTS in the migrations then enables them.
         ...(extensions ? { extensions } : {}),
+        // The engine's own start parameters, plus a setting for this start only (the cluster's file is untouched).
+        ...(smallBufferPool ? { startParams: [...PGlite.defaultStartParams, '-c', `shared_buffers=${SMALL_BUFFER_POOL}`] } : {}),
       }),
   };
 }
@@ -263,11 +277,18 @@ async function openPglite(target: string, options: OpenDatabaseOptions): Promise
   try {
     if (dir) fresh = prepareFirstStart(dir, options.onMessage);
     // A copy of the migrated template when there is one (seconds faster than initdb and the migrations).
-    if (dir && fresh && !options.loadDataDir) fromTemplate = (await import('./embedded-template.ts')).copyTemplateInto(dir);
+    if (dir && fresh && !options.loadDataDir) {
+      const { copyTemplateInto, hasTemplate } = await import('./embedded-template.ts');
+      // Said before the copy and the engine's start (seconds together), so that the command is not silent meanwhile.
+      if (hasTemplate()) {
+        options.onMessage?.(`creating a new empty database in ${dir} (a copy of the migrated template)`);
+        fromTemplate = copyTemplateInto(dir);
+      }
+    }
     // The embedded engine's first start (initdb) takes several seconds: say so before, not only after.
     if (fresh && !fromTemplate && !options.loadDataDir) options.onMessage?.(`creating a new empty database in ${dir} (its first start takes several seconds)`);
     // A new cluster always gets them: its first migration enables them.
-    const { create } = await loadPglite(options.extensions !== false || fresh);
+    const { create } = await loadPglite(options.extensions !== false || fresh, options.smallBufferPool === true && !fresh);
     pglite = await create(dir, options.loadDataDir);
     if (dir && fresh) {
       await pglite.syncToFs();

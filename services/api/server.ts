@@ -6,10 +6,9 @@
 import type { FastifyInstance } from 'fastify';
 import pino from 'pino';
 import { resolve as resolvePath } from 'node:path';
-import { keepAsTemplate, openDatabase, resolveTarget, type OpenedDatabase } from '../../db/open-database.ts';
-import { startJobs, type Jobs } from '../jobs/start-jobs.ts';
+import { isPostgresUrl, keepAsTemplate, openDatabase, resolveTarget, type OpenedDatabase } from '../../db/open-database.ts';
+import type { Jobs } from '../jobs/start-jobs.ts';
 import { migrateToLatest } from '../../db/migrate.ts';
-import { buildApp } from './app.ts';
 import { loggerOptions } from './logger.ts';
 import { DEFAULT_DB_TIMEOUT_MS } from './types.ts';
 
@@ -46,6 +45,14 @@ export async function startServer(options: ServeOptions): Promise<RunningServer>
   const say = options.say ?? ((line: string) => process.stdout.write(`${line}\n`));
   const dbTimeoutMs = options.dbTimeoutMs ?? DEFAULT_DB_TIMEOUT_MS;
   const logger = pino(loggerOptions(options.logLevel));
+  // Opening the embedded database and loading the API take seconds: a line before the wait. (Not for PostgreSQL: a
+  // server that cannot be reached is reported in one line, with nothing before it.)
+  const target = resolveTarget(options.db);
+  if (!isPostgresUrl(target)) say(`cpreg: opening the embedded database ${target} and loading the API`);
+  // The API's modules (fastify, every route, the register, the job runner) load while the database opens: the
+  // embedded engine compiles its WebAssembly on other threads meanwhile, and this thread would only wait.
+  const modules = Promise.all([import('./app.ts'), import('../jobs/start-jobs.ts')]);
+  modules.catch(() => undefined); // awaited below; when opening fails first, its error is the one reported
   const database = await openDatabase(options.db, {
     timeoutMs: dbTimeoutMs,
     command: options.command,
@@ -63,6 +70,7 @@ export async function startServer(options: ServeOptions): Promise<RunningServer>
     // Building the API (every route's schemas compiled) takes seconds on a small machine: a line before the wait.
     say(`cpreg: database open (${database.description}); starting the API`);
     const workSlots = options.workSlots ?? 1;
+    const [{ buildApp }, { startJobs }] = await modules;
     jobs = await startJobs({
       db: database.db,
       backend: database.backend,

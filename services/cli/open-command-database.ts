@@ -34,10 +34,10 @@ export function openedLine(opened: OpenedDatabase, given: string | undefined): s
 
 export async function openCommandDatabase(given: string | undefined, command: string, options: CommandDatabaseOptions): Promise<OpenedDatabase> {
   const say = options.say ?? ((line: string) => void process.stderr.write(`${line}\n`));
-  // A command that only reads opens the embedded database without its search extensions (a third of the start);
-  // should the schema need a migration, it is opened again with them and migrated.
+  // A command that only reads opens the embedded database without its search extensions (a third of the start) and
+  // with a small buffer pool; should the schema need a migration, it is opened again as a writer and migrated.
   if (!options.writes && options.migrate !== false) {
-    const opened = await openOrExplain(given, command, { writes: false, extensions: false }, say);
+    const opened = await openOrExplain(given, command, { writes: false, extensions: false, smallBufferPool: true }, say);
     const { schemaState } = await import('../../db/migrate.ts');
     if ((await schemaState(opened.db)).upToDate) return opened;
     await opened.close();
@@ -71,14 +71,20 @@ async function openAndMigrate(
 async function openOrExplain(
   given: string | undefined,
   command: string,
-  how: { writes: boolean; extensions: boolean },
+  how: { writes: boolean; extensions: boolean; smallBufferPool?: boolean },
   say: (line: string) => void,
 ): Promise<OpenedDatabase> {
   const { openDatabase, resolveTarget } = await import('../../db/open-database.ts');
   const { DatabaseOpenError, NoDatabaseError } = await import('../../db/database-errors.ts');
   const { DatabaseLockedError } = await import('../../db/lock.ts');
   try {
-    return await openDatabase(given, { command, create: how.writes, extensions: how.extensions, onMessage: (line) => say(`cpreg: ${line}`) });
+    return await openDatabase(given, {
+      command,
+      create: how.writes,
+      extensions: how.extensions,
+      smallBufferPool: how.smallBufferPool === true,
+      onMessage: (line) => say(`cpreg: ${line}`),
+    });
   } catch (error) {
     if (error instanceof NoDatabaseError) {
       throw new CliError(

@@ -5,6 +5,7 @@ import { stringify } from 'csv-stringify/sync';
 import { precisionRecallSvg } from '../../resolvers/evaluate/index.ts';
 import { DEFAULT_MATCH_MODEL, parseMatchModel, type MatchModel } from '../../resolvers/score/index.ts';
 import { CliError } from '../cli/cli-error.ts';
+import { countOf } from '../cli/count-words.ts';
 import type { EvaluateFlags } from '../cli/commands/evaluate.ts';
 import { LabelledFileError, loadLabelledCsv, parseColumnValue, type LabelledRow } from './load-labelled-csv.ts';
 import { METHODS, runEvaluation, type EvaluationReport, type Method } from './run-evaluation.ts';
@@ -34,9 +35,10 @@ export async function evaluateCommand(file: string, flags: EvaluateFlags): Promi
   }
   for (const p of loaded.problems) process.stderr.write(`${file}:${p.line}: ${p.problem}\n`);
   const aside = flags.setAsideSharedNames ? setAsideSharedNames(loaded.rows) : { kept: loaded.rows, setAside: 0 };
-  if (flags.setAsideSharedNames && !flags.json) process.stderr.write(`  set aside ${aside.setAside} rows whose name and country two or more entities share\n`);
+  if (flags.setAsideSharedNames && !flags.json)
+    process.stderr.write(`  set aside ${countOf(aside.setAside, 'row')} whose name and country two or more entities share\n`);
   const rows = aside.kept;
-  if (rows.length === 0) throw new CliError(`${file}: no usable rows after filtering (${loaded.problems.length} rows with problems)`);
+  if (rows.length === 0) throw new CliError(`${file}: no usable rows after filtering (${countOf(loaded.problems.length, 'row')} with problems)`);
   if (flags.throughRegister) return throughRegisterCommand(rows, flags);
   const model = flags.model ? readModel(flags.model) : DEFAULT_MATCH_MODEL;
   const isAcronym = acronymRule
@@ -130,7 +132,7 @@ async function throughRegisterCommand(rows: LabelledRow[], flags: EvaluateFlags)
   const f = (x: number): string => x.toFixed(4);
   process.stdout.write(
     [
-      `through the register: ${report.rows} rows in batches of ${report.batchSize}, ${(report.elapsedMs / 1000).toFixed(1)} s`,
+      `through the register: ${countOf(report.rows, 'row')} in batches of ${report.batchSize}, ${(report.elapsedMs / 1000).toFixed(1)} s`,
       `  pairwise  precision ${f(report.pairwise.precision)}  recall ${f(report.pairwise.recall)}  F1 ${f(report.pairwise.f1)}`,
       `  B-cubed   precision ${f(report.bcubed.precision)}  recall ${f(report.bcubed.recall)}  F1 ${f(report.bcubed.f1)}`,
       `  linked ${report.linked}, new ${report.new}, review ${report.review} (${(100 * report.reviewShare).toFixed(2)} %, ${(100 * report.reviewTrueMatchShare).toFixed(1)} % true), other ${report.other}`,

@@ -1,4 +1,5 @@
 /** The human-readable report of `cpreg evaluate`. */
+import { countOf } from '../cli/count-words.ts';
 import type { EvaluationReport } from './run-evaluation.ts';
 
 const pct = (v: number): string => `${(v * 100).toFixed(2)}%`;
@@ -9,7 +10,7 @@ export function formatReport(
 ): string {
   const lines: string[] = [];
   lines.push(
-    `${input.file}: ${input.usableRows} rows used, ${input.problems.length} rows with problems (listed above), ${input.filteredOut} filtered out, ${input.excludedOut} excluded, ${input.countryQualifiersStripped} country qualifiers stripped`,
+    `${input.file}: ${countOf(input.usableRows, 'row')} used, ${countOf(input.problems.length, 'row')} with problems (listed above), ${input.filteredOut} filtered out, ${input.excludedOut} excluded, ${input.countryQualifiersStripped} country qualifiers stripped`,
   );
   lines.push(`method ${report.method}: ${report.rows} names, ${report.entities} true entities, ${report.clusters} clusters, ${report.comparisons} comparisons`);
   const pr = (label: string, p: { precision: number; recall: number; f1?: number }): string =>

@@ -11,6 +11,7 @@ import { bcubed, pairwiseScores, type PairwiseScores, type PrecisionRecall } fro
 import { migrateToLatest } from '../../db/migrate.ts';
 import { openDatabase } from '../../db/open-database.ts';
 import { countByStatus, outcomesOfSource } from '../../db/queries/mentions.ts';
+import { countOf } from '../cli/count-words.ts';
 import { ingestFile } from '../ingest/run-ingest.ts';
 import type { LabelledRow } from './load-labelled-csv.ts';
 
@@ -64,7 +65,10 @@ export async function evaluateThroughRegister(rows: readonly LabelledRow[], opti
       batchSize,
       onProgress: (p) => options.log?.(`register: ${p.counts.read.toLocaleString('en-US')} of ${rows.length.toLocaleString('en-US')} rows`),
     });
-    if (summary.counts.rejected > 0) throw new Error(`${summary.counts.rejected} rows were rejected by ingest (see its rules); fix the file`);
+    if (summary.counts.rejected > 0)
+      throw new Error(
+        `${countOf(summary.counts.rejected, 'row')} ${summary.counts.rejected === 1 ? 'was' : 'were'} rejected by ingest (see its rules); fix the file`,
+      );
     const outcomes = await outcomesOfSource(database.db, EVALUATION_SOURCE);
     return measure(rows, outcomes, batchSize, performance.now() - started);
   } finally {

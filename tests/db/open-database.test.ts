@@ -4,7 +4,7 @@ import { hostname } from 'node:os';
 import { join } from 'node:path';
 import { spawnSync } from 'node:child_process';
 import { sql } from 'kysely';
-import { openDatabase, resolveTarget, DEFAULT_DATA_DIR, INIT_MARKER_NAME } from '../../db/open-database.ts';
+import { openDatabase, resolveTarget, DEFAULT_DATA_DIR, INIT_MARKER_NAME, SMALL_BUFFER_POOL } from '../../db/open-database.ts';
 import { DatabaseLockedError, LOCK_FILE_NAME, acquireDirectoryLock } from '../../db/lock.ts';
 import { DatabaseOpenError, isDatabaseUnavailable } from '../../db/database-errors.ts';
 import { makeTempDir, removeTempDir } from '../support/database.ts';
@@ -150,6 +150,27 @@ describe('openDatabase on a directory', () => {
     } finally {
       await second.close();
     }
+  });
+});
+
+describe('the buffer pool of an embedded start', () => {
+  it('is 16 MB for a smallBufferPool start only; the cluster keeps its own 128 MB for every other start', async () => {
+    const dir = join(tempDir(), 'db');
+    const pool = async (smallBufferPool: boolean): Promise<string> => {
+      const opened = await openDatabase(dir, { smallBufferPool });
+      try {
+        const { rows } = await sql<{ shared_buffers: string }>`show shared_buffers`.execute(opened.db);
+        return rows[0]!.shared_buffers;
+      } finally {
+        await opened.close();
+      }
+    };
+    // 128MB: the value initdb writes into postgresql.conf when the machine allows it (PostgreSQL documentation,
+    // "shared_buffers": "The default is typically 128 megabytes"); 16MB is SMALL_BUFFER_POOL.
+    expect(await pool(false)).toBe('128MB');
+    expect(SMALL_BUFFER_POOL).toBe('16MB');
+    expect(await pool(true)).toBe('16MB');
+    expect(await pool(false)).toBe('128MB'); // a setting of that start, not written into the cluster
   });
 });
 

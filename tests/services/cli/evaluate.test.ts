@@ -160,6 +160,19 @@ describe('cpreg evaluate --through-register', () => {
     }
   }, 120_000);
 
+  it('counts one row as "1 row" (issue 19 item 6: counts in words)', async () => {
+    // One usable row and one with an empty name (a fault made by hand for this test).
+    const file = join(out, 'one-row.csv');
+    writeFileSync(file, 'entity_id,name,country\ne1,Example Holdings GmbH,DE\ne2,,DE\n');
+    const { stdout } = await cpreg([file, '--id', 'entity_id', '--name', 'name', '--country', 'country']);
+    expect(stdout).toContain(`${file}: 1 row used, 1 row with problems (listed above)`);
+    const empty = join(out, 'no-usable-row.csv');
+    writeFileSync(empty, 'entity_id,name,country\ne2,,DE\n');
+    await expect(cpreg([empty, '--id', 'entity_id', '--name', 'name', '--country', 'country'])).rejects.toMatchObject({
+      stderr: expect.stringContaining('no usable rows after filtering (1 row with problems)'),
+    });
+  }, 60_000);
+
   it('refuses what does not apply to the register', async () => {
     await expect(cpreg([SAMPLE, ...BASE, '--through-register', '--link-at', '5'])).rejects.toMatchObject({
       stderr: expect.stringMatching(/--link-at does not apply with --through-register/),
