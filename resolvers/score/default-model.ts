@@ -27,31 +27,31 @@ export const DEFAULT_MATCH_MODEL: MatchModel = {
         0.420708,
         0.0111088,
         0.0310347,
-        0.112463,
-        0.0196582,
-        0.155316,
-        0.032438,
-        0.0205637,
-        0.0226348,
-        0.0334485,
-        0.0376314,
-        0.0428591,
-        0.0601363
+        0.0912128,
+        0.0152986,
+        0.15429,
+        0.0325297,
+        0.0204906,
+        0.0395954,
+        0.040033,
+        0.0400319,
+        0.0435154,
+        0.0601516
       ],
       "u": [
         0.00111073,
         0.00158319,
         0.0000549628,
-        0.000258173,
-        0.000108369,
-        0.00475067,
-        0.00116634,
-        0.00322168,
-        0.00214779,
-        0.00358021,
-        0.0244982,
-        0.233714,
-        0.723806
+        0.000209786,
+        0.0000731623,
+        0.00466394,
+        0.00114498,
+        0.00316371,
+        0.00219879,
+        0.00361537,
+        0.0245431,
+        0.233758,
+        0.723881
       ]
     },
     "legalForm": {
@@ -114,12 +114,12 @@ export const DEFAULT_MATCH_MODEL: MatchModel = {
         "different"
       ],
       "m": [
-        0.953055,
-        0.0469448
+        0.957832,
+        0.0421685
       ],
       "u": [
-        0.202252,
-        0.797748
+        0.20379,
+        0.79621
       ]
     },
     "sharedContact": {
@@ -143,23 +143,23 @@ export const DEFAULT_MATCH_MODEL: MatchModel = {
         "activity"
       ],
       "m": [
-        0.666732,
-        0.0731373,
-        0.260131
+        0.681111,
+        0.0707407,
+        0.248148
       ],
       "u": [
-        0.787026,
-        0.203903,
-        0.00907168
+        0.787119,
+        0.203931,
+        0.00894964
       ]
     }
   },
   "matchShare": 0.026057944242573544,
-  "linkAt": 8.4727,
-  "newAt": 6.4727,
+  "linkAt": 9.5349,
+  "newAt": 7.5349,
   "provenance": {
     "method": "labelled",
     "pairs": 1345564,
-    "note": "labelled candidate pairs, m and u counted per dataset (add-one smoothing) and averaged: LEI dev 421876 pairs (678 true); ROR dev companies 361726 pairs (13660 true); generated (20000 names, seed 7) 561962 pairs (21806 true); linkAt: lowest threshold whose clusters have pairwise precision >= 0.99 in every dataset; newAt: lowest score with >= 0.5 true matches among review pairs in every dataset; rebuild: node bin/run-ts.js scripts/build-model.ts; linkAt per dataset: LEI dev 8.473, ROR dev companies 7.107, generated (20000 names, seed 7) 7.396; newAt per dataset: LEI dev 7.107, ROR dev companies -1.107, generated (20000 names, seed 7) 0.258; newAt at most linkAt - 2"
+    "note": "labelled candidate pairs, m and u counted per dataset (add-one smoothing) and averaged: LEI dev 421876 pairs (678 true); ROR dev companies 361726 pairs (13660 true); generated (20000 names, seed 7) 561962 pairs (21806 true); linkAt: lowest threshold whose clusters have pairwise precision >= 0.99 in every dataset; newAt: lowest score with >= 0.5 true matches among review pairs in every dataset; rebuild: node bin/run-ts.js scripts/build-model.ts; linkAt per dataset: LEI dev 9.535, ROR dev companies 7.373, generated (20000 names, seed 7) 7.373; newAt per dataset: LEI dev 9.535, ROR dev companies -1.109, generated (20000 names, seed 7) -6.649; newAt at most linkAt - 2"
   }
 };
