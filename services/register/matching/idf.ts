@@ -7,9 +7,9 @@
  * - A "name" here is one distinct name per company: the register counts counterparties (not their several
  *   spellings), a batch counts its distinct names. Otherwise one company written five ways would make its own
  *   words common, and its spellings would stop linking to each other (a job of one supplier's spellings).
- * - The register's counts come from its blocking keys (t:<token>, one row per name holding the token), the
- *   counterparties among the first DF_CAP rows, so that a very common word ("holdings") costs one short index scan.
- *   A token at the cap is counted as common at any register size (atLeastCommonWhenCapped).
+ * - The register's counts come from its blocking keys (t:<token>): the counterparties holding the key, kept by
+ *   triggers beside the names holding it (blocking_key_count), so a count is one primary-key lookup. A token whose
+ *   names reach DF_CAP counts DF_CAP, and is counted as common at any register size (atLeastCommonWhenCapped).
  * - The register's N is its highest counterparty id: counterparties are never deleted (merged ones stay as rows),
  *   and reading it is one index probe where a count(*) would scan a million rows.
  * - A job's partitions run at different times, so what the register holds when one runs depends on the others.
@@ -29,10 +29,9 @@ import type { Queryable } from '../../../db/queries/util.ts';
 export const DF_CAP = 1000;
 
 /**
- * Capped document frequency of each distinct token in the register, in counterparties (see the header). The count
- * of names per key that triggers keep in blocking_key_count (migrations/20261205102000_blocking_key_count.ts)
- * answers at once for a token at most one name holds and for a token at the cap; only the tokens between scan
- * their keys (at most DF_CAP index rows) to count the counterparties among them.
+ * Capped document frequency of each distinct token in the register, in counterparties (see the header): read from
+ * blocking_key_count, whose names and counterparties per key triggers keep (migrations/20261205102000_blocking_key_count.ts,
+ * 20261205113000_blocking_key_counterparties.ts). A key at the cap answers its capped names count.
  */
 export async function documentFrequencies(db: Queryable, tokens: Iterable<string>): Promise<Map<string, number>> {
   return (await rarityCounts(db, tokens)).frequencies;
@@ -59,10 +58,7 @@ export async function rarityCounts(db: Queryable, tokens: Iterable<string>): Pro
   const result = await sql<{ token: string | null; df: string | number | null }>`
     SELECT NULL::text AS token, (SELECT max(id) FROM counterparty) AS df
     UNION ALL
-    SELECT t.token,
-      CASE WHEN coalesce(c.names, 0) <= 1 OR c.names >= ${DF_CAP} THEN coalesce(c.names, 0)
-        ELSE (SELECT count(DISTINCT s.counterparty_id) FROM (SELECT b.counterparty_id FROM blocking_key b WHERE b.key = 't:' || t.token LIMIT ${DF_CAP}) s)
-      END AS df
+    SELECT t.token, CASE WHEN c.names >= ${DF_CAP} THEN c.names ELSE coalesce(c.counterparties, 0) END AS df
     FROM unnest(${sql.val(unique)}::text[]) AS t(token)
     LEFT JOIN blocking_key_count c ON c.key = 't:' || t.token`.execute(db);
   let size = 0;
