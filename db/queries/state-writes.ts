@@ -58,13 +58,20 @@ export async function deleteById(trx: Trx, table: string, id: number): Promise<v
 /** One set-based write, to be run alone or with others in one statement (`runWrites`). */
 export type SetWrite = RawBuilder<unknown>;
 
+const LONE_SURROGATE_ESCAPE = /\\ud[89a-f]/;
+
 /**
  * Rows as the JSON text the set-based writes read. A string holding a lone surrogate (half of a character outside
  * the Basic Multilingual Plane, cut by code that counted UTF-16 units) is written with U+FFFD in its place, as a
  * text parameter is when the driver encodes it as UTF-8; JSON.stringify would write it as an escape that the
  * database's JSON parser refuses ("Unicode low surrogate must follow a high surrogate"), failing the whole write.
  */
-function rowsJson(rows: readonly object[]): string {
+export function rowsJson(rows: readonly object[]): string {
+  // A replacer costs a call per value on every flush; JSON.stringify escapes a surrogate only when it is lone
+  // (ECMA-262 QuoteJSONString: lowercase \udXXX), so plain text without such an escape needs no second pass. A
+  // literal backslash-u in a name can match too: it only costs the careful pass, which writes the same text.
+  const plain = JSON.stringify(rows);
+  if (!LONE_SURROGATE_ESCAPE.test(plain)) return plain;
   return JSON.stringify(rows, (_key, value: unknown) => (typeof value === 'string' && !wellFormed(value) ? toWellFormed(value) : value));
 }
 

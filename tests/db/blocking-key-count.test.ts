@@ -1,7 +1,8 @@
 /**
- * blocking_key_count (migrations/20261205102000_blocking_key_count.ts) stays equal to counting blocking_key
- * (capped) through every kind of write: a bulk load, resolves, a merge, an undo, concurrent writers; a key at the
- * cap is never changed again. The reference is the aggregate it replaces: least(count(*), 1000) per key
+ * blocking_key_count (migrations/20261205102000_blocking_key_count.ts, 20261205113000_blocking_key_counterparties.ts)
+ * stays equal to counting blocking_key, names and counterparties per key (capped), through every kind of write: a
+ * bulk load, resolves, a merge, an undo, concurrent writers; a key at the cap is never changed again. The reference
+ * is the aggregate it replaces: least(count(*), 1000) and least(count(DISTINCT counterparty_id), 1000) per key
  * (common practice: a materialised count checked against a recount). Names are invented.
  */
 import { sql, type Kysely } from 'kysely';
@@ -14,13 +15,16 @@ import { documentFrequencies } from '../../services/register/matching/idf.ts';
 
 const WHO = { actor: 'test:key-count' };
 
-/** Keys whose stored count differs from the capped recount (empty when the table is right). */
+/**
+ * Keys whose stored counts differ from the capped recount (empty when the table is right): names always, and
+ * counterparties below the cap (a key at the cap is no longer counted, and rarity reads its names there).
+ */
 async function countDrift(db: Kysely<Database>): Promise<unknown[]> {
   const result = await sql`
-    SELECT coalesce(g.key, c.key) AS key, g.n AS recount, c.names AS stored
-    FROM (SELECT key, least(count(*), 1000)::int AS n FROM blocking_key GROUP BY key) g
+    SELECT coalesce(g.key, c.key) AS key, g.n AS recount, c.names AS stored, g.cps AS recount_counterparties, c.counterparties AS stored_counterparties
+    FROM (SELECT key, least(count(*), 1000)::int AS n, least(count(DISTINCT counterparty_id), 1000)::int AS cps FROM blocking_key GROUP BY key) g
     FULL JOIN blocking_key_count c ON c.key = g.key
-    WHERE coalesce(g.n, 0) <> coalesce(c.names, 0)`.execute(db);
+    WHERE coalesce(g.n, 0) <> coalesce(c.names, 0) OR (coalesce(c.names, 0) < 1000 AND coalesce(g.cps, 0) <> coalesce(c.counterparties, 0))`.execute(db);
   return result.rows;
 }
 
@@ -56,6 +60,14 @@ describeBackends('blocking_key_count', (backend) => {
         const df = await documentFrequencies(opened.db, ['quenby', 'tarnwick', 'nowhere']);
         expect(df.get('quenby')).toBe(2); // two loaded names hold it
         expect(df.get('nowhere')).toBe(0);
+        // Merged, the two names belong to one counterparty: rarity counts counterparties (one), not names (two).
+        const quenby = await sql<{ id: string }>`SELECT id FROM counterparty WHERE canonical_name LIKE 'Quenby%' ORDER BY id`.execute(opened.db);
+        const merged = await mergeCounterparties(ctx, { ids: quenby.rows.map((r) => Number(r.id)) }, WHO);
+        expect(await countDrift(opened.db)).toEqual([]);
+        expect((await documentFrequencies(opened.db, ['quenby'])).get('quenby')).toBe(1);
+        await undoEvent(ctx, merged.eventId!, WHO);
+        expect(await countDrift(opened.db)).toEqual([]);
+        expect((await documentFrequencies(opened.db, ['quenby'])).get('quenby')).toBe(2);
       } finally {
         await opened.close();
       }

@@ -11,7 +11,7 @@ import { candidateDetailsBatch, type CandidateDetail } from '../../../db/queries
 import { listOwnEntities, type OwnEntityView } from '../../../db/queries/own-entities.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
 import { analyse } from './analysis.ts';
-import { documentFrequencies, NO_BASIS, registerSize, type RarityBasis, type RarityReads } from './idf.ts';
+import { NO_BASIS, rarityCounts, type RarityBasis, type RarityReads } from './idf.ts';
 import { keysOfAnalysis } from './keys.ts';
 
 export interface ScoredMemoKey {
@@ -46,17 +46,24 @@ export class BatchReads implements RarityReads {
     return this.own;
   }
 
-  /** The register's size in counterparties (matching/idf.ts), read once per batch. */
+  /** The register's size in counterparties (matching/idf.ts), read once per batch (with the first token counts). */
   registerSize(): Promise<number> {
-    this.size ??= registerSize(this.db);
+    this.size ??= rarityCounts(this.db, []).then((counts) => counts.registerSize);
     return this.size;
   }
 
-  /** Document frequencies of `tokens`, reading only those not read before in this batch. */
+  /**
+   * Document frequencies of `tokens`, reading only those not read before in this batch; the first read brings the
+   * register's size in the same statement.
+   */
   async frequencies(tokens: Iterable<string>): Promise<Map<string, number>> {
     const wanted = [...new Set(tokens)];
     const missing = wanted.filter((t) => !this.df.has(t));
-    if (missing.length > 0) for (const [token, df] of await documentFrequencies(this.db, missing)) this.df.set(token, df);
+    if (missing.length > 0 || this.size === undefined) {
+      const read = rarityCounts(this.db, missing);
+      this.size ??= read.then((counts) => counts.registerSize);
+      for (const [token, df] of (await read).frequencies) this.df.set(token, df);
+    }
     return new Map(wanted.map((t) => [t, this.df.get(t)!]));
   }
 

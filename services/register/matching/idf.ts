@@ -7,9 +7,9 @@
  * - A "name" here is one distinct name per company: the register counts counterparties (not their several
  *   spellings), a batch counts its distinct names. Otherwise one company written five ways would make its own
  *   words common, and its spellings would stop linking to each other (a job of one supplier's spellings).
- * - The register's counts come from its blocking keys (t:<token>, one row per name holding the token), the
- *   counterparties among the first DF_CAP rows, so that a very common word ("holdings") costs one short index scan.
- *   A token at the cap is counted as common at any register size (atLeastCommonWhenCapped).
+ * - The register's counts come from its blocking keys (t:<token>): the counterparties holding the key, kept by
+ *   triggers beside the names holding it (blocking_key_count), so a count is one primary-key lookup. A token whose
+ *   names reach DF_CAP counts DF_CAP, and is counted as common at any register size (atLeastCommonWhenCapped).
  * - The register's N is its highest counterparty id: counterparties are never deleted (merged ones stay as rows),
  *   and reading it is one index probe where a count(*) would scan a million rows.
  * - A job's partitions run at different times, so what the register holds when one runs depends on the others.
@@ -29,31 +29,44 @@ import type { Queryable } from '../../../db/queries/util.ts';
 export const DF_CAP = 1000;
 
 /**
- * Capped document frequency of each distinct token in the register, in counterparties (see the header). The count
- * of names per key that triggers keep in blocking_key_count (migrations/20261205102000_blocking_key_count.ts)
- * answers at once for a token at most one name holds and for a token at the cap; only the tokens between scan
- * their keys (at most DF_CAP index rows) to count the counterparties among them.
+ * Capped document frequency of each distinct token in the register, in counterparties (see the header): read from
+ * blocking_key_count, whose names and counterparties per key triggers keep (migrations/20261205102000_blocking_key_count.ts,
+ * 20261205113000_blocking_key_counterparties.ts). A key at the cap answers its capped names count.
  */
 export async function documentFrequencies(db: Queryable, tokens: Iterable<string>): Promise<Map<string, number>> {
-  const unique = [...new Set(tokens)];
-  const frequencies = new Map<string, number>();
-  if (unique.length > 0) {
-    const result = await sql<{ token: string; df: string | number | null }>`
-      SELECT t.token,
-        CASE WHEN coalesce(c.names, 0) <= 1 OR c.names >= ${DF_CAP} THEN coalesce(c.names, 0)
-          ELSE (SELECT count(DISTINCT s.counterparty_id) FROM (SELECT b.counterparty_id FROM blocking_key b WHERE b.key = 't:' || t.token LIMIT ${DF_CAP}) s)
-        END AS df
-      FROM unnest(${sql.val(unique)}::text[]) AS t(token)
-      LEFT JOIN blocking_key_count c ON c.key = 't:' || t.token`.execute(db);
-    for (const row of result.rows) frequencies.set(row.token, Math.min(DF_CAP, Number(row.df ?? 0)));
-  }
-  return frequencies;
+  return (await rarityCounts(db, tokens)).frequencies;
 }
 
 /** How many counterparties the register holds (its highest counterparty id: see the header). */
 export async function registerSize(db: Queryable): Promise<number> {
-  const result = await sql<{ n: string | number | null }>`SELECT max(id) AS n FROM counterparty`.execute(db);
-  return Number(result.rows[0]?.n ?? 0);
+  return (await rarityCounts(db, [])).registerSize;
+}
+
+/** What one rarity read answers: the counts of the tokens asked for, and the register's size. */
+export interface RarityCounts {
+  frequencies: Map<string, number>;
+  registerSize: number;
+}
+
+/**
+ * The document frequencies of `tokens` and the register's size in ONE statement (a single resolve's round trips
+ * set its latency: issue 18). The size travels as the row whose token is NULL.
+ */
+export async function rarityCounts(db: Queryable, tokens: Iterable<string>): Promise<RarityCounts> {
+  const unique = [...new Set(tokens)];
+  const frequencies = new Map<string, number>();
+  const result = await sql<{ token: string | null; df: string | number | null }>`
+    SELECT NULL::text AS token, (SELECT max(id) FROM counterparty) AS df
+    UNION ALL
+    SELECT t.token, CASE WHEN c.names >= ${DF_CAP} THEN c.names ELSE coalesce(c.counterparties, 0) END AS df
+    FROM unnest(${sql.val(unique)}::text[]) AS t(token)
+    LEFT JOIN blocking_key_count c ON c.key = 't:' || t.token`.execute(db);
+  let size = 0;
+  for (const row of result.rows) {
+    if (row.token === null) size = Number(row.df ?? 0);
+    else frequencies.set(row.token, Math.min(DF_CAP, Number(row.df ?? 0)));
+  }
+  return { frequencies, registerSize: size };
 }
 
 /** Token counts frozen by a job's plan: N and the counts of the tokens the job holds at least twice. */
@@ -122,9 +135,8 @@ export interface RarityReads {
 
 export async function idfFor(db: Queryable, tokens: Iterable<string>, reads?: RarityReads): Promise<IdfTable> {
   if (reads) return idfFromCounts(await reads.frequencies(tokens), await reads.registerSize(), reads.basis);
-  const list = [...tokens];
-  const [df, names] = await Promise.all([documentFrequencies(db, list), registerSize(db)]);
-  return idfFromCounts(df, names);
+  const counts = await rarityCounts(db, tokens);
+  return idfFromCounts(counts.frequencies, counts.registerSize);
 }
 
 /**

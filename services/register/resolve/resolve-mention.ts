@@ -12,6 +12,8 @@ import { mentionsByKeys } from '../../../db/queries/state-writes.ts';
 import type { ActorInput, RegisterContext } from '../context.ts';
 import { currentModel } from '../matching/model.ts';
 import { keysOfAnalysis } from '../matching/keys.ts';
+import { BatchReads } from '../matching/batch-reads.ts';
+import { MAX_CANDIDATES } from '../matching/candidates.ts';
 import type { ChangeSet } from '../state/change-set.ts';
 import { canonicalRow } from '../state/tables.ts';
 import { write } from '../transaction.ts';
@@ -99,11 +101,17 @@ export async function resolveWithin(
   if (found && options.force) prepared = { ...prepared, contentHash: found.content_hash as string };
   const contract = options.party ? null : await contractContextFor(cs, prepared.input.contract);
   const { model, version } = await currentModel(cs.trx);
+  // A batch of one: the register's reads shared by the own-entity check and the candidates (each read once), with
+  // no batch basis, so the token weights are the register's alone as before. Prefetched when the mention goes to
+  // the register as it stands (a contract's defined term may instead settle it or change what is matched).
+  const reads = new BatchReads(cs.trx);
+  if (prepared.analysis.partyStatus === 'party' && (options.party !== undefined || contract === null)) await reads.prefetch([prepared], MAX_CANDIDATES);
   const outcome = await decide(cs.trx, prepared, model, {
     mentionId: found ? (found.id as number) : null,
     contract,
     party: options.party ?? null,
     contractAwaited: prepared.input.contract !== undefined && contract === null,
+    reads,
   });
   if (options.party?.aliases && options.party.aliases.length > 0) outcome.declaredNames = options.party.aliases;
   outcome.evidence.modelVersion = version;

@@ -1,0 +1,51 @@
+/**
+ * A single resolve reads what its decision needs once: our own entities, the candidates, and the token counts with
+ * the register's size in one statement (services/register/matching/idf.ts, batch-reads.ts). Counted here are the
+ * statements a resolve sends through Kysely (BEGIN and COMMIT are driver calls and not counted), and which of them
+ * read token rarity. The figures are this register's own, counted when the reads were folded (not from a source):
+ * the point is that each rarity read happens once. Names are invented.
+ */
+import type { KyselyPlugin, PluginTransformQueryArgs, PluginTransformResultArgs, QueryResult, RootOperationNode, UnknownRow } from 'kysely';
+import { expect, it } from 'vitest';
+import { describeBackends, withTestDatabase } from '../../support/index.ts';
+import { addOwnEntity, createRegisterContext, resolveMention } from '../../../services/register/index.ts';
+import { WHO } from './support.ts';
+
+/** Records the SQL text of raw statements and the kind of built ones, in order. */
+class StatementLog implements KyselyPlugin {
+  readonly statements: string[] = [];
+
+  transformQuery(args: PluginTransformQueryArgs): RootOperationNode {
+    const node = args.node;
+    this.statements.push(node.kind === 'RawNode' ? node.sqlFragments.join('?') : node.kind);
+    return node;
+  }
+
+  transformResult(args: PluginTransformResultArgs): Promise<QueryResult<UnknownRow>> {
+    return Promise.resolve(args.result);
+  }
+}
+
+const isRarityRead = (statement: string) => statement.includes('AS t(token)');
+const isSizeRead = (statement: string) => /max\(id\)/i.test(statement);
+
+describeBackends('single resolve round trips', (backend) => {
+  it('reads token counts and the register size once, in one statement, with an own entity to check', async () => {
+    await withTestDatabase(backend, async ({ db }) => {
+      const setup = createRegisterContext(db);
+      await addOwnEntity(setup, { name: 'Harlowe Group Holdings plc', country: 'GB' }, WHO);
+      for (const [i, text] of ['Brackwater Pumps Ltd', 'Brackwater Valves Ltd', 'Ostlund Mill AB'].entries()) {
+        await resolveMention(setup, { source: 'seed', externalId: String(i), text }, WHO);
+      }
+      const log = new StatementLog();
+      const ctx = createRegisterContext(db.withPlugin(log));
+      const result = await resolveMention(ctx, { source: 'rt', externalId: '1', text: 'Brackwater Pumps Limited' }, WHO);
+      expect(result.status).toBe('linked');
+      const rarity = log.statements.filter(isRarityRead);
+      expect({ rarity: rarity.length, size: log.statements.filter(isSizeRead).length }).toEqual({ rarity: 1, size: 1 });
+      expect(isSizeRead(rarity[0]!)).toBe(true);
+      // 14 statements when each rarity read was two statements and ran once per check (own entity, candidates).
+      expect(log.statements.length).toBeLessThanOrEqual(11);
+    });
+  });
+});
