@@ -1,5 +1,20 @@
 import { describe, expect, it } from 'vitest';
-import { clusterRulesOf, decidePair, linkHeldBackBy, ruledScore, worthReview, type ComparisonLevels } from '../../../resolvers/score/index.ts';
+import {
+  clusterRulesOf,
+  decidePair,
+  decidePairAt,
+  FEATURE_LEVELS,
+  FEATURE_NAMES,
+  indexedRules,
+  linkHeldBackBy,
+  ruledScore,
+  worthReview,
+  type ComparisonLevels,
+  type FeatureName,
+} from '../../../resolvers/score/index.ts';
+
+const levelIndexOf = (feature: FeatureName, level: string | null): number =>
+  level === null ? -1 : (FEATURE_LEVELS[feature] as readonly string[]).indexOf(level);
 
 const levels = (over: Partial<ComparisonLevels>): ComparisonLevels => ({
   name: 'exact',
@@ -50,6 +65,24 @@ describe('decisionRules (the one decision logic of the register and the evaluati
     const partial = levels({ name: 'extra_words' });
     expect(decidePair(3, partial, model)).toBe('new');
     expect(decidePair(7, partial, model)).toBe('review');
+  });
+  it('close names whose qualifiers differ on both sides are reviewed only above newAt, in both forms of the rules', () => {
+    // "Ardent Bank (Lao) Ltd" / "Ardent Bank (Samoa) Ltd": equal cores, two places (invented names).
+    const siblings = levels({ name: 'exact', qualifier: 'different', legalForm: 'same_family', jurisdiction: 'same' });
+    expect(decidePair(3, siblings, model)).toBe('new');
+    expect(decidePair(7, siblings, model)).toBe('review');
+    const sameQualifier = { ...siblings, qualifier: 'same' as const };
+    expect(decidePair(3, sameQualifier, model)).toBe('review');
+    // The indexed form the batches use decides the same.
+    const rules = indexedRules();
+    for (const [score, l] of [
+      [3, siblings],
+      [7, siblings],
+      [3, sameQualifier],
+    ] as const) {
+      const row = Int8Array.from(FEATURE_NAMES.map((f) => levelIndexOf(f, l[f])));
+      expect(decidePairAt(score, row, 0, rules, model)).toBe(decidePair(score, l, model));
+    }
   });
   it('identifiers decide', () => {
     expect(ruledScore(-50, 'decisive_identifier', levels({ name: 'none' }), model)).toBe(Infinity);
