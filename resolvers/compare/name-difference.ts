@@ -82,8 +82,9 @@ const CONTRACTION_MAX_LENGTH = 5;
 /**
  * One edit is a typo in words of eight letters or more, or of four or more beside a rare shared word. At seven, the
  * place names of one banking group one letter apart join ("Raiffeisenbank Purbach" / "… Purbech", a unit test); at
- * five, on the ROR test split, one-word acronyms and place names did ("CESAB" / "CESAM", "Hunan" / "Henan"). Generated
- * names lose 0.45 point of F1 from seven to eight letters; LEI dev links are the same at five, seven and eight.
+ * five, on the ROR test split, one-word acronyms and place names did ("KELAB" / "KELAM", two provinces one letter
+ * apart). Generated names lose 0.45 point of F1 from seven to eight letters; LEI dev links are the same at five, seven
+ * and eight.
  */
 const ONE_EDIT_MIN_LENGTH = 8;
 const ONE_EDIT_MIN_LENGTH_BESIDE_RARE = 4;
@@ -158,7 +159,8 @@ function align(a: readonly string[], b: readonly string[], isRare: (token: strin
   const besideRare = restA.length > 0 && a.some((t) => !restA.includes(t) && isRare(t));
   const minLength = besideRare ? TYPO_MIN_LENGTH_BESIDE_RARE : TYPO_MIN_LENGTH;
   // One edit reads as a typo only beside a word the names share: a one-word name one letter from another is as often
-  // another name ("CESAB" / "CESAM"); and in a short word only beside a rare shared word ("Hunan" / "Henan").
+  // another name ("KELAB" / "KELAM"); and in a short word only beside a rare shared word (two place names one letter
+  // apart).
   const oneEditMin = shared === 0 ? Infinity : besideRare ? ONE_EDIT_MIN_LENGTH_BESIDE_RARE : ONE_EDIT_MIN_LENGTH;
   for (const token of restA) {
     const k = firstFree(b, taken, (other) => isTypo(token, other, minLength, oneEditMin));
@@ -183,8 +185,8 @@ function align(a: readonly string[], b: readonly string[], isRare: (token: strin
 
 /**
  * Words run together and a typo beside them ("ZanludicoInstruments" / "Zanludico Instrumentz"): the words the two sides
- * do not share are one edit apart once the spaces are gone, and long (a short run is as often another name: "Citibank"
- * / "Cit Bank"); no digits, where one edit is another number.
+ * do not share are one edit apart once the spaces are gone, and long (a short run is as often another name: "Corbibank"
+ * / "Corb Bank"); no digits, where one edit is another number.
  */
 function isJoinedTypo(a: readonly string[], b: readonly string[]): boolean {
   const restA = a.filter((t) => !b.includes(t)).join('');
@@ -207,7 +209,8 @@ function isTypo(x: string, y: string, minLength: number, oneEditMin: number): bo
   if (!isSpacedScript(x) || !isSpacedScript(y)) return false;
   if (!typoNumbersAgree(x, y)) return false;
   // One edit ("Halselan" / "Halseln", "Power" / "ower"): two edits are as often another name ("Tiberio" /
-  // "Tiberius", "Purbach" / "Peuerbach"). Not in a word with digits, where one digit is another number ("U1165").
+  // "Tiberius", "Purbach" / "Peuerbach"). Not in a word with digits, where one digit is another number ("UX4150" /
+  // "UX4100").
   if (x.length >= oneEditMin && y.length >= oneEditMin && !/\d/.test(x + y) && withinOneEdit(x, y)) return true;
   if (x.length < minLength || y.length < minLength) return false;
   // One typo (a letter added, dropped, changed or swapped) changes the length by one at most.

@@ -88,7 +88,7 @@ export function clusterRulesOf(model: Pick<MatchModel, 'linkAt' | 'newAt'>): { l
  * person's time down to CONFLICT_BELOW even when context pulls its score under newAt ("Kestrel Tooling GmbH" /
  * "Kestrel Tooling AG": one company converted, or two; a person can tell). Other pairs are reviewed above newAt only,
  * and so are close names whose qualifiers differ on both sides ("Ardent Bank (Lao)" / "Ardent Bank (Samoa)",
- * "Nora Fund Two (EUR)" / "… (SEK)"): among the candidate pairs of `cpreg evaluate` on the LEI dev names, 187 such
+ * "Merrow Fund Two (EUR)" / "… (SEK)"): among the candidate pairs of `cpreg evaluate` on the LEI dev names, 187 such
  * pairs are two companies and 1 is one, so a person would be asked about siblings. (On the ROR dev split 18 of 44
  * are one organisation, spelling variants of the qualifier such as "(Arizona)" / "(AZ)"; they are reviewed when
  * their score is above newAt.)
