@@ -125,9 +125,8 @@ export function compareNameTokens(
 
 function differenceKind(a: readonly string[], b: readonly string[], aligned: Alignment): NameDifferenceKind {
   if (a.length === 0 || b.length === 0) return 'different';
-  const joinedA = a.join('');
-  const joinedB = b.join('');
-  if (joinedA === joinedB) return 'near_equal';
+  // Joined only when the letter counts agree: this runs for every candidate pair.
+  if (letterCount(a) === letterCount(b) && a.join('') === b.join('')) return 'near_equal';
   if (a.length !== b.length && isJoinedTypo(a, b)) return 'typo';
   if (aligned.shared === 0) return 'different';
   if (aligned.restA.length === 0 && aligned.restB.length === 0) {
@@ -328,6 +327,12 @@ function sameQualifierSides(qa: readonly string[], qb: readonly string[]): boole
 
 function onlyOnOneSide(qa: readonly string[], qb: readonly string[]): string[] {
   return [...qa.filter((q) => !qb.includes(q)), ...qb.filter((q) => !qa.includes(q))];
+}
+
+function letterCount(tokens: readonly string[]): number {
+  let n = 0;
+  for (const t of tokens) n += t.length;
+  return n;
 }
 
 function sameList(a: readonly string[], b: readonly string[]): boolean {
