@@ -1,5 +1,6 @@
 /** Review items and cannot-links. */
 import { sql } from 'kysely';
+import { composedEvidence } from './explanations.ts';
 import type { Queryable } from './util.ts';
 import { id, idOrNull, iso } from './util.ts';
 
@@ -27,7 +28,7 @@ export function toReviewView(r: Record<string, unknown>): ReviewItemView {
     leftCounterpartyId: idOrNull(r.left_counterparty_id),
     rightCounterpartyId: id(r.right_counterparty_id),
     score: r.score === null || r.score === undefined ? null : Number(r.score),
-    evidence: (r.evidence as Record<string, unknown>) ?? {},
+    evidence: (r.full_evidence as Record<string, unknown>) ?? {},
     status: r.status as string,
     decision: (r.decision as string | null) ?? null,
     decidedBy: (r.decided_by as string | null) ?? null,
@@ -59,6 +60,7 @@ export async function listReviewItemsWhere(
   let query = db
     .selectFrom('review_item')
     .selectAll()
+    .select(composedEvidence('review_item').as('full_evidence'))
     .where('status', '=', filter.status ?? 'open')
     .where('id', '>', page.afterId ?? 0);
   if (filter.kind !== undefined) query = query.where('kind', '=', filter.kind);
@@ -81,7 +83,12 @@ export async function listOpenReviewItems(db: Queryable, page: { afterId?: numbe
 }
 
 export async function getReviewItem(db: Queryable, reviewItemId: number): Promise<ReviewItemView | undefined> {
-  const row = await db.selectFrom('review_item').selectAll().where('id', '=', reviewItemId).executeTakeFirst();
+  const row = await db
+    .selectFrom('review_item')
+    .selectAll()
+    .select(composedEvidence('review_item').as('full_evidence'))
+    .where('id', '=', reviewItemId)
+    .executeTakeFirst();
   return row ? toReviewView(row) : undefined;
 }
 

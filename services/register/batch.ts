@@ -117,7 +117,7 @@ export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[],
   for (const { index, prepared, key } of checked) {
     const found = stored.get(key);
     if (found && found.content_hash === prepared.contentHash) {
-      results[index] = await resultOf(ctx.db, canonicalRow('mention', found), { alreadyIngested: true, eventId: null });
+      results[index] = await resultOf(ctx.db, canonicalRow('mention', found), { alreadyIngested: true, eventId: null, explanation: found.explanation_body });
       continue;
     }
     const ref = prepared.input.contract;
@@ -197,6 +197,7 @@ export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[],
         counterparty: outcomes.filter((o) => o.status === 'new').length,
         mention: members.filter((m) => !found.has(m.key)).length,
         review_item: outcomes.filter((o) => o.status === 'review').length,
+        explanation: members.length,
       });
       cs.startBuffering();
       const contracts = new Map<string, Promise<ContractContext | null>>();

@@ -15,6 +15,7 @@
  *
  * Every "same" or "different" decision is also kept as a labelled pair (labelled_pair) for the scorer to learn from.
  */
+import { evidenceOf } from './evidence.ts';
 import { declaredNamesOfPartyMention } from '../../db/queries/contracts.ts';
 import type { ActorInput, RegisterContext } from './context.ts';
 import { RegisterError, invalid, notFound } from './errors.ts';
@@ -110,7 +111,7 @@ function confirmedNameKind(mention: Row): NameKind {
 }
 
 async function linkMentionByPerson(cs: ChangeSet, mention: Row, counterpartyId: number, actor: string, at: Date, status: 'linked' | 'new'): Promise<void> {
-  const recordedName = { name: mention.text as string, kind: confirmedNameKind(mention) };
+  const recordedName = { name: mention.text as string, kind: confirmedNameKind({ ...mention, evidence: await evidenceOf(cs, mention) }) };
   await addNameSighting(cs, counterpartyId, { ...recordedName, source: mention.source as string, mentionId: mention.id as number }, at);
   // A contract party confirmed by a person brings the names its contract declares for it ("formerly X"), as a
   // party linked automatically does (resolve/apply.ts), kept in the evidence so that moving it takes them away.
@@ -249,7 +250,7 @@ export async function decideReview(ctx: RegisterContext, reviewItemId: number, i
         left_text: leftText,
         right_text: rightCp.canonical_name as string,
         label: input.decision,
-        features: (item.evidence as Record<string, unknown>) ?? {},
+        features: await evidenceOf(cs, item),
         decided_by: who.actor,
         created_at: at.toISOString(),
       });

@@ -1,7 +1,8 @@
 /**
  * Replay: rebuilds the register's state tables in an empty (migrated) database from the history of another,
  * applying every event's ops in event order. Undo events carry their inverse ops, so they replay like any other.
- * Derived tables (blocking keys) are rebuilt on the way; identity sequences are moved past the replayed ids.
+ * Derived tables (blocking keys) are rebuilt on the way; identity sequences are moved past the replayed ids. The
+ * explanations that row images refer to (db/queries/explanations.ts) are copied first, ids kept.
  */
 import { sql, type Kysely } from 'kysely';
 import type { Database } from '../../../db/types.ts';
@@ -9,6 +10,7 @@ import type { DerivedContext } from '../state/derived.ts';
 import { applyForward } from '../state/apply.ts';
 import { STATE_TABLES } from '../state/tables.ts';
 import type { EventPayload } from './commit.ts';
+import { copyExplanations, explanationPage } from '../../../db/queries/explanations.ts';
 
 export interface ReplayOptions {
   /** Also copy the history events themselves (the target becomes a full copy). Default false. */
@@ -29,6 +31,14 @@ export async function replayHistory(
   let after = 0;
   let events = 0;
   await target.transaction().execute(async (trx) => {
+    // Explanations belong to the history (never changed): the row images of mentions and review items refer to them.
+    for (let last = 0; ;) {
+      const explanations = await explanationPage(source, last, pageSize);
+      if (explanations.length === 0) break;
+      await copyExplanations(trx, explanations);
+      last = explanations[explanations.length - 1]!.id;
+    }
+    await resetSequence(trx, 'explanation');
     for (;;) {
       let query = source.selectFrom('history_event').selectAll().where('id', '>', after).orderBy('id').limit(pageSize);
       if (options.untilEventId !== undefined) query = query.where('id', '<=', options.untilEventId);

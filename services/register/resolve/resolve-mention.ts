@@ -94,7 +94,8 @@ export async function resolveWithin(
   const found = stored ? canonicalRow('mention', stored) : undefined;
   // A changed contract that keeps a party's name but declares other former or trade names for it resolves it again.
   if (found && !options.force && declaredNamesChanged(found, options.party)) options = { ...options, force: true };
-  if (found && found.content_hash === prepared.contentHash && !options.force) return resultOf(cs.trx, found, { alreadyIngested: true, eventId: null });
+  if (found && found.content_hash === prepared.contentHash && !options.force)
+    return resultOf(cs.trx, found, { alreadyIngested: true, eventId: null, explanation: stored!.explanation_body });
   await lockNameNeighbourhood(cs, prepared);
   const textChanged = found !== undefined && found.content_hash !== prepared.contentHash && !options.force;
   // A forced re-resolution keeps the stored content hash: the source's own input is what idempotency compares.
@@ -125,6 +126,7 @@ export async function resolveWithin(
     counterparty: outcome.status === 'new' ? 1 : 0,
     mention: found ? 0 : 1,
     review_item: outcome.status === 'review' || askable ? 1 : 0,
+    explanation: 1,
     counterparty_name: linking ? 1 + (outcome.declaredNames?.length ?? 0) + prepared.analysis.aliases.length : 0,
   });
   // Not the event's id: it is drawn at the flush, after every lock, so that the events of two transactions that

@@ -2,6 +2,8 @@
 import type { ResolutionStatus } from '../../../resolvers/vocabulary.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
 import type { Row } from '../state/tables.ts';
+import { explanationBodies } from '../../../db/queries/explanations.ts';
+import { composeEvidence } from '../evidence.ts';
 
 export interface ResolveResult {
   mentionId: number;
@@ -22,12 +24,12 @@ export interface ResolveResult {
 
 /**
  * The result of a stored mention. A write passes what it knows (the review item it opened, the canonical name it
- * holds): nothing is read then; a mention already stored reads them.
+ * holds, the body of the mention's explanation): nothing is read then; a mention already stored reads them.
  */
 export async function resultOf(
   db: Queryable,
   mention: Row,
-  extra: { alreadyIngested: boolean; eventId: number | null; reviewItemId?: number | null; canonicalName?: string },
+  extra: { alreadyIngested: boolean; eventId: number | null; reviewItemId?: number | null; canonicalName?: string; explanation?: Row | null },
 ): Promise<ResolveResult> {
   const cpId = (mention.counterparty_id as number | null) ?? null;
   const cp =
@@ -47,7 +49,10 @@ export async function resultOf(
       .executeTakeFirst();
     reviewItemId = item ? Number(item.id) : null;
   }
-  const evidence = { ...(mention.evidence as Record<string, unknown>) };
+  const explanationId = (mention.explanation_id as number | null | undefined) ?? null;
+  const body =
+    extra.explanation !== undefined || explanationId === null ? extra.explanation : (await explanationBodies(db, [explanationId])).get(explanationId);
+  const evidence = composeEvidence(body, mention.evidence);
   delete evidence.recordedName;
   delete evidence.recordedAliases;
   return {
