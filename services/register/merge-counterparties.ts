@@ -4,7 +4,7 @@
  */
 import type { ActorInput, RegisterContext } from './context.ts';
 import { RegisterError, invalid, notFound } from './errors.ts';
-import { commitEvent } from './history/commit.ts';
+import { commitRequested } from './history/commit.ts';
 import { lockActive, survivorFor, touchCounterparty } from './records.ts';
 import type { ChangeSet } from './state/change-set.ts';
 import { write } from './transaction.ts';
@@ -81,14 +81,7 @@ export async function mergeCounterparties(ctx: RegisterContext, input: MergeInpu
     const losers = ids.filter((id) => id !== survivorId);
     for (const loser of losers) await mergeInto(cs, survivorId, loser, at);
     const after = await touchCounterparty(cs, survivorId, at);
-    const eventId = await commitEvent(cs, {
-      type: 'merged',
-      actor: who.actor,
-      at,
-      reason: input.reason ?? who.reason,
-      requestId: who.requestId,
-      details: { survivorId, mergedIds: losers },
-    });
+    const eventId = await commitRequested(cs, 'merged', who, at, { survivorId, mergedIds: losers }, input.reason ?? who.reason);
     return { eventId, survivorId, mergedIds: losers, version: after.version as number };
   });
 }

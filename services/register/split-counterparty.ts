@@ -4,7 +4,7 @@
  */
 import type { ActorInput, RegisterContext } from './context.ts';
 import { RegisterError, invalid, notFound } from './errors.ts';
-import { commitEvent } from './history/commit.ts';
+import { commitRequested } from './history/commit.ts';
 import { addNameSighting, createCounterpartyRow, lockActive, removeNameSighting, survivorFor, touchCounterparty } from './records.ts';
 import type { ChangeSet } from './state/change-set.ts';
 import { write } from './transaction.ts';
@@ -87,14 +87,7 @@ export async function splitCounterparty(ctx: RegisterContext, counterpartyId: nu
     }
     await touchCounterparty(cs, sourceId, at);
     await touchCounterparty(cs, targetId, at);
-    const eventId = await commitEvent(cs, {
-      type: 'split',
-      actor: who.actor,
-      at,
-      reason: input.reason ?? who.reason,
-      requestId: who.requestId,
-      details: { sourceId, targetId, created, mentionIds },
-    });
+    const eventId = await commitRequested(cs, 'split', who, at, { sourceId, targetId, created, mentionIds }, input.reason ?? who.reason);
     return { eventId, sourceId, targetId, created, movedMentionIds: mentionIds };
   });
 }
