@@ -5,7 +5,7 @@
  * Idempotent: the same (source, externalId) with the same content answers the stored result and changes nothing;
  * with a different content the mention is updated, resolved again and the change recorded (`mention_changed`).
  */
-import { sql } from 'kysely';
+import { contractByRef, lockNeighbourhoodKeys, partyMentionsByPosition } from '../../../db/queries/resolve-reads.ts';
 import type { ParsedContract } from '../../../resolvers/terms/index.ts';
 import type { MentionInput } from '../../../resolvers/vocabulary.ts';
 import { mentionsByKeys } from '../../../db/queries/state-writes.ts';
@@ -39,19 +39,12 @@ export async function lockNameNeighbourhoods(cs: ChangeSet, many: PreparedMentio
     keys.push(`core:${prepared.analysis.core}`);
     for (const identifier of prepared.identifiers) keys.push(`id:${identifier.scheme}:${identifier.value}`);
   }
-  await sql`SELECT pg_advisory_xact_lock(h) FROM (SELECT DISTINCT hashtextextended(k, 0) AS h FROM unnest(${sql.val(keys)}::text[]) AS t(k) ORDER BY 1) s`.execute(
-    cs.trx,
-  );
+  await lockNeighbourhoodKeys(cs.trx, keys);
 }
 
 export async function contractContextFor(cs: ChangeSet, ref: { source: string; externalId: string } | undefined): Promise<ContractContext | null> {
   if (!ref) return null;
-  const contract = await cs.trx
-    .selectFrom('contract')
-    .select(['id', 'parsed', 'status'])
-    .where('source', '=', ref.source)
-    .where('external_id', '=', ref.externalId)
-    .executeTakeFirst();
+  const contract = await contractByRef(cs.trx, ref.source, ref.externalId);
   if (!contract || contract.status !== 'active') return null;
   const parsed = contract.parsed as unknown as ParsedContract;
   const context: ContractContext = { contractId: Number(contract.id), parsed, partyMentions: await partyMentionsOf(cs, Number(contract.id)) };
@@ -62,8 +55,7 @@ export async function contractContextFor(cs: ChangeSet, ref: { source: string; e
 }
 
 async function partyMentionsOf(cs: ChangeSet, contractId: number): Promise<Map<number, number>> {
-  const parties = await cs.trx.selectFrom('contract_party').select(['position', 'mention_id']).where('contract_id', '=', contractId).execute();
-  return new Map(parties.map((p) => [p.position, Number(p.mention_id)]));
+  return partyMentionsByPosition(cs.trx, contractId);
 }
 
 export interface ResolveWithinOptions {

@@ -4,6 +4,8 @@ import type { Queryable } from '../../../db/queries/util.ts';
 import type { Row } from '../state/tables.ts';
 import { explanationBodies } from '../../../db/queries/explanations.ts';
 import { composeEvidence } from '../evidence.ts';
+import { canonicalNameOf } from '../../../db/queries/counterparties.ts';
+import { newestOpenItemOfMention } from '../../../db/queries/resolve-reads.ts';
 
 export interface ResolveResult {
   mentionId: number;
@@ -37,17 +39,10 @@ export async function resultOf(
       ? undefined
       : extra.canonicalName !== undefined
         ? { canonical_name: extra.canonicalName }
-        : await db.selectFrom('counterparty').select('canonical_name').where('id', '=', cpId).executeTakeFirst();
+        : { canonical_name: await canonicalNameOf(db, cpId) };
   let reviewItemId = extra.reviewItemId ?? null;
   if (extra.reviewItemId === undefined && mention.status === 'review') {
-    const item = await db
-      .selectFrom('review_item')
-      .select('id')
-      .where('mention_id', '=', mention.id as number)
-      .where('status', '=', 'open')
-      .orderBy('id', 'desc')
-      .executeTakeFirst();
-    reviewItemId = item ? Number(item.id) : null;
+    reviewItemId = await newestOpenItemOfMention(db, mention.id as number);
   }
   const explanationId = (mention.explanation_id as number | null | undefined) ?? null;
   const body =
