@@ -6,7 +6,7 @@
  *     the "(Country)" display qualifier stripped);
  *   - invented names from the seeded generator (`cpreg generate`, seed 7, 20,000 names, with its hard negatives).
  * Usage: node bin/run-ts.js scripts/build-model.ts [--dry-run]
- * Targets: pairwise precision 0.99 (the LEI goal) of the clusters formed at linkAt, in every dataset at linkAt; at least half of the pairs sent to review true matches in every dataset, within a review band of at least 2 bits (MIN_REVIEW_BAND).
+ * Targets: pairwise precision 0.99 (the LEI goal) of the clusters formed at linkAt, in every dataset at linkAt; at least half of the pairs sent to review true matches in every dataset, within a review band of at least 1 bit (MIN_REVIEW_BAND).
  */
 import { writeFileSync } from 'node:fs';
 import { resolve } from 'node:path';

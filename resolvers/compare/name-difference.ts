@@ -77,6 +77,8 @@ const TYPO_SIMILARITY = 0.92;
 const TYPO_MIN_LENGTH = 9;
 const TYPO_MIN_LENGTH_BESIDE_RARE = 5;
 const ABBREVIATION_MAX_LENGTH = 4;
+/** Below this many letters a word is not shortened by a leading part of two or more letters (see abbreviates). */
+const ABBREVIATED_WORD_MIN_LENGTH = 6;
 const CONTRACTION_MIN_LENGTH = 3;
 const CONTRACTION_MAX_LENGTH = 5;
 /**
@@ -280,6 +282,9 @@ function abbreviates(short: string, long: string): boolean {
   if (short.length > 1 && FUNCTION_WORDS.has(short)) return false;
   if (isContraction(short, long)) return true;
   if (short.length > ABBREVIATION_MAX_LENGTH && short.length * 2 > long.length) return false;
+  // Words of four or five letters are not shortened in names: such a pair is two codes ("UMR" / "UMRS", "ITT" /
+  // "ITTLA"); on ROR test this class linked 9 other organisations to 181 true pairs. An initial still abbreviates.
+  if (short.length > 1 && long.length < ABBREVIATED_WORD_MIN_LENGTH) return false;
   return long.startsWith(short);
 }
 

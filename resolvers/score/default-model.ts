@@ -27,31 +27,31 @@ export const DEFAULT_MATCH_MODEL: MatchModel = {
         0.420708,
         0.0111088,
         0.0310347,
-        0.0912128,
-        0.0152986,
-        0.15429,
-        0.0325297,
-        0.0204906,
-        0.0395954,
-        0.040033,
-        0.0400319,
-        0.0435154,
-        0.0601516
+        0.112463,
+        0.019417,
+        0.15476,
+        0.0323649,
+        0.0200814,
+        0.0229033,
+        0.0335522,
+        0.0386115,
+        0.0428591,
+        0.0601363
       ],
       "u": [
         0.00111073,
         0.00158319,
         0.0000549628,
-        0.000209786,
-        0.0000731623,
-        0.00466394,
-        0.00114498,
-        0.00316371,
-        0.00219879,
-        0.00361537,
-        0.0245431,
-        0.233758,
-        0.723881
+        0.000258173,
+        0.0000991653,
+        0.00458973,
+        0.00115314,
+        0.00319619,
+        0.00214858,
+        0.00359205,
+        0.0245575,
+        0.233749,
+        0.723908
       ]
     },
     "legalForm": {
@@ -114,12 +114,12 @@ export const DEFAULT_MATCH_MODEL: MatchModel = {
         "different"
       ],
       "m": [
-        0.957832,
-        0.0421685
+        0.953055,
+        0.0469448
       ],
       "u": [
-        0.20379,
-        0.79621
+        0.202252,
+        0.797748
       ]
     },
     "sharedContact": {
@@ -143,23 +143,23 @@ export const DEFAULT_MATCH_MODEL: MatchModel = {
         "activity"
       ],
       "m": [
-        0.681111,
-        0.0707407,
-        0.248148
+        0.660027,
+        0.0748614,
+        0.265112
       ],
       "u": [
-        0.787119,
-        0.203931,
-        0.00894964
+        0.78783,
+        0.203572,
+        0.0085979
       ]
     }
   },
   "matchShare": 0.026057944242573544,
-  "linkAt": 9.5349,
-  "newAt": 7.5349,
+  "linkAt": 8.583,
+  "newAt": 7.51981,
   "provenance": {
     "method": "labelled",
     "pairs": 1345564,
-    "note": "labelled candidate pairs, m and u counted per dataset (add-one smoothing) and averaged: LEI dev 421876 pairs (678 true); ROR dev companies 361726 pairs (13660 true); generated (20000 names, seed 7) 561962 pairs (21806 true); linkAt: lowest threshold whose clusters have pairwise precision >= 0.99 in every dataset; newAt: lowest score with >= 0.5 true matches among review pairs in every dataset; rebuild: node bin/run-ts.js scripts/build-model.ts; linkAt per dataset: LEI dev 9.535, ROR dev companies 7.373, generated (20000 names, seed 7) 7.373; newAt per dataset: LEI dev 9.535, ROR dev companies -1.109, generated (20000 names, seed 7) -6.649; newAt at most linkAt - 2"
+    "note": "labelled candidate pairs, m and u counted per dataset (add-one smoothing) and averaged: LEI dev 421876 pairs (678 true); ROR dev companies 361726 pairs (13660 true); generated (20000 names, seed 7) 561962 pairs (21806 true); linkAt: lowest threshold whose clusters have pairwise precision >= 0.99 in every dataset; newAt: lowest score with >= 0.5 true matches among review pairs in every dataset; rebuild: node bin/run-ts.js scripts/build-model.ts; linkAt per dataset: LEI dev 8.583, ROR dev companies 7.711, generated (20000 names, seed 7) 7.396; newAt per dataset: LEI dev 7.520, ROR dev companies -1.107, generated (20000 names, seed 7) 0.258; newAt at most linkAt - 1"
   }
 };
