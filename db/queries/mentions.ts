@@ -240,3 +240,32 @@ export async function recentMentionScores(db: Queryable, limit: number): Promise
     .execute();
   return rows.map((r) => ({ score: Number(r.score), status: r.status }));
 }
+
+/** The whole stored row of one mention (undefined when there is none). */
+export async function mentionRow(db: Queryable, mentionId: number): Promise<Selectable<MentionTable> | undefined> {
+  return db.selectFrom('mention').selectAll().where('id', '=', mentionId).executeTakeFirst();
+}
+
+/** The counterparty a mention is linked to now (null: none), or undefined when there is no such mention. */
+export async function counterpartyOfMention(db: Queryable, mentionId: number): Promise<{ counterpartyId: number | null } | undefined> {
+  const row = await db.selectFrom('mention').select('counterparty_id').where('id', '=', mentionId).executeTakeFirst();
+  return row ? { counterpartyId: idOrNull(row.counterparty_id) } : undefined;
+}
+
+/** The counterparties these mentions are linked to (one entry per linked mention). */
+export async function counterpartiesOfMentions(db: Queryable, mentionIds: readonly number[]): Promise<number[]> {
+  if (mentionIds.length === 0) return [];
+  const rows = await db
+    .selectFrom('mention')
+    .select('counterparty_id')
+    .where('id', 'in', [...mentionIds])
+    .where('counterparty_id', 'is not', null)
+    .execute();
+  return rows.map((r) => id(r.counterparty_id));
+}
+
+/** The ids of the mentions linked to a counterparty, in id order. */
+export async function mentionIdsOfCounterparty(db: Queryable, counterpartyId: number): Promise<number[]> {
+  const rows = await db.selectFrom('mention').select('id').where('counterparty_id', '=', counterpartyId).orderBy('id').execute();
+  return rows.map((r) => id(r.id));
+}

@@ -155,3 +155,35 @@ export async function countOpenReviewItems(db: Queryable): Promise<number> {
     .executeTakeFirstOrThrow();
   return Number(row.n);
 }
+
+/** The open review items between two counterparties (either order; not about a mention). */
+export async function openItemsBetween(db: Queryable, a: number, b: number): Promise<number[]> {
+  const rows = await db
+    .selectFrom('review_item')
+    .select('id')
+    .where('status', '=', 'open')
+    .where('mention_id', 'is', null)
+    .where((eb) =>
+      eb.or([
+        eb.and([eb('left_counterparty_id', '=', a), eb('right_counterparty_id', '=', b)]),
+        eb.and([eb('left_counterparty_id', '=', b), eb('right_counterparty_id', '=', a)]),
+      ]),
+    )
+    .execute();
+  return rows.map((r) => id(r.id));
+}
+
+/** Every open review item about one mention. */
+export async function openItemsOfMention(db: Queryable, mentionId: number): Promise<number[]> {
+  const rows = await db.selectFrom('review_item').select('id').where('mention_id', '=', mentionId).where('status', '=', 'open').execute();
+  return rows.map((r) => id(r.id));
+}
+
+/** True when a pair of counterparties (either order) already has an item, open or decided: a sweep files it once. */
+export async function pairHasItem(db: Queryable, left: number, right: number): Promise<boolean> {
+  const existing = await sql<{ id: string | number }>`
+      SELECT id FROM review_item WHERE mention_id IS NULL AND status IN ('open', 'decided')
+        AND ((left_counterparty_id = ${left} AND right_counterparty_id = ${right})
+          OR (left_counterparty_id = ${right} AND right_counterparty_id = ${left})) LIMIT 1`.execute(db);
+  return existing.rows.length > 0;
+}

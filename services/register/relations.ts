@@ -11,7 +11,7 @@ import { lockActive, survivorFor, touchCounterparty } from './records.ts';
 import type { ChangeSet } from './state/change-set.ts';
 import type { Row } from './state/tables.ts';
 import { write } from './transaction.ts';
-import { findRelation } from '../../db/queries/relations.ts';
+import { findRelation, relationEnds } from '../../db/queries/relations.ts';
 
 export interface RelationInput {
   fromId: number;
@@ -80,9 +80,9 @@ export async function addRelation(ctx: RegisterContext, input: RelationInput, wh
 export async function removeRelation(ctx: RegisterContext, relationId: number, who: ActorInput): Promise<{ eventId: number }> {
   return write(ctx, async (cs) => {
     const at = ctx.now();
-    const peek = await cs.trx.selectFrom('counterparty_relation').selectAll().where('id', '=', relationId).executeTakeFirst();
+    const peek = await relationEnds(cs.trx, relationId);
     if (!peek) throw notFound('relation', relationId);
-    await cs.lock('counterparty', [Number(peek.from_counterparty_id), Number(peek.to_counterparty_id)]);
+    await cs.lock('counterparty', [peek.from, peek.to]);
     const row = await cs.get('counterparty_relation', relationId);
     if (!row) throw new RegisterError('CONFLICT', `relation ${relationId} was removed meanwhile`);
     await cs.delete('counterparty_relation', relationId);

@@ -29,7 +29,7 @@ import type { Row } from './state/tables.ts';
 import { write } from './transaction.ts';
 import { analyse } from './matching/analysis.ts';
 import { getSummaries, type CounterpartySummary } from '../../db/queries/counterparties.ts';
-import { listReviewItemsWhere, type ReviewFilter, type ReviewItemView } from '../../db/queries/review.ts';
+import { getReviewItem, listReviewItemsWhere, type ReviewFilter, type ReviewItemView } from '../../db/queries/review.ts';
 import { getMention, type MentionView } from '../../db/queries/mentions.ts';
 import type { Identifier, NameKind } from '../../resolvers/vocabulary.ts';
 
@@ -150,11 +150,11 @@ export async function decideReview(ctx: RegisterContext, reviewItemId: number, i
   return write(ctx, async (cs) => {
     const at = ctx.now();
     const reason = input.reason ?? who.reason ?? null;
-    const peek = await cs.trx.selectFrom('review_item').selectAll().where('id', '=', reviewItemId).executeTakeFirst();
+    const peek = await getReviewItem(cs.trx, reviewItemId);
     if (!peek) throw notFound('review item', reviewItemId);
     const sides = [
-      Number(peek.right_counterparty_id),
-      ...(peek.left_counterparty_id === null ? [] : [Number(peek.left_counterparty_id)]),
+      peek.rightCounterpartyId,
+      ...(peek.leftCounterpartyId === null ? [] : [peek.leftCounterpartyId]),
       ...(input.joinCounterpartyId === undefined ? [] : [input.joinCounterpartyId]),
     ];
     await lockActive(cs, sides);

@@ -11,6 +11,7 @@ import { write } from './transaction.ts';
 import { recordedNameOf, recordedNamesOf } from './mention-names.ts';
 import { cannotLinksOf } from '../../db/queries/review.ts';
 import { survivorsOf } from '../../db/queries/counterparties.ts';
+import { anyNameId } from '../../db/queries/names.ts';
 
 export interface SplitInput {
   mentionIds: number[];
@@ -74,8 +75,7 @@ export async function splitCounterparty(ctx: RegisterContext, counterpartyId: nu
       });
     }
     if (created) {
-      const names = await cs.trx.selectFrom('counterparty_name').select('id').where('counterparty_id', '=', targetId).executeTakeFirst();
-      if (!names) {
+      if ((await anyNameId(cs.trx, targetId)) === undefined) {
         const first = mentions[0]!;
         await addNameSighting(
           cs,
