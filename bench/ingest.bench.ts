@@ -3,7 +3,8 @@
  * generated mentions (the scale generator's invented names, a quarter of them variants of others), into a fresh
  * embedded database and a fresh PostgreSQL database. Sizes: ctx.sizes.ingest (quick 10,000; default 100,000;
  * full adds 1,000,000 on PostgreSQL only). Also records the rate of a second run over the same file (resume:
- * every row already ingested) and the peak RSS (memory must not grow with the file).
+ * every row already ingested), the peak RSS (memory must not grow with the file) and which stage of the batch path
+ * took the time (check, read, decide, cluster, write, flush, and the ingest's own: file, resume, record).
  */
 import { createWriteStream } from 'node:fs';
 import { once } from 'node:events';
@@ -12,6 +13,7 @@ import pg from 'pg';
 import { openDatabase } from '../db/open-database.ts';
 import { migrateToLatest } from '../db/migrate.ts';
 import { ingestFile } from '../services/ingest/run-ingest.ts';
+import type { StageTimes } from '../services/register/stage-times.ts';
 import type { BenchContext, BenchRow } from './types.ts';
 
 async function writeMentions(ctx: BenchContext, file: string, size: number): Promise<void> {
@@ -23,6 +25,27 @@ async function writeMentions(ctx: BenchContext, file: string, size: number): Pro
   }
   out.end();
   await once(out, 'finish');
+}
+
+/**
+ * Which stage took the time (services/register/stage-times.ts): one row per stage, in milliseconds per mention read,
+ * largest first, and one log line with each stage's share of the run.
+ */
+function recordStages(ctx: BenchContext, id: string, backend: 'pglite' | 'postgres', size: number, stages: StageTimes, rowsDone: number): void {
+  const total = Object.values(stages).reduce((a, b) => a + b, 0);
+  const order = Object.entries(stages).sort((a, b) => b[1] - a[1]);
+  ctx.log(`${backend}: time by stage: ${order.map(([stage, ms]) => `${stage} ${((100 * ms) / total).toFixed(1)} %`).join(', ')}`);
+  for (const [stage, ms] of order) {
+    ctx.record({
+      id: `${id}.stage.${stage}`,
+      label: `ingest stage ${stage}, ms per mention (${((100 * ms) / total).toFixed(1)} % of the run)`,
+      value: ms / Math.max(1, rowsDone),
+      unit: 'ms/mention',
+      better: 'lower',
+      size,
+      backend,
+    });
+  }
 }
 
 async function freshPostgres(url: string, name: string): Promise<{ url: string; drop: () => Promise<void> }> {
@@ -84,10 +107,12 @@ export async function run(ctx: BenchContext): Promise<BenchRow[]> {
       await migrateToLatest(database.db);
       ctx.log(`${backend}: ingesting ${size.toLocaleString('en-US')} mentions (time budget ${BUDGET_S[ctx.mode]} s)`);
       const started = performance.now();
+      const stages: StageTimes = {};
       const { result, peakRssMb } = await ctx.withPeakMemory(() =>
         ingestFile({
           db: database.db,
           file,
+          stages,
           source: 'bench',
           rejectsFile: join(ctx.tmpDir, `rejects-${backend}-${size}.csv`),
           actor: 'bench',
@@ -117,8 +142,10 @@ export async function run(ctx: BenchContext): Promise<BenchRow[]> {
           linked: result.counts.linked,
           new: result.counts.new,
           review: result.counts.review,
+          ...Object.fromEntries(Object.entries(stages).map(([stage, ms]) => [`stageMs.${stage}`, Math.round(ms)])),
         },
       });
+      recordStages(ctx, id, backend, size, stages, result.counts.read);
       ctx.record({ id: `${id}.peak_rss`, label: 'peak RSS while ingesting', value: peakRssMb, unit: 'MB', better: 'lower', size, backend });
       if (stopped) {
         rows.push({

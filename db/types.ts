@@ -135,11 +135,20 @@ export interface MentionTable {
   counterparty_id: Int8 | null;
   own_entity_id: Int8 | null;
   score: number | null;
+  /** The explanation of its outcome (table explanation); null for a mention stored with its evidence inline. */
+  explanation_id: ColumnType<number | null, number | null | undefined, number | null>;
+  /** The mention's own keys (recorded names, conflicts); what a user reads is the explanation's body with these over it. */
   evidence: JsonDefault<Record<string, unknown>>;
   /** Set when a person confirmed the outcome: reresolve leaves the mention alone. */
   confirmed_by: string | null;
   created_at: Timestamp;
   updated_at: Timestamp;
+}
+
+/** The evidence of one decision, stored once and referenced (append-only, like the history it belongs to). */
+export interface ExplanationTable {
+  id: GeneratedInt8;
+  body: JsonDefault<Record<string, unknown>>;
 }
 
 export interface ContractPartyTable {
@@ -164,6 +173,8 @@ export interface ReviewItemTable {
   left_counterparty_id: Int8 | null;
   right_counterparty_id: Int8;
   score: number | null;
+  /** The explanation of the mention's outcome that filed it (mention items); sweep items keep their evidence inline. */
+  explanation_id: ColumnType<number | null, number | null | undefined, number | null>;
   evidence: JsonDefault<Record<string, unknown>>;
   status: ColumnType<'open' | 'decided' | 'obsolete', 'open' | 'decided' | 'obsolete' | undefined>;
   decision: ReviewDecision | null;
@@ -302,6 +313,7 @@ export interface Database {
   mention: MentionTable;
   contract_party: ContractPartyTable;
   review_item: ReviewItemTable;
+  explanation: ExplanationTable;
   cannot_link: CannotLinkTable;
   labelled_pair: LabelledPairTable;
   history_event: HistoryEventTable;

@@ -181,3 +181,44 @@ export async function searchContracts(
   const rows = await query.orderBy('id').limit(filter.limit).execute();
   return rows.map((r) => ({ id: id(r.id), source: r.source, externalId: r.external_id, title: r.title, status: r.status, createdAt: iso(r.created_at)! }));
 }
+
+/** A stored contract's id and content hash by its (source, external id), if it is stored. */
+export async function contractHashOf(db: Queryable, source: string, externalId: string): Promise<{ id: number; contentHash: string } | undefined> {
+  const row = await db
+    .selectFrom('contract')
+    .select(['id', 'content_hash'])
+    .where('source', '=', source)
+    .where('external_id', '=', externalId)
+    .executeTakeFirst();
+  return row ? { id: id(row.id), contentHash: row.content_hash } : undefined;
+}
+
+/** The ids of a contract's defined terms, in id order. */
+export async function definedTermIdsOf(db: Queryable, contractId: number): Promise<number[]> {
+  const rows = await db.selectFrom('defined_term').select('id').where('contract_id', '=', contractId).orderBy('id').execute();
+  return rows.map((r) => id(r.id));
+}
+
+/** A contract's parties at `position` and after, in position order (a changed text may have fewer). */
+export async function partiesFromPosition(db: Queryable, contractId: number, position: number): Promise<{ id: number; mentionId: number }[]> {
+  const rows = await db
+    .selectFrom('contract_party')
+    .select(['id', 'mention_id'])
+    .where('contract_id', '=', contractId)
+    .where('position', '>=', position)
+    .orderBy('position')
+    .execute();
+  return rows.map((r) => ({ id: id(r.id), mentionId: id(r.mention_id) }));
+}
+
+/** The contract party a mention is (its contract, position and row id), if it is one. */
+export async function partyOfMention(db: Queryable, mentionId: number): Promise<{ id: number; contractId: number; position: number } | undefined> {
+  const row = await db.selectFrom('contract_party').select(['id', 'contract_id', 'position']).where('mention_id', '=', mentionId).executeTakeFirst();
+  return row ? { id: id(row.id), contractId: id(row.contract_id), position: row.position } : undefined;
+}
+
+/** The mentions that are parties of a contract (unordered). */
+export async function partyMentionIdsOf(db: Queryable, contractId: number): Promise<number[]> {
+  const rows = await db.selectFrom('contract_party').select('mention_id').where('contract_id', '=', contractId).execute();
+  return rows.map((r) => id(r.mention_id));
+}

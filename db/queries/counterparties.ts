@@ -160,3 +160,18 @@ export async function canonicalNameOf(db: Queryable, counterpartyId: number): Pr
   const row = await db.selectFrom('counterparty').select('canonical_name').where('id', '=', counterpartyId).executeTakeFirst();
   return row?.canonical_name;
 }
+
+/** The counterparties merged directly into any of these (one step of a merge chain, followed backwards). */
+export async function mergedDirectlyInto(db: Queryable, ids: number[]): Promise<number[]> {
+  const rows = await db.selectFrom('counterparty').select('id').where('merged_into', 'in', ids).execute();
+  return rows.map((r) => id(r.id));
+}
+
+/** What a duplicate sweep compares a counterparty by: its canonical name, jurisdiction and status. */
+export async function sweepFacts(
+  db: Queryable,
+  counterpartyId: number,
+): Promise<{ canonicalName: string; jurisdiction: string | null; status: string } | undefined> {
+  const row = await db.selectFrom('counterparty').select(['canonical_name', 'jurisdiction', 'status']).where('id', '=', counterpartyId).executeTakeFirst();
+  return row ? { canonicalName: row.canonical_name, jurisdiction: row.jurisdiction, status: row.status } : undefined;
+}

@@ -1,6 +1,7 @@
 /** Read queries of the public interface that no register module offers: network, groups, search fallback. */
 import { sql } from 'kysely';
 import type { Queryable } from './util.ts';
+import { composedEvidence } from './explanations.ts';
 import { toMentionView, type MentionView } from './mentions.ts';
 
 export interface NetworkParty {
@@ -62,7 +63,7 @@ export async function counterpartyGroups(
   const ids = cps.map((c) => Number(c.id));
   const mentions = await sql<Record<string, unknown>>`
     SELECT * FROM (
-      SELECT m.*, row_number() OVER (PARTITION BY m.counterparty_id ORDER BY m.id) AS rn,
+      SELECT m.*, ${composedEvidence('m')} AS full_evidence, row_number() OVER (PARTITION BY m.counterparty_id ORDER BY m.id) AS rn,
              count(*) OVER (PARTITION BY m.counterparty_id) AS total
       FROM mention m WHERE m.counterparty_id = ANY(${sql.val(ids)}::bigint[]) AND m.status IN ('linked', 'new')
     ) x WHERE rn <= ${mentionsPerGroup} ORDER BY counterparty_id, id`.execute(db);

@@ -74,6 +74,19 @@ export async function rewriteHistoryEvent(db: Queryable, eventId: number, payloa
   await db.updateTable('history_event').set({ payload: payloadJson, reason }).where('id', '=', eventId).execute();
 }
 
+/** Explanations (the evidence of decisions, stored once) quoting a needle; body parsed; locked. */
+export async function lockExplanationsToErase(db: Queryable, needles: readonly string[]): Promise<{ id: number; body: unknown }[]> {
+  if (needles.length === 0) return [];
+  const result = await sql<{ id: unknown; body: unknown }>`
+    SELECT id, body FROM explanation WHERE ${containsAnyText(sql`body::text`, needles)} ORDER BY id FOR UPDATE`.execute(db);
+  return result.rows.map((r) => ({ id: id(r.id), body: typeof r.body === 'string' ? JSON.parse(r.body) : r.body }));
+}
+
+/** Stores a rewritten explanation (append-only like the history: only with allowHistoryRewrite). */
+export async function rewriteExplanation(db: Queryable, explanationId: number, bodyJson: string): Promise<void> {
+  await db.updateTable('explanation').set({ body: bodyJson }).where('id', '=', explanationId).execute();
+}
+
 const parsed = (v: unknown): unknown => (typeof v === 'string' ? JSON.parse(v) : v);
 
 /** Stored idempotent answers quoting a needle; response parsed; locked. */

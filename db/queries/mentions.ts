@@ -3,6 +3,7 @@ import { sql, type Selectable } from 'kysely';
 import { mentionKey } from '../../resolvers/vocabulary.ts';
 import type { MentionTable } from '../types.ts';
 import type { Queryable } from './util.ts';
+import { composedEvidence } from './explanations.ts';
 import { id, idOrNull, iso } from './util.ts';
 
 export interface MentionView {
@@ -26,7 +27,10 @@ export interface MentionView {
   updatedAt: string;
 }
 
-export function toMentionView(r: Selectable<MentionTable>): MentionView {
+/** A mention row with the evidence a person reads (its explanation's body with its own keys over it). */
+export type MentionRowWithEvidence = Selectable<MentionTable> & { full_evidence: Record<string, unknown> };
+
+export function toMentionView(r: MentionRowWithEvidence): MentionView {
   return {
     id: id(r.id),
     source: r.source,
@@ -42,7 +46,7 @@ export function toMentionView(r: Selectable<MentionTable>): MentionView {
     counterpartyId: idOrNull(r.counterparty_id),
     ownEntityId: idOrNull(r.own_entity_id),
     score: r.score,
-    evidence: r.evidence,
+    evidence: r.full_evidence,
     confirmedBy: r.confirmed_by,
     createdAt: iso(r.created_at) as string,
     updatedAt: iso(r.updated_at) as string,
@@ -50,12 +54,18 @@ export function toMentionView(r: Selectable<MentionTable>): MentionView {
 }
 
 export async function getMention(db: Queryable, mentionId: number): Promise<MentionView | undefined> {
-  const row = await db.selectFrom('mention').selectAll().where('id', '=', mentionId).executeTakeFirst();
+  const row = await db.selectFrom('mention').selectAll().select(composedEvidence('mention').as('full_evidence')).where('id', '=', mentionId).executeTakeFirst();
   return row ? toMentionView(row) : undefined;
 }
 
 export async function findMentionBySourceId(db: Queryable, source: string, externalId: string): Promise<MentionView | undefined> {
-  const row = await db.selectFrom('mention').selectAll().where('source', '=', source).where('external_id', '=', externalId).executeTakeFirst();
+  const row = await db
+    .selectFrom('mention')
+    .selectAll()
+    .select(composedEvidence('mention').as('full_evidence'))
+    .where('source', '=', source)
+    .where('external_id', '=', externalId)
+    .executeTakeFirst();
   return row ? toMentionView(row) : undefined;
 }
 
@@ -98,6 +108,7 @@ export async function mentionsOfCounterparty(db: Queryable, counterpartyId: numb
   const rows = await db
     .selectFrom('mention')
     .selectAll()
+    .select(composedEvidence('mention').as('full_evidence'))
     .where('counterparty_id', '=', counterpartyId)
     .where('id', '>', page.afterId ?? 0)
     .orderBy('id')
@@ -228,4 +239,33 @@ export async function recentMentionScores(db: Queryable, limit: number): Promise
     .limit(limit)
     .execute();
   return rows.map((r) => ({ score: Number(r.score), status: r.status }));
+}
+
+/** The whole stored row of one mention (undefined when there is none). */
+export async function mentionRow(db: Queryable, mentionId: number): Promise<Selectable<MentionTable> | undefined> {
+  return db.selectFrom('mention').selectAll().where('id', '=', mentionId).executeTakeFirst();
+}
+
+/** The counterparty a mention is linked to now (null: none), or undefined when there is no such mention. */
+export async function counterpartyOfMention(db: Queryable, mentionId: number): Promise<{ counterpartyId: number | null } | undefined> {
+  const row = await db.selectFrom('mention').select('counterparty_id').where('id', '=', mentionId).executeTakeFirst();
+  return row ? { counterpartyId: idOrNull(row.counterparty_id) } : undefined;
+}
+
+/** The counterparties these mentions are linked to (one entry per linked mention). */
+export async function counterpartiesOfMentions(db: Queryable, mentionIds: readonly number[]): Promise<number[]> {
+  if (mentionIds.length === 0) return [];
+  const rows = await db
+    .selectFrom('mention')
+    .select('counterparty_id')
+    .where('id', 'in', [...mentionIds])
+    .where('counterparty_id', 'is not', null)
+    .execute();
+  return rows.map((r) => id(r.counterparty_id));
+}
+
+/** The ids of the mentions linked to a counterparty, in id order. */
+export async function mentionIdsOfCounterparty(db: Queryable, counterpartyId: number): Promise<number[]> {
+  const rows = await db.selectFrom('mention').select('id').where('counterparty_id', '=', counterpartyId).orderBy('id').execute();
+  return rows.map((r) => id(r.id));
 }

@@ -86,3 +86,15 @@ export async function nameOrigin(db: Queryable, counterpartyId: number, name: st
   if (!row) return undefined;
   return { contractId: idOrNull(row.contract_id), contractSource: row.contract_source, contractExternalId: row.contract_external_id, source: row.source };
 }
+
+/** A counterparty's name rows (id, name, kind) in id order: what a merge moves to the survivor. */
+export async function nameRowsOf(db: Queryable, counterpartyId: number): Promise<{ id: number; name: string; kind: NameKind }[]> {
+  const rows = await db.selectFrom('counterparty_name').select(['id', 'name', 'kind']).where('counterparty_id', '=', counterpartyId).orderBy('id').execute();
+  return rows.map((r) => ({ id: id(r.id), name: r.name, kind: r.kind as NameKind }));
+}
+
+/** The id of any one name row of a counterparty (undefined when it has none). */
+export async function anyNameId(db: Queryable, counterpartyId: number): Promise<number | undefined> {
+  const row = await db.selectFrom('counterparty_name').select('id').where('counterparty_id', '=', counterpartyId).executeTakeFirst();
+  return row ? id(row.id) : undefined;
+}

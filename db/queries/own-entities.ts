@@ -26,3 +26,9 @@ export async function listOwnEntities(db: Queryable, options: { includeRemoved?:
     removedAt: iso(r.removed_at),
   }));
 }
+
+/** The id of the current (not removed) own entity with this normalised name, if there is one. */
+export async function findOwnEntityId(db: Queryable, normalised: string): Promise<number | undefined> {
+  const row = await db.selectFrom('own_entity').select('id').where('normalised', '=', normalised).where('removed_at', 'is', null).executeTakeFirst();
+  return row ? id(row.id) : undefined;
+}

@@ -1,4 +1,6 @@
 /** Relations between counterparties (never merges). */
+import type { RelationType } from '../../resolvers/vocabulary.ts';
+import type { CounterpartyRelation } from '../types.ts';
 import type { Queryable } from './util.ts';
 import { id, iso } from './util.ts';
 
@@ -56,4 +58,27 @@ export async function relationEnds(db: Queryable, relationId: number): Promise<{
     .where('id', '=', relationId)
     .executeTakeFirst();
   return row ? { from: id(row.from_counterparty_id), to: id(row.to_counterparty_id) } : undefined;
+}
+
+/** Every relation from or to a counterparty, whole rows in id order: what a merge moves to the survivor. */
+export async function relationRowsTouching(db: Queryable, counterpartyId: number): Promise<CounterpartyRelation[]> {
+  return db
+    .selectFrom('counterparty_relation')
+    .selectAll()
+    .where((eb) => eb.or([eb('from_counterparty_id', '=', counterpartyId), eb('to_counterparty_id', '=', counterpartyId)]))
+    .orderBy('id')
+    .execute();
+}
+
+/** Another relation (not `exceptId`) with the same ends and type, if there is one. */
+export async function findOtherRelation(db: Queryable, from: number, to: number, type: RelationType, exceptId: number): Promise<number | undefined> {
+  const row = await db
+    .selectFrom('counterparty_relation')
+    .select('id')
+    .where('from_counterparty_id', '=', from)
+    .where('to_counterparty_id', '=', to)
+    .where('type', '=', type)
+    .where('id', '<>', exceptId)
+    .executeTakeFirst();
+  return row ? id(row.id) : undefined;
 }

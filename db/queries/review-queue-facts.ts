@@ -1,4 +1,5 @@
 /** What ordering the review queue needs of each open item: its sides, score, mention and contracts touched. */
+import { composedEvidence } from './explanations.ts';
 import { sql } from 'kysely';
 import type { ReviewFilter } from './review.ts';
 import type { Queryable } from './util.ts';
@@ -78,6 +79,7 @@ export async function reviewItemsByIds(db: Queryable, ids: readonly number[]): P
   const rows = await db
     .selectFrom('review_item')
     .selectAll()
+    .select(composedEvidence('review_item').as('full_evidence'))
     .where('id', 'in', [...ids])
     .execute();
   const byId = new Map(rows.map((r) => [id(r.id), r as Record<string, unknown>]));

@@ -1,5 +1,6 @@
 /** Review items and cannot-links. */
 import { sql } from 'kysely';
+import { composedEvidence } from './explanations.ts';
 import type { Queryable } from './util.ts';
 import { id, idOrNull, iso } from './util.ts';
 
@@ -27,7 +28,7 @@ export function toReviewView(r: Record<string, unknown>): ReviewItemView {
     leftCounterpartyId: idOrNull(r.left_counterparty_id),
     rightCounterpartyId: id(r.right_counterparty_id),
     score: r.score === null || r.score === undefined ? null : Number(r.score),
-    evidence: (r.evidence as Record<string, unknown>) ?? {},
+    evidence: (r.full_evidence as Record<string, unknown>) ?? {},
     status: r.status as string,
     decision: (r.decision as string | null) ?? null,
     decidedBy: (r.decided_by as string | null) ?? null,
@@ -59,6 +60,7 @@ export async function listReviewItemsWhere(
   let query = db
     .selectFrom('review_item')
     .selectAll()
+    .select(composedEvidence('review_item').as('full_evidence'))
     .where('status', '=', filter.status ?? 'open')
     .where('id', '>', page.afterId ?? 0);
   if (filter.kind !== undefined) query = query.where('kind', '=', filter.kind);
@@ -81,7 +83,12 @@ export async function listOpenReviewItems(db: Queryable, page: { afterId?: numbe
 }
 
 export async function getReviewItem(db: Queryable, reviewItemId: number): Promise<ReviewItemView | undefined> {
-  const row = await db.selectFrom('review_item').selectAll().where('id', '=', reviewItemId).executeTakeFirst();
+  const row = await db
+    .selectFrom('review_item')
+    .selectAll()
+    .select(composedEvidence('review_item').as('full_evidence'))
+    .where('id', '=', reviewItemId)
+    .executeTakeFirst();
   return row ? toReviewView(row) : undefined;
 }
 
@@ -147,4 +154,36 @@ export async function countOpenReviewItems(db: Queryable): Promise<number> {
     .where('status', '=', 'open')
     .executeTakeFirstOrThrow();
   return Number(row.n);
+}
+
+/** The open review items between two counterparties (either order; not about a mention). */
+export async function openItemsBetween(db: Queryable, a: number, b: number): Promise<number[]> {
+  const rows = await db
+    .selectFrom('review_item')
+    .select('id')
+    .where('status', '=', 'open')
+    .where('mention_id', 'is', null)
+    .where((eb) =>
+      eb.or([
+        eb.and([eb('left_counterparty_id', '=', a), eb('right_counterparty_id', '=', b)]),
+        eb.and([eb('left_counterparty_id', '=', b), eb('right_counterparty_id', '=', a)]),
+      ]),
+    )
+    .execute();
+  return rows.map((r) => id(r.id));
+}
+
+/** Every open review item about one mention. */
+export async function openItemsOfMention(db: Queryable, mentionId: number): Promise<number[]> {
+  const rows = await db.selectFrom('review_item').select('id').where('mention_id', '=', mentionId).where('status', '=', 'open').execute();
+  return rows.map((r) => id(r.id));
+}
+
+/** True when a pair of counterparties (either order) already has an item, open or decided: a sweep files it once. */
+export async function pairHasItem(db: Queryable, left: number, right: number): Promise<boolean> {
+  const existing = await sql<{ id: string | number }>`
+      SELECT id FROM review_item WHERE mention_id IS NULL AND status IN ('open', 'decided')
+        AND ((left_counterparty_id = ${left} AND right_counterparty_id = ${right})
+          OR (left_counterparty_id = ${right} AND right_counterparty_id = ${left})) LIMIT 1`.execute(db);
+  return existing.rows.length > 0;
 }

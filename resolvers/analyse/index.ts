@@ -5,7 +5,8 @@ export { normaliseName, normaliseTokens, foldForComparison, foldGermanDigraphs }
 export { designatorKey } from './designator-key.ts';
 export { lookupLegalForm, legalFormFamily, findLegalForm } from './lookup-legal-form.ts';
 export type { LegalFormInfo } from './lookup-legal-form.ts';
-export { partyVerdict, PRONOUNS, ROLE_WORDS, SIGNATURE_LABELS } from './party-filter.ts';
+export { partyVerdict, PRONOUNS, SIGNATURE_LABELS } from './party-filter.ts';
+export { ROLE_WORDS } from './role-words.ts';
 export type { PartyReason } from './party-filter.ts';
 export { isPlacePhrase } from './is-place-phrase.ts';
 export { isDocumentReference } from './is-document-reference.ts';

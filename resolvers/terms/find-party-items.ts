@@ -4,7 +4,8 @@
  * The undersigned) and closed by the operative words (IT IS AGREED, WHEREAS, RECITALS …).
  */
 import type { Definition } from './find-definitions.ts';
-import { locateNameAt, numberingAt } from './locate-name.ts';
+import { locateNameAt } from './locate-name.ts';
+import { numberingAt } from './name-starts.ts';
 import type { LocatedName } from './locate-name.ts';
 
 const OPENERS = ['between:', 'between', 'parties', 'the parties', 'the undersigned:', 'the undersigned', 'entre', 'entre les soussignés', 'zwischen', 'tra'];

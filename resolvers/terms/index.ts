@@ -7,7 +7,7 @@
  *      Australian unquoted terms at the end of a line; for each, the name before it (locateName: after the last
  *      "between"/numbering/"BETWEEN:"/blank line, cut before the descriptive phrase, extended over ", Inc." and
  *      alias phrases), accepted only when it reads as a name and a parties clause, legal form, person or
- *      descriptive phrase supports it (isPlausibleName, parseParties.hasSupport);
+ *      descriptive phrase supports it (isPlausibleName, collector.ts hasSupport);
  *   2. numbered items of a parties clause that define no term (findPartyItems);
  *   3. "Party A (Seller): X Co., Ltd." label lines, names with a legal form only (findLabelledParties);
  *   4. signature blocks: the entity line above "By:" or "/s/", "for and on behalf of X" (findSignatureBlocks);
@@ -42,7 +42,8 @@ export type {
   ParseOptions,
   PartyRef,
 } from './types.ts';
-export { parseParties, MAX_COLLECTIVE_TERMS, MAX_PARTIES, MAX_TERMS_PER_PARTY } from './parse-parties.ts';
+export { parseParties } from './parse-parties.ts';
+export { MAX_COLLECTIVE_TERMS, MAX_PARTIES, MAX_TERMS_PER_PARTY } from './collector.ts';
 export { resolveInContract } from './resolve-in-contract.ts';
 export { MAX_CONTRACT_BYTES, checkContractText } from './check-contract-text.ts';
 export { termKey } from './clean-term.ts';

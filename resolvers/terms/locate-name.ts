@@ -5,143 +5,10 @@
  */
 import { analyseCached as analyseName } from './analyse-cached.ts';
 import { anyWordAt, isSpace, isWordChar, skipSpaces, trimBounds, wordAt } from './text-scan.ts';
+import { ALIAS_CUES, CONNECTORS, DESCRIPTIVE_STARTS, HONORIFICS, ID_CUES, LINE_HEADINGS, LOWER_ONLY } from './name-words.ts';
+import { nameStarts, numberingAt } from './name-starts.ts';
 
-/** How far back from a definition we look for its party's name. */
-export const NAME_WINDOW = 600;
 const MAX_NAME = 150;
-
-/** Words after which a parties clause starts; the name follows. */
-const PARTY_CUES = [
-  'by and between',
-  'by and among',
-  'between',
-  'among',
-  'amongst',
-  'entered into by',
-  'made by',
-  'executed by',
-  'entre',
-  'zwischen',
-  'tra',
-  'fra',
-  'undersigned',
-  'de una parte',
-  'de otra parte',
-  "d'une part",
-  "d'autre part",
-  'da una parte',
-  "dall'altra parte",
-];
-/** Words that end a recital or clause: the name, if any, follows. */
-const CLAUSE_CUES = ['whereas', 'recitals', 'background'];
-/** Leading connectors stripped before a name. */
-const CONNECTORS = [
-  'and',
-  'und',
-  'et',
-  'y',
-  'e',
-  'or',
-  'by',
-  'with',
-  'also',
-  'as well as',
-  'la société',
-  'la societe',
-  'la sociedad',
-  'la società',
-  'la societa',
-  'die firma',
-  'der',
-  'die',
-  'das',
-  'the company',
-];
-const LOWER_ONLY = new Set(['der', 'die', 'das', 'the company']);
-/** Words that end a name: the descriptive phrase begins. */
-const DESCRIPTIVE_STARTS = [
-  'a',
-  'an',
-  'whose',
-  'having',
-  'with',
-  'incorporated',
-  'organized',
-  'organised',
-  'located',
-  'residing',
-  'domiciled',
-  'registered',
-  'mit',
-  'con',
-  'ayant',
-  'dont',
-  'acting',
-  'represented',
-  'hereinafter',
-  'being',
-  'existing',
-  'formed',
-  'une',
-  'un',
-  'eine',
-  'ein',
-  'una',
-  'uno',
-  'sociedad',
-  'società',
-  'société',
-  'gesellschaft',
-  'vertreten',
-  'sis',
-  'situé',
-  'domicilié',
-  'domiciliée',
-  'eingetragen',
-  'established',
-  'duly',
-  'whose',
-  'which',
-  'that',
-  'who',
-  'in',
-  'at',
-  'on',
-];
-/** Longest first where one starts another ("formerly known as" before "formerly"); the kinds are splitAliases'. */
-export const ALIAS_CUES = [
-  'd/b/a',
-  'dba',
-  'doing business as',
-  't/a',
-  'trading as',
-  'f/k/a',
-  'fka',
-  'formerly known as',
-  'formerly called',
-  'formerly named',
-  'formerly trading as',
-  'formerly',
-  'previously known as',
-  'previously called',
-  'previously named',
-  'previously',
-  'a/k/a',
-  'aka',
-  'also known as',
-  'operating as',
-  'o/a',
-  'successor in interest to',
-  'successor by merger to',
-  'successor to',
-  'vormals',
-  'ehemals',
-  'anciennement dénommée',
-  'anciennement denommee',
-  'anciennement',
-  'anteriormente denominada',
-  'precedentemente denominata',
-];
 
 export interface LocatedName {
   nameStart: number;
@@ -156,74 +23,6 @@ export interface LocatedName {
   /** A form of address ("Mr", "Madame") stood before the name: the party is a person. */
   honorific: boolean;
 }
-
-/** Line-start numbering: "(1)", "(a)", "(iv)", "1.", "1)", "a)". Returns the index after it, or -1. */
-export function numberingAt(text: string, i: number, end: number): number {
-  let j = i;
-  const paren = text[j] === '(';
-  if (paren) j++;
-  const s = j;
-  while (j < end && j - s < 4 && isWordChar(text[j]) && /[\da-z]/i.test(text[j] as string)) j++;
-  if (j === s) return -1;
-  const token = text.slice(s, j);
-  if (!/^(?:\d{1,2}|[a-z]|[ivx]{1,4})$/i.test(token)) return -1;
-  if (paren ? text[j] !== ')' : text[j] !== '.' && text[j] !== ')') return -1;
-  j++;
-  return isSpace(text[j]) || j >= end ? j : -1;
-}
-
-function isLineStart(text: string, i: number): boolean {
-  let k = i - 1;
-  while (k >= 0 && (text[k] === ' ' || text[k] === '\t')) k--;
-  return k < 0 || text[k] === '\n';
-}
-
-/** The last boundary in [from, to): where a name may start, and whether a party cue set it. */
-function lastBoundary(text: string, from: number, to: number): { at: number; partyCue: boolean } {
-  let at = from;
-  let partyCue = false;
-  for (let i = from; i < to; i++) {
-    const ch = text[i] as string;
-    if (ch === ';') {
-      at = i + 1;
-      continue;
-    }
-    if (ch === '\n') {
-      const next = skipSpaces(text, i + 1, to);
-      if (text.slice(i + 1, next).includes('\n')) at = next; // blank line
-      continue;
-    }
-    if (isWordChar(text[i - 1])) continue;
-    if (isLineStart(text, i)) {
-      const n = numberingAt(text, i, to);
-      if (n > 0) {
-        at = n;
-        partyCue = true;
-        continue;
-      }
-      if (wordAt(text, i, 'and') || wordAt(text, i, 'between')) {
-        const after = skipSpaces(text, i + (wordAt(text, i, 'and') ? 3 : 7), to);
-        if (text[after] === ':' || text[after - 1] === '\n' || after >= to) {
-          at = after;
-          partyCue = true;
-          continue;
-        }
-      }
-    }
-    const cue = anyWordAt(text, i, PARTY_CUES);
-    if (cue !== undefined) {
-      at = i + cue.length;
-      partyCue = true;
-      continue;
-    }
-    const clause = anyWordAt(text, i, CLAUSE_CUES);
-    if (clause !== undefined) at = i + clause.length;
-  }
-  return { at, partyCue };
-}
-
-/** Forms of address before a person's name: skipped, and the party is a person. ("Dr" is left: firms use it.) */
-const HONORIFICS = ['monsieur', 'madame', 'mademoiselle', 'mr', 'mrs', 'ms', 'miss', 'mx', 'herr', 'frau', 'señor', 'señora', 'signor', 'signora'];
 
 /** Skips separators, connectors and numbering before a name; `honorific` is set when a form of address was skipped. */
 function skipLeading(text: string, i: number, to: number, seen: { honorific: boolean } = { honorific: false }): number {
@@ -254,31 +53,6 @@ function skipLeading(text: string, i: number, to: number, seen: { honorific: boo
  * A line break continues the name when the next line starts with a capitalised word that is not a numbered
  * item, a label ("By:") or a heading, and the name so far does not already end with a legal form.
  */
-const LINE_HEADINGS = new Set([
-  'and',
-  'between',
-  'parties',
-  'whereas',
-  'recitals',
-  'background',
-  'now',
-  'in',
-  'by',
-  'name',
-  'title',
-  'its',
-  'signed',
-  'dated',
-  'the',
-  'this',
-  'und',
-  'et',
-  'y',
-  'e',
-  'entre',
-  'zwischen',
-  'tra',
-]);
 
 function continuesOnNextLine(text: string, s: number, nl: number, limit: number): boolean {
   let j = nl + 1;
@@ -333,26 +107,6 @@ function bareNameEnd(text: string, s: number, to: number, stopAtAnd: boolean): n
   }
   return limit;
 }
-
-/** Register abbreviations that follow a name in some styles ("… Pty Ltd ACN 004 085 616"). */
-const ID_CUES = [
-  'acn',
-  'abn',
-  'arbn',
-  'arsn',
-  'hrb',
-  'hra',
-  'rcs',
-  'ein',
-  'lei',
-  'kvk',
-  'siren',
-  'vat',
-  'company number',
-  'registered number',
-  'reg. no',
-  'org. nr',
-];
 
 /** "Pellinore Widgets Limited of 4 Quarry Lane": after a legal form, "of" starts the address. */
 function endsWithLegalForm(text: string, s: number, e: number): boolean {
@@ -432,26 +186,6 @@ export function locateNameAt(text: string, from: number, to: number, partyCue: b
   const fullEnd = extendOverAliases(text, e, to);
   const [descStart, descEnd] = trimBounds(text, fullEnd, to, ',');
   return { nameStart: s, nameEnd: e, fullEnd, descStart, descEnd, partyCue, honorific: seen.honorific };
-}
-
-/**
- * Where a name may start before a definition at `to`: after the last boundary, then (when that reads as
- * a descriptive phrase rather than a name) after the last ", and", " and" or "," — the next party
- * in a list follows its predecessor's descriptive phrase. The caller tries them in order.
- */
-export function nameStarts(text: string, from: number, to: number, inheritedCue: boolean): Array<{ at: number; partyCue: boolean }> {
-  const windowStart = Math.max(from, to - NAME_WINDOW);
-  const b = lastBoundary(text, windowStart, to);
-  // Only a stretch that directly follows the previous party's definition inherits its parties-clause context.
-  const partyCue = b.partyCue || (inheritedCue && windowStart === from && b.at === windowStart);
-  const starts = [{ at: b.at, partyCue }];
-  const segment = text.slice(b.at, to);
-  // Not a bare " and ": "to Harrow and Pendle LLP" must not become "Pendle LLP".
-  for (const sep of [', and ', '; and ', ', or ', ', ']) {
-    const k = segment.lastIndexOf(sep);
-    if (k > 0) starts.push({ at: b.at + k + sep.length, partyCue });
-  }
-  return starts;
 }
 
 /** Locates the name before a definition that starts at `to`; `from` is where the previous definition ended. */

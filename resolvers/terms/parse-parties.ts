@@ -5,7 +5,7 @@
  */
 import { findEarlierAgreements } from './find-earlier-agreements.ts';
 import { analyseCached as analyseName } from './analyse-cached.ts';
-import { sameWithTranslatedForm, type NameAnalysis } from '../analyse/index.ts';
+import { type NameAnalysis } from '../analyse/index.ts';
 import { normaliseIdentifier } from '../identifiers/index.ts';
 import { checkContractText } from './check-contract-text.ts';
 import { cleanTerm, termKey } from './clean-term.ts';
@@ -19,138 +19,18 @@ import { findSigners } from './find-signers.ts';
 import { findExclusions } from './find-exclusions.ts';
 import { matchExclusions } from './match-exclusions.ts';
 import { mergeSigners } from './merge-signers.ts';
-import { joinsTwoEntities, readsAsName } from './is-plausible-name.ts';
-import { locateName, locateNameAt, NAME_WINDOW, nameStarts } from './locate-name.ts';
+import { joinsTwoEntities } from './is-plausible-name.ts';
+import { locateNameAt } from './locate-name.ts';
+import { nameStarts } from './name-starts.ts';
 import { findPartyItems } from './find-party-items.ts';
 import { findPlaceMentions } from './find-place-mentions.ts';
 import { findLabelledParties } from './find-labelled-parties.ts';
-import { wordsOf } from './text-scan.ts';
-import type { LocatedName } from './locate-name.ts';
 import { NON_PARTY_TERMS } from './non-party-terms.ts';
 import { pickRole } from './pick-role.ts';
 import { sameEntityName } from './same-entity-name.ts';
 import type { ContractIdentifier, ContractParty, ContractSigner, ParsedContract, ParseOptions } from './types.ts';
-
-/** Descriptive text kept per party: enough for any phrase seen in practice, bounded for 1 MB inputs. */
-const MAX_DESCRIPTION = 800;
-/** No real party has more terms, no real contract more collective terms; the bounds keep 1 MB inputs linear. */
-export const MAX_TERMS_PER_PARTY = 50;
-export const MAX_COLLECTIVE_TERMS = 100;
-/** Descriptive phrases kept per party (preamble, trailing phrase, signature block). */
-const MAX_DESCRIPTIONS = 4;
-/** How far after a definition a trailing descriptive phrase may run ("…("Qorv"), a company incorporated…"). */
-const TRAILING_WINDOW = 400;
-/** No real contract has more parties; the bound keeps adversarial input linear. Extra names are reported. */
-export const MAX_PARTIES = 500;
-
-interface Draft {
-  /** Where the name first appears: parties are reported in text order. */
-  position: number;
-  /** A form of address stood before the name ("Mr", "Monsieur"). */
-  honorific: boolean;
-  name: string;
-  /** Name plus alias phrases, for the analysis. */
-  fullName: string;
-  terms: string[];
-  termSet: Set<string>;
-  label?: string;
-  descriptions: string[];
-  analysis: NameAnalysis;
-}
-
-interface CollectiveDraft {
-  term: string;
-  /** Parties covered; null: every party of the contract. */
-  members: Draft[] | null;
-}
-
-class Collector {
-  readonly drafts: Draft[] = [];
-  readonly collectives: CollectiveDraft[] = [];
-  readonly notParties: string[] = [];
-  /** The last party came from a parties clause: the next one in the list inherits that context. */
-  inClause = false;
-  /** Names beyond MAX_PARTIES, counted for the warning. */
-  overflow = 0;
-  overflowTerms = 0;
-  overflowCollectives = 0;
-  private readonly notPartySet = new Set<string>();
-  private readonly byNormalised = new Map<string, Draft>();
-  private readonly byCore = new Map<string, Draft[]>();
-
-  constructor(readonly text: string) {}
-
-  /** Adds a located name as a party (or merges it into the same entity seen before); null when implausible. */
-  addParty(located: LocatedName, terms: string[], extraDescription: string, label?: string): Draft | null {
-    const name = this.text.slice(located.nameStart, located.nameEnd);
-    const fullName = this.text.slice(located.nameStart, located.fullEnd);
-    const analysis = analyseName(fullName);
-    if (!readsAsName(name, analysis)) return null;
-    const description = `${this.text.slice(located.descStart, Math.min(located.descEnd, located.descStart + MAX_DESCRIPTION))} ${extraDescription}`.trim();
-    if (!located.partyCue && !hasSupport(analysis, description)) return null;
-    const existing =
-      this.byNormalised.get(analysis.normalised) ??
-      (this.byCore.get(analysis.core) ?? []).find((d) => sameEntityName(d.analysis, analysis)) ??
-      // "Orvanel Japan Co., Ltd." in the signature block of "Orvanel Japan K.K.": cores differ by the rendered "Co.".
-      (analysis.legalForm === null ? undefined : this.drafts.find((d) => sameWithTranslatedForm(d.analysis, analysis)));
-    if (existing !== undefined) {
-      const d = existing;
-      for (const t of terms) this.addTerm(d, t);
-      // A party described again and again (a repeated block) adds nothing after the first few phrases.
-      if (description.length > 0 && d.descriptions.length < MAX_DESCRIPTIONS) d.descriptions.push(description);
-      if (d.label === undefined && label !== undefined) d.label = label;
-      return d;
-    }
-    if (this.drafts.length >= MAX_PARTIES) {
-      this.overflow++;
-      return null;
-    }
-    const draft: Draft = {
-      position: located.nameStart,
-      honorific: located.honorific,
-      name,
-      fullName,
-      terms: [],
-      termSet: new Set(),
-      descriptions: description.length > 0 ? [description] : [],
-      analysis,
-    };
-    if (label !== undefined) draft.label = label;
-    for (const t of terms) this.addTerm(draft, t);
-    this.drafts.push(draft);
-    if (!this.byNormalised.has(analysis.normalised)) this.byNormalised.set(analysis.normalised, draft);
-    const sameCore = this.byCore.get(analysis.core);
-    if (sameCore === undefined) this.byCore.set(analysis.core, [draft]);
-    else sameCore.push(draft);
-    return draft;
-  }
-
-  /** Adds a term to a party, once; beyond MAX_TERMS_PER_PARTY the term is counted for the warning. */
-  addTerm(d: Draft, term: string): void {
-    if (d.termSet.has(term)) return;
-    if (d.terms.length >= MAX_TERMS_PER_PARTY) {
-      this.overflowTerms++;
-      return;
-    }
-    d.termSet.add(term);
-    d.terms.push(term);
-  }
-
-  noteNotParty(s: string): void {
-    const t = s.trim();
-    if (t.length === 0 || this.notPartySet.has(t)) return;
-    this.notPartySet.add(t);
-    this.notParties.push(t);
-  }
-}
-
-/** Support for a name found outside a parties clause: a legal form, a person, or a descriptive phrase. */
-function hasSupport(analysis: NameAnalysis, description: string): boolean {
-  if (analysis.legalForm !== null || analysis.kind === 'person') return true;
-  if (description.length === 0) return false;
-  const j = extractJurisdiction(description);
-  return j !== undefined || extractIdentifiers(description, j).length > 0 || extractAddress(description) !== undefined;
-}
+import { Collector, MAX_COLLECTIVE_TERMS, MAX_PARTIES, MAX_TERMS_PER_PARTY, TRAILING_WINDOW, type Draft } from './collector.ts';
+import { collectiveMembers } from './collective-members.ts';
 
 function isPartyTerm(t: FoundTerm): boolean {
   return !t.collective && !t.thisMarker && !NON_PARTY_TERMS.has(t.text.toLowerCase());
@@ -216,88 +96,6 @@ function handleDefinition(c: Collector, def: Definition, prevEnd: number, nextSt
     if (c.collectives.length >= MAX_COLLECTIVE_TERMS) c.overflowCollectives++;
     else c.collectives.push({ term: t.text, members });
   }
-}
-
-/** Words that may stand between the last party and a collective definition without naming anyone. */
-const FILLER = new Set([
-  'and',
-  'or',
-  'are',
-  'is',
-  'be',
-  'will',
-  'shall',
-  'hereto',
-  'herein',
-  'hereinafter',
-  'the',
-  'a',
-  'an',
-  'as',
-  'each',
-  'together',
-  'collectively',
-  'individually',
-  'jointly',
-  'referred',
-  'to',
-  'both',
-  'all',
-  'of',
-  'them',
-  'they',
-  'parties',
-  'party',
-  'above',
-  'named',
-  'said',
-]);
-
-/**
- * Who a collective term covers: parties named just before it ("Alder Fund I LP and Alder Fund II LP (each a
- * "Fund")"), or parties whose terms are named there ("Licensor and Licensee are each a "Party""), or every
- * party so far when nothing stands between; an unnamed set ("the lenders party hereto") covers no named party.
- */
-function collectiveMembers(c: Collector, from: number, to: number): Draft[] | null {
-  const named = namesBefore(c, from, to);
-  if (named.length > 0) return named;
-  const segment = c.text.slice(Math.max(from, to - NAME_WINDOW), to);
-  const words = wordsOf(segment);
-  const byTerm = c.drafts.filter((d) => d.terms.some((t) => includesPhrase(words, wordsOf(t))));
-  if (byTerm.length > 0) return byTerm;
-  if (words.every((w) => FILLER.has(w))) return c.drafts.length > 0 ? [...c.drafts] : null;
-  return [];
-}
-
-function includesPhrase(words: string[], phrase: string[]): boolean {
-  if (phrase.length === 0) return false;
-  for (let i = 0; i + phrase.length <= words.length; i++) {
-    if (phrase.every((w, k) => words[i + k] === w)) return true;
-  }
-  return false;
-}
-
-/** Parties listed before a collective definition: "Alder Fund I LP and Alder Fund II LP (each a "Fund")". */
-function namesBefore(c: Collector, from: number, to: number): Draft[] {
-  const found: Draft[] = [];
-  const first = locateName(c.text, from, to);
-  let pos = first === null ? to : first.nameStart;
-  for (let guard = 0; pos < to && guard < 50; guard++) {
-    const loc = locateNameAt(c.text, pos, to, first?.partyCue ?? false, true);
-    if (loc === null) break;
-    const d = c.addParty(loc, [], '');
-    if (d !== null && !found.includes(d)) found.push(d);
-    pos = nextSeparator(c.text, Math.max(loc.nameEnd, loc.fullEnd), to);
-  }
-  return found;
-}
-
-function nextSeparator(text: string, from: number, to: number): number {
-  for (let i = from; i < to; i++) {
-    if (text[i] === ',' || text[i] === ';') return i + 1;
-    if (text.startsWith(' and ', i)) return i + 5;
-  }
-  return to;
 }
 
 function finishIdentifiers(raw: ContractIdentifier[], jurisdiction: string | undefined): ContractIdentifier[] {

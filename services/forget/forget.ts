@@ -38,6 +38,8 @@ import {
   lockJobPartitionsToErase,
   lockJobsToErase,
   lockStateRowsToErase,
+  lockExplanationsToErase,
+  rewriteExplanation,
   rewriteHistoryEvent,
   rewriteIdempotencyAnswer,
   rewriteJobChunk,
@@ -104,6 +106,8 @@ export async function forgetCounterparty(ctx: RegisterContext, counterpartyId: n
       if (table === 'counterparty_name') await rebuildKeys(trx, changed, ctx);
     }
     const events = await rewriteHistory(trx, cluster, mentionIds, secrets, replace);
+    const explanations = await rewriteExplanations(trx, secrets, replace);
+    if (explanations > 0) rowCounts.explanation = explanations;
     const storedAnswers = await rewriteStoredAnswers(trx, secrets, replace);
 
     const at = ctx.now();
@@ -279,6 +283,21 @@ async function rewriteHistory(
     const reason = row.reason === null ? null : (replace(row.reason) as string);
     if (JSON.stringify(rewritten) === JSON.stringify(payload) && reason === row.reason) continue;
     await rewriteHistoryEvent(trx, row.id, JSON.stringify(rewritten), reason);
+    count++;
+  }
+  return count;
+}
+
+/**
+ * The explanations of decisions (stored once, referenced by mentions, review items and the history's row images)
+ * quoting the person, rewritten like the history they belong to. Runs after rewriteHistory (which allows the rewrite).
+ */
+async function rewriteExplanations(trx: Transaction<Database>, secrets: Secrets, replace: (value: unknown) => unknown): Promise<number> {
+  let count = 0;
+  for (const row of await lockExplanationsToErase(trx, needlesOf(secrets))) {
+    const rewritten = JSON.stringify(replace(row.body));
+    if (rewritten === JSON.stringify(row.body)) continue;
+    await rewriteExplanation(trx, row.id, rewritten);
     count++;
   }
   return count;

@@ -19,6 +19,7 @@ import { finishIngestRun, insertIngestRun, updateIngestRunCounts } from '../../d
 import { storedMentionsByRef } from '../../db/queries/mentions.ts';
 import { createRegisterContext, type RegisterContext } from '../register/context.ts';
 import { resolveBatch } from '../register/batch.ts';
+import { timed, type StageTimes } from '../register/stage-times.ts';
 import { prepareMention } from '../register/resolve/prepare.ts';
 import { mentionKey, type MentionInput } from '../../resolvers/vocabulary.ts';
 import { columnWarnings, MappingError, mentionFromJson, mentionFromRow, resolveColumns, type FieldMap, type RowResult } from './mapping.ts';
@@ -52,6 +53,12 @@ export interface IngestOptions {
   ctx?: RegisterContext;
   /** Told what the file's header leaves unread (also listed in the summary's `warnings`). */
   onWarning?: (message: string) => void;
+  /**
+   * Filled with the milliseconds each stage took (services/register/stage-times.ts): the batch's own stages, `resume`
+   * (which rows are stored already), `record` (the run's counts after each batch) and `file` (reading and checking
+   * the file's rows: the rest of the run's time).
+   */
+  stages?: StageTimes;
 }
 
 export interface IngestProgress {
@@ -234,9 +241,11 @@ export async function ingestFile(options: IngestOptions): Promise<IngestSummary>
     if (batch.length === 0) return;
     // Resuming: rows stored before with the same content are counted with one query per batch instead of one
     // per row (the register would answer the same: already ingested, nothing done).
-    const stored = await storedHashes(
-      options.db,
-      batch.map((b) => b.mention),
+    const stored = await timed(options.stages, 'resume', () =>
+      storedHashes(
+        options.db,
+        batch.map((b) => b.mention),
+      ),
     );
     const fresh = batch.filter((b) => {
       const hash = stored.get(mentionKey(b.mention.source, b.mention.externalId));
@@ -257,6 +266,7 @@ export async function ingestFile(options: IngestOptions): Promise<IngestSummary>
             ctx,
             fresh.map((b) => b.mention),
             { actor: options.actor, reason: `ingest run ${runId}` },
+            { stages: options.stages },
           );
     results.forEach((result, i) => {
       const row = fresh[i]!;
@@ -269,7 +279,7 @@ export async function ingestFile(options: IngestOptions): Promise<IngestSummary>
     });
     batch = [];
     seen = new Map();
-    await updateIngestRunCounts(options.db, runId, counts);
+    await timed(options.stages, 'record', () => updateIngestRunCounts(options.db, runId, counts));
     options.onProgress?.(progress());
   };
   let status: IngestSummary['status'] = 'finished';
@@ -318,6 +328,10 @@ export async function ingestFile(options: IngestOptions): Promise<IngestSummary>
   const gap = unaccounted(counts);
   await finishIngestRun(options.db, runId, { status, counts, error: gap === 0 ? null : `${gap} rows unaccounted` });
   if (gap !== 0) throw new Error(`ingest run ${runId}: ${gap} rows read but not accounted for (a defect: please report it)`);
+  if (options.stages) {
+    const timedMs = Object.values(options.stages).reduce((a, b) => a + b, 0);
+    options.stages.file = Math.max(0, performance.now() - started - timedMs);
+  }
   return {
     ...progress(),
     bytesRead: status === 'finished' ? totalBytes : stream.bytesRead,

@@ -36,6 +36,7 @@ import { ChangeSet } from './state/change-set.ts';
 import { canonicalRow } from './state/tables.ts';
 import { lockActive, survivorFor } from './records.ts';
 import { clusterBatch, type Group, type Pending } from './batch-cluster.ts';
+import { timed, type StageTimes } from './stage-times.ts';
 
 export type BatchItemResult = ResolveResult | { status: 'rejected'; index: number; error: { code: string; message: string; field?: string } };
 
@@ -56,14 +57,16 @@ export interface BatchOptions {
   comparePairs?: readonly (readonly [string, string])[];
   /** A partition's token counts frozen by its job's plan (matching/idf.ts). Default: the register's and the batch's. */
   rarity?: FrozenRarity;
+  /** Filled with the milliseconds each stage took (stage-times.ts), when given. */
+  stages?: StageTimes;
 }
 
-export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[], who: ActorInput, options: BatchOptions = {}): Promise<BatchItemResult[]> {
-  const results: BatchItemResult[] = new Array(inputs.length);
-  const pending: Pending[] = [];
+type Checked = { index: number; prepared: PreparedMention; key: string };
+
+/** Stage 1, check: each input checked and analysed; a bad one or a repeated (source, externalId) is rejected in place. */
+function checkInputs(inputs: MentionInput[], results: BatchItemResult[]): Checked[] {
   const seen = new Map<string, number>();
-  const { model } = await currentModel(ctx.db);
-  const checked: { index: number; prepared: PreparedMention; key: string }[] = [];
+  const checked: Checked[] = [];
   for (const [index, input] of inputs.entries()) {
     let prepared: PreparedMention;
     try {
@@ -93,53 +96,67 @@ export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[],
     seen.set(key, index);
     checked.push({ index, prepared, key });
   }
+  return checked;
+}
+
+export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[], who: ActorInput, options: BatchOptions = {}): Promise<BatchItemResult[]> {
+  const results: BatchItemResult[] = new Array(inputs.length);
+  const pending: Pending[] = [];
+  const stages = options.stages;
+  const { model } = await currentModel(ctx.db);
+  const checked = await timed(stages, 'check', async () => checkInputs(inputs, results));
   // The read-only phase reads in bulk: stored mentions in one statement, the candidates and token counts of every
   // mention in one statement each (matching/batch-reads.ts), each contract once.
-  const stored = new Map(
-    (
-      await mentionsByKeys(
-        ctx.db,
-        checked.map((c) => c.prepared.input),
-      )
-    ).map((row) => [`${row.source}\u0000${row.external_id}`, row]),
-  );
-  const reads = new BatchReads(ctx.db);
-  const toDecide = checked.filter((c) => stored.get(c.key)?.content_hash !== c.prepared.contentHash);
-  reads.basis = basisOf(
-    toDecide.map((c) => c.prepared.analysis.tokens),
-    options.rarity,
-  );
-  await reads.prefetch(
-    toDecide.map((c) => c.prepared),
-    MAX_CANDIDATES,
-  );
+  const { stored, reads } = await timed(stages, 'read', async () => {
+    const stored = new Map(
+      (
+        await mentionsByKeys(
+          ctx.db,
+          checked.map((c) => c.prepared.input),
+        )
+      ).map((row) => [`${row.source}\u0000${row.external_id}`, row]),
+    );
+    const reads = new BatchReads(ctx.db);
+    const toDecide = checked.filter((c) => stored.get(c.key)?.content_hash !== c.prepared.contentHash);
+    reads.basis = basisOf(
+      toDecide.map((c) => c.prepared.analysis.tokens),
+      options.rarity,
+    );
+    await reads.prefetch(
+      toDecide.map((c) => c.prepared),
+      MAX_CANDIDATES,
+    );
+    return { stored, reads };
+  });
   const contracts = new Map<string, Promise<ContractContext | null>>();
-  for (const { index, prepared, key } of checked) {
-    const found = stored.get(key);
-    if (found && found.content_hash === prepared.contentHash) {
-      results[index] = await resultOf(ctx.db, canonicalRow('mention', found), { alreadyIngested: true, eventId: null });
-      continue;
+  await timed(stages, 'decide', async () => {
+    for (const { index, prepared, key } of checked) {
+      const found = stored.get(key);
+      if (found && found.content_hash === prepared.contentHash) {
+        results[index] = await resultOf(ctx.db, canonicalRow('mention', found), { alreadyIngested: true, eventId: null, explanation: found.explanation_body });
+        continue;
+      }
+      const ref = prepared.input.contract;
+      let contract: ContractContext | null = null;
+      if (ref) {
+        const refKey = JSON.stringify([ref.source, ref.externalId]);
+        if (!contracts.has(refKey))
+          contracts.set(
+            refKey,
+            ctx.db.transaction().execute((trx) => contractContextFor(new ChangeSet(trx, ctx.derived), ref)),
+          );
+        contract = await contracts.get(refKey)!;
+      }
+      const outcome = await decide(ctx.db, prepared, model, {
+        mentionId: found ? Number(found.id) : null,
+        contract,
+        party: null,
+        contractAwaited: prepared.input.contract !== undefined && contract === null,
+        reads,
+      });
+      pending.push({ index, prepared, key, outcome, stored: found !== undefined });
     }
-    const ref = prepared.input.contract;
-    let contract: ContractContext | null = null;
-    if (ref) {
-      const refKey = JSON.stringify([ref.source, ref.externalId]);
-      if (!contracts.has(refKey))
-        contracts.set(
-          refKey,
-          ctx.db.transaction().execute((trx) => contractContextFor(new ChangeSet(trx, ctx.derived), ref)),
-        );
-      contract = await contracts.get(refKey)!;
-    }
-    const outcome = await decide(ctx.db, prepared, model, {
-      mentionId: found ? Number(found.id) : null,
-      contract,
-      party: null,
-      contractAwaited: prepared.input.contract !== undefined && contract === null,
-      reads,
-    });
-    pending.push({ index, prepared, key, outcome, stored: found !== undefined });
-  }
+  });
 
   // Mentions whose outcome does not depend on the rest of the batch.
   const final = new Set(
@@ -151,7 +168,7 @@ export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[],
     ),
   );
   const matching = pending.filter((p) => !final.has(p));
-  const groups = await clusterBatch(ctx, matching, model, reads, options.comparePairs);
+  const groups = await timed(stages, 'cluster', () => clusterBatch(ctx, matching, model, reads, options.comparePairs));
   const plan: Group[] = [...final].map((p) => ({ members: [p], counterpartyId: null }));
   for (const g of groups) plan.push(g);
   plan.sort((a, b) => (a.members[0]!.key < b.members[0]!.key ? -1 : a.members[0]!.key > b.members[0]!.key ? 1 : 0));
@@ -166,46 +183,49 @@ export async function resolveBatch(ctx: RegisterContext, inputs: MentionInput[],
       chunk.push(plan[start++]!);
     }
     let attempt = 0;
-    const written = await write(ctx, async (cs) => {
-      // The first attempt trusts the read phase about which mentions are not stored yet; if another request
-      // stored one meanwhile, its INSERT fails on the unique key, and the retry re-reads all.
-      const recheck = attempt++ > 0;
-      // Every neighbourhood lock of the chunk in one statement, in one sorted order, before any row lock.
-      await lockNameNeighbourhoods(
-        cs,
-        chunk.flatMap((g) => g.members.map((m) => m.prepared)),
-      );
-      const members = chunk.flatMap((g) => g.members);
-      const found = storedIds(
-        await mentionsByKeys(
-          cs.trx,
-          members.filter((m) => recheck || m.stored).map((m) => m.prepared.input),
-        ),
-      );
-      const plans = chunk.map((group) => planGroup(group, final.has(group.members[0]!), model.linkAt));
-      // Every counterparty the chunk writes, in one sorted statement (then the survivors of merged ones), and
-      // the names of those it links to; then the ids of the rows it adds, drawn in one statement.
-      const linkTargets = plans.flatMap((p) => p.filter((o) => o.status === 'linked' && o.counterpartyId !== undefined).map((o) => o.counterpartyId!));
-      const targets = plans.flatMap((p) =>
-        p.filter((o) => (o.status === 'linked' || o.status === 'review') && o.counterpartyId !== undefined).map((o) => o.counterpartyId!),
-      );
-      await cs.lock('counterparty', [...targets, ...[...found.values()].flatMap((f) => (f.counterpartyId === null ? [] : [f.counterpartyId]))]);
-      await lockActive(cs, targets);
-      await cs.loadNames(linkTargets.map((id) => survivorFor(cs, id)));
-      const outcomes = plans.flat();
-      await cs.reserveIds({
-        counterparty: outcomes.filter((o) => o.status === 'new').length,
-        mention: members.filter((m) => !found.has(m.key)).length,
-        review_item: outcomes.filter((o) => o.status === 'review').length,
-      });
-      cs.startBuffering();
-      const contracts = new Map<string, Promise<ContractContext | null>>();
-      const out: ResolveResult[][] = [];
-      for (const [g, group] of chunk.entries()) out.push(await writeGroup(ctx, cs, group, plans[g]!, who, found, contracts, model.linkAt));
-      await cs.flush();
-      // Events written from the buffer got their ids at the flush.
-      return out.map((results) => results.map((r) => (r.eventId === null ? r : { ...r, eventId: cs.realId(r.eventId) })));
-    });
+    const written = await timed(stages, 'write', () =>
+      write(ctx, async (cs) => {
+        // The first attempt trusts the read phase about which mentions are not stored yet; if another request
+        // stored one meanwhile, its INSERT fails on the unique key, and the retry re-reads all.
+        const recheck = attempt++ > 0;
+        // Every neighbourhood lock of the chunk in one statement, in one sorted order, before any row lock.
+        await lockNameNeighbourhoods(
+          cs,
+          chunk.flatMap((g) => g.members.map((m) => m.prepared)),
+        );
+        const members = chunk.flatMap((g) => g.members);
+        const found = storedIds(
+          await mentionsByKeys(
+            cs.trx,
+            members.filter((m) => recheck || m.stored).map((m) => m.prepared.input),
+          ),
+        );
+        const plans = chunk.map((group) => planGroup(group, final.has(group.members[0]!), model.linkAt));
+        // Every counterparty the chunk writes, in one sorted statement (then the survivors of merged ones), and
+        // the names of those it links to; then the ids of the rows it adds, drawn in one statement.
+        const linkTargets = plans.flatMap((p) => p.filter((o) => o.status === 'linked' && o.counterpartyId !== undefined).map((o) => o.counterpartyId!));
+        const targets = plans.flatMap((p) =>
+          p.filter((o) => (o.status === 'linked' || o.status === 'review') && o.counterpartyId !== undefined).map((o) => o.counterpartyId!),
+        );
+        await cs.lock('counterparty', [...targets, ...[...found.values()].flatMap((f) => (f.counterpartyId === null ? [] : [f.counterpartyId]))]);
+        await lockActive(cs, targets);
+        await cs.loadNames(linkTargets.map((id) => survivorFor(cs, id)));
+        const outcomes = plans.flat();
+        await cs.reserveIds({
+          counterparty: outcomes.filter((o) => o.status === 'new').length,
+          mention: members.filter((m) => !found.has(m.key)).length,
+          review_item: outcomes.filter((o) => o.status === 'review').length,
+          explanation: members.length,
+        });
+        cs.startBuffering();
+        const contracts = new Map<string, Promise<ContractContext | null>>();
+        const out: ResolveResult[][] = [];
+        for (const [g, group] of chunk.entries()) out.push(await writeGroup(ctx, cs, group, plans[g]!, who, found, contracts, model.linkAt));
+        await timed(stages, 'flush', () => cs.flush());
+        // Events written from the buffer got their ids at the flush.
+        return out.map((results) => results.map((r) => (r.eventId === null ? r : { ...r, eventId: cs.realId(r.eventId) })));
+      }),
+    );
     chunk.forEach((group, g) => {
       for (const [i, member] of group.members.entries()) results[member.index] = written[g]![i]!;
     });

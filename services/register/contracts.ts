@@ -14,10 +14,10 @@ import { write } from './transaction.ts';
 import { detachMention } from './upkeep.ts';
 import { prepareMention } from './resolve/prepare.ts';
 import { resolveWithin, type ResolveResult } from './resolve/resolve-mention.ts';
-import { amendmentsWithUnboundMentions, mentionsAwaitingContract } from '../../db/queries/mentions.ts';
+import { amendmentsWithUnboundMentions, counterpartyOfMention, mentionRow, mentionsAwaitingContract } from '../../db/queries/mentions.ts';
 import { earlierContractOf } from './earlier-contract.ts';
 import { listOwnEntities } from '../../db/queries/own-entities.ts';
-import { getContract, type ContractView } from '../../db/queries/contracts.ts';
+import { contractHashOf, definedTermIdsOf, getContract, partiesFromPosition, partyOfMention, type ContractView } from '../../db/queries/contracts.ts';
 import { analyse } from './matching/analysis.ts';
 import { canonicalRow } from './state/tables.ts';
 import type { MentionInput } from '../../resolvers/vocabulary.ts';
@@ -70,12 +70,9 @@ function partyMention(input: ContractInput, parsed: ParsedContract, index: numbe
 }
 
 async function replaceTerms(cs: ChangeSet, contractId: number, parsed: ParsedContract): Promise<void> {
-  const old = await cs.trx.selectFrom('defined_term').select('id').where('contract_id', '=', contractId).orderBy('id').execute();
-  await cs.lock(
-    'defined_term',
-    old.map((t) => Number(t.id)),
-  );
-  for (const t of old) await cs.delete('defined_term', Number(t.id));
+  const old = await definedTermIdsOf(cs.trx, contractId);
+  await cs.lock('defined_term', old);
+  for (const t of old) await cs.delete('defined_term', t);
   const seen = new Set<string>();
   const add = async (term: string, partyIndex: number | null, collective: boolean) => {
     const normalised = analyse(term).normalised || term.toLowerCase();
@@ -89,17 +86,12 @@ async function replaceTerms(cs: ChangeSet, contractId: number, parsed: ParsedCon
 
 /** A changed contract with fewer parties: the party mentions beyond the new count are withdrawn (not deleted). */
 async function withdrawVanishedParties(cs: ChangeSet, contractId: number, count: number, who: ActorInput, at: Date): Promise<void> {
-  const gone = await cs.trx
-    .selectFrom('contract_party')
-    .select(['id', 'mention_id'])
-    .where('contract_id', '=', contractId)
-    .where('position', '>=', count)
-    .orderBy('position')
-    .execute();
+  const gone = await partiesFromPosition(cs.trx, contractId, count);
   for (const party of gone) {
-    const peek = await cs.trx.selectFrom('mention').select('counterparty_id').where('id', '=', party.mention_id).executeTakeFirstOrThrow();
-    if (peek.counterparty_id !== null) await cs.lock('counterparty', [Number(peek.counterparty_id)]);
-    const mention = await cs.require('mention', Number(party.mention_id));
+    const peek = await counterpartyOfMention(cs.trx, party.mentionId);
+    if (!peek) throw new RegisterError('CONFLICT', `mention ${party.mentionId} of contract ${contractId} vanished`);
+    if (peek.counterpartyId !== null) await cs.lock('counterparty', [peek.counterpartyId]);
+    const mention = await cs.require('mention', party.mentionId);
     if (mention.status === 'withdrawn') continue;
     await detachMention(cs, mention, at, 'withdrawn');
     await cs.update('mention', mention.id as number, { status: 'withdrawn', own_entity_id: null, confirmed_by: who.actor, updated_at: at.toISOString() });
@@ -116,7 +108,8 @@ async function withdrawVanishedParties(cs: ChangeSet, contractId: number, count:
 
 /** Resolves a stored mention again in its own contract (a contract it waited for has arrived); null when a person settled it. */
 async function resolveAgain(ctx: RegisterContext, cs: ChangeSet, mentionId: number, who: ActorInput): Promise<ResolveResult | null> {
-  const row = await cs.trx.selectFrom('mention').selectAll().where('id', '=', mentionId).executeTakeFirstOrThrow();
+  const row = await mentionRow(cs.trx, mentionId);
+  if (!row) throw new RegisterError('CONFLICT', `mention ${mentionId} vanished while it was resolved again`);
   const m = canonicalRow('mention', row);
   if (m.status === 'withdrawn' || m.status === 'set_aside' || m.confirmed_by || !m.contract_source || !m.contract_external_id) return null;
   const again = prepareMention(
@@ -162,20 +155,15 @@ export async function storeContract(
   return write(ctx, async (cs) => {
     const at = ctx.now();
     const iso = at.toISOString();
-    const existing = await cs.trx
-      .selectFrom('contract')
-      .select(['id', 'content_hash'])
-      .where('source', '=', input.source)
-      .where('external_id', '=', input.externalId)
-      .executeTakeFirst();
-    if (existing && existing.content_hash === contentHash) {
-      const contract = (await getContract(cs.trx, Number(existing.id)))!;
+    const existing = await contractHashOf(cs.trx, input.source, input.externalId);
+    if (existing && existing.contentHash === contentHash) {
+      const contract = (await getContract(cs.trx, existing.id))!;
       return { contractId: contract.id, alreadyStored: true, parties: [], reresolved: [], contract };
     }
     let contractId: number;
     const values = { title: input.title ?? null, text: input.text, content_hash: contentHash, parsed, status: 'active', updated_at: iso };
     if (existing) {
-      contractId = Number(existing.id);
+      contractId = existing.id;
       await cs.require('contract', contractId);
       await cs.update('contract', contractId, values);
     } else {
@@ -195,11 +183,11 @@ export async function storeContract(
     for (const [index, p] of prepared.entries()) {
       const party = parsed.parties[index]!;
       const keepParty = async (mentionId: number) => {
-        const link = await cs.trx.selectFrom('contract_party').select('id').where('mention_id', '=', mentionId).executeTakeFirst();
+        const link = await partyOfMention(cs.trx, mentionId);
         const row = { contract_id: contractId, mention_id: mentionId, position: index, role: party.role, terms: party.terms };
         if (link) {
-          await cs.require('contract_party', Number(link.id));
-          await cs.update('contract_party', Number(link.id), row);
+          await cs.require('contract_party', link.id);
+          await cs.update('contract_party', link.id, row);
         } else {
           await cs.insert('contract_party', row);
         }

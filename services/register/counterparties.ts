@@ -22,6 +22,7 @@ import {
 import type { ChangeSet } from './state/change-set.ts';
 import { write } from './transaction.ts';
 import * as q from '../../db/queries/counterparties.ts';
+import { countNames } from '../../db/queries/names.ts';
 
 export interface ChangeResult {
   counterpartyId: number;
@@ -153,12 +154,7 @@ export async function removeName(
     checkVersion(cs, await cs.require('counterparty', id), who.expectedVersion);
     const row = await cs.get('counterparty_name', nameId);
     if (!row || row.counterparty_id !== id) throw notFound(`name of counterparty ${id}:`, nameId);
-    const count = await cs.trx
-      .selectFrom('counterparty_name')
-      .select((eb) => eb.fn.countAll<string>().as('n'))
-      .where('counterparty_id', '=', id)
-      .executeTakeFirstOrThrow();
-    if (Number(count.n) <= 1) throw new RegisterError('CONFLICT', `name ${nameId} is the last name of counterparty ${id}`);
+    if ((await countNames(cs.trx, id)) <= 1) throw new RegisterError('CONFLICT', `name ${nameId} is the last name of counterparty ${id}`);
     await cs.delete('counterparty_name', nameId);
     const cp = await cs.require('counterparty', id);
     // Removing the name a person locked as canonical releases the lock: the rules choose again.

@@ -4,12 +4,13 @@
  */
 import type { ActorInput, RegisterContext } from './context.ts';
 import { RegisterError, invalid, notFound } from './errors.ts';
-import { commitEvent } from './history/commit.ts';
+import { commitRequested } from './history/commit.ts';
 import { lockActive, survivorFor, touchCounterparty } from './records.ts';
 import type { ChangeSet } from './state/change-set.ts';
 import { write } from './transaction.ts';
 import { assertNoCannotLink } from './assert-no-cannot-link.ts';
 import { mergeInto } from './merge-into.ts';
+import { leisOf } from '../../db/queries/identifiers.ts';
 
 export interface MergeInput {
   /** Counterparty ids to merge (two or more; merged ids are followed to their survivors). */
@@ -31,12 +32,7 @@ export interface MergeResult {
 
 /** Refuses two different LEIs: an LEI names exactly one legal entity (ISO 17442). */
 async function assertCompatibleIdentifiers(cs: ChangeSet, ids: number[]): Promise<void> {
-  const rows = await cs.trx
-    .selectFrom('counterparty_identifier')
-    .select(['counterparty_id', 'value'])
-    .where('counterparty_id', 'in', ids)
-    .where('scheme', '=', 'lei')
-    .execute();
+  const rows = await leisOf(cs.trx, ids);
   const values = new Set(rows.map((r) => r.value));
   if (values.size > 1) {
     throw new RegisterError('CONFLICT', `the counterparties hold different LEIs (${[...values].join(', ')}): they are different legal entities`, {
@@ -81,14 +77,7 @@ export async function mergeCounterparties(ctx: RegisterContext, input: MergeInpu
     const losers = ids.filter((id) => id !== survivorId);
     for (const loser of losers) await mergeInto(cs, survivorId, loser, at);
     const after = await touchCounterparty(cs, survivorId, at);
-    const eventId = await commitEvent(cs, {
-      type: 'merged',
-      actor: who.actor,
-      at,
-      reason: input.reason ?? who.reason,
-      requestId: who.requestId,
-      details: { survivorId, mergedIds: losers },
-    });
+    const eventId = await commitRequested(cs, 'merged', who, at, { survivorId, mergedIds: losers }, input.reason ?? who.reason);
     return { eventId, survivorId, mergedIds: losers, version: after.version as number };
   });
 }

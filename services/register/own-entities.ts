@@ -9,7 +9,7 @@ import { commitEvent } from './history/commit.ts';
 import { checkName, normaliseIdentifierOrThrow, type IdentifierInput } from './records.ts';
 import { write } from './transaction.ts';
 import { analyse } from './matching/analysis.ts';
-import { listOwnEntities, type OwnEntityView } from '../../db/queries/own-entities.ts';
+import { findOwnEntityId, listOwnEntities, type OwnEntityView } from '../../db/queries/own-entities.ts';
 
 export interface OwnEntityInput {
   name: string;
@@ -33,8 +33,8 @@ export async function addOwnEntity(
   const normalised = analyse(name, input.country).normalised;
   return write(ctx, async (cs) => {
     const at = ctx.now();
-    const existing = await cs.trx.selectFrom('own_entity').select('id').where('normalised', '=', normalised).where('removed_at', 'is', null).executeTakeFirst();
-    if (existing) return { eventId: null, ownEntityId: Number(existing.id), created: false };
+    const existing = await findOwnEntityId(cs.trx, normalised);
+    if (existing !== undefined) return { eventId: null, ownEntityId: existing, created: false };
     const row = await cs.insert('own_entity', {
       name,
       normalised,

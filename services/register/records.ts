@@ -12,6 +12,7 @@ import { RegisterError, invalid, notFound } from './errors.ts';
 import { analyse } from './matching/analysis.ts';
 import { countNames, findNameId } from '../../db/queries/names.ts';
 import { holdersOf } from '../../db/queries/identifiers.ts';
+import { mergeStep, nameChoicesOf } from '../../db/queries/canonical-name-reads.ts';
 
 export interface NameSighting {
   name: string;
@@ -157,13 +158,7 @@ export async function touchCounterparty(cs: ChangeSet, counterpartyId: number, a
   const cp = await cs.require('counterparty', counterpartyId);
   const patch: Row = { version: (cp.version as number) + 1, updated_at: at.toISOString() };
   if (cp.status === 'active' && !cp.name_locked_by) {
-    const names =
-      (await cs.namesOf(counterpartyId)) ??
-      (await cs.trx
-        .selectFrom('counterparty_name')
-        .select(['id', 'name', 'kind', 'legal_form', 'seen_count', 'confirmed_by'])
-        .where('counterparty_id', '=', counterpartyId)
-        .execute());
+    const names = (await cs.namesOf(counterpartyId)) ?? (await nameChoicesOf(cs.trx, counterpartyId));
     const chosen = chooseCanonicalName(names.map((n) => ({ ...n, id: Number(n.id) }) as NameCandidate));
     if (chosen) patch.canonical_name = chosen.name;
   }
@@ -175,10 +170,10 @@ export async function survivorOf(db: Db, counterpartyId: number): Promise<{ id: 
   let id = counterpartyId;
   let merged = false;
   for (let hops = 0; hops < 1000; hops++) {
-    const row = await db.selectFrom('counterparty').select(['id', 'status', 'merged_into']).where('id', '=', id).executeTakeFirst();
+    const row = await mergeStep(db, id);
     if (!row) return hops === 0 ? undefined : { id, merged };
-    if (row.status === 'active' || row.merged_into === null) return { id, merged };
-    id = Number(row.merged_into);
+    if (row.status === 'active' || row.mergedInto === null) return { id, merged };
+    id = row.mergedInto;
     merged = true;
   }
   throw new Error(`counterparty ${counterpartyId}: merge chain longer than 1000 links (a cycle?)`);

@@ -6,12 +6,12 @@ import { RELATION_TYPES, type RelationType } from '../../resolvers/vocabulary.ts
 import type { RelationOrigin } from '../../db/types.ts';
 import type { ActorInput, RegisterContext } from './context.ts';
 import { RegisterError, invalid, notFound } from './errors.ts';
-import { commitEvent } from './history/commit.ts';
+import { commitRequested } from './history/commit.ts';
 import { lockActive, survivorFor, touchCounterparty } from './records.ts';
 import type { ChangeSet } from './state/change-set.ts';
 import type { Row } from './state/tables.ts';
 import { write } from './transaction.ts';
-import { findRelation } from '../../db/queries/relations.ts';
+import { findRelation, relationEnds } from '../../db/queries/relations.ts';
 
 export interface RelationInput {
   fromId: number;
@@ -66,13 +66,12 @@ export async function addRelation(ctx: RegisterContext, input: RelationInput, wh
     }
     await touchCounterparty(cs, from, at);
     await touchCounterparty(cs, to, at);
-    const eventId = await commitEvent(cs, {
-      type: 'relation_added',
-      actor: who.actor,
-      at,
-      reason: who.reason,
-      requestId: who.requestId,
-      details: { relationId: row.id, fromId: from, toId: to, relation: input.type, since: input.since ?? null },
+    const eventId = await commitRequested(cs, 'relation_added', who, at, {
+      relationId: row.id,
+      fromId: from,
+      toId: to,
+      relation: input.type,
+      since: input.since ?? null,
     });
     return { eventId, relationId: row.id as number };
   });
@@ -81,21 +80,19 @@ export async function addRelation(ctx: RegisterContext, input: RelationInput, wh
 export async function removeRelation(ctx: RegisterContext, relationId: number, who: ActorInput): Promise<{ eventId: number }> {
   return write(ctx, async (cs) => {
     const at = ctx.now();
-    const peek = await cs.trx.selectFrom('counterparty_relation').selectAll().where('id', '=', relationId).executeTakeFirst();
+    const peek = await relationEnds(cs.trx, relationId);
     if (!peek) throw notFound('relation', relationId);
-    await cs.lock('counterparty', [Number(peek.from_counterparty_id), Number(peek.to_counterparty_id)]);
+    await cs.lock('counterparty', [peek.from, peek.to]);
     const row = await cs.get('counterparty_relation', relationId);
     if (!row) throw new RegisterError('CONFLICT', `relation ${relationId} was removed meanwhile`);
     await cs.delete('counterparty_relation', relationId);
     await touchCounterparty(cs, row.from_counterparty_id as number, at);
     await touchCounterparty(cs, row.to_counterparty_id as number, at);
-    const eventId = await commitEvent(cs, {
-      type: 'relation_removed',
-      actor: who.actor,
-      at,
-      reason: who.reason,
-      requestId: who.requestId,
-      details: { relationId, fromId: row.from_counterparty_id, toId: row.to_counterparty_id, relation: row.type },
+    const eventId = await commitRequested(cs, 'relation_removed', who, at, {
+      relationId,
+      fromId: row.from_counterparty_id,
+      toId: row.to_counterparty_id,
+      relation: row.type,
     });
     return { eventId };
   });

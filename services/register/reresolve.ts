@@ -5,7 +5,8 @@
  */
 import type { MentionInput } from '../../resolvers/vocabulary.ts';
 import type { ActorInput, RegisterContext } from './context.ts';
-import { unconfirmedMentionIds } from '../../db/queries/mentions.ts';
+import { mentionRow, unconfirmedMentionIds } from '../../db/queries/mentions.ts';
+import { partyOfMention } from '../../db/queries/contracts.ts';
 import { canonicalRow } from './state/tables.ts';
 import { write } from './transaction.ts';
 import { prepareMention } from './resolve/prepare.ts';
@@ -26,7 +27,7 @@ class Unchanged extends Error {}
 export async function reresolveOne(ctx: RegisterContext, mentionId: number, who: ActorInput): Promise<{ changed: boolean; status: string }> {
   try {
     return await write(ctx, async (cs) => {
-      const row = await cs.trx.selectFrom('mention').selectAll().where('id', '=', mentionId).executeTakeFirst();
+      const row = await mentionRow(cs.trx, mentionId);
       if (!row) return { changed: false, status: 'missing' };
       const m = canonicalRow('mention', row);
       if (m.confirmed_by || !['linked', 'review', 'new', 'unbound_term'].includes(m.status as string)) {
@@ -45,11 +46,11 @@ export async function reresolveOne(ctx: RegisterContext, mentionId: number, who:
         },
         { lenientIdentifiers: true },
       );
-      const party = await cs.trx.selectFrom('contract_party').select(['contract_id', 'position']).where('mention_id', '=', mentionId).executeTakeFirst();
+      const party = await partyOfMention(cs.trx, mentionId);
       const result = await resolveWithin(ctx, cs, prepared, who, {
         force: true,
         cause: 'reresolve',
-        ...(party ? { party: { contractId: Number(party.contract_id), position: party.position, ownEntity: false } } : {}),
+        ...(party ? { party: { contractId: party.contractId, position: party.position, ownEntity: false } } : {}),
         beforeCommit: async () => {
           const after = await cs.require('mention', mentionId);
           const same = after.status === m.status && after.counterparty_id === m.counterparty_id && after.own_entity_id === m.own_entity_id;

@@ -15,6 +15,7 @@
  *
  * Every "same" or "different" decision is also kept as a labelled pair (labelled_pair) for the scorer to learn from.
  */
+import { evidenceOf } from './evidence.ts';
 import { declaredNamesOfPartyMention } from '../../db/queries/contracts.ts';
 import type { ActorInput, RegisterContext } from './context.ts';
 import { RegisterError, invalid, notFound } from './errors.ts';
@@ -28,7 +29,7 @@ import type { Row } from './state/tables.ts';
 import { write } from './transaction.ts';
 import { analyse } from './matching/analysis.ts';
 import { getSummaries, type CounterpartySummary } from '../../db/queries/counterparties.ts';
-import { listReviewItemsWhere, type ReviewFilter, type ReviewItemView } from '../../db/queries/review.ts';
+import { getReviewItem, listReviewItemsWhere, type ReviewFilter, type ReviewItemView } from '../../db/queries/review.ts';
 import { getMention, type MentionView } from '../../db/queries/mentions.ts';
 import type { Identifier, NameKind } from '../../resolvers/vocabulary.ts';
 
@@ -110,7 +111,7 @@ function confirmedNameKind(mention: Row): NameKind {
 }
 
 async function linkMentionByPerson(cs: ChangeSet, mention: Row, counterpartyId: number, actor: string, at: Date, status: 'linked' | 'new'): Promise<void> {
-  const recordedName = { name: mention.text as string, kind: confirmedNameKind(mention) };
+  const recordedName = { name: mention.text as string, kind: confirmedNameKind({ ...mention, evidence: await evidenceOf(cs, mention) }) };
   await addNameSighting(cs, counterpartyId, { ...recordedName, source: mention.source as string, mentionId: mention.id as number }, at);
   // A contract party confirmed by a person brings the names its contract declares for it ("formerly X"), as a
   // party linked automatically does (resolve/apply.ts), kept in the evidence so that moving it takes them away.
@@ -149,11 +150,11 @@ export async function decideReview(ctx: RegisterContext, reviewItemId: number, i
   return write(ctx, async (cs) => {
     const at = ctx.now();
     const reason = input.reason ?? who.reason ?? null;
-    const peek = await cs.trx.selectFrom('review_item').selectAll().where('id', '=', reviewItemId).executeTakeFirst();
+    const peek = await getReviewItem(cs.trx, reviewItemId);
     if (!peek) throw notFound('review item', reviewItemId);
     const sides = [
-      Number(peek.right_counterparty_id),
-      ...(peek.left_counterparty_id === null ? [] : [Number(peek.left_counterparty_id)]),
+      peek.rightCounterpartyId,
+      ...(peek.leftCounterpartyId === null ? [] : [peek.leftCounterpartyId]),
       ...(input.joinCounterpartyId === undefined ? [] : [input.joinCounterpartyId]),
     ];
     await lockActive(cs, sides);
@@ -249,7 +250,7 @@ export async function decideReview(ctx: RegisterContext, reviewItemId: number, i
         left_text: leftText,
         right_text: rightCp.canonical_name as string,
         label: input.decision,
-        features: (item.evidence as Record<string, unknown>) ?? {},
+        features: await evidenceOf(cs, item),
         decided_by: who.actor,
         created_at: at.toISOString(),
       });

@@ -4,13 +4,14 @@
  */
 import type { ActorInput, RegisterContext } from './context.ts';
 import { RegisterError, invalid, notFound } from './errors.ts';
-import { commitEvent } from './history/commit.ts';
+import { commitRequested } from './history/commit.ts';
 import { addNameSighting, createCounterpartyRow, lockActive, removeNameSighting, survivorFor, touchCounterparty } from './records.ts';
 import type { ChangeSet } from './state/change-set.ts';
 import { write } from './transaction.ts';
 import { recordedNameOf, recordedNamesOf } from './mention-names.ts';
 import { cannotLinksOf } from '../../db/queries/review.ts';
 import { survivorsOf } from '../../db/queries/counterparties.ts';
+import { anyNameId } from '../../db/queries/names.ts';
 
 export interface SplitInput {
   mentionIds: number[];
@@ -74,8 +75,7 @@ export async function splitCounterparty(ctx: RegisterContext, counterpartyId: nu
       });
     }
     if (created) {
-      const names = await cs.trx.selectFrom('counterparty_name').select('id').where('counterparty_id', '=', targetId).executeTakeFirst();
-      if (!names) {
+      if ((await anyNameId(cs.trx, targetId)) === undefined) {
         const first = mentions[0]!;
         await addNameSighting(
           cs,
@@ -87,14 +87,7 @@ export async function splitCounterparty(ctx: RegisterContext, counterpartyId: nu
     }
     await touchCounterparty(cs, sourceId, at);
     await touchCounterparty(cs, targetId, at);
-    const eventId = await commitEvent(cs, {
-      type: 'split',
-      actor: who.actor,
-      at,
-      reason: input.reason ?? who.reason,
-      requestId: who.requestId,
-      details: { sourceId, targetId, created, mentionIds },
-    });
+    const eventId = await commitRequested(cs, 'split', who, at, { sourceId, targetId, created, mentionIds }, input.reason ?? who.reason);
     return { eventId, sourceId, targetId, created, movedMentionIds: mentionIds };
   });
 }

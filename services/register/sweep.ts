@@ -7,10 +7,10 @@
  *    do not agree) → `affiliate` item (a proposed affiliate_of; affiliates share such details);
  *  - pairs under a cannot-link, and pairs that already have an item (open or decided), are skipped.
  */
-import { sql } from 'kysely';
 import type { ActorInput, RegisterContext } from './context.ts';
-import { activeIdsAfter, survivorsOf } from '../../db/queries/counterparties.ts';
-import { cannotLinksOf } from '../../db/queries/review.ts';
+import { activeIdsAfter, survivorsOf, sweepFacts } from '../../db/queries/counterparties.ts';
+import { identifiersAsInput } from '../../db/queries/identifiers.ts';
+import { cannotLinksOf, pairHasItem } from '../../db/queries/review.ts';
 import { commitEvent } from './history/commit.ts';
 import { analyse } from './matching/analysis.ts';
 import { currentModel } from './matching/model.ts';
@@ -62,16 +62,10 @@ export async function sweep(
     if (ids.length === 0) break;
     for (const id of ids) {
       summary.scanned++;
-      const cp = await ctx.db.selectFrom('counterparty').select(['canonical_name', 'jurisdiction', 'status']).where('id', '=', id).executeTakeFirst();
+      const cp = await sweepFacts(ctx.db, id);
       if (!cp || cp.status !== 'active') continue;
-      const identifiers = (
-        await ctx.db.selectFrom('counterparty_identifier').select(['scheme', 'value', 'label']).where('counterparty_id', '=', id).execute()
-      ).map((i) => ({ scheme: i.scheme, value: i.value, ...(i.label ? { label: i.label } : {}) }) as Identifier);
-      const candidates = await scoredCandidates(
-        ctx.db,
-        { analysis: analyse(cp.canonical_name, cp.jurisdiction), country: cp.jurisdiction, identifiers },
-        model,
-      );
+      const identifiers: Identifier[] = await identifiersAsInput(ctx.db, id);
+      const candidates = await scoredCandidates(ctx.db, { analysis: analyse(cp.canonicalName, cp.jurisdiction), country: cp.jurisdiction, identifiers }, model);
       const links = await cannotLinksOf(ctx.db, [id]);
       const survivors = await survivorsOf(
         ctx.db,
@@ -108,11 +102,7 @@ async function fileItem(ctx: RegisterContext, who: ActorInput, left: number, c: 
   return write(ctx, async (cs) => {
     const rows = await cs.lock('counterparty', [left, c.counterpartyId]);
     if (rows.length !== 2 || rows.some((r) => r.status !== 'active')) return null;
-    const existing = await sql<{ id: string | number }>`
-      SELECT id FROM review_item WHERE mention_id IS NULL AND status IN ('open', 'decided')
-        AND ((left_counterparty_id = ${left} AND right_counterparty_id = ${c.counterpartyId})
-          OR (left_counterparty_id = ${c.counterpartyId} AND right_counterparty_id = ${left})) LIMIT 1`.execute(cs.trx);
-    if (existing.rows.length > 0) return null;
+    if (await pairHasItem(cs.trx, left, c.counterpartyId)) return null;
     const at = ctx.now();
     const item = await cs.insert('review_item', {
       kind,

@@ -10,7 +10,9 @@ import type { ChangeSet } from './state/change-set.ts';
 import type { Row } from './state/tables.ts';
 import { write } from './transaction.ts';
 import { recordedNamesOf } from './mention-names.ts';
-import { findMentionBySourceId } from '../../db/queries/mentions.ts';
+import { counterpartiesOfMentions, counterpartyOfMention, findMentionBySourceId } from '../../db/queries/mentions.ts';
+import { partyMentionIdsOf } from '../../db/queries/contracts.ts';
+import { openItemsOfMention } from '../../db/queries/review.ts';
 
 export interface MentionChangeResult {
   eventId: number | null;
@@ -36,9 +38,9 @@ async function lockMention(cs: ChangeSet, mentionId: number): Promise<Row> {
   // Lock order everywhere: counterparties before mentions. Read the mention's counterparty, lock it, then the
   // mention; if the mention moved meanwhile, go round again.
   for (let attempt = 0; attempt < 10; attempt++) {
-    const peek = await cs.trx.selectFrom('mention').select(['counterparty_id']).where('id', '=', mentionId).executeTakeFirst();
+    const peek = await counterpartyOfMention(cs.trx, mentionId);
     if (!peek) throw notFound('mention', mentionId);
-    const cpId = peek.counterparty_id === null ? null : Number(peek.counterparty_id);
+    const cpId = peek.counterpartyId;
     if (cpId !== null) await cs.lock('counterparty', [cpId]);
     const mention = await cs.require('mention', mentionId);
     if (mention.counterparty_id === cpId) return mention;
@@ -96,10 +98,9 @@ async function changeMention(
 }
 
 export async function closeOpenItemsOfMention(cs: ChangeSet, mentionId: number): Promise<void> {
-  const open = await cs.trx.selectFrom('review_item').select('id').where('mention_id', '=', mentionId).where('status', '=', 'open').execute();
-  for (const item of open) {
-    await cs.require('review_item', Number(item.id));
-    await cs.update('review_item', Number(item.id), { status: 'obsolete' });
+  for (const item of await openItemsOfMention(cs.trx, mentionId)) {
+    await cs.require('review_item', item);
+    await cs.update('review_item', item, { status: 'obsolete' });
   }
 }
 
@@ -135,15 +136,8 @@ export async function withdrawContract(
     const contract = await cs.get('contract', contractId);
     if (!contract) throw notFound('contract', contractId);
     if (contract.status === 'withdrawn') return { eventId: null, contractId, withdrawnMentionIds: [] };
-    const parties = await cs.trx.selectFrom('contract_party').select('mention_id').where('contract_id', '=', contractId).execute();
-    const ids = parties.map((p) => Number(p.mention_id)).sort((a, b) => a - b);
-    const peek = ids.length
-      ? await cs.trx.selectFrom('mention').select('counterparty_id').where('id', 'in', ids).where('counterparty_id', 'is not', null).execute()
-      : [];
-    await cs.lock(
-      'counterparty',
-      peek.map((p) => Number(p.counterparty_id)),
-    );
+    const ids = (await partyMentionIdsOf(cs.trx, contractId)).sort((a, b) => a - b);
+    await cs.lock('counterparty', await counterpartiesOfMentions(cs.trx, ids));
     const mentions = await cs.lock('mention', ids);
     for (const mention of mentions) {
       if (mention.status === 'withdrawn') continue;

@@ -8,9 +8,7 @@ import { execFileSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 
-const ALLOWED: { prefix: string; why: string }[] = [
-  { prefix: 'services/register/', why: 'moving in issue 21 item 1 (the register write path and its SQL go to db/)' },
-];
+const ALLOWED: { prefix: string; why: string }[] = [];
 
 /** What counts as SQL in a service file (the query builder's entry points, the template tag, raw SQL text). */
 const SQL_PATTERNS: RegExp[] = [
@@ -57,5 +55,14 @@ describe('SQL lives in db/', () => {
     const files = trackedServiceFiles();
     const stale = ALLOWED.filter((a) => !files.some((f) => f.startsWith(a.prefix) && sqlLines(f, readFileSync(f, 'utf8')).length > 0));
     expect(stale.map((a) => a.prefix)).toEqual([]);
+  });
+
+  it('has no SQL in the register write path already moved to db/ (state, history, resolve, matching, records, batch)', () => {
+    const moved = ['services/register/state/', 'services/register/history/', 'services/register/resolve/', 'services/register/matching/'];
+    const files = ['services/register/records.ts', 'services/register/batch.ts', 'services/register/batch-cluster.ts'];
+    const offending = trackedServiceFiles()
+      .filter((f) => moved.some((m) => f.startsWith(m)) || files.includes(f))
+      .flatMap((f) => sqlLines(f, readFileSync(f, 'utf8')));
+    expect(offending, 'move these statements into a db/queries/<concern>.ts function and call it').toEqual([]);
   });
 });

@@ -32,7 +32,7 @@ const IBAN = 'GB82WEST12345698765432';
 const PHONE = '+442079460123';
 const ADDRESS = '14 Quillet Lane, Marrowby';
 
-/** Everything stored, as text: every state table, the history, idempotency records and jobs. */
+/** Everything stored, as text: every state table, the history and its explanations, idempotency records and jobs. */
 async function everything(db: Kysely<Database>): Promise<string> {
   const parts: string[] = [];
   for (const table of [
@@ -49,6 +49,7 @@ async function everything(db: Kysely<Database>): Promise<string> {
     'cannot_link',
     'counterparty_relation',
     'history_event',
+    'explanation',
     'idempotency_record',
     'job',
     'job_chunk',

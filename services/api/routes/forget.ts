@@ -2,7 +2,9 @@
 import { forgetCounterparty } from '../../forget/forget.ts';
 import { problemResponses } from '../errors.ts';
 import type { RoutePlugin } from '../types.ts';
-import { ID_PARAM, REASON, actorOf, v1Scope } from './v1/common.ts';
+import { ID_PARAM, REASON } from './v1/schemas.ts';
+import { actorOf } from './v1/actor-of.ts';
+import { v1Scope } from './v1/v1-scope.ts';
 
 const FORGET_OUT = {
   type: 'object',

@@ -5,6 +5,8 @@
 import type { HistoryEventType } from '../../../resolvers/vocabulary.ts';
 import type { ChangeSet } from '../state/change-set.ts';
 import { touchedBy, type Op } from '../state/ops.ts';
+import { insertHistoryEvent } from '../../../db/queries/history.ts';
+import type { ActorInput } from '../context.ts';
 
 export interface EventInput {
   type: HistoryEventType;
@@ -44,22 +46,33 @@ export async function commitEvent(cs: ChangeSet, input: EventInput, ops: Op[] = 
     return id;
   }
   const payload: EventPayload = { details: input.details ?? {}, ops };
-  const row = await cs.trx
-    .insertInto('history_event')
-    .values({
-      type: input.type,
-      actor: input.actor,
-      at: input.at.toISOString(),
-      reason: input.reason ?? null,
-      payload: JSON.stringify(payload),
-      counterparty_ids: counterpartyIds,
-      mention_ids: mentionIds,
-      undoes_event_id: input.undoesEventId ?? null,
-      request_id: input.requestId ?? null,
-    })
-    .returning('id')
-    .executeTakeFirstOrThrow();
+  const id = await insertHistoryEvent(cs.trx, {
+    type: input.type,
+    actor: input.actor,
+    at: input.at.toISOString(),
+    reason: input.reason ?? null,
+    payload: JSON.stringify(payload),
+    counterparty_ids: counterpartyIds,
+    mention_ids: mentionIds,
+    undoes_event_id: input.undoesEventId ?? null,
+    request_id: input.requestId ?? null,
+  });
   // Ops already recorded are not recorded twice if the caller commits another event in the same transaction.
   if (ops === cs.ops) cs.ops.length = 0;
-  return Number(row.id);
+  return id;
+}
+
+/**
+ * The event of a change a caller asked for, with the caller's actor and request id: the ChangeSet's ops, `details`
+ * for people to read, and the caller's reason unless the change gives its own.
+ */
+export function commitRequested(
+  cs: ChangeSet,
+  type: HistoryEventType,
+  who: ActorInput,
+  at: Date,
+  details: Record<string, unknown>,
+  reason: string | null | undefined = who.reason,
+): Promise<number> {
+  return commitEvent(cs, { type, actor: who.actor, at, reason, requestId: who.requestId, details });
 }

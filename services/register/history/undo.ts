@@ -10,7 +10,7 @@
  * event left it, so the state tables come back exactly as they were before the event. The history grows by one
  * `undone` event whose ops are those inverses (a replay applies them like any other event).
  */
-import { sql } from 'kysely';
+import { eventForUpdate, laterStandingEvents, undoOfEvent } from '../../../db/queries/history-undo-replay.ts';
 import type { ActorInput, RegisterContext } from '../context.ts';
 import { RegisterError } from '../errors.ts';
 import { write, pgErrorCode } from '../transaction.ts';
@@ -40,22 +40,13 @@ export async function blockingEvents(
   event: { id: number; counterparty_ids: number[]; mention_ids: number[] },
 ): Promise<BlockingEvent[]> {
   if (event.counterparty_ids.length === 0 && event.mention_ids.length === 0) return [];
-  const result = await sql<{ id: string | number; type: string; actor: string; at: Date }>`
-    SELECT h.id, h.type, h.actor, h.at FROM history_event h
-    WHERE h.id > ${event.id}
-      AND h.type <> 'undone'
-      AND (h.counterparty_ids && ${sql.val(event.counterparty_ids)}::bigint[]
-           OR h.mention_ids && ${sql.val(event.mention_ids)}::bigint[])
-      AND NOT EXISTS (SELECT 1 FROM history_event u WHERE u.undoes_event_id = h.id)
-    ORDER BY h.id DESC
-    LIMIT 100`.execute(db);
-  return result.rows.map((r) => ({ id: Number(r.id), type: r.type, actor: r.actor, at: new Date(r.at).toISOString() }));
+  return laterStandingEvents(db, event);
 }
 
 export async function undoEvent(ctx: RegisterContext, eventId: number, who: ActorInput): Promise<UndoResult> {
   return write(ctx, async (cs) => {
     const trx = cs.trx;
-    const event = await trx.selectFrom('history_event').selectAll().where('id', '=', eventId).forUpdate().executeTakeFirst();
+    const event = await eventForUpdate(trx, eventId);
     if (!event) throw new RegisterError('NOT_FOUND', `history event ${eventId} does not exist`, { eventId });
     if (event.type === 'undone') {
       throw new RegisterError('NOT_UNDOABLE', `event ${eventId} is itself an undo; make the change again instead`, {
@@ -65,11 +56,11 @@ export async function undoEvent(ctx: RegisterContext, eventId: number, who: Acto
     if (event.type === 'forgotten') {
       throw new RegisterError('NOT_UNDOABLE', `event ${eventId} erased personal data and cannot be undone`, { eventId });
     }
-    const already = await trx.selectFrom('history_event').select('id').where('undoes_event_id', '=', eventId).executeTakeFirst();
-    if (already) {
-      throw new RegisterError('ALREADY_UNDONE', `event ${eventId} was already undone by event ${Number(already.id)}`, {
+    const already = await undoOfEvent(trx, eventId);
+    if (already !== undefined) {
+      throw new RegisterError('ALREADY_UNDONE', `event ${eventId} was already undone by event ${already}`, {
         eventId,
-        undoneBy: Number(already.id),
+        undoneBy: already,
       });
     }
     const cps = (event.counterparty_ids ?? []).map(Number);

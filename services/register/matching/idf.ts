@@ -21,10 +21,10 @@
  * Each token's weight depends on its own count and N only, so a table built from more tokens than a comparison
  * uses gives the same weights (what lets a batch read the counts of all its tokens once: matching/batch-reads.ts).
  */
-import { sql } from 'kysely';
 import { idfTableFromFrequencies, type IdfTable } from '../../../resolvers/compare/index.ts';
 import { COMMON_TOKEN_SHARE } from '../../../resolvers/score/index.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
+import { tokenCountsAndSize } from '../../../db/queries/rarity-counts.ts';
 
 export const DF_CAP = 1000;
 
@@ -53,19 +53,9 @@ export interface RarityCounts {
  * set its latency: issue 18). The size travels as the row whose token is NULL.
  */
 export async function rarityCounts(db: Queryable, tokens: Iterable<string>): Promise<RarityCounts> {
-  const unique = [...new Set(tokens)];
+  const { counts, size } = await tokenCountsAndSize(db, [...new Set(tokens)], DF_CAP);
   const frequencies = new Map<string, number>();
-  const result = await sql<{ token: string | null; df: string | number | null }>`
-    SELECT NULL::text AS token, (SELECT max(id) FROM counterparty) AS df
-    UNION ALL
-    SELECT t.token, CASE WHEN c.names >= ${DF_CAP} THEN c.names ELSE coalesce(c.counterparties, 0) END AS df
-    FROM unnest(${sql.val(unique)}::text[]) AS t(token)
-    LEFT JOIN blocking_key_count c ON c.key = 't:' || t.token`.execute(db);
-  let size = 0;
-  for (const row of result.rows) {
-    if (row.token === null) size = Number(row.df ?? 0);
-    else frequencies.set(row.token, Math.min(DF_CAP, Number(row.df ?? 0)));
-  }
+  for (const [token, df] of counts) frequencies.set(token, Math.min(DF_CAP, df));
   return { frequencies, registerSize: size };
 }
 

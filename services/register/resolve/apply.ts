@@ -104,14 +104,16 @@ export async function applyOutcome(
     counterparty_id: outcome.status === 'linked' || outcome.status === 'new' ? counterpartyId : null,
     own_entity_id: outcome.status === 'own_entity' ? (outcome.ownEntityId ?? null) : null,
     score: outcome.score,
-    evidence: { ...outcome.evidence, recordedName: null as RecordedName | null },
+    // The explanation is stored once (its own row, shared with the review item); the mention keeps its own keys.
+    explanation_id: await cs.explain(outcome.evidence),
+    evidence: { recordedName: null as RecordedName | null },
     confirmed_by: null,
     updated_at: iso,
   };
   const linking = (outcome.status === 'linked' || outcome.status === 'new') && counterpartyId !== null;
   if (linking && outcome.recordName) {
     recordedName = { name: prepared.text, kind: nameKindOf(prepared, outcome) };
-    values.evidence = { ...outcome.evidence, recordedName };
+    values.evidence = { recordedName };
   }
   // Kept in the evidence like recordedName, so that moving the mention away takes exactly these sightings with it.
   const recordedAliases = linking ? declaredToRecord(outcome, recordedName, prepared) : [];
@@ -130,7 +132,7 @@ export async function applyOutcome(
     const notes = await addMentionIdentifiers(cs, counterpartyId, prepared, mentionId, confirmedBy, at);
     if (notes.length > 0) {
       await cs.update('mention', mentionId, {
-        evidence: { ...outcome.evidence, recordedName, ...(recordedAliases.length > 0 ? { recordedAliases } : {}), identifierConflicts: notes },
+        evidence: { recordedName, ...(recordedAliases.length > 0 ? { recordedAliases } : {}), identifierConflicts: notes },
       });
     }
     await touchCounterparty(cs, counterpartyId, at);
@@ -142,7 +144,8 @@ export async function applyOutcome(
       left_counterparty_id: null,
       right_counterparty_id: counterpartyId,
       score: outcome.score,
-      evidence: outcome.evidence,
+      explanation_id: mention.explanation_id,
+      evidence: {},
       status: 'open',
       decision: null,
       decided_by: null,

@@ -12,6 +12,7 @@
  *                    a former name too uncertain to link
  *   new              nothing above newAt (on current or former names): a new counterparty
  */
+import { mentionOutcome } from '../../../db/queries/resolve-reads.ts';
 import { resolveInContract, type DeclaredName, type InContractResolution, type ParsedContract } from '../../../resolvers/terms/index.ts';
 import type { EarlierContract } from '../earlier-contract.ts';
 import type { MatchModel } from '../../../resolvers/score/index.ts';
@@ -146,10 +147,7 @@ export async function decide(
       }
       if (r.party) {
         const partyMentionId = terms.partyMentions.get(r.party.index);
-        const party =
-          partyMentionId === undefined
-            ? undefined
-            : await db.selectFrom('mention').select(['status', 'counterparty_id', 'own_entity_id']).where('id', '=', partyMentionId).executeTakeFirst();
+        const party = partyMentionId === undefined ? undefined : await mentionOutcome(db, partyMentionId);
         const evidence = {
           ...base,
           summary: r.explanation,

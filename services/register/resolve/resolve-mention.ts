@@ -5,7 +5,7 @@
  * Idempotent: the same (source, externalId) with the same content answers the stored result and changes nothing;
  * with a different content the mention is updated, resolved again and the change recorded (`mention_changed`).
  */
-import { sql } from 'kysely';
+import { contractByRef, lockNeighbourhoodKeys, partyMentionsByPosition } from '../../../db/queries/resolve-reads.ts';
 import type { ParsedContract } from '../../../resolvers/terms/index.ts';
 import type { MentionInput } from '../../../resolvers/vocabulary.ts';
 import { mentionsByKeys } from '../../../db/queries/state-writes.ts';
@@ -39,19 +39,12 @@ export async function lockNameNeighbourhoods(cs: ChangeSet, many: PreparedMentio
     keys.push(`core:${prepared.analysis.core}`);
     for (const identifier of prepared.identifiers) keys.push(`id:${identifier.scheme}:${identifier.value}`);
   }
-  await sql`SELECT pg_advisory_xact_lock(h) FROM (SELECT DISTINCT hashtextextended(k, 0) AS h FROM unnest(${sql.val(keys)}::text[]) AS t(k) ORDER BY 1) s`.execute(
-    cs.trx,
-  );
+  await lockNeighbourhoodKeys(cs.trx, keys);
 }
 
 export async function contractContextFor(cs: ChangeSet, ref: { source: string; externalId: string } | undefined): Promise<ContractContext | null> {
   if (!ref) return null;
-  const contract = await cs.trx
-    .selectFrom('contract')
-    .select(['id', 'parsed', 'status'])
-    .where('source', '=', ref.source)
-    .where('external_id', '=', ref.externalId)
-    .executeTakeFirst();
+  const contract = await contractByRef(cs.trx, ref.source, ref.externalId);
   if (!contract || contract.status !== 'active') return null;
   const parsed = contract.parsed as unknown as ParsedContract;
   const context: ContractContext = { contractId: Number(contract.id), parsed, partyMentions: await partyMentionsOf(cs, Number(contract.id)) };
@@ -62,8 +55,7 @@ export async function contractContextFor(cs: ChangeSet, ref: { source: string; e
 }
 
 async function partyMentionsOf(cs: ChangeSet, contractId: number): Promise<Map<number, number>> {
-  const parties = await cs.trx.selectFrom('contract_party').select(['position', 'mention_id']).where('contract_id', '=', contractId).execute();
-  return new Map(parties.map((p) => [p.position, Number(p.mention_id)]));
+  return partyMentionsByPosition(cs.trx, contractId);
 }
 
 export interface ResolveWithinOptions {
@@ -94,7 +86,8 @@ export async function resolveWithin(
   const found = stored ? canonicalRow('mention', stored) : undefined;
   // A changed contract that keeps a party's name but declares other former or trade names for it resolves it again.
   if (found && !options.force && declaredNamesChanged(found, options.party)) options = { ...options, force: true };
-  if (found && found.content_hash === prepared.contentHash && !options.force) return resultOf(cs.trx, found, { alreadyIngested: true, eventId: null });
+  if (found && found.content_hash === prepared.contentHash && !options.force)
+    return resultOf(cs.trx, found, { alreadyIngested: true, eventId: null, explanation: stored!.explanation_body });
   await lockNameNeighbourhood(cs, prepared);
   const textChanged = found !== undefined && found.content_hash !== prepared.contentHash && !options.force;
   // A forced re-resolution keeps the stored content hash: the source's own input is what idempotency compares.
@@ -125,6 +118,7 @@ export async function resolveWithin(
     counterparty: outcome.status === 'new' ? 1 : 0,
     mention: found ? 0 : 1,
     review_item: outcome.status === 'review' || askable ? 1 : 0,
+    explanation: 1,
     counterparty_name: linking ? 1 + (outcome.declaredNames?.length ?? 0) + prepared.analysis.aliases.length : 0,
   });
   // Not the event's id: it is drawn at the flush, after every lock, so that the events of two transactions that

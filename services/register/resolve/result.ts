@@ -2,6 +2,10 @@
 import type { ResolutionStatus } from '../../../resolvers/vocabulary.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
 import type { Row } from '../state/tables.ts';
+import { explanationBodies } from '../../../db/queries/explanations.ts';
+import { composeEvidence } from '../evidence.ts';
+import { canonicalNameOf } from '../../../db/queries/counterparties.ts';
+import { newestOpenItemOfMention } from '../../../db/queries/resolve-reads.ts';
 
 export interface ResolveResult {
   mentionId: number;
@@ -22,12 +26,12 @@ export interface ResolveResult {
 
 /**
  * The result of a stored mention. A write passes what it knows (the review item it opened, the canonical name it
- * holds): nothing is read then; a mention already stored reads them.
+ * holds, the body of the mention's explanation): nothing is read then; a mention already stored reads them.
  */
 export async function resultOf(
   db: Queryable,
   mention: Row,
-  extra: { alreadyIngested: boolean; eventId: number | null; reviewItemId?: number | null; canonicalName?: string },
+  extra: { alreadyIngested: boolean; eventId: number | null; reviewItemId?: number | null; canonicalName?: string; explanation?: Row | null },
 ): Promise<ResolveResult> {
   const cpId = (mention.counterparty_id as number | null) ?? null;
   const cp =
@@ -35,19 +39,15 @@ export async function resultOf(
       ? undefined
       : extra.canonicalName !== undefined
         ? { canonical_name: extra.canonicalName }
-        : await db.selectFrom('counterparty').select('canonical_name').where('id', '=', cpId).executeTakeFirst();
+        : { canonical_name: await canonicalNameOf(db, cpId) };
   let reviewItemId = extra.reviewItemId ?? null;
   if (extra.reviewItemId === undefined && mention.status === 'review') {
-    const item = await db
-      .selectFrom('review_item')
-      .select('id')
-      .where('mention_id', '=', mention.id as number)
-      .where('status', '=', 'open')
-      .orderBy('id', 'desc')
-      .executeTakeFirst();
-    reviewItemId = item ? Number(item.id) : null;
+    reviewItemId = await newestOpenItemOfMention(db, mention.id as number);
   }
-  const evidence = { ...(mention.evidence as Record<string, unknown>) };
+  const explanationId = (mention.explanation_id as number | null | undefined) ?? null;
+  const body =
+    extra.explanation !== undefined || explanationId === null ? extra.explanation : (await explanationBodies(db, [explanationId])).get(explanationId);
+  const evidence = composeEvidence(body, mention.evidence);
   delete evidence.recordedName;
   delete evidence.recordedAliases;
   return {

@@ -66,5 +66,6 @@ export async function writeMention(cs: ChangeSet, w: MentionWrite, who: ActorInp
     eventId,
     reviewItemId: applied.reviewItemId,
     canonicalName: canonicalNameIn(cs, (applied.mention.counterparty_id as number | null) ?? null),
+    explanation: await cs.explanation(applied.mention.explanation_id as number),
   });
 }

@@ -2,10 +2,10 @@
  * Applying recorded ops again: forward (replay from empty) or inverted (undo). Inversion checks that each row is
  * still exactly as the event left it before restoring it, so an undo never overwrites a change it did not make.
  */
-import { sql, type Transaction } from 'kysely';
+import type { Transaction } from 'kysely';
 import type { Database } from '../../../db/types.ts';
 import { deepEqual } from './deep-equal.ts';
-import { insertClause, setClause } from '../../../db/queries/state-writes.ts';
+import { deleteRow as deleteById, insertRow as insertValues, rowForUpdate, updateRow as updateById } from '../../../db/queries/state-rows.ts';
 import type { Op } from './ops.ts';
 import { syncDerived, type DerivedContext } from './derived.ts';
 import { canonicalRow, toDbValues, type Row, type StateTable } from './tables.ts';
@@ -22,22 +22,22 @@ export class StateDriftError extends Error {
 }
 
 async function readRow(trx: Transaction<Database>, table: StateTable, id: number): Promise<Row | undefined> {
-  const result = await sql<Row>`SELECT * FROM ${sql.table(table)} WHERE id = ${id} FOR UPDATE`.execute(trx);
-  return result.rows[0] ? canonicalRow(table, result.rows[0]) : undefined;
+  const row = await rowForUpdate(trx, table, id);
+  return row ? canonicalRow(table, row) : undefined;
 }
 
 async function insertRow(trx: Transaction<Database>, table: StateTable, row: Row, derived: DerivedContext) {
-  await sql`INSERT INTO ${sql.table(table)} ${insertClause(toDbValues(table, row))}`.execute(trx);
+  await insertValues(trx, table, toDbValues(table, row));
   await syncDerived(trx, { op: 'insert', table, row }, derived);
 }
 
 async function deleteRow(trx: Transaction<Database>, table: StateTable, row: Row, derived: DerivedContext) {
   await syncDerived(trx, { op: 'delete', table, row }, derived);
-  await sql`DELETE FROM ${sql.table(table)} WHERE id = ${row.id as number}`.execute(trx);
+  await deleteById(trx, table, row.id as number);
 }
 
 async function updateRow(trx: Transaction<Database>, table: StateTable, id: number, values: Row, refs: Row, derived: DerivedContext) {
-  await sql`UPDATE ${sql.table(table)} SET ${setClause(toDbValues(table, values))} WHERE id = ${id}`.execute(trx);
+  await updateById(trx, table, id, toDbValues(table, values));
   await syncDerived(trx, { op: 'update', table, id, before: {}, after: values, refs }, derived);
 }
 

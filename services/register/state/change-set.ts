@@ -10,9 +10,10 @@
 import type { Kysely, Transaction } from 'kysely';
 import type { Database } from '../../../db/types.ts';
 import { deleteById, drawIds, insertReturning, lockNamesOf, lockRows, nextId, updateById } from '../../../db/queries/state-writes.ts';
+import { explanationBodies, insertExplanation } from '../../../db/queries/explanations.ts';
 import { deepEqual } from './deep-equal.ts';
 import { syncDerived, type DerivedContext } from './derived.ts';
-import { jsonbImage } from './jsonb-image.ts';
+import { asJsonb, jsonbImage } from './jsonb-image.ts';
 import { refsOf, touchedBy, type Op } from './ops.ts';
 import { RowCache } from './row-cache.ts';
 import { canonicalPatch, canonicalRow, toDbValues, type Row, type StateTable } from './tables.ts';
@@ -24,8 +25,8 @@ export type { BufferedEvent } from './write-buffer.ts';
 
 export type Db = Kysely<Database> | Transaction<Database>;
 
-/** Tables whose ids a ChangeSet draws beforehand: the state tables and the history. */
-export type IdTable = StateTable | 'history_event';
+/** Tables whose ids a ChangeSet draws beforehand: the state tables and the history (events, explanations). */
+export type IdTable = StateTable | 'history_event' | 'explanation';
 
 export class ChangeSet {
   readonly ops: Op[] = [];
@@ -39,6 +40,8 @@ export class ChangeSet {
   private nextTemp = TEMP_ID_BASE;
   /** Real ids of temporary ids already written. */
   private readonly realIds = new Map<number, number>();
+  /** Bodies of the explanations this ChangeSet stored or read, by id (as jsonb keeps them). */
+  private readonly explanations = new Map<number, Row>();
 
   constructor(
     readonly trx: Transaction<Database>,
@@ -114,6 +117,25 @@ export class ChangeSet {
     // Names get a temporary id (drawn for real at flush) unless reserved: how many a batch adds is not known beforehand.
     if (table === 'counterparty_name') return this.nextTemp++;
     return nextId(this.trx, table);
+  }
+
+  /**
+   * Stores the explanation of a decision once and answers its id, for the mention and the review item to reference
+   * (db/queries/explanations.ts). Not a state row: like the history, it is never changed, so it records no op.
+   */
+  async explain(body: Row): Promise<number> {
+    const image = asJsonb(body) as Row;
+    const id = this.pools.get('explanation')?.shift() ?? (await nextId(this.trx, 'explanation'));
+    this.explanations.set(id, image);
+    if (this.buffer) this.buffer.explanation(id, image);
+    else await insertExplanation(this.trx, id, image);
+    return id;
+  }
+
+  /** The body of an explanation: one this ChangeSet stored or read, else read now. */
+  async explanation(id: number): Promise<Row | undefined> {
+    if (!this.explanations.has(id)) for (const [key, body] of await explanationBodies(this.trx, [id])) this.explanations.set(key, body);
+    return this.explanations.get(id);
   }
 
   /** Buffered mode: a history event written at the next flush, under a reserved id or a temporary one (see `realId`). */

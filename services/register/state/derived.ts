@@ -3,7 +3,9 @@
  * blocking_key holds the candidate keys of every counterparty name, so that candidate lookup is an index range
  * scan. It is not in the history (it follows from the names and the key function) and can be rebuilt.
  */
-import { sql, type Transaction } from 'kysely';
+import type { Transaction } from 'kysely';
+import { deleteKeysOfName, insertKeysOfName, moveKeysOfName } from '../../../db/queries/blocking-key-writes.ts';
+import { rowById } from '../../../db/queries/state-rows.ts';
 import type { Database } from '../../../db/types.ts';
 import type { Op } from './change-set.ts';
 import type { Row } from './tables.ts';
@@ -15,12 +17,7 @@ export interface DerivedContext {
 
 export async function insertNameKeys(trx: Transaction<Database>, row: Row, derived: DerivedContext): Promise<void> {
   const keys = [...new Set(derived.nameKeys(row as { name: string; normalised: string; kind: string }))];
-  if (keys.length === 0) return;
-  await trx
-    .insertInto('blocking_key')
-    .values(keys.map((key) => ({ key, counterparty_id: row.counterparty_id as number, name_id: row.id as number })))
-    .onConflict((oc) => oc.doNothing())
-    .execute();
+  await insertKeysOfName(trx, keys, row.counterparty_id as number, row.id as number);
 }
 
 export async function syncDerived(trx: Transaction<Database>, op: Op, derived: DerivedContext): Promise<void> {
@@ -28,22 +25,15 @@ export async function syncDerived(trx: Transaction<Database>, op: Op, derived: D
   if (op.op === 'insert') {
     await insertNameKeys(trx, op.row, derived);
   } else if (op.op === 'delete') {
-    await trx
-      .deleteFrom('blocking_key')
-      .where('name_id', '=', op.row.id as number)
-      .execute();
+    await deleteKeysOfName(trx, op.row.id as number);
   } else {
     if ('name' in op.after || 'normalised' in op.after) {
       // The text changed: recompute its keys.
-      await trx.deleteFrom('blocking_key').where('name_id', '=', op.id).execute();
-      const result = await sql<Row>`SELECT * FROM counterparty_name WHERE id = ${op.id}`.execute(trx);
-      if (result.rows[0]) await insertNameKeys(trx, { ...result.rows[0], id: op.id }, derived);
+      await deleteKeysOfName(trx, op.id);
+      const row = await rowById(trx, 'counterparty_name', op.id);
+      if (row) await insertNameKeys(trx, { ...row, id: op.id }, derived);
     } else if ('counterparty_id' in op.after) {
-      await trx
-        .updateTable('blocking_key')
-        .set({ counterparty_id: op.after.counterparty_id as number })
-        .where('name_id', '=', op.id)
-        .execute();
+      await moveKeysOfName(trx, op.id, op.after.counterparty_id as number);
     }
   }
 }

@@ -12,7 +12,7 @@ function jsonbKeyOrder(a: string, b: string): number {
 }
 
 /** A JSON value as jsonb keeps it (built directly, by JSON's rules: objects' keys reordered, undefined members dropped, a Date as its ISO text). */
-function asJsonb(value: unknown): unknown {
+export function asJsonb(value: unknown): unknown {
   if (typeof value === 'number') return Number.isFinite(value) ? value + 0 : null; // JSON has no -0, NaN or ±Infinity
   if (Array.isArray(value)) return value.map((v) => (v === undefined || typeof v === 'function' ? null : asJsonb(v)));
   if (value === null || typeof value !== 'object') return value;

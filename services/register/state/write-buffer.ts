@@ -7,6 +7,7 @@
 import type { Transaction } from 'kysely';
 import type { Database } from '../../../db/types.ts';
 import { drawIds, insertBlockingKeys, insertRows, runWrites, updateRows, type SetWrite } from '../../../db/queries/state-writes.ts';
+import { insertExplanations } from '../../../db/queries/explanations.ts';
 import type { Op } from './ops.ts';
 import type { RowCache } from './row-cache.ts';
 import { columnsOf, STATE_TABLES, type Row, type StateTable } from './tables.ts';
@@ -32,6 +33,7 @@ export class WriteBuffer {
   private updates = new Map<string, { table: StateTable; id: number; after: Row }>();
   private blockingKeys: { key: string; counterparty_id: number; name_id: number }[] = [];
   private events: BufferedEvent[] = [];
+  private explanations: { id: number; body: Row }[] = [];
 
   insert(table: StateTable, id: number): void {
     if (!this.inserts.has(table)) this.inserts.set(table, []);
@@ -51,6 +53,10 @@ export class WriteBuffer {
     for (const key of keys) this.blockingKeys.push({ key, counterparty_id: counterpartyId, name_id: nameId });
   }
 
+  explanation(id: number, body: Row): void {
+    this.explanations.push({ id, body });
+  }
+
   event(event: BufferedEvent): void {
     this.events.push(event);
   }
@@ -61,7 +67,7 @@ export class WriteBuffer {
   }
 
   get empty(): boolean {
-    return this.inserts.size === 0 && this.updates.size === 0 && this.events.length === 0 && this.blockingKeys.length === 0;
+    return this.inserts.size === 0 && this.updates.size === 0 && this.events.length === 0 && this.blockingKeys.length === 0 && this.explanations.length === 0;
   }
 
   /**
@@ -70,7 +76,7 @@ export class WriteBuffer {
    */
   async write(trx: Transaction<Database>, cache: RowCache, ops: Op[]): Promise<Map<number, number>> {
     const map = await this.drawRealIds(trx, cache, ops);
-    const writes: SetWrite[] = [];
+    const writes: SetWrite[] = this.explanations.length > 0 ? [insertExplanations(this.explanations)] : [];
     for (const table of STATE_TABLES) {
       const ids = this.inserts.get(table);
       if (ids && ids.length > 0)
@@ -102,6 +108,7 @@ export class WriteBuffer {
     this.updates = new Map();
     this.blockingKeys = [];
     this.events = [];
+    this.explanations = [];
     return map;
   }
 

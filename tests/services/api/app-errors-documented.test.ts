@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { ERROR_CATALOGUE, problem, type ErrorCode } from '../../../services/api/errors.ts';
 import { REGISTER_TO_API } from '../../../services/api/register-error-codes.ts';
-import { toApiError } from '../../../services/api/routes/v1/common.ts';
+import { toApiError } from '../../../services/api/routes/v1/to-api-error.ts';
 import { REGISTER_ERROR_CODES, RegisterError, type RegisterErrorCode } from '../../../services/register/errors.ts';
 
 const DOC = readFileSync(new URL('../../../docs/errors.md', import.meta.url), 'utf8');

@@ -13,7 +13,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { describeEachBackend } from '../../support/database.ts';
 import { ABANDONED_AFTER_MS, claimIdempotencyKey } from '../../../services/api/auth/idempotency.ts';
-import { answerJobCreated } from '../../../services/api/routes/v1/exports-jobs.ts';
+import { answerJobCreated } from '../../../services/api/routes/v1/answer-job-created.ts';
 import { submitIngestJob } from '../../../services/jobs/submit-ingest.ts';
 import { submitContractsJob } from '../../../services/jobs/submit-contracts.ts';
 import type { JobQueue } from '../../../db/job-queue.ts';

@@ -8,6 +8,7 @@ import { beforeAll, expect, it } from 'vitest';
 import { describeEachBackend } from '../../support/index.ts';
 import { decideReview, resolveBatch, resolveMention, storeContract, type RegisterContext } from '../../../services/register/index.ts';
 import { WHO, contextFor } from './support.ts';
+import { getReviewItem, listReviewItemsWhere } from '../../../db/queries/review.ts';
 
 const REVIEWER = { actor: 'test:reviewer' };
 
@@ -52,8 +53,9 @@ describeEachBackend("a person's decision against a changed text", (t) => {
     // A text that would link on its own (same name, legal form and country): still a person's question.
     const changed = await resolveMention(ctx, { source: 'erp', externalId: 'q-2', text: 'Quillacombe Freight Limited', country: 'GB' }, WHO);
     expect(changed.status).toBe('review');
-    const item = await t.db().selectFrom('review_item').selectAll().where('id', '=', changed.reviewItemId!).executeTakeFirstOrThrow();
-    expect(Number(item.right_counterparty_id)).toBe(supplier);
+    // Read as the review queue shows it (the item's explanation is stored once and referenced).
+    const item = (await getReviewItem(t.db(), changed.reviewItemId!))!;
+    expect(item.rightCounterpartyId).toBe(supplier);
     const evidence = item.evidence as { earlierDecision: { confirmedBy: string; text: string; counterpartyId: number }; heldBackBy: string; summary: string };
     expect(evidence.earlierDecision).toMatchObject({ confirmedBy: REVIEWER.actor, text: 'Quillacombe Freight', counterpartyId: supplier });
     expect(evidence.heldBackBy).toBe('earlier_decision');
@@ -64,15 +66,9 @@ describeEachBackend("a person's decision against a changed text", (t) => {
     await confirmed('q-3');
     const [result] = await resolveBatch(ctx, [{ source: 'erp', externalId: 'q-3', text: 'Quillacombe Freight Limited', country: 'GB' }], WHO);
     expect(result!.status).toBe('review');
-    const item = await t
-      .db()
-      .selectFrom('review_item')
-      .selectAll()
-      .where('mention_id', '=', (await mention('q-3')).id)
-      .where('status', '=', 'open')
-      .executeTakeFirstOrThrow();
-    expect(Number(item.right_counterparty_id)).toBe(supplier);
-    expect((item.evidence as { earlierDecision?: unknown }).earlierDecision).toBeDefined();
+    const [item] = await listReviewItemsWhere(t.db(), { mentionId: Number((await mention('q-3')).id), status: 'open' });
+    expect(item!.rightCounterpartyId).toBe(supplier);
+    expect((item!.evidence as { earlierDecision?: unknown }).earlierDecision).toBeDefined();
   });
 
   it('a mention no person confirmed is resolved afresh as before', async () => {

@@ -20,8 +20,10 @@ import { ArchiveRefusedError } from '../../../contract-files/find-documents.ts';
 import { submitContractsJob } from '../../../jobs/submit-contracts.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import type { RoutePlugin } from '../../types.ts';
-import { SOURCE_ID, actorOf } from './common.ts';
-import { JOB_OUT, answerJobCreated, jobView } from './exports-jobs.ts';
+import { SOURCE_ID } from './schemas.ts';
+import { actorOf } from './actor-of.ts';
+import { JOB_OUT, jobView } from './job-view.ts';
+import { answerJobCreated } from './answer-job-created.ts';
 import { jobsFor } from './job-queue.ts';
 import { claimIdempotencyKey, idempotencyKeyOf, releaseIdempotencyKey, sendStoredAnswer, storeIdempotentAnswer } from '../../auth/idempotency.ts';
 

@@ -19,58 +19,20 @@ import type { Database } from '../../../../db/types.ts';
 import { EXPORT_FORMATS, EXPORT_KINDS, exportChunks, type ExportFormat, type ExportKind } from '../../../export/exports.ts';
 import type { Jobs } from '../../../jobs/start-jobs.ts';
 import { jobsFor } from './job-queue.ts';
-import { submitIngestJob, type JobCreatedHook } from '../../../jobs/submit-ingest.ts';
+import { submitIngestJob } from '../../../jobs/submit-ingest.ts';
 import { submitSweepJob } from '../../../jobs/steps.ts';
-import { insertJob, partitionTally, readJob, updateJob, type JobRow } from '../../../../db/queries/jobs.ts';
+import { insertJob, updateJob } from '../../../../db/queries/jobs.ts';
 import { reresolve } from '../../../register/reresolve.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import type { RoutePlugin } from '../../types.ts';
 import { claimIdempotencyKey, idempotencyKeyOf, releaseIdempotencyKey, sendStoredAnswer, storeIdempotentAnswer } from '../../auth/idempotency.ts';
-import { ID_PARAM, SOURCE_ID, actorOf, v1Scope } from './common.ts';
+import { ID_PARAM, SOURCE_ID } from './schemas.ts';
+import { actorOf } from './actor-of.ts';
+import { v1Scope } from './v1-scope.ts';
 import { NDJSON } from './mentions.ts';
+import { JOB_OUT, jobView } from './job-view.ts';
+import { answerJobCreated } from './answer-job-created.ts';
 
-export const JOB_OUT = {
-  type: 'object',
-  required: ['id', 'kind', 'status'],
-  properties: {
-    id: { type: 'integer' },
-    kind: { type: 'string', enum: ['ingest', 'sweep', 'reresolve', 'contracts'] },
-    status: { type: 'string', enum: ['queued', 'running', 'finished', 'failed'] },
-    actor: { type: 'string' },
-    params: { type: 'object', additionalProperties: true },
-    progress: { type: 'object', additionalProperties: true },
-    result: { type: 'object', nullable: true, additionalProperties: true },
-    error: { type: 'string', nullable: true },
-    createdAt: { type: 'string' },
-    updatedAt: { type: 'string' },
-    finishedAt: { type: 'string', nullable: true },
-    partitions: {
-      type: 'object',
-      nullable: true,
-      description:
-        'For a partitioned job (ingest, sweep, contracts): its partitions by state (total 0 until it is planned); null for a job that runs in one piece (reresolve)',
-      properties: {
-        total: { type: 'integer' },
-        queued: { type: 'integer' },
-        running: { type: 'integer' },
-        done: { type: 'integer' },
-        fractionDone: { type: 'number' },
-      },
-    },
-  },
-  example: {
-    id: 7,
-    kind: 'ingest',
-    status: 'finished',
-    actor: 'contract system',
-    params: { source: 'erp' },
-    progress: { read: 120000 },
-    result: { counts: { read: 120000, linked: 90000, new: 25000, review: 4000, rejected: 1000 } },
-    error: null,
-  },
-} as const;
-
-/** Runs `work` after the answer has gone; failures end in the job row, never in an unhandled rejection. */
 function runInBackground(
   db: Kysely<Database>,
   id: number,
@@ -266,45 +228,3 @@ export const exportJobRoutes: RoutePlugin = async (app, deps) => {
     async (request) => jobView(db, request.params.id),
   );
 };
-
-/**
- * A job submission's Idempotency-Key answer, stored in the transaction that creates the job: a retry whose first
- * answer was lost (the process stopped while the upload was read, or before it answered) is answered with the same
- * job, never a second one. The answer stored once the submission is done replaces it with the job as it then is.
- */
-export function answerJobCreated(claim: { keyId: string; key: string }): JobCreatedHook {
-  return async (trx, jobId) =>
-    storeIdempotentAnswer(trx, claim, {
-      statusCode: 202,
-      contentType: 'application/json; charset=utf-8',
-      headers: { location: `/v1/jobs/${jobId}` },
-      body: JSON.stringify(await jobView(trx, jobId)),
-    });
-}
-
-export async function jobView(db: Kysely<Database>, id: number): Promise<Record<string, unknown>> {
-  const row = await readJob(db, id);
-  if (!row) throw new ApiError('NOT_FOUND', `job ${id} does not exist`);
-  const iso = (v: Date | null): string | null => (v === null ? null : v.toISOString());
-  return {
-    id: row.id,
-    kind: row.kind,
-    status: row.status,
-    actor: row.actor,
-    params: row.params,
-    progress: row.progress,
-    result: row.result ?? null,
-    error: row.error,
-    createdAt: iso(row.createdAt),
-    updatedAt: iso(row.updatedAt),
-    finishedAt: iso(row.finishedAt),
-    partitions: await partitionsOf(db, row),
-  };
-}
-
-/** A partitioned job's partitions by state, and the share of its mentions (or counterparties) done. */
-async function partitionsOf(db: Kysely<Database>, row: JobRow): Promise<Record<string, number> | null> {
-  if (row.params.partitioned !== true) return null;
-  const t = await partitionTally(db, row.id);
-  return { total: t.total, queued: t.queued, running: t.running, done: t.done, fractionDone: t.total === 0 ? 0 : t.done / t.total };
-}

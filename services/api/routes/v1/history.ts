@@ -3,7 +3,10 @@ import { undoEvent } from '../../../register/history/undo.ts';
 import { eventsAfter, getEvent, lastEventId } from '../../../../db/queries/history.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import type { RoutePlugin } from '../../types.ts';
-import { EVENT_OUT, REASON, actorOf, decodeCursor, encodeCursor, idParams, v1Scope } from './common.ts';
+import { EVENT_OUT, REASON, idParams } from './schemas.ts';
+import { actorOf } from './actor-of.ts';
+import { decodeCursor, encodeCursor } from './cursors.ts';
+import { v1Scope } from './v1-scope.ts';
 
 export const historyRoutes: RoutePlugin = (app, deps) => {
   const ctx = v1Scope(app, deps);

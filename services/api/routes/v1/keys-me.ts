@@ -3,7 +3,7 @@ import { API_SCOPES, type ApiScope } from '../../../../resolvers/vocabulary.ts';
 import { createApiKey, getApiKey, listApiKeys, revokeApiKey, MAX_LABEL_LENGTH } from '../../auth/keys.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import type { RoutePlugin } from '../../types.ts';
-import { v1Scope } from './common.ts';
+import { v1Scope } from './v1-scope.ts';
 
 const KEY_OUT = {
   type: 'object',

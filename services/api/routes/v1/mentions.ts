@@ -11,7 +11,10 @@ import { ApiError, problemResponses } from '../../errors.ts';
 import type { RoutePlugin } from '../../types.ts';
 import { bodyText } from '../../body/strict-json.ts';
 import { bodyValidator, compileBodySchema, type RuleError } from '../../validation.ts';
-import { COUNTRY, IDENTIFIER, NAME, SOURCE_ID, actorOf, registerContextOf, toApiError } from './common.ts';
+import { COUNTRY, IDENTIFIER, NAME, SOURCE_ID } from './schemas.ts';
+import { actorOf } from './actor-of.ts';
+import { registerContextOf } from './register-context-of.ts';
+import { toApiError } from './to-api-error.ts';
 
 export const MAX_BATCH_ITEMS = 10_000;
 export const BATCH_BODY_LIMIT = 10 * 1024 * 1024;

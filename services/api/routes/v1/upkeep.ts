@@ -6,7 +6,9 @@ import { getMention } from '../../../../db/queries/mentions.ts';
 import { withLegalForm } from './legal-form.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import type { RoutePlugin } from '../../types.ts';
-import { COUNTRY, ID_PARAM, IDENTIFIER, MENTION_OUT, NAME, REASON, actorOf, v1Scope } from './common.ts';
+import { COUNTRY, ID_PARAM, IDENTIFIER, MENTION_OUT, NAME, REASON } from './schemas.ts';
+import { actorOf } from './actor-of.ts';
+import { v1Scope } from './v1-scope.ts';
 
 const MENTION_CHANGE = {
   type: 'object',

@@ -1,0 +1,24 @@
+/**
+ * Token rarity as the register counts it (services/register/matching/idf.ts): per token, the counterparties holding
+ * its key (blocking_key_count, kept by triggers), or the capped names count for a key at the cap; and the register's
+ * size, in ONE statement (a single resolve's round trips set its latency: issue 18).
+ */
+import { sql } from 'kysely';
+import type { Queryable } from './util.ts';
+
+/** Document frequencies of `tokens` (uncapped; a key at `cap` names answers its names count) and the register size. */
+export async function tokenCountsAndSize(db: Queryable, tokens: readonly string[], cap: number): Promise<{ counts: Map<string, number>; size: number }> {
+  const result = await sql<{ token: string | null; df: string | number | null }>`
+    SELECT NULL::text AS token, (SELECT max(id) FROM counterparty) AS df
+    UNION ALL
+    SELECT t.token, CASE WHEN c.names >= ${cap} THEN c.names ELSE coalesce(c.counterparties, 0) END AS df
+    FROM unnest(${sql.val([...tokens])}::text[]) AS t(token)
+    LEFT JOIN blocking_key_count c ON c.key = 't:' || t.token`.execute(db);
+  const counts = new Map<string, number>();
+  let size = 0;
+  for (const row of result.rows) {
+    if (row.token === null) size = Number(row.df ?? 0);
+    else counts.set(row.token, Number(row.df ?? 0));
+  }
+  return { counts, size };
+}
