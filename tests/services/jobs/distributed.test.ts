@@ -109,7 +109,7 @@ describePostgres('scale-out: one API and three workers on PostgreSQL [postgres]'
       // Each step's expiry is set by the process that queues it: the planning step by the API (and, for the reference,
       // by the submitting command), the partitions by the worker that planned them. Only a partition has to come back
       // soon after its worker is killed; a planning step that outlived a short expiry on a loaded machine was run
-      // again beside itself and failed the job ("planning failed: no result", planning 160 s at load 20 on 2 cores).
+      // again (as it appears) and failed the job ("planning failed: no result", planning 160 s at load 20 on 2 cores).
       const SUBMIT_ENV = { ...ENV, CPREG_QUEUE_EXPIRE_S: '3600' };
       api = await startServe(['--db', distUrl, '--port', '0', '--work', '0'], { env: childEnv(SUBMIT_ENV) });
       for (let i = 0; i < 3; i++) workers.push(await startWorker(distUrl));
