@@ -31,7 +31,9 @@ const LONG = process.env.CPREG_LONG === '1';
 // Embedded: each run is killed 0.3-1.8 s after its first progress line, in batches of 100 so that a run commits
 // some and the kill points move through the file. With this seed the five waits add up to 6.0 s; a quiet machine
 // stored 6,500 rows in five runs killed 3-8 s after each start (29.9 s in all, start-up included), so 8,000 rows
-// keep kill 5 inside the file with a wide margin.
+// keep kill 5 inside the file with a wide margin. On a machine too loaded to commit a batch within the wait (load 20
+// on 2 cores: 100 rows stored over the five runs) the kills all fall in the same batch, still inside the ingest; a
+// kill timed from the start would fall before it there (the first progress line came 49 s after the start).
 const SIZE = { postgres: LONG ? 100_000 : 6_000, pglite: LONG ? 30_000 : 8_000 };
 const BATCH = { postgres: 500, pglite: 100 };
 const KILLS = 5;
