@@ -1,16 +1,16 @@
 /**
  * Crash safety of batch ingest: a child `cpreg ingest` of generated mentions is killed with SIGKILL at seeded
- * random points (when a seeded random number of rows has been stored), five times, each time run again; a
- * last run completes. Then every input row is in the register exactly once (one mention per external id, none
- * missing), the last run's summary reconciles (read = the file's rows), and `cpreg verify` passes.
- * PostgreSQL: 15,000 mentions (100,000 under CPREG_LONG=1). Embedded (PGlite): fewer (it is slower), and after
- * every kill the database must open again (the lock of the dead holder is taken over).
+ * random points, five times, each time run again; a last run completes. Then every input row is in the register
+ * exactly once (one mention per external id, none missing), the last run's summary reconciles (read = the file's
+ * rows), and `cpreg verify` passes. PostgreSQL: killed when a seeded random number of rows has been stored.
+ * Embedded (PGlite): the child holds the database, so it is killed a seeded time after its first progress line (its
+ * first batch counted), and after every kill the database must open again (the lock of the dead holder is taken over).
  */
 import { spawn } from 'node:child_process';
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, expect, it } from 'vitest';
-import { openDatabase } from '../../db/open-database.ts';
+import { openDatabase, type OpenedDatabase } from '../../db/open-database.ts';
 import { seededRandom } from '../../resolvers/prng.ts';
 import { CPREG_BIN, REPO_ROOT, childEnv, runCli } from '../support/cli.ts';
 import {
@@ -25,10 +25,17 @@ import {
 import { describe } from 'vitest';
 
 const LONG = process.env.CPREG_LONG === '1';
-// Measured on a shared 2-core machine under load: 20,000 on PostgreSQL took 244 s, so npm test uses 15,000 there;
-// CPREG_LONG=1 the full sizes. Embedded: 15,000, killed 3-8 s after each start. A quiet machine stored 6,500 rows over the five runs,
-// so five kills stay well inside the file (with 3,000 and 6-12 s waits the ingest once finished before kill 5).
-const SIZE = { postgres: LONG ? 100_000 : 15_000, pglite: LONG ? 30_000 : 15_000 };
+// What is asserted (every row once, counts that reconcile, verify) does not depend on the size, only on the kills
+// falling inside the file: npm test uses small files, CPREG_LONG=1 the large ones.
+// PostgreSQL: the kill points are fractions of the file (rows stored), so any size keeps them inside it.
+// Embedded: each run is killed 0.3-1.8 s after its first progress line, in batches of 100 so that a run commits
+// some and the kill points move through the file. With this seed the five waits add up to 6.0 s; a quiet machine
+// stored 6,500 rows in five runs killed 3-8 s after each start (29.9 s in all, start-up included), so 8,000 rows
+// keep kill 5 inside the file with a wide margin. On a machine too loaded to commit a batch within the wait (load 20
+// on 2 cores: 100 rows stored over the five runs) the kills all fall in the same batch, still inside the ingest; a
+// kill timed from the start would fall before it there (the first progress line came 49 s after the start).
+const SIZE = { postgres: LONG ? 100_000 : 6_000, pglite: LONG ? 30_000 : 8_000 };
+const BATCH = { postgres: 500, pglite: 100 };
 const KILLS = 5;
 
 const SYLLABLES = [
@@ -94,29 +101,28 @@ export function crashIngestSuite(backend: TestBackend): void {
   (backend === 'postgres' ? describePostgres : describe)(`crash safety: batch ingest killed with SIGKILL [${backend}]`, () => {
     let dir: string;
     let target: string;
+    /** PostgreSQL: one connection for the polls of the stored rows, kept for the whole test. */
+    let poller: OpenedDatabase | undefined;
     beforeAll(async () => {
       dir = makeTempDir('cpreg-crash-');
       target = backend === 'postgres' ? await createPostgresCopy() : await createMigratedDataDir();
+      if (backend === 'postgres') poller = await openDatabase(target, { command: 'crash test' });
     }, 120_000);
     afterAll(async () => {
+      await poller?.close();
       removeTempDir(dir);
       if (backend === 'postgres') await dropPostgresCopy(target);
       else removeTempDir(target);
     });
 
     async function storedRows(): Promise<number> {
-      if (backend === 'pglite') return -1; // the child holds the directory: counted from its progress instead
-      const opened = await openDatabase(target, { command: 'crash test' });
-      try {
-        const row = await opened.db
-          .selectFrom('mention')
-          .select((eb) => eb.fn.countAll<number>().as('n'))
-          .where('source', '=', 'crash')
-          .executeTakeFirstOrThrow();
-        return Number(row.n);
-      } finally {
-        await opened.close();
-      }
+      if (!poller) return -1; // embedded: the child holds the directory
+      const row = await poller.db
+        .selectFrom('mention')
+        .select((eb) => eb.fn.countAll<number>().as('n'))
+        .where('source', '=', 'crash')
+        .executeTakeFirstOrThrow();
+      return Number(row.n);
     }
 
     it(`every row exactly once after ${KILLS} kills, and verify passes`, async () => {
@@ -127,33 +133,42 @@ export function crashIngestSuite(backend: TestBackend): void {
       const started = performance.now();
       const kills: { afterMs: number; stored: number }[] = [];
       for (let k = 0; k < KILLS; k++) {
-        const child = spawn(process.execPath, [CPREG_BIN, 'ingest', file, '--source', 'crash', '--db', target, '--batch-size', '500'], {
+        const child = spawn(process.execPath, [CPREG_BIN, 'ingest', file, '--source', 'crash', '--db', target, '--batch-size', String(BATCH[backend])], {
           cwd: REPO_ROOT,
           env: childEnv(),
           stdio: ['ignore', 'pipe', 'pipe'],
         });
         let output = '';
+        let counting: () => void = () => undefined;
+        // The first progress line ("ingest: 100 rows …") is printed once the first batch has been counted.
+        const firstProgress = new Promise<void>((r) => (counting = r));
         child.stdout.on('data', (c) => (output += c));
-        child.stderr.on('data', (c) => (output += c));
+        child.stderr.on('data', (c) => {
+          output += c;
+          if (/^ingest: [\d,]+ rows?\b/m.test(output)) counting();
+        });
         const exited = new Promise<number | null>((r) => child.once('exit', (code) => r(code)));
+        const exitedTrue = exited.then(() => true);
         // A seeded random point: on PostgreSQL when that many rows are stored (polled), on the embedded
-        // database (the child holds it) a seeded time after the start.
+        // database (the child holds it) a seeded time after the child's first progress line.
         const t0 = performance.now();
         let done = false;
         if (backend === 'postgres') {
           const point = Math.floor(((k + rng.int(1000) / 1000) / KILLS) * size * 0.9);
-          while (!done && (await storedRows()) < point)
-            done = await Promise.race([exited.then(() => true), new Promise<boolean>((r) => setTimeout(() => r(false), 100))]);
+          while (!done && (await storedRows()) < point) done = await Promise.race([exitedTrue, new Promise<boolean>((r) => setTimeout(() => r(false), 100))]);
         } else {
-          const waitMs = 3000 + rng.int(5000);
-          done = await Promise.race([exited.then(() => true), new Promise<boolean>((r) => setTimeout(() => r(false), waitMs))]);
+          const waitMs = 300 + rng.int(1500);
+          done = await Promise.race([exitedTrue, firstProgress.then(() => false)]);
+          if (!done) done = await Promise.race([exitedTrue, new Promise<boolean>((r) => setTimeout(() => r(false), waitMs))]);
         }
         if (done) throw new Error(`the ingest finished before kill ${k + 1} (${Math.round(performance.now() - t0)} ms): use a larger file\n${output}`);
         child.kill('SIGKILL');
         await exited;
         kills.push({ afterMs: Math.round(performance.now() - t0), stored: await storedRows() });
       }
-      const last = await runCli(['ingest', file, '--source', 'crash', '--db', target, '--batch-size', '500', '--json'], { timeoutMs: 600_000 });
+      const last = await runCli(['ingest', file, '--source', 'crash', '--db', target, '--batch-size', String(BATCH[backend]), '--json'], {
+        timeoutMs: 600_000,
+      });
       expect(last.code, last.stderr.slice(-2000)).toBe(0);
       const summary = JSON.parse(last.stdout.trim().split('\n').pop()!) as { counts: Record<string, number> };
       expect(summary.counts.read).toBe(size);
