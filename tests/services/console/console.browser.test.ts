@@ -47,6 +47,8 @@ let readKey: string;
 let filesDir: string;
 let browser: ConsoleBrowser;
 let page: Page;
+/** The highest counterparty id the scenario made: later ones come from this file's own review decisions. */
+let scenarioMaxId = 0;
 
 /** Calls the API directly (not through the page), to check what the register holds. */
 async function apiGet<T>(path: string, key = adminKey): Promise<{ status: number; body: T; location: string | null }> {
@@ -81,6 +83,14 @@ beforeAll(async () => {
   database = await openTestDatabase('pglite');
   const load = await loadDemo({ db: database.db, scenario, filesDir, actor: 'demo loader' });
   expect(load.interrupted).toBe(false);
+  scenarioMaxId = Number(
+    (
+      await database.db
+        .selectFrom('counterparty')
+        .select((e) => e.fn.max('id').as('max'))
+        .executeTakeFirstOrThrow()
+    ).max,
+  );
   await addPairsToReview(database);
 
   app = await buildApp({ db: database.db, backend: 'pglite', rateLimitPerMinute: false });
@@ -101,8 +111,9 @@ afterAll(async () => {
 
 /**
  * The register sends few pairs to a person now, so the queue these tests decide is filled on purpose: each of six
- * counterparties is mentioned by its core name alone, with no legal form and no country. An equal name with nothing
- * else to confirm it is below linkAt and well above newAt: a person decides. The fixture checks that it did.
+ * counterparties is mentioned by its core name with its longest word cut to three letters and a full stop
+ * ("Ulvbroford Gla."), with no legal form and no country. An abbreviated name with nothing else to confirm it is below
+ * linkAt and above newAt (docs/matching.md, name levels): a person decides. The fixture checks that it did.
  */
 async function addPairsToReview(db: TestDatabase): Promise<void> {
   const ctx = createRegisterContext(db.db);
@@ -111,13 +122,20 @@ async function addPairsToReview(db: TestDatabase): Promise<void> {
     .select(['id', 'canonical_name'])
     .where('status', '=', 'active')
     .orderBy('id')
-    .limit(6)
+    .limit(30)
     .execute();
-  for (const [i, cp] of counterparties.entries()) {
-    const core = analyseName(cp.canonical_name).core;
-    const result = await resolveMention(ctx, { source: 'console-test', externalId: `review-${i}`, text: core }, { actor: 'console test' });
-    expect(result.status, `"${core}" against "${cp.canonical_name}"`).toBe('review');
+  let added = 0;
+  for (const cp of counterparties) {
+    const words = analyseName(cp.canonical_name).core.split(' ');
+    // A word of six letters or more, not the first (the first word alone may be another company's name).
+    const longest = words.slice(1).reduce((best, w) => (/^\p{L}{6,}$/u.test(w) && w.length > best.length ? w : best), '');
+    if (!longest) continue;
+    const text = words.map((w) => (w === longest ? `${w.slice(0, 3)}.` : w)).join(' ');
+    const result = await resolveMention(ctx, { source: 'console-test', externalId: `review-${added}`, text }, { actor: 'console test' });
+    expect(result.status, `"${text}" against "${cp.canonical_name}"`).toBe('review');
+    if (++added === 6) return;
   }
+  expect(added, 'counterparties with a word to abbreviate').toBe(6);
 }
 
 function pageErrors(): string[] {
@@ -285,7 +303,9 @@ describe('review console in chromium', () => {
     async () => {
       const queue = await openReviewItems();
       const busy = new Set(queue.items.flatMap((i) => [i.rightCounterpartyId, i.leftCounterpartyId]));
-      const all = (await apiGet<{ items: SearchHit[] }>('/v1/counterparties?limit=100')).body.items.filter((c) => !busy.has(c.id));
+      // Two of the scenario's counterparties: one made by a "different" decision above carries a cannot-link to its
+      // candidate, and a merge across it is refused (409), which is not what this test is about.
+      const all = (await apiGet<{ items: SearchHit[] }>('/v1/counterparties?limit=100')).body.items.filter((c) => !busy.has(c.id) && c.id <= scenarioMaxId);
       const [keep, absorb] = [all[2]!, all[all.length - 1]!];
       await go(`/counterparty/${keep.id}`);
       await page.type('#merge-search', absorb.canonicalName, { delay: 10 });
