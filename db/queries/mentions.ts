@@ -246,10 +246,13 @@ export async function mentionRow(db: Queryable, mentionId: number): Promise<Sele
   return db.selectFrom('mention').selectAll().where('id', '=', mentionId).executeTakeFirst();
 }
 
-/** The counterparty a mention is linked to now (null: none), or undefined when there is no such mention. */
-export async function counterpartyOfMention(db: Queryable, mentionId: number): Promise<{ counterpartyId: number | null } | undefined> {
-  const row = await db.selectFrom('mention').select('counterparty_id').where('id', '=', mentionId).executeTakeFirst();
-  return row ? { counterpartyId: idOrNull(row.counterparty_id) } : undefined;
+/** How a mention is resolved now (its status, counterparty or own entity), or undefined when there is no such mention. */
+export async function mentionOutcome(
+  db: Queryable,
+  mentionId: number,
+): Promise<{ status: string; counterparty_id: number | null; own_entity_id: number | null } | undefined> {
+  const row = await db.selectFrom('mention').select(['status', 'counterparty_id', 'own_entity_id']).where('id', '=', mentionId).executeTakeFirst();
+  return row ? { status: row.status, counterparty_id: idOrNull(row.counterparty_id), own_entity_id: idOrNull(row.own_entity_id) } : undefined;
 }
 
 /** The counterparties these mentions are linked to (one entry per linked mention). */

@@ -5,7 +5,7 @@
  */
 import { sql } from 'kysely';
 import type { Queryable } from './util.ts';
-import { id, idOrNull } from './util.ts';
+import { id } from './util.ts';
 
 /** Transaction-scoped advisory locks on these keys, taken in one sorted order in one statement. */
 export async function lockNeighbourhoodKeys(db: Queryable, keys: readonly string[]): Promise<void> {
@@ -29,15 +29,6 @@ export async function contractByRef(db: Queryable, source: string, externalId: s
 export async function partyMentionsByPosition(db: Queryable, contractId: number): Promise<Map<number, number>> {
   const parties = await db.selectFrom('contract_party').select(['position', 'mention_id']).where('contract_id', '=', contractId).execute();
   return new Map(parties.map((p) => [p.position, id(p.mention_id)]));
-}
-
-/** How a party's mention was resolved (its status, counterparty or own entity). */
-export async function mentionOutcome(
-  db: Queryable,
-  mentionId: number,
-): Promise<{ status: string; counterparty_id: number | null; own_entity_id: number | null } | undefined> {
-  const row = await db.selectFrom('mention').select(['status', 'counterparty_id', 'own_entity_id']).where('id', '=', mentionId).executeTakeFirst();
-  return row ? { status: row.status, counterparty_id: idOrNull(row.counterparty_id), own_entity_id: idOrNull(row.own_entity_id) } : undefined;
 }
 
 /** The newest open review item of a mention, if any. */

@@ -14,7 +14,7 @@ import { write } from './transaction.ts';
 import { detachMention } from './upkeep.ts';
 import { prepareMention } from './resolve/prepare.ts';
 import { resolveWithin, type ResolveResult } from './resolve/resolve-mention.ts';
-import { amendmentsWithUnboundMentions, counterpartyOfMention, mentionRow, mentionsAwaitingContract } from '../../db/queries/mentions.ts';
+import { amendmentsWithUnboundMentions, mentionOutcome, mentionRow, mentionsAwaitingContract } from '../../db/queries/mentions.ts';
 import { earlierContractOf } from './earlier-contract.ts';
 import { listOwnEntities } from '../../db/queries/own-entities.ts';
 import { contractHashOf, definedTermIdsOf, getContract, partiesFromPosition, partyOfMention, type ContractView } from '../../db/queries/contracts.ts';
@@ -88,9 +88,9 @@ async function replaceTerms(cs: ChangeSet, contractId: number, parsed: ParsedCon
 async function withdrawVanishedParties(cs: ChangeSet, contractId: number, count: number, who: ActorInput, at: Date): Promise<void> {
   const gone = await partiesFromPosition(cs.trx, contractId, count);
   for (const party of gone) {
-    const peek = await counterpartyOfMention(cs.trx, party.mentionId);
+    const peek = await mentionOutcome(cs.trx, party.mentionId);
     if (!peek) throw new RegisterError('CONFLICT', `mention ${party.mentionId} of contract ${contractId} vanished`);
-    if (peek.counterpartyId !== null) await cs.lock('counterparty', [peek.counterpartyId]);
+    if (peek.counterparty_id !== null) await cs.lock('counterparty', [peek.counterparty_id]);
     const mention = await cs.require('mention', party.mentionId);
     if (mention.status === 'withdrawn') continue;
     await detachMention(cs, mention, at, 'withdrawn');

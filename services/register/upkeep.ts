@@ -10,7 +10,7 @@ import type { ChangeSet } from './state/change-set.ts';
 import type { Row } from './state/tables.ts';
 import { write } from './transaction.ts';
 import { recordedNamesOf } from './mention-names.ts';
-import { counterpartiesOfMentions, counterpartyOfMention, findMentionBySourceId } from '../../db/queries/mentions.ts';
+import { counterpartiesOfMentions, mentionOutcome, findMentionBySourceId } from '../../db/queries/mentions.ts';
 import { partyMentionIdsOf } from '../../db/queries/contracts.ts';
 import { openItemsOfMention } from '../../db/queries/review.ts';
 
@@ -38,9 +38,9 @@ async function lockMention(cs: ChangeSet, mentionId: number): Promise<Row> {
   // Lock order everywhere: counterparties before mentions. Read the mention's counterparty, lock it, then the
   // mention; if the mention moved meanwhile, go round again.
   for (let attempt = 0; attempt < 10; attempt++) {
-    const peek = await counterpartyOfMention(cs.trx, mentionId);
+    const peek = await mentionOutcome(cs.trx, mentionId);
     if (!peek) throw notFound('mention', mentionId);
-    const cpId = peek.counterpartyId;
+    const cpId = peek.counterparty_id;
     if (cpId !== null) await cs.lock('counterparty', [cpId]);
     const mention = await cs.require('mention', mentionId);
     if (mention.counterparty_id === cpId) return mention;

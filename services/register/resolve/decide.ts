@@ -12,7 +12,7 @@
  *                    a former name too uncertain to link
  *   new              nothing above newAt (on current or former names): a new counterparty
  */
-import { mentionOutcome } from '../../../db/queries/resolve-reads.ts';
+import { mentionOutcome } from '../../../db/queries/mentions.ts';
 import { resolveInContract, type DeclaredName, type InContractResolution, type ParsedContract } from '../../../resolvers/terms/index.ts';
 import type { EarlierContract } from '../earlier-contract.ts';
 import type { MatchModel } from '../../../resolvers/score/index.ts';
