@@ -8,6 +8,7 @@ import { existsSync, mkdirSync, readdirSync, rmSync, statSync, writeFileSync } f
 import { join, resolve } from 'node:path';
 import { Kysely, PostgresDialect, sql } from 'kysely';
 import { PgliteDialect } from './pglite-dialect.ts';
+import { plannerStartParams } from './planner-settings.ts';
 import type { PGlite as PGliteClass } from '@electric-sql/pglite';
 import type { PoolClient } from 'pg';
 import type { Database } from './types.ts';
@@ -124,6 +125,8 @@ async function openPostgres(url: string, options: OpenDatabaseOptions): Promise<
     connectionTimeoutMillis: options.timeoutMs ?? DEFAULT_CONNECT_TIMEOUT_MS,
     ...(options.timeoutMs ? { statement_timeout: options.timeoutMs, query_timeout: options.timeoutMs + QUERY_TIMEOUT_MARGIN_MS } : {}),
     application_name: 'cpreg',
+    // Start parameters of each connection: no extra round trip (db/planner-settings.ts says why).
+    options: plannerStartParams().join(' '),
     types,
   });
   // An idle client whose server went away emits 'error' on the pool; unhandled it would crash the
@@ -221,7 +224,7 @@ async function loadPglite(
         // Loaded here; CREATE EXTENSION IF NOT EXISTS in the migrations then enables them.
         ...(extensions ? { extensions } : {}),
         // The engine's own start parameters, plus a setting for this start only (the cluster's file is untouched).
-        ...(smallBufferPool ? { startParams: [...PGlite.defaultStartParams, '-c', `shared_buffers=${SMALL_BUFFER_POOL}`] } : {}),
+        startParams: [...PGlite.defaultStartParams, ...plannerStartParams(), ...(smallBufferPool ? ['-c', `shared_buffers=${SMALL_BUFFER_POOL}`] : [])],
       }),
   };
 }
