@@ -16,7 +16,20 @@ export async function listOwnEntities(db: Queryable, options: { includeRemoved?:
   let query = db.selectFrom('own_entity').selectAll().orderBy('id');
   if (!options.includeRemoved) query = query.where('removed_at', 'is', null);
   const rows = await query.execute();
-  return rows.map((r) => ({
+  return rows.map(ownEntityView);
+}
+
+/** The view of an own_entity row, as read by kysely or as JSON (row_to_json: timestamps as text). */
+export function ownEntityView(r: {
+  id: unknown;
+  name: string;
+  normalised: string;
+  country: string | null;
+  identifiers: OwnEntityView['identifiers'];
+  created_at: unknown;
+  removed_at: unknown;
+}): OwnEntityView {
+  return {
     id: id(r.id),
     name: r.name,
     normalised: r.normalised,
@@ -24,7 +37,7 @@ export async function listOwnEntities(db: Queryable, options: { includeRemoved?:
     identifiers: r.identifiers,
     createdAt: iso(r.created_at) as string,
     removedAt: iso(r.removed_at),
-  }));
+  };
 }
 
 /** The id of the current (not removed) own entity with this normalised name, if there is one. */

@@ -6,12 +6,35 @@
 import { sql } from 'kysely';
 import type { Queryable } from './util.ts';
 import { id } from './util.ts';
+import { ownEntityView, type OwnEntityView } from './own-entities.ts';
+import { settingsView, type StoredSettings } from './settings.ts';
 
 /** Transaction-scoped advisory locks on these keys, taken in one sorted order in one statement. */
 export async function lockNeighbourhoodKeys(db: Queryable, keys: readonly string[]): Promise<void> {
   await sql`SELECT pg_advisory_xact_lock(h) FROM (SELECT DISTINCT hashtextextended(k, 0) AS h FROM unnest(${sql.val([...keys])}::text[]) AS t(k) ORDER BY 1) s`.execute(
     db,
   );
+}
+
+/**
+ * The neighbourhood locks of one resolution (as lockNeighbourhoodKeys) and, in the same statement, the two small
+ * reads every decision needs: the matcher settings and our own entities (one round trip instead of three). These
+ * two are not guarded by the name locks, so that they are read on the statement's snapshot, taken before the locks
+ * are granted, changes nothing: any change to them commits on its own.
+ */
+export async function lockAndReadDecisionBasics(
+  db: Queryable,
+  keys: readonly string[],
+): Promise<{ settings: StoredSettings | undefined; ownEntities: OwnEntityView[] }> {
+  const result = await sql<{ settings: Parameters<typeof settingsView>[0] | null; own: Parameters<typeof ownEntityView>[0][] }>`
+    SELECT
+      (SELECT count(*) FROM (
+        SELECT pg_advisory_xact_lock(h) FROM (SELECT DISTINCT hashtextextended(k, 0) AS h FROM unnest(${sql.val([...keys])}::text[]) AS t(k) ORDER BY 1) s
+      ) locked) AS locks,
+      (SELECT row_to_json(m) FROM matcher_settings m WHERE m.id = 'current') AS settings,
+      (SELECT coalesce(json_agg(row_to_json(o) ORDER BY o.id), '[]'::json) FROM own_entity o WHERE o.removed_at IS NULL) AS own`.execute(db);
+  const row = result.rows[0]!;
+  return { settings: row.settings ? settingsView(row.settings) : undefined, ownEntities: row.own.map(ownEntityView) };
 }
 
 /** A contract by its source id: id, parsed terms and status. */

@@ -11,7 +11,11 @@ export interface StoredSettings {
 
 export async function readSettings(db: Queryable): Promise<StoredSettings | undefined> {
   const row = await db.selectFrom('matcher_settings').selectAll().where('id', '=', 'current').executeTakeFirst();
-  if (!row) return undefined;
+  return row ? settingsView(row) : undefined;
+}
+
+/** The settings of a matcher_settings row, as read by kysely or as JSON (row_to_json). */
+export function settingsView(row: { link_at: number; new_at: number; weights: Record<string, unknown>; version: number; updated_by: string }): StoredSettings {
   return { linkAt: row.link_at, newAt: row.new_at, weights: row.weights, version: row.version, updatedBy: row.updated_by };
 }
 

@@ -85,6 +85,16 @@ export function insertRows(table: string, columns: readonly string[], rows: read
   return sql`INSERT INTO ${sql.table(table)} (${cols}) SELECT ${cols} FROM jsonb_populate_recordset(NULL::${sql.table(table)}, ${rowsJson(rows)}::jsonb)`;
 }
 
+/**
+ * Inserts events whose ids the statement draws itself, in the order of `rows` (nextval per row of the JSON array, in
+ * array order), answering them (RETURNING id). Drawn in the write itself: after every lock its transaction took.
+ */
+export function insertDrawingIds(table: string, columns: readonly string[], rows: readonly Values[]): SetWrite {
+  const cols = sql.join(columns.map((c) => sql.ref(c)));
+  return sql`INSERT INTO ${sql.table(table)} (id, ${cols}) SELECT nextval(pg_get_serial_sequence(${table}, 'id')), ${cols}
+    FROM jsonb_populate_recordset(NULL::${sql.table(table)}, ${rowsJson(rows)}::jsonb) RETURNING id`;
+}
+
 /** Sets the same columns of many rows (each row carries its id). */
 export function updateRows(table: string, columns: readonly string[], rows: readonly Values[]): SetWrite {
   return sql`UPDATE ${sql.table(table)} AS t SET ${sql.join(columns.map((c) => sql`${sql.ref(c)} = r.${sql.ref(c)}`))}
@@ -110,6 +120,42 @@ export async function runWrites(trx: Trx, writes: readonly SetWrite[]): Promise<
   }
   const parts = writes.map((w, i) => sql`${sql.raw(`w${i}`)} AS (${w})`);
   await sql`WITH ${sql.join(parts)} SELECT 1`.execute(trx);
+}
+
+/** As runWrites, with a last write that answers ids (insertDrawingIds): answers them in ascending order. */
+export async function runWritesReturning(trx: Trx, writes: readonly SetWrite[], returning: SetWrite): Promise<number[]> {
+  const parts = [...writes, returning].map((w, i) => sql`${sql.raw(`w${i}`)} AS (${w})`);
+  const result = await sql<{ id: unknown }>`WITH ${sql.join(parts)} SELECT id FROM ${sql.raw(`w${writes.length}`)} ORDER BY id`.execute(trx);
+  return result.rows.map((r) => Number(r.id));
+}
+
+/**
+ * Draws ids (as drawIds) and locks the rows a write is about to change, in one statement: counterparties by id,
+ * then every name of some counterparties, each in id order (as lockRows and lockNamesOf, in the order the register
+ * always locks them), then the ids. Rows are answered as JSON images (timestamps as text, as canonicalRow takes).
+ */
+export async function drawIdsAndLock<T extends string>(
+  trx: Trx,
+  counts: ReadonlyMap<T, number>,
+  lock: { counterparties: readonly number[]; namesOf: readonly number[] },
+): Promise<{ ids: Map<T, number[]>; counterparties: Values[]; names: Values[] }> {
+  const tables = [...counts.keys()].filter((t) => counts.get(t)! > 0);
+  const result = await sql<{ counterparties: Values[]; names: Values[]; ids: [T, unknown][] }>`
+    SELECT
+      (SELECT coalesce(json_agg(row_to_json(c) ORDER BY c.id), '[]'::json)
+        FROM (SELECT * FROM counterparty WHERE id = ANY(${sql.val([...lock.counterparties])}::bigint[]) ORDER BY id FOR UPDATE) c) AS counterparties,
+      (SELECT coalesce(json_agg(row_to_json(n) ORDER BY n.id), '[]'::json)
+        FROM (SELECT * FROM counterparty_name WHERE counterparty_id = ANY(${sql.val([...lock.namesOf])}::bigint[]) ORDER BY id FOR UPDATE) n) AS names,
+      (SELECT coalesce(json_agg(json_build_array(t, id)), '[]'::json)
+        FROM (SELECT t, nextval(pg_get_serial_sequence(t, 'id')) AS id
+          FROM unnest(${sql.val(tables)}::text[], ${sql.val(tables.map((t) => counts.get(t)!))}::int[]) AS k(t, n), generate_series(1, k.n)) d) AS ids`.execute(
+    trx,
+  );
+  const row = result.rows[0]!;
+  const ids = new Map<T, number[]>(tables.map((t) => [t, []]));
+  for (const [t, id] of row.ids) ids.get(t)!.push(Number(id));
+  for (const list of ids.values()) list.sort((a, b) => a - b);
+  return { ids, counterparties: row.counterparties, names: row.names };
 }
 
 export function insertClause(values: Values) {

@@ -41,6 +41,11 @@ export class BatchReads implements RarityReads {
 
   constructor(readonly db: Queryable) {}
 
+  /** Our own entities as already read on this snapshot (a single resolve reads them with its locks). */
+  seedOwnEntities(list: OwnEntityView[]): void {
+    this.own = Promise.resolve(list);
+  }
+
   ownEntities(): Promise<OwnEntityView[]> {
     this.own ??= listOwnEntities(this.db);
     return this.own;

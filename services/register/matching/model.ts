@@ -4,11 +4,15 @@
  */
 import { parseMatchModel, type MatchModel } from '../../../resolvers/score/index.ts';
 import { DEFAULT_MATCH_MODEL } from '../../../resolvers/score/default-model.ts';
-import { readSettings } from '../../../db/queries/settings.ts';
+import { readSettings, type StoredSettings } from '../../../db/queries/settings.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
 
 export async function currentModel(db: Queryable): Promise<{ model: MatchModel; version: number }> {
-  const stored = await readSettings(db);
+  return modelFromSettings(await readSettings(db));
+}
+
+/** The model of stored settings (read by readSettings, or with the locks of a resolve); the built-in one without. */
+export function modelFromSettings(stored: StoredSettings | undefined): { model: MatchModel; version: number } {
   if (!stored) return { model: DEFAULT_MATCH_MODEL, version: 0 };
   const weights = stored.weights as Partial<MatchModel>;
   const base =

@@ -5,12 +5,12 @@
  * Idempotent: the same (source, externalId) with the same content answers the stored result and changes nothing;
  * with a different content the mention is updated, resolved again and the change recorded (`mention_changed`).
  */
-import { contractByRef, lockNeighbourhoodKeys, partyMentionsByPosition } from '../../../db/queries/resolve-reads.ts';
+import { contractByRef, lockAndReadDecisionBasics, lockNeighbourhoodKeys, partyMentionsByPosition } from '../../../db/queries/resolve-reads.ts';
 import type { ParsedContract } from '../../../resolvers/terms/index.ts';
 import type { MentionInput } from '../../../resolvers/vocabulary.ts';
 import { mentionsByKeys } from '../../../db/queries/state-writes.ts';
 import type { ActorInput, RegisterContext } from '../context.ts';
-import { currentModel } from '../matching/model.ts';
+import { modelFromSettings } from '../matching/model.ts';
 import { keysOfAnalysis } from '../matching/keys.ts';
 import { BatchReads } from '../matching/batch-reads.ts';
 import { MAX_CANDIDATES } from '../matching/candidates.ts';
@@ -25,21 +25,23 @@ import { earlierContractOf } from '../earlier-contract.ts';
 
 export { resultOf, type ResolveResult } from './result.ts';
 
-/** Serialises resolutions of look-alike names (same core or same 6-letter prefix, same strong identifier) across
- * instances, so that two concurrent mentions of one new company do not create it twice. Transaction-scoped. */
-export async function lockNameNeighbourhood(cs: ChangeSet, prepared: PreparedMention): Promise<void> {
-  await lockNameNeighbourhoods(cs, [prepared]);
-}
-
-/** The neighbourhood locks of many mentions in one statement (a batch chunk), taken in one sorted order. */
-export async function lockNameNeighbourhoods(cs: ChangeSet, many: PreparedMention[]): Promise<void> {
+/**
+ * The keys that serialise resolutions of look-alike names (same core or same 6-letter prefix, same strong
+ * identifier) across instances, so that two concurrent mentions of one new company do not create it twice.
+ */
+function neighbourhoodKeys(many: readonly PreparedMention[]): string[] {
   const keys: string[] = [];
   for (const prepared of many) {
     for (const k of keysOfAnalysis(prepared.analysis)) if (k.startsWith('p:')) keys.push(k);
     keys.push(`core:${prepared.analysis.core}`);
     for (const identifier of prepared.identifiers) keys.push(`id:${identifier.scheme}:${identifier.value}`);
   }
-  await lockNeighbourhoodKeys(cs.trx, keys);
+  return keys;
+}
+
+/** The neighbourhood locks of many mentions in one statement (a batch chunk), taken in one sorted order. Transaction-scoped. */
+export async function lockNameNeighbourhoods(cs: ChangeSet, many: PreparedMention[]): Promise<void> {
+  await lockNeighbourhoodKeys(cs.trx, neighbourhoodKeys(many));
 }
 
 export async function contractContextFor(cs: ChangeSet, ref: { source: string; externalId: string } | undefined): Promise<ContractContext | null> {
@@ -88,16 +90,18 @@ export async function resolveWithin(
   if (found && !options.force && declaredNamesChanged(found, options.party)) options = { ...options, force: true };
   if (found && found.content_hash === prepared.contentHash && !options.force)
     return resultOf(cs.trx, found, { alreadyIngested: true, eventId: null, explanation: stored!.explanation_body });
-  await lockNameNeighbourhood(cs, prepared);
+  // The locks, the settings and our own entities in one round trip.
+  const basics = await lockAndReadDecisionBasics(cs.trx, neighbourhoodKeys([prepared]));
   const textChanged = found !== undefined && found.content_hash !== prepared.contentHash && !options.force;
   // A forced re-resolution keeps the stored content hash: the source's own input is what idempotency compares.
   if (found && options.force) prepared = { ...prepared, contentHash: found.content_hash as string };
   const contract = options.party ? null : await contractContextFor(cs, prepared.input.contract);
-  const { model, version } = await currentModel(cs.trx);
+  const { model, version } = modelFromSettings(basics.settings);
   // A batch of one: the register's reads shared by the own-entity check and the candidates (each read once), with
   // no batch basis, so the token weights are the register's alone as before. Prefetched when the mention goes to
   // the register as it stands (a contract's defined term may instead settle it or change what is matched).
   const reads = new BatchReads(cs.trx);
+  reads.seedOwnEntities(basics.ownEntities);
   if (prepared.analysis.partyStatus === 'party' && (options.party !== undefined || contract === null)) await reads.prefetch([prepared], MAX_CANDIDATES);
   const outcome = await decide(cs.trx, prepared, model, {
     mentionId: found ? (found.id as number) : null,
@@ -114,13 +118,20 @@ export async function resolveWithin(
   const askable = textChanged && found?.confirmed_by !== null && found?.counterparty_id !== null;
   // The names are an upper bound (a name already there is one more sighting): an id left over is a harmless gap.
   const linking = outcome.status === 'linked' || outcome.status === 'new';
-  await cs.reserveIds({
-    counterparty: outcome.status === 'new' ? 1 : 0,
-    mention: found ? 0 : 1,
-    review_item: outcome.status === 'review' || askable ? 1 : 0,
-    explanation: 1,
-    counterparty_name: linking ? 1 + (outcome.declaredNames?.length ?? 0) + prepared.analysis.aliases.length : 0,
-  });
+  // A new mention linked or sent to review changes that one counterparty (and, linked, its names): locked with the
+  // ids in one round trip, in the order the write takes them (resolve/apply.ts). A stored mention locks its old
+  // counterparty first (resolve/write-mention.ts), so it takes its locks there, as before.
+  const target = !found && (outcome.status === 'linked' || outcome.status === 'review') ? [outcome.counterpartyId as number] : [];
+  await cs.reserveAndLock(
+    {
+      counterparty: outcome.status === 'new' ? 1 : 0,
+      mention: found ? 0 : 1,
+      review_item: outcome.status === 'review' || askable ? 1 : 0,
+      explanation: 1,
+      counterparty_name: linking ? 1 + (outcome.declaredNames?.length ?? 0) + prepared.analysis.aliases.length : 0,
+    },
+    { counterparties: target, namesOf: outcome.status === 'linked' ? target : [] },
+  );
   // Not the event's id: it is drawn at the flush, after every lock, so that the events of two transactions that
   // change one row are numbered in the order they commit (replay applies them in id order).
   const result = await writeMention(

@@ -9,7 +9,7 @@
  */
 import type { Kysely, Transaction } from 'kysely';
 import type { Database } from '../../../db/types.ts';
-import { deleteById, drawIds, insertReturning, lockNamesOf, lockRows, nextId, updateById } from '../../../db/queries/state-writes.ts';
+import { deleteById, drawIds, drawIdsAndLock, insertReturning, lockNamesOf, lockRows, nextId, updateById } from '../../../db/queries/state-writes.ts';
 import { explanationBodies, insertExplanation } from '../../../db/queries/explanations.ts';
 import { deepEqual } from './deep-equal.ts';
 import { syncDerived, type DerivedContext } from './derived.ts';
@@ -91,13 +91,34 @@ export class ChangeSet {
     return this.realIds.get(id) ?? id;
   }
 
+  /**
+   * reserveIds, lock('counterparty', …) and loadNames in one statement (one round trip), for a write that knows
+   * beforehand which counterparty it changes (a single resolve linking a mention). Rows this ChangeSet holds
+   * already are not locked again.
+   */
+  async reserveAndLock(counts: Partial<Record<IdTable, number>>, lock: { counterparties: number[]; namesOf: number[] }): Promise<void> {
+    const counterparties = [...new Set(lock.counterparties)].filter((id) => !this.cache.has('counterparty', id));
+    const namesOf = this.namesToLoad(lock.namesOf);
+    const drawn = await drawIdsAndLock(this.trx, new Map(Object.entries(counts) as [IdTable, number][]), { counterparties, namesOf });
+    for (const [table, ids] of drawn.ids) this.pools.set(table, [...(this.pools.get(table) ?? []), ...ids]);
+    for (const r of drawn.counterparties) this.cache.set('counterparty', canonicalRow('counterparty', r));
+    this.holdNames(namesOf, drawn.names);
+  }
+
   /** Locks every name of these counterparties and keeps them as their complete name lists. */
   async loadNames(counterpartyIds: number[]): Promise<void> {
-    const ids = [...new Set(counterpartyIds)].filter((id) => !this.cache.holdsNamesOf(id)).sort((a, b) => a - b);
+    const ids = this.namesToLoad(counterpartyIds);
     if (ids.length === 0) return;
-    const rows = (await lockNamesOf(this.trx, ids)).map((r) => canonicalRow('counterparty_name', r));
-    for (const id of ids) this.cache.holdNamesOf(id);
-    for (const row of rows) {
+    this.holdNames(ids, await lockNamesOf(this.trx, ids));
+  }
+
+  private namesToLoad(counterpartyIds: readonly number[]): number[] {
+    return [...new Set(counterpartyIds)].filter((id) => !this.cache.holdsNamesOf(id)).sort((a, b) => a - b);
+  }
+
+  private holdNames(counterpartyIds: readonly number[], read: readonly Row[]): void {
+    for (const id of counterpartyIds) this.cache.holdNamesOf(id);
+    for (const row of read.map((r) => canonicalRow('counterparty_name', r))) {
       // A row changed earlier by this ChangeSet keeps its cached image.
       if (!this.cache.has('counterparty_name', row.id as number)) this.cache.set('counterparty_name', row);
       this.cache.trackName(row, true);

@@ -6,7 +6,16 @@
  */
 import type { Transaction } from 'kysely';
 import type { Database } from '../../../db/types.ts';
-import { drawIds, insertBlockingKeys, insertRows, runWrites, updateRows, type SetWrite } from '../../../db/queries/state-writes.ts';
+import {
+  drawIds,
+  insertBlockingKeys,
+  insertDrawingIds,
+  insertRows,
+  runWrites,
+  runWritesReturning,
+  updateRows,
+  type SetWrite,
+} from '../../../db/queries/state-writes.ts';
 import { insertExplanations } from '../../../db/queries/explanations.ts';
 import type { Op } from './ops.ts';
 import type { RowCache } from './row-cache.ts';
@@ -23,7 +32,8 @@ export interface BufferedEvent {
   ops: Op[];
 }
 
-const EVENT_COLUMNS = ['id', 'type', 'actor', 'at', 'reason', 'payload', 'counterparty_ids', 'mention_ids', 'undoes_event_id', 'request_id'];
+const EVENT_COLUMNS_BUT_ID = ['type', 'actor', 'at', 'reason', 'payload', 'counterparty_ids', 'mention_ids', 'undoes_event_id', 'request_id'];
+const EVENT_COLUMNS = ['id', ...EVENT_COLUMNS_BUT_ID];
 
 export class WriteBuffer {
   /** Rows inserted since the last flush, by table, as ids (their latest image is in the row cache). */
@@ -75,7 +85,10 @@ export class WriteBuffer {
    * not yet in an event (their name ids are renamed too).
    */
   async write(trx: Transaction<Database>, cache: RowCache, ops: Op[]): Promise<Map<number, number>> {
-    const map = await this.drawRealIds(trx, cache, ops);
+    // Events alone under temporary ids (a single resolve: its names reserved beforehand) draw their ids in the
+    // write itself, one round trip fewer; otherwise every temporary id is drawn first and renamed.
+    const drawInWrite = this.events.length > 0 && this.events.every((e) => e.id >= TEMP_ID_BASE) && !this.hasTemporaryNames();
+    const map = drawInWrite ? new Map<number, number>() : await this.drawRealIds(trx, cache, ops);
     const writes: SetWrite[] = this.explanations.length > 0 ? [insertExplanations(this.explanations)] : [];
     for (const table of STATE_TABLES) {
       const ids = this.inserts.get(table);
@@ -97,12 +110,18 @@ export class WriteBuffer {
     }
     for (const { table, columns, rows } of byColumns.values()) writes.push(updateRows(table, columns, rows));
     if (this.blockingKeys.length > 0) writes.push(insertBlockingKeys(this.blockingKeys.map((k) => ({ ...k, name_id: map.get(k.name_id) ?? k.name_id }))));
-    if (this.events.length > 0) {
-      const rows = this.events.map((e) => ({ ...e.values, id: map.get(e.id) ?? e.id, payload: { ...(e.values.payload as Row), ops: e.ops } }));
-      writes.push(insertRows('history_event', EVENT_COLUMNS, rows));
+    if (drawInWrite) {
+      const rows = this.events.map((e) => ({ ...e.values, payload: { ...(e.values.payload as Row), ops: e.ops } }));
+      const drawn = await runWritesReturning(trx, writes, insertDrawingIds('history_event', EVENT_COLUMNS_BUT_ID, rows));
+      this.events.forEach((e, i) => map.set(e.id, drawn[i]!));
+    } else {
+      if (this.events.length > 0) {
+        const rows = this.events.map((e) => ({ ...e.values, id: map.get(e.id) ?? e.id, payload: { ...(e.values.payload as Row), ops: e.ops } }));
+        writes.push(insertRows('history_event', EVENT_COLUMNS, rows));
+      }
+      // Everything in one statement: one round trip per flush.
+      await runWrites(trx, writes);
     }
-    // Everything in one statement: one round trip per flush.
-    await runWrites(trx, writes);
     this.inserts = new Map();
     this.inserted = new Set();
     this.updates = new Map();
@@ -110,6 +129,10 @@ export class WriteBuffer {
     this.events = [];
     this.explanations = [];
     return map;
+  }
+
+  private hasTemporaryNames(): boolean {
+    return (this.inserts.get('counterparty_name') ?? []).some((id) => id >= TEMP_ID_BASE);
   }
 
   /** Real ids for the temporary ids of names and events, in one statement; renames the names everywhere. */
