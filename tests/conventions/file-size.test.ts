@@ -20,7 +20,6 @@ const EXEMPT: { file: string; why: string }[] = [
   { file: 'bench/runner.ts', why: 'not split yet (issue 21 item 5)' },
   { file: 'services/demo/corrupt.ts', why: 'not split yet (issue 21 item 5)' },
   { file: 'services/demo/generate-names.ts', why: 'not split yet (issue 21 item 5)' },
-  { file: 'services/demo/name-parts.ts', why: 'not split yet (issue 21 item 5): word lists of the name generator' },
   { file: 'services/demo/run-demo.ts', why: 'not split yet (issue 21 item 5)' },
 ];
 
