@@ -4,7 +4,8 @@
  * The mix of variants is documented in docs/generator.md; keep the two in step.
  */
 import { seededRandom, weightedIndex, type Random } from '../../resolvers/prng.ts';
-import { corrupt, renderName, VARIANT_KINDS, type NameParts, type VariantKind } from './corrupt.ts';
+import { corrupt, VARIANT_KINDS, type VariantKind } from './corrupt.ts';
+import { renderName, type NameParts } from './render-name.ts';
 import {
   branchOf,
   carriesMarker,

@@ -7,7 +7,8 @@
 import { stringify } from 'csv-stringify/sync';
 import { friendlyFormatIBAN } from 'ibantools';
 import type { Random } from '../../../resolvers/prng.ts';
-import { corrupt, renderName } from '../corrupt.ts';
+import { corrupt } from '../corrupt.ts';
+import { renderName } from '../render-name.ts';
 import { INDUSTRIES, LEGAL_FORMS, countryOf } from '../name-parts.ts';
 import { pickJurisdiction } from '../generate-names.ts';
 import { address, coinedWord, companyIdentifiers, phone } from './entities.ts';

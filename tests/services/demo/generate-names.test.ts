@@ -1,7 +1,8 @@
 import levenshtein from 'fast-levenshtein';
 import { describe, expect, it } from 'vitest';
 import { seededRandom } from '../../../resolvers/prng.ts';
-import { keyboardTypo, VARIANT_KINDS } from '../../../services/demo/corrupt.ts';
+import { VARIANT_KINDS } from '../../../services/demo/corrupt.ts';
+import { keyboardTypo } from '../../../services/demo/variants/keyboard-typo.ts';
 import { DEFAULT_MIX, generateNames, MAX_NAMES, type GeneratedNameRow } from '../../../services/demo/generate-names.ts';
 
 const rows = [...generateNames(20_000, 11)];
