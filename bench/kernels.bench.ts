@@ -176,7 +176,7 @@ async function runAlone(): Promise<void> {
     return i >= 0 ? Number(argv[i + 1]) : undefined;
   };
   const { generateNames } = await import('../services/demo/generate-names.ts');
-  const { rate, withPeakMemory } = await import('./runner.ts');
+  const { rate, withPeakMemory } = await import('./measure.ts');
   const seed = option('--seed') ?? 1;
   const ctx: BenchContext = {
     mode: 'default',

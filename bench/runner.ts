@@ -7,77 +7,14 @@
  * The contract for bench files is bench/types.ts.
  */
 import { fork } from 'node:child_process';
-import { mkdirSync, mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
-import { cpus, freemem, tmpdir, totalmem, arch, platform } from 'node:os';
-import { basename, dirname, join, relative } from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
-import type { BenchContext, BenchMode, BenchModule, BenchResults, BenchRow } from './types.ts';
-
-const BENCH_DIR = dirname(fileURLToPath(import.meta.url));
-const REPO = dirname(BENCH_DIR);
-
-interface Options {
-  mode: BenchMode;
-  only: string[];
-  seed: number;
-  keep: boolean;
-}
-
-/** Per-file time limits: a hung bench must not stall the run. */
-const FILE_TIMEOUT_S: Record<BenchMode, number> = { quick: 300, default: 3600, full: 4 * 3600 };
-
-export function sizesFor(mode: BenchMode): BenchContext['sizes'] {
-  if (mode === 'quick') return { register: [10_000], names: [10_000], ingest: [10_000], scaleOut: [5_000] };
-  if (mode === 'default') return { register: [10_000, 100_000], names: [100_000], ingest: [100_000], scaleOut: [50_000] };
-  return { register: [10_000, 100_000, 1_000_000], names: [100_000, 1_000_000], ingest: [100_000, 1_000_000], scaleOut: [1_000_000] };
-}
-
-const SOAK_SECONDS: Record<BenchMode, number> = { quick: 30, default: 60, full: 300 };
-
-export function parseArgs(argv: string[]): Options {
-  const options: Options = { mode: 'default', only: [], seed: 1, keep: false };
-  for (let i = 0; i < argv.length; i++) {
-    const arg = argv[i]!;
-    if (arg === '--quick') options.mode = 'quick';
-    else if (arg === '--full') options.mode = 'full';
-    else if (arg === '--keep') options.keep = true;
-    else if (arg === '--only' || arg === '--seed') {
-      const value = argv[++i];
-      if (value === undefined) throw new Error(`${arg}: missing value`);
-      if (arg === '--only') options.only.push(...value.split(',').filter(Boolean));
-      else {
-        if (!/^\d+$/.test(value)) throw new Error(`--seed: expected a whole number, got "${value}"`);
-        options.seed = Number(value);
-      }
-    } else throw new Error(`unknown option "${arg}" (valid: --quick, --full, --only <name>, --seed <n>, --keep)`);
-  }
-  if (argv.includes('--quick') && argv.includes('--full')) throw new Error('--quick and --full exclude each other');
-  return options;
-}
-
-export function discover(only: string[]): string[] {
-  const all = readdirSync(BENCH_DIR)
-    .filter((f) => f.endsWith('.bench.ts'))
-    .sort();
-  if (only.length === 0) return all;
-  const names = new Set(all.map(benchName));
-  const unknown = only.filter((o) => !names.has(o));
-  if (unknown.length > 0) {
-    throw new Error(`--only: no bench named ${unknown.join(', ')} (available: ${[...names].join(', ') || 'none'})`);
-  }
-  return all.filter((f) => only.includes(benchName(f)));
-}
-
-function benchName(file: string): string {
-  return basename(file, '.bench.ts');
-}
-
-/** Heap for --full children: three quarters of the machine's memory, at most 16 GB. */
-function fullHeapMb(): number {
-  return Math.min(16_384, Math.floor((totalmem() / 1024 / 1024) * 0.75));
-}
-
-// ---------------------------------------------------------------- parent
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { cpus, freemem, totalmem, arch, platform } from 'node:os';
+import { join, relative } from 'node:path';
+import type { BenchResults, BenchRow } from './types.ts';
+import { FILE_TIMEOUT_S, fullHeapMb, parseArgs, type RunnerOptions } from './runner-options.ts';
+import { BENCH_DIR, REPO, benchName, discover } from './discover.ts';
+import { computeRatios, formatTable } from './format-table.ts';
+import { runChild, type ChildMessage } from './run-child.ts';
 
 interface FileOutcome {
   rows: BenchRow[];
@@ -87,7 +24,7 @@ interface FileOutcome {
   error?: string;
 }
 
-async function runFile(file: string, options: Options): Promise<FileOutcome> {
+async function runFile(file: string, options: RunnerOptions): Promise<FileOutcome> {
   const started = Date.now();
   const rows: BenchRow[] = [];
   const execArgv = options.mode === 'full' ? [`--max-old-space-size=${fullHeapMb()}`] : [];
@@ -115,53 +52,6 @@ async function runFile(file: string, options: Options): Promise<FileOutcome> {
   return { rows: rows.map((r) => ({ ...r, bench: benchName(file) })), ok, seconds, peakRssMb, error };
 }
 
-/** Fills `ratio` (times better than the baseline row) and `goalMet`. */
-export function computeRatios(rows: BenchRow[]): BenchRow[] {
-  const byKey = new Map(rows.map((r) => [`${r.bench}/${r.id}`, r]));
-  return rows.map((row) => {
-    const out = { ...row };
-    if (row.baseline && row.skipped === undefined) {
-      const base = byKey.get(`${row.bench}/${row.baseline}`);
-      if (base && base.skipped === undefined && base.value > 0 && row.value > 0) {
-        out.ratio = row.better === 'higher' ? row.value / base.value : base.value / row.value;
-      }
-    }
-    if (row.goal && row.skipped === undefined) {
-      out.goalMet = row.goal.op === '<=' ? row.value <= row.goal.value : row.value >= row.goal.value;
-    }
-    return out;
-  });
-}
-
-function formatValue(v: number): string {
-  if (!Number.isFinite(v)) return String(v);
-  const abs = Math.abs(v);
-  if (abs >= 1000) return Math.round(v).toLocaleString('en-US');
-  if (abs >= 10) return v.toFixed(1);
-  return v.toPrecision(3);
-}
-
-export function formatTable(rows: BenchRow[]): string {
-  const header = ['bench', 'measure', 'size', 'backend', 'value', 'unit', 'vs baseline', 'goal'];
-  const lines = rows.map((r) => [
-    r.bench ?? '',
-    r.label,
-    r.size === undefined ? '' : r.size.toLocaleString('en-US'),
-    r.backend ?? '',
-    r.skipped !== undefined ? 'skipped' : formatValue(r.value),
-    r.skipped !== undefined ? r.skipped : r.unit,
-    r.ratio === undefined ? '' : `${r.ratio.toFixed(2)}× ${r.baseline}`,
-    r.goal ? `${r.goal.op} ${r.goal.value} ${r.goalMet === undefined ? '' : r.goalMet ? 'met' : 'MISSED'}` : '',
-  ]);
-  const widths = header.map((h, i) => Math.max(h.length, ...lines.map((l) => l[i]!.length)));
-  const fmt = (cells: string[]): string =>
-    cells
-      .map((c, i) => c.padEnd(widths[i]!))
-      .join('  ')
-      .trimEnd();
-  return [fmt(header), fmt(widths.map((w) => '-'.repeat(w))), ...lines.map(fmt)].join('\n');
-}
-
 function timestamp(date: Date): string {
   return date
     .toISOString()
@@ -170,7 +60,7 @@ function timestamp(date: Date): string {
 }
 
 async function parent(argv: string[]): Promise<number> {
-  let options: Options;
+  let options: RunnerOptions;
   let files: string[];
   try {
     options = parseArgs(argv);
@@ -229,100 +119,8 @@ async function parent(argv: string[]): Promise<number> {
   return failed.length > 0 ? 1 : 0;
 }
 
-// ---------------------------------------------------------------- child
-
-type ChildMessage = { type: 'row'; row: BenchRow } | { type: 'done'; peakRssMb: number } | { type: 'error'; error: string };
-
-function send(message: ChildMessage): Promise<void> {
-  return new Promise((resolve) => {
-    if (!process.send) {
-      resolve();
-      return;
-    }
-    process.send(message, undefined, {}, () => resolve());
-  });
-}
-
-export function rate(fn: () => void, options: { minMs?: number; batch?: number } = {}): number {
-  const minMs = options.minMs ?? 1000;
-  const batch = Math.max(1, options.batch ?? 100);
-  const warmUntil = performance.now() + Math.min(200, minMs / 5);
-  while (performance.now() < warmUntil) for (let i = 0; i < batch; i++) fn();
-  let calls = 0;
-  const start = performance.now();
-  let now = start;
-  while (now - start < minMs) {
-    for (let i = 0; i < batch; i++) fn();
-    calls += batch;
-    now = performance.now();
-  }
-  return (calls * 1000) / (now - start);
-}
-
-export async function withPeakMemory<T>(fn: (sample: () => void) => Promise<T>): Promise<{ result: T; peakRssMb: number; peakHeapMb: number }> {
-  let peakRss = 0;
-  let peakHeap = 0;
-  const sample = (): void => {
-    const m = process.memoryUsage();
-    peakRss = Math.max(peakRss, m.rss);
-    peakHeap = Math.max(peakHeap, m.heapUsed);
-  };
-  sample();
-  const timer = setInterval(sample, 50);
-  try {
-    const result = await fn(sample);
-    sample();
-    return { result, peakRssMb: peakRss / 1024 ** 2, peakHeapMb: peakHeap / 1024 ** 2 };
-  } finally {
-    clearInterval(timer);
-  }
-}
-
-async function child(argv: string[]): Promise<void> {
-  const file = argv[argv.indexOf('--child') + 1]!;
-  const mode = argv[argv.indexOf('--mode') + 1] as BenchMode;
-  const seed = Number(argv[argv.indexOf('--seed') + 1]);
-  const keep = argv.includes('--keep');
-  const { generateNames } = await import('../services/demo/generate-names.ts');
-  const tmpDir = mkdtempSync(join(tmpdir(), `cpreg-bench-${benchName(file)}-`));
-  const pending: Array<Promise<void>> = [];
-  const ctx: BenchContext = {
-    mode,
-    databaseUrl: process.env.DATABASE_URL || undefined,
-    seed,
-    sizes: sizesFor(mode),
-    soakSeconds: SOAK_SECONDS[mode],
-    generator: { names: (count, s) => generateNames(count, s ?? seed) },
-    tmpDir,
-    record: (row) => {
-      pending.push(send({ type: 'row', row }));
-    },
-    log: (message) => process.stderr.write(`  [${benchName(file)}] ${message}\n`),
-    rate,
-    withPeakMemory,
-  };
-  try {
-    const mod = (await import(pathToFileURL(join(BENCH_DIR, file)).href)) as BenchModule;
-    const run = mod.run ?? mod.default;
-    if (typeof run !== 'function') throw new Error(`${file} exports neither run(ctx) nor a default function`);
-    const rows = await run(ctx);
-    if (!Array.isArray(rows)) throw new Error(`${file}: run(ctx) must resolve to an array of BenchRow`);
-    for (const row of rows) pending.push(send({ type: 'row', row }));
-    await Promise.all(pending);
-    await send({ type: 'done', peakRssMb: process.resourceUsage().maxRSS / 1024 });
-  } catch (error) {
-    await Promise.all(pending);
-    await send({ type: 'error', error: error instanceof Error ? error.message : String(error) });
-    process.exitCode = 1;
-  } finally {
-    if (!keep) rmSync(tmpDir, { recursive: true, force: true });
-  }
-  // Bench files may leave pools or timers open; the runner's verdict is already sent.
-  process.exit();
-}
-
-/** Entry point, called by bench/run.ts (kept apart so that tests can import the helpers above). */
+/** Entry point, called by bench/run.ts (kept apart so that tests can import the helpers of the runner's modules). */
 export async function main(argv: string[]): Promise<void> {
-  if (argv.includes('--child')) await child(argv);
+  if (argv.includes('--child')) await runChild(argv);
   else process.exitCode = await parent(argv);
 }

@@ -16,9 +16,7 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { MIGRATIONS_DIR } from './migrate.ts';
 import { LOCK_FILE_NAME } from './lock.ts';
-
-/** Same as open-database.ts's (not imported from there: that module imports this one). */
-const INIT_MARKER_NAME = 'cpreg.initialising';
+import { INIT_MARKER_NAME } from './embedded-directory.ts';
 
 const PACKAGE_ROOT = fileURLToPath(new URL('../', import.meta.url));
 

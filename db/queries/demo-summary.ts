@@ -1,5 +1,5 @@
 /**
- * What the demo's summary reads from the register (services/demo/run-demo.ts): every mention's outcome, the
+ * What the demo's summary reads from the register (services/demo/summarise-demo.ts): every mention's outcome, the
  * number of active contracts, and the counterparties named in the most contracts.
  */
 import type { ResolutionStatus } from '../../resolvers/vocabulary.ts';

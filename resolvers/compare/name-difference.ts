@@ -15,8 +15,10 @@
  * ("Fund II" / "Fund III"), a branch ("… London Branch"), a different activity word of one group ("Alder
  * Securities" / "Alder Bank"), a place on one side only ("Halvard Capital" / "Halvard Capital (UK)").
  */
+import { abbreviates } from './abbreviates.ts';
 import { ACTIVITY_WORDS, BRANCH_WORDS, isNumberToken, isPlaceWord } from './distinguishing-words.ts';
-import { jaroWinkler, jaroWinklerUpperBound } from './jaro-winkler.ts';
+import { FUNCTION_WORDS } from './function-words.ts';
+import { isTypo, ONE_EDIT_MIN_LENGTH, ONE_EDIT_MIN_LENGTH_BESIDE_RARE, TYPO_MIN_LENGTH, TYPO_MIN_LENGTH_BESIDE_RARE } from './is-typo.ts';
 import { withinOneEdit } from './within-one-edit.ts';
 
 export type NameDifferenceKind = 'equal' | 'near_equal' | 'typo' | 'abbreviation' | 'extra_words' | 'different';
@@ -30,66 +32,6 @@ export interface NameDifference {
   distinguishing: { kind: DistinguishingKind; tokens: string[] } | null;
 }
 
-/** Words so common in names that sharing them alone says nothing ("of", "de", "und"). Common practice. */
-const FUNCTION_WORDS: ReadonlySet<string> = new Set([
-  'the',
-  'of',
-  'and',
-  'for',
-  'de',
-  'des',
-  'du',
-  'la',
-  'le',
-  'les',
-  'del',
-  'di',
-  'da',
-  'do',
-  'dos',
-  'das',
-  'der',
-  'die',
-  'den',
-  'und',
-  'et',
-  'e',
-  'y',
-  'i',
-  'en',
-  'in',
-  'van',
-  'von',
-  'zu',
-  'al',
-  'el',
-  'a',
-  'an',
-  'at',
-]);
-
-/**
- * Jaro–Winkler between two words at which they count as one word with a typo: words of nine letters or more, or of
- * five or more beside a rare shared word; other words that differ by a letter are as often other names ("Tiberio" /
- * "Tiberius", "Purbach" / "Peuerbach").
- */
-const TYPO_SIMILARITY = 0.92;
-const TYPO_MIN_LENGTH = 9;
-const TYPO_MIN_LENGTH_BESIDE_RARE = 5;
-const ABBREVIATION_MAX_LENGTH = 4;
-/** Below this many letters a word is not shortened by a leading part of two or more letters (see abbreviates). */
-const ABBREVIATED_WORD_MIN_LENGTH = 6;
-const CONTRACTION_MIN_LENGTH = 3;
-const CONTRACTION_MAX_LENGTH = 5;
-/**
- * One edit is a typo in words of eight letters or more, or of four or more beside a rare shared word. At seven, the
- * place names of one banking group one letter apart join ("Raiffeisenbank Purbach" / "… Purbech", a unit test); at
- * five, on the ROR test split, one-word acronyms and place names did ("KELAB" / "KELAM", two provinces one letter
- * apart). Generated names lose 0.45 point of F1 from seven to eight letters; LEI dev links are the same at five, seven
- * and eight.
- */
-const ONE_EDIT_MIN_LENGTH = 8;
-const ONE_EDIT_MIN_LENGTH_BESIDE_RARE = 4;
 /** Two typos make a typo only beside a word shared exactly; more are another name. */
 const MAX_TYPOS = 2;
 /** Words run together with a typo: the words not shared, joined, this long at least. */
@@ -199,110 +141,6 @@ function isJoinedTypo(a: readonly string[], b: readonly string[]): boolean {
 function firstFree(b: readonly string[], taken: Uint8Array, fits: (other: string) => boolean): number {
   for (let k = 0; k < b.length; k++) if (taken[k] === 0 && fits(b[k] as string)) return k;
   return -1;
-}
-
-function isTypo(x: string, y: string, minLength: number, oneEditMin: number): boolean {
-  // A letter misread as one it looks like ("CATERlNG" / "CATERING") is a typo in a shorter word too.
-  if (x.length === y.length && x.length >= TYPO_MIN_LENGTH_BESIDE_RARE && x !== y && lookAlike(x) === lookAlike(y))
-    return !isNumberToken(x) && !isNumberToken(y);
-  // Scripts written without spaces (Han, Kana, Thai…) make a whole name one token: a changed character there is
-  // another name ("…鄞州农村商业银行" / "…慈溪农村商业银行"), not a typo.
-  if (!isSpacedScript(x) || !isSpacedScript(y)) return false;
-  if (!typoNumbersAgree(x, y)) return false;
-  // One edit ("Halselan" / "Halseln", "Power" / "ower"): two edits are as often another name ("Tiberio" /
-  // "Tiberius", "Purbach" / "Peuerbach"). Not in a word with digits, where one digit is another number ("UX4150" /
-  // "UX4100").
-  if (x.length >= oneEditMin && y.length >= oneEditMin && !/\d/.test(x + y) && withinOneEdit(x, y)) return true;
-  if (x.length < minLength || y.length < minLength) return false;
-  // One typo (a letter added, dropped, changed or swapped) changes the length by one at most.
-  if (Math.abs(x.length - y.length) > 1) return false;
-  if (jaroWinklerUpperBound(x.length, y.length) < TYPO_SIMILARITY || sharedLetterBound(x, y) < TYPO_SIMILARITY) return false;
-  return jaroWinkler(x, y) >= TYPO_SIMILARITY;
-}
-
-/**
- * Numbers carry identity: two numbers are never one with a typo ("II" / "III", "2" / "3"), and a word whose digits
- * differ is no typo ("3Eclipse" / "Eclipse", "Fund2" / "Fund3"), unless a digit stands in a letter's place that it
- * looks like ("Ostjasic0" / "Ostjasico", a misread scan). A number word against a plain word ("First" / "Firt") may
- * be a typo of it.
- */
-function typoNumbersAgree(x: string, y: string): boolean {
-  const numberX = isNumberToken(x);
-  const numberY = isNumberToken(y);
-  if (numberX && numberY) return false;
-  if ((numberX || numberY) && (/\d/.test(x) || /\d/.test(y))) return false;
-  return digitsOf(x) === digitsOf(y) || (x.length === y.length && digitsOf(lookAlike(x)) === digitsOf(lookAlike(y)));
-}
-
-function digitsOf(token: string): string {
-  return token.replace(/\D+/g, '');
-}
-
-/** Characters read as the letters they resemble (0 o, 1 i l, 5 s): common practice for misread scans. */
-function lookAlike(token: string): string {
-  return token.replace(/0/g, 'o').replace(/[1i]/g, 'l').replace(/5/g, 's');
-}
-
-/** Latin, Greek, Cyrillic, Armenian, Hebrew, Arabic and the Indic scripts before Thai (U+0E00) separate words. */
-function isSpacedScript(token: string): boolean {
-  return token.charCodeAt(0) < 0x0e00;
-}
-
-const buckets = new Int16Array(64);
-
-/**
- * An upper bound of Jaro–Winkler from the letters the two words share in any order (counted in 64 buckets, which
- * can only over-count): Jaro ≤ (i/|x| + i/|y| + 1) / 3 for i shared letters, and JW ≤ J + 0.4 (1 − J). Most pairs
- * of different words fail it, so the exact JW is computed for few of them.
- */
-function sharedLetterBound(x: string, y: string): number {
-  for (let i = 0; i < x.length; i++) buckets[x.charCodeAt(i) & 63]!++;
-  let shared = 0;
-  for (let i = 0; i < y.length; i++) {
-    const k = y.charCodeAt(i) & 63;
-    if (buckets[k]! > 0) {
-      buckets[k]!--;
-      shared++;
-    }
-  }
-  for (let i = 0; i < x.length; i++) buckets[x.charCodeAt(i) & 63] = 0;
-  const jaro = (shared / x.length + shared / y.length + 1) / 3;
-  return jaro + 0.4 * (1 - jaro);
-}
-
-/**
- * `short` is a leading part of `long` ("r" of "rural", "coop" of "cooperativa"): at most four letters or half the
- * word ("Raiffeisen" is no abbreviation of "Raiffeisenbank"), not a number, not a function word.
- */
-function abbreviates(short: string, long: string): boolean {
-  if (short.length >= long.length || long.length < 3) return false;
-  if (isNumberToken(short) && short.length > 1) return false;
-  // "I" is no abbreviation of "III": a series number is a distinguishing word, never shortened.
-  if (isNumberToken(long)) return false;
-  if (short.length > 1 && FUNCTION_WORDS.has(short)) return false;
-  if (isContraction(short, long)) return true;
-  if (short.length > ABBREVIATION_MAX_LENGTH && short.length * 2 > long.length) return false;
-  // Words of four or five letters are not shortened in names: such a pair is two codes ("UMR" / "UMRS", "ITT" /
-  // "ITTLA"). On ROR test, 6 of the 9 false pairs among 190 at the abbreviation level were of this shape (cpreg
-  // evaluate, rebuilt weights). An initial still abbreviates.
-  if (short.length > 1 && long.length < ABBREVIATED_WORD_MIN_LENGTH) return false;
-  return long.startsWith(short);
-}
-
-/**
- * `short` keeps the first and last letters of `long` and some of the rest in order, as business contractions do
- * ("Mgmt" / "Management", "Hldgs" / "Holdings", "Ptnrs" / "Partners", "Intl" / "International"): at least three
- * letters, at most five, at most one vowel after the first letter, no digits, and at least two letters fewer than the
- * word.
- */
-function isContraction(short: string, long: string): boolean {
-  if (short.length < CONTRACTION_MIN_LENGTH || short.length > CONTRACTION_MAX_LENGTH || long.length < short.length + 2) return false;
-  if (short[0] !== long[0] || short[short.length - 1] !== long[long.length - 1] || /\d/.test(short)) return false;
-  // Contractions drop the vowels; a short word with vowels is as often another word ("Saka" / "Sakura").
-  if ((short.slice(1).match(/[aeiouy]/g)?.length ?? 0) > 1) return false;
-  let k = 1;
-  for (let i = 1; i < long.length - 1 && k < short.length - 1; i++) if (long[i] === short[k]) k++;
-  return k === short.length - 1;
 }
 
 function distinguishingOf(

@@ -7,7 +7,7 @@
  * company word stays the generator's coined word.
  */
 import { weightedIndex, type Random } from '../../resolvers/prng.ts';
-import type { NameParts } from './corrupt.ts';
+import type { NameParts } from './render-name.ts';
 import type { LegalFormFamily } from './name-parts.ts';
 import { countryOf, JURISDICTIONS } from './name-parts.ts';
 

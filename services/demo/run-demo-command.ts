@@ -23,7 +23,8 @@ import { additionsLine, demoState } from './demo-state.ts';
 import { cliActor, progressReporter } from '../ingest/cli-support.ts';
 import { CONTRACT_SOURCE, generateScenario, type Scenario } from './scenario/index.ts';
 import { writeScenario } from './write-scenario.ts';
-import { loadDemo, summariseDemo, type DemoStage, type DemoSummary } from './run-demo.ts';
+import { loadDemo, type DemoStage } from './run-demo.ts';
+import { summariseDemo, type DemoSummary } from './summarise-demo.ts';
 import { formatSummary } from './run-demo-format.ts';
 
 const STATE_FILE = 'demo-state.json';

@@ -1,5 +1,5 @@
 /** The demo summary as a person reads it at a glance (the --json form is the DemoSummary itself). */
-import type { DemoSummary } from './run-demo.ts';
+import type { DemoSummary } from './summarise-demo.ts';
 import type { DemoAccuracy } from './accuracy.ts';
 
 const pct = (x: number): string => `${(x * 100).toFixed(1)}%`;

@@ -2,7 +2,8 @@
 import { createWriteStream } from 'node:fs';
 import { rename, rm } from 'node:fs/promises';
 import { once } from 'node:events';
-import { generateNames, nameCsvLine, NAME_CSV_HEADER } from './generate-names.ts';
+import { generateNames } from './generate-names.ts';
+import { nameCsvLine, NAME_CSV_HEADER } from './name-csv.ts';
 
 export interface NamesFileSummary {
   file: string;

@@ -14,7 +14,7 @@ import { counterpartyStates } from '../../db/queries/counterparties.ts';
 import { finishIngestRun } from '../../db/queries/ingest-runs.ts';
 import { partitionResults, updateJob, type JobRow } from '../../db/queries/jobs.ts';
 import { storedMentionsByRef } from '../../db/queries/mentions.ts';
-import { emptyCounts, unaccounted, type IngestCounts } from '../ingest/run-ingest.ts';
+import { emptyCounts, unaccounted, type IngestCounts } from '../ingest/ingest-counts.ts';
 import { RegisterError } from '../register/errors.ts';
 import { mergeCounterparties } from '../register/merge-counterparties.ts';
 import { currentModel } from '../register/matching/model.ts';

@@ -10,7 +10,8 @@
 import { candidatePairs, partitionRecords, type MatchRecord } from '../../resolvers/block/index.ts';
 import { scorePair } from '../../resolvers/score/index.ts';
 import { chunksOf, deleteChunks, insertPartitions, readJob, updateJob } from '../../db/queries/jobs.ts';
-import { emptyCounts, storedHashes } from '../ingest/run-ingest.ts';
+import { emptyCounts } from '../ingest/ingest-counts.ts';
+import { storedHashes } from '../ingest/stored-hashes.ts';
 import { RegisterError } from '../register/errors.ts';
 import { basisOf, documentFrequencies, freezeRarity, idfFromCounts, registerSize, type FrozenRarity } from '../register/matching/idf.ts';
 import { currentModel } from '../register/matching/model.ts';

@@ -6,7 +6,8 @@
  * register as it now stands.
  */
 import { finishPartition, readJob, readPartition, startPartition } from '../../db/queries/jobs.ts';
-import { emptyCounts, storedHashes } from '../ingest/run-ingest.ts';
+import { emptyCounts } from '../ingest/ingest-counts.ts';
+import { storedHashes } from '../ingest/stored-hashes.ts';
 import { resolveBatch, type BatchOptions } from '../register/batch.ts';
 import { prepareMention } from '../register/resolve/prepare.ts';
 import { MAX_LISTED_REJECTS, type JobDeps } from './deps.ts';

@@ -12,7 +12,7 @@ import { insertChunk, insertJob, updateJob } from '../../db/queries/jobs.ts';
 import type { Database } from '../../db/types.ts';
 import type { MentionInput } from '../../resolvers/vocabulary.ts';
 import type { FieldMap } from '../ingest/mapping.ts';
-import { formatOf, rowsOf, type IngestFormat } from '../ingest/run-ingest.ts';
+import { formatOf, rowsOf, type IngestFormat } from '../ingest/rows-of.ts';
 import { unstorableRowReason } from '../ingest/unstorable-text.ts';
 import { JOB_STEPS, PARTITION_DEFAULTS } from './deps.ts';
 

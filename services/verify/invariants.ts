@@ -15,7 +15,7 @@ import {
   sharedStrongIdentifiers,
 } from '../../db/queries/invariant-reads.ts';
 import { STRONG_SCHEMES } from '../../resolvers/vocabulary.ts';
-import { COUNT_KEYS } from '../ingest/run-ingest.ts';
+import { COUNT_KEYS } from '../ingest/ingest-counts.ts';
 import { chooseCanonicalName, type NameCandidate } from '../register/canonical-name.ts';
 
 export interface Violation {

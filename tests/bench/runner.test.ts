@@ -1,6 +1,8 @@
 // The bench runner's pure parts (the benchmarks themselves never run in `npm test`).
 import { describe, expect, it } from 'vitest';
-import { computeRatios, discover, formatTable, parseArgs, sizesFor } from '../../bench/runner.ts';
+import { discover } from '../../bench/discover.ts';
+import { computeRatios, formatTable } from '../../bench/format-table.ts';
+import { parseArgs, sizesFor } from '../../bench/runner-options.ts';
 import type { BenchRow } from '../../bench/types.ts';
 
 const row = (r: Partial<BenchRow> & Pick<BenchRow, 'id' | 'value' | 'better'>): BenchRow => ({ label: r.id, unit: 'x', bench: 'k', ...r });

@@ -16,17 +16,6 @@ const EXEMPT_FOLDERS = ['migrations/'];
 const EXEMPT: { file: string; why: string }[] = [
   { file: 'services/demo/scenario/entities.ts', why: 'data: the invented entities of the demo scenario, one table' },
   { file: 'services/register/batch.ts', why: 'not split yet: the batch stages and their timing hook (issue 21 item 1)' },
-  { file: 'bench/scale-out.bench.ts', why: 'not split yet (issue 21 item 5)' },
-  { file: 'bench/runner.ts', why: 'not split yet (issue 21 item 5)' },
-  { file: 'db/open-database.ts', why: 'not split yet (issue 21 item 5)' },
-  { file: 'db/types.ts', why: 'not split yet (issue 21 item 5): the table types of the schema' },
-  { file: 'resolvers/compare/name-difference.ts', why: 'not split yet (issue 21 item 5)' },
-  { file: 'services/demo/corrupt.ts', why: 'not split yet (issue 21 item 5)' },
-  { file: 'services/demo/generate-names.ts', why: 'not split yet (issue 21 item 5)' },
-  { file: 'services/demo/name-parts.ts', why: 'not split yet (issue 21 item 5): word lists of the name generator' },
-  { file: 'services/demo/run-demo.ts', why: 'not split yet (issue 21 item 5)' },
-  { file: 'services/forget/forget.ts', why: 'not split yet (issue 21 item 5)' },
-  { file: 'services/ingest/run-ingest.ts', why: 'not split yet (issue 21 item 5)' },
 ];
 
 /** Lines as `wc -l` counts them: line ends. */

@@ -57,7 +57,8 @@ export default function register(program: Command): void {
       const batchSize = Number(options.batchSize);
       if (!Number.isInteger(batchSize) || batchSize < 1 || batchSize > 10_000) throw new CliError('--batch-size: expected a whole number from 1 to 10000');
       const { parseMapOptions, MappingError } = await import('../../ingest/mapping.ts');
-      const { ingestFile, formatOf } = await import('../../ingest/run-ingest.ts');
+      const { ingestFile } = await import('../../ingest/run-ingest.ts');
+      const { formatOf } = await import('../../ingest/rows-of.ts');
       const { withDatabase, cliActor, progressReporter } = await import('../../ingest/cli-support.ts');
       let map;
       let format;

@@ -2,7 +2,7 @@
 import type { Random } from '../../../resolvers/prng.ts';
 import type { Identifier } from '../../../resolvers/vocabulary.ts';
 import { ENDINGS, GIVEN_NAMES, INDUSTRIES, LEGAL_FORMS, SYLLABLES, countryOf } from '../name-parts.ts';
-import { pickJurisdiction } from '../generate-names.ts';
+import { pickJurisdiction } from '../invent-organisation.ts';
 import * as ids from './identifiers.ts';
 import type { Address, OwnEntity, Person, ScenarioCounterparty } from './types.ts';
 

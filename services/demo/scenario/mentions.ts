@@ -6,7 +6,8 @@
  */
 import type { Random } from '../../../resolvers/prng.ts';
 import type { MentionInput } from '../../../resolvers/vocabulary.ts';
-import { corrupt, renderName, type NameParts } from '../corrupt.ts';
+import { corrupt } from '../corrupt.ts';
+import { renderName, type NameParts } from '../render-name.ts';
 import { LEGAL_FORMS, countryOf } from '../name-parts.ts';
 import { ALL_ROLES, GOVERNING_LAW } from './contracts.ts';
 import type { ContractParty, MentionStyle, MentionTruth, OwnEntity, ScenarioContract, ScenarioCounterparty, ScenarioMention } from './types.ts';

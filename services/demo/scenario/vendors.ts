@@ -7,9 +7,10 @@
 import { stringify } from 'csv-stringify/sync';
 import { friendlyFormatIBAN } from 'ibantools';
 import type { Random } from '../../../resolvers/prng.ts';
-import { corrupt, renderName } from '../corrupt.ts';
+import { corrupt } from '../corrupt.ts';
+import { renderName } from '../render-name.ts';
 import { INDUSTRIES, LEGAL_FORMS, countryOf } from '../name-parts.ts';
-import { pickJurisdiction } from '../generate-names.ts';
+import { pickJurisdiction } from '../invent-organisation.ts';
 import { address, coinedWord, companyIdentifiers, phone } from './entities.ts';
 import { iban as makeIban } from './identifiers.ts';
 import { splitLegalName } from './mentions.ts';

@@ -12,16 +12,11 @@ import {
   REGION_QUALIFIERS,
   SERIES_MARKERS,
 } from '../../../services/demo/hard-negatives.ts';
-import {
-  COINED_WORDS,
-  corePermutation,
-  DEFAULT_MIX,
-  generateNames,
-  SIBLING_KINDS,
-  siblingActivity,
-  type GeneratedNameRow,
-  type SiblingKind,
-} from '../../../services/demo/generate-names.ts';
+import { generateNames } from '../../../services/demo/generate-names.ts';
+import { COINED_WORDS, corePermutation } from '../../../services/demo/core-permutation.ts';
+import { DEFAULT_MIX } from '../../../services/demo/name-mix.ts';
+import { SIBLING_KINDS, type GeneratedNameRow, type SiblingKind } from '../../../services/demo/generated-name-row.ts';
+import { siblingActivity } from '../../../services/demo/imitation.ts';
 import { countryOf, DESCRIPTORS, INDUSTRIES, LEGAL_FORMS, LOCAL_INDUSTRIES } from '../../../services/demo/name-parts.ts';
 
 const SIZE = 5_000;

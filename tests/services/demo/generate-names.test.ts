@@ -1,8 +1,11 @@
 import levenshtein from 'fast-levenshtein';
 import { describe, expect, it } from 'vitest';
 import { seededRandom } from '../../../resolvers/prng.ts';
-import { keyboardTypo, VARIANT_KINDS } from '../../../services/demo/corrupt.ts';
-import { DEFAULT_MIX, generateNames, MAX_NAMES, type GeneratedNameRow } from '../../../services/demo/generate-names.ts';
+import { VARIANT_KINDS } from '../../../services/demo/corrupt.ts';
+import { keyboardTypo } from '../../../services/demo/variants/keyboard-typo.ts';
+import { generateNames, MAX_NAMES } from '../../../services/demo/generate-names.ts';
+import { DEFAULT_MIX } from '../../../services/demo/name-mix.ts';
+import type { GeneratedNameRow } from '../../../services/demo/generated-name-row.ts';
 
 const rows = [...generateNames(20_000, 11)];
 const originals = new Map(rows.filter((r) => r.variantKind === 'original').map((r) => [r.entityId, r]));

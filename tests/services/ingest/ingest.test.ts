@@ -8,7 +8,8 @@ import { spawn } from 'node:child_process';
 import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { parse } from 'csv-parse/sync';
-import { ingestFile, unaccounted, COUNT_KEYS } from '../../../services/ingest/run-ingest.ts';
+import { ingestFile } from '../../../services/ingest/run-ingest.ts';
+import { unaccounted, COUNT_KEYS } from '../../../services/ingest/ingest-counts.ts';
 import { parseMapOptions, MappingError } from '../../../services/ingest/mapping.ts';
 import { describeEachBackend, makeTempDir, removeTempDir } from '../../support/database.ts';
 

@@ -1,0 +1,49 @@
+/**
+ * The CPU time of the PostgreSQL backends serving one database, followed while a job runs (backends come and go).
+ */
+import type pg from 'pg';
+import { procCpu } from './proc-cpu.ts';
+
+/**
+ * Follows the CPU time of the backends of one database: every `tick` it lists their pids (pg_stat_activity) and
+ * reads each one's CPU; a backend's contribution is its last reading minus its first (0 for one born meanwhile).
+ */
+export class BackendCpu {
+  private readonly first = new Map<number, number>();
+  private readonly last = new Map<number, number>();
+  private readonly born = new Set<number>();
+  private started = false;
+
+  constructor(
+    private readonly admin: pg.Client,
+    private readonly database: string,
+    private readonly exclude: number,
+  ) {}
+
+  async tick(): Promise<void> {
+    const { rows } = await this.admin.query<{ pid: number }>('SELECT pid FROM pg_stat_activity WHERE datname = $1 AND pid <> $2', [
+      this.database,
+      this.exclude,
+    ]);
+    for (const { pid } of rows) {
+      const cpu = procCpu(pid);
+      if (!cpu) continue;
+      if (!this.first.has(pid)) {
+        this.first.set(pid, this.started ? 0 : cpu.own);
+        if (this.started) this.born.add(pid);
+      }
+      this.last.set(pid, cpu.own);
+    }
+    this.started = true;
+  }
+
+  seconds(): number {
+    let total = 0;
+    for (const [pid, last] of this.last) total += last - (this.first.get(pid) ?? last);
+    return total;
+  }
+
+  backends(): number {
+    return this.last.size;
+  }
+}
