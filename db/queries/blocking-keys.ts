@@ -7,6 +7,7 @@
 import { sql } from 'kysely';
 import type { Queryable } from './util.ts';
 import { id } from './util.ts';
+import { registerSizeSql, tokenDf } from './rarity-counts.ts';
 
 export async function candidatesByKeys(
   db: Queryable,
@@ -75,9 +76,40 @@ export async function candidateDetails(
  */
 export async function candidateDetailsBatch(
   db: Queryable,
-  probes: { keys: string[]; identifiers: { scheme: string; value: string }[]; country?: string | null }[],
+  probes: CandidateProbe[],
   options: { perKey?: number; limit?: number } = {},
 ): Promise<CandidateDetail[][]> {
+  return (await candidateQuery(db, probes, options, null)).details;
+}
+
+/** A probe of the candidate lookup: its blocking keys, identifiers and country. */
+export interface CandidateProbe {
+  keys: string[];
+  identifiers: { scheme: string; value: string }[];
+  country?: string | null;
+}
+
+/**
+ * candidateDetailsBatch and, in the same statement (one round trip fewer for a single resolve), the token counts of
+ * `tokens` and of every word of the candidates' stored names (their `normalised` text split at spaces: a superset of
+ * the tokens their analyses give), with the register's size, read as tokenCountsAndSize reads them
+ * (db/queries/rarity-counts.ts, the same expression). Answers null counts when the probes have nothing to look up.
+ */
+export async function candidateDetailsWithTokenCounts(
+  db: Queryable,
+  probes: CandidateProbe[],
+  options: { perKey?: number; limit?: number },
+  read: { tokens: readonly string[]; cap: number },
+): Promise<{ details: CandidateDetail[][]; counts: { counts: Map<string, number>; size: number } | null }> {
+  return candidateQuery(db, probes, options, read);
+}
+
+async function candidateQuery(
+  db: Queryable,
+  probes: CandidateProbe[],
+  options: { perKey?: number; limit?: number },
+  read: { tokens: readonly string[]; cap: number } | null,
+): Promise<{ details: CandidateDetail[][]; counts: { counts: Map<string, number>; size: number } | null }> {
   const out: CandidateDetail[][] = probes.map(() => []);
   const countryProbe: number[] = [];
   const countries: string[] = [];
@@ -102,8 +134,9 @@ export async function candidateDetailsBatch(
       values.push(identifier.value);
     }
   });
-  if (keys.length === 0 && schemes.length === 0) return out;
+  if (keys.length === 0 && schemes.length === 0) return { details: out, counts: null };
   const result = await sql<{
+    kind: 'c' | 't' | 's';
     ps: (string | number)[] | string;
     rns: (string | number)[] | string;
     id: string | number;
@@ -111,6 +144,8 @@ export async function candidateDetailsBatch(
     jurisdiction: string | null;
     names: [string, string][] | string;
     identifiers: [string, string, string | null][] | string;
+    token: string | null;
+    df: string | number | null;
   }>`
     WITH q AS (
       SELECT p, key FROM unnest(${sql.val(keyProbe)}::int[], ${sql.val(keys)}::text[]) AS q(p, key)
@@ -148,15 +183,22 @@ export async function candidateDetailsBatch(
       SELECT counterparty_id, array_agg(p ORDER BY p) AS ps, array_agg(rn ORDER BY p) AS rns
       FROM (SELECT p, counterparty_id, coalesce(min(rn), ${UNRANKED})::int AS rn FROM pairs GROUP BY p, counterparty_id) x
       GROUP BY counterparty_id
+    ), found AS (
+      SELECT cps.ps, cps.rns, cp.id, cp.canonical_name, cp.jurisdiction,
+        (SELECT coalesce(json_agg(json_build_array(n.name, n.kind) ORDER BY n.id), '[]'::json) FROM counterparty_name n WHERE n.counterparty_id = cp.id) AS names,
+        (SELECT coalesce(json_agg(json_build_array(i.scheme, i.value, i.label) ORDER BY i.id), '[]'::json) FROM counterparty_identifier i WHERE i.counterparty_id = cp.id) AS identifiers
+      FROM cps JOIN counterparty cp ON cp.id = cps.counterparty_id
+      WHERE cp.status = 'active'
     )
-    SELECT cps.ps, cps.rns, cp.id, cp.canonical_name, cp.jurisdiction,
-      (SELECT coalesce(json_agg(json_build_array(n.name, n.kind) ORDER BY n.id), '[]'::json) FROM counterparty_name n WHERE n.counterparty_id = cp.id) AS names,
-      (SELECT coalesce(json_agg(json_build_array(i.scheme, i.value, i.label) ORDER BY i.id), '[]'::json) FROM counterparty_identifier i WHERE i.counterparty_id = cp.id) AS identifiers
-    FROM cps JOIN counterparty cp ON cp.id = cps.counterparty_id
-    WHERE cp.status = 'active'
-    ORDER BY cp.id`.execute(db);
+    SELECT 'c' AS kind, f.*, NULL::text AS token, NULL::bigint AS df FROM found f
+    ${read ? tokenCountRows(read) : sql``}
+    ORDER BY kind, id`.execute(db);
   const ranks = probes.map(() => new Map<CandidateDetail, number>());
+  const counts = read ? { counts: new Map<string, number>(), size: 0 } : null;
   for (const r of result.rows) {
+    if (r.kind === 's') counts!.size = Number(r.df ?? 0);
+    if (r.kind === 't') counts!.counts.set(r.token!, Number(r.df ?? 0));
+    if (r.kind !== 'c') continue;
     const detail = detailOf(r);
     const rns = parseIntArray(r.rns);
     parseIntArray(r.ps).forEach((p, i) => {
@@ -166,7 +208,23 @@ export async function candidateDetailsBatch(
   }
   // Rows come by id; each probe's list is put in its rank order (identifier holders without a key last, by id).
   out.forEach((list, p) => list.sort((x, y) => ranks[p]!.get(x)! - ranks[p]!.get(y)! || x.counterpartyId - y.counterpartyId));
-  return out;
+  return { details: out, counts };
+}
+
+/** The token-count rows appended to the candidates (see candidateDetailsWithTokenCounts): kind 't' per token, 's' the size. */
+function tokenCountRows(read: { tokens: readonly string[]; cap: number }) {
+  return sql`UNION ALL
+    SELECT 't', NULL, NULL, NULL, NULL, NULL, NULL, NULL, t.token, ${tokenDf(read.cap)}
+    FROM (
+      SELECT DISTINCT token FROM (
+        SELECT unnest(${sql.val([...read.tokens])}::text[]) AS token
+        UNION ALL
+        SELECT regexp_split_to_table(n.normalised, ' ') FROM counterparty_name n WHERE n.counterparty_id IN (SELECT id FROM found)
+      ) u WHERE token <> ''
+    ) t
+    LEFT JOIN blocking_key_count c ON c.key = 't:' || t.token
+    UNION ALL
+    SELECT 's', NULL, NULL, NULL, NULL, NULL, NULL, NULL, NULL, ${registerSizeSql()}`;
 }
 
 /** How many of the rarest candidates are reordered by country before the limit is taken. */

@@ -9,9 +9,9 @@ import type { Queryable } from './util.ts';
 /** Document frequencies of `tokens` (uncapped; a key at `cap` names answers its names count) and the register size. */
 export async function tokenCountsAndSize(db: Queryable, tokens: readonly string[], cap: number): Promise<{ counts: Map<string, number>; size: number }> {
   const result = await sql<{ token: string | null; df: string | number | null }>`
-    SELECT NULL::text AS token, (SELECT max(id) FROM counterparty) AS df
+    SELECT NULL::text AS token, ${registerSizeSql()} AS df
     UNION ALL
-    SELECT t.token, CASE WHEN c.names >= ${cap} THEN c.names ELSE coalesce(c.counterparties, 0) END AS df
+    SELECT t.token, ${tokenDf(cap)} AS df
     FROM unnest(${sql.val([...tokens])}::text[]) AS t(token)
     LEFT JOIN blocking_key_count c ON c.key = 't:' || t.token`.execute(db);
   const counts = new Map<string, number>();
@@ -21,4 +21,14 @@ export async function tokenCountsAndSize(db: Queryable, tokens: readonly string[
     else counts.set(row.token, Number(row.df ?? 0));
   }
   return { counts, size };
+}
+
+/** A token's count from its blocking_key_count row `c` (uncapped; a key at `cap` names answers its names count). */
+export function tokenDf(cap: number) {
+  return sql`CASE WHEN c.names >= ${cap} THEN c.names ELSE coalesce(c.counterparties, 0) END`;
+}
+
+/** The register's size: its highest counterparty id (services/register/matching/idf.ts says why). */
+export function registerSizeSql() {
+  return sql`(SELECT max(id) FROM counterparty)`;
 }

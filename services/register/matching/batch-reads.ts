@@ -7,11 +7,11 @@
  */
 import type { NameAnalysis } from '../../../resolvers/analyse/types.ts';
 import type { Identifier } from '../../../resolvers/vocabulary.ts';
-import { candidateDetailsBatch, type CandidateDetail } from '../../../db/queries/blocking-keys.ts';
+import { candidateDetailsWithTokenCounts, type CandidateDetail } from '../../../db/queries/blocking-keys.ts';
 import { listOwnEntities, type OwnEntityView } from '../../../db/queries/own-entities.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
 import { analyse } from './analysis.ts';
-import { NO_BASIS, rarityCounts, type RarityBasis, type RarityReads } from './idf.ts';
+import { DF_CAP, NO_BASIS, rarityCounts, rarityOfCounts, type RarityBasis, type RarityCounts, type RarityReads } from './idf.ts';
 import { keysOfAnalysis } from './keys.ts';
 
 export interface ScoredMemoKey {
@@ -67,12 +67,18 @@ export class BatchReads implements RarityReads {
     if (missing.length > 0 || this.size === undefined) {
       const read = rarityCounts(this.db, missing);
       this.size ??= read.then((counts) => counts.registerSize);
-      for (const [token, df] of (await read).frequencies) this.df.set(token, df);
+      this.remember(await read);
     }
     return new Map(wanted.map((t) => [t, this.df.get(t)!]));
   }
 
-  /** Fetches the candidates of many probes in one statement (see candidateDetailsBatch). */
+  /** Keeps counts read on this batch's snapshot (the first size read stays: every later one is the same or later). */
+  private remember(counts: RarityCounts): void {
+    this.size ??= Promise.resolve(counts.registerSize);
+    for (const [token, df] of counts.frequencies) if (!this.df.has(token)) this.df.set(token, df);
+  }
+
+  /** Fetches the candidates of many probes in one statement (see candidateDetailsWithTokenCounts). */
   async prefetch(
     probes: { analysis: NameAnalysis; identifiers: Identifier[]; country?: string | null; input?: { country?: string | null } }[],
     limit: number,
@@ -86,15 +92,21 @@ export class BatchReads implements RarityReads {
     }
     if (todo.size === 0) return;
     const entries = [...todo.entries()];
-    const found = await candidateDetailsBatch(
+    const tokens = new Set<string>();
+    for (const probe of probes) for (const t of probe.analysis.tokens) tokens.add(t);
+    // The token counts come in the same statement as the candidates: the probes' tokens and every word of the
+    // candidates' stored names (a superset of their analyses' tokens), with the register's size.
+    const read = await candidateDetailsWithTokenCounts(
       this.db,
       entries.map(([, p]) => p),
       { limit },
+      { tokens: [...tokens].filter((t) => !this.df.has(t)), cap: DF_CAP },
     );
+    const found = read.details;
     entries.forEach(([key], i) => this.details.set(key, found[i]!));
-    // The token counts scoring will ask for: the probes' tokens and those of every candidate name, in one read.
-    const tokens = new Set<string>();
-    for (const probe of probes) for (const t of probe.analysis.tokens) tokens.add(t);
+    if (read.counts) this.remember(rarityOfCounts(read.counts));
+    // The token counts scoring will ask for: the probes' tokens and those of every candidate name; read now only
+    // when an analysis gave a token its stored name's words lack (a name stored by another analysis version).
     for (const list of found) {
       for (const cp of list) for (const n of cp.names) for (const t of analyse(n.name, cp.jurisdiction).tokens) tokens.add(t);
     }

@@ -53,7 +53,11 @@ export interface RarityCounts {
  * set its latency: issue 18). The size travels as the row whose token is NULL.
  */
 export async function rarityCounts(db: Queryable, tokens: Iterable<string>): Promise<RarityCounts> {
-  const { counts, size } = await tokenCountsAndSize(db, [...new Set(tokens)], DF_CAP);
+  return rarityOfCounts(await tokenCountsAndSize(db, [...new Set(tokens)], DF_CAP));
+}
+
+/** Counts as read from blocking_key_count (tokenCountsAndSize, or with the candidates) as the register weighs them. */
+export function rarityOfCounts({ counts, size }: { counts: ReadonlyMap<string, number>; size: number }): RarityCounts {
   const frequencies = new Map<string, number>();
   for (const [token, df] of counts) frequencies.set(token, Math.min(DF_CAP, df));
   return { frequencies, registerSize: size };

@@ -6,7 +6,9 @@
 import { expect, it } from 'vitest';
 import { describeBackends, withTestDatabase } from '../../support/index.ts';
 import { createRegisterContext, resolveMention } from '../../../services/register/index.ts';
-import { candidateDetails, candidateDetailsBatch } from '../../../db/queries/blocking-keys.ts';
+import { candidateDetails, candidateDetailsBatch, candidateDetailsWithTokenCounts } from '../../../db/queries/blocking-keys.ts';
+import { tokenCountsAndSize } from '../../../db/queries/rarity-counts.ts';
+import { DF_CAP } from '../../../services/register/matching/idf.ts';
 import { analyse } from '../../../services/register/matching/analysis.ts';
 import { keysOfAnalysis } from '../../../services/register/matching/keys.ts';
 import { BatchReads } from '../../../services/register/matching/batch-reads.ts';
@@ -68,6 +70,39 @@ describeBackends('batch reads', (backend) => {
         const shared = await scoredCandidates(opened.db, { ...probe, country: null }, DEFAULT_MATCH_MODEL, new Set(), reads);
         expect({ probe: PROBES[i], scored: shared }).toEqual({ probe: PROBES[i], scored: alone });
       }
+    });
+  });
+
+  it('read token counts with the candidates exactly as the rarity read does, for every token their names analyse to', async () => {
+    await withTestDatabase(backend, async (opened) => {
+      const ctx = createRegisterContext(opened.db);
+      const made = new Set<number>();
+      for (const [i, text] of REGISTER.entries()) made.add((await resolveMention(ctx, { source: 'seed', externalId: String(i), text }, WHO)).counterpartyId!);
+      const probes = PROBES.map((text) => ({ analysis: analyse(text), identifiers: [] }));
+      const probeTokens = [...new Set(probes.flatMap((p) => p.analysis.tokens))];
+      const read = await candidateDetailsWithTokenCounts(
+        opened.db,
+        probes.map((p) => ({ keys: keysOfAnalysis(p.analysis), identifiers: [] })),
+        { limit: 3 },
+        { tokens: probeTokens, cap: DF_CAP },
+      );
+      expect(read.details).toEqual(
+        await candidateDetailsBatch(
+          opened.db,
+          probes.map((p) => ({ keys: keysOfAnalysis(p.analysis), identifiers: [] })),
+          { limit: 3 },
+        ),
+      );
+      const counts = read.counts!;
+      const alone = await tokenCountsAndSize(opened.db, [...counts.counts.keys()], DF_CAP);
+      expect(counts).toEqual(alone);
+      // The register's size is its highest counterparty id (matching/idf.ts): here the counterparties made.
+      expect(counts.size).toBe(Math.max(...made));
+      // Every token the scoring will ask for is there: the probes' and those of each candidate's names.
+      const wanted = new Set(probeTokens);
+      for (const list of read.details) for (const cp of list) for (const n of cp.names) for (const t of analyse(n.name, cp.jurisdiction).tokens) wanted.add(t);
+      expect([...wanted].filter((t) => !counts.counts.has(t))).toEqual([]);
+      expect(wanted.has('kaltetechnik') || wanted.has('kaeltetechnik')).toBe(true);
     });
   });
 });
