@@ -70,43 +70,17 @@ export async function planIngest(deps: JobDeps, jobId: number, options: PlanOpti
   if (job.plan) return { partitions: Number(job.plan.partitions), alreadyPlanned: true };
   const started = performance.now();
   await updateJob(deps.db, jobId, { status: 'running', progress: { ...job.progress, stage: 'planning' } });
-  const counts = emptyCounts() as Record<string, number>;
-  const rejected: { line: number; reason: string }[] = [];
-  const reject = (line: number, reason: string): void => {
-    counts.read!++;
-    counts.rejected!++;
-    if (rejected.length < MAX_LISTED_REJECTS) rejected.push({ line, reason });
-  };
-  const seen = new Map<string, { line: number; hash: string }>();
-  const valid: { item: PartitionItem; prepared: PreparedMention }[] = [];
-  for await (const chunk of chunksOf(deps.db, jobId)) {
-    for (const row of chunk as StagedRow[]) {
-      if ('reason' in row) {
-        reject(row.line, row.reason);
-        continue;
-      }
-      let prepared: PreparedMention;
-      try {
-        prepared = prepareMention(row.mention);
-      } catch (error) {
-        if (!(error instanceof RegisterError)) throw error;
-        reject(row.line, error.message);
-        continue;
-      }
-      const identity = mentionKey(prepared.input.source, prepared.input.externalId);
-      const earlier = seen.get(identity);
-      if (earlier) {
-        // As in `cpreg ingest`: an exact repeat is already ingested; other content under the same id is refused.
-        if (earlier.hash === prepared.contentHash) {
-          counts.read!++;
-          counts.already_ingested!++;
-        } else reject(row.line, `same external id as line ${earlier.line} with other content`);
-        continue;
-      }
-      seen.set(identity, { line: row.line, hash: prepared.contentHash });
-      valid.push({ item: { line: row.line, mention: row.mention }, prepared });
-    }
+  await deps.hooks?.planning?.(jobId);
+  let staged: Staged;
+  try {
+    staged = await readStaged(deps, jobId);
+  } catch (error) {
+    // Another run of this step (delivered again by the queue) planned the job meanwhile and dropped its input.
+    const now = await readJob(deps.db, jobId);
+    if (now?.plan) return { partitions: Number(now.plan.partitions), alreadyPlanned: true };
+    throw error;
   }
+  const { counts, rejected, valid } = staged;
   // Rows stored before with the same content need no partition (a resumed or repeated upload).
   const stored = await storedHashes(
     deps.db,
@@ -179,13 +153,66 @@ export async function planIngest(deps: JobDeps, jobId: number, options: PlanOpti
     rejected,
     planningMs: Math.round(performance.now() - started),
   };
-  await deps.db.transaction().execute(async (trx) => {
+  const earlier = await deps.db.transaction().execute(async (trx) => {
+    // A run of this step delivered again while this one went on may have planned the job first: its plan stands.
+    const current = await readJob(trx, jobId, { forUpdate: true });
+    if (current?.plan) return Number(current.plan.partitions);
     await insertPartitions(trx, jobId, partitions);
     await updateJob(trx, jobId, { plan, progress: { stage: cut.count > 0 ? 'resolving' : 'finishing', partitions: cut.count, mentions: fresh.length } });
     await deleteChunks(trx, jobId);
+    return undefined;
   });
+  if (earlier !== undefined) return { partitions: earlier, alreadyPlanned: true };
   deps.log('info', { jobId, partitions: cut.count, mentions: fresh.length, crossPairs: plan.crossPairs.length, planningMs: plan.planningMs }, 'job planned');
   return { partitions: cut.count, alreadyPlanned: false };
+}
+
+interface Staged {
+  counts: Record<string, number>;
+  rejected: { line: number; reason: string }[];
+  valid: { item: PartitionItem; prepared: PreparedMention }[];
+}
+
+/** The staged rows, checked: the rows refused (counted and listed), repeats counted, the others prepared. */
+async function readStaged(deps: JobDeps, jobId: number): Promise<Staged> {
+  const counts = emptyCounts() as Record<string, number>;
+  const rejected: { line: number; reason: string }[] = [];
+  const reject = (line: number, reason: string): void => {
+    counts.read!++;
+    counts.rejected!++;
+    if (rejected.length < MAX_LISTED_REJECTS) rejected.push({ line, reason });
+  };
+  const seen = new Map<string, { line: number; hash: string }>();
+  const valid: { item: PartitionItem; prepared: PreparedMention }[] = [];
+  for await (const chunk of chunksOf(deps.db, jobId)) {
+    for (const row of chunk as StagedRow[]) {
+      if ('reason' in row) {
+        reject(row.line, row.reason);
+        continue;
+      }
+      let prepared: PreparedMention;
+      try {
+        prepared = prepareMention(row.mention);
+      } catch (error) {
+        if (!(error instanceof RegisterError)) throw error;
+        reject(row.line, error.message);
+        continue;
+      }
+      const identity = mentionKey(prepared.input.source, prepared.input.externalId);
+      const earlier = seen.get(identity);
+      if (earlier) {
+        // As in `cpreg ingest`: an exact repeat is already ingested; other content under the same id is refused.
+        if (earlier.hash === prepared.contentHash) {
+          counts.read!++;
+          counts.already_ingested!++;
+        } else reject(row.line, `same external id as line ${earlier.line} with other content`);
+        continue;
+      }
+      seen.set(identity, { line: row.line, hash: prepared.contentHash });
+      valid.push({ item: { line: row.line, mention: row.mention }, prepared });
+    }
+  }
+  return { counts, rejected, valid };
 }
 
 /** The model's score of every candidate pair. */
