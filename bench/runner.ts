@@ -1,59 +1,24 @@
 /**
- * The bench runner's logic: `npm run bench [-- --quick | --full] [--only <name>[,<name>]] [--seed <n>] [--keep]`.
+ * The bench runner's logic: `npm run bench [-- --quick | --full] [--only <name>[,<name>]] [--sizes <n>[,<n>]]
+ * [--seed <n>] [--keep]` (the options: bench/options.ts).
  *
- * Discovers every bench/*.bench.ts, runs each in its own child process (peak memory per file, a crash
- * loses only that file's rows; under --full the children get a larger V8 heap), prints one table with
- * ratios against the baselines measured in the same run, and writes bench/results/<timestamp>.json.
- * The contract for bench files is bench/types.ts.
+ * Discovers every bench/*.bench.ts, runs each in its own child process (peak memory per file, a crash loses only
+ * that file's rows; under --full, or with a size of 1,000,000 given, the children get a larger V8 heap and the longer
+ * time limit), prints one table with ratios against the baselines measured in the same run, and writes
+ * bench/results/<timestamp>.json. The contract for bench files is bench/types.ts.
  */
 import { fork } from 'node:child_process';
 import { mkdirSync, mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { cpus, freemem, tmpdir, totalmem, arch, platform } from 'node:os';
 import { basename, dirname, join, relative } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
+import { FILE_TIMEOUT_S, fullScale, parseArgs, parseSizes, sizesFor, SOAK_SECONDS, type Options } from './options.ts';
 import type { BenchContext, BenchMode, BenchModule, BenchResults, BenchRow } from './types.ts';
+
+export { parseArgs, sizesFor } from './options.ts';
 
 const BENCH_DIR = dirname(fileURLToPath(import.meta.url));
 const REPO = dirname(BENCH_DIR);
-
-interface Options {
-  mode: BenchMode;
-  only: string[];
-  seed: number;
-  keep: boolean;
-}
-
-/** Per-file time limits: a hung bench must not stall the run. */
-const FILE_TIMEOUT_S: Record<BenchMode, number> = { quick: 300, default: 3600, full: 4 * 3600 };
-
-export function sizesFor(mode: BenchMode): BenchContext['sizes'] {
-  if (mode === 'quick') return { register: [10_000], names: [10_000], ingest: [10_000], scaleOut: [5_000] };
-  if (mode === 'default') return { register: [10_000, 100_000], names: [100_000], ingest: [100_000], scaleOut: [50_000] };
-  return { register: [10_000, 100_000, 1_000_000], names: [100_000, 1_000_000], ingest: [100_000, 1_000_000], scaleOut: [1_000_000] };
-}
-
-const SOAK_SECONDS: Record<BenchMode, number> = { quick: 30, default: 60, full: 300 };
-
-export function parseArgs(argv: string[]): Options {
-  const options: Options = { mode: 'default', only: [], seed: 1, keep: false };
-  for (let i = 0; i < argv.length; i++) {
-    const arg = argv[i]!;
-    if (arg === '--quick') options.mode = 'quick';
-    else if (arg === '--full') options.mode = 'full';
-    else if (arg === '--keep') options.keep = true;
-    else if (arg === '--only' || arg === '--seed') {
-      const value = argv[++i];
-      if (value === undefined) throw new Error(`${arg}: missing value`);
-      if (arg === '--only') options.only.push(...value.split(',').filter(Boolean));
-      else {
-        if (!/^\d+$/.test(value)) throw new Error(`--seed: expected a whole number, got "${value}"`);
-        options.seed = Number(value);
-      }
-    } else throw new Error(`unknown option "${arg}" (valid: --quick, --full, --only <name>, --seed <n>, --keep)`);
-  }
-  if (argv.includes('--quick') && argv.includes('--full')) throw new Error('--quick and --full exclude each other');
-  return options;
-}
 
 export function discover(only: string[]): string[] {
   const all = readdirSync(BENCH_DIR)
@@ -90,8 +55,10 @@ interface FileOutcome {
 async function runFile(file: string, options: Options): Promise<FileOutcome> {
   const started = Date.now();
   const rows: BenchRow[] = [];
-  const execArgv = options.mode === 'full' ? [`--max-old-space-size=${fullHeapMb()}`] : [];
+  const execArgv = fullScale(options) ? [`--max-old-space-size=${fullHeapMb()}`] : [];
+  const limitS = FILE_TIMEOUT_S[fullScale(options) ? 'full' : options.mode];
   const args = ['bench/run.ts', '--child', file, '--mode', options.mode, '--seed', String(options.seed)];
+  if (options.sizes) args.push('--sizes', options.sizes.join(','));
   if (options.keep) args.push('--keep');
   const child = fork(join(REPO, 'bin/run-ts.js'), args, { cwd: REPO, execArgv, stdio: ['ignore', 'inherit', 'inherit', 'ipc'] });
   let peakRssMb: number | undefined;
@@ -104,14 +71,14 @@ async function runFile(file: string, options: Options): Promise<FileOutcome> {
       peakRssMb = message.peakRssMb;
     } else if (message.type === 'error') reportedError = message.error;
   });
-  const timer = setTimeout(() => child.kill('SIGKILL'), FILE_TIMEOUT_S[options.mode] * 1000);
+  const timer = setTimeout(() => child.kill('SIGKILL'), limitS * 1000);
   const [code, signal] = (await new Promise((resolve) => child.on('exit', (c, s) => resolve([c, s])))) as [number | null, string | null];
   clearTimeout(timer);
   const seconds = (Date.now() - started) / 1000;
   const ok = done && code === 0;
   const error = ok
     ? undefined
-    : (reportedError ?? (signal === 'SIGKILL' ? `killed after the ${FILE_TIMEOUT_S[options.mode]} s limit` : `exited with ${signal ?? code} before finishing`));
+    : (reportedError ?? (signal === 'SIGKILL' ? `killed after the ${limitS} s limit` : `exited with ${signal ?? code} before finishing`));
   return { rows: rows.map((r) => ({ ...r, bench: benchName(file) })), ok, seconds, peakRssMb, error };
 }
 
@@ -182,7 +149,7 @@ async function parent(argv: string[]): Promise<number> {
   const startedAt = new Date();
   const databaseUrl = process.env.DATABASE_URL || undefined;
   process.stderr.write(
-    `bench: ${files.length} file(s), mode ${options.mode}, seed ${options.seed}, PostgreSQL ${databaseUrl ? 'from DATABASE_URL' : 'not set (PostgreSQL rows skip)'}\n`,
+    `bench: ${files.length} file(s), mode ${options.mode}${options.sizes ? ` (sizes ${options.sizes.join(', ')} only)` : ''}, seed ${options.seed}, PostgreSQL ${databaseUrl ? 'from DATABASE_URL' : 'not set (PostgreSQL rows skip)'}\n`,
   );
   const outcomes: Array<{ file: string } & FileOutcome> = [];
   for (const file of files) {
@@ -206,7 +173,7 @@ async function parent(argv: string[]): Promise<number> {
       cpus: cpus().length,
       memoryGb: Math.round((totalmem() / 1024 ** 3) * 10) / 10,
       node: process.version,
-      maxOldSpaceMb: options.mode === 'full' ? fullHeapMb() : undefined,
+      maxOldSpaceMb: fullScale(options) ? fullHeapMb() : undefined,
       postgres: databaseUrl !== undefined,
     },
     files: outcomes.map((o) => ({ bench: benchName(o.file), ok: o.ok, seconds: o.seconds, peakRssMb: o.peakRssMb, error: o.error })),
@@ -283,6 +250,7 @@ async function child(argv: string[]): Promise<void> {
   const mode = argv[argv.indexOf('--mode') + 1] as BenchMode;
   const seed = Number(argv[argv.indexOf('--seed') + 1]);
   const keep = argv.includes('--keep');
+  const sizes = argv.includes('--sizes') ? parseSizes(argv[argv.indexOf('--sizes') + 1]!) : undefined;
   const { generateNames } = await import('../services/demo/generate-names.ts');
   const tmpDir = mkdtempSync(join(tmpdir(), `cpreg-bench-${benchName(file)}-`));
   const pending: Array<Promise<void>> = [];
@@ -290,7 +258,7 @@ async function child(argv: string[]): Promise<void> {
     mode,
     databaseUrl: process.env.DATABASE_URL || undefined,
     seed,
-    sizes: sizesFor(mode),
+    sizes: sizesFor(mode, sizes),
     soakSeconds: SOAK_SECONDS[mode],
     generator: { names: (count, s) => generateNames(count, s ?? seed) },
     tmpDir,
