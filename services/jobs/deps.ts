@@ -58,10 +58,15 @@ export const PARTITION_DEFAULTS: PartitionSettings = { partitionSize: 2000, chun
  */
 export const PLANNING_EXPIRY = { msPerRow: 50, maxSeconds: 23 * 3600 };
 
-export function planningExpirySeconds(rows: number, env: NodeJS.ProcessEnv = process.env): number {
+/** The planning budget per staged row: CPREG_PLAN_EXPIRE_MS_PER_ROW, else the default. */
+export function planningMsPerRow(env: NodeJS.ProcessEnv = process.env): number {
   const raw = env.CPREG_PLAN_EXPIRE_MS_PER_ROW;
   const msPerRow = raw === undefined || raw === '' ? PLANNING_EXPIRY.msPerRow : Number(raw);
   if (!Number.isFinite(msPerRow) || msPerRow < 0) throw new RangeError(`CPREG_PLAN_EXPIRE_MS_PER_ROW=${raw}: expected a number of at least 0`);
+  return msPerRow;
+}
+
+export function planningExpirySeconds(rows: number, msPerRow: number = PLANNING_EXPIRY.msPerRow): number {
   return Math.min(PLANNING_EXPIRY.maxSeconds, Math.ceil((rows * msPerRow) / 1000));
 }
 

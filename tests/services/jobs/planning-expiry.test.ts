@@ -8,7 +8,7 @@
 import { join } from 'node:path';
 import { expect, it } from 'vitest';
 import { describePostgres, makeTempDir, openTestDatabase, removeTempDir } from '../../support/index.ts';
-import { PLANNING_EXPIRY, planningExpirySeconds } from '../../../services/jobs/deps.ts';
+import { PLANNING_EXPIRY, planningExpirySeconds, planningMsPerRow } from '../../../services/jobs/deps.ts';
 import { startJobs, type Jobs } from '../../../services/jobs/start-jobs.ts';
 import { submitIngestJob } from '../../../services/jobs/submit-ingest.ts';
 import { watchJob } from '../../../services/jobs/watch-job.ts';
@@ -19,10 +19,11 @@ const SLOW_PLANNING_MS = 6000;
 const SHORT_EXPIRY = { retryLimit: 2, retryDelaySeconds: 0, pollingIntervalSeconds: 0.5, maintenanceIntervalSeconds: 1, expireInSeconds: 2 };
 
 it('scales the planning expiry with the rows, within the queue library’s limit', () => {
-  expect(planningExpirySeconds(ROWS, {})).toBe(Math.ceil((ROWS * PLANNING_EXPIRY.msPerRow) / 1000));
-  expect(planningExpirySeconds(10_000_000, {})).toBe(PLANNING_EXPIRY.maxSeconds);
-  expect(planningExpirySeconds(1000, { CPREG_PLAN_EXPIRE_MS_PER_ROW: '200' })).toBe(200);
-  expect(() => planningExpirySeconds(1000, { CPREG_PLAN_EXPIRE_MS_PER_ROW: 'x' })).toThrow(/CPREG_PLAN_EXPIRE_MS_PER_ROW/);
+  expect(planningExpirySeconds(ROWS)).toBe(Math.ceil((ROWS * PLANNING_EXPIRY.msPerRow) / 1000));
+  expect(planningExpirySeconds(10_000_000)).toBe(PLANNING_EXPIRY.maxSeconds);
+  expect(planningMsPerRow({})).toBe(PLANNING_EXPIRY.msPerRow);
+  expect(planningExpirySeconds(1000, planningMsPerRow({ CPREG_PLAN_EXPIRE_MS_PER_ROW: '200' }))).toBe(200);
+  expect(() => planningMsPerRow({ CPREG_PLAN_EXPIRE_MS_PER_ROW: 'x' })).toThrow(/CPREG_PLAN_EXPIRE_MS_PER_ROW/);
 });
 
 describePostgres('a planning step longer than the queue expiry [postgres]', () => {
