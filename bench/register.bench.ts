@@ -1,6 +1,7 @@
 /**
  * Resolve latency for single mentions inside the service (no HTTP): median and p99, with registers of 10,000 and
- * 100,000 counterparties on PGlite and PostgreSQL, and 1,000,000 on PostgreSQL under --full.
+ * 100,000 counterparties on PGlite and PostgreSQL, and 1,000,000 on PostgreSQL under --full (or alone, with
+ * `--sizes 1000000`: bench/run.ts).
  * Goal (issue 6): p99 ≤ 10 ms per mention on PostgreSQL at 1M.
  *
  * The register is bulk-loaded from the seeded name generator (one counterparty per generated name) through the

@@ -8,7 +8,7 @@ import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import type { BenchContext, BenchMode, BenchModule, BenchRow } from './types.ts';
 import { BENCH_DIR, benchName } from './discover.ts';
-import { SOAK_SECONDS, sizesFor } from './runner-options.ts';
+import { parseSizes, SOAK_SECONDS, sizesFor } from './runner-options.ts';
 import { rate, withPeakMemory } from './measure.ts';
 
 export type ChildMessage = { type: 'row'; row: BenchRow } | { type: 'done'; peakRssMb: number } | { type: 'error'; error: string };
@@ -28,6 +28,7 @@ export async function runChild(argv: string[]): Promise<void> {
   const mode = argv[argv.indexOf('--mode') + 1] as BenchMode;
   const seed = Number(argv[argv.indexOf('--seed') + 1]);
   const keep = argv.includes('--keep');
+  const sizes = argv.includes('--sizes') ? parseSizes(argv[argv.indexOf('--sizes') + 1]!) : undefined;
   const { generateNames } = await import('../services/demo/generate-names.ts');
   const tmpDir = mkdtempSync(join(tmpdir(), `cpreg-bench-${benchName(file)}-`));
   const pending: Array<Promise<void>> = [];
@@ -35,7 +36,7 @@ export async function runChild(argv: string[]): Promise<void> {
     mode,
     databaseUrl: process.env.DATABASE_URL || undefined,
     seed,
-    sizes: sizesFor(mode),
+    sizes: sizesFor(mode, sizes),
     soakSeconds: SOAK_SECONDS[mode],
     generator: { names: (count, s) => generateNames(count, s ?? seed) },
     tmpDir,

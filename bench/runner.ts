@@ -1,8 +1,10 @@
 /**
- * The bench runner's logic: `npm run bench [-- --quick | --full] [--only <name>[,<name>]] [--seed <n>] [--keep]`.
+ * The bench runner's logic: `npm run bench [-- --quick | --full] [--only <name>[,<name>]] [--sizes <n>[,<n>]]
+ * [--seed <n>] [--keep]` (the options: bench/runner-options.ts).
  *
  * Discovers every bench/*.bench.ts, runs each in its own child process (peak memory per file, a crash
- * loses only that file's rows; under --full the children get a larger V8 heap), prints one table with
+ * loses only that file's rows; under --full, or with a size of 1,000,000 given, the children get a larger V8 heap
+ * and the longer time limit), prints one table with
  * ratios against the baselines measured in the same run, and writes bench/results/<timestamp>.json.
  * The contract for bench files is bench/types.ts.
  */
@@ -11,7 +13,7 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { cpus, freemem, totalmem, arch, platform } from 'node:os';
 import { join, relative } from 'node:path';
 import type { BenchResults, BenchRow } from './types.ts';
-import { FILE_TIMEOUT_S, fullHeapMb, parseArgs, type RunnerOptions } from './runner-options.ts';
+import { FILE_TIMEOUT_S, fullHeapMb, fullScale, parseArgs, type RunnerOptions } from './runner-options.ts';
 import { BENCH_DIR, REPO, benchName, discover } from './discover.ts';
 import { computeRatios, formatTable } from './format-table.ts';
 import { runChild, type ChildMessage } from './run-child.ts';
@@ -27,8 +29,10 @@ interface FileOutcome {
 async function runFile(file: string, options: RunnerOptions): Promise<FileOutcome> {
   const started = Date.now();
   const rows: BenchRow[] = [];
-  const execArgv = options.mode === 'full' ? [`--max-old-space-size=${fullHeapMb()}`] : [];
+  const execArgv = fullScale(options) ? [`--max-old-space-size=${fullHeapMb()}`] : [];
+  const limitS = FILE_TIMEOUT_S[fullScale(options) ? 'full' : options.mode];
   const args = ['bench/run.ts', '--child', file, '--mode', options.mode, '--seed', String(options.seed)];
+  if (options.sizes) args.push('--sizes', options.sizes.join(','));
   if (options.keep) args.push('--keep');
   const child = fork(join(REPO, 'bin/run-ts.js'), args, { cwd: REPO, execArgv, stdio: ['ignore', 'inherit', 'inherit', 'ipc'] });
   let peakRssMb: number | undefined;
@@ -41,14 +45,14 @@ async function runFile(file: string, options: RunnerOptions): Promise<FileOutcom
       peakRssMb = message.peakRssMb;
     } else if (message.type === 'error') reportedError = message.error;
   });
-  const timer = setTimeout(() => child.kill('SIGKILL'), FILE_TIMEOUT_S[options.mode] * 1000);
+  const timer = setTimeout(() => child.kill('SIGKILL'), limitS * 1000);
   const [code, signal] = (await new Promise((resolve) => child.on('exit', (c, s) => resolve([c, s])))) as [number | null, string | null];
   clearTimeout(timer);
   const seconds = (Date.now() - started) / 1000;
   const ok = done && code === 0;
   const error = ok
     ? undefined
-    : (reportedError ?? (signal === 'SIGKILL' ? `killed after the ${FILE_TIMEOUT_S[options.mode]} s limit` : `exited with ${signal ?? code} before finishing`));
+    : (reportedError ?? (signal === 'SIGKILL' ? `killed after the ${limitS} s limit` : `exited with ${signal ?? code} before finishing`));
   return { rows: rows.map((r) => ({ ...r, bench: benchName(file) })), ok, seconds, peakRssMb, error };
 }
 
@@ -72,7 +76,7 @@ async function parent(argv: string[]): Promise<number> {
   const startedAt = new Date();
   const databaseUrl = process.env.DATABASE_URL || undefined;
   process.stderr.write(
-    `bench: ${files.length} file(s), mode ${options.mode}, seed ${options.seed}, PostgreSQL ${databaseUrl ? 'from DATABASE_URL' : 'not set (PostgreSQL rows skip)'}\n`,
+    `bench: ${files.length} file(s), mode ${options.mode}${options.sizes ? ` (sizes ${options.sizes.join(', ')} only)` : ''}, seed ${options.seed}, PostgreSQL ${databaseUrl ? 'from DATABASE_URL' : 'not set (PostgreSQL rows skip)'}\n`,
   );
   const outcomes: Array<{ file: string } & FileOutcome> = [];
   for (const file of files) {
@@ -96,7 +100,7 @@ async function parent(argv: string[]): Promise<number> {
       cpus: cpus().length,
       memoryGb: Math.round((totalmem() / 1024 ** 3) * 10) / 10,
       node: process.version,
-      maxOldSpaceMb: options.mode === 'full' ? fullHeapMb() : undefined,
+      maxOldSpaceMb: fullScale(options) ? fullHeapMb() : undefined,
       postgres: databaseUrl !== undefined,
     },
     files: outcomes.map((o) => ({ bench: benchName(o.file), ok: o.ok, seconds: o.seconds, peakRssMb: o.peakRssMb, error: o.error })),

@@ -25,6 +25,12 @@ export type JobHandler<T> = (data: T, delivery: Delivery) => Promise<void>;
 export interface SendOptions {
   /** One job per key: a later send with a key already sent is dropped (the queue keeps the key as long as the job). */
   singletonKey?: string;
+  /**
+   * This job's expiry is at least this many seconds (the queue's expireInSeconds when that is longer): for a step
+   * whose length is known to grow with its input (a job's planning), so that a slow run is not taken for a dead one.
+   * The in-process queue has no expiry and ignores it.
+   */
+  minExpireInSeconds?: number;
 }
 
 export interface WorkOptions {

@@ -59,7 +59,9 @@ export async function openPgBossQueue(connectionString: string, options: PgBossQ
       await boss.send(name, data, {
         retryLimit: settings.retryLimit,
         retryDelay: settings.retryDelaySeconds,
-        expireInSeconds: settings.expireInSeconds,
+        // pg-boss both fails an active job past its expiry (supervisor) and stops awaiting its handler then (work):
+        // either way the step is delivered again while the first run goes on.
+        expireInSeconds: Math.max(settings.expireInSeconds, Math.ceil(sendOptions.minExpireInSeconds ?? 0)),
         ...(sendOptions.singletonKey ? { id: jobIdFor(`${name}:${sendOptions.singletonKey}`) } : {}),
       });
     },

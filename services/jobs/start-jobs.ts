@@ -11,7 +11,7 @@ import { InProcessQueue } from '../../db/in-process-queue.ts';
 import { queueOptionsFromEnv, type JobQueue, type QueueOptions } from '../../db/job-queue.ts';
 import type { Database } from '../../db/types.ts';
 import { createRegisterContext, type RegisterContext } from '../register/context.ts';
-import type { JobDeps } from './deps.ts';
+import type { JobDeps, JobHooks } from './deps.ts';
 import { JOB_STEPS } from './deps.ts';
 import { workOnJobs } from './steps.ts';
 import { startWatchdog } from './watchdog.ts';
@@ -35,6 +35,7 @@ export interface StartJobsOptions {
   inProcess?: boolean;
   /** How often the job watchdog looks for steps the queue gave up (watchdog.ts). Default WATCHDOG_INTERVAL_MS. */
   watchdogIntervalMs?: number;
+  hooks?: JobHooks;
 }
 
 export interface Jobs {
@@ -65,6 +66,7 @@ export async function startJobs(options: StartJobsOptions): Promise<Jobs> {
     queue,
     worker: options.worker ?? `${hostname()}:${process.pid}`,
     log,
+    ...(options.hooks ? { hooks: options.hooks } : {}),
   };
   if (options.work) await workOnJobs(deps, { concurrency: options.concurrency ?? 1 });
   // The in-process queue forgets everything when its process stops: pick up where the last one left off.

@@ -14,7 +14,7 @@ import type { MentionInput } from '../../resolvers/vocabulary.ts';
 import type { FieldMap } from '../ingest/mapping.ts';
 import { formatOf, rowsOf, type IngestFormat } from '../ingest/rows-of.ts';
 import { unstorableRowReason } from '../ingest/unstorable-text.ts';
-import { JOB_STEPS, PARTITION_DEFAULTS } from './deps.ts';
+import { JOB_STEPS, PARTITION_DEFAULTS, planningExpirySeconds, planningMsPerRow } from './deps.ts';
 
 /** One staged row: the mention as mapped, or why the row could not be read. */
 export type StagedRow = { line: number; mention: MentionInput } | { line: number; reason: string };
@@ -46,6 +46,8 @@ export async function submitIngestJob(deps: { db: Kysely<Database>; queue: JobQu
   const partitionSize = options.partitionSize ?? PARTITION_DEFAULTS.partitionSize;
   if (!Number.isInteger(partitionSize) || partitionSize < 1) throw new RangeError(`partitionSize must be a whole number of at least 1, got ${partitionSize}`);
   const chunkSize = options.chunkSize ?? PARTITION_DEFAULTS.chunkSize;
+  // Read before the job exists: a bad setting fails the submission, not a job left staged with no planner queued.
+  const planMsPerRow = planningMsPerRow();
   const inputName = options.inputName ?? options.file.split(/[\\/]/).pop() ?? options.file;
   const { ingestRunId, jobId } = await deps.db.transaction().execute(async (trx) => {
     const runId = await insertIngestRun(trx, { source: options.source, inputName, actor: options.actor });
@@ -58,6 +60,7 @@ export async function submitIngestJob(deps: { db: Kysely<Database>; queue: JobQu
     await options.onJobCreated?.(trx, created);
     return { ingestRunId: runId, jobId: created };
   });
+  let staged = 0;
   try {
     let chunk: StagedRow[] = [];
     let chunkNo = 0;
@@ -90,12 +93,13 @@ export async function submitIngestJob(deps: { db: Kysely<Database>; queue: JobQu
       rows += chunk.length;
     }
     await updateJob(deps.db, jobId, { progress: { stage: 'planning', staged: rows } });
+    staged = rows;
   } catch (error) {
     const message = `reading ${inputName} failed: ${(error as Error).message}`;
     await updateJob(deps.db, jobId, { status: 'failed', error: message });
     await finishIngestRun(deps.db, ingestRunId, { status: 'failed', error: message });
     throw error;
   }
-  await deps.queue.send(JOB_STEPS.plan, { jobId }, { singletonKey: String(jobId) });
+  await deps.queue.send(JOB_STEPS.plan, { jobId }, { singletonKey: String(jobId), minExpireInSeconds: planningExpirySeconds(staged, planMsPerRow) });
   return jobId;
 }

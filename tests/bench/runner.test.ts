@@ -2,7 +2,7 @@
 import { describe, expect, it } from 'vitest';
 import { discover } from '../../bench/discover.ts';
 import { computeRatios, formatTable } from '../../bench/format-table.ts';
-import { parseArgs, sizesFor } from '../../bench/runner-options.ts';
+import { fullScale, parseArgs, sizesFor } from '../../bench/runner-options.ts';
 import type { BenchRow } from '../../bench/types.ts';
 
 const row = (r: Partial<BenchRow> & Pick<BenchRow, 'id' | 'value' | 'better'>): BenchRow => ({ label: r.id, unit: 'x', bench: 'k', ...r });
@@ -15,6 +15,18 @@ describe('bench runner', () => {
     expect(() => parseArgs(['--fast'])).toThrow(/unknown option "--fast"/);
     expect(() => parseArgs(['--quick', '--full'])).toThrow(/exclude/);
     expect(() => parseArgs(['--seed', 'x'])).toThrow(/--seed/);
+  });
+
+  it("reads --sizes as the sizes of every bench in place of the mode's, and gives 1,000,000 the full heap", () => {
+    const options = parseArgs(['--only', 'register', '--sizes', '1000000']);
+    expect(options).toEqual({ mode: 'default', only: ['register'], seed: 1, keep: false, sizes: [1_000_000] });
+    expect(sizesFor(options.mode, options.sizes)).toEqual({ register: [1_000_000], names: [1_000_000], ingest: [1_000_000], scaleOut: [1_000_000] });
+    expect(fullScale(options)).toBe(true);
+    expect(parseArgs(['--quick', '--sizes', '10000,20000']).sizes).toEqual([10_000, 20_000]);
+    expect(fullScale(parseArgs(['--quick', '--sizes', '10000']))).toBe(false);
+    expect(fullScale(parseArgs(['--full']))).toBe(true);
+    for (const bad of ['', '1e6', '-5', '0', '10,x']) expect(() => parseArgs(['--sizes', bad])).toThrow(/--sizes/);
+    expect(() => parseArgs(['--sizes'])).toThrow(/--sizes: missing value/);
   });
 
   it('sizes the quick run at 10,000 and adds 1,000,000 only under --full', () => {

@@ -9,7 +9,7 @@
 import { spawn } from 'node:child_process';
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { afterAll, beforeAll, expect, it } from 'vitest';
+import { afterAll, afterEach, beforeAll, beforeEach, expect, it } from 'vitest';
 import { openDatabase, type OpenedDatabase } from '../../db/open-database.ts';
 import { seededRandom } from '../../resolvers/prng.ts';
 import { CPREG_BIN, REPO_ROOT, childEnv, runCli } from '../support/cli.ts';
@@ -115,6 +115,15 @@ export function crashIngestSuite(backend: TestBackend): void {
       else removeTempDir(target);
     });
 
+    // Every child the test starts dies with it: when it ends in any way (afterEach, also after a failure or a timeout)
+    // and as soon as vitest gives up on it (the test's own signal, aborted on a timeout). A timed-out test's body goes
+    // on in the background; a child it would start after that is killed at once (spawn with an aborted signal).
+    let children: AbortController;
+    beforeEach(() => {
+      children = new AbortController();
+    });
+    afterEach(() => children.abort());
+
     async function storedRows(): Promise<number> {
       if (!poller) return -1; // embedded: the child holds the directory
       const row = await poller.db
@@ -125,7 +134,8 @@ export function crashIngestSuite(backend: TestBackend): void {
       return Number(row.n);
     }
 
-    it(`every row exactly once after ${KILLS} kills, and verify passes`, async () => {
+    it(`every row exactly once after ${KILLS} kills, and verify passes`, async ({ signal: testSignal }) => {
+      const signal = AbortSignal.any([children.signal, testSignal]);
       const size = SIZE[backend];
       const file = join(dir, 'mentions.ndjson');
       writeMentions(file, size);
@@ -137,7 +147,11 @@ export function crashIngestSuite(backend: TestBackend): void {
           cwd: REPO_ROOT,
           env: childEnv(),
           stdio: ['ignore', 'pipe', 'pipe'],
+          signal,
+          killSignal: 'SIGKILL',
         });
+        // An aborted spawn reports an 'error' (AbortError); the exit below is what the test waits for.
+        child.on('error', () => undefined);
         let output = '';
         let counting: () => void = () => undefined;
         // The first progress line ("ingest: 100 rows …") is printed once the first batch has been counted.
@@ -168,6 +182,7 @@ export function crashIngestSuite(backend: TestBackend): void {
       }
       const last = await runCli(['ingest', file, '--source', 'crash', '--db', target, '--batch-size', String(BATCH[backend]), '--json'], {
         timeoutMs: 600_000,
+        signal,
       });
       expect(last.code, last.stderr.slice(-2000)).toBe(0);
       const summary = JSON.parse(last.stdout.trim().split('\n').pop()!) as { counts: Record<string, number> };
@@ -187,7 +202,7 @@ export function crashIngestSuite(backend: TestBackend): void {
       } finally {
         await opened.close();
       }
-      const verify = await runCli(['verify', '--db', target, '--json', '--limit', '5'], { timeoutMs: 600_000 });
+      const verify = await runCli(['verify', '--db', target, '--json', '--limit', '5'], { timeoutMs: 600_000, signal });
       expect(verify.code, verify.stdout.slice(0, 3000) + verify.stderr).toBe(0);
       process.stdout.write(
         `crash-ingest [${backend}]: ${size} mentions, kills ${JSON.stringify(kills)}, already ingested on the last run ${summary.counts.already_ingested}, total ${Math.round((performance.now() - started) / 1000)} s\n`,

@@ -23,10 +23,17 @@ export function childEnv(extra: Record<string, string | undefined> = {}): NodeJS
   return env;
 }
 
-/** Runs `cpreg <args>` to completion (killed after timeoutMs, which only catches hangs); `cwd` defaults to the repository. */
-export function runCli(args: string[], options: { env?: NodeJS.ProcessEnv; timeoutMs?: number; cwd?: string } = {}): Promise<CliResult> {
+/**
+ * Runs `cpreg <args>` to completion (killed after timeoutMs, which only catches hangs); `cwd` defaults to the repository.
+ * `signal` kills it with SIGKILL when aborted (a test's own end: see crash-ingest-suite.ts), and the answer rejects.
+ */
+export function runCli(args: string[], options: { env?: NodeJS.ProcessEnv; timeoutMs?: number; cwd?: string; signal?: AbortSignal } = {}): Promise<CliResult> {
   return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, [CPREG_BIN, ...args], { cwd: options.cwd ?? REPO_ROOT, env: options.env ?? childEnv() });
+    const child = spawn(process.execPath, [CPREG_BIN, ...args], {
+      cwd: options.cwd ?? REPO_ROOT,
+      env: options.env ?? childEnv(),
+      ...(options.signal ? { signal: options.signal, killSignal: 'SIGKILL' as const } : {}),
+    });
     let stdout = '';
     let stderr = '';
     child.stdout.on('data', (chunk) => (stdout += chunk));

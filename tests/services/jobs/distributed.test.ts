@@ -107,10 +107,11 @@ describePostgres('scale-out: one API and three workers on PostgreSQL [postgres]'
       expect(created.code, created.stderr).toBe(0);
       const key = (JSON.parse(created.stdout) as { secret: string }).secret;
       // Each step's expiry is set by the process that queues it: the planning step by the API (and, for the reference,
-      // by the submitting command), the partitions by the worker that planned them. Only a partition has to come back
-      // soon after its worker is killed; a planning step that outlived a short expiry on a loaded machine was run
-      // again (as it appears) and failed the job ("planning failed: no result", planning 160 s at load 20 on 2 cores).
-      const SUBMIT_ENV = { ...ENV, CPREG_QUEUE_EXPIRE_S: '3600' };
+      // by the submitting command), the partitions by the worker that planned them. The planning step's expiry grows
+      // with the staged rows (services/jobs/deps.ts planningExpirySeconds: 750 s here), so the short expiry a killed
+      // partition needs no longer hands a slow planning step to a second worker (it once failed the job: "planning
+      // failed: no result", planning 160 s at load 20 on 2 cores).
+      const SUBMIT_ENV = ENV;
       api = await startServe(['--db', distUrl, '--port', '0', '--work', '0'], { env: childEnv(SUBMIT_ENV) });
       for (let i = 0; i < 3; i++) workers.push(await startWorker(distUrl));
 
