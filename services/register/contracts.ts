@@ -161,7 +161,7 @@ export async function storeContract(
       return { contractId: contract.id, alreadyStored: true, parties: [], reresolved: [], contract };
     }
     let contractId: number;
-    const values = { title: input.title ?? null, text: input.text, content_hash: contentHash, parsed, status: 'active', updated_at: iso };
+    const values = { title: input.title ?? null, text: input.text, content_hash: contentHash, parsed, status: 'active' as const, updated_at: iso };
     if (existing) {
       contractId = existing.id;
       await cs.require('contract', contractId);

@@ -6,6 +6,8 @@
  * Both backends read back the same canonical row, so images compare with plain deep equality and a replay or
  * an undo writes back exactly what was there.
  */
+import type { Selectable } from 'kysely';
+import type { Database } from '../../../db/types.ts';
 
 export const STATE_TABLES = [
   'own_entity',
@@ -209,6 +211,21 @@ export const MENTION_COLUMNS: Record<StateTable, string[]> = {
 
 export type Row = Record<string, unknown>;
 
+/** A column's canonical value (see header): kysely reads timestamptz as a Date, an image keeps its ISO text. */
+type Canonical<V> = V extends Date ? string : V;
+
+/**
+ * The canonical image of a row of one state table, derived from its kysely table type (db/types.ts) so that the
+ * columns are named once; tests/services/register/state-row-types.test.ts ties it to COLUMNS below.
+ */
+export type StateRow<T extends StateTable> = { [K in keyof Selectable<Database[T]>]: Canonical<Selectable<Database[T]>[K]> } & {
+  /** Every state table has an int8 id; said again so that code generic in the table can read it. */
+  id: number;
+};
+
+/** Values given to an insert or an update: some columns of the image. */
+export type StateValues<T extends StateTable> = Partial<StateRow<T>>;
+
 export function columnsOf(table: StateTable): string[] {
   return Object.keys(COLUMNS[table]);
 }
@@ -235,11 +252,14 @@ function canonicalValue(kind: ColumnKind, value: unknown): unknown {
   }
 }
 
-/** The canonical image of a row as read from either backend. */
-export function canonicalRow(table: StateTable, row: Row): Row {
+/**
+ * The canonical image of a row as read from either backend. The one place a Row becomes a StateRow: every column
+ * of COLUMNS[table] is set, which the row-type test ties to the kysely table type.
+ */
+export function canonicalRow<T extends StateTable>(table: T, row: Row): StateRow<T> {
   const out: Row = {};
   for (const [column, kind] of Object.entries(COLUMNS[table])) out[column] = canonicalValue(kind, row[column]);
-  return out;
+  return out as StateRow<T>;
 }
 
 /** Canonical values of some columns only (an update's before/after). */
