@@ -27,7 +27,7 @@ export type StateTable = (typeof STATE_TABLES)[number];
 
 export type ColumnKind = 'int8' | 'int' | 'num' | 'text' | 'bool' | 'ts' | 'json';
 
-const COLUMNS: Record<StateTable, Record<string, ColumnKind>> = {
+const COLUMN_KINDS = {
   own_entity: {
     id: 'int8',
     name: 'text',
@@ -175,7 +175,11 @@ const COLUMNS: Record<StateTable, Record<string, ColumnKind>> = {
     decided_by: 'text',
     created_at: 'ts',
   },
-};
+} as const satisfies Record<StateTable, Record<string, ColumnKind>>;
+const COLUMNS: Record<StateTable, Readonly<Record<string, ColumnKind>>> = COLUMN_KINDS;
+
+/** The columns of a state table with their kinds, as a type: tests/services/register/state/row-types.test.ts checks them against StateRow. */
+export type StateColumns<T extends StateTable> = (typeof COLUMN_KINDS)[T];
 
 /** Columns whose value is a counterparty id: an event touching such a row touches that counterparty. */
 export const COUNTERPARTY_COLUMNS: Record<StateTable, string[]> = {
@@ -215,8 +219,8 @@ export type Row = Record<string, unknown>;
 type Canonical<V> = V extends Date ? string : V;
 
 /**
- * The canonical image of a row of one state table, derived from its kysely table type (db/types.ts) so that the
- * columns are named once; tests/services/register/state-row-types.test.ts ties it to COLUMNS below.
+ * The canonical image of a row of one state table, derived from its kysely table type (db/types.ts);
+ * tests/services/register/state/row-types.test.ts ties it to the column kinds above.
  */
 export type StateRow<T extends StateTable> = { [K in keyof Selectable<Database[T]>]: Canonical<Selectable<Database[T]>[K]> } & {
   /** Every state table has an int8 id; said again so that code generic in the table can read it. */
