@@ -4,6 +4,7 @@
  */
 import type { ColumnType } from 'kysely';
 import type { IdentifierScheme, ResolutionStatus } from '../../resolvers/vocabulary.ts';
+import type { ParsedContract } from '../../resolvers/terms/index.ts';
 import type { Int8, GeneratedInt8, Timestamp, JsonDefault } from './column-types.ts';
 
 export interface ContractTable {
@@ -13,7 +14,8 @@ export interface ContractTable {
   title: string | null;
   text: string;
   content_hash: string;
-  parsed: JsonDefault<Record<string, unknown>>;
+  /** The parties parsed from the text (resolvers/terms), as stored when the contract was last written. */
+  parsed: JsonDefault<ParsedContract>;
   status: ColumnType<'active' | 'withdrawn', 'active' | 'withdrawn' | undefined>;
   created_at: Timestamp;
   updated_at: Timestamp;

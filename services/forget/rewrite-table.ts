@@ -21,7 +21,7 @@ export async function rewriteTable(
   const rows = await lockStateRowsToErase(trx, table, cluster, mentionIds, needlesOf(secrets));
   const changed: Row[] = [];
   for (const raw of rows) {
-    const before = canonicalRow(table, raw);
+    const before: Row = canonicalRow(table, raw);
     const after = replace(before) as Row;
     const patch: Row = {};
     for (const column of Object.keys(before)) if (JSON.stringify(before[column]) !== JSON.stringify(after[column])) patch[column] = after[column];

@@ -71,7 +71,7 @@ async function loadChunk(ctx: RegisterContext, chunk: { row: LoadRow; line: numb
     const at = ctx.now();
     for (const { name, jurisdiction } of checked) {
       const cp = await createCounterpartyRow(cs, { name, jurisdiction, at });
-      await addNameSighting(cs, cp.id as number, { name, kind: 'legal', source }, at);
+      await addNameSighting(cs, cp.id, { name, kind: 'legal', source }, at);
     }
     // One event for the chunk: it names every counterparty it created (counterparty_ids), and undoing it takes the
     // whole chunk back, as loading it was one act.

@@ -94,7 +94,7 @@ async function withdrawVanishedParties(cs: ChangeSet, contractId: number, count:
     const mention = await cs.require('mention', party.mentionId);
     if (mention.status === 'withdrawn') continue;
     await detachMention(cs, mention, at, 'withdrawn');
-    await cs.update('mention', mention.id as number, { status: 'withdrawn', own_entity_id: null, confirmed_by: who.actor, updated_at: at.toISOString() });
+    await cs.update('mention', mention.id, { status: 'withdrawn', own_entity_id: null, confirmed_by: who.actor, updated_at: at.toISOString() });
     await commitEvent(cs, {
       type: 'withdrawn',
       actor: who.actor,
@@ -114,14 +114,14 @@ async function resolveAgain(ctx: RegisterContext, cs: ChangeSet, mentionId: numb
   if (m.status === 'withdrawn' || m.status === 'set_aside' || m.confirmed_by || !m.contract_source || !m.contract_external_id) return null;
   const again = prepareMention(
     {
-      source: m.source as string,
-      externalId: m.external_id as string,
-      text: m.text as string,
-      contract: { source: m.contract_source as string, externalId: m.contract_external_id as string },
-      ...(m.role ? { role: m.role as string } : {}),
-      ...(m.country ? { country: m.country as string } : {}),
-      ...(m.address ? { address: m.address as string } : {}),
-      identifiers: m.identifiers as MentionInput['identifiers'],
+      source: m.source,
+      externalId: m.external_id,
+      text: m.text,
+      contract: { source: m.contract_source, externalId: m.contract_external_id },
+      ...(m.role ? { role: m.role } : {}),
+      ...(m.country ? { country: m.country } : {}),
+      ...(m.address ? { address: m.address } : {}),
+      identifiers: m.identifiers,
     },
     { lenientIdentifiers: true },
   );
@@ -161,14 +161,14 @@ export async function storeContract(
       return { contractId: contract.id, alreadyStored: true, parties: [], reresolved: [], contract };
     }
     let contractId: number;
-    const values = { title: input.title ?? null, text: input.text, content_hash: contentHash, parsed, status: 'active', updated_at: iso };
+    const values = { title: input.title ?? null, text: input.text, content_hash: contentHash, parsed, status: 'active' as const, updated_at: iso };
     if (existing) {
       contractId = existing.id;
       await cs.require('contract', contractId);
       await cs.update('contract', contractId, values);
     } else {
       const row = await cs.insert('contract', { source: input.source, external_id: input.externalId, ...values, created_at: iso });
-      contractId = row.id as number;
+      contractId = row.id;
     }
     await replaceTerms(cs, contractId, parsed);
     await commitEvent(cs, {

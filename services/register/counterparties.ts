@@ -65,7 +65,7 @@ export async function createCounterparty(ctx: RegisterContext, input: CreateCoun
   return write(ctx, async (cs) => {
     const at = ctx.now();
     const cp = await createCounterpartyRow(cs, { name, kind: input.kind, jurisdiction: input.jurisdiction, at });
-    const id = cp.id as number;
+    const id = cp.id;
     await addNameSighting(cs, id, { name, kind: 'legal', confirmedBy: who.actor, source: 'manual' }, at);
     for (const other of others) await addNameSighting(cs, id, { ...other, source: 'manual' }, at);
     for (const identifier of identifiers) {
@@ -80,7 +80,7 @@ export async function createCounterparty(ctx: RegisterContext, input: CreateCoun
       requestId: who.requestId,
       details: { entity: 'counterparty', counterpartyId: id, name },
     });
-    return { counterpartyId: id, eventId, version: after.version as number };
+    return { counterpartyId: id, eventId, version: after.version };
   });
 }
 
@@ -98,7 +98,7 @@ export async function renameCounterparty(
     const id = survivorFor(cs, counterpartyId);
     const cp = await cs.require('counterparty', id);
     checkVersion(cs, cp, input.expectedVersion);
-    const previous = cp.canonical_name as string;
+    const previous = cp.canonical_name;
     await addNameSighting(cs, id, { name, kind: 'legal', confirmedBy: who.actor, source: 'manual' }, at);
     await cs.update('counterparty', id, { canonical_name: name, name_locked_by: who.actor });
     const after = await touchCounterparty(cs, id, at);
@@ -110,7 +110,7 @@ export async function renameCounterparty(
       requestId: who.requestId,
       details: { counterpartyId: id, from: previous, to: name },
     });
-    return { counterpartyId: id, eventId, version: after.version as number };
+    return { counterpartyId: id, eventId, version: after.version };
   });
 }
 
@@ -137,7 +137,7 @@ export async function addName(
       requestId: who.requestId,
       details: { counterpartyId: id, nameId: row.id, name, kind },
     });
-    return { counterpartyId: id, eventId, version: after.version as number, nameId: row.id as number };
+    return { counterpartyId: id, eventId, version: after.version, nameId: row.id };
   });
 }
 
@@ -168,7 +168,7 @@ export async function removeName(
       requestId: who.requestId,
       details: { counterpartyId: id, nameId, name: row.name, kind: row.kind },
     });
-    return { counterpartyId: id, eventId, version: after.version as number };
+    return { counterpartyId: id, eventId, version: after.version };
   });
 }
 
@@ -184,9 +184,9 @@ export async function addIdentifier(
     const id = survivorFor(cs, counterpartyId);
     const cp = await cs.require('counterparty', id);
     checkVersion(cs, cp, input.expectedVersion);
-    const identifier = normaliseIdentifierOrThrow('identifier', input, cp.jurisdiction as string | null);
+    const identifier = normaliseIdentifierOrThrow('identifier', input, cp.jurisdiction);
     const row = await addIdentifierRow(cs, id, identifier, { source: 'manual', confirmedBy: who.actor }, at);
-    if (!row) return { counterpartyId: id, eventId: null, version: cp.version as number, identifierId: null };
+    if (!row) return { counterpartyId: id, eventId: null, version: cp.version, identifierId: null };
     const after = await touchCounterparty(cs, id, at);
     const eventId = await commitEvent(cs, {
       type: 'identifier_added',
@@ -196,7 +196,7 @@ export async function addIdentifier(
       requestId: who.requestId,
       details: { counterpartyId: id, identifierId: row.id, scheme: identifier.scheme, value: identifier.value },
     });
-    return { counterpartyId: id, eventId, version: after.version as number, identifierId: row.id as number };
+    return { counterpartyId: id, eventId, version: after.version, identifierId: row.id };
   });
 }
 
@@ -223,7 +223,7 @@ export async function removeIdentifier(
       requestId: who.requestId,
       details: { counterpartyId: id, identifierId, scheme: row.scheme, value: row.value },
     });
-    return { counterpartyId: id, eventId, version: after.version as number };
+    return { counterpartyId: id, eventId, version: after.version };
   });
 }
 

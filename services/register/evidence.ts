@@ -5,14 +5,14 @@
  */
 import type { ChangeSet } from './state/change-set.ts';
 import { asJsonb } from './state/jsonb-image.ts';
-import type { Row } from './state/tables.ts';
+import type { Row, StateRow } from './state/tables.ts';
 
 export function composeEvidence(body: Row | null | undefined, own: unknown): Row {
   return asJsonb({ ...(body ?? {}), ...((own as Row | null) ?? {}) }) as Row;
 }
 
 /** The whole evidence of a mention or review item row held by a ChangeSet. */
-export async function evidenceOf(cs: ChangeSet, row: Row): Promise<Row> {
-  const id = (row.explanation_id as number | null | undefined) ?? null;
+export async function evidenceOf(cs: ChangeSet, row: StateRow<'mention'> | StateRow<'review_item'>): Promise<Row> {
+  const id = row.explanation_id ?? null;
   return composeEvidence(id === null ? null : await cs.explanation(id), row.evidence);
 }

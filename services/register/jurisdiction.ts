@@ -55,8 +55,8 @@ export async function setJurisdiction(
         version: cp.version,
       });
     }
-    const previous = (cp.jurisdiction as string | null) ?? null;
-    if (previous === jurisdiction) return { counterpartyId: id, eventId: null, version: cp.version as number, jurisdiction };
+    const previous = cp.jurisdiction ?? null;
+    if (previous === jurisdiction) return { counterpartyId: id, eventId: null, version: cp.version, jurisdiction };
     await cs.update('counterparty', id, { jurisdiction });
     const after = await touchCounterparty(cs, id, at);
     const eventId = await commitEvent(cs, {
@@ -67,6 +67,6 @@ export async function setJurisdiction(
       requestId: who.requestId,
       details: { counterpartyId: id, from: previous, to: jurisdiction },
     });
-    return { counterpartyId: id, eventId, version: after.version as number, jurisdiction };
+    return { counterpartyId: id, eventId, version: after.version, jurisdiction };
   });
 }

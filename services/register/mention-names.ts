@@ -4,20 +4,20 @@
  * withdrawing the mention takes exactly those sightings away again.
  */
 import type { NameKind } from '../../resolvers/vocabulary.ts';
-import type { Row } from './state/tables.ts';
+import type { StateRow } from './state/tables.ts';
 
 export interface RecordedName {
   name: string;
   kind: NameKind;
 }
 
-export function recordedNameOf(mention: Row): RecordedName | null {
+export function recordedNameOf(mention: StateRow<'mention'>): RecordedName | null {
   const evidence = mention.evidence as { recordedName?: RecordedName | null } | null;
   return evidence?.recordedName ?? null;
 }
 
 /** The mention's own recorded name and the declared names it brought, in that order. */
-export function recordedNamesOf(mention: Row): RecordedName[] {
+export function recordedNamesOf(mention: StateRow<'mention'>): RecordedName[] {
   const evidence = mention.evidence as { recordedAliases?: RecordedName[] | null } | null;
   const own = recordedNameOf(mention);
   return [...(own ? [own] : []), ...(evidence?.recordedAliases ?? [])];

@@ -49,7 +49,7 @@ export async function mergeCounterparties(ctx: RegisterContext, input: MergeInpu
     if (input.expectedVersions) {
       const rows = await cs.lock('counterparty', requested);
       for (const row of rows) {
-        const expected = input.expectedVersions[row.id as number];
+        const expected = input.expectedVersions[row.id];
         if (expected !== undefined && expected !== row.version) {
           throw new RegisterError(
             'STALE_VERSION',
@@ -78,6 +78,6 @@ export async function mergeCounterparties(ctx: RegisterContext, input: MergeInpu
     for (const loser of losers) await mergeInto(cs, survivorId, loser, at);
     const after = await touchCounterparty(cs, survivorId, at);
     const eventId = await commitRequested(cs, 'merged', who, at, { survivorId, mergedIds: losers }, input.reason ?? who.reason);
-    return { eventId, survivorId, mergedIds: losers, version: after.version as number };
+    return { eventId, survivorId, mergedIds: losers, version: after.version };
   });
 }

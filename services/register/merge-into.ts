@@ -4,7 +4,7 @@
  * every merge (merge-counterparties.ts) and of a "same" review decision on a duplicate (review.ts).
  */
 import type { ChangeSet } from './state/change-set.ts';
-import type { Row } from './state/tables.ts';
+import type { StateValues } from './state/tables.ts';
 import { findNameId, nameRowsOf } from '../../db/queries/names.ts';
 import { findIdentifierId, identifierRowsOf } from '../../db/queries/identifiers.ts';
 import { mentionIdsOfCounterparty } from '../../db/queries/mentions.ts';
@@ -20,7 +20,7 @@ export async function mergeInto(cs: ChangeSet, survivorId: number, loserId: numb
     const row = await cs.require('counterparty_name', Number(n.id));
     if (twin !== undefined) {
       const keep = await cs.require('counterparty_name', twin);
-      const patch: Row = { seen_count: (keep.seen_count as number) + (row.seen_count as number) };
+      const patch: StateValues<'counterparty_name'> = { seen_count: keep.seen_count + row.seen_count };
       if (!keep.confirmed_by && row.confirmed_by) patch.confirmed_by = row.confirmed_by;
       await cs.update('counterparty_name', twin, patch);
       await cs.delete('counterparty_name', Number(n.id));
@@ -57,7 +57,7 @@ export async function mergeInto(cs: ChangeSet, survivorId: number, loserId: numb
   await cs.update('counterparty', loserId, {
     status: 'merged',
     merged_into: survivorId,
-    version: (loser.version as number) + 1,
+    version: loser.version + 1,
     updated_at: iso,
   });
   cs.aliases.set(loserId, survivorId);

@@ -51,7 +51,7 @@ export async function addOwnEntity(
       requestId: who.requestId,
       details: { entity: 'own_entity', ownEntityId: row.id, name },
     });
-    return { eventId, ownEntityId: row.id as number, created: true };
+    return { eventId, ownEntityId: row.id, created: true };
   });
 }
 

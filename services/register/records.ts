@@ -6,7 +6,7 @@ import type { IdentifierScheme, NameKind } from '../../resolvers/vocabulary.ts';
 import { isStrongScheme } from '../../resolvers/vocabulary.ts';
 import { normaliseIdentifier } from '../../resolvers/identifiers/index.ts';
 import type { ChangeSet, Db } from './state/change-set.ts';
-import type { Row } from './state/tables.ts';
+import type { StateRow, StateValues } from './state/tables.ts';
 import { chooseCanonicalName, type NameCandidate } from './canonical-name.ts';
 import { RegisterError, invalid, notFound } from './errors.ts';
 import { analyse } from './matching/analysis.ts';
@@ -54,7 +54,7 @@ export function normaliseIdentifierOrThrow(field: string, input: IdentifierInput
 export async function createCounterpartyRow(
   cs: ChangeSet,
   values: { name: string; kind?: 'organisation' | 'person' | 'unknown'; jurisdiction?: string | null; at: Date },
-): Promise<Row> {
+): Promise<StateRow<'counterparty'>> {
   const at = values.at.toISOString();
   return cs.insert('counterparty', {
     canonical_name: values.name,
@@ -70,7 +70,7 @@ export async function createCounterpartyRow(
 }
 
 /** Adds a sighting of a name: a new row, or one more sighting of the same (name, kind). */
-export async function addNameSighting(cs: ChangeSet, counterpartyId: number, sighting: NameSighting, at: Date): Promise<Row> {
+export async function addNameSighting(cs: ChangeSet, counterpartyId: number, sighting: NameSighting, at: Date): Promise<StateRow<'counterparty_name'>> {
   // A batch write holds the counterparty's names (ChangeSet.namesOf); otherwise they are read.
   const held = await cs.namesOf(counterpartyId);
   const existing = held
@@ -78,7 +78,7 @@ export async function addNameSighting(cs: ChangeSet, counterpartyId: number, sig
     : await findNameId(cs.trx, counterpartyId, sighting.name, sighting.kind);
   if (existing !== undefined && existing !== null) {
     const row = await cs.require('counterparty_name', Number(existing));
-    const patch: Row = { seen_count: (row.seen_count as number) + 1 };
+    const patch: StateValues<'counterparty_name'> = { seen_count: row.seen_count + 1 };
     if (sighting.confirmedBy && !row.confirmed_by) patch.confirmed_by = sighting.confirmedBy;
     return cs.update('counterparty_name', Number(existing), patch);
   }
@@ -102,12 +102,10 @@ export async function addNameSighting(cs: ChangeSet, counterpartyId: number, sig
 export async function removeNameSighting(cs: ChangeSet, counterpartyId: number, name: string, kind: NameKind): Promise<void> {
   // A buffered write holds the counterparty's names (ChangeSet.namesOf); otherwise they are read.
   const held = await cs.namesOf(counterpartyId);
-  const existing = held
-    ? (held.find((n) => n.name === name && n.kind === kind)?.id as number | undefined)
-    : await findNameId(cs.trx, counterpartyId, name, kind);
+  const existing = held ? held.find((n) => n.name === name && n.kind === kind)?.id : await findNameId(cs.trx, counterpartyId, name, kind);
   if (existing === undefined || existing === null) return;
   const row = await cs.require('counterparty_name', Number(existing));
-  const count = (row.seen_count as number) - 1;
+  const count = row.seen_count - 1;
   // A counterparty keeps at least one name: the last one stays with a zero count.
   if (count <= 0 && !row.confirmed_by && (held ? held.length : await countNames(cs.trx, counterpartyId)) > 1) {
     await cs.delete('counterparty_name', Number(existing));
@@ -123,7 +121,7 @@ export async function addIdentifierRow(
   identifier: NormalisedIdentifier,
   origin: { source?: string | null; mentionId?: number | null; confirmedBy?: string | null },
   at: Date,
-): Promise<Row | undefined> {
+): Promise<StateRow<'counterparty_identifier'> | undefined> {
   // The stored holders, then those added in this ChangeSet's buffer (not written yet).
   const holders = [
     ...(await holdersOf(cs.trx, [identifier])).map((h) => ({ counterparty_id: h.counterpartyId })),
@@ -154,9 +152,9 @@ export async function addIdentifierRow(
 }
 
 /** Re-applies the canonical-value rules and bumps the version (every change to a counterparty changes its ETag). */
-export async function touchCounterparty(cs: ChangeSet, counterpartyId: number, at: Date): Promise<Row> {
+export async function touchCounterparty(cs: ChangeSet, counterpartyId: number, at: Date): Promise<StateRow<'counterparty'>> {
   const cp = await cs.require('counterparty', counterpartyId);
-  const patch: Row = { version: (cp.version as number) + 1, updated_at: at.toISOString() };
+  const patch: StateValues<'counterparty'> = { version: cp.version + 1, updated_at: at.toISOString() };
   if (cp.status === 'active' && !cp.name_locked_by) {
     const names = (await cs.namesOf(counterpartyId)) ?? (await nameChoicesOf(cs.trx, counterpartyId));
     const chosen = chooseCanonicalName(names.map((n) => ({ ...n, id: Number(n.id) }) as NameCandidate));
@@ -183,20 +181,21 @@ export async function survivorOf(db: Db, counterpartyId: number): Promise<{ id: 
  * Locks counterparties and returns them, following merges: callers that were handed a merged id act on the
  * survivor. Locks are taken in id order; a survivor found later is locked afterwards (deadlocks are retried).
  */
-export async function lockActive(cs: ChangeSet, ids: number[]): Promise<Map<number, Row>> {
-  const out = new Map<number, Row>();
+export async function lockActive(cs: ChangeSet, ids: number[]): Promise<Map<number, StateRow<'counterparty'>>> {
+  const out = new Map<number, StateRow<'counterparty'>>();
   let pending = [...new Set(ids)];
   for (let round = 0; pending.length > 0 && round < 100; round++) {
     const rows = await cs.lock('counterparty', pending);
-    const found = new Set(rows.map((r) => r.id as number));
+    const found = new Set(rows.map((r) => r.id));
     for (const id of pending) if (!found.has(id)) throw notFound('counterparty', id);
     const next: number[] = [];
     for (const row of rows) {
-      if (row.status === 'active') out.set(row.id as number, row);
-      else next.push(row.merged_into as number);
+      if (row.status === 'active') out.set(row.id, row);
+      // A counterparty that is not active was merged: it names its survivor.
+      else next.push(row.merged_into!);
     }
     // Map each requested id to its survivor: the caller reads `survivorFor` below.
-    for (const row of rows) if (row.status !== 'active') cs.aliases.set(row.id as number, row.merged_into as number);
+    for (const row of rows) if (row.status !== 'active') cs.aliases.set(row.id, row.merged_into!);
     pending = next.filter((id) => !out.has(id));
   }
   return out;
@@ -204,6 +203,6 @@ export async function lockActive(cs: ChangeSet, ids: number[]): Promise<Map<numb
 
 export function survivorFor(cs: ChangeSet, id: number): number {
   let current = id;
-  for (let i = 0; i < 1000 && cs.aliases.has(current); i++) current = cs.aliases.get(current) as number;
+  for (let i = 0; i < 1000 && cs.aliases.has(current); i++) current = cs.aliases.get(current)!;
   return current;
 }

@@ -9,7 +9,7 @@ import { RegisterError, invalid, notFound } from './errors.ts';
 import { commitRequested } from './history/commit.ts';
 import { lockActive, survivorFor, touchCounterparty } from './records.ts';
 import type { ChangeSet } from './state/change-set.ts';
-import type { Row } from './state/tables.ts';
+import type { StateRow } from './state/tables.ts';
 import { write } from './transaction.ts';
 import { findRelation, relationEnds } from '../../db/queries/relations.ts';
 
@@ -33,7 +33,14 @@ function checkDate(field: string, value: string): string {
 }
 
 /** Inserts a relation inside an open ChangeSet (both ends locked by the caller). */
-export async function insertRelation(cs: ChangeSet, from: number, to: number, input: RelationInput, actor: string, at: Date): Promise<Row | undefined> {
+export async function insertRelation(
+  cs: ChangeSet,
+  from: number,
+  to: number,
+  input: RelationInput,
+  actor: string,
+  at: Date,
+): Promise<StateRow<'counterparty_relation'> | undefined> {
   if (from === to) throw invalid('toId', 'a counterparty cannot be related to itself');
   const existing = await findRelation(cs.trx, from, to, input.type);
   if (existing !== undefined) return undefined;
@@ -73,7 +80,7 @@ export async function addRelation(ctx: RegisterContext, input: RelationInput, wh
       relation: input.type,
       since: input.since ?? null,
     });
-    return { eventId, relationId: row.id as number };
+    return { eventId, relationId: row.id };
   });
 }
 
@@ -86,8 +93,8 @@ export async function removeRelation(ctx: RegisterContext, relationId: number, w
     const row = await cs.get('counterparty_relation', relationId);
     if (!row) throw new RegisterError('CONFLICT', `relation ${relationId} was removed meanwhile`);
     await cs.delete('counterparty_relation', relationId);
-    await touchCounterparty(cs, row.from_counterparty_id as number, at);
-    await touchCounterparty(cs, row.to_counterparty_id as number, at);
+    await touchCounterparty(cs, row.from_counterparty_id, at);
+    await touchCounterparty(cs, row.to_counterparty_id, at);
     const eventId = await commitRequested(cs, 'relation_removed', who, at, {
       relationId,
       fromId: row.from_counterparty_id,

@@ -3,7 +3,6 @@
  * unbound_term without confirmed_by) is resolved again under the current model, one transaction per mention.
  * A mention whose outcome stays the same is rolled back untouched (no event); every change is one history event.
  */
-import type { MentionInput } from '../../resolvers/vocabulary.ts';
 import type { ActorInput, RegisterContext } from './context.ts';
 import { mentionRow, unconfirmedMentionIds } from '../../db/queries/mentions.ts';
 import { partyOfMention } from '../../db/queries/contracts.ts';
@@ -30,19 +29,19 @@ export async function reresolveOne(ctx: RegisterContext, mentionId: number, who:
       const row = await mentionRow(cs.trx, mentionId);
       if (!row) return { changed: false, status: 'missing' };
       const m = canonicalRow('mention', row);
-      if (m.confirmed_by || !['linked', 'review', 'new', 'unbound_term'].includes(m.status as string)) {
-        return { changed: false, status: m.status as string };
+      if (m.confirmed_by || !['linked', 'review', 'new', 'unbound_term'].includes(m.status)) {
+        return { changed: false, status: m.status };
       }
       const prepared = prepareMention(
         {
-          source: m.source as string,
-          externalId: m.external_id as string,
-          text: m.text as string,
-          ...(m.contract_source ? { contract: { source: m.contract_source as string, externalId: m.contract_external_id as string } } : {}),
-          ...(m.role ? { role: m.role as string } : {}),
-          ...(m.country ? { country: m.country as string } : {}),
-          ...(m.address ? { address: m.address as string } : {}),
-          identifiers: m.identifiers as MentionInput['identifiers'],
+          source: m.source,
+          externalId: m.external_id,
+          text: m.text,
+          ...(m.contract_source ? { contract: { source: m.contract_source, externalId: m.contract_external_id! } } : {}),
+          ...(m.role ? { role: m.role } : {}),
+          ...(m.country ? { country: m.country } : {}),
+          ...(m.address ? { address: m.address } : {}),
+          identifiers: m.identifiers,
         },
         { lenientIdentifiers: true },
       );

@@ -25,7 +25,7 @@ import { assertNoCannotLink } from './assert-no-cannot-link.ts';
 import { mergeInto } from './merge-into.ts';
 import { insertRelation } from './relations.ts';
 import type { ChangeSet } from './state/change-set.ts';
-import type { Row } from './state/tables.ts';
+import type { StateRow } from './state/tables.ts';
 import { write } from './transaction.ts';
 import { analyse } from './matching/analysis.ts';
 import { getSummaries, type CounterpartySummary } from '../../db/queries/counterparties.ts';
@@ -103,37 +103,37 @@ function withoutRecordedAliases(evidence: unknown): Record<string, unknown> {
 }
 
 /** The kind a person-confirmed mention's name is recorded with: a former name stays a former name. */
-function confirmedNameKind(mention: Row): NameKind {
+function confirmedNameKind(mention: StateRow<'mention'>): NameKind {
   const evidence = mention.evidence as { via?: string; declaredName?: { kind: NameKind } } | null;
   if (evidence?.via === 'former_name') return 'former';
   if (evidence?.declaredName) return evidence.declaredName.kind;
-  return analyse(mention.text as string, mention.country as string | null).legalForm ? 'legal' : 'observed';
+  return analyse(mention.text, mention.country).legalForm ? 'legal' : 'observed';
 }
 
-async function linkMentionByPerson(cs: ChangeSet, mention: Row, counterpartyId: number, actor: string, at: Date, status: 'linked' | 'new'): Promise<void> {
-  const recordedName = { name: mention.text as string, kind: confirmedNameKind({ ...mention, evidence: await evidenceOf(cs, mention) }) };
-  await addNameSighting(cs, counterpartyId, { ...recordedName, source: mention.source as string, mentionId: mention.id as number }, at);
+async function linkMentionByPerson(
+  cs: ChangeSet,
+  mention: StateRow<'mention'>,
+  counterpartyId: number,
+  actor: string,
+  at: Date,
+  status: 'linked' | 'new',
+): Promise<void> {
+  const recordedName = { name: mention.text, kind: confirmedNameKind({ ...mention, evidence: await evidenceOf(cs, mention) }) };
+  await addNameSighting(cs, counterpartyId, { ...recordedName, source: mention.source, mentionId: mention.id }, at);
   // A contract party confirmed by a person brings the names its contract declares for it ("formerly X"), as a
   // party linked automatically does (resolve/apply.ts), kept in the evidence so that moving it takes them away.
-  const recordedAliases = (await declaredNamesOfPartyMention(cs.trx, mention.id as number)).filter(
-    (a) => a.name !== recordedName.name || a.kind !== recordedName.kind,
-  );
+  const recordedAliases = (await declaredNamesOfPartyMention(cs.trx, mention.id)).filter((a) => a.name !== recordedName.name || a.kind !== recordedName.kind);
   for (const alias of recordedAliases) {
-    await addNameSighting(
-      cs,
-      counterpartyId,
-      { ...alias, source: mention.source as string, mentionId: mention.id as number, contractId: (mention.contract_id as number | null) ?? null },
-      at,
-    );
+    await addNameSighting(cs, counterpartyId, { ...alias, source: mention.source, mentionId: mention.id, contractId: mention.contract_id ?? null }, at);
   }
   for (const identifier of (mention.identifiers as Identifier[]) ?? []) {
     try {
-      await addIdentifierRow(cs, counterpartyId, identifier, { source: mention.source as string, mentionId: mention.id as number }, at);
+      await addIdentifierRow(cs, counterpartyId, identifier, { source: mention.source, mentionId: mention.id }, at);
     } catch (error) {
       if (!(error instanceof RegisterError && error.code === 'IDENTIFIER_TAKEN')) throw error;
     }
   }
-  await cs.update('mention', mention.id as number, {
+  await cs.update('mention', mention.id, {
     status,
     counterparty_id: counterpartyId,
     confirmed_by: actor,
@@ -168,23 +168,24 @@ export async function decideReview(ctx: RegisterContext, reviewItemId: number, i
         },
       );
     }
-    const right = survivorFor(cs, item.right_counterparty_id as number);
-    const left = item.left_counterparty_id === null ? null : survivorFor(cs, item.left_counterparty_id as number);
+    const right = survivorFor(cs, item.right_counterparty_id);
+    const left = item.left_counterparty_id === null ? null : survivorFor(cs, item.left_counterparty_id);
     let resultId: number | null = right;
     let leftText = '';
     const rightCp = await cs.require('counterparty', right);
     if (item.kind === 'mention_link') {
-      const mention = await cs.require('mention', item.mention_id as number);
-      leftText = mention.text as string;
+      // A mention_link item always names its mention.
+      const mention = await cs.require('mention', item.mention_id!);
+      leftText = mention.text;
       if (mention.status !== 'review' || mention.counterparty_id !== null) {
         throw new RegisterError('CONFLICT', `mention ${String(mention.id)} is no longer waiting for review (status ${String(mention.status)})`);
       }
       if (input.decision === 'not_a_party') {
-        await cs.update('mention', mention.id as number, {
+        await cs.update('mention', mention.id, {
           status: 'not_a_party',
           counterparty_id: null,
           confirmed_by: who.actor,
-          evidence: { ...(mention.evidence as Record<string, unknown>), notAPartyBy: 'review' },
+          evidence: { ...mention.evidence, notAPartyBy: 'review' },
           updated_at: at.toISOString(),
         });
         resultId = null;
@@ -193,18 +194,18 @@ export async function decideReview(ctx: RegisterContext, reviewItemId: number, i
       } else if (input.joinCounterpartyId !== undefined) {
         // The group's first mention already became a new counterparty, kept apart from this candidate.
         const join = survivorFor(cs, input.joinCounterpartyId);
-        await insertCannotLink(cs, { counterpartyId: right, mentionId: mention.id as number, reviewItemId, actor: who.actor, reason, at });
+        await insertCannotLink(cs, { counterpartyId: right, mentionId: mention.id, reviewItemId, actor: who.actor, reason, at });
         await linkMentionByPerson(cs, mention, join, who.actor, at, 'linked');
         resultId = join;
       } else {
-        await insertCannotLink(cs, { counterpartyId: right, mentionId: mention.id as number, reviewItemId, actor: who.actor, reason, at });
+        await insertCannotLink(cs, { counterpartyId: right, mentionId: mention.id, reviewItemId, actor: who.actor, reason, at });
         const cp = await createCounterpartyRow(cs, {
-          name: mention.text as string,
+          name: mention.text,
           kind: 'organisation',
-          jurisdiction: (mention.country as string | null) ?? null,
+          jurisdiction: mention.country ?? null,
           at,
         });
-        resultId = cp.id as number;
+        resultId = cp.id;
         await linkMentionByPerson(cs, mention, resultId, who.actor, at, 'new');
         await insertCannotLink(cs, { counterpartyId: right, otherCounterpartyId: resultId, reviewItemId, actor: who.actor, reason, at });
       }
@@ -212,7 +213,7 @@ export async function decideReview(ctx: RegisterContext, reviewItemId: number, i
       if (input.decision === 'not_a_party')
         throw invalid('decision', `"not_a_party" answers a mention's item only; item ${reviewItemId} pairs two counterparties`);
       if (left === null) throw new Error(`review item ${reviewItemId} has no left counterparty`);
-      leftText = (await cs.require('counterparty', left)).canonical_name as string;
+      leftText = (await cs.require('counterparty', left)).canonical_name;
       if (left === right) {
         throw new RegisterError('CONFLICT', `the two sides of review item ${reviewItemId} are already one counterparty (${right})`);
       }
@@ -248,7 +249,7 @@ export async function decideReview(ctx: RegisterContext, reviewItemId: number, i
       await cs.insert('labelled_pair', {
         review_item_id: reviewItemId,
         left_text: leftText,
-        right_text: rightCp.canonical_name as string,
+        right_text: rightCp.canonical_name,
         label: input.decision,
         features: await evidenceOf(cs, item),
         decided_by: who.actor,

@@ -58,16 +58,16 @@ export async function splitCounterparty(ctx: RegisterContext, counterpartyId: nu
     } else {
       const first = mentions[0]!;
       const name = (recordedNameOf(first)?.name ?? first.text) as string;
-      const cp = await createCounterpartyRow(cs, { name, kind: source.kind as 'organisation', jurisdiction: source.jurisdiction as string | null, at });
-      targetId = cp.id as number;
+      const cp = await createCounterpartyRow(cs, { name, kind: source.kind as 'organisation', jurisdiction: source.jurisdiction, at });
+      targetId = cp.id;
       created = true;
     }
     for (const m of mentions) {
       for (const recorded of recordedNamesOf(m)) {
         await removeNameSighting(cs, sourceId, recorded.name, recorded.kind);
-        await addNameSighting(cs, targetId, { name: recorded.name, kind: recorded.kind, source: m.source as string, mentionId: m.id as number }, at);
+        await addNameSighting(cs, targetId, { name: recorded.name, kind: recorded.kind, source: m.source, mentionId: m.id }, at);
       }
-      await cs.update('mention', m.id as number, {
+      await cs.update('mention', m.id, {
         counterparty_id: targetId,
         status: 'linked',
         confirmed_by: who.actor,
@@ -77,12 +77,7 @@ export async function splitCounterparty(ctx: RegisterContext, counterpartyId: nu
     if (created) {
       if ((await anyNameId(cs.trx, targetId)) === undefined) {
         const first = mentions[0]!;
-        await addNameSighting(
-          cs,
-          targetId,
-          { name: first.text as string, kind: 'observed', source: first.source as string, mentionId: first.id as number },
-          at,
-        );
+        await addNameSighting(cs, targetId, { name: first.text, kind: 'observed', source: first.source, mentionId: first.id }, at);
       }
     }
     await touchCounterparty(cs, sourceId, at);

@@ -135,6 +135,6 @@ async function fileItem(ctx: RegisterContext, who: ActorInput, left: number, c: 
       requestId: who.requestId,
       details: { entity: 'review_item', reviewItemId: item.id, kind, leftCounterpartyId: left, rightCounterpartyId: c.counterpartyId },
     });
-    return item.id as number;
+    return item.id;
   });
 }

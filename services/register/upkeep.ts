@@ -7,7 +7,7 @@ import { RegisterError, notFound } from './errors.ts';
 import { commitEvent } from './history/commit.ts';
 import { removeNameSighting, touchCounterparty } from './records.ts';
 import type { ChangeSet } from './state/change-set.ts';
-import type { Row } from './state/tables.ts';
+import type { StateRow } from './state/tables.ts';
 import { write } from './transaction.ts';
 import { recordedNamesOf } from './mention-names.ts';
 import { counterpartiesOfMentions, mentionOutcome, findMentionBySourceId } from '../../db/queries/mentions.ts';
@@ -25,16 +25,21 @@ export interface MentionChangeResult {
  * Takes a mention off its counterparty (names it contributed go with it) and gives it `status` (one that needs no
  * counterparty). The caller has locked the counterparty.
  */
-export async function detachMention(cs: ChangeSet, mention: Row, at: Date, status: 'review' | 'set_aside' | 'withdrawn' = 'review'): Promise<number | null> {
-  const cpId = mention.counterparty_id as number | null;
+export async function detachMention(
+  cs: ChangeSet,
+  mention: StateRow<'mention'>,
+  at: Date,
+  status: 'review' | 'set_aside' | 'withdrawn' = 'review',
+): Promise<number | null> {
+  const cpId = mention.counterparty_id;
   if (cpId === null) return null;
   for (const recorded of recordedNamesOf(mention)) await removeNameSighting(cs, cpId, recorded.name, recorded.kind);
-  await cs.update('mention', mention.id as number, { status, counterparty_id: null, updated_at: at.toISOString() });
+  await cs.update('mention', mention.id, { status, counterparty_id: null, updated_at: at.toISOString() });
   await touchCounterparty(cs, cpId, at);
   return cpId;
 }
 
-async function lockMention(cs: ChangeSet, mentionId: number): Promise<Row> {
+async function lockMention(cs: ChangeSet, mentionId: number): Promise<StateRow<'mention'>> {
   // Lock order everywhere: counterparties before mentions. Read the mention's counterparty, lock it, then the
   // mention; if the mention moved meanwhile, go round again.
   for (let attempt = 0; attempt < 10; attempt++) {
@@ -142,8 +147,8 @@ export async function withdrawContract(
     for (const mention of mentions) {
       if (mention.status === 'withdrawn') continue;
       await detachMention(cs, mention, at, 'withdrawn');
-      await closeOpenItemsOfMention(cs, mention.id as number);
-      await cs.update('mention', mention.id as number, {
+      await closeOpenItemsOfMention(cs, mention.id);
+      await cs.update('mention', mention.id, {
         status: 'withdrawn',
         own_entity_id: null,
         confirmed_by: who.actor,

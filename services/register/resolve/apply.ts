@@ -7,13 +7,13 @@ import type { HistoryEventType } from '../../../resolvers/vocabulary.ts';
 import { addIdentifierRow, addNameSighting, createCounterpartyRow, lockActive, survivorFor, touchCounterparty } from '../records.ts';
 import { RegisterError } from '../errors.ts';
 import type { ChangeSet } from '../state/change-set.ts';
-import type { Row } from '../state/tables.ts';
+import type { StateRow, StateValues } from '../state/tables.ts';
 import type { RecordedName } from '../mention-names.ts';
 import type { Outcome } from './decide.ts';
 import type { PreparedMention } from './prepare.ts';
 
 export interface Applied {
-  mention: Row;
+  mention: StateRow<'mention'>;
   counterpartyId: number | null;
   reviewItemId: number | null;
   createdCounterparty: boolean;
@@ -70,7 +70,7 @@ export async function applyOutcome(
   cs: ChangeSet,
   prepared: PreparedMention,
   outcome: Outcome,
-  existing: Row | undefined,
+  existing: StateRow<'mention'> | undefined,
   extra: { contractId: number | null; at: Date },
 ): Promise<Applied> {
   const at = extra.at;
@@ -85,10 +85,10 @@ export async function applyOutcome(
   if (outcome.status === 'new') {
     const kind = prepared.analysis.kind === 'person' ? 'person' : prepared.analysis.kind === 'organisation' ? 'organisation' : 'unknown';
     const cp = await createCounterpartyRow(cs, { name: prepared.text, kind, jurisdiction: prepared.input.country ?? null, at });
-    counterpartyId = cp.id as number;
+    counterpartyId = cp.id;
     created = true;
   }
-  const values: Row = {
+  const values: StateValues<'mention'> = {
     source: prepared.input.source,
     external_id: prepared.input.externalId,
     text: prepared.text,
@@ -117,9 +117,9 @@ export async function applyOutcome(
   }
   // Kept in the evidence like recordedName, so that moving the mention away takes exactly these sightings with it.
   const recordedAliases = linking ? declaredToRecord(outcome, recordedName, prepared) : [];
-  if (recordedAliases.length > 0) values.evidence = { ...(values.evidence as Record<string, unknown>), recordedAliases };
-  const mention = existing ? await cs.update('mention', existing.id as number, values) : await cs.insert('mention', { ...values, created_at: iso });
-  const mentionId = mention.id as number;
+  if (recordedAliases.length > 0) values.evidence = { ...values.evidence, recordedAliases };
+  const mention = existing ? await cs.update('mention', existing.id, values) : await cs.insert('mention', { ...values, created_at: iso });
+  const mentionId = mention.id;
   let reviewItemId: number | null = null;
   if (linking && counterpartyId !== null) {
     const confirmedBy = outcome.confirmedByIdentifier ? `identifier:${outcome.confirmedByIdentifier}` : null;
@@ -153,21 +153,21 @@ export async function applyOutcome(
       reason: null,
       created_at: iso,
     });
-    reviewItemId = item.id as number;
+    reviewItemId = item.id;
   }
   return { mention: await cs.require('mention', mentionId), counterpartyId, reviewItemId, createdCounterparty: created };
 }
 
 export function canonicalNameIn(cs: ChangeSet, counterpartyId: number | null): string | undefined {
-  return counterpartyId === null ? undefined : (cs.cached('counterparty', counterpartyId)?.canonical_name as string | undefined);
+  return counterpartyId === null ? undefined : cs.cached('counterparty', counterpartyId)?.canonical_name;
 }
 
 /** The history event type for a mention's outcome (see docs/register.md, "Events of resolution"). */
-export function eventTypeFor(previous: Row | undefined, applied: Applied, textChanged: boolean): HistoryEventType {
+export function eventTypeFor(previous: StateRow<'mention'> | undefined, applied: Applied, textChanged: boolean): HistoryEventType {
   if (textChanged) return 'mention_changed';
   if (applied.createdCounterparty) return 'created';
-  const before = (previous?.counterparty_id as number | null | undefined) ?? null;
-  const after = (applied.mention.counterparty_id as number | null) ?? null;
+  const before = previous?.counterparty_id ?? null;
+  const after = applied.mention.counterparty_id ?? null;
   if (after !== null && after !== before) return 'linked';
   if (before !== null && after === null) return 'unlinked';
   return previous ? 'mention_changed' : 'created';

@@ -5,7 +5,7 @@
  * explanation names the earlier decision. (A person's "not a party" has no counterparty to ask about: the new text
  * is resolved afresh, and its history event records the earlier status.)
  */
-import type { Row } from '../state/tables.ts';
+import type { StateRow } from '../state/tables.ts';
 import type { Outcome } from './decide.ts';
 
 export interface EarlierDecision {
@@ -16,7 +16,7 @@ export interface EarlierDecision {
 }
 
 /** The decision to keep asking about, read from the stored mention before it is detached; null when none. */
-export function earlierDecisionOf(previous: Row | undefined, textChanged: boolean): EarlierDecision | null {
+export function earlierDecisionOf(previous: StateRow<'mention'> | undefined, textChanged: boolean): EarlierDecision | null {
   if (!previous || !textChanged || !previous.confirmed_by || previous.counterparty_id === null || previous.counterparty_id === undefined) return null;
   return {
     counterpartyId: Number(previous.counterparty_id),

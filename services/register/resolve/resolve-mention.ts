@@ -94,7 +94,7 @@ export async function resolveWithin(
   const basics = await lockAndReadDecisionBasics(cs.trx, neighbourhoodKeys([prepared]));
   const textChanged = found !== undefined && found.content_hash !== prepared.contentHash && !options.force;
   // A forced re-resolution keeps the stored content hash: the source's own input is what idempotency compares.
-  if (found && options.force) prepared = { ...prepared, contentHash: found.content_hash as string };
+  if (found && options.force) prepared = { ...prepared, contentHash: found.content_hash };
   const contract = options.party ? null : await contractContextFor(cs, prepared.input.contract);
   const { model, version } = modelFromSettings(basics.settings);
   // A batch of one: the register's reads shared by the own-entity check and the candidates (each read once), with
@@ -104,7 +104,7 @@ export async function resolveWithin(
   reads.seedOwnEntities(basics.ownEntities);
   if (prepared.analysis.partyStatus === 'party' && (options.party !== undefined || contract === null)) await reads.prefetch([prepared], MAX_CANDIDATES);
   const outcome = await decide(cs.trx, prepared, model, {
-    mentionId: found ? (found.id as number) : null,
+    mentionId: found ? found.id : null,
     contract,
     party: options.party ?? null,
     contractAwaited: prepared.input.contract !== undefined && contract === null,
@@ -139,7 +139,7 @@ export async function resolveWithin(
     {
       prepared,
       outcome,
-      stored: found ? { id: found.id as number, counterpartyId: found.counterparty_id as number | null } : null,
+      stored: found ? { id: found.id, counterpartyId: found.counterparty_id } : null,
       textChanged,
       contractId: options.party?.contractId ?? contract?.contractId ?? null,
       beforeCommit: options.beforeCommit,

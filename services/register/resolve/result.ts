@@ -1,7 +1,7 @@
 /** What a resolve answers for one mention, read from its stored row (and the counterparty's canonical name). */
 import type { ResolutionStatus } from '../../../resolvers/vocabulary.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
-import type { Row } from '../state/tables.ts';
+import type { Row, StateRow } from '../state/tables.ts';
 import { explanationBodies } from '../../../db/queries/explanations.ts';
 import { composeEvidence } from '../evidence.ts';
 import { canonicalNameOf } from '../../../db/queries/counterparties.ts';
@@ -30,10 +30,10 @@ export interface ResolveResult {
  */
 export async function resultOf(
   db: Queryable,
-  mention: Row,
+  mention: StateRow<'mention'>,
   extra: { alreadyIngested: boolean; eventId: number | null; reviewItemId?: number | null; canonicalName?: string; explanation?: Row | null },
 ): Promise<ResolveResult> {
-  const cpId = (mention.counterparty_id as number | null) ?? null;
+  const cpId = mention.counterparty_id ?? null;
   const cp =
     cpId === null
       ? undefined
@@ -42,23 +42,23 @@ export async function resultOf(
         : { canonical_name: await canonicalNameOf(db, cpId) };
   let reviewItemId = extra.reviewItemId ?? null;
   if (extra.reviewItemId === undefined && mention.status === 'review') {
-    reviewItemId = await newestOpenItemOfMention(db, mention.id as number);
+    reviewItemId = await newestOpenItemOfMention(db, mention.id);
   }
-  const explanationId = (mention.explanation_id as number | null | undefined) ?? null;
+  const explanationId = mention.explanation_id ?? null;
   const body =
     extra.explanation !== undefined || explanationId === null ? extra.explanation : (await explanationBodies(db, [explanationId])).get(explanationId);
   const evidence = composeEvidence(body, mention.evidence);
   delete evidence.recordedName;
   delete evidence.recordedAliases;
   return {
-    mentionId: mention.id as number,
-    source: mention.source as string,
-    externalId: mention.external_id as string,
-    status: mention.status as ResolutionStatus,
+    mentionId: mention.id,
+    source: mention.source,
+    externalId: mention.external_id,
+    status: mention.status,
     counterpartyId: cpId,
     canonicalName: cp?.canonical_name ?? null,
-    ownEntityId: (mention.own_entity_id as number | null) ?? null,
-    score: (mention.score as number | null) ?? null,
+    ownEntityId: mention.own_entity_id ?? null,
+    score: mention.score ?? null,
     explanation: evidence,
     reviewItemId,
     alreadyIngested: extra.alreadyIngested,

@@ -7,7 +7,7 @@
 import type { ActorInput } from '../context.ts';
 import { commitEvent } from '../history/commit.ts';
 import type { ChangeSet } from '../state/change-set.ts';
-import type { Row } from '../state/tables.ts';
+import type { StateRow } from '../state/tables.ts';
 import { closeOpenItemsOfMention, detachMention } from '../upkeep.ts';
 import { applyOutcome, canonicalNameIn, eventTypeFor, type Applied } from './apply.ts';
 import type { Outcome } from './decide.ts';
@@ -24,29 +24,28 @@ export interface MentionWrite {
   textChanged: boolean;
   contractId: number | null;
   /** The event's details (what a person reads), from what was written. */
-  details: (applied: Applied, previous: Row | undefined, outcome: Outcome) => Record<string, unknown>;
+  details: (applied: Applied, previous: StateRow<'mention'> | undefined, outcome: Outcome) => Record<string, unknown>;
   /** Runs after the outcome is written and before the event is committed (its ops join the same event). */
   beforeCommit?: (mentionId: number) => Promise<void>;
 }
 
 export async function writeMention(cs: ChangeSet, w: MentionWrite, who: ActorInput, at: Date): Promise<ResolveResult> {
   let outcome = w.outcome;
-  let previous: Row | undefined;
+  let previous: StateRow<'mention'> | undefined;
   if (w.stored) {
     // Lock order: counterparty, then mention (as everywhere); a mention moved since it was read locks its new one.
     if (w.stored.counterpartyId !== null) await cs.lock('counterparty', [w.stored.counterpartyId]);
     previous = await cs.require('mention', w.stored.id);
-    if (previous.counterparty_id !== null && previous.counterparty_id !== w.stored.counterpartyId)
-      await cs.lock('counterparty', [previous.counterparty_id as number]);
+    if (previous.counterparty_id !== null && previous.counterparty_id !== w.stored.counterpartyId) await cs.lock('counterparty', [previous.counterparty_id]);
     // A person's decision on it turns the new text into a question for a person (resolve/earlier-decision.ts).
     const earlier = earlierDecisionOf(previous, w.textChanged);
     if (earlier) outcome = { ...askAgain(outcome, earlier), ...(outcome.declaredNames ? { declaredNames: outcome.declaredNames } : {}) };
     await detachMention(cs, previous, at);
-    await closeOpenItemsOfMention(cs, previous.id as number);
+    await closeOpenItemsOfMention(cs, previous.id);
   }
   const existing = w.stored ? await cs.require('mention', w.stored.id) : undefined;
   const applied = await applyOutcome(cs, w.prepared, outcome, existing, { contractId: w.contractId, at });
-  if (w.beforeCommit) await w.beforeCommit(applied.mention.id as number);
+  if (w.beforeCommit) await w.beforeCommit(applied.mention.id);
   const eventId = await commitEvent(cs, {
     type: eventTypeFor(previous, applied, w.textChanged),
     actor: who.actor,
@@ -65,7 +64,8 @@ export async function writeMention(cs: ChangeSet, w: MentionWrite, who: ActorInp
     alreadyIngested: false,
     eventId,
     reviewItemId: applied.reviewItemId,
-    canonicalName: canonicalNameIn(cs, (applied.mention.counterparty_id as number | null) ?? null),
-    explanation: await cs.explanation(applied.mention.explanation_id as number),
+    canonicalName: canonicalNameIn(cs, applied.mention.counterparty_id ?? null),
+    // A mention written by a resolve always has its explanation (apply.ts).
+    explanation: await cs.explanation(applied.mention.explanation_id!),
   });
 }

@@ -16,7 +16,7 @@ import { syncDerived, type DerivedContext } from './derived.ts';
 import { asJsonb, jsonbImage } from './jsonb-image.ts';
 import { refsOf, touchedBy, type Op } from './ops.ts';
 import { RowCache } from './row-cache.ts';
-import { canonicalPatch, canonicalRow, toDbValues, type Row, type StateTable } from './tables.ts';
+import { canonicalPatch, canonicalRow, toDbValues, type Row, type StateRow, type StateTable, type StateValues } from './tables.ts';
 import { TEMP_ID_BASE, WriteBuffer, type BufferedEvent } from './write-buffer.ts';
 
 export type { Op } from './ops.ts';
@@ -24,6 +24,11 @@ export { touchedBy } from './ops.ts';
 export type { BufferedEvent } from './write-buffer.ts';
 
 export type Db = Kysely<Database> | Transaction<Database>;
+
+/** Narrows a row of a generic table: what a ChangeSet holds under a table is a row of that table. */
+function isNameRow(table: StateTable, _row: object): _row is StateRow<'counterparty_name'> {
+  return table === 'counterparty_name';
+}
 
 /** Tables whose ids a ChangeSet draws beforehand: the state tables and the history (events, explanations). */
 export type IdTable = StateTable | 'history_event' | 'explanation';
@@ -53,12 +58,12 @@ export class ChangeSet {
    * and returns their canonical images, in id order. Missing ids are absent from the result. Rows this
    * ChangeSet already holds (locked, inserted or changed by it) are answered from its cache.
    */
-  async lock(table: StateTable, ids: number[]): Promise<Row[]> {
+  async lock<T extends StateTable>(table: T, ids: number[]): Promise<StateRow<T>[]> {
     const wanted = [...new Set(ids)].sort((a, b) => a - b);
     if (wanted.length === 0) return [];
     const missing = wanted.filter((id) => !this.cache.has(table, id));
     if (missing.length > 0) for (const r of await lockRows(this.trx, table, missing)) this.cache.set(table, canonicalRow(table, r));
-    return wanted.map((id) => this.cache.get(table, id)).filter((r): r is Row => r !== undefined);
+    return wanted.map((id) => this.cache.get(table, id)).filter((r): r is StateRow<T> => r !== undefined);
   }
 
   get buffering(): boolean {
@@ -120,13 +125,13 @@ export class ChangeSet {
     for (const id of counterpartyIds) this.cache.holdNamesOf(id);
     for (const row of read.map((r) => canonicalRow('counterparty_name', r))) {
       // A row changed earlier by this ChangeSet keeps its cached image.
-      if (!this.cache.has('counterparty_name', row.id as number)) this.cache.set('counterparty_name', row);
+      if (!this.cache.has('counterparty_name', row.id)) this.cache.set('counterparty_name', row);
       this.cache.trackName(row, true);
     }
   }
 
   /** All name rows of a counterparty, when this ChangeSet holds them (buffered mode; see RowCache). */
-  async namesOf(counterpartyId: number): Promise<Row[] | undefined> {
+  async namesOf(counterpartyId: number): Promise<StateRow<'counterparty_name'>[] | undefined> {
     if (!this.buffer) return undefined;
     await this.loadNames([counterpartyId]);
     return this.cache.namesOf(counterpartyId);
@@ -174,7 +179,7 @@ export class ChangeSet {
   }
 
   /** The current image of one row, locking it on first use. */
-  async get(table: StateTable, id: number): Promise<Row | undefined> {
+  async get<T extends StateTable>(table: T, id: number): Promise<StateRow<T> | undefined> {
     const cached = this.cache.get(table, id);
     if (cached) return cached;
     const [row] = await this.lock(table, [id]);
@@ -182,22 +187,22 @@ export class ChangeSet {
   }
 
   /** Rows of a table inserted in the buffer and not written yet (a read of the table does not see them). */
-  unwritten(table: StateTable): Row[] {
+  unwritten<T extends StateTable>(table: T): StateRow<T>[] {
     return this.buffer ? this.buffer.insertedIds(table).map((id) => this.cache.get(table, id)!) : [];
   }
 
   /** The image of a row this ChangeSet already read or wrote, without a query. */
-  cached(table: StateTable, id: number): Row | undefined {
+  cached<T extends StateTable>(table: T, id: number): StateRow<T> | undefined {
     return this.cache.get(table, id);
   }
 
-  async require(table: StateTable, id: number): Promise<Row> {
+  async require<T extends StateTable>(table: T, id: number): Promise<StateRow<T>> {
     const row = await this.get(table, id);
     if (!row) throw new Error(`${table} ${id} vanished inside its own transaction`);
     return row;
   }
 
-  async insert(table: StateTable, values: Row): Promise<Row> {
+  async insert<T extends StateTable>(table: T, values: StateValues<T>): Promise<StateRow<T>> {
     if (this.buffer) {
       const id = await this.newId(table);
       const row = canonicalRow(table, jsonbImage(table, { ...values, id }));
@@ -205,9 +210,9 @@ export class ChangeSet {
       this.buffer.insert(table, id);
       this.ops.push({ op: 'insert', table, row });
       if (table === 'counterparty') this.cache.holdNamesOf(id);
-      if (table === 'counterparty_name') {
+      if (isNameRow(table, row)) {
         this.cache.trackName(row, true);
-        this.buffer.nameKeys([...new Set(this.derived.nameKeys(row as { name: string; normalised: string; kind: string }))], row.counterparty_id as number, id);
+        this.buffer.nameKeys([...new Set(this.derived.nameKeys(row))], row.counterparty_id, id);
       }
       return row;
     }
@@ -217,25 +222,26 @@ export class ChangeSet {
     this.cache.set(table, row);
     const op: Op = { op: 'insert', table, row };
     this.ops.push(op);
-    if (table === 'counterparty_name') this.cache.trackName(row, true);
+    if (isNameRow(table, row)) this.cache.trackName(row, true);
     await syncDerived(this.trx, op, this.derived);
     return row;
   }
 
   /** Changes the given columns; records only the columns whose value really changes. */
-  async update(table: StateTable, id: number, patch: Row): Promise<Row> {
+  async update<T extends StateTable>(table: T, id: number, patch: StateValues<T>): Promise<StateRow<T>> {
     const current = await this.require(table, id);
+    const image: Row = current;
     const next = canonicalPatch(table, patch);
     const before: Row = {};
     const after: Row = {};
     for (const [column, value] of Object.entries(next)) {
-      if (deepEqual(current[column], value)) continue;
-      before[column] = current[column];
+      if (deepEqual(image[column], value)) continue;
+      before[column] = image[column];
       after[column] = value;
     }
     if (Object.keys(after).length === 0) return current;
     const op: Op = { op: 'update', table, id, before, after, refs: refsOf(table, current) };
-    const row = { ...current, ...after };
+    const row: StateRow<T> = { ...current, ...after };
     // A name's text or owner changes its derived keys: written at once (after the buffer).
     const immediate = table === 'counterparty_name' && ('name' in after || 'normalised' in after || 'counterparty_id' in after);
     if (this.buffer && !immediate) {
@@ -247,7 +253,7 @@ export class ChangeSet {
     await this.flush();
     await updateById(this.trx, table, id, toDbValues(table, after));
     this.cache.set(table, row);
-    if (table === 'counterparty_name' && 'counterparty_id' in after) {
+    if (isNameRow(table, current) && isNameRow(table, row) && 'counterparty_id' in after) {
       this.cache.trackName(current, false);
       this.cache.trackName(row, true);
     }
@@ -256,11 +262,11 @@ export class ChangeSet {
     return row;
   }
 
-  async delete(table: StateTable, id: number): Promise<Row> {
+  async delete<T extends StateTable>(table: T, id: number): Promise<StateRow<T>> {
     // Derived rows and the buffer's own rows may refer to it: write the buffer first.
     await this.flush();
     const current = await this.require(table, id);
-    if (table === 'counterparty_name') this.cache.trackName(current, false);
+    if (isNameRow(table, current)) this.cache.trackName(current, false);
     const op: Op = { op: 'delete', table, row: current };
     // Derived rows go first: they reference the row being deleted.
     await syncDerived(this.trx, op, this.derived);

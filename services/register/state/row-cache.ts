@@ -3,7 +3,7 @@
  * some counterparties the complete list of their names (locked with ChangeSet.loadNames, or created here), so that
  * a batch adds sightings and chooses canonical names without reading them again.
  */
-import type { Row, StateTable } from './tables.ts';
+import type { Row, StateRow, StateTable } from './tables.ts';
 
 function rowKey(table: StateTable, id: number): string {
   return `${table}:${id}`;
@@ -14,16 +14,17 @@ export class RowCache {
   /** Counterparty → ids of all its counterparty_name rows, for counterparties whose names are held completely. */
   private readonly names = new Map<number, Set<number>>();
 
-  get(table: StateTable, id: number): Row | undefined {
-    return this.rows.get(rowKey(table, id));
+  /** Rows are kept untyped; each is stored under its own table, which is what makes the answer's type hold. */
+  get<T extends StateTable>(table: T, id: number): StateRow<T> | undefined {
+    return this.rows.get(rowKey(table, id)) as StateRow<T> | undefined;
   }
 
   has(table: StateTable, id: number): boolean {
     return this.rows.has(rowKey(table, id));
   }
 
-  set(table: StateTable, row: Row): void {
-    this.rows.set(rowKey(table, row.id as number), row);
+  set<T extends StateTable>(table: T, row: StateRow<T>): void {
+    this.rows.set(rowKey(table, row.id), row);
   }
 
   delete(table: StateTable, id: number): void {
@@ -40,16 +41,16 @@ export class RowCache {
   }
 
   /** All name rows of a counterparty whose names are held. */
-  namesOf(counterpartyId: number): Row[] {
+  namesOf(counterpartyId: number): StateRow<'counterparty_name'>[] {
     return [...this.names.get(counterpartyId)!].map((id) => this.get('counterparty_name', id)!);
   }
 
   /** Keeps the held name lists in step with a name row that appears (present) or goes. */
-  trackName(row: Row, present: boolean): void {
-    const set = this.names.get(row.counterparty_id as number);
+  trackName(row: StateRow<'counterparty_name'>, present: boolean): void {
+    const set = this.names.get(row.counterparty_id);
     if (!set) return;
-    if (present) set.add(row.id as number);
-    else set.delete(row.id as number);
+    if (present) set.add(row.id);
+    else set.delete(row.id);
   }
 
   /** Gives rows held under temporary ids their real ids. */

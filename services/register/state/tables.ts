@@ -6,6 +6,8 @@
  * Both backends read back the same canonical row, so images compare with plain deep equality and a replay or
  * an undo writes back exactly what was there.
  */
+import type { Selectable } from 'kysely';
+import type { Database } from '../../../db/types.ts';
 
 export const STATE_TABLES = [
   'own_entity',
@@ -25,7 +27,7 @@ export type StateTable = (typeof STATE_TABLES)[number];
 
 export type ColumnKind = 'int8' | 'int' | 'num' | 'text' | 'bool' | 'ts' | 'json';
 
-const COLUMNS: Record<StateTable, Record<string, ColumnKind>> = {
+const COLUMN_KINDS = {
   own_entity: {
     id: 'int8',
     name: 'text',
@@ -173,7 +175,11 @@ const COLUMNS: Record<StateTable, Record<string, ColumnKind>> = {
     decided_by: 'text',
     created_at: 'ts',
   },
-};
+} as const satisfies Record<StateTable, Record<string, ColumnKind>>;
+const COLUMNS: Record<StateTable, Readonly<Record<string, ColumnKind>>> = COLUMN_KINDS;
+
+/** The columns of a state table with their kinds, as a type: tests/services/register/state/row-types.test.ts checks them against StateRow. */
+export type StateColumns<T extends StateTable> = (typeof COLUMN_KINDS)[T];
 
 /** Columns whose value is a counterparty id: an event touching such a row touches that counterparty. */
 export const COUNTERPARTY_COLUMNS: Record<StateTable, string[]> = {
@@ -209,6 +215,21 @@ export const MENTION_COLUMNS: Record<StateTable, string[]> = {
 
 export type Row = Record<string, unknown>;
 
+/** A column's canonical value (see header): kysely reads timestamptz as a Date, an image keeps its ISO text. */
+type Canonical<V> = V extends Date ? string : V;
+
+/**
+ * The canonical image of a row of one state table, derived from its kysely table type (db/types.ts);
+ * tests/services/register/state/row-types.test.ts ties it to the column kinds above.
+ */
+export type StateRow<T extends StateTable> = { [K in keyof Selectable<Database[T]>]: Canonical<Selectable<Database[T]>[K]> } & {
+  /** Every state table has an int8 id; said again so that code generic in the table can read it. */
+  id: number;
+};
+
+/** Values given to an insert or an update: some columns of the image. */
+export type StateValues<T extends StateTable> = Partial<StateRow<T>>;
+
 export function columnsOf(table: StateTable): string[] {
   return Object.keys(COLUMNS[table]);
 }
@@ -235,11 +256,14 @@ function canonicalValue(kind: ColumnKind, value: unknown): unknown {
   }
 }
 
-/** The canonical image of a row as read from either backend. */
-export function canonicalRow(table: StateTable, row: Row): Row {
+/**
+ * The canonical image of a row as read from either backend. The one place a Row becomes a StateRow: every column
+ * of COLUMNS[table] is set, which the row-type test ties to the kysely table type.
+ */
+export function canonicalRow<T extends StateTable>(table: T, row: Row): StateRow<T> {
   const out: Row = {};
   for (const [column, kind] of Object.entries(COLUMNS[table])) out[column] = canonicalValue(kind, row[column]);
-  return out;
+  return out as StateRow<T>;
 }
 
 /** Canonical values of some columns only (an update's before/after). */
