@@ -6,7 +6,7 @@ import { Kysely, PostgresDialect } from 'kysely';
 import type { PoolClient } from 'pg';
 import type { Database } from './types.ts';
 import { DatabaseOpenError } from './database-errors.ts';
-import { plannerStartParams } from './planner-settings.ts';
+import { withPlannerOptions } from './planner-settings.ts';
 import { explainConnectError } from './explain-connect-error.ts';
 import type { OpenDatabaseOptions, OpenedDatabase } from './opened-database.ts';
 
@@ -40,13 +40,12 @@ export async function openPostgres(url: string, options: OpenDatabaseOptions): P
       oid === INT8_OID && format !== 'binary' ? (value: string) => Number(value) : pg.types.getTypeParser(oid, format)) as typeof pg.types.getTypeParser,
   };
   const pool = new pg.Pool({
-    connectionString: url,
+    // Start parameters of each connection, in the URL: no extra round trip (db/planner-settings.ts says why).
+    connectionString: withPlannerOptions(url),
     max: options.poolSize ?? 10,
     connectionTimeoutMillis: options.timeoutMs ?? DEFAULT_CONNECT_TIMEOUT_MS,
     ...(options.timeoutMs ? { statement_timeout: options.timeoutMs, query_timeout: options.timeoutMs + QUERY_TIMEOUT_MARGIN_MS } : {}),
     application_name: 'cpreg',
-    // Start parameters of each connection: no extra round trip (db/planner-settings.ts says why).
-    options: plannerStartParams().join(' '),
     types,
   });
   // An idle client whose server went away emits 'error' on the pool; unhandled it would crash the

@@ -16,3 +16,15 @@ export const PLANNER_SETTINGS: Readonly<Record<string, string>> = { random_page_
 export function plannerStartParams(): string[] {
   return Object.entries(PLANNER_SETTINGS).flatMap(([name, value]) => ['-c', `${name}=${value}`]);
 }
+
+/**
+ * A PostgreSQL URL whose `options` parameter carries the planner settings first and the URL's own options after
+ * (a later `-c` of the same name wins, so a setting the URL gives keeps its value). The URL is where they must go:
+ * the driver lets a URL's parameters override its other connection settings.
+ */
+export function withPlannerOptions(url: string): string {
+  const parsed = new URL(url);
+  const own = parsed.searchParams.get('options');
+  parsed.searchParams.set('options', [...plannerStartParams(), ...(own ? [own] : [])].join(' '));
+  return parsed.toString();
+}

@@ -7,9 +7,11 @@
  */
 import { sql } from 'kysely';
 import { expect, it } from 'vitest';
-import { describeBackends, withTestDatabase } from '../support/index.ts';
+import { describe } from 'vitest';
+import { describeBackends, describePostgres, withTestDatabase, createPostgresCopy, dropPostgresCopy } from '../support/index.ts';
+import { openDatabase } from '../../db/open-database.ts';
 import { updateRows } from '../../db/queries/state-writes.ts';
-import { PLANNER_SETTINGS } from '../../db/planner-settings.ts';
+import { PLANNER_SETTINGS, withPlannerOptions } from '../../db/planner-settings.ts';
 
 describeBackends('planner settings', (backend) => {
   it('sets random_page_cost on the connection and updates one row of a 10,000-row table by index', async () => {
@@ -25,5 +27,33 @@ describeBackends('planner settings', (backend) => {
       expect(text).toMatch(/Index Scan using counterparty_pkey/);
       expect(text).not.toMatch(/Seq Scan on counterparty/);
     });
+  });
+});
+
+describe('withPlannerOptions', () => {
+  it('puts the planner settings in the URL, before the options the URL gives (a later -c of one name wins)', () => {
+    expect(new URL(withPlannerOptions('postgres://u@db.example:5432/reg')).searchParams.get('options')).toBe('-c random_page_cost=1.1');
+    const own = withPlannerOptions('postgres://u@db.example:5432/reg?options=-c%20work_mem%3D8MB&sslmode=disable');
+    expect(new URL(own).searchParams.get('options')).toBe('-c random_page_cost=1.1 -c work_mem=8MB');
+    expect(new URL(own).searchParams.get('sslmode')).toBe('disable');
+  });
+});
+
+describePostgres('planner settings with a URL that carries its own options', () => {
+  it('applies both the URL options and the planner settings', async () => {
+    const url = await createPostgresCopy();
+    const withOwn = new URL(url);
+    withOwn.searchParams.set('options', '-c work_mem=8MB');
+    const opened = await openDatabase(withOwn.toString());
+    try {
+      const shown = await sql<{
+        work_mem: string;
+        rpc: string;
+      }>`SELECT current_setting('work_mem') AS work_mem, current_setting('random_page_cost') AS rpc`.execute(opened.db);
+      expect(shown.rows[0]).toEqual({ work_mem: '8MB', rpc: PLANNER_SETTINGS.random_page_cost });
+    } finally {
+      await opened.close();
+      await dropPostgresCopy(url);
+    }
   });
 });
