@@ -9,11 +9,14 @@ import { id } from './util.ts';
 import { ownEntityView, type OwnEntityView } from './own-entities.ts';
 import { settingsView, type StoredSettings } from './settings.ts';
 
+/** The advisory locks on these keys, one row per lock, taken in one sorted order (a query to run or to nest). */
+function neighbourhoodLocks(keys: readonly string[]) {
+  return sql`SELECT pg_advisory_xact_lock(h) FROM (SELECT DISTINCT hashtextextended(k, 0) AS h FROM unnest(${sql.val([...keys])}::text[]) AS t(k) ORDER BY 1) s`;
+}
+
 /** Transaction-scoped advisory locks on these keys, taken in one sorted order in one statement. */
 export async function lockNeighbourhoodKeys(db: Queryable, keys: readonly string[]): Promise<void> {
-  await sql`SELECT pg_advisory_xact_lock(h) FROM (SELECT DISTINCT hashtextextended(k, 0) AS h FROM unnest(${sql.val([...keys])}::text[]) AS t(k) ORDER BY 1) s`.execute(
-    db,
-  );
+  await neighbourhoodLocks(keys).execute(db);
 }
 
 /**
@@ -28,9 +31,7 @@ export async function lockAndReadDecisionBasics(
 ): Promise<{ settings: StoredSettings | undefined; ownEntities: OwnEntityView[] }> {
   const result = await sql<{ settings: Parameters<typeof settingsView>[0] | null; own: Parameters<typeof ownEntityView>[0][] }>`
     SELECT
-      (SELECT count(*) FROM (
-        SELECT pg_advisory_xact_lock(h) FROM (SELECT DISTINCT hashtextextended(k, 0) AS h FROM unnest(${sql.val([...keys])}::text[]) AS t(k) ORDER BY 1) s
-      ) locked) AS locks,
+      (SELECT count(*) FROM (${neighbourhoodLocks(keys)}) locked) AS locks,
       (SELECT row_to_json(m) FROM matcher_settings m WHERE m.id = 'current') AS settings,
       (SELECT coalesce(json_agg(row_to_json(o) ORDER BY o.id), '[]'::json) FROM own_entity o WHERE o.removed_at IS NULL) AS own`.execute(db);
   const row = result.rows[0]!;

@@ -27,10 +27,20 @@ export async function drawIds<T extends string>(trx: Trx, counts: ReadonlyMap<T,
   const tables = [...counts.keys()].filter((t) => counts.get(t)! > 0);
   const out = new Map<T, number[]>(tables.map((t) => [t, []]));
   if (tables.length === 0) return out;
-  const drawn = await sql<{ t: T; id: unknown }>`
+  return idsByTable(tables, (await drawnIds(tables, counts).execute(trx)).rows);
+}
+
+/** One row (t, id) per id drawn, `counts` per table (a query to run or to nest). */
+function drawnIds<T extends string>(tables: readonly T[], counts: ReadonlyMap<T, number>) {
+  return sql<{ t: T; id: unknown }>`
     SELECT t, nextval(pg_get_serial_sequence(t, 'id')) AS id
-    FROM unnest(${sql.val(tables)}::text[], ${sql.val(tables.map((t) => counts.get(t)!))}::int[]) AS k(t, n), generate_series(1, k.n)`.execute(trx);
-  for (const row of drawn.rows) out.get(row.t)!.push(Number(row.id));
+    FROM unnest(${sql.val([...tables])}::text[], ${sql.val(tables.map((t) => counts.get(t)!))}::int[]) AS k(t, n), generate_series(1, k.n)`;
+}
+
+/** Drawn ids per table, in ascending order. */
+function idsByTable<T extends string>(tables: readonly T[], drawn: readonly { t: T; id: unknown }[]): Map<T, number[]> {
+  const out = new Map<T, number[]>(tables.map((t) => [t, []]));
+  for (const row of drawn) out.get(row.t)!.push(Number(row.id));
   for (const ids of out.values()) ids.sort((a, b) => a - b);
   return out;
 }
@@ -146,15 +156,12 @@ export async function drawIdsAndLock<T extends string>(
         FROM (SELECT * FROM counterparty WHERE id = ANY(${sql.val([...lock.counterparties])}::bigint[]) ORDER BY id FOR UPDATE) c) AS counterparties,
       (SELECT coalesce(json_agg(row_to_json(n) ORDER BY n.id), '[]'::json)
         FROM (SELECT * FROM counterparty_name WHERE counterparty_id = ANY(${sql.val([...lock.namesOf])}::bigint[]) ORDER BY id FOR UPDATE) n) AS names,
-      (SELECT coalesce(json_agg(json_build_array(t, id)), '[]'::json)
-        FROM (SELECT t, nextval(pg_get_serial_sequence(t, 'id')) AS id
-          FROM unnest(${sql.val(tables)}::text[], ${sql.val(tables.map((t) => counts.get(t)!))}::int[]) AS k(t, n), generate_series(1, k.n)) d) AS ids`.execute(
-    trx,
-  );
+      (SELECT coalesce(json_agg(json_build_array(d.t, d.id)), '[]'::json) FROM (${drawnIds(tables, counts)}) d) AS ids`.execute(trx);
   const row = result.rows[0]!;
-  const ids = new Map<T, number[]>(tables.map((t) => [t, []]));
-  for (const [t, id] of row.ids) ids.get(t)!.push(Number(id));
-  for (const list of ids.values()) list.sort((a, b) => a - b);
+  const ids = idsByTable(
+    tables,
+    row.ids.map(([t, id]) => ({ t, id })),
+  );
   return { ids, counterparties: row.counterparties, names: row.names };
 }
 
