@@ -7,7 +7,7 @@
 import { sql } from 'kysely';
 import type { Queryable } from './util.ts';
 import { id } from './util.ts';
-import { registerSizeSql, tokenDf } from './rarity-counts.ts';
+import { KEY_COUNT_CAP, registerSizeSql, tokenDf } from './rarity-counts.ts';
 
 export async function candidatesByKeys(
   db: Queryable,
@@ -73,6 +73,11 @@ export async function candidateDetails(
  * best ranked by the rarity of the keys shared, then their number, then id (each key contributing at most `perKey`
  * counterparties), the identifier holders added, active only; each probe's list in rank order. Each distinct key is looked up once, and each candidate's names and
  * identifiers are read once however many probes share it.
+ *
+ * A common key (more holders than `perKey`, or its names at the count cap) is looked up for a probe only when none
+ * of the probe's other keys has a holder. Its lookup would stop at `perKey` holders in index order, the lowest ids,
+ * so which of its holders it brought was an accident of ids, not evidence; and on a large register such keys were
+ * most of the rows a lookup grouped and sorted (issue 18: the candidate step of a single resolve).
  */
 export async function candidateDetailsBatch(
   db: Queryable,
@@ -135,6 +140,7 @@ async function candidateQuery(
     }
   });
   if (keys.length === 0 && schemes.length === 0) return { details: out, counts: null };
+  const perKey = options.perKey ?? 200;
   const result = await sql<{
     kind: 'c' | 't' | 's';
     ps: (string | number)[] | string;
@@ -150,16 +156,27 @@ async function candidateQuery(
     WITH q AS (
       SELECT p, key FROM unnest(${sql.val(keyProbe)}::int[], ${sql.val(keys)}::text[]) AS q(p, key)
     ), dk AS (
-      SELECT dk.key, ${rarityOf('kc.names')} AS rarity FROM (SELECT DISTINCT key FROM q) dk LEFT JOIN blocking_key_count kc ON kc.key = dk.key
+      SELECT dk.key, ${rarityOf('kc.names')} AS rarity,
+        coalesce(kc.names, 0) > 0 AS held,
+        (coalesce(kc.names, 0) >= ${KEY_COUNT_CAP} OR coalesce(kc.counterparties, 0) > ${perKey}) AS common
+      FROM (SELECT DISTINCT key FROM q) dk LEFT JOIN blocking_key_count kc ON kc.key = dk.key
+    ), qk AS (
+      -- Per probe, the keys looked up: a common key only when no other key of the probe has a holder (see above).
+      SELECT p, key FROM (
+        SELECT q.p, q.key, dk.common, bool_or(dk.held AND NOT dk.common) OVER (PARTITION BY q.p) AS selective
+        FROM q JOIN dk ON dk.key = q.key
+      ) x
+      WHERE NOT common OR NOT selective
     ), hits AS (
       SELECT dk.key, dk.rarity, c.counterparty_id
       FROM dk
       CROSS JOIN LATERAL (
-        SELECT DISTINCT b.counterparty_id FROM blocking_key b WHERE b.key = dk.key LIMIT ${options.perKey ?? 200}
+        SELECT DISTINCT b.counterparty_id FROM blocking_key b WHERE b.key = dk.key LIMIT ${perKey}
       ) c
+      WHERE dk.key IN (SELECT key FROM qk)
     ), ranked AS (
       SELECT q.p, h.counterparty_id, row_number() OVER (PARTITION BY q.p ORDER BY sum(h.rarity) DESC, count(*) DESC, h.counterparty_id) AS rn
-      FROM q JOIN hits h ON h.key = q.key
+      FROM qk q JOIN hits h ON h.key = q.key
       GROUP BY q.p, h.counterparty_id
     ), pc AS (
       SELECT p, country FROM unnest(${sql.val(countryProbe)}::int[], ${sql.val(countries)}::text[]) AS pc(p, country)

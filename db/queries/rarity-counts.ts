@@ -6,6 +6,13 @@
 import { sql } from 'kysely';
 import type { Queryable } from './util.ts';
 
+/**
+ * The cap of blocking_key_count: a key whose names reach it is no longer counted (the triggers of
+ * migrations/20261205102000_blocking_key_count.ts and 20261205113000_blocking_key_counterparties.ts, which keep
+ * their own copy of the value, as a landed migration must).
+ */
+export const KEY_COUNT_CAP = 1000;
+
 /** Document frequencies of `tokens` (uncapped; a key at `cap` names answers its names count) and the register size. */
 export async function tokenCountsAndSize(db: Queryable, tokens: readonly string[], cap: number): Promise<{ counts: Map<string, number>; size: number }> {
   const result = await sql<{ token: string | null; df: string | number | null }>`

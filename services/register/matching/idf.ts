@@ -24,9 +24,10 @@
 import { idfTableFromFrequencies, type IdfTable } from '../../../resolvers/compare/index.ts';
 import { COMMON_TOKEN_SHARE } from '../../../resolvers/score/index.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
-import { tokenCountsAndSize } from '../../../db/queries/rarity-counts.ts';
+import { KEY_COUNT_CAP, tokenCountsAndSize } from '../../../db/queries/rarity-counts.ts';
 
-export const DF_CAP = 1000;
+/** Token counts are read up to the key-count table's cap. */
+export const DF_CAP = KEY_COUNT_CAP;
 
 /**
  * Capped document frequency of each distinct token in the register, in counterparties (see the header): read from
