@@ -28,6 +28,7 @@ import { jsonScore, probeRecord, scoredCandidatesWithFormer, type Probe, type Sc
 import type { BatchReads } from '../matching/batch-reads.ts';
 import type { PreparedMention } from './prepare.ts';
 import { throughFormerName } from './former-name.ts';
+import { newSummary, reviewSummary } from './summaries.ts';
 
 export interface ContractContext {
   contractId: number;
@@ -239,13 +240,10 @@ export async function decide(
       recordName: true,
       evidence: {
         ...common,
-        summary: !best
-          ? 'no candidate in the register: a new counterparty'
-          : best.score <= model.newAt
-            ? `best candidate ${best.canonicalName} scored ${jsonScore(best.score)}, at or below the new-record threshold (${model.newAt}): a new counterparty`
-            : `best candidate ${best.canonicalName} scored ${jsonScore(best.score)} but its name has nothing in common with this one: a new counterparty`,
+        summary: newSummary(best, model),
         features: best?.pair.explanation ?? [],
         identifierNotes: best?.pair.identifierNotes ?? [],
+        ...(best?.pair.heldBackBy ? { heldBackBy: best.pair.heldBackBy, distinguishingTokens: best.pair.distinguishingTokens } : {}),
         ignoredIdentifiers: prepared.ignoredIdentifiers,
       },
       confirmedByIdentifier: prepared.identifiers.find((i) => isStrongScheme(i.scheme))?.scheme,
@@ -288,7 +286,7 @@ export async function decide(
     ? `two counterparties score at or above the link threshold (${best.canonicalName}, ${rival.canonicalName}): a person decides`
     : best.pair.heldBackBy && best.pair.rawScore >= model.linkAt
       ? `best candidate ${best.canonicalName} scored ${jsonScore(best.pair.rawScore)} but is held back from a link: ${best.pair.heldBackBy}${best.pair.distinguishingTokens.length > 0 ? ` (${best.pair.distinguishingTokens.join(', ')})` : ''}; a person decides`
-      : `best candidate ${best.canonicalName} scored ${jsonScore(best.score)}, between the new-record threshold (${model.newAt}) and the link threshold (${model.linkAt}): a person decides`;
+      : reviewSummary(best, model);
   return orFormerName({
     status: 'review',
     counterpartyId: best.counterpartyId,
