@@ -33,32 +33,45 @@ export async function findContractId(db: Queryable, source: string, externalId: 
   return row ? id(row.id) : undefined;
 }
 
+/** A contract with its parties and defined terms, in one statement (it is read once for every contract stored). */
 export async function getContract(db: Queryable, contractId: number): Promise<ContractView | undefined> {
-  const row = await db
-    .selectFrom('contract')
-    .select(['id', 'source', 'external_id', 'title', 'status', 'content_hash', 'created_at', 'updated_at'])
-    .where('id', '=', contractId)
-    .executeTakeFirst();
-  if (!row) return undefined;
-  const parties = await sql<{
-    position: number;
-    mention_id: string | number;
-    text: string;
-    role: string | null;
-    terms: string[];
+  const result = await sql<{
+    id: string | number;
+    source: string;
+    external_id: string;
+    title: string | null;
     status: string;
-    counterparty_id: string | number | null;
-    own_entity_id: string | number | null;
-    canonical_name: string | null;
+    content_hash: string;
+    created_at: unknown;
+    updated_at: unknown;
+    parties: {
+      position: number;
+      mention_id: string | number;
+      text: string;
+      role: string | null;
+      terms: string[];
+      status: string;
+      counterparty_id: string | number | null;
+      own_entity_id: string | number | null;
+      canonical_name: string | null;
+    }[];
+    defined_terms: { term: string; party_index: number | null; collective: boolean }[];
   }>`
-    SELECT p.position, p.mention_id, m.text, p.role, p.terms, m.status, m.counterparty_id, m.own_entity_id,
-           c.canonical_name
-    FROM contract_party p
-    JOIN mention m ON m.id = p.mention_id
-    LEFT JOIN counterparty c ON c.id = m.counterparty_id
-    WHERE p.contract_id = ${contractId}
-    ORDER BY p.position`.execute(db);
-  const terms = await db.selectFrom('defined_term').select(['term', 'party_index', 'collective']).where('contract_id', '=', contractId).orderBy('id').execute();
+    SELECT k.id, k.source, k.external_id, k.title, k.status, k.content_hash, k.created_at, k.updated_at,
+      (SELECT coalesce(json_agg(json_build_object('position', p.position, 'mention_id', p.mention_id, 'text', m.text, 'role', p.role,
+                'terms', p.terms, 'status', m.status, 'counterparty_id', m.counterparty_id, 'own_entity_id', m.own_entity_id,
+                'canonical_name', c.canonical_name) ORDER BY p.position), '[]'::json)
+         FROM contract_party p
+         JOIN mention m ON m.id = p.mention_id
+         LEFT JOIN counterparty c ON c.id = m.counterparty_id
+         WHERE p.contract_id = k.id) AS parties,
+      (SELECT coalesce(json_agg(json_build_object('term', t.term, 'party_index', t.party_index, 'collective', t.collective) ORDER BY t.id), '[]'::json)
+         FROM defined_term t WHERE t.contract_id = k.id) AS defined_terms
+    FROM contract k
+    WHERE k.id = ${contractId}`.execute(db);
+  const row = result.rows[0];
+  if (!row) return undefined;
+  const json = <T>(value: T | string): T => (typeof value === 'string' ? (JSON.parse(value) as T) : value);
   return {
     id: id(row.id),
     source: row.source,
@@ -66,18 +79,18 @@ export async function getContract(db: Queryable, contractId: number): Promise<Co
     title: row.title,
     status: row.status,
     contentHash: row.content_hash,
-    parties: parties.rows.map((p) => ({
+    parties: json(row.parties).map((p) => ({
       position: p.position,
       mentionId: id(p.mention_id),
       text: p.text,
       role: p.role,
-      terms: typeof p.terms === 'string' ? (JSON.parse(p.terms) as string[]) : p.terms,
+      terms: json(p.terms),
       status: p.status,
       counterpartyId: idOrNull(p.counterparty_id),
       ownEntityId: idOrNull(p.own_entity_id),
       canonicalName: p.canonical_name,
     })),
-    definedTerms: terms.map((t) => ({ term: t.term, partyIndex: t.party_index, collective: t.collective })),
+    definedTerms: json(row.defined_terms).map((t) => ({ term: t.term, partyIndex: t.party_index, collective: t.collective })),
     createdAt: iso(row.created_at) as string,
     updatedAt: iso(row.updated_at) as string,
   };
@@ -182,15 +195,23 @@ export async function searchContracts(
   return rows.map((r) => ({ id: id(r.id), source: r.source, externalId: r.external_id, title: r.title, status: r.status, createdAt: iso(r.created_at)! }));
 }
 
-/** A stored contract's id and content hash by its (source, external id), if it is stored. */
-export async function contractHashOf(db: Queryable, source: string, externalId: string): Promise<{ id: number; contentHash: string } | undefined> {
-  const row = await db
-    .selectFrom('contract')
-    .select(['id', 'content_hash'])
-    .where('source', '=', source)
-    .where('external_id', '=', externalId)
-    .executeTakeFirst();
-  return row ? { id: id(row.id), contentHash: row.content_hash } : undefined;
+/**
+ * What storing a contract reads first, in one statement: the stored contract's id and content hash by its (source,
+ * external id), if it is stored, and the names of our own entities (not removed, in id order) its text is parsed with.
+ */
+export async function contractToStore(
+  db: Queryable,
+  source: string,
+  externalId: string,
+): Promise<{ existing: { id: number; contentHash: string } | undefined; ownNames: string[] }> {
+  const result = await sql<{ id: string | number | null; content_hash: string | null; own_names: string[] | string }>`
+    SELECT k.id, k.content_hash,
+      (SELECT coalesce(json_agg(o.name ORDER BY o.id), '[]'::json) FROM own_entity o WHERE o.removed_at IS NULL) AS own_names
+    FROM (SELECT 1) AS one
+    LEFT JOIN contract k ON k.source = ${source} AND k.external_id = ${externalId}`.execute(db);
+  const row = result.rows[0]!;
+  const ownNames = typeof row.own_names === 'string' ? (JSON.parse(row.own_names) as string[]) : row.own_names;
+  return { existing: row.id === null ? undefined : { id: id(row.id), contentHash: row.content_hash! }, ownNames };
 }
 
 /** The ids of a contract's defined terms, in id order. */

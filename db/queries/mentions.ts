@@ -117,19 +117,6 @@ export async function mentionsOfCounterparty(db: Queryable, counterpartyId: numb
   return rows.map(toMentionView);
 }
 
-/** Mentions that named a contract which had not arrived when they were resolved. */
-export async function mentionsAwaitingContract(db: Queryable, source: string, externalId: string): Promise<number[]> {
-  const rows = await db
-    .selectFrom('mention')
-    .select('id')
-    .where('contract_source', '=', source)
-    .where('contract_external_id', '=', externalId)
-    .where('contract_id', 'is', null)
-    .orderBy('id')
-    .execute();
-  return rows.map((r) => id(r.id));
-}
-
 /** Mentions no person confirmed, in id order after `afterId`: what reresolve may change. */
 export async function unconfirmedMentionIds(db: Queryable, afterId: number, limit: number): Promise<number[]> {
   const rows = await db
@@ -157,50 +144,40 @@ export async function countByStatus(db: Queryable): Promise<Record<string, numbe
 export const MAX_WAITING_AMENDMENTS = 200;
 
 /**
- * Contracts that say they use an earlier agreement's defined terms (an amendment, a side letter: `parsed` holds
- * `earlierAgreements`) and hold mentions still `unbound_term` that no person confirmed: a contract that arrives may be
- * that earlier agreement. Each with its parsed result and those mentions, oldest contract first.
+ * What a contract that arrives settles, in one statement:
+ * - `awaiting`: the mentions that named it (by source and external id) before it was stored, in id order;
+ * - `amendments`: contracts that say they use an earlier agreement's defined terms (an amendment, a side letter:
+ *   `parsed` holds `earlierAgreements`) and hold mentions still `unbound_term` that no person confirmed (it may be
+ *   that earlier agreement), other than `contractId`: each with its parsed result and those mentions, oldest first,
+ *   at most MAX_WAITING_AMENDMENTS. The predicate is contract_amendment_idx's (migration 20261205003000): the few
+ *   amendments, not a scan of every contract.
  */
-export async function amendmentsWithUnboundMentions(
+export async function mentionsWaitingForContract(
   db: Queryable,
-  exceptContractId: number,
-): Promise<{ contractId: number; parsed: unknown; mentionIds: number[] }[]> {
-  // The predicate is contract_amendment_idx's (migration 20261205003000): the few amendments, then their mentions.
-  const amendments = await db
-    .selectFrom('contract as c')
-    .select(['c.id', 'c.parsed'])
-    .where(sql<boolean>`(c.parsed -> 'earlierAgreements') IS NOT NULL AND c.status = 'active'`)
-    .where('c.id', '<>', exceptContractId)
-    .where(({ exists, selectFrom }) =>
-      exists(
-        selectFrom('mention as m')
-          .select('m.id')
-          .whereRef('m.contract_id', '=', 'c.id')
-          .where('m.status', '=', 'unbound_term')
-          .where('m.confirmed_by', 'is', null),
-      ),
-    )
-    .orderBy('c.id')
-    .limit(MAX_WAITING_AMENDMENTS)
-    .execute();
-  if (amendments.length === 0) return [];
-  const rows = await db
-    .selectFrom('mention')
-    .select(['id', 'contract_id'])
-    .where(
-      'contract_id',
-      'in',
-      amendments.map((a) => a.id),
-    )
-    .where('status', '=', 'unbound_term')
-    .where('confirmed_by', 'is', null)
-    .orderBy('id')
-    .execute();
-  return amendments.map((a) => ({
-    contractId: id(a.id),
-    parsed: a.parsed,
-    mentionIds: rows.filter((r) => id(r.contract_id) === id(a.id)).map((r) => id(r.id)),
-  }));
+  source: string,
+  externalId: string,
+  contractId: number,
+): Promise<{ awaiting: number[]; amendments: { contractId: number; parsed: unknown; mentionIds: number[] }[] }> {
+  const result = await sql<{ awaiting: unknown; amendments: unknown }>`
+    SELECT
+      (SELECT coalesce(json_agg(m.id ORDER BY m.id), '[]'::json) FROM mention m
+        WHERE m.contract_source = ${source} AND m.contract_external_id = ${externalId} AND m.contract_id IS NULL) AS awaiting,
+      (SELECT coalesce(json_agg(json_build_object('id', a.id, 'parsed', a.parsed, 'mentions', a.mentions) ORDER BY a.id), '[]'::json)
+        FROM (SELECT c.id, c.parsed,
+                (SELECT json_agg(u.id ORDER BY u.id) FROM mention u
+                  WHERE u.contract_id = c.id AND u.status = 'unbound_term' AND u.confirmed_by IS NULL) AS mentions
+              FROM contract c
+              WHERE (c.parsed -> 'earlierAgreements') IS NOT NULL AND c.status = 'active' AND c.id <> ${contractId}
+                AND EXISTS (SELECT 1 FROM mention w WHERE w.contract_id = c.id AND w.status = 'unbound_term' AND w.confirmed_by IS NULL)
+              ORDER BY c.id
+              LIMIT ${MAX_WAITING_AMENDMENTS}) AS a) AS amendments`.execute(db);
+  const row = result.rows[0]!;
+  const json = (value: unknown): unknown => (typeof value === 'string' ? JSON.parse(value) : value);
+  const amendments = json(row.amendments) as { id: unknown; parsed: unknown; mentions: unknown[] | null }[];
+  return {
+    awaiting: (json(row.awaiting) as unknown[]).map(id),
+    amendments: amendments.map((a) => ({ contractId: id(a.id), parsed: a.parsed, mentionIds: (a.mentions ?? []).map(id) })),
+  };
 }
 
 /** Where each mention of one source stands, for measuring the register against ground truth (cpreg evaluate

@@ -5,7 +5,6 @@
  * contract: the same text answers `unchanged`; another text is a new version of that contract (the register
  * updates it and records the change in its history).
  */
-import { findContractId } from '../../db/queries/contracts.ts';
 import type { RejectReason } from '../../resolvers/files/index.ts';
 import { checkContractText } from '../../resolvers/terms/index.ts';
 import type { ActorInput, RegisterContext } from '../register/context.ts';
@@ -52,7 +51,6 @@ export async function storeDocument(
   const problem = checkContractText(doc.text);
   if (problem) return { kind: 'rejected', reason: TEXT_PROBLEMS[problem.code] ?? 'contract_refused', detail: problem.message };
   const externalId = doc.externalId ?? doc.path;
-  const existed = (await findContractId(ctx.db, source, externalId)) !== undefined;
   let result;
   try {
     result = await storeContract(ctx, { source, externalId, title: doc.title, text: doc.text }, who, { requireParties: options.requireParties ?? true });
@@ -64,7 +62,7 @@ export async function storeDocument(
   if (result.alreadyStored) return { kind: 'unchanged', contractId: result.contractId, partyCount: result.contract.parties.length };
   return {
     kind: 'imported',
-    change: existed ? 'changed' : 'new',
+    change: result.previouslyStored ? 'changed' : 'new',
     contractId: result.contractId,
     parties: result.parties.map((p) => ({
       name: result.contract.parties.find((c) => c.position === p.position)?.text ?? '',

@@ -14,12 +14,11 @@ import { write } from './transaction.ts';
 import { detachMention } from './upkeep.ts';
 import { prepareMention } from './resolve/prepare.ts';
 import { resolveWithin, type ResolveResult } from './resolve/resolve-mention.ts';
-import { amendmentsWithUnboundMentions, mentionOutcome, mentionRow, mentionsAwaitingContract } from '../../db/queries/mentions.ts';
+import { mentionOutcome, mentionRow, mentionsWaitingForContract } from '../../db/queries/mentions.ts';
 import { earlierContractOf } from './earlier-contract.ts';
-import { listOwnEntities } from '../../db/queries/own-entities.ts';
-import { contractHashOf, definedTermIdsOf, getContract, partiesFromPosition, partyOfMention, type ContractView } from '../../db/queries/contracts.ts';
+import { contractToStore, definedTermIdsOf, getContract, partiesFromPosition, partyOfMention, type ContractView } from '../../db/queries/contracts.ts';
 import { analyse } from './matching/analysis.ts';
-import { canonicalRow } from './state/tables.ts';
+import { canonicalRow, type StateTable } from './state/tables.ts';
 import type { MentionInput } from '../../resolvers/vocabulary.ts';
 
 export interface ContractInput {
@@ -33,6 +32,8 @@ export interface StoreContractResult {
   contractId: number;
   /** True when the same contract with the same text was stored before: nothing was done. */
   alreadyStored: boolean;
+  /** True when a contract with this source and external id was stored before (with this text or another one). */
+  previouslyStored: boolean;
   parties: (ResolveResult & { position: number; role: string | null; terms: string[] })[];
   /** Mentions that waited for this contract and were resolved again. */
   reresolved: ResolveResult[];
@@ -69,19 +70,34 @@ function partyMention(input: ContractInput, parsed: ParsedContract, index: numbe
   };
 }
 
-async function replaceTerms(cs: ChangeSet, contractId: number, parsed: ParsedContract): Promise<void> {
-  const old = await definedTermIdsOf(cs.trx, contractId);
-  await cs.lock('defined_term', old);
-  for (const t of old) await cs.delete('defined_term', t);
+/** The defined terms of a parse as rows to store: each normalised term once, the parties' before the collective ones. */
+function termRows(parsed: ParsedContract): { term: string; normalised: string; party_index: number | null; collective: boolean }[] {
   const seen = new Set<string>();
-  const add = async (term: string, partyIndex: number | null, collective: boolean) => {
+  const rows: ReturnType<typeof termRows> = [];
+  const add = (term: string, partyIndex: number | null, collective: boolean) => {
     const normalised = analyse(term).normalised || term.toLowerCase();
     if (seen.has(normalised)) return;
     seen.add(normalised);
-    await cs.insert('defined_term', { contract_id: contractId, term, normalised, party_index: partyIndex, collective, evidence: {} });
+    rows.push({ term, normalised, party_index: partyIndex, collective });
   };
-  for (const [index, party] of parsed.parties.entries()) for (const term of party.terms) await add(term, index, false);
-  for (const c of parsed.collectiveTerms) await add(c.term, null, true);
+  for (const [index, party] of parsed.parties.entries()) for (const term of party.terms) add(term, index, false);
+  for (const c of parsed.collectiveTerms) add(c.term, null, true);
+  return rows;
+}
+
+/** A changed contract's terms are replaced (a new one has none to read). Buffered: the inserts reach the database together. */
+async function replaceTerms(cs: ChangeSet, contractId: number, terms: ReturnType<typeof termRows>, isNew: boolean): Promise<void> {
+  if (!isNew) {
+    const old = await definedTermIdsOf(cs.trx, contractId);
+    await cs.lock('defined_term', old);
+    for (const t of old) await cs.delete('defined_term', t);
+  }
+  for (const t of terms) await cs.insert('defined_term', { contract_id: contractId, ...t, evidence: {} });
+}
+
+/** Whether this write inserted the row (its op not yet in an event). False sends the caller to the database, as before. */
+function insertedHere(cs: ChangeSet, table: StateTable, rowId: number): boolean {
+  return cs.ops.some((op) => op.op === 'insert' && op.table === table && op.row.id === rowId);
 }
 
 /** A changed contract with fewer parties: the party mentions beyond the new count are withdrawn (not deleted). */
@@ -146,20 +162,26 @@ export async function storeContract(
   const contentHash = createHash('sha256')
     .update(JSON.stringify([input.title ?? null, input.text]))
     .digest('hex');
-  const ownNames = (await listOwnEntities(ctx.db)).map((o) => o.name);
-  const parsed = parseParties(input.text, { ownEntities: ownNames });
-  if (options.requireParties && parsed.parties.length === 0) {
-    throw new RegisterError('INVALID_INPUT', `text: ${parsed.reason?.message ?? 'no party was recognised'}`, { field: 'text', reason: 'no_parties_found' });
-  }
-  const prepared = parsed.parties.map((_, i) => prepareMention(partyMention(input, parsed, i), { lenientIdentifiers: true }));
   return write(ctx, async (cs) => {
     const at = ctx.now();
     const iso = at.toISOString();
-    const existing = await contractHashOf(cs.trx, input.source, input.externalId);
+    // The stored contract and our own entities in one round trip; the text is parsed with the entities as they are
+    // in this transaction (parsing takes no lock: nothing is held while it runs).
+    const { existing, ownNames } = await contractToStore(cs.trx, input.source, input.externalId);
+    const parsed = parseParties(input.text, { ownEntities: ownNames });
+    if (options.requireParties && parsed.parties.length === 0) {
+      throw new RegisterError('INVALID_INPUT', `text: ${parsed.reason?.message ?? 'no party was recognised'}`, { field: 'text', reason: 'no_parties_found' });
+    }
+    const prepared = parsed.parties.map((_, i) => prepareMention(partyMention(input, parsed, i), { lenientIdentifiers: true }));
     if (existing && existing.contentHash === contentHash) {
       const contract = (await getContract(cs.trx, existing.id))!;
-      return { contractId: contract.id, alreadyStored: true, parties: [], reresolved: [], contract };
+      return { contractId: contract.id, alreadyStored: true, previouslyStored: true, parties: [], reresolved: [], contract };
     }
+    const terms = termRows(parsed);
+    // The ids of the rows it adds in one statement, and the contract, its terms and its event in one more (buffered).
+    // A new contract's parties are new rows; an id left over (a party mention linked before) is a harmless gap.
+    await cs.reserveIds({ contract: existing ? 0 : 1, defined_term: terms.length, contract_party: existing ? 0 : parsed.parties.length });
+    cs.startBuffering();
     let contractId: number;
     const values = { title: input.title ?? null, text: input.text, content_hash: contentHash, parsed, status: 'active' as const, updated_at: iso };
     if (existing) {
@@ -170,7 +192,7 @@ export async function storeContract(
       const row = await cs.insert('contract', { source: input.source, external_id: input.externalId, ...values, created_at: iso });
       contractId = row.id;
     }
-    await replaceTerms(cs, contractId, parsed);
+    await replaceTerms(cs, contractId, terms, !existing);
     await commitEvent(cs, {
       type: existing ? 'mention_changed' : 'created',
       actor: who.actor,
@@ -179,11 +201,13 @@ export async function storeContract(
       requestId: who.requestId,
       details: { entity: 'contract', contractId, source: input.source, externalId: input.externalId, parties: parsed.parties.length },
     });
+    await cs.stopBuffering();
     const parties: StoreContractResult['parties'] = [];
     for (const [index, p] of prepared.entries()) {
       const party = parsed.parties[index]!;
       const keepParty = async (mentionId: number) => {
-        const link = await partyOfMention(cs.trx, mentionId);
+        // A mention inserted by this write is no contract's party yet: nothing to look up.
+        const link = insertedHere(cs, 'mention', mentionId) ? undefined : await partyOfMention(cs.trx, mentionId);
         const row = { contract_id: contractId, mention_id: mentionId, position: index, role: party.role, terms: party.terms };
         if (link) {
           await cs.require('contract_party', link.id);
@@ -214,12 +238,13 @@ export async function storeContract(
     }
     if (existing) await withdrawVanishedParties(cs, contractId, parsed.parties.length, who, at);
     const reresolved: ResolveResult[] = [];
-    for (const mentionId of await mentionsAwaitingContract(cs.trx, input.source, input.externalId)) {
+    const waiting = await mentionsWaitingForContract(cs.trx, input.source, input.externalId, contractId);
+    for (const mentionId of waiting.awaiting) {
       const again = await resolveAgain(ctx, cs, mentionId, who);
       if (again) reresolved.push(again);
     }
     // Amendments and side letters that arrived first: their unbound terms may be this contract's (issue 16 item 9).
-    for (const amendment of await amendmentsWithUnboundMentions(cs.trx, contractId)) {
+    for (const amendment of waiting.amendments) {
       const earlier = await earlierContractOf(cs.trx, amendment.contractId, amendment.parsed as ParsedContract);
       if (earlier?.contractId !== contractId) continue;
       for (const mentionId of amendment.mentionIds) {
@@ -229,6 +254,6 @@ export async function storeContract(
     }
     const contract = await getContract(cs.trx, contractId);
     if (!contract) throw new RegisterError('CONFLICT', `contract ${contractId} vanished while it was stored`);
-    return { contractId, alreadyStored: false, parties, reresolved, contract };
+    return { contractId, alreadyStored: false, previouslyStored: existing !== undefined, parties, reresolved, contract };
   });
 }
