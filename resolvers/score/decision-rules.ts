@@ -40,9 +40,13 @@ export const CONFLICT_BELOW = 0;
 /** What holds a pair back: its names disagree, or a distinguishing word differs; null when nothing does. */
 export type Hold = 'names_disagree' | 'distinguishing_word' | null;
 
+/**
+ * A distinguishing word is looked at first: its cap is the stricter (below newAt and CONFLICT_BELOW), so two group
+ * names whose other words also disagree ("Alder Bank (Asia)" / "Alder Securities (Asia)") stay a conflict.
+ */
 export function holdOf(levels: ComparisonLevels): Hold {
-  if (levels.name !== null && NAME_DISAGREES.has(levels.name)) return 'names_disagree';
   if (levels.distinct !== null && DISTINCT_HOLDS_BACK.has(levels.distinct)) return 'distinguishing_word';
+  if (levels.name !== null && NAME_DISAGREES.has(levels.name)) return 'names_disagree';
   return null;
 }
 
@@ -141,10 +145,10 @@ export function indexedRules(): IndexedRules {
 
 /** holdOf over one row of level indices. */
 export function holdAt(levels: Int8Array, row: number, rules: IndexedRules): Hold {
-  const name = levels[row + rules.name] as number;
-  if (name >= 0 && rules.nameDisagrees[name] === true) return 'names_disagree';
   const distinct = levels[row + rules.distinct] as number;
-  return distinct >= 0 && rules.distinctHoldsBack[distinct] === true ? 'distinguishing_word' : null;
+  if (distinct >= 0 && rules.distinctHoldsBack[distinct] === true) return 'distinguishing_word';
+  const name = levels[row + rules.name] as number;
+  return name >= 0 && rules.nameDisagrees[name] === true ? 'names_disagree' : null;
 }
 
 /** worthReview over one row of level indices. */

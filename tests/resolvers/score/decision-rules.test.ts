@@ -42,6 +42,20 @@ describe('decisionRules (the one decision logic of the register and the evaluati
       expect(decidePair(s, l, model)).toBe('new');
     }
   });
+  it('a differing activity word still holds the stricter cap when the rest of the names disagree too (a conflict, not a review)', () => {
+    // "Alder Bank (Asia) Ltd" / "Alder Securities (Asia) Ltd": name level low and distinct activity (invented names).
+    const l = levels({ name: 'low', distinct: 'activity', sharedContact: 'shared' });
+    expect(linkHeldBackBy(l)).toBe('a distinguishing word differs (activity)');
+    const s = ruledScore(20, null, l, model);
+    expect(s).toBeLessThan(clusterRulesOf(model).conflictBelow);
+    expect(decidePair(s, l, model)).toBe('new');
+    const rules = indexedRules();
+    const row = new Int8Array(FEATURE_NAMES.length).fill(-1);
+    row[FEATURE_NAMES.indexOf('name')] = levelIndexOf('name', 'low');
+    row[FEATURE_NAMES.indexOf('distinct')] = levelIndexOf('distinct', 'activity');
+    row[FEATURE_NAMES.indexOf('sharedContact')] = levelIndexOf('sharedContact', 'shared');
+    expect(decidePairAt(s, row, 0, rules, model)).toBe('new');
+  });
   it('names that disagree are capped just below linkAt, never linked', () => {
     const l = levels({ name: 'low', sharedContact: 'shared' });
     const s = ruledScore(20, null, l, model);
