@@ -8,7 +8,7 @@
  */
 import type { Readable } from 'node:stream';
 import yauzl, { type Entry, type ZipFile } from 'yauzl';
-import { checkEntryPath, checkZipEntry, type FileLimits, type FileReject } from '../../resolvers/files/index.ts';
+import { checkEntryPath, checkZipEntry, printableEntryName, type FileLimits, type FileReject } from '../../resolvers/files/index.ts';
 
 export type ZipSource = { file: string } | { buffer: Buffer };
 
@@ -106,7 +106,7 @@ export async function* zipItems(source: ZipSource, prefix: string, limits: FileL
       if (isDirectory(name) && entry.uncompressedSize === 0) continue;
       const checked = checkEntryPath(name);
       if (!checked.ok) {
-        yield { reject: { path: `${prefix}${name}`, reason: 'unsafe_path', detail: checked.problem } };
+        yield { reject: { path: `${prefix}${printableEntryName(name)}`, reason: 'unsafe_path', detail: checked.problem } };
         continue;
       }
       const path = `${prefix}${checked.path}`;
