@@ -291,6 +291,7 @@ describeEachBackend('hostile input over HTTP', (t) => {
       'body deep JSON',
       'body wrong media type',
       'body charset latin1',
+      'body charset twice',
       ...notUtf8Kinds,
       ...MULTIPART_UNREADABLE.map(([name]) => `body multipart ${name}`),
       'body multipart form field',

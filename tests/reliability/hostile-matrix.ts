@@ -207,6 +207,13 @@ export function hostileMatrix(routes: readonly LiveRoute[], doc: OpenApiDoc): Ho
       contentType: 'application/json; charset=latin1',
       expect: { status: 415, codes: ['UNSUPPORTED_MEDIA_TYPE'], pointer: '/content-type', in: 'header' },
     });
+    // A parameter given twice is an error (RFC 6838 §4.3); the first value was taken, so this body was read as UTF-8.
+    add('body charset twice', {
+      url,
+      payload: '{}',
+      contentType: 'application/json; charset=utf-8; charset=latin1',
+      expect: { status: 415, codes: ['UNSUPPORTED_MEDIA_TYPE'], pointer: '/content-type', in: 'header' },
+    });
     add('body deep JSON', { url, payload: DEEP_JSON, expect: { status: 422, codes: ['BODY_TOO_DEEP'] } });
     add('body wrong media type', { url, payload: 'source=s&text=t', contentType: 'text/plain', expect: { status: 415, codes: ['UNSUPPORTED_MEDIA_TYPE'] } });
     // Multipart that cannot be read, or that holds a form field: a JSON route does not take multipart (415); the
