@@ -25,6 +25,15 @@ export function checkEntryPath(name: string): EntryPathCheck {
   return { ok: true, path: parts.join('/') };
 }
 
+/**
+ * The entry name as it may be shown and stored (a reject's path in a job result, the rejects file): each control
+ * character written as \xNN. The raw name of a refused entry can hold a NUL, which PostgreSQL text and jsonb
+ * cannot store: kept raw, it failed the whole upload's job instead of refusing that one entry.
+ */
+export function printableEntryName(name: string): string {
+  return printable(name);
+}
+
 function printable(name: string): string {
   let out = '';
   for (const ch of name) {

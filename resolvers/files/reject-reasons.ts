@@ -11,7 +11,7 @@ export const REJECT_REASONS = {
   file_too_large: 'the file is over the size limit for one file',
   text_too_large: 'the extracted text is over the 1 MB limit of one contract',
   no_parties: 'the party parser found no parties (no parties clause, defined party term or signature block)',
-  unsafe_path: "the archive entry's path is absolute or leaves the archive (..): not read",
+  unsafe_path: "the archive entry's path is absolute, leaves the archive (..) or cannot be read as a name (a control character, bytes not UTF-8): not read",
   symlink: 'a symbolic link: not followed',
   encrypted_entry: 'the archive entry is encrypted: not read',
   compression_ratio: 'the archive entry expands too much for its compressed size (a zip bomb?): not read',

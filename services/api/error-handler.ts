@@ -31,6 +31,11 @@ export function registerErrorHandling(app: FastifyInstance): void {
   });
 }
 
+function acceptedTypes(request: FastifyRequest): string {
+  const consumes = (request.routeOptions.schema as { consumes?: unknown } | undefined)?.consumes;
+  return Array.isArray(consumes) && consumes.length > 0 ? consumes.join(' or ') : 'application/json';
+}
+
 function pathOf(request: FastifyRequest): string {
   return request.url.split('?')[0] ?? request.url;
 }
@@ -77,10 +82,11 @@ function classify(error: FastifyError, request: FastifyRequest): Classified {
     }
     case 'FST_ERR_CTP_INVALID_MEDIA_TYPE':
       return {
-        // Names what is accepted; the caller's Content-Type is not repeated.
+        // Names what is accepted (a route that takes an upload lists its types as `consumes`: the ingest route once
+        // told a CSV sender to "send application/json", which it refuses too); the caller's Content-Type is not repeated.
         body: problem(
           'UNSUPPORTED_MEDIA_TYPE',
-          `the body's Content-Type is not accepted by ${request.method} ${request.routeOptions.url ?? 'this route'}; send application/json`,
+          `the body's Content-Type is not accepted by ${request.method} ${request.routeOptions.url ?? 'this route'}; send ${acceptedTypes(request)}`,
         ),
       };
   }

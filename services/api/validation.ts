@@ -2,11 +2,13 @@
  * Schema validation of requests. Two ajv instances, because fastify's default coerces types
  * everywhere and drops unknown fields silently:
  * - bodies: no coercion (a number sent as a string is a type error) and unknown fields are errors;
- * - query strings, path parameters and headers: text by nature, so types are coerced.
+ * - query strings, path parameters and headers: text by nature, so types are coerced (integers only from plain
+ *   decimal digits: decimal-integers.ts).
  * ajv errors become RFC 6901 JSON pointers with a message each (the `errors[]` of a 422 problem).
  */
 import { Ajv, type ErrorObject, type Options } from 'ajv';
 import addFormats from 'ajv-formats';
+import { withDecimalIntegers } from './decimal-integers.ts';
 import type { FieldError } from './errors.ts';
 
 type HttpPart = 'body' | 'querystring' | 'params' | 'headers';
@@ -23,8 +25,30 @@ function makeAjv(options: Options, externalSchemas: unknown): Ajv {
   // ajv-formats is CommonJS: under Node's ESM loader the default import is module.exports itself.
   const plugin = ((addFormats as unknown as { default?: typeof addFormats }).default ?? addFormats) as (a: Ajv) => Ajv;
   plugin(ajv);
+  narrowDateTime(ajv);
   for (const schema of Object.values((externalSchemas ?? {}) as Record<string, object>)) ajv.addSchema(schema);
   return ajv;
+}
+
+/**
+ * A date-time (RFC 3339, as ajv-formats checks it) that is also an instant the service can compare with: one
+ * JavaScript's Date reads (a leap second "23:59:60" it does not) and whose UTC year lies in 1–9999 (PostgreSQL
+ * has no year 0; "0001-01-01T00:00:00+14:00" is in year 0 in UTC). Such values once reached the database as
+ * "Invalid Date" or year 0 and answered 500; now they are 422 naming the parameter.
+ */
+function narrowDateTime(ajv: Ajv): void {
+  const given = (ajv.formats['date-time'] as { validate?: RegExp | ((text: string) => boolean) } | undefined)?.validate;
+  if (!given) return;
+  const rfc3339 = typeof given === 'function' ? given : (text: string) => given.test(text);
+  ajv.addFormat('date-time', {
+    type: 'string',
+    validate: (text: string) => {
+      if (!rfc3339(text)) return false;
+      const at = new Date(text);
+      const year = at.getUTCFullYear();
+      return !Number.isNaN(at.getTime()) && year >= 1 && year <= 9999;
+    },
+  });
 }
 
 /** For fastify's `schemaController.compilersFactory.buildValidator`. */
@@ -38,7 +62,8 @@ export function buildValidatorFactory() {
         const stored = ajv.getSchema(schema.$id);
         if (stored) return stored;
       }
-      return ajv.compile(withSafeIntegers(schema));
+      const validate = ajv.compile(withSafeIntegers(schema));
+      return ajv === bodyAjv ? validate : withDecimalIntegers(validate, schema);
     };
   };
 }

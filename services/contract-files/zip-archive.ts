@@ -8,7 +8,7 @@
  */
 import type { Readable } from 'node:stream';
 import yauzl, { type Entry, type ZipFile } from 'yauzl';
-import { checkEntryPath, checkZipEntry, type FileLimits, type FileReject } from '../../resolvers/files/index.ts';
+import { checkEntryPath, checkZipEntry, printableEntryName, type FileLimits, type FileReject } from '../../resolvers/files/index.ts';
 
 export type ZipSource = { file: string } | { buffer: Buffer };
 
@@ -21,6 +21,19 @@ async function openZip(source: ZipSource): Promise<ZipFile> {
 
 export function entryName(entry: Entry): string {
   return yauzl.getFileNameLowLevel(entry.generalPurposeBitFlag, entry.fileNameRaw, entry.extraFields, false);
+}
+
+const REPLACEMENT_BYTES = Buffer.from('\uFFFD', 'utf8');
+
+/**
+ * Whether yauzl decoded a name marked UTF-8 (APPNOTE 4.4.4 bit 11, or an Info-ZIP Unicode Path field) from bytes
+ * that are not UTF-8: it puts U+FFFD in their place, so a U+FFFD that none of the name's byte sources holds was
+ * made up. (Code page 437, the other decoding, has no U+FFFD.) Such a name once became the contract's external id.
+ */
+function undecodableName(entry: Entry, name: string): boolean {
+  if (!name.includes('\uFFFD')) return false;
+  const sources = [entry.fileNameRaw, ...entry.extraFields.filter((field) => field.id === 0x7075).map((field) => field.data.subarray(5))];
+  return !sources.some((bytes) => bytes.includes(REPLACEMENT_BYTES));
 }
 
 const isDirectory = (name: string): boolean => name.endsWith('/');
@@ -104,9 +117,14 @@ export async function* zipItems(source: ZipSource, prefix: string, limits: FileL
     for await (const entry of zip.eachEntry()) {
       const name = entryName(entry);
       if (isDirectory(name) && entry.uncompressedSize === 0) continue;
+      if (undecodableName(entry, name)) {
+        const detail = 'the entry name is marked UTF-8 but its bytes are not UTF-8 (RFC 3629): not read, rather than stored with U+FFFD';
+        yield { reject: { path: `${prefix}${printableEntryName(name)}`, reason: 'unsafe_path', detail } };
+        continue;
+      }
       const checked = checkEntryPath(name);
       if (!checked.ok) {
-        yield { reject: { path: `${prefix}${name}`, reason: 'unsafe_path', detail: checked.problem } };
+        yield { reject: { path: `${prefix}${printableEntryName(name)}`, reason: 'unsafe_path', detail: checked.problem } };
         continue;
       }
       const path = `${prefix}${checked.path}`;

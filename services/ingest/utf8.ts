@@ -78,17 +78,21 @@ export function hexByte(byte: number): string {
  */
 export function declaredCharset(contentType: string | undefined): string | undefined {
   if (!contentType) return undefined;
+  const given = new Set<string>();
   for (const part of contentType.split(';').slice(1)) {
     const eq = part.indexOf('=');
     if (eq < 0) continue;
     if (part.slice(0, eq).trim().toLowerCase() !== 'charset') continue;
-    return part
+    const charset = part
       .slice(eq + 1)
       .trim()
       .replace(/^"(.*)"$/, '$1')
       .toLowerCase();
+    given.add(charset === 'utf8' ? 'utf-8' : charset);
   }
-  return undefined;
+  // A parameter given twice is an error (RFC 6838 §4.3): "charset=utf-8; charset=latin1" was read as UTF-8 by its
+  // first value. Two different values come back together, which names no charset, so the body is refused.
+  return given.size === 0 ? undefined : [...given].join(', ');
 }
 
 export const isUtf8Charset = (charset: string | undefined): boolean => charset === undefined || charset === 'utf-8' || charset === 'utf8';

@@ -25,10 +25,16 @@ export interface RelationInput {
   evidence?: Record<string, unknown>;
 }
 
+/**
+ * A calendar date YYYY-MM-DD from year 0001 (the Gregorian calendar has no year 0; "0000-01-01" was stored). The
+ * message names the field and the rule, not the value given (issue 17: errors do not repeat the caller's input).
+ */
 function checkDate(field: string, value: string): string {
-  if (!/^\d{4}-\d{2}-\d{2}$/.test(value)) throw invalid(field, `"${value}" is not a date in the form YYYY-MM-DD`);
+  if (!/^\d{4}-\d{2}-\d{2}$/.test(value)) throw invalid(field, 'must be a date in the form YYYY-MM-DD');
   const date = new Date(`${value}T00:00:00Z`);
-  if (Number.isNaN(date.getTime()) || date.toISOString().slice(0, 10) !== value) throw invalid(field, `"${value}" is not a calendar date`);
+  if (Number.isNaN(date.getTime()) || date.toISOString().slice(0, 10) !== value || date.getUTCFullYear() < 1) {
+    throw invalid(field, 'must be a calendar date from year 0001 (e.g. 2021-02-28, not 2021-02-30)');
+  }
   return value;
 }
 

@@ -21,7 +21,7 @@ import { createRegisterContext, resolveMention, stateSnapshot } from '../../serv
 import { describeEachBackend } from '../support/index.ts';
 import { keyedApp, type KeyedApp } from '../services/api/support.ts';
 import { liveRoutes, type LiveRoute } from './route-table.ts';
-import { NOT_UTF8, hostileMatrix, type HostileCase, type OpenApiDoc } from './hostile-matrix.ts';
+import { MULTIPART_UNREADABLE, NOT_UTF8, hostileMatrix, type HostileCase, type OpenApiDoc } from './hostile-matrix.ts';
 
 const RUNS_PER_ROUTE = process.env.CPREG_LONG === '1' ? 60 : 12;
 
@@ -291,12 +291,18 @@ describeEachBackend('hostile input over HTTP', (t) => {
       'body deep JSON',
       'body wrong media type',
       'body charset latin1',
+      'body charset twice',
       ...notUtf8Kinds,
+      ...MULTIPART_UNREADABLE.map(([name]) => `body multipart ${name}`),
+      'body multipart form field',
     ])
       expect(tried[kind], kind).toBe(withBody);
     expect(tried['path NUL']).toBeGreaterThan(15);
     expect(tried['path out-of-range integer']).toBeGreaterThan(15);
     expect(tried['query out-of-range integer']).toBeGreaterThan(5);
+    expect(tried['path integer spelled otherwise']).toBeGreaterThan(15 * 6);
+    expect(tried['query integer spelled otherwise']).toBeGreaterThan(5 * 6);
+    expect(tried['query date-time out of range']).toBeGreaterThanOrEqual(2 * 3);
     // Nothing was stored, and the service still answers.
     expect(await stateSnapshot(t.db())).toEqual(before.state);
     expect(await Promise.all(tables.map(count))).toEqual(before.counts);

@@ -1,7 +1,8 @@
 /**
  * The fixed hostile-input matrix (issue 17): for every live route, the inputs that once answered 500 or were
  * mishandled — NUL, a lone surrogate, integers out of range, deep JSON, a wrong media type, bodies that are not
- * UTF-8 (0xFF, an overlong form, a sequence cut short, CESU-8 surrogate bytes) or declare another charset — placed in the query
+ * UTF-8 (0xFF, an overlong form, a sequence cut short, CESU-8 surrogate bytes) or declare another charset, integers
+ * not spelled in decimal digits, date-times that are no usable instant, multipart that cannot be read — placed in the query
  * string, each path parameter and the body, each with the answer it must get. Where a route declares a parameter
  * of the right kind (a string to hold the NUL, an integer to overflow) the input goes there, read from
  * /openapi.json; so a new route or parameter is covered without a list. Path parameters not under test hold
@@ -12,6 +13,7 @@ import type { LiveRoute } from './route-table.ts';
 
 interface Schema {
   type?: string | string[];
+  format?: string;
   enum?: unknown[];
   properties?: Record<string, Schema>;
   items?: Schema;
@@ -53,6 +55,17 @@ export const NOT_UTF8: readonly [string, readonly number[]][] = [
   ['overlong', [0xc0, 0xaf]],
   ['truncated', [0xe2, 0x82]],
   ['CESU-8 surrogate', [0xed, 0xa0, 0x80]],
+];
+
+/** Integers spelled as JavaScript's Number() reads them but not in plain decimal digits (each meant 1 or 10). */
+export const OTHER_SPELLINGS = ['0x1', '1e1', '1.0', '%2B1', '01', '%201'];
+/** RFC 3339 date-times that are no usable instant: a leap second (JavaScript's Date refuses it), year 0 in UTC. */
+export const UNUSABLE_INSTANTS = ['9999-12-31T23:59:60Z', '0000-01-01T00:00:00Z', '0001-01-01T00:00:00+14:00'];
+/** Multipart bodies a parser cannot read: [kind, Content-Type, body]. */
+export const MULTIPART_UNREADABLE: readonly [string, string, string][] = [
+  ['without boundary', 'multipart/form-data', '--x\r\n'],
+  ['not multipart', 'multipart/form-data; boundary=x', 'garbage'],
+  ['cut short', 'multipart/form-data; boundary=x', '--x\r\nContent-Disposition: form-data; name="f"; filename="a.txt"\r\n\r\nabc'],
 ];
 
 const isType = (schema: Schema | undefined, type: string): boolean => schema?.type === type || (Array.isArray(schema?.type) && schema.type.includes(type));
@@ -118,6 +131,22 @@ export function hostileMatrix(routes: readonly LiveRoute[], doc: OpenApiDoc): Ho
         url: `${url}?${p.name}=${OUT_OF_RANGE}`,
         expect: { status: 422, codes: ['VALIDATION_FAILED'], pointer: `/${p.name}`, in: 'query' },
       });
+      // Number() reads "1e1" as 10: once taken as a page of 10, now refused (decimal digits only).
+      for (const spelling of OTHER_SPELLINGS) {
+        add('query integer spelled otherwise', {
+          url: `${url}?${p.name}=${spelling}`,
+          expect: { status: 422, codes: ['VALIDATION_FAILED'], pointer: `/${p.name}`, in: 'query' },
+        });
+      }
+    }
+    // An instant JavaScript cannot read (a leap second) or in year 0 once reached the database and answered 500.
+    for (const p of queryParams.filter((q) => q.schema?.format === 'date-time')) {
+      for (const instant of UNUSABLE_INSTANTS) {
+        add('query date-time out of range', {
+          url: `${url}?${p.name}=${encodeURIComponent(instant)}`,
+          expect: { status: 422, codes: ['VALIDATION_FAILED'], pointer: `/${p.name}`, in: 'query' },
+        });
+      }
     }
 
     // Path: each parameter in turn.
@@ -131,6 +160,12 @@ export function hostileMatrix(routes: readonly LiveRoute[], doc: OpenApiDoc): Ho
         url: at(OUT_OF_RANGE),
         expect: integer ? { status: 422, codes: ['VALIDATION_FAILED'], pointer: `/${name}`, in: 'path' } : {},
       });
+      // "0x1", "1e0", "01"… all named id 1: one resource under many URLs. Refused by name.
+      if (integer) {
+        for (const spelling of OTHER_SPELLINGS) {
+          add('path integer spelled otherwise', { url: at(spelling), expect: { status: 422, codes: ['VALIDATION_FAILED'], pointer: `/${name}`, in: 'path' } });
+        }
+      }
     }
 
     // Body: every route that reads one (fastify reads no body on GET).
@@ -172,8 +207,27 @@ export function hostileMatrix(routes: readonly LiveRoute[], doc: OpenApiDoc): Ho
       contentType: 'application/json; charset=latin1',
       expect: { status: 415, codes: ['UNSUPPORTED_MEDIA_TYPE'], pointer: '/content-type', in: 'header' },
     });
+    // A parameter given twice is an error (RFC 6838 §4.3); the first value was taken, so this body was read as UTF-8.
+    add('body charset twice', {
+      url,
+      payload: '{}',
+      contentType: 'application/json; charset=utf-8; charset=latin1',
+      expect: { status: 415, codes: ['UNSUPPORTED_MEDIA_TYPE'], pointer: '/content-type', in: 'header' },
+    });
     add('body deep JSON', { url, payload: DEEP_JSON, expect: { status: 422, codes: ['BODY_TOO_DEEP'] } });
     add('body wrong media type', { url, payload: 'source=s&text=t', contentType: 'text/plain', expect: { status: 415, codes: ['UNSUPPORTED_MEDIA_TYPE'] } });
+    // Multipart that cannot be read, or that holds a form field: a JSON route does not take multipart (415); the
+    // upload route once answered 500 (no boundary, bytes that are not multipart, a part cut short) and 413 "reach
+    // fields limit" for a field. Now 400 naming what is wrong, and 422 for a field part.
+    for (const [name, contentType, payload] of MULTIPART_UNREADABLE) {
+      add(`body multipart ${name}`, { url, payload, contentType, expect: { codes: ['UNSUPPORTED_MEDIA_TYPE', 'BAD_REQUEST'] } });
+    }
+    add('body multipart form field', {
+      url,
+      payload: '--x\r\nContent-Disposition: form-data; name="source"\r\n\r\nupload\r\n--x--\r\n',
+      contentType: 'multipart/form-data; boundary=x',
+      expect: { codes: ['UNSUPPORTED_MEDIA_TYPE', 'VALIDATION_FAILED'] },
+    });
   }
   return cases;
 }

@@ -56,7 +56,8 @@ export function prepareMention(raw: MentionInput, options: { lenientIdentifiers?
     contract = { source: checkId('contract/source', raw.contract.source), externalId: checkId('contract/externalId', raw.contract.externalId) };
   }
   if (raw.country !== undefined && (typeof raw.country !== 'string' || !COUNTRY.test(raw.country))) {
-    throw invalid('country', `"${String(raw.country)}" is not ISO 3166-1 alpha-2 or ISO 3166-2 (e.g. DE, US-DE)`);
+    // The rule, not the value: a country column of a file can hold anything, personal data included (issue 17).
+    throw invalid('country', 'must be ISO 3166-1 alpha-2 or ISO 3166-2 (e.g. DE, US-DE)');
   }
   if (raw.role !== undefined && (typeof raw.role !== 'string' || raw.role.length > MAX_ID_LENGTH)) {
     throw invalid('role', `must be a string of at most ${MAX_ID_LENGTH} characters`);

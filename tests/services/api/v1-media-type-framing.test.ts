@@ -73,6 +73,23 @@ describeEachBackend('media types and framing errors', (t) => {
     );
   });
 
+  it('names the media types the route takes: an upload route does not advise application/json, which it refuses too', async () => {
+    // Each told its caller to "send application/json": the ingest route takes NDJSON only, the contract route a zip.
+    const ingest = await k.call('write', {
+      method: 'POST',
+      url: '/v1/jobs/ingest?source=s',
+      headers: { 'content-type': 'text/csv' },
+      payload: 'source,text\ns,t\n',
+    });
+    expectProblem(ingest, 415, 'UNSUPPORTED_MEDIA_TYPE');
+    expect((ingest.json() as { detail: string }).detail).toMatch(/send application\/x-ndjson$/);
+    const contracts = await k.call('write', { method: 'POST', url: '/v1/jobs/contracts', headers: { 'content-type': 'text/plain' }, payload: 'a contract' });
+    expectProblem(contracts, 415, 'UNSUPPORTED_MEDIA_TYPE');
+    expect((contracts.json() as { detail: string }).detail).toMatch(/send application\/zip or multipart\/form-data$/);
+    const mention = await k.call('write', { method: 'POST', url: '/v1/mentions', headers: { 'content-type': 'text/csv' }, payload: 'x' });
+    expect((mention.json() as { detail: string }).detail).toMatch(/send application\/json$/);
+  });
+
   it('answers a bad percent-encoding in the path and an over-long path parameter with problem+json', async () => {
     expectProblem(await k.call('read', { method: 'GET', url: '/v1/counterparties/%E0%A4%A' }), 400, 'BAD_REQUEST');
     expectProblem(await k.call('admin', { method: 'DELETE', url: `/v1/keys/${'k'.repeat(600)}` }), 414, 'URI_TOO_LONG');

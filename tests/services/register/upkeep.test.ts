@@ -159,6 +159,16 @@ describeEachBackend('register operations', (t) => {
     await expect(
       addRelation(ctx, { fromId: child.counterpartyId, toId: parent.counterpartyId, type: 'successor_of', since: '2021-02-30' }, WHO),
     ).rejects.toMatchObject({ code: 'INVALID_INPUT' });
+    // Year 0000 is no Gregorian year (ISO 8601 reads it as 1 BC only by agreement): it was stored. Each refusal names
+    // the field and the rule, never the value given (issue 17 item 6).
+    for (const since of ['0000-01-01', '0000-12-31', 'not a date']) {
+      const refused = addRelation(ctx, { fromId: child.counterpartyId, toId: parent.counterpartyId, type: 'successor_of', since }, WHO);
+      await expect(refused).rejects.toMatchObject({ code: 'INVALID_INPUT', details: { field: 'since' } });
+      await expect(refused).rejects.toSatisfy((error: Error) => !error.message.includes(since));
+    }
+    await expect(
+      resolveMention(ctx, { source: 'ap', externalId: 'c1', text: 'Greyfriars Ropeworks Ltd', country: 'jo.bloggs@example.invalid' }, WHO),
+    ).rejects.toSatisfy((error: Error & { code?: string }) => error.code === 'INVALID_INPUT' && !error.message.includes('jo.bloggs'));
     const rel = await addRelation(ctx, { fromId: parent.counterpartyId, toId: child.counterpartyId, type: 'parent_of' }, WHO);
     const view = await getCounterparty(ctx, child.counterpartyId);
     expect(view.counterparty.status).toBe('active');

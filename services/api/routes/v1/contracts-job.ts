@@ -35,6 +35,8 @@ interface Upload {
   cleanup: string;
 }
 
+/** The most files one multipart upload holds (more go in a zip). */
+const MAX_UPLOAD_FILES = 10_000;
 /** The largest upload: 100 MiB. */
 export const CONTRACTS_UPLOAD_LIMIT = 100 * 1024 * 1024;
 const ZIP = 'application/zip';
@@ -105,15 +107,47 @@ async function saveParts(request: FastifyRequest, hash: Hash): Promise<Upload> {
     return { path: dir, folder: true, inputName: `${taken.size} uploaded files`, cleanup: dir };
   } catch (error) {
     await rm(dir, { recursive: true, force: true });
-    throw error;
+    throw multipartProblem(error);
   }
+}
+
+/**
+ * A multipart body the parser cannot read, or one over its limits, as the problem it is: these once answered 500
+ * (no boundary, a part cut short, bytes that are not multipart) or 413 with the parser's own words ("reach fields
+ * limit") for a plain form field. Errors of our own (ApiError) and of the system (a code such as ENOSPC) pass.
+ */
+function multipartProblem(error: unknown): unknown {
+  if (error instanceof ApiError) return error;
+  const code = (error as { code?: unknown }).code;
+  if (code === 'FST_FIELDS_LIMIT') {
+    return new ApiError(
+      'VALIDATION_FAILED',
+      'the multipart upload holds a form field: only file parts are read; give the source as the query parameter ?source=',
+      {
+        errors: [{ pointer: '', message: 'holds a form field; only file parts are read', in: 'body' }],
+      },
+    );
+  }
+  if (code === 'FST_PARTS_LIMIT' || code === 'FST_FILES_LIMIT') {
+    return new ApiError('PAYLOAD_TOO_LARGE', `the multipart upload holds more than ${MAX_UPLOAD_FILES} files: put them in a zip, or split the upload`, {
+      extensions: { limitFiles: MAX_UPLOAD_FILES },
+    });
+  }
+  if (code === undefined || code === 'FST_PROTO_VIOLATION' || code === 'FST_MP_PREMATURE_CLOSE') {
+    // The parser's message names what is wrong in general terms ("Malformed part header"); it repeats no input.
+    return new ApiError(
+      'BAD_REQUEST',
+      `the multipart body cannot be read (${(error as Error).message}): send the files as multipart/form-data parts with a boundary, or the zip as ${ZIP}`,
+    );
+  }
+  return error;
 }
 
 export const contractsJobRoutes: RoutePlugin = async (app, deps) => {
   const db = deps.db;
   // The zip body is streamed to a temporary file, never held in memory.
   app.addContentTypeParser(ZIP, (_request, payload, done) => done(null, payload));
-  await app.register(multipart, { limits: { fileSize: CONTRACTS_UPLOAD_LIMIT, files: 10_000, fields: 0 } });
+  await app.register(multipart, { limits: { fileSize: CONTRACTS_UPLOAD_LIMIT, files: MAX_UPLOAD_FILES, parts: MAX_UPLOAD_FILES, fields: 0 } });
 
   app.post<{ Querystring: { source: string; partitionSize?: number } }>(
     '/v1/jobs/contracts',

@@ -101,6 +101,7 @@ export const exportJobRoutes: RoutePlugin = async (app, deps) => {
         description:
           'Content-Type application/x-ndjson, one mention per line. `source` names the source for lines without their own. The upload is staged, then planned into partitions that workers resolve (GET /v1/jobs/{id} shows the partitions done). Rows are accounted for as in `cpreg ingest` (the job result holds the counts and the rejected lines with their reasons, up to 1,000).',
         tags: ['jobs'],
+        consumes: [NDJSON],
         querystring: {
           type: 'object',
           required: ['source'],
