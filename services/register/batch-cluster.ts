@@ -6,7 +6,7 @@
  */
 import { candidatePairs, type MatchRecord } from '../../resolvers/block/index.ts';
 import { clusterRecords, type ScoredEdge } from '../../resolvers/cluster/index.ts';
-import { clusterRulesOf, scorePair, type MatchModel } from '../../resolvers/score/index.ts';
+import { clusterRulesOf, scorePair, type MatchModel, type PairScore } from '../../resolvers/score/index.ts';
 import type { RegisterContext } from './context.ts';
 import { idfFor } from './matching/idf.ts';
 import type { BatchReads } from './matching/batch-reads.ts';
@@ -29,6 +29,15 @@ export interface Pending {
 export interface Group {
   members: Pending[];
   counterpartyId: number | null;
+  /** A lone mention that would be new but is close to a mention of an earlier group: it asks a person (batch-review.ts). */
+  reviewAgainst?: { group: Group; pair: PairScore; otherText: string };
+}
+
+/** A pair of the batch's mentions that a person should judge (decision review), with its score. */
+export interface ReviewPair {
+  a: Pending;
+  b: Pending;
+  pair: PairScore;
 }
 
 export async function clusterBatch(
@@ -37,8 +46,8 @@ export async function clusterBatch(
   model: MatchModel,
   reads: BatchReads,
   comparePairs: readonly (readonly [string, string])[] | undefined,
-): Promise<Group[]> {
-  if (matching.length === 0) return [];
+): Promise<{ groups: Group[]; reviewPairs: ReviewPair[] }> {
+  if (matching.length === 0) return { groups: [], reviewPairs: [] };
   const byKey = [...matching].sort((a, b) => (a.key < b.key ? -1 : 1));
   const records: MatchRecord[] = byKey.map((p) => ({
     id: `m:${p.key}`,
@@ -70,12 +79,14 @@ export async function clusterBatch(
     }
   }
   const pairs = comparePairs ? pairsByKey(byKey, comparePairs) : candidatePairs(records, { idf });
+  const reviewPairs: ReviewPair[] = [];
   for (let i = 0; i < pairs.count; i++) {
     const a = records[pairs.left[i]!]!;
     const b = records[pairs.right[i]!]!;
     const s = scorePair(a, b, model, idf);
     if (s.score === -Infinity) cannot.push([a.id, b.id]);
     else edges.push({ a: a.id, b: b.id, score: s.score });
+    if (s.decision === 'review') reviewPairs.push({ a: byKey[pairs.left[i]!]!, b: byKey[pairs.right[i]!]!, pair: s });
   }
   const cpList = [...cps].sort();
   // Register counterparties never join each other: a cannot-link between every two of them. Only two that one
@@ -121,7 +132,7 @@ export async function clusterBatch(
     const cp = cluster.find((n) => n.startsWith('cp:'));
     out.push({ members, counterpartyId: cp ? Number(cp.slice(3)) : null });
   }
-  return out;
+  return { groups: out, reviewPairs };
 }
 
 /** The given pairs of sort keys as index pairs into `byKey` (pairs naming a mention not in it are left out). */

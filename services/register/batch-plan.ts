@@ -10,6 +10,8 @@ import type { Outcome } from './resolve/decide.ts';
 import { clusterBatch, type Group, type Pending } from './batch-cluster.ts';
 import type { BatchOptions } from './batch.ts';
 import { timed } from './stage-times.ts';
+import { askAcrossGroups } from './batch-review.ts';
+import { jsonScore } from './matching/candidates.ts';
 
 /** The groups to write, in order, and the mentions whose outcome does not depend on the rest of the batch. */
 export async function planBatch(
@@ -30,10 +32,11 @@ export async function planBatch(
     ),
   );
   const matching = pending.filter((p) => !final.has(p));
-  const groups = await timed(stages, 'cluster', () => clusterBatch(ctx, matching, model, reads, options.comparePairs));
+  const { groups, reviewPairs } = await timed(stages, 'cluster', () => clusterBatch(ctx, matching, model, reads, options.comparePairs));
   const plan: Group[] = [...final].map((p) => ({ members: [p], counterpartyId: null }));
   for (const g of groups) plan.push(g);
   plan.sort((a, b) => (a.members[0]!.key < b.members[0]!.key ? -1 : a.members[0]!.key > b.members[0]!.key ? 1 : 0));
+  askAcrossGroups(plan, reviewPairs, final);
   return { plan, final };
 }
 
@@ -49,6 +52,7 @@ export function planGroup(group: Group, fixed: boolean, linkAt: number): Outcome
     if (fixed) return outcome;
     const lone = group.members.length === 1 && target === null;
     if (target !== null) return clusteredWith(outcome, target, linkAt);
+    if (group.reviewAgainst) return reviewInBatch(outcome, group.reviewAgainst);
     if (lone && outcome.status === 'review') return outcome; // nothing in the batch or the register is close enough to decide
     if (i === 0) {
       return {
@@ -76,5 +80,27 @@ export function clusteredWith(outcome: Outcome, target: number, linkAt: number):
     counterpartyId: target,
     recordName: true,
     evidence: { ...outcome.evidence, summary: `clustered with counterparty ${target} in a batch (linkAt ${linkAt})`, via: 'batch' },
+  };
+}
+
+/** A lone mention asking a person about a mention of an earlier group (batch-review.ts); its counterparty is filled in at the write. */
+function reviewInBatch(outcome: Outcome, against: NonNullable<Group['reviewAgainst']>): Outcome {
+  const { pair, otherText } = against;
+  return {
+    ...outcome,
+    status: 'review',
+    counterpartyId: undefined,
+    score: jsonScore(pair.score),
+    recordName: false,
+    evidence: {
+      ...outcome.evidence,
+      summary: `close to "${otherText}", a mention of this batch (scored ${jsonScore(pair.score)}): one company or two, a person decides`,
+      via: 'batch',
+      matchedName: otherText,
+      features: pair.explanation,
+      identifierNotes: pair.identifierNotes,
+      heldBackBy: pair.heldBackBy,
+      distinguishingTokens: pair.distinguishingTokens,
+    },
   };
 }

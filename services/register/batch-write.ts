@@ -34,6 +34,8 @@ export async function writePlan(
 ): Promise<void> {
   // Several clusters share one transaction (one commit, so one WAL flush, per chunk instead of per cluster);
   // each mention still records its own event, and a retried chunk re-reads everything it writes.
+  // The counterparty each written group joined or created, for the in-batch reviews of later groups (batch-review.ts).
+  const counterpartyOf = new Map<Group, number>();
   for (let start = 0; start < plan.length;) {
     const chunk: typeof plan = [];
     let size = 0;
@@ -42,6 +44,7 @@ export async function writePlan(
       chunk.push(plan[start++]!);
     }
     let attempt = 0;
+    const pending = new Map<Group, number>();
     const written = await timed(stages, 'write', () =>
       write(ctx, async (cs) => {
         // The first attempt trusts the read phase about which mentions are not stored yet; if another request
@@ -59,7 +62,7 @@ export async function writePlan(
             members.filter((m) => recheck || m.stored).map((m) => m.prepared.input),
           ),
         );
-        const plans = chunk.map((group) => planGroup(group, final.has(group.members[0]!), model.linkAt));
+        const plans = chunk.map((group) => withReviewTarget(group, planGroup(group, final.has(group.members[0]!), model.linkAt), counterpartyOf));
         // Every counterparty the chunk writes, in one sorted statement (then the survivors of merged ones), and
         // the names of those it links to; then the ids of the rows it adds, drawn in one statement.
         const linkTargets = plans.flatMap((p) => p.filter((o) => o.status === 'linked' && o.counterpartyId !== undefined).map((o) => o.counterpartyId!));
@@ -79,12 +82,21 @@ export async function writePlan(
         cs.startBuffering();
         const contracts = new Map<string, Promise<ContractContext | null>>();
         const out: ResolveResult[][] = [];
-        for (const [g, group] of chunk.entries()) out.push(await writeGroup(ctx, cs, group, plans[g]!, who, found, contracts, model.linkAt));
+        pending.clear();
+        for (const [g, group] of chunk.entries()) {
+          const planned = requireReviewTargets(withReviewTarget(group, plans[g]!, pending));
+          const results = await writeGroup(ctx, cs, group, planned, who, found, contracts, model.linkAt);
+          const joined = results.find((r) => r.status === 'linked' || r.status === 'new')?.counterpartyId;
+          if (joined !== undefined && joined !== null) pending.set(group, joined);
+          out.push(results);
+        }
         await timed(stages, 'flush', () => cs.flush());
         // Events written from the buffer got their ids at the flush.
         return out.map((results) => results.map((r) => (r.eventId === null ? r : { ...r, eventId: cs.realId(r.eventId) })));
       }),
     );
+    // Kept only once the chunk has committed (a retried chunk starts again from the groups before it).
+    for (const [group, id] of pending) counterpartyOf.set(group, id);
     chunk.forEach((group, g) => {
       for (const [i, member] of group.members.entries()) results[member.index] = written[g]![i]!;
     });
@@ -143,4 +155,23 @@ async function writeGroup(
     out.push(result);
   }
   return out;
+}
+
+/**
+ * A group asking about an earlier group's counterparty (batch-review.ts) gets that counterparty once it is known:
+ * from an earlier chunk before the chunk's locks, from this chunk as its groups are written.
+ */
+function withReviewTarget(group: Group, planned: Outcome[], known: ReadonlyMap<Group, number>): Outcome[] {
+  const against = group.reviewAgainst?.group;
+  const target = against ? known.get(against) : undefined;
+  if (target === undefined) return planned;
+  return planned.map((o) => (o.status === 'review' && o.counterpartyId === undefined ? { ...o, counterpartyId: target } : o));
+}
+
+/** A review asked within the batch must have found its counterparty by the time it is written (a defect otherwise). */
+function requireReviewTargets(planned: Outcome[]): Outcome[] {
+  if (planned.some((o) => o.status === 'review' && o.counterpartyId === undefined)) {
+    throw new Error('a review within the batch has no counterparty to ask about (a defect: please report it)');
+  }
+  return planned;
 }

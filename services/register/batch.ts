@@ -11,7 +11,9 @@
  *     business). resolvers/cluster clusters the graph, best edge first, with ties broken by ids, so the clusters
  *     are the same for any input order.
  *  3. A cluster with one counterparty links all its mentions to it; a cluster without one becomes one new
- *     counterparty; a lone mention whose best score was between the thresholds goes to review.
+ *     counterparty; a lone mention whose best score was between the thresholds goes to review, and so does a lone
+ *     mention that would be new but that a person should judge against a mention of an earlier cluster, against
+ *     that cluster's counterparty (batch-review.ts), as it would have been sent one at a time.
  *  4. Writes go cluster by cluster (one event per mention), in the order of each cluster's smallest
  *     (source, externalId), so even the new ids do not depend on the input order. Consecutive clusters share a
  *     transaction up to WRITE_CHUNK mentions (a retry runs the whole chunk again). A chunk reads in a few
