@@ -6,7 +6,7 @@
 import { ApiError } from '../../errors.ts';
 
 const DATE = /^\d{4}-\d{2}-\d{2}$/;
-const DATE_TIME = /^\d{4}-\d{2}-\d{2}[Tt]\d{2}:\d{2}:\d{2}(?:\.\d{1,9})?(?:[Zz]|[+-]\d{2}:\d{2})$/;
+const DATE_TIME = /^\d{4}-\d{2}-\d{2}t\d{2}:\d{2}:\d{2}(?:\.\d{1,9})?(?:z|[+-]\d{2}:\d{2})$/i;
 
 export const INSTANT_QUERY = {
   type: 'string',
