@@ -9,6 +9,7 @@ import { resolve as resolvePath } from 'node:path';
 import { isPostgresUrl, keepAsTemplate, openDatabase, resolveTarget, type OpenedDatabase } from '../../db/open-database.ts';
 import type { Jobs } from '../jobs/start-jobs.ts';
 import { migrateToLatest } from '../../db/migrate.ts';
+import { selectApiKeys } from '../../db/queries/api-keys.ts';
 import { loggerOptions } from './logger.ts';
 import { DEFAULT_DB_TIMEOUT_MS } from './types.ts';
 
@@ -124,8 +125,20 @@ export async function startServer(options: ServeOptions): Promise<RunningServer>
   process.on('SIGTERM', onSignal);
 
   say(`cpreg: serving ${url} (database: ${database.backend} ${database.description}; API reference at ${url}/docs)`);
+  if ((await selectApiKeys(database.db)).length === 0) say(noKeyHint(database.backend, options.db));
   options.onListening?.({ url, backend: database.backend, database: database.description });
   return { app, database, url, stopped, stop };
+}
+
+/**
+ * Every /v1 route needs a key, and a new database has none. On the embedded database `cpreg keys create` is refused
+ * while this process holds the directory, so the way to the first key is said here, where the person looks.
+ */
+function noKeyHint(backend: string, db: string | undefined): string {
+  const create = `cpreg keys create --scope admin --label "<role>"${db ? ` --db ${db}` : ''}`;
+  return backend === 'pglite'
+    ? `cpreg: no API key yet, and every /v1 route needs one: stop the service (Ctrl-C), run ${create}, and start it again (one process at a time holds an embedded database)`
+    : `cpreg: no API key yet, and every /v1 route needs one: run ${create} (it prints the key once)`;
 }
 
 function addressOf(app: FastifyInstance): string {

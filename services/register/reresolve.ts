@@ -53,8 +53,11 @@ export async function reresolveOne(ctx: RegisterContext, mentionId: number, who:
         beforeCommit: async () => {
           const after = await cs.require('mention', mentionId);
           const same = after.status === m.status && after.counterparty_id === m.counterparty_id && after.own_entity_id === m.own_entity_id;
+          // A mention that made its counterparty ("new") and now links to that same one has not moved: counting it
+          // as a change reported most of a fresh register changed and wrote an event for each.
+          const stillItsOwn = m.status === 'new' && after.status === 'linked' && after.counterparty_id === m.counterparty_id;
           // Same outcome: roll the whole transaction back so that nothing (not even a sighting count) changes.
-          if (same) throw new Unchanged();
+          if (same || stillItsOwn) throw new Unchanged();
         },
       });
       return { changed: true, status: result.status };

@@ -41,11 +41,30 @@ export default function register(program: Command): void {
         `qualifiers:  ${analysis.qualifiers.length > 0 ? analysis.qualifiers.join(', ') : '(none)'}`,
         `aliases:     ${analysis.aliases.length > 0 ? analysis.aliases.map((a) => `${a.kind}: ${a.name}`).join('; ') : '(none)'}`,
         `related:     ${analysis.related.length > 0 ? analysis.related.map((r) => `${r.relation}: ${r.name}`).join('; ') : '(none)'}`,
-        `party:       ${analysis.partyStatus} (kind ${analysis.kind})`,
+        `party:       ${PARTY_WORDS[analysis.partyStatus]}${analysis.partyReason ? ` (${REASON_WORDS[analysis.partyReason] ?? analysis.partyReason})` : ''}; kind ${analysis.kind}`,
       ];
       process.stdout.write(`${lines.join('\n')}\n`);
     });
 }
+
+/** The party status in words (the JSON keeps the key: party, needs_binding, not_a_party). */
+const PARTY_WORDS: Record<string, string> = {
+  party: 'a party',
+  needs_binding: "needs binding: a role, term or pronoun that names a party only through a contract's definitions",
+  not_a_party: 'not a party',
+};
+
+/** Why a name is not a party by itself, in words (the JSON keeps partyReason). */
+const REASON_WORDS: Record<string, string> = {
+  empty: 'empty',
+  numeric: 'only digits',
+  too_short: 'one character',
+  signature_label: 'a signature-block label',
+  pronoun: 'a pronoun',
+  role_word: 'a role or collective word',
+  place: 'a place',
+  document: 'the document or a part of it',
+};
 
 /** Long code lists ("Ltd" stands for 140 codes) are shortened on the terminal; --json has them all. */
 function summarise(items: readonly string[]): string {

@@ -6,6 +6,7 @@
 import type { Command } from 'commander';
 import type { InContractResolution as Resolution, NotPartyGroups, ParsedContract as Parsed } from '../../../resolvers/terms/index.ts';
 import { CliError } from '../cli-error.ts';
+import { outcomeWords } from '../outcome-words.ts';
 
 /** Same limit as resolvers/terms (MAX_CONTRACT_BYTES); repeated here so the file is refused before it is read. */
 const MAX_BYTES = 1024 * 1024;
@@ -113,7 +114,7 @@ function formatText(parsed: Parsed, resolution: Resolution | undefined, left: No
   for (const w of parsed.warnings ?? []) lines.push(`Warning: ${w}`);
   if (resolution !== undefined) {
     const who = resolution.party === undefined ? '' : ` → ${resolution.party.name}${resolution.party.role ? ` (${resolution.party.role})` : ''}`;
-    lines.push(`Mention "${resolution.mention}": ${resolution.status}${who}`, `  ${resolution.explanation}`);
+    lines.push(`Mention "${resolution.mention}": ${outcomeWords(resolution.status)}${who}`, `  ${resolution.explanation}`);
   }
   return lines.join('\n');
 }

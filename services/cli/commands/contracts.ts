@@ -9,6 +9,7 @@ import { countOf } from '../count-words.ts';
 import { DB_OPTION_HELP } from './serve.ts';
 import type { ImportFilesSummary as Summary } from '../../contract-files/import-files.ts';
 import { stopOnInterrupt } from '../stop-on-interrupt.ts';
+import { outcomeWords } from '../outcome-words.ts';
 
 interface ImportCliOptions {
   source: string;
@@ -95,7 +96,7 @@ function formatSummary(s: Summary, seconds: number): string[] {
   for (const [reason, n] of Object.entries(s.rejectedBy)) lines.push(row(`  ${reason}`, n));
   lines.push(row('= read', f.read));
   if (s.skippedFolders > 0) lines.push(`${countOf(s.skippedFolders, 'subfolder')} not read (add --recursive to read them)`);
-  const parties = Object.entries(s.parties).map(([status, n]) => `${status} ${n}`);
+  const parties = Object.entries(s.parties).map(([status, n]) => `${outcomeWords(status)} ${n.toLocaleString('en-US')}`);
   if (parties.length > 0) lines.push(`parties of the imported contracts: ${parties.join(', ')}`);
   lines.push(f.rejected > 0 ? `files not imported, with their reasons: ${s.rejectsFile}` : 'no file rejected');
   if (s.status === 'interrupted') lines.push('interrupted: run the same command again to go on (files already imported count as unchanged)');

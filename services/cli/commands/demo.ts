@@ -33,7 +33,10 @@ export default function register(program: Command): void {
       'build the invented demo scenario into the database every command uses (./data/cpreg unless --db or DATABASE_URL say otherwise; reused when built), print what the register made of it, then serve the API (stop with Ctrl-C)',
     )
     .showHelpAfterError(true)
-    .option('--db <dir>', 'embedded database directory (default: $DATABASE_URL when it is a directory, else ./data/cpreg)')
+    .option(
+      '--db <dir>',
+      'embedded database directory (default: $DATABASE_URL, else ./data/cpreg; a PostgreSQL URL is refused: the demo builds an embedded database)',
+    )
     .option('--files <dir>', "where the scenario's files go (contracts, mentions, vendor master, truth.json; default: <db>-scenario)")
     .option('--fresh', 'delete the demo database and build it again')
     .option('--seed <n>', 'scenario seed (default 1, or the seed the database was built with)', parseSeed)

@@ -7,6 +7,8 @@ import type { FieldMap } from '../../ingest/mapping.ts';
 import { CliError } from '../cli-error.ts';
 import { DB_OPTION_HELP } from './serve.ts';
 import { stopOnInterrupt } from '../stop-on-interrupt.ts';
+import { outcomeWords } from '../outcome-words.ts';
+import { countOf } from '../count-words.ts';
 
 interface IngestCliOptions {
   source: string;
@@ -107,11 +109,11 @@ export default function register(program: Command): void {
         } else {
           const c = summary.counts;
           const lines = [
-            `ingest run ${summary.runId} ${summary.status}: ${c.read} rows read in ${(summary.elapsedMs / 1000).toFixed(1)} s (${Math.round(c.read / (summary.elapsedMs / 1000))} rows/s)`,
+            `ingest run ${summary.runId} ${summary.status}: ${countOf(c.read, 'row')} read in ${(summary.elapsedMs / 1000).toFixed(1)} s (${Math.round(c.read / (summary.elapsedMs / 1000))} rows/s)`,
             ...Object.entries(c)
               .filter(([k]) => k !== 'read')
-              .map(([k, v]) => `  ${k.padEnd(18)} ${String(v).padStart(9)}`),
-            `  ${'= read'.padEnd(18)} ${String(c.read).padStart(9)}`,
+              .map(([k, v]) => `  ${outcomeWords(k).padEnd(20)} ${v.toLocaleString('en-US').padStart(9)}`),
+            `  ${'= read'.padEnd(20)} ${c.read.toLocaleString('en-US').padStart(9)}`,
             summary.rejectsFile ? `rejected rows (line, reason, row): ${summary.rejectsFile}` : 'no rows rejected',
           ];
           if (summary.status === 'interrupted') lines.push('interrupted: run the same command again to resume (rows already stored are not stored twice)');

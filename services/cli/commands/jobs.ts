@@ -10,6 +10,7 @@ import type { JobQueue } from '../../../db/job-queue.ts';
 import { CliError } from '../cli-error.ts';
 import { countOf } from '../count-words.ts';
 import { DB_OPTION_HELP } from './serve.ts';
+import { OUTCOME_WORDS } from '../outcome-words.ts';
 
 interface ShowOptions {
   db?: string;
@@ -82,15 +83,7 @@ export async function submitAndFollow(
 
 /** What each count of a job's result means, in words (ingest outcomes and the sweep's tallies). */
 const RESULT_WORDS: Record<string, string> = {
-  linked: 'linked',
-  review: 'in review',
-  new: 'new counterparty',
-  own_entity: 'own entity',
-  not_a_party: 'not a party',
-  unbound_term: 'unbound defined term',
-  collective_term: 'collective term',
-  already_ingested: 'already ingested',
-  rejected: 'rejected',
+  ...OUTCOME_WORDS,
   scanned: 'counterparties scanned',
   duplicateItems: 'duplicate review items filed',
   affiliateItems: 'affiliate review items filed',

@@ -29,7 +29,7 @@ export default function register(program: Command): void {
       const target = resolveTarget(options.db);
       if (!isPostgresUrl(target)) {
         throw new CliError(
-          'cpreg worker needs PostgreSQL (--db postgres://… or DATABASE_URL): the embedded database runs its jobs inside `cpreg serve` or the command that submits them',
+          `the worker needs PostgreSQL (--db postgres://… or DATABASE_URL), and ${target} is an embedded database: its jobs run inside \`cpreg serve\` or the command that submits them`,
         );
       }
       const { openCommandDatabase } = await import('../open-command-database.ts');

@@ -48,6 +48,41 @@ describeEachBackend('POST /v1/mentions/batch, item by item', (ctx) => {
     expect(await stored('pb')).toEqual(['p-1', 'p-6']);
   });
 
+  it('numbers an item the register refuses, and a repeated id, by its place in the request, with its ids and a JSON pointer', async () => {
+    // An LEI has 20 characters (ISO 17442): "123" cannot be one, and the register refuses it, not the schema.
+    // Before, a schema refusal ahead of it shifted the register's count: this item answered index 1, no ids,
+    // the register's own code (INVALID_INPUT) and the field without its leading slash.
+    const items = [
+      { source: 'pr', externalId: 'r-1', text: 'Gorsemoor Fittings Ltd', country: 'GB' },
+      { source: 'pr', externalId: 'r-2', text: '' },
+      { source: 'pr', externalId: 'r-3', text: 'Hexlow Dyes GmbH', identifiers: [{ scheme: 'lei', value: '123' }] },
+      { source: 'pr', externalId: 'r-1', text: 'Gorsemoor Fittings Limited', country: 'GB' },
+    ];
+    const res = await k.call('write', { method: 'POST', url: '/v1/mentions/batch', payload: items });
+    expect(res.statusCode, res.body).toBe(200);
+    const out = res.json() as {
+      items: Array<{ index: number; status: string; source?: string; externalId?: string; error?: { code: string; field: string; message: string } }>;
+    };
+    expect(out.items.map((i) => i.index)).toEqual([0, 1, 2, 3]);
+    expect(out.items[0]!.status).not.toBe('rejected');
+    expect(out.items[2]).toMatchObject({
+      index: 2,
+      status: 'rejected',
+      source: 'pr',
+      externalId: 'r-3',
+      error: { code: 'VALIDATION_FAILED', field: '/identifiers/0' },
+    });
+    expect(out.items[2]!.error!.message).toMatch(/^item 2: identifiers\/0: LEI "123"/);
+    expect(out.items[3]).toMatchObject({
+      index: 3,
+      status: 'rejected',
+      externalId: 'r-1',
+      error: { code: 'VALIDATION_FAILED', field: '/externalId', rule: 'unique' },
+    });
+    expect(out.items[3]!.error!.message).toContain('(items 0 and 3)');
+    expect(await stored('pr')).toEqual(['r-1']);
+  });
+
   it('still refuses a body that is not an array as a whole', async () => {
     const res = await k.call('write', { method: 'POST', url: '/v1/mentions/batch', payload: { source: 'pb', externalId: 'x', text: 'Quenby Tools Ltd' } });
     expect(res.statusCode).toBe(422);

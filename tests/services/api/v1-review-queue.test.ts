@@ -86,6 +86,15 @@ describeEachBackend('/v1/review-items order and group decisions', (ctx) => {
     expect((await k.call('read', { method: 'GET', url: '/v1/review-items?createdAfter=2000-01-01T00:00:00Z' })).json().items).toHaveLength(3);
     expect((await k.call('read', { method: 'GET', url: '/v1/review-items?status=decided' })).json().items).toEqual([]);
     expect((await k.call('read', { method: 'GET', url: '/v1/review-items?createdBefore=yesterday' })).statusCode).toBe(422);
+    // A plain calendar date (ISO 8601) is what a person types first; it used to be refused ("must match format
+    // date-time"). It is read as midnight UTC; a day that does not exist is refused naming the parameter.
+    expect((await k.call('read', { method: 'GET', url: '/v1/review-items?createdBefore=2000-01-01' })).json().items).toEqual([]);
+    expect((await k.call('read', { method: 'GET', url: '/v1/review-items?createdAfter=2000-01-01&kind=mention_link' })).json().items).toHaveLength(3);
+    expect((await k.call('read', { method: 'GET', url: '/v1/review-items?createdAfter=2000-01-01T09:30:00%2B02:00' })).json().items).toHaveLength(3);
+    const noSuchDay = await k.call('read', { method: 'GET', url: '/v1/review-items?createdAfter=2026-02-30' });
+    expect(noSuchDay.statusCode).toBe(422);
+    expect(noSuchDay.json()).toMatchObject({ code: 'VALIDATION_FAILED', errors: [{ pointer: '/createdAfter', in: 'query' }] });
+    expect(noSuchDay.json().detail).toContain('"2026-02-30" is not a date');
   });
 
   it('settles every item of the group with scope "group", and one item alone by default ("not a party" here)', async () => {

@@ -69,4 +69,14 @@ describe('cpreg analyse', () => {
     expect(result.stderr).toContain("unknown option '--contry'");
     for (const flag of ['--country', '--json', '--help']) expect(result.stderr).toContain(flag);
   });
+
+  it('says the party status in words on the terminal (it printed the key needs_binding); --json keeps the key', async () => {
+    // "the Supplier" is a role word that names a party only through a contract's definitions (docs/analyse.md, party filter).
+    const text = await analyse('the Supplier');
+    expect(text.code).toBe(0);
+    expect(text.stdout).toMatch(/^party: +needs binding: a role, term or pronoun .* \(a role or collective word\); kind unknown$/m);
+    expect(text.stdout).not.toMatch(/\b[a-z]+_[a-z_]+\b/);
+    const json = JSON.parse((await analyse('the Supplier', '--json')).stdout) as { partyStatus: string; partyReason: string };
+    expect(json).toMatchObject({ partyStatus: 'needs_binding', partyReason: 'role_word' });
+  });
 });

@@ -29,4 +29,11 @@ describe('cpreg contract parse headings', () => {
     const dpa = await runCli(['contract', 'parse', join(dir, 'dpa.txt')]);
     expect(dpa.stdout).toContain('Roles not bound to a party: Sub-processor');
   });
+
+  it('says how a --mention ended in words (it printed the key unbound_term)', async () => {
+    // The passage defines no "Supplier": the mention is a term this contract does not bind.
+    const msa = await runCli(['contract', 'parse', join(dir, 'msa.txt'), '--mention', 'the Supplier']);
+    expect(msa.code).toBe(0);
+    expect(msa.stdout).toMatch(/^Mention "the Supplier": unbound defined term$/m);
+  });
 });

@@ -62,6 +62,10 @@ describe('cpreg ingest --as-job, jobs show, sweep --as-job, worker', () => {
   it('worker needs PostgreSQL and says so', async () => {
     const run = await runCli(['worker', '--db', join(dir, 'db-worker')]);
     expect(run.code).toBe(1);
-    expect(run.stderr).toContain('cpreg worker needs PostgreSQL');
+    // One "cpreg:" prefix (it read "cpreg: cpreg worker needs …"), and the database it was given named.
+    expect(run.stderr).toContain(
+      `cpreg: the worker needs PostgreSQL (--db postgres://… or DATABASE_URL), and ${join(dir, 'db-worker')} is an embedded database`,
+    );
+    expect(run.stderr).not.toContain('cpreg: cpreg');
   });
 });

@@ -31,6 +31,15 @@ describe('cpreg serve on an embedded directory', () => {
     expect((await missing.json()).code).toBe('ROUTE_NOT_FOUND');
   });
 
+  it('says how to get the first API key when the database has none (keys create is refused while it serves)', async () => {
+    // The line follows the serving line: wait for it a little.
+    const hint =
+      /cpreg: no API key yet, and every \/v1 route needs one: stop the service \(Ctrl-C\), run cpreg keys create --scope admin --label "<role>" --db (\S+), and start it again/;
+    for (let i = 0; i < 50 && !hint.test(server!.output()); i++) await new Promise((done) => setTimeout(done, 100));
+    expect(server!.output()).toMatch(hint);
+    expect(hint.exec(server!.output())![1]).toBe(dir);
+  });
+
   it('refuses a second process on the same directory at once, naming the holder', async () => {
     const second = await runCli(['serve', '--db', dir, '--port', '0'], { timeoutMs: 30_000 });
     expect(second.code).not.toBe(0);

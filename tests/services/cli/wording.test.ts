@@ -78,6 +78,10 @@ describe('cpreg commands print words', () => {
     expect(one.code, one.stderr).toBe(0);
     expect(one.stderr).not.toMatch(WRONG_NUMBER);
     expect(one.stderr).toMatch(/ingest: 1 row\b/);
+    // The summary says each outcome in words ("own entity", "new counterparty"), never its key (own_entity).
+    expect(one.stdout).toMatch(/^ {2}new counterparty +1$/m);
+    expect(one.stdout).toMatch(/^ {2}own entity +0$/m);
+    expect(one.stdout).not.toMatch(SNAKE_CASE);
     const rest = await runCli(['ingest', join(dir, 'rest.ndjson'), '--source', 'words', '--db', db], { timeoutMs: 120_000 });
     expect(rest.code, rest.stderr).toBe(0);
     const reconcile = await runCli(['reconcile', join(dir, 'vendors.csv'), '--db', db], { timeoutMs: 120_000 });

@@ -12,6 +12,7 @@ import { parse } from 'csv-parse/sync';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { runCli } from '../../support/cli.ts';
 import { createMigratedDataDir, createPostgresCopy, dropPostgresCopy, describeBackends, makeTempDir, removeTempDir } from '../../support/database.ts';
+import { OUTCOME_WORDS } from '../../../services/cli/outcome-words.ts';
 
 interface Summary {
   status: string;
@@ -113,8 +114,10 @@ describeBackends(`cpreg ingest: a row with text the database cannot store is rej
     expect(readFileSync(file).includes(0)).toBe(true);
     const run = await ingest(file, 'nul-csv', false);
     // The printed table: one line per outcome, then "= read"; the outcomes add up to the rows read.
-    const outcomes = [...run.stdout.matchAll(/^ {2}([a-z_]+) +(\d+)$/gm)].map((m) => [m[1]!, Number(m[2])] as const);
-    const counts = Object.fromEntries(outcomes);
+    const outcomes = [...run.stdout.matchAll(/^ {2}([a-z]+(?: [a-z]+)*) +(\d+)$/gm)].map((m) => [m[1]!, Number(m[2])] as const);
+    // The table says the outcomes in words ("in review"); read back as the keys of the JSON summary.
+    const keyOf = Object.fromEntries(Object.entries(OUTCOME_WORDS).map(([key, words]) => [words, key]));
+    const counts = Object.fromEntries(outcomes.map(([words, n]) => [keyOf[words] ?? words, n]));
     const read = Number(/^ {2}= read +(\d+)$/m.exec(run.stdout)?.[1]);
     expect(run.stdout).toMatch(/finished: 5 rows read/);
     expect(read).toBe(5);

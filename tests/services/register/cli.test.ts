@@ -1,6 +1,8 @@
 /** The register's CLI commands on an embedded database: own-entities, sweep and reresolve, with --json. */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { userInfo } from 'node:os';
+import { rmSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { createMigratedDataDir, removeTempDir } from '../../support/index.ts';
 import { runCli } from '../../support/cli.ts';
 import { openDatabase } from '../../../db/open-database.ts';
@@ -45,6 +47,21 @@ describe('cpreg own-entities, sweep, reresolve', { timeout: 240_000 }, () => {
     const again = await runCli(['reresolve', '--db', dir, '--json']);
     expect(again.code).toBe(0);
     expect(JSON.parse(again.stdout)).toMatchObject({ examined: 0, changed: 0, failed: 0 });
+    // A register where nothing changed is reported unchanged: a mention that made its counterparty ("new") and
+    // finds that same counterparty again is not a change (it was counted as one, new -> linked, with an event each).
+    const names = join(dir, '..', `reresolve-${process.pid}.csv`);
+    writeFileSync(names, 'id,name,country\nr-1,Cobbleford Valve Ltd,GB\nr-2,Tarnhollow Seed Merchants Ltd,GB\n');
+    try {
+      const ingested = await runCli(['ingest', names, '--source', 'rr', '--db', dir, '--json']);
+      expect(ingested.code, ingested.stderr).toBe(0);
+      expect(JSON.parse(ingested.stdout)).toMatchObject({ counts: { new: 2 } });
+      const unchanged = await runCli(['reresolve', '--db', dir, '--json']);
+      expect(unchanged.code).toBe(0);
+      expect(JSON.parse(unchanged.stdout)).toMatchObject({ examined: 2, changed: 0, unchanged: 2, failed: 0 });
+    } finally {
+      rmSync(names, { force: true });
+      rmSync(`${names}.rejects.csv`, { force: true });
+    }
     const bad = await runCli(['sweep', '--block-size', 'lots', '--db', dir]);
     expect(bad.code).not.toBe(0);
     expect(bad.stderr).toContain('--block-size');

@@ -6,11 +6,12 @@ import type { FastifyError, FastifyInstance } from 'fastify';
 import { resolveMention } from '../../../register/resolve/resolve-mention.ts';
 import { resolveBatch } from '../../../register/batch.ts';
 import { RegisterError } from '../../../register/errors.ts';
+import { refusedItem, registerRefusal } from './batch-refusals.ts';
 import { MAX_ID_LENGTH, type MentionInput } from '../../../../resolvers/vocabulary.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import type { RoutePlugin } from '../../types.ts';
 import { bodyText } from '../../body/strict-json.ts';
-import { bodyValidator, compileBodySchema, type RuleError } from '../../validation.ts';
+import { bodyValidator, compileBodySchema } from '../../validation.ts';
 import { COUNTRY, IDENTIFIER, NAME, SOURCE_ID } from './schemas.ts';
 import { actorOf } from './actor-of.ts';
 import { registerContextOf } from './register-context-of.ts';
@@ -115,26 +116,6 @@ const BATCH_ITEM_OUT = {
 } as const;
 
 const checkMention = bodyValidator(MENTION_IN);
-
-/** An item that breaks the mention schema, answered in its place with its own problem; the rest of the batch goes on. */
-function refusedItem(index: number, item: unknown, errors: RuleError[]) {
-  const first = errors[0]!;
-  const object = typeof item === 'object' && item !== null && !Array.isArray(item) ? (item as Record<string, unknown>) : {};
-  const text = (key: string): string | undefined => (typeof object[key] === 'string' ? (object[key] as string) : undefined);
-  return {
-    index,
-    ...(text('source') !== undefined ? { source: text('source') } : {}),
-    ...(text('externalId') !== undefined ? { externalId: text('externalId') } : {}),
-    status: 'rejected' as const,
-    error: {
-      code: 'VALIDATION_FAILED',
-      message: `item ${index}: ${errors.map((e) => `${e.pointer || '(the item)'} ${e.message}`).join('; ')}`,
-      field: first.pointer,
-      rule: first.rule,
-      errors,
-    },
-  };
-}
 
 /** The batch body's own check: an array (of anything; the items are checked one by one). */
 const checkArray = compileBodySchema({ type: 'array' });
@@ -246,10 +227,24 @@ export const mentionRoutes: RoutePlugin = (app, deps) => {
       const body = request.body as unknown[];
       const taken: { index: number; mention: MentionInput }[] = [];
       const answers: Array<Record<string, unknown> & { index: number; status: string; alreadyIngested?: boolean }> = new Array(body.length);
+      const seen = new Map<string, number>();
       body.forEach((item, index) => {
         const errors = checkMention(item);
-        if (errors.length === 0) taken.push({ index, mention: item as MentionInput });
-        else answers[index] = refusedItem(index, item, errors);
+        if (errors.length > 0) {
+          answers[index] = refusedItem(index, item, errors);
+          return;
+        }
+        const mention = item as MentionInput;
+        // A repeat is named here, by the places in the request: the register only sees the items taken.
+        const key = JSON.stringify([mention.source, mention.externalId]);
+        const first = seen.get(key);
+        if (first !== undefined) {
+          const message = `the batch holds (source, externalId) ${mention.source}/${mention.externalId} twice (items ${first} and ${index}): send each once`;
+          answers[index] = refusedItem(index, item, [{ pointer: '/externalId', message, rule: 'unique' }], message);
+          return;
+        }
+        seen.set(key, index);
+        taken.push({ index, mention });
       });
       const results =
         taken.length === 0
@@ -259,7 +254,10 @@ export const mentionRoutes: RoutePlugin = (app, deps) => {
               taken.map((t) => t.mention),
               actorOf(request),
             );
-      results.forEach((r, i) => (answers[taken[i]!.index] = { index: taken[i]!.index, ...r }));
+      results.forEach((r, i) => {
+        const { index, mention } = taken[i]!;
+        answers[index] = 'error' in r ? registerRefusal(index, mention, r.error) : { index, ...r };
+      });
       const counts: Record<string, number> = {};
       for (const a of answers) {
         const key = a.status === 'rejected' ? 'rejected' : a.alreadyIngested ? 'already_ingested' : a.status;

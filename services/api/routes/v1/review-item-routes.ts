@@ -7,6 +7,7 @@ import { ID, ID_PARAM, MENTION_OUT, PAGE_QUERY, REASON, pagedOf } from './schema
 import { actorOf } from './actor-of.ts';
 import { decodeCursor, encodeCursor, page } from './cursors.ts';
 import { withLegalForm } from './legal-form.ts';
+import { INSTANT_QUERY, instantOf } from './instant-query.ts';
 import type { FastifyInstance } from 'fastify';
 import type { RegisterContext } from '../../../register/context.ts';
 import type { AppDeps } from '../../types.ts';
@@ -113,8 +114,8 @@ export function reviewItemRoutes(app: FastifyInstance, deps: AppDeps, ctx: Regis
             kind: { type: 'string', enum: ['mention_link', 'duplicate', 'affiliate'] },
             mentionId: { ...ID, description: 'items about this mention' },
             counterpartyId: { ...ID, description: 'items with this counterparty on either side' },
-            createdBefore: { type: 'string', format: 'date-time', description: 'items raised before this instant (ISO 8601)' },
-            createdAfter: { type: 'string', format: 'date-time', description: 'items raised at or after this instant (ISO 8601)' },
+            createdBefore: { ...INSTANT_QUERY, description: `items raised before this instant: ${INSTANT_QUERY.description}` },
+            createdAfter: { ...INSTANT_QUERY, description: `items raised at or after this instant: ${INSTANT_QUERY.description}` },
           },
         },
         response: {
@@ -123,7 +124,8 @@ export function reviewItemRoutes(app: FastifyInstance, deps: AppDeps, ctx: Regis
       },
     },
     async (request) => {
-      const { limit, order, cursor: _cursor, status, ...narrow } = request.query;
+      const { limit, order, cursor: _cursor, status, createdBefore, createdAfter, ...ids } = request.query;
+      const narrow = { ...ids, createdBefore: instantOf('createdBefore', createdBefore), createdAfter: instantOf('createdAfter', createdAfter) };
       const filter = { ...narrow, status };
       const start = decodeCursor(request.query.cursor);
       const open = await countOpenReviewItems(db);

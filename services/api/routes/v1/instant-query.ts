@@ -1,0 +1,30 @@
+/**
+ * A point in time given in a query string (review items' createdBefore / createdAfter): an RFC 3339 date-time
+ * with its offset, or a plain ISO 8601 calendar date, read as midnight UTC of that day. A date alone is what
+ * people type first ("items older than 2026-01-31"), and a format check that took only date-times refused it.
+ */
+import { ApiError } from '../../errors.ts';
+
+const DATE = /^\d{4}-\d{2}-\d{2}$/;
+const DATE_TIME = /^\d{4}-\d{2}-\d{2}t\d{2}:\d{2}:\d{2}(?:\.\d{1,9})?(?:z|[+-]\d{2}:\d{2})$/i;
+
+export const INSTANT_QUERY = {
+  type: 'string',
+  maxLength: 40,
+  description: 'an RFC 3339 date-time with its offset (2026-01-31T09:30:00Z) or a date (2026-01-31: midnight UTC)',
+  example: '2026-01-31',
+} as const;
+
+/** The instant as a date-time string the queries take, or a 422 naming the parameter and both accepted forms. */
+export function instantOf(name: string, value: string | undefined): string | undefined {
+  if (value === undefined) return undefined;
+  const day = value.slice(0, 10);
+  const time = DATE.test(value) ? Date.parse(`${value}T00:00:00Z`) : DATE_TIME.test(value) ? Date.parse(value) : NaN;
+  // Date.parse rolls 2026-02-30 over to March: a day that does not exist is refused, not moved.
+  const realDay = !Number.isNaN(Date.parse(`${day}T00:00:00Z`)) && new Date(`${day}T00:00:00Z`).toISOString().slice(0, 10) === day;
+  if (Number.isNaN(time) || !realDay) {
+    const message = `"${value}" is not a date (2026-01-31, read as midnight UTC) or an RFC 3339 date-time with its offset (2026-01-31T09:30:00Z)`;
+    throw new ApiError('VALIDATION_FAILED', `the query parameter ${name}: ${message}`, { errors: [{ pointer: `/${name}`, message, in: 'query' }] });
+  }
+  return new Date(time).toISOString();
+}
