@@ -26,6 +26,9 @@ const PHRASES = [
   ' not a signatory',
   ' not being a party',
   ' non-party',
+  // Translated drafting ("Vertragspartei", "partie contractante"): common practice.
+  ' not a contracting party',
+  ' not a contractual party',
 ];
 /** Words between the name and the phrase: "X, which is", "X shall", "X, a". */
 const VERBS = new Set(['is', 'are', 'shall', 'will', 'does', 'do', 'which', 'who', 'that', 'being', 'also', 'itself', 'a']);
@@ -62,7 +65,8 @@ function termsIn(group: string): string[] {
 function subjectEnd(text: string, at: number): number {
   let end = at;
   for (let guard = 0; guard < 6; guard++) {
-    while (end > 0 && (isSpace(text[end - 1]) || text[end - 1] === ',')) end--;
+    // "X (which is not a party …)": the parenthesis that opens the phrase is no part of the name.
+    while (end > 0 && (isSpace(text[end - 1]) || text[end - 1] === ',' || text[end - 1] === '(')) end--;
     let w = end;
     while (w > 0 && /\p{L}/u.test(text[w - 1] as string)) w--;
     if (w === end || !VERBS.has(text.slice(w, end).toLowerCase())) return end;
