@@ -110,6 +110,32 @@ function endsSentence(word: string): boolean {
   return tail === tail.toLowerCase() && tail !== tail.toUpperCase();
 }
 
+/** How far back a term's definition is looked for, and how far its parenthesis may open before the quote. */
+const DEFINITION_WINDOW = 2000;
+const PAREN_GAP = 12;
+
+/**
+ * "Alderwick Marine Group plc (the "Parent") … The Parent, which is not a party to this Agreement": the term names
+ * the entity its definition follows, so that entity is the one mentioned (common practice in UK drafting).
+ */
+function definedEarlier(text: string, name: string, before: number): Exclusion | null {
+  const term = /^the\s+(.+)$/iu.exec(name)?.[1];
+  if (term === undefined) return null;
+  const from = Math.max(0, before - DEFINITION_WINDOW);
+  const window = text.slice(from, before);
+  for (const q of ['"', '“']) {
+    const k = window.lastIndexOf(`${q}${term}`);
+    if (k < 0) continue;
+    const open = window.lastIndexOf('(', k);
+    if (open < 0 || k - open > PAREN_GAP || !'"”'.includes(window[k + 1 + term.length] ?? '')) continue;
+    let end = from + open;
+    while (end > 0 && isSpace(text[end - 1])) end--;
+    const span = nameBefore(text, end);
+    if (span !== null) return { name: text.slice(span.start, span.end), start: span.start, terms: [term] };
+  }
+  return null;
+}
+
 function phraseStarts(lower: string): number[] {
   const at: number[] = [];
   for (const p of PHRASES) {
@@ -138,7 +164,8 @@ export function findExclusions(text: string): Exclusion[] {
     while (end > 0 && (isSpace(text[end - 1]) || text[end - 1] === ',')) end--;
     const span = nameBefore(text, end);
     if (span === null) continue;
-    out.push({ name: text.slice(span.start, span.end), start: span.start, terms });
+    const name = text.slice(span.start, span.end);
+    out.push(terms.length === 0 ? (definedEarlier(text, name, span.start) ?? { name, start: span.start, terms }) : { name, start: span.start, terms });
   }
   return out;
 }

@@ -333,6 +333,17 @@ Name of director/company secretary (print)`,
     ],
     mentioned: ['Ostrava Leasing a.s.', 'Hartwig Sicherheitstechnik GmbH'],
   },
+  {
+    id: 'uk-exclusion-defined-parent-not-party',
+    style: 'UK: a parent defined with a term in the parties clause, then "the Parent is not a party to this Agreement"',
+    text: `THIS AGREEMENT is made on 7 July 2025 BETWEEN Saltmarsh Boatbuilders Limited (company number 04567891) ("Saltmarsh") and Pyecombe Rigging Ltd (company number 11987654) ("Pyecombe"). Saltmarsh is a subsidiary of Alderwick Marine Group plc (the "Parent"). The Parent, which is not a party to this Agreement, shall have no liability under it.`,
+    parties: [
+      { name: 'Saltmarsh Boatbuilders Limited', terms: ['Saltmarsh'], role: null },
+      { name: 'Pyecombe Rigging Ltd', terms: ['Pyecombe'], role: null },
+    ],
+    notParties: ['Parent'],
+    mentioned: ['Alderwick Marine Group plc'],
+  },
   // Item 7: people.
   {
     id: 'us-person-plain-individual-by-and-between',
