@@ -119,8 +119,9 @@ const PAREN_GAP = 12;
  * the entity its definition follows, so that entity is the one mentioned (common practice in UK drafting).
  */
 function definedEarlier(text: string, name: string, before: number): Exclusion | null {
-  const term = /^the\s+(.+)$/iu.exec(name)?.[1];
-  if (term === undefined) return null;
+  if (!name.toLowerCase().startsWith('the ')) return null;
+  const term = name.slice(4).trim();
+  if (term.length === 0) return null;
   const from = Math.max(0, before - DEFINITION_WINDOW);
   const window = text.slice(from, before);
   for (const q of ['"', '“']) {
