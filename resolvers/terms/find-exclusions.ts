@@ -69,10 +69,21 @@ function subjectEnd(text: string, at: number): number {
     while (end > 0 && (isSpace(text[end - 1]) || text[end - 1] === ',' || text[end - 1] === '(')) end--;
     let w = end;
     while (w > 0 && /\p{L}/u.test(text[w - 1] as string)) w--;
-    if (w === end || !VERBS.has(text.slice(w, end).toLowerCase())) return end;
+    if (w === end || !VERBS.has(text.slice(w, end).toLowerCase())) return asCapacity(text, end);
     end = w;
   }
   return end;
+}
+
+/** "X, as escrow agent, which is not a party": a lower-case capacity after "as" stands between name and phrase. */
+const MAX_CAPACITY = 40;
+
+function asCapacity(text: string, end: number): number {
+  const from = Math.max(0, end - MAX_CAPACITY);
+  const k = text.lastIndexOf(', as ', end);
+  if (k < from) return end;
+  const words = text.slice(k + 5, end).trim();
+  return words.length > 0 && /^[\p{Ll} -]+$/u.test(words) ? k : end;
 }
 
 /** The capitalised run ending at `end`, walking back at most MAX_WORDS words and never past a line or sentence. */

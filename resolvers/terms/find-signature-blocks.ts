@@ -90,6 +90,8 @@ function entityFrom(text: string, line: Line): SignatureEntity | null {
   if (colon >= 0 && colon < line.end && !execution) {
     const before = text.slice(from, colon).trim();
     if (before.split(/\s+/u).length <= 3 && text.slice(colon + 1, line.end).trim().length > 0) {
+      // "By: Tessaly Holdings GmbH, its general partner": a company signing for the party above, never a party.
+      if (before.toLowerCase() === 'by') return null;
       label = before;
       from = colon + 1;
     } else if (text.slice(colon + 1, line.end).trim().length === 0) {
@@ -213,6 +215,9 @@ function readsAsCompany(name: string): boolean {
 function nameAndTitle(value: string, title?: string): { name?: string; title?: string } {
   if (value.length === 0) return title === undefined ? {} : { title };
   const read = readPersonName(value, 0, value.length);
+  // A company that signs for the party (its general partner, its manager) is no person signing.
+  const comma = value.indexOf(',');
+  if (read === null && readsAsCompany(comma > 0 ? value.slice(0, comma) : value)) return title === undefined ? {} : { title };
   if (read === null) return title === undefined ? { name: value } : { name: value, title };
   const after = titleAfter(value, read.end, value.length) ?? title;
   return after === undefined ? { name: read.name } : { name: read.name, title: after };

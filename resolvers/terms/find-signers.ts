@@ -58,6 +58,8 @@ const E_SIGNED_CUE = /^(?:electronically|digitally) signed by |^signed electroni
 const LABELS: ReadonlyArray<readonly [string, Capacity]> = [
   ['witness', 'witness'],
   ['witness name', 'witness'],
+  ['witness signature', 'witness'],
+  ['signature of witness', 'witness'],
   ["witness's name", 'witness'],
   ['name of witness', 'witness'],
   ['print name of witness', 'witness'],

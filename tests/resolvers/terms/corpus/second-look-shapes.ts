@@ -311,6 +311,44 @@ Name of director/company secretary (print)`,
       { name: 'Bronte Ferrier', capacity: 'signatory' },
     ],
   },
+  {
+    id: 'us-signers-corporate-general-partner',
+    style: 'US: a limited partnership signing "By: X GmbH, its general partner" over "By:/Name:/Title:"; "Y, as escrow agent, which is not a party hereto"',
+    text: `This Agreement is made as of May 6, 2025 between Quillfarrow Textiles Inc., a Delaware corporation ("Quillfarrow"), and Marchetti Orchard Partners, L.P., a Delaware limited partnership ("Marchetti").
+
+Acknowledged by Harwood Escrow Services LLC, as escrow agent, which is not a party hereto.
+
+MARCHETTI ORCHARD PARTNERS, L.P.
+By: Tessaly Holdings GmbH, its general partner
+By: ______________________
+Name: Ruben Okonjo
+Title: Authorized Signatory`,
+    parties: [
+      { name: 'Quillfarrow Textiles Inc.', terms: ['Quillfarrow'], role: null, jurisdiction: 'US-DE' },
+      { name: 'Marchetti Orchard Partners, L.P.', terms: ['Marchetti'], role: null, jurisdiction: 'US-DE' },
+    ],
+    notParties: ['Ruben Okonjo'],
+    signers: [{ name: 'Ruben Okonjo', title: 'Authorized Signatory', capacity: 'signatory' }],
+    mentioned: ['Harwood Escrow Services LLC'],
+  },
+  {
+    id: 'uk-signers-attorney-witness-signature',
+    style: 'UK: "SIGNED by X as attorney for Y under a power of attorney … in the presence of:", "Witness signature:", "Name:"',
+    text: `THIS AGREEMENT is made on 9 May 2025 BETWEEN Pendleford Looms Limited (company number 06677889) ("Pendleford") and Bracewell Dyeworks Ltd (company number 07788990) ("Bracewell").
+
+SIGNED by ALISTAIR PENROSE as attorney for PENDLEFORD LOOMS LIMITED under a power of attorney dated 1 May 2025 in the presence of:
+Witness signature: ______________________
+Name: Dorothea Wilks`,
+    parties: [
+      { name: 'Pendleford Looms Limited', terms: ['Pendleford'], role: null },
+      { name: 'Bracewell Dyeworks Ltd', terms: ['Bracewell'], role: null },
+    ],
+    notParties: ['ALISTAIR PENROSE', 'Dorothea Wilks'],
+    signers: [
+      { name: 'ALISTAIR PENROSE', capacity: 'signatory' },
+      { name: 'Dorothea Wilks', capacity: 'witness' },
+    ],
+  },
   // Item 5: express exclusions.
   {
     id: 'us-exclusion-third-party-beneficiary',
