@@ -142,6 +142,9 @@ export const DOCUMENT_TERMS: ReadonlySet<string> = new Set([
   'charges',
   'invoice',
   'invoices',
+  // Abbreviations of document titles drafters define ("the "MSA"", "this "NDA""): common practice.
+  'msa',
+  'nda',
 ]);
 
 /**
@@ -178,7 +181,7 @@ export const DOCUMENT_PART_HEADS: ReadonlySet<string> = new Set([
   'clausula',
 ]);
 
-/** Nouns that end a document's title: "the Master Services Agreement", "this Deed of Variation". */
+/** Nouns that end a document's title: "the Master Services Agreement", "the Side Letter". */
 export const DOCUMENT_NOUNS: ReadonlySet<string> = new Set([
   'agreement',
   'agreements',
@@ -200,3 +203,9 @@ export const DOCUMENT_NOUNS: ReadonlySet<string> = new Set([
   'conditions',
   'policy',
 ]);
+
+/**
+ * Nouns that open a document's title before "of": "this Deed of Variation", "the Letter of Intent", "the
+ * Memorandum of Understanding" (common practice). Not "order": "the Order of St Anselm" is a body.
+ */
+export const DOCUMENT_OF_HEADS: ReadonlySet<string> = new Set(['deed', 'letter', 'letters', 'memorandum', 'instrument', 'deeds']);

@@ -3,7 +3,7 @@
  * "the Effective Date", "Schedule 2", "Annex B-1", "the Master Services Agreement", "Amendment No. 3".
  * Word lists: document-terms.ts (common practice in contract drafting).
  */
-import { DOCUMENT_NOUNS, DOCUMENT_PART_HEADS, DOCUMENT_TERMS } from './document-terms.ts';
+import { DOCUMENT_NOUNS, DOCUMENT_OF_HEADS, DOCUMENT_PART_HEADS, DOCUMENT_TERMS } from './document-terms.ts';
 import { normaliseTokens } from './normalise-name.ts';
 
 let normalisedTerms: ReadonlySet<string> | null = null;
@@ -79,5 +79,7 @@ export function isDocumentReference(tokens: readonly string[]): boolean {
   // A title is short: "The Centre for Health Policy" is an organisation, "the Privacy Policy" a document.
   if (rest.length > MAX_TITLE_WORDS) return false;
   if (TITLE_NOUNS.has(last)) return true;
+  // "this Deed of Variation", "the Letter of Intent": the noun comes first (short titles only, as above).
+  if (rest.length >= 3 && rest[1] === 'of' && DOCUMENT_OF_HEADS.has(rest[0] as string)) return true;
   return opened && DOCUMENT_NOUNS.has(last);
 }

@@ -55,6 +55,8 @@ export const FAMILY_ALIASES: Readonly<Record<string, string>> = {
   godokaisha: 'gk',
   lda: 'lda',
   limitada: 'lda',
+  // ES "Sociedad Limitada" (legal-form-supplement.ts) joins the first abbreviation of its row DP3Q, "S.L.".
+  sociedadlimitada: 'sl',
   // Russian abbreviations and their transliterations share a family (see legal-form-supplement.ts).
   ооо: 'ooo',
   ао: 'ao',

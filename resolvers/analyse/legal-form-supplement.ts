@@ -15,6 +15,10 @@
  *   (Andalusian) for SS0L (Cooperativa de Crédito), and "S.A.U." (sociedad anónima unipersonal) for the ES S.A. row:
  *   v1.5 has no abbreviation for these; as supervisors' lists write them (common practice).
  * - IE "DAC" (designated activity company, LGWG): v1.5 writes it "DAC – (limited by shares)" only.
+ * - ES "Sociedad Limitada" (DP3Q, Sociedad de Responsabilidad Limitada): v1.5 itself writes the variants of DP3Q
+ *   that way ("Sociedad Limitada Laboral (o Sociedad de Responsabilidad Limitada laboral)" 1G29, "Sociedad Limitada
+ *   Profesional" JB2M, "Sociedad Limitada Unipersonal" R6UT) but gives DP3Q only its long name; that the Spanish
+ *   companies act allows "Sociedad Limitada" as the company's form is from memory (Ley de Sociedades de Capital, art. 6).
  */
 export interface SupplementForm {
   text: string;
@@ -57,4 +61,5 @@ export const SUPPLEMENT_FORMS: readonly SupplementForm[] = [
   { text: 'S.C.A.C.', code: 'SS0L', kind: 'a' },
   { text: 'S.A.U.', code: '5RDO', kind: 'a' },
   { text: 'DAC', code: 'LGWG', kind: 'a' },
+  { text: 'Sociedad Limitada', code: 'DP3Q', kind: 'n' },
 ];

@@ -36,9 +36,15 @@ export const ORGANISATION_WORDS: ReadonlySet<string> = new Set(
   ).split(' '),
 );
 
+/**
+ * Words of local-government areas: "Travis County", "Orleans Parish", "Lincoln Township" open with a given name
+ * and are a place or its authority, never a person (US and UK administrative terms, common practice).
+ */
+const AREA_WORDS: ReadonlySet<string> = new Set(['county', 'parish', 'borough', 'township', 'canton', 'province', 'municipality', 'district']);
+
 /** `words` are the name's words as written (not folded); `tokens` their normalised forms. */
 export function looksLikePersonName(words: readonly string[], tokens: readonly string[]): boolean {
-  if (tokens.some((t) => ORGANISATION_WORDS.has(t))) return false;
+  if (tokens.some((t) => ORGANISATION_WORDS.has(t) || AREA_WORDS.has(t))) return false;
   let i = 0;
   let evidence = false;
   if (i < tokens.length && HONORIFICS.has(tokens[i] as string)) {

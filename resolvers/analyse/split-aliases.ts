@@ -23,7 +23,14 @@ const MARKERS: readonly Marker[] = [
   { words: ['t', 'a'], kind: 'trade', compact: true },
   { words: ['trading', 'as'], kind: 'trade' },
   { words: ['o', 'a'], kind: 'trade', compact: true },
+  // "operating under the trade name", "carrying on business as", "trading under the name" (UK and translated
+  // drafting; common practice).
+  { words: ['operating', 'under', 'the', 'trade', 'name'], kind: 'trade' },
+  { words: ['operating', 'under', 'the', 'name'], kind: 'trade' },
   { words: ['operating', 'as'], kind: 'trade' },
+  { words: ['carrying', 'on', 'business', 'as'], kind: 'trade' },
+  { words: ['trading', 'under', 'the', 'name'], kind: 'trade' },
+  { words: ['under', 'the', 'trade', 'name'], kind: 'trade' },
   { words: ['f', 'k', 'a'], kind: 'former', compact: true },
   { words: ['fka'], kind: 'former' },
   { words: ['formerly', 'known', 'as'], kind: 'former' },

@@ -42,6 +42,9 @@ const ENTITY_WORDS = [
   'corp',
   'nonprofit',
   'non-profit',
+  // "a Florida not-for-profit corporation" (US drafting, common practice).
+  'not-for-profit',
+  'not for profit',
   'professional',
   'proprietary',
   'general',

@@ -92,6 +92,8 @@ function endsSentence(text: string, i: number): boolean {
   let w = i;
   while (w > 0 && i - w < 12 && /\p{L}/u.test(text[w - 1] as string)) w--;
   const word = text.slice(w, i).toLowerCase();
+  // "… with reference 2022/017. Terms …": a number closes the sentence too.
+  if (word.length === 0) return /\d/u.test(text[i - 1] ?? '');
   return word.length > 1 && !ABBREVIATIONS.has(word);
 }
 
@@ -114,6 +116,18 @@ function namedAfter(statement: string): string {
   const named = best < 0 ? '' : statement.slice(best).trim();
   // "… have the same meaning in this Amendment": the present document, not the earlier one.
   return /^(?:this|these)\s/iu.test(named) ? '' : named;
+}
+
+/** "in that agreement", "in the said contract": the agreement named in the sentence before. */
+const ANAPHORA = /\b(?:in|under) (?:that|said|the said|such) (?:agreement|contract)\b/iu;
+
+/** The sentence that ends just before `s`, when there is one. */
+function previousSentence(text: string, s: number): string | undefined {
+  let e = s;
+  while (e > 0 && (text[e - 1] === ' ' || text[e - 1] === '\n' || text[e - 1] === '\r')) e--;
+  if (e === 0) return undefined;
+  const [ps] = sentenceAround(text, e - 2);
+  return text.slice(ps, e);
 }
 
 /** A short name like "Agreement" or "Principal Agreement": defined elsewhere in the text, read there. */
@@ -218,7 +232,10 @@ export function findEarlierAgreements(text: string): AgreementReference[] {
         '.,;:',
       );
       const defined = short.split(' ').length <= 4 ? definitionOf(text, short) : undefined;
-      const reference = describe(statement, defined ?? (named === '' ? statement : named));
+      // "… in that agreement": the agreement the sentence before described ("… amend the cooperation agreement of
+      // 1 February 2022 with reference 2022/017. Terms … have the meaning given to them in that agreement.").
+      const before = defined === undefined && ANAPHORA.test(text.slice(at, e)) ? previousSentence(text, s) : undefined;
+      const reference = describe(statement, defined ?? before ?? (named === '' ? statement : named));
       if (reference.title === undefined && reference.reference === undefined && reference.date === undefined) continue;
       out.push(reference);
     }

@@ -26,6 +26,9 @@ const PHRASES = [
   ' not a signatory',
   ' not being a party',
   ' non-party',
+  // Translated drafting ("Vertragspartei", "partie contractante"): common practice.
+  ' not a contracting party',
+  ' not a contractual party',
 ];
 /** Words between the name and the phrase: "X, which is", "X shall", "X, a". */
 const VERBS = new Set(['is', 'are', 'shall', 'will', 'does', 'do', 'which', 'who', 'that', 'being', 'also', 'itself', 'a']);
@@ -62,13 +65,25 @@ function termsIn(group: string): string[] {
 function subjectEnd(text: string, at: number): number {
   let end = at;
   for (let guard = 0; guard < 6; guard++) {
-    while (end > 0 && (isSpace(text[end - 1]) || text[end - 1] === ',')) end--;
+    // "X (which is not a party …)": the parenthesis that opens the phrase is no part of the name.
+    while (end > 0 && (isSpace(text[end - 1]) || text[end - 1] === ',' || text[end - 1] === '(')) end--;
     let w = end;
     while (w > 0 && /\p{L}/u.test(text[w - 1] as string)) w--;
-    if (w === end || !VERBS.has(text.slice(w, end).toLowerCase())) return end;
+    if (w === end || !VERBS.has(text.slice(w, end).toLowerCase())) return asCapacity(text, end);
     end = w;
   }
   return end;
+}
+
+/** "X, as escrow agent, which is not a party": a lower-case capacity after "as" stands between name and phrase. */
+const MAX_CAPACITY = 40;
+
+function asCapacity(text: string, end: number): number {
+  const from = Math.max(0, end - MAX_CAPACITY);
+  const k = text.lastIndexOf(', as ', end);
+  if (k < from) return end;
+  const words = text.slice(k + 5, end).trim();
+  return words.length > 0 && /^[\p{Ll} -]+$/u.test(words) ? k : end;
 }
 
 /** The capitalised run ending at `end`, walking back at most MAX_WORDS words and never past a line or sentence. */
@@ -106,6 +121,33 @@ function endsSentence(word: string): boolean {
   return tail === tail.toLowerCase() && tail !== tail.toUpperCase();
 }
 
+/** How far back a term's definition is looked for, and how far its parenthesis may open before the quote. */
+const DEFINITION_WINDOW = 2000;
+const PAREN_GAP = 12;
+
+/**
+ * "Alderwick Marine Group plc (the "Parent") … The Parent, which is not a party to this Agreement": the term names
+ * the entity its definition follows, so that entity is the one mentioned (common practice in UK drafting).
+ */
+function definedEarlier(text: string, name: string, before: number): Exclusion | null {
+  if (!name.toLowerCase().startsWith('the ')) return null;
+  const term = name.slice(4).trim();
+  if (term.length === 0) return null;
+  const from = Math.max(0, before - DEFINITION_WINDOW);
+  const window = text.slice(from, before);
+  for (const q of ['"', '“']) {
+    const k = window.lastIndexOf(`${q}${term}`);
+    if (k < 0) continue;
+    const open = window.lastIndexOf('(', k);
+    if (open < 0 || k - open > PAREN_GAP || !'"”'.includes(window[k + 1 + term.length] ?? '')) continue;
+    let end = from + open;
+    while (end > 0 && isSpace(text[end - 1])) end--;
+    const span = nameBefore(text, end);
+    if (span !== null) return { name: text.slice(span.start, span.end), start: span.start, terms: [term] };
+  }
+  return null;
+}
+
 function phraseStarts(lower: string): number[] {
   const at: number[] = [];
   for (const p of PHRASES) {
@@ -134,7 +176,8 @@ export function findExclusions(text: string): Exclusion[] {
     while (end > 0 && (isSpace(text[end - 1]) || text[end - 1] === ',')) end--;
     const span = nameBefore(text, end);
     if (span === null) continue;
-    out.push({ name: text.slice(span.start, span.end), start: span.start, terms });
+    const name = text.slice(span.start, span.end);
+    out.push(terms.length === 0 ? (definedEarlier(text, name, span.start) ?? { name, start: span.start, terms }) : { name, start: span.start, terms });
   }
   return out;
 }

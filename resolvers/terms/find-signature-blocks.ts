@@ -83,11 +83,15 @@ function entityFrom(text: string, line: Line): SignatureEntity | null {
   let from = line.start;
   while (from < line.end && (text[from] === ' ' || text[from] === '\t')) from++;
   let label: string | undefined;
-  // "LICENSOR: QORV ROBOTICS, INC."
+  // "Executed as a deed by X acting by a director in the presence of:": the colon closes the line, no label.
   const colon = text.indexOf(':', from);
-  if (colon >= 0 && colon < line.end) {
+  const execution = ON_BEHALF_LINES.some((b) => asciiLower(text.slice(from, line.end)).startsWith(b));
+  // "LICENSOR: QORV ROBOTICS, INC."
+  if (colon >= 0 && colon < line.end && !execution) {
     const before = text.slice(from, colon).trim();
     if (before.split(/\s+/u).length <= 3 && text.slice(colon + 1, line.end).trim().length > 0) {
+      // "By: Tessaly Holdings GmbH, its general partner": a company signing for the party above, never a party.
+      if (before.toLowerCase() === 'by') return null;
       label = before;
       from = colon + 1;
     } else if (text.slice(colon + 1, line.end).trim().length === 0) {
@@ -104,8 +108,14 @@ function entityFrom(text: string, line: Line): SignatureEntity | null {
   }
   // "Signed for and on behalf of X by Y, President": the entity ends before "by", Y signs for it.
   let end = line.end;
+  // "… X acting by a director in the presence of:" (UK deed, common practice): the entity ends before the phrase.
+  const lowerRest = asciiLower(text.slice(from, line.end));
+  for (const cut of [' acting by ', ' acting through ', ' in the presence of']) {
+    const k = lowerRest.indexOf(cut);
+    if (k > 0 && from + k < end) end = from + k;
+  }
   let signer: ContractSigner | undefined;
-  const lowerLine = asciiLower(text.slice(from, line.end));
+  const lowerLine = asciiLower(text.slice(from, end));
   for (let at = lowerLine.indexOf(' by '); at >= 0; at = lowerLine.indexOf(' by ', at + 4)) {
     const s = signerAfter(text, from + at + 4, line.end);
     if (s === null) continue;
@@ -120,6 +130,9 @@ function entityFrom(text: string, line: Line): SignatureEntity | null {
   return label === undefined ? { located, signers } : { located, label, signers };
 }
 
+/** An electronic-signature stamp in the place of "By:" ("Electronically signed by:" over the signer's name). */
+const E_SIGNED = ['electronically signed by', 'digitally signed by', 'signed electronically by', 'e-signed by'];
+
 /** Labels under "By:" that give the signer's name, and those that give her title. */
 const NAME_LABELS = ['name', 'print name', 'printed name', 'name of signatory'];
 const TITLE_LABELS = ['title', 'its', 'position', 'capacity', 'function'];
@@ -131,7 +144,7 @@ export function findSignatureBlocks(text: string): SignatureEntity[] {
   const found: SignatureEntity[] = [];
   for (let i = 0; i < lines.length; i++) {
     const line = lines[i] as Line;
-    const by = labelValue(line.text, ['by']);
+    const by = labelValue(line.text, ['by']) ?? labelValue(line.text, E_SIGNED);
     const conformed = by === null && line.text.trimStart().startsWith('/s/');
     if (by !== null || conformed) {
       const entity = entityAbove(text, lines, i);
@@ -183,6 +196,10 @@ function blockSigner(text: string, lines: Line[], at: number, byValue: string | 
     if (v !== null && v.length > 0) title = v;
     // A conformed signature repeats the name, then the bare title: "Quentin Aldous" / "Chief Executive Officer".
     if (byValue === null && n === null && v === null && title === undefined) title = jobTitleOf(t) ?? undefined;
+    // "By: /s/ Desmond Larue" / "Desmond Larue, President": the name repeated with the title after a comma.
+    const at = name === undefined ? -1 : t.indexOf(name);
+    if (n === null && v === null && title === undefined && at >= 0 && t.slice(0, at).trim() === '')
+      title = titleAfter(t, at + (name as string).length, t.length);
   }
   if (name === undefined) return null;
   return title === undefined ? { name, capacity: 'signatory' } : { name, title, capacity: 'signatory' };
@@ -198,6 +215,9 @@ function readsAsCompany(name: string): boolean {
 function nameAndTitle(value: string, title?: string): { name?: string; title?: string } {
   if (value.length === 0) return title === undefined ? {} : { title };
   const read = readPersonName(value, 0, value.length);
+  // A company that signs for the party (its general partner, its manager) is no person signing.
+  const comma = value.indexOf(',');
+  if (read === null && readsAsCompany(comma > 0 ? value.slice(0, comma) : value)) return title === undefined ? {} : { title };
   if (read === null) return title === undefined ? { name: value } : { name: value, title };
   const after = titleAfter(value, read.end, value.length) ?? title;
   return after === undefined ? { name: read.name } : { name: read.name, title: after };

@@ -13,6 +13,7 @@ import { jobTitleOf } from './is-job-title.ts';
 import { signerAfter, titleAfter } from './signer-phrases.ts';
 import type { SignerAt } from './signer-phrases.ts';
 import type { ContractSigner } from './types.ts';
+import { afterRule, fromNameAndCapacity, fromNameCaptions, push, type Line } from './signer-lines.ts';
 
 type Capacity = ContractSigner['capacity'];
 
@@ -41,16 +42,24 @@ const AFTER_CUES: ReadonlyArray<readonly [string, Capacity]> = [
   ['by its duly authorized representative ', 'signatory'],
   ['through its duly authorized representative ', 'signatory'],
   ['through its duly authorised representative ', 'signatory'],
+  // An electronic signature stamp names the person who signed (common practice): no further check is needed.
+  ['electronically signed by ', 'signatory'],
+  ['digitally signed by ', 'signatory'],
+  ['signed electronically by ', 'signatory'],
   ['in the presence of ', 'witness'],
   ['witnessed by ', 'witness'],
   ['before me, ', 'notary'],
   ['devant maître ', 'notary'],
 ];
 
+const E_SIGNED_CUE = /^(?:electronically|digitally) signed by |^signed electronically by /u;
+
 /** Labels whose value (same line, or the next "Name:" line) is a witness or notary. */
 const LABELS: ReadonlyArray<readonly [string, Capacity]> = [
   ['witness', 'witness'],
   ['witness name', 'witness'],
+  ['witness signature', 'witness'],
+  ['signature of witness', 'witness'],
   ["witness's name", 'witness'],
   ['name of witness', 'witness'],
   ['print name of witness', 'witness'],
@@ -85,11 +94,6 @@ const AFTER_NAME: ReadonlyArray<readonly [string, Capacity]> = [
   ['authorized signatory', 'signatory'],
 ];
 
-interface Line {
-  start: number;
-  end: number;
-}
-
 function linesOf(text: string): Line[] {
   const out: Line[] = [];
   let start = 0;
@@ -102,31 +106,19 @@ function linesOf(text: string): Line[] {
   return out;
 }
 
-function push(out: ContractSigner[], s: SignerAt, capacity: Capacity, signsFor?: string): void {
-  const signer: ContractSigner = { name: s.name, capacity };
-  if (s.title !== undefined) signer.title = s.title;
-  if (signsFor !== undefined) signer.signsFor = signsFor;
-  out.push(signer);
-}
-
-/** "Witness:"-style label at the line start: its value's start, or -1. */
-function labelAt(text: string, line: Line): { value: number; capacity: Capacity } | null {
+/**
+ * "Witness:"-style label at the line start: its value's start, or -1. A job title as the label ("Director: Ingrid
+ * Sallow", a UK deed's execution line, common practice) names a signatory signing in that capacity.
+ */
+function labelAt(text: string, line: Line): { value: number; capacity: Capacity; title?: string } | null {
   const raw = text.slice(line.start, line.end);
   const colon = raw.indexOf(':');
   if (colon <= 0 || colon > 30) return null;
   const label = raw.slice(0, colon).trim().toLowerCase().replace(/\s+/gu, ' ');
   const hit = LABELS.find(([l]) => l === label);
-  return hit === undefined ? null : { value: line.start + colon + 1, capacity: hit[1] };
-}
-
-/** The value of a label with signature rules and "/s/" removed: where a name may start. */
-function afterRule(text: string, i: number, end: number): number {
-  let j = i;
-  for (;;) {
-    while (j < end && (text[j] === ' ' || text[j] === '\t' || text[j] === '_' || text[j] === '.')) j++;
-    if (text.startsWith('/s/', j)) j += 3;
-    else return j;
-  }
+  if (hit !== undefined) return { value: line.start + colon + 1, capacity: hit[1] };
+  const title = jobTitleOf(raw.slice(0, colon).trim());
+  return title === null ? null : { value: line.start + colon + 1, capacity: 'signatory', title };
 }
 
 function fromLabels(text: string, lines: Line[], out: ContractSigner[]): void {
@@ -136,9 +128,10 @@ function fromLabels(text: string, lines: Line[], out: ContractSigner[]): void {
     if (label === null) continue;
     const named = readPersonName(text, afterRule(text, label.value, line.end), line.end);
     if (named !== null) {
-      push(out, { ...named, ...optionalTitle(titleAfter(text, named.end, line.end)) }, label.capacity);
+      push(out, { ...named, ...optionalTitle(titleAfter(text, named.end, line.end) ?? label.title) }, label.capacity);
       continue;
     }
+    if (label.title !== undefined) continue;
     // "Witness: ________" then "Name: Theda Kornblum" on one of the next lines.
     for (let n = k + 1; n < Math.min(lines.length, k + 3); n++) {
       const next = lines[n] as Line;
@@ -162,13 +155,14 @@ function fromCues(text: string, lines: Line[], out: ContractSigner[]): void {
       let at = lower.indexOf(cue);
       while (at >= 0) {
         const s = signerAfter(text, line.start + at + cue.length, line.end);
-        if (s !== null && (capacity !== 'signatory' || isSurelyPerson(s)))
+        if (s !== null && (capacity !== 'signatory' || isSurelyPerson(s) || E_SIGNED_CUE.test(cue)))
           push(out, s, capacity === 'notary' && !/notar|notai/iu.test(lower) ? 'signatory' : capacity);
         at = lower.indexOf(cue, at + cue.length);
       }
     }
     fromOnBehalf(text, line, lower, out);
     fromNameThenWords(text, line, lower, out);
+    fromForLine(text, line, lower.trimStart(), out);
   }
 }
 
@@ -191,6 +185,20 @@ function fromOnBehalf(text: string, line: Line, lower: string, out: ContractSign
     push(out, s, 'signatory', entity.length > 0 ? entity : undefined);
     return;
   }
+}
+
+/**
+ * "For the Seller, Mr Baptiste Vautrin, Chairman" (French and Italian drafting in English, common practice): the
+ * person after the comma signs when a form of address or a title says a person stands there.
+ */
+function fromForLine(text: string, line: Line, lower: string, out: ContractSigner[]): void {
+  if (!lower.startsWith('for ')) return;
+  const comma = lower.indexOf(', ');
+  if (comma < 0 || comma > 60) return;
+  const named = readPersonName(text, line.start + comma + 2, line.end);
+  if (named === null) return;
+  const title = titleAfter(text, named.end, line.end);
+  if (named.addressed || title !== undefined) push(out, { ...named, ...optionalTitle(title) }, 'signatory');
 }
 
 /** "Anselm Voigt, duly authorised", "Hester Galloway, Notary Public": the name opens the line or follows a colon. */
@@ -237,6 +245,8 @@ export function findSigners(text: string): ContractSigner[] {
   fromLabels(text, lines, out);
   fromCues(text, lines, out);
   fromNotaryLines(text, lines, out);
+  fromNameAndCapacity(text, lines, out);
+  fromNameCaptions(text, lines, out);
   return out;
 }
 
@@ -247,7 +257,9 @@ function fromNotaryLines(text: string, lines: Line[], out: ContractSigner[]): vo
       .slice((lines[k] as Line).start, (lines[k] as Line).end)
       .trim()
       .toLowerCase();
-    if (t !== 'notary public' && t !== 'notaire' && t !== 'notar' && t !== 'notario' && t !== 'notaio') continue;
+    // "Notary Public", and "Notary Public, State of Ohio" / "Notary Public in and for …" (US, common practice).
+    const notary = /^notary public(?:,| in and for )/u.test(t);
+    if (!notary && t !== 'notary public' && t !== 'notaire' && t !== 'notar' && t !== 'notario' && t !== 'notaio') continue;
     const above = lines[k - 1] as Line;
     const named = readPersonName(text, afterRule(text, above.start, above.end), above.end);
     if (named !== null && text.slice(named.end, above.end).trim().length === 0) push(out, named, 'notary');

@@ -97,7 +97,7 @@ function bareNameEnd(text: string, s: number, to: number, stopAtAnd: boolean): n
     if (isSpace(ch) && i > s) {
       const w = skipSpaces(text, i, limit);
       // Descriptive words are lower case ("a Delaware corporation"); "Team A Ltd" keeps its capital A.
-      if (isLowerLetter(text[w]) && anyWordAt(text, w, DESCRIPTIVE_STARTS) !== undefined) return i;
+      if (isLowerLetter(text[w]) && anyWordAt(text, w, DESCRIPTIVE_STARTS) !== undefined && !insideLegalForm(text, s, i, limit)) return i;
       if (stopAtAnd && (wordAt(text, w, 'and') || wordAt(text, w, 'und') || wordAt(text, w, 'et'))) return i;
       if (wordAt(text, w, 'of') && /\d/.test(text[skipSpaces(text, w + 2, limit)] ?? '')) return i;
       if (anyWordAt(text, w, ALIAS_CUES) !== undefined) return i;
@@ -106,6 +106,19 @@ function bareNameEnd(text: string, s: number, to: number, stopAtAnd: boolean): n
     }
   }
   return limit;
+}
+
+/**
+ * "Orvanel Deutschland Gesellschaft mit beschränkter Haftung": the lower-case word at `i` is inside a legal form
+ * written out in full (ISO 20275 lists such names), not the start of a descriptive phrase ("mit Sitz in …").
+ */
+function insideLegalForm(text: string, s: number, i: number, limit: number): boolean {
+  let e = i + 1;
+  while (e < limit && !',;:("“\n'.includes(text[e] as string)) e++;
+  const [, end] = trimBounds(text, s, e);
+  const lf = analyseName(text.slice(s, end)).legalForm;
+  if (lf === null || !loose(text.slice(s, end)).endsWith(loose(lf.text))) return false;
+  return end - lf.text.length < i;
 }
 
 /** "Pellinore Widgets Limited of 4 Quarry Lane": after a legal form, "of" starts the address. */
@@ -122,13 +135,20 @@ function loose(s: string): string {
   return s.toLowerCase().replace(/[^\p{L}\p{N}]/gu, '');
 }
 
+/**
+ * Room after the comma for a legal form written out in full: "Orvanel España, Sociedad de Responsabilidad
+ * Limitada" (ISO 20275 long names run to about 40 characters and 5 words).
+ */
+const DESIGNATOR_ROOM = 48;
+const DESIGNATOR_WORDS = 5;
+
 /** "Qorv Robotics, Inc.": the comma part is the legal form of the name before it. */
 function extendOverDesignator(text: string, s: number, e: number, to: number): number {
   if (text[e] !== ',') return e;
-  const p = bareNameEnd(text, skipSpaces(text, e + 1, to), Math.min(to, e + 24), false);
+  const p = bareNameEnd(text, skipSpaces(text, e + 1, to), Math.min(to, e + DESIGNATOR_ROOM), false);
   const [ps, pe] = trimBounds(text, e + 1, p);
   const part = text.slice(ps, pe);
-  if (part.length === 0 || part.split(' ').length > 4 || !/^\p{Lu}/u.test(part)) return e;
+  if (part.length === 0 || part.split(' ').length > DESIGNATOR_WORDS || !/^\p{Lu}/u.test(part)) return e;
   const lf = analyseName(text.slice(s, pe)).legalForm;
   if (lf === null) return e;
   const lp = loose(part);

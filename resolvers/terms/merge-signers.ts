@@ -22,5 +22,7 @@ export function mergeSigners(groups: readonly ContractSigner[][]): ContractSigne
       if (seen.signsFor === undefined && s.signsFor !== undefined) seen.signsFor = s.signsFor;
     }
   }
-  return [...byKey.values()];
+  // A notary's or witness's "/s/" line is read as a signature too: the person signs as notary or witness only.
+  const attests = new Set([...byKey.values()].filter((s) => s.capacity !== 'signatory').map((s) => termKey(s.name)));
+  return [...byKey.values()].filter((s) => s.capacity !== 'signatory' || s.signsFor !== undefined || !attests.has(termKey(s.name)));
 }

@@ -28,6 +28,13 @@ const PARTY_CUES = [
   "d'autre part",
   'da una parte',
   "dall'altra parte",
+  // The same cues of Spanish, French and Italian drafting put into English (common practice).
+  'on the one hand',
+  'on the other hand',
+  // A one-sided instrument names its giver and its beneficiary ("given by X to Y", "made by X in favour of Y").
+  'given by',
+  'in favour of',
+  'in favor of',
 ];
 /** Words that end a recital or clause: the name, if any, follows. */
 const CLAUSE_CUES = ['whereas', 'recitals', 'background'];

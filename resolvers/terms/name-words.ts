@@ -22,8 +22,10 @@ export const CONNECTORS = [
   'die',
   'das',
   'the company',
+  // "given by X, …, to Y": the beneficiary of a one-sided instrument (lower case only: "To Kalon Ltd" is a name).
+  'to',
 ];
-export const LOWER_ONLY = new Set(['der', 'die', 'das', 'the company']);
+export const LOWER_ONLY = new Set(['der', 'die', 'das', 'the company', 'to']);
 /** Words that end a name: the descriptive phrase begins. */
 export const DESCRIPTIVE_STARTS = [
   'a',
@@ -95,7 +97,12 @@ export const ALIAS_CUES = [
   'a/k/a',
   'aka',
   'also known as',
+  'operating under the trade name',
+  'operating under the name',
   'operating as',
+  'carrying on business as',
+  'trading under the name',
+  'under the trade name',
   'o/a',
   'successor in interest to',
   'successor by merger to',

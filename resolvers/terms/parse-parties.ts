@@ -5,10 +5,11 @@
  */
 import { findEarlierAgreements } from './find-earlier-agreements.ts';
 import { analyseCached as analyseName } from './analyse-cached.ts';
-import { type NameAnalysis } from '../analyse/index.ts';
+import { isDocumentReference, normaliseTokens, type NameAnalysis } from '../analyse/index.ts';
 import { normaliseIdentifier } from '../identifiers/index.ts';
 import { checkContractText } from './check-contract-text.ts';
 import { cleanTerm, termKey } from './clean-term.ts';
+import { descriptionAliases } from './description-aliases.ts';
 import { extractAddress } from './extract-address.ts';
 import { extractIdentifiers } from './extract-identifiers.ts';
 import { extractJurisdiction } from './extract-jurisdiction.ts';
@@ -36,10 +37,14 @@ function isPartyTerm(t: FoundTerm): boolean {
   return !t.collective && !t.thisMarker && !NON_PARTY_TERMS.has(t.text.toLowerCase());
 }
 
-/** A term the name analysis rules out as the document, a part of it, or a place ("Order Form", "Territory"). */
+/**
+ * A term the name analysis rules out as the document, a part of it, or a place ("Order Form", "Territory"). A
+ * defined term in capitals ("each a "SOW"") is checked as a document too: the analysis reads a lone short acronym
+ * as an organisation's, but a term defined with "each" is the contract's own word.
+ */
 function namesAThing(t: FoundTerm): boolean {
   const reason = analyseName(t.text).partyReason;
-  return reason === 'document' || reason === 'place';
+  return reason === 'document' || reason === 'place' || isDocumentReference(normaliseTokens(t.text));
 }
 
 /** A descriptive phrase that follows the definition: `("Qorv"), a company incorporated in …;` */
@@ -161,7 +166,7 @@ function finishParty(d: Draft, ownEntities: NameAnalysis[]): ContractParty {
     ownEntity: ownEntities.some((o) => sameEntityName(o, d.analysis)),
     identifiers: finishIdentifiers(extractIdentifiers(description, jurisdiction), jurisdiction),
     // Copies: analyses are memoised and shared.
-    aliases: analysis.aliases.map((a) => ({ ...a, name: oneLine(a.name) })),
+    aliases: [...analysis.aliases, ...(analysis.aliases.length === 0 ? descriptionAliases(description) : [])].map((a) => ({ ...a, name: oneLine(a.name) })),
     related: analysis.related.map((r) => ({ ...r, name: oneLine(r.name) })),
     kind: analysis.kind === 'unknown' && (d.honorific || saysIndividual(description)) ? 'person' : analysis.kind,
   };

@@ -100,7 +100,19 @@ function formatText(parsed: Parsed, resolution: Resolution | undefined, left: No
   if (left.places.length > 0) lines.push(`Places (not parties): ${left.places.join('; ')}`);
   if (left.documents.length > 0) lines.push(`Document references (not parties): ${left.documents.join('; ')}`);
   if (left.roles.length > 0) lines.push(`Roles not bound to a party: ${left.roles.join('; ')}`);
-  if (left.other.length > 0) lines.push(`Not parties: ${left.other.join('; ')}`);
+  // People who sign, witness or notarise, with the capacity and the party they sign for: never parties (issue 16).
+  const signers = parsed.signers ?? [];
+  if (signers.length > 0) {
+    const described = signers.map((s) =>
+      [s.name, s.title, s.capacity === 'signatory' ? undefined : s.capacity, s.signsFor === undefined ? undefined : `for ${oneLine(s.signsFor)}`]
+        .filter((f) => f !== undefined)
+        .join(', '),
+    );
+    lines.push(`Signers (not parties): ${described.join('; ')}`);
+  }
+  const signerNames = new Set(signers.map((s) => s.name));
+  const other = left.other.filter((n) => !signerNames.has(n));
+  if (other.length > 0) lines.push(`Not parties: ${other.join('; ')}`);
   // An amendment or side letter: the register binds the terms it does not define through this earlier agreement.
   for (const a of parsed.earlierAgreements ?? []) {
     const facts = [

@@ -342,6 +342,9 @@ describe('party filter', () => {
     expect(analyseName('Pellinore Widgets').kind).toBe('organisation'); // an organisation word (common practice)
     expect(analyseName('Quarrendon Vale').kind).toBe('unknown'); // no evidence either way
     expect(analyseName('Licensee Holdings Ltd').partyStatus).toBe('party'); // a legal form makes it a name
+    // A local-government area opening with a given name is no person (US and UK administrative words, common
+    // practice; invented and generic area names).
+    for (const p of ['Travis County', 'Orleans Parish', 'Lincoln Township']) expect(analyseName(p).kind, p).not.toBe('person');
   });
 });
 

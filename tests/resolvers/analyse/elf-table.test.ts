@@ -5,7 +5,7 @@
 import { existsSync, readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { designatorKey } from '../../../resolvers/analyse/index.ts';
+import { analyseName, designatorKey } from '../../../resolvers/analyse/index.ts';
 import { buildElfTable, compoundFamily, parseElfRows, serialiseElfTable, splitAbbreviations } from '../../../resolvers/analyse/build-elf-table.ts';
 
 // Resolved from this file, not the working directory: run from elsewhere, a relative path turned the checks below
@@ -89,5 +89,11 @@ describe.skipIf(!present)('the committed table (needs ../shared/reference)', () 
     expect(table.forms['llp']?.[2].split(' ')).toContain('OJDX');
     // MX HKWO "S.A. de C.V., SOFOM E.N.R.": one key with the comma's parts together.
     expect(table.forms['sadecvsofomenr']?.[2]).toBe('HKWO');
+    // ES DP3Q "Sociedad de Responsabilidad Limitada" (abbreviations "S.L.;S.R.L."): v1.5 writes its variants
+    // "Sociedad Limitada …" (1G29, JB2M, R6UT); the short name comes from legal-form-supplement.ts and joins "S.L.".
+    expect(table.forms['sociedadlimitada']).toEqual(['sl', 'n', 'DP3Q']);
+    const a = analyseName('Zanthorpe Cerámica Sociedad Limitada'); // invented name
+    expect(a.core).toBe('zanthorpe ceramica');
+    expect(a.legalForm?.family).toBe(analyseName('Zanthorpe Cerámica S.L.').legalForm?.family);
   });
 });

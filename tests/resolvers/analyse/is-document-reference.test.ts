@@ -45,6 +45,16 @@ describe('isDocumentReference', () => {
     }
   });
 
+  it('reads titles whose noun comes first, and defined abbreviations of titles (common practice)', () => {
+    for (const p of ['this Deed of Variation', 'the Letter of Intent', 'the Memorandum of Understanding', 'the MSA', 'this NDA']) {
+      expect(doc(p), p).toBe(true);
+    }
+    // A body, not a document: "order" opens no title here; a long run is no title (invented names).
+    for (const p of ['the Order of St Anselm', 'Letterwick Holdings', 'Deed of Trust Services of the Northern Coast Cooperative']) {
+      expect(doc(p), p).toBe(false);
+    }
+  });
+
   it('makes analyseName say not_a_party, reason document; a legal form still makes a party', () => {
     for (const p of ['this Agreement', 'the Contract', 'Schedule 2', 'the Effective Date', 'the Services', 'the Territory']) {
       const a = analyseName(p);

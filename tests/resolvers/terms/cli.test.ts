@@ -49,6 +49,14 @@ describe('cpreg contract parse', () => {
     expect(out.notParties).toContain('Agreement');
   });
 
+  it('lists the signers under their own heading, with title and party, and not again among the other non-parties', async () => {
+    // Issue 16 goal: a reviewer sees why each name was left out.
+    const r = await runCli(['contract', 'parse', file('license.txt')]);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toContain('Signers (not parties): Jane Harlow, Chief Executive Officer, for BRACKENRIDGE FABRICATION, INC.');
+    expect(r.stdout).not.toMatch(/^Not parties: .*Jane Harlow/mu);
+  });
+
   it('--mention resolves a mention inside the contract (text and JSON)', async () => {
     const text = await runCli(['contract', 'parse', file('license.txt'), '--mention', 'the Licensee']);
     expect(text.code).toBe(0);

@@ -9,9 +9,10 @@ import { NON_PARTY_SHAPES } from './corpus/non-party-shapes.ts';
 import { SHAPES_OF, SIGNER_SHAPES } from './corpus/signer-shapes.ts';
 import { DECLARED_NAME_SHAPES, DECLARED_SHAPES_OF } from './corpus/declared-name-shapes.ts';
 import { EARLIER_AGREEMENT_SHAPES, EARLIER_SHAPES_OF } from './corpus/earlier-agreement-shapes.ts';
+import { SECOND_LOOK_SHAPES } from './corpus/second-look-shapes.ts';
 
 /** Issue 16's shapes (places, document references, unbound roles) are checked like every other passage. */
-const CORPUS = [...BASE, ...NON_PARTY_SHAPES, ...SIGNER_SHAPES, ...DECLARED_NAME_SHAPES, ...EARLIER_AGREEMENT_SHAPES];
+const CORPUS = [...BASE, ...NON_PARTY_SHAPES, ...SIGNER_SHAPES, ...DECLARED_NAME_SHAPES, ...EARLIER_AGREEMENT_SHAPES, ...SECOND_LOOK_SHAPES];
 
 const failures = new Map<string, string[]>();
 
@@ -71,6 +72,17 @@ describe('terms corpus', () => {
       expect(ids.length, shape).toBeGreaterThanOrEqual(3);
       expect(new Set(ids.map((id) => id.split('-')[0])), shape).toEqual(new Set(['uk', 'us', 'eu']));
     }
+  });
+
+  it('has a second look with new passages for each of items 1–9, in British, US and translated styles', () => {
+    // Issue 16: a fresh adversarial check; each item's passages are named "<style>-<item word>-…".
+    const items = ['places', 'document', 'roles', 'signers', 'exclusion', 'own', 'person', 'former', 'earlier'];
+    for (const item of items) {
+      const ids = SECOND_LOOK_SHAPES.map((c) => c.id).filter((id) => id.split('-')[1] === item);
+      expect(ids.length, item).toBeGreaterThanOrEqual(2);
+      expect(new Set(ids.map((id) => id.split('-')[0])).size, item).toBeGreaterThanOrEqual(2);
+    }
+    expect(SECOND_LOOK_SHAPES.length).toBeGreaterThanOrEqual(30); // the brief asks for at least 30
   });
 
   it.each(CORPUS.map((c) => [c.id, c] as const))('%s', (_id, c) => {

@@ -7,7 +7,10 @@ import { oneLine } from '../../../../resolvers/terms/parse-parties.ts';
 const sameList = (a: string[], b: string[]): boolean => a.length === b.length && a.every((x, i) => x === b[i]);
 const sameSet = (a: string[], b: string[]): boolean => a.length === b.length && a.every((x) => b.includes(x));
 
-export function checkCase(c: CorpusCase, parsed: ParsedContract = parseParties(c.text)): string[] {
+export function checkCase(
+  c: CorpusCase,
+  parsed: ParsedContract = parseParties(c.text, c.ownEntities === undefined ? {} : { ownEntities: c.ownEntities }),
+): string[] {
   const diffs: string[] = [];
   const names = parsed.parties.map((p) => p.name);
   const want = c.parties.map((p) => p.name);
@@ -18,6 +21,7 @@ export function checkCase(c: CorpusCase, parsed: ParsedContract = parseParties(c
     // Verbatim, a line break inside a name read as one space (oneLine).
     if (!oneLine(c.text).includes(p.name)) diffs.push(`${e.name}: name not verbatim in the text`);
     if (!sameSet(p.terms, e.terms)) diffs.push(`${e.name}: terms ${JSON.stringify(p.terms)}, want ${JSON.stringify(e.terms)}`);
+    if (e.ownEntity !== undefined && p.ownEntity !== e.ownEntity) diffs.push(`${e.name}: ownEntity ${p.ownEntity}, want ${e.ownEntity}`);
     if (e.role !== undefined && p.role !== e.role) diffs.push(`${e.name}: role ${JSON.stringify(p.role)}, want ${JSON.stringify(e.role)}`);
     if (e.jurisdiction !== undefined && p.jurisdiction !== e.jurisdiction) diffs.push(`${e.name}: jurisdiction ${p.jurisdiction}, want ${e.jurisdiction}`);
     if (e.kind !== undefined && p.kind !== e.kind) diffs.push(`${e.name}: kind ${p.kind}, want ${e.kind}`);

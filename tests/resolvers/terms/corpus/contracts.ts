@@ -12,6 +12,8 @@ import type { AliasKind, EntityKind, IdentifierScheme, RelationType } from '../.
 export interface ExpectedParty {
   name: string;
   terms: string[];
+  /** Checked when present: the party is one of the case's ownEntities. */
+  ownEntity?: boolean;
   /** Checked when present (null = no role). */
   role?: string | null;
   jurisdiction?: string;
@@ -41,6 +43,8 @@ export interface CorpusCase {
   mentioned?: string[];
   /** Mentions that resolveInContract must resolve to `party` through the other name the contract declares for it. */
   resolves?: { mention: string; party: string; alias: AliasKind }[];
+  /** The organisation's own legal entities, passed to parseParties (issue 16 item 6). */
+  ownEntities?: string[];
   /** Exactly these earlier agreements whose defined terms the text says it uses (absent: none). */
   earlier?: { title?: string; date?: string; reference?: string; parties: string[] }[];
 }
