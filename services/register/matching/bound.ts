@@ -9,9 +9,15 @@
  * a rival or a candidate worth a person's look, so it need not be scored for a decision (matching/candidates.ts).
  */
 import type { MatchRecord } from '../../../resolvers/block/index.ts';
-import { featureWeights, FEATURE_NAMES, type MatchModel } from '../../../resolvers/score/index.ts';
-import { acronymLevel, jurisdictionLevel, legalFormLevel } from '../../../resolvers/score/context-levels.ts';
-import { qualifierLevel } from '../../../resolvers/score/compare-records.ts';
+import {
+  acronymLevel,
+  featureWeights,
+  FEATURE_NAMES,
+  jurisdictionLevel,
+  legalFormLevel,
+  qualifierLevel,
+  type MatchModel,
+} from '../../../resolvers/score/index.ts';
 
 /** Weight of one observed level under the model (an unobserved or unknown level weighs 0, as in explainLevels). */
 function weightOf(model: MatchModel, feature: string, level: string | null): number {
