@@ -4,6 +4,7 @@
  * mention stored with the same content answers its stored result and is not decided again.
  */
 import type { MatchModel } from '../../resolvers/score/index.ts';
+import { mentionKey } from '../../resolvers/vocabulary.ts';
 import { mentionsByKeys } from '../../db/queries/state-writes.ts';
 import type { RegisterContext } from './context.ts';
 import { basisOf } from './matching/idf.ts';
@@ -37,7 +38,7 @@ export async function readAndDecide(
           ctx.db,
           checked.map((c) => c.prepared.input),
         )
-      ).map((row) => [`${row.source}\u0000${row.external_id}`, row]),
+      ).map((row) => [mentionKey(row.source, row.external_id), row]),
     );
     const reads = new BatchReads(ctx.db);
     const toDecide = checked.filter((c) => stored.get(c.key)?.content_hash !== c.prepared.contentHash);

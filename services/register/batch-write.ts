@@ -5,6 +5,7 @@
  * ChangeSet's buffer (state/change-set.ts, flush).
  */
 import type { MatchModel } from '../../resolvers/score/index.ts';
+import { mentionKey } from '../../resolvers/vocabulary.ts';
 import { mentionsByKeys, type MentionKeyRow } from '../../db/queries/state-writes.ts';
 import type { ActorInput, RegisterContext } from './context.ts';
 import { jsonScore } from './matching/candidates.ts';
@@ -95,7 +96,7 @@ export async function writePlan(
 function storedIds(rows: MentionKeyRow[]): Map<string, { id: number; counterpartyId: number | null }> {
   return new Map(
     rows.map((row) => [
-      `${row.source}\u0000${row.external_id}`,
+      mentionKey(row.source, row.external_id),
       { id: Number(row.id), counterpartyId: row.counterparty_id === null ? null : Number(row.counterparty_id) },
     ]),
   );
