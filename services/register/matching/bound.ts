@@ -24,7 +24,7 @@ function weightOf(model: MatchModel, feature: string, level: string | null): num
   if (level === null) return 0;
   const params = model.features[feature];
   const k = params ? params.levels.indexOf(level) : -1;
-  return k < 0 || !params ? 0 : (featureWeights(params)[k] as number);
+  return k < 0 || !params ? 0 : (featureWeights(params)[k] ?? 0);
 }
 
 /** The largest weight a feature can add: its best level, or 0 (not observed). */

@@ -18,6 +18,7 @@ import type { ChangeSet } from '../state/change-set.ts';
 import { canonicalRow } from '../state/tables.ts';
 import { write } from '../transaction.ts';
 import { decide, type ContractContext, type PartyContext } from './decide.ts';
+import { targetOf } from './apply.ts';
 import { prepareMention, type PreparedMention } from './prepare.ts';
 import { resultOf, type ResolveResult } from './result.ts';
 import { writeMention } from './write-mention.ts';
@@ -121,7 +122,7 @@ export async function resolveWithin(
   // A new mention linked or sent to review changes that one counterparty (and, linked, its names): locked with the
   // ids in one round trip, in the order the write takes them (resolve/apply.ts). A stored mention locks its old
   // counterparty first (resolve/write-mention.ts), so it takes its locks there, as before.
-  const target = !found && (outcome.status === 'linked' || outcome.status === 'review') ? [outcome.counterpartyId as number] : [];
+  const target = !found && (outcome.status === 'linked' || outcome.status === 'review') ? [targetOf(outcome)] : [];
   await cs.reserveAndLock(
     {
       counterparty: outcome.status === 'new' ? 1 : 0,
