@@ -5,7 +5,7 @@
  */
 import type { MatchModel } from '../../resolvers/score/index.ts';
 import { mentionKey } from '../../resolvers/vocabulary.ts';
-import { mentionsByKeys } from '../../db/queries/state-writes.ts';
+import { mentionsByRef } from '../../db/queries/mentions-by-ref.ts';
 import type { RegisterContext } from './context.ts';
 import { basisOf } from './matching/idf.ts';
 import { BatchReads } from './matching/batch-reads.ts';
@@ -34,7 +34,7 @@ export async function readAndDecide(
   const { stored, reads } = await timed(stages, 'read', async () => {
     const stored = new Map(
       (
-        await mentionsByKeys(
+        await mentionsByRef(
           ctx.db,
           checked.map((c) => c.prepared.input),
         )

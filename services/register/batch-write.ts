@@ -6,7 +6,7 @@
  */
 import type { MatchModel } from '../../resolvers/score/index.ts';
 import { mentionKey } from '../../resolvers/vocabulary.ts';
-import { mentionsByKeys, type MentionKeyRow } from '../../db/queries/state-writes.ts';
+import { mentionsByRef, type StoredMentionRow } from '../../db/queries/mentions-by-ref.ts';
 import type { ActorInput, RegisterContext } from './context.ts';
 import { jsonScore } from './matching/candidates.ts';
 import type { ContractContext, Outcome } from './resolve/decide.ts';
@@ -55,7 +55,7 @@ export async function writePlan(
         );
         const members = chunk.flatMap((g) => g.members);
         const found = storedIds(
-          await mentionsByKeys(
+          await mentionsByRef(
             cs.trx,
             members.filter((m) => recheck || m.stored).map((m) => m.prepared.input),
           ),
@@ -93,7 +93,7 @@ export async function writePlan(
 }
 
 /** Ids of stored mentions (with their counterparty) by sort key. */
-function storedIds(rows: MentionKeyRow[]): Map<string, { id: number; counterpartyId: number | null }> {
+function storedIds(rows: StoredMentionRow[]): Map<string, { id: number; counterpartyId: number | null }> {
   return new Map(
     rows.map((row) => [
       mentionKey(row.source, row.external_id),

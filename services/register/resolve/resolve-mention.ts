@@ -8,7 +8,7 @@
 import { contractByRef, lockAndReadDecisionBasics, lockNeighbourhoodKeys, partyMentionsByPosition } from '../../../db/queries/resolve-reads.ts';
 import type { ParsedContract } from '../../../resolvers/terms/index.ts';
 import type { MentionInput } from '../../../resolvers/vocabulary.ts';
-import { mentionsByKeys } from '../../../db/queries/state-writes.ts';
+import { mentionByRef } from '../../../db/queries/mentions-by-ref.ts';
 import type { ActorInput, RegisterContext } from '../context.ts';
 import { modelFromSettings } from '../matching/model.ts';
 import { keysOfAnalysis } from '../matching/keys.ts';
@@ -85,7 +85,7 @@ export async function resolveWithin(
 ): Promise<ResolveResult> {
   const at = ctx.now();
   let prepared = preparedInput;
-  const [stored] = await mentionsByKeys(cs.trx, [prepared.input]);
+  const stored = await mentionByRef(cs.trx, prepared.input);
   const found = stored ? canonicalRow('mention', stored) : undefined;
   // A changed contract that keeps a party's name but declares other former or trade names for it resolves it again.
   if (found && !options.force && declaredNamesChanged(found, options.party)) options = { ...options, force: true };
