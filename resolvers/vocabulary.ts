@@ -79,6 +79,12 @@ export const MAX_NAME_LENGTH = 1000;
 export const MAX_ID_LENGTH = 300;
 
 /**
+ * The longest contract title (characters): the API schemas and the register check it. A contract search text (`q`)
+ * is held to it too: a title is the longest thing it can match.
+ */
+export const MAX_TITLE_LENGTH = 1000;
+
+/**
  * One string for a mention's identity (source, externalId), as a map key. U+0000 separates the parts: the
  * register refuses it in stored text, so no two identities share a key.
  */

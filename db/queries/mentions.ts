@@ -1,6 +1,5 @@
-/** Mentions: by source id, by counterparty, pending a contract, open for re-resolution. */
+/** Mentions: by id, by counterparty, pending a contract, open for re-resolution (by (source, externalId): mentions-by-ref.ts). */
 import { sql, type Selectable } from 'kysely';
-import { mentionKey } from '../../resolvers/vocabulary.ts';
 import type { MentionTable } from '../types.ts';
 import type { Queryable } from './util.ts';
 import { composedEvidence } from './explanations.ts';
@@ -56,52 +55,6 @@ export function toMentionView(r: MentionRowWithEvidence): MentionView {
 export async function getMention(db: Queryable, mentionId: number): Promise<MentionView | undefined> {
   const row = await db.selectFrom('mention').selectAll().select(composedEvidence('mention').as('full_evidence')).where('id', '=', mentionId).executeTakeFirst();
   return row ? toMentionView(row) : undefined;
-}
-
-export async function findMentionBySourceId(db: Queryable, source: string, externalId: string): Promise<MentionView | undefined> {
-  const row = await db
-    .selectFrom('mention')
-    .selectAll()
-    .select(composedEvidence('mention').as('full_evidence'))
-    .where('source', '=', source)
-    .where('external_id', '=', externalId)
-    .executeTakeFirst();
-  return row ? toMentionView(row) : undefined;
-}
-
-/** A mention's identity as its source sends it. */
-export interface MentionRef {
-  source: string;
-  externalId: string;
-}
-
-/** What a bulk look-up by identity answers for each stored mention. */
-export interface StoredMention {
-  id: number;
-  counterpartyId: number | null;
-  contentHash: string;
-}
-
-/** Identities per statement: a whole job's mentions are looked up at once by its planner. */
-const REF_LOOKUP_CHUNK = 5000;
-
-/**
- * The stored mentions under these identities, keyed by mentionKey(source, externalId): the one way to look mentions
- * up by (source, externalId) in bulk. One statement per chunk, a join with the unnested pairs (the (source,
- * external_id) unique index answers it on both backends).
- */
-export async function storedMentionsByRef(db: Queryable, refs: readonly MentionRef[]): Promise<Map<string, StoredMention>> {
-  const out = new Map<string, StoredMention>();
-  for (let start = 0; start < refs.length; start += REF_LOOKUP_CHUNK) {
-    const slice = refs.slice(start, start + REF_LOOKUP_CHUNK);
-    const result = await sql<{ id: string | number; source: string; external_id: string; counterparty_id: string | number | null; content_hash: string }>`
-      SELECT m.id, m.source, m.external_id, m.counterparty_id, m.content_hash FROM mention m
-      JOIN unnest(${sql.val(slice.map((r) => r.source))}::text[], ${sql.val(slice.map((r) => r.externalId))}::text[]) AS k(source, external_id)
-        ON m.source = k.source AND m.external_id = k.external_id`.execute(db);
-    for (const r of result.rows)
-      out.set(mentionKey(r.source, r.external_id), { id: id(r.id), counterpartyId: idOrNull(r.counterparty_id), contentHash: r.content_hash });
-  }
-  return out;
 }
 
 export async function mentionsOfCounterparty(db: Queryable, counterpartyId: number, page: { afterId?: number; limit?: number } = {}): Promise<MentionView[]> {

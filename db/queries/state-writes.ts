@@ -5,7 +5,6 @@
  */
 import { sql, type RawBuilder, type Transaction } from 'kysely';
 import type { Database } from '../types.ts';
-import type { Queryable } from './util.ts';
 
 type Trx = Transaction<Database>;
 type Values = Record<string, unknown>;
@@ -173,24 +172,3 @@ export function insertClause(values: Values) {
 export function setClause(values: Values) {
   return sql.join(Object.keys(values).map((c) => sql`${sql.ref(c)} = ${values[c]}`));
 }
-
-/** Stored mentions by (source, externalId), in one statement. */
-export async function mentionsByKeys(db: Queryable, keys: readonly { source: string; externalId: string }[]): Promise<MentionKeyRow[]> {
-  if (keys.length === 0) return [];
-  const result = await sql<MentionKeyRow>`
-    SELECT m.*, e.body AS explanation_body FROM mention m
-    LEFT JOIN explanation e ON e.id = m.explanation_id
-    JOIN unnest(${sql.val(keys.map((k) => k.source))}::text[], ${sql.val(keys.map((k) => k.externalId))}::text[]) AS k(source, external_id)
-      ON m.source = k.source AND m.external_id = k.external_id`.execute(db);
-  return result.rows;
-}
-
-/** A stored mention with the body of its explanation (null when its evidence is inline). */
-export type MentionKeyRow = Values & {
-  id: unknown;
-  source: string;
-  external_id: string;
-  content_hash: string;
-  counterparty_id: unknown;
-  explanation_body: Record<string, unknown> | null;
-};

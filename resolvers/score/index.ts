@@ -30,7 +30,9 @@ export {
   type Hold,
   type Override,
 } from './decision-rules.ts';
-export { compareRecords, compareWeighted, type Comparison } from './compare-records.ts';
+export { compareRecords, compareWeighted, qualifierLevel, type Comparison } from './compare-records.ts';
+// The per-feature levels of the context features, for the register's cheap score bound (services/register/matching/bound.ts).
+export { acronymLevel, jurisdictionLevel, legalFormLevel } from './context-levels.ts';
 export { scorePair, scoreComparison, explainLevels, levelVector, type PairScore, type FeatureExplanation, type ScoreOptions } from './score-pair.ts';
 export { trainModel, type TrainOptions } from './train-model.ts';
 export { compareCandidates, comparedVectors, randomPairVectors, scoreCompared, edgesOf, indexedPairsOf, type ComparedPairs } from './compare-candidates.ts';

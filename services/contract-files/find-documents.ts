@@ -10,6 +10,7 @@ import { open, readdir, readFile, stat } from 'node:fs/promises';
 import { basename, join } from 'node:path';
 import { FILE_LIMIT_DEFAULTS, detectFileType, isTextDocumentName, zipPackageKind, type FileLimits, type FileReject } from '../../resolvers/files/index.ts';
 import { MAX_CONTRACT_BYTES } from '../../resolvers/terms/index.ts';
+import { MAX_ID_LENGTH } from '../../resolvers/vocabulary.ts';
 import { extractDocxText, extractPdfText, type Extraction } from './extract-text.ts';
 import { archiveProblem, surveyZip, zipItems, type ZipSource } from './zip-archive.ts';
 
@@ -25,9 +26,6 @@ export interface FoundDocument {
 
 export type FoundReject = { kind: 'rejected' } & FileReject;
 export type Found = FoundDocument | FoundReject;
-
-/** The longest external id of a contract (services/register/contracts.ts). */
-export const MAX_PATH = 300;
 
 /** The archive given (or the only one to read) is over a limit: nothing in it is read. */
 export class ArchiveRefusedError extends Error {
@@ -265,7 +263,8 @@ export class DocumentFinder {
 
   private document(path: string, fileType: FileType, extraction: Extraction): Found {
     if (!extraction.ok) return { kind: 'rejected', path, ...extraction.reject };
-    if (path.length > MAX_PATH) return rejected(path, 'path_too_long', `${path.length} characters; the limit is ${MAX_PATH}`);
+    // The path becomes the contract's external id, held to the register's id limit.
+    if (path.length > MAX_ID_LENGTH) return rejected(path, 'path_too_long', `${path.length} characters; the limit is ${MAX_ID_LENGTH}`);
     return { kind: 'document', path, title: titleOf(path), fileType, text: extraction.text };
   }
 }

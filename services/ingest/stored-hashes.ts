@@ -4,11 +4,11 @@
  */
 import type { Kysely } from 'kysely';
 import type { Database } from '../../db/types.ts';
-import { storedMentionsByRef } from '../../db/queries/mentions.ts';
-import type { MentionInput } from '../../resolvers/vocabulary.ts';
+import { mentionsByRef } from '../../db/queries/mentions-by-ref.ts';
+import { mentionKey, type MentionInput } from '../../resolvers/vocabulary.ts';
 
 /** The content hash of each of these mentions already stored, by mentionKey(source, externalId). */
 export async function storedHashes(db: Kysely<Database>, mentions: MentionInput[]): Promise<Map<string, string>> {
-  const stored = await storedMentionsByRef(db, mentions);
-  return new Map([...stored].map(([key, m]) => [key, m.contentHash]));
+  const stored = await mentionsByRef(db, mentions);
+  return new Map(stored.map((m) => [mentionKey(m.source, m.external_id), m.content_hash]));
 }

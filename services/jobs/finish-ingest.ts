@@ -13,7 +13,7 @@ import { clusterRulesOf } from '../../resolvers/score/index.ts';
 import { counterpartyStates } from '../../db/queries/counterparties.ts';
 import { finishIngestRun } from '../../db/queries/ingest-runs.ts';
 import { partitionResults, updateJob, type JobRow } from '../../db/queries/jobs.ts';
-import { storedMentionsByRef } from '../../db/queries/mentions.ts';
+import { mentionsByRef } from '../../db/queries/mentions-by-ref.ts';
 import { emptyCounts, unaccounted, type IngestCounts } from '../ingest/ingest-counts.ts';
 import { RegisterError } from '../register/errors.ts';
 import { mergeCounterparties } from '../register/merge-counterparties.ts';
@@ -80,7 +80,9 @@ async function mergeAcrossPartitions(deps: JobDeps, job: JobRow, crossPairs: rea
   if (crossPairs.length === 0) return [];
   const refs = crossPairs.flatMap(([a, b]) => [a, b].map(([source, externalId]) => ({ source, externalId })));
   const cpOf = new Map(
-    [...(await storedMentionsByRef(deps.db, refs))].flatMap(([key, m]) => (m.counterpartyId === null ? [] : [[key, m.counterpartyId] as const])),
+    (await mentionsByRef(deps.db, refs)).flatMap((m) =>
+      m.counterparty_id === null ? [] : [[mentionKey(m.source, m.external_id), Number(m.counterparty_id)] as const],
+    ),
   );
   const best = new Map<string, ScoredEdge>();
   for (const [a, b, score] of crossPairs) {

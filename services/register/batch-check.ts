@@ -2,7 +2,7 @@
  * The check stage of a batch: each input checked and analysed (resolve/prepare.ts); a bad one, or one whose
  * (source, externalId) the batch already holds, is rejected in place and the rest go on.
  */
-import type { MentionInput } from '../../resolvers/vocabulary.ts';
+import { mentionKey, type MentionInput } from '../../resolvers/vocabulary.ts';
 import { RegisterError } from './errors.ts';
 import { prepareMention, type PreparedMention } from './resolve/prepare.ts';
 import type { ResolveResult } from './resolve/resolve-mention.ts';
@@ -10,7 +10,7 @@ import type { ResolveResult } from './resolve/resolve-mention.ts';
 export type BatchItemResult = ResolveResult | { status: 'rejected'; index: number; error: { code: string; message: string; field?: string } };
 
 export function sortKey(p: PreparedMention): string {
-  return `${p.input.source}\u0000${p.input.externalId}`;
+  return mentionKey(p.input.source, p.input.externalId);
 }
 
 export type Checked = { index: number; prepared: PreparedMention; key: string };

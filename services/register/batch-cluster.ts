@@ -18,7 +18,7 @@ import type { PreparedMention } from './resolve/prepare.ts';
 export interface Pending {
   index: number;
   prepared: PreparedMention;
-  /** `${source}\u0000${externalId}`: the batch's order and identity of a mention. */
+  /** mentionKey(source, externalId) (resolvers/vocabulary.ts): the batch's order and identity of a mention. */
   key: string;
   outcome: Outcome;
   /** The read phase found the mention stored (with another content). */

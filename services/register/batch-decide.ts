@@ -4,7 +4,8 @@
  * mention stored with the same content answers its stored result and is not decided again.
  */
 import type { MatchModel } from '../../resolvers/score/index.ts';
-import { mentionsByKeys } from '../../db/queries/state-writes.ts';
+import { mentionKey } from '../../resolvers/vocabulary.ts';
+import { mentionsByRef } from '../../db/queries/mentions-by-ref.ts';
 import type { RegisterContext } from './context.ts';
 import { basisOf } from './matching/idf.ts';
 import { BatchReads } from './matching/batch-reads.ts';
@@ -33,11 +34,11 @@ export async function readAndDecide(
   const { stored, reads } = await timed(stages, 'read', async () => {
     const stored = new Map(
       (
-        await mentionsByKeys(
+        await mentionsByRef(
           ctx.db,
           checked.map((c) => c.prepared.input),
         )
-      ).map((row) => [`${row.source}\u0000${row.external_id}`, row]),
+      ).map((row) => [mentionKey(row.source, row.external_id), row]),
     );
     const reads = new BatchReads(ctx.db);
     const toDecide = checked.filter((c) => stored.get(c.key)?.content_hash !== c.prepared.contentHash);

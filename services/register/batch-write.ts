@@ -5,7 +5,8 @@
  * ChangeSet's buffer (state/change-set.ts, flush).
  */
 import type { MatchModel } from '../../resolvers/score/index.ts';
-import { mentionsByKeys, type MentionKeyRow } from '../../db/queries/state-writes.ts';
+import { mentionKey } from '../../resolvers/vocabulary.ts';
+import { mentionsByRef, type StoredMentionRow } from '../../db/queries/mentions-by-ref.ts';
 import type { ActorInput, RegisterContext } from './context.ts';
 import { jsonScore } from './matching/candidates.ts';
 import type { ContractContext, Outcome } from './resolve/decide.ts';
@@ -57,7 +58,7 @@ export async function writePlan(
         );
         const members = chunk.flatMap((g) => g.members);
         const found = storedIds(
-          await mentionsByKeys(
+          await mentionsByRef(
             cs.trx,
             members.filter((m) => recheck || m.stored).map((m) => m.prepared.input),
           ),
@@ -104,10 +105,10 @@ export async function writePlan(
 }
 
 /** Ids of stored mentions (with their counterparty) by sort key. */
-function storedIds(rows: MentionKeyRow[]): Map<string, { id: number; counterpartyId: number | null }> {
+function storedIds(rows: StoredMentionRow[]): Map<string, { id: number; counterpartyId: number | null }> {
   return new Map(
     rows.map((row) => [
-      `${row.source}\u0000${row.external_id}`,
+      mentionKey(row.source, row.external_id),
       { id: Number(row.id), counterpartyId: row.counterparty_id === null ? null : Number(row.counterparty_id) },
     ]),
   );

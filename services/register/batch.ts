@@ -37,7 +37,7 @@ export { WRITE_CHUNK } from './batch-write.ts';
 /** Options of resolveBatch. */
 export interface BatchOptions {
   /**
-   * The pairs of the batch's mentions to compare, by (source, externalId) sort key (`${source}\u0000${externalId}`),
+   * The pairs of the batch's mentions to compare, by (source, externalId) sort key (mentionKey, resolvers/vocabulary.ts),
    * instead of the batch's own blocking: a partition of a job compares exactly the pairs its plan compared over the
    * whole job, so that a job cut into partitions clusters as the whole batch does. Default: the batch's blocking.
    */

@@ -19,7 +19,7 @@ import { earlierContractOf } from './earlier-contract.ts';
 import { contractToStore, definedTermIdsOf, getContract, partiesFromPosition, partyOfMention, type ContractView } from '../../db/queries/contracts.ts';
 import { analyse } from './matching/analysis.ts';
 import { canonicalRow, type StateTable } from './state/tables.ts';
-import type { MentionInput } from '../../resolvers/vocabulary.ts';
+import { MAX_TITLE_LENGTH, type MentionInput } from '../../resolvers/vocabulary.ts';
 
 export interface ContractInput {
   source: string;
@@ -41,15 +41,14 @@ export interface StoreContractResult {
 }
 
 export const PARTY_SOURCE_PREFIX = 'contract:';
-const MAX_TITLE = 1000;
 
 function check(input: ContractInput): void {
   for (const field of ['source', 'externalId'] as const) {
     if (typeof input[field] !== 'string' || input[field].trim() === '') throw invalid(field, 'must be a non-empty string');
     if (input[field].length > 300) throw invalid(field, 'is longer than 300 characters');
   }
-  if (input.title !== undefined && (typeof input.title !== 'string' || input.title.length > MAX_TITLE)) {
-    throw invalid('title', `must be a string of at most ${MAX_TITLE} characters`);
+  if (input.title !== undefined && (typeof input.title !== 'string' || input.title.length > MAX_TITLE_LENGTH)) {
+    throw invalid('title', `must be a string of at most ${MAX_TITLE_LENGTH} characters`);
   }
   if (typeof input.text !== 'string') throw invalid('text', 'must be a string');
   const problem = checkContractText(input.text);

@@ -5,7 +5,7 @@
  * Identifiers already held keep their normalised values: the jurisdiction only guides how identifiers added
  * later are read, and candidate scoring reads the current value on every resolution.
  */
-import { parseJurisdiction } from '../../resolvers/compare/jurisdiction.ts';
+import { parseJurisdiction } from '../../resolvers/compare/index.ts';
 import type { ActorInput, RegisterContext } from './context.ts';
 import { RegisterError, invalid } from './errors.ts';
 import { commitEvent } from './history/commit.ts';

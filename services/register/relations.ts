@@ -74,7 +74,9 @@ export async function addRelation(ctx: RegisterContext, input: RelationInput, wh
     const to = survivorFor(cs, input.toId);
     const row = await insertRelation(cs, from, to, input, who.actor, at);
     if (!row) {
-      const existing = (await findRelation(cs.trx, from, to, input.type)) as number;
+      // The insert met the relation already there; both ends are locked, so it is still there.
+      const existing = await findRelation(cs.trx, from, to, input.type);
+      if (existing === undefined) throw new Error(`relation ${from} ${input.type} ${to}: the insert found it but the read did not`);
       return { eventId: null, relationId: existing };
     }
     await touchCounterparty(cs, from, at);

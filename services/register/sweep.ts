@@ -72,7 +72,7 @@ export async function sweep(
         links.flatMap((l) => [l.counterpartyId, l.otherCounterpartyId ?? l.counterpartyId]),
       );
       const apart = new Set(
-        links.filter((l) => l.otherCounterpartyId !== null).flatMap((l) => [survivors.get(l.counterpartyId), survivors.get(l.otherCounterpartyId as number)]),
+        links.flatMap((l) => (l.otherCounterpartyId === null ? [] : [survivors.get(l.counterpartyId), survivors.get(l.otherCounterpartyId)])),
       );
       for (const c of candidates) {
         // Each pair once: from its lower id.

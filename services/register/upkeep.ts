@@ -10,7 +10,8 @@ import type { ChangeSet } from './state/change-set.ts';
 import type { StateRow } from './state/tables.ts';
 import { write } from './transaction.ts';
 import { recordedNamesOf } from './mention-names.ts';
-import { counterpartiesOfMentions, mentionOutcome, findMentionBySourceId } from '../../db/queries/mentions.ts';
+import { counterpartiesOfMentions, mentionOutcome } from '../../db/queries/mentions.ts';
+import { mentionByRef } from '../../db/queries/mentions-by-ref.ts';
 import { partyMentionIdsOf } from '../../db/queries/contracts.ts';
 import { openItemsOfMention } from '../../db/queries/review.ts';
 
@@ -125,9 +126,9 @@ export function withdrawMention(ctx: RegisterContext, mentionId: number, who: Ac
 }
 
 export async function withdrawMentionBySourceId(ctx: RegisterContext, source: string, externalId: string, who: ActorInput): Promise<MentionChangeResult> {
-  const mention = await findMentionBySourceId(ctx.db, source, externalId);
+  const mention = await mentionByRef(ctx.db, { source, externalId });
   if (!mention) throw notFound('mention', `${source}/${externalId}`);
-  return withdrawMention(ctx, mention.id, who);
+  return withdrawMention(ctx, Number(mention.id), who);
 }
 
 /** Withdraws a contract deleted in its source system, with every party mention it brought. */

@@ -7,9 +7,12 @@ import { execFileSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 
-/** A suite registered or skipped by hand on the backends' availability. */
+/**
+ * A suite registered or skipped by hand on the backends' availability, or a test (or suite) skipped or run on the
+ * backend it is given (`it.skipIf(ctx.backend === 'pglite')`): PostgreSQL-only work is a describePostgres suite.
+ */
 const HAND_ROLLED_SKIP =
-  /\?\s*describe\s*:\s*describe\.skip|\?\s*describe\.skip\s*:\s*describe|describe\.skipIf\(!?(?:isBackendAvailable|available|unavailable)/;
+  /\?\s*describe\s*:\s*describe\.skip|\?\s*describe\.skip\s*:\s*describe|describe\.skipIf\(!?(?:isBackendAvailable|available|unavailable)|\b(?:it|test|describe)\.(?:skipIf|runIf)\([^)]*\bbackend\b/;
 
 function trackedTestFiles(): string[] {
   return (
@@ -25,6 +28,9 @@ describe('one test harness', () => {
     expect(HAND_ROLLED_SKIP.test("(isBackendAvailable('postgres') ? describe : describe.skip)('x', () => {});")).toBe(true);
     expect(HAND_ROLLED_SKIP.test("describe.skipIf(!isBackendAvailable('postgres'))('x', () => {});")).toBe(true);
     expect(HAND_ROLLED_SKIP.test("(unavailable ? describe.skip : describe)('x', () => {});")).toBe(true);
+    expect(HAND_ROLLED_SKIP.test("  it.skipIf(ctx.backend === 'pglite')('two pools', async () => {});")).toBe(true);
+    expect(HAND_ROLLED_SKIP.test("  test.runIf(backend === 'postgres')('a killed child', async () => {});")).toBe(true);
+    expect(HAND_ROLLED_SKIP.test("  it.skipIf(process.platform === 'win32')('a symlink', () => {});")).toBe(false);
     expect(HAND_ROLLED_SKIP.test("describePostgres('x', () => {});")).toBe(false);
     expect(HAND_ROLLED_SKIP.test("describe.skipIf(!present)('the committed table', () => {});")).toBe(false);
   });

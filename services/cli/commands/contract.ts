@@ -5,12 +5,12 @@
  */
 import type { Command } from 'commander';
 import type { InContractResolution as Resolution, NotPartyGroups, ParsedContract as Parsed } from '../../../resolvers/terms/index.ts';
+import { MAX_NAME_LENGTH } from '../../../resolvers/vocabulary.ts';
 import { CliError } from '../cli-error.ts';
 import { outcomeWords } from '../outcome-words.ts';
 
 /** Same limit as resolvers/terms (MAX_CONTRACT_BYTES); repeated here so the file is refused before it is read. */
 const MAX_BYTES = 1024 * 1024;
-const MAX_MENTION = 1000;
 
 interface ParseOptions {
   json?: boolean;
@@ -54,8 +54,8 @@ export default function register(program: Command): void {
     .option('--mention <text>', 'also resolve this mention inside the contract, e.g. "the Licensee"')
     .showHelpAfterError(true)
     .action(async (file: string, options: ParseOptions) => {
-      if (options.mention !== undefined && [...options.mention].length > MAX_MENTION) {
-        throw new CliError(`--mention: over the limit of ${MAX_MENTION} characters`);
+      if (options.mention !== undefined && [...options.mention].length > MAX_NAME_LENGTH) {
+        throw new CliError(`--mention: over the limit of ${MAX_NAME_LENGTH} characters`);
       }
       const text = await readContract(file);
       const { classifyNotParties, parseParties, resolveInContract } = await import('../../../resolvers/terms/index.ts');

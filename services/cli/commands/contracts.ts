@@ -4,6 +4,7 @@
  * register's contract path, with progress on stderr, a rejects file and a summary whose counts reconcile.
  */
 import type { Command } from 'commander';
+import { MAX_ID_LENGTH } from '../../../resolvers/vocabulary.ts';
 import { CliError } from '../cli-error.ts';
 import { countOf } from '../count-words.ts';
 import { DB_OPTION_HELP } from './serve.ts';
@@ -34,7 +35,9 @@ export default function register(program: Command): void {
     .option('--json', 'print the summary as JSON')
     .showHelpAfterError(true)
     .action(async (target: string, options: ImportCliOptions) => {
-      if (options.source.trim() === '' || options.source.length > 300) throw new CliError('--source: expected a name of 1 to 300 characters');
+      if (options.source.trim() === '' || options.source.length > MAX_ID_LENGTH) {
+        throw new CliError(`--source: expected a name of 1 to ${MAX_ID_LENGTH} characters`);
+      }
       const { importContractFiles } = await import('../../contract-files/import-files.ts');
       const { ArchiveRefusedError, TargetError } = await import('../../contract-files/find-documents.ts');
       const { withDatabase, cliActor, progressReporter } = await import('../../ingest/cli-support.ts');

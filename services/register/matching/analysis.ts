@@ -2,8 +2,7 @@
  * The register's one door to name analysis (resolvers/analyse). Analyses are pure, so a bounded in-process cache
  * is safe: it can be dropped at any time and another instance computes the same values.
  */
-import { analyseName } from '../../../resolvers/analyse/index.ts';
-import type { NameAnalysis } from '../../../resolvers/analyse/types.ts';
+import { analyseName, type NameAnalysis } from '../../../resolvers/analyse/index.ts';
 
 const CACHE_LIMIT = 50_000;
 const cache = new Map<string, NameAnalysis>();

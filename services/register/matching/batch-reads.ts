@@ -5,7 +5,7 @@
  * instead of one per mention. Each value is exactly what the per-mention read would answer on the same snapshot,
  * so the outcomes do not change; the memo lives for one batch only and is never shared between requests.
  */
-import type { NameAnalysis } from '../../../resolvers/analyse/types.ts';
+import type { NameAnalysis } from '../../../resolvers/analyse/index.ts';
 import type { Identifier } from '../../../resolvers/vocabulary.ts';
 import { candidateDetailsWithTokenCounts, type CandidateDetail } from '../../../db/queries/blocking-keys.ts';
 import { listOwnEntities, type OwnEntityView } from '../../../db/queries/own-entities.ts';

@@ -9,16 +9,22 @@
  * a rival or a candidate worth a person's look, so it need not be scored for a decision (matching/candidates.ts).
  */
 import type { MatchRecord } from '../../../resolvers/block/index.ts';
-import { featureWeights, FEATURE_NAMES, type MatchModel } from '../../../resolvers/score/index.ts';
-import { acronymLevel, jurisdictionLevel, legalFormLevel } from '../../../resolvers/score/context-levels.ts';
-import { qualifierLevel } from '../../../resolvers/score/compare-records.ts';
+import {
+  acronymLevel,
+  featureWeights,
+  FEATURE_NAMES,
+  jurisdictionLevel,
+  legalFormLevel,
+  qualifierLevel,
+  type MatchModel,
+} from '../../../resolvers/score/index.ts';
 
 /** Weight of one observed level under the model (an unobserved or unknown level weighs 0, as in explainLevels). */
 function weightOf(model: MatchModel, feature: string, level: string | null): number {
   if (level === null) return 0;
   const params = model.features[feature];
   const k = params ? params.levels.indexOf(level) : -1;
-  return k < 0 || !params ? 0 : (featureWeights(params)[k] as number);
+  return k < 0 || !params ? 0 : (featureWeights(params)[k] ?? 0);
 }
 
 /** The largest weight a feature can add: its best level, or 0 (not observed). */

@@ -2,7 +2,7 @@
  * Candidates for one name from the register, scored: blocking keys and identifier holders (both indexed tables),
  * then resolvers/score on every stored name of each candidate (the best name speaks for the counterparty).
  */
-import type { NameAnalysis } from '../../../resolvers/analyse/types.ts';
+import type { NameAnalysis } from '../../../resolvers/analyse/index.ts';
 import type { MatchRecord } from '../../../resolvers/block/index.ts';
 import { scorePair, type MatchModel, type PairScore } from '../../../resolvers/score/index.ts';
 import type { Identifier } from '../../../resolvers/vocabulary.ts';

@@ -2,8 +2,7 @@
  * The match model in force: read from matcher_settings on every resolution (never cached in-process, so that
  * every instance uses the same thresholds the moment they change); the built-in model until one is stored.
  */
-import { parseMatchModel, type MatchModel } from '../../../resolvers/score/index.ts';
-import { DEFAULT_MATCH_MODEL } from '../../../resolvers/score/default-model.ts';
+import { DEFAULT_MATCH_MODEL, parseMatchModel, type MatchModel } from '../../../resolvers/score/index.ts';
 import { readSettings, type StoredSettings } from '../../../db/queries/settings.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
 

@@ -66,6 +66,15 @@ async function addMentionIdentifiers(
   return notes;
 }
 
+/**
+ * The counterparty a linked or review outcome names. A batch's clustered placeholder (batch-plan.ts clusteredWith)
+ * gets its id before it is written, so one still without an id here is a bug, refused before it writes.
+ */
+export function targetOf(outcome: Outcome): number {
+  if (outcome.counterpartyId === undefined) throw new Error(`a ${outcome.status} outcome without a counterpartyId`);
+  return outcome.counterpartyId;
+}
+
 export async function applyOutcome(
   cs: ChangeSet,
   prepared: PreparedMention,
@@ -79,8 +88,9 @@ export async function applyOutcome(
   let created = false;
   let recordedName: RecordedName | null = null;
   if (outcome.status === 'linked' || outcome.status === 'review') {
-    await lockActive(cs, [outcome.counterpartyId as number]);
-    counterpartyId = survivorFor(cs, outcome.counterpartyId as number);
+    const target = targetOf(outcome);
+    await lockActive(cs, [target]);
+    counterpartyId = survivorFor(cs, target);
   }
   if (outcome.status === 'new') {
     const kind = prepared.analysis.kind === 'person' ? 'person' : prepared.analysis.kind === 'organisation' ? 'organisation' : 'unknown';

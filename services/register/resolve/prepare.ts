@@ -4,7 +4,7 @@
  * repeated (source, externalId) with the same content a no-op.
  */
 import { createHash } from 'node:crypto';
-import type { NameAnalysis } from '../../../resolvers/analyse/types.ts';
+import type { NameAnalysis } from '../../../resolvers/analyse/index.ts';
 import type { Identifier, MentionInput } from '../../../resolvers/vocabulary.ts';
 import { invalid } from '../errors.ts';
 import { analyse } from '../matching/analysis.ts';

@@ -8,7 +8,7 @@
 import { contractByRef, lockAndReadDecisionBasics, lockNeighbourhoodKeys, partyMentionsByPosition } from '../../../db/queries/resolve-reads.ts';
 import type { ParsedContract } from '../../../resolvers/terms/index.ts';
 import type { MentionInput } from '../../../resolvers/vocabulary.ts';
-import { mentionsByKeys } from '../../../db/queries/state-writes.ts';
+import { mentionByRef } from '../../../db/queries/mentions-by-ref.ts';
 import type { ActorInput, RegisterContext } from '../context.ts';
 import { modelFromSettings } from '../matching/model.ts';
 import { keysOfAnalysis } from '../matching/keys.ts';
@@ -18,6 +18,7 @@ import type { ChangeSet } from '../state/change-set.ts';
 import { canonicalRow } from '../state/tables.ts';
 import { write } from '../transaction.ts';
 import { decide, type ContractContext, type PartyContext } from './decide.ts';
+import { targetOf } from './apply.ts';
 import { prepareMention, type PreparedMention } from './prepare.ts';
 import { resultOf, type ResolveResult } from './result.ts';
 import { writeMention } from './write-mention.ts';
@@ -84,7 +85,7 @@ export async function resolveWithin(
 ): Promise<ResolveResult> {
   const at = ctx.now();
   let prepared = preparedInput;
-  const [stored] = await mentionsByKeys(cs.trx, [prepared.input]);
+  const stored = await mentionByRef(cs.trx, prepared.input);
   const found = stored ? canonicalRow('mention', stored) : undefined;
   // A changed contract that keeps a party's name but declares other former or trade names for it resolves it again.
   if (found && !options.force && declaredNamesChanged(found, options.party)) options = { ...options, force: true };
@@ -121,7 +122,7 @@ export async function resolveWithin(
   // A new mention linked or sent to review changes that one counterparty (and, linked, its names): locked with the
   // ids in one round trip, in the order the write takes them (resolve/apply.ts). A stored mention locks its old
   // counterparty first (resolve/write-mention.ts), so it takes its locks there, as before.
-  const target = !found && (outcome.status === 'linked' || outcome.status === 'review') ? [outcome.counterpartyId as number] : [];
+  const target = !found && (outcome.status === 'linked' || outcome.status === 'review') ? [targetOf(outcome)] : [];
   await cs.reserveAndLock(
     {
       counterparty: outcome.status === 'new' ? 1 : 0,

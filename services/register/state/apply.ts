@@ -6,7 +6,7 @@ import type { Transaction } from 'kysely';
 import type { Database } from '../../../db/types.ts';
 import { deepEqual } from './deep-equal.ts';
 import { deleteRow as deleteById, insertRow as insertValues, rowForUpdate, updateRow as updateById } from '../../../db/queries/state-rows.ts';
-import type { Op } from './ops.ts';
+import { intColumn, type Op } from './ops.ts';
 import { syncDerived, type DerivedContext } from './derived.ts';
 import { canonicalRow, toDbValues, type Row, type StateTable } from './tables.ts';
 
@@ -33,7 +33,7 @@ async function insertRow(trx: Transaction<Database>, table: StateTable, row: Row
 
 async function deleteRow(trx: Transaction<Database>, table: StateTable, row: Row, derived: DerivedContext) {
   await syncDerived(trx, { op: 'delete', table, row }, derived);
-  await deleteById(trx, table, row.id as number);
+  await deleteById(trx, table, intColumn(row, 'id'));
 }
 
 async function updateRow(trx: Transaction<Database>, table: StateTable, id: number, values: Row, refs: Row, derived: DerivedContext) {
@@ -57,7 +57,7 @@ export function invertOp(op: Op): Op {
 
 /** Checks that the state is as `op` left it, then applies its inverse. Returns the inverse (for the undo event). */
 export async function applyInverse(trx: Transaction<Database>, op: Op, derived: DerivedContext): Promise<Op> {
-  const id = op.op === 'update' ? op.id : (op.row.id as number);
+  const id = op.op === 'update' ? op.id : intColumn(op.row, 'id');
   const current = await readRow(trx, op.table, id);
   if (op.op === 'insert') {
     if (!current) throw new StateDriftError(op.table, id, 'the row it created is gone');

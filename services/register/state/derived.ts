@@ -8,6 +8,7 @@ import { deleteKeysOfName, insertKeysOfName, moveKeysOfName } from '../../../db/
 import { rowById } from '../../../db/queries/state-rows.ts';
 import type { Database } from '../../../db/types.ts';
 import type { Op } from './change-set.ts';
+import { intColumn } from './ops.ts';
 import type { Row } from './tables.ts';
 
 export interface DerivedContext {
@@ -17,7 +18,7 @@ export interface DerivedContext {
 
 export async function insertNameKeys(trx: Transaction<Database>, row: Row, derived: DerivedContext): Promise<void> {
   const keys = [...new Set(derived.nameKeys(row as { name: string; normalised: string; kind: string }))];
-  await insertKeysOfName(trx, keys, row.counterparty_id as number, row.id as number);
+  await insertKeysOfName(trx, keys, intColumn(row, 'counterparty_id'), intColumn(row, 'id'));
 }
 
 export async function syncDerived(trx: Transaction<Database>, op: Op, derived: DerivedContext): Promise<void> {
@@ -25,7 +26,7 @@ export async function syncDerived(trx: Transaction<Database>, op: Op, derived: D
   if (op.op === 'insert') {
     await insertNameKeys(trx, op.row, derived);
   } else if (op.op === 'delete') {
-    await deleteKeysOfName(trx, op.row.id as number);
+    await deleteKeysOfName(trx, intColumn(op.row, 'id'));
   } else {
     if ('name' in op.after || 'normalised' in op.after) {
       // The text changed: recompute its keys.
@@ -33,7 +34,7 @@ export async function syncDerived(trx: Transaction<Database>, op: Op, derived: D
       const row = await rowById(trx, 'counterparty_name', op.id);
       if (row) await insertNameKeys(trx, { ...row, id: op.id }, derived);
     } else if ('counterparty_id' in op.after) {
-      await moveKeysOfName(trx, op.id, op.after.counterparty_id as number);
+      await moveKeysOfName(trx, op.id, intColumn(op.after, 'counterparty_id'));
     }
   }
 }

@@ -10,6 +10,16 @@ export type Op =
   | { op: 'update'; table: StateTable; id: number; before: Row; after: Row; refs: Row }
   | { op: 'delete'; table: StateTable; row: Row };
 
+/**
+ * An int8 column of a row image (canonical: int8 as a number). Anything else is a corrupt image (an edited history
+ * payload): refused here, naming the column, rather than written as a wrong id.
+ */
+export function intColumn(row: Row, column: string): number {
+  const value = row[column];
+  if (typeof value !== 'number') throw new Error(`row image: ${column} is ${JSON.stringify(value) ?? 'missing'}, expected an integer id`);
+  return value;
+}
+
 /** The counterparty and mention columns of a row image (an update op's `refs`). */
 export function refsOf(table: StateTable, row: Row): Row {
   const refs: Row = {};

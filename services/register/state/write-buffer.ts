@@ -164,7 +164,10 @@ function renameNameOps(lists: Op[][], map: ReadonlyMap<number, number>): void {
       if (op.table !== 'counterparty_name' || done.has(op)) continue;
       done.add(op);
       if (op.op === 'update') op.id = map.get(op.id) ?? op.id;
-      else if (map.has(op.row.id as number)) op.row.id = map.get(op.row.id as number);
+      else {
+        const id = op.row.id;
+        if (typeof id === 'number' && map.has(id)) op.row.id = map.get(id);
+      }
     }
   }
 }

@@ -8,7 +8,7 @@ import type { FastifyInstance } from 'fastify';
 import { buildApp } from '../../../services/api/app.ts';
 import { createApiKey } from '../../../services/api/auth/keys.ts';
 import { openDatabase, type OpenedDatabase } from '../../../db/open-database.ts';
-import { describeEachBackend } from '../../support/database.ts';
+import { describeEachBackend, describePostgres, openTestDatabase, type TestDatabase } from '../../support/database.ts';
 
 async function listen(app: FastifyInstance): Promise<string> {
   await app.listen({ port: 0, host: '127.0.0.1' });
@@ -99,9 +99,27 @@ describeEachBackend('/v1 over real HTTP', (ctx) => {
     const followed = await fetch(`${base}${res.headers.get('location')}`, { headers: { authorization: `Bearer ${admin}` } });
     expect(followed.status).toBe(200);
   });
+});
 
-  it.skipIf(ctx.backend === 'pglite')('two instances with their own pools over one database answer the same', async () => {
-    const second: OpenedDatabase = await openDatabase(ctx.database().url!);
+// A second pool over the same database: PostgreSQL (PGlite is one in-process connection).
+describePostgres('/v1 over real HTTP: two instances [postgres]', () => {
+  let database: TestDatabase;
+  let app: FastifyInstance;
+  let base: string;
+  let admin: string;
+  beforeAll(async () => {
+    database = await openTestDatabase('postgres');
+    app = await buildApp({ db: database.db, backend: 'postgres', rateLimitPerMinute: false });
+    base = await listen(app);
+    admin = (await createApiKey(database.db, { scope: 'admin', label: 'http test' })).secret;
+  });
+  afterAll(async () => {
+    await app?.close();
+    await database?.close();
+  });
+
+  it('two instances with their own pools over one database answer the same', async () => {
+    const second: OpenedDatabase = await openDatabase(database.url!);
     const other = await buildApp({ db: second.db, backend: 'postgres', rateLimitPerMinute: false });
     const otherBase = await listen(other);
     try {
@@ -123,8 +141,7 @@ describeEachBackend('/v1 over real HTTP', (ctx) => {
       for (const r of answers) expect(r.status).toBe(200);
       const ids = new Set(results.map((r) => r.counterpartyId));
       expect(ids.size).toBe(1);
-      const count = await ctx
-        .db()
+      const count = await database.db
         .selectFrom('mention')
         .select((eb) => eb.fn.countAll<string>().as('n'))
         .where('source', '=', 'two')

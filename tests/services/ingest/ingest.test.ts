@@ -11,7 +11,7 @@ import { parse } from 'csv-parse/sync';
 import { ingestFile } from '../../../services/ingest/run-ingest.ts';
 import { unaccounted, COUNT_KEYS } from '../../../services/ingest/ingest-counts.ts';
 import { parseMapOptions, MappingError } from '../../../services/ingest/mapping.ts';
-import { describeEachBackend, makeTempDir, removeTempDir } from '../../support/database.ts';
+import { describeEachBackend, describePostgres, makeTempDir, openTestDatabase, removeTempDir, type TestDatabase } from '../../support/database.ts';
 
 const CSV = [
   'Party,Doc,Ref,Country',
@@ -107,54 +107,62 @@ describeEachBackend('ingest', (ctx) => {
     expect(rows).toHaveLength(60);
     expect(new Set(rows.map((r) => r.external_id)).size).toBe(60);
   });
+});
 
-  it.skipIf(ctx.backend === 'pglite')(
-    'resumes after the process is killed with SIGKILL, without duplicates',
-    async () => {
-      const file = join(dir, 'kill.ndjson');
-      const lines = Array.from({ length: 400 }, (_, i) =>
-        JSON.stringify({ externalId: `k-${i}`, text: `Harrowfen ${i % 2 ? 'Tooling' : 'Castings'} ${i} GmbH`, country: 'DE' }),
-      );
-      writeFileSync(file, `${lines.join('\n')}\n`);
-      const url = ctx.database().url!;
-      const run = (extra: string[] = []) =>
-        spawn(process.execPath, ['bin/cpreg.js', 'ingest', file, '--source', 'kill', '--db', url, '--batch-size', '25', ...extra], {
-          stdio: ['ignore', 'pipe', 'pipe'],
-        });
-      const child = run();
-      // Kill once some rows are stored, mid-run.
-      for (let i = 0; i < 600; i++) {
-        const n = await ctx
-          .db()
-          .selectFrom('mention')
-          .select((eb) => eb.fn.countAll<string>().as('n'))
-          .where('source', '=', 'kill')
-          .executeTakeFirstOrThrow();
-        if (Number(n.n) >= 50) break;
-        await new Promise((r) => setTimeout(r, 100));
-      }
-      child.kill('SIGKILL');
-      await new Promise((r) => child.once('exit', r));
-      const partial = await ctx
-        .db()
+// A child process killed mid-run needs a database two processes open at once: PostgreSQL.
+describePostgres('ingest: a killed run resumed [postgres]', () => {
+  let database: TestDatabase;
+  let dir: string;
+  beforeAll(async () => {
+    database = await openTestDatabase('postgres');
+    dir = makeTempDir();
+  });
+  afterAll(async () => {
+    await database?.close();
+    if (dir) removeTempDir(dir);
+  });
+
+  it('resumes after the process is killed with SIGKILL, without duplicates', async () => {
+    const file = join(dir, 'kill.ndjson');
+    const lines = Array.from({ length: 400 }, (_, i) =>
+      JSON.stringify({ externalId: `k-${i}`, text: `Harrowfen ${i % 2 ? 'Tooling' : 'Castings'} ${i} GmbH`, country: 'DE' }),
+    );
+    writeFileSync(file, `${lines.join('\n')}\n`);
+    const url = database.url!;
+    const run = (extra: string[] = []) =>
+      spawn(process.execPath, ['bin/cpreg.js', 'ingest', file, '--source', 'kill', '--db', url, '--batch-size', '25', ...extra], {
+        stdio: ['ignore', 'pipe', 'pipe'],
+      });
+    const child = run();
+    // Kill once some rows are stored, mid-run.
+    for (let i = 0; i < 600; i++) {
+      const n = await database.db
         .selectFrom('mention')
         .select((eb) => eb.fn.countAll<string>().as('n'))
         .where('source', '=', 'kill')
         .executeTakeFirstOrThrow();
-      expect(Number(partial.n)).toBeGreaterThan(0);
-      expect(Number(partial.n)).toBeLessThan(400);
-      const again = run(['--json']);
-      let out = '';
-      again.stdout.on('data', (d) => (out += String(d)));
-      const code = await new Promise((r) => again.once('exit', r));
-      expect(code).toBe(0);
-      const summary = JSON.parse(out.trim().split('\n').pop()!);
-      expect(summary.counts.read).toBe(400);
-      expect(summary.counts.already_ingested).toBe(Number(partial.n));
-      expect(summary.unaccounted).toBe(0);
-      const rows = await ctx.db().selectFrom('mention').select('external_id').where('source', '=', 'kill').execute();
-      expect(rows).toHaveLength(400);
-    },
-    120_000,
-  );
+      if (Number(n.n) >= 50) break;
+      await new Promise((r) => setTimeout(r, 100));
+    }
+    child.kill('SIGKILL');
+    await new Promise((r) => child.once('exit', r));
+    const partial = await database.db
+      .selectFrom('mention')
+      .select((eb) => eb.fn.countAll<string>().as('n'))
+      .where('source', '=', 'kill')
+      .executeTakeFirstOrThrow();
+    expect(Number(partial.n)).toBeGreaterThan(0);
+    expect(Number(partial.n)).toBeLessThan(400);
+    const again = run(['--json']);
+    let out = '';
+    again.stdout.on('data', (d) => (out += String(d)));
+    const code = await new Promise((r) => again.once('exit', r));
+    expect(code).toBe(0);
+    const summary = JSON.parse(out.trim().split('\n').pop()!);
+    expect(summary.counts.read).toBe(400);
+    expect(summary.counts.already_ingested).toBe(Number(partial.n));
+    expect(summary.unaccounted).toBe(0);
+    const rows = await database.db.selectFrom('mention').select('external_id').where('source', '=', 'kill').execute();
+    expect(rows).toHaveLength(400);
+  }, 120_000);
 });

@@ -26,6 +26,7 @@ import {
   undoEvent,
   unlinkMention,
   withdrawContract,
+  withdrawMentionBySourceId,
   type RegisterContext,
 } from '../../../services/register/index.ts';
 import { WHO, contextFor } from './support.ts';
@@ -48,6 +49,16 @@ describeEachBackend('register operations', (t) => {
       .executeTakeFirstOrThrow();
     return Number(row.n);
   }
+
+  it('withdraws a mention by its (source, externalId), and names the pair it does not hold', async () => {
+    const stored = await resolveMention(ctx, { source: 'erp-w', externalId: 'w1', text: 'Fernwhistle Pumps Ltd', country: 'GB' }, WHO);
+    const withdrawn = await withdrawMentionBySourceId(ctx, 'erp-w', 'w1', WHO);
+    expect(withdrawn).toMatchObject({ mentionId: stored.mentionId, status: 'withdrawn', previousCounterpartyId: stored.counterpartyId });
+    await expect(withdrawMentionBySourceId(ctx, 'erp-w', 'no-such', WHO)).rejects.toMatchObject({
+      code: 'NOT_FOUND',
+      message: 'mention erp-w/no-such does not exist',
+    });
+  });
 
   it('answers a repeated mention from storage, and re-resolves a changed one with a mention_changed event', async () => {
     const first = await resolveMention(ctx, { source: 'crm', externalId: 'r1', text: 'Saltmarsh Turbines Ltd', country: 'GB' }, WHO);

@@ -11,6 +11,7 @@ import { RESOLVE_OUT, RESOLVE_REQUIRED } from './mentions.ts';
 import type { FastifyInstance } from 'fastify';
 import type { RegisterContext } from '../../../register/context.ts';
 import type { AppDeps } from '../../types.ts';
+import { MAX_TITLE_LENGTH } from '../../../../resolvers/vocabulary.ts';
 
 export const CONTRACT_BODY_LIMIT = 1024 * 1024;
 const MAX_CONTRACT_TEXT = 1024 * 1024;
@@ -71,7 +72,7 @@ export function contractRoutes(app: FastifyInstance, deps: AppDeps, ctx: Registe
           properties: {
             source: SOURCE_ID,
             externalId: SOURCE_ID,
-            title: { type: 'string', maxLength: 1000 },
+            title: { type: 'string', maxLength: MAX_TITLE_LENGTH },
             text: { type: 'string', minLength: 1, maxLength: MAX_CONTRACT_TEXT },
             parties: {
               type: 'array',
@@ -166,7 +167,7 @@ export function contractRoutes(app: FastifyInstance, deps: AppDeps, ctx: Registe
         querystring: {
           type: 'object',
           additionalProperties: false,
-          properties: { q: { type: 'string', maxLength: 1000 }, source: SOURCE_ID, externalId: SOURCE_ID, ...PAGE_QUERY },
+          properties: { q: { type: 'string', maxLength: MAX_TITLE_LENGTH }, source: SOURCE_ID, externalId: SOURCE_ID, ...PAGE_QUERY },
         },
         response: {
           200: pagedOf({

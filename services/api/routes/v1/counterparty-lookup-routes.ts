@@ -10,6 +10,7 @@ import { legalFormFamily } from './legal-form.ts';
 import type { FastifyInstance } from 'fastify';
 import type { RegisterContext } from '../../../register/context.ts';
 import type { AppDeps } from '../../types.ts';
+import { MAX_NAME_LENGTH } from '../../../../resolvers/vocabulary.ts';
 import { MAX_SEARCH_RESULTS, SEARCH_HIT, searchCounterparties } from './search-counterparties.ts';
 
 const TAGS = ['counterparties'];
@@ -31,7 +32,7 @@ export function counterpartyLookupRoutes(app: FastifyInstance, deps: AppDeps, ct
         querystring: {
           type: 'object',
           additionalProperties: false,
-          properties: { q: { type: 'string', maxLength: 1000 }, ...PAGE_QUERY },
+          properties: { q: { type: 'string', maxLength: MAX_NAME_LENGTH }, ...PAGE_QUERY },
         },
         response: {
           200: pagedOf(SEARCH_HIT, {
