@@ -64,6 +64,15 @@ describe('compareNameTokens: distinguishing words', () => {
     expect(diff('Tollaby Fund One LP', 'Tollaby Fund Two LP').distinguishing?.kind).toBe('number');
     expect(diff('Tollaby Capital 2 LP', 'Tollaby Capital 3 LP').distinguishing?.kind).toBe('number');
   });
+  it('a class letter on each side is a series mark ("Class A" / "Class B" shares or funds: common practice)', () => {
+    expect(diff('Tollaby Growth Fund Class A', 'Tollaby Growth Fund Class B').distinguishing).toEqual({ kind: 'number', tokens: ['a', 'b'] });
+    expect(diff('Tollaby Income Class A Shares', 'Tollaby Income Class B Shares').distinguishing).toEqual({ kind: 'number', tokens: ['a', 'b'] });
+    // "C" (like I, V, X, L, D, M) also reads as a Roman numeral, so it is a number token by itself: still a series mark.
+    expect(diff('Tollaby Income Class A Shares', 'Tollaby Income Class C Shares').distinguishing?.kind).toBe('number');
+    // A letter on one side only is not a series difference by this rule.
+    expect(diff('Tollaby Income Class A Shares', 'Tollaby Income Shares').distinguishing).toBeNull();
+    expect(diff('Tollaby Income Class A Shares', 'Tollaby Income Class A Shares').distinguishing).toBeNull();
+  });
   it('a misread letter is not a number ("R0BOTICS")', () => {
     expect(isNumberToken('r0botics')).toBe(false);
     expect(isNumberToken('1884')).toBe(true);
