@@ -10,10 +10,12 @@
  * could not change anything either.
  */
 import type { LiveRoute } from './route-table.ts';
+import { INSTANT_PATTERN } from '../../services/api/routes/v1/instant-query.ts';
 
 interface Schema {
   type?: string | string[];
   format?: string;
+  pattern?: string;
   enum?: unknown[];
   properties?: Record<string, Schema>;
   items?: Schema;
@@ -140,7 +142,7 @@ export function hostileMatrix(routes: readonly LiveRoute[], doc: OpenApiDoc): Ho
       }
     }
     // An instant JavaScript cannot read (a leap second) or in year 0 once reached the database and answered 500.
-    for (const p of queryParams.filter((q) => q.schema?.format === 'date-time')) {
+    for (const p of queryParams.filter((q) => q.schema?.format === 'date-time' || q.schema?.pattern === INSTANT_PATTERN)) {
       for (const instant of UNUSABLE_INSTANTS) {
         add('query date-time out of range', {
           url: `${url}?${p.name}=${encodeURIComponent(instant)}`,
