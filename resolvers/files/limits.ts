@@ -1,6 +1,10 @@
 /** The limits of a contract-file import, each with its default (an import may set lower or higher ones). */
 export interface FileLimits {
-  /** Largest file read, in bytes (a PDF, a Word file, a text file, an archive inside an archive). Default 50 MB. */
+  /**
+   * Largest file read, in bytes (a PDF, a Word file, a text file, an archive inside an archive). Default 49,999,999:
+   * a file of 50 MB or more is refused with its size. Decimal megabytes (50,000,000 bytes), as file managers and
+   * most people state file sizes; 50 MiB (52,428,800) let a file shown as "50 MB" through.
+   */
   maxFileBytes: number;
   /** Most entries one archive may list. Default 50,000. */
   maxEntries: number;
@@ -20,7 +24,7 @@ export interface FileLimits {
 }
 
 export const FILE_LIMIT_DEFAULTS: FileLimits = {
-  maxFileBytes: 50 * 1024 * 1024,
+  maxFileBytes: 50_000_000 - 1,
   maxEntries: 50_000,
   maxTotalBytes: 4 * 1024 * 1024 * 1024,
   maxRatio: 200,

@@ -14,7 +14,11 @@
  *     how many source systems store or print names, and lower case is how people type in a hurry, neither how the
  *     company writes itself. So among case variants of one name, the mixed-case spelling wins even when another
  *     was seen more often; then the spelling seen most often.
- *  Final tie-break: the lowest name id (the oldest), so the choice never depends on read order.
+ *  5. Final tie-break: the name that is canonical now stays; otherwise the lowest name id (the oldest), so the
+ *     choice never depends on read order. Keeping the current name on a tie is what stops a name from being
+ *     replaced by an equally ranked variant (a typo seen as often, "Inc." against "INC.") when a sighting is taken
+ *     away and added back: a re-resolution or a partitioned writer re-creates name rows with new ids, and "the
+ *     oldest" alone would then pick the variant.
  */
 
 export interface NameCandidate {
@@ -47,7 +51,7 @@ export function letterCaseRank(name: string): number {
   return isAllCapitals(name) ? 1 : 2;
 }
 
-function compareBy(a: NameCandidate, b: NameCandidate, caseGroupSeen: ReadonlyMap<string, number>): number {
+function compareBy(a: NameCandidate, b: NameCandidate, caseGroupSeen: ReadonlyMap<string, number>, current: string | null): number {
   // Higher is better for every criterion below; the first difference decides.
   const criteria: Array<(n: NameCandidate) => number> = [
     (n) => (n.confirmed_by ? 1 : 0),
@@ -57,6 +61,7 @@ function compareBy(a: NameCandidate, b: NameCandidate, caseGroupSeen: ReadonlyMa
     (n) => [...n.name].length,
     (n) => letterCaseRank(n.name),
     (n) => (isFullLegal(n) ? Number(n.seen_count) : 0),
+    (n) => (current !== null && n.name === current ? 1 : 0),
     (n) => -n.id,
   ];
   for (const criterion of criteria) {
@@ -66,7 +71,8 @@ function compareBy(a: NameCandidate, b: NameCandidate, caseGroupSeen: ReadonlyMa
   return 0;
 }
 
-export function chooseCanonicalName(names: readonly NameCandidate[]): NameCandidate | undefined {
+/** The name the rules choose; `canonicalNow`: the counterparty's canonical name now (rule 5 keeps it on a tie). */
+export function chooseCanonicalName(names: readonly NameCandidate[], canonicalNow: string | null = null): NameCandidate | undefined {
   const current = names.filter((n) => n.kind !== 'former');
   const pool = current.length > 0 ? current : [...names];
   // Sightings of full legal names, added up over spellings that differ only in letter case (rule 2).
@@ -74,5 +80,5 @@ export function chooseCanonicalName(names: readonly NameCandidate[]): NameCandid
   for (const n of pool) {
     if (isFullLegal(n)) caseGroupSeen.set(caseKey(n.name), (caseGroupSeen.get(caseKey(n.name)) ?? 0) + Number(n.seen_count));
   }
-  return [...pool].sort((a, b) => compareBy(a, b, caseGroupSeen))[0];
+  return [...pool].sort((a, b) => compareBy(a, b, caseGroupSeen, canonicalNow))[0];
 }

@@ -157,7 +157,10 @@ export async function touchCounterparty(cs: ChangeSet, counterpartyId: number, a
   const patch: StateValues<'counterparty'> = { version: cp.version + 1, updated_at: at.toISOString() };
   if (cp.status === 'active' && !cp.name_locked_by) {
     const names = (await cs.namesOf(counterpartyId)) ?? (await nameChoicesOf(cs.trx, counterpartyId));
-    const chosen = chooseCanonicalName(names.map((n) => ({ ...n, id: Number(n.id) }) as NameCandidate));
+    const chosen = chooseCanonicalName(
+      names.map((n) => ({ ...n, id: Number(n.id) }) as NameCandidate),
+      cp.canonical_name,
+    );
     if (chosen) patch.canonical_name = chosen.name;
   }
   return cs.update('counterparty', counterpartyId, patch);

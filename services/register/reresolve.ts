@@ -2,6 +2,17 @@
  * Re-resolution after thresholds or weights change: every mention that no person confirmed (linked, review, new,
  * unbound_term without confirmed_by) is resolved again under the current model, one transaction per mention.
  * A mention whose outcome stays the same is rolled back untouched (no event); every change is one history event.
+ *
+ * What counts as the same outcome, so that a run with unchanged settings over a register the batch built changes
+ * nothing it has no new reason to change:
+ * - `new` and `linked` on one counterparty are one outcome: `new` only says the mention's text created it. Writing
+ *   it anyway took the mention's name sightings away and added them back as new name rows, which moved the oldest
+ *   name and so the canonical name (a typo variant seen as often took over).
+ * - A mention that created its counterparty (status `new`) is not matched against that counterparty: the
+ *   counterparty is made of its own name, so it always scores it as an exact name, and for a short person's name
+ *   that is below linkAt, which sent the mention to review about itself and its contract's other mentions with it.
+ *   It moves only when another counterparty now links (at or above linkAt); when another one only comes close, it
+ *   stays (the two counterparties are a duplicate question, which `sweep` files for a person).
  */
 import type { ActorInput, RegisterContext } from './context.ts';
 import { mentionRow, unconfirmedMentionIds } from '../../db/queries/mentions.ts';
@@ -22,6 +33,18 @@ export interface ReresolveSummary {
 }
 
 class Unchanged extends Error {}
+
+type Outcome = { status: string; counterparty_id: number | null; own_entity_id: number | null };
+const onCounterparty = (status: string): boolean => status === 'new' || status === 'linked';
+
+/** Whether the re-decision keeps the mention where it is (see the file header); `created`: the counterparty it created. */
+export function sameOutcome(before: Outcome, after: Outcome, created: number | null): boolean {
+  if (after.own_entity_id !== before.own_entity_id) return false;
+  if (after.status === before.status && after.counterparty_id === before.counterparty_id) return true;
+  if (onCounterparty(before.status) && onCounterparty(after.status) && after.counterparty_id === before.counterparty_id) return true;
+  // Its own counterparty was left out of the candidates: a new counterparty or a review answers "no other one links".
+  return created !== null && (after.status === 'new' || after.status === 'review');
+}
 
 export async function reresolveOne(ctx: RegisterContext, mentionId: number, who: ActorInput): Promise<{ changed: boolean; status: string }> {
   try {
@@ -46,18 +69,15 @@ export async function reresolveOne(ctx: RegisterContext, mentionId: number, who:
         { lenientIdentifiers: true },
       );
       const party = await partyOfMention(cs.trx, mentionId);
+      const created = m.status === 'new' && m.counterparty_id !== null ? m.counterparty_id : null;
       const result = await resolveWithin(ctx, cs, prepared, who, {
         force: true,
         cause: 'reresolve',
         ...(party ? { party: { contractId: party.contractId, position: party.position, ownEntity: false } } : {}),
+        ...(created !== null ? { exclude: [created] } : {}),
         beforeCommit: async () => {
-          const after = await cs.require('mention', mentionId);
-          const same = after.status === m.status && after.counterparty_id === m.counterparty_id && after.own_entity_id === m.own_entity_id;
-          // A mention that made its counterparty ("new") and now links to that same one has not moved: counting it
-          // as a change reported most of a fresh register changed and wrote an event for each.
-          const stillItsOwn = m.status === 'new' && after.status === 'linked' && after.counterparty_id === m.counterparty_id;
           // Same outcome: roll the whole transaction back so that nothing (not even a sighting count) changes.
-          if (same || stillItsOwn) throw new Unchanged();
+          if (sameOutcome(m, await cs.require('mention', mentionId), created)) throw new Unchanged();
         },
       });
       return { changed: true, status: result.status };

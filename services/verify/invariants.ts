@@ -190,7 +190,7 @@ export const canonicalNamesFollowRules: Check = async (db) => {
   }
   const out: Violation[] = [];
   for (const [id, entry] of byCounterparty) {
-    const chosen = chooseCanonicalName(entry.names);
+    const chosen = chooseCanonicalName(entry.names, entry.canonical);
     if (chosen && chosen.name !== entry.canonical) {
       out.push({
         check: 'canonical_name_rule',
@@ -209,7 +209,5 @@ export const INVARIANT_CHECKS: Record<string, Check> = {
   strong_identifier_shared: strongIdentifiersUnique,
   review_decision_not_reflected: reviewDecisionsReflected,
   ingest_counts_do_not_reconcile: ingestCountsReconcile,
-  // canonicalNamesFollowRules is not run yet: a partitioned ingest chooses a canonical name from the names its chunk
-  // knows, which the distributed scale-out test showed can differ from the rules over all names (issue 21's one
-  // write path is where that is fixed); until then it would fail registers the service itself built.
+  canonical_name_rule: canonicalNamesFollowRules,
 };

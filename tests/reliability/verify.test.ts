@@ -12,7 +12,6 @@ import { createMigratedDataDir, describeEachBackend, removeTempDir } from '../su
 import { runCli } from '../support/cli.ts';
 import { openDatabase } from '../../db/open-database.ts';
 import { runWorkload } from '../services/register/workload.ts';
-import { canonicalNamesFollowRules } from '../../services/verify/invariants.ts';
 
 const WHO = { actor: 'test:verify' };
 
@@ -48,6 +47,7 @@ describeEachBackend('cpreg verify', (t) => {
       'strong_identifier_shared',
       'review_decision_not_reflected',
       'ingest_counts_do_not_reconcile',
+      'canonical_name_rule',
       'replay_differs',
     ]);
   });
@@ -150,7 +150,9 @@ describeEachBackend('cpreg verify', (t) => {
       ]),
     );
     expect(violationsOf(report, 'ingest_counts_do_not_reconcile')).toEqual([expect.objectContaining({ ids: { ingestRunId: Number(run.id) } })]);
-    expect(await canonicalNamesFollowRules(db)).toEqual(expect.arrayContaining([expect.objectContaining({ ids: { counterpartyId: Number(unlocked.id) } })]));
+    expect(violationsOf(report, 'canonical_name_rule')).toEqual(
+      expect.arrayContaining([expect.objectContaining({ ids: { counterpartyId: Number(unlocked.id) } })]),
+    );
     const replay = violationsOf(report, 'replay_differs').map((v) => v.message);
     expect(replay).toEqual(
       expect.arrayContaining([

@@ -115,23 +115,25 @@ async function ownEntityMatch(
   return best;
 }
 
-/** Counterparties this mention must not join: mention-level cannot-links, followed to their survivors. */
-async function excludedFor(db: Queryable, mentionId: number | null): Promise<Set<number>> {
-  if (mentionId === null) return new Set();
-  const links = (await cannotLinksOf(db, [], mentionId)).filter((l) => l.mentionId === mentionId);
-  const survivors = await survivorsOf(
-    db,
-    links.map((l) => l.counterpartyId),
-  );
-  return new Set(links.map((l) => survivors.get(l.counterpartyId) ?? l.counterpartyId));
+/** Counterparties this mention must not join: mention-level cannot-links, followed to their survivors, and `also` (decide's
+ * `alsoExclude`: reresolve leaves out the counterparty a mention created, services/register/reresolve.ts). */
+async function excludedFor(db: Queryable, mentionId: number | null, also: readonly number[] = []): Promise<Set<number>> {
+  const links = mentionId === null ? [] : (await cannotLinksOf(db, [], mentionId)).filter((l) => l.mentionId === mentionId);
+  if (links.length === 0) return new Set(also);
+  const survivors = await survivorsOf(db, [...new Set(links.map((l) => l.counterpartyId))]);
+  return new Set([...links.map((l) => survivors.get(l.counterpartyId) ?? l.counterpartyId), ...also]);
 }
 
-export async function decide(
-  db: Queryable,
-  prepared: PreparedMention,
-  model: MatchModel,
-  context: { mentionId: number | null; contract: ContractContext | null; party: PartyContext | null; contractAwaited: boolean; reads?: BatchReads },
-): Promise<Outcome> {
+type DecideContext = {
+  mentionId: number | null;
+  contract: ContractContext | null;
+  party: PartyContext | null;
+  contractAwaited: boolean;
+  reads?: BatchReads;
+  alsoExclude?: readonly number[];
+};
+
+export async function decide(db: Queryable, prepared: PreparedMention, model: MatchModel, context: DecideContext): Promise<Outcome> {
   const base = { thresholds: { linkAt: model.linkAt, newAt: model.newAt } };
   let probe: Probe = { analysis: prepared.analysis, country: prepared.input.country ?? null, identifiers: prepared.identifiers };
   let via = 'register';
@@ -224,7 +226,7 @@ export async function decide(
     }
   }
 
-  const exclude = await excludedFor(db, context.mentionId);
+  const exclude = await excludedFor(db, context.mentionId, context.alsoExclude);
   const { current: candidates, former } = await scoredCandidatesWithFormer(db, probe, model, exclude, context.reads);
   const top = candidates.slice(0, 5).map(summaryOf);
   const best = candidates.find((c) => c.score !== -Infinity);

@@ -69,6 +69,8 @@ export interface ResolveWithinOptions {
   force?: boolean;
   /** Runs after the outcome is written and before the event is committed (its ops join the same event). */
   beforeCommit?: (mentionId: number) => Promise<void>;
+  /** Counterparties the decision leaves out of the candidates (reresolve: the one a mention created). */
+  exclude?: readonly number[];
 }
 
 /**
@@ -110,6 +112,7 @@ export async function resolveWithin(
     party: options.party ?? null,
     contractAwaited: prepared.input.contract !== undefined && contract === null,
     reads,
+    ...(options.exclude ? { alsoExclude: options.exclude } : {}),
   });
   if (options.party?.aliases && options.party.aliases.length > 0) outcome.declaredNames = options.party.aliases;
   outcome.evidence.modelVersion = version;

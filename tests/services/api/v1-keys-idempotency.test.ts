@@ -2,14 +2,16 @@
  * POST /v1/keys with an Idempotency-Key: the secret is shown once and stored only as its digest. The stored
  * idempotent answer used to hold the secret in plain text, and a replay within 24 hours showed it again. Now the
  * replay answers that the key was created (id and metadata, `secretWithheld: true`) without the secret, and no
- * text or JSON column of any table in schema public holds it. Labels are invented.
+ * text or JSON column of any table in schema public holds it, nor a backup of the database. Labels are invented.
  */
+import { spawnSync } from 'node:child_process';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { sql, type Kysely } from 'kysely';
 import type { Database } from '../../../db/types.ts';
 import { digest } from '../../../services/api/auth/keys.ts';
 import { claimIdempotencyKey, SECRET_NOT_STORED, storeIdempotentAnswer } from '../../../services/api/auth/idempotency.ts';
-import { describeEachBackend } from '../../support/database.ts';
+import { describeEachBackend, type TestDatabase } from '../../support/database.ts';
+import { dumpEmbedded } from '../../../db/open-database.ts';
 import { keyedApp, type KeyedApp } from './support.ts';
 
 type Ctx = { db(): Kysely<Database> };
@@ -34,6 +36,14 @@ async function whereFound(ctx: Ctx, needle: string): Promise<string[]> {
     if (Number(hit.rows[0]!.n) > 0) found.push(`${table}.${column}`);
   }
   return found;
+}
+
+/** The bytes a backup of this database holds: the embedded data directory archive, or a plain pg_dump. */
+async function backupBytes(database: TestDatabase): Promise<Buffer> {
+  if (database.backend === 'pglite') return Buffer.from(await (await dumpEmbedded(database)).arrayBuffer());
+  const dump = spawnSync('pg_dump', ['--format=plain', '--no-owner', database.url!], { maxBuffer: 512 * 1024 * 1024 });
+  if (dump.status !== 0) throw new Error(`pg_dump failed: ${dump.stderr.toString()}`);
+  return dump.stdout;
 }
 
 describeEachBackend('POST /v1/keys with an Idempotency-Key: the secret is shown once, never stored', (ctx) => {
@@ -88,6 +98,14 @@ describeEachBackend('POST /v1/keys with an Idempotency-Key: the secret is shown 
     // The scan does see the stored answer and the key: it finds what is meant to be there.
     expect(await whereFound(ctx, created.id)).toEqual(expect.arrayContaining(['api_key.id', 'idempotency_record.response']));
     expect(await whereFound(ctx, digest(secret))).toEqual(['api_key.secret_hash']);
+
+    // A backup holds neither: the embedded database's archive (what `cpreg backup --out` gzips, services/backup), or
+    // on PostgreSQL what pg_dump writes (docs/operations.md; plain format, so that its text can be searched).
+    const backup = await backupBytes(ctx.database());
+    expect(backup.includes(created.id)).toBe(true);
+    expect(backup.includes(digest(secret))).toBe(true);
+    expect(backup.includes(secret)).toBe(false);
+    expect(backup.includes(secret.slice(secret.lastIndexOf('_') + 1))).toBe(false);
   });
 
   it('never stores a whole API key in an idempotent answer, whichever route sent it', async () => {

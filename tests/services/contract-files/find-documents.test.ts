@@ -4,7 +4,7 @@
  * text equal those parsed from the plain text of the same invented contract; hostile archives are refused entry by
  * entry, with their reasons, while the other files are read.
  */
-import { mkdirSync, symlinkSync, writeFileSync } from 'node:fs';
+import { mkdirSync, symlinkSync, truncateSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { parseParties } from '../../../resolvers/terms/index.ts';
@@ -89,6 +89,24 @@ describe('files refused with their reasons while the others are read', () => {
     expect(found).toHaveLength(7);
     const again = await findAll(folder, { recursive: true, limits: { maxFileBytes: 50_000 } });
     expect(byPath(again.found).get('sub/deeper.txt')?.kind).toBe('document');
+  });
+
+  it('a PDF of 50 MB (50,000,000 bytes) is refused with its size under the default limits; one byte less is read', async () => {
+    // The edge of the default limit (resolvers/files/limits.ts): issue 20 says a PDF of 50 MB is refused. Sparse
+    // files of zeros: the size is what is checked; the smaller one is read and found to be no PDF.
+    const folder = join(dir, 'fifty');
+    mkdirSync(folder);
+    for (const [file, size] of [
+      ['fifty.pdf', 50_000_000],
+      ['under.pdf', 49_999_999],
+    ] as const) {
+      writeFileSync(join(folder, file), '');
+      truncateSync(join(folder, file), size);
+    }
+    const got = byPath((await findAll(folder)).found);
+    expect(got.get('fifty.pdf')).toMatchObject({ reason: 'file_too_large', detail: '50000000 bytes; the limit for one file is 49999999 bytes' });
+    expect(got.get('under.pdf')).toMatchObject({ kind: 'rejected' });
+    expect(got.get('under.pdf')).not.toMatchObject({ reason: 'file_too_large' });
   });
 
   it('a text over the 1 MB contract limit is refused as such', async () => {

@@ -88,6 +88,19 @@ describe('canonical-value rule 4: mixed case, then capitals, then lower case', (
       ])?.id,
     ).toBe(2);
   });
+  it('rule 5: on a tie the name that is canonical now stays, so a variant ranked the same never replaces it', () => {
+    // A typo seen as often, and a legal form in capitals: each ties with the well-formed name on rules 1-4. The
+    // well-formed name's row is the newer one, as after a re-resolution took its sighting away and added it back.
+    const typo = [name(6, 'Brisworth Agritecb Inc.', { legal_form: 'inc' }), name(9, 'Brisworth Agritech Inc.', { legal_form: 'inc' })];
+    expect(chooseCanonicalName(typo, 'Brisworth Agritech Inc.')?.id).toBe(9);
+    expect(chooseCanonicalName(typo)?.id).toBe(6);
+    const caps = [name(3, 'Carnholt Water Systems, INC.', { legal_form: 'inc' }), name(7, 'Carnholt Water Systems, Inc.', { legal_form: 'inc' })];
+    expect(chooseCanonicalName(caps, 'Carnholt Water Systems, Inc.')?.id).toBe(7);
+    // The current name keeps nothing the rules rank lower: a more frequent spelling still takes over (rule 2).
+    const seen = [name(1, 'Carnholt Water Systems, Inc.', { legal_form: 'inc' }), name(2, 'Carnholt Water Systems Inc.', { legal_form: 'inc', seen_count: 3 })];
+    expect(chooseCanonicalName(seen, 'Carnholt Water Systems, Inc.')?.id).toBe(2);
+    expect(chooseCanonicalName([name(1, 'carnholt water'), name(2, 'Carnholt Water')], 'carnholt water')?.id).toBe(2);
+  });
   it('isAllCapitals needs letters, all of them capitals', () => {
     expect(isAllCapitals('FROWILORA B.V.')).toBe(true);
     expect(isAllCapitals('Frowilora B.V.')).toBe(false);
