@@ -149,6 +149,10 @@ export type ReconciliationFinding = (typeof RECONCILIATION_FINDINGS)[number];
 export const NAME_KINDS = ['legal', 'trade', 'former', 'also_known_as', 'observed'] as const;
 export type NameKind = (typeof NAME_KINDS)[number];
 
+/** The kinds of other name one of our own entities may be declared with (a name seen in passing is no declaration). */
+export const OWN_ENTITY_NAME_KINDS = ['trade', 'former', 'also_known_as', 'legal'] as const satisfies readonly NameKind[];
+export type OwnEntityNameKind = (typeof OWN_ENTITY_NAME_KINDS)[number];
+
 /** Aliases a single name string can introduce ("X d/b/a Y"). */
 export type AliasKind = 'trade' | 'former' | 'also_known_as';
 

@@ -197,7 +197,8 @@ export async function searchContracts(
 
 /**
  * What storing a contract reads first, in one statement: the stored contract's id and content hash by its (source,
- * external id), if it is stored, and the names of our own entities (not removed, in id order) its text is parsed with.
+ * external id), if it is stored, and the names of our own entities (not removed, in id order; each legal name followed
+ * by its declared other names, a trading name being as much ours as the legal name) its text is parsed with.
  */
 export async function contractToStore(
   db: Queryable,
@@ -206,7 +207,11 @@ export async function contractToStore(
 ): Promise<{ existing: { id: number; contentHash: string } | undefined; ownNames: string[] }> {
   const result = await sql<{ id: string | number | null; content_hash: string | null; own_names: string[] | string }>`
     SELECT k.id, k.content_hash,
-      (SELECT coalesce(json_agg(o.name ORDER BY o.id), '[]'::json) FROM own_entity o WHERE o.removed_at IS NULL) AS own_names
+      (SELECT coalesce(json_agg(n.name ORDER BY n.id, n.ord), '[]'::json) FROM (
+        SELECT o.id, 0 AS ord, o.name FROM own_entity o WHERE o.removed_at IS NULL
+        UNION ALL
+        SELECT o.id, x.ord, x.other->>'name' FROM own_entity o, jsonb_array_elements(o.other_names) WITH ORDINALITY AS x(other, ord)
+        WHERE o.removed_at IS NULL) AS n) AS own_names
     FROM (SELECT 1) AS one
     LEFT JOIN contract k ON k.source = ${source} AND k.external_id = ${externalId}`.execute(db);
   const row = result.rows[0]!;

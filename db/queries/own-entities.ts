@@ -1,6 +1,7 @@
 /** Our own legal entities (never counterparties). */
 import type { Queryable } from './util.ts';
 import { id, iso } from './util.ts';
+import type { OwnEntityOtherName } from '../tables/register-tables.ts';
 
 export interface OwnEntityView {
   id: number;
@@ -8,6 +9,8 @@ export interface OwnEntityView {
   normalised: string;
   country: string | null;
   identifiers: { scheme: string; value: string; label?: string }[];
+  /** Its other names (trading, former, …): recognised as ours like the legal name. */
+  otherNames: OwnEntityOtherName[];
   createdAt: string;
   removedAt: string | null;
 }
@@ -26,6 +29,7 @@ export function ownEntityView(r: {
   normalised: string;
   country: string | null;
   identifiers: OwnEntityView['identifiers'];
+  other_names: OwnEntityOtherName[];
   created_at: unknown;
   removed_at: unknown;
 }): OwnEntityView {
@@ -35,6 +39,7 @@ export function ownEntityView(r: {
     normalised: r.normalised,
     country: r.country,
     identifiers: r.identifiers,
+    otherNames: r.other_names,
     createdAt: iso(r.created_at) as string,
     removedAt: iso(r.removed_at),
   };

@@ -3,7 +3,7 @@
  * blocking keys and relations.
  */
 import type { ColumnType, Generated } from 'kysely';
-import type { CounterpartyStatus, IdentifierScheme, NameKind, RelationType } from '../../resolvers/vocabulary.ts';
+import type { CounterpartyStatus, IdentifierScheme, NameKind, OwnEntityNameKind, RelationType } from '../../resolvers/vocabulary.ts';
 import type { Int8, GeneratedInt8, Timestamp, JsonDefault } from './column-types.ts';
 
 export interface OwnEntityTable {
@@ -12,8 +12,15 @@ export interface OwnEntityTable {
   normalised: string;
   country: string | null;
   identifiers: JsonDefault<{ scheme: IdentifierScheme; value: string; label?: string }[]>;
+  /** Its other names (a trading name, a former name), a set: no two with the same normalised name. */
+  other_names: JsonDefault<OwnEntityOtherName[]>;
   created_at: Timestamp;
   removed_at: Timestamp | null;
+}
+
+export interface OwnEntityOtherName {
+  name: string;
+  kind: OwnEntityNameKind;
 }
 
 export interface CounterpartyTable {

@@ -9,7 +9,8 @@
  * The attack strings are common practice (OWASP testing guide families: SQL injection, command injection,
  * path traversal, template injection, CSV formula injection), written from memory.
  * A third test is a fixed matrix (issue 17): every route receives NUL, a lone surrogate, out-of-range integers,
- * deep JSON, a wrong media type, bodies that are not UTF-8 (four kinds) and a body declared in another charset, placed in the body, the query string and the path by reading the route's
+ * deep JSON, a wrong media type, bodies that are not UTF-8 (four kinds; three of them percent-encoded in the query
+ * string and the path too) and a body declared in another charset, placed in the body, the query string and the path by reading the route's
  * declared parameters from /openapi.json; each input has the answer it must get (status and code), the suite
  * counts the inputs tried and refused and fails unless every one was refused as expected (a run that refused
  * nothing, or tried nothing, cannot pass), and nothing may be stored.
@@ -21,7 +22,7 @@ import { createRegisterContext, resolveMention, stateSnapshot } from '../../serv
 import { describeEachBackend } from '../support/index.ts';
 import { keyedApp, type KeyedApp } from '../services/api/support.ts';
 import { liveRoutes, type LiveRoute } from './route-table.ts';
-import { MULTIPART_UNREADABLE, NOT_UTF8, hostileMatrix, type HostileCase, type OpenApiDoc } from './hostile-matrix.ts';
+import { MULTIPART_UNREADABLE, NOT_UTF8, NOT_UTF8_IN_URL, hostileMatrix, type HostileCase, type OpenApiDoc } from './hostile-matrix.ts';
 
 const RUNS_PER_ROUTE = process.env.CPREG_LONG === '1' ? 60 : 12;
 
@@ -282,6 +283,12 @@ describeEachBackend('hostile input over HTTP', (t) => {
     expect(total(refused)).toBe(total(tried));
     expect(tried['query NUL']).toBe(routes.length);
     expect(tried['query surrogate']).toBe(routes.length);
+    // 0xFF, an overlong form and a truncated sequence, percent-encoded, in the query of every route and in every path
+    // parameter (the path NUL count is the number of path parameters).
+    for (const [name] of NOT_UTF8_IN_URL) {
+      expect(tried[`query not UTF-8 (${name})`], name).toBe(routes.length);
+      expect(tried[`path not UTF-8 (${name})`], name).toBe(tried['path NUL']);
+    }
     const withBody = routes.filter((r) => r.method !== 'GET').length;
     const notUtf8Kinds = NOT_UTF8.map(([name]) => `body not UTF-8 (${name})`);
     for (const kind of [

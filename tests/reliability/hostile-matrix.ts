@@ -1,7 +1,8 @@
 /**
  * The fixed hostile-input matrix (issue 17): for every live route, the inputs that once answered 500 or were
  * mishandled — NUL, a lone surrogate, integers out of range, deep JSON, a wrong media type, bodies that are not
- * UTF-8 (0xFF, an overlong form, a sequence cut short, CESU-8 surrogate bytes) or declare another charset, integers
+ * UTF-8 (0xFF, an overlong form, a sequence cut short, CESU-8 surrogate bytes; in the body, and percent-encoded in
+ * the query string and the path) or declare another charset, integers
  * not spelled in decimal digits, date-times that are no usable instant, multipart that cannot be read — placed in the query
  * string, each path parameter and the body, each with the answer it must get. Where a route declares a parameter
  * of the right kind (a string to hold the NUL, an integer to overflow) the input goes there, read from
@@ -17,6 +18,7 @@ interface Schema {
   format?: string;
   pattern?: string;
   enum?: unknown[];
+  example?: unknown;
   properties?: Record<string, Schema>;
   items?: Schema;
 }
@@ -58,6 +60,15 @@ export const NOT_UTF8: readonly [string, readonly number[]][] = [
   ['truncated', [0xe2, 0x82]],
   ['CESU-8 surrogate', [0xed, 0xa0, 0x80]],
 ];
+
+/**
+ * The same ill-formed UTF-8 percent-encoded in a URL, all but the CESU-8 bytes (SURROGATE above): 0xFF, the overlong
+ * form of "/" and a three-byte sequence cut short, each between two ASCII letters ("a%FFb").
+ */
+export const NOT_UTF8_IN_URL: readonly [string, string][] = NOT_UTF8.filter(([name]) => name !== 'CESU-8 surrogate').map(([name, bytes]) => [
+  name,
+  `a${bytes.map((b) => `%${b.toString(16).toUpperCase().padStart(2, '0')}`).join('')}b`,
+]);
 
 /** Integers spelled as JavaScript's Number() reads them but not in plain decimal digits (each meant 1 or 10). */
 export const OTHER_SPELLINGS = ['0x1', '1e1', '1.0', '%2B1', '01', '%201'];
@@ -128,6 +139,13 @@ export function hostileMatrix(routes: readonly LiveRoute[], doc: OpenApiDoc): Ho
       url: `${url}?${textParam}=${SURROGATE}`,
       expect: { status: 400, codes: ['UNSTORABLE_TEXT'], pointer: `/${textParam}`, in: 'query' },
     });
+    // Any other ill-formed UTF-8 in a query value: the parser would keep it as its raw percent-text, as it did CESU-8.
+    for (const [name, encoded] of NOT_UTF8_IN_URL) {
+      add(`query not UTF-8 (${name})`, {
+        url: `${url}?${textParam}=${encoded}`,
+        expect: { status: 400, codes: ['UNSTORABLE_TEXT'], pointer: `/${textParam}`, in: 'query' },
+      });
+    }
     for (const p of queryParams.filter((q) => isType(q.schema, 'integer'))) {
       add('query out-of-range integer', {
         url: `${url}?${p.name}=${OUT_OF_RANGE}`,
@@ -156,6 +174,9 @@ export function hostileMatrix(routes: readonly LiveRoute[], doc: OpenApiDoc): Ho
       const at = (value: string) => fill(route.path, { ...base, [name]: value });
       add('path NUL', { url: at(NUL), expect: { status: 400, codes: ['UNSTORABLE_TEXT'], pointer: `/${name}`, in: 'path' } });
       add('path surrogate', { url: at(SURROGATE), expect: { status: 400, codes: ['BAD_REQUEST', 'UNSTORABLE_TEXT'] } });
+      for (const [kind, encoded] of NOT_UTF8_IN_URL) {
+        add(`path not UTF-8 (${kind})`, { url: at(encoded), expect: { status: 400, codes: ['BAD_REQUEST', 'UNSTORABLE_TEXT'] } });
+      }
       const integer = isType(params.get(`path:${name}`), 'integer');
       // A text parameter (a key id, a file under /console/) takes the digits as text: it names nothing (4xx).
       add('path out-of-range integer', {

@@ -43,9 +43,29 @@ function print(json: boolean | undefined, value: unknown, text: string): void {
   process.stdout.write(json ? `${JSON.stringify(value)}\n` : `${text}\n`);
 }
 
+/** Appends each use of a repeatable option to the list (commander keeps only the last value otherwise). */
+function collect(value: string, previous: string[] = []): string[] {
+  return [...previous, value];
+}
+
 function parseId(value: string): number {
   if (!/^[1-9]\d{0,15}$/.test(value)) throw new CliError(`own entity id "${value}" is not a positive whole number (see: cpreg own-entities list)`);
   return Number(value);
+}
+
+interface AddOptions {
+  country?: string;
+  identifier?: string[];
+  tradeName?: string[];
+  formerName?: string[];
+  alsoKnownAs?: string[];
+  reason?: string;
+  db?: string;
+  json?: boolean;
+}
+
+function otherNamesText(names: { name: string; kind: string }[]): string {
+  return names.length === 0 ? '' : `\talso: ${names.map((n) => `${n.name} (${n.kind.replace(/_/g, ' ')})`).join('; ')}`;
 }
 
 export default function register(program: Command): void {
@@ -57,11 +77,15 @@ export default function register(program: Command): void {
     .argument('<name>', 'the legal name, e.g. "Example Holdings GmbH"')
     .option('--country <code>', 'ISO 3166-1 alpha-2 or ISO 3166-2 country (e.g. DE, US-DE)')
     .option('--identifier <scheme=value...>', 'an identifier, e.g. lei=5299... (repeatable)')
+    .option('--trade-name <name>', 'a name it trades under, recognised as ours like the legal name (repeatable)', collect)
+    .option('--former-name <name>', 'a name it had before, still found in older contracts (repeatable)', collect)
+    .option('--also-known-as <name>', 'any other name it is known by (repeatable)', collect)
     .option('--reason <text>', 'why (kept in the history)')
     .option('--db <target>', DB_OPTION_HELP)
     .option('--json', 'print the result as JSON')
     .showHelpAfterError(true)
-    .action(async (name: string, options: { country?: string; identifier?: string[]; reason?: string; db?: string; json?: boolean }) => {
+    .addHelpText('after', '\nOn an entity already listed, the other names it does not have yet are added to it.')
+    .action(async (name: string, options: AddOptions) => {
       const identifiers = (options.identifier ?? []).map((pair) => {
         const at = pair.indexOf('=');
         if (at <= 0) throw new CliError(`--identifier "${pair}": write it as scheme=value, e.g. lei=...`);
@@ -69,15 +93,21 @@ export default function register(program: Command): void {
       });
       await withRegister(options.db, 'cpreg own-entities add', 'writes', async ({ ctx }, actor) => {
         const { addOwnEntity } = await import('../../register/own-entities.ts');
+        const otherNames = [
+          ...(options.tradeName ?? []).map((n) => ({ name: n, kind: 'trade' as const })),
+          ...(options.formerName ?? []).map((n) => ({ name: n, kind: 'former' as const })),
+          ...(options.alsoKnownAs ?? []).map((n) => ({ name: n, kind: 'also_known_as' as const })),
+        ];
         const result = await addOwnEntity(
           ctx,
-          { name, ...(options.country ? { country: options.country } : {}), identifiers },
+          { name, ...(options.country ? { country: options.country } : {}), identifiers, otherNames },
           { actor, ...(options.reason ? { reason: options.reason } : {}) },
         );
+        const also = result.otherNamesAdded.length > 0 ? ` (other names added: ${result.otherNamesAdded.join('; ')})` : '';
         print(
           options.json,
           result,
-          result.created ? `added own entity ${result.ownEntityId}: ${name}` : `already listed as own entity ${result.ownEntityId}: ${name}`,
+          result.created ? `added own entity ${result.ownEntityId}: ${name}${also}` : `already listed as own entity ${result.ownEntityId}: ${name}${also}`,
         );
       });
     });
@@ -98,7 +128,9 @@ export default function register(program: Command): void {
         const lines =
           list.length === 0
             ? 'no own entities listed (add one with: cpreg own-entities add "<name>")'
-            : list.map((o) => `${o.id}\t${o.name}${o.country ? `\t${o.country}` : ''}${o.removedAt ? '\t(removed)' : ''}`).join('\n');
+            : list
+                .map((o) => `${o.id}\t${o.name}${o.country ? `\t${o.country}` : ''}${otherNamesText(o.otherNames)}${o.removedAt ? '\t(removed)' : ''}`)
+                .join('\n');
         print(options.json, list, lines);
       });
     });

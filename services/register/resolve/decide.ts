@@ -16,18 +16,16 @@ import { mentionOutcome } from '../../../db/queries/mentions.ts';
 import { resolveInContract, type DeclaredName, type InContractResolution, type ParsedContract } from '../../../resolvers/terms/index.ts';
 import type { EarlierContract } from '../earlier-contract.ts';
 import type { MatchModel } from '../../../resolvers/score/index.ts';
-import { scorePair } from '../../../resolvers/score/index.ts';
-import { isStrongScheme, type Identifier, type NameKind, type ResolutionStatus } from '../../../resolvers/vocabulary.ts';
+import { isStrongScheme, type NameKind, type ResolutionStatus } from '../../../resolvers/vocabulary.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
-import { listOwnEntities } from '../../../db/queries/own-entities.ts';
 import { cannotLinksOf } from '../../../db/queries/review.ts';
 import { survivorsOf } from '../../../db/queries/counterparties.ts';
 import { analyse } from '../matching/analysis.ts';
-import { idfFor } from '../matching/idf.ts';
-import { jsonScore, probeRecord, scoredCandidatesWithFormer, type Probe, type ScoredCandidate } from '../matching/candidates.ts';
+import { jsonScore, scoredCandidatesWithFormer, type Probe, type ScoredCandidate } from '../matching/candidates.ts';
 import type { BatchReads } from '../matching/batch-reads.ts';
 import type { PreparedMention } from './prepare.ts';
 import { throughFormerName } from './former-name.ts';
+import { ownEntityMatch } from './own-entity-match.ts';
 import { newSummary, reviewSummary } from './summaries.ts';
 
 export interface ContractContext {
@@ -81,38 +79,6 @@ export interface Outcome {
 
 function summaryOf(c: ScoredCandidate) {
   return { counterpartyId: c.counterpartyId, name: c.canonicalName, matchedName: c.matchedName, score: jsonScore(c.score) };
-}
-
-async function ownEntityMatch(
-  db: Queryable,
-  probe: Probe,
-  model: MatchModel,
-  partyIsOwn: boolean,
-  reads: BatchReads | undefined,
-): Promise<{ id: number; name: string; score: number } | undefined> {
-  const own = reads ? await reads.ownEntities() : await listOwnEntities(db);
-  if (own.length === 0) return undefined;
-  const idf = await idfFor(db, probe.analysis.tokens, reads);
-  let best: { id: number; name: string; score: number } | undefined;
-  for (const entity of own) {
-    const record = {
-      id: `own:${entity.id}`,
-      analysis: analyse(entity.name, entity.country),
-      ...(entity.country ? { country: entity.country } : {}),
-      identifiers: entity.identifiers as Identifier[],
-    };
-    const pair = scorePair(probeRecord(probe), record, model, idf);
-    if (pair.score === -Infinity) continue;
-    // Our own entity must never become a counterparty, so the bar is lower than for a link: a linking score, or
-    // the same core name with a legal form that does not conflict (a missing country alone keeps an exact name
-    // below linkAt), or the contract's own finding that this party is one of ours.
-    const level = (feature: string) => pair.explanation.find((e) => e.feature === feature)?.level ?? null;
-    const sameName = level('name') === 'exact' && level('legalForm') !== 'conflicting';
-    if (pair.score >= model.linkAt || sameName || partyIsOwn) {
-      if (!best || pair.score > best.score) best = { id: entity.id, name: entity.name, score: pair.score };
-    }
-  }
-  return best;
 }
 
 /** Counterparties this mention must not join: mention-level cannot-links, followed to their survivors, and `also` (decide's
@@ -221,7 +187,12 @@ export async function decide(db: Queryable, prepared: PreparedMention, model: Ma
         ownEntityId: own.id,
         score: jsonScore(own.score),
         recordName: false,
-        evidence: { ...base, summary: `"${prepared.text}" is our own entity ${own.name}`, via: 'own_entities' },
+        evidence: {
+          ...base,
+          summary: `"${prepared.text}" is our own entity ${own.name}${own.via ? ` (declared ${own.via.kind.replace(/_/g, ' ')} name "${own.via.name}")` : ''}`,
+          via: 'own_entities',
+          ...(own.via ? { ownEntityName: own.via } : {}),
+        },
       };
     }
   }

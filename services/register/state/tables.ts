@@ -34,6 +34,7 @@ const COLUMN_KINDS = {
     normalised: 'text',
     country: 'text',
     identifiers: 'json',
+    other_names: 'json',
     created_at: 'ts',
     removed_at: 'ts',
   },

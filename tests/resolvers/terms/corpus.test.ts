@@ -34,7 +34,8 @@ describe('terms corpus', () => {
   });
 
   it('has at least three passages per signer, exclusion and person shape, in British, US and translated styles', () => {
-    // Issue 16 items 4, 5 and 7: every new shape in more than one drafting style.
+    // Issue 16 items 4, 5 and 7: every new shape in more than one drafting style, the "By: / Name: / Title:" block
+    // and "represented by Y" included.
     const shapes = [
       'conformed',
       'on-behalf-by',
@@ -46,6 +47,8 @@ describe('terms corpus', () => {
       'individual',
       'sole-trader',
       'titled-person',
+      'by-name-title',
+      'represented-by',
     ];
     for (const shape of shapes) {
       const ids = SIGNER_SHAPES.map((c) => c.id).filter((id) => SHAPES_OF[id]?.includes(shape));

@@ -95,6 +95,12 @@ describeEachBackend('/v1/review-items order and group decisions', (ctx) => {
     expect(noSuchDay.statusCode).toBe(422);
     expect(noSuchDay.json()).toMatchObject({ code: 'VALIDATION_FAILED', errors: [{ pointer: '/createdAfter', in: 'query' }] });
     expect(noSuchDay.json().detail).toContain('"2026-02-30" is not a date');
+    // Year 0 in UTC (PostgreSQL has none) once reached the database and answered 500.
+    for (const instant of ['0000-01-01T00:00:00Z', '0001-01-01T00:00:00%2B14:00']) {
+      const yearZero = await k.call('read', { method: 'GET', url: `/v1/review-items?createdBefore=${instant}` });
+      expect(yearZero.statusCode, instant).toBe(422);
+      expect(yearZero.json()).toMatchObject({ code: 'VALIDATION_FAILED', errors: [{ pointer: '/createdBefore', in: 'query' }] });
+    }
   });
 
   it('settles every item of the group with scope "group", and one item alone by default ("not a party" here)', async () => {

@@ -67,6 +67,7 @@ describe('cpreg demo (child process)', () => {
   let summary: {
     seed: number;
     counterparties: number;
+    truthCounterparties: number;
     mentions: { total: number; byStatus: Record<string, number> };
     reviewQueue: number;
     busiest: Array<{ id: number; contracts: number }>;
@@ -187,6 +188,19 @@ describe('cpreg demo (child process)', () => {
     expect(row, 'the README has a demo row with precision / recall').not.toBeNull();
     const printed = (summary.accuracy.mentions.pairwise.precision * 100).toFixed(1);
     expect(row![1], `the demo prints pairwise precision ${printed} %: update the README's demo row`).toBe(printed);
+  });
+
+  it('registers as many counterparties as the README quotes for seed 1, in both of its demo rows', () => {
+    // README, "Latest figures": a row once said 181 counterparties where the demo printed 152. Both
+    // rows that quote the count ("N counterparties for the scenario's 150", "N vs 150") must say what it prints.
+    const readme = readFileSync(join(REPO_ROOT, 'README.md'), 'utf8');
+    const truth = summary.truthCounterparties;
+    const quoted = [...readme.matchAll(new RegExp(`\\| Demo \\(seed 1[^|]*\\|[^|]*?(\\d+) (?:counterparties for the scenario's|vs) ${truth}\\b`, 'g'))].map(
+      (m) => Number(m[1]),
+    );
+    expect(quoted, `the README's demo rows quote the register's counterparties against the scenario's ${truth}`).toHaveLength(2);
+    for (const n of quoted)
+      expect(n, `the demo registers ${summary.counterparties} counterparties: update the README's demo rows`).toBe(summary.counterparties);
   });
 
   it(

@@ -1,7 +1,7 @@
 /** The register's CLI commands on an embedded database: own-entities, sweep and reresolve, with --json. */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { userInfo } from 'node:os';
-import { rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { createMigratedDataDir, removeTempDir } from '../../support/index.ts';
 import { runCli } from '../../support/cli.ts';
@@ -65,5 +65,49 @@ describe('cpreg own-entities, sweep, reresolve', { timeout: 240_000 }, () => {
     const bad = await runCli(['sweep', '--block-size', 'lots', '--db', dir]);
     expect(bad.code).not.toBe(0);
     expect(bad.stderr).toContain('--block-size');
+  });
+
+  it('own-entities add declares trading names; a contract naming our entity by one is ours, not a counterparty (issue 16, item 6)', async () => {
+    // Invented names: the own entity "Orvanel Japan K.K." trades as "Orvanel Trading".
+    const added = await runCli([
+      'own-entities',
+      'add',
+      'Orvanel Japan K.K.',
+      '--country',
+      'JP',
+      '--trade-name',
+      'Orvanel Trading',
+      '--also-known-as',
+      'Orvanel JP',
+      '--db',
+      dir,
+      '--json',
+    ]);
+    expect(added.code, added.stderr).toBe(0);
+    expect(JSON.parse(added.stdout)).toMatchObject({ created: true, otherNamesAdded: ['Orvanel Trading', 'Orvanel JP'] });
+    const listed = await runCli(['own-entities', 'list', '--db', dir]);
+    expect(listed.stdout).toContain('Orvanel Japan K.K.\tJP\talso: Orvanel Trading (trade); Orvanel JP (also known as)');
+    const folder = join(dir, '..', `own-trading-${process.pid}`);
+    mkdirSync(folder, { recursive: true });
+    writeFileSync(
+      join(folder, 'distribution.txt'),
+      'This Distribution Agreement is made on 3 March 2025 between Orvanel Trading, of 4-2 Minato Street, Tokyo (the "Distributor"), ' +
+        'and Pellingham Freight Limited, a company incorporated in England and Wales (the "Carrier").\n',
+    );
+    try {
+      const imported = await runCli(['contracts', 'import', folder, '--db', dir, '--json']);
+      expect(imported.code, imported.stderr).toBe(0);
+      expect(JSON.parse(imported.stdout)).toMatchObject({ parties: { own_entity: 1, new: 1 } });
+    } finally {
+      rmSync(folder, { recursive: true, force: true });
+      rmSync(`${folder}.rejects.csv`, { force: true });
+    }
+    const opened = await openDatabase(dir);
+    try {
+      const names = await opened.db.selectFrom('counterparty_name').select('name').where('name', 'like', 'Orvanel%').execute();
+      expect(names).toEqual([]);
+    } finally {
+      await opened.close();
+    }
   });
 });

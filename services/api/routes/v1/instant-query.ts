@@ -2,6 +2,7 @@
  * A point in time given in a query string (review items' createdBefore / createdAfter): an RFC 3339 date-time
  * with its offset, or a plain ISO 8601 calendar date, read as midnight UTC of that day. A date alone is what
  * people type first ("items older than 2026-01-31"), and a format check that took only date-times refused it.
+ * Its UTC year must lie in 1–9999, as for every date-time the service takes.
  */
 import { ApiError } from '../../errors.ts';
 
@@ -26,7 +27,8 @@ export function instantOf(name: string, value: string | undefined): string | und
   const time = DATE.test(value) ? Date.parse(`${value}T00:00:00Z`) : DATE_TIME.test(value) ? Date.parse(value) : NaN;
   // Date.parse rolls 2026-02-30 over to March: a day that does not exist is refused, not moved.
   const realDay = !Number.isNaN(Date.parse(`${day}T00:00:00Z`)) && new Date(`${day}T00:00:00Z`).toISOString().slice(0, 10) === day;
-  // PostgreSQL has no year 0: an instant outside years 1–9999 in UTC ("0001-01-01T00:00:00+14:00") is refused too.
+  // PostgreSQL has no year 0: an instant outside years 1–9999 in UTC ("0001-01-01T00:00:00+14:00" is in year 0) once
+  // reached the database and answered 500 (the same bounds as the date-time format, services/api/validation.ts).
   const year = Number.isNaN(time) ? NaN : new Date(time).getUTCFullYear();
   if (Number.isNaN(time) || !realDay || !(year >= 1 && year <= 9999)) {
     const message = `"${value}" is not a date (2026-01-31, read as midnight UTC) or an RFC 3339 date-time with its offset (2026-01-31T09:30:00Z)`;

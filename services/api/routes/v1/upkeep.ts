@@ -1,6 +1,7 @@
 /** Mention upkeep (admin): unlink, set aside, withdraw; and own entities (read to list, admin to change). */
 import { setAsideMention, unlinkMention, withdrawMention } from '../../../register/upkeep.ts';
-import { addOwnEntity, ownEntities, removeOwnEntity } from '../../../register/own-entities.ts';
+import { addOwnEntity, MAX_OWN_ENTITY_OTHER_NAMES, ownEntities, removeOwnEntity } from '../../../register/own-entities.ts';
+import { OWN_ENTITY_NAME_KINDS, type OwnEntityNameKind } from '../../../../resolvers/vocabulary.ts';
 import { openItemOfMention } from '../../../../db/queries/review.ts';
 import { getMention } from '../../../../db/queries/mentions.ts';
 import { withLegalForm } from './legal-form.ts';
@@ -33,6 +34,7 @@ const OWN_ENTITY_OUT = {
     name: { type: 'string' },
     country: { type: 'string', nullable: true },
     identifiers: { type: 'array', items: { type: 'object', additionalProperties: true } },
+    otherNames: { type: 'array', items: { type: 'object', properties: { name: { type: 'string' }, kind: { type: 'string' } } } },
     createdAt: { type: 'string' },
     removedAt: { type: 'string', nullable: true },
   },
@@ -92,7 +94,15 @@ export const upkeepRoutes: RoutePlugin = (app, deps) => {
     async (request) => ({ items: await ownEntities(ctx, { includeRemoved: request.query.includeRemoved }) }),
   );
 
-  app.post<{ Body: { name: string; country?: string; identifiers?: { scheme: string; value: string; label?: string }[]; reason?: string } }>(
+  app.post<{
+    Body: {
+      name: string;
+      country?: string;
+      identifiers?: { scheme: string; value: string; label?: string }[];
+      otherNames?: { name: string; kind: OwnEntityNameKind }[];
+      reason?: string;
+    };
+  }>(
     '/v1/own-entities',
     {
       config: { scope: 'admin' },
@@ -103,11 +113,35 @@ export const upkeepRoutes: RoutePlugin = (app, deps) => {
           type: 'object',
           required: ['name'],
           additionalProperties: false,
-          properties: { name: NAME, country: COUNTRY, identifiers: { type: 'array', maxItems: 50, items: IDENTIFIER }, reason: REASON },
-          example: { name: 'Orvane Holdings B.V.', country: 'NL' },
+          properties: {
+            name: NAME,
+            country: COUNTRY,
+            identifiers: { type: 'array', maxItems: 50, items: IDENTIFIER },
+            otherNames: {
+              type: 'array',
+              maxItems: MAX_OWN_ENTITY_OTHER_NAMES,
+              description: 'other names it is known by (a trading name, a former name), recognised as ours like the legal name',
+              items: {
+                type: 'object',
+                required: ['name', 'kind'],
+                additionalProperties: false,
+                properties: { name: NAME, kind: { type: 'string', enum: [...OWN_ENTITY_NAME_KINDS] } },
+              },
+            },
+            reason: REASON,
+          },
+          example: { name: 'Orvane Holdings B.V.', country: 'NL', otherNames: [{ name: 'Orvane Trading', kind: 'trade' }] },
         },
         response: {
-          201: { type: 'object', properties: { eventId: { type: 'integer', nullable: true }, ownEntityId: { type: 'integer' }, created: { type: 'boolean' } } },
+          201: {
+            type: 'object',
+            properties: {
+              eventId: { type: 'integer', nullable: true },
+              ownEntityId: { type: 'integer' },
+              created: { type: 'boolean' },
+              otherNamesAdded: { type: 'array', items: { type: 'string' } },
+            },
+          },
           ...problemResponses(409),
         },
       },

@@ -2,7 +2,8 @@
  * Issue 16 items 4, 5 and 7 in the corpus: signature shapes (conformed "/s/" signatures, "Signed for and on behalf
  * of X by Y", "Y, duly authorised", "acting through its director Y", witness and notary lines), express
  * exclusions ("X, which is not a party hereto") and natural persons (an individual contractor by given name and
- * surname, a sole trader "X Y d/b/a Z", a person with a title). Every passage, company, person, address and number
+ * surname, a sole trader "X Y d/b/a Z", a person with a title), and the two signer shapes that run through them:
+ * a "By: / Name: / Title:" block and "represented by [its officer] Y" in the preamble. Every passage, company, person, address and number
  * is invented; the shapes are the drafting conventions of US, UK and translated continental contracts (common
  * practice). SHAPES_OF names the shapes each passage shows, so that the test can count three per shape.
  */
@@ -261,6 +262,81 @@ Ms Amélie Verdier, trading as Verdier Traductions, residing at 5 chemin des Vig
       { name: 'Lena Marwitz', terms: ['Freelancer'], role: 'Freelancer', kind: 'person' },
     ],
   },
+  {
+    id: 'uk-by-name-title-represented',
+    style: 'UK: (1)/(2) list, an LLP "represented by its designated member Y"; execution blocks "By: / Name: / Title:" under each party',
+    text: `This Equipment Hire Agreement is dated 14 October 2024 and is made between:
+
+(1) Fenwick Marlowe LLP, a limited liability partnership registered in England and Wales with number OC412345, represented by its designated member Ivo Brannagh (the "Owner"); and
+
+(2) Cressbrook Staging Limited, a company registered in England and Wales with company number 11234567 (the "Hirer").
+
+FENWICK MARLOWE LLP
+
+By: ______________________
+Name: Ivo Brannagh
+Title: Designated Member
+
+CRESSBROOK STAGING LIMITED
+
+By: ______________________
+Name: Cressida Holt
+Title: Director`,
+    parties: [
+      { name: 'Fenwick Marlowe LLP', terms: ['Owner'], role: 'Owner', jurisdiction: 'GB' },
+      { name: 'Cressbrook Staging Limited', terms: ['Hirer'], role: 'Hirer', jurisdiction: 'GB' },
+    ],
+    notParties: ['Ivo Brannagh', 'Cressida Holt'],
+    signers: [
+      { name: 'Ivo Brannagh', title: 'Designated Member', capacity: 'signatory', signsFor: 'FENWICK MARLOWE LLP' },
+      { name: 'Cressida Holt', title: 'Director', capacity: 'signatory', signsFor: 'CRESSBROOK STAGING LIMITED' },
+    ],
+  },
+  {
+    id: 'us-represented-by-officer',
+    style: 'US: "a Nevada corporation, represented by its Secretary, Mr. Y"; the same for the other party with "Ms."; one signature block By:/Name:/Title:',
+    text: `This Roofing Services Agreement (this "Agreement") is entered into as of April 7, 2025 by and between Kestrel Ridge Roofing, Inc., a Nevada corporation, represented by its Secretary, Mr. Wendell Ashby (the "Contractor"), and Saguaro Flats Apartments LLC, an Arizona limited liability company, represented by its Manager, Ms. Lorna Pike (the "Owner").
+
+KESTREL RIDGE ROOFING, INC.
+
+By: ______________________
+Name: Wendell Ashby
+Title: Secretary`,
+    parties: [
+      { name: 'Kestrel Ridge Roofing, Inc.', terms: ['Contractor'], role: 'Contractor' },
+      { name: 'Saguaro Flats Apartments LLC', terms: ['Owner'], role: 'Owner' },
+    ],
+    notParties: ['Agreement', 'Wendell Ashby', 'Lorna Pike'],
+    signers: [
+      { name: 'Wendell Ashby', title: 'Secretary', capacity: 'signatory', signsFor: 'KESTREL RIDGE ROOFING, INC.' },
+      { name: 'Lorna Pike', title: 'Manager', capacity: 'signatory' },
+    ],
+  },
+  {
+    id: 'eu-by-name-title-represented',
+    style:
+      'EU in English (Nordic/Italian drafting): "represented by its CEO Y" in the preamble; "For X" with "By: / Name: / Title:" lines carrying titles in the original language',
+    text: `This Distribution Agreement is entered into between Hallvik Maskin AB, a company organised under the laws of Sweden, represented by its CEO Sigrid Lundqvist (hereinafter the "Principal"), and Ferrucci Meccanica S.r.l., a company organised under the laws of Italy, represented by its Amministratore Unico Dario Ferrucci (hereinafter the "Distributor").
+
+For Hallvik Maskin AB
+By: ______________________
+Name: Sigrid Lundqvist
+Title: Verkställande direktör
+
+For Ferrucci Meccanica S.r.l.
+By: ______________________
+Name: Dario Ferrucci
+Title: Amministratore Unico`,
+    parties: [
+      { name: 'Hallvik Maskin AB', terms: ['Principal'], role: 'Principal' },
+      { name: 'Ferrucci Meccanica S.r.l.', terms: ['Distributor'], role: 'Distributor' },
+    ],
+    notParties: ['Sigrid Lundqvist', 'Dario Ferrucci'],
+    signers: [
+      { name: 'Sigrid Lundqvist', title: 'Verkställande direktör', capacity: 'signatory', signsFor: 'Hallvik Maskin AB' },
+      { name: 'Dario Ferrucci', title: 'Amministratore Unico', capacity: 'signatory', signsFor: 'Ferrucci Meccanica S.r.l.' },
+    ],
+  },
 ];
 
 /** The new shapes each passage shows: the test asks for three passages per shape, in US, UK and EU styles. */
@@ -277,4 +353,7 @@ export const SHAPES_OF: Readonly<Record<string, readonly string[]>> = {
   'eu-person-titled-represented': ['titled-person', 'sole-trader', 'represented-by'],
   'uk-individual-consultant': ['individual'],
   'eu-individual-freelancer': ['individual'],
+  'uk-by-name-title-represented': ['by-name-title', 'represented-by'],
+  'us-represented-by-officer': ['represented-by', 'by-name-title'],
+  'eu-by-name-title-represented': ['by-name-title', 'represented-by'],
 };
