@@ -10,35 +10,11 @@
  */
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import {
-  PostgresQueryCompiler,
-  type KyselyPlugin,
-  type PluginTransformQueryArgs,
-  type PluginTransformResultArgs,
-  type QueryResult,
-  type RootOperationNode,
-  type UnknownRow,
-} from 'kysely';
 import { expect, it } from 'vitest';
 import { describeBackends, makeTempDir, removeTempDir, withTestDatabase } from '../../support/index.ts';
 import { createRegisterContext, storeContract } from '../../../services/register/index.ts';
 import { importContractFiles } from '../../../services/contract-files/import-files.ts';
-import { WHO } from './support.ts';
-
-/** Records the SQL text of every statement, compiled (nested fragments included), in order. */
-class StatementLog implements KyselyPlugin {
-  readonly statements: string[] = [];
-  private readonly compiler = new PostgresQueryCompiler();
-
-  transformQuery(args: PluginTransformQueryArgs): RootOperationNode {
-    this.statements.push(this.compiler.compileQuery(args.node, args.queryId).sql);
-    return args.node;
-  }
-
-  transformResult(args: PluginTransformResultArgs): Promise<QueryResult<UnknownRow>> {
-    return Promise.resolve(args.result);
-  }
-}
+import { StatementLog, WHO } from './support.ts';
 
 /** An invented two-party agreement; `extra` adds collective defined terms (more terms, the same parties). */
 function agreement(supplier: string, customer: string, extra = false): string {

@@ -8,34 +8,10 @@
  * the ids with the row locks of the counterparty it links; the write, which draws the event's id (11 before they
  * were folded). Names are invented.
  */
-import {
-  PostgresQueryCompiler,
-  type KyselyPlugin,
-  type PluginTransformQueryArgs,
-  type PluginTransformResultArgs,
-  type QueryResult,
-  type RootOperationNode,
-  type UnknownRow,
-} from 'kysely';
 import { expect, it } from 'vitest';
 import { describeBackends, withTestDatabase } from '../../support/index.ts';
 import { addOwnEntity, createRegisterContext, resolveMention } from '../../../services/register/index.ts';
-import { WHO } from './support.ts';
-
-/** Records the SQL text of every statement, compiled (nested fragments included), in order. */
-class StatementLog implements KyselyPlugin {
-  readonly statements: string[] = [];
-  private readonly compiler = new PostgresQueryCompiler();
-
-  transformQuery(args: PluginTransformQueryArgs): RootOperationNode {
-    this.statements.push(this.compiler.compileQuery(args.node, args.queryId).sql);
-    return args.node;
-  }
-
-  transformResult(args: PluginTransformResultArgs): Promise<QueryResult<UnknownRow>> {
-    return Promise.resolve(args.result);
-  }
-}
+import { StatementLog, WHO } from './support.ts';
 
 const isRarityRead = (statement: string) => statement.includes("c.key = 't:' || t.token");
 const isCandidateRead = (statement: string) => statement.includes('WITH q AS');
