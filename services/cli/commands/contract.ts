@@ -113,6 +113,9 @@ function formatText(parsed: Parsed, resolution: Resolution | undefined, left: No
   const signerNames = new Set(signers.map((s) => s.name));
   const other = left.other.filter((n) => !signerNames.has(n));
   if (other.length > 0) lines.push(`Not parties: ${other.join('; ')}`);
+  // "X, which is not a party hereto": named by the contract, stored with it as mentioned, never one of its parties.
+  const mentioned = (parsed.mentioned ?? []).map((m) => (m.terms.length > 0 ? `${m.name} (${m.terms.map((t) => `"${t}"`).join(', ')})` : m.name));
+  if (mentioned.length > 0) lines.push(`Mentioned, not parties to this contract: ${mentioned.join('; ')}`);
   // An amendment or side letter: the register binds the terms it does not define through this earlier agreement.
   for (const a of parsed.earlierAgreements ?? []) {
     const facts = [

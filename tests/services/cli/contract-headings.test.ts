@@ -14,6 +14,11 @@ beforeAll(async () => {
   const dpa = NON_PARTY_SHAPES.find((c) => c.id === 'uk-dpa-roles');
   await writeFile(join(dir, 'msa.txt'), passage?.text ?? '');
   await writeFile(join(dir, 'dpa.txt'), dpa?.text ?? '');
+  await writeFile(
+    join(dir, 'loan.txt'),
+    'This Loan Agreement is made between Harrowgate Lending Ltd (the "Lender") and Pellbrook Joinery Ltd (the "Borrower"). ' +
+      'Calderwick Holdings Ltd (the "Guarantor"), which is not a party to this Agreement, has agreed to guarantee the loan.',
+  );
 });
 
 afterAll(async () => {
@@ -28,6 +33,13 @@ describe('cpreg contract parse headings', () => {
     expect(msa.stdout).toContain('Document references (not parties): Agreement');
     const dpa = await runCli(['contract', 'parse', join(dir, 'dpa.txt')]);
     expect(dpa.stdout).toContain('Roles not bound to a party: Sub-processor');
+  });
+
+  it('lists an entity the contract names but excludes under its own heading (issue 16 item 5)', async () => {
+    const loan = await runCli(['contract', 'parse', join(dir, 'loan.txt')]);
+    expect(loan.code).toBe(0);
+    expect(loan.stdout).toMatch(/^Mentioned, not parties to this contract: Calderwick Holdings Ltd \("Guarantor"\)$/m);
+    expect(loan.stdout).not.toMatch(/^ {2}\d+\. Calderwick/m);
   });
 
   it('says how a --mention ended in words (it printed the key unbound_term)', async () => {
