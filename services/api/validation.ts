@@ -43,12 +43,15 @@ function narrowDateTime(ajv: Ajv): void {
   ajv.addFormat('date-time', {
     type: 'string',
     validate: (text: string) => {
-      if (!rfc3339(text)) return false;
-      const at = new Date(text);
-      const year = at.getUTCFullYear();
-      return !Number.isNaN(at.getTime()) && year >= 1 && year <= 9999;
+      return rfc3339(text) && isUsableInstant(new Date(text));
     },
   });
+}
+
+/** An instant the service can compare and store: Date reads it and its UTC year lies in 1–9999 (see narrowDateTime). */
+export function isUsableInstant(at: Date): boolean {
+  const year = at.getUTCFullYear();
+  return !Number.isNaN(at.getTime()) && year >= 1 && year <= 9999;
 }
 
 /** For fastify's `schemaController.compilersFactory.buildValidator`. */

@@ -5,6 +5,7 @@
  * Its UTC year must lie in 1–9999, as for every date-time the service takes.
  */
 import { ApiError } from '../../errors.ts';
+import { isUsableInstant } from '../../validation.ts';
 
 const DATE = /^\d{4}-\d{2}-\d{2}$/;
 const DATE_TIME = /^\d{4}-\d{2}-\d{2}t\d{2}:\d{2}:\d{2}(?:\.\d{1,9})?(?:z|[+-]\d{2}:\d{2})$/i;
@@ -28,9 +29,8 @@ export function instantOf(name: string, value: string | undefined): string | und
   // Date.parse rolls 2026-02-30 over to March: a day that does not exist is refused, not moved.
   const realDay = !Number.isNaN(Date.parse(`${day}T00:00:00Z`)) && new Date(`${day}T00:00:00Z`).toISOString().slice(0, 10) === day;
   // PostgreSQL has no year 0: an instant outside years 1–9999 in UTC ("0001-01-01T00:00:00+14:00" is in year 0) once
-  // reached the database and answered 500 (the same bounds as the date-time format, services/api/validation.ts).
-  const year = Number.isNaN(time) ? NaN : new Date(time).getUTCFullYear();
-  if (Number.isNaN(time) || !realDay || !(year >= 1 && year <= 9999)) {
+  // reached the database and answered 500; the same rule as the date-time format's.
+  if (!realDay || !isUsableInstant(new Date(time))) {
     const message = `"${value}" is not a date (2026-01-31, read as midnight UTC) or an RFC 3339 date-time with its offset (2026-01-31T09:30:00Z)`;
     throw new ApiError('VALIDATION_FAILED', `the query parameter ${name}: ${message}`, { errors: [{ pointer: `/${name}`, message, in: 'query' }] });
   }
