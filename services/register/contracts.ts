@@ -19,7 +19,7 @@ import { earlierContractOf } from './earlier-contract.ts';
 import { contractToStore, definedTermIdsOf, getContract, partiesFromPosition, partyOfMention, type ContractView } from '../../db/queries/contracts.ts';
 import { analyse } from './matching/analysis.ts';
 import { canonicalRow, type StateTable } from './state/tables.ts';
-import { MAX_TITLE_LENGTH, type MentionInput } from '../../resolvers/vocabulary.ts';
+import { MAX_ID_LENGTH, MAX_TITLE_LENGTH, type MentionInput } from '../../resolvers/vocabulary.ts';
 
 export interface ContractInput {
   source: string;
@@ -45,7 +45,7 @@ export const PARTY_SOURCE_PREFIX = 'contract:';
 function check(input: ContractInput): void {
   for (const field of ['source', 'externalId'] as const) {
     if (typeof input[field] !== 'string' || input[field].trim() === '') throw invalid(field, 'must be a non-empty string');
-    if (input[field].length > 300) throw invalid(field, 'is longer than 300 characters');
+    if (input[field].length > MAX_ID_LENGTH) throw invalid(field, `is longer than ${MAX_ID_LENGTH} characters`);
   }
   if (input.title !== undefined && (typeof input.title !== 'string' || input.title.length > MAX_TITLE_LENGTH)) {
     throw invalid('title', `must be a string of at most ${MAX_TITLE_LENGTH} characters`);

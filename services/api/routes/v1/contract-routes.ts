@@ -11,7 +11,7 @@ import { RESOLVE_OUT, RESOLVE_REQUIRED } from './mentions.ts';
 import type { FastifyInstance } from 'fastify';
 import type { RegisterContext } from '../../../register/context.ts';
 import type { AppDeps } from '../../types.ts';
-import { MAX_TITLE_LENGTH } from '../../../../resolvers/vocabulary.ts';
+import { MAX_ID_LENGTH, MAX_TITLE_LENGTH } from '../../../../resolvers/vocabulary.ts';
 
 export const CONTRACT_BODY_LIMIT = 1024 * 1024;
 const MAX_CONTRACT_TEXT = 1024 * 1024;
@@ -83,8 +83,8 @@ export function contractRoutes(app: FastifyInstance, deps: AppDeps, ctx: Registe
                 additionalProperties: false,
                 properties: {
                   name: NAME,
-                  role: { type: 'string', minLength: 1, maxLength: 300 },
-                  definedTerm: { type: 'string', minLength: 1, maxLength: 300 },
+                  role: { type: 'string', minLength: 1, maxLength: MAX_ID_LENGTH },
+                  definedTerm: { type: 'string', minLength: 1, maxLength: MAX_ID_LENGTH },
                   identifiers: { type: 'array', maxItems: 50, items: IDENTIFIER },
                 },
               },
