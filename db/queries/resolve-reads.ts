@@ -38,17 +38,6 @@ export async function lockAndReadDecisionBasics(
   return { settings: row.settings ? settingsView(row.settings) : undefined, ownEntities: row.own.map(ownEntityView) };
 }
 
-/** A contract by its source id: id, parsed terms and status. */
-export async function contractByRef(db: Queryable, source: string, externalId: string): Promise<{ id: number; parsed: unknown; status: string } | undefined> {
-  const row = await db
-    .selectFrom('contract')
-    .select(['id', 'parsed', 'status'])
-    .where('source', '=', source)
-    .where('external_id', '=', externalId)
-    .executeTakeFirst();
-  return row ? { id: id(row.id), parsed: row.parsed, status: row.status } : undefined;
-}
-
 /** The mention of each party of a contract, by the party's position. */
 export async function partyMentionsByPosition(db: Queryable, contractId: number): Promise<Map<number, number>> {
   const parties = await db.selectFrom('contract_party').select(['position', 'mention_id']).where('contract_id', '=', contractId).execute();

@@ -14,7 +14,7 @@ import { write } from './transaction.ts';
 import { detachMention } from './upkeep.ts';
 import { prepareMention } from './resolve/prepare.ts';
 import { resolveWithin, type ResolveResult } from './resolve/resolve-mention.ts';
-import { mentionOutcome, mentionRow, mentionsWaitingForContract } from '../../db/queries/mentions.ts';
+import { mentionOutcome, mentionById, mentionsWaitingForContract } from '../../db/queries/mentions.ts';
 import { earlierContractOf } from './earlier-contract.ts';
 import { contractToStore, definedTermIdsOf, getContract, partiesFromPosition, partyOfMention, type ContractView } from '../../db/queries/contracts.ts';
 import { analyse } from './matching/analysis.ts';
@@ -123,7 +123,7 @@ async function withdrawVanishedParties(cs: ChangeSet, contractId: number, count:
 
 /** Resolves a stored mention again in its own contract (a contract it waited for has arrived); null when a person settled it. */
 async function resolveAgain(ctx: RegisterContext, cs: ChangeSet, mentionId: number, who: ActorInput): Promise<ResolveResult | null> {
-  const row = await mentionRow(cs.trx, mentionId);
+  const row = await mentionById(cs.trx, mentionId);
   if (!row) throw new RegisterError('CONFLICT', `mention ${mentionId} vanished while it was resolved again`);
   const m = canonicalRow('mention', row);
   if (m.status === 'withdrawn' || m.status === 'set_aside' || m.confirmed_by || !m.contract_source || !m.contract_external_id) return null;

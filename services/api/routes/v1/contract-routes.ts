@@ -2,7 +2,7 @@
 import { storeContract, type ContractInput } from '../../../register/contracts.ts';
 import { applyGivenParties, type GivenParty } from '../../../register/contract-given-parties.ts';
 import { normaliseIdentifierOrThrow } from '../../../register/records.ts';
-import { findContractId, getContract, searchContracts } from '../../../../db/queries/contracts.ts';
+import { contractByRef, getContract, searchContracts } from '../../../../db/queries/contracts.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import { ID_PARAM, IDENTIFIER, NAME, PAGE_QUERY, SOURCE_ID, pagedOf } from './schemas.ts';
 import { actorOf } from './actor-of.ts';
@@ -226,8 +226,8 @@ export function contractRoutes(app: FastifyInstance, deps: AppDeps, ctx: Registe
       },
     },
     async (request) => {
-      const id = await findContractId(db, request.query.source, request.query.externalId);
-      const contract = id === undefined ? undefined : await getContract(db, id);
+      const found = await contractByRef(db, request.query.source, request.query.externalId);
+      const contract = found === undefined ? undefined : await getContract(db, found.id);
       if (!contract) throw new ApiError('NOT_FOUND', `no contract ${request.query.source}/${request.query.externalId}`);
       return contract;
     },
