@@ -1,7 +1,8 @@
 /**
  * What one resolution reads besides its candidates (services/register/resolve/): the neighbourhood locks of
- * look-alike names, the contract a mention names with the mentions of its parties, a party mention's outcome, and
- * the answer's extras (the open review item of a mention in review).
+ * look-alike names, the mentions of a contract's parties, and the answer's extras (the open review item of a
+ * mention in review). The contract a mention names is read by contractByRef (contracts.ts), a party mention's
+ * outcome by mentionOutcome (mentions.ts).
  */
 import { sql } from 'kysely';
 import type { Queryable } from './util.ts';
