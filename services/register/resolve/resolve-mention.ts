@@ -5,7 +5,8 @@
  * Idempotent: the same (source, externalId) with the same content answers the stored result and changes nothing;
  * with a different content the mention is updated, resolved again and the change recorded (`mention_changed`).
  */
-import { contractByRef, lockAndReadDecisionBasics, lockNeighbourhoodKeys, partyMentionsByPosition } from '../../../db/queries/resolve-reads.ts';
+import { lockAndReadDecisionBasics, lockNeighbourhoodKeys, partyMentionsByPosition } from '../../../db/queries/resolve-reads.ts';
+import { contractByRef } from '../../../db/queries/contracts.ts';
 import type { ParsedContract } from '../../../resolvers/terms/index.ts';
 import type { MentionInput } from '../../../resolvers/vocabulary.ts';
 import { mentionByRef } from '../../../db/queries/mentions-by-ref.ts';
