@@ -7,5 +7,6 @@
  * rewrites the stored analyses and keys of an existing register; `cpreg verify` lists the names still to do.
  *
  * 1: the analysis when stored analyses were introduced.
+ * 2: ae/oe/ue no longer folded at a word's end or before a final l/s ("Samuel Blue" stays, normalise-name.ts).
  */
-export const ANALYSIS_VERSION = 1;
+export const ANALYSIS_VERSION = 2;
