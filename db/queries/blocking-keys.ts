@@ -284,7 +284,10 @@ function detailOf(r: {
     names: names.map(([name, kind, analysis, version, country]) => ({
       name,
       kind,
-      stored: analysis === null || analysis === undefined || version === null ? null : { analysis: typeof analysis === 'string' ? (JSON.parse(analysis) as unknown) : analysis, version, country },
+      stored:
+        analysis === null || analysis === undefined || version === null
+          ? null
+          : { analysis: typeof analysis === 'string' ? (JSON.parse(analysis) as unknown) : analysis, version, country },
     })),
     identifiers: ids.map(([scheme, value, label]) => ({ scheme, value, label })),
   };

@@ -70,8 +70,7 @@ function staleName(r: StaleRow): StaleName {
  * its counterparty's jurisdiction now. Its stored analysis is then not used, and its blocking keys may be those of
  * an older analysis.
  */
-const STALE = (version: number) =>
-  sql`(a.name_id IS NULL OR a.analysis_version <> ${version} OR a.country IS DISTINCT FROM cp.jurisdiction)`;
+const STALE = (version: number) => sql`(a.name_id IS NULL OR a.analysis_version <> ${version} OR a.country IS DISTINCT FROM cp.jurisdiction)`;
 
 /**
  * The next `limit` stale names after name id `afterId`, in id order, locked (FOR UPDATE) so that no writer changes

@@ -26,10 +26,7 @@ export interface ReanalyseResult {
   version: number;
 }
 
-export async function reanalyseNames(
-  ctx: RegisterContext,
-  options: { chunk?: number; progress?: (names: number) => void } = {},
-): Promise<ReanalyseResult> {
+export async function reanalyseNames(ctx: RegisterContext, options: { chunk?: number; progress?: (names: number) => void } = {}): Promise<ReanalyseResult> {
   const chunk = options.chunk ?? REANALYSE_CHUNK;
   if (!Number.isInteger(chunk) || chunk < 1) throw new RangeError(`chunk ${chunk}: expected a whole number of names, at least 1`);
   let after = 0;

@@ -29,7 +29,8 @@ export async function checkReplay(live: Kysely<Database>, staleNameIds: Readonly
     const { events } = await replayHistory(live, scratch.db, createRegisterContext(scratch.db).derived);
     const [actual, replayed] = [await stateSnapshot(live), await stateSnapshot(scratch.db)];
     // Keys of stale names are those of an older analysis: reported as stale names (stale-analyses.ts), not here.
-    if (staleNameIds.size > 0) for (const snapshot of [actual, replayed]) snapshot.blocking_key = snapshot.blocking_key.filter((k) => !staleNameIds.has(Number(k.name_id)));
+    if (staleNameIds.size > 0)
+      for (const snapshot of [actual, replayed]) snapshot.blocking_key = snapshot.blocking_key.filter((k) => !staleNameIds.has(Number(k.name_id)));
     return { events, violations: compareSnapshots(actual, replayed) };
   } finally {
     await scratch.close();

@@ -84,7 +84,14 @@ export class WriteBuffer {
   }
 
   get empty(): boolean {
-    return this.inserts.size === 0 && this.updates.size === 0 && this.events.length === 0 && this.blockingKeys.length === 0 && this.analyses.length === 0 && this.explanations.length === 0;
+    return (
+      this.inserts.size === 0 &&
+      this.updates.size === 0 &&
+      this.events.length === 0 &&
+      this.blockingKeys.length === 0 &&
+      this.analyses.length === 0 &&
+      this.explanations.length === 0
+    );
   }
 
   /**

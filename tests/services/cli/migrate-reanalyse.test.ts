@@ -36,5 +36,5 @@ describe('cpreg migrate reanalyse (command line, embedded)', () => {
     } finally {
       removeTempDir(dir);
     }
-  }, 180_000);
+  }, 400_000);
 });
