@@ -109,6 +109,18 @@ export async function staleNames(db: Queryable, version: number, sample: number)
   return { count, first: result.rows.map(staleName) };
 }
 
+/** Whether the schema has the stored-analysis table (a database not yet migrated to it has not). */
+export async function hasNameAnalysisTable(db: Queryable): Promise<boolean> {
+  const result = await sql<{ present: boolean }>`SELECT to_regclass('counterparty_name_analysis') IS NOT NULL AS present`.execute(db);
+  return result.rows[0]?.present === true;
+}
+
+/** Ids of every name (all stale when the schema has no stored analyses yet). */
+export async function allNameIds(db: Queryable): Promise<Set<number>> {
+  const rows = await db.selectFrom('counterparty_name').select('id').execute();
+  return new Set(rows.map((r) => id(r.id)));
+}
+
 /** Ids of every stale name (for verify: their blocking keys are left out of the replay comparison). */
 export async function staleNameIds(db: Queryable, version: number): Promise<Set<number>> {
   const result = await sql<{ id: string | number }>`

@@ -129,4 +129,14 @@ describeEachBackend('stored name analyses', (t) => {
     expect(again.counterpartyId).toBe(made.counterpartyId);
     expect((await verifyRegister(t.db())).ok).toBe(true);
   });
+
+  it('verify, reading a schema not yet migrated to stored analyses, says every name is stale and what to run', async () => {
+    const names = (await stored()).length;
+    await sql`DROP TABLE counterparty_name_analysis`.execute(t.db());
+    const report = await verifyRegister(t.db());
+    const finding = report.checks.find((c) => c.check === 'name_analysis_stale')!;
+    expect([finding.ok, finding.violationCount]).toEqual([false, names]);
+    expect(finding.violations[0]!.message).toContain('run `cpreg migrate`, then `cpreg migrate reanalyse`');
+    expect(report.checks.filter((c) => !c.ok).map((c) => c.check)).toEqual(['name_analysis_stale']);
+  });
 });
