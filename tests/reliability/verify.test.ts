@@ -48,6 +48,7 @@ describeEachBackend('cpreg verify', (t) => {
       'review_decision_not_reflected',
       'ingest_counts_do_not_reconcile',
       'canonical_name_rule',
+      'name_analysis_stale',
       'replay_differs',
     ]);
   });

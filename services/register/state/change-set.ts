@@ -213,6 +213,8 @@ export class ChangeSet {
       if (isNameRow(table, row)) {
         this.cache.trackName(row, true);
         this.buffer.nameKeys([...new Set(this.derived.nameKeys(row))], row.counterparty_id, id);
+        const stored = this.derived.nameAnalysis(row.name, (await this.get('counterparty', row.counterparty_id))?.jurisdiction ?? null);
+        this.buffer.nameAnalysis({ name_id: id, analysis: stored.analysis, analysis_version: stored.version, country: stored.country });
       }
       return row;
     }
@@ -243,7 +245,10 @@ export class ChangeSet {
     const op: Op = { op: 'update', table, id, before, after, refs: refsOf(table, current) };
     const row: StateRow<T> = { ...current, ...after };
     // A name's text or owner changes its derived keys: written at once (after the buffer).
-    const immediate = table === 'counterparty_name' && ('name' in after || 'normalised' in after || 'counterparty_id' in after);
+    // So does a counterparty's jurisdiction: its names' stored analyses.
+    const immediate =
+      (table === 'counterparty_name' && ('name' in after || 'normalised' in after || 'counterparty_id' in after)) ||
+      (table === 'counterparty' && 'jurisdiction' in after);
     if (this.buffer && !immediate) {
       this.cache.set(table, row);
       this.buffer.update(table, id, after);

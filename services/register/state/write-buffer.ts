@@ -17,6 +17,7 @@ import {
   type SetWrite,
 } from '../../../db/queries/state-writes.ts';
 import { insertExplanations } from '../../../db/queries/explanations.ts';
+import { upsertNameAnalysesWrite, type NameAnalysisRow } from '../../../db/queries/name-analysis.ts';
 import type { Op } from './ops.ts';
 import type { RowCache } from './row-cache.ts';
 import { columnsOf, STATE_TABLES, type Row, type StateTable } from './tables.ts';
@@ -42,6 +43,7 @@ export class WriteBuffer {
   /** Changed columns of rows stored before, by table and id. */
   private updates = new Map<string, { table: StateTable; id: number; after: Row }>();
   private blockingKeys: { key: string; counterparty_id: number; name_id: number }[] = [];
+  private analyses: NameAnalysisRow[] = [];
   private events: BufferedEvent[] = [];
   private explanations: { id: number; body: Row }[] = [];
 
@@ -63,6 +65,11 @@ export class WriteBuffer {
     for (const key of keys) this.blockingKeys.push({ key, counterparty_id: counterpartyId, name_id: nameId });
   }
 
+  /** The stored analysis of a new name (derived.ts), written with it. */
+  nameAnalysis(row: NameAnalysisRow): void {
+    this.analyses.push(row);
+  }
+
   explanation(id: number, body: Row): void {
     this.explanations.push({ id, body });
   }
@@ -77,7 +84,14 @@ export class WriteBuffer {
   }
 
   get empty(): boolean {
-    return this.inserts.size === 0 && this.updates.size === 0 && this.events.length === 0 && this.blockingKeys.length === 0 && this.explanations.length === 0;
+    return (
+      this.inserts.size === 0 &&
+      this.updates.size === 0 &&
+      this.events.length === 0 &&
+      this.blockingKeys.length === 0 &&
+      this.analyses.length === 0 &&
+      this.explanations.length === 0
+    );
   }
 
   /**
@@ -110,6 +124,7 @@ export class WriteBuffer {
     }
     for (const { table, columns, rows } of byColumns.values()) writes.push(updateRows(table, columns, rows));
     if (this.blockingKeys.length > 0) writes.push(insertBlockingKeys(this.blockingKeys.map((k) => ({ ...k, name_id: map.get(k.name_id) ?? k.name_id }))));
+    if (this.analyses.length > 0) writes.push(upsertNameAnalysesWrite(this.analyses.map((a) => ({ ...a, name_id: map.get(a.name_id) ?? a.name_id }))));
     if (drawInWrite) {
       const rows = this.events.map((e) => ({ ...e.values, payload: { ...(e.values.payload as Row), ops: e.ops } }));
       const drawn = await runWritesReturning(trx, writes, insertDrawingIds('history_event', EVENT_COLUMNS_BUT_ID, rows));
@@ -126,6 +141,7 @@ export class WriteBuffer {
     this.inserted = new Set();
     this.updates = new Map();
     this.blockingKeys = [];
+    this.analyses = [];
     this.events = [];
     this.explanations = [];
     return map;
