@@ -29,6 +29,7 @@ import { commitEvent, eventRow, type EventInput } from './history/commit.ts';
 import { RegisterError, invalid } from './errors.ts';
 import { canonicalRow, columnsOf, type Row, type StateTable } from './state/tables.ts';
 import { jsonbImage } from './state/jsonb-image.ts';
+import { analyse } from './matching/analysis.ts';
 import { transactionClient } from '../../db/transaction-client.ts';
 import { copyRows } from '../../db/queries/copy-rows.ts';
 import { drawIds } from '../../db/queries/state-writes.ts';
@@ -56,46 +57,72 @@ export interface LoadOptions {
   via?: 'copy' | 'statements';
 }
 
-/** Loads rows from any iterator in chunks; returns the number of counterparties created. */
+/**
+ * Loads rows from any iterator in chunks; returns the number of counterparties created. The next chunk is checked
+ * and its names analysed while the database writes the current one (in slices, so that the write's round trips are
+ * answered in between): the two processes work at once instead of in turn. Chunks are still written one after the
+ * other, in order.
+ */
 export async function loadCounterparties(ctx: RegisterContext, rows: Iterable<LoadRow>, who: ActorInput, options: LoadOptions): Promise<number> {
-  let chunk: { row: LoadRow; line: number }[] = [];
-  let line = options.firstLine ?? 1;
   let loaded = 0;
-  const flush = async () => {
-    if (chunk.length === 0) return;
-    await loadChunk(ctx, chunk, who, options, loaded);
-    loaded += chunk.length;
-    chunk = [];
-    options.progress?.(loaded);
-  };
-  for (const row of rows) {
-    chunk.push({ row, line: line++ });
-    if (chunk.length >= LOAD_CHUNK) await flush();
+  let writing: Promise<void> = Promise.resolve();
+  for (const chunk of chunksOf(rows, options.firstLine ?? 1)) {
+    let prepared: Prepared;
+    try {
+      prepared = await prepareChunk(ctx, chunk);
+    } catch (error) {
+      await writing;
+      if (error instanceof RegisterError) error.message = `${error.message} (${loaded} rows loaded before this chunk; nothing of it was written)`;
+      throw error;
+    }
+    await writing;
+    writing = writeChunk(ctx, prepared, who, options).then(() => {
+      loaded += prepared.length;
+      options.progress?.(loaded);
+    });
+    // Awaited before the next write or the end; handled now so that a failure while the next chunk is prepared is
+    // not reported as unhandled.
+    writing.catch(() => undefined);
   }
-  await flush();
+  await writing;
   return loaded;
 }
 
-type Checked = { name: string; jurisdiction: string | null }[];
-
-async function loadChunk(
-  ctx: RegisterContext,
-  chunk: { row: LoadRow; line: number }[],
-  who: ActorInput,
-  options: LoadOptions,
-  loadedBefore: number,
-): Promise<void> {
-  const checked = chunk.map(({ row, line }) => {
-    try {
-      const name = checkName(`line ${line}: name`, row.name);
-      // PostgreSQL text cannot hold U+0000: refused here with its line rather than by the database.
-      if (name.includes('\u0000')) throw invalid(`line ${line}: name`, 'must not contain the character U+0000');
-      return { name, jurisdiction: checkJurisdiction(`line ${line}: country`, row.country ?? null) };
-    } catch (error) {
-      if (error instanceof RegisterError) error.message = `${error.message} (${loadedBefore} rows loaded before this chunk; nothing of it was written)`;
-      throw error;
+function* chunksOf(rows: Iterable<LoadRow>, firstLine: number): Generator<{ row: LoadRow; line: number }[]> {
+  let chunk: { row: LoadRow; line: number }[] = [];
+  let line = firstLine;
+  for (const row of rows) {
+    chunk.push({ row, line: line++ });
+    if (chunk.length >= LOAD_CHUNK) {
+      yield chunk;
+      chunk = [];
     }
-  });
+  }
+  if (chunk.length > 0) yield chunk;
+}
+
+/** A checked row with its name's blocking keys (the analysis itself stays in the analysis cache, matching/analysis.ts). */
+type Prepared = { name: string; jurisdiction: string | null; keys: string[] }[];
+
+/** Rows analysed between two yields to the event loop while a write is in flight. */
+const PREPARE_SLICE = 200;
+
+/** Checks the rows (a bad one throws naming its line) and analyses their names, yielding between slices. */
+async function prepareChunk(ctx: RegisterContext, chunk: { row: LoadRow; line: number }[]): Promise<Prepared> {
+  const out: Prepared = [];
+  for (const { row, line } of chunk) {
+    const name = checkName(`line ${line}: name`, row.name);
+    // PostgreSQL text cannot hold U+0000: refused here with its line rather than by the database.
+    if (name.includes('\u0000')) throw invalid(`line ${line}: name`, 'must not contain the character U+0000');
+    const jurisdiction = checkJurisdiction(`line ${line}: country`, row.country ?? null);
+    // Analysed now (the write's nameValues finds it in the analysis cache), the keys as the ChangeSet derives them.
+    out.push({ name, jurisdiction, keys: [...new Set(ctx.derived.nameKeys({ name, normalised: analyse(name).normalised, kind: 'legal' }))] });
+    if (out.length % PREPARE_SLICE === 0) await new Promise((resolve) => setImmediate(resolve));
+  }
+  return out;
+}
+
+async function writeChunk(ctx: RegisterContext, prepared: Prepared, who: ActorInput, options: LoadOptions): Promise<void> {
   await write(ctx, async (cs) => {
     const at = ctx.now();
     // One event for the chunk: it names every counterparty it created (counterparty_ids), and undoing it takes the
@@ -105,16 +132,16 @@ async function loadChunk(
       actor: who.actor,
       at,
       reason: who.reason ?? null,
-      details: { entity: 'counterparties', count: checked.length, loadedFrom: options.source },
+      details: { entity: 'counterparties', count: prepared.length, loadedFrom: options.source },
     };
     const client = options.via === 'statements' ? undefined : await transactionClient(ctx.db, cs.trx);
-    if (client) await copyChunk(ctx, cs.trx, client, checked, options.source, event);
-    else await bufferChunk(cs, checked, options.source, event);
+    if (client) await copyChunk(cs.trx, client, prepared, options.source, event);
+    else await bufferChunk(cs, prepared, options.source, event);
   });
 }
 
 /** The statement path: a buffered ChangeSet, written in one statement of set-based inserts. */
-async function bufferChunk(cs: ChangeSet, checked: Checked, source: string, event: EventInput): Promise<void> {
+async function bufferChunk(cs: ChangeSet, checked: Prepared, source: string, event: EventInput): Promise<void> {
   cs.startBuffering();
   await cs.reserveIds({ counterparty: checked.length });
   for (const { name, jurisdiction } of checked) {
@@ -133,14 +160,7 @@ const image = <T extends StateTable>(table: T, values: Row) => canonicalRow(tabl
  * the statement path takes them), the rows and the event's ops built in the statement path's order (each
  * counterparty, then its name), then one COPY per table, parents first.
  */
-async function copyChunk(
-  ctx: RegisterContext,
-  trx: Transaction<Database>,
-  client: PoolClient,
-  checked: Checked,
-  source: string,
-  event: EventInput,
-): Promise<void> {
+async function copyChunk(trx: Transaction<Database>, client: PoolClient, checked: Prepared, source: string, event: EventInput): Promise<void> {
   const n = checked.length;
   const ids = await drawIds(
     trx,
@@ -154,13 +174,13 @@ async function copyChunk(
   const names: Row[] = [];
   const keys: Row[] = [];
   const ops: Op[] = [];
-  checked.forEach(({ name, jurisdiction }, i) => {
+  checked.forEach(({ name, jurisdiction, keys: nameKeys }, i) => {
     const cp = image('counterparty', { ...counterpartyValues({ name, jurisdiction, at: event.at }), id: ids.get('counterparty')![i]! });
     const nm = image('counterparty_name', { ...nameValues(cp.id, { name, kind: 'legal', source }, event.at), id: ids.get('counterparty_name')![i]! });
     counterparties.push(cp);
     names.push(nm);
     ops.push({ op: 'insert', table: 'counterparty', row: cp }, { op: 'insert', table: 'counterparty_name', row: nm });
-    for (const key of new Set(ctx.derived.nameKeys(nm))) keys.push({ key, counterparty_id: cp.id, name_id: nm.id });
+    for (const key of nameKeys) keys.push({ key, counterparty_id: cp.id, name_id: nm.id });
   });
   await copyRows(client, { table: 'counterparty', columns: columnsOf('counterparty'), rows: counterparties });
   await copyRows(client, { table: 'counterparty_name', columns: columnsOf('counterparty_name'), rows: names });

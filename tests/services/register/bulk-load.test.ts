@@ -119,6 +119,23 @@ describePostgres('bulk load through COPY (PostgreSQL)', () => {
 });
 
 describeBackends('bulk load: refused rows', (backend) => {
+  it('refuses a bad row of a later chunk after the chunks before it are committed, and says how many', async () => {
+    await withTestDatabase(backend, async (opened) => {
+      const ctx = createRegisterContext(opened.db);
+      const good = [...generateNames(LOAD_CHUNK, 3)].map((r) => ({ name: r.name, country: r.country }));
+      const loadedCounts: number[] = [];
+      await expect(
+        loadCounterparties(ctx, [...good, { name: 'Pellmoor Dyes Ltd', country: 'XX-NOWHERE' }], WHO, {
+          source: 'test',
+          progress: (n) => loadedCounts.push(n),
+        }),
+      ).rejects.toThrow(new RegExp(`line ${LOAD_CHUNK + 1}: country.*\\(${LOAD_CHUNK} rows loaded before this chunk; nothing of it was written\\)`));
+      expect(loadedCounts).toEqual([LOAD_CHUNK]);
+      const count = await sql<{ n: number }>`SELECT count(*)::int AS n FROM counterparty`.execute(opened.db);
+      expect(count.rows[0]!.n).toBe(LOAD_CHUNK);
+    });
+  }, 120_000);
+
   it('refuses a name holding U+0000 with its line, writing nothing of its chunk', async () => {
     await withTestDatabase(backend, async (opened) => {
       const ctx = createRegisterContext(opened.db);
