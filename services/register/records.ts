@@ -52,12 +52,17 @@ export function normaliseIdentifierOrThrow(field: string, input: IdentifierInput
   return result.identifier;
 }
 
-export async function createCounterpartyRow(
-  cs: ChangeSet,
-  values: { name: string; kind?: 'organisation' | 'person' | 'unknown'; jurisdiction?: string | null; at: Date },
-): Promise<StateRow<'counterparty'>> {
+export interface NewCounterparty {
+  name: string;
+  kind?: 'organisation' | 'person' | 'unknown';
+  jurisdiction?: string | null;
+  at: Date;
+}
+
+/** The values of a new counterparty row (without its id): what createCounterpartyRow inserts, and the bulk loader's COPY. */
+export function counterpartyValues(values: NewCounterparty): StateValues<'counterparty'> {
   const at = values.at.toISOString();
-  return cs.insert('counterparty', {
+  return {
     canonical_name: values.name,
     kind: values.kind ?? 'organisation',
     jurisdiction: values.jurisdiction ?? null,
@@ -67,7 +72,29 @@ export async function createCounterpartyRow(
     version: 1,
     created_at: at,
     updated_at: at,
-  });
+  };
+}
+
+export async function createCounterpartyRow(cs: ChangeSet, values: NewCounterparty): Promise<StateRow<'counterparty'>> {
+  return cs.insert('counterparty', counterpartyValues(values));
+}
+
+/** The values of a new name row (without its id): what addNameSighting inserts, and the bulk loader's COPY. */
+export function nameValues(counterpartyId: number, sighting: NameSighting, at: Date): StateValues<'counterparty_name'> {
+  const analysis = analyse(sighting.name);
+  return {
+    counterparty_id: counterpartyId,
+    name: sighting.name,
+    normalised: analysis.normalised,
+    kind: sighting.kind,
+    legal_form: analysis.legalForm?.family ?? null,
+    seen_count: 1,
+    source: sighting.source ?? null,
+    mention_id: sighting.mentionId ?? null,
+    contract_id: sighting.contractId ?? null,
+    confirmed_by: sighting.confirmedBy ?? null,
+    created_at: at.toISOString(),
+  };
 }
 
 /** Adds a sighting of a name: a new row, or one more sighting of the same (name, kind). */
@@ -83,20 +110,7 @@ export async function addNameSighting(cs: ChangeSet, counterpartyId: number, sig
     if (sighting.confirmedBy && !row.confirmed_by) patch.confirmed_by = sighting.confirmedBy;
     return cs.update('counterparty_name', Number(existing), patch);
   }
-  const analysis = analyse(sighting.name);
-  return cs.insert('counterparty_name', {
-    counterparty_id: counterpartyId,
-    name: sighting.name,
-    normalised: analysis.normalised,
-    kind: sighting.kind,
-    legal_form: analysis.legalForm?.family ?? null,
-    seen_count: 1,
-    source: sighting.source ?? null,
-    mention_id: sighting.mentionId ?? null,
-    contract_id: sighting.contractId ?? null,
-    confirmed_by: sighting.confirmedBy ?? null,
-    created_at: at.toISOString(),
-  });
+  return cs.insert('counterparty_name', nameValues(counterpartyId, sighting, at));
 }
 
 /** One fewer sighting of a name (a mention moved away); the row goes when nobody has seen it any more. */

@@ -24,6 +24,27 @@ export interface EventPayload {
   ops: Op[];
 }
 
+/**
+ * The row of an event whose rows are written beside it rather than through a ChangeSet (the bulk loader's COPY,
+ * services/register/bulk-load.ts): the columns commitEvent writes, its id drawn by the caller.
+ */
+export function eventRow(id: number, input: EventInput, ops: Op[]): Record<string, unknown> {
+  const { counterpartyIds, mentionIds } = touchedBy(ops);
+  const payload: EventPayload = { details: input.details ?? {}, ops };
+  return {
+    id,
+    type: input.type,
+    actor: input.actor,
+    at: input.at.toISOString(),
+    reason: input.reason ?? null,
+    payload,
+    counterparty_ids: counterpartyIds,
+    mention_ids: mentionIds,
+    undoes_event_id: input.undoesEventId ?? null,
+    request_id: input.requestId ?? null,
+  };
+}
+
 export async function commitEvent(cs: ChangeSet, input: EventInput, ops: Op[] = cs.ops): Promise<number> {
   const { counterpartyIds, mentionIds } = touchedBy(ops);
   if (cs.buffering) {
