@@ -66,7 +66,6 @@ async function loadChunk(ctx: RegisterContext, chunk: { row: LoadRow; line: numb
     }
   });
   await write(ctx, async (cs) => {
-    cs.startBuffering();
     await cs.reserveIds({ counterparty: checked.length });
     const at = ctx.now();
     for (const { name, jurisdiction } of checked) {
@@ -82,6 +81,6 @@ async function loadChunk(ctx: RegisterContext, chunk: { row: LoadRow; line: numb
       reason: who.reason ?? null,
       details: { entity: 'counterparties', count: checked.length, loadedFrom: source },
     });
-    await cs.stopBuffering();
+    await cs.flush();
   });
 }
