@@ -80,7 +80,6 @@ export async function writePlan(
           review_item: outcomes.filter((o) => o.status === 'review').length,
           explanation: members.length,
         });
-        cs.startBuffering();
         const contracts = new Map<string, Promise<ContractContext | null>>();
         const out: ResolveResult[][] = [];
         pending.clear();

@@ -142,14 +142,13 @@ async function writeChunk(ctx: RegisterContext, prepared: Prepared, who: ActorIn
 
 /** The statement path: a buffered ChangeSet, written in one statement of set-based inserts. */
 async function bufferChunk(cs: ChangeSet, checked: Prepared, source: string, event: EventInput): Promise<void> {
-  cs.startBuffering();
   await cs.reserveIds({ counterparty: checked.length });
   for (const { name, jurisdiction } of checked) {
     const cp = await createCounterpartyRow(cs, { name, jurisdiction, at: event.at });
     await addNameSighting(cs, cp.id, { name, kind: 'legal', source }, event.at);
   }
   await commitEvent(cs, event);
-  await cs.stopBuffering();
+  await cs.flush();
 }
 
 /** The image a ChangeSet records for an inserted row (ChangeSet.insert). */

@@ -88,6 +88,8 @@ export async function resolveWithin(
 ): Promise<ResolveResult> {
   const at = ctx.now();
   let prepared = preparedInput;
+  // Its reads see what the caller wrote before (a no-op when nothing waits in the buffer).
+  await cs.flush();
   const stored = await mentionByRef(cs.trx, prepared.input);
   const found = stored ? canonicalRow('mention', stored) : undefined;
   // A changed contract that keeps a party's name but declares other former or trade names for it resolves it again.
@@ -117,8 +119,6 @@ export async function resolveWithin(
   });
   if (options.party?.aliases && options.party.aliases.length > 0) outcome.declaredNames = options.party.aliases;
   outcome.evidence.modelVersion = version;
-  const owned = !cs.buffering;
-  cs.startBuffering();
   // The ids of the rows it adds, in one statement (a person's earlier decision may still turn it into a review).
   const askable = textChanged && found?.confirmed_by !== null && found?.counterparty_id !== null;
   // The names are an upper bound (a name already there is one more sighting): an id left over is a harmless gap.
@@ -157,7 +157,7 @@ export async function resolveWithin(
     who,
     at,
   );
-  if (owned) await cs.stopBuffering();
+  await cs.flush();
   return { ...result, eventId: result.eventId === null ? null : cs.realId(result.eventId) };
 }
 

@@ -18,13 +18,10 @@ import {
 } from '../../../db/queries/state-writes.ts';
 import { insertExplanations } from '../../../db/queries/explanations.ts';
 import { upsertNameAnalysesWrite, type NameAnalysisRow } from '../../../db/queries/name-analysis.ts';
+import { isTemporaryId } from './id-pools.ts';
 import type { Op } from './ops.ts';
 import type { RowCache } from './row-cache.ts';
 import { columnsOf, STATE_TABLES, type Row, type StateTable } from './tables.ts';
-
-/** Temporary ids sit above every real id, in the order the rows were made, so that comparing ids before and after
- * the flush gives the same answer. */
-export const TEMP_ID_BASE = 2 ** 52;
 
 /** A history event waiting in the buffer (history/commit.ts). */
 export interface BufferedEvent {
@@ -101,7 +98,7 @@ export class WriteBuffer {
   async write(trx: Transaction<Database>, cache: RowCache, ops: Op[]): Promise<Map<number, number>> {
     // Events alone under temporary ids (a single resolve: its names reserved beforehand) draw their ids in the
     // write itself, one round trip fewer; otherwise every temporary id is drawn first and renamed.
-    const drawInWrite = this.events.length > 0 && this.events.every((e) => e.id >= TEMP_ID_BASE) && !this.hasTemporaryNames();
+    const drawInWrite = this.events.length > 0 && this.events.every((e) => isTemporaryId(e.id)) && !this.hasTemporaryNames();
     const map = drawInWrite ? new Map<number, number>() : await this.drawRealIds(trx, cache, ops);
     const writes: SetWrite[] = this.explanations.length > 0 ? [insertExplanations(this.explanations)] : [];
     for (const table of STATE_TABLES) {
@@ -148,13 +145,13 @@ export class WriteBuffer {
   }
 
   private hasTemporaryNames(): boolean {
-    return (this.inserts.get('counterparty_name') ?? []).some((id) => id >= TEMP_ID_BASE);
+    return (this.inserts.get('counterparty_name') ?? []).some(isTemporaryId);
   }
 
   /** Real ids for the temporary ids of names and events, in one statement; renames the names everywhere. */
   private async drawRealIds(trx: Transaction<Database>, cache: RowCache, ops: Op[]): Promise<Map<number, number>> {
-    const nameTemps = (this.inserts.get('counterparty_name') ?? []).filter((id) => id >= TEMP_ID_BASE);
-    const eventTemps = this.events.map((e) => e.id).filter((id) => id >= TEMP_ID_BASE);
+    const nameTemps = (this.inserts.get('counterparty_name') ?? []).filter(isTemporaryId);
+    const eventTemps = this.events.map((e) => e.id).filter(isTemporaryId);
     const map = new Map<number, number>();
     if (nameTemps.length + eventTemps.length === 0) return map;
     const drawn = await drawIds(
