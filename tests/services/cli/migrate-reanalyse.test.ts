@@ -5,21 +5,20 @@
  */
 import { sql } from 'kysely';
 import { describe, expect, it } from 'vitest';
-import { openDatabase } from '../../../db/open-database.ts';
 import { createRegisterContext, resolveMention } from '../../../services/register/index.ts';
-import { createMigratedDataDir, removeTempDir } from '../../support/index.ts';
+import { createMigratedDataDir, removeTempDir, withTestDatabase } from '../../support/index.ts';
 import { runCli } from '../../support/cli.ts';
 
 describe('cpreg migrate reanalyse (command line, embedded)', () => {
   it('rewrites the stale names verify lists, then verify passes', async () => {
     const dir = await createMigratedDataDir();
     try {
-      const opened = await openDatabase(dir, { command: 'reanalyse test' });
-      const ctx = createRegisterContext(opened.db);
-      await resolveMention(ctx, { source: 'cli', externalId: '1', text: 'Wendlecombe Castings Ltd' }, { actor: 'test' });
-      await resolveMention(ctx, { source: 'cli', externalId: '2', text: 'Harrowgate Tiles plc' }, { actor: 'test' });
-      await sql`DELETE FROM counterparty_name_analysis`.execute(opened.db);
-      await opened.close();
+      await withTestDatabase({ at: dir }, async ({ db }) => {
+        const ctx = createRegisterContext(db);
+        await resolveMention(ctx, { source: 'cli', externalId: '1', text: 'Wendlecombe Castings Ltd' }, { actor: 'test' });
+        await resolveMention(ctx, { source: 'cli', externalId: '2', text: 'Harrowgate Tiles plc' }, { actor: 'test' });
+        await sql`DELETE FROM counterparty_name_analysis`.execute(db);
+      });
 
       const stale = await runCli(['verify', '--db', dir]);
       expect(stale.code).toBe(1);
