@@ -22,6 +22,7 @@ import type { PoolClient } from 'pg';
 import type { Database } from '../../db/types.ts';
 import type { RegisterContext, ActorInput } from './context.ts';
 import type { ChangeSet, Op } from './state/change-set.ts';
+import type { DerivedContext } from './state/derived.ts';
 import { write } from './transaction.ts';
 import { addNameSighting, checkName, counterpartyValues, createCounterpartyRow, nameValues } from './records.ts';
 import { checkJurisdiction } from './jurisdiction.ts';
@@ -135,7 +136,7 @@ async function writeChunk(ctx: RegisterContext, prepared: Prepared, who: ActorIn
       details: { entity: 'counterparties', count: prepared.length, loadedFrom: options.source },
     };
     const client = options.via === 'statements' ? undefined : await transactionClient(ctx.db, cs.trx);
-    if (client) await copyChunk(cs.trx, client, prepared, options.source, event);
+    if (client) await copyChunk(cs.trx, client, prepared, options.source, event, ctx.derived.nameAnalysis);
     else await bufferChunk(cs, prepared, options.source, event);
   });
 }
@@ -159,7 +160,14 @@ const image = <T extends StateTable>(table: T, values: Row) => canonicalRow(tabl
  * the statement path takes them), the rows and the event's ops built in the statement path's order (each
  * counterparty, then its name), then one COPY per table, parents first.
  */
-async function copyChunk(trx: Transaction<Database>, client: PoolClient, checked: Prepared, source: string, event: EventInput): Promise<void> {
+async function copyChunk(
+  trx: Transaction<Database>,
+  client: PoolClient,
+  checked: Prepared,
+  source: string,
+  event: EventInput,
+  analysisOf: DerivedContext['nameAnalysis'],
+): Promise<void> {
   const n = checked.length;
   const ids = await drawIds(
     trx,
@@ -172,6 +180,7 @@ async function copyChunk(trx: Transaction<Database>, client: PoolClient, checked
   const counterparties: Row[] = [];
   const names: Row[] = [];
   const keys: Row[] = [];
+  const analyses: Row[] = [];
   const ops: Op[] = [];
   checked.forEach(({ name, jurisdiction, keys: nameKeys }, i) => {
     const cp = image('counterparty', { ...counterpartyValues({ name, jurisdiction, at: event.at }), id: ids.get('counterparty')![i]! });
@@ -180,10 +189,19 @@ async function copyChunk(trx: Transaction<Database>, client: PoolClient, checked
     names.push(nm);
     ops.push({ op: 'insert', table: 'counterparty', row: cp }, { op: 'insert', table: 'counterparty_name', row: nm });
     for (const key of nameKeys) keys.push({ key, counterparty_id: cp.id, name_id: nm.id });
+    // The name's stored analysis, as the buffered path writes it beside the name (state/change-set.ts insert).
+    const stored = analysisOf(name, jurisdiction);
+    analyses.push({ name_id: nm.id, analysis: stored.analysis, analysis_version: stored.version, country: stored.country });
   });
   await copyRows(client, { table: 'counterparty', columns: columnsOf('counterparty'), rows: counterparties });
   await copyRows(client, { table: 'counterparty_name', columns: columnsOf('counterparty_name'), rows: names });
   await copyRows(client, { table: 'blocking_key', columns: ['key', 'counterparty_id', 'name_id'], rows: keys });
+  await copyRows(client, {
+    table: 'counterparty_name_analysis',
+    columns: ['name_id', 'analysis', 'analysis_version', 'country'],
+    json: ['analysis'],
+    rows: analyses,
+  });
   const row = eventRow(ids.get('history_event')![0]!, event, ops);
   await copyRows(client, { table: 'history_event', columns: Object.keys(row), json: ['payload'], rows: [row] });
 }

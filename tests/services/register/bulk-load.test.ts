@@ -59,6 +59,7 @@ async function everything(db: Kysely<Database>) {
   return {
     state: await stateSnapshot(db),
     keyCounts: (await sql`SELECT * FROM blocking_key_count ORDER BY key`.execute(db)).rows,
+    analyses: (await sql`SELECT * FROM counterparty_name_analysis ORDER BY name_id`.execute(db)).rows,
     events: (await sql`SELECT * FROM history_event ORDER BY id`.execute(db)).rows,
     sequences: (await sql`SELECT sequencename, last_value FROM pg_sequences ORDER BY sequencename`.execute(db)).rows,
   };
@@ -82,7 +83,9 @@ describePostgres('bulk load through COPY (PostgreSQL)', () => {
 
   it('sends every chunk through COPY, parents first', () => {
     const chunks = Math.ceil(rows().length / LOAD_CHUNK);
-    expect(copied.tables).toEqual(Array.from({ length: chunks }, () => ['counterparty', 'counterparty_name', 'blocking_key', 'history_event']).flat());
+    expect(copied.tables).toEqual(
+      Array.from({ length: chunks }, () => ['counterparty', 'counterparty_name', 'blocking_key', 'counterparty_name_analysis', 'history_event']).flat(),
+    );
   });
 
   it('leaves the state tables, keys, key counts, events and sequences of the statement path, row for row', async () => {
