@@ -47,7 +47,12 @@ export async function readMentions(ctx: RegisterContext, checked: Checked[], opt
   // The read-only phase reads in bulk: stored mentions in one statement, the candidates and token counts of every
   // mention in one statement each (matching/batch-reads.ts), each contract once, in a read transaction of its own.
   const { model } = await currentModel(ctx.db);
-  const stored = byKey(await mentionsByRef(ctx.db, checked.map((c) => c.prepared.input)));
+  const stored = byKey(
+    await mentionsByRef(
+      ctx.db,
+      checked.map((c) => c.prepared.input),
+    ),
+  );
   const reads = new BatchReads(ctx.db);
   const toDecide = checked.filter((c) => stored.get(c.key)?.content_hash !== c.prepared.contentHash);
   reads.basis = basisOf(
@@ -61,7 +66,11 @@ export async function readMentions(ctx: RegisterContext, checked: Checked[], opt
   const contracts = new Map<string, Promise<ContractContext | null>>();
   const contractOf = (ref: { source: string; externalId: string }) => {
     const refKey = JSON.stringify([ref.source, ref.externalId]);
-    if (!contracts.has(refKey)) contracts.set(refKey, ctx.db.transaction().execute((trx) => contractContextFor(new ChangeSet(trx, ctx.derived), ref)));
+    if (!contracts.has(refKey))
+      contracts.set(
+        refKey,
+        ctx.db.transaction().execute((trx) => contractContextFor(new ChangeSet(trx, ctx.derived), ref)),
+      );
     return contracts.get(refKey)!;
   };
   return { model, version: null, db: ctx.db, reads, stored, force: false, contractOf };
@@ -87,7 +96,8 @@ async function readWithin(within: Within, checked: Checked[]): Promise<WalkReads
   const contract = settled || within.party ? null : await contractContextFor(cs, prepared.input.contract);
   // Prefetched when the mention goes to the register as it stands (a contract's defined term may instead settle it
   // or change what is matched).
-  if (!settled && prepared.analysis.partyStatus === 'party' && (within.party !== undefined || contract === null)) await reads.prefetch([prepared], MAX_CANDIDATES);
+  if (!settled && prepared.analysis.partyStatus === 'party' && (within.party !== undefined || contract === null))
+    await reads.prefetch([prepared], MAX_CANDIDATES);
   return { model, version, db: cs.trx, reads, stored, force, contractOf: async () => contract };
 }
 
@@ -136,7 +146,11 @@ export async function decideMentions(
         textChanged,
         contractId: within.party?.contractId ?? contract?.contractId ?? null,
         stored: found
-          ? { id: Number(found.id), counterpartyId: found.counterparty_id === null ? null : Number(found.counterparty_id), confirmed: found.confirmed_by !== null }
+          ? {
+              id: Number(found.id),
+              counterpartyId: found.counterparty_id === null ? null : Number(found.counterparty_id),
+              confirmed: found.confirmed_by !== null,
+            }
           : null,
       },
     });

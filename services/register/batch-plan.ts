@@ -16,7 +16,12 @@ import { jsonScore } from './matching/candidates.ts';
  * Stages 4 and 5, cluster and plan: the groups to write, in order, and the mentions whose outcome does not depend on
  * the rest of the batch. A single resolve's one outcome is final: nothing to cluster it with.
  */
-export async function planBatch(ctx: RegisterContext, pending: Pending[], read: WalkReads, options: WalkOptions): Promise<{ plan: Group[]; final: Set<Pending> }> {
+export async function planBatch(
+  ctx: RegisterContext,
+  pending: Pending[],
+  read: WalkReads,
+  options: WalkOptions,
+): Promise<{ plan: Group[]; final: Set<Pending> }> {
   const stages = options.stages;
   const { model, reads } = read;
   // Mentions whose outcome does not depend on the rest of the batch.

@@ -45,7 +45,7 @@ export async function writePlan(
   // each mention still records its own event, and a retried chunk re-reads everything it writes.
   // The counterparty each written group joined or created, for the in-batch reviews of later groups (batch-review.ts).
   const counterpartyOf = new Map<Group, number>();
-  for (let start = 0; start < plan.length; ) {
+  for (let start = 0; start < plan.length;) {
     const chunk: typeof plan = [];
     let size = 0;
     while (start < plan.length && (chunk.length === 0 || size + plan[start]!.members.length <= WRITE_CHUNK)) {
@@ -86,8 +86,19 @@ async function writeChunk(ctx: RegisterContext, cs: ChangeSet, chunk: Group[], c
   const within = c.options.within;
   const members = chunk.flatMap((g) => g.members);
   // A batch's neighbourhood locks: every one of the chunk in one statement, in one sorted order, before any row lock.
-  if (!within) await lockNameNeighbourhoods(cs, members.map((m) => m.prepared));
-  const found = within ? knownStored(members) : storedRefs(await mentionsByRef(cs.trx, members.filter((m) => c.recheck || m.stored).map((m) => m.prepared.input)));
+  if (!within)
+    await lockNameNeighbourhoods(
+      cs,
+      members.map((m) => m.prepared),
+    );
+  const found = within
+    ? knownStored(members)
+    : storedRefs(
+        await mentionsByRef(
+          cs.trx,
+          members.filter((m) => c.recheck || m.stored).map((m) => m.prepared.input),
+        ),
+      );
   const plans = chunk.map((group) => withReviewTarget(group, planGroup(group, c.final.has(group.members[0]!), c.linkAt), c.counterpartyOf));
   const outcomes = plans.flat();
   // Every counterparty the chunk writes and those its stored mentions leave, locked in one sorted statement with
@@ -205,7 +216,10 @@ async function contractIdOf(cs: ChangeSet, member: Pending, contracts: Map<strin
 }
 
 /** The details of a batch's event. */
-const batchDetails: MentionWrite['details'] = (_applied, _previous, written) => ({ batch: true, score: written.score === null ? null : jsonScore(written.score) });
+const batchDetails: MentionWrite['details'] = (_applied, _previous, written) => ({
+  batch: true,
+  score: written.score === null ? null : jsonScore(written.score),
+});
 
 /** The details of a single resolve's event: what it created, what the mention was, why it was resolved again. */
 function singleDetails(within: Within, textChanged: boolean): MentionWrite['details'] {
