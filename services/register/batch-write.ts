@@ -136,7 +136,7 @@ async function writeChunk(ctx: RegisterContext, cs: ChangeSet, chunk: Group[], c
     if (joined !== undefined && joined !== null) c.pending.set(group, joined);
     out.push(results);
   }
-  // A ChangeSet that was buffering already (a contract's) is flushed by its owner.
+  // A ChangeSet already buffering when the walk began is flushed by the code that started the buffering.
   if (owned) await timed(c.options.stages, 'flush', () => cs.stopBuffering());
   // Events written from the buffer got their ids at the flush.
   return out.map((results) => results.map((r) => (r.eventId === null ? r : { ...r, eventId: cs.realId(r.eventId) })));
