@@ -15,6 +15,35 @@ const IMPURE_FOR_RESOLVERS = [
     message: 'resolvers/ is pure: no server, database or file libraries.',
   },
 ];
+// The same purity for what needs no import: a stage's answer is a function of its arguments, so it neither reaches
+// outside the process (network, environment, standard streams, storage) nor reads the clock, the scheduler or a
+// random source, which would give two runs on the same input two answers. Allowed: Intl (the CLDR data inside Node,
+// the same on every run of one Node build), `new Date(x)` of a given instant (calendar arithmetic), and
+// resolvers/prng.ts (seeded random numbers, a function of the seed).
+const PURE = 'resolvers/ is pure: a stage is a function of its arguments;';
+const IO_GLOBALS_FOR_RESOLVERS = [
+  ...['fetch', 'XMLHttpRequest', 'WebSocket', 'EventSource', 'navigator'].map((name) => ({ name, message: `${PURE} no network (the service fetches).` })),
+  ...['process', 'require', 'console', 'Deno', 'Bun'].map((name) => ({
+    name,
+    message: `${PURE} no environment, arguments, standard streams or exit (the service passes what a stage needs as arguments, and reports).`,
+  })),
+  ...['window', 'document', 'localStorage', 'sessionStorage', 'indexedDB'].map((name) => ({ name, message: `${PURE} no browser state or storage.` })),
+  ...['setTimeout', 'setInterval', 'setImmediate', 'queueMicrotask', 'requestAnimationFrame'].map((name) => ({
+    name,
+    message: `${PURE} nothing scheduled for later (the answer is the return value).`,
+  })),
+  ...['performance', 'crypto'].map((name) => ({ name, message: `${PURE} no clock or random source (seeded random numbers: resolvers/prng.ts).` })),
+  { name: 'globalThis', message: `${PURE} no reaching for globals through globalThis.` },
+];
+const CLOCK_AND_RANDOM_FOR_RESOLVERS = [
+  { object: 'Date', property: 'now', message: `${PURE} no clock (the caller passes the instant).` },
+  { object: 'Math', property: 'random', message: `${PURE} no unseeded random numbers (resolvers/prng.ts is seeded).` },
+];
+const CLOCK_AND_LOADING_SYNTAX_FOR_RESOLVERS = [
+  { selector: "NewExpression[callee.name='Date'][arguments.length=0]", message: `${PURE} no clock: new Date() reads it (the caller passes the instant).` },
+  { selector: "CallExpression[callee.name='Date']", message: `${PURE} no clock: Date() reads it (the caller passes the instant).` },
+  { selector: 'ImportExpression', message: `${PURE} no import() (it escapes the import rules above; import statically).` },
+];
 // A stage (resolvers/<stage>/) is used through its index.ts; the other files are its inside.
 const PAST_STAGE_INDEX_FROM_RESOLVERS = {
   regex: '^\\.\\./[a-z-]+/(?!index\\.ts$)[^/]+$',
@@ -42,6 +71,9 @@ export default tseslint.config(
     rules: {
       '@typescript-eslint/no-explicit-any': 'error',
       'no-restricted-imports': ['error', { patterns: [...IMPURE_FOR_RESOLVERS, PAST_STAGE_INDEX_FROM_RESOLVERS] }],
+      'no-restricted-globals': ['error', ...IO_GLOBALS_FOR_RESOLVERS],
+      'no-restricted-properties': ['error', ...CLOCK_AND_RANDOM_FOR_RESOLVERS],
+      'no-restricted-syntax': ['error', ...CLOCK_AND_LOADING_SYNTAX_FOR_RESOLVERS],
     },
   },
   {

@@ -22,6 +22,23 @@ export function computeRatios(rows: BenchRow[]): BenchRow[] {
   });
 }
 
+/** The largest stage of a row's `stages` and its share of them all, e.g. "write 41 %"; undefined without stages. */
+export function largestStage(stages: Record<string, number> | undefined): string | undefined {
+  const entries = Object.entries(stages ?? {}).filter(([, v]) => Number.isFinite(v) && v > 0);
+  if (entries.length === 0) return undefined;
+  const total = entries.reduce((sum, [, v]) => sum + v, 0);
+  const [stage, value] = entries.reduce((best, e) => (e[1] > best[1] ? e : best));
+  return `${stage} ${Math.round((100 * value) / total)} %`;
+}
+
+/** The goal cell: the goal, whether it is met, and where it is missed the stage that took the most time. */
+function goalCell(r: BenchRow): string {
+  if (!r.goal) return '';
+  const verdict = r.goalMet === undefined ? '' : r.goalMet ? 'met' : 'MISSED';
+  const largest = r.goalMet === false ? largestStage(r.stages) : undefined;
+  return `${r.goal.op} ${r.goal.value} ${verdict}${largest ? ` (most time: ${largest})` : ''}`;
+}
+
 function formatValue(v: number): string {
   if (!Number.isFinite(v)) return String(v);
   const abs = Math.abs(v);
@@ -40,7 +57,7 @@ export function formatTable(rows: BenchRow[]): string {
     r.skipped !== undefined ? 'skipped' : formatValue(r.value),
     r.skipped !== undefined ? r.skipped : r.unit,
     r.ratio === undefined ? '' : `${r.ratio.toFixed(2)}× ${r.baseline}`,
-    r.goal ? `${r.goal.op} ${r.goal.value} ${r.goalMet === undefined ? '' : r.goalMet ? 'met' : 'MISSED'}` : '',
+    goalCell(r),
   ]);
   const widths = header.map((h, i) => Math.max(h.length, ...lines.map((l) => l[i]!.length)));
   const fmt = (cells: string[]): string =>

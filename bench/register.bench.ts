@@ -16,15 +16,18 @@
  * throw-away bench database for this measurement and dropped before the resolve calls (whose writes it would
  * otherwise slow). The probe is normalised in Node first, outside the timing: the figure is the query alone.
  */
-import { sql, type Kysely } from 'kysely';
-import pg from 'pg';
+import type { Kysely } from 'kysely';
 import type { Database } from '../db/types.ts';
+import { createFreshDatabase, dropDatabaseIfExists } from '../db/queries/admin-databases.ts';
+import { vacuumAnalyze } from '../db/queries/table-statistics.ts';
+import { createTrigramGistIndex, dropTrigramGistIndex, trigramTop10, trigramTop10UsesIndex } from '../db/queries/trigram-baseline.ts';
 import { openDatabase } from '../db/open-database.ts';
 import { migrateToLatest } from '../db/migrate.ts';
 import { createRegisterContext, resolveMention } from '../services/register/index.ts';
 import { analyse } from '../services/register/matching/analysis.ts';
 import { candidateCounts } from '../services/register/matching/candidates.ts';
 import { loadCounterparties, LOAD_CHUNK, type LoadRow } from '../services/register/bulk-load.ts';
+import { observeStatements, resolveStages, type TimedStatement } from './resolve-stages.ts';
 import type { BenchContext, BenchRow, GeneratedName } from './types.ts';
 
 /**
@@ -46,7 +49,7 @@ export async function bulkLoad(db: Kysely<Database>, names: Iterator<GeneratedNa
   await loadCounterparties(createRegisterContext(db), rows(), { actor: 'bench' }, { source: 'bench', progress });
   // A register in service is vacuumed by autovacuum; a freshly loaded one is not yet: vacuum so that the key
   // lookups can use index-only scans as they would in steady state.
-  await sql`VACUUM ANALYZE`.execute(db);
+  await vacuumAnalyze(db);
 }
 
 function percentile(sorted: number[], p: number): number {
@@ -67,21 +70,38 @@ async function measure(ctx: BenchContext, db: Kysely<Database>, backend: 'pglite
   const baseline = backend === 'postgres' ? await measureTrigramTop10(db, probes, warm, size) : [];
   const register = createRegisterContext(db);
   const times: number[] = [];
+  const stagesOf: Record<string, number>[] = [];
   const statuses: Record<string, number> = {};
   let counted = { ...candidateCounts };
-  for (let i = 0; i < Math.min(queries.length, warm + count); i++) {
-    const q = queries[i]!;
-    const t0 = performance.now();
-    const r = await resolveMention(register, { source: 'bench', externalId: `q${i}`, text: q.name, country: q.country }, { actor: 'bench' });
-    const ms = performance.now() - t0;
-    if (i >= warm) {
-      times.push(ms);
-      statuses[r.status] = (statuses[r.status] ?? 0) + 1;
-    } else if (i === warm - 1) counted = { ...candidateCounts };
+  let sent: TimedStatement[] = [];
+  const stopObserving = await observeStatements((s) => sent.push(s));
+  try {
+    for (let i = 0; i < Math.min(queries.length, warm + count); i++) {
+      const q = queries[i]!;
+      sent = [];
+      const t0 = performance.now();
+      const r = await resolveMention(register, { source: 'bench', externalId: `q${i}`, text: q.name, country: q.country }, { actor: 'bench' });
+      const t1 = performance.now();
+      if (i >= warm) {
+        times.push(t1 - t0);
+        stagesOf.push(
+          resolveStages(
+            t0,
+            t1,
+            [...sent].sort((a, b) => a.start - b.start),
+          ),
+        );
+        statuses[r.status] = (statuses[r.status] ?? 0) + 1;
+      } else if (i === warm - 1) counted = { ...candidateCounts };
+    }
+  } finally {
+    stopObserving();
   }
+  const { all: stages, tail: tailStages } = stageTotals(times, stagesOf);
+  recordStages(ctx, backend, size, stages, times.length);
   const lists = Math.max(1, candidateCounts.probes - counted.probes);
   const perProbe = (k: 'fetched' | 'scored') => Math.round(((candidateCounts[k] - counted[k]) / lists) * 10) / 10;
-  times.sort((a, b) => a - b);
+  const sorted = [...times].sort((a, b) => a - b);
   const goal = backend === 'postgres' && size >= 1_000_000 ? { goal: { op: '<=' as const, value: 10 } } : {};
   const extra = {
     loadSeconds: Math.round(loadSeconds),
@@ -96,55 +116,84 @@ async function measure(ctx: BenchContext, db: Kysely<Database>, backend: 'pglite
     {
       id: `resolve.${backend}.${size}.median`,
       label: `resolve latency median (${backend}, ${size.toLocaleString('en-US')} counterparties)`,
-      value: percentile(times, 50),
+      value: percentile(sorted, 50),
       unit: 'ms',
       better: 'lower',
       size,
       backend,
       extra,
+      stages,
       ...against('median'),
     },
     {
       id: `resolve.${backend}.${size}.p99`,
       label: `resolve latency p99 (${backend}, ${size.toLocaleString('en-US')} counterparties)`,
-      value: percentile(times, 99),
+      value: percentile(sorted, 99),
       unit: 'ms',
       better: 'lower',
       size,
       backend,
       ...goal,
+      stages: tailStages,
       ...against('p99'),
     },
   ];
+}
+
+/** Each stage's milliseconds summed over all measured resolves, and over the slowest 1 % (the p99's tail). */
+function stageTotals(times: readonly number[], stagesOf: readonly Record<string, number>[]): { all: Record<string, number>; tail: Record<string, number> } {
+  const sum = (picked: readonly Record<string, number>[]) => {
+    const out: Record<string, number> = {};
+    for (const stages of picked) for (const [k, v] of Object.entries(stages)) out[k] = (out[k] ?? 0) + v;
+    return out;
+  };
+  const p99 = percentile(
+    [...times].sort((a, b) => a - b),
+    99,
+  );
+  return { all: sum(stagesOf), tail: sum(stagesOf.filter((_, i) => times[i]! >= p99)) };
+}
+
+/** One row per stage of a single resolve (bench/resolve-stages.ts): mean milliseconds per resolve, largest first. */
+function recordStages(ctx: BenchContext, backend: 'pglite' | 'postgres', size: number, stages: Record<string, number>, calls: number): void {
+  const total = Object.values(stages).reduce((a, b) => a + b, 0);
+  const order = Object.entries(stages).sort((a, b) => b[1] - a[1]);
+  ctx.log(`${backend} ${size}: resolve time by stage: ${order.map(([k, ms]) => `${k} ${((100 * ms) / total).toFixed(1)} %`).join(', ')}`);
+  for (const [stage, ms] of order) {
+    ctx.record({
+      id: `resolve.${backend}.${size}.stage.${stage}`,
+      label: `resolve stage ${stage}, mean ms per resolve (${((100 * ms) / total).toFixed(1)} % of the time)`,
+      value: ms / Math.max(1, calls),
+      unit: 'ms',
+      better: 'lower',
+      size,
+      backend,
+    });
+  }
 }
 
 function trigramId(size: number, stat: 'median' | 'p99'): string {
   return `lookup.trgm.postgres.${size}.${stat}`;
 }
 
-const TRIGRAM_INDEX = 'bench_counterparty_name_trgm_gist';
-
 /** The lookup baseline: PostgreSQL trigram top-10 over counterparty names (see the header). */
 async function measureTrigramTop10(db: Kysely<Database>, probes: readonly GeneratedName[], warm: number, size: number): Promise<BenchRow[]> {
   const texts = probes.map((p) => analyse(p.name).normalised);
   const started = performance.now();
-  await sql`CREATE INDEX ${sql.id(TRIGRAM_INDEX)} ON counterparty_name USING gist (normalised public.gist_trgm_ops)`.execute(db);
-  await sql`ANALYZE counterparty_name`.execute(db);
+  await createTrigramGistIndex(db);
   const indexSeconds = (performance.now() - started) / 1000;
   try {
-    const top10 = (text: string) => sql<{ id: string }>`SELECT id FROM counterparty_name ORDER BY normalised OPERATOR(public.<->) ${text} LIMIT 10`;
     // Record that the planner really walks the index (a sequential scan would make the baseline a strawman).
-    const plan = await sql<{ 'QUERY PLAN': string }>`EXPLAIN ${top10(texts[0] ?? '')}`.execute(db);
-    const usesIndex = plan.rows.some((r) => r['QUERY PLAN'].includes(TRIGRAM_INDEX));
+    const usesIndex = await trigramTop10UsesIndex(db, texts[0] ?? '');
     const times: number[] = [];
     let returned = 0;
     for (let i = 0; i < texts.length; i++) {
       const t0 = performance.now();
-      const result = await top10(texts[i]!).execute(db);
+      const ids = await trigramTop10(db, texts[i]!);
       const ms = performance.now() - t0;
       if (i >= warm) {
         times.push(ms);
-        returned += result.rows.length;
+        returned += ids.length;
       }
     }
     times.sort((a, b) => a - b);
@@ -161,25 +210,17 @@ async function measureTrigramTop10(db: Kysely<Database>, probes: readonly Genera
       { id: trigramId(size, 'p99'), label: label('p99'), value: percentile(times, 99), unit: 'ms', better: 'lower', size, backend: 'postgres' },
     ];
   } finally {
-    await sql`DROP INDEX IF EXISTS ${sql.id(TRIGRAM_INDEX)}`.execute(db);
+    await dropTrigramGistIndex(db);
   }
 }
 
 async function withPostgresDatabase<T>(adminUrl: string, fn: (url: string) => Promise<T>): Promise<T> {
   const name = `cpreg_bench_register_${process.pid}_${Date.now()}`;
-  const admin = new pg.Client({ connectionString: adminUrl });
-  await admin.connect();
+  const url = await createFreshDatabase(adminUrl, name);
   try {
-    await admin.query(`CREATE DATABASE ${name}`);
-    const url = new URL(adminUrl);
-    url.pathname = `/${name}`;
-    try {
-      return await fn(url.toString());
-    } finally {
-      await admin.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`);
-    }
+    return await fn(url);
   } finally {
-    await admin.end();
+    await dropDatabaseIfExists(adminUrl, name);
   }
 }
 

@@ -7,7 +7,6 @@ import { spawn, type ChildProcess } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { createInterface } from 'node:readline';
 import autocannon from 'autocannon';
-import pg from 'pg';
 import { openDatabase } from '../db/open-database.ts';
 import { migrateToLatest } from '../db/migrate.ts';
 import { createRegisterContext } from '../services/register/context.ts';
@@ -26,29 +25,6 @@ export interface Probe {
 export function rssMb(pid: number): number {
   const kb = Number(/VmRSS:\s+(\d+)/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'))?.[1] ?? 0);
   return Math.round((kb / 1024) * 10) / 10;
-}
-
-/** A fresh database `name` beside ctx.databaseUrl (dropped first if a crashed run left it); returns its URL. */
-export async function freshDatabase(databaseUrl: string, name: string): Promise<string> {
-  await adminQuery(databaseUrl, `DROP DATABASE IF EXISTS "${name}" WITH (FORCE)`);
-  await adminQuery(databaseUrl, `CREATE DATABASE "${name}"`);
-  const url = new URL(databaseUrl);
-  url.pathname = `/${name}`;
-  return url.toString();
-}
-
-export async function dropDatabase(databaseUrl: string, name: string): Promise<void> {
-  await adminQuery(databaseUrl, `DROP DATABASE IF EXISTS "${name}" WITH (FORCE)`);
-}
-
-async function adminQuery(databaseUrl: string, sql: string): Promise<void> {
-  const admin = new pg.Client({ connectionString: databaseUrl });
-  await admin.connect();
-  try {
-    await admin.query(sql);
-  } finally {
-    await admin.end();
-  }
 }
 
 /**
@@ -116,12 +92,17 @@ export async function stopServer(child: ChildProcess): Promise<void> {
   await new Promise((r) => child.once('exit', r));
 }
 
-/** CONNECTIONS clients posting one mention each (the probes in turn, each with a new external id). */
-export function resolveLoad(base: string, key: string, probes: readonly Probe[], options: { duration: number; source: string }): Promise<autocannon.Result> {
+/** CONNECTIONS clients (or `connections`) posting one mention each (the probes in turn, each with a new external id). */
+export function resolveLoad(
+  base: string,
+  key: string,
+  probes: readonly Probe[],
+  options: { duration: number; source: string; connections?: number },
+): Promise<autocannon.Result> {
   let n = 0;
   return autocannon({
     url: `${base}/v1/mentions`,
-    connections: CONNECTIONS,
+    connections: options.connections ?? CONNECTIONS,
     duration: options.duration,
     method: 'POST',
     headers: { authorization: `Bearer ${key}`, 'content-type': 'application/json' },

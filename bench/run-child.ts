@@ -24,6 +24,8 @@ function send(message: ChildMessage): Promise<void> {
 }
 
 export async function runChild(argv: string[]): Promise<void> {
+  // The parent is gone (killed at its time limit, or interrupted): stop too rather than work on unseen.
+  process.once('disconnect', () => process.exit(1));
   const file = argv[argv.indexOf('--child') + 1]!;
   const mode = argv[argv.indexOf('--mode') + 1] as BenchMode;
   const seed = Number(argv[argv.indexOf('--seed') + 1]);
@@ -37,6 +39,7 @@ export async function runChild(argv: string[]): Promise<void> {
     databaseUrl: process.env.DATABASE_URL || undefined,
     seed,
     sizes: sizesFor(mode, sizes),
+    sizesGiven: sizes !== undefined,
     soakSeconds: SOAK_SECONDS[mode],
     generator: { names: (count, s) => generateNames(count, s ?? seed) },
     tmpDir,

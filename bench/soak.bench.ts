@@ -8,7 +8,8 @@
  * The register is seeded through the register service (createCounterparty), 16 at a time, with the generator's
  * original names; the mentions sent are its variants, each with a new external id (a full resolution each time).
  */
-import { CONNECTIONS, dropDatabase, freshDatabase, resolveLoad, rssMb, seedRegister, startServer, stopServer, writeKey } from './resolve-load.ts';
+import { createFreshDatabase, dropDatabaseIfExists } from '../db/queries/admin-databases.ts';
+import { CONNECTIONS, resolveLoad, rssMb, seedRegister, startServer, stopServer, writeKey } from './resolve-load.ts';
 import autocannon from 'autocannon';
 import type { BenchContext, BenchRow } from './types.ts';
 
@@ -29,7 +30,7 @@ export async function run(ctx: BenchContext): Promise<BenchRow[]> {
     ];
   }
   const name = `cpreg_bench_soak_${size}`;
-  const url = await freshDatabase(ctx.databaseUrl, name);
+  const url = await createFreshDatabase(ctx.databaseUrl, name);
   const rows: BenchRow[] = [];
   try {
     ctx.log(`seeding ${size.toLocaleString('en-US')} counterparties`);
@@ -80,7 +81,7 @@ export async function run(ctx: BenchContext): Promise<BenchRow[]> {
       await stopServer(child);
     }
   } finally {
-    await dropDatabase(ctx.databaseUrl, name);
+    await dropDatabaseIfExists(ctx.databaseUrl, name);
   }
   return rows;
 }

@@ -54,6 +54,9 @@ export interface BenchContext {
      * Optional so that contexts built outside the runner (bench/kernels.bench.ts run alone) need not list it. */
     scaleOut?: number[];
   };
+  /** True when `--sizes` replaced the mode's sizes: a bench may then run at those sizes what its mode keeps for
+   * --full (bench/ingest.bench.ts: the ingest into a loaded register). */
+  sizesGiven?: boolean;
   /** Soak duration in seconds: quick 30; default 60; full 300. */
   soakSeconds: number;
   /** Seeded name generator with ground truth. */
@@ -95,6 +98,11 @@ export interface BenchRow {
   baseline?: string;
   /** The goal from the issue, if any: e.g. { op: '<=', value: 10 } for "p99 ≤ 10 ms". */
   goal?: { op: '<=' | '>='; value: number };
+  /**
+   * Where the measured work's time went, by stage (milliseconds, or any one unit within the row): where the goal is
+   * missed, the table names the largest stage and its share.
+   */
+  stages?: Record<string, number>;
   /** Set (instead of a measurement) when the bench could not run here, e.g. "DATABASE_URL not set". */
   skipped?: string;
   /** Anything else worth keeping in the JSON (comparisons made, errors, counts). */

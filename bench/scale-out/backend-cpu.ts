@@ -1,7 +1,9 @@
 /**
  * The CPU time of the PostgreSQL backends serving one database, followed while a job runs (backends come and go).
  */
-import type pg from 'pg';
+import type { Kysely } from 'kysely';
+import type { Database } from '../../db/types.ts';
+import { backendPids } from '../../db/queries/server-activity.ts';
 import { procCpu } from './proc-cpu.ts';
 
 /**
@@ -15,17 +17,13 @@ export class BackendCpu {
   private started = false;
 
   constructor(
-    private readonly admin: pg.Client,
+    private readonly admin: Kysely<Database>,
     private readonly database: string,
     private readonly exclude: number,
   ) {}
 
   async tick(): Promise<void> {
-    const { rows } = await this.admin.query<{ pid: number }>('SELECT pid FROM pg_stat_activity WHERE datname = $1 AND pid <> $2', [
-      this.database,
-      this.exclude,
-    ]);
-    for (const { pid } of rows) {
+    for (const pid of await backendPids(this.admin, this.database, this.exclude)) {
       const cpu = procCpu(pid);
       if (!cpu) continue;
       if (!this.first.has(pid)) {

@@ -2,11 +2,13 @@
  * One run of the scale-out bench: a fresh database, n workers, the batch submitted as a partitioned ingest job and
  * followed to its end or its time budget, then the CPU times, the job's phases and the tables' sizes read.
  */
+import { createFreshDatabase, dropDatabaseIfExists } from '../../db/queries/admin-databases.ts';
 import type { ChildProcess } from 'node:child_process';
-import pg from 'pg';
 import { migrateToLatest } from '../../db/migrate.ts';
-import { openDatabase } from '../../db/open-database.ts';
-import { dropDatabase, freshDatabase } from '../resolve-load.ts';
+import { openDatabase, type OpenedDatabase } from '../../db/open-database.ts';
+import { jobStatus, jobTimes, partitionTally } from '../../db/queries/jobs.ts';
+import { ownBackendPid } from '../../db/queries/server-activity.ts';
+import { analyze, tableSizes } from '../../db/queries/table-statistics.ts';
 import type { BenchContext } from '../types.ts';
 import { procCpu, serverCpu, machineCpu } from './proc-cpu.ts';
 import { BackendCpu } from './backend-cpu.ts';
@@ -44,10 +46,11 @@ export interface RunOutcome {
 
 export async function runOnce(ctx: BenchContext, file: string, size: number, workers: number): Promise<RunOutcome> {
   const name = `cpreg_bench_scaleout_${size}_w${workers}`;
-  const url = await freshDatabase(ctx.databaseUrl!, name);
+  const url = await createFreshDatabase(ctx.databaseUrl!, name);
   const children: ChildProcess[] = [];
-  const admin = new pg.Client({ connectionString: ctx.databaseUrl });
-  const target = new pg.Client({ connectionString: url });
+  // One connection each, so that the bench's own backend on the job's database is one pid to leave out.
+  let admin: OpenedDatabase | undefined;
+  let target: OpenedDatabase | undefined;
   try {
     const database = await openDatabase(url, { command: 'bench scale-out' });
     try {
@@ -61,10 +64,11 @@ export async function runOnce(ctx: BenchContext, file: string, size: number, wor
       tails.push(tail);
       children.push(await startWorker(url, tail));
     }
-    await admin.connect();
-    await target.connect();
-    const ownPid = Number((await target.query<{ pid: number }>('SELECT pg_backend_pid() AS pid')).rows[0]!.pid);
-    const backends = new BackendCpu(admin, name, ownPid);
+    admin = await openDatabase(ctx.databaseUrl, { poolSize: 1 });
+    target = await openDatabase(url, { poolSize: 1 });
+    const db = target.db;
+    const ownPid = await ownBackendPid(db);
+    const backends = new BackendCpu(admin.db, name, ownPid);
     await backends.tick();
     const workerStart = children.map((c) => procCpu(c.pid!)!.own);
     const serverStart = serverCpu();
@@ -107,17 +111,12 @@ export async function runOnce(ctx: BenchContext, file: string, size: number, wor
         throw new Error(`a worker exited during the job: ${tails.flat().slice(-10).join(' | ')}`);
       }
       await new Promise((r) => setTimeout(r, 250));
-      const row = (await target.query<{ status: string; error: string | null }>('SELECT status, error FROM job WHERE id = $1', [jobId])).rows[0]!;
+      const row = (await jobStatus(db, jobId))!;
       status = row.status;
       error = row.error;
       if (performance.now() - lastLog > 15_000) {
         lastLog = performance.now();
-        const t = (
-          await target.query<{ done: string; total: string }>(
-            `SELECT count(*) FILTER (WHERE status = 'done') AS done, count(*) AS total FROM job_partition WHERE job_id = $1`,
-            [jobId],
-          )
-        ).rows[0]!;
+        const t = await partitionTally(db, jobId);
         ctx.log(`${workers} worker(s): ${status}, ${t.done}/${t.total} partitions after ${((performance.now() - started) / 1000).toFixed(0)} s`);
       }
     }
@@ -131,13 +130,11 @@ export async function runOnce(ctx: BenchContext, file: string, size: number, wor
     const benchCpuS = procCpu('self')!.own - benchStart;
     // CPU the machine spent on anything else meanwhile (other users' processes, other databases): it shares the cores.
     const otherCpuS = machineEnd.busy - machineStart.busy - workerCpuS - backends.seconds() - submitCpuS - benchCpuS;
-    const done = (
-      await target.query<{ mentions: string | null }>(`SELECT sum(size) AS mentions FROM job_partition WHERE job_id = $1 AND status = 'done'`, [jobId])
-    ).rows[0]!;
+    const { mentionsDone } = await partitionTally(db, jobId);
     const common = {
       wallS,
       mentions: size,
-      mentionsDone: Number(done.mentions ?? 0),
+      mentionsDone,
       workerCpuS,
       postgresCpuS: backends.seconds(),
       submitCpuS,
@@ -149,38 +146,26 @@ export async function runOnce(ctx: BenchContext, file: string, size: number, wor
     if (status === 'failed') throw new Error(`job ${jobId} failed: ${error}`);
     if (status !== 'finished') return { ...common, complete: false, reason: `stopped at the ${BUDGET_S[ctx.mode]} s budget (${status})` };
     const shown = JSON.parse(await cpreg(['jobs', 'show', String(jobId), '--json', '--db', url])) as { result: Record<string, unknown> };
-    const times = (
-      await target.query<{ created: Date; finished: Date; first_start: Date; last_done: Date }>(
-        `SELECT j.created_at AS created, j.finished_at AS finished, min(p.started_at) AS first_start, max(p.finished_at) AS last_done
-         FROM job j JOIN job_partition p ON p.job_id = j.id WHERE j.id = $1 GROUP BY j.id`,
-        [jobId],
-      )
-    ).rows[0]!;
+    const times = (await jobTimes(db, jobId))!;
     const s = (a: Date, b: Date): number => (b.getTime() - a.getTime()) / 1000;
+    // A finished job has finished partitions: the instants are there.
+    const firstStart = times.firstPartitionStart!;
+    const lastDone = times.lastPartitionDone!;
     const phases = {
       stagingS: stagedS,
-      toFirstPartitionS: s(times.created, times.first_start),
-      partitionsS: s(times.first_start, times.last_done),
-      finalPassS: s(times.last_done, times.finished),
+      toFirstPartitionS: s(times.createdAt, firstStart),
+      partitionsS: s(firstStart, lastDone),
+      finalPassS: s(lastDone, times.finishedAt!),
     };
-    await target.query('ANALYZE');
-    const sizes = [];
-    for (const table of SIZED_TABLES) {
-      const r = (
-        await target.query<{ total: string; heap: string; idx: string; rows: string }>(
-          `SELECT pg_total_relation_size($1::regclass) AS total, pg_table_size($1::regclass) AS heap, pg_indexes_size($1::regclass) AS idx, (SELECT count(*) FROM ${table}) AS rows`,
-          [table],
-        )
-      ).rows[0]!;
-      sizes.push({ table, bytes: Number(r.total), tableBytes: Number(r.heap), indexBytes: Number(r.idx), rows: Number(r.rows) });
-    }
+    await analyze(db);
+    const sizes = await tableSizes(db, SIZED_TABLES);
     const counterparties = sizes.find((x) => x.table === 'counterparty')!.rows;
     const mentionRows = sizes.find((x) => x.table === 'mention')!.rows;
     return { ...common, complete: true, result: shown.result, phases, sizes, counterparties, mentionRows };
   } finally {
     await Promise.all(children.map(stopProcess));
-    await admin.end().catch(() => undefined);
-    await target.end().catch(() => undefined);
-    await dropDatabase(ctx.databaseUrl!, name);
+    await admin?.close().catch(() => undefined);
+    await target?.close().catch(() => undefined);
+    await dropDatabaseIfExists(ctx.databaseUrl!, name);
   }
 }

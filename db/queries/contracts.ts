@@ -1,5 +1,5 @@
 /** Contracts, their parties (with roles and terms) and defined terms. */
-import { sql } from 'kysely';
+import { sql, type RawBuilder } from 'kysely';
 import type { Queryable } from './util.ts';
 import { id, idOrNull, iso } from './util.ts';
 
@@ -28,9 +28,32 @@ export interface ContractView {
   updatedAt: string;
 }
 
-export async function findContractId(db: Queryable, source: string, externalId: string): Promise<number | undefined> {
-  const row = await db.selectFrom('contract').select('id').where('source', '=', source).where('external_id', '=', externalId).executeTakeFirst();
-  return row ? id(row.id) : undefined;
+/** A contract as its source system names it: (source, external id), the contract's unique key. */
+export interface ContractByRef {
+  id: number;
+  status: string;
+  contentHash: string;
+  parsed: unknown;
+}
+
+/**
+ * The condition that finds a contract by its key (source, external id), on the contract table under `alias`: the one
+ * place it is written, for contractByRef and for contractToStore, which reads the contract in the same statement as
+ * our own entities' names. A fragment of SQL rather than a query builder: a builder nested in a statement is handed
+ * to the plugins a second time, as if it were a statement of its own.
+ */
+function isContractOf(alias: string, source: string, externalId: string): RawBuilder<boolean> {
+  return sql<boolean>`${sql.ref(`${alias}.source`)} = ${source} AND ${sql.ref(`${alias}.external_id`)} = ${externalId}`;
+}
+
+/** A contract by its (source, external id): id, status, content hash and parsed parties and terms. */
+export async function contractByRef(db: Queryable, source: string, externalId: string): Promise<ContractByRef | undefined> {
+  const row = await db
+    .selectFrom('contract')
+    .select(['id', 'status', 'content_hash', 'parsed'])
+    .where(isContractOf('contract', source, externalId))
+    .executeTakeFirst();
+  return row ? { id: id(row.id), status: row.status, contentHash: row.content_hash, parsed: row.parsed } : undefined;
 }
 
 /** A contract with its parties and defined terms, in one statement (it is read once for every contract stored). */
@@ -213,7 +236,7 @@ export async function contractToStore(
         SELECT o.id, x.ord, x.other->>'name' FROM own_entity o, jsonb_array_elements(o.other_names) WITH ORDINALITY AS x(other, ord)
         WHERE o.removed_at IS NULL) AS n) AS own_names
     FROM (SELECT 1) AS one
-    LEFT JOIN contract k ON k.source = ${source} AND k.external_id = ${externalId}`.execute(db);
+    LEFT JOIN contract k ON ${isContractOf('k', source, externalId)}`.execute(db);
   const row = result.rows[0]!;
   const ownNames = typeof row.own_names === 'string' ? (JSON.parse(row.own_names) as string[]) : row.own_names;
   return { existing: row.id === null ? undefined : { id: id(row.id), contentHash: row.content_hash! }, ownNames };

@@ -126,21 +126,36 @@ export async function countActive(db: Queryable): Promise<number> {
   return Number(row.n);
 }
 
-/** Each id mapped to the active end of its merge chain (ids that do not exist are left out). */
-export async function survivorsOf(db: Queryable, ids: number[]): Promise<Map<number, number>> {
-  const out = new Map<number, number>();
+/** The longest merge chain followed (links): a longer one (a cycle?) has no active end. */
+export const MAX_MERGE_CHAIN = 1000;
+
+/**
+ * The one walk of merge chains, in one statement: each id that exists mapped to the active end of its chain and the
+ * number of links to it (0: the id is active), or to null when the chain is longer than MAX_MERGE_CHAIN links.
+ * Ids that do not exist are left out. A merged counterparty always names its survivor (the schema's CHECK:
+ * status 'merged' exactly when merged_into is set), so the end of a chain is its one row without merged_into.
+ */
+export async function mergeChainEnds(db: Queryable, ids: readonly number[]): Promise<Map<number, { id: number; links: number } | null>> {
+  const out = new Map<number, { id: number; links: number } | null>();
   const unique = [...new Set(ids)];
   if (unique.length === 0) return out;
-  const result = await sql<{ start: string | number; id: string | number }>`
+  const result = await sql<{ start: string | number; id: string | number; depth: number; ended: boolean }>`
     WITH RECURSIVE chain(start, id, merged_into, depth) AS (
       SELECT c.id, c.id, c.merged_into, 0 FROM counterparty c WHERE c.id = ANY(${sql.val(unique)}::bigint[])
       UNION ALL
       SELECT ch.start, c.id, c.merged_into, ch.depth + 1
       FROM chain ch JOIN counterparty c ON c.id = ch.merged_into
-      WHERE ch.depth < 1000
+      WHERE ch.depth < ${MAX_MERGE_CHAIN}
     )
-    SELECT start, id FROM chain WHERE merged_into IS NULL`.execute(db);
-  for (const r of result.rows) out.set(id(r.start), id(r.id));
+    SELECT start, id, depth, merged_into IS NULL AS ended FROM chain WHERE merged_into IS NULL OR depth = ${MAX_MERGE_CHAIN}`.execute(db);
+  for (const r of result.rows) out.set(id(r.start), r.ended ? { id: id(r.id), links: Number(r.depth) } : null);
+  return out;
+}
+
+/** Each id mapped to the active end of its merge chain (ids that do not exist, or whose chain is too long, are left out). */
+export async function survivorsOf(db: Queryable, ids: number[]): Promise<Map<number, number>> {
+  const out = new Map<number, number>();
+  for (const [start, end] of await mergeChainEnds(db, ids)) if (end) out.set(start, end.id);
   return out;
 }
 

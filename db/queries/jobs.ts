@@ -54,6 +54,11 @@ export async function readJob(db: Queryable, jobId: number, options: { forUpdate
   };
 }
 
+/** A job's status and error alone, for a caller that polls it (readJob parses the whole row, plan included). */
+export async function jobStatus(db: Queryable, jobId: number): Promise<{ status: JobStatus; error: string | null } | undefined> {
+  return db.selectFrom('job').select(['status', 'error']).where('id', '=', jobId).executeTakeFirst();
+}
+
 export async function updateJob(
   db: Queryable,
   jobId: number,
@@ -219,4 +224,27 @@ export async function failJobIfUnfinished(db: Queryable, jobId: number, error: s
     .where('status', 'in', ['queued', 'running'])
     .executeTakeFirst();
   return Number(done.numUpdatedRows) > 0;
+}
+
+export interface JobTimes {
+  createdAt: Date;
+  finishedAt: Date | null;
+  /** When the first partition started and the last one finished (null before any has). */
+  firstPartitionStart: Date | null;
+  lastPartitionDone: Date | null;
+}
+
+/** The instants that split a partitioned job into its phases (staging, waiting, partitions, final pass); undefined for no such job. */
+export async function jobTimes(db: Queryable, jobId: number): Promise<JobTimes | undefined> {
+  const row = await db
+    .selectFrom('job as j')
+    .leftJoin('job_partition as p', 'p.job_id', 'j.id')
+    .select(['j.created_at', 'j.finished_at'])
+    .select((eb) => [eb.fn.min('p.started_at').as('first_start'), eb.fn.max('p.finished_at').as('last_done')])
+    .where('j.id', '=', jobId)
+    .groupBy(['j.id', 'j.created_at', 'j.finished_at'])
+    .executeTakeFirst();
+  if (!row) return undefined;
+  const at = (v: unknown): Date | null => (v === null || v === undefined ? null : new Date(v as string | Date));
+  return { createdAt: at(row.created_at)!, finishedAt: at(row.finished_at), firstPartitionStart: at(row.first_start), lastPartitionDone: at(row.last_done) };
 }

@@ -52,8 +52,16 @@ export function toMentionView(r: MentionRowWithEvidence): MentionView {
   };
 }
 
+/**
+ * A mention by id: its stored row with the evidence a person reads. The one lookup of a mention by id (the evidence
+ * costs one read of its explanation by primary key); getMention and mentionOutcome are views of it.
+ */
+export async function mentionById(db: Queryable, mentionId: number): Promise<MentionRowWithEvidence | undefined> {
+  return db.selectFrom('mention').selectAll().select(composedEvidence('mention').as('full_evidence')).where('id', '=', mentionId).executeTakeFirst();
+}
+
 export async function getMention(db: Queryable, mentionId: number): Promise<MentionView | undefined> {
-  const row = await db.selectFrom('mention').selectAll().select(composedEvidence('mention').as('full_evidence')).where('id', '=', mentionId).executeTakeFirst();
+  const row = await mentionById(db, mentionId);
   return row ? toMentionView(row) : undefined;
 }
 
@@ -171,17 +179,12 @@ export async function recentMentionScores(db: Queryable, limit: number): Promise
   return rows.map((r) => ({ score: Number(r.score), status: r.status }));
 }
 
-/** The whole stored row of one mention (undefined when there is none). */
-export async function mentionRow(db: Queryable, mentionId: number): Promise<Selectable<MentionTable> | undefined> {
-  return db.selectFrom('mention').selectAll().where('id', '=', mentionId).executeTakeFirst();
-}
-
 /** How a mention is resolved now (its status, counterparty or own entity), or undefined when there is no such mention. */
 export async function mentionOutcome(
   db: Queryable,
   mentionId: number,
 ): Promise<{ status: string; counterparty_id: number | null; own_entity_id: number | null } | undefined> {
-  const row = await db.selectFrom('mention').select(['status', 'counterparty_id', 'own_entity_id']).where('id', '=', mentionId).executeTakeFirst();
+  const row = await mentionById(db, mentionId);
   return row ? { status: row.status, counterparty_id: idOrNull(row.counterparty_id), own_entity_id: idOrNull(row.own_entity_id) } : undefined;
 }
 

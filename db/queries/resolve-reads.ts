@@ -1,7 +1,8 @@
 /**
  * What one resolution reads besides its candidates (services/register/resolve/): the neighbourhood locks of
- * look-alike names, the contract a mention names with the mentions of its parties, a party mention's outcome, and
- * the answer's extras (the open review item of a mention in review).
+ * look-alike names, the mentions of a contract's parties, and the answer's extras (the open review item of a
+ * mention in review). The contract a mention names is read by contractByRef (contracts.ts), a party mention's
+ * outcome by mentionOutcome (mentions.ts).
  */
 import { sql } from 'kysely';
 import type { Queryable } from './util.ts';
@@ -47,17 +48,6 @@ export async function lockAndReadDecisionBasics(
       (SELECT coalesce(json_agg(row_to_json(o) ORDER BY o.id), '[]'::json) FROM own_entity o WHERE o.removed_at IS NULL) AS own`.execute(db);
   const row = result.rows[0]!;
   return { settings: row.settings ? settingsView(row.settings) : undefined, ownEntities: row.own.map(ownEntityView), stored: row.stored ?? undefined };
-}
-
-/** A contract by its source id: id, parsed terms and status. */
-export async function contractByRef(db: Queryable, source: string, externalId: string): Promise<{ id: number; parsed: unknown; status: string } | undefined> {
-  const row = await db
-    .selectFrom('contract')
-    .select(['id', 'parsed', 'status'])
-    .where('source', '=', source)
-    .where('external_id', '=', externalId)
-    .executeTakeFirst();
-  return row ? { id: id(row.id), parsed: row.parsed, status: row.status } : undefined;
 }
 
 /** The mention of each party of a contract, by the party's position. */

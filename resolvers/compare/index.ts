@@ -12,6 +12,7 @@ export {
   type SoftTfIdfResult,
 } from './soft-tf-idf.ts';
 export { levenshtein, levenshteinSimilarity } from './levenshtein.ts';
+export { withinOneEdit } from './within-one-edit.ts';
 export { compareAcronym, acronymTokens, initialsOf, ACRONYM_STOP_WORDS, type AcronymComparison, type AcronymLevel } from './acronym.ts';
 export { compareLegalForms, type LegalFormComparison, type LegalFormLevel } from './legal-form.ts';
 export { compareJurisdictions, jurisdictionsCompatible, parseJurisdiction, type JurisdictionComparison, type JurisdictionLevel } from './jurisdiction.ts';

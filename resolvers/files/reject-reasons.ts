@@ -2,6 +2,8 @@
  * Why a file was not imported as a contract: the one catalogue of reasons, each with a stable snake_case code and
  * the plain words the summary, the rejects file and the job result print beside the file's own detail.
  */
+import { MAX_ID_LENGTH } from '../vocabulary.ts';
+
 export const REJECT_REASONS = {
   unreadable: 'the file could not be read or is damaged',
   encrypted_pdf: 'the PDF is encrypted with a password: save it without a password and import it again',
@@ -19,7 +21,7 @@ export const REJECT_REASONS = {
   nested_too_deep: 'an archive inside an archive inside an archive: only one level of nesting is read',
   duplicate_path: 'the archive holds another entry with the same path: only the first is read',
   contract_refused: 'the register refused the contract text',
-  path_too_long: "the file's path is longer than the 300 characters of a contract's external id",
+  path_too_long: `the file's path is longer than the ${MAX_ID_LENGTH} characters of a contract's external id`,
 } as const;
 
 export type RejectReason = keyof typeof REJECT_REASONS;

@@ -4,7 +4,10 @@
  *
  *  0. A name a person set with `rename` stays until a person renames again (counterparty.name_locked_by).
  *  1. A confirmed name wins: confirmed by a person or by a strong identifier sent with it (confirmed_by set).
- *     Among several: legal names before others, then the rules below.
+ *     Among several: legal names before others, then the rules below. A spelling confirmed by an identifier that is
+ *     one letter from a spelling of the same counterparty seen more often ("Melselico Fire Proection, Inc." once,
+ *     with the tax id, against "Melselico Fire Protection, Inc." 118 times) is a typo of it: the identifier
+ *     confirmed the entity, not the spelling, so that name competes unconfirmed. A person's confirmation stands.
  *  2. Otherwise the most frequent full legal name with its legal form: names of kind legal or observed that carry
  *     a legal form, the one seen most often.
  *     Spellings that differ only in letter case are one name here: their sightings count together.
@@ -30,6 +33,8 @@ export interface NameCandidate {
   confirmed_by: string | null;
 }
 
+import { withinOneEdit } from '../../resolvers/compare/index.ts';
+
 const isFullLegal = (n: NameCandidate): boolean => (n.kind === 'legal' || n.kind === 'observed') && Boolean(n.legal_form);
 
 /** The spelling with letter case ignored: case variants of one name share it. */
@@ -51,11 +56,36 @@ export function letterCaseRank(name: string): number {
   return isAllCapitals(name) ? 1 : 2;
 }
 
-function compareBy(a: NameCandidate, b: NameCandidate, caseGroupSeen: ReadonlyMap<string, number>, current: string | null): number {
+/** Sightings of a name with its case variants (rule 2 counts full legal names only; here every name counts). */
+function seenWithCaseVariants(pool: readonly NameCandidate[]): Map<string, number> {
+  const seen = new Map<string, number>();
+  for (const n of pool) seen.set(caseKey(n.name), (seen.get(caseKey(n.name)) ?? 0) + Number(n.seen_count));
+  return seen;
+}
+
+/** Rule 1's confirmation, or null: an identifier's confirmation of a typo of a more frequent spelling does not count. */
+function confirmationOf(n: NameCandidate, pool: readonly NameCandidate[], seen: ReadonlyMap<string, number>): string | null {
+  if (!n.confirmed_by?.startsWith('identifier:')) return n.confirmed_by;
+  const key = caseKey(n.name);
+  const own = seen.get(key) ?? 0;
+  const typoOf = pool.some((o) => {
+    const other = caseKey(o.name);
+    return other !== key && (seen.get(other) ?? 0) > own && withinOneEdit(other, key);
+  });
+  return typoOf ? null : n.confirmed_by;
+}
+
+function compareBy(
+  a: NameCandidate,
+  b: NameCandidate,
+  caseGroupSeen: ReadonlyMap<string, number>,
+  current: string | null,
+  confirmed: ReadonlyMap<number, string | null>,
+): number {
   // Higher is better for every criterion below; the first difference decides.
   const criteria: Array<(n: NameCandidate) => number> = [
-    (n) => (n.confirmed_by ? 1 : 0),
-    (n) => (n.confirmed_by && n.kind === 'legal' ? 1 : 0),
+    (n) => (confirmed.get(n.id) ? 1 : 0),
+    (n) => (confirmed.get(n.id) && n.kind === 'legal' ? 1 : 0),
     (n) => (isFullLegal(n) ? 1 : 0),
     (n) => (isFullLegal(n) ? (caseGroupSeen.get(caseKey(n.name)) ?? 0) : 0),
     (n) => [...n.name].length,
@@ -80,5 +110,7 @@ export function chooseCanonicalName(names: readonly NameCandidate[], canonicalNo
   for (const n of pool) {
     if (isFullLegal(n)) caseGroupSeen.set(caseKey(n.name), (caseGroupSeen.get(caseKey(n.name)) ?? 0) + Number(n.seen_count));
   }
-  return [...pool].sort((a, b) => compareBy(a, b, caseGroupSeen, canonicalNow))[0];
+  const seen = seenWithCaseVariants(pool);
+  const confirmed = new Map(pool.map((n) => [n.id, confirmationOf(n, pool, seen)]));
+  return [...pool].sort((a, b) => compareBy(a, b, caseGroupSeen, canonicalNow, confirmed))[0];
 }

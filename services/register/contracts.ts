@@ -14,12 +14,12 @@ import { write } from './transaction.ts';
 import { detachMention } from './upkeep.ts';
 import { prepareMention } from './resolve/prepare.ts';
 import { resolveWithin, type ResolveResult } from './resolve/resolve-mention.ts';
-import { mentionOutcome, mentionRow, mentionsWaitingForContract } from '../../db/queries/mentions.ts';
+import { mentionOutcome, mentionById, mentionsWaitingForContract } from '../../db/queries/mentions.ts';
 import { earlierContractOf } from './earlier-contract.ts';
 import { contractToStore, definedTermIdsOf, getContract, partiesFromPosition, partyOfMention, type ContractView } from '../../db/queries/contracts.ts';
 import { analyse } from './matching/analysis.ts';
 import { canonicalRow, type StateTable } from './state/tables.ts';
-import { MAX_TITLE_LENGTH, type MentionInput } from '../../resolvers/vocabulary.ts';
+import { MAX_ID_LENGTH, MAX_TITLE_LENGTH, type MentionInput } from '../../resolvers/vocabulary.ts';
 
 export interface ContractInput {
   source: string;
@@ -45,7 +45,7 @@ export const PARTY_SOURCE_PREFIX = 'contract:';
 function check(input: ContractInput): void {
   for (const field of ['source', 'externalId'] as const) {
     if (typeof input[field] !== 'string' || input[field].trim() === '') throw invalid(field, 'must be a non-empty string');
-    if (input[field].length > 300) throw invalid(field, 'is longer than 300 characters');
+    if (input[field].length > MAX_ID_LENGTH) throw invalid(field, `is longer than ${MAX_ID_LENGTH} characters`);
   }
   if (input.title !== undefined && (typeof input.title !== 'string' || input.title.length > MAX_TITLE_LENGTH)) {
     throw invalid('title', `must be a string of at most ${MAX_TITLE_LENGTH} characters`);
@@ -123,7 +123,7 @@ async function withdrawVanishedParties(cs: ChangeSet, contractId: number, count:
 
 /** Resolves a stored mention again in its own contract (a contract it waited for has arrived); null when a person settled it. */
 async function resolveAgain(ctx: RegisterContext, cs: ChangeSet, mentionId: number, who: ActorInput): Promise<ResolveResult | null> {
-  const row = await mentionRow(cs.trx, mentionId);
+  const row = await mentionById(cs.trx, mentionId);
   if (!row) throw new RegisterError('CONFLICT', `mention ${mentionId} vanished while it was resolved again`);
   const m = canonicalRow('mention', row);
   if (m.status === 'withdrawn' || m.status === 'set_aside' || m.confirmed_by || !m.contract_source || !m.contract_external_id) return null;

@@ -12,7 +12,8 @@ import { RegisterError, invalid, notFound } from './errors.ts';
 import { analyse } from './matching/analysis.ts';
 import { countNames, findNameId } from '../../db/queries/names.ts';
 import { holdersOf } from '../../db/queries/identifiers.ts';
-import { mergeStep, nameChoicesOf } from '../../db/queries/canonical-name-reads.ts';
+import { nameChoicesOf } from '../../db/queries/canonical-name-reads.ts';
+import { MAX_MERGE_CHAIN, mergeChainEnds } from '../../db/queries/counterparties.ts';
 
 export interface NameSighting {
   name: string;
@@ -166,18 +167,13 @@ export async function touchCounterparty(cs: ChangeSet, counterpartyId: number, a
   return cs.update('counterparty', counterpartyId, patch);
 }
 
-/** Follows merged_into to the active survivor (without locking). */
+/** Follows merged_into to the active survivor (without locking); `merged` says the id given is not the survivor. */
 export async function survivorOf(db: Db, counterpartyId: number): Promise<{ id: number; merged: boolean } | undefined> {
-  let id = counterpartyId;
-  let merged = false;
-  for (let hops = 0; hops < 1000; hops++) {
-    const row = await mergeStep(db, id);
-    if (!row) return hops === 0 ? undefined : { id, merged };
-    if (row.status === 'active' || row.mergedInto === null) return { id, merged };
-    id = row.mergedInto;
-    merged = true;
-  }
-  throw new Error(`counterparty ${counterpartyId}: merge chain longer than 1000 links (a cycle?)`);
+  const ends = await mergeChainEnds(db, [counterpartyId]);
+  if (!ends.has(counterpartyId)) return undefined;
+  const end = ends.get(counterpartyId);
+  if (!end) throw new Error(`counterparty ${counterpartyId}: merge chain longer than ${MAX_MERGE_CHAIN} links (a cycle?)`);
+  return { id: end.id, merged: end.links > 0 };
 }
 
 /**

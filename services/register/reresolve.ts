@@ -15,7 +15,7 @@
  *   stays (the two counterparties are a duplicate question, which `sweep` files for a person).
  */
 import type { ActorInput, RegisterContext } from './context.ts';
-import { mentionRow, unconfirmedMentionIds } from '../../db/queries/mentions.ts';
+import { mentionById, unconfirmedMentionIds } from '../../db/queries/mentions.ts';
 import { partyOfMention } from '../../db/queries/contracts.ts';
 import { canonicalRow } from './state/tables.ts';
 import { write } from './transaction.ts';
@@ -49,7 +49,7 @@ export function sameOutcome(before: Outcome, after: Outcome, created: number | n
 export async function reresolveOne(ctx: RegisterContext, mentionId: number, who: ActorInput): Promise<{ changed: boolean; status: string }> {
   try {
     return await write(ctx, async (cs) => {
-      const row = await mentionRow(cs.trx, mentionId);
+      const row = await mentionById(cs.trx, mentionId);
       if (!row) return { changed: false, status: 'missing' };
       const m = canonicalRow('mention', row);
       if (m.confirmed_by || !['linked', 'review', 'new', 'unbound_term'].includes(m.status)) {

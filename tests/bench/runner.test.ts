@@ -1,7 +1,9 @@
 // The bench runner's pure parts (the benchmarks themselves never run in `npm test`).
 import { describe, expect, it } from 'vitest';
 import { discover } from '../../bench/discover.ts';
-import { computeRatios, formatTable } from '../../bench/format-table.ts';
+import { computeRatios, formatTable, largestStage } from '../../bench/format-table.ts';
+import { ingestTargets } from '../../bench/ingest.bench.ts';
+import { resolveStages } from '../../bench/resolve-stages.ts';
 import { fullScale, parseArgs, sizesFor } from '../../bench/runner-options.ts';
 import type { BenchRow } from '../../bench/types.ts';
 
@@ -56,5 +58,69 @@ describe('bench runner', () => {
   it('finds the bench files and names the available ones when --only names an unknown one', () => {
     expect(discover([])).toContain('generator.bench.ts');
     expect(() => discover(['no-such-bench'])).toThrow(/no bench named no-such-bench \(available: .*generator/);
+  });
+});
+
+describe('a missed goal names the stage that took the time', () => {
+  it('prints the largest stage and its share beside MISSED, and nothing more for a goal met or a row without stages', () => {
+    // Stage figures invented for the test; the shares follow from them (60 of 100 ms).
+    const stages = { read: 10, decide: 30, flush: 60 };
+    const rows = computeRatios([
+      row({ id: 'slow', value: 20, better: 'lower', goal: { op: '<=', value: 10 }, stages }),
+      row({ id: 'fast', value: 5, better: 'lower', goal: { op: '<=', value: 10 }, stages }),
+      row({ id: 'bare', value: 100, better: 'higher', goal: { op: '>=', value: 5000 } }),
+    ]);
+    const lines = formatTable(rows).split('\n');
+    expect(lines.find((l) => /^k +slow /.test(l))).toContain('<= 10 MISSED (most time: flush 60 %)');
+    expect(lines.find((l) => /^k +fast /.test(l))).toMatch(/<= 10 met$/);
+    expect(lines.find((l) => /^k +bare /.test(l))).toMatch(/>= 5000 MISSED$/);
+    expect(largestStage({ check: 1, write: 3 })).toBe('write 75 %');
+    expect(largestStage({})).toBeUndefined();
+  });
+
+  it('cuts one resolve at its statements into check, read, decide, write, flush and result, which add up to its time', () => {
+    // A timeline shaped like one traced resolve on PostgreSQL (bench/resolve-stages.ts): begin, the stored mention,
+    // locks and settings, candidates, the lock-and-ids statement, the set-based write, commit. Times invented.
+    const at = (text: string, start: number, end: number) => ({ text, start, end });
+    const statements = [
+      at('begin', 2, 3),
+      at('SELECT m.* FROM mention m', 3, 4),
+      at('SELECT pg_advisory_xact_lock(h)', 4, 5),
+      at('WITH q AS (SELECT p, key FROM unnest($1))', 5, 9),
+      at('SELECT * FROM counterparty WHERE id = ANY($1) ORDER BY id FOR UPDATE', 15, 16),
+      at('WITH w0 AS (INSERT INTO explanation (id, body) SELECT …)', 18, 21),
+      at('commit', 21, 23),
+    ];
+    const stages = resolveStages(0, 24, statements);
+    expect(stages).toEqual({ check: 2, read: 7, decide: 6, write: 3, flush: 5, result: 1 });
+    expect(Object.values(stages).reduce((a, b) => a + b, 0)).toBe(24);
+    // Already ingested: only reads and the commit.
+    expect(resolveStages(0, 5, [at('begin', 1, 2), at('SELECT m.* FROM mention m', 2, 3), at('commit', 3, 4)])).toEqual({
+      check: 1,
+      read: 2,
+      decide: 0,
+      write: 0,
+      flush: 1,
+      result: 1,
+    });
+  });
+});
+
+describe('ingest bench targets', () => {
+  it('ingests into a loaded register only at 1,000,000 under a mode, and at every size given by --sizes', () => {
+    expect(ingestTargets({ sizes: sizesFor('quick') }).filter((t) => t.registerSize > 0)).toEqual([]);
+    expect(ingestTargets({ sizes: sizesFor('default') }).filter((t) => t.registerSize > 0)).toEqual([]);
+    expect(ingestTargets({ sizes: sizesFor('full') }).filter((t) => t.registerSize > 0)).toEqual([
+      { backend: 'postgres', size: 100_000, registerSize: 1_000_000 },
+    ]);
+    expect(ingestTargets({ sizes: sizesFor('quick', [10_000]), sizesGiven: true })).toEqual([
+      { backend: 'pglite', size: 10_000, registerSize: 0 },
+      { backend: 'postgres', size: 10_000, registerSize: 0 },
+      { backend: 'postgres', size: 10_000, registerSize: 10_000 },
+    ]);
+    expect(ingestTargets({ sizes: sizesFor('default', [1_000_000]), sizesGiven: true })).toEqual([
+      { backend: 'postgres', size: 1_000_000, registerSize: 0 },
+      { backend: 'postgres', size: 1_000_000, registerSize: 1_000_000 },
+    ]);
   });
 });

@@ -1,6 +1,7 @@
 /**
- * SQL lives in db/ (one query module per concern, db/queries/<concern>.ts); services call those functions. This test
- * reads every tracked file under services/ and fails on a sql`…` template, sql.raw, a query-builder entry
+ * SQL lives in db/ (one query module per concern, db/queries/<concern>.ts); services, benches, scripts and the
+ * command-line entry points call those functions. This test reads every tracked file under services/, bench/,
+ * scripts/ and bin/ and fails on a sql`…` template, sql.raw, a query-builder entry
  * (.selectFrom( / .insertInto( / .updateTable( / .deleteFrom( / .mergeInto() or a string that starts with SQL text,
  * outside the allow-list below. The allow-list only shrinks: each entry says why it is still there.
  */
@@ -10,20 +11,23 @@ import { describe, expect, it } from 'vitest';
 
 const ALLOWED: { prefix: string; why: string }[] = [];
 
-/** What counts as SQL in a service file (the query builder's entry points, the template tag, raw SQL text). */
+/** What counts as SQL in a file outside db/ (the query builder's entry points, the template tag, raw SQL text). */
 const SQL_PATTERNS: RegExp[] = [
   /\bsql(?:<[^`\n]*>)?`/,
   /\bsql\.raw\(/,
   /\.(?:selectFrom|insertInto|updateTable|deleteFrom|mergeInto)\(/,
-  /['"`]\s*(?:SELECT|INSERT INTO|UPDATE [a-z_]+ SET|DELETE FROM|WITH [a-z_]+ AS|CREATE |DROP |ALTER |TRUNCATE )/,
+  /['"`]\s*(?:SELECT|INSERT INTO|UPDATE [a-z_]+ SET|DELETE FROM|WITH [a-z_]+ AS|CREATE |DROP |ALTER |TRUNCATE |VACUUM|ANALYZE|EXPLAIN )/,
 ];
 
-function trackedServiceFiles(): string[] {
-  const out = execFileSync('git', ['ls-files', '-z', 'services'], { encoding: 'utf8' });
+/** The folders whose code must call db/ for its SQL. */
+const SCANNED = ['services', 'bench', 'scripts', 'bin'];
+
+function trackedScannedFiles(): string[] {
+  const out = execFileSync('git', ['ls-files', '-z', ...SCANNED], { encoding: 'utf8' });
   return out.split('\0').filter((f) => /\.(?:ts|js)$/.test(f));
 }
 
-/** `file:line: text` for every line of a service file that holds SQL. */
+/** `file:line: text` for every line of a scanned file that holds SQL. */
 export function sqlLines(file: string, text: string): string[] {
   const found: string[] = [];
   text.split('\n').forEach((line, i) => {
@@ -41,18 +45,21 @@ describe('SQL lives in db/', () => {
     expect(sqlLines('x.ts', "await trx.deleteFrom('mention').execute();")).toHaveLength(1);
     expect(sqlLines('x.ts', "await client.query('DELETE FROM mention WHERE id = $1', [id]);")).toHaveLength(1);
     expect(sqlLines('x.ts', 'sql.raw(text)')).toHaveLength(1);
+    expect(sqlLines('x.ts', 'await admin.query(`DROP DATABASE IF EXISTS "${name}" WITH (FORCE)`);')).toHaveLength(1);
+    expect(sqlLines('x.ts', "await target.query('ANALYZE');")).toHaveLength(1);
+    expect(sqlLines('x.ts', 'await sql`VACUUM ANALYZE`.execute(db);')).toHaveLength(1);
     expect(sqlLines('x.ts', '// one SELECT per identifier, which is why the rows are read up front\nconst selected = items.filter(Boolean);')).toEqual([]);
   });
 
-  it('has no SQL in services/ outside the allow-list', () => {
-    const offending = trackedServiceFiles()
+  it('has no SQL in services/, bench/, scripts/ or bin/ outside the allow-list', () => {
+    const offending = trackedScannedFiles()
       .filter((f) => !ALLOWED.some((a) => f.startsWith(a.prefix)))
       .flatMap((f) => sqlLines(f, readFileSync(f, 'utf8')));
     expect(offending, 'move these statements into a db/queries/<concern>.ts function and call it').toEqual([]);
   });
 
   it('keeps no allow-list entry that is no longer needed (so the list only shrinks)', () => {
-    const files = trackedServiceFiles();
+    const files = trackedScannedFiles();
     const stale = ALLOWED.filter((a) => !files.some((f) => f.startsWith(a.prefix) && sqlLines(f, readFileSync(f, 'utf8')).length > 0));
     expect(stale.map((a) => a.prefix)).toEqual([]);
   });
@@ -69,7 +76,7 @@ describe('SQL lives in db/', () => {
       'services/register/batch-write.ts',
       'services/register/walk.ts',
     ];
-    const offending = trackedServiceFiles()
+    const offending = trackedScannedFiles()
       .filter((f) => moved.some((m) => f.startsWith(m)) || files.includes(f))
       .flatMap((f) => sqlLines(f, readFileSync(f, 'utf8')));
     expect(offending, 'move these statements into a db/queries/<concern>.ts function and call it').toEqual([]);

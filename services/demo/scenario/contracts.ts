@@ -5,7 +5,7 @@
 import type { Random } from '../../../resolvers/prng.ts';
 import type { Identifier } from '../../../resolvers/vocabulary.ts';
 import { countryOf } from '../name-parts.ts';
-import { formatAddress } from './entities.ts';
+import { formatAddress } from './contacts.ts';
 import {
   DRAFTING_STYLES,
   type ContractParty,

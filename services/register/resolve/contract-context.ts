@@ -2,7 +2,8 @@
  * The contract a mention names, as its decision reads it (resolve/decide.ts ContractContext): its parsed terms, the
  * mention of each party, and the earlier agreement whose defined terms an amendment or side letter uses.
  */
-import { contractByRef, partyMentionsByPosition } from '../../../db/queries/resolve-reads.ts';
+import { contractByRef } from '../../../db/queries/contracts.ts';
+import { partyMentionsByPosition } from '../../../db/queries/resolve-reads.ts';
 import type { ParsedContract } from '../../../resolvers/terms/index.ts';
 import type { ChangeSet } from '../state/change-set.ts';
 import { earlierContractOf } from '../earlier-contract.ts';

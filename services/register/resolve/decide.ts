@@ -7,7 +7,8 @@
  *   collective_term  a term of the contract for a set of parties ("the Parties")
  *   own_entity       one of our own legal entities (scored like a counterparty, linked at linkAt)
  *   linked           a decisive strong identifier, or the best candidate at or above linkAt and unambiguous, or a
- *                    declared former name under the rules of resolve/former-name.ts
+ *                    declared former name under the rules of resolve/former-name.ts, or a name a person linked to
+ *                    the best candidate before (resolve/confirmed-name.ts)
  *   review           the best candidate between newAt and linkAt, or two different candidates both above linkAt, or
  *                    a former name too uncertain to link
  *   new              nothing above newAt (on current or former names): a new counterparty
@@ -25,6 +26,7 @@ import { jsonScore, scoredCandidatesWithFormer, type Probe, type ScoredCandidate
 import type { BatchReads } from '../matching/batch-reads.ts';
 import type { PreparedMention } from './prepare.ts';
 import { throughFormerName } from './former-name.ts';
+import { confirmedNameFor } from './confirmed-name.ts';
 import { ownEntityMatch } from './own-entity-match.ts';
 import { newSummary, reviewSummary } from './summaries.ts';
 
@@ -252,6 +254,20 @@ export async function decide(db: Queryable, prepared: PreparedMention, model: Ma
       evidence: {
         ...detail,
         summary: `"${prepared.text}" matches ${best.canonicalName} with score ${jsonScore(best.score)} (the link threshold is ${model.linkAt})`,
+      },
+    };
+  }
+  const confirmed = rival ? null : await confirmedNameFor(db, probe.analysis.normalised, best, candidates, model);
+  if (confirmed) {
+    return {
+      status: 'linked',
+      counterpartyId: best.counterpartyId,
+      score: jsonScore(best.score),
+      recordName: true,
+      evidence: {
+        ...detail,
+        summary: `"${prepared.text}" is the name a person linked to ${best.canonicalName} before (mention ${confirmed.mentionId}, "${confirmed.text}", confirmed by ${confirmed.confirmedBy}); its score ${jsonScore(best.score)} is below the link threshold (${model.linkAt}) and no other counterparty comes close`,
+        confirmedName: confirmed,
       },
     };
   }

@@ -21,6 +21,23 @@ describe('canonical-value rules', () => {
     ]);
     expect(chosen?.id).toBe(2);
   });
+  it('rule 1: a typo sent with an identifier does not outrank the spelling seen more often; a person still wins', () => {
+    // One letter apart (a letter dropped: one edit, Damerau 1964): the identifier confirmed the entity, not the spelling.
+    const typo = name(2, 'Quillbrook Freight Sevices, Inc.', { kind: 'legal', legal_form: 'inc', confirmed_by: 'identifier:us_ein' });
+    const usual = name(1, 'Quillbrook Freight Services, Inc.', { kind: 'legal', legal_form: 'inc', seen_count: 40 });
+    expect(chooseCanonicalName([usual, typo])?.id).toBe(1);
+    // Seen as often as the typo, the other spelling does not take the confirmation away.
+    expect(chooseCanonicalName([{ ...usual, seen_count: 1 }, typo])?.id).toBe(2);
+    // Two letters apart is another spelling, not a typo: the confirmation stands.
+    expect(
+      chooseCanonicalName([
+        { ...usual, name: 'Quillbrook Freight Servces Inc' },
+        { ...typo, name: 'Quillbrook Freight Services, Inc.' },
+      ])?.id,
+    ).toBe(2);
+    // A person's confirmation stands whatever the spelling.
+    expect(chooseCanonicalName([usual, { ...typo, confirmed_by: 'api:alice' }])?.id).toBe(2);
+  });
   it('rule 2: the most frequent full legal name with its legal form, before a longer name without one', () => {
     const chosen = chooseCanonicalName([
       name(1, 'Fernhill Dairies Ltd', { legal_form: 'ltd', seen_count: 3 }),

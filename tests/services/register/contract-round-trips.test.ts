@@ -35,7 +35,7 @@ function agreement(supplier: string, customer: string, extra = false): string {
 
 const insertsTerms = (s: string) => /insert into "defined_term"/i.test(s);
 /** A read of the contract table by its key (source, external id); a mention's contract_source does not count. */
-const readsContractByKey = (s: string) => /\bcontract\b/i.test(s) && /(?:^|[\s."(])source"? = \$\d+ and (?:\w+\.)?"?external_id"? = \$\d+/i.test(s);
+const readsContractByKey = (s: string) => /\bcontract\b/i.test(s) && /(?:^|[\s."(])source"? = \$\d+ and (?:"?\w+"?\.)?"?external_id"? = \$\d+/i.test(s);
 
 describeBackends('contract round trips', (backend) => {
   it('stores a new two-party contract in 13 statements, however many defined terms it has', async () => {

@@ -2,7 +2,7 @@
 import { storeContract, type ContractInput } from '../../../register/contracts.ts';
 import { applyGivenParties, type GivenParty } from '../../../register/contract-given-parties.ts';
 import { normaliseIdentifierOrThrow } from '../../../register/records.ts';
-import { findContractId, getContract, searchContracts } from '../../../../db/queries/contracts.ts';
+import { contractByRef, getContract, searchContracts } from '../../../../db/queries/contracts.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import { ID_PARAM, IDENTIFIER, NAME, PAGE_QUERY, SOURCE_ID, pagedOf } from './schemas.ts';
 import { actorOf } from './actor-of.ts';
@@ -11,7 +11,7 @@ import { RESOLVE_OUT, RESOLVE_REQUIRED } from './mentions.ts';
 import type { FastifyInstance } from 'fastify';
 import type { RegisterContext } from '../../../register/context.ts';
 import type { AppDeps } from '../../types.ts';
-import { MAX_TITLE_LENGTH } from '../../../../resolvers/vocabulary.ts';
+import { MAX_ID_LENGTH, MAX_TITLE_LENGTH } from '../../../../resolvers/vocabulary.ts';
 
 export const CONTRACT_BODY_LIMIT = 1024 * 1024;
 const MAX_CONTRACT_TEXT = 1024 * 1024;
@@ -83,8 +83,8 @@ export function contractRoutes(app: FastifyInstance, deps: AppDeps, ctx: Registe
                 additionalProperties: false,
                 properties: {
                   name: NAME,
-                  role: { type: 'string', minLength: 1, maxLength: 300 },
-                  definedTerm: { type: 'string', minLength: 1, maxLength: 300 },
+                  role: { type: 'string', minLength: 1, maxLength: MAX_ID_LENGTH },
+                  definedTerm: { type: 'string', minLength: 1, maxLength: MAX_ID_LENGTH },
                   identifiers: { type: 'array', maxItems: 50, items: IDENTIFIER },
                 },
               },
@@ -226,8 +226,8 @@ export function contractRoutes(app: FastifyInstance, deps: AppDeps, ctx: Registe
       },
     },
     async (request) => {
-      const id = await findContractId(db, request.query.source, request.query.externalId);
-      const contract = id === undefined ? undefined : await getContract(db, id);
+      const found = await contractByRef(db, request.query.source, request.query.externalId);
+      const contract = found === undefined ? undefined : await getContract(db, found.id);
       if (!contract) throw new ApiError('NOT_FOUND', `no contract ${request.query.source}/${request.query.externalId}`);
       return contract;
     },

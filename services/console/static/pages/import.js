@@ -4,6 +4,11 @@ import { api, apiForm } from '../api.js';
 import { h, pageTitle, plural, replace } from '../dom.js';
 import { errorBox, section } from '../ui.js';
 
+// The longest source the register takes (MAX_ID_LENGTH, resolvers/vocabulary.ts). The console is plain JavaScript
+// served as it is and cannot import the TypeScript constant: tests/services/console/console-copies.test.ts checks
+// that this copy equals it.
+const MAX_ID_LENGTH = 300;
+
 // The reasons a file is not imported (resolvers/files/reject-reasons.ts), in words for a person.
 const REASON_WORDS = {
   unreadable: 'could not be read or is damaged',
@@ -131,7 +136,7 @@ export function render(main, { session }) {
   let timer = null;
   const input = h('input', { id: 'import-files', type: 'file', multiple: true, accept: '.zip,.pdf,.docx,.txt,.md,application/zip,application/pdf,text/plain' });
   const picked = h('p', { class: 'hint', id: 'import-picked', 'aria-live': 'polite' }, 'No files chosen yet.');
-  const source = h('input', { id: 'import-source', type: 'text', value: 'files', maxlength: '300', autocomplete: 'off' });
+  const source = h('input', { id: 'import-source', type: 'text', value: 'files', maxlength: String(MAX_ID_LENGTH), autocomplete: 'off' });
   const start = h('button', { type: 'submit', class: 'primary', id: 'import-start' }, 'Import');
   const progress = h('div', { id: 'import-progress', role: 'status', 'aria-live': 'polite' });
   const results = h('div', { id: 'import-results' });
