@@ -15,7 +15,7 @@ import { openDatabase } from '../db/open-database.ts';
 import { importContractFiles } from '../services/contract-files/import-files.ts';
 import { DocumentFinder } from '../services/contract-files/find-documents.ts';
 import { generateScenario } from '../services/demo/scenario/index.ts';
-import { contractPdf, docxFile, zipOf } from '../tests/services/contract-files/documents.ts';
+import { contractPdf, docxFile, zipOf } from '../tests/services/contract-files/support.ts';
 import type { BenchContext, BenchRow } from './types.ts';
 
 type Ctx = Pick<BenchContext, 'mode' | 'seed' | 'tmpDir' | 'log' | 'withPeakMemory'>;

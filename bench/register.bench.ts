@@ -6,7 +6,8 @@
  *
  * The register is bulk-loaded from the seeded name generator (one counterparty per generated name) through the
  * register's set-based loader (services/register/bulk-load.ts: keys, key counts and history as any write leaves
- * them); its time is reported (loadSeconds) but is set-up, not what is measured. Beside the latency: how many
+ * them; COPY on PostgreSQL, one statement of set-based inserts per chunk on PGlite); its time is reported
+ * (loadSeconds, with the name generation and the VACUUM ANALYZE after it) but is set-up, not what is measured. Beside the latency: how many
  * candidates each resolve fetched and how many it had to score (the rest were cut by the score bound). Each measured call is a full resolveMention: analysis, candidates, scoring, the write and its
  * history event, in one transaction.
  *

@@ -8,6 +8,7 @@ import type { Database } from './types.ts';
 import { DatabaseOpenError } from './database-errors.ts';
 import { withPlannerOptions } from './planner-settings.ts';
 import { explainConnectError } from './explain-connect-error.ts';
+import { trackPoolClients } from './transaction-client.ts';
 import type { OpenDatabaseOptions, OpenedDatabase } from './opened-database.ts';
 
 /** How long opening waits for PostgreSQL to accept a connection before saying it is unreachable. */
@@ -57,6 +58,8 @@ export async function openPostgres(url: string, options: OpenDatabaseOptions): P
   // failing query already answers the request; the pool drops the dead client when it comes back.
   pool.on('connect', (client) => client.on('error', (error) => options.onPoolError?.(error)));
   if (options.timeoutMs) pool.on('connect', dropOnReadTimeout);
+  // COPY … FROM STDIN goes to the client under a transaction, which kysely does not show (db/transaction-client.ts).
+  const tracked = trackPoolClients(pool);
   try {
     const client = await pool.connect();
     client.release();
@@ -65,6 +68,7 @@ export async function openPostgres(url: string, options: OpenDatabaseOptions): P
     throw new DatabaseOpenError(explainConnectError(error, where), { cause: error });
   }
   const db = new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });
+  tracked.attach(db);
   let closed = false;
   return {
     db,

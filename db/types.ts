@@ -11,6 +11,7 @@ import type {
   CounterpartyNameTable,
   CounterpartyIdentifierTable,
   BlockingKeyTable,
+  CounterpartyNameAnalysisTable,
   CounterpartyRelationTable,
 } from './tables/register-tables.ts';
 import type { ContractTable, DefinedTermTable, MentionTable, ExplanationTable, ContractPartyTable } from './tables/contract-tables.ts';
@@ -33,6 +34,7 @@ export interface Database {
   counterparty_name: CounterpartyNameTable;
   counterparty_identifier: CounterpartyIdentifierTable;
   blocking_key: BlockingKeyTable;
+  counterparty_name_analysis: CounterpartyNameAnalysisTable;
   counterparty_relation: CounterpartyRelationTable;
   contract: ContractTable;
   defined_term: DefinedTermTable;

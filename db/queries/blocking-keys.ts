@@ -49,9 +49,19 @@ export interface CandidateDetail {
   counterpartyId: number;
   canonicalName: string;
   jurisdiction: string | null;
-  names: { name: string; kind: string }[];
+  /** Each name with its stored analysis (migrations/20261205180000_counterparty_name_analysis.ts), null when it has none. */
+  names: { name: string; kind: string; stored: StoredNameAnalysis | null }[];
   identifiers: { scheme: string; value: string; label: string | null }[];
 }
+
+/** A stored analysis as read: the caller decides whether its version and country are current. */
+export interface StoredNameAnalysis {
+  analysis: unknown;
+  version: number;
+  country: string | null;
+}
+
+type NameCell = [string, string, unknown, number | null, string | null];
 
 /**
  * Candidates by blocking keys and by identifiers, with their names and identifiers, in ONE statement (one round
@@ -148,7 +158,7 @@ async function candidateQuery(
     id: string | number;
     canonical_name: string;
     jurisdiction: string | null;
-    names: [string, string][] | string;
+    names: NameCell[] | string;
     identifiers: [string, string, string | null][] | string;
     token: string | null;
     df: string | number | null;
@@ -202,7 +212,8 @@ async function candidateQuery(
       GROUP BY counterparty_id
     ), found AS (
       SELECT cps.ps, cps.rns, cp.id, cp.canonical_name, cp.jurisdiction,
-        (SELECT coalesce(json_agg(json_build_array(n.name, n.kind) ORDER BY n.id), '[]'::json) FROM counterparty_name n WHERE n.counterparty_id = cp.id) AS names,
+        (SELECT coalesce(json_agg(json_build_array(n.name, n.kind, a.analysis, a.analysis_version, a.country) ORDER BY n.id), '[]'::json)
+          FROM counterparty_name n LEFT JOIN counterparty_name_analysis a ON a.name_id = n.id WHERE n.counterparty_id = cp.id) AS names,
         (SELECT coalesce(json_agg(json_build_array(i.scheme, i.value, i.label) ORDER BY i.id), '[]'::json) FROM counterparty_identifier i WHERE i.counterparty_id = cp.id) AS identifiers
       FROM cps JOIN counterparty cp ON cp.id = cps.counterparty_id
       WHERE cp.status = 'active'
@@ -261,16 +272,23 @@ function detailOf(r: {
   id: string | number;
   canonical_name: string;
   jurisdiction: string | null;
-  names: [string, string][] | string;
+  names: NameCell[] | string;
   identifiers: [string, string, string | null][] | string;
 }): CandidateDetail {
-  const names = (typeof r.names === 'string' ? JSON.parse(r.names) : r.names) as [string, string][];
+  const names = (typeof r.names === 'string' ? JSON.parse(r.names) : r.names) as NameCell[];
   const ids = (typeof r.identifiers === 'string' ? JSON.parse(r.identifiers) : r.identifiers) as [string, string, string | null][];
   return {
     counterpartyId: id(r.id),
     canonicalName: r.canonical_name,
     jurisdiction: r.jurisdiction,
-    names: names.map(([name, kind]) => ({ name, kind })),
+    names: names.map(([name, kind, analysis, version, country]) => ({
+      name,
+      kind,
+      stored:
+        analysis === null || analysis === undefined || version === null
+          ? null
+          : { analysis: typeof analysis === 'string' ? (JSON.parse(analysis) as unknown) : analysis, version, country },
+    })),
     identifiers: ids.map(([scheme, value, label]) => ({ scheme, value, label })),
   };
 }

@@ -26,14 +26,6 @@ export async function explanationBodies(db: Queryable, ids: readonly number[]): 
   return new Map(rows.map((r) => [Number(r.id), r.body]));
 }
 
-/** Stores one explanation under a drawn id (a ChangeSet that does not buffer its writes). */
-export async function insertExplanation(trx: Transaction<Database>, id: number, body: Body): Promise<void> {
-  await trx
-    .insertInto('explanation')
-    .values({ id, body: JSON.stringify(body) })
-    .execute();
-}
-
 /** Many explanations as one set-based write (a ChangeSet's flush, state/write-buffer.ts). */
 export function insertExplanations(rows: readonly { id: number; body: Body }[]): RawBuilder<unknown> {
   return sql`INSERT INTO explanation (id, body) SELECT id, body FROM jsonb_populate_recordset(NULL::explanation, ${rowsJson(rows)}::jsonb)`;

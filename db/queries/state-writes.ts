@@ -50,16 +50,6 @@ export async function nextId(trx: Trx, table: string): Promise<number> {
   return Number(result.rows[0]!.id);
 }
 
-/** Inserts one row (values ready for the driver: jsonb as JSON text) and answers it as stored. */
-export async function insertReturning(trx: Trx, table: string, values: Values): Promise<Values> {
-  const result = await sql<Values>`INSERT INTO ${sql.table(table)} ${insertClause(values)} RETURNING *`.execute(trx);
-  return result.rows[0]!;
-}
-
-export async function updateById(trx: Trx, table: string, id: number, values: Values): Promise<void> {
-  await sql`UPDATE ${sql.table(table)} SET ${setClause(values)} WHERE id = ${id}`.execute(trx);
-}
-
 export async function deleteById(trx: Trx, table: string, id: number): Promise<void> {
   await sql`DELETE FROM ${sql.table(table)} WHERE id = ${id}`.execute(trx);
 }

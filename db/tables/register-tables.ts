@@ -72,6 +72,16 @@ export interface BlockingKeyTable {
   name_id: Int8;
 }
 
+/** Derived from counterparty_name (migrations/20261205180000_counterparty_name_analysis.ts): a name's stored analysis. */
+export interface CounterpartyNameAnalysisTable {
+  name_id: Int8;
+  /** The NameAnalysis (resolvers/analyse) as JSON. */
+  analysis: unknown;
+  analysis_version: number;
+  /** The country it was analysed under: its counterparty's jurisdiction then. */
+  country: string | null;
+}
+
 export type RelationOrigin = 'person' | 'strong_source' | 'sweep';
 
 export interface CounterpartyRelationTable {

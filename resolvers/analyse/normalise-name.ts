@@ -3,7 +3,8 @@
  * legal-form spans are slices of it, so the original is always recoverable.
  *
  * Steps: NFKC-compatible folding, case folding, diacritics dropped (ü → u), the German digraph convention
- * folded too (ue → u after a consonant, so Mühlberg ~ Muehlberg ~ Muhlberg), quotes and dashes unified,
+ * folded too where a word can be German (ue → u after a consonant, not at a word's end: foldGermanDigraphs, so
+ * Mühlberg ~ Muehlberg ~ Muhlberg while "Samuel Blue" stays), quotes and dashes unified,
  * apostrophes joined (O'Brien → obrien), dotted initials joined (A.B.C. → abc), "&" / "+" / "und" / "et" → "and",
  * any other punctuation a word break. The result is idempotent.
  *
@@ -137,15 +138,26 @@ export function normaliseName(text: string): string {
 export const foldForComparison = normaliseName;
 
 /**
- * ae/oe/ue → a/o/u after a Latin consonant other than q ("muehlberg" → "muhlberg", "queen" untouched).
- * Decided on the output so far, which makes the fold idempotent.
+ * ae/oe/ue → a/o/u, the German transcription of ä/ö/ü (DIN 5007-2 sorts ä=ae, ö=oe, ü=ue; from memory), so that
+ * "Mühlberg", "Muehlberg" and "Muhlberg" meet. Only where the digraph can be an umlaut:
+ *  - after a Latin consonant other than q ("muehlberg" → "muhlberg"; "queen", "quest" keep their "ue"; "bauer",
+ *    "steuer" keep theirs: a vowel before it makes a diphthong, not an umlaut);
+ *  - not at the end of the word, nor before a final "l" or "s": German words almost never end in ä/ö/ü or in
+ *    -äl/-öl/-ül/-äs/-ös/-üs, while English, French and Spanish words and given names often end so ("blue",
+ *    "avenue", "Joe", "Samuel", "Manuel", "Michael", "Noel", "values") (issue 15: "Samuel Blue" folded to
+ *    "samul blu"). From memory; the rare German word so written ("Heizoel") is no longer folded.
+ * The rule reads the word alone, never the rest of the name or a country: names are normalised without a country in
+ * many places (a stored name's normalised text and blocking keys, the comparators), and one word must fold the same
+ * way in all of them. Decided on the output so far, which makes the fold idempotent.
  */
 export function foldGermanDigraphs(token: string): string {
   let at = token.indexOf('e', 2);
   if (at < 0) return token;
   let out = '';
   let from = 0;
+  const last = token.length - 1;
   for (; at >= 0; at = token.indexOf('e', at + 1)) {
+    if (at === last || (at === last - 1 && (token.charCodeAt(last) === 0x6c || token.charCodeAt(last) === 0x73))) continue; // word-final (see above)
     // Compare with the output so far: a removed "e" never changes the context of a later one.
     const sofar = out + token.slice(from, at);
     const v = sofar.charCodeAt(sofar.length - 1);

@@ -16,7 +16,9 @@
  *   i:<scheme>:<value> each strong identifier; w:<scheme>:<value> each shared (weak) identifier
  * and the t:, s: and p: keys of the name's other spellings (analysis.alternatives: aliases, a transliteration).
  *
- * Keys depend on the record alone, never on the rest of the register, so a stored key never goes stale. The IDF
+ * Keys depend on the record alone, never on the rest of the register, so a stored key goes stale only when the
+ * analysis it is taken from changes (ANALYSIS_VERSION, resolvers/analyse/analysis-version.ts: bump it with any change
+ * here too; the register then rewrites stored keys with `cpreg migrate reanalyse`). The IDF
  * table only orders them (rarest first) so that a caller with a budget queries the most selective keys first;
  * oversized blocks are thinned at query time (candidatePairs uses a sorted neighbourhood inside them).
  */

@@ -11,6 +11,7 @@
  * best first while the part stays under the limit, and the pairs refused are returned as `crossPairs` for a
  * final pass that reconciles the parts (services/jobs). Cost: O(p log p) for p linking pairs, O(n) memory.
  */
+import { UnionFind } from '../cluster/index.ts';
 
 export interface PartitionOptions {
   /** Pairs at or above this score can join records (the model's linkAt). */
@@ -40,31 +41,19 @@ export function partitionRecords(
 ): PartitionPlan {
   if (!(options.targetSize >= 1)) throw new RangeError(`targetSize must be at least 1, got ${options.targetSize}`);
   const maxComponent = options.maxComponentSize ?? options.targetSize;
-  const parent = new Int32Array(n);
-  const size = new Int32Array(n).fill(1);
-  for (let i = 0; i < n; i++) parent[i] = i;
-  const find = (x: number): number => {
-    while (parent[x] !== x) {
-      parent[x] = parent[parent[x]!]!;
-      x = parent[x]!;
-    }
-    return x;
-  };
+  const sets = new UnionFind(n);
   const linking: number[] = [];
   for (let k = 0; k < score.length; k++) if (score[k]! >= options.linkAt) linking.push(k);
   linking.sort((a, b) => score[b]! - score[a]! || left[a]! - left[b]! || right[a]! - right[b]!);
   let refusedJoins = 0;
   for (const k of linking) {
-    const a = find(left[k]!);
-    const b = find(right[k]!);
-    if (a === b) continue;
-    if (size[a]! + size[b]! > maxComponent) {
+    const roots = sets.roots(left[k]!, right[k]!);
+    if (!roots) continue;
+    if (sets.size(roots[0]) + sets.size(roots[1]) > maxComponent) {
       refusedJoins++;
       continue;
     }
-    const [big, small] = size[a]! >= size[b]! ? [a, b] : [b, a];
-    parent[small] = big;
-    size[big] = size[big]! + size[small]!;
+    sets.join(roots[0], roots[1]);
   }
   // Components in the order of their first record; packed next-fit.
   const partitionOfRoot = new Map<number, number>();
@@ -72,10 +61,10 @@ export function partitionRecords(
   let count = 0;
   let fill = 0;
   for (let i = 0; i < n; i++) {
-    const root = find(i);
+    const root = sets.find(i);
     let p = partitionOfRoot.get(root);
     if (p === undefined) {
-      const s = size[root]!;
+      const s = sets.size(root);
       if (count === 0 || (fill > 0 && fill + s > options.targetSize)) {
         count++;
         fill = 0;

@@ -12,6 +12,8 @@
  * Cost: O(E log E) for the sort; each merge attempt reads the scored pairs of the smaller cluster's members
  * (adjacency in flat typed arrays), so clusters of a few names cost a few reads.
  */
+import { UnionFind } from './union-find.ts';
+
 export interface ScoredEdge {
   a: string;
   b: string;
@@ -87,18 +89,10 @@ export function clusterIndexed(ids: readonly string[], pairs: IndexedPairs, opti
   const n = ids.length;
   const rank = idRanks(ids);
   const adjacency = buildAdjacency(n, pairs);
-  const parent = Int32Array.from({ length: n }, (_, i) => i);
+  const sets = new UnionFind(n);
+  // The members of each set, kept at its root (the merge check reads the smaller set's members).
   const members: number[][] = Array.from({ length: n }, (_, i) => [i]);
-  const find = (i: number): number => {
-    let root = i;
-    while (parent[root] !== root) root = parent[root] as number;
-    while (parent[i] !== root) {
-      const next = parent[i] as number;
-      parent[i] = root;
-      i = next;
-    }
-    return root;
-  };
+  const find = (i: number): number => sets.find(i);
 
   const order: number[] = [];
   for (let k = 0; k < pairs.count; k++) if ((pairs.scores[k] as number) >= options.linkAt) order.push(k);
@@ -107,12 +101,11 @@ export function clusterIndexed(ids: readonly string[], pairs: IndexedPairs, opti
   order.sort((x, y) => (pairs.scores[y] as number) - (pairs.scores[x] as number) || lo(x) - lo(y) || hi(x) - hi(y));
 
   for (const k of order) {
-    const ra = find(pairs.left[k] as number);
-    const rb = find(pairs.right[k] as number);
-    if (ra === rb) continue;
-    const [big, small] = (members[ra] as number[]).length >= (members[rb] as number[]).length ? [ra, rb] : [rb, ra];
+    const roots = sets.roots(pairs.left[k] as number, pairs.right[k] as number);
+    if (!roots) continue;
+    const [big, small] = roots;
     if (!mergeAllowed(members[small] as number[], big, adjacency, find, conflictBelow, averageAt)) continue;
-    parent[small] = big;
+    sets.join(big, small);
     (members[big] as number[]).push(...(members[small] as number[]));
     members[small] = [];
   }

@@ -5,7 +5,7 @@
  * by ids, so that the clusters are the same for any input order.
  */
 import { candidatePairs, type MatchRecord } from '../../resolvers/block/index.ts';
-import { clusterRecords, type ScoredEdge } from '../../resolvers/cluster/index.ts';
+import { clusterRecords, UnionFind, type ScoredEdge } from '../../resolvers/cluster/index.ts';
 import { clusterRulesOf, scorePair, type MatchModel, type PairScore } from '../../resolvers/score/index.ts';
 import type { RegisterContext } from './context.ts';
 import { idfFor } from './matching/idf.ts';
@@ -96,38 +96,9 @@ export async function clusterBatch(
     if (s.decision === 'review') reviewPairs.push({ a: byKey[pairs.left[i]!]!, b: byKey[pairs.right[i]!]!, pair: s });
   }
   const cpList = [...cps].sort();
-  // Register counterparties never join each other: a cannot-link between every two of them. Only two that one
-  // chain of linking edges (score ≥ linkAt) connects can ever meet in a merge, so the cannot-links are given
-  // within each such component only (the clusters are the same; all pairs would grow with the square of the
-  // counterparties in the batch).
-  const root = new Map<string, string>();
-  const find = (node: string): string => {
-    let r = node;
-    while (root.has(r) && root.get(r) !== r) r = root.get(r)!;
-    let at = node;
-    while (at !== r) {
-      const next = root.get(at)!;
-      root.set(at, r);
-      at = next;
-    }
-    return r;
-  };
-  for (const e of edges) {
-    if (!(e.score >= model.linkAt)) continue;
-    const ra = find(e.a);
-    const rb = find(e.b);
-    if (ra !== rb) root.set(ra < rb ? rb : ra, ra < rb ? ra : rb);
-  }
-  const byComponent = new Map<string, string[]>();
-  for (const cp of cpList) {
-    const r = find(cp);
-    if (!byComponent.has(r)) byComponent.set(r, []);
-    byComponent.get(r)!.push(cp);
-  }
-  for (const group of byComponent.values())
-    for (let i = 0; i < group.length; i++) for (let j = i + 1; j < group.length; j++) cannot.push([group[i]!, group[j]!]);
   const ids = [...records.map((r) => r.id), ...cpList];
-  const clusters = clusterRecords(ids, edges, cannot, clusterRulesOf(model));
+  // concat, not push(...): a large component gives more pairs than a call takes arguments.
+  const clusters = clusterRecords(ids, edges, cannot.concat(counterpartiesApart(ids, cpList, edges, model.linkAt)), clusterRulesOf(model));
   const byNode = new Map(byKey.map((p) => [`m:${p.key}`, p]));
   const out: Group[] = [];
   for (const cluster of clusters) {
@@ -140,6 +111,27 @@ export async function clusterBatch(
     out.push({ members, counterpartyId: cp ? Number(cp.slice(3)) : null });
   }
   return { groups: out, reviewPairs };
+}
+
+/**
+ * Register counterparties never join each other: a cannot-link between every two of them. Only two that one chain of
+ * linking edges (score ≥ linkAt) connects can ever meet in a merge, so the cannot-links are given within each such
+ * component only (the clusters are the same; all pairs would grow with the square of the counterparties in the batch).
+ */
+function counterpartiesApart(ids: readonly string[], cpList: readonly string[], edges: readonly ScoredEdge[], linkAt: number): [string, string][] {
+  const indexOf = new Map(ids.map((id, i) => [id, i]));
+  const linked = new UnionFind(ids.length);
+  for (const e of edges) if (e.score >= linkAt) linked.union(indexOf.get(e.a)!, indexOf.get(e.b)!);
+  const byComponent = new Map<number, string[]>();
+  for (const cp of cpList) {
+    const r = linked.find(indexOf.get(cp)!);
+    if (!byComponent.has(r)) byComponent.set(r, []);
+    byComponent.get(r)!.push(cp);
+  }
+  const apart: [string, string][] = [];
+  for (const group of byComponent.values())
+    for (let i = 0; i < group.length; i++) for (let j = i + 1; j < group.length; j++) apart.push([group[i]!, group[j]!]);
+  return apart;
 }
 
 /** The given pairs of sort keys as index pairs into `byKey` (pairs naming a mention not in it are left out). */

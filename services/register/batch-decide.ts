@@ -81,6 +81,8 @@ async function readWithin(within: Within, checked: Checked[]): Promise<WalkReads
   if (checked.length !== 1) throw new Error(`a single resolve walks one mention, not ${checked.length}`);
   const { prepared } = checked[0]!;
   const cs = within.cs;
+  // Its reads see what the caller wrote before in this ChangeSet (a no-op when nothing waits in the buffer).
+  await cs.flush();
   // The locks, the stored mention, the settings and our own entities in one round trip.
   const basics = await lockAndReadDecisionBasics(cs.trx, neighbourhoodKeys([prepared]), prepared.input);
   const stored = byKey(basics.stored ? [basics.stored] : []);

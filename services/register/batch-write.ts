@@ -125,8 +125,6 @@ async function writeChunk(ctx: RegisterContext, cs: ChangeSet, chunk: Group[], c
   );
   await lockActive(cs, targets);
   await cs.loadNames(linkTargets.map((id) => survivorFor(cs, id)));
-  const owned = !cs.buffering;
-  cs.startBuffering();
   const contracts = new Map<string, Promise<ContractContext | null>>();
   const out: ResolveResult[][] = [];
   for (const [g, group] of chunk.entries()) {
@@ -136,8 +134,7 @@ async function writeChunk(ctx: RegisterContext, cs: ChangeSet, chunk: Group[], c
     if (joined !== undefined && joined !== null) c.pending.set(group, joined);
     out.push(results);
   }
-  // A ChangeSet already buffering when the walk began is flushed by the code that started the buffering.
-  if (owned) await timed(c.options.stages, 'flush', () => cs.stopBuffering());
+  await timed(c.options.stages, 'flush', () => cs.flush());
   // Events written from the buffer got their ids at the flush.
   return out.map((results) => results.map((r) => (r.eventId === null ? r : { ...r, eventId: cs.realId(r.eventId) })));
 }

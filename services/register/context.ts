@@ -7,6 +7,7 @@ import type { Kysely } from 'kysely';
 import type { Database } from '../../db/types.ts';
 import type { DerivedContext } from './state/derived.ts';
 import { nameBlockingKeys } from './matching/keys.ts';
+import { storedAnalysisOf } from './matching/analysis.ts';
 
 export interface RegisterContext {
   db: Kysely<Database>;
@@ -25,7 +26,7 @@ export interface ActorInput {
 export function createRegisterContext(db: Kysely<Database>, options: { now?: () => Date } = {}): RegisterContext {
   return {
     db,
-    derived: { nameKeys: nameBlockingKeys },
+    derived: { nameKeys: nameBlockingKeys, nameAnalysis: storedAnalysisOf },
     now: options.now ?? (() => new Date()),
   };
 }

@@ -101,7 +101,7 @@ function insertedHere(cs: ChangeSet, table: StateTable, rowId: number): boolean 
 
 /** A changed contract with fewer parties: the party mentions beyond the new count are withdrawn (not deleted). */
 async function withdrawVanishedParties(cs: ChangeSet, contractId: number, count: number, who: ActorInput, at: Date): Promise<void> {
-  const gone = await partiesFromPosition(cs.trx, contractId, count);
+  const gone = await partiesFromPosition(await cs.flushed(), contractId, count);
   for (const party of gone) {
     const peek = await mentionOutcome(cs.trx, party.mentionId);
     if (!peek) throw new RegisterError('CONFLICT', `mention ${party.mentionId} of contract ${contractId} vanished`);
@@ -180,7 +180,6 @@ export async function storeContract(
     // The ids of the rows it adds in one statement, and the contract, its terms and its event in one more (buffered).
     // A new contract's parties are new rows; an id left over (a party mention linked before) is a harmless gap.
     await cs.reserveIds({ contract: existing ? 0 : 1, defined_term: terms.length, contract_party: existing ? 0 : parsed.parties.length });
-    cs.startBuffering();
     let contractId: number;
     const values = { title: input.title ?? null, text: input.text, content_hash: contentHash, parsed, status: 'active' as const, updated_at: iso };
     if (existing) {
@@ -200,7 +199,7 @@ export async function storeContract(
       requestId: who.requestId,
       details: { entity: 'contract', contractId, source: input.source, externalId: input.externalId, parties: parsed.parties.length },
     });
-    await cs.stopBuffering();
+    await cs.flush();
     const parties: StoreContractResult['parties'] = [];
     for (const [index, p] of prepared.entries()) {
       const party = parsed.parties[index]!;
@@ -235,9 +234,10 @@ export async function storeContract(
       }
       parties.push({ ...result, position: index, role: party.role, terms: party.terms });
     }
+    // The parties' rows are read below (which ones vanished, which mentions wait, the contract answered): written first.
     if (existing) await withdrawVanishedParties(cs, contractId, parsed.parties.length, who, at);
     const reresolved: ResolveResult[] = [];
-    const waiting = await mentionsWaitingForContract(cs.trx, input.source, input.externalId, contractId);
+    const waiting = await mentionsWaitingForContract(await cs.flushed(), input.source, input.externalId, contractId);
     for (const mentionId of waiting.awaiting) {
       const again = await resolveAgain(ctx, cs, mentionId, who);
       if (again) reresolved.push(again);
@@ -251,7 +251,7 @@ export async function storeContract(
         if (again) reresolved.push(again);
       }
     }
-    const contract = await getContract(cs.trx, contractId);
+    const contract = await getContract(await cs.flushed(), contractId);
     if (!contract) throw new RegisterError('CONFLICT', `contract ${contractId} vanished while it was stored`);
     return { contractId, alreadyStored: false, previouslyStored: existing !== undefined, parties, reresolved, contract };
   });

@@ -6,7 +6,7 @@ import type { NameKind } from '../../resolvers/vocabulary.ts';
 import { NAME_KINDS } from '../../resolvers/vocabulary.ts';
 import type { ActorInput, RegisterContext } from './context.ts';
 import { RegisterError, invalid, notFound } from './errors.ts';
-import { commitEvent } from './history/commit.ts';
+import { commitWritten } from './history/commit.ts';
 import {
   addIdentifierRow,
   addNameSighting,
@@ -72,7 +72,7 @@ export async function createCounterparty(ctx: RegisterContext, input: CreateCoun
       await addIdentifierRow(cs, id, identifier, { source: 'manual', confirmedBy: who.actor }, at);
     }
     const after = await touchCounterparty(cs, id, at);
-    const eventId = await commitEvent(cs, {
+    const eventId = await commitWritten(cs, {
       type: 'created',
       actor: who.actor,
       at,
@@ -102,7 +102,7 @@ export async function renameCounterparty(
     await addNameSighting(cs, id, { name, kind: 'legal', confirmedBy: who.actor, source: 'manual' }, at);
     await cs.update('counterparty', id, { canonical_name: name, name_locked_by: who.actor });
     const after = await touchCounterparty(cs, id, at);
-    const eventId = await commitEvent(cs, {
+    const eventId = await commitWritten(cs, {
       type: 'renamed',
       actor: who.actor,
       at,
@@ -129,15 +129,18 @@ export async function addName(
     checkVersion(cs, await cs.require('counterparty', id), input.expectedVersion);
     const row = await addNameSighting(cs, id, { name, kind, confirmedBy: who.actor, source: 'manual' }, at);
     const after = await touchCounterparty(cs, id, at);
-    const eventId = await commitEvent(cs, {
+    // A new name's id is temporary until the buffer is written: written first, so that the event names the real one.
+    await cs.flush();
+    const nameId = cs.realId(row.id);
+    const eventId = await commitWritten(cs, {
       type: 'name_added',
       actor: who.actor,
       at,
       reason: who.reason,
       requestId: who.requestId,
-      details: { counterpartyId: id, nameId: row.id, name, kind },
+      details: { counterpartyId: id, nameId, name, kind },
     });
-    return { counterpartyId: id, eventId, version: after.version, nameId: row.id };
+    return { counterpartyId: id, eventId, version: after.version, nameId };
   });
 }
 
@@ -160,7 +163,7 @@ export async function removeName(
     // Removing the name a person locked as canonical releases the lock: the rules choose again.
     if (cp.name_locked_by && cp.canonical_name === row.name) await cs.update('counterparty', id, { name_locked_by: null });
     const after = await touchCounterparty(cs, id, at);
-    const eventId = await commitEvent(cs, {
+    const eventId = await commitWritten(cs, {
       type: 'name_removed',
       actor: who.actor,
       at,
@@ -188,7 +191,7 @@ export async function addIdentifier(
     const row = await addIdentifierRow(cs, id, identifier, { source: 'manual', confirmedBy: who.actor }, at);
     if (!row) return { counterpartyId: id, eventId: null, version: cp.version, identifierId: null };
     const after = await touchCounterparty(cs, id, at);
-    const eventId = await commitEvent(cs, {
+    const eventId = await commitWritten(cs, {
       type: 'identifier_added',
       actor: who.actor,
       at,
@@ -215,7 +218,7 @@ export async function removeIdentifier(
     if (!row || row.counterparty_id !== id) throw notFound(`identifier of counterparty ${id}:`, identifierId);
     await cs.delete('counterparty_identifier', identifierId);
     const after = await touchCounterparty(cs, id, at);
-    const eventId = await commitEvent(cs, {
+    const eventId = await commitWritten(cs, {
       type: 'identifier_removed',
       actor: who.actor,
       at,

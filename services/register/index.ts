@@ -46,3 +46,4 @@ export { replayHistory, type ReplayOptions } from './history/replay.ts';
 export { counterpartyHistory, changeFeed, historyEvent } from './history/read.ts';
 export { stateSnapshot, type StateSnapshot } from './state/snapshot.ts';
 export { STATE_TABLES, type StateTable } from './state/tables.ts';
+export { reanalyseNames, REANALYSE_CHUNK, type ReanalyseResult } from './reanalyse-names.ts';

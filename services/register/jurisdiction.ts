@@ -8,7 +8,7 @@
 import { parseJurisdiction } from '../../resolvers/compare/index.ts';
 import type { ActorInput, RegisterContext } from './context.ts';
 import { RegisterError, invalid } from './errors.ts';
-import { commitEvent } from './history/commit.ts';
+import { commitWritten } from './history/commit.ts';
 import { lockActive, survivorFor, touchCounterparty } from './records.ts';
 import { write } from './transaction.ts';
 
@@ -59,7 +59,7 @@ export async function setJurisdiction(
     if (previous === jurisdiction) return { counterpartyId: id, eventId: null, version: cp.version, jurisdiction };
     await cs.update('counterparty', id, { jurisdiction });
     const after = await touchCounterparty(cs, id, at);
-    const eventId = await commitEvent(cs, {
+    const eventId = await commitWritten(cs, {
       type: 'jurisdiction_changed',
       actor: who.actor,
       at,

@@ -1,7 +1,8 @@
 /**
  * One counterparty folded into another: its names (twins summed), identifiers (twins dropped), mentions, relations
  * and the open review items between the two move to the survivor, and the loser is marked merged. The step of
- * every merge (merge-counterparties.ts) and of a "same" review decision on a duplicate (review.ts).
+ * every merge (merge-counterparties.ts) and of a "same" review decision on a duplicate (review.ts). Each read
+ * follows the moves before it (a twin found among rows moved from an earlier loser), so it reads after a flush.
  */
 import type { ChangeSet } from './state/change-set.ts';
 import type { StateValues } from './state/tables.ts';
@@ -14,9 +15,9 @@ import { openItemsBetween } from '../../db/queries/review.ts';
 /** Moves everything of `loserId` onto `survivorId` and marks the loser merged. Both must be locked. */
 export async function mergeInto(cs: ChangeSet, survivorId: number, loserId: number, at: Date): Promise<void> {
   const iso = at.toISOString();
-  const names = await nameRowsOf(cs.trx, loserId);
+  const names = await nameRowsOf(await cs.flushed(), loserId);
   for (const n of names) {
-    const twin = await findNameId(cs.trx, survivorId, n.name, n.kind);
+    const twin = await findNameId(await cs.flushed(), survivorId, n.name, n.kind);
     const row = await cs.require('counterparty_name', Number(n.id));
     if (twin !== undefined) {
       const keep = await cs.require('counterparty_name', twin);
@@ -28,28 +29,28 @@ export async function mergeInto(cs: ChangeSet, survivorId: number, loserId: numb
       await cs.update('counterparty_name', Number(n.id), { counterparty_id: survivorId });
     }
   }
-  const identifiers = await identifierRowsOf(cs.trx, loserId);
+  const identifiers = await identifierRowsOf(await cs.flushed(), loserId);
   for (const i of identifiers) {
-    const twin = await findIdentifierId(cs.trx, survivorId, i.scheme, i.value);
+    const twin = await findIdentifierId(await cs.flushed(), survivorId, i.scheme, i.value);
     await cs.require('counterparty_identifier', Number(i.id));
     if (twin !== undefined) await cs.delete('counterparty_identifier', Number(i.id));
     else await cs.update('counterparty_identifier', Number(i.id), { counterparty_id: survivorId });
   }
-  const mentionIds = await mentionIdsOfCounterparty(cs.trx, loserId);
+  const mentionIds = await mentionIdsOfCounterparty(await cs.flushed(), loserId);
   await cs.lock('mention', mentionIds);
   for (const m of mentionIds) await cs.update('mention', m, { counterparty_id: survivorId, updated_at: iso });
-  const relations = await relationRowsTouching(cs.trx, loserId);
+  const relations = await relationRowsTouching(await cs.flushed(), loserId);
   for (const r of relations) {
     const from = Number(r.from_counterparty_id) === loserId ? survivorId : Number(r.from_counterparty_id);
     const to = Number(r.to_counterparty_id) === loserId ? survivorId : Number(r.to_counterparty_id);
     await cs.require('counterparty_relation', Number(r.id));
-    const duplicate = from !== to && (await findOtherRelation(cs.trx, from, to, r.type, Number(r.id))) !== undefined;
+    const duplicate = from !== to && (await findOtherRelation(await cs.flushed(), from, to, r.type, Number(r.id))) !== undefined;
     // A relation between the two merged records, or one the survivor already has, has nothing left to say.
     if (from === to || duplicate) await cs.delete('counterparty_relation', Number(r.id));
     else await cs.update('counterparty_relation', Number(r.id), { from_counterparty_id: from, to_counterparty_id: to });
   }
   // Open review items between the two are answered by the merge itself.
-  for (const item of await openItemsBetween(cs.trx, survivorId, loserId)) {
+  for (const item of await openItemsBetween(await cs.flushed(), survivorId, loserId)) {
     await cs.require('review_item', item);
     await cs.update('review_item', item, { status: 'obsolete' });
   }

@@ -11,7 +11,7 @@
 import type { ActorInput, RegisterContext } from './context.ts';
 import type { ChangeSet } from './state/change-set.ts';
 import { RegisterError, invalid, notFound } from './errors.ts';
-import { commitEvent } from './history/commit.ts';
+import { commitWritten } from './history/commit.ts';
 import { checkName, normaliseIdentifierOrThrow, type IdentifierInput } from './records.ts';
 import { write } from './transaction.ts';
 import { analyse } from './matching/analysis.ts';
@@ -79,7 +79,7 @@ export async function addOwnEntity(
       created_at: at.toISOString(),
       removed_at: null,
     });
-    const eventId = await commitEvent(cs, {
+    const eventId = await commitWritten(cs, {
       type: 'created',
       actor: who.actor,
       at,
@@ -110,7 +110,7 @@ async function addOtherNames(
     );
   }
   await cs.update('own_entity', ownEntityId, { other_names: [...row.other_names, ...added.map(({ name, kind }) => ({ name, kind }))] });
-  const eventId = await commitEvent(cs, {
+  const eventId = await commitWritten(cs, {
     type: 'name_added',
     actor: who.actor,
     at,
@@ -129,7 +129,7 @@ export async function removeOwnEntity(ctx: RegisterContext, ownEntityId: number,
     if (!row) throw notFound('own entity', ownEntityId);
     if (row.removed_at !== null) return { eventId: null };
     await cs.update('own_entity', ownEntityId, { removed_at: at.toISOString() });
-    const eventId = await commitEvent(cs, {
+    const eventId = await commitWritten(cs, {
       type: 'withdrawn',
       actor: who.actor,
       at,

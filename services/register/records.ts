@@ -10,9 +10,7 @@ import type { StateRow, StateValues } from './state/tables.ts';
 import { chooseCanonicalName, type NameCandidate } from './canonical-name.ts';
 import { RegisterError, invalid, notFound } from './errors.ts';
 import { analyse } from './matching/analysis.ts';
-import { countNames, findNameId } from '../../db/queries/names.ts';
 import { holdersOf } from '../../db/queries/identifiers.ts';
-import { nameChoicesOf } from '../../db/queries/canonical-name-reads.ts';
 import { MAX_MERGE_CHAIN, mergeChainEnds } from '../../db/queries/counterparties.ts';
 
 export interface NameSighting {
@@ -52,12 +50,17 @@ export function normaliseIdentifierOrThrow(field: string, input: IdentifierInput
   return result.identifier;
 }
 
-export async function createCounterpartyRow(
-  cs: ChangeSet,
-  values: { name: string; kind?: 'organisation' | 'person' | 'unknown'; jurisdiction?: string | null; at: Date },
-): Promise<StateRow<'counterparty'>> {
+export interface NewCounterparty {
+  name: string;
+  kind?: 'organisation' | 'person' | 'unknown';
+  jurisdiction?: string | null;
+  at: Date;
+}
+
+/** The values of a new counterparty row (without its id): what createCounterpartyRow inserts, and the bulk loader's COPY. */
+export function counterpartyValues(values: NewCounterparty): StateValues<'counterparty'> {
   const at = values.at.toISOString();
-  return cs.insert('counterparty', {
+  return {
     canonical_name: values.name,
     kind: values.kind ?? 'organisation',
     jurisdiction: values.jurisdiction ?? null,
@@ -67,24 +70,17 @@ export async function createCounterpartyRow(
     version: 1,
     created_at: at,
     updated_at: at,
-  });
+  };
 }
 
-/** Adds a sighting of a name: a new row, or one more sighting of the same (name, kind). */
-export async function addNameSighting(cs: ChangeSet, counterpartyId: number, sighting: NameSighting, at: Date): Promise<StateRow<'counterparty_name'>> {
-  // A batch write holds the counterparty's names (ChangeSet.namesOf); otherwise they are read.
-  const held = await cs.namesOf(counterpartyId);
-  const existing = held
-    ? held.find((n) => n.name === sighting.name && n.kind === sighting.kind)?.id
-    : await findNameId(cs.trx, counterpartyId, sighting.name, sighting.kind);
-  if (existing !== undefined && existing !== null) {
-    const row = await cs.require('counterparty_name', Number(existing));
-    const patch: StateValues<'counterparty_name'> = { seen_count: row.seen_count + 1 };
-    if (sighting.confirmedBy && !row.confirmed_by) patch.confirmed_by = sighting.confirmedBy;
-    return cs.update('counterparty_name', Number(existing), patch);
-  }
+export async function createCounterpartyRow(cs: ChangeSet, values: NewCounterparty): Promise<StateRow<'counterparty'>> {
+  return cs.insert('counterparty', counterpartyValues(values));
+}
+
+/** The values of a new name row (without its id): what addNameSighting inserts, and the bulk loader's COPY. */
+export function nameValues(counterpartyId: number, sighting: NameSighting, at: Date): StateValues<'counterparty_name'> {
   const analysis = analyse(sighting.name);
-  return cs.insert('counterparty_name', {
+  return {
     counterparty_id: counterpartyId,
     name: sighting.name,
     normalised: analysis.normalised,
@@ -96,23 +92,36 @@ export async function addNameSighting(cs: ChangeSet, counterpartyId: number, sig
     contract_id: sighting.contractId ?? null,
     confirmed_by: sighting.confirmedBy ?? null,
     created_at: at.toISOString(),
-  });
+  };
+}
+
+/** Adds a sighting of a name: a new row, or one more sighting of the same (name, kind). */
+export async function addNameSighting(cs: ChangeSet, counterpartyId: number, sighting: NameSighting, at: Date): Promise<StateRow<'counterparty_name'>> {
+  // The counterparty's names as the ChangeSet holds them (locked on first use), the buffer's new ones with them.
+  const existing = (await cs.namesOf(counterpartyId)).find((n) => n.name === sighting.name && n.kind === sighting.kind)?.id;
+  if (existing !== undefined) {
+    const row = await cs.require('counterparty_name', existing);
+    const patch: StateValues<'counterparty_name'> = { seen_count: row.seen_count + 1 };
+    if (sighting.confirmedBy && !row.confirmed_by) patch.confirmed_by = sighting.confirmedBy;
+    return cs.update('counterparty_name', existing, patch);
+  }
+  return cs.insert('counterparty_name', nameValues(counterpartyId, sighting, at));
 }
 
 /** One fewer sighting of a name (a mention moved away); the row goes when nobody has seen it any more. */
 export async function removeNameSighting(cs: ChangeSet, counterpartyId: number, name: string, kind: NameKind): Promise<void> {
-  // A buffered write holds the counterparty's names (ChangeSet.namesOf); otherwise they are read.
+  // The counterparty's names as the ChangeSet holds them (locked on first use).
   const held = await cs.namesOf(counterpartyId);
-  const existing = held ? held.find((n) => n.name === name && n.kind === kind)?.id : await findNameId(cs.trx, counterpartyId, name, kind);
-  if (existing === undefined || existing === null) return;
-  const row = await cs.require('counterparty_name', Number(existing));
+  const existing = held.find((n) => n.name === name && n.kind === kind)?.id;
+  if (existing === undefined) return;
+  const row = await cs.require('counterparty_name', existing);
   const count = row.seen_count - 1;
   // A counterparty keeps at least one name: the last one stays with a zero count.
-  if (count <= 0 && !row.confirmed_by && (held ? held.length : await countNames(cs.trx, counterpartyId)) > 1) {
-    await cs.delete('counterparty_name', Number(existing));
+  if (count <= 0 && !row.confirmed_by && held.length > 1) {
+    await cs.delete('counterparty_name', existing);
     return;
   }
-  await cs.update('counterparty_name', Number(existing), { seen_count: Math.max(0, count) });
+  await cs.update('counterparty_name', existing, { seen_count: Math.max(0, count) });
 }
 
 /** Adds an identifier; a strong one already held by another active counterparty is refused, naming it. */
@@ -157,7 +166,7 @@ export async function touchCounterparty(cs: ChangeSet, counterpartyId: number, a
   const cp = await cs.require('counterparty', counterpartyId);
   const patch: StateValues<'counterparty'> = { version: cp.version + 1, updated_at: at.toISOString() };
   if (cp.status === 'active' && !cp.name_locked_by) {
-    const names = (await cs.namesOf(counterpartyId)) ?? (await nameChoicesOf(cs.trx, counterpartyId));
+    const names = await cs.namesOf(counterpartyId);
     const chosen = chooseCanonicalName(
       names.map((n) => ({ ...n, id: Number(n.id) }) as NameCandidate),
       cp.canonical_name,

@@ -19,7 +19,7 @@ import { evidenceOf } from './evidence.ts';
 import { declaredNamesOfPartyMention } from '../../db/queries/contracts.ts';
 import type { ActorInput, RegisterContext } from './context.ts';
 import { RegisterError, invalid, notFound } from './errors.ts';
-import { commitEvent } from './history/commit.ts';
+import { commitWritten } from './history/commit.ts';
 import { addIdentifierRow, addNameSighting, createCounterpartyRow, lockActive, survivorFor, touchCounterparty } from './records.ts';
 import { assertNoCannotLink } from './assert-no-cannot-link.ts';
 import { mergeInto } from './merge-into.ts';
@@ -256,7 +256,7 @@ export async function decideReview(ctx: RegisterContext, reviewItemId: number, i
         created_at: at.toISOString(),
       });
     }
-    const eventId = await commitEvent(cs, {
+    const eventId = await commitWritten(cs, {
       type: 'review_decided',
       actor: who.actor,
       at,

@@ -75,7 +75,8 @@ export async function splitCounterparty(ctx: RegisterContext, counterpartyId: nu
       });
     }
     if (created) {
-      if ((await anyNameId(cs.trx, targetId)) === undefined) {
+      // The names just moved are read with it (written first).
+      if ((await anyNameId(await cs.flushed(), targetId)) === undefined) {
         const first = mentions[0]!;
         await addNameSighting(cs, targetId, { name: first.text, kind: 'observed', source: first.source, mentionId: first.id }, at);
       }

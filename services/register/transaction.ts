@@ -2,10 +2,11 @@
  * One register write = one transaction. Rows are locked with SELECT … FOR UPDATE in id order (ChangeSet.lock);
  * a deadlock, a serialisation failure or a unique-key race with a concurrent request rolls everything back and
  * runs the whole function again (it re-reads what it needs), so a failed request changes nothing and two
- * overlapping requests both land.
+ * overlapping requests both land. The ChangeSet's buffer is written before every commit.
  */
 import type { RegisterContext } from './context.ts';
 import { ChangeSet } from './state/change-set.ts';
+import { assertNoTemporaryIds } from './state/id-pools.ts';
 import { RegisterError } from './errors.ts';
 import { markWorkCommitted } from '../../db/idempotency-scope.ts';
 
@@ -23,7 +24,11 @@ export async function write<T>(ctx: RegisterContext, fn: (cs: ChangeSet) => Prom
   for (let attempt = 0; attempt < MAX_ATTEMPTS; attempt++) {
     try {
       return await ctx.db.transaction().execute(async (trx) => {
-        const result = await fn(new ChangeSet(trx, ctx.derived));
+        const cs = new ChangeSet(trx, ctx.derived);
+        const result = await fn(cs);
+        // Whatever the writer left in the buffer is written before the commit: nothing it changed is lost.
+        await cs.flush();
+        assertNoTemporaryIds(result);
         // An idempotent API request's claim is stamped in the same commit as its work (db/idempotency-scope.ts).
         await markWorkCommitted(trx);
         return result;

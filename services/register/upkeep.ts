@@ -4,7 +4,7 @@
  */
 import type { ActorInput, RegisterContext } from './context.ts';
 import { RegisterError, notFound } from './errors.ts';
-import { commitEvent } from './history/commit.ts';
+import { commitWritten } from './history/commit.ts';
 import { removeNameSighting, touchCounterparty } from './records.ts';
 import type { ChangeSet } from './state/change-set.ts';
 import type { StateRow } from './state/tables.ts';
@@ -91,7 +91,7 @@ async function changeMention(
       confirmed_by: type === 'unlinked' ? null : who.actor,
       updated_at: at.toISOString(),
     });
-    const eventId = await commitEvent(cs, {
+    const eventId = await commitWritten(cs, {
       type,
       actor: who.actor,
       at,
@@ -157,7 +157,7 @@ export async function withdrawContract(
       });
     }
     await cs.update('contract', contractId, { status: 'withdrawn', updated_at: at.toISOString() });
-    const eventId = await commitEvent(cs, {
+    const eventId = await commitWritten(cs, {
       type: 'withdrawn',
       actor: who.actor,
       at,

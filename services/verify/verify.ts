@@ -7,6 +7,7 @@ import type { Kysely } from 'kysely';
 import type { Database } from '../../db/types.ts';
 import { INVARIANT_CHECKS, type Violation } from './invariants.ts';
 import { checkReplay } from './replay-check.ts';
+import { REANALYSE_COMMAND, STALE_CHECK, staleAnalysisFinding, staleNameIdsOf } from './stale-analyses.ts';
 import { countRows } from '../../db/queries/invariant-reads.ts';
 import { countOf } from '../cli/count-words.ts';
 
@@ -44,9 +45,11 @@ async function verifyIn(db: Kysely<Database>, options: VerifyOptions): Promise<V
   const report = (check: string, violations: Violation[]) =>
     checks.push({ check, ok: violations.length === 0, violationCount: violations.length, violations: violations.slice(0, limit) });
   for (const [name, run] of Object.entries(INVARIANT_CHECKS)) report(name, await run(db));
+  const stale = await staleAnalysisFinding(db, limit);
+  checks.push({ check: STALE_CHECK, ok: stale.count === 0, violationCount: stale.count, violations: stale.violations });
   let replayedEvents: number | null = null;
   if (options.replay !== false) {
-    const replay = await checkReplay(db);
+    const replay = await checkReplay(db, stale.count === 0 ? new Set() : await staleNameIdsOf(db));
     replayedEvents = replay.events;
     report('replay_differs', replay.violations);
   }
@@ -67,6 +70,7 @@ export const CHECK_HOLDS: Record<string, string> = {
   review_decision_not_reflected: 'every decided review item has its recorded decision, history and effect',
   ingest_counts_do_not_reconcile: 'every finished ingest run accounts for each row it read',
   canonical_name_rule: 'every canonical name no person set is the one the canonical-value rules choose',
+  [STALE_CHECK]: `every name's stored analysis and blocking keys are of the current analysis version (else: ${REANALYSE_COMMAND})`,
   replay_differs: 'replaying the history from empty gives the register as it is',
 };
 

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sql } from 'kysely';
 import { migrateToLatest, createMigrator, REQUIRED_EXTENSIONS } from '../../db/migrate.ts';
 import { describeEachBackend, describePostgres, openTestDatabase, type TestDatabase } from '../support/database.ts';
-import { schemaSnapshot } from './schema-snapshot.ts';
+import { schemaSnapshot } from './support.ts';
 
 describeEachBackend('migrations', (ctx) => {
   it('migrating an up-to-date database again applies nothing and changes no schema', async () => {

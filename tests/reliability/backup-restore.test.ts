@@ -7,13 +7,12 @@ import { existsSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { dumpAllTables } from './support.ts';
-import { openDatabase } from '../../db/open-database.ts';
 import { createRegisterContext } from '../../services/register/index.ts';
 import { createApiKey } from '../../services/api/auth/keys.ts';
 import { verifyRegister } from '../../services/verify/index.ts';
 import { seededRandom } from '../../resolvers/prng.ts';
-import { runWorkload } from '../services/register/workload.ts';
-import { createMigratedDataDir, makeTempDir, removeTempDir } from '../support/index.ts';
+import { runWorkload } from '../services/register/support.ts';
+import { createMigratedDataDir, makeTempDir, removeTempDir, withTestDatabase } from '../support/index.ts';
 import { runCli } from '../support/cli.ts';
 
 describe('cpreg backup / restore (embedded)', () => {
@@ -23,11 +22,15 @@ describe('cpreg backup / restore (embedded)', () => {
   beforeAll(async () => {
     work = makeTempDir('cpreg-backup-');
     source = await createMigratedDataDir();
-    const opened = await openDatabase(source, { command: 'backup test' });
-    await runWorkload(createRegisterContext(opened.db), seededRandom(4242), 40, 'b');
-    await createApiKey(opened.db, { scope: 'admin', label: 'backup test key' });
-    original = await dumpAllTables(opened.db);
-    await opened.close();
+    original = await withTestDatabase(
+      { at: source },
+      async (opened) => {
+        await runWorkload(createRegisterContext(opened.db), seededRandom(4242), 40, 'b');
+        await createApiKey(opened.db, { scope: 'admin', label: 'backup test key' });
+        return dumpAllTables(opened.db);
+      },
+      { command: 'backup test' },
+    );
   }, 180_000);
   afterAll(() => {
     removeTempDir(work);
@@ -44,17 +47,18 @@ describe('cpreg backup / restore (embedded)', () => {
     const restore = await runCli(['restore', file, '--db', target]);
     expect(restore.stderr).toBe('');
     expect(restore.code).toBe(0);
-    const copy = await openDatabase(target, { command: 'backup test' });
-    try {
-      // The history and the register really hold something (otherwise equality proves little).
-      expect(original.history_event!.length).toBeGreaterThan(20);
-      expect(original.api_key!.length).toBe(1);
-      expect(await dumpAllTables(copy.db)).toEqual(original);
-      const report = await verifyRegister(copy.db);
-      expect(report.checks.filter((c) => !c.ok)).toEqual([]);
-    } finally {
-      await copy.close();
-    }
+    await withTestDatabase(
+      { at: target },
+      async (copy) => {
+        // The history and the register really hold something (otherwise equality proves little).
+        expect(original.history_event!.length).toBeGreaterThan(20);
+        expect(original.api_key!.length).toBe(1);
+        expect(await dumpAllTables(copy.db)).toEqual(original);
+        const report = await verifyRegister(copy.db);
+        expect(report.checks.filter((c) => !c.ok)).toEqual([]);
+      },
+      { command: 'backup test' },
+    );
   }, 180_000);
 
   it('refuses to restore over a non-empty directory without --force, replaces it with --force', async () => {
@@ -65,27 +69,21 @@ describe('cpreg backup / restore (embedded)', () => {
       const refused = await runCli(['restore', file, '--db', occupied]);
       expect(refused.code).toBe(1);
       expect(refused.stderr).toMatch(/is not empty: restore refuses to overwrite a database; pass --force/);
-      const before = await openDatabase(occupied, { command: 'backup test' });
-      expect(
-        Number(
-          (
-            await before.db
-              .selectFrom('history_event')
-              .select((eb) => eb.fn.countAll<number>().as('n'))
-              .executeTakeFirstOrThrow()
-          ).n,
-        ),
-      ).toBe(0);
-      await before.close();
+      const events = await withTestDatabase(
+        { at: occupied },
+        (before) =>
+          before.db
+            .selectFrom('history_event')
+            .select((eb) => eb.fn.countAll<number>().as('n'))
+            .executeTakeFirstOrThrow(),
+        { command: 'backup test' },
+      );
+      expect(Number(events.n)).toBe(0);
       const forced = await runCli(['restore', file, '--db', occupied, '--force']);
       expect(forced.stderr).toBe('');
       expect(forced.code).toBe(0);
-      const after = await openDatabase(occupied, { command: 'backup test' });
-      try {
-        expect(await dumpAllTables(after.db)).toEqual(original);
-      } finally {
-        await after.close();
-      }
+      const restored = await withTestDatabase({ at: occupied }, (after) => dumpAllTables(after.db), { command: 'backup test' });
+      expect(restored).toEqual(original);
     } finally {
       removeTempDir(occupied);
     }

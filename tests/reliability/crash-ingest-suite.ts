@@ -10,7 +10,7 @@ import { spawn } from 'node:child_process';
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, afterEach, beforeAll, beforeEach, expect, it } from 'vitest';
-import { openDatabase, type OpenedDatabase } from '../../db/open-database.ts';
+import type { OpenedDatabase } from '../../db/open-database.ts';
 import { seededRandom } from '../../resolvers/prng.ts';
 import { CPREG_BIN, REPO_ROOT, childEnv, runCli } from '../support/cli.ts';
 import {
@@ -19,7 +19,9 @@ import {
   dropPostgresCopy,
   describePostgres,
   makeTempDir,
+  openTestDatabase,
   removeTempDir,
+  withTestDatabase,
   type TestBackend,
 } from '../support/index.ts';
 import { describe } from 'vitest';
@@ -106,7 +108,7 @@ export function crashIngestSuite(backend: TestBackend): void {
     beforeAll(async () => {
       dir = makeTempDir('cpreg-crash-');
       target = backend === 'postgres' ? await createPostgresCopy() : await createMigratedDataDir();
-      if (backend === 'postgres') poller = await openDatabase(target, { command: 'crash test' });
+      if (backend === 'postgres') poller = await openTestDatabase({ at: target }, { command: 'crash test' });
     }, 120_000);
     afterAll(async () => {
       await poller?.close();
@@ -192,16 +194,17 @@ export function crashIngestSuite(backend: TestBackend): void {
       expect(outcomes).toBe(size);
       expect(summary.counts.rejected ?? 0).toBe(0);
 
-      const opened = await openDatabase(target, { command: 'crash test' });
-      try {
-        const rows = await opened.db.selectFrom('mention').select('external_id').where('source', '=', 'crash').execute();
-        expect(rows.length).toBe(size);
-        const ids = new Set(rows.map((r) => r.external_id));
-        expect(ids.size).toBe(size);
-        for (let i = 0; i < size; i += Math.max(1, Math.floor(size / 500))) expect(ids.has(`row-${i}`)).toBe(true);
-      } finally {
-        await opened.close();
-      }
+      const rows = await withTestDatabase(
+        { at: target },
+        (opened) => opened.db.selectFrom('mention').select('external_id').where('source', '=', 'crash').execute(),
+        {
+          command: 'crash test',
+        },
+      );
+      expect(rows.length).toBe(size);
+      const ids = new Set(rows.map((r) => r.external_id));
+      expect(ids.size).toBe(size);
+      for (let i = 0; i < size; i += Math.max(1, Math.floor(size / 500))) expect(ids.has(`row-${i}`)).toBe(true);
       const verify = await runCli(['verify', '--db', target, '--json', '--limit', '5'], { timeoutMs: 600_000, signal });
       expect(verify.code, verify.stdout.slice(0, 3000) + verify.stderr).toBe(0);
       process.stdout.write(

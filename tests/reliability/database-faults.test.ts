@@ -9,7 +9,7 @@ import pg from 'pg';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { runCli, startServe, childEnv, type ServerProcess } from '../support/cli.ts';
 import { describePostgres } from '../support/index.ts';
-import { ownPostgresUnavailable, startOwnPostgres, type OwnPostgres } from './own-postgres.ts';
+import { ownPostgresUnavailable, startOwnPostgres, type OwnPostgres } from './support.ts';
 
 const DB_TIMEOUT_MS = 1500;
 describePostgres(

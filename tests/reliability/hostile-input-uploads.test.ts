@@ -5,12 +5,12 @@
  * allows any bytes) is refused as unsafe_path while the rest of the archive is imported: its raw name once went
  * into the job's stored result, which PostgreSQL jsonb cannot hold, and the whole upload failed ("unsupported Unicode
  * escape sequence"), so a file could never be imported. An entry marked UTF-8 whose name bytes are not UTF-8 is
- * refused too: its name was stored with U+FFFD as the contract's external id. The contract text is invented (documents.ts).
+ * refused too: its name was stored with U+FFFD as the contract's external id. The contract text is invented (tests/services/contract-files/support.ts).
  */
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { describeEachBackend } from '../support/index.ts';
 import { zipSync } from 'fflate';
-import { inventedContract, zipOf } from '../services/contract-files/documents.ts';
+import { inventedContract, zipOf } from '../services/contract-files/support.ts';
 import { keyedApp, type KeyedApp } from '../services/api/support.ts';
 
 describeEachBackend('hostile archives through the contract upload route', (t) => {

@@ -21,7 +21,7 @@ import type { InjectOptions, LightMyRequestResponse } from 'fastify';
 import { createRegisterContext, resolveMention, stateSnapshot } from '../../services/register/index.ts';
 import { describeEachBackend } from '../support/index.ts';
 import { keyedApp, type KeyedApp } from '../services/api/support.ts';
-import { liveRoutes, type LiveRoute } from './route-table.ts';
+import { liveRoutes, type LiveRoute } from './support.ts';
 import { MULTIPART_UNREADABLE, NOT_UTF8, NOT_UTF8_IN_URL, hostileMatrix, type HostileCase, type OpenApiDoc } from './hostile-matrix.ts';
 
 const RUNS_PER_ROUTE = process.env.CPREG_LONG === '1' ? 60 : 12;

@@ -10,7 +10,7 @@
  * values that name nothing (ids that do not exist), so that an input refused by mistake for another reason
  * could not change anything either.
  */
-import type { LiveRoute } from './route-table.ts';
+import type { LiveRoute } from './support.ts';
 import { INSTANT_PATTERN } from '../../services/api/routes/v1/instant-query.ts';
 
 interface Schema {

@@ -8,10 +8,9 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { seededRandom } from '../../resolvers/prng.ts';
 import { createRegisterContext, mergeCounterparties, resolveMention, type RegisterContext } from '../../services/register/index.ts';
 import { verifyRegister, type VerifyReport } from '../../services/verify/index.ts';
-import { createMigratedDataDir, describeEachBackend, removeTempDir } from '../support/index.ts';
+import { createMigratedDataDir, describeEachBackend, removeTempDir, withTestDatabase } from '../support/index.ts';
 import { runCli } from '../support/cli.ts';
-import { openDatabase } from '../../db/open-database.ts';
-import { runWorkload } from '../services/register/workload.ts';
+import { runWorkload } from '../services/register/support.ts';
 
 const WHO = { actor: 'test:verify' };
 
@@ -48,6 +47,7 @@ describeEachBackend('cpreg verify', (t) => {
       'review_decision_not_reflected',
       'ingest_counts_do_not_reconcile',
       'canonical_name_rule',
+      'name_analysis_stale',
       'replay_differs',
     ]);
   });
@@ -168,20 +168,25 @@ describe('cpreg verify (command line, embedded)', () => {
   it('exits 0 on a sound register and 1 listing the violation after a planted fault', async () => {
     const dir = await createMigratedDataDir();
     try {
-      const opened = await openDatabase(dir, { command: 'verify test' });
-      await resolveMention(createRegisterContext(opened.db), { source: 'cli', externalId: '1', text: 'Ferncastle Mouldings Ltd' }, WHO);
-      await opened.close();
+      await withTestDatabase(
+        { at: dir },
+        (opened) => resolveMention(createRegisterContext(opened.db), { source: 'cli', externalId: '1', text: 'Ferncastle Mouldings Ltd' }, WHO),
+        { command: 'verify test' },
+      );
       const good = await runCli(['verify', '--db', dir, '--json']);
       expect(good.stderr).toBe('');
       expect(good.code).toBe(0);
       expect(JSON.parse(good.stdout)).toMatchObject({ ok: true, counts: { counterparties: 1, mentions: 1 } });
 
-      const again = await openDatabase(dir, { command: 'verify test' });
-      await again.db
-        .insertInto('ingest_run')
-        .values({ source: 'cli', actor: 'test', status: 'finished', counts: JSON.stringify({ read: 2, linked: 1 }) })
-        .execute();
-      await again.close();
+      await withTestDatabase(
+        { at: dir },
+        (again) =>
+          again.db
+            .insertInto('ingest_run')
+            .values({ source: 'cli', actor: 'test', status: 'finished', counts: JSON.stringify({ read: 2, linked: 1 }) })
+            .execute(),
+        { command: 'verify test' },
+      );
       const bad = await runCli(['verify', '--db', dir]);
       expect(bad.code).toBe(1);
       expect(bad.stdout).toContain('FAIL: every finished ingest run accounts for each row it read: not so for 1 case (ingest_counts_do_not_reconcile)');

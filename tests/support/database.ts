@@ -64,10 +64,27 @@ export function pgliteTemplate(): Blob {
 }
 
 /**
+ * An existing database a test opens again (a directory a command wrote, the URL of a copy for a second connection):
+ * opened as it is and only closed, never dropped (its owner removes it).
+ */
+export interface ExistingDatabase {
+  at: string;
+}
+
+/**
  * A fresh migrated database: PGlite in memory loaded from the template dump (about half a second),
  * or a PostgreSQL database copied from the run's template. close() also drops the PostgreSQL copy.
+ * Given `{ at }`, the existing database there instead. Tests open databases only through this module
+ * (tests/conventions/test-support.test.ts), so that each one is closed the same way.
  */
-export async function openTestDatabase(backend: TestBackend, options: Omit<OpenDatabaseOptions, 'loadDataDir'> = {}): Promise<TestDatabase> {
+export async function openTestDatabase(backend: TestBackend, options?: Omit<OpenDatabaseOptions, 'loadDataDir'>): Promise<TestDatabase>;
+export async function openTestDatabase(existing: ExistingDatabase, options?: OpenDatabaseOptions): Promise<OpenedDatabase>;
+export async function openTestDatabase(source: TestBackend | ExistingDatabase, options: OpenDatabaseOptions = {}): Promise<OpenedDatabase> {
+  if (typeof source === 'object') return openDatabase(source.at, options);
+  return openFreshCopy(source, options);
+}
+
+async function openFreshCopy(backend: TestBackend, options: Omit<OpenDatabaseOptions, 'loadDataDir'>): Promise<TestDatabase> {
   if (backend === 'pglite') {
     const opened = await openDatabase('memory:', { ...options, loadDataDir: pgliteTemplate() });
     return { ...opened, backend };
@@ -172,13 +189,26 @@ export function describePostgres(title: string, fn: () => void, options: { unava
   (skip ? describe.skip : describe)(title, fn);
 }
 
-/** A migrated database (see openTestDatabase) for the length of `work`, closed (and dropped on PostgreSQL) however `work` ends. */
+/**
+ * A database (see openTestDatabase: a fresh migrated copy, or `{ at }` an existing one) for the length of `work`,
+ * closed (a fresh PostgreSQL copy also dropped) however `work` ends.
+ */
 export async function withTestDatabase<T>(
   backend: TestBackend,
   work: (database: TestDatabase) => Promise<T>,
-  options: Omit<OpenDatabaseOptions, 'loadDataDir'> = {},
+  options?: Omit<OpenDatabaseOptions, 'loadDataDir'>,
+): Promise<T>;
+export async function withTestDatabase<T>(
+  existing: ExistingDatabase,
+  work: (database: OpenedDatabase) => Promise<T>,
+  options?: OpenDatabaseOptions,
+): Promise<T>;
+export async function withTestDatabase<T>(
+  source: TestBackend | ExistingDatabase,
+  work: (database: OpenedDatabase) => Promise<T>,
+  options: OpenDatabaseOptions = {},
 ): Promise<T> {
-  const database = await openTestDatabase(backend, options);
+  const database = typeof source === 'object' ? await openTestDatabase(source, options) : await openFreshCopy(source, options);
   try {
     return await work(database);
   } finally {

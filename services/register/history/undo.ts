@@ -16,7 +16,7 @@ import { RegisterError } from '../errors.ts';
 import { write, pgErrorCode } from '../transaction.ts';
 import { applyInverse, StateDriftError } from '../state/apply.ts';
 import type { Op } from '../state/change-set.ts';
-import { commitEvent, type EventPayload } from './commit.ts';
+import { commitWritten, type EventPayload } from './commit.ts';
 import type { Transaction } from 'kysely';
 import type { Database } from '../../../db/types.ts';
 
@@ -94,7 +94,7 @@ export async function undoEvent(ctx: RegisterContext, eventId: number, who: Acto
       }
       throw error;
     }
-    const undoId = await commitEvent(
+    const undoId = await commitWritten(
       cs,
       {
         type: 'undone',

@@ -10,7 +10,7 @@ import type { Identifier } from '../../../resolvers/vocabulary.ts';
 import { candidateDetailsWithTokenCounts, type CandidateDetail } from '../../../db/queries/blocking-keys.ts';
 import { listOwnEntities, type OwnEntityView } from '../../../db/queries/own-entities.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
-import { analyse } from './analysis.ts';
+import { candidateAnalysis } from './analysis.ts';
 import { DF_CAP, NO_BASIS, rarityCounts, rarityOfCounts, type RarityBasis, type RarityCounts, type RarityReads } from './idf.ts';
 import { keysOfAnalysis } from './keys.ts';
 
@@ -108,7 +108,7 @@ export class BatchReads implements RarityReads {
     // The token counts scoring will ask for: the probes' tokens and those of every candidate name; read now only
     // when an analysis gave a token its stored name's words lack (a name stored by another analysis version).
     for (const list of found) {
-      for (const cp of list) for (const n of cp.names) for (const t of analyse(n.name, cp.jurisdiction).tokens) tokens.add(t);
+      for (const cp of list) for (const n of cp.names) for (const t of candidateAnalysis(n.name, cp.jurisdiction, n.stored).tokens) tokens.add(t);
     }
     await this.frequencies(tokens);
   }

@@ -8,7 +8,7 @@ import { scorePair, type MatchModel, type PairScore } from '../../../resolvers/s
 import type { Identifier } from '../../../resolvers/vocabulary.ts';
 import { candidateDetails, type CandidateDetail } from '../../../db/queries/blocking-keys.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
-import { analyse } from './analysis.ts';
+import { candidateAnalysis } from './analysis.ts';
 import type { BatchReads } from './batch-reads.ts';
 import { idfFor } from './idf.ts';
 import { scoreUpperBound } from './bound.ts';
@@ -172,7 +172,7 @@ class ScoringState {
       id: cp.counterpartyId,
       canonicalName: cp.canonicalName,
       jurisdiction: cp.jurisdiction,
-      names: cp.names.map((n) => ({ name: n.name, former: n.kind === 'former', analysis: analyse(n.name, cp.jurisdiction) })),
+      names: cp.names.map((n) => ({ name: n.name, former: n.kind === 'former', analysis: candidateAnalysis(n.name, cp.jurisdiction, n.stored) })),
       identifiers: cp.identifiers.map((i) => ({ scheme: i.scheme, value: i.value, ...(i.label ? { label: i.label } : {}) }) as Identifier),
     }));
     const tokens = analysed.length === 0 ? [] : [probe.analysis.tokens, ...analysed.flatMap((a) => a.names.map((n) => n.analysis.tokens))].flat();

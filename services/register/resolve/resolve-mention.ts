@@ -19,7 +19,7 @@ export type { ResolveWithinOptions } from '../walk.ts';
 
 /**
  * The whole resolution inside an open ChangeSet: the walk of one mention, its stages run in this ChangeSet, its rows
- * and its event written at one flush (at the caller's flush when the ChangeSet is already buffering). Used by the
+ * and its event written at one flush (after a flush of what the caller wrote before, so that its reads see it). Used by the
  * public resolveMention and by contracts, reresolve and review.
  */
 export async function resolveWithin(

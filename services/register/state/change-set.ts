@@ -3,25 +3,33 @@
  * changes rows, and records each change as a row image (Op, state/ops.ts). The ops then become the payload of one
  * history event (history/commit.ts), which is what makes replay from empty and exact undo possible.
  *
- * Parts: the rows it holds (state/row-cache.ts), the ids drawn beforehand for its new rows, and, while buffering,
- * the write buffer (state/write-buffer.ts) that reaches the database in a few set-based statements at `flush`.
- * The SQL is in db/queries/state-writes.ts.
+ * One write path: inserts, updates and events change the cached images and record their ops at once, and reach
+ * the database at the next `flush`, in a few set-based statements (state/write-buffer.ts). A writer flushes before
+ * a read of its own that could miss what it wrote, and to learn the real id of a name or an event it answers
+ * (`realId`); the transaction wrapper (transaction.ts) flushes before every commit. Two changes write the buffer at
+ * once because the database keeps rows derived from them: a name whose text or owner changes (its blocking keys
+ * follow, state/derived.ts) and a delete (written after the buffer, its derived rows first).
+ *
+ * Parts: the rows it holds (state/row-cache.ts), the ids of its new rows (state/id-pools.ts), the explanations
+ * (state/explanations.ts) and the write buffer. The SQL is in db/queries/state-writes.ts.
  */
 import type { Kysely, Transaction } from 'kysely';
 import type { Database } from '../../../db/types.ts';
-import { deleteById, drawIds, drawIdsAndLock, insertReturning, lockNamesOf, lockRows, nextId, updateById } from '../../../db/queries/state-writes.ts';
-import { explanationBodies, insertExplanation } from '../../../db/queries/explanations.ts';
+import { deleteById, drawIds, drawIdsAndLock, lockNamesOf, lockRows, nextId } from '../../../db/queries/state-writes.ts';
 import { deepEqual } from './deep-equal.ts';
 import { syncDerived, type DerivedContext } from './derived.ts';
+import { Explanations } from './explanations.ts';
+import { IdPools, type IdTable } from './id-pools.ts';
 import { asJsonb, jsonbImage } from './jsonb-image.ts';
 import { refsOf, touchedBy, type Op } from './ops.ts';
 import { RowCache } from './row-cache.ts';
-import { canonicalPatch, canonicalRow, toDbValues, type Row, type StateRow, type StateTable, type StateValues } from './tables.ts';
-import { TEMP_ID_BASE, WriteBuffer, type BufferedEvent } from './write-buffer.ts';
+import { canonicalPatch, canonicalRow, type Row, type StateRow, type StateTable, type StateValues } from './tables.ts';
+import { WriteBuffer, type BufferedEvent } from './write-buffer.ts';
 
 export type { Op } from './ops.ts';
 export { touchedBy } from './ops.ts';
 export type { BufferedEvent } from './write-buffer.ts';
+export type { IdTable } from './id-pools.ts';
 
 export type Db = Kysely<Database> | Transaction<Database>;
 
@@ -30,28 +38,21 @@ function isNameRow(table: StateTable, _row: object): _row is StateRow<'counterpa
   return table === 'counterparty_name';
 }
 
-/** Tables whose ids a ChangeSet draws beforehand: the state tables and the history (events, explanations). */
-export type IdTable = StateTable | 'history_event' | 'explanation';
-
 export class ChangeSet {
   readonly ops: Op[] = [];
   /** Merged id → survivor, as found while locking (records.ts lockActive). */
   readonly aliases = new Map<number, number>();
   private readonly cache = new RowCache();
-  /** Buffered mode (the resolve path): set by `startBuffering`, written by `flush`. */
-  private buffer: WriteBuffer | null = null;
-  /** Ids reserved for new rows, per table, taken in order (buffered or not). */
-  private pools = new Map<IdTable, number[]>();
-  private nextTemp = TEMP_ID_BASE;
-  /** Real ids of temporary ids already written. */
-  private readonly realIds = new Map<number, number>();
-  /** Bodies of the explanations this ChangeSet stored or read, by id (as jsonb keeps them). */
-  private readonly explanations = new Map<number, Row>();
+  private readonly buffer = new WriteBuffer();
+  private readonly ids = new IdPools();
+  private readonly explanations: Explanations;
 
   constructor(
     readonly trx: Transaction<Database>,
     private readonly derived: DerivedContext,
-  ) {}
+  ) {
+    this.explanations = new Explanations(trx);
+  }
 
   /**
    * Locks rows (SELECT … FOR UPDATE, in id order so that two transactions never wait on each other in a cycle)
@@ -66,34 +67,14 @@ export class ChangeSet {
     return wanted.map((id) => this.cache.get(table, id)).filter((r): r is StateRow<T> => r !== undefined);
   }
 
-  get buffering(): boolean {
-    return this.buffer !== null;
-  }
-
-  /**
-   * Buffered mode: inserts and updates change the cached images and record their ops at once, and reach the
-   * database in a few set-based statements at `flush` (which the caller runs before any read of its own that
-   * could see them, and before the transaction ends).
-   */
-  startBuffering(): void {
-    this.buffer ??= new WriteBuffer();
-  }
-
-  /** Writes the buffer and leaves buffered mode. */
-  async stopBuffering(): Promise<void> {
-    await this.flush();
-    this.buffer = null;
-  }
-
   /** Draws ids for the rows this ChangeSet will insert, per table, in one statement; they are used in order. */
   async reserveIds(counts: Partial<Record<IdTable, number>>): Promise<void> {
-    const drawn = await drawIds(this.trx, new Map(Object.entries(counts) as [IdTable, number][]));
-    for (const [table, ids] of drawn) this.pools.set(table, [...(this.pools.get(table) ?? []), ...ids]);
+    this.ids.add(await drawIds(this.trx, new Map(Object.entries(counts) as [IdTable, number][])));
   }
 
   /** The real id of a temporary id once it is written (any other id as it is). */
   realId(id: number): number {
-    return this.realIds.get(id) ?? id;
+    return this.ids.realId(id);
   }
 
   /**
@@ -105,7 +86,7 @@ export class ChangeSet {
     const counterparties = [...new Set(lock.counterparties)].filter((id) => !this.cache.has('counterparty', id));
     const namesOf = this.namesToLoad(lock.namesOf);
     const drawn = await drawIdsAndLock(this.trx, new Map(Object.entries(counts) as [IdTable, number][]), { counterparties, namesOf });
-    for (const [table, ids] of drawn.ids) this.pools.set(table, [...(this.pools.get(table) ?? []), ...ids]);
+    this.ids.add(drawn.ids);
     for (const r of drawn.counterparties) this.cache.set('counterparty', canonicalRow('counterparty', r));
     this.holdNames(namesOf, drawn.names);
   }
@@ -126,56 +107,52 @@ export class ChangeSet {
     for (const row of read.map((r) => canonicalRow('counterparty_name', r))) {
       // A row changed earlier by this ChangeSet keeps its cached image.
       if (!this.cache.has('counterparty_name', row.id)) this.cache.set('counterparty_name', row);
-      this.cache.trackName(row, true);
+      this.cache.trackName(this.cache.get('counterparty_name', row.id)!, true);
     }
+    // Names of theirs still in the buffer: the read did not see them.
+    for (const id of this.buffer.insertedIds('counterparty_name')) this.cache.trackName(this.cache.get('counterparty_name', id)!, true);
   }
 
-  /** All name rows of a counterparty, when this ChangeSet holds them (buffered mode; see RowCache). */
-  async namesOf(counterpartyId: number): Promise<StateRow<'counterparty_name'>[] | undefined> {
-    if (!this.buffer) return undefined;
+  /** All name rows of a counterparty, locked in one statement on first use and kept in step by every write here. */
+  async namesOf(counterpartyId: number): Promise<StateRow<'counterparty_name'>[]> {
     await this.loadNames([counterpartyId]);
     return this.cache.namesOf(counterpartyId);
   }
 
-  private async newId(table: StateTable): Promise<number> {
-    const pool = this.pools.get(table);
-    if (pool && pool.length > 0) return pool.shift()!;
-    // Names get a temporary id (drawn for real at flush) unless reserved: how many a batch adds is not known beforehand.
-    if (table === 'counterparty_name') return this.nextTemp++;
-    return nextId(this.trx, table);
-  }
-
   /**
    * Stores the explanation of a decision once and answers its id, for the mention and the review item to reference
-   * (db/queries/explanations.ts). Not a state row: like the history, it is never changed, so it records no op.
+   * (db/queries/explanations.ts); written with the buffer. Not a state row: it records no op.
    */
   async explain(body: Row): Promise<number> {
     const image = asJsonb(body) as Row;
-    const id = this.pools.get('explanation')?.shift() ?? (await nextId(this.trx, 'explanation'));
-    this.explanations.set(id, image);
-    if (this.buffer) this.buffer.explanation(id, image);
-    else await insertExplanation(this.trx, id, image);
+    const id = this.ids.take('explanation') ?? (await nextId(this.trx, 'explanation'));
+    this.explanations.keep(id, image);
+    this.buffer.explanation(id, image);
     return id;
   }
 
   /** The body of an explanation: one this ChangeSet stored or read, else read now. */
-  async explanation(id: number): Promise<Row | undefined> {
-    if (!this.explanations.has(id)) for (const [key, body] of await explanationBodies(this.trx, [id])) this.explanations.set(key, body);
-    return this.explanations.get(id);
+  explanation(id: number): Promise<Row | undefined> {
+    return this.explanations.body(id);
   }
 
-  /** Buffered mode: a history event written at the next flush, under a reserved id or a temporary one (see `realId`). */
+  /** A history event written at the next flush, under a reserved id or a temporary one (see `realId`). */
   bufferEvent(values: Row, ops: Op[]): number {
-    const pool = this.pools.get('history_event');
-    const event: BufferedEvent = { id: pool && pool.length > 0 ? pool.shift()! : this.nextTemp++, values, ops };
-    this.buffer!.event(event);
+    const event: BufferedEvent = { id: this.ids.takeOrTemporary('history_event'), values, ops };
+    this.buffer.event(event);
     return event.id;
   }
 
   /** Writes everything buffered: the rows, their derived keys and the events, in a few statements. */
   async flush(): Promise<void> {
-    if (!this.buffer || this.buffer.empty) return;
-    for (const [temp, id] of await this.buffer.write(this.trx, this.cache, this.ops)) this.realIds.set(temp, id);
+    if (this.buffer.empty) return;
+    this.ids.written(await this.buffer.write(this.trx, this.cache, this.ops));
+  }
+
+  /** The transaction for a read that must see everything this ChangeSet changed: the buffer is written first. */
+  async flushed(): Promise<Transaction<Database>> {
+    await this.flush();
+    return this.trx;
   }
 
   /** The current image of one row, locking it on first use. */
@@ -188,7 +165,7 @@ export class ChangeSet {
 
   /** Rows of a table inserted in the buffer and not written yet (a read of the table does not see them). */
   unwritten<T extends StateTable>(table: T): StateRow<T>[] {
-    return this.buffer ? this.buffer.insertedIds(table).map((id) => this.cache.get(table, id)!) : [];
+    return this.buffer.insertedIds(table).map((id) => this.cache.get(table, id)!);
   }
 
   /** The image of a row this ChangeSet already read or wrote, without a query. */
@@ -202,28 +179,20 @@ export class ChangeSet {
     return row;
   }
 
+  /** A new row, with its id: reserved, or drawn now (a name with none reserved: temporary until the flush). */
   async insert<T extends StateTable>(table: T, values: StateValues<T>): Promise<StateRow<T>> {
-    if (this.buffer) {
-      const id = await this.newId(table);
-      const row = canonicalRow(table, jsonbImage(table, { ...values, id }));
-      this.cache.set(table, row);
-      this.buffer.insert(table, id);
-      this.ops.push({ op: 'insert', table, row });
-      if (table === 'counterparty') this.cache.holdNamesOf(id);
-      if (isNameRow(table, row)) {
-        this.cache.trackName(row, true);
-        this.buffer.nameKeys([...new Set(this.derived.nameKeys(row))], row.counterparty_id, id);
-      }
-      return row;
-    }
-    const reserved = this.pools.get(table)?.shift();
-    const given = reserved === undefined ? values : { ...values, id: reserved };
-    const row = canonicalRow(table, await insertReturning(this.trx, table, toDbValues(table, given)));
+    const id = table === 'counterparty_name' ? this.ids.takeOrTemporary(table) : (this.ids.take(table) ?? (await nextId(this.trx, table)));
+    const row = canonicalRow(table, jsonbImage(table, { ...values, id }));
     this.cache.set(table, row);
-    const op: Op = { op: 'insert', table, row };
-    this.ops.push(op);
-    if (isNameRow(table, row)) this.cache.trackName(row, true);
-    await syncDerived(this.trx, op, this.derived);
+    this.buffer.insert(table, id);
+    this.ops.push({ op: 'insert', table, row });
+    if (table === 'counterparty') this.cache.holdNamesOf(id);
+    if (isNameRow(table, row)) {
+      this.cache.trackName(row, true);
+      this.buffer.nameKeys([...new Set(this.derived.nameKeys(row))], row.counterparty_id, id);
+      const stored = this.derived.nameAnalysis(row.name, (await this.get('counterparty', row.counterparty_id))?.jurisdiction ?? null);
+      this.buffer.nameAnalysis({ name_id: id, analysis: stored.analysis, analysis_version: stored.version, country: stored.country });
+    }
     return row;
   }
 
@@ -242,36 +211,36 @@ export class ChangeSet {
     if (Object.keys(after).length === 0) return current;
     const op: Op = { op: 'update', table, id, before, after, refs: refsOf(table, current) };
     const row: StateRow<T> = { ...current, ...after };
-    // A name's text or owner changes its derived keys: written at once (after the buffer).
-    const immediate = table === 'counterparty_name' && ('name' in after || 'normalised' in after || 'counterparty_id' in after);
-    if (this.buffer && !immediate) {
-      this.cache.set(table, row);
-      this.buffer.update(table, id, after);
-      this.ops.push(op);
-      return row;
-    }
-    await this.flush();
-    await updateById(this.trx, table, id, toDbValues(table, after));
     this.cache.set(table, row);
     if (isNameRow(table, current) && isNameRow(table, row) && 'counterparty_id' in after) {
       this.cache.trackName(current, false);
       this.cache.trackName(row, true);
     }
+    this.buffer.update(table, id, after);
     this.ops.push(op);
-    await syncDerived(this.trx, op, this.derived);
+    // A name's text or owner changes its blocking keys, which the database keeps, and a counterparty's jurisdiction
+    // its names' stored analyses: written now, and the derived rows follow.
+    const derivedFollows =
+      (table === 'counterparty_name' && ('name' in after || 'normalised' in after || 'counterparty_id' in after)) ||
+      (table === 'counterparty' && 'jurisdiction' in after);
+    if (derivedFollows) {
+      await this.flush();
+      await syncDerived(this.trx, op, this.derived);
+      return this.cache.get(table, this.realId(id))!;
+    }
     return row;
   }
 
+  /** Deletes a row: derived rows and the buffer's own rows may refer to it, so the buffer is written first. */
   async delete<T extends StateTable>(table: T, id: number): Promise<StateRow<T>> {
-    // Derived rows and the buffer's own rows may refer to it: write the buffer first.
     await this.flush();
-    const current = await this.require(table, id);
+    const current = await this.require(table, this.realId(id));
     if (isNameRow(table, current)) this.cache.trackName(current, false);
     const op: Op = { op: 'delete', table, row: current };
     // Derived rows go first: they reference the row being deleted.
     await syncDerived(this.trx, op, this.derived);
-    await deleteById(this.trx, table, id);
-    this.cache.delete(table, id);
+    await deleteById(this.trx, table, current.id);
+    this.cache.delete(table, current.id);
     this.ops.push(op);
     return current;
   }

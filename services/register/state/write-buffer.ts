@@ -17,13 +17,11 @@ import {
   type SetWrite,
 } from '../../../db/queries/state-writes.ts';
 import { insertExplanations } from '../../../db/queries/explanations.ts';
+import { upsertNameAnalysesWrite, type NameAnalysisRow } from '../../../db/queries/name-analysis.ts';
+import { isTemporaryId } from './id-pools.ts';
 import type { Op } from './ops.ts';
 import type { RowCache } from './row-cache.ts';
 import { columnsOf, STATE_TABLES, type Row, type StateTable } from './tables.ts';
-
-/** Temporary ids sit above every real id, in the order the rows were made, so that comparing ids before and after
- * the flush gives the same answer. */
-export const TEMP_ID_BASE = 2 ** 52;
 
 /** A history event waiting in the buffer (history/commit.ts). */
 export interface BufferedEvent {
@@ -42,6 +40,7 @@ export class WriteBuffer {
   /** Changed columns of rows stored before, by table and id. */
   private updates = new Map<string, { table: StateTable; id: number; after: Row }>();
   private blockingKeys: { key: string; counterparty_id: number; name_id: number }[] = [];
+  private analyses: NameAnalysisRow[] = [];
   private events: BufferedEvent[] = [];
   private explanations: { id: number; body: Row }[] = [];
 
@@ -63,6 +62,11 @@ export class WriteBuffer {
     for (const key of keys) this.blockingKeys.push({ key, counterparty_id: counterpartyId, name_id: nameId });
   }
 
+  /** The stored analysis of a new name (derived.ts), written with it. */
+  nameAnalysis(row: NameAnalysisRow): void {
+    this.analyses.push(row);
+  }
+
   explanation(id: number, body: Row): void {
     this.explanations.push({ id, body });
   }
@@ -77,7 +81,14 @@ export class WriteBuffer {
   }
 
   get empty(): boolean {
-    return this.inserts.size === 0 && this.updates.size === 0 && this.events.length === 0 && this.blockingKeys.length === 0 && this.explanations.length === 0;
+    return (
+      this.inserts.size === 0 &&
+      this.updates.size === 0 &&
+      this.events.length === 0 &&
+      this.blockingKeys.length === 0 &&
+      this.analyses.length === 0 &&
+      this.explanations.length === 0
+    );
   }
 
   /**
@@ -87,7 +98,7 @@ export class WriteBuffer {
   async write(trx: Transaction<Database>, cache: RowCache, ops: Op[]): Promise<Map<number, number>> {
     // Events alone under temporary ids (a single resolve: its names reserved beforehand) draw their ids in the
     // write itself, one round trip fewer; otherwise every temporary id is drawn first and renamed.
-    const drawInWrite = this.events.length > 0 && this.events.every((e) => e.id >= TEMP_ID_BASE) && !this.hasTemporaryNames();
+    const drawInWrite = this.events.length > 0 && this.events.every((e) => isTemporaryId(e.id)) && !this.hasTemporaryNames();
     const map = drawInWrite ? new Map<number, number>() : await this.drawRealIds(trx, cache, ops);
     const writes: SetWrite[] = this.explanations.length > 0 ? [insertExplanations(this.explanations)] : [];
     for (const table of STATE_TABLES) {
@@ -110,6 +121,7 @@ export class WriteBuffer {
     }
     for (const { table, columns, rows } of byColumns.values()) writes.push(updateRows(table, columns, rows));
     if (this.blockingKeys.length > 0) writes.push(insertBlockingKeys(this.blockingKeys.map((k) => ({ ...k, name_id: map.get(k.name_id) ?? k.name_id }))));
+    if (this.analyses.length > 0) writes.push(upsertNameAnalysesWrite(this.analyses.map((a) => ({ ...a, name_id: map.get(a.name_id) ?? a.name_id }))));
     if (drawInWrite) {
       const rows = this.events.map((e) => ({ ...e.values, payload: { ...(e.values.payload as Row), ops: e.ops } }));
       const drawn = await runWritesReturning(trx, writes, insertDrawingIds('history_event', EVENT_COLUMNS_BUT_ID, rows));
@@ -126,19 +138,20 @@ export class WriteBuffer {
     this.inserted = new Set();
     this.updates = new Map();
     this.blockingKeys = [];
+    this.analyses = [];
     this.events = [];
     this.explanations = [];
     return map;
   }
 
   private hasTemporaryNames(): boolean {
-    return (this.inserts.get('counterparty_name') ?? []).some((id) => id >= TEMP_ID_BASE);
+    return (this.inserts.get('counterparty_name') ?? []).some(isTemporaryId);
   }
 
   /** Real ids for the temporary ids of names and events, in one statement; renames the names everywhere. */
   private async drawRealIds(trx: Transaction<Database>, cache: RowCache, ops: Op[]): Promise<Map<number, number>> {
-    const nameTemps = (this.inserts.get('counterparty_name') ?? []).filter((id) => id >= TEMP_ID_BASE);
-    const eventTemps = this.events.map((e) => e.id).filter((id) => id >= TEMP_ID_BASE);
+    const nameTemps = (this.inserts.get('counterparty_name') ?? []).filter(isTemporaryId);
+    const eventTemps = this.events.map((e) => e.id).filter(isTemporaryId);
     const map = new Map<number, number>();
     if (nameTemps.length + eventTemps.length === 0) return map;
     const drawn = await drawIds(

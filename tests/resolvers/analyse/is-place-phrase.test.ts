@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { analyseName } from '../../../resolvers/analyse/index.ts';
 import { isPlacePhrase } from '../../../resolvers/analyse/is-place-phrase.ts';
 import { normaliseTokens } from '../../../resolvers/analyse/normalise-name.ts';
-import { rorNames } from '../../services/demo/ror-names.ts';
+import { rorNames } from '../../services/demo/support.ts';
 
 const place = (s: string): boolean => isPlacePhrase(normaliseTokens(s));
 

@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { MAX_CONTRACT_BYTES, parseParties } from '../../../resolvers/terms/index.ts';
-import { grow } from './grow.ts';
+import { grow } from './support.ts';
 import { oneLine } from '../../../resolvers/terms/parse-parties.ts';
 
 const HANG_CEILING_MS = 30_000;

@@ -4,7 +4,7 @@
  */
 import { afterAll, describe, expect, it } from 'vitest';
 import { CORPUS as BASE } from './corpus/contracts.ts';
-import { checkCase } from './corpus/check-case.ts';
+import { checkCase } from './corpus/support.ts';
 import { NON_PARTY_SHAPES } from './corpus/non-party-shapes.ts';
 import { SHAPES_OF, SIGNER_SHAPES } from './corpus/signer-shapes.ts';
 import { DECLARED_NAME_SHAPES, DECLARED_SHAPES_OF } from './corpus/declared-name-shapes.ts';

@@ -10,7 +10,7 @@ import { findSigners } from '../../../resolvers/terms/find-signers.ts';
 import { findExclusions } from '../../../resolvers/terms/find-exclusions.ts';
 import { isJobTitle, jobTitleOf } from '../../../resolvers/terms/is-job-title.ts';
 import { readPersonName } from '../../../resolvers/terms/read-person-name.ts';
-import { grow } from './grow.ts';
+import { grow } from './support.ts';
 import { oneLine } from '../../../resolvers/terms/parse-parties.ts';
 
 const read = (s: string): string | null => readPersonName(s, 0, s.length)?.name ?? null;

@@ -1,12 +1,12 @@
 /**
  * POST /v1/jobs/contracts on each backend: a zip made by fflate of documents made by independent writers
- * (tests/services/contract-files/documents.ts: pdf-lib, `docx`) is imported as a partitioned job, as application/zip
+ * (tests/services/contract-files/support.ts: pdf-lib, `docx`) is imported as a partitioned job, as application/zip
  * and as multipart/form-data; GET /v1/jobs/{id} shows it staged, stored and finished with counts that reconcile;
  * a body that is no zip is 422 ARCHIVE_REFUSED and an upload over 100 MiB is 413.
  */
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { describeEachBackend } from '../../support/database.ts';
-import { docxFile, imageOnlyPdf, inventedContract, pdfLibPdf, zipOf } from '../contract-files/documents.ts';
+import { docxFile, imageOnlyPdf, inventedContract, pdfLibPdf, zipOf } from '../contract-files/support.ts';
 import { keyedApp, type KeyedApp } from './support.ts';
 import { CONTRACTS_UPLOAD_LIMIT } from '../../../services/api/routes/v1/contracts-job.ts';
 

@@ -7,7 +7,7 @@ import { afterAll, beforeAll, expect, it } from 'vitest';
 import type { FastifyInstance } from 'fastify';
 import { buildApp } from '../../../services/api/app.ts';
 import { createApiKey } from '../../../services/api/auth/keys.ts';
-import { openDatabase, type OpenedDatabase } from '../../../db/open-database.ts';
+import type { OpenedDatabase } from '../../../db/open-database.ts';
 import { describeEachBackend, describePostgres, openTestDatabase, type TestDatabase } from '../../support/database.ts';
 
 async function listen(app: FastifyInstance): Promise<string> {
@@ -119,7 +119,7 @@ describePostgres('/v1 over real HTTP: two instances [postgres]', () => {
   });
 
   it('two instances with their own pools over one database answer the same', async () => {
-    const second: OpenedDatabase = await openDatabase(database.url!);
+    const second: OpenedDatabase = await openTestDatabase({ at: database.url! });
     const other = await buildApp({ db: second.db, backend: 'postgres', rateLimitPerMinute: false });
     const otherBase = await listen(other);
     try {

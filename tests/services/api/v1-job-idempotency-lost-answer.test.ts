@@ -17,7 +17,7 @@ import { answerJobCreated } from '../../../services/api/routes/v1/answer-job-cre
 import { submitIngestJob } from '../../../services/jobs/submit-ingest.ts';
 import { submitContractsJob } from '../../../services/jobs/submit-contracts.ts';
 import type { JobQueue } from '../../../db/job-queue.ts';
-import { inventedContract, zipOf } from '../contract-files/documents.ts';
+import { inventedContract, zipOf } from '../contract-files/support.ts';
 import { keyedApp, type KeyedApp } from './support.ts';
 
 /** A queue whose process stops at its first send: nothing after it in the submission runs. */

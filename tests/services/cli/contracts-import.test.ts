@@ -1,6 +1,6 @@
 /**
  * `cpreg contracts import` as a user runs it: a folder of documents made by independent writers (pdf-lib, `docx`,
- * fflate; tests/services/contract-files/documents.ts), progress on stderr, a summary whose counts reconcile, the
+ * fflate; tests/services/contract-files/support.ts), progress on stderr, a summary whose counts reconcile, the
  * rejects file, the caution, a second run that finds everything unchanged, and a zip bomb given as the target
  * refused with a clear error.
  */
@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { runCli } from '../../support/cli.ts';
 import { createMigratedDataDir, makeTempDir, removeTempDir } from '../../support/index.ts';
-import { docxFile, encryptedPdf, inventedContract, pdfLibPdf, zipOf } from '../contract-files/documents.ts';
+import { docxFile, encryptedPdf, inventedContract, pdfLibPdf, zipOf } from '../contract-files/support.ts';
 
 // Each run starts the embedded database in a new process (several seconds on a busy machine).
 describe('cpreg contracts import', { timeout: 240_000 }, () => {

@@ -1,7 +1,7 @@
 /**
  * The console's import page in a real browser: Debian's chromium (/usr/bin/chromium, never a downloaded one) driven
  * by playwright-core against the service started in this process over an empty embedded database. Files made by
- * independent writers (tests/services/contract-files/documents.ts: pdf-lib, the `docx` package) are chosen with
+ * independent writers (tests/services/contract-files/support.ts: pdf-lib, the `docx` package) are chosen with
  * the keyboard, imported as a job, and the page shows the contracts with their parties linked to counterparties and
  * the files not imported with their reasons, at 1280×800 and 390×844. Screenshots go to test-output/console/.
  */
@@ -12,7 +12,7 @@ import { buildApp } from '../../../services/api/app.ts';
 import { createApiKey } from '../../../services/api/auth/keys.ts';
 import { openTestDatabase, type TestDatabase } from '../../support/index.ts';
 import { openConsoleBrowser, type ConsoleBrowser } from '../../support/console-browser.ts';
-import { docxFile, imageOnlyPdf, inventedContract, pdfLibPdf } from '../contract-files/documents.ts';
+import { docxFile, imageOnlyPdf, inventedContract, pdfLibPdf } from '../contract-files/support.ts';
 
 const STEP_MS = 30_000;
 

@@ -9,7 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { parseParties } from '../../../resolvers/terms/index.ts';
 import { extractDocxText, extractPdfText } from '../../../services/contract-files/extract-text.ts';
 import { DRAFTING_STYLES, generateScenario } from '../../../services/demo/scenario/index.ts';
-import { contractPdf, docxFile } from './documents.ts';
+import { contractPdf, docxFile } from './support.ts';
 
 const PER_STYLE = 3;
 

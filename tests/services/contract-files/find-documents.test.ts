@@ -1,6 +1,6 @@
 /**
  * Finding contract documents and extracting their text, checked against documents made by independent writers
- * (documents.ts names each: pdf-lib, pdfkit, the `docx` package, fflate): the parties parsed from the extracted
+ * (support.ts names each: pdf-lib, pdfkit, the `docx` package, fflate): the parties parsed from the extracted
  * text equal those parsed from the plain text of the same invented contract; hostile archives are refused entry by
  * entry, with their reasons, while the other files are read.
  */
@@ -10,7 +10,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { parseParties } from '../../../resolvers/terms/index.ts';
 import { ArchiveRefusedError, DocumentFinder, type Found } from '../../../services/contract-files/find-documents.ts';
 import { makeTempDir, removeTempDir } from '../../support/database.ts';
-import { SYMLINK_ATTRS, docxFile, encryptedPdf, imageOnlyPdf, inventedContract, pdfLibPdf, zipOf } from './documents.ts';
+import { SYMLINK_ATTRS, docxFile, encryptedPdf, imageOnlyPdf, inventedContract, pdfLibPdf, zipOf } from './support.ts';
 
 const text = inventedContract();
 const partiesOf = (t: string) => parseParties(t).parties.map((p) => ({ name: p.name, role: p.role, terms: p.terms, jurisdiction: p.jurisdiction }));

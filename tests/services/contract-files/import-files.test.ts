@@ -1,5 +1,5 @@
 /**
- * `importContractFiles` on each backend: documents made by independent writers (documents.ts: pdf-lib, `docx`,
+ * `importContractFiles` on each backend: documents made by independent writers (support.ts: pdf-lib, `docx`,
  * fflate) become contracts through the register's contract path; counts reconcile; a second import finds
  * everything unchanged; a changed file is stored again as a new version of the same contract, its history kept.
  */
@@ -9,7 +9,7 @@ import { parse } from 'csv-parse/sync';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { importContractFiles } from '../../../services/contract-files/import-files.ts';
 import { describeEachBackend, makeTempDir, removeTempDir } from '../../support/database.ts';
-import { docxFile, imageOnlyPdf, inventedContract, pdfLibPdf, zipOf } from './documents.ts';
+import { docxFile, imageOnlyPdf, inventedContract, pdfLibPdf, zipOf } from './support.ts';
 
 describeEachBackend('contract files imported', (ctx) => {
   let dir: string;

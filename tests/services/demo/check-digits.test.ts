@@ -1,7 +1,7 @@
 // The test validators themselves, checked against published examples before they judge the scenario.
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { mod97Of, validAbn, validAcn, validLei, validLuhn, validVat } from './check-digits.ts';
+import { mod97Of, validAbn, validAcn, validLei, validLuhn, validVat } from './support.ts';
 
 const worked = JSON.parse(readFileSync(new URL('../../../../shared/reference/worked-examples.json', import.meta.url), 'utf8')) as {
   lei_iso17442: { cfpb_appendix_c_worked_example: { uli: string; step3_mod97: number; lei_part: string; loan_part: string } };

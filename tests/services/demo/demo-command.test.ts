@@ -12,10 +12,10 @@ import { tmpdir } from 'node:os';
 import { parse } from 'csv-parse/sync';
 import { join } from 'node:path';
 import { LOCK_FILE_NAME } from '../../../db/lock.ts';
-import { openDatabase } from '../../../db/open-database.ts';
 import { measureAccuracy } from '../../../services/demo/accuracy.ts';
 import type { VendorMasterSummary } from '../../../services/demo/run-demo-vendors.ts';
 import { CPREG_BIN, REPO_ROOT, childEnv, runCli } from '../../support/cli.ts';
+import { withTestDatabase } from '../../support/index.ts';
 
 const BUILD_TIMEOUT_MS = 15 * 60_000;
 
@@ -107,13 +107,11 @@ describe('cpreg demo (child process)', () => {
 
   it('reports accuracy figures that truth.json and the register reproduce (recomputed here by pair enumeration)', async () => {
     const truth = JSON.parse(readFileSync(join(filesDir, 'truth.json'), 'utf8')) as TruthFile;
-    const database = await openDatabase(dbDir, { command: 'demo test' });
-    let rows: Array<{ external_id: string; status: string; counterparty_id: number | string | null }>;
-    try {
-      rows = await database.db.selectFrom('mention').select(['external_id', 'status', 'counterparty_id']).where('source', '=', 'extraction').execute();
-    } finally {
-      await database.close();
-    }
+    const rows: Array<{ external_id: string; status: string; counterparty_id: number | string | null }> = await withTestDatabase(
+      { at: dbDir },
+      (database) => database.db.selectFrom('mention').select(['external_id', 'status', 'counterparty_id']).where('source', '=', 'extraction').execute(),
+      { command: 'demo test' },
+    );
     const byId = new Map(rows.map((r) => [r.external_id, r]));
     // Independent of resolvers/evaluate: enumerate every pair of mentions that the register linked automatically.
     const linked = truth.mentions
@@ -305,16 +303,16 @@ describe('cpreg demo interrupted while building', () => {
         expect(code).toBe(130);
         expect(stderr).toContain('run the demo again');
         expect(existsSync(join(dbDir, LOCK_FILE_NAME))).toBe(false);
-        const database = await openDatabase(dbDir, { command: 'demo test' });
-        try {
-          const stored = await database.db
-            .selectFrom('contract')
-            .select((eb) => eb.fn.countAll<string>().as('n'))
-            .executeTakeFirstOrThrow();
-          expect(Number(stored.n)).toBeLessThan(300); // stopped part-way: nothing half-written, the rest on the next run
-        } finally {
-          await database.close();
-        }
+        const stored = await withTestDatabase(
+          { at: dbDir },
+          (database) =>
+            database.db
+              .selectFrom('contract')
+              .select((eb) => eb.fn.countAll<string>().as('n'))
+              .executeTakeFirstOrThrow(),
+          { command: 'demo test' },
+        );
+        expect(Number(stored.n)).toBeLessThan(300); // stopped part-way: nothing half-written, the rest on the next run
       } finally {
         rmSync(root, { recursive: true, force: true });
       }

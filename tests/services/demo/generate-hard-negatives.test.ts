@@ -1,6 +1,6 @@
 // The scale generator's hard negatives (docs/generator.md, "Hard negatives"): new entities whose original
 // names imitate another entity's and differ in one intended way only.
-import { rorNames } from './ror-names.ts';
+import { rorNames } from './support.ts';
 import { describe, expect, it } from 'vitest';
 import {
   BRANCH_CITIES,

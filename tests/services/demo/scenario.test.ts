@@ -1,10 +1,9 @@
 import { parse } from 'csv-parse/sync';
 import { isValidIBAN } from 'ibantools';
-import { rorNames } from './ror-names.ts';
 import { describe, expect, it } from 'vitest';
 import { normaliseIdentifier } from '../../../resolvers/identifiers/index.ts';
 import { generateScenario, MENTION_STYLES, DRAFTING_STYLES, splitLegalName, type Scenario } from '../../../services/demo/scenario/index.ts';
-import { validAbn, validAcn, validJpCorporateNumber, validLei, validLuhn, validVat } from './check-digits.ts';
+import { rorNames, validAbn, validAcn, validJpCorporateNumber, validLei, validLuhn, validVat } from './support.ts';
 
 const SEEDS = [1, 2, 42];
 const scenarios = new Map<number, Scenario>(SEEDS.map((s) => [s, generateScenario(s)]));

@@ -9,8 +9,7 @@
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { openDatabase } from '../../../db/open-database.ts';
-import { makeTempDir, removeTempDir } from '../../support/index.ts';
+import { makeTempDir, removeTempDir, withTestDatabase } from '../../support/index.ts';
 import { runCli } from '../../support/cli.ts';
 
 const SLOW = 180_000;
@@ -64,25 +63,26 @@ describe('cpreg ingest on a file with columns of its own', () => {
       });
       expect(again.code, again.stderr).toBe(0);
 
-      const opened = await openDatabase(db, { command: 'ingest columns test' });
-      try {
-        const rows = await opened.db
-          .selectFrom('mention')
-          .select(['external_id', 'text', 'identifiers', 'contract_external_id'])
-          .where('source', '=', 'erp-b')
-          .orderBy('external_id')
-          .execute();
-        expect(rows.map((r) => r.external_id)).toEqual(['V-1', 'V-2', 'V-3']);
-        expect(rows[0]!.text).toBe('Quillmere Fabrication AG');
-        expect(rows[0]!.contract_external_id).toBe('K-77');
-        const schemes = rows.map((r) =>
-          (r.identifiers as Array<{ scheme: string; label?: string }>).map((i) => (i.label ? `${i.scheme}/${i.label}` : i.scheme)),
-        );
-        // DE prefix → VAT; no prefix with country US → US EIN; no prefix with FR (no tax-id scheme by country) → kept, labelled.
-        expect(schemes).toEqual([['vat'], ['us_ein'], ['other/tax id']]);
-      } finally {
-        await opened.close();
-      }
+      await withTestDatabase(
+        { at: db },
+        async (opened) => {
+          const rows = await opened.db
+            .selectFrom('mention')
+            .select(['external_id', 'text', 'identifiers', 'contract_external_id'])
+            .where('source', '=', 'erp-b')
+            .orderBy('external_id')
+            .execute();
+          expect(rows.map((r) => r.external_id)).toEqual(['V-1', 'V-2', 'V-3']);
+          expect(rows[0]!.text).toBe('Quillmere Fabrication AG');
+          expect(rows[0]!.contract_external_id).toBe('K-77');
+          const schemes = rows.map((r) =>
+            (r.identifiers as Array<{ scheme: string; label?: string }>).map((i) => (i.label ? `${i.scheme}/${i.label}` : i.scheme)),
+          );
+          // DE prefix → VAT; no prefix with country US → US EIN; no prefix with FR (no tax-id scheme by country) → kept, labelled.
+          expect(schemes).toEqual([['vat'], ['us_ein'], ['other/tax id']]);
+        },
+        { command: 'ingest columns test' },
+      );
     },
     SLOW,
   );

@@ -2,7 +2,7 @@
  * A contracts job through pg-boss on PostgreSQL, its partitions taken by two job processes at once (as two
  * `cpreg worker`s would): the result reconciles, every partition is done by one of them, the customer that all the
  * contracts name is one counterparty (concurrent partitions create no duplicate), and the register verifies.
- * Documents are made by independent writers (tests/services/contract-files/documents.ts: pdf-lib, `docx`, fflate).
+ * Documents are made by independent writers (tests/services/contract-files/support.ts: pdf-lib, `docx`, fflate).
  */
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -12,7 +12,7 @@ import { startJobs } from '../../../services/jobs/start-jobs.ts';
 import { submitContractsJob } from '../../../services/jobs/submit-contracts.ts';
 import { watchJob } from '../../../services/jobs/watch-job.ts';
 import { verifyRegister } from '../../../services/verify/index.ts';
-import { docxFile, inventedContract, pdfLibPdf, zipOf } from '../contract-files/documents.ts';
+import { docxFile, inventedContract, pdfLibPdf, zipOf } from '../contract-files/support.ts';
 
 const FAST_QUEUE = { retryLimit: 1, retryDelaySeconds: 0, pollingIntervalSeconds: 0.5, maintenanceIntervalSeconds: 2, expireInSeconds: 60 };
 const SUPPLIERS = [

@@ -25,9 +25,9 @@ import { hostname } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { differingPairs, pairAgreement } from '../../../resolvers/evaluate/index.ts';
-import { openDatabase, type OpenedDatabase } from '../../../db/open-database.ts';
+import type { OpenedDatabase } from '../../../db/open-database.ts';
 import { watchJob } from '../../../services/jobs/watch-job.ts';
-import { createPostgresCopy, describePostgres, makeTempDir, removeTempDir } from '../../support/index.ts';
+import { createPostgresCopy, describePostgres, makeTempDir, openTestDatabase, removeTempDir } from '../../support/index.ts';
 import { CPREG_BIN, REPO_ROOT, childEnv, runCli, startServe, type ServerProcess } from '../../support/cli.ts';
 import { clusteringOf, generatedMentions, writeNdjson, type TruthMention } from './support.ts';
 
@@ -117,7 +117,7 @@ describePostgres('scale-out: one API and three workers on PostgreSQL [postgres]'
 
       // The reference: one worker process alone resolves the same file as one batch (a single partition), into a
       // database of its own (it runs meanwhile; this test process only watches).
-      const ref = await openDatabase(refUrl);
+      const ref = await openTestDatabase({ at: refUrl });
       opened.push(ref);
       // (Its one partition takes minutes: a longer expiry, so that the queue does not take it for lost.)
       workers.push(await startWorker(refUrl, { CPREG_QUEUE_EXPIRE_S: '3600' }));
@@ -137,7 +137,7 @@ describePostgres('scale-out: one API and three workers on PostgreSQL [postgres]'
       const jobId = ((await upload.json()) as { id: number }).id;
 
       // Kill the first worker while it is inside a partition.
-      const dist = await openDatabase(distUrl);
+      const dist = await openTestDatabase({ at: distUrl });
       opened.push(dist);
       let killed: { partitionNo: number } | undefined;
       for (let i = 0; i < 1200 && !killed; i++) {

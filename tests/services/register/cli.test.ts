@@ -3,9 +3,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { userInfo } from 'node:os';
 import { mkdirSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { createMigratedDataDir, removeTempDir } from '../../support/index.ts';
+import { createMigratedDataDir, removeTempDir, withTestDatabase } from '../../support/index.ts';
 import { runCli } from '../../support/cli.ts';
-import { openDatabase } from '../../../db/open-database.ts';
 
 // Each CLI run starts the embedded database in a new process (several seconds on a busy machine).
 describe('cpreg own-entities, sweep, reresolve', { timeout: 240_000 }, () => {
@@ -28,16 +27,13 @@ describe('cpreg own-entities, sweep, reresolve', { timeout: 240_000 }, () => {
     const removed = await runCli(['own-entities', 'remove', String(result.ownEntityId), '--db', dir, '--json']);
     expect(removed.code).toBe(0);
     expect(JSON.parse(removed.stdout)).toMatchObject({ ownEntityId: result.ownEntityId });
-    const opened = await openDatabase(dir);
-    try {
+    await withTestDatabase({ at: dir }, async (opened) => {
       const actors = await opened.db.selectFrom('history_event').select('actor').distinct().execute();
       expect(actors.map((a) => a.actor)).toEqual([`cli:${userInfo().username}`]);
       const own = await opened.db.selectFrom('own_entity').select('removed_at').execute();
       expect(own).toHaveLength(1);
       expect(own[0]!.removed_at).not.toBeNull();
-    } finally {
-      await opened.close();
-    }
+    });
   });
 
   it('sweep and reresolve print JSON summaries', async () => {
@@ -102,12 +98,9 @@ describe('cpreg own-entities, sweep, reresolve', { timeout: 240_000 }, () => {
       rmSync(folder, { recursive: true, force: true });
       rmSync(`${folder}.rejects.csv`, { force: true });
     }
-    const opened = await openDatabase(dir);
-    try {
-      const names = await opened.db.selectFrom('counterparty_name').select('name').where('name', 'like', 'Orvanel%').execute();
-      expect(names).toEqual([]);
-    } finally {
-      await opened.close();
-    }
+    const names = await withTestDatabase({ at: dir }, (opened) =>
+      opened.db.selectFrom('counterparty_name').select('name').where('name', 'like', 'Orvanel%').execute(),
+    );
+    expect(names).toEqual([]);
   });
 });

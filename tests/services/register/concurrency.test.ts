@@ -6,8 +6,8 @@
  */
 import { sql } from 'kysely';
 import { afterAll, beforeAll, expect, it } from 'vitest';
-import { openDatabase, type OpenedDatabase } from '../../../db/open-database.ts';
-import { describeEachBackend } from '../../support/index.ts';
+import type { OpenedDatabase } from '../../../db/open-database.ts';
+import { describeEachBackend, openTestDatabase } from '../../support/index.ts';
 import { createRegisterContext, mergeCounterparties, resolveMention, type RegisterError, type RegisterContext } from '../../../services/register/index.ts';
 import { WHO } from './support.ts';
 
@@ -20,7 +20,7 @@ describeEachBackend('register across instances', (t) => {
   beforeAll(async () => {
     a = createRegisterContext(t.db());
     if (t.backend === 'postgres') {
-      second = await openDatabase(t.database().url!, { poolSize: 5 });
+      second = await openTestDatabase({ at: t.database().url! }, { poolSize: 5 });
       b = createRegisterContext(second.db);
     } else {
       b = createRegisterContext(t.db());

@@ -17,8 +17,7 @@ import {
   undoEvent,
   type RegisterContext,
 } from '../../../services/register/index.ts';
-import { WHO, contextFor, expectSameState } from './support.ts';
-import { randomName, runWorkload } from './workload.ts';
+import { WHO, contextFor, expectSameState, randomName, runWorkload } from './support.ts';
 
 describeEachBackend('register history', (t) => {
   let ctx: RegisterContext;

@@ -6,7 +6,7 @@
  */
 import { expect, it } from 'vitest';
 import { describeBackends, withTestDatabase } from '../../../support/index.ts';
-import { schemaSnapshot } from '../../../db/schema-snapshot.ts';
+import { schemaSnapshot } from '../../../db/support.ts';
 import { STATE_TABLES, columnKindsOf, type ColumnKind } from '../../../../services/register/state/tables.ts';
 
 /** Which PostgreSQL types (udt_name, as information_schema writes them) each column kind stands for. */
@@ -24,7 +24,7 @@ describeBackends('state table columns', (backend) => {
   it('list every column of every state table, each with the kind its database type stores', async () => {
     await withTestDatabase(backend, async (opened) => {
       const snapshot = await schemaSnapshot(opened.db);
-      // Lines read "table.column data_type udt_name null|not null [default …]" (tests/db/schema-snapshot.ts); a data
+      // Lines read "table.column data_type udt_name null|not null [default …]" (tests/db/support.ts); a data
       // type may hold spaces ("timestamp with time zone"), the udt name does not.
       const live = new Map<string, Map<string, string>>();
       for (const line of snapshot.columns) {

@@ -1,8 +1,10 @@
-/**
+/** Helpers shared by the demo tests: check-digit validators of their own, and the names no invented name may equal. */
+import { readFileSync } from 'node:fs';
+
+/*
  * Independent check-digit validators for the scenario tests, written from the published rules (not shared
  * with the generator, so that a wrong rule in one shows up in the other).
  */
-
 /** ISO/IEC 7064 MOD 97-10 value of a string of digits and letters (A = 10 … Z = 35, case-insensitive). */
 export function mod97Of(value: string): number {
   let digits = '';
@@ -99,4 +101,17 @@ export function validJpCorporateNumber(n: string): boolean {
   let sum = 0;
   for (let i = 1; i <= 12; i++) sum += Number(base[12 - i]) * (i % 2 === 1 ? 1 : 2);
   return 9 - (sum % 9) === Number(n[0]);
+}
+
+/*
+ * The lower-cased names of ../shared/datasets/ror_org_names.csv (real research organisations, README there): the
+ * tests check that no invented name is one of them.
+ */
+export function rorNames(): Set<string> {
+  return new Set(
+    readFileSync(new URL('../../../../shared/datasets/ror_org_names.csv', import.meta.url), 'utf8')
+      .split('\n')
+      .slice(1)
+      .map((line) => (line.split(',')[1] ?? '').toLowerCase()),
+  );
 }
