@@ -43,6 +43,14 @@ export async function mentionsByRef(db: Queryable, refs: readonly MentionRef[]):
   return out;
 }
 
+/** The stored mention under one identity, as mentionsByRef reads it: a query to nest in another statement. */
+export function storedMention(ref: MentionRef) {
+  return sql<StoredMentionRow>`
+    SELECT m.*, e.body AS explanation_body FROM mention m
+    LEFT JOIN explanation e ON e.id = m.explanation_id
+    WHERE m.source = ${ref.source} AND m.external_id = ${ref.externalId}`;
+}
+
 /** The stored mention under one identity, or undefined (one statement, the bulk lookup's). */
 export async function mentionByRef(db: Queryable, ref: MentionRef): Promise<StoredMentionRow | undefined> {
   const [row] = await mentionsByRef(db, [ref]);

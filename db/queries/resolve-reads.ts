@@ -9,6 +9,7 @@ import type { Queryable } from './util.ts';
 import { id } from './util.ts';
 import { ownEntityView, type OwnEntityView } from './own-entities.ts';
 import { settingsView, type StoredSettings } from './settings.ts';
+import { storedMention, type MentionRef, type StoredMentionRow } from './mentions-by-ref.ts';
 
 /** The advisory locks on these keys, one row per lock, taken in one sorted order (a query to run or to nest). */
 function neighbourhoodLocks(keys: readonly string[]) {
@@ -21,22 +22,32 @@ export async function lockNeighbourhoodKeys(db: Queryable, keys: readonly string
 }
 
 /**
- * The neighbourhood locks of one resolution (as lockNeighbourhoodKeys) and, in the same statement, the two small
- * reads every decision needs: the matcher settings and our own entities (one round trip instead of three). These
- * two are not guarded by the name locks, so that they are read on the statement's snapshot, taken before the locks
- * are granted, changes nothing: any change to them commits on its own.
+ * The first statement of a single resolve: its neighbourhood locks (as lockNeighbourhoodKeys) and, in the same
+ * statement, what a decision needs besides its candidates: the stored mention under the resolve's (source,
+ * externalId) with the body of its explanation (as mentionsByRef reads it), the matcher settings and our own
+ * entities (one round trip instead of three). These reads are on the statement's snapshot, taken before the locks
+ * are granted, as the stored mention was when it was read by a statement of its own before the locks: none of them
+ * is guarded by the name locks (a concurrent insert of the same mention fails on its unique key and the resolve runs
+ * again; a change to the settings or to our own entities commits on its own). The candidates, which the locks guard,
+ * are read by a later statement, on a snapshot taken after the locks.
  */
 export async function lockAndReadDecisionBasics(
   db: Queryable,
   keys: readonly string[],
-): Promise<{ settings: StoredSettings | undefined; ownEntities: OwnEntityView[] }> {
-  const result = await sql<{ settings: Parameters<typeof settingsView>[0] | null; own: Parameters<typeof ownEntityView>[0][] }>`
+  ref: MentionRef,
+): Promise<{ settings: StoredSettings | undefined; ownEntities: OwnEntityView[]; stored: StoredMentionRow | undefined }> {
+  const result = await sql<{
+    settings: Parameters<typeof settingsView>[0] | null;
+    own: Parameters<typeof ownEntityView>[0][];
+    stored: StoredMentionRow | null;
+  }>`
     SELECT
       (SELECT count(*) FROM (${neighbourhoodLocks(keys)}) locked) AS locks,
+      (SELECT row_to_json(s) FROM (${storedMention(ref)}) s) AS stored,
       (SELECT row_to_json(m) FROM matcher_settings m WHERE m.id = 'current') AS settings,
       (SELECT coalesce(json_agg(row_to_json(o) ORDER BY o.id), '[]'::json) FROM own_entity o WHERE o.removed_at IS NULL) AS own`.execute(db);
   const row = result.rows[0]!;
-  return { settings: row.settings ? settingsView(row.settings) : undefined, ownEntities: row.own.map(ownEntityView) };
+  return { settings: row.settings ? settingsView(row.settings) : undefined, ownEntities: row.own.map(ownEntityView), stored: row.stored ?? undefined };
 }
 
 /** The mention of each party of a contract, by the party's position. */

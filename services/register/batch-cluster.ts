@@ -12,6 +12,7 @@ import { idfFor } from './matching/idf.ts';
 import type { BatchReads } from './matching/batch-reads.ts';
 import { scoredCandidates } from './matching/candidates.ts';
 import type { Outcome } from './resolve/decide.ts';
+import type { StoredRef } from './batch-write.ts';
 import type { PreparedMention } from './resolve/prepare.ts';
 
 /** A mention of a batch after the decide stage. */
@@ -23,6 +24,12 @@ export interface Pending {
   outcome: Outcome;
   /** The read phase found the mention stored (with another content). */
   stored: boolean;
+  /**
+   * What a single resolve knows before its write, having read its stored mention in the transaction it writes in
+   * (walk.ts `within`): whether the source sent another text, and the contract it writes. A batch finds both at
+   * its write.
+   */
+  known?: { textChanged: boolean; contractId: number | null; stored: StoredRef | null };
 }
 
 /** Mentions written together: those of one cluster, with the register counterparty it joined (if any). */

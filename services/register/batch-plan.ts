@@ -3,33 +3,37 @@
  * cluster stage (batch-cluster.ts), all in the order of each group's smallest (source, externalId); and the outcome
  * each member of a group is written with.
  */
-import type { MatchModel } from '../../resolvers/score/index.ts';
 import type { RegisterContext } from './context.ts';
-import type { BatchReads } from './matching/batch-reads.ts';
 import type { Outcome } from './resolve/decide.ts';
 import { clusterBatch, type Group, type Pending } from './batch-cluster.ts';
-import type { BatchOptions } from './batch.ts';
+import type { WalkOptions } from './walk.ts';
+import type { WalkReads } from './batch-decide.ts';
 import { timed } from './stage-times.ts';
 import { askAcrossGroups } from './batch-review.ts';
 import { jsonScore } from './matching/candidates.ts';
 
-/** The groups to write, in order, and the mentions whose outcome does not depend on the rest of the batch. */
+/**
+ * Stages 4 and 5, cluster and plan: the groups to write, in order, and the mentions whose outcome does not depend on
+ * the rest of the batch. A single resolve's one outcome is final: nothing to cluster it with.
+ */
 export async function planBatch(
   ctx: RegisterContext,
   pending: Pending[],
-  model: MatchModel,
-  reads: BatchReads,
-  options: BatchOptions,
+  read: WalkReads,
+  options: WalkOptions,
 ): Promise<{ plan: Group[]; final: Set<Pending> }> {
   const stages = options.stages;
+  const { model, reads } = read;
   // Mentions whose outcome does not depend on the rest of the batch.
   const final = new Set(
-    pending.filter(
-      (p) =>
-        !['linked', 'new', 'review'].includes(p.outcome.status) ||
-        p.outcome.evidence.via !== 'register' ||
-        p.outcome.evidence.override === 'decisive_identifier',
-    ),
+    options.within
+      ? pending
+      : pending.filter(
+          (p) =>
+            !['linked', 'new', 'review'].includes(p.outcome.status) ||
+            p.outcome.evidence.via !== 'register' ||
+            p.outcome.evidence.override === 'decisive_identifier',
+        ),
   );
   const matching = pending.filter((p) => !final.has(p));
   const { groups, reviewPairs } = await timed(stages, 'cluster', () => clusterBatch(ctx, matching, model, reads, options.comparePairs));
