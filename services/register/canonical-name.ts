@@ -23,6 +23,7 @@
  *     away and added back: a re-resolution or a partitioned writer re-creates name rows with new ids, and "the
  *     oldest" alone would then pick the variant.
  */
+import { withinOneEdit } from '../../resolvers/compare/index.ts';
 
 export interface NameCandidate {
   id: number;
@@ -32,8 +33,6 @@ export interface NameCandidate {
   seen_count: number;
   confirmed_by: string | null;
 }
-
-import { withinOneEdit } from '../../resolvers/compare/index.ts';
 
 const isFullLegal = (n: NameCandidate): boolean => (n.kind === 'legal' || n.kind === 'observed') && Boolean(n.legal_form);
 
