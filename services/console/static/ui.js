@@ -102,6 +102,15 @@ export function sectionWith(cls, title, ...children) {
   return element;
 }
 
+/**
+ * A table with one header row: `columns` are the header cells' contents (text or an element; a null one is left
+ * out), `rows` the body's rows, `attrs` extra attributes of the table (an id).
+ */
+export function dataTable(columns, rows, attrs = {}) {
+  const head = columns.filter((c) => c !== null && c !== undefined).map((c) => h('th', { scope: 'col' }, c));
+  return h('table', { class: 'table', ...attrs }, h('thead', null, h('tr', null, head)), h('tbody', null, rows));
+}
+
 /** A key/value list. */
 export function facts(pairs) {
   return h(

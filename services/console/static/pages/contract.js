@@ -1,7 +1,7 @@
 // A contract: its parties with roles, their defined terms and where each party went in the register.
 import { api } from '../api.js';
 import { h, pageTitle, replace, when } from '../dom.js';
-import { facts, section } from '../ui.js';
+import { dataTable, facts, section } from '../ui.js';
 
 // A party's status in words where no counterparty or own entity names it ("not_a_party" is no word for a screen).
 const PARTY_STATUS_WORDS = {
@@ -26,40 +26,23 @@ export async function render(main, { params }) {
     ]),
     section(
       'Parties',
-      h(
-        'table',
-        { class: 'table' },
-        h(
-          'thead',
-          null,
+      dataTable(
+        ['As written', 'Role', 'Defined as', 'In the register'],
+        c.parties.map((p) =>
           h(
             'tr',
             null,
-            h('th', { scope: 'col' }, 'As written'),
-            h('th', { scope: 'col' }, 'Role'),
-            h('th', { scope: 'col' }, 'Defined as'),
-            h('th', { scope: 'col' }, 'In the register'),
-          ),
-        ),
-        h(
-          'tbody',
-          null,
-          c.parties.map((p) =>
+            h('td', null, p.text),
+            h('td', null, p.role ?? '—'),
+            h('td', null, p.terms.length ? p.terms.map((t) => `“${t}”`).join(', ') : '—'),
             h(
-              'tr',
+              'td',
               null,
-              h('td', null, p.text),
-              h('td', null, p.role ?? '—'),
-              h('td', null, p.terms.length ? p.terms.map((t) => `“${t}”`).join(', ') : '—'),
-              h(
-                'td',
-                null,
-                p.counterpartyId
-                  ? h('a', { href: `#/counterparty/${p.counterpartyId}` }, p.canonicalName ?? `#${p.counterpartyId}`)
-                  : p.ownEntityId
-                    ? 'our own entity'
-                    : partyStatus(p.status),
-              ),
+              p.counterpartyId
+                ? h('a', { href: `#/counterparty/${p.counterpartyId}` }, p.canonicalName ?? `#${p.counterpartyId}`)
+                : p.ownEntityId
+                  ? 'our own entity'
+                  : partyStatus(p.status),
             ),
           ),
         ),

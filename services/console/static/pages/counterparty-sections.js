@@ -1,6 +1,7 @@
 // The sections of the counterparty page built from its record alone: names, identifiers, relations, contracts,
 // and the words for its legal form and scores (pages/counterparty.js puts them together).
 import { h, num, plural } from '../dom.js';
+import { dataTable } from '../ui.js';
 
 const NAME_KIND_WORDS = { legal: 'legal name', trade: 'trade name', former: 'former name', also_known_as: 'also known as', observed: 'as written' };
 
@@ -21,45 +22,28 @@ export function contractLink(contractId, label) {
 }
 
 export function namesTable(cp) {
-  return h(
-    'table',
-    { class: 'table' },
-    h(
-      'thead',
-      null,
+  return dataTable(
+    ['Name', 'Kind', 'Legal form', 'Where seen'],
+    cp.names.map((n) =>
       h(
         'tr',
         null,
-        h('th', { scope: 'col' }, 'Name'),
-        h('th', { scope: 'col' }, 'Kind'),
-        h('th', { scope: 'col' }, 'Legal form'),
-        h('th', { scope: 'col' }, 'Where seen'),
-      ),
-    ),
-    h(
-      'tbody',
-      null,
-      cp.names.map((n) =>
         h(
-          'tr',
-          null,
-          h(
-            'td',
-            { class: n.name === cp.canonicalName ? 'canonical' : null },
-            n.name,
-            n.name === cp.canonicalName ? h('span', { class: 'tag' }, 'canonical') : null,
-          ),
-          h('td', null, NAME_KIND_WORDS[n.kind] ?? n.kind),
-          h('td', null, n.legalForm ? n.legalForm.toUpperCase() : '—'),
-          h(
-            'td',
-            { class: 'where' },
-            `${plural(n.seenCount, 'time')}`,
-            n.source ? ` · ${n.source}` : '',
-            n.contractId ? [' · ', contractLink(n.contractId, cp.contracts.find((c) => c.contractId === n.contractId)?.externalId)] : '',
-            n.mentionId ? ` · mention ${n.mentionId}` : '',
-            n.confirmedBy ? ` · confirmed by ${n.confirmedBy}` : '',
-          ),
+          'td',
+          { class: n.name === cp.canonicalName ? 'canonical' : null },
+          n.name,
+          n.name === cp.canonicalName ? h('span', { class: 'tag' }, 'canonical') : null,
+        ),
+        h('td', null, NAME_KIND_WORDS[n.kind] ?? n.kind),
+        h('td', null, n.legalForm ? n.legalForm.toUpperCase() : '—'),
+        h(
+          'td',
+          { class: 'where' },
+          `${plural(n.seenCount, 'time')}`,
+          n.source ? ` · ${n.source}` : '',
+          n.contractId ? [' · ', contractLink(n.contractId, cp.contracts.find((c) => c.contractId === n.contractId)?.externalId)] : '',
+          n.mentionId ? ` · mention ${n.mentionId}` : '',
+          n.confirmedBy ? ` · confirmed by ${n.confirmedBy}` : '',
         ),
       ),
     ),
@@ -107,21 +91,15 @@ export function relationsList(cp) {
 
 export function contractsTable(cp) {
   if (cp.contracts.length === 0) return h('p', { class: 'empty' }, 'No contracts.');
-  return h(
-    'table',
-    { class: 'table' },
-    h('thead', null, h('tr', null, h('th', { scope: 'col' }, 'Contract'), h('th', { scope: 'col' }, 'Reference'), h('th', { scope: 'col' }, 'Role'))),
-    h(
-      'tbody',
-      null,
-      cp.contracts.map((c) =>
-        h(
-          'tr',
-          null,
-          h('td', null, contractLink(c.contractId, c.title ?? '(untitled)')),
-          h('td', null, h('code', null, c.externalId), h('span', { class: 'muted' }, ` ${c.source}`)),
-          h('td', null, c.roles.length ? c.roles.join(', ') : '—'),
-        ),
+  return dataTable(
+    ['Contract', 'Reference', 'Role'],
+    cp.contracts.map((c) =>
+      h(
+        'tr',
+        null,
+        h('td', null, contractLink(c.contractId, c.title ?? '(untitled)')),
+        h('td', null, h('code', null, c.externalId), h('span', { class: 'muted' }, ` ${c.source}`)),
+        h('td', null, c.roles.length ? c.roles.join(', ') : '—'),
       ),
     ),
   );

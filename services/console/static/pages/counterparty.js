@@ -2,7 +2,7 @@
 // with roles, mentions, and the history as a timeline with undo; merge and split with a confirmation.
 import { api } from '../api.js';
 import { h, pageTitle, plural, replace, when } from '../dom.js';
-import { confirmChange, errorBox, facts, section, sectionWith, toast } from '../ui.js';
+import { dataTable, confirmChange, errorBox, facts, section, sectionWith, toast } from '../ui.js';
 import { evidence, NOT_UNDOABLE, whatHappened } from '../history-words.js';
 import { jurisdictionBadge, legalFormBadge } from './search.js';
 import { contractLink, contractsTable, identifiersList, legalFormOf, namesTable, relationsList, scoreWords } from './counterparty-sections.js';
@@ -57,26 +57,10 @@ export async function render(main, { params, session, navigate }) {
   const mentionsTable = h(
     'div',
     { class: 'table-wrap' },
-    h(
-      'table',
-      { class: 'table', id: 'mentions' },
-      h(
-        'thead',
-        null,
-        h(
-          'tr',
-          null,
-          canSplit ? h('th', { scope: 'col' }, h('span', { class: 'visually-hidden' }, 'Choose')) : null,
-          h('th', { scope: 'col' }, 'As written'),
-          h('th', { scope: 'col' }, 'Legal form'),
-          h('th', { scope: 'col' }, 'Contract'),
-          h('th', { scope: 'col' }, 'Role'),
-          h('th', { scope: 'col' }, 'Status'),
-          h('th', { scope: 'col' }, 'Score'),
-          h('th', { scope: 'col' }, 'Source'),
-        ),
-      ),
-      h('tbody', null, mentionRows),
+    dataTable(
+      [canSplit ? h('span', { class: 'visually-hidden' }, 'Choose') : null, 'As written', 'Legal form', 'Contract', 'Role', 'Status', 'Score', 'Source'],
+      mentionRows,
+      { id: 'mentions' },
     ),
   );
   splitButton.addEventListener('click', async () => {

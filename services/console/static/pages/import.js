@@ -2,7 +2,7 @@
 // parties (each linked to its counterparty or to the review queue) and the files not imported with their reasons.
 import { api, apiForm } from '../api.js';
 import { h, pageTitle, plural, replace } from '../dom.js';
-import { errorBox, section } from '../ui.js';
+import { dataTable, errorBox, section } from '../ui.js';
 
 // The longest source the register takes (MAX_ID_LENGTH, resolvers/vocabulary.ts). The console is plain JavaScript
 // served as it is and cannot import the TypeScript constant: tests/services/console/console-copies.test.ts checks
@@ -53,27 +53,22 @@ function contractsTable(contracts) {
   return h(
     'div',
     { class: 'table-wrap' },
-    h(
-      'table',
-      { class: 'table', id: 'import-contracts' },
-      h('thead', null, h('tr', null, h('th', { scope: 'col' }, 'File'), h('th', { scope: 'col' }, 'Parties, as written → in the register'))),
-      h(
-        'tbody',
-        null,
-        contracts.map((c) =>
+    dataTable(
+      ['File', 'Parties, as written → in the register'],
+      contracts.map((c) =>
+        h(
+          'tr',
+          null,
           h(
-            'tr',
-            null,
-            h(
-              'td',
-              { class: 'file-path' },
-              h('a', { href: `#/contract/${c.contractId}` }, c.path),
-              c.change === 'changed' ? h('span', { class: 'hint' }, ' (new version)') : null,
-            ),
-            h('td', null, h('ul', { class: 'party-list' }, c.parties.map(partyCell))),
+            'td',
+            { class: 'file-path' },
+            h('a', { href: `#/contract/${c.contractId}` }, c.path),
+            c.change === 'changed' ? h('span', { class: 'hint' }, ' (new version)') : null,
           ),
+          h('td', null, h('ul', { class: 'party-list' }, c.parties.map(partyCell))),
         ),
       ),
+      { id: 'import-contracts' },
     ),
   );
 }
@@ -82,22 +77,17 @@ function rejectsTable(rejected) {
   return h(
     'div',
     { class: 'table-wrap' },
-    h(
-      'table',
-      { class: 'table', id: 'import-rejects' },
-      h('thead', null, h('tr', null, h('th', { scope: 'col' }, 'File'), h('th', { scope: 'col' }, 'Why not imported'))),
-      h(
-        'tbody',
-        null,
-        rejected.map((r) =>
-          h(
-            'tr',
-            { dataset: { reason: r.reason } },
-            h('td', { class: 'file-path' }, r.path),
-            h('td', null, h('strong', null, reasonWords(r.reason)), h('span', { class: 'hint' }, ` ${r.detail}`)),
-          ),
+    dataTable(
+      ['File', 'Why not imported'],
+      rejected.map((r) =>
+        h(
+          'tr',
+          { dataset: { reason: r.reason } },
+          h('td', { class: 'file-path' }, r.path),
+          h('td', null, h('strong', null, reasonWords(r.reason)), h('span', { class: 'hint' }, ` ${r.detail}`)),
         ),
       ),
+      { id: 'import-rejects' },
     ),
   );
 }

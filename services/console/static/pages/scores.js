@@ -1,7 +1,7 @@
 // Score distribution of recent resolutions with the two thresholds marked, and the export downloads.
 import { api, download } from '../api.js';
 import { h, num, pageTitle, plural, replace, s } from '../dom.js';
-import { errorBox, section, toast } from '../ui.js';
+import { dataTable, errorBox, section, toast } from '../ui.js';
 
 const STATUS_ORDER = ['linked', 'review', 'new', 'own_entity'];
 const STATUS_WORDS = { linked: 'linked', review: 'waiting for review', new: 'new counterparty', own_entity: 'our own entity' };
@@ -105,43 +105,26 @@ export async function render(main) {
     h(
       'div',
       { class: 'table-wrap' },
-      h(
-        'table',
-        { class: 'table' },
-        h(
-          'thead',
-          null,
-          h(
-            'tr',
-            null,
-            h('th', { scope: 'col' }, 'From'),
-            h('th', { scope: 'col' }, 'To'),
-            h('th', { scope: 'col' }, 'Count'),
-            h('th', { scope: 'col' }, 'By status'),
-          ),
-        ),
-        h(
-          'tbody',
-          null,
-          stats.buckets
-            .filter((b) => b.count > 0)
-            .map((b) =>
+      dataTable(
+        ['From', 'To', 'Count', 'By status'],
+        stats.buckets
+          .filter((b) => b.count > 0)
+          .map((b) =>
+            h(
+              'tr',
+              null,
+              h('td', { class: 'num' }, num(b.from)),
+              h('td', { class: 'num' }, num(b.to)),
+              h('td', { class: 'num' }, String(b.count)),
               h(
-                'tr',
+                'td',
                 null,
-                h('td', { class: 'num' }, num(b.from)),
-                h('td', { class: 'num' }, num(b.to)),
-                h('td', { class: 'num' }, String(b.count)),
-                h(
-                  'td',
-                  null,
-                  Object.entries(b.byStatus)
-                    .map(([k, v]) => `${k} ${v}`)
-                    .join(', '),
-                ),
+                Object.entries(b.byStatus)
+                  .map(([k, v]) => `${k} ${v}`)
+                  .join(', '),
               ),
             ),
-        ),
+          ),
       ),
     ),
   );
