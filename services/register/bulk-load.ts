@@ -102,8 +102,11 @@ function* chunksOf(rows: Iterable<LoadRow>, firstLine: number): Generator<{ row:
   if (chunk.length > 0) yield chunk;
 }
 
-/** A checked row with its name's blocking keys (the analysis itself stays in the analysis cache, matching/analysis.ts). */
-type Prepared = { name: string; jurisdiction: string | null; keys: string[] }[];
+/** A name's stored analysis as the ChangeSet makes it (state/derived.ts). */
+type StoredNameAnalysis = ReturnType<DerivedContext['nameAnalysis']>;
+
+/** A checked row with its name's blocking keys and stored analysis (analyses also stay in the analysis cache). */
+type Prepared = { name: string; jurisdiction: string | null; keys: string[]; stored: StoredNameAnalysis }[];
 
 /** Rows analysed between two yields to the event loop while a write is in flight. */
 const PREPARE_SLICE = 200;
@@ -117,7 +120,10 @@ async function prepareChunk(ctx: RegisterContext, chunk: { row: LoadRow; line: n
     if (name.includes('\u0000')) throw invalid(`line ${line}: name`, 'must not contain the character U+0000');
     const jurisdiction = checkJurisdiction(`line ${line}: country`, row.country ?? null);
     // Analysed now (the write's nameValues finds it in the analysis cache), the keys as the ChangeSet derives them.
-    out.push({ name, jurisdiction, keys: [...new Set(ctx.derived.nameKeys({ name, normalised: analyse(name).normalised, kind: 'legal' }))] });
+    // Its stored analysis too, under the row's jurisdiction (the COPY path writes it; the buffered path finds it in
+    // the analysis cache): made here, while the database writes the chunk before, not on the write's path.
+    const keys = [...new Set(ctx.derived.nameKeys({ name, normalised: analyse(name).normalised, kind: 'legal' }))];
+    out.push({ name, jurisdiction, keys, stored: ctx.derived.nameAnalysis(name, jurisdiction) });
     if (out.length % PREPARE_SLICE === 0) await new Promise((resolve) => setImmediate(resolve));
   }
   return out;
@@ -136,7 +142,7 @@ async function writeChunk(ctx: RegisterContext, prepared: Prepared, who: ActorIn
       details: { entity: 'counterparties', count: prepared.length, loadedFrom: options.source },
     };
     const client = options.via === 'statements' ? undefined : await transactionClient(ctx.db, cs.trx);
-    if (client) await copyChunk(cs.trx, client, prepared, options.source, event, ctx.derived.nameAnalysis);
+    if (client) await copyChunk(cs.trx, client, prepared, options.source, event);
     else await bufferChunk(cs, prepared, options.source, event);
   });
 }
@@ -160,14 +166,7 @@ const image = <T extends StateTable>(table: T, values: Row) => canonicalRow(tabl
  * the statement path takes them), the rows and the event's ops built in the statement path's order (each
  * counterparty, then its name), then one COPY per table, parents first.
  */
-async function copyChunk(
-  trx: Transaction<Database>,
-  client: PoolClient,
-  checked: Prepared,
-  source: string,
-  event: EventInput,
-  analysisOf: DerivedContext['nameAnalysis'],
-): Promise<void> {
+async function copyChunk(trx: Transaction<Database>, client: PoolClient, checked: Prepared, source: string, event: EventInput): Promise<void> {
   const n = checked.length;
   const ids = await drawIds(
     trx,
@@ -182,7 +181,7 @@ async function copyChunk(
   const keys: Row[] = [];
   const analyses: Row[] = [];
   const ops: Op[] = [];
-  checked.forEach(({ name, jurisdiction, keys: nameKeys }, i) => {
+  checked.forEach(({ name, jurisdiction, keys: nameKeys, stored }, i) => {
     const cp = image('counterparty', { ...counterpartyValues({ name, jurisdiction, at: event.at }), id: ids.get('counterparty')![i]! });
     const nm = image('counterparty_name', { ...nameValues(cp.id, { name, kind: 'legal', source }, event.at), id: ids.get('counterparty_name')![i]! });
     counterparties.push(cp);
@@ -190,7 +189,6 @@ async function copyChunk(
     ops.push({ op: 'insert', table: 'counterparty', row: cp }, { op: 'insert', table: 'counterparty_name', row: nm });
     for (const key of nameKeys) keys.push({ key, counterparty_id: cp.id, name_id: nm.id });
     // The name's stored analysis, as the buffered path writes it beside the name (state/change-set.ts insert).
-    const stored = analysisOf(name, jurisdiction);
     analyses.push({ name_id: nm.id, analysis: stored.analysis, analysis_version: stored.version, country: stored.country });
   });
   await copyRows(client, { table: 'counterparty', columns: columnsOf('counterparty'), rows: counterparties });
