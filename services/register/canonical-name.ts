@@ -55,7 +55,7 @@ export function letterCaseRank(name: string): number {
   return isAllCapitals(name) ? 1 : 2;
 }
 
-/** Sightings of a name with its case variants (rule 2 counts full legal names only; here every name counts). */
+/** Sightings of each name added up over its spellings that differ only in letter case. */
 function seenWithCaseVariants(pool: readonly NameCandidate[]): Map<string, number> {
   const seen = new Map<string, number>();
   for (const n of pool) seen.set(caseKey(n.name), (seen.get(caseKey(n.name)) ?? 0) + Number(n.seen_count));
@@ -104,11 +104,8 @@ function compareBy(
 export function chooseCanonicalName(names: readonly NameCandidate[], canonicalNow: string | null = null): NameCandidate | undefined {
   const current = names.filter((n) => n.kind !== 'former');
   const pool = current.length > 0 ? current : [...names];
-  // Sightings of full legal names, added up over spellings that differ only in letter case (rule 2).
-  const caseGroupSeen = new Map<string, number>();
-  for (const n of pool) {
-    if (isFullLegal(n)) caseGroupSeen.set(caseKey(n.name), (caseGroupSeen.get(caseKey(n.name)) ?? 0) + Number(n.seen_count));
-  }
+  // Rule 2 counts the sightings of full legal names; rule 1's typo test those of every name.
+  const caseGroupSeen = seenWithCaseVariants(pool.filter(isFullLegal));
   const seen = seenWithCaseVariants(pool);
   const confirmed = new Map(pool.map((n) => [n.id, confirmationOf(n, pool, seen)]));
   return [...pool].sort((a, b) => compareBy(a, b, caseGroupSeen, canonicalNow, confirmed))[0];
