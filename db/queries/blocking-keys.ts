@@ -1,5 +1,5 @@
 /**
- * Candidate lookup through blocking keys. Each key contributes at most `perKey` counterparties (an index range
+ * Candidate lookup through blocking keys. Each key contributes at most `perKey` (200) counterparties (an index range
  * scan on the primary key), so a very common key cannot flood the candidate list. Candidates are ranked by the
  * rarity of the keys they share (rarityOf: a key held by few names says more than many common ones), then by
  * how many they share, and only then by id, so which candidates fill the limit is no longer an accident of ids.
@@ -8,26 +8,6 @@ import { sql } from 'kysely';
 import type { Queryable } from './util.ts';
 import { id } from './util.ts';
 import { KEY_COUNT_CAP, registerSizeSql, tokenDf } from './rarity-counts.ts';
-
-export async function candidatesByKeys(
-  db: Queryable,
-  keys: string[],
-  options: { perKey?: number; limit?: number } = {},
-): Promise<{ counterpartyId: number; sharedKeys: number }[]> {
-  if (keys.length === 0) return [];
-  const perKey = options.perKey ?? 200;
-  const limit = options.limit ?? 50;
-  const result = await sql<{ counterparty_id: string | number; shared: string | number }>`
-    SELECT c.counterparty_id, count(*) AS shared
-    FROM unnest(${sql.val(keys)}::text[]) AS k(key)
-    CROSS JOIN LATERAL (
-      SELECT DISTINCT b.counterparty_id FROM blocking_key b WHERE b.key = k.key LIMIT ${perKey}
-    ) c
-    GROUP BY c.counterparty_id
-    ORDER BY shared DESC, c.counterparty_id
-    LIMIT ${limit}`.execute(db);
-  return result.rows.map((r) => ({ counterpartyId: id(r.counterparty_id), sharedKeys: Number(r.shared) }));
-}
 
 /** Names a count of REFERENCE_NAMES or more would give a key weight 0; the cap of the count table is far below. */
 const REFERENCE_NAMES = 1_000_000;
@@ -39,11 +19,6 @@ const REFERENCE_NAMES = 1_000_000;
  * subquery per key: the subquery form halved the ingest rate (the planner evaluated it per candidate hit).
  */
 const rarityOf = (names: string) => sql.raw(`round(1000 * ln(${REFERENCE_NAMES}::float8 / greatest(1, coalesce(${names}, 1))))::bigint`);
-
-export async function keysOfCounterparty(db: Queryable, counterpartyId: number): Promise<string[]> {
-  const rows = await db.selectFrom('blocking_key').select('key').distinct().where('counterparty_id', '=', counterpartyId).orderBy('key').execute();
-  return rows.map((r) => r.key);
-}
 
 export interface CandidateDetail {
   counterpartyId: number;

@@ -119,21 +119,6 @@ export async function getContract(db: Queryable, contractId: number): Promise<Co
   };
 }
 
-/** Defined terms of one contract by their normalised text. */
-export async function termsOfContract(
-  db: Queryable,
-  contractId: number,
-): Promise<{ id: number; term: string; normalised: string; partyIndex: number | null; collective: boolean }[]> {
-  const rows = await db.selectFrom('defined_term').selectAll().where('contract_id', '=', contractId).orderBy('id').execute();
-  return rows.map((t) => ({
-    id: id(t.id),
-    term: t.term,
-    normalised: t.normalised,
-    partyIndex: t.party_index,
-    collective: t.collective,
-  }));
-}
-
 export interface EarlierContractRow {
   id: number;
   source: string;

@@ -22,7 +22,7 @@ import type { PoolClient } from 'pg';
 import type { Database } from '../../db/types.ts';
 import type { RegisterContext, ActorInput } from './context.ts';
 import type { ChangeSet, Op } from './state/change-set.ts';
-import type { DerivedContext } from './state/derived.ts';
+import type { StoredNameAnalysis } from '../../db/queries/blocking-keys.ts';
 import { write } from './transaction.ts';
 import { addNameSighting, checkName, counterpartyValues, createCounterpartyRow, nameValues } from './records.ts';
 import { checkJurisdiction } from './jurisdiction.ts';
@@ -101,9 +101,6 @@ function* chunksOf(rows: Iterable<LoadRow>, firstLine: number): Generator<{ row:
   }
   if (chunk.length > 0) yield chunk;
 }
-
-/** A name's stored analysis as the ChangeSet makes it (state/derived.ts). */
-type StoredNameAnalysis = ReturnType<DerivedContext['nameAnalysis']>;
 
 /** A checked row with its name's blocking keys and stored analysis (analyses also stay in the analysis cache). */
 type Prepared = { name: string; jurisdiction: string | null; keys: string[]; stored: StoredNameAnalysis }[];

@@ -10,6 +10,7 @@ import { deleteKeysOfName, insertKeysOfName, moveKeysOfName } from '../../../db/
 import { jurisdictionOf, namesOfCounterparty, upsertNameAnalyses } from '../../../db/queries/name-analysis.ts';
 import { rowById } from '../../../db/queries/state-rows.ts';
 import type { Database } from '../../../db/types.ts';
+import type { StoredNameAnalysis } from '../../../db/queries/blocking-keys.ts';
 import type { Op } from './change-set.ts';
 import { intColumn } from './ops.ts';
 import type { Row } from './tables.ts';
@@ -18,7 +19,7 @@ export interface DerivedContext {
   /** Candidate keys of one counterparty name (pure, deterministic). */
   nameKeys(name: { name: string; normalised: string; kind: string }): string[];
   /** The stored analysis of one counterparty name under `country`, its counterparty's jurisdiction (pure). */
-  nameAnalysis(name: string, country: string | null): { analysis: unknown; version: number; country: string | null };
+  nameAnalysis(name: string, country: string | null): StoredNameAnalysis;
 }
 
 /** The keys and the stored analysis of one name (a key already there stays; the analysis is replaced). */
