@@ -34,6 +34,7 @@ import { analyse } from './matching/analysis.ts';
 import { transactionClient } from '../../db/transaction-client.ts';
 import { copyRows } from '../../db/queries/copy-rows.ts';
 import { drawIds } from '../../db/queries/state-writes.ts';
+import { addLoadedKeyCounts, dropIndexesForLoad, restoreIndexes } from '../../db/queries/load-indexes.ts';
 
 export interface LoadRow {
   name: string;
@@ -56,6 +57,15 @@ export interface LoadOptions {
    * buffered ChangeSet's statements (the reference the COPY path is compared with).
    */
   via?: 'copy' | 'statements';
+  /**
+   * One transaction for the whole load (PostgreSQL; elsewhere, or with `via: 'statements'`, the load goes in
+   * chunks): for a large load, a register's first load above all. blocking_key's indexes and keys and
+   * counterparty_name's plain indexes are built once at the end instead of row by row, and the key counts added
+   * once from the loaded keys (db/queries/load-indexes.ts). The events, rows and counts are those of the chunked
+   * load; but nobody reads or writes the register's names and keys until it commits, a bad row or any failure
+   * leaves nothing of the load, and `progress` counts rows copied, not committed.
+   */
+  oneTransaction?: boolean;
 }
 
 /**
@@ -65,6 +75,54 @@ export interface LoadOptions {
  * other, in order.
  */
 export async function loadCounterparties(ctx: RegisterContext, rows: Iterable<LoadRow>, who: ActorInput, options: LoadOptions): Promise<number> {
+  if (options.oneTransaction && options.via !== 'statements') {
+    const loaded = await loadInOneTransaction(ctx, rows, who, options);
+    if (loaded !== undefined) return loaded;
+  }
+  return loadChunks(
+    ctx,
+    rows,
+    options,
+    (prepared) => writeChunk(ctx, prepared, who, options),
+    (loaded) => `${loaded} rows loaded before this chunk; nothing of it was written`,
+  );
+}
+
+/**
+ * `oneTransaction` on PostgreSQL: every chunk copied in one transaction, blocking_key's indexes and keys built once
+ * at the end and the key counts added once (db/queries/load-indexes.ts). Undefined, having read no row, when the
+ * backend has no COPY (the caller loads in chunks instead).
+ */
+async function loadInOneTransaction(ctx: RegisterContext, rows: Iterable<LoadRow>, who: ActorInput, options: LoadOptions): Promise<number | undefined> {
+  return ctx.db.transaction().execute(async (trx) => {
+    const client = await transactionClient(ctx.db, trx);
+    if (!client) return undefined;
+    const dropped = await dropIndexesForLoad(trx);
+    let first: number | undefined;
+    const loaded = await loadChunks(
+      ctx,
+      rows,
+      options,
+      async (prepared) => {
+        const ids = await copyChunk(trx, client, prepared, options.source, chunkEvent(ctx, prepared, who, options));
+        first ??= ids[0];
+      },
+      () => 'nothing of the load was written: it is one transaction',
+    );
+    await restoreIndexes(trx, dropped);
+    if (first !== undefined) await addLoadedKeyCounts(trx, first);
+    return loaded;
+  });
+}
+
+/** The loop of both modes: chunk N+1 checked and analysed while `writeOne` writes chunk N. */
+async function loadChunks(
+  ctx: RegisterContext,
+  rows: Iterable<LoadRow>,
+  options: LoadOptions,
+  writeOne: (prepared: Prepared) => Promise<void>,
+  notWritten: (loaded: number) => string,
+): Promise<number> {
   let loaded = 0;
   let writing: Promise<void> = Promise.resolve();
   for (const chunk of chunksOf(rows, options.firstLine ?? 1)) {
@@ -73,11 +131,11 @@ export async function loadCounterparties(ctx: RegisterContext, rows: Iterable<Lo
       prepared = await prepareChunk(ctx, chunk);
     } catch (error) {
       await writing;
-      if (error instanceof RegisterError) error.message = `${error.message} (${loaded} rows loaded before this chunk; nothing of it was written)`;
+      if (error instanceof RegisterError) error.message = `${error.message} (${notWritten(loaded)})`;
       throw error;
     }
     await writing;
-    writing = writeChunk(ctx, prepared, who, options).then(() => {
+    writing = writeOne(prepared).then(() => {
       loaded += prepared.length;
       options.progress?.(loaded);
     });
@@ -128,20 +186,25 @@ async function prepareChunk(ctx: RegisterContext, chunk: { row: LoadRow; line: n
 
 async function writeChunk(ctx: RegisterContext, prepared: Prepared, who: ActorInput, options: LoadOptions): Promise<void> {
   await write(ctx, async (cs) => {
-    const at = ctx.now();
-    // One event for the chunk: it names every counterparty it created (counterparty_ids), and undoing it takes the
-    // whole chunk back, as loading it was one act.
-    const event: EventInput = {
-      type: 'created',
-      actor: who.actor,
-      at,
-      reason: who.reason ?? null,
-      details: { entity: 'counterparties', count: prepared.length, loadedFrom: options.source },
-    };
+    const event = chunkEvent(ctx, prepared, who, options);
     const client = options.via === 'statements' ? undefined : await transactionClient(ctx.db, cs.trx);
     if (client) await copyChunk(cs.trx, client, prepared, options.source, event);
     else await bufferChunk(cs, prepared, options.source, event);
   });
+}
+
+/**
+ * One event for a chunk: it names every counterparty it created (counterparty_ids), and undoing it takes the whole
+ * chunk back, as loading it was one act.
+ */
+function chunkEvent(ctx: RegisterContext, prepared: Prepared, who: ActorInput, options: LoadOptions): EventInput {
+  return {
+    type: 'created',
+    actor: who.actor,
+    at: ctx.now(),
+    reason: who.reason ?? null,
+    details: { entity: 'counterparties', count: prepared.length, loadedFrom: options.source },
+  };
 }
 
 /** The statement path: a buffered ChangeSet, written in one statement of set-based inserts. */
@@ -163,7 +226,7 @@ const image = <T extends StateTable>(table: T, values: Row) => canonicalRow(tabl
  * the statement path takes them), the rows and the event's ops built in the statement path's order (each
  * counterparty, then its name), then one COPY per table, parents first.
  */
-async function copyChunk(trx: Transaction<Database>, client: PoolClient, checked: Prepared, source: string, event: EventInput): Promise<void> {
+async function copyChunk(trx: Transaction<Database>, client: PoolClient, checked: Prepared, source: string, event: EventInput): Promise<number[]> {
   const n = checked.length;
   const ids = await drawIds(
     trx,
@@ -199,4 +262,5 @@ async function copyChunk(trx: Transaction<Database>, client: PoolClient, checked
   });
   const row = eventRow(ids.get('history_event')![0]!, event, ops);
   await copyRows(client, { table: 'history_event', columns: Object.keys(row), json: ['payload'], rows: [row] });
+  return ids.get('counterparty')!;
 }
