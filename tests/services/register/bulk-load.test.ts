@@ -51,8 +51,20 @@ function rows(): LoadRow[] {
   return [...generated, ...HOSTILE];
 }
 
-async function load(db: Kysely<Database>, via: 'copy' | 'statements'): Promise<number> {
-  return loadCounterparties(createRegisterContext(db, { now: () => AT }), rows(), WHO, { source: 'vendor-master', via });
+async function load(db: Kysely<Database>, via: 'copy' | 'statements', oneTransaction = false): Promise<number> {
+  return loadCounterparties(createRegisterContext(db, { now: () => AT }), rows(), WHO, { source: 'vendor-master', via, oneTransaction });
+}
+
+/** The schema objects a one-transaction load drops and builds again: indexes, constraints, triggers and their state. */
+async function schemaObjects(db: Kysely<Database>) {
+  return {
+    indexes: (await sql`SELECT tablename, indexname, indexdef FROM pg_indexes WHERE schemaname = current_schema() ORDER BY 1, 2`.execute(db)).rows,
+    constraints: (
+      await sql`SELECT conrelid::regclass::text AS tbl, conname, pg_get_constraintdef(oid) AS def, convalidated FROM pg_constraint
+        WHERE connamespace = current_schema()::regnamespace ORDER BY 1, 2`.execute(db)
+    ).rows,
+    triggers: (await sql`SELECT tgrelid::regclass::text AS tbl, tgname, tgenabled FROM pg_trigger WHERE NOT tgisinternal ORDER BY 1, 2`.execute(db)).rows,
+  };
 }
 
 async function everything(db: Kysely<Database>) {
@@ -68,22 +80,30 @@ async function everything(db: Kysely<Database>) {
 describePostgres('bulk load through COPY (PostgreSQL)', () => {
   let viaCopy: TestDatabase;
   let viaStatements: TestDatabase;
+  let inOne: TestDatabase;
+  let copiedByChunks: string[] = [];
   beforeAll(async () => {
     viaCopy = await openTestDatabase('postgres');
     viaStatements = await openTestDatabase('postgres');
+    inOne = await openTestDatabase('postgres');
     copied.tables.length = 0;
     expect(await load(viaStatements.db, 'statements')).toBe(rows().length);
     expect(copied.tables).toEqual([]);
     expect(await load(viaCopy.db, 'copy')).toBe(rows().length);
-  }, 180_000);
+    copiedByChunks = [...copied.tables];
+    copied.tables.length = 0;
+    expect(await load(inOne.db, 'copy', true)).toBe(rows().length);
+  }, 240_000);
   afterAll(async () => {
     await viaCopy?.close();
     await viaStatements?.close();
+    await inOne?.close();
   });
 
-  it('sends every chunk through COPY, parents first', () => {
+  it('sends every chunk through COPY, parents first (in chunks and in one transaction)', () => {
     const chunks = Math.ceil(rows().length / LOAD_CHUNK);
-    expect(copied.tables).toEqual(
+    expect(copied.tables).toEqual(copiedByChunks);
+    expect(copiedByChunks).toEqual(
       Array.from({ length: chunks }, () => ['counterparty', 'counterparty_name', 'blocking_key', 'counterparty_name_analysis', 'history_event']).flat(),
     );
   });
@@ -96,6 +116,27 @@ describePostgres('bulk load through COPY (PostgreSQL)', () => {
     expect(a.keyCounts.length).toBeGreaterThan(rows().length);
     expect(a).toEqual(b);
   });
+
+  it('in one transaction leaves the same rows, key counts (as the triggers count), events and sequences, and the schema as it was', async () => {
+    expect(await everything(inOne.db)).toEqual(await everything(viaStatements.db));
+    expect(await schemaObjects(inOne.db)).toEqual(await schemaObjects(viaStatements.db));
+  });
+
+  it('in one transaction, a bad row in a later chunk leaves nothing of the load and the schema as it was', async () => {
+    await withTestDatabase('postgres', async (opened) => {
+      const before = await schemaObjects(opened.db);
+      const good = [...generateNames(LOAD_CHUNK, 3)].map((r) => ({ name: r.name, country: r.country }));
+      await expect(
+        loadCounterparties(createRegisterContext(opened.db), [...good, { name: 'Pellmoor Dyes Ltd', country: 'XX-NOWHERE' }], WHO, {
+          source: 'test',
+          oneTransaction: true,
+        }),
+      ).rejects.toThrow(new RegExp(`line ${LOAD_CHUNK + 1}: country.*\\(nothing of the load was written: it is one transaction\\)`));
+      const count = await sql<{ n: number }>`SELECT (SELECT count(*) FROM counterparty) + (SELECT count(*) FROM blocking_key_count) AS n`.execute(opened.db);
+      expect(Number(count.rows[0]!.n)).toBe(0);
+      expect(await schemaObjects(opened.db)).toEqual(before);
+    });
+  }, 120_000);
 
   it('stores the hostile names as given (a lone surrogate as U+FFFD, as a text parameter stores it)', async () => {
     const stored = await sql<{ canonical_name: string }>`SELECT canonical_name FROM counterparty ORDER BY id DESC LIMIT ${HOSTILE.length}`.execute(viaCopy.db);
@@ -118,6 +159,18 @@ describePostgres('bulk load through COPY (PostgreSQL)', () => {
     const a = await everything(viaCopy.db);
     expect(a.state.counterparty.filter((c) => c.status === 'active').length).toBe(LOAD_CHUNK * 2);
     expect(a).toEqual(await everything(viaStatements.db));
+  }, 120_000);
+
+  it('in one transaction on a register that holds names already, adds the counts the triggers add (run last: it loads more into two of the databases)', async () => {
+    const more = [...generateNames(LOAD_CHUNK + 11, 8)].map((r) => ({ name: r.name, country: r.country }));
+    const ctx = (db: Kysely<Database>) => createRegisterContext(db, { now: () => AT });
+    // The statement path's database had its last chunk undone above: the same undo here first.
+    const last = Number((await sql<{ id: string }>`SELECT max(id) AS id FROM history_event`.execute(inOne.db)).rows[0]!.id);
+    await undoEvent(ctx(inOne.db), last, WHO);
+    expect(await everything(inOne.db)).toEqual(await everything(viaStatements.db));
+    await loadCounterparties(ctx(inOne.db), more, WHO, { source: 'second', oneTransaction: true });
+    await loadCounterparties(ctx(viaStatements.db), more, WHO, { source: 'second', via: 'statements' });
+    expect(await everything(inOne.db)).toEqual(await everything(viaStatements.db));
   }, 120_000);
 });
 
