@@ -16,6 +16,11 @@
  *
  * Rows are checked before anything is written: a bad row stops the load with an error naming its line; the chunks
  * already committed stay (each is complete), and the error says how many rows were loaded.
+ *
+ * A large load (a register's first, a benchmark's) can go in one transaction instead (`oneTransaction`, PostgreSQL):
+ * the same chunks, events and rows, but blocking_key's indexes and keys built once at the end rather than row by
+ * row, and the key counts added once from the loaded keys (db/queries/load-indexes.ts); row by row, blocking_key was
+ * most of a chunk's server time. The register's names and keys are locked until it commits.
  */
 import type { Transaction } from 'kysely';
 import type { PoolClient } from 'pg';
