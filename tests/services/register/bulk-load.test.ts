@@ -70,7 +70,7 @@ async function schemaObjects(db: Kysely<Database>) {
 async function everything(db: Kysely<Database>) {
   return {
     state: await stateSnapshot(db),
-    keyCounts: (await sql`SELECT * FROM blocking_key_count ORDER BY key`.execute(db)).rows,
+    keyCounts: (await sql<{ key: string; names: number; counterparties: number }>`SELECT * FROM blocking_key_count ORDER BY key`.execute(db)).rows,
     analyses: (await sql`SELECT * FROM counterparty_name_analysis ORDER BY name_id`.execute(db)).rows,
     events: (await sql`SELECT * FROM history_event ORDER BY id`.execute(db)).rows,
     sequences: (await sql`SELECT sequencename, last_value FROM pg_sequences ORDER BY sequencename`.execute(db)).rows,
@@ -172,6 +172,27 @@ describePostgres('bulk load through COPY (PostgreSQL)', () => {
     await loadCounterparties(ctx(viaStatements.db), more, WHO, { source: 'second', via: 'statements' });
     expect(await everything(inOne.db)).toEqual(await everything(viaStatements.db));
   }, 120_000);
+  it('in one transaction counts a key past the cap (1,000) as the triggers do, on a register holding it already', async () => {
+    // Invented names sharing one word: 600 in the register, 2,100 more loaded (the chunked load's trigger reaches
+    // the cap in its second chunk and leaves the key alone after it).
+    const named = (from: number, n: number) => Array.from({ length: n }, (_, i) => ({ name: `Corvath Millbrook ${from + i}`, country: null }));
+    const counts = async (db: Kysely<Database>) =>
+      (await sql<{ key: string; names: number; counterparties: number }>`SELECT * FROM blocking_key_count ORDER BY key`.execute(db)).rows;
+    await withTestDatabase('postgres', async (one) => {
+      await withTestDatabase('postgres', async (chunked) => {
+        for (const [db, oneTransaction] of [
+          [one.db, true],
+          [chunked.db, false],
+        ] as const) {
+          await loadCounterparties(createRegisterContext(db), named(0, 600), WHO, { source: 'first' });
+          await loadCounterparties(createRegisterContext(db), named(600, LOAD_CHUNK + 100), WHO, { source: 'second', oneTransaction });
+        }
+        const a = await counts(one.db);
+        expect(a.find((k) => k.key === 't:corvath')).toEqual({ key: 't:corvath', names: 1000, counterparties: 1000 });
+        expect(a).toEqual(await counts(chunked.db));
+      });
+    });
+  }, 180_000);
 });
 
 describeBackends('bulk load: refused rows', (backend) => {
