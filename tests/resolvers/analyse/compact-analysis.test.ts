@@ -36,6 +36,8 @@ describe('compact stored analyses', () => {
       for (const c of [country, null]) {
         const { fresh, compact, rebuilt } = roundTrip(name, c);
         expect(rebuilt, `${name} [${c}]`).toEqual(fresh);
+        // Key order too: a rebuilt analysis prints as a fresh one (cpreg analyse, explanations).
+        expect(JSON.stringify(rebuilt)).toBe(JSON.stringify(fresh));
         if (compact.x !== undefined || (compact.l !== undefined && 'e' in compact.l)) fellBack.push(`${name} [${c}]`);
         fullBytes += JSON.stringify(fresh).length;
         compactBytes += JSON.stringify(compact).length;
