@@ -29,7 +29,7 @@ export interface CandidateDetail {
   identifiers: { scheme: string; value: string; label: string | null }[];
 }
 
-/** A stored analysis as read: the caller decides whether its version and country are current. */
+/** A stored analysis as read (its compact form, resolvers/analyse/compact-analysis.ts): the caller decides whether its version and country are current. */
 export interface StoredNameAnalysis {
   analysis: unknown;
   version: number;

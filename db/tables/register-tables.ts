@@ -75,7 +75,7 @@ export interface BlockingKeyTable {
 /** Derived from counterparty_name (migrations/20261205180000_counterparty_name_analysis.ts): a name's stored analysis. */
 export interface CounterpartyNameAnalysisTable {
   name_id: Int8;
-  /** The NameAnalysis (resolvers/analyse) as JSON. */
+  /** The NameAnalysis in its compact form (resolvers/analyse/compact-analysis.ts) as json (since 20261205210000). */
   analysis: unknown;
   analysis_version: number;
   /** The country it was analysed under: its counterparty's jurisdiction then. */

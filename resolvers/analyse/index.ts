@@ -2,6 +2,8 @@
 export type { AnalyseHints, LegalFormMatch, NameAnalysis } from './types.ts';
 export { analyseName } from './analyse-name.ts';
 export { ANALYSIS_VERSION } from './analysis-version.ts';
+export { compactAnalysis, rebuildAnalysis } from './compact-analysis.ts';
+export type { CompactAnalysis } from './compact-analysis.ts';
 export { normaliseName, normaliseTokens, foldForComparison, foldGermanDigraphs } from './normalise-name.ts';
 export { designatorKey } from './designator-key.ts';
 export { lookupLegalForm, legalFormFamily, findLegalForm } from './lookup-legal-form.ts';

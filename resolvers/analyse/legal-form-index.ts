@@ -63,6 +63,15 @@ export function legalFormIndex(): LegalFormIndex {
   return built;
 }
 
+/** The entry of a designator key: the suffix form (every code), or the prefix form (the prefix countries' codes). */
+export function legalFormEntry(key: string, position: 'suffix' | 'prefix'): LegalFormEntry | undefined {
+  const index = legalFormIndex();
+  if (position === 'suffix') return index.entries.get(key);
+  let node: TrieNode | undefined = index.prefix;
+  for (let k = 0; k < key.length && node; k++) node = node.next?.get(key.charCodeAt(k));
+  return node?.entry;
+}
+
 function countryOf(jurisdiction: string): string {
   const dash = jurisdiction.indexOf('-');
   return dash < 0 ? jurisdiction : jurisdiction.slice(0, dash);

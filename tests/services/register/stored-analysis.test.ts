@@ -1,15 +1,16 @@
 /**
- * Stored name analyses (migrations/20261205180000_counterparty_name_analysis.ts): every write path stores each
- * name's analysis with the current version and its counterparty's jurisdiction; candidates are scored on the stored
- * analysis and only stale rows are analysed again; `verify` reports stale names as their own finding; the
+ * Stored name analyses (migrations/20261205180000_counterparty_name_analysis.ts, compact since
+ * migrations/20261205210000_compact_name_analysis.ts): every write path stores each name's analysis in its compact
+ * form with the current version and its counterparty's jurisdiction; candidates are scored on the stored analysis
+ * (rebuilt from it when the process does not hold it) and only stale rows are analysed again; `verify` reports stale names as their own finding; the
  * re-analysis upkeep rewrites stale analyses and keys in chunks. Names are invented.
  */
 import { sql } from 'kysely';
 import { beforeAll, expect, it } from 'vitest';
-import { ANALYSIS_VERSION, analyseName } from '../../../resolvers/analyse/index.ts';
+import { ANALYSIS_VERSION, analyseName, rebuildAnalysis, type CompactAnalysis } from '../../../resolvers/analyse/index.ts';
 import { createRegisterContext, resolveMention, setJurisdiction, type RegisterContext } from '../../../services/register/index.ts';
 import { loadCounterparties } from '../../../services/register/bulk-load.ts';
-import { analyse, storedAnalysisCounts } from '../../../services/register/matching/analysis.ts';
+import { analyse, dropAnalysisCache, storedAnalysisCounts } from '../../../services/register/matching/analysis.ts';
 import { keysOfAnalysis, nameBlockingKeys } from '../../../services/register/matching/keys.ts';
 import { candidateDetails } from '../../../db/queries/blocking-keys.ts';
 import { reanalyseNames } from '../../../services/register/reanalyse-names.ts';
@@ -39,15 +40,19 @@ describeEachBackend('stored name analyses', (t) => {
     await loadCounterparties(ctx, [{ name: 'Quillbury Anchors Inc', country: 'US' }, { name: 'Tessaly Grain Cooperative' }], WHO, { source: 'bulk' });
   });
 
-  it('stores every name written (single resolve, bulk load) with the current version, under its jurisdiction', async () => {
+  it('stores every name written (single resolve, bulk load) compactly, with the current version, under its jurisdiction', async () => {
     const rows = await stored();
     expect(rows.length).toBe(4);
     for (const row of rows) {
       expect(row.name_id).not.toBeNull();
       expect(row.analysis_version).toBe(ANALYSIS_VERSION);
       expect(row.country).toBe(row.jurisdiction);
+      const compact = (typeof row.analysis === 'string' ? JSON.parse(row.analysis) : row.analysis) as CompactAnalysis;
+      // The compact form, not the whole analysis (no fallback, no ELF code lists written out).
+      expect(compact.x).toBeUndefined();
+      expect(compact.l === undefined || !('e' in compact.l)).toBe(true);
       const fresh = analyseName(row.name, row.jurisdiction ? { country: row.jurisdiction } : undefined);
-      expect(typeof row.analysis === 'string' ? JSON.parse(row.analysis) : row.analysis).toEqual(JSON.parse(JSON.stringify(fresh)));
+      expect(rebuildAnalysis(row.name, row.jurisdiction, compact)).toEqual(fresh);
     }
     expect((await verifyRegister(t.db())).ok).toBe(true);
   });
@@ -57,6 +62,13 @@ describeEachBackend('stored name analyses', (t) => {
     const first = await resolveMention(ctx, { source: 's', externalId: '3', text: 'Brackenvale Pumps Limited', country: 'GB' }, WHO);
     expect(storedAnalysisCounts.stored).toBeGreaterThan(before.stored);
     expect(storedAnalysisCounts.reanalysed).toBe(before.reanalysed);
+    // A process that holds no analysis (a new one) rebuilds the candidates' analyses from the stored rows.
+    dropAnalysisCache();
+    const rebuilt = { ...storedAnalysisCounts };
+    const fresh = await resolveMention(ctx, { source: 's', externalId: '3b', text: 'Brackenvale Pumps Limited', country: 'GB' }, WHO);
+    expect(storedAnalysisCounts.rebuilt).toBeGreaterThan(rebuilt.rebuilt);
+    expect(storedAnalysisCounts.reanalysed).toBe(rebuilt.reanalysed);
+    expect([fresh.status, fresh.counterpartyId]).toEqual([first.status, first.counterpartyId]);
     // A row of an older version is not used: the candidate is analysed again, and the outcome is the same.
     await sql`UPDATE counterparty_name_analysis SET analysis_version = ${ANALYSIS_VERSION - 1}`.execute(t.db());
     const middle = { ...storedAnalysisCounts };
@@ -116,7 +128,7 @@ describeEachBackend('stored name analyses', (t) => {
     await sql`DELETE FROM blocking_key WHERE name_id = ${name.id}`.execute(t.db());
     for (const key of nameBlockingKeys({ name: 'Talvu Ltd' }))
       await sql`INSERT INTO blocking_key (key, counterparty_id, name_id) VALUES (${key}, ${name.counterparty_id}, ${name.id})`.execute(t.db());
-    await sql`UPDATE counterparty_name_analysis SET analysis_version = 1, analysis = ${JSON.stringify(analyse('Talvu Ltd', 'GB'))}::jsonb
+    await sql`UPDATE counterparty_name_analysis SET analysis_version = 1, analysis = ${JSON.stringify(analyse('Talvu Ltd', 'GB'))}::json
       WHERE name_id = ${name.id}`.execute(t.db());
     const probeKeys = keysOfAnalysis(analyse('Talvue Ltd', 'GB'));
     const found = async () => (await candidateDetails(t.db(), probeKeys, [], { limit: 20, country: 'GB' })).map((d) => d.counterpartyId);
