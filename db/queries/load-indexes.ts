@@ -76,7 +76,9 @@ export async function restoreIndexes(trx: Trx, dropped: DroppedIndexes): Promise
  * Adds the keys of the loaded counterparties (ids from `firstCounterpartyId` on: the load drew them after taking
  * its locks, so every blocking_key row from there on is the load's own) to blocking_key_count, as the insert
  * trigger would have: per key, names + the rows, counterparties + the distinct counterparties (all of them new),
- * capped at KEY_COUNT_CAP, a key already at the cap left alone, in key order.
+ * capped at KEY_COUNT_CAP, a key already at the cap left alone, in key order. A loaded counterparty has one name
+ * and each key once, so a key's rows are its distinct counterparties: one count, no count(DISTINCT), whose sort
+ * of every loaded key took minutes at 1,000,000.
  *
  * Against the trigger fired once per chunk, the one difference is the counterparties count of a key whose names
  * count reaches the cap during the load (the trigger stops counting it at the chunk where it does): that count is
@@ -85,9 +87,8 @@ export async function restoreIndexes(trx: Trx, dropped: DroppedIndexes): Promise
 export async function addLoadedKeyCounts(trx: Trx, firstCounterpartyId: number): Promise<void> {
   await sql`
     INSERT INTO blocking_key_count AS c (key, names, counterparties)
-    SELECT d.key, least(${KEY_COUNT_CAP}::int, d.n), least(${KEY_COUNT_CAP}::int, d.cps)
-    FROM (SELECT key, count(*)::int AS n, count(DISTINCT counterparty_id)::int AS cps FROM blocking_key
-          WHERE counterparty_id >= ${firstCounterpartyId} GROUP BY key) d
+    SELECT d.key, least(${KEY_COUNT_CAP}::int, d.n), least(${KEY_COUNT_CAP}::int, d.n)
+    FROM (SELECT key, count(*)::int AS n FROM blocking_key WHERE counterparty_id >= ${firstCounterpartyId} GROUP BY key) d
     WHERE NOT EXISTS (SELECT 1 FROM blocking_key_count x WHERE x.key = d.key AND x.names >= ${KEY_COUNT_CAP}::int)
     ORDER BY d.key
     ON CONFLICT (key) DO UPDATE SET
