@@ -1,25 +1,14 @@
 /**
  * Candidate lookup through blocking keys. Each key contributes at most `perKey` (200) counterparties (an index range
- * scan on the primary key), so a very common key cannot flood the candidate list. Candidates are ranked by the
- * rarity of the keys they share (rarityOf: a key held by few names says more than many common ones), then by
- * how many they share, and only then by id, so which candidates fill the limit is no longer an accident of ids.
+ * scan on the primary key), so a very common key cannot flood the candidate list. Candidates are ranked as
+ * db/queries/candidate-rank.ts says: the rarity of the keys they share, then country and closeness of name, so which
+ * candidates fill the limit is not an accident of ids.
  */
 import { sql } from 'kysely';
 import type { Queryable } from './util.ts';
 import { id } from './util.ts';
 import { KEY_COUNT_CAP, registerSizeSql, tokenDf } from './rarity-counts.ts';
-import { STEM_LENGTH } from '../../resolvers/block/index.ts';
-
-/** Names a count of REFERENCE_NAMES or more would give a key weight 0; the cap of the count table is far below. */
-const REFERENCE_NAMES = 1_000_000;
-
-/**
- * The rarity weight of a key held by `names` names: round(1000 · ln(REFERENCE_NAMES / names)), an integer so that
- * sums (and so ties) do not depend on the order of addition. Counts come from blocking_key_count (kept by triggers,
- * capped: every capped key weighs the same); a key no name holds yet counts as held once. Joined, not read by a
- * subquery per key: the subquery form halved the ingest rate (the planner evaluated it per candidate hit).
- */
-const rarityOf = (names: string) => sql.raw(`round(1000 * ln(${REFERENCE_NAMES}::float8 / greatest(1, coalesce(${names}, 1))))::bigint`);
+import { CANDIDATE_POOL, keyGroupSql, rarityOf, SIMILARITY_WEIGHT } from './candidate-rank.ts';
 
 export interface CandidateDetail {
   counterpartyId: number;
@@ -56,8 +45,8 @@ export async function candidateDetails(
 
 /**
  * Candidates of many probes in ONE statement (candidateDetails is its one-probe case): per probe, the `limit`
- * best ranked by the rarity of the keys shared, then their number, then id (each key contributing at most `perKey`
- * counterparties), the identifier holders added, active only; each probe's list in rank order. Each distinct key is looked up once, and each candidate's names and
+ * best ranked as candidate-rank.ts says (each key contributing at most `perKey` counterparties), the identifier
+ * holders added, active only; each probe's list in rank order. Each distinct key is looked up once, and each candidate's names and
  * identifiers are read once however many probes share it.
  *
  * A common key (more holders than `perKey`, or its names at the count cap) is looked up for a probe only when none
@@ -250,29 +239,6 @@ function tokenCountRows(read: { tokens: readonly string[]; cap: number }) {
     LEFT JOIN blocking_key_count c ON c.key = 't:' || t.token
     UNION ALL
     SELECT 's', NULL, NULL, NULL, NULL, NULL, NULL, NULL, NULL, ${registerSizeSql()}`;
-}
-
-/**
- * How many of the rarest candidates are reordered by country and closeness before the limit is taken: at 10,000
- * generated names a probe's keys reach a median of 139 counterparties (p99 290); 200 bounds the similarity reads at
- * any register size and, on those probes, left the first 9 as ranking every hit would (issue 18).
- */
-export const CANDIDATE_POOL = 200;
-
-/**
- * Rarity units (1000 per natural-log unit of key rarity, rarityOf) per unit of trigram similarity: a name 0.1 closer
- * counts as a key e^1 times rarer. Chosen on generated probes (issue 18): 5 to 20 left the same decisions.
- */
-export const SIMILARITY_WEIGHT = 10_000;
-
-/**
- * The evidence group of a key: a word's t: key and its stem's s: key (resolvers/block: the first STEM_LENGTH
- * characters of a longer word) are one group; every other key its own.
- */
-function keyGroupSql(column: string) {
-  return sql.raw(
-    `CASE WHEN ${column} LIKE 't:%' AND char_length(${column}) > ${2 + STEM_LENGTH} THEN 's:' || left(substr(${column}, 3), ${STEM_LENGTH}) ELSE ${column} END`,
-  );
 }
 
 /** The rank of a candidate found by an identifier only (after every candidate found by keys). */

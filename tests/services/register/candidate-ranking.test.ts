@@ -23,7 +23,8 @@ import {
   scoredCandidatesWithFormer,
   type ScoredCandidate,
 } from '../../../services/register/matching/candidates.ts';
-import { CANDIDATE_POOL, candidateDetails, type CandidateDetail } from '../../../db/queries/blocking-keys.ts';
+import { candidateDetails, type CandidateDetail } from '../../../db/queries/blocking-keys.ts';
+import { CANDIDATE_POOL } from '../../../db/queries/candidate-rank.ts';
 import { DEFAULT_MATCH_MODEL } from '../../../resolvers/score/default-model.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
 
