@@ -18,9 +18,9 @@ import { keysOfAnalysis } from './keys.ts';
 /**
  * How many counterparties are fetched per name: those whose country does not conflict first, then by the rarity of
  * the keys they share (a word and its stem counted once) plus the trigram similarity of their closest name
- * (db/queries/blocking-keys.ts). On generated probes (1,000 at 2,000 names, 1,500 at 10,000), every candidate scoring
- * above newAt among all those the keys reach was in the first 7; 9 leaves a margin. The rarity-only ranking with 20
- * missed one above newAt in 7 probes at 10,000 (a typo in the distinctive word leaves only common words' keys).
+ * (db/queries/candidate-rank.ts). On 1,500 generated probes at 10,000 generated names, every candidate scoring above
+ * newAt among all those the keys reach was in the first 7; 9 leaves a margin. The rarity-only ranking missed one
+ * in its first 20 in 7 of those probes (a typo in the distinctive word leaves only the common words' keys).
  */
 export const MAX_CANDIDATES = 9;
 
