@@ -1,24 +1,14 @@
 /**
  * Candidate lookup through blocking keys. Each key contributes at most `perKey` (200) counterparties (an index range
- * scan on the primary key), so a very common key cannot flood the candidate list. Candidates are ranked by the
- * rarity of the keys they share (rarityOf: a key held by few names says more than many common ones), then by
- * how many they share, and only then by id, so which candidates fill the limit is no longer an accident of ids.
+ * scan on the primary key), so a very common key cannot flood the candidate list. Candidates are ranked as
+ * db/queries/candidate-rank.ts says: the rarity of the keys they share, then country and closeness of name, so which
+ * candidates fill the limit is not an accident of ids.
  */
 import { sql } from 'kysely';
 import type { Queryable } from './util.ts';
 import { id } from './util.ts';
 import { KEY_COUNT_CAP, registerSizeSql, tokenDf } from './rarity-counts.ts';
-
-/** Names a count of REFERENCE_NAMES or more would give a key weight 0; the cap of the count table is far below. */
-const REFERENCE_NAMES = 1_000_000;
-
-/**
- * The rarity weight of a key held by `names` names: round(1000 · ln(REFERENCE_NAMES / names)), an integer so that
- * sums (and so ties) do not depend on the order of addition. Counts come from blocking_key_count (kept by triggers,
- * capped: every capped key weighs the same); a key no name holds yet counts as held once. Joined, not read by a
- * subquery per key: the subquery form halved the ingest rate (the planner evaluated it per candidate hit).
- */
-const rarityOf = (names: string) => sql.raw(`round(1000 * ln(${REFERENCE_NAMES}::float8 / greatest(1, coalesce(${names}, 1))))::bigint`);
+import { CANDIDATE_POOL, keyGroupSql, rarityOf, SIMILARITY_WEIGHT } from './candidate-rank.ts';
 
 export interface CandidateDetail {
   counterpartyId: number;
@@ -47,16 +37,16 @@ export async function candidateDetails(
   db: Queryable,
   keys: string[],
   identifiers: { scheme: string; value: string }[],
-  options: { perKey?: number; limit?: number; country?: string | null } = {},
+  options: { perKey?: number; limit?: number; country?: string | null; text?: string | null } = {},
 ): Promise<CandidateDetail[]> {
   // One probe of the batch statement: the single and the batch answers cannot drift apart.
-  return (await candidateDetailsBatch(db, [{ keys, identifiers, country: options.country ?? null }], options))[0]!;
+  return (await candidateDetailsBatch(db, [{ keys, identifiers, country: options.country ?? null, text: options.text ?? null }], options))[0]!;
 }
 
 /**
  * Candidates of many probes in ONE statement (candidateDetails is its one-probe case): per probe, the `limit`
- * best ranked by the rarity of the keys shared, then their number, then id (each key contributing at most `perKey`
- * counterparties), the identifier holders added, active only; each probe's list in rank order. Each distinct key is looked up once, and each candidate's names and
+ * best ranked as candidate-rank.ts says (each key contributing at most `perKey` counterparties), the identifier
+ * holders added, active only; each probe's list in rank order. Each distinct key is looked up once, and each candidate's names and
  * identifiers are read once however many probes share it.
  *
  * A common key (more holders than `perKey`, or its names at the count cap) is looked up for a probe only when none
@@ -72,11 +62,12 @@ export async function candidateDetailsBatch(
   return (await candidateQuery(db, probes, options, null)).details;
 }
 
-/** A probe of the candidate lookup: its blocking keys, identifiers and country. */
+/** A probe of the candidate lookup: its blocking keys, identifiers, country and normalised name (for the ranking). */
 export interface CandidateProbe {
   keys: string[];
   identifiers: { scheme: string; value: string }[];
   country?: string | null;
+  text?: string | null;
 }
 
 /**
@@ -107,6 +98,13 @@ async function candidateQuery(
     if (!probe.country) return;
     countryProbe.push(p);
     countries.push(probe.country);
+  });
+  const textProbe: number[] = [];
+  const texts: string[] = [];
+  probes.forEach((probe, p) => {
+    if (!probe.text) return;
+    textProbe.push(p);
+    texts.push(probe.text);
   });
   const keyProbe: number[] = [];
   const keys: string[] = [];
@@ -159,19 +157,32 @@ async function candidateQuery(
         SELECT DISTINCT b.counterparty_id FROM blocking_key b WHERE b.key = dk.key LIMIT ${perKey}
       ) c
       WHERE dk.key IN (SELECT key FROM qk)
-    ), ranked AS (
-      SELECT q.p, h.counterparty_id, row_number() OVER (PARTITION BY q.p ORDER BY sum(h.rarity) DESC, count(*) DESC, h.counterparty_id) AS rn
+    ), grouped AS (
+      -- A word's t: key and the s: key of its stem are one piece of evidence, not two: each group (see keyGroupSql)
+      -- counts once, at its rarest shared key.
+      SELECT q.p, h.counterparty_id, max(h.rarity) AS rarity
       FROM qk q JOIN hits h ON h.key = q.key
-      GROUP BY q.p, h.counterparty_id
+      GROUP BY q.p, h.counterparty_id, ${keyGroupSql('q.key')}
+    ), ranked AS (
+      SELECT p, counterparty_id, row_number() OVER (PARTITION BY p ORDER BY sum(rarity) DESC, count(*) DESC, counterparty_id) AS rn, sum(rarity) AS rarity
+      FROM grouped
+      GROUP BY p, counterparty_id
+    ), pt AS (
+      SELECT p, text FROM unnest(${sql.val(textProbe)}::int[], ${sql.val(texts)}::text[]) AS pt(p, text)
     ), pc AS (
       SELECT p, country FROM unnest(${sql.val(countryProbe)}::int[], ${sql.val(countries)}::text[]) AS pc(p, country)
     ), by_key AS (
-      -- The POOL rarest, then those whose country does not conflict with the probe's first (a conflict costs a
-      -- pair far more than any key says: resolvers/score, jurisdiction conflicting).
+      -- The POOL rarest, then: those whose country does not conflict with the probe's first (a conflict costs a pair
+      -- far more than any key says: resolvers/score, jurisdiction conflicting), then by their rarity plus how close
+      -- their closest name is to the probe's (trigram similarity, SIMILARITY_WEIGHT per unit). The closeness ranks
+      -- a typo variant whose distinctive word shares no key above the names that share only its common words.
       SELECT p, counterparty_id, rn FROM (
         SELECT r.p, r.counterparty_id, row_number() OVER (PARTITION BY r.p ORDER BY
-          (pc.country IS NOT NULL AND cp.jurisdiction IS NOT NULL AND split_part(cp.jurisdiction, '-', 1) <> split_part(pc.country, '-', 1)), r.rn) AS rn
-        FROM ranked r JOIN counterparty cp ON cp.id = r.counterparty_id LEFT JOIN pc ON pc.p = r.p
+          (pc.country IS NOT NULL AND cp.jurisdiction IS NOT NULL AND split_part(cp.jurisdiction, '-', 1) <> split_part(pc.country, '-', 1)),
+          r.rarity + coalesce(round(${SIMILARITY_WEIGHT} * (
+            SELECT max(similarity(n.normalised, pt.text)) FROM counterparty_name n WHERE n.counterparty_id = r.counterparty_id))::bigint, 0) DESC,
+          r.rn) AS rn
+        FROM ranked r JOIN counterparty cp ON cp.id = r.counterparty_id LEFT JOIN pc ON pc.p = r.p LEFT JOIN pt ON pt.p = r.p
         WHERE r.rn <= ${CANDIDATE_POOL}
       ) x
       WHERE rn <= ${options.limit ?? 50}
@@ -229,9 +240,6 @@ function tokenCountRows(read: { tokens: readonly string[]; cap: number }) {
     UNION ALL
     SELECT 's', NULL, NULL, NULL, NULL, NULL, NULL, NULL, NULL, ${registerSizeSql()}`;
 }
-
-/** How many of the rarest candidates are reordered by country before the limit is taken. */
-export const CANDIDATE_POOL = 50;
 
 /** The rank of a candidate found by an identifier only (after every candidate found by keys). */
 const UNRANKED = 2_147_483_647;

@@ -1,4 +1,4 @@
-export { blockingKeys, acronymKeys, PREFIX_KEY_LENGTH } from './blocking-keys.ts';
+export { blockingKeys, acronymKeys, PREFIX_KEY_LENGTH, STEM_LENGTH } from './blocking-keys.ts';
 export { candidatePairs, type CandidateOptions, type CandidatePairs } from './candidate-pairs.ts';
 export type { MatchRecord } from './match-record.ts';
 export { nameScript, type NameScript } from './script.ts';

@@ -13,6 +13,11 @@ export interface CommandDatabaseOptions {
   writes: boolean;
   /** Bring the schema up to date after opening (default true). */
   migrate?: boolean;
+  /**
+   * A reading command that matches names (cpreg reconcile): the candidate lookup ranks by trigram similarity
+   * (db/queries/candidate-rank.ts), so the embedded database is opened with its search extensions.
+   */
+  matches?: boolean;
   /** Where the lines go (default stderr). */
   say?: (line: string) => void;
 }
@@ -37,7 +42,7 @@ export async function openCommandDatabase(given: string | undefined, command: st
   // A command that only reads opens the embedded database without its search extensions (a third of the start) and
   // with a small buffer pool; should the schema need a migration, it is opened again as a writer and migrated.
   if (!options.writes && options.migrate !== false) {
-    const opened = await openOrExplain(given, command, { writes: false, extensions: false, smallBufferPool: true }, say);
+    const opened = await openOrExplain(given, command, { writes: false, extensions: options.matches === true, smallBufferPool: true }, say);
     const { schemaState } = await import('../../db/migrate.ts');
     if ((await schemaState(opened.db)).upToDate) return opened;
     await opened.close();

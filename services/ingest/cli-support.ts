@@ -13,11 +13,12 @@ export { countOf, pluralOf, singularOf } from '../cli/count-words.ts';
 export async function withDatabase<T>(
   target: string | undefined,
   command: string,
-  access: 'reads' | 'writes',
+  access: 'reads' | 'matches' | 'writes',
   fn: (db: Kysely<Database>) => Promise<T>,
 ): Promise<T> {
   const { openCommandDatabase } = await import('../cli/open-command-database.ts');
-  const database = await openCommandDatabase(target, command, { writes: access === 'writes' });
+  // 'matches': reads that look names up in the register (its candidate ranking needs the search extensions).
+  const database = await openCommandDatabase(target, command, { writes: access === 'writes', matches: access === 'matches' });
   try {
     return await fn(database.db);
   } finally {

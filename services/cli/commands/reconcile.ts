@@ -42,7 +42,7 @@ export default function register(program: Command): void {
       const progress = progressReporter('reconcile', 'vendor rows');
       let result;
       try {
-        result = await withDatabase(options.db, 'cpreg reconcile', 'reads', async (db) => {
+        result = await withDatabase(options.db, 'cpreg reconcile', 'matches', async (db) => {
           const { rows, rejected } = await readVendorMaster(file, map);
           const findings = await reconcile(db, rows, (done) => progress.update({ done, fraction: done / Math.max(1, rows.length) }));
           return { findings, summary: summarise(rows.length + rejected.length, rejected, findings) };

@@ -20,8 +20,8 @@ export interface ScoredMemoKey {
   exclude: ReadonlySet<number>;
 }
 
-function detailKey(keys: readonly string[], identifiers: readonly { scheme: string; value: string }[], country: string | null): string {
-  return JSON.stringify([keys, identifiers.map((i) => [i.scheme, i.value]), country]);
+function detailKey(keys: readonly string[], identifiers: readonly { scheme: string; value: string }[], country: string | null, text: string): string {
+  return JSON.stringify([keys, identifiers.map((i) => [i.scheme, i.value]), country, text]);
 }
 
 /** A probe's country: its own, or its input's (a prepared mention). */
@@ -83,12 +83,13 @@ export class BatchReads implements RarityReads {
     probes: { analysis: NameAnalysis; identifiers: Identifier[]; country?: string | null; input?: { country?: string | null } }[],
     limit: number,
   ): Promise<void> {
-    const todo = new Map<string, { keys: string[]; identifiers: Identifier[]; country: string | null }>();
+    const todo = new Map<string, { keys: string[]; identifiers: Identifier[]; country: string | null; text: string }>();
     for (const probe of probes) {
       const keys = keysOfAnalysis(probe.analysis);
       const country = countryOf(probe);
-      const key = detailKey(keys, probe.identifiers, country);
-      if (!this.details.has(key)) todo.set(key, { keys, identifiers: probe.identifiers, country });
+      const text = probe.analysis.normalised;
+      const key = detailKey(keys, probe.identifiers, country, text);
+      if (!this.details.has(key)) todo.set(key, { keys, identifiers: probe.identifiers, country, text });
     }
     if (todo.size === 0) return;
     const entries = [...todo.entries()];
@@ -113,17 +114,24 @@ export class BatchReads implements RarityReads {
     await this.frequencies(tokens);
   }
 
-  detailsFor(keys: readonly string[], identifiers: readonly { scheme: string; value: string }[], country: string | null): CandidateDetail[] | undefined {
-    return this.details.get(detailKey(keys, identifiers, country));
+  /** The candidates fetched for a probe (`text`: its normalised name, which the ranking reads), if any. */
+  detailsFor(
+    keys: readonly string[],
+    identifiers: readonly { scheme: string; value: string }[],
+    country: string | null,
+    text: string,
+  ): CandidateDetail[] | undefined {
+    return this.details.get(detailKey(keys, identifiers, country, text));
   }
 
   rememberDetails(
     keys: readonly string[],
     identifiers: readonly { scheme: string; value: string }[],
     country: string | null,
+    text: string,
     details: CandidateDetail[],
   ): void {
-    this.details.set(detailKey(keys, identifiers, country), details);
+    this.details.set(detailKey(keys, identifiers, country, text), details);
   }
 
   scoredFor<T>(analysis: NameAnalysis, key: ScoredMemoKey): T | undefined {

@@ -16,11 +16,13 @@ import type { IdfTable } from '../../../resolvers/compare/index.ts';
 import { keysOfAnalysis } from './keys.ts';
 
 /**
- * How many counterparties are fetched per name: ranked by the rarity of the keys they share, those whose country
- * does not conflict first (db/queries/blocking-keys.ts). On 400 generated probes at 10,000 names, 20 never found a
- * worse best candidate than the previous 25 (most shared keys, then lowest id) and found a better one 19 times.
+ * How many counterparties are fetched per name: those whose country does not conflict first, then by the rarity of
+ * the keys they share (a word and its stem counted once) plus the trigram similarity of their closest name
+ * (db/queries/candidate-rank.ts). On 1,500 generated probes at 10,000 generated names, every candidate scoring above
+ * newAt among all those the keys reach was in the first 7; 9 leaves a margin. The rarity-only ranking missed one
+ * in its first 20 in 7 of those probes (a typo in the distinctive word leaves only the common words' keys).
  */
-export const MAX_CANDIDATES = 20;
+export const MAX_CANDIDATES = 9;
 
 export interface ScoredCandidate {
   counterpartyId: number;
@@ -99,10 +101,11 @@ async function scoringState(
   if (memo && memo.model === model) return memo;
   const keys = keysOfAnalysis(probe.analysis);
   const country = probe.country ?? null;
-  let details = reads?.detailsFor(keys, probe.identifiers, country);
+  const text = probe.analysis.normalised;
+  let details = reads?.detailsFor(keys, probe.identifiers, country, text);
   if (!details) {
-    details = await candidateDetails(db, keys, probe.identifiers, { limit: MAX_CANDIDATES, country });
-    reads?.rememberDetails(keys, probe.identifiers, country, details);
+    details = await candidateDetails(db, keys, probe.identifiers, { limit: MAX_CANDIDATES, country, text });
+    reads?.rememberDetails(keys, probe.identifiers, country, text, details);
   }
   const state = await ScoringState.create(db, probe, details, model, exclude, reads);
   reads?.rememberScored(probe.analysis, memoKey, state);

@@ -53,11 +53,11 @@ describeBackends('batch reads', (backend) => {
       const probes = PROBES.map((text, i) => ({ analysis: analyse(text), identifiers: i === 0 ? [{ scheme: 'other' as const, value: '150483782' }] : [] }));
       const batch = await candidateDetailsBatch(
         opened.db,
-        probes.map((p) => ({ keys: keysOfAnalysis(p.analysis), identifiers: p.identifiers })),
+        probes.map((p) => ({ keys: keysOfAnalysis(p.analysis), identifiers: p.identifiers, text: p.analysis.normalised })),
         { limit: 3 },
       );
       for (const [i, probe] of probes.entries()) {
-        const alone = await candidateDetails(opened.db, keysOfAnalysis(probe.analysis), probe.identifiers, { limit: 3 });
+        const alone = await candidateDetails(opened.db, keysOfAnalysis(probe.analysis), probe.identifiers, { limit: 3, text: probe.analysis.normalised });
         expect({ probe: PROBES[i], details: batch[i] }).toEqual({ probe: PROBES[i], details: alone });
       }
       expect(batch.some((d) => d.length > 1)).toBe(true);
