@@ -16,10 +16,9 @@ import { BatchReads } from './matching/batch-reads.ts';
 import { MAX_CANDIDATES } from './matching/candidates.ts';
 import { currentModel, modelFromSettings } from './matching/model.ts';
 import { decide, type ContractContext, type PartyContext } from './resolve/decide.ts';
-import { contractContextFor } from './resolve/contract-context.ts';
+import { contractContextFor, contractContextsByRef, contractRefKey } from './resolve/contract-context.ts';
 import { neighbourhoodKeys } from './resolve/neighbourhood.ts';
 import { resultOf } from './resolve/result.ts';
-import { ChangeSet } from './state/change-set.ts';
 import { canonicalRow } from './state/tables.ts';
 import type { Pending } from './batch-cluster.ts';
 import type { BatchItemResult, Checked } from './batch-check.ts';
@@ -63,16 +62,13 @@ export async function readMentions(ctx: RegisterContext, checked: Checked[], opt
     toDecide.map((c) => c.prepared),
     MAX_CANDIDATES,
   );
-  const contracts = new Map<string, Promise<ContractContext | null>>();
-  const contractOf = (ref: { source: string; externalId: string }) => {
-    const refKey = JSON.stringify([ref.source, ref.externalId]);
-    if (!contracts.has(refKey))
-      contracts.set(
-        refKey,
-        ctx.db.transaction().execute((trx) => contractContextFor(new ChangeSet(trx, ctx.derived), ref)),
-      );
-    return contracts.get(refKey)!;
-  };
+  // The cannot-links of the stored mentions decided again, and the contracts named, one statement per kind.
+  await reads.prefetchCannotLinks(toDecide.flatMap((c) => (stored.has(c.key) ? [Number(stored.get(c.key)!.id)] : [])));
+  const contracts = await contractContextsByRef(
+    ctx.db,
+    toDecide.flatMap((c) => (c.prepared.input.contract ? [c.prepared.input.contract] : [])),
+  );
+  const contractOf = async (ref: { source: string; externalId: string }) => contracts.get(contractRefKey(ref)) ?? null;
   return { model, version: null, db: ctx.db, reads, stored, force: false, contractOf };
 }
 

@@ -132,16 +132,16 @@ export async function addIdentifierRow(
   origin: { source?: string | null; mentionId?: number | null; confirmedBy?: string | null },
   at: Date,
 ): Promise<StateRow<'counterparty_identifier'> | undefined> {
-  // The stored holders, then those added in this ChangeSet's buffer (not written yet).
-  const holders = [
-    ...(await holdersOf(cs.trx, [identifier])).map((h) => ({ counterparty_id: h.counterpartyId })),
-    ...cs.unwritten('counterparty_identifier').filter((r) => r.scheme === identifier.scheme && r.value === identifier.value),
+  // Read ahead with a chunk's locks (batch-write.ts), kept in step with this ChangeSet's writes; else read now:
+  // the stored holders, then those added in this ChangeSet's buffer (not written yet).
+  const holders = cs.prefetched.holdersOf(identifier) ?? [
+    ...(await holdersOf(cs.trx, [identifier])).map((h) => h.counterpartyId),
+    ...cs.unwritten('counterparty_identifier').flatMap((r) => (r.scheme === identifier.scheme && r.value === identifier.value ? [r.counterparty_id] : [])),
   ];
-  const own = holders.find((h) => Number(h.counterparty_id) === counterpartyId);
-  if (own) return undefined;
+  if (holders.includes(counterpartyId)) return undefined;
   const strong = isStrongScheme(identifier.scheme);
   if (strong && holders.length > 0) {
-    const other = Number(holders[0]!.counterparty_id);
+    const other = holders[0]!;
     throw new RegisterError(
       'IDENTIFIER_TAKEN',
       `${identifier.scheme} ${identifier.value} already belongs to counterparty ${other}; merge the two if they are one entity`,

@@ -104,7 +104,9 @@ async function changeMention(
 }
 
 export async function closeOpenItemsOfMention(cs: ChangeSet, mentionId: number): Promise<void> {
-  for (const item of await openItemsOfMention(cs.trx, mentionId)) {
+  // Read ahead with the chunk's locks (batch-write.ts), those still open; else read now.
+  const known = cs.prefetched.takeOpenItems(mentionId)?.filter((item) => cs.cached('review_item', item)?.status === 'open');
+  for (const item of known ?? (await openItemsOfMention(cs.trx, mentionId))) {
     await cs.require('review_item', item);
     await cs.update('review_item', item, { status: 'obsolete' });
   }

@@ -9,6 +9,8 @@ import type { NameAnalysis } from '../../../resolvers/analyse/index.ts';
 import type { Identifier } from '../../../resolvers/vocabulary.ts';
 import { candidateDetailsWithTokenCounts, type CandidateDetail } from '../../../db/queries/blocking-keys.ts';
 import { listOwnEntities, type OwnEntityView } from '../../../db/queries/own-entities.ts';
+import { cannotLinksOfMentions } from '../../../db/queries/chunk-reads.ts';
+import { survivorsOf } from '../../../db/queries/counterparties.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
 import { candidateAnalysis } from './analysis.ts';
 import { DF_CAP, NO_BASIS, rarityCounts, rarityOfCounts, type RarityBasis, type RarityCounts, type RarityReads } from './idf.ts';
@@ -39,7 +41,27 @@ export class BatchReads implements RarityReads {
   /** Scored candidates by analysis object (the same prepared mention is scored in decide and in clustering). */
   private readonly scored = new WeakMap<NameAnalysis, Map<string, unknown>>();
 
+  /** The counterparties (their survivors) each stored mention must not join, read ahead for the whole batch. */
+  private readonly cannotJoin = new Map<number, number[]>();
+
   constructor(readonly db: Queryable) {}
+
+  /** Reads the mention-level cannot-links of these stored mentions in one statement, followed to their survivors in one. */
+  async prefetchCannotLinks(mentionIds: readonly number[]): Promise<void> {
+    const links = await cannotLinksOfMentions(this.db, mentionIds);
+    const linked = [...new Set([...links.values()].flat())];
+    const survivors = linked.length === 0 ? new Map<number, number>() : await survivorsOf(this.db, linked);
+    for (const [mention, ids] of links)
+      this.cannotJoin.set(
+        mention,
+        ids.map((id) => survivors.get(id) ?? id),
+      );
+  }
+
+  /** The counterparties a stored mention must not join, when read ahead (prefetchCannotLinks). */
+  cannotLinksOf(mentionId: number): readonly number[] | undefined {
+    return this.cannotJoin.get(mentionId);
+  }
 
   /** Our own entities as already read on this snapshot (a single resolve reads them with its locks). */
   seedOwnEntities(list: OwnEntityView[]): void {
