@@ -18,7 +18,7 @@ import type { ResolveResult } from './resolve/result.ts';
 import { writeMention, type MentionWrite } from './resolve/write-mention.ts';
 import { write } from './transaction.ts';
 import type { ChangeSet } from './state/change-set.ts';
-import { lockActive, survivorFor } from './records.ts';
+import { lockActive, survivorFor } from './lock-active.ts';
 import type { Group, Pending } from './batch-cluster.ts';
 import type { BatchItemResult } from './batch-check.ts';
 import { clusteredWith, planGroup } from './batch-plan.ts';

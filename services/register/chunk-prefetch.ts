@@ -6,7 +6,7 @@ import { isStrongScheme } from '../../resolvers/vocabulary.ts';
 import { activeContractIdsByRefs } from '../../db/queries/chunk-reads.ts';
 import type { Group } from './batch-cluster.ts';
 import type { StoredRef } from './batch-write.ts';
-import { survivorFor } from './records.ts';
+import { survivorFor } from './lock-active.ts';
 import type { Outcome } from './resolve/decide.ts';
 import type { ChangeSet } from './state/change-set.ts';
 import { identifierKey } from './state/prefetched.ts';
@@ -36,7 +36,7 @@ function addsRows(outcome: Outcome): boolean {
 }
 
 /**
- * The identifier rows the chunk adds, as records.ts addIdentifierRow will decide them from the holders read ahead:
+ * The identifier rows the chunk adds, as add-identifier-row.ts will decide them from the holders read ahead:
  * none for one its counterparty holds, none for a strong one another holds. A mention whose earlier decision turns
  * its link into a question adds fewer: its ids are left over, a harmless gap (as a rollback leaves).
  */

@@ -5,7 +5,8 @@
 import type { ActorInput, RegisterContext } from './context.ts';
 import { RegisterError, notFound } from './errors.ts';
 import { commitWritten } from './history/commit.ts';
-import { removeNameSighting, touchCounterparty } from './records.ts';
+import { removeNameSighting } from './add-name-sighting.ts';
+import { touchCounterparty } from './touch-counterparty.ts';
 import type { ChangeSet } from './state/change-set.ts';
 import type { StateRow } from './state/tables.ts';
 import { write } from './transaction.ts';

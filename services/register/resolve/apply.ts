@@ -4,7 +4,11 @@
  */
 import { isStrongScheme, type NameKind } from '../../../resolvers/vocabulary.ts';
 import type { HistoryEventType } from '../../../resolvers/vocabulary.ts';
-import { addIdentifierRow, addNameSighting, createCounterpartyRow, lockActive, survivorFor, touchCounterparty } from '../records.ts';
+import { addIdentifierRow } from '../add-identifier-row.ts';
+import { addNameSighting } from '../add-name-sighting.ts';
+import { createCounterpartyRow } from '../create-counterparty-row.ts';
+import { lockActive, survivorFor } from '../lock-active.ts';
+import { touchCounterparty } from '../touch-counterparty.ts';
 import { RegisterError } from '../errors.ts';
 import type { ChangeSet } from '../state/change-set.ts';
 import type { StateRow, StateValues } from '../state/tables.ts';

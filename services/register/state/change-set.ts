@@ -43,7 +43,7 @@ function isNameRow(table: StateTable, _row: object): _row is StateRow<'counterpa
 
 export class ChangeSet {
   readonly ops: Op[] = [];
-  /** Merged id → survivor, as found while locking (records.ts lockActive). */
+  /** Merged id → survivor, as found while locking (lock-active.ts). */
   readonly aliases = new Map<number, number>();
   private readonly cache = new RowCache();
   private readonly buffer = new WriteBuffer();
@@ -97,7 +97,7 @@ export class ChangeSet {
   }
 
   /**
-   * Reads the holders of these identifiers in one statement (with those in the buffer), for records.ts
+   * Reads the holders of these identifiers in one statement (with those in the buffer), for
    * addIdentifierRow to answer without a read per identifier.
    */
   async prefetchHolders(identifiers: readonly { scheme: string; value: string }[]): Promise<void> {
