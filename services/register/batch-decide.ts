@@ -42,7 +42,7 @@ export interface WalkReads {
 
 /** Stage 2, read. */
 export async function readMentions(ctx: RegisterContext, checked: Checked[], options: WalkOptions): Promise<WalkReads> {
-  if (options.within) return readWithin(options.within, checked);
+  if (options.within) return readWithin(ctx, options.within, checked);
   // The read-only phase reads in bulk: stored mentions in one statement, the candidates and token counts of every
   // mention in one statement each (matching/batch-reads.ts), each contract once, in a read transaction of its own.
   const { model } = await currentModel(ctx.db);
@@ -52,7 +52,7 @@ export async function readMentions(ctx: RegisterContext, checked: Checked[], opt
       checked.map((c) => c.prepared.input),
     ),
   );
-  const reads = new BatchReads(ctx.db);
+  const reads = new BatchReads(ctx.db, ctx.stats);
   const toDecide = checked.filter((c) => stored.get(c.key)?.content_hash !== c.prepared.contentHash);
   reads.basis = basisOf(
     toDecide.map((c) => c.prepared.analysis.tokens),
@@ -73,7 +73,7 @@ export async function readMentions(ctx: RegisterContext, checked: Checked[], opt
 }
 
 /** A single resolve's reads, in its transaction (see the file header). */
-async function readWithin(within: Within, checked: Checked[]): Promise<WalkReads> {
+async function readWithin(ctx: RegisterContext, within: Within, checked: Checked[]): Promise<WalkReads> {
   if (checked.length !== 1) throw new Error(`a single resolve walks one mention, not ${checked.length}`);
   const { prepared } = checked[0]!;
   const cs = within.cs;
@@ -88,7 +88,7 @@ async function readWithin(within: Within, checked: Checked[]): Promise<WalkReads
   const { model, version } = modelFromSettings(basics.settings);
   // A batch of one: the register's reads shared by the own-entity check and the candidates (each read once), with
   // no batch basis, so the token weights are the register's alone.
-  const reads = new BatchReads(cs.trx);
+  const reads = new BatchReads(cs.trx, ctx.stats);
   reads.seedOwnEntities(basics.ownEntities);
   const settled = found !== undefined && found.content_hash === prepared.contentHash && !force;
   const contract = settled || within.party ? null : await contractContextFor(cs, prepared.input.contract);

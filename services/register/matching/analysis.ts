@@ -7,6 +7,7 @@
  * takes it when it is of the current version and was made under the candidate's jurisdiction, and analyses the
  * name again only otherwise (a stale row, `cpreg migrate reanalyse` rewrites those).
  */
+import type { MatchStats } from './match-stats.ts';
 import { ANALYSIS_VERSION, analyseName, type NameAnalysis } from '../../../resolvers/analyse/index.ts';
 
 const CACHE_LIMIT = 50_000;
@@ -34,15 +35,12 @@ export function storedAnalysisOf(name: string, country: string | null): StoredAn
   return { analysis: analyse(name, country), version: ANALYSIS_VERSION, country };
 }
 
-/** Candidate names scored on their stored analysis, and those analysed again (stale rows); for tests and benches. */
-export const storedAnalysisCounts = { stored: 0, reanalysed: 0 };
-
-/** The analysis of a candidate's stored name: the stored one when current, else analysed here. */
-export function candidateAnalysis(name: string, jurisdiction: string | null, stored: StoredAnalysis | null | undefined): NameAnalysis {
+/** The analysis of a candidate's stored name: the stored one when current, else analysed here (counted in `stats`). */
+export function candidateAnalysis(name: string, jurisdiction: string | null, stored: StoredAnalysis | null | undefined, stats?: MatchStats): NameAnalysis {
   if (stored && stored.version === ANALYSIS_VERSION && stored.country === jurisdiction && stored.analysis !== null) {
-    storedAnalysisCounts.stored++;
+    if (stats) stats.storedAnalyses++;
     return stored.analysis as NameAnalysis;
   }
-  storedAnalysisCounts.reanalysed++;
+  if (stats) stats.reanalysed++;
   return analyse(name, jurisdiction);
 }

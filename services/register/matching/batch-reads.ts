@@ -15,6 +15,7 @@ import type { Queryable } from '../../../db/queries/util.ts';
 import { candidateAnalysis } from './analysis.ts';
 import { DF_CAP, NO_BASIS, rarityCounts, rarityOfCounts, type RarityBasis, type RarityCounts, type RarityReads } from './idf.ts';
 import { keysOfAnalysis } from './keys.ts';
+import type { MatchStats } from './match-stats.ts';
 
 export interface ScoredMemoKey {
   country: string | null;
@@ -44,7 +45,11 @@ export class BatchReads implements RarityReads {
   /** The counterparties (their survivors) each stored mention must not join, read ahead for the whole batch. */
   private readonly cannotJoin = new Map<number, number[]>();
 
-  constructor(readonly db: Queryable) {}
+  /** `stats`: counts of the scoring done with these reads, when its caller wants them (matching/match-stats.ts). */
+  constructor(
+    readonly db: Queryable,
+    readonly stats?: MatchStats,
+  ) {}
 
   /** Reads the mention-level cannot-links of these stored mentions in one statement, followed to their survivors in one. */
   async prefetchCannotLinks(mentionIds: readonly number[]): Promise<void> {
@@ -130,7 +135,7 @@ export class BatchReads implements RarityReads {
     // The token counts scoring will ask for: the probes' tokens and those of every candidate name; read now only
     // when an analysis gave a token its stored name's words lack (a name stored by another analysis version).
     for (const list of found) {
-      for (const cp of list) for (const n of cp.names) for (const t of candidateAnalysis(n.name, cp.jurisdiction, n.stored).tokens) tokens.add(t);
+      for (const cp of list) for (const n of cp.names) for (const t of candidateAnalysis(n.name, cp.jurisdiction, n.stored, this.stats).tokens) tokens.add(t);
     }
     await this.frequencies(tokens);
   }
