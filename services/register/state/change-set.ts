@@ -111,8 +111,8 @@ export class ChangeSet {
   /** Locks the open review items of these mentions in one statement (after the mentions: the lock order) and keeps them. */
   async prefetchOpenItems(mentionIds: readonly number[]): Promise<void> {
     if (mentionIds.length === 0) return;
-    for (const r of await lockOpenItemsOfMentions(this.trx, mentionIds)) {
-      if (!this.cache.has('review_item', Number(r.id))) this.cache.set('review_item', canonicalRow('review_item', r));
+    for (const row of (await lockOpenItemsOfMentions(this.trx, mentionIds)).map((r) => canonicalRow('review_item', r))) {
+      if (!this.cache.has('review_item', row.id)) this.cache.set('review_item', row);
     }
     const wanted = new Set(mentionIds);
     const open = [...this.cache.rowsOf('review_item')].filter((r) => r.mention_id !== null && wanted.has(r.mention_id) && r.status === 'open');

@@ -85,5 +85,6 @@ describeBackends('batch round trips', (backend) => {
       // an open-item read and a cannot-link read per stored mention, and a survivor read per cannot-link).
       expect(counts).toEqual({ fresh: [13, 13], changed: [16, 16], unlinked: [16, 16] });
     });
-  });
+    // Twelve contracts and six batches: generous, for a loaded machine (no timing is asserted).
+  }, 240_000);
 });
