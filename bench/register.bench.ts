@@ -26,7 +26,7 @@ import { openDatabase } from '../db/open-database.ts';
 import { migrateToLatest } from '../db/migrate.ts';
 import { createRegisterContext, resolveMention } from '../services/register/index.ts';
 import { analyse } from '../services/register/matching/analysis.ts';
-import { candidateCounts } from '../services/register/matching/candidates.ts';
+import { newMatchStats } from '../services/register/matching/match-stats.ts';
 import { loadCounterparties, LOAD_CHUNK, type LoadRow } from '../services/register/bulk-load.ts';
 import { observeStatements, resolveStages, type TimedStatement } from './resolve-stages.ts';
 import type { BenchContext, BenchRow, GeneratedName } from './types.ts';
@@ -71,7 +71,8 @@ async function measure(ctx: BenchContext, db: Kysely<Database>, backend: 'pglite
   const count = ctx.mode === 'quick' ? 300 : 1000;
   const probes = queries.slice(0, warm + count);
   const baseline = backend === 'postgres' ? await measureTrigramTop10(db, probes, warm, size) : [];
-  const register = createRegisterContext(db);
+  const candidateCounts = newMatchStats();
+  const register = createRegisterContext(db, { stats: candidateCounts });
   const times: number[] = [];
   const stagesOf: Record<string, number>[] = [];
   const statuses: Record<string, number> = {};

@@ -61,13 +61,23 @@ export async function relationEnds(db: Queryable, relationId: number): Promise<{
 }
 
 /** Every relation from or to a counterparty, whole rows in id order: what a merge moves to the survivor. */
-export async function relationRowsTouching(db: Queryable, counterpartyId: number): Promise<CounterpartyRelation[]> {
-  return db
+export async function relationRowsTouching(
+  db: Queryable,
+  counterpartyId: number,
+): Promise<{ id: number; from_counterparty_id: number; to_counterparty_id: number; type: RelationType }[]> {
+  const rows: CounterpartyRelation[] = await db
     .selectFrom('counterparty_relation')
     .selectAll()
     .where((eb) => eb.or([eb('from_counterparty_id', '=', counterpartyId), eb('to_counterparty_id', '=', counterpartyId)]))
     .orderBy('id')
     .execute();
+  // The ids parsed here, once (int8 columns come back as strings from node-postgres).
+  return rows.map((r) => ({
+    id: id(r.id),
+    from_counterparty_id: id(r.from_counterparty_id),
+    to_counterparty_id: id(r.to_counterparty_id),
+    type: r.type as RelationType,
+  }));
 }
 
 /** Another relation (not `exceptId`) with the same ends and type, if there is one. */

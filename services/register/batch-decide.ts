@@ -16,10 +16,9 @@ import { BatchReads } from './matching/batch-reads.ts';
 import { MAX_CANDIDATES } from './matching/candidates.ts';
 import { currentModel, modelFromSettings } from './matching/model.ts';
 import { decide, type ContractContext, type PartyContext } from './resolve/decide.ts';
-import { contractContextFor } from './resolve/contract-context.ts';
+import { contractContextFor, contractContextsByRef, contractRefKey } from './resolve/contract-context.ts';
 import { neighbourhoodKeys } from './resolve/neighbourhood.ts';
 import { resultOf } from './resolve/result.ts';
-import { ChangeSet } from './state/change-set.ts';
 import { canonicalRow } from './state/tables.ts';
 import type { Pending } from './batch-cluster.ts';
 import type { BatchItemResult, Checked } from './batch-check.ts';
@@ -43,7 +42,7 @@ export interface WalkReads {
 
 /** Stage 2, read. */
 export async function readMentions(ctx: RegisterContext, checked: Checked[], options: WalkOptions): Promise<WalkReads> {
-  if (options.within) return readWithin(options.within, checked);
+  if (options.within) return readWithin(ctx, options.within, checked);
   // The read-only phase reads in bulk: stored mentions in one statement, the candidates and token counts of every
   // mention in one statement each (matching/batch-reads.ts), each contract once, in a read transaction of its own.
   const { model } = await currentModel(ctx.db);
@@ -53,7 +52,7 @@ export async function readMentions(ctx: RegisterContext, checked: Checked[], opt
       checked.map((c) => c.prepared.input),
     ),
   );
-  const reads = new BatchReads(ctx.db);
+  const reads = new BatchReads(ctx.db, ctx.stats);
   const toDecide = checked.filter((c) => stored.get(c.key)?.content_hash !== c.prepared.contentHash);
   reads.basis = basisOf(
     toDecide.map((c) => c.prepared.analysis.tokens),
@@ -63,21 +62,18 @@ export async function readMentions(ctx: RegisterContext, checked: Checked[], opt
     toDecide.map((c) => c.prepared),
     MAX_CANDIDATES,
   );
-  const contracts = new Map<string, Promise<ContractContext | null>>();
-  const contractOf = (ref: { source: string; externalId: string }) => {
-    const refKey = JSON.stringify([ref.source, ref.externalId]);
-    if (!contracts.has(refKey))
-      contracts.set(
-        refKey,
-        ctx.db.transaction().execute((trx) => contractContextFor(new ChangeSet(trx, ctx.derived), ref)),
-      );
-    return contracts.get(refKey)!;
-  };
+  // The cannot-links of the stored mentions decided again, and the contracts named, one statement per kind.
+  await reads.prefetchCannotLinks(toDecide.flatMap((c) => (stored.has(c.key) ? [Number(stored.get(c.key)!.id)] : [])));
+  const contracts = await contractContextsByRef(
+    ctx.db,
+    toDecide.flatMap((c) => (c.prepared.input.contract ? [c.prepared.input.contract] : [])),
+  );
+  const contractOf = async (ref: { source: string; externalId: string }) => contracts.get(contractRefKey(ref)) ?? null;
   return { model, version: null, db: ctx.db, reads, stored, force: false, contractOf };
 }
 
 /** A single resolve's reads, in its transaction (see the file header). */
-async function readWithin(within: Within, checked: Checked[]): Promise<WalkReads> {
+async function readWithin(ctx: RegisterContext, within: Within, checked: Checked[]): Promise<WalkReads> {
   if (checked.length !== 1) throw new Error(`a single resolve walks one mention, not ${checked.length}`);
   const { prepared } = checked[0]!;
   const cs = within.cs;
@@ -92,7 +88,7 @@ async function readWithin(within: Within, checked: Checked[]): Promise<WalkReads
   const { model, version } = modelFromSettings(basics.settings);
   // A batch of one: the register's reads shared by the own-entity check and the candidates (each read once), with
   // no batch basis, so the token weights are the register's alone.
-  const reads = new BatchReads(cs.trx);
+  const reads = new BatchReads(cs.trx, ctx.stats);
   reads.seedOwnEntities(basics.ownEntities);
   const settled = found !== undefined && found.content_hash === prepared.contentHash && !force;
   const contract = settled || within.party ? null : await contractContextFor(cs, prepared.input.contract);

@@ -11,14 +11,14 @@ import { mentionKey } from '../../resolvers/vocabulary.ts';
 import { mentionsByRef, type StoredMentionRow } from '../../db/queries/mentions-by-ref.ts';
 import type { ActorInput, RegisterContext } from './context.ts';
 import { jsonScore } from './matching/candidates.ts';
-import type { ContractContext, Outcome } from './resolve/decide.ts';
-import { contractContextFor } from './resolve/contract-context.ts';
+import type { Outcome } from './resolve/decide.ts';
+import { prefetchChunk } from './chunk-prefetch.ts';
 import { lockNameNeighbourhoods } from './resolve/neighbourhood.ts';
 import type { ResolveResult } from './resolve/result.ts';
 import { writeMention, type MentionWrite } from './resolve/write-mention.ts';
 import { write } from './transaction.ts';
 import type { ChangeSet } from './state/change-set.ts';
-import { lockActive, survivorFor } from './records.ts';
+import { lockActive, survivorFor } from './lock-active.ts';
 import type { Group, Pending } from './batch-cluster.ts';
 import type { BatchItemResult } from './batch-check.ts';
 import { clusteredWith, planGroup } from './batch-plan.ts';
@@ -125,11 +125,11 @@ async function writeChunk(ctx: RegisterContext, cs: ChangeSet, chunk: Group[], c
   );
   await lockActive(cs, targets);
   await cs.loadNames(linkTargets.map((id) => survivorFor(cs, id)));
-  const contracts = new Map<string, Promise<ContractContext | null>>();
+  const contractIds = await prefetchChunk(cs, chunk, plans, found);
   const out: ResolveResult[][] = [];
   for (const [g, group] of chunk.entries()) {
     const planned = requireReviewTargets(withReviewTarget(group, plans[g]!, c.pending));
-    const results = await writeGroup(ctx, cs, group, planned, { ...c, found, contracts });
+    const results = await writeGroup(ctx, cs, group, planned, { ...c, found, contractIds });
     const joined = results.find((r) => r.status === 'linked' || r.status === 'new')?.counterpartyId;
     if (joined !== undefined && joined !== null) c.pending.set(group, joined);
     out.push(results);
@@ -172,7 +172,7 @@ async function writeGroup(
   cs: ChangeSet,
   group: Group,
   planned: Outcome[],
-  c: ChunkContext & { found: Map<string, StoredRef>; contracts: Map<string, Promise<ContractContext | null>> },
+  c: ChunkContext & { found: Map<string, StoredRef>; contractIds: Map<string, number> },
 ): Promise<ResolveResult[]> {
   const within = c.options.within;
   const at = within?.at ?? ctx.now();
@@ -190,7 +190,7 @@ async function writeGroup(
         outcome,
         stored: found,
         textChanged,
-        contractId: member.known ? member.known.contractId : await contractIdOf(cs, member, c.contracts),
+        contractId: member.known ? member.known.contractId : contractIdOf(member, c.contractIds),
         ...(within?.beforeCommit ? { beforeCommit: within.beforeCommit } : {}),
         details: within ? singleDetails(within, textChanged) : batchDetails,
       },
@@ -203,13 +203,10 @@ async function writeGroup(
   return out;
 }
 
-/** The contract a batch's mention names, read in the chunk's transaction (once per contract). */
-async function contractIdOf(cs: ChangeSet, member: Pending, contracts: Map<string, Promise<ContractContext | null>>): Promise<number | null> {
+/** The active contract a batch's mention names, as the chunk read it in its transaction (null: none, or withdrawn). */
+function contractIdOf(member: Pending, contractIds: ReadonlyMap<string, number>): number | null {
   const ref = member.prepared.input.contract;
-  if (!ref) return null;
-  const refKey = JSON.stringify([ref.source, ref.externalId]);
-  if (!contracts.has(refKey)) contracts.set(refKey, contractContextFor(cs, ref));
-  return (await contracts.get(refKey)!)?.contractId ?? null;
+  return ref ? (contractIds.get(JSON.stringify([ref.source, ref.externalId])) ?? null) : null;
 }
 
 /** The details of a batch's event. */

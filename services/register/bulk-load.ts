@@ -8,7 +8,7 @@
  * row, as replay and undo need them): the rows createCounterpartyRow and addNameSighting would have written one by
  * one, under ids drawn in one statement.
  *
- * On PostgreSQL the rows are built here (the same values and images a ChangeSet makes: records.ts counterpartyValues
+ * On PostgreSQL the rows are built here (the same values and images a ChangeSet makes: create-counterparty-row.ts counterpartyValues
  * and nameValues, state/tables.ts canonicalRow) and sent with COPY, one per table (db/queries/copy-rows.ts): no
  * statement parameters, no JSON unpacked on the server. Elsewhere (PGlite), or with `via: 'statements'`, a
  * buffered ChangeSet writes them in one statement of set-based inserts. Both leave the same rows, keys, counts and
@@ -29,7 +29,9 @@ import type { RegisterContext, ActorInput } from './context.ts';
 import type { ChangeSet, Op } from './state/change-set.ts';
 import type { StoredNameAnalysis } from '../../db/queries/blocking-keys.ts';
 import { write } from './transaction.ts';
-import { addNameSighting, checkName, counterpartyValues, createCounterpartyRow, nameValues } from './records.ts';
+import { addNameSighting, nameValues } from './add-name-sighting.ts';
+import { checkName } from './check-name.ts';
+import { counterpartyValues, createCounterpartyRow } from './create-counterparty-row.ts';
 import { checkJurisdiction } from './jurisdiction.ts';
 import { commitEvent, eventRow, type EventInput } from './history/commit.ts';
 import { RegisterError, invalid } from './errors.ts';

@@ -58,7 +58,7 @@ export function letterCaseRank(name: string): number {
 /** Sightings of each name added up over its spellings that differ only in letter case. */
 function seenWithCaseVariants(pool: readonly NameCandidate[]): Map<string, number> {
   const seen = new Map<string, number>();
-  for (const n of pool) seen.set(caseKey(n.name), (seen.get(caseKey(n.name)) ?? 0) + Number(n.seen_count));
+  for (const n of pool) seen.set(caseKey(n.name), (seen.get(caseKey(n.name)) ?? 0) + n.seen_count);
   return seen;
 }
 
@@ -89,7 +89,7 @@ function compareBy(
     (n) => (isFullLegal(n) ? (caseGroupSeen.get(caseKey(n.name)) ?? 0) : 0),
     (n) => [...n.name].length,
     (n) => letterCaseRank(n.name),
-    (n) => (isFullLegal(n) ? Number(n.seen_count) : 0),
+    (n) => (isFullLegal(n) ? n.seen_count : 0),
     (n) => (current !== null && n.name === current ? 1 : 0),
     (n) => -n.id,
   ];

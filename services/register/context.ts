@@ -8,12 +8,15 @@ import type { Database } from '../../db/types.ts';
 import type { DerivedContext } from './state/derived.ts';
 import { nameBlockingKeys } from './matching/keys.ts';
 import { storedAnalysisOf } from './matching/analysis.ts';
+import type { MatchStats } from './matching/match-stats.ts';
 
 export interface RegisterContext {
   db: Kysely<Database>;
   derived: DerivedContext;
   /** The clock (tests may pin it). */
   now(): Date;
+  /** Counts of candidate scoring, kept only when given (benchmarks, tests; no decision reads them). */
+  stats?: MatchStats;
 }
 
 export interface ActorInput {
@@ -23,10 +26,11 @@ export interface ActorInput {
   requestId?: string;
 }
 
-export function createRegisterContext(db: Kysely<Database>, options: { now?: () => Date } = {}): RegisterContext {
+export function createRegisterContext(db: Kysely<Database>, options: { now?: () => Date; stats?: MatchStats } = {}): RegisterContext {
   return {
     db,
     derived: { nameKeys: nameBlockingKeys, nameAnalysis: storedAnalysisOf },
     now: options.now ?? (() => new Date()),
+    ...(options.stats ? { stats: options.stats } : {}),
   };
 }

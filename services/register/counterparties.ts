@@ -7,18 +7,13 @@ import { NAME_KINDS } from '../../resolvers/vocabulary.ts';
 import type { ActorInput, RegisterContext } from './context.ts';
 import { RegisterError, invalid, notFound } from './errors.ts';
 import { commitWritten } from './history/commit.ts';
-import {
-  addIdentifierRow,
-  addNameSighting,
-  checkName,
-  createCounterpartyRow,
-  lockActive,
-  normaliseIdentifierOrThrow,
-  survivorFor,
-  survivorOf,
-  touchCounterparty,
-  type IdentifierInput,
-} from './records.ts';
+import { addIdentifierRow } from './add-identifier-row.ts';
+import { addNameSighting } from './add-name-sighting.ts';
+import { checkName } from './check-name.ts';
+import { createCounterpartyRow } from './create-counterparty-row.ts';
+import { lockActive, survivorFor, survivorOf } from './lock-active.ts';
+import { normaliseIdentifierOrThrow, type IdentifierInput } from './normalise-identifier-or-throw.ts';
+import { touchCounterparty } from './touch-counterparty.ts';
 import type { ChangeSet } from './state/change-set.ts';
 import { write } from './transaction.ts';
 import * as q from '../../db/queries/counterparties.ts';

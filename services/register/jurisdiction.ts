@@ -9,7 +9,8 @@ import { parseJurisdiction } from '../../resolvers/compare/index.ts';
 import type { ActorInput, RegisterContext } from './context.ts';
 import { RegisterError, invalid } from './errors.ts';
 import { commitWritten } from './history/commit.ts';
-import { lockActive, survivorFor, touchCounterparty } from './records.ts';
+import { lockActive, survivorFor } from './lock-active.ts';
+import { touchCounterparty } from './touch-counterparty.ts';
 import { write } from './transaction.ts';
 
 export interface JurisdictionInput {

@@ -5,7 +5,8 @@
 import type { ActorInput, RegisterContext } from './context.ts';
 import { RegisterError, invalid, notFound } from './errors.ts';
 import { commitRequested } from './history/commit.ts';
-import { lockActive, survivorFor, touchCounterparty } from './records.ts';
+import { lockActive, survivorFor } from './lock-active.ts';
+import { touchCounterparty } from './touch-counterparty.ts';
 import type { ChangeSet } from './state/change-set.ts';
 import { write } from './transaction.ts';
 import { assertNoCannotLink } from './assert-no-cannot-link.ts';

@@ -18,36 +18,36 @@ export async function mergeInto(cs: ChangeSet, survivorId: number, loserId: numb
   const names = await nameRowsOf(await cs.flushed(), loserId);
   for (const n of names) {
     const twin = await findNameId(await cs.flushed(), survivorId, n.name, n.kind);
-    const row = await cs.require('counterparty_name', Number(n.id));
+    const row = await cs.require('counterparty_name', n.id);
     if (twin !== undefined) {
       const keep = await cs.require('counterparty_name', twin);
       const patch: StateValues<'counterparty_name'> = { seen_count: keep.seen_count + row.seen_count };
       if (!keep.confirmed_by && row.confirmed_by) patch.confirmed_by = row.confirmed_by;
       await cs.update('counterparty_name', twin, patch);
-      await cs.delete('counterparty_name', Number(n.id));
+      await cs.delete('counterparty_name', n.id);
     } else {
-      await cs.update('counterparty_name', Number(n.id), { counterparty_id: survivorId });
+      await cs.update('counterparty_name', n.id, { counterparty_id: survivorId });
     }
   }
   const identifiers = await identifierRowsOf(await cs.flushed(), loserId);
   for (const i of identifiers) {
     const twin = await findIdentifierId(await cs.flushed(), survivorId, i.scheme, i.value);
-    await cs.require('counterparty_identifier', Number(i.id));
-    if (twin !== undefined) await cs.delete('counterparty_identifier', Number(i.id));
-    else await cs.update('counterparty_identifier', Number(i.id), { counterparty_id: survivorId });
+    await cs.require('counterparty_identifier', i.id);
+    if (twin !== undefined) await cs.delete('counterparty_identifier', i.id);
+    else await cs.update('counterparty_identifier', i.id, { counterparty_id: survivorId });
   }
   const mentionIds = await mentionIdsOfCounterparty(await cs.flushed(), loserId);
   await cs.lock('mention', mentionIds);
   for (const m of mentionIds) await cs.update('mention', m, { counterparty_id: survivorId, updated_at: iso });
   const relations = await relationRowsTouching(await cs.flushed(), loserId);
   for (const r of relations) {
-    const from = Number(r.from_counterparty_id) === loserId ? survivorId : Number(r.from_counterparty_id);
-    const to = Number(r.to_counterparty_id) === loserId ? survivorId : Number(r.to_counterparty_id);
-    await cs.require('counterparty_relation', Number(r.id));
-    const duplicate = from !== to && (await findOtherRelation(await cs.flushed(), from, to, r.type, Number(r.id))) !== undefined;
+    const from = r.from_counterparty_id === loserId ? survivorId : r.from_counterparty_id;
+    const to = r.to_counterparty_id === loserId ? survivorId : r.to_counterparty_id;
+    await cs.require('counterparty_relation', r.id);
+    const duplicate = from !== to && (await findOtherRelation(await cs.flushed(), from, to, r.type, r.id)) !== undefined;
     // A relation between the two merged records, or one the survivor already has, has nothing left to say.
-    if (from === to || duplicate) await cs.delete('counterparty_relation', Number(r.id));
-    else await cs.update('counterparty_relation', Number(r.id), { from_counterparty_id: from, to_counterparty_id: to });
+    if (from === to || duplicate) await cs.delete('counterparty_relation', r.id);
+    else await cs.update('counterparty_relation', r.id, { from_counterparty_id: from, to_counterparty_id: to });
   }
   // Open review items between the two are answered by the merge itself.
   for (const item of await openItemsBetween(await cs.flushed(), survivorId, loserId)) {

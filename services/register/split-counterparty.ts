@@ -5,7 +5,10 @@
 import type { ActorInput, RegisterContext } from './context.ts';
 import { RegisterError, invalid, notFound } from './errors.ts';
 import { commitRequested } from './history/commit.ts';
-import { addNameSighting, createCounterpartyRow, lockActive, removeNameSighting, survivorFor, touchCounterparty } from './records.ts';
+import { addNameSighting, removeNameSighting } from './add-name-sighting.ts';
+import { createCounterpartyRow } from './create-counterparty-row.ts';
+import { lockActive, survivorFor } from './lock-active.ts';
+import { touchCounterparty } from './touch-counterparty.ts';
 import type { ChangeSet } from './state/change-set.ts';
 import { write } from './transaction.ts';
 import { recordedNameOf, recordedNamesOf } from './mention-names.ts';

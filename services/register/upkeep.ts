@@ -5,7 +5,8 @@
 import type { ActorInput, RegisterContext } from './context.ts';
 import { RegisterError, notFound } from './errors.ts';
 import { commitWritten } from './history/commit.ts';
-import { removeNameSighting, touchCounterparty } from './records.ts';
+import { removeNameSighting } from './add-name-sighting.ts';
+import { touchCounterparty } from './touch-counterparty.ts';
 import type { ChangeSet } from './state/change-set.ts';
 import type { StateRow } from './state/tables.ts';
 import { write } from './transaction.ts';
@@ -104,7 +105,9 @@ async function changeMention(
 }
 
 export async function closeOpenItemsOfMention(cs: ChangeSet, mentionId: number): Promise<void> {
-  for (const item of await openItemsOfMention(cs.trx, mentionId)) {
+  // Read ahead with the chunk's locks (batch-write.ts), those still open; else read now.
+  const known = cs.prefetched.takeOpenItems(mentionId)?.filter((item) => cs.cached('review_item', item)?.status === 'open');
+  for (const item of known ?? (await openItemsOfMention(cs.trx, mentionId))) {
     await cs.require('review_item', item);
     await cs.update('review_item', item, { status: 'obsolete' });
   }

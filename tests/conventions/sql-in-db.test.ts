@@ -64,10 +64,17 @@ describe('SQL lives in db/', () => {
     expect(stale.map((a) => a.prefix)).toEqual([]);
   });
 
-  it('has no SQL in the register write path already moved to db/ (state, history, resolve, matching, records, batch)', () => {
+  it('has no SQL in the register write path already moved to db/ (state, history, resolve, matching, the building blocks, batch)', () => {
     const moved = ['services/register/state/', 'services/register/history/', 'services/register/resolve/', 'services/register/matching/'];
     const files = [
-      'services/register/records.ts',
+      'services/register/check-name.ts',
+      'services/register/normalise-identifier-or-throw.ts',
+      'services/register/create-counterparty-row.ts',
+      'services/register/add-name-sighting.ts',
+      'services/register/add-identifier-row.ts',
+      'services/register/touch-counterparty.ts',
+      'services/register/lock-active.ts',
+      'services/register/chunk-prefetch.ts',
       'services/register/batch.ts',
       'services/register/batch-check.ts',
       'services/register/batch-decide.ts',

@@ -6,7 +6,7 @@
 import { expect, it } from 'vitest';
 import { describeEachBackend } from '../support/index.ts';
 import { MAX_MERGE_CHAIN, mergeChainEnds, survivorsOf } from '../../db/queries/counterparties.ts';
-import { survivorOf } from '../../services/register/records.ts';
+import { survivorOf } from '../../services/register/lock-active.ts';
 
 describeEachBackend('merge chains', (ctx) => {
   const now = new Date().toISOString();

@@ -9,6 +9,7 @@
  * under the candidate's jurisdiction, and analyses the name again only otherwise (a stale row, `cpreg migrate
  * reanalyse` rewrites those). A rebuilt analysis is the one analyseName gives, so it goes into the cache too.
  */
+import type { MatchStats } from './match-stats.ts';
 import { ANALYSIS_VERSION, analyseName, compactAnalysis, rebuildAnalysis, type CompactAnalysis, type NameAnalysis } from '../../../resolvers/analyse/index.ts';
 
 const CACHE_LIMIT = 50_000;
@@ -45,21 +46,18 @@ export function storedAnalysisOf(name: string, country: string | null): StoredAn
 }
 
 /**
- * Candidate names scored on their stored analysis (`rebuilt` of them rebuilt from it, the others found in the
- * cache), and those analysed again (stale rows); for tests and benches.
+ * The analysis of a candidate's stored name: cached, or rebuilt from the stored one when current, else analysed here
+ * (counted in `stats`: scored on the stored analysis, of those rebuilt from it, and analysed again).
  */
-export const storedAnalysisCounts = { stored: 0, rebuilt: 0, reanalysed: 0 };
-
-/** The analysis of a candidate's stored name: cached, or rebuilt from the stored one when current, else analysed here. */
-export function candidateAnalysis(name: string, jurisdiction: string | null, stored: StoredAnalysis | null | undefined): NameAnalysis {
+export function candidateAnalysis(name: string, jurisdiction: string | null, stored: StoredAnalysis | null | undefined, stats?: MatchStats): NameAnalysis {
   if (stored && stored.version === ANALYSIS_VERSION && stored.country === jurisdiction && stored.analysis !== null) {
-    storedAnalysisCounts.stored++;
+    if (stats) stats.storedAnalyses++;
     const key = cacheKey(name, jurisdiction);
     const hit = cache.get(key);
     if (hit) return hit;
-    storedAnalysisCounts.rebuilt++;
+    if (stats) stats.rebuilt++;
     return remember(key, rebuildAnalysis(name, jurisdiction, stored.analysis as CompactAnalysis));
   }
-  storedAnalysisCounts.reanalysed++;
+  if (stats) stats.reanalysed++;
   return analyse(name, jurisdiction);
 }

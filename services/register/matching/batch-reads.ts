@@ -9,10 +9,13 @@ import type { NameAnalysis } from '../../../resolvers/analyse/index.ts';
 import type { Identifier } from '../../../resolvers/vocabulary.ts';
 import { candidateDetailsWithTokenCounts, type CandidateDetail } from '../../../db/queries/blocking-keys.ts';
 import { listOwnEntities, type OwnEntityView } from '../../../db/queries/own-entities.ts';
+import { cannotLinksOfMentions } from '../../../db/queries/chunk-reads.ts';
+import { survivorsOf } from '../../../db/queries/counterparties.ts';
 import type { Queryable } from '../../../db/queries/util.ts';
 import { candidateAnalysis } from './analysis.ts';
 import { DF_CAP, NO_BASIS, rarityCounts, rarityOfCounts, type RarityBasis, type RarityCounts, type RarityReads } from './idf.ts';
 import { keysOfAnalysis } from './keys.ts';
+import type { MatchStats } from './match-stats.ts';
 
 export interface ScoredMemoKey {
   country: string | null;
@@ -39,7 +42,31 @@ export class BatchReads implements RarityReads {
   /** Scored candidates by analysis object (the same prepared mention is scored in decide and in clustering). */
   private readonly scored = new WeakMap<NameAnalysis, Map<string, unknown>>();
 
-  constructor(readonly db: Queryable) {}
+  /** The counterparties (their survivors) each stored mention must not join, read ahead for the whole batch. */
+  private readonly cannotJoin = new Map<number, number[]>();
+
+  /** `stats`: counts of the scoring done with these reads, when its caller wants them (matching/match-stats.ts). */
+  constructor(
+    readonly db: Queryable,
+    readonly stats?: MatchStats,
+  ) {}
+
+  /** Reads the mention-level cannot-links of these stored mentions in one statement, followed to their survivors in one. */
+  async prefetchCannotLinks(mentionIds: readonly number[]): Promise<void> {
+    const links = await cannotLinksOfMentions(this.db, mentionIds);
+    const linked = [...new Set([...links.values()].flat())];
+    const survivors = linked.length === 0 ? new Map<number, number>() : await survivorsOf(this.db, linked);
+    for (const [mention, ids] of links)
+      this.cannotJoin.set(
+        mention,
+        ids.map((id) => survivors.get(id) ?? id),
+      );
+  }
+
+  /** The counterparties a stored mention must not join, when read ahead (prefetchCannotLinks). */
+  cannotLinksOf(mentionId: number): readonly number[] | undefined {
+    return this.cannotJoin.get(mentionId);
+  }
 
   /** Our own entities as already read on this snapshot (a single resolve reads them with its locks). */
   seedOwnEntities(list: OwnEntityView[]): void {
@@ -109,7 +136,7 @@ export class BatchReads implements RarityReads {
     // The token counts scoring will ask for: the probes' tokens and those of every candidate name; read now only
     // when an analysis gave a token its stored name's words lack (a name stored by another analysis version).
     for (const list of found) {
-      for (const cp of list) for (const n of cp.names) for (const t of candidateAnalysis(n.name, cp.jurisdiction, n.stored).tokens) tokens.add(t);
+      for (const cp of list) for (const n of cp.names) for (const t of candidateAnalysis(n.name, cp.jurisdiction, n.stored, this.stats).tokens) tokens.add(t);
     }
     await this.frequencies(tokens);
   }

@@ -10,6 +10,7 @@ import { candidateDetails, type CandidateDetail } from '../../../db/queries/bloc
 import type { Queryable } from '../../../db/queries/util.ts';
 import { candidateAnalysis } from './analysis.ts';
 import type { BatchReads } from './batch-reads.ts';
+import type { MatchStats } from './match-stats.ts';
 import { idfFor } from './idf.ts';
 import { scoreUpperBound } from './bound.ts';
 import type { IdfTable } from '../../../resolvers/compare/index.ts';
@@ -46,9 +47,6 @@ export function probeRecord(probe: Probe): MatchRecord {
     identifiers: probe.identifiers,
   };
 }
-
-/** Candidates fetched and scored, summed over probes (for benchmarks; no decision reads these). */
-export const candidateCounts = { probes: 0, fetched: 0, scored: 0 };
 
 /**
  * Scores the register's candidates for `probe`, best first: every candidate fetched (the MAX_CANDIDATES ranked
@@ -149,6 +147,7 @@ class ScoringState {
     private readonly analysed: AnalysedCandidate[],
     private readonly idf: IdfTable,
     private readonly exclude: ReadonlySet<number>,
+    private readonly stats: MatchStats | undefined,
   ) {
     // Per candidate, the bound of its best current and of its best former name (−∞ when it has none).
     this.bounds = [false, true].map((former) =>
@@ -159,8 +158,10 @@ class ScoringState {
         return bound;
       }),
     );
-    candidateCounts.probes++;
-    candidateCounts.fetched += analysed.length;
+    if (stats) {
+      stats.probes++;
+      stats.fetched += analysed.length;
+    }
   }
 
   static async create(
@@ -175,12 +176,12 @@ class ScoringState {
       id: cp.counterpartyId,
       canonicalName: cp.canonicalName,
       jurisdiction: cp.jurisdiction,
-      names: cp.names.map((n) => ({ name: n.name, former: n.kind === 'former', analysis: candidateAnalysis(n.name, cp.jurisdiction, n.stored) })),
+      names: cp.names.map((n) => ({ name: n.name, former: n.kind === 'former', analysis: candidateAnalysis(n.name, cp.jurisdiction, n.stored, reads?.stats) })),
       identifiers: cp.identifiers.map((i) => ({ scheme: i.scheme, value: i.value, ...(i.label ? { label: i.label } : {}) }) as Identifier),
     }));
     const tokens = analysed.length === 0 ? [] : [probe.analysis.tokens, ...analysed.flatMap((a) => a.names.map((n) => n.analysis.tokens))].flat();
     const idf = await idfFor(db, tokens, reads);
-    return new ScoringState(model, probeRecord(probe), analysed, idf, exclude);
+    return new ScoringState(model, probeRecord(probe), analysed, idf, exclude, reads?.stats);
   }
 
   /** The scored list, best first (ties in rank order); `forDecision`: leave out what cannot matter (see above). */
@@ -215,7 +216,7 @@ class ScoringState {
     const out = top
       ? { counterpartyId: candidate.id, canonicalName: candidate.canonicalName, matchedName: top.name, score: top.pair.score, pair: top.pair }
       : null;
-    if (out) candidateCounts.scored++;
+    if (out && this.stats) this.stats.scored++;
     memo.set(i, out);
     return out;
   }

@@ -4,7 +4,11 @@
  */
 import { isStrongScheme, type NameKind } from '../../../resolvers/vocabulary.ts';
 import type { HistoryEventType } from '../../../resolvers/vocabulary.ts';
-import { addIdentifierRow, addNameSighting, createCounterpartyRow, lockActive, survivorFor, touchCounterparty } from '../records.ts';
+import { addIdentifierRow } from '../add-identifier-row.ts';
+import { addNameSighting } from '../add-name-sighting.ts';
+import { createCounterpartyRow } from '../create-counterparty-row.ts';
+import { lockActive, survivorFor } from '../lock-active.ts';
+import { touchCounterparty } from '../touch-counterparty.ts';
 import { RegisterError } from '../errors.ts';
 import type { ChangeSet } from '../state/change-set.ts';
 import type { StateRow, StateValues } from '../state/tables.ts';
@@ -75,6 +79,10 @@ export function targetOf(outcome: Outcome): number {
   return outcome.counterpartyId;
 }
 
+/**
+ * Writes one mention's outcome, step by step: the counterparty it names or creates, the mention row, what a link
+ * adds to the counterparty (names, identifiers, a new version), and the review item a person answers.
+ */
 export async function applyOutcome(
   cs: ChangeSet,
   prepared: PreparedMention,
@@ -82,33 +90,76 @@ export async function applyOutcome(
   existing: StateRow<'mention'> | undefined,
   extra: { contractId: number | null; at: Date },
 ): Promise<Applied> {
-  const at = extra.at;
-  const iso = at.toISOString();
-  let counterpartyId: number | null = null;
-  let created = false;
-  let recordedName: RecordedName | null = null;
+  const { counterpartyId, created } = await counterpartyOf(cs, prepared, outcome, extra.at);
+  const linking = (outcome.status === 'linked' || outcome.status === 'new') && counterpartyId !== null;
+  const recorded = linking ? namesToRecord(prepared, outcome) : { recordedName: null, recordedAliases: [] };
+  const values = await mentionValues(cs, prepared, outcome, counterpartyId, recorded, extra);
+  const iso = extra.at.toISOString();
+  const mention = existing ? await cs.update('mention', existing.id, values) : await cs.insert('mention', { ...values, created_at: iso });
+  if (linking) await addToCounterparty(cs, counterpartyId, prepared, outcome, recorded, { mentionId: mention.id, ...extra });
+  const reviewItemId = outcome.status === 'review' && counterpartyId !== null ? await openReviewItem(cs, mention, counterpartyId, outcome.score, iso) : null;
+  return { mention: await cs.require('mention', mention.id), counterpartyId, reviewItemId, createdCounterparty: created };
+}
+
+/** The counterparty an outcome names (locked, followed to its survivor), or the one it creates. */
+async function counterpartyOf(
+  cs: ChangeSet,
+  prepared: PreparedMention,
+  outcome: Outcome,
+  at: Date,
+): Promise<{ counterpartyId: number | null; created: boolean }> {
   if (outcome.status === 'linked' || outcome.status === 'review') {
     const target = targetOf(outcome);
     await lockActive(cs, [target]);
-    counterpartyId = survivorFor(cs, target);
+    return { counterpartyId: survivorFor(cs, target), created: false };
   }
-  if (outcome.status === 'new') {
-    const kind = prepared.analysis.kind === 'person' ? 'person' : prepared.analysis.kind === 'organisation' ? 'organisation' : 'unknown';
-    const cp = await createCounterpartyRow(cs, { name: prepared.text, kind, jurisdiction: prepared.input.country ?? null, at });
-    counterpartyId = cp.id;
-    created = true;
-  }
-  const values: StateValues<'mention'> = {
-    source: prepared.input.source,
-    external_id: prepared.input.externalId,
+  if (outcome.status !== 'new') return { counterpartyId: null, created: false };
+  const kind = prepared.analysis.kind === 'person' ? 'person' : prepared.analysis.kind === 'organisation' ? 'organisation' : 'unknown';
+  const cp = await createCounterpartyRow(cs, { name: prepared.text, kind, jurisdiction: prepared.input.country ?? null, at });
+  return { counterpartyId: cp.id, created: true };
+}
+
+/** The names a link records: the mention's own (when the outcome records it) and the other names it declares. */
+interface Recorded {
+  recordedName: RecordedName | null;
+  recordedAliases: RecordedName[];
+}
+
+function namesToRecord(prepared: PreparedMention, outcome: Outcome): Recorded {
+  const recordedName = outcome.recordName ? { name: prepared.text, kind: nameKindOf(prepared, outcome) } : null;
+  return { recordedName, recordedAliases: declaredToRecord(outcome, recordedName, prepared) };
+}
+
+/** The mention's evidence: the names it recorded (so that moving it away takes exactly these sightings with it). */
+function evidenceOf(recorded: Recorded, identifierConflicts: string[] = []): Record<string, unknown> {
+  return {
+    recordedName: recorded.recordedName,
+    ...(recorded.recordedAliases.length > 0 ? { recordedAliases: recorded.recordedAliases } : {}),
+    ...(identifierConflicts.length > 0 ? { identifierConflicts } : {}),
+  };
+}
+
+/** The mention row as the outcome leaves it. */
+async function mentionValues(
+  cs: ChangeSet,
+  prepared: PreparedMention,
+  outcome: Outcome,
+  counterpartyId: number | null,
+  recorded: Recorded,
+  extra: { contractId: number | null; at: Date },
+): Promise<StateValues<'mention'>> {
+  const input = prepared.input;
+  return {
+    source: input.source,
+    external_id: input.externalId,
     text: prepared.text,
     content_hash: prepared.contentHash,
-    contract_source: prepared.input.contract?.source ?? null,
-    contract_external_id: prepared.input.contract?.externalId ?? null,
+    contract_source: input.contract?.source ?? null,
+    contract_external_id: input.contract?.externalId ?? null,
     contract_id: extra.contractId,
-    role: prepared.input.role ?? null,
-    country: prepared.input.country ?? null,
-    address: prepared.input.address ?? null,
+    role: input.role ?? null,
+    country: input.country ?? null,
+    address: input.address ?? null,
     identifiers: prepared.identifiers,
     status: outcome.status,
     counterparty_id: outcome.status === 'linked' || outcome.status === 'new' ? counterpartyId : null,
@@ -116,56 +167,49 @@ export async function applyOutcome(
     score: outcome.score,
     // The explanation is stored once (its own row, shared with the review item); the mention keeps its own keys.
     explanation_id: await cs.explain(outcome.evidence),
-    evidence: { recordedName: null as RecordedName | null },
+    evidence: evidenceOf(recorded),
     confirmed_by: null,
-    updated_at: iso,
+    updated_at: extra.at.toISOString(),
   };
-  const linking = (outcome.status === 'linked' || outcome.status === 'new') && counterpartyId !== null;
-  if (linking && outcome.recordName) {
-    recordedName = { name: prepared.text, kind: nameKindOf(prepared, outcome) };
-    values.evidence = { recordedName };
-  }
-  // Kept in the evidence like recordedName, so that moving the mention away takes exactly these sightings with it.
-  const recordedAliases = linking ? declaredToRecord(outcome, recordedName, prepared) : [];
-  if (recordedAliases.length > 0) values.evidence = { ...values.evidence, recordedAliases };
-  const mention = existing ? await cs.update('mention', existing.id, values) : await cs.insert('mention', { ...values, created_at: iso });
-  const mentionId = mention.id;
-  let reviewItemId: number | null = null;
-  if (linking && counterpartyId !== null) {
-    const confirmedBy = outcome.confirmedByIdentifier ? `identifier:${outcome.confirmedByIdentifier}` : null;
-    if (recordedName) {
-      await addNameSighting(cs, counterpartyId, { ...recordedName, source: prepared.input.source, mentionId, contractId: extra.contractId, confirmedBy }, at);
-    }
-    for (const alias of recordedAliases) {
-      await addNameSighting(cs, counterpartyId, { ...alias, source: prepared.input.source, mentionId, contractId: extra.contractId }, at);
-    }
-    const notes = await addMentionIdentifiers(cs, counterpartyId, prepared, mentionId, confirmedBy, at);
-    if (notes.length > 0) {
-      await cs.update('mention', mentionId, {
-        evidence: { recordedName, ...(recordedAliases.length > 0 ? { recordedAliases } : {}), identifierConflicts: notes },
-      });
-    }
-    await touchCounterparty(cs, counterpartyId, at);
-  }
-  if (outcome.status === 'review' && counterpartyId !== null) {
-    const item = await cs.insert('review_item', {
-      kind: 'mention_link',
-      mention_id: mentionId,
-      left_counterparty_id: null,
-      right_counterparty_id: counterpartyId,
-      score: outcome.score,
-      explanation_id: mention.explanation_id,
-      evidence: {},
-      status: 'open',
-      decision: null,
-      decided_by: null,
-      decided_at: null,
-      reason: null,
-      created_at: iso,
-    });
-    reviewItemId = item.id;
-  }
-  return { mention: await cs.require('mention', mentionId), counterpartyId, reviewItemId, createdCounterparty: created };
+}
+
+/** What a link adds to its counterparty: the name sightings, the identifiers it lacks, a new version. */
+async function addToCounterparty(
+  cs: ChangeSet,
+  counterpartyId: number,
+  prepared: PreparedMention,
+  outcome: Outcome,
+  recorded: Recorded,
+  where: { mentionId: number; contractId: number | null; at: Date },
+): Promise<void> {
+  const { mentionId, contractId, at } = where;
+  const source = prepared.input.source;
+  const confirmedBy = outcome.confirmedByIdentifier ? `identifier:${outcome.confirmedByIdentifier}` : null;
+  if (recorded.recordedName) await addNameSighting(cs, counterpartyId, { ...recorded.recordedName, source, mentionId, contractId, confirmedBy }, at);
+  for (const alias of recorded.recordedAliases) await addNameSighting(cs, counterpartyId, { ...alias, source, mentionId, contractId }, at);
+  const notes = await addMentionIdentifiers(cs, counterpartyId, prepared, mentionId, confirmedBy, at);
+  if (notes.length > 0) await cs.update('mention', mentionId, { evidence: evidenceOf(recorded, notes) });
+  await touchCounterparty(cs, counterpartyId, at);
+}
+
+/** The review item that asks a person whether the mention is this counterparty (sharing the mention's explanation). */
+async function openReviewItem(cs: ChangeSet, mention: StateRow<'mention'>, counterpartyId: number, score: Outcome['score'], iso: string): Promise<number> {
+  const item = await cs.insert('review_item', {
+    kind: 'mention_link',
+    mention_id: mention.id,
+    left_counterparty_id: null,
+    right_counterparty_id: counterpartyId,
+    score,
+    explanation_id: mention.explanation_id,
+    evidence: {},
+    status: 'open',
+    decision: null,
+    decided_by: null,
+    decided_at: null,
+    reason: null,
+    created_at: iso,
+  });
+  return item.id;
 }
 
 export function canonicalNameIn(cs: ChangeSet, counterpartyId: number | null): string | undefined {

@@ -8,7 +8,8 @@ import type { NameAnalysis } from '../../../resolvers/analyse/index.ts';
 import type { Identifier, MentionInput } from '../../../resolvers/vocabulary.ts';
 import { invalid } from '../errors.ts';
 import { analyse } from '../matching/analysis.ts';
-import { checkName, normaliseIdentifierOrThrow } from '../records.ts';
+import { checkName } from '../check-name.ts';
+import { normaliseIdentifierOrThrow } from '../normalise-identifier-or-throw.ts';
 
 import { MAX_ID_LENGTH } from '../../../resolvers/vocabulary.ts';
 export const MAX_ADDRESS_LENGTH = 2000;

@@ -15,6 +15,7 @@ import type { DecideContext, DecisionBase, Lookup, Outcome } from './decide.ts';
 import { confirmedNameFor, type ConfirmedName } from './confirmed-name.ts';
 import { throughFormerName } from './former-name.ts';
 import type { PreparedMention } from './prepare.ts';
+import type { BatchReads } from '../matching/batch-reads.ts';
 import { newSummary, reviewSummary } from './summaries.ts';
 
 /** What every register outcome's explanation carries: thresholds, how it was looked up, the top five candidates. */
@@ -28,7 +29,7 @@ export async function fromRegisterCandidates(
   lookup: Lookup,
   base: DecisionBase,
 ): Promise<Outcome> {
-  const exclude = await excludedFor(db, context.mentionId, context.alsoExclude);
+  const exclude = await excludedFor(db, context.mentionId, context.alsoExclude, context.reads);
   const { current: candidates, former } = await scoredCandidatesWithFormer(db, lookup.probe, model, exclude, context.reads);
   const best = candidates.find((c) => c.score !== -Infinity);
   const common: Common = { ...base, via: lookup.via, ...(lookup.term ? { term: lookup.term } : {}), candidates: candidates.slice(0, 5).map(summaryOf) };
@@ -49,7 +50,10 @@ export async function fromRegisterCandidates(
 
 /** Counterparties this mention must not join: mention-level cannot-links, followed to their survivors, and `also` (decide's
  * `alsoExclude`: reresolve leaves out the counterparty a mention created, services/register/reresolve.ts). */
-async function excludedFor(db: Queryable, mentionId: number | null, also: readonly number[] = []): Promise<Set<number>> {
+async function excludedFor(db: Queryable, mentionId: number | null, also: readonly number[] = [], reads?: BatchReads): Promise<Set<number>> {
+  // A batch read them ahead for all its stored mentions (matching/batch-reads.ts); a single resolve reads them here.
+  const ahead = mentionId === null ? undefined : reads?.cannotLinksOf(mentionId);
+  if (ahead) return new Set([...ahead, ...also]);
   const links = mentionId === null ? [] : (await cannotLinksOf(db, [], mentionId)).filter((l) => l.mentionId === mentionId);
   if (links.length === 0) return new Set(also);
   const survivors = await survivorsOf(db, [...new Set(links.map((l) => l.counterpartyId))]);

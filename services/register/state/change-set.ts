@@ -16,12 +16,15 @@
 import type { Kysely, Transaction } from 'kysely';
 import type { Database } from '../../../db/types.ts';
 import { deleteById, drawIds, drawIdsAndLock, lockNamesOf, lockRows, nextId } from '../../../db/queries/state-writes.ts';
+import { holdersOf } from '../../../db/queries/identifiers.ts';
+import { lockOpenItemsOfMentions } from '../../../db/queries/chunk-reads.ts';
 import { deepEqual } from './deep-equal.ts';
 import { syncDerived, type DerivedContext } from './derived.ts';
 import { Explanations } from './explanations.ts';
 import { IdPools, type IdTable } from './id-pools.ts';
 import { asJsonb, jsonbImage } from './jsonb-image.ts';
 import { refsOf, touchedBy, type Op } from './ops.ts';
+import { Prefetched } from './prefetched.ts';
 import { RowCache } from './row-cache.ts';
 import { canonicalPatch, canonicalRow, type Row, type StateRow, type StateTable, type StateValues } from './tables.ts';
 import { WriteBuffer, type BufferedEvent } from './write-buffer.ts';
@@ -40,12 +43,14 @@ function isNameRow(table: StateTable, _row: object): _row is StateRow<'counterpa
 
 export class ChangeSet {
   readonly ops: Op[] = [];
-  /** Merged id → survivor, as found while locking (records.ts lockActive). */
+  /** Merged id → survivor, as found while locking (lock-active.ts). */
   readonly aliases = new Map<number, number>();
   private readonly cache = new RowCache();
   private readonly buffer = new WriteBuffer();
   private readonly ids = new IdPools();
   private readonly explanations: Explanations;
+  /** What a chunk read ahead (state/prefetched.ts): identifier holders, open review items of stored mentions. */
+  readonly prefetched = new Prefetched();
 
   constructor(
     readonly trx: Transaction<Database>,
@@ -89,6 +94,29 @@ export class ChangeSet {
     this.ids.add(drawn.ids);
     for (const r of drawn.counterparties) this.cache.set('counterparty', canonicalRow('counterparty', r));
     this.holdNames(namesOf, drawn.names);
+  }
+
+  /**
+   * Reads the holders of these identifiers in one statement (with those in the buffer), for
+   * addIdentifierRow to answer without a read per identifier.
+   */
+  async prefetchHolders(identifiers: readonly { scheme: string; value: string }[]): Promise<void> {
+    const todo = identifiers.filter((i) => !this.prefetched.knowsHolders(i));
+    if (todo.length === 0) return;
+    const stored = await holdersOf(this.trx, [...todo]);
+    const buffered = this.unwritten('counterparty_identifier').map((r) => ({ counterpartyId: r.counterparty_id, scheme: r.scheme, value: r.value }));
+    this.prefetched.keepHolders(todo, [...stored, ...buffered]);
+  }
+
+  /** Locks the open review items of these mentions in one statement (after the mentions: the lock order) and keeps them. */
+  async prefetchOpenItems(mentionIds: readonly number[]): Promise<void> {
+    if (mentionIds.length === 0) return;
+    for (const row of (await lockOpenItemsOfMentions(this.trx, mentionIds)).map((r) => canonicalRow('review_item', r))) {
+      if (!this.cache.has('review_item', row.id)) this.cache.set('review_item', row);
+    }
+    const wanted = new Set(mentionIds);
+    const open = [...this.cache.rowsOf('review_item')].filter((r) => r.mention_id !== null && wanted.has(r.mention_id) && r.status === 'open');
+    this.prefetched.keepOpenItems(mentionIds, open);
   }
 
   /** Locks every name of these counterparties and keeps them as their complete name lists. */
@@ -186,6 +214,7 @@ export class ChangeSet {
     this.cache.set(table, row);
     this.buffer.insert(table, id);
     this.ops.push({ op: 'insert', table, row });
+    this.prefetched.inserted(table, row);
     if (table === 'counterparty') this.cache.holdNamesOf(id);
     if (isNameRow(table, row)) {
       this.cache.trackName(row, true);
@@ -218,6 +247,7 @@ export class ChangeSet {
     }
     this.buffer.update(table, id, after);
     this.ops.push(op);
+    this.prefetched.changed(table);
     // A name's text or owner changes its blocking keys, which the database keeps, and a counterparty's jurisdiction
     // its names' stored analyses: written now, and the derived rows follow.
     const derivedFollows =
@@ -242,6 +272,7 @@ export class ChangeSet {
     await deleteById(this.trx, table, current.id);
     this.cache.delete(table, current.id);
     this.ops.push(op);
+    this.prefetched.changed(table);
     return current;
   }
 

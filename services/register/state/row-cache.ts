@@ -27,6 +27,12 @@ export class RowCache {
     this.rows.set(rowKey(table, row.id), row);
   }
 
+  /** Every row held of a table. */
+  *rowsOf<T extends StateTable>(table: T): Iterable<StateRow<T>> {
+    const prefix = `${table}:`;
+    for (const [key, row] of this.rows) if (key.startsWith(prefix)) yield row as StateRow<T>;
+  }
+
   delete(table: StateTable, id: number): void {
     this.rows.delete(rowKey(table, id));
   }

@@ -16,13 +16,9 @@ import { bulkLoad } from '../../../bench/register.bench.ts';
 import { generateNames } from '../../../services/demo/generate-names.ts';
 import { analyse } from '../../../services/register/matching/analysis.ts';
 import { keysOfAnalysis } from '../../../services/register/matching/keys.ts';
-import {
-  candidateCounts,
-  MAX_CANDIDATES,
-  scoreDetails,
-  scoredCandidatesWithFormer,
-  type ScoredCandidate,
-} from '../../../services/register/matching/candidates.ts';
+import { BatchReads } from '../../../services/register/matching/batch-reads.ts';
+import { newMatchStats } from '../../../services/register/matching/match-stats.ts';
+import { MAX_CANDIDATES, scoreDetails, scoredCandidatesWithFormer, type ScoredCandidate } from '../../../services/register/matching/candidates.ts';
 import { candidateDetails, type CandidateDetail } from '../../../db/queries/blocking-keys.ts';
 import { CANDIDATE_POOL } from '../../../db/queries/candidate-rank.ts';
 import { DEFAULT_MATCH_MODEL } from '../../../resolvers/score/default-model.ts';
@@ -63,9 +59,10 @@ describeBackends('candidate ranking and score bound', (backend) => {
         const row = stream.next().value!;
         const probe = { analysis: analyse(row.name), country: row.country, identifiers: [] };
         const keys = keysOfAnalysis(probe.analysis);
-        const before = { ...candidateCounts };
-        const decision = await scoredCandidatesWithFormer(opened.db, probe, model);
-        for (const k of ['probes', 'fetched', 'scored'] as const) counted[k] += candidateCounts[k] - before[k];
+        // The probe's own reads, only to count its scoring (matching/match-stats.ts).
+        const stats = newMatchStats();
+        const decision = await scoredCandidatesWithFormer(opened.db, probe, model, new Set(), new BatchReads(opened.db, stats));
+        for (const k of ['probes', 'fetched', 'scored'] as const) counted[k] += stats[k];
         const text = probe.analysis.normalised;
         const details = await candidateDetails(opened.db, keys, [], { limit: MAX_CANDIDATES, country: row.country, text });
         const everything = (await scoreDetails(opened.db, probe, details, model, new Set(), undefined, true)).current;

@@ -1,6 +1,6 @@
 /** Read routes of a counterparty follow a merged id with 308 to its survivor. */
 import type { FastifyReply, FastifyRequest } from 'fastify';
-import { survivorOf } from '../../../register/records.ts';
+import { survivorOf } from '../../../register/lock-active.ts';
 import { ApiError } from '../../errors.ts';
 import { redirectToSurvivor } from './redirect-to-survivor.ts';
 

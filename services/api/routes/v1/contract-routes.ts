@@ -1,7 +1,7 @@
 /** /v1/contracts: store one (with its parties, or given parties), list and search them, read one by id or by source id. */
 import { storeContract, type ContractInput } from '../../../register/contracts.ts';
 import { applyGivenParties, type GivenParty } from '../../../register/contract-given-parties.ts';
-import { normaliseIdentifierOrThrow } from '../../../register/records.ts';
+import { normaliseIdentifierOrThrow } from '../../../register/normalise-identifier-or-throw.ts';
 import { contractByRef, getContract, searchContracts } from '../../../../db/queries/contracts.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import { ID_PARAM, IDENTIFIER, NAME, PAGE_QUERY, SOURCE_ID, pagedOf } from './schemas.ts';

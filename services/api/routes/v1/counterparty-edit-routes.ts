@@ -12,7 +12,8 @@ import {
   renameCounterparty,
 } from '../../../register/counterparties.ts';
 import { checkJurisdiction, setJurisdiction } from '../../../register/jurisdiction.ts';
-import { checkName, normaliseIdentifierOrThrow } from '../../../register/records.ts';
+import { checkName } from '../../../register/check-name.ts';
+import { normaliseIdentifierOrThrow } from '../../../register/normalise-identifier-or-throw.ts';
 import { NAME_KINDS } from '../../../../resolvers/vocabulary.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
 import { CHANGE_RESULT, COUNTERPARTY_OUT, COUNTRY, ID, ID_PARAM, IDENTIFIER, NAME, REASON } from './schemas.ts';

@@ -2,7 +2,7 @@
 import { mergeCounterparties } from '../../../register/merge-counterparties.ts';
 import { splitCounterparty } from '../../../register/split-counterparty.ts';
 import { addRelation, removeRelation } from '../../../register/relations.ts';
-import { survivorOf } from '../../../register/records.ts';
+import { survivorOf } from '../../../register/lock-active.ts';
 import { relationEnds } from '../../../../db/queries/relations.ts';
 import { RELATION_TYPES } from '../../../../resolvers/vocabulary.ts';
 import { ApiError, problemResponses } from '../../errors.ts';
