@@ -46,6 +46,8 @@ export class ChangeSet {
   private readonly buffer = new WriteBuffer();
   private readonly ids = new IdPools();
   private readonly explanations: Explanations;
+  /** The next new counterparty takes a temporary id that the write replaces by one it draws (reserveAndLock). */
+  private counterpartyInWrite = false;
 
   constructor(
     readonly trx: Transaction<Database>,
@@ -72,6 +74,11 @@ export class ChangeSet {
     this.ids.add(await drawIds(this.trx, new Map(Object.entries(counts) as [IdTable, number][])));
   }
 
+  /** Keeps ids drawn beforehand for this ChangeSet's new rows (a single resolve's, with its first statement). */
+  keepIds(drawn: ReadonlyMap<IdTable, readonly number[]>): void {
+    this.ids.add(drawn);
+  }
+
   /** The real id of a temporary id once it is written (any other id as it is). */
   realId(id: number): number {
     return this.ids.realId(id);
@@ -85,7 +92,19 @@ export class ChangeSet {
   async reserveAndLock(counts: Partial<Record<IdTable, number>>, lock: { counterparties: number[]; namesOf: number[] }): Promise<void> {
     const counterparties = [...new Set(lock.counterparties)].filter((id) => !this.cache.has('counterparty', id));
     const namesOf = this.namesToLoad(lock.namesOf);
-    const drawn = await drawIdsAndLock(this.trx, new Map(Object.entries(counts) as [IdTable, number][]), { counterparties, namesOf });
+    // Ids reserved already (a single resolve's, drawn with its first statement: keepIds) are not drawn again.
+    const short = new Map((Object.entries(counts) as [IdTable, number][]).map(([t, n]) => [t, Math.max(0, n - this.ids.held(t))] as const));
+    const drawing = [...short].filter(([, n]) => n > 0);
+    if (counterparties.length === 0 && namesOf.length === 0) {
+      if (drawing.length === 0) return;
+      // One new counterparty is all this statement would be for: its id is drawn by the write instead (one round
+      // trip fewer). Its id is not drawn ahead as the others are: the register's size is its highest id (matching/idf.ts).
+      if (drawing.length === 1 && drawing[0]![0] === 'counterparty' && drawing[0]![1] === 1) {
+        this.counterpartyInWrite = true;
+        return;
+      }
+    }
+    const drawn = await drawIdsAndLock(this.trx, short, { counterparties, namesOf });
     this.ids.add(drawn.ids);
     for (const r of drawn.counterparties) this.cache.set('counterparty', canonicalRow('counterparty', r));
     this.holdNames(namesOf, drawn.names);
@@ -145,6 +164,7 @@ export class ChangeSet {
 
   /** Writes everything buffered: the rows, their derived keys and the events, in a few statements. */
   async flush(): Promise<void> {
+    this.counterpartyInWrite = false;
     if (this.buffer.empty) return;
     this.ids.written(await this.buffer.write(this.trx, this.cache, this.ops));
   }
@@ -181,7 +201,10 @@ export class ChangeSet {
 
   /** A new row, with its id: reserved, or drawn now (a name with none reserved: temporary until the flush). */
   async insert<T extends StateTable>(table: T, values: StateValues<T>): Promise<StateRow<T>> {
-    const id = table === 'counterparty_name' ? this.ids.takeOrTemporary(table) : (this.ids.take(table) ?? (await nextId(this.trx, table)));
+    const id =
+      table === 'counterparty_name' || (table === 'counterparty' && this.takeCounterpartyInWrite())
+        ? this.ids.takeOrTemporary(table)
+        : (this.ids.take(table) ?? (await nextId(this.trx, table)));
     const row = canonicalRow(table, jsonbImage(table, { ...values, id }));
     this.cache.set(table, row);
     this.buffer.insert(table, id);
@@ -194,6 +217,13 @@ export class ChangeSet {
       this.buffer.nameAnalysis({ name_id: id, analysis: stored.analysis, analysis_version: stored.version, country: stored.country });
     }
     return row;
+  }
+
+  /** Whether the next new counterparty's id is drawn by the write (once: the write draws one). */
+  private takeCounterpartyInWrite(): boolean {
+    const inWrite = this.counterpartyInWrite && this.ids.held('counterparty') === 0 && !this.buffer.drawsCounterparty();
+    this.counterpartyInWrite = false;
+    return inWrite;
   }
 
   /** Changes the given columns; records only the columns whose value really changes. */
