@@ -176,7 +176,9 @@ export class ChangeSet {
   }
 
   /** The current image of one row, locking it on first use. */
-  async get<T extends StateTable>(table: T, id: number): Promise<StateRow<T> | undefined> {
+  async get<T extends StateTable>(table: T, temporaryOrReal: number): Promise<StateRow<T> | undefined> {
+    // A writer may still hold a temporary id the buffer's write has replaced since.
+    const id = this.realId(temporaryOrReal);
     const cached = this.cache.get(table, id);
     if (cached) return cached;
     const [row] = await this.lock(table, [id]);
@@ -239,6 +241,8 @@ export class ChangeSet {
       after[column] = value;
     }
     if (Object.keys(after).length === 0) return current;
+    // The row's own id: `id` may be a temporary one written since (realId).
+    id = current.id;
     const op: Op = { op: 'update', table, id, before, after, refs: refsOf(table, current) };
     const row: StateRow<T> = { ...current, ...after };
     this.cache.set(table, row);

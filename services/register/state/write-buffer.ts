@@ -22,7 +22,7 @@ import { upsertNameAnalysesWrite, type NameAnalysisRow } from '../../../db/queri
 import { isTemporaryId } from './id-pools.ts';
 import type { Op } from './ops.ts';
 import type { RowCache } from './row-cache.ts';
-import { columnsOf, STATE_TABLES, type Row, type StateTable } from './tables.ts';
+import { columnsOf, COUNTERPARTY_COLUMNS, STATE_TABLES, type Row, type StateTable } from './tables.ts';
 
 /** A history event waiting in the buffer (history/commit.ts). */
 export interface BufferedEvent {
@@ -148,6 +148,8 @@ export class WriteBuffer {
     if (temp !== undefined) {
       map.set(temp, written.counterparty!);
       cache.renameCounterparty(temp, written.counterparty!);
+      // Ops not yet in an event (a flush before the writer's event) keep their images for it: given the real id too.
+      renameCounterpartyOps(ops, temp, written.counterparty!);
     }
     this.inserts = new Map();
     this.inserted = new Set();
@@ -208,5 +210,18 @@ function renameNameOps(lists: Op[][], map: ReadonlyMap<number, number>): void {
         if (typeof id === 'number' && map.has(id)) op.row.id = map.get(id);
       }
     }
+  }
+}
+
+/** Gives a counterparty's temporary id its real one in the row images of ops (their counterparty columns). */
+function renameCounterpartyOps(ops: Op[], temp: number, id: number): void {
+  const rename = (table: StateTable, image: Row) => {
+    for (const column of COUNTERPARTY_COLUMNS[table]) if (image[column] === temp) image[column] = id;
+  };
+  for (const op of ops) {
+    if (op.op === 'update') {
+      if (op.table === 'counterparty' && op.id === temp) op.id = id;
+      for (const image of [op.before, op.after, op.refs]) rename(op.table, image);
+    } else rename(op.table, op.row);
   }
 }
