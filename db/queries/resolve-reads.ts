@@ -10,6 +10,18 @@ import { id } from './util.ts';
 import { ownEntityView, type OwnEntityView } from './own-entities.ts';
 import { settingsView, type StoredSettings } from './settings.ts';
 import { storedMention, type MentionRef, type StoredMentionRow } from './mentions-by-ref.ts';
+import { drawnIds, idsByTable } from './state-writes.ts';
+
+/**
+ * Ids a single resolve draws with its first statement for the rows it may add (an upper bound; one left over is a
+ * gap, as a rollback leaves): none when its stored mention has this content (it answers what is stored and writes
+ * nothing), and no mention id when it is stored at all.
+ */
+export interface IdsAhead<T extends string> {
+  counts: ReadonlyMap<T, number>;
+  /** The mention's content hash; null: drawn whatever is stored (a forced resolve). */
+  unlessContentHash: string | null;
+}
 
 /** The advisory locks on these keys, one row per lock, taken in one sorted order (a query to run or to nest). */
 function neighbourhoodLocks(keys: readonly string[]) {
@@ -31,23 +43,37 @@ export async function lockNeighbourhoodKeys(db: Queryable, keys: readonly string
  * again; a change to the settings or to our own entities commits on its own). The candidates, which the locks guard,
  * are read by a later statement, on a snapshot taken after the locks.
  */
-export async function lockAndReadDecisionBasics(
+export async function lockAndReadDecisionBasics<T extends string>(
   db: Queryable,
   keys: readonly string[],
   ref: MentionRef,
-): Promise<{ settings: StoredSettings | undefined; ownEntities: OwnEntityView[]; stored: StoredMentionRow | undefined }> {
+  ahead: IdsAhead<T>,
+): Promise<{ settings: StoredSettings | undefined; ownEntities: OwnEntityView[]; stored: StoredMentionRow | undefined; ids: Map<T, number[]> }> {
+  const counts = new Map([...ahead.counts].filter(([t, n]) => n > 0 && t !== 'mention'));
+  const mentions = ahead.counts.get('mention' as T) ?? 0;
+  const tables = [...counts.keys()];
+  const settled = ahead.unlessContentHash === null ? sql`false` : sql`EXISTS (SELECT 1 FROM stored WHERE content_hash = ${ahead.unlessContentHash})`;
   const result = await sql<{
     settings: Parameters<typeof settingsView>[0] | null;
     own: Parameters<typeof ownEntityView>[0][];
     stored: StoredMentionRow | null;
+    ids: [T, unknown][];
   }>`
+    WITH stored AS (${storedMention(ref)})
     SELECT
       (SELECT count(*) FROM (${neighbourhoodLocks(keys)}) locked) AS locks,
-      (SELECT row_to_json(s) FROM (${storedMention(ref)}) s) AS stored,
+      (SELECT row_to_json(s) FROM stored s) AS stored,
       (SELECT row_to_json(m) FROM matcher_settings m WHERE m.id = 'current') AS settings,
-      (SELECT coalesce(json_agg(row_to_json(o) ORDER BY o.id), '[]'::json) FROM own_entity o WHERE o.removed_at IS NULL) AS own`.execute(db);
+      (SELECT coalesce(json_agg(row_to_json(o) ORDER BY o.id), '[]'::json) FROM own_entity o WHERE o.removed_at IS NULL) AS own,
+      (SELECT coalesce(json_agg(json_build_array(d.t, d.id)), '[]'::json) FROM (
+        ${drawnIds(tables, counts, sql`NOT ${settled}`)}
+        UNION ALL ${drawnIds(['mention' as T], new Map([['mention' as T, mentions]]), sql`NOT EXISTS (SELECT 1 FROM stored)`)}) d) AS ids`.execute(db);
   const row = result.rows[0]!;
-  return { settings: row.settings ? settingsView(row.settings) : undefined, ownEntities: row.own.map(ownEntityView), stored: row.stored ?? undefined };
+  const ids = idsByTable(
+    [...tables, 'mention' as T],
+    row.ids.map(([t, id]) => ({ t, id })),
+  );
+  return { settings: row.settings ? settingsView(row.settings) : undefined, ownEntities: row.own.map(ownEntityView), stored: row.stored ?? undefined, ids };
 }
 
 /** The mention of each party of a contract, by the party's position. */

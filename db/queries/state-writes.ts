@@ -29,15 +29,19 @@ export async function drawIds<T extends string>(trx: Trx, counts: ReadonlyMap<T,
   return idsByTable(tables, (await drawnIds(tables, counts).execute(trx)).rows);
 }
 
-/** One row (t, id) per id drawn, `counts` per table (a query to run or to nest). */
-function drawnIds<T extends string>(tables: readonly T[], counts: ReadonlyMap<T, number>) {
+/**
+ * One row (t, id) per id drawn, `counts` per table (a query to run or to nest). `when`: a condition of the
+ * statement it is nested in; false, nothing is drawn (nextval is not called at all).
+ */
+export function drawnIds<T extends string>(tables: readonly T[], counts: ReadonlyMap<T, number>, when: RawBuilder<unknown> = sql`true`) {
   return sql<{ t: T; id: unknown }>`
     SELECT t, nextval(pg_get_serial_sequence(t, 'id')) AS id
-    FROM unnest(${sql.val([...tables])}::text[], ${sql.val(tables.map((t) => counts.get(t)!))}::int[]) AS k(t, n), generate_series(1, k.n)`;
+    FROM unnest(${sql.val([...tables])}::text[], ${sql.val(tables.map((t) => counts.get(t)!))}::int[]) AS k(t, n),
+      generate_series(1, CASE WHEN ${when} THEN k.n ELSE 0 END)`;
 }
 
 /** Drawn ids per table, in ascending order. */
-function idsByTable<T extends string>(tables: readonly T[], drawn: readonly { t: T; id: unknown }[]): Map<T, number[]> {
+export function idsByTable<T extends string>(tables: readonly T[], drawn: readonly { t: T; id: unknown }[]): Map<T, number[]> {
   const out = new Map<T, number[]>(tables.map((t) => [t, []]));
   for (const row of drawn) out.get(row.t)!.push(Number(row.id));
   for (const ids of out.values()) ids.sort((a, b) => a - b);
@@ -78,32 +82,78 @@ export function rowsJson(rows: readonly object[]): string {
 const wellFormed = (text: string): boolean => (text as unknown as { isWellFormed(): boolean }).isWellFormed();
 const toWellFormed = (text: string): string => (text as unknown as { toWellFormed(): string }).toWellFormed();
 
+/**
+ * A counterparty id drawn by the write statement itself (`runWritesDrawing`): the rows hold a temporary id in its
+ * place (state/id-pools.ts), replaced in their JSON text by the id the statement draws.
+ */
+export interface DrawnInWrite {
+  temp: number;
+}
+
+/** The CTE of a write that draws a counterparty id (runWritesDrawing). */
+const DRAWN_COUNTERPARTY = 'drawn_counterparty';
+
+/**
+ * The rows as a jsonb parameter, with the temporary counterparty id replaced by the one the statement draws. The
+ * replace works on JSON text, so the temporary id's digits must occur only as that number: a string holding them
+ * (a name "4503599627370497 Ltd") or another number spelling them is given a marker that the text does not hold.
+ */
+function rowsParam(rows: readonly object[], drawn?: DrawnInWrite): RawBuilder<unknown> {
+  if (!drawn) return sql`${rowsJson(rows)}::jsonb`;
+  let marked: readonly object[] = rows;
+  for (let marker = drawn.temp, tries = 0; tries < 64; marker = Number.MAX_SAFE_INTEGER - tries++) {
+    if (marker !== drawn.temp) marked = withNumber(rows, drawn.temp, marker) as object[];
+    const text = rowsJson(marked);
+    const digits = String(marker);
+    const spelled = text.split(digits).length - 1;
+    if (spelled === 0) return sql`${text}::jsonb`;
+    if (spelled === countNumber(marked, marker)) return sql`replace(${text}, ${digits}, (SELECT id::text FROM ${sql.raw(DRAWN_COUNTERPARTY)}))::jsonb`;
+  }
+  throw new Error(`no marker found for the temporary id ${drawn.temp} (a defect)`);
+}
+
+/** A deep copy of a JSON value with every number `from` replaced by `to`. */
+function withNumber(value: unknown, from: number, to: number): unknown {
+  if (value === from) return to;
+  if (Array.isArray(value)) return value.map((v) => withNumber(v, from, to));
+  if (value !== null && typeof value === 'object') return Object.fromEntries(Object.entries(value).map(([k, v]) => [k, withNumber(v, from, to)]));
+  return value;
+}
+
+/** How many times a number occurs as a value in a JSON value. */
+function countNumber(value: unknown, n: number): number {
+  if (value === n) return 1;
+  if (Array.isArray(value)) return value.reduce((sum: number, v) => sum + countNumber(v, n), 0);
+  if (value !== null && typeof value === 'object') return Object.values(value).reduce((sum: number, v) => sum + countNumber(v, n), 0);
+  return 0;
+}
+
 /** Inserts many rows (every column named). */
-export function insertRows(table: string, columns: readonly string[], rows: readonly Values[]): SetWrite {
+export function insertRows(table: string, columns: readonly string[], rows: readonly Values[], drawn?: DrawnInWrite): SetWrite {
   const cols = sql.join(columns.map((c) => sql.ref(c)));
-  return sql`INSERT INTO ${sql.table(table)} (${cols}) SELECT ${cols} FROM jsonb_populate_recordset(NULL::${sql.table(table)}, ${rowsJson(rows)}::jsonb)`;
+  return sql`INSERT INTO ${sql.table(table)} (${cols}) SELECT ${cols} FROM jsonb_populate_recordset(NULL::${sql.table(table)}, ${rowsParam(rows, drawn)})`;
 }
 
 /**
  * Inserts events whose ids the statement draws itself, in the order of `rows` (nextval per row of the JSON array, in
  * array order), answering them (RETURNING id). Drawn in the write itself: after every lock its transaction took.
  */
-export function insertDrawingIds(table: string, columns: readonly string[], rows: readonly Values[]): SetWrite {
+export function insertDrawingIds(table: string, columns: readonly string[], rows: readonly Values[], drawn?: DrawnInWrite): SetWrite {
   const cols = sql.join(columns.map((c) => sql.ref(c)));
   return sql`INSERT INTO ${sql.table(table)} (id, ${cols}) SELECT nextval(pg_get_serial_sequence(${table}, 'id')), ${cols}
-    FROM jsonb_populate_recordset(NULL::${sql.table(table)}, ${rowsJson(rows)}::jsonb) RETURNING id`;
+    FROM jsonb_populate_recordset(NULL::${sql.table(table)}, ${rowsParam(rows, drawn)}) RETURNING id`;
 }
 
 /** Sets the same columns of many rows (each row carries its id). */
-export function updateRows(table: string, columns: readonly string[], rows: readonly Values[]): SetWrite {
+export function updateRows(table: string, columns: readonly string[], rows: readonly Values[], drawn?: DrawnInWrite): SetWrite {
   return sql`UPDATE ${sql.table(table)} AS t SET ${sql.join(columns.map((c) => sql`${sql.ref(c)} = r.${sql.ref(c)}`))}
-    FROM jsonb_populate_recordset(NULL::${sql.table(table)}, ${rowsJson(rows)}::jsonb) AS r WHERE t.id = r.id`;
+    FROM jsonb_populate_recordset(NULL::${sql.table(table)}, ${rowsParam(rows, drawn)}) AS r WHERE t.id = r.id`;
 }
 
 /** Blocking keys of names (a key already there stays). */
-export function insertBlockingKeys(keys: readonly { key: string; counterparty_id: number; name_id: number }[]): SetWrite {
+export function insertBlockingKeys(keys: readonly { key: string; counterparty_id: number; name_id: number }[], drawn?: DrawnInWrite): SetWrite {
   return sql`INSERT INTO blocking_key (key, counterparty_id, name_id)
-    SELECT key, counterparty_id, name_id FROM jsonb_populate_recordset(NULL::blocking_key, ${rowsJson(keys)}::jsonb)
+    SELECT key, counterparty_id, name_id FROM jsonb_populate_recordset(NULL::blocking_key, ${rowsParam(keys, drawn)})
     ON CONFLICT DO NOTHING`;
 }
 
@@ -121,11 +171,29 @@ export async function runWrites(trx: Trx, writes: readonly SetWrite[]): Promise<
   await sql`WITH ${sql.join(parts)} SELECT 1`.execute(trx);
 }
 
-/** As runWrites, with a last write that answers ids (insertDrawingIds): answers them in ascending order. */
-export async function runWritesReturning(trx: Trx, writes: readonly SetWrite[], returning: SetWrite): Promise<number[]> {
-  const parts = [...writes, returning].map((w, i) => sql`${sql.raw(`w${i}`)} AS (${w})`);
-  const result = await sql<{ id: unknown }>`WITH ${sql.join(parts)} SELECT id FROM ${sql.raw(`w${writes.length}`)} ORDER BY id`.execute(trx);
-  return result.rows.map((r) => Number(r.id));
+/**
+ * As runWrites, in one statement that may also draw ids itself: the ids a last write answers (insertDrawingIds), in
+ * ascending order, and a counterparty id, drawn once by the statement for the writes built with `DrawnInWrite`.
+ */
+export async function runWritesDrawing(
+  trx: Trx,
+  writes: readonly SetWrite[],
+  draw: { returning?: SetWrite; counterparty: boolean },
+): Promise<{ ids: number[]; counterparty: number | null }> {
+  const all = draw.returning ? [...writes, draw.returning] : writes;
+  const parts = all.map((w, i) => sql`${sql.raw(`w${i}`)} AS (${w})`);
+  if (draw.counterparty) parts.unshift(sql`${sql.raw(DRAWN_COUNTERPARTY)} AS (SELECT nextval(pg_get_serial_sequence('counterparty', 'id')) AS id)`);
+  // The drawn counterparty id is answered on every row (and a row with no ids when nothing else is returned).
+  const counterparty = draw.counterparty ? sql`(SELECT id FROM ${sql.raw(DRAWN_COUNTERPARTY)})` : sql`NULL::bigint`;
+  const answer = draw.returning
+    ? sql`SELECT id, ${counterparty} AS counterparty FROM ${sql.raw(`w${writes.length}`)} ORDER BY id`
+    : sql`SELECT NULL::bigint AS id, ${counterparty} AS counterparty`;
+  const result = await sql<{ id: unknown; counterparty: unknown }>`WITH ${sql.join(parts)} ${answer}`.execute(trx);
+  const first = result.rows[0];
+  return {
+    ids: draw.returning ? result.rows.map((r) => Number(r.id)) : [],
+    counterparty: first && first.counterparty !== null ? Number(first.counterparty) : null,
+  };
 }
 
 /**

@@ -17,8 +17,10 @@ import { MAX_CANDIDATES } from './matching/candidates.ts';
 import { currentModel, modelFromSettings } from './matching/model.ts';
 import { decide, type ContractContext, type PartyContext } from './resolve/decide.ts';
 import { contractContextFor, contractContextsByRef, contractRefKey } from './resolve/contract-context.ts';
+import type { PreparedMention } from './resolve/prepare.ts';
 import { neighbourhoodKeys } from './resolve/neighbourhood.ts';
 import { resultOf } from './resolve/result.ts';
+import type { IdTable } from './state/change-set.ts';
 import { canonicalRow } from './state/tables.ts';
 import type { Pending } from './batch-cluster.ts';
 import type { BatchItemResult, Checked } from './batch-check.ts';
@@ -79,8 +81,13 @@ async function readWithin(ctx: RegisterContext, within: Within, checked: Checked
   const cs = within.cs;
   // Its reads see what the caller wrote before in this ChangeSet (a no-op when nothing waits in the buffer).
   await cs.flush();
-  // The locks, the stored mention, the settings and our own entities in one round trip.
-  const basics = await lockAndReadDecisionBasics(cs.trx, neighbourhoodKeys([prepared]), prepared.input);
+  // The locks, the stored mention, the settings and our own entities in one round trip, with the ids of the rows the
+  // write may add (an upper bound, kept by the ChangeSet: the write stage then draws none of them).
+  const basics = await lockAndReadDecisionBasics(cs.trx, neighbourhoodKeys([prepared]), prepared.input, {
+    counts: idsAhead(prepared, within.party),
+    unlessContentHash: within.force ? null : prepared.contentHash,
+  });
+  cs.keepIds(basics.ids);
   const stored = byKey(basics.stored ? [basics.stored] : []);
   const found = basics.stored ? canonicalRow('mention', basics.stored) : undefined;
   // A changed contract that keeps a party's name but declares other former or trade names for it resolves it again.
@@ -154,6 +161,20 @@ export async function decideMentions(
     });
   }
   return pending;
+}
+
+/**
+ * The most rows of each table a single resolve adds besides its counterparty (whose id the register's size is read
+ * from, so none is drawn ahead: batch-write.ts, ChangeSet.reserveAndLock): its mention, its explanation, a review
+ * item, and its name with its aliases and the names its contract declares (batch-write.ts namesUpperBound).
+ */
+function idsAhead(prepared: PreparedMention, party: PartyContext | undefined): Map<IdTable, number> {
+  return new Map<IdTable, number>([
+    ['mention', 1],
+    ['explanation', 1],
+    ['review_item', 1],
+    ['counterparty_name', 1 + (party?.aliases?.length ?? 0) + prepared.analysis.aliases.length],
+  ]);
 }
 
 function byKey(rows: StoredMentionRow[]): Map<string, StoredMentionRow> {

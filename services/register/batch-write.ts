@@ -135,8 +135,16 @@ async function writeChunk(ctx: RegisterContext, cs: ChangeSet, chunk: Group[], c
     out.push(results);
   }
   await timed(c.options.stages, 'flush', () => cs.flush());
-  // Events written from the buffer got their ids at the flush.
-  return out.map((results) => results.map((r) => (r.eventId === null ? r : { ...r, eventId: cs.realId(r.eventId) })));
+  // Events written from the buffer got their ids at the flush, and so did a single resolve's new counterparty
+  // (ChangeSet.reserveAndLock).
+  for (const [group, id] of c.pending) c.pending.set(group, cs.realId(id));
+  return out.map((results) =>
+    results.map((r) => ({
+      ...r,
+      eventId: r.eventId === null ? null : cs.realId(r.eventId),
+      counterpartyId: r.counterpartyId === null ? null : cs.realId(r.counterpartyId),
+    })),
+  );
 }
 
 /** A batch's stored mentions (with their counterparty) by sort key, as read at its write. */

@@ -16,8 +16,6 @@
 import type { Kysely, Transaction } from 'kysely';
 import type { Database } from '../../../db/types.ts';
 import { deleteById, drawIds, drawIdsAndLock, lockNamesOf, lockRows, nextId } from '../../../db/queries/state-writes.ts';
-import { holdersOf } from '../../../db/queries/identifiers.ts';
-import { lockOpenItemsOfMentions } from '../../../db/queries/chunk-reads.ts';
 import { deepEqual } from './deep-equal.ts';
 import { syncDerived, type DerivedContext } from './derived.ts';
 import { Explanations } from './explanations.ts';
@@ -51,6 +49,8 @@ export class ChangeSet {
   private readonly explanations: Explanations;
   /** What a chunk read ahead (state/prefetched.ts): identifier holders, open review items of stored mentions. */
   readonly prefetched = new Prefetched();
+  /** The next new counterparty takes a temporary id that the write replaces by one it draws (reserveAndLock). */
+  private counterpartyInWrite = false;
 
   constructor(
     readonly trx: Transaction<Database>,
@@ -77,6 +77,11 @@ export class ChangeSet {
     this.ids.add(await drawIds(this.trx, new Map(Object.entries(counts) as [IdTable, number][])));
   }
 
+  /** Keeps ids drawn beforehand for this ChangeSet's new rows (a single resolve's, with its first statement). */
+  keepIds(drawn: ReadonlyMap<IdTable, readonly number[]>): void {
+    this.ids.add(drawn);
+  }
+
   /** The real id of a temporary id once it is written (any other id as it is). */
   realId(id: number): number {
     return this.ids.realId(id);
@@ -90,33 +95,31 @@ export class ChangeSet {
   async reserveAndLock(counts: Partial<Record<IdTable, number>>, lock: { counterparties: number[]; namesOf: number[] }): Promise<void> {
     const counterparties = [...new Set(lock.counterparties)].filter((id) => !this.cache.has('counterparty', id));
     const namesOf = this.namesToLoad(lock.namesOf);
-    const drawn = await drawIdsAndLock(this.trx, new Map(Object.entries(counts) as [IdTable, number][]), { counterparties, namesOf });
+    const short = this.ids.lacking(counts);
+    const drawing = [...short].filter(([, n]) => n > 0);
+    if (counterparties.length === 0 && namesOf.length === 0) {
+      if (drawing.length === 0) return;
+      // One new counterparty is all this statement would be for: its id is drawn by the write instead (one round
+      // trip fewer). Its id is not drawn ahead as the others are: the register's size is its highest id (matching/idf.ts).
+      if (drawing.length === 1 && drawing[0]![0] === 'counterparty' && drawing[0]![1] === 1) {
+        this.counterpartyInWrite = true;
+        return;
+      }
+    }
+    const drawn = await drawIdsAndLock(this.trx, short, { counterparties, namesOf });
     this.ids.add(drawn.ids);
     for (const r of drawn.counterparties) this.cache.set('counterparty', canonicalRow('counterparty', r));
     this.holdNames(namesOf, drawn.names);
   }
 
-  /**
-   * Reads the holders of these identifiers in one statement (with those in the buffer), for
-   * addIdentifierRow to answer without a read per identifier.
-   */
+  /** Reads the holders of these identifiers in one statement (state/prefetched.ts), with those in the buffer. */
   async prefetchHolders(identifiers: readonly { scheme: string; value: string }[]): Promise<void> {
-    const todo = identifiers.filter((i) => !this.prefetched.knowsHolders(i));
-    if (todo.length === 0) return;
-    const stored = await holdersOf(this.trx, [...todo]);
-    const buffered = this.unwritten('counterparty_identifier').map((r) => ({ counterpartyId: r.counterparty_id, scheme: r.scheme, value: r.value }));
-    this.prefetched.keepHolders(todo, [...stored, ...buffered]);
+    await this.prefetched.readHolders(this.trx, identifiers, this.unwritten('counterparty_identifier'));
   }
 
-  /** Locks the open review items of these mentions in one statement (after the mentions: the lock order) and keeps them. */
+  /** Locks the open review items of these mentions in one statement and keeps them (state/prefetched.ts). */
   async prefetchOpenItems(mentionIds: readonly number[]): Promise<void> {
-    if (mentionIds.length === 0) return;
-    for (const row of (await lockOpenItemsOfMentions(this.trx, mentionIds)).map((r) => canonicalRow('review_item', r))) {
-      if (!this.cache.has('review_item', row.id)) this.cache.set('review_item', row);
-    }
-    const wanted = new Set(mentionIds);
-    const open = [...this.cache.rowsOf('review_item')].filter((r) => r.mention_id !== null && wanted.has(r.mention_id) && r.status === 'open');
-    this.prefetched.keepOpenItems(mentionIds, open);
+    await this.prefetched.readOpenItems(this.trx, mentionIds, this.cache);
   }
 
   /** Locks every name of these counterparties and keeps them as their complete name lists. */
@@ -173,6 +176,7 @@ export class ChangeSet {
 
   /** Writes everything buffered: the rows, their derived keys and the events, in a few statements. */
   async flush(): Promise<void> {
+    this.counterpartyInWrite = false;
     if (this.buffer.empty) return;
     this.ids.written(await this.buffer.write(this.trx, this.cache, this.ops));
   }
@@ -184,7 +188,9 @@ export class ChangeSet {
   }
 
   /** The current image of one row, locking it on first use. */
-  async get<T extends StateTable>(table: T, id: number): Promise<StateRow<T> | undefined> {
+  async get<T extends StateTable>(table: T, temporaryOrReal: number): Promise<StateRow<T> | undefined> {
+    // A writer may still hold a temporary id the buffer's write has replaced since.
+    const id = this.realId(temporaryOrReal);
     const cached = this.cache.get(table, id);
     if (cached) return cached;
     const [row] = await this.lock(table, [id]);
@@ -209,7 +215,10 @@ export class ChangeSet {
 
   /** A new row, with its id: reserved, or drawn now (a name with none reserved: temporary until the flush). */
   async insert<T extends StateTable>(table: T, values: StateValues<T>): Promise<StateRow<T>> {
-    const id = table === 'counterparty_name' ? this.ids.takeOrTemporary(table) : (this.ids.take(table) ?? (await nextId(this.trx, table)));
+    const id =
+      table === 'counterparty_name' || (table === 'counterparty' && this.takeCounterpartyInWrite())
+        ? this.ids.takeOrTemporary(table)
+        : (this.ids.take(table) ?? (await nextId(this.trx, table)));
     const row = canonicalRow(table, jsonbImage(table, { ...values, id }));
     this.cache.set(table, row);
     this.buffer.insert(table, id);
@@ -225,6 +234,13 @@ export class ChangeSet {
     return row;
   }
 
+  /** Whether the next new counterparty's id is drawn by the write (once: the write draws one). */
+  private takeCounterpartyInWrite(): boolean {
+    const inWrite = this.counterpartyInWrite && this.ids.held('counterparty') === 0 && !this.buffer.drawsCounterparty();
+    this.counterpartyInWrite = false;
+    return inWrite;
+  }
+
   /** Changes the given columns; records only the columns whose value really changes. */
   async update<T extends StateTable>(table: T, id: number, patch: StateValues<T>): Promise<StateRow<T>> {
     const current = await this.require(table, id);
@@ -238,6 +254,8 @@ export class ChangeSet {
       after[column] = value;
     }
     if (Object.keys(after).length === 0) return current;
+    // The row's own id: `id` may be a temporary one written since (realId).
+    id = current.id;
     const op: Op = { op: 'update', table, id, before, after, refs: refsOf(table, current) };
     const row: StateRow<T> = { ...current, ...after };
     this.cache.set(table, row);

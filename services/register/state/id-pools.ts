@@ -2,7 +2,9 @@
  * The ids of the rows a ChangeSet adds. Ids drawn beforehand (`reserveIds`, one statement for a whole chunk) are
  * taken in order, per table. Names and history events with none reserved get a temporary id instead: how many a
  * batch adds is not known beforehand, so the flush draws their real ids in one statement (state/write-buffer.ts)
- * and this keeps the real id of each temporary one, for the writer that answers it (`realId`).
+ * and this keeps the real id of each temporary one, for the writer that answers it (`realId`). A new counterparty
+ * whose id alone would cost a statement (a single resolve that locks no row) gets a temporary id too, and the write
+ * itself draws its real one (state/write-buffer.ts).
  */
 import type { StateTable } from './tables.ts';
 
@@ -27,6 +29,19 @@ export class IdPools {
   /** Keeps ids drawn for a table (in ascending order) after those already reserved. */
   add(drawn: ReadonlyMap<IdTable, readonly number[]>): void {
     for (const [table, ids] of drawn) this.pools.set(table, [...(this.pools.get(table) ?? []), ...ids]);
+  }
+
+  /**
+   * How many ids each table still lacks for `counts` new rows: ids held already (a single resolve's, drawn with its
+   * first statement: ChangeSet.keepIds) are not drawn again.
+   */
+  lacking(counts: Partial<Record<IdTable, number>>): Map<IdTable, number> {
+    return new Map((Object.entries(counts) as [IdTable, number][]).map(([t, n]) => [t, Math.max(0, n - this.held(t))] as const));
+  }
+
+  /** How many reserved ids of a table are left. */
+  held(table: IdTable): number {
+    return this.pools.get(table)?.length ?? 0;
   }
 
   /** The next reserved id of a table, if any is left. */

@@ -4,7 +4,12 @@
  * ChangeSet's own writes, so that an answer from here is the one a read at that moment would give; a write this
  * cannot follow (an identifier row changed or deleted) drops what it knew, and the reader reads again.
  */
-import type { StateRow, StateTable } from './tables.ts';
+import type { Transaction } from 'kysely';
+import type { Database } from '../../../db/types.ts';
+import { holdersOf } from '../../../db/queries/identifiers.ts';
+import { lockOpenItemsOfMentions } from '../../../db/queries/chunk-reads.ts';
+import type { RowCache } from './row-cache.ts';
+import { canonicalRow, type StateRow, type StateTable } from './tables.ts';
 
 /** The key of an identifier: its scheme and value. */
 export function identifierKey(identifier: { scheme: string; value: string }): string {
@@ -16,6 +21,36 @@ export class Prefetched {
   private holders = new Map<string, number[]>();
   /** Open review items of each stored mention read ahead (locked, their rows in the ChangeSet's cache). */
   private readonly openItems = new Map<number, number[]>();
+
+  /**
+   * Reads the holders of the identifiers not read yet in one statement and keeps them, with those of `unwritten`
+   * (identifier rows in the ChangeSet's buffer, which the read does not see).
+   */
+  async readHolders(
+    trx: Transaction<Database>,
+    identifiers: readonly { scheme: string; value: string }[],
+    unwritten: readonly StateRow<'counterparty_identifier'>[],
+  ): Promise<void> {
+    const todo = identifiers.filter((i) => !this.knowsHolders(i));
+    if (todo.length === 0) return;
+    const stored = await holdersOf(trx, [...todo]);
+    const buffered = unwritten.map((r) => ({ counterpartyId: r.counterparty_id, scheme: r.scheme, value: r.value }));
+    this.keepHolders(todo, [...stored, ...buffered]);
+  }
+
+  /**
+   * Locks the open review items of these mentions in one statement (after the mentions: the lock order), puts the
+   * rows the ChangeSet does not hold yet in its cache, and keeps which items each mention has open.
+   */
+  async readOpenItems(trx: Transaction<Database>, mentionIds: readonly number[], cache: RowCache): Promise<void> {
+    if (mentionIds.length === 0) return;
+    for (const row of (await lockOpenItemsOfMentions(trx, mentionIds)).map((r) => canonicalRow('review_item', r))) {
+      if (!cache.has('review_item', row.id)) cache.set('review_item', row);
+    }
+    const wanted = new Set(mentionIds);
+    const open = [...cache.rowsOf('review_item')].filter((r) => r.mention_id !== null && wanted.has(r.mention_id) && r.status === 'open');
+    this.keepOpenItems(mentionIds, open);
+  }
 
   /** Whether the holders of this identifier were read ahead. */
   knowsHolders(identifier: { scheme: string; value: string }): boolean {

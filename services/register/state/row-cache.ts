@@ -3,7 +3,7 @@
  * some counterparties the complete list of their names (locked with ChangeSet.loadNames, or created here), so that
  * a batch adds sightings and chooses canonical names without reading them again.
  */
-import type { Row, StateRow, StateTable } from './tables.ts';
+import { COUNTERPARTY_COLUMNS, type Row, type StateRow, type StateTable } from './tables.ts';
 
 function rowKey(table: StateTable, id: number): string {
   return `${table}:${id}`;
@@ -74,6 +74,26 @@ export class RowCache {
         set.delete(temp);
         set.add(map.get(temp)!);
       }
+    }
+  }
+
+  /**
+   * Gives a counterparty held under a temporary id its real id (drawn by the write: state/write-buffer.ts), in its
+   * own row, in every held row that refers to it, and in the held name lists.
+   */
+  renameCounterparty(temp: number, id: number): void {
+    for (const [key, row] of this.rows) {
+      const table = key.slice(0, key.indexOf(':')) as StateTable;
+      const columns = COUNTERPARTY_COLUMNS[table].filter((c) => row[c] === temp);
+      if (columns.length === 0) continue;
+      this.rows.delete(key);
+      const renamed: Row = { ...row, ...Object.fromEntries(columns.map((c) => [c, id])) };
+      this.rows.set(rowKey(table, renamed.id as number), renamed);
+    }
+    const names = this.names.get(temp);
+    if (names) {
+      this.names.delete(temp);
+      this.names.set(id, names);
     }
   }
 }

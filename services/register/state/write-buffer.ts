@@ -2,7 +2,8 @@
  * The write buffer of a ChangeSet: rows inserted and columns changed since the last flush, the blocking keys of
  * new names and the history events, written at the flush in a few set-based statements (db/queries/state-writes.ts).
  * Names and events carry temporary ids until then (how many a batch adds is not known beforehand): the flush
- * draws their real ids in one statement and renames them everywhere the ChangeSet keeps them.
+ * draws their real ids in one statement and renames them everywhere the ChangeSet keeps them. A single resolve's
+ * events and its one new counterparty are drawn by the write itself instead (one round trip fewer).
  */
 import type { Transaction } from 'kysely';
 import type { Database } from '../../../db/types.ts';
@@ -11,9 +12,9 @@ import {
   insertBlockingKeys,
   insertDrawingIds,
   insertRows,
-  runWrites,
-  runWritesReturning,
+  runWritesDrawing,
   updateRows,
+  type DrawnInWrite,
   type SetWrite,
 } from '../../../db/queries/state-writes.ts';
 import { insertExplanations } from '../../../db/queries/explanations.ts';
@@ -21,7 +22,7 @@ import { upsertNameAnalysesWrite, type NameAnalysisRow } from '../../../db/queri
 import { isTemporaryId } from './id-pools.ts';
 import type { Op } from './ops.ts';
 import type { RowCache } from './row-cache.ts';
-import { columnsOf, STATE_TABLES, type Row, type StateTable } from './tables.ts';
+import { columnsOf, COUNTERPARTY_COLUMNS, STATE_TABLES, type Row, type StateTable } from './tables.ts';
 
 /** A history event waiting in the buffer (history/commit.ts). */
 export interface BufferedEvent {
@@ -100,6 +101,10 @@ export class WriteBuffer {
     // write itself, one round trip fewer; otherwise every temporary id is drawn first and renamed.
     const drawInWrite = this.events.length > 0 && this.events.every((e) => isTemporaryId(e.id)) && !this.hasTemporaryNames();
     const map = drawInWrite ? new Map<number, number>() : await this.drawRealIds(trx, cache, ops);
+    // A new counterparty under a temporary id (ChangeSet.reserveAndLock): the statement draws its id and the rows
+    // that hold the temporary one are written with it (db/queries/state-writes.ts rowsParam).
+    const temp = this.temporaryCounterparty();
+    const drawn: DrawnInWrite | undefined = temp === undefined ? undefined : { temp };
     const writes: SetWrite[] = this.explanations.length > 0 ? [insertExplanations(this.explanations)] : [];
     for (const table of STATE_TABLES) {
       const ids = this.inserts.get(table);
@@ -109,6 +114,7 @@ export class WriteBuffer {
             table,
             columnsOf(table),
             ids.map((id) => cache.get(table, map.get(id) ?? id)!),
+            drawn,
           ),
         );
     }
@@ -119,20 +125,31 @@ export class WriteBuffer {
       if (!byColumns.has(key)) byColumns.set(key, { table, columns, rows: [] });
       byColumns.get(key)!.rows.push({ id, ...after });
     }
-    for (const { table, columns, rows } of byColumns.values()) writes.push(updateRows(table, columns, rows));
-    if (this.blockingKeys.length > 0) writes.push(insertBlockingKeys(this.blockingKeys.map((k) => ({ ...k, name_id: map.get(k.name_id) ?? k.name_id }))));
+    for (const { table, columns, rows } of byColumns.values()) writes.push(updateRows(table, columns, rows, drawn));
+    if (this.blockingKeys.length > 0)
+      writes.push(
+        insertBlockingKeys(
+          this.blockingKeys.map((k) => ({ ...k, name_id: map.get(k.name_id) ?? k.name_id })),
+          drawn,
+        ),
+      );
     if (this.analyses.length > 0) writes.push(upsertNameAnalysesWrite(this.analyses.map((a) => ({ ...a, name_id: map.get(a.name_id) ?? a.name_id }))));
+    let returning: SetWrite | undefined;
     if (drawInWrite) {
       const rows = this.events.map((e) => ({ ...e.values, payload: { ...(e.values.payload as Row), ops: e.ops } }));
-      const drawn = await runWritesReturning(trx, writes, insertDrawingIds('history_event', EVENT_COLUMNS_BUT_ID, rows));
-      this.events.forEach((e, i) => map.set(e.id, drawn[i]!));
-    } else {
-      if (this.events.length > 0) {
-        const rows = this.events.map((e) => ({ ...e.values, id: map.get(e.id) ?? e.id, payload: { ...(e.values.payload as Row), ops: e.ops } }));
-        writes.push(insertRows('history_event', EVENT_COLUMNS, rows));
-      }
-      // Everything in one statement: one round trip per flush.
-      await runWrites(trx, writes);
+      returning = insertDrawingIds('history_event', EVENT_COLUMNS_BUT_ID, rows, drawn);
+    } else if (this.events.length > 0) {
+      const rows = this.events.map((e) => ({ ...e.values, id: map.get(e.id) ?? e.id, payload: { ...(e.values.payload as Row), ops: e.ops } }));
+      writes.push(insertRows('history_event', EVENT_COLUMNS, rows, drawn));
+    }
+    // Everything in one statement: one round trip per flush.
+    const written = await runWritesDrawing(trx, writes, { ...(returning ? { returning } : {}), counterparty: temp !== undefined });
+    if (drawInWrite) this.events.forEach((e, i) => map.set(e.id, written.ids[i]!));
+    if (temp !== undefined) {
+      map.set(temp, written.counterparty!);
+      cache.renameCounterparty(temp, written.counterparty!);
+      // Ops not yet in an event (a flush before the writer's event) keep their images for it: given the real id too.
+      renameCounterpartyOps(ops, temp, written.counterparty!);
     }
     this.inserts = new Map();
     this.inserted = new Set();
@@ -142,6 +159,17 @@ export class WriteBuffer {
     this.events = [];
     this.explanations = [];
     return map;
+  }
+
+  /** Whether a new counterparty waits under a temporary id (the write draws one at most). */
+  drawsCounterparty(): boolean {
+    return this.temporaryCounterparty() !== undefined;
+  }
+
+  private temporaryCounterparty(): number | undefined {
+    const temps = (this.inserts.get('counterparty') ?? []).filter(isTemporaryId);
+    if (temps.length > 1) throw new Error(`a write draws one counterparty id, not ${temps.length} (a defect)`);
+    return temps[0];
   }
 
   private hasTemporaryNames(): boolean {
@@ -182,5 +210,18 @@ function renameNameOps(lists: Op[][], map: ReadonlyMap<number, number>): void {
         if (typeof id === 'number' && map.has(id)) op.row.id = map.get(id);
       }
     }
+  }
+}
+
+/** Gives a counterparty's temporary id its real one in the row images of ops (their counterparty columns). */
+function renameCounterpartyOps(ops: Op[], temp: number, id: number): void {
+  const rename = (table: StateTable, image: Row) => {
+    for (const column of COUNTERPARTY_COLUMNS[table]) if (image[column] === temp) image[column] = id;
+  };
+  for (const op of ops) {
+    if (op.op === 'update') {
+      if (op.table === 'counterparty' && op.id === temp) op.id = id;
+      for (const image of [op.before, op.after, op.refs]) rename(op.table, image);
+    } else rename(op.table, op.row);
   }
 }

@@ -7,7 +7,9 @@
  * folded (not from a source): before, 26 statements for a two-party contract with two defined terms and 28 with four
  * (one INSERT per term, the contract looked up by its key twice and once more by the file import, the terms read
  * back), 15 after whatever the number of terms, 13 since a party's resolve reads its stored mention in the statement
- * of its locks (services/register/batch-decide.ts). Names and texts are invented.
+ * of its locks (services/register/batch-decide.ts), 11 since a party's resolve that creates its counterparty draws
+ * the ids of its rows with its locks and the counterparty's in its write (state/change-set.ts reserveAndLock). Names
+ * and texts are invented.
  */
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -38,7 +40,7 @@ const insertsTerms = (s: string) => /insert into "defined_term"/i.test(s);
 const readsContractByKey = (s: string) => /\bcontract\b/i.test(s) && /(?:^|[\s."(])source"? = \$\d+ and (?:"?\w+"?\.)?"?external_id"? = \$\d+/i.test(s);
 
 describeBackends('contract round trips', (backend) => {
-  it('stores a new two-party contract in 13 statements, however many defined terms it has', async () => {
+  it('stores a new two-party contract in 11 statements, however many defined terms it has', async () => {
     await withTestDatabase(backend, async ({ db }) => {
       const log = new StatementLog();
       const ctx = createRegisterContext(db.withPlugin(log));
@@ -57,7 +59,7 @@ describeBackends('contract round trips', (backend) => {
         expect(log.statements.filter(readsContractByKey)).toHaveLength(1);
         counts.push(log.statements.length);
       }
-      expect(counts).toEqual([13, 13]);
+      expect(counts).toEqual([11, 11]);
     });
   });
 
@@ -78,7 +80,7 @@ describeBackends('contract round trips', (backend) => {
         });
         expect(summary.files).toMatchObject({ read: 3, imported: 3, new: 3 });
         expect(log.statements.filter(readsContractByKey)).toHaveLength(3);
-        expect(log.statements.length).toBe(3 * 13);
+        expect(log.statements.length).toBe(3 * 11);
       } finally {
         removeTempDir(dir);
       }

@@ -19,7 +19,7 @@ import {
   undoEvent,
   type RegisterContext,
 } from '../../../services/register/index.ts';
-import { commitEvent } from '../../../services/register/history/commit.ts';
+import { commitEvent, commitWritten } from '../../../services/register/history/commit.ts';
 import { write } from '../../../services/register/transaction.ts';
 import { contextFor, expectSameState, WHO } from './support.ts';
 
@@ -105,6 +105,41 @@ describeEachBackend('one write path', (t) => {
         .executeTakeFirstOrThrow()
     ).n;
     expect(feedAfter).toEqual(feedBefore);
+  });
+
+  it("draws a new counterparty's id in the write: its rows, its ops and its event hold the real id, the text spelling the temporary one kept", async () => {
+    const { id, temp, eventId } = await write(ctx, async (cs) => {
+      // One new counterparty and no row to lock: no statement now, the write draws its id (a single resolve's case).
+      await cs.reserveAndLock({ counterparty: 1 }, { counterparties: [], namesOf: [] });
+      const at = new Date().toISOString();
+      const cp = await cs.insert('counterparty', {
+        canonical_name: 'Velmora Looms Ltd',
+        kind: 'organisation',
+        status: 'active',
+        version: 1,
+        created_at: at,
+        updated_at: at,
+      });
+      const temp = String(cp.id);
+      // A text spelling the temporary id's digits is written as sent (the write replaces the id, not the text).
+      await cs.update('counterparty', cp.id, { canonical_name: `Velmora Looms ${cp.id} Ltd` });
+      // A jurisdiction writes the buffer at once (its names' analyses follow): a write before the event.
+      await cs.update('counterparty', cp.id, { jurisdiction: 'GB' });
+      // The writer still holds the temporary id: it names the same row.
+      await cs.update('counterparty', cp.id, { kind: 'unknown' });
+      const eventId = await commitWritten(cs, { type: 'created', actor: WHO.actor, at: new Date(at) });
+      return { id: cs.realId(Number(temp)), temp, eventId };
+    });
+    expect(id).toBeLessThan(2 ** 52);
+    const row = await t.db().selectFrom('counterparty').select(['canonical_name', 'jurisdiction', 'kind']).where('id', '=', id).executeTakeFirstOrThrow();
+    expect(row).toEqual({ canonical_name: `Velmora Looms ${temp} Ltd`, jurisdiction: 'GB', kind: 'unknown' });
+    const event = await t.db().selectFrom('history_event').select(['counterparty_ids', 'payload']).where('id', '=', eventId).executeTakeFirstOrThrow();
+    expect(event.counterparty_ids.map(Number)).toEqual([id]);
+    const ops = (event.payload as { ops: { op: string; id?: number; row?: { id: number } }[] }).ops;
+    expect(ops.map((o) => o.op)).toEqual(['insert', 'update', 'update', 'update']);
+    expect(ops.map((o) => o.row?.id ?? o.id)).toEqual([id, id, id, id]);
+    // The digits stay in the text only (the name as updated), never as an id.
+    expect(JSON.stringify(event.payload).split(temp).length - 1).toBe(1);
   });
 
   it('writes what a writer left in the buffer before the commit', async () => {

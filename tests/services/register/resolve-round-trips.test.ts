@@ -3,10 +3,12 @@
  * the register's size in one statement (services/register/matching/idf.ts, batch-reads.ts). Counted here are the
  * statements a resolve sends through Kysely (BEGIN and COMMIT are driver calls and not counted), and which of them
  * read token rarity. The figures are this register's own, counted when the reads were folded (not from a source):
- * the point is that each rarity read happens once, and that a resolve takes four statements: the locks with the
- * stored mention, the settings and our own entities; the candidates with the token counts and the register's size;
- * the ids with the row locks of the counterparty it links; the write, which draws the event's id (11 before they
- * were first folded, 5 before the stored mention joined the locks). Names are invented.
+ * the point is that each rarity read happens once, and that a resolve that links or asks takes four statements: the
+ * locks with the stored mention, the settings, our own entities and the ids of the rows it may add; the candidates
+ * with the token counts and the register's size; the row locks of the counterparty it links or asks about; the
+ * write, which draws the event's id (11 before they were first folded, 5 before the stored mention joined the
+ * locks). One that creates a counterparty locks no row, and its write draws the counterparty's id: three. Names
+ * are invented.
  */
 import { expect, it } from 'vitest';
 import { describeBackends, withTestDatabase } from '../../support/index.ts';
@@ -45,7 +47,7 @@ describeBackends('single resolve round trips', (backend) => {
     });
   });
 
-  it('keeps four statements for a new counterparty and for a review, and links a later mention to the first', async () => {
+  it('takes three statements for a new counterparty and four for a review, and links a later mention to the first', async () => {
     await withTestDatabase(backend, async ({ db }) => {
       const setup = createRegisterContext(db);
       await resolveMention(setup, { source: 'seed', externalId: '1', text: 'Quorrelby Dyeworks GmbH', country: 'DE' }, WHO);
@@ -53,7 +55,17 @@ describeBackends('single resolve round trips', (backend) => {
       const ctx = createRegisterContext(db.withPlugin(log));
       const created = await resolveMention(ctx, { source: 'rt', externalId: 'n', text: 'Vantmoor Sailcloth Ltd', country: 'GB' }, WHO);
       expect(created.status).toBe('new');
-      expect(log.statements.length).toBe(4);
+      // Four before the counterparty's id was drawn by the write (the third statement drew it alone).
+      expect(log.statements.length).toBe(3);
+      expect(log.statements.filter((s) => /FOR UPDATE/.test(s))).toHaveLength(0);
+      // The id the write drew is the stored counterparty's, in its rows and in its event.
+      const mention = await db.selectFrom('mention').select('counterparty_id').where('id', '=', created.mentionId).executeTakeFirstOrThrow();
+      expect(Number(mention.counterparty_id)).toBe(created.counterpartyId);
+      const names = await db.selectFrom('counterparty_name').select('counterparty_id').where('counterparty_id', '=', created.counterpartyId!).execute();
+      expect(names.length).toBeGreaterThan(0);
+      const event = await db.selectFrom('history_event').select(['counterparty_ids', 'payload']).where('id', '=', created.eventId!).executeTakeFirstOrThrow();
+      expect(event.counterparty_ids.map(Number)).toEqual([created.counterpartyId]);
+      expect(JSON.stringify(event.payload)).not.toMatch(/45035996\d{8}/);
       log.statements.length = 0;
       // An abbreviated word with nothing else known: between newAt and linkAt (see the built-in model's weights).
       const asked = await resolveMention(ctx, { source: 'rt', externalId: 'r', text: 'Quorrelby Dyew.' }, WHO);
