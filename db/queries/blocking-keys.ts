@@ -92,20 +92,8 @@ async function candidateQuery(
   read: { tokens: readonly string[]; cap: number } | null,
 ): Promise<{ details: CandidateDetail[][]; counts: { counts: Map<string, number>; size: number } | null }> {
   const out: CandidateDetail[][] = probes.map(() => []);
-  const countryProbe: number[] = [];
-  const countries: string[] = [];
-  probes.forEach((probe, p) => {
-    if (!probe.country) return;
-    countryProbe.push(p);
-    countries.push(probe.country);
-  });
-  const textProbe: number[] = [];
-  const texts: string[] = [];
-  probes.forEach((probe, p) => {
-    if (!probe.text) return;
-    textProbe.push(p);
-    texts.push(probe.text);
-  });
+  const [countryProbe, countries] = presentValues(probes, (probe) => probe.country);
+  const [textProbe, texts] = presentValues(probes, (probe) => probe.text);
   const keyProbe: number[] = [];
   const keys: string[] = [];
   const idProbe: number[] = [];
@@ -274,4 +262,17 @@ function detailOf(r: {
     })),
     identifiers: ids.map(([scheme, value, label]) => ({ scheme, value, label })),
   };
+}
+
+/** The probes that have a value (their indexes) and those values, as two parallel arrays for unnest. */
+function presentValues(probes: readonly CandidateProbe[], pick: (probe: CandidateProbe) => string | null | undefined): [number[], string[]] {
+  const at: number[] = [];
+  const values: string[] = [];
+  probes.forEach((probe, p) => {
+    const value = pick(probe);
+    if (!value) return;
+    at.push(p);
+    values.push(value);
+  });
+  return [at, values];
 }

@@ -12,6 +12,7 @@ import { describeBackends, withTestDatabase } from '../../support/index.ts';
 import { createRegisterContext, resolveBatch, storeContract, unlinkMention, type RegisterContext } from '../../../services/register/index.ts';
 import type { MentionInput } from '../../../resolvers/vocabulary.ts';
 import { StatementLog, WHO } from './support.ts';
+import { inventedContract } from '../contract-files/support.ts';
 
 const FIRST = ['Vant', 'Quor', 'Brack', 'Ostl', 'Helm', 'Marr', 'Tell', 'Hobb', 'Pell'];
 const SECOND = ['moor', 'relby', 'water', 'und', 'iston', 'owgate'];
@@ -24,16 +25,6 @@ function company(i: number): { name: string; number: string; phone: string } {
     number: String(4_100_000 + i * 7).padStart(8, '0'),
     phone: `+4420794601${String(i).padStart(2, '0')}`,
   };
-}
-
-function agreement(supplier: string, customer: string): string {
-  return [
-    'SUPPLY AGREEMENT',
-    '',
-    'This Supply Agreement is made on 3 March 2026 between:',
-    `(1) ${supplier}, a company incorporated in England and Wales ("Supplier"); and`,
-    `(2) ${customer}, a company registered in Germany ("Customer").`,
-  ].join('\n');
 }
 
 function mentions(tag: string, n: number, changed: boolean): MentionInput[] {
@@ -71,7 +62,11 @@ describeBackends('batch round trips', (backend) => {
       for (const n of [3, 9]) {
         const tag = `b${n}`;
         for (let i = 0; i < n; i++) {
-          await storeContract(setup, { source: tag, externalId: `C-${i}`, text: agreement(`Kelsborne Tiles ${tag} ${i} Ltd`, 'Ardwick Felt GmbH') }, WHO);
+          await storeContract(
+            setup,
+            { source: tag, externalId: `C-${i}`, text: inventedContract(`Kelsborne Tiles ${tag} ${i} Ltd`, 'Ardwick Felt GmbH') },
+            WHO,
+          );
         }
         counts.fresh!.push(await counted(ctx, log, mentions(tag, n, false)));
         counts.changed!.push(await counted(ctx, log, mentions(tag, n, true)));
