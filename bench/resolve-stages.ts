@@ -7,7 +7,8 @@
  *   read    first statement → end of the last statement before the write (stored mention, locks and settings,
  *           candidates and token counts, with the work in Node between them);
  *   decide  that end → the first statement of the write (scoring and the decision, in Node);
- *   write   the first statement that locks rows or draws ids (FOR UPDATE, nextval) → the first that changes data;
+ *   write   the first statement that locks rows or draws ids (FOR UPDATE, nextval) after the last plain read → the
+ *           first that changes data (a read that also draws ids, as a single resolve's first statement does, is read);
  *   flush   the first statement that changes data (INSERT, UPDATE, DELETE) → the end of the last one (COMMIT);
  *   result  the end of the last statement → the call's return.
  *
@@ -33,7 +34,11 @@ export function resolveStages(start: number, end: number, statements: readonly T
   const last = statements[statements.length - 1]!;
   const changeAt = statements.findIndex((s) => CHANGES.test(s.text));
   const change = changeAt === -1 ? statements.length : changeAt;
-  const lockAt = statements.findIndex((s, i) => i < change && LOCKS_OR_IDS.test(s.text));
+  // The write begins after the last plain read before the change: an earlier statement may also lock or draw ids
+  // (a single resolve's first statement draws the ids of the rows it may add) and is still a read.
+  let lastRead = -1;
+  for (let i = 0; i < change; i++) if (!LOCKS_OR_IDS.test(statements[i]!.text)) lastRead = i;
+  const lockAt = statements.findIndex((s, i) => i > lastRead && i < change && LOCKS_OR_IDS.test(s.text));
   const writeAt = lockAt === -1 ? change : lockAt;
   const stages: Record<string, number> = { check: first.start - start, read: 0, decide: 0, write: 0, flush: 0, result: end - last.end };
   if (writeAt > 0) {

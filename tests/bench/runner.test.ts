@@ -94,6 +94,12 @@ describe('a missed goal names the stage that took the time', () => {
     const stages = resolveStages(0, 24, statements);
     expect(stages).toEqual({ check: 2, read: 7, decide: 6, write: 3, flush: 5, result: 1 });
     expect(Object.values(stages).reduce((a, b) => a + b, 0)).toBe(24);
+    // The first statement also draws ids (a single resolve's ids drawn with its locks): still read, not write.
+    const drawing = [at('begin', 2, 3), at('SELECT pg_advisory_xact_lock(h), nextval(s) FROM k', 3, 5), ...statements.slice(3)];
+    expect(resolveStages(0, 24, drawing)).toEqual({ check: 2, read: 7, decide: 6, write: 3, flush: 5, result: 1 });
+    // A new counterparty: no lock statement after the candidates, the write draws its id itself (decide runs to it).
+    const creating = [...drawing.slice(0, 3), at('WITH d AS (SELECT nextval(s)), w0 AS (INSERT INTO counterparty …)', 15, 21), at('commit', 21, 23)];
+    expect(resolveStages(0, 24, creating)).toEqual({ check: 2, read: 7, decide: 6, write: 0, flush: 8, result: 1 });
     // Already ingested: only reads and the commit.
     expect(resolveStages(0, 5, [at('begin', 1, 2), at('SELECT m.* FROM mention m', 2, 3), at('commit', 3, 4)])).toEqual({
       check: 1,
