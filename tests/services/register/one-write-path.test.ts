@@ -73,15 +73,19 @@ describeEachBackend('one write path', (t) => {
     expect(event?.details.nameId).toBe(added.nameId);
   });
 
-  it('refuses an answer that still holds a temporary id, and writes nothing', async () => {
-    const before = await stateSnapshot(t.db());
-    const feedBefore = (
+  /** How many history events the register holds. */
+  const eventCount = async () =>
+    (
       await t
         .db()
         .selectFrom('history_event')
         .select((eb) => eb.fn.countAll().as('n'))
         .executeTakeFirstOrThrow()
     ).n;
+
+  it('refuses an answer that still holds a temporary id, and writes nothing', async () => {
+    const before = await stateSnapshot(t.db());
+    const feedBefore = await eventCount();
     const careless = write(ctx, async (cs) => {
       const at = new Date().toISOString();
       const cp = await cs.insert('counterparty', {
@@ -97,13 +101,7 @@ describeEachBackend('one write path', (t) => {
     });
     await expect(careless).rejects.toThrow(/temporary id/);
     expectSameState(await stateSnapshot(t.db()), before);
-    const feedAfter = (
-      await t
-        .db()
-        .selectFrom('history_event')
-        .select((eb) => eb.fn.countAll().as('n'))
-        .executeTakeFirstOrThrow()
-    ).n;
+    const feedAfter = await eventCount();
     expect(feedAfter).toEqual(feedBefore);
   });
 
